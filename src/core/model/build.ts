@@ -1,0 +1,81 @@
+/**
+ * What the synthesis produces and what the simulator, the checks and the exports consume.
+ */
+import type { FlatMachine } from './flat.js';
+import type { Netlist } from './netlist.js';
+import type { Cube } from './cube.js';
+
+/** State codes of the minimised machine. */
+export interface Encoding {
+  /** Strategy name: 'binary' | 'gray' | 'johnson' | 'one-hot' | 'pinned' | 'auto' (or a custom name). */
+  readonly strategy: string;
+  readonly bits: number;
+  /** Code per state of the minimised machine, '0'/'1' strings, bit 0 first (most significant). */
+  readonly codes: readonly string[];
+}
+
+/** A set or reset equation of one latch, or an output equation, as product terms. */
+export interface Equation {
+  /** What it drives: `S0`, `R0` (set/reset of master latch for bit 0) or an output name. */
+  readonly name: string;
+  /**
+   * Product terms over the variables `vars` of the Build (state bits then inputs);
+   * positional cube strings.
+   */
+  readonly terms: readonly Cube[];
+}
+
+/** Where the simulator finds the machine's signals in the netlist. */
+export interface SignalMap {
+  /** Lever id per machine input. */
+  readonly inputs: Readonly<Record<string, string>>;
+  readonly phi1: string;
+  readonly phi2: string;
+  readonly reset: string;
+  /** Master and slave latch ids per state bit (none for a one-state machine). */
+  readonly masters: readonly string[];
+  readonly slaves: readonly string[];
+  /** Per machine output: the flag or actuator showing it. */
+  readonly outputs: Readonly<Record<string, string>>;
+}
+
+/** Cost of the forbidden-input guard against an unguarded minimisation of the same functions. */
+export interface GuardReport {
+  /** S·R = 0 proven over all codes × all input combinations for every latch. */
+  readonly ok: boolean;
+  readonly extraGates: number;
+  readonly extraCords: number;
+  readonly method: string;
+}
+
+export interface PartCounts {
+  readonly gates: number;
+  readonly latches: number;
+  readonly levers: number;
+  readonly capstans: number;
+  readonly weights: number;
+  readonly cords: number;
+}
+
+export interface Build {
+  /** The minimised machine that was built. */
+  readonly machine: FlatMachine;
+  readonly encoding: Encoding;
+  /** Names of the cube variables of the equations: state bits `q0…` then inputs. */
+  readonly vars: readonly string[];
+  /** Set/reset equations per bit (`S0`, `R0`, …) and output equations. */
+  readonly equations: readonly Equation[];
+  readonly guard: GuardReport;
+  readonly netlist: Netlist;
+  readonly signals: SignalMap;
+  readonly parts: PartCounts;
+}
+
+/** One check's result; checks add their own fields. */
+export interface CheckResult {
+  readonly name: string;
+  readonly ok: boolean;
+  /** One line in words. */
+  readonly summary: string;
+  readonly [field: string]: unknown;
+}
