@@ -30,7 +30,7 @@ interface CodeInfo {
  */
 export const DIAGNOSTIC_CODES = {
   LW100: { severity: 'error', cause: 'The file is not valid JSON, or not an object where an object is needed.', fix: 'Check brackets, commas and quotes at the reported position.' },
-  LW101: { severity: 'error', cause: 'A line of the text form is not a statement the notation knows.', fix: 'Compare the line with the notation reference; check for a missing keyword or arrow.' },
+  LW101: { severity: 'error', cause: 'A line of the text form is not a statement the notation knows.', fix: 'Compare the line with the notation reference; check for a missing keyword (state, when, go, with).' },
   LW102: { severity: 'error', cause: 'A guard or never expression has a syntax error.', fix: 'Use input names, !, &, ^, |, parentheses, 0 and 1.' },
   LW103: { severity: 'error', cause: 'A field has the wrong type or an unknown value.', fix: 'See the JSON Schema in schemas/machine.schema.json.' },
   LW104: { severity: 'error', cause: 'A required field or section is missing.', fix: 'Add the field the message names.' },
@@ -43,6 +43,8 @@ export const DIAGNOSTIC_CODES = {
   LW204: { severity: 'error', cause: 'The start state is missing or names no state.', fix: 'Name an existing state as the start.' },
   LW205: { severity: 'error', cause: 'A name is not a valid identifier.', fix: 'Use letters, digits and _ ; start with a letter or _.' },
   LW206: { severity: 'error', cause: 'A pinned state code has the wrong length, bad characters, or repeats another state\'s code.', fix: 'Give every pinned code the same number of 0/1 digits, all different.' },
+  LW207: { severity: 'warning', cause: 'A pinned state code names a state the built machine does not have (misspelt, or merged with an equivalent state by state minimisation); the pin is ignored.', fix: 'Pin the state it was merged into, or correct the name.' },
+  LW208: { severity: 'error', cause: 'A step input sequence names an input the machine does not have.', fix: 'Use the machine\'s input names; a missing input counts as released (0).' },
   LW300: { severity: 'error', cause: 'The machine has no states.', fix: 'Declare at least one state.' },
   LW301: { severity: 'warning', cause: 'A transition can never fire: earlier transitions of the state (or never constraints) already cover its guard.', fix: 'Remove it, reorder the transitions, or narrow the earlier guards.' },
   LW302: { severity: 'info', cause: 'Some input combinations have no transition in a state; the unspecified rule applies (hold, or don\'t care).', fix: 'Nothing to do if that is intended; otherwise add transitions.' },

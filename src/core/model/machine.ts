@@ -40,6 +40,8 @@ export interface Transition {
   /** Mealy outputs: overrides of the state's outputs while this transition is taken. */
   readonly outputs: Readonly<Record<string, OutBit>>;
   readonly loc?: SourceLoc;
+  /** Where parts were written, by key ('to', 'code', 'start', 'input:0', 'out:bell' …), when the form knows. */
+  readonly partLocs?: Readonly<Record<string, SourceLoc>>;
 }
 
 export interface State {
@@ -51,6 +53,8 @@ export interface State {
   /** A state code pinned by the user ('0'/'1' string, most significant bit first). */
   readonly code?: string;
   readonly loc?: SourceLoc;
+  /** Where parts were written, by key ('to', 'code', 'start', 'input:0', 'out:bell' …), when the form knows. */
+  readonly partLocs?: Readonly<Record<string, SourceLoc>>;
 }
 
 export type Unspecified = 'hold' | 'dont-care';
@@ -67,6 +71,8 @@ export interface Machine {
   /** Free text carried from the source (the header comment of a text file). */
   readonly description?: string;
   readonly loc?: SourceLoc;
+  /** Where parts were written, by key ('to', 'code', 'start', 'input:0', 'out:bell' …), when the form knows. */
+  readonly partLocs?: Readonly<Record<string, SourceLoc>>;
 }
 
 /** The outputs while `t` is taken from `s`: the state's, overridden by the transition's; unnamed → 0. */

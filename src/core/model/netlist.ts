@@ -15,7 +15,7 @@
  *
  * Invariants (checked in tests): ids are unique; every cord has exactly one driver (a lever or
  * a gate) and at least one port or actuator; every port has at least one cord; every port
- * belongs to a gate.
+ * belongs to a gate; a flag reads an existing gate unless it is `fixed`.
  */
 
 export type LeverRole = 'input' | 'phi1' | 'phi2' | 'reset';
@@ -85,6 +85,11 @@ export interface FlagPart {
   readonly gate: string;
   /** Mounted so that it shows 1 when Z = 0. */
   readonly inverted: boolean;
+  /**
+   * A constant output: the flag is pinned showing this value, reads no gate, and `gate` is ''.
+   * Absent for every flag that reads a gate.
+   */
+  readonly fixed?: 0 | 1;
 }
 
 export interface ActuatorPart {
@@ -94,6 +99,11 @@ export interface ActuatorPart {
   readonly output: string;
   /** External load the actuator cord must lift, in grams. */
   readonly loadG: number;
+  /**
+   * A constant output: no cord drives this actuator; the load is hung permanently lifted (1)
+   * or left at rest (0). Absent for every actuator driven by a cord.
+   */
+  readonly fixed?: 0 | 1;
 }
 
 export type Part = LeverPart | GatePart | LatchPart | FlagPart | ActuatorPart;

@@ -30,6 +30,13 @@ export interface Profile {
   readonly zWeightG: number;
   /** Lever ratio between the Z weight and the capstan's hold end. */
   readonly leverRatio: number;
+  /**
+   * Pull-up weight of each operator, clock and reset lever, grams. The lever is the hold end
+   * of its own capstan, as Z is for a gate, so it sets that capstan's hold tension.
+   */
+  readonly leverWeightG: number;
+  /** Allowance at an operator lever's handle for pivot friction and cord stiffness, grams. */
+  readonly operatorExtraG: number;
   /** Full turns of cord on the drum per capstan. */
   readonly wraps: number;
   /** Friction coefficient of cord on the drum. */
@@ -61,6 +68,8 @@ export const DEFAULT_PROFILE: Profile = {
   portWeightG: 15,
   zWeightG: 15,
   leverRatio: 1,
+  leverWeightG: 15,
+  operatorExtraG: 5,
   wraps: 2,
   mu: 0.25,
   routing: { pinAngleRad: 0, muPin: 0.2, pulleys: 0, pulleyEfficiency: 0.95 },

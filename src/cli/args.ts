@@ -1,0 +1,40 @@
+/** A small, strict command-line parser: `command FILE --flag value --switch`. */
+
+export interface ParsedArgs {
+  readonly command?: string;
+  readonly positional: readonly string[];
+  readonly flags: Readonly<Record<string, string | true>>;
+  readonly errors: readonly string[];
+}
+
+export interface FlagSpec {
+  /** Flags that take a value. */
+  readonly values: readonly string[];
+  /** Flags that are switches. */
+  readonly switches: readonly string[];
+}
+
+export function parseArgs(argv: readonly string[], spec: FlagSpec): ParsedArgs {
+  const positional: string[] = [];
+  const flags: Record<string, string | true> = {};
+  const errors: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    if (a === '--') {
+      positional.push(...argv.slice(i + 1));
+      break;
+    }
+    if (a.startsWith('--')) {
+      const [name, inline] = a.slice(2).split(/=(.*)/s, 2);
+      if (spec.switches.includes(name)) flags[name] = true;
+      else if (spec.values.includes(name)) {
+        const v = inline ?? argv[++i];
+        if (v === undefined) errors.push(`--${name} needs a value`);
+        else flags[name] = v;
+      } else errors.push(`unknown option --${name}`);
+    } else if (a === '-h') flags.help = true;
+    else positional.push(a);
+  }
+  const [command, ...rest] = positional;
+  return { command, positional: rest, flags, errors };
+}

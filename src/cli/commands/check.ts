@@ -1,0 +1,28 @@
+/** `latchwright check FILE`: diagnostics, state counts and the merge map. */
+import { analyse } from '../../core/pipeline.js';
+import { formatDiagnostic } from '../../core/model/diagnostics.js';
+import type { ParsedArgs } from '../args.js';
+import type { CliIo } from '../io.js';
+import { EXIT_BAD_INPUT, EXIT_OK, loadSource, machineSummary } from './common.js';
+
+export async function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
+  const src = loadSource(args, io);
+  if (!src) return EXIT_BAD_INPUT;
+  const a = analyse(src.text, src.file);
+  const summary = a.ok ? machineSummary(a) : undefined;
+  if (args.flags.json) {
+    io.out(JSON.stringify({ file: src.file, form: a.form, ok: a.ok, ...(summary ?? {}), diagnostics: a.diagnostics }, null, 2) + '\n');
+  } else {
+    for (const d of a.diagnostics) io.out(formatDiagnostic(d) + '\n');
+    if (summary) {
+      const m = summary.machine;
+      io.out(`${m.name}: ${m.states} states (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${m.inputs} inputs, ${m.outputs} outputs\n`);
+      const merges = Object.entries(summary.merged).filter(([k, v]) => k !== v);
+      if (merges.length > 0) {
+        io.out('merged states:\n');
+        for (const [k, v] of merges) io.out(`  ${k} → ${v}\n`);
+      }
+    }
+  }
+  return a.ok ? EXIT_OK : EXIT_BAD_INPUT;
+}

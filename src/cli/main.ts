@@ -1,0 +1,78 @@
+/**
+ * The `latchwright` command: a thin shell over src/core. Exit status: 0 all good,
+ * 1 a check failed, 2 bad input (diagnostics printed, never a stack trace).
+ */
+import { parseArgs } from './args.js';
+import { runCheck } from './commands/check.js';
+import { runBuild } from './commands/build.js';
+import { runCompare } from './commands/compare.js';
+import { runStepCommand } from './commands/step.js';
+import { runDemo } from './commands/demo.js';
+import { nodeIo, type CliIo } from './io.js';
+
+export const EXIT = { ok: 0, checkFailed: 1, badInput: 2 } as const;
+
+const USAGE = `latchwright — design, prove and commission lever-and-capstan state machines
+
+Usage:
+  latchwright check FILE [--json]
+      Read a machine (text form, JSON form or an xstate config), report diagnostics,
+      state counts and which states merge.
+  latchwright build FILE [--encoding NAME] [--profile FILE] [--seed N]
+                         [--unused dont-care|STATE] [--json] [--out DIR [--force]]
+      Synthesise the lever machine, run every check, print the report
+      (or the build documents into DIR).
+  latchwright compare FILE [--profile FILE] [--seed N] [--json]
+      Every state encoding side by side, the cheapest marked.
+  latchwright step FILE [--inputs SEQ.json] [--json] [--abstract] [--encoding NAME]
+      Step the build clock by clock: interactive at a terminal, or scripted from a
+      JSON array of input settings (one object per clock).
+  latchwright demo
+      Build and check the bundled demo machine and print its report.
+
+Encodings: binary, gray, johnson, one-hot, pinned, auto (default auto).
+Exit status: 0 all good, 1 a check failed, 2 bad input.`;
+
+const SPEC = {
+  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out'],
+  switches: ['json', 'force', 'abstract', 'help', 'version'],
+};
+
+export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promise<number> {
+  const args = parseArgs(argv, SPEC);
+  if (args.flags.version) {
+    io.out('latchwright 0.1.0\n');
+    return EXIT.ok;
+  }
+  if (args.flags.help || args.command === undefined || args.command === 'help') {
+    io.out(USAGE + '\n');
+    return args.command === undefined && !args.flags.help ? EXIT.badInput : EXIT.ok;
+  }
+  if (args.errors.length > 0) {
+    for (const e of args.errors) io.err(`latchwright: ${e}\n`);
+    io.err('Run `latchwright --help` for usage.\n');
+    return EXIT.badInput;
+  }
+  try {
+    switch (args.command) {
+      case 'check':
+        return await runCheck(args, io);
+      case 'build':
+        return await runBuild(args, io);
+      case 'compare':
+        return await runCompare(args, io);
+      case 'step':
+        return await runStepCommand(args, io);
+      case 'demo':
+        return await runDemo(args, io);
+      default:
+        io.err(`latchwright: unknown command '${args.command}'. Commands: check, build, compare, step, demo.\n`);
+        return EXIT.badInput;
+    }
+  } catch (e) {
+    // A fault of ours, not of the input: say so plainly, without a stack trace.
+    io.err(`latchwright: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
+    io.err('Please report this with the machine file that caused it.\n');
+    return EXIT.badInput;
+  }
+}

@@ -1,0 +1,230 @@
+/**
+ * Forbidden latch input, at part level: no latch ever sees S̄ = R̄ = 0 while the operating
+ * rules are kept — and, for each rule, the shortest way of breaking it that does upset a latch.
+ *
+ * Method: exhaustive part-level simulation. For every state code (used and unused; the
+ * masters too, free of the slaves, while that stays within the bound) and every input
+ * combination (the `never` ones included: a visitor will try them), the hand procedure is
+ * run — inputs set, φ1 pulled and released, φ2 pulled and released — and so is the reset
+ * procedure; the simulator reports every instant at which a latch's two ports are pulled at
+ * once, so transient overlaps count too. Then, per operating rule, a breadth-first search
+ * over hand actions from the reset machine, where actions may break that rule (and no
+ * other), finds the shortest sequence after which a latch sees the forbidden input, is left
+ * X, or the machine oscillates — what signage and interlocks are designed from.
+ * Bounds: inputs beyond `maxExhaustiveInputs` (16) are sampled (one combination per row and
+ * `never` cube plus seeded random ones); codes beyond `maxClocks` simulated clocks are
+ * the used codes plus a seeded sample of unused ones; the rule search stops at `maxActions`
+ * actions or `maxStates` machine states. The result says which applied.
+ */
+import type { Build, CheckResult } from '../model/build.js';
+import { seededRandom, type Random } from '../model/random.js';
+import type { Profile } from '../physics/profile.js';
+import {
+  clockActions,
+  describeAction,
+  describeTrace,
+  OPERATING_RULES,
+  resetActions,
+  RULE_WORDS,
+  ruleBroken,
+  valuesOf,
+  type HandAction,
+  type OperatingRule,
+} from '../sim/hand.js';
+import { applyInPlace, isAlarm, powerUp, simFor, stateAtCode, stepSim, timingOf, type PartEvent, type PartSim } from '../sim/part.js';
+import { allCodes, clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, latchKey, sampledAssignments } from './clocking.js';
+
+export interface ForbiddenInputOptions {
+  readonly maxExhaustiveInputs?: number;
+  /** Random input combinations when sampling (default 256). */
+  readonly samples?: number;
+  readonly seed?: number;
+  /** Bound on simulated clocks over codes × inputs (default 262 144). */
+  readonly maxClocks?: number;
+  /** Rule search bounds: hand actions (default 8) and machine states (default 20 000). */
+  readonly maxActions?: number;
+  readonly maxStates?: number;
+}
+
+/** The shortest way found of breaking one operating rule, and which latches it upsets. */
+export interface RuleViolation {
+  readonly rule: OperatingRule;
+  /** Hand actions from the reset machine (the last one shows the upset). */
+  readonly violation: readonly HandAction[];
+  readonly trace: readonly string[];
+  /** Latch names that see the forbidden input or are left X (empty when none within the bound). */
+  readonly upsets: readonly string[];
+  readonly words: string;
+}
+
+export interface ForbiddenCounterexample {
+  readonly code: string;
+  readonly masterCode: string;
+  readonly inputs: string;
+  /** Hand actions from a machine at that code with the levers released. */
+  readonly actions: readonly HandAction[];
+  readonly trace: readonly string[];
+  readonly latch?: string;
+  readonly words: string;
+}
+
+export interface ForbiddenInputResult extends CheckResult {
+  readonly level: 'part';
+  /** (slave code, master code, input combination) start points simulated through a clock and a reset. */
+  readonly states: number;
+  readonly codes: 'all' | 'sampled';
+  readonly masters: 'free' | 'equal to slaves';
+  readonly inputs: 'exhaustive' | 'sampled';
+  readonly rules: readonly RuleViolation[];
+  readonly counterexample?: ForbiddenCounterexample;
+}
+
+/** Prove that no latch sees S̄ = R̄ = 0 under the operating rules, and find what breaking each rule upsets. */
+export function checkForbiddenInput(build: Build, profile: Pick<Profile, 'stageDelayS'>, opts: ForbiddenInputOptions = {}): ForbiddenInputResult {
+  const sim = simFor(build, timingOf(profile));
+  const f = build.machine;
+  const n = f.inputs.length;
+  const bits = sim.slaves.length;
+  const rnd = seededRandom(opts.seed ?? 1);
+  const maxClocks = opts.maxClocks ?? 1 << 18;
+  const exhaustive = n <= (opts.maxExhaustiveInputs ?? EXHAUSTIVE_INPUTS);
+  const tries = exhaustive ? grayAssignments(n) : sampledAssignments([...f.rows.flat().map((r) => r.cube), ...f.never], n, opts.samples ?? 256, rnd);
+  const allFit = 2 ** bits * tries.length <= maxClocks;
+  const codes = allFit ? allCodes(bits) : sampleCodes(build, bits, Math.max(1, Math.floor(maxClocks / tries.length)), rnd);
+  const freeMasters = 4 ** bits * tries.length <= maxClocks;
+
+  let states = 0;
+  let failure: ForbiddenCounterexample | undefined;
+  const fail = (code: string, m: string, a: string, actions: HandAction[], alarms: PartEvent[]): void => {
+    const where = `with the slaves at code ${code}${m !== code ? `, the masters at ${m}` : ''} and inputs ${describeInputs(f.inputs, a)}`;
+    failure = { code, masterCode: m, inputs: a, actions, trace: describeTrace(actions), ...(alarms[0].latch ? { latch: alarms[0].latch } : {}), words: `${where}: ${alarms[0].words}` };
+  };
+  outer: for (const c of codes) {
+    for (const m of freeMasters ? allCodes(bits) : [c]) {
+      const zero = '0'.repeat(n);
+      const base = stateAtCode(sim, c, zero, m);
+      const resetAlarms = runActions(sim, base.values, resetActions());
+      if (resetAlarms.length > 0) {
+        fail(c, m, zero, resetActions(), resetAlarms);
+        break outer;
+      }
+      forEachHeld(
+        sim,
+        base.values,
+        tries,
+        (held, a) => {
+          if (failure) return false;
+          states++;
+          const out = clockFrom(sim, held);
+          if (out.alarms.length === 0) return true;
+          fail(c, m, a, clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero)), out.alarms);
+          return false;
+        },
+        (a, alarms) => fail(c, m, a, clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero)).slice(0, -4), alarms),
+      );
+      if (failure) break outer;
+    }
+  }
+  const rules = OPERATING_RULES.map((r) => searchRule(sim, r, opts.maxActions ?? 8, opts.maxStates ?? 20_000));
+  const scope = `${allFit ? 'every code' : `${codes.length} sampled codes`}${freeMasters ? ' (masters free)' : ''} × ${exhaustive ? 'every input combination' : `${tries.length} sampled input combinations`} × both phases and reset`;
+  return {
+    name: 'forbidden-input',
+    level: 'part',
+    ok: failure === undefined,
+    summary: failure ? failure.words : `no latch sees S̄ = R̄ = 0 over ${scope} (${states} start points)`,
+    states,
+    codes: allFit ? 'all' : 'sampled',
+    masters: freeMasters ? 'free' : 'equal to slaves',
+    inputs: exhaustive ? 'exhaustive' : 'sampled',
+    rules,
+    ...(failure ? { counterexample: failure } : {}),
+  };
+}
+
+/** Run actions on a copy of `values`; return the alarms. */
+function runActions(sim: PartSim, values: Uint8Array, actions: readonly HandAction[]): PartEvent[] {
+  const v = values.slice();
+  const events: PartEvent[] = [];
+  for (const a of actions) applyInPlace(sim, v, 0, a, events);
+  return events.filter(isAlarm);
+}
+
+/** The used codes plus seeded random unused ones, `count` in all. */
+function sampleCodes(build: Build, bits: number, count: number, rnd: Random): string[] {
+  const out = new Set(build.encoding.codes);
+  for (let tries = 0; out.size < count && tries < count * 4; tries++) {
+    let s = '';
+    for (let b = 0; b < bits; b++) s += rnd.next() < 0.5 ? '0' : '1';
+    out.add(s);
+  }
+  return [...out];
+}
+
+const UPSETS = new Set(['forbidden-input', 'latch-x', 'oscillation']);
+
+/** Breadth-first search for the shortest action sequence breaking `rule` (and only it) that upsets a latch. */
+function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxStates: number): RuleViolation {
+  const f = sim.build.machine;
+  let [start] = powerUp(sim);
+  for (const a of resetActions()) start = stepSim(sim, start, a)[0];
+  const moves: HandAction[] = [];
+  const levers = ['phi1', 'phi2', 'reset'] as const;
+  const statesOf: Uint8Array[] = [start.values];
+  const broken: boolean[] = [false];
+  const parent: number[] = [-1];
+  const via: (HandAction | null)[] = [null];
+  const depth: number[] = [0];
+  const keyOf = (v: Uint8Array, b: boolean): string => {
+    let k = b ? '1' : '0';
+    for (let d = 0; d < sim.leverCount; d++) k += v[d];
+    return k + latchKey(sim, v);
+  };
+  const seen = new Set([keyOf(start.values, false)]);
+  const path = (i: number, last: HandAction): HandAction[] => {
+    const out = [last];
+    for (let j = i; parent[j] >= 0; j = parent[j]) out.unshift(via[j] as HandAction);
+    return out;
+  };
+  let firstBreak: HandAction[] | undefined;
+  for (let i = 0; i < statesOf.length && statesOf.length < maxStates; i++) {
+    if (depth[i] >= maxActions) continue;
+    const v = statesOf[i];
+    moves.length = 0;
+    f.inputs.forEach((name, k) => moves.push({ kind: 'input', input: name, value: v[sim.inputLevers[k]] === 1 ? 0 : 1 }));
+    for (const l of levers) {
+      const d = l === 'phi1' ? sim.phi1 : l === 'phi2' ? sim.phi2 : sim.reset;
+      moves.push({ kind: v[d] === 1 ? 'release' : 'pull', lever: l });
+    }
+    const at = { phi1: v[sim.phi1] === 1, phi2: v[sim.phi2] === 1, reset: v[sim.reset] === 1 };
+    for (const a of moves) {
+      const r = ruleBroken(a, at);
+      if (r !== null && r !== rule) continue;
+      const b = broken[i] || r === rule;
+      if (b && !firstBreak) firstBreak = path(i, a);
+      const [next, events] = stepSim(sim, { values: v, timeUs: 0 }, a);
+      const upset = events.filter((e) => UPSETS.has(e.kind));
+      if (b && upset.length > 0) {
+        const actions = path(i, a);
+        const latches = [...new Set(upset.flatMap((e) => (e.latch ? [e.latch] : [])))];
+        const words = `${RULE_WORDS[rule]}: breaking it (${actions.map(describeAction).join(', ')}) upsets ${latches.length > 0 ? `latch ${latches.join(', ')}` : 'the machine'}: ${upset[0].words}`;
+        return { rule, violation: actions, trace: describeTrace(actions), upsets: latches, words };
+      }
+      const key = keyOf(next.values, b);
+      if (seen.has(key)) continue;
+      seen.add(key);
+      statesOf.push(next.values);
+      broken.push(b);
+      parent.push(i);
+      via.push(a);
+      depth.push(depth[i] + 1);
+    }
+  }
+  const actions = firstBreak ?? [];
+  return {
+    rule,
+    violation: actions,
+    trace: describeTrace(actions),
+    upsets: [],
+    words: `${RULE_WORDS[rule]}: no way of breaking it upsets a latch within ${maxActions} hand actions from the reset machine (${statesOf.length} machine states searched)`,
+  };
+}

@@ -1,0 +1,204 @@
+/**
+ * Clock-phase timing: minimum phase times, the fastest safe hand or crank rate, the cam
+ * angles of a crank-driven clock, and a seeded Monte Carlo run that varies every stage delay.
+ *
+ * Method: the longest stage chain of each hand action (stage-chains.ts): φ1 = term gates →
+ * master latch (2 stages); φ2 = transfer → slave latch (2 stages) → output decode; the dead
+ * band after each release lets the gates it frees return (after φ2 also the next inputs
+ * settle). One clock is the sum φ1 + dead band + φ2 + dead band. A crank turns once per
+ * clock; its cam holds φ1 from 0° and φ2 after the first dead band, and shares any slack in
+ * proportion, so every window keeps the same margin (turn time / minimum clock).
+ * Monte Carlo: each run draws every gate's delay uniformly within ±`stageDelaySpread` of its
+ * nominal value (seededRandom), then (a) recomputes the chains and checks that each still
+ * fits its cam window, and (b) replays the reachable clocks (breadth-first from reset, up to
+ * `clocksPerRun`) and compares the settled result with the nominal one — a difference is a
+ * race (e.g. a latch released from the forbidden input resolving differently).
+ */
+import { coverHolds } from '../model/cube.js';
+import type { Build, CheckResult } from '../model/build.js';
+import { seededRandom } from '../model/random.js';
+import type { Profile } from '../physics/profile.js';
+import { compilePart, type PartSim } from '../sim/compile.js';
+import { resetActions } from '../sim/hand.js';
+import { applyInPlace, isAlarm, powerUp, show, simFor, slaveCode, timingOf } from '../sim/part.js';
+import { clockFrom, describeInputs, forEachHeld, grayAssignments, latchKey } from './clocking.js';
+import { stageChain, type StageChain } from './stage-chains.js';
+
+export interface TimingOptions {
+  /** Crank speed in turns per minute (one clock per turn); default the fastest safe rate divided by 1 + spread. */
+  readonly crankRpm?: number;
+  /** Per-gate delay overrides, seconds (by gate or latch id). */
+  readonly delays?: Readonly<Record<string, number>>;
+  /** Monte Carlo runs (default 20) and seed (default 1). */
+  readonly runs?: number;
+  readonly seed?: number;
+  /** Clocks replayed per run, breadth-first from reset (default 2000). */
+  readonly clocksPerRun?: number;
+}
+
+export interface MonteCarloReport {
+  readonly runs: number;
+  readonly seed: number;
+  readonly ok: boolean;
+  readonly race?: { readonly run: number; readonly words: string };
+}
+
+export interface TimingResult extends CheckResult {
+  readonly phaseTimesS: { readonly phi1: number; readonly phi2: number };
+  /** Dead bands after releasing φ1 and φ2 (the latter includes the next inputs settling). */
+  readonly deadBandsS: { readonly afterPhi1: number; readonly afterPhi2: number };
+  readonly resetS: number;
+  /** Longest chains, part names in order. */
+  readonly chains: { readonly phi1: readonly string[]; readonly phi2: readonly string[] };
+  readonly clockS: number;
+  readonly clocksPerMinute: number;
+  readonly crankRpm: number;
+  /** Cam windows in degrees of one crank turn. */
+  readonly cam: { readonly phi1: readonly [number, number]; readonly phi2: readonly [number, number] };
+  readonly monteCarlo: MonteCarloReport;
+}
+
+interface Phases {
+  readonly phi1: StageChain;
+  readonly dead1: StageChain;
+  readonly phi2: StageChain;
+  readonly dead2: StageChain;
+  readonly reset: StageChain;
+  readonly loop?: readonly string[];
+}
+
+function phases(sim: PartSim): Phases {
+  const inputs = stageChain(sim, 'inputs');
+  const rel2 = stageChain(sim, 'phi2-release');
+  const p: Phases = {
+    phi1: stageChain(sim, 'phi1'),
+    dead1: stageChain(sim, 'phi1-release'),
+    phi2: stageChain(sim, 'phi2'),
+    dead2: inputs.timeS > rel2.timeS ? inputs : rel2,
+    reset: stageChain(sim, 'reset'),
+  };
+  const loop = [p.phi1, p.dead1, p.phi2, p.dead2, p.reset, inputs, rel2].find((c) => c.loop)?.loop;
+  return loop ? { ...p, loop } : p;
+}
+
+const round = (x: number, step: number): number => Math.round(x / step) * step;
+
+/** Phase times, clock rate, cam angles and the Monte Carlo run. */
+export function checkTiming(build: Build, profile: Pick<Profile, 'stageDelayS' | 'stageDelaySpread'>, opts: TimingOptions = {}): TimingResult {
+  const sim = simFor(build, timingOf(profile, opts.delays));
+  const p = phases(sim);
+  const clockS = p.phi1.timeS + p.dead1.timeS + p.phi2.timeS + p.dead2.timeS;
+  const clocksPerMinute = Math.floor((60 / clockS) * 10) / 10;
+  const spread = profile.stageDelaySpread;
+  const crankRpm = opts.crankRpm ?? Math.floor((clocksPerMinute / (1 + spread)) * 10) / 10;
+  const turnS = 60 / crankRpm;
+  const deg = (s: number): number => round((s / clockS) * 360, 0.1);
+  const a1 = deg(p.phi1.timeS);
+  const b2 = deg(p.phi1.timeS + p.dead1.timeS);
+  const e2 = deg(p.phi1.timeS + p.dead1.timeS + p.phi2.timeS);
+  const cam = { phi1: [0, a1] as const, phi2: [b2, e2] as const };
+  const runs = opts.runs ?? 20;
+  const seed = opts.seed ?? 1;
+  const windows = { phi1: (p.phi1.timeS / clockS) * turnS, dead1: (p.dead1.timeS / clockS) * turnS, phi2: (p.phi2.timeS / clockS) * turnS, dead2: (p.dead2.timeS / clockS) * turnS };
+  const monteCarlo = p.loop ? { runs: 0, seed, ok: false } : monteCarloRun(build, sim, profile, opts, runs, seed, windows);
+  const base = {
+    name: 'timing',
+    phaseTimesS: { phi1: p.phi1.timeS, phi2: p.phi2.timeS },
+    deadBandsS: { afterPhi1: p.dead1.timeS, afterPhi2: p.dead2.timeS },
+    resetS: p.reset.timeS,
+    chains: { phi1: p.phi1.parts, phi2: p.phi2.parts },
+    clockS,
+    clocksPerMinute,
+    crankRpm,
+    cam,
+    monteCarlo,
+  };
+  if (p.loop) return { ...base, ok: false, summary: `the gates ${p.loop.join(' → ')} form a loop that no latch closes: the machine may never settle` };
+  if (turnS < clockS) {
+    const chain = p.phi1.timeS >= p.phi2.timeS ? `φ1 chain ${p.phi1.parts.join(' → ')}` : `φ2 chain ${p.phi2.parts.join(' → ')}`;
+    return { ...base, ok: false, summary: `a crank at ${crankRpm} turns per minute gives ${round(turnS, 0.01)} s per clock, but one clock needs ${round(clockS, 0.01)} s (longest: ${chain}); turn at most ${clocksPerMinute} per minute` };
+  }
+  const what = `φ1 ${round(p.phi1.timeS, 0.01)} s, φ2 ${round(p.phi2.timeS, 0.01)} s, one clock ${round(clockS, 0.01)} s: at most ${clocksPerMinute} clocks per minute; crank at ${crankRpm} per minute with φ1 ${cam.phi1[0]}°–${cam.phi1[1]}°, φ2 ${cam.phi2[0]}°–${cam.phi2[1]}°`;
+  return {
+    ...base,
+    ok: monteCarlo.ok,
+    summary: monteCarlo.ok ? `${what}; ${runs} Monte Carlo runs (seed ${seed}) agree` : `${what}; but ${monteCarlo.race?.words ?? 'a Monte Carlo run differs'}`,
+  };
+}
+
+/** Reachable clocks breadth-first from reset with nominal delays: start values, inputs, and the settled result. */
+interface Replay {
+  readonly held: Uint8Array;
+  readonly inputs: string;
+  readonly code: string;
+  readonly result: string;
+}
+
+function nominalReplay(sim: PartSim, limit: number): Replay[] {
+  const f = sim.build.machine;
+  let [s] = powerUp(sim);
+  const values = s.values.slice();
+  for (const a of resetActions()) applyInPlace(sim, values, 0, a, []);
+  s = { values, timeUs: 0 };
+  const tries = grayAssignments(f.inputs.length).filter((a) => !coverHolds(f.never, a));
+  const out: Replay[] = [];
+  const bases = [s.values];
+  const seen = new Set([latchKey(sim, s.values)]);
+  for (let i = 0; i < bases.length && out.length < limit; i++) {
+    forEachHeld(sim, bases[i], tries, (held, a) => {
+      const c = clockFrom(sim, held);
+      out.push({ held: held.slice(), inputs: a, code: slaveCode(sim, held), result: resultOf(sim, c) });
+      const key = latchKey(sim, c.values);
+      if (!seen.has(key)) {
+        seen.add(key);
+        bases.push(c.values);
+      }
+      return out.length < limit;
+    });
+  }
+  return out;
+}
+
+function resultOf(sim: PartSim, c: ReturnType<typeof clockFrom>): string {
+  const alarms = c.alarms.filter(isAlarm).map((e) => e.words);
+  return `code ${c.code}, outputs ${c.outputs.map(show).join('') || '(none)'}${alarms.length > 0 ? ` (${alarms.join('; ')})` : ''}`;
+}
+
+function monteCarloRun(
+  build: Build,
+  nominal: PartSim,
+  profile: Pick<Profile, 'stageDelayS' | 'stageDelaySpread'>,
+  opts: TimingOptions,
+  runs: number,
+  seed: number,
+  windows: { phi1: number; dead1: number; phi2: number; dead2: number },
+): MonteCarloReport {
+  const rnd = seededRandom(seed);
+  const replay = nominalReplay(nominal, opts.clocksPerRun ?? 2000);
+  const gates = build.netlist.parts.filter((p) => p.kind === 'gate');
+  const spread = profile.stageDelaySpread;
+  const f = build.machine;
+  for (let run = 1; run <= runs; run++) {
+    const delays: Record<string, number> = {};
+    for (const g of gates) {
+      const d = nominal.delayUs[nominal.ids.indexOf(g.id)] / 1e6;
+      delays[g.id] = d * (1 + spread * (2 * rnd.next() - 1));
+    }
+    const sim = compilePart(build, { stageDelayS: profile.stageDelayS, delays });
+    const p = phases(sim);
+    const tight = (['phi1', 'dead1', 'phi2', 'dead2'] as const).find((w) => p[w].timeS > windows[w] + 1e-9);
+    if (tight) {
+      const label = { phi1: 'φ1', dead1: 'the dead band after φ1', phi2: 'φ2', dead2: 'the dead band after φ2' }[tight];
+      const words = `Monte Carlo run ${run} (seed ${seed}): with stage delays varied by up to ±${round(spread * 100, 1)} %, ${label} needs ${round(p[tight].timeS, 0.01)} s but its cam window lasts ${round(windows[tight], 0.01)} s (chain ${p[tight].parts.join(' → ')})`;
+      return { runs, seed, ok: false, race: { run, words } };
+    }
+    for (const r of replay) {
+      const got = resultOf(sim, clockFrom(sim, r.held));
+      if (got !== r.result) {
+        const words = `Monte Carlo run ${run} (seed ${seed}): from code ${r.code} with ${describeInputs(f.inputs, r.inputs)}, nominal delays give ${r.result} but varied delays give ${got} — a race`;
+        return { runs, seed, ok: false, race: { run, words } };
+      }
+    }
+  }
+  return { runs, seed, ok: true };
+}

@@ -1,0 +1,146 @@
+/**
+ * Encode phase: give every state of the (minimised) flat machine a distinct binary code.
+ *
+ * Strategies, by name or as a function: binary (start state 0…0, then FlatMachine order),
+ * gray (reflected Gray code along a greedy traversal from the start), johnson (twisted-ring
+ * counter codes along the same traversal), one-hot, pinned (every code from the user) and
+ * auto (the assignment that minimises the caller's cost: exhaustive over the classes left by
+ * the cube's symmetries — McCluskey & Unger 1959 — for small machines, simulated annealing
+ * beyond). Each module names its method and reference; docs/methods/encode.md explains them.
+ *
+ * Pre: a flat machine (normally the output of state minimisation).
+ * Post: n distinct codes of one length, '0'/'1' strings with bit 0 first; codes the user
+ * pinned are kept by every strategy that can fit around them. Deterministic: the same
+ * machine, options and seed give the same codes (a time budget is the one exception).
+ * Never throws on bad input: problems come back as diagnostics (LW206, LW207, LW300,
+ * LW700, LW701) and then there is no encoding.
+ */
+import { diag, didYouMean, hasErrors, type Diagnostic } from '../../model/diagnostics.js';
+import type { SourceLoc } from '../../model/machine.js';
+import type { FlatMachine } from '../../model/flat.js';
+import type { Encoding } from '../../model/build.js';
+import { auto, type AutoReport } from './auto.js';
+import { binary } from './binary.js';
+import { adjacencyCost, type Progress } from './cost.js';
+import { gray } from './gray.js';
+import { johnson } from './johnson.js';
+import { oneHot } from './one-hot.js';
+import { pinnedStrategy, readPins, type PinSet, type StrategyResult } from './pinned.js';
+
+export type EncodeStrategy = 'binary' | 'gray' | 'johnson' | 'one-hot' | 'pinned' | 'auto';
+
+export interface EncodeOptions {
+  /** Codes pinned by the user, by state name (some or all); honoured by every strategy where possible, required by 'pinned'. */
+  readonly pinned?: Readonly<Record<string, string>>;
+  /** Where each pinned code was written, by state name, for diagnostics. */
+  readonly pinnedAt?: Readonly<Record<string, SourceLoc>>;
+  /** Cost of a candidate encoding (the finished build's weighted part count); used by 'auto', which falls back to `adjacencyCost` without it. */
+  readonly cost?: (codes: readonly string[], bits: number) => number;
+  /** Seed of the automatic search's generator (default 1). */
+  readonly seed?: number;
+  /** Bounds of the automatic search: cost evaluations (default DEFAULT_EVALUATIONS) and/or milliseconds on `now`. */
+  readonly budget?: { readonly evaluations?: number; readonly millis?: number };
+  /** Clock in milliseconds for `budget.millis` (the core reads no clock of its own). */
+  readonly now?: () => number;
+  /** Called after every cost evaluation of the automatic search. */
+  readonly onProgress?: (p: Progress) => void;
+}
+
+export interface EncodeResult {
+  readonly encoding?: Encoding;
+  readonly diagnostics: Diagnostic[];
+  /** How the automatic search went (strategy 'auto' only). */
+  readonly search?: AutoReport;
+}
+
+/** The strategies known by name, in the order the tool offers them. */
+export const ENCODINGS: readonly EncodeStrategy[] = ['binary', 'gray', 'johnson', 'one-hot', 'pinned', 'auto'];
+
+/**
+ * Default evaluation budget of the automatic search: enough to price every class of up to 8
+ * states exhaustively (840 classes, plus the named strategies); for larger machines, at an
+ * estimated 3–4 ms per evaluation of a 16-state build, about 4 s of annealing.
+ */
+export const DEFAULT_EVALUATIONS = 1000;
+
+const NAMED: Readonly<Record<Exclude<EncodeStrategy, 'auto'>, (f: FlatMachine, pins: PinSet) => StrategyResult>> = {
+  binary,
+  gray,
+  johnson,
+  'one-hot': oneHot,
+  pinned: pinnedStrategy,
+};
+
+/** Assign state codes with a named strategy or a strategy function. */
+export function encode(
+  f: FlatMachine,
+  strategy: EncodeStrategy | ((f: FlatMachine, o: EncodeOptions) => Encoding),
+  opts: EncodeOptions = {},
+): EncodeResult {
+  if (f.states.length === 0) return { diagnostics: [diag('LW300', `machine '${f.name}' has no states to encode`, {}, 'declare at least one state')] };
+  const diagnostics = checkOptions(opts);
+  const read = readPins(f, opts.pinned, opts.pinnedAt);
+  diagnostics.push(...read.diagnostics);
+  if (hasErrors(diagnostics)) return { diagnostics };
+
+  if (typeof strategy === 'function') {
+    const encoding = strategy(f, opts);
+    const problem = malformed(f, encoding);
+    if (problem) return { diagnostics: [...diagnostics, diag('LW701', `the '${encoding.strategy}' encoding ${problem}`, {}, 'fix the strategy function, or choose a named encoding')] };
+    return { encoding, diagnostics };
+  }
+  if (strategy === 'auto') {
+    const millis = opts.now ? opts.budget?.millis : undefined;
+    const start = millis !== undefined && opts.now ? opts.now() : undefined;
+    const r = auto(f, read.pins, {
+      cost: opts.cost ?? adjacencyCost(f),
+      seed: opts.seed ?? 1,
+      maxEvaluations: opts.budget?.evaluations ?? (millis !== undefined ? Infinity : DEFAULT_EVALUATIONS),
+      ...(start !== undefined && millis !== undefined ? { deadline: start + millis, now: opts.now } : {}),
+      ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
+    });
+    return { ...(r.encoding ? { encoding: r.encoding } : {}), diagnostics: [...diagnostics, ...r.diagnostics], ...(r.report ? { search: r.report } : {}) };
+  }
+  const named = Object.hasOwn(NAMED, strategy) ? NAMED[strategy as keyof typeof NAMED] : undefined;
+  if (!named) {
+    const guess = didYouMean(String(strategy), ENCODINGS);
+    return {
+      diagnostics: [...diagnostics, diag('LW700', `unknown encoding '${String(strategy)}'${guess ? ` — did you mean '${guess}'?` : ''}`, {}, `choose one of ${ENCODINGS.join(', ')}`)],
+    };
+  }
+  const r = named(f, read.pins);
+  return { ...(r.encoding ? { encoding: r.encoding } : {}), diagnostics: [...diagnostics, ...r.diagnostics] };
+}
+
+function checkOptions(o: EncodeOptions): Diagnostic[] {
+  const out: Diagnostic[] = [];
+  if (o.seed !== undefined && !(Number.isSafeInteger(o.seed) && o.seed >= 0)) {
+    out.push(diag('LW700', `seed ${String(o.seed)} is not a whole number ≥ 0`, {}, 'give a seed such as 1 or 42'));
+  }
+  const e = o.budget?.evaluations;
+  if (e !== undefined && !(Number.isSafeInteger(e) && e >= 1)) {
+    out.push(diag('LW700', `evaluation budget ${String(e)} is not a whole number ≥ 1`, {}, `the default is ${DEFAULT_EVALUATIONS}`));
+  }
+  const ms = o.budget?.millis;
+  if (ms !== undefined && !(Number.isFinite(ms) && ms >= 0)) {
+    out.push(diag('LW700', `time budget ${String(ms)} ms is not a number ≥ 0`, {}, 'give milliseconds, e.g. 4000'));
+  } else if (ms !== undefined && !o.now) {
+    out.push(diag('LW700', 'a time budget was given without a clock; it is ignored and the evaluation budget bounds the search', {}, 'pass `now` with `budget.millis`', 'warning'));
+  }
+  return out;
+}
+
+/** What is wrong with an encoding from a strategy function, if anything. */
+function malformed(f: FlatMachine, e: Encoding): string | undefined {
+  if (!e || !Array.isArray(e.codes) || !Number.isSafeInteger(e.bits) || e.bits < 0) return 'is not an encoding (strategy, bits, codes)';
+  if (e.codes.length !== f.states.length) return `gives ${e.codes.length} codes for ${f.states.length} states`;
+  const seen = new Map<string, number>();
+  for (let s = 0; s < e.codes.length; s++) {
+    const c = e.codes[s];
+    if (typeof c !== 'string' || c.length !== e.bits || !/^[01]*$/.test(c)) return `gives state '${f.states[s]}' the code '${String(c)}', not ${e.bits} binary digits`;
+    const other = seen.get(c);
+    if (other !== undefined) return `gives states '${f.states[other]}' and '${f.states[s]}' the same code '${c}'`;
+    seen.set(c, s);
+  }
+  return undefined;
+}

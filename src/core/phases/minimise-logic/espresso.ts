@@ -1,0 +1,138 @@
+/**
+ * The Espresso-II loop (R. K. Brayton, G. D. Hachtel, C. T. McMullen,
+ * A. L. Sangiovanni-Vincentelli, "Logic Minimization Algorithms for VLSI Synthesis", Kluwer
+ * 1984, ch. 4), on multi-output cubes:
+ *
+ *   F ← EXPAND(F, R); F ← IRREDUNDANT(F, D); E ← ESSENTIAL(F, D); F ← F − E; D ← D ∪ E
+ *   repeat  F ← REDUCE, EXPAND, IRREDUNDANT  while the cost falls;
+ *           LAST_GASP (reduce every cube on its own, expand the reduced cubes towards each
+ *           other, IRREDUNDANT) and go round again if it helped
+ *   F ← MAKE_SPARSE(F ∪ E): drop needless output connections, then re-expand inputs only.
+ *
+ * Cost is the caller's: term + literal·(input literals) + connection·(functions fed).
+ * Deterministic: every ordering is fixed (no random choices).
+ *
+ * Preconditions: F misses R; D does not meet the on-set; R holds single-function cubes.
+ * Postcondition: the result covers the on-set F0 covered and misses R.
+ */
+import { type BCube, type Space, inDistance, inDisjoint, outMeet, outCount, literals, outputsOf, hasOutput } from './bitcube.js';
+import { cubeCovered } from './unate.js';
+import { expandCover, expandCube, allowMask } from './expand.js';
+import { irredundantCover } from './irredundant.js';
+import { reduceCover, reduceCube, lowerOutputs } from './reduce.js';
+import type { CoverCost } from './types.js';
+
+/** Price of one multi-output cube. */
+export function cubeCost(sp: Space, c: BCube, cost: CoverCost): number {
+  return cost.term + cost.literal * literals(sp, c) + cost.connection * outCount(sp, c);
+}
+
+function total(sp: Space, F: readonly BCube[], cost: CoverCost): number {
+  let s = 0;
+  for (const c of F) s += cubeCost(sp, c, cost);
+  return s;
+}
+
+/** Minimise the cover F (on-set) with don't-cares D against off-set R. */
+export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R: readonly BCube[], cost: CoverCost): BCube[] {
+  if (F0.length === 0) return [];
+  const price = (c: BCube): number => cubeCost(sp, c, cost);
+  let F = irredundantCover(sp, expandCover(sp, F0, R), D, price);
+  const ess = essentials(sp, F, D);
+  const E = F.filter((_, i) => ess[i]);
+  F = F.filter((_, i) => !ess[i]);
+  const D2 = [...D, ...E];
+  let best = F;
+  let bestCost = total(sp, F, cost);
+  while (F.length > 0) {
+    F = irredundantCover(sp, expandCover(sp, reduceCover(sp, F, D2), R), D2, price);
+    const c = total(sp, F, cost);
+    if (c < bestCost) { best = F; bestCost = c; continue; }
+    const g = lastGasp(sp, best, D2, R, price);
+    const cg = total(sp, g, cost);
+    if (cg < bestCost) { best = g; bestCost = cg; F = g; continue; }
+    break;
+  }
+  return makeSparse(sp, [...E, ...best], D, R, cost);
+}
+
+/**
+ * Which cubes are essential primes: c is not essential exactly when the consensus of c with
+ * the other cubes and D covers it (Brayton et al. §4.5). For a conflict in the output part
+ * the consensus feeds the union of the two output parts over the shared inputs.
+ */
+export function essentials(sp: Space, F: readonly BCube[], D: readonly BCube[]): boolean[] {
+  const all = [...F, ...D];
+  return F.map((c, i) => {
+    const h: BCube[] = [];
+    for (let q = 0; q < all.length; q++) {
+      if (q === i) continue;
+      const d = all[q];
+      const din = inDistance(sp, c, d);
+      const meet = outMeet(sp, c, d);
+      if (din + (meet ? 0 : 1) > 1) continue;
+      if (din === 0 && meet) { h.push(d); continue; }
+      const x = new Array<number>(sp.w);
+      for (let k = 0; k < sp.wi; k++) {
+        const y = c[k] & d[k];
+        const z = sp.low[k] & ~(y | (y >>> 1));
+        x[k] = y | z | (z << 1);
+      }
+      for (let k = sp.wi; k < sp.w; k++) x[k] = meet ? c[k] & d[k] : c[k] | d[k];
+      h.push(x);
+    }
+    for (const j of outputsOf(sp, c)) {
+      const t = h.filter((x) => hasOutput(sp, x, j));
+      if (!cubeCovered(sp, t, c)) return true;
+    }
+    return false;
+  });
+}
+
+/**
+ * LAST_GASP (Brayton et al. §4.6): reduce each cube against the unchanged rest, expand each
+ * reduced cube aiming at the other reduced cubes, and keep the new cubes that swallow at
+ * least one other; IRREDUNDANT decides whether they pay.
+ */
+function lastGasp(sp: Space, F: readonly BCube[], D: readonly BCube[], R: readonly BCube[], price: (c: BCube) => number): BCube[] {
+  const pool = [...F, ...D];
+  const reduced: BCube[] = [];
+  F.forEach((c, i) => {
+    const r = reduceCube(sp, c, pool, i);
+    if (r !== null && !sameCube(sp, r, c)) reduced.push(r);
+  });
+  if (reduced.length < 2) return F.slice();
+  const allow = allowMask(sp, false);
+  const fresh: BCube[] = [];
+  reduced.forEach((g, i) => {
+    const others = reduced.filter((_, q) => q !== i);
+    const e = expandCube(sp, g, R, others, allow);
+    if (others.some((o) => containsFull(sp, e, o))) fresh.push(e);
+  });
+  if (fresh.length === 0) return F.slice();
+  return irredundantCover(sp, [...F, ...fresh], D, price);
+}
+
+/** MAKE_SPARSE (Brayton et al. §4.7): fewer output connections, then larger input parts. */
+function makeSparse(sp: Space, F: readonly BCube[], D: readonly BCube[], R: readonly BCube[], cost: CoverCost): BCube[] {
+  let cur = F.slice();
+  let curCost = total(sp, cur, cost);
+  for (;;) {
+    const next = expandCover(sp, lowerOutputs(sp, cur, D), R, true);
+    const c = total(sp, next, cost);
+    if (c >= curCost) return c === curCost ? next : cur;
+    cur = next;
+    curCost = c;
+  }
+}
+
+function sameCube(sp: Space, a: BCube, b: BCube): boolean {
+  for (let k = 0; k < sp.w; k++) if (a[k] !== b[k]) return false;
+  return true;
+}
+
+function containsFull(sp: Space, a: BCube, b: BCube): boolean {
+  if (inDisjoint(sp, a, b)) return false;
+  for (let k = 0; k < sp.w; k++) if ((b[k] & ~a[k]) !== 0) return false;
+  return true;
+}

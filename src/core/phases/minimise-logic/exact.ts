@@ -1,0 +1,142 @@
+/**
+ * Exact multi-output minimisation: every multi-output prime implicant (primes.ts), then a
+ * minimum-cost choice of (prime, function) connections covering every on-set point of every
+ * function (cover-exact.ts). The covering table is the Quine–McCluskey prime implicant chart
+ * (E. J. McCluskey, Bell System Technical Journal 35(6), 1956) with one row per on-set
+ * minterm per function, so this path enumerates minterms and is kept to small functions.
+ *
+ * Why primes suffice under our cost: a term feeding the functions T can be widened to a prime
+ * of ∏_{j∈T} f_j without adding a literal or a connection, so some cheapest cover uses only
+ * multi-output primes (each possibly feeding only part of its tag).
+ *
+ * Postcondition: the terms cover every on-set point and stay inside on ∪ dc; when `optimal`
+ * is true no cheaper cover exists under the given cost.
+ */
+import { type BCube, type Space, literals } from './bitcube.js';
+import { multiOutputPrimes } from './primes.js';
+import { solveCover, type CoverColumn } from './cover-exact.js';
+import type { CoverCost } from './types.js';
+
+/** Hard limit on variables for the minterm-based table. */
+export const EXACT_MAX_VARS = 20;
+
+export interface ExactLimits {
+  /** Give up (return null) when there are more multi-output primes than this. */
+  readonly maxPrimes: number;
+  /** Give up (return null) when there are more (minterm, function) rows than this. */
+  readonly maxRows: number;
+  /** Branch-and-bound node limit; past it the best cover found is returned, not optimal. */
+  readonly nodeLimit: number;
+}
+
+export interface ExactResult {
+  readonly terms: readonly { readonly cube: BCube; readonly outputs: readonly number[] }[];
+  readonly cost: number;
+  readonly optimal: boolean;
+}
+
+/** Minterm index bits of an input cube: [care mask, value mask], variable i ↔ bit i. */
+function careValue(sp: Space, c: BCube): [number, number] {
+  let care = 0;
+  let val = 0;
+  for (let i = 0; i < sp.n; i++) {
+    const f = (c[(i / 15) | 0] >>> (2 * (i % 15))) & 3;
+    if (f === 1) care |= 1 << i;
+    else if (f === 2) { care |= 1 << i; val |= 1 << i; }
+  }
+  return [care, val];
+}
+
+/** Count of minterms of a cube. */
+function size(sp: Space, c: BCube): number {
+  return 2 ** (sp.n - literals(sp, c));
+}
+
+/** Exact minimisation of on[j] with allowed[j] = on[j] ∪ dc[j]; null when over the limits. */
+export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allowed: readonly (readonly BCube[])[], cost: CoverCost, limits: ExactLimits): ExactResult | null {
+  if (sp.n > EXACT_MAX_VARS) return null;
+  const m = on.length;
+  const all = (1 << sp.n) - 1 || 0;
+  // Rows: distinct on-set minterms per function.
+  let rowEstimate = 0;
+  for (const cs of on) for (const c of cs) rowEstimate += size(sp, c);
+  if (rowEstimate > limits.maxRows * 4) return null;
+  const rowId: RowIndex[] = [];
+  const rowsOf: number[][] = [];
+  let rowCount = 0;
+  for (let j = 0; j < m; j++) {
+    const ids = rowIndex(sp.n);
+    const list: number[] = [];
+    for (const c of on[j]) {
+      const [care, val] = careValue(sp, c);
+      const free = all & ~care;
+      for (let s = free; ; s = (s - 1) & free) {
+        const x = val | s;
+        if (ids.get(x) < 0) { ids.set(x, rowCount++); list.push(x); }
+        if (s === 0) break;
+      }
+    }
+    if (rowCount > limits.maxRows) return null;
+    rowId.push(ids);
+    rowsOf.push(list);
+  }
+  if (rowCount === 0) return { terms: [], cost: 0, optimal: true };
+  const primes = multiOutputPrimes(sp, allowed, limits.maxPrimes);
+  if (primes === null) return null;
+  const columns: CoverColumn[] = [];
+  const columnOutput: number[] = [];
+  const groupCost: number[] = [];
+  const groupCube: BCube[] = [];
+  for (const p of primes) {
+    const [care, val] = careValue(sp, p.cube);
+    const free = all & ~care;
+    const cols: CoverColumn[] = [];
+    for (const j of p.tag) {
+      const rows: number[] = [];
+      const ids = rowId[j];
+      if (2 ** (sp.n - literals(sp, p.cube)) <= rowsOf[j].length) {
+        for (let s = free; ; s = (s - 1) & free) {
+          const r = ids.get(val | s);
+          if (r >= 0) rows.push(r);
+          if (s === 0) break;
+        }
+      } else for (const x of rowsOf[j]) if ((x & care) === val) rows.push(ids.get(x));
+      if (rows.length > 0) {
+        cols.push({ group: groupCost.length, cost: cost.connection, rows });
+        columnOutput.push(j);
+      }
+    }
+    if (cols.length === 0) continue;
+    columns.push(...cols);
+    groupCost.push(cost.term + cost.literal * literals(sp, p.cube));
+    groupCube.push(p.cube);
+  }
+  const sol = solveCover({ rowCount, columns, groupCost }, limits.nodeLimit);
+  const outs = new Map<number, number[]>();
+  for (const ci of sol.columns) {
+    const col = columns[ci];
+    const j = columnOutput[ci];
+    const list = outs.get(col.group) ?? [];
+    list.push(j);
+    outs.set(col.group, list);
+  }
+  const terms = [...outs.entries()]
+    .sort((a, b) => a[0] - b[0])
+    .map(([g, js]) => ({ cube: groupCube[g], outputs: js.sort((a, b) => a - b) }));
+  return { terms, cost: sol.cost, optimal: sol.optimal };
+}
+
+/** Row number of each minterm of one function: a flat table for small n, else a map. */
+interface RowIndex {
+  get(x: number): number;
+  set(x: number, r: number): void;
+}
+
+function rowIndex(n: number): RowIndex {
+  if (n <= 14) {
+    const t = new Int32Array(1 << n).fill(-1);
+    return { get: (x) => t[x], set: (x, r) => { t[x] = r; } };
+  }
+  const map = new Map<number, number>();
+  return { get: (x) => map.get(x) ?? -1, set: (x, r) => { map.set(x, r); } };
+}

@@ -1,0 +1,155 @@
+/**
+ * Minimise logic: multi-output two-level minimisation of an incompletely specified function.
+ *
+ * Input: per function j an on-set cover and a don't-care cover (cube strings); the off-set is
+ * the rest. A point in both on_j and dc_j must be covered (the on-set wins).
+ * Output: a sum-of-products cover whose terms may feed several functions (shared term gates),
+ * cheapest under `opts.cost` that the chosen method finds.
+ *
+ * Methods (see docs/methods/minimise-logic.md):
+ * - 'exact': all multi-output prime implicants (McCluskey's tagged method, BSTJ 35(6), 1956,
+ *   on cubes) and a minimum-cost covering by branch and bound.
+ * - 'heuristic': the Espresso-II loop (Brayton, Hachtel, McMullen, Sangiovanni-Vincentelli,
+ *   "Logic Minimization Algorithms for VLSI Synthesis", Kluwer 1984) on packed cubes, never
+ *   enumerating minterms.
+ * - 'auto' (default): exact when the function is small (AUTO_LIMITS); if the exact search
+ *   gives up or is cut short, the heuristic runs too and the cheaper cover is returned.
+ *
+ * Preconditions: every cube has `vars` positions of '0', '1', '-'; `on` and `dc` have one
+ * list per function (a bad shape is a programming error: RangeError).
+ * Postcondition: verifyCover(f, result).ok; deterministic for a given input.
+ */
+import type { Cube } from '../../model/cube.js';
+import {
+  type BCube, type Space, makeSpace, parseInput, formatInput, withOutputs, outputsOf, inDisjoint, key, absorbFull,
+} from './bitcube.js';
+import { complement, subtractCover } from './unate.js';
+import { espresso, cubeCost } from './espresso.js';
+import { exactMinimise, EXACT_MAX_VARS, type ExactLimits } from './exact.js';
+import { DEFAULT_COST, coverCost } from './cost.js';
+import type { CoverCost, MinimiseOptions, MultiFunction, SopCover, Term } from './types.js';
+
+export type { CoverCost, MinimiseOptions, MinimiserMethod, MultiFunction, SopCover, Term } from './types.js';
+export { coverCost, coverStats, DEFAULT_COST, type CoverStats } from './cost.js';
+export { verifyCover } from './verify.js';
+
+/**
+ * When 'auto' tries the exact method: at most `maxVars` variables and `maxRows` on-set
+ * (minterm, function) rows; the prime generation gives up past `maxPrimes`, the covering
+ * search past `nodeLimit` nodes.
+ */
+export const AUTO_LIMITS: ExactLimits & { readonly maxVars: number } = {
+  maxVars: 12,
+  maxRows: 1024,
+  maxPrimes: 400,
+  nodeLimit: 4000,
+};
+
+/** Multi-output minimisation; terms shared across functions unless `share: false`. */
+export function minimiseCover(f: MultiFunction, opts: MinimiseOptions = {}): SopCover {
+  checkShape(f);
+  const cost = opts.cost ?? DEFAULT_COST;
+  const method = opts.method ?? 'auto';
+  const m = f.on.length;
+  if (opts.share === false && m > 1) {
+    const terms: Term[] = [];
+    for (let j = 0; j < m; j++) {
+      const one = solve({ vars: f.vars, on: [f.on[j]], dc: [f.dc[j] ?? []] }, method, cost);
+      for (const t of one) terms.push({ cube: t.cube, outputs: [j] });
+    }
+    return { vars: f.vars, functions: m, terms };
+  }
+  return { vars: f.vars, functions: m, terms: solve(f, method, cost) };
+}
+
+/** Single-function convenience: the minimised sum of products as a list of cubes. */
+export function minimiseSop(on: readonly Cube[], dc: readonly Cube[], vars: number, opts: MinimiseOptions = {}): Cube[] {
+  return minimiseCover({ vars, on: [on], dc: [dc] }, opts).terms.map((t) => t.cube);
+}
+
+function checkShape(f: MultiFunction): void {
+  if (!Number.isInteger(f.vars) || f.vars < 0) throw new RangeError(`minimiseCover: vars must be a non-negative integer, got ${f.vars}`);
+  if (f.dc.length !== f.on.length) throw new RangeError(`minimiseCover: ${f.on.length} on-set lists but ${f.dc.length} don't-care lists`);
+  for (const list of [...f.on, ...f.dc])
+    for (const c of list)
+      if (c.length !== f.vars) throw new RangeError(`minimiseCover: cube '${c}' has ${c.length} positions, expected ${f.vars}`);
+}
+
+/** The function in packed form: on-sets, don't-cares minus on-sets, and on ∪ dc. */
+interface Packed {
+  readonly sp: Space;
+  readonly on: BCube[][];
+  readonly dc: BCube[][];
+  readonly allowed: BCube[][];
+}
+
+function pack(f: MultiFunction): Packed {
+  const sp = makeSpace(f.vars, f.on.length);
+  const on = f.on.map((cs) => cs.map((c) => parseInput(sp, c)));
+  const dc = f.dc.map((cs, j) => {
+    const raw = cs.map((c) => parseInput(sp, c));
+    // The on-set wins where the lists overlap: keep only the don't-care points outside it.
+    const meets = raw.some((d) => on[j].some((o) => !inDisjoint(sp, d, o)));
+    return meets ? subtractCover(sp, raw, on[j]) : raw;
+  });
+  const allowed = on.map((cs, j) => [...cs, ...dc[j]]);
+  return { sp, on, dc, allowed };
+}
+
+interface Found {
+  readonly cube: Cube;
+  readonly outputs: readonly number[];
+}
+
+function solve(f: MultiFunction, method: MinimiseOptions['method'], cost: CoverCost): Found[] {
+  const p = pack(f);
+  if (method === 'heuristic') return heuristic(p, cost);
+  if (method === 'exact') {
+    if (f.vars > EXACT_MAX_VARS) throw new RangeError(`minimiseCover: the exact method handles at most ${EXACT_MAX_VARS} variables, got ${f.vars}`);
+    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { maxPrimes: Infinity, maxRows: Infinity, nodeLimit: Infinity });
+    return toFound(p.sp, r!.terms);
+  }
+  if (f.vars <= AUTO_LIMITS.maxVars) {
+    const r = exactMinimise(p.sp, p.on, p.allowed, cost, AUTO_LIMITS);
+    if (r !== null) {
+      const exact = toFound(p.sp, r.terms);
+      if (r.optimal) return exact;
+      const h = heuristic(p, cost);
+      return price(f, h, cost) < price(f, exact, cost) ? h : exact;
+    }
+  }
+  return heuristic(p, cost);
+}
+
+function price(f: MultiFunction, terms: readonly Found[], cost: CoverCost): number {
+  return coverCost({ vars: f.vars, functions: f.on.length, terms }, cost);
+}
+
+function toFound(sp: Space, terms: readonly { cube: BCube; outputs: readonly number[] }[]): Found[] {
+  return terms.map((t) => ({ cube: formatInput(sp, t.cube), outputs: t.outputs.slice() }));
+}
+
+/** Espresso-II on the packed function. */
+function heuristic(p: Packed, cost: CoverCost): Found[] {
+  const { sp } = p;
+  const R: BCube[] = [];
+  p.allowed.forEach((cs, j) => { for (const r of complement(sp, cs)) R.push(withOutputs(sp, r, [j])); });
+  const F = mergeOutputs(sp, p.on);
+  const D = mergeOutputs(sp, p.dc);
+  const result = espresso(sp, F, D, R, cost);
+  const found = result.map((c) => ({ cube: formatInput(sp, c), outputs: outputsOf(sp, c), price: cubeCost(sp, c, cost) }));
+  return found.map(({ cube, outputs }) => ({ cube, outputs }));
+}
+
+/** One multi-output cube per distinct input cube, feeding every function that lists it. */
+function mergeOutputs(sp: Space, lists: readonly (readonly BCube[])[]): BCube[] {
+  const byKey = new Map<string, { cube: BCube; outs: number[] }>();
+  lists.forEach((cs, j) => {
+    for (const c of cs) {
+      const id = key(c.slice(0, sp.wi));
+      const e = byKey.get(id);
+      if (e) { if (!e.outs.includes(j)) e.outs.push(j); } else byKey.set(id, { cube: c, outs: [j] });
+    }
+  });
+  return absorbFull(sp, [...byKey.values()].map((e) => withOutputs(sp, e.cube, e.outs)));
+}

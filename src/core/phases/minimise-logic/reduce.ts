@@ -1,0 +1,77 @@
+/**
+ * REDUCE of Espresso-II (Brayton et al., "Logic Minimization Algorithms for VLSI Synthesis",
+ * Kluwer 1984, §4.4): shrink each cube, in turn, to the smallest cube that still holds the
+ * points only it covers, so that the next EXPAND can grow it in a new direction. For a
+ * multi-output cube this is done per function fed: a function whose points are all covered
+ * elsewhere is dropped from the cube's output part.
+ *
+ * Also the output-part lowering of MAKE_SPARSE (§4.7): drop each cord branch whose points are
+ * covered by other terms, which our cost counts as a connection saved.
+ *
+ * Precondition: D does not meet the on-set. Postcondition: the union, restricted to the
+ * on-set, is unchanged.
+ */
+import {
+  type BCube, type Space, cofactor, inAnd, inDisjoint, inDistance, inOr, literals, outCount, outputsOf, hasOutput, outputBit, withOutputs,
+} from './bitcube.js';
+import { cubeCovered, supercubeOfComplement } from './unate.js';
+
+/** The maximally reduced form of c against the pool (others and don't-cares), or null. */
+export function reduceCube(sp: Space, c: BCube, pool: readonly BCube[], skip: number): BCube | null {
+  let sup: BCube | null = null;
+  const outs: number[] = [];
+  for (const j of outputsOf(sp, c)) {
+    const t: BCube[] = [];
+    for (let i = 0; i < pool.length; i++) {
+      const d = pool[i];
+      if (i !== skip && hasOutput(sp, d, j) && !inDisjoint(sp, d, c)) t.push(cofactor(sp, d, c));
+    }
+    const s = supercubeOfComplement(sp, t);
+    if (s === null) continue;
+    const region = inAnd(sp, c, s);
+    sup = sup === null ? region : inOr(sp, sup, region);
+    outs.push(j);
+  }
+  return sup === null ? null : withOutputs(sp, sup, outs);
+}
+
+/**
+ * Sequential REDUCE: the largest cube first, then the others by decreasing distance from it
+ * (Espresso's order, which keeps the big cubes from being starved by their neighbours).
+ */
+export function reduceCover(sp: Space, F: readonly BCube[], D: readonly BCube[]): BCube[] {
+  if (F.length === 0) return [];
+  const size = (c: BCube): number => outCount(sp, c) - literals(sp, c);
+  let top = 0;
+  for (let i = 1; i < F.length; i++) if (size(F[i]) > size(F[top])) top = i;
+  const order = F.map((_, i) => i).sort((a, b) => {
+    if (a === top || b === top) return a === top ? -1 : 1;
+    return inDistance(sp, F[b], F[top]) - inDistance(sp, F[a], F[top]) || a - b;
+  });
+  const cur: (BCube | null)[] = F.slice();
+  const pool = (): BCube[] => [...(cur.filter((c) => c !== null) as BCube[]), ...D];
+  for (const i of order) {
+    const c = cur[i]!;
+    cur[i] = null;
+    cur[i] = reduceCube(sp, c, pool(), -1);
+  }
+  return cur.filter((c) => c !== null) as BCube[];
+}
+
+/** Drop every output connection covered by the other terms and D (in cover order). */
+export function lowerOutputs(sp: Space, F: readonly BCube[], D: readonly BCube[]): BCube[] {
+  const cur: BCube[] = F.map((c) => c.slice());
+  for (let i = 0; i < cur.length; i++) {
+    const c = cur[i];
+    for (const j of outputsOf(sp, c)) {
+      const t: BCube[] = [];
+      for (let q = 0; q < cur.length; q++) if (q !== i && hasOutput(sp, cur[q], j)) t.push(cur[q]);
+      for (const d of D) if (hasOutput(sp, d, j)) t.push(d);
+      if (cubeCovered(sp, t, c)) {
+        const [k, bit] = outputBit(sp, j);
+        c[k] &= ~bit;
+      }
+    }
+  }
+  return cur.filter((c) => outCount(sp, c) > 0);
+}

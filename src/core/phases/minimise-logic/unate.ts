@@ -1,0 +1,270 @@
+/**
+ * Cover operations by the unate recursive paradigm (Brayton et al., "Logic Minimization
+ * Algorithms for VLSI Synthesis", Kluwer 1984, ch. 3): split on the most binate variable
+ * until the cover is unate, where the answer is immediate. All work is on cubes; no minterm
+ * is ever enumerated, so 48-variable covers are fine as long as they stay sparse.
+ *
+ * Every routine here reads only the input part (words 0..wi-1) of its cubes.
+ */
+import { type BCube, type Space, popcount, isUniverse, universe, varPos, inEqual, inContains } from './bitcube.js';
+
+/** Per-variable literal summary of a cover: which variables appear as 0 and as 1. */
+interface Columns {
+  zeros: number[];
+  ones: number[];
+}
+
+function columns(sp: Space, t: readonly BCube[]): Columns {
+  const zeros = new Array<number>(sp.wi).fill(0);
+  const ones = new Array<number>(sp.wi).fill(0);
+  for (const c of t)
+    for (let k = 0; k < sp.wi; k++) {
+      const x = c[k];
+      const l = sp.low[k];
+      zeros[k] |= x & ~(x >>> 1) & l; // field 01
+      ones[k] |= (x >>> 1) & ~x & l; // field 10
+    }
+  return { zeros, ones };
+}
+
+/**
+ * The variable to split on: among binate variables (or, if none, among all that carry a
+ * literal) the one with most literals in the cover; ties go to the lowest index, so the
+ * recursion is deterministic. Returns -1 when no variable carries a literal.
+ */
+export function splitVar(sp: Space, t: readonly BCube[], binateOnly: boolean): number {
+  const { zeros, ones } = columns(sp, t);
+  let anyBinate = false;
+  const cand = new Array<number>(sp.wi);
+  for (let k = 0; k < sp.wi; k++) {
+    cand[k] = zeros[k] & ones[k];
+    if (cand[k] !== 0) anyBinate = true;
+  }
+  if (!anyBinate) {
+    if (binateOnly) return -1;
+    for (let k = 0; k < sp.wi; k++) cand[k] = zeros[k] | ones[k];
+  }
+  let best = -1;
+  let bestCount = -1;
+  for (let k = 0; k < sp.wi; k++) {
+    let mask = cand[k];
+    while (mask !== 0) {
+      const bit = mask & -mask;
+      mask &= mask - 1;
+      const both = bit | (bit << 1);
+      let count = 0;
+      for (const c of t) if ((c[k] & both) !== both) count++;
+      if (count > bestCount) {
+        bestCount = count;
+        best = k * 15 + ((31 - Math.clz32(bit)) >>> 1);
+      }
+    }
+  }
+  return best;
+}
+
+/** Cubes of t meeting literal (variable i = value), with variable i freed. */
+export function cofactorVar(sp: Space, t: readonly BCube[], i: number, value: 0 | 1): BCube[] {
+  const [k, s] = varPos(i);
+  const bit = (value === 1 ? 2 : 1) << s;
+  const both = 3 << s;
+  const out: BCube[] = [];
+  for (const c of t) {
+    const f = c[k] & both;
+    if ((f & bit) === 0) continue;
+    if (f === both) out.push(c);
+    else {
+      const r = c.slice(0, sp.wi);
+      r[k] |= both;
+      out.push(r);
+    }
+  }
+  return out;
+}
+
+/** True when the cover is the constant 1 over the input space. */
+export function tautology(sp: Space, t: readonly BCube[]): boolean {
+  let cur = t;
+  for (;;) {
+    if (cur.length === 0) return false;
+    for (const c of cur) if (isUniverse(sp, c)) return true;
+    const { zeros, ones } = columns(sp, cur);
+    // A variable that is unate in the cover can be set against its literal: the cover is a
+    // tautology iff the cubes free of every unate variable are (Brayton et al. §3.2).
+    let unate = false;
+    let binate = false;
+    const unateMask = new Array<number>(sp.wi);
+    for (let k = 0; k < sp.wi; k++) {
+      const z = zeros[k];
+      const o = ones[k];
+      const u = (z ^ o) & (z | o);
+      unateMask[k] = u | (u << 1);
+      if (u !== 0) unate = true;
+      if ((z & o) !== 0) binate = true;
+    }
+    if (!binate) return false; // unate without the universe cube
+    if (unate) {
+      const next: BCube[] = [];
+      for (const c of cur) {
+        let free = true;
+        for (let k = 0; k < sp.wi; k++)
+          if ((c[k] & unateMask[k]) !== unateMask[k]) { free = false; break; }
+        if (free) next.push(c);
+      }
+      cur = next;
+      continue;
+    }
+    const v = splitVar(sp, cur, true);
+    return tautology(sp, cofactorVar(sp, cur, v, 1)) && tautology(sp, cofactorVar(sp, cur, v, 0));
+  }
+}
+
+/** True when the input cube c lies inside the union of the cover t. */
+export function cubeCovered(sp: Space, t: readonly BCube[], c: BCube): boolean {
+  const cof: BCube[] = [];
+  for (const d of t) {
+    let meets = true;
+    for (let k = 0; k < sp.wi; k++) {
+      const x = c[k] & d[k];
+      const l = sp.low[k];
+      if (((x | (x >>> 1)) & l) !== l) { meets = false; break; }
+    }
+    if (!meets) continue;
+    const r = new Array<number>(sp.wi);
+    for (let k = 0; k < sp.wi; k++) r[k] = d[k] | (~c[k] & sp.full[k]);
+    cof.push(r);
+  }
+  return tautology(sp, cof);
+}
+
+/** Complement of a cube by De Morgan: one cube per literal. */
+function complementCube(sp: Space, c: BCube): BCube[] {
+  const out: BCube[] = [];
+  for (let k = 0; k < sp.wi; k++) {
+    let lits = sp.low[k] & ~(c[k] & (c[k] >>> 1));
+    while (lits !== 0) {
+      const bit = lits & -lits;
+      lits &= lits - 1;
+      const both = bit | (bit << 1);
+      const r = universe(sp);
+      r[k] = (r[k] & ~both) | (both & ~c[k]);
+      out.push(r);
+    }
+  }
+  return out;
+}
+
+/**
+ * Complement of a cover over the input space (Brayton et al. §3.3, with the merge step
+ * that lifts a cube present, or contained, on both sides of the split).
+ */
+export function complement(sp: Space, t: readonly BCube[]): BCube[] {
+  if (t.length === 0) return [universe(sp)];
+  for (const c of t) if (isUniverse(sp, c)) return [];
+  if (t.length === 1) return complementCube(sp, t[0]);
+  const v = splitVar(sp, t, false);
+  const c1 = complement(sp, cofactorVar(sp, t, v, 1));
+  const c0 = complement(sp, cofactorVar(sp, t, v, 0));
+  const [k, s] = varPos(v);
+  const both = 3 << s;
+  const out: BCube[] = [];
+  const used0 = new Uint8Array(c0.length);
+  for (const a of c1) {
+    let lifted = false;
+    for (let j = 0; j < c0.length; j++) {
+      if (inContains(sp, c0[j], a)) {
+        if (inEqual(sp, c0[j], a)) used0[j] = 1;
+        lifted = true;
+        break;
+      }
+    }
+    const r = a.slice(0, sp.wi);
+    if (!lifted) r[k] = (r[k] & ~both) | (2 << s);
+    out.push(r);
+  }
+  for (let j = 0; j < c0.length; j++) {
+    if (used0[j]) continue;
+    const b = c0[j];
+    let lifted = false;
+    for (const a of c1) if (inContains(sp, a, b)) { lifted = true; break; }
+    const r = b.slice(0, sp.wi);
+    if (!lifted) r[k] = (r[k] & ~both) | (1 << s);
+    out.push(r);
+  }
+  return out;
+}
+
+/**
+ * Smallest cube containing the complement of the cover, or null when the cover is a
+ * tautology (Brayton et al. §4.4, the core of REDUCE).
+ */
+export function supercubeOfComplement(sp: Space, t: readonly BCube[]): BCube | null {
+  if (t.length === 0) return universe(sp);
+  for (const c of t) if (isUniverse(sp, c)) return null;
+  if (t.length === 1) {
+    const c = t[0];
+    let lits = 0;
+    for (let k = 0; k < sp.wi; k++) lits += popcount(sp.low[k] & ~(c[k] & (c[k] >>> 1)));
+    if (lits > 1) return universe(sp);
+    return complementCube(sp, c)[0];
+  }
+  const v = splitVar(sp, t, false);
+  const s1 = supercubeOfComplement(sp, cofactorVar(sp, t, v, 1));
+  const s0 = supercubeOfComplement(sp, cofactorVar(sp, t, v, 0));
+  const [k, s] = varPos(v);
+  const both = 3 << s;
+  if (s1 === null && s0 === null) return null;
+  if (s1 === null) {
+    const r = s0!.slice(0, sp.wi);
+    r[k] = (r[k] & ~both) | (1 << s);
+    return r;
+  }
+  if (s0 === null) {
+    const r = s1.slice(0, sp.wi);
+    r[k] = (r[k] & ~both) | (2 << s);
+    return r;
+  }
+  const r = new Array<number>(sp.wi);
+  for (let j = 0; j < sp.wi; j++) r[j] = s1[j] | s0[j];
+  return r;
+}
+
+/**
+ * Cubes of a minus the cube b, pairwise disjoint (the disjoint sharp of Hong, Cain and
+ * Ostapko, IBM J. Res. Dev. 18(5), 1974).
+ */
+export function sharp(sp: Space, a: BCube, b: BCube): BCube[] {
+  for (let k = 0; k < sp.wi; k++) {
+    const x = a[k] & b[k];
+    if (((x | (x >>> 1)) & sp.low[k]) !== sp.low[k]) return [a];
+  }
+  const out: BCube[] = [];
+  const rest = a.slice(0, sp.wi);
+  for (let k = 0; k < sp.wi; k++) {
+    // fields where b is fixed and rest is wider: peel off the part outside b
+    let lits = sp.low[k] & ~(b[k] & (b[k] >>> 1));
+    while (lits !== 0) {
+      const bit = lits & -lits;
+      lits &= lits - 1;
+      const both = bit | (bit << 1);
+      if ((rest[k] & both) === (b[k] & both)) continue;
+      const piece = rest.slice();
+      piece[k] = (piece[k] & ~both) | (rest[k] & both & ~b[k]);
+      out.push(piece);
+      rest[k] = (rest[k] & ~both) | (b[k] & both);
+    }
+  }
+  return out;
+}
+
+/** A cover minus a cover, as cubes (disjoint when `from` is). */
+export function subtractCover(sp: Space, from: readonly BCube[], minus: readonly BCube[]): BCube[] {
+  let cur: BCube[] = from.slice();
+  for (const m of minus) {
+    const next: BCube[] = [];
+    for (const c of cur) for (const d of sharp(sp, c, m)) next.push(d);
+    cur = next;
+    if (cur.length === 0) break;
+  }
+  return cur;
+}

@@ -1,0 +1,144 @@
+/**
+ * Force budget of every capstan driver (design §4).
+ *
+ * Method: the capstan equation (see capstan.ts). A driver is a lever or gate with at least one
+ * output cord; all its cords leave the same capstan, so its load is the sum over every branch
+ * of every cord: (port load or actuator load) × routing loss of that cord.
+ * - A branch to a port of a gate with two or more ports lifts the port's pull-up weight and
+ *   the Z weight the port drags down with it (sized as if this cord pulled alone, so Z is
+ *   still up: the worst case, whatever other cords on the port or the gate are doing).
+ * - A branch to a one-port gate lifts Z itself (that port is Z): the Z weight alone.
+ * - A branch to an actuator lifts the actuator's load; its routing loss applies too.
+ * The hold tension is Z's weight (a gate) or the lever's pull-up weight (a lever), times the
+ * lever ratio. Margin = available / load; ok when margin ≥ profile.minMargin.
+ * Precondition: a netlist whose cords name existing parts (the netlist invariants).
+ * Postcondition: one budget per driver, in the netlist's part order.
+ */
+import { partIndex, type Netlist, type Part } from '../model/netlist.js';
+import { availableTension, gramsToNewtons, routingFactor, routingFor } from './capstan.js';
+import type { Profile } from './profile.js';
+
+/** One branch of a cord and what it costs the capstan. */
+export interface BranchLoad {
+  readonly cord: string;
+  /** `gate.port` for a port, the actuator id for an actuator. */
+  readonly target: string;
+  readonly kind: 'port' | 'actuator';
+  /** Load before routing loss, grams-force. */
+  readonly baseG: number;
+  readonly routingFactor: number;
+  /** baseG × routingFactor. */
+  readonly loadG: number;
+}
+
+/** The budget of one capstan driver. */
+export interface DriverBudget {
+  readonly driver: string;
+  readonly driverKind: 'lever' | 'gate';
+  readonly cords: readonly string[];
+  readonly holdG: number;
+  readonly gain: number;
+  readonly availableG: number;
+  readonly availableN: number;
+  readonly loadG: number;
+  readonly loadN: number;
+  /** available / load (Infinity for a cord that pulls nothing). */
+  readonly margin: number;
+  readonly ok: boolean;
+  readonly branches: readonly BranchLoad[];
+  /** The driver's heaviest cord: the one to name when the budget fails. */
+  readonly weakestCord: string;
+  /** For a failing budget: what fails, in words, naming the cord and its loads. */
+  readonly message?: string;
+  /** For a failing budget: the ways out, each with the figure that would pass. */
+  readonly fixes?: readonly string[];
+}
+
+/** Load of one port branch before routing: port + Z weight, or Z alone for a one-port gate. */
+export function portLoadG(profile: Profile, gate: Part | undefined): number {
+  if (gate?.kind === 'gate' && gate.ports.length === 1) return profile.zWeightG;
+  return profile.portWeightG + profile.zWeightG;
+}
+
+/** Hold weight (before the lever ratio) of a driver's capstan: the lever's pull-up or Z's weight. */
+export function holdWeightG(profile: Profile, driverKind: 'lever' | 'gate'): number {
+  return driverKind === 'lever' ? profile.leverWeightG : profile.zWeightG;
+}
+
+/** Every branch load of the cords driven by each driver, keyed by driver id. */
+export function branchLoads(netlist: Netlist, profile: Profile): Map<string, BranchLoad[]> {
+  const parts = partIndex(netlist);
+  const byDriver = new Map<string, BranchLoad[]>();
+  for (const c of netlist.cords) {
+    const f = routingFactor(routingFor(profile, c.id));
+    const list = byDriver.get(c.driver) ?? [];
+    for (const p of c.ports) {
+      const baseG = portLoadG(profile, parts.get(p.part));
+      list.push({ cord: c.id, target: `${p.part}.${p.port}`, kind: 'port', baseG, routingFactor: f, loadG: baseG * f });
+    }
+    for (const a of c.actuators) {
+      const part = parts.get(a);
+      const baseG = part?.kind === 'actuator' ? part.loadG : 0;
+      list.push({ cord: c.id, target: a, kind: 'actuator', baseG, routingFactor: f, loadG: baseG * f });
+    }
+    byDriver.set(c.driver, list);
+  }
+  return byDriver;
+}
+
+/** Force budget of every capstan driver, in part order. */
+export function driveBudget(netlist: Netlist, profile: Profile): DriverBudget[] {
+  const loads = branchLoads(netlist, profile);
+  const out: DriverBudget[] = [];
+  for (const part of netlist.parts) {
+    const branches = loads.get(part.id);
+    if (!branches || (part.kind !== 'lever' && part.kind !== 'gate')) continue;
+    out.push(budgetOf(part.id, part.kind, branches, profile));
+  }
+  return out;
+}
+
+function budgetOf(driver: string, driverKind: 'lever' | 'gate', branches: readonly BranchLoad[], profile: Profile): DriverBudget {
+  const t = availableTension(profile, holdWeightG(profile, driverKind));
+  const cords = [...new Set(branches.map((b) => b.cord))];
+  const perCord = new Map<string, number>();
+  for (const b of branches) perCord.set(b.cord, (perCord.get(b.cord) ?? 0) + b.loadG);
+  const weakestCord = cords.reduce((a, c) => ((perCord.get(c) ?? 0) > (perCord.get(a) ?? 0) ? c : a), cords[0]);
+  const loadG = branches.reduce((s, b) => s + b.loadG, 0);
+  const margin = loadG > 0 ? t.availableG / loadG : Infinity;
+  const ok = margin >= profile.minMargin;
+  const base = {
+    driver, driverKind, cords, holdG: t.holdG, gain: t.gain, availableG: t.availableG, availableN: t.availableN,
+    loadG, loadN: gramsToNewtons(loadG), margin, ok, branches, weakestCord,
+  };
+  if (ok) return base;
+  return { ...base, message: failMessage(base), fixes: fixesFor(base, profile) };
+}
+
+const grams = (g: number): string => `${g >= 100 ? Math.round(g) : Math.round(g * 10) / 10} g`;
+
+function failMessage(b: Omit<DriverBudget, 'message' | 'fixes'>): string {
+  const shown = b.branches.slice(0, 8).map((x) => `${x.target} ${grams(x.loadG)}`);
+  const more = b.branches.length > 8 ? `, … ${b.branches.length - 8} more` : '';
+  const cordWord = b.cords.length === 1 ? `cord '${b.cords[0]}'` : `cords ${b.cords.map((c) => `'${c}'`).join(', ')}`;
+  return `${cordWord} (capstan of ${b.driverKind} '${b.driver}') must lift ${grams(b.loadG)} (${shown.join(', ')}${more}) `
+    + `but its capstan holds ${grams(b.availableG)}: margin ${b.margin.toFixed(2)}`;
+}
+
+function fixesFor(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile): string[] {
+  const fixes: string[] = [];
+  const budgetG = b.availableG / profile.minMargin;
+  const heaviest = Math.max(...b.branches.map((x) => x.loadG));
+  if (b.branches.length > 1 && heaviest <= budgetG) {
+    const each = b.loadG / b.branches.length;
+    fixes.push(`fewer branches: this capstan carries about ${Math.max(1, Math.floor(budgetG / each))} of them at margin ${profile.minMargin}; spread the rest over a buffer tree`);
+  }
+  const neededGain = (profile.minMargin * b.loadG) / b.holdG;
+  const quarterTurns = Math.ceil((4 * Math.log(neededGain)) / (profile.mu * 2 * Math.PI));
+  if (quarterTurns > 0) fixes.push(`more wraps: ${quarterTurns / 4} turns on the drum (μ = ${profile.mu})`);
+  const needG = Math.ceil((profile.minMargin * b.loadG) / (profile.leverRatio * b.gain));
+  fixes.push(b.driverKind === 'lever'
+    ? `a heavier lever pull-up weight: ${needG} g (leverWeightG; the lever gets harder to pull)`
+    : `a heavier Z weight on this gate alone: ${needG} g (a heavier zWeightG for every gate also adds to the load of each port it hangs on)`);
+  return fixes;
+}

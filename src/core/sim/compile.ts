@@ -1,0 +1,217 @@
+/**
+ * Compile a Build's netlist once into flat index arrays for the part-level simulator.
+ *
+ * Contract: every lever and every gate becomes one *driver* (levers first, in netlist order,
+ * then gates). A gate's inputs are the drivers of every cord on every one of its ports, in
+ * one flat list: a port is the wired-AND of its cords and Z the AND of its ports, so the
+ * gate's output is NAND over that list (a port with no cord is 1 and adds nothing). A latch
+ * is its two gates; its S̄ is the AND of the cords on the set-side gate except the feedback
+ * cord from its partner (and R̄ likewise), which is what "both ports pulled" means.
+ * Preconditions: the netlist invariants of model/netlist.ts (unique ids, one driver per
+ * cord, ports only on gates). Postconditions: the arrays below never change afterwards.
+ */
+import type { Build } from '../model/build.js';
+import type { Netlist, Part } from '../model/netlist.js';
+
+/** Three-valued signal: 0, 1, or X (unknown: a latch released from the forbidden input, a race, an oscillation). */
+export type Trit = 0 | 1 | 2;
+/** The X value of a Trit. */
+export const X = 2;
+
+/** Per-part stage delays (seconds): the profile's stage delay, with overrides by gate or latch id. */
+export interface PartTiming {
+  readonly stageDelayS: number;
+  /** Overrides by gate id (a latch id sets both its gates). */
+  readonly delays?: Readonly<Record<string, number>>;
+}
+
+export interface CompiledLatch {
+  readonly id: string;
+  readonly name: string;
+  readonly role: 'master' | 'slave';
+  readonly bit: number;
+  /** Driver index of the set-side gate (output Q) and the reset-side gate (output Q̄). */
+  readonly set: number;
+  readonly reset: number;
+  /** Drivers whose cords make up S̄ and R̄ (the feedback cords left out). */
+  readonly sBar: Int32Array;
+  readonly rBar: Int32Array;
+}
+
+/** How a machine output is read: a flag on a gate's Z lever, or an actuator on cords. */
+export type OutputReader =
+  | { readonly kind: 'flag'; readonly gate: number; readonly inverted: boolean }
+  | { readonly kind: 'actuator'; readonly drivers: Int32Array };
+
+/** The netlist as index arrays (see the module comment). */
+export interface PartSim {
+  readonly build: Build;
+  readonly leverCount: number;
+  readonly driverCount: number;
+  readonly ids: readonly string[];
+  readonly names: readonly string[];
+  /** Gate inputs: driver d's inputs are inputs[inStart[d] .. inStart[d+1]). Levers have none. */
+  readonly inStart: Int32Array;
+  readonly inputs: Int32Array;
+  /** Gates that read driver d: fanout[fanStart[d] .. fanStart[d+1]), each listed once. */
+  readonly fanStart: Int32Array;
+  readonly fanout: Int32Array;
+  /** Stage delay per driver in whole microseconds (levers 0). */
+  readonly delayUs: Int32Array;
+  readonly latches: readonly CompiledLatch[];
+  /** Latch index per driver for latch gates, else -1. */
+  readonly latchOf: Int32Array;
+  /** Latches whose S̄ or R̄ reads driver d: watch[watchStart[d] .. watchStart[d+1]). */
+  readonly watchStart: Int32Array;
+  readonly watch: Int32Array;
+  readonly phi1: number;
+  readonly phi2: number;
+  readonly reset: number;
+  /** Lever driver per machine input, in the machine's input order. */
+  readonly inputLevers: Int32Array;
+  /** Latch index per state bit. */
+  readonly masters: Int32Array;
+  readonly slaves: Int32Array;
+  /** Reader per machine output, in the machine's output order. */
+  readonly outputs: readonly OutputReader[];
+  /** Running count of gate evaluations (for benchmarks). */
+  evaluations: number;
+}
+
+/** Compile a build's netlist with the given stage delays. Throws on a netlist that breaks the model's invariants. */
+export function compilePart(build: Build, timing: PartTiming): PartSim {
+  const net: Netlist = build.netlist;
+  const levers = net.parts.filter((p) => p.kind === 'lever');
+  const gates = net.parts.filter((p) => p.kind === 'gate');
+  const drivers: Part[] = [...levers, ...gates];
+  const index = new Map(drivers.map((p, i) => [p.id, i]));
+  const byId = new Map(net.parts.map((p) => [p.id, p]));
+  const need = (id: string, what: string): number => {
+    const i = index.get(id);
+    if (i === undefined) throw new Error(`netlist: ${what} '${id}' is not a lever or gate`);
+    return i;
+  };
+
+  const ins: number[][] = drivers.map(() => []);
+  for (const c of net.cords) {
+    const d = need(c.driver, `driver of cord ${c.id}`);
+    for (const p of c.ports) ins[need(p.part, `port owner on cord ${c.id}`)].push(d);
+  }
+  const n = drivers.length;
+  const inStart = new Int32Array(n + 1);
+  for (let i = 0; i < n; i++) inStart[i + 1] = inStart[i] + ins[i].length;
+  const inputs = Int32Array.from(ins.flat());
+
+  const outs: Set<number>[] = drivers.map(() => new Set());
+  ins.forEach((list, g) => list.forEach((d) => outs[d].add(g)));
+  const fanStart = new Int32Array(n + 1);
+  for (let i = 0; i < n; i++) fanStart[i + 1] = fanStart[i] + outs[i].size;
+  const fanout = Int32Array.from(outs.flatMap((s) => [...s]));
+
+  const delayUs = new Int32Array(n);
+  const override = timing.delays ?? {};
+  const latchParts = net.parts.filter((p) => p.kind === 'latch');
+  const latchDelay = new Map<string, number>();
+  for (const l of latchParts) {
+    const d = override[l.id];
+    if (d !== undefined) for (const g of [l.setGate, l.resetGate]) latchDelay.set(g, d);
+  }
+  drivers.forEach((p, i) => {
+    if (p.kind !== 'gate') return;
+    const s = override[p.id] ?? latchDelay.get(p.id) ?? timing.stageDelayS;
+    delayUs[i] = Math.max(1, Math.round(s * 1e6));
+  });
+
+  const latchOf = new Int32Array(n).fill(-1);
+  const latches: CompiledLatch[] = latchParts.map((l, li) => {
+    const set = need(l.setGate, `set gate of latch ${l.name}`);
+    const reset = need(l.resetGate, `reset gate of latch ${l.name}`);
+    latchOf[set] = li;
+    latchOf[reset] = li;
+    return {
+      id: l.id,
+      name: l.name,
+      role: l.role,
+      bit: l.bit,
+      set,
+      reset,
+      sBar: Int32Array.from(ins[set].filter((d) => d !== reset)),
+      rBar: Int32Array.from(ins[reset].filter((d) => d !== set)),
+    };
+  });
+  const watchers: Set<number>[] = drivers.map(() => new Set());
+  latches.forEach((l, li) => {
+    for (const d of l.sBar) watchers[d].add(li);
+    for (const d of l.rBar) watchers[d].add(li);
+  });
+  const watchStart = new Int32Array(n + 1);
+  for (let i = 0; i < n; i++) watchStart[i + 1] = watchStart[i] + watchers[i].size;
+  const watch = Int32Array.from(watchers.flatMap((s) => [...s]));
+
+  const sig = build.signals;
+  const latchIndex = new Map(latchParts.map((l, i) => [l.id, i]));
+  const latchAt = (id: string): number => {
+    const i = latchIndex.get(id);
+    if (i === undefined) throw new Error(`netlist: latch '${id}' named by the signal map does not exist`);
+    return i;
+  };
+  const outputs = build.machine.outputs.map((o): OutputReader => {
+    const id = sig.outputs[o];
+    const part = id === undefined ? undefined : byId.get(id);
+    if (part?.kind === 'flag') return { kind: 'flag', gate: need(part.gate, `gate of flag ${part.name}`), inverted: part.inverted };
+    if (part?.kind === 'actuator') {
+      const ds = net.cords.filter((c) => c.actuators.includes(part.id)).map((c) => need(c.driver, `driver of actuator ${part.name}`));
+      return { kind: 'actuator', drivers: Int32Array.from(ds) };
+    }
+    throw new Error(`netlist: output '${o}' has no flag or actuator`);
+  });
+
+  return {
+    build,
+    leverCount: levers.length,
+    driverCount: n,
+    ids: drivers.map((p) => p.id),
+    names: drivers.map((p) => p.name),
+    inStart,
+    inputs,
+    fanStart,
+    fanout,
+    delayUs,
+    latches,
+    latchOf,
+    watchStart,
+    watch,
+    phi1: need(sig.phi1, 'φ1 lever'),
+    phi2: need(sig.phi2, 'φ2 lever'),
+    reset: need(sig.reset, 'reset lever'),
+    inputLevers: Int32Array.from(build.machine.inputs.map((i) => need(sig.inputs[i] ?? '', `lever of input ${i}`))),
+    masters: Int32Array.from(sig.masters.map(latchAt)),
+    slaves: Int32Array.from(sig.slaves.map(latchAt)),
+    outputs,
+    evaluations: 0,
+  };
+}
+
+/** Value of one gate: NAND over its inputs in three-valued logic (any 0 → 1; all 1 → 0; else X). */
+export function evalGate(sim: PartSim, values: Uint8Array, d: number): Trit {
+  sim.evaluations++;
+  let unknown = false;
+  const end = sim.inStart[d + 1];
+  for (let k = sim.inStart[d]; k < end; k++) {
+    const v = values[sim.inputs[k]];
+    if (v === 0) return 1;
+    if (v === X) unknown = true;
+  }
+  return unknown ? X : 0;
+}
+
+/** AND of a list of drivers' values in three-valued logic (a latch's S̄ or R̄; empty → 1). */
+export function andOf(values: Uint8Array, ds: Int32Array): Trit {
+  let unknown = false;
+  for (let k = 0; k < ds.length; k++) {
+    const v = values[ds[k]];
+    if (v === 0) return 0;
+    if (v === X) unknown = true;
+  }
+  return unknown ? X : 1;
+}

@@ -1,0 +1,122 @@
+/**
+ * Synthesise: a flat (state-minimised) machine and its state codes → a Build.
+ *
+ *   excite (SR table) → minimise outputs → guard (+ minimise set/reset, prove S·R = 0)
+ *   → map to parts → equations
+ *
+ * Each step is a phase module of its own; this file only wires them, prices the guard's
+ * candidate covers by mapping them (so "cheaper" means fewer parts, by the profile's cost
+ * weights) and reuses the mapping of the chosen one. The encoding search calls this for every
+ * candidate encoding, so nothing here enumerates input combinations.
+ *
+ * A one-state machine needs no state bits: it is built combinationally with an encoding of
+ * 0 bits (its build's `encoding` says so), whatever codes were passed in.
+ */
+import { complement, type Cube } from './model/cube.js';
+import { DiagnosticError, diag } from './model/diagnostics.js';
+import type { FlatMachine } from './model/flat.js';
+import type { Build, Encoding, Equation } from './model/build.js';
+import type { Profile } from './physics/profile.js';
+import { excite, type Excitation } from './phases/excite.js';
+import { guard, mergeTerms, termsOf, type GuardMethod, type Minimiser } from './phases/guard.js';
+import { mapToParts, partsCost, type Mapped } from './phases/map/index.js';
+import { minimiseCover } from './phases/minimise-logic/index.js';
+import type { MinimiseOptions, MultiFunction, SopCover, Term } from './phases/minimise-logic/types.js';
+
+export interface SynthesisOptions {
+  readonly profile: Profile;
+  /** Unused codes are don't-cares (default) or go to this state index on every input. */
+  readonly unusedCodes?: 'dont-care' | number;
+  /** Outputs shown by an actuator instead of a flag: output name → load in grams. */
+  readonly actuators?: Readonly<Record<string, number>>;
+  /** The forbidden-input guard: one safe method, or 'auto' to keep the cheaper (default). */
+  readonly guard?: GuardMethod | 'auto';
+  /** The two-level minimiser (default: minimiseCover). */
+  readonly minimise?: Minimiser;
+  readonly minimiseOptions?: MinimiseOptions;
+}
+
+/** Build the lever machine of a flat machine under an encoding. */
+export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions): Build {
+  checkOptions(f, opts);
+  const encoding: Encoding = f.states.length === 1 ? { strategy: enc.strategy, bits: 0, codes: [''] } : enc;
+  const minimise = opts.minimise ?? minimiseCover;
+  const ex = excite(f, encoding, { unusedCodes: opts.unusedCodes });
+  const out = minimiseOutputs(ex, minimise, opts.minimiseOptions);
+  const cache = new Map<SopCover, Mapped>();
+  const mapWith = (sr: SopCover): Mapped => {
+    let m = cache.get(sr);
+    if (!m) {
+      m = mapToParts({
+        bits: ex.bits,
+        inputs: f.inputs,
+        outputs: f.outputs,
+        startCode: encoding.codes[f.start],
+        sr,
+        out,
+        actuators: opts.actuators,
+        profile: opts.profile,
+      });
+      cache.set(sr, m);
+    }
+    return m;
+  };
+  const g = guard(ex, {
+    method: opts.guard,
+    minimise,
+    minimiseOptions: opts.minimiseOptions,
+    price: (sr) => {
+      const c = mapWith(sr).parts;
+      return { gates: c.gates, cords: c.cords, cost: partsCost(c, opts.profile.cost) };
+    },
+  });
+  const mapped = mapWith(g.cover);
+  const equations: Equation[] = [];
+  for (let j = 0; j < ex.bits; j++) equations.push({ name: `S${j}`, terms: termsOf(g.cover, 2 * j) }, { name: `R${j}`, terms: termsOf(g.cover, 2 * j + 1) });
+  f.outputs.forEach((name, k) => equations.push({ name, terms: termsOf(out, k) }));
+  return { machine: f, encoding, vars: ex.vars, equations, guard: g.report, netlist: mapped.netlist, signals: mapped.signals, parts: mapped.parts };
+}
+
+/**
+ * Minimise the output functions. Constant outputs are settled without the minimiser; Moore
+ * outputs are minimised over the state bits alone (a code where the output is 1 under some
+ * input is 1 under all, which is allowed because it is never 0 there), so they decode slave
+ * bits only; Mealy outputs are minimised over bits and inputs. Identical terms are merged.
+ */
+export function minimiseOutputs(ex: Excitation, minimise: Minimiser, mopts?: MinimiseOptions): SopCover {
+  const vars = ex.bits + ex.inputs;
+  const terms: Term[] = [];
+  const moore: number[] = [], mealy: number[] = [];
+  ex.outputs.forEach((o, k) => {
+    if (o.on.length === 0) return; // constant 0: no term
+    if (o.off.length === 0) terms.push({ cube: '-'.repeat(vars), outputs: [k] });
+    else (o.moore ? moore : mealy).push(k);
+  });
+  if (moore.length > 0) {
+    const codes = (cs: readonly Cube[]): Cube[] => [...new Set(cs.map((c) => c.slice(0, ex.bits)))];
+    const fn: MultiFunction = {
+      vars: ex.bits,
+      on: moore.map((k) => codes(ex.outputs[k].on)),
+      dc: moore.map((k) => complement([...codes(ex.outputs[k].on), ...codes(ex.outputs[k].off)], ex.bits)),
+    };
+    const freeInputs = '-'.repeat(ex.inputs);
+    for (const t of minimise(fn, mopts).terms) terms.push({ cube: t.cube + freeInputs, outputs: t.outputs.map((i) => moore[i]) });
+  }
+  if (mealy.length > 0) {
+    const fn: MultiFunction = { vars, on: mealy.map((k) => ex.outputs[k].on), dc: mealy.map((k) => ex.outputs[k].dc) };
+    for (const t of minimise(fn, mopts).terms) terms.push({ cube: t.cube, outputs: t.outputs.map((i) => mealy[i]) });
+  }
+  return { vars, functions: ex.outputs.length, terms: mergeTerms(terms) };
+}
+
+/** Build options a user can get wrong become LW700 diagnostics. */
+function checkOptions(f: FlatMachine, opts: SynthesisOptions): void {
+  const u = opts.unusedCodes;
+  if (typeof u === 'number' && !(Number.isInteger(u) && u >= 0 && u < f.states.length)) {
+    throw new DiagnosticError([diag('LW700', `unused codes are sent to state number ${u}, but the machine has states 0…${f.states.length - 1}`, { path: '$.unusedCodes' }, 'name an existing state')]);
+  }
+  for (const [name, load] of Object.entries(opts.actuators ?? {})) {
+    if (!f.outputs.includes(name)) throw new DiagnosticError([diag('LW700', `actuator for '${name}', which is not an output of ${f.name}`, { path: `$.actuators.${name}` }, 'name one of: ' + f.outputs.join(', '))]);
+    if (!(Number.isFinite(load) && load >= 0)) throw new DiagnosticError([diag('LW700', `actuator load of '${name}' is ${load} g`, { path: `$.actuators.${name}` }, 'give a load in grams, 0 or more')]);
+  }
+}

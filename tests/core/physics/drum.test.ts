@@ -1,0 +1,63 @@
+import { describe, expect, it } from 'vitest';
+import { ALL_ENGAGED, drumLoad } from '../../../src/core/physics/drum.js';
+import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
+import { cord, gate, lever } from './netlists.js';
+
+// Lever L → one-port gate g1 → port a of gate g2; lever M → port b of g2. g2 drives no cord,
+// so three capstans turn on the drum: L, g1, M.
+const n = {
+  parts: [lever('L'), lever('M'), gate('g1', 1), gate('g2', 2, 'output')],
+  cords: [cord('cL', 'L', ['g1.a']), cord('c1', 'g1', ['g2.a']), cord('cM', 'M', ['g2.b'])],
+};
+
+// By hand, default profile: T_hold = 15 g × 9.80665 m/s² = 0.14709975 N; e^π − 1 = 22.14069263;
+// r = 0.04 m → one engaged capstan takes 0.14709975 × 22.14069263 × 0.04 = 0.13027561 N·m.
+// ω = 20 rev/min × 2π / 60 = 2.09439510 rad/s.
+const ONE = 0.13027561;
+const OMEGA = 2.0943951;
+
+describe('core/physics/drum', () => {
+  it('sums the torque of the engaged capstans per snapshot and finds the worst (hand arithmetic)', () => {
+    const d = drumLoad(n, DEFAULT_PROFILE, [
+      // Nothing pulled: L and M rest (output 0, cords pull), so g1's port is down, g1 = 1.
+      { label: 'rest', outputs: new Map([['L', 0], ['M', 0], ['g1', 1], ['g2', 1]]) },
+      // L pulled: L's cord slack, g1's port up, g1 = 0 (its cord pulls); M still pulls.
+      { label: 'L pulled', outputs: new Map([['L', 1], ['M', 0], ['g1', 0], ['g2', 1]]) },
+      { label: 'both pulled', outputs: new Map([['L', 1], ['M', 1], ['g1', 0], ['g2', 1]]) },
+    ]);
+    expect(d.capstans.map((c) => c.driver)).toEqual(['L', 'M', 'g1']);
+    expect(d.capstans[0].torqueNm).toBeCloseTo(ONE, 7);
+    expect(d.snapshots.map((s) => s.engaged)).toEqual([['L', 'M'], ['M', 'g1'], ['g1']]);
+    expect(d.snapshots[0].torqueNm).toBeCloseTo(2 * ONE, 7);
+    expect(d.snapshots[2].torqueNm).toBeCloseTo(ONE, 7);
+    expect(d.worst.label).toBe('rest'); // first of the equal worst cases
+    expect(d.worst.torqueNm).toBeCloseTo(0.26055123, 7);
+    expect(d.worst.powerW).toBeCloseTo(0.26055123 * OMEGA, 7);
+    expect(d.omegaRadS).toBeCloseTo(OMEGA, 7);
+  });
+
+  it('measures the drum from total wraps × pitch: 3 capstans × 2 wraps × 8 mm = 48 mm', () => {
+    const d = drumLoad(n, DEFAULT_PROFILE, []);
+    expect(d.totalWraps).toBe(6);
+    expect(d.drumLengthM).toBeCloseTo(0.048, 12);
+  });
+
+  it('takes every capstan as engaged when no snapshot is given', () => {
+    const d = drumLoad(n, DEFAULT_PROFILE, []);
+    expect(d.worst.label).toBe(ALL_ENGAGED);
+    expect(d.worst.torqueNm).toBeCloseTo(3 * ONE, 7);
+  });
+
+  it('counts a driver missing from a snapshot as engaged and says so', () => {
+    const d = drumLoad(n, DEFAULT_PROFILE, [{ label: 'partial', outputs: new Map([['L', 1]]) }]);
+    expect(d.snapshots[0].engaged).toEqual([]);
+    expect(d.snapshots[0].assumed).toEqual(['M', 'g1']);
+    expect(d.snapshots[0].torqueNm).toBeCloseTo(2 * ONE, 7);
+  });
+
+  it('uses the lever weight for a lever capstan and scales with the drum radius', () => {
+    const d = drumLoad(n, { ...DEFAULT_PROFILE, leverWeightG: 30, drumRadiusM: 0.08 }, []);
+    expect(d.capstans[0].torqueNm).toBeCloseTo(4 * ONE, 7);
+    expect(d.capstans[2].torqueNm).toBeCloseTo(2 * ONE, 7);
+  });
+});

@@ -1,0 +1,134 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { loadProfile, PROFILE_META_KEYS, PROFILE_RULES, SOURCE_KEYS } from '../../../src/core/physics/profile-load.js';
+import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
+
+const readJson = (rel: string): Record<string, unknown> => JSON.parse(readFileSync(new URL(rel, import.meta.url), 'utf8'));
+const defaultFile = readJson('../../../profiles/default.json');
+const schema = readJson('../../../schemas/profile.schema.json') as {
+  additionalProperties: boolean;
+  properties: Record<string, Record<string, unknown>>;
+  $defs: { routing: { properties: Record<string, Record<string, unknown>> } };
+};
+
+const errorsOf = (v: unknown) => loadProfile(v, 'shop.json').diagnostics;
+
+describe('core/physics/profile-load', () => {
+  it('gives the defaults for an empty override', () => {
+    expect(loadProfile({})).toEqual({ profile: DEFAULT_PROFILE, diagnostics: [] });
+  });
+
+  it('keeps profiles/default.json equal to DEFAULT_PROFILE', () => {
+    const { $schema, description, sources, ...values } = defaultFile;
+    expect(typeof $schema).toBe('string');
+    expect(typeof description).toBe('string');
+    expect(typeof sources).toBe('object');
+    expect(values).toEqual(DEFAULT_PROFILE);
+    expect(Object.keys(values)).toEqual(Object.keys(DEFAULT_PROFILE));
+    expect(loadProfile(defaultFile)).toEqual({ profile: DEFAULT_PROFILE, diagnostics: [] });
+  });
+
+  it('gives every field of default.json a source, marking the design figures "common practice"', () => {
+    const sources = defaultFile.sources as Record<string, string>;
+    expect(Object.keys(sources).sort()).toEqual([...SOURCE_KEYS].sort());
+    for (const s of Object.values(sources)) expect(s.trim().length).toBeGreaterThan(0);
+    // Design §4: 15 g per port, two wraps, μ = 0.25, margin 2 are common practice.
+    for (const k of ['portWeightG', 'wraps', 'mu', 'minMargin']) expect(sources[k]).toMatch(/^common practice/);
+  });
+
+  it('documents every field in docs/profile.md, with the same kind of source as default.json', () => {
+    const doc = readFileSync(new URL('../../../docs/profile.md', import.meta.url), 'utf8');
+    const sources = defaultFile.sources as Record<string, string>;
+    for (const k of SOURCE_KEYS) {
+      expect(doc, k).toContain(`\`${k}\``);
+      if (k.startsWith('cost.')) continue; // the cost weights share one row
+      const row = doc.split('\n').find((l) => l.startsWith(`| \`${k}\``));
+      expect(row, k).toBeDefined();
+      expect(row, k).toContain(sources[k].startsWith('estimate') ? 'estimate' : 'common practice');
+    }
+  });
+
+  it('merges nested objects field by field', () => {
+    const { profile } = loadProfile({ mu: 0.3, routing: { muPin: 0.35 }, cost: { gate: 9 } });
+    expect(profile?.mu).toBe(0.3);
+    expect(profile?.routing).toEqual({ ...DEFAULT_PROFILE.routing, muPin: 0.35 });
+    expect(profile?.cost).toEqual({ ...DEFAULT_PROFILE.cost, gate: 9 });
+    expect(profile?.wraps).toBe(2);
+  });
+
+  it('takes per-cord routing overrides', () => {
+    const { profile, diagnostics } = loadProfile({ cordRouting: { 'c.φ1': { pulleys: 2 } } });
+    expect(diagnostics).toEqual([]);
+    expect(profile?.cordRouting).toEqual({ 'c.φ1': { pulleys: 2 } });
+  });
+
+  it('rejects unknown fields with LW601 and a did-you-mean hint', () => {
+    const [d] = errorsOf({ mew: 0.3 });
+    expect(d).toMatchObject({ code: 'LW601', location: { file: 'shop.json', path: '$.mew' }, hint: "did you mean 'mu'?" });
+    expect(d.message).toContain("'mew'");
+    const [n] = errorsOf({ routing: { pulley: 1 } });
+    expect(n).toMatchObject({ code: 'LW601', location: { path: '$.routing.pulley' }, hint: "did you mean 'pulleys'?" });
+    expect(n.message).toContain("'routing.pulley'");
+    expect(errorsOf({ sources: { mue: 'estimate' } })[0]).toMatchObject({ code: 'LW601', hint: "did you mean 'mu'?" });
+    expect(loadProfile({ mew: 0.3 }).profile).toBeUndefined();
+  });
+
+  it.each([
+    ['portWeightG', -5], ['portWeightG', 0], ['zWeightG', 0], ['leverWeightG', -1], ['mu', 1.6], ['mu', 0], ['mu', -0.2],
+    ['minMargin', 0.9], ['wraps', 0], ['wraps', -2], ['maxPortsPerGate', 2.5], ['maxPortsPerGate', 0], ['maxCordsPerPort', 0],
+    ['stageDelaySpread', 1.2], ['stageDelaySpread', -0.1], ['stageDelayS', 0], ['drumRpm', 0], ['leverRatio', 0],
+    ['operatorExtraG', -1], ['mu', '0.25'], ['wraps', null],
+  ])('rejects %s = %j with LW600 naming the field', (field, value) => {
+    const ds = errorsOf({ [field]: value });
+    expect(ds).toHaveLength(1);
+    expect(ds[0]).toMatchObject({ code: 'LW600', severity: 'error', location: { file: 'shop.json', path: `$.${field}` } });
+    expect(ds[0].message).toContain(`'${field}'`);
+    expect(ds[0].hint).toBeTruthy();
+  });
+
+  it('rejects nested nonsense naming the nested field', () => {
+    const ds = errorsOf({ routing: { pulleyEfficiency: 1.5, pulleys: -1 }, cordRouting: { c1: { muPin: 9 } }, cost: { gate: -1 } });
+    expect(ds.map((d) => d.location.path)).toEqual(['$.routing.pulleyEfficiency', '$.routing.pulleys', '$.cordRouting.c1.muPin', '$.cost.gate']);
+    expect(ds.every((d) => d.code === 'LW600')).toBe(true);
+    expect(ds[0].message).toContain("'routing.pulleyEfficiency'");
+    expect(ds[2].message).toContain("'cordRouting.c1.muPin'");
+  });
+
+  it('treats names of built-in object members as unknown fields', () => {
+    const ds = errorsOf(JSON.parse('{"toString": 1, "routing": {"__proto__": 2}, "cost": {"constructor": 3}}'));
+    expect(ds.map((d) => [d.code, d.location.path])).toEqual([['LW601', '$.toString'], ['LW601', '$.routing.__proto__'], ['LW601', '$.cost.constructor']]);
+  });
+
+  it('rejects a value that is not an object with LW100', () => {
+    for (const v of [null, 3, 'mu', [1]]) expect(errorsOf(v)[0].code).toBe('LW100');
+  });
+
+  it('never throws, whatever JSON it is given (property)', () => {
+    fc.assert(
+      fc.property(fc.jsonValue(), fc.dictionary(fc.constantFrom(...Object.keys(DEFAULT_PROFILE), 'sources', 'mew', 'toString', '__proto__'), fc.jsonValue()), (a, b) => {
+        loadProfile(a);
+        const r = loadProfile(b);
+        return r.profile !== undefined || r.diagnostics.length > 0;
+      }),
+      { seed: 42, numRuns: 300 },
+    );
+  });
+
+  it('states the same fields and ranges in schemas/profile.schema.json as the loader checks', () => {
+    expect(schema.additionalProperties).toBe(false);
+    expect(Object.keys(schema.properties).sort()).toEqual([...Object.keys(DEFAULT_PROFILE), ...PROFILE_META_KEYS].sort());
+    for (const [path, rule] of Object.entries(PROFILE_RULES)) {
+      const [head, tail] = path.split('.');
+      const prop = tail === undefined ? schema.properties[head]
+        : head === 'routing' ? schema.$defs.routing.properties[tail]
+        : (schema.properties[head].properties as Record<string, Record<string, unknown>>)[tail];
+      expect(prop, path).toBeDefined();
+      expect(prop.type, path).toBe(rule.integer ? 'integer' : 'number');
+      expect(prop.minimum, path).toBe(rule.min !== undefined && !rule.exclusiveMin ? rule.min : undefined);
+      expect(prop.exclusiveMinimum, path).toBe(rule.exclusiveMin ? rule.min : undefined);
+      expect(prop.maximum, path).toBe(rule.max !== undefined && !rule.exclusiveMax ? rule.max : undefined);
+      expect(prop.exclusiveMaximum, path).toBe(rule.exclusiveMax ? rule.max : undefined);
+    }
+  });
+});
