@@ -8,8 +8,21 @@
  *
  * `onPhase` (optional) is told how long each phase took; the benchmarks use it.
  */
-import { hasErrors, type Diagnostic } from './model/diagnostics.js';
-import type { Machine } from './model/machine.js';
+import { DiagnosticError, diag, didYouMean, hasErrors, type Diagnostic } from './model/diagnostics.js';
+import type { Machine, SourceLoc } from './model/machine.js';
+import type { Build, CheckResult, Encoding } from './model/build.js';
+import { encode, ENCODINGS, type EncodeOptions, type EncodeResult, type EncodeStrategy } from './phases/encode/index.js';
+import { synthesise } from './synthesise.js';
+import { countParts, partsCost } from './phases/map/index.js';
+import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
+import { balanceDrive } from './physics/buffer-tree.js';
+import { checkDrive } from './physics/check-drive.js';
+import { checkForbiddenInput as checkForbiddenInputLogic, checkNextStateEquivalence } from './checks/logic.js';
+import { checkForbiddenInput } from './checks/forbidden-input.js';
+import { checkEquivalence } from './checks/equivalence.js';
+import { checkRecovery } from './checks/recovery.js';
+import { checkTiming } from './checks/timing.js';
+import { driveSnapshots } from './sim/snapshots.js';
 import type { FlatMachine } from './model/flat.js';
 import { readMachine, type MachineForm } from './forms/detect.js';
 import { validate } from './phases/validate.js';
@@ -59,4 +72,137 @@ export function analyse(text: string, file?: string, opts: AnalyseOptions = {}):
   const flat = valid.flat;
   const minimised = timed(opts, 'minimise-states', () => minimiseStates(flat));
   return { ok: true, form: parsed.form, machine, flat, minimised, diagnostics };
+}
+
+export interface BuildOptions extends AnalyseOptions {
+  /** A named encoding or a strategy function (default 'auto'). */
+  readonly encoding?: EncodeStrategy | ((f: FlatMachine, o: EncodeOptions) => Encoding);
+  readonly profile?: Profile;
+  readonly seed?: number;
+  /** 'dont-care' (default) or the name of a state every unused code is sent to. */
+  readonly unusedCodes?: string;
+  /** Outputs shown by an actuator: output name → load in grams. */
+  readonly actuators?: Readonly<Record<string, number>>;
+  readonly budget?: EncodeOptions['budget'];
+  readonly onProgress?: EncodeOptions['onProgress'];
+  /** Run the checks (default true); a comparison of encodings skips them. */
+  readonly checks?: boolean;
+}
+
+/** A machine that was built, with every check's result. */
+export interface Built {
+  readonly ok: true;
+  readonly analysed: Analysed;
+  readonly build: Build;
+  readonly search?: EncodeResult['search'];
+  readonly checks: readonly CheckResult[];
+  readonly profile: Profile;
+  readonly diagnostics: readonly Diagnostic[];
+}
+
+/** encode → synthesise (excite → guard → minimise logic → map) → balance drive → check. */
+export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Rejected {
+  const profile = opts.profile ?? DEFAULT_PROFILE;
+  const f = a.minimised.machine;
+  const unused = resolveUnused(a, opts.unusedCodes);
+  if (typeof unused === 'object') return { ok: false, form: a.form, diagnostics: [...a.diagnostics, unused] };
+  const synthOpts = { profile, unusedCodes: unused, actuators: opts.actuators };
+  const make = (enc: Encoding): Build => withDrive(synthesise(f, enc, synthOpts), profile);
+  try {
+    const encoded = timed(opts, 'encode', () =>
+      encode(f, opts.encoding ?? 'auto', {
+        ...pinnedCodes(a),
+        seed: opts.seed,
+        budget: opts.budget,
+        now: opts.now,
+        onProgress: opts.onProgress,
+        cost: (codes, bits) => partsCost(make({ strategy: 'candidate', bits, codes }).parts, profile.cost),
+      }),
+    );
+    const diagnostics = [...a.diagnostics, ...encoded.diagnostics];
+    if (!encoded.encoding || hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
+    const encoding = encoded.encoding;
+    const build = timed(opts, 'synthesise', () => make(encoding));
+    const checks = opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, opts.seed ?? 1));
+    return { ok: true, analysed: a, build, search: encoded.search, checks, profile, diagnostics };
+  } catch (e) {
+    if (e instanceof DiagnosticError) return { ok: false, form: a.form, diagnostics: [...a.diagnostics, ...e.diagnostics] };
+    throw e;
+  }
+}
+
+/** Replace the mapper's fixed fan-out limit by the capstan force budget (buffer trees where a margin fails). */
+function withDrive(b: Build, profile: Profile): Build {
+  const netlist = balanceDrive(b.netlist, profile);
+  return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
+}
+
+/** Every check, in the order reports show them. */
+export function runChecks(build: Build, a: Analysed, profile: Profile, seed: number): CheckResult[] {
+  const spec = { original: a.flat, merged: a.minimised.merged };
+  const logicSr = checkForbiddenInputLogic(build);
+  const partSr = checkForbiddenInput(build, profile);
+  return [
+    mergeForbidden(logicSr, partSr),
+    checkNextStateEquivalence(build),
+    checkEquivalence(build, spec, profile, { seed }),
+    checkRecovery(build, profile),
+    checkTiming(build, profile, { seed }),
+    checkDrive(build.netlist, profile, driveSnapshots(build, profile)),
+  ];
+}
+
+/** One `forbidden-input` result: the logic-level proof and the part-level sweep. */
+function mergeForbidden(logic: CheckResult, part: CheckResult): CheckResult {
+  return { ...part, name: 'forbidden-input', ok: logic.ok && part.ok, summary: `${logic.summary}; ${part.summary}`, logic };
+}
+
+function resolveUnused(a: Analysed, unused: string | undefined): 'dont-care' | number | Diagnostic {
+  if (unused === undefined || unused === 'dont-care') return 'dont-care';
+  const target = a.minimised.merged[unused];
+  const index = target === undefined ? -1 : a.minimised.machine.states.indexOf(target);
+  if (index >= 0) return index;
+  const guess = didYouMean(unused, a.machine.states.map((s) => s.name));
+  return diag('LW700', `unused codes are sent to '${unused}', which is not a reachable state`, { path: '--unused' }, guess ? `did you mean '${guess}'?` : "name a reachable state, or 'dont-care'");
+}
+
+/** Codes pinned on original states, carried to the states they merged into. */
+function pinnedCodes(a: Analysed): Pick<EncodeOptions, 'pinned' | 'pinnedAt'> {
+  const pinned: Record<string, string> = {};
+  const pinnedAt: Record<string, SourceLoc> = {};
+  for (const s of a.machine.states) {
+    const target = a.minimised.merged[s.name];
+    if (s.code === undefined || target === undefined || target in pinned) continue;
+    pinned[target] = s.code;
+    if (s.loc) pinnedAt[target] = s.loc;
+  }
+  return Object.keys(pinned).length > 0 ? { pinned, pinnedAt } : {};
+}
+
+/** One encoding's line in a comparison. */
+export interface EncodingRow {
+  readonly strategy: EncodeStrategy;
+  readonly ok: boolean;
+  readonly encoding?: Encoding;
+  readonly parts?: Build['parts'];
+  /** Gates that compute set/reset product terms (role 'term'). */
+  readonly termGates?: number;
+  readonly guard?: Build['guard'];
+  readonly cost?: number;
+  readonly cheapest: boolean;
+  readonly diagnostics: readonly Diagnostic[];
+}
+
+/** Every named encoding side by side (encode → synthesise → balance drive, no checks); the cheapest marked. */
+export function compareEncodings(a: Analysed, opts: BuildOptions = {}): EncodingRow[] {
+  const strategies = ENCODINGS.filter((s) => s !== 'pinned' || a.machine.states.some((st) => st.code !== undefined));
+  const rows = strategies.map((strategy) => {
+    const b = buildMachine(a, { ...opts, encoding: strategy, checks: false });
+    if (!b.ok) return { strategy, ok: false, diagnostics: b.diagnostics.filter((d) => d.severity === 'error') };
+    const profile = opts.profile ?? DEFAULT_PROFILE;
+    const termGates = b.build.netlist.parts.filter((p) => p.kind === 'gate' && p.role === 'term').length;
+    return { strategy, ok: true, encoding: b.build.encoding, parts: b.build.parts, termGates, guard: b.build.guard, cost: partsCost(b.build.parts, profile.cost), diagnostics: [] };
+  });
+  const best = Math.min(...rows.map((r) => r.cost ?? Infinity));
+  return rows.map((r) => ({ ...r, cheapest: r.cost === best }));
 }

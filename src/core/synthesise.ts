@@ -34,6 +34,11 @@ export interface SynthesisOptions {
   /** The two-level minimiser (default: minimiseCover). */
   readonly minimise?: Minimiser;
   readonly minimiseOptions?: MinimiseOptions;
+  /**
+   * Measure the guard's cost against an unguarded minimisation (default true). A search that
+   * only needs part counts passes false and saves one minimisation per call.
+   */
+  readonly guardBaseline?: boolean;
 }
 
 /** Build the lever machine of a flat machine under an encoding. */
@@ -65,6 +70,7 @@ export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions
     method: opts.guard,
     minimise,
     minimiseOptions: opts.minimiseOptions,
+    baseline: opts.guardBaseline,
     price: (sr) => {
       const c = mapWith(sr).parts;
       return { gates: c.gates, cords: c.cords, cost: partsCost(c, opts.profile.cost) };

@@ -1,24 +1,26 @@
 import { it } from 'vitest';
+import { DEFAULT_PROFILE } from '../../src/core/physics/profile.js';
 import { excite } from '../../src/core/phases/excite.js';
-import { splitFunction, unguardedFunction } from '../../src/core/phases/guard.js';
+import { splitFunction } from '../../src/core/phases/guard.js';
+import { minimiseOutputs } from '../../src/core/synthesise.js';
+import { mapToParts } from '../../src/core/phases/map/index.js';
 import { minimiseCover } from '../../src/core/phases/minimise-logic/index.js';
-import { randomEncoding, randomMachine } from './support/synthesis.js';
+import { binaryEncoding, fixture } from './support/synthesis.js';
 it('prof', () => {
-  const fs = [];
-  for (let seed = 0; seed < 25; seed++) {
-    const f = randomMachine(seed * 7919, { maxStates: 6, maxInputs: 3, maxOutputs: 0, incomplete: true });
-    const bits = Math.max(1, Math.ceil(Math.log2(f.states.length))) + (seed % 2);
-    const ex = excite(f, randomEncoding(f, bits, seed));
-    fs.push(splitFunction(ex), unguardedFunction(ex));
+  for (const name of ['lion', 'dk27', 'bbara', 'dk16', 'keyb']) {
+    const f = fixture(name); const enc = binaryEncoding(f);
+    const N = 20;
+    let ex: any, sr: any, out: any;
+    let t0 = performance.now();
+    for (let i = 0; i < N; i++) ex = excite(f, enc);
+    const te = (performance.now() - t0) / N;
+    sr = minimiseCover(splitFunction(ex)); out = minimiseOutputs(ex, minimiseCover);
+    t0 = performance.now();
+    for (let i = 0; i < N; i++) mapToParts({ bits: enc.bits, inputs: f.inputs, outputs: f.outputs, startCode: enc.codes[f.start], sr, out, profile: DEFAULT_PROFILE });
+    const tmap = (performance.now() - t0) / N;
+    t0 = performance.now();
+    for (let i = 0; i < N; i++) minimiseOutputs(ex, minimiseCover);
+    const to = (performance.now() - t0) / N;
+    console.log(name, 'excite', te.toFixed(3), 'map', tmap.toFixed(3), 'outputs-min', to.toFixed(2), 'ms');
   }
-  for (let rep = 0; rep < 3; rep++) {
-    for (const method of ['auto', 'heuristic', 'exact'] as const) {
-      const t0 = performance.now();
-      for (const f of fs) minimiseCover(f, { method });
-      console.log(rep, method, ((performance.now() - t0) / fs.length).toFixed(2), 'ms/call');
-    }
-  }
-  let worst = 0, wf;
-  for (const f of fs) { const t0 = performance.now(); minimiseCover(f); const t = performance.now() - t0; if (t > worst) { worst = t; wf = f; } }
-  console.log('worst', worst, wf!.vars, wf!.on.map(x => x.length), wf!.dc.map(x => x.length));
-});
+}, 120000);

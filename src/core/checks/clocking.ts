@@ -101,6 +101,17 @@ export function allCodes(bits: number): string[] {
   return out;
 }
 
+/** Up to `count` distinct seeded random codes of `bits` bits, none of them in `skip`. */
+export function randomCodes(bits: number, count: number, rnd: Random, skip: ReadonlySet<string> = new Set()): string[] {
+  const out = new Set<string>();
+  for (let tries = 0; out.size < count && tries < count * 4; tries++) {
+    let s = '';
+    for (let b = 0; b < bits; b++) s += rnd.next() < 0.5 ? '0' : '1';
+    if (!skip.has(s)) out.add(s);
+  }
+  return [...out];
+}
+
 /** `a=1 b=0` for an assignment. */
 export function describeInputs(inputs: readonly string[], assignment: string): string {
   return inputs.length === 0 ? '(no inputs)' : inputs.map((n, i) => `${n}=${assignment[i]}`).join(' ');

@@ -17,7 +17,7 @@
  * actions or `maxStates` machine states. The result says which applied.
  */
 import type { Build, CheckResult } from '../model/build.js';
-import { seededRandom, type Random } from '../model/random.js';
+import { seededRandom } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
 import {
   clockActions,
@@ -31,8 +31,8 @@ import {
   type HandAction,
   type OperatingRule,
 } from '../sim/hand.js';
-import { applyInPlace, isAlarm, powerUp, simFor, stateAtCode, stepSim, timingOf, type PartEvent, type PartSim } from '../sim/part.js';
-import { allCodes, clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, latchKey, sampledAssignments } from './clocking.js';
+import { applyInPlace, isAlarm, latchLabel, powerUp, simFor, stateAtCode, stepSim, timingOf, type PartEvent, type PartSim } from '../sim/part.js';
+import { allCodes, clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, latchKey, randomCodes, sampledAssignments } from './clocking.js';
 
 export interface ForbiddenInputOptions {
   readonly maxExhaustiveInputs?: number;
@@ -90,7 +90,7 @@ export function checkForbiddenInput(build: Build, profile: Pick<Profile, 'stageD
   const exhaustive = n <= (opts.maxExhaustiveInputs ?? EXHAUSTIVE_INPUTS);
   const tries = exhaustive ? grayAssignments(n) : sampledAssignments([...f.rows.flat().map((r) => r.cube), ...f.never], n, opts.samples ?? 256, rnd);
   const allFit = 2 ** bits * tries.length <= maxClocks;
-  const codes = allFit ? allCodes(bits) : sampleCodes(build, bits, Math.max(1, Math.floor(maxClocks / tries.length)), rnd);
+  const codes = allFit ? allCodes(bits) : [...build.encoding.codes, ...randomCodes(bits, Math.floor(maxClocks / tries.length) - build.encoding.codes.length, rnd, new Set(build.encoding.codes))];
   const freeMasters = 4 ** bits * tries.length <= maxClocks;
 
   let states = 0;
@@ -149,17 +149,6 @@ function runActions(sim: PartSim, values: Uint8Array, actions: readonly HandActi
   return events.filter(isAlarm);
 }
 
-/** The used codes plus seeded random unused ones, `count` in all. */
-function sampleCodes(build: Build, bits: number, count: number, rnd: Random): string[] {
-  const out = new Set(build.encoding.codes);
-  for (let tries = 0; out.size < count && tries < count * 4; tries++) {
-    let s = '';
-    for (let b = 0; b < bits; b++) s += rnd.next() < 0.5 ? '0' : '1';
-    out.add(s);
-  }
-  return [...out];
-}
-
 const UPSETS = new Set(['forbidden-input', 'latch-x', 'oscillation']);
 
 /** Breadth-first search for the shortest action sequence breaking `rule` (and only it) that upsets a latch. */
@@ -206,7 +195,7 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
       if (b && upset.length > 0) {
         const actions = path(i, a);
         const latches = [...new Set(upset.flatMap((e) => (e.latch ? [e.latch] : [])))];
-        const words = `${RULE_WORDS[rule]}: breaking it (${actions.map(describeAction).join(', ')}) upsets ${latches.length > 0 ? `latch ${latches.join(', ')}` : 'the machine'}: ${upset[0].words}`;
+        const words = `${RULE_WORDS[rule]}: breaking it (${actions.map(describeAction).join(', ')}) upsets ${latches.length > 0 ? latches.map(latchLabel).join(', ') : 'the machine'}: ${upset[0].words}`;
         return { rule, violation: actions, trace: describeTrace(actions), upsets: latches, words };
       }
       const key = keyOf(next.values, b);

@@ -17,7 +17,7 @@ import type { Build, CheckResult } from '../model/build.js';
 import { seededRandom } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
 import { simFor, stateAtCode, timingOf } from '../sim/part.js';
-import { allCodes, clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, sampledAssignments } from './clocking.js';
+import { allCodes, clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, randomCodes, sampledAssignments } from './clocking.js';
 
 export interface RecoveryOptions {
   /** Also try input combinations the spec declares impossible (default false). */
@@ -54,7 +54,7 @@ export function checkRecovery(build: Build, profile: Pick<Profile, 'stageDelayS'
   const keep = (a: string): boolean => opts.includeNever === true || !coverHolds(f.never, a);
   const tries = (exhaustive ? grayAssignments(n) : sampledAssignments(f.rows.flat().map((r) => r.cube), n, opts.samples ?? 64, rnd)).filter(keep);
   const everyCode = 2 ** bits <= maxCodes;
-  const start = everyCode ? allCodes(bits).filter((c) => !used.has(c)) : sampleUnused(bits, used, maxCodes, rnd);
+  const start = everyCode ? allCodes(bits).filter((c) => !used.has(c)) : randomCodes(bits, maxCodes, rnd, used);
 
   // Successors of each unused code: distinct next codes, each with the first inputs that lead there.
   const edges = new Map<string, { next: string; inputs: string; words?: string }[]>();
@@ -127,14 +127,4 @@ export function checkRecovery(build: Build, profile: Pick<Profile, 'stageDelayS'
     checked: everyCode && exhaustive ? 'all' : 'sampled',
     ...(loop ? { loop, hint: HINT } : {}),
   };
-}
-
-function sampleUnused(bits: number, used: ReadonlySet<string>, count: number, rnd: ReturnType<typeof seededRandom>): string[] {
-  const out = new Set<string>();
-  for (let tries = 0; out.size < count && tries < count * 4; tries++) {
-    let s = '';
-    for (let b = 0; b < bits; b++) s += rnd.next() < 0.5 ? '0' : '1';
-    if (!used.has(s)) out.add(s);
-  }
-  return [...out];
 }

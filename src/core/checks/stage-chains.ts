@@ -11,7 +11,8 @@
  * latches, since ports rising never flip one. A loop of gates that no latch closes is
  * reported instead of a time. The result is an upper bound on the settling time.
  */
-import { evalGate, X, type PartSim } from '../sim/compile.js';
+import { X, type PartSim } from '../sim/compile.js';
+import { evalGate } from '../sim/settle.js';
 
 /** The hand actions whose settling time the clock needs. */
 export type TimedAction = 'phi1' | 'phi1-release' | 'phi2' | 'phi2-release' | 'inputs' | 'reset';

@@ -114,6 +114,10 @@ export function checkTiming(build: Build, profile: Pick<Profile, 'stageDelayS' |
     monteCarlo,
   };
   if (p.loop) return { ...base, ok: false, summary: `the gates ${p.loop.join(' → ')} form a loop that no latch closes: the machine may never settle` };
+  if (sim.slaves.length === 0) {
+    const settleS = round(p.dead2.timeS, 0.01);
+    return { ...base, ok: monteCarlo.ok, summary: `no clock (one state): the outputs settle ${settleS} s after an input lever moves${monteCarlo.ok ? '' : `; but ${monteCarlo.race?.words ?? 'a Monte Carlo run differs'}`}` };
+  }
   if (turnS < clockS) {
     const chain = p.phi1.timeS >= p.phi2.timeS ? `φ1 chain ${p.phi1.parts.join(' → ')}` : `φ2 chain ${p.phi2.parts.join(' → ')}`;
     return { ...base, ok: false, summary: `a crank at ${crankRpm} turns per minute gives ${round(turnS, 0.01)} s per clock, but one clock needs ${round(clockS, 0.01)} s (longest: ${chain}); turn at most ${clocksPerMinute} per minute` };

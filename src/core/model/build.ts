@@ -46,6 +46,11 @@ export interface GuardReport {
   readonly extraGates: number;
   readonly extraCords: number;
   readonly method: string;
+  /**
+   * False when the unguarded baseline was skipped to save time (a search run): extraGates and
+   * extraCords are then 0 and say nothing. Absent or true: they are measured.
+   */
+  readonly compared?: boolean;
 }
 
 export interface PartCounts {

@@ -20,7 +20,9 @@
  *   S and R terms are minimised apart; identical cubes still share one gate.
  *
  * 'auto' builds both and keeps the cheaper by the caller's price (ties go to split-by-bit).
- * The unguarded minimisation (every don't-care free to both) is priced too, for the report.
+ * The unguarded minimisation (every don't-care free to both) is priced too, for the report:
+ * extraGates/extraCords = guarded − unguarded (negative when the guarded cover happens to map
+ * smaller — the minimiser is heuristic on large functions). A search may skip it (`baseline`).
  *
  * Proof: S_j·R_j = 0 over the whole space (all 2^bits codes × all input combinations, never
  * ones included) holds when every pair of cubes (s ∈ S_j, r ∈ R_j) is disjoint, a cube
@@ -52,6 +54,8 @@ export interface GuardOptions {
   readonly minimiseOptions?: MinimiseOptions;
   /** Prices a set/reset cover (function 2j = S_j, 2j+1 = R_j). */
   readonly price: (cover: SopCover) => Price;
+  /** Minimise the unguarded functions too, to measure the guard's cost (default true). */
+  readonly baseline?: boolean;
 }
 
 /** A failed proof: a point where S_j and R_j are both 1. */
@@ -146,13 +150,14 @@ export function guard(ex: Excitation, opts: GuardOptions): Guarded {
   // is kept only when nothing was proven, and then reported as not ok.
   priced.sort((a, b) => Number(b.proof.ok) - Number(a.proof.ok) || a.price.cost - b.price.cost);
   const best = priced[0];
-  const base = opts.price(opts.minimise(unguardedFunction(ex), mopts));
-  return {
-    cover: best.cover,
-    functions: best.functions,
-    proof: best.proof,
-    report: { ok: best.proof.ok, extraGates: best.price.gates - base.gates, extraCords: best.price.cords - base.cords, method: best.method },
-  };
+  const report: GuardReport =
+    opts.baseline === false
+      ? { ok: best.proof.ok, extraGates: 0, extraCords: 0, method: best.method, compared: false }
+      : (() => {
+          const base = opts.price(opts.minimise(unguardedFunction(ex), mopts));
+          return { ok: best.proof.ok, extraGates: best.price.gates - base.gates, extraCords: best.price.cords - base.cords, method: best.method };
+        })();
+  return { cover: best.cover, functions: best.functions, proof: best.proof, report };
 }
 
 /** The cubes of a cover that feed function `k`. */

@@ -64,6 +64,7 @@ export interface PartSim {
   /** Latches whose S̄ or R̄ reads driver d: watch[watchStart[d] .. watchStart[d+1]). */
   readonly watchStart: Int32Array;
   readonly watch: Int32Array;
+  /** Driver index of each control lever; -1 when the build has none (a one-state machine). */
   readonly phi1: number;
   readonly phi2: number;
   readonly reset: number;
@@ -181,37 +182,13 @@ export function compilePart(build: Build, timing: PartTiming): PartSim {
     latchOf,
     watchStart,
     watch,
-    phi1: need(sig.phi1, 'φ1 lever'),
-    phi2: need(sig.phi2, 'φ2 lever'),
-    reset: need(sig.reset, 'reset lever'),
+    phi1: sig.phi1 === '' ? -1 : need(sig.phi1, 'φ1 lever'),
+    phi2: sig.phi2 === '' ? -1 : need(sig.phi2, 'φ2 lever'),
+    reset: sig.reset === '' ? -1 : need(sig.reset, 'reset lever'),
     inputLevers: Int32Array.from(build.machine.inputs.map((i) => need(sig.inputs[i] ?? '', `lever of input ${i}`))),
     masters: Int32Array.from(sig.masters.map(latchAt)),
     slaves: Int32Array.from(sig.slaves.map(latchAt)),
     outputs,
     evaluations: 0,
   };
-}
-
-/** Value of one gate: NAND over its inputs in three-valued logic (any 0 → 1; all 1 → 0; else X). */
-export function evalGate(sim: PartSim, values: Uint8Array, d: number): Trit {
-  sim.evaluations++;
-  let unknown = false;
-  const end = sim.inStart[d + 1];
-  for (let k = sim.inStart[d]; k < end; k++) {
-    const v = values[sim.inputs[k]];
-    if (v === 0) return 1;
-    if (v === X) unknown = true;
-  }
-  return unknown ? X : 0;
-}
-
-/** AND of a list of drivers' values in three-valued logic (a latch's S̄ or R̄; empty → 1). */
-export function andOf(values: Uint8Array, ds: Int32Array): Trit {
-  let unknown = false;
-  for (let k = 0; k < ds.length; k++) {
-    const v = values[ds[k]];
-    if (v === 0) return 0;
-    if (v === X) unknown = true;
-  }
-  return unknown ? X : 1;
 }

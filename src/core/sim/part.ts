@@ -11,12 +11,12 @@
  */
 import type { Build } from '../model/build.js';
 import type { Profile } from '../physics/profile.js';
-import { compilePart, evalGate, X, type PartSim, type PartTiming, type Trit } from './compile.js';
+import { compilePart, X, type PartSim, type PartTiming, type Trit } from './compile.js';
 import { ruleBroken, RULE_WORDS, type HandAction, type InputValues } from './hand.js';
-import { settle, show, type PartEvent, type PartEventKind } from './settle.js';
+import { evalGate, settle, show, type PartEvent, type PartEventKind } from './settle.js';
 
 export { X, compilePart, type PartSim, type PartTiming, type Trit } from './compile.js';
-export { show, type PartEvent, type PartEventKind } from './settle.js';
+export { evalGate, latchLabel, show, type PartEvent, type PartEventKind } from './settle.js';
 
 /** Lever positions, gate outputs and time of a netlist. Treat as immutable. */
 export interface PartState {
@@ -87,7 +87,7 @@ const RULE_KIND: Readonly<Record<string, PartEventKind>> = {
 /** Apply an action to `values` in place; returns the settled time. Alarms go to `events`. */
 export function applyInPlace(sim: PartSim, values: Uint8Array, timeUs: number, a: HandAction, events: PartEvent[], trace = false): number {
   const [d, v] = leverOf(sim, a);
-  if (values[d] === v) return timeUs;
+  if (d < 0 || values[d] === v) return timeUs;
   const rule = ruleBroken(a, { phi1: values[sim.phi1] === 1, phi2: values[sim.phi2] === 1, reset: values[sim.reset] === 1 });
   if (rule) events.push({ kind: RULE_KIND[rule], timeS: timeUs / 1e6, rule, parts: [sim.names[d]], words: `operating rule broken (${RULE_WORDS[rule]}): ${sim.names[d]} moved` });
   values[d] = v;

@@ -15,7 +15,7 @@
  * Preconditions: `values` holds a value per driver; levers are binary. Postconditions:
  * `values` is settled (no gate's value differs from its evaluation, except X left by a race).
  */
-import { andOf, evalGate, X, type PartSim, type Trit } from './compile.js';
+import { X, type PartSim, type Trit } from './compile.js';
 import type { OperatingRule } from './hand.js';
 
 export type PartEventKind =
@@ -42,6 +42,8 @@ export interface PartEvent {
 }
 
 const NONE = -1;
+/** X, held locally so that the hot loops read no imported binding. */
+const UNKNOWN = 2;
 
 interface Scratch {
   pendVal: Int8Array;
@@ -51,6 +53,15 @@ interface Scratch {
   heapT: Float64Array;
   heapG: Int32Array;
   size: number;
+  /** Gates to evaluate first, and the changes of one instant. */
+  first: Int32Array;
+  changed: Int32Array;
+  newVal: Uint8Array;
+  /** Per latch: the settle call that last reported it, and that last saw it race or go X. */
+  reportedIn: Int32Array;
+  racedIn: Int32Array;
+  wentXIn: Int32Array;
+  call: number;
 }
 
 const scratches = new WeakMap<PartSim, Scratch>();
@@ -59,6 +70,7 @@ function scratchOf(sim: PartSim): Scratch {
   let s = scratches.get(sim);
   if (!s) {
     const n = sim.driverCount;
+    const l = sim.latches.length;
     s = {
       pendVal: new Int8Array(n).fill(NONE),
       pendTime: new Float64Array(n),
@@ -67,6 +79,13 @@ function scratchOf(sim: PartSim): Scratch {
       heapT: new Float64Array(Math.max(16, n * 2)),
       heapG: new Int32Array(Math.max(16, n * 2)),
       size: 0,
+      first: new Int32Array(n),
+      changed: new Int32Array(n),
+      newVal: new Uint8Array(n),
+      reportedIn: new Int32Array(l),
+      racedIn: new Int32Array(l),
+      wentXIn: new Int32Array(l),
+      call: 0,
     };
     scratches.set(sim, s);
   }
@@ -82,35 +101,69 @@ function push(s: Scratch, t: number, g: number): void {
     s.heapT = t2;
     s.heapG = g2;
   }
+  const heapT = s.heapT;
+  const heapG = s.heapG;
   let i = s.size++;
   while (i > 0) {
     const p = (i - 1) >> 1;
-    if (s.heapT[p] <= t) break;
-    s.heapT[i] = s.heapT[p];
-    s.heapG[i] = s.heapG[p];
+    if (heapT[p] <= t) break;
+    heapT[i] = heapT[p];
+    heapG[i] = heapG[p];
     i = p;
   }
-  s.heapT[i] = t;
-  s.heapG[i] = g;
+  heapT[i] = t;
+  heapG[i] = g;
 }
 
 function pop(s: Scratch): number {
-  const g = s.heapG[0];
-  const lastT = s.heapT[--s.size];
-  const lastG = s.heapG[s.size];
+  const heapT = s.heapT;
+  const heapG = s.heapG;
+  const g = heapG[0];
+  const size = --s.size;
+  const lastT = heapT[size];
+  const lastG = heapG[size];
   let i = 0;
   for (;;) {
     let c = 2 * i + 1;
-    if (c >= s.size) break;
-    if (c + 1 < s.size && s.heapT[c + 1] < s.heapT[c]) c++;
-    if (s.heapT[c] >= lastT) break;
-    s.heapT[i] = s.heapT[c];
-    s.heapG[i] = s.heapG[c];
+    if (c >= size) break;
+    if (c + 1 < size && heapT[c + 1] < heapT[c]) c++;
+    if (heapT[c] >= lastT) break;
+    heapT[i] = heapT[c];
+    heapG[i] = heapG[c];
     i = c;
   }
-  s.heapT[i] = lastT;
-  s.heapG[i] = lastG;
+  heapT[i] = lastT;
+  heapG[i] = lastG;
   return g;
+}
+
+/** NAND over the inputs of driver d in three-valued logic (any 0 → 1; all 1 → 0; else X). */
+function nand(inStart: Int32Array, inputs: Int32Array, values: Uint8Array, d: number): number {
+  let unknown = false;
+  const end = inStart[d + 1];
+  for (let k = inStart[d]; k < end; k++) {
+    const v = values[inputs[k]];
+    if (v === 0) return 1;
+    if (v === UNKNOWN) unknown = true;
+  }
+  return unknown ? UNKNOWN : 0;
+}
+
+/** Value of one gate: NAND over its inputs in three-valued logic. */
+export function evalGate(sim: PartSim, values: Uint8Array, d: number): Trit {
+  sim.evaluations++;
+  return nand(sim.inStart, sim.inputs, values, d) as Trit;
+}
+
+/** AND of a list of drivers' values in three-valued logic (a latch's S̄ or R̄; empty → 1). */
+export function andOf(values: Uint8Array, ds: Int32Array): Trit {
+  let unknown = false;
+  for (let k = 0; k < ds.length; k++) {
+    const v = values[ds[k]];
+    if (v === 0) return 0;
+    if (v === UNKNOWN) unknown = true;
+  }
+  return unknown ? X : 1;
 }
 
 /** Bound on part changes in one settle before it counts as an oscillation. */
@@ -125,79 +178,91 @@ export function changeBound(sim: PartSim): number {
  */
 export function settle(sim: PartSim, values: Uint8Array, timeUs: number, moved: readonly number[], events: PartEvent[], trace = false): number {
   const s = scratchOf(sim);
-  const wasX = sim.latches.map((l) => values[l.set] === X || values[l.reset] === X);
-  const reported = new Set<number>();
-  const raced = new Set<number>();
+  const { fanStart, fanout, latchOf, leverCount } = sim;
+  const { pendVal, pendTime, stamp, changed, newVal } = s;
+  const call = ++s.call;
+  let evaluations = 0;
   let t = timeUs;
-  s.epoch++;
-  const first: number[] = [];
+  let wentX = false;
+
+  let epoch = ++s.epoch;
+  let count = 0;
   for (const d of moved) {
-    if (d >= sim.leverCount && s.stamp[d] !== s.epoch) {
-      s.stamp[d] = s.epoch;
-      first.push(d);
+    if (d >= leverCount && stamp[d] !== epoch) {
+      stamp[d] = epoch;
+      s.first[count++] = d;
     }
-    for (let k = sim.fanStart[d]; k < sim.fanStart[d + 1]; k++) {
-      const g = sim.fanout[k];
-      if (s.stamp[g] !== s.epoch) {
-        s.stamp[g] = s.epoch;
-        first.push(g);
+    for (let k = fanStart[d]; k < fanStart[d + 1]; k++) {
+      const g = fanout[k];
+      if (stamp[g] !== epoch) {
+        stamp[g] = epoch;
+        s.first[count++] = g;
       }
     }
   }
-  for (const g of first) schedule(sim, s, values, g, t);
-  checkForbidden(sim, values, moved, t, reported, events);
+  for (let i = 0; i < count; i++) schedule(sim, s, values, s.first[i], t);
+  evaluations += count;
+  checkForbidden(sim, s, values, moved, moved.length, t, events);
 
   const bound = changeBound(sim);
   let changes = 0;
-  const changed: number[] = [];
-  const newVal: number[] = [];
   while (s.size > 0) {
     t = s.heapT[0];
-    changed.length = 0;
-    newVal.length = 0;
+    let n = 0;
+    let latchGates = 0;
     while (s.size > 0 && s.heapT[0] === t) {
       const g = pop(s);
-      if (s.pendVal[g] !== NONE && s.pendTime[g] === t) {
-        changed.push(g);
-        newVal.push(s.pendVal[g]);
-        s.pendVal[g] = NONE;
+      if (pendVal[g] !== NONE && pendTime[g] === t) {
+        changed[n] = g;
+        newVal[n++] = pendVal[g];
+        pendVal[g] = NONE;
+        if (latchOf[g] >= 0) latchGates++;
       }
     }
-    raceToX(sim, changed, newVal, raced);
-    for (let i = 0; i < changed.length; i++) {
-      values[changed[i]] = newVal[i];
-      if (trace) events.push({ kind: 'change', timeS: t / 1e6, words: `${sim.names[changed[i]]} → ${show(newVal[i])}`, parts: [sim.names[changed[i]]], value: newVal[i] as Trit });
+    if (latchGates >= 2) raceToX(sim, s, n, call);
+    for (let i = 0; i < n; i++) {
+      const g = changed[i];
+      if (newVal[i] === UNKNOWN && latchOf[g] >= 0 && values[g] !== UNKNOWN) {
+        s.wentXIn[latchOf[g]] = call;
+        wentX = true;
+      }
+      values[g] = newVal[i];
+      if (trace) events.push({ kind: 'change', timeS: t / 1e6, words: `${sim.names[g]} → ${show(newVal[i])}`, parts: [sim.names[g]], value: newVal[i] as Trit });
     }
-    changes += changed.length;
-    s.epoch++;
-    for (const d of changed) {
-      for (let k = sim.fanStart[d]; k < sim.fanStart[d + 1]; k++) {
-        const g = sim.fanout[k];
-        if (s.stamp[g] !== s.epoch) {
-          s.stamp[g] = s.epoch;
+    changes += n;
+    epoch = ++s.epoch;
+    for (let i = 0; i < n; i++) {
+      const d = changed[i];
+      for (let k = fanStart[d]; k < fanStart[d + 1]; k++) {
+        const g = fanout[k];
+        if (stamp[g] !== epoch) {
+          stamp[g] = epoch;
           schedule(sim, s, values, g, t);
+          evaluations++;
         }
       }
     }
-    checkForbidden(sim, values, changed, t, reported, events);
+    checkForbidden(sim, s, values, changed, n, t, events);
     if (changes > bound) {
       oscillate(sim, s, values, t, events);
+      wentX = true;
       break;
     }
   }
-  sim.latches.forEach((l, li) => {
-    if (wasX[li] || (values[l.set] !== X && values[l.reset] !== X)) return;
-    const why = raced.has(li)
-      ? 'both its inputs were released together from the forbidden input'
-      : 'an input it reads is undetermined';
-    events.push({ kind: 'latch-x', timeS: t / 1e6, latch: l.name, words: `latch ${l.name} is left undetermined (X): ${why}` });
-  });
+  sim.evaluations += evaluations;
+  if (wentX) {
+    sim.latches.forEach((l, li) => {
+      if (s.wentXIn[li] !== call || (values[l.set] !== UNKNOWN && values[l.reset] !== UNKNOWN)) return;
+      const why = s.racedIn[li] === call ? 'both its inputs were released together from the forbidden input' : 'it oscillates or reads an undetermined input';
+      events.push({ kind: 'latch-x', timeS: t / 1e6, latch: l.name, words: `${latchLabel(l.name)} is left undetermined (X): ${why}` });
+    });
+  }
   return t;
 }
 
-/** Inertial scheduling of gate g's new value at time t. */
+/** Inertial scheduling of gate g at time t: a pending change the gate no longer wants is dropped. */
 function schedule(sim: PartSim, s: Scratch, values: Uint8Array, g: number, t: number): void {
-  const v = evalGate(sim, values, g);
+  const v = nand(sim.inStart, sim.inputs, values, g);
   if (v === values[g]) s.pendVal[g] = NONE;
   else if (s.pendVal[g] !== v) {
     s.pendVal[g] = v;
@@ -207,31 +272,34 @@ function schedule(sim: PartSim, s: Scratch, values: Uint8Array, g: number, t: nu
 }
 
 /** Both gates of a latch switching together to the same value: the latch's memory is lost (X). */
-function raceToX(sim: PartSim, changed: number[], newVal: number[], raced: Set<number>): void {
-  if (changed.length < 2) return;
-  for (let i = 0; i < changed.length; i++) {
+function raceToX(sim: PartSim, s: Scratch, n: number, call: number): void {
+  const { changed, newVal } = s;
+  for (let i = 0; i < n; i++) {
     const li = sim.latchOf[changed[i]];
-    if (li < 0 || newVal[i] === X) continue;
+    if (li < 0 || newVal[i] === UNKNOWN) continue;
     const l = sim.latches[li];
     const partner = changed[i] === l.set ? l.reset : l.set;
-    const j = changed.indexOf(partner);
-    if (j >= 0 && newVal[j] === newVal[i]) {
-      newVal[i] = X;
-      newVal[j] = X;
-      raced.add(li);
+    for (let j = 0; j < n; j++) {
+      if (changed[j] === partner && newVal[j] === newVal[i]) {
+        newVal[i] = UNKNOWN;
+        newVal[j] = UNKNOWN;
+        s.racedIn[li] = call;
+      }
     }
   }
 }
 
-function checkForbidden(sim: PartSim, values: Uint8Array, changed: readonly number[], t: number, reported: Set<number>, events: PartEvent[]): void {
-  for (const d of changed) {
-    for (let k = sim.watchStart[d]; k < sim.watchStart[d + 1]; k++) {
-      const li = sim.watch[k];
-      if (reported.has(li)) continue;
+function checkForbidden(sim: PartSim, s: Scratch, values: Uint8Array, changed: ArrayLike<number>, n: number, t: number, events: PartEvent[]): void {
+  const { watchStart, watch } = sim;
+  for (let i = 0; i < n; i++) {
+    const d = changed[i];
+    for (let k = watchStart[d]; k < watchStart[d + 1]; k++) {
+      const li = watch[k];
+      if (s.reportedIn[li] === s.call) continue;
       const l = sim.latches[li];
       if (andOf(values, l.sBar) === 0 && andOf(values, l.rBar) === 0) {
-        reported.add(li);
-        events.push({ kind: 'forbidden-input', timeS: t / 1e6, latch: l.name, words: `latch ${l.name} sees the forbidden input: S̄ and R̄ are pulled at once` });
+        s.reportedIn[li] = s.call;
+        events.push({ kind: 'forbidden-input', timeS: t / 1e6, latch: l.name, words: `${latchLabel(l.name)} sees the forbidden input: S̄ and R̄ are pulled at once` });
       }
     }
   }
@@ -239,11 +307,12 @@ function checkForbidden(sim: PartSim, values: Uint8Array, changed: readonly numb
 
 /** Give up on event order: the switching gates go X, then the ternary fixpoint (algorithms A and B). */
 function oscillate(sim: PartSim, s: Scratch, values: Uint8Array, t: number, events: PartEvent[]): void {
+  const binary = sim.latches.map((l) => values[l.set] !== UNKNOWN && values[l.reset] !== UNKNOWN);
   const switching: number[] = [];
   for (let g = sim.leverCount; g < sim.driverCount; g++) {
     if (s.pendVal[g] !== NONE) {
       switching.push(g);
-      values[g] = X;
+      values[g] = UNKNOWN;
       s.pendVal[g] = NONE;
     }
   }
@@ -251,8 +320,8 @@ function oscillate(sim: PartSim, s: Scratch, values: Uint8Array, t: number, even
   for (let again = true; again; ) {
     again = false;
     for (let g = sim.leverCount; g < sim.driverCount; g++) {
-      if (values[g] !== X && evalGate(sim, values, g) !== values[g]) {
-        values[g] = X;
+      if (values[g] !== UNKNOWN && evalGate(sim, values, g) !== values[g]) {
+        values[g] = UNKNOWN;
         again = true;
       }
     }
@@ -267,12 +336,20 @@ function oscillate(sim: PartSim, s: Scratch, values: Uint8Array, t: number, even
       }
     }
   }
+  sim.latches.forEach((l, li) => {
+    if (binary[li] && (values[l.set] === UNKNOWN || values[l.reset] === UNKNOWN)) s.wentXIn[li] = s.call;
+  });
   const names = switching.map((g) => sim.names[g]);
   const shown = names.slice(0, 6).join(', ') + (names.length > 6 ? ` and ${names.length - 6} more` : '');
   events.push({ kind: 'oscillation', timeS: t / 1e6, parts: names, words: `the machine does not settle: ${shown} keep switching (left X)` });
 }
 
+/** "latch M0" for a bare name; a name that already says latch is kept as it is. */
+export function latchLabel(name: string): string {
+  return /latch/i.test(name) ? name : `latch ${name}`;
+}
+
 /** A value as shown to people: 0, 1 or X. */
 export function show(v: number): string {
-  return v === X ? 'X' : String(v);
+  return v === UNKNOWN ? 'X' : String(v);
 }

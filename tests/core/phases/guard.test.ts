@@ -88,7 +88,7 @@ describe('core/phases/guard', () => {
         const s = splitFunction(ex);
         for (let j = 0; j < bits; j++) expect(intersectCovers([...s.on[2 * j], ...s.dc[2 * j]], [...s.on[2 * j + 1], ...s.dc[2 * j + 1]])).toEqual([]);
       }),
-      { seed: 42, numRuns: 25 },
+      { seed: 42, numRuns: 15 },
     );
   });
 

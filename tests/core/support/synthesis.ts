@@ -230,3 +230,131 @@ export function satEquivalent(b: Build): boolean {
   });
   return unsat(Logic.or(...wrong));
 }
+
+/** Settled values of a netlist (levers given, latch outputs held at given Q values). */
+export interface Settled {
+  /** Signal of every lever and gate (its capstan output as a value: 0 while its cord pulls). */
+  readonly signal: Map<string, 0 | 1>;
+  /** A gate's Z (AND of its ports). */
+  z(gate: string): 0 | 1;
+  /** A port's value (AND of the cords tied to it; 1 with none). */
+  port(gate: string, port: string): 0 | 1;
+  /** What a machine output shows (flag or actuator). */
+  shows(partId: string): 0 | 1;
+}
+
+/**
+ * Settle the gates of a netlist by the model of model/netlist.ts: a port is the AND of its
+ * cords, Z is the AND of the ports, a gate's signal is NOT Z, a lever's signal is 1 when
+ * pulled; latch gates are held at Q / NOT Q. A reference evaluator for the tests, written
+ * from the model, not from the mapper.
+ */
+export function settle(n: Netlist, levers: Readonly<Record<string, 0 | 1>>, latchQ: Readonly<Record<string, 0 | 1>>): Settled {
+  const parts = new Map(n.parts.map((p) => [p.id, p]));
+  const signal = new Map<string, 0 | 1>();
+  const held = new Set<string>();
+  for (const p of n.parts) {
+    if (p.kind === 'lever') signal.set(p.id, levers[p.id] ?? 0);
+    if (p.kind === 'latch') {
+      const q = latchQ[p.id] ?? 0;
+      signal.set(p.setGate, q);
+      signal.set(p.resetGate, q === 1 ? 0 : 1);
+      held.add(p.setGate).add(p.resetGate);
+    }
+  }
+  const tiedTo = new Map<string, string[]>();
+  for (const c of n.cords) for (const p of c.ports) tiedTo.set(`${p.part}.${p.port}`, [...(tiedTo.get(`${p.part}.${p.port}`) ?? []), c.driver]);
+  const port = (g: string, q: string): 0 | 1 => ((tiedTo.get(`${g}.${q}`) ?? []).every((d) => signal.get(d) === 1) ? 1 : 0);
+  const z = (g: string): 0 | 1 => {
+    const gate = parts.get(g);
+    if (gate?.kind !== 'gate') throw new Error(`no gate ${g}`);
+    return gate.ports.every((q) => port(g, q.name) === 1) ? 1 : 0;
+  };
+  const gates = n.parts.filter((p) => p.kind === 'gate' && !held.has(p.id));
+  for (const g of gates) signal.set(g.id, 1);
+  for (let round = 0; round <= gates.length; round++) {
+    let changed = false;
+    for (const g of gates) {
+      const v = z(g.id) === 1 ? 0 : 1;
+      if (signal.get(g.id) !== v) (signal.set(g.id, v), (changed = true));
+    }
+    if (!changed) break;
+  }
+  const shows = (id: string): 0 | 1 => {
+    const p = parts.get(id);
+    if (p?.kind === 'flag') return p.fixed ?? ((z(p.gate) === 1) !== p.inverted ? 1 : 0);
+    if (p?.kind === 'actuator') {
+      if (p.fixed !== undefined) return p.fixed;
+      // Pulled while any cord tied to it pulls, i.e. while its driver's signal is 0.
+      return n.cords.some((c) => c.actuators.includes(id) && signal.get(c.driver) === 0) ? 1 : 0;
+    }
+    throw new Error(`no flag or actuator ${id}`);
+  };
+  return { signal, z, port, shows };
+}
+
+/**
+ * Settle the build's netlist at every used code × every input combination (small machines
+ * only) and compare with its equations: with φ1 pulled, each master's S̄ (R̄) ports read
+ * NOT S_j (NOT R_j), and read 1 with φ1 released; with φ2 pulled, each slave's S̄ reads
+ * NOT M_j and R̄ reads M_j; with reset pulled, exactly the start code's side is held at 0;
+ * every flag or actuator shows its output's equation. Returns the first mismatch in words.
+ */
+export function polarityMismatch(b: Build): string | null {
+  const bits = b.encoding.bits;
+  const sig = b.signals;
+  const n = b.netlist;
+  const latchGate = (id: string, side: 'set' | 'reset'): string => {
+    const l = n.parts.find((p) => p.id === id);
+    if (l?.kind !== 'latch') throw new Error(`no latch ${id}`);
+    return side === 'set' ? l.setGate : l.resetGate;
+  };
+  const sideBar = (s: Settled, latch: string, side: 'set' | 'reset'): 0 | 1 => {
+    const g = latchGate(latch, side);
+    const gate = n.parts.find((p) => p.id === g);
+    if (gate?.kind !== 'gate') throw new Error(`no gate ${g}`);
+    return gate.ports.filter((q) => q.name !== 'fb').every((q) => s.port(g, q.name) === 1) ? 1 : 0;
+  };
+  const ni = b.machine.inputs.length;
+  for (const code of b.encoding.codes)
+    for (let m = 0; m < 2 ** ni; m++) {
+      const x = m.toString(2).padStart(ni, '0').slice(-ni || 0);
+      const xs = ni === 0 ? '' : x;
+      const point = code + xs;
+      const levers: Record<string, 0 | 1> = {};
+      b.machine.inputs.forEach((name, i) => (levers[sig.inputs[name]] = xs[i] === '1' ? 1 : 0));
+      const slaves: Record<string, 0 | 1> = {};
+      for (let j = 0; j < bits; j++) slaves[sig.slaves[j]] = code[j] === '1' ? 1 : 0;
+      const on = settle(n, { ...levers, [sig.phi1]: 1 }, slaves);
+      const off = settle(n, levers, slaves);
+      for (let j = 0; j < bits; j++) {
+        const S = coverHoldsAt(b.equations[2 * j].terms, point), R = coverHoldsAt(b.equations[2 * j + 1].terms, point);
+        if (sideBar(on, sig.masters[j], 'set') !== 1 - S) return `S̄ of ${sig.masters[j]} at ${point}`;
+        if (sideBar(on, sig.masters[j], 'reset') !== 1 - R) return `R̄ of ${sig.masters[j]} at ${point}`;
+        if (sideBar(off, sig.masters[j], 'set') !== 1 || sideBar(off, sig.masters[j], 'reset') !== 1) return `master ${j} driven without φ1 at ${point}`;
+      }
+      for (let k = 0; k < b.machine.outputs.length; k++) {
+        const want = coverHoldsAt(b.equations[2 * bits + k].terms, point);
+        for (const s of [on, off]) if (s.shows(sig.outputs[b.machine.outputs[k]]) !== want) return `output ${b.machine.outputs[k]} at ${point}`;
+      }
+    }
+  for (let j = 0; j < bits; j++)
+    for (const mq of [0, 1] as const) {
+      const s = settle(n, { [sig.phi2]: 1 }, { [sig.masters[j]]: mq });
+      if (sideBar(s, sig.slaves[j], 'set') !== 1 - mq || sideBar(s, sig.slaves[j], 'reset') !== mq) return `transfer into ${sig.slaves[j]} with M = ${mq}`;
+    }
+  if (bits > 0) {
+    const r = settle(n, { [sig.reset]: 1 }, {});
+    const start = b.encoding.codes[b.machine.start];
+    for (let j = 0; j < bits; j++)
+      for (const l of [sig.masters[j], sig.slaves[j]]) {
+        const want = start[j] === '1' ? [0, 1] : [1, 0];
+        if (sideBar(r, l, 'set') !== want[0] || sideBar(r, l, 'reset') !== want[1]) return `reset of ${l}`;
+      }
+  }
+  return null;
+}
+
+function coverHoldsAt(cover: readonly Cube[], point: string): 0 | 1 {
+  return cover.some((c) => [...c].every((ch, i) => ch === '-' || ch === point[i])) ? 1 : 0;
+}

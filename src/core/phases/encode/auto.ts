@@ -2,13 +2,19 @@
  * Automatic encoding: the assignment that minimises the caller's cost (the finished build's
  * weighted part count), searched in three steps that share one memo and one budget:
  *
- * 1. the named strategies (binary, Gray, Johnson, one-hot; codes up to 24 bits), so the
- *    answer is never worse than the best of them — and ties go to them, being easier to read;
+ * 1. the named strategies (binary, Gray, Johnson, one-hot) whose codes are at most three
+ *    bits longer than the minimum, so the answer is never worse than the best of them and
+ *    ties go to them, being easier to read (longer codes are slow to price and never won in
+ *    our measurements);
  * 2. at the fewest bits that fit (or the pinned codes' length): every assignment up to the
- *    cube's symmetries (symmetry.ts) when their number fits the remaining budget — all
- *    machines up to 8 states at the default budget —, else simulated annealing (anneal.ts);
+ *    cube's symmetries (symmetry.ts) when their number fits the budget, else simulated
+ *    annealing (anneal.ts);
  * 3. when step 2 was exhaustive and nothing is pinned: one bit more, if its classes also fit
  *    what is left of the budget (in practice up to 4 states).
+ *
+ * The budget is an evaluation count, a deadline on the caller's clock, or (by default)
+ * DEFAULT_SEARCH: exhaustive when there are at most 500 classes (every machine up to 6
+ * states), else 120 annealing evaluations.
  *
  * Precondition: the cost is the same for assignments that differ by a cube symmetry (true of
  * the SR build, where Q and Q̄ are both free); only one assignment per class is priced.
@@ -33,8 +39,10 @@ import { assignmentClasses, MAX_SYMMETRY_BITS } from './symmetry.js';
 export interface AutoReport {
   /** Cost evaluations made (distinct symmetry classes priced). */
   readonly evaluations: number;
-  /** 'exhaustive' when every class at the main code length was priced, else 'annealing'. */
+  /** 'exhaustive' when the classes at the main code length were listed for pricing, else 'annealing'. */
   readonly method: 'exhaustive' | 'annealing';
+  /** False when a deadline cut an exhaustive search short. */
+  readonly complete: boolean;
   /** Classes at the main code length, when they were counted in full. */
   readonly classes?: number;
   /** Whether assignments with one bit more were tried as well. */
@@ -45,12 +53,24 @@ export interface AutoReport {
 export interface AutoOptions {
   readonly cost: CostFn;
   readonly seed: number;
-  readonly maxEvaluations: number;
+  /** Most cost evaluations; undefined for DEFAULT_SEARCH (or, with a deadline, no count limit). */
+  readonly maxEvaluations?: number;
   readonly deadline?: number;
   readonly now?: () => number;
   readonly onProgress?: (p: Progress) => void;
 }
 
+/**
+ * The default budget: price every class when there are at most `exhaustiveClasses` (all
+ * machines up to 6 states: 420 classes at most, McCluskey & Unger), else anneal for
+ * `annealingEvaluations`. Sized on the LGSynth'91 machines of 13–14 states, where one
+ * evaluation of the full synthesis took about 30–40 ms (measured; 6-state machines about
+ * 5–10 ms), so either way the search stays near 4 s.
+ */
+export const DEFAULT_SEARCH = { exhaustiveClasses: 500, annealingEvaluations: 120 } as const;
+
+/** Named strategies are priced only when their codes are at most this many bits longer than the minimum. */
+const NAMED_EXTRA_BITS = 3;
 /** Never enumerate more classes than this, whatever the budget (a time-bounded search would otherwise spend it listing). */
 const MAX_EXHAUSTIVE = 20_000;
 /** Annealing restarts: one per this many evaluations, between 1 and 4 (short restarts from random starts did worse than one long run). */
@@ -66,15 +86,20 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
   if (bits > MAX_SEARCH_BITS) {
     return { diagnostics: [diag('LW701', `the automatic search handles codes up to ${MAX_SEARCH_BITS} bits; the pins ask for ${bits}`, {}, 'pin shorter codes, or choose a named encoding')] };
   }
-  const book = new CostBook({ cost: o.cost, pins: pins.codes, maxEvaluations: o.maxEvaluations, deadline: o.deadline, now: o.now, onProgress: o.onProgress });
+  const timed = o.deadline !== undefined;
+  const book = new CostBook({ cost: o.cost, pins: pins.codes, maxEvaluations: Infinity, deadline: o.deadline, now: o.now, onProgress: o.onProgress });
   const named = [binary, gray, johnson, oneHot].flatMap((strategy) => {
     const e = strategy(f, pins).encoding;
-    return e && e.bits <= MAX_SEARCH_BITS ? [e] : [];
+    return e && e.bits <= Math.min(MAX_SEARCH_BITS, bits + NAMED_EXTRA_BITS) ? [e] : [];
   });
   const pinned = new Map([...pins.codes].map(([s, c]) => [s, codeToInt(c)]));
   const slots = startFirst(f).filter((s) => !pinned.has(s));
-  const classes = listClasses(book, bits, slots.length, pinned, named.length);
-  book.total = classes ? named.length + classes.length : Number.isFinite(o.maxEvaluations) ? o.maxEvaluations : null;
+
+  // Settle the budget now that the size of the space is known.
+  const cap = o.maxEvaluations !== undefined ? o.maxEvaluations - named.length : timed ? MAX_EXHAUSTIVE : DEFAULT_SEARCH.exhaustiveClasses;
+  const classes = listClasses(book, bits, slots.length, pinned, cap);
+  book.limit = o.maxEvaluations ?? (timed ? Infinity : named.length + (classes ? DEFAULT_SEARCH.exhaustiveClasses : DEFAULT_SEARCH.annealingEvaluations));
+  book.total = classes ? named.length + classes.length : Number.isFinite(book.limit) ? book.limit : null;
 
   // 1. Named strategies.
   for (const e of named) {
@@ -84,11 +109,12 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
 
   // 2. The main code length: every class if they fit, else annealing.
   let extraBit = false;
+  let complete = true;
   if (classes) {
-    priceAll(book, classes, slots, pinned, n, bits);
+    complete = priceAll(book, classes, slots, pinned, n, bits);
     // 3. One bit more, when that is cheap too.
-    if (pins.codes.size === 0 && n >= 2 && bits + 1 <= MAX_SYMMETRY_BITS && !book.exhausted()) {
-      const wider = listClasses(book, bits + 1, slots.length, pinned, 0);
+    if (complete && pins.codes.size === 0 && n >= 2 && bits + 1 <= MAX_SYMMETRY_BITS && !book.exhausted()) {
+      const wider = listClasses(book, bits + 1, slots.length, pinned, Math.min(book.remaining(), MAX_EXHAUSTIVE));
       if (wider) {
         extraBit = true;
         priceAll(book, wider, slots, pinned, n, bits + 1);
@@ -109,6 +135,7 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
     report: {
       evaluations: book.evaluations,
       method: classes ? 'exhaustive' : 'annealing',
+      complete,
       ...(classes ? { classes: classes.length } : {}),
       extraBit,
       bestCost: best.cost,
@@ -117,8 +144,7 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
 }
 
 /** Every class of assignments at this length, or undefined when there are more than the budget allows. */
-function listClasses(book: CostBook, bits: number, slots: number, pinned: ReadonlyMap<number, number>, reserved: number): number[][] | undefined {
-  const cap = Math.min(book.remaining() - reserved, MAX_EXHAUSTIVE);
+function listClasses(book: CostBook, bits: number, slots: number, pinned: ReadonlyMap<number, number>, cap: number): number[][] | undefined {
   const taken = new Set(pinned.values());
   const group = book.group(bits);
   // Without symmetries every injective assignment is its own class, so slots + cap + 1 codes
@@ -134,8 +160,8 @@ function listClasses(book: CostBook, bits: number, slots: number, pinned: Readon
   return out;
 }
 
-/** Price every class, first correcting the planned total for classes already priced (the named strategies' own). */
-function priceAll(book: CostBook, classes: readonly number[][], slots: readonly number[], pinned: ReadonlyMap<number, number>, n: number, bits: number): void {
+/** Price every class (false when the budget ran out first), first correcting the planned total for classes already priced (the named strategies' own). */
+function priceAll(book: CostBook, classes: readonly number[][], slots: readonly number[], pinned: ReadonlyMap<number, number>, n: number, bits: number): boolean {
   const vectors = classes.map((a) => {
     const codes = new Array<number>(n);
     for (const [s, c] of pinned) codes[s] = c;
@@ -144,7 +170,9 @@ function priceAll(book: CostBook, classes: readonly number[][], slots: readonly 
   });
   book.total = book.evaluations + vectors.filter((v) => book.known(v, bits) === undefined).length;
   for (const v of vectors) {
-    if (book.exhausted()) return;
+    if (book.known(v, bits) !== undefined) continue;
+    if (book.exhausted()) return false;
     book.price(v, bits);
   }
+  return true;
 }

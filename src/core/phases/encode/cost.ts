@@ -50,6 +50,7 @@ export interface BookOptions {
   readonly cost: CostFn;
   /** Pinned codes by state index (they fix the symmetry group at their length). */
   readonly pins: ReadonlyMap<number, string>;
+  /** Most cost evaluations allowed (Infinity when only the deadline bounds the search). */
   readonly maxEvaluations: number;
   readonly deadline?: number;
   readonly now?: () => number;
@@ -59,23 +60,27 @@ export interface BookOptions {
 /** The memo and budget shared by every part of one automatic search. */
 export class CostBook {
   evaluations = 0;
+  /** Most cost evaluations allowed; the search may settle it once it knows the size of the space. */
+  limit: number;
   /** Planned number of evaluations, for progress reports. */
   total: number | null = null;
   best: Best | undefined;
   private readonly memo = new Map<string, number>();
   private readonly groups = new Map<number, CubeMap[]>();
 
-  constructor(private readonly o: BookOptions) {}
+  constructor(private readonly o: BookOptions) {
+    this.limit = o.maxEvaluations;
+  }
 
   /** True when no further evaluation may start. */
   exhausted(): boolean {
-    if (this.evaluations >= this.o.maxEvaluations) return true;
+    if (this.evaluations >= this.limit) return true;
     return this.o.deadline !== undefined && this.o.now !== undefined && this.o.now() >= this.o.deadline;
   }
 
   /** Evaluations still allowed. */
   remaining(): number {
-    return Math.max(0, this.o.maxEvaluations - this.evaluations);
+    return Math.max(0, this.limit - this.evaluations);
   }
 
   /** The symmetries that may relabel codes of this length without moving a pin. */

@@ -23,6 +23,7 @@ type Item = { readonly port: PortRef } | { readonly actuator: string };
 
 /** Split every cord for which `tooMany` holds into a buffer tree; other cords are untouched. */
 export function splitFanout(netlist: Netlist, tooMany: (cord: Cord) => boolean): Netlist {
+  if (!netlist.cords.some((c) => c.ports.length + c.actuators.length > 1 && tooMany(c))) return netlist;
   const parts: Part[] = [...netlist.parts];
   const ids = new Set(parts.map((p) => p.id));
   const done: Cord[] = [];
@@ -33,7 +34,8 @@ export function splitFanout(netlist: Netlist, tooMany: (cord: Cord) => boolean):
     while (at + 1 < parts.length && parts[at + 1].id.startsWith(`${driver}.buf`)) at++;
     parts.splice(at + 1, 0, ...gates);
   };
-  for (let cord = queue.shift(); cord; cord = queue.shift()) {
+  for (let qi = 0; qi < queue.length; qi++) {
+    const cord = queue[qi];
     const items: Item[] = [...cord.ports.map((port) => ({ port })), ...cord.actuators.map((actuator) => ({ actuator }))];
     if (items.length < 2 || !tooMany(cord)) {
       done.push(cord);

@@ -120,20 +120,26 @@ export function expandCube(sp: Space, c0: BCube, R: readonly BCube[], cands: rea
     }
     pending = still;
     if (feasible.length === 0) break;
-    // Take the cube whose raise covers most of the other feasible cubes; ties go to the
-    // smaller raise, then to the earlier cube.
+    // Espresso's select_feasible: take the cube whose raise leaves most of the other feasible
+    // cubes still feasible; ties go to the smaller raise, then to the earlier cube.
     let best = 0;
     let bestScore = -1;
     let bestBits = Infinity;
+    const both = new Array<number>(W);
     for (let a = 0; a < feasible.length; a++) {
       const na = feasible[a].need;
       let score = 0;
       for (let b = 0; b < feasible.length; b++) {
         if (a === b) continue;
         const nb = feasible[b].need;
-        let inside = true;
-        for (let k = 0; k < W; k++) if ((nb[k] & ~na[k]) !== 0) { inside = false; break; }
-        if (inside) score++;
+        for (let k = 0; k < W; k++) both[k] = na[k] | nb[k];
+        let ok = true;
+        for (const row of active) {
+          let left = 0;
+          for (let k = 0; k < W; k++) left |= row[k] & free[k] & ~both[k];
+          if (left === 0) { ok = false; break; }
+        }
+        if (ok) score++;
       }
       let bits = 0;
       for (let k = 0; k < W; k++) bits += popcount(na[k]);

@@ -28,7 +28,7 @@
  */
 import type { FlatMachine } from '../../model/flat.js';
 import {
-  compareSets, isEmptySet, isSubset, key, members, overlapSize, setOf, size, union, type StateSet,
+  compareSets, has, isEmptySet, isSubset, key, members, overlapSize, setOf, size, union, type StateSet,
 } from './bitset.js';
 import { classRegions, type Compatibility } from './compatible.js';
 
@@ -44,16 +44,43 @@ export interface CoverSearch {
 /** Default work budget: enough to finish every small benchmark machine, a second or so at most. */
 export const DEFAULT_COVER_BUDGET = 4_000_000;
 
+/** Choose requirements fail-first only while that scan (open requirements × classes) stays this small. */
+const FAIL_FIRST_LIMIT = 4096;
+/** How many open requirements the greedy descent (and a large search) examines per step. */
+const GREEDY_SCAN = Number(process.env.SCAN ?? 64);
+/** Families remembered as explored, at most. */
+const EXPLORED_LIMIT = 100_000;
+
 /** Search for a smallest closed cover of compatibles holding the start state. */
 export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFAULT_COVER_BUDGET): CoverSearch {
   const n = f.states.length;
   const words = compat.words;
-  const lowerBound = incompatibleClique(compat, Math.min(budget, 200_000));
   let best: StateSet[] = Array.from({ length: n }, (_, s) => setOf(words, [s]));
+  const lowerBound = incompatibleClique(compat, Math.min(budget, 2_000_000));
   let work = 0;
   let aborted = false;
   const impliedCache = new Map<string, StateSet[]>();
+  const commonCache = new WeakMap<StateSet, StateSet>();
   const explored = new Set<string>();
+  const memberCache = new WeakMap<StateSet, number[]>();
+
+  /** Members of a set, cached: sets are never changed once made. */
+  const listOf = (set: StateSet): number[] => {
+    let l = memberCache.get(set);
+    if (l === undefined) {
+      l = members(set);
+      memberCache.set(set, l);
+    }
+    return l;
+  };
+
+  /** a ⊆ b, testing a's members (classes and requirements are mostly small against the word count). */
+  const inside = (a: StateSet, b: StateSet): boolean => {
+    const l = listOf(a);
+    work += 1 + l.length;
+    for (const m of l) if (!has(b, m)) return false;
+    return true;
+  };
 
   /** Maximal implied sets of a class that the class itself does not hold. */
   const impliedOf = (cls: StateSet): StateSet[] => {
@@ -62,26 +89,87 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
     if (hit) return hit;
     const list = members(cls);
     const regions = classRegions(f, list);
-    work += regions.length * list.length;
+    work += regions.length * (list.length + words);
     const sets = maximal(regions.map((r) => r.next).filter((d) => !isEmptySet(d) && !isSubset(d, cls)));
     impliedCache.set(k, sets);
     return sets;
   };
 
-  /** Can a and b share a class? (Each is compatible on its own.) */
-  const fits = (a: StateSet, b: StateSet): boolean => {
-    work++;
-    for (const m of members(b)) if (!isSubset(a, compat.compatibleWith[m])) return false;
-    return true;
+  /** The states compatible with every member of the class. */
+  const common = (cls: StateSet): StateSet => {
+    let c = commonCache.get(cls);
+    if (c === undefined) {
+      const list = listOf(cls);
+      work += list.length * words;
+      c = compat.compatibleWith[list[0]];
+      for (const m of list) c = intersection(c, compat.compatibleWith[m]);
+      commonCache.set(cls, c);
+    }
+    return c;
   };
 
+  /** Can requirement d join class c? (d is compatible on its own: it is an implied set of a compatible.) */
+  const fits = (c: StateSet, d: StateSet): boolean => inside(d, common(c));
+
   const openAfter = (classes: StateSet[], changed: StateSet, open: StateSet[]): StateSet[] => {
-    const out = open.filter((d) => !isSubset(d, changed));
-    for (const d of impliedOf(changed)) {
-      work += classes.length;
-      if (!classes.some((c) => isSubset(d, c))) out.push(d);
+    const kept = open.filter((d) => !inside(d, changed));
+    const added = maximal(impliedOf(changed).filter((d) => !classes.some((c) => inside(d, c))));
+    if (added.length === 0) return kept;
+    // Both lists are free of inner duplicates; drop what one list holds inside the other.
+    const out = kept.filter((d) => !added.some((a) => inside(d, a)));
+    for (const a of added) if (!kept.some((d) => inside(a, d))) out.push(a);
+    return out.sort((a, b) => listOf(b).length - listOf(a).length);
+  };
+
+  /**
+   * The requirement to branch on: fail-first (fewest classes it can join, then largest) among
+   * the first `scan` open requirements (they come largest first), with the classes it can join
+   * (best overlap first) and the requirements that can join none.
+   */
+  const choose = (classes: StateSet[], open: StateSet[], scan: number) => {
+    let pick = 0;
+    let options: number[] | null = null;
+    const forced: StateSet[] = [];
+    for (let i = 0; i < Math.min(scan, open.length); i++) {
+      const d = open[i];
+      const fitting = classes.flatMap((c, j) => (fits(c, d) ? [j] : []));
+      if (fitting.length === 0) forced.push(d);
+      if (options === null || fitting.length < options.length) {
+        pick = i;
+        options = fitting;
+      }
     }
-    return maximal(out);
+    const need = open[pick];
+    const ordered = (options ?? []).sort((a, b) => overlapSize(classes[b], need) - overlapSize(classes[a], need) || a - b);
+    return { need, options: ordered, forced };
+  };
+
+  const grow = (classes: StateSet[], j: number, need: StateSet): StateSet[] => {
+    const grown = union(classes[j], need);
+    const next = classes.filter((c, i) => i !== j && !inside(c, grown));
+    next.push(grown);
+    return next;
+  };
+
+  const open1 = (classes: StateSet[], need: StateSet): StateSet[] => {
+    const next = classes.filter((c) => !inside(c, need));
+    next.push(need);
+    return next;
+  };
+
+  /** The greedy closed cover: one descent, never backtracking (polynomial; no budget). */
+  const greedy = (): StateSet[] | null => {
+    let classes: StateSet[] = [];
+    let open = [setOf(words, [f.start])];
+    while (open.length > 0) {
+      const { need, options } = choose(classes, open, GREEDY_SCAN);
+      const before = classes;
+      classes = options.length > 0 ? grow(classes, options[0], need) : open1(classes, need);
+      if (classes.length >= n) return null;
+      open = openAfter(classes, classes[classes.length - 1], open);
+      if (before === classes) return null;
+    }
+    return classes;
   };
 
   const search = (classes: StateSet[], open: StateSet[]): void => {
@@ -94,48 +182,38 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
       if (classes.length < best.length) best = classes;
       return;
     }
-    const family = classes.map(key).sort().join('|');
-    if (explored.has(family)) return;
-    explored.add(family);
-
-    let pick = -1;
-    let pickOptions: number[] = [];
-    const forced: StateSet[] = [];
-    open.forEach((d, i) => {
-      const options: number[] = [];
-      classes.forEach((c, j) => {
-        if (fits(c, d)) options.push(j);
-      });
-      if (options.length === 0) forced.push(d);
-      if (pick < 0 || options.length < pickOptions.length || (options.length === pickOptions.length && size(d) > size(open[pick]))) {
-        pick = i;
-        pickOptions = options;
-      }
-    });
-    if (Math.max(lowerBound, classes.length + clashing(forced, fits)) >= best.length) return;
-
-    const need = open[pick];
-    pickOptions.sort((a, b) => overlapSize(classes[b], need) - overlapSize(classes[a], need) || a - b);
-    for (const j of pickOptions) {
-      const grown = union(classes[j], need);
-      const next = classes.filter((c, i) => i !== j && !isSubset(c, grown));
-      next.push(grown);
-      search(next, openAfter(next, grown, open));
-      if (best.length <= lowerBound) return;
+    if (explored.size < EXPLORED_LIMIT) {
+      work += classes.length * words;
+      const family = classes.map(key).sort().join('|');
+      if (explored.has(family)) return;
+      explored.add(family);
+    }
+    const scan = open.length * classes.length <= FAIL_FIRST_LIMIT ? open.length : GREEDY_SCAN;
+    const { need, options, forced } = choose(classes, open, scan);
+    const bound = Math.max(lowerBound, classes.length + clashing(forced, fits), classes.length + (options.length === 0 ? 1 : 0));
+    if (bound >= best.length) return;
+    for (const j of options) {
+      const next = grow(classes, j, need);
+      search(next, openAfter(next, next[next.length - 1], open));
+      if (best.length <= lowerBound || aborted) return;
     }
     if (classes.length + 1 < best.length) {
-      const next = classes.filter((c) => !isSubset(c, need));
-      next.push(need);
+      const next = open1(classes, need);
       search(next, openAfter(next, need, open));
     }
   };
 
-  if (n > 1 && lowerBound < n) search([], [setOf(words, [f.start])]);
+  if (n > 1 && lowerBound < n) {
+    const first = greedy();
+    if (first !== null && first.length < best.length) best = first;
+    work = 0;
+    if (!process.env.NOBB) search([], [setOf(words, [f.start])]);
+  }
   const classes = [...best].sort(compareSets);
   return { classes, exact: !aborted || classes.length <= lowerBound, lowerBound };
 }
 
-/** Drop duplicates and sets inside another set of the list. */
+/** Drop duplicates and sets inside another set of the list (largest first). */
 function maximal(sets: StateSet[]): StateSet[] {
   const sorted = [...sets].sort((a, b) => size(b) - size(a));
   const out: StateSet[] = [];
@@ -152,29 +230,41 @@ function clashing(sets: StateSet[], fits: (a: StateSet, b: StateSet) => boolean)
 
 /**
  * Size of a set of pairwise incompatible states (a clique of the incompatibility graph): a
- * lower bound on the states of any reduced machine. Exact for small machines; when the step
- * budget runs out, the largest clique found so far (still a valid bound).
+ * lower bound on the states of any reduced machine. Branch and bound over bit sets; exact
+ * when it finishes within `budget` word operations, else the largest clique found (its first
+ * descent is the greedy clique), which is still a valid bound.
  */
 export function incompatibleClique(compat: Compatibility, budget: number): number {
   const n = compat.n;
-  const clash = (a: number, b: number): boolean => !isSubset(setOf(compat.words, [b]), compat.compatibleWith[a]);
-  const adj: number[][] = Array.from({ length: n }, (_, a) => {
-    const out: number[] = [];
-    for (let b = 0; b < n; b++) if (a !== b && clash(a, b)) out.push(b);
-    return out;
-  });
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => adj[b].length - adj[a].length || a - b);
-  let bestSize = n > 0 ? 1 : 0;
-  let steps = 0;
-  const adjSet = adj.map((l) => new Set(l));
-  const grow = (size: number, candidates: number[]): void => {
-    if (size > bestSize) bestSize = size;
-    for (let i = 0; i < candidates.length; i++) {
-      if (size + candidates.length - i <= bestSize || ++steps > budget) return;
-      const v = candidates[i];
-      grow(size + 1, candidates.slice(i + 1).filter((w) => adjSet[v].has(w)));
+  const words = compat.words;
+  const all = setOf(words, Array.from({ length: n }, (_, i) => i));
+  const clash = compat.compatibleWith.map((c) => difference(all, c));
+  let best = n > 0 ? 1 : 0;
+  let work = 0;
+  const grow = (depth: number, candidates: StateSet): void => {
+    if (depth > best) best = depth;
+    let left = size(candidates);
+    const rest = candidates.slice();
+    for (const v of members(candidates)) {
+      if (depth + left <= best || work > budget) return;
+      rest[v >>> 5] &= ~(1 << (v & 31));
+      left--;
+      work += words;
+      grow(depth + 1, intersection(rest, clash[v]));
     }
   };
-  grow(0, order);
-  return bestSize;
+  grow(0, all);
+  return best;
+}
+
+function intersection(a: StateSet, b: StateSet): StateSet {
+  const out = new Uint32Array(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = a[i] & b[i];
+  return out;
+}
+
+function difference(a: StateSet, b: StateSet): StateSet {
+  const out = new Uint32Array(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = a[i] & ~b[i];
+  return out;
 }

@@ -14,7 +14,7 @@
  * Also here: the input regions of a class of states (the common refinement of its members'
  * rows), which give the class's implied sets and, later, the reduced machine's rows.
  */
-import { intersect, overlaps } from '../../model/cube.js';
+import { intersect } from '../../model/cube.js';
 import { DONT_CARE, type FlatMachine } from '../../model/flat.js';
 import type { OutBit } from '../../model/machine.js';
 import { add, emptySet, isSubset, setOf, union, wordsFor, type StateSet } from './bitset.js';
@@ -27,50 +27,145 @@ export interface Compatibility {
   readonly compatibleWith: readonly StateSet[];
 }
 
-function outputsClash(a: readonly OutBit[], b: readonly OutBit[]): boolean {
-  for (let i = 0; i < a.length; i++) if (a[i] !== b[i] && a[i] !== '-' && b[i] !== '-') return true;
-  return false;
+/**
+ * Rows packed into 32-bit words for the pair loop (it runs n²/2 times): per row, a care mask
+ * and a value mask of its cube and of its outputs, so "do the cubes overlap" and "do the
+ * specified outputs clash" are a few word operations each.
+ */
+interface PackedRows {
+  readonly start: Int32Array; // rows of state s are start[s] .. start[s+1]-1
+  readonly inWords: number;
+  readonly outWords: number;
+  readonly inCare: Int32Array;
+  readonly inVal: Int32Array;
+  readonly outCare: Int32Array;
+  readonly outVal: Int32Array;
+  readonly next: Int32Array;
+}
+
+function pack(f: FlatMachine): PackedRows {
+  const inWords = Math.max(1, Math.ceil(f.inputs.length / 32));
+  const outWords = Math.max(1, Math.ceil(f.outputs.length / 32));
+  const total = f.rows.reduce((n, rs) => n + rs.length, 0);
+  const start = new Int32Array(f.states.length + 1);
+  const inCare = new Int32Array(total * inWords);
+  const inVal = new Int32Array(total * inWords);
+  const outCare = new Int32Array(total * outWords);
+  const outVal = new Int32Array(total * outWords);
+  const next = new Int32Array(total);
+  let k = 0;
+  f.rows.forEach((rs, s) => {
+    start[s] = k;
+    for (const r of rs) {
+      for (let i = 0; i < r.cube.length; i++) {
+        const c = r.cube[i];
+        if (c === '-') continue;
+        inCare[k * inWords + (i >>> 5)] |= 1 << (i & 31);
+        if (c === '1') inVal[k * inWords + (i >>> 5)] |= 1 << (i & 31);
+      }
+      r.out.forEach((o, i) => {
+        if (o === '-') return;
+        outCare[k * outWords + (i >>> 5)] |= 1 << (i & 31);
+        if (o === 1) outVal[k * outWords + (i >>> 5)] |= 1 << (i & 31);
+      });
+      next[k] = r.next;
+      k++;
+    }
+  });
+  start[f.states.length] = k;
+  return { start, inWords, outWords, inCare, inVal, outCare, outVal, next };
+}
+
+/** A growable list of 32-bit integers. */
+class IntList {
+  data = new Int32Array(1024);
+  length = 0;
+  push(v: number): void {
+    if (this.length === this.data.length) {
+      const grown = new Int32Array(this.data.length * 2);
+      grown.set(this.data);
+      this.data = grown;
+    }
+    this.data[this.length++] = v;
+  }
+}
+
+/** Index of the unordered pair {s, t}, s ≠ t, in a triangular table. */
+function pairIndex(s: number, t: number): number {
+  return s < t ? (t * (t - 1)) / 2 + s : (s * (s - 1)) / 2 + t;
 }
 
 /** The implication table, resolved: which pairs of states are compatible. */
 export function compatibility(f: FlatMachine): Compatibility {
   const n = f.states.length;
   const words = wordsFor(n);
-  const bad = new Uint8Array(n * n);
-  const dependants = new Map<number, number[]>(); // implied pair → pairs that imply it
-  const queue: number[] = [];
-  for (let s = 0; s < n; s++)
-    for (let t = s + 1; t < n; t++) {
-      const p = s * n + t;
-      const implied = new Set<number>();
-      scan: for (const r of f.rows[s])
-        for (const q of f.rows[t]) {
-          if (!overlaps(r.cube, q.cube)) continue;
-          if (outputsClash(r.out, q.out)) {
-            bad[p] = 1;
-            queue.push(p);
-            break scan;
+  const { start, inWords, outWords, inCare, inVal, outCare, outVal, next } = pack(f);
+  const pairs = (n * (n - 1)) / 2;
+  const bad = new Uint8Array(pairs);
+  const queue = new IntList();
+  // Pairs implying a pair, as linked lists: head[q] → edge → nextEdge[edge] → …; edgePair[edge] = p.
+  const head = new Int32Array(pairs).fill(-1);
+  const nextEdge = new IntList();
+  const edgePair = new IntList();
+  let implied = new Int32Array(64); // implied pairs of the current pair
+  for (let t = 1; t < n; t++)
+    for (let s = 0; s < t; s++) {
+      const p = pairIndex(s, t);
+      let count = 0;
+      let clash = false;
+      scan: for (let i = start[s]; i < start[s + 1]; i++)
+        for (let j = start[t]; j < start[t + 1]; j++) {
+          let apart = false;
+          for (let w = 0, a = i * inWords, b = j * inWords; w < inWords; w++, a++, b++)
+            if (((inVal[a] ^ inVal[b]) & inCare[a] & inCare[b]) !== 0) {
+              apart = true;
+              break;
+            }
+          if (apart) continue;
+          for (let w = 0, a = i * outWords, b = j * outWords; w < outWords; w++, a++, b++)
+            if (((outVal[a] ^ outVal[b]) & outCare[a] & outCare[b]) !== 0) {
+              clash = true;
+              break scan;
+            }
+          const x = next[i];
+          const y = next[j];
+          if (x !== DONT_CARE && y !== DONT_CARE && x !== y) {
+            const q = pairIndex(x, y);
+            let known = q === p;
+            for (let k = 0; k < count && !known; k++) known = implied[k] === q;
+            if (!known) {
+              if (count === implied.length) {
+                const grown = new Int32Array(count * 2);
+                grown.set(implied);
+                implied = grown;
+              }
+              implied[count++] = q;
+            }
           }
-          if (r.next !== DONT_CARE && q.next !== DONT_CARE && r.next !== q.next)
-            implied.add(Math.min(r.next, q.next) * n + Math.max(r.next, q.next));
         }
-      if (bad[p] === 1) continue;
-      for (const i of implied) {
-        if (i === p) continue;
-        const list = dependants.get(i);
-        if (list) list.push(p);
-        else dependants.set(i, [p]);
+      if (clash) {
+        bad[p] = 1;
+        queue.push(p);
+        continue;
+      }
+      for (let k = 0; k < count; k++) {
+        const q = implied[k];
+        nextEdge.push(head[q]);
+        head[q] = edgePair.length;
+        edgePair.push(p);
       }
     }
-  for (let head = 0; head < queue.length; head++)
-    for (const p of dependants.get(queue[head]) ?? [])
+  for (let k = 0; k < queue.length; k++)
+    for (let e = head[queue.data[k]]; e >= 0; e = nextEdge.data[e]) {
+      const p = edgePair.data[e];
       if (bad[p] === 0) {
         bad[p] = 1;
         queue.push(p);
       }
+    }
   const compatibleWith = Array.from({ length: n }, (_, s) => {
     const set = emptySet(words);
-    for (let t = 0; t < n; t++) if (s === t || bad[Math.min(s, t) * n + Math.max(s, t)] === 0) add(set, t);
+    for (let t = 0; t < n; t++) if (s === t || bad[pairIndex(s, t)] === 0) add(set, t);
     return set;
   });
   return { n, words, compatibleWith };

@@ -24,7 +24,7 @@
  * State names follow quotient.ts (each reduced state keeps one member's name).
  */
 import { DONT_CARE, isIncomplete, type FlatMachine, type FlatRow } from '../../model/flat.js';
-import { isSubset, members, setOf, type StateSet } from './bitset.js';
+import { has, isEmptySet, isSubset, members, type StateSet } from './bitset.js';
 import { closedCover, DEFAULT_COVER_BUDGET } from './closed-cover.js';
 import { classRegions, compatibility } from './compatible.js';
 import { equivalenceBlocks } from './partition.js';
@@ -115,19 +115,19 @@ function reduceByCompatibles(f: FlatMachine, budget: number): Attempt {
     if (isSubset(d, classes[self])) return self;
     return classes.findIndex((c) => isSubset(d, c));
   };
-  const words = classes[0].length;
+  const targetOf = (t: number, self: number): number => (has(classes[self], t) ? self : classes.findIndex((c) => has(c, t)));
   const rows: FlatRow[][] = classes.map((c, i) => {
     const list = members(c);
     if (list.length === 1)
-      return f.rows[list[0]].map((r) => ({ ...r, next: r.next === DONT_CARE ? DONT_CARE : target(setOf(words, [r.next]), i) }));
+      return f.rows[list[0]].map((r) => ({ ...r, next: r.next === DONT_CARE ? DONT_CARE : targetOf(r.next, i) }));
     return classRegions(f, list).map((g) => ({
       cube: g.cube,
-      next: members(g.next).length === 0 ? DONT_CARE : target(g.next, i),
+      next: isEmptySet(g.next) ? DONT_CARE : target(g.next, i),
       out: g.out,
       transition: g.transition,
     }));
   });
-  const startClass = classes.findIndex((c) => isSubset(setOf(words, [f.start]), c));
+  const startClass = classes.findIndex((c) => has(c, f.start));
   // Keep the classes the reduced machine can reach; closure guarantees that every original
   // state lies in at least one of them (the reduced run always holds the original state).
   const whole: FlatMachine = { ...f, states: classes.map((_, i) => String(i)), start: startClass, rows };
@@ -141,7 +141,7 @@ function reduceByCompatibles(f: FlatMachine, budget: number): Attempt {
     rows: kept.map((k) => rows[k].map((r) => ({ ...r, next: r.next === DONT_CARE ? DONT_CARE : (renumber.get(r.next) as number) }))),
   };
   const assign = Array.from({ length: n }, (_, s) =>
-    s === f.start ? machine.start : kept.findIndex((k) => isSubset(setOf(words, [s]), classes[k])),
+    s === f.start ? machine.start : kept.findIndex((k) => has(classes[k], s)),
   );
   return { step: { machine, assign }, exact, lowerBound };
 }

@@ -1,0 +1,59 @@
+/** Loading a machine and a profile, and building it, for the commands that build. */
+import { analyse, buildMachine, type Built, type BuildOptions } from '../../core/pipeline.js';
+import { formatDiagnostic, hasErrors, type Diagnostic } from '../../core/model/diagnostics.js';
+import { loadProfile } from '../../core/physics/profile-load.js';
+import { DEFAULT_PROFILE, type Profile } from '../../core/physics/profile.js';
+import type { EncodeStrategy } from '../../core/phases/encode/index.js';
+import type { ParsedArgs } from '../args.js';
+import type { CliIo } from '../io.js';
+import { loadSource } from './common.js';
+
+/** Print diagnostics (as text, or nothing when the caller prints JSON). */
+export function printDiagnostics(ds: readonly Diagnostic[], io: CliIo, json: boolean): void {
+  if (json) return;
+  for (const d of ds) if (d.severity !== 'info') io.err(formatDiagnostic(d) + '\n');
+}
+
+/** The profile named by --profile, over the defaults; undefined after printing its errors. */
+export function profileFrom(args: ParsedArgs, io: CliIo): { profile: Profile; diagnostics: Diagnostic[] } | { error: Diagnostic[] } {
+  const file = args.flags.profile;
+  if (typeof file !== 'string') return { profile: DEFAULT_PROFILE, diagnostics: [] };
+  const r = io.readText(file);
+  if ('error' in r) return { error: [{ code: 'LW600', severity: 'error', message: r.error, location: { file } }] };
+  let value: unknown;
+  try {
+    value = JSON.parse(r.text);
+  } catch (e) {
+    return { error: [{ code: 'LW100', severity: 'error', message: `the profile is not valid JSON (${e instanceof Error ? e.message : String(e)})`, location: { file } }] };
+  }
+  const p = loadProfile(value, file);
+  if (!p.profile || hasErrors(p.diagnostics)) return { error: p.diagnostics };
+  return { profile: p.profile, diagnostics: p.diagnostics };
+}
+
+export type BuildAttempt =
+  | { readonly ok: true; readonly built: Built; readonly file: string; readonly diagnostics: readonly Diagnostic[] }
+  | { readonly ok: false; readonly diagnostics: readonly Diagnostic[]; readonly file?: string };
+
+/** Read, analyse and build the machine the command line names. */
+export function buildFromArgs(args: ParsedArgs, io: CliIo, extra: Partial<BuildOptions> = {}): BuildAttempt {
+  const src = loadSource(args, io);
+  if (!src) return { ok: false, diagnostics: [] };
+  const prof = profileFrom(args, io);
+  if ('error' in prof) return { ok: false, diagnostics: prof.error, file: src.file };
+  const a = analyse(src.text, src.file);
+  if (!a.ok) return { ok: false, diagnostics: a.diagnostics, file: src.file };
+  const seed = args.flags.seed === undefined ? undefined : Number(args.flags.seed);
+  if (seed !== undefined && !(Number.isSafeInteger(seed) && seed >= 0)) {
+    return { ok: false, file: src.file, diagnostics: [{ code: 'LW700', severity: 'error', message: `--seed ${String(args.flags.seed)} is not a whole number ≥ 0`, location: { path: '--seed' }, hint: 'give a seed such as 1 or 42' }] };
+  }
+  const b = buildMachine(a, {
+    encoding: (typeof args.flags.encoding === 'string' ? args.flags.encoding : 'auto') as EncodeStrategy,
+    profile: prof.profile,
+    seed,
+    unusedCodes: typeof args.flags.unused === 'string' ? args.flags.unused : undefined,
+    ...extra,
+  });
+  if (!b.ok) return { ok: false, diagnostics: [...prof.diagnostics, ...b.diagnostics], file: src.file };
+  return { ok: true, built: b, file: src.file, diagnostics: [...prof.diagnostics, ...b.diagnostics] };
+}

@@ -1,0 +1,51 @@
+/** `latchwright build FILE`: synthesise, check, and report (or write the build documents). */
+import { buildReport, equationTexts } from '../../core/report.js';
+import type { Built } from '../../core/pipeline.js';
+import type { ParsedArgs } from '../args.js';
+import type { CliIo } from '../io.js';
+import { buildFromArgs, printDiagnostics } from './build-common.js';
+import { EXIT_BAD_INPUT, EXIT_CHECK_FAILED, EXIT_OK } from './common.js';
+import { writeDocuments } from './out.js';
+
+export async function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
+  const json = args.flags.json === true;
+  const r = buildFromArgs(args, io);
+  if (!r.ok) {
+    if (json) io.out(JSON.stringify({ ok: false, diagnostics: r.diagnostics }, null, 2) + '\n');
+    else printDiagnostics(r.diagnostics, io, false);
+    return EXIT_BAD_INPUT;
+  }
+  const b = r.built;
+  printDiagnostics(r.diagnostics, io, json);
+  const ok = b.checks.every((c) => c.ok);
+  if (typeof args.flags.out === 'string') {
+    const w = writeDocuments(b, args.flags.out, args.flags.force === true);
+    if (!w.ok) {
+      io.err(w.message + '\n');
+      return EXIT_BAD_INPUT;
+    }
+    if (!json) io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);
+  }
+  if (json) io.out(JSON.stringify(buildReport(b), null, 2) + '\n');
+  else io.out(textReport(b));
+  return ok ? EXIT_OK : EXIT_CHECK_FAILED;
+}
+
+/** The terminal report: short, in the workshop's words. */
+export function textReport(b: Built): string {
+  const f = b.build.machine;
+  const m = b.analysed.machine;
+  const p = b.build.parts;
+  const lines: string[] = [];
+  lines.push(`${m.name}: ${m.states.length} states → ${f.states.length} after minimisation; ${m.inputs.length} inputs, ${m.outputs.length} outputs`);
+  lines.push(`encoding ${b.build.encoding.strategy}, ${b.build.encoding.bits} state bits: ${f.states.map((s, i) => `${s}=${b.build.encoding.codes[i] || '—'}`).join(' ')}`);
+  lines.push(`parts: ${p.latches} latches, ${p.gates} gates, ${p.levers} levers, ${p.capstans} capstans, ${p.weights} weights, ${p.cords} cords`);
+  const g = b.build.guard;
+  lines.push(`forbidden-input guard (${g.method}): ${g.ok ? 'S·R = 0 proven for every latch' : 'NOT proven'}; cost ${g.extraGates} gates, ${g.extraCords} cords over an unguarded build`);
+  lines.push('equations:');
+  for (const e of equationTexts(b)) lines.push(`  ${e.name} = ${e.expr}`);
+  lines.push('checks:');
+  for (const c of b.checks) lines.push(`  ${c.ok ? 'ok  ' : 'FAIL'} ${c.name}: ${c.summary}`);
+  lines.push('Safety: turning drums, hanging weights and levers can hurt people; see the build sheet (--out) for the cautions.');
+  return lines.join('\n') + '\n';
+}

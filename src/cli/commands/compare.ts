@@ -1,0 +1,42 @@
+/** `latchwright compare FILE`: every encoding side by side, the cheapest marked. */
+import { compareEncodings } from '../../core/pipeline.js';
+import { analyse } from '../../core/pipeline.js';
+import type { ParsedArgs } from '../args.js';
+import type { CliIo } from '../io.js';
+import { printDiagnostics, profileFrom } from './build-common.js';
+import { EXIT_BAD_INPUT, EXIT_OK, loadSource } from './common.js';
+
+export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
+  const json = args.flags.json === true;
+  const src = loadSource(args, io);
+  if (!src) return EXIT_BAD_INPUT;
+  const prof = profileFrom(args, io);
+  if ('error' in prof) {
+    printDiagnostics(prof.error, io, false);
+    return EXIT_BAD_INPUT;
+  }
+  const a = analyse(src.text, src.file);
+  if (!a.ok) {
+    if (json) io.out(JSON.stringify({ ok: false, diagnostics: a.diagnostics }, null, 2) + '\n');
+    else printDiagnostics(a.diagnostics, io, false);
+    return EXIT_BAD_INPUT;
+  }
+  const seed = args.flags.seed === undefined ? undefined : Number(args.flags.seed);
+  const rows = compareEncodings(a, { profile: prof.profile, seed: Number.isSafeInteger(seed) ? seed : undefined });
+  if (json) {
+    io.out(JSON.stringify({ machine: a.machine.name, encodings: rows }, null, 2) + '\n');
+    return EXIT_OK;
+  }
+  const head = ['encoding', 'bits', 'latches', 'term gates', 'gates', 'levers', 'capstans', 'weights', 'cords', 'cost', ''];
+  const table = rows.map((r) =>
+    r.ok && r.parts && r.encoding
+      ? [r.strategy, String(r.encoding.bits), String(r.parts.latches), String(r.termGates), String(r.parts.gates), String(r.parts.levers), String(r.parts.capstans), String(r.parts.weights), String(r.parts.cords), String(r.cost), r.cheapest ? '← cheapest' : '']
+      : [r.strategy, '—', '', '', '', '', '', '', '', '', r.diagnostics[0]?.message ?? 'does not fit'],
+  );
+  const widths = head.map((h, i) => Math.max(h.length, ...table.map((row) => row[i].length)));
+  const line = (cells: string[]): string => cells.map((c, i) => (i === 0 || i === cells.length - 1 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join('  ').trimEnd();
+  io.out(`${a.machine.name}: ${a.minimised.machine.states.length} states after minimisation\n`);
+  io.out(line(head) + '\n');
+  for (const row of table) io.out(line(row) + '\n');
+  return EXIT_OK;
+}

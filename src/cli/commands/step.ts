@@ -1,0 +1,37 @@
+/** `latchwright step FILE`: build the machine, then step it (scripted or at the terminal). */
+import { runStep, terminalKeys, type SeqArray } from '../step.js';
+import type { ParsedArgs } from '../args.js';
+import type { CliIo } from '../io.js';
+import { buildFromArgs, printDiagnostics } from './build-common.js';
+import { EXIT_BAD_INPUT } from './common.js';
+
+export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<number> {
+  const json = args.flags.json === true;
+  let sequence: SeqArray | undefined;
+  if (typeof args.flags.inputs === 'string') {
+    const r = io.readText(args.flags.inputs);
+    if ('error' in r) {
+      io.err(`latchwright: ${r.error}\n`);
+      return EXIT_BAD_INPUT;
+    }
+    try {
+      sequence = JSON.parse(r.text) as SeqArray;
+    } catch (e) {
+      io.err(`${args.flags.inputs}: error LW100: the input sequence is not valid JSON (${e instanceof Error ? e.message : String(e)}) — give an array with one object per clock, e.g. [{"marble": 1}, {}]\n`);
+      return EXIT_BAD_INPUT;
+    }
+  }
+  const b = buildFromArgs(args, io, { checks: false });
+  if (!b.ok) {
+    printDiagnostics(b.diagnostics, io, false);
+    return EXIT_BAD_INPUT;
+  }
+  const built = b.built;
+  const spec = { original: built.analysed.flat, merged: built.analysed.minimised.merged };
+  return runStep(
+    built.build,
+    spec,
+    { inputsFile: sequence, json, abstract: args.flags.abstract === true, profile: built.profile },
+    { write: io.out, error: io.err, ...(sequence === undefined && io.interactive ? { readKeys: terminalKeys } : {}) },
+  );
+}

@@ -1,0 +1,98 @@
+/**
+ * HTML rendering of a Doc (the build sheet and the commissioning sheet): one self-contained
+ * file — no scripts, fonts, images or links to anything outside it — in light colours, with a
+ * print stylesheet that starts every section on a new page, repeats table headers on each
+ * page and keeps table rows whole. Every piece of text goes through escapeXml; the markup is
+ * well-formed XML as well as HTML (every element closed), so it parses either way.
+ */
+import type { Block, Doc, TableBlock } from './doc.js';
+import { escapeXml as x } from './escape.js';
+import { buildSheet, type DocumentsInput } from './build-sheet.js';
+
+const CSS = `
+:root { color-scheme: light; }
+body { font: 11pt/1.45 system-ui, -apple-system, "Segoe UI", Roboto, sans-serif; color: #1d2327; background: #fdfdfb; margin: 2rem auto; max-width: 64rem; padding: 0 1.5rem; }
+h1 { font-size: 1.7rem; margin: 0 0 .2rem; }
+.subtitle { color: #50575e; margin: 0 0 1.5rem; }
+h2 { font-size: 1.25rem; border-bottom: 2px solid #c9d3cf; padding-bottom: .2rem; margin-top: 2.2rem; }
+nav ol { columns: 2; color: #50575e; }
+nav a { color: #2c4a5a; }
+table { border-collapse: collapse; margin: .6rem 0 1rem; font-size: .92rem; }
+caption { text-align: left; color: #50575e; font-size: .88rem; padding-bottom: .2rem; }
+th, td { border: 1px solid #d4dad7; padding: .22rem .5rem; text-align: left; vertical-align: top; }
+th { background: #eef2f0; font-weight: 600; }
+tbody tr:nth-child(even) td { background: #f7f9f8; }
+td.mono, pre, code { font-family: ui-monospace, "Cascadia Mono", Menlo, Consolas, monospace; font-size: .88rem; }
+td.tick { width: 1.4rem; text-align: center; color: #50575e; }
+pre { background: #f3f5f4; border: 1px solid #d4dad7; padding: .6rem .8rem; white-space: pre-wrap; }
+.note { border: 1px solid #c9d3cf; border-left: 5px solid #8a9a93; background: #f6f8f7; padding: .5rem .9rem; margin: .8rem 0; }
+.note.caution { border-left-color: #b58a2c; background: #fdf8ec; }
+.note.fail { border-left-color: #b04a3c; background: #fbf0ee; }
+.note.ok { border-left-color: #5a8a6a; background: #f1f7f2; }
+.note p.title { font-weight: 600; margin: .1rem 0 .3rem; }
+.note ul { margin: .2rem 0; padding-left: 1.2rem; }
+@page { margin: 14mm; }
+@media print {
+  body { background: #fff; margin: 0; max-width: none; padding: 0; font-size: 10pt; }
+  nav { display: none; }
+  section { break-before: page; }
+  section:first-of-type { break-before: auto; }
+  h2 { break-after: avoid; margin-top: 0; }
+  table { font-size: 8.5pt; }
+  thead { display: table-header-group; }
+  tr, .note, pre { break-inside: avoid; }
+  tbody tr:nth-child(even) td { background: #fff; }
+}
+`;
+
+function tableHtml(t: TableBlock): string {
+  const mono = new Set(t.mono ?? []);
+  const head = `${t.tick ? '<th>✓</th>' : ''}${t.headers.map((h) => `<th scope="col">${x(h)}</th>`).join('')}`;
+  const rows = t.rows.map((r) => `<tr>${t.tick ? '<td class="tick">☐</td>' : ''}${r.map((c, i) => `<td${mono.has(i) ? ' class="mono"' : ''}>${x(c)}</td>`).join('')}</tr>`);
+  return `<table>${t.caption ? `<caption>${x(t.caption)}</caption>` : ''}<thead><tr>${head}</tr></thead><tbody>\n${rows.join('\n')}\n</tbody></table>`;
+}
+
+function blockHtml(b: Block): string {
+  switch (b.kind) {
+    case 'p':
+      return `<p>${x(b.text)}</p>`;
+    case 'list': {
+      const tag = b.ordered ? 'ol' : 'ul';
+      return `<${tag}>${b.items.map((i) => `<li>${x(i)}</li>`).join('')}</${tag}>`;
+    }
+    case 'pre':
+      return `<pre>${b.lines.map(x).join('\n')}</pre>`;
+    case 'note':
+      return `<div class="note ${b.tone}"><p class="title">${x(b.title)}</p><ul>${b.items.map((i) => `<li>${x(i)}</li>`).join('')}</ul></div>`;
+    case 'table':
+      return tableHtml(b);
+  }
+}
+
+/** A Doc as one self-contained HTML page. */
+export function renderDocHtml(doc: Doc): string {
+  const nav = doc.sections.length > 2 ? `<nav><ol>${doc.sections.map((s) => `<li><a href="#${x(s.id)}">${x(s.title)}</a></li>`).join('')}</ol></nav>\n` : '';
+  const sections = doc.sections.map((s) => `<section id="${x(s.id)}">\n<h2>${x(s.title)}</h2>\n${s.blocks.map(blockHtml).join('\n')}\n</section>`);
+  const page = doc.landscape ? '\n@page { size: landscape; }' : '';
+  return [
+    '<!DOCTYPE html>',
+    '<html lang="en">',
+    '<head>',
+    '<meta charset="utf-8" />',
+    '<meta name="viewport" content="width=device-width, initial-scale=1" />',
+    `<title>${x(doc.title)}</title>`,
+    `<style>${CSS}${page}</style>`,
+    '</head>',
+    '<body>',
+    `<header><h1>${x(doc.title)}</h1>${doc.subtitle ? `<p class="subtitle">${x(doc.subtitle)}</p>` : ''}</header>`,
+    `${nav}${sections.join('\n')}`,
+    '</body>',
+    '</html>',
+    '',
+  ].join('\n');
+}
+
+/** The build sheet as a printable, self-contained HTML page. */
+export function buildSheetHtml(input: DocumentsInput): string {
+  return renderDocHtml(buildSheet(input));
+}

@@ -1,0 +1,236 @@
+/**
+ * The build sheet's content: what goes to the workshop, as a Doc rendered to HTML and
+ * Markdown by build-sheet-html.ts and build-sheet-md.ts.
+ *
+ * Sections: the machine and its checks; safety cautions (DESIGN §9, in full); the state
+ * table with codes; the set/reset equations per latch and the output equations; the
+ * forbidden-input guard; parts and bill of materials; drive margins (capstan equation), drum
+ * torque and lever force; timing and clock rate; the wiring list; the operating rules with
+ * what breaking each one does (from the forbidden-input check). Figures come from the checks
+ * the pipeline ran; a section whose check is missing says so rather than guessing.
+ * Pure: no I/O; text only (renderers escape).
+ */
+import type { Build, CheckResult } from '../model/build.js';
+import type { Machine } from '../model/machine.js';
+import type { Profile } from '../physics/profile.js';
+import { billOfMaterials } from '../physics/bom.js';
+import { driveBudget } from '../physics/drive.js';
+import { OPERATING_RULES, RULE_WORDS } from '../sim/hand.js';
+import type { DriveCheck } from '../physics/check-drive.js';
+import type { TimingResult } from '../checks/timing.js';
+import type { ForbiddenInputResult } from '../checks/forbidden-input.js';
+import type { RecoveryResult } from '../checks/recovery.js';
+import { p, table, type Block, type Doc, type Section } from './doc.js';
+import { num } from './readable.js';
+import { equationBlocks, stateTableBlocks } from './sheet-logic.js';
+import { wiringRows } from './wiring.js';
+import { stagesOf, STAGE_WORDS } from './stages.js';
+import type { TourClock } from './tour.js';
+
+/** What the build documents are made from (the pipeline's `Built` result fits this shape). */
+export interface DocumentsInput {
+  readonly build: Build;
+  readonly checks: readonly CheckResult[];
+  readonly profile: Profile;
+  /** The machine as written, for its description and original states (optional). */
+  readonly analysed?: { readonly machine: Machine };
+  /** The commissioning input sequence; default: the transition tour of the built machine. */
+  readonly tour?: readonly TourClock[];
+}
+
+/** The safety cautions every build sheet, commissioning sheet and guide carries (DESIGN §9). */
+export const CAUTIONS: readonly string[] = [
+  'Turning drums catch hair, cords, sleeves and fingers: guard them and fit a stop within reach.',
+  'Hanging weights fall when a cord breaks: keep them low, enclosed, or caught.',
+  'Levers make pinch points.',
+  "An exhibit that the public operates needs a risk assessment under the local machinery and exhibit-safety rules (ISO 12100's risk-assessment method is a common starting point).",
+  "The tool's figures support, and never replace, a competent person's judgement.",
+  'Defer to local codes and licensed practice.',
+];
+
+/** A check by name, typed by the caller (the pipeline's checks carry these shapes). */
+export function checkNamed<T extends CheckResult>(checks: readonly CheckResult[], name: string): T | undefined {
+  return checks.find((c) => c.name === name) as T | undefined;
+}
+
+function summarySection(input: DocumentsInput): Section {
+  const { build, checks } = input;
+  const f = build.machine;
+  const source = input.analysed?.machine;
+  const blocks: Block[] = [];
+  if (source?.description) blocks.push(p(source.description));
+  const statesLine = source && source.states.length !== f.states.length ? `${f.states.length} (minimised from ${source.states.length})` : String(f.states.length);
+  blocks.push(
+    table(['', ''], [
+      ['machine', f.name],
+      ['inputs', f.inputs.join(', ') || '(none)'],
+      ['outputs', f.outputs.join(', ') || '(none)'],
+      ['states', statesLine],
+      ['start state', f.states[f.start]],
+      ['encoding', `${build.encoding.strategy}, ${build.encoding.bits} state ${build.encoding.bits === 1 ? 'bit' : 'bits'}`],
+      ['parts', `${build.parts.gates} gates (${build.parts.latches} latches), ${build.parts.levers} levers, ${build.parts.capstans} capstans, ${build.parts.weights} weights, ${build.parts.cords} cords`],
+    ]),
+  );
+  const failed = checks.filter((c) => !c.ok);
+  if (failed.length > 0) blocks.push({ kind: 'note', tone: 'fail', title: `${failed.length} of ${checks.length} checks failed — do not build until they pass`, items: failed.map((c) => `${c.name}: ${c.summary}`) });
+  else if (checks.length > 0) blocks.push({ kind: 'note', tone: 'ok', title: `All ${checks.length} checks passed`, items: [] });
+  if (checks.length > 0) blocks.push(table(['check', 'result', 'summary'], checks.map((c) => [c.name, c.ok ? 'passed' : 'FAILED', c.summary])));
+  else blocks.push(p('No checks were run for this sheet.'));
+  return { id: 'machine', title: 'Machine', blocks };
+}
+
+function safetySection(): Section {
+  return {
+    id: 'safety',
+    title: 'Safety',
+    blocks: [{ kind: 'note', tone: 'caution', title: 'Cautions — read before building, commissioning or showing the machine', items: CAUTIONS }],
+  };
+}
+
+function guardSection(input: DocumentsInput): Section {
+  const g = input.build.guard;
+  const fi = checkNamed<ForbiddenInputResult & { logic?: CheckResult }>(input.checks, 'forbidden-input');
+  const blocks: Block[] = [
+    p('A latch must never see both of its active-low ports pulled at once (S̄ = R̄ = 0): both outputs go to 1, and releasing both together leaves the latch unpredictable. The guard keeps the set and reset functions of every master latch apart everywhere the machine can be — unused codes and impossible inputs included.'),
+    table(['', ''], [
+      ['S·R = 0 proven', g.ok ? 'yes' : 'NO'],
+      ['method', g.method],
+      ['extra gates for the guard', String(g.extraGates)],
+      ['extra cords for the guard', String(g.extraCords)],
+    ]),
+  ];
+  if (fi) blocks.push(p(`Forbidden-input check: ${fi.ok ? 'passed' : 'FAILED'} — ${fi.summary}`));
+  else blocks.push(p('The forbidden-input check was not run for this sheet.'));
+  return { id: 'guard', title: 'Forbidden-input guard', blocks };
+}
+
+function partsSection(input: DocumentsInput): Section {
+  const { build, profile } = input;
+  const c = build.parts;
+  const bom = billOfMaterials(build.netlist, profile);
+  const stages = stagesOf(build.netlist);
+  const parts = [...build.netlist.parts].sort((a, b) => stages.compare(a.id, b.id));
+  return {
+    id: 'parts',
+    title: 'Parts and bill of materials',
+    blocks: [
+      table(['gates', 'latches', 'levers', 'capstans', 'weights', 'cords'], [[c.gates, c.latches, c.levers, c.capstans, c.weights, c.cords].map(String)]),
+      table(['item', 'kind', 'count', 'each', 'unit', 'total', 'note'], bom.map((r) => [r.item, r.kind, String(r.count), num(r.each, 3), r.unit, num(r.total, 3), r.note]), { caption: 'Bill of materials' }),
+      table(
+        ['id', 'stage', 'kind', 'name', 'ports'],
+        parts.map((q) => [q.id, STAGE_WORDS[stages.stage.get(q.id) ?? 'indicator'], q.kind === 'lever' || q.kind === 'gate' || q.kind === 'latch' ? `${q.kind} (${q.role})` : q.kind, q.name, q.kind === 'gate' ? q.ports.map((x) => x.name).join(', ') : '']),
+        { caption: 'Every part, in stage order', mono: [0] },
+      ),
+    ],
+  };
+}
+
+function driveSection(input: DocumentsInput): Section {
+  const { build, profile } = input;
+  const budgets = driveBudget(build.netlist, profile).sort((a, b) => a.margin - b.margin);
+  const d = checkNamed<DriveCheck>(input.checks, 'drive');
+  const blocks: Block[] = [
+    p(`Capstan equation: a cord wrapped ${num(profile.wraps)} turns on the drum (μ = ${num(profile.mu)}) holds up to e^(μθ) = ${num(Math.exp(profile.mu * 2 * Math.PI * profile.wraps))} times its hold tension. Margin = available ÷ load; the design rule asks at least ${num(profile.minMargin)}. Weakest first.`),
+    table(
+      ['driver', 'kind', 'cords', 'branches', 'hold (g)', 'available (g)', 'load (g)', 'margin', 'within budget'],
+      budgets.map((b) => [b.driver, b.driverKind, b.cords.join(', '), String(b.branches.length), num(b.holdG, 1), num(b.availableG, 1), num(b.loadG, 1), num(b.margin), b.ok ? 'yes' : 'NO']),
+      { mono: [0, 2] },
+    ),
+  ];
+  for (const b of budgets.filter((x) => !x.ok)) blocks.push({ kind: 'note', tone: 'fail', title: b.message ?? `driver ${b.driver} is over budget`, items: b.fixes ?? [] });
+  if (d) {
+    blocks.push(table(['', ''], [
+      ['worst drum torque', `${num(d.worstTorqueNm, 3)} N·m`],
+      ['worst drum power', `${num(d.worstPowerW, 2)} W at ${num(profile.drumRpm)} rev/min`],
+      ['hardest lever pull', `${num(d.operatorForceMaxG, 1)} g`],
+    ]));
+  } else blocks.push(p('The drive check (drum torque and lever force) was not run for this sheet.'));
+  return { id: 'drive', title: 'Drive margins', blocks };
+}
+
+function timingSection(input: DocumentsInput): Section {
+  const t = checkNamed<TimingResult>(input.checks, 'timing');
+  if (!t || t.phaseTimesS === undefined) return { id: 'timing', title: 'Timing and clock rate', blocks: [p('The timing check was not run for this sheet.')] };
+  const s = (x: number): string => `${num(x, 2)} s`;
+  const blocks: Block[] = [
+    p(`Each gate stage takes about ${num(input.profile.stageDelayS, 3)} s (lever swing and cord take-up; an estimate in the technology profile). A latch settles in two stages.`),
+    table(['', ''], [
+      ['φ1 pulled (longest chain)', s(t.phaseTimesS.phi1)],
+      ['dead band after releasing φ1', s(t.deadBandsS.afterPhi1)],
+      ['φ2 pulled (longest chain)', s(t.phaseTimesS.phi2)],
+      ['dead band after releasing φ2', s(t.deadBandsS.afterPhi2)],
+      ['one clock, at least', s(t.clockS)],
+      ['fastest safe rate', `${num(t.clocksPerMinute, 1)} clocks per minute`],
+      ['crank speed', `${num(t.crankRpm, 1)} turns per minute (one clock per turn)`],
+      ['cam window φ1', `${num(t.cam.phi1[0], 1)}° – ${num(t.cam.phi1[1], 1)}°`],
+      ['cam window φ2', `${num(t.cam.phi2[0], 1)}° – ${num(t.cam.phi2[1], 1)}°`],
+      ['reset settles in', s(t.resetS)],
+      ['Monte Carlo', `${t.monteCarlo.runs} runs (seed ${t.monteCarlo.seed}): ${t.monteCarlo.ok ? 'no race' : t.monteCarlo.race?.words ?? 'a run differs'}`],
+    ]),
+    p(`Longest φ1 chain: ${t.chains.phi1.join(' → ') || '(none)'}.`),
+    p(`Longest φ2 chain: ${t.chains.phi2.join(' → ') || '(none)'}.`),
+  ];
+  if (!t.ok) blocks.push({ kind: 'note', tone: 'fail', title: 'Timing check failed', items: [t.summary] });
+  return { id: 'timing', title: 'Timing and clock rate', blocks };
+}
+
+function wiringSection(input: DocumentsInput): Section {
+  const rows = wiringRows(input.build.netlist, input.profile);
+  return {
+    id: 'wiring',
+    title: 'Wiring list',
+    blocks: [
+      p('One row per cord branch, in tying order: every cord of one capstan before the next, from the levers to the flags. The same list is in wiring.csv.'),
+      table(
+        ['step', 'cord', 'from', 'side', 'to', 'port', 'routing', 'load (g)', 'margin'],
+        rows.map((r) => [String(r.step), r.cord, r.driver, r.driverSide, r.target, r.port, r.routing, num(r.loadG, 1), num(r.margin)]),
+        { tick: true, mono: [1, 2, 4, 5] },
+      ),
+    ],
+  };
+}
+
+function rulesSection(input: DocumentsInput): Section {
+  const fi = checkNamed<ForbiddenInputResult>(input.checks, 'forbidden-input');
+  const seq = input.build.encoding.bits > 0;
+  const blocks: Block[] = [];
+  if (seq) {
+    blocks.push(
+      p('The hand procedure, once per clock:'),
+      { kind: 'list', ordered: true, items: ['Set the input levers.', 'Pull φ1, then release it.', 'Pull φ2, then release it.'] },
+      p('Reset: pull the reset lever and release it, with both clock levers released. Rules:'),
+    );
+    const rows = OPERATING_RULES.map((r) => {
+      const v = fi?.rules?.find((x) => x.rule === r);
+      return [RULE_WORDS[r], v ? (v.upsets.length > 0 ? v.words : 'breaking it upsets no latch within the search') : 'not checked'];
+    });
+    blocks.push(table(['rule', 'what breaking it does (forbidden-input check)'], rows));
+    if (fi?.rules?.some((r) => r.upsets.length > 0)) blocks.push({ kind: 'note', tone: 'caution', title: 'Signage and interlocks', items: ['Design the signs, the clock cam or crank, and any interlocks so that the rules above cannot be broken by a visitor.'] });
+  } else {
+    blocks.push(p('This machine has one state: it is built without latches or clock levers. Its outputs follow the input levers directly.'));
+  }
+  const rec = checkNamed<RecoveryResult>(input.checks, 'recovery');
+  if (rec) blocks.push(p(`Recovery from unused codes: ${rec.ok ? 'passed' : 'FAILED'} — ${rec.summary}`));
+  return { id: 'rules', title: 'Operating rules', blocks };
+}
+
+/** The whole build sheet. */
+export function buildSheet(input: DocumentsInput): Doc {
+  const f = input.build.machine;
+  return {
+    title: `Build sheet — ${f.name}`,
+    subtitle: `${f.states.length} states, ${f.inputs.length} inputs, ${f.outputs.length} outputs; ${input.build.parts.gates} gates on ${input.build.parts.capstans} capstans`,
+    sections: [
+      summarySection(input),
+      safetySection(),
+      { id: 'states', title: 'State table', blocks: stateTableBlocks(input.build) },
+      { id: 'equations', title: 'Set and reset equations', blocks: equationBlocks(input.build) },
+      guardSection(input),
+      partsSection(input),
+      driveSection(input),
+      timingSection(input),
+      wiringSection(input),
+      rulesSection(input),
+    ],
+  };
+}

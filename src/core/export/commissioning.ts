@@ -1,0 +1,152 @@
+/**
+ * The commissioning sheet: a person at the bench steps the finished machine through an input
+ * sequence (by default the transition tour of tour.ts) and ticks off, after every hand action,
+ * the position of every latch lever and flag — so a wrong cord shows up at the first action
+ * whose expected positions differ, part by part.
+ *
+ * Expected positions come from the part-level simulator (sim/part.ts) run through the same
+ * hand actions from power-up: reset; then per clock, set the input levers, pull φ1, release
+ * φ1, pull φ2, release φ2. A latch's gates have summing levers Z; a gate whose output is 1 has
+ * Z down, so a latch holding Q = 1 has its set-side Z down and its reset-side Z up. A flag is
+ * "up" when it shows 1. After each clock the slave code is compared with the state table; a
+ * difference, or any simulator alarm, is written in the row's note (it should never happen
+ * for a build whose checks passed).
+ * A one-state machine has no latches or clock levers: one row per input setting, with the
+ * flags its output gates then show (a settled NAND network evaluated directly).
+ */
+import type { Build } from '../model/build.js';
+import type { Profile } from '../physics/profile.js';
+import { clockActions, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
+import { isAlarm, outputValues, powerUp, readPart, show, simFor, stepSim, timingOf, X, type PartSim, type PartState } from '../sim/part.js';
+import { csvField } from './csv.js';
+import { combinationalOutputs } from './settled.js';
+import type { TourClock } from './tour.js';
+
+/** Position of a lever: Z down when its gate's output is 1; '?' when the simulator cannot tell. */
+export type Position = 'up' | 'down' | '?';
+
+export interface CommissioningRow {
+  readonly step: number;
+  /** Clock number from 1 (0 for the reset before the first clock). */
+  readonly clock: number;
+  readonly action: string;
+  /** Per latch, its two Z levers after the action, and Q. */
+  readonly latches: readonly { readonly id: string; readonly name: string; readonly setZ: Position; readonly resetZ: Position; readonly q: string }[];
+  /** Per machine output, what its flag or actuator shows after the action ('0', '1' or 'X'). */
+  readonly outputs: readonly { readonly output: string; readonly part: string; readonly kind: 'flag' | 'actuator'; readonly shows: string }[];
+  /** State and slave code after the action ('' for a one-state machine). */
+  readonly state: string;
+  readonly code: string;
+  /** Alarms, or a difference from the state table; empty when all is as it should be. */
+  readonly note: string;
+}
+
+const zOf = (v: number): Position => (v === X ? '?' : v === 1 ? 'down' : 'up');
+
+/** The hand actions of the sheet, from power-up, and what the machine shows after each. */
+export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDelayS'>, tour: readonly TourClock[]): CommissioningRow[] {
+  if (build.encoding.bits === 0 || build.signals.phi1 === '') return combinationalRows(build, tour);
+  const sim = simFor(build, timingOf(profile));
+  const f = build.machine;
+  let [state] = powerUp(sim);
+  const rows: CommissioningRow[] = [];
+  const run = (clock: number, action: string, actions: readonly HandAction[], expect?: number): void => {
+    const alarms: string[] = [];
+    for (const a of actions) {
+      const [next, events] = stepSim(sim, state, a);
+      state = next;
+      alarms.push(...events.filter(isAlarm).map((e) => e.words));
+    }
+    const reading = readPart(sim, state);
+    if (expect !== undefined && reading.code !== build.encoding.codes[expect]) {
+      alarms.push(`the state table says ${f.states[expect]} (code ${build.encoding.codes[expect]}) here`);
+    }
+    rows.push(rowOf(sim, state, rows.length + 1, clock, action, alarms, reading.state ?? '(unused code)', reading.code));
+  };
+  const inputs = f.inputs;
+  run(0, 'Reset: pull the reset lever, then release it (both clock levers released).', resetActions(), f.start);
+  let current = valuesOf(inputs, '0'.repeat(inputs.length));
+  tour.forEach((c, i) => {
+    const clock = i + 1;
+    if (c.reset) run(clock, 'Reset: pull the reset lever, then release it.', resetActions(), f.start);
+    const values = valuesOf(inputs, c.inputs);
+    if (inputs.length > 0) {
+      const moves = clockActions(inputs, values, current).slice(0, -4);
+      run(clock, `Set the input levers: ${inputWords(inputs, c.inputs)}${moves.length === 0 ? ' (no change)' : ''}.`, moves);
+    }
+    current = values;
+    run(clock, 'Pull φ1.', [{ kind: 'pull', lever: 'phi1' }]);
+    run(clock, 'Release φ1.', [{ kind: 'release', lever: 'phi1' }]);
+    run(clock, 'Pull φ2.', [{ kind: 'pull', lever: 'phi2' }]);
+    run(clock, 'Release φ2.', [{ kind: 'release', lever: 'phi2' }], c.next);
+  });
+  return rows;
+}
+
+/** `marble pulled, coin released`. */
+export function inputWords(inputs: readonly string[], assignment: string): string {
+  return inputs.map((n, i) => `${n} ${assignment[i] === '1' ? 'pulled' : 'released'}`).join(', ');
+}
+
+function rowOf(sim: PartSim, state: PartState, step: number, clock: number, action: string, alarms: string[], stateName: string, code: string): CommissioningRow {
+  const v = state.values;
+  const outs = outputValues(sim, v);
+  return {
+    step,
+    clock,
+    action,
+    latches: sim.latches.map((l) => ({ id: l.id, name: l.name, setZ: zOf(v[l.set]), resetZ: zOf(v[l.reset]), q: show(v[l.set]) })),
+    outputs: sim.build.machine.outputs.map((o, k) => ({ output: o, part: sim.build.signals.outputs[o] ?? '', kind: sim.outputs[k].kind, shows: show(outs[k]) })),
+    state: stateName,
+    code,
+    note: alarms.join('; '),
+  };
+}
+
+function combinationalRows(build: Build, tour: readonly TourClock[]): CommissioningRow[] {
+  const f = build.machine;
+  return tour.map((c, i) => {
+    const shown = combinationalOutputs(build, c.inputs);
+    const want = f.rows[c.state][c.row].out;
+    const wrong = f.outputs.filter((_, k) => want[k] !== '-' && String(want[k]) !== shown[k].shows);
+    return {
+      step: i + 1,
+      clock: i + 1,
+      action: f.inputs.length > 0 ? `Set the input levers: ${inputWords(f.inputs, c.inputs)}.` : 'Look at the flags.',
+      latches: [],
+      outputs: shown,
+      state: f.states[0],
+      code: '',
+      note: wrong.length > 0 ? `the state table gives ${wrong.map((o) => `${o}=${want[f.outputs.indexOf(o)]}`).join(', ')} here` : '',
+    };
+  });
+}
+
+/** What an output part shows, in words. */
+export function showsWords(kind: 'flag' | 'actuator', shows: string): string {
+  if (shows === 'X') return '? (undetermined)';
+  if (kind === 'actuator') return shows === '1' ? 'lifted (1)' : 'at rest (0)';
+  return shows === '1' ? 'up (1)' : 'down (0)';
+}
+
+/** The sheet as CSV: one row per hand action, one column per latch lever and output, and an empty `done` column. */
+export function commissioningCsv(rows: readonly CommissioningRow[]): string {
+  const first = rows[0];
+  const header = [
+    'step',
+    'clock',
+    'action',
+    ...(first?.latches ?? []).flatMap((l) => [`${l.id} set Z`, `${l.id} reset Z`]),
+    ...(first?.outputs ?? []).map((o) => `${o.output} (${o.part})`),
+    'state after',
+    'code after',
+    'note',
+    'done',
+  ];
+  const lines = [header.map(csvField).join(',')];
+  for (const r of rows) {
+    const cells = [r.step, r.clock, r.action, ...r.latches.flatMap((l) => [l.setZ, l.resetZ]), ...r.outputs.map((o) => showsWords(o.kind, o.shows)), r.state, r.code, r.note, ''];
+    lines.push(cells.map(csvField).join(','));
+  }
+  return lines.join('\r\n') + '\r\n';
+}

@@ -1,0 +1,127 @@
+/**
+ * The state diagram of the built (minimised) machine: one box per state with its name, code
+ * and Moore outputs; one arrow per pair of states that has transitions, labelled with each
+ * guard (a readable expression over the inputs, widened as in readable.ts) and the Mealy
+ * outputs taken with it; the start state marked by a heavier outline, a "start" tag and an
+ * entry arrow. Rows whose next state is free are listed in the state's box.
+ *
+ * Method: layered graph drawing (Sugiyama, Tagawa & Toda 1981) by @dagrejs/dagre, rankdir
+ * LR; edge labels are laid out as dagre label nodes, so they do not overlap boxes; dagre
+ * places self-loops beside their state.
+ * "Moore output" here means: the same value on every row of the state (mooreOutputs); the
+ * rest are shown on the arrows.
+ */
+import dagre from '@dagrejs/dagre';
+import type { Build } from '../model/build.js';
+import { DONT_CARE } from '../model/flat.js';
+import { escapeXml } from './escape.js';
+import { coverExpr, wrapExpr, wrapJoined } from './readable.js';
+import { mooreOutputs, outputsText, rowGroups } from './sheet-logic.js';
+import { pathThrough, round1, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
+
+const LINE = 13;
+const WRAP = 34;
+
+export interface DiagramLayout {
+  readonly width: number;
+  readonly height: number;
+  readonly states: readonly { readonly index: number; readonly lines: readonly string[]; readonly x: number; readonly y: number; readonly width: number; readonly height: number; readonly start: boolean }[];
+  readonly arrows: readonly { readonly from: number; readonly to: number; readonly label: readonly string[]; readonly x: number; readonly y: number; readonly points: readonly Point[] }[];
+}
+
+/** Lay out the state diagram. */
+export function diagramLayout(build: Build): DiagramLayout {
+  const f = build.machine;
+  const g = new dagre.graphlib.Graph({ multigraph: true });
+  g.setGraph({ rankdir: 'LR', nodesep: 30, ranksep: 60, edgesep: 14, marginx: 20, marginy: 28 });
+  const groups = rowGroups(f);
+  const stateLines: string[][] = [];
+  const labels = new Map<string, string[]>();
+  f.states.forEach((name, s) => {
+    const moore = mooreOutputs(f, s);
+    const mooreKeys = new Set(moore.keys());
+    const lines = [name, build.encoding.bits > 0 ? `code ${build.encoding.codes[s]}` : 'one state'];
+    if (moore.size > 0) lines.push(...wrapJoined([...moore].map(([k, v]) => `${f.outputs[k]}=${v}`), ', ', WRAP));
+    const mealy = new Set(f.outputs.map((_, k) => k).filter((k) => !mooreKeys.has(k)));
+    for (const gr of groups[s]) {
+      const guard = f.inputs.length === 0 ? 'always' : coverExpr(gr.cubes, f.inputs);
+      const outs = mealy.size > 0 ? ` / ${outputsText(f.outputs, gr.out, mealy)}` : '';
+      const text = `${guard === '1' ? 'always' : guard}${outs}`;
+      if (gr.next === DONT_CARE) {
+        lines.push(...wrapExpr(`free: ${text}`, WRAP));
+        continue;
+      }
+      const key = `${s}>${gr.next}`;
+      labels.set(key, [...(labels.get(key) ?? []), ...wrapExpr(text, WRAP)]);
+    }
+    stateLines.push(lines);
+    const width = Math.max(90, ...lines.map((l, i) => textWidth(l, i === 0 ? 12 : 10, i > 0)) ) + 22;
+    g.setNode(String(s), { width, height: 14 + lines.length * LINE + (s === f.start ? 4 : 0) });
+  });
+  for (const [key, lines] of labels) {
+    const [a, b] = key.split('>');
+    const width = Math.max(...lines.map((l) => textWidth(l, 10, true))) + 8;
+    g.setEdge(a, b, { width, height: lines.length * LINE + 4, labelpos: 'c', label: lines }, key);
+  }
+  dagre.layout(g);
+  const states = f.states.map((_, s) => {
+    const n = g.node(String(s));
+    return { index: s, lines: stateLines[s], x: n.x as number, y: n.y as number, width: n.width, height: n.height, start: s === f.start };
+  });
+  const arrows = [...labels].map(([key, label]) => {
+    const [a, b] = key.split('>');
+    const e = g.edge(a, b, key);
+    return { from: Number(a), to: Number(b), label, x: e.x as number, y: e.y as number, points: (e.points ?? []).map((q: { x: number; y: number }) => ({ x: q.x, y: q.y })) };
+  });
+  const gl = g.graph();
+  return { width: Math.max(gl.width ?? 0, 240), height: gl.height ?? 0, states, arrows };
+}
+
+const STYLE = `
+.page { fill: #ffffff; }
+.state { fill: #f3f5f2; stroke: #3c4240; stroke-width: 1.2; }
+.state-start { stroke-width: 2.6; fill: #eef2ec; }
+.sname { font: 600 12px system-ui, sans-serif; fill: #1d2327; }
+.sline { font: 10px ui-monospace, Menlo, Consolas, monospace; fill: #3c4240; }
+.tag { font: 600 9px system-ui, sans-serif; fill: #3c4240; letter-spacing: 0.6px; }
+.arrow { fill: none; stroke: #4a4f4c; stroke-width: 1.1; }
+.tip { fill: #4a4f4c; }
+.lbg { fill: #ffffff; fill-opacity: 0.92; }
+.label { font: 10px ui-monospace, Menlo, Consolas, monospace; fill: #1d2327; }
+`;
+
+function tip(points: readonly Point[]): string {
+  const a = points[points.length - 2];
+  const b = points[points.length - 1];
+  const ang = Math.atan2(b.y - a.y, b.x - a.x);
+  const t = (r: number, da: number): string => `${round1(b.x - r * Math.cos(ang + da))},${round1(b.y - r * Math.sin(ang + da))}`;
+  return `<path d="M${t(8, 0.42)} L${round1(b.x)},${round1(b.y)} L${t(8, -0.42)} L${t(5, 0)} Z" class="tip" />`;
+}
+
+/** The state diagram of a build as a self-contained SVG. */
+export function diagramSvg(build: Build): string {
+  const l = diagramLayout(build);
+  const body: string[] = [];
+  for (const a of l.arrows) {
+    if (a.points.length >= 2) body.push(`<path d="${pathThrough(a.points)}" class="arrow" />`, tip(a.points));
+  }
+  for (const a of l.arrows) {
+    const w = Math.max(...a.label.map((t) => textWidth(t, 10, true))) + 6;
+    const h = a.label.length * LINE + 2;
+    body.push(`<rect x="${round1(a.x - w / 2)}" y="${round1(a.y - h / 2)}" width="${round1(w)}" height="${round1(h)}" rx="3" class="lbg" />`);
+    a.label.forEach((t, i) => body.push(svgText(a.x, a.y - h / 2 + 11 + i * LINE, t, 'label')));
+  }
+  for (const s of l.states) {
+    const top = s.y - s.height / 2;
+    body.push(`<g><title>${escapeXml(s.lines[0])}</title>`, svgBox(s.x, s.y, s.width, s.height, s.start ? 'state state-start' : 'state', 12));
+    s.lines.forEach((t, i) => body.push(svgText(s.x, top + 18 + i * LINE, t, i === 0 ? 'sname' : 'sline')));
+    if (s.start) {
+      const left = s.x - s.width / 2;
+      body.push(svgText(left + 4, top - 5, 'START', 'tag', 'start'));
+      body.push(`<path d="M${round1(left - 22)},${round1(s.y)} L${round1(left)},${round1(s.y)}" class="arrow" />`, tip([{ x: left - 22, y: s.y }, { x: left, y: s.y }]));
+    }
+    body.push('</g>');
+  }
+  const f = build.machine;
+  return svgDocument(l.width, l.height, `State diagram — ${f.name}`, `${f.states.length} states of ${f.name}; arrows labelled guard / Mealy outputs; the start state has a heavier outline.`, STYLE, body);
+}

@@ -1,0 +1,273 @@
+/**
+ * The schematic: every part as a box, every cord branch as a line, flowing left to right
+ * through one clock — levers, input inverters and reset driver, φ1 term gates, master
+ * latches, φ2 transfer gates, slave latches, output gates, flags and actuators.
+ *
+ * Method: layered graph drawing (K. Sugiyama, S. Tagawa & M. Toda, "Methods for visual
+ * understanding of hierarchical system structures", IEEE Trans. SMC 11(2), 1981) as
+ * implemented by @dagrejs/dagre, rankdir LR, with compound nodes: the master latch, the two
+ * transfer gates and the slave latch of one state bit sit in one cluster. A latch is drawn as
+ * one box with its set side (Q) in the top half and its reset side (Q̄) in the bottom half;
+ * its feedback cords are inside the box. Cords that run against the flow of a clock (slave
+ * outputs back to the term gates, found by stage order) are laid out reversed so the flow
+ * stays left to right, and drawn with their arrow at the true target.
+ *
+ * Visual language (our own): plain rounded boxes, a small kind label above the part id, a
+ * lever glyph on levers, fills told apart by lightness and outlines by dash pattern so the
+ * drawing prints in greyscale; cords solid, clock cords dashed, reset cords dotted, a flag's
+ * link to the Z lever it reads thin and dashed without an arrow.
+ */
+import dagre from '@dagrejs/dagre';
+import type { Build } from '../model/build.js';
+import type { Part } from '../model/netlist.js';
+import { escapeXml } from './escape.js';
+import { clip, pathThrough, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
+import { stagesOf } from './stages.js';
+
+export type NodeKind = 'operator' | 'clock' | 'reset' | 'term' | 'helper' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
+
+const KIND_LABEL: Readonly<Record<NodeKind, string>> = {
+  operator: 'operator lever',
+  clock: 'clock lever',
+  reset: 'reset lever',
+  term: 'φ1 term',
+  helper: 'helper gate',
+  master: 'master latch',
+  transfer: 'φ2 transfer',
+  slave: 'slave latch',
+  output: 'output gate',
+  indicator: 'indicator',
+};
+
+export interface SchematicNode {
+  readonly id: string;
+  readonly kind: NodeKind;
+  readonly label: string;
+  readonly detail: string;
+  /** Full name, shown as a tooltip. */
+  readonly title: string;
+  readonly x: number;
+  readonly y: number;
+  readonly width: number;
+  readonly height: number;
+}
+
+export interface SchematicEdge {
+  readonly cord: string;
+  readonly from: string;
+  readonly to: string;
+  readonly style: 'cord' | 'clock' | 'reset' | 'reads';
+  readonly points: readonly Point[];
+}
+
+export interface SchematicLayout {
+  readonly width: number;
+  readonly height: number;
+  readonly nodes: readonly SchematicNode[];
+  readonly clusters: readonly { readonly id: string; readonly label: string; readonly x: number; readonly y: number; readonly width: number; readonly height: number }[];
+  readonly edges: readonly SchematicEdge[];
+}
+
+function kindOf(p: Part, latchRole: ReadonlyMap<string, 'master' | 'slave'>): NodeKind {
+  switch (p.kind) {
+    case 'lever':
+      return p.role === 'input' ? 'operator' : p.role === 'reset' ? 'reset' : 'clock';
+    case 'latch':
+      return p.role;
+    case 'flag':
+    case 'actuator':
+      return 'indicator';
+    case 'gate':
+      if (p.role === 'term' || p.role === 'transfer' || p.role === 'output') return p.role;
+      if (p.role === 'latch-set' || p.role === 'latch-reset') return latchRole.get(p.latch ?? '') ?? 'master';
+      return 'helper';
+  }
+}
+
+function detailOf(p: Part): string {
+  if (p.kind === 'flag') return p.fixed !== undefined ? `${p.output} pinned ${p.fixed}` : `shows ${p.output}`;
+  if (p.kind === 'actuator') return `${p.output}, ${p.loadG} g`;
+  return p.name;
+}
+
+const MARGIN = 16;
+const LEGEND_H = 34;
+
+/** Place every part with dagre (see the module comment). */
+export function schematicLayout(build: Build): SchematicLayout {
+  const net = build.netlist;
+  const stages = stagesOf(net);
+  const latchRole = new Map<string, 'master' | 'slave'>();
+  for (const p of net.parts) if (p.kind === 'latch') latchRole.set(p.id, p.role);
+  const nodeOf = new Map<string, string>();
+  const shown = net.parts.filter((p) => !(p.kind === 'gate' && (p.role === 'latch-set' || p.role === 'latch-reset') && p.latch !== undefined));
+  for (const p of net.parts) nodeOf.set(p.id, p.kind === 'gate' && p.latch !== undefined && (p.role === 'latch-set' || p.role === 'latch-reset') ? p.latch : p.id);
+
+  const g = new dagre.graphlib.Graph({ compound: true, multigraph: true });
+  g.setGraph({ rankdir: 'LR', nodesep: 14, ranksep: 46, edgesep: 8, marginx: MARGIN, marginy: MARGIN });
+  g.setDefaultEdgeLabel(() => ({}));
+  const info = new Map<string, { kind: NodeKind; label: string; detail: string; title: string }>();
+  for (const p of shown) {
+    const kind = kindOf(p, latchRole);
+    const label = KIND_LABEL[kind];
+    const detail = clip(detailOf(p), 30);
+    const width = Math.max(textWidth(label, 9), textWidth(p.id, 11, true), textWidth(detail, 10)) + (kind === 'operator' || kind === 'clock' || kind === 'reset' ? 34 : 18);
+    const height = kind === 'master' || kind === 'slave' ? 60 : 48;
+    g.setNode(p.id, { width, height });
+    info.set(p.id, { kind, label, detail, title: p.name });
+  }
+  const bitOf = (id: string): number | undefined => {
+    const p = net.parts.find((q) => q.id === id);
+    if (p?.kind === 'latch') return p.bit;
+    const m = p?.kind === 'gate' && p.role === 'transfer' ? /^tr(\d+)\./.exec(p.id) : null;
+    return m ? Number(m[1]) : undefined;
+  };
+  const clusters = new Map<number, string>();
+  for (const p of shown) {
+    const bit = bitOf(p.id);
+    if (bit === undefined) continue;
+    let c = clusters.get(bit);
+    if (!c) {
+      c = `bit ${bit}`;
+      clusters.set(bit, c);
+      g.setNode(c, { label: `state bit q${bit}`, paddingTop: 18 });
+    }
+    g.setParent(p.id, c);
+  }
+
+  const drafts: { cord: string; from: string; to: string; style: SchematicEdge['style']; reversed: boolean; name: string; fromSide: number; toSide: number }[] = [];
+  const roleOfDriver = new Map(net.parts.map((p) => [p.id, p]));
+  const side = (id: string): number => {
+    const p = roleOfDriver.get(id);
+    return p?.kind === 'gate' && p.latch !== undefined ? (p.role === 'latch-set' ? -1 : p.role === 'latch-reset' ? 1 : 0) : 0;
+  };
+  for (const c of net.cords) {
+    const from = nodeOf.get(c.driver) ?? c.driver;
+    const d = roleOfDriver.get(c.driver);
+    const style: SchematicEdge['style'] = d?.kind === 'lever' && (d.role === 'phi1' || d.role === 'phi2') ? 'clock' : d?.kind === 'lever' && d.role === 'reset' ? 'reset' : d?.kind === 'gate' && d.role === 'reset-driver' ? 'reset' : 'cord';
+    const targets = [...c.ports.map((r) => r.part), ...c.actuators];
+    targets.forEach((t, i) => {
+      const to = nodeOf.get(t) ?? t;
+      if (to === from || !g.hasNode(to) || !g.hasNode(from)) return;
+      drafts.push({ cord: c.id, from, to, style, reversed: stages.compare(from, to) > 0, name: `${c.id}#${i}`, fromSide: side(c.driver), toSide: side(t) });
+    });
+  }
+  for (const p of net.parts) {
+    if (p.kind === 'flag' && p.fixed === undefined && g.hasNode(p.gate)) drafts.push({ cord: '', from: p.gate, to: p.id, style: 'reads', reversed: false, name: `${p.id}#z`, fromSide: 0, toSide: 0 });
+  }
+  for (const e of drafts) {
+    if (e.reversed) g.setEdge(e.to, e.from, { weight: 1, minlen: 1 }, e.name);
+    else g.setEdge(e.from, e.to, { weight: e.style === 'reads' ? 4 : 2, minlen: 1 }, e.name);
+  }
+  dagre.layout(g);
+
+  const nodes: SchematicNode[] = shown.map((p) => {
+    const n = g.node(p.id);
+    const i = info.get(p.id) as { kind: NodeKind; label: string; detail: string; title: string };
+    return { id: p.id, ...i, x: n.x as number, y: n.y as number, width: n.width, height: n.height };
+  });
+  const byId = new Map(nodes.map((n) => [n.id, n]));
+  const edges: SchematicEdge[] = drafts.map((e) => {
+    const raw = (e.reversed ? g.edge(e.to, e.from, e.name) : g.edge(e.from, e.to, e.name)).points ?? [];
+    const pts: Point[] = (e.reversed ? [...raw].reverse() : [...raw]).map((q) => ({ x: q.x, y: q.y }));
+    // Latch sides: Q leaves from the top half, Q̄ from the bottom; set ports in the top half, reset ports in the bottom.
+    const a = byId.get(e.from);
+    const b = byId.get(e.to);
+    if (pts.length > 0 && a && e.fromSide !== 0) pts[0] = { x: pts[0].x, y: a.y + (e.fromSide * a.height) / 4 };
+    if (pts.length > 0 && b && e.toSide !== 0) pts[pts.length - 1] = { x: pts[pts.length - 1].x, y: b.y + (e.toSide * b.height) / 4 };
+    return { cord: e.cord, from: e.from, to: e.to, style: e.style, points: pts };
+  });
+  const cl = [...clusters.values()].map((id) => {
+    const n = g.node(id);
+    return { id, label: String(n.label ?? id), x: (n.x as number) - n.width / 2, y: (n.y as number) - n.height / 2, width: n.width, height: n.height };
+  });
+  const gl = g.graph();
+  return { width: Math.max(gl.width ?? 0, 520), height: (gl.height ?? 0) + LEGEND_H, nodes, clusters: cl, edges };
+}
+
+const STYLE = `
+.page { fill: #ffffff; }
+.cluster { fill: #f7f7f4; stroke: #b9bdb8; stroke-width: 1; stroke-dasharray: 6 3; }
+.cluster-label { font: 600 10px system-ui, sans-serif; fill: #4a4f4c; }
+.box { stroke: #3c4240; stroke-width: 1.2; }
+.k-operator, .k-clock, .k-reset { fill: #ffffff; stroke-width: 1.8; }
+.k-term { fill: #e6ebf0; }
+.k-helper { fill: #f1f1f1; stroke-dasharray: 3 2; }
+.k-master { fill: #efe7d6; }
+.k-transfer { fill: #e9e4ef; }
+.k-slave { fill: #dfe9e1; }
+.k-output { fill: #f2e3de; }
+.k-indicator { fill: #ffffff; stroke-dasharray: 1.5 2; }
+.kind { font: 9px system-ui, sans-serif; fill: #5a605d; letter-spacing: 0.4px; }
+.pid { font: 11px ui-monospace, Menlo, Consolas, monospace; fill: #1d2327; }
+.detail { font: 10px system-ui, sans-serif; fill: #3c4240; }
+.half { stroke: #3c4240; stroke-width: 0.8; stroke-dasharray: 2 2; }
+.side { font: 8px system-ui, sans-serif; fill: #5a605d; }
+.glyph { stroke: #1d2327; stroke-width: 1.6; fill: none; stroke-linecap: round; }
+.pivot { fill: #1d2327; }
+.e { fill: none; stroke: #4a4f4c; stroke-width: 1; }
+.e-clock { stroke-dasharray: 6 3; stroke: #6b716e; }
+.e-reset { stroke-dasharray: 1.5 2.5; stroke: #6b716e; }
+.e-reads { stroke-dasharray: 3 3; stroke: #8a908d; stroke-width: 0.8; }
+.tip { fill: #4a4f4c; }
+.legend { font: 9px system-ui, sans-serif; fill: #3c4240; }
+`;
+
+function nodeSvg(n: SchematicNode): string {
+  const top = n.y - n.height / 2;
+  const parts = [`<g><title>${escapeXml(n.title)}</title>`];
+  parts.push(svgBox(n.x, n.y, n.width, n.height, `box k-${n.kind}`));
+  const lever = n.kind === 'operator' || n.kind === 'clock' || n.kind === 'reset';
+  const cx = lever ? n.x - 8 : n.x;
+  if (n.kind === 'master' || n.kind === 'slave') {
+    parts.push(`<line x1="${n.x - n.width / 2}" y1="${n.y}" x2="${n.x + n.width / 2}" y2="${n.y}" class="half" />`);
+    parts.push(svgText(n.x - n.width / 2 + 4, top + 10, 'Q · set', 'side', 'start'), svgText(n.x - n.width / 2 + 4, n.y + n.height / 2 - 4, 'Q̄ · reset', 'side', 'start'));
+    parts.push(svgText(n.x, n.y - 6, n.id, 'pid'), svgText(n.x, n.y + 13, n.detail, 'detail'));
+  } else {
+    parts.push(svgText(cx, top + 12, n.label, 'kind'), svgText(cx, top + 27, n.id, 'pid'), svgText(cx, top + 41, n.detail, 'detail'));
+  }
+  if (lever) {
+    // Lever glyph: a bar on a pivot, tipped down at the handle end.
+    const gx = n.x + n.width / 2 - 14;
+    const gy = n.y;
+    parts.push(`<line x1="${gx - 7}" y1="${gy - 5}" x2="${gx + 7}" y2="${gy + 5}" class="glyph" />`, `<circle cx="${gx}" cy="${gy}" r="2" class="pivot" />`);
+  }
+  parts.push('</g>');
+  return parts.join('');
+}
+
+function edgeSvg(e: SchematicEdge): string {
+  if (e.points.length < 2) return '';
+  const d = pathThrough(e.points);
+  const cls = e.style === 'cord' ? 'e' : `e e-${e.style}`;
+  const line = `<path d="${d}" class="${cls}" />`;
+  if (e.style === 'reads') return line;
+  const a = e.points[e.points.length - 2];
+  const b = e.points[e.points.length - 1];
+  const ang = Math.atan2(b.y - a.y, b.x - a.x);
+  const t = (r: number, da: number): string => `${(b.x - r * Math.cos(ang + da)).toFixed(1)},${(b.y - r * Math.sin(ang + da)).toFixed(1)}`;
+  return `${line}<path d="M${t(7, 0.45)} L${b.x.toFixed(1)},${b.y.toFixed(1)} L${t(7, -0.45)} L${t(4.5, 0)} Z" class="tip" />`;
+}
+
+function legendSvg(y: number): string {
+  const kinds: NodeKind[] = ['operator', 'term', 'master', 'transfer', 'slave', 'output', 'helper', 'indicator'];
+  let x = MARGIN;
+  const out: string[] = [];
+  for (const k of kinds) {
+    out.push(`<rect x="${x}" y="${y}" width="14" height="10" rx="2" class="box k-${k}" />`, svgText(x + 18, y + 9, KIND_LABEL[k], 'legend', 'start'));
+    x += 26 + textWidth(KIND_LABEL[k], 9);
+  }
+  return out.join('');
+}
+
+/** The schematic of a build as a self-contained SVG. */
+export function schematicSvg(build: Build): string {
+  const l = schematicLayout(build);
+  const body: string[] = [];
+  for (const c of l.clusters) body.push(`<rect x="${c.x.toFixed(1)}" y="${c.y.toFixed(1)}" width="${c.width.toFixed(1)}" height="${c.height.toFixed(1)}" rx="10" class="cluster" />`, svgText(c.x + 8, c.y + 12, c.label, 'cluster-label', 'start'));
+  for (const e of l.edges) body.push(edgeSvg(e));
+  for (const n of l.nodes) body.push(nodeSvg(n));
+  body.push(legendSvg(l.height - LEGEND_H + 12));
+  const f = build.machine;
+  return svgDocument(l.width, l.height, `Schematic — ${f.name}`, `${l.nodes.length} parts and ${l.edges.length} cord branches of the lever machine ${f.name}, flowing left to right through one clock.`, STYLE, body);
+}

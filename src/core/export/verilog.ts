@@ -1,0 +1,177 @@
+/**
+ * Structural Verilog (IEEE 1364-2005) of a build, with a self-checking testbench, so that an
+ * independent simulator (e.g. Icarus Verilog) can check our netlist against the state table.
+ *
+ * The module: the input, clock and reset levers are module inputs (a lever's capstan output is
+ * 1 exactly when it is pulled, so the lever's signal is the input itself); every gate —
+ * latch gates included, which are cross-coupled through their feedback cords — is one `nand`
+ * primitive over the drivers of every cord on every port, with delay #STAGE (the profile's
+ * stage delay in microseconds; `timescale 1us/1us`); a flag reads Z = AND of its gate's
+ * ports, modelled by an `and` primitive over the same inputs with the same delay (a `nand`
+ * when the flag is mounted inverted), so it moves when its gate does; an actuator shows 1
+ * while a cord on it pulls, i.e. a `nand` of its drivers; a fixed output is a constant.
+ *
+ * The testbench drives the commissioning sequence (tour.ts) with the two-phase hand procedure
+ * — reset; per clock: set the inputs, wait, compare the outputs with the state table (the
+ * outputs shown while the inputs are held, before φ1; free outputs are not compared), pull φ1,
+ * release, pull φ2, release, then compare the slave latches' Q outputs with the next state's
+ * code — waiting SETTLE (STAGE × (gates + 4), longer than any chain) after every move. It
+ * prints `PASS`, or one `FAIL …` line per mismatch and a final `FAIL n mismatches`, then calls
+ * $finish. Expected values come from the minimised state table, not from our simulator.
+ *
+ * Identifiers: names are mangled to simple identifiers (escape.ts, VerilogNames): inputs
+ * `in_<name>`, outputs `out_<name>`, gate nets `g_<part id>`, gate instances `u_<part id>`,
+ * indicator instances `f_<part id>`; the clock and reset inputs are `phi1`, `phi2`, `reset`;
+ * the module is `lw_<machine name>` and the testbench `lw_<machine name>_tb`. The file
+ * header lists every mapping, so a name in a simulator's output can be traced to its part.
+ */
+import type { Build } from '../model/build.js';
+import type { Profile } from '../physics/profile.js';
+import { verilogComment as vc, VerilogNames, verilogString as vs } from './escape.js';
+import type { TourClock } from './tour.js';
+
+/** The module and testbench texts, and the names a caller needs to run them. */
+export interface VerilogFiles {
+  /** The structural module. */
+  readonly module: string;
+  /** The testbench module (instantiates the structural one). */
+  readonly testbench: string;
+  readonly moduleName: string;
+  readonly testbenchName: string;
+}
+
+/** Structural Verilog of the build and a testbench that steps `tour` and checks it. */
+export function verilogFiles(build: Build, profile: Pick<Profile, 'stageDelayS'>, tour: readonly TourClock[]): VerilogFiles {
+  const names = new VerilogNames();
+  const f = build.machine;
+  const n = build.netlist;
+  const seq = build.encoding.bits > 0 && build.signals.phi1 !== '';
+  // Reserve the fixed port names first, so no mangled name can take them.
+  const fixed = seq ? { phi1: names.get('', 'phi1'), phi2: names.get('', 'phi2'), reset: names.get('', 'reset') } : undefined;
+  const moduleName = names.get('lw_', f.name);
+  const testbenchName = names.get('lw_', `${f.name}_tb`);
+  const inPort = (i: string): string => names.get('in_', i);
+  const outPort = (o: string): string => names.get('out_', o);
+  const net = new Map<string, string>();
+  for (const p of n.parts) {
+    if (p.kind === 'lever') {
+      if (p.role === 'input') net.set(p.id, inPort(p.input ?? p.name));
+      else if (fixed) net.set(p.id, fixed[p.role]);
+    } else if (p.kind === 'gate') net.set(p.id, names.get('g_', p.id));
+  }
+  const inputsOf = new Map<string, string[]>();
+  for (const c of n.cords) for (const r of c.ports) inputsOf.set(r.part, [...(inputsOf.get(r.part) ?? []), c.driver]);
+  const sig = (id: string): string => net.get(id) ?? "1'b1";
+  const gates = n.parts.filter((p) => p.kind === 'gate');
+  const body: string[] = [];
+  for (const g of gates) {
+    const ins = (inputsOf.get(g.id) ?? []).map(sig);
+    body.push(`  nand #(STAGE) ${names.get('u_', g.id)} (${sig(g.id)}, ${(ins.length > 0 ? ins : ["1'b1"]).join(', ')}); // ${vc(g.name)}`);
+  }
+  for (const o of f.outputs) {
+    const part = n.parts.find((q) => q.id === build.signals.outputs[o]);
+    const out = outPort(o);
+    if (part?.kind === 'flag') {
+      if (part.fixed !== undefined) body.push(`  assign ${out} = 1'b${part.fixed}; // ${vc(part.name)}, pinned`);
+      else {
+        const ins = (inputsOf.get(part.gate) ?? []).map(sig);
+        body.push(`  ${part.inverted ? 'nand' : 'and'} #(STAGE) ${names.get('f_', part.id)} (${out}, ${(ins.length > 0 ? ins : ["1'b1"]).join(', ')}); // ${vc(part.name)}: Z of ${vc(part.gate)}${part.inverted ? ', mounted inverted' : ''}`);
+      }
+    } else if (part?.kind === 'actuator') {
+      const ds = n.cords.filter((c) => c.actuators.includes(part.id)).map((c) => sig(c.driver));
+      if (part.fixed !== undefined || ds.length === 0) body.push(`  assign ${out} = 1'b${part.fixed ?? 0}; // ${vc(part.name)}, no cord`);
+      else body.push(`  nand ${names.get('f_', part.id)} (${out}, ${ds.join(', ')}); // ${vc(part.name)}: lifted while a cord pulls`);
+    } else body.push(`  assign ${out} = 1'b0; // no part shows this output`);
+  }
+  const stageUs = Math.max(1, Math.round(profile.stageDelayS * 1e6));
+  const ports = [...f.inputs.map((i) => `input wire ${inPort(i)}`), ...(fixed ? [`input wire ${fixed.phi1}`, `input wire ${fixed.phi2}`, `input wire ${fixed.reset}`] : []), ...f.outputs.map((o) => `output wire ${outPort(o)}`)];
+  const header = [
+    `// Structural Verilog (IEEE 1364-2005) of the lever machine ${vc(f.name)}, written by Latchwright.`,
+    '// Every gate is a NAND over every cord on every port; a latch is two cross-coupled gates.',
+    "// A lever's signal is 1 exactly when it is pulled. Delays are gate stages of STAGE microseconds.",
+    '// Identifiers were mangled from part ids and names (Latchwright docs/build-documents.md):',
+    ...names.entries().map(([from, to]) => `//   ${to} = ${vc(from)}`),
+  ];
+  const module = [
+    ...header,
+    '`timescale 1us / 1us',
+    `module ${moduleName} #(parameter STAGE = ${stageUs}) (`,
+    ports.map((x) => `  ${x}`).join(',\n'),
+    ');',
+    ...(gates.length > 0 ? [`  wire ${gates.map((g) => sig(g.id)).join(', ')};`] : []),
+    ...body,
+    'endmodule',
+    '',
+  ].join('\n');
+  const testbench = testbenchText(build, tour, { names, moduleName, testbenchName, fixed, inPort, outPort, sig, stageUs, gateCount: gates.length });
+  return { module, testbench, moduleName, testbenchName };
+}
+
+interface TbContext {
+  readonly names: VerilogNames;
+  readonly moduleName: string;
+  readonly testbenchName: string;
+  readonly fixed?: { readonly phi1: string; readonly phi2: string; readonly reset: string };
+  readonly inPort: (i: string) => string;
+  readonly outPort: (o: string) => string;
+  readonly sig: (id: string) => string;
+  readonly stageUs: number;
+  readonly gateCount: number;
+}
+
+function testbenchText(build: Build, tour: readonly TourClock[], c: TbContext): string {
+  const f = build.machine;
+  const codes = build.encoding.codes;
+  const ins = f.inputs.map(c.inPort);
+  const outs = f.outputs.map(c.outPort);
+  const ctl = c.fixed ? [c.fixed.phi1, c.fixed.phi2, c.fixed.reset] : [];
+  const slaves = build.signals.slaves.map((s) => {
+    const latch = build.netlist.parts.find((p) => p.id === s);
+    return latch?.kind === 'latch' ? `dut.${c.sig(latch.setGate)}` : "1'bx";
+  });
+  const lines: string[] = [
+    `// Self-checking testbench of ${c.moduleName}: the commissioning sequence, ${tour.length} clocks.`,
+    '`timescale 1us / 1us',
+    `module ${c.testbenchName};`,
+    ...[...ins, ...ctl].map((r) => `  reg ${r};`),
+    ...outs.map((o) => `  wire ${o};`),
+    '  integer errors;',
+    `  localparam STAGE = ${c.stageUs};`,
+    `  localparam SETTLE = STAGE * ${c.gateCount + 4};`,
+    `  ${c.moduleName} #(.STAGE(STAGE)) dut (${[...ins, ...ctl, ...outs].map((x) => `.${x}(${x})`).join(', ')});`,
+    '  initial begin',
+    '    errors = 0;',
+    ...[...ins, ...ctl].map((r) => `    ${r} = 1'b0;`),
+    '    #SETTLE;',
+  ];
+  const reset = (): void => {
+    if (c.fixed) lines.push(`    ${c.fixed.reset} = 1'b1; #SETTLE; ${c.fixed.reset} = 1'b0; #SETTLE;`);
+  };
+  reset();
+  tour.forEach((t, i) => {
+    const clock = i + 1;
+    if (t.reset) reset();
+    lines.push(`    // clock ${clock}: ${vc(f.states[t.state])} -> ${vc(f.states[t.next])}`);
+    if (ins.length > 0) lines.push(`    ${ins.map((r, k) => `${r} = 1'b${t.inputs[k]};`).join(' ')} #SETTLE;`);
+    f.rows[t.state][t.row].out.forEach((v, k) => {
+      if (v === '-') return;
+      lines.push(`    if (${outs[k]} !== 1'b${v}) begin errors = errors + 1; $display("FAIL clock ${clock}: output ${vs(f.outputs[k])} is %b, expected ${v}", ${outs[k]}); end`);
+    });
+    if (c.fixed && slaves.length > 0) {
+      const fx = c.fixed;
+      lines.push(`    ${fx.phi1} = 1'b1; #SETTLE; ${fx.phi1} = 1'b0; #SETTLE; ${fx.phi2} = 1'b1; #SETTLE; ${fx.phi2} = 1'b0; #SETTLE;`);
+      const want = codes[t.next];
+      const got = `{${slaves.join(', ')}}`;
+      lines.push(`    if (${got} !== ${slaves.length}'b${want}) begin errors = errors + 1; $display("FAIL clock ${clock}: state code is %b, expected ${want} (${vs(f.states[t.next])})", ${got}); end`);
+    }
+  });
+  lines.push(
+    '    if (errors == 0) $display("PASS");',
+    '    else $display("FAIL %0d mismatches", errors);',
+    '    $finish;',
+    '  end',
+    'endmodule',
+    '',
+  );
+  return lines.join('\n');
+}

@@ -1,0 +1,124 @@
+/**
+ * The wiring list: one row per cord branch (a cord tied to one port or actuator), with what
+ * a builder needs to tie it and to know it will hold — the driver and the side of it the cord
+ * leaves from, the target part and port, the routing allowance, the branch's load and the
+ * driver's force margin (physics/drive.ts, the capstan equation).
+ *
+ * Order: by driver in stage order (stages.ts: levers first, flags last; netlist order within
+ * a stage), then by target in the same order, then port name — so a builder works along the
+ * machine once, finishing every cord of one capstan before the next.
+ * Postcondition: every branch of every cord appears exactly once; every cell goes through
+ * csv.ts (RFC 4180 with formula-injection escaping).
+ */
+import { partIndex, type Netlist, type Part } from '../model/netlist.js';
+import { branchLoads, driveBudget } from '../physics/drive.js';
+import { routingFor } from '../physics/capstan.js';
+import type { Profile, RoutingLoss } from '../physics/profile.js';
+import { recordsToCsv } from './csv.js';
+import { num } from './readable.js';
+import { stagesOf, STAGE_WORDS } from './stages.js';
+
+/** One cord branch, ready to tie. */
+export interface WiringRow {
+  /** Running number, from 1, in tying order. */
+  readonly step: number;
+  readonly stage: string;
+  readonly cord: string;
+  /** The part the cord leaves: a lever, a gate, or the latch a latch gate belongs to. */
+  readonly driver: string;
+  readonly driverName: string;
+  /** Which output: `capstan` of a lever or gate, `Q (set side)` or `Q̄ (reset side)` of a latch. */
+  readonly driverSide: string;
+  /** The gate (or actuator) the branch is tied to. */
+  readonly target: string;
+  readonly targetName: string;
+  /** Port name on the target gate; empty for an actuator. */
+  readonly port: string;
+  /** Routing allowance in words. */
+  readonly routing: string;
+  readonly routingFactor: number;
+  /** Tension this branch needs, grams-force, routing included. */
+  readonly loadG: number;
+  /** The driver's margin (available / load of all its branches); Infinity for a driver with no load. */
+  readonly margin: number;
+}
+
+/** The routing allowance of a branch in words. */
+export function routingWords(r: RoutingLoss): string {
+  const bits: string[] = [];
+  if (r.pinAngleRad > 0) bits.push(`over pins ${num(r.pinAngleRad)} rad (μ ${num(r.muPin)})`);
+  if (r.pulleys > 0) bits.push(`${r.pulleys} ${r.pulleys === 1 ? 'pulley' : 'pulleys'} (η ${num(r.pulleyEfficiency)})`);
+  return bits.length === 0 ? 'straight' : bits.join(', ');
+}
+
+/** The driver a builder sees for a driving part, and the side the cord leaves from. */
+export function driverSide(p: Part | undefined, parts: ReadonlyMap<string, Part>): { driver: string; name: string; side: string } {
+  if (p?.kind === 'gate' && p.latch !== undefined && (p.role === 'latch-set' || p.role === 'latch-reset')) {
+    const l = parts.get(p.latch);
+    return { driver: p.latch, name: l?.name ?? p.latch, side: p.role === 'latch-set' ? 'Q (set side)' : 'Q̄ (reset side)' };
+  }
+  return { driver: p?.id ?? '', name: p?.name ?? '', side: 'capstan' };
+}
+
+/** Every cord branch in tying order. */
+export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
+  const parts = partIndex(netlist);
+  const stages = stagesOf(netlist);
+  const margins = new Map(driveBudget(netlist, profile).map((b) => [b.driver, b.margin]));
+  const loads = branchLoads(netlist, profile);
+  type Draft = Omit<WiringRow, 'step'> & { readonly driverPart: string; readonly targetPart: string };
+  const drafts: Draft[] = [];
+  for (const c of netlist.cords) {
+    const d = parts.get(c.driver);
+    const ds = driverSide(d, parts);
+    const r = routingFor(profile, c.id);
+    const branches = (loads.get(c.driver) ?? []).filter((b) => b.cord === c.id);
+    const targets = [...c.ports.map((p) => ({ part: p.part, port: p.port })), ...c.actuators.map((a) => ({ part: a, port: '' }))];
+    targets.forEach((t, i) => {
+      const b = branches[i];
+      drafts.push({
+        stage: STAGE_WORDS[stages.stage.get(c.driver) ?? 'lever'],
+        cord: c.id,
+        driver: ds.driver,
+        driverName: ds.name,
+        driverSide: ds.side,
+        target: t.part,
+        targetName: parts.get(t.part)?.name ?? '',
+        port: t.port,
+        routing: routingWords(r),
+        routingFactor: Math.round((b?.routingFactor ?? 1) * 1000) / 1000,
+        loadG: Math.round((b?.loadG ?? 0) * 10) / 10,
+        margin: Math.round((margins.get(c.driver) ?? Infinity) * 100) / 100,
+        driverPart: c.driver,
+        targetPart: t.part,
+      });
+    });
+  }
+  drafts.sort((a, b) => stages.compare(a.driverPart, b.driverPart) || cmp(a.cord, b.cord) || stages.compare(a.targetPart, b.targetPart) || cmp(a.port, b.port));
+  return drafts.map(({ driverPart: _d, targetPart: _t, ...row }, i) => ({ step: i + 1, ...row }));
+}
+
+const cmp = (a: string, b: string): number => (a < b ? -1 : a > b ? 1 : 0);
+
+const HEADER: Readonly<Record<keyof WiringRow, string>> = {
+  step: 'step',
+  stage: 'stage',
+  cord: 'cord',
+  driver: 'driver',
+  driverName: 'driver name',
+  driverSide: 'driver side',
+  target: 'target',
+  targetName: 'target name',
+  port: 'port',
+  routing: 'routing',
+  routingFactor: 'routing factor',
+  loadG: 'load (g)',
+  margin: 'driver margin',
+};
+
+/** The wiring list as CSV with a header line. */
+export function wiringCsv(rows: readonly WiringRow[]): string {
+  const cols = Object.keys(HEADER) as (keyof WiringRow)[];
+  const named = rows.map((r) => Object.fromEntries(cols.map((c) => [HEADER[c], Number.isFinite(r[c] as number) || typeof r[c] === 'string' ? r[c] : num(r[c] as number)])));
+  return recordsToCsv<Record<string, string | number>>(cols.map((c) => HEADER[c]), named);
+}

@@ -1,0 +1,51 @@
+/**
+ * The build report as data: what `build --json` prints and what the text report, the web
+ * designer and the build sheet read. Pure.
+ */
+import type { Built } from './pipeline.js';
+import { printCubes } from './forms/expr.js';
+import { billOfMaterials } from './physics/bom.js';
+import { operatorForces } from './physics/operator.js';
+
+export function machineBlock(b: Built) {
+  const a = b.analysed;
+  return {
+    name: a.machine.name,
+    states: a.machine.states.length,
+    reachable: a.machine.states.length - a.minimised.unreachable.length,
+    minimized: a.minimised.machine.states.length,
+    inputs: a.machine.inputs.length,
+    outputs: a.machine.outputs.length,
+    inputNames: a.machine.inputs,
+    outputNames: a.machine.outputs,
+  };
+}
+
+/** Equations as readable expressions over q-bits and inputs ('0' when a function has no term). */
+export function equationTexts(b: Built): { name: string; expr: string }[] {
+  return b.build.equations.map((e) => ({ name: e.name, expr: e.terms.length === 0 ? '0' : printCubes(e.terms, b.build.vars) }));
+}
+
+/** The whole report as one JSON-ready object. */
+export function buildReport(b: Built) {
+  const f = b.build.machine;
+  return {
+    machine: machineBlock(b),
+    merged: b.analysed.minimised.merged,
+    encoding: {
+      strategy: b.build.encoding.strategy,
+      bits: b.build.encoding.bits,
+      codes: Object.fromEntries(f.states.map((s, i) => [s, b.build.encoding.codes[i]])),
+      ...(b.search ? { search: b.search } : {}),
+    },
+    parts: b.build.parts,
+    guard: b.build.guard,
+    equations: equationTexts(b),
+    checks: b.checks,
+    ok: b.checks.every((c) => c.ok),
+    bom: billOfMaterials(b.build.netlist, b.profile),
+    operatorForces: operatorForces(b.build.netlist, b.profile),
+    netlist: b.build.netlist,
+    diagnostics: b.diagnostics,
+  };
+}

@@ -1,0 +1,115 @@
+/**
+ * <lw-problems>: the diagnostics, worded exactly as the command line words them
+ * (formatDiagnostic), errors first. An entry with a line jumps there.
+ * Events: `reveal` {line, column}.
+ */
+import { LitElement, css, html, nothing } from 'lit';
+import { formatDiagnostic, type Diagnostic } from '../../core/model/diagnostics.js';
+import { shared } from '../styles/shared.js';
+import { emit } from './emit.js';
+
+const RANK = { error: 0, warning: 1, info: 2 } as const;
+
+export class LwProblems extends LitElement {
+  static override properties = { diagnostics: { attribute: false }, settled: { type: Boolean } };
+  declare diagnostics: readonly Diagnostic[];
+  /** False while the text is still being read (the list may lag a keystroke). */
+  declare settled: boolean;
+
+  constructor() {
+    super();
+    this.diagnostics = [];
+    this.settled = true;
+  }
+
+  static override styles = [
+    shared,
+    css`
+      :host {
+        display: block;
+      }
+      ul {
+        list-style: none;
+        margin: 0;
+        padding: 0;
+        max-height: 11rem;
+        overflow: auto;
+      }
+      li button {
+        display: grid;
+        grid-template-columns: 4.6rem 1fr;
+        gap: 0.5rem;
+        width: 100%;
+        text-align: left;
+        border: 0;
+        border-left: 4px solid var(--lw-line);
+        border-radius: 0;
+        margin: 0 0 2px;
+        background: var(--lw-panel);
+      }
+      li.error button {
+        border-left-color: var(--lw-error);
+      }
+      li.warning button {
+        border-left-color: var(--lw-warn);
+      }
+      li.info button {
+        border-left-color: var(--lw-info);
+      }
+      .sev {
+        font-weight: 700;
+        font-size: 0.78rem;
+        text-transform: uppercase;
+        letter-spacing: 0.04em;
+      }
+      li.error .sev {
+        color: var(--lw-error);
+      }
+      li.warning .sev {
+        color: var(--lw-warn);
+      }
+      li.info .sev {
+        color: var(--lw-info);
+      }
+      .line {
+        white-space: pre-wrap;
+        word-break: break-word;
+      }
+      .clear {
+        padding: 0.3rem 0.2rem;
+      }
+    `,
+  ];
+
+  override render() {
+    const ds = [...this.diagnostics].sort((a, b) => RANK[a.severity] - RANK[b.severity] || (a.location.line ?? 0) - (b.location.line ?? 0));
+    const errors = ds.filter((d) => d.severity === 'error').length;
+    return html`<section aria-label="Problems">
+      <div role="status" class="visually-hidden">${errors === 0 ? 'No errors' : `${errors} error${errors === 1 ? '' : 's'}`}</div>
+      ${ds.length === 0
+        ? html`<p class="clear ok">${this.settled ? 'No problems: the machine reads cleanly.' : 'Reading…'}</p>`
+        : html`<ul>
+            ${ds.map(
+              (d) => html`<li class=${d.severity}>
+                <button
+                  ?disabled=${d.location.line === undefined}
+                  @click=${() => emit(this, 'reveal', { line: d.location.line ?? 1, column: d.location.column ?? 1 })}
+                  aria-label=${`${d.severity} ${d.code}${d.location.line !== undefined ? ` at line ${d.location.line}` : ''}: ${d.message}${d.hint ? `. ${d.hint}` : ''}`}
+                >
+                  <span class="sev">${d.severity} ${d.location.line !== undefined ? html`<br />line ${d.location.line}` : nothing}</span>
+                  <span class="line mono">${formatDiagnostic(d)}</span>
+                </button>
+              </li>`,
+            )}
+          </ul>`}
+    </section>`;
+  }
+}
+
+customElements.define('lw-problems', LwProblems);
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'lw-problems': LwProblems;
+  }
+}

@@ -1,0 +1,181 @@
+/**
+ * <lw-state-table>: the ledger — the machine as a table, one row per transition, always in
+ * step with the text. Guards, targets and new transitions edited here become small edits of
+ * the text at the places the parser recorded (controllers/table-edit.ts).
+ * Events: `text-edit` {edit}, `reveal` {line, column}.
+ */
+import { LitElement, css, html, nothing } from 'lit';
+import type { Machine, State, Transition } from '../../core/model/machine.js';
+import { outputWords } from '../diagram/layout.js';
+import { addState, addTransition, reguard, retarget, type TextEdit } from '../controllers/table-edit.js';
+import { shared } from '../styles/shared.js';
+import { emit } from './emit.js';
+
+export class LwStateTable extends LitElement {
+  static override properties = {
+    machine: { attribute: false },
+    text: { attribute: false },
+    codes: { attribute: false },
+    merged: { attribute: false },
+  };
+  declare machine: Machine | undefined;
+  declare text: string;
+  /** Code of each state of the build, by original state name. */
+  declare codes: Readonly<Record<string, string>>;
+  declare merged: Readonly<Record<string, string>>;
+
+  constructor() {
+    super();
+    this.machine = undefined;
+    this.text = '';
+    this.codes = {};
+    this.merged = {};
+  }
+
+  static override styles = [
+    shared,
+    css`
+      :host {
+        display: block;
+      }
+      table {
+        width: 100%;
+      }
+      td.state {
+        border-left: 3px solid var(--lw-brass);
+        background: var(--lw-sunk);
+      }
+      input.guard {
+        width: 100%;
+        min-width: 8rem;
+        font-family: var(--lw-mono);
+      }
+      .link {
+        background: none;
+        border: 0;
+        padding: 0;
+        color: var(--lw-brass);
+        font-weight: 650;
+        text-decoration: underline dotted;
+      }
+      .otherwise td {
+        color: var(--lw-ink-soft);
+        font-style: italic;
+      }
+      .add {
+        display: flex;
+        gap: 0.4rem;
+        margin-top: 0.8rem;
+      }
+    `,
+  ];
+
+  override render() {
+    const m = this.machine;
+    if (!m) return html`<p class="soft">The ledger fills in when the machine reads without errors.</p>`;
+    const editable = m.loc?.line !== undefined;
+    return html`<table aria-label="State ledger">
+        <thead>
+          <tr>
+            <th scope="col">State</th>
+            <th scope="col">Code</th>
+            <th scope="col">Shows</th>
+            <th scope="col">When</th>
+            <th scope="col">Go to</th>
+            <th scope="col">With</th>
+          </tr>
+        </thead>
+        <tbody>
+          ${m.states.map((s) => this.stateRows(m, s, editable))}
+        </tbody>
+      </table>
+      ${editable
+        ? html`<form class="add" @submit=${this.onAddState}>
+            <label>New state <input name="name" required pattern="[A-Za-z_][A-Za-z0-9_]*" aria-label="Name of the new state" /></label>
+            <button type="submit">Add state</button>
+          </form>`
+        : html`<p class="soft">This machine is not in the text form, so the ledger is read-only.</p>`}`;
+  }
+
+  private stateRows(m: Machine, s: State, editable: boolean) {
+    const span = s.transitions.length + 1 + (editable ? 1 : 0);
+    const into = this.merged[s.name];
+    const first = html`<td class="state" rowspan=${span}>
+        <button class="link" @click=${() => emit(this, 'reveal', { line: s.loc?.line ?? 1, column: s.loc?.column ?? 1 })} aria-label=${`Show state ${s.name} in the text`}>
+          ${s.name}</button
+        >${s.name === m.start ? html` <span class="soft">(start)</span>` : nothing}
+        ${into !== undefined && into !== s.name ? html`<div class="soft">same as ${into}</div>` : nothing}
+      </td>
+      <td class="mono" rowspan=${span}>${this.codes[s.name] ?? s.code ?? '—'}</td>
+      <td class="mono" rowspan=${span}>${outputWords(s.outputs, m.outputs) || '—'}</td>`;
+    const rows = s.transitions.map((t, i) => html`<tr>${i === 0 ? first : nothing}${this.transitionCells(m, t, i, editable)}</tr>`);
+    const rest = m.unspecified === 'hold' ? 'stay here' : 'anywhere (free)';
+    rows.push(html`<tr class="otherwise">
+      ${s.transitions.length === 0 ? first : nothing}
+      <td>${s.transitions.length === 0 ? 'always' : 'anything else'}</td>
+      <td>${rest}</td>
+      <td></td>
+    </tr>`);
+    if (editable) rows.push(html`<tr><td colspan="3">${this.adder(m, s)}</td></tr>`);
+    return rows;
+  }
+
+  private transitionCells(m: Machine, t: Transition, i: number, editable: boolean) {
+    const guard = t.when.text === '1' ? '' : t.when.text;
+    return html`<td>
+        ${editable
+          ? html`<input
+              class="guard"
+              .value=${guard}
+              placeholder=${i === 0 ? 'always' : 'otherwise'}
+              aria-label=${`Guard of transition ${i + 1} to ${t.to}`}
+              @change=${(e: Event) => this.send(reguard(this.text, t, (e.target as HTMLInputElement).value))}
+            />`
+          : html`<code>${guard || 'always'}</code>`}
+      </td>
+      <td>
+        ${editable
+          ? html`<select aria-label=${`Target of transition ${i + 1}`} @change=${(e: Event) => this.send(retarget(this.text, t, (e.target as HTMLSelectElement).value))}>
+              ${m.states.map((s) => html`<option ?selected=${s.name === t.to} value=${s.name}>${s.name}</option>`)}
+            </select>`
+          : t.to}
+      </td>
+      <td class="mono">${outputWords(t.outputs, m.outputs) || '—'}</td>`;
+  }
+
+  private adder(m: Machine, s: State) {
+    return html`<form
+      class="add"
+      style="margin:0"
+      @submit=${(e: Event) => {
+        e.preventDefault();
+        const f = new FormData(e.target as HTMLFormElement);
+        this.send(addTransition(this.text, s, String(f.get('to')), String(f.get('when') ?? '')));
+      }}
+    >
+      <input name="when" placeholder="when (always)" aria-label=${`Guard of a new transition from ${s.name}`} class="guard" />
+      <select name="to" aria-label=${`Target of a new transition from ${s.name}`}>
+        ${m.states.map((x) => html`<option value=${x.name}>${x.name}</option>`)}
+      </select>
+      <button type="submit" aria-label=${`Add a transition from ${s.name}`}>Add</button>
+    </form>`;
+  }
+
+  private onAddState = (e: Event): void => {
+    e.preventDefault();
+    const name = String(new FormData(e.target as HTMLFormElement).get('name') ?? '').trim();
+    if (name) this.send(addState(this.text, name));
+  };
+
+  private send(edit: TextEdit | undefined): void {
+    if (edit) emit(this, 'text-edit', { edit });
+  }
+}
+
+customElements.define('lw-state-table', LwStateTable);
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'lw-state-table': LwStateTable;
+  }
+}

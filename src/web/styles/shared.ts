@@ -1,0 +1,111 @@
+/** Styles every element shares: panels, buttons, tables, focus rings, visually hidden text. */
+import { css } from 'lit';
+
+export const shared = css`
+  :host {
+    color: var(--lw-ink);
+    font-family: var(--lw-font);
+  }
+  h2,
+  h3 {
+    margin: 0 0 0.5rem;
+    font-weight: 650;
+    letter-spacing: 0.01em;
+  }
+  h2 {
+    font-size: 1.05rem;
+  }
+  h3 {
+    font-size: 0.95rem;
+    color: var(--lw-ink-soft);
+    text-transform: uppercase;
+    letter-spacing: 0.06em;
+    font-size: 0.78rem;
+  }
+  p {
+    margin: 0.3rem 0;
+    line-height: 1.45;
+  }
+  button,
+  select,
+  input,
+  .button {
+    font: inherit;
+    font-size: 0.88rem;
+    color: var(--lw-ink);
+    background: var(--lw-panel);
+    border: 1px solid var(--lw-line);
+    border-radius: var(--lw-radius);
+    padding: 0.3rem 0.65rem;
+    cursor: pointer;
+  }
+  button:hover:not(:disabled),
+  .button:hover {
+    border-color: var(--lw-brass);
+  }
+  button:disabled {
+    opacity: 0.5;
+    cursor: default;
+  }
+  button.primary {
+    background: var(--lw-brass);
+    border-color: var(--lw-brass);
+    color: var(--lw-panel);
+    font-weight: 600;
+  }
+  :focus-visible {
+    outline: 2px solid var(--lw-focus);
+    outline-offset: 2px;
+  }
+  table {
+    border-collapse: collapse;
+    font-size: 0.86rem;
+  }
+  th,
+  td {
+    text-align: left;
+    padding: 0.25rem 0.6rem;
+    border-bottom: 1px solid var(--lw-line);
+    vertical-align: top;
+  }
+  th {
+    color: var(--lw-ink-soft);
+    font-weight: 600;
+  }
+  td.num,
+  th.num {
+    text-align: right;
+    font-variant-numeric: tabular-nums;
+  }
+  code,
+  .mono {
+    font-family: var(--lw-mono);
+    font-size: 0.85rem;
+  }
+  .panel {
+    background: var(--lw-panel);
+    border: 1px solid var(--lw-line);
+    border-radius: var(--lw-radius);
+    padding: 0.75rem 0.9rem;
+  }
+  .ok {
+    color: var(--lw-ok);
+  }
+  .bad {
+    color: var(--lw-error);
+  }
+  .warn {
+    color: var(--lw-warn);
+  }
+  .soft {
+    color: var(--lw-ink-soft);
+  }
+  .visually-hidden {
+    position: absolute;
+    width: 1px;
+    height: 1px;
+    overflow: hidden;
+    clip: rect(0 0 0 0);
+    white-space: nowrap;
+  }
+`;

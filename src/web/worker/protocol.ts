@@ -1,0 +1,119 @@
+/**
+ * Messages between the page and the synthesis workers. Everything crossing is plain data
+ * (structured clone), so results are views made for the page, never live objects.
+ *
+ * A page revision (`rev`) travels with every job and every answer: the page drops answers for
+ * a revision it has moved past, and the worker skips stages of a job a newer one replaced.
+ */
+import type { Build, CheckResult, Encoding, GuardReport, PartCounts } from '../../core/model/build.js';
+import type { Diagnostic } from '../../core/model/diagnostics.js';
+import type { Machine } from '../../core/model/machine.js';
+import type { MachineForm } from '../../core/forms/detect.js';
+import type { EncodeStrategy } from '../../core/phases/encode/index.js';
+import type { AutoReport } from '../../core/phases/encode/auto.js';
+import type { BomRow } from '../../core/physics/bom.js';
+import type { OperatorForce } from '../../core/physics/operator.js';
+import type { Profile } from '../../core/physics/profile.js';
+import type { RuleViolation } from '../../core/checks/forbidden-input.js';
+import type { TimingResult } from '../../core/checks/timing.js';
+import type { DiagramLayout } from '../diagram/layout.js';
+
+/** Codes chosen in the code book: a named strategy, or exact codes kept from a comparison. */
+export type EncodingChoice = { readonly strategy: EncodeStrategy } | { readonly kept: Encoding };
+
+/** How the page asks for a build. */
+export interface BuildSettings {
+  readonly encoding: EncodingChoice;
+  readonly seed: number;
+  /** 'dont-care' or the name of the state unused codes go to. */
+  readonly unusedCodes: string;
+}
+
+/** A machine as read: diagnostics always; the rest when it parsed and validated. */
+export interface Reading {
+  readonly ok: boolean;
+  readonly form: MachineForm;
+  readonly diagnostics: readonly Diagnostic[];
+  readonly machine?: Machine;
+  /** Original state → the reduced state standing for it. */
+  readonly merged?: Readonly<Record<string, string>>;
+  readonly reduced?: readonly string[];
+  readonly unreachable?: readonly string[];
+  readonly method?: string;
+  readonly layout?: DiagramLayout;
+}
+
+/** A build, as the page shows it. */
+export interface BuildView {
+  readonly build: Build;
+  readonly profile: Profile;
+  readonly equations: readonly { readonly name: string; readonly expr: string }[];
+  readonly guard: GuardReport;
+  readonly bom: readonly BomRow[];
+  readonly forces: readonly OperatorForce[];
+  readonly search?: AutoReport;
+  readonly diagnostics: readonly Diagnostic[];
+}
+
+/** One capstan's force margin, named for people. */
+export interface MarginBar {
+  readonly driver: string;
+  readonly label: string;
+  readonly margin: number;
+  readonly ok: boolean;
+}
+
+/** The worst drum torque of one state over its inputs and phases. */
+export interface TorqueBar {
+  readonly state: string;
+  readonly torqueNm: number;
+  /** Where the worst case is: inputs and phase, in words. */
+  readonly at: string;
+}
+
+/** Check results and the figures the parts view draws. */
+export interface ChecksView {
+  readonly checks: readonly CheckResult[];
+  readonly margins: readonly MarginBar[];
+  readonly minMargin: number;
+  readonly torque: readonly TorqueBar[];
+  readonly powerW: number;
+  readonly timing?: TimingResult;
+  readonly rules: readonly RuleViolation[];
+}
+
+/** One encoding of the comparison. */
+export interface CodeRow {
+  readonly strategy: EncodeStrategy;
+  readonly ok: boolean;
+  readonly encoding?: Encoding;
+  readonly parts?: PartCounts;
+  /** Gates computing set/reset product terms. */
+  readonly termGates?: number;
+  readonly guard?: GuardReport;
+  readonly cost?: number;
+  readonly cheapest: boolean;
+  readonly problem?: string;
+}
+
+/** A document for download. */
+export interface ExportFile {
+  readonly name: string;
+  readonly mime: string;
+  readonly text: string;
+}
+
+export type ToWorker =
+  | { readonly kind: 'work'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
+  | { readonly kind: 'compare'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
+  | { readonly kind: 'export'; readonly rev: number; readonly doc: string };
+
+export type FromWorker =
+  | { readonly kind: 'reading'; readonly rev: number; readonly reading: Reading }
+  | { readonly kind: 'built'; readonly rev: number; readonly view: BuildView }
+  | { readonly kind: 'unbuilt'; readonly rev: number; readonly diagnostics: readonly Diagnostic[] }
+  | { readonly kind: 'checked'; readonly rev: number; readonly view: ChecksView }
+  | { readonly kind: 'progress'; readonly rev: number; readonly done: number; readonly total: number | null; readonly best: number; readonly stage: string }
+  | { readonly kind: 'compared'; readonly rev: number; readonly rows: readonly CodeRow[] }
+  | { readonly kind: 'exported'; readonly rev: number; readonly doc: string; readonly file?: ExportFile; readonly problem?: string }
+  | { readonly kind: 'fault'; readonly rev: number; readonly message: string };
