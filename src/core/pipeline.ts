@@ -79,7 +79,10 @@ export interface BuildOptions extends AnalyseOptions {
   readonly encoding?: EncodeStrategy | ((f: FlatMachine, o: EncodeOptions) => Encoding);
   readonly profile?: Profile;
   readonly seed?: number;
-  /** 'dont-care' (default) or the name of a state every unused code is sent to. */
+  /**
+   * Unused state codes: 'dont-care', or the name of a state every unused code is sent to.
+   * Default: don't-care, unless that lets the build lock up in unused codes; then the start state.
+   */
   readonly unusedCodes?: string;
   /** Outputs shown by an actuator: output name → load in grams. */
   readonly actuators?: Readonly<Record<string, number>>;
@@ -106,8 +109,11 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
   const f = a.minimised.machine;
   const unused = resolveUnused(a, opts.unusedCodes);
   if (typeof unused === 'object') return { ok: false, form: a.form, diagnostics: [...a.diagnostics, unused] };
-  const synthOpts = { profile, unusedCodes: unused, actuators: opts.actuators };
+  // Buffer trees come from the force budget (balanceDrive), not from a fixed fan-out limit.
+  const synthOpts = { profile, unusedCodes: unused, actuators: opts.actuators, tooMany: () => false };
   const make = (enc: Encoding): Build => withDrive(synthesise(f, enc, synthOpts), profile);
+  // The search prices candidates with the guard method that wins in practice and no unguarded baseline (2 minimisations instead of 5).
+  const price = (enc: Encoding): Build => withDrive(synthesise(f, enc, { ...synthOpts, guard: 'split-by-bit', guardBaseline: false }), profile);
   try {
     const encoded = timed(opts, 'encode', () =>
       encode(f, opts.encoding ?? 'auto', {
@@ -116,19 +122,27 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
         budget: opts.budget,
         now: opts.now,
         onProgress: opts.onProgress,
-        cost: (codes, bits) => partsCost(make({ strategy: 'candidate', bits, codes }).parts, profile.cost),
+        cost: (codes, bits) => partsCost(price({ strategy: 'candidate', bits, codes }).parts, profile.cost),
       }),
     );
     const diagnostics = [...a.diagnostics, ...encoded.diagnostics];
     if (!encoded.encoding || hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
     const encoding = encoded.encoding;
-    const build = timed(opts, 'synthesise', () => make(encoding));
+    const first = timed(opts, 'synthesise', () => make(encoding));
+    const build = opts.unusedCodes === undefined ? withRecovery(first, profile, (to) => withDrive(synthesise(f, encoding, { ...synthOpts, unusedCodes: to }), profile)) : first;
+    if (build !== first) diagnostics.push(diag('LW703', `unused codes left free could lock ${f.name} up, so they are sent to the start state '${f.states[f.start]}'`, {}));
     const checks = opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, opts.seed ?? 1));
     return { ok: true, analysed: a, build, search: encoded.search, checks, profile, diagnostics };
   } catch (e) {
     if (e instanceof DiagnosticError) return { ok: false, form: a.form, diagnostics: [...a.diagnostics, ...e.diagnostics] };
     throw e;
   }
+}
+
+/** The build, or (when it can lock up in unused codes) the build with unused codes sent to the start state. */
+function withRecovery(b: Build, profile: Profile, rebuild: (to: number) => Build): Build {
+  if (b.encoding.codes.length === 2 ** b.encoding.bits || checkRecovery(b, profile).ok) return b;
+  return rebuild(b.machine.start);
 }
 
 /** Replace the mapper's fixed fan-out limit by the capstan force budget (buffer trees where a margin fails). */

@@ -17,6 +17,7 @@ import { DiagnosticError, diag } from './model/diagnostics.js';
 import type { FlatMachine } from './model/flat.js';
 import type { Build, Encoding, Equation } from './model/build.js';
 import type { Profile } from './physics/profile.js';
+import type { Cord } from './model/netlist.js';
 import { excite, type Excitation } from './phases/excite.js';
 import { guard, mergeTerms, termsOf, type GuardMethod, type Minimiser } from './phases/guard.js';
 import { mapToParts, partsCost, type Mapped } from './phases/map/index.js';
@@ -39,6 +40,8 @@ export interface SynthesisOptions {
    * only needs part counts passes false and saves one minimisation per call.
    */
   readonly guardBaseline?: boolean;
+  /** Which cords the mapper splits into buffer trees (default: a fixed fan-out limit; the pipeline passes none and balances by force budget instead). */
+  readonly tooMany?: (cord: Cord) => boolean;
 }
 
 /** Build the lever machine of a flat machine under an encoding. */
@@ -61,6 +64,7 @@ export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions
         out,
         actuators: opts.actuators,
         profile: opts.profile,
+        ...(opts.tooMany ? { tooMany: opts.tooMany } : {}),
       });
       cache.set(sr, m);
     }

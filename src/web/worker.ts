@@ -8,6 +8,7 @@ import type { Analysed, Built } from '../core/pipeline.js';
 import type { Progress } from '../core/phases/encode/cost.js';
 import { buildJob, checkJob, compareJob, readJob } from './worker/jobs.js';
 import { exportFile } from './worker/exports.js';
+import { schematicSvg } from '../core/export/schematic-svg.js';
 import type { BuildSettings, FromWorker, ToWorker } from './worker/protocol.js';
 
 const scope = self as unknown as { postMessage(m: FromWorker): void; onmessage: ((e: MessageEvent<ToWorker>) => void) | null };
@@ -49,6 +50,13 @@ async function work(rev: number, text: string, file: string, settings: BuildSett
   const c = checkJob(b.built, settings.seed);
   checked = { rev, built: c.built };
   post({ kind: 'checked', rev, view: c.view });
+  await turn();
+  if (stale(rev)) return;
+  try {
+    post({ kind: 'schematic', rev, svg: schematicSvg(b.built.build) });
+  } catch (e) {
+    post({ kind: 'schematic', rev, problem: e instanceof Error ? e.message : String(e) });
+  }
 }
 
 async function compare(rev: number, text: string, file: string, settings: BuildSettings): Promise<void> {

@@ -28,12 +28,12 @@ describe('core/synthesise', () => {
         const enc = kind === 'binary' ? binaryEncoding(f) : kind === 'one-hot' ? oneHotEncoding(f) : randomEncoding(f, binaryEncoding(f).bits + 1, seed);
         expectSound(synthesise(f, enc, { profile: DEFAULT_PROFILE }));
       }),
-      { seed: 42, numRuns: 30 },
+      { seed: 42, numRuns: 20 },
     );
   });
 
   it('builds LGSynth\'91 benchmark machines (open dataset, tests/fixtures/lgsynth91) soundly', () => {
-    for (const name of ['lion', 'lion9', 'dk27', 'bbtas', 'mc', 'ex5', 'beecount', 'dk15']) {
+    for (const name of ['lion', 'dk27', 'bbtas', 'mc', 'beecount', 'dk15']) {
       const f = fixture(name);
       const b = synthesise(f, binaryEncoding(f), { profile: DEFAULT_PROFILE });
       expectSound(b);

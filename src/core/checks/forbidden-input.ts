@@ -100,7 +100,8 @@ export function checkForbiddenInput(build: Build, profile: Pick<Profile, 'stageD
     failure = { code, masterCode: m, inputs: a, actions, trace: describeTrace(actions), ...(alarms[0].latch ? { latch: alarms[0].latch } : {}), words: `${where}: ${alarms[0].words}` };
   };
   outer: for (const c of codes) {
-    for (const m of freeMasters ? allCodes(bits) : [c]) {
+    // The masters equal to the slaves first (as every clock leaves them), then every other master code.
+    for (const m of freeMasters ? [c, ...allCodes(bits).filter((x) => x !== c)] : [c]) {
       const zero = '0'.repeat(n);
       const base = stateAtCode(sim, c, zero, m);
       const resetAlarms = runActions(sim, base.values, resetActions());

@@ -22,59 +22,100 @@ import { pathThrough, round1, svgBox, svgDocument, svgText, textWidth, type Poin
 const LINE = 13;
 const WRAP = 34;
 
+/** A state box; `loop` is its self-loop label (drawn above the box, inside the space dagre reserved). */
+export interface DiagramState {
+  readonly index: number;
+  readonly lines: readonly string[];
+  /** Box centre and size. */
+  readonly x: number;
+  readonly y: number;
+  readonly width: number;
+  readonly height: number;
+  readonly start: boolean;
+  readonly loop: readonly string[];
+  /** The whole space reserved for the state: box, self-loop and its label. */
+  readonly outer: { readonly x: number; readonly y: number; readonly width: number; readonly height: number };
+}
+
 export interface DiagramLayout {
   readonly width: number;
   readonly height: number;
-  readonly states: readonly { readonly index: number; readonly lines: readonly string[]; readonly x: number; readonly y: number; readonly width: number; readonly height: number; readonly start: boolean }[];
+  readonly states: readonly DiagramState[];
   readonly arrows: readonly { readonly from: number; readonly to: number; readonly label: readonly string[]; readonly x: number; readonly y: number; readonly points: readonly Point[] }[];
 }
 
-/** Lay out the state diagram. */
+/** Height above a box taken by its self-loop: the arc plus its label. */
+const loopSpace = (lines: number): number => (lines === 0 ? 0 : 26 + lines * LINE + 4);
+
+/** Lay out the state diagram. Self-loops are not given to dagre: each state's node is made tall enough for its loop and label. */
 export function diagramLayout(build: Build): DiagramLayout {
   const f = build.machine;
   const g = new dagre.graphlib.Graph({ multigraph: true });
-  g.setGraph({ rankdir: 'LR', nodesep: 30, ranksep: 60, edgesep: 14, marginx: 20, marginy: 28 });
+  g.setGraph({ rankdir: 'LR', nodesep: 30, ranksep: 60, edgesep: 14, marginx: 30, marginy: 24 });
   const groups = rowGroups(f);
-  const stateLines: string[][] = [];
+  const boxes: { lines: string[]; loop: string[]; width: number; height: number }[] = [];
   const labels = new Map<string, string[]>();
   f.states.forEach((name, s) => {
     const moore = mooreOutputs(f, s);
-    const mooreKeys = new Set(moore.keys());
     const lines = [name, build.encoding.bits > 0 ? `code ${build.encoding.codes[s]}` : 'one state'];
     if (moore.size > 0) lines.push(...wrapJoined([...moore].map(([k, v]) => `${f.outputs[k]}=${v}`), ', ', WRAP));
-    const mealy = new Set(f.outputs.map((_, k) => k).filter((k) => !mooreKeys.has(k)));
+    const mealy = new Set(f.outputs.map((_, k) => k).filter((k) => !moore.has(k)));
+    const loop: string[] = [];
     for (const gr of groups[s]) {
-      const guard = f.inputs.length === 0 ? 'always' : coverExpr(gr.cubes, f.inputs);
+      const guard = f.inputs.length === 0 ? 'always' : coverExpr(gr.cubes, f.inputs, { dc: f.never });
       const outs = mealy.size > 0 ? ` / ${outputsText(f.outputs, gr.out, mealy)}` : '';
-      const text = `${guard === '1' ? 'always' : guard}${outs}`;
-      if (gr.next === DONT_CARE) {
-        lines.push(...wrapExpr(`free: ${text}`, WRAP));
-        continue;
+      const text = wrapExpr(`${guard === '1' ? 'always' : guard}${outs}`, WRAP);
+      if (gr.next === DONT_CARE) lines.push(...wrapExpr(`free: ${text.join(' ')}`, WRAP));
+      else if (gr.next === s) loop.push(...text);
+      else {
+        const key = `${s}>${gr.next}`;
+        labels.set(key, [...(labels.get(key) ?? []), ...text]);
       }
-      const key = `${s}>${gr.next}`;
-      labels.set(key, [...(labels.get(key) ?? []), ...wrapExpr(text, WRAP)]);
     }
-    stateLines.push(lines);
-    const width = Math.max(90, ...lines.map((l, i) => textWidth(l, i === 0 ? 12 : 10, i > 0)) ) + 22;
-    g.setNode(String(s), { width, height: 14 + lines.length * LINE + (s === f.start ? 4 : 0) });
+    const width = Math.max(90, ...lines.map((l, i) => textWidth(l, i === 0 ? 12 : 10, i > 0))) + 22;
+    const height = 14 + lines.length * LINE + (s === f.start ? 4 : 0);
+    boxes.push({ lines, loop, width, height });
+    const loopW = loop.length > 0 ? Math.max(...loop.map((l) => textWidth(l, 10, true))) + 10 : 0;
+    g.setNode(String(s), { width: Math.max(width, loopW), height: height + loopSpace(loop.length) });
   });
   for (const [key, lines] of labels) {
     const [a, b] = key.split('>');
     const width = Math.max(...lines.map((l) => textWidth(l, 10, true))) + 8;
-    g.setEdge(a, b, { width, height: lines.length * LINE + 4, labelpos: 'c', label: lines }, key);
+    g.setEdge(a, b, { width, height: lines.length * LINE + 4, labelpos: 'c' }, key);
   }
   dagre.layout(g);
-  const states = f.states.map((_, s) => {
+  const states = f.states.map((_, s): DiagramState => {
     const n = g.node(String(s));
-    return { index: s, lines: stateLines[s], x: n.x as number, y: n.y as number, width: n.width, height: n.height, start: s === f.start };
+    const b = boxes[s];
+    const top = (n.y as number) - n.height / 2;
+    const outer = { x: (n.x as number) - n.width / 2, y: top, width: n.width, height: n.height };
+    return { index: s, lines: b.lines, loop: b.loop, x: n.x as number, y: top + n.height - b.height / 2, width: b.width, height: b.height, start: s === f.start, outer };
   });
   const arrows = [...labels].map(([key, label]) => {
     const [a, b] = key.split('>');
     const e = g.edge(a, b, key);
-    return { from: Number(a), to: Number(b), label, x: e.x as number, y: e.y as number, points: (e.points ?? []).map((q: { x: number; y: number }) => ({ x: q.x, y: q.y })) };
+    const points = (e.points ?? []).map((q: { x: number; y: number }) => ({ x: q.x, y: q.y }));
+    // dagre aims at the centre of the reserved space; end on the box itself.
+    const to = states[Number(b)];
+    const from = states[Number(a)];
+    if (points.length >= 2) {
+      points[0] = clampTo(from, points[0]);
+      points[points.length - 1] = clampTo(to, points[points.length - 1]);
+    }
+    return { from: Number(a), to: Number(b), label, x: e.x as number, y: e.y as number, points };
   });
   const gl = g.graph();
   return { width: Math.max(gl.width ?? 0, 240), height: gl.height ?? 0, states, arrows };
+}
+
+/** Move an end point that dagre put on the reserved space's edge onto the box's edge, keeping its side. */
+function clampTo(s: DiagramState, q: Point): Point {
+  const top = s.y - s.height / 2;
+  const y = Math.min(Math.max(q.y, top + 6), s.y + s.height / 2 - 6);
+  const left = s.x - s.width / 2;
+  const right = s.x + s.width / 2;
+  const x = q.x < s.x ? left : right;
+  return { x, y };
 }
 
 const STYLE = `
@@ -113,6 +154,14 @@ export function diagramSvg(build: Build): string {
   }
   for (const s of l.states) {
     const top = s.y - s.height / 2;
+    if (s.loop.length > 0) {
+      const x0 = s.x + s.width / 2 - 26;
+      const x1 = s.x + s.width / 2 - 10;
+      body.push(`<path d="M${round1(x0)},${round1(top)} C${round1(x0 - 6)},${round1(top - 26)} ${round1(x1 + 10)},${round1(top - 26)} ${round1(x1)},${round1(top)}" class="arrow" />`);
+      body.push(tip([{ x: x1 + 3, y: top - 8 }, { x: x1, y: top }]));
+      const ly = top - 26 - s.loop.length * LINE;
+      s.loop.forEach((t, i) => body.push(svgText(s.x, ly + 10 + i * LINE, t, 'label', 'middle')));
+    }
     body.push(`<g><title>${escapeXml(s.lines[0])}</title>`, svgBox(s.x, s.y, s.width, s.height, s.start ? 'state state-start' : 'state', 12));
     s.lines.forEach((t, i) => body.push(svgText(s.x, top + 18 + i * LINE, t, i === 0 ? 'sname' : 'sline')));
     if (s.start) {

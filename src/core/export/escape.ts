@@ -30,7 +30,9 @@ export const escapeHtml = escapeXml;
 export function escapeMd(text: string): string {
   return text
     .replace(/\r\n|\r|\n/g, ' ')
-    .replace(/[\\`*_[\]<>|&#~]/g, (c) => `\\${c}`);
+    .replace(/[\\`*[\]<>|&#~]/g, (c) => `\\${c}`)
+    // An underscore inside a word never starts emphasis (CommonMark §6.2), so `got_green` stays as it is.
+    .replace(/(?<![A-Za-z0-9])_|_(?![A-Za-z0-9])/g, '\\_');
 }
 
 /** Keywords of IEEE 1364-2005 (Annex B) an identifier must not collide with. */

@@ -5,7 +5,9 @@
  * Espresso-II: R. K. Brayton et al., *Logic Minimization Algorithms for VLSI Synthesis*,
  * Kluwer 1984, ch. 4 — each literal is dropped when the larger cube still lies inside the
  * cover) and absorbed, so `1-`, `01` reads `a | b`, not `a | !a & b`. The widened cover has
- * exactly the same minterms: it changes the words, never the function.
+ * exactly the same minterms, apart from input combinations the machine declares never to
+ * occur, which a guard may be read to include or not: it changes the words, never the
+ * behaviour.
  */
 import { absorb, coverContains, type Cube, type CubeList } from '../model/cube.js';
 
@@ -19,24 +21,31 @@ export function cubeExpr(cube: Cube, vars: readonly string[]): string {
 /** Covers larger than this are shown as they are (widening costs a subtraction per literal). */
 const WIDEN_LIMIT = 64;
 
-/** The cover with every cube widened inside the cover, absorbed, in a stable order. */
-export function widen(cover: CubeList): Cube[] {
-  if (cover.length === 0 || cover.length > WIDEN_LIMIT) return [...cover];
+/**
+ * The cover with every cube widened inside the cover plus the don't-care cubes `dc` (input
+ * combinations that never occur), absorbed, in a stable order.
+ */
+export function widen(cover: CubeList, dc: CubeList = []): Cube[] {
+  if (cover.length === 0 || cover.length + dc.length > WIDEN_LIMIT) return [...cover];
+  const room = [...cover, ...dc];
   const out = cover.map((c) => {
     let cube = c;
     for (let i = 0; i < cube.length; i++) {
       if (cube[i] === '-') continue;
       const wider = cube.slice(0, i) + '-' + cube.slice(i + 1);
-      if (coverContains(cover, [wider])) cube = wider;
+      if (coverContains(room, [wider])) cube = wider;
     }
     return cube;
   });
   return absorb(out).sort((a, b) => (a < b ? 1 : a > b ? -1 : 0));
 }
 
-/** A sum of products: `0` when empty, `1` when some term is the constant 1. */
-export function coverExpr(cover: CubeList, vars: readonly string[], opts: { readonly widen?: boolean } = {}): string {
-  const cubes = opts.widen === false ? [...cover] : widen(cover);
+/**
+ * A sum of products: `0` when empty, `1` when some term is the constant 1. Widened for
+ * display unless `widen` is false; `dc` are combinations that never occur (widening may use them).
+ */
+export function coverExpr(cover: CubeList, vars: readonly string[], opts: { readonly widen?: boolean; readonly dc?: CubeList } = {}): string {
+  const cubes = opts.widen === false ? [...cover] : widen(cover, opts.dc);
   if (cubes.length === 0) return '0';
   const terms = cubes.map((c) => cubeExpr(c, vars));
   return terms.includes('1') ? '1' : terms.join(' | ');

@@ -39,6 +39,8 @@ const KIND_LABEL: Readonly<Record<NodeKind, string>> = {
   indicator: 'indicator',
 };
 
+const HELPER_LABEL: Readonly<Record<string, string>> = { inverter: 'inverter', buffer: 'buffer', 'reset-driver': 'reset driver' };
+
 export interface SchematicNode {
   readonly id: string;
   readonly kind: NodeKind;
@@ -92,6 +94,8 @@ function detailOf(p: Part): string {
 
 const MARGIN = 16;
 const LEGEND_H = 34;
+/** The legend's width, so a small machine's drawing still shows all of it. */
+const LEGEND_W = 1060;
 
 /** Place every part with dagre (see the module comment). */
 export function schematicLayout(build: Build): SchematicLayout {
@@ -109,7 +113,7 @@ export function schematicLayout(build: Build): SchematicLayout {
   const info = new Map<string, { kind: NodeKind; label: string; detail: string; title: string }>();
   for (const p of shown) {
     const kind = kindOf(p, latchRole);
-    const label = KIND_LABEL[kind];
+    const label = kind === 'helper' && p.kind === 'gate' ? HELPER_LABEL[p.role] ?? KIND_LABEL.helper : kind === 'indicator' ? p.kind : KIND_LABEL[kind];
     const detail = clip(detailOf(p), 30);
     const width = Math.max(textWidth(label, 9), textWidth(p.id, 11, true), textWidth(detail, 10)) + (kind === 'operator' || kind === 'clock' || kind === 'reset' ? 34 : 18);
     const height = kind === 'master' || kind === 'slave' ? 60 : 48;
@@ -153,7 +157,7 @@ export function schematicLayout(build: Build): SchematicLayout {
     });
   }
   for (const p of net.parts) {
-    if (p.kind === 'flag' && p.fixed === undefined && g.hasNode(p.gate)) drafts.push({ cord: '', from: p.gate, to: p.id, style: 'reads', reversed: false, name: `${p.id}#z`, fromSide: 0, toSide: 0 });
+    if (p.kind === 'flag' && p.fixed === undefined && g.hasNode(nodeOf.get(p.gate) ?? p.gate)) drafts.push({ cord: '', from: nodeOf.get(p.gate) ?? p.gate, to: p.id, style: 'reads', reversed: false, name: `${p.id}#z`, fromSide: 0, toSide: 0 });
   }
   for (const e of drafts) {
     if (e.reversed) g.setEdge(e.to, e.from, { weight: 1, minlen: 1 }, e.name);
@@ -182,7 +186,7 @@ export function schematicLayout(build: Build): SchematicLayout {
     return { id, label: String(n.label ?? id), x: (n.x as number) - n.width / 2, y: (n.y as number) - n.height / 2, width: n.width, height: n.height };
   });
   const gl = g.graph();
-  return { width: Math.max(gl.width ?? 0, 520), height: (gl.height ?? 0) + LEGEND_H, nodes, clusters: cl, edges };
+  return { width: Math.max(gl.width ?? 0, LEGEND_W), height: (gl.height ?? 0) + LEGEND_H, nodes, clusters: cl, edges };
 }
 
 const STYLE = `
@@ -250,12 +254,17 @@ function edgeSvg(e: SchematicEdge): string {
 }
 
 function legendSvg(y: number): string {
-  const kinds: NodeKind[] = ['operator', 'term', 'master', 'transfer', 'slave', 'output', 'helper', 'indicator'];
+  const kinds: [NodeKind, string][] = [['operator', 'lever'], ['term', 'φ1 term'], ['master', 'master latch'], ['transfer', 'φ2 transfer'], ['slave', 'slave latch'], ['output', 'output gate'], ['helper', 'inverter, buffer, reset driver'], ['indicator', 'flag or actuator']];
   let x = MARGIN;
   const out: string[] = [];
-  for (const k of kinds) {
-    out.push(`<rect x="${x}" y="${y}" width="14" height="10" rx="2" class="box k-${k}" />`, svgText(x + 18, y + 9, KIND_LABEL[k], 'legend', 'start'));
-    x += 26 + textWidth(KIND_LABEL[k], 9);
+  for (const [k, words] of kinds) {
+    out.push(`<rect x="${x}" y="${y}" width="14" height="10" rx="2" class="box k-${k}" />`, svgText(x + 18, y + 9, words, 'legend', 'start'));
+    x += 30 + textWidth(words, 9);
+  }
+  const lines: [string, string][] = [['e', 'cord'], ['e e-clock', 'clock cord'], ['e e-reset', 'reset cord'], ['e e-reads', 'flag reads Z']];
+  for (const [cls, words] of lines) {
+    out.push(`<path d="M${x},${y + 5} L${x + 22},${y + 5}" class="${cls}" />`, svgText(x + 26, y + 9, words, 'legend', 'start'));
+    x += 38 + textWidth(words, 9);
   }
   return out.join('');
 }

@@ -65,20 +65,21 @@ export function stateTableBlocks(build: Build): Block[] {
   const rows: string[][] = [];
   rowGroups(f).forEach((groups, s) => {
     groups.forEach((g, i) => {
-      const when = f.inputs.length === 0 ? 'always' : coverExpr(g.cubes, f.inputs);
+      const when = f.inputs.length === 0 ? 'always' : coverExpr(g.cubes, f.inputs, { dc: f.never });
       rows.push([
         i === 0 ? `${f.states[s]}${s === f.start ? ' (start)' : ''}` : '',
         i === 0 ? code(s) : '',
-        `${when === '1' ? 'always' : when}${g.unspecified ? ' (no transition written)' : ''}`,
+        when === '1' ? 'always' : when,
         name(g.next),
         code(g.next),
         outputsText(f.outputs, g.out),
+        g.unspecified ? (g.next === DONT_CARE ? 'no transition: left free' : 'no transition: holds') : 'as written',
       ]);
     });
   });
   const blocks: Block[] = [
-    p('Each state with its code (bit 0 first; q0 is the first digit). For each group of input combinations: the next state and code, and the outputs shown while the inputs are held (before φ1). Input names mean "lever pulled".'),
-    table(['state', 'code', 'when (inputs)', 'next state', 'next code', 'outputs'], rows, { mono: [1, 2, 4] }),
+    p(`Each state with its code (bit 0 first; q0 is the first digit). For each group of input combinations: the next state and code, and the outputs shown while the inputs are held (before φ1). Input names mean "lever pulled".${f.never.length > 0 ? ' Guards are written as simply as the combinations that never occur allow.' : ''}`),
+    table(['state', 'code', 'when (inputs)', 'next state', 'next code', 'outputs', 'from'], rows, { mono: [1, 2, 4] }),
   ];
   if (f.never.length > 0) blocks.push(p(`Input combinations declared never to occur: ${coverExpr(f.never, f.inputs)}. The machine is still guarded against them.`));
   const used = new Set(codes);

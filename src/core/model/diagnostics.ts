@@ -62,6 +62,7 @@ export const DIAGNOSTIC_CODES = {
   LW601: { severity: 'error', cause: 'A technology profile names a field that does not exist.', fix: 'Correct the field name.' },
   LW700: { severity: 'error', cause: 'A build option is unknown or out of range (encoding name, seed, unused-code target).', fix: 'See `latchwright --help`.' },
   LW701: { severity: 'error', cause: 'The chosen encoding does not fit the machine (for example Johnson codes for a machine whose states do not form a cycle, or pinned codes for too few bits).', fix: 'Choose another encoding.' },
+  LW703: { severity: 'info', cause: 'With unused state codes left as don\'t-cares the build could lock up in them, so every unused code was sent to the start state.', fix: 'Nothing to do; pass --unused dont-care to keep them free, or --unused STATE to choose the state.' },
   LW702: { severity: 'error', cause: 'The output folder exists, is not empty, and was not made by the tool.', fix: 'Choose another folder or pass --force.' },
 } as const satisfies Record<string, CodeInfo>;
 

@@ -14,7 +14,8 @@
  *   cubes under every code, and rows whose next state is DONT_CARE.
  * Outputs are don't-care at unused codes, under `never` and where the row says '-'.
  *
- * Preconditions: `enc.codes` has one distinct code of `enc.bits` characters per state.
+ * Preconditions: `enc.codes` has one distinct code of `enc.bits` characters per state; a
+ * numeric `unusedCodes` is a state index (synthesise checks it).
  * Postconditions: for every bit, on(S), on(R), tableDc(S), tableDc(R) and the global
  * don't-cares are pairwise disjoint; an output is flagged Moore exactly when, at every used
  * code, it is not 1 under one input combination and 0 under another.

@@ -109,19 +109,8 @@ export function compilePart(build: Build, timing: PartTiming): PartSim {
   for (let i = 0; i < n; i++) fanStart[i + 1] = fanStart[i] + outs[i].size;
   const fanout = Int32Array.from(outs.flatMap((s) => [...s]));
 
-  const delayUs = new Int32Array(n);
-  const override = timing.delays ?? {};
+  const delayUs = stageDelays(net, drivers, timing);
   const latchParts = net.parts.filter((p) => p.kind === 'latch');
-  const latchDelay = new Map<string, number>();
-  for (const l of latchParts) {
-    const d = override[l.id];
-    if (d !== undefined) for (const g of [l.setGate, l.resetGate]) latchDelay.set(g, d);
-  }
-  drivers.forEach((p, i) => {
-    if (p.kind !== 'gate') return;
-    const s = override[p.id] ?? latchDelay.get(p.id) ?? timing.stageDelayS;
-    delayUs[i] = Math.max(1, Math.round(s * 1e6));
-  });
 
   const latchOf = new Int32Array(n).fill(-1);
   const latches: CompiledLatch[] = latchParts.map((l, li) => {
@@ -191,4 +180,28 @@ export function compilePart(build: Build, timing: PartTiming): PartSim {
     outputs,
     evaluations: 0,
   };
+}
+
+/** Stage delay per driver in whole microseconds (levers 0): overrides by gate id, then by latch id, then the default. */
+function stageDelays(net: Netlist, drivers: readonly Part[], timing: PartTiming): Int32Array {
+  const override = timing.delays ?? {};
+  const latchDelay = new Map<string, number>();
+  for (const l of net.parts) {
+    const d = l.kind === 'latch' ? override[l.id] : undefined;
+    if (l.kind === 'latch' && d !== undefined) for (const g of [l.setGate, l.resetGate]) latchDelay.set(g, d);
+  }
+  const delayUs = new Int32Array(drivers.length);
+  drivers.forEach((p, i) => {
+    if (p.kind !== 'gate') return;
+    const s = override[p.id] ?? latchDelay.get(p.id) ?? timing.stageDelayS;
+    delayUs[i] = Math.max(1, Math.round(s * 1e6));
+  });
+  return delayUs;
+}
+
+/** The same compiled netlist with other stage delays (the Monte Carlo runs), without compiling again. */
+export function retimed(sim: PartSim, timing: PartTiming): PartSim {
+  const byId = new Map(sim.build.netlist.parts.map((p) => [p.id, p]));
+  const drivers = sim.ids.map((id) => byId.get(id) as Part);
+  return { ...sim, delayUs: stageDelays(sim.build.netlist, drivers, timing), evaluations: 0 };
 }

@@ -12,7 +12,7 @@
 import type { Build } from '../model/build.js';
 import type { Profile } from '../physics/profile.js';
 import { compilePart, X, type PartSim, type PartTiming, type Trit } from './compile.js';
-import { ruleBroken, RULE_WORDS, type HandAction, type InputValues } from './hand.js';
+import { describeAction, ruleBroken, RULE_WORDS, type HandAction, type InputValues } from './hand.js';
 import { evalGate, settle, show, type PartEvent, type PartEventKind } from './settle.js';
 
 export { X, compilePart, type PartSim, type PartTiming, type Trit } from './compile.js';
@@ -89,7 +89,7 @@ export function applyInPlace(sim: PartSim, values: Uint8Array, timeUs: number, a
   const [d, v] = leverOf(sim, a);
   if (d < 0 || values[d] === v) return timeUs;
   const rule = ruleBroken(a, { phi1: values[sim.phi1] === 1, phi2: values[sim.phi2] === 1, reset: values[sim.reset] === 1 });
-  if (rule) events.push({ kind: RULE_KIND[rule], timeS: timeUs / 1e6, rule, parts: [sim.names[d]], words: `operating rule broken (${RULE_WORDS[rule]}): ${sim.names[d]} moved` });
+  if (rule) events.push({ kind: RULE_KIND[rule], timeS: timeUs / 1e6, rule, parts: [sim.names[d]], words: `operating rule broken (${RULE_WORDS[rule]}): ${describeAction(a)}` });
   values[d] = v;
   return settle(sim, values, timeUs, [d], events, trace);
 }

@@ -8,7 +8,6 @@ import { printTextMachine } from '../../core/forms/text.js';
 import { machineToJson } from '../../core/forms/json.js';
 import { exportXstate } from '../../core/forms/xstate.js';
 import { formatDiagnostic, hasErrors } from '../../core/model/diagnostics.js';
-import { fileName } from '../worker/documents.js';
 
 /** What opening a file gives: text for the bench, or the reasons it could not be read. */
 export type Opened =
@@ -37,7 +36,7 @@ export function savedText(text: string, file: string, form: SaveForm): { name: s
   const machine = r.machine;
   if (form === 'json') return { name: `${base}.json`, mime: 'application/json', text: JSON.stringify(machineToJson(machine), null, 2) + '\n' };
   const x = exportXstate(machine);
-  return { name: fileName(base, { suffix: '.xstate.json' }), mime: 'application/json', text: JSON.stringify(x.config, null, 2) + '\n' };
+  return { name: `${base}.xstate.json`, mime: 'application/json', text: JSON.stringify(x.config, null, 2) + '\n' };
 }
 
 /** Hand a text to the browser as a file download. */

@@ -93,7 +93,7 @@ export class StepperController implements ReactiveController {
     const s = this.steps.pop();
     if (!s || !this.runner) return false;
     for (let i = 0; i < s.acts; i++) this.runner.undo();
-    this.samples.splice(this.samples.length - s.acts, s.acts);
+    this.samples = this.samples.slice(0, this.samples.length - s.acts);
     const n = this.steps.length;
     this.alarms = this.alarms.filter((a) => a.step < n);
     if (s.clocked) this.clocks--;
@@ -167,6 +167,9 @@ export class StepperController implements ReactiveController {
     }
     if (clocked) this.clocks++;
     this.steps.push({ label, acts: actions.length, clocked });
+    // New arrays, so the elements drawing them see a change.
+    this.samples = [...this.samples];
+    this.alarms = [...this.alarms];
     this.host.requestUpdate();
   }
 }

@@ -39,8 +39,10 @@ export class SynthesisController implements ReactiveController {
   fault: string | undefined;
   progress: SearchProgress | undefined;
   rows: readonly CodeRow[] = [];
+  /** The build's schematic (SVG text), or why there is none. */
+  schematic: { readonly svg?: string; readonly problem?: string } | undefined;
   /** Revision of each result shown (the page marks stale views). */
-  readonly shown = { reading: -1, built: -1, checks: -1, rows: -1 };
+  readonly shown = { reading: -1, built: -1, checks: -1, rows: -1, schematic: -1 };
   settings: BuildSettings;
 
   private live: Worker | undefined;
@@ -52,7 +54,11 @@ export class SynthesisController implements ReactiveController {
   private stageSince = 0;
   private readonly exports = new Map<string, (f: ExportFile | string) => void>();
 
-  constructor(private readonly host: ReactiveControllerHost) {
+  constructor(
+    private readonly host: ReactiveControllerHost,
+    /** Told of every new build (the stepper follows it). */
+    private readonly onBuilt: (view: BuildView) => void = () => undefined,
+  ) {
     host.addController(this);
     const kept = keepGet('encoding');
     this.settings = { encoding: kept ? (JSON.parse(kept) as EncodingChoice) : { strategy: 'binary' }, seed: 1, unusedCodes: 'dont-care' };
@@ -166,6 +172,7 @@ export class SynthesisController implements ReactiveController {
       case 'built':
         this.built = m.view;
         this.shown.built = m.rev;
+        this.onBuilt(m.view);
         this.stage(Work.checking);
         break;
       case 'unbuilt':
@@ -176,6 +183,10 @@ export class SynthesisController implements ReactiveController {
         this.checks = m.view;
         this.shown.checks = m.rev;
         this.stage(Work.done);
+        break;
+      case 'schematic':
+        this.schematic = m.svg !== undefined ? { svg: m.svg } : { problem: m.problem ?? 'no schematic' };
+        this.shown.schematic = m.rev;
         break;
       case 'fault':
         this.fault = m.message;

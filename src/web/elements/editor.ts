@@ -116,7 +116,8 @@ export class LwEditor extends LitElement {
     const byLine = new Map<number, Diagnostic[]>();
     for (const d of this.diagnostics) {
       const l = d.location.line;
-      if (l !== undefined && d.location.path === undefined) byLine.set(l, [...(byLine.get(l) ?? []), d]);
+      // Notes (info) stay in the list; the text marks what needs attention.
+      if (l !== undefined && d.location.path === undefined && d.severity !== 'info') byLine.set(l, [...(byLine.get(l) ?? []), d]);
     }
     const worst = (ds: readonly Diagnostic[]): string => (ds.some((d) => d.severity === 'error') ? 'error' : ds.some((d) => d.severity === 'warning') ? 'warning' : 'info');
     return html`<div class="frame">

@@ -1,27 +1,21 @@
 /**
- * Build documents for download, made in the worker from the checked build.
+ * Build documents for download, made in the worker from the checked build by the core's
+ * buildDocuments; made once per build, on the first request.
  */
 import type { Built } from '../../core/pipeline.js';
-import { buildSheetHtml } from '../../core/export/build-sheet-html.js';
-import { buildSheetMd } from '../../core/export/build-sheet-md.js';
-import { netlistJson } from '../../core/export/netlist-json.js';
-import { wiringCsv, wiringRows } from '../../core/export/wiring.js';
-import { billOfMaterials, bomCsv } from '../../core/physics/bom.js';
+import { buildDocuments, type DocumentFile } from '../../core/export/index.js';
 import { DOCUMENTS, fileName } from './documents.js';
 import type { ExportFile } from './protocol.js';
 
-const MAKERS: Readonly<Record<string, (b: Built) => string>> = {
-  'sheet-html': (b) => buildSheetHtml(b),
-  'sheet-md': (b) => buildSheetMd(b),
-  'wiring-csv': (b) => wiringCsv(wiringRows(b.build.netlist, b.profile)),
-  'bom-csv': (b) => bomCsv(billOfMaterials(b.build.netlist, b.profile)),
-  'netlist-json': (b) => netlistJson(b.build),
-};
+const made = new WeakMap<Built, Map<DocumentFile, string>>();
 
 /** One document of a checked build. */
-export function exportFile(b: Built, id: string): ExportFile {
-  const doc = DOCUMENTS.find((d) => d.id === id);
-  const make = MAKERS[id];
-  if (!doc || !make) throw new Error(`no document called '${id}'`);
-  return { name: fileName(b.build.machine.name, doc), mime: doc.mime, text: make(b) };
+export function exportFile(b: Built, file: string): ExportFile {
+  const doc = DOCUMENTS.find((d) => d.file === file);
+  if (!doc) throw new Error(`no document called '${file}'`);
+  let docs = made.get(b);
+  if (!docs) made.set(b, (docs = buildDocuments(b)));
+  const text = docs.get(doc.file);
+  if (text === undefined) throw new Error(`the build documents have no '${file}'`);
+  return { name: fileName(b.build.machine.name, doc.file), mime: doc.mime, text };
 }

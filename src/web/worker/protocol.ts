@@ -113,6 +113,7 @@ export type FromWorker =
   | { readonly kind: 'built'; readonly rev: number; readonly view: BuildView }
   | { readonly kind: 'unbuilt'; readonly rev: number; readonly diagnostics: readonly Diagnostic[] }
   | { readonly kind: 'checked'; readonly rev: number; readonly view: ChecksView }
+  | { readonly kind: 'schematic'; readonly rev: number; readonly svg?: string; readonly problem?: string }
   | { readonly kind: 'progress'; readonly rev: number; readonly done: number; readonly total: number | null; readonly best: number; readonly stage: string }
   | { readonly kind: 'compared'; readonly rev: number; readonly rows: readonly CodeRow[] }
   | { readonly kind: 'exported'; readonly rev: number; readonly doc: string; readonly file?: ExportFile; readonly problem?: string }

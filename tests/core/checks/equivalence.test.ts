@@ -37,7 +37,7 @@ describe('core/checks/equivalence', () => {
     // A wrong map: off2 said to stand for 'on'; the build goes to 'off' there.
     const wrong = checkEquivalence(toggleBuild(), { original: toggleAsWritten(), merged: { ...merged, off2: 'on' } }, DEFAULT_PROFILE);
     expect(wrong.ok).toBe(false);
-    expect(wrong.summary).toBe("after reset and 0 clocks, in state 'on' (code 1) with t=1: the build goes to 'off' (code 0), the machine as written goes to 'on' (code 1)");
+    expect(wrong.summary).toBe("after reset and 1 clock, in state 'on' (code 1) with t=1: the build goes to 'off' (code 0), the machine as written goes to 'on' (code 1)");
   });
 
   it('catches a missing term cord with a hand-action trace', () => {
@@ -71,7 +71,7 @@ describe('core/checks/equivalence', () => {
     const wrongOutput = { ...b, machine: { ...b.machine, rows: b.machine.rows.map((rs, s) => (s === 2 ? rs.map((r) => ({ ...r, out: [0 as const] })) : rs)) } };
     const r = checkEquivalence(wrongOutput, {}, DEFAULT_PROFILE);
     expect(r.summary).toBe("after reset and 2 clocks, in state 'c' (code 10) with go=0: output 'top' shows 1, the minimised machine says 0");
-    expect(r.counterexample?.trace.slice(-2)).toEqual(['10. release φ2', "11. release input lever 'go'"]);
+    expect(r.counterexample?.trace.slice(-2)).toEqual(['11. release φ2', "12. release input lever 'go'"]);
   });
 
   it.each(exampleNames())('proves the example %s built with binary codes', (name) => {

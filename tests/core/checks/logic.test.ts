@@ -26,6 +26,17 @@ describe('core/checks/logic', () => {
     expect(checkNextStateEquivalence(good)).toMatchObject({ name: 'next-state-equivalence', ok: true });
   });
 
+  it('looks through buffer trees when it confirms the slave wiring', () => {
+    const dk27 = fixture('dk27');
+    const n = dk27.states.length;
+    const oneHot = { strategy: 'one-hot', bits: n, codes: dk27.states.map((_, i) => '0'.repeat(i) + '1' + '0'.repeat(n - i - 1)) };
+    const b = synthesise(dk27, oneHot, { profile: DEFAULT_PROFILE });
+    // 7 bits: φ2 feeds 14 transfer gates, past the fan-out of 10, so it is buffered.
+    expect(b.netlist.parts.some((p) => p.id.startsWith('clk.phi2.buf'))).toBe(true);
+    expect(checkForbiddenInput(b)).toMatchObject({ ok: true, latchesChecked: 14 });
+    expect(checkNextStateEquivalence(b).ok).toBe(true);
+  });
+
   it('forbidden-input finds a point where S and R are both 1', () => {
     const s0 = good.equations[0].terms, r0 = good.equations[1].terms;
     const bad = withEquation(good, 'S0', [...s0, ...r0]);

@@ -119,7 +119,7 @@ describe('core/sim/part', () => {
     const sim = simFor(toggleBuild(), timing);
     const s = stateAtCode(sim, '0');
     const [, e1] = run(sim, s, [{ kind: 'pull', lever: 'phi1' }, { kind: 'pull', lever: 'phi2' }]);
-    expect(e1.find((e) => e.kind === 'clocks-together')?.words).toBe('operating rule broken (φ1 and φ2 are never pulled together): phi2 moved');
+    expect(e1.find((e) => e.kind === 'clocks-together')?.words).toBe('operating rule broken (φ1 and φ2 are never pulled together): pull φ2');
     const [, e2] = run(sim, s, [{ kind: 'pull', lever: 'phi1' }, lever('t', 1)]);
     expect(e2.find((e) => e.kind === 'input-during-phi1')?.rule).toBe('inputs-steady');
     const [, e3] = run(sim, s, [{ kind: 'pull', lever: 'phi2' }, { kind: 'pull', lever: 'reset' }]);

@@ -2,8 +2,10 @@
  * Simulated annealing over state assignments of a fixed code length (Kirkpatrick, Gelatt &
  * Vecchi, "Optimization by simulated annealing", Science 220, 1983), the usual heuristic
  * for state assignment once exhaustive search is out of reach (De Micheli 1994,
- * state-encoding chapter). Moves: swap the codes of two unpinned states, or move one
- * unpinned state to an unused code. Restarts split the budget evenly; the first starts from
+ * state-encoding chapter). Moves: mostly flip one bit of an unpinned state's code (a step
+ * to a neighbouring corner of the cube, swapping with whichever state holds that corner);
+ * sometimes swap the codes of two unpinned states, or move one to a random unused code.
+ * Restarts split the budget evenly; the first starts from
  * the best assignment found so far, the others from random ones. The temperature follows
  * the running mean of the uphill steps seen (so it needs no tuning to the cost's scale),
  * cooled geometrically from 15% to 1% of it over each restart's share.

@@ -19,7 +19,7 @@ import { diag, didYouMean, hasErrors, type Diagnostic } from '../../model/diagno
 import type { SourceLoc } from '../../model/machine.js';
 import type { FlatMachine } from '../../model/flat.js';
 import type { Encoding } from '../../model/build.js';
-import { auto, type AutoReport } from './auto.js';
+import { auto, DEFAULT_SEARCH, type AutoReport } from './auto.js';
 import { binary } from './binary.js';
 import { adjacencyCost, type Progress } from './cost.js';
 import { gray } from './gray.js';
@@ -38,7 +38,7 @@ export interface EncodeOptions {
   readonly cost?: (codes: readonly string[], bits: number) => number;
   /** Seed of the automatic search's generator (default 1). */
   readonly seed?: number;
-  /** Bounds of the automatic search: cost evaluations (default DEFAULT_EVALUATIONS) and/or milliseconds on `now`. */
+  /** Bounds of the automatic search: cost evaluations and/or milliseconds on `now` (default DEFAULT_SEARCH). */
   readonly budget?: { readonly evaluations?: number; readonly millis?: number };
   /** Clock in milliseconds for `budget.millis` (the core reads no clock of its own). */
   readonly now?: () => number;
@@ -56,12 +56,8 @@ export interface EncodeResult {
 /** The strategies known by name, in the order the tool offers them. */
 export const ENCODINGS: readonly EncodeStrategy[] = ['binary', 'gray', 'johnson', 'one-hot', 'pinned', 'auto'];
 
-/**
- * Default evaluation budget of the automatic search: enough to price every class of up to 8
- * states exhaustively (840 classes, plus the named strategies); for larger machines, at an
- * estimated 3–4 ms per evaluation of a 16-state build, about 4 s of annealing.
- */
-export const DEFAULT_EVALUATIONS = 1000;
+export { DEFAULT_SEARCH, type AutoReport };
+export { adjacencyCost, type Progress };
 
 const NAMED: Readonly<Record<Exclude<EncodeStrategy, 'auto'>, (f: FlatMachine, pins: PinSet) => StrategyResult>> = {
   binary,
@@ -95,7 +91,7 @@ export function encode(
     const r = auto(f, read.pins, {
       cost: opts.cost ?? adjacencyCost(f),
       seed: opts.seed ?? 1,
-      maxEvaluations: opts.budget?.evaluations ?? (millis !== undefined ? Infinity : DEFAULT_EVALUATIONS),
+      ...(opts.budget?.evaluations !== undefined ? { maxEvaluations: opts.budget.evaluations } : {}),
       ...(start !== undefined && millis !== undefined ? { deadline: start + millis, now: opts.now } : {}),
       ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
     });
@@ -119,7 +115,7 @@ function checkOptions(o: EncodeOptions): Diagnostic[] {
   }
   const e = o.budget?.evaluations;
   if (e !== undefined && !(Number.isSafeInteger(e) && e >= 1)) {
-    out.push(diag('LW700', `evaluation budget ${String(e)} is not a whole number ≥ 1`, {}, `the default is ${DEFAULT_EVALUATIONS}`));
+    out.push(diag('LW700', `evaluation budget ${String(e)} is not a whole number ≥ 1`, {}, `without one, the search prices every class up to ${DEFAULT_SEARCH.exhaustiveClasses}, else anneals for ${DEFAULT_SEARCH.annealingEvaluations} evaluations`));
   }
   const ms = o.budget?.millis;
   if (ms !== undefined && !(Number.isFinite(ms) && ms >= 0)) {

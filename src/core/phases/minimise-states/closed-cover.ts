@@ -44,10 +44,12 @@ export interface CoverSearch {
 /** Default work budget: enough to finish every small benchmark machine, a second or so at most. */
 export const DEFAULT_COVER_BUDGET = 4_000_000;
 
-/** Choose requirements fail-first only while that scan (open requirements × classes) stays this small. */
-const FAIL_FIRST_LIMIT = 4096;
-/** How many open requirements the greedy descent (and a large search) examines per step. */
-const GREEDY_SCAN = Number(process.env.SCAN ?? 64);
+/**
+ * Each step picks its requirement fail-first among the open requirements, but examines only
+ * as many as keep (requirements examined × classes) near this figure, so that one step of a
+ * large search stays cheap; small searches examine them all.
+ */
+const SCAN_WORK = 4096;
 /** Families remembered as explored, at most. */
 const EXPLORED_LIMIT = 100_000;
 
@@ -115,9 +117,11 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
     const kept = open.filter((d) => !inside(d, changed));
     const added = maximal(impliedOf(changed).filter((d) => !classes.some((c) => inside(d, c))));
     if (added.length === 0) return kept;
-    // Both lists are free of inner duplicates; drop what one list holds inside the other.
+    // Both lists are free of inner duplicates. Old requirements inside a new one go (meeting the
+    // new one meets them); then a new one inside a remaining old one goes.
     const out = kept.filter((d) => !added.some((a) => inside(d, a)));
-    for (const a of added) if (!kept.some((d) => inside(a, d))) out.push(a);
+    const survivors = out.length;
+    for (const a of added) if (!out.slice(0, survivors).some((d) => inside(a, d))) out.push(a);
     return out.sort((a, b) => listOf(b).length - listOf(a).length);
   };
 
@@ -162,12 +166,10 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
     let classes: StateSet[] = [];
     let open = [setOf(words, [f.start])];
     while (open.length > 0) {
-      const { need, options } = choose(classes, open, GREEDY_SCAN);
-      const before = classes;
+      const { need, options } = choose(classes, open, scanFor(classes));
       classes = options.length > 0 ? grow(classes, options[0], need) : open1(classes, need);
       if (classes.length >= n) return null;
       open = openAfter(classes, classes[classes.length - 1], open);
-      if (before === classes) return null;
     }
     return classes;
   };
@@ -188,8 +190,7 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
       if (explored.has(family)) return;
       explored.add(family);
     }
-    const scan = open.length * classes.length <= FAIL_FIRST_LIMIT ? open.length : GREEDY_SCAN;
-    const { need, options, forced } = choose(classes, open, scan);
+    const { need, options, forced } = choose(classes, open, scanFor(classes));
     const bound = Math.max(lowerBound, classes.length + clashing(forced, fits), classes.length + (options.length === 0 ? 1 : 0));
     if (bound >= best.length) return;
     for (const j of options) {
@@ -211,6 +212,10 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
   }
   const classes = [...best].sort(compareSets);
   return { classes, exact: !aborted || classes.length <= lowerBound, lowerBound };
+}
+
+function scanFor(classes: readonly StateSet[]): number {
+  return Math.max(1, Math.floor(SCAN_WORK / (classes.length + 1)));
 }
 
 /** Drop duplicates and sets inside another set of the list (largest first). */

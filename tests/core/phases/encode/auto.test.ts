@@ -2,6 +2,9 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { encode } from '../../../../src/core/phases/encode/index.js';
 import type { FlatMachine } from '../../../../src/core/model/flat.js';
+import { synthesise } from '../../../../src/core/synthesise.js';
+import { DEFAULT_PROFILE } from '../../../../src/core/physics/profile.js';
+import { partsCost } from '../../../../src/core/phases/map/counts.js';
 import { allAssignments, distance, ring, syntheticCost, tableMachine, wellFormed } from './machines.js';
 
 /** The true minimum of a cost over every injective assignment at `bits` (brute force). */
@@ -156,5 +159,32 @@ describe('core/phases/encode/auto', () => {
     const codes = r.encoding?.codes ?? [];
     expect(r.encoding?.bits).toBe(3);
     for (let s = 0; s < 8; s++) expect(distance(codes[s], codes[(s + 1) % 8])).toBe(1);
+  });
+});
+
+describe('core/phases/encode/auto with core/synthesise', () => {
+  // An invented exhibit: a flap opens after buttons a, b, a in turn; both at once starts over.
+  // Inputs (a, b); next state per input combination 00, 01, 10, 11.
+  const table = tableMachine('flap-lock', 2, [[0, 0, 1, 0], [1, 2, 1, 0], [2, 0, 3, 0], [3, 0, 0, 0]]);
+  const lock: FlatMachine = { ...table, outputs: ['flap'], rows: table.rows.map((rs, s) => rs.map((r) => ({ ...r, out: [s === 3 ? 1 : 0] }))) };
+  const cost = (codes: readonly string[], bits: number): number =>
+    partsCost(synthesise(lock, { strategy: 'candidate', bits, codes }, { profile: DEFAULT_PROFILE }).parts, DEFAULT_PROFILE.cost);
+
+  it('the real build costs the same across a symmetry class (the search\'s precondition) and auto finds its minimum', () => {
+    const byClass = new Map<string, Set<number>>();
+    let best = Infinity;
+    for (const a of allAssignments(4, 2)) {
+      const c = cost(a, 2);
+      best = Math.min(best, c);
+      const key = orbitKey(a);
+      byClass.set(key, (byClass.get(key) ?? new Set()).add(c));
+    }
+    expect(byClass.size).toBe(3); // McCluskey & Unger (1959): 4 states, 2 bits
+    for (const costs of byClass.values()) expect(costs.size).toBe(1);
+    // Budget: the four named strategies and the three classes (skipping the slower extra bit).
+    const r = encode(lock, 'auto', { cost, budget: { evaluations: 7 } });
+    expect(r.search).toMatchObject({ method: 'exhaustive', complete: true, classes: 3, extraBit: false });
+    expect(r.search?.bestCost).toBeLessThanOrEqual(best);
+    expect(cost(r.encoding?.codes ?? [], r.encoding?.bits ?? 0)).toBe(r.search?.bestCost);
   });
 });

@@ -1,13 +1,18 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { DEFAULT_EVALUATIONS, ENCODINGS, encode, type EncodeOptions } from '../../../../src/core/phases/encode/index.js';
+import { DEFAULT_SEARCH, ENCODINGS, encode, type EncodeOptions } from '../../../../src/core/phases/encode/index.js';
 import type { FlatMachine } from '../../../../src/core/model/flat.js';
 import { ring, syntheticCost, tableMachine, wellFormed } from './machines.js';
 
 describe('core/phases/encode', () => {
   it('offers the six strategies by name', () => {
     expect(ENCODINGS).toEqual(['binary', 'gray', 'johnson', 'one-hot', 'pinned', 'auto']);
-    expect(DEFAULT_EVALUATIONS).toBeGreaterThan(840); // 8 states stay exhaustive (McCluskey & Unger count)
+    // 6 states in 3 bits have 420 classes (McCluskey & Unger 1959): exhaustive by default.
+    expect(DEFAULT_SEARCH.exhaustiveClasses).toBeGreaterThanOrEqual(420);
+    expect(encode(ring(6), 'auto').search).toMatchObject({ method: 'exhaustive', complete: true, classes: 420 });
+    // 7 states: 840 classes, so anneal; binary, Gray and Johnson are priced first (one-hot's
+    // 7 bits are more than 3 over the minimum of 3).
+    expect(encode(ring(7), 'auto').search).toMatchObject({ method: 'annealing', evaluations: 3 + DEFAULT_SEARCH.annealingEvaluations });
   });
 
   it('reports an unknown strategy name with LW700 and a did-you-mean', () => {

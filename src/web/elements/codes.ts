@@ -1,0 +1,196 @@
+/**
+ * <lw-codes>: the code book — the state codes in use, every encoding priced side by side
+ * (bits, latches, gates, levers, capstans, weights, cords, weighted cost), the set/reset and
+ * output equations of the build, and the forbidden-input guard's report.
+ * Events: `compare`, `cancel-search`, `choose` {choice}.
+ */
+import { LitElement, css, html, nothing } from 'lit';
+import type { EncodeStrategy } from '../../core/phases/encode/index.js';
+import type { BuildView, CodeRow, EncodingChoice } from '../worker/protocol.js';
+import type { Search, SearchProgress } from '../controllers/synthesis.js';
+import { shared } from '../styles/shared.js';
+import { emit } from './emit.js';
+
+const NAMES: Readonly<Record<EncodeStrategy, string>> = {
+  binary: 'counting order',
+  gray: 'one bit per step (Gray)',
+  johnson: 'twisted ring (Johnson)',
+  'one-hot': 'one latch per state',
+  pinned: 'pinned in the text',
+  auto: 'searched for fewest parts',
+};
+
+const PICKABLE: readonly EncodeStrategy[] = ['binary', 'gray', 'johnson', 'one-hot', 'auto'];
+
+export class LwCodes extends LitElement {
+  static override properties = {
+    built: { attribute: false },
+    rows: { attribute: false },
+    rowsCurrent: { type: Boolean },
+    search: { type: String },
+    progress: { attribute: false },
+    choice: { attribute: false },
+  };
+  declare built: BuildView | undefined;
+  declare rows: readonly CodeRow[];
+  declare rowsCurrent: boolean;
+  declare search: Search;
+  declare progress: SearchProgress | undefined;
+  declare choice: EncodingChoice;
+
+  constructor() {
+    super();
+    this.built = undefined;
+    this.rows = [];
+    this.rowsCurrent = false;
+    this.search = 'none';
+    this.progress = undefined;
+    this.choice = { strategy: 'binary' };
+  }
+
+  static override styles = [
+    shared,
+    css`
+      :host {
+        display: grid;
+        gap: 0.9rem;
+      }
+      .bar {
+        display: flex;
+        gap: 0.5rem;
+        align-items: center;
+        flex-wrap: wrap;
+      }
+      progress {
+        width: 14rem;
+        accent-color: var(--lw-brass);
+      }
+      tr.cheapest td {
+        background: var(--lw-brass-soft);
+      }
+      tr.using td:first-child {
+        border-left: 4px solid var(--lw-cord);
+      }
+      .eq {
+        display: grid;
+        grid-template-columns: max-content 1fr;
+        gap: 0.2rem 0.8rem;
+        font-family: var(--lw-mono);
+        font-size: 0.85rem;
+      }
+      .eq dt {
+        font-weight: 700;
+        color: var(--lw-brass);
+      }
+      .eq dd {
+        margin: 0;
+        word-break: break-word;
+      }
+      .grid2 {
+        display: grid;
+        grid-template-columns: repeat(auto-fit, minmax(17rem, 1fr));
+        gap: 0.9rem;
+      }
+    `,
+  ];
+
+  override render() {
+    const b = this.built;
+    const using = 'kept' in this.choice ? this.choice.kept.strategy : this.choice.strategy;
+    return html`<section class="panel" aria-label="Encodings side by side">
+        <h2>Encodings side by side</h2>
+        <div class="bar">
+          <label
+            >Codes for the build
+            <select aria-label="Encoding used for the build" @change=${(e: Event) => emit(this, 'choose', { choice: { strategy: (e.target as HTMLSelectElement).value as EncodeStrategy } })}>
+              ${PICKABLE.map((s) => html`<option value=${s} ?selected=${'strategy' in this.choice && this.choice.strategy === s}>${NAMES[s]}</option>`)}
+              ${'kept' in this.choice ? html`<option selected value="auto">kept from the comparison (${this.choice.kept.strategy})</option>` : nothing}
+            </select></label
+          >
+          ${this.search === 'running'
+            ? html`<button @click=${() => emit(this, 'cancel-search', {})}>Stop pricing</button>${this.progressBar()}`
+            : html`<button class="primary" @click=${() => emit(this, 'compare', {})}>Price every encoding</button>
+                <span class="soft">${this.search === 'cancelled' ? 'Pricing stopped.' : this.rows.length > 0 && !this.rowsCurrent ? 'Prices are for an earlier version of the text.' : ''}</span>`}
+        </div>
+        ${this.rows.length > 0 ? this.table(using) : html`<p class="soft">Each encoding is built in full and priced by its parts; the automatic search tries many codes and can take a few seconds.</p>`}
+      </section>
+      ${b
+        ? html`<div class="grid2">
+            <section class="panel" aria-label="State codes">
+              <h2>State codes (${b.build.encoding.strategy}, ${b.build.encoding.bits} bit${b.build.encoding.bits === 1 ? '' : 's'})</h2>
+              <table>
+                <thead><tr><th scope="col">State</th><th scope="col">Code</th></tr></thead>
+                <tbody>${b.build.machine.states.map((s, i) => html`<tr><td>${s}</td><td class="mono">${b.build.encoding.codes[i] || '—'}</td></tr>`)}</tbody>
+              </table>
+            </section>
+            <section class="panel" aria-label="Forbidden-input guard">
+              <h2>Forbidden-input guard</h2>
+              <p class=${b.guard.ok ? 'ok' : 'bad'}>${b.guard.ok ? 'S·R = 0 proven for every latch over every code and input.' : 'The guard could not prove S·R = 0.'}</p>
+              <p>Method: ${b.guard.method}.</p>
+              <p>${b.guard.compared === false ? 'Cost not measured for this build.' : `Cost of the guard: ${b.guard.extraGates} extra gate${b.guard.extraGates === 1 ? '' : 's'}, ${b.guard.extraCords} extra cord${b.guard.extraCords === 1 ? '' : 's'}.`}</p>
+            </section>
+          </div>
+          <section class="panel" aria-label="Equations">
+            <h2>Set, reset and output equations</h2>
+            <p class="soft">Over the slave bits ${b.build.vars.slice(0, b.build.encoding.bits).join(', ') || '(none)'} and the inputs; S and R drive master latch M of each bit during φ1.</p>
+            <dl class="eq">${b.equations.map((e) => html`<dt>${e.name}</dt><dd>${e.expr}</dd>`)}</dl>
+          </section>`
+        : html`<p class="soft">Codes and equations appear once the machine builds.</p>`}`;
+  }
+
+  private progressBar() {
+    const p = this.progress;
+    const label = p ? `${p.done}${p.total !== null ? ` of ${p.total}` : ''} codes priced, best cost so far ${p.best}` : 'starting…';
+    return html`<progress aria-label="Pricing progress" max=${p?.total ?? 1} value=${p && p.total !== null ? p.done : nothing}></progress>
+      <span role="status" class="soft">${label}</span>`;
+  }
+
+  private table(using: string) {
+    return html`<table aria-label="Encodings priced">
+      <thead>
+        <tr>
+          <th scope="col">Encoding</th>
+          <th scope="col" class="num">Bits</th>
+          <th scope="col" class="num">Latches</th>
+          <th scope="col" class="num">Gates</th>
+          <th scope="col" class="num">Term gates</th>
+          <th scope="col" class="num">Levers</th>
+          <th scope="col" class="num">Capstans</th>
+          <th scope="col" class="num">Weights</th>
+          <th scope="col" class="num">Cords</th>
+          <th scope="col" class="num">Cost</th>
+          <th scope="col"><span class="visually-hidden">Use</span></th>
+        </tr>
+      </thead>
+      <tbody>
+        ${this.rows.map((r) => {
+          const p = r.parts;
+          const cls = `${r.cheapest ? 'cheapest' : ''} ${r.strategy === using ? 'using' : ''}`;
+          if (!r.ok || !p || !r.encoding) return html`<tr><td>${NAMES[r.strategy]}</td><td colspan="10" class="soft">${r.problem}</td></tr>`;
+          const kept = r.encoding;
+          return html`<tr class=${cls}>
+            <td>${NAMES[r.strategy]}${r.cheapest ? html` <strong>· fewest parts</strong>` : nothing}</td>
+            <td class="num">${kept.bits}</td>
+            <td class="num">${p.latches}</td>
+            <td class="num">${p.gates}</td>
+            <td class="num">${r.termGates ?? '—'}</td>
+            <td class="num">${p.levers}</td>
+            <td class="num">${p.capstans}</td>
+            <td class="num">${p.weights}</td>
+            <td class="num">${p.cords}</td>
+            <td class="num">${r.cost}</td>
+            <td><button ?disabled=${!this.rowsCurrent} @click=${() => emit(this, 'choose', { choice: { kept } })} aria-label=${`Build with the ${NAMES[r.strategy]} codes`}>Build with these</button></td>
+          </tr>`;
+        })}
+      </tbody>
+    </table>`;
+  }
+}
+
+customElements.define('lw-codes', LwCodes);
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'lw-codes': LwCodes;
+  }
+}
