@@ -13,11 +13,13 @@ import { timingOf } from '../core/sim/part.js';
 import { createRunner, type PartRunner } from '../core/sim/runner.js';
 import { runAbstractScript, runPartScript, validateSequence, type SeqArray, type StepRow } from '../core/sim/script.js';
 
-export type { SeqArray, StepRow } from '../core/sim/script.js';
+export type { SeqArray, ShownValue, StepRow } from '../core/sim/script.js';
 
 export interface StepOptions {
   /** The parsed sequence file (scripted mode); absent: interactive. */
   readonly inputsFile?: SeqArray;
+  /** Its path, for the location of problems in it. */
+  readonly inputsPath?: string;
   readonly json: boolean;
   /** Step the minimised machine itself instead of the parts. */
   readonly abstract: boolean;
@@ -37,7 +39,7 @@ export interface StepIo {
 export async function runStep(build: Build, spec: SpecInfo, opts: StepOptions, io: StepIo): Promise<number> {
   const err = (s: string): void => (io.error ?? io.write)(s);
   if (opts.inputsFile !== undefined) {
-    const problems = validateSequence(build, opts.inputsFile);
+    const problems = validateSequence(build, opts.inputsFile, opts.inputsPath);
     if (problems.length > 0) {
       for (const d of problems) err(formatDiagnostic(d) + '\n');
       return 2;
@@ -234,7 +236,12 @@ export async function* terminalKeys(): AsyncGenerator<string> {
   stdin.setRawMode?.(true);
   stdin.setEncoding('utf8');
   try {
-    for await (const chunk of stdin) yield String(chunk);
+    for await (const chunk of stdin) {
+      const text = String(chunk);
+      // An escape sequence (an arrow key) is one key; typed-ahead or pasted text is one key per character.
+      if (text.startsWith('\u001b')) yield text;
+      else yield* text;
+    }
   } finally {
     stdin.setRawMode?.(false);
     stdin.pause();

@@ -44,7 +44,7 @@ describe('cli/step', () => {
     await runStep(toggleBuild(), {}, { inputsFile: seq, json: true, abstract: false }, part);
     await runStep(toggleBuild(), {}, { inputsFile: seq, json: true, abstract: true }, abs);
     const rows = JSON.parse(part.out.join(''));
-    expect(rows[0]).toEqual({ clock: 1, state: 'off', code: '0', inputs: { t: 1 }, outputs: { lit: '0' }, next: 'on', nextCode: '1', alarms: [] });
+    expect(rows[0]).toEqual({ clock: 1, state: 'off', code: '0', inputs: { t: 1 }, outputs: { lit: 0 }, next: 'on', nextCode: '1', alarms: [] });
     expect(JSON.parse(abs.out.join(''))).toEqual(rows);
   });
 
@@ -60,8 +60,8 @@ describe('cli/step', () => {
 
   it('rejects a bad sequence with diagnostics and exit 2', async () => {
     const io = capture();
-    expect(await runStep(toggleBuild(), {}, { inputsFile: [{ go: 1 }], json: false, abstract: false }, io)).toBe(2);
-    expect(io.errors.join('')).toBe("$[0].go: error LW208: clock 1 sets 'go', which is not an input of toggle — inputs: t\n");
+    expect(await runStep(toggleBuild(), {}, { inputsFile: [{ go: 1 }], inputsPath: 'clocks.json', json: false, abstract: false }, io)).toBe(2);
+    expect(io.errors.join('')).toBe("clocks.json $[0].go: error LW208: clock 1 sets 'go', which is not an input of toggle — inputs: t\n");
   });
 
   it('asks for a sequence when there is no terminal', async () => {
@@ -81,8 +81,8 @@ describe('cli/step', () => {
     expect(screens[3]).toContain("alarms:  operating rule broken (input levers stay still while φ1 is pulled): release input lever 't'");
     expect(screens[2]).toContain('masters: M0: Q=1 Q̄=0');
     expect(screens[2]).toContain('slaves:  Q0: Q=0 Q̄=1');
-    expect(screens[6]).toContain("alarms:  key 'z' does nothing here");
-    expect(screens[7]).toContain('alarms:  undone');
+    expect(screens[7]).toContain("alarms:  key 'z' does nothing here");
+    expect(screens[8]).toContain('alarms:  undone');
   });
 
   it('steps the abstract machine a whole clock at a time', async () => {

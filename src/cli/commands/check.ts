@@ -13,10 +13,15 @@ export async function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
   if (args.flags.json) {
     io.out(JSON.stringify({ file: src.file, form: a.form, ok: a.ok, ...(summary ?? {}), diagnostics: a.diagnostics }, null, 2) + '\n');
   } else {
-    for (const d of a.diagnostics) io.out(formatDiagnostic(d) + '\n');
+    const notes = a.diagnostics.filter((d) => d.severity === 'info');
+    for (const d of a.diagnostics) if (d.severity !== 'info') io.out(formatDiagnostic(d) + '\n');
+    // Notes are many and mild (e.g. LW302 per state): one line each when few, else counted.
+    if (notes.length <= 2) for (const d of notes) io.out(formatDiagnostic(d) + '\n');
+    else io.out(`${notes.length} notes (${[...new Set(notes.map((d) => d.code))].join(', ')}); see them with --json\n`);
     if (summary) {
       const m = summary.machine;
-      io.out(`${m.name}: ${m.states} states (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${m.inputs} inputs, ${m.outputs} outputs\n`);
+      const n = (k: number, what: string): string => `${k} ${what}${k === 1 ? '' : 's'}`;
+      io.out(`${m.name}: ${n(m.states, 'state')} (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${n(m.inputs, 'input')}, ${n(m.outputs, 'output')}\n`);
       const merges = Object.entries(summary.merged).filter(([k, v]) => k !== v);
       if (merges.length > 0) {
         io.out('merged states:\n');

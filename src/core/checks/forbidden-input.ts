@@ -13,8 +13,9 @@
  * X, or the machine oscillates — what signage and interlocks are designed from.
  * Bounds: inputs beyond `maxExhaustiveInputs` (16) are sampled (one combination per row and
  * `never` cube plus seeded random ones); codes beyond `maxClocks` simulated clocks are
- * the used codes plus a seeded sample of unused ones; the rule search stops at `maxActions`
- * actions or `maxStates` machine states. The result says which applied.
+ * the used codes plus a seeded sample of unused ones; master codes are free of the slaves'
+ * only within `maxFreeMasterClocks`; the rule search stops at `maxActions` actions or
+ * `maxStates` machine states. The result says which applied.
  */
 import type { Build, CheckResult } from '../model/build.js';
 import { seededRandom } from '../model/random.js';
@@ -41,6 +42,8 @@ export interface ForbiddenInputOptions {
   readonly seed?: number;
   /** Bound on simulated clocks over codes × inputs (default 262 144). */
   readonly maxClocks?: number;
+  /** Bound on simulated clocks with every master code free of the slaves' (default 32 768). */
+  readonly maxFreeMasterClocks?: number;
   /** Rule search bounds: hand actions (default 8) and machine states (default 20 000). */
   readonly maxActions?: number;
   readonly maxStates?: number;
@@ -91,7 +94,7 @@ export function checkForbiddenInput(build: Build, profile: Pick<Profile, 'stageD
   const tries = exhaustive ? grayAssignments(n) : sampledAssignments([...f.rows.flat().map((r) => r.cube), ...f.never], n, opts.samples ?? 256, rnd);
   const allFit = 2 ** bits * tries.length <= maxClocks;
   const codes = allFit ? allCodes(bits) : [...build.encoding.codes, ...randomCodes(bits, Math.floor(maxClocks / tries.length) - build.encoding.codes.length, rnd, new Set(build.encoding.codes))];
-  const freeMasters = 4 ** bits * tries.length <= maxClocks;
+  const freeMasters = 4 ** bits * tries.length <= (opts.maxFreeMasterClocks ?? 1 << 15);
 
   let states = 0;
   let failure: ForbiddenCounterexample | undefined;

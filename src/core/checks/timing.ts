@@ -89,18 +89,21 @@ export function checkTiming(build: Build, profile: Pick<Profile, 'stageDelayS' |
   const sim = simFor(build, timingOf(profile, opts.delays));
   const p = phases(sim);
   const clockS = p.phi1.timeS + p.dead1.timeS + p.phi2.timeS + p.dead2.timeS;
-  const clocksPerMinute = Math.floor((60 / clockS) * 10) / 10;
+  // A loop gives no finite time; a machine with nothing that moves (no clock, no inputs) needs none.
+  const timed = Number.isFinite(clockS) && clockS > 0;
+  const clocksPerMinute = timed ? Math.floor((60 / clockS) * 10) / 10 : 0;
   const spread = profile.stageDelaySpread;
   const crankRpm = opts.crankRpm ?? Math.floor((clocksPerMinute / (1 + spread)) * 10) / 10;
-  const turnS = 60 / crankRpm;
-  const deg = (s: number): number => round((s / clockS) * 360, 0.1);
+  const turnS = crankRpm > 0 ? 60 / crankRpm : Infinity;
+  const deg = (s: number): number => (timed ? round((s / clockS) * 360, 0.1) : 0);
   const a1 = deg(p.phi1.timeS);
   const b2 = deg(p.phi1.timeS + p.dead1.timeS);
   const e2 = deg(p.phi1.timeS + p.dead1.timeS + p.phi2.timeS);
   const cam = { phi1: [0, a1] as const, phi2: [b2, e2] as const };
   const runs = opts.runs ?? 20;
   const seed = opts.seed ?? 1;
-  const windows = { phi1: (p.phi1.timeS / clockS) * turnS, dead1: (p.dead1.timeS / clockS) * turnS, phi2: (p.phi2.timeS / clockS) * turnS, dead2: (p.dead2.timeS / clockS) * turnS };
+  const window = (x: number): number => (timed ? (x / clockS) * turnS : Infinity);
+  const windows = { phi1: window(p.phi1.timeS), dead1: window(p.dead1.timeS), phi2: window(p.phi2.timeS), dead2: window(p.dead2.timeS) };
   const monteCarlo = p.loop ? { runs: 0, seed, ok: false } : monteCarloRun(sim, profile, opts, runs, seed, windows);
   const base = {
     name: 'timing',
@@ -115,6 +118,7 @@ export function checkTiming(build: Build, profile: Pick<Profile, 'stageDelayS' |
     monteCarlo,
   };
   if (p.loop) return { ...base, ok: false, summary: `the gates ${p.loop.join(' → ')} form a loop that no latch closes: the machine may never settle` };
+  if (!timed) return { ...base, ok: monteCarlo.ok, summary: 'nothing to time: the machine has no clock levers and no inputs' };
   if (sim.slaves.length === 0) {
     const settleS = round(p.dead2.timeS, 0.01);
     return { ...base, ok: monteCarlo.ok, summary: `no clock (one state): the outputs settle ${settleS} s after an input lever moves${monteCarlo.ok ? '' : `; but ${monteCarlo.race?.words ?? 'a Monte Carlo run differs'}`}` };

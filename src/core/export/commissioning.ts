@@ -11,15 +11,15 @@
  * "up" when it shows 1. After each clock the slave code is compared with the state table; a
  * difference, or any simulator alarm, is written in the row's note (it should never happen
  * for a build whose checks passed).
- * A one-state machine has no latches or clock levers: one row per input setting, with the
- * flags its output gates then show (a settled NAND network evaluated directly).
+ * The outputs shown once the inputs are set are compared with the state table too.
+ * A one-state machine has no latches, clock or reset levers: one row per input setting.
  */
 import type { Build } from '../model/build.js';
+import type { OutBit } from '../model/machine.js';
 import type { Profile } from '../physics/profile.js';
 import { clockActions, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
 import { isAlarm, outputValues, powerUp, readPart, show, simFor, stepSim, timingOf, X, type PartSim, type PartState } from '../sim/part.js';
 import { csvField } from './csv.js';
-import { combinationalOutputs } from './settled.js';
 import type { TourClock } from './tour.js';
 
 /** Position of a lever: Z down when its gate's output is 1; '?' when the simulator cannot tell. */
@@ -45,40 +45,44 @@ const zOf = (v: number): Position => (v === X ? '?' : v === 1 ? 'down' : 'up');
 
 /** The hand actions of the sheet, from power-up, and what the machine shows after each. */
 export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDelayS'>, tour: readonly TourClock[]): CommissioningRow[] {
-  if (build.encoding.bits === 0 || build.signals.phi1 === '') return combinationalRows(build, tour);
   const sim = simFor(build, timingOf(profile));
   const f = build.machine;
+  const seq = build.encoding.bits > 0;
   let [state] = powerUp(sim);
   const rows: CommissioningRow[] = [];
-  const run = (clock: number, action: string, actions: readonly HandAction[], expect?: number): void => {
-    const alarms: string[] = [];
+  const run = (clock: number, action: string, actions: readonly HandAction[], check: { next?: number; out?: readonly OutBit[] } = {}): void => {
+    const notes: string[] = [];
     for (const a of actions) {
       const [next, events] = stepSim(sim, state, a);
       state = next;
-      alarms.push(...events.filter(isAlarm).map((e) => e.words));
+      notes.push(...events.filter(isAlarm).map((e) => e.words));
     }
     const reading = readPart(sim, state);
-    if (expect !== undefined && reading.code !== build.encoding.codes[expect]) {
-      alarms.push(`the state table says ${f.states[expect]} (code ${build.encoding.codes[expect]}) here`);
+    if (check.next !== undefined && reading.code !== build.encoding.codes[check.next]) {
+      notes.push(`the state table says ${f.states[check.next]} (code ${build.encoding.codes[check.next]}) here`);
     }
-    rows.push(rowOf(sim, state, rows.length + 1, clock, action, alarms, reading.state ?? '(unused code)', reading.code));
+    const shown = outputValues(sim, state.values);
+    const wrong = f.outputs.filter((_, k) => check.out && check.out[k] !== '-' && String(check.out[k]) !== show(shown[k]));
+    if (wrong.length > 0 && check.out) notes.push(`the state table gives ${wrong.map((o) => `${o}=${check.out?.[f.outputs.indexOf(o)]}`).join(', ')} here`);
+    rows.push(rowOf(sim, state, rows.length + 1, clock, action, notes, seq ? reading.state ?? '(unused code)' : f.states[0], reading.code));
   };
   const inputs = f.inputs;
-  run(0, 'Reset: pull the reset lever, then release it (both clock levers released).', resetActions(), f.start);
+  if (seq) run(0, 'Reset: pull the reset lever, then release it (both clock levers released).', resetActions(), { next: f.start });
   let current = valuesOf(inputs, '0'.repeat(inputs.length));
   tour.forEach((c, i) => {
     const clock = i + 1;
-    if (c.reset) run(clock, 'Reset: pull the reset lever, then release it.', resetActions(), f.start);
+    if (c.reset && seq) run(clock, 'Reset: pull the reset lever, then release it.', resetActions(), { next: f.start });
     const values = valuesOf(inputs, c.inputs);
-    if (inputs.length > 0) {
-      const moves = clockActions(inputs, values, current).slice(0, -4);
-      run(clock, `Set the input levers: ${inputWords(inputs, c.inputs)}${moves.length === 0 ? ' (no change)' : ''}.`, moves);
-    }
+    const moves = clockActions(inputs, values, current).slice(0, -4);
+    const out = f.rows[c.state][c.row].out;
+    if (inputs.length > 0) run(clock, `Set the input levers: ${inputWords(inputs, c.inputs)}${moves.length === 0 ? ' (no change)' : ''}.`, moves, { out });
+    else if (!seq) run(clock, 'Look at the flags.', [], { out });
     current = values;
+    if (!seq) return;
     run(clock, 'Pull φ1.', [{ kind: 'pull', lever: 'phi1' }]);
     run(clock, 'Release φ1.', [{ kind: 'release', lever: 'phi1' }]);
     run(clock, 'Pull φ2.', [{ kind: 'pull', lever: 'phi2' }]);
-    run(clock, 'Release φ2.', [{ kind: 'release', lever: 'phi2' }], c.next);
+    run(clock, 'Release φ2.', [{ kind: 'release', lever: 'phi2' }], { next: c.next });
   });
   return rows;
 }
@@ -96,30 +100,15 @@ function rowOf(sim: PartSim, state: PartState, step: number, clock: number, acti
     clock,
     action,
     latches: sim.latches.map((l) => ({ id: l.id, name: l.name, setZ: zOf(v[l.set]), resetZ: zOf(v[l.reset]), q: show(v[l.set]) })),
-    outputs: sim.build.machine.outputs.map((o, k) => ({ output: o, part: sim.build.signals.outputs[o] ?? '', kind: sim.outputs[k].kind, shows: show(outs[k]) })),
+    outputs: sim.build.machine.outputs.map((o, k) => {
+      const part = sim.build.signals.outputs[o] ?? '';
+      const kind = sim.build.netlist.parts.find((q) => q.id === part)?.kind === 'actuator' ? 'actuator' : 'flag';
+      return { output: o, part, kind, shows: show(outs[k]) };
+    }),
     state: stateName,
     code,
     note: alarms.join('; '),
   };
-}
-
-function combinationalRows(build: Build, tour: readonly TourClock[]): CommissioningRow[] {
-  const f = build.machine;
-  return tour.map((c, i) => {
-    const shown = combinationalOutputs(build, c.inputs);
-    const want = f.rows[c.state][c.row].out;
-    const wrong = f.outputs.filter((_, k) => want[k] !== '-' && String(want[k]) !== shown[k].shows);
-    return {
-      step: i + 1,
-      clock: i + 1,
-      action: f.inputs.length > 0 ? `Set the input levers: ${inputWords(f.inputs, c.inputs)}.` : 'Look at the flags.',
-      latches: [],
-      outputs: shown,
-      state: f.states[0],
-      code: '',
-      note: wrong.length > 0 ? `the state table gives ${wrong.map((o) => `${o}=${want[f.outputs.indexOf(o)]}`).join(', ')} here` : '',
-    };
-  });
 }
 
 /** What an output part shows, in words. */

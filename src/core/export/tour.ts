@@ -8,9 +8,12 @@
  * when a shortest one — the directed Chinese-postman problem of J. Edmonds & E. L. Johnson,
  * "Matching, Euler tours and the Chinese postman", Math. Programming 5, 1973 — is not needed;
  * from memory): from the current state, a breadth-first search finds the nearest state with a
- * transition not yet taken; the tour walks there along the shortest path and takes it. When
- * nothing untaken can be reached from the current state but something can from the start, the
- * tour resets. A "transition" is one row of the flat table (an input cube with its next state
+ * transition not yet taken; the tour walks there along the shortest path and takes it.
+ * Transitions that stay inside the current strongly connected component (S. R. Kosaraju's
+ * two-pass method; M. Sharir, "A strong-connectivity algorithm and its applications in data
+ * flow analysis", Comput. Math. Appl. 7(1), 1981) are taken before any that leave it, since
+ * after leaving, only a reset leads back. When nothing untaken can be reached from the current
+ * state but something can from the start, the tour resets. A "transition" is one row of the flat table (an input cube with its next state
  * and outputs) whose next state is specified; rows whose next state is free are not part of
  * the specification and are not taken (the abstract machine says nothing about where they go).
  * Inputs a row leaves free are released (0): a person pulls only the levers that matter. Row
@@ -77,10 +80,19 @@ export function commissioningTour(f: FlatMachine, opts: TourOptions = {}): TourC
     pendingReset = false;
     cur = r.next;
   };
+  const scc = components(f);
+  // An untaken row of s, preferring one that stays in s's component.
+  const inside = (s: number): number => taken[s].findIndex((t, k) => !t && f.rows[s][k].next !== DONT_CARE && scc[f.rows[s][k].next] === scc[s]);
+  const anyRow = untaken;
   while (out.length < maxClocks) {
-    const path = pathToUntaken(f, cur, untaken);
+    let path = pathToUntaken(f, cur, inside, (a, b) => scc[a] === scc[b]);
+    let pick = inside;
     if (path === null) {
-      if (cur === f.start || pathToUntaken(f, f.start, untaken) === null) break;
+      path = pathToUntaken(f, cur, anyRow, () => true);
+      pick = anyRow;
+    }
+    if (path === null) {
+      if (cur === f.start || pathToUntaken(f, f.start, anyRow, () => true) === null) break;
       cur = f.start;
       pendingReset = true;
       continue;
@@ -90,13 +102,61 @@ export function commissioningTour(f: FlatMachine, opts: TourOptions = {}): TourC
       take(s, k);
     }
     if (out.length >= maxClocks) break;
-    take(cur, untaken(cur));
+    take(cur, pick(cur));
   }
   return out;
 }
 
-/** Shortest path (as rows taken) from `from` to the nearest state with an untaken row, or null. */
-function pathToUntaken(f: FlatMachine, from: number, untaken: (s: number) => number): [number, number][] | null {
+/** Strongly connected component of every state (Kosaraju: finish order on the graph, then search the reversed graph). */
+function components(f: FlatMachine): number[] {
+  const n = f.states.length;
+  const succ = f.rows.map((rs) => [...new Set(rs.filter((r) => r.next !== DONT_CARE).map((r) => r.next))]);
+  const pred: number[][] = Array.from({ length: n }, () => []);
+  succ.forEach((list, s) => list.forEach((t) => pred[t].push(s)));
+  const order: number[] = [];
+  const seen = new Uint8Array(n);
+  for (let root = 0; root < n; root++) {
+    if (seen[root]) continue;
+    // Iterative depth-first search recording finish order (no recursion: machines may have thousands of states).
+    const stack: [number, number][] = [[root, 0]];
+    seen[root] = 1;
+    while (stack.length > 0) {
+      const top = stack[stack.length - 1];
+      const [s, i] = top;
+      if (i < succ[s].length) {
+        top[1]++;
+        const t = succ[s][i];
+        if (!seen[t]) {
+          seen[t] = 1;
+          stack.push([t, 0]);
+        }
+      } else {
+        order.push(s);
+        stack.pop();
+      }
+    }
+  }
+  const comp = new Array<number>(n).fill(-1);
+  let c = 0;
+  for (let k = order.length - 1; k >= 0; k--) {
+    const root = order[k];
+    if (comp[root] >= 0) continue;
+    const queue = [root];
+    comp[root] = c;
+    for (let q = 0; q < queue.length; q++) {
+      for (const p of pred[queue[q]]) {
+        if (comp[p] >= 0) continue;
+        comp[p] = c;
+        queue.push(p);
+      }
+    }
+    c++;
+  }
+  return comp;
+}
+
+/** Shortest path (as rows taken, along edges `allowed` keeps) from `from` to the nearest state with an untaken row, or null. */
+function pathToUntaken(f: FlatMachine, from: number, untaken: (s: number) => number, allowed: (a: number, b: number) => boolean): [number, number][] | null {
   const via = new Map<number, [number, number]>();
   const queue = [from];
   const seen = new Set([from]);
@@ -112,7 +172,7 @@ function pathToUntaken(f: FlatMachine, from: number, untaken: (s: number) => num
       return path;
     }
     f.rows[s].forEach((r, k) => {
-      if (r.next === DONT_CARE || seen.has(r.next)) return;
+      if (r.next === DONT_CARE || seen.has(r.next) || !allowed(s, r.next)) return;
       seen.add(r.next);
       via.set(r.next, [s, k]);
       queue.push(r.next);

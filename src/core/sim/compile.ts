@@ -38,10 +38,11 @@ export interface CompiledLatch {
   readonly rBar: Int32Array;
 }
 
-/** How a machine output is read: a flag on a gate's Z lever, or an actuator on cords. */
+/** How a machine output is read: a flag on a gate's Z lever, an actuator on cords, or a part pinned at a constant. */
 export type OutputReader =
   | { readonly kind: 'flag'; readonly gate: number; readonly inverted: boolean }
-  | { readonly kind: 'actuator'; readonly drivers: Int32Array };
+  | { readonly kind: 'actuator'; readonly drivers: Int32Array }
+  | { readonly kind: 'fixed'; readonly value: 0 | 1 };
 
 /** The netlist as index arrays (see the module comment). */
 export interface PartSim {
@@ -148,6 +149,7 @@ export function compilePart(build: Build, timing: PartTiming): PartSim {
   const outputs = build.machine.outputs.map((o): OutputReader => {
     const id = sig.outputs[o];
     const part = id === undefined ? undefined : byId.get(id);
+    if ((part?.kind === 'flag' || part?.kind === 'actuator') && part.fixed !== undefined) return { kind: 'fixed', value: part.fixed };
     if (part?.kind === 'flag') return { kind: 'flag', gate: need(part.gate, `gate of flag ${part.name}`), inverted: part.inverted };
     if (part?.kind === 'actuator') {
       const ds = net.cords.filter((c) => c.actuators.includes(part.id)).map((c) => need(c.driver, `driver of actuator ${part.name}`));

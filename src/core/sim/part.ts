@@ -10,9 +10,9 @@
  * model/netlist.ts. Postconditions: the input state is never modified.
  */
 import type { Build } from '../model/build.js';
-import type { Profile } from '../physics/profile.js';
+import { DEFAULT_PROFILE, type Profile } from '../physics/profile.js';
 import { compilePart, X, type PartSim, type PartTiming, type Trit } from './compile.js';
-import { describeAction, ruleBroken, RULE_WORDS, type HandAction, type InputValues } from './hand.js';
+import { describeAction, ruleBroken, RULE_WORDS, type HandAction, type InputValues, type OperatingRule } from './hand.js';
 import { evalGate, settle, show, type PartEvent, type PartEventKind } from './settle.js';
 
 export { X, compilePart, type PartSim, type PartTiming, type Trit } from './compile.js';
@@ -28,7 +28,7 @@ export interface PartState {
 
 /** Options of one step. */
 export interface StepOptions {
-  /** Stage delays; default: the profile's `stageDelayS` for every gate. */
+  /** Stage delays; default: the shipped profile's `stageDelayS` for every gate. */
   readonly timing?: PartTiming;
   /** Also report every part change as a 'change' event. */
   readonly trace?: boolean;
@@ -51,12 +51,9 @@ export function timingOf(profile: Pick<Profile, 'stageDelayS'>, delays?: Readonl
   return delays ? { stageDelayS: profile.stageDelayS, delays } : { stageDelayS: profile.stageDelayS };
 }
 
-/** Nominal timing used when a caller names none: 0.25 s per stage (the shipped profile's estimate). */
-const DEFAULT_TIMING: PartTiming = { stageDelayS: 0.25 };
-
 /** One hand action on the machine: the pure step. */
 export function stepPart(build: Build, state: PartState, action: HandAction, opts: StepOptions = {}): [PartState, PartEvent[]] {
-  return stepSim(simFor(build, opts.timing ?? DEFAULT_TIMING), state, action, opts.trace ?? false);
+  return stepSim(simFor(build, opts.timing ?? timingOf(DEFAULT_PROFILE)), state, action, opts.trace ?? false);
 }
 
 /** The pure step on an already compiled netlist. */
@@ -78,7 +75,7 @@ export function leverOf(sim: PartSim, a: HandAction): [number, 0 | 1] {
   return [d, a.kind === 'pull' ? 1 : 0];
 }
 
-const RULE_KIND: Readonly<Record<string, PartEventKind>> = {
+const RULE_KIND: Readonly<Record<OperatingRule, PartEventKind>> = {
   'clocks-apart': 'clocks-together',
   'inputs-steady': 'input-during-phi1',
   'reset-alone': 'reset-during-clock',
@@ -174,9 +171,10 @@ export function masterCode(sim: PartSim, values: Uint8Array): string {
   return s;
 }
 
-/** Output values in the machine's output order: flags read Z = NOT(gate output); actuators show 1 while their cord pulls. */
+/** Output values in the machine's output order: flags read Z = NOT(gate output); actuators show 1 while their cord pulls; pinned parts their constant. */
 export function outputValues(sim: PartSim, values: Uint8Array): Trit[] {
   return sim.outputs.map((r): Trit => {
+    if (r.kind === 'fixed') return r.value;
     if (r.kind === 'flag') {
       const out = values[r.gate];
       if (out === X) return X;

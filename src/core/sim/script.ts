@@ -16,6 +16,14 @@ import { createRunner } from './runner.js';
 /** One object per clock: input name → 0/1 (a missing input is released, 0). */
 export type SeqArray = readonly InputValues[];
 
+/** An output as a row shows it. */
+export type ShownValue = 0 | 1 | 'X' | '-';
+
+/** '0' → 0, '1' → 1; 'X' and '-' stay words. */
+function shown(v: string): ShownValue {
+  return v === '0' ? 0 : v === '1' ? 1 : v === '-' ? '-' : 'X';
+}
+
 export interface StepRow {
   /** Clock number, from 1. */
   readonly clock: number;
@@ -23,8 +31,8 @@ export interface StepRow {
   readonly state: string | null;
   readonly code: string;
   readonly inputs: InputValues;
-  /** Outputs shown while the inputs are held, before φ1: 0, 1, X (undetermined) or - (free in the spec, abstract level). */
-  readonly outputs: Readonly<Record<string, string>>;
+  /** Outputs shown while the inputs are held, before φ1: 0, 1, 'X' (undetermined) or '-' (free in the spec, abstract level). */
+  readonly outputs: Readonly<Record<string, ShownValue>>;
   /** State after φ2 is released. */
   readonly next: string | null;
   readonly nextCode: string;
@@ -32,18 +40,19 @@ export interface StepRow {
 }
 
 /** Check a parsed sequence file: an array of objects whose keys are input names and whose values are 0 or 1. */
-export function validateSequence(build: Build, seq: unknown): Diagnostic[] {
+export function validateSequence(build: Build, seq: unknown, file?: string): Diagnostic[] {
   const inputs = build.machine.inputs;
-  if (!Array.isArray(seq)) return [diag('LW103', 'the input sequence must be a JSON array with one object per clock', { path: '$' }, 'write [{"coin": 1}, {}, …]')];
+  const at = (path: string): { file?: string; path: string } => (file === undefined ? { path } : { file, path });
+  if (!Array.isArray(seq)) return [diag('LW103', 'the input sequence must be a JSON array with one object per clock', at('$'), 'write [{"coin": 1}, {}, …]')];
   const out: Diagnostic[] = [];
   seq.forEach((row: unknown, i) => {
     if (typeof row !== 'object' || row === null || Array.isArray(row)) {
-      out.push(diag('LW103', `clock ${i + 1} of the input sequence is not an object of input settings`, { path: `$[${i}]` }, 'write {"input": 1, …}'));
+      out.push(diag('LW103', `clock ${i + 1} of the input sequence is not an object of input settings`, at(`$[${i}]`), 'write {"input": 1, …}'));
       return;
     }
     for (const [k, v] of Object.entries(row)) {
-      if (!inputs.includes(k)) out.push(diag('LW208', `clock ${i + 1} sets '${k}', which is not an input of ${build.machine.name}`, { path: `$[${i}].${k}` }, `inputs: ${inputs.join(', ') || '(none)'}`));
-      else if (v !== 0 && v !== 1) out.push(diag('LW103', `clock ${i + 1} sets '${k}' to ${JSON.stringify(v)}; use 0 or 1`, { path: `$[${i}].${k}` }));
+      if (!inputs.includes(k)) out.push(diag('LW208', `clock ${i + 1} sets '${k}', which is not an input of ${build.machine.name}`, at(`$[${i}].${k}`), `inputs: ${inputs.join(', ') || '(none)'}`));
+      else if (v !== 0 && v !== 1) out.push(diag('LW103', `clock ${i + 1} sets '${k}' to ${JSON.stringify(v)}; use 0 or 1`, at(`$[${i}].${k}`)));
     }
   });
   return out;
@@ -67,7 +76,7 @@ export function runPartScript(build: Build, seq: SeqArray, timing: PartTiming): 
       state: r.before.state,
       code: r.before.code,
       inputs: all,
-      outputs: r.outputs,
+      outputs: Object.fromEntries(Object.entries(r.outputs).map(([o, v]) => [o, shown(v)])),
       next: r.after.state,
       nextCode: r.after.code,
       alarms: [...(i === 0 ? resetAlarms : []), ...neverWords(build, assignmentOf(inputs, values)), ...r.alarms.map((e) => e.words)],
@@ -88,7 +97,7 @@ export function runAbstractScript(build: Build, seq: SeqArray): StepRow[] {
       state: f.states[state],
       code: codes[state] ?? '',
       inputs: Object.fromEntries(f.inputs.map((n) => [n, values[n] ?? 0])),
-      outputs: Object.fromEntries(f.outputs.map((o, k) => [o, String(outputs[k])])),
+      outputs: Object.fromEntries(f.outputs.map((o, k) => [o, shown(String(outputs[k]))])),
       next: f.states[next],
       nextCode: codes[next] ?? '',
       alarms: neverWords(build, a),

@@ -24,6 +24,18 @@ export interface Notice {
 
 /** The address bar follows the text after this pause in typing. */
 const HASH_DELAY_MS = 400;
+/** Fingerprints of the texts this page wrote into links, kept to tell its own links from others'. */
+const WRITTEN_KEPT = 64;
+
+/** A short fingerprint of a text (FNV-1a, 32 bits): enough to recognise our own links. */
+function fingerprint(text: string): string {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) {
+    h ^= text.charCodeAt(i);
+    h = Math.imul(h, 0x01000193);
+  }
+  return (h >>> 0).toString(36);
+}
 
 export class SourceController implements ReactiveController {
   text = '';
@@ -49,8 +61,9 @@ export class SourceController implements ReactiveController {
     const savedFile = keepGet('file') ?? 'machine.lw';
     const kept = keepGet('previous');
     if (kept) this.previous = JSON.parse(kept) as { text: string; file: string };
-    // A fragment this page wrote itself may lag the autosave by the hash delay: the autosave wins.
-    const foreign = linked !== undefined && location.hash !== keepGet('link');
+    // A fragment this page wrote itself may lag the autosave by the hash delay: the autosave
+    // wins. Any other fragment is a link someone opened: it wins, and the autosave is kept.
+    const foreign = linked !== undefined && !this.wrote(linked);
     if (foreign && linked !== undefined) {
       const differs = saved !== undefined && saved !== linked;
       if (differs) this.keepPrevious(saved, savedFile);
@@ -165,9 +178,16 @@ export class SourceController implements ReactiveController {
   private readonly flushHash = (): void => {
     clearTimeout(this.hashTimer);
     const hash = machineHash(this.text);
-    keepSet('link', hash);
+    const mark = fingerprint(this.text);
+    const written = (keepGet('written') ?? '').split(' ').filter((w) => w !== '' && w !== mark);
+    keepSet('written', [...written.slice(-(WRITTEN_KEPT - 1)), mark].join(' '));
     if (location.hash !== hash) history.replaceState(null, '', hash);
   };
+
+  /** Did this page put that text in a link itself? */
+  private wrote(text: string): boolean {
+    return (keepGet('written') ?? '').split(' ').includes(fingerprint(text));
+  }
 
   private readonly onLeave = (e: BeforeUnloadEvent): void => {
     this.flushHash();
@@ -179,7 +199,6 @@ export class SourceController implements ReactiveController {
 
   private readonly onHash = (): void => {
     const linked = machineFromHash(location.hash);
-    if (location.hash === keepGet('link')) return;
     if (linked !== undefined && linked !== this.text) this.replace(linked, 'shared.lw', Origin.link, 'Opened the machine carried by the link.');
   };
 }

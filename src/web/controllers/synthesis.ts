@@ -33,6 +33,8 @@ export class SynthesisController implements ReactiveController {
   work: Work = Work.idle;
   search: Search = Search.none;
   reading: Reading | undefined;
+  /** The last reading without errors (views keep showing it while the text has errors). */
+  good: Reading | undefined;
   built: BuildView | undefined;
   checks: ChecksView | undefined;
   buildProblems: readonly Diagnostic[] = [];
@@ -72,6 +74,11 @@ export class SynthesisController implements ReactiveController {
     this.live?.terminate();
     this.searcher?.terminate();
     this.live = this.searcher = undefined;
+  }
+
+  /** The job number of the latest text. */
+  get job(): number {
+    return this.rev;
   }
 
   /** True when every view shows the latest text. */
@@ -164,6 +171,7 @@ export class SynthesisController implements ReactiveController {
     switch (m.kind) {
       case 'reading':
         this.reading = m.reading;
+        if (m.reading.ok) this.good = m.reading;
         this.shown.reading = m.rev;
         this.buildProblems = [];
         this.fault = undefined;

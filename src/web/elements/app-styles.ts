@@ -116,6 +116,16 @@ export const appStyles = css`
   lw-diagram {
     flex: 1;
   }
+  lw-diagram.stale {
+    opacity: 0.6;
+  }
+  .stale {
+    margin: 0 0 0.5rem;
+    padding: 0.3rem 0.6rem;
+    border-left: 4px solid var(--lw-warn);
+    background: var(--lw-sunk);
+    font-size: 0.85rem;
+  }
   @media (max-width: 60rem) {
     main {
       grid-template-columns: 1fr;

@@ -54,7 +54,7 @@ export class LwApp extends LitElement {
     const status = statusWords(s);
     return html`<header>
         <h1><span class="mark" aria-hidden="true"></span>Latchwright <span class="soft">lever machine designer</span></h1>
-        <span class="machine">${reading?.machine?.name ?? ''}</span>
+        <span class="machine">${s.good?.machine?.name ?? ''}</span>
         <span class="status ${status.tone}" role="status" data-work=${s.work}>${status.words}</span>
         <button class="theme" @click=${() => this.theme.next()} aria-label=${`Colour theme: ${this.theme.theme}. Change it`}>${
           this.theme.theme === 'system' ? 'Theme: system' : this.theme.theme === 'light' ? 'Theme: light' : 'Theme: dark'
@@ -94,20 +94,37 @@ export class LwApp extends LitElement {
       </main>`;
   }
 
+  protected override updated(): void {
+    // Revisions on the host, for the browser tests and the benchmark to wait on.
+    const s = this.synth;
+    Object.assign(this.dataset, { job: String(s.job), read: String(s.shown.reading), built: String(s.shown.built), checked: String(s.shown.checks) });
+  }
+
   private viewBody() {
     const s = this.synth;
-    const r = s.reading;
+    // While the text has errors the views keep the last machine that read, marked as such.
+    const stale = s.reading !== undefined && !s.reading.ok;
+    const r = s.good;
     const b = s.built;
     const codes = codesByState(r, b);
+    const note = stale && r ? html`<p class="stale" role="note">Showing the last version that read without errors; fix the problems on the bench to update.</p>` : nothing;
     switch (this.view) {
       case 'sketch':
         return r?.layout
-          ? html`<lw-diagram .layout=${r.layout} .codes=${codes} .lit=${litStates(r, this.stepper.reading?.state ?? null)} @reveal=${this.onReveal}></lw-diagram>`
+          ? html`${note}<lw-diagram class=${stale ? 'stale' : ''} .layout=${r.layout} .codes=${codes} .lit=${litStates(r, this.stepper.reading?.state ?? null)} @reveal=${this.onReveal}></lw-diagram>`
           : html`<p class="soft">The sketch appears when the machine reads without errors.</p>`;
       case 'ledger':
-        return html`<lw-state-table .machine=${r?.machine} .text=${this.source.text} .codes=${codes} .merged=${r?.merged ?? {}} @reveal=${this.onReveal} @text-edit=${(e: Detail<{ edit: TextEdit }>) => this.source.edit(applyEdit(this.source.text, e.detail.edit))}></lw-state-table>`;
+        return html`${note}<lw-state-table
+          .machine=${r?.machine}
+          ?frozen=${stale}
+          .text=${this.source.text}
+          .codes=${codes}
+          .merged=${r?.merged ?? {}}
+          @reveal=${this.onReveal}
+          @text-edit=${(e: Detail<{ edit: TextEdit }>) => this.source.edit(applyEdit(this.source.text, e.detail.edit))}
+        ></lw-state-table>`;
       case 'codes':
-        return html`<lw-codes
+        return html`${note}<lw-codes
           .built=${b}
           .rows=${s.rows}
           ?rowsCurrent=${s.shown.rows === s.shown.reading && s.work !== Work.reading}
@@ -119,7 +136,7 @@ export class LwApp extends LitElement {
           @choose=${(e: Detail<{ choice: EncodingChoice }>) => s.choose(e.detail.choice)}
         ></lw-codes>`;
       case 'parts':
-        return html`<lw-parts
+        return html`${note}<lw-parts
           .built=${b}
           .checks=${s.checks && s.shown.checks === s.shown.built ? s.checks : undefined}
           .schematic=${s.shown.schematic === s.shown.built ? s.schematic : undefined}
@@ -133,7 +150,7 @@ export class LwApp extends LitElement {
           }}
         ></lw-parts>`;
       case 'trial':
-        return html`<lw-stepper
+        return html`${note}<lw-stepper
           .reading=${this.stepper.reading}
           .samples=${this.stepper.samples}
           .alarms=${this.stepper.alarms}

@@ -20,6 +20,16 @@ const NAMES: Readonly<Record<EncodeStrategy, string>> = {
   auto: 'searched for fewest parts',
 };
 
+/** Short names for the table. */
+const SHORT: Readonly<Record<EncodeStrategy, string>> = {
+  binary: 'counting',
+  gray: 'Gray',
+  johnson: 'Johnson',
+  'one-hot': 'one-hot',
+  pinned: 'pinned',
+  auto: 'searched',
+};
+
 const PICKABLE: readonly EncodeStrategy[] = ['binary', 'gray', 'johnson', 'one-hot', 'auto'];
 
 export class LwCodes extends LitElement {
@@ -86,6 +96,13 @@ export class LwCodes extends LitElement {
         margin: 0;
         word-break: break-word;
       }
+      .wide {
+        overflow-x: auto;
+      }
+      .wide th,
+      .wide td {
+        padding: 0.25rem 0.4rem;
+      }
       .grid2 {
         display: grid;
         grid-template-columns: repeat(auto-fit, minmax(17rem, 1fr));
@@ -146,7 +163,7 @@ export class LwCodes extends LitElement {
   }
 
   private table(using: string) {
-    return html`<table aria-label="Encodings priced">
+    return html`<div class="wide"><table aria-label="Encodings priced">
       <thead>
         <tr>
           <th scope="col">Encoding</th>
@@ -166,10 +183,10 @@ export class LwCodes extends LitElement {
         ${this.rows.map((r) => {
           const p = r.parts;
           const cls = `${r.cheapest ? 'cheapest' : ''} ${r.strategy === using ? 'using' : ''}`;
-          if (!r.ok || !p || !r.encoding) return html`<tr><td>${NAMES[r.strategy]}</td><td colspan="10" class="soft">${r.problem}</td></tr>`;
+          if (!r.ok || !p || !r.encoding) return html`<tr><td title=${NAMES[r.strategy]}>${SHORT[r.strategy]}</td><td colspan="10" class="soft">${r.problem}</td></tr>`;
           const kept = r.encoding;
           return html`<tr class=${cls}>
-            <td>${NAMES[r.strategy]}${r.cheapest ? html` <strong>· fewest parts</strong>` : nothing}</td>
+            <td title=${NAMES[r.strategy]}>${SHORT[r.strategy]}${r.cheapest ? html` <strong title="fewest parts by weighted cost">★</strong>` : nothing}</td>
             <td class="num">${kept.bits}</td>
             <td class="num">${p.latches}</td>
             <td class="num">${p.gates}</td>
@@ -179,11 +196,17 @@ export class LwCodes extends LitElement {
             <td class="num">${p.weights}</td>
             <td class="num">${p.cords}</td>
             <td class="num">${r.cost}</td>
-            <td><button ?disabled=${!this.rowsCurrent} @click=${() => emit(this, 'choose', { choice: { kept } })} aria-label=${`Build with the ${NAMES[r.strategy]} codes`}>Build with these</button></td>
+            <td><button ?disabled=${!this.rowsCurrent} @click=${() => emit(this, 'choose', { choice: { kept } })} aria-label=${`Build with the ${NAMES[r.strategy]} codes`}>Use</button></td>
           </tr>`;
         })}
       </tbody>
-    </table>`;
+    </table></div>
+    <p class="soft">★ fewest parts by the profile's cost weights${this.weights()}. Hover a name for its method.</p>`;
+  }
+
+  private weights(): string {
+    const c = this.built?.profile.cost;
+    return c ? ` (gate ${c.gate}, latch ${c.latch}, lever ${c.lever}, capstan ${c.capstan}, weight ${c.weight}, cord ${c.cord})` : '';
   }
 }
 

@@ -33,6 +33,7 @@ export class LwEditor extends LitElement {
     .frame {
       display: grid;
       grid-template-columns: auto 1fr;
+      grid-template-rows: minmax(0, 1fr);
       height: 100%;
       border: 1px solid var(--lw-line);
       border-radius: var(--lw-radius);

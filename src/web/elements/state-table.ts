@@ -17,7 +17,10 @@ export class LwStateTable extends LitElement {
     text: { attribute: false },
     codes: { attribute: false },
     merged: { attribute: false },
+    frozen: { type: Boolean },
   };
+  /** The machine shown is not the text's current version: no edits from here. */
+  declare frozen: boolean;
   declare machine: Machine | undefined;
   declare text: string;
   /** Code of each state of the build, by original state name. */
@@ -30,6 +33,7 @@ export class LwStateTable extends LitElement {
     this.text = '';
     this.codes = {};
     this.merged = {};
+    this.frozen = false;
   }
 
   static override styles = [
@@ -73,7 +77,7 @@ export class LwStateTable extends LitElement {
   override render() {
     const m = this.machine;
     if (!m) return html`<p class="soft">The ledger fills in when the machine reads without errors.</p>`;
-    const editable = m.loc?.line !== undefined;
+    const editable = m.loc?.line !== undefined && !this.frozen;
     return html`<table aria-label="State ledger">
         <thead>
           <tr>
@@ -94,7 +98,9 @@ export class LwStateTable extends LitElement {
             <label>New state <input name="name" required pattern="[A-Za-z_][A-Za-z0-9_]*" aria-label="Name of the new state" /></label>
             <button type="submit">Add state</button>
           </form>`
-        : html`<p class="soft">This machine is not in the text form, so the ledger is read-only.</p>`}`;
+        : this.frozen
+          ? nothing
+          : html`<p class="soft">This machine is not in the text form, so the ledger is read-only.</p>`}`;
   }
 
   private stateRows(m: Machine, s: State, editable: boolean) {

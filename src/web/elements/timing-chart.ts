@@ -4,33 +4,10 @@
  * with the clock boundaries marked. An undetermined value (X) is a hatched band.
  */
 import { LitElement, css, html, type PropertyValues } from 'lit';
-import { range, select } from 'd3';
+import { select } from 'd3';
 import type { Sample } from '../controllers/stepper.js';
+import { tracesOf, type Trace } from '../controllers/traces.js';
 import { shared } from '../styles/shared.js';
-
-/** One trace: a name and its value after each sample ('0', '1' or 'X'). */
-export interface Trace {
-  readonly name: string;
-  readonly group: 'input' | 'clock' | 'bit' | 'output';
-  readonly values: readonly string[];
-}
-
-/** The traces of a run. */
-export function tracesOf(samples: readonly Sample[]): Trace[] {
-  if (samples.length === 0) return [];
-  const r0 = samples[0].reading;
-  const bits = r0.code.length;
-  const t = (name: string, group: Trace['group'], f: (s: Sample) => string): Trace => ({ name, group, values: samples.map(f) });
-  return [
-    ...Object.keys(r0.inputs).map((n) => t(n, 'input', (s) => String(s.reading.inputs[n] ?? 0))),
-    t('φ1', 'clock', (s) => (s.reading.phi1 ? '1' : '0')),
-    t('φ2', 'clock', (s) => (s.reading.phi2 ? '1' : '0')),
-    t('reset', 'clock', (s) => (s.reading.reset ? '1' : '0')),
-    ...range(bits).map((b) => t(`Q${b}`, 'bit', (s) => s.reading.code[b] ?? 'X')),
-    ...range(bits).map((b) => t(`M${b}`, 'bit', (s) => s.reading.masterCode[b] ?? 'X')),
-    ...Object.keys(r0.outputs).map((o) => t(o, 'output', (s) => s.reading.outputs[o] ?? 'X')),
-  ];
-}
 
 const ROW = 24;
 const COL = 18;

@@ -3,6 +3,8 @@ import { css } from 'lit';
 
 export const shared = css`
   :host {
+    /* Contains the visually hidden text, so it never stretches the page. */
+    position: relative;
     color: var(--lw-ink);
     font-family: var(--lw-font);
   }

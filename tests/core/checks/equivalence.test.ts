@@ -89,6 +89,12 @@ describe('core/checks/equivalence', () => {
     expect(sampled.summary).toContain('a test, not a proof');
   });
 
+  it('reads outputs shown by actuators', () => {
+    const { build, spec } = exampleBuild('marble-bell', { actuators: { bell: 200 } });
+    expect(build.netlist.parts.some((p) => p.kind === 'actuator')).toBe(true);
+    expect(checkEquivalence(build, spec, DEFAULT_PROFILE).ok).toBe(true);
+  });
+
   // Invariant: every synthesised build of a random machine behaves as the machine.
   it('holds for synthesised builds of random machines', () => {
     fc.assert(

@@ -2,7 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { stageChain } from '../../../src/core/checks/stage-chains.js';
 import { checkTiming } from '../../../src/core/checks/timing.js';
 import type { Build } from '../../../src/core/model/build.js';
+import type { FlatMachine } from '../../../src/core/model/flat.js';
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
+import { synthesise } from '../../../src/core/synthesise.js';
 import { simFor } from '../../../src/core/sim/part.js';
 import { toggleBuild } from '../sim/handmade.js';
 import { brokenBuild, exampleBuild, exampleNames } from './builds.js';
@@ -82,6 +84,12 @@ describe('core/checks/timing', () => {
     const r = checkTiming(toggleBuild(), profile, { delays: { 'S0.t0': 1, M0: 0.5 } });
     // φ1: the slow term (1 s) and the master latch's two gates at 0.5 s each.
     expect(r.phaseTimesS.phi1).toBe(2);
+  });
+
+  it('has nothing to time in a machine with one state and no inputs', () => {
+    const still: FlatMachine = { name: 'still', inputs: [], outputs: ['on'], states: ['only'], start: 0, rows: [[{ cube: '', next: 0, out: [1], transition: 0 }]], never: [] };
+    const r = checkTiming(synthesise(still, { strategy: 'binary', bits: 0, codes: [''] }, { profile }), profile);
+    expect(r).toMatchObject({ ok: true, clockS: 0, clocksPerMinute: 0, summary: 'nothing to time: the machine has no clock levers and no inputs' });
   });
 
   it.each(exampleNames())('passes for the example %s', (name) => {

@@ -10,9 +10,9 @@ describe('core/sim/script', () => {
   it('gives one row per clock, outputs read before φ1', () => {
     const rows = runPartScript(toggleBuild(), [{ t: 1 }, {}, { t: 1 }], { stageDelayS: 0.25 });
     expect(rows).toEqual([
-      { clock: 1, state: 'off', code: '0', inputs: { t: 1 }, outputs: { lit: '0' }, next: 'on', nextCode: '1', alarms: [] },
-      { clock: 2, state: 'on', code: '1', inputs: { t: 0 }, outputs: { lit: '1' }, next: 'on', nextCode: '1', alarms: [] },
-      { clock: 3, state: 'on', code: '1', inputs: { t: 1 }, outputs: { lit: '1' }, next: 'off', nextCode: '0', alarms: [] },
+      { clock: 1, state: 'off', code: '0', inputs: { t: 1 }, outputs: { lit: 0 }, next: 'on', nextCode: '1', alarms: [] },
+      { clock: 2, state: 'on', code: '1', inputs: { t: 0 }, outputs: { lit: 1 }, next: 'on', nextCode: '1', alarms: [] },
+      { clock: 3, state: 'on', code: '1', inputs: { t: 1 }, outputs: { lit: 1 }, next: 'off', nextCode: '0', alarms: [] },
     ]);
     expect(runAbstractScript(toggleBuild(), [{ t: 1 }, {}, { t: 1 }])).toEqual(rows);
   });

@@ -14,7 +14,7 @@
  *
  * The budget is an evaluation count, a deadline on the caller's clock, or (by default)
  * DEFAULT_SEARCH: exhaustive when there are at most 500 classes (every machine up to 6
- * states), else 150 annealing evaluations.
+ * states), else 50 annealing evaluations.
  *
  * Precondition: the cost is the same for assignments that differ by a cube symmetry (true of
  * the SR build, where Q and Q̄ are both free); only one assignment per class is priced.
@@ -63,12 +63,11 @@ export interface AutoOptions {
 /**
  * The default budget: price every class when there are at most `exhaustiveClasses` (all
  * machines up to 6 states: 420 classes at most, McCluskey & Unger), else anneal for
- * `annealingEvaluations`. Sized for the lead's goal of about 5 s on a 16-state machine:
- * one evaluation of the full synthesis measured 20–80 ms on the LGSynth'91 machines of
- * 5–14 states on a heavily loaded shared machine (an upper bound; an estimate of 10–30 ms
- * unloaded). The benchmark should re-measure; docs/methods/encode.md has the figures.
+ * `annealingEvaluations`. Sized for the goal of about 5 s on the benchmark's random 16-state,
+ * 4-input machine, where one evaluation (the pipeline's pricing synthesis) measured 70–100 ms
+ * of CPU time: 50 evaluations took 3.8 s; an exhaustive 6-state search (bbtas) took 2.6 s.
  */
-export const DEFAULT_SEARCH = { exhaustiveClasses: 500, annealingEvaluations: 150 } as const;
+export const DEFAULT_SEARCH = { exhaustiveClasses: 500, annealingEvaluations: 50 } as const;
 
 /** Named strategies are priced only when their codes are at most this many bits longer than the minimum. */
 const NAMED_EXTRA_BITS = 3;

@@ -18,7 +18,7 @@
 import { type BCube, type Space, inDistance, inDisjoint, outMeet, outCount, literals, outputsOf, hasOutput } from './bitcube.js';
 import { cubeCovered } from './unate.js';
 import { expandCover, expandCube, allowMask } from './expand.js';
-import { irredundantCover } from './irredundant.js';
+import { irredundantCover, byOutput } from './irredundant.js';
 import { reduceCover, reduceCube, lowerOutputs } from './reduce.js';
 import type { CoverCost } from './types.js';
 
@@ -37,23 +37,24 @@ function total(sp: Space, F: readonly BCube[], cost: CoverCost): number {
 export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R: readonly BCube[], cost: CoverCost): BCube[] {
   if (F0.length === 0) return [];
   const price = (c: BCube): number => cubeCost(sp, c, cost);
-  let F = irredundantCover(sp, expandCover(sp, F0, R), D, price);
+  const dc = byOutput(sp, D);
+  let F = irredundantCover(sp, expandCover(sp, F0, R), dc, price);
   const ess = essentials(sp, F, D);
   const E = F.filter((_, i) => ess[i]);
   F = F.filter((_, i) => !ess[i]);
-  const D2 = [...D, ...E];
+  const dc2 = byOutput(sp, [...D, ...E]);
   let best = F;
   let bestCost = total(sp, F, cost);
   while (F.length > 0) {
-    F = irredundantCover(sp, expandCover(sp, reduceCover(sp, F, D2), R), D2, price);
+    F = irredundantCover(sp, expandCover(sp, reduceCover(sp, F, dc2), R), dc2, price);
     const c = total(sp, F, cost);
     if (c < bestCost) { best = F; bestCost = c; continue; }
-    const g = lastGasp(sp, best, D2, R, price);
+    const g = lastGasp(sp, best, dc2, R, price);
     const cg = total(sp, g, cost);
     if (cg < bestCost) { best = g; bestCost = cg; F = g; continue; }
     break;
   }
-  return makeSparse(sp, [...E, ...best], D, R, cost);
+  return makeSparse(sp, [...E, ...best], dc, R, cost);
 }
 
 /**
@@ -94,11 +95,10 @@ export function essentials(sp: Space, F: readonly BCube[], D: readonly BCube[]):
  * reduced cube aiming at the other reduced cubes, and keep the new cubes that swallow at
  * least one other; IRREDUNDANT decides whether they pay.
  */
-function lastGasp(sp: Space, F: readonly BCube[], D: readonly BCube[], R: readonly BCube[], price: (c: BCube) => number): BCube[] {
-  const pool = [...F, ...D];
+function lastGasp(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: readonly BCube[], price: (c: BCube) => number): BCube[] {
   const reduced: BCube[] = [];
-  F.forEach((c, i) => {
-    const r = reduceCube(sp, c, pool, i);
+  F.forEach((c) => {
+    const r = reduceCube(sp, c, F, dc);
     if (r !== null && !sameCube(sp, r, c)) reduced.push(r);
   });
   if (reduced.length < 2) return F.slice();
@@ -110,15 +110,15 @@ function lastGasp(sp: Space, F: readonly BCube[], D: readonly BCube[], R: readon
     if (others.some((o) => containsFull(sp, e, o))) fresh.push(e);
   });
   if (fresh.length === 0) return F.slice();
-  return irredundantCover(sp, [...F, ...fresh], D, price);
+  return irredundantCover(sp, [...F, ...fresh], dc, price);
 }
 
 /** MAKE_SPARSE (Brayton et al. §4.7): fewer output connections, then larger input parts. */
-function makeSparse(sp: Space, F: readonly BCube[], D: readonly BCube[], R: readonly BCube[], cost: CoverCost): BCube[] {
+function makeSparse(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: readonly BCube[], cost: CoverCost): BCube[] {
   let cur = F.slice();
   let curCost = total(sp, cur, cost);
   for (;;) {
-    const next = expandCover(sp, lowerOutputs(sp, cur, D), R, true);
+    const next = expandCover(sp, lowerOutputs(sp, cur, dc), R, true);
     const c = total(sp, next, cost);
     if (c >= curCost) return c === curCost ? next : cur;
     cur = next;

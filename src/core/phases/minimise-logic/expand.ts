@@ -63,14 +63,18 @@ export function expandCube(sp: Space, c0: BCube, R: readonly BCube[], cands: rea
   const W = sp.w;
   const wi = sp.wi;
   const c = c0.slice();
-  const free = new Array<number>(W);
-  const keep = new Array<number>(W).fill(0);
+  const free = new Int32Array(W);
+  const keep = new Int32Array(W);
   for (let k = 0; k < W; k++) free[k] = allow[k] & ~c[k];
-  let active: number[][] = [];
-  for (const r of R) {
-    const row = new Array<number>(W);
+  // Blocking rows, flat: row i occupies rows[i*W .. i*W+W-1]; `act` lists the live ones.
+  const rows = new Int32Array(R.length * W);
+  const act = new Int32Array(R.length);
+  let na = 0;
+  for (let i = 0; i < R.length; i++) {
+    const r = R[i];
     let any = 0;
-    let fixed = false;
+    let fixed = 0;
+    const base = na * W;
     for (let k = 0; k < W; k++) {
       let x: number;
       if (k < wi) {
@@ -78,156 +82,163 @@ export function expandCube(sp: Space, c0: BCube, R: readonly BCube[], cands: rea
         const z = sp.low[k] & ~(y | (y >>> 1));
         x = (z | (z << 1)) & r[k] & ~c[k];
       } else x = r[k] & ~c[k];
-      row[k] = x;
+      rows[base + k] = x;
       any |= x;
-      if ((x & ~free[k]) !== 0) fixed = true;
+      fixed |= x & ~free[k];
     }
     if (any === 0) throw new Error('expand: a cube of the cover meets the off-set');
-    if (!fixed) active.push(row); // a bit we may not raise already keeps c off r
+    if (fixed === 0) { act[na] = base; na++; } // else a bit we may not raise keeps c off r
   }
-  let pending = cands.slice();
+  const nc = cands.length;
+  const need = new Int32Array(nc * W);
+  const pend = new Int32Array(nc);
+  let np = 0;
+  for (let i = 0; i < nc; i++) pend[np++] = i;
+  const feas = new Int32Array(nc);
   for (;;) {
-    active = essentialLowering(W, active, free, keep);
+    na = essentialLowering(W, rows, act, na, free, keep);
     // Raise, for free, every bit no remaining off cube depends on.
-    const used = new Array<number>(W).fill(0);
-    for (const row of active) for (let k = 0; k < W; k++) used[k] |= row[k];
     for (let k = 0; k < W; k++) {
-      const up = free[k] & ~used[k];
+      let used = 0;
+      for (let a = 0; a < na; a++) used |= rows[act[a] + k];
+      const up = free[k] & ~used;
       c[k] |= up;
       free[k] &= ~up;
     }
     // Cubes still coverable by raising only free bits without meeting R.
-    const feasible: { need: number[]; d: BCube }[] = [];
-    const still: BCube[] = [];
-    for (const d of pending) {
-      const need = new Array<number>(W);
+    let nf = 0;
+    let kept = 0;
+    for (let p = 0; p < np; p++) {
+      const i = pend[p];
+      const d = cands[i];
+      const nb = i * W;
       let some = 0;
-      let blocked = false;
+      let blocked = 0;
       for (let k = 0; k < W; k++) {
-        need[k] = d[k] & ~c[k];
-        some |= need[k];
-        if ((need[k] & ~free[k]) !== 0) blocked = true;
+        const x = d[k] & ~c[k];
+        need[nb + k] = x;
+        some |= x;
+        blocked |= x & ~free[k];
       }
-      if (some === 0 || blocked) continue; // already covered, or never coverable
-      still.push(d);
-      let ok = true;
-      for (const row of active) {
-        let left = 0;
-        for (let k = 0; k < W; k++) left |= row[k] & free[k] & ~need[k];
-        if (left === 0) { ok = false; break; }
-      }
-      if (ok) feasible.push({ need, d });
+      if (some === 0 || blocked !== 0) continue; // already covered, or never coverable
+      pend[kept++] = i;
+      if (rowsSurvive(W, rows, act, na, free, need, nb, -1)) feas[nf++] = i;
     }
-    pending = still;
-    if (feasible.length === 0) break;
+    np = kept;
+    if (nf === 0) break;
     // Espresso's select_feasible: take the cube whose raise leaves most of the other feasible
     // cubes still feasible; ties go to the smaller raise, then to the earlier cube.
-    let best = 0;
+    let best = feas[0];
     let bestScore = -1;
     let bestBits = Infinity;
-    const both = new Array<number>(W);
-    for (let a = 0; a < feasible.length; a++) {
-      const na = feasible[a].need;
+    for (let a = 0; a < nf; a++) {
+      const ia = feas[a] * W;
       let score = 0;
-      for (let b = 0; b < feasible.length; b++) {
-        if (a === b) continue;
-        const nb = feasible[b].need;
-        for (let k = 0; k < W; k++) both[k] = na[k] | nb[k];
-        let ok = true;
-        for (const row of active) {
-          let left = 0;
-          for (let k = 0; k < W; k++) left |= row[k] & free[k] & ~both[k];
-          if (left === 0) { ok = false; break; }
-        }
-        if (ok) score++;
-      }
+      for (let b = 0; b < nf; b++) if (a !== b && rowsSurvive(W, rows, act, na, free, need, ia, feas[b] * W)) score++;
       let bits = 0;
-      for (let k = 0; k < W; k++) bits += popcount(na[k]);
+      for (let k = 0; k < W; k++) bits += popcount(need[ia + k]);
       if (score > bestScore || (score === bestScore && bits < bestBits)) {
-        best = a;
+        best = feas[a];
         bestScore = score;
         bestBits = bits;
       }
     }
-    const need = feasible[best].need;
     for (let k = 0; k < W; k++) {
-      c[k] |= need[k];
-      free[k] &= ~need[k];
+      const x = need[best * W + k];
+      c[k] |= x;
+      free[k] &= ~x;
     }
   }
-  lowestLowering(W, active, free, keep);
+  lowestLowering(W, rows, act, na, free, keep);
   for (let k = 0; k < W; k++) c[k] |= free[k] & ~keep[k];
   return c;
 }
 
+/** Does every live row keep a free bit outside the raise need[a] (∪ need[b] when b ≥ 0)? */
+function rowsSurvive(W: number, rows: Int32Array, act: Int32Array, na: number, free: Int32Array, need: Int32Array, a: number, b: number): boolean {
+  for (let i = 0; i < na; i++) {
+    const base = act[i];
+    let left = 0;
+    for (let k = 0; k < W; k++) left |= rows[base + k] & free[k] & ~need[a + k] & ~(b >= 0 ? need[b + k] : 0);
+    if (left === 0) return false;
+  }
+  return true;
+}
+
 /**
  * Rows left with a single free bit force that bit to stay lowered; repeat to a fixed point.
- * Returns the rows not yet kept off by a lowered bit.
+ * Returns the number of rows (compacted at the front of `act`) not yet kept off.
  */
-function essentialLowering(W: number, rows: number[][], free: number[], keep: number[]): number[][] {
-  let active = rows;
+function essentialLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: Int32Array, keep: Int32Array): number {
   for (let changed = true; changed; ) {
     changed = false;
-    const next: number[][] = [];
-    for (const row of active) {
-      let blocked = false;
+    let out = 0;
+    for (let i = 0; i < na; i++) {
+      const base = act[i];
+      let blocked = 0;
       let cnt = 0;
+      let only = -1;
       for (let k = 0; k < W; k++) {
-        if ((row[k] & keep[k]) !== 0) { blocked = true; break; }
-        cnt += popcount(row[k] & free[k]);
+        const x = rows[base + k];
+        blocked |= x & keep[k];
+        const f = x & free[k];
+        if (f !== 0) { cnt += popcount(f); only = k; }
       }
-      if (blocked) continue;
+      if (blocked !== 0) continue;
       if (cnt === 0) throw new Error('expand: a raise made the cube meet the off-set');
       if (cnt === 1) {
-        for (let k = 0; k < W; k++) {
-          const b = row[k] & free[k];
-          keep[k] |= b;
-          free[k] &= ~b;
-        }
+        const b = rows[base + only] & free[only];
+        keep[only] |= b;
+        free[only] &= ~b;
         changed = true;
         continue;
       }
-      next.push(row);
+      act[out++] = base;
     }
-    active = next;
+    na = out;
   }
-  return active;
+  return na;
 }
 
 /**
  * The rest of the blocking matrix: greedily keep the bit that blocks most rows, then give back
  * any kept bit whose rows are all blocked by others (so the result is prime).
  */
-function lowestLowering(W: number, rows: number[][], free: number[], keep: number[]): void {
-  if (rows.length === 0) return;
-  let left = rows;
-  const chosen: [number, number][] = [];
-  const counts = new Int32Array(W * 30);
-  while (left.length > 0) {
+function lowestLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: Int32Array, keep: Int32Array): void {
+  if (na === 0) return;
+  const left = act.slice(0, na);
+  let nl = na;
+  const chosen: number[] = [];
+  const counts = new Int32Array(W * 32);
+  while (nl > 0) {
     counts.fill(0);
-    for (const row of left)
+    for (let i = 0; i < nl; i++)
       for (let k = 0; k < W; k++) {
-        let x = row[k] & free[k];
-        while (x !== 0) { counts[k * 30 + 31 - Math.clz32(x & -x)]++; x &= x - 1; }
+        let x = rows[left[i] + k] & free[k];
+        while (x !== 0) { counts[k * 32 + 31 - Math.clz32(x & -x)]++; x &= x - 1; }
       }
     let bi = 0;
     for (let i = 1; i < counts.length; i++) if (counts[i] > counts[bi]) bi = i;
-    const k = (bi / 30) | 0;
-    const bit = 1 << (bi % 30);
+    const k = bi >>> 5;
+    const bit = 1 << (bi & 31);
     keep[k] |= bit;
     free[k] &= ~bit;
-    chosen.push([k, bit]);
-    left = left.filter((row) => (row[k] & bit) === 0);
+    chosen.push(bi);
+    let out = 0;
+    for (let i = 0; i < nl; i++) if ((rows[left[i] + k] & bit) === 0) left[out++] = left[i];
+    nl = out;
   }
-  for (let i = chosen.length - 1; i >= 0; i--) {
-    const [k, bit] = chosen[i];
+  for (let q = chosen.length - 1; q >= 0; q--) {
+    const k = chosen[q] >>> 5;
+    const bit = 1 << (chosen[q] & 31);
     keep[k] &= ~bit;
     let needed = false;
-    for (const row of rows) {
-      if ((row[k] & bit) === 0) continue;
+    for (let i = 0; i < na && !needed; i++) {
+      const base = act[i];
+      if ((rows[base + k] & bit) === 0) continue;
       let other = 0;
-      for (let q = 0; q < W; q++) other |= row[q] & keep[q];
-      if (other === 0) { needed = true; break; }
+      for (let w = 0; w < W; w++) other |= rows[base + w] & keep[w];
+      if (other === 0) needed = true;
     }
     if (needed) keep[k] |= bit;
     else free[k] |= bit;

@@ -23,7 +23,7 @@ import type { Cube } from '../../model/cube.js';
 import {
   type BCube, type Space, makeSpace, parseInput, formatInput, withOutputs, outputsOf, inDisjoint, key, absorbFull,
 } from './bitcube.js';
-import { complement, subtractCover } from './unate.js';
+import { compact, complement, subtractCover } from './unate.js';
 import { espresso, cubeCost } from './espresso.js';
 import { exactMinimise, EXACT_MAX_VARS, type ExactLimits } from './exact.js';
 import { DEFAULT_COST, coverCost } from './cost.js';
@@ -85,14 +85,14 @@ interface Packed {
 
 function pack(f: MultiFunction): Packed {
   const sp = makeSpace(f.vars, f.on.length);
-  const on = f.on.map((cs) => cs.map((c) => parseInput(sp, c)));
+  const on = f.on.map((cs) => compact(sp, cs.map((c) => parseInput(sp, c))));
   const dc = f.dc.map((cs, j) => {
-    const raw = cs.map((c) => parseInput(sp, c));
+    const raw = compact(sp, cs.map((c) => parseInput(sp, c)));
     // The on-set wins where the lists overlap: keep only the don't-care points outside it.
     const meets = raw.some((d) => on[j].some((o) => !inDisjoint(sp, d, o)));
-    return meets ? subtractCover(sp, raw, on[j]) : raw;
+    return meets ? compact(sp, subtractCover(sp, raw, on[j])) : raw;
   });
-  const allowed = on.map((cs, j) => [...cs, ...dc[j]]);
+  const allowed = on.map((cs, j) => compact(sp, [...cs, ...dc[j]]));
   return { sp, on, dc, allowed };
 }
 

@@ -21,32 +21,39 @@ import { solveCover } from './cover-exact.js';
 /** Node limit of the covering search inside IRREDUNDANT (then the best cover found so far). */
 const IRREDUNDANT_NODES = 2000;
 
-/** Is cube c (every function it feeds) covered by the pool cubes (other than index skip)? */
-export function coveredByPool(sp: Space, c: BCube, pool: readonly BCube[], skip = -1): boolean {
-  for (const j of outputsOf(sp, c)) {
-    const t: BCube[] = [];
-    for (let i = 0; i < pool.length; i++) if (i !== skip && hasOutput(sp, pool[i], j)) t.push(pool[i]);
-    if (!cubeCovered(sp, t, c)) return false;
-  }
+/** The cubes feeding each function, as lists (by reference). */
+export function byOutput(sp: Space, cubes: readonly BCube[]): BCube[][] {
+  const out: BCube[][] = Array.from({ length: sp.m }, () => []);
+  for (const c of cubes) for (const j of outputsOf(sp, c)) out[j].push(c);
+  return out;
+}
+
+/** Is every function of c covered by the other cubes of `lists` (per function) and `dc`? */
+function coveredBy(sp: Space, c: BCube, lists: readonly BCube[][], dc: readonly BCube[][]): boolean {
+  for (const j of outputsOf(sp, c)) if (!cubeCovered(sp, lists[j], c, c, dc[j])) return false;
   return true;
 }
 
-/** A minimal-cost irredundant subcover of F, given don't-cares D; `costOf` prices a cube. */
-export function irredundantCover(sp: Space, F: readonly BCube[], D: readonly BCube[], costOf: (c: BCube) => number): BCube[] {
-  const all = [...F, ...D];
+/**
+ * A minimal-cost irredundant subcover of F, given the don't-cares per function `dc`
+ * (input cubes); `costOf` prices a cube.
+ */
+export function irredundantCover(sp: Space, F: readonly BCube[], dc: readonly BCube[][], costOf: (c: BCube) => number): BCube[] {
+  const fj = byOutput(sp, F);
   const relEssential: number[] = [];
   const redundant: number[] = [];
-  F.forEach((c, i) => (coveredByPool(sp, c, all, i) ? redundant : relEssential).push(i));
+  F.forEach((c, i) => (coveredBy(sp, c, fj, dc) ? redundant : relEssential).push(i));
   if (redundant.length === 0) return F.slice();
-  const ed = [...relEssential.map((i) => F[i]), ...D];
-  const partial = redundant.filter((i) => !coveredByPool(sp, F[i], ed));
+  const ej = byOutput(sp, relEssential.map((i) => F[i]));
+  const partial = redundant.filter((i) => !coveredBy(sp, F[i], ej, dc));
   if (partial.length === 0) return relEssential.map((i) => F[i]);
   const rp = partial.map((i) => F[i]);
   const rows: number[][] = [];
   rp.forEach((p, pi) => {
     for (const j of outputsOf(sp, p)) {
       const t: Labelled[] = [];
-      for (const d of ed) if (hasOutput(sp, d, j) && !inDisjoint(sp, d, p)) t.push({ c: cofactor(sp, d, p), label: -1 });
+      for (const list of [ej[j], dc[j]])
+        for (const d of list) if (!inDisjoint(sp, d, p)) t.push({ c: cofactor(sp, d, p), label: -1 });
       rp.forEach((q, qi) => {
         if (qi !== pi && hasOutput(sp, q, j) && !inDisjoint(sp, q, p)) t.push({ c: cofactor(sp, q, p), label: qi });
       });

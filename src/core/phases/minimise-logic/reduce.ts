@@ -16,16 +16,17 @@ import {
 } from './bitcube.js';
 import { cubeCovered, supercubeOfComplement } from './unate.js';
 
-/** The maximally reduced form of c against the pool (others and don't-cares), or null. */
-export function reduceCube(sp: Space, c: BCube, pool: readonly BCube[], skip: number): BCube | null {
+/**
+ * The maximally reduced form of c against the other cubes (`others`, skipping c itself by
+ * reference) and the don't-cares per function, or null when nothing of c is needed.
+ */
+export function reduceCube(sp: Space, c: BCube, others: readonly BCube[], dc: readonly BCube[][]): BCube | null {
   let sup: BCube | null = null;
   const outs: number[] = [];
   for (const j of outputsOf(sp, c)) {
     const t: BCube[] = [];
-    for (let i = 0; i < pool.length; i++) {
-      const d = pool[i];
-      if (i !== skip && hasOutput(sp, d, j) && !inDisjoint(sp, d, c)) t.push(cofactor(sp, d, c));
-    }
+    for (const d of others) if (d !== c && hasOutput(sp, d, j) && !inDisjoint(sp, d, c)) t.push(cofactor(sp, d, c));
+    for (const d of dc[j]) if (!inDisjoint(sp, d, c)) t.push(cofactor(sp, d, c));
     const s = supercubeOfComplement(sp, t);
     if (s === null) continue;
     const region = inAnd(sp, c, s);
@@ -39,7 +40,7 @@ export function reduceCube(sp: Space, c: BCube, pool: readonly BCube[], skip: nu
  * Sequential REDUCE: the largest cube first, then the others by decreasing distance from it
  * (Espresso's order, which keeps the big cubes from being starved by their neighbours).
  */
-export function reduceCover(sp: Space, F: readonly BCube[], D: readonly BCube[]): BCube[] {
+export function reduceCover(sp: Space, F: readonly BCube[], dc: readonly BCube[][]): BCube[] {
   if (F.length === 0) return [];
   const size = (c: BCube): number => outCount(sp, c) - literals(sp, c);
   let top = 0;
@@ -48,28 +49,25 @@ export function reduceCover(sp: Space, F: readonly BCube[], D: readonly BCube[])
     if (a === top || b === top) return a === top ? -1 : 1;
     return inDistance(sp, F[b], F[top]) - inDistance(sp, F[a], F[top]) || a - b;
   });
-  const cur: (BCube | null)[] = F.slice();
-  const pool = (): BCube[] => [...(cur.filter((c) => c !== null) as BCube[]), ...D];
+  const cur: BCube[] = F.slice();
+  const gone: BCube = [];
   for (const i of order) {
-    const c = cur[i]!;
-    cur[i] = null;
-    cur[i] = reduceCube(sp, c, pool(), -1);
+    const r = reduceCube(sp, cur[i], cur, dc);
+    cur[i] = r ?? gone;
   }
-  return cur.filter((c) => c !== null) as BCube[];
+  return cur.filter((c) => c !== gone);
 }
 
-/** Drop every output connection covered by the other terms and D (in cover order). */
-export function lowerOutputs(sp: Space, F: readonly BCube[], D: readonly BCube[]): BCube[] {
+/** Drop every output connection covered by the other terms and the don't-cares (in order). */
+export function lowerOutputs(sp: Space, F: readonly BCube[], dc: readonly BCube[][]): BCube[] {
   const cur: BCube[] = F.map((c) => c.slice());
-  for (let i = 0; i < cur.length; i++) {
-    const c = cur[i];
+  const lists = Array.from({ length: sp.m }, (_, j) => cur.filter((c) => hasOutput(sp, c, j)));
+  for (const c of cur) {
     for (const j of outputsOf(sp, c)) {
-      const t: BCube[] = [];
-      for (let q = 0; q < cur.length; q++) if (q !== i && hasOutput(sp, cur[q], j)) t.push(cur[q]);
-      for (const d of D) if (hasOutput(sp, d, j)) t.push(d);
-      if (cubeCovered(sp, t, c)) {
+      if (cubeCovered(sp, lists[j], c, c, dc[j])) {
         const [k, bit] = outputBit(sp, j);
         c[k] &= ~bit;
+        lists[j] = lists[j].filter((d) => d !== c);
       }
     }
   }

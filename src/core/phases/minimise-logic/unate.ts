@@ -119,20 +119,32 @@ export function tautology(sp: Space, t: readonly BCube[]): boolean {
   }
 }
 
-/** True when the input cube c lies inside the union of the cover t. */
-export function cubeCovered(sp: Space, t: readonly BCube[], c: BCube): boolean {
+/**
+ * True when the input cube c lies inside the union of the covers (cubes identical by
+ * reference to `skip` are left out). Answered by the tautology of the cofactor.
+ */
+export function cubeCovered(sp: Space, t: readonly BCube[], c: BCube, skip?: BCube, t2?: readonly BCube[]): boolean {
   const cof: BCube[] = [];
-  for (const d of t) {
-    let meets = true;
-    for (let k = 0; k < sp.wi; k++) {
-      const x = c[k] & d[k];
-      const l = sp.low[k];
-      if (((x | (x >>> 1)) & l) !== l) { meets = false; break; }
+  const wi = sp.wi;
+  for (let pass = 0; pass < 2; pass++) {
+    const list = pass === 0 ? t : t2;
+    if (list === undefined) break;
+    for (const d of list) {
+      if (d === skip) continue;
+      let meets = true;
+      let whole = true;
+      for (let k = 0; k < wi; k++) {
+        const x = c[k] & d[k];
+        const l = sp.low[k];
+        if (((x | (x >>> 1)) & l) !== l) { meets = false; break; }
+        if ((c[k] & ~d[k]) !== 0) whole = false;
+      }
+      if (!meets) continue;
+      if (whole) return true; // d contains c
+      const r = new Array<number>(wi);
+      for (let k = 0; k < wi; k++) r[k] = d[k] | (~c[k] & sp.full[k]);
+      cof.push(r);
     }
-    if (!meets) continue;
-    const r = new Array<number>(sp.wi);
-    for (let k = 0; k < sp.wi; k++) r[k] = d[k] | (~c[k] & sp.full[k]);
-    cof.push(r);
   }
   return tautology(sp, cof);
 }
@@ -267,4 +279,85 @@ export function subtractCover(sp: Space, from: readonly BCube[], minus: readonly
     if (cur.length === 0) break;
   }
   return cur;
+}
+
+/**
+ * The same set of points in fewer cubes: repeatedly merge two cubes that differ only in the
+ * value of one variable (the first step of Quine's method, done on cubes), then drop cubes
+ * inside others. Cheap (hashing per variable) and exact; used on the caller's lists, which
+ * often arrive as single minterms.
+ */
+export function compact(sp: Space, t: readonly BCube[]): BCube[] {
+  if (sp.wi === 1) return compact1(sp, t);
+  let cur = t.map((c) => c.slice(0, sp.wi));
+  for (let changed = true; changed; ) {
+    changed = false;
+    for (let v = 0; v < sp.n; v++) {
+      const [k, s] = varPos(v);
+      const both = 3 << s;
+      const groups = new Map<string, number>();
+      const next: BCube[] = [];
+      for (const c of cur) {
+        const f = c[k] & both;
+        if (f === both) { next.push(c); continue; }
+        const freed = c.slice();
+        freed[k] |= both;
+        const id = freed.join(',');
+        const at = groups.get(id);
+        if (at === undefined) { groups.set(id, next.length); next.push(c); continue; }
+        const other = next[at][k] & both;
+        if (other === f || other === both) continue; // duplicate, or already merged
+        next[at] = freed;
+        changed = true;
+      }
+      cur = next;
+    }
+  }
+  return absorbCubes(sp, cur);
+}
+
+/** compact() for cubes of one input word, on plain integers (the common small case). */
+function compact1(sp: Space, t: readonly BCube[]): BCube[] {
+  let cur = t.map((c) => c[0]);
+  const groups = new Map<number, number>();
+  for (let changed = true; changed; ) {
+    changed = false;
+    for (let v = 0; v < sp.n; v++) {
+      const both = 3 << (2 * v);
+      groups.clear();
+      let out = 0;
+      for (let i = 0; i < cur.length; i++) {
+        const c = cur[i];
+        const f = c & both;
+        if (f === both) { cur[out++] = c; continue; }
+        const freed = c | both;
+        const at = groups.get(freed);
+        if (at === undefined) { groups.set(freed, out); cur[out++] = c; continue; }
+        const other = cur[at] & both;
+        if (other === f || other === both) continue;
+        cur[at] = freed;
+        changed = true;
+      }
+      cur.length = out;
+    }
+  }
+  cur = [...new Set(cur)];
+  return absorbCubes(sp, cur.map((c) => [c]));
+}
+
+/** Input-part single-cube containment (keep maximal cubes, first of equals, stable order). */
+export function absorbCubes(sp: Space, t: readonly BCube[]): BCube[] {
+  const lit = (c: BCube): number => {
+    let n = 0;
+    for (let k = 0; k < sp.wi; k++) n += popcount(sp.low[k] & ~(c[k] & (c[k] >>> 1)));
+    return n;
+  };
+  const order = t.map((c, i) => ({ c, i, l: lit(c) })).sort((a, b) => a.l - b.l || a.i - b.i);
+  const out: BCube[] = [];
+  for (const { c } of order) {
+    let inside = false;
+    for (const o of out) if (inContains(sp, o, c)) { inside = true; break; }
+    if (!inside) out.push(c);
+  }
+  return out;
 }

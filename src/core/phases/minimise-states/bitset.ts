@@ -39,14 +39,23 @@ export function union(a: StateSet, b: StateSet): StateSet {
   return out;
 }
 
+/** a ∩ b as a new set. */
+export function intersection(a: StateSet, b: StateSet): StateSet {
+  const out = new Uint32Array(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = a[i] & b[i];
+  return out;
+}
+
+/** a minus b as a new set. */
+export function difference(a: StateSet, b: StateSet): StateSet {
+  const out = new Uint32Array(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = a[i] & ~b[i];
+  return out;
+}
+
 /** True when every member of a is in b. */
 export function isSubset(a: StateSet, b: StateSet): boolean {
   for (let i = 0; i < a.length; i++) if ((a[i] & ~b[i]) !== 0) return false;
-  return true;
-}
-
-export function equalSets(a: StateSet, b: StateSet): boolean {
-  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
   return true;
 }
 
@@ -93,12 +102,6 @@ export function members(s: StateSet): number[] {
     }
   }
   return out;
-}
-
-/** Lowest member, or -1 for the empty set. */
-export function first(s: StateSet): number {
-  for (let i = 0; i < s.length; i++) if (s[i] !== 0) return i * 32 + 31 - Math.clz32(s[i] & -s[i]);
-  return -1;
 }
 
 /** Canonical text key (equal sets, equal keys). */

@@ -16,19 +16,21 @@
  * reduced machine visits).
  *
  * Bound: classes so far plus the number of pairwise clashing requirements that fit no existing
- * class; and globally, a set of pairwise incompatible states (each needs its own class).
- * Families already explored are remembered. The effort is capped by a work budget (counted in
- * elementary set operations, so the result does not depend on the computer's speed); when the
- * budget runs out the best cover found so far is returned and marked inexact, unless it
- * already meets the lower bound. The first descent, merges before new classes, is the greedy
- * closed cover that large machines get.
+ * class (classes only grow, so such a requirement needs a new class); and globally, a set of
+ * pairwise incompatible states (each needs its own class). Families already explored are
+ * remembered. Before the search, one greedy descent (merge into the class with the largest
+ * overlap, open a class only when none fits, never backtrack) gives a first cover. The search
+ * is capped by a work budget, counted in elementary set operations so that the result does not
+ * depend on the computer's speed; when it runs out, the best cover found so far — for large
+ * machines the greedy one — is returned and marked inexact, unless it meets the lower bound.
  *
  * Preconditions: every state of `f` is reachable. Postconditions: the classes are
  * compatibles, the family is closed and holds the start state; never more classes than states.
  */
 import type { FlatMachine } from '../../model/flat.js';
 import {
-  compareSets, has, isEmptySet, isSubset, key, members, overlapSize, setOf, size, union, type StateSet,
+  compareSets, difference, has, intersection, isEmptySet, isSubset, key, members, overlapSize, setOf, size, union,
+  type StateSet,
 } from './bitset.js';
 import { classRegions, type Compatibility } from './compatible.js';
 
@@ -161,11 +163,16 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
     return next;
   };
 
-  /** The greedy closed cover: one descent, never backtracking (polynomial; no budget). */
+  /**
+   * The greedy closed cover: one descent, never backtracking. Every step puts a requirement
+   * into the family that no class held, and nothing it held is lost, so the descent ends; the
+   * step cap only bounds pathological cases (then no greedy cover is offered).
+   */
   const greedy = (): StateSet[] | null => {
     let classes: StateSet[] = [];
     let open = [setOf(words, [f.start])];
-    while (open.length > 0) {
+    for (let step = 0; open.length > 0; step++) {
+      if (step > 4 * n * n) return null;
       const { need, options } = choose(classes, open, scanFor(classes));
       classes = options.length > 0 ? grow(classes, options[0], need) : open1(classes, need);
       if (classes.length >= n) return null;
@@ -191,7 +198,7 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
       explored.add(family);
     }
     const { need, options, forced } = choose(classes, open, scanFor(classes));
-    const bound = Math.max(lowerBound, classes.length + clashing(forced, fits), classes.length + (options.length === 0 ? 1 : 0));
+    const bound = Math.max(lowerBound, classes.length + clashing(forced, fits));
     if (bound >= best.length) return;
     for (const j of options) {
       const next = grow(classes, j, need);
@@ -208,7 +215,7 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
     const first = greedy();
     if (first !== null && first.length < best.length) best = first;
     work = 0;
-    if (!process.env.NOBB) search([], [setOf(words, [f.start])]);
+    search([], [setOf(words, [f.start])]);
   }
   const classes = [...best].sort(compareSets);
   return { classes, exact: !aborted || classes.length <= lowerBound, lowerBound };
@@ -237,7 +244,7 @@ function clashing(sets: StateSet[], fits: (a: StateSet, b: StateSet) => boolean)
  * Size of a set of pairwise incompatible states (a clique of the incompatibility graph): a
  * lower bound on the states of any reduced machine. Branch and bound over bit sets; exact
  * when it finishes within `budget` word operations, else the largest clique found (its first
- * descent is the greedy clique), which is still a valid bound.
+ * descent is a greedy clique), which is still a valid bound.
  */
 export function incompatibleClique(compat: Compatibility, budget: number): number {
   const n = compat.n;
@@ -260,16 +267,4 @@ export function incompatibleClique(compat: Compatibility, budget: number): numbe
   };
   grow(0, all);
   return best;
-}
-
-function intersection(a: StateSet, b: StateSet): StateSet {
-  const out = new Uint32Array(a.length);
-  for (let i = 0; i < a.length; i++) out[i] = a[i] & b[i];
-  return out;
-}
-
-function difference(a: StateSet, b: StateSet): StateSet {
-  const out = new Uint32Array(a.length);
-  for (let i = 0; i < a.length; i++) out[i] = a[i] & ~b[i];
-  return out;
 }

@@ -17,7 +17,7 @@
 import { intersect } from '../../model/cube.js';
 import { DONT_CARE, type FlatMachine } from '../../model/flat.js';
 import type { OutBit } from '../../model/machine.js';
-import { add, emptySet, isSubset, setOf, union, wordsFor, type StateSet } from './bitset.js';
+import { add, emptySet, setOf, union, wordsFor, type StateSet } from './bitset.js';
 
 /** Pairwise compatibility of the states of a machine. */
 export interface Compatibility {
@@ -169,12 +169,6 @@ export function compatibility(f: FlatMachine): Compatibility {
     return set;
   });
   return { n, words, compatibleWith };
-}
-
-/** True when the states of `set` (given as members) are pairwise compatible. */
-export function isCompatibleSet(c: Compatibility, set: StateSet, memberList: readonly number[]): boolean {
-  for (const m of memberList) if (!isSubset(set, c.compatibleWith[m])) return false;
-  return true;
 }
 
 /** One input region of a class: the members' combined outputs and their specified next states. */

@@ -7,8 +7,8 @@
  *    the unique minimal machine, so `exact` is true.
  * 3. An incompletely specified machine is reduced through compatibles (M. C. Paull and
  *    S. H. Unger 1959 — compatible.ts) and a closed cover of them (A. Grasselli and F. Luccio
- *    1965 — closed-cover.ts): exact branch and bound within a work budget, the greedy first
- *    descent beyond it. A reduced state stands for a class; its rows combine the members'
+ *    1965 — closed-cover.ts): a greedy closed cover first, then an exact branch and bound
+ *    within a work budget (`exact` says whether it finished or met its lower bound). A reduced state stands for a class; its rows combine the members'
  *    specified values ('-' only where every member leaves a value free) and go, per input
  *    region, to the class itself when it holds the implied set, else to the first chosen
  *    class (in order) that does; a region where no member names a next state keeps it free.
@@ -70,7 +70,8 @@ export function minimiseStates(f: FlatMachine, options: MinimiseStatesOptions = 
   let exact = true;
   let lowerBound = 0;
   for (let round = 0; ; round++) {
-    const attempt = incomplete ? reduceByCompatibles(machine, budget) : reduceByPartition(machine);
+    // Dispatch afresh each round, exactly as a new call would, so the result is a fixed point.
+    const attempt = isIncomplete(machine) ? reduceByCompatibles(machine, budget) : reduceByPartition(machine);
     if (round === 0) {
       exact = attempt.exact;
       lowerBound = attempt.lowerBound;

@@ -1,14 +1,14 @@
 /**
- * Building the reduced machine from chosen classes of states, and naming its states.
+ * Names for the states of the reduced machine.
  *
- * Naming rule (deterministic, and always a name the user already wrote, so it stays a valid
+ * Naming rule (deterministic, and built from names the user wrote, so it stays a valid
  * identifier for every export): a reduced state takes the name of its first member (in the
  * original state order) that no earlier reduced state has taken. Classes of the partition
  * method are disjoint, so each simply keeps its first member's name. Only overlapping
  * compatibility classes can run out of untaken member names; such a class gets its first
  * member's name with the first suffix `_2`, `_3`, … that names no original state.
  */
-import type { FlatMachine, FlatRow } from '../../model/flat.js';
+import type { FlatMachine } from '../../model/flat.js';
 
 /** Names for the classes (each a list of original state indices, ascending), in class order. */
 export function nameClasses(f: FlatMachine, classes: readonly (readonly number[])[]): string[] {
@@ -25,22 +25,4 @@ export function nameClasses(f: FlatMachine, classes: readonly (readonly number[]
     taken.add(name);
     return name;
   });
-}
-
-/** The reduced FlatMachine: one state per class, rows already pointing at class indices. */
-export function reducedMachine(
-  f: FlatMachine,
-  classes: readonly (readonly number[])[],
-  rows: readonly (readonly FlatRow[])[],
-  start: number,
-): FlatMachine {
-  return {
-    name: f.name,
-    inputs: f.inputs,
-    outputs: f.outputs,
-    states: nameClasses(f, classes),
-    start,
-    rows,
-    never: f.never,
-  };
 }

@@ -1,0 +1,85 @@
+import { describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import type { ReactiveController, ReactiveControllerHost } from 'lit';
+import { analyse, buildMachine } from '../../../src/core/pipeline.js';
+import { runAbstract } from '../../../src/core/sim/abstract.js';
+import { StepperController } from '../../../src/web/controllers/stepper.js';
+import { tracesOf } from '../../../src/web/controllers/traces.js';
+
+const BELL = readFileSync(fileURLToPath(new URL('../../../examples/marble-bell.lw', import.meta.url)), 'utf8');
+
+function host(): ReactiveControllerHost & { updates: number } {
+  return {
+    updates: 0,
+    addController(_c: ReactiveController) {},
+    removeController(_c: ReactiveController) {},
+    requestUpdate() {
+      this.updates++;
+    },
+    updateComplete: Promise.resolve(true),
+  };
+}
+
+const key = (k: string, code = '', shiftKey = false, ctrlKey = false): KeyboardEvent => ({ key: k, code, shiftKey, ctrlKey, altKey: false, metaKey: false }) as KeyboardEvent;
+
+function bell() {
+  const a = analyse(BELL, 'b.lw');
+  if (!a.ok) throw new Error('must read');
+  const b = buildMachine(a, { encoding: 'gray', checks: false });
+  if (!b.ok) throw new Error('must build');
+  return { a, b };
+}
+
+describe('src/web/controllers/stepper', () => {
+  it('starts each build reset, steps like the abstract machine, and undoes a clock as one step', () => {
+    const { a, b } = bell();
+    const s = new StepperController(host());
+    s.follow(b.build, b.profile);
+    expect(s.reading?.state).toBe('none');
+    s.setInput('marble', 1);
+    const run = runAbstract(a.minimised.machine, ['1', '1', '1', '1']);
+    for (let i = 0; i < 4; i++) {
+      s.clock();
+      expect(s.reading?.state).toBe(run[i].nextName);
+    }
+    expect(s.clocks).toBe(4);
+    const before = s.samples.length;
+    expect(s.undo()).toBe(true);
+    expect(s.clocks).toBe(3);
+    expect(s.samples.length).toBe(before - 4);
+    expect(s.reading?.state).toBe(run[2].nextName);
+  });
+
+  it('answers its keys: φ levers, a whole clock, reset, undo and the input levers', () => {
+    const { b } = bell();
+    const s = new StepperController(host());
+    s.follow(b.build, b.profile);
+    expect(s.key(key('!', 'Digit1', true))).toBe(true);
+    expect(s.reading?.inputs.marble).toBe(1);
+    expect(s.key(key('1', 'Digit1'))).toBe(true);
+    expect(s.reading?.phi1).toBe(true);
+    expect(s.key(key('2', 'Digit2'))).toBe(true);
+    expect(s.alarms.map((x) => x.kind)).toContain('clocks-together');
+    expect(s.alarms.some((x) => x.kind === 'forbidden-input' && x.latch !== undefined)).toBe(true);
+    expect(s.key(key('z', 'KeyZ', false, true))).toBe(true);
+    expect(s.alarms).toHaveLength(0);
+    expect(s.key(key('r', 'KeyR'))).toBe(true);
+    expect(s.key(key('x', 'KeyX'))).toBe(false);
+    expect(s.key(key('@', 'Digit2', true))).toBe(false);
+  });
+
+  it('records a trace per lever, bit and output for every hand action', () => {
+    const { b } = bell();
+    const s = new StepperController(host());
+    s.follow(b.build, b.profile);
+    s.setInput('marble', 1);
+    s.clock();
+    const traces = tracesOf(s.samples);
+    expect(traces.map((t) => t.name)).toEqual(['marble', 'φ1', 'φ2', 'reset', 'Q0', 'Q1', 'M0', 'M1', 'bell']);
+    for (const t of traces) expect(t.values).toHaveLength(s.samples.length);
+    // Power-up leaves the latches undetermined until reset.
+    expect(traces[4].values[0]).toBe('X');
+    expect(traces[1].values.join('')).toBe('0000' + '1000');
+  });
+});

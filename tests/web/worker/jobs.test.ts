@@ -1,0 +1,70 @@
+import { describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { analyse, buildMachine } from '../../../src/core/pipeline.js';
+import { drumLoad } from '../../../src/core/physics/drum.js';
+import { driveSnapshots } from '../../../src/core/sim/snapshots.js';
+import { buildJob, checkJob, compareJob, readJob, torqueByState } from '../../../src/web/worker/jobs.js';
+import type { BuildSettings } from '../../../src/web/worker/protocol.js';
+
+const BELL = readFileSync(fileURLToPath(new URL('../../../examples/marble-bell.lw', import.meta.url)), 'utf8');
+const binary: BuildSettings = { encoding: { strategy: 'binary' }, seed: 1, unusedCodes: 'dont-care' };
+
+describe('src/web/worker/jobs', () => {
+  it('reads a machine with the pipeline: the same diagnostics, plus the sketch', () => {
+    const bad = BELL.replace('go two', 'go tow');
+    const r = readJob(bad, 'b.lw');
+    expect(r.reading.ok).toBe(false);
+    expect(r.reading.diagnostics).toEqual(analyse(bad, 'b.lw').diagnostics);
+    expect(r.analysed).toBeUndefined();
+    const good = readJob(BELL, 'b.lw');
+    expect(good.reading.ok).toBe(true);
+    expect(good.reading.layout?.nodes).toHaveLength(4);
+    expect(good.reading.reduced).toEqual(['none', 'one', 'two', 'rung']);
+  });
+
+  it('builds as the pipeline does and checks as runChecks does', () => {
+    const a = readJob(BELL, 'b.lw').analysed;
+    if (!a) throw new Error('must read');
+    const b = buildJob(a, binary);
+    if (!b.built || !b.view) throw new Error('must build');
+    const ref = buildMachine(a, { encoding: 'binary', seed: 1, checks: false });
+    if (!ref.ok) throw new Error('reference must build');
+    expect(b.view.build.parts).toEqual(ref.build.parts);
+    expect(b.view.equations.map((e) => e.name)).toEqual(['S0', 'R0', 'S1', 'R1', 'bell']);
+    const c = checkJob(b.built, 1);
+    expect(c.view.checks.map((x) => x.name)).toEqual(['forbidden-input', 'next-state-equivalence', 'equivalence', 'recovery', 'timing', 'drive']);
+    const margins = c.view.margins.map((m) => m.margin);
+    expect(margins).toEqual([...margins].sort((x, y) => x - y));
+    expect(c.view.torque.map((t) => t.state)).toEqual(['none', 'one', 'two', 'rung']);
+    const drum = drumLoad(b.built.build.netlist, b.built.profile, driveSnapshots(b.built.build, b.built.profile, 1));
+    expect(Math.max(...c.view.torque.map((t) => t.torqueNm))).toBeCloseTo(drum.worst.torqueNm, 12);
+    expect(c.view.rules.map((r) => r.rule)).toEqual(['clocks-apart', 'inputs-steady', 'reset-alone']);
+  });
+
+  it('keeps codes chosen from a comparison exactly', () => {
+    const a = readJob(BELL, 'b.lw').analysed;
+    if (!a) throw new Error('must read');
+    const rows = compareJob(a, binary);
+    expect(rows.some((r) => r.cheapest)).toBe(true);
+    const best = Math.min(...rows.flatMap((r) => (r.cost === undefined ? [] : [r.cost])));
+    for (const r of rows) expect(r.cheapest).toBe(r.cost === best);
+    const gray = rows.find((r) => r.strategy === 'gray');
+    if (!gray?.encoding) throw new Error('gray must fit');
+    const kept = buildJob(a, { ...binary, encoding: { kept: gray.encoding } });
+    expect(kept.view?.build.encoding.codes).toEqual(gray.encoding.codes);
+    expect(kept.view?.build.parts).toEqual(gray.parts);
+  });
+
+  it('takes the worst snapshot of each state by its label', () => {
+    const bars = torqueByState(['a', 'b'], [
+      { label: 'a, inputs 0, φ1 pulled', torqueNm: 1 },
+      { label: 'a, inputs 1, φ2 pulled', torqueNm: 3 },
+      { label: 'b, inputs 0, inputs held', torqueNm: 2 },
+    ]);
+    expect(bars).toEqual([
+      { state: 'a', torqueNm: 3, at: 'inputs 1, φ2 pulled' },
+      { state: 'b', torqueNm: 2, at: 'inputs 0, inputs held' },
+    ]);
+  });
+});
