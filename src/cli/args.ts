@@ -1,10 +1,17 @@
 /** A small, strict command-line parser: `command FILE --flag value --switch`. */
 
+/** A word of the command line that could not be used, and why. */
+export interface ArgError {
+  /** The option as written, e.g. `--encodng`. */
+  readonly option: string;
+  readonly message: string;
+}
+
 export interface ParsedArgs {
   readonly command?: string;
   readonly positional: readonly string[];
   readonly flags: Readonly<Record<string, string | true>>;
-  readonly errors: readonly string[];
+  readonly errors: readonly ArgError[];
 }
 
 export interface FlagSpec {
@@ -17,7 +24,7 @@ export interface FlagSpec {
 export function parseArgs(argv: readonly string[], spec: FlagSpec): ParsedArgs {
   const positional: string[] = [];
   const flags: Record<string, string | true> = {};
-  const errors: string[] = [];
+  const errors: ArgError[] = [];
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === '--') {
@@ -29,9 +36,9 @@ export function parseArgs(argv: readonly string[], spec: FlagSpec): ParsedArgs {
       if (spec.switches.includes(name)) flags[name] = true;
       else if (spec.values.includes(name)) {
         const v = inline ?? argv[++i];
-        if (v === undefined) errors.push(`--${name} needs a value`);
+        if (v === undefined) errors.push({ option: `--${name}`, message: `--${name} needs a value` });
         else flags[name] = v;
-      } else errors.push(`unknown option --${name}`);
+      } else errors.push({ option: `--${name}`, message: `unknown option --${name}` });
     } else if (a === '-h') flags.help = true;
     else positional.push(a);
   }

@@ -8,6 +8,8 @@ import { runBuild } from './commands/build.js';
 import { runCompare } from './commands/compare.js';
 import { runStepCommand } from './commands/step.js';
 import { runDemo } from './commands/demo.js';
+import { reportFailure } from './commands/common.js';
+import { diag, didYouMean } from '../core/model/diagnostics.js';
 import { nodeIo, type CliIo } from './io.js';
 
 export const EXIT = { ok: 0, checkFailed: 1, badInput: 2 } as const;
@@ -48,9 +50,17 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promi
     io.out(USAGE + '\n');
     return args.command === undefined && !args.flags.help ? EXIT.badInput : EXIT.ok;
   }
+  const json = args.flags.json === true;
   if (args.errors.length > 0) {
-    for (const e of args.errors) io.err(`latchwright: ${e}\n`);
-    io.err('Run `latchwright --help` for usage.\n');
+    const known = [...SPEC.values, ...SPEC.switches].map((o) => `--${o}`);
+    reportFailure(
+      args.errors.map((e) => {
+        const guess = didYouMean(e.option, known);
+        return diag('LW700', e.message, { path: e.option }, guess && guess !== e.option ? `did you mean ${guess}? Run \`latchwright --help\` for usage` : 'run `latchwright --help` for usage');
+      }),
+      io,
+      json,
+    );
     return EXIT.badInput;
   }
   try {
@@ -66,7 +76,7 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promi
       case 'demo':
         return await runDemo(args, io);
       default:
-        io.err(`latchwright: unknown command '${args.command}'. Commands: check, build, compare, step, demo.\n`);
+        reportFailure([diag('LW700', `unknown command '${args.command}'`, { path: args.command }, 'commands: check, build, compare, step, demo')], io, json);
         return EXIT.badInput;
     }
   } catch (e) {

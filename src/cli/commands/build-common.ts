@@ -1,12 +1,12 @@
 /** Loading a machine and a profile, and building it, for the commands that build. */
 import { analyse, buildMachine, type Built, type BuildOptions } from '../../core/pipeline.js';
-import { formatDiagnostic, hasErrors, type Diagnostic } from '../../core/model/diagnostics.js';
+import { diag, didYouMean, formatDiagnostic, hasErrors, type Diagnostic } from '../../core/model/diagnostics.js';
 import { loadProfile } from '../../core/physics/profile-load.js';
 import { DEFAULT_PROFILE, type Profile } from '../../core/physics/profile.js';
-import type { EncodeStrategy } from '../../core/phases/encode/index.js';
+import { ENCODINGS, type EncodeStrategy } from '../../core/phases/encode/index.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
-import { loadSource } from './common.js';
+import { loadSource, readFileArg } from './common.js';
 
 /** Print diagnostics (as text, or nothing when the caller prints JSON). */
 export function printDiagnostics(ds: readonly Diagnostic[], io: CliIo, json: boolean): void {
@@ -18,8 +18,8 @@ export function printDiagnostics(ds: readonly Diagnostic[], io: CliIo, json: boo
 export function profileFrom(args: ParsedArgs, io: CliIo): { profile: Profile; diagnostics: Diagnostic[] } | { error: Diagnostic[] } {
   const file = args.flags.profile;
   if (typeof file !== 'string') return { profile: DEFAULT_PROFILE, diagnostics: [] };
-  const r = io.readText(file);
-  if ('error' in r) return { error: [{ code: 'LW600', severity: 'error', message: r.error, location: { file } }] };
+  const r = readFileArg(file, io);
+  if (!r.ok) return { error: [...r.diagnostics] };
   let value: unknown;
   try {
     value = JSON.parse(r.text);
@@ -38,17 +38,17 @@ export type BuildAttempt =
 /** Read, analyse and build the machine the command line names. */
 export function buildFromArgs(args: ParsedArgs, io: CliIo, extra: Partial<BuildOptions> = {}): BuildAttempt {
   const src = loadSource(args, io);
-  if (!src) return { ok: false, diagnostics: [] };
+  if (!src.ok) return { ok: false, diagnostics: src.diagnostics };
   const prof = profileFrom(args, io);
   if ('error' in prof) return { ok: false, diagnostics: prof.error, file: src.file };
+  const seed = seedFrom(args);
+  if (typeof seed === 'object') return { ok: false, file: src.file, diagnostics: [seed] };
+  const encoding = encodingFrom(args);
+  if (typeof encoding === 'object') return { ok: false, file: src.file, diagnostics: [encoding] };
   const a = analyse(src.text, src.file);
   if (!a.ok) return { ok: false, diagnostics: a.diagnostics, file: src.file };
-  const seed = args.flags.seed === undefined ? undefined : Number(args.flags.seed);
-  if (seed !== undefined && !(Number.isSafeInteger(seed) && seed >= 0)) {
-    return { ok: false, file: src.file, diagnostics: [{ code: 'LW700', severity: 'error', message: `--seed ${String(args.flags.seed)} is not a whole number ≥ 0`, location: { path: '--seed' }, hint: 'give a seed such as 1 or 42' }] };
-  }
   const b = buildMachine(a, {
-    encoding: (typeof args.flags.encoding === 'string' ? args.flags.encoding : 'auto') as EncodeStrategy,
+    encoding,
     profile: prof.profile,
     seed,
     unusedCodes: typeof args.flags.unused === 'string' ? args.flags.unused : undefined,
@@ -56,4 +56,23 @@ export function buildFromArgs(args: ParsedArgs, io: CliIo, extra: Partial<BuildO
   });
   if (!b.ok) return { ok: false, diagnostics: [...prof.diagnostics, ...b.diagnostics], file: src.file };
   return { ok: true, built: b, file: src.file, diagnostics: [...prof.diagnostics, ...b.diagnostics] };
+}
+
+/** The --seed option: undefined when absent, else a whole number ≥ 0, or LW700. */
+export function seedFrom(args: ParsedArgs): number | undefined | Diagnostic {
+  const raw = args.flags.seed;
+  if (raw === undefined) return undefined;
+  const seed = typeof raw === 'string' && /^\s*\d+\s*$/.test(raw) ? Number(raw) : NaN;
+  if (Number.isSafeInteger(seed)) return seed;
+  return diag('LW700', `--seed ${String(raw)} is not a whole number ≥ 0`, { path: '--seed' }, 'give a seed such as 1 or 42');
+}
+
+/** The --encoding option (default auto), or LW700 naming the encodings there are. */
+export function encodingFrom(args: ParsedArgs): EncodeStrategy | Diagnostic {
+  const raw = args.flags.encoding;
+  if (raw === undefined) return 'auto';
+  const name = String(raw);
+  if ((ENCODINGS as readonly string[]).includes(name)) return name as EncodeStrategy;
+  const guess = didYouMean(name, ENCODINGS);
+  return diag('LW700', `unknown encoding '${name}'${guess ? ` — did you mean '${guess}'?` : ''}`, { path: '--encoding' }, `choose one of ${ENCODINGS.join(', ')}`);
 }

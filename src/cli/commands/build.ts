@@ -4,15 +4,14 @@ import type { Built } from '../../core/pipeline.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
 import { buildFromArgs, printDiagnostics } from './build-common.js';
-import { EXIT_BAD_INPUT, EXIT_CHECK_FAILED, EXIT_OK } from './common.js';
+import { EXIT_BAD_INPUT, EXIT_CHECK_FAILED, EXIT_OK, reportFailure } from './common.js';
 import { writeDocuments } from './out.js';
 
 export async function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
   const json = args.flags.json === true;
   const r = buildFromArgs(args, io);
   if (!r.ok) {
-    if (json) io.out(JSON.stringify({ ok: false, diagnostics: r.diagnostics }, null, 2) + '\n');
-    else printDiagnostics(r.diagnostics, io, false);
+    reportFailure(r.diagnostics, io, json);
     return EXIT_BAD_INPUT;
   }
   const b = r.built;
@@ -21,7 +20,7 @@ export async function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
   if (typeof args.flags.out === 'string') {
     const w = writeDocuments(b, args.flags.out, args.flags.force === true);
     if (!w.ok) {
-      io.err(w.message + '\n');
+      reportFailure([w.diagnostic], io, json);
       return EXIT_BAD_INPUT;
     }
     if (!json) io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);

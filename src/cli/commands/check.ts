@@ -3,11 +3,14 @@ import { analyse } from '../../core/pipeline.js';
 import { formatDiagnostic } from '../../core/model/diagnostics.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
-import { EXIT_BAD_INPUT, EXIT_OK, loadSource, machineSummary } from './common.js';
+import { EXIT_BAD_INPUT, EXIT_OK, loadSource, machineSummary, reportFailure } from './common.js';
 
 export async function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
   const src = loadSource(args, io);
-  if (!src) return EXIT_BAD_INPUT;
+  if (!src.ok) {
+    reportFailure(src.diagnostics, io, args.flags.json === true);
+    return EXIT_BAD_INPUT;
+  }
   const a = analyse(src.text, src.file);
   const summary = a.ok ? machineSummary(a) : undefined;
   if (args.flags.json) {

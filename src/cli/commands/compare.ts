@@ -1,28 +1,33 @@
 /** `latchwright compare FILE`: every encoding side by side, the cheapest marked. */
-import { compareEncodings } from '../../core/pipeline.js';
-import { analyse } from '../../core/pipeline.js';
+import { analyse, compareEncodings } from '../../core/pipeline.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
-import { printDiagnostics, profileFrom } from './build-common.js';
-import { EXIT_BAD_INPUT, EXIT_OK, loadSource } from './common.js';
+import { profileFrom, seedFrom } from './build-common.js';
+import { EXIT_BAD_INPUT, EXIT_OK, loadSource, reportFailure } from './common.js';
 
 export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
   const json = args.flags.json === true;
   const src = loadSource(args, io);
-  if (!src) return EXIT_BAD_INPUT;
+  if (!src.ok) {
+    reportFailure(src.diagnostics, io, json);
+    return EXIT_BAD_INPUT;
+  }
   const prof = profileFrom(args, io);
   if ('error' in prof) {
-    printDiagnostics(prof.error, io, false);
+    reportFailure(prof.error, io, json);
+    return EXIT_BAD_INPUT;
+  }
+  const seed = seedFrom(args);
+  if (typeof seed === 'object') {
+    reportFailure([seed], io, json);
     return EXIT_BAD_INPUT;
   }
   const a = analyse(src.text, src.file);
   if (!a.ok) {
-    if (json) io.out(JSON.stringify({ ok: false, diagnostics: a.diagnostics }, null, 2) + '\n');
-    else printDiagnostics(a.diagnostics, io, false);
+    reportFailure(a.diagnostics, io, json);
     return EXIT_BAD_INPUT;
   }
-  const seed = args.flags.seed === undefined ? undefined : Number(args.flags.seed);
-  const rows = compareEncodings(a, { profile: prof.profile, seed: Number.isSafeInteger(seed) ? seed : undefined });
+  const rows = compareEncodings(a, { profile: prof.profile, seed });
   if (json) {
     io.out(JSON.stringify({ machine: a.machine.name, encodings: rows }, null, 2) + '\n');
     return EXIT_OK;

@@ -2,28 +2,31 @@
 import { runStep, terminalKeys, type SeqArray } from '../step.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
-import { buildFromArgs, printDiagnostics } from './build-common.js';
-import { EXIT_BAD_INPUT } from './common.js';
+import { buildFromArgs } from './build-common.js';
+import { EXIT_BAD_INPUT, readFileArg, reportFailure } from './common.js';
+import { diag } from '../../core/model/diagnostics.js';
 
 export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<number> {
   const json = args.flags.json === true;
   let sequence: SeqArray | undefined;
   if (typeof args.flags.inputs === 'string') {
-    const r = io.readText(args.flags.inputs);
-    if ('error' in r) {
-      io.err(`latchwright: ${r.error}\n`);
+    const file = args.flags.inputs;
+    const r = readFileArg(file, io);
+    if (!r.ok) {
+      reportFailure(r.diagnostics, io, false);
       return EXIT_BAD_INPUT;
     }
     try {
       sequence = JSON.parse(r.text) as SeqArray;
     } catch (e) {
-      io.err(`${args.flags.inputs}: error LW100: the input sequence is not valid JSON (${e instanceof Error ? e.message : String(e)}) — give an array with one object per clock, e.g. [{"marble": 1}, {}]\n`);
+      const why = e instanceof Error ? e.message : String(e);
+      reportFailure([diag('LW100', `the input sequence is not valid JSON (${why})`, { file, path: '$' }, 'give an array with one object per clock, e.g. [{"marble": 1}, {}]')], io, false);
       return EXIT_BAD_INPUT;
     }
   }
   const b = buildFromArgs(args, io, { checks: false });
   if (!b.ok) {
-    printDiagnostics(b.diagnostics, io, false);
+    reportFailure(b.diagnostics, io, false);
     return EXIT_BAD_INPUT;
   }
   const built = b.built;
@@ -31,7 +34,7 @@ export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<numbe
   return runStep(
     built.build,
     spec,
-    { inputsFile: sequence, json, abstract: args.flags.abstract === true, profile: built.profile },
+    { inputsFile: sequence, ...(typeof args.flags.inputs === 'string' ? { inputsPath: args.flags.inputs } : {}), json, abstract: args.flags.abstract === true, profile: built.profile },
     { write: io.out, error: io.err, ...(sequence === undefined && io.interactive ? { readKeys: terminalKeys } : {}) },
   );
 }

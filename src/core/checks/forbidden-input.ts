@@ -94,7 +94,7 @@ export function checkForbiddenInput(build: Build, profile: Pick<Profile, 'stageD
   const tries = exhaustive ? grayAssignments(n) : sampledAssignments([...f.rows.flat().map((r) => r.cube), ...f.never], n, opts.samples ?? 256, rnd);
   const allFit = 2 ** bits * tries.length <= maxClocks;
   const codes = allFit ? allCodes(bits) : [...build.encoding.codes, ...randomCodes(bits, Math.floor(maxClocks / tries.length) - build.encoding.codes.length, rnd, new Set(build.encoding.codes))];
-  const freeMasters = 4 ** bits * tries.length <= (opts.maxFreeMasterClocks ?? 1 << 15);
+  const freeMasters = 4 ** bits * tries.length <= Math.min(maxClocks, opts.maxFreeMasterClocks ?? 1 << 15);
 
   let states = 0;
   let failure: ForbiddenCounterexample | undefined;

@@ -11,6 +11,13 @@ import { showsWords, type CommissioningRow } from './commissioning.js';
 import { p, table, type Doc } from './doc.js';
 import { reachableTransitions, type TourClock } from './tour.js';
 
+/** What the sequence covers, in words. */
+function coverage(taken: number, reachable: number): string {
+  return taken >= reachable
+    ? `The sequence takes every one of the ${reachable} reachable transitions of the state table at least once, so it visits every reachable state.`
+    : `The sequence takes ${taken} of the ${reachable} reachable transitions of the state table (it was cut short).`;
+}
+
 /** The commissioning sheet as a Doc. */
 export function commissioningDoc(build: Build, rows: readonly CommissioningRow[], tour: readonly TourClock[]): Doc {
   const f = build.machine;
@@ -52,7 +59,7 @@ export function commissioningDoc(build: Build, rows: readonly CommissioningRow[]
             : 'Set the input levers as each row says, wait for the levers to come to rest, and compare the flags with the row.'),
           ...(seq ? [p('A latch has two gates, each with a summing lever Z. A gate whose output is 1 has its Z lever down, so a latch holding 1 has its set-side Z down and its reset-side Z up (written "down · up"); holding 0, "up · down". "?" means the latch is undetermined (before the first reset).')] : []),
           p('A flag "up (1)" shows 1. An actuator "lifted (1)" is pulling its load.'),
-          p(`The sequence takes ${taken} of the ${reachableTransitions(f).length} reachable transitions of the state table (every one, unless the note says otherwise) and visits every reachable state.`),
+          p(coverage(taken, reachableTransitions(f).length)),
         ],
       },
       { id: 'safety', title: 'Safety', blocks: [{ kind: 'note', tone: 'caution', title: 'Cautions', items: CAUTIONS }] },

@@ -33,6 +33,8 @@ export interface DiagramState {
   readonly height: number;
   readonly start: boolean;
   readonly loop: readonly string[];
+  /** The self-loop's guards, one per group of rows (unwrapped). */
+  readonly loopGuards: readonly string[];
   /** The whole space reserved for the state: box, self-loop and its label. */
   readonly outer: { readonly x: number; readonly y: number; readonly width: number; readonly height: number };
 }
@@ -41,7 +43,18 @@ export interface DiagramLayout {
   readonly width: number;
   readonly height: number;
   readonly states: readonly DiagramState[];
-  readonly arrows: readonly { readonly from: number; readonly to: number; readonly label: readonly string[]; readonly x: number; readonly y: number; readonly points: readonly Point[] }[];
+  readonly arrows: readonly DiagramArrow[];
+}
+
+/** An arrow between two states: its label lines, its guards (one per group of rows, unwrapped), label centre and path. */
+export interface DiagramArrow {
+  readonly from: number;
+  readonly to: number;
+  readonly label: readonly string[];
+  readonly guards: readonly string[];
+  readonly x: number;
+  readonly y: number;
+  readonly points: readonly Point[];
 }
 
 /** Height above a box taken by its self-loop: the arc plus its label. */
@@ -53,28 +66,34 @@ export function diagramLayout(build: Build): DiagramLayout {
   const g = new dagre.graphlib.Graph({ multigraph: true });
   g.setGraph({ rankdir: 'LR', nodesep: 30, ranksep: 60, edgesep: 14, marginx: 30, marginy: 24 });
   const groups = rowGroups(f);
-  const boxes: { lines: string[]; loop: string[]; width: number; height: number }[] = [];
+  const boxes: { lines: string[]; loop: string[]; loopGuards: string[]; width: number; height: number }[] = [];
   const labels = new Map<string, string[]>();
+  const guardsOf = new Map<string, string[]>();
   f.states.forEach((name, s) => {
     const moore = mooreOutputs(f, s);
     const lines = [name, build.encoding.bits > 0 ? `code ${build.encoding.codes[s]}` : 'one state'];
     if (moore.size > 0) lines.push(...wrapJoined([...moore].map(([k, v]) => `${f.outputs[k]}=${v}`), ', ', WRAP));
     const mealy = new Set(f.outputs.map((_, k) => k).filter((k) => !moore.has(k)));
     const loop: string[] = [];
+    const loopGuards: string[] = [];
     for (const gr of groups[s]) {
-      const guard = f.inputs.length === 0 ? 'always' : coverExpr(gr.cubes, f.inputs, { dc: f.never });
+      const raw = f.inputs.length === 0 ? '1' : coverExpr(gr.cubes, f.inputs, { dc: f.never });
+      const guard = raw === '1' ? 'always' : raw;
       const outs = mealy.size > 0 ? ` / ${outputsText(f.outputs, gr.out, mealy)}` : '';
-      const text = wrapExpr(`${guard === '1' ? 'always' : guard}${outs}`, WRAP);
+      const text = wrapExpr(`${guard}${outs}`, WRAP);
       if (gr.next === DONT_CARE) lines.push(...wrapExpr(`free: ${text.join(' ')}`, WRAP));
-      else if (gr.next === s) loop.push(...text);
-      else {
+      else if (gr.next === s) {
+        loop.push(...text);
+        loopGuards.push(guard);
+      } else {
         const key = `${s}>${gr.next}`;
         labels.set(key, [...(labels.get(key) ?? []), ...text]);
+        guardsOf.set(key, [...(guardsOf.get(key) ?? []), guard]);
       }
     }
     const width = Math.max(90, ...lines.map((l, i) => textWidth(l, i === 0 ? 12 : 10, i > 0))) + 22;
     const height = 14 + lines.length * LINE + (s === f.start ? 4 : 0);
-    boxes.push({ lines, loop, width, height });
+    boxes.push({ lines, loop, loopGuards, width, height });
     const loopW = loop.length > 0 ? Math.max(...loop.map((l) => textWidth(l, 10, true))) + 10 : 0;
     g.setNode(String(s), { width: Math.max(width, loopW), height: height + loopSpace(loop.length) });
   });
@@ -89,9 +108,9 @@ export function diagramLayout(build: Build): DiagramLayout {
     const b = boxes[s];
     const top = (n.y as number) - n.height / 2;
     const outer = { x: (n.x as number) - n.width / 2, y: top, width: n.width, height: n.height };
-    return { index: s, lines: b.lines, loop: b.loop, x: n.x as number, y: top + n.height - b.height / 2, width: b.width, height: b.height, start: s === f.start, outer };
+    return { index: s, lines: b.lines, loop: b.loop, loopGuards: b.loopGuards, x: n.x as number, y: top + n.height - b.height / 2, width: b.width, height: b.height, start: s === f.start, outer };
   });
-  const arrows = [...labels].map(([key, label]) => {
+  const arrows = [...labels].map(([key, label]): DiagramArrow => {
     const [a, b] = key.split('>');
     const e = g.edge(a, b, key);
     const points = (e.points ?? []).map((q: { x: number; y: number }) => ({ x: q.x, y: q.y }));
@@ -102,7 +121,7 @@ export function diagramLayout(build: Build): DiagramLayout {
       points[0] = clampTo(from, points[0]);
       points[points.length - 1] = clampTo(to, points[points.length - 1]);
     }
-    return { from: Number(a), to: Number(b), label, x: e.x as number, y: e.y as number, points };
+    return { from: Number(a), to: Number(b), label, guards: guardsOf.get(key) ?? [], x: e.x as number, y: e.y as number, points };
   });
   const gl = g.graph();
   return { width: Math.max(gl.width ?? 0, 240), height: gl.height ?? 0, states, arrows };

@@ -75,9 +75,12 @@ export class VerilogNames {
     return id;
   }
 
-  /** Every mapping made so far, in the order made: [prefix + name, identifier]. */
-  entries(): [string, string][] {
-    return [...this.byName].map(([k, v]) => [k.replace('\u0000', ''), v]);
+  /** Every mapping made so far, in the order made: [prefix, name, identifier]. */
+  entries(): [string, string, string][] {
+    return [...this.byName].map(([k, v]) => {
+      const [prefix, name] = k.split('\u0000');
+      return [prefix, name, v];
+    });
   }
 }
 

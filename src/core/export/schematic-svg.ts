@@ -269,9 +269,9 @@ function legendSvg(y: number): string {
   return out.join('');
 }
 
-/** The schematic of a build as a self-contained SVG. */
-export function schematicSvg(build: Build): string {
-  const l = schematicLayout(build);
+/** The schematic of a build as a self-contained SVG (from its layout, when already made). */
+export function schematicSvg(build: Build, layout?: SchematicLayout): string {
+  const l = layout ?? schematicLayout(build);
   const body: string[] = [];
   for (const c of l.clusters) body.push(`<rect x="${c.x.toFixed(1)}" y="${c.y.toFixed(1)}" width="${c.width.toFixed(1)}" height="${c.height.toFixed(1)}" rx="10" class="cluster" />`, svgText(c.x + 8, c.y + 12, c.label, 'cluster-label', 'start'));
   for (const e of l.edges) body.push(edgeSvg(e));

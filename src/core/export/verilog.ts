@@ -30,6 +30,17 @@ import type { Profile } from '../physics/profile.js';
 import { verilogComment as vc, VerilogNames, verilogString as vs } from './escape.js';
 import type { TourClock } from './tour.js';
 
+/** What each identifier prefix stands for, in the file header's name list. */
+const NAMESPACE_WORDS: Readonly<Record<string, string>> = {
+  '': 'lever',
+  'lw_': 'module of',
+  'in_': 'input lever',
+  'out_': 'output',
+  'g_': 'output of gate',
+  'u_': 'instance of gate',
+  'f_': 'indicator',
+};
+
 /** The module and testbench texts, and the names a caller needs to run them. */
 export interface VerilogFiles {
   /** The structural module. */
@@ -90,7 +101,7 @@ export function verilogFiles(build: Build, profile: Pick<Profile, 'stageDelayS'>
     '// Every gate is a NAND over every cord on every port; a latch is two cross-coupled gates.',
     "// A lever's signal is 1 exactly when it is pulled. Delays are gate stages of STAGE microseconds.",
     '// Identifiers were mangled from part ids and names (Latchwright docs/build-documents.md):',
-    ...names.entries().map(([from, to]) => `//   ${to} = ${vc(from)}`),
+    ...names.entries().map(([prefix, from, to]) => `//   ${to} = ${NAMESPACE_WORDS[prefix] ?? 'name'} ${vc(from)}`),
   ];
   const module = [
     ...header,

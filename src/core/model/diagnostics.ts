@@ -65,6 +65,7 @@ export const DIAGNOSTIC_CODES = {
   LW703: { severity: 'info', cause: 'With unused state codes left as don\'t-cares the build could lock up in them, so every unused code was sent to the start state.', fix: 'Nothing to do; pass --unused dont-care to keep them free, or --unused STATE to choose the state.' },
   LW702: { severity: 'error', cause: 'The output folder exists, is not empty, and was not made by the tool.', fix: 'Choose another folder or pass --force.' },
   LW704: { severity: 'error', cause: 'The output folder could not be written: no permission, no space, or a file where the folder should be.', fix: 'Check the path and its permissions, or choose another folder.' },
+  LW705: { severity: 'error', cause: 'A file named on the command line (the machine, the profile or the input sequence) could not be read: it does not exist, is a folder, or may not be read.', fix: 'Check the path; name a file, not a folder.' },
 } as const satisfies Record<string, CodeInfo>;
 
 export type DiagnosticCode = keyof typeof DIAGNOSTIC_CODES;

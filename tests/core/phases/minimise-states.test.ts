@@ -19,8 +19,9 @@ const MANO_5_7 = tableMachine({
   rows: { a: ['a/0', 'b/0'], b: ['c/0', 'd/0'], c: ['a/0', 'd/0'], d: ['e/0', 'f/1'], e: ['a/0', 'f/1'], f: ['g/0', 'f/1'], g: ['a/0', 'f/1'] },
 });
 
-// M. Morris Mano, Digital Design, 3rd ed. (2002), Problem 6-14: eight-state table a–h, as
-// printed in a public worked solution of the problem.
+// M. Morris Mano, Digital Design, 3rd ed. (2002): the state-reduction exercise that a public
+// worked solution labels "Exercise 6, Question 14" — eight states a–h, table as printed there;
+// the five-state answer below is our hand derivation with the book's method.
 const MANO_P6_14 = tableMachine({
   inputs: ['x'],
   outputs: ['z'],
@@ -30,7 +31,8 @@ const MANO_P6_14 = tableMachine({
 // Z. Kohavi & N. K. Jha, Switching and Finite Automata Theory, 3rd ed. (2010), ch. 10
 // "Capabilities, minimization, and transformation of sequential machines", section on
 // incompletely specified machines: six states A–F, four input symbols I1–I4 (coded here as
-// two inputs, I1 = 00 … I4 = 11), one output — the table is reproduced from memory.
+// two inputs, I1 = 00 … I4 = 11), one output. Chapter and table from memory; the compatible
+// pairs and the three-state minimum asserted below are worked by hand from this table.
 const KOHAVI = tableMachine({
   inputs: ['i1', 'i2'],
   outputs: ['z'],
@@ -135,7 +137,7 @@ describe('core/phases/minimise-states/partition', () => {
     expect(r.exact).toBe(true);
   });
 
-  it('reduces Mano 3rd ed. Problem 6-14 to five states (d≡h, b≡e, a≡c, worked by hand with the book\'s method)', () => {
+  it('reduces the Mano 3rd ed. eight-state exercise to five states (d≡h, b≡e, a≡c, worked by hand with the book\'s method)', () => {
     const r = minimiseStates(MANO_P6_14);
     expect(r.machine.states).toEqual(['a', 'b', 'd', 'f', 'g']);
     expect(r.merged).toMatchObject({ c: 'a', e: 'b', h: 'd' });
