@@ -35,7 +35,9 @@ export function parseArgs(argv: readonly string[], spec: FlagSpec): ParsedArgs {
       const [name, inline] = a.slice(2).split(/=(.*)/s, 2);
       if (spec.switches.includes(name)) flags[name] = true;
       else if (spec.values.includes(name)) {
-        const v = inline ?? argv[++i];
+        // `--encoding --json` is a forgotten value, not an encoding named '--json'.
+        const next = argv[i + 1];
+        const v = inline ?? (next === undefined || next.startsWith('--') ? undefined : argv[++i]);
         if (v === undefined) errors.push({ option: `--${name}`, message: `--${name} needs a value` });
         else flags[name] = v;
       } else errors.push({ option: `--${name}`, message: `unknown option --${name}` });

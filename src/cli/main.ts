@@ -27,6 +27,7 @@ Usage:
   latchwright compare FILE [--profile FILE] [--seed N] [--json]
       Every state encoding side by side, the cheapest marked.
   latchwright step FILE [--inputs SEQ.json] [--json] [--abstract] [--encoding NAME]
+                        [--profile FILE] [--seed N]
       Step the build clock by clock: interactive at a terminal, or scripted from a
       JSON array of input settings (one object per clock).
   latchwright demo

@@ -1,24 +1,29 @@
 /**
- * The synthesis worker. The page runs two of these: one for live work (read → build → check,
- * then exports of that build) and one for the encoding comparison, which may search for
- * seconds and is cancelled by terminating it. Jobs go stage by stage, yielding between stages
- * so a newer job can overtake; answers carry the page revision they belong to.
+ * The synthesis worker. The page runs several, each for one kind of job, so that slow work
+ * never stands in front of fast work: a reader (read + sketch layout, every keystroke), a
+ * builder (encode + synthesise), a checker (every check, the schematic, the build documents)
+ * and a searcher (every encoding priced). Jobs go stage by stage, yielding between stages so
+ * a newer job of the same kind can overtake; every answer carries the page revision it is for.
+ * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
  */
-import type { Analysed, Built } from '../core/pipeline.js';
+import type { Built } from '../core/pipeline.js';
 import type { Progress } from '../core/phases/encode/cost.js';
+import { analyse } from '../core/pipeline.js';
+import { schematicSvg } from '../core/export/schematic-svg.js';
 import { buildJob, checkJob, compareJob, readJob } from './worker/jobs.js';
 import { exportFile } from './worker/exports.js';
-import { schematicSvg } from '../core/export/schematic-svg.js';
-import type { BuildSettings, FromWorker, ToWorker } from './worker/protocol.js';
+import type { FromWorker, ToWorker } from './worker/protocol.js';
 
 const scope = self as unknown as { postMessage(m: FromWorker): void; onmessage: ((e: MessageEvent<ToWorker>) => void) | null };
 
-let latest = -1;
+/** The newest revision asked for, per kind of job. */
+const latest: Record<string, number> = {};
 let checked: { rev: number; built: Built } | undefined;
 
 const post = (m: FromWorker): void => scope.postMessage(m);
 const turn = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
-const stale = (rev: number): boolean => rev !== latest;
+const stale = (kind: string, rev: number): boolean => rev !== latest[kind];
+const message = (e: unknown): string => (e instanceof Error ? e.message : String(e));
 
 /** Progress reports, at most one per 80 ms. */
 function reporter(rev: number, stage: string): (p: Progress) => void {
@@ -31,69 +36,54 @@ function reporter(rev: number, stage: string): (p: Progress) => void {
   };
 }
 
-async function work(rev: number, text: string, file: string, settings: BuildSettings): Promise<void> {
-  await turn();
-  if (stale(rev)) return;
-  const r = readJob(text, file);
-  post({ kind: 'reading', rev, reading: r.reading });
-  if (!r.analysed) return;
-  await turn();
-  if (stale(rev)) return;
-  const b = buildJob(r.analysed, settings, reporter(rev, 'search'));
-  if (!b.view || !b.built) {
-    post({ kind: 'unbuilt', rev, diagnostics: b.diagnostics });
+async function run(m: ToWorker): Promise<void> {
+  if (m.kind === 'export') {
+    if (!checked || checked.rev !== m.rev) post({ kind: 'exported', rev: m.rev, doc: m.doc, problem: 'the build is not checked yet; try again when the checks are done' });
+    else post({ kind: 'exported', rev: m.rev, doc: m.doc, file: exportFile(checked.built, m.doc) });
     return;
   }
-  post({ kind: 'built', rev, view: b.view });
+  latest[m.kind] = m.rev;
   await turn();
-  if (stale(rev)) return;
-  const c = checkJob(b.built, settings.seed);
-  checked = { rev, built: c.built };
-  post({ kind: 'checked', rev, view: c.view });
-  await turn();
-  if (stale(rev)) return;
-  try {
-    post({ kind: 'schematic', rev, svg: schematicSvg(b.built.build) });
-  } catch (e) {
-    post({ kind: 'schematic', rev, problem: e instanceof Error ? e.message : String(e) });
+  if (stale(m.kind, m.rev)) return;
+  switch (m.kind) {
+    case 'read':
+      post({ kind: 'reading', rev: m.rev, reading: readJob(m.text, m.file).reading });
+      return;
+    case 'build': {
+      const a = analyse(m.text, m.file);
+      if (!a.ok) {
+        post({ kind: 'unbuilt', rev: m.rev, diagnostics: [] }); // the reader reports the problems
+        return;
+      }
+      const b = buildJob(a, m.settings, reporter(m.rev, 'search'));
+      if (b.view && b.built) post({ kind: 'built', rev: m.rev, view: b.view, built: b.built });
+      else post({ kind: 'unbuilt', rev: m.rev, diagnostics: b.diagnostics });
+      return;
+    }
+    case 'check': {
+      const c = checkJob(m.built, m.seed);
+      checked = { rev: m.rev, built: c.built };
+      post({ kind: 'checked', rev: m.rev, view: c.view });
+      await turn();
+      if (stale(m.kind, m.rev)) return;
+      try {
+        post({ kind: 'schematic', rev: m.rev, svg: schematicSvg(m.built.build) });
+      } catch (e) {
+        post({ kind: 'schematic', rev: m.rev, problem: message(e) });
+      }
+      return;
+    }
+    case 'compare': {
+      const r = readJob(m.text, m.file);
+      post({ kind: 'compared', rev: m.rev, rows: r.analysed ? compareJob(r.analysed, m.settings, reporter(m.rev, 'compare')) : [] });
+    }
   }
-}
-
-async function compare(rev: number, text: string, file: string, settings: BuildSettings): Promise<void> {
-  await turn();
-  if (stale(rev)) return;
-  const r = readJob(text, file);
-  const analysed: Analysed | undefined = r.analysed;
-  if (!analysed) {
-    post({ kind: 'compared', rev, rows: [] });
-    return;
-  }
-  post({ kind: 'compared', rev, rows: compareJob(analysed, settings, reporter(rev, 'compare')) });
-}
-
-function guarded(rev: number, run: () => Promise<void> | void): void {
-  Promise.resolve()
-    .then(run)
-    .catch((e: unknown) => post({ kind: 'fault', rev, message: e instanceof Error ? e.message : String(e) }));
 }
 
 scope.onmessage = (e) => {
   const m = e.data;
-  switch (m.kind) {
-    case 'work':
-      latest = m.rev;
-      guarded(m.rev, () => work(m.rev, m.text, m.file, m.settings));
-      return;
-    case 'compare':
-      latest = m.rev;
-      guarded(m.rev, () => compare(m.rev, m.text, m.file, m.settings));
-      return;
-    case 'export':
-      try {
-        if (!checked || checked.rev !== m.rev) post({ kind: 'exported', rev: m.rev, doc: m.doc, problem: 'the build is not finished yet; try again when the checks are done' });
-        else post({ kind: 'exported', rev: m.rev, doc: m.doc, file: exportFile(checked.built, m.doc) });
-      } catch (e) {
-        post({ kind: 'exported', rev: m.rev, doc: m.doc, problem: e instanceof Error ? e.message : String(e) });
-      }
-  }
+  run(m).catch((err: unknown) => {
+    if (m.kind === 'export') post({ kind: 'exported', rev: m.rev, doc: m.doc, problem: message(err) });
+    else post({ kind: 'fault', rev: m.rev, message: message(err) });
+  });
 };

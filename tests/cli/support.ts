@@ -3,7 +3,7 @@
  * that captures standard output and error, and that can serve files from memory (falling back
  * to the disk), so no build step and no child process is needed.
  */
-import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { expect } from 'vitest';
@@ -50,9 +50,18 @@ export function expectNoStack(r: Run): void {
   expect(r.out + r.err).not.toMatch(/internal error/);
 }
 
-/** A fresh temporary folder for one test. */
+const made: string[] = [];
+
+/** A fresh temporary folder for one test (removed by `removeTempDirs`). */
 export function tempDir(prefix = 'lw-cli-'): string {
-  return mkdtempSync(join(tmpdir(), prefix));
+  const dir = mkdtempSync(join(tmpdir(), prefix));
+  made.push(dir);
+  return dir;
+}
+
+/** Remove every folder `tempDir` made in this test file (call from afterAll). */
+export function removeTempDirs(): void {
+  for (const dir of made.splice(0)) rmSync(dir, { recursive: true, force: true });
 }
 
 /** Write a file into a folder and return its path. */

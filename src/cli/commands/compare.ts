@@ -29,7 +29,10 @@ export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
   }
   const rows = compareEncodings(a, { profile: prof.profile, seed });
   if (json) {
-    io.out(JSON.stringify({ machine: a.machine.name, encodings: rows }, null, 2) + '\n');
+    // Codes by state name, as `build --json` gives them.
+    const states = a.minimised.machine.states;
+    const named = rows.map((r) => (r.encoding ? { ...r, encoding: { ...r.encoding, codes: Object.fromEntries(states.map((s, i) => [s, r.encoding?.codes[i]])) } } : r));
+    io.out(JSON.stringify({ machine: a.machine.name, encodings: named }, null, 2) + '\n');
     return EXIT_OK;
   }
   const head = ['encoding', 'bits', 'latches', 'term gates', 'gates', 'levers', 'capstans', 'weights', 'cords', 'cost', ''];
@@ -40,7 +43,8 @@ export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
   );
   const widths = head.map((h, i) => Math.max(h.length, ...table.map((row) => row[i].length)));
   const line = (cells: string[]): string => cells.map((c, i) => (i === 0 || i === cells.length - 1 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join('  ').trimEnd();
-  io.out(`${a.machine.name}: ${a.minimised.machine.states.length} states after minimisation\n`);
+  const n = a.minimised.machine.states.length;
+  io.out(`${a.machine.name}: ${n} ${n === 1 ? 'state' : 'states'} after minimisation\n`);
   io.out(line(head) + '\n');
   for (const row of table) io.out(line(row) + '\n');
   return EXIT_OK;

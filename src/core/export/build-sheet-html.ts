@@ -49,7 +49,9 @@ function tableHtml(t: TableBlock): string {
   const mono = new Set(t.mono ?? []);
   const head = `${t.tick ? '<th>✓</th>' : ''}${t.headers.map((h) => `<th scope="col">${x(h)}</th>`).join('')}`;
   const rows = t.rows.map((r) => `<tr>${t.tick ? '<td class="tick">☐</td>' : ''}${r.map((c, i) => `<td${mono.has(i) ? ' class="mono"' : ''}>${x(c)}</td>`).join('')}</tr>`);
-  return `<table>${t.caption ? `<caption>${x(t.caption)}</caption>` : ''}<thead><tr>${head}</tr></thead><tbody>\n${rows.join('\n')}\n</tbody></table>`;
+  // A table of name/value pairs has no header words: leave the header row out.
+  const thead = t.headers.every((h) => h === '') ? '' : `<thead><tr>${head}</tr></thead>`;
+  return `<table>${t.caption ? `<caption>${x(t.caption)}</caption>` : ''}${thead}<tbody>\n${rows.join('\n')}\n</tbody></table>`;
 }
 
 function blockHtml(b: Block): string {
@@ -63,7 +65,7 @@ function blockHtml(b: Block): string {
     case 'pre':
       return `<pre>${b.lines.map(x).join('\n')}</pre>`;
     case 'note':
-      return `<div class="note ${b.tone}"><p class="title">${x(b.title)}</p><ul>${b.items.map((i) => `<li>${x(i)}</li>`).join('')}</ul></div>`;
+      return `<div class="note ${b.tone}"><p class="title">${x(b.title)}</p>${b.items.length > 0 ? `<ul>${b.items.map((i) => `<li>${x(i)}</li>`).join('')}</ul>` : ''}</div>`;
     case 'table':
       return tableHtml(b);
   }

@@ -58,7 +58,8 @@ function summarySection(input: DocumentsInput): Section {
   const f = build.machine;
   const source = input.analysed?.machine;
   const blocks: Block[] = [];
-  if (source?.description) blocks.push(p(source.description));
+  // The description's paragraphs (blank-line separated, lines joined), as the author wrote them.
+  for (const para of (source?.description ?? '').split(/\n\s*\n/)) if (para.trim() !== '') blocks.push(p(para.replace(/\s*\n\s*/g, ' ').trim()));
   const statesLine = source && source.states.length !== f.states.length ? `${f.states.length} (minimised from ${source.states.length})` : String(f.states.length);
   blocks.push(
     table(['', ''], [

@@ -50,8 +50,11 @@ export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDel
   const seq = build.encoding.bits > 0;
   let [state] = powerUp(sim);
   const rows: CommissioningRow[] = [];
-  const run = (clock: number, action: string, actions: readonly HandAction[], check: { next?: number; out?: readonly OutBit[] } = {}): void => {
+  // `out`: the outputs the state table gives, compared after the action — or before it, with
+  // `outBefore`, for a machine without inputs whose clock starts at φ1.
+  const run = (clock: number, action: string, actions: readonly HandAction[], check: { next?: number; out?: readonly OutBit[]; outBefore?: boolean } = {}): void => {
     const notes: string[] = [];
+    const before = outputValues(sim, state.values);
     for (const a of actions) {
       const [next, events] = stepSim(sim, state, a);
       state = next;
@@ -61,7 +64,7 @@ export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDel
     if (check.next !== undefined && reading.code !== build.encoding.codes[check.next]) {
       notes.push(`the state table says ${f.states[check.next]} (code ${build.encoding.codes[check.next]}) here`);
     }
-    const shown = outputValues(sim, state.values);
+    const shown = check.outBefore ? before : outputValues(sim, state.values);
     const wrong = f.outputs.filter((_, k) => check.out && check.out[k] !== '-' && String(check.out[k]) !== show(shown[k]));
     if (wrong.length > 0 && check.out) notes.push(`the state table gives ${wrong.map((o) => `${o}=${check.out?.[f.outputs.indexOf(o)]}`).join(', ')} here`);
     rows.push(rowOf(sim, state, rows.length + 1, clock, action, notes, seq ? reading.state ?? '(unused code)' : f.states[0], reading.code));
@@ -79,7 +82,7 @@ export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDel
     else if (!seq) run(clock, 'Look at the flags.', [], { out });
     current = values;
     if (!seq) return;
-    run(clock, 'Pull φ1.', [{ kind: 'pull', lever: 'phi1' }]);
+    run(clock, 'Pull φ1.', [{ kind: 'pull', lever: 'phi1' }], inputs.length === 0 ? { out, outBefore: true } : {});
     run(clock, 'Release φ1.', [{ kind: 'release', lever: 'phi1' }]);
     run(clock, 'Pull φ2.', [{ kind: 'pull', lever: 'phi2' }]);
     run(clock, 'Release φ2.', [{ kind: 'release', lever: 'phi2' }], { next: c.next });

@@ -119,6 +119,7 @@ const HEADER: Readonly<Record<keyof WiringRow, string>> = {
 /** The wiring list as CSV with a header line. */
 export function wiringCsv(rows: readonly WiringRow[]): string {
   const cols = Object.keys(HEADER) as (keyof WiringRow)[];
-  const named = rows.map((r) => Object.fromEntries(cols.map((c) => [HEADER[c], Number.isFinite(r[c] as number) || typeof r[c] === 'string' ? r[c] : num(r[c] as number)])));
+  // A driver with no load has an infinite margin: written as text (∞), every other cell as it is.
+  const named = rows.map((r) => Object.fromEntries(cols.map((c) => [HEADER[c], c === 'margin' && !Number.isFinite(r.margin) ? num(r.margin) : r[c]])));
   return recordsToCsv<Record<string, string | number>>(cols.map((c) => HEADER[c]), named);
 }

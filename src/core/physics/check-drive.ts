@@ -37,7 +37,8 @@ export function checkDrive(netlist: Netlist, profile: Profile, snapshots: Iterab
   const pull = `hardest lever pull ${operatorForceMaxG} g`;
   let summary: string;
   if (!ok) {
-    const f = failing[0];
+    // Lead with the weakest failing driver, so the words name the same cord as `weakestCord`.
+    const f = failing.reduce((w, d) => (d.margin < w.margin ? d : w));
     const more = failing.length > 1 ? ` (and ${failing.length - 1} more of ${drivers.length} capstans)` : '';
     summary = `over budget, margin below ${profile.minMargin}: ${f.message}${more}; fix: ${(f.fixes ?? []).join('; or ')}`;
   } else if (weakest) {

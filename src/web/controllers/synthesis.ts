@@ -1,17 +1,20 @@
 /**
- * Synthesis off the page's thread. Two workers: the live one reads, builds and checks every
- * revision of the text (the diagram follows within a keystroke, the build and checks as soon
- * as they are done); the search one prices every encoding, which can take seconds, shows its
- * progress, and is cancelled by terminating it. A live worker still busy building or checking
- * a revision the page has moved past is replaced, so typing never waits for stale work.
+ * Synthesis off the page's thread, in four lanes (worker.ts): the reader reads and lays out
+ * every revision of the text, so the sketch follows the keyboard; the builder encodes and
+ * synthesises; the checker runs every check, draws the schematic and makes the documents; the
+ * searcher prices every encoding. A lane busy on a revision the page has moved past is
+ * restarted when waiting for it would cost more than starting afresh: the checker and the
+ * searcher at once, the builder once it has spent BUILD_PATIENCE_MS on stale work (a long
+ * encoding search); the reader never, its jobs being short.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import type { Diagnostic } from '../../core/model/diagnostics.js';
-import type { BuildSettings, BuildView, ChecksView, CodeRow, EncodingChoice, ExportFile, FromWorker, Reading, ToWorker } from '../worker/protocol.js';
+import type { BuildSettings, BuildView, ChecksView, CodeRow, EncodingChoice, ExportFile, FromWorker, Reading } from '../worker/protocol.js';
 import { keepGet, keepSet } from './keep.js';
+import { Lane } from './lane.js';
 
-/** Where the live work stands. */
-export const Work = { idle: 'idle', reading: 'reading', building: 'building', checking: 'checking', done: 'done', refused: 'refused', failed: 'failed' } as const;
+/** Where the live work on the latest text stands. */
+export const Work = { reading: 'reading', building: 'building', checking: 'checking', done: 'done', refused: 'refused', stopped: 'stopped', failed: 'failed' } as const;
 export type Work = (typeof Work)[keyof typeof Work];
 
 /** Where the encoding comparison stands. */
@@ -24,13 +27,10 @@ export interface SearchProgress {
   readonly best: number;
 }
 
-/** Replace a live worker busy on a stale revision for longer than this. */
-const STALE_MS = 60;
-
-const makeWorker = (): Worker => new Worker(new URL('../worker.ts', import.meta.url), { type: 'module' });
+/** Restart a builder that has spent this long on a stale revision. */
+const BUILD_PATIENCE_MS = 400;
 
 export class SynthesisController implements ReactiveController {
-  work: Work = Work.idle;
   search: Search = Search.none;
   reading: Reading | undefined;
   /** The last reading without errors (views keep showing it while the text has errors). */
@@ -39,21 +39,25 @@ export class SynthesisController implements ReactiveController {
   checks: ChecksView | undefined;
   buildProblems: readonly Diagnostic[] = [];
   fault: string | undefined;
+  /** Progress of the encoding search of the build (strategy 'auto'), and of the comparison. */
+  buildProgress: SearchProgress | undefined;
   progress: SearchProgress | undefined;
   rows: readonly CodeRow[] = [];
   /** The build's schematic (SVG text), or why there is none. */
   schematic: { readonly svg?: string; readonly problem?: string } | undefined;
   /** Revision of each result shown (the page marks stale views). */
-  readonly shown = { reading: -1, built: -1, checks: -1, rows: -1, schematic: -1 };
+  readonly shown = { reading: -1, built: -1, unbuilt: -1, checks: -1, rows: -1, schematic: -1, stopped: -1 };
   settings: BuildSettings;
 
-  private live: Worker | undefined;
-  private searcher: Worker | undefined;
+  private readonly reader = new Lane((m) => this.fromReader(m));
+  private readonly builder = new Lane((m) => this.fromBuilder(m));
+  private readonly checker = new Lane((m) => this.fromChecker(m));
+  private readonly searcher = new Lane((m) => this.fromSearcher(m));
   /** Job number of the latest text (answers for older jobs are dropped). */
   private rev = 0;
   private text = '';
   private file = '';
-  private stageSince = 0;
+  private pricedText: string | undefined;
   private readonly exports = new Map<string, (f: ExportFile | string) => void>();
 
   constructor(
@@ -67,13 +71,12 @@ export class SynthesisController implements ReactiveController {
   }
 
   hostConnected(): void {
-    this.live ??= this.spawnLive();
+    this.reader.warm();
+    this.builder.warm();
   }
 
   hostDisconnected(): void {
-    this.live?.terminate();
-    this.searcher?.terminate();
-    this.live = this.searcher = undefined;
+    for (const l of [this.reader, this.builder, this.checker, this.searcher]) l.restart();
   }
 
   /** The job number of the latest text. */
@@ -81,9 +84,16 @@ export class SynthesisController implements ReactiveController {
     return this.rev;
   }
 
-  /** True when every view shows the latest text. */
-  get current(): boolean {
-    return this.shown.reading === this.rev && (this.work === Work.done || this.work === Work.refused || this.work === Work.failed);
+  /** Where the work on the latest text stands. */
+  get work(): Work {
+    const s = this.shown;
+    if (this.fault !== undefined) return Work.failed;
+    if (s.reading < this.rev) return Work.reading;
+    if (!this.reading?.ok || s.unbuilt === this.rev) return Work.refused;
+    if (s.stopped === this.rev) return Work.stopped;
+    if (s.built < this.rev) return Work.building;
+    if (s.checks < this.rev) return Work.checking;
+    return Work.done;
   }
 
   /** A new revision of the text. */
@@ -91,14 +101,13 @@ export class SynthesisController implements ReactiveController {
     this.text = text;
     this.file = file;
     const rev = ++this.rev;
-    const busyStale = (this.work === Work.building || this.work === Work.checking) && performance.now() - this.stageSince > STALE_MS;
-    if (busyStale || !this.live) {
-      this.live?.terminate();
-      this.live = this.spawnLive();
-    }
-    this.stage(Work.reading);
-    this.send(this.live, { kind: 'work', rev, text, file, settings: this.settings });
-    if (this.search === Search.running) this.cancelSearch();
+    this.fault = undefined;
+    this.buildProgress = undefined;
+    this.reader.send({ kind: 'read', rev, text, file });
+    if (this.builder.staleFor(rev) > BUILD_PATIENCE_MS) this.builder.restart();
+    this.builder.send({ kind: 'build', rev, text, file, settings: this.settings });
+    if (this.search === Search.running && text !== this.pricedText) this.cancelSearch();
+    this.host.requestUpdate();
   }
 
   /** Build with other codes. */
@@ -108,97 +117,79 @@ export class SynthesisController implements ReactiveController {
     this.submit(this.text, this.file);
   }
 
-  /** Price every encoding of the current revision. */
+  /** Stop the build's encoding search; the views keep the last build. */
+  stopBuild(): void {
+    this.builder.restart();
+    this.shown.stopped = this.rev;
+    this.buildProgress = undefined;
+    this.host.requestUpdate();
+  }
+
+  /** The comparison shown was priced for the text as it is now. */
+  get rowsCurrent(): boolean {
+    return this.search === Search.done && this.pricedText === this.text;
+  }
+
+  /** Price every encoding of the latest text. */
   compare(): void {
-    this.searcher?.terminate();
-    this.searcher = this.spawn((m) => this.fromSearch(m));
+    this.searcher.restart();
+    this.pricedText = this.text;
     this.search = Search.running;
     this.progress = undefined;
-    this.send(this.searcher, { kind: 'compare', rev: this.rev, text: this.text, file: this.file, settings: this.settings });
+    this.searcher.send({ kind: 'compare', rev: this.rev, text: this.text, file: this.file, settings: this.settings });
     this.host.requestUpdate();
   }
 
   cancelSearch(): void {
-    this.searcher?.terminate();
-    this.searcher = undefined;
+    this.searcher.restart();
     this.search = Search.cancelled;
     this.host.requestUpdate();
   }
 
-  /** One build document of the current, checked build. */
+  /** One build document of the latest, checked build. */
   exportDoc(doc: string): Promise<ExportFile> {
     return new Promise((resolve, reject) => {
-      if (!this.live || this.work !== Work.done) {
+      if (this.work !== Work.done) {
         reject(new Error('the build and its checks are not finished yet'));
         return;
       }
       this.exports.set(`${this.rev}:${doc}`, (f) => (typeof f === 'string' ? reject(new Error(f)) : resolve(f)));
-      this.send(this.live, { kind: 'export', rev: this.rev, doc });
+      this.checker.send({ kind: 'export', rev: this.rev, doc });
     });
   }
 
-  private spawnLive(): Worker {
-    return this.spawn((m) => this.fromLive(m));
+  private fromReader(m: FromWorker): void {
+    if (m.rev !== this.rev) return;
+    if (m.kind === 'reading') {
+      this.reading = m.reading;
+      if (m.reading.ok) this.good = m.reading;
+      this.shown.reading = m.rev;
+    } else if (m.kind === 'fault') this.fault = m.message;
+    this.host.requestUpdate();
   }
 
-  private spawn(on: (m: FromWorker) => void): Worker {
-    const w = makeWorker();
-    w.onmessage = (e: MessageEvent<FromWorker>) => on(e.data);
-    w.onerror = (e) => {
-      e.preventDefault();
-      on({ kind: 'fault', rev: this.rev, message: e.message || 'the synthesis worker stopped' });
-    };
-    return w;
-  }
-
-  private send(w: Worker, m: ToWorker): void {
-    w.postMessage(m);
-  }
-
-  private stage(w: Work): void {
-    this.work = w;
-    this.stageSince = performance.now();
-  }
-
-  private fromLive(m: FromWorker): void {
-    if (m.kind === 'exported') {
-      const key = `${m.rev}:${m.doc}`;
-      this.exports.get(key)?.(m.file ?? m.problem ?? 'no document');
-      this.exports.delete(key);
-      return;
-    }
+  private fromBuilder(m: FromWorker): void {
     if (m.rev !== this.rev) return;
     switch (m.kind) {
-      case 'reading':
-        this.reading = m.reading;
-        if (m.reading.ok) this.good = m.reading;
-        this.shown.reading = m.rev;
-        this.buildProblems = [];
-        this.fault = undefined;
-        this.stage(m.reading.ok ? Work.building : Work.refused);
+      case 'progress':
+        this.buildProgress = { done: m.done, total: m.total, best: m.best };
         break;
       case 'built':
         this.built = m.view;
+        this.buildProblems = [];
+        this.buildProgress = undefined;
         this.shown.built = m.rev;
         this.onBuilt(m.view);
-        this.stage(Work.checking);
+        // The checker's current work, if any, is for an older build.
+        if (!this.checker.idle) this.checker.restart();
+        this.checker.send({ kind: 'check', rev: m.rev, built: m.built, seed: this.settings.seed });
         break;
       case 'unbuilt':
         this.buildProblems = m.diagnostics;
-        this.stage(Work.refused);
-        break;
-      case 'checked':
-        this.checks = m.view;
-        this.shown.checks = m.rev;
-        this.stage(Work.done);
-        break;
-      case 'schematic':
-        this.schematic = m.svg !== undefined ? { svg: m.svg } : { problem: m.problem ?? 'no schematic' };
-        this.shown.schematic = m.rev;
+        this.shown.unbuilt = m.rev;
         break;
       case 'fault':
         this.fault = m.message;
-        this.stage(Work.failed);
         break;
       default:
         return;
@@ -206,10 +197,29 @@ export class SynthesisController implements ReactiveController {
     this.host.requestUpdate();
   }
 
-  private fromSearch(m: FromWorker): void {
+  private fromChecker(m: FromWorker): void {
+    if (m.kind === 'exported') {
+      const key = `${m.rev}:${m.doc}`;
+      this.exports.get(key)?.(m.file ?? m.problem ?? 'no document');
+      this.exports.delete(key);
+      return;
+    }
     if (m.rev !== this.rev) return;
+    if (m.kind === 'checked') {
+      this.checks = m.view;
+      this.shown.checks = m.rev;
+    } else if (m.kind === 'schematic') {
+      this.schematic = m.svg !== undefined ? { svg: m.svg } : { problem: m.problem ?? 'no schematic' };
+      this.shown.schematic = m.rev;
+    } else if (m.kind === 'fault') this.fault = m.message;
+    this.host.requestUpdate();
+  }
+
+  private fromSearcher(m: FromWorker): void {
+    if (this.search !== Search.running) return;
     if (m.kind === 'progress') this.progress = { done: m.done, total: m.total, best: m.best };
     else if (m.kind === 'compared') {
+      if (this.pricedText !== this.text) return;
       this.rows = m.rows;
       this.shown.rows = m.rev;
       this.search = Search.done;

@@ -35,12 +35,14 @@ export function litStates(r: Reading | undefined, state: string | null): Set<str
 /** The status line in words, and its tone. */
 export function statusWords(s: SynthesisController): { words: string; tone: 'busy' | 'ok' | 'bad' } {
   const searching = s.search === Search.running ? ' · pricing encodings' : '';
+  const p = s.buildProgress;
   switch (s.work) {
-    case Work.idle:
     case Work.reading:
       return { words: `Reading…${searching}`, tone: 'busy' };
     case Work.building:
-      return { words: `Building…${searching}`, tone: 'busy' };
+      return { words: p ? `Searching codes: ${p.done}${p.total !== null ? ` of ${p.total}` : ''} priced, best cost ${p.best}` : `Building…${searching}`, tone: 'busy' };
+    case Work.stopped:
+      return { words: 'Code search stopped; the views show the last build', tone: 'bad' };
     case Work.checking:
       return { words: `Built · checking…${searching}`, tone: 'busy' };
     case Work.refused:

@@ -56,6 +56,7 @@ export class LwApp extends LitElement {
         <h1><span class="mark" aria-hidden="true"></span>Latchwright <span class="soft">lever machine designer</span></h1>
         <span class="machine">${s.good?.machine?.name ?? ''}</span>
         <span class="status ${status.tone}" role="status" data-work=${s.work}>${status.words}</span>
+        ${s.buildProgress && s.work === Work.building ? html`<button @click=${() => s.stopBuild()} aria-label="Stop the code search of this build">Stop search</button>` : nothing}
         <button class="theme" @click=${() => this.theme.next()} aria-label=${`Colour theme: ${this.theme.theme}. Change it`}>${
           this.theme.theme === 'system' ? 'Theme: system' : this.theme.theme === 'light' ? 'Theme: light' : 'Theme: dark'
         }</button>
@@ -127,7 +128,7 @@ export class LwApp extends LitElement {
         return html`${note}<lw-codes
           .built=${b}
           .rows=${s.rows}
-          ?rowsCurrent=${s.shown.rows === s.shown.reading && s.work !== Work.reading}
+          ?rowsCurrent=${s.rowsCurrent}
           .search=${s.search}
           .progress=${s.progress}
           .choice=${s.settings.encoding}

@@ -38,9 +38,14 @@ export interface CoverSolution {
   readonly optimal: boolean;
 }
 
-/** Solve; `nodeLimit` bounds the search (Infinity for a guaranteed minimum). */
-export function solveCover(p: CoverProblem, nodeLimit = Infinity): CoverSolution {
-  return new Solver(p, nodeLimit).run();
+/**
+ * Solve; `nodeLimit` bounds the search (Infinity for a guaranteed minimum). With an
+ * `upperBound`, only covers cheaper than it count: null when there is none (or none found).
+ */
+export function solveCover(p: CoverProblem, nodeLimit?: number): CoverSolution;
+export function solveCover(p: CoverProblem, nodeLimit: number, upperBound: number): CoverSolution | null;
+export function solveCover(p: CoverProblem, nodeLimit = Infinity, upperBound = Infinity): CoverSolution | null {
+  return new Solver(p, nodeLimit, upperBound).run();
 }
 
 class Solver {
@@ -57,8 +62,10 @@ class Solver {
   private aborted = false;
   private readonly chosen: number[] = [];
   private rowOrder: number[] = [];
+  /** Columns not removed by dominance (rows dropped by row dominance assume only these). */
+  private readonly alive: Uint8Array;
 
-  constructor(private readonly p: CoverProblem, private readonly nodeLimit: number) {
+  constructor(private readonly p: CoverProblem, private readonly nodeLimit: number, private readonly upperBound: number) {
     this.nr = p.rowCount;
     this.rw = (this.nr + 31) >>> 5;
     this.colBits = p.columns.map((c) => {
@@ -70,9 +77,10 @@ class Solver {
     p.columns.forEach((c, ci) => { for (const r of c.rows) this.rowCols[r].push(ci); });
     this.opened = new Int32Array(p.groupCost.length);
     this.stamp = new Int32Array(p.groupCost.length);
+    this.alive = new Uint8Array(p.columns.length).fill(1);
   }
 
-  run(): CoverSolution {
+  run(): CoverSolution | null {
     const unc = new Uint32Array(this.rw);
     for (let r = 0; r < this.nr; r++) unc[r >>> 5] |= 1 << (r & 31);
     for (let r = 0; r < this.nr; r++)
@@ -82,12 +90,16 @@ class Solver {
     const greedy = this.greedy(unc);
     this.best = cost + greedy.cost;
     this.bestCols = fixed.concat(greedy.cols);
+    let found = this.best < this.upperBound;
+    if (!found) this.best = this.upperBound;
     this.rowOrder = [];
     for (let r = 0; r < this.nr; r++) if (unc[r >>> 5] & (1 << (r & 31))) this.rowOrder.push(r);
     this.rowOrder.sort((a, b) => this.rowCols[a].length - this.rowCols[b].length || a - b);
+    const before = this.best;
     this.search(unc, cost);
-    cost = this.best;
-    return { columns: this.bestCols.slice().sort((a, b) => a - b), cost, optimal: !this.aborted };
+    if (this.best < before) found = true;
+    if (!found) return null;
+    return { columns: this.bestCols.slice().sort((a, b) => a - b), cost: this.best, optimal: !this.aborted };
   }
 
   private inc(ci: number): number {
@@ -115,7 +127,7 @@ class Solver {
   /** Essential columns, row dominance and sound column dominance, to a fixed point. */
   private reduce(unc: Uint32Array): number {
     let cost = 0;
-    const alive = new Uint8Array(this.p.columns.length).fill(1);
+    const alive = this.alive;
     const isUnc = (r: number): boolean => (unc[r >>> 5] & (1 << (r & 31))) !== 0;
     for (let changed = true; changed; ) {
       changed = false;
@@ -193,6 +205,7 @@ class Solver {
       let bestCol = -1;
       let bestRatio = Infinity;
       for (let ci = 0; ci < this.p.columns.length; ci++) {
+        if (!this.alive[ci]) continue;
         const n = this.covers(ci, unc);
         if (n === 0) continue;
         const ratio = this.inc(ci) / n;

@@ -27,6 +27,8 @@ export interface ExactLimits {
   readonly maxRows: number;
   /** Branch-and-bound node limit; past it the best cover found is returned, not optimal. */
   readonly nodeLimit: number;
+  /** Only covers cheaper than this count (return null when none is found). */
+  readonly upperBound?: number;
 }
 
 export interface ExactResult {
@@ -52,7 +54,10 @@ function size(sp: Space, c: BCube): number {
   return 2 ** (sp.n - literals(sp, c));
 }
 
-/** Exact minimisation of on[j] with allowed[j] = on[j] ∪ dc[j]; null when over the limits. */
+/**
+ * Exact minimisation of on[j] with allowed[j] = on[j] ∪ dc[j]; null when over the limits or
+ * when nothing cheaper than `limits.upperBound` was found.
+ */
 export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allowed: readonly (readonly BCube[])[], cost: CoverCost, limits: ExactLimits): ExactResult | null {
   if (sp.n > EXACT_MAX_VARS) return null;
   const m = on.length;
@@ -111,7 +116,8 @@ export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allo
     groupCost.push(cost.term + cost.literal * literals(sp, p.cube));
     groupCube.push(p.cube);
   }
-  const sol = solveCover({ rowCount, columns, groupCost }, limits.nodeLimit);
+  const sol = solveCover({ rowCount, columns, groupCost }, limits.nodeLimit, limits.upperBound ?? Infinity);
+  if (sol === null) return null;
   const outs = new Map<number, number[]>();
   for (const ci of sol.columns) {
     const col = columns[ci];

@@ -24,7 +24,7 @@ import {
   type BCube, type Space, makeSpace, parseInput, formatInput, withOutputs, outputsOf, inDisjoint, key, absorbFull,
 } from './bitcube.js';
 import { compact, complement, subtractCover } from './unate.js';
-import { espresso, cubeCost } from './espresso.js';
+import { espresso } from './espresso.js';
 import { exactMinimise, EXACT_MAX_VARS, type ExactLimits } from './exact.js';
 import { DEFAULT_COST, coverCost } from './cost.js';
 import type { CoverCost, MinimiseOptions, MultiFunction, SopCover, Term } from './types.js';
@@ -34,15 +34,16 @@ export { coverCost, coverStats, DEFAULT_COST, type CoverStats } from './cost.js'
 export { verifyCover } from './verify.js';
 
 /**
- * When 'auto' tries the exact method: at most `maxVars` variables and `maxRows` on-set
- * (minterm, function) rows; the prime generation gives up past `maxPrimes`, the covering
- * search past `nodeLimit` nodes.
+ * When 'auto' also tries the exact method, after the heuristic: at most `maxVars` variables
+ * and `maxRows` on-set (minterm, function) rows; prime generation gives up past `maxPrimes`
+ * and the covering search stops after `nodeLimit` nodes. The exact search only accepts
+ * covers cheaper than the heuristic's, so 'auto' is never worse than 'heuristic'.
  */
 export const AUTO_LIMITS: ExactLimits & { readonly maxVars: number } = {
-  maxVars: 12,
-  maxRows: 1024,
-  maxPrimes: 400,
-  nodeLimit: 4000,
+  maxVars: 10,
+  maxRows: 256,
+  maxPrimes: 150,
+  nodeLimit: 2000,
 };
 
 /** Multi-output minimisation; terms shared across functions unless `share: false`. */
@@ -109,20 +110,13 @@ function solve(f: MultiFunction, method: MinimiseOptions['method'], cost: CoverC
     const r = exactMinimise(p.sp, p.on, p.allowed, cost, { maxPrimes: Infinity, maxRows: Infinity, nodeLimit: Infinity });
     return toFound(p.sp, r!.terms);
   }
+  const h = heuristic(p, cost);
   if (f.vars <= AUTO_LIMITS.maxVars) {
-    const r = exactMinimise(p.sp, p.on, p.allowed, cost, AUTO_LIMITS);
-    if (r !== null) {
-      const exact = toFound(p.sp, r.terms);
-      if (r.optimal) return exact;
-      const h = heuristic(p, cost);
-      return price(f, h, cost) < price(f, exact, cost) ? h : exact;
-    }
+    const upperBound = coverCost({ vars: f.vars, functions: f.on.length, terms: h }, cost);
+    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { ...AUTO_LIMITS, upperBound });
+    if (r !== null) return toFound(p.sp, r.terms);
   }
-  return heuristic(p, cost);
-}
-
-function price(f: MultiFunction, terms: readonly Found[], cost: CoverCost): number {
-  return coverCost({ vars: f.vars, functions: f.on.length, terms }, cost);
+  return h;
 }
 
 function toFound(sp: Space, terms: readonly { cube: BCube; outputs: readonly number[] }[]): Found[] {
@@ -136,9 +130,7 @@ function heuristic(p: Packed, cost: CoverCost): Found[] {
   p.allowed.forEach((cs, j) => { for (const r of complement(sp, cs)) R.push(withOutputs(sp, r, [j])); });
   const F = mergeOutputs(sp, p.on);
   const D = mergeOutputs(sp, p.dc);
-  const result = espresso(sp, F, D, R, cost);
-  const found = result.map((c) => ({ cube: formatInput(sp, c), outputs: outputsOf(sp, c), price: cubeCost(sp, c, cost) }));
-  return found.map(({ cube, outputs }) => ({ cube, outputs }));
+  return espresso(sp, F, D, R, cost).map((c) => ({ cube: formatInput(sp, c), outputs: outputsOf(sp, c) }));
 }
 
 /** One multi-output cube per distinct input cube, feeding every function that lists it. */

@@ -1,0 +1,149 @@
+/**
+ * Browser benchmark of the web designer (wired into `npm run bench` by bench/run.ts): the
+ * production build served on 127.0.0.1, Debian's chromium headless. Measures, in the page's
+ * own clock, the first load (to the sketch drawn and to the build checked) and, for the
+ * largest example and a 16-state machine, the time from a keystroke to the updated sketch,
+ * to the updated build and to the finished checks. Each keystroke figure is the median of
+ * several keystrokes typed into a comment, each after the previous one was fully checked.
+ * The reference is the same work done by the core in Node in this process (read + layout;
+ * read + layout + build), so the ratio is the cost of the worker, messaging and drawing.
+ */
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { performance } from 'node:perf_hooks';
+import type { Page } from 'playwright-core';
+import { machineFromJson } from '../src/core/forms/json.js';
+import { printTextMachine } from '../src/core/forms/text.js';
+import { buildDesigner, launchChromium } from '../src/web/browser.js';
+import { serveStatic } from '../src/web/serve.js';
+import { machineHash } from '../src/web/controllers/link.js';
+import { buildJob, readJob } from '../src/web/worker/jobs.js';
+
+export interface WebRow {
+  readonly name: string;
+  readonly figure: string;
+  readonly reference: string;
+  readonly ratio: string;
+  readonly goal: string;
+}
+
+const KEYSTROKES = 7;
+/** The 16-state machine: cse from the MCNC / LGSynth'91 set (16 states after minimisation, 7 inputs). */
+const SIXTEEN = 'tests/fixtures/lgsynth91/cse.json';
+
+const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
+const median = (xs: readonly number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
+/** In-page time (ms since navigation) when the app has answered job `job` up to `stage`. */
+async function whenAnswered(page: Page, job: number, stage: 'read' | 'built' | 'checked'): Promise<number> {
+  const h = await page.waitForFunction(
+    ([j, st]) => {
+      const app = document.querySelector('lw-app') as HTMLElement | null;
+      const drawn = app?.shadowRoot?.querySelector('lw-diagram') as HTMLElement | null;
+      if (!app || Number(app.dataset[st as string]) < (j as number)) return false;
+      if (st === 'read' && Number(drawn?.dataset.drawn ?? 0) < 1) return false;
+      return performance.now();
+    },
+    [job, stage] as const,
+    { polling: 5, timeout: 120_000 },
+  );
+  return (await h.jsonValue()) as number;
+}
+
+/** The largest example machine (most states), as text. */
+function largestExample(): { name: string; text: string } {
+  const all = readdirSync('examples')
+    .filter((f) => f.endsWith('.lw'))
+    .map((f) => {
+      const text = readFileSync(join('examples', f), 'utf8');
+      return { name: f, text, states: readJob(text, f).analysed?.minimised.machine.states.length ?? 0 };
+    })
+    .sort((a, b) => b.states - a.states);
+  return { name: `${all[0].name} (${all[0].states} states)`, text: all[0].text + '# typed here\n' };
+}
+
+function sixteenStates(): { name: string; text: string } {
+  const m = machineFromJson(JSON.parse(readFileSync(SIXTEEN, 'utf8')) as unknown, SIXTEEN);
+  if (!m.machine) throw new Error(`${SIXTEEN} does not read`);
+  return { name: 'cse.json (16 states)', text: printTextMachine(m.machine) + '# typed here\n' };
+}
+
+/** Median in-Node time of reading (+ building) the text, for the reference column. */
+function nodeReference(text: string): { read: number; build: number } {
+  const reads: number[] = [];
+  const builds: number[] = [];
+  for (let i = 0; i < 5; i++) {
+    const t0 = performance.now();
+    const r = readJob(text, 'bench.lw');
+    const t1 = performance.now();
+    if (r.analysed) buildJob(r.analysed, { encoding: { strategy: 'binary' }, seed: 1, unusedCodes: 'dont-care' });
+    reads.push(t1 - t0);
+    builds.push(performance.now() - t0);
+  }
+  return { read: median(reads), build: median(builds) };
+}
+
+async function keystrokes(page: Page, base: string, text: string): Promise<{ sketch: number; build: number; checks: number }> {
+  await page.goto(base + machineHash(text));
+  let job = Number(await page.locator('lw-app').getAttribute('data-job'));
+  await whenAnswered(page, job, 'checked');
+  const area = page.locator('lw-editor textarea');
+  await area.evaluate((t: HTMLTextAreaElement) => {
+    t.focus();
+    // Inside the closing comment line, so every keystroke leaves a machine that builds.
+    t.setSelectionRange(t.value.length - 1, t.value.length - 1);
+    window.addEventListener('keydown', () => ((window as unknown as { lwKey: number }).lwKey = performance.now()), { capture: true });
+  });
+  const sketch: number[] = [];
+  const build: number[] = [];
+  const checks: number[] = [];
+  for (let i = 0; i < KEYSTROKES; i++) {
+    await page.keyboard.press('x');
+    job++;
+    const t0 = (await page.evaluate(() => (window as unknown as { lwKey: number }).lwKey)) as number;
+    sketch.push((await whenAnswered(page, job, 'read')) - t0);
+    build.push((await whenAnswered(page, job, 'built')) - t0);
+    checks.push((await whenAnswered(page, job, 'checked')) - t0);
+  }
+  return { sketch: median(sketch), build: median(build), checks: median(checks) };
+}
+
+/** Run the browser benchmark; rows in the format of docs/benchmarks.md. */
+export async function benchWeb(): Promise<{ rows: WebRow[] }> {
+  const out = mkdtempSync(join(tmpdir(), 'latchwright-bench-web-'));
+  const browser = await launchChromium();
+  try {
+    await buildDesigner(out);
+    const server = await serveStatic(out);
+    try {
+      const rows: WebRow[] = [];
+      const loads: { sketch: number; checked: number }[] = [];
+      for (let i = 0; i < 3; i++) {
+        const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+        const page = await ctx.newPage();
+        await page.goto(server.url);
+        loads.push({ sketch: await whenAnswered(page, 1, 'read'), checked: await whenAnswered(page, 1, 'checked') });
+        await ctx.close();
+      }
+      rows.push({ name: 'designer: first load → sketch drawn (fresh browser profile)', figure: ms(median(loads.map((l) => l.sketch))), reference: '—', ratio: '—', goal: '—' });
+      rows.push({ name: 'designer: first load → built and every check done', figure: ms(median(loads.map((l) => l.checked))), reference: '—', ratio: '—', goal: '—' });
+      const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+      const page = await ctx.newPage();
+      for (const m of [largestExample(), sixteenStates()]) {
+        const ref = nodeReference(m.text);
+        const k = await keystrokes(page, server.url, m.text);
+        rows.push({ name: `designer: keystroke → sketch, ${m.name}`, figure: ms(k.sketch), reference: `read + layout in Node ${ms(ref.read)}`, ratio: `${(k.sketch / ref.read).toFixed(1)}×`, goal: '< 150 ms' });
+        rows.push({ name: `designer: keystroke → build, ${m.name}`, figure: ms(k.build), reference: `read + layout + build in Node ${ms(ref.build)}`, ratio: `${(k.build / ref.build).toFixed(1)}×`, goal: '< 150 ms' });
+        rows.push({ name: `designer: keystroke → every check done, ${m.name}`, figure: ms(k.checks), reference: '—', ratio: '—', goal: '—' });
+      }
+      await ctx.close();
+      return { rows };
+    } finally {
+      await server.close();
+    }
+  } finally {
+    await browser.close();
+    rmSync(out, { recursive: true, force: true });
+  }
+}

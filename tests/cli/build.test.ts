@@ -1,0 +1,161 @@
+/**
+ * `latchwright build FILE [--json]`: the report's blocks, the checks it names, the drive check's
+ * figures, and what a technology profile with a low drum friction does (buffers, or a failed
+ * drive check naming the weak cord, exit 1).
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEFAULT_PROFILE } from '../../src/core/physics/profile.js';
+import { expectNoStack, run, runJson, removeTempDirs, tempDir, writeTemp, type Run } from './support.js';
+
+interface Check {
+  name: string;
+  ok: boolean;
+  summary: string;
+  [k: string]: unknown;
+}
+interface Part {
+  kind: string;
+  id: string;
+  role?: string;
+}
+interface Report {
+  machine: { name: string; states: number; reachable: number; minimized: number; inputs: number; outputs: number };
+  merged: Record<string, string>;
+  encoding: { strategy: string; bits: number; codes: Record<string, string> };
+  parts: { gates: number; latches: number; levers: number; capstans: number; weights: number; cords: number };
+  guard: { ok: boolean; extraGates: number; extraCords: number; method: string };
+  equations: { name: string; expr: string }[];
+  netlist: { parts: Part[]; cords: { id: string; driver: string; ports: unknown[]; actuators: unknown[] }[] };
+  checks: Check[];
+  ok: boolean;
+  bom: { item: string; count: number }[];
+  diagnostics: unknown[];
+}
+
+const CHECK_NAMES = ['forbidden-input', 'next-state-equivalence', 'equivalence', 'recovery', 'timing', 'drive'];
+const MB = 'examples/marble-bell.lw';
+const LOCK = 'examples/sequence-lock.lw';
+
+afterAll(removeTempDirs);
+
+describe('cli/commands/build --json', () => {
+  let r: Run & { json: Report };
+  beforeAll(async () => {
+    r = await runJson<Report>(['build', MB, '--encoding', 'binary', '--json']);
+  });
+
+  it('exits 0 with every block of the report', () => {
+    expect(r.code).toBe(0);
+    expect(r.err).toBe('');
+    expect(Object.keys(r.json)).toEqual(expect.arrayContaining(['machine', 'merged', 'encoding', 'parts', 'guard', 'equations', 'netlist', 'checks', 'ok', 'bom']));
+    expect(r.json.machine).toMatchObject({ name: 'marble_bell', states: 4, reachable: 4, minimized: 4, inputs: 1, outputs: 1 });
+    expect(r.json.ok).toBe(true);
+  });
+
+  it('encoding: strategy, bits and one code per state (binary counts in state order)', () => {
+    expect(r.json.encoding).toEqual({ strategy: 'binary', bits: 2, codes: { none: '00', one: '01', two: '10', rung: '11' } });
+  });
+
+  it('equations: the bell decodes exactly the code of rung (Moore output, all four codes used)', () => {
+    expect(r.json.equations.map((e) => e.name)).toEqual(['S0', 'R0', 'S1', 'R1', 'bell']);
+    expect(r.json.equations.find((e) => e.name === 'bell')?.expr).toBe('q0 & q1');
+  });
+
+  it('parts agree with the netlist and with the build rules of DESIGN.md §3 and §5', () => {
+    const { parts, netlist } = r.json;
+    const kind = (k: string): Part[] => netlist.parts.filter((p) => p.kind === k);
+    expect(parts.gates).toBe(kind('gate').length);
+    expect(parts.latches).toBe(kind('latch').length);
+    expect(parts.levers).toBe(kind('lever').length);
+    // Cords are counted by branch: one per tie of a driver's cord to a port or an actuator.
+    expect(parts.cords).toBe(netlist.cords.reduce((n, c) => n + c.ports.length + c.actuators.length, 0));
+    // A master and a slave latch per state bit; one lever per input plus φ1, φ2 and reset.
+    expect(parts.latches).toBe(2 * r.json.encoding.bits);
+    expect(parts.levers).toBe(r.json.machine.inputs + 3);
+    // Every gate and every lever works its own capstan.
+    expect(parts.capstans).toBe(parts.gates + parts.levers);
+    // Each latch is two gates of the gate count.
+    expect(netlist.parts.filter((p) => p.role === 'latch-set' || p.role === 'latch-reset')).toHaveLength(2 * parts.latches);
+  });
+
+  it('guard: proven, with its cost over an unguarded build', () => {
+    expect(r.json.guard).toMatchObject({ ok: true, extraGates: expect.any(Number), extraCords: expect.any(Number), method: expect.any(String) });
+    expect(r.json.guard.extraGates).toBeGreaterThanOrEqual(0);
+  });
+
+  it('checks: the six named checks, in order, each with ok and a summary', () => {
+    expect(r.json.checks.map((c) => c.name)).toEqual(CHECK_NAMES);
+    for (const c of r.json.checks) {
+      expect(c.ok, c.name).toBe(true);
+      expect(c.summary, c.name).toEqual(expect.any(String));
+    }
+  });
+
+  it('drive: smallest margin, weakest cord, worst drum torque and power, hardest lever pull', () => {
+    const d = r.json.checks.find((c) => c.name === 'drive')!;
+    expect(d).toMatchObject({ minMargin: expect.any(Number), weakestCord: expect.any(String), worstTorqueNm: expect.any(Number), worstPowerW: expect.any(Number), operatorForceMaxG: expect.any(Number) });
+    expect(d.minMargin as number).toBeGreaterThanOrEqual(DEFAULT_PROFILE.minMargin);
+    expect(r.json.netlist.cords.map((c) => c.id)).toContain(d.weakestCord);
+    // Power = torque × ω with ω = 2π·rpm/60 (DESIGN.md §4).
+    expect(d.worstPowerW as number).toBeCloseTo((d.worstTorqueNm as number) * ((2 * Math.PI * DEFAULT_PROFILE.drumRpm) / 60), 9);
+    // A lever pull is at least its own pull-up weight.
+    expect(d.operatorForceMaxG as number).toBeGreaterThanOrEqual(DEFAULT_PROFILE.leverWeightG);
+  });
+
+  it('bom: a list of items with counts', () => {
+    expect(r.json.bom.length).toBeGreaterThan(0);
+    for (const line of r.json.bom) expect(line).toMatchObject({ item: expect.any(String), count: expect.any(Number) });
+  });
+});
+
+describe('cli/commands/build (text report)', () => {
+  it('prints the encoding, the parts, the equations, one line per check and the safety line', async () => {
+    const t = await run(['build', MB, '--encoding', 'binary']);
+    expect(t.code).toBe(0);
+    expect(t.out).toContain('encoding binary, 2 state bits: none=00 one=01 two=10 rung=11\n');
+    expect(t.out).toContain('  bell = q0 & q1\n');
+    for (const name of CHECK_NAMES) expect(t.out).toMatch(new RegExp(`^ {2}ok {3}${name}: `, 'm'));
+    expect(t.out).toMatch(/^Safety: /m);
+    expectNoStack(t);
+  });
+});
+
+describe('cli/commands/build with a low-friction profile', () => {
+  // Capstan equation (Euler–Eytelwein): gain e^(μθ), θ = 2 wraps = 4π. With the 15 g hold weight
+  // and 15 g per port, μ = 0.15 gives 15·e^(0.6π) ≈ 99 g, room for 3 ports at margin 2 — buffer
+  // trees fix it; μ = 0.10 gives ≈ 53 g, under 2 ports at margin 2, so no tree can share a load.
+  const profiles = tempDir('lw-profile-');
+  const lowMu = (mu: number): string => writeTemp(profiles, `mu-${mu}.json`, JSON.stringify({ mu }));
+
+  it('μ = 0.15: the build inserts buffers and still passes every check', async () => {
+    const base = await runJson<Report>(['build', LOCK, '--encoding', 'binary', '--json']);
+    const low = await runJson<Report>(['build', LOCK, '--encoding', 'binary', '--json', '--profile', lowMu(0.15)]);
+    expect(low.code).toBe(0);
+    const buffers = (x: Report): number => x.netlist.parts.filter((p) => p.role === 'buffer').length;
+    expect(buffers(low.json)).toBeGreaterThan(buffers(base.json));
+    expect(low.json.parts.gates).toBeGreaterThan(base.json.parts.gates);
+    expect(low.json.checks.every((c) => c.ok)).toBe(true);
+    // The logic is the same machine; only the drive changed.
+    expect(low.json.equations).toEqual(base.json.equations);
+  });
+
+  it('μ = 0.10: the drive check fails naming the weak cord, and build exits 1', async () => {
+    const profile = lowMu(0.1);
+    const low = await runJson<Report>(['build', LOCK, '--encoding', 'binary', '--json', '--profile', profile]);
+    expect(low.code).toBe(1);
+    expect(low.json.ok).toBe(false);
+    const d = low.json.checks.find((c) => c.name === 'drive')!;
+    expect(d.ok).toBe(false);
+    expect(d.minMargin as number).toBeLessThan(DEFAULT_PROFILE.minMargin);
+    expect(low.json.netlist.cords.map((c) => c.id)).toContain(d.weakestCord);
+    expect(d.summary).toContain(`'${d.weakestCord}'`);
+    // Only the drive fails: the logic is still right.
+    expect(low.json.checks.filter((c) => !c.ok).map((c) => c.name)).toEqual(['drive']);
+
+    const t = await run(['build', LOCK, '--encoding', 'binary', '--profile', profile]);
+    expect(t.code).toBe(1);
+    expect(t.out).toContain(`  FAIL drive: `);
+    expect(t.out).toContain(`'${d.weakestCord}'`);
+    expectNoStack(t);
+  });
+});

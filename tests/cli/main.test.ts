@@ -1,0 +1,92 @@
+/**
+ * `latchwright` itself (src/cli/main.ts): usage, version, command dispatch, command-line errors
+ * as coded diagnostics, and the last-resort guard that turns a fault of ours into one plain line
+ * and exit 2 instead of a stack trace. Everything runs through `main(argv, io)` with a
+ * capturing io; bin/latchwright.js only hands main's result to process.exitCode.
+ */
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { EXIT, main } from '../../src/cli/main.js';
+import type { CliIo } from '../../src/cli/io.js';
+import { expectNoStack, run } from './support.js';
+
+const COMMANDS = ['check', 'build', 'compare', 'step', 'demo'];
+
+describe('cli/main', () => {
+  it('exit statuses are 0 all good, 1 a check failed, 2 bad input', () => {
+    expect(EXIT).toEqual({ ok: 0, checkFailed: 1, badInput: 2 });
+  });
+
+  it('--help and -h print the usage, naming every command and every encoding, exit 0', async () => {
+    for (const flag of ['--help', '-h']) {
+      const r = await run([flag]);
+      expect(r.code).toBe(0);
+      for (const c of COMMANDS) expect(r.out).toContain(`latchwright ${c}`);
+      expect(r.out).toContain('binary, gray, johnson, one-hot, pinned, auto');
+      expect(r.out).toContain('Exit status: 0 all good, 1 a check failed, 2 bad input.');
+      expect(r.err).toBe('');
+    }
+    expect((await run(['help'])).code).toBe(0);
+  });
+
+  it('no command at all: the usage, exit 2', async () => {
+    const r = await run([]);
+    expect(r.code).toBe(2);
+    expect(r.out).toMatch(/^latchwright — /);
+  });
+
+  it('--version prints the package version', async () => {
+    const r = await run(['--version']);
+    const pkg = JSON.parse(readFileSync('package.json', 'utf8')) as { version: string };
+    expect(r).toEqual({ code: 0, out: `latchwright ${pkg.version}\n`, err: '' });
+  });
+
+  it('an unknown command: LW700 naming the commands there are', async () => {
+    const r = await run(['assemble', 'examples/marble-bell.lw']);
+    expect(r.code).toBe(2);
+    expect(r.err).toBe("assemble: error LW700: unknown command 'assemble' — commands: check, build, compare, step, demo\n");
+    expect(r.out).toBe('');
+  });
+
+  it('command-line errors come as JSON on standard output when --json is given', async () => {
+    const r = await run(['check', 'examples/marble-bell.lw', '--json', '--colour']);
+    expect(r.code).toBe(2);
+    expect(JSON.parse(r.out)).toEqual({
+      ok: false,
+      diagnostics: [{ code: 'LW700', severity: 'error', message: 'unknown option --colour', location: { path: '--colour' }, hint: 'run `latchwright --help` for usage' }],
+    });
+    expect(r.err).toBe('');
+  });
+
+  it('`--` ends the options: what follows is a file name', async () => {
+    const r = await run(['check', '--', '--json']);
+    expect(r.code).toBe(2);
+    expect(r.err).toBe('--json: error LW705: no such file: --json — check the path; name a file, not a folder\n');
+  });
+
+  it('demo builds the bundled marble bell and passes every check', async () => {
+    const r = await run(['demo']);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/^Demo: building .*marble-bell\.lw/);
+    expect(r.out).toContain('marble_bell: 4 states → 4 after minimisation');
+    expect(r.out).not.toContain('FAIL');
+    expectNoStack(r);
+  });
+
+  it('a fault of ours becomes one plain line and exit 2, never a stack trace', async () => {
+    let out = '';
+    let err = '';
+    const io: CliIo = {
+      out: (s) => void (out += s),
+      err: (s) => void (err += s),
+      readText: () => {
+        throw new Error('the disk fell off');
+      },
+      interactive: false,
+    };
+    const code = await main(['check', 'examples/marble-bell.lw'], io);
+    expect(code).toBe(2);
+    expect(out).toBe('');
+    expect(err).toBe('latchwright: internal error: the disk fell off\nPlease report this with the machine file that caused it.\n');
+  });
+});

@@ -1,0 +1,102 @@
+import { describe, expect, it } from 'vitest';
+import { OPERATING_RULES, RULE_WORDS } from '../../../src/core/sim/hand.js';
+import type { TimingResult } from '../../../src/core/checks/timing.js';
+import { buildSheet, CAUTIONS, checkNamed } from '../../../src/core/export/build-sheet.js';
+import { buildSheetHtml, renderDocHtml } from '../../../src/core/export/build-sheet-html.js';
+import { buildSheetMd, renderDocMd } from '../../../src/core/export/build-sheet-md.js';
+import { coverExpr } from '../../../src/core/export/readable.js';
+import { escapeXml } from '../../../src/core/export/escape.js';
+import { table, type Doc } from '../../../src/core/export/doc.js';
+import { example, exampleNames, xmlProblems } from './support.js';
+
+const SECTIONS = ['Machine', 'Safety', 'State table', 'Set and reset equations', 'Forbidden-input guard', 'Parts and bill of materials', 'Drive margins', 'Timing and clock rate', 'Wiring list', 'Operating rules'];
+
+/** Cells of a Markdown table row, split at pipes that are not escaped. */
+const mdCells = (row: string): string[] => row.trim().replace(/^\|/, '').replace(/\|$/, '').split(/(?<!\\)\|/);
+
+describe('core/export/build-sheet', () => {
+  it('prints every example as one well-formed, self-contained HTML page with every section', () => {
+    for (const name of exampleNames()) {
+      const html = buildSheetHtml(example(name));
+      expect(xmlProblems(html), name).toEqual([]);
+      expect(html.startsWith('<!DOCTYPE html>')).toBe(true);
+      // Self-contained: nothing is fetched from anywhere.
+      expect(html).not.toMatch(/<script|<link|<img|src=|url\(|@import|href="(?!#)/);
+      for (const s of SECTIONS) expect(html, `${name}: ${s}`).toContain(`<h2>${escapeXml(s)}</h2>`);
+    }
+  });
+
+  it('has a print stylesheet that starts each section on a new page', () => {
+    const html = buildSheetHtml(example('marble-bell.lw'));
+    expect(html).toContain('@media print');
+    expect(html).toMatch(/section \{ break-before: page; \}/);
+    expect(html).toMatch(/thead \{ display: table-header-group; \}/);
+    expect(html.match(/<section id=/g)).toHaveLength(SECTIONS.length);
+  });
+
+  it('carries the safety cautions in full (DESIGN §9), in both formats', () => {
+    const b = example('sequence-lock.lw');
+    const html = buildSheetHtml(b);
+    const md = buildSheetMd(b);
+    expect(CAUTIONS.join(' ')).toContain("ISO 12100's risk-assessment method is a common starting point");
+    expect(CAUTIONS.join(' ')).toContain('Defer to local codes and licensed practice.');
+    for (const c of CAUTIONS) {
+      expect(html).toContain(escapeXml(c));
+      expect(md.replace(/\\/g, '')).toContain(c);
+    }
+  });
+
+  it('writes the set/reset equations of every latch as readable expressions over q-bits and inputs', () => {
+    const b = example('marble-bell.lw');
+    const md = buildSheetMd(b);
+    const bits = b.build.encoding.bits;
+    for (let j = 0; j < bits; j++) {
+      const row = md.split('\n').find((l) => l.startsWith(`| \`q${j}\` |`)) ?? '';
+      const cells = mdCells(row).map((c) => c.trim().replace(/^`|`$/g, '').replace(/\\\|/g, '|'));
+      expect(cells[3]).toBe(coverExpr(b.build.equations[2 * j].terms, b.build.vars, { widen: false }));
+      expect(cells[4]).toBe(coverExpr(b.build.equations[2 * j + 1].terms, b.build.vars, { widen: false }));
+    }
+    expect(md).toContain('| bell | `flag.bell` | Moore (state only) | `q0 & q1` |');
+  });
+
+  it('reports the operating rules with what breaking each one does, and the timing figures', () => {
+    const b = example('marble-bell.lw');
+    const html = buildSheetHtml(b);
+    for (const r of OPERATING_RULES) expect(html).toContain(escapeXml(RULE_WORDS[r]));
+    const fi = checkNamed<{ rules: { words: string; upsets: string[] }[] } & import('../../../src/core/model/build.js').CheckResult>(b.checks, 'forbidden-input');
+    for (const r of fi?.rules ?? []) if (r.upsets.length > 0) expect(html).toContain(escapeXml(r.words));
+    const t = checkNamed<TimingResult>(b.checks, 'timing') as TimingResult;
+    expect(html).toContain(`${Math.round(t.clocksPerMinute * 10) / 10} clocks per minute`);
+  });
+
+  it('says a check was not run rather than guessing, and flags failed checks at the top', () => {
+    const b = example('marble-bell.lw');
+    const bare = buildSheetMd({ build: b.build, checks: [], profile: b.profile });
+    expect(bare).toContain('The timing check was not run for this sheet.');
+    expect(bare).toContain('No checks were run for this sheet.');
+    const failed = buildSheet({ ...b, checks: [{ name: 'equivalence', ok: false, summary: 'outputs differ in state two' }] });
+    const note = failed.sections[0].blocks.find((x) => x.kind === 'note');
+    expect(note).toMatchObject({ tone: 'fail', items: ['equivalence: outputs differ in state two'] });
+  });
+
+  it('keeps every Markdown table rectangular, whatever the cells hold', () => {
+    const doc: Doc = {
+      title: 'T|t',
+      sections: [{ id: 'x', title: 'x', blocks: [table(['a', 'b|c'], [['x | y', '`q|r`'], ['back\\', 'new\nline']], { mono: [1], tick: true })] }],
+    };
+    const md = renderDocMd(doc);
+    const rows = md.split('\n').filter((l) => l.startsWith('|'));
+    expect(rows).toHaveLength(4);
+    for (const r of rows) expect(mdCells(r)).toHaveLength(3);
+    expect(xmlProblems(renderDocHtml(doc))).toEqual([]);
+    for (const name of exampleNames()) {
+      const lines = buildSheetMd(example(name)).split('\n');
+      let width = 0;
+      for (const l of lines) {
+        if (!l.startsWith('|')) width = 0;
+        else if (width === 0) width = mdCells(l).length;
+        else expect(mdCells(l), `${name}: ${l}`).toHaveLength(width);
+      }
+    }
+  });
+});
