@@ -1,7 +1,8 @@
 /**
  * The synthesis worker. The page runs several, each for one kind of job, so that slow work
  * never stands in front of fast work: a reader (read + sketch layout, every keystroke), a
- * builder (encode + synthesise), a checker (every check, the schematic, the build documents)
+ * builder (encode + synthesise), a checker (every check; on request the schematic and the
+ * build documents)
  * and a searcher (every encoding priced). Jobs go stage by stage, yielding between stages so
  * a newer job of the same kind can overtake; every answer carries the page revision it is for.
  * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
@@ -64,15 +65,19 @@ async function run(m: ToWorker): Promise<void> {
       const c = checkJob(m.built, m.seed);
       checked = { rev: m.rev, built: c.built };
       post({ kind: 'checked', rev: m.rev, view: c.view });
-      await turn();
-      if (stale(m.kind, m.rev)) return;
+      return;
+    }
+    case 'draw':
+      if (!checked || checked.rev !== m.rev) {
+        post({ kind: 'schematic', rev: m.rev, problem: 'the build is not checked yet' });
+        return;
+      }
       try {
-        post({ kind: 'schematic', rev: m.rev, svg: schematicSvg(m.built.build) });
+        post({ kind: 'schematic', rev: m.rev, svg: schematicSvg(checked.built.build) });
       } catch (e) {
         post({ kind: 'schematic', rev: m.rev, problem: message(e) });
       }
       return;
-    }
     case 'compare': {
       const r = readJob(m.text, m.file);
       post({ kind: 'compared', rev: m.rev, rows: r.analysed ? compareJob(r.analysed, m.settings, reporter(m.rev, 'compare')) : [] });

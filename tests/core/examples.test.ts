@@ -2,8 +2,8 @@
  * Stored expected outputs for whole builds of the example machines (examples/*.lw, our own
  * invented exhibits), built as `latchwright build FILE` builds them: default encoding (auto),
  * default seed, shipped profile. Each build is summarised — machine counts, merges, encoding,
- * part counts, guard, equations, check names and ok flags; not the netlist, not timings — and
- * compared exactly with tests/fixtures/expected/<name>.json.
+ * part counts, guard, equations (terms in cube order), check names and ok flags; not the
+ * netlist, not timings — and compared exactly with tests/fixtures/expected/<name>.json.
  *
  * When a change to the pipeline changes a build on purpose, rewrite the stored files with
  *   LW_UPDATE_EXPECTED=1 npx vitest run tests/core/examples.test.ts
@@ -13,7 +13,7 @@
 import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyse, buildMachine, type Built } from '../../src/core/pipeline.js';
-import { equationTexts } from '../../src/core/report.js';
+import { printCubes } from '../../src/core/forms/expr.js';
 
 const EXAMPLES = readdirSync('examples')
   .filter((f) => f.endsWith('.lw'))
@@ -43,7 +43,8 @@ function summary(b: Built) {
     },
     parts: b.build.parts,
     guard: { ok: b.build.guard.ok, method: b.build.guard.method, extraGates: b.build.guard.extraGates, extraCords: b.build.guard.extraCords },
-    equations: equationTexts(b),
+    // Terms in cube order, so that a change of term order alone (no change of logic) leaves the file alone.
+    equations: b.build.equations.map((e) => ({ name: e.name, expr: e.terms.length === 0 ? '0' : printCubes([...e.terms].sort(), b.build.vars) })),
     checks: b.checks.map((c) => ({ name: c.name, ok: c.ok })),
     diagnostics: b.diagnostics.filter((d) => d.severity !== 'info').map((d) => d.code),
   };

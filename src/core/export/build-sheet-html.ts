@@ -75,7 +75,7 @@ function blockHtml(b: Block): string {
 export function renderDocHtml(doc: Doc): string {
   const nav = doc.sections.length > 2 ? `<nav><ol>${doc.sections.map((s) => `<li><a href="#${x(s.id)}">${x(s.title)}</a></li>`).join('')}</ol></nav>\n` : '';
   const sections = doc.sections.map((s) => `<section id="${x(s.id)}">\n<h2>${x(s.title)}</h2>\n${s.blocks.map(blockHtml).join('\n')}\n</section>`);
-  const page = doc.landscape ? '\n@page { size: landscape; }' : '';
+  const page = doc.landscape ? '\n@page { size: landscape; }\nbody { max-width: 96rem; }' : '';
   return [
     '<!DOCTYPE html>',
     '<html lang="en">',

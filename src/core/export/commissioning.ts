@@ -19,7 +19,7 @@ import type { OutBit } from '../model/machine.js';
 import type { Profile } from '../physics/profile.js';
 import { clockActions, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
 import { isAlarm, outputValues, powerUp, readPart, show, simFor, stepSim, timingOf, X, type PartSim, type PartState } from '../sim/part.js';
-import { csvField } from './csv.js';
+import { toCsv } from './csv.js';
 import type { TourClock } from './tour.js';
 
 /** Position of a lever: Z down when its gate's output is 1; '?' when the simulator cannot tell. */
@@ -135,10 +135,6 @@ export function commissioningCsv(rows: readonly CommissioningRow[]): string {
     'note',
     'done',
   ];
-  const lines = [header.map(csvField).join(',')];
-  for (const r of rows) {
-    const cells = [r.step, r.clock, r.action, ...r.latches.flatMap((l) => [l.setZ, l.resetZ]), ...r.outputs.map((o) => showsWords(o.kind, o.shows)), r.state, r.code, r.note, ''];
-    lines.push(cells.map(csvField).join(','));
-  }
-  return lines.join('\r\n') + '\r\n';
+  const body = rows.map((r) => [r.step, r.clock, r.action, ...r.latches.flatMap((l) => [l.setZ, l.resetZ]), ...r.outputs.map((o) => showsWords(o.kind, o.shows)), r.state, r.code, r.note, '']);
+  return toCsv([header, ...body]);
 }

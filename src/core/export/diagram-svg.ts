@@ -17,9 +17,10 @@ import { DONT_CARE } from '../model/flat.js';
 import { escapeXml } from './escape.js';
 import { coverExpr, wrapExpr, wrapJoined } from './readable.js';
 import { mooreOutputs, outputsText, rowGroups } from './sheet-logic.js';
-import { pathThrough, round1, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
+import { extentOf, pathThrough, round1, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
 
 const LINE = 13;
+const MARGIN = 12;
 const WRAP = 34;
 
 /** A state box; `loop` is its self-loop label (drawn above the box, inside the space dagre reserved). */
@@ -123,8 +124,20 @@ export function diagramLayout(build: Build): DiagramLayout {
     }
     return { from: Number(a), to: Number(b), label, guards: guardsOf.get(key) ?? [], x: e.x as number, y: e.y as number, points };
   });
-  const gl = g.graph();
-  return { width: Math.max(gl.width ?? 0, 240), height: gl.height ?? 0, states, arrows };
+  // Fit the drawing to everything drawn (dagre may route an arrow outside its own bounds).
+  const ext = extentOf(
+    [...states.map((st) => ({ x: st.outer.x + st.outer.width / 2, y: st.outer.y + st.outer.height / 2, width: st.outer.width + 44, height: st.outer.height + 16 })), ...arrows.map((a) => ({ x: a.x, y: a.y, width: Math.max(...a.label.map((t) => textWidth(t, 10, true))) + 8, height: a.label.length * LINE + 4 }))],
+    arrows.flatMap((a) => a.points),
+  );
+  const dx = MARGIN - ext.minX;
+  const dy = MARGIN - ext.minY;
+  const move = (q: Point): Point => ({ x: q.x + dx, y: q.y + dy });
+  return {
+    width: Math.max(ext.maxX - ext.minX + 2 * MARGIN, 240),
+    height: ext.maxY - ext.minY + 2 * MARGIN,
+    states: states.map((st) => ({ ...st, ...move(st), outer: { ...st.outer, ...move(st.outer) } })),
+    arrows: arrows.map((a) => ({ ...a, ...move(a), points: a.points.map(move) })),
+  };
 }
 
 /** Move an end point that dagre put on the reserved space's edge onto the box's edge, keeping its side. */

@@ -21,7 +21,7 @@ import dagre from '@dagrejs/dagre';
 import type { Build } from '../model/build.js';
 import type { Part } from '../model/netlist.js';
 import { escapeXml } from './escape.js';
-import { clip, pathThrough, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
+import { clip, extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
 import { stagesOf } from './stages.js';
 
 export type NodeKind = 'operator' | 'clock' | 'reset' | 'term' | 'helper' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
@@ -185,8 +185,18 @@ export function schematicLayout(build: Build): SchematicLayout {
     const n = g.node(id);
     return { id, label: String(n.label ?? id), x: (n.x as number) - n.width / 2, y: (n.y as number) - n.height / 2, width: n.width, height: n.height };
   });
-  const gl = g.graph();
-  return { width: Math.max(gl.width ?? 0, LEGEND_W), height: (gl.height ?? 0) + LEGEND_H, nodes, clusters: cl, edges };
+  // dagre may route a reversed cord outside its own bounds: fit the drawing to everything drawn.
+  const ext = extentOf([...nodes, ...cl.map((c) => ({ x: c.x + c.width / 2, y: c.y + c.height / 2, width: c.width, height: c.height }))], edges.flatMap((e) => e.points));
+  const dx = MARGIN - ext.minX;
+  const dy = MARGIN - ext.minY;
+  const move = (q: Point): Point => ({ x: q.x + dx, y: q.y + dy });
+  return {
+    width: Math.max(ext.maxX - ext.minX + 2 * MARGIN, LEGEND_W),
+    height: ext.maxY - ext.minY + 2 * MARGIN + LEGEND_H,
+    nodes: nodes.map((n) => ({ ...n, ...move(n) })),
+    clusters: cl.map((c) => ({ ...c, ...move(c) })),
+    edges: edges.map((e) => ({ ...e, points: e.points.map(move) })),
+  };
 }
 
 const STYLE = `

@@ -67,3 +67,24 @@ export function svgDocument(width: number, height: number, title: string, descri
 }
 
 export { r1 as round1 };
+
+/** The smallest rectangle holding every box (given by centre and size) and every point. */
+export function extentOf(boxes: readonly { readonly x: number; readonly y: number; readonly width: number; readonly height: number }[], points: readonly Point[]): { minX: number; minY: number; maxX: number; maxY: number } {
+  let minX = Infinity;
+  let minY = Infinity;
+  let maxX = -Infinity;
+  let maxY = -Infinity;
+  for (const b of boxes) {
+    minX = Math.min(minX, b.x - b.width / 2);
+    maxX = Math.max(maxX, b.x + b.width / 2);
+    minY = Math.min(minY, b.y - b.height / 2);
+    maxY = Math.max(maxY, b.y + b.height / 2);
+  }
+  for (const q of points) {
+    minX = Math.min(minX, q.x);
+    maxX = Math.max(maxX, q.x);
+    minY = Math.min(minY, q.y);
+    maxY = Math.max(maxY, q.y);
+  }
+  return minX === Infinity ? { minX: 0, minY: 0, maxX: 0, maxY: 0 } : { minX, minY, maxX, maxY };
+}

@@ -58,6 +58,7 @@ export class SynthesisController implements ReactiveController {
   private text = '';
   private file = '';
   private pricedText: string | undefined;
+  private drawn = -1;
   private readonly exports = new Map<string, (f: ExportFile | string) => void>();
 
   constructor(
@@ -104,6 +105,8 @@ export class SynthesisController implements ReactiveController {
     this.fault = undefined;
     this.buildProgress = undefined;
     this.reader.send({ kind: 'read', rev, text, file });
+    // Checks of an older build are no use now; stopping them frees the processor.
+    if (!this.checker.idle) this.checker.restart();
     if (this.builder.staleFor(rev) > BUILD_PATIENCE_MS) this.builder.restart();
     this.builder.send({ kind: 'build', rev, text, file, settings: this.settings });
     if (this.search === Search.running && text !== this.pricedText) this.cancelSearch();
@@ -144,6 +147,13 @@ export class SynthesisController implements ReactiveController {
     this.searcher.restart();
     this.search = Search.cancelled;
     this.host.requestUpdate();
+  }
+
+  /** Ask for the schematic of the latest checked build (once per build). */
+  drawSchematic(): void {
+    if (this.work !== Work.done || this.drawn === this.rev) return;
+    this.drawn = this.rev;
+    this.checker.send({ kind: 'draw', rev: this.rev });
   }
 
   /** One build document of the latest, checked build. */

@@ -99,6 +99,8 @@ export class LwApp extends LitElement {
     // Revisions on the host, for the browser tests and the benchmark to wait on.
     const s = this.synth;
     Object.assign(this.dataset, { job: String(s.job), read: String(s.shown.reading), built: String(s.shown.built), checked: String(s.shown.checks) });
+    // The schematic is drawn only when someone looks at it.
+    if (this.view === 'parts') s.drawSchematic();
   }
 
   private viewBody() {

@@ -110,6 +110,7 @@ export type ToWorker =
   | { readonly kind: 'build'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
   | { readonly kind: 'check'; readonly rev: number; readonly built: Built; readonly seed: number }
   | { readonly kind: 'compare'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
+  | { readonly kind: 'draw'; readonly rev: number }
   | { readonly kind: 'export'; readonly rev: number; readonly doc: string };
 
 export type FromWorker =
