@@ -20,6 +20,7 @@ export default defineConfig({
     chunkSizeWarningLimit: 2000,
   },
   worker: { format: 'es' },
-  server: { host: '127.0.0.1', port: 5178, strictPort: true },
+  // The dev server may read the example machines and the core above src/web.
+  server: { host: '127.0.0.1', port: 5178, strictPort: true, fs: { allow: [here('.')] } },
   preview: { host: '127.0.0.1', port: 5178, strictPort: true },
 });

@@ -57,12 +57,18 @@ async function run(m: ToWorker): Promise<void> {
         return;
       }
       const b = buildJob(a, m.settings, reporter(m.rev, 'search'));
-      if (b.view && b.built) post({ kind: 'built', rev: m.rev, view: b.view, built: b.built });
+      if (b.view) post({ kind: 'built', rev: m.rev, view: b.view });
       else post({ kind: 'unbuilt', rev: m.rev, diagnostics: b.diagnostics });
       return;
     }
     case 'check': {
-      const c = checkJob(m.built, m.seed);
+      const a = analyse(m.text, m.file);
+      const b = a.ok ? buildJob(a, m.settings) : undefined;
+      if (!b?.built) {
+        post({ kind: 'fault', rev: m.rev, message: 'the machine built for the page did not build again for its checks' });
+        return;
+      }
+      const c = checkJob(b.built, m.settings.seed);
       checked = { rev: m.rev, built: c.built };
       post({ kind: 'checked', rev: m.rev, view: c.view });
       return;

@@ -15,6 +15,8 @@ import { fileURLToPath } from 'node:url';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { analyse, buildMachine } from '../../src/core/pipeline.js';
 import { formatDiagnostic } from '../../src/core/model/diagnostics.js';
+import { readMachine } from '../../src/core/forms/detect.js';
+import { printTextMachine } from '../../src/core/forms/text.js';
 import { runAbstract } from '../../src/core/sim/abstract.js';
 import { createRunner } from '../../src/core/sim/runner.js';
 import { isAlarm, timingOf } from '../../src/core/sim/part.js';
@@ -73,6 +75,12 @@ describe('src/web (end to end in chromium)', () => {
     expect(await editor().inputValue()).toBe(EXAMPLE);
     await expect(page.locator('lw-diagram g.node').count()).resolves.toBe(4);
     await shot('sketch');
+  });
+
+  it('jumps from a state in the sketch to its line in the text', async () => {
+    await page.locator('lw-diagram g.node[data-state="two"]').click();
+    const caret = await editor().evaluate((t: HTMLTextAreaElement) => t.value.slice(0, t.selectionStart).split('\n').length);
+    expect(caret).toBe(EXAMPLE.split('\n').indexOf('state two') + 1);
   });
 
   it('marks a typed error at its line with the command line wording, and clears it when fixed', async () => {
@@ -213,6 +221,22 @@ describe('src/web (end to end in chromium)', () => {
     await p2.getByRole('tab', { name: 'Sketch' }).click();
     await p2.screenshot({ path: join(SHOTS, 'sketch-dark.png') });
     await other.close();
+  });
+
+  it('opens an xstate configuration as the text form, keeping the earlier machine to bring back', async () => {
+    const before = await editor().inputValue();
+    const config = { id: 'gate', initial: 'shut', states: { shut: { on: { push: 'open' } }, open: { on: { push: 'shut', lock: 'locked' } }, locked: { on: { key: 'shut' } } } };
+    const json = JSON.stringify(config);
+    await page.locator('lw-bench input[type=file]').setInputFiles({ name: 'gate.json', mimeType: 'application/json', buffer: Buffer.from(json) });
+    await expect(page.locator('lw-bench .notice').innerText()).resolves.toContain('Read gate.json (an xstate configuration)');
+    await built();
+    const opened = await editor().inputValue();
+    const ref = readMachine(json, 'gate.json');
+    if (!ref.machine) throw new Error('the configuration must read');
+    expect(opened).toBe(printTextMachine(ref.machine));
+    await page.getByRole('button', { name: 'Bring back the earlier machine' }).click();
+    await built();
+    expect(await editor().inputValue()).toBe(before);
   });
 
   it('stops a running encoding search when asked', async () => {

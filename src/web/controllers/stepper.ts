@@ -55,6 +55,7 @@ export class StepperController implements ReactiveController {
     this.steps = [];
     this.clocks = 0;
     this.runner = build && profile ? createRunner(build, timingOf(profile)) : undefined;
+    this.reading = this.runner?.reading();
     if (this.runner) {
       this.samples.push({ action: 'power up', clock: 0, reading: this.runner.reading() });
       this.reset();
@@ -62,9 +63,8 @@ export class StepperController implements ReactiveController {
     this.host.requestUpdate();
   }
 
-  get reading(): PartReading | undefined {
-    return this.runner?.reading();
-  }
+  /** The machine as it stands (read again after every step). */
+  reading: PartReading | undefined;
 
   /** Move an input lever (1 = pulled). */
   setInput(input: string, value: 0 | 1): void {
@@ -97,6 +97,7 @@ export class StepperController implements ReactiveController {
     const n = this.steps.length;
     this.alarms = this.alarms.filter((a) => a.step < n);
     if (s.clocked) this.clocks--;
+    this.reading = this.runner.reading();
     this.host.requestUpdate();
     return true;
   }
@@ -167,6 +168,7 @@ export class StepperController implements ReactiveController {
     }
     if (clocked) this.clocks++;
     this.steps.push({ label, acts: actions.length, clocked });
+    this.reading = r.reading();
     // New arrays, so the elements drawing them see a change.
     this.samples = [...this.samples];
     this.alarms = [...this.alarms];

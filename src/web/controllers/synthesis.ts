@@ -192,7 +192,8 @@ export class SynthesisController implements ReactiveController {
         this.onBuilt(m.view);
         // The checker's current work, if any, is for an older build.
         if (!this.checker.idle) this.checker.restart();
-        this.checker.send({ kind: 'check', rev: m.rev, built: m.built, seed: this.settings.seed });
+        // The checker builds again with the codes the builder chose, so a code search is not repeated.
+        this.checker.send({ kind: 'check', rev: m.rev, text: this.text, file: this.file, settings: { ...this.settings, encoding: { kept: m.view.build.encoding } } });
         break;
       case 'unbuilt':
         this.buildProblems = m.diagnostics;

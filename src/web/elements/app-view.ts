@@ -2,6 +2,16 @@
 import type { Reading, BuildView } from '../worker/protocol.js';
 import { Search, Work, type SynthesisController } from '../controllers/synthesis.js';
 
+/** A function that returns its last result while its arguments are the same (by identity). */
+export function remember<A extends readonly unknown[], R>(fn: (...args: A) => R): (...args: A) => R {
+  let last: { args: A; result: R } | undefined;
+  return (...args: A): R => {
+    if (last && last.args.length === args.length && last.args.every((a, i) => a === args[i])) return last.result;
+    last = { args, result: fn(...args) };
+    return last.result;
+  };
+}
+
 /** The views, in our own workshop words. */
 export const VIEWS = [
   { id: 'sketch', label: 'Sketch' },

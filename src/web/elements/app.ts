@@ -17,7 +17,8 @@ import type { EncodingChoice } from '../worker/protocol.js';
 import type { HandAction } from '../../core/sim/hand.js';
 import { shared } from '../styles/shared.js';
 import { appStyles } from './app-styles.js';
-import { VIEWS, codesByState, litStates, statusWords, type ViewId } from './app-view.js';
+import { VIEWS, codesByState, litStates, remember, statusWords, type ViewId } from './app-view.js';
+import type { Diagnostic } from '../../core/model/diagnostics.js';
 import type { LwBench } from './bench.js';
 import './bench.js';
 import './diagram.js';
@@ -35,6 +36,13 @@ export class LwApp extends LitElement {
   private readonly stepper = new StepperController(this);
   private readonly synth = new SynthesisController(this, (v) => this.stepper.follow(v.build, v.profile));
   private readonly source = new SourceController(this, (text, file) => this.synth.submit(text, file));
+  // Derived values keep their identity while their inputs do, so elements redraw only on change.
+  private readonly problems = remember((a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[]): readonly Diagnostic[] => [...(a ?? []), ...b]);
+  private readonly warnings = remember((a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[] | undefined): readonly Diagnostic[] =>
+    [...(a ?? []), ...(b ?? [])].filter((d) => d.severity === 'warning'),
+  );
+  private readonly codes = remember(codesByState);
+  private readonly lit = remember(litStates);
   private view: ViewId = (VIEWS.find((v) => v.id === keepGet('view'))?.id ?? 'sketch') as ViewId;
 
   override connectedCallback(): void {
@@ -50,7 +58,7 @@ export class LwApp extends LitElement {
   override render() {
     const s = this.synth;
     const reading = s.reading;
-    const diagnostics = [...(reading?.diagnostics ?? []), ...s.buildProblems];
+    const diagnostics = this.problems(reading?.diagnostics, s.buildProblems);
     const status = statusWords(s);
     return html`<header>
         <h1><span class="mark" aria-hidden="true"></span>Latchwright <span class="soft">lever machine designer</span></h1>
@@ -109,17 +117,17 @@ export class LwApp extends LitElement {
     const stale = s.reading !== undefined && !s.reading.ok;
     const r = s.good;
     const b = s.built;
-    const codes = codesByState(r, b);
+    const codes = this.codes(r, b);
     const note = stale && r ? html`<p class="stale" role="note">Showing the last version that read without errors; fix the problems on the bench to update.</p>` : nothing;
     switch (this.view) {
       case 'sketch':
         return r?.layout
-          ? html`${note}<lw-diagram class=${stale ? 'stale' : ''} .layout=${r.layout} .codes=${codes} .lit=${litStates(r, this.stepper.reading?.state ?? null)} @reveal=${this.onReveal}></lw-diagram>`
+          ? html`${note}<lw-diagram class=${stale ? 'stale' : ''} .layout=${r.layout} .codes=${codes} .lit=${this.lit(r, this.stepper.reading?.state ?? null)} @reveal=${this.onReveal}></lw-diagram>`
           : html`<p class="soft">The sketch appears when the machine reads without errors.</p>`;
       case 'ledger':
         return html`${note}<lw-state-table
           .machine=${r?.machine}
-          ?frozen=${stale}
+          ?frozen=${stale || s.work === Work.reading}
           .text=${this.source.text}
           .codes=${codes}
           .merged=${r?.merged ?? {}}
@@ -143,7 +151,7 @@ export class LwApp extends LitElement {
           .built=${b}
           .checks=${s.checks && s.shown.checks === s.shown.built ? s.checks : undefined}
           .schematic=${s.shown.schematic === s.shown.built ? s.schematic : undefined}
-          .warnings=${[...(r?.diagnostics ?? []), ...(b?.diagnostics ?? [])].filter((d) => d.severity === 'warning')}
+          .warnings=${this.warnings(r?.diagnostics, b?.diagnostics)}
           ?checking=${s.work === Work.checking}
           ?exportable=${s.work === Work.done}
           @export=${this.onExport}

@@ -185,9 +185,13 @@ export class LwEditor extends LitElement {
   protected override updated(changed: PropertyValues<this>): void {
     if (changed.has('text')) {
       const t = this.area;
-      // Keep the browser's own value (and so its undo history) when it already matches.
-      if (t && t.value !== this.text) t.value = this.text;
-      this.onScroll();
+      // Keep the browser's own value (and so its undo history) when it already matches. Only a
+      // text put in from outside moves the view; typing scrolls the textarea itself, which
+      // fires its scroll event (syncing here would force a layout on every keystroke).
+      if (t && t.value !== this.text) {
+        t.value = this.text;
+        this.onScroll();
+      }
     }
   }
 

@@ -19,7 +19,7 @@ export class LwStateTable extends LitElement {
     merged: { attribute: false },
     frozen: { type: Boolean },
   };
-  /** The machine shown is not the text's current version: no edits from here. */
+  /** The machine shown is not (yet) the text's current version: edits wait. */
   declare frozen: boolean;
   declare machine: Machine | undefined;
   declare text: string;
@@ -77,7 +77,7 @@ export class LwStateTable extends LitElement {
   override render() {
     const m = this.machine;
     if (!m) return html`<p class="soft">The ledger fills in when the machine reads without errors.</p>`;
-    const editable = m.loc?.line !== undefined && !this.frozen;
+    const editable = m.loc?.line !== undefined;
     return html`<table aria-label="State ledger">
         <thead>
           <tr>
@@ -95,16 +95,15 @@ export class LwStateTable extends LitElement {
       </table>
       ${editable
         ? html`<form class="add" @submit=${this.onAddState}>
-            <label>New state <input name="name" required pattern="[A-Za-z_][A-Za-z0-9_]*" aria-label="Name of the new state" /></label>
-            <button type="submit">Add state</button>
+            <label>New state <input name="name" ?disabled=${this.frozen} required pattern="[A-Za-z_][A-Za-z0-9_]*" aria-label="Name of the new state" /></label>
+            <button type="submit" ?disabled=${this.frozen}>Add state</button>
           </form>`
-        : this.frozen
-          ? nothing
-          : html`<p class="soft">This machine is not in the text form, so the ledger is read-only.</p>`}`;
+        : html`<p class="soft">This machine is not in the text form, so the ledger is read-only.</p>`}`;
   }
 
   private stateRows(m: Machine, s: State, editable: boolean) {
-    const span = s.transitions.length + 1 + (editable ? 1 : 0);
+    const covered = s.transitions.some((t) => t.when.text === '1');
+    const span = s.transitions.length + (covered ? 0 : 1) + (editable ? 1 : 0);
     const into = this.merged[s.name];
     const first = html`<td class="state" rowspan=${span}>
         <button class="link" @click=${() => emit(this, 'reveal', { line: s.loc?.line ?? 1, column: s.loc?.column ?? 1 })} aria-label=${`Show state ${s.name} in the text`}>
@@ -115,13 +114,16 @@ export class LwStateTable extends LitElement {
       <td class="mono" rowspan=${span}>${this.codes[s.name] ?? s.code ?? '—'}</td>
       <td class="mono" rowspan=${span}>${outputWords(s.outputs, m.outputs) || '—'}</td>`;
     const rows = s.transitions.map((t, i) => html`<tr>${i === 0 ? first : nothing}${this.transitionCells(m, t, i, editable)}</tr>`);
-    const rest = m.unspecified === 'hold' ? 'stay here' : 'anywhere (free)';
-    rows.push(html`<tr class="otherwise">
-      ${s.transitions.length === 0 ? first : nothing}
-      <td>${s.transitions.length === 0 ? 'always' : 'anything else'}</td>
-      <td>${rest}</td>
-      <td></td>
-    </tr>`);
+    // The unspecified rule's row, unless an unguarded transition leaves nothing to it.
+    if (!covered) {
+      const rest = m.unspecified === 'hold' ? 'stay here' : 'anywhere (free)';
+      rows.push(html`<tr class="otherwise">
+        ${s.transitions.length === 0 ? first : nothing}
+        <td>${s.transitions.length === 0 ? 'always' : 'anything else'}</td>
+        <td>${rest}</td>
+        <td></td>
+      </tr>`);
+    }
     if (editable) rows.push(html`<tr><td colspan="3">${this.adder(m, s)}</td></tr>`);
     return rows;
   }
@@ -132,6 +134,7 @@ export class LwStateTable extends LitElement {
         ${editable
           ? html`<input
               class="guard"
+              ?disabled=${this.frozen}
               .value=${guard}
               placeholder=${i === 0 ? 'always' : 'otherwise'}
               aria-label=${`Guard of transition ${i + 1} to ${t.to}`}
@@ -141,7 +144,7 @@ export class LwStateTable extends LitElement {
       </td>
       <td>
         ${editable
-          ? html`<select aria-label=${`Target of transition ${i + 1}`} @change=${(e: Event) => this.send(retarget(this.text, t, (e.target as HTMLSelectElement).value))}>
+          ? html`<select ?disabled=${this.frozen} aria-label=${`Target of transition ${i + 1}`} @change=${(e: Event) => this.send(retarget(this.text, t, (e.target as HTMLSelectElement).value))}>
               ${m.states.map((s) => html`<option ?selected=${s.name === t.to} value=${s.name}>${s.name}</option>`)}
             </select>`
           : t.to}
@@ -159,11 +162,11 @@ export class LwStateTable extends LitElement {
         this.send(addTransition(this.text, s, String(f.get('to')), String(f.get('when') ?? '')));
       }}
     >
-      <input name="when" placeholder="when (always)" aria-label=${`Guard of a new transition from ${s.name}`} class="guard" />
-      <select name="to" aria-label=${`Target of a new transition from ${s.name}`}>
+      <input name="when" ?disabled=${this.frozen} placeholder="when (always)" aria-label=${`Guard of a new transition from ${s.name}`} class="guard" />
+      <select name="to" ?disabled=${this.frozen} aria-label=${`Target of a new transition from ${s.name}`}>
         ${m.states.map((x) => html`<option value=${x.name}>${x.name}</option>`)}
       </select>
-      <button type="submit" aria-label=${`Add a transition from ${s.name}`}>Add</button>
+      <button type="submit" ?disabled=${this.frozen} aria-label=${`Add a transition from ${s.name}`}>Add</button>
     </form>`;
   }
 

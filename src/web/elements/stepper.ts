@@ -56,11 +56,11 @@ export class LwStepper extends LitElement {
       }
       kbd {
         font: 0.72rem var(--lw-mono);
-        border: 1px solid var(--lw-line);
+        border: 1px solid currentColor;
         border-radius: 3px;
         padding: 0 0.25rem;
         margin-left: 0.3rem;
-        color: var(--lw-ink-soft);
+        opacity: 0.75;
       }
       .readout {
         display: flex;
@@ -127,7 +127,7 @@ export class LwStepper extends LitElement {
         ${this.alarms.length === 0
           ? html`<p class="soft" role="log">None: every operating rule kept so far.</p>`
           : html`<ul class="alarms" role="log" aria-live="polite">
-              ${[...this.alarms].reverse().map((a) => html`<li class=${a.latch ? 'latch' : ''} data-kind=${a.kind}>Step ${a.step + 1}: ${a.words}</li>`)}
+              ${[...this.alarms].sort((a, b) => b.step - a.step).map((a) => html`<li class=${a.latch ? 'latch' : ''} data-kind=${a.kind}>Step ${a.step + 1}: ${a.words}</li>`)}
             </ul>`}
       </section>
       <section class="panel" aria-label="Lever positions"><lw-lever-bank .reading=${r}></lw-lever-bank></section>

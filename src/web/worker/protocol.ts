@@ -1,7 +1,8 @@
 /**
  * Messages between the page and the synthesis workers. Everything crossing is plain data
- * (structured clone). A finished build crosses whole (`built`), because the page hands it on
- * from the worker that builds to the worker that checks.
+ * (structured clone), and as little as the page needs: the worker that checks builds the
+ * machine again from the text (the same text and settings give the same build) rather than
+ * have a whole build copied through the page's thread.
  *
  * A page revision (`rev`) travels with every job and every answer: the page drops answers for
  * a revision it has moved past, and the worker skips stages of a job a newer one replaced.
@@ -18,7 +19,6 @@ import type { Profile } from '../../core/physics/profile.js';
 import type { RuleViolation } from '../../core/checks/forbidden-input.js';
 import type { TimingResult } from '../../core/checks/timing.js';
 import type { DiagramLayout } from '../diagram/layout.js';
-import type { Built } from '../../core/pipeline.js';
 
 /** Codes chosen in the code book: a named strategy, or exact codes kept from a comparison. */
 export type EncodingChoice = { readonly strategy: EncodeStrategy } | { readonly kept: Encoding };
@@ -108,14 +108,14 @@ export interface ExportFile {
 export type ToWorker =
   | { readonly kind: 'read'; readonly rev: number; readonly text: string; readonly file: string }
   | { readonly kind: 'build'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
-  | { readonly kind: 'check'; readonly rev: number; readonly built: Built; readonly seed: number }
+  | { readonly kind: 'check'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
   | { readonly kind: 'compare'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
   | { readonly kind: 'draw'; readonly rev: number }
   | { readonly kind: 'export'; readonly rev: number; readonly doc: string };
 
 export type FromWorker =
   | { readonly kind: 'reading'; readonly rev: number; readonly reading: Reading }
-  | { readonly kind: 'built'; readonly rev: number; readonly view: BuildView; readonly built: Built }
+  | { readonly kind: 'built'; readonly rev: number; readonly view: BuildView }
   | { readonly kind: 'unbuilt'; readonly rev: number; readonly diagnostics: readonly Diagnostic[] }
   | { readonly kind: 'checked'; readonly rev: number; readonly view: ChecksView }
   | { readonly kind: 'schematic'; readonly rev: number; readonly svg?: string; readonly problem?: string }

@@ -267,3 +267,26 @@ export function absorbFull(sp: Space, cubes: readonly BCube[]): BCube[] {
   }
   return out;
 }
+
+/**
+ * Espresso's cube weights ("mini_sort"): for each cube, the sum over its set bits of how many
+ * cubes of the list share that bit. Light cubes are small and isolated; heavy ones are large
+ * and crowded.
+ */
+export function cubeWeights(sp: Space, F: readonly BCube[]): number[] {
+  const W = sp.w;
+  const colCount = new Int32Array(W * 32);
+  for (const c of F)
+    for (let k = 0; k < W; k++) {
+      let x = c[k];
+      while (x !== 0) { colCount[k * 32 + 31 - Math.clz32(x & -x)]++; x &= x - 1; }
+    }
+  return F.map((c) => {
+    let s = 0;
+    for (let k = 0; k < W; k++) {
+      let x = c[k];
+      while (x !== 0) { s += colCount[k * 32 + 31 - Math.clz32(x & -x)]; x &= x - 1; }
+    }
+    return s;
+  });
+}

@@ -50,23 +50,31 @@ export function solveCover(p: CoverProblem, nodeLimit = Infinity, upperBound = I
 
 class Solver {
   private readonly nr: number;
+  private readonly nc: number;
   private readonly rw: number;
+  /** Per column: its rows as a bitset. */
   private readonly colBits: Uint32Array[];
-  private rowCols: number[][];
+  /** Per row: every column covering it (dead ones are skipped through `alive`). */
+  private readonly rowCols: number[][];
+  /** Per group: how many chosen columns use it (a group is paid for while > 0). */
   private readonly opened: Int32Array;
   private readonly stamp: Int32Array;
+  private readonly colStamp: Int32Array;
   private stampGen = 0;
-  private best = Infinity;
+  private best: number;
   private bestCols: number[] = [];
+  private found = false;
   private nodes = 0;
   private aborted = false;
   private readonly chosen: number[] = [];
-  private rowOrder: number[] = [];
-  /** Columns not removed by dominance (rows dropped by row dominance assume only these). */
-  private readonly alive: Uint8Array;
+  /** One column per group: the plain unate covering problem. */
+  private readonly unate: boolean;
+  /** Every cost an integer, so bounds may round up. */
+  private readonly integral: boolean;
 
   constructor(private readonly p: CoverProblem, private readonly nodeLimit: number, private readonly upperBound: number) {
     this.nr = p.rowCount;
+    this.nc = p.columns.length;
     this.rw = (this.nr + 31) >>> 5;
     this.colBits = p.columns.map((c) => {
       const b = new Uint32Array(this.rw);
@@ -77,31 +85,37 @@ class Solver {
     p.columns.forEach((c, ci) => { for (const r of c.rows) this.rowCols[r].push(ci); });
     this.opened = new Int32Array(p.groupCost.length);
     this.stamp = new Int32Array(p.groupCost.length);
-    this.alive = new Uint8Array(p.columns.length).fill(1);
+    this.colStamp = new Int32Array(this.nc);
+    this.best = upperBound;
+    const perGroup = new Int32Array(p.groupCost.length);
+    for (const c of p.columns) perGroup[c.group]++;
+    this.unate = perGroup.every((n) => n <= 1);
+    this.integral = p.columns.every((c) => Number.isInteger(c.cost)) && p.groupCost.every((g) => Number.isInteger(g));
   }
 
   run(): CoverSolution | null {
     const unc = new Uint32Array(this.rw);
-    for (let r = 0; r < this.nr; r++) unc[r >>> 5] |= 1 << (r & 31);
-    for (let r = 0; r < this.nr; r++)
+    for (let r = 0; r < this.nr; r++) {
       if (this.rowCols[r].length === 0) throw new Error('covering problem has a row no column covers');
-    let cost = this.reduce(unc);
-    const fixed = this.chosen.slice();
-    const greedy = this.greedy(unc);
-    this.best = cost + greedy.cost;
-    this.bestCols = fixed.concat(greedy.cols);
-    let found = this.best < this.upperBound;
-    if (!found) this.best = this.upperBound;
-    this.rowOrder = [];
-    for (let r = 0; r < this.nr; r++) if (unc[r >>> 5] & (1 << (r & 31))) this.rowOrder.push(r);
-    this.rowOrder.sort((a, b) => this.rowCols[a].length - this.rowCols[b].length || a - b);
-    const before = this.best;
-    this.search(unc, cost);
-    if (this.best < before) found = true;
-    if (!found) return null;
+      unc[r >>> 5] |= 1 << (r & 31);
+    }
+    const alive = new Uint8Array(this.nc).fill(1);
+    const greedy = this.greedy(unc, alive);
+    if (greedy.cost < this.best) {
+      this.best = greedy.cost;
+      this.bestCols = greedy.cols;
+      this.found = true;
+    }
+    this.search(unc, alive, 0);
+    if (!this.found) return null;
     return { columns: this.bestCols.slice().sort((a, b) => a - b), cost: this.best, optimal: !this.aborted };
   }
 
+  private isUnc(unc: Uint32Array, r: number): boolean {
+    return (unc[r >>> 5] & (1 << (r & 31))) !== 0;
+  }
+
+  /** Cost of adding column ci now. */
   private inc(ci: number): number {
     const c = this.p.columns[ci];
     return c.cost + (this.opened[c.group] > 0 ? 0 : this.p.groupCost[c.group]);
@@ -114,6 +128,12 @@ class Solver {
     this.chosen.push(ci);
   }
 
+  private untake(): void {
+    const ci = this.chosen.pop()!;
+    this.opened[this.p.columns[ci].group]--;
+  }
+
+  /** Uncovered rows of column ci. */
   private covers(ci: number, unc: Uint32Array): number {
     const b = this.colBits[ci];
     let n = 0;
@@ -124,70 +144,7 @@ class Solver {
     return n;
   }
 
-  /** Essential columns, row dominance and sound column dominance, to a fixed point. */
-  private reduce(unc: Uint32Array): number {
-    let cost = 0;
-    const alive = this.alive;
-    const isUnc = (r: number): boolean => (unc[r >>> 5] & (1 << (r & 31))) !== 0;
-    for (let changed = true; changed; ) {
-      changed = false;
-      for (let r = 0; r < this.nr; r++) {
-        if (!isUnc(r)) continue;
-        const live = this.rowCols[r].filter((c) => alive[c]);
-        if (live.length === 1) {
-          cost += this.inc(live[0]);
-          this.take(live[0], unc);
-          changed = true;
-        }
-      }
-      // Column dominance: a's rows within b's, and b can never cost more than a would.
-      const groupLive = new Int32Array(this.p.groupCost.length);
-      this.p.columns.forEach((c, ci) => { if (alive[ci] && this.covers(ci, unc) > 0) groupLive[c.group]++; });
-      for (let a = 0; a < this.p.columns.length; a++) {
-        if (!alive[a]) continue;
-        const ca = this.p.columns[a];
-        const rowsA = ca.rows.filter(isUnc);
-        if (rowsA.length === 0) { alive[a] = 0; changed = true; continue; }
-        const solo = groupLive[ca.group] === 1 && this.opened[ca.group] === 0;
-        const bestA = ca.cost + (solo ? this.p.groupCost[ca.group] : 0);
-        let pivot = rowsA[0];
-        for (const r of rowsA) if (this.rowCols[r].length < this.rowCols[pivot].length) pivot = r;
-        for (const b of this.rowCols[pivot]) {
-          if (b === a || !alive[b]) continue;
-          const cb = this.p.columns[b];
-          const worstB = cb.cost + (this.opened[cb.group] > 0 ? 0 : this.p.groupCost[cb.group]);
-          if (worstB > bestA || (worstB === bestA && b > a && this.subset(b, a, unc))) continue;
-          if (!this.subset(a, b, unc)) continue;
-          alive[a] = 0;
-          groupLive[ca.group]--;
-          changed = true;
-          break;
-        }
-      }
-      // Row dominance: a row whose live columns include another row's is implied by it.
-      // A dominated row r holds every column of its dominator s, so it lies in the rows of
-      // the column of s with fewest rows: only those are candidates.
-      const live = this.rowCols.map((cs) => cs.filter((c) => alive[c]));
-      const liveSets = live.map((cs) => new Set(cs));
-      for (let s = 0; s < this.nr; s++) {
-        if (!isUnc(s) || live[s].length === 0) continue;
-        let pivot = live[s][0];
-        for (const c of live[s]) if (this.p.columns[c].rows.length < this.p.columns[pivot].rows.length) pivot = c;
-        for (const r of this.p.columns[pivot].rows) {
-          if (r === s || !isUnc(r) || live[s].length > live[r].length) continue;
-          if (live[s].length === live[r].length && s > r) continue;
-          if (live[s].every((c) => liveSets[r].has(c))) {
-            unc[r >>> 5] &= ~(1 << (r & 31));
-            changed = true;
-          }
-        }
-      }
-      this.rowCols = live;
-    }
-    return cost;
-  }
-
-  /** Uncovered rows of column a all in column b? */
+  /** Are the uncovered rows of column a all in column b? */
   private subset(a: number, b: number, unc: Uint32Array): boolean {
     const x = this.colBits[a];
     const y = this.colBits[b];
@@ -195,8 +152,95 @@ class Solver {
     return true;
   }
 
+  private live(r: number, alive: Uint8Array): number[] {
+    return this.rowCols[r].filter((c) => alive[c] === 1);
+  }
+
+  /**
+   * Essential columns, column dominance and row dominance on the current table, to a fixed
+   * point (Quine–McCluskey's cyclic-core reduction, redone at every node). Mutates unc and
+   * alive; returns the cost added and how many columns it took, or -1 when a row is left
+   * with no column.
+   */
+  private reduce(unc: Uint32Array, alive: Uint8Array): { cost: number; taken: number } | null {
+    let cost = 0;
+    let taken = 0;
+    const cols = this.p.columns;
+    for (let changed = true; changed; ) {
+      changed = false;
+      for (let r = 0; r < this.nr; r++) {
+        if (!this.isUnc(unc, r)) continue;
+        let only = -1;
+        let n = 0;
+        for (const c of this.rowCols[r]) if (alive[c] === 1) { n++; only = c; if (n > 1) break; }
+        if (n === 0) return null;
+        if (n === 1) {
+          cost += this.inc(only);
+          this.take(only, unc);
+          taken++;
+          changed = true;
+        }
+      }
+      // Column dominance: a's rows within b's, and b can never cost more than a would.
+      const groupLive = new Int32Array(this.p.groupCost.length);
+      for (let ci = 0; ci < this.nc; ci++) {
+        if (alive[ci] === 0) continue;
+        if (this.covers(ci, unc) === 0) { alive[ci] = 0; continue; }
+        groupLive[cols[ci].group]++;
+      }
+      for (let a = 0; a < this.nc; a++) {
+        if (alive[a] === 0) continue;
+        const ca = cols[a];
+        const solo = groupLive[ca.group] === 1 && this.opened[ca.group] === 0;
+        const bestA = ca.cost + (solo ? this.p.groupCost[ca.group] : 0);
+        let pivot = -1;
+        let pivotN = Infinity;
+        for (const r of ca.rows) {
+          if (!this.isUnc(unc, r)) continue;
+          const n = this.rowCols[r].length;
+          if (n < pivotN) { pivotN = n; pivot = r; }
+        }
+        for (const b of this.rowCols[pivot]) {
+          if (b === a || alive[b] === 0) continue;
+          const cb = cols[b];
+          const worstB = cb.cost + (this.opened[cb.group] > 0 ? 0 : this.p.groupCost[cb.group]);
+          if (worstB > bestA) continue;
+          if (!this.subset(a, b, unc)) continue;
+          // Equal columns at equal cost: keep the lower index.
+          if (worstB === bestA && b > a && this.subset(b, a, unc)) continue;
+          alive[a] = 0;
+          groupLive[ca.group]--;
+          changed = true;
+          break;
+        }
+      }
+      // Row dominance: a row holding every live column of another row is implied by it.
+      for (let s = 0; s < this.nr; s++) {
+        if (!this.isUnc(unc, s)) continue;
+        const ls = this.live(s, alive);
+        if (ls.length === 0) return null;
+        let pivot = ls[0];
+        for (const c of ls) if (cols[c].rows.length < cols[pivot].rows.length) pivot = c;
+        for (const r of cols[pivot].rows) {
+          if (r === s || !this.isUnc(unc, r)) continue;
+          let inAll = true;
+          for (const c of ls) if ((this.colBits[c][r >>> 5] & (1 << (r & 31))) === 0) { inAll = false; break; }
+          if (!inAll) continue;
+          // r holds all of s's columns; if s also holds all of r's, drop only the later one.
+          if (r < s) {
+            const lr = this.live(r, alive);
+            if (lr.length === ls.length) continue;
+          }
+          unc[r >>> 5] &= ~(1 << (r & 31));
+          changed = true;
+        }
+      }
+    }
+    return { cost, taken };
+  }
+
   /** Cheapest cost per newly covered row, then drop columns made redundant. */
-  private greedy(start: Uint32Array): { cols: number[]; cost: number } {
+  private greedy(start: Uint32Array, alive: Uint8Array): { cols: number[]; cost: number } {
     const unc = start.slice();
     const saved = this.opened.slice();
     const picked: number[] = [];
@@ -204,8 +248,8 @@ class Solver {
     while (count() > 0) {
       let bestCol = -1;
       let bestRatio = Infinity;
-      for (let ci = 0; ci < this.p.columns.length; ci++) {
-        if (!this.alive[ci]) continue;
+      for (let ci = 0; ci < this.nc; ci++) {
+        if (alive[ci] === 0) continue;
         const n = this.covers(ci, unc);
         if (n === 0) continue;
         const ratio = this.inc(ci) / n;
@@ -216,7 +260,6 @@ class Solver {
       this.opened[this.p.columns[bestCol].group]++;
       picked.push(bestCol);
     }
-    // Redundancy removal, most expensive first.
     const keep = new Set(picked);
     for (const ci of [...picked].sort((a, b) => this.p.columns[b].cost - this.p.columns[a].cost || b - a)) {
       keep.delete(ci);
@@ -239,53 +282,104 @@ class Solver {
     return { cols, cost };
   }
 
-  /** Lower bound on the cost still to pay: rows sharing no group need separate groups. */
-  private lowerBound(unc: Uint32Array): number {
-    this.stampGen++;
+  /**
+   * Lower bound on the cost still to pay. Rows sharing no group need distinct groups, so
+   * their cheapest columns add up; further rows sharing no column with any counted row still
+   * need a column (a cord branch) each, whose own cost adds up too. Rows are taken fewest
+   * columns first, which tends to give larger independent sets.
+   */
+  private lowerBound(unc: Uint32Array, alive: Uint8Array, order: readonly number[]): number {
+    const gen = ++this.stampGen;
+    const cols = this.p.columns;
     let lb = 0;
-    for (const r of this.rowOrder) {
-      if ((unc[r >>> 5] & (1 << (r & 31))) === 0) continue;
-      const cols = this.rowCols[r];
+    const rest: number[] = [];
+    for (const r of order) {
       let free = true;
-      for (const ci of cols) if (this.stamp[this.p.columns[ci].group] === this.stampGen) { free = false; break; }
-      if (!free) continue;
+      for (const ci of this.rowCols[r]) if (alive[ci] === 1 && this.stamp[cols[ci].group] === gen) { free = false; break; }
+      if (!free) { rest.push(r); continue; }
       let min = Infinity;
-      for (const ci of cols) {
-        this.stamp[this.p.columns[ci].group] = this.stampGen;
+      for (const ci of this.rowCols[r]) {
+        if (alive[ci] === 0) continue;
+        this.stamp[cols[ci].group] = gen;
+        this.colStamp[ci] = gen;
         const v = this.inc(ci);
         if (v < min) min = v;
       }
       lb += min;
     }
-    return lb;
+    for (const r of rest) {
+      let free = true;
+      for (const ci of this.rowCols[r]) if (alive[ci] === 1 && this.colStamp[ci] === gen) { free = false; break; }
+      if (!free) continue;
+      let min = Infinity;
+      for (const ci of this.rowCols[r]) {
+        if (alive[ci] === 0) continue;
+        this.colStamp[ci] = gen;
+        if (cols[ci].cost < min) min = cols[ci].cost;
+      }
+      lb += min;
+    }
+    if (!this.unate) return lb;
+    // With one column per group, each row also pays at least the cheapest share, per row
+    // covered, of a column covering it (the bound of the covering LP's dual).
+    let frac = 0;
+    for (const r of order) {
+      let min = Infinity;
+      for (const ci of this.rowCols[r]) {
+        if (alive[ci] === 0) continue;
+        const v = this.inc(ci) / this.covers(ci, unc);
+        if (v < min) min = v;
+      }
+      frac += min;
+    }
+    return Math.max(lb, this.integral ? Math.ceil(frac - 1e-9) : frac);
   }
 
-  private search(unc: Uint32Array, cost: number): void {
+  private search(unc0: Uint32Array, alive0: Uint8Array, cost0: number): void {
     if (this.aborted) return;
     if (++this.nodes > this.nodeLimit) { this.aborted = true; return; }
-    let pick = -1;
-    let fewest = Infinity;
-    for (const r of this.rowOrder) {
-      if ((unc[r >>> 5] & (1 << (r & 31))) === 0) continue;
-      const n = this.rowCols[r].length;
-      if (n < fewest) { fewest = n; pick = r; if (n <= 1) break; }
-    }
-    if (pick < 0) {
-      if (cost < this.best) { this.best = cost; this.bestCols = this.chosen.slice(); }
-      return;
-    }
-    if (cost + this.lowerBound(unc) >= this.best) return;
-    const options = this.rowCols[pick]
-      .map((ci) => ({ ci, inc: this.inc(ci), n: this.covers(ci, unc) }))
-      .sort((a, b) => a.inc / a.n - b.inc / b.n || a.inc - b.inc || a.ci - b.ci);
-    for (const o of options) {
-      if (cost + o.inc >= this.best) continue;
-      const next = unc.slice();
-      this.take(o.ci, next);
-      this.search(next, cost + o.inc);
-      this.chosen.pop();
-      this.opened[this.p.columns[o.ci].group]--;
-      if (this.aborted) return;
+    const unc = unc0.slice();
+    const alive = alive0.slice();
+    const mark = this.chosen.length;
+    try {
+      const red = this.reduce(unc, alive);
+      if (red === null) return;
+      const cost = cost0 + red.cost;
+      if (cost >= this.best) return;
+      const order: number[] = [];
+      const counts = new Int32Array(this.nr);
+      for (let r = 0; r < this.nr; r++) {
+        if (!this.isUnc(unc, r)) continue;
+        let n = 0;
+        for (const c of this.rowCols[r]) if (alive[c] === 1) n++;
+        counts[r] = n;
+        order.push(r);
+      }
+      if (order.length === 0) {
+        this.best = cost;
+        this.bestCols = this.chosen.slice();
+        this.found = true;
+        return;
+      }
+      order.sort((a, b) => counts[a] - counts[b] || a - b);
+      if (cost + this.lowerBound(unc, alive, order) >= this.best) return;
+      const options = this.live(order[0], alive)
+        .map((ci) => ({ ci, inc: this.inc(ci), n: this.covers(ci, unc) }))
+        .sort((a, b) => a.inc / a.n - b.inc / b.n || a.inc - b.inc || a.ci - b.ci);
+      for (const o of options) {
+        if (cost + o.inc < this.best) {
+          const next = unc.slice();
+          this.take(o.ci, next);
+          this.search(next, alive, cost + o.inc);
+          this.untake();
+          if (this.aborted) return;
+        }
+        // Every cover using this column was searched in its branch: the later branches
+        // may leave it out.
+        alive[o.ci] = 0;
+      }
+    } finally {
+      while (this.chosen.length > mark) this.untake();
     }
   }
 }

@@ -12,15 +12,24 @@
  * Cost is the caller's: term + literal·(input literals) + connection·(functions fed).
  * Deterministic: every ordering is fixed (no random choices).
  *
- * Preconditions: F misses R; D does not meet the on-set; R holds single-function cubes.
+ * R is the boundary of EXPAND: the off-set as single-function cubes, or, when that would be
+ * too large, the on ∪ dc sets themselves (expansion by tautology checks).
+ *
+ * Preconditions: F misses the off-set; D does not meet the on-set.
  * Postcondition: the result covers the on-set F0 covered and misses R.
  */
 import { type BCube, type Space, inDistance, inDisjoint, outMeet, outCount, literals, outputsOf, hasOutput } from './bitcube.js';
 import { cubeCovered } from './unate.js';
-import { expandCover, expandCube, allowMask } from './expand.js';
+import { expandCover, expandCube, allowMask, type Boundary } from './expand.js';
 import { irredundantCover, byOutput } from './irredundant.js';
 import { reduceCover, reduceCube, lowerOutputs } from './reduce.js';
 import type { CoverCost } from './types.js';
+
+/**
+ * Passes at equal cost the loop still takes before LAST_GASP (Espresso stops at the first;
+ * one more, from the moved cover, finds a cheaper one now and then at little cost).
+ */
+const STALL = 1;
 
 /** Price of one multi-output cube. */
 export function cubeCost(sp: Space, c: BCube, cost: CoverCost): number {
@@ -34,7 +43,7 @@ function total(sp: Space, F: readonly BCube[], cost: CoverCost): number {
 }
 
 /** Minimise the cover F (on-set) with don't-cares D against off-set R. */
-export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R: readonly BCube[], cost: CoverCost): BCube[] {
+export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R: Boundary, cost: CoverCost): BCube[] {
   if (F0.length === 0) return [];
   const price = (c: BCube): number => cubeCost(sp, c, cost);
   const dc = byOutput(sp, D);
@@ -45,10 +54,13 @@ export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R
   const dc2 = byOutput(sp, [...D, ...E]);
   let best = F;
   let bestCost = total(sp, F, cost);
-  while (F.length > 0) {
-    F = irredundantCover(sp, expandCover(sp, reduceCover(sp, F, dc2), R), dc2, price);
+  // Espresso alternates the REDUCE order between passes.
+  let stall = 0;
+  for (let pass = 0; F.length > 0; pass++) {
+    F = irredundantCover(sp, expandCover(sp, reduceCover(sp, F, dc2, pass % 2 === 1), R), dc2, price);
     const c = total(sp, F, cost);
-    if (c < bestCost) { best = F; bestCost = c; continue; }
+    if (c < bestCost) { best = F; bestCost = c; stall = 0; continue; }
+    if (c === bestCost && ++stall <= STALL) continue;
     const g = lastGasp(sp, best, dc2, R, price);
     const cg = total(sp, g, cost);
     if (cg < bestCost) { best = g; bestCost = cg; F = g; continue; }
@@ -95,7 +107,7 @@ export function essentials(sp: Space, F: readonly BCube[], D: readonly BCube[]):
  * reduced cube aiming at the other reduced cubes, and keep the new cubes that swallow at
  * least one other; IRREDUNDANT decides whether they pay.
  */
-function lastGasp(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: readonly BCube[], price: (c: BCube) => number): BCube[] {
+function lastGasp(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: Boundary, price: (c: BCube) => number): BCube[] {
   const reduced: BCube[] = [];
   F.forEach((c) => {
     const r = reduceCube(sp, c, F, dc);
@@ -114,7 +126,7 @@ function lastGasp(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: rea
 }
 
 /** MAKE_SPARSE (Brayton et al. §4.7): fewer output connections, then larger input parts. */
-function makeSparse(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: readonly BCube[], cost: CoverCost): BCube[] {
+function makeSparse(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: Boundary, cost: CoverCost): BCube[] {
   let cur = F.slice();
   let curCost = total(sp, cur, cost);
   for (;;) {

@@ -14,7 +14,7 @@
  */
 import { type BCube, type Space, literals } from './bitcube.js';
 import { multiOutputPrimes } from './primes.js';
-import { solveCover, type CoverColumn } from './cover-exact.js';
+import { solveCover, type CoverColumn, type CoverProblem } from './cover-exact.js';
 import type { CoverCost } from './types.js';
 
 /** Hard limit on variables for the minterm-based table. */
@@ -88,14 +88,12 @@ export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allo
   if (rowCount === 0) return { terms: [], cost: 0, optimal: true };
   const primes = multiOutputPrimes(sp, allowed, limits.maxPrimes);
   if (primes === null) return null;
-  const columns: CoverColumn[] = [];
-  const columnOutput: number[] = [];
-  const groupCost: number[] = [];
-  const groupCube: BCube[] = [];
+  // Each prime's links: the functions it may feed and the rows each would cover.
+  const links: Link[] = [];
   for (const p of primes) {
     const [care, val] = careValue(sp, p.cube);
     const free = all & ~care;
-    const cols: CoverColumn[] = [];
+    const link = { cube: p.cube, lits: literals(sp, p.cube), outs: [] as number[], rows: [] as number[][] };
     for (const j of p.tag) {
       const rows: number[] = [];
       const ids = rowId[j];
@@ -106,30 +104,83 @@ export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allo
           if (s === 0) break;
         }
       } else for (const x of rowsOf[j]) if ((x & care) === val) rows.push(ids.get(x));
-      if (rows.length > 0) {
-        cols.push({ group: groupCost.length, cost: cost.connection, rows });
-        columnOutput.push(j);
-      }
+      if (rows.length > 0) { link.outs.push(j); link.rows.push(rows); }
     }
-    if (cols.length === 0) continue;
-    columns.push(...cols);
-    groupCost.push(cost.term + cost.literal * literals(sp, p.cube));
-    groupCube.push(p.cube);
+    if (link.outs.length > 0) links.push(link);
   }
-  const sol = solveCover({ rowCount, columns, groupCost }, limits.nodeLimit, limits.upperBound ?? Infinity);
+  const problem = subsetColumns(links, cost, rowCount) ?? fixedCharge(links, cost, rowCount);
+  const sol = solveCover(problem.cover, limits.nodeLimit, limits.upperBound ?? Infinity);
   if (sol === null) return null;
   const outs = new Map<number, number[]>();
   for (const ci of sol.columns) {
-    const col = columns[ci];
-    const j = columnOutput[ci];
-    const list = outs.get(col.group) ?? [];
-    list.push(j);
-    outs.set(col.group, list);
+    const [li, js] = problem.meaning[ci];
+    outs.set(li, [...(outs.get(li) ?? []), ...js]);
   }
   const terms = [...outs.entries()]
     .sort((a, b) => a[0] - b[0])
-    .map(([g, js]) => ({ cube: groupCube[g], outputs: js.sort((a, b) => a - b) }));
+    .map(([li, js]) => ({ cube: links[li].cube, outputs: [...new Set(js)].sort((a, b) => a - b) }));
   return { terms, cost: sol.cost, optimal: sol.optimal };
+}
+
+interface Link {
+  readonly cube: BCube;
+  readonly lits: number;
+  readonly outs: readonly number[];
+  readonly rows: readonly (readonly number[])[];
+}
+
+/** A covering problem and, per column, which prime (link index) it feeds to which functions. */
+interface Table {
+  readonly cover: CoverProblem;
+  readonly meaning: readonly (readonly [number, readonly number[]])[];
+}
+
+/** Most columns the subset form may have before the fixed-charge form is used instead. */
+const SUBSET_COLUMN_LIMIT = 4096;
+
+/**
+ * The plain unate form: one column per prime and per non-empty set S of functions it feeds,
+ * costing term + literals + |S|·connection. Exact (feeding one prime through two columns is
+ * never cheaper than through their union) and gives the solver full column dominance and a
+ * sharper bound; its size is exponential in the tag, so null past SUBSET_COLUMN_LIMIT.
+ */
+function subsetColumns(links: readonly Link[], cost: CoverCost, rowCount: number): Table | null {
+  let count = 0;
+  for (const l of links) {
+    if (l.outs.length > 12) return null;
+    count += 2 ** l.outs.length - 1;
+  }
+  if (count > SUBSET_COLUMN_LIMIT) return null;
+  const columns: CoverColumn[] = [];
+  const groupCost: number[] = [];
+  const meaning: [number, number[]][] = [];
+  links.forEach((l, li) => {
+    const base = cost.term + cost.literal * l.lits;
+    for (let mask = 1; mask < 1 << l.outs.length; mask++) {
+      const outs: number[] = [];
+      const rows: number[] = [];
+      l.outs.forEach((j, q) => { if (mask & (1 << q)) { outs.push(j); rows.push(...l.rows[q]); } });
+      columns.push({ group: groupCost.length, cost: 0, rows });
+      groupCost.push(base + cost.connection * outs.length);
+      meaning.push([li, outs]);
+    }
+  });
+  return { cover: { rowCount, columns, groupCost }, meaning };
+}
+
+/** The fixed-charge form: a group per prime (term + literals), a column per function fed. */
+function fixedCharge(links: readonly Link[], cost: CoverCost, rowCount: number): Table {
+  const columns: CoverColumn[] = [];
+  const groupCost: number[] = [];
+  const meaning: [number, number[]][] = [];
+  links.forEach((l, li) => {
+    l.outs.forEach((j, q) => {
+      columns.push({ group: li, cost: cost.connection, rows: l.rows[q] as number[] });
+      meaning.push([li, [j]]);
+    });
+    groupCost.push(cost.term + cost.literal * l.lits);
+  });
+  return { cover: { rowCount, columns, groupCost }, meaning };
 }
 
 /** Row number of each minterm of one function: a flat table for small n, else a map. */

@@ -13,28 +13,23 @@
  * Precondition: every cube of F misses R. Postcondition: every returned cube is prime (no
  * allowed bit can be raised without meeting R), and every cube of F lies in one of them.
  */
-import { type BCube, type Space, contains, popcount } from './bitcube.js';
+import { type BCube, type Space, contains, cubeWeights, popcount } from './bitcube.js';
+import { solveCover } from './cover-exact.js';
+import { expandWithin } from './expand-within.js';
 
-/** Expand every cube of F against the off-set R; `inputOnly` leaves output parts alone. */
-export function expandCover(sp: Space, F: readonly BCube[], R: readonly BCube[], inputOnly = false): BCube[] {
+/**
+ * What a cube may not grow into: the off-set R (single-function cubes), or — when the off-set
+ * would be too large to build — the allowed sets on_j ∪ dc_j, tested by tautology.
+ */
+export type Boundary = { readonly off: readonly BCube[] } | { readonly allowed: readonly (readonly BCube[])[] };
+
+/** Expand every cube of F within the boundary; `inputOnly` leaves output parts alone. */
+export function expandCover(sp: Space, F: readonly BCube[], bound: Boundary, inputOnly = false): BCube[] {
   const W = sp.w;
   const allow = allowMask(sp, inputOnly);
   // Espresso's ordering: light cubes (whose parts few other cubes share) first, since they
   // are the least likely to be covered by others.
-  const colCount = new Int32Array(W * 30);
-  for (const c of F)
-    for (let k = 0; k < W; k++) {
-      let x = c[k];
-      while (x !== 0) { colCount[k * 30 + 31 - Math.clz32(x & -x)]++; x &= x - 1; }
-    }
-  const weight = F.map((c) => {
-    let s = 0;
-    for (let k = 0; k < W; k++) {
-      let x = c[k];
-      while (x !== 0) { s += colCount[k * 30 + 31 - Math.clz32(x & -x)]; x &= x - 1; }
-    }
-    return s;
-  });
+  const weight = cubeWeights(sp, F);
   const order = F.map((_, i) => i).sort((a, b) => weight[a] - weight[b] || a - b);
   const covered = new Uint8Array(F.length);
   const out: BCube[] = [];
@@ -43,7 +38,7 @@ export function expandCover(sp: Space, F: readonly BCube[], R: readonly BCube[],
     covered[i] = 1;
     const cands: BCube[] = [];
     for (const j of order) if (!covered[j]) cands.push(F[j]);
-    const e = expandCube(sp, F[i], R, cands, allow);
+    const e = expandCube(sp, F[i], bound, cands, allow);
     for (let j = 0; j < F.length; j++) if (!covered[j] && contains(sp, e, F[j])) covered[j] = 1;
     out.push(e);
   }
@@ -58,8 +53,13 @@ export function allowMask(sp: Space, inputOnly: boolean): number[] {
   return a;
 }
 
-/** Grow one cube into a prime against R, trying to cover the candidate cubes. */
-export function expandCube(sp: Space, c0: BCube, R: readonly BCube[], cands: readonly BCube[], allow: readonly number[]): BCube {
+/** Grow one cube into a prime within the boundary, trying to cover the candidate cubes. */
+export function expandCube(sp: Space, c0: BCube, bound: Boundary, cands: readonly BCube[], allow: readonly number[]): BCube {
+  return 'off' in bound ? expandAgainst(sp, c0, bound.off, cands, allow) : expandWithin(sp, c0, bound.allowed, cands, allow);
+}
+
+/** EXPAND against an explicit off-set: the blocking-matrix method. */
+function expandAgainst(sp: Space, c0: BCube, R: readonly BCube[], cands: readonly BCube[], allow: readonly number[]): BCube {
   const W = sp.w;
   const wi = sp.wi;
   const c = c0.slice();
@@ -200,47 +200,40 @@ function essentialLowering(W: number, rows: Int32Array, act: Int32Array, na: num
   return na;
 }
 
+/** Node limit of the exact choice of bits to keep lowered (then the greedy one stands). */
+const LOWERING_NODES = 300;
+
 /**
- * The rest of the blocking matrix: greedily keep the bit that blocks most rows, then give back
- * any kept bit whose rows are all blocked by others (so the result is prime).
+ * The rest of the blocking matrix: the fewest free bits to keep lowered so that every live row
+ * keeps one (a unate covering problem, Brayton et al. §4.2 "minimum lowering set"; solved by
+ * cover-exact.ts within a node limit, starting from the greedy choice). Every other free bit
+ * is raised by the caller, so the cube comes out prime with as few literals as found.
  */
 function lowestLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: Int32Array, keep: Int32Array): void {
   if (na === 0) return;
-  const left = act.slice(0, na);
-  let nl = na;
-  const chosen: number[] = [];
-  const counts = new Int32Array(W * 32);
-  while (nl > 0) {
-    counts.fill(0);
-    for (let i = 0; i < nl; i++)
-      for (let k = 0; k < W; k++) {
-        let x = rows[left[i] + k] & free[k];
-        while (x !== 0) { counts[k * 32 + 31 - Math.clz32(x & -x)]++; x &= x - 1; }
+  const bitIndex = new Map<number, number>();
+  const bits: number[] = [];
+  const columns: { group: number; cost: number; rows: number[] }[] = [];
+  for (let i = 0; i < na; i++)
+    for (let k = 0; k < W; k++) {
+      let x = rows[act[i] + k] & free[k];
+      while (x !== 0) {
+        const b = k * 32 + 31 - Math.clz32(x & -x);
+        x &= x - 1;
+        let ci = bitIndex.get(b);
+        if (ci === undefined) {
+          ci = bits.length;
+          bitIndex.set(b, ci);
+          bits.push(b);
+          columns.push({ group: ci, cost: 0, rows: [] });
+        }
+        columns[ci].rows.push(i);
       }
-    let bi = 0;
-    for (let i = 1; i < counts.length; i++) if (counts[i] > counts[bi]) bi = i;
-    const k = bi >>> 5;
-    const bit = 1 << (bi & 31);
-    keep[k] |= bit;
-    free[k] &= ~bit;
-    chosen.push(bi);
-    let out = 0;
-    for (let i = 0; i < nl; i++) if ((rows[left[i] + k] & bit) === 0) left[out++] = left[i];
-    nl = out;
-  }
-  for (let q = chosen.length - 1; q >= 0; q--) {
-    const k = chosen[q] >>> 5;
-    const bit = 1 << (chosen[q] & 31);
-    keep[k] &= ~bit;
-    let needed = false;
-    for (let i = 0; i < na && !needed; i++) {
-      const base = act[i];
-      if ((rows[base + k] & bit) === 0) continue;
-      let other = 0;
-      for (let w = 0; w < W; w++) other |= rows[base + w] & keep[w];
-      if (other === 0) needed = true;
     }
-    if (needed) keep[k] |= bit;
-    else free[k] |= bit;
+  const sol = solveCover({ rowCount: na, columns, groupCost: columns.map(() => 1) }, LOWERING_NODES);
+  for (const ci of sol.columns) {
+    const b = bits[ci];
+    keep[b >>> 5] |= 1 << (b & 31);
+    free[b >>> 5] &= ~(1 << (b & 31));
   }
 }

@@ -12,8 +12,8 @@
  * - 'heuristic': the Espresso-II loop (Brayton, Hachtel, McMullen, Sangiovanni-Vincentelli,
  *   "Logic Minimization Algorithms for VLSI Synthesis", Kluwer 1984) on packed cubes, never
  *   enumerating minterms.
- * - 'auto' (default): exact when the function is small (AUTO_LIMITS); if the exact search
- *   gives up or is cut short, the heuristic runs too and the cheaper cover is returned.
+ * - 'auto' (default): the heuristic, then, when the function is small (AUTO_LIMITS), the
+ *   exact search bounded by the heuristic's cost; the cheaper cover is returned.
  *
  * Preconditions: every cube has `vars` positions of '0', '1', '-'; `on` and `dc` have one
  * list per function (a bad shape is a programming error: RangeError).
@@ -25,6 +25,7 @@ import {
 } from './bitcube.js';
 import { compact, complement, subtractCover } from './unate.js';
 import { espresso } from './espresso.js';
+import type { Boundary } from './expand.js';
 import { exactMinimise, EXACT_MAX_VARS, type ExactLimits } from './exact.js';
 import { DEFAULT_COST, coverCost } from './cost.js';
 import type { CoverCost, MinimiseOptions, MultiFunction, SopCover, Term } from './types.js';
@@ -38,13 +39,15 @@ export { verifyCover } from './verify.js';
  * and `maxRows` on-set (minterm, function) rows; prime generation gives up past `maxPrimes`
  * and the covering search stops after `nodeLimit` nodes. The exact search only accepts
  * covers cheaper than the heuristic's, so 'auto' is never worse than 'heuristic'.
+ * One function: a plain covering table, cheap to search, so the limits are wider.
  */
-export const AUTO_LIMITS: ExactLimits & { readonly maxVars: number } = {
-  maxVars: 10,
-  maxRows: 256,
-  maxPrimes: 150,
-  nodeLimit: 2000,
+export const AUTO_LIMITS: { readonly single: AutoLimits; readonly multi: AutoLimits } = {
+  single: { maxVars: 10, maxRows: 512, maxPrimes: 400, nodeLimit: 2000 },
+  multi: { maxVars: 8, maxRows: 128, maxPrimes: 100, nodeLimit: 1000 },
 };
+
+/** Limits of the exact attempt inside 'auto'. */
+export type AutoLimits = ExactLimits & { readonly maxVars: number };
 
 /** Multi-output minimisation; terms shared across functions unless `share: false`. */
 export function minimiseCover(f: MultiFunction, opts: MinimiseOptions = {}): SopCover {
@@ -84,16 +87,29 @@ interface Packed {
   readonly allowed: BCube[][];
 }
 
+/**
+ * Most pieces a don't-care cube may be cut into when the on-set is taken out of it; past
+ * that the cube is left out of D (see pack).
+ */
+const DC_PIECES = 8;
+
 function pack(f: MultiFunction): Packed {
   const sp = makeSpace(f.vars, f.on.length);
-  const on = f.on.map((cs) => compact(sp, cs.map((c) => parseInput(sp, c))));
+  const on = f.on.map((cs) => cs.map((c) => parseInput(sp, c)));
   const dc = f.dc.map((cs, j) => {
-    const raw = compact(sp, cs.map((c) => parseInput(sp, c)));
-    // The on-set wins where the lists overlap: keep only the don't-care points outside it.
-    const meets = raw.some((d) => on[j].some((o) => !inDisjoint(sp, d, o)));
-    return meets ? compact(sp, subtractCover(sp, raw, on[j])) : raw;
+    // The on-set wins where the lists overlap: D keeps only don't-care points outside it.
+    // A cube that would shatter into many pieces is left out of D instead: D only lets
+    // IRREDUNDANT and REDUCE drop coverage, so a smaller D is safe (the boundary of EXPAND
+    // still uses the whole of on ∪ dc).
+    const out: BCube[] = [];
+    for (const d of cs.map((c) => parseInput(sp, c))) {
+      if (on[j].every((o) => inDisjoint(sp, d, o))) { out.push(d); continue; }
+      const pieces = subtractCover(sp, [d], on[j], DC_PIECES);
+      if (pieces !== null) out.push(...pieces);
+    }
+    return compact(sp, out);
   });
-  const allowed = on.map((cs, j) => compact(sp, [...cs, ...dc[j]]));
+  const allowed = f.on.map((_, j) => compact(sp, [...on[j], ...f.dc[j].map((c) => parseInput(sp, c))]));
   return { sp, on, dc, allowed };
 }
 
@@ -105,15 +121,17 @@ interface Found {
 function solve(f: MultiFunction, method: MinimiseOptions['method'], cost: CoverCost): Found[] {
   const p = pack(f);
   if (method === 'heuristic') return heuristic(p, cost);
+  // Both 'exact' and 'auto' start from the heuristic's cover: its cost bounds the search.
+  const h = heuristic(p, cost);
+  const upperBound = coverCost({ vars: f.vars, functions: f.on.length, terms: h }, cost);
   if (method === 'exact') {
     if (f.vars > EXACT_MAX_VARS) throw new RangeError(`minimiseCover: the exact method handles at most ${EXACT_MAX_VARS} variables, got ${f.vars}`);
-    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { maxPrimes: Infinity, maxRows: Infinity, nodeLimit: Infinity });
-    return toFound(p.sp, r!.terms);
+    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { maxPrimes: Infinity, maxRows: Infinity, nodeLimit: Infinity, upperBound });
+    return r === null ? h : toFound(p.sp, r.terms);
   }
-  const h = heuristic(p, cost);
-  if (f.vars <= AUTO_LIMITS.maxVars) {
-    const upperBound = coverCost({ vars: f.vars, functions: f.on.length, terms: h }, cost);
-    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { ...AUTO_LIMITS, upperBound });
+  const limits = f.on.length === 1 ? AUTO_LIMITS.single : AUTO_LIMITS.multi;
+  if (f.vars <= limits.maxVars) {
+    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { ...limits, upperBound });
     if (r !== null) return toFound(p.sp, r.terms);
   }
   return h;
@@ -123,14 +141,31 @@ function toFound(sp: Space, terms: readonly { cube: BCube; outputs: readonly num
   return terms.map((t) => ({ cube: formatInput(sp, t.cube), outputs: t.outputs.slice() }));
 }
 
+/**
+ * Work allowed for building the off-set, in cubes produced by the complement recursion: past
+ * it, EXPAND tests containment in on ∪ dc instead (expand-within.ts).
+ */
+const OFFSET_BUDGET = 20_000;
+
 /** Espresso-II on the packed function. */
 function heuristic(p: Packed, cost: CoverCost): Found[] {
   const { sp } = p;
-  const R: BCube[] = [];
-  p.allowed.forEach((cs, j) => { for (const r of complement(sp, cs)) R.push(withOutputs(sp, r, [j])); });
   const F = mergeOutputs(sp, p.on);
   const D = mergeOutputs(sp, p.dc);
-  return espresso(sp, F, D, R, cost).map((c) => ({ cube: formatInput(sp, c), outputs: outputsOf(sp, c) }));
+  return espresso(sp, F, D, boundary(p), cost).map((c) => ({ cube: formatInput(sp, c), outputs: outputsOf(sp, c) }));
+}
+
+/** The off-set as single-function cubes, or the allowed sets when it is too large. */
+function boundary(p: Packed): Boundary {
+  const { sp } = p;
+  const R: BCube[] = [];
+  const budget = { left: OFFSET_BUDGET };
+  for (let j = 0; j < p.allowed.length; j++) {
+    const off = complement(sp, p.allowed[j], budget);
+    if (off === null) return { allowed: p.allowed };
+    for (const r of off) R.push(withOutputs(sp, r, [j]));
+  }
+  return { off: R };
 }
 
 /** One multi-output cube per distinct input cube, feeding every function that lists it. */

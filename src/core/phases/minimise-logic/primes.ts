@@ -16,7 +16,7 @@
  * Postcondition: every returned cube is prime; `tag` lists every function it implies.
  */
 import {
-  type BCube, type Space, inAnd, inContains, inDisjoint, inEqual, isUniverse, key, popcount, varPos,
+  type BCube, type Space, inAnd, inContains, inDisjoint, isUniverse, key, popcount, varPos,
 } from './bitcube.js';
 import { cofactorVar, splitVar } from './unate.js';
 
@@ -101,13 +101,14 @@ export function multiOutputPrimes(sp: Space, allowed: readonly (readonly BCube[]
     }
     return true;
   };
-  const seen = new Map<string, TaggedPrime>();
+  const seen = new Map<string | number, TaggedPrime>();
+  const rejected = new Set<string | number>();
   const queue: TaggedPrime[] = [];
   const add = (c: BCube): boolean => {
-    const id = key(c);
-    if (seen.has(id)) return true;
+    const id = sp.wi === 1 ? c[0] : key(c);
+    if (seen.has(id) || rejected.has(id)) return true;
     const tag = tagOf(c);
-    if (!isPrime(c, tag)) return true;
+    if (!isPrime(c, tag)) { rejected.add(id); return true; }
     const p = { cube: c, tag };
     seen.set(id, p);
     queue.push(p);
@@ -119,7 +120,7 @@ export function multiOutputPrimes(sp: Space, allowed: readonly (readonly BCube[]
     for (let k = 0; k < m; k++) {
       if (tag.includes(k)) continue;
       for (const q of single[k]) {
-        if (inDisjoint(sp, cube, q) || inEqual(sp, cube, q)) continue;
+        if (inDisjoint(sp, cube, q) || inContains(sp, q, cube)) continue;
         if (!add(inAnd(sp, cube, q))) return null;
       }
     }

@@ -12,7 +12,7 @@
  * on-set, is unchanged.
  */
 import {
-  type BCube, type Space, cofactor, inAnd, inDisjoint, inDistance, inOr, literals, outCount, outputsOf, hasOutput, outputBit, withOutputs,
+  type BCube, type Space, cofactor, cubeWeights, inAnd, inDisjoint, inDistance, inOr, literals, outCount, outputsOf, hasOutput, outputBit, withOutputs,
 } from './bitcube.js';
 import { cubeCovered, supercubeOfComplement } from './unate.js';
 
@@ -37,18 +37,25 @@ export function reduceCube(sp: Space, c: BCube, others: readonly BCube[], dc: re
 }
 
 /**
- * Sequential REDUCE: the largest cube first, then the others by decreasing distance from it
- * (Espresso's order, which keeps the big cubes from being starved by their neighbours).
+ * Sequential REDUCE in one of Espresso's two orders, which its main loop alternates so that
+ * successive passes move different cubes: the largest cube first and the others by decreasing
+ * distance from it; or heaviest cube first (weights as in cubeWeights).
  */
-export function reduceCover(sp: Space, F: readonly BCube[], dc: readonly BCube[][]): BCube[] {
+export function reduceCover(sp: Space, F: readonly BCube[], dc: readonly BCube[][], byWeight = false): BCube[] {
   if (F.length === 0) return [];
-  const size = (c: BCube): number => outCount(sp, c) - literals(sp, c);
-  let top = 0;
-  for (let i = 1; i < F.length; i++) if (size(F[i]) > size(F[top])) top = i;
-  const order = F.map((_, i) => i).sort((a, b) => {
-    if (a === top || b === top) return a === top ? -1 : 1;
-    return inDistance(sp, F[b], F[top]) - inDistance(sp, F[a], F[top]) || a - b;
-  });
+  let order: number[];
+  if (byWeight) {
+    const w = cubeWeights(sp, F);
+    order = F.map((_, i) => i).sort((a, b) => w[b] - w[a] || a - b);
+  } else {
+    const size = (c: BCube): number => outCount(sp, c) - literals(sp, c);
+    let top = 0;
+    for (let i = 1; i < F.length; i++) if (size(F[i]) > size(F[top])) top = i;
+    order = F.map((_, i) => i).sort((a, b) => {
+      if (a === top || b === top) return a === top ? -1 : 1;
+      return inDistance(sp, F[b], F[top]) - inDistance(sp, F[a], F[top]) || a - b;
+    });
+  }
   const cur: BCube[] = F.slice();
   const gone: BCube = [];
   for (const i of order) {

@@ -166,17 +166,28 @@ function complementCube(sp: Space, c: BCube): BCube[] {
   return out;
 }
 
+/** A work allowance shared by a recursion; `left` counts down. */
+export interface Budget {
+  left: number;
+}
+
 /**
  * Complement of a cover over the input space (Brayton et al. §3.3, with the merge step
- * that lifts a cube present, or contained, on both sides of the split).
+ * that lifts a cube present, or contained, on both sides of the split). With a budget, null
+ * once more cubes than it allows have been produced (the complement of sparse covers over
+ * many variables can be exponentially large).
  */
-export function complement(sp: Space, t: readonly BCube[]): BCube[] {
+export function complement(sp: Space, t: readonly BCube[], budget: Budget = { left: Infinity }): BCube[] | null {
   if (t.length === 0) return [universe(sp)];
   for (const c of t) if (isUniverse(sp, c)) return [];
   if (t.length === 1) return complementCube(sp, t[0]);
   const v = splitVar(sp, t, false);
-  const c1 = complement(sp, cofactorVar(sp, t, v, 1));
-  const c0 = complement(sp, cofactorVar(sp, t, v, 0));
+  const c1 = complement(sp, cofactorVar(sp, t, v, 1), budget);
+  if (c1 === null) return null;
+  const c0 = complement(sp, cofactorVar(sp, t, v, 0), budget);
+  if (c0 === null) return null;
+  budget.left -= c1.length + c0.length;
+  if (budget.left < 0) return null;
   const [k, s] = varPos(v);
   const both = 3 << s;
   const out: BCube[] = [];
@@ -208,9 +219,10 @@ export function complement(sp: Space, t: readonly BCube[]): BCube[] {
 
 /**
  * Smallest cube containing the complement of the cover, or null when the cover is a
- * tautology (Brayton et al. §4.4, the core of REDUCE).
+ * tautology (Brayton et al. §4.4, the core of REDUCE). Past the budget of recursion nodes the
+ * answer is the universe: a safe over-estimate (the caller then does not reduce).
  */
-export function supercubeOfComplement(sp: Space, t: readonly BCube[]): BCube | null {
+export function supercubeOfComplement(sp: Space, t: readonly BCube[], budget: Budget = { left: 4096 }): BCube | null {
   if (t.length === 0) return universe(sp);
   for (const c of t) if (isUniverse(sp, c)) return null;
   if (t.length === 1) {
@@ -220,9 +232,10 @@ export function supercubeOfComplement(sp: Space, t: readonly BCube[]): BCube | n
     if (lits > 1) return universe(sp);
     return complementCube(sp, c)[0];
   }
+  if (--budget.left < 0) return tautology(sp, t) ? null : universe(sp);
   const v = splitVar(sp, t, false);
-  const s1 = supercubeOfComplement(sp, cofactorVar(sp, t, v, 1));
-  const s0 = supercubeOfComplement(sp, cofactorVar(sp, t, v, 0));
+  const s1 = supercubeOfComplement(sp, cofactorVar(sp, t, v, 1), budget);
+  const s0 = supercubeOfComplement(sp, cofactorVar(sp, t, v, 0), budget);
   const [k, s] = varPos(v);
   const both = 3 << s;
   if (s1 === null && s0 === null) return null;
@@ -269,14 +282,15 @@ export function sharp(sp: Space, a: BCube, b: BCube): BCube[] {
   return out;
 }
 
-/** A cover minus a cover, as cubes (disjoint when `from` is). */
-export function subtractCover(sp: Space, from: readonly BCube[], minus: readonly BCube[]): BCube[] {
+/** A cover minus a cover, as cubes (disjoint when `from` is); null past `limit` cubes. */
+export function subtractCover(sp: Space, from: readonly BCube[], minus: readonly BCube[], limit = Infinity): BCube[] | null {
   let cur: BCube[] = from.slice();
   for (const m of minus) {
     const next: BCube[] = [];
     for (const c of cur) for (const d of sharp(sp, c, m)) next.push(d);
     cur = next;
     if (cur.length === 0) break;
+    if (cur.length > limit) return null;
   }
   return cur;
 }
@@ -292,6 +306,16 @@ export function compact(sp: Space, t: readonly BCube[]): BCube[] {
   let cur = t.map((c) => c.slice(0, sp.wi));
   for (let changed = true; changed; ) {
     changed = false;
+    // Only cubes fixing the same variables can merge: skip the pass when none do.
+    const cares = new Set<string>();
+    let shared = false;
+    for (const c of cur) {
+      let id = '';
+      for (let k = 0; k < sp.wi; k++) id += (sp.low[k] & ~(c[k] & (c[k] >>> 1))) + ',';
+      if (cares.has(id)) { shared = true; break; }
+      cares.add(id);
+    }
+    if (!shared) break;
     for (let v = 0; v < sp.n; v++) {
       const [k, s] = varPos(v);
       const both = 3 << s;
