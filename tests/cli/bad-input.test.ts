@@ -115,7 +115,9 @@ describe('cli: machines over the limits (generated, never stored)', () => {
   it('4097 states give LW400 with exit 2', async () => {
     const r = await runJson<{ diagnostics: Diag[] }>(['check', 'huge.lw', '--json'], { 'huge.lw': ring(4097) });
     expect(r.code).toBe(2);
-    expect(r.json.diagnostics).toEqual([expect.objectContaining({ code: 'LW400', severity: 'error', location: { file: 'huge.lw', line: 1, column: 1 } })]);
+    // The location is the first state past the limit, the 4097th declared.
+    const line = ring(4097).split('\n').findIndex((l) => l === 'state s4096') + 1;
+    expect(r.json.diagnostics).toEqual([expect.objectContaining({ code: 'LW400', severity: 'error', location: { file: 'huge.lw', line, column: 1 } })]);
     expect(r.json.diagnostics[0].message).toContain('4097 states');
   });
 
@@ -124,10 +126,11 @@ describe('cli: machines over the limits (generated, never stored)', () => {
     const json = JSON.stringify({ name: 'wide', inputs, outputs: ['o'], start: 'a', states: [{ name: 'a', transitions: [{ to: 'a' }] }] });
     const t = await runJson<{ diagnostics: Diag[] }>(['check', 'wide.lw', '--json'], { 'wide.lw': text });
     expect(t.code).toBe(2);
-    expect(t.json.diagnostics.find((d) => d.code === 'LW401')?.location).toEqual({ file: 'wide.lw', line: 1, column: 1 });
+    // The location is the first input past the limit.
+    expect(t.json.diagnostics.find((d) => d.code === 'LW401')?.location).toEqual({ file: 'wide.lw', line: 2, column: text.split('\n')[1].indexOf('i32') + 1 });
     const j = await runJson<{ diagnostics: Diag[] }>(['check', 'wide.json', '--json'], { 'wide.json': json });
     expect(j.code).toBe(2);
-    expect(j.json.diagnostics.find((d) => d.code === 'LW401')?.location).toEqual({ file: 'wide.json', path: '$' });
+    expect(j.json.diagnostics.find((d) => d.code === 'LW401')?.location).toEqual({ file: 'wide.json', path: '$.inputs[32]' });
     const text32 = text.replace(', i32', '');
     expect((await run(['check', 'w32.lw'], { 'w32.lw': text32 })).code).toBe(0);
   });

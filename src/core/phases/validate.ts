@@ -52,12 +52,13 @@ export function validate(m: Machine): Validated {
   const mloc = m.loc ?? {};
 
   // Limits first: a machine past them is refused before any heavy work.
-  const limit = (code: 'LW400' | 'LW401' | 'LW402', what: string, count: number, max: number): void => {
-    if (count > max) ds.push(diag(code, `the machine has ${count} ${what}; the tool handles at most ${max}`, mloc, code === 'LW401' ? 'split the machine or combine inputs' : 'split the machine'));
+  // Point at the first name past the limit (the declaration that overflows), else at the machine.
+  const limit = (code: 'LW400' | 'LW401' | 'LW402', what: string, count: number, max: number, at?: SourceLoc): void => {
+    if (count > max) ds.push(diag(code, `the machine has ${count} ${what}; the tool handles at most ${max}`, at ?? mloc, code === 'LW401' ? 'split the machine or combine inputs' : 'split the machine'));
   };
-  limit('LW400', 'states', m.states.length, LIMITS.states);
-  limit('LW401', 'inputs', m.inputs.length, LIMITS.inputs);
-  limit('LW402', 'outputs', m.outputs.length, LIMITS.outputs);
+  limit('LW400', 'states', m.states.length, LIMITS.states, m.states[LIMITS.states]?.loc);
+  limit('LW401', 'inputs', m.inputs.length, LIMITS.inputs, m.partLocs?.[`input:${LIMITS.inputs}`]);
+  limit('LW402', 'outputs', m.outputs.length, LIMITS.outputs, m.partLocs?.[`output:${LIMITS.outputs}`]);
   if (ds.length) return { diagnostics: ds };
 
   checkNames(m, ds);
