@@ -275,7 +275,7 @@ export function absorbFull(sp: Space, cubes: readonly BCube[]): BCube[] {
  */
 export function cubeWeights(sp: Space, F: readonly BCube[]): number[] {
   const W = sp.w;
-  const colCount = new Int32Array(W * 32);
+  const colCount = scratch(SLOT.weights, W * 32).fill(0, 0, W * 32);
   for (const c of F)
     for (let k = 0; k < W; k++) {
       let x = c[k];
@@ -289,4 +289,23 @@ export function cubeWeights(sp: Space, F: readonly BCube[]): number[] {
     }
     return s;
   });
+}
+
+// Scratch buffers: allocating a typed array costs far more than the short loops that use it,
+// and EXPAND and friends run thousands of times per search. Each slot belongs to one routine
+// that never calls itself (directly or through another user of the same slot); contents are
+// not cleared between uses.
+const scratchPool: Int32Array[] = [];
+
+/** Scratch slots, one per user. */
+export const SLOT = { rows: 0, act: 1, need: 2, pend: 3, feas: 4, weights: 5, stamp: 6, value: 7, rowStamp: 8, rowValue: 9 } as const;
+
+/** A shared Int32Array of at least `size` entries for the given slot (contents undefined). */
+export function scratch(slot: number, size: number): Int32Array {
+  let a = scratchPool[slot];
+  if (a === undefined || a.length < size) {
+    a = new Int32Array(Math.max(size, 2 * (a?.length ?? 32)));
+    scratchPool[slot] = a;
+  }
+  return a;
 }

@@ -42,9 +42,16 @@ function total(sp: Space, F: readonly BCube[], cost: CoverCost): number {
   return s;
 }
 
-/** Minimise the cover F (on-set) with don't-cares D against off-set R. */
-export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R: Boundary, cost: CoverCost): BCube[] {
+/**
+ * Minimise the cover F0 (the on-set, or any cover of it) with don't-cares D within R. When
+ * `isCover` says F0 is already a correct cover, the result never costs more than F0.
+ */
+export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R: Boundary, cost: CoverCost, isCover = false): BCube[] {
   if (F0.length === 0) return [];
+  if (isCover) {
+    const out = espresso(sp, F0, D, R, cost);
+    return total(sp, out, cost) <= total(sp, F0, cost) ? out : F0.slice();
+  }
   const price = (c: BCube): number => cubeCost(sp, c, cost);
   const dc = byOutput(sp, D);
   let F = irredundantCover(sp, expandCover(sp, F0, R), dc, price);

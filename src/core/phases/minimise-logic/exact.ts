@@ -12,7 +12,7 @@
  * Postcondition: the terms cover every on-set point and stay inside on ∪ dc; when `optimal`
  * is true no cheaper cover exists under the given cost.
  */
-import { type BCube, type Space, literals } from './bitcube.js';
+import { type BCube, type Space, SLOT, literals, scratch } from './bitcube.js';
 import { multiOutputPrimes } from './primes.js';
 import { solveCover, type CoverColumn, type CoverProblem } from './cover-exact.js';
 import type { CoverCost } from './types.js';
@@ -70,7 +70,7 @@ export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allo
   const rowsOf: number[][] = [];
   let rowCount = 0;
   for (let j = 0; j < m; j++) {
-    const ids = rowIndex(sp.n);
+    const ids = rowIndex(sp.n, j, m);
     const list: number[] = [];
     for (const c of on[j]) {
       const [care, val] = careValue(sp, c);
@@ -189,11 +189,23 @@ interface RowIndex {
   set(x: number, r: number): void;
 }
 
-function rowIndex(n: number): RowIndex {
-  if (n <= 14) {
-    const t = new Int32Array(1 << n).fill(-1);
-    return { get: (x) => t[x], set: (x, r) => { t[x] = r; } };
+function rowIndex(n: number, j: number, m: number): RowIndex {
+  if (n <= 14 && m << n <= 1 << 22) {
+    // One scratch table for all functions (function j at offset j·2^n), stamped per call so
+    // it never needs clearing.
+    const size = m << n;
+    const stamp = scratch(SLOT.rowStamp, size);
+    const value = scratch(SLOT.rowValue, size);
+    if (j === 0) rowGeneration = rowGeneration >= 0x3fffffff ? (stamp.fill(0), 1) : rowGeneration + 1;
+    const gen = rowGeneration;
+    const base = j << n;
+    return {
+      get: (x) => (stamp[base + x] === gen ? value[base + x] : -1),
+      set: (x, r) => { stamp[base + x] = gen; value[base + x] = r; },
+    };
   }
   const map = new Map<number, number>();
   return { get: (x) => map.get(x) ?? -1, set: (x, r) => { map.set(x, r); } };
 }
+
+let rowGeneration = 0;

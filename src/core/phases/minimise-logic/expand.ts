@@ -13,7 +13,7 @@
  * Precondition: every cube of F misses R. Postcondition: every returned cube is prime (no
  * allowed bit can be raised without meeting R), and every cube of F lies in one of them.
  */
-import { type BCube, type Space, contains, cubeWeights, popcount } from './bitcube.js';
+import { type BCube, type Space, SLOT, contains, cubeWeights, popcount, scratch } from './bitcube.js';
 import { solveCover } from './cover-exact.js';
 import { expandWithin } from './expand-within.js';
 
@@ -63,12 +63,12 @@ function expandAgainst(sp: Space, c0: BCube, R: readonly BCube[], cands: readonl
   const W = sp.w;
   const wi = sp.wi;
   const c = c0.slice();
-  const free = new Int32Array(W);
-  const keep = new Int32Array(W);
+  const free: number[] = new Array<number>(W);
+  const keep: number[] = new Array<number>(W).fill(0);
   for (let k = 0; k < W; k++) free[k] = allow[k] & ~c[k];
   // Blocking rows, flat: row i occupies rows[i*W .. i*W+W-1]; `act` lists the live ones.
-  const rows = new Int32Array(R.length * W);
-  const act = new Int32Array(R.length);
+  const rows = scratch(SLOT.rows, R.length * W);
+  const act = scratch(SLOT.act, R.length);
   let na = 0;
   for (let i = 0; i < R.length; i++) {
     const r = R[i];
@@ -90,11 +90,11 @@ function expandAgainst(sp: Space, c0: BCube, R: readonly BCube[], cands: readonl
     if (fixed === 0) { act[na] = base; na++; } // else a bit we may not raise keeps c off r
   }
   const nc = cands.length;
-  const need = new Int32Array(nc * W);
-  const pend = new Int32Array(nc);
+  const need = scratch(SLOT.need, nc * W);
+  const pend = scratch(SLOT.pend, nc);
   let np = 0;
   for (let i = 0; i < nc; i++) pend[np++] = i;
-  const feas = new Int32Array(nc);
+  const feas = scratch(SLOT.feas, nc);
   for (;;) {
     na = essentialLowering(W, rows, act, na, free, keep);
     // Raise, for free, every bit no remaining off cube depends on.
@@ -155,7 +155,7 @@ function expandAgainst(sp: Space, c0: BCube, R: readonly BCube[], cands: readonl
 }
 
 /** Does every live row keep a free bit outside the raise need[a] (∪ need[b] when b ≥ 0)? */
-function rowsSurvive(W: number, rows: Int32Array, act: Int32Array, na: number, free: Int32Array, need: Int32Array, a: number, b: number): boolean {
+function rowsSurvive(W: number, rows: Int32Array, act: Int32Array, na: number, free: readonly number[], need: Int32Array, a: number, b: number): boolean {
   for (let i = 0; i < na; i++) {
     const base = act[i];
     let left = 0;
@@ -169,7 +169,7 @@ function rowsSurvive(W: number, rows: Int32Array, act: Int32Array, na: number, f
  * Rows left with a single free bit force that bit to stay lowered; repeat to a fixed point.
  * Returns the number of rows (compacted at the front of `act`) not yet kept off.
  */
-function essentialLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: Int32Array, keep: Int32Array): number {
+function essentialLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: number[], keep: number[]): number {
   for (let changed = true; changed; ) {
     changed = false;
     let out = 0;
@@ -209,7 +209,7 @@ const LOWERING_NODES = 300;
  * cover-exact.ts within a node limit, starting from the greedy choice). Every other free bit
  * is raised by the caller, so the cube comes out prime with as few literals as found.
  */
-function lowestLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: Int32Array, keep: Int32Array): void {
+function lowestLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: number[], keep: number[]): void {
   if (na === 0) return;
   const bitIndex = new Map<number, number>();
   const bits: number[] = [];
@@ -230,8 +230,23 @@ function lowestLowering(W: number, rows: Int32Array, act: Int32Array, na: number
         columns[ci].rows.push(i);
       }
     }
-  const sol = solveCover({ rowCount: na, columns, groupCost: columns.map(() => 1) }, LOWERING_NODES);
-  for (const ci of sol.columns) {
+  // Greedy first: one or two bits are a minimum already (a single bit covering every row
+  // is what greedy takes first), so the exact search only runs for three or more.
+  const chosen: number[] = [];
+  const covered = new Uint8Array(na);
+  for (let left = na; left > 0; ) {
+    let best = 0;
+    let bestN = -1;
+    for (let ci = 0; ci < columns.length; ci++) {
+      let n = 0;
+      for (const r of columns[ci].rows) if (covered[r] === 0) n++;
+      if (n > bestN) { bestN = n; best = ci; }
+    }
+    chosen.push(best);
+    for (const r of columns[best].rows) if (covered[r] === 0) { covered[r] = 1; left--; }
+  }
+  const pick = chosen.length <= 2 ? chosen : solveCover({ rowCount: na, columns, groupCost: columns.map(() => 1) }, LOWERING_NODES).columns;
+  for (const ci of pick) {
     const b = bits[ci];
     keep[b >>> 5] |= 1 << (b & 31);
     free[b >>> 5] &= ~(1 << (b & 31));

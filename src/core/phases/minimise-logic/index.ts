@@ -14,6 +14,8 @@
  *   enumerating minterms.
  * - 'auto' (default): the heuristic, then, when the function is small (AUTO_LIMITS), the
  *   exact search bounded by the heuristic's cost; the cheaper cover is returned.
+ * With several functions and sharing on, the heuristic starts from the per-function covers
+ * (see `shared`), so a shared cover never costs more than the `share: false` one.
  *
  * Preconditions: every cube has `vars` positions of '0', '1', '-'; `on` and `dc` have one
  * list per function (a bad shape is a programming error: RangeError).
@@ -28,7 +30,7 @@ import { espresso } from './espresso.js';
 import type { Boundary } from './expand.js';
 import { exactMinimise, EXACT_MAX_VARS, type ExactLimits } from './exact.js';
 import { DEFAULT_COST, coverCost } from './cost.js';
-import type { CoverCost, MinimiseOptions, MultiFunction, SopCover, Term } from './types.js';
+import type { CoverCost, MinimiseOptions, MinimiserMethod, MultiFunction, SopCover, Term } from './types.js';
 
 export type { CoverCost, MinimiseOptions, MinimiserMethod, MultiFunction, SopCover, Term } from './types.js';
 export { coverCost, coverStats, DEFAULT_COST, type CoverStats } from './cost.js';
@@ -120,21 +122,48 @@ interface Found {
 
 function solve(f: MultiFunction, method: MinimiseOptions['method'], cost: CoverCost): Found[] {
   const p = pack(f);
-  if (method === 'heuristic') return heuristic(p, cost);
-  // Both 'exact' and 'auto' start from the heuristic's cover: its cost bounds the search.
-  const h = heuristic(p, cost);
-  const upperBound = coverCost({ vars: f.vars, functions: f.on.length, terms: h }, cost);
+  const m = f.on.length;
   if (method === 'exact') {
     if (f.vars > EXACT_MAX_VARS) throw new RangeError(`minimiseCover: the exact method handles at most ${EXACT_MAX_VARS} variables, got ${f.vars}`);
-    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { maxPrimes: Infinity, maxRows: Infinity, nodeLimit: Infinity, upperBound });
+    // The heuristic's cover bounds the search; without limits the result is a minimum.
+    const h = m === 1 ? heuristic(p, cost) : shared(f, p, 'heuristic', cost);
+    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { maxPrimes: Infinity, maxRows: Infinity, nodeLimit: Infinity, upperBound: price(f, h, cost) });
     return r === null ? h : toFound(p.sp, r.terms);
   }
-  const limits = f.on.length === 1 ? AUTO_LIMITS.single : AUTO_LIMITS.multi;
+  const h = m === 1 ? heuristic(p, cost) : shared(f, p, method ?? 'auto', cost);
+  if (method === 'heuristic') return h;
+  const limits = m === 1 ? AUTO_LIMITS.single : AUTO_LIMITS.multi;
   if (f.vars <= limits.maxVars) {
-    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { ...limits, upperBound });
+    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { ...limits, upperBound: price(f, h, cost) });
     if (r !== null) return toFound(p.sp, r.terms);
   }
   return h;
+}
+
+/**
+ * Several functions, terms shared: minimise each function alone (the `share: false` answer,
+ * by the same method), merge equal terms, and let the multi-output Espresso loop improve that
+ * cover — sharing terms, dropping the ones sharing makes redundant. Starting from the
+ * per-function cover and keeping it when nothing cheaper turns up makes sharing never cost
+ * more than not sharing, whatever the price of a connection.
+ */
+function shared(f: MultiFunction, p: Packed, method: MinimiserMethod, cost: CoverCost): Found[] {
+  const { sp } = p;
+  const byCube = new Map<string, number[]>();
+  f.on.forEach((_, j) => {
+    for (const t of solve({ vars: f.vars, on: [f.on[j]], dc: [f.dc[j]] }, method, cost)) {
+      const outs = byCube.get(t.cube);
+      if (outs) outs.push(j);
+      else byCube.set(t.cube, [j]);
+    }
+  });
+  const start = [...byCube.entries()].map(([c, js]) => withOutputs(sp, parseInput(sp, c), js));
+  const D = mergeOutputs(sp, p.dc);
+  return espresso(sp, start, D, boundary(p), cost, true).map((c) => ({ cube: formatInput(sp, c), outputs: outputsOf(sp, c) }));
+}
+
+function price(f: MultiFunction, terms: readonly Found[], cost: CoverCost): number {
+  return coverCost({ vars: f.vars, functions: f.on.length, terms }, cost);
 }
 
 function toFound(sp: Space, terms: readonly { cube: BCube; outputs: readonly number[] }[]): Found[] {

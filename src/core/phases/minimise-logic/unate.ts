@@ -6,7 +6,7 @@
  *
  * Every routine here reads only the input part (words 0..wi-1) of its cubes.
  */
-import { type BCube, type Space, popcount, isUniverse, universe, varPos, inEqual, inContains } from './bitcube.js';
+import { type BCube, type Space, SLOT, popcount, isUniverse, universe, varPos, inEqual, inContains, scratch } from './bitcube.js';
 
 /** Per-variable literal summary of a cover: which variables appear as 0 and as 1. */
 interface Columns {
@@ -343,11 +343,18 @@ export function compact(sp: Space, t: readonly BCube[]): BCube[] {
 /** compact() for cubes of one input word, on plain integers (the common small case). */
 function compact1(sp: Space, t: readonly BCube[]): BCube[] {
   let cur = t.map((c) => c[0]);
+  // Groups by the cube with the variable freed: a direct table (with a generation stamp per
+  // pass, so it is never cleared) when the word is short, else a map.
+  const direct = sp.n <= 10;
+  const size = direct ? 1 << (2 * sp.n) : 0;
+  const stamp = direct ? scratch(SLOT.stamp, size) : null;
+  const where = direct ? scratch(SLOT.value, size) : null;
   const groups = new Map<number, number>();
   for (let changed = true; changed; ) {
     changed = false;
     for (let v = 0; v < sp.n; v++) {
       const both = 3 << (2 * v);
+      const gen = nextGeneration(stamp);
       groups.clear();
       let out = 0;
       for (let i = 0; i < cur.length; i++) {
@@ -355,8 +362,14 @@ function compact1(sp: Space, t: readonly BCube[]): BCube[] {
         const f = c & both;
         if (f === both) { cur[out++] = c; continue; }
         const freed = c | both;
-        const at = groups.get(freed);
-        if (at === undefined) { groups.set(freed, out); cur[out++] = c; continue; }
+        let at: number | undefined;
+        if (stamp !== null) at = stamp[freed] === gen ? where![freed] : undefined;
+        else at = groups.get(freed);
+        if (at === undefined) {
+          if (stamp !== null) { stamp[freed] = gen; where![freed] = out; } else groups.set(freed, out);
+          cur[out++] = c;
+          continue;
+        }
         const other = cur[at] & both;
         if (other === f || other === both) continue;
         cur[at] = freed;
@@ -367,6 +380,17 @@ function compact1(sp: Space, t: readonly BCube[]): BCube[] {
   }
   cur = [...new Set(cur)];
   return absorbCubes(sp, cur.map((c) => [c]));
+}
+
+let generation = 0;
+
+/** A fresh stamp value for a scratch stamp table (cleared when the counter wraps). */
+function nextGeneration(stamp: Int32Array | null): number {
+  if (generation >= 0x3fffffff) {
+    generation = 0;
+    stamp?.fill(0);
+  }
+  return ++generation;
 }
 
 /** Input-part single-cube containment (keep maximal cubes, first of equals, stable order). */
