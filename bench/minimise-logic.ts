@@ -187,7 +187,7 @@ export async function benchMinimiseLogic(): Promise<{ rows: MinimiserBenchRow[];
       minimiseSop(c.on, c.dc, c.n, { method: 'heuristic' });
       referenceEspresso(c.on.map(toLiterals), c.dc.map(toLiterals));
     }
-  for (const f of excitation.slice(0, 4)) minimiseCover(f);
+  for (let pass = 0; pass < 2; pass++) for (const f of excitation) minimiseCover(f);
   const rows = [
     compareSingle('10 variables, on-set as random cubes', cubesSet, 'heuristic'),
     compareSingle('10 variables, on-set as random cubes', cubesSet, 'auto'),
