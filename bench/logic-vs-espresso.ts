@@ -3,11 +3,11 @@
  * random 10-variable single-output functions with don't-cares (fixed seed): time as a ratio
  * measured in the same run, and the term and literal totals of both.
  */
-import { performance } from 'node:perf_hooks';
 import { espresso } from 'espresso-iisojs';
 import { minimiseSop } from '../src/core/phases/minimise-logic/index.js';
 import { literalCount, mintermString } from '../src/core/model/cube.js';
 import { seededRandom } from '../src/core/model/random.js';
+import { median as medianMs } from './median.js';
 
 const VARS = 10;
 const FUNCTIONS = 20;
@@ -38,16 +38,6 @@ function toLiterals(c: string): number[] {
   return out;
 }
 
-function medianMs(runs: number, fn: () => void): number {
-  const t: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    t.push(performance.now() - t0);
-  }
-  t.sort((a, b) => a - b);
-  return t[Math.floor(t.length / 2)];
-}
 
 export async function benchMinimiseLogic(): Promise<{ markdown: string }> {
   const fns = randomFunctions(2026);

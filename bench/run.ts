@@ -3,7 +3,6 @@
  * reference measured in the same run (a ratio). Writes docs/benchmarks.md. Never a test.
  */
 import { writeFileSync, readFileSync, readdirSync } from 'node:fs';
-import { performance } from 'node:perf_hooks';
 import os from 'node:os';
 import { createActor, createMachine } from 'xstate';
 import { analyse, buildMachine, type Analysed, type Built } from '../src/core/pipeline.js';
@@ -23,6 +22,7 @@ import { billOfMaterials } from '../src/core/physics/bom.js';
 import { driveSnapshots } from '../src/core/sim/snapshots.js';
 import { seededRandom } from '../src/core/model/random.js';
 import { benchMinimiseLogic } from './logic-vs-espresso.js';
+import { median } from './median.js';
 
 interface Row {
   readonly name: string;
@@ -32,17 +32,6 @@ interface Row {
   readonly goal: string;
 }
 
-/** Median wall time of `runs` calls, in milliseconds. */
-function median(runs: number, fn: () => void): number {
-  const t: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    t.push(performance.now() - t0);
-  }
-  t.sort((a, b) => a - b);
-  return t[Math.floor(t.length / 2)];
-}
 
 const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
 

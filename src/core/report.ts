@@ -2,13 +2,13 @@
  * The build report as data: what `build --json` prints and what the text report, the web
  * designer and the build sheet read. Pure.
  */
-import type { Built } from './pipeline.js';
+import type { Analysed, Built } from './pipeline.js';
 import { printCubes } from './forms/expr.js';
 import { billOfMaterials } from './physics/bom.js';
 import { operatorForces } from './physics/operator.js';
 
-export function machineBlock(b: Built) {
-  const a = b.analysed;
+/** The `machine` block that `check --json` and `build --json` share: counts and names. */
+export function machineBlock(a: Analysed) {
   return {
     name: a.machine.name,
     states: a.machine.states.length,
@@ -30,7 +30,7 @@ export function equationTexts(b: Built): { name: string; expr: string }[] {
 export function buildReport(b: Built) {
   const f = b.build.machine;
   return {
-    machine: machineBlock(b),
+    machine: machineBlock(b.analysed),
     merged: b.analysed.minimised.merged,
     encoding: {
       strategy: b.build.encoding.strategy,

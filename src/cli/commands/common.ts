@@ -1,5 +1,6 @@
 /** Pieces the commands share. */
 import type { Analysed } from '../../core/pipeline.js';
+import { machineBlock } from '../../core/report.js';
 import { diag, formatDiagnostic, type Diagnostic } from '../../core/model/diagnostics.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
@@ -41,19 +42,5 @@ export function readFileArg(file: string, io: CliIo): Source {
 
 /** The `machine` and `merged` blocks that `check --json` and `build --json` share. */
 export function machineSummary(a: Analysed) {
-  return {
-    machine: {
-      name: a.machine.name,
-      states: a.machine.states.length,
-      reachable: a.machine.states.length - a.minimised.unreachable.length,
-      minimized: a.minimised.machine.states.length,
-      inputs: a.machine.inputs.length,
-      outputs: a.machine.outputs.length,
-      inputNames: a.machine.inputs,
-      outputNames: a.machine.outputs,
-    },
-    merged: a.minimised.merged,
-    method: a.minimised.method,
-    exact: a.minimised.exact,
-  };
+  return { machine: machineBlock(a), merged: a.minimised.merged, method: a.minimised.method, exact: a.minimised.exact };
 }
