@@ -4,7 +4,7 @@
  * same run: each time is the median of several passes over the whole set, and the ratio is
  * ours / theirs. Also term and literal totals for both. Called by bench/run.ts; not a test.
  */
-import { performance } from 'node:perf_hooks';
+import { median as medianOf } from './median.js';
 import { espresso as referenceEspresso } from 'espresso-iisojs';
 import { minimiseCover, minimiseSop, coverStats, type MultiFunction, type MinimiserMethod } from '../src/core/phases/minimise-logic/index.js';
 import { seededRandom, type Random } from '../src/core/model/random.js';
@@ -26,16 +26,6 @@ interface Case {
 
 const PASSES = 5;
 
-function median(fn: () => void): number {
-  const t: number[] = [];
-  for (let i = 0; i < PASSES; i++) {
-    const t0 = performance.now();
-    fn();
-    t.push(performance.now() - t0);
-  }
-  t.sort((a, b) => a - b);
-  return t[Math.floor(t.length / 2)];
-}
 
 function cube(rnd: Random, n: number, lits: number): string {
   const a: string[] = Array(n).fill('-');
@@ -99,8 +89,8 @@ function compareSingle(label: string, cases: readonly Case[], method: MinimiserM
   const literalsIn = cases.map((c) => ({ on: c.on.map(toLiterals), dc: c.dc.map(toLiterals) }));
   let ours: string[][] = [];
   let theirs: number[][][] = [];
-  const tOurs = median(() => { ours = cases.map((c) => minimiseSop(c.on, c.dc, c.n, { method, cost })); });
-  const tTheirs = median(() => { theirs = literalsIn.map((c) => referenceEspresso(c.on, c.dc)); });
+  const tOurs = medianOf(PASSES, () => { ours = cases.map((c) => minimiseSop(c.on, c.dc, c.n, { method, cost })); });
+  const tTheirs = medianOf(PASSES, () => { theirs = literalsIn.map((c) => referenceEspresso(c.on, c.dc)); });
   const a = totals(ours);
   const b = { terms: theirs.reduce((s, c) => s + c.length, 0), literals: theirs.reduce((s, c) => s + c.reduce((q, t) => q + t.length, 0), 0) };
   return {
@@ -153,14 +143,14 @@ function excitationCases(rnd: Random, count: number): MultiFunction[] {
 function compareMulti(cases: readonly MultiFunction[]): MinimiserBenchRow {
   let shared = { terms: 0, literals: 0, connections: 0 };
   let theirs: number[][][][] = [];
-  const tOurs = median(() => {
+  const tOurs = medianOf(PASSES, () => {
     shared = { terms: 0, literals: 0, connections: 0 };
     for (const f of cases) {
       const s = coverStats(minimiseCover(f));
       shared = { terms: shared.terms + s.terms, literals: shared.literals + s.literals, connections: shared.connections + s.connections };
     }
   });
-  const tTheirs = median(() => {
+  const tTheirs = medianOf(PASSES, () => {
     theirs = cases.map((f) => f.on.map((on, j) => referenceEspresso(on.map(toLiterals), f.dc[j].map(toLiterals))));
   });
   const tTerms = theirs.reduce((s, f) => s + f.reduce((q, c) => q + c.length, 0), 0);

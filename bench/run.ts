@@ -21,7 +21,7 @@ import { checkDrive } from '../src/core/physics/check-drive.js';
 import { billOfMaterials } from '../src/core/physics/bom.js';
 import { driveSnapshots } from '../src/core/sim/snapshots.js';
 import { seededRandom } from '../src/core/model/random.js';
-import { benchMinimiseLogic } from './logic-vs-espresso.js';
+import { benchMinimiseLogic } from './minimise-logic.js';
 import { median } from './median.js';
 
 interface Row {

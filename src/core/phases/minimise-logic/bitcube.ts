@@ -198,23 +198,9 @@ export function cofactor(sp: Space, c: BCube, p: BCube): BCube {
   return r;
 }
 
-/** Field (1 = '0', 2 = '1', 3 = '-') of input variable i. */
-export function field(c: BCube, i: number): number {
-  return (c[(i / VARS_PER_WORD) | 0] >>> (2 * (i % VARS_PER_WORD))) & 3;
-}
-
 /** Word and shift of input variable i. */
 export function varPos(i: number): [word: number, shift: number] {
   return [(i / VARS_PER_WORD) | 0, 2 * (i % VARS_PER_WORD)];
-}
-
-/** Copy of c with input variable i set to field f. */
-export function setField(c: BCube, i: number, f: number): BCube {
-  const r = c.slice();
-  const k = (i / VARS_PER_WORD) | 0;
-  const s = 2 * (i % VARS_PER_WORD);
-  r[k] = (r[k] & ~(3 << s)) | (f << s);
-  return r;
 }
 
 // ---- full-cube operations ----
@@ -222,12 +208,6 @@ export function setField(c: BCube, i: number, f: number): BCube {
 /** True when full cube a contains full cube b (inputs and outputs). */
 export function contains(sp: Space, a: BCube, b: BCube): boolean {
   for (let k = 0; k < sp.w; k++) if ((b[k] & ~a[k]) !== 0) return false;
-  return true;
-}
-
-/** Same cube (all words)? */
-export function equal(sp: Space, a: BCube, b: BCube): boolean {
-  for (let k = 0; k < sp.w; k++) if (a[k] !== b[k]) return false;
   return true;
 }
 
@@ -242,12 +222,6 @@ export function outCount(sp: Space, c: BCube): number {
   let n = 0;
   for (let k = sp.wi; k < sp.w; k++) n += popcount(c[k]);
   return n;
-}
-
-/** True when the output part is empty. */
-export function outEmpty(sp: Space, c: BCube): boolean {
-  for (let k = sp.wi; k < sp.w; k++) if (c[k] !== 0) return false;
-  return true;
 }
 
 /** A string key of all words, for de-duplication. */

@@ -7,13 +7,16 @@
  * cord branch); with a single function every group has one column and this is the ordinary
  * unate covering problem.
  *
- * Method: the reductions of Quine and McCluskey (essential columns, row dominance, column
- * dominance — the latter only where the fixed charges keep it sound), then depth-first branch
- * and bound on the uncovered row with fewest columns, pruned by a lower bound from a maximal
- * set of rows that share no group (each needs its own group, so their cheapest columns add
- * up). Reference: O. Coudert, "On solving covering problems", DAC 1996, §2–3, for the
- * independent-set bound; E. J. McCluskey, Bell System Technical Journal 35(6), 1956, for the
- * table reductions. A greedy cover gives the first upper bound.
+ * Method: depth-first branch and bound. At every node the table is first reduced as Quine and
+ * McCluskey reduce a prime implicant chart (essential columns, row dominance, column
+ * dominance — the latter only where the fixed charges keep it sound); then the search
+ * branches on the uncovered row with fewest columns, pruned by lower bounds: a maximal set of
+ * rows that share no group (each needs its own group, so their cheapest columns add up), and
+ * in the unate case the per-row share of the cheapest column. A column tried in one branch is
+ * left out of the later branches. References: O. Coudert, "On solving covering problems",
+ * DAC 1996, for the independent-set bound; E. J. McCluskey, Bell System Technical Journal
+ * 35(6), 1956, for the table reductions. A greedy cover (or the caller's bound) gives the
+ * first upper bound.
  *
  * Postcondition: the chosen columns cover every row; `optimal` is true when the search ran to
  * completion within the node limit.

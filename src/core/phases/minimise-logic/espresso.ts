@@ -18,7 +18,7 @@
  * Preconditions: F misses the off-set; D does not meet the on-set.
  * Postcondition: the result covers the on-set F0 covered and misses R.
  */
-import { type BCube, type Space, inDistance, inDisjoint, outMeet, outCount, literals, outputsOf, hasOutput } from './bitcube.js';
+import { type BCube, type Space, contains, inDistance, outMeet, outCount, literals, outputsOf, hasOutput } from './bitcube.js';
 import { cubeCovered } from './unate.js';
 import { expandCover, expandCube, allowMask, type Boundary } from './expand.js';
 import { irredundantCover, byOutput } from './irredundant.js';
@@ -32,7 +32,7 @@ import type { CoverCost } from './types.js';
 const STALL = 1;
 
 /** Price of one multi-output cube. */
-export function cubeCost(sp: Space, c: BCube, cost: CoverCost): number {
+function cubeCost(sp: Space, c: BCube, cost: CoverCost): number {
   return cost.term + cost.literal * literals(sp, c) + cost.connection * outCount(sp, c);
 }
 
@@ -78,10 +78,10 @@ export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R
 
 /**
  * Which cubes are essential primes: c is not essential exactly when the consensus of c with
- * the other cubes and D covers it (Brayton et al. §4.5). For a conflict in the output part
+ * the other cubes and D covers it (Brayton et al. ch. 4). For a conflict in the output part
  * the consensus feeds the union of the two output parts over the shared inputs.
  */
-export function essentials(sp: Space, F: readonly BCube[], D: readonly BCube[]): boolean[] {
+function essentials(sp: Space, F: readonly BCube[], D: readonly BCube[]): boolean[] {
   const all = [...F, ...D];
   return F.map((c, i) => {
     const h: BCube[] = [];
@@ -110,7 +110,7 @@ export function essentials(sp: Space, F: readonly BCube[], D: readonly BCube[]):
 }
 
 /**
- * LAST_GASP (Brayton et al. §4.6): reduce each cube against the unchanged rest, expand each
+ * LAST_GASP (Brayton et al. ch. 4): reduce each cube against the unchanged rest, expand each
  * reduced cube aiming at the other reduced cubes, and keep the new cubes that swallow at
  * least one other; IRREDUNDANT decides whether they pay.
  */
@@ -118,7 +118,7 @@ function lastGasp(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: Bou
   const reduced: BCube[] = [];
   F.forEach((c) => {
     const r = reduceCube(sp, c, F, dc);
-    if (r !== null && !sameCube(sp, r, c)) reduced.push(r);
+    if (r !== null && !contains(sp, r, c)) reduced.push(r); // only cubes that shrank
   });
   if (reduced.length < 2) return F.slice();
   const allow = allowMask(sp, false);
@@ -126,13 +126,13 @@ function lastGasp(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: Bou
   reduced.forEach((g, i) => {
     const others = reduced.filter((_, q) => q !== i);
     const e = expandCube(sp, g, R, others, allow);
-    if (others.some((o) => containsFull(sp, e, o))) fresh.push(e);
+    if (others.some((o) => contains(sp, e, o))) fresh.push(e);
   });
   if (fresh.length === 0) return F.slice();
   return irredundantCover(sp, [...F, ...fresh], dc, price);
 }
 
-/** MAKE_SPARSE (Brayton et al. §4.7): fewer output connections, then larger input parts. */
+/** MAKE_SPARSE (Brayton et al. ch. 4): fewer output connections, then larger input parts. */
 function makeSparse(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: Boundary, cost: CoverCost): BCube[] {
   let cur = F.slice();
   let curCost = total(sp, cur, cost);
@@ -143,15 +143,4 @@ function makeSparse(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: B
     cur = next;
     curCost = c;
   }
-}
-
-function sameCube(sp: Space, a: BCube, b: BCube): boolean {
-  for (let k = 0; k < sp.w; k++) if (a[k] !== b[k]) return false;
-  return true;
-}
-
-function containsFull(sp: Space, a: BCube, b: BCube): boolean {
-  if (inDisjoint(sp, a, b)) return false;
-  for (let k = 0; k < sp.w; k++) if ((b[k] & ~a[k]) !== 0) return false;
-  return true;
 }

@@ -3,7 +3,7 @@
  * (sparse functions of many variables: the complement of k independent cubes of l literals
  * has l^k cubes). A raise is accepted when the grown cube still lies in on_j ∪ dc_j for every
  * function j it feeds, a cube-in-cover test answered by tautology (Brayton et al., "Logic
- * Minimization Algorithms for VLSI Synthesis", Kluwer 1984, §3.2).
+ * Minimization Algorithms for VLSI Synthesis", Kluwer 1984, ch. 3).
  *
  * Order: first grow towards the other cubes of the cover, nearest first (so that they become
  * covered), then free the remaining literals one by one in variable order, then add the

@@ -1,14 +1,14 @@
 /**
  * EXPAND of Espresso-II (Brayton et al., "Logic Minimization Algorithms for VLSI Synthesis",
- * Kluwer 1984, §4.2; R. Rudell, "Multiple-valued logic minimization for PLA synthesis",
- * UCB/ERL M86/65, 1986, ch. 3): grow each cube of the cover into a prime that stays off the
+ * Kluwer 1984, ch. 4; R. Rudell, "Multiple-valued logic minimization for PLA synthesis",
+ * UCB/ERL M86/65, 1986): grow each cube of the cover into a prime that stays off the
  * off-set R, choosing the raised parts so as to swallow as many other cubes as possible.
  *
  * Every R cube feeds exactly one function. Against the cube c being grown, an off cube r is
  * kept away by its "blocking" bits: the lowered bits of c that, once raised, would let c meet
  * r (one bit per conflicting input variable, plus r's function bit when c does not feed it).
  * c stays off r while at least one of those bits stays lowered, so the choice of bits to keep
- * is a covering problem (the blocking matrix of §4.2).
+ * is a covering problem (the blocking matrix of EXPAND).
  *
  * Precondition: every cube of F misses R. Postcondition: every returned cube is prime (no
  * allowed bit can be raised without meeting R), and every cube of F lies in one of them.
@@ -205,7 +205,7 @@ const LOWERING_NODES = 300;
 
 /**
  * The rest of the blocking matrix: the fewest free bits to keep lowered so that every live row
- * keeps one (a unate covering problem, Brayton et al. §4.2 "minimum lowering set"; solved by
+ * keeps one (a unate covering problem, Brayton et al. ch. 4, the minimum lowering set; solved by
  * cover-exact.ts within a node limit, starting from the greedy choice). Every other free bit
  * is raised by the caller, so the cube comes out prime with as few literals as found.
  */

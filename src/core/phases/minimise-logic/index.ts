@@ -7,8 +7,8 @@
  * cheapest under `opts.cost` that the chosen method finds.
  *
  * Methods (see docs/methods/minimise-logic.md):
- * - 'exact': all multi-output prime implicants (McCluskey's tagged method, BSTJ 35(6), 1956,
- *   on cubes) and a minimum-cost covering by branch and bound.
+ * - 'exact': all multi-output prime implicants (the tagged Quine–McCluskey method, on cubes;
+ *   E. J. McCluskey, BSTJ 35(6), 1956) and a minimum-cost covering by branch and bound.
  * - 'heuristic': the Espresso-II loop (Brayton, Hachtel, McMullen, Sangiovanni-Vincentelli,
  *   "Logic Minimization Algorithms for VLSI Synthesis", Kluwer 1984) on packed cubes, never
  *   enumerating minterms.
@@ -25,7 +25,8 @@ import type { Cube } from '../../model/cube.js';
 import {
   type BCube, type Space, makeSpace, parseInput, formatInput, withOutputs, outputsOf, inDisjoint, key, absorbFull,
 } from './bitcube.js';
-import { compact, complement, subtractCover } from './unate.js';
+import { complement } from './unate.js';
+import { compact, subtractCover } from './tidy.js';
 import { espresso } from './espresso.js';
 import type { Boundary } from './expand.js';
 import { exactMinimise, EXACT_MAX_VARS, type ExactLimits } from './exact.js';
@@ -60,7 +61,7 @@ export function minimiseCover(f: MultiFunction, opts: MinimiseOptions = {}): Sop
   if (opts.share === false && m > 1) {
     const terms: Term[] = [];
     for (let j = 0; j < m; j++) {
-      const one = solve({ vars: f.vars, on: [f.on[j]], dc: [f.dc[j] ?? []] }, method, cost);
+      const one = solve({ vars: f.vars, on: [f.on[j]], dc: [f.dc[j]] }, method, cost);
       for (const t of one) terms.push({ cube: t.cube, outputs: [j] });
     }
     return { vars: f.vars, functions: m, terms };

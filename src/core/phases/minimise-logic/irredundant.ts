@@ -1,6 +1,6 @@
 /**
  * IRREDUNDANT of Espresso-II (Brayton et al., "Logic Minimization Algorithms for VLSI
- * Synthesis", Kluwer 1984, §4.3): split the cover into relatively essential cubes E (not
+ * Synthesis", Kluwer 1984, ch. 4): split the cover into relatively essential cubes E (not
  * covered by the rest and the don't-cares D), totally redundant ones (covered by E ∪ D) and
  * partially redundant ones Rp; then keep a cheapest subset of Rp that, with E, still covers.
  *
@@ -19,7 +19,7 @@ import { cubeCovered, splitVar, tautology } from './unate.js';
 import { solveCover } from './cover-exact.js';
 
 /** Node limit of the covering search inside IRREDUNDANT (then the best cover found so far). */
-const IRREDUNDANT_NODES = 2000;
+const IRREDUNDANT_NODES = 300;
 
 /** The cubes feeding each function, as lists (by reference). */
 export function byOutput(sp: Space, cubes: readonly BCube[]): BCube[][] {

@@ -2,40 +2,28 @@
  * Prime implicants, on cubes.
  *
  * Single function: the recursive Shannon method (Brayton et al., "Logic Minimization
- * Algorithms for VLSI Synthesis", Kluwer 1984, §3.6): the primes of a unate cover are its
+ * Algorithms for VLSI Synthesis", Kluwer 1984, ch. 3): the primes of a unate cover are its
  * cubes after single-cube containment; otherwise split on a binate variable x and keep the
  * maximal cubes among x·P(f_x), x'·P(f_x') and the pairwise intersections P(f_x) ∩ P(f_x').
  *
- * Several functions: the multi-output primes of E. J. McCluskey's tagged method ("Minimization
- * of Boolean functions", Bell System Technical Journal 35(6), 1956, and its multi-output form
- * by Bartee): a cube c with tag S (every function c implies) is prime when no larger cube
- * implies all of S. Every prime of f_S = ∏_{j∈S} f_j is the intersection of a prime of
+ * Several functions: the multi-output primes of the tagged form of the Quine–McCluskey method
+ * (for one function: E. J. McCluskey, "Minimization of Boolean functions", Bell System
+ * Technical Journal 35(6), 1956): a cube c with tag S (every function c implies) is prime when
+ * no larger cube implies all of S. Every prime of f_S = ∏_{j∈S} f_j is the intersection of a prime of
  * f_{S∖k} with a prime of f_k, so we close the single-function primes under that step,
  * keeping only primes as generators.
  *
  * Postcondition: every returned cube is prime; `tag` lists every function it implies.
  */
 import {
-  type BCube, type Space, inAnd, inContains, inDisjoint, isUniverse, key, popcount, varPos,
+  type BCube, type Space, inAnd, inContains, inDisjoint, isUniverse, key, varPos,
 } from './bitcube.js';
 import { cofactorVar, splitVar } from './unate.js';
+import { absorbCubes } from './tidy.js';
 
-/** Input-part single-cube containment: keep maximal cubes, deterministic order. */
-export function absorbInputs(sp: Space, t: readonly BCube[]): BCube[] {
-  const sorted = t.map((c, i) => ({ c, i, l: lits(sp, c) })).sort((a, b) => a.l - b.l || a.i - b.i);
-  const out: BCube[] = [];
-  for (const { c } of sorted) {
-    let inside = false;
-    for (const o of out) if (inContains(sp, o, c)) { inside = true; break; }
-    if (!inside) out.push(c.length === sp.wi ? c : c.slice(0, sp.wi));
-  }
-  return out;
-}
-
-function lits(sp: Space, c: BCube): number {
-  let n = 0;
-  for (let k = 0; k < sp.wi; k++) n += popcount(sp.low[k] & ~(c[k] & (c[k] >>> 1)));
-  return n;
+/** Input-part single-cube containment (maximal cubes, deterministic order), input words only. */
+function absorbInputs(sp: Space, t: readonly BCube[]): BCube[] {
+  return absorbCubes(sp, t).map((c) => (c.length === sp.wi ? c : c.slice(0, sp.wi)));
 }
 
 /** All prime implicants of the function whose on ∪ dc set is the cover t. */

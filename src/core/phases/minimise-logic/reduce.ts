@@ -1,15 +1,15 @@
 /**
  * REDUCE of Espresso-II (Brayton et al., "Logic Minimization Algorithms for VLSI Synthesis",
- * Kluwer 1984, §4.4): shrink each cube, in turn, to the smallest cube that still holds the
+ * Kluwer 1984, ch. 4): shrink each cube, in turn, to the smallest cube that still holds the
  * points only it covers, so that the next EXPAND can grow it in a new direction. For a
  * multi-output cube this is done per function fed: a function whose points are all covered
  * elsewhere is dropped from the cube's output part.
  *
- * Also the output-part lowering of MAKE_SPARSE (§4.7): drop each cord branch whose points are
- * covered by other terms, which our cost counts as a connection saved.
+ * Also the output-part lowering of MAKE_SPARSE (Brayton et al. ch. 4): drop each cord branch
+ * whose points are covered by other terms, which our cost counts as a connection saved.
  *
- * Precondition: D does not meet the on-set. Postcondition: the union, restricted to the
- * on-set, is unchanged.
+ * Precondition: the don't-cares do not meet the on-set. Postcondition: the union, restricted
+ * to the on-set, is unchanged.
  */
 import {
   type BCube, type Space, cofactor, cubeWeights, inAnd, inDisjoint, inDistance, inOr, literals, outCount, outputsOf, hasOutput, outputBit, withOutputs,

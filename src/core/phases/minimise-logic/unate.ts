@@ -90,7 +90,7 @@ export function tautology(sp: Space, t: readonly BCube[]): boolean {
     for (const c of cur) if (isUniverse(sp, c)) return true;
     const { zeros, ones } = columns(sp, cur);
     // A variable that is unate in the cover can be set against its literal: the cover is a
-    // tautology iff the cubes free of every unate variable are (Brayton et al. §3.2).
+    // tautology iff the cubes free of every unate variable are (Brayton et al. ch. 3).
     let unate = false;
     let binate = false;
     const unateMask = new Array<number>(sp.wi);
@@ -172,7 +172,7 @@ export interface Budget {
 }
 
 /**
- * Complement of a cover over the input space (Brayton et al. §3.3, with the merge step
+ * Complement of a cover over the input space (Brayton et al. ch. 3, with the merge step
  * that lifts a cube present, or contained, on both sides of the split). With a budget, null
  * once more cubes than it allows have been produced (the complement of sparse covers over
  * many variables can be exponentially large).
@@ -219,7 +219,7 @@ export function complement(sp: Space, t: readonly BCube[], budget: Budget = { le
 
 /**
  * Smallest cube containing the complement of the cover, or null when the cover is a
- * tautology (Brayton et al. §4.4, the core of REDUCE). Past the budget of recursion nodes the
+ * tautology (Brayton et al. ch. 4, the core of REDUCE). Past the budget of recursion nodes the
  * answer is the universe: a safe over-estimate (the caller then does not reduce).
  */
 export function supercubeOfComplement(sp: Space, t: readonly BCube[], budget: Budget = { left: 4096 }): BCube | null {

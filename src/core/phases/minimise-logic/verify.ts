@@ -3,7 +3,7 @@
  * function j, each on-set cube must lie in the union of the terms feeding j, and each term
  * feeding j must lie in on_j ∪ dc_j. Both are cube-in-cover tests, answered by the tautology
  * of a cofactor (Brayton et al., "Logic Minimization Algorithms for VLSI Synthesis", Kluwer
- * 1984, §3.2).
+ * 1984, ch. 3).
  */
 import { type BCube, makeSpace, parseInput } from './bitcube.js';
 import { cubeCovered } from './unate.js';

@@ -4,7 +4,8 @@
  * implicants and minimum-cost covers of small multi-output functions.
  */
 import type { MultiFunction, SopCover, CoverCost } from '../../../../src/core/phases/minimise-logic/index.js';
-import type { Random } from '../../../../src/core/model/random.js';
+import fc from 'fast-check';
+import { seededRandom, type Random } from '../../../../src/core/model/random.js';
 
 /** Minterm index → '0'/'1' string, variable 0 first. */
 export function bitsOf(x: number, n: number): string {
@@ -138,3 +139,28 @@ export function randomCube(rnd: Random, n: number, lits: number): string {
   }
   return a.join('');
 }
+
+/** Truth table of a cover: one byte per minterm (variable 0 is the most significant bit). */
+export function truth(cubes: readonly string[], n: number): Uint8Array {
+  const t = new Uint8Array(2 ** n);
+  for (const c of cubes) {
+    let care = 0;
+    let val = 0;
+    for (let i = 0; i < n; i++) {
+      const bit = 2 ** (n - 1 - i);
+      if (c[i] !== '-') { care += bit; if (c[i] === '1') val += bit; }
+    }
+    for (let x = 0; x < t.length; x++) if ((x & care) === val) t[x] = 1;
+  }
+  return t;
+}
+
+/** Random covers; up to 17 variables so that the packed cubes span two words. */
+export const coverOf = (maxVars: number, maxCubes: number) =>
+  fc
+    .record({ n: fc.integer({ min: 1, max: maxVars }), k: fc.integer({ min: 0, max: maxCubes }), seed: fc.integer({ min: 0, max: 2 ** 31 - 1 }) })
+    .map(({ n, k, seed }) => {
+      const rnd = seededRandom(seed);
+      // Few literals make tautologies and overlaps likely.
+      return { n, cubes: Array.from({ length: k }, () => randomCube(rnd, n, rnd.int(Math.min(n, 4) + 1))) };
+    });
