@@ -5,6 +5,7 @@
  * ours / theirs. Also term and literal totals for both. Called by bench/run.ts; not a test.
  */
 import { median as medianOf } from './median.js';
+import { randomCube } from '../tests/core/phases/minimise-logic/brute.js';
 import { espresso as referenceEspresso } from 'espresso-iisojs';
 import { minimiseCover, minimiseSop, coverStats, type MultiFunction, type MinimiserMethod } from '../src/core/phases/minimise-logic/index.js';
 import { seededRandom, type Random } from '../src/core/model/random.js';
@@ -27,23 +28,13 @@ interface Case {
 const PASSES = 5;
 
 
-function cube(rnd: Random, n: number, lits: number): string {
-  const a: string[] = Array(n).fill('-');
-  const idx = [...Array(n).keys()];
-  for (let i = 0; i < lits; i++) {
-    const k = i + rnd.int(n - i);
-    [idx[i], idx[k]] = [idx[k], idx[i]];
-    a[idx[i]] = rnd.next() < 0.5 ? '0' : '1';
-  }
-  return a.join('');
-}
 
 /** 10 variables; on-set of 4–20 random cubes, a few don't-care cubes outside it. */
 function cubeCases(rnd: Random, count: number): Case[] {
   return Array.from({ length: count }, () => {
     const n = 10;
-    const on = Array.from({ length: 4 + rnd.int(17) }, () => cube(rnd, n, 2 + rnd.int(7)));
-    const dc = subtract(Array.from({ length: rnd.int(6) }, () => cube(rnd, n, 3 + rnd.int(6))), on);
+    const on = Array.from({ length: 4 + rnd.int(17) }, () => randomCube(rnd, n, 2 + rnd.int(7)));
+    const dc = subtract(Array.from({ length: rnd.int(6) }, () => randomCube(rnd, n, 3 + rnd.int(6))), on);
     return { n, on, dc };
   });
 }
