@@ -1,0 +1,39 @@
+// Lint rules of the project (ESLint flat config). Formatting is Prettier's job (.prettierrc.json);
+// these rules catch mistakes, using the type checker (typescript-eslint's type-checked set).
+import js from '@eslint/js';
+import tseslint from 'typescript-eslint';
+import prettier from 'eslint-config-prettier';
+
+export default tseslint.config(
+  { ignores: ['dist/', 'node_modules/', 'build/', 'out/', 'coverage/', 'tests/fixtures/', 'examples/', 'docs/'] },
+  js.configs.recommended,
+  ...tseslint.configs.recommendedTypeChecked,
+  {
+    languageOptions: {
+      parserOptions: {
+        projectService: { allowDefaultProject: ['eslint.config.js', 'bin/*.js'] },
+        tsconfigRootDir: import.meta.dirname,
+      },
+    },
+    rules: {
+      // A function fits a screen; a longer one says why in an eslint-disable comment.
+      'max-lines-per-function': ['error', { max: 80, skipBlankLines: true, skipComments: true, IIFEs: true }],
+      'max-depth': ['error', 5],
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/consistent-type-imports': ['error', { fixStyle: 'inline-type-imports' }],
+      eqeqeq: ['error', 'always', { null: 'ignore' }],
+      'no-console': ['error', { allow: ['warn', 'error'] }],
+    },
+  },
+  {
+    // Tests and benchmarks may be long (tables of cases) and talk to the console.
+    files: ['tests/**/*.ts', 'bench/**/*.ts'],
+    rules: { 'max-lines-per-function': 'off', 'no-console': 'off' },
+  },
+  {
+    files: ['**/*.js'],
+    ...tseslint.configs.disableTypeChecked,
+    languageOptions: { globals: { process: 'readonly', console: 'readonly' } },
+  },
+  prettier,
+);
