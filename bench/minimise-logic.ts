@@ -7,7 +7,13 @@
 import { median as medianOf } from './median.js';
 import { randomCube } from '../tests/core/phases/minimise-logic/brute.js';
 import { espresso as referenceEspresso } from 'espresso-iisojs';
-import { minimiseCover, minimiseSop, coverStats, type MultiFunction, type MinimiserMethod } from '../src/core/phases/minimise-logic/index.js';
+import {
+  minimiseCover,
+  minimiseSop,
+  coverStats,
+  type MultiFunction,
+  type MinimiserMethod,
+} from '../src/core/phases/minimise-logic/index.js';
 import { seededRandom, type Random } from '../src/core/model/random.js';
 import { literalCount, subtract } from '../src/core/model/cube.js';
 
@@ -27,14 +33,15 @@ interface Case {
 
 const PASSES = 5;
 
-
-
 /** 10 variables; on-set of 4–20 random cubes, a few don't-care cubes outside it. */
 function cubeCases(rnd: Random, count: number): Case[] {
   return Array.from({ length: count }, () => {
     const n = 10;
     const on = Array.from({ length: 4 + rnd.int(17) }, () => randomCube(rnd, n, 2 + rnd.int(7)));
-    const dc = subtract(Array.from({ length: rnd.int(6) }, () => randomCube(rnd, n, 3 + rnd.int(6))), on);
+    const dc = subtract(
+      Array.from({ length: rnd.int(6) }, () => randomCube(rnd, n, 3 + rnd.int(6))),
+      on,
+    );
     return { n, on, dc };
   });
 }
@@ -80,10 +87,17 @@ function compareSingle(label: string, cases: readonly Case[], method: MinimiserM
   const literalsIn = cases.map((c) => ({ on: c.on.map(toLiterals), dc: c.dc.map(toLiterals) }));
   let ours: string[][] = [];
   let theirs: number[][][] = [];
-  const tOurs = medianOf(PASSES, () => { ours = cases.map((c) => minimiseSop(c.on, c.dc, c.n, { method, cost })); });
-  const tTheirs = medianOf(PASSES, () => { theirs = literalsIn.map((c) => referenceEspresso(c.on, c.dc)); });
+  const tOurs = medianOf(PASSES, () => {
+    ours = cases.map((c) => minimiseSop(c.on, c.dc, c.n, { method, cost }));
+  });
+  const tTheirs = medianOf(PASSES, () => {
+    theirs = literalsIn.map((c) => referenceEspresso(c.on, c.dc));
+  });
   const a = totals(ours);
-  const b = { terms: theirs.reduce((s, c) => s + c.length, 0), literals: theirs.reduce((s, c) => s + c.reduce((q, t) => q + t.length, 0), 0) };
+  const b = {
+    terms: theirs.reduce((s, c) => s + c.length, 0),
+    literals: theirs.reduce((s, c) => s + c.reduce((q, t) => q + t.length, 0), 0),
+  };
   return {
     name: `${label}, ${cases.length} functions, method '${method}': time; terms / literals`,
     figure: `${ms(tOurs)}; ${a.terms} / ${a.literals}`,
@@ -113,7 +127,23 @@ function excitationCases(rnd: Random, count: number): MultiFunction[] {
         for (const [i, v] of pairs) g[i] = v;
         return g.join('');
       };
-      const rows: [string, number][] = [[guard([[a, '1']]), rnd.int(16)], [guard([[a, '0'], [b, '1']]), rnd.int(16)], [guard([[a, '0'], [b, '0']]), s]];
+      const rows: [string, number][] = [
+        [guard([[a, '1']]), rnd.int(16)],
+        [
+          guard([
+            [a, '0'],
+            [b, '1'],
+          ]),
+          rnd.int(16),
+        ],
+        [
+          guard([
+            [a, '0'],
+            [b, '0'],
+          ]),
+          s,
+        ],
+      ];
       const outs = [rnd.int(2), rnd.int(2)];
       rows.forEach(([g, to], k) => {
         const nq = to.toString(2).padStart(bits, '0');
@@ -138,7 +168,11 @@ function compareMulti(cases: readonly MultiFunction[]): MinimiserBenchRow {
     shared = { terms: 0, literals: 0, connections: 0 };
     for (const f of cases) {
       const s = coverStats(minimiseCover(f));
-      shared = { terms: shared.terms + s.terms, literals: shared.literals + s.literals, connections: shared.connections + s.connections };
+      shared = {
+        terms: shared.terms + s.terms,
+        literals: shared.literals + s.literals,
+        connections: shared.connections + s.connections,
+      };
     }
   });
   const tTheirs = medianOf(PASSES, () => {

@@ -32,7 +32,6 @@ interface Row {
   readonly goal: string;
 }
 
-
 const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
 
 /** A flat table back into the JSON form (one transition per row), so the benchmark includes parsing. */
@@ -69,7 +68,13 @@ function benchAnalyse(): Row {
   const text = flatToJsonText(randomFlatMachine(1000, 6, 3, 7));
   const t = median(5, () => mustAnalyse(text, 'random-1000.json'));
   const ref = median(5, () => JSON.parse(text));
-  return { name: 'parse + validate + minimise, random 1000 states × 6 inputs', figure: ms(t), reference: `JSON.parse of the same file ${ms(ref)}`, ratio: (t / ref).toFixed(0) + '×', goal: '< 1 s' };
+  return {
+    name: 'parse + validate + minimise, random 1000 states × 6 inputs',
+    figure: ms(t),
+    reference: `JSON.parse of the same file ${ms(ref)}`,
+    ratio: (t / ref).toFixed(0) + '×',
+    goal: '< 1 s',
+  };
 }
 
 function benchAuto(): Row {
@@ -77,7 +82,13 @@ function benchAuto(): Row {
   const a = mustAnalyse(text, 'random-16.json');
   const t = median(3, () => mustBuild(a, 'auto', false));
   const ref = median(3, () => mustBuild(a, 'binary', false));
-  return { name: `build --encoding auto, random 16 states × 4 inputs (${a.minimised.machine.states.length} after minimisation), without checks`, figure: ms(t), reference: `binary encoding ${ms(ref)}`, ratio: (t / ref).toFixed(1) + '×', goal: '< 5 s' };
+  return {
+    name: `build --encoding auto, random 16 states × 4 inputs (${a.minimised.machine.states.length} after minimisation), without checks`,
+    figure: ms(t),
+    reference: `binary encoding ${ms(ref)}`,
+    ratio: (t / ref).toFixed(1) + '×',
+    goal: '< 5 s',
+  };
 }
 
 function benchSimulation(): Row[] {
@@ -99,8 +110,20 @@ function benchSimulation(): Row[] {
     for (const s of seq) actor.send(clockEvent(f.inputs, s) as never);
   });
   return [
-    { name: 'part-level simulation, crossing example, 2000 clocks', figure: `${((evals / t) * 1000 / 1e6).toFixed(2)} M gate evaluations/s`, reference: '—', ratio: '—', goal: '≥ 1 M/s' },
-    { name: 'part-level clocks per second vs xstate actor steps per second (same machine, same 2000 clocks)', figure: `${((seq.length / t) * 1000).toFixed(0)} clocks/s`, reference: `xstate ${((seq.length / tx) * 1000).toFixed(0)} steps/s`, ratio: (tx / t).toFixed(2) + '×', goal: '—' },
+    {
+      name: 'part-level simulation, crossing example, 2000 clocks',
+      figure: `${(((evals / t) * 1000) / 1e6).toFixed(2)} M gate evaluations/s`,
+      reference: '—',
+      ratio: '—',
+      goal: '≥ 1 M/s',
+    },
+    {
+      name: 'part-level clocks per second vs xstate actor steps per second (same machine, same 2000 clocks)',
+      figure: `${((seq.length / t) * 1000).toFixed(0)} clocks/s`,
+      reference: `xstate ${((seq.length / tx) * 1000).toFixed(0)} steps/s`,
+      ratio: (tx / t).toFixed(2) + '×',
+      goal: '—',
+    },
   ];
 }
 
@@ -116,7 +139,13 @@ function benchChecks(): Row {
     checkRecovery(b.build, DEFAULT_PROFILE);
   });
   const ref = median(3, () => mustBuild(a, 'binary', false));
-  return { name: `exhaustive checks (equivalence, forbidden input, recovery), ${b.build.encoding.bits} state bits × 6 inputs`, figure: ms(t), reference: `synthesis of the same build ${ms(ref)}`, ratio: (t / ref).toFixed(1) + '×', goal: '< 1 s' };
+  return {
+    name: `exhaustive checks (equivalence, forbidden input, recovery), ${b.build.encoding.bits} state bits × 6 inputs`,
+    figure: ms(t),
+    reference: `synthesis of the same build ${ms(ref)}`,
+    ratio: (t / ref).toFixed(1) + '×',
+    goal: '< 1 s',
+  };
 }
 
 function benchDrive(): Row {
@@ -131,7 +160,13 @@ function benchDrive(): Row {
     checkDrive(b.build.netlist, DEFAULT_PROFILE, driveSnapshots(b.build, DEFAULT_PROFILE));
     billOfMaterials(b.build.netlist, DEFAULT_PROFILE);
   });
-  return { name: `drive check + BOM, largest example (${f})`, figure: ms(drive), reference: `whole build with checks ${ms(full)}`, ratio: `${((drive / full) * 100).toFixed(1)} %`, goal: '< 10 % of build' };
+  return {
+    name: `drive check + BOM, largest example (${f})`,
+    figure: ms(drive),
+    reference: `whole build with checks ${ms(full)}`,
+    ratio: `${((drive / full) * 100).toFixed(1)} %`,
+    goal: '< 10 % of build',
+  };
 }
 
 async function main(): Promise<void> {

@@ -84,7 +84,11 @@ function nodeReference(text: string): { read: number; build: number } {
   return { read: median(reads), build: median(builds) };
 }
 
-async function keystrokes(page: Page, base: string, text: string): Promise<{ sketch: number; build: number; checks: number }> {
+async function keystrokes(
+  page: Page,
+  base: string,
+  text: string,
+): Promise<{ sketch: number; build: number; checks: number }> {
   await page.goto(base + machineHash(text));
   let job = Number(await page.locator('lw-app').getAttribute('data-job'));
   await whenAnswered(page, job, 'checked');
@@ -93,7 +97,9 @@ async function keystrokes(page: Page, base: string, text: string): Promise<{ ske
     t.focus();
     // Inside the closing comment line, so every keystroke leaves a machine that builds.
     t.setSelectionRange(t.value.length - 1, t.value.length - 1);
-    window.addEventListener('keydown', () => ((window as unknown as { lwKey: number }).lwKey = performance.now()), { capture: true });
+    window.addEventListener('keydown', () => ((window as unknown as { lwKey: number }).lwKey = performance.now()), {
+      capture: true,
+    });
   });
   const sketch: number[] = [];
   const build: number[] = [];
@@ -126,16 +132,46 @@ export async function benchWeb(): Promise<{ rows: WebRow[] }> {
         loads.push({ sketch: await whenAnswered(page, 1, 'read'), checked: await whenAnswered(page, 1, 'checked') });
         await ctx.close();
       }
-      rows.push({ name: 'designer: first load → sketch drawn (fresh browser profile)', figure: ms(median(loads.map((l) => l.sketch))), reference: '—', ratio: '—', goal: '—' });
-      rows.push({ name: 'designer: first load → built and every check done', figure: ms(median(loads.map((l) => l.checked))), reference: '—', ratio: '—', goal: '—' });
+      rows.push({
+        name: 'designer: first load → sketch drawn (fresh browser profile)',
+        figure: ms(median(loads.map((l) => l.sketch))),
+        reference: '—',
+        ratio: '—',
+        goal: '—',
+      });
+      rows.push({
+        name: 'designer: first load → built and every check done',
+        figure: ms(median(loads.map((l) => l.checked))),
+        reference: '—',
+        ratio: '—',
+        goal: '—',
+      });
       const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
       const page = await ctx.newPage();
       for (const m of [largestExample(), sixteenStates()]) {
         const ref = nodeReference(m.text);
         const k = await keystrokes(page, server.url, m.text);
-        rows.push({ name: `designer: keystroke → sketch, ${m.name}`, figure: ms(k.sketch), reference: `read + layout in Node ${ms(ref.read)}`, ratio: `${(k.sketch / ref.read).toFixed(1)}×`, goal: '< 150 ms' });
-        rows.push({ name: `designer: keystroke → build, ${m.name}`, figure: ms(k.build), reference: `read + layout + build in Node ${ms(ref.build)}`, ratio: `${(k.build / ref.build).toFixed(1)}×`, goal: '< 150 ms' });
-        rows.push({ name: `designer: keystroke → every check done, ${m.name}`, figure: ms(k.checks), reference: '—', ratio: '—', goal: '—' });
+        rows.push({
+          name: `designer: keystroke → sketch, ${m.name}`,
+          figure: ms(k.sketch),
+          reference: `read + layout in Node ${ms(ref.read)}`,
+          ratio: `${(k.sketch / ref.read).toFixed(1)}×`,
+          goal: '< 150 ms',
+        });
+        rows.push({
+          name: `designer: keystroke → build, ${m.name}`,
+          figure: ms(k.build),
+          reference: `read + layout + build in Node ${ms(ref.build)}`,
+          ratio: `${(k.build / ref.build).toFixed(1)}×`,
+          goal: '< 150 ms',
+        });
+        rows.push({
+          name: `designer: keystroke → every check done, ${m.name}`,
+          figure: ms(k.checks),
+          reference: '—',
+          ratio: '—',
+          goal: '—',
+        });
       }
       await ctx.close();
       return { rows };

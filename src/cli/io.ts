@@ -19,7 +19,14 @@ export function nodeIo(): CliIo {
         return { text: readFileSync(path, 'utf8') };
       } catch (e) {
         const code = (e as NodeJS.ErrnoException).code;
-        return { error: code === 'ENOENT' ? `no such file: ${path}` : code === 'EISDIR' ? `${path} is a folder, not a file` : `cannot read ${path} (${code ?? 'error'})` };
+        return {
+          error:
+            code === 'ENOENT'
+              ? `no such file: ${path}`
+              : code === 'EISDIR'
+                ? `${path} is a folder, not a file`
+                : `cannot read ${path} (${code ?? 'error'})`,
+        };
       }
     },
     interactive: Boolean(process.stdin.isTTY && process.stdout.isTTY),

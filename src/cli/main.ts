@@ -57,7 +57,14 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promi
     reportFailure(
       args.errors.map((e) => {
         const guess = didYouMean(e.option, known);
-        return diag('LW700', e.message, { path: e.option }, guess && guess !== e.option ? `did you mean ${guess}? Run \`latchwright --help\` for usage` : 'run `latchwright --help` for usage');
+        return diag(
+          'LW700',
+          e.message,
+          { path: e.option },
+          guess && guess !== e.option
+            ? `did you mean ${guess}? Run \`latchwright --help\` for usage`
+            : 'run `latchwright --help` for usage',
+        );
       }),
       io,
       json,
@@ -77,7 +84,18 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promi
       case 'demo':
         return await runDemo(args, io);
       default:
-        reportFailure([diag('LW700', `unknown command '${args.command}'`, { path: args.command }, 'commands: check, build, compare, step, demo')], io, json);
+        reportFailure(
+          [
+            diag(
+              'LW700',
+              `unknown command '${args.command}'`,
+              { path: args.command },
+              'commands: check, build, compare, step, demo',
+            ),
+          ],
+          io,
+          json,
+        );
         return EXIT.badInput;
     }
   } catch (e) {

@@ -44,12 +44,16 @@ export async function runStep(build: Build, spec: SpecInfo, opts: StepOptions, i
       for (const d of problems) err(formatDiagnostic(d) + '\n');
       return 2;
     }
-    const rows = opts.abstract ? runAbstractScript(build, opts.inputsFile) : runPartScript(build, opts.inputsFile, timingOf(opts.profile ?? DEFAULT_PROFILE));
+    const rows = opts.abstract
+      ? runAbstractScript(build, opts.inputsFile)
+      : runPartScript(build, opts.inputsFile, timingOf(opts.profile ?? DEFAULT_PROFILE));
     io.write(opts.json ? JSON.stringify(rows, null, 2) + '\n' : formatRows(build, rows));
     return rows.some((r) => r.alarms.length > 0 && !opts.abstract) ? 1 : 0;
   }
   if (!io.readKeys) {
-    err('latchwright step: not at a terminal; give the clocks with --inputs FILE (a JSON array, one object of input settings per clock)\n');
+    err(
+      'latchwright step: not at a terminal; give the clocks with --inputs FILE (a JSON array, one object of input settings per clock)\n',
+    );
     return 2;
   }
   return interactive(build, spec, opts, io.readKeys(), io.write);
@@ -69,7 +73,8 @@ export function formatRows(build: Build, rows: readonly StepRow[]): string {
     r.alarms.join('; ') || '-',
   ]);
   const widths = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
-  const line = (cells: string[]): string => cells.map((c, i) => (i === cells.length - 1 ? c : c.padEnd(widths[i]))).join('  ') + '\n';
+  const line = (cells: string[]): string =>
+    cells.map((c, i) => (i === cells.length - 1 ? c : c.padEnd(widths[i]))).join('  ') + '\n';
   return line(head) + body.map(line).join('');
 }
 
@@ -94,12 +99,20 @@ export function drawScreen(s: Screen): string {
   return `\u001b[2J\u001b[H${s.title}\n\n${s.lines.join('\n')}\n`;
 }
 
-async function interactive(build: Build, spec: SpecInfo, opts: StepOptions, keys: AsyncIterable<string>, write: (s: string) => void): Promise<number> {
+async function interactive(
+  build: Build,
+  spec: SpecInfo,
+  opts: StepOptions,
+  keys: AsyncIterable<string>,
+  write: (s: string) => void,
+): Promise<number> {
   const m = build.machine;
   const ik = inputKeys(m.inputs.length);
   const merged = (state: string | null): string => {
     if (state === null || !spec.merged) return '';
-    const from = Object.entries(spec.merged).filter(([o, to]) => to === state && o !== state).map(([o]) => o);
+    const from = Object.entries(spec.merged)
+      .filter(([o, to]) => to === state && o !== state)
+      .map(([o]) => o);
     return from.length > 0 ? ` (stands for ${[state, ...from].join(', ')})` : '';
   };
   const keyHelp = [
@@ -110,7 +123,9 @@ async function interactive(build: Build, spec: SpecInfo, opts: StepOptions, keys
     `${KEYS.undo} undo`,
     `${KEYS.quit} quit`,
   ].join(' · ');
-  const stepper = opts.abstract ? abstractStepper(build) : partStepper(createRunner(build, timingOf(opts.profile ?? DEFAULT_PROFILE)));
+  const stepper = opts.abstract
+    ? abstractStepper(build)
+    : partStepper(createRunner(build, timingOf(opts.profile ?? DEFAULT_PROFILE)));
   const it = keys[Symbol.asyncIterator]();
   let message = stepper.apply('reset');
   for (;;) {
@@ -212,7 +227,13 @@ function abstractStepper(build: Build): Stepper {
     return Object.fromEntries(f.outputs.map((o, k) => [o, String(outputs[k])]));
   };
   return {
-    view: () => ({ state: f.states[state], code: build.encoding.codes[state] ?? '', inputs, outputs: outputsNow(), extra: [] }),
+    view: () => ({
+      state: f.states[state],
+      code: build.encoding.codes[state] ?? '',
+      inputs,
+      outputs: outputsNow(),
+      extra: [],
+    }),
     apply(c) {
       if (c === 'undo') {
         const last = past.pop();

@@ -17,14 +17,25 @@
  * Anything the file system refuses becomes an LW704 diagnostic; a temporary folder left by a
  * failure is removed.
  */
-import { lstatSync, mkdirSync, mkdtempSync, readdirSync, renameSync, rmdirSync, rmSync, writeFileSync, type Stats } from 'node:fs';
+import {
+  lstatSync,
+  mkdirSync,
+  mkdtempSync,
+  readdirSync,
+  renameSync,
+  rmdirSync,
+  rmSync,
+  writeFileSync,
+  type Stats,
+} from 'node:fs';
 import { basename, dirname, isAbsolute, join, resolve } from 'node:path';
 import { diag, type Diagnostic } from '../core/model/diagnostics.js';
 
 /** The file that marks a folder as made by `latchwright build`. */
 export const BUILD_MARKER = '.latchwright-build';
 
-export type WriteResult = { readonly ok: true; readonly files: string[] } | { readonly ok: false; readonly diagnostic: Diagnostic };
+export type WriteResult =
+  { readonly ok: true; readonly files: string[] } | { readonly ok: false; readonly diagnostic: Diagnostic };
 
 const MARKER_TEXT = (names: readonly string[]): string =>
   [
@@ -49,7 +60,10 @@ function statOf(path: string): Stats | undefined {
   }
 }
 
-const failure = (dir: string, message: string, hint?: string): WriteResult => ({ ok: false, diagnostic: diag('LW704', message, { file: dir }, hint) });
+const failure = (dir: string, message: string, hint?: string): WriteResult => ({
+  ok: false,
+  diagnostic: diag('LW704', message, { file: dir }, hint),
+});
 
 const reason = (e: unknown): string => {
   const err = e as NodeJS.ErrnoException;
@@ -65,13 +79,23 @@ function writeAll(folder: string, files: ReadonlyMap<string, string>): void {
 }
 
 /** Write `files` (name → text) into `dir` as described in the module comment. */
-export function writeBuildFolder(dir: string, files: ReadonlyMap<string, string>, opts: { readonly force: boolean }): WriteResult {
+export function writeBuildFolder(
+  dir: string,
+  files: ReadonlyMap<string, string>,
+  opts: { readonly force: boolean },
+): WriteResult {
   const names = [...files.keys()];
   const bad = names.find(badName);
-  if (bad !== undefined) return failure(dir, `cannot write a document named '${bad}' into a folder`, 'document names are plain relative paths');
+  if (bad !== undefined)
+    return failure(
+      dir,
+      `cannot write a document named '${bad}' into a folder`,
+      'document names are plain relative paths',
+    );
   const target = resolve(dir);
   const st = statOf(target);
-  if (st && !st.isDirectory()) return failure(dir, `${dir} exists and is not a folder`, 'choose a folder name that is free, or a folder');
+  if (st && !st.isDirectory())
+    return failure(dir, `${dir} exists and is not a folder`, 'choose a folder name that is free, or a folder');
   let entries: string[] = [];
   try {
     if (st) entries = readdirSync(target);
@@ -81,7 +105,15 @@ export function writeBuildFolder(dir: string, files: ReadonlyMap<string, string>
   const ours = entries.includes(BUILD_MARKER);
   if (st && entries.length > 0 && !ours) {
     if (!opts.force) {
-      return { ok: false, diagnostic: diag('LW702', `${dir} is not empty and was not made by latchwright build (${entries.length} ${entries.length === 1 ? 'entry' : 'entries'}, no ${BUILD_MARKER} file)`, { file: dir }, 'choose another folder, or pass --force to write the documents into it beside what is there') };
+      return {
+        ok: false,
+        diagnostic: diag(
+          'LW702',
+          `${dir} is not empty and was not made by latchwright build (${entries.length} ${entries.length === 1 ? 'entry' : 'entries'}, no ${BUILD_MARKER} file)`,
+          { file: dir },
+          'choose another folder, or pass --force to write the documents into it beside what is there',
+        ),
+      };
     }
     return writeInto(dir, target, files);
   }
@@ -131,7 +163,10 @@ function writeInto(dir: string, target: string, files: ReadonlyMap<string, strin
       written.push(name);
     } catch (e) {
       rmSync(tmp, { force: true });
-      return failure(dir, `cannot write ${name} into ${dir} (${reason(e)}); ${written.length} of ${files.size} documents were written`);
+      return failure(
+        dir,
+        `cannot write ${name} into ${dir} (${reason(e)}); ${written.length} of ${files.size} documents were written`,
+      );
     }
   }
   return { ok: true, files: written };

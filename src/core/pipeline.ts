@@ -11,7 +11,13 @@
 import { DiagnosticError, diag, didYouMean, hasErrors, type Diagnostic } from './model/diagnostics.js';
 import type { Machine, SourceLoc } from './model/machine.js';
 import type { Build, CheckResult, Encoding } from './model/build.js';
-import { encode, ENCODINGS, type EncodeOptions, type EncodeResult, type EncodeStrategy } from './phases/encode/index.js';
+import {
+  encode,
+  ENCODINGS,
+  type EncodeOptions,
+  type EncodeResult,
+  type EncodeStrategy,
+} from './phases/encode/index.js';
 import { synthesise } from './synthesise.js';
 import { countParts, partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
@@ -64,7 +70,8 @@ export function timed<T>(opts: AnalyseOptions, phase: string, run: () => T): T {
 /** parse → validate → minimise states. */
 export function analyse(text: string, file?: string, opts: AnalyseOptions = {}): Analysed | Rejected {
   const parsed = timed(opts, 'parse', () => readMachine(text, file));
-  if (!parsed.machine || hasErrors(parsed.diagnostics)) return { ok: false, form: parsed.form, diagnostics: parsed.diagnostics };
+  if (!parsed.machine || hasErrors(parsed.diagnostics))
+    return { ok: false, form: parsed.form, diagnostics: parsed.diagnostics };
   const machine = parsed.machine;
   const valid = timed(opts, 'validate', () => validate(machine));
   const diagnostics = [...parsed.diagnostics, ...valid.diagnostics];
@@ -113,7 +120,8 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
   const synthOpts = { profile, unusedCodes: unused, actuators: opts.actuators, tooMany: () => false };
   const make = (enc: Encoding): Build => withDrive(synthesise(f, enc, synthOpts), profile);
   // The search prices candidates with the guard method that wins in practice and no unguarded baseline (2 minimisations instead of 5).
-  const price = (enc: Encoding): Build => withDrive(synthesise(f, enc, { ...synthOpts, guard: 'split-by-bit', guardBaseline: false }), profile);
+  const price = (enc: Encoding): Build =>
+    withDrive(synthesise(f, enc, { ...synthOpts, guard: 'split-by-bit', guardBaseline: false }), profile);
   try {
     const encoded = timed(opts, 'encode', () =>
       encode(f, opts.encoding ?? 'auto', {
@@ -129,12 +137,26 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
     if (!encoded.encoding || hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
     const encoding = encoded.encoding;
     const first = timed(opts, 'synthesise', () => make(encoding));
-    const build = opts.unusedCodes === undefined ? withRecovery(first, profile, (to) => withDrive(synthesise(f, encoding, { ...synthOpts, unusedCodes: to }), profile)) : first;
-    if (build !== first) diagnostics.push(diag('LW703', `unused codes left free could lock ${f.name} up, so they are sent to the start state '${f.states[f.start]}'`, {}));
-    const checks = opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, opts.seed ?? 1));
+    const build =
+      opts.unusedCodes === undefined
+        ? withRecovery(first, profile, (to) =>
+            withDrive(synthesise(f, encoding, { ...synthOpts, unusedCodes: to }), profile),
+          )
+        : first;
+    if (build !== first)
+      diagnostics.push(
+        diag(
+          'LW703',
+          `unused codes left free could lock ${f.name} up, so they are sent to the start state '${f.states[f.start]}'`,
+          {},
+        ),
+      );
+    const checks =
+      opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, opts.seed ?? 1));
     return { ok: true, analysed: a, build, search: encoded.search, checks, profile, diagnostics };
   } catch (e) {
-    if (e instanceof DiagnosticError) return { ok: false, form: a.form, diagnostics: [...a.diagnostics, ...e.diagnostics] };
+    if (e instanceof DiagnosticError)
+      return { ok: false, form: a.form, diagnostics: [...a.diagnostics, ...e.diagnostics] };
     throw e;
   }
 }
@@ -168,7 +190,13 @@ export function runChecks(build: Build, a: Analysed, profile: Profile, seed: num
 
 /** One `forbidden-input` result: the logic-level proof and the part-level sweep. */
 function mergeForbidden(logic: CheckResult, part: CheckResult): CheckResult {
-  return { ...part, name: 'forbidden-input', ok: logic.ok && part.ok, summary: `${logic.summary}; ${part.summary}`, logic };
+  return {
+    ...part,
+    name: 'forbidden-input',
+    ok: logic.ok && part.ok,
+    summary: `${logic.summary}; ${part.summary}`,
+    logic,
+  };
 }
 
 function resolveUnused(a: Analysed, unused: string | undefined): 'dont-care' | number | Diagnostic {
@@ -176,8 +204,16 @@ function resolveUnused(a: Analysed, unused: string | undefined): 'dont-care' | n
   const target = a.minimised.merged[unused];
   const index = target === undefined ? -1 : a.minimised.machine.states.indexOf(target);
   if (index >= 0) return index;
-  const guess = didYouMean(unused, a.machine.states.map((s) => s.name));
-  return diag('LW700', `unused codes are sent to '${unused}', which is not a reachable state`, { path: '--unused' }, guess ? `did you mean '${guess}'?` : "name a reachable state, or 'dont-care'");
+  const guess = didYouMean(
+    unused,
+    a.machine.states.map((s) => s.name),
+  );
+  return diag(
+    'LW700',
+    `unused codes are sent to '${unused}', which is not a reachable state`,
+    { path: '--unused' },
+    guess ? `did you mean '${guess}'?` : "name a reachable state, or 'dont-care'",
+  );
 }
 
 /** Codes pinned on original states, carried to the states they merged into. */
@@ -215,7 +251,16 @@ export function compareEncodings(a: Analysed, opts: BuildOptions = {}): Encoding
     if (!b.ok) return { strategy, ok: false, diagnostics: b.diagnostics.filter((d) => d.severity === 'error') };
     const profile = opts.profile ?? DEFAULT_PROFILE;
     const termGates = b.build.netlist.parts.filter((p) => p.kind === 'gate' && p.role === 'term').length;
-    return { strategy, ok: true, encoding: b.build.encoding, parts: b.build.parts, termGates, guard: b.build.guard, cost: partsCost(b.build.parts, profile.cost), diagnostics: [] };
+    return {
+      strategy,
+      ok: true,
+      encoding: b.build.encoding,
+      parts: b.build.parts,
+      termGates,
+      guard: b.build.guard,
+      cost: partsCost(b.build.parts, profile.cost),
+      diagnostics: [],
+    };
   });
   const best = Math.min(...rows.map((r) => r.cost ?? Infinity));
   return rows.map((r) => ({ ...r, cheapest: r.cost === best }));

@@ -23,7 +23,10 @@ export function machineBlock(a: Analysed) {
 
 /** Equations as readable expressions over q-bits and inputs ('0' when a function has no term). */
 export function equationTexts(b: Built): { name: string; expr: string }[] {
-  return b.build.equations.map((e) => ({ name: e.name, expr: e.terms.length === 0 ? '0' : printCubes(e.terms, b.build.vars) }));
+  return b.build.equations.map((e) => ({
+    name: e.name,
+    expr: e.terms.length === 0 ? '0' : printCubes(e.terms, b.build.vars),
+  }));
 }
 
 /** The whole report as one JSON-ready object. */

@@ -82,9 +82,22 @@ export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions
   });
   const mapped = mapWith(g.cover);
   const equations: Equation[] = [];
-  for (let j = 0; j < ex.bits; j++) equations.push({ name: `S${j}`, terms: termsOf(g.cover, 2 * j) }, { name: `R${j}`, terms: termsOf(g.cover, 2 * j + 1) });
+  for (let j = 0; j < ex.bits; j++)
+    equations.push(
+      { name: `S${j}`, terms: termsOf(g.cover, 2 * j) },
+      { name: `R${j}`, terms: termsOf(g.cover, 2 * j + 1) },
+    );
   f.outputs.forEach((name, k) => equations.push({ name, terms: termsOf(out, k) }));
-  return { machine: f, encoding, vars: ex.vars, equations, guard: g.report, netlist: mapped.netlist, signals: mapped.signals, parts: mapped.parts };
+  return {
+    machine: f,
+    encoding,
+    vars: ex.vars,
+    equations,
+    guard: g.report,
+    netlist: mapped.netlist,
+    signals: mapped.signals,
+    parts: mapped.parts,
+  };
 }
 
 /**
@@ -96,7 +109,8 @@ export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions
 export function minimiseOutputs(ex: Excitation, minimise: Minimiser, mopts?: MinimiseOptions): SopCover {
   const vars = ex.bits + ex.inputs;
   const terms: Term[] = [];
-  const moore: number[] = [], mealy: number[] = [];
+  const moore: number[] = [],
+    mealy: number[] = [];
   ex.outputs.forEach((o, k) => {
     if (o.on.length === 0) return; // constant 0: no term
     if (o.off.length === 0) terms.push({ cube: '-'.repeat(vars), outputs: [k] });
@@ -110,7 +124,8 @@ export function minimiseOutputs(ex: Excitation, minimise: Minimiser, mopts?: Min
       dc: moore.map((k) => complement([...codes(ex.outputs[k].on), ...codes(ex.outputs[k].off)], ex.bits)),
     };
     const freeInputs = '-'.repeat(ex.inputs);
-    for (const t of minimise(fn, mopts).terms) terms.push({ cube: t.cube + freeInputs, outputs: t.outputs.map((i) => moore[i]) });
+    for (const t of minimise(fn, mopts).terms)
+      terms.push({ cube: t.cube + freeInputs, outputs: t.outputs.map((i) => moore[i]) });
   }
   if (mealy.length > 0) {
     const fn: MultiFunction = { vars, on: mealy.map((k) => ex.outputs[k].on), dc: mealy.map((k) => ex.outputs[k].dc) };
@@ -123,10 +138,33 @@ export function minimiseOutputs(ex: Excitation, minimise: Minimiser, mopts?: Min
 function checkOptions(f: FlatMachine, opts: SynthesisOptions): void {
   const u = opts.unusedCodes;
   if (typeof u === 'number' && !(Number.isInteger(u) && u >= 0 && u < f.states.length)) {
-    throw new DiagnosticError([diag('LW700', `unused codes are sent to state number ${u}, but the machine has states 0…${f.states.length - 1}`, { path: '$.unusedCodes' }, 'name an existing state')]);
+    throw new DiagnosticError([
+      diag(
+        'LW700',
+        `unused codes are sent to state number ${u}, but the machine has states 0…${f.states.length - 1}`,
+        { path: '$.unusedCodes' },
+        'name an existing state',
+      ),
+    ]);
   }
   for (const [name, load] of Object.entries(opts.actuators ?? {})) {
-    if (!f.outputs.includes(name)) throw new DiagnosticError([diag('LW700', `actuator for '${name}', which is not an output of ${f.name}`, { path: `$.actuators.${name}` }, 'name one of: ' + f.outputs.join(', '))]);
-    if (!(Number.isFinite(load) && load >= 0)) throw new DiagnosticError([diag('LW700', `actuator load of '${name}' is ${load} g`, { path: `$.actuators.${name}` }, 'give a load in grams, 0 or more')]);
+    if (!f.outputs.includes(name))
+      throw new DiagnosticError([
+        diag(
+          'LW700',
+          `actuator for '${name}', which is not an output of ${f.name}`,
+          { path: `$.actuators.${name}` },
+          'name one of: ' + f.outputs.join(', '),
+        ),
+      ]);
+    if (!(Number.isFinite(load) && load >= 0))
+      throw new DiagnosticError([
+        diag(
+          'LW700',
+          `actuator load of '${name}' is ${load} g`,
+          { path: `$.actuators.${name}` },
+          'give a load in grams, 0 or more',
+        ),
+      ]);
   }
 }

@@ -32,7 +32,9 @@ export async function buildDesigner(outDir: string): Promise<void> {
 /** Launch chromium headless; throws with what to install when it is missing. */
 export async function launchChromium(): Promise<Browser> {
   if (!existsSync(CHROMIUM_PATH)) {
-    throw new Error(`chromium is not installed at ${CHROMIUM_PATH}: the browser tests need it (Debian: apt-get install chromium). They do not skip.`);
+    throw new Error(
+      `chromium is not installed at ${CHROMIUM_PATH}: the browser tests need it (Debian: apt-get install chromium). They do not skip.`,
+    );
   }
   const { chromium } = await import('playwright-core');
   return chromium.launch({ executablePath: CHROMIUM_PATH, args: [...CHROMIUM_ARGS] });

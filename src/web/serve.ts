@@ -44,7 +44,10 @@ export async function serveStatic(dir: string, port = 0): Promise<Served> {
       try {
         if ((await stat(file)).isDirectory()) file = join(file, 'index.html');
         const body = await readFile(file);
-        res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream', 'cache-control': 'no-cache' });
+        res.writeHead(200, {
+          'content-type': TYPES[extname(file)] ?? 'application/octet-stream',
+          'cache-control': 'no-cache',
+        });
         res.end(req.method === 'HEAD' ? undefined : body);
       } catch {
         res.writeHead(404, { 'content-type': 'text/plain; charset=utf-8' }).end('not found');

@@ -15,7 +15,10 @@ import { buildJob, checkJob, compareJob, readJob } from './worker/jobs.js';
 import { exportFile } from './worker/exports.js';
 import type { FromWorker, ToWorker } from './worker/protocol.js';
 
-const scope = self as unknown as { postMessage(m: FromWorker): void; onmessage: ((e: MessageEvent<ToWorker>) => void) | null };
+const scope = self as unknown as {
+  postMessage(m: FromWorker): void;
+  onmessage: ((e: MessageEvent<ToWorker>) => void) | null;
+};
 
 /** The newest revision asked for, per kind of job. */
 const latest: Record<string, number> = {};
@@ -39,7 +42,13 @@ function reporter(rev: number, stage: string): (p: Progress) => void {
 
 async function run(m: ToWorker): Promise<void> {
   if (m.kind === 'export') {
-    if (!checked || checked.rev !== m.rev) post({ kind: 'exported', rev: m.rev, doc: m.doc, problem: 'the build is not checked yet; try again when the checks are done' });
+    if (!checked || checked.rev !== m.rev)
+      post({
+        kind: 'exported',
+        rev: m.rev,
+        doc: m.doc,
+        problem: 'the build is not checked yet; try again when the checks are done',
+      });
     else post({ kind: 'exported', rev: m.rev, doc: m.doc, file: exportFile(checked.built, m.doc) });
     return;
   }
@@ -65,7 +74,11 @@ async function run(m: ToWorker): Promise<void> {
       const a = analyse(m.text, m.file);
       const b = a.ok ? buildJob(a, m.settings) : undefined;
       if (!b?.built) {
-        post({ kind: 'fault', rev: m.rev, message: 'the machine built for the page did not build again for its checks' });
+        post({
+          kind: 'fault',
+          rev: m.rev,
+          message: 'the machine built for the page did not build again for its checks',
+        });
         return;
       }
       const c = checkJob(b.built, m.settings.seed);
@@ -86,7 +99,11 @@ async function run(m: ToWorker): Promise<void> {
       return;
     case 'compare': {
       const r = readJob(m.text, m.file);
-      post({ kind: 'compared', rev: m.rev, rows: r.analysed ? compareJob(r.analysed, m.settings, reporter(m.rev, 'compare')) : [] });
+      post({
+        kind: 'compared',
+        rev: m.rev,
+        rows: r.analysed ? compareJob(r.analysed, m.settings, reporter(m.rev, 'compare')) : [],
+      });
     }
   }
 }

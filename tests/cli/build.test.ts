@@ -47,13 +47,37 @@ describe('cli/commands/build --json', () => {
   it('exits 0 with every block of the report', () => {
     expect(r.code).toBe(0);
     expect(r.err).toBe('');
-    expect(Object.keys(r.json)).toEqual(expect.arrayContaining(['machine', 'merged', 'encoding', 'parts', 'guard', 'equations', 'netlist', 'checks', 'ok', 'bom']));
-    expect(r.json.machine).toMatchObject({ name: 'marble_bell', states: 4, reachable: 4, minimized: 4, inputs: 1, outputs: 1 });
+    expect(Object.keys(r.json)).toEqual(
+      expect.arrayContaining([
+        'machine',
+        'merged',
+        'encoding',
+        'parts',
+        'guard',
+        'equations',
+        'netlist',
+        'checks',
+        'ok',
+        'bom',
+      ]),
+    );
+    expect(r.json.machine).toMatchObject({
+      name: 'marble_bell',
+      states: 4,
+      reachable: 4,
+      minimized: 4,
+      inputs: 1,
+      outputs: 1,
+    });
     expect(r.json.ok).toBe(true);
   });
 
   it('encoding: strategy, bits and one code per state (binary counts in state order)', () => {
-    expect(r.json.encoding).toEqual({ strategy: 'binary', bits: 2, codes: { none: '00', one: '01', two: '10', rung: '11' } });
+    expect(r.json.encoding).toEqual({
+      strategy: 'binary',
+      bits: 2,
+      codes: { none: '00', one: '01', two: '10', rung: '11' },
+    });
   });
 
   it('equations: the bell decodes exactly the code of rung (Moore output, all four codes used)', () => {
@@ -75,11 +99,18 @@ describe('cli/commands/build --json', () => {
     // Every gate and every lever works its own capstan.
     expect(parts.capstans).toBe(parts.gates + parts.levers);
     // Each latch is two gates of the gate count.
-    expect(netlist.parts.filter((p) => p.role === 'latch-set' || p.role === 'latch-reset')).toHaveLength(2 * parts.latches);
+    expect(netlist.parts.filter((p) => p.role === 'latch-set' || p.role === 'latch-reset')).toHaveLength(
+      2 * parts.latches,
+    );
   });
 
   it('guard: proven, with its cost over an unguarded build', () => {
-    expect(r.json.guard).toMatchObject({ ok: true, extraGates: expect.any(Number), extraCords: expect.any(Number), method: expect.any(String) });
+    expect(r.json.guard).toMatchObject({
+      ok: true,
+      extraGates: expect.any(Number),
+      extraCords: expect.any(Number),
+      method: expect.any(String),
+    });
     expect(r.json.guard.extraGates).toBeGreaterThanOrEqual(0);
   });
 
@@ -93,11 +124,20 @@ describe('cli/commands/build --json', () => {
 
   it('drive: smallest margin, weakest cord, worst drum torque and power, hardest lever pull', () => {
     const d = r.json.checks.find((c) => c.name === 'drive')!;
-    expect(d).toMatchObject({ minMargin: expect.any(Number), weakestCord: expect.any(String), worstTorqueNm: expect.any(Number), worstPowerW: expect.any(Number), operatorForceMaxG: expect.any(Number) });
+    expect(d).toMatchObject({
+      minMargin: expect.any(Number),
+      weakestCord: expect.any(String),
+      worstTorqueNm: expect.any(Number),
+      worstPowerW: expect.any(Number),
+      operatorForceMaxG: expect.any(Number),
+    });
     expect(d.minMargin as number).toBeGreaterThanOrEqual(DEFAULT_PROFILE.minMargin);
     expect(r.json.netlist.cords.map((c) => c.id)).toContain(d.weakestCord);
     // Power = torque × ω with ω = 2π·rpm/60 (DESIGN.md §4).
-    expect(d.worstPowerW as number).toBeCloseTo((d.worstTorqueNm as number) * ((2 * Math.PI * DEFAULT_PROFILE.drumRpm) / 60), 9);
+    expect(d.worstPowerW as number).toBeCloseTo(
+      (d.worstTorqueNm as number) * ((2 * Math.PI * DEFAULT_PROFILE.drumRpm) / 60),
+      9,
+    );
     // A lever pull is at least its own pull-up weight.
     expect(d.operatorForceMaxG as number).toBeGreaterThanOrEqual(DEFAULT_PROFILE.leverWeightG);
   });

@@ -34,17 +34,34 @@ const HAND: Record<string, { name: string; states: number; minimized: number; in
 /** Names declared on a `inputs`/`outputs` line of the text form, read independently of the parser. */
 function declared(text: string, keyword: string): string[] {
   const line = text.split('\n').find((l) => l.startsWith(keyword + ' '));
-  return line ? line.slice(keyword.length).split(/[\s,]+/).filter(Boolean) : [];
+  return line
+    ? line
+        .slice(keyword.length)
+        .split(/[\s,]+/)
+        .filter(Boolean)
+    : [];
 }
 
 /** TABLE.md of the MCNC / LGSynth'91 FSM benchmarks (tests/fixtures/lgsynth91/PROVENANCE.md), parsed here. */
-function lgsynthRow(name: string): { inputs: number; outputs: number; states: number; reachable: number; minimal: number } {
+function lgsynthRow(name: string): {
+  inputs: number;
+  outputs: number;
+  states: number;
+  reachable: number;
+  minimal: number;
+} {
   const line = readFileSync('tests/fixtures/lgsynth91/TABLE.md', 'utf8')
     .split('\n')
     .find((l) => l.startsWith(`| ${name} |`));
   if (!line) throw new Error(`${name} is not in TABLE.md`);
   const [, , inputs, outputs, states, reachable, , minimal] = line.split('|').map((c) => c.trim());
-  return { inputs: Number(inputs), outputs: Number(outputs), states: Number(states), reachable: Number(reachable), minimal: Number(minimal) };
+  return {
+    inputs: Number(inputs),
+    outputs: Number(outputs),
+    states: Number(states),
+    reachable: Number(reachable),
+    minimal: Number(minimal),
+  };
 }
 
 describe('cli/commands/check', () => {
@@ -55,7 +72,14 @@ describe('cli/commands/check', () => {
       const h = HAND[name];
       expect(r.json.ok).toBe(true);
       expect(r.json.form).toBe('text');
-      expect(r.json.machine).toMatchObject({ name: h.name, states: h.states, reachable: h.states, minimized: h.minimized, inputs: h.inputs, outputs: h.outputs });
+      expect(r.json.machine).toMatchObject({
+        name: h.name,
+        states: h.states,
+        reachable: h.states,
+        minimized: h.minimized,
+        inputs: h.inputs,
+        outputs: h.outputs,
+      });
       expect(Object.keys(r.json.merged)).toHaveLength(h.states);
       for (const [from, to] of Object.entries(r.json.merged)) expect(to).toBe(from);
     });
@@ -69,7 +93,13 @@ describe('cli/commands/check', () => {
       expect(r.json.machine.states, name).toBe(text.split('\n').filter((l) => l.startsWith('state ')).length);
       expect(r.json.machine.inputs, name).toBe(declared(text, 'inputs').length);
       expect(r.json.machine.outputs, name).toBe(declared(text, 'outputs').length);
-      expect(Object.keys(r.json.merged).sort(), name).toEqual(text.split('\n').filter((l) => l.startsWith('state ')).map((l) => l.split(/\s+/)[1]).sort());
+      expect(Object.keys(r.json.merged).sort(), name).toEqual(
+        text
+          .split('\n')
+          .filter((l) => l.startsWith('state '))
+          .map((l) => l.split(/\s+/)[1])
+          .sort(),
+      );
       for (const d of r.json.diagnostics) {
         expect(Object.keys(d), name).toEqual(expect.arrayContaining(['code', 'severity', 'message', 'location']));
         expect(d.code).toMatch(/^LW\d{3}$/);
@@ -110,7 +140,14 @@ describe('cli/commands/check', () => {
       const r = await runJson<CheckJson>(['check', `tests/fixtures/lgsynth91/${name}.json`, '--json']);
       expect(r.code).toBe(0);
       expect(r.json.form).toBe('json');
-      expect(r.json.machine).toMatchObject({ name, inputs: t.inputs, outputs: t.outputs, states: t.states, reachable: t.reachable, minimized: t.minimal });
+      expect(r.json.machine).toMatchObject({
+        name,
+        inputs: t.inputs,
+        outputs: t.outputs,
+        states: t.states,
+        reachable: t.reachable,
+        minimized: t.minimal,
+      });
       // The merge map sends every reachable state to one of `minimal` representatives.
       expect(Object.keys(r.json.merged)).toHaveLength(t.reachable);
       expect(new Set(Object.values(r.json.merged)).size).toBe(t.minimal);
@@ -120,14 +157,20 @@ describe('cli/commands/check', () => {
   it("LGSynth'91 bbara (TABLE.md: 10 states, minimal 7): the text form lists which states merge", async () => {
     const r = await run(['check', 'tests/fixtures/lgsynth91/bbara.json']);
     expect(r.code).toBe(0);
-    expect(r.out).toContain('bbara: 10 states (10 reachable, 7 after minimisation by partition-refinement, proven minimal), 4 inputs, 2 outputs\n');
+    expect(r.out).toContain(
+      'bbara: 10 states (10 reachable, 7 after minimisation by partition-refinement, proven minimal), 4 inputs, 2 outputs\n',
+    );
     const merges = r.out.split('merged states:\n')[1].trimEnd().split('\n');
     expect(merges).toHaveLength(3);
     for (const m of merges) expect(m).toMatch(/^ {2}st\d+ → st\d+$/);
   });
 
   it('reads an xstate configuration: each event becomes an input lever, each tag an output', async () => {
-    const config = JSON.stringify({ id: 'turnstile', initial: 'locked', states: { locked: { on: { coin: 'unlocked' } }, unlocked: { tags: 'free', on: { push: 'locked' } } } });
+    const config = JSON.stringify({
+      id: 'turnstile',
+      initial: 'locked',
+      states: { locked: { on: { coin: 'unlocked' } }, unlocked: { tags: 'free', on: { push: 'locked' } } },
+    });
     const r = await runJson<CheckJson>(['check', 'turnstile.json', '--json'], { 'turnstile.json': config });
     expect(r.code).toBe(0);
     expect(r.json.form).toBe('xstate');

@@ -26,7 +26,14 @@ interface CompareJson {
 /** The weighted part count with the shipped cost weights, worked out here from the counts. */
 const costOf = (p: Counts): number => {
   const w = DEFAULT_PROFILE.cost;
-  return p.gates * w.gate + p.latches * w.latch + p.levers * w.lever + p.capstans * w.capstan + p.weights * w.weight + p.cords * w.cord;
+  return (
+    p.gates * w.gate +
+    p.latches * w.latch +
+    p.levers * w.lever +
+    p.capstans * w.capstan +
+    p.weights * w.weight +
+    p.cords * w.cord
+  );
 };
 
 describe('cli/commands/compare', () => {
@@ -56,7 +63,9 @@ describe('cli/commands/compare', () => {
     const oneHot = json.json.encodings.find((r) => r.strategy === 'one-hot')!;
     expect(oneHot.encoding!.bits).toBe(4);
     expect(oneHot.parts!.latches).toBe(8);
-    expect(Object.values(oneHot.encoding!.codes).every((c) => c.split('').filter((b) => b === '1').length === 1)).toBe(true);
+    expect(Object.values(oneHot.encoding!.codes).every((c) => c.split('').filter((b) => b === '1').length === 1)).toBe(
+      true,
+    );
   });
 
   it('--json: exactly the rows of least cost are marked cheapest; auto is never dearer than binary', () => {
@@ -71,13 +80,37 @@ describe('cli/commands/compare', () => {
     expect(text.code).toBe(0);
     const lines = text.out.trimEnd().split('\n');
     expect(lines[0]).toBe('marble_bell: 4 states after minimisation');
-    expect(lines[1].split(/\s{2,}/)).toEqual(['encoding', 'bits', 'latches', 'term gates', 'gates', 'levers', 'capstans', 'weights', 'cords', 'cost']);
+    expect(lines[1].split(/\s{2,}/)).toEqual([
+      'encoding',
+      'bits',
+      'latches',
+      'term gates',
+      'gates',
+      'levers',
+      'capstans',
+      'weights',
+      'cords',
+      'cost',
+    ]);
     const body = lines.slice(2);
     expect(body).toHaveLength(json.json.encodings.length);
     json.json.encodings.forEach((r, i) => {
       const cells = body[i].split(/\s+/);
       const p = r.parts!;
-      expect(cells.slice(0, 10)).toEqual([r.strategy, r.encoding!.bits, p.latches, r.termGates, p.gates, p.levers, p.capstans, p.weights, p.cords, r.cost].map(String));
+      expect(cells.slice(0, 10)).toEqual(
+        [
+          r.strategy,
+          r.encoding!.bits,
+          p.latches,
+          r.termGates,
+          p.gates,
+          p.levers,
+          p.capstans,
+          p.weights,
+          p.cords,
+          r.cost,
+        ].map(String),
+      );
       expect(body[i].endsWith('← cheapest'), r.strategy).toBe(r.cheapest);
     });
     expectNoStack(text);
@@ -93,7 +126,9 @@ describe('cli/commands/compare', () => {
     expect(johnson.diagnostics.map((d) => d.code)).toEqual(['LW701']);
     const t = await run(['compare', 'examples/odd-lever.lw']);
     expect(t.out).toContain('odd_lever: 1 state after minimisation\n');
-    expect(t.out).toMatch(new RegExp(`^johnson\\s+—\\s+${johnson.diagnostics[0].message.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}$`, 'm'));
+    expect(t.out).toMatch(
+      new RegExp(`^johnson\\s+—\\s+${johnson.diagnostics[0].message.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}$`, 'm'),
+    );
   });
 
   it('a machine with pinned codes gets a pinned row', async () => {

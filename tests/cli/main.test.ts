@@ -44,7 +44,9 @@ describe('cli/main', () => {
   it('an unknown command: LW700 naming the commands there are', async () => {
     const r = await run(['assemble', 'examples/marble-bell.lw']);
     expect(r.code).toBe(2);
-    expect(r.err).toBe("assemble: error LW700: unknown command 'assemble' — commands: check, build, compare, step, demo\n");
+    expect(r.err).toBe(
+      "assemble: error LW700: unknown command 'assemble' — commands: check, build, compare, step, demo\n",
+    );
     expect(r.out).toBe('');
   });
 
@@ -53,7 +55,15 @@ describe('cli/main', () => {
     expect(r.code).toBe(2);
     expect(JSON.parse(r.out)).toEqual({
       ok: false,
-      diagnostics: [{ code: 'LW700', severity: 'error', message: 'unknown option --colour', location: { path: '--colour' }, hint: 'run `latchwright --help` for usage' }],
+      diagnostics: [
+        {
+          code: 'LW700',
+          severity: 'error',
+          message: 'unknown option --colour',
+          location: { path: '--colour' },
+          hint: 'run `latchwright --help` for usage',
+        },
+      ],
     });
     expect(r.err).toBe('');
   });
@@ -87,6 +97,8 @@ describe('cli/main', () => {
     const code = await main(['check', 'examples/marble-bell.lw'], io);
     expect(code).toBe(2);
     expect(out).toBe('');
-    expect(err).toBe('latchwright: internal error: the disk fell off\nPlease report this with the machine file that caused it.\n');
+    expect(err).toBe(
+      'latchwright: internal error: the disk fell off\nPlease report this with the machine file that caused it.\n',
+    );
   });
 });

@@ -12,7 +12,8 @@ import { expectNoStack, removeTempDirs, run, tempDir } from './support.js';
 
 const MB = 'examples/marble-bell.lw';
 const LIGHT = 'examples/lighthouse.lw';
-const build = (file: string, dir: string, ...more: string[]) => run(['build', file, '--encoding', 'binary', '--out', dir, ...more]);
+const build = (file: string, dir: string, ...more: string[]) =>
+  run(['build', file, '--encoding', 'binary', '--out', dir, ...more]);
 
 afterAll(removeTempDirs);
 
@@ -56,7 +57,11 @@ describe('cli/commands/out (build --out)', () => {
     const r = await build(MB, dir);
     expect(r.code).toBe(2);
     expect(r.out).toBe('');
-    expect(r.err).toMatch(new RegExp(`^${dir.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}: error LW702: .* not empty and was not made by latchwright build .*--force`));
+    expect(r.err).toMatch(
+      new RegExp(
+        `^${dir.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}: error LW702: .* not empty and was not made by latchwright build .*--force`,
+      ),
+    );
     expect(readdirSync(dir)).toEqual(['letter.txt']);
     expectNoStack(r);
   });

@@ -28,7 +28,11 @@ interface StepRow {
 const CLOCKS = 40;
 
 /** A random sequence of input settings, one object per clock, none of them a `never` combination. */
-function randomSequence(inputs: readonly string[], never: readonly string[], seed: number): { seq: Record<string, 0 | 1>[]; bits: string[] } {
+function randomSequence(
+  inputs: readonly string[],
+  never: readonly string[],
+  seed: number,
+): { seq: Record<string, 0 | 1>[]; bits: string[] } {
   const rng = seededRandom(seed);
   const seq: Record<string, 0 | 1>[] = [];
   const bits: string[] = [];
@@ -53,7 +57,10 @@ describe('cli/commands/step', () => {
       const merged = (await runJson<{ merged: Record<string, string> }>(['check', file, '--json'])).json.merged;
 
       const files = { 'clocks.json': JSON.stringify(seq) };
-      const r = await runJson<StepRow[]>(['step', file, '--inputs', 'clocks.json', '--json', '--encoding', 'binary'], files);
+      const r = await runJson<StepRow[]>(
+        ['step', file, '--inputs', 'clocks.json', '--json', '--encoding', 'binary'],
+        files,
+      );
       expect(r.code, r.err).toBe(0);
       expect(r.json).toHaveLength(CLOCKS);
       const codeOf = new Map<string, string>();
@@ -75,7 +82,10 @@ describe('cli/commands/step', () => {
       });
 
       // The minimised machine itself (--abstract) tells the same story.
-      const abs = await runJson<StepRow[]>(['step', file, '--inputs', 'clocks.json', '--json', '--encoding', 'binary', '--abstract'], files);
+      const abs = await runJson<StepRow[]>(
+        ['step', file, '--inputs', 'clocks.json', '--json', '--encoding', 'binary', '--abstract'],
+        files,
+      );
       expect(abs.code).toBe(0);
       expect(abs.json.map((x) => [x.state, x.next])).toEqual(r.json.map((x) => [x.state, x.next]));
     });

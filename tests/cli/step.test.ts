@@ -24,7 +24,12 @@ function capture(keys?: string[]): StepIo & { out: string[]; errors: string[] } 
 describe('cli/step', () => {
   it('prints one table row per scripted clock', async () => {
     const io = capture();
-    const code = await runStep(toggleBuild(), {}, { inputsFile: [{ t: 1 }, {}, { t: 1 }], json: false, abstract: false }, io);
+    const code = await runStep(
+      toggleBuild(),
+      {},
+      { inputsFile: [{ t: 1 }, {}, { t: 1 }], json: false, abstract: false },
+      io,
+    );
     expect(code).toBe(0);
     expect(io.out.join('')).toBe(
       [
@@ -44,13 +49,27 @@ describe('cli/step', () => {
     await runStep(toggleBuild(), {}, { inputsFile: seq, json: true, abstract: false }, part);
     await runStep(toggleBuild(), {}, { inputsFile: seq, json: true, abstract: true }, abs);
     const rows = JSON.parse(part.out.join(''));
-    expect(rows[0]).toEqual({ clock: 1, state: 'off', code: '0', inputs: { t: 1 }, outputs: { lit: 0 }, next: 'on', nextCode: '1', alarms: [] });
+    expect(rows[0]).toEqual({
+      clock: 1,
+      state: 'off',
+      code: '0',
+      inputs: { t: 1 },
+      outputs: { lit: 0 },
+      next: 'on',
+      nextCode: '1',
+      alarms: [],
+    });
     expect(JSON.parse(abs.out.join(''))).toEqual(rows);
   });
 
   it('exits 1 and shows the alarms in words when the build misbehaves', async () => {
     const io = capture();
-    const code = await runStep(brokenBuild('toggle-release-race'), {}, { inputsFile: [{}], json: true, abstract: false }, io);
+    const code = await runStep(
+      brokenBuild('toggle-release-race'),
+      {},
+      { inputsFile: [{}], json: true, abstract: false },
+      io,
+    );
     expect(code).toBe(1);
     const [row] = JSON.parse(io.out.join(''));
     expect(row.next).toBeNull();
@@ -60,8 +79,17 @@ describe('cli/step', () => {
 
   it('rejects a bad sequence with diagnostics and exit 2', async () => {
     const io = capture();
-    expect(await runStep(toggleBuild(), {}, { inputsFile: [{ go: 1 }], inputsPath: 'clocks.json', json: false, abstract: false }, io)).toBe(2);
-    expect(io.errors.join('')).toBe("clocks.json $[0].go: error LW208: clock 1 sets 'go', which is not an input of toggle — inputs: t\n");
+    expect(
+      await runStep(
+        toggleBuild(),
+        {},
+        { inputsFile: [{ go: 1 }], inputsPath: 'clocks.json', json: false, abstract: false },
+        io,
+      ),
+    ).toBe(2);
+    expect(io.errors.join('')).toBe(
+      "clocks.json $[0].go: error LW208: clock 1 sets 'go', which is not an input of toggle — inputs: t\n",
+    );
   });
 
   it('asks for a sequence when there is no terminal', async () => {
@@ -72,13 +100,19 @@ describe('cli/step', () => {
 
   it('steps interactively, one key per hand action, redrawing each time', async () => {
     const io = capture(['1', ',', '1', ',', '.', '.', 'z', 'u', 'q']);
-    expect(await runStep(toggleBuild(), { merged: { off: 'off', off2: 'off' } }, { json: false, abstract: false }, io)).toBe(0);
+    expect(
+      await runStep(toggleBuild(), { merged: { off: 'off', off2: 'off' } }, { json: false, abstract: false }, io),
+    ).toBe(0);
     const screens = io.out;
     expect(screens).toHaveLength(9);
     expect(screens[0]).toContain('state:   off (stands for off, off2)   code 0');
-    expect(screens[0]).toContain("keys: 1 input lever 't' · , φ1 · . φ2 · space whole clock · r reset · u undo · q quit");
+    expect(screens[0]).toContain(
+      "keys: 1 input lever 't' · , φ1 · . φ2 · space whole clock · r reset · u undo · q quit",
+    );
     // t pulled, φ1 pulled, then t moved under φ1: the operating rule alarm in words.
-    expect(screens[3]).toContain("alarms:  operating rule broken (input levers stay still while φ1 is pulled): release input lever 't'");
+    expect(screens[3]).toContain(
+      "alarms:  operating rule broken (input levers stay still while φ1 is pulled): release input lever 't'",
+    );
     expect(screens[2]).toContain('masters: M0: Q=1 Q̄=0');
     expect(screens[2]).toContain('slaves:  Q0: Q=0 Q̄=1');
     expect(screens[7]).toContain("alarms:  key 'z' does nothing here");

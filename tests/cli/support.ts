@@ -33,7 +33,10 @@ export async function run(argv: readonly string[], files: Readonly<Record<string
 }
 
 /** Run with --json expected on standard output, and parse it. */
-export async function runJson<T = Record<string, unknown>>(argv: readonly string[], files: Readonly<Record<string, string>> = {}): Promise<Run & { json: T }> {
+export async function runJson<T = Record<string, unknown>>(
+  argv: readonly string[],
+  files: Readonly<Record<string, string>> = {},
+): Promise<Run & { json: T }> {
   const r = await run(argv, files);
   let json: T;
   try {

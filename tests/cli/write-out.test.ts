@@ -11,10 +11,11 @@ let n = 0;
 /** A fresh path under the test folder (not created). */
 const fresh = (): string => join(root, `case${++n}`, 'out');
 
-const docs = (tag: string): Map<string, string> => new Map([
-  ['build-sheet.html', `<p>${tag}</p>\n`],
-  ['wiring.csv', `step\r\n${tag}\r\n`],
-]);
+const docs = (tag: string): Map<string, string> =>
+  new Map([
+    ['build-sheet.html', `<p>${tag}</p>\n`],
+    ['wiring.csv', `step\r\n${tag}\r\n`],
+  ]);
 
 /** Names in the folder that holds `dir`, other than `dir` itself: leftovers of a write. */
 const leftovers = (dir: string): string[] => readdirSync(join(dir, '..')).filter((e) => e !== 'out' && e !== 'file');
@@ -92,7 +93,9 @@ describe('cli/write-out', () => {
       expect(r.ok ? '' : r.diagnostic.code, bad).toBe('LW704');
     }
     const dir = fresh();
-    expect(writeBuildFolder(dir, new Map([['verilog/machine.v', 'module m; endmodule\n']]), { force: false }).ok).toBe(true);
+    expect(writeBuildFolder(dir, new Map([['verilog/machine.v', 'module m; endmodule\n']]), { force: false }).ok).toBe(
+      true,
+    );
     expect(readFileSync(join(dir, 'verilog', 'machine.v'), 'utf8')).toContain('endmodule');
   });
 });

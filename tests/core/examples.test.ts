@@ -42,9 +42,17 @@ function summary(b: Built) {
       codes: Object.fromEntries(f.states.map((s, i) => [s, b.build.encoding.codes[i]])),
     },
     parts: b.build.parts,
-    guard: { ok: b.build.guard.ok, method: b.build.guard.method, extraGates: b.build.guard.extraGates, extraCords: b.build.guard.extraCords },
+    guard: {
+      ok: b.build.guard.ok,
+      method: b.build.guard.method,
+      extraGates: b.build.guard.extraGates,
+      extraCords: b.build.guard.extraCords,
+    },
     // Terms in cube order, so that a change of term order alone (no change of logic) leaves the file alone.
-    equations: b.build.equations.map((e) => ({ name: e.name, expr: e.terms.length === 0 ? '0' : printCubes([...e.terms].sort(), b.build.vars) })),
+    equations: b.build.equations.map((e) => ({
+      name: e.name,
+      expr: e.terms.length === 0 ? '0' : printCubes([...e.terms].sort(), b.build.vars),
+    })),
     checks: b.checks.map((c) => ({ name: c.name, ok: c.ok })),
     diagnostics: b.diagnostics.filter((d) => d.severity !== 'info').map((d) => d.code),
   };
@@ -72,7 +80,10 @@ describe('core/pipeline on the examples (stored expected builds)', () => {
         mkdirSync(EXPECTED_DIR, { recursive: true });
         writeFileSync(path, JSON.stringify(got, null, 2) + '\n', 'utf8');
       }
-      expect(existsSync(path), `${path} is missing: run LW_UPDATE_EXPECTED=1 npx vitest run tests/core/examples.test.ts and review it`).toBe(true);
+      expect(
+        existsSync(path),
+        `${path} is missing: run LW_UPDATE_EXPECTED=1 npx vitest run tests/core/examples.test.ts and review it`,
+      ).toBe(true);
       expect(got).toEqual(JSON.parse(readFileSync(path, 'utf8')));
       // Every stored build is a good one: a failing check is never the expected output.
       expect(got.checks.every((c) => c.ok)).toBe(true);
@@ -81,7 +92,10 @@ describe('core/pipeline on the examples (stored expected builds)', () => {
   }
 
   it('stores no expected file for an example that no longer exists', () => {
-    const stored = readdirSync(EXPECTED_DIR).filter((f) => f.endsWith('.json')).map((f) => f.slice(0, -5)).sort();
+    const stored = readdirSync(EXPECTED_DIR)
+      .filter((f) => f.endsWith('.json'))
+      .map((f) => f.slice(0, -5))
+      .sort();
     expect(stored).toEqual(EXAMPLES);
   });
 });

@@ -7,7 +7,16 @@ import { DEFAULT_PROFILE } from '../../src/core/physics/profile.js';
 import { excite } from '../../src/core/phases/excite.js';
 import { synthesise } from '../../src/core/synthesise.js';
 import { checkForbiddenInput, checkNextStateEquivalence } from '../../src/core/checks/logic.js';
-import { binaryEncoding, fixture, netlistViolations, oneHotEncoding, randomEncoding, randomMachine, satEquivalent, satExclusive } from './support/synthesis.js';
+import {
+  binaryEncoding,
+  fixture,
+  netlistViolations,
+  oneHotEncoding,
+  randomEncoding,
+  randomMachine,
+  satEquivalent,
+  satExclusive,
+} from './support/synthesis.js';
 
 /** Everything a build must satisfy, each part checked independently. */
 function expectSound(b: Build): void {
@@ -25,14 +34,19 @@ describe('core/synthesise', () => {
     fc.assert(
       fc.property(fc.integer({ min: 0, max: 1e9 }), fc.constantFrom('binary', 'random', 'one-hot'), (seed, kind) => {
         const f = randomMachine(seed, { maxStates: 6, maxInputs: 3, maxOutputs: 2, incomplete: seed % 4 !== 0 });
-        const enc = kind === 'binary' ? binaryEncoding(f) : kind === 'one-hot' ? oneHotEncoding(f) : randomEncoding(f, binaryEncoding(f).bits + 1, seed);
+        const enc =
+          kind === 'binary'
+            ? binaryEncoding(f)
+            : kind === 'one-hot'
+              ? oneHotEncoding(f)
+              : randomEncoding(f, binaryEncoding(f).bits + 1, seed);
         expectSound(synthesise(f, enc, { profile: DEFAULT_PROFILE }));
       }),
       { seed: 42, numRuns: 20 },
     );
   });
 
-  it('builds LGSynth\'91 benchmark machines (open dataset, tests/fixtures/lgsynth91) soundly', () => {
+  it("builds LGSynth'91 benchmark machines (open dataset, tests/fixtures/lgsynth91) soundly", () => {
     for (const name of ['lion', 'dk27', 'bbtas', 'mc', 'beecount', 'dk15']) {
       const f = fixture(name);
       const b = synthesise(f, binaryEncoding(f), { profile: DEFAULT_PROFILE });
@@ -44,7 +58,10 @@ describe('core/synthesise', () => {
   it('decodes Moore outputs from the slave bits only', () => {
     // dk27's table with outputs made functions of the state alone, though written per row.
     const dk27 = fixture('dk27');
-    const f = { ...dk27, rows: dk27.rows.map((rs, s) => rs.map((r) => ({ ...r, out: [s % 2 === 1 ? 1 : 0, s > 3 ? 1 : 0] as const }))) };
+    const f = {
+      ...dk27,
+      rows: dk27.rows.map((rs, s) => rs.map((r) => ({ ...r, out: [s % 2 === 1 ? 1 : 0, s > 3 ? 1 : 0] as const }))),
+    };
     const enc = binaryEncoding(f);
     const ex = excite(f, enc);
     expect(ex.outputs.map((o) => o.moore)).toEqual([true, true]);
@@ -64,7 +81,15 @@ describe('core/synthesise', () => {
     const target = enc.codes[f.start];
     for (const x of ['0', '1']) {
       const point = '111' + x;
-      const next = [0, 1, 2].map((j) => (coverHolds(b.equations[2 * j].terms, point) ? '1' : coverHolds(b.equations[2 * j + 1].terms, point) ? '0' : point[j])).join('');
+      const next = [0, 1, 2]
+        .map((j) =>
+          coverHolds(b.equations[2 * j].terms, point)
+            ? '1'
+            : coverHolds(b.equations[2 * j + 1].terms, point)
+              ? '0'
+              : point[j],
+        )
+        .join('');
       expect(next).toBe(target);
     }
     expectSound(b);
@@ -72,7 +97,11 @@ describe('core/synthesise', () => {
 
   it('can skip the unguarded baseline for a search, and says so', () => {
     const f = fixture('lion');
-    const b = synthesise(f, binaryEncoding(f), { profile: DEFAULT_PROFILE, guardBaseline: false, guard: 'split-by-bit' });
+    const b = synthesise(f, binaryEncoding(f), {
+      profile: DEFAULT_PROFILE,
+      guardBaseline: false,
+      guard: 'split-by-bit',
+    });
     expect(b.guard).toMatchObject({ ok: true, method: 'split-by-bit', compared: false });
     expectSound(b);
   });

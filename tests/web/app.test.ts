@@ -56,7 +56,11 @@ describe('src/web (end to end in chromium)', () => {
     browser = await launchChromium();
     await buildDesigner(out);
     server = await serveStatic(out);
-    context = await browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true, colorScheme: 'light' });
+    context = await browser.newContext({
+      viewport: { width: 1280, height: 800 },
+      acceptDownloads: true,
+      colorScheme: 'light',
+    });
     page = await context.newPage();
     page.on('pageerror', (e) => {
       throw e;
@@ -79,7 +83,9 @@ describe('src/web (end to end in chromium)', () => {
 
   it('jumps from a state in the sketch to its line in the text', async () => {
     await page.locator('lw-diagram g.node[data-state="two"]').click();
-    const caret = await editor().evaluate((t: HTMLTextAreaElement) => t.value.slice(0, t.selectionStart).split('\n').length);
+    const caret = await editor().evaluate(
+      (t: HTMLTextAreaElement) => t.value.slice(0, t.selectionStart).split('\n').length,
+    );
     expect(caret).toBe(EXAMPLE.split('\n').indexOf('state two') + 1);
   });
 
@@ -101,7 +107,9 @@ describe('src/web (end to end in chromium)', () => {
     await shot('bench-error');
     // The entry jumps to the line: the caret lands on the word it names.
     await entry.locator('button').click();
-    const selected = await editor().evaluate((t: HTMLTextAreaElement) => t.value.slice(t.selectionStart, t.selectionEnd));
+    const selected = await editor().evaluate((t: HTMLTextAreaElement) =>
+      t.value.slice(t.selectionStart, t.selectionEnd),
+    );
     expect(selected).toBe('tow');
     await page.keyboard.type('two');
     expect(await editor().inputValue()).toBe(EXAMPLE);
@@ -111,7 +119,7 @@ describe('src/web (end to end in chromium)', () => {
 
   it('keeps the ledger in step with the text and edits the text from it', async () => {
     await tab('Ledger');
-    const guard = page.getByLabel("Guard of transition 1 to one");
+    const guard = page.getByLabel('Guard of transition 1 to one');
     await expect(guard.first().inputValue()).resolves.toBe('marble');
     await shot('ledger');
     await guard.first().fill('marble | 0');
@@ -128,11 +136,15 @@ describe('src/web (end to end in chromium)', () => {
     await page.getByRole('button', { name: 'Price every encoding' }).click();
     const cheapest = page.locator('lw-codes tr.cheapest');
     await cheapest.first().waitFor({ timeout: 60_000 });
-    await expect(page.locator('lw-codes table[aria-label="Encodings priced"] tbody tr').count()).resolves.toBeGreaterThanOrEqual(4);
+    await expect(
+      page.locator('lw-codes table[aria-label="Encodings priced"] tbody tr').count(),
+    ).resolves.toBeGreaterThanOrEqual(4);
     await shot('code-book');
     await cheapest.first().getByRole('button').click();
     await built();
-    await expect(page.locator('lw-codes select[aria-label="Encoding used for the build"]').inputValue()).resolves.toBe('auto');
+    await expect(page.locator('lw-codes select[aria-label="Encoding used for the build"]').inputValue()).resolves.toBe(
+      'auto',
+    );
     // Back to counting order for the rest of the run.
     await page.locator('lw-codes select[aria-label="Encoding used for the build"]').selectOption('binary');
     await built();
@@ -145,7 +157,10 @@ describe('src/web (end to end in chromium)', () => {
     await expect(page.locator('lw-parts lw-bar-chart .marker').count()).resolves.toBe(1);
     await page.locator('lw-parts .sheet img').waitFor();
     await shot('parts-and-forces');
-    const [download] = await Promise.all([page.waitForEvent('download'), page.locator('lw-parts button[data-doc="build-sheet.html"]').click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.locator('lw-parts button[data-doc="build-sheet.html"]').click(),
+    ]);
     expect(download.suggestedFilename()).toBe('marble_bell-build-sheet.html');
     const sheet = readFileSync((await download.path()) ?? '', 'utf8');
     expect(sheet).toContain('marble_bell');
@@ -186,7 +201,8 @@ describe('src/web (end to end in chromium)', () => {
     expect(latches.length).toBeGreaterThan(0);
     // Every alarm the runner raised is on the page, in the same words, the latch named.
     for (const e of events.filter(isAlarm)) expect(words).toContain(`Step 9: ${e.words}`);
-    for (const e of latches) expect(words.some((w) => w.includes(e.latch ?? '?') && w.includes('forbidden input'))).toBe(true);
+    for (const e of latches)
+      expect(words.some((w) => w.includes(e.latch ?? '?') && w.includes('forbidden input'))).toBe(true);
     await shot('trial-run-alarm');
     await page.keyboard.press('u');
     await page.keyboard.press('u');
@@ -225,10 +241,22 @@ describe('src/web (end to end in chromium)', () => {
 
   it('opens an xstate configuration as the text form, keeping the earlier machine to bring back', async () => {
     const before = await editor().inputValue();
-    const config = { id: 'gate', initial: 'shut', states: { shut: { on: { push: 'open' } }, open: { on: { push: 'shut', lock: 'locked' } }, locked: { on: { key: 'shut' } } } };
+    const config = {
+      id: 'gate',
+      initial: 'shut',
+      states: {
+        shut: { on: { push: 'open' } },
+        open: { on: { push: 'shut', lock: 'locked' } },
+        locked: { on: { key: 'shut' } },
+      },
+    };
     const json = JSON.stringify(config);
-    await page.locator('lw-bench input[type=file]').setInputFiles({ name: 'gate.json', mimeType: 'application/json', buffer: Buffer.from(json) });
-    await expect(page.locator('lw-bench .notice').innerText()).resolves.toContain('Read gate.json (an xstate configuration)');
+    await page
+      .locator('lw-bench input[type=file]')
+      .setInputFiles({ name: 'gate.json', mimeType: 'application/json', buffer: Buffer.from(json) });
+    await expect(page.locator('lw-bench .notice').innerText()).resolves.toContain(
+      'Read gate.json (an xstate configuration)',
+    );
     await built();
     const opened = await editor().inputValue();
     const ref = readMachine(json, 'gate.json');
@@ -240,7 +268,9 @@ describe('src/web (end to end in chromium)', () => {
   });
 
   it('stops a running encoding search when asked', async () => {
-    await page.locator('lw-bench select[aria-label="Load an example machine"]').selectOption({ label: 'Level crossing with a call button' });
+    await page
+      .locator('lw-bench select[aria-label="Load an example machine"]')
+      .selectOption({ label: 'Level crossing with a call button' });
     await built();
     await tab('Code book');
     await page.getByRole('button', { name: 'Price every encoding' }).click();

@@ -15,7 +15,10 @@ export function printDiagnostics(ds: readonly Diagnostic[], io: CliIo, json: boo
 }
 
 /** The profile named by --profile, over the defaults; undefined after printing its errors. */
-export function profileFrom(args: ParsedArgs, io: CliIo): { profile: Profile; diagnostics: Diagnostic[] } | { error: Diagnostic[] } {
+export function profileFrom(
+  args: ParsedArgs,
+  io: CliIo,
+): { profile: Profile; diagnostics: Diagnostic[] } | { error: Diagnostic[] } {
   const file = args.flags.profile;
   if (typeof file !== 'string') return { profile: DEFAULT_PROFILE, diagnostics: [] };
   const r = readFileArg(file, io);
@@ -24,7 +27,16 @@ export function profileFrom(args: ParsedArgs, io: CliIo): { profile: Profile; di
   try {
     value = JSON.parse(r.text);
   } catch (e) {
-    return { error: [{ code: 'LW100', severity: 'error', message: `the profile is not valid JSON (${e instanceof Error ? e.message : String(e)})`, location: { file } }] };
+    return {
+      error: [
+        {
+          code: 'LW100',
+          severity: 'error',
+          message: `the profile is not valid JSON (${e instanceof Error ? e.message : String(e)})`,
+          location: { file },
+        },
+      ],
+    };
   }
   const p = loadProfile(value, file);
   if (!p.profile || hasErrors(p.diagnostics)) return { error: p.diagnostics };
@@ -64,7 +76,12 @@ export function seedFrom(args: ParsedArgs): number | undefined | Diagnostic {
   if (raw === undefined) return undefined;
   const seed = typeof raw === 'string' && /^\s*\d+\s*$/.test(raw) ? Number(raw) : NaN;
   if (Number.isSafeInteger(seed)) return seed;
-  return diag('LW700', `--seed ${String(raw)} is not a whole number ≥ 0`, { path: '--seed' }, 'give a seed such as 1 or 42');
+  return diag(
+    'LW700',
+    `--seed ${String(raw)} is not a whole number ≥ 0`,
+    { path: '--seed' },
+    'give a seed such as 1 or 42',
+  );
 }
 
 /** The --encoding option (default auto), or LW700 naming the encodings there are. */
@@ -74,5 +91,10 @@ export function encodingFrom(args: ParsedArgs): EncodeStrategy | Diagnostic {
   const name = String(raw);
   if ((ENCODINGS as readonly string[]).includes(name)) return name as EncodeStrategy;
   const guess = didYouMean(name, ENCODINGS);
-  return diag('LW700', `unknown encoding '${name}'${guess ? ` — did you mean '${guess}'?` : ''}`, { path: '--encoding' }, `choose one of ${ENCODINGS.join(', ')}`);
+  return diag(
+    'LW700',
+    `unknown encoding '${name}'${guess ? ` — did you mean '${guess}'?` : ''}`,
+    { path: '--encoding' },
+    `choose one of ${ENCODINGS.join(', ')}`,
+  );
 }

@@ -36,15 +36,25 @@ export function textReport(b: Built): string {
   const m = b.analysed.machine;
   const p = b.build.parts;
   const lines: string[] = [];
-  lines.push(`${m.name}: ${m.states.length} states → ${f.states.length} after minimisation; ${m.inputs.length} inputs, ${m.outputs.length} outputs`);
-  lines.push(`encoding ${b.build.encoding.strategy}, ${b.build.encoding.bits} state bits: ${f.states.map((s, i) => `${s}=${b.build.encoding.codes[i] || '—'}`).join(' ')}`);
-  lines.push(`parts: ${p.latches} latches, ${p.gates} gates, ${p.levers} levers, ${p.capstans} capstans, ${p.weights} weights, ${p.cords} cords`);
+  lines.push(
+    `${m.name}: ${m.states.length} states → ${f.states.length} after minimisation; ${m.inputs.length} inputs, ${m.outputs.length} outputs`,
+  );
+  lines.push(
+    `encoding ${b.build.encoding.strategy}, ${b.build.encoding.bits} state bits: ${f.states.map((s, i) => `${s}=${b.build.encoding.codes[i] || '—'}`).join(' ')}`,
+  );
+  lines.push(
+    `parts: ${p.latches} latches, ${p.gates} gates, ${p.levers} levers, ${p.capstans} capstans, ${p.weights} weights, ${p.cords} cords`,
+  );
   const g = b.build.guard;
-  lines.push(`forbidden-input guard (${g.method}): ${g.ok ? 'S·R = 0 proven for every latch' : 'NOT proven'}; cost ${g.extraGates} gates, ${g.extraCords} cords over an unguarded build`);
+  lines.push(
+    `forbidden-input guard (${g.method}): ${g.ok ? 'S·R = 0 proven for every latch' : 'NOT proven'}; cost ${g.extraGates} gates, ${g.extraCords} cords over an unguarded build`,
+  );
   lines.push('equations:');
   for (const e of equationTexts(b)) lines.push(`  ${e.name} = ${e.expr}`);
   lines.push('checks:');
   for (const c of b.checks) lines.push(`  ${c.ok ? 'ok  ' : 'FAIL'} ${c.name}: ${c.summary}`);
-  lines.push('Safety: turning drums, hanging weights and levers can hurt people; see the build sheet (--out) for the cautions.');
+  lines.push(
+    'Safety: turning drums, hanging weights and levers can hurt people; see the build sheet (--out) for the cautions.',
+  );
   return lines.join('\n') + '\n';
 }

@@ -14,7 +14,13 @@ export async function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
   const a = analyse(src.text, src.file);
   const summary = a.ok ? machineSummary(a) : undefined;
   if (args.flags.json) {
-    io.out(JSON.stringify({ file: src.file, form: a.form, ok: a.ok, ...(summary ?? {}), diagnostics: a.diagnostics }, null, 2) + '\n');
+    io.out(
+      JSON.stringify(
+        { file: src.file, form: a.form, ok: a.ok, ...(summary ?? {}), diagnostics: a.diagnostics },
+        null,
+        2,
+      ) + '\n',
+    );
   } else {
     const notes = a.diagnostics.filter((d) => d.severity === 'info');
     for (const d of a.diagnostics) if (d.severity !== 'info') io.out(formatDiagnostic(d) + '\n');
@@ -24,7 +30,9 @@ export async function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
     if (summary) {
       const m = summary.machine;
       const n = (k: number, what: string): string => `${k} ${what}${k === 1 ? '' : 's'}`;
-      io.out(`${m.name}: ${n(m.states, 'state')} (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${n(m.inputs, 'input')}, ${n(m.outputs, 'output')}\n`);
+      io.out(
+        `${m.name}: ${n(m.states, 'state')} (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${n(m.inputs, 'input')}, ${n(m.outputs, 'output')}\n`,
+      );
       const merges = Object.entries(summary.merged).filter(([k, v]) => k !== v);
       if (merges.length > 0) {
         io.out('merged states:\n');

@@ -31,18 +31,53 @@ export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
   if (json) {
     // Codes by state name, as `build --json` gives them.
     const states = a.minimised.machine.states;
-    const named = rows.map((r) => (r.encoding ? { ...r, encoding: { ...r.encoding, codes: Object.fromEntries(states.map((s, i) => [s, r.encoding?.codes[i]])) } } : r));
+    const named = rows.map((r) =>
+      r.encoding
+        ? {
+            ...r,
+            encoding: { ...r.encoding, codes: Object.fromEntries(states.map((s, i) => [s, r.encoding?.codes[i]])) },
+          }
+        : r,
+    );
     io.out(JSON.stringify({ machine: a.machine.name, encodings: named }, null, 2) + '\n');
     return EXIT_OK;
   }
-  const head = ['encoding', 'bits', 'latches', 'term gates', 'gates', 'levers', 'capstans', 'weights', 'cords', 'cost', ''];
+  const head = [
+    'encoding',
+    'bits',
+    'latches',
+    'term gates',
+    'gates',
+    'levers',
+    'capstans',
+    'weights',
+    'cords',
+    'cost',
+    '',
+  ];
   const table = rows.map((r) =>
     r.ok && r.parts && r.encoding
-      ? [r.strategy, String(r.encoding.bits), String(r.parts.latches), String(r.termGates), String(r.parts.gates), String(r.parts.levers), String(r.parts.capstans), String(r.parts.weights), String(r.parts.cords), String(r.cost), r.cheapest ? '← cheapest' : '']
+      ? [
+          r.strategy,
+          String(r.encoding.bits),
+          String(r.parts.latches),
+          String(r.termGates),
+          String(r.parts.gates),
+          String(r.parts.levers),
+          String(r.parts.capstans),
+          String(r.parts.weights),
+          String(r.parts.cords),
+          String(r.cost),
+          r.cheapest ? '← cheapest' : '',
+        ]
       : [r.strategy, '—', '', '', '', '', '', '', '', '', r.diagnostics[0]?.message ?? 'does not fit'],
   );
   const widths = head.map((h, i) => Math.max(h.length, ...table.map((row) => row[i].length)));
-  const line = (cells: string[]): string => cells.map((c, i) => (i === 0 || i === cells.length - 1 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join('  ').trimEnd();
+  const line = (cells: string[]): string =>
+    cells
+      .map((c, i) => (i === 0 || i === cells.length - 1 ? c.padEnd(widths[i]) : c.padStart(widths[i])))
+      .join('  ')
+      .trimEnd();
   const n = a.minimised.machine.states.length;
   io.out(`${a.machine.name}: ${n} ${n === 1 ? 'state' : 'states'} after minimisation\n`);
   io.out(line(head) + '\n');

@@ -12,6 +12,8 @@ export async function runDemo(args: ParsedArgs, io: CliIo): Promise<number> {
   const file = relative(process.cwd(), DEMO_FILE) || DEMO_FILE;
   io.out(`Demo: building ${file} — a marble lift that rings a bell on every third marble.\n\n`);
   const code = await runBuild({ ...args, command: 'build', positional: [file] }, io);
-  io.out(`\nNext: \`npx latchwright step ${file}\` to work its levers, or \`npx latchwright build ${file} --out build/\` for the workshop documents.\n`);
+  io.out(
+    `\nNext: \`npx latchwright step ${file}\` to work its levers, or \`npx latchwright build ${file} --out build/\` for the workshop documents.\n`,
+  );
   return code;
 }

@@ -20,7 +20,18 @@ export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<numbe
       sequence = JSON.parse(r.text) as SeqArray;
     } catch (e) {
       const why = e instanceof Error ? e.message : String(e);
-      reportFailure([diag('LW100', `the input sequence is not valid JSON (${why})`, { file, path: '$' }, 'give an array with one object per clock, e.g. [{"marble": 1}, {}]')], io, false);
+      reportFailure(
+        [
+          diag(
+            'LW100',
+            `the input sequence is not valid JSON (${why})`,
+            { file, path: '$' },
+            'give an array with one object per clock, e.g. [{"marble": 1}, {}]',
+          ),
+        ],
+        io,
+        false,
+      );
       return EXIT_BAD_INPUT;
     }
   }
@@ -34,7 +45,13 @@ export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<numbe
   return runStep(
     built.build,
     spec,
-    { inputsFile: sequence, ...(typeof args.flags.inputs === 'string' ? { inputsPath: args.flags.inputs } : {}), json, abstract: args.flags.abstract === true, profile: built.profile },
+    {
+      inputsFile: sequence,
+      ...(typeof args.flags.inputs === 'string' ? { inputsPath: args.flags.inputs } : {}),
+      json,
+      abstract: args.flags.abstract === true,
+      profile: built.profile,
+    },
     { write: io.out, error: io.err, ...(sequence === undefined && io.interactive ? { readKeys: terminalKeys } : {}) },
   );
 }

@@ -7,7 +7,16 @@ import { mintermString } from '../model/cube.js';
 import type { FlatMachine } from '../model/flat.js';
 import type { Random } from '../model/random.js';
 import { phaseActions, type HandAction } from '../sim/hand.js';
-import { applyInPlace, isAlarm, outputValues, setLeversInPlace, slaveCode, type PartEvent, type PartSim, type Trit } from '../sim/part.js';
+import {
+  applyInPlace,
+  isAlarm,
+  outputValues,
+  setLeversInPlace,
+  slaveCode,
+  type PartEvent,
+  type PartSim,
+  type Trit,
+} from '../sim/part.js';
 
 /** What the build is checked against besides its own (minimised) machine. */
 export interface SpecInfo {

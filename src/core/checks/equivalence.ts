@@ -24,7 +24,16 @@ import { seededRandom } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
 import { clockActions, describeTrace, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
 import { isAlarm, powerUp, show, simFor, slaveCode, stepSim, timingOf, type Trit } from '../sim/part.js';
-import { clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, latchKey, sampledAssignments, type SpecInfo } from './clocking.js';
+import {
+  clockFrom,
+  describeInputs,
+  EXHAUSTIVE_INPUTS,
+  forEachHeld,
+  grayAssignments,
+  latchKey,
+  sampledAssignments,
+  type SpecInfo,
+} from './clocking.js';
 
 export interface EquivalenceOptions {
   /** Inputs up to which every combination is tried (default 16). */
@@ -63,7 +72,12 @@ interface Node {
 }
 
 /** Check the build against its minimised machine and the machine as written. */
-export function checkEquivalence(build: Build, spec: SpecInfo, profile: Pick<Profile, 'stageDelayS'>, opts: EquivalenceOptions = {}): EquivalenceResult {
+export function checkEquivalence(
+  build: Build,
+  spec: SpecInfo,
+  profile: Pick<Profile, 'stageDelayS'>,
+  opts: EquivalenceOptions = {},
+): EquivalenceResult {
   const sim = simFor(build, timingOf(profile));
   const f = build.machine;
   const codes = build.encoding.codes;
@@ -108,7 +122,12 @@ export function checkEquivalence(build: Build, spec: SpecInfo, profile: Pick<Pro
   };
 
   let pairs = 0;
-  const result = (ok: boolean, summary: string, counterexample?: Counterexample, complete = true): EquivalenceResult => ({
+  const result = (
+    ok: boolean,
+    summary: string,
+    counterexample?: Counterexample,
+    complete = true,
+  ): EquivalenceResult => ({
     name: 'equivalence',
     ok,
     summary,
@@ -124,7 +143,8 @@ export function checkEquivalence(build: Build, spec: SpecInfo, profile: Pick<Pro
     const [next, events] = stepSim(sim, s, a);
     s = next;
     const alarm = events.find(isAlarm);
-    if (alarm) return result(false, `reset fails: ${alarm.words}`, trace(build, [], null, `reset fails: ${alarm.words}`));
+    if (alarm)
+      return result(false, `reset fails: ${alarm.words}`, trace(build, [], null, `reset fails: ${alarm.words}`));
   }
   const startCode = slaveCode(sim, s.values);
   if (startCode !== codes[f.start]) {
@@ -147,7 +167,9 @@ export function checkEquivalence(build: Build, spec: SpecInfo, profile: Pick<Pro
   };
   const codeWords = (code: string): string => {
     const i = codes.indexOf(code);
-    return i >= 0 ? `'${f.states[i]}' (code ${code})` : `code ${code} (${code.includes('X') ? 'undetermined' : 'unused'})`;
+    return i >= 0
+      ? `'${f.states[i]}' (code ${code})`
+      : `code ${code} (${code.includes('X') ? 'undetermined' : 'unused'})`;
   };
 
   for (let t = 0; t < tNode.length; t++) {
@@ -162,7 +184,11 @@ export function checkEquivalence(build: Build, spec: SpecInfo, profile: Pick<Pro
       let out = node.outcomes.get(a);
       if (!out) {
         const c = clockFrom(sim, held);
-        out = { next: addNode(c.values), outputs: c.outputs, ...(c.alarms.length > 0 ? { words: c.alarms.map((e) => e.words).join('; ') } : {}) };
+        out = {
+          next: addNode(c.values),
+          outputs: c.outputs,
+          ...(c.alarms.length > 0 ? { words: c.alarms.map((e) => e.words).join('; ') } : {}),
+        };
         node.outcomes.set(a, out);
       }
       if (out.words) {
@@ -205,10 +231,21 @@ export function checkEquivalence(build: Build, spec: SpecInfo, profile: Pick<Pro
       return pairs < maxPairs;
     });
     if (failure) return result(false, failure.words, failure);
-    if (pairs >= maxPairs) return result(true, `no difference in ${pairs} pairs, but the exploration stopped at its bound of ${maxPairs} pairs`, undefined, false);
+    if (pairs >= maxPairs)
+      return result(
+        true,
+        `no difference in ${pairs} pairs, but the exploration stopped at its bound of ${maxPairs} pairs`,
+        undefined,
+        false,
+      );
   }
-  const how = exhaustive ? 'every input combination' : `one input combination per row cube plus ${opts.samples ?? 64} random ones per state (more than ${opts.maxExhaustiveInputs ?? EXHAUSTIVE_INPUTS} inputs: a test, not a proof)`;
-  return result(true, `the build behaves as the ${orig ? 'minimised machine and the machine as written' : 'machine'} over ${tNode.length} reachable product states and ${how}`);
+  const how = exhaustive
+    ? 'every input combination'
+    : `one input combination per row cube plus ${opts.samples ?? 64} random ones per state (more than ${opts.maxExhaustiveInputs ?? EXHAUSTIVE_INPUTS} inputs: a test, not a proof)`;
+  return result(
+    true,
+    `the build behaves as the ${orig ? 'minimised machine and the machine as written' : 'machine'} over ${tNode.length} reachable product states and ${how}`,
+  );
 
   function sampled(t: number): string[] {
     const cubes = f.rows[tMin[t]]?.map((r) => r.cube) ?? [];
@@ -218,7 +255,13 @@ export function checkEquivalence(build: Build, spec: SpecInfo, profile: Pick<Pro
 }
 
 /** The hand-action trace from power-up: reset, the clocks of `path`, then the failing clock (inputs only when an output was wrong). */
-function trace(build: Build, path: readonly string[], failing: string | null, words: string, inputsOnly = false): Counterexample {
+function trace(
+  build: Build,
+  path: readonly string[],
+  failing: string | null,
+  words: string,
+  inputsOnly = false,
+): Counterexample {
   const inputs = build.machine.inputs;
   const actions: HandAction[] = resetActions();
   let current = valuesOf(inputs, '0'.repeat(inputs.length));

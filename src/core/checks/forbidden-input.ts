@@ -32,8 +32,29 @@ import {
   type HandAction,
   type OperatingRule,
 } from '../sim/hand.js';
-import { applyInPlace, isAlarm, latchLabel, powerUp, simFor, stateAtCode, stepSim, timingOf, type PartEvent, type PartSim } from '../sim/part.js';
-import { allCodes, clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, latchKey, randomCodes, sampledAssignments } from './clocking.js';
+import {
+  applyInPlace,
+  isAlarm,
+  latchLabel,
+  powerUp,
+  simFor,
+  stateAtCode,
+  stepSim,
+  timingOf,
+  type PartEvent,
+  type PartSim,
+} from '../sim/part.js';
+import {
+  allCodes,
+  clockFrom,
+  describeInputs,
+  EXHAUSTIVE_INPUTS,
+  forEachHeld,
+  grayAssignments,
+  latchKey,
+  randomCodes,
+  sampledAssignments,
+} from './clocking.js';
 
 export interface ForbiddenInputOptions {
   readonly maxExhaustiveInputs?: number;
@@ -83,7 +104,11 @@ export interface ForbiddenInputResult extends CheckResult {
 }
 
 /** Prove that no latch sees S̄ = R̄ = 0 under the operating rules, and find what breaking each rule upsets. */
-export function checkForbiddenInput(build: Build, profile: Pick<Profile, 'stageDelayS'>, opts: ForbiddenInputOptions = {}): ForbiddenInputResult {
+export function checkForbiddenInput(
+  build: Build,
+  profile: Pick<Profile, 'stageDelayS'>,
+  opts: ForbiddenInputOptions = {},
+): ForbiddenInputResult {
   const sim = simFor(build, timingOf(profile));
   const f = build.machine;
   const n = f.inputs.length;
@@ -91,16 +116,36 @@ export function checkForbiddenInput(build: Build, profile: Pick<Profile, 'stageD
   const rnd = seededRandom(opts.seed ?? 1);
   const maxClocks = opts.maxClocks ?? 1 << 18;
   const exhaustive = n <= (opts.maxExhaustiveInputs ?? EXHAUSTIVE_INPUTS);
-  const tries = exhaustive ? grayAssignments(n) : sampledAssignments([...f.rows.flat().map((r) => r.cube), ...f.never], n, opts.samples ?? 256, rnd);
+  const tries = exhaustive
+    ? grayAssignments(n)
+    : sampledAssignments([...f.rows.flat().map((r) => r.cube), ...f.never], n, opts.samples ?? 256, rnd);
   const allFit = 2 ** bits * tries.length <= maxClocks;
-  const codes = allFit ? allCodes(bits) : [...build.encoding.codes, ...randomCodes(bits, Math.floor(maxClocks / tries.length) - build.encoding.codes.length, rnd, new Set(build.encoding.codes))];
+  const codes = allFit
+    ? allCodes(bits)
+    : [
+        ...build.encoding.codes,
+        ...randomCodes(
+          bits,
+          Math.floor(maxClocks / tries.length) - build.encoding.codes.length,
+          rnd,
+          new Set(build.encoding.codes),
+        ),
+      ];
   const freeMasters = 4 ** bits * tries.length <= Math.min(maxClocks, opts.maxFreeMasterClocks ?? 1 << 15);
 
   let states = 0;
   let failure: ForbiddenCounterexample | undefined;
   const fail = (code: string, m: string, a: string, actions: HandAction[], alarms: PartEvent[]): void => {
     const where = `with the slaves at code ${code}${m !== code ? `, the masters at ${m}` : ''} and inputs ${describeInputs(f.inputs, a)}`;
-    failure = { code, masterCode: m, inputs: a, actions, trace: describeTrace(actions), ...(alarms[0].latch ? { latch: alarms[0].latch } : {}), words: `${where}: ${alarms[0].words}` };
+    failure = {
+      code,
+      masterCode: m,
+      inputs: a,
+      actions,
+      trace: describeTrace(actions),
+      ...(alarms[0].latch ? { latch: alarms[0].latch } : {}),
+      words: `${where}: ${alarms[0].words}`,
+    };
   };
   outer: for (const c of codes) {
     // The masters equal to the slaves first (as every clock leaves them), then every other master code.
@@ -124,7 +169,8 @@ export function checkForbiddenInput(build: Build, profile: Pick<Profile, 'stageD
           fail(c, m, a, clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero)), out.alarms);
           return false;
         },
-        (a, alarms) => fail(c, m, a, clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero)).slice(0, -4), alarms),
+        (a, alarms) =>
+          fail(c, m, a, clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero)).slice(0, -4), alarms),
       );
       if (failure) break outer;
     }
@@ -183,7 +229,9 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
     if (depth[i] >= maxActions) continue;
     const v = statesOf[i];
     moves.length = 0;
-    f.inputs.forEach((name, k) => moves.push({ kind: 'input', input: name, value: v[sim.inputLevers[k]] === 1 ? 0 : 1 }));
+    f.inputs.forEach((name, k) =>
+      moves.push({ kind: 'input', input: name, value: v[sim.inputLevers[k]] === 1 ? 0 : 1 }),
+    );
     for (const l of levers) {
       const d = l === 'phi1' ? sim.phi1 : l === 'phi2' ? sim.phi2 : sim.reset;
       moves.push({ kind: v[d] === 1 ? 'release' : 'pull', lever: l });

@@ -25,7 +25,8 @@ import type { Netlist } from '../model/netlist.js';
 export function checkForbiddenInput(build: Build): CheckResult {
   const bits = build.encoding.bits;
   for (let j = 0; j < bits; j++) {
-    const s = build.equations[2 * j].terms, r = build.equations[2 * j + 1].terms;
+    const s = build.equations[2 * j].terms,
+      r = build.equations[2 * j + 1].terms;
     for (const a of s)
       for (const b of r) {
         const x = intersect(a, b);
@@ -43,13 +44,22 @@ export function checkForbiddenInput(build: Build): CheckResult {
   for (let j = 0; j < bits; j++) {
     const wrong = slaveWiring(build, j);
     if (wrong) {
-      return { name: 'forbidden-input', ok: false, summary: wrong, latchesChecked: bits + j + 1, counterexample: { latch: build.signals.slaves[j], code: '', inputs: '' } };
+      return {
+        name: 'forbidden-input',
+        ok: false,
+        summary: wrong,
+        latchesChecked: bits + j + 1,
+        counterexample: { latch: build.signals.slaves[j], code: '', inputs: '' },
+      };
     }
   }
   return {
     name: 'forbidden-input',
     ok: true,
-    summary: bits === 0 ? 'no latches (a combinational build)' : `S·R = 0 proven for ${bits} master latches over all ${2 ** bits} codes × all input combinations; ${bits} slave latches take complementary transfer gates`,
+    summary:
+      bits === 0
+        ? 'no latches (a combinational build)'
+        : `S·R = 0 proven for ${bits} master latches over all ${2 ** bits} codes × all input combinations; ${bits} slave latches take complementary transfer gates`,
     latchesChecked: 2 * bits,
   };
 }
@@ -75,10 +85,12 @@ export function checkNextStateEquivalence(build: Build): CheckResult {
       if (row.next !== DONT_CARE) {
         const to = codes[row.next];
         for (let j = 0; j < bits; j++) {
-          const set = eq[2 * j].terms, reset = eq[2 * j + 1].terms;
+          const set = eq[2 * j].terms,
+            reset = eq[2 * j + 1].terms;
           const want = to[j] === '1' ? 1 : 0;
           // Wrong where the opposite input fires, or where the needed input is missing.
-          const bad = meet(x, want === 1 ? reset : set) ?? (code[j] === to[j] ? null : miss(x, want === 1 ? set : reset));
+          const bad =
+            meet(x, want === 1 ? reset : set) ?? (code[j] === to[j] ? null : miss(x, want === 1 ? set : reset));
           if (bad !== null) return fail(s, bad, `next q${j}`, want, nextBit(bad, j, set, reset));
         }
       }
@@ -115,7 +127,8 @@ function miss(x: Cube, cover: readonly Cube[]): string | null {
 }
 
 function nextBit(point: string, j: number, set: readonly Cube[], reset: readonly Cube[]): number | 'forbidden' {
-  const s = coverHolds(set, point), r = coverHolds(reset, point);
+  const s = coverHolds(set, point),
+    r = coverHolds(reset, point);
   if (s && r) return 'forbidden';
   return s ? 1 : r ? 0 : point[j] === '1' ? 1 : 0;
 }
@@ -126,7 +139,8 @@ function slaveWiring(build: Build, j: number): string | null {
   const slave = n.parts.find((p) => p.id === build.signals.slaves[j]);
   const master = n.parts.find((p) => p.id === build.signals.masters[j]);
   if (slave?.kind !== 'latch' || master?.kind !== 'latch') return `latches of bit ${j} are missing`;
-  const setIn = feeders(n, slave.setGate, slave.resetGate), resetIn = feeders(n, slave.resetGate, slave.setGate);
+  const setIn = feeders(n, slave.setGate, slave.resetGate),
+    resetIn = feeders(n, slave.resetGate, slave.setGate);
   const phi2 = build.signals.phi2;
   const transfer = (drivers: Set<string>, from: string): boolean =>
     [...drivers].some((d) => {
@@ -137,7 +151,8 @@ function slaveWiring(build: Build, j: number): string | null {
   if (!transfer(resetIn, master.resetGate)) return `slave latch Q${j} is not reset by NAND(φ2, !M${j})`;
   for (const l of [master, slave]) {
     if (l.kind !== 'latch') continue;
-    const a = feeders(n, l.setGate, l.resetGate).has('rst.drv'), b = feeders(n, l.resetGate, l.setGate).has('rst.drv');
+    const a = feeders(n, l.setGate, l.resetGate).has('rst.drv'),
+      b = feeders(n, l.resetGate, l.setGate).has('rst.drv');
     if (a === b) return `the reset cord enters ${a ? 'both sides' : 'neither side'} of latch ${l.name}`;
   }
   return null;
@@ -156,7 +171,8 @@ function feeders(n: Netlist, gate: string, skip: string): Set<string> {
     for (const c of n.cords) {
       if (c.driver === skip || !c.ports.some((p) => p.part === g)) continue;
       const d = n.parts.find((p) => p.id === c.driver);
-      const passOn = d?.kind === 'gate' && (d.role === 'buffer' || d.id.startsWith(`${gate}.and`) || d.id.startsWith(`${g}.and`));
+      const passOn =
+        d?.kind === 'gate' && (d.role === 'buffer' || d.id.startsWith(`${gate}.and`) || d.id.startsWith(`${g}.and`));
       if (passOn) visit(d.id);
       else out.add(c.driver);
     }

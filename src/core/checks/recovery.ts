@@ -17,7 +17,16 @@ import type { Build, CheckResult } from '../model/build.js';
 import { seededRandom } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
 import { simFor, stateAtCode, timingOf } from '../sim/part.js';
-import { allCodes, clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, randomCodes, sampledAssignments } from './clocking.js';
+import {
+  allCodes,
+  clockFrom,
+  describeInputs,
+  EXHAUSTIVE_INPUTS,
+  forEachHeld,
+  grayAssignments,
+  randomCodes,
+  sampledAssignments,
+} from './clocking.js';
 
 export interface RecoveryOptions {
   /** Also try input combinations the spec declares impossible (default false). */
@@ -39,10 +48,15 @@ export interface RecoveryResult extends CheckResult {
   readonly checked: 'all' | 'sampled';
 }
 
-const HINT = "send the unused codes to a state: build with the synthesis option unusedCodes (for example the start state's index) and check again";
+const HINT =
+  "send the unused codes to a state: build with the synthesis option unusedCodes (for example the start state's index) and check again";
 
 /** Check that every unused code reaches a used one within k clocks under every input sequence. */
-export function checkRecovery(build: Build, profile: Pick<Profile, 'stageDelayS'>, opts: RecoveryOptions = {}): RecoveryResult {
+export function checkRecovery(
+  build: Build,
+  profile: Pick<Profile, 'stageDelayS'>,
+  opts: RecoveryOptions = {},
+): RecoveryResult {
   const sim = simFor(build, timingOf(profile));
   const f = build.machine;
   const n = f.inputs.length;
@@ -52,7 +66,16 @@ export function checkRecovery(build: Build, profile: Pick<Profile, 'stageDelayS'
   const rnd = seededRandom(opts.seed ?? 1);
   const exhaustive = n <= (opts.maxExhaustiveInputs ?? EXHAUSTIVE_INPUTS);
   const keep = (a: string): boolean => opts.includeNever === true || !coverHolds(f.never, a);
-  const tries = (exhaustive ? grayAssignments(n) : sampledAssignments(f.rows.flat().map((r) => r.cube), n, opts.samples ?? 64, rnd)).filter(keep);
+  const tries = (
+    exhaustive
+      ? grayAssignments(n)
+      : sampledAssignments(
+          f.rows.flat().map((r) => r.cube),
+          n,
+          opts.samples ?? 64,
+          rnd,
+        )
+  ).filter(keep);
   const everyCode = 2 ** bits <= maxCodes;
   const start = everyCode ? allCodes(bits).filter((c) => !used.has(c)) : randomCodes(bits, maxCodes, rnd, used);
 
@@ -66,7 +89,11 @@ export function checkRecovery(build: Build, profile: Pick<Profile, 'stageDelayS'
     forEachHeld(sim, stateAtCode(sim, c, '0'.repeat(n)).values, tries, (held, a) => {
       const r = clockFrom(sim, held);
       if (r.alarms.length > 0 || r.code.includes('X')) {
-        out.push({ next: r.code, inputs: a, words: r.alarms.map((e) => e.words).join('; ') || 'a latch is left undetermined (X)' });
+        out.push({
+          next: r.code,
+          inputs: a,
+          words: r.alarms.map((e) => e.words).join('; ') || 'a latch is left undetermined (X)',
+        });
         return;
       }
       if (!out.some((e) => e.next === r.code)) out.push({ next: r.code, inputs: a });
@@ -95,7 +122,11 @@ export function checkRecovery(build: Build, profile: Pick<Profile, 'stageDelayS'
     let worst: number | null = 0;
     for (const e of edges.get(c) ?? []) {
       if (e.words !== undefined) {
-        loop ??= { codes: [c], inputs: [e.inputs], words: `from unused code ${c} with ${describeInputs(f.inputs, e.inputs)}: ${e.words}` };
+        loop ??= {
+          codes: [c],
+          inputs: [e.inputs],
+          words: `from unused code ${c} with ${describeInputs(f.inputs, e.inputs)}: ${e.words}`,
+        };
         worst = null;
         continue;
       }

@@ -21,7 +21,15 @@ import type { Profile } from '../physics/profile.js';
 import { retimed, type PartSim } from '../sim/compile.js';
 import { resetActions } from '../sim/hand.js';
 import { applyInPlace, powerUp, show, simFor, slaveCode, timingOf } from '../sim/part.js';
-import { clockFrom, describeInputs, EXHAUSTIVE_INPUTS, forEachHeld, grayAssignments, latchKey, sampledAssignments } from './clocking.js';
+import {
+  clockFrom,
+  describeInputs,
+  EXHAUSTIVE_INPUTS,
+  forEachHeld,
+  grayAssignments,
+  latchKey,
+  sampledAssignments,
+} from './clocking.js';
 import { stageChain, type StageChain } from './stage-chains.js';
 
 export interface TimingOptions {
@@ -82,10 +90,15 @@ function phases(sim: PartSim): Phases {
 }
 
 /** Round to `step` (0.1, 0.01 …) without binary noise in the printed figure. */
-const round = (x: number, step: number): number => Number((Math.round(x / step) * step).toFixed(Math.max(0, -Math.floor(Math.log10(step)))));
+const round = (x: number, step: number): number =>
+  Number((Math.round(x / step) * step).toFixed(Math.max(0, -Math.floor(Math.log10(step)))));
 
 /** Phase times, clock rate, cam angles and the Monte Carlo run. */
-export function checkTiming(build: Build, profile: Pick<Profile, 'stageDelayS' | 'stageDelaySpread'>, opts: TimingOptions = {}): TimingResult {
+export function checkTiming(
+  build: Build,
+  profile: Pick<Profile, 'stageDelayS' | 'stageDelaySpread'>,
+  opts: TimingOptions = {},
+): TimingResult {
   const sim = simFor(build, timingOf(profile, opts.delays));
   const p = phases(sim);
   const clockS = p.phi1.timeS + p.dead1.timeS + p.phi2.timeS + p.dead2.timeS;
@@ -103,7 +116,12 @@ export function checkTiming(build: Build, profile: Pick<Profile, 'stageDelayS' |
   const runs = opts.runs ?? 20;
   const seed = opts.seed ?? 1;
   const window = (x: number): number => (timed ? (x / clockS) * turnS : Infinity);
-  const windows = { phi1: window(p.phi1.timeS), dead1: window(p.dead1.timeS), phi2: window(p.phi2.timeS), dead2: window(p.dead2.timeS) };
+  const windows = {
+    phi1: window(p.phi1.timeS),
+    dead1: window(p.dead1.timeS),
+    phi2: window(p.phi2.timeS),
+    dead2: window(p.dead2.timeS),
+  };
   const monteCarlo = p.loop ? { runs: 0, seed, ok: false } : monteCarloRun(sim, profile, opts, runs, seed, windows);
   const base = {
     name: 'timing',
@@ -117,21 +135,38 @@ export function checkTiming(build: Build, profile: Pick<Profile, 'stageDelayS' |
     cam,
     monteCarlo,
   };
-  if (p.loop) return { ...base, ok: false, summary: `the gates ${p.loop.join(' → ')} form a loop that no latch closes: the machine may never settle` };
-  if (!timed) return { ...base, ok: monteCarlo.ok, summary: 'nothing to time: the machine has no clock levers and no inputs' };
+  if (p.loop)
+    return {
+      ...base,
+      ok: false,
+      summary: `the gates ${p.loop.join(' → ')} form a loop that no latch closes: the machine may never settle`,
+    };
+  if (!timed)
+    return { ...base, ok: monteCarlo.ok, summary: 'nothing to time: the machine has no clock levers and no inputs' };
   if (sim.slaves.length === 0) {
     const settleS = round(p.dead2.timeS, 0.01);
-    return { ...base, ok: monteCarlo.ok, summary: `no clock (one state): the outputs settle ${settleS} s after an input lever moves${monteCarlo.ok ? '' : `; but ${monteCarlo.race?.words ?? 'a Monte Carlo run differs'}`}` };
+    return {
+      ...base,
+      ok: monteCarlo.ok,
+      summary: `no clock (one state): the outputs settle ${settleS} s after an input lever moves${monteCarlo.ok ? '' : `; but ${monteCarlo.race?.words ?? 'a Monte Carlo run differs'}`}`,
+    };
   }
   if (turnS < clockS) {
-    const chain = p.phi1.timeS >= p.phi2.timeS ? `φ1 chain ${p.phi1.parts.join(' → ')}` : `φ2 chain ${p.phi2.parts.join(' → ')}`;
-    return { ...base, ok: false, summary: `a crank at ${crankRpm} turns per minute gives ${round(turnS, 0.01)} s per clock, but one clock needs ${round(clockS, 0.01)} s (longest: ${chain}); turn at most ${clocksPerMinute} per minute` };
+    const chain =
+      p.phi1.timeS >= p.phi2.timeS ? `φ1 chain ${p.phi1.parts.join(' → ')}` : `φ2 chain ${p.phi2.parts.join(' → ')}`;
+    return {
+      ...base,
+      ok: false,
+      summary: `a crank at ${crankRpm} turns per minute gives ${round(turnS, 0.01)} s per clock, but one clock needs ${round(clockS, 0.01)} s (longest: ${chain}); turn at most ${clocksPerMinute} per minute`,
+    };
   }
   const what = `φ1 ${round(p.phi1.timeS, 0.01)} s, φ2 ${round(p.phi2.timeS, 0.01)} s, one clock ${round(clockS, 0.01)} s: at most ${clocksPerMinute} clocks per minute; crank at ${crankRpm} per minute with φ1 ${cam.phi1[0]}°–${cam.phi1[1]}°, φ2 ${cam.phi2[0]}°–${cam.phi2[1]}°`;
   return {
     ...base,
     ok: monteCarlo.ok,
-    summary: monteCarlo.ok ? `${what}; ${runs} Monte Carlo runs (seed ${seed}) agree` : `${what}; but ${monteCarlo.race?.words ?? 'a Monte Carlo run differs'}`,
+    summary: monteCarlo.ok
+      ? `${what}; ${runs} Monte Carlo runs (seed ${seed}) agree`
+      : `${what}; but ${monteCarlo.race?.words ?? 'a Monte Carlo run differs'}`,
   };
 }
 
@@ -155,7 +190,15 @@ function nominalReplay(sim: PartSim, limit: number, seed: number): Replay[] {
   const values = powerUp(sim)[0].values.slice();
   for (const a of resetActions()) applyInPlace(sim, values, 0, a, []);
   const n = f.inputs.length;
-  const all = n <= EXHAUSTIVE_INPUTS ? grayAssignments(n) : sampledAssignments(f.rows.flat().map((r) => r.cube), n, 64, seededRandom(seed));
+  const all =
+    n <= EXHAUSTIVE_INPUTS
+      ? grayAssignments(n)
+      : sampledAssignments(
+          f.rows.flat().map((r) => r.cube),
+          n,
+          64,
+          seededRandom(seed),
+        );
   const tries = all.filter((a) => !coverHolds(f.never, a));
   const out: Replay[] = [];
   const bases: Uint8Array[] = [values];
@@ -181,9 +224,12 @@ function settledOf(c: ReturnType<typeof clockFrom>): Settled {
 
 /** How two settled results differ, in words; null when they agree. */
 function difference(nominal: Settled, varied: Settled): string | null {
-  if (nominal.code !== varied.code) return `nominal delays leave code ${nominal.code}, varied delays code ${varied.code}`;
-  if (nominal.outputs !== varied.outputs) return `nominal delays show outputs ${nominal.outputs}, varied delays ${varied.outputs}`;
-  if (nominal.alarms !== varied.alarms) return `nominal delays raise ${nominal.alarms || 'no alarm'}, varied delays ${varied.alarms || 'none'}`;
+  if (nominal.code !== varied.code)
+    return `nominal delays leave code ${nominal.code}, varied delays code ${varied.code}`;
+  if (nominal.outputs !== varied.outputs)
+    return `nominal delays show outputs ${nominal.outputs}, varied delays ${varied.outputs}`;
+  if (nominal.alarms !== varied.alarms)
+    return `nominal delays raise ${nominal.alarms || 'no alarm'}, varied delays ${varied.alarms || 'none'}`;
   return null;
 }
 
@@ -201,7 +247,8 @@ function monteCarloRun(
   const f = nominal.build.machine;
   for (let run = 1; run <= runs; run++) {
     const delays: Record<string, number> = {};
-    for (let g = nominal.leverCount; g < nominal.driverCount; g++) delays[nominal.ids[g]] = (nominal.delayUs[g] / 1e6) * (1 + spread * (2 * rnd.next() - 1));
+    for (let g = nominal.leverCount; g < nominal.driverCount; g++)
+      delays[nominal.ids[g]] = (nominal.delayUs[g] / 1e6) * (1 + spread * (2 * rnd.next() - 1));
     const sim = retimed(nominal, { stageDelayS: profile.stageDelayS, delays });
     const p = phases(sim);
     const tight = (['phi1', 'dead1', 'phi2', 'dead2'] as const).find((w) => p[w].timeS > windows[w] + 1e-9);

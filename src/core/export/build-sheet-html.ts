@@ -48,7 +48,10 @@ pre { background: #f3f5f4; border: 1px solid #d4dad7; padding: .6rem .8rem; whit
 function tableHtml(t: TableBlock): string {
   const mono = new Set(t.mono ?? []);
   const head = `${t.tick ? '<th>✓</th>' : ''}${t.headers.map((h) => `<th scope="col">${x(h)}</th>`).join('')}`;
-  const rows = t.rows.map((r) => `<tr>${t.tick ? '<td class="tick">☐</td>' : ''}${r.map((c, i) => `<td${mono.has(i) ? ' class="mono"' : ''}>${x(c)}</td>`).join('')}</tr>`);
+  const rows = t.rows.map(
+    (r) =>
+      `<tr>${t.tick ? '<td class="tick">☐</td>' : ''}${r.map((c, i) => `<td${mono.has(i) ? ' class="mono"' : ''}>${x(c)}</td>`).join('')}</tr>`,
+  );
   // A table of name/value pairs has no header words: leave the header row out.
   const thead = t.headers.every((h) => h === '') ? '' : `<thead><tr>${head}</tr></thead>`;
   return `<table>${t.caption ? `<caption>${x(t.caption)}</caption>` : ''}${thead}<tbody>\n${rows.join('\n')}\n</tbody></table>`;
@@ -73,8 +76,13 @@ function blockHtml(b: Block): string {
 
 /** A Doc as one self-contained HTML page. */
 export function renderDocHtml(doc: Doc): string {
-  const nav = doc.sections.length > 2 ? `<nav><ol>${doc.sections.map((s) => `<li><a href="#${x(s.id)}">${x(s.title)}</a></li>`).join('')}</ol></nav>\n` : '';
-  const sections = doc.sections.map((s) => `<section id="${x(s.id)}">\n<h2>${x(s.title)}</h2>\n${s.blocks.map(blockHtml).join('\n')}\n</section>`);
+  const nav =
+    doc.sections.length > 2
+      ? `<nav><ol>${doc.sections.map((s) => `<li><a href="#${x(s.id)}">${x(s.title)}</a></li>`).join('')}</ol></nav>\n`
+      : '';
+  const sections = doc.sections.map(
+    (s) => `<section id="${x(s.id)}">\n<h2>${x(s.title)}</h2>\n${s.blocks.map(blockHtml).join('\n')}\n</section>`,
+  );
   const page = doc.landscape ? '\n@page { size: landscape; }\nbody { max-width: 96rem; }' : '';
   return [
     '<!DOCTYPE html>',

@@ -37,7 +37,10 @@ function blockMd(b: Block): string {
       return `${fence}text\n${b.lines.join('\n')}\n${fence}`;
     }
     case 'note':
-      return [`> **${escapeMd(b.title)}**`, ...(b.items.length > 0 ? ['>', ...b.items.map((i) => `> - ${escapeMd(i)}`)] : [])].join('\n');
+      return [
+        `> **${escapeMd(b.title)}**`,
+        ...(b.items.length > 0 ? ['>', ...b.items.map((i) => `> - ${escapeMd(i)}`)] : []),
+      ].join('\n');
     case 'table':
       return tableMd(b);
   }

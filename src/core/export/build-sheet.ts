@@ -59,23 +59,49 @@ function summarySection(input: DocumentsInput): Section {
   const source = input.analysed?.machine;
   const blocks: Block[] = [];
   // The description's paragraphs (blank-line separated, lines joined), as the author wrote them.
-  for (const para of (source?.description ?? '').split(/\n\s*\n/)) if (para.trim() !== '') blocks.push(p(para.replace(/\s*\n\s*/g, ' ').trim()));
-  const statesLine = source && source.states.length !== f.states.length ? `${f.states.length} (minimised from ${source.states.length})` : String(f.states.length);
+  for (const para of (source?.description ?? '').split(/\n\s*\n/))
+    if (para.trim() !== '') blocks.push(p(para.replace(/\s*\n\s*/g, ' ').trim()));
+  const statesLine =
+    source && source.states.length !== f.states.length
+      ? `${f.states.length} (minimised from ${source.states.length})`
+      : String(f.states.length);
   blocks.push(
-    table(['', ''], [
-      ['machine', f.name],
-      ['inputs', f.inputs.join(', ') || '(none)'],
-      ['outputs', f.outputs.join(', ') || '(none)'],
-      ['states', statesLine],
-      ['start state', f.states[f.start]],
-      ['encoding', `${build.encoding.strategy}, ${build.encoding.bits} state ${build.encoding.bits === 1 ? 'bit' : 'bits'}`],
-      ['parts', `${build.parts.gates} gates (${build.parts.latches} latches), ${build.parts.levers} levers, ${build.parts.capstans} capstans, ${build.parts.weights} weights, ${build.parts.cords} cords`],
-    ]),
+    table(
+      ['', ''],
+      [
+        ['machine', f.name],
+        ['inputs', f.inputs.join(', ') || '(none)'],
+        ['outputs', f.outputs.join(', ') || '(none)'],
+        ['states', statesLine],
+        ['start state', f.states[f.start]],
+        [
+          'encoding',
+          `${build.encoding.strategy}, ${build.encoding.bits} state ${build.encoding.bits === 1 ? 'bit' : 'bits'}`,
+        ],
+        [
+          'parts',
+          `${build.parts.gates} gates (${build.parts.latches} latches), ${build.parts.levers} levers, ${build.parts.capstans} capstans, ${build.parts.weights} weights, ${build.parts.cords} cords`,
+        ],
+      ],
+    ),
   );
   const failed = checks.filter((c) => !c.ok);
-  if (failed.length > 0) blocks.push({ kind: 'note', tone: 'fail', title: `${failed.length} of ${checks.length} checks failed — do not build until they pass`, items: failed.map((c) => `${c.name}: ${c.summary}`) });
-  else if (checks.length > 0) blocks.push({ kind: 'note', tone: 'ok', title: `All ${checks.length} checks passed`, items: [] });
-  if (checks.length > 0) blocks.push(table(['check', 'result', 'summary'], checks.map((c) => [c.name, c.ok ? 'passed' : 'FAILED', c.summary])));
+  if (failed.length > 0)
+    blocks.push({
+      kind: 'note',
+      tone: 'fail',
+      title: `${failed.length} of ${checks.length} checks failed — do not build until they pass`,
+      items: failed.map((c) => `${c.name}: ${c.summary}`),
+    });
+  else if (checks.length > 0)
+    blocks.push({ kind: 'note', tone: 'ok', title: `All ${checks.length} checks passed`, items: [] });
+  if (checks.length > 0)
+    blocks.push(
+      table(
+        ['check', 'result', 'summary'],
+        checks.map((c) => [c.name, c.ok ? 'passed' : 'FAILED', c.summary]),
+      ),
+    );
   else blocks.push(p('No checks were run for this sheet.'));
   return { id: 'machine', title: 'Machine', blocks };
 }
@@ -84,7 +110,14 @@ function safetySection(): Section {
   return {
     id: 'safety',
     title: 'Safety',
-    blocks: [{ kind: 'note', tone: 'caution', title: 'Cautions — read before building, commissioning or showing the machine', items: CAUTIONS }],
+    blocks: [
+      {
+        kind: 'note',
+        tone: 'caution',
+        title: 'Cautions — read before building, commissioning or showing the machine',
+        items: CAUTIONS,
+      },
+    ],
   };
 }
 
@@ -92,13 +125,18 @@ function guardSection(input: DocumentsInput): Section {
   const g = input.build.guard;
   const fi = checkNamed<ForbiddenInputResult & { logic?: CheckResult }>(input.checks, 'forbidden-input');
   const blocks: Block[] = [
-    p('A latch must never see both of its active-low ports pulled at once (S̄ = R̄ = 0): both outputs go to 1, and releasing both together leaves the latch unpredictable. The guard keeps the set and reset functions of every master latch apart everywhere the machine can be — unused codes and impossible inputs included.'),
-    table(['', ''], [
-      ['S·R = 0 proven', g.ok ? 'yes' : 'NO'],
-      ['method', g.method],
-      ['extra gates for the guard', String(g.extraGates)],
-      ['extra cords for the guard', String(g.extraCords)],
-    ]),
+    p(
+      'A latch must never see both of its active-low ports pulled at once (S̄ = R̄ = 0): both outputs go to 1, and releasing both together leaves the latch unpredictable. The guard keeps the set and reset functions of every master latch apart everywhere the machine can be — unused codes and impossible inputs included.',
+    ),
+    table(
+      ['', ''],
+      [
+        ['S·R = 0 proven', g.ok ? 'yes' : 'NO'],
+        ['method', g.method],
+        ['extra gates for the guard', String(g.extraGates)],
+        ['extra cords for the guard', String(g.extraCords)],
+      ],
+    ),
   ];
   if (fi) blocks.push(p(`Forbidden-input check: ${fi.ok ? 'passed' : 'FAILED'} — ${fi.summary}`));
   else blocks.push(p('The forbidden-input check was not run for this sheet.'));
@@ -115,11 +153,24 @@ function partsSection(input: DocumentsInput): Section {
     id: 'parts',
     title: 'Parts and bill of materials',
     blocks: [
-      table(['gates', 'latches', 'levers', 'capstans', 'weights', 'cords'], [[c.gates, c.latches, c.levers, c.capstans, c.weights, c.cords].map(String)]),
-      table(['item', 'kind', 'count', 'each', 'unit', 'total', 'note'], bom.map((r) => [r.item, r.kind, String(r.count), num(r.each, 3), r.unit, num(r.total, 3), r.note]), { caption: 'Bill of materials' }),
+      table(
+        ['gates', 'latches', 'levers', 'capstans', 'weights', 'cords'],
+        [[c.gates, c.latches, c.levers, c.capstans, c.weights, c.cords].map(String)],
+      ),
+      table(
+        ['item', 'kind', 'count', 'each', 'unit', 'total', 'note'],
+        bom.map((r) => [r.item, r.kind, String(r.count), num(r.each, 3), r.unit, num(r.total, 3), r.note]),
+        { caption: 'Bill of materials' },
+      ),
       table(
         ['id', 'stage', 'kind', 'name', 'ports'],
-        parts.map((q) => [q.id, STAGE_WORDS[stages.stage.get(q.id) ?? 'indicator'], q.kind === 'lever' || q.kind === 'gate' || q.kind === 'latch' ? `${q.kind} (${q.role})` : q.kind, q.name, q.kind === 'gate' ? q.ports.map((x) => x.name).join(', ') : '']),
+        parts.map((q) => [
+          q.id,
+          STAGE_WORDS[stages.stage.get(q.id) ?? 'indicator'],
+          q.kind === 'lever' || q.kind === 'gate' || q.kind === 'latch' ? `${q.kind} (${q.role})` : q.kind,
+          q.name,
+          q.kind === 'gate' ? q.ports.map((x) => x.name).join(', ') : '',
+        ]),
         { caption: 'Every part, in stage order', mono: [0] },
       ),
     ],
@@ -131,43 +182,79 @@ function driveSection(input: DocumentsInput): Section {
   const budgets = driveBudget(build.netlist, profile).sort((a, b) => a.margin - b.margin);
   const d = checkNamed<DriveCheck>(input.checks, 'drive');
   const blocks: Block[] = [
-    p(`Capstan equation: a cord wrapped ${num(profile.wraps)} turns on the drum (μ = ${num(profile.mu)}) holds up to e^(μθ) = ${num(Math.exp(profile.mu * 2 * Math.PI * profile.wraps))} times its hold tension. Margin = available ÷ load; the design rule asks at least ${num(profile.minMargin)}. Weakest first.`),
+    p(
+      `Capstan equation: a cord wrapped ${num(profile.wraps)} turns on the drum (μ = ${num(profile.mu)}) holds up to e^(μθ) = ${num(Math.exp(profile.mu * 2 * Math.PI * profile.wraps))} times its hold tension. Margin = available ÷ load; the design rule asks at least ${num(profile.minMargin)}. Weakest first.`,
+    ),
     table(
       ['driver', 'kind', 'cords', 'branches', 'hold (g)', 'available (g)', 'load (g)', 'margin', 'within budget'],
-      budgets.map((b) => [b.driver, b.driverKind, b.cords.join(', '), String(b.branches.length), num(b.holdG, 1), num(b.availableG, 1), num(b.loadG, 1), num(b.margin), b.ok ? 'yes' : 'NO']),
+      budgets.map((b) => [
+        b.driver,
+        b.driverKind,
+        b.cords.join(', '),
+        String(b.branches.length),
+        num(b.holdG, 1),
+        num(b.availableG, 1),
+        num(b.loadG, 1),
+        num(b.margin),
+        b.ok ? 'yes' : 'NO',
+      ]),
       { mono: [0, 2] },
     ),
   ];
-  for (const b of budgets.filter((x) => !x.ok)) blocks.push({ kind: 'note', tone: 'fail', title: b.message ?? `driver ${b.driver} is over budget`, items: b.fixes ?? [] });
+  for (const b of budgets.filter((x) => !x.ok))
+    blocks.push({
+      kind: 'note',
+      tone: 'fail',
+      title: b.message ?? `driver ${b.driver} is over budget`,
+      items: b.fixes ?? [],
+    });
   if (d) {
-    blocks.push(table(['', ''], [
-      ['worst drum torque', `${num(d.worstTorqueNm, 3)} N·m`],
-      ['worst drum power', `${num(d.worstPowerW, 2)} W at ${num(profile.drumRpm)} rev/min`],
-      ['hardest lever pull', `${num(d.operatorForceMaxG, 1)} g`],
-    ]));
+    blocks.push(
+      table(
+        ['', ''],
+        [
+          ['worst drum torque', `${num(d.worstTorqueNm, 3)} N·m`],
+          ['worst drum power', `${num(d.worstPowerW, 2)} W at ${num(profile.drumRpm)} rev/min`],
+          ['hardest lever pull', `${num(d.operatorForceMaxG, 1)} g`],
+        ],
+      ),
+    );
   } else blocks.push(p('The drive check (drum torque and lever force) was not run for this sheet.'));
   return { id: 'drive', title: 'Drive margins', blocks };
 }
 
 function timingSection(input: DocumentsInput): Section {
   const t = checkNamed<TimingResult>(input.checks, 'timing');
-  if (!t || t.phaseTimesS === undefined) return { id: 'timing', title: 'Timing and clock rate', blocks: [p('The timing check was not run for this sheet.')] };
+  if (!t || t.phaseTimesS === undefined)
+    return {
+      id: 'timing',
+      title: 'Timing and clock rate',
+      blocks: [p('The timing check was not run for this sheet.')],
+    };
   const s = (x: number): string => `${num(x, 2)} s`;
   const blocks: Block[] = [
-    p(`Each gate stage takes about ${num(input.profile.stageDelayS, 3)} s (lever swing and cord take-up; an estimate in the technology profile). A latch settles in two stages.`),
-    table(['', ''], [
-      ['φ1 pulled (longest chain)', s(t.phaseTimesS.phi1)],
-      ['dead band after releasing φ1', s(t.deadBandsS.afterPhi1)],
-      ['φ2 pulled (longest chain)', s(t.phaseTimesS.phi2)],
-      ['dead band after releasing φ2', s(t.deadBandsS.afterPhi2)],
-      ['one clock, at least', s(t.clockS)],
-      ['fastest safe rate', `${num(t.clocksPerMinute, 1)} clocks per minute`],
-      ['crank speed', `${num(t.crankRpm, 1)} turns per minute (one clock per turn)`],
-      ['cam window φ1', `${num(t.cam.phi1[0], 1)}° – ${num(t.cam.phi1[1], 1)}°`],
-      ['cam window φ2', `${num(t.cam.phi2[0], 1)}° – ${num(t.cam.phi2[1], 1)}°`],
-      ['reset settles in', s(t.resetS)],
-      ['Monte Carlo', `${t.monteCarlo.runs} runs (seed ${t.monteCarlo.seed}): ${t.monteCarlo.ok ? 'no race' : t.monteCarlo.race?.words ?? 'a run differs'}`],
-    ]),
+    p(
+      `Each gate stage takes about ${num(input.profile.stageDelayS, 3)} s (lever swing and cord take-up; an estimate in the technology profile). A latch settles in two stages.`,
+    ),
+    table(
+      ['', ''],
+      [
+        ['φ1 pulled (longest chain)', s(t.phaseTimesS.phi1)],
+        ['dead band after releasing φ1', s(t.deadBandsS.afterPhi1)],
+        ['φ2 pulled (longest chain)', s(t.phaseTimesS.phi2)],
+        ['dead band after releasing φ2', s(t.deadBandsS.afterPhi2)],
+        ['one clock, at least', s(t.clockS)],
+        ['fastest safe rate', `${num(t.clocksPerMinute, 1)} clocks per minute`],
+        ['crank speed', `${num(t.crankRpm, 1)} turns per minute (one clock per turn)`],
+        ['cam window φ1', `${num(t.cam.phi1[0], 1)}° – ${num(t.cam.phi1[1], 1)}°`],
+        ['cam window φ2', `${num(t.cam.phi2[0], 1)}° – ${num(t.cam.phi2[1], 1)}°`],
+        ['reset settles in', s(t.resetS)],
+        [
+          'Monte Carlo',
+          `${t.monteCarlo.runs} runs (seed ${t.monteCarlo.seed}): ${t.monteCarlo.ok ? 'no race' : (t.monteCarlo.race?.words ?? 'a run differs')}`,
+        ],
+      ],
+    ),
     p(`Longest φ1 chain: ${t.chains.phi1.join(' → ') || '(none)'}.`),
     p(`Longest φ2 chain: ${t.chains.phi2.join(' → ') || '(none)'}.`),
   ];
@@ -181,10 +268,22 @@ function wiringSection(input: DocumentsInput): Section {
     id: 'wiring',
     title: 'Wiring list',
     blocks: [
-      p('One row per cord branch, in tying order: every cord of one capstan before the next, from the levers to the flags. The same list is in wiring.csv.'),
+      p(
+        'One row per cord branch, in tying order: every cord of one capstan before the next, from the levers to the flags. The same list is in wiring.csv.',
+      ),
       table(
         ['step', 'cord', 'from', 'side', 'to', 'port', 'routing', 'load (g)', 'margin'],
-        rows.map((r) => [String(r.step), r.cord, r.driver, r.driverSide, r.target, r.port, r.routing, num(r.loadG, 1), num(r.margin)]),
+        rows.map((r) => [
+          String(r.step),
+          r.cord,
+          r.driver,
+          r.driverSide,
+          r.target,
+          r.port,
+          r.routing,
+          num(r.loadG, 1),
+          num(r.margin),
+        ]),
         { tick: true, mono: [1, 2, 4, 5] },
       ),
     ],
@@ -198,17 +297,36 @@ function rulesSection(input: DocumentsInput): Section {
   if (seq) {
     blocks.push(
       p('The hand procedure, once per clock:'),
-      { kind: 'list', ordered: true, items: ['Set the input levers.', 'Pull φ1, then release it.', 'Pull φ2, then release it.'] },
+      {
+        kind: 'list',
+        ordered: true,
+        items: ['Set the input levers.', 'Pull φ1, then release it.', 'Pull φ2, then release it.'],
+      },
       p('Reset: pull the reset lever and release it, with both clock levers released. Rules:'),
     );
     const rows = OPERATING_RULES.map((r) => {
       const v = fi?.rules?.find((x) => x.rule === r);
-      return [RULE_WORDS[r], v ? (v.upsets.length > 0 ? v.words : 'breaking it upsets no latch within the search') : 'not checked'];
+      return [
+        RULE_WORDS[r],
+        v ? (v.upsets.length > 0 ? v.words : 'breaking it upsets no latch within the search') : 'not checked',
+      ];
     });
     blocks.push(table(['rule', 'what breaking it does (forbidden-input check)'], rows));
-    if (fi?.rules?.some((r) => r.upsets.length > 0)) blocks.push({ kind: 'note', tone: 'caution', title: 'Signage and interlocks', items: ['Design the signs, the clock cam or crank, and any interlocks so that the rules above cannot be broken by a visitor.'] });
+    if (fi?.rules?.some((r) => r.upsets.length > 0))
+      blocks.push({
+        kind: 'note',
+        tone: 'caution',
+        title: 'Signage and interlocks',
+        items: [
+          'Design the signs, the clock cam or crank, and any interlocks so that the rules above cannot be broken by a visitor.',
+        ],
+      });
   } else {
-    blocks.push(p('This machine has one state: it is built without latches or clock levers. Its outputs follow the input levers directly.'));
+    blocks.push(
+      p(
+        'This machine has one state: it is built without latches or clock levers. Its outputs follow the input levers directly.',
+      ),
+    );
   }
   const rec = checkNamed<RecoveryResult>(input.checks, 'recovery');
   if (rec) blocks.push(p(`Recovery from unused codes: ${rec.ok ? 'passed' : 'FAILED'} — ${rec.summary}`));

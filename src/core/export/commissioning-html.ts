@@ -54,16 +54,32 @@ export function commissioningDoc(build: Build, rows: readonly CommissioningRow[]
         id: 'use',
         title: 'How to use this sheet',
         blocks: [
-          p(seq
-            ? 'Work down the table. Do exactly what a row says, wait for the levers to come to rest, then compare every lever and flag with the row and tick it. The first row that differs points at the part to look at: a latch lever in the wrong position points at that latch and the cords into its ports.'
-            : 'Set the input levers as each row says, wait for the levers to come to rest, and compare the flags with the row.'),
-          ...(seq ? [p('A latch has two gates, each with a summing lever Z. A gate whose output is 1 has its Z lever down, so a latch holding 1 has its set-side Z down and its reset-side Z up (written "down · up"); holding 0, "up · down". "?" means the latch is undetermined (before the first reset).')] : []),
+          p(
+            seq
+              ? 'Work down the table. Do exactly what a row says, wait for the levers to come to rest, then compare every lever and flag with the row and tick it. The first row that differs points at the part to look at: a latch lever in the wrong position points at that latch and the cords into its ports.'
+              : 'Set the input levers as each row says, wait for the levers to come to rest, and compare the flags with the row.',
+          ),
+          ...(seq
+            ? [
+                p(
+                  'A latch has two gates, each with a summing lever Z. A gate whose output is 1 has its Z lever down, so a latch holding 1 has its set-side Z down and its reset-side Z up (written "down · up"); holding 0, "up · down". "?" means the latch is undetermined (before the first reset).',
+                ),
+              ]
+            : []),
           p('A flag "up (1)" shows 1. An actuator "lifted (1)" is pulling its load.'),
           p(coverage(taken, reachableTransitions(f).length)),
         ],
       },
-      { id: 'safety', title: 'Safety', blocks: [{ kind: 'note', tone: 'caution', title: 'Cautions', items: CAUTIONS }] },
-      { id: 'sequence', title: 'Sequence', blocks: [table(headers, body, { tick: true, mono: latches.map((_, i) => 3 + i) })] },
+      {
+        id: 'safety',
+        title: 'Safety',
+        blocks: [{ kind: 'note', tone: 'caution', title: 'Cautions', items: CAUTIONS }],
+      },
+      {
+        id: 'sequence',
+        title: 'Sequence',
+        blocks: [table(headers, body, { tick: true, mono: latches.map((_, i) => 3 + i) })],
+      },
     ],
   };
 }

@@ -18,7 +18,19 @@ import type { Build } from '../model/build.js';
 import type { OutBit } from '../model/machine.js';
 import type { Profile } from '../physics/profile.js';
 import { clockActions, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
-import { isAlarm, outputValues, powerUp, readPart, show, simFor, stepSim, timingOf, X, type PartSim, type PartState } from '../sim/part.js';
+import {
+  isAlarm,
+  outputValues,
+  powerUp,
+  readPart,
+  show,
+  simFor,
+  stepSim,
+  timingOf,
+  X,
+  type PartSim,
+  type PartState,
+} from '../sim/part.js';
 import { toCsv } from './csv.js';
 import type { TourClock } from './tour.js';
 
@@ -31,9 +43,20 @@ export interface CommissioningRow {
   readonly clock: number;
   readonly action: string;
   /** Per latch, its two Z levers after the action, and Q. */
-  readonly latches: readonly { readonly id: string; readonly name: string; readonly setZ: Position; readonly resetZ: Position; readonly q: string }[];
+  readonly latches: readonly {
+    readonly id: string;
+    readonly name: string;
+    readonly setZ: Position;
+    readonly resetZ: Position;
+    readonly q: string;
+  }[];
   /** Per machine output, what its flag or actuator shows after the action ('0', '1' or 'X'). */
-  readonly outputs: readonly { readonly output: string; readonly part: string; readonly kind: 'flag' | 'actuator'; readonly shows: string }[];
+  readonly outputs: readonly {
+    readonly output: string;
+    readonly part: string;
+    readonly kind: 'flag' | 'actuator';
+    readonly shows: string;
+  }[];
   /** State and slave code after the action ('' for a one-state machine). */
   readonly state: string;
   readonly code: string;
@@ -44,7 +67,11 @@ export interface CommissioningRow {
 const zOf = (v: number): Position => (v === X ? '?' : v === 1 ? 'down' : 'up');
 
 /** The hand actions of the sheet, from power-up, and what the machine shows after each. */
-export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDelayS'>, tour: readonly TourClock[]): CommissioningRow[] {
+export function commissioningRows(
+  build: Build,
+  profile: Pick<Profile, 'stageDelayS'>,
+  tour: readonly TourClock[],
+): CommissioningRow[] {
   const sim = simFor(build, timingOf(profile));
   const f = build.machine;
   const seq = build.encoding.bits > 0;
@@ -52,7 +79,12 @@ export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDel
   const rows: CommissioningRow[] = [];
   // `out`: the outputs the state table gives, compared after the action — or before it, with
   // `outBefore`, for a machine without inputs whose clock starts at φ1.
-  const run = (clock: number, action: string, actions: readonly HandAction[], check: { next?: number; out?: readonly OutBit[]; outBefore?: boolean } = {}): void => {
+  const run = (
+    clock: number,
+    action: string,
+    actions: readonly HandAction[],
+    check: { next?: number; out?: readonly OutBit[]; outBefore?: boolean } = {},
+  ): void => {
     const notes: string[] = [];
     const before = outputValues(sim, state.values);
     for (const a of actions) {
@@ -65,12 +97,31 @@ export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDel
       notes.push(`the state table says ${f.states[check.next]} (code ${build.encoding.codes[check.next]}) here`);
     }
     const shown = check.outBefore ? before : outputValues(sim, state.values);
-    const wrong = f.outputs.filter((_, k) => check.out && check.out[k] !== '-' && String(check.out[k]) !== show(shown[k]));
-    if (wrong.length > 0 && check.out) notes.push(`the state table gives ${wrong.map((o) => `${o}=${check.out?.[f.outputs.indexOf(o)]}`).join(', ')} here`);
-    rows.push(rowOf(sim, state, rows.length + 1, clock, action, notes, seq ? reading.state ?? '(unused code)' : f.states[0], reading.code));
+    const wrong = f.outputs.filter(
+      (_, k) => check.out && check.out[k] !== '-' && String(check.out[k]) !== show(shown[k]),
+    );
+    if (wrong.length > 0 && check.out)
+      notes.push(
+        `the state table gives ${wrong.map((o) => `${o}=${check.out?.[f.outputs.indexOf(o)]}`).join(', ')} here`,
+      );
+    rows.push(
+      rowOf(
+        sim,
+        state,
+        rows.length + 1,
+        clock,
+        action,
+        notes,
+        seq ? (reading.state ?? '(unused code)') : f.states[0],
+        reading.code,
+      ),
+    );
   };
   const inputs = f.inputs;
-  if (seq) run(0, 'Reset: pull the reset lever, then release it (both clock levers released).', resetActions(), { next: f.start });
+  if (seq)
+    run(0, 'Reset: pull the reset lever, then release it (both clock levers released).', resetActions(), {
+      next: f.start,
+    });
   let current = valuesOf(inputs, '0'.repeat(inputs.length));
   tour.forEach((c, i) => {
     const clock = i + 1;
@@ -78,7 +129,13 @@ export function commissioningRows(build: Build, profile: Pick<Profile, 'stageDel
     const values = valuesOf(inputs, c.inputs);
     const moves = clockActions(inputs, values, current).slice(0, -4);
     const out = f.rows[c.state][c.row].out;
-    if (inputs.length > 0) run(clock, `Set the input levers: ${inputWords(inputs, c.inputs)}${moves.length === 0 ? ' (no change)' : ''}.`, moves, { out });
+    if (inputs.length > 0)
+      run(
+        clock,
+        `Set the input levers: ${inputWords(inputs, c.inputs)}${moves.length === 0 ? ' (no change)' : ''}.`,
+        moves,
+        { out },
+      );
     else if (!seq) run(clock, 'Look at the flags.', [], { out });
     current = values;
     if (!seq) return;
@@ -95,14 +152,29 @@ export function inputWords(inputs: readonly string[], assignment: string): strin
   return inputs.map((n, i) => `${n} ${assignment[i] === '1' ? 'pulled' : 'released'}`).join(', ');
 }
 
-function rowOf(sim: PartSim, state: PartState, step: number, clock: number, action: string, alarms: string[], stateName: string, code: string): CommissioningRow {
+function rowOf(
+  sim: PartSim,
+  state: PartState,
+  step: number,
+  clock: number,
+  action: string,
+  alarms: string[],
+  stateName: string,
+  code: string,
+): CommissioningRow {
   const v = state.values;
   const outs = outputValues(sim, v);
   return {
     step,
     clock,
     action,
-    latches: sim.latches.map((l) => ({ id: l.id, name: l.name, setZ: zOf(v[l.set]), resetZ: zOf(v[l.reset]), q: show(v[l.set]) })),
+    latches: sim.latches.map((l) => ({
+      id: l.id,
+      name: l.name,
+      setZ: zOf(v[l.set]),
+      resetZ: zOf(v[l.reset]),
+      q: show(v[l.set]),
+    })),
     outputs: sim.build.machine.outputs.map((o, k) => {
       const part = sim.build.signals.outputs[o] ?? '';
       const kind = sim.build.netlist.parts.find((q) => q.id === part)?.kind === 'actuator' ? 'actuator' : 'flag';
@@ -135,6 +207,16 @@ export function commissioningCsv(rows: readonly CommissioningRow[]): string {
     'note',
     'done',
   ];
-  const body = rows.map((r) => [r.step, r.clock, r.action, ...r.latches.flatMap((l) => [l.setZ, l.resetZ]), ...r.outputs.map((o) => showsWords(o.kind, o.shows)), r.state, r.code, r.note, '']);
+  const body = rows.map((r) => [
+    r.step,
+    r.clock,
+    r.action,
+    ...r.latches.flatMap((l) => [l.setZ, l.resetZ]),
+    ...r.outputs.map((o) => showsWords(o.kind, o.shows)),
+    r.state,
+    r.code,
+    r.note,
+    '',
+  ]);
   return toCsv([header, ...body]);
 }

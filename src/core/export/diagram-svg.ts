@@ -73,7 +73,14 @@ export function diagramLayout(build: Build): DiagramLayout {
   f.states.forEach((name, s) => {
     const moore = mooreOutputs(f, s);
     const lines = [name, build.encoding.bits > 0 ? `code ${build.encoding.codes[s]}` : 'one state'];
-    if (moore.size > 0) lines.push(...wrapJoined([...moore].map(([k, v]) => `${f.outputs[k]}=${v}`), ', ', WRAP));
+    if (moore.size > 0)
+      lines.push(
+        ...wrapJoined(
+          [...moore].map(([k, v]) => `${f.outputs[k]}=${v}`),
+          ', ',
+          WRAP,
+        ),
+      );
     const mealy = new Set(f.outputs.map((_, k) => k).filter((k) => !moore.has(k)));
     const loop: string[] = [];
     const loopGuards: string[] = [];
@@ -109,7 +116,18 @@ export function diagramLayout(build: Build): DiagramLayout {
     const b = boxes[s];
     const top = (n.y as number) - n.height / 2;
     const outer = { x: (n.x as number) - n.width / 2, y: top, width: n.width, height: n.height };
-    return { index: s, lines: b.lines, loop: b.loop, loopGuards: b.loopGuards, x: n.x as number, y: top + n.height - b.height / 2, width: b.width, height: b.height, start: s === f.start, outer };
+    return {
+      index: s,
+      lines: b.lines,
+      loop: b.loop,
+      loopGuards: b.loopGuards,
+      x: n.x as number,
+      y: top + n.height - b.height / 2,
+      width: b.width,
+      height: b.height,
+      start: s === f.start,
+      outer,
+    };
   });
   const arrows = [...labels].map(([key, label]): DiagramArrow => {
     const [a, b] = key.split('>');
@@ -122,11 +140,32 @@ export function diagramLayout(build: Build): DiagramLayout {
       points[0] = clampTo(from, points[0]);
       points[points.length - 1] = clampTo(to, points[points.length - 1]);
     }
-    return { from: Number(a), to: Number(b), label, guards: guardsOf.get(key) ?? [], x: e.x as number, y: e.y as number, points };
+    return {
+      from: Number(a),
+      to: Number(b),
+      label,
+      guards: guardsOf.get(key) ?? [],
+      x: e.x as number,
+      y: e.y as number,
+      points,
+    };
   });
   // Fit the drawing to everything drawn (dagre may route an arrow outside its own bounds).
   const ext = extentOf(
-    [...states.map((st) => ({ x: st.outer.x + st.outer.width / 2, y: st.outer.y + st.outer.height / 2, width: st.outer.width + 44, height: st.outer.height + 16 })), ...arrows.map((a) => ({ x: a.x, y: a.y, width: Math.max(...a.label.map((t) => textWidth(t, 10, true))) + 8, height: a.label.length * LINE + 4 }))],
+    [
+      ...states.map((st) => ({
+        x: st.outer.x + st.outer.width / 2,
+        y: st.outer.y + st.outer.height / 2,
+        width: st.outer.width + 44,
+        height: st.outer.height + 16,
+      })),
+      ...arrows.map((a) => ({
+        x: a.x,
+        y: a.y,
+        width: Math.max(...a.label.map((t) => textWidth(t, 10, true))) + 8,
+        height: a.label.length * LINE + 4,
+      })),
+    ],
     arrows.flatMap((a) => a.points),
   );
   const dx = MARGIN - ext.minX;
@@ -167,7 +206,8 @@ function tip(points: readonly Point[]): string {
   const a = points[points.length - 2];
   const b = points[points.length - 1];
   const ang = Math.atan2(b.y - a.y, b.x - a.x);
-  const t = (r: number, da: number): string => `${round1(b.x - r * Math.cos(ang + da))},${round1(b.y - r * Math.sin(ang + da))}`;
+  const t = (r: number, da: number): string =>
+    `${round1(b.x - r * Math.cos(ang + da))},${round1(b.y - r * Math.sin(ang + da))}`;
   return `<path d="M${t(8, 0.42)} L${round1(b.x)},${round1(b.y)} L${t(8, -0.42)} L${t(5, 0)} Z" class="tip" />`;
 }
 
@@ -181,7 +221,9 @@ export function diagramSvg(build: Build): string {
   for (const a of l.arrows) {
     const w = Math.max(...a.label.map((t) => textWidth(t, 10, true))) + 6;
     const h = a.label.length * LINE + 2;
-    body.push(`<rect x="${round1(a.x - w / 2)}" y="${round1(a.y - h / 2)}" width="${round1(w)}" height="${round1(h)}" rx="3" class="lbg" />`);
+    body.push(
+      `<rect x="${round1(a.x - w / 2)}" y="${round1(a.y - h / 2)}" width="${round1(w)}" height="${round1(h)}" rx="3" class="lbg" />`,
+    );
     a.label.forEach((t, i) => body.push(svgText(a.x, a.y - h / 2 + 11 + i * LINE, t, 'label')));
   }
   for (const s of l.states) {
@@ -189,20 +231,43 @@ export function diagramSvg(build: Build): string {
     if (s.loop.length > 0) {
       const x0 = s.x + s.width / 2 - 26;
       const x1 = s.x + s.width / 2 - 10;
-      body.push(`<path d="M${round1(x0)},${round1(top)} C${round1(x0 - 6)},${round1(top - 26)} ${round1(x1 + 10)},${round1(top - 26)} ${round1(x1)},${round1(top)}" class="arrow" />`);
-      body.push(tip([{ x: x1 + 3, y: top - 8 }, { x: x1, y: top }]));
+      body.push(
+        `<path d="M${round1(x0)},${round1(top)} C${round1(x0 - 6)},${round1(top - 26)} ${round1(x1 + 10)},${round1(top - 26)} ${round1(x1)},${round1(top)}" class="arrow" />`,
+      );
+      body.push(
+        tip([
+          { x: x1 + 3, y: top - 8 },
+          { x: x1, y: top },
+        ]),
+      );
       const ly = top - 26 - s.loop.length * LINE;
       s.loop.forEach((t, i) => body.push(svgText(s.x, ly + 10 + i * LINE, t, 'label', 'middle')));
     }
-    body.push(`<g><title>${escapeXml(s.lines[0])}</title>`, svgBox(s.x, s.y, s.width, s.height, s.start ? 'state state-start' : 'state', 12));
+    body.push(
+      `<g><title>${escapeXml(s.lines[0])}</title>`,
+      svgBox(s.x, s.y, s.width, s.height, s.start ? 'state state-start' : 'state', 12),
+    );
     s.lines.forEach((t, i) => body.push(svgText(s.x, top + 18 + i * LINE, t, i === 0 ? 'sname' : 'sline')));
     if (s.start) {
       const left = s.x - s.width / 2;
       body.push(svgText(left + 4, top - 5, 'START', 'tag', 'start'));
-      body.push(`<path d="M${round1(left - 22)},${round1(s.y)} L${round1(left)},${round1(s.y)}" class="arrow" />`, tip([{ x: left - 22, y: s.y }, { x: left, y: s.y }]));
+      body.push(
+        `<path d="M${round1(left - 22)},${round1(s.y)} L${round1(left)},${round1(s.y)}" class="arrow" />`,
+        tip([
+          { x: left - 22, y: s.y },
+          { x: left, y: s.y },
+        ]),
+      );
     }
     body.push('</g>');
   }
   const f = build.machine;
-  return svgDocument(l.width, l.height, `State diagram — ${f.name}`, `${f.states.length} states of ${f.name}; arrows labelled guard / Mealy outputs; the start state has a heavier outline.`, STYLE, body);
+  return svgDocument(
+    l.width,
+    l.height,
+    `State diagram — ${f.name}`,
+    `${f.states.length} states of ${f.name}; arrows labelled guard / Mealy outputs; the start state has a heavier outline.`,
+    STYLE,
+    body,
+  );
 }

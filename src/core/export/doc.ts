@@ -22,7 +22,12 @@ export type Block =
   | { readonly kind: 'list'; readonly items: readonly string[]; readonly ordered?: boolean }
   | { readonly kind: 'pre'; readonly lines: readonly string[] }
   /** A boxed note: a safety caution, a failed check, or a passed one. */
-  | { readonly kind: 'note'; readonly tone: 'caution' | 'fail' | 'ok'; readonly title: string; readonly items: readonly string[] }
+  | {
+      readonly kind: 'note';
+      readonly tone: 'caution' | 'fail' | 'ok';
+      readonly title: string;
+      readonly items: readonly string[];
+    }
   | TableBlock;
 
 export interface Section {
@@ -45,6 +50,10 @@ export interface Doc {
 export const p = (text: string): Block => ({ kind: 'p', text });
 
 /** A table block. */
-export function table(headers: readonly string[], rows: readonly (readonly string[])[], opts: Omit<TableBlock, 'kind' | 'headers' | 'rows'> = {}): TableBlock {
+export function table(
+  headers: readonly string[],
+  rows: readonly (readonly string[])[],
+  opts: Omit<TableBlock, 'kind' | 'headers' | 'rows'> = {},
+): TableBlock {
   return { kind: 'table', headers, rows, ...opts };
 }

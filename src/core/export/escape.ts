@@ -15,12 +15,20 @@
  * - CSV: see csv.ts. JSON: JSON.stringify.
  */
 
-const XML_ENTITIES: Readonly<Record<string, string>> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+const XML_ENTITIES: Readonly<Record<string, string>> = {
+  '&': '&amp;',
+  '<': '&lt;',
+  '>': '&gt;',
+  '"': '&quot;',
+  "'": '&#39;',
+};
 
 /** Text or attribute value for HTML, SVG or XML. */
 export function escapeXml(text: string): string {
   // eslint-disable-next-line no-control-regex
-  return text.replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\ufffe\uffff]/g, '').replace(/[&<>"']/g, (c) => XML_ENTITIES[c]);
+  return text
+    .replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\ufffe\uffff]/g, '')
+    .replace(/[&<>"']/g, (c) => XML_ENTITIES[c]);
 }
 
 /** The same escaping, under the name HTML readers look for. */
@@ -28,11 +36,13 @@ export const escapeHtml = escapeXml;
 
 /** One Markdown table cell (or inline text): markup characters escaped, on one line. */
 export function escapeMd(text: string): string {
-  return text
-    .replace(/\r\n|\r|\n/g, ' ')
-    .replace(/[\\`*[\]<>|&#~]/g, (c) => `\\${c}`)
-    // An underscore inside a word never starts emphasis (CommonMark §6.2), so `got_green` stays as it is.
-    .replace(/(?<![A-Za-z0-9])_|_(?![A-Za-z0-9])/g, '\\_');
+  return (
+    text
+      .replace(/\r\n|\r|\n/g, ' ')
+      .replace(/[\\`*[\]<>|&#~]/g, (c) => `\\${c}`)
+      // An underscore inside a word never starts emphasis (CommonMark §6.2), so `got_green` stays as it is.
+      .replace(/(?<![A-Za-z0-9])_|_(?![A-Za-z0-9])/g, '\\_')
+  );
 }
 
 /** Keywords of IEEE 1364-2005 (Annex B) an identifier must not collide with. */
@@ -85,7 +95,18 @@ export class VerilogNames {
 }
 
 /** Spellings of the non-ASCII signs our part names use, for ASCII-only targets. */
-const ASCII_SPELLING: Readonly<Record<string, string>> = { 'φ': 'phi', '→': '->', '\u0304': 'bar', '·': '*', '≥': '>=', '≤': '<=', '×': 'x', '…': '...', '—': '-', '–': '-' };
+const ASCII_SPELLING: Readonly<Record<string, string>> = {
+  φ: 'phi',
+  '→': '->',
+  '\u0304': 'bar',
+  '·': '*',
+  '≥': '>=',
+  '≤': '<=',
+  '×': 'x',
+  '…': '...',
+  '—': '-',
+  '–': '-',
+};
 
 /** Text safe inside a Verilog `//` comment: printable ASCII on one line. */
 export function verilogComment(text: string): string {
@@ -97,5 +118,7 @@ export function verilogComment(text: string): string {
 
 /** Text safe inside a Verilog string literal: printable ASCII, `"` and `\` escaped, `%` doubled. */
 export function verilogString(text: string): string {
-  return verilogComment(text).replace(/[\\"]/g, (c) => `\\${c}`).replace(/%/g, '%%');
+  return verilogComment(text)
+    .replace(/[\\"]/g, (c) => `\\${c}`)
+    .replace(/%/g, '%%');
 }

@@ -31,7 +31,9 @@ export function sortedCords(n: Netlist): Cord[] {
     .map((c) => ({
       id: c.id,
       driver: c.driver,
-      ports: [...c.ports].sort((a, b) => byText(a.part, b.part) || byText(a.port, b.port)).map((p) => ({ part: p.part, port: p.port })),
+      ports: [...c.ports]
+        .sort((a, b) => byText(a.part, b.part) || byText(a.port, b.port))
+        .map((p) => ({ part: p.part, port: p.port })),
       actuators: [...c.actuators].sort(byText),
     }));
 }
@@ -40,15 +42,51 @@ export function sortedCords(n: Netlist): Cord[] {
 function partObject(p: Part): object {
   switch (p.kind) {
     case 'lever':
-      return { kind: p.kind, id: p.id, name: p.name, role: p.role, ...(p.input !== undefined ? { input: p.input } : {}) };
+      return {
+        kind: p.kind,
+        id: p.id,
+        name: p.name,
+        role: p.role,
+        ...(p.input !== undefined ? { input: p.input } : {}),
+      };
     case 'gate':
-      return { kind: p.kind, id: p.id, name: p.name, role: p.role, ports: p.ports.map((q) => ({ name: q.name })), ...(p.latch !== undefined ? { latch: p.latch } : {}) };
+      return {
+        kind: p.kind,
+        id: p.id,
+        name: p.name,
+        role: p.role,
+        ports: p.ports.map((q) => ({ name: q.name })),
+        ...(p.latch !== undefined ? { latch: p.latch } : {}),
+      };
     case 'latch':
-      return { kind: p.kind, id: p.id, name: p.name, role: p.role, bit: p.bit, setGate: p.setGate, resetGate: p.resetGate };
+      return {
+        kind: p.kind,
+        id: p.id,
+        name: p.name,
+        role: p.role,
+        bit: p.bit,
+        setGate: p.setGate,
+        resetGate: p.resetGate,
+      };
     case 'flag':
-      return { kind: p.kind, id: p.id, name: p.name, output: p.output, gate: p.gate, inverted: p.inverted, ...(p.fixed !== undefined ? { fixed: p.fixed } : {}) };
+      return {
+        kind: p.kind,
+        id: p.id,
+        name: p.name,
+        output: p.output,
+        gate: p.gate,
+        inverted: p.inverted,
+        ...(p.fixed !== undefined ? { fixed: p.fixed } : {}),
+      };
     case 'actuator':
-      return { kind: p.kind, id: p.id, name: p.name, output: p.output, loadG: p.loadG, ...(p.fixed !== undefined ? { fixed: p.fixed } : {}) };
+      return {
+        kind: p.kind,
+        id: p.id,
+        name: p.name,
+        output: p.output,
+        loadG: p.loadG,
+        ...(p.fixed !== undefined ? { fixed: p.fixed } : {}),
+      };
   }
 }
 

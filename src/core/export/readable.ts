@@ -44,7 +44,11 @@ export function widen(cover: CubeList, dc: CubeList = []): Cube[] {
  * A sum of products: `0` when empty, `1` when some term is the constant 1. Widened for
  * display unless `widen` is false; `dc` are combinations that never occur (widening may use them).
  */
-export function coverExpr(cover: CubeList, vars: readonly string[], opts: { readonly widen?: boolean; readonly dc?: CubeList } = {}): string {
+export function coverExpr(
+  cover: CubeList,
+  vars: readonly string[],
+  opts: { readonly widen?: boolean; readonly dc?: CubeList } = {},
+): string {
   const cubes = opts.widen === false ? [...cover] : widen(cover, opts.dc);
   if (cubes.length === 0) return '0';
   const terms = cubes.map((c) => cubeExpr(c, vars));

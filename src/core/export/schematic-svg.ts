@@ -24,7 +24,8 @@ import { escapeXml } from './escape.js';
 import { clip, extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
 import { stagesOf } from './stages.js';
 
-export type NodeKind = 'operator' | 'clock' | 'reset' | 'term' | 'helper' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
+export type NodeKind =
+  'operator' | 'clock' | 'reset' | 'term' | 'helper' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
 
 const KIND_LABEL: Readonly<Record<NodeKind, string>> = {
   operator: 'operator lever',
@@ -39,7 +40,11 @@ const KIND_LABEL: Readonly<Record<NodeKind, string>> = {
   indicator: 'indicator',
 };
 
-const HELPER_LABEL: Readonly<Record<string, string>> = { inverter: 'inverter', buffer: 'buffer', 'reset-driver': 'reset driver' };
+const HELPER_LABEL: Readonly<Record<string, string>> = {
+  inverter: 'inverter',
+  buffer: 'buffer',
+  'reset-driver': 'reset driver',
+};
 
 export interface SchematicNode {
   readonly id: string;
@@ -66,7 +71,14 @@ export interface SchematicLayout {
   readonly width: number;
   readonly height: number;
   readonly nodes: readonly SchematicNode[];
-  readonly clusters: readonly { readonly id: string; readonly label: string; readonly x: number; readonly y: number; readonly width: number; readonly height: number }[];
+  readonly clusters: readonly {
+    readonly id: string;
+    readonly label: string;
+    readonly x: number;
+    readonly y: number;
+    readonly width: number;
+    readonly height: number;
+  }[];
   readonly edges: readonly SchematicEdge[];
 }
 
@@ -104,8 +116,16 @@ export function schematicLayout(build: Build): SchematicLayout {
   const latchRole = new Map<string, 'master' | 'slave'>();
   for (const p of net.parts) if (p.kind === 'latch') latchRole.set(p.id, p.role);
   const nodeOf = new Map<string, string>();
-  const shown = net.parts.filter((p) => !(p.kind === 'gate' && (p.role === 'latch-set' || p.role === 'latch-reset') && p.latch !== undefined));
-  for (const p of net.parts) nodeOf.set(p.id, p.kind === 'gate' && p.latch !== undefined && (p.role === 'latch-set' || p.role === 'latch-reset') ? p.latch : p.id);
+  const shown = net.parts.filter(
+    (p) => !(p.kind === 'gate' && (p.role === 'latch-set' || p.role === 'latch-reset') && p.latch !== undefined),
+  );
+  for (const p of net.parts)
+    nodeOf.set(
+      p.id,
+      p.kind === 'gate' && p.latch !== undefined && (p.role === 'latch-set' || p.role === 'latch-reset')
+        ? p.latch
+        : p.id,
+    );
 
   const g = new dagre.graphlib.Graph({ compound: true, multigraph: true });
   g.setGraph({ rankdir: 'LR', nodesep: 14, ranksep: 46, edgesep: 8, marginx: MARGIN, marginy: MARGIN });
@@ -113,9 +133,16 @@ export function schematicLayout(build: Build): SchematicLayout {
   const info = new Map<string, { kind: NodeKind; label: string; detail: string; title: string }>();
   for (const p of shown) {
     const kind = kindOf(p, latchRole);
-    const label = kind === 'helper' && p.kind === 'gate' ? HELPER_LABEL[p.role] ?? KIND_LABEL.helper : kind === 'indicator' ? p.kind : KIND_LABEL[kind];
+    const label =
+      kind === 'helper' && p.kind === 'gate'
+        ? (HELPER_LABEL[p.role] ?? KIND_LABEL.helper)
+        : kind === 'indicator'
+          ? p.kind
+          : KIND_LABEL[kind];
     const detail = clip(detailOf(p), 30);
-    const width = Math.max(textWidth(label, 9), textWidth(p.id, 11, true), textWidth(detail, 10)) + (kind === 'operator' || kind === 'clock' || kind === 'reset' ? 34 : 18);
+    const width =
+      Math.max(textWidth(label, 9), textWidth(p.id, 11, true), textWidth(detail, 10)) +
+      (kind === 'operator' || kind === 'clock' || kind === 'reset' ? 34 : 18);
     const height = kind === 'master' || kind === 'slave' ? 60 : 48;
     g.setNode(p.id, { width, height });
     info.set(p.id, { kind, label, detail, title: p.name });
@@ -139,25 +166,66 @@ export function schematicLayout(build: Build): SchematicLayout {
     g.setParent(p.id, c);
   }
 
-  const drafts: { cord: string; from: string; to: string; style: SchematicEdge['style']; reversed: boolean; name: string; fromSide: number; toSide: number }[] = [];
+  const drafts: {
+    cord: string;
+    from: string;
+    to: string;
+    style: SchematicEdge['style'];
+    reversed: boolean;
+    name: string;
+    fromSide: number;
+    toSide: number;
+  }[] = [];
   const roleOfDriver = new Map(net.parts.map((p) => [p.id, p]));
   const side = (id: string): number => {
     const p = roleOfDriver.get(id);
-    return p?.kind === 'gate' && p.latch !== undefined ? (p.role === 'latch-set' ? -1 : p.role === 'latch-reset' ? 1 : 0) : 0;
+    return p?.kind === 'gate' && p.latch !== undefined
+      ? p.role === 'latch-set'
+        ? -1
+        : p.role === 'latch-reset'
+          ? 1
+          : 0
+      : 0;
   };
   for (const c of net.cords) {
     const from = nodeOf.get(c.driver) ?? c.driver;
     const d = roleOfDriver.get(c.driver);
-    const style: SchematicEdge['style'] = d?.kind === 'lever' && (d.role === 'phi1' || d.role === 'phi2') ? 'clock' : d?.kind === 'lever' && d.role === 'reset' ? 'reset' : d?.kind === 'gate' && d.role === 'reset-driver' ? 'reset' : 'cord';
+    const style: SchematicEdge['style'] =
+      d?.kind === 'lever' && (d.role === 'phi1' || d.role === 'phi2')
+        ? 'clock'
+        : d?.kind === 'lever' && d.role === 'reset'
+          ? 'reset'
+          : d?.kind === 'gate' && d.role === 'reset-driver'
+            ? 'reset'
+            : 'cord';
     const targets = [...c.ports.map((r) => r.part), ...c.actuators];
     targets.forEach((t, i) => {
       const to = nodeOf.get(t) ?? t;
       if (to === from || !g.hasNode(to) || !g.hasNode(from)) return;
-      drafts.push({ cord: c.id, from, to, style, reversed: stages.compare(from, to) > 0, name: `${c.id}#${i}`, fromSide: side(c.driver), toSide: side(t) });
+      drafts.push({
+        cord: c.id,
+        from,
+        to,
+        style,
+        reversed: stages.compare(from, to) > 0,
+        name: `${c.id}#${i}`,
+        fromSide: side(c.driver),
+        toSide: side(t),
+      });
     });
   }
   for (const p of net.parts) {
-    if (p.kind === 'flag' && p.fixed === undefined && g.hasNode(nodeOf.get(p.gate) ?? p.gate)) drafts.push({ cord: '', from: nodeOf.get(p.gate) ?? p.gate, to: p.id, style: 'reads', reversed: false, name: `${p.id}#z`, fromSide: 0, toSide: 0 });
+    if (p.kind === 'flag' && p.fixed === undefined && g.hasNode(nodeOf.get(p.gate) ?? p.gate))
+      drafts.push({
+        cord: '',
+        from: nodeOf.get(p.gate) ?? p.gate,
+        to: p.id,
+        style: 'reads',
+        reversed: false,
+        name: `${p.id}#z`,
+        fromSide: 0,
+        toSide: 0,
+      });
   }
   for (const e of drafts) {
     if (e.reversed) g.setEdge(e.to, e.from, { weight: 1, minlen: 1 }, e.name);
@@ -178,15 +246,26 @@ export function schematicLayout(build: Build): SchematicLayout {
     const a = byId.get(e.from);
     const b = byId.get(e.to);
     if (pts.length > 0 && a && e.fromSide !== 0) pts[0] = { x: pts[0].x, y: a.y + (e.fromSide * a.height) / 4 };
-    if (pts.length > 0 && b && e.toSide !== 0) pts[pts.length - 1] = { x: pts[pts.length - 1].x, y: b.y + (e.toSide * b.height) / 4 };
+    if (pts.length > 0 && b && e.toSide !== 0)
+      pts[pts.length - 1] = { x: pts[pts.length - 1].x, y: b.y + (e.toSide * b.height) / 4 };
     return { cord: e.cord, from: e.from, to: e.to, style: e.style, points: pts };
   });
   const cl = [...clusters.values()].map((id) => {
     const n = g.node(id);
-    return { id, label: String(n.label ?? id), x: (n.x as number) - n.width / 2, y: (n.y as number) - n.height / 2, width: n.width, height: n.height };
+    return {
+      id,
+      label: String(n.label ?? id),
+      x: (n.x as number) - n.width / 2,
+      y: (n.y as number) - n.height / 2,
+      width: n.width,
+      height: n.height,
+    };
   });
   // dagre may route a reversed cord outside its own bounds: fit the drawing to everything drawn.
-  const ext = extentOf([...nodes, ...cl.map((c) => ({ x: c.x + c.width / 2, y: c.y + c.height / 2, width: c.width, height: c.height }))], edges.flatMap((e) => e.points));
+  const ext = extentOf(
+    [...nodes, ...cl.map((c) => ({ x: c.x + c.width / 2, y: c.y + c.height / 2, width: c.width, height: c.height }))],
+    edges.flatMap((e) => e.points),
+  );
   const dx = MARGIN - ext.minX;
   const dy = MARGIN - ext.minY;
   const move = (q: Point): Point => ({ x: q.x + dx, y: q.y + dy });
@@ -235,16 +314,26 @@ function nodeSvg(n: SchematicNode): string {
   const cx = lever ? n.x - 8 : n.x;
   if (n.kind === 'master' || n.kind === 'slave') {
     parts.push(`<line x1="${n.x - n.width / 2}" y1="${n.y}" x2="${n.x + n.width / 2}" y2="${n.y}" class="half" />`);
-    parts.push(svgText(n.x - n.width / 2 + 4, top + 10, 'Q · set', 'side', 'start'), svgText(n.x - n.width / 2 + 4, n.y + n.height / 2 - 4, 'Q̄ · reset', 'side', 'start'));
+    parts.push(
+      svgText(n.x - n.width / 2 + 4, top + 10, 'Q · set', 'side', 'start'),
+      svgText(n.x - n.width / 2 + 4, n.y + n.height / 2 - 4, 'Q̄ · reset', 'side', 'start'),
+    );
     parts.push(svgText(n.x, n.y - 6, n.id, 'pid'), svgText(n.x, n.y + 13, n.detail, 'detail'));
   } else {
-    parts.push(svgText(cx, top + 12, n.label, 'kind'), svgText(cx, top + 27, n.id, 'pid'), svgText(cx, top + 41, n.detail, 'detail'));
+    parts.push(
+      svgText(cx, top + 12, n.label, 'kind'),
+      svgText(cx, top + 27, n.id, 'pid'),
+      svgText(cx, top + 41, n.detail, 'detail'),
+    );
   }
   if (lever) {
     // Lever glyph: a bar on a pivot, tipped down at the handle end.
     const gx = n.x + n.width / 2 - 14;
     const gy = n.y;
-    parts.push(`<line x1="${gx - 7}" y1="${gy - 5}" x2="${gx + 7}" y2="${gy + 5}" class="glyph" />`, `<circle cx="${gx}" cy="${gy}" r="2" class="pivot" />`);
+    parts.push(
+      `<line x1="${gx - 7}" y1="${gy - 5}" x2="${gx + 7}" y2="${gy + 5}" class="glyph" />`,
+      `<circle cx="${gx}" cy="${gy}" r="2" class="pivot" />`,
+    );
   }
   parts.push('</g>');
   return parts.join('');
@@ -259,21 +348,42 @@ function edgeSvg(e: SchematicEdge): string {
   const a = e.points[e.points.length - 2];
   const b = e.points[e.points.length - 1];
   const ang = Math.atan2(b.y - a.y, b.x - a.x);
-  const t = (r: number, da: number): string => `${(b.x - r * Math.cos(ang + da)).toFixed(1)},${(b.y - r * Math.sin(ang + da)).toFixed(1)}`;
+  const t = (r: number, da: number): string =>
+    `${(b.x - r * Math.cos(ang + da)).toFixed(1)},${(b.y - r * Math.sin(ang + da)).toFixed(1)}`;
   return `${line}<path d="M${t(7, 0.45)} L${b.x.toFixed(1)},${b.y.toFixed(1)} L${t(7, -0.45)} L${t(4.5, 0)} Z" class="tip" />`;
 }
 
 function legendSvg(y: number): string {
-  const kinds: [NodeKind, string][] = [['operator', 'lever'], ['term', 'φ1 term'], ['master', 'master latch'], ['transfer', 'φ2 transfer'], ['slave', 'slave latch'], ['output', 'output gate'], ['helper', 'inverter, buffer, reset driver'], ['indicator', 'flag or actuator']];
+  const kinds: [NodeKind, string][] = [
+    ['operator', 'lever'],
+    ['term', 'φ1 term'],
+    ['master', 'master latch'],
+    ['transfer', 'φ2 transfer'],
+    ['slave', 'slave latch'],
+    ['output', 'output gate'],
+    ['helper', 'inverter, buffer, reset driver'],
+    ['indicator', 'flag or actuator'],
+  ];
   let x = MARGIN;
   const out: string[] = [];
   for (const [k, words] of kinds) {
-    out.push(`<rect x="${x}" y="${y}" width="14" height="10" rx="2" class="box k-${k}" />`, svgText(x + 18, y + 9, words, 'legend', 'start'));
+    out.push(
+      `<rect x="${x}" y="${y}" width="14" height="10" rx="2" class="box k-${k}" />`,
+      svgText(x + 18, y + 9, words, 'legend', 'start'),
+    );
     x += 30 + textWidth(words, 9);
   }
-  const lines: [string, string][] = [['e', 'cord'], ['e e-clock', 'clock cord'], ['e e-reset', 'reset cord'], ['e e-reads', 'flag reads Z']];
+  const lines: [string, string][] = [
+    ['e', 'cord'],
+    ['e e-clock', 'clock cord'],
+    ['e e-reset', 'reset cord'],
+    ['e e-reads', 'flag reads Z'],
+  ];
   for (const [cls, words] of lines) {
-    out.push(`<path d="M${x},${y + 5} L${x + 22},${y + 5}" class="${cls}" />`, svgText(x + 26, y + 9, words, 'legend', 'start'));
+    out.push(
+      `<path d="M${x},${y + 5} L${x + 22},${y + 5}" class="${cls}" />`,
+      svgText(x + 26, y + 9, words, 'legend', 'start'),
+    );
     x += 38 + textWidth(words, 9);
   }
   return out.join('');
@@ -283,10 +393,21 @@ function legendSvg(y: number): string {
 export function schematicSvg(build: Build, layout?: SchematicLayout): string {
   const l = layout ?? schematicLayout(build);
   const body: string[] = [];
-  for (const c of l.clusters) body.push(`<rect x="${c.x.toFixed(1)}" y="${c.y.toFixed(1)}" width="${c.width.toFixed(1)}" height="${c.height.toFixed(1)}" rx="10" class="cluster" />`, svgText(c.x + 8, c.y + 12, c.label, 'cluster-label', 'start'));
+  for (const c of l.clusters)
+    body.push(
+      `<rect x="${c.x.toFixed(1)}" y="${c.y.toFixed(1)}" width="${c.width.toFixed(1)}" height="${c.height.toFixed(1)}" rx="10" class="cluster" />`,
+      svgText(c.x + 8, c.y + 12, c.label, 'cluster-label', 'start'),
+    );
   for (const e of l.edges) body.push(edgeSvg(e));
   for (const n of l.nodes) body.push(nodeSvg(n));
   body.push(legendSvg(l.height - LEGEND_H + 12));
   const f = build.machine;
-  return svgDocument(l.width, l.height, `Schematic — ${f.name}`, `${l.nodes.length} parts and ${l.edges.length} cord branches of the lever machine ${f.name}, flowing left to right through one clock.`, STYLE, body);
+  return svgDocument(
+    l.width,
+    l.height,
+    `Schematic — ${f.name}`,
+    `${l.nodes.length} parts and ${l.edges.length} cord branches of the lever machine ${f.name}, flowing left to right through one clock.`,
+    STYLE,
+    body,
+  );
 }

@@ -52,7 +52,9 @@ export function mooreOutputs(f: FlatMachine, s: number): Map<number, OutBit> {
 
 /** `bell=1, lamp=0`; a free output reads `bell free`; no outputs reads an em dash. */
 export function outputsText(names: readonly string[], out: readonly OutBit[], only?: ReadonlySet<number>): string {
-  const parts = names.flatMap((n, k) => (only && !only.has(k) ? [] : [out[k] === '-' ? `${n} free` : `${n}=${out[k]}`]));
+  const parts = names.flatMap((n, k) =>
+    only && !only.has(k) ? [] : [out[k] === '-' ? `${n} free` : `${n}=${out[k]}`],
+  );
   return parts.length === 0 ? '—' : parts.join(', ');
 }
 
@@ -61,7 +63,7 @@ export function stateTableBlocks(build: Build): Block[] {
   const f = build.machine;
   const codes = build.encoding.codes;
   const name = (s: number): string => (s === DONT_CARE ? 'free' : f.states[s]);
-  const code = (s: number): string => (s === DONT_CARE ? '' : codes[s] ?? '');
+  const code = (s: number): string => (s === DONT_CARE ? '' : (codes[s] ?? ''));
   const rows: string[][] = [];
   rowGroups(f).forEach((groups, s) => {
     groups.forEach((g, i) => {
@@ -78,14 +80,29 @@ export function stateTableBlocks(build: Build): Block[] {
     });
   });
   const blocks: Block[] = [
-    p(`Each state with its code (bit 0 first; q0 is the first digit). For each group of input combinations: the next state and code, and the outputs shown while the inputs are held (before φ1). Input names mean "lever pulled".${f.never.length > 0 ? ' Guards are written as simply as the combinations that never occur allow.' : ''}`),
+    p(
+      `Each state with its code (bit 0 first; q0 is the first digit). For each group of input combinations: the next state and code, and the outputs shown while the inputs are held (before φ1). Input names mean "lever pulled".${f.never.length > 0 ? ' Guards are written as simply as the combinations that never occur allow.' : ''}`,
+    ),
     table(['state', 'code', 'when (inputs)', 'next state', 'next code', 'outputs', 'from'], rows, { mono: [1, 2, 4] }),
   ];
-  if (f.never.length > 0) blocks.push(p(`Input combinations declared never to occur: ${coverExpr(f.never, f.inputs)}. The machine is still guarded against them.`));
+  if (f.never.length > 0)
+    blocks.push(
+      p(
+        `Input combinations declared never to occur: ${coverExpr(f.never, f.inputs)}. The machine is still guarded against them.`,
+      ),
+    );
   const used = new Set(codes);
   const bits = build.encoding.bits;
-  const unused = bits > 0 && bits <= 8 ? Array.from({ length: 2 ** bits }, (_, i) => i.toString(2).padStart(bits, '0')).filter((c) => !used.has(c)) : [];
-  if (unused.length > 0) blocks.push(p(`Unused codes: ${unused.join(', ')}. A bumped machine holding one returns to a used code (see the recovery check).`));
+  const unused =
+    bits > 0 && bits <= 8
+      ? Array.from({ length: 2 ** bits }, (_, i) => i.toString(2).padStart(bits, '0')).filter((c) => !used.has(c))
+      : [];
+  if (unused.length > 0)
+    blocks.push(
+      p(
+        `Unused codes: ${unused.join(', ')}. A bumped machine holding one returns to a used code (see the recovery check).`,
+      ),
+    );
   return blocks;
 }
 
@@ -99,7 +116,9 @@ export function equationBlocks(build: Build): Block[] {
   if (bits > 0) {
     const start = build.encoding.codes[f.start] ?? '';
     blocks.push(
-      p(`q0 … q${bits - 1} are the state bits, read from the slave latches (Q for q, Q̄ for !q); input names mean "lever pulled". Each product term is one term gate NAND(φ1, its literals); the terms of S are tied to the master latch's set ports, those of R to its reset ports (wired-AND). On φ2 the master is copied into the slave. A bit holds when neither S nor R is 1. The reset lever forces code ${start} (${f.states[f.start]}).`),
+      p(
+        `q0 … q${bits - 1} are the state bits, read from the slave latches (Q for q, Q̄ for !q); input names mean "lever pulled". Each product term is one term gate NAND(φ1, its literals); the terms of S are tied to the master latch's set ports, those of R to its reset ports (wired-AND). On φ2 the master is copied into the slave. A bit holds when neither S nor R is 1. The reset lever forces code ${start} (${f.states[f.start]}).`,
+      ),
       table(
         ['bit', 'master latch', 'slave latch', 'set S when', 'reset R when'],
         Array.from({ length: bits }, (_, j) => [
@@ -113,7 +132,11 @@ export function equationBlocks(build: Build): Block[] {
       ),
     );
   } else {
-    blocks.push(p('A one-state machine has no state bits: no latches, no set or reset equations. Its outputs are decoded from the input levers alone.'));
+    blocks.push(
+      p(
+        'A one-state machine has no state bits: no latches, no set or reset equations. Its outputs are decoded from the input levers alone.',
+      ),
+    );
   }
   if (f.outputs.length > 0) {
     blocks.push(
@@ -122,7 +145,12 @@ export function equationBlocks(build: Build): Block[] {
         f.outputs.map((o, k) => {
           const terms = eq[2 * bits + k]?.terms ?? [];
           const mealy = terms.some((c) => c.slice(bits).includes('0') || c.slice(bits).includes('1'));
-          return [o, build.signals.outputs[o] ?? '', mealy ? 'Mealy (state and inputs)' : 'Moore (state only)', coverExpr(terms, vars, { widen: false })];
+          return [
+            o,
+            build.signals.outputs[o] ?? '',
+            mealy ? 'Mealy (state and inputs)' : 'Moore (state only)',
+            coverExpr(terms, vars, { widen: false }),
+          ];
         }),
         { mono: [1, 3], caption: 'Output equations' },
       ),

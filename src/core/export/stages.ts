@@ -10,7 +10,8 @@
  */
 import type { Netlist, Part } from '../model/netlist.js';
 
-export type Stage = 'lever' | 'input-inverter' | 'reset-driver' | 'term' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
+export type Stage =
+  'lever' | 'input-inverter' | 'reset-driver' | 'term' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
 
 /** Rank of each stage, left to right. */
 export const STAGE_RANK: Readonly<Record<Stage, number>> = {
@@ -73,7 +74,10 @@ export function stagesOf(n: Netlist): StageInfo {
   };
   for (const p of n.parts) of(p, 0);
   const position = new Map(n.parts.map((p, i) => [p.id, i]));
-  const key = (id: string): [number, number] => [STAGE_RANK[stage.get(id) ?? 'indicator'], position.get(id) ?? Infinity];
+  const key = (id: string): [number, number] => [
+    STAGE_RANK[stage.get(id) ?? 'indicator'],
+    position.get(id) ?? Infinity,
+  ];
   return {
     stage,
     position,

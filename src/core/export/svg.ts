@@ -40,7 +40,13 @@ export function pathThrough(points: readonly Point[]): string {
 }
 
 /** A text element; `cls` is one of our class names. */
-export function svgText(px: number, py: number, text: string, cls: string, anchor: 'start' | 'middle' | 'end' = 'middle'): string {
+export function svgText(
+  px: number,
+  py: number,
+  text: string,
+  cls: string,
+  anchor: 'start' | 'middle' | 'end' = 'middle',
+): string {
   return `<text x="${r1(px)}" y="${r1(py)}" class="${cls}" text-anchor="${anchor}">${x(text)}</text>`;
 }
 
@@ -50,7 +56,14 @@ export function svgBox(cx: number, cy: number, w: number, h: number, cls: string
 }
 
 /** The whole SVG document. */
-export function svgDocument(width: number, height: number, title: string, description: string, style: string, body: readonly string[]): string {
+export function svgDocument(
+  width: number,
+  height: number,
+  title: string,
+  description: string,
+  style: string,
+  body: readonly string[],
+): string {
   const w = Math.ceil(width);
   const h = Math.ceil(height);
   return [
@@ -69,7 +82,10 @@ export function svgDocument(width: number, height: number, title: string, descri
 export { r1 as round1 };
 
 /** The smallest rectangle holding every box (given by centre and size) and every point. */
-export function extentOf(boxes: readonly { readonly x: number; readonly y: number; readonly width: number; readonly height: number }[], points: readonly Point[]): { minX: number; minY: number; maxX: number; maxY: number } {
+export function extentOf(
+  boxes: readonly { readonly x: number; readonly y: number; readonly width: number; readonly height: number }[],
+  points: readonly Point[],
+): { minX: number; minY: number; maxX: number; maxY: number } {
   let minX = Infinity;
   let minY = Infinity;
   let maxX = -Infinity;

@@ -82,7 +82,8 @@ export function commissioningTour(f: FlatMachine, opts: TourOptions = {}): TourC
   };
   const scc = components(f);
   // An untaken row of s, preferring one that stays in s's component.
-  const inside = (s: number): number => taken[s].findIndex((t, k) => !t && f.rows[s][k].next !== DONT_CARE && scc[f.rows[s][k].next] === scc[s]);
+  const inside = (s: number): number =>
+    taken[s].findIndex((t, k) => !t && f.rows[s][k].next !== DONT_CARE && scc[f.rows[s][k].next] === scc[s]);
   const anyRow = untaken;
   while (out.length < maxClocks) {
     let path = pathToUntaken(f, cur, inside, (a, b) => scc[a] === scc[b]);
@@ -156,7 +157,12 @@ function components(f: FlatMachine): number[] {
 }
 
 /** Shortest path (as rows taken, along edges `allowed` keeps) from `from` to the nearest state with an untaken row, or null. */
-function pathToUntaken(f: FlatMachine, from: number, untaken: (s: number) => number, allowed: (a: number, b: number) => boolean): [number, number][] | null {
+function pathToUntaken(
+  f: FlatMachine,
+  from: number,
+  untaken: (s: number) => number,
+  allowed: (a: number, b: number) => boolean,
+): [number, number][] | null {
   const via = new Map<number, [number, number]>();
   const queue = [from];
   const seen = new Set([from]);
@@ -164,7 +170,7 @@ function pathToUntaken(f: FlatMachine, from: number, untaken: (s: number) => num
     const s = queue[i];
     if (untaken(s) >= 0) {
       const path: [number, number][] = [];
-      for (let t = s; t !== from; ) {
+      for (let t = s; t !== from;) {
         const step = via.get(t) as [number, number];
         path.unshift(step);
         t = step[0];

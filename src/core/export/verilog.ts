@@ -33,12 +33,12 @@ import type { TourClock } from './tour.js';
 /** What each identifier prefix stands for, in the file header's name list. */
 const NAMESPACE_WORDS: Readonly<Record<string, string>> = {
   '': 'lever',
-  'lw_': 'module of',
-  'in_': 'input lever',
-  'out_': 'output',
-  'g_': 'output of gate',
-  'u_': 'instance of gate',
-  'f_': 'indicator',
+  lw_: 'module of',
+  in_: 'input lever',
+  out_: 'output',
+  g_: 'output of gate',
+  u_: 'instance of gate',
+  f_: 'indicator',
 };
 
 /** The module and testbench texts, and the names a caller needs to run them. */
@@ -52,13 +52,19 @@ export interface VerilogFiles {
 }
 
 /** Structural Verilog of the build and a testbench that steps `tour` and checks it. */
-export function verilogFiles(build: Build, profile: Pick<Profile, 'stageDelayS'>, tour: readonly TourClock[]): VerilogFiles {
+export function verilogFiles(
+  build: Build,
+  profile: Pick<Profile, 'stageDelayS'>,
+  tour: readonly TourClock[],
+): VerilogFiles {
   const names = new VerilogNames();
   const f = build.machine;
   const n = build.netlist;
   const seq = build.encoding.bits > 0 && build.signals.phi1 !== '';
   // Reserve the fixed port names first, so no mangled name can take them.
-  const fixed = seq ? { phi1: names.get('', 'phi1'), phi2: names.get('', 'phi2'), reset: names.get('', 'reset') } : undefined;
+  const fixed = seq
+    ? { phi1: names.get('', 'phi1'), phi2: names.get('', 'phi2'), reset: names.get('', 'reset') }
+    : undefined;
   const moduleName = names.get('lw_', f.name);
   const testbenchName = names.get('lw_', `${f.name}_tb`);
   const inPort = (i: string): string => names.get('in_', i);
@@ -77,7 +83,9 @@ export function verilogFiles(build: Build, profile: Pick<Profile, 'stageDelayS'>
   const body: string[] = [];
   for (const g of gates) {
     const ins = (inputsOf.get(g.id) ?? []).map(sig);
-    body.push(`  nand #(STAGE) ${names.get('u_', g.id)} (${sig(g.id)}, ${(ins.length > 0 ? ins : ["1'b1"]).join(', ')}); // ${vc(g.name)}`);
+    body.push(
+      `  nand #(STAGE) ${names.get('u_', g.id)} (${sig(g.id)}, ${(ins.length > 0 ? ins : ["1'b1"]).join(', ')}); // ${vc(g.name)}`,
+    );
   }
   for (const o of f.outputs) {
     const part = n.parts.find((q) => q.id === build.signals.outputs[o]);
@@ -86,16 +94,26 @@ export function verilogFiles(build: Build, profile: Pick<Profile, 'stageDelayS'>
       if (part.fixed !== undefined) body.push(`  assign ${out} = 1'b${part.fixed}; // ${vc(part.name)}, pinned`);
       else {
         const ins = (inputsOf.get(part.gate) ?? []).map(sig);
-        body.push(`  ${part.inverted ? 'nand' : 'and'} #(STAGE) ${names.get('f_', part.id)} (${out}, ${(ins.length > 0 ? ins : ["1'b1"]).join(', ')}); // ${vc(part.name)}: Z of ${vc(part.gate)}${part.inverted ? ', mounted inverted' : ''}`);
+        body.push(
+          `  ${part.inverted ? 'nand' : 'and'} #(STAGE) ${names.get('f_', part.id)} (${out}, ${(ins.length > 0 ? ins : ["1'b1"]).join(', ')}); // ${vc(part.name)}: Z of ${vc(part.gate)}${part.inverted ? ', mounted inverted' : ''}`,
+        );
       }
     } else if (part?.kind === 'actuator') {
       const ds = n.cords.filter((c) => c.actuators.includes(part.id)).map((c) => sig(c.driver));
-      if (part.fixed !== undefined || ds.length === 0) body.push(`  assign ${out} = 1'b${part.fixed ?? 0}; // ${vc(part.name)}, no cord`);
-      else body.push(`  nand ${names.get('f_', part.id)} (${out}, ${ds.join(', ')}); // ${vc(part.name)}: lifted while a cord pulls`);
+      if (part.fixed !== undefined || ds.length === 0)
+        body.push(`  assign ${out} = 1'b${part.fixed ?? 0}; // ${vc(part.name)}, no cord`);
+      else
+        body.push(
+          `  nand ${names.get('f_', part.id)} (${out}, ${ds.join(', ')}); // ${vc(part.name)}: lifted while a cord pulls`,
+        );
     } else body.push(`  assign ${out} = 1'b0; // no part shows this output`);
   }
   const stageUs = Math.max(1, Math.round(profile.stageDelayS * 1e6));
-  const ports = [...f.inputs.map((i) => `input wire ${inPort(i)}`), ...(fixed ? [`input wire ${fixed.phi1}`, `input wire ${fixed.phi2}`, `input wire ${fixed.reset}`] : []), ...f.outputs.map((o) => `output wire ${outPort(o)}`)];
+  const ports = [
+    ...f.inputs.map((i) => `input wire ${inPort(i)}`),
+    ...(fixed ? [`input wire ${fixed.phi1}`, `input wire ${fixed.phi2}`, `input wire ${fixed.reset}`] : []),
+    ...f.outputs.map((o) => `output wire ${outPort(o)}`),
+  ];
   const header = [
     `// Structural Verilog (IEEE 1364-2005) of the lever machine ${vc(f.name)}, written by Latchwright.`,
     '// Every gate is a NAND over every cord on every port; a latch is two cross-coupled gates.',
@@ -114,7 +132,17 @@ export function verilogFiles(build: Build, profile: Pick<Profile, 'stageDelayS'>
     'endmodule',
     '',
   ].join('\n');
-  const testbench = testbenchText(build, tour, { names, moduleName, testbenchName, fixed, inPort, outPort, sig, stageUs, gateCount: gates.length });
+  const testbench = testbenchText(build, tour, {
+    names,
+    moduleName,
+    testbenchName,
+    fixed,
+    inPort,
+    outPort,
+    sig,
+    stageUs,
+    gateCount: gates.length,
+  });
   return { module, testbench, moduleName, testbenchName };
 }
 
@@ -166,14 +194,20 @@ function testbenchText(build: Build, tour: readonly TourClock[], c: TbContext): 
     if (ins.length > 0) lines.push(`    ${ins.map((r, k) => `${r} = 1'b${t.inputs[k]};`).join(' ')} #SETTLE;`);
     f.rows[t.state][t.row].out.forEach((v, k) => {
       if (v === '-') return;
-      lines.push(`    if (${outs[k]} !== 1'b${v}) begin errors = errors + 1; $display("FAIL clock ${clock}: output ${vs(f.outputs[k])} is %b, expected ${v}", ${outs[k]}); end`);
+      lines.push(
+        `    if (${outs[k]} !== 1'b${v}) begin errors = errors + 1; $display("FAIL clock ${clock}: output ${vs(f.outputs[k])} is %b, expected ${v}", ${outs[k]}); end`,
+      );
     });
     if (c.fixed && slaves.length > 0) {
       const fx = c.fixed;
-      lines.push(`    ${fx.phi1} = 1'b1; #SETTLE; ${fx.phi1} = 1'b0; #SETTLE; ${fx.phi2} = 1'b1; #SETTLE; ${fx.phi2} = 1'b0; #SETTLE;`);
+      lines.push(
+        `    ${fx.phi1} = 1'b1; #SETTLE; ${fx.phi1} = 1'b0; #SETTLE; ${fx.phi2} = 1'b1; #SETTLE; ${fx.phi2} = 1'b0; #SETTLE;`,
+      );
       const want = codes[t.next];
       const got = `{${slaves.join(', ')}}`;
-      lines.push(`    if (${got} !== ${slaves.length}'b${want}) begin errors = errors + 1; $display("FAIL clock ${clock}: state code is %b, expected ${want} (${vs(f.states[t.next])})", ${got}); end`);
+      lines.push(
+        `    if (${got} !== ${slaves.length}'b${want}) begin errors = errors + 1; $display("FAIL clock ${clock}: state code is %b, expected ${want} (${vs(f.states[t.next])})", ${got}); end`,
+      );
     }
   });
   lines.push(

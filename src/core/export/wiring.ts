@@ -52,10 +52,17 @@ export function routingWords(r: RoutingLoss): string {
 }
 
 /** The driver a builder sees for a driving part, and the side the cord leaves from. */
-export function driverSide(p: Part | undefined, parts: ReadonlyMap<string, Part>): { driver: string; name: string; side: string } {
+export function driverSide(
+  p: Part | undefined,
+  parts: ReadonlyMap<string, Part>,
+): { driver: string; name: string; side: string } {
   if (p?.kind === 'gate' && p.latch !== undefined && (p.role === 'latch-set' || p.role === 'latch-reset')) {
     const l = parts.get(p.latch);
-    return { driver: p.latch, name: l?.name ?? p.latch, side: p.role === 'latch-set' ? 'Q (set side)' : 'Q̄ (reset side)' };
+    return {
+      driver: p.latch,
+      name: l?.name ?? p.latch,
+      side: p.role === 'latch-set' ? 'Q (set side)' : 'Q̄ (reset side)',
+    };
   }
   return { driver: p?.id ?? '', name: p?.name ?? '', side: 'capstan' };
 }
@@ -73,7 +80,10 @@ export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
     const ds = driverSide(d, parts);
     const r = routingFor(profile, c.id);
     const branches = (loads.get(c.driver) ?? []).filter((b) => b.cord === c.id);
-    const targets = [...c.ports.map((p) => ({ part: p.part, port: p.port })), ...c.actuators.map((a) => ({ part: a, port: '' }))];
+    const targets = [
+      ...c.ports.map((p) => ({ part: p.part, port: p.port })),
+      ...c.actuators.map((a) => ({ part: a, port: '' })),
+    ];
     targets.forEach((t, i) => {
       const b = branches[i];
       drafts.push({
@@ -94,7 +104,13 @@ export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
       });
     });
   }
-  drafts.sort((a, b) => stages.compare(a.driverPart, b.driverPart) || cmp(a.cord, b.cord) || stages.compare(a.targetPart, b.targetPart) || cmp(a.port, b.port));
+  drafts.sort(
+    (a, b) =>
+      stages.compare(a.driverPart, b.driverPart) ||
+      cmp(a.cord, b.cord) ||
+      stages.compare(a.targetPart, b.targetPart) ||
+      cmp(a.port, b.port),
+  );
   return drafts.map(({ driverPart: _d, targetPart: _t, ...row }, i) => ({ step: i + 1, ...row }));
 }
 
@@ -120,6 +136,13 @@ const HEADER: Readonly<Record<keyof WiringRow, string>> = {
 export function wiringCsv(rows: readonly WiringRow[]): string {
   const cols = Object.keys(HEADER) as (keyof WiringRow)[];
   // A driver with no load has an infinite margin: written as text (∞), every other cell as it is.
-  const named = rows.map((r) => Object.fromEntries(cols.map((c) => [HEADER[c], c === 'margin' && !Number.isFinite(r.margin) ? num(r.margin) : r[c]])));
-  return recordsToCsv<Record<string, string | number>>(cols.map((c) => HEADER[c]), named);
+  const named = rows.map((r) =>
+    Object.fromEntries(
+      cols.map((c) => [HEADER[c], c === 'margin' && !Number.isFinite(r.margin) ? num(r.margin) : r[c]]),
+    ),
+  );
+  return recordsToCsv<Record<string, string | number>>(
+    cols.map((c) => HEADER[c]),
+    named,
+  );
 }

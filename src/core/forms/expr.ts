@@ -61,7 +61,10 @@ function tokenize(text: string): { toks: Tok[]; bad?: { pos: number; msg: string
 }
 
 class SyntaxProblem {
-  constructor(readonly pos: number, readonly msg: string) {}
+  constructor(
+    readonly pos: number,
+    readonly msg: string,
+  ) {}
 }
 
 /** Result of reading an expression from the front of a text. */
@@ -103,13 +106,22 @@ export function readExpr(text: string, inputs: readonly string[], loc: SourceLoc
     }
     if (t.kind === 'name') {
       const i = index.get(t.text);
-      if (i === undefined && t.text === stopWord) throw new SyntaxProblem(t.pos, `the guard is incomplete before '${t.text}'`);
+      if (i === undefined && t.text === stopWord)
+        throw new SyntaxProblem(t.pos, `the guard is incomplete before '${t.text}'`);
       k++;
       if (i === undefined) {
         const guess = didYouMean(t.text, inputs);
         diagnostics.push(
-          diag('LW201', `unknown input '${t.text}'${where(loc, t.pos)}`, locAt(loc, t.pos),
-            guess ? `did you mean '${guess}'?` : inputs.length ? `declared inputs: ${inputs.join(', ')}` : 'the machine declares no inputs'),
+          diag(
+            'LW201',
+            `unknown input '${t.text}'${where(loc, t.pos)}`,
+            locAt(loc, t.pos),
+            guess
+              ? `did you mean '${guess}'?`
+              : inputs.length
+                ? `declared inputs: ${inputs.join(', ')}`
+                : 'the machine declares no inputs',
+          ),
         );
       }
       return { kind: 'input', name: t.text, index: i ?? -1 };
@@ -155,7 +167,10 @@ export function readExpr(text: string, inputs: readonly string[], loc: SourceLoc
     const t = peek();
     if (t.kind !== 'end') {
       if (!(prefix && t.kind === 'name')) {
-        const msg = t.kind === 'op' && t.text === ')' ? `unmatched ')'` : `expected an operator (&, |, ^) but found ${describe(t)}`;
+        const msg =
+          t.kind === 'op' && t.text === ')'
+            ? `unmatched ')'`
+            : `expected an operator (&, |, ^) but found ${describe(t)}`;
         throw new SyntaxProblem(t.pos, msg);
       }
     } else if (bad && !prefix) {
@@ -168,28 +183,45 @@ export function readExpr(text: string, inputs: readonly string[], loc: SourceLoc
     // Running into the bad token: its own message says more than "expected …".
     const p = bad && e.pos >= bad.pos ? new SyntaxProblem(bad.pos, bad.msg) : e;
     diagnostics.push(
-      diag('LW102', `guard syntax: ${p.msg}${where(loc, p.pos)}`, locAt(loc, p.pos),
-        "use input names, '!', '&', '^', '|', parentheses, 0 and 1"),
+      diag(
+        'LW102',
+        `guard syntax: ${p.msg}${where(loc, p.pos)}`,
+        locAt(loc, p.pos),
+        "use input names, '!', '&', '^', '|', parentheses, 0 and 1",
+      ),
     );
     return { end: p.pos, diagnostics };
   }
 }
 
 /** Parse a whole guard expression and compute its cover over `inputs`. */
-export function parseGuard(text: string, inputs: readonly string[], loc: SourceLoc): { guard?: Guard; diagnostics: Diagnostic[] } {
+export function parseGuard(
+  text: string,
+  inputs: readonly string[],
+  loc: SourceLoc,
+): { guard?: Guard; diagnostics: Diagnostic[] } {
   const r = readExpr(text, inputs, loc);
   if (!r.expr) return { diagnostics: r.diagnostics };
   return guardFromExpr(r.expr, text.trim(), inputs.length, loc);
 }
 
 /** Build a guard from a tree, computing its cover; LW403 when the cover is too large. */
-export function guardFromExpr(expr: Expr, text: string, inputCount: number, loc?: SourceLoc): { guard?: Guard; diagnostics: Diagnostic[] } {
+export function guardFromExpr(
+  expr: Expr,
+  text: string,
+  inputCount: number,
+  loc?: SourceLoc,
+): { guard?: Guard; diagnostics: Diagnostic[] } {
   const cubes = exprCover(expr, inputCount);
   if (cubes === undefined) {
     return {
       diagnostics: [
-        diag('LW403', `the guard '${clip(text)}' expands into more than ${GUARD_CUBE_LIMIT} product terms`, loc ?? {},
-          'split the transition into several, or simplify the expression (long ^ chains grow fastest)'),
+        diag(
+          'LW403',
+          `the guard '${clip(text)}' expands into more than ${GUARD_CUBE_LIMIT} product terms`,
+          loc ?? {},
+          'split the transition into several, or simplify the expression (long ^ chains grow fastest)',
+        ),
       ],
     };
   }
@@ -208,7 +240,12 @@ function clip(s: string): string {
 class TooBig {}
 
 /** The cover of `expr` over n inputs, or undefined when it exceeds the limits. */
-export function exprCover(expr: Expr, n: number, limit = GUARD_CUBE_LIMIT, work = GUARD_WORK_LIMIT): Cube[] | undefined {
+export function exprCover(
+  expr: Expr,
+  n: number,
+  limit = GUARD_CUBE_LIMIT,
+  work = GUARD_WORK_LIMIT,
+): Cube[] | undefined {
   let spent = 0;
   const charge = (k: number): void => {
     spent += k;

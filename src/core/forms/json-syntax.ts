@@ -8,7 +8,10 @@
 export function locateJsonError(text: string): { pos: number; msg: string } | undefined {
   let i = 0;
   class Stop {
-    constructor(readonly pos: number, readonly msg: string) {}
+    constructor(
+      readonly pos: number,
+      readonly msg: string,
+    ) {}
   }
   const fail = (msg: string, pos = i): never => {
     throw new Stop(pos, msg);

@@ -66,7 +66,9 @@ function typeName(v: unknown): string {
   if (v === null) return 'null';
   if (Array.isArray(v)) return 'a list';
   if (typeof v === 'object') return 'an object';
-  return typeof v === 'string' ? `the string ${JSON.stringify(v.length > 30 ? v.slice(0, 27) + '...' : v)}` : `${typeof v} ${String(v)}`;
+  return typeof v === 'string'
+    ? `the string ${JSON.stringify(v.length > 30 ? v.slice(0, 27) + '...' : v)}`
+    : `${typeof v} ${String(v)}`;
 }
 
 /** Parse JSON text into a Machine. */
@@ -79,7 +81,14 @@ export function parseJsonMachine(text: string, file?: string): MachineResult {
     const found = locateJsonError(src) ?? { pos: 0, msg: e instanceof Error ? e.message : 'not valid JSON' };
     const { line, column } = lineColumn(src, found.pos);
     return {
-      diagnostics: [diag('LW100', `not valid JSON: ${found.msg}`, { file, line, column }, 'check brackets, commas and quotes near this position')],
+      diagnostics: [
+        diag(
+          'LW100',
+          `not valid JSON: ${found.msg}`,
+          { file, line, column },
+          'check brackets, commas and quotes near this position',
+        ),
+      ],
     };
   }
   return machineFromJson(value, file);
@@ -90,13 +99,22 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
   const ds: Diagnostic[] = [];
   const at = (path: string): SourceLoc => (file === undefined ? { path } : { file, path });
   const wrongType = (path: string, want: string, v: unknown): void => {
-    ds.push(diag('LW103', `${path} should be ${want}, not ${typeName(v)}`, at(path), `see schemas/machine.schema.json`));
+    ds.push(
+      diag('LW103', `${path} should be ${want}, not ${typeName(v)}`, at(path), `see schemas/machine.schema.json`),
+    );
   };
   const unknownKeys = (o: Obj, path: string, known: readonly string[]): void => {
     for (const k of Object.keys(o)) {
       if (known.includes(k)) continue;
       const guess = didYouMean(k, known);
-      ds.push(diag('LW105', `unknown field '${k}' ignored`, at(jsonKey(path, k)), guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`));
+      ds.push(
+        diag(
+          'LW105',
+          `unknown field '${k}' ignored`,
+          at(jsonKey(path, k)),
+          guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`,
+        ),
+      );
     }
   };
   const stringList = (o: Obj, key: string): string[] => {
@@ -127,13 +145,21 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
       if (x === 0 || x === 1 || x === '-') {
         rec[k] = x;
         locs[`out:${k}`] = at(p);
-      } else ds.push(diag('LW106', `output '${k}' has the value ${typeName(x)}`, at(p), `write 0, 1 or "-" (don't care)`));
+      } else
+        ds.push(diag('LW106', `output '${k}' has the value ${typeName(x)}`, at(p), `write 0, 1 or "-" (don't care)`));
     }
     return rec;
   };
 
   if (!isObj(value)) {
-    ds.push(diag('LW100', `a machine must be a JSON object, not ${typeName(value)}`, at('$'), 'start the file with { "name": …, "states": [ … ] }'));
+    ds.push(
+      diag(
+        'LW100',
+        `a machine must be a JSON object, not ${typeName(value)}`,
+        at('$'),
+        'start the file with { "name": …, "states": [ … ] }',
+      ),
+    );
     return { diagnostics: ds };
   }
   unknownKeys(value, '$', TOP_KEYS);
@@ -146,7 +172,8 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
   else name = rawName;
 
   const rawDescription = own(value, 'description');
-  if (rawDescription !== undefined && typeof rawDescription !== 'string') wrongType('$.description', 'a string', rawDescription);
+  if (rawDescription !== undefined && typeof rawDescription !== 'string')
+    wrongType('$.description', 'a string', rawDescription);
 
   const inputs = stringList(value, 'inputs');
   const outputs = stringList(value, 'outputs');
@@ -163,7 +190,14 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
   if (rawUnspecified === 'hold' || rawUnspecified === 'dont-care') unspecified = rawUnspecified;
   else if (rawUnspecified !== undefined) {
     const guess = typeof rawUnspecified === 'string' ? didYouMean(rawUnspecified, ['hold', 'dont-care']) : undefined;
-    ds.push(diag('LW103', `$.unspecified should be "hold" or "dont-care", not ${typeName(rawUnspecified)}`, at('$.unspecified'), guess ? `did you mean "${guess}"?` : 'write "hold" or "dont-care"'));
+    ds.push(
+      diag(
+        'LW103',
+        `$.unspecified should be "hold" or "dont-care", not ${typeName(rawUnspecified)}`,
+        at('$.unspecified'),
+        guess ? `did you mean "${guess}"?` : 'write "hold" or "dont-care"',
+      ),
+    );
   }
 
   const guard = (v: unknown, path: string): Guard | undefined => {
@@ -179,50 +213,85 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
   const never: Guard[] = [];
   const rawNever = own(value, 'never');
   if (rawNever !== undefined && !Array.isArray(rawNever)) wrongType('$.never', 'a list of expressions', rawNever);
-  else if (Array.isArray(rawNever)) rawNever.forEach((x, i) => {
-    const g = guard(x, `$.never[${i}]`);
-    if (g) never.push(g);
-  });
+  else if (Array.isArray(rawNever))
+    rawNever.forEach((x, i) => {
+      const g = guard(x, `$.never[${i}]`);
+      if (g) never.push(g);
+    });
 
   const states: State[] = [];
   const rawStates = own(value, 'states');
-  if (rawStates === undefined) ds.push(diag('LW104', `the machine has no 'states' list`, at('$'), 'add "states": [ { "name": …, "transitions": [ … ] } ]'));
+  if (rawStates === undefined)
+    ds.push(
+      diag(
+        'LW104',
+        `the machine has no 'states' list`,
+        at('$'),
+        'add "states": [ { "name": …, "transitions": [ … ] } ]',
+      ),
+    );
   else if (!Array.isArray(rawStates)) wrongType('$.states', 'a list of states', rawStates);
-  else rawStates.forEach((rs, si) => {
-    const sp = `$.states[${si}]`;
-    if (!isObj(rs)) return wrongType(sp, 'a state object', rs);
-    unknownKeys(rs, sp, STATE_KEYS);
-    const locs: Record<string, SourceLoc> = { name: at(`${sp}.name`) };
-    const sName = own(rs, 'name');
-    if (sName === undefined) ds.push(diag('LW104', `state ${si + 1} has no 'name'`, at(sp), 'add "name": "…"'));
-    else if (typeof sName !== 'string') wrongType(`${sp}.name`, 'a string', sName);
-    const code = own(rs, 'code');
-    if (code !== undefined) {
-      if (typeof code !== 'string') wrongType(`${sp}.code`, 'a string of 0/1 digits', code);
-      locs.code = at(`${sp}.code`);
-    }
-    const sOutputs = outputsMap(own(rs, 'outputs'), `${sp}.outputs`, locs);
-    const transitions: Transition[] = [];
-    const rawTs = own(rs, 'transitions');
-    if (rawTs === undefined) ds.push(diag('LW104', `state ${typeof sName === 'string' ? `'${sName}'` : si + 1} has no 'transitions' list`, at(sp), 'add "transitions": [] (a state with none holds)'));
-    else if (!Array.isArray(rawTs)) wrongType(`${sp}.transitions`, 'a list of transitions', rawTs);
-    else rawTs.forEach((rt, ti) => {
-      const tp = `${sp}.transitions[${ti}]`;
-      if (!isObj(rt)) return wrongType(tp, 'a transition object', rt);
-      unknownKeys(rt, tp, TRANSITION_KEYS);
-      const tLocs: Record<string, SourceLoc> = { to: at(`${tp}.to`) };
-      const rawWhen = own(rt, 'when');
-      const when = rawWhen === undefined ? alwaysGuard(inputs.length, at(tp)) : guard(rawWhen, `${tp}.when`);
-      const to = own(rt, 'to');
-      if (to === undefined) ds.push(diag('LW104', `transition ${ti + 1} of state ${typeof sName === 'string' ? `'${sName}'` : si + 1} has no 'to'`, at(tp), 'add "to": "<state name>"'));
-      else if (typeof to !== 'string') wrongType(`${tp}.to`, 'a state name (a string)', to);
-      const tOutputs = outputsMap(own(rt, 'outputs'), `${tp}.outputs`, tLocs);
-      if (when && typeof to === 'string') transitions.push({ when, to, outputs: tOutputs, loc: at(tp), partLocs: tLocs });
+  else
+    rawStates.forEach((rs, si) => {
+      const sp = `$.states[${si}]`;
+      if (!isObj(rs)) return wrongType(sp, 'a state object', rs);
+      unknownKeys(rs, sp, STATE_KEYS);
+      const locs: Record<string, SourceLoc> = { name: at(`${sp}.name`) };
+      const sName = own(rs, 'name');
+      if (sName === undefined) ds.push(diag('LW104', `state ${si + 1} has no 'name'`, at(sp), 'add "name": "…"'));
+      else if (typeof sName !== 'string') wrongType(`${sp}.name`, 'a string', sName);
+      const code = own(rs, 'code');
+      if (code !== undefined) {
+        if (typeof code !== 'string') wrongType(`${sp}.code`, 'a string of 0/1 digits', code);
+        locs.code = at(`${sp}.code`);
+      }
+      const sOutputs = outputsMap(own(rs, 'outputs'), `${sp}.outputs`, locs);
+      const transitions: Transition[] = [];
+      const rawTs = own(rs, 'transitions');
+      if (rawTs === undefined)
+        ds.push(
+          diag(
+            'LW104',
+            `state ${typeof sName === 'string' ? `'${sName}'` : si + 1} has no 'transitions' list`,
+            at(sp),
+            'add "transitions": [] (a state with none holds)',
+          ),
+        );
+      else if (!Array.isArray(rawTs)) wrongType(`${sp}.transitions`, 'a list of transitions', rawTs);
+      else
+        rawTs.forEach((rt, ti) => {
+          const tp = `${sp}.transitions[${ti}]`;
+          if (!isObj(rt)) return wrongType(tp, 'a transition object', rt);
+          unknownKeys(rt, tp, TRANSITION_KEYS);
+          const tLocs: Record<string, SourceLoc> = { to: at(`${tp}.to`) };
+          const rawWhen = own(rt, 'when');
+          const when = rawWhen === undefined ? alwaysGuard(inputs.length, at(tp)) : guard(rawWhen, `${tp}.when`);
+          const to = own(rt, 'to');
+          if (to === undefined)
+            ds.push(
+              diag(
+                'LW104',
+                `transition ${ti + 1} of state ${typeof sName === 'string' ? `'${sName}'` : si + 1} has no 'to'`,
+                at(tp),
+                'add "to": "<state name>"',
+              ),
+            );
+          else if (typeof to !== 'string') wrongType(`${tp}.to`, 'a state name (a string)', to);
+          const tOutputs = outputsMap(own(rt, 'outputs'), `${tp}.outputs`, tLocs);
+          if (when && typeof to === 'string')
+            transitions.push({ when, to, outputs: tOutputs, loc: at(tp), partLocs: tLocs });
+        });
+      if (typeof sName === 'string') {
+        states.push({
+          name: sName,
+          outputs: sOutputs,
+          transitions,
+          ...(typeof code === 'string' ? { code } : {}),
+          loc: at(sp),
+          partLocs: locs,
+        });
+      }
     });
-    if (typeof sName === 'string') {
-      states.push({ name: sName, outputs: sOutputs, transitions, ...(typeof code === 'string' ? { code } : {}), loc: at(sp), partLocs: locs });
-    }
-  });
 
   if (ds.some((d) => d.severity === 'error')) return { diagnostics: ds };
   const machine: Machine = {
@@ -271,7 +340,11 @@ export function machineToJson(m: Machine): JsonMachine {
         ...(outs ? { outputs: outs } : {}),
         transitions: s.transitions.map((t) => {
           const tOuts = orderedOutputs(m, t.outputs);
-          return { ...(isAlways(t.when) ? {} : { when: printExpr(t.when.expr) }), to: t.to, ...(tOuts ? { outputs: tOuts } : {}) };
+          return {
+            ...(isAlways(t.when) ? {} : { when: printExpr(t.when.expr) }),
+            to: t.to,
+            ...(tOuts ? { outputs: tOuts } : {}),
+          };
         }),
       };
     }),

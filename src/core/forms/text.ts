@@ -59,8 +59,18 @@ function stripComment(line: string): string {
 export function parseTextMachine(text: string, file?: string): MachineResult {
   const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
   const ds: Diagnostic[] = [];
-  const at = (line: number, offset: number): SourceLoc => ({ ...(file !== undefined ? { file } : {}), line: line + 1, column: offset + 1 });
-  const err = (code: 'LW101' | 'LW103' | 'LW104' | 'LW106', msg: string, line: number, offset: number, hint: string): void => {
+  const at = (line: number, offset: number): SourceLoc => ({
+    ...(file !== undefined ? { file } : {}),
+    line: line + 1,
+    column: offset + 1,
+  });
+  const err = (
+    code: 'LW101' | 'LW103' | 'LW104' | 'LW106',
+    msg: string,
+    line: number,
+    offset: number,
+    hint: string,
+  ): void => {
     ds.push(diag(code, msg, at(line, offset), hint));
   };
 
@@ -102,7 +112,12 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
   };
 
   /** Read `NAME=V[,] …` pairs from ws[k]; stops at a word not followed by '='. */
-  const readOutputs = (ws: Word[], k: number, li: number, locs: Record<string, SourceLoc>): { outs: Record<string, OutBit>; k: number } => {
+  const readOutputs = (
+    ws: Word[],
+    k: number,
+    li: number,
+    locs: Record<string, SourceLoc>,
+  ): { outs: Record<string, OutBit>; k: number } => {
     const outs: Record<string, OutBit> = Object.create(null);
     let any = false;
     while (k < ws.length) {
@@ -115,12 +130,19 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
       const val = ws[k + 2];
       if (key.text === ',' || key.text === '=') break;
       if (!val || val.text === ',' || val.text === '=') {
-        err('LW106', `output '${key.text}' has no value`, li, ws[k + 1].at + 1, `write ${key.text}=1, ${key.text}=0 or ${key.text}=- (don't care)`);
+        err(
+          'LW106',
+          `output '${key.text}' has no value`,
+          li,
+          ws[k + 1].at + 1,
+          `write ${key.text}=1, ${key.text}=0 or ${key.text}=- (don't care)`,
+        );
         k += 2;
         any = true;
         continue;
       }
-      if (val.text === '0' || val.text === '1' || val.text === '-') outs[key.text] = val.text === '-' ? '-' : val.text === '1' ? 1 : 0;
+      if (val.text === '0' || val.text === '1' || val.text === '-')
+        outs[key.text] = val.text === '-' ? '-' : val.text === '1' ? 1 : 0;
       else err('LW106', `output '${key.text}' has the value '${val.text}'`, li, val.at, `write 0, 1 or - (don't care)`);
       locs[`out:${key.text}`] = at(li, key.at);
       any = true;
@@ -128,12 +150,27 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
     }
     if (!any) {
       const w = ws[k];
-      err('LW101', w ? `expected output values like bell=1 after 'with', found '${w.text}'` : `'with' needs output values, like bell=1`, li, w ? w.at : (ws[k - 1].at + ws[k - 1].text.length), 'write with NAME=VALUE, NAME=VALUE … (values 0, 1 or -)');
+      err(
+        'LW101',
+        w
+          ? `expected output values like bell=1 after 'with', found '${w.text}'`
+          : `'with' needs output values, like bell=1`,
+        li,
+        w ? w.at : ws[k - 1].at + ws[k - 1].text.length,
+        'write with NAME=VALUE, NAME=VALUE … (values 0, 1 or -)',
+      );
     }
     return { outs, k };
   };
   const trailing = (ws: Word[], k: number, li: number, after: string): void => {
-    if (k < ws.length) err('LW101', `unexpected '${ws[k].text}' after ${after}`, li, ws[k].at, 'remove it, or check the statement against the notation reference');
+    if (k < ws.length)
+      err(
+        'LW101',
+        `unexpected '${ws[k].text}' after ${after}`,
+        li,
+        ws[k].at,
+        'remove it, or check the statement against the notation reference',
+      );
   };
   const oneName = (ws: Word[], li: number, what: string, example: string): string | undefined => {
     const w = ws[1];
@@ -154,7 +191,13 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
     const ws = words(line, goAt);
     if (ws[0]?.text !== 'go') {
       const w = ws[0];
-      err('LW101', w ? `expected 'go' after the guard, found '${w.text}'` : `expected 'go' and a state after the guard`, li, w ? w.at : line.trimEnd().length, `write when GUARD go STATE`);
+      err(
+        'LW101',
+        w ? `expected 'go' after the guard, found '${w.text}'` : `expected 'go' and a state after the guard`,
+        li,
+        w ? w.at : line.trimEnd().length,
+        `write when GUARD go STATE`,
+      );
       return;
     }
     const target = ws[1];
@@ -168,11 +211,23 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
     if (ws[k]?.text === 'with') ({ outs, k } = readOutputs(ws, k + 1, li, locs));
     trailing(ws, k, li, `the target state`);
     if (!current) {
-      err('LW101', 'a transition before any state', li, stmtAt, "write 'state NAME' first; transitions belong to the state above them");
+      err(
+        'LW101',
+        'a transition before any state',
+        li,
+        stmtAt,
+        "write 'state NAME' first; transitions belong to the state above them",
+      );
       return;
     }
     const loc = at(li, stmtAt);
-    current.transitions.push({ when: when ?? alwaysGuard(inputs.length, loc), to: target.text, outputs: outs, loc, partLocs: locs });
+    current.transitions.push({
+      when: when ?? alwaysGuard(inputs.length, loc),
+      to: target.text,
+      outputs: outs,
+      loc,
+      partLocs: locs,
+    });
   };
 
   lines.forEach((raw, li) => {
@@ -190,7 +245,14 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
       case 'inputs':
       case 'outputs': {
         for (let k = 1; k < ws.length; k++) {
-          if (ws[k].text === '=') err('LW101', `unexpected '=' in the ${kw.text} list`, li, ws[k].at, `list names separated by commas or spaces`);
+          if (ws[k].text === '=')
+            err(
+              'LW101',
+              `unexpected '=' in the ${kw.text} list`,
+              li,
+              ws[k].at,
+              `list names separated by commas or spaces`,
+            );
           else if (ws[k].text !== ',' && kw.text === 'outputs') {
             partLocs[`output:${outputs.length}`] = at(li, ws[k].at);
             outputs.push(ws[k].text);
@@ -210,7 +272,13 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
         if (v === 'hold' || v === 'dont-care') unspecified = v;
         else if (v !== undefined) {
           const guess = didYouMean(v, ['hold', 'dont-care']);
-          err('LW103', `unknown unspecified rule '${v}'`, li, ws[1].at, guess ? `did you mean '${guess}'?` : 'write hold or dont-care');
+          err(
+            'LW103',
+            `unknown unspecified rule '${v}'`,
+            li,
+            ws[1].at,
+            guess ? `did you mean '${guess}'?` : 'write hold or dont-care',
+          );
         }
         return;
       }
@@ -248,7 +316,16 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
           } else break;
         }
         trailing(ws, k, li, `state '${nm.text}'`);
-        current = { state: { name: nm.text, outputs: outs, ...(code !== undefined ? { code } : {}), loc: at(li, kw.at), partLocs: locs }, transitions: [] };
+        current = {
+          state: {
+            name: nm.text,
+            outputs: outs,
+            ...(code !== undefined ? { code } : {}),
+            loc: at(li, kw.at),
+            partLocs: locs,
+          },
+          transitions: [],
+        };
         return;
       }
       case 'go':
@@ -267,14 +344,22 @@ export function parseTextMachine(text: string, file?: string): MachineResult {
       }
       default: {
         const guess = didYouMean(kw.text, KEYWORDS);
-        err('LW101', `unknown statement '${kw.text}'`, li, kw.at,
-          guess ? `did you mean '${guess}'?` : `a line starts with one of: ${KEYWORDS.join(', ')} (transitions: when GUARD go STATE, or go STATE)`);
+        err(
+          'LW101',
+          `unknown statement '${kw.text}'`,
+          li,
+          kw.at,
+          guess
+            ? `did you mean '${guess}'?`
+            : `a line starts with one of: ${KEYWORDS.join(', ')} (transitions: when GUARD go STATE, or go STATE)`,
+        );
       }
     }
   });
   close();
 
-  if (name === undefined) err('LW104', `the machine has no 'machine' line`, first < lines.length ? first : 0, 0, 'add a line: machine NAME');
+  if (name === undefined)
+    err('LW104', `the machine has no 'machine' line`, first < lines.length ? first : 0, 0, 'add a line: machine NAME');
   if (ds.some((d) => d.severity === 'error')) return { diagnostics: ds };
   const machine: Machine = {
     name: name ?? '',

@@ -168,6 +168,6 @@ export function* assignments(n: number): Generator<string> {
 /** Minterm index m as an n-character string, variable 0 is the most significant bit. */
 export function mintermString(m: number, n: number): string {
   let s = '';
-  for (let i = n - 1; i >= 0; i--) s += (Math.floor(m / 2 ** i) % 2 === 1 ? '1' : '0');
+  for (let i = n - 1; i >= 0; i--) s += Math.floor(m / 2 ** i) % 2 === 1 ? '1' : '0';
   return s;
 }

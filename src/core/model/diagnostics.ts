@@ -29,49 +29,197 @@ interface CodeInfo {
  * Never renumber; retire a code by leaving it here marked as retired.
  */
 export const DIAGNOSTIC_CODES = {
-  LW100: { severity: 'error', cause: 'The file is not valid JSON, or not an object where an object is needed.', fix: 'Check brackets, commas and quotes at the reported position.' },
-  LW101: { severity: 'error', cause: 'A line of the text form is not a statement the notation knows.', fix: 'Compare the line with the notation reference; check for a missing keyword (state, when, go, with).' },
-  LW102: { severity: 'error', cause: 'A guard or never expression has a syntax error.', fix: 'Use input names, !, &, ^, |, parentheses, 0 and 1.' },
-  LW103: { severity: 'error', cause: 'A field has the wrong type or an unknown value.', fix: 'See the JSON Schema in schemas/machine.schema.json.' },
-  LW104: { severity: 'error', cause: 'A required field or section is missing.', fix: 'Add the field the message names.' },
-  LW105: { severity: 'warning', cause: 'A field the form does not know was ignored.', fix: 'Remove it or correct its spelling.' },
-  LW106: { severity: 'error', cause: 'An output value is not 0, 1 or -.', fix: 'Write 0, 1 or - (don\'t care).' },
-  LW200: { severity: 'error', cause: 'A transition goes to a state that does not exist.', fix: 'Correct the state name, or declare the state.' },
-  LW201: { severity: 'error', cause: 'An expression names an input that is not declared.', fix: 'Declare the input, or correct its name.' },
-  LW202: { severity: 'error', cause: 'An output value names an output that is not declared.', fix: 'Declare the output, or correct its name.' },
-  LW203: { severity: 'error', cause: 'Two states, inputs or outputs share a name, or a name is used for two kinds of thing.', fix: 'Rename one of them.' },
-  LW204: { severity: 'error', cause: 'The start state is missing or names no state.', fix: 'Name an existing state as the start.' },
-  LW205: { severity: 'error', cause: 'A name is not a valid identifier.', fix: 'Use letters, digits and _ ; start with a letter or _.' },
-  LW206: { severity: 'error', cause: 'A pinned state code has the wrong length, bad characters, or repeats another state\'s code.', fix: 'Give every pinned code the same number of 0/1 digits, all different.' },
-  LW207: { severity: 'warning', cause: 'A pinned state code names a state the built machine does not have (misspelt, or merged with an equivalent state by state minimisation); the pin is ignored.', fix: 'Pin the state it was merged into, or correct the name.' },
-  LW208: { severity: 'error', cause: 'A step input sequence names an input the machine does not have.', fix: 'Use the machine\'s input names; a missing input counts as released (0).' },
+  LW100: {
+    severity: 'error',
+    cause: 'The file is not valid JSON, or not an object where an object is needed.',
+    fix: 'Check brackets, commas and quotes at the reported position.',
+  },
+  LW101: {
+    severity: 'error',
+    cause: 'A line of the text form is not a statement the notation knows.',
+    fix: 'Compare the line with the notation reference; check for a missing keyword (state, when, go, with).',
+  },
+  LW102: {
+    severity: 'error',
+    cause: 'A guard or never expression has a syntax error.',
+    fix: 'Use input names, !, &, ^, |, parentheses, 0 and 1.',
+  },
+  LW103: {
+    severity: 'error',
+    cause: 'A field has the wrong type or an unknown value.',
+    fix: 'See the JSON Schema in schemas/machine.schema.json.',
+  },
+  LW104: {
+    severity: 'error',
+    cause: 'A required field or section is missing.',
+    fix: 'Add the field the message names.',
+  },
+  LW105: {
+    severity: 'warning',
+    cause: 'A field the form does not know was ignored.',
+    fix: 'Remove it or correct its spelling.',
+  },
+  LW106: { severity: 'error', cause: 'An output value is not 0, 1 or -.', fix: "Write 0, 1 or - (don't care)." },
+  LW200: {
+    severity: 'error',
+    cause: 'A transition goes to a state that does not exist.',
+    fix: 'Correct the state name, or declare the state.',
+  },
+  LW201: {
+    severity: 'error',
+    cause: 'An expression names an input that is not declared.',
+    fix: 'Declare the input, or correct its name.',
+  },
+  LW202: {
+    severity: 'error',
+    cause: 'An output value names an output that is not declared.',
+    fix: 'Declare the output, or correct its name.',
+  },
+  LW203: {
+    severity: 'error',
+    cause: 'Two states, inputs or outputs share a name, or a name is used for two kinds of thing.',
+    fix: 'Rename one of them.',
+  },
+  LW204: {
+    severity: 'error',
+    cause: 'The start state is missing or names no state.',
+    fix: 'Name an existing state as the start.',
+  },
+  LW205: {
+    severity: 'error',
+    cause: 'A name is not a valid identifier.',
+    fix: 'Use letters, digits and _ ; start with a letter or _.',
+  },
+  LW206: {
+    severity: 'error',
+    cause: "A pinned state code has the wrong length, bad characters, or repeats another state's code.",
+    fix: 'Give every pinned code the same number of 0/1 digits, all different.',
+  },
+  LW207: {
+    severity: 'warning',
+    cause:
+      'A pinned state code names a state the built machine does not have (misspelt, or merged with an equivalent state by state minimisation); the pin is ignored.',
+    fix: 'Pin the state it was merged into, or correct the name.',
+  },
+  LW208: {
+    severity: 'error',
+    cause: 'A step input sequence names an input the machine does not have.',
+    fix: "Use the machine's input names; a missing input counts as released (0).",
+  },
   LW300: { severity: 'error', cause: 'The machine has no states.', fix: 'Declare at least one state.' },
-  LW301: { severity: 'warning', cause: 'A transition can never fire: earlier transitions of the state (or never constraints) already cover its guard.', fix: 'Remove it, reorder the transitions, or narrow the earlier guards.' },
-  LW302: { severity: 'info', cause: 'Some input combinations have no transition in a state; the unspecified rule applies (hold, or don\'t care).', fix: 'Nothing to do if that is intended; otherwise add transitions.' },
-  LW303: { severity: 'warning', cause: 'A state cannot be reached from the start state.', fix: 'Add a transition into it, or remove it; it is dropped from the build.' },
+  LW301: {
+    severity: 'warning',
+    cause:
+      'A transition can never fire: earlier transitions of the state (or never constraints) already cover its guard.',
+    fix: 'Remove it, reorder the transitions, or narrow the earlier guards.',
+  },
+  LW302: {
+    severity: 'info',
+    cause: "Some input combinations have no transition in a state; the unspecified rule applies (hold, or don't care).",
+    fix: 'Nothing to do if that is intended; otherwise add transitions.',
+  },
+  LW303: {
+    severity: 'warning',
+    cause: 'A state cannot be reached from the start state.',
+    fix: 'Add a transition into it, or remove it; it is dropped from the build.',
+  },
   LW304: { severity: 'warning', cause: 'A guard is never true (it is the constant 0).', fix: 'Check the expression.' },
-  LW305: { severity: 'warning', cause: 'The never constraints exclude every input combination.', fix: 'Check the never expressions.' },
-  LW400: { severity: 'error', cause: 'The machine has more states than the tool handles (4096).', fix: 'Split the machine.' },
-  LW401: { severity: 'error', cause: 'The machine has more inputs than the tool handles (32).', fix: 'Split the machine or combine inputs.' },
-  LW402: { severity: 'error', cause: 'The machine has more outputs than the tool handles (256).', fix: 'Split the machine.' },
-  LW403: { severity: 'error', cause: 'A guard expands into too many product terms to handle.', fix: 'Simplify the guard or split the transition.' },
-  LW500: { severity: 'error', cause: 'The xstate configuration uses a feature a lever machine cannot have (parallel or nested states, history, delays, code guards or actions).', fix: 'Flatten the machine; replace code with events and states.' },
-  LW501: { severity: 'error', cause: 'The xstate configuration is malformed.', fix: 'Check the configuration against xstate\'s documentation.' },
-  LW502: { severity: 'error', cause: 'The input is neither the text form, the JSON form nor an xstate configuration.', fix: 'Check the file; JSON machines need "states" and "start", xstate configs need "initial" and "states".' },
-  LW600: { severity: 'error', cause: 'A technology profile value is out of its allowed range.', fix: 'See the profile reference for the field\'s range.' },
-  LW601: { severity: 'error', cause: 'A technology profile names a field that does not exist.', fix: 'Correct the field name.' },
-  LW700: { severity: 'error', cause: 'A build option is unknown or out of range (encoding name, seed, unused-code target).', fix: 'See `latchwright --help`.' },
-  LW701: { severity: 'error', cause: 'The chosen encoding does not fit the machine (for example Johnson codes for a machine whose states do not form a cycle, or pinned codes for too few bits).', fix: 'Choose another encoding.' },
-  LW703: { severity: 'info', cause: 'With unused state codes left as don\'t-cares the build could lock up in them, so every unused code was sent to the start state.', fix: 'Nothing to do; pass --unused dont-care to keep them free, or --unused STATE to choose the state.' },
-  LW702: { severity: 'error', cause: 'The output folder exists, is not empty, and was not made by the tool.', fix: 'Choose another folder or pass --force.' },
-  LW704: { severity: 'error', cause: 'The output folder could not be written: no permission, no space, or a file where the folder should be.', fix: 'Check the path and its permissions, or choose another folder.' },
-  LW705: { severity: 'error', cause: 'A file named on the command line (the machine, the profile or the input sequence) could not be read: it does not exist, is a folder, or may not be read.', fix: 'Check the path; name a file, not a folder.' },
+  LW305: {
+    severity: 'warning',
+    cause: 'The never constraints exclude every input combination.',
+    fix: 'Check the never expressions.',
+  },
+  LW400: {
+    severity: 'error',
+    cause: 'The machine has more states than the tool handles (4096).',
+    fix: 'Split the machine.',
+  },
+  LW401: {
+    severity: 'error',
+    cause: 'The machine has more inputs than the tool handles (32).',
+    fix: 'Split the machine or combine inputs.',
+  },
+  LW402: {
+    severity: 'error',
+    cause: 'The machine has more outputs than the tool handles (256).',
+    fix: 'Split the machine.',
+  },
+  LW403: {
+    severity: 'error',
+    cause: 'A guard expands into too many product terms to handle.',
+    fix: 'Simplify the guard or split the transition.',
+  },
+  LW500: {
+    severity: 'error',
+    cause:
+      'The xstate configuration uses a feature a lever machine cannot have (parallel or nested states, history, delays, code guards or actions).',
+    fix: 'Flatten the machine; replace code with events and states.',
+  },
+  LW501: {
+    severity: 'error',
+    cause: 'The xstate configuration is malformed.',
+    fix: "Check the configuration against xstate's documentation.",
+  },
+  LW502: {
+    severity: 'error',
+    cause: 'The input is neither the text form, the JSON form nor an xstate configuration.',
+    fix: 'Check the file; JSON machines need "states" and "start", xstate configs need "initial" and "states".',
+  },
+  LW600: {
+    severity: 'error',
+    cause: 'A technology profile value is out of its allowed range.',
+    fix: "See the profile reference for the field's range.",
+  },
+  LW601: {
+    severity: 'error',
+    cause: 'A technology profile names a field that does not exist.',
+    fix: 'Correct the field name.',
+  },
+  LW700: {
+    severity: 'error',
+    cause: 'A build option is unknown or out of range (encoding name, seed, unused-code target).',
+    fix: 'See `latchwright --help`.',
+  },
+  LW701: {
+    severity: 'error',
+    cause:
+      'The chosen encoding does not fit the machine (for example Johnson codes for a machine whose states do not form a cycle, or pinned codes for too few bits).',
+    fix: 'Choose another encoding.',
+  },
+  LW703: {
+    severity: 'info',
+    cause:
+      "With unused state codes left as don't-cares the build could lock up in them, so every unused code was sent to the start state.",
+    fix: 'Nothing to do; pass --unused dont-care to keep them free, or --unused STATE to choose the state.',
+  },
+  LW702: {
+    severity: 'error',
+    cause: 'The output folder exists, is not empty, and was not made by the tool.',
+    fix: 'Choose another folder or pass --force.',
+  },
+  LW704: {
+    severity: 'error',
+    cause: 'The output folder could not be written: no permission, no space, or a file where the folder should be.',
+    fix: 'Check the path and its permissions, or choose another folder.',
+  },
+  LW705: {
+    severity: 'error',
+    cause:
+      'A file named on the command line (the machine, the profile or the input sequence) could not be read: it does not exist, is a folder, or may not be read.',
+    fix: 'Check the path; name a file, not a folder.',
+  },
 } as const satisfies Record<string, CodeInfo>;
 
 export type DiagnosticCode = keyof typeof DIAGNOSTIC_CODES;
 
 /** Make a diagnostic with the code's default severity. */
-export function diag(code: DiagnosticCode, message: string, location: SourceLoc, hint?: string, severity?: Severity): Diagnostic {
+export function diag(
+  code: DiagnosticCode,
+  message: string,
+  location: SourceLoc,
+  hint?: string,
+  severity?: Severity,
+): Diagnostic {
   return { code, severity: severity ?? DIAGNOSTIC_CODES[code].severity, message, location, ...(hint ? { hint } : {}) };
 }
 

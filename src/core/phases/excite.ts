@@ -69,8 +69,11 @@ export function excite(f: FlatMachine, enc: Encoding, opts: ExciteOptions = {}):
   const b = enc.bits;
   const n = f.inputs.length;
   const freeInputs = '-'.repeat(n);
-  const setOn: Cube[][] = [], setDc: Cube[][] = [], resetOn: Cube[][] = [], resetDc: Cube[][] = [];
-  for (let j = 0; j < b; j++) setOn.push([]), setDc.push([]), resetOn.push([]), resetDc.push([]);
+  const setOn: Cube[][] = [],
+    setDc: Cube[][] = [],
+    resetOn: Cube[][] = [],
+    resetDc: Cube[][] = [];
+  for (let j = 0; j < b; j++) (setOn.push([]), setDc.push([]), resetOn.push([]), resetDc.push([]));
   const globalDc: Cube[] = [];
   const outOn: Cube[][] = f.outputs.map(() => []);
   const outDc: Cube[][] = f.outputs.map(() => []);
@@ -98,8 +101,8 @@ export function excite(f: FlatMachine, enc: Encoding, opts: ExciteOptions = {}):
       if (r.next === DONT_CARE) globalDc.push(cube);
       else excitePair(cube, code, enc.codes[r.next]);
       r.out.forEach((v, k) => {
-        if (v === 1) outOn[k].push(cube), (seen[k].one = true);
-        else if (v === 0) outOff[k].push(cube), (seen[k].zero = true);
+        if (v === 1) (outOn[k].push(cube), (seen[k].one = true));
+        else if (v === 0) (outOff[k].push(cube), (seen[k].zero = true));
         else outDc[k].push(cube);
       });
     }

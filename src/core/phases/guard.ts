@@ -82,7 +82,8 @@ export interface Guarded {
 
 /** Every set/reset function with all don't-cares free to both (unsafe: for pricing only). */
 export function unguardedFunction(ex: Excitation): MultiFunction {
-  const on: Cube[][] = [], dc: Cube[][] = [];
+  const on: Cube[][] = [],
+    dc: Cube[][] = [];
   for (let j = 0; j < ex.bits; j++) {
     on.push([...ex.set[j].on], [...ex.reset[j].on]);
     dc.push([...ex.set[j].dc], [...ex.reset[j].dc]);
@@ -92,16 +93,24 @@ export function unguardedFunction(ex: Excitation): MultiFunction {
 
 /** The split-by-bit guarded function: G to S_j where q_j = 0, to R_j where q_j = 1. */
 export function splitFunction(ex: Excitation): MultiFunction {
-  const on: Cube[][] = [], dc: Cube[][] = [];
+  const on: Cube[][] = [],
+    dc: Cube[][] = [];
   for (let j = 0; j < ex.bits; j++) {
     on.push([...ex.set[j].on], [...ex.reset[j].on]);
-    dc.push([...ex.set[j].tableDc, ...restrict(ex.globalDc, j, '0')], [...ex.reset[j].tableDc, ...restrict(ex.globalDc, j, '1')]);
+    dc.push(
+      [...ex.set[j].tableDc, ...restrict(ex.globalDc, j, '0')],
+      [...ex.reset[j].tableDc, ...restrict(ex.globalDc, j, '1')],
+    );
   }
   return { vars: ex.bits + ex.inputs, on, dc };
 }
 
 /** The set-first method: S_j with all of G, then R_j without S_j's cover. */
-export function setFirst(ex: Excitation, minimise: Minimiser, mopts?: MinimiseOptions): { cover: SopCover; functions: MultiFunction[] } {
+export function setFirst(
+  ex: Excitation,
+  minimise: Minimiser,
+  mopts?: MinimiseOptions,
+): { cover: SopCover; functions: MultiFunction[] } {
   const vars = ex.bits + ex.inputs;
   const sFn: MultiFunction = { vars, on: ex.set.map((s) => s.on), dc: ex.set.map((s) => s.dc) };
   const sCover = minimise(sFn, mopts);
@@ -121,7 +130,8 @@ export function setFirst(ex: Excitation, minimise: Minimiser, mopts?: MinimiseOp
 /** Prove S_j·R_j = 0 for every bit of a set/reset cover, with cube intersections. */
 export function proveExclusive(cover: SopCover, bits: number): ExclusionProof {
   for (let j = 0; j < bits; j++) {
-    const s = termsOf(cover, 2 * j), r = termsOf(cover, 2 * j + 1);
+    const s = termsOf(cover, 2 * j),
+      r = termsOf(cover, 2 * j + 1);
     for (const a of s)
       for (const b of r) {
         const x = intersect(a, b);
@@ -135,7 +145,12 @@ export function proveExclusive(cover: SopCover, bits: number): ExclusionProof {
 export function guard(ex: Excitation, opts: GuardOptions): Guarded {
   if (ex.bits === 0) {
     const empty: SopCover = { vars: ex.inputs, functions: 0, terms: [] };
-    return { cover: empty, functions: [], report: { ok: true, extraGates: 0, extraCords: 0, method: 'none (no latches)' }, proof: { ok: true, latchesChecked: 0 } };
+    return {
+      cover: empty,
+      functions: [],
+      report: { ok: true, extraGates: 0, extraCords: 0, method: 'none (no latches)' },
+      proof: { ok: true, latchesChecked: 0 },
+    };
   }
   const mopts = opts.minimiseOptions;
   const method = opts.method ?? 'auto';
@@ -155,7 +170,12 @@ export function guard(ex: Excitation, opts: GuardOptions): Guarded {
       ? { ok: best.proof.ok, extraGates: 0, extraCords: 0, method: best.method, compared: false }
       : (() => {
           const base = opts.price(opts.minimise(unguardedFunction(ex), mopts));
-          return { ok: best.proof.ok, extraGates: best.price.gates - base.gates, extraCords: best.price.cords - base.cords, method: best.method };
+          return {
+            ok: best.proof.ok,
+            extraGates: best.price.gates - base.gates,
+            extraCords: best.price.cords - base.cords,
+            method: best.method,
+          };
         })();
   return { cover: best.cover, functions: best.functions, proof: best.proof, report };
 }

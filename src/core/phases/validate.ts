@@ -54,7 +54,15 @@ export function validate(m: Machine): Validated {
   // Limits first: a machine past them is refused before any heavy work.
   // Point at the first name past the limit (the declaration that overflows), else at the machine.
   const limit = (code: 'LW400' | 'LW401' | 'LW402', what: string, count: number, max: number, at?: SourceLoc): void => {
-    if (count > max) ds.push(diag(code, `the machine has ${count} ${what}; the tool handles at most ${max}`, at ?? mloc, code === 'LW401' ? 'split the machine or combine inputs' : 'split the machine'));
+    if (count > max)
+      ds.push(
+        diag(
+          code,
+          `the machine has ${count} ${what}; the tool handles at most ${max}`,
+          at ?? mloc,
+          code === 'LW401' ? 'split the machine or combine inputs' : 'split the machine',
+        ),
+      );
   };
   limit('LW400', 'states', m.states.length, LIMITS.states, m.states[LIMITS.states]?.loc);
   limit('LW401', 'inputs', m.inputs.length, LIMITS.inputs, m.partLocs?.[`input:${LIMITS.inputs}`]);
@@ -67,13 +75,29 @@ export function validate(m: Machine): Validated {
   const neverCubes = m.never.flatMap((g) => g.cubes);
   const neverAll = m.never.length > 0 && isTautology(neverCubes, m.inputs.length);
   if (neverAll) {
-    ds.push(diag('LW305', 'the never constraints exclude every input combination, so no transition can ever fire', m.never[0].loc ?? mloc, 'check the never expressions; each should describe combinations that cannot happen'));
+    ds.push(
+      diag(
+        'LW305',
+        'the never constraints exclude every input combination, so no transition can ever fire',
+        m.never[0].loc ?? mloc,
+        'check the never expressions; each should describe combinations that cannot happen',
+      ),
+    );
   }
-  m.states.forEach((s) => s.transitions.forEach((t, ti) => {
-    if (t.when.cubes.length === 0) {
-      ds.push(diag('LW304', `the guard '${printExpr(t.when.expr)}' of transition ${ti + 1} in state '${s.name}' is never true`, t.when.loc ?? t.loc ?? s.loc ?? mloc, 'check the expression; a transition that never fires can be removed'));
-    }
-  }));
+  m.states.forEach((s) =>
+    s.transitions.forEach((t, ti) => {
+      if (t.when.cubes.length === 0) {
+        ds.push(
+          diag(
+            'LW304',
+            `the guard '${printExpr(t.when.expr)}' of transition ${ti + 1} in state '${s.name}' is never true`,
+            t.when.loc ?? t.loc ?? s.loc ?? mloc,
+            'check the expression; a transition that never fires can be removed',
+          ),
+        );
+      }
+    }),
+  );
   if (hasErrors(ds)) return { diagnostics: ds };
 
   const flat = flatten(m);
@@ -84,18 +108,39 @@ export function validate(m: Machine): Validated {
 function checkNames(m: Machine, ds: Diagnostic[]): void {
   const mloc = m.loc ?? {};
   if (!MACHINE_NAME.test(m.name)) {
-    ds.push(diag('LW205', m.name === '' ? 'the machine name is empty' : `the machine name '${m.name}' is not a valid name`, partLoc(m, 'name', '.name', mloc), 'use letters, digits, _ and -; start with a letter, digit or _'));
+    ds.push(
+      diag(
+        'LW205',
+        m.name === '' ? 'the machine name is empty' : `the machine name '${m.name}' is not a valid name`,
+        partLoc(m, 'name', '.name', mloc),
+        'use letters, digits, _ and -; start with a letter, digit or _',
+      ),
+    );
   }
   const declared = new Map<string, string>();
   const names = (list: readonly string[], kind: 'input' | 'output'): void => {
     list.forEach((n, i) => {
       const where = partLoc(m, `${kind}:${i}`, `.${kind}s[${i}]`, mloc);
       if (!IDENTIFIER.test(n)) {
-        ds.push(diag('LW205', `the ${kind} name '${n}' is not a valid identifier`, where, 'use letters, digits and _; start with a letter or _'));
+        ds.push(
+          diag(
+            'LW205',
+            `the ${kind} name '${n}' is not a valid identifier`,
+            where,
+            'use letters, digits and _; start with a letter or _',
+          ),
+        );
       }
       const prior = declared.get(n);
       if (prior !== undefined) {
-        ds.push(diag('LW203', prior === kind ? `the ${kind} '${n}' is declared twice` : `'${n}' is both an input and an output`, where, 'rename one of them'));
+        ds.push(
+          diag(
+            'LW203',
+            prior === kind ? `the ${kind} '${n}' is declared twice` : `'${n}' is both an input and an output`,
+            where,
+            'rename one of them',
+          ),
+        );
       } else declared.set(n, kind);
     });
   };
@@ -106,9 +151,24 @@ function checkNames(m: Machine, ds: Diagnostic[]): void {
   for (const s of m.states) {
     const where = partLoc(s, 'name', '.name', mloc);
     if (!STATE_NAME.test(s.name)) {
-      ds.push(diag('LW205', s.name === '' ? 'a state has an empty name' : `the state name '${s.name}' is not a valid name`, where, 'use letters, digits and _'));
+      ds.push(
+        diag(
+          'LW205',
+          s.name === '' ? 'a state has an empty name' : `the state name '${s.name}' is not a valid name`,
+          where,
+          'use letters, digits and _',
+        ),
+      );
     }
-    if (seen.has(s.name)) ds.push(diag('LW203', `the state '${s.name}' is declared twice`, where, 'rename one of them, or merge their transitions'));
+    if (seen.has(s.name))
+      ds.push(
+        diag(
+          'LW203',
+          `the state '${s.name}' is declared twice`,
+          where,
+          'rename one of them, or merge their transitions',
+        ),
+      );
     seen.add(s.name);
   }
 
@@ -118,10 +178,27 @@ function checkNames(m: Machine, ds: Diagnostic[]): void {
   }
   const startLoc = partLoc(m, 'start', '.start', mloc);
   if (m.start === '') {
-    ds.push(diag('LW204', 'the machine names no start state', startLoc, `name the state it starts in, for example '${m.states[0].name}'`));
+    ds.push(
+      diag(
+        'LW204',
+        'the machine names no start state',
+        startLoc,
+        `name the state it starts in, for example '${m.states[0].name}'`,
+      ),
+    );
   } else if (!seen.has(m.start)) {
-    const guess = didYouMean(m.start, m.states.map((s) => s.name));
-    ds.push(diag('LW204', `the start state '${m.start}' does not exist`, startLoc, guess ? `did you mean '${guess}'?` : 'name an existing state as the start'));
+    const guess = didYouMean(
+      m.start,
+      m.states.map((s) => s.name),
+    );
+    ds.push(
+      diag(
+        'LW204',
+        `the start state '${m.start}' does not exist`,
+        startLoc,
+        guess ? `did you mean '${guess}'?` : 'name an existing state as the start',
+      ),
+    );
   }
 }
 
@@ -137,11 +214,32 @@ function checkCodes(m: Machine, ds: Diagnostic[]): void {
     const code = s.code!;
     const where = partLoc(s, 'code', '.code', m.loc);
     if (!/^[01]+$/.test(code)) {
-      ds.push(diag('LW206', `the code '${code}' of state '${s.name}' is not a string of 0/1 digits`, where, 'write the code with the digits 0 and 1 only, most significant bit first'));
+      ds.push(
+        diag(
+          'LW206',
+          `the code '${code}' of state '${s.name}' is not a string of 0/1 digits`,
+          where,
+          'write the code with the digits 0 and 1 only, most significant bit first',
+        ),
+      );
     } else if (code.length !== width) {
-      ds.push(diag('LW206', `the code '${code}' of state '${s.name}' has ${code.length} digits; the other pinned codes have ${width}`, where, 'give every pinned code the same number of digits'));
+      ds.push(
+        diag(
+          'LW206',
+          `the code '${code}' of state '${s.name}' has ${code.length} digits; the other pinned codes have ${width}`,
+          where,
+          'give every pinned code the same number of digits',
+        ),
+      );
     } else if (owner.has(code)) {
-      ds.push(diag('LW206', `state '${s.name}' repeats the code ${code} of state '${owner.get(code)}'`, where, 'give every state a different code'));
+      ds.push(
+        diag(
+          'LW206',
+          `state '${s.name}' repeats the code ${code} of state '${owner.get(code)}'`,
+          where,
+          'give every state a different code',
+        ),
+      );
     } else owner.set(code, s.name);
   }
 }
@@ -154,7 +252,14 @@ function checkReferences(m: Machine, ds: Diagnostic[]): void {
     for (const k of Object.keys(rec)) {
       if (outputs.has(k)) continue;
       const guess = didYouMean(k, m.outputs);
-      ds.push(diag('LW202', `${what} sets the undeclared output '${k}'`, partLoc(owner, `out:${k}`, `.outputs.${k}`, m.loc), guess ? `did you mean '${guess}'?` : 'declare it among the outputs, or correct its name'));
+      ds.push(
+        diag(
+          'LW202',
+          `${what} sets the undeclared output '${k}'`,
+          partLoc(owner, `out:${k}`, `.outputs.${k}`, m.loc),
+          guess ? `did you mean '${guess}'?` : 'declare it among the outputs, or correct its name',
+        ),
+      );
     }
   };
   for (const s of m.states) {
@@ -163,7 +268,14 @@ function checkReferences(m: Machine, ds: Diagnostic[]): void {
       outNames(t, t.outputs, `transition ${ti + 1} of state '${s.name}'`);
       if (!known.has(t.to)) {
         const guess = didYouMean(t.to, states);
-        ds.push(diag('LW200', `transition ${ti + 1} of state '${s.name}' goes to the unknown state '${t.to}'`, partLoc(t, 'to', '.to', s.loc), guess ? `did you mean '${guess}'?` : 'declare the state, or correct the name'));
+        ds.push(
+          diag(
+            'LW200',
+            `transition ${ti + 1} of state '${s.name}' goes to the unknown state '${t.to}'`,
+            partLoc(t, 'to', '.to', s.loc),
+            guess ? `did you mean '${guess}'?` : 'declare the state, or correct the name',
+          ),
+        );
       }
     });
   }
@@ -179,7 +291,14 @@ function checkBehaviour(m: Machine, flat: FlatMachine, never: readonly Cube[], d
     const fired = new Set(flat.rows[si].map((r) => r.transition));
     s.transitions.forEach((t, ti) => {
       if (fired.has(ti) || t.when.cubes.length === 0) return;
-      ds.push(diag('LW301', `transition ${ti + 1} of state '${s.name}' ${describe(t)} can never fire: ${shadowedBy(s, ti, never)}`, t.loc ?? s.loc ?? mloc, 'remove it, reorder the transitions, or narrow the earlier guards'));
+      ds.push(
+        diag(
+          'LW301',
+          `transition ${ti + 1} of state '${s.name}' ${describe(t)} can never fire: ${shadowedBy(s, ti, never)}`,
+          t.loc ?? s.loc ?? mloc,
+          'remove it, reorder the transitions, or narrow the earlier guards',
+        ),
+      );
     });
     const rest = flat.rows[si].filter((r) => r.transition === -1).map((r) => r.cube);
     if (rest.length) ds.push(unspecifiedNote(m, s, rest));
@@ -198,7 +317,15 @@ function checkBehaviour(m: Machine, flat: FlatMachine, never: readonly Cube[], d
     }
   }
   m.states.forEach((s, si) => {
-    if (!reached.has(si)) ds.push(diag('LW303', `state '${s.name}' cannot be reached from the start state '${m.start}'`, s.loc ?? mloc, 'add a transition into it, or remove it; it is dropped from the build'));
+    if (!reached.has(si))
+      ds.push(
+        diag(
+          'LW303',
+          `state '${s.name}' cannot be reached from the start state '${m.start}'`,
+          s.loc ?? mloc,
+          'add a transition into it, or remove it; it is dropped from the build',
+        ),
+      );
   });
 }
 
@@ -209,8 +336,12 @@ function shadowedBy(s: State, ti: number, never: readonly Cube[]): string {
     .filter(({ e, i }) => i < ti && e.when.cubes.some((a) => t.when.cubes.some((b) => overlaps(a, b))))
     .map(({ i }) => i + 1);
   const byNever = never.length > 0 && t.when.cubes.some((b) => never.some((a) => overlaps(a, b)));
-  if (earlier.length === 0 || (byNever && coverContains(never, t.when.cubes))) return 'the never constraints exclude every combination its guard covers';
-  const list = earlier.length === 1 ? `transition ${earlier[0]}` : `transitions ${earlier.slice(0, -1).join(', ')} and ${earlier[earlier.length - 1]}`;
+  if (earlier.length === 0 || (byNever && coverContains(never, t.when.cubes)))
+    return 'the never constraints exclude every combination its guard covers';
+  const list =
+    earlier.length === 1
+      ? `transition ${earlier[0]}`
+      : `transitions ${earlier.slice(0, -1).join(', ')} and ${earlier[earlier.length - 1]}`;
   const verb = earlier.length === 1 && !byNever ? 'takes' : 'take';
   return `${list}${byNever ? ' and the never constraints' : ''} already ${verb} every combination its guard covers`;
 }
@@ -219,19 +350,27 @@ function unspecifiedNote(m: Machine, s: State, rest: readonly Cube[]): Diagnosti
   const n = m.inputs.length;
   const merged = mergeAdjacent(rest);
   const shown = printCubes(merged.slice(0, 3), m.inputs) + (merged.length > 3 ? ' | …' : '');
-  const what = n === 0 || s.transitions.length === 0 ? 'has no transition' : `has no transition for some input combinations (${shown})`;
+  const what =
+    n === 0 || s.transitions.length === 0
+      ? 'has no transition'
+      : `has no transition for some input combinations (${shown})`;
   const rule =
     m.unspecified === 'hold'
       ? `the unspecified rule 'hold' applies: it stays in '${s.name}' with its own outputs (unnamed outputs 0)`
       : `the unspecified rule 'dont-care' applies: the next state and the outputs the state does not name are left free`;
-  return diag('LW302', `state '${s.name}' ${what}; ${rule}`, s.loc ?? m.loc ?? {}, 'nothing to do if that is intended; otherwise add transitions');
+  return diag(
+    'LW302',
+    `state '${s.name}' ${what}; ${rule}`,
+    s.loc ?? m.loc ?? {},
+    'nothing to do if that is intended; otherwise add transitions',
+  );
 }
 
 /** Merge cubes that differ in one fixed position (x&y | x&!y → x), for shorter messages only. */
 function mergeAdjacent(cubes: readonly Cube[]): Cube[] {
   let cur = [...cubes];
   if (cur.length > 64) return cur;
-  for (let changed = true; changed; ) {
+  for (let changed = true; changed;) {
     changed = false;
     search: for (let i = 0; i < cur.length; i++)
       for (let j = i + 1; j < cur.length; j++) {

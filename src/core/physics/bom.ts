@@ -34,7 +34,15 @@ const r3 = (x: number): number => Math.round(x * 1000) / 1000;
 /** Parts, weights, capstans, cord and routing hardware, in that order. */
 export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
   const rows: BomRow[] = [];
-  const add = (item: string, kind: BomRow['kind'], count: number, each: number, unit: string, note: string, round = r1): void => {
+  const add = (
+    item: string,
+    kind: BomRow['kind'],
+    count: number,
+    each: number,
+    unit: string,
+    note: string,
+    round = r1,
+  ): void => {
     if (count > 0) rows.push({ item, kind, count, each: round(each), unit, total: round(count * each), note });
   };
   const levers = netlist.parts.flatMap((p) => (p.kind === 'lever' ? [p] : []));
@@ -46,21 +54,42 @@ export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
   add('clock lever', 'lever', byRole('phi1', 'phi2'), 1, 'piece', 'φ1 then φ2, never together');
   add('reset lever', 'lever', byRole('reset'), 1, 'piece', 'pull only with both clock levers released');
   add('summing lever Z', 'lever', gates.length, 1, 'piece', 'one per gate; the hold end of its capstan');
-  add('port lever', 'lever', portLevers, 1, 'piece', 'gates with two or more ports (a one-port gate\'s port is its Z)');
-  add('flag', 'indicator', netlist.parts.filter((p) => p.kind === 'flag').length, 1, 'piece', 'mounted on a gate\'s Z lever');
+  add('port lever', 'lever', portLevers, 1, 'piece', "gates with two or more ports (a one-port gate's port is its Z)");
+  add(
+    'flag',
+    'indicator',
+    netlist.parts.filter((p) => p.kind === 'flag').length,
+    1,
+    'piece',
+    "mounted on a gate's Z lever",
+  );
   for (const p of netlist.parts) {
     if (p.kind === 'actuator') add(`actuator ${p.name}`, 'actuator', 1, p.loadG, 'g load', `shows output ${p.output}`);
   }
 
   add('port pull-up weight', 'weight', portLevers, profile.portWeightG, 'g', 'one per port lever');
   add('Z weight', 'weight', gates.length, profile.zWeightG, 'g', 'one per gate; sets the capstan hold tension');
-  add('lever pull-up weight', 'weight', levers.length, profile.leverWeightG, 'g', 'one per operator, clock or reset lever');
+  add(
+    'lever pull-up weight',
+    'weight',
+    levers.length,
+    profile.leverWeightG,
+    'g',
+    'one per operator, clock or reset lever',
+  );
 
   const drivers = new Set(netlist.cords.map((c) => c.driver));
   const capstans = netlist.parts.filter((p) => (p.kind === 'lever' || p.kind === 'gate') && drivers.has(p.id)).length;
   add('capstan', 'capstan', capstans, profile.wraps, 'turns', `μ = ${profile.mu} cord on drum`);
-  add('drum', 'drum', capstans > 0 ? 1 : 0, capstans * profile.wraps * profile.wrapPitchM, 'm length',
-    `radius ${profile.drumRadiusM} m at ${profile.drumRpm} rev/min; ${r3(profile.wrapPitchM)} m per wrap`, r3);
+  add(
+    'drum',
+    'drum',
+    capstans > 0 ? 1 : 0,
+    capstans * profile.wraps * profile.wrapPitchM,
+    'm length',
+    `radius ${profile.drumRadiusM} m at ${profile.drumRpm} rev/min; ${r3(profile.wrapPitchM)} m per wrap`,
+    r3,
+  );
 
   let branches = 0;
   let pins = 0;
@@ -72,8 +101,24 @@ export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
     pins += n * Math.ceil(r.pinAngleRad / (Math.PI / 2) - 1e-9);
     pulleys += n * r.pulleys;
   }
-  add('cord branch', 'cord', branches, profile.cordBranchM, 'm', `${netlist.cords.length} cords; length per branch is an allowance`, r3);
-  add('capstan wrap cord', 'cord', capstans, profile.wraps * 2 * Math.PI * profile.drumRadiusM, 'm', 'cord wrapped on the drum per capstan', r3);
+  add(
+    'cord branch',
+    'cord',
+    branches,
+    profile.cordBranchM,
+    'm',
+    `${netlist.cords.length} cords; length per branch is an allowance`,
+    r3,
+  );
+  add(
+    'capstan wrap cord',
+    'cord',
+    capstans,
+    profile.wraps * 2 * Math.PI * profile.drumRadiusM,
+    'm',
+    'cord wrapped on the drum per capstan',
+    r3,
+  );
   add('redirect pin', 'routing', pins, 1, 'piece', 'one per quarter turn of redirection per branch (estimate)');
   add('pulley', 'routing', pulleys, 1, 'piece', `efficiency ${profile.routing.pulleyEfficiency} each`);
   return rows;

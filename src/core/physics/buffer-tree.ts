@@ -77,8 +77,12 @@ interface Plan {
 }
 
 function planDriver(
-  driver: string, kind: 'lever' | 'gate', own: readonly Cord[], parts: ReadonlyMap<string, Part>,
-  usedIds: ReadonlySet<string>, profile: Profile,
+  driver: string,
+  kind: 'lever' | 'gate',
+  own: readonly Cord[],
+  parts: ReadonlyMap<string, Part>,
+  usedIds: ReadonlySet<string>,
+  profile: Profile,
 ): Plan | undefined {
   const driverBudget = availableTension(profile, holdWeightG(profile, kind)).availableG / profile.minMargin;
   const gateBudget = availableTension(profile, profile.zWeightG).availableG / profile.minMargin;
@@ -89,7 +93,10 @@ function planDriver(
     driver: c.driver,
     branches: [
       ...c.ports.map((p) => ({ port: p, baseG: portLoadG(profile, parts.get(p.part)) })),
-      ...c.actuators.map((a) => { const x = parts.get(a); return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0 }; }),
+      ...c.actuators.map((a) => {
+        const x = parts.get(a);
+        return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0 };
+      }),
     ],
   }));
   const newParts: GatePart[] = [];
@@ -114,12 +121,17 @@ function planDriver(
     const fixed = all.filter((x) => !movable(x.b));
     const mov = all.filter((x) => movable(x.b));
     const fixedLoad = fixed.reduce((s, x) => s + x.b.baseG * f(x.cord), 0);
-    let chosen: { k: number; groups: typeof mov[] } | undefined;
+    let chosen: { k: number; groups: (typeof mov)[] } | undefined;
     for (let k = mov.length - 1; k >= 0; k--) {
       const groups = nextFit(mov.slice(k), gateBudget, fNew);
-      const cost = fixedLoad + mov.slice(0, k).reduce((s, x) => s + x.b.baseG * f(x.cord), 0)
-        + groups.reduce((s, g) => s + profile.zWeightG * f(g[0].cord), 0);
-      if (cost <= driverBudget) { chosen = { k, groups }; break; }
+      const cost =
+        fixedLoad +
+        mov.slice(0, k).reduce((s, x) => s + x.b.baseG * f(x.cord), 0) +
+        groups.reduce((s, g) => s + profile.zWeightG * f(g[0].cord), 0);
+      if (cost <= driverBudget) {
+        chosen = { k, groups };
+        break;
+      }
     }
     if (!chosen) {
       // Nothing fits yet: buffer everything and go a level deeper, as long as the step makes
@@ -135,17 +147,31 @@ function planDriver(
     for (const g of chosen.groups) {
       const x = g[0].cord;
       let k = counters.get(x) ?? 1;
-      while (used.has(`${x}.buf${k}a`) || used.has(`${x}.buf${k}b`) || used.has(`${x}.buf${k}a.out`) || used.has(`${x}.buf${k}b.out`)) k++;
+      while (
+        used.has(`${x}.buf${k}a`) ||
+        used.has(`${x}.buf${k}b`) ||
+        used.has(`${x}.buf${k}a.out`) ||
+        used.has(`${x}.buf${k}b.out`)
+      )
+        k++;
       counters.set(x, k + 1);
       const a = `${x}.buf${k}a`;
       const b = `${x}.buf${k}b`;
       for (const id of [a, b, `${a}.out`, `${b}.out`]) used.add(id);
       newParts.push(bufferGate(a), bufferGate(b));
-      newCords.push({ id: `${a}.out`, driver: a, branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG }] });
+      newCords.push({
+        id: `${a}.out`,
+        driver: a,
+        branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG }],
+      });
       newCords.push({ id: `${b}.out`, driver: b, branches: g.map((y) => y.b) });
       const moved = new Set(g.map((y) => y.b));
       const home = work.find((c) => c.id === x);
-      if (home) home.branches = [...home.branches.filter((y) => !moved.has(y)), { port: { part: a, port: 'in' }, baseG: profile.zWeightG }];
+      if (home)
+        home.branches = [
+          ...home.branches.filter((y) => !moved.has(y)),
+          { port: { part: a, port: 'in' }, baseG: profile.zWeightG },
+        ];
     }
   }
   if (newParts.length === 0) return undefined;

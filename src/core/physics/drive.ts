@@ -98,7 +98,12 @@ export function driveBudget(netlist: Netlist, profile: Profile): DriverBudget[] 
   return out;
 }
 
-function budgetOf(driver: string, driverKind: 'lever' | 'gate', branches: readonly BranchLoad[], profile: Profile): DriverBudget {
+function budgetOf(
+  driver: string,
+  driverKind: 'lever' | 'gate',
+  branches: readonly BranchLoad[],
+  profile: Profile,
+): DriverBudget {
   const t = availableTension(profile, holdWeightG(profile, driverKind));
   const cords = [...new Set(branches.map((b) => b.cord))];
   const perCord = new Map<string, number>();
@@ -108,8 +113,19 @@ function budgetOf(driver: string, driverKind: 'lever' | 'gate', branches: readon
   const margin = loadG > 0 ? t.availableG / loadG : Infinity;
   const ok = margin >= profile.minMargin;
   const base = {
-    driver, driverKind, cords, holdG: t.holdG, gain: t.gain, availableG: t.availableG, availableN: t.availableN,
-    loadG, loadN: gramsToNewtons(loadG), margin, ok, branches, weakestCord,
+    driver,
+    driverKind,
+    cords,
+    holdG: t.holdG,
+    gain: t.gain,
+    availableG: t.availableG,
+    availableN: t.availableN,
+    loadG,
+    loadN: gramsToNewtons(loadG),
+    margin,
+    ok,
+    branches,
+    weakestCord,
   };
   if (ok) return base;
   return { ...base, message: failMessage(base), fixes: fixesFor(base, profile) };
@@ -121,8 +137,10 @@ function failMessage(b: Omit<DriverBudget, 'message' | 'fixes'>): string {
   const shown = b.branches.slice(0, 8).map((x) => `${x.target} ${grams(x.loadG)}`);
   const more = b.branches.length > 8 ? `, … ${b.branches.length - 8} more` : '';
   const cordWord = b.cords.length === 1 ? `cord '${b.cords[0]}'` : `cords ${b.cords.map((c) => `'${c}'`).join(', ')}`;
-  return `${cordWord} (capstan of ${b.driverKind} '${b.driver}') must lift ${grams(b.loadG)} (${shown.join(', ')}${more}) `
-    + `but its capstan holds ${grams(b.availableG)}: margin ${b.margin.toFixed(2)}`;
+  return (
+    `${cordWord} (capstan of ${b.driverKind} '${b.driver}') must lift ${grams(b.loadG)} (${shown.join(', ')}${more}) ` +
+    `but its capstan holds ${grams(b.availableG)}: margin ${b.margin.toFixed(2)}`
+  );
 }
 
 function fixesFor(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile): string[] {
@@ -131,14 +149,18 @@ function fixesFor(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile):
   const heaviest = Math.max(...b.branches.map((x) => x.loadG));
   if (b.branches.length > 1 && heaviest <= budgetG) {
     const each = b.loadG / b.branches.length;
-    fixes.push(`fewer branches: this capstan carries about ${Math.max(1, Math.floor(budgetG / each))} of them at margin ${profile.minMargin}; spread the rest over a buffer tree`);
+    fixes.push(
+      `fewer branches: this capstan carries about ${Math.max(1, Math.floor(budgetG / each))} of them at margin ${profile.minMargin}; spread the rest over a buffer tree`,
+    );
   }
   const neededGain = (profile.minMargin * b.loadG) / b.holdG;
   const quarterTurns = Math.ceil((4 * Math.log(neededGain)) / (profile.mu * 2 * Math.PI));
   if (quarterTurns > 0) fixes.push(`more wraps: ${quarterTurns / 4} turns on the drum (μ = ${profile.mu})`);
   const needG = Math.ceil((profile.minMargin * b.loadG) / (profile.leverRatio * b.gain));
-  fixes.push(b.driverKind === 'lever'
-    ? `a heavier lever pull-up weight: ${needG} g (leverWeightG; the lever gets harder to pull)`
-    : `a heavier Z weight on this gate alone: ${needG} g (a heavier zWeightG for every gate also adds to the load of each port it hangs on)`);
+  fixes.push(
+    b.driverKind === 'lever'
+      ? `a heavier lever pull-up weight: ${needG} g (leverWeightG; the lever gets harder to pull)`
+      : `a heavier Z weight on this gate alone: ${needG} g (a heavier zWeightG for every gate also adds to the load of each port it hangs on)`,
+  );
   return fixes;
 }

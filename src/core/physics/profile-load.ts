@@ -55,7 +55,13 @@ const SCALAR_RULES: Readonly<Record<ScalarKey, NumberRule>> = {
   leverWeightG: mass('a lever pull-up weight must be heavier than nothing'),
   operatorExtraG: { min: 0, unit: 'g', why: 'a friction allowance is 0 or more' },
   wraps: positive('turns', 'a capstan needs some cord on the drum'),
-  mu: { min: 0, exclusiveMin: true, max: 1.5, unit: '', why: 'μ of cord on a drum lies above 0 and well below 1.5 (0.25 is usual)' },
+  mu: {
+    min: 0,
+    exclusiveMin: true,
+    max: 1.5,
+    unit: '',
+    why: 'μ of cord on a drum lies above 0 and well below 1.5 (0.25 is usual)',
+  },
   maxPortsPerGate: { min: 1, integer: true, unit: 'count', why: 'a whole number, at least 1' },
   maxCordsPerPort: { min: 1, integer: true, unit: 'count', why: 'a whole number, at least 1' },
   minMargin: { min: 1, unit: '', why: 'a margin below 1 would accept a capstan that cannot lift its load' },
@@ -64,7 +70,13 @@ const SCALAR_RULES: Readonly<Record<ScalarKey, NumberRule>> = {
   wrapPitchM: positive('m', 'each wrap takes some drum length'),
   cordBranchM: positive('m', 'a cord branch has a length'),
   stageDelayS: positive('s', 'a gate stage takes some time'),
-  stageDelaySpread: { min: 0, max: 1, exclusiveMax: true, unit: '', why: 'a relative spread from 0 up to (not including) 1 keeps every delay positive' },
+  stageDelaySpread: {
+    min: 0,
+    max: 1,
+    exclusiveMax: true,
+    unit: '',
+    why: 'a relative spread from 0 up to (not including) 1 keeps every delay positive',
+  },
 };
 
 /** Every numeric field by its dotted path (`mu`, `routing.muPin`, `cost.gate`). */
@@ -105,14 +117,28 @@ export function loadProfile(value: unknown, where?: string): { profile?: Profile
   const ds: Diagnostic[] = [];
   const loc = (path: string): SourceLoc => (where !== undefined ? { file: where, path } : { path });
   if (!isObject(value)) {
-    ds.push(diag('LW100', 'a technology profile must be a JSON object', loc('$'), 'write { "mu": 0.25, … } with only the fields you change'));
+    ds.push(
+      diag(
+        'LW100',
+        'a technology profile must be a JSON object',
+        loc('$'),
+        'write { "mu": 0.25, … } with only the fields you change',
+      ),
+    );
     return { diagnostics: ds };
   }
   const checkNumber = (path: string, v: unknown, r: NumberRule): number | undefined => {
     const label = path.replace(/^\$\./, '');
     if (typeof v !== 'number' || !fits(v, r)) {
-      const got = typeof v === 'number' ? String(v) : JSON.stringify(v) ?? String(v);
-      ds.push(diag('LW600', `profile field '${label}' must be ${describeRule(r)}${r.unit && r.unit !== 'count' ? ` (${r.unit})` : ''}; got ${got}`, loc(path), r.why));
+      const got = typeof v === 'number' ? String(v) : (JSON.stringify(v) ?? String(v));
+      ds.push(
+        diag(
+          'LW600',
+          `profile field '${label}' must be ${describeRule(r)}${r.unit && r.unit !== 'count' ? ` (${r.unit})` : ''}; got ${got}`,
+          loc(path),
+          r.why,
+        ),
+      );
       return undefined;
     }
     return v;
@@ -120,11 +146,30 @@ export function loadProfile(value: unknown, where?: string): { profile?: Profile
   const unknown = (path: string, key: string, known: readonly string[]): void => {
     const guess = didYouMean(key, known);
     const label = path === '$' ? key : `${path.slice(2)}.${key}`;
-    ds.push(diag('LW601', `profile has no field '${label}'`, loc(`${path}.${key}`), guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`));
+    ds.push(
+      diag(
+        'LW601',
+        `profile has no field '${label}'`,
+        loc(`${path}.${key}`),
+        guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`,
+      ),
+    );
   };
-  const mergeGroup = <T extends object>(path: string, v: unknown, rules: Readonly<Record<string, NumberRule>>, base: T): T => {
+  const mergeGroup = <T extends object>(
+    path: string,
+    v: unknown,
+    rules: Readonly<Record<string, NumberRule>>,
+    base: T,
+  ): T => {
     if (!isObject(v)) {
-      ds.push(diag('LW600', `profile field '${path.slice(2)}' must be an object`, loc(path), `fields: ${Object.keys(rules).join(', ')}`));
+      ds.push(
+        diag(
+          'LW600',
+          `profile field '${path.slice(2)}' must be an object`,
+          loc(path),
+          `fields: ${Object.keys(rules).join(', ')}`,
+        ),
+      );
       return base;
     }
     const out: Record<string, unknown> = { ...(base as Record<string, unknown>) };
@@ -158,7 +203,10 @@ export function loadProfile(value: unknown, where?: string): { profile?: Profile
       }
       // fromEntries keeps a cord named like an Object.prototype key as a plain own field.
       out.cordRouting = Object.fromEntries(
-        Object.entries(v).map(([cord, r]): [string, Partial<RoutingLoss>] => [cord, mergeGroup(`${path}.${cord}`, r, ROUTING_RULES, {})]),
+        Object.entries(v).map(([cord, r]): [string, Partial<RoutingLoss>] => [
+          cord,
+          mergeGroup(`${path}.${cord}`, r, ROUTING_RULES, {}),
+        ]),
       );
     } else if (Object.hasOwn(SCALAR_RULES, k)) {
       const n = checkNumber(path, v, SCALAR_RULES[k as ScalarKey]);
@@ -167,7 +215,9 @@ export function loadProfile(value: unknown, where?: string): { profile?: Profile
       unknown('$', k, knownTop);
     }
   }
-  return ds.some((d) => d.severity === 'error') ? { diagnostics: ds } : { profile: out as unknown as Profile, diagnostics: ds };
+  return ds.some((d) => d.severity === 'error')
+    ? { diagnostics: ds }
+    : { profile: out as unknown as Profile, diagnostics: ds };
 }
 
 /** Dotted paths a `sources` entry may name: every numeric field and `cordRouting`. */
@@ -181,9 +231,23 @@ function checkSources(v: unknown, path: string, ds: Diagnostic[], loc: (p: strin
   for (const [k, s] of Object.entries(v)) {
     if (!SOURCE_KEYS.includes(k)) {
       const guess = didYouMean(k, SOURCE_KEYS);
-      ds.push(diag('LW601', `profile 'sources' names no field '${k}'`, loc(`${path}.${k}`), guess ? `did you mean '${guess}'?` : undefined));
+      ds.push(
+        diag(
+          'LW601',
+          `profile 'sources' names no field '${k}'`,
+          loc(`${path}.${k}`),
+          guess ? `did you mean '${guess}'?` : undefined,
+        ),
+      );
     } else if (typeof s !== 'string' || s.trim() === '') {
-      ds.push(diag('LW600', `profile 'sources.${k}' must be a non-empty string`, loc(`${path}.${k}`), 'a named source, "common practice" or "estimate"'));
+      ds.push(
+        diag(
+          'LW600',
+          `profile 'sources.${k}' must be a non-empty string`,
+          loc(`${path}.${k}`),
+          'a named source, "common practice" or "estimate"',
+        ),
+      );
     }
   }
 }

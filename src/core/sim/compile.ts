@@ -149,10 +149,14 @@ export function compilePart(build: Build, timing: PartTiming): PartSim {
   const outputs = build.machine.outputs.map((o): OutputReader => {
     const id = sig.outputs[o];
     const part = id === undefined ? undefined : byId.get(id);
-    if ((part?.kind === 'flag' || part?.kind === 'actuator') && part.fixed !== undefined) return { kind: 'fixed', value: part.fixed };
-    if (part?.kind === 'flag') return { kind: 'flag', gate: need(part.gate, `gate of flag ${part.name}`), inverted: part.inverted };
+    if ((part?.kind === 'flag' || part?.kind === 'actuator') && part.fixed !== undefined)
+      return { kind: 'fixed', value: part.fixed };
+    if (part?.kind === 'flag')
+      return { kind: 'flag', gate: need(part.gate, `gate of flag ${part.name}`), inverted: part.inverted };
     if (part?.kind === 'actuator') {
-      const ds = net.cords.filter((c) => c.actuators.includes(part.id)).map((c) => need(c.driver, `driver of actuator ${part.name}`));
+      const ds = net.cords
+        .filter((c) => c.actuators.includes(part.id))
+        .map((c) => need(c.driver, `driver of actuator ${part.name}`));
       return { kind: 'actuator', drivers: Int32Array.from(ds) };
     }
     throw new Error(`netlist: output '${o}' has no flag or actuator`);

@@ -12,7 +12,14 @@
 import type { Build } from '../model/build.js';
 import { DEFAULT_PROFILE, type Profile } from '../physics/profile.js';
 import { compilePart, X, type PartSim, type PartTiming, type Trit } from './compile.js';
-import { describeAction, ruleBroken, RULE_WORDS, type HandAction, type InputValues, type OperatingRule } from './hand.js';
+import {
+  describeAction,
+  ruleBroken,
+  RULE_WORDS,
+  type HandAction,
+  type InputValues,
+  type OperatingRule,
+} from './hand.js';
 import { evalGate, settle, show, type PartEvent, type PartEventKind } from './settle.js';
 
 export { X, compilePart, type PartSim, type PartTiming, type Trit } from './compile.js';
@@ -52,7 +59,12 @@ export function timingOf(profile: Pick<Profile, 'stageDelayS'>, delays?: Readonl
 }
 
 /** One hand action on the machine: the pure step. */
-export function stepPart(build: Build, state: PartState, action: HandAction, opts: StepOptions = {}): [PartState, PartEvent[]] {
+export function stepPart(
+  build: Build,
+  state: PartState,
+  action: HandAction,
+  opts: StepOptions = {},
+): [PartState, PartEvent[]] {
   return stepSim(simFor(build, opts.timing ?? timingOf(DEFAULT_PROFILE)), state, action, opts.trace ?? false);
 }
 
@@ -82,17 +94,42 @@ const RULE_KIND: Readonly<Record<OperatingRule, PartEventKind>> = {
 };
 
 /** Apply an action to `values` in place; returns the settled time. Alarms go to `events`. */
-export function applyInPlace(sim: PartSim, values: Uint8Array, timeUs: number, a: HandAction, events: PartEvent[], trace = false): number {
+export function applyInPlace(
+  sim: PartSim,
+  values: Uint8Array,
+  timeUs: number,
+  a: HandAction,
+  events: PartEvent[],
+  trace = false,
+): number {
   const [d, v] = leverOf(sim, a);
   if (d < 0 || values[d] === v) return timeUs;
-  const rule = ruleBroken(a, { phi1: values[sim.phi1] === 1, phi2: values[sim.phi2] === 1, reset: values[sim.reset] === 1 });
-  if (rule) events.push({ kind: RULE_KIND[rule], timeS: timeUs / 1e6, rule, parts: [sim.names[d]], words: `operating rule broken (${RULE_WORDS[rule]}): ${describeAction(a)}` });
+  const rule = ruleBroken(a, {
+    phi1: values[sim.phi1] === 1,
+    phi2: values[sim.phi2] === 1,
+    reset: values[sim.reset] === 1,
+  });
+  if (rule)
+    events.push({
+      kind: RULE_KIND[rule],
+      timeS: timeUs / 1e6,
+      rule,
+      parts: [sim.names[d]],
+      words: `operating rule broken (${RULE_WORDS[rule]}): ${describeAction(a)}`,
+    });
   values[d] = v;
   return settle(sim, values, timeUs, [d], events, trace);
 }
 
 /** Set several levers at once (used by the exhaustive checks; the hand sets them one by one). */
-export function setLeversInPlace(sim: PartSim, values: Uint8Array, timeUs: number, levers: readonly number[], to: readonly (0 | 1)[], events: PartEvent[]): number {
+export function setLeversInPlace(
+  sim: PartSim,
+  values: Uint8Array,
+  timeUs: number,
+  levers: readonly number[],
+  to: readonly (0 | 1)[],
+  events: PartEvent[],
+): number {
   const moved: number[] = [];
   levers.forEach((d, i) => {
     if (values[d] !== to[i]) {
@@ -201,7 +238,13 @@ export interface PartReading {
   readonly phi2: boolean;
   readonly reset: boolean;
   readonly outputs: Readonly<Record<string, string>>;
-  readonly latches: readonly { readonly name: string; readonly role: 'master' | 'slave'; readonly bit: number; readonly q: string; readonly qBar: string }[];
+  readonly latches: readonly {
+    readonly name: string;
+    readonly role: 'master' | 'slave';
+    readonly bit: number;
+    readonly q: string;
+    readonly qBar: string;
+  }[];
   readonly timeS: number;
 }
 
@@ -225,7 +268,13 @@ export function readPart(sim: PartSim, state: PartState): PartReading {
     phi2: v[sim.phi2] === 1,
     reset: v[sim.reset] === 1,
     outputs,
-    latches: sim.latches.map((l) => ({ name: l.name, role: l.role, bit: l.bit, q: show(v[l.set]), qBar: show(v[l.reset]) })),
+    latches: sim.latches.map((l) => ({
+      name: l.name,
+      role: l.role,
+      bit: l.bit,
+      q: show(v[l.set]),
+      qBar: show(v[l.reset]),
+    })),
     timeS: state.timeUs / 1e6,
   };
 }

@@ -19,7 +19,12 @@ function randomPartition(rng: Random, inputs: number): string[] {
     if (free.length === 0) break;
     const v = free[rng.int(free.length)];
     const c = cubes[i];
-    cubes = [...cubes.slice(0, i), c.slice(0, v) + '0' + c.slice(v + 1), c.slice(0, v) + '1' + c.slice(v + 1), ...cubes.slice(i + 1)];
+    cubes = [
+      ...cubes.slice(0, i),
+      c.slice(0, v) + '0' + c.slice(v + 1),
+      c.slice(0, v) + '1' + c.slice(v + 1),
+      ...cubes.slice(i + 1),
+    ];
   }
   return cubes;
 }

@@ -4,7 +4,18 @@
  */
 import type { Build } from '../model/build.js';
 import { clockActions, describeAction, resetActions, type HandAction, type InputValues } from './hand.js';
-import { isAlarm, powerUp, readPart, simFor, stepSim, type PartEvent, type PartReading, type PartSim, type PartState, type PartTiming } from './part.js';
+import {
+  isAlarm,
+  powerUp,
+  readPart,
+  simFor,
+  stepSim,
+  type PartEvent,
+  type PartReading,
+  type PartSim,
+  type PartState,
+  type PartTiming,
+} from './part.js';
 
 /** What one clock did: the outputs shown while its inputs were held (before φ1), and the code before and after. */
 export interface ClockRecord {

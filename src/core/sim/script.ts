@@ -43,16 +43,40 @@ export interface StepRow {
 export function validateSequence(build: Build, seq: unknown, file?: string): Diagnostic[] {
   const inputs = build.machine.inputs;
   const at = (path: string): { file?: string; path: string } => (file === undefined ? { path } : { file, path });
-  if (!Array.isArray(seq)) return [diag('LW103', 'the input sequence must be a JSON array with one object per clock', at('$'), 'write [{"coin": 1}, {}, …]')];
+  if (!Array.isArray(seq))
+    return [
+      diag(
+        'LW103',
+        'the input sequence must be a JSON array with one object per clock',
+        at('$'),
+        'write [{"coin": 1}, {}, …]',
+      ),
+    ];
   const out: Diagnostic[] = [];
   seq.forEach((row: unknown, i) => {
     if (typeof row !== 'object' || row === null || Array.isArray(row)) {
-      out.push(diag('LW103', `clock ${i + 1} of the input sequence is not an object of input settings`, at(`$[${i}]`), 'write {"input": 1, …}'));
+      out.push(
+        diag(
+          'LW103',
+          `clock ${i + 1} of the input sequence is not an object of input settings`,
+          at(`$[${i}]`),
+          'write {"input": 1, …}',
+        ),
+      );
       return;
     }
     for (const [k, v] of Object.entries(row)) {
-      if (!inputs.includes(k)) out.push(diag('LW208', `clock ${i + 1} sets '${k}', which is not an input of ${build.machine.name}`, at(`$[${i}].${k}`), `inputs: ${inputs.join(', ') || '(none)'}`));
-      else if (v !== 0 && v !== 1) out.push(diag('LW103', `clock ${i + 1} sets '${k}' to ${JSON.stringify(v)}; use 0 or 1`, at(`$[${i}].${k}`)));
+      if (!inputs.includes(k))
+        out.push(
+          diag(
+            'LW208',
+            `clock ${i + 1} sets '${k}', which is not an input of ${build.machine.name}`,
+            at(`$[${i}].${k}`),
+            `inputs: ${inputs.join(', ') || '(none)'}`,
+          ),
+        );
+      else if (v !== 0 && v !== 1)
+        out.push(diag('LW103', `clock ${i + 1} sets '${k}' to ${JSON.stringify(v)}; use 0 or 1`, at(`$[${i}].${k}`)));
     }
   });
   return out;
@@ -79,7 +103,11 @@ export function runPartScript(build: Build, seq: SeqArray, timing: PartTiming): 
       outputs: Object.fromEntries(Object.entries(r.outputs).map(([o, v]) => [o, shown(v)])),
       next: r.after.state,
       nextCode: r.after.code,
-      alarms: [...(i === 0 ? resetAlarms : []), ...neverWords(build, assignmentOf(inputs, values)), ...r.alarms.map((e) => e.words)],
+      alarms: [
+        ...(i === 0 ? resetAlarms : []),
+        ...neverWords(build, assignmentOf(inputs, values)),
+        ...r.alarms.map((e) => e.words),
+      ],
     };
   });
 }

@@ -176,7 +176,14 @@ export function changeBound(sim: PartSim): number {
  * (levers, or any gate for a fresh start). Alarms (and, with `trace`, every change) are
  * appended to `events`. Returns the time of the last change in microseconds.
  */
-export function settle(sim: PartSim, values: Uint8Array, timeUs: number, moved: readonly number[], events: PartEvent[], trace = false): number {
+export function settle(
+  sim: PartSim,
+  values: Uint8Array,
+  timeUs: number,
+  moved: readonly number[],
+  events: PartEvent[],
+  trace = false,
+): number {
   const s = scratchOf(sim);
   const { fanStart, fanout, latchOf, leverCount } = sim;
   const { pendVal, pendTime, stamp, changed, newVal } = s;
@@ -227,7 +234,14 @@ export function settle(sim: PartSim, values: Uint8Array, timeUs: number, moved: 
         wentX = true;
       }
       values[g] = newVal[i];
-      if (trace) events.push({ kind: 'change', timeS: t / 1e6, words: `${sim.names[g]} → ${show(newVal[i])}`, parts: [sim.names[g]], value: newVal[i] as Trit });
+      if (trace)
+        events.push({
+          kind: 'change',
+          timeS: t / 1e6,
+          words: `${sim.names[g]} → ${show(newVal[i])}`,
+          parts: [sim.names[g]],
+          value: newVal[i] as Trit,
+        });
     }
     changes += n;
     epoch = ++s.epoch;
@@ -253,8 +267,16 @@ export function settle(sim: PartSim, values: Uint8Array, timeUs: number, moved: 
   if (wentX) {
     sim.latches.forEach((l, li) => {
       if (s.wentXIn[li] !== call || (values[l.set] !== UNKNOWN && values[l.reset] !== UNKNOWN)) return;
-      const why = s.racedIn[li] === call ? 'both its inputs were released together from the forbidden input' : 'it oscillates or reads an undetermined input';
-      events.push({ kind: 'latch-x', timeS: t / 1e6, latch: l.name, words: `${latchLabel(l.name)} is left undetermined (X): ${why}` });
+      const why =
+        s.racedIn[li] === call
+          ? 'both its inputs were released together from the forbidden input'
+          : 'it oscillates or reads an undetermined input';
+      events.push({
+        kind: 'latch-x',
+        timeS: t / 1e6,
+        latch: l.name,
+        words: `${latchLabel(l.name)} is left undetermined (X): ${why}`,
+      });
     });
   }
   return t;
@@ -289,7 +311,15 @@ function raceToX(sim: PartSim, s: Scratch, n: number, call: number): void {
   }
 }
 
-function checkForbidden(sim: PartSim, s: Scratch, values: Uint8Array, changed: ArrayLike<number>, n: number, t: number, events: PartEvent[]): void {
+function checkForbidden(
+  sim: PartSim,
+  s: Scratch,
+  values: Uint8Array,
+  changed: ArrayLike<number>,
+  n: number,
+  t: number,
+  events: PartEvent[],
+): void {
   const { watchStart, watch } = sim;
   for (let i = 0; i < n; i++) {
     const d = changed[i];
@@ -299,7 +329,12 @@ function checkForbidden(sim: PartSim, s: Scratch, values: Uint8Array, changed: A
       const l = sim.latches[li];
       if (andOf(values, l.sBar) === 0 && andOf(values, l.rBar) === 0) {
         s.reportedIn[li] = s.call;
-        events.push({ kind: 'forbidden-input', timeS: t / 1e6, latch: l.name, words: `${latchLabel(l.name)} sees the forbidden input: S̄ and R̄ are pulled at once` });
+        events.push({
+          kind: 'forbidden-input',
+          timeS: t / 1e6,
+          latch: l.name,
+          words: `${latchLabel(l.name)} sees the forbidden input: S̄ and R̄ are pulled at once`,
+        });
       }
     }
   }
@@ -317,7 +352,7 @@ function oscillate(sim: PartSim, s: Scratch, values: Uint8Array, t: number, even
     }
   }
   s.size = 0;
-  for (let again = true; again; ) {
+  for (let again = true; again;) {
     again = false;
     for (let g = sim.leverCount; g < sim.driverCount; g++) {
       if (values[g] !== UNKNOWN && evalGate(sim, values, g) !== values[g]) {
@@ -341,7 +376,12 @@ function oscillate(sim: PartSim, s: Scratch, values: Uint8Array, t: number, even
   });
   const names = switching.map((g) => sim.names[g]);
   const shown = names.slice(0, 6).join(', ') + (names.length > 6 ? ` and ${names.length - 6} more` : '');
-  events.push({ kind: 'oscillation', timeS: t / 1e6, parts: names, words: `the machine does not settle: ${shown} keep switching (left X)` });
+  events.push({
+    kind: 'oscillation',
+    timeS: t / 1e6,
+    parts: names,
+    words: `the machine does not settle: ${shown} keep switching (left X)`,
+  });
 }
 
 /** "latch M0" for a bare name; a name that already says latch is kept as it is. */

@@ -29,7 +29,15 @@ export function driveSnapshots(build: Build, profile: Pick<Profile, 'stageDelayS
   const sim = simFor(build, timingOf(profile));
   const f = build.machine;
   const n = f.inputs.length;
-  const all = n <= EXHAUSTIVE_INPUTS ? grayAssignments(n) : sampledAssignments(f.rows.flatMap((rs) => rs.map((r) => r.cube)), n, 64, seededRandom(seed));
+  const all =
+    n <= EXHAUSTIVE_INPUTS
+      ? grayAssignments(n)
+      : sampledAssignments(
+          f.rows.flatMap((rs) => rs.map((r) => r.cube)),
+          n,
+          64,
+          seededRandom(seed),
+        );
   const assignments = all.filter((a) => !coverHolds(f.never, a));
   const out: DriveSnapshot[] = [];
   const phases = build.encoding.bits === 0 ? PHASES.slice(0, 1) : PHASES;

@@ -20,21 +20,37 @@ const FORM_WORDS = { json: 'the JSON form', xstate: 'an xstate configuration' } 
 export function openedText(text: string, file: string): Opened {
   const r = readMachine(text, file);
   if (r.form === 'text') return { ok: true, text, file };
-  if (!r.machine || hasErrors(r.diagnostics)) return { ok: false, problems: r.diagnostics.filter((d) => d.severity === 'error').map(formatDiagnostic) };
+  if (!r.machine || hasErrors(r.diagnostics))
+    return { ok: false, problems: r.diagnostics.filter((d) => d.severity === 'error').map(formatDiagnostic) };
   const lw = file.replace(/\.[A-Za-z0-9]+$/, '') + '.lw';
-  return { ok: true, text: printTextMachine(r.machine), file: lw, note: `Read ${file} (${FORM_WORDS[r.form]}); the bench holds it in the text form.` };
+  return {
+    ok: true,
+    text: printTextMachine(r.machine),
+    file: lw,
+    note: `Read ${file} (${FORM_WORDS[r.form]}); the bench holds it in the text form.`,
+  };
 }
 
 export type SaveForm = 'text' | 'json' | 'xstate';
 
 /** The machine in a form for saving, or the problems that stop it (JSON and xstate need a machine that reads). */
-export function savedText(text: string, file: string, form: SaveForm): { name: string; mime: string; text: string } | { problems: string[] } {
+export function savedText(
+  text: string,
+  file: string,
+  form: SaveForm,
+): { name: string; mime: string; text: string } | { problems: string[] } {
   const base = file.replace(/\.[A-Za-z0-9]+$/, '') || 'machine';
   if (form === 'text') return { name: `${base}.lw`, mime: 'text/plain', text };
   const r = readMachine(text, file);
-  if (!r.machine || hasErrors(r.diagnostics)) return { problems: ['The machine has problems; fix them on the bench before saving in another form.'] };
+  if (!r.machine || hasErrors(r.diagnostics))
+    return { problems: ['The machine has problems; fix them on the bench before saving in another form.'] };
   const machine = r.machine;
-  if (form === 'json') return { name: `${base}.json`, mime: 'application/json', text: JSON.stringify(machineToJson(machine), null, 2) + '\n' };
+  if (form === 'json')
+    return {
+      name: `${base}.json`,
+      mime: 'application/json',
+      text: JSON.stringify(machineToJson(machine), null, 2) + '\n',
+    };
   const x = exportXstate(machine);
   return { name: `${base}.xstate.json`, mime: 'application/json', text: JSON.stringify(x.config, null, 2) + '\n' };
 }

@@ -199,6 +199,7 @@ export class SourceController implements ReactiveController {
 
   private readonly onHash = (): void => {
     const linked = machineFromHash(location.hash);
-    if (linked !== undefined && linked !== this.text) this.replace(linked, 'shared.lw', Origin.link, 'Opened the machine carried by the link.');
+    if (linked !== undefined && linked !== this.text)
+      this.replace(linked, 'shared.lw', Origin.link, 'Opened the machine carried by the link.');
   };
 }

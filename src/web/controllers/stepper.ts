@@ -76,7 +76,9 @@ export class StepperController implements ReactiveController {
     const r = this.runner?.reading();
     if (!r) return;
     const pulled = lever === 'phi1' ? r.phi1 : r.phi2;
-    this.run(`${pulled ? 'release' : 'pull'} ${lever === 'phi1' ? 'φ1' : 'φ2'}`, [{ kind: pulled ? 'release' : 'pull', lever }]);
+    this.run(`${pulled ? 'release' : 'pull'} ${lever === 'phi1' ? 'φ1' : 'φ2'}`, [
+      { kind: pulled ? 'release' : 'pull', lever },
+    ]);
   }
 
   /** A whole clock with the input levers where they are: pull φ1, release, pull φ2, release. */
@@ -163,8 +165,13 @@ export class StepperController implements ReactiveController {
     for (const a of actions) {
       const events = r.act(a);
       const reading = r.reading();
-      for (const e of events) this.alarms.push({ step, kind: e.kind, words: e.words, ...(e.latch ? { latch: e.latch } : {}) });
-      this.samples.push({ action: describe(a), clock: this.clocks + (clocked && a === actions[actions.length - 1] ? 1 : 0), reading });
+      for (const e of events)
+        this.alarms.push({ step, kind: e.kind, words: e.words, ...(e.latch ? { latch: e.latch } : {}) });
+      this.samples.push({
+        action: describe(a),
+        clock: this.clocks + (clocked && a === actions[actions.length - 1] ? 1 : 0),
+        reading,
+      });
     }
     if (clocked) this.clocks++;
     this.steps.push({ label, acts: actions.length, clocked });

@@ -9,16 +9,39 @@
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import type { Diagnostic } from '../../core/model/diagnostics.js';
-import type { BuildSettings, BuildView, ChecksView, CodeRow, EncodingChoice, ExportFile, FromWorker, Reading } from '../worker/protocol.js';
+import type {
+  BuildSettings,
+  BuildView,
+  ChecksView,
+  CodeRow,
+  EncodingChoice,
+  ExportFile,
+  FromWorker,
+  Reading,
+} from '../worker/protocol.js';
 import { keepGet, keepSet } from './keep.js';
 import { Lane } from './lane.js';
 
 /** Where the live work on the latest text stands. */
-export const Work = { reading: 'reading', building: 'building', checking: 'checking', done: 'done', refused: 'refused', stopped: 'stopped', failed: 'failed' } as const;
+export const Work = {
+  reading: 'reading',
+  building: 'building',
+  checking: 'checking',
+  done: 'done',
+  refused: 'refused',
+  stopped: 'stopped',
+  failed: 'failed',
+} as const;
 export type Work = (typeof Work)[keyof typeof Work];
 
 /** Where the encoding comparison stands. */
-export const Search = { none: 'none', running: 'running', done: 'done', cancelled: 'cancelled', failed: 'failed' } as const;
+export const Search = {
+  none: 'none',
+  running: 'running',
+  done: 'done',
+  cancelled: 'cancelled',
+  failed: 'failed',
+} as const;
 export type Search = (typeof Search)[keyof typeof Search];
 
 export interface SearchProgress {
@@ -68,7 +91,11 @@ export class SynthesisController implements ReactiveController {
   ) {
     host.addController(this);
     const kept = keepGet('encoding');
-    this.settings = { encoding: kept ? (JSON.parse(kept) as EncodingChoice) : { strategy: 'binary' }, seed: 1, unusedCodes: 'dont-care' };
+    this.settings = {
+      encoding: kept ? (JSON.parse(kept) as EncodingChoice) : { strategy: 'binary' },
+      seed: 1,
+      unusedCodes: 'dont-care',
+    };
   }
 
   hostConnected(): void {
@@ -193,7 +220,13 @@ export class SynthesisController implements ReactiveController {
         // The checker's current work, if any, is for an older build.
         if (!this.checker.idle) this.checker.restart();
         // The checker builds again with the codes the builder chose, so a code search is not repeated.
-        this.checker.send({ kind: 'check', rev: m.rev, text: this.text, file: this.file, settings: { ...this.settings, encoding: { kept: m.view.build.encoding } } });
+        this.checker.send({
+          kind: 'check',
+          rev: m.rev,
+          text: this.text,
+          file: this.file,
+          settings: { ...this.settings, encoding: { kept: m.view.build.encoding } },
+        });
         break;
       case 'unbuilt':
         this.buildProblems = m.diagnostics;

@@ -51,7 +51,10 @@ export function addTransition(text: string, s: State, to: string, guard = ''): T
   if (lines.length === 0) return undefined;
   const last = Math.max(...lines);
   const starts = lineStarts(text);
-  const end = last < starts.length ? starts[last] - (text[starts[last] - 2] === '\r' && text[starts[last] - 1] === '\n' ? 2 : 1) : text.length;
+  const end =
+    last < starts.length
+      ? starts[last] - (text[starts[last] - 2] === '\r' && text[starts[last] - 1] === '\n' ? 2 : 1)
+      : text.length;
   const g = guard.trim();
   return { from: end, to: end, insert: `\n  ${g && g !== '1' ? `when ${g} ` : ''}go ${to}` };
 }

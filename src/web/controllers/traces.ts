@@ -16,7 +16,11 @@ export function tracesOf(samples: readonly Sample[]): Trace[] {
   if (samples.length === 0) return [];
   const r0 = samples[0].reading;
   const bits = r0.code.length;
-  const t = (name: string, group: Trace['group'], f: (s: Sample) => string): Trace => ({ name, group, values: samples.map(f) });
+  const t = (name: string, group: Trace['group'], f: (s: Sample) => string): Trace => ({
+    name,
+    group,
+    values: samples.map(f),
+  });
   return [
     ...Object.keys(r0.inputs).map((n) => t(n, 'input', (s) => String(s.reading.inputs[n] ?? 0))),
     t('φ1', 'clock', (s) => (s.reading.phi1 ? '1' : '0')),

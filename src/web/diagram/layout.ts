@@ -85,7 +85,16 @@ interface Placed {
   readonly width: number;
   readonly height: number;
   readonly nodes: ReadonlyMap<string, Point>;
-  readonly edges: ReadonlyMap<string, { readonly points: readonly Point[]; readonly x: number; readonly y: number; readonly width: number; readonly height: number }>;
+  readonly edges: ReadonlyMap<
+    string,
+    {
+      readonly points: readonly Point[];
+      readonly x: number;
+      readonly y: number;
+      readonly width: number;
+      readonly height: number;
+    }
+  >;
 }
 
 /** Recent layouts by the sizes and connections they were made for (most recent last). */
@@ -96,7 +105,10 @@ type Linked = { readonly from: string; readonly to: string; readonly width: numb
 
 /** Positions for boxes of these sizes and edges with labels of these sizes. */
 function place(nodes: readonly Sized[], edges: readonly Linked[]): Placed {
-  const key = JSON.stringify([nodes.map((n) => [n.id, n.width, n.height]), edges.map((e) => [e.from, e.to, e.width, e.height])]);
+  const key = JSON.stringify([
+    nodes.map((n) => [n.id, n.width, n.height]),
+    edges.map((e) => [e.from, e.to, e.width, e.height]),
+  ]);
   const hit = placedCache.get(key);
   if (hit) {
     placedCache.delete(key);
@@ -104,7 +116,15 @@ function place(nodes: readonly Sized[], edges: readonly Linked[]): Placed {
     return hit;
   }
   const g = new dagre.graphlib.Graph({ multigraph: false });
-  g.setGraph({ rankdir: 'LR', nodesep: 28, ranksep: 56, edgesep: 14, marginx: 16, marginy: 16, ranker: nodes.length > SIMPLEX_STATES ? 'tight-tree' : 'network-simplex' });
+  g.setGraph({
+    rankdir: 'LR',
+    nodesep: 28,
+    ranksep: 56,
+    edgesep: 14,
+    marginx: 16,
+    marginy: 16,
+    ranker: nodes.length > SIMPLEX_STATES ? 'tight-tree' : 'network-simplex',
+  });
   g.setDefaultEdgeLabel(() => ({}));
   for (const n of nodes) g.setNode(n.id, { width: n.width, height: n.height });
   for (const e of edges) g.setEdge(e.from, e.to, { width: e.width, height: e.height, labelpos: 'c' });
@@ -112,14 +132,21 @@ function place(nodes: readonly Sized[], edges: readonly Linked[]): Placed {
   const placed: Placed = {
     width: (g.graph() as { width?: number }).width ?? 0,
     height: (g.graph() as { height?: number }).height ?? 0,
-    nodes: new Map(nodes.map((n) => {
-      const p = g.node(n.id) as Point;
-      return [n.id, { x: p.x, y: p.y }];
-    })),
-    edges: new Map(edges.map((e) => {
-      const l = g.edge(e.from, e.to) as { points: Point[]; x: number; y: number; width: number; height: number };
-      return [`${e.from}\u0000${e.to}`, { points: l.points.map((p) => ({ x: p.x, y: p.y })), x: l.x, y: l.y, width: l.width, height: l.height }];
-    })),
+    nodes: new Map(
+      nodes.map((n) => {
+        const p = g.node(n.id) as Point;
+        return [n.id, { x: p.x, y: p.y }];
+      }),
+    ),
+    edges: new Map(
+      edges.map((e) => {
+        const l = g.edge(e.from, e.to) as { points: Point[]; x: number; y: number; width: number; height: number };
+        return [
+          `${e.from}\u0000${e.to}`,
+          { points: l.points.map((p) => ({ x: p.x, y: p.y })), x: l.x, y: l.y, width: l.width, height: l.height },
+        ];
+      }),
+    ),
   };
   placedCache.set(key, placed);
   if (placedCache.size > CACHE_SIZE) placedCache.delete(placedCache.keys().next().value as string);
@@ -127,7 +154,11 @@ function place(nodes: readonly Sized[], edges: readonly Linked[]): Placed {
 }
 
 /** Lay out the machine; `merged` and `unreachable` come from state minimisation. */
-export function layoutDiagram(m: Machine, merged: Readonly<Record<string, string>> = {}, unreachable: readonly string[] = []): DiagramLayout {
+export function layoutDiagram(
+  m: Machine,
+  merged: Readonly<Record<string, string>> = {},
+  unreachable: readonly string[] = [],
+): DiagramLayout {
   const names = new Set(m.states.map((s) => s.name));
   const infos = m.states.map((s): Omit<LaidNode, 'x' | 'y'> => {
     const outs = outputWords(s.outputs, m.outputs);
@@ -143,7 +174,10 @@ export function layoutDiagram(m: Machine, merged: Readonly<Record<string, string
       ...(s.loc?.line !== undefined ? { line: s.loc.line } : {}),
     };
   });
-  const edgeLines = new Map<string, { from: string; to: string; lines: string[]; sourceLines: (number | undefined)[] }>();
+  const edgeLines = new Map<
+    string,
+    { from: string; to: string; lines: string[]; sourceLines: (number | undefined)[] }
+  >();
   for (const s of m.states) {
     s.transitions.forEach((t, i) => {
       if (!names.has(t.to)) return;
@@ -165,7 +199,14 @@ export function layoutDiagram(m: Machine, merged: Readonly<Record<string, string
   const edges: LaidEdge[] = [...edgeLines.entries()].map(([key, e]) => {
     const l = placed.edges.get(key);
     if (!l) throw new Error(`no layout for the edge ${e.from} → ${e.to}`);
-    return { from: e.from, to: e.to, points: l.points, label: { x: l.x, y: l.y, width: l.width, height: l.height }, lines: e.lines, sourceLines: e.sourceLines };
+    return {
+      from: e.from,
+      to: e.to,
+      points: l.points,
+      label: { x: l.x, y: l.y, width: l.width, height: l.height },
+      lines: e.lines,
+      sourceLines: e.sourceLines,
+    };
   });
   return { width: placed.width, height: placed.height, nodes, edges };
 }

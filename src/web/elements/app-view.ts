@@ -50,7 +50,12 @@ export function statusWords(s: SynthesisController): { words: string; tone: 'bus
     case Work.reading:
       return { words: `Reading…${searching}`, tone: 'busy' };
     case Work.building:
-      return { words: p ? `Searching codes: ${p.done}${p.total !== null ? ` of ${p.total}` : ''} priced, best cost ${p.best}` : `Building…${searching}`, tone: 'busy' };
+      return {
+        words: p
+          ? `Searching codes: ${p.done}${p.total !== null ? ` of ${p.total}` : ''} priced, best cost ${p.best}`
+          : `Building…${searching}`,
+        tone: 'busy',
+      };
     case Work.stopped:
       return { words: 'Code search stopped; the views show the last build', tone: 'bad' };
     case Work.checking:
@@ -61,7 +66,9 @@ export function statusWords(s: SynthesisController): { words: string; tone: 'bus
       return { words: `Internal fault: ${s.fault ?? 'unknown'}`, tone: 'bad' };
     case Work.done: {
       const failing = s.checks?.checks.filter((c) => !c.ok).length ?? 0;
-      return failing === 0 ? { words: `Built · every check passes${searching}`, tone: 'ok' } : { words: `Built · ${failing} check${failing === 1 ? '' : 's'} failing${searching}`, tone: 'bad' };
+      return failing === 0
+        ? { words: `Built · every check passes${searching}`, tone: 'ok' }
+        : { words: `Built · ${failing} check${failing === 1 ? '' : 's'} failing${searching}`, tone: 'bad' };
     }
   }
 }

@@ -37,9 +37,12 @@ export class LwApp extends LitElement {
   private readonly synth = new SynthesisController(this, (v) => this.stepper.follow(v.build, v.profile));
   private readonly source = new SourceController(this, (text, file) => this.synth.submit(text, file));
   // Derived values keep their identity while their inputs do, so elements redraw only on change.
-  private readonly problems = remember((a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[]): readonly Diagnostic[] => [...(a ?? []), ...b]);
-  private readonly warnings = remember((a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[] | undefined): readonly Diagnostic[] =>
-    [...(a ?? []), ...(b ?? [])].filter((d) => d.severity === 'warning'),
+  private readonly problems = remember(
+    (a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[]): readonly Diagnostic[] => [...(a ?? []), ...b],
+  );
+  private readonly warnings = remember(
+    (a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[] | undefined): readonly Diagnostic[] =>
+      [...(a ?? []), ...(b ?? [])].filter((d) => d.severity === 'warning'),
   );
   private readonly codes = remember(codesByState);
   private readonly lit = remember(litStates);
@@ -61,13 +64,25 @@ export class LwApp extends LitElement {
     const diagnostics = this.problems(reading?.diagnostics, s.buildProblems);
     const status = statusWords(s);
     return html`<header>
-        <h1><span class="mark" aria-hidden="true"></span>Latchwright <span class="soft">lever machine designer</span></h1>
+        <h1>
+          <span class="mark" aria-hidden="true"></span>Latchwright <span class="soft">lever machine designer</span>
+        </h1>
         <span class="machine">${s.good?.machine?.name ?? ''}</span>
         <span class="status ${status.tone}" role="status" data-work=${s.work}>${status.words}</span>
         ${s.buildProgress && s.work === Work.building ? html`<button @click=${() => s.stopBuild()} aria-label="Stop the code search of this build">Stop search</button>` : nothing}
-        <button class="theme" @click=${() => this.theme.next()} aria-label=${`Colour theme: ${this.theme.theme}. Change it`}>${
-          this.theme.theme === 'system' ? 'Theme: system' : this.theme.theme === 'light' ? 'Theme: light' : 'Theme: dark'
-        }</button>
+        <button
+          class="theme"
+          @click=${() => this.theme.next()}
+          aria-label=${`Colour theme: ${this.theme.theme}. Change it`}
+        >
+          ${
+            this.theme.theme === 'system'
+              ? 'Theme: system'
+              : this.theme.theme === 'light'
+                ? 'Theme: light'
+                : 'Theme: dark'
+          }
+        </button>
       </header>
       <main>
         <section class="bench" aria-label="Bench: the machine's text">
@@ -93,12 +108,22 @@ export class LwApp extends LitElement {
         <section class="views" aria-label="Views">
           <div role="tablist" aria-label="Views of the machine" @keydown=${this.onTabKey}>
             ${VIEWS.map(
-              (v) => html`<button role="tab" id=${`tab-${v.id}`} aria-selected=${v.id === this.view ? 'true' : 'false'} aria-controls="view" tabindex=${v.id === this.view ? 0 : -1} @click=${() => this.show(v.id)}>
-                ${v.label}
-              </button>`,
+              (v) =>
+                html`<button
+                  role="tab"
+                  id=${`tab-${v.id}`}
+                  aria-selected=${v.id === this.view ? 'true' : 'false'}
+                  aria-controls="view"
+                  tabindex=${v.id === this.view ? 0 : -1}
+                  @click=${() => this.show(v.id)}
+                >
+                  ${v.label}
+                </button>`,
             )}
           </div>
-          <div id="view" role="tabpanel" aria-labelledby=${`tab-${this.view}`} class=${`view-${this.view}`}>${this.viewBody()}</div>
+          <div id="view" role="tabpanel" aria-labelledby=${`tab-${this.view}`} class=${`view-${this.view}`}>
+            ${this.viewBody()}
+          </div>
         </section>
       </main>`;
   }
@@ -106,7 +131,12 @@ export class LwApp extends LitElement {
   protected override updated(): void {
     // Revisions on the host, for the browser tests and the benchmark to wait on.
     const s = this.synth;
-    Object.assign(this.dataset, { job: String(s.job), read: String(s.shown.reading), built: String(s.shown.built), checked: String(s.shown.checks) });
+    Object.assign(this.dataset, {
+      job: String(s.job),
+      read: String(s.shown.reading),
+      built: String(s.shown.built),
+      checked: String(s.shown.checks),
+    });
     // The schematic is drawn only when someone looks at it.
     if (this.view === 'parts') s.drawSchematic();
   }
@@ -118,57 +148,68 @@ export class LwApp extends LitElement {
     const r = s.good;
     const b = s.built;
     const codes = this.codes(r, b);
-    const note = stale && r ? html`<p class="stale" role="note">Showing the last version that read without errors; fix the problems on the bench to update.</p>` : nothing;
+    const note =
+      stale && r
+        ? html`<p class="stale" role="note">
+            Showing the last version that read without errors; fix the problems on the bench to update.
+          </p>`
+        : nothing;
     switch (this.view) {
       case 'sketch':
         return r?.layout
-          ? html`${note}<lw-diagram class=${stale ? 'stale' : ''} .layout=${r.layout} .codes=${codes} .lit=${this.lit(r, this.stepper.reading?.state ?? null)} @reveal=${this.onReveal}></lw-diagram>`
+          ? html`${note}<lw-diagram
+                class=${stale ? 'stale' : ''}
+                .layout=${r.layout}
+                .codes=${codes}
+                .lit=${this.lit(r, this.stepper.reading?.state ?? null)}
+                @reveal=${this.onReveal}
+              ></lw-diagram>`
           : html`<p class="soft">The sketch appears when the machine reads without errors.</p>`;
       case 'ledger':
         return html`${note}<lw-state-table
-          .machine=${r?.machine}
-          ?frozen=${stale || s.work === Work.reading}
-          .text=${this.source.text}
-          .codes=${codes}
-          .merged=${r?.merged ?? {}}
-          @reveal=${this.onReveal}
-          @text-edit=${(e: Detail<{ edit: TextEdit }>) => this.source.edit(applyEdit(this.source.text, e.detail.edit))}
-        ></lw-state-table>`;
+            .machine=${r?.machine}
+            ?frozen=${stale || s.work === Work.reading}
+            .text=${this.source.text}
+            .codes=${codes}
+            .merged=${r?.merged ?? {}}
+            @reveal=${this.onReveal}
+            @text-edit=${(e: Detail<{ edit: TextEdit }>) => this.source.edit(applyEdit(this.source.text, e.detail.edit))}
+          ></lw-state-table>`;
       case 'codes':
         return html`${note}<lw-codes
-          .built=${b}
-          .rows=${s.rows}
-          ?rowsCurrent=${s.rowsCurrent}
-          .search=${s.search}
-          .progress=${s.progress}
-          .choice=${s.settings.encoding}
-          @compare=${() => s.compare()}
-          @cancel-search=${() => s.cancelSearch()}
-          @choose=${(e: Detail<{ choice: EncodingChoice }>) => s.choose(e.detail.choice)}
-        ></lw-codes>`;
+            .built=${b}
+            .rows=${s.rows}
+            ?rowsCurrent=${s.rowsCurrent}
+            .search=${s.search}
+            .progress=${s.progress}
+            .choice=${s.settings.encoding}
+            @compare=${() => s.compare()}
+            @cancel-search=${() => s.cancelSearch()}
+            @choose=${(e: Detail<{ choice: EncodingChoice }>) => s.choose(e.detail.choice)}
+          ></lw-codes>`;
       case 'parts':
         return html`${note}<lw-parts
-          .built=${b}
-          .checks=${s.checks && s.shown.checks === s.shown.built ? s.checks : undefined}
-          .schematic=${s.shown.schematic === s.shown.built ? s.schematic : undefined}
-          .warnings=${this.warnings(r?.diagnostics, b?.diagnostics)}
-          ?checking=${s.work === Work.checking}
-          ?exportable=${s.work === Work.done}
-          @export=${this.onExport}
-          @replay=${(e: Detail<{ actions: HandAction[]; label: string }>) => {
-            this.stepper.replay(e.detail.actions, e.detail.label);
-            this.show('trial');
-          }}
-        ></lw-parts>`;
+            .built=${b}
+            .checks=${s.checks && s.shown.checks === s.shown.built ? s.checks : undefined}
+            .schematic=${s.shown.schematic === s.shown.built ? s.schematic : undefined}
+            .warnings=${this.warnings(r?.diagnostics, b?.diagnostics)}
+            ?checking=${s.work === Work.checking}
+            ?exportable=${s.work === Work.done}
+            @export=${this.onExport}
+            @replay=${(e: Detail<{ actions: HandAction[]; label: string }>) => {
+              this.stepper.replay(e.detail.actions, e.detail.label);
+              this.show('trial');
+            }}
+          ></lw-parts>`;
       case 'trial':
         return html`${note}<lw-stepper
-          .reading=${this.stepper.reading}
-          .samples=${this.stepper.samples}
-          .alarms=${this.stepper.alarms}
-          .clocks=${this.stepper.clocks}
-          ?canUndo=${this.stepper.canUndo}
-          @step=${this.onStep}
-        ></lw-stepper>`;
+            .reading=${this.stepper.reading}
+            .samples=${this.stepper.samples}
+            .alarms=${this.stepper.alarms}
+            .clocks=${this.stepper.clocks}
+            ?canUndo=${this.stepper.canUndo}
+            @step=${this.onStep}
+          ></lw-stepper>`;
       default:
         return nothing;
     }
@@ -197,13 +238,23 @@ export class LwApp extends LitElement {
     this.synth
       .exportDoc(e.detail.doc)
       .then((f) => download(f.name, f.mime, f.text))
-      .catch((err: unknown) => this.source.say({ tone: 'problem', words: `No document: ${err instanceof Error ? err.message : String(err)}` }));
+      .catch((err: unknown) =>
+        this.source.say({ tone: 'problem', words: `No document: ${err instanceof Error ? err.message : String(err)}` }),
+      );
   };
 
   private onCopyLink = (): void => {
     const link = this.source.link();
-    const told = (ok: boolean): void => this.source.say({ tone: 'info', words: ok ? 'Link copied: it carries the whole machine.' : 'Copy this link; it carries the whole machine:', ...(ok ? {} : { details: [link] }) });
-    navigator.clipboard?.writeText(link).then(() => told(true), () => told(false)) ?? told(false);
+    const told = (ok: boolean): void =>
+      this.source.say({
+        tone: 'info',
+        words: ok ? 'Link copied: it carries the whole machine.' : 'Copy this link; it carries the whole machine:',
+        ...(ok ? {} : { details: [link] }),
+      });
+    navigator.clipboard?.writeText(link).then(
+      () => told(true),
+      () => told(false),
+    ) ?? told(false);
   };
 
   private onTabKey = (e: KeyboardEvent): void => {
@@ -217,7 +268,8 @@ export class LwApp extends LitElement {
   private onKey = (e: KeyboardEvent): void => {
     if (this.view !== 'trial') return;
     const target = e.composedPath()[0];
-    if (target instanceof HTMLElement && (target.closest('textarea, input, select') || target.isContentEditable)) return;
+    if (target instanceof HTMLElement && (target.closest('textarea, input, select') || target.isContentEditable))
+      return;
     if (target instanceof HTMLButtonElement && (e.key === 'Enter' || e.key === ' ')) return;
     if (this.stepper.key(e)) e.preventDefault();
   };

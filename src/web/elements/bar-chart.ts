@@ -108,8 +108,14 @@ export class LwBarChart extends LitElement {
     const top = 8;
     const bottom = h - 24;
     const most = Math.max(max(this.bars, (b) => b.value) ?? 0, this.marker?.value ?? 0) * 1.08 || 1;
-    const x = scaleLinear().domain([0, most]).range([left, width - right]).nice();
-    const y = scaleBand<number>().domain(this.bars.map((_, i) => i)).range([top, bottom]).padding(0.18);
+    const x = scaleLinear()
+      .domain([0, most])
+      .range([left, width - right])
+      .nice();
+    const y = scaleBand<number>()
+      .domain(this.bars.map((_, i) => i))
+      .range([top, bottom])
+      .padding(0.18);
     const row = svg
       .append('g')
       .selectAll('g')
@@ -137,15 +143,22 @@ export class LwBarChart extends LitElement {
       .attr('x', (b) => x(b.value) + 4)
       .attr('y', y.bandwidth() / 2 + 4)
       .text((b) => b.note ?? b.value.toFixed(2));
-    svg
-      .append('g')
-      .attr('class', 'axis')
-      .attr('transform', `translate(0,${bottom})`)
-      .call(axisBottom(x).ticks(6));
+    svg.append('g').attr('class', 'axis').attr('transform', `translate(0,${bottom})`).call(axisBottom(x).ticks(6));
     if (this.marker) {
       const mx = x(this.marker.value);
-      svg.append('line').attr('class', 'marker').attr('x1', mx).attr('x2', mx).attr('y1', top - 4).attr('y2', bottom);
-      svg.append('text').attr('class', 'marker-label').attr('x', mx + 4).attr('y', top + 6).text(this.marker.label);
+      svg
+        .append('line')
+        .attr('class', 'marker')
+        .attr('x1', mx)
+        .attr('x2', mx)
+        .attr('y1', top - 4)
+        .attr('y2', bottom);
+      svg
+        .append('text')
+        .attr('class', 'marker-label')
+        .attr('x', mx + 4)
+        .attr('y', top + 6)
+        .text(this.marker.label);
     }
   }
 }

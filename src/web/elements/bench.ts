@@ -103,8 +103,19 @@ export class LwBench extends LitElement {
   override render() {
     const n = this.notice;
     return html`<div class="tools" role="toolbar" aria-label="Machine file">
-        <button @click=${() => this.renderRoot.querySelector<HTMLInputElement>('input[type=file]')?.click()} aria-label="Open a machine file: text form, JSON form or xstate configuration">Open…</button>
-        <input type="file" accept=".lw,.txt,.json,text/plain,application/json" @change=${this.onFile} aria-hidden="true" tabindex="-1" />
+        <button
+          @click=${() => this.renderRoot.querySelector<HTMLInputElement>('input[type=file]')?.click()}
+          aria-label="Open a machine file: text form, JSON form or xstate configuration"
+        >
+          Open…
+        </button>
+        <input
+          type="file"
+          accept=".lw,.txt,.json,text/plain,application/json"
+          @change=${this.onFile}
+          aria-hidden="true"
+          tabindex="-1"
+        />
         <select aria-label="Save the machine" @change=${this.onSave}>
           <option value="">Save as…</option>
           <option value="text">Text form (.lw)</option>
@@ -115,19 +126,31 @@ export class LwBench extends LitElement {
           <option value="">Examples…</option>
           ${EXAMPLES.map((e, i) => html`<option value=${i}>${e.title}</option>`)}
         </select>
-        <button @click=${() => emit(this, 'copy-link', {})} aria-label="Copy a link that carries this machine">Copy link</button>
-        <span class="file" title=${this.dirty ? 'changed since it was last saved to a file' : 'saved'}>${this.file}${this.dirty ? ' •' : ''}</span>
+        <button @click=${() => emit(this, 'copy-link', {})} aria-label="Copy a link that carries this machine">
+          Copy link
+        </button>
+        <span class="file" title=${this.dirty ? 'changed since it was last saved to a file' : 'saved'}
+          >${this.file}${this.dirty ? ' •' : ''}</span
+        >
       </div>
-      ${n
-        ? html`<div class="notice ${n.tone}" role=${n.tone === 'problem' ? 'alert' : 'status'}>
-            <div class="words">
-              ${n.words}
-              ${n.details?.length ? html`<ul>${n.details.map((d) => html`<li>${d}</li>`)}</ul>` : nothing}
-            </div>
-            ${n.restore && this.canRestore ? html`<button @click=${() => emit(this, 'restore', {})}>Bring back the earlier machine</button>` : nothing}
-            <button @click=${() => emit(this, 'dismiss', {})} aria-label="Dismiss this message">×</button>
-          </div>`
-        : nothing}
+      ${
+        n
+          ? html`<div class="notice ${n.tone}" role=${n.tone === 'problem' ? 'alert' : 'status'}>
+              <div class="words">
+                ${n.words}
+                ${
+                  n.details?.length
+                    ? html`<ul>
+                        ${n.details.map((d) => html`<li>${d}</li>`)}
+                      </ul>`
+                    : nothing
+                }
+              </div>
+              ${n.restore && this.canRestore ? html`<button @click=${() => emit(this, 'restore', {})}>Bring back the earlier machine</button>` : nothing}
+              <button @click=${() => emit(this, 'dismiss', {})} aria-label="Dismiss this message">×</button>
+            </div>`
+          : nothing
+      }
       <lw-editor .text=${this.text} .diagnostics=${this.diagnostics}></lw-editor>
       <lw-problems .diagnostics=${this.diagnostics} ?settled=${this.settled}></lw-problems>`;
   }

@@ -119,94 +119,156 @@ export class LwCodes extends LitElement {
         <div class="bar">
           <label
             >Codes for the build
-            <select aria-label="Encoding used for the build" @change=${(e: Event) => emit(this, 'choose', { choice: { strategy: (e.target as HTMLSelectElement).value as EncodeStrategy } })}>
+            <select
+              aria-label="Encoding used for the build"
+              @change=${(e: Event) => emit(this, 'choose', { choice: { strategy: (e.target as HTMLSelectElement).value as EncodeStrategy } })}
+            >
               ${PICKABLE.map((s) => html`<option value=${s} ?selected=${'strategy' in this.choice && this.choice.strategy === s}>${NAMES[s]}</option>`)}
               ${'kept' in this.choice ? html`<option selected value="auto">kept from the comparison (${this.choice.kept.strategy})</option>` : nothing}
             </select></label
           >
-          ${this.search === 'running'
-            ? html`<button @click=${() => emit(this, 'cancel-search', {})}>Stop pricing</button>${this.progressBar()}`
-            : html`<button class="primary" @click=${() => emit(this, 'compare', {})}>Price every encoding</button>
-                <span class="soft">${this.search === 'cancelled' ? 'Pricing stopped.' : this.rows.length > 0 && !this.rowsCurrent ? 'Prices are for an earlier version of the text.' : ''}</span>`}
+          ${
+            this.search === 'running'
+              ? html`<button @click=${() => emit(this, 'cancel-search', {})}>Stop pricing</button>${this.progressBar()}`
+              : html`<button class="primary" @click=${() => emit(this, 'compare', {})}>Price every encoding</button>
+                  <span class="soft"
+                    >${this.search === 'cancelled' ? 'Pricing stopped.' : this.rows.length > 0 && !this.rowsCurrent ? 'Prices are for an earlier version of the text.' : ''}</span
+                  >`
+          }
         </div>
         ${this.rows.length > 0 ? this.table(using) : html`<p class="soft">Each encoding is built in full and priced by its parts; the automatic search tries many codes and can take a few seconds.</p>`}
       </section>
-      ${b
-        ? html`<div class="grid2">
-            <section class="panel" aria-label="State codes">
-              <h2>State codes (${b.build.encoding.strategy}, ${b.build.encoding.bits} bit${b.build.encoding.bits === 1 ? '' : 's'})</h2>
-              <table>
-                <thead><tr><th scope="col">State</th><th scope="col">Code</th></tr></thead>
-                <tbody>${b.build.machine.states.map((s, i) => html`<tr><td>${s}</td><td class="mono">${b.build.encoding.codes[i] || '—'}</td></tr>`)}</tbody>
-              </table>
-            </section>
-            <section class="panel" aria-label="Forbidden-input guard">
-              <h2>Forbidden-input guard</h2>
-              <p class=${b.guard.ok ? 'ok' : 'bad'}>${b.guard.ok ? 'S·R = 0 proven for every latch over every code and input.' : 'The guard could not prove S·R = 0.'}</p>
-              <p>Method: ${b.guard.method}.</p>
-              <p>${b.guard.compared === false ? 'Cost not measured for this build.' : `Cost of the guard: ${b.guard.extraGates} extra gate${b.guard.extraGates === 1 ? '' : 's'}, ${b.guard.extraCords} extra cord${b.guard.extraCords === 1 ? '' : 's'}.`}</p>
-            </section>
-          </div>
-          <section class="panel" aria-label="Equations">
-            <h2>Set, reset and output equations</h2>
-            <p class="soft">Over the slave bits ${b.build.vars.slice(0, b.build.encoding.bits).join(', ') || '(none)'} and the inputs; S and R drive master latch M of each bit during φ1.</p>
-            <dl class="eq">${b.equations.map((e) => html`<dt>${e.name}</dt><dd>${e.expr}</dd>`)}</dl>
-          </section>`
-        : html`<p class="soft">Codes and equations appear once the machine builds.</p>`}`;
+      ${
+        b
+          ? html`<div class="grid2">
+                <section class="panel" aria-label="State codes">
+                  <h2>
+                    State codes (${b.build.encoding.strategy}, ${b.build.encoding.bits}
+                    bit${b.build.encoding.bits === 1 ? '' : 's'})
+                  </h2>
+                  <table>
+                    <thead>
+                      <tr>
+                        <th scope="col">State</th>
+                        <th scope="col">Code</th>
+                      </tr>
+                    </thead>
+                    <tbody>
+                      ${b.build.machine.states.map(
+                        (s, i) =>
+                          html`<tr>
+                            <td>${s}</td>
+                            <td class="mono">${b.build.encoding.codes[i] || '—'}</td>
+                          </tr>`,
+                      )}
+                    </tbody>
+                  </table>
+                </section>
+                <section class="panel" aria-label="Forbidden-input guard">
+                  <h2>Forbidden-input guard</h2>
+                  <p class=${b.guard.ok ? 'ok' : 'bad'}>
+                    ${b.guard.ok ? 'S·R = 0 proven for every latch over every code and input.' : 'The guard could not prove S·R = 0.'}
+                  </p>
+                  <p>Method: ${b.guard.method}.</p>
+                  <p>
+                    ${b.guard.compared === false ? 'Cost not measured for this build.' : `Cost of the guard: ${b.guard.extraGates} extra gate${b.guard.extraGates === 1 ? '' : 's'}, ${b.guard.extraCords} extra cord${b.guard.extraCords === 1 ? '' : 's'}.`}
+                  </p>
+                </section>
+              </div>
+              <section class="panel" aria-label="Equations">
+                <h2>Set, reset and output equations</h2>
+                <p class="soft">
+                  Over the slave bits ${b.build.vars.slice(0, b.build.encoding.bits).join(', ') || '(none)'} and the
+                  inputs; S and R drive master latch M of each bit during φ1.
+                </p>
+                <dl class="eq">
+                  ${b.equations.map(
+                    (e) =>
+                      html`<dt>${e.name}</dt>
+                        <dd>${e.expr}</dd>`,
+                  )}
+                </dl>
+              </section>`
+          : html`<p class="soft">Codes and equations appear once the machine builds.</p>`
+      }`;
   }
 
   private progressBar() {
     const p = this.progress;
-    const label = p ? `${p.done}${p.total !== null ? ` of ${p.total}` : ''} codes priced, best cost so far ${p.best}` : 'starting…';
-    return html`<progress aria-label="Pricing progress" max=${p?.total ?? 1} value=${p && p.total !== null ? p.done : nothing}></progress>
+    const label = p
+      ? `${p.done}${p.total !== null ? ` of ${p.total}` : ''} codes priced, best cost so far ${p.best}`
+      : 'starting…';
+    return html`<progress
+        aria-label="Pricing progress"
+        max=${p?.total ?? 1}
+        value=${p && p.total !== null ? p.done : nothing}
+      ></progress>
       <span role="status" class="soft">${label}</span>`;
   }
 
   private table(using: string) {
-    return html`<div class="wide"><table aria-label="Encodings priced">
-      <thead>
-        <tr>
-          <th scope="col">Encoding</th>
-          <th scope="col" class="num">Bits</th>
-          <th scope="col" class="num">Latches</th>
-          <th scope="col" class="num">Gates</th>
-          <th scope="col" class="num">Term gates</th>
-          <th scope="col" class="num">Levers</th>
-          <th scope="col" class="num">Capstans</th>
-          <th scope="col" class="num">Weights</th>
-          <th scope="col" class="num">Cords</th>
-          <th scope="col" class="num">Cost</th>
-          <th scope="col"><span class="visually-hidden">Use</span></th>
-        </tr>
-      </thead>
-      <tbody>
-        ${this.rows.map((r) => {
-          const p = r.parts;
-          const cls = `${r.cheapest ? 'cheapest' : ''} ${r.strategy === using ? 'using' : ''}`;
-          if (!r.ok || !p || !r.encoding) return html`<tr><td title=${NAMES[r.strategy]}>${SHORT[r.strategy]}</td><td colspan="10" class="soft">${r.problem}</td></tr>`;
-          const kept = r.encoding;
-          return html`<tr class=${cls}>
-            <td title=${NAMES[r.strategy]}>${SHORT[r.strategy]}${r.cheapest ? html` <strong title="fewest parts by weighted cost">★</strong>` : nothing}</td>
-            <td class="num">${kept.bits}</td>
-            <td class="num">${p.latches}</td>
-            <td class="num">${p.gates}</td>
-            <td class="num">${r.termGates ?? '—'}</td>
-            <td class="num">${p.levers}</td>
-            <td class="num">${p.capstans}</td>
-            <td class="num">${p.weights}</td>
-            <td class="num">${p.cords}</td>
-            <td class="num">${r.cost}</td>
-            <td><button ?disabled=${!this.rowsCurrent} @click=${() => emit(this, 'choose', { choice: { kept } })} aria-label=${`Build with the ${NAMES[r.strategy]} codes`}>Use</button></td>
-          </tr>`;
-        })}
-      </tbody>
-    </table></div>
-    <p class="soft">★ fewest parts by the profile's cost weights${this.weights()}. Hover a name for its method.</p>`;
+    return html`<div class="wide">
+        <table aria-label="Encodings priced">
+          <thead>
+            <tr>
+              <th scope="col">Encoding</th>
+              <th scope="col" class="num">Bits</th>
+              <th scope="col" class="num">Latches</th>
+              <th scope="col" class="num">Gates</th>
+              <th scope="col" class="num">Term gates</th>
+              <th scope="col" class="num">Levers</th>
+              <th scope="col" class="num">Capstans</th>
+              <th scope="col" class="num">Weights</th>
+              <th scope="col" class="num">Cords</th>
+              <th scope="col" class="num">Cost</th>
+              <th scope="col"><span class="visually-hidden">Use</span></th>
+            </tr>
+          </thead>
+          <tbody>
+            ${this.rows.map((r) => {
+              const p = r.parts;
+              const cls = `${r.cheapest ? 'cheapest' : ''} ${r.strategy === using ? 'using' : ''}`;
+              if (!r.ok || !p || !r.encoding)
+                return html`<tr>
+                  <td title=${NAMES[r.strategy]}>${SHORT[r.strategy]}</td>
+                  <td colspan="10" class="soft">${r.problem}</td>
+                </tr>`;
+              const kept = r.encoding;
+              return html`<tr class=${cls}>
+                <td title=${NAMES[r.strategy]}>
+                  ${SHORT[r.strategy]}${r.cheapest ? html` <strong title="fewest parts by weighted cost">★</strong>` : nothing}
+                </td>
+                <td class="num">${kept.bits}</td>
+                <td class="num">${p.latches}</td>
+                <td class="num">${p.gates}</td>
+                <td class="num">${r.termGates ?? '—'}</td>
+                <td class="num">${p.levers}</td>
+                <td class="num">${p.capstans}</td>
+                <td class="num">${p.weights}</td>
+                <td class="num">${p.cords}</td>
+                <td class="num">${r.cost}</td>
+                <td>
+                  <button
+                    ?disabled=${!this.rowsCurrent}
+                    @click=${() => emit(this, 'choose', { choice: { kept } })}
+                    aria-label=${`Build with the ${NAMES[r.strategy]} codes`}
+                  >
+                    Use
+                  </button>
+                </td>
+              </tr>`;
+            })}
+          </tbody>
+        </table>
+      </div>
+      <p class="soft">★ fewest parts by the profile's cost weights${this.weights()}. Hover a name for its method.</p>`;
   }
 
   private weights(): string {
     const c = this.built?.profile.cost;
-    return c ? ` (gate ${c.gate}, latch ${c.latch}, lever ${c.lever}, capstan ${c.capstan}, weight ${c.weight}, cord ${c.cord})` : '';
+    return c
+      ? ` (gate ${c.gate}, latch ${c.latch}, lever ${c.lever}, capstan ${c.capstan}, weight ${c.weight}, cord ${c.cord})`
+      : '';
   }
 }
 

@@ -49,11 +49,22 @@ export class LwDiagram extends LitElement {
       </div>
       <svg role="group" aria-label=${`State sketch with ${n} states`}>
         <defs>
-          <marker id="tip" viewBox="0 0 10 10" refX="9" refY="5" markerWidth="8" markerHeight="8" orient="auto-start-reverse">
+          <marker
+            id="tip"
+            viewBox="0 0 10 10"
+            refX="9"
+            refY="5"
+            markerWidth="8"
+            markerHeight="8"
+            orient="auto-start-reverse"
+          >
             <path d="M0,0 L10,5 L0,10 z" class="tip"></path>
           </marker>
         </defs>
-        <g class="view"><g class="edges"></g><g class="nodes"></g></g>
+        <g class="view">
+          <g class="edges"></g>
+          <g class="nodes"></g>
+        </g>
       </svg>`;
   }
 
@@ -61,7 +72,9 @@ export class LwDiagram extends LitElement {
     const svg = this.svg();
     this.zoomer = zoom<SVGSVGElement, unknown>()
       .scaleExtent([0.15, 5])
-      .on('zoom', (e: { transform: { toString(): string } }) => select(this.renderRoot.querySelector('g.view') as SVGGElement).attr('transform', e.transform.toString()));
+      .on('zoom', (e: { transform: { toString(): string } }) =>
+        select(this.renderRoot.querySelector('g.view') as SVGGElement).attr('transform', e.transform.toString()),
+      );
     svg.call(this.zoomer).on('dblclick.zoom', null);
   }
 
@@ -121,7 +134,11 @@ export class LwDiagram extends LitElement {
       .attr('aria-label', (e) => `Transition from ${e.from} to ${e.to}: ${e.lines.join('; ')}`)
       .on('click', (_, e) => this.revealLine(e.sourceLines[0]))
       .on('keydown', (ev: KeyboardEvent, e) => ev.key === 'Enter' && this.revealLine(e.sourceLines[0]));
-    label.select('rect').attr('width', (e) => e.label.width).attr('height', (e) => e.label.height).attr('rx', 3);
+    label
+      .select('rect')
+      .attr('width', (e) => e.label.width)
+      .attr('height', (e) => e.label.height)
+      .attr('rx', 3);
     label
       .selectAll<SVGTextElement, string>('text')
       .data((e) => e.lines)
@@ -149,11 +166,22 @@ export class LwDiagram extends LitElement {
       .classed('unreachable', (n) => n.unreachable)
       .classed('lit', (n) => this.lit.has(n.id))
       .attr('data-state', (n) => n.id)
-      .attr('aria-label', (n) => `State ${n.lines.join(', ')}${this.codes[n.id] ? `, code ${this.codes[n.id]}` : ''}${n.start ? ', start' : ''}${this.lit.has(n.id) ? ', the machine is here' : ''}${n.line ? `, line ${n.line}` : ''}`)
+      .attr(
+        'aria-label',
+        (n) =>
+          `State ${n.lines.join(', ')}${this.codes[n.id] ? `, code ${this.codes[n.id]}` : ''}${n.start ? ', start' : ''}${this.lit.has(n.id) ? ', the machine is here' : ''}${n.line ? `, line ${n.line}` : ''}`,
+      )
       .on('click', (_, n) => this.revealLine(n.line))
       .on('keydown', (ev: KeyboardEvent, n) => ev.key === 'Enter' && this.revealLine(n.line));
-    sel.select('rect.body').attr('width', (n) => n.width).attr('height', (n) => n.height).attr('rx', 7);
-    sel.select('path.entry').attr('d', (n) => (n.start ? `M-22,${n.height / 2} L-3,${n.height / 2}` : '')).attr('marker-end', (n) => (n.start ? 'url(#tip)' : null));
+    sel
+      .select('rect.body')
+      .attr('width', (n) => n.width)
+      .attr('height', (n) => n.height)
+      .attr('rx', 7);
+    sel
+      .select('path.entry')
+      .attr('d', (n) => (n.start ? `M-22,${n.height / 2} L-3,${n.height / 2}` : ''))
+      .attr('marker-end', (n) => (n.start ? 'url(#tip)' : null));
     sel
       .selectAll<SVGTextElement, string>('text.line')
       .data((n) => n.lines)

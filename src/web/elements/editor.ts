@@ -118,20 +118,28 @@ export class LwEditor extends LitElement {
     for (const d of this.diagnostics) {
       const l = d.location.line;
       // Notes (info) stay in the list; the text marks what needs attention.
-      if (l !== undefined && d.location.path === undefined && d.severity !== 'info') byLine.set(l, [...(byLine.get(l) ?? []), d]);
+      if (l !== undefined && d.location.path === undefined && d.severity !== 'info')
+        byLine.set(l, [...(byLine.get(l) ?? []), d]);
     }
-    const worst = (ds: readonly Diagnostic[]): string => (ds.some((d) => d.severity === 'error') ? 'error' : ds.some((d) => d.severity === 'warning') ? 'warning' : 'info');
+    const worst = (ds: readonly Diagnostic[]): string =>
+      ds.some((d) => d.severity === 'error') ? 'error' : ds.some((d) => d.severity === 'warning') ? 'warning' : 'info';
     return html`<div class="frame">
       <div class="gutter" aria-hidden="true">
         <div class="numbers">
           ${lines.map((_, i) => {
             const ds = byLine.get(i + 1);
-            return html`<div class=${ds ? worst(ds) : nothing} title=${ds ? ds.map((d) => `${d.code}: ${d.message}`).join('\n') : nothing}>${i + 1}</div>`;
+            return html`<div
+              class=${ds ? worst(ds) : nothing}
+              title=${ds ? ds.map((d) => `${d.code}: ${d.message}`).join('\n') : nothing}
+            >
+              ${i + 1}
+            </div>`;
           })}
         </div>
       </div>
       <div class="area">
-        <pre aria-hidden="true">${lines.map((line, i) => html`${this.marked(line, byLine.get(i + 1))}${i < lines.length - 1 ? '\n' : ''}`)}</pre>
+        <pre aria-hidden="true">
+${lines.map((line, i) => html`${this.marked(line, byLine.get(i + 1))}${i < lines.length - 1 ? '\n' : ''}`)}</pre>
         <textarea
           aria-label="Machine text"
           aria-describedby="how"
@@ -142,14 +150,18 @@ export class LwEditor extends LitElement {
           @input=${this.onInput}
           @scroll=${this.onScroll}
         ></textarea>
-        <span id="how" class="visually-hidden" hidden>One statement per line: machine, inputs, outputs, start, state, when … go …</span>
+        <span id="how" class="visually-hidden" hidden
+          >One statement per line: machine, inputs, outputs, start, state, when … go …</span
+        >
       </div>
     </div>`;
   }
 
   private marked(line: string, ds: readonly Diagnostic[] | undefined) {
     if (!ds || ds.length === 0) return line;
-    const spans = ds.map((d) => ({ ...markSpan(line, d.location.column ?? 1), severity: d.severity })).sort((a, b) => a.from - b.from);
+    const spans = ds
+      .map((d) => ({ ...markSpan(line, d.location.column ?? 1), severity: d.severity }))
+      .sort((a, b) => a.from - b.from);
     const parts: unknown[] = [];
     let at = 0;
     for (const s of spans) {

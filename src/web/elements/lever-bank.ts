@@ -89,17 +89,34 @@ export class LwLeverBank extends LitElement {
     const pos = (v: string): Pos => (v === '1' ? '1' : v === '0' ? '0' : 'X');
     const onOff = (b: boolean): Pos => (b ? '1' : '0');
     const operators: Lever[] = [
-      ...Object.entries(r.inputs).map(([n, v]) => ({ name: n, value: onOff(v === 1), operator: true, words: v === 1 ? 'pulled' : 'released' })),
+      ...Object.entries(r.inputs).map(([n, v]) => ({
+        name: n,
+        value: onOff(v === 1),
+        operator: true,
+        words: v === 1 ? 'pulled' : 'released',
+      })),
       { name: 'φ1', value: onOff(r.phi1), operator: true, words: r.phi1 ? 'pulled' : 'released' },
       { name: 'φ2', value: onOff(r.phi2), operator: true, words: r.phi2 ? 'pulled' : 'released' },
       { name: 'reset', value: onOff(r.reset), operator: true, words: r.reset ? 'pulled' : 'released' },
     ];
     const latch = (role: 'master' | 'slave'): Lever[] =>
-      r.latches.filter((l) => l.role === role).map((l) => ({ name: l.name.replace(/^(master|slave) latch /, ''), value: pos(l.q), operator: false, words: `Q ${l.q}, Q̄ ${l.qBar}` }));
-    const flags: Lever[] = Object.entries(r.outputs).map(([n, v]) => ({ name: n, value: pos(v), operator: false, words: v === 'X' ? 'undetermined' : v === '1' ? 'raised' : 'lowered' }));
+      r.latches
+        .filter((l) => l.role === role)
+        .map((l) => ({
+          name: l.name.replace(/^(master|slave) latch /, ''),
+          value: pos(l.q),
+          operator: false,
+          words: `Q ${l.q}, Q̄ ${l.qBar}`,
+        }));
+    const flags: Lever[] = Object.entries(r.outputs).map(([n, v]) => ({
+      name: n,
+      value: pos(v),
+      operator: false,
+      words: v === 'X' ? 'undetermined' : v === '1' ? 'raised' : 'lowered',
+    }));
     return html`<div class="groups">
-      ${this.group('Operator levers', operators)} ${this.group('Master latches', latch('master'))} ${this.group('Slave latches', latch('slave'))}
-      ${this.group('Flags', flags)}
+      ${this.group('Operator levers', operators)} ${this.group('Master latches', latch('master'))}
+      ${this.group('Slave latches', latch('slave'))} ${this.group('Flags', flags)}
     </div>`;
   }
 
@@ -119,7 +136,12 @@ export class LwLeverBank extends LitElement {
     const ex = px + len * Math.cos(rad);
     const ey = py + len * Math.sin(rad);
     const cls = `${l.operator ? 'operator' : ''} ${l.value === 'X' ? 'x' : ''}`;
-    return html`<figure role="img" aria-label=${`${l.name}: ${l.value} (${l.words})`} data-lever=${l.name} data-value=${l.value}>
+    return html`<figure
+      role="img"
+      aria-label=${`${l.name}: ${l.value} (${l.words})`}
+      data-lever=${l.name}
+      data-value=${l.value}
+    >
       <svg width="64" height="56" viewBox="0 0 64 56" aria-hidden="true" class=${cls}>
         ${svg`<path class="base" d="M6,44 L22,44 L14,30 Z"></path>
           <line class="arm" x1=${px} y1=${py} x2=${ex} y2=${ey}></line>

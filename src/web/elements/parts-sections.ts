@@ -21,16 +21,19 @@ const CHECK_WORDS: Readonly<Record<string, string>> = {
 export function checksSection(checks: readonly CheckResult[] | undefined, pending: boolean) {
   return html`<section class="panel" aria-label="Checks">
     <h2>Checks</h2>
-    ${!checks
-      ? html`<p class="soft">${pending ? 'Checking…' : 'Checks run once the machine builds.'}</p>`
-      : html`<ul class="checks">
-          ${checks.map(
-            (c) => html`<li class=${c.ok ? 'ok' : 'bad'} data-check=${c.name}>
-              <strong>${c.ok ? '✔' : '✘'} ${CHECK_WORDS[c.name] ?? c.name}</strong>
-              <div class="summary">${c.summary}</div>
-            </li>`,
-          )}
-        </ul>`}
+    ${
+      !checks
+        ? html`<p class="soft">${pending ? 'Checking…' : 'Checks run once the machine builds.'}</p>`
+        : html`<ul class="checks">
+            ${checks.map(
+              (c) =>
+                html`<li class=${c.ok ? 'ok' : 'bad'} data-check=${c.name}>
+                  <strong>${c.ok ? '✔' : '✘'} ${CHECK_WORDS[c.name] ?? c.name}</strong>
+                  <div class="summary">${c.summary}</div>
+                </li>`,
+            )}
+          </ul>`
+    }
   </section>`;
 }
 
@@ -59,13 +62,14 @@ export function partsSection(b: BuildView) {
       </thead>
       <tbody>
         ${b.bom.map(
-          (r) => html`<tr>
-            <td>${r.item}</td>
-            <td class="num">${r.count}</td>
-            <td class="num">${r.each} ${r.unit}</td>
-            <td class="num">${r.total} ${r.unit}</td>
-            <td class="soft">${r.note}</td>
-          </tr>`,
+          (r) =>
+            html`<tr>
+              <td>${r.item}</td>
+              <td class="num">${r.count}</td>
+              <td class="num">${r.each} ${r.unit}</td>
+              <td class="num">${r.total} ${r.unit}</td>
+              <td class="soft">${r.note}</td>
+            </tr>`,
         )}
       </tbody>
     </table>
@@ -81,13 +85,41 @@ export function timingSection(t: TimingResult | undefined) {
     <h2>Timing and clock rate</h2>
     <table>
       <tbody>
-        <tr><th scope="row">φ1 (compute)</th><td class="num">${s2(t.phaseTimesS.phi1)} s</td><td class="soft">${t.chains.phi1.join(' → ')}</td></tr>
-        <tr><th scope="row">dead band after φ1</th><td class="num">${s2(t.deadBandsS.afterPhi1)} s</td><td></td></tr>
-        <tr><th scope="row">φ2 (transfer)</th><td class="num">${s2(t.phaseTimesS.phi2)} s</td><td class="soft">${t.chains.phi2.join(' → ')}</td></tr>
-        <tr><th scope="row">dead band after φ2</th><td class="num">${s2(t.deadBandsS.afterPhi2)} s</td><td></td></tr>
-        <tr><th scope="row">one clock</th><td class="num">${s2(t.clockS)} s</td><td>at most ${t.clocksPerMinute} clocks per minute</td></tr>
-        <tr><th scope="row">crank</th><td class="num">${t.crankRpm} /min</td><td>cam: φ1 ${t.cam.phi1[0]}°–${t.cam.phi1[1]}°, φ2 ${t.cam.phi2[0]}°–${t.cam.phi2[1]}°</td></tr>
-        <tr><th scope="row">reset</th><td class="num">${s2(t.resetS)} s</td><td></td></tr>
+        <tr>
+          <th scope="row">φ1 (compute)</th>
+          <td class="num">${s2(t.phaseTimesS.phi1)} s</td>
+          <td class="soft">${t.chains.phi1.join(' → ')}</td>
+        </tr>
+        <tr>
+          <th scope="row">dead band after φ1</th>
+          <td class="num">${s2(t.deadBandsS.afterPhi1)} s</td>
+          <td></td>
+        </tr>
+        <tr>
+          <th scope="row">φ2 (transfer)</th>
+          <td class="num">${s2(t.phaseTimesS.phi2)} s</td>
+          <td class="soft">${t.chains.phi2.join(' → ')}</td>
+        </tr>
+        <tr>
+          <th scope="row">dead band after φ2</th>
+          <td class="num">${s2(t.deadBandsS.afterPhi2)} s</td>
+          <td></td>
+        </tr>
+        <tr>
+          <th scope="row">one clock</th>
+          <td class="num">${s2(t.clockS)} s</td>
+          <td>at most ${t.clocksPerMinute} clocks per minute</td>
+        </tr>
+        <tr>
+          <th scope="row">crank</th>
+          <td class="num">${t.crankRpm} /min</td>
+          <td>cam: φ1 ${t.cam.phi1[0]}°–${t.cam.phi1[1]}°, φ2 ${t.cam.phi2[0]}°–${t.cam.phi2[1]}°</td>
+        </tr>
+        <tr>
+          <th scope="row">reset</th>
+          <td class="num">${s2(t.resetS)} s</td>
+          <td></td>
+        </tr>
       </tbody>
     </table>
     <p class=${t.monteCarlo.ok ? 'ok' : 'bad'}>
@@ -99,16 +131,36 @@ export function timingSection(t: TimingResult | undefined) {
 export function rulesSection(rules: readonly RuleViolation[], replay: (r: RuleViolation) => void) {
   return html`<section class="panel" aria-label="Operating rules">
     <h2>Operating rules</h2>
-    <p class="soft">Per clock: set the input levers, pull φ1, release it, pull φ2, release it. Keep these rules; signage and interlocks are designed from what breaking them does.</p>
+    <p class="soft">
+      Per clock: set the input levers, pull φ1, release it, pull φ2, release it. Keep these rules; signage and
+      interlocks are designed from what breaking them does.
+    </p>
     <ol class="rules">
-      ${(rules.length > 0 ? rules : (Object.keys(RULE_WORDS) as (keyof typeof RULE_WORDS)[]).map((rule) => ({ rule, violation: [], trace: [], upsets: [], words: '' }))).map(
-        (r) => html`<li>
-          <strong>${RULE_WORDS[r.rule]}.</strong>
-          ${r.words ? html`<div class="soft">${r.upsets.length > 0 ? `Breaking it (${r.trace.map((t) => t.replace(/^\d+\. /, '')).join(', ')}) upsets ${r.upsets.join(', ')}.` : 'No way of breaking it upset a latch in the search.'}</div>` : nothing}
-          ${r.violation.length > 0 && r.upsets.length > 0
-            ? html`<button @click=${() => replay(r)} aria-label=${`Try breaking the rule “${RULE_WORDS[r.rule]}” in the trial run`}>Try it in the trial run</button>`
-            : nothing}
-        </li>`,
+      ${(rules.length > 0
+        ? rules
+        : (Object.keys(RULE_WORDS) as (keyof typeof RULE_WORDS)[]).map((rule) => ({
+            rule,
+            violation: [],
+            trace: [],
+            upsets: [],
+            words: '',
+          }))
+      ).map(
+        (r) =>
+          html`<li>
+            <strong>${RULE_WORDS[r.rule]}.</strong>
+            ${r.words ? html`<div class="soft">${r.upsets.length > 0 ? `Breaking it (${r.trace.map((t) => t.replace(/^\d+\. /, '')).join(', ')}) upsets ${r.upsets.join(', ')}.` : 'No way of breaking it upset a latch in the search.'}</div>` : nothing}
+            ${
+              r.violation.length > 0 && r.upsets.length > 0
+                ? html`<button
+                    @click=${() => replay(r)}
+                    aria-label=${`Try breaking the rule “${RULE_WORDS[r.rule]}” in the trial run`}
+                  >
+                    Try it in the trial run
+                  </button>`
+                : nothing
+            }
+          </li>`,
       )}
     </ol>
   </section>`;

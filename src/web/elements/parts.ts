@@ -109,31 +109,48 @@ export class LwParts extends LitElement {
     const b = this.built;
     const c = this.checks;
     if (!b) return html`<p class="soft">Parts and forces appear once the machine builds.</p>`;
-    return html`${checksSection(c?.checks, this.checking)} ${this.exportsSection()} ${this.schematicSection()} ${partsSection(b)}
+    return html`${checksSection(c?.checks, this.checking)} ${this.exportsSection()} ${this.schematicSection()}
+      ${partsSection(b)}
       <section class="panel" aria-label="Force margins">
         <h2>Force margins of the capstans</h2>
-        ${c
-          ? html`<p class="soft">Available pull ÷ load for each capstan (capstan equation); the design rule asks for at least ${c.minMargin}.</p>
-              <lw-bar-chart
-                caption="Force margin per capstan"
-                unit="×"
-                floor
-                .bars=${c.margins.map((m) => ({ label: m.label, value: m.margin }))}
-                .marker=${{ value: c.minMargin, label: `minimum ${c.minMargin}` }}
-              ></lw-bar-chart>`
-          : html`<p class="soft">Checking…</p>`}
+        ${
+          c
+            ? html`<p class="soft">
+                  Available pull ÷ load for each capstan (capstan equation); the design rule asks for at least
+                  ${c.minMargin}.
+                </p>
+                <lw-bar-chart
+                  caption="Force margin per capstan"
+                  unit="×"
+                  floor
+                  .bars=${c.margins.map((m) => ({ label: m.label, value: m.margin }))}
+                  .marker=${{ value: c.minMargin, label: `minimum ${c.minMargin}` }}
+                ></lw-bar-chart>`
+            : html`<p class="soft">Checking…</p>`
+        }
       </section>
       <section class="panel" aria-label="Drum torque per state">
         <h2>Drum torque per state</h2>
-        ${c
-          ? html`<p class="soft">The worst case of each state over its inputs and clock phases; the worst sizes the motor or crank (${c.powerW.toFixed(2)} W at the drum's speed).</p>
-              <lw-bar-chart caption="Drum torque per state" unit="N·m" .bars=${c.torque.map((t) => ({ label: t.state, value: t.torqueNm, note: `${t.torqueNm.toFixed(3)} N·m (${t.at})` }))}></lw-bar-chart>`
-          : html`<p class="soft">Checking…</p>`}
+        ${
+          c
+            ? html`<p class="soft">
+                  The worst case of each state over its inputs and clock phases; the worst sizes the motor or crank
+                  (${c.powerW.toFixed(2)} W at the drum's speed).
+                </p>
+                <lw-bar-chart
+                  caption="Drum torque per state"
+                  unit="N·m"
+                  .bars=${c.torque.map((t) => ({ label: t.state, value: t.torqueNm, note: `${t.torqueNm.toFixed(3)} N·m (${t.at})` }))}
+                ></lw-bar-chart>`
+            : html`<p class="soft">Checking…</p>`
+        }
       </section>
       ${timingSection(c?.timing)} ${rulesSection(c?.rules ?? [], (r) => this.replay(r))} ${this.warningsSection()}
       <section class="panel cautions" aria-label="Safety cautions">
         <h2>Safety cautions</h2>
-        <ul class="plain">${CAUTIONS.map((w) => html`<li>${w}</li>`)}</ul>
+        <ul class="plain">
+          ${CAUTIONS.map((w) => html`<li>${w}</li>`)}
+        </ul>
       </section>`;
   }
 
@@ -151,16 +168,22 @@ export class LwParts extends LitElement {
     const s = this.schematic;
     return html`<section class="panel" aria-label="Schematic">
       <h2>Schematic</h2>
-      ${s?.svg
-        ? html`<div class="row">
-              <button @click=${() => this.setZoom(this.zoom * 1.25)} aria-label="Enlarge the schematic">+</button>
-              <button @click=${() => this.setZoom(this.zoom / 1.25)} aria-label="Shrink the schematic">−</button>
-              <button @click=${() => this.setZoom(1)}>Fit width</button>
-            </div>
-            <div class="sheet" tabindex="0" aria-label="Schematic drawing; scroll to pan">
-              <img alt="Schematic of the lever machine: levers, gates, latches and cords, left to right through one clock" src=${`data:image/svg+xml;charset=utf-8,${encodeURIComponent(s.svg)}`} style=${`width:${Math.round(this.zoom * 100)}%`} />
-            </div>`
-        : html`<p class="soft">${s?.problem ? `No schematic: ${s.problem}` : 'Drawing…'}</p>`}
+      ${
+        s?.svg
+          ? html`<div class="row">
+                <button @click=${() => this.setZoom(this.zoom * 1.25)} aria-label="Enlarge the schematic">+</button>
+                <button @click=${() => this.setZoom(this.zoom / 1.25)} aria-label="Shrink the schematic">−</button>
+                <button @click=${() => this.setZoom(1)}>Fit width</button>
+              </div>
+              <div class="sheet" tabindex="0" aria-label="Schematic drawing; scroll to pan">
+                <img
+                  alt="Schematic of the lever machine: levers, gates, latches and cords, left to right through one clock"
+                  src=${`data:image/svg+xml;charset=utf-8,${encodeURIComponent(s.svg)}`}
+                  style=${`width:${Math.round(this.zoom * 100)}%`}
+                />
+              </div>`
+          : html`<p class="soft">${s?.problem ? `No schematic: ${s.problem}` : 'Drawing…'}</p>`
+      }
     </section>`;
   }
 
@@ -170,7 +193,8 @@ export class LwParts extends LitElement {
     return html`<section class="panel" aria-label="Warnings">
       <h2>Warnings</h2>
       <ul class="plain">
-        ${failing.map((c) => html`<li class="bad">${c.name}: ${c.summary}</li>`)} ${this.warnings.map((d) => html`<li class="warn mono">${formatDiagnostic(d)}</li>`)}
+        ${failing.map((c) => html`<li class="bad">${c.name}: ${c.summary}</li>`)}
+        ${this.warnings.map((d) => html`<li class="warn mono">${formatDiagnostic(d)}</li>`)}
       </ul>
     </section>`;
   }

@@ -88,19 +88,33 @@ export class LwProblems extends LitElement {
   ];
 
   override render() {
-    const ds = [...this.diagnostics].sort((a, b) => RANK[a.severity] - RANK[b.severity] || (a.location.line ?? 0) - (b.location.line ?? 0));
+    const ds = [...this.diagnostics].sort(
+      (a, b) => RANK[a.severity] - RANK[b.severity] || (a.location.line ?? 0) - (b.location.line ?? 0),
+    );
     const main = ds.filter((d) => d.severity !== 'info');
     const notes = ds.filter((d) => d.severity === 'info');
     const errors = ds.filter((d) => d.severity === 'error').length;
     return html`<section aria-label="Problems">
-      <div role="status" class="visually-hidden">${errors === 0 ? 'No errors' : `${errors} error${errors === 1 ? '' : 's'}`}</div>
-      ${main.length === 0 ? html`<p class="clear ok">${this.settled ? 'No problems: the machine reads cleanly.' : 'Reading…'}</p>` : html`<ul>${main.map((d) => this.entry(d))}</ul>`}
-      ${notes.length > 0
-        ? html`<details>
-            <summary>${notes.length} note${notes.length === 1 ? '' : 's'} (nothing wrong; worth knowing)</summary>
-            <ul>${notes.map((d) => this.entry(d))}</ul>
-          </details>`
-        : nothing}
+      <div role="status" class="visually-hidden">
+        ${errors === 0 ? 'No errors' : `${errors} error${errors === 1 ? '' : 's'}`}
+      </div>
+      ${
+        main.length === 0
+          ? html`<p class="clear ok">${this.settled ? 'No problems: the machine reads cleanly.' : 'Reading…'}</p>`
+          : html`<ul>
+              ${main.map((d) => this.entry(d))}
+            </ul>`
+      }
+      ${
+        notes.length > 0
+          ? html`<details>
+              <summary>${notes.length} note${notes.length === 1 ? '' : 's'} (nothing wrong; worth knowing)</summary>
+              <ul>
+                ${notes.map((d) => this.entry(d))}
+              </ul>
+            </details>`
+          : nothing
+      }
     </section>`;
   }
 
@@ -111,7 +125,9 @@ export class LwProblems extends LitElement {
         @click=${() => emit(this, 'reveal', { line: d.location.line ?? 1, column: d.location.column ?? 1 })}
         aria-label=${`${d.severity} ${d.code}${d.location.line !== undefined ? ` at line ${d.location.line}` : ''}: ${d.message}${d.hint ? `. ${d.hint}` : ''}`}
       >
-        <span class="sev">${d.severity} ${d.location.line !== undefined ? html`<br />line ${d.location.line}` : nothing}</span>
+        <span class="sev"
+          >${d.severity} ${d.location.line !== undefined ? html`<br />line ${d.location.line}` : nothing}</span
+        >
         <span class="line mono">${formatDiagnostic(d)}</span>
       </button>
     </li>`;

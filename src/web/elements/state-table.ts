@@ -93,12 +93,22 @@ export class LwStateTable extends LitElement {
           ${m.states.map((s) => this.stateRows(m, s, editable))}
         </tbody>
       </table>
-      ${editable
-        ? html`<form class="add" @submit=${this.onAddState}>
-            <label>New state <input name="name" ?disabled=${this.frozen} required pattern="[A-Za-z_][A-Za-z0-9_]*" aria-label="Name of the new state" /></label>
-            <button type="submit" ?disabled=${this.frozen}>Add state</button>
-          </form>`
-        : html`<p class="soft">This machine is not in the text form, so the ledger is read-only.</p>`}`;
+      ${
+        editable
+          ? html`<form class="add" @submit=${this.onAddState}>
+              <label
+                >New state
+                <input
+                  name="name"
+                  ?disabled=${this.frozen}
+                  required
+                  pattern="[A-Za-z_][A-Za-z0-9_]*"
+                  aria-label="Name of the new state"
+              /></label>
+              <button type="submit" ?disabled=${this.frozen}>Add state</button>
+            </form>`
+          : html`<p class="soft">This machine is not in the text form, so the ledger is read-only.</p>`
+      }`;
   }
 
   private stateRows(m: Machine, s: State, editable: boolean) {
@@ -106,48 +116,72 @@ export class LwStateTable extends LitElement {
     const span = s.transitions.length + (covered ? 0 : 1) + (editable ? 1 : 0);
     const into = this.merged[s.name];
     const first = html`<td class="state" rowspan=${span}>
-        <button class="link" @click=${() => emit(this, 'reveal', { line: s.loc?.line ?? 1, column: s.loc?.column ?? 1 })} aria-label=${`Show state ${s.name} in the text`}>
+        <button
+          class="link"
+          @click=${() => emit(this, 'reveal', { line: s.loc?.line ?? 1, column: s.loc?.column ?? 1 })}
+          aria-label=${`Show state ${s.name} in the text`}
+        >
           ${s.name}</button
         >${s.name === m.start ? html` <span class="soft">(start)</span>` : nothing}
         ${into !== undefined && into !== s.name ? html`<div class="soft">same as ${into}</div>` : nothing}
       </td>
       <td class="mono" rowspan=${span}>${this.codes[s.name] ?? s.code ?? '—'}</td>
       <td class="mono" rowspan=${span}>${outputWords(s.outputs, m.outputs) || '—'}</td>`;
-    const rows = s.transitions.map((t, i) => html`<tr>${i === 0 ? first : nothing}${this.transitionCells(m, t, i, editable)}</tr>`);
+    const rows = s.transitions.map(
+      (t, i) =>
+        html`<tr>
+          ${i === 0 ? first : nothing}${this.transitionCells(m, t, i, editable)}
+        </tr>`,
+    );
     // The unspecified rule's row, unless an unguarded transition leaves nothing to it.
     if (!covered) {
       const rest = m.unspecified === 'hold' ? 'stay here' : 'anywhere (free)';
-      rows.push(html`<tr class="otherwise">
-        ${s.transitions.length === 0 ? first : nothing}
-        <td>${s.transitions.length === 0 ? 'always' : 'anything else'}</td>
-        <td>${rest}</td>
-        <td></td>
-      </tr>`);
+      rows.push(
+        html`<tr class="otherwise">
+          ${s.transitions.length === 0 ? first : nothing}
+          <td>${s.transitions.length === 0 ? 'always' : 'anything else'}</td>
+          <td>${rest}</td>
+          <td></td>
+        </tr>`,
+      );
     }
-    if (editable) rows.push(html`<tr><td colspan="3">${this.adder(m, s)}</td></tr>`);
+    if (editable)
+      rows.push(
+        html`<tr>
+          <td colspan="3">${this.adder(m, s)}</td>
+        </tr>`,
+      );
     return rows;
   }
 
   private transitionCells(m: Machine, t: Transition, i: number, editable: boolean) {
     const guard = t.when.text === '1' ? '' : t.when.text;
     return html`<td>
-        ${editable
-          ? html`<input
-              class="guard"
-              ?disabled=${this.frozen}
-              .value=${guard}
-              placeholder=${i === 0 ? 'always' : 'otherwise'}
-              aria-label=${`Guard of transition ${i + 1} to ${t.to}`}
-              @change=${(e: Event) => this.send(reguard(this.text, t, (e.target as HTMLInputElement).value))}
-            />`
-          : html`<code>${guard || 'always'}</code>`}
+        ${
+          editable
+            ? html`<input
+                class="guard"
+                ?disabled=${this.frozen}
+                .value=${guard}
+                placeholder=${i === 0 ? 'always' : 'otherwise'}
+                aria-label=${`Guard of transition ${i + 1} to ${t.to}`}
+                @change=${(e: Event) => this.send(reguard(this.text, t, (e.target as HTMLInputElement).value))}
+              />`
+            : html`<code>${guard || 'always'}</code>`
+        }
       </td>
       <td>
-        ${editable
-          ? html`<select ?disabled=${this.frozen} aria-label=${`Target of transition ${i + 1}`} @change=${(e: Event) => this.send(retarget(this.text, t, (e.target as HTMLSelectElement).value))}>
-              ${m.states.map((s) => html`<option ?selected=${s.name === t.to} value=${s.name}>${s.name}</option>`)}
-            </select>`
-          : t.to}
+        ${
+          editable
+            ? html`<select
+                ?disabled=${this.frozen}
+                aria-label=${`Target of transition ${i + 1}`}
+                @change=${(e: Event) => this.send(retarget(this.text, t, (e.target as HTMLSelectElement).value))}
+              >
+                ${m.states.map((s) => html`<option ?selected=${s.name === t.to} value=${s.name}>${s.name}</option>`)}
+              </select>`
+            : t.to
+        }
       </td>
       <td class="mono">${outputWords(t.outputs, m.outputs) || '—'}</td>`;
   }
@@ -162,7 +196,13 @@ export class LwStateTable extends LitElement {
         this.send(addTransition(this.text, s, String(f.get('to')), String(f.get('when') ?? '')));
       }}
     >
-      <input name="when" ?disabled=${this.frozen} placeholder="when (always)" aria-label=${`Guard of a new transition from ${s.name}`} class="guard" />
+      <input
+        name="when"
+        ?disabled=${this.frozen}
+        placeholder="when (always)"
+        aria-label=${`Guard of a new transition from ${s.name}`}
+        class="guard"
+      />
       <select name="to" ?disabled=${this.frozen} aria-label=${`Target of a new transition from ${s.name}`}>
         ${m.states.map((x) => html`<option value=${x.name}>${x.name}</option>`)}
       </select>

@@ -100,15 +100,24 @@ export class LwStepper extends LitElement {
         <h2>Levers</h2>
         <div class="controls" role="group" aria-label="Input levers">
           ${Object.entries(r.inputs).map(
-            ([name, v], i) => html`<button aria-pressed=${v === 1 ? 'true' : 'false'} data-input=${name} @click=${step({ do: 'input', input: name, value: v === 1 ? 0 : 1 })}>
-              ${name}${i < 9 ? html`<kbd>⇧${i + 1}</kbd>` : nothing}
-            </button>`,
+            ([name, v], i) =>
+              html`<button
+                aria-pressed=${v === 1 ? 'true' : 'false'}
+                data-input=${name}
+                @click=${step({ do: 'input', input: name, value: v === 1 ? 0 : 1 })}
+              >
+                ${name}${i < 9 ? html`<kbd>⇧${i + 1}</kbd>` : nothing}
+              </button>`,
           )}
           ${Object.keys(r.inputs).length === 0 ? html`<span class="soft">No input levers.</span>` : nothing}
         </div>
         <div class="controls" role="group" aria-label="Clock and reset" style="margin-top:0.5rem">
-          <button aria-pressed=${r.phi1 ? 'true' : 'false'} @click=${step({ do: 'phi1' })} data-do="phi1">φ1<kbd>1</kbd></button>
-          <button aria-pressed=${r.phi2 ? 'true' : 'false'} @click=${step({ do: 'phi2' })} data-do="phi2">φ2<kbd>2</kbd></button>
+          <button aria-pressed=${r.phi1 ? 'true' : 'false'} @click=${step({ do: 'phi1' })} data-do="phi1">
+            φ1<kbd>1</kbd>
+          </button>
+          <button aria-pressed=${r.phi2 ? 'true' : 'false'} @click=${step({ do: 'phi2' })} data-do="phi2">
+            φ2<kbd>2</kbd>
+          </button>
           <button class="primary" @click=${step({ do: 'clock' })} data-do="clock">Whole clock<kbd>C</kbd></button>
           <button @click=${step({ do: 'reset' })} data-do="reset">Reset<kbd>R</kbd></button>
           <button ?disabled=${!this.canUndo} @click=${step({ do: 'undo' })} data-do="undo">Undo<kbd>U</kbd></button>
@@ -116,19 +125,31 @@ export class LwStepper extends LitElement {
       </section>
       <section class="panel" aria-label="Machine now">
         <div class="readout" role="status" aria-live="polite">
-          <span>State <strong data-read="state">${r.state ?? (r.code.includes('X') ? 'undetermined' : 'unused code')}</strong></span>
+          <span
+            >State
+            <strong data-read="state"
+              >${r.state ?? (r.code.includes('X') ? 'undetermined' : 'unused code')}</strong
+            ></span
+          >
           <span>Code <strong data-read="code">${r.code || '—'}</strong></span>
-          <span>Outputs <strong data-read="outputs">${outs.length ? outs.map(([k, v]) => `${k}=${v}`).join(' ') : '—'}</strong></span>
+          <span
+            >Outputs
+            <strong data-read="outputs"
+              >${outs.length ? outs.map(([k, v]) => `${k}=${v}`).join(' ') : '—'}</strong
+            ></span
+          >
           <span>Clocks <strong data-read="clocks">${this.clocks}</strong></span>
         </div>
       </section>
       <section class="panel" aria-label="Alarms">
         <h2>Alarms</h2>
-        ${this.alarms.length === 0
-          ? html`<p class="soft" role="log">None: every operating rule kept so far.</p>`
-          : html`<ul class="alarms" role="log" aria-live="polite">
-              ${[...this.alarms].sort((a, b) => b.step - a.step).map((a) => html`<li class=${a.latch ? 'latch' : ''} data-kind=${a.kind}>Step ${a.step + 1}: ${a.words}</li>`)}
-            </ul>`}
+        ${
+          this.alarms.length === 0
+            ? html`<p class="soft" role="log">None: every operating rule kept so far.</p>`
+            : html`<ul class="alarms" role="log" aria-live="polite">
+                ${[...this.alarms].sort((a, b) => b.step - a.step).map((a) => html`<li class=${a.latch ? 'latch' : ''} data-kind=${a.kind}>Step ${a.step + 1}: ${a.words}</li>`)}
+              </ul>`
+        }
       </section>
       <section class="panel" aria-label="Lever positions"><lw-lever-bank .reading=${r}></lw-lever-bank></section>
       <section class="panel" aria-label="Timing diagram">

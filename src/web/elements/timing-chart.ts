@@ -96,16 +96,35 @@ export class LwTimingChart extends LitElement {
     const n = this.samples.length;
     const width = LEFT + Math.max(n, 1) * COL + 20;
     const height = traces.length * ROW + 22;
-    const root = select(this.renderRoot.querySelector('svg') as SVGSVGElement).attr('width', width).attr('height', height);
+    const root = select(this.renderRoot.querySelector('svg') as SVGSVGElement)
+      .attr('width', width)
+      .attr('height', height);
     root.selectAll('*').remove();
-    const pattern = root.append('defs').append('pattern').attr('id', 'hatch').attr('width', 6).attr('height', 6).attr('patternUnits', 'userSpaceOnUse');
+    const pattern = root
+      .append('defs')
+      .append('pattern')
+      .attr('id', 'hatch')
+      .attr('width', 6)
+      .attr('height', 6)
+      .attr('patternUnits', 'userSpaceOnUse');
     pattern.append('path').attr('class', 'hatch-line').attr('d', 'M0,6 L6,0');
     const x = (i: number): number => LEFT + i * COL;
     // Clock boundaries: where the count of finished clocks goes up.
     this.samples.forEach((s, i) => {
       if (i === 0 || s.clock === this.samples[i - 1].clock) return;
-      root.append('line').attr('class', 'tick').attr('x1', x(i + 1)).attr('x2', x(i + 1)).attr('y1', 12).attr('y2', height);
-      root.append('text').attr('class', 'clock-no').attr('x', x(i + 1) + 2).attr('y', 10).text(String(s.clock));
+      root
+        .append('line')
+        .attr('class', 'tick')
+        .attr('x1', x(i + 1))
+        .attr('x2', x(i + 1))
+        .attr('y1', 12)
+        .attr('y2', height);
+      root
+        .append('text')
+        .attr('class', 'clock-no')
+        .attr('x', x(i + 1) + 2)
+        .attr('y', 10)
+        .text(String(s.clock));
     });
     const rows = root
       .selectAll('g.row')
@@ -113,7 +132,12 @@ export class LwTimingChart extends LitElement {
       .join('g')
       .attr('class', 'row')
       .attr('transform', (_, k) => `translate(0,${16 + k * ROW})`);
-    rows.append('text').attr('class', 'name').attr('x', 4).attr('y', ROW / 2 + 2).text((t) => t.name);
+    rows
+      .append('text')
+      .attr('class', 'name')
+      .attr('x', 4)
+      .attr('y', ROW / 2 + 2)
+      .text((t) => t.name);
     rows.each(function (t) {
       const g = select(this);
       let d = '';
@@ -121,7 +145,12 @@ export class LwTimingChart extends LitElement {
         const x0 = x(i);
         const x1 = x(i + 1);
         if (v === 'X') {
-          g.append('rect').attr('class', 'x').attr('x', x0).attr('y', 4).attr('width', COL).attr('height', ROW - 10);
+          g.append('rect')
+            .attr('class', 'x')
+            .attr('x', x0)
+            .attr('y', 4)
+            .attr('width', COL)
+            .attr('height', ROW - 10);
           return;
         }
         const y = v === '1' ? 4 : ROW - 6;

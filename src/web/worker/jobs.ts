@@ -3,7 +3,15 @@
  * check it, compare encodings. Each returns a view for the page (protocol.ts); the pipeline
  * in src/core/pipeline.ts does the work.
  */
-import { analyse, buildMachine, compareEncodings, runChecks, type Analysed, type Built, type BuildOptions } from '../../core/pipeline.js';
+import {
+  analyse,
+  buildMachine,
+  compareEncodings,
+  runChecks,
+  type Analysed,
+  type Built,
+  type BuildOptions,
+} from '../../core/pipeline.js';
 import type { Encoding } from '../../core/model/build.js';
 import type { Progress } from '../../core/phases/encode/cost.js';
 import { equationTexts } from '../../core/report.js';
@@ -50,7 +58,11 @@ export function buildOptions(s: BuildSettings, onProgress?: (p: Progress) => voi
 }
 
 /** Encode and synthesise, without the checks (they follow in checkJob). */
-export function buildJob(a: Analysed, s: BuildSettings, onProgress?: (p: Progress) => void): { view?: BuildView; built?: Built; diagnostics: Built['diagnostics'] } {
+export function buildJob(
+  a: Analysed,
+  s: BuildSettings,
+  onProgress?: (p: Progress) => void,
+): { view?: BuildView; built?: Built; diagnostics: Built['diagnostics'] } {
   const b = buildMachine(a, { ...buildOptions(s, onProgress), checks: false });
   if (!b.ok) return { diagnostics: b.diagnostics };
   const view: BuildView = {
@@ -95,7 +107,10 @@ export function checkJob(b: Built, seed: number): { built: Built; view: ChecksVi
 }
 
 /** The worst snapshot of each state (snapshot labels start with the state's name and a comma). */
-export function torqueByState(states: readonly string[], snapshots: readonly { label: string; torqueNm: number }[]): TorqueBar[] {
+export function torqueByState(
+  states: readonly string[],
+  snapshots: readonly { label: string; torqueNm: number }[],
+): TorqueBar[] {
   const worst = new Map<string, TorqueBar>();
   for (const s of snapshots) {
     const cut = s.label.indexOf(', ');

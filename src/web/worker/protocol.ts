@@ -107,9 +107,27 @@ export interface ExportFile {
 
 export type ToWorker =
   | { readonly kind: 'read'; readonly rev: number; readonly text: string; readonly file: string }
-  | { readonly kind: 'build'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
-  | { readonly kind: 'check'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
-  | { readonly kind: 'compare'; readonly rev: number; readonly text: string; readonly file: string; readonly settings: BuildSettings }
+  | {
+      readonly kind: 'build';
+      readonly rev: number;
+      readonly text: string;
+      readonly file: string;
+      readonly settings: BuildSettings;
+    }
+  | {
+      readonly kind: 'check';
+      readonly rev: number;
+      readonly text: string;
+      readonly file: string;
+      readonly settings: BuildSettings;
+    }
+  | {
+      readonly kind: 'compare';
+      readonly rev: number;
+      readonly text: string;
+      readonly file: string;
+      readonly settings: BuildSettings;
+    }
   | { readonly kind: 'draw'; readonly rev: number }
   | { readonly kind: 'export'; readonly rev: number; readonly doc: string };
 
@@ -119,7 +137,20 @@ export type FromWorker =
   | { readonly kind: 'unbuilt'; readonly rev: number; readonly diagnostics: readonly Diagnostic[] }
   | { readonly kind: 'checked'; readonly rev: number; readonly view: ChecksView }
   | { readonly kind: 'schematic'; readonly rev: number; readonly svg?: string; readonly problem?: string }
-  | { readonly kind: 'progress'; readonly rev: number; readonly done: number; readonly total: number | null; readonly best: number; readonly stage: string }
+  | {
+      readonly kind: 'progress';
+      readonly rev: number;
+      readonly done: number;
+      readonly total: number | null;
+      readonly best: number;
+      readonly stage: string;
+    }
   | { readonly kind: 'compared'; readonly rev: number; readonly rows: readonly CodeRow[] }
-  | { readonly kind: 'exported'; readonly rev: number; readonly doc: string; readonly file?: ExportFile; readonly problem?: string }
+  | {
+      readonly kind: 'exported';
+      readonly rev: number;
+      readonly doc: string;
+      readonly file?: ExportFile;
+      readonly problem?: string;
+    }
   | { readonly kind: 'fault'; readonly rev: number; readonly message: string };

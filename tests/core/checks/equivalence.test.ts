@@ -26,7 +26,14 @@ function toggleAsWritten(): FlatMachine {
 describe('core/checks/equivalence', () => {
   it('proves the hand-made toggle over every reachable product state and input', () => {
     const r = checkEquivalence(toggleBuild(), {}, DEFAULT_PROFILE);
-    expect(r).toMatchObject({ name: 'equivalence', ok: true, pairs: 4, states: 2, inputs: 'exhaustive', complete: true });
+    expect(r).toMatchObject({
+      name: 'equivalence',
+      ok: true,
+      pairs: 4,
+      states: 2,
+      inputs: 'exhaustive',
+      complete: true,
+    });
     expect(r.counterexample).toBeUndefined();
   });
 
@@ -35,22 +42,39 @@ describe('core/checks/equivalence', () => {
     const ok = checkEquivalence(toggleBuild(), { original: toggleAsWritten(), merged }, DEFAULT_PROFILE);
     expect(ok).toMatchObject({ ok: true, states: 4, pairs: 8 });
     // A wrong map: off2 said to stand for 'on'; the build goes to 'off' there.
-    const wrong = checkEquivalence(toggleBuild(), { original: toggleAsWritten(), merged: { ...merged, off2: 'on' } }, DEFAULT_PROFILE);
+    const wrong = checkEquivalence(
+      toggleBuild(),
+      { original: toggleAsWritten(), merged: { ...merged, off2: 'on' } },
+      DEFAULT_PROFILE,
+    );
     expect(wrong.ok).toBe(false);
-    expect(wrong.summary).toBe("after reset and 1 clock, in state 'on' (code 1) with t=1: the build goes to 'off' (code 0), the machine as written goes to 'on' (code 1)");
+    expect(wrong.summary).toBe(
+      "after reset and 1 clock, in state 'on' (code 1) with t=1: the build goes to 'off' (code 0), the machine as written goes to 'on' (code 1)",
+    );
   });
 
   it('catches a missing term cord with a hand-action trace', () => {
     const r = checkEquivalence(brokenBuild('toggle-missing-term-cord'), {}, DEFAULT_PROFILE);
     expect(r.ok).toBe(false);
-    expect(r.counterexample?.words).toBe("after reset and 0 clocks, in state 'off' (code 0) with t=0: the build goes to 'on' (code 1), the minimised machine goes to 'off' (code 0)");
-    expect(r.counterexample?.trace).toEqual(['1. pull reset', '2. release reset', '3. pull φ1', '4. release φ1', '5. pull φ2', '6. release φ2']);
+    expect(r.counterexample?.words).toBe(
+      "after reset and 0 clocks, in state 'off' (code 0) with t=0: the build goes to 'on' (code 1), the minimised machine goes to 'off' (code 0)",
+    );
+    expect(r.counterexample?.trace).toEqual([
+      '1. pull reset',
+      '2. release reset',
+      '3. pull φ1',
+      '4. release φ1',
+      '5. pull φ2',
+      '6. release φ2',
+    ]);
   });
 
   it('fails on an alarm: the forbidden input of an unguarded latch', () => {
     const r = checkEquivalence(brokenBuild('counter-unguarded'), {}, DEFAULT_PROFILE);
     expect(r.ok).toBe(false);
-    expect(r.summary).toMatch(/^after reset and 1 clock, in state 'b' \(code 01\) with go=1: latch M0 sees the forbidden input/);
+    expect(r.summary).toMatch(
+      /^after reset and 1 clock, in state 'b' \(code 01\) with go=1: latch M0 sees the forbidden input/,
+    );
     expect(r.counterexample?.trace).toEqual([
       '1. pull reset',
       '2. release reset',
@@ -68,9 +92,17 @@ describe('core/checks/equivalence', () => {
 
   it('stops a trace before φ1 when an output is wrong', () => {
     const b = counterBuild(true);
-    const wrongOutput = { ...b, machine: { ...b.machine, rows: b.machine.rows.map((rs, s) => (s === 2 ? rs.map((r) => ({ ...r, out: [0 as const] })) : rs)) } };
+    const wrongOutput = {
+      ...b,
+      machine: {
+        ...b.machine,
+        rows: b.machine.rows.map((rs, s) => (s === 2 ? rs.map((r) => ({ ...r, out: [0 as const] })) : rs)),
+      },
+    };
     const r = checkEquivalence(wrongOutput, {}, DEFAULT_PROFILE);
-    expect(r.summary).toBe("after reset and 2 clocks, in state 'c' (code 10) with go=0: output 'top' shows 1, the minimised machine says 0");
+    expect(r.summary).toBe(
+      "after reset and 2 clocks, in state 'c' (code 10) with go=0: output 'top' shows 1, the minimised machine says 0",
+    );
     expect(r.counterexample?.trace.slice(-2)).toEqual(['11. release φ2', "12. release input lever 'go'"]);
   });
 
@@ -98,14 +130,19 @@ describe('core/checks/equivalence', () => {
   // Invariant: every synthesised build of a random machine behaves as the machine.
   it('holds for synthesised builds of random machines', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 2, max: 5 }), fc.integer({ min: 0, max: 2 }), fc.integer({ min: 1, max: 1000 }), (states, inputs, seed) => {
-        const f = randomFlatMachine(states, inputs, 2, seed);
-        const bits = Math.ceil(Math.log2(states));
-        const codes = f.states.map((_, i) => i.toString(2).padStart(bits, '0'));
-        const b = synthesise(f, { strategy: 'binary', bits, codes }, { profile: DEFAULT_PROFILE });
-        const r = checkEquivalence(b, {}, DEFAULT_PROFILE);
-        return r.ok;
-      }),
+      fc.property(
+        fc.integer({ min: 2, max: 5 }),
+        fc.integer({ min: 0, max: 2 }),
+        fc.integer({ min: 1, max: 1000 }),
+        (states, inputs, seed) => {
+          const f = randomFlatMachine(states, inputs, 2, seed);
+          const bits = Math.ceil(Math.log2(states));
+          const codes = f.states.map((_, i) => i.toString(2).padStart(bits, '0'));
+          const b = synthesise(f, { strategy: 'binary', bits, codes }, { profile: DEFAULT_PROFILE });
+          const r = checkEquivalence(b, {}, DEFAULT_PROFILE);
+          return r.ok;
+        },
+      ),
       { seed: 42, numRuns: 12 },
     );
   });

@@ -16,7 +16,15 @@ function stripLiterals(b: Build, id: string): Build {
 describe('core/checks/forbidden-input', () => {
   it('proves the toggle over every code, master code and input', () => {
     const r = checkForbiddenInput(toggleBuild(), DEFAULT_PROFILE);
-    expect(r).toMatchObject({ name: 'forbidden-input', level: 'part', ok: true, states: 8, codes: 'all', masters: 'free', inputs: 'exhaustive' });
+    expect(r).toMatchObject({
+      name: 'forbidden-input',
+      level: 'part',
+      ok: true,
+      states: 8,
+      codes: 'all',
+      masters: 'free',
+      inputs: 'exhaustive',
+    });
   });
 
   it('names, for each operating rule, the shortest violation and the latch it upsets', () => {
@@ -41,15 +49,27 @@ describe('core/checks/forbidden-input', () => {
     const r = checkForbiddenInput(brokenBuild('counter-unguarded'), DEFAULT_PROFILE);
     expect(r.ok).toBe(false);
     expect(r.counterexample).toMatchObject({ code: '01', masterCode: '01', inputs: '1', latch: 'M0' });
-    expect(r.summary).toBe('with the slaves at code 01 and inputs go=1: latch M0 sees the forbidden input: S̄ and R̄ are pulled at once');
-    expect(r.counterexample?.trace).toEqual(["1. pull input lever 'go'", '2. pull φ1', '3. release φ1', '4. pull φ2', '5. release φ2']);
+    expect(r.summary).toBe(
+      'with the slaves at code 01 and inputs go=1: latch M0 sees the forbidden input: S̄ and R̄ are pulled at once',
+    );
+    expect(r.counterexample?.trace).toEqual([
+      "1. pull input lever 'go'",
+      '2. pull φ1',
+      '3. release φ1',
+      '4. pull φ2',
+      '5. release φ2',
+    ]);
   });
 
   it('tries the input combinations the spec declares impossible', () => {
     // The unguarded counter, where go is declared never to be pulled: the overlap lies only there.
     const m = counterMachine();
     const quiet = { ...m, never: ['1'], rows: m.rows.map((rs) => rs.filter((r) => r.cube === '0')) };
-    const b = handBuild({ machine: quiet, codes: ['00', '01', '10'], equations: brokenBuild('counter-unguarded').equations });
+    const b = handBuild({
+      machine: quiet,
+      codes: ['00', '01', '10'],
+      equations: brokenBuild('counter-unguarded').equations,
+    });
     const r = checkForbiddenInput(b, DEFAULT_PROFILE);
     expect(r.ok).toBe(false);
     expect(r.counterexample?.inputs).toBe('1');

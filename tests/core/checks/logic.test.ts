@@ -29,7 +29,11 @@ describe('core/checks/logic', () => {
   it('looks through buffer trees when it confirms the slave wiring', () => {
     const dk27 = fixture('dk27');
     const n = dk27.states.length;
-    const oneHot = { strategy: 'one-hot', bits: n, codes: dk27.states.map((_, i) => '0'.repeat(i) + '1' + '0'.repeat(n - i - 1)) };
+    const oneHot = {
+      strategy: 'one-hot',
+      bits: n,
+      codes: dk27.states.map((_, i) => '0'.repeat(i) + '1' + '0'.repeat(n - i - 1)),
+    };
     const b = synthesise(dk27, oneHot, { profile: DEFAULT_PROFILE });
     // 7 bits: φ2 feeds 14 transfer gates, past the fan-out of 10, so it is buffered.
     expect(b.netlist.parts.some((p) => p.id.startsWith('clk.phi2.buf'))).toBe(true);
@@ -38,7 +42,8 @@ describe('core/checks/logic', () => {
   });
 
   it('forbidden-input finds a point where S and R are both 1', () => {
-    const s0 = good.equations[0].terms, r0 = good.equations[1].terms;
+    const s0 = good.equations[0].terms,
+      r0 = good.equations[1].terms;
     const bad = withEquation(good, 'S0', [...s0, ...r0]);
     const r = checkForbiddenInput(bad);
     expect(r.ok).toBe(false);
@@ -49,12 +54,27 @@ describe('core/checks/logic', () => {
   });
 
   it('forbidden-input notices a slave wired without its transfer gate or with reset on both sides', () => {
-    const noPhi2 = withNetlist(good, (n) => ({ ...n, cords: n.cords.map((c) => (c.driver === 'clk.phi2' ? { ...c, ports: c.ports.filter((p) => p.part !== 'tr1.set') } : c)) }));
+    const noPhi2 = withNetlist(good, (n) => ({
+      ...n,
+      cords: n.cords.map((c) =>
+        c.driver === 'clk.phi2' ? { ...c, ports: c.ports.filter((p) => p.part !== 'tr1.set') } : c,
+      ),
+    }));
     expect(checkForbiddenInput(noPhi2)).toMatchObject({ ok: false, counterexample: { latch: 's1' } });
     const bothSides = withNetlist(good, (n) => ({
       ...n,
-      parts: n.parts.map((p) => (p.id === 'm0.set' && p.kind === 'gate' ? { ...p, ports: [...p.ports, { name: 'x1' }] } : p.id === 'm0.reset' && p.kind === 'gate' ? { ...p, ports: [...p.ports, { name: 'x1' }] } : p)),
-      cords: n.cords.map((c) => (c.driver === 'rst.drv' ? { ...c, ports: [...c.ports, { part: 'm0.set', port: 'x1' }, { part: 'm0.reset', port: 'x1' }] } : c)),
+      parts: n.parts.map((p) =>
+        p.id === 'm0.set' && p.kind === 'gate'
+          ? { ...p, ports: [...p.ports, { name: 'x1' }] }
+          : p.id === 'm0.reset' && p.kind === 'gate'
+            ? { ...p, ports: [...p.ports, { name: 'x1' }] }
+            : p,
+      ),
+      cords: n.cords.map((c) =>
+        c.driver === 'rst.drv'
+          ? { ...c, ports: [...c.ports, { part: 'm0.set', port: 'x1' }, { part: 'm0.reset', port: 'x1' }] }
+          : c,
+      ),
     }));
     expect(checkForbiddenInput(bothSides).ok).toBe(false);
   });
@@ -63,7 +83,14 @@ describe('core/checks/logic', () => {
     const bad = withEquation(good, 'S1', []);
     const r = checkNextStateEquivalence(bad);
     expect(r.ok).toBe(false);
-    const cx = r.counterexample as { state: string; code: string; inputs: string; what: string; expected: number; got: number };
+    const cx = r.counterexample as {
+      state: string;
+      code: string;
+      inputs: string;
+      what: string;
+      expected: number;
+      got: number;
+    };
     expect(cx.what).toBe('next q1');
     expect(cx.expected).toBe(1);
     expect(cx.got).toBe(0);

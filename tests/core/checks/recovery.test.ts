@@ -23,7 +23,12 @@ function lockAt(b: Build, code: string): Build {
     { kind: 'gate', id: 'lock.g2', name: 'lock gate 2', role: 'buffer', ports: [{ name: 'a' }] },
   ];
   const added: Cord[] = [
-    ...literal.map((d, j) => ({ id: `lock.l${j}`, driver: d, ports: [{ part: 'lock.detect', port: 'a' }], actuators: [] })),
+    ...literal.map((d, j) => ({
+      id: `lock.l${j}`,
+      driver: d,
+      ports: [{ part: 'lock.detect', port: 'a' }],
+      actuators: [],
+    })),
     { id: 'lock.phi1', driver: b.signals.phi1, ports: [{ part: 'lock.g1', port: 'a' }], actuators: [] },
     { id: 'lock.d', driver: 'lock.detect', ports: [{ part: 'lock.g1', port: 'a' }], actuators: [] },
     { id: 'lock.g', driver: 'lock.g1', ports: [{ part: 'lock.g2', port: 'a' }], actuators: [] },
@@ -44,9 +49,15 @@ describe('core/checks/recovery', () => {
     expect(r.ok).toBe(false);
     expect(r.codes).toEqual([{ code: '11', k: null }]);
     expect(r.worstK).toBeNull();
-    expect(r.loop).toEqual({ codes: ['11'], inputs: ['0'], words: 'lock-up loop among unused codes: 11 —go=0→ 11, for ever' });
+    expect(r.loop).toEqual({
+      codes: ['11'],
+      inputs: ['0'],
+      words: 'lock-up loop among unused codes: 11 —go=0→ 11, for ever',
+    });
     expect(r.hint).toMatch(/unusedCodes/);
-    expect(r.summary).toBe('1 unused code can stay unused for ever: lock-up loop among unused codes: 11 —go=0→ 11, for ever');
+    expect(r.summary).toBe(
+      '1 unused code can stay unused for ever: lock-up loop among unused codes: 11 —go=0→ 11, for ever',
+    );
   });
 
   it('leaves out never inputs unless told to include them', () => {
@@ -65,7 +76,10 @@ describe('core/checks/recovery', () => {
       ],
     });
     expect(checkRecovery(b, DEFAULT_PROFILE)).toMatchObject({ ok: true, worstK: 1 });
-    expect(checkRecovery(b, DEFAULT_PROFILE, { includeNever: true })).toMatchObject({ ok: false, loop: { codes: ['11'], inputs: ['0'] } });
+    expect(checkRecovery(b, DEFAULT_PROFILE, { includeNever: true })).toMatchObject({
+      ok: false,
+      loop: { codes: ['11'], inputs: ['0'] },
+    });
   });
 
   it('proves a real build whose unused codes are sent to the start state', () => {

@@ -29,7 +29,10 @@ describe('core/checks/timing', () => {
       cam: { phi1: [0, 108], phi2: [144, 324] },
       monteCarlo: { runs: 20, seed: 1, ok: true },
     });
-    expect(r.chains).toEqual({ phi1: ['S0.t0', 'latch M0 (2 stages)'], phi2: ['T0.s', 'latch Q0 (2 stages)', 'lit.t0', 'out_lit'] });
+    expect(r.chains).toEqual({
+      phi1: ['S0.t0', 'latch M0 (2 stages)'],
+      phi2: ['T0.s', 'latch Q0 (2 stages)', 'lit.t0', 'out_lit'],
+    });
   });
 
   it('picks a crank speed with room for the delay spread when none is given', () => {
@@ -41,14 +44,22 @@ describe('core/checks/timing', () => {
     const r = checkTiming(brokenBuild('toggle-long-chain'), profile, { crankRpm: 12 });
     expect(r.ok).toBe(false);
     expect(r.phaseTimesS.phi1).toBe(3.75);
-    expect(r.chains.phi1).toEqual([...Array.from({ length: 12 }, (_, i) => `buf${i + 1}`), 'S0.t0', 'latch M0 (2 stages)']);
-    expect(r.summary).toMatch(/^a crank at 12 turns per minute gives 5 s per clock, but one clock needs 8.5 s \(longest: φ1 chain buf1 → buf2 → /);
+    expect(r.chains.phi1).toEqual([
+      ...Array.from({ length: 12 }, (_, i) => `buf${i + 1}`),
+      'S0.t0',
+      'latch M0 (2 stages)',
+    ]);
+    expect(r.summary).toMatch(
+      /^a crank at 12 turns per minute gives 5 s per clock, but one clock needs 8.5 s \(longest: φ1 chain buf1 → buf2 → /,
+    );
   });
 
   it('reports a cam window that a slower run of delays overruns', () => {
     const r = checkTiming(toggleBuild(), profile, { crankRpm: 24 });
     expect(r.ok).toBe(false);
-    expect(r.monteCarlo.race?.words).toMatch(/^Monte Carlo run \d+ \(seed 1\): with stage delays varied by up to ±30 %, .* needs .* s but its cam window lasts/);
+    expect(r.monteCarlo.race?.words).toMatch(
+      /^Monte Carlo run \d+ \(seed 1\): with stage delays varied by up to ±30 %, .* needs .* s but its cam window lasts/,
+    );
   });
 
   it('reports the race of a latch released from the forbidden input, the same way twice', () => {
@@ -56,7 +67,9 @@ describe('core/checks/timing', () => {
     const first = checkTiming(b, profile, { seed: 7 });
     const again = checkTiming(b, profile, { seed: 7 });
     expect(first.monteCarlo.ok).toBe(false);
-    expect(first.monteCarlo.race?.words).toMatch(/a race — one clock from code 0 with t=0: nominal delays leave code X, varied delays code [01]$/);
+    expect(first.monteCarlo.race?.words).toMatch(
+      /a race — one clock from code 0 with t=0: nominal delays leave code X, varied delays code [01]$/,
+    );
     expect(again).toEqual(first);
   });
 
@@ -66,7 +79,18 @@ describe('core/checks/timing', () => {
       ...b,
       netlist: {
         parts: [...b.netlist.parts, { kind: 'gate', id: 'ring', name: 'ring', role: 'buffer', ports: [{ name: 'a' }] }],
-        cords: [...b.netlist.cords, { id: 'r1', driver: 'ring', ports: [{ part: 'ring', port: 'a' }, { part: 'S0.t0', port: 'p0' }], actuators: [] }],
+        cords: [
+          ...b.netlist.cords,
+          {
+            id: 'r1',
+            driver: 'ring',
+            ports: [
+              { part: 'ring', port: 'a' },
+              { part: 'S0.t0', port: 'p0' },
+            ],
+            actuators: [],
+          },
+        ],
       },
     };
     const r = checkTiming(ring, profile);
@@ -87,9 +111,22 @@ describe('core/checks/timing', () => {
   });
 
   it('has nothing to time in a machine with one state and no inputs', () => {
-    const still: FlatMachine = { name: 'still', inputs: [], outputs: ['on'], states: ['only'], start: 0, rows: [[{ cube: '', next: 0, out: [1], transition: 0 }]], never: [] };
+    const still: FlatMachine = {
+      name: 'still',
+      inputs: [],
+      outputs: ['on'],
+      states: ['only'],
+      start: 0,
+      rows: [[{ cube: '', next: 0, out: [1], transition: 0 }]],
+      never: [],
+    };
     const r = checkTiming(synthesise(still, { strategy: 'binary', bits: 0, codes: [''] }, { profile }), profile);
-    expect(r).toMatchObject({ ok: true, clockS: 0, clocksPerMinute: 0, summary: 'nothing to time: the machine has no clock levers and no inputs' });
+    expect(r).toMatchObject({
+      ok: true,
+      clockS: 0,
+      clocksPerMinute: 0,
+      summary: 'nothing to time: the machine has no clock levers and no inputs',
+    });
   });
 
   it.each(exampleNames())('passes for the example %s', (name) => {

@@ -9,10 +9,26 @@ import { escapeXml } from '../../../src/core/export/escape.js';
 import { table, type Doc } from '../../../src/core/export/doc.js';
 import { example, exampleNames, xmlProblems } from './support.js';
 
-const SECTIONS = ['Machine', 'Safety', 'State table', 'Set and reset equations', 'Forbidden-input guard', 'Parts and bill of materials', 'Drive margins', 'Timing and clock rate', 'Wiring list', 'Operating rules'];
+const SECTIONS = [
+  'Machine',
+  'Safety',
+  'State table',
+  'Set and reset equations',
+  'Forbidden-input guard',
+  'Parts and bill of materials',
+  'Drive margins',
+  'Timing and clock rate',
+  'Wiring list',
+  'Operating rules',
+];
 
 /** Cells of a Markdown table row, split at pipes that are not escaped. */
-const mdCells = (row: string): string[] => row.trim().replace(/^\|/, '').replace(/\|$/, '').split(/(?<!\\)\|/);
+const mdCells = (row: string): string[] =>
+  row
+    .trim()
+    .replace(/^\|/, '')
+    .replace(/\|$/, '')
+    .split(/(?<!\\)\|/);
 
 describe('core/export/build-sheet', () => {
   it('prints every example as one well-formed, self-contained HTML page with every section', () => {
@@ -63,7 +79,9 @@ describe('core/export/build-sheet', () => {
     const b = example('marble-bell.lw');
     const html = buildSheetHtml(b);
     for (const r of OPERATING_RULES) expect(html).toContain(escapeXml(RULE_WORDS[r]));
-    const fi = checkNamed<{ rules: { words: string; upsets: string[] }[] } & import('../../../src/core/model/build.js').CheckResult>(b.checks, 'forbidden-input');
+    const fi = checkNamed<
+      { rules: { words: string; upsets: string[] }[] } & import('../../../src/core/model/build.js').CheckResult
+    >(b.checks, 'forbidden-input');
     for (const r of fi?.rules ?? []) if (r.upsets.length > 0) expect(html).toContain(escapeXml(r.words));
     const t = checkNamed<TimingResult>(b.checks, 'timing') as TimingResult;
     expect(html).toContain(`${Math.round(t.clocksPerMinute * 10) / 10} clocks per minute`);
@@ -74,7 +92,10 @@ describe('core/export/build-sheet', () => {
     const bare = buildSheetMd({ build: b.build, checks: [], profile: b.profile });
     expect(bare).toContain('The timing check was not run for this sheet.');
     expect(bare).toContain('No checks were run for this sheet.');
-    const failed = buildSheet({ ...b, checks: [{ name: 'equivalence', ok: false, summary: 'outputs differ in state two' }] });
+    const failed = buildSheet({
+      ...b,
+      checks: [{ name: 'equivalence', ok: false, summary: 'outputs differ in state two' }],
+    });
     const note = failed.sections[0].blocks.find((x) => x.kind === 'note');
     expect(note).toMatchObject({ tone: 'fail', items: ['equivalence: outputs differ in state two'] });
   });
@@ -82,7 +103,22 @@ describe('core/export/build-sheet', () => {
   it('keeps every Markdown table rectangular, whatever the cells hold', () => {
     const doc: Doc = {
       title: 'T|t',
-      sections: [{ id: 'x', title: 'x', blocks: [table(['a', 'b|c'], [['x | y', '`q|r`'], ['back\\', 'new\nline']], { mono: [1], tick: true })] }],
+      sections: [
+        {
+          id: 'x',
+          title: 'x',
+          blocks: [
+            table(
+              ['a', 'b|c'],
+              [
+                ['x | y', '`q|r`'],
+                ['back\\', 'new\nline'],
+              ],
+              { mono: [1], tick: true },
+            ),
+          ],
+        },
+      ],
     };
     const md = renderDocMd(doc);
     const rows = md.split('\n').filter((l) => l.startsWith('|'));

@@ -15,7 +15,10 @@ describe('core/export/commissioning', () => {
       const f = b.machine;
       const tour = commissioningTour(f);
       const rows = commissioningRows(b, DEFAULT_PROFILE, tour);
-      expect(rows.filter((r) => r.note !== '').map((r) => `${r.step}: ${r.note}`), name).toEqual([]);
+      expect(
+        rows.filter((r) => r.note !== '').map((r) => `${r.step}: ${r.note}`),
+        name,
+      ).toEqual([]);
       if (b.encoding.bits === 0) {
         expect(rows).toHaveLength(tour.length);
         continue;
@@ -54,7 +57,9 @@ describe('core/export/commissioning', () => {
       r.outputs.forEach((o, k) => {
         if (want[k] !== '-') expect(o.shows).toBe(String(want[k]));
       });
-      expect(r.action).toBe(`Set the input levers: ${inputWords(f.inputs, tour[i].inputs)}${i > 0 && tour[i - 1].inputs === tour[i].inputs ? ' (no change)' : ''}.`);
+      expect(r.action).toBe(
+        `Set the input levers: ${inputWords(f.inputs, tour[i].inputs)}${i > 0 && tour[i - 1].inputs === tour[i].inputs ? ' (no change)' : ''}.`,
+      );
     });
   });
 
@@ -62,7 +67,12 @@ describe('core/export/commissioning', () => {
     const b = example('marble-bell.lw').build;
     const cut: Build = {
       ...b,
-      netlist: { ...b.netlist, cords: b.netlist.cords.map((c) => (c.driver === 'rst.drv' ? { ...c, ports: c.ports.filter((p) => p.part !== 's1.reset') } : c)) },
+      netlist: {
+        ...b.netlist,
+        cords: b.netlist.cords.map((c) =>
+          c.driver === 'rst.drv' ? { ...c, ports: c.ports.filter((p) => p.part !== 's1.reset') } : c,
+        ),
+      },
     };
     const rows = commissioningRows(cut, DEFAULT_PROFILE, commissioningTour(b.machine));
     expect(rows[0].note).toContain('the state table says');
@@ -82,7 +92,17 @@ describe('core/export/commissioning', () => {
     const rows = commissioningRows(b, DEFAULT_PROFILE, commissioningTour(b.machine));
     const parsed = csvParse(commissioningCsv(rows));
     expect(parsed).toHaveLength(rows.length);
-    expect(parsed.columns).toEqual(['step', 'clock', 'action', ...rows[0].latches.flatMap((l) => [`${l.id} set Z`, `${l.id} reset Z`]), 'bell (flag.bell)', 'state after', 'code after', 'note', 'done']);
+    expect(parsed.columns).toEqual([
+      'step',
+      'clock',
+      'action',
+      ...rows[0].latches.flatMap((l) => [`${l.id} set Z`, `${l.id} reset Z`]),
+      'bell (flag.bell)',
+      'state after',
+      'code after',
+      'note',
+      'done',
+    ]);
     expect(parsed.every((p) => p.done === '')).toBe(true);
     expect(parsed[0]['s0 set Z']).toBe(rows[0].latches.find((l) => l.id === 's0')?.setZ);
     expect(parsed[0]['bell (flag.bell)']).toBe(showsWords('flag', rows[0].outputs[0].shows));

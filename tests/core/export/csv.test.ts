@@ -6,11 +6,21 @@ import { csvField, recordsToCsv, toCsv } from '../../../src/core/export/csv.js';
 describe('core/export/csv', () => {
   // RFC 4180 (Y. Shafranovich, IETF, 2005), section 2 examples.
   it('ends every record in CRLF (RFC 4180 §2.1–2.2)', () => {
-    expect(toCsv([['aaa', 'bbb', 'ccc'], ['zzz', 'yyy', 'xxx']])).toBe('aaa,bbb,ccc\r\nzzz,yyy,xxx\r\n');
+    expect(
+      toCsv([
+        ['aaa', 'bbb', 'ccc'],
+        ['zzz', 'yyy', 'xxx'],
+      ]),
+    ).toBe('aaa,bbb,ccc\r\nzzz,yyy,xxx\r\n');
   });
 
   it('quotes fields holding CRLF, comma or quote and doubles the quote (RFC 4180 §2.6–2.7)', () => {
-    expect(toCsv([['aaa', 'b\r\nbb', 'ccc'], ['zzz', 'yyy', 'xxx']])).toBe('aaa,"b\r\nbb",ccc\r\nzzz,yyy,xxx\r\n');
+    expect(
+      toCsv([
+        ['aaa', 'b\r\nbb', 'ccc'],
+        ['zzz', 'yyy', 'xxx'],
+      ]),
+    ).toBe('aaa,"b\r\nbb",ccc\r\nzzz,yyy,xxx\r\n');
     expect(toCsv([['aaa', 'b"bb', 'ccc']])).toBe('aaa,"b""bb",ccc\r\n');
     expect(csvField('a,b')).toBe('"a,b"');
     expect(csvField('line\nbreak')).toBe('"line\nbreak"');
@@ -40,12 +50,21 @@ describe('core/export/csv', () => {
   });
 
   it('writes records under a header in column order', () => {
-    const csv = recordsToCsv<{ a: string; b: number }>(['b', 'a'], [{ a: 'x', b: 1 }, { a: '=y', b: -2 }]);
+    const csv = recordsToCsv<{ a: string; b: number }>(
+      ['b', 'a'],
+      [
+        { a: 'x', b: 1 },
+        { a: '=y', b: -2 },
+      ],
+    );
     expect(csv).toBe("b,a\r\n1,x\r\n-2,'=y\r\n");
   });
 
   it('parses back to the same cells with d3-dsv, the escape quote aside (property)', () => {
-    const cell = fc.string({ unit: fc.constantFrom('a', 'Z', '1', ' ', ',', '"', '\r', '\n', '=', '+', '-', '@', '\t', "'", 'é'), maxLength: 8 });
+    const cell = fc.string({
+      unit: fc.constantFrom('a', 'Z', '1', ' ', ',', '"', '\r', '\n', '=', '+', '-', '@', '\t', "'", 'é'),
+      maxLength: 8,
+    });
     fc.assert(
       fc.property(fc.array(fc.array(cell, { minLength: 2, maxLength: 5 }), { minLength: 1, maxLength: 6 }), (rows) => {
         const back = csvParseRows(toCsv(rows));

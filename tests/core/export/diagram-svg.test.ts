@@ -8,7 +8,8 @@ import { example, exampleNames, xmlProblems } from './support.js';
 
 type Box = { readonly x: number; readonly y: number; readonly width: number; readonly height: number };
 /** Boxes given by their top-left corner. */
-const apart = (a: Box, b: Box): boolean => a.x + a.width <= b.x || b.x + b.width <= a.x || a.y + a.height <= b.y || b.y + b.height <= a.y;
+const apart = (a: Box, b: Box): boolean =>
+  a.x + a.width <= b.x || b.x + b.width <= a.x || a.y + a.height <= b.y || b.y + b.height <= a.y;
 
 /** Only the fields the diagram reads: a machine with a Moore output z and a Mealy output w, and a free row. */
 function handBuild(): Build {
@@ -40,12 +41,17 @@ describe('core/export/diagram-svg', () => {
       expect(xmlProblems(diagramSvg(b)), name).toEqual([]);
       const l = diagramLayout(b);
       expect(l.states).toHaveLength(b.machine.states.length);
-      const boxes = [...l.states.map((s) => s.outer), ...l.arrows.map((a) => {
-        // The label's text: 10 px monospace, about 0.6 em per character; 13 px per line.
-        const w = Math.max(...a.label.map((t) => [...t].length)) * 6;
-        return { x: a.x - w / 2, y: a.y - (a.label.length * 13) / 2, width: w, height: a.label.length * 13 };
-      })];
-      for (let i = 0; i < boxes.length; i++) for (let j = i + 1; j < boxes.length; j++) expect(apart(boxes[i], boxes[j]), `${name}: box ${i} × box ${j}`).toBe(true);
+      const boxes = [
+        ...l.states.map((s) => s.outer),
+        ...l.arrows.map((a) => {
+          // The label's text: 10 px monospace, about 0.6 em per character; 13 px per line.
+          const w = Math.max(...a.label.map((t) => [...t].length)) * 6;
+          return { x: a.x - w / 2, y: a.y - (a.label.length * 13) / 2, width: w, height: a.label.length * 13 };
+        }),
+      ];
+      for (let i = 0; i < boxes.length; i++)
+        for (let j = i + 1; j < boxes.length; j++)
+          expect(apart(boxes[i], boxes[j]), `${name}: box ${i} × box ${j}`).toBe(true);
     }
   });
 
@@ -66,11 +72,14 @@ describe('core/export/diagram-svg', () => {
       const b = example(name).build;
       const f = b.machine;
       const l = diagramLayout(b);
-      const guardsOf = (s: number, t: number): readonly string[] => (s === t ? l.states[s].loopGuards : l.arrows.find((a) => a.from === s && a.to === t)?.guards ?? []);
+      const guardsOf = (s: number, t: number): readonly string[] =>
+        s === t ? l.states[s].loopGuards : (l.arrows.find((a) => a.from === s && a.to === t)?.guards ?? []);
       f.rows.forEach((rows, s) => {
         const targets = new Set(rows.filter((r) => r.next !== DONT_CARE).map((r) => r.next));
         for (const t of targets) {
-          const text = guardsOf(s, t).map((g) => (g === 'always' ? '1' : `(${g})`)).join(' | ');
+          const text = guardsOf(s, t)
+            .map((g) => (g === 'always' ? '1' : `(${g})`))
+            .join(' | ');
           const want = rows.filter((r) => r.next === t).map((r) => r.cube);
           const back = parseGuard(text, f.inputs, {}).guard?.cubes as readonly Cube[];
           expect(coverContains(back, want), `${name} ${s}→${t}: ${text}`).toBe(true);

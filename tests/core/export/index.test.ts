@@ -4,7 +4,9 @@ import { csvParse, csvParseRows } from 'd3';
 import { buildDocuments, DOCUMENT_FILES } from '../../../src/core/export/index.js';
 import { EVIL, evilBuild, example, exampleNames, schemaProblems, xmlProblems, type Schema } from './support.js';
 
-const schema = JSON.parse(readFileSync(new URL('../../../schemas/netlist.schema.json', import.meta.url), 'utf8')) as Schema;
+const schema = JSON.parse(
+  readFileSync(new URL('../../../schemas/netlist.schema.json', import.meta.url), 'utf8'),
+) as Schema;
 
 /** Every document parses in its own format; returns the problems found. */
 function parseProblems(files: ReadonlyMap<string, string>): string[] {
@@ -42,7 +44,15 @@ describe('core/export/index', () => {
   it('uses a given commissioning sequence in the sheet and the testbench', () => {
     const b = example('marble-bell.lw');
     const f = b.build.machine;
-    const tour = [{ reset: false, inputs: '1', state: f.start, row: f.rows[f.start].findIndex((r) => r.cube === '1'), next: f.rows[f.start].find((r) => r.cube === '1')?.next ?? 0 }];
+    const tour = [
+      {
+        reset: false,
+        inputs: '1',
+        state: f.start,
+        row: f.rows[f.start].findIndex((r) => r.cube === '1'),
+        next: f.rows[f.start].find((r) => r.cube === '1')?.next ?? 0,
+      },
+    ];
     const docs = buildDocuments({ ...b, tour });
     expect(docs.get('commissioning.csv')?.trim().split('\r\n')).toHaveLength(1 + 1 + 5);
     expect(docs.get('machine_tb.v')).toContain('the commissioning sequence, 1 clocks.');
@@ -63,7 +73,9 @@ describe('core/export/index', () => {
         for (const line of text.split('\n')) expect(line.replace(/`[^`]*`/g, ''), file).not.toMatch(/(?<!\\)[<&]/);
       }
       if (file.endsWith('.json')) {
-        const doc = JSON.parse(text) as { machine: { name: string; inputs: string[]; outputs: string[]; states: { name: string }[] } };
+        const doc = JSON.parse(text) as {
+          machine: { name: string; inputs: string[]; outputs: string[]; states: { name: string }[] };
+        };
         expect(doc.machine.name).toBe(EVIL.machine);
         expect(doc.machine.inputs).toEqual([EVIL.input]);
         expect(doc.machine.outputs).toEqual([EVIL.output]);

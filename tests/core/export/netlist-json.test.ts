@@ -4,7 +4,9 @@ import type { Build } from '../../../src/core/model/build.js';
 import { netlistDocument, netlistJson, sortedParts } from '../../../src/core/export/netlist-json.js';
 import { example, exampleNames, schemaProblems, type Schema } from './support.js';
 
-const schema = JSON.parse(readFileSync(new URL('../../../schemas/netlist.schema.json', import.meta.url), 'utf8')) as Schema & { $schema: string };
+const schema = JSON.parse(
+  readFileSync(new URL('../../../schemas/netlist.schema.json', import.meta.url), 'utf8'),
+) as Schema & { $schema: string };
 
 describe('core/export/netlist-json', () => {
   it('declares JSON Schema 2020-12', () => {
@@ -21,7 +23,10 @@ describe('core/export/netlist-json', () => {
   });
 
   it('the schema rejects what it should: a wrong kind, a missing field, an extra field', () => {
-    const doc = JSON.parse(netlistJson(example('marble-bell.lw').build)) as { parts: Record<string, unknown>[]; cords: Record<string, unknown>[] };
+    const doc = JSON.parse(netlistJson(example('marble-bell.lw').build)) as {
+      parts: Record<string, unknown>[];
+      cords: Record<string, unknown>[];
+    };
     const bad1 = { ...doc, parts: [{ ...doc.parts[0], kind: 'spring' }, ...doc.parts.slice(1)] };
     const bad2 = { ...doc, cords: [{ id: 'c', driver: 'x', ports: [] }] };
     const bad3 = { ...doc, extra: 1 };
@@ -32,9 +37,16 @@ describe('core/export/netlist-json', () => {
 
   it('round-trips the netlist: same parts and cords, as sets', () => {
     const b = example('crossing.lw').build;
-    const doc = JSON.parse(netlistJson(b)) as { parts: { id: string }[]; cords: { id: string; driver: string; ports: { part: string; port: string }[] }[] };
+    const doc = JSON.parse(netlistJson(b)) as {
+      parts: { id: string }[];
+      cords: { id: string; driver: string; ports: { part: string; port: string }[] }[];
+    };
     expect(doc.parts.map((p) => p.id).sort()).toEqual(b.netlist.parts.map((p) => p.id).sort());
-    const key = (c: { id: string; driver: string; ports: readonly { part: string; port: string }[] }): string => `${c.id}<${c.driver}>${c.ports.map((p) => `${p.part}.${p.port}`).sort().join(',')}`;
+    const key = (c: { id: string; driver: string; ports: readonly { part: string; port: string }[] }): string =>
+      `${c.id}<${c.driver}>${c.ports
+        .map((p) => `${p.part}.${p.port}`)
+        .sort()
+        .join(',')}`;
     expect(doc.cords.map(key).sort()).toEqual(b.netlist.cords.map(key).sort());
     expect(JSON.stringify(netlistDocument(b))).toBe(JSON.stringify(JSON.parse(netlistJson(b))));
   });
@@ -53,13 +65,25 @@ describe('core/export/netlist-json', () => {
 
   it('is stable: the same build gives the same text, and a netlist in another order gives the same text', () => {
     const b = example('sequence-lock.lw').build;
-    const shuffled: Build = { ...b, netlist: { parts: [...b.netlist.parts].reverse(), cords: [...b.netlist.cords].reverse().map((c) => ({ ...c, ports: [...c.ports].reverse() })) } };
+    const shuffled: Build = {
+      ...b,
+      netlist: {
+        parts: [...b.netlist.parts].reverse(),
+        cords: [...b.netlist.cords].reverse().map((c) => ({ ...c, ports: [...c.ports].reverse() })),
+      },
+    };
     expect(netlistJson(shuffled)).toBe(netlistJson(b));
   });
 
   it('puts one part or cord per line, so one changed part changes one line', () => {
     const b = example('marble-bell.lw').build;
-    const renamed: Build = { ...b, netlist: { ...b.netlist, parts: b.netlist.parts.map((p) => (p.id === 't.R0.1' ? { ...p, name: 'renamed term' } : p)) } };
+    const renamed: Build = {
+      ...b,
+      netlist: {
+        ...b.netlist,
+        parts: b.netlist.parts.map((p) => (p.id === 't.R0.1' ? { ...p, name: 'renamed term' } : p)),
+      },
+    };
     const a = netlistJson(b).split('\n');
     const c = netlistJson(renamed).split('\n');
     expect(c).toHaveLength(a.length);

@@ -10,11 +10,14 @@ import { example, exampleNames, xmlProblems } from './support.js';
 
 type Box = { readonly x: number; readonly y: number; readonly width: number; readonly height: number };
 
-const overlap = (a: Box, b: Box): boolean => Math.abs(a.x - b.x) * 2 < a.width + b.width && Math.abs(a.y - b.y) * 2 < a.height + b.height;
+const overlap = (a: Box, b: Box): boolean =>
+  Math.abs(a.x - b.x) * 2 < a.width + b.width && Math.abs(a.y - b.y) * 2 < a.height + b.height;
 
 function overlappingPairs(l: SchematicLayout): string[] {
   const out: string[] = [];
-  for (let i = 0; i < l.nodes.length; i++) for (let j = i + 1; j < l.nodes.length; j++) if (overlap(l.nodes[i], l.nodes[j])) out.push(`${l.nodes[i].id} × ${l.nodes[j].id}`);
+  for (let i = 0; i < l.nodes.length; i++)
+    for (let j = i + 1; j < l.nodes.length; j++)
+      if (overlap(l.nodes[i], l.nodes[j])) out.push(`${l.nodes[i].id} × ${l.nodes[j].id}`);
   return out;
 }
 
@@ -52,13 +55,31 @@ describe('core/export/schematic-svg', () => {
       expect(xmlProblems(svg), name).toEqual([]);
       expect(svg).toContain('xmlns="http://www.w3.org/2000/svg"');
       expect(svg).not.toMatch(/(href|src)=/);
-      const latchGate = (id: string): boolean => b.netlist.parts.some((p) => p.kind === 'gate' && p.latch !== undefined && p.id === id);
-      expect(l.nodes.map((n) => n.id).sort(), name).toEqual(b.netlist.parts.filter((p) => !latchGate(p.id)).map((p) => p.id).sort());
+      const latchGate = (id: string): boolean =>
+        b.netlist.parts.some((p) => p.kind === 'gate' && p.latch !== undefined && p.id === id);
+      expect(l.nodes.map((n) => n.id).sort(), name).toEqual(
+        b.netlist.parts
+          .filter((p) => !latchGate(p.id))
+          .map((p) => p.id)
+          .sort(),
+      );
       // Every branch but a latch's own feedback is a line.
-      const latchOf = new Map(b.netlist.parts.flatMap((p) => (p.kind === 'gate' && p.latch ? [[p.id, p.latch] as const] : [])));
+      const latchOf = new Map(
+        b.netlist.parts.flatMap((p) => (p.kind === 'gate' && p.latch ? [[p.id, p.latch] as const] : [])),
+      );
       const node = (id: string): string => latchOf.get(id) ?? id;
-      const branches = b.netlist.cords.flatMap((c) => [...c.ports.map((p) => p.part), ...c.actuators].filter((t) => node(t) !== node(c.driver)).map((t) => `${c.id}>${node(t)}`));
-      expect(l.edges.filter((e) => e.style !== 'reads').map((e) => `${e.cord}>${e.to}`).sort(), name).toEqual(branches.sort());
+      const branches = b.netlist.cords.flatMap((c) =>
+        [...c.ports.map((p) => p.part), ...c.actuators]
+          .filter((t) => node(t) !== node(c.driver))
+          .map((t) => `${c.id}>${node(t)}`),
+      );
+      expect(
+        l.edges
+          .filter((e) => e.style !== 'reads')
+          .map((e) => `${e.cord}>${e.to}`)
+          .sort(),
+        name,
+      ).toEqual(branches.sort());
       expect(overlappingPairs(l), name).toEqual([]);
     }
   });
@@ -72,7 +93,12 @@ describe('core/export/schematic-svg', () => {
       expect(c).toBeDefined();
       for (const id of [`m${j}`, `s${j}`, `tr${j}.set`, `tr${j}.reset`]) {
         const n = l.nodes.find((x) => x.id === id) as Box;
-        const inside = c && n.x - n.width / 2 >= c.x && n.x + n.width / 2 <= c.x + c.width && n.y - n.height / 2 >= c.y && n.y + n.height / 2 <= c.y + c.height;
+        const inside =
+          c &&
+          n.x - n.width / 2 >= c.x &&
+          n.x + n.width / 2 <= c.x + c.width &&
+          n.y - n.height / 2 >= c.y &&
+          n.y + n.height / 2 <= c.y + c.height;
         expect(inside, `${id} in bit ${j}`).toBe(true);
       }
     }
@@ -87,7 +113,8 @@ describe('core/export/schematic-svg', () => {
       for (const e of l.edges) {
         const r1 = STAGE_RANK[stages.stage.get(e.from) ?? 'indicator'];
         const r2 = STAGE_RANK[stages.stage.get(e.to) ?? 'indicator'];
-        if (r2 > r1) expect((at.get(e.to)?.x ?? 0) > (at.get(e.from)?.x ?? 0), `${name}: ${e.from} → ${e.to}`).toBe(true);
+        if (r2 > r1)
+          expect((at.get(e.to)?.x ?? 0) > (at.get(e.from)?.x ?? 0), `${name}: ${e.from} → ${e.to}`).toBe(true);
       }
     }
   });
@@ -95,7 +122,17 @@ describe('core/export/schematic-svg', () => {
   it('marks kinds in its own words and shows the lever glyph on levers', () => {
     const b = example('marble-bell.lw').build;
     const svg = schematicSvg(b, layoutOf(b));
-    for (const words of ['operator lever', 'clock lever', 'reset lever', 'φ1 term', 'φ2 transfer', 'Q · set', 'Q̄ · reset', 'state bit q0']) expect(svg).toContain(words);
+    for (const words of [
+      'operator lever',
+      'clock lever',
+      'reset lever',
+      'φ1 term',
+      'φ2 transfer',
+      'Q · set',
+      'Q̄ · reset',
+      'state bit q0',
+    ])
+      expect(svg).toContain(words);
     expect(svg.match(/class="pivot"/g)).toHaveLength(4);
   });
 

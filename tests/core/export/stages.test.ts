@@ -24,7 +24,15 @@ describe('core/export/stages', () => {
       { kind: 'lever', id: 'in.a', name: '', role: 'input', input: 'a' },
     ],
     cords: [
-      { id: 'c1', driver: 'in.a', ports: [{ part: 'x.a.inv', port: 'p1' }, { part: 't.S0.1.and1', port: 'p1' }], actuators: [] },
+      {
+        id: 'c1',
+        driver: 'in.a',
+        ports: [
+          { part: 'x.a.inv', port: 'p1' },
+          { part: 't.S0.1.and1', port: 'p1' },
+        ],
+        actuators: [],
+      },
       { id: 'c2', driver: 'clk.phi1', ports: [{ part: 'buf.a', port: 'in' }], actuators: [] },
       { id: 'c3', driver: 'buf.a', ports: [{ part: 'buf.b', port: 'in' }], actuators: [] },
       { id: 'c4', driver: 'buf.b', ports: [{ part: 't.S0.1', port: 'p1' }], actuators: [] },
@@ -33,7 +41,15 @@ describe('core/export/stages', () => {
       { id: 'c7', driver: 't.S0.1', ports: [{ part: 'm0.set', port: 's1' }], actuators: [] },
       { id: 'c8', driver: 'm0.set', ports: [{ part: 'tr0.set', port: 'p1' }], actuators: [] },
       { id: 'c9', driver: 'tr0.set', ports: [{ part: 's0.set', port: 's1' }], actuators: [] },
-      { id: 'c10', driver: 's0.set', ports: [{ part: 'o.z', port: 'p1' }, { part: 't.S0.1.and1', port: 'p1' }], actuators: [] },
+      {
+        id: 'c10',
+        driver: 's0.set',
+        ports: [
+          { part: 'o.z', port: 'p1' },
+          { part: 't.S0.1.and1', port: 'p1' },
+        ],
+        actuators: [],
+      },
     ],
   };
 
@@ -61,6 +77,22 @@ describe('core/export/stages', () => {
   it('orders by stage, then by netlist position', () => {
     const s = stagesOf(n);
     const ids = n.parts.map((p) => p.id).sort(s.compare);
-    expect(ids).toEqual(['buf.b', 'buf.a', 'clk.phi1', 'in.a', 'x.a.inv', 't.S0.1', 't.S0.1.and1.inv', 't.S0.1.and1', 'm0', 'm0.set', 'tr0.set', 's0.set', 's0', 'o.z', 'flag.z']);
+    expect(ids).toEqual([
+      'buf.b',
+      'buf.a',
+      'clk.phi1',
+      'in.a',
+      'x.a.inv',
+      't.S0.1',
+      't.S0.1.and1.inv',
+      't.S0.1.and1',
+      'm0',
+      'm0.set',
+      'tr0.set',
+      's0.set',
+      's0',
+      'o.z',
+      'flag.z',
+    ]);
   });
 });

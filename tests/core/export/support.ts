@@ -12,7 +12,10 @@ import type { FlatMachine } from '../../../src/core/model/flat.js';
 const EXAMPLES = new URL('../../../examples/', import.meta.url);
 
 /** File names of the example machines. */
-export const exampleNames = (): string[] => readdirSync(EXAMPLES).filter((f) => f.endsWith('.lw')).sort();
+export const exampleNames = (): string[] =>
+  readdirSync(EXAMPLES)
+    .filter((f) => f.endsWith('.lw'))
+    .sort();
 
 const built = new Map<string, Built>();
 
@@ -55,7 +58,8 @@ export function xmlProblems(text: string): string[] {
   let roots = 0;
   let i = 0;
   const textCheck = (s: string, where: number): void => {
-    for (let k = s.indexOf('&'); k >= 0; k = s.indexOf('&', k + 1)) if (!ENTITY.test(s.slice(k))) out.push(`bad & at ${where + k}`);
+    for (let k = s.indexOf('&'); k >= 0; k = s.indexOf('&', k + 1))
+      if (!ENTITY.test(s.slice(k))) out.push(`bad & at ${where + k}`);
     if (s.includes('>') && stack.length === 0 && s.trim() !== '') out.push(`text outside the root at ${where}`);
   };
   while (i < text.length) {
@@ -110,12 +114,15 @@ export function xmlProblems(text: string): string[] {
     }
     const attrs = m[2];
     const seen = new Set<string>();
-    const rest = attrs.replace(/\s*([A-Za-z_:][A-Za-z0-9_.:-]*)\s*=\s*("[^"]*"|'[^']*')/g, (_all, name: string, value: string) => {
-      if (seen.has(name)) out.push(`repeated attribute ${name} at ${lt}`);
-      seen.add(name);
-      textCheck(value, lt);
-      return '';
-    });
+    const rest = attrs.replace(
+      /\s*([A-Za-z_:][A-Za-z0-9_.:-]*)\s*=\s*("[^"]*"|'[^']*')/g,
+      (_all, name: string, value: string) => {
+        if (seen.has(name)) out.push(`repeated attribute ${name} at ${lt}`);
+        seen.add(name);
+        textCheck(value, lt);
+        return '';
+      },
+    );
     if (rest.trim() !== '') out.push(`bad attributes '${rest.trim().slice(0, 30)}' at ${lt}`);
     if (stack.length === 0) roots++;
     if (!selfClosing) stack.push(m[1]);
@@ -165,16 +172,23 @@ export function schemaProblems(schema: Schema, value: unknown, root: Schema = sc
     (t === 'number' && typeof value === 'number') ||
     (t === 'boolean' && typeof value === 'boolean');
   if (!typeOk) return [`${path}: not of type ${t}`];
-  if ('const' in schema && JSON.stringify(schema.const) !== JSON.stringify(value)) out.push(`${path}: not ${JSON.stringify(schema.const)}`);
-  if (schema.enum && !schema.enum.some((e) => JSON.stringify(e) === JSON.stringify(value))) out.push(`${path}: ${JSON.stringify(value)} not in enum`);
+  if ('const' in schema && JSON.stringify(schema.const) !== JSON.stringify(value))
+    out.push(`${path}: not ${JSON.stringify(schema.const)}`);
+  if (schema.enum && !schema.enum.some((e) => JSON.stringify(e) === JSON.stringify(value)))
+    out.push(`${path}: ${JSON.stringify(value)} not in enum`);
   if (typeof value === 'string') {
-    if (schema.minLength !== undefined && value.length < schema.minLength) out.push(`${path}: shorter than ${schema.minLength}`);
-    if (schema.pattern !== undefined && !new RegExp(schema.pattern, 'u').test(value)) out.push(`${path}: does not match ${schema.pattern}`);
+    if (schema.minLength !== undefined && value.length < schema.minLength)
+      out.push(`${path}: shorter than ${schema.minLength}`);
+    if (schema.pattern !== undefined && !new RegExp(schema.pattern, 'u').test(value))
+      out.push(`${path}: does not match ${schema.pattern}`);
   }
-  if (typeof value === 'number' && schema.minimum !== undefined && value < schema.minimum) out.push(`${path}: below ${schema.minimum}`);
+  if (typeof value === 'number' && schema.minimum !== undefined && value < schema.minimum)
+    out.push(`${path}: below ${schema.minimum}`);
   if (Array.isArray(value)) {
-    if (schema.minItems !== undefined && value.length < schema.minItems) out.push(`${path}: fewer than ${schema.minItems} items`);
-    if (schema.items) value.forEach((v, k) => out.push(...schemaProblems(schema.items as Schema, v, root, `${path}[${k}]`)));
+    if (schema.minItems !== undefined && value.length < schema.minItems)
+      out.push(`${path}: fewer than ${schema.minItems} items`);
+    if (schema.items)
+      value.forEach((v, k) => out.push(...schemaProblems(schema.items as Schema, v, root, `${path}[${k}]`)));
   }
   if (typeof value === 'object' && value !== null && !Array.isArray(value)) {
     const obj = value as Record<string, unknown>;
@@ -183,7 +197,8 @@ export function schemaProblems(schema: Schema, value: unknown, root: Schema = sc
       const sub = schema.properties?.[k];
       if (sub) out.push(...schemaProblems(sub, v, root, `${path}.${k}`));
       else if (schema.additionalProperties === false) out.push(`${path}: unexpected ${k}`);
-      else if (typeof schema.additionalProperties === 'object') out.push(...schemaProblems(schema.additionalProperties, v, root, `${path}.${k}`));
+      else if (typeof schema.additionalProperties === 'object')
+        out.push(...schemaProblems(schema.additionalProperties, v, root, `${path}.${k}`));
     }
   }
   if (schema.oneOf) {

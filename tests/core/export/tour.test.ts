@@ -50,7 +50,11 @@ describe('core/export/tour', () => {
   it('takes every reachable transition, resetting out of a state it cannot leave', () => {
     const tour = commissioningTour(trap);
     const taken = replay(trap, tour);
-    expect([...taken].sort()).toEqual(reachableTransitions(trap).map(([s, k]) => `${s}:${k}`).sort());
+    expect([...taken].sort()).toEqual(
+      reachableTransitions(trap)
+        .map(([s, k]) => `${s}:${k}`)
+        .sort(),
+    );
     // The trap is entered once and left by a reset; nothing else needs one.
     expect(tour.filter((c) => c.reset).length).toBe(0);
     expect(tour[tour.length - 1].next).toBe(2);
@@ -87,7 +91,14 @@ describe('core/export/tour', () => {
   it('leaves out rows whose next state is free, and unreachable states', () => {
     const f: FlatMachine = {
       ...trap,
-      rows: [[{ cube: '1-', next: DONT_CARE, out: [0], transition: 0 }, { cube: '0-', next: 0, out: [0], transition: -1 }], trap.rows[1], trap.rows[2]],
+      rows: [
+        [
+          { cube: '1-', next: DONT_CARE, out: [0], transition: 0 },
+          { cube: '0-', next: 0, out: [0], transition: -1 },
+        ],
+        trap.rows[1],
+        trap.rows[2],
+      ],
       never: [],
     };
     expect(reachableTransitions(f)).toEqual([[0, 1]]);

@@ -21,7 +21,11 @@ function simulate(b: Build, tag: string): string {
   const dir = mkdtempSync(join(work, `${tag}-`));
   writeFileSync(join(dir, 'machine.v'), v.module);
   writeFileSync(join(dir, 'machine_tb.v'), v.testbench);
-  execFileSync('iverilog', ['-g2005', '-Wall', '-o', join(dir, 'sim'), join(dir, 'machine.v'), join(dir, 'machine_tb.v')], { stdio: 'pipe' });
+  execFileSync(
+    'iverilog',
+    ['-g2005', '-Wall', '-o', join(dir, 'sim'), join(dir, 'machine.v'), join(dir, 'machine_tb.v')],
+    { stdio: 'pipe' },
+  );
   return execFileSync('vvp', ['-n', join(dir, 'sim')], { encoding: 'utf8', timeout: 60_000 });
 }
 
@@ -39,7 +43,13 @@ describe('core/export/verilog', () => {
     const b = example('marble-bell.lw').build;
     // Cut the first term gate's cord off its first port: that latch input is never pulled.
     const first = b.netlist.cords.find((c) => c.driver.startsWith('t.'));
-    const cut: Build = { ...b, netlist: { ...b.netlist, cords: b.netlist.cords.map((c) => (c === first ? { ...c, ports: c.ports.slice(1) } : c)) } };
+    const cut: Build = {
+      ...b,
+      netlist: {
+        ...b.netlist,
+        cords: b.netlist.cords.map((c) => (c === first ? { ...c, ports: c.ports.slice(1) } : c)),
+      },
+    };
     const out = simulate(cut, 'cut');
     expect(out).toMatch(/FAIL clock \d+: state code is/);
     expect(out).toMatch(/FAIL \d+ mismatches/);
@@ -52,7 +62,9 @@ describe('core/export/verilog', () => {
     const gates = b.netlist.parts.filter((p) => p.kind === 'gate').length;
     expect(v.module.match(/^\s+nand #\(STAGE\) u_/gm)).toHaveLength(gates);
     expect(v.module).toContain('module lw_marble_bell #(parameter STAGE = 250000) (');
-    expect(v.module).toMatch(/input wire in_marble,\n\s+input wire phi1,\n\s+input wire phi2,\n\s+input wire reset,\n\s+output wire out_bell/);
+    expect(v.module).toMatch(
+      /input wire in_marble,\n\s+input wire phi1,\n\s+input wire phi2,\n\s+input wire reset,\n\s+output wire out_bell/,
+    );
     expect(v.module).toMatch(/and #\(STAGE\) f_flag_bell \(out_bell, g_s0_set, g_s1_set\);/);
     expect(v.module).toContain('//   g_t_S0_1 = output of gate t.S0.1');
     expect(v.testbench).toContain('$finish;');

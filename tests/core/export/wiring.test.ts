@@ -11,7 +11,12 @@ describe('core/export/wiring', () => {
     for (const name of exampleNames()) {
       const n = example(name).build.netlist;
       const rows = wiringRows(n, DEFAULT_PROFILE);
-      const want = n.cords.flatMap((c) => [...c.ports.map((p) => `${c.id}>${p.part}.${p.port}`), ...c.actuators.map((a) => `${c.id}>${a}.`)]).sort();
+      const want = n.cords
+        .flatMap((c) => [
+          ...c.ports.map((p) => `${c.id}>${p.part}.${p.port}`),
+          ...c.actuators.map((a) => `${c.id}>${a}.`),
+        ])
+        .sort();
       expect(rows.map((r) => `${r.cord}>${r.target}.${r.port}`).sort(), name).toEqual(want);
       expect(rows.map((r) => r.step)).toEqual(rows.map((_, i) => i + 1));
     }
@@ -61,7 +66,10 @@ describe('core/export/wiring', () => {
 
   it('shows a routing override in words and in the load', () => {
     const n = example('marble-bell.lw').build.netlist;
-    const profile: Profile = { ...DEFAULT_PROFILE, cordRouting: { 'c.clk.phi1': { pinAngleRad: Math.PI / 2, pulleys: 1 } } };
+    const profile: Profile = {
+      ...DEFAULT_PROFILE,
+      cordRouting: { 'c.clk.phi1': { pinAngleRad: Math.PI / 2, pulleys: 1 } },
+    };
     const rows = wiringRows(n, profile).filter((r) => r.cord === 'c.clk.phi1');
     // Capstan equation over a pin: e^(μ·α) = e^(0.2·π/2) ≈ 1.369, divided by the pulley's 0.95.
     expect(rows[0].routingFactor).toBeCloseTo(Math.exp(0.2 * (Math.PI / 2)) / 0.95, 3);
@@ -75,7 +83,21 @@ describe('core/export/wiring', () => {
     const text = wiringCsv(rows);
     expect(text.endsWith('\r\n')).toBe(true);
     const parsed = csvParse(text);
-    expect(parsed.columns).toEqual(['step', 'stage', 'cord', 'driver', 'driver name', 'driver side', 'target', 'target name', 'port', 'routing', 'routing factor', 'load (g)', 'driver margin']);
+    expect(parsed.columns).toEqual([
+      'step',
+      'stage',
+      'cord',
+      'driver',
+      'driver name',
+      'driver side',
+      'target',
+      'target name',
+      'port',
+      'routing',
+      'routing factor',
+      'load (g)',
+      'driver margin',
+    ]);
     expect(parsed).toHaveLength(rows.length);
     parsed.forEach((p, i) => {
       expect(p.cord).toBe(rows[i].cord);

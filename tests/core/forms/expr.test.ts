@@ -35,7 +35,10 @@ function exprArb(n: number): fc.Arbitrary<Expr> {
       leaf,
       tie('e').map((arg): Expr => ({ kind: 'not', arg })),
       fc
-        .tuple(fc.constantFrom('and' as const, 'or' as const, 'xor' as const), fc.array(tie('e'), { minLength: 2, maxLength: 3 }))
+        .tuple(
+          fc.constantFrom('and' as const, 'or' as const, 'xor' as const),
+          fc.array(tie('e'), { minLength: 2, maxLength: 3 }),
+        )
         .map(([kind, args]): Expr => ({ kind, args })),
     ),
   })).e;
@@ -51,7 +54,13 @@ describe('core/forms/expr', () => {
         {
           kind: 'xor',
           args: [
-            { kind: 'and', args: [{ kind: 'input', name: 'b', index: 1 }, { kind: 'not', arg: { kind: 'input', name: 'c', index: 2 } }] },
+            {
+              kind: 'and',
+              args: [
+                { kind: 'input', name: 'b', index: 1 },
+                { kind: 'not', arg: { kind: 'input', name: 'c', index: 2 } },
+              ],
+            },
             { kind: 'input', name: 'd', index: 3 },
           ],
         },
@@ -110,7 +119,13 @@ describe('core/forms/expr', () => {
     const r = parseGuard('marbel & lid', ['marble', 'lid'], at);
     expect(r.guard).toBeUndefined();
     expect(r.diagnostics).toEqual([
-      { code: 'LW201', severity: 'error', message: "unknown input 'marbel'", location: { line: 3, column: 10 }, hint: "did you mean 'marble'?" },
+      {
+        code: 'LW201',
+        severity: 'error',
+        message: "unknown input 'marbel'",
+        location: { line: 3, column: 10 },
+        hint: "did you mean 'marble'?",
+      },
     ]);
     const none = parseGuard('x', [], at);
     expect(none.diagnostics[0].hint).toBe('the machine declares no inputs');
@@ -186,11 +201,17 @@ describe('core/forms/expr', () => {
   it('never throws on arbitrary text (property)', () => {
     const alphabet = fc.constantFrom('a', 'b', 'zz', '!', '&', '|', '^', '(', ')', '0', '1', ' ', '$', '2', '_');
     fc.assert(
-      fc.property(fc.oneof(fc.string(), fc.array(alphabet, { maxLength: 20 }).map((x) => x.join(''))), (t) => {
-        const r = parseGuard(t, ins, at);
-        expect(r.guard !== undefined || r.diagnostics.some((d) => d.severity === 'error')).toBe(true);
-        for (const d of r.diagnostics) expect(d.location.column).toBeGreaterThanOrEqual(10);
-      }),
+      fc.property(
+        fc.oneof(
+          fc.string(),
+          fc.array(alphabet, { maxLength: 20 }).map((x) => x.join('')),
+        ),
+        (t) => {
+          const r = parseGuard(t, ins, at);
+          expect(r.guard !== undefined || r.diagnostics.some((d) => d.severity === 'error')).toBe(true);
+          for (const d of r.diagnostics) expect(d.location.column).toBeGreaterThanOrEqual(10);
+        },
+      ),
       { seed: 42, numRuns: 1000 },
     );
   });

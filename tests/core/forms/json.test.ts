@@ -11,20 +11,24 @@ const schema = JSON.parse(readFileSync('schemas/machine.schema.json', 'utf8')) a
 /** A tiny checker for the JSON Schema keywords our schema uses (draft 2020-12 meaning). */
 type Schema = { [k: string]: unknown };
 function schemaErrors(value: unknown, s: Schema, path = '$', root: Schema = s): string[] {
-  if (typeof s.$ref === 'string') return schemaErrors(value, (root.$defs as Record<string, Schema>)[s.$ref.replace('#/$defs/', '')], path, root);
+  if (typeof s.$ref === 'string')
+    return schemaErrors(value, (root.$defs as Record<string, Schema>)[s.$ref.replace('#/$defs/', '')], path, root);
   const errs: string[] = [];
   const isObj = typeof value === 'object' && value !== null && !Array.isArray(value);
   if (s.type === 'object' && !isObj) return [`${path}: not an object`];
   if (s.type === 'array' && !Array.isArray(value)) return [`${path}: not an array`];
   if (s.type === 'string' && typeof value !== 'string') return [`${path}: not a string`];
-  if (Array.isArray(s.enum) && !s.enum.includes(value as never)) return [`${path}: not one of ${JSON.stringify(s.enum)}`];
+  if (Array.isArray(s.enum) && !s.enum.includes(value as never))
+    return [`${path}: not one of ${JSON.stringify(s.enum)}`];
   if (typeof value === 'string') {
-    if (typeof s.pattern === 'string' && !new RegExp(s.pattern, 'u').test(value)) errs.push(`${path}: does not match ${s.pattern}`);
+    if (typeof s.pattern === 'string' && !new RegExp(s.pattern, 'u').test(value))
+      errs.push(`${path}: does not match ${s.pattern}`);
     if (typeof s.minLength === 'number' && value.length < s.minLength) errs.push(`${path}: too short`);
   }
   if (Array.isArray(value)) {
     if (typeof s.maxItems === 'number' && value.length > s.maxItems) errs.push(`${path}: too many items`);
-    if (s.uniqueItems === true && new Set(value.map((v) => JSON.stringify(v))).size !== value.length) errs.push(`${path}: repeated items`);
+    if (s.uniqueItems === true && new Set(value.map((v) => JSON.stringify(v))).size !== value.length)
+      errs.push(`${path}: repeated items`);
     if (s.items) value.forEach((v, i) => errs.push(...schemaErrors(v, s.items as Schema, `${path}[${i}]`, root)));
   }
   if (isObj) {
@@ -35,7 +39,8 @@ function schemaErrors(value: unknown, s: Schema, path = '$', root: Schema = s): 
       if (s.propertyNames) errs.push(...schemaErrors(k, s.propertyNames as Schema, `${path} key ${k}`, root));
       if (k in props) errs.push(...schemaErrors(v, props[k], `${path}.${k}`, root));
       else if (s.additionalProperties === false) errs.push(`${path}: unknown ${k}`);
-      else if (typeof s.additionalProperties === 'object') errs.push(...schemaErrors(v, s.additionalProperties as Schema, `${path}.${k}`, root));
+      else if (typeof s.additionalProperties === 'object')
+        errs.push(...schemaErrors(v, s.additionalProperties as Schema, `${path}.${k}`, root));
     }
   }
   return errs;
@@ -61,7 +66,12 @@ describe('core/forms/json', () => {
     const m = r.machine!;
     expect(m).toMatchObject({ name: 'm', inputs: ['a', 'b'], outputs: ['z'], start: 's', unspecified: 'hold' });
     expect(m.never.map((g) => g.cubes)).toEqual([['11']]);
-    expect(m.states[0]).toMatchObject({ name: 's', code: '0', outputs: { z: 1 }, loc: { file: 'm.json', path: '$.states[0]' } });
+    expect(m.states[0]).toMatchObject({
+      name: 's',
+      code: '0',
+      outputs: { z: 1 },
+      loc: { file: 'm.json', path: '$.states[0]' },
+    });
     const [t0, t1] = m.states[0].transitions;
     expect(t0.when).toMatchObject({ text: 'a', cubes: ['1-'], loc: { path: '$.states[0].transitions[0].when' } });
     expect(t0).toMatchObject({ to: 't', outputs: { z: '-' } });
@@ -72,7 +82,9 @@ describe('core/forms/json', () => {
   });
 
   it('writes the canonical JSON: `when` omitted for the constant 1, empty maps omitted', () => {
-    const m = parseJsonMachine(tiny({ unspecified: 'dont-care' }, { outputs: {} }, { when: '1', outputs: {} })).machine!;
+    const m = parseJsonMachine(
+      tiny({ unspecified: 'dont-care' }, { outputs: {} }, { when: '1', outputs: {} }),
+    ).machine!;
     expect(machineToJson(m)).toEqual({
       name: 'm',
       inputs: ['a'],
@@ -102,7 +114,20 @@ describe('core/forms/json', () => {
     ['unknown field', tiny({ start_state: 's' }), 'LW105', { path: '$.start_state' }],
     ['bad output value', tiny({}, { outputs: { z: 2 } }), 'LW106', { path: '$.states[0].outputs.z' }],
     ['unknown input', tiny({ never: ['b'] }), 'LW201', { path: '$.never[0]' }],
-    ['guard too large', JSON.stringify({ name: 'm', inputs: Array.from({ length: 30 }, (_, i) => `x${i}`), outputs: [], start: 's', states: [{ name: 's', transitions: [{ when: Array.from({ length: 30 }, (_, i) => `x${i}`).join(' ^ '), to: 's' }] }] }), 'LW403', { path: '$.states[0].transitions[0].when' }],
+    [
+      'guard too large',
+      JSON.stringify({
+        name: 'm',
+        inputs: Array.from({ length: 30 }, (_, i) => `x${i}`),
+        outputs: [],
+        start: 's',
+        states: [
+          { name: 's', transitions: [{ when: Array.from({ length: 30 }, (_, i) => `x${i}`).join(' ^ '), to: 's' }] },
+        ],
+      }),
+      'LW403',
+      { path: '$.states[0].transitions[0].when' },
+    ],
   ];
   it.each(errorKinds)('reports %s', (_name, text, code, location) => {
     const r = parseJsonMachine(text, 'f.json');
@@ -126,14 +151,17 @@ describe('core/forms/json', () => {
   });
 
   it('keeps odd keys as plain data (no prototype surprises)', () => {
-    const text = tiny({ outputs: ['constructor'] }, { outputs: { constructor: 1, proto_: 0 } }).replace('"proto_"', '"__proto__"');
+    const text = tiny({ outputs: ['constructor'] }, { outputs: { constructor: 1, proto_: 0 } }).replace(
+      '"proto_"',
+      '"__proto__"',
+    );
     const r = parseJsonMachine(text);
     const m = r.machine!;
     expect(Object.keys(m.states[0].outputs)).toEqual(['constructor', '__proto__']);
     expect(m.states[0].transitions[0].outputs.constructor).toBeUndefined();
   });
 
-  it('reads every LGSynth\'91 fixture (MCNC benchmark set, tests/fixtures/lgsynth91/PROVENANCE.md) without diagnostics and round-trips it', () => {
+  it("reads every LGSynth'91 fixture (MCNC benchmark set, tests/fixtures/lgsynth91/PROVENANCE.md) without diagnostics and round-trips it", () => {
     for (const f of readdirSync(FIXTURES).filter((x) => x.endsWith('.json'))) {
       const text = readFileSync(`${FIXTURES}/${f}`, 'utf8');
       const r = parseJsonMachine(text, f);
@@ -142,7 +170,10 @@ describe('core/forms/json', () => {
       expect(machineToJson(machineFromJson(out).machine!), f).toEqual(out);
       // The fixtures are written canonically apart from key order and spacing.
       const raw = JSON.parse(text) as { states: { transitions: object[] }[] };
-      expect(out.states.map((s) => s.transitions.length), f).toEqual(raw.states.map((s) => s.transitions.length));
+      expect(
+        out.states.map((s) => s.transitions.length),
+        f,
+      ).toEqual(raw.states.map((s) => s.transitions.length));
     }
   });
 
@@ -155,7 +186,9 @@ describe('core/forms/json', () => {
       const m = parseTextMachine(readFileSync(`examples/${f}`, 'utf8'), f).machine!;
       expect(schemaErrors(machineToJson(m), schema), f).toEqual([]);
     }
-    expect(schemaErrors(JSON.parse(tiny({ unspecified: 'keep' })), schema)).toEqual(['$.unspecified: not one of ["hold","dont-care"]']);
+    expect(schemaErrors(JSON.parse(tiny({ unspecified: 'keep' })), schema)).toEqual([
+      '$.unspecified: not one of ["hold","dont-care"]',
+    ]);
     expect(schemaErrors(JSON.parse(tiny({}, { outputs: { z: 2 } })), schema)).toHaveLength(1);
     expect(schemaErrors(JSON.parse(tiny({ name: undefined })), schema)).toEqual(['$: missing name']);
     expect(schemaErrors(JSON.parse(tiny({}, { colour: 1 })), schema)).toEqual(['$.states[0]: unknown colour']);
@@ -179,9 +212,18 @@ describe('core/forms/json', () => {
       expect(r.machine !== undefined || r.diagnostics.some((d) => d.severity === 'error')).toBe(true);
       for (const d of r.diagnostics) expect(d.location.path ?? d.location.line).toBeDefined();
     };
-    fc.assert(fc.property(fc.jsonValue(), (v) => check(machineFromJson(v))), { seed: 42, numRuns: 500 });
-    fc.assert(fc.property(fc.anything(), (v) => check(machineFromJson(v))), { seed: 42, numRuns: 500 });
-    fc.assert(fc.property(fc.string(), (t) => check(parseJsonMachine(t))), { seed: 42, numRuns: 500 });
+    fc.assert(
+      fc.property(fc.jsonValue(), (v) => check(machineFromJson(v))),
+      { seed: 42, numRuns: 500 },
+    );
+    fc.assert(
+      fc.property(fc.anything(), (v) => check(machineFromJson(v))),
+      { seed: 42, numRuns: 500 },
+    );
+    fc.assert(
+      fc.property(fc.string(), (t) => check(parseJsonMachine(t))),
+      { seed: 42, numRuns: 500 },
+    );
     // Near-misses: a valid machine with one field replaced by anything.
     const keys = ['name', 'inputs', 'outputs', 'start', 'unspecified', 'never', 'states', 'extra'];
     fc.assert(

@@ -12,8 +12,13 @@ const OUTPUT_POOL = ['bell', 'lamp', 'code', 'flap'];
 const STATE_POOL = ['idle', 's1', 'go', '010', 'with', 'state', 'open_2'];
 
 function exprArb(inputs: readonly string[]): fc.Arbitrary<Expr> {
-  const leaves: fc.Arbitrary<Expr>[] = [fc.constantFrom<Expr>({ kind: 'const', value: 0 }, { kind: 'const', value: 1 })];
-  if (inputs.length) leaves.push(fc.integer({ min: 0, max: inputs.length - 1 }).map((i): Expr => ({ kind: 'input', name: inputs[i], index: i })));
+  const leaves: fc.Arbitrary<Expr>[] = [
+    fc.constantFrom<Expr>({ kind: 'const', value: 0 }, { kind: 'const', value: 1 }),
+  ];
+  if (inputs.length)
+    leaves.push(
+      fc.integer({ min: 0, max: inputs.length - 1 }).map((i): Expr => ({ kind: 'input', name: inputs[i], index: i })),
+    );
   const leaf = fc.oneof(...leaves);
   return fc.letrec<{ e: Expr }>((tie) => ({
     e: fc.oneof(
@@ -21,7 +26,10 @@ function exprArb(inputs: readonly string[]): fc.Arbitrary<Expr> {
       leaf,
       tie('e').map((arg): Expr => ({ kind: 'not', arg })),
       fc
-        .tuple(fc.constantFrom('and' as const, 'or' as const, 'xor' as const), fc.array(tie('e'), { minLength: 2, maxLength: 3 }))
+        .tuple(
+          fc.constantFrom('and' as const, 'or' as const, 'xor' as const),
+          fc.array(tie('e'), { minLength: 2, maxLength: 3 }),
+        )
         .map(([kind, args]): Expr => ({ kind, args })),
     ),
   })).e;
@@ -32,11 +40,20 @@ const outBit = fc.constantFrom<OutBit>(0, 1, '-');
 function outputsArb(outputs: readonly string[]): fc.Arbitrary<Record<string, OutBit> | undefined> {
   return fc
     .subarray([...outputs])
-    .chain((keys) => fc.tuple(...keys.map(() => outBit)).map((vals) => (keys.length ? Object.fromEntries(keys.map((k, i) => [k, vals[i]])) : undefined)));
+    .chain((keys) =>
+      fc
+        .tuple(...keys.map(() => outBit))
+        .map((vals) => (keys.length ? Object.fromEntries(keys.map((k, i) => [k, vals[i]])) : undefined)),
+    );
 }
 
 const descriptionArb = fc.option(
-  fc.array(fc.stringMatching(/^[A-Za-z0-9 ,.'()#!-]{0,30}$/).map((s) => s.trimEnd()), { minLength: 1, maxLength: 4 }).map((ls) => ls.join('\n')),
+  fc
+    .array(
+      fc.stringMatching(/^[A-Za-z0-9 ,.'()#!-]{0,30}$/).map((s) => s.trimEnd()),
+      { minLength: 1, maxLength: 4 },
+    )
+    .map((ls) => ls.join('\n')),
   { nil: undefined },
 );
 
@@ -67,8 +84,18 @@ export const jsonMachineArb: fc.Arbitrary<JsonMachine> = fc
         never: fc.option(fc.array(exprArb(inputs).map(printExpr), { minLength: 1, maxLength: 2 }), { nil: undefined }),
         states: fc.tuple(...states.map(state)),
       })
-      .map((r) =>
-        clean({ name: 'gen_machine', description: r.description, inputs, outputs, start: r.start, unspecified: r.unspecified, never: r.never, states: r.states }) as JsonMachine,
+      .map(
+        (r) =>
+          clean({
+            name: 'gen_machine',
+            description: r.description,
+            inputs,
+            outputs,
+            start: r.start,
+            unspecified: r.unspecified,
+            never: r.never,
+            states: r.states,
+          }) as JsonMachine,
       );
   });
 

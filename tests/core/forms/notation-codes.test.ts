@@ -9,7 +9,9 @@ describe('core/forms/notation-codes', () => {
     expect(lines[0]).toBe('| code | severity | cause | fix |');
     const codes = lines.slice(2).map((l) => l.split(' | ')[0].slice(2));
     expect(codes).toEqual(Object.keys(DIAGNOSTIC_CODES));
-    expect(lines).toContain('| LW303 | warning | A state cannot be reached from the start state. | Add a transition into it, or remove it; it is dropped from the build. |');
+    expect(lines).toContain(
+      '| LW303 | warning | A state cannot be reached from the start state. | Add a transition into it, or remove it; it is dropped from the build. |',
+    );
     // A '|' inside a cell is escaped so the table keeps four columns.
     expect(lines.find((l) => l.startsWith('| LW102 '))).toContain('!, &, ^, \\|, parentheses');
   });
@@ -20,7 +22,10 @@ describe('core/forms/notation-codes', () => {
     const markers = /(<!-- codes:start -->\n)([\s\S]*?)(\n<!-- codes:end -->)/;
     if (process.env.LW_UPDATE_DOCS === '1') {
       const doc = readFileSync('docs/notation.md', 'utf8');
-      writeFileSync('docs/notation.md', doc.replace(markers, (_all, a: string, _old: string, b: string) => a + diagnosticTable() + b));
+      writeFileSync(
+        'docs/notation.md',
+        doc.replace(markers, (_all, a: string, _old: string, b: string) => a + diagnosticTable() + b),
+      );
     }
     const m = markers.exec(readFileSync('docs/notation.md', 'utf8'));
     expect(m).not.toBeNull();

@@ -73,7 +73,9 @@ state busy
   });
 
   it('does not reserve its keywords: an input may be called go, a state with', () => {
-    const r = parseTextMachine('machine m\ninputs go, stop\nstart with\nstate with\n  when go & !stop go with\n  when go go code\nstate code\n');
+    const r = parseTextMachine(
+      'machine m\ninputs go, stop\nstart with\nstate with\n  when go & !stop go with\n  when go go code\nstate code\n',
+    );
     expect(r.diagnostics).toEqual([]);
     expect(r.machine!.states[0].transitions.map((t) => [t.when.cubes, t.to])).toEqual([
       [['10'], 'with'],
@@ -108,7 +110,13 @@ state busy
     ['code without digits', head + 'state s code\n', 'LW104', 5, 13],
     ['bad output value', head + 'state s with z=2\n', 'LW106', 5, 16],
     ['unknown input', head + 'state s\n  when a & c go s\n', 'LW201', 6, 12],
-    ['guard too large', `machine m\ninputs ${Array.from({ length: 30 }, (_, i) => `x${i}`).join(' ')}\nstart s\nstate s\n  when ${Array.from({ length: 30 }, (_, i) => `x${i}`).join(' ^ ')} go s\n`, 'LW403', 5, 8],
+    [
+      'guard too large',
+      `machine m\ninputs ${Array.from({ length: 30 }, (_, i) => `x${i}`).join(' ')}\nstart s\nstate s\n  when ${Array.from({ length: 30 }, (_, i) => `x${i}`).join(' ^ ')} go s\n`,
+      'LW403',
+      5,
+      8,
+    ],
   ];
   it.each(errorKinds)('reports %s with file:line:column and a hint', (_name, text, code, line, column) => {
     const r = parseTextMachine(text, 'bad.lw');
@@ -168,8 +176,43 @@ state busy
 
   it('never throws on arbitrary text, and every diagnostic has a line and column (property)', () => {
     const token = fc.constantFrom(
-      'machine', 'inputs', 'outputs', 'start', 'unspecified', 'never', 'state', 'when', 'go', 'with', 'code',
-      'a', 'b', 's', 'z', 'a, b', 'z=1', '=', ',', '-', '0', '1', '01', '&', '|', '^', '!', '(', ')', '#', 'dont-care', 'hold', '\n', '\n  ', ' ', '\t', '\r\n',
+      'machine',
+      'inputs',
+      'outputs',
+      'start',
+      'unspecified',
+      'never',
+      'state',
+      'when',
+      'go',
+      'with',
+      'code',
+      'a',
+      'b',
+      's',
+      'z',
+      'a, b',
+      'z=1',
+      '=',
+      ',',
+      '-',
+      '0',
+      '1',
+      '01',
+      '&',
+      '|',
+      '^',
+      '!',
+      '(',
+      ')',
+      '#',
+      'dont-care',
+      'hold',
+      '\n',
+      '\n  ',
+      ' ',
+      '\t',
+      '\r\n',
     );
     const check = (t: string): void => {
       const r = parseTextMachine(t, 'p.lw');
@@ -181,7 +224,13 @@ state busy
       }
     };
     fc.assert(fc.property(fc.string({ unit: 'binary', maxLength: 200 }), check), { seed: 42, numRuns: 500 });
-    fc.assert(fc.property(fc.array(token, { maxLength: 40 }).map((x) => x.join(' ')), check), { seed: 42, numRuns: 1500 });
+    fc.assert(
+      fc.property(
+        fc.array(token, { maxLength: 40 }).map((x) => x.join(' ')),
+        check,
+      ),
+      { seed: 42, numRuns: 1500 },
+    );
     fc.assert(
       fc.property(jsonMachineArb, fc.nat(), fc.nat(), (j, cut, drop) => {
         const t = printTextMachine(machineFromJson(j).machine!);

@@ -13,7 +13,14 @@ import type { Machine } from '../../../src/core/model/machine.js';
 import { seededRandom } from '../../../src/core/model/random.js';
 import { randomFlatConfig, randomMachine } from './xstate/generators.js';
 import {
-  abstractStepper, agrees, allowedAssignments, flatOf, leverAssignment, randomSequence, xstateStepper, type Observed,
+  abstractStepper,
+  agrees,
+  allowedAssignments,
+  flatOf,
+  leverAssignment,
+  randomSequence,
+  xstateStepper,
+  type Observed,
 } from './xstate/harness.js';
 
 /** A ticket gate we invent: a coin unlocks (with a chime), a push locks again; staff can reset it from anywhere. */
@@ -34,7 +41,10 @@ const dialLock = {
   states: {
     idle: { on: { left: 'one', right: 'idle', press: [{ target: '#dial.idle' }, 'one'] } },
     one: { id: 'first', on: { right: { target: '#second' }, left: '#first', press: 'idle' } },
-    two: { id: 'second', on: { press: { target: 'open', meta: { outputs: { bolt: 1 } } }, left: 'idle', right: 'idle' } },
+    two: {
+      id: 'second',
+      on: { press: { target: 'open', meta: { outputs: { bolt: 1 } } }, left: 'idle', right: 'idle' },
+    },
     open: { tags: 'bolt', on: { left: 'idle', right: 'idle', press: [] } },
   },
 };
@@ -51,7 +61,11 @@ const kilnDoor = {
 };
 
 /** Run an imported config in xstate and our simulator on a random lever sequence; return the first disagreement. */
-function compareImport(config: object, seed: number, clocks = 40): { ours: Observed; theirs: Observed; clock: number } | undefined {
+function compareImport(
+  config: object,
+  seed: number,
+  clocks = 40,
+): { ours: Observed; theirs: Observed; clock: number } | undefined {
   const r = importXstate(config);
   expect(r.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
   const m = r.machine as Machine;
@@ -104,7 +118,11 @@ describe('core/forms/xstate import', () => {
       ['push', 'locked', {}],
       ['service', 'locked', {}],
     ]);
-    expect(m.states[1].transitions.map((t) => [t.when.text, t.to])).toEqual([['push', 'locked'], ['coin', 'unlocked'], ['service', 'locked']]);
+    expect(m.states[1].transitions.map((t) => [t.when.text, t.to])).toEqual([
+      ['push', 'locked'],
+      ['coin', 'unlocked'],
+      ['service', 'locked'],
+    ]);
     expect(locked.transitions[0].loc).toEqual({ file: 'gate.json', path: '$.states.locked.on.coin' });
   });
 
@@ -118,7 +136,10 @@ describe('core/forms/xstate import', () => {
     const m = importXstate(kilnDoor).machine as Machine;
     expect(m.states.find((s) => s.name === 'jammed')?.transitions).toEqual([]);
     // an empty candidate list bubbles to the root; the root's empty list does nothing
-    expect(m.states.find((s) => s.name === 'closed')?.transitions.map((t) => [t.when.text, t.to])).toEqual([['open', 'ajar'], ['alarm', 'jammed']]);
+    expect(m.states.find((s) => s.name === 'closed')?.transitions.map((t) => [t.when.text, t.to])).toEqual([
+      ['open', 'ajar'],
+      ['alarm', 'jammed'],
+    ]);
   });
 
   it('agrees with xstate 5.33.3 on random flat configs of the supported subset (fast-check, fixed seed)', () => {
@@ -138,13 +159,31 @@ describe('core/forms/xstate import', () => {
 
   it('resolves #id, #machine.state, sibling and .child-from-root targets as xstate does, and reports the rest as LW200', () => {
     const bad = (on: Record<string, unknown>, rootOn?: Record<string, unknown>) =>
-      importXstate({ id: 'm', initial: 'a', ...(rootOn ? { on: rootOn } : {}), states: { a: { on }, bb: { id: 'bee' } } }).diagnostics;
-    expect(bad({ go: 'bx' })).toMatchObject([{ code: 'LW200', location: { path: '$.states.a.on.go' }, hint: "did you mean 'bb'?" }]);
-    expect(bad({ go: '.bb' })).toMatchObject([{ code: 'LW200', hint: "'.bb' names a child of state 'a', and states of a flat machine have none; write 'bb' for the state 'bb'" }]);
-    expect(bad({ go: { target: '#m.bb.x' } })).toMatchObject([{ code: 'LW200', location: { path: '$.states.a.on.go.target' } }]);
+      importXstate({
+        id: 'm',
+        initial: 'a',
+        ...(rootOn ? { on: rootOn } : {}),
+        states: { a: { on }, bb: { id: 'bee' } },
+      }).diagnostics;
+    expect(bad({ go: 'bx' })).toMatchObject([
+      { code: 'LW200', location: { path: '$.states.a.on.go' }, hint: "did you mean 'bb'?" },
+    ]);
+    expect(bad({ go: '.bb' })).toMatchObject([
+      {
+        code: 'LW200',
+        hint: "'.bb' names a child of state 'a', and states of a flat machine have none; write 'bb' for the state 'bb'",
+      },
+    ]);
+    expect(bad({ go: { target: '#m.bb.x' } })).toMatchObject([
+      { code: 'LW200', location: { path: '$.states.a.on.go.target' } },
+    ]);
     expect(bad({ go: '#bea' })).toMatchObject([{ code: 'LW200', hint: "did you mean '#bee'?" }]);
-    expect(bad({}, { go: 'bb' })).toMatchObject([{ code: 'LW200', location: { path: '$.on.go' }, hint: "on the machine root a state is written '.bb'" }]);
-    expect(bad({ go: '#m' })).toMatchObject([{ code: 'LW500', message: expect.stringContaining(featureNote('rootTarget').name) }]);
+    expect(bad({}, { go: 'bb' })).toMatchObject([
+      { code: 'LW200', location: { path: '$.on.go' }, hint: "on the machine root a state is written '.bb'" },
+    ]);
+    expect(bad({ go: '#m' })).toMatchObject([
+      { code: 'LW500', message: expect.stringContaining(featureNote('rootTarget').name) },
+    ]);
     for (const ok of ['bb', '#bee', '#m.bb']) expect(bad({ go: ok })).toEqual([]);
     expect(bad({}, { go: '.bb' })).toEqual([]);
     // xstate itself refuses a plain name on the root ("not a valid target from the root node")
@@ -152,29 +191,79 @@ describe('core/forms/xstate import', () => {
   });
 
   const unsupported: [Feature, unknown, string, string][] = [
-    ['parallel', { initial: 'a', states: { a: { type: 'parallel', states: { x: {}, y: {} } } } }, '$.states.a.type', "state 'a'"],
+    [
+      'parallel',
+      { initial: 'a', states: { a: { type: 'parallel', states: { x: {}, y: {} } } } },
+      '$.states.a.type',
+      "state 'a'",
+    ],
     ['parallel', { type: 'parallel', states: { x: {}, y: {} } }, '$.type', 'the machine root'],
     ['nested', { initial: 'a', states: { a: { initial: 'x', states: { x: {} } } } }, '$.states.a.states', "state 'a'"],
     ['history', { initial: 'a', states: { a: {}, back: { type: 'history' } } }, '$.states.back.type', "state 'back'"],
     ['after', { initial: 'a', states: { a: { after: { 1000: 'a' } } } }, '$.states.a.after', "state 'a'"],
     ['always', { initial: 'a', states: { a: { always: 'b' }, b: {} } }, '$.states.a.always', "state 'a'"],
     ['eventless', { initial: 'a', states: { a: { on: { '': 'a' } } } }, '$.states.a.on[""]', "state 'a'"],
-    ['guard', { initial: 'a', states: { a: { on: { go: { target: 'a', guard: 'isWarm' } } } } }, '$.states.a.on.go.guard', "state 'a'"],
-    ['guard', { initial: 'a', states: { a: { on: { go: [{ target: 'a', guard: { type: 'isWarm' } }] } } } }, '$.states.a.on.go[0].guard', "state 'a'"],
-    ['cond', { initial: 'a', states: { a: { on: { go: { target: 'a', cond: 'isWarm' } } } } }, '$.states.a.on.go.cond', "state 'a'"],
-    ['in', { initial: 'a', states: { a: { on: { go: { target: 'a', in: '#x' } } } } }, '$.states.a.on.go.in', "state 'a'"],
-    ['actions', { initial: 'a', states: { a: { on: { go: { target: 'a', actions: ['ring'] } } } } }, '$.states.a.on.go.actions', "state 'a'"],
+    [
+      'guard',
+      { initial: 'a', states: { a: { on: { go: { target: 'a', guard: 'isWarm' } } } } },
+      '$.states.a.on.go.guard',
+      "state 'a'",
+    ],
+    [
+      'guard',
+      { initial: 'a', states: { a: { on: { go: [{ target: 'a', guard: { type: 'isWarm' } }] } } } },
+      '$.states.a.on.go[0].guard',
+      "state 'a'",
+    ],
+    [
+      'cond',
+      { initial: 'a', states: { a: { on: { go: { target: 'a', cond: 'isWarm' } } } } },
+      '$.states.a.on.go.cond',
+      "state 'a'",
+    ],
+    [
+      'in',
+      { initial: 'a', states: { a: { on: { go: { target: 'a', in: '#x' } } } } },
+      '$.states.a.on.go.in',
+      "state 'a'",
+    ],
+    [
+      'actions',
+      { initial: 'a', states: { a: { on: { go: { target: 'a', actions: ['ring'] } } } } },
+      '$.states.a.on.go.actions',
+      "state 'a'",
+    ],
     ['entry', { initial: 'a', states: { a: { entry: 'ring' } } }, '$.states.a.entry', "state 'a'"],
     ['exit', { initial: 'a', states: { a: { exit: ['ring'] } } }, '$.states.a.exit', "state 'a'"],
     ['invoke', { initial: 'a', states: { a: { invoke: { src: 'timer' } } } }, '$.states.a.invoke', "state 'a'"],
     ['entry', { initial: 'a', entry: 'boot', states: { a: {} } }, '$.entry', 'the machine root'],
     ['context', { initial: 'a', context: { count: 0 }, states: { a: {} } }, '$.context', 'the machine root'],
-    ['finalTransitions', { initial: 'a', states: { a: { type: 'final', on: { go: 'a' } } } }, '$.states.a.on', "state 'a'"],
+    [
+      'finalTransitions',
+      { initial: 'a', states: { a: { type: 'final', on: { go: 'a' } } } },
+      '$.states.a.on',
+      "state 'a'",
+    ],
     ['wildcard', { initial: 'a', states: { a: { on: { '*': 'a' } } } }, '$.states.a.on["*"]', "state 'a'"],
-    ['builtinEvent', { initial: 'a', states: { a: { on: { 'xstate.init': 'a' } } } }, '$.states.a.on["xstate.init"]', "state 'a'"],
-    ['multipleTargets', { initial: 'a', states: { a: { on: { go: { target: ['a', 'b'] } } }, b: {} } }, '$.states.a.on.go.target', "state 'a'"],
+    [
+      'builtinEvent',
+      { initial: 'a', states: { a: { on: { 'xstate.init': 'a' } } } },
+      '$.states.a.on["xstate.init"]',
+      "state 'a'",
+    ],
+    [
+      'multipleTargets',
+      { initial: 'a', states: { a: { on: { go: { target: ['a', 'b'] } } }, b: {} } },
+      '$.states.a.on.go.target',
+      "state 'a'",
+    ],
     ['onDone', { initial: 'a', states: { a: { onDone: 'a' } } }, '$.states.a.onDone', "state 'a'"],
-    ['rootOutputs', { initial: 'a', meta: { outputs: { x: 1 } }, states: { a: {} } }, '$.meta.outputs', 'the machine root'],
+    [
+      'rootOutputs',
+      { initial: 'a', meta: { outputs: { x: 1 } }, states: { a: {} } },
+      '$.meta.outputs',
+      'the machine root',
+    ],
   ];
   it.each(unsupported)('reports %s as LW500 naming the feature and the state path', (feature, config, path, where) => {
     const r = importXstate(config);
@@ -188,7 +277,12 @@ describe('core/forms/xstate import', () => {
   });
 
   it('accepts empty feature values (entry: [], context: {}) that do nothing in xstate either', () => {
-    const r = importXstate({ initial: 'a', context: {}, entry: [], states: { a: { exit: [], on: { go: { target: 'a', actions: [] } } } } });
+    const r = importXstate({
+      initial: 'a',
+      context: {},
+      entry: [],
+      states: { a: { exit: [], on: { go: { target: 'a', actions: [] } } } },
+    });
     expect(r.diagnostics).toEqual([]);
   });
 
@@ -204,7 +298,11 @@ describe('core/forms/xstate import', () => {
     ['meta.outputs a list', { initial: 'a', states: { a: { meta: { outputs: ['x'] } } } }, '$.states.a.meta.outputs'],
     ['a tag that is a number', { initial: 'a', states: { a: { tags: [1] } } }, '$.states.a.tags[0]'],
     ['two states with one id', { initial: 'a', states: { a: { id: 'x' }, b: { id: 'x' } } }, '$.states.b.id'],
-    ['a tag contradicted by meta', { initial: 'a', states: { a: { tags: ['x'], meta: { outputs: { x: 0 } } } } }, '$.states.a.meta.outputs'],
+    [
+      'a tag contradicted by meta',
+      { initial: 'a', states: { a: { tags: ['x'], meta: { outputs: { x: 0 } } } } },
+      '$.states.a.meta.outputs',
+    ],
   ];
   it.each(malformed)('reports a malformed config (%s) as LW501 with its JSON path', (_, config, path) => {
     const r = importXstate(config, 'c.json');
@@ -214,11 +312,19 @@ describe('core/forms/xstate import', () => {
 
   it('reports names that cannot be levers, outputs or states (LW205), bad output values (LW106), an unknown initial state (LW204), a name used twice (LW203)', () => {
     const codes = (c: unknown) => importXstate(c).diagnostics.map((d) => [d.code, d.location.path]);
-    expect(codes({ initial: 'a', states: { a: { on: { 'coin.in': 'a' } } } })).toEqual([['LW205', '$.states.a.on["coin.in"]']]);
-    expect(importXstate({ initial: 'a', states: { a: { on: { 'coin.in': 'a' } } } }).diagnostics[0].hint).toContain("'coin_in'");
-    expect(codes({ initial: 'a', states: { a: { on: { constructor: 'a' } } } })).toEqual([['LW205', '$.states.a.on.constructor']]);
+    expect(codes({ initial: 'a', states: { a: { on: { 'coin.in': 'a' } } } })).toEqual([
+      ['LW205', '$.states.a.on["coin.in"]'],
+    ]);
+    expect(importXstate({ initial: 'a', states: { a: { on: { 'coin.in': 'a' } } } }).diagnostics[0].hint).toContain(
+      "'coin_in'",
+    );
+    expect(codes({ initial: 'a', states: { a: { on: { constructor: 'a' } } } })).toEqual([
+      ['LW205', '$.states.a.on.constructor'],
+    ]);
     expect(codes({ initial: 'a', states: { 'a b': {}, a: {} } })).toEqual([['LW205', '$.states["a b"]']]);
-    expect(codes({ initial: 'a', states: { a: { meta: { outputs: { x: 2 } } } } })).toEqual([['LW106', '$.states.a.meta.outputs.x']]);
+    expect(codes({ initial: 'a', states: { a: { meta: { outputs: { x: 2 } } } } })).toEqual([
+      ['LW106', '$.states.a.meta.outputs.x'],
+    ]);
     expect(codes({ initial: 'aa', states: { ab: {} } })).toEqual([['LW204', '$.initial']]);
     expect(codes({ initial: 'a', states: { a: { tags: 'go', on: { go: 'a' } } } })).toEqual([['LW203', '$']]);
     expect(codes({ initial: 'a', states: { a: { colour: 'red' } } })).toEqual([['LW105', '$.states.a.colour']]);
@@ -226,12 +332,18 @@ describe('core/forms/xstate import', () => {
 
   it('never throws on arbitrary values (fast-check, fixed seed)', () => {
     const junk = fc.anything({ withNullPrototype: true, withObjectString: true, maxDepth: 4 });
-    const shaped = fc.record({
-      initial: fc.oneof(fc.string(), junk),
-      states: fc.dictionary(fc.oneof(fc.string(), fc.constantFrom('__proto__', 'constructor', 'a')), fc.oneof(junk, fc.record({ on: junk, tags: junk, meta: junk, type: junk }))),
-      on: junk,
-      id: junk,
-    }, { requiredKeys: [] });
+    const shaped = fc.record(
+      {
+        initial: fc.oneof(fc.string(), junk),
+        states: fc.dictionary(
+          fc.oneof(fc.string(), fc.constantFrom('__proto__', 'constructor', 'a')),
+          fc.oneof(junk, fc.record({ on: junk, tags: junk, meta: junk, type: junk })),
+        ),
+        on: junk,
+        id: junk,
+      },
+      { requiredKeys: [] },
+    );
     fc.assert(
       fc.property(fc.oneof(junk, shaped), (v) => {
         const r = importXstate(v);
@@ -244,7 +356,9 @@ describe('core/forms/xstate import', () => {
 });
 
 describe('core/forms/xstate export', () => {
-  const examples = readdirSync(new URL('../../../examples/', import.meta.url)).filter((f) => f.endsWith('.lw')).sort();
+  const examples = readdirSync(new URL('../../../examples/', import.meta.url))
+    .filter((f) => f.endsWith('.lw'))
+    .sort();
   const parse = (text: string, file?: string): Machine => {
     const r = parseTextMachine(text, file);
     expect(r.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
@@ -268,7 +382,19 @@ describe('core/forms/xstate export', () => {
   });
 
   it('writes the clock form as guarded CLOCK candidates in first-match order, outputs in meta', () => {
-    const m = parse(['machine porch', 'inputs step, dark', 'outputs lamp', 'start off', 'state off', '  when step & dark go on', 'state on with lamp=1', '  when !step go off with lamp=0', '  go on'].join('\n'));
+    const m = parse(
+      [
+        'machine porch',
+        'inputs step, dark',
+        'outputs lamp',
+        'start off',
+        'state off',
+        '  when step & dark go on',
+        'state on with lamp=1',
+        '  when !step go off with lamp=0',
+        '  go on',
+      ].join('\n'),
+    );
     const x = exportXstate(m);
     expect(x.form).toBe('clock');
     expect(x.config).toEqual({
@@ -276,13 +402,32 @@ describe('core/forms/xstate export', () => {
       initial: 'off',
       meta: { form: 'clock', inputs: ['step', 'dark'], outputNames: ['lamp'] },
       states: {
-        off: { meta: { outputs: { lamp: 0 } }, on: { CLOCK: [{ target: 'on', guard: { type: 'holds', params: { cubes: ['11'] } }, description: 'when step & dark', meta: { outputs: { lamp: 0 } } }] } },
+        off: {
+          meta: { outputs: { lamp: 0 } },
+          on: {
+            CLOCK: [
+              {
+                target: 'on',
+                guard: { type: 'holds', params: { cubes: ['11'] } },
+                description: 'when step & dark',
+                meta: { outputs: { lamp: 0 } },
+              },
+            ],
+          },
+        },
         on: {
           meta: { outputs: { lamp: 1 } },
-          on: { CLOCK: [
-            { target: 'off', guard: { type: 'holds', params: { cubes: ['0-'] } }, description: 'when !step', meta: { outputs: { lamp: 0 } } },
-            { description: 'when 1', meta: { outputs: { lamp: 1 } } },
-          ] },
+          on: {
+            CLOCK: [
+              {
+                target: 'off',
+                guard: { type: 'holds', params: { cubes: ['0-'] } },
+                description: 'when !step',
+                meta: { outputs: { lamp: 0 } },
+              },
+              { description: 'when 1', meta: { outputs: { lamp: 1 } } },
+            ],
+          },
         },
       },
     });

@@ -49,7 +49,7 @@ describe('core/phases/excite', () => {
     expect(ex.globalDc).toEqual([]);
   });
 
-  it('makes unused codes, never inputs and free next states global don\'t-cares', () => {
+  it("makes unused codes, never inputs and free next states global don't-cares", () => {
     const f: FlatMachine = {
       name: 'three',
       inputs: ['a', 'b'],
@@ -72,7 +72,7 @@ describe('core/phases/excite', () => {
     expect(ex.outputs[0].off).toEqual(['100-']);
   });
 
-  it('sends unused codes to a chosen state when asked, so they are no longer don\'t-cares', () => {
+  it("sends unused codes to a chosen state when asked, so they are no longer don't-cares", () => {
     const f = randomMachine(7, { maxStates: 3, maxInputs: 2, maxOutputs: 1, incomplete: false });
     const enc = randomEncoding(f, 3, 1);
     const ex = excite(f, enc, { unusedCodes: f.start });

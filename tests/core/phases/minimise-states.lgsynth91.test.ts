@@ -23,7 +23,7 @@ const resultFor = (name: string): StateMinimisation => {
   return r;
 };
 
-describe('core/phases/minimise-states on MCNC / LGSynth\'91 (TABLE.md)', () => {
+describe("core/phases/minimise-states on MCNC / LGSynth'91 (TABLE.md)", () => {
   it('reads all 53 machines of the table', () => {
     expect(table).toHaveLength(53);
   });
@@ -46,12 +46,15 @@ describe('core/phases/minimise-states on MCNC / LGSynth\'91 (TABLE.md)', () => {
   }
 
   const complete = table.filter((t) => t.complete && t.minimal !== null);
-  it.each(complete.map((t) => [t.name, t.minimal as number]))('%s (completely specified) reaches the minimal count %i exactly', (name, minimal) => {
-    const r = resultFor(name);
-    expect(r.method).toBe('partition-refinement');
-    expect(r.exact).toBe(true);
-    expect(r.machine.states).toHaveLength(minimal);
-  });
+  it.each(complete.map((t) => [t.name, t.minimal as number]))(
+    '%s (completely specified) reaches the minimal count %i exactly',
+    (name, minimal) => {
+      const r = resultFor(name);
+      expect(r.method).toBe('partition-refinement');
+      expect(r.exact).toBe(true);
+      expect(r.machine.states).toHaveLength(minimal);
+    },
+  );
 
   const incomplete = table.filter((t) => !t.complete && t.minimal !== null);
   it('reaches the Abel & Reineke exact minimum on every incompletely specified machine that has one', () => {

@@ -35,11 +35,26 @@ export function tableMachine(spec: {
       };
     }),
   );
-  return { name: 'table', inputs: spec.inputs, outputs: spec.outputs, states, start: index.get(spec.start ?? states[0]) as number, rows, never: [] };
+  return {
+    name: 'table',
+    inputs: spec.inputs,
+    outputs: spec.outputs,
+    states,
+    start: index.get(spec.start ?? states[0]) as number,
+    rows,
+    never: [],
+  };
 }
 
 /** A random machine with free next states and outputs sprinkled in (probabilities pNext, pOut). */
-export function randomIncomplete(seed: number, states: number, inputs: number, outputs: number, pNext: number, pOut: number): FlatMachine {
+export function randomIncomplete(
+  seed: number,
+  states: number,
+  inputs: number,
+  outputs: number,
+  pNext: number,
+  pOut: number,
+): FlatMachine {
   const f = randomFlatMachine(states, inputs, outputs, seed);
   const rng = seededRandom(seed ^ 0x5bd1e995);
   return {
@@ -67,7 +82,8 @@ export function randomWithTwins(seed: number, states: number, inputs: number): F
     names.push(`${names[of]}_twin${k}`);
     rows.push(rows[of].map((r) => ({ ...r })));
     // Send some transitions to the twin instead of the original.
-    for (const rs of rows) for (let i = 0; i < rs.length; i++) if (rs[i].next === of && rng.int(2) === 1) rs[i] = { ...rs[i], next: id };
+    for (const rs of rows)
+      for (let i = 0; i < rs.length; i++) if (rs[i].next === of && rng.int(2) === 1) rs[i] = { ...rs[i], next: id };
   }
   return { ...f, states: names, rows };
 }
@@ -90,9 +106,16 @@ export function coverViolation(original: FlatMachine, reduced: FlatMachine): str
     for (const r of original.rows[s]) {
       const where = `original ${original.states[s]} / reduced ${reduced.states[t]} on ${r.cube}`;
       const mine = reduced.rows[t].filter((q) => overlaps(q.cube, r.cube));
-      if (subtract([r.cube], mine.map((q) => q.cube)).length > 0) return `${where}: reduced rows leave inputs out`;
+      if (
+        subtract(
+          [r.cube],
+          mine.map((q) => q.cube),
+        ).length > 0
+      )
+        return `${where}: reduced rows leave inputs out`;
       for (const q of mine) {
-        if (r.out.some((o, i) => o !== '-' && q.out[i] !== o)) return `${where}: outputs ${r.out.join('')} vs ${q.out.join('')}`;
+        if (r.out.some((o, i) => o !== '-' && q.out[i] !== o))
+          return `${where}: outputs ${r.out.join('')} vs ${q.out.join('')}`;
         if (r.next === DONT_CARE) continue;
         if (q.next === DONT_CARE) return `${where}: reduced next state free`;
         stack.push([r.next, q.next]);
@@ -107,7 +130,13 @@ export function coverViolation(original: FlatMachine, reduced: FlatMachine): str
  * specifies an output and the reduced machine gives another. A run stops where the original
  * leaves its next state free (nothing after it is specified).
  */
-export function randomRunMismatches(original: FlatMachine, reduced: FlatMachine, seed: number, runs: number, length: number): number {
+export function randomRunMismatches(
+  original: FlatMachine,
+  reduced: FlatMachine,
+  seed: number,
+  runs: number,
+  length: number,
+): number {
   const rng = seededRandom(seed);
   let bad = 0;
   for (let k = 0; k < runs; k++) {
@@ -151,7 +180,13 @@ export function benchmarkTable(): BenchmarkFigures[] {
     .split('\n')
     .map((l) => l.split('|').map((c) => c.trim()))
     .filter((c) => c.length >= 8 && /^[a-z]/.test(c[1]) && /^\d+$/.test(c[4]))
-    .map((c) => ({ name: c[1], states: Number(c[4]), reachable: num(c[5]), complete: c[6] === 'complete', minimal: num(c[7]) }));
+    .map((c) => ({
+      name: c[1],
+      states: Number(c[4]),
+      reachable: num(c[5]),
+      complete: c[6] === 'complete',
+      minimal: num(c[7]),
+    }));
 }
 
 /** A benchmark machine from the fixtures, parsed by the JSON form and flattened. */

@@ -9,14 +9,28 @@ import { compatibility } from '../../../src/core/phases/minimise-states/compatib
 import { closedCover } from '../../../src/core/phases/minimise-states/closed-cover.js';
 import { has, members } from '../../../src/core/phases/minimise-states/bitset.js';
 import { nameClasses } from '../../../src/core/phases/minimise-states/quotient.js';
-import { coverViolation, randomIncomplete, randomRunMismatches, randomWithTwins, tableMachine } from './minimise-states.support.js';
+import {
+  coverViolation,
+  randomIncomplete,
+  randomRunMismatches,
+  randomWithTwins,
+  tableMachine,
+} from './minimise-states.support.js';
 
 // M. Morris Mano & Michael D. Ciletti, Digital Design, 5th ed. (2013), §5.7 "State Reduction
 // and Assignment": seven-state table, states a–g, one input x, one output y — from memory.
 const MANO_5_7 = tableMachine({
   inputs: ['x'],
   outputs: ['y'],
-  rows: { a: ['a/0', 'b/0'], b: ['c/0', 'd/0'], c: ['a/0', 'd/0'], d: ['e/0', 'f/1'], e: ['a/0', 'f/1'], f: ['g/0', 'f/1'], g: ['a/0', 'f/1'] },
+  rows: {
+    a: ['a/0', 'b/0'],
+    b: ['c/0', 'd/0'],
+    c: ['a/0', 'd/0'],
+    d: ['e/0', 'f/1'],
+    e: ['a/0', 'f/1'],
+    f: ['g/0', 'f/1'],
+    g: ['a/0', 'f/1'],
+  },
 });
 
 // M. Morris Mano, Digital Design, 3rd ed. (2002): the state-reduction exercise that a public
@@ -25,7 +39,16 @@ const MANO_5_7 = tableMachine({
 const MANO_P6_14 = tableMachine({
   inputs: ['x'],
   outputs: ['z'],
-  rows: { a: ['f/0', 'b/0'], b: ['d/0', 'c/0'], c: ['f/0', 'e/0'], d: ['g/1', 'a/0'], e: ['d/0', 'c/0'], f: ['f/1', 'b/1'], g: ['g/0', 'h/1'], h: ['g/1', 'a/0'] },
+  rows: {
+    a: ['f/0', 'b/0'],
+    b: ['d/0', 'c/0'],
+    c: ['f/0', 'e/0'],
+    d: ['g/1', 'a/0'],
+    e: ['d/0', 'c/0'],
+    f: ['f/1', 'b/1'],
+    g: ['g/0', 'h/1'],
+    h: ['g/1', 'a/0'],
+  },
 });
 
 // Z. Kohavi & N. K. Jha, Switching and Finite Automata Theory, 3rd ed. (2010), ch. 10
@@ -97,7 +120,11 @@ function bruteMinimum(f: FlatMachine): number {
 
 describe('core/phases/minimise-states/reachable', () => {
   it('drops states the start cannot reach, and ignores free next states', () => {
-    const f = tableMachine({ inputs: ['x'], outputs: ['z'], rows: { s: ['s/0', '-/1'], t: ['s/0', 't/1'], u: ['t/0', 'u/0'] } });
+    const f = tableMachine({
+      inputs: ['x'],
+      outputs: ['z'],
+      rows: { s: ['s/0', '-/1'], t: ['s/0', 't/1'], u: ['t/0', 'u/0'] },
+    });
     expect(reachableStates(f)).toEqual([true, false, false]);
     const p = pruneUnreachable(f);
     expect(p.unreachable).toEqual(['t', 'u']);
@@ -111,16 +138,24 @@ describe('core/phases/minimise-states/reachable', () => {
   });
 
   it('renumbers next states and the start after dropping states', () => {
-    const f = tableMachine({ inputs: ['x'], outputs: ['z'], start: 'c', rows: { a: ['a/0', 'a/0'], b: ['c/0', 'b/1'], c: ['b/1', 'c/0'] } });
+    const f = tableMachine({
+      inputs: ['x'],
+      outputs: ['z'],
+      start: 'c',
+      rows: { a: ['a/0', 'a/0'], b: ['c/0', 'b/1'], c: ['b/1', 'c/0'] },
+    });
     const p = pruneUnreachable(f);
     expect(p.machine.states).toEqual(['b', 'c']);
     expect(p.machine.start).toBe(1);
-    expect(p.machine.rows.map((rs) => rs.map((r) => r.next))).toEqual([[1, 0], [0, 1]]);
+    expect(p.machine.rows.map((rs) => rs.map((r) => r.next))).toEqual([
+      [1, 0],
+      [0, 1],
+    ]);
   });
 });
 
 describe('core/phases/minimise-states/partition', () => {
-  it('reduces the Mano & Ciletti example to the book\'s five states (5th ed. §5.7, from memory)', () => {
+  it("reduces the Mano & Ciletti example to the book's five states (5th ed. §5.7, from memory)", () => {
     const r = minimiseStates(MANO_5_7);
     // The book: g is equivalent to e, then f to d; the reduced table has a, b, c, d, e.
     expect(r.machine.states).toEqual(['a', 'b', 'c', 'd', 'e']);
@@ -137,7 +172,7 @@ describe('core/phases/minimise-states/partition', () => {
     expect(r.exact).toBe(true);
   });
 
-  it('reduces the Mano 3rd ed. eight-state exercise to five states (d≡h, b≡e, a≡c, worked by hand with the book\'s method)', () => {
+  it("reduces the Mano 3rd ed. eight-state exercise to five states (d≡h, b≡e, a≡c, worked by hand with the book's method)", () => {
     const r = minimiseStates(MANO_P6_14);
     expect(r.machine.states).toEqual(['a', 'b', 'd', 'f', 'g']);
     expect(r.merged).toMatchObject({ c: 'a', e: 'b', h: 'd' });
@@ -152,7 +187,10 @@ describe('core/phases/minimise-states/partition', () => {
       start: 0,
       never: [],
       rows: [
-        [{ cube: '1-', next: 1, out: [0], transition: 0 }, { cube: '0-', next: 2, out: [1], transition: 1 }],
+        [
+          { cube: '1-', next: 1, out: [0], transition: 0 },
+          { cube: '0-', next: 2, out: [1], transition: 1 },
+        ],
         [
           { cube: '11', next: 0, out: [0], transition: 0 },
           { cube: '10', next: 1, out: [0], transition: 1 },
@@ -166,7 +204,11 @@ describe('core/phases/minimise-states/partition', () => {
   });
 
   it('keeps apart states whose output counts agree but whose functions differ (XOR against XNOR)', () => {
-    const f = tableMachine({ inputs: ['a', 'b'], outputs: ['z'], rows: { p: ['p/0', 'q/1', 'q/1', 'p/0'], q: ['p/1', 'q/0', 'q/0', 'p/1'] } });
+    const f = tableMachine({
+      inputs: ['a', 'b'],
+      outputs: ['z'],
+      rows: { p: ['p/0', 'q/1', 'q/1', 'p/0'], q: ['p/1', 'q/0', 'q/0', 'p/1'] },
+    });
     expect(Array.from(equivalenceBlocks(f))).toEqual([0, 1]);
   });
 
@@ -191,7 +233,11 @@ describe('core/phases/minimise-states/partition', () => {
   });
 
   it('handles machines without inputs (stepped by the clock alone) or without outputs', () => {
-    const ring = tableMachine({ inputs: [], outputs: ['z'], rows: { a: ['b/0'], b: ['c/0'], c: ['d/1'], d: ['e/0'], e: ['f/0'], f: ['a/1'] } });
+    const ring = tableMachine({
+      inputs: [],
+      outputs: ['z'],
+      rows: { a: ['b/0'], b: ['c/0'], c: ['d/1'], d: ['e/0'], e: ['f/0'], f: ['a/1'] },
+    });
     expect(minimiseStates(ring).machine.states).toEqual(['a', 'b', 'c']);
     const mute = tableMachine({ inputs: ['x'], outputs: [], rows: { a: ['b/', 'a/'], b: ['a/', 'b/'] } });
     expect(minimiseStates(mute).machine.states).toEqual(['a']);
@@ -202,7 +248,12 @@ describe('core/phases/minimise-states/partition', () => {
       tableMachine({
         inputs: ['x'],
         outputs: ['z'],
-        rows: Object.fromEntries(Array.from({ length: n }, (_, i) => [`s${i}`, [`s${i}/0`, `s${(i + 1) % n}/${i % period === period - 1 ? 1 : 0}`]])),
+        rows: Object.fromEntries(
+          Array.from({ length: n }, (_, i) => [
+            `s${i}`,
+            [`s${i}/0`, `s${(i + 1) % n}/${i % period === period - 1 ? 1 : 0}`],
+          ]),
+        ),
       });
     expect(minimiseStates(ring(300, 300)).machine.states).toHaveLength(300);
     const doubled = minimiseStates(ring(300, 150));
@@ -226,7 +277,8 @@ describe('core/phases/minimise-states/compatible', () => {
       fc.property(fc.integer({ min: 2, max: 9 }), fc.integer({ min: 1, max: 3 }), fc.integer(), (n, k, seed) => {
         const f = randomIncomplete(seed, n, k, 2, 0.3, 0.4);
         const c = compatibility(f);
-        for (let s = 0; s < n; s++) for (let t = 0; t < n; t++) expect(has(c.compatibleWith[s], t)).toBe(s === t || bruteCompatible(f, s, t));
+        for (let s = 0; s < n; s++)
+          for (let t = 0; t < n; t++) expect(has(c.compatibleWith[s], t)).toBe(s === t || bruteCompatible(f, s, t));
       }),
       { seed: 42, numRuns: 120 },
     );
@@ -264,15 +316,18 @@ describe('core/phases/minimise-states/closed-cover', () => {
   it.each([
     [1890, 5],
     [102, 9],
-  ])('reaches the brute-force minimum where only a second-choice merge does (random machine seed %i, %i states)', (seed, n) => {
-    // Found by comparing against a search that tries only the best-overlap merge: both need
-    // the branching over every class a requirement can join.
-    const f = randomIncomplete(seed, n, 1, 2, 0.25, 0.5);
-    const r = minimiseStates(f);
-    expect(r.machine.states).toHaveLength(bruteMinimum(f));
-    expect(r.machine.states).toHaveLength(2);
-    expect(r.exact).toBe(true);
-  });
+  ])(
+    'reaches the brute-force minimum where only a second-choice merge does (random machine seed %i, %i states)',
+    (seed, n) => {
+      // Found by comparing against a search that tries only the best-overlap merge: both need
+      // the branching over every class a requirement can join.
+      const f = randomIncomplete(seed, n, 1, 2, 0.25, 0.5);
+      const r = minimiseStates(f);
+      expect(r.machine.states).toHaveLength(bruteMinimum(f));
+      expect(r.machine.states).toHaveLength(2);
+      expect(r.exact).toBe(true);
+    },
+  );
 
   it('with no budget offers the greedy cover alone: closed and covering, but not claimed minimal', () => {
     const search = closedCover(KOHAVI, compatibility(KOHAVI), 0);
@@ -345,12 +400,20 @@ describe('core/phases/minimise-states', () => {
   });
 
   it('names each reduced state after a member no earlier state took, else the first member with a suffix', () => {
-    const f = tableMachine({ inputs: ['x'], outputs: ['z'], rows: { a: ['a/0', 'a/0'], b: ['b/0', 'b/0'], c: ['c/0', 'c/0'], d: ['d/0', 'd/0'], a_2: ['a/0', 'a/0'] } });
+    const f = tableMachine({
+      inputs: ['x'],
+      outputs: ['z'],
+      rows: { a: ['a/0', 'a/0'], b: ['b/0', 'b/0'], c: ['c/0', 'c/0'], d: ['d/0', 'd/0'], a_2: ['a/0', 'a/0'] },
+    });
     expect(nameClasses(f, [[0, 1], [2, 3], [0, 2], [1, 3], [4]])).toEqual(['a', 'c', 'a_3', 'b', 'a_2']);
   });
 
   it('merges a machine whose states are all compatible into one state named after the start', () => {
-    const f = tableMachine({ inputs: ['x'], outputs: ['z'], rows: { p: ['q/1', 'p/-'], q: ['p/-', 'r/1'], r: ['-/1', 'q/1'] } });
+    const f = tableMachine({
+      inputs: ['x'],
+      outputs: ['z'],
+      rows: { p: ['q/1', 'p/-'], q: ['p/-', 'r/1'], r: ['-/1', 'q/1'] },
+    });
     const r = minimiseStates(f);
     expect(r.machine.states).toEqual(['p']);
     expect(r.merged).toEqual({ p: 'p', q: 'p', r: 'p' });

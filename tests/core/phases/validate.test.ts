@@ -36,14 +36,28 @@ describe('core/phases/validate', () => {
     ['undeclared output', head + 'state s with zz=1\n  go s\n', 'LW202', 5, 14, /undeclared output 'zz'/],
     ['undeclared Mealy output', head + 'state s\n  go s with y=1\n', 'LW202', 6, 13, /undeclared output 'y'/],
     ['repeated input', 'machine m\ninputs a, a\nstart s\nstate s\n', 'LW203', 2, 11, /input 'a' is declared twice/],
-    ['input and output share a name', 'machine m\ninputs a\noutputs a\nstart s\nstate s\n', 'LW203', 3, 9, /both an input and an output/],
+    [
+      'input and output share a name',
+      'machine m\ninputs a\noutputs a\nstart s\nstate s\n',
+      'LW203',
+      3,
+      9,
+      /both an input and an output/,
+    ],
     ['repeated state', head + 'state s\nstate s\n', 'LW203', 6, 7, /state 's' is declared twice/],
     ['no start', 'machine m\nstate s\n', 'LW204', 1, 1, /names no start state/],
     ['unknown start', 'machine m\nstart idel\nstate idle\n', 'LW204', 2, 7, /start state 'idel' does not exist/],
     ['bad input name', 'machine m\ninputs 2a\nstart s\nstate s\n', 'LW205', 2, 8, /input name '2a'/],
     ['bad state name', head + 'state s\nstate s.t\n', 'LW205', 6, 7, /state name 's\.t'/],
     ['bad machine name', 'machine -m\nstart s\nstate s\n', 'LW205', 1, 9, /machine name '-m'/],
-    ['code of another length', head + 'state s code 01\nstate t code 10\nstate u code 1\n', 'LW206', 7, 14, /has 1 digits/],
+    [
+      'code of another length',
+      head + 'state s code 01\nstate t code 10\nstate u code 1\n',
+      'LW206',
+      7,
+      14,
+      /has 1 digits/,
+    ],
     ['code with bad digits', head + 'state s code 0x\n', 'LW206', 5, 14, /not a string of 0\/1 digits/],
     ['repeated code', head + 'state s code 01\nstate t code 01\n', 'LW206', 6, 14, /repeats the code 01 of state 's'/],
     ['no states', 'machine m\nstart s\n', 'LW300', 1, 1, /no states/],
@@ -67,13 +81,62 @@ describe('core/phases/validate', () => {
 
   // Warnings and notes: the machine still validates (flat present).
   const noteKinds: [string, string, string, number, number, RegExp][] = [
-    ['a shadowed transition', head + 'state s\n  when a go s\n  when a & b go s\n', 'LW301', 7, 3, /transition 2 of state 's' \(a & b → s\) can never fire: transition 1 already takes/],
-    ['a transition excluded by never', head + 'never a\nstate s\n  when a & b go s\n  go s\n', 'LW301', 7, 3, /never constraints exclude/],
-    ['an input combination without a transition', head + 'state s\n  when a go s\n', 'LW302', 5, 1, /some input combinations \(!a\); the unspecified rule 'hold' applies/],
-    ['a state without transitions (dont-care)', 'machine m\nstart s\nunspecified dont-care\nstate s\n', 'LW302', 4, 1, /has no transition; the unspecified rule 'dont-care' applies/],
-    ['an unreachable state', head + 'state s\n  go s\nstate t\n  go s\n', 'LW303', 7, 1, /state 't' cannot be reached from the start state 's'/],
-    ['a guard that is constant 0', head + 'state s\n  when a & !a go s\n  go s\n', 'LW304', 6, 8, /guard 'a & !a' of transition 1 in state 's' is never true/],
-    ['never excluding everything', head + 'never a\nnever !a\nstate s\n  go s\n', 'LW305', 5, 7, /exclude every input combination/],
+    [
+      'a shadowed transition',
+      head + 'state s\n  when a go s\n  when a & b go s\n',
+      'LW301',
+      7,
+      3,
+      /transition 2 of state 's' \(a & b → s\) can never fire: transition 1 already takes/,
+    ],
+    [
+      'a transition excluded by never',
+      head + 'never a\nstate s\n  when a & b go s\n  go s\n',
+      'LW301',
+      7,
+      3,
+      /never constraints exclude/,
+    ],
+    [
+      'an input combination without a transition',
+      head + 'state s\n  when a go s\n',
+      'LW302',
+      5,
+      1,
+      /some input combinations \(!a\); the unspecified rule 'hold' applies/,
+    ],
+    [
+      'a state without transitions (dont-care)',
+      'machine m\nstart s\nunspecified dont-care\nstate s\n',
+      'LW302',
+      4,
+      1,
+      /has no transition; the unspecified rule 'dont-care' applies/,
+    ],
+    [
+      'an unreachable state',
+      head + 'state s\n  go s\nstate t\n  go s\n',
+      'LW303',
+      7,
+      1,
+      /state 't' cannot be reached from the start state 's'/,
+    ],
+    [
+      'a guard that is constant 0',
+      head + 'state s\n  when a & !a go s\n  go s\n',
+      'LW304',
+      6,
+      8,
+      /guard 'a & !a' of transition 1 in state 's' is never true/,
+    ],
+    [
+      'never excluding everything',
+      head + 'never a\nnever !a\nstate s\n  go s\n',
+      'LW305',
+      5,
+      7,
+      /exclude every input combination/,
+    ],
   ];
   it.each(noteKinds)('notes %s', (_name, src, code, line, column, msg) => {
     const v = validate(text(src));
@@ -91,13 +154,21 @@ describe('core/phases/validate', () => {
   });
 
   it('locates JSON-form problems by JSON path', () => {
-    const j = { name: 'm', inputs: ['a'], outputs: ['z'], start: 's', states: [{ name: 's', transitions: [{ when: 'a', to: 'x', outputs: { q: 1 } }, { to: 's' }, { to: 's' }] }] };
+    const j = {
+      name: 'm',
+      inputs: ['a'],
+      outputs: ['z'],
+      start: 's',
+      states: [{ name: 's', transitions: [{ when: 'a', to: 'x', outputs: { q: 1 } }, { to: 's' }, { to: 's' }] }],
+    };
     const v = validate(machineFromJson(j, 'm.json').machine!);
     expect(v.diagnostics.map((d) => [d.code, d.location.path])).toEqual([
       ['LW202', '$.states[0].transitions[0].outputs.q'],
       ['LW200', '$.states[0].transitions[0].to'],
     ]);
-    const w = validate(machineFromJson({ ...j, states: [{ name: 's', transitions: [{ to: 's' }, { when: 'a', to: 's' }] }] }).machine!);
+    const w = validate(
+      machineFromJson({ ...j, states: [{ name: 's', transitions: [{ to: 's' }, { when: 'a', to: 's' }] }] }).machine!,
+    );
     expect(w.diagnostics.map((d) => [d.code, d.location.path])).toEqual([['LW301', '$.states[0].transitions[1]']]);
   });
 
@@ -125,14 +196,25 @@ describe('core/phases/validate', () => {
     const lit = (): string => `${rnd.int(2) ? '!' : ''}x${rnd.int(24)}`;
     const states = Array.from({ length: 8 }, (_, i) => ({
       name: `s${i}`,
-      transitions: Array.from({ length: 6 }, () => ({ when: `${lit()} & ${lit()} | ${lit()} ^ ${lit()}`, to: `s${rnd.int(8)}` })),
+      transitions: Array.from({ length: 6 }, () => ({
+        when: `${lit()} & ${lit()} | ${lit()} ^ ${lit()}`,
+        to: `s${rnd.int(8)}`,
+      })),
     }));
-    const m = machineFromJson({ name: 'wide', inputs, outputs: [], start: 's0', never: ['x0 & x1 & x2'], states }).machine!;
+    const m = machineFromJson({
+      name: 'wide',
+      inputs,
+      outputs: [],
+      start: 's0',
+      never: ['x0 & x1 & x2'],
+      states,
+    }).machine!;
     const v = validate(m);
     expect(v.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
     for (const rows of v.flat!.rows) {
       let clashes = 0;
-      for (let i = 0; i < rows.length; i++) for (let j = i + 1; j < rows.length; j++) if (overlaps(rows[i].cube, rows[j].cube)) clashes++;
+      for (let i = 0; i < rows.length; i++)
+        for (let j = i + 1; j < rows.length; j++) if (overlaps(rows[i].cube, rows[j].cube)) clashes++;
       expect(clashes).toBe(0);
       expect(disjointSize(rows.map((r) => r.cube)) + disjointSize(v.flat!.never)).toBe(2 ** 24);
     }
@@ -174,7 +256,8 @@ describe('core/phases/validate', () => {
         const n = m.inputs.length;
         const all = [...assignments(n)].filter((a) => !m.never.some((g) => evalExpr(g.expr, a)));
         const index = new Map(m.states.map((s, i) => [s.name, i]));
-        const at = (code: string): Set<string> => new Set(v.diagnostics.filter((d) => d.code === code).map((d) => d.location.path!));
+        const at = (code: string): Set<string> =>
+          new Set(v.diagnostics.filter((d) => d.code === code).map((d) => d.location.path!));
         const shadowed = at('LW301');
         const zero = at('LW304');
         const next: Set<number>[] = m.states.map(() => new Set());
@@ -196,12 +279,15 @@ describe('core/phases/validate', () => {
           });
         });
         const reached = new Set([index.get(m.start)!]);
-        for (let grew = true; grew; ) {
+        for (let grew = true; grew;) {
           grew = false;
-          for (const s of [...reached]) for (const t of next[s]) if (!reached.has(t)) grew = reached.add(t) !== undefined;
+          for (const s of [...reached])
+            for (const t of next[s]) if (!reached.has(t)) grew = reached.add(t) !== undefined;
         }
         const unreachable = new Set(v.diagnostics.filter((d) => d.code === 'LW303').map((d) => d.location.path));
-        m.states.forEach((_, si) => expect(unreachable.has(`$.states[${si}]`)).toBe(!reached.has(si) && all.length > 0));
+        m.states.forEach((_, si) =>
+          expect(unreachable.has(`$.states[${si}]`)).toBe(!reached.has(si) && all.length > 0),
+        );
       }),
       { seed: 42, numRuns: 300 },
     );

@@ -8,8 +8,11 @@ import { actuator, cord, gate, lever } from './netlists.js';
 // g2's output pulls an actuator and the inverter's port; g1 drives nothing (a flag reads it).
 const n = {
   parts: [
-    lever('a'), lever('b'), lever('p1', 'phi1'),
-    gate('g1', 1), gate('g2', 2, 'output'),
+    lever('a'),
+    lever('b'),
+    lever('p1', 'phi1'),
+    gate('g1', 1),
+    gate('g2', 2, 'output'),
     { kind: 'flag' as const, id: 'f', name: 'f', output: 'lamp', gate: 'g1', inverted: false },
     actuator('flap', 120),
   ],
@@ -48,7 +51,10 @@ describe('core/physics/bom', () => {
     // 2 turns × 2π × 0.04 m ≈ 0.503 m of cord on the drum per capstan.
     expect(row('capstan wrap cord')).toMatchObject({ count: 4, each: 0.503, total: 2.011 });
     expect(row('redirect pin')).toBeUndefined();
-    const routed = billOfMaterials(n, { ...DEFAULT_PROFILE, cordRouting: { ca: { pinAngleRad: Math.PI, pulleys: 1 } } });
+    const routed = billOfMaterials(n, {
+      ...DEFAULT_PROFILE,
+      cordRouting: { ca: { pinAngleRad: Math.PI, pulleys: 1 } },
+    });
     expect(routed.find((r) => r.item === 'redirect pin')?.count).toBe(2); // half a turn: two quarter-turn pins
     expect(routed.find((r) => r.item === 'pulley')?.count).toBe(1);
   });
@@ -57,6 +63,14 @@ describe('core/physics/bom', () => {
     const back = csvParseRows(bomCsv(rows));
     expect(back[0]).toEqual(['item', 'kind', 'count', 'each', 'unit', 'total', 'note']);
     expect(back).toHaveLength(rows.length + 1);
-    expect(back[1]).toEqual([rows[0].item, rows[0].kind, String(rows[0].count), String(rows[0].each), rows[0].unit, String(rows[0].total), rows[0].note]);
+    expect(back[1]).toEqual([
+      rows[0].item,
+      rows[0].kind,
+      String(rows[0].count),
+      String(rows[0].each),
+      rows[0].unit,
+      String(rows[0].total),
+      rows[0].note,
+    ]);
   });
 });

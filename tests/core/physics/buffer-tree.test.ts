@@ -31,11 +31,18 @@ function invariantsHold(n: Netlist): boolean {
     const d = parts.get(c.driver);
     if (!d || (d.kind !== 'lever' && d.kind !== 'gate')) return false;
     if (c.ports.length + c.actuators.length === 0) return false;
-    if (c.ports.some((r) => { const g = parts.get(r.part); return g?.kind !== 'gate' || !g.ports.some((p) => p.name === r.port); })) return false;
+    if (
+      c.ports.some((r) => {
+        const g = parts.get(r.part);
+        return g?.kind !== 'gate' || !g.ports.some((p) => p.name === r.port);
+      })
+    )
+      return false;
   }
   for (const p of n.parts) {
     if (p.kind !== 'gate') continue;
-    for (const port of p.ports) if (!n.cords.some((c) => c.ports.some((r) => r.part === p.id && r.port === port.name))) return false;
+    for (const port of p.ports)
+      if (!n.cords.some((c) => c.ports.some((r) => r.part === p.id && r.port === port.name))) return false;
   }
   return true;
 }
@@ -78,8 +85,14 @@ describe('core/physics/buffer-tree', () => {
     const n: Netlist = {
       parts: [lever('S'), lever('R'), lever('X'), set, reset, ...terms],
       cords: [
-        cord('cS', 'S', ['qs.s']), cord('cR', 'R', ['qr.r']), cord('qr.out', 'qr', ['qs.fb']),
-        cord('cX', 'X', terms.map((t) => `${t.id}.b`)),
+        cord('cS', 'S', ['qs.s']),
+        cord('cR', 'R', ['qr.r']),
+        cord('qr.out', 'qr', ['qs.fb']),
+        cord(
+          'cX',
+          'X',
+          terms.map((t) => `${t.id}.b`),
+        ),
         cord('q.out', 'qs', ['qr.fb', ...terms.map((t) => `${t.id}.a`)]),
       ],
     };

@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { availableTension, capstanGain, gramsToNewtons, routingFactor, routingFor, STANDARD_GRAVITY } from '../../../src/core/physics/capstan.js';
+import {
+  availableTension,
+  capstanGain,
+  gramsToNewtons,
+  routingFactor,
+  routingFor,
+  STANDARD_GRAVITY,
+} from '../../../src/core/physics/capstan.js';
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 
 describe('core/physics/capstan', () => {
@@ -21,11 +28,16 @@ describe('core/physics/capstan', () => {
 
   it('multiplies over wraps: wrapping a + b turns equals a turns then b turns (property of e^(μθ))', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0.01, max: 1.5, noNaN: true }), fc.double({ min: 0.1, max: 4, noNaN: true }), fc.double({ min: 0.1, max: 4, noNaN: true }), (mu, a, b) => {
-        const lhs = capstanGain(mu, a + b);
-        const rhs = capstanGain(mu, a) * capstanGain(mu, b);
-        return Math.abs(lhs - rhs) <= 1e-9 * rhs;
-      }),
+      fc.property(
+        fc.double({ min: 0.01, max: 1.5, noNaN: true }),
+        fc.double({ min: 0.1, max: 4, noNaN: true }),
+        fc.double({ min: 0.1, max: 4, noNaN: true }),
+        (mu, a, b) => {
+          const lhs = capstanGain(mu, a + b);
+          const rhs = capstanGain(mu, a) * capstanGain(mu, b);
+          return Math.abs(lhs - rhs) <= 1e-9 * rhs;
+        },
+      ),
       { seed: 42, numRuns: 200 },
     );
   });

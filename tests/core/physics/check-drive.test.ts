@@ -7,7 +7,17 @@ describe('core/physics/check-drive', () => {
   it('has exactly the fields of the drive check', () => {
     const c = checkDrive(fanOut(10, 1), DEFAULT_PROFILE, []);
     expect(Object.keys(c).sort()).toEqual(
-      ['name', 'ok', 'summary', 'minMargin', 'weakestCord', 'worstTorqueNm', 'worstPowerW', 'operatorForceMaxG', 'drivers'].sort(),
+      [
+        'name',
+        'ok',
+        'summary',
+        'minMargin',
+        'weakestCord',
+        'worstTorqueNm',
+        'worstPowerW',
+        'operatorForceMaxG',
+        'drivers',
+      ].sort(),
     );
     expect(c.name).toBe('drive');
   });

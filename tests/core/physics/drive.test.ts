@@ -38,7 +38,10 @@ describe('core/physics/drive', () => {
   });
 
   it('sizes each cord on a shared port as if it pulled alone', () => {
-    const n = { parts: [lever('A'), lever('B'), gate('g', 2, 'term')], cords: [cord('cA', 'A', ['g.a']), cord('cB', 'B', ['g.a'])] };
+    const n = {
+      parts: [lever('A'), lever('B'), gate('g', 2, 'term')],
+      cords: [cord('cA', 'A', ['g.a']), cord('cB', 'B', ['g.a'])],
+    };
     expect(budgetOf(n, 'A').loadG).toBe(30);
     expect(budgetOf(n, 'B').loadG).toBe(30);
   });
@@ -55,7 +58,10 @@ describe('core/physics/drive', () => {
     const p: Profile = { ...P, cordRouting: { c: { pinAngleRad: Math.PI, muPin: 0.2 } } };
     const f = Math.exp(0.2 * Math.PI);
     const b = budgetOf(n, 'L', p);
-    expect(b.branches.map((x) => [x.target, x.kind])).toEqual([['g.a', 'port'], ['bell', 'actuator']]);
+    expect(b.branches.map((x) => [x.target, x.kind])).toEqual([
+      ['g.a', 'port'],
+      ['bell', 'actuator'],
+    ]);
     expect(b.loadG).toBeCloseTo(115 * f, 9);
     expect(b.loadN).toBeCloseTo((115 * f * 9.80665) / 1000, 9);
   });

@@ -20,10 +20,34 @@ describe('core/physics/drum', () => {
   it('sums the torque of the engaged capstans per snapshot and finds the worst (hand arithmetic)', () => {
     const d = drumLoad(n, DEFAULT_PROFILE, [
       // Nothing pulled: L and M rest (output 0, cords pull), so g1's port is down, g1 = 1.
-      { label: 'rest', outputs: new Map([['L', 0], ['M', 0], ['g1', 1], ['g2', 1]]) },
+      {
+        label: 'rest',
+        outputs: new Map([
+          ['L', 0],
+          ['M', 0],
+          ['g1', 1],
+          ['g2', 1],
+        ]),
+      },
       // L pulled: L's cord slack, g1's port up, g1 = 0 (its cord pulls); M still pulls.
-      { label: 'L pulled', outputs: new Map([['L', 1], ['M', 0], ['g1', 0], ['g2', 1]]) },
-      { label: 'both pulled', outputs: new Map([['L', 1], ['M', 1], ['g1', 0], ['g2', 1]]) },
+      {
+        label: 'L pulled',
+        outputs: new Map([
+          ['L', 1],
+          ['M', 0],
+          ['g1', 0],
+          ['g2', 1],
+        ]),
+      },
+      {
+        label: 'both pulled',
+        outputs: new Map([
+          ['L', 1],
+          ['M', 1],
+          ['g1', 0],
+          ['g2', 1],
+        ]),
+      },
     ]);
     expect(d.capstans.map((c) => c.driver)).toEqual(['L', 'M', 'g1']);
     expect(d.capstans[0].torqueNm).toBeCloseTo(ONE, 7);

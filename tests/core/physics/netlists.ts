@@ -1,19 +1,43 @@
 /** Small hand-built netlists and a tiny combinational evaluator for the physics tests. */
-import type { ActuatorPart, Cord, GatePart, GateRole, LeverPart, LeverRole, Netlist, Part } from '../../../src/core/model/netlist.js';
+import type {
+  ActuatorPart,
+  Cord,
+  GatePart,
+  GateRole,
+  LeverPart,
+  LeverRole,
+  Netlist,
+  Part,
+} from '../../../src/core/model/netlist.js';
 
 export const lever = (id: string, role: LeverRole = 'input'): LeverPart => ({ kind: 'lever', id, name: id, role });
 
 export const gate = (id: string, ports: number | string[], role: GateRole = 'inverter'): GatePart => ({
-  kind: 'gate', id, name: id, role,
-  ports: (typeof ports === 'number' ? Array.from({ length: ports }, (_, i) => String.fromCharCode(97 + i)) : ports).map((name) => ({ name })),
+  kind: 'gate',
+  id,
+  name: id,
+  role,
+  ports: (typeof ports === 'number' ? Array.from({ length: ports }, (_, i) => String.fromCharCode(97 + i)) : ports).map(
+    (name) => ({ name }),
+  ),
 });
 
-export const actuator = (id: string, loadG: number): ActuatorPart => ({ kind: 'actuator', id, name: id, output: id, loadG });
+export const actuator = (id: string, loadG: number): ActuatorPart => ({
+  kind: 'actuator',
+  id,
+  name: id,
+  output: id,
+  loadG,
+});
 
 /** A cord from `driver` to ports written `gate.port` and to actuators. */
 export const cord = (id: string, driver: string, ports: string[], actuators: string[] = []): Cord => ({
-  id, driver,
-  ports: ports.map((p) => { const [part, port] = p.split('.'); return { part, port }; }),
+  id,
+  driver,
+  ports: ports.map((p) => {
+    const [part, port] = p.split('.');
+    return { part, port };
+  }),
   actuators,
 });
 
@@ -32,10 +56,22 @@ export function fanOut(n: number, portsPerGate = 1, driver: 'lever' | 'gate' = '
   }
   const gates = Array.from({ length: n }, (_, i) => gate(`g${i + 1}`, portsPerGate, 'term'));
   parts.push(...gates);
-  cords.push(cord(`c.${src}`, src, gates.map((g) => `${g.id}.a`)));
+  cords.push(
+    cord(
+      `c.${src}`,
+      src,
+      gates.map((g) => `${g.id}.a`),
+    ),
+  );
   if (portsPerGate > 1) {
     parts.push(lever('K'));
-    cords.push(cord('c.K', 'K', gates.flatMap((g) => g.ports.slice(1).map((p) => `${g.id}.${p.name}`))));
+    cords.push(
+      cord(
+        'c.K',
+        'K',
+        gates.flatMap((g) => g.ports.slice(1).map((p) => `${g.id}.${p.name}`)),
+      ),
+    );
   }
   return { parts, cords };
 }
@@ -64,7 +100,10 @@ export function evaluate(n: Netlist, pulled: ReadonlySet<string>): Map<string, 0
       }
       if (!known) continue;
       const v: 0 | 1 = allPortsUp ? 0 : 1;
-      if (out.get(g.id) !== v) { out.set(g.id, v); changed = true; }
+      if (out.get(g.id) !== v) {
+        out.set(g.id, v);
+        changed = true;
+      }
     }
     if (!changed) break;
   }

@@ -4,7 +4,8 @@ import fc from 'fast-check';
 import { loadProfile, PROFILE_META_KEYS, PROFILE_RULES, SOURCE_KEYS } from '../../../src/core/physics/profile-load.js';
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 
-const readJson = (rel: string): Record<string, unknown> => JSON.parse(readFileSync(new URL(rel, import.meta.url), 'utf8'));
+const readJson = (rel: string): Record<string, unknown> =>
+  JSON.parse(readFileSync(new URL(rel, import.meta.url), 'utf8'));
 const defaultFile = readJson('../../../profiles/default.json');
 const schema = readJson('../../../schemas/profile.schema.json') as {
   additionalProperties: boolean;
@@ -65,7 +66,11 @@ describe('core/physics/profile-load', () => {
 
   it('rejects unknown fields with LW601 and a did-you-mean hint', () => {
     const [d] = errorsOf({ mew: 0.3 });
-    expect(d).toMatchObject({ code: 'LW601', location: { file: 'shop.json', path: '$.mew' }, hint: "did you mean 'mu'?" });
+    expect(d).toMatchObject({
+      code: 'LW601',
+      location: { file: 'shop.json', path: '$.mew' },
+      hint: "did you mean 'mu'?",
+    });
     expect(d.message).toContain("'mew'");
     const [n] = errorsOf({ routing: { pulley: 1 } });
     expect(n).toMatchObject({ code: 'LW601', location: { path: '$.routing.pulley' }, hint: "did you mean 'pulleys'?" });
@@ -75,21 +80,51 @@ describe('core/physics/profile-load', () => {
   });
 
   it.each([
-    ['portWeightG', -5], ['portWeightG', 0], ['zWeightG', 0], ['leverWeightG', -1], ['mu', 1.6], ['mu', 0], ['mu', -0.2],
-    ['minMargin', 0.9], ['wraps', 0], ['wraps', -2], ['maxPortsPerGate', 2.5], ['maxPortsPerGate', 0], ['maxCordsPerPort', 0],
-    ['stageDelaySpread', 1.2], ['stageDelaySpread', -0.1], ['stageDelayS', 0], ['drumRpm', 0], ['leverRatio', 0],
-    ['operatorExtraG', -1], ['mu', '0.25'], ['wraps', null],
+    ['portWeightG', -5],
+    ['portWeightG', 0],
+    ['zWeightG', 0],
+    ['leverWeightG', -1],
+    ['mu', 1.6],
+    ['mu', 0],
+    ['mu', -0.2],
+    ['minMargin', 0.9],
+    ['wraps', 0],
+    ['wraps', -2],
+    ['maxPortsPerGate', 2.5],
+    ['maxPortsPerGate', 0],
+    ['maxCordsPerPort', 0],
+    ['stageDelaySpread', 1.2],
+    ['stageDelaySpread', -0.1],
+    ['stageDelayS', 0],
+    ['drumRpm', 0],
+    ['leverRatio', 0],
+    ['operatorExtraG', -1],
+    ['mu', '0.25'],
+    ['wraps', null],
   ])('rejects %s = %j with LW600 naming the field', (field, value) => {
     const ds = errorsOf({ [field]: value });
     expect(ds).toHaveLength(1);
-    expect(ds[0]).toMatchObject({ code: 'LW600', severity: 'error', location: { file: 'shop.json', path: `$.${field}` } });
+    expect(ds[0]).toMatchObject({
+      code: 'LW600',
+      severity: 'error',
+      location: { file: 'shop.json', path: `$.${field}` },
+    });
     expect(ds[0].message).toContain(`'${field}'`);
     expect(ds[0].hint).toBeTruthy();
   });
 
   it('rejects nested nonsense naming the nested field', () => {
-    const ds = errorsOf({ routing: { pulleyEfficiency: 1.5, pulleys: -1 }, cordRouting: { c1: { muPin: 9 } }, cost: { gate: -1 } });
-    expect(ds.map((d) => d.location.path)).toEqual(['$.routing.pulleyEfficiency', '$.routing.pulleys', '$.cordRouting.c1.muPin', '$.cost.gate']);
+    const ds = errorsOf({
+      routing: { pulleyEfficiency: 1.5, pulleys: -1 },
+      cordRouting: { c1: { muPin: 9 } },
+      cost: { gate: -1 },
+    });
+    expect(ds.map((d) => d.location.path)).toEqual([
+      '$.routing.pulleyEfficiency',
+      '$.routing.pulleys',
+      '$.cordRouting.c1.muPin',
+      '$.cost.gate',
+    ]);
     expect(ds.every((d) => d.code === 'LW600')).toBe(true);
     expect(ds[0].message).toContain("'routing.pulleyEfficiency'");
     expect(ds[2].message).toContain("'cordRouting.c1.muPin'");
@@ -97,7 +132,11 @@ describe('core/physics/profile-load', () => {
 
   it('treats names of built-in object members as unknown fields', () => {
     const ds = errorsOf(JSON.parse('{"toString": 1, "routing": {"__proto__": 2}, "cost": {"constructor": 3}}'));
-    expect(ds.map((d) => [d.code, d.location.path])).toEqual([['LW601', '$.toString'], ['LW601', '$.routing.__proto__'], ['LW601', '$.cost.constructor']]);
+    expect(ds.map((d) => [d.code, d.location.path])).toEqual([
+      ['LW601', '$.toString'],
+      ['LW601', '$.routing.__proto__'],
+      ['LW601', '$.cost.constructor'],
+    ]);
   });
 
   it('rejects a value that is not an object with LW100', () => {
@@ -106,23 +145,35 @@ describe('core/physics/profile-load', () => {
 
   it('never throws, whatever JSON it is given (property)', () => {
     fc.assert(
-      fc.property(fc.jsonValue(), fc.dictionary(fc.constantFrom(...Object.keys(DEFAULT_PROFILE), 'sources', 'mew', 'toString', '__proto__'), fc.jsonValue()), (a, b) => {
-        loadProfile(a);
-        const r = loadProfile(b);
-        return r.profile !== undefined || r.diagnostics.length > 0;
-      }),
+      fc.property(
+        fc.jsonValue(),
+        fc.dictionary(
+          fc.constantFrom(...Object.keys(DEFAULT_PROFILE), 'sources', 'mew', 'toString', '__proto__'),
+          fc.jsonValue(),
+        ),
+        (a, b) => {
+          loadProfile(a);
+          const r = loadProfile(b);
+          return r.profile !== undefined || r.diagnostics.length > 0;
+        },
+      ),
       { seed: 42, numRuns: 300 },
     );
   });
 
   it('states the same fields and ranges in schemas/profile.schema.json as the loader checks', () => {
     expect(schema.additionalProperties).toBe(false);
-    expect(Object.keys(schema.properties).sort()).toEqual([...Object.keys(DEFAULT_PROFILE), ...PROFILE_META_KEYS].sort());
+    expect(Object.keys(schema.properties).sort()).toEqual(
+      [...Object.keys(DEFAULT_PROFILE), ...PROFILE_META_KEYS].sort(),
+    );
     for (const [path, rule] of Object.entries(PROFILE_RULES)) {
       const [head, tail] = path.split('.');
-      const prop = tail === undefined ? schema.properties[head]
-        : head === 'routing' ? schema.$defs.routing.properties[tail]
-        : (schema.properties[head].properties as Record<string, Record<string, unknown>>)[tail];
+      const prop =
+        tail === undefined
+          ? schema.properties[head]
+          : head === 'routing'
+            ? schema.$defs.routing.properties[tail]
+            : (schema.properties[head].properties as Record<string, Record<string, unknown>>)[tail];
       expect(prop, path).toBeDefined();
       expect(prop.type, path).toBe(rule.integer ? 'integer' : 'number');
       expect(prop.minimum, path).toBe(rule.min !== undefined && !rule.exclusiveMin ? rule.min : undefined);

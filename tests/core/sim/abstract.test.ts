@@ -22,11 +22,16 @@ const MANO = {
 };
 
 describe('core/sim/abstract', () => {
-  it('steps the Mano & Ciletti table through the book\'s input sequence 01010110100 (5th ed. §5.7, from memory)', () => {
+  it("steps the Mano & Ciletti table through the book's input sequence 01010110100 (5th ed. §5.7, from memory)", () => {
     const f = tableMachine(MANO);
     const run = runAbstract(f, [...'01010110100']);
     // The book lists states a a b c d e f f g f g a and outputs 0 0 0 0 0 1 1 0 1 0 0.
-    expect(run.map((r) => r.stateName).concat(run[run.length - 1].nextName).join(' ')).toBe('a a b c d e f f g f g a');
+    expect(
+      run
+        .map((r) => r.stateName)
+        .concat(run[run.length - 1].nextName)
+        .join(' '),
+    ).toBe('a a b c d e f f g f g a');
     expect(run.map((r) => r.outputs.join('')).join(' ')).toBe('0 0 0 0 0 1 1 0 1 0 0');
     expect(run.map((r) => r.clock)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10]);
   });
@@ -76,7 +81,10 @@ describe('core/sim/abstract', () => {
           { cube: '0-', next: 1, out: [1], transition: 0 },
           { cube: '10', next: DONT_CARE, out: [0], transition: 1 },
         ],
-        [{ cube: '0-', next: 0, out: [0], transition: 0 }, { cube: '10', next: 1, out: [1], transition: 1 }],
+        [
+          { cube: '0-', next: 0, out: [0], transition: 0 },
+          { cube: '10', next: 1, out: [1], transition: 1 },
+        ],
       ],
     };
     expect(stepAbstract(f, 0, '11')).toEqual({ next: 0, outputs: ['-'] });

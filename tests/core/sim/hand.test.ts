@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { assignmentOf, clockActions, describeAction, describeTrace, ruleBroken, valuesOf } from '../../../src/core/sim/hand.js';
+import {
+  assignmentOf,
+  clockActions,
+  describeAction,
+  describeTrace,
+  ruleBroken,
+  valuesOf,
+} from '../../../src/core/sim/hand.js';
 
 describe('core/sim/hand', () => {
   it('tells which operating rule an action breaks', () => {
@@ -15,8 +22,20 @@ describe('core/sim/hand', () => {
 
   it('lists one clock of the hand procedure, moving only the levers that change', () => {
     const acts = clockActions(['a', 'b'], { a: 1 }, { a: 0, b: 1 });
-    expect(describeTrace(acts)).toEqual(["1. pull input lever 'a'", "2. release input lever 'b'", '3. pull φ1', '4. release φ1', '5. pull φ2', '6. release φ2']);
-    expect(clockActions(['a'], { a: 1 }, { a: 1 }).map(describeAction)).toEqual(['pull φ1', 'release φ1', 'pull φ2', 'release φ2']);
+    expect(describeTrace(acts)).toEqual([
+      "1. pull input lever 'a'",
+      "2. release input lever 'b'",
+      '3. pull φ1',
+      '4. release φ1',
+      '5. pull φ2',
+      '6. release φ2',
+    ]);
+    expect(clockActions(['a'], { a: 1 }, { a: 1 }).map(describeAction)).toEqual([
+      'pull φ1',
+      'release φ1',
+      'pull φ2',
+      'release φ2',
+    ]);
   });
 
   it('converts between input values and assignment strings', () => {

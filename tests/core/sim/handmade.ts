@@ -27,7 +27,14 @@ export function handBuild(spec: HandSpec): Build {
     cords.push({ id: `c${++cordNo}`, driver, ports, actuators });
   };
   const gate = (id: string, role: GateRole, ports: string[], latch?: string): void => {
-    parts.push({ kind: 'gate', id, name: id, role, ports: ports.map((name) => ({ name })), ...(latch ? { latch } : {}) });
+    parts.push({
+      kind: 'gate',
+      id,
+      name: id,
+      role,
+      ports: ports.map((name) => ({ name })),
+      ...(latch ? { latch } : {}),
+    });
   };
   const lever = (id: string, role: 'input' | 'phi1' | 'phi2' | 'reset', input?: string): void => {
     parts.push({ kind: 'lever', id, name: id, role, ...(input ? { input } : {}) });
@@ -49,7 +56,10 @@ export function handBuild(spec: HandSpec): Build {
     latch(`Q${b}`, 'slave', b);
     gate(`T${b}.s`, 'transfer', ['a', 'b']);
     gate(`T${b}.r`, 'transfer', ['a', 'b']);
-    cord('phi2', [{ part: `T${b}.s`, port: 'a' }, { part: `T${b}.r`, port: 'a' }]);
+    cord('phi2', [
+      { part: `T${b}.s`, port: 'a' },
+      { part: `T${b}.r`, port: 'a' },
+    ]);
     cord(`M${b}.set`, [{ part: `T${b}.s`, port: 'b' }]);
     cord(`M${b}.reset`, [{ part: `T${b}.r`, port: 'b' }]);
     cord(`T${b}.s`, [{ part: `Q${b}.set`, port: 's' }]);
@@ -61,7 +71,8 @@ export function handBuild(spec: HandSpec): Build {
     const start = spec.codes[m.start];
     const ports: PortRef[] = [];
     for (let b = 0; b < bits; b++)
-      for (const l of [`M${b}`, `Q${b}`]) ports.push(start[b] === '1' ? { part: `${l}.set`, port: 's' } : { part: `${l}.reset`, port: 'r' });
+      for (const l of [`M${b}`, `Q${b}`])
+        ports.push(start[b] === '1' ? { part: `${l}.set`, port: 's' } : { part: `${l}.reset`, port: 'r' });
     cord('rd', ports);
   }
 
@@ -80,7 +91,11 @@ export function handBuild(spec: HandSpec): Build {
   const termGate = (id: string, cube: string, clocked: boolean): void => {
     const drivers: string[] = clocked ? ['phi1'] : [];
     for (let v = 0; v < cube.length; v++) if (cube[v] !== '-') drivers.push(literal(v, cube[v]));
-    gate(id, 'term', drivers.map((_, k) => `p${k}`));
+    gate(
+      id,
+      'term',
+      drivers.map((_, k) => `p${k}`),
+    );
     drivers.forEach((d, k) => cord(d, [{ part: id, port: `p${k}` }]));
   };
   const outputs: Record<string, string> = {};
@@ -98,7 +113,14 @@ export function handBuild(spec: HandSpec): Build {
         termGate(`${eq.name}.t${k}`, t, false);
         cord(`${eq.name}.t${k}`, [{ part: `out_${eq.name}`, port: 'a' }]);
       });
-      parts.push({ kind: 'flag', id: `flag_${eq.name}`, name: `flag_${eq.name}`, output: eq.name, gate: `out_${eq.name}`, inverted: true });
+      parts.push({
+        kind: 'flag',
+        id: `flag_${eq.name}`,
+        name: `flag_${eq.name}`,
+        output: eq.name,
+        gate: `out_${eq.name}`,
+        inverted: true,
+      });
       outputs[eq.name] = `flag_${eq.name}`;
     }
   }
@@ -125,7 +147,12 @@ export function handBuild(spec: HandSpec): Build {
   };
 }
 
-const row = (cube: string, next: number, out: (0 | 1 | '-')[], transition = 0): FlatRow => ({ cube, next, out, transition });
+const row = (cube: string, next: number, out: (0 | 1 | '-')[], transition = 0): FlatRow => ({
+  cube,
+  next,
+  out,
+  transition,
+});
 
 /** A one-bit toggle: input `t` flips between `off` and `on`; output `lit` shows `on` (Moore). */
 export function toggleMachine(): FlatMachine {
@@ -192,14 +219,29 @@ export function counterBuild(recovering: boolean): Build {
 
 /** A bare NAND latch worked by two input levers through inverters (lever pulled → its port pulled). */
 export function latchBuild(): Build {
-  const m: FlatMachine = { name: 'latch', inputs: ['s', 'r'], outputs: [], states: ['clear', 'set'], start: 0, rows: [[], []], never: [] };
+  const m: FlatMachine = {
+    name: 'latch',
+    inputs: ['s', 'r'],
+    outputs: [],
+    states: ['clear', 'set'],
+    start: 0,
+    rows: [[], []],
+    never: [],
+  };
   const b = handBuild({ machine: m, codes: [], equations: [] });
   const parts: Part[] = [
     ...b.netlist.parts,
     { kind: 'gate', id: 'inv_s', name: 'inv_s', role: 'inverter', ports: [{ name: 'a' }] },
     { kind: 'gate', id: 'inv_r', name: 'inv_r', role: 'inverter', ports: [{ name: 'a' }] },
     { kind: 'gate', id: 'L.set', name: 'L.set', role: 'latch-set', ports: [{ name: 's' }, { name: 'fb' }], latch: 'L' },
-    { kind: 'gate', id: 'L.reset', name: 'L.reset', role: 'latch-reset', ports: [{ name: 'r' }, { name: 'fb' }], latch: 'L' },
+    {
+      kind: 'gate',
+      id: 'L.reset',
+      name: 'L.reset',
+      role: 'latch-reset',
+      ports: [{ name: 'r' }, { name: 'fb' }],
+      latch: 'L',
+    },
     { kind: 'latch', id: 'L', name: 'L', role: 'slave', bit: 0, setGate: 'L.set', resetGate: 'L.reset' },
   ];
   const cords: Cord[] = [
@@ -210,5 +252,10 @@ export function latchBuild(): Build {
     { id: 'c5', driver: 'L.set', ports: [{ part: 'L.reset', port: 'fb' }], actuators: [] },
     { id: 'c6', driver: 'L.reset', ports: [{ part: 'L.set', port: 'fb' }], actuators: [] },
   ];
-  return { ...b, encoding: { strategy: 'pinned', bits: 1, codes: ['0', '1'] }, netlist: { parts, cords }, signals: { ...b.signals, slaves: ['L'] } };
+  return {
+    ...b,
+    encoding: { strategy: 'pinned', bits: 1, codes: ['0', '1'] },
+    netlist: { parts, cords },
+    signals: { ...b.signals, slaves: ['L'] },
+  };
 }

@@ -70,14 +70,19 @@ describe('core/sim/part', () => {
     const events: PartEvent[] = [];
     setLeversInPlace(sim, values, f.timeUs, [sim.inputLevers[0], sim.inputLevers[1]], [0, 0], events);
     expect(latchQ(sim, { values, timeUs: 0 })).toEqual([X, X]);
-    expect(events.find((e) => e.kind === 'latch-x')?.words).toMatch(/latch L is left undetermined \(X\): both its inputs were released together/);
+    expect(events.find((e) => e.kind === 'latch-x')?.words).toMatch(
+      /latch L is left undetermined \(X\): both its inputs were released together/,
+    );
     // X resolves as soon as one input is pulled again (three-valued NAND: any 0 → 1).
     const [after] = stepSim(sim, { values, timeUs: 0 }, lever('r', 1));
     expect(latchQ(sim, after)).toEqual([0, 1]);
   });
 
   it('resolves the release race by the delay map: the faster gate falls first', () => {
-    for (const [fast, q] of [['L.set', 0], ['L.reset', 1]] as const) {
+    for (const [fast, q] of [
+      ['L.set', 0],
+      ['L.reset', 1],
+    ] as const) {
       const slow = fast === 'L.set' ? 'L.reset' : 'L.set';
       const sim = simFor(latchBuild(), { stageDelayS: 0.25, delays: { [fast]: 0.2, [slow]: 0.3 } });
       const [f] = run(sim, powerUp(sim)[0], [lever('s', 1), lever('r', 1)]);
@@ -100,7 +105,10 @@ describe('core/sim/part', () => {
     [s] = run(sim, s, clock);
     // After φ1 only the master has moved.
     expect(readPart(sim, s)).toMatchObject({ code: '0', masterCode: '1' });
-    [s] = run(sim, s, [{ kind: 'pull', lever: 'phi2' }, { kind: 'release', lever: 'phi2' }]);
+    [s] = run(sim, s, [
+      { kind: 'pull', lever: 'phi2' },
+      { kind: 'release', lever: 'phi2' },
+    ]);
     expect(readPart(sim, s)).toMatchObject({ code: '1', state: 'on', outputs: { lit: '1' } });
     // Each settle takes whole stages: φ2 pull = transfer + 2 latch stages + output decode.
     expect(s.timeUs % 250000).toBe(0);
@@ -118,11 +126,19 @@ describe('core/sim/part', () => {
   it('reports each operating rule broken, in words', () => {
     const sim = simFor(toggleBuild(), timing);
     const s = stateAtCode(sim, '0');
-    const [, e1] = run(sim, s, [{ kind: 'pull', lever: 'phi1' }, { kind: 'pull', lever: 'phi2' }]);
-    expect(e1.find((e) => e.kind === 'clocks-together')?.words).toBe('operating rule broken (φ1 and φ2 are never pulled together): pull φ2');
+    const [, e1] = run(sim, s, [
+      { kind: 'pull', lever: 'phi1' },
+      { kind: 'pull', lever: 'phi2' },
+    ]);
+    expect(e1.find((e) => e.kind === 'clocks-together')?.words).toBe(
+      'operating rule broken (φ1 and φ2 are never pulled together): pull φ2',
+    );
     const [, e2] = run(sim, s, [{ kind: 'pull', lever: 'phi1' }, lever('t', 1)]);
     expect(e2.find((e) => e.kind === 'input-during-phi1')?.rule).toBe('inputs-steady');
-    const [, e3] = run(sim, s, [{ kind: 'pull', lever: 'phi2' }, { kind: 'pull', lever: 'reset' }]);
+    const [, e3] = run(sim, s, [
+      { kind: 'pull', lever: 'phi2' },
+      { kind: 'pull', lever: 'reset' },
+    ]);
     expect(e3.find((e) => e.kind === 'reset-during-clock')?.rule).toBe('reset-alone');
   });
 
@@ -131,7 +147,10 @@ describe('core/sim/part', () => {
     const ring: Build = {
       ...b,
       netlist: {
-        parts: [...b.netlist.parts, { kind: 'gate', id: 'ring', name: 'ring', role: 'buffer', ports: [{ name: 'a' }, { name: 'b' }] }],
+        parts: [
+          ...b.netlist.parts,
+          { kind: 'gate', id: 'ring', name: 'ring', role: 'buffer', ports: [{ name: 'a' }, { name: 'b' }] },
+        ],
         cords: [
           ...b.netlist.cords,
           { id: 'r1', driver: 'in_s', ports: [{ part: 'ring', port: 'a' }], actuators: [] },

@@ -8,24 +8,31 @@ import { reachableStates } from '../../../src/core/phases/minimise-states/reacha
 describe('core/sim/random-machine', () => {
   it('builds completely specified tables whose rows are disjoint and cover every input', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 30 }), fc.integer({ min: 0, max: 10 }), fc.integer({ min: 0, max: 3 }), fc.integer(), (n, k, m, seed) => {
-        const f = randomFlatMachine(n, k, m, seed);
-        expect(f.states).toHaveLength(n);
-        expect(f.inputs).toHaveLength(k);
-        expect(isIncomplete(f)).toBe(false);
-        for (const rows of f.rows) {
-          expect(rows.length).toBeGreaterThanOrEqual(1);
-          expect(rows.length).toBeLessThanOrEqual(4);
-          expect(disjointSize(rows.map((r) => r.cube))).toBe(2 ** k);
-          for (let i = 0; i < rows.length; i++) for (let j = i + 1; j < rows.length; j++) expect(overlaps(rows[i].cube, rows[j].cube)).toBe(false);
-          for (const r of rows) {
-            expect(r.next).toBeGreaterThanOrEqual(0);
-            expect(r.next).toBeLessThan(n);
-            expect(r.out).toHaveLength(m);
+      fc.property(
+        fc.integer({ min: 1, max: 30 }),
+        fc.integer({ min: 0, max: 10 }),
+        fc.integer({ min: 0, max: 3 }),
+        fc.integer(),
+        (n, k, m, seed) => {
+          const f = randomFlatMachine(n, k, m, seed);
+          expect(f.states).toHaveLength(n);
+          expect(f.inputs).toHaveLength(k);
+          expect(isIncomplete(f)).toBe(false);
+          for (const rows of f.rows) {
+            expect(rows.length).toBeGreaterThanOrEqual(1);
+            expect(rows.length).toBeLessThanOrEqual(4);
+            expect(disjointSize(rows.map((r) => r.cube))).toBe(2 ** k);
+            for (let i = 0; i < rows.length; i++)
+              for (let j = i + 1; j < rows.length; j++) expect(overlaps(rows[i].cube, rows[j].cube)).toBe(false);
+            for (const r of rows) {
+              expect(r.next).toBeGreaterThanOrEqual(0);
+              expect(r.next).toBeLessThan(n);
+              expect(r.out).toHaveLength(m);
+            }
           }
-        }
-        expect(reachableStates(f).every(Boolean)).toBe(true);
-      }),
+          expect(reachableStates(f).every(Boolean)).toBe(true);
+        },
+      ),
       { seed: 42, numRuns: 60 },
     );
   });

@@ -9,7 +9,12 @@ describe('core/sim/runner', () => {
     expect(r.reset()).toEqual([]);
     expect(r.reading()).toMatchObject({ state: 'off', code: '0', outputs: { lit: '0' } });
     const c = r.clock({ t: 1 });
-    expect(c).toMatchObject({ before: { state: 'off' }, outputs: { lit: '0' }, after: { state: 'on', code: '1', outputs: { lit: '1' } }, alarms: [] });
+    expect(c).toMatchObject({
+      before: { state: 'off' },
+      outputs: { lit: '0' },
+      after: { state: 'on', code: '1', outputs: { lit: '1' } },
+      alarms: [],
+    });
     r.clock({ t: 0 });
     expect(r.reading().state).toBe('on');
     expect(r.history).toEqual(['reset', 'clock', 'clock']);

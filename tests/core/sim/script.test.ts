@@ -10,9 +10,36 @@ describe('core/sim/script', () => {
   it('gives one row per clock, outputs read before φ1', () => {
     const rows = runPartScript(toggleBuild(), [{ t: 1 }, {}, { t: 1 }], { stageDelayS: 0.25 });
     expect(rows).toEqual([
-      { clock: 1, state: 'off', code: '0', inputs: { t: 1 }, outputs: { lit: 0 }, next: 'on', nextCode: '1', alarms: [] },
-      { clock: 2, state: 'on', code: '1', inputs: { t: 0 }, outputs: { lit: 1 }, next: 'on', nextCode: '1', alarms: [] },
-      { clock: 3, state: 'on', code: '1', inputs: { t: 1 }, outputs: { lit: 1 }, next: 'off', nextCode: '0', alarms: [] },
+      {
+        clock: 1,
+        state: 'off',
+        code: '0',
+        inputs: { t: 1 },
+        outputs: { lit: 0 },
+        next: 'on',
+        nextCode: '1',
+        alarms: [],
+      },
+      {
+        clock: 2,
+        state: 'on',
+        code: '1',
+        inputs: { t: 0 },
+        outputs: { lit: 1 },
+        next: 'on',
+        nextCode: '1',
+        alarms: [],
+      },
+      {
+        clock: 3,
+        state: 'on',
+        code: '1',
+        inputs: { t: 1 },
+        outputs: { lit: 1 },
+        next: 'off',
+        nextCode: '0',
+        alarms: [],
+      },
     ]);
     expect(runAbstractScript(toggleBuild(), [{ t: 1 }, {}, { t: 1 }])).toEqual(rows);
   });
@@ -22,9 +49,9 @@ describe('core/sim/script', () => {
     const { build } = exampleBuild(name);
     const rnd = seededRandom(3);
     // Random inputs, leaving out the combinations the machine declares never to occur.
-    const allowed = Array.from({ length: 2 ** build.machine.inputs.length }, (_, m) => m.toString(2).padStart(build.machine.inputs.length, '0')).filter(
-      (a) => !coverHolds(build.machine.never, a),
-    );
+    const allowed = Array.from({ length: 2 ** build.machine.inputs.length }, (_, m) =>
+      m.toString(2).padStart(build.machine.inputs.length, '0'),
+    ).filter((a) => !coverHolds(build.machine.never, a));
     const seq = Array.from({ length: 30 }, () => valuesOf(build.machine.inputs, allowed[rnd.int(allowed.length)]));
     const part = runPartScript(build, seq, { stageDelayS: 0.25 });
     const abs = runAbstractScript(build, seq);

@@ -22,7 +22,8 @@ import type { MultiFunction, SopCover, Term } from '../../../src/core/phases/min
  * term) or every don't-care set to 0 (the on-set itself). Any real minimiser's cover lies
  * between the two, so a guard that is safe for the first is safe whatever the minimiser does.
  */
-export const allDontCaresOne: Minimiser = (f: MultiFunction): SopCover => cubesAsCover(f, (k) => [...f.on[k], ...f.dc[k]]);
+export const allDontCaresOne: Minimiser = (f: MultiFunction): SopCover =>
+  cubesAsCover(f, (k) => [...f.on[k], ...f.dc[k]]);
 export const allDontCaresZero: Minimiser = (f: MultiFunction): SopCover => cubesAsCover(f, (k) => [...f.on[k]]);
 
 function cubesAsCover(f: MultiFunction, pick: (k: number) => Cube[]): SopCover {
@@ -69,12 +70,16 @@ export function randomMachine(seed: number, shape: RandomShape): FlatMachine {
   }
   const allowed = complement(never, ni);
   const rows = Array.from({ length: n }, (_, s): FlatRow[] =>
-    allowed.flatMap((a) => cut(rng, a, 1 + rng.int(3))).map((cube, k) => ({
-      cube,
-      next: shape.incomplete && rng.next() < 0.15 ? DONT_CARE : k === 0 ? (s + 1) % n : rng.int(n),
-      out: Array.from({ length: no }, (): OutBit => (shape.incomplete && rng.next() < 0.2 ? '-' : rng.int(2) === 1 ? 1 : 0)),
-      transition: k,
-    })),
+    allowed
+      .flatMap((a) => cut(rng, a, 1 + rng.int(3)))
+      .map((cube, k) => ({
+        cube,
+        next: shape.incomplete && rng.next() < 0.15 ? DONT_CARE : k === 0 ? (s + 1) % n : rng.int(n),
+        out: Array.from({ length: no }, (): OutBit =>
+          shape.incomplete && rng.next() < 0.2 ? '-' : rng.int(2) === 1 ? 1 : 0,
+        ),
+        transition: k,
+      })),
   );
   return {
     name: `random${seed}`,
@@ -127,28 +132,35 @@ export function netlistViolations(n: Netlist, profile: Profile): string[] {
   const tied = new Set<string>();
   for (const c of n.cords) {
     const d = parts.get(c.driver);
-    if (!d || (d.kind !== 'lever' && d.kind !== 'gate')) bad.push(`cord ${c.id}: driver ${c.driver} is not a lever or gate`);
+    if (!d || (d.kind !== 'lever' && d.kind !== 'gate'))
+      bad.push(`cord ${c.id}: driver ${c.driver} is not a lever or gate`);
     if (c.ports.length + c.actuators.length === 0) bad.push(`cord ${c.id} ties nothing`);
     for (const p of c.ports) {
       const g = parts.get(p.part);
-      if (g?.kind !== 'gate' || !g.ports.some((q) => q.name === p.port)) bad.push(`cord ${c.id}: no port ${p.part}.${p.port}`);
+      if (g?.kind !== 'gate' || !g.ports.some((q) => q.name === p.port))
+        bad.push(`cord ${c.id}: no port ${p.part}.${p.port}`);
       tied.add(`${p.part}.${p.port}`);
     }
     for (const a of c.actuators) if (parts.get(a)?.kind !== 'actuator') bad.push(`cord ${c.id}: no actuator ${a}`);
   }
   const perPort = new Map<string, number>();
-  for (const c of n.cords) for (const p of c.ports) perPort.set(`${p.part}.${p.port}`, (perPort.get(`${p.part}.${p.port}`) ?? 0) + 1);
+  for (const c of n.cords)
+    for (const p of c.ports) perPort.set(`${p.part}.${p.port}`, (perPort.get(`${p.part}.${p.port}`) ?? 0) + 1);
   for (const p of n.parts) {
     if (p.kind === 'gate') {
       if (p.ports.length > profile.maxPortsPerGate) bad.push(`gate ${p.id} has ${p.ports.length} ports`);
       if (new Set(p.ports.map((q) => q.name)).size !== p.ports.length) bad.push(`gate ${p.id} repeats a port name`);
       for (const q of p.ports) {
         if (!tied.has(`${p.id}.${q.name}`)) bad.push(`port ${p.id}.${q.name} has no cord`);
-        if ((perPort.get(`${p.id}.${q.name}`) ?? 0) > profile.maxCordsPerPort) bad.push(`port ${p.id}.${q.name} has too many cords`);
+        if ((perPort.get(`${p.id}.${q.name}`) ?? 0) > profile.maxCordsPerPort)
+          bad.push(`port ${p.id}.${q.name} has too many cords`);
       }
     }
-    if (p.kind === 'flag' && p.fixed === undefined && parts.get(p.gate)?.kind !== 'gate') bad.push(`flag ${p.id} reads no gate`);
-    if (p.kind === 'latch') for (const g of [p.setGate, p.resetGate]) if (parts.get(g)?.kind !== 'gate') bad.push(`latch ${p.id}: no gate ${g}`);
+    if (p.kind === 'flag' && p.fixed === undefined && parts.get(p.gate)?.kind !== 'gate')
+      bad.push(`flag ${p.id} reads no gate`);
+    if (p.kind === 'latch')
+      for (const g of [p.setGate, p.resetGate])
+        if (parts.get(g)?.kind !== 'gate') bad.push(`latch ${p.id}: no gate ${g}`);
   }
   return bad;
 }
@@ -198,7 +210,12 @@ export function unsat(f: LogicFormula): boolean {
 /** MiniSat: S_j ∧ R_j is unsatisfiable for every bit, over all codes × all inputs. */
 export function satExclusive(b: Build): boolean {
   for (let j = 0; j < b.encoding.bits; j++) {
-    if (!unsat(Logic.and(coverFormula(b.equations[2 * j].terms, b.vars), coverFormula(b.equations[2 * j + 1].terms, b.vars)))) return false;
+    if (
+      !unsat(
+        Logic.and(coverFormula(b.equations[2 * j].terms, b.vars), coverFormula(b.equations[2 * j + 1].terms, b.vars)),
+      )
+    )
+      return false;
   }
   return true;
 }
@@ -216,9 +233,12 @@ export function satEquivalent(b: Build): boolean {
       const at = cubeFormula(b.encoding.codes[s] + r.cube, b.vars);
       if (r.next !== DONT_CARE) {
         for (let j = 0; j < bits; j++) {
-          const S = coverFormula(b.equations[2 * j].terms, b.vars), R = coverFormula(b.equations[2 * j + 1].terms, b.vars);
+          const S = coverFormula(b.equations[2 * j].terms, b.vars),
+            R = coverFormula(b.equations[2 * j + 1].terms, b.vars);
           const next = Logic.or(Logic.and(S, Logic.not(R)), Logic.and(`v_q${j}`, Logic.not(R), Logic.not(S)));
-          wrong.push(Logic.and(at, b.encoding.codes[r.next][j] === '1' ? Logic.not(next) : Logic.or(next, Logic.and(S, R))));
+          wrong.push(
+            Logic.and(at, b.encoding.codes[r.next][j] === '1' ? Logic.not(next) : Logic.or(next, Logic.and(S, R))),
+          );
         }
       }
       r.out.forEach((v, k) => {
@@ -249,7 +269,11 @@ export interface Settled {
  * pulled; latch gates are held at Q / NOT Q. A reference evaluator for the tests, written
  * from the model, not from the mapper.
  */
-export function settle(n: Netlist, levers: Readonly<Record<string, 0 | 1>>, latchQ: Readonly<Record<string, 0 | 1>>): Settled {
+export function settle(
+  n: Netlist,
+  levers: Readonly<Record<string, 0 | 1>>,
+  latchQ: Readonly<Record<string, 0 | 1>>,
+): Settled {
   const parts = new Map(n.parts.map((p) => [p.id, p]));
   const signal = new Map<string, 0 | 1>();
   const held = new Set<string>();
@@ -263,8 +287,11 @@ export function settle(n: Netlist, levers: Readonly<Record<string, 0 | 1>>, latc
     }
   }
   const tiedTo = new Map<string, string[]>();
-  for (const c of n.cords) for (const p of c.ports) tiedTo.set(`${p.part}.${p.port}`, [...(tiedTo.get(`${p.part}.${p.port}`) ?? []), c.driver]);
-  const port = (g: string, q: string): 0 | 1 => ((tiedTo.get(`${g}.${q}`) ?? []).every((d) => signal.get(d) === 1) ? 1 : 0);
+  for (const c of n.cords)
+    for (const p of c.ports)
+      tiedTo.set(`${p.part}.${p.port}`, [...(tiedTo.get(`${p.part}.${p.port}`) ?? []), c.driver]);
+  const port = (g: string, q: string): 0 | 1 =>
+    (tiedTo.get(`${g}.${q}`) ?? []).every((d) => signal.get(d) === 1) ? 1 : 0;
   const z = (g: string): 0 | 1 => {
     const gate = parts.get(g);
     if (gate?.kind !== 'gate') throw new Error(`no gate ${g}`);
@@ -318,7 +345,10 @@ export function polarityMismatch(b: Build): string | null {
   const ni = b.machine.inputs.length;
   for (const code of b.encoding.codes)
     for (let m = 0; m < 2 ** ni; m++) {
-      const x = m.toString(2).padStart(ni, '0').slice(-ni || 0);
+      const x = m
+        .toString(2)
+        .padStart(ni, '0')
+        .slice(-ni || 0);
       const xs = ni === 0 ? '' : x;
       const point = code + xs;
       const levers: Record<string, 0 | 1> = {};
@@ -328,20 +358,24 @@ export function polarityMismatch(b: Build): string | null {
       const on = settle(n, { ...levers, [sig.phi1]: 1 }, slaves);
       const off = settle(n, levers, slaves);
       for (let j = 0; j < bits; j++) {
-        const S = coverHoldsAt(b.equations[2 * j].terms, point), R = coverHoldsAt(b.equations[2 * j + 1].terms, point);
+        const S = coverHoldsAt(b.equations[2 * j].terms, point),
+          R = coverHoldsAt(b.equations[2 * j + 1].terms, point);
         if (sideBar(on, sig.masters[j], 'set') !== 1 - S) return `S̄ of ${sig.masters[j]} at ${point}`;
         if (sideBar(on, sig.masters[j], 'reset') !== 1 - R) return `R̄ of ${sig.masters[j]} at ${point}`;
-        if (sideBar(off, sig.masters[j], 'set') !== 1 || sideBar(off, sig.masters[j], 'reset') !== 1) return `master ${j} driven without φ1 at ${point}`;
+        if (sideBar(off, sig.masters[j], 'set') !== 1 || sideBar(off, sig.masters[j], 'reset') !== 1)
+          return `master ${j} driven without φ1 at ${point}`;
       }
       for (let k = 0; k < b.machine.outputs.length; k++) {
         const want = coverHoldsAt(b.equations[2 * bits + k].terms, point);
-        for (const s of [on, off]) if (s.shows(sig.outputs[b.machine.outputs[k]]) !== want) return `output ${b.machine.outputs[k]} at ${point}`;
+        for (const s of [on, off])
+          if (s.shows(sig.outputs[b.machine.outputs[k]]) !== want) return `output ${b.machine.outputs[k]} at ${point}`;
       }
     }
   for (let j = 0; j < bits; j++)
     for (const mq of [0, 1] as const) {
       const s = settle(n, { [sig.phi2]: 1 }, { [sig.masters[j]]: mq });
-      if (sideBar(s, sig.slaves[j], 'set') !== 1 - mq || sideBar(s, sig.slaves[j], 'reset') !== mq) return `transfer into ${sig.slaves[j]} with M = ${mq}`;
+      if (sideBar(s, sig.slaves[j], 'set') !== 1 - mq || sideBar(s, sig.slaves[j], 'reset') !== mq)
+        return `transfer into ${sig.slaves[j]} with M = ${mq}`;
     }
   if (bits > 0) {
     const r = settle(n, { [sig.reset]: 1 }, {});

@@ -46,10 +46,15 @@ describe('src/web/controllers/files', () => {
   it('reports why a JSON file cannot be read, in the command line wording, and refuses to save a broken machine in other forms', () => {
     const r = openedText('{"name": 3}', 'bad.json');
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.problems[0]).toBe("bad.json $.name: error LW103: $.name should be a string, not number 3 — see schemas/machine.schema.json");
+    if (!r.ok)
+      expect(r.problems[0]).toBe(
+        'bad.json $.name: error LW103: $.name should be a string, not number 3 — see schemas/machine.schema.json',
+      );
     // A machine that does not parse cannot be put in another form (one that only fails
     // validation, e.g. an unknown target, can: the JSON form carries the same mistake).
-    expect(savedText(LOCK.replace('when blue go open', 'when blue & go open'), 'lock.lw', 'json')).toHaveProperty('problems');
+    expect(savedText(LOCK.replace('when blue go open', 'when blue & go open'), 'lock.lw', 'json')).toHaveProperty(
+      'problems',
+    );
     expect(savedText('anything', 'x.lw', 'text')).toEqual({ name: 'x.lw', mime: 'text/plain', text: 'anything' });
   });
 });

@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { fromBase64Url, machineFromHash, machineHash, machineLink, toBase64Url } from '../../../src/web/controllers/link.js';
+import {
+  fromBase64Url,
+  machineFromHash,
+  machineHash,
+  machineLink,
+  toBase64Url,
+} from '../../../src/web/controllers/link.js';
 
 describe('src/web/controllers/link', () => {
   it('encodes the RFC 4648 §10 test vectors in the URL-safe alphabet without padding', () => {
@@ -36,6 +42,8 @@ describe('src/web/controllers/link', () => {
     expect(machineFromHash(machineHash(text))).toBe(text);
     expect(machineFromHash(`#x=1&m=${toBase64Url(text)}`)).toBe(text);
     expect(machineFromHash('#view=2')).toBeUndefined();
-    expect(machineLink('http://127.0.0.1:5178/?a=1#m=old', text)).toBe(`http://127.0.0.1:5178/?a=1#m=${toBase64Url(text)}`);
+    expect(machineLink('http://127.0.0.1:5178/?a=1#m=old', text)).toBe(
+      `http://127.0.0.1:5178/?a=1#m=${toBase64Url(text)}`,
+    );
   });
 });

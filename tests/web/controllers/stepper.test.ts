@@ -21,7 +21,8 @@ function host(): ReactiveControllerHost & { updates: number } {
   };
 }
 
-const key = (k: string, code = '', shiftKey = false, ctrlKey = false): KeyboardEvent => ({ key: k, code, shiftKey, ctrlKey, altKey: false, metaKey: false }) as KeyboardEvent;
+const key = (k: string, code = '', shiftKey = false, ctrlKey = false): KeyboardEvent =>
+  ({ key: k, code, shiftKey, ctrlKey, altKey: false, metaKey: false }) as KeyboardEvent;
 
 function bell() {
   const a = analyse(BELL, 'b.lw');

@@ -3,7 +3,14 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { parseTextMachine } from '../../../src/core/forms/text.js';
 import type { Machine } from '../../../src/core/model/machine.js';
-import { addState, addTransition, applyEdit, reguard, retarget, type TextEdit } from '../../../src/web/controllers/table-edit.js';
+import {
+  addState,
+  addTransition,
+  applyEdit,
+  reguard,
+  retarget,
+  type TextEdit,
+} from '../../../src/web/controllers/table-edit.js';
 
 const LOCK = readFileSync(fileURLToPath(new URL('../../../examples/sequence-lock.lw', import.meta.url)), 'utf8');
 
@@ -53,7 +60,12 @@ describe('src/web/controllers/table-edit', () => {
     const t2 = apply(LOCK, addTransition(LOCK, gotRed, 'locked', 'red'));
     const m2 = read(t2);
     const s2 = m2.states.find((s) => s.name === 'got_red');
-    expect(s2?.transitions.map((t) => `${t.when.text}->${t.to}`)).toEqual(['blue->open', 'green->got_green', 'red->locked', 'red->locked']);
+    expect(s2?.transitions.map((t) => `${t.when.text}->${t.to}`)).toEqual([
+      'blue->open',
+      'green->got_green',
+      'red->locked',
+      'red->locked',
+    ]);
     expect(t2.split('\n').length).toBe(LOCK.split('\n').length + 1);
     const t3 = apply(LOCK, addState(LOCK, 'spare'));
     expect(t3.startsWith(LOCK)).toBe(true);

@@ -4,7 +4,8 @@ import { fileURLToPath } from 'node:url';
 import { analyse } from '../../../src/core/pipeline.js';
 import { CHAR_W, layoutDiagram, outputWords, type LaidNode } from '../../../src/web/diagram/layout.js';
 
-const example = (f: string): string => readFileSync(fileURLToPath(new URL(`../../../examples/${f}`, import.meta.url)), 'utf8');
+const example = (f: string): string =>
+  readFileSync(fileURLToPath(new URL(`../../../examples/${f}`, import.meta.url)), 'utf8');
 
 function laid(text: string) {
   const a = analyse(text, 'x.lw');
@@ -12,7 +13,8 @@ function laid(text: string) {
   return { a, l: layoutDiagram(a.machine, a.minimised.merged, a.minimised.unreachable) };
 }
 
-const overlap = (p: LaidNode, q: LaidNode): boolean => Math.abs(p.x - q.x) * 2 < p.width + q.width && Math.abs(p.y - q.y) * 2 < p.height + q.height;
+const overlap = (p: LaidNode, q: LaidNode): boolean =>
+  Math.abs(p.x - q.x) * 2 < p.width + q.width && Math.abs(p.y - q.y) * 2 < p.height + q.height;
 
 describe('src/web/diagram/layout', () => {
   it('places every state once, boxes apart, inside the drawing, sized to their text', () => {
@@ -47,7 +49,8 @@ describe('src/web/diagram/layout', () => {
     const { l } = laid(example('odd-lever.lw'));
     expect(l.edges[0].lines).toEqual(['left ^ right / chime=1', 'otherwise']);
     expect(outputWords({ a: 0, b: 1, c: '-' }, ['c', 'b', 'a'])).toBe('c=- b=1');
-    const text = 'machine m\ninputs x\noutputs y\nstart a\nstate a\n  when x go b\n  go c\nstate b with y=1\n  go a\nstate c with y=1\n  go a\nstate lost\n  go a\n';
+    const text =
+      'machine m\ninputs x\noutputs y\nstart a\nstate a\n  when x go b\n  go c\nstate b with y=1\n  go a\nstate c with y=1\n  go a\nstate lost\n  go a\n';
     const { l: l2 } = laid(text);
     const byId = new Map(l2.nodes.map((n) => [n.id, n]));
     expect(byId.get('lost')?.unreachable).toBe(true);

@@ -33,7 +33,14 @@ describe('src/web/worker/jobs', () => {
     expect(b.view.build.parts).toEqual(ref.build.parts);
     expect(b.view.equations.map((e) => e.name)).toEqual(['S0', 'R0', 'S1', 'R1', 'bell']);
     const c = checkJob(b.built, 1);
-    expect(c.view.checks.map((x) => x.name)).toEqual(['forbidden-input', 'next-state-equivalence', 'equivalence', 'recovery', 'timing', 'drive']);
+    expect(c.view.checks.map((x) => x.name)).toEqual([
+      'forbidden-input',
+      'next-state-equivalence',
+      'equivalence',
+      'recovery',
+      'timing',
+      'drive',
+    ]);
     const margins = c.view.margins.map((m) => m.margin);
     expect(margins).toEqual([...margins].sort((x, y) => x - y));
     expect(c.view.torque.map((t) => t.state)).toEqual(['none', 'one', 'two', 'rung']);
@@ -57,11 +64,14 @@ describe('src/web/worker/jobs', () => {
   });
 
   it('takes the worst snapshot of each state by its label', () => {
-    const bars = torqueByState(['a', 'b'], [
-      { label: 'a, inputs 0, φ1 pulled', torqueNm: 1 },
-      { label: 'a, inputs 1, φ2 pulled', torqueNm: 3 },
-      { label: 'b, inputs 0, inputs held', torqueNm: 2 },
-    ]);
+    const bars = torqueByState(
+      ['a', 'b'],
+      [
+        { label: 'a, inputs 0, φ1 pulled', torqueNm: 1 },
+        { label: 'a, inputs 1, φ2 pulled', torqueNm: 3 },
+        { label: 'b, inputs 0, inputs held', torqueNm: 2 },
+      ],
+    );
     expect(bars).toEqual([
       { state: 'a', torqueNm: 3, at: 'inputs 1, φ2 pulled' },
       { state: 'b', torqueNm: 2, at: 'inputs 0, inputs held' },

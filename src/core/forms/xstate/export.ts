@@ -24,8 +24,13 @@ import { coverContains, universe, type Cube } from '../../model/cube.js';
 import { DONT_CARE, flatten, rowFor, type FlatMachine } from '../../model/flat.js';
 import { transitionOutputs, type Machine, type OutBit } from '../../model/machine.js';
 import {
-  CLOCK_EVENT, HOLDS_GUARD,
-  type XstateConfig, type XstateForm, type XstateGuardFn, type XstateStateConfig, type XstateTransitionConfig,
+  CLOCK_EVENT,
+  HOLDS_GUARD,
+  type XstateConfig,
+  type XstateForm,
+  type XstateGuardFn,
+  type XstateStateConfig,
+  type XstateTransitionConfig,
 } from './types.js';
 
 export interface XstateExport {
@@ -54,20 +59,32 @@ export function clockGuards(inputs: readonly string[]): Record<string, XstateGua
   const holds: XstateGuardFn = ({ event }, params) => {
     const cubes = isRecord(params) && Array.isArray(params.cubes) ? params.cubes : [];
     const assignment = clockAssignment(inputs, event);
-    return cubes.some((c) => typeof c === 'string' && c.length === inputs.length && [...c].every((ch, i) => ch === '-' || ch === assignment[i]));
+    return cubes.some(
+      (c) =>
+        typeof c === 'string' &&
+        c.length === inputs.length &&
+        [...c].every((ch, i) => ch === '-' || ch === assignment[i]),
+    );
   };
   return { [HOLDS_GUARD]: holds };
 }
 
 /** The clock-form event for a full input assignment ('0'/'1' per input, in input order). */
-export function clockEvent(inputs: readonly string[], assignment: string): { type: typeof CLOCK_EVENT; inputs: Record<string, 0 | 1> } {
+export function clockEvent(
+  inputs: readonly string[],
+  assignment: string,
+): { type: typeof CLOCK_EVENT; inputs: Record<string, 0 | 1> } {
   return { type: CLOCK_EVENT, inputs: Object.fromEntries(inputs.map((n, i) => [n, assignment[i] === '1' ? 1 : 0])) };
 }
 
 /** Read an event's inputs as an assignment string: 1 or true is pulled; anything else (or missing) is released. */
 function clockAssignment(inputs: readonly string[], event: unknown): string {
   const values = isRecord(event) && isRecord(event.inputs) ? event.inputs : {};
-  return inputs.map((n) => (Object.prototype.hasOwnProperty.call(values, n) && (values[n] === 1 || values[n] === true) ? '1' : '0')).join('');
+  return inputs
+    .map((n) =>
+      Object.prototype.hasOwnProperty.call(values, n) && (values[n] === 1 || values[n] === true) ? '1' : '0',
+    )
+    .join('');
 }
 
 function isRecord(v: unknown): v is Record<string, unknown> {
@@ -108,9 +125,15 @@ function leversConfig(m: Machine, f: FlatMachine): XstateConfig {
       if (!r) return; // this lever alone cannot be pulled
       const moves = r.next !== si && r.next !== DONT_CARE;
       if (!moves && r.out.every((v, k) => v === stay[k])) return; // same as not answering: xstate ignores the event
-      on.push([lever, { ...(moves ? { target: f.states[r.next] } : {}), meta: { outputs: outputsRecord(m.outputs, r.out) } }]);
+      on.push([
+        lever,
+        { ...(moves ? { target: f.states[r.next] } : {}), meta: { outputs: outputsRecord(m.outputs, r.out) } },
+      ]);
     });
-    return [s.name, { meta: { outputs: outputsRecord(m.outputs, stay) }, ...(on.length ? { on: Object.fromEntries(on) } : {}) }];
+    return [
+      s.name,
+      { meta: { outputs: outputsRecord(m.outputs, stay) }, ...(on.length ? { on: Object.fromEntries(on) } : {}) },
+    ];
   });
   return header(m, 'levers', Object.fromEntries(states));
 }
@@ -130,10 +153,18 @@ function clockConfig(m: Machine): XstateConfig {
       });
       if (always) break; // later transitions can never fire
     }
-    return [s.name, {
-      meta: { outputs: outputsRecord(m.outputs, m.outputs.map((o) => s.outputs[o] ?? 0)) },
-      ...(candidates.length ? { on: { [CLOCK_EVENT]: candidates } } : {}),
-    }];
+    return [
+      s.name,
+      {
+        meta: {
+          outputs: outputsRecord(
+            m.outputs,
+            m.outputs.map((o) => s.outputs[o] ?? 0),
+          ),
+        },
+        ...(candidates.length ? { on: { [CLOCK_EVENT]: candidates } } : {}),
+      },
+    ];
   });
   return header(m, 'clock', Object.fromEntries(states));
 }

@@ -37,7 +37,16 @@ export function importXstate(config: unknown, file?: string): MachineResult {
   } catch (e) {
     // Only exotic values get here (a getter that throws, a revoked proxy): plain data never does.
     const why = e instanceof Error ? e.message : String(e);
-    return { diagnostics: [diag('LW501', `the configuration could not be read: ${why}`, file === undefined ? { path: '$' } : { file, path: '$' }, 'pass plain JSON data')] };
+    return {
+      diagnostics: [
+        diag(
+          'LW501',
+          `the configuration could not be read: ${why}`,
+          file === undefined ? { path: '$' } : { file, path: '$' },
+          'pass plain JSON data',
+        ),
+      ],
+    };
   }
 }
 
@@ -56,18 +65,43 @@ function importChecked(config: unknown, file?: string): MachineResult {
   const inputs = uniqueInOrder([...raw.states.flatMap((s) => [...s.on.keys()]), ...raw.rootOn.keys()]);
   const outputs = uniqueInOrder(outputNamesInOrder(raw));
   if (inputs.length > MAX_LEVERS) {
-    ds.push(diag('LW401', `the configuration has ${inputs.length} event types; a lever machine handles at most ${MAX_LEVERS} levers`, at('$'), 'split the machine'));
+    ds.push(
+      diag(
+        'LW401',
+        `the configuration has ${inputs.length} event types; a lever machine handles at most ${MAX_LEVERS} levers`,
+        at('$'),
+        'split the machine',
+      ),
+    );
     return { diagnostics: ds };
   }
   const outSet = new Set(outputs);
   for (const i of inputs) {
-    if (outSet.has(i)) ds.push(diag('LW203', `'${i}' is both an event type (a lever) and an output (a tag or meta.outputs name)`, at('$'), 'rename one of them'));
+    if (outSet.has(i))
+      ds.push(
+        diag(
+          'LW203',
+          `'${i}' is both an event type (a lever) and an output (a tag or meta.outputs name)`,
+          at('$'),
+          'rename one of them',
+        ),
+      );
   }
 
   let start = raw.initial ?? '';
   if (raw.initial !== undefined && !raw.states.some((s) => s.name === raw.initial)) {
-    const g = didYouMean(raw.initial, raw.states.map((s) => s.name));
-    ds.push(diag('LW204', `the initial state '${raw.initial}' is not a state of the machine`, at('$.initial'), g ? `did you mean '${g}'?` : 'name one of the states under "states"'));
+    const g = didYouMean(
+      raw.initial,
+      raw.states.map((s) => s.name),
+    );
+    ds.push(
+      diag(
+        'LW204',
+        `the initial state '${raw.initial}' is not a state of the machine`,
+        at('$.initial'),
+        g ? `did you mean '${g}'?` : 'name one of the states under "states"',
+      ),
+    );
     start = '';
   }
 
@@ -83,7 +117,14 @@ function importChecked(config: unknown, file?: string): MachineResult {
     if (r.ok) return r.state;
     if (r.feature) {
       const n = featureNote(r.feature);
-      ds.push(diag('LW500', `unsupported xstate feature: ${n.name} (${c.targetPath}): ${r.message}`, at(c.targetPath), n.hint));
+      ds.push(
+        diag(
+          'LW500',
+          `unsupported xstate feature: ${n.name} (${c.targetPath}): ${r.message}`,
+          at(c.targetPath),
+          n.hint,
+        ),
+      );
     } else ds.push(diag('LW200', r.message, at(c.targetPath), r.hint));
     return undefined;
   };
@@ -94,7 +135,14 @@ function importChecked(config: unknown, file?: string): MachineResult {
     const tagged = new Set([...rootTags, ...s.tags]);
     for (const [o, v] of s.outputs) {
       if (tagged.has(o) && v !== 1) {
-        ds.push(diag('LW501', `state '${s.name}' carries the tag '${o}' (output 1) but meta.outputs gives '${o}' the value ${JSON.stringify(v)}`, at(`${s.path}.meta.outputs`), `drop one of the two, or make meta.outputs.${o} 1`));
+        ds.push(
+          diag(
+            'LW501',
+            `state '${s.name}' carries the tag '${o}' (output 1) but meta.outputs gives '${o}' the value ${JSON.stringify(v)}`,
+            at(`${s.path}.meta.outputs`),
+            `drop one of the two, or make meta.outputs.${o} 1`,
+          ),
+        );
       }
     }
     const moore = record([...[...tagged].map((t) => [t, 1] as const), ...s.outputs]);

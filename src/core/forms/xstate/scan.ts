@@ -21,7 +21,8 @@ const isObj = (v: unknown): v is Obj => typeof v === 'object' && v !== null && !
 const own = (o: Obj, k: string): unknown => (Object.prototype.hasOwnProperty.call(o, k) ? o[k] : undefined);
 const has = (o: Obj, k: string): boolean => Object.prototype.hasOwnProperty.call(o, k);
 /** Nothing there: absent, an empty list or an empty object (does nothing in xstate either). */
-const isBlank = (v: unknown): boolean => v === undefined || (Array.isArray(v) && v.length === 0) || (isObj(v) && Object.keys(v).length === 0);
+const isBlank = (v: unknown): boolean =>
+  v === undefined || (Array.isArray(v) && v.length === 0) || (isObj(v) && Object.keys(v).length === 0);
 
 const IDENT = /^[A-Za-z_][A-Za-z0-9_]*$/;
 const STATE_NAME = /^[A-Za-z0-9_]+$/;
@@ -46,12 +47,28 @@ const TRANSITION_KEYS = ['target', 'meta', 'description', 'reenter'];
 
 /** Fields that are features a lever machine cannot have, on the root or on a state. */
 const NODE_FEATURES: Readonly<Record<string, Feature>> = {
-  entry: 'entry', exit: 'exit', onEntry: 'entry', onExit: 'exit', invoke: 'invoke', always: 'always',
-  after: 'after', onDone: 'onDone', output: 'output', history: 'history', target: 'history', route: 'route',
-  activities: 'activities', data: 'output',
+  entry: 'entry',
+  exit: 'exit',
+  onEntry: 'entry',
+  onExit: 'exit',
+  invoke: 'invoke',
+  always: 'always',
+  after: 'after',
+  onDone: 'onDone',
+  output: 'output',
+  history: 'history',
+  target: 'history',
+  route: 'route',
+  activities: 'activities',
+  data: 'output',
 };
 /** Fields of a transition that are features. */
-const TRANSITION_FEATURES: Readonly<Record<string, Feature>> = { guard: 'guard', cond: 'cond', in: 'in', actions: 'actions' };
+const TRANSITION_FEATURES: Readonly<Record<string, Feature>> = {
+  guard: 'guard',
+  cond: 'cond',
+  in: 'in',
+  actions: 'actions',
+};
 
 function describe(v: unknown): string {
   if (v === null) return 'null';
@@ -74,7 +91,13 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
   };
   const unknown = (o: Obj, k: string, path: string, known: readonly string[]): void => {
     const guess = didYouMean(k, known);
-    report('LW105', `unknown field '${k}' ignored`, jsonKey(path, k), guess ? `did you mean '${guess}'?` : `fields read here: ${known.join(', ')}`, 'warning');
+    report(
+      'LW105',
+      `unknown field '${k}' ignored`,
+      jsonKey(path, k),
+      guess ? `did you mean '${guess}'?` : `fields read here: ${known.join(', ')}`,
+      'warning',
+    );
   };
   const name = (s: string, what: string, path: string): boolean => {
     const isState = what === 'state';
@@ -93,7 +116,8 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
     const out: string[] = [];
     list.forEach((t, i) => {
       const p = Array.isArray(v) ? `${path}[${i}]` : path;
-      if (typeof t !== 'string') report('LW501', `a tag should be a string, not ${describe(t)}`, p, 'tags: "name" or ["name", …]');
+      if (typeof t !== 'string')
+        report('LW501', `a tag should be a string, not ${describe(t)}`, p, 'tags: "name" or ["name", …]');
       else if (name(t, 'tag (output)', p)) out.push(t);
     });
     return out;
@@ -105,7 +129,12 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
     const o = own(meta, 'outputs');
     const op = `${path}.outputs`;
     if (!isObj(o)) {
-      report('LW501', `meta.outputs should be an object of output name → 0, 1 or "-", not ${describe(o)}`, op, 'for example "meta": { "outputs": { "bell": 1 } }');
+      report(
+        'LW501',
+        `meta.outputs should be an object of output name → 0, 1 or "-", not ${describe(o)}`,
+        op,
+        'for example "meta": { "outputs": { "bell": 1 } }',
+      );
       return out;
     }
     for (const k of Object.keys(o)) {
@@ -121,7 +150,12 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
   const transition = (v: unknown, path: string, where: string): RawTransition | undefined => {
     if (typeof v === 'string') return { target: v, outputs: new Map(), path, targetPath: path };
     if (!isObj(v)) {
-      report('LW501', `a transition should be a target name, an object or a list of them, not ${describe(v)}`, path, 'for example "COIN": "open" or "COIN": { "target": "open" }');
+      report(
+        'LW501',
+        `a transition should be a target name, an object or a list of them, not ${describe(v)}`,
+        path,
+        'for example "COIN": "open" or "COIN": { "target": "open" }',
+      );
       return undefined;
     }
     let target: string | undefined;
@@ -137,7 +171,12 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
           feature('multipleTargets', where, kp);
           ok = false;
         } else {
-          report('LW501', `target should be a state reference (a string), not ${describe(x)}`, kp, 'omit target to stay in the state');
+          report(
+            'LW501',
+            `target should be a state reference (a string), not ${describe(x)}`,
+            kp,
+            'omit target to stay in the state',
+          );
           ok = false;
         }
       } else if (k === 'reenter') {
@@ -149,18 +188,31 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
         feature(TRANSITION_FEATURES[k], where, kp);
         ok = false;
       } else if (k === 'internal') {
-        report('LW105', `the xstate v4 field 'internal' is ignored`, kp, 'without actions, entering a state again changes nothing', 'warning');
+        report(
+          'LW105',
+          `the xstate v4 field 'internal' is ignored`,
+          kp,
+          'without actions, entering a state again changes nothing',
+          'warning',
+        );
       } else unknown(v, k, path, TRANSITION_KEYS);
     }
     const outputs = metaOutputs(own(v, 'meta'), `${path}.meta`);
-    return ok ? { ...(target === undefined ? {} : { target }), outputs, path, targetPath: `${path}.target` } : undefined;
+    return ok
+      ? { ...(target === undefined ? {} : { target }), outputs, path, targetPath: `${path}.target` }
+      : undefined;
   };
 
   const onBlock = (v: unknown, path: string, where: string): Map<string, RawTransition[]> => {
     const out = new Map<string, RawTransition[]>();
     if (v === undefined) return out;
     if (!isObj(v)) {
-      report('LW501', `'on' should be an object of event type → transitions, not ${describe(v)}`, path, 'for example "on": { "COIN": "open" }');
+      report(
+        'LW501',
+        `'on' should be an object of event type → transitions, not ${describe(v)}`,
+        path,
+        'for example "on": { "COIN": "open" }',
+      );
       return out;
     }
     for (const ev of Object.keys(v)) {
@@ -170,8 +222,13 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
       else if (ev.startsWith('xstate.')) feature('builtinEvent', where, kp);
       else if (name(ev, 'event type (lever)', kp)) {
         const x = v[ev];
-        const list = Array.isArray(x) ? x.map((c, i) => transition(c, `${kp}[${i}]`, where)) : [transition(x, kp, where)];
-        out.set(ev, list.filter((c): c is RawTransition => c !== undefined));
+        const list = Array.isArray(x)
+          ? x.map((c, i) => transition(c, `${kp}[${i}]`, where))
+          : [transition(x, kp, where)];
+        out.set(
+          ev,
+          list.filter((c): c is RawTransition => c !== undefined),
+        );
       }
     }
     return out;
@@ -180,7 +237,12 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
   const state = (nm: string, v: unknown, path: string, rootId: string): RawState | undefined => {
     const where = `state '${nm}'`;
     if (!isObj(v)) {
-      report('LW501', `state '${nm}' should be an object, not ${describe(v)}`, path, 'write {} for a state with no transitions');
+      report(
+        'LW501',
+        `state '${nm}' should be an object, not ${describe(v)}`,
+        path,
+        'write {} for a state with no transitions',
+      );
       return undefined;
     }
     let final = false;
@@ -194,7 +256,8 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
       report('LW501', `state type should be "atomic" or "final", not ${describe(type)}`, `${path}.type`);
     }
     const children = own(v, 'states');
-    if (children !== undefined && !isObj(children)) report('LW501', `'states' should be an object, not ${describe(children)}`, `${path}.states`);
+    if (children !== undefined && !isObj(children))
+      report('LW501', `'states' should be an object, not ${describe(children)}`, `${path}.states`);
     else if (!isBlank(children) && !shaped) {
       feature('nested', where, `${path}.states`);
       shaped = true;
@@ -203,7 +266,8 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
     let id = `${rootId}.${nm}`;
     const cid = own(v, 'id');
     if (typeof cid === 'string' && cid !== '') id = cid;
-    else if (cid !== undefined && typeof cid !== 'string') report('LW501', `a state id should be a string, not ${describe(cid)}`, `${path}.id`);
+    else if (cid !== undefined && typeof cid !== 'string')
+      report('LW501', `a state id should be a string, not ${describe(cid)}`, `${path}.id`);
     for (const k of Object.keys(v)) {
       if (STATE_KEYS.includes(k)) continue;
       if (has(NODE_FEATURES, k)) {
@@ -217,22 +281,30 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
   };
 
   if (!isObj(value)) {
-    report('LW501', `an xstate configuration is an object, not ${describe(value)}`, '$', 'it needs "initial" and "states"');
+    report(
+      'LW501',
+      `an xstate configuration is an object, not ${describe(value)}`,
+      '$',
+      'it needs "initial" and "states"',
+    );
     return { diagnostics: ds };
   }
   const root = value;
   const idv = own(root, 'id');
-  if (idv !== undefined && typeof idv !== 'string') report('LW501', `the machine id should be a string, not ${describe(idv)}`, '$.id');
+  if (idv !== undefined && typeof idv !== 'string')
+    report('LW501', `the machine id should be a string, not ${describe(idv)}`, '$.id');
   const rootId = typeof idv === 'string' && idv !== '' ? idv : '(machine)';
   const type = own(root, 'type');
   if (type === 'parallel') feature('parallel', 'the machine root', '$.type');
-  else if (type !== undefined && type !== 'compound') report('LW501', `the machine's type should be "compound" (or absent), not ${describe(type)}`, '$.type');
+  else if (type !== undefined && type !== 'compound')
+    report('LW501', `the machine's type should be "compound" (or absent), not ${describe(type)}`, '$.type');
   const context = own(root, 'context');
   if (!isBlank(context)) feature('context', 'the machine root', '$.context');
   const meta = own(root, 'meta');
   if (isObj(meta) && has(meta, 'outputs')) feature('rootOutputs', 'the machine root', '$.meta.outputs');
   const desc = own(root, 'description');
-  if (desc !== undefined && typeof desc !== 'string') report('LW501', `description should be a string, not ${describe(desc)}`, '$.description');
+  if (desc !== undefined && typeof desc !== 'string')
+    report('LW501', `description should be a string, not ${describe(desc)}`, '$.description');
 
   let initial: string | undefined;
   const iv = own(root, 'initial');
@@ -240,7 +312,8 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
   else if (isObj(iv) && typeof own(iv, 'target') === 'string') {
     initial = own(iv, 'target') as string;
     if (!isBlank(own(iv, 'actions'))) feature('actions', 'the initial transition', '$.initial.actions');
-  } else if (iv === undefined) report('LW501', `the machine has no 'initial' state`, '$', 'add "initial": "<state name>"');
+  } else if (iv === undefined)
+    report('LW501', `the machine has no 'initial' state`, '$', 'add "initial": "<state name>"');
   else report('LW501', `'initial' should be a state name, not ${describe(iv)}`, '$.initial');
 
   for (const k of Object.keys(root)) {
@@ -253,9 +326,15 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
   const statesV = own(root, 'states');
   const states: RawState[] = [];
   if (!isObj(statesV)) {
-    report('LW501', statesV === undefined ? `the machine has no 'states'` : `'states' should be an object, not ${describe(statesV)}`, statesV === undefined ? '$' : '$.states', 'add "states": { "<name>": { "on": { … } } }');
+    report(
+      'LW501',
+      statesV === undefined ? `the machine has no 'states'` : `'states' should be an object, not ${describe(statesV)}`,
+      statesV === undefined ? '$' : '$.states',
+      'add "states": { "<name>": { "on": { … } } }',
+    );
   } else {
-    if (Object.keys(statesV).length === 0) report('LW300', 'the machine has no states', '$.states', 'declare at least one state');
+    if (Object.keys(statesV).length === 0)
+      report('LW300', 'the machine has no states', '$.states', 'declare at least one state');
     for (const nm of Object.keys(statesV)) {
       const sp = jsonKey('$.states', nm);
       if (!name(nm, 'state', sp)) continue;
@@ -267,7 +346,13 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
   const seen = new Map<string, string>([[rootId, '$']]);
   for (const s of states) {
     const first = seen.get(s.id);
-    if (first !== undefined) report('LW501', `state '${s.name}' has the id '${s.id}', already used at ${first}`, `${s.path}.id`, 'give every state its own id');
+    if (first !== undefined)
+      report(
+        'LW501',
+        `state '${s.name}' has the id '${s.id}', already used at ${first}`,
+        `${s.path}.id`,
+        'give every state its own id',
+      );
     else seen.set(s.id, s.path);
   }
 

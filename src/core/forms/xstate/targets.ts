@@ -41,7 +41,11 @@ export function resolveTarget(target: string, from: RawState | undefined, raw: R
   const names = raw.states.map((s) => s.name);
   const byName = new Set(names);
   const byId = new Map(raw.states.map((s) => [s.id, s.name]));
-  const unknown = (hint?: string): Resolution => ({ ok: false, message: `the target '${target}' names no state of this flat machine`, ...(hint ? { hint } : {}) });
+  const unknown = (hint?: string): Resolution => ({
+    ok: false,
+    message: `the target '${target}' names no state of this flat machine`,
+    ...(hint ? { hint } : {}),
+  });
   const guessName = (n: string, prefix: string): string | undefined => {
     const g = didYouMean(n, names);
     return g === undefined ? undefined : `did you mean '${prefix}${g}'?`;
@@ -56,15 +60,22 @@ export function resolveTarget(target: string, from: RawState | undefined, raw: R
     const head = segs[0].slice(1);
     const rest = segs.slice(1);
     if (head === raw.rootId) {
-      if (rest.length === 0 || (rest.length === 1 && rest[0] === '')) return { ok: false, message: `the target '${target}' is the machine root`, feature: 'rootTarget' };
+      if (rest.length === 0 || (rest.length === 1 && rest[0] === ''))
+        return { ok: false, message: `the target '${target}' is the machine root`, feature: 'rootTarget' };
       if (rest.length === 1 && byName.has(rest[0])) return { ok: true, state: rest[0] };
-      return unknown(rest.length === 1 ? guessName(rest[0], `#${raw.rootId}.`) : 'a flat machine has no states inside states');
+      return unknown(
+        rest.length === 1 ? guessName(rest[0], `#${raw.rootId}.`) : 'a flat machine has no states inside states',
+      );
     }
     const hit = byId.get(head);
     if (hit !== undefined && rest.length === 0) return { ok: true, state: hit };
     if (hit !== undefined) return unknown(`state '${hit}' has no child states; write '#${head}'`);
     const g = didYouMean(head, [...byId.keys(), raw.rootId]);
-    return unknown(g !== undefined ? `did you mean '#${g}'?` : `ids here: ${[raw.rootId, ...byId.keys()].map((i) => '#' + i).join(', ')}`);
+    return unknown(
+      g !== undefined
+        ? `did you mean '#${g}'?`
+        : `ids here: ${[raw.rootId, ...byId.keys()].map((i) => '#' + i).join(', ')}`,
+    );
   }
   if (from === undefined) {
     if (target === '.') return { ok: false, message: `the target '.' is the machine root`, feature: 'rootTarget' };
@@ -77,7 +88,9 @@ export function resolveTarget(target: string, from: RawState | undefined, raw: R
   }
   if (target.startsWith('.')) {
     const child = target.slice(1);
-    return unknown(`'${target}' names a child of state '${from.name}', and states of a flat machine have none${byName.has(child) ? `; write '${child}' for the state '${child}'` : ''}`);
+    return unknown(
+      `'${target}' names a child of state '${from.name}', and states of a flat machine have none${byName.has(child) ? `; write '${child}' for the state '${child}'` : ''}`,
+    );
   }
   const s = single(target);
   return s !== undefined ? { ok: true, state: s } : unknown(guessName(target, ''));

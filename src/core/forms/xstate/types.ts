@@ -38,7 +38,11 @@ export interface XstateConfig {
   readonly initial: string;
   readonly description?: string;
   /** What the reader needs to drive the machine: the form, the input order of the cubes, the outputs. */
-  readonly meta: { readonly form: XstateForm; readonly inputs: readonly string[]; readonly outputNames: readonly string[] };
+  readonly meta: {
+    readonly form: XstateForm;
+    readonly inputs: readonly string[];
+    readonly outputNames: readonly string[];
+  };
   readonly states: Readonly<Record<string, XstateStateConfig>>;
 }
 

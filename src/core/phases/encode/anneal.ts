@@ -84,7 +84,14 @@ export function anneal(book: CostBook, space: AnnealSpace, rng: Random, now?: ()
  * that holds the new code, if any) — a step to a neighbouring corner of the cube — or, less
  * often, a long jump: move a state to a random unused code, or swap two random states.
  */
-function propose(cur: readonly number[], free: readonly number[], bits: number, unused: number, pinnedCodes: ReadonlySet<number>, rng: Random): number[] {
+function propose(
+  cur: readonly number[],
+  free: readonly number[],
+  bits: number,
+  unused: number,
+  pinnedCodes: ReadonlySet<number>,
+  rng: Random,
+): number[] {
   const next = cur.slice();
   const r = rng.next();
   if (r < FLIP_SHARE && bits > 0) {

@@ -81,13 +81,38 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
   const n = f.states.length;
   const bits = pins.bits ?? bitsFor(n);
   if (2 ** bits < n) {
-    return { diagnostics: [diag('LW701', `pinned codes have ${bits} bits, too few for ${n} states (at least ${bitsFor(n)} needed)`, {}, 'pin longer codes')] };
+    return {
+      diagnostics: [
+        diag(
+          'LW701',
+          `pinned codes have ${bits} bits, too few for ${n} states (at least ${bitsFor(n)} needed)`,
+          {},
+          'pin longer codes',
+        ),
+      ],
+    };
   }
   if (bits > MAX_SEARCH_BITS) {
-    return { diagnostics: [diag('LW701', `the automatic search handles codes up to ${MAX_SEARCH_BITS} bits; the pins ask for ${bits}`, {}, 'pin shorter codes, or choose a named encoding')] };
+    return {
+      diagnostics: [
+        diag(
+          'LW701',
+          `the automatic search handles codes up to ${MAX_SEARCH_BITS} bits; the pins ask for ${bits}`,
+          {},
+          'pin shorter codes, or choose a named encoding',
+        ),
+      ],
+    };
   }
   const timed = o.deadline !== undefined;
-  const book = new CostBook({ cost: o.cost, pins: pins.codes, maxEvaluations: Infinity, deadline: o.deadline, now: o.now, onProgress: o.onProgress });
+  const book = new CostBook({
+    cost: o.cost,
+    pins: pins.codes,
+    maxEvaluations: Infinity,
+    deadline: o.deadline,
+    now: o.now,
+    onProgress: o.onProgress,
+  });
   const named = [binary, gray, johnson, oneHot].flatMap((strategy) => {
     const e = strategy(f, pins).encoding;
     return e && e.bits <= Math.min(MAX_SEARCH_BITS, bits + NAMED_EXTRA_BITS) ? [e] : [];
@@ -96,9 +121,18 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
   const slots = startFirst(f).filter((s) => !pinned.has(s));
 
   // Settle the budget now that the size of the space is known.
-  const cap = o.maxEvaluations !== undefined ? o.maxEvaluations - named.length : timed ? MAX_EXHAUSTIVE : DEFAULT_SEARCH.exhaustiveClasses;
+  const cap =
+    o.maxEvaluations !== undefined
+      ? o.maxEvaluations - named.length
+      : timed
+        ? MAX_EXHAUSTIVE
+        : DEFAULT_SEARCH.exhaustiveClasses;
   const classes = listClasses(book, bits, slots.length, pinned, cap);
-  book.limit = o.maxEvaluations ?? (timed ? Infinity : named.length + (classes ? DEFAULT_SEARCH.exhaustiveClasses : DEFAULT_SEARCH.annealingEvaluations));
+  book.limit =
+    o.maxEvaluations ??
+    (timed
+      ? Infinity
+      : named.length + (classes ? DEFAULT_SEARCH.exhaustiveClasses : DEFAULT_SEARCH.annealingEvaluations));
   book.total = classes ? named.length + classes.length : Number.isFinite(book.limit) ? book.limit : null;
 
   // 1. Named strategies.
@@ -128,7 +162,10 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
   }
 
   const best = book.best;
-  if (!best) return { diagnostics: [diag('LW701', 'no encoding could be priced within the budget', {}, 'raise the evaluation budget')] };
+  if (!best)
+    return {
+      diagnostics: [diag('LW701', 'no encoding could be priced within the budget', {}, 'raise the evaluation budget')],
+    };
   return {
     encoding: { strategy: 'auto', bits: best.bits, codes: best.codes },
     diagnostics: [],
@@ -144,7 +181,13 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
 }
 
 /** Every class of assignments at this length, or undefined when there are more than the budget allows. */
-function listClasses(book: CostBook, bits: number, slots: number, pinned: ReadonlyMap<number, number>, cap: number): number[][] | undefined {
+function listClasses(
+  book: CostBook,
+  bits: number,
+  slots: number,
+  pinned: ReadonlyMap<number, number>,
+  cap: number,
+): number[][] | undefined {
   const taken = new Set(pinned.values());
   const group = book.group(bits);
   // Without symmetries every injective assignment is its own class, so slots + cap + 1 codes
@@ -161,7 +204,14 @@ function listClasses(book: CostBook, bits: number, slots: number, pinned: Readon
 }
 
 /** Price every class (false when the budget ran out first), first correcting the planned total for classes already priced (the named strategies' own). */
-function priceAll(book: CostBook, classes: readonly number[][], slots: readonly number[], pinned: ReadonlyMap<number, number>, n: number, bits: number): boolean {
+function priceAll(
+  book: CostBook,
+  classes: readonly number[][],
+  slots: readonly number[],
+  pinned: ReadonlyMap<number, number>,
+  n: number,
+  bits: number,
+): boolean {
   const vectors = classes.map((a) => {
     const codes = new Array<number>(n);
     for (const [s, c] of pinned) codes[s] = c;

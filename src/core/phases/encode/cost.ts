@@ -34,7 +34,8 @@ export function adjacencyCost(f: FlatMachine): CostFn {
   const n = f.states.length;
   return (codes, bits) => {
     let c = (bits * n) / 2;
-    for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (w[i][j] > 0) c += w[i][j] * hamming(codes[i], codes[j]);
+    for (let i = 0; i < n; i++)
+      for (let j = i + 1; j < n; j++) if (w[i][j] > 0) c += w[i][j] * hamming(codes[i], codes[j]);
     return c;
   };
 }
@@ -105,7 +106,11 @@ export class CostBook {
     const key = this.key(codes, bits);
     const hit = this.memo.get(key);
     if (hit !== undefined) return hit;
-    return this.evaluate(key, codes.map((c) => binaryCode(c, bits)), bits);
+    return this.evaluate(
+      key,
+      codes.map((c) => binaryCode(c, bits)),
+      bits,
+    );
   }
 
   /** Cost of an assignment given as code strings (the named strategies, any length). */

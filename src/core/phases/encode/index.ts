@@ -73,7 +73,10 @@ export function encode(
   strategy: EncodeStrategy | ((f: FlatMachine, o: EncodeOptions) => Encoding),
   opts: EncodeOptions = {},
 ): EncodeResult {
-  if (f.states.length === 0) return { diagnostics: [diag('LW300', `machine '${f.name}' has no states to encode`, {}, 'declare at least one state')] };
+  if (f.states.length === 0)
+    return {
+      diagnostics: [diag('LW300', `machine '${f.name}' has no states to encode`, {}, 'declare at least one state')],
+    };
   const diagnostics = checkOptions(opts);
   const read = readPins(f, opts.pinned, opts.pinnedAt);
   diagnostics.push(...read.diagnostics);
@@ -82,7 +85,18 @@ export function encode(
   if (typeof strategy === 'function') {
     const encoding = strategy(f, opts);
     const problem = malformed(f, encoding);
-    if (problem) return { diagnostics: [...diagnostics, diag('LW701', `the '${encoding.strategy}' encoding ${problem}`, {}, 'fix the strategy function, or choose a named encoding')] };
+    if (problem)
+      return {
+        diagnostics: [
+          ...diagnostics,
+          diag(
+            'LW701',
+            `the '${encoding.strategy}' encoding ${problem}`,
+            {},
+            'fix the strategy function, or choose a named encoding',
+          ),
+        ],
+      };
     return { encoding, diagnostics };
   }
   if (strategy === 'auto') {
@@ -95,13 +109,25 @@ export function encode(
       ...(start !== undefined && millis !== undefined ? { deadline: start + millis, now: opts.now } : {}),
       ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
     });
-    return { ...(r.encoding ? { encoding: r.encoding } : {}), diagnostics: [...diagnostics, ...r.diagnostics], ...(r.report ? { search: r.report } : {}) };
+    return {
+      ...(r.encoding ? { encoding: r.encoding } : {}),
+      diagnostics: [...diagnostics, ...r.diagnostics],
+      ...(r.report ? { search: r.report } : {}),
+    };
   }
   const named = Object.hasOwn(NAMED, strategy) ? NAMED[strategy as keyof typeof NAMED] : undefined;
   if (!named) {
     const guess = didYouMean(String(strategy), ENCODINGS);
     return {
-      diagnostics: [...diagnostics, diag('LW700', `unknown encoding '${String(strategy)}'${guess ? ` — did you mean '${guess}'?` : ''}`, {}, `choose one of ${ENCODINGS.join(', ')}`)],
+      diagnostics: [
+        ...diagnostics,
+        diag(
+          'LW700',
+          `unknown encoding '${String(strategy)}'${guess ? ` — did you mean '${guess}'?` : ''}`,
+          {},
+          `choose one of ${ENCODINGS.join(', ')}`,
+        ),
+      ],
     };
   }
   const r = named(f, read.pins);
@@ -115,25 +141,42 @@ function checkOptions(o: EncodeOptions): Diagnostic[] {
   }
   const e = o.budget?.evaluations;
   if (e !== undefined && !(Number.isSafeInteger(e) && e >= 1)) {
-    out.push(diag('LW700', `evaluation budget ${String(e)} is not a whole number ≥ 1`, {}, `without one, the search prices every class up to ${DEFAULT_SEARCH.exhaustiveClasses}, else anneals for ${DEFAULT_SEARCH.annealingEvaluations} evaluations`));
+    out.push(
+      diag(
+        'LW700',
+        `evaluation budget ${String(e)} is not a whole number ≥ 1`,
+        {},
+        `without one, the search prices every class up to ${DEFAULT_SEARCH.exhaustiveClasses}, else anneals for ${DEFAULT_SEARCH.annealingEvaluations} evaluations`,
+      ),
+    );
   }
   const ms = o.budget?.millis;
   if (ms !== undefined && !(Number.isFinite(ms) && ms >= 0)) {
     out.push(diag('LW700', `time budget ${String(ms)} ms is not a number ≥ 0`, {}, 'give milliseconds, e.g. 4000'));
   } else if (ms !== undefined && !o.now) {
-    out.push(diag('LW700', 'a time budget was given without a clock; it is ignored and the evaluation budget bounds the search', {}, 'pass `now` with `budget.millis`', 'warning'));
+    out.push(
+      diag(
+        'LW700',
+        'a time budget was given without a clock; it is ignored and the evaluation budget bounds the search',
+        {},
+        'pass `now` with `budget.millis`',
+        'warning',
+      ),
+    );
   }
   return out;
 }
 
 /** What is wrong with an encoding from a strategy function, if anything. */
 function malformed(f: FlatMachine, e: Encoding): string | undefined {
-  if (!e || !Array.isArray(e.codes) || !Number.isSafeInteger(e.bits) || e.bits < 0) return 'is not an encoding (strategy, bits, codes)';
+  if (!e || !Array.isArray(e.codes) || !Number.isSafeInteger(e.bits) || e.bits < 0)
+    return 'is not an encoding (strategy, bits, codes)';
   if (e.codes.length !== f.states.length) return `gives ${e.codes.length} codes for ${f.states.length} states`;
   const seen = new Map<string, number>();
   for (let s = 0; s < e.codes.length; s++) {
     const c = e.codes[s];
-    if (typeof c !== 'string' || c.length !== e.bits || !/^[01]*$/.test(c)) return `gives state '${f.states[s]}' the code '${String(c)}', not ${e.bits} binary digits`;
+    if (typeof c !== 'string' || c.length !== e.bits || !/^[01]*$/.test(c))
+      return `gives state '${f.states[s]}' the code '${String(c)}', not ${e.bits} binary digits`;
     const other = seen.get(c);
     if (other !== undefined) return `gives states '${f.states[other]}' and '${f.states[s]}' the same code '${c}'`;
     seen.set(c, s);

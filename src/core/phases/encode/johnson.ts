@@ -16,7 +16,16 @@ import { assignFromSequence, type PinSet, type StrategyResult } from './pinned.j
 export function johnson(f: FlatMachine, pins: PinSet): StrategyResult {
   const n = f.states.length;
   if (n < 2) {
-    return { diagnostics: [diag('LW701', `Johnson codes need at least two states; '${f.name}' has one`, {}, 'a one-state machine needs no state bits: choose binary')] };
+    return {
+      diagnostics: [
+        diag(
+          'LW701',
+          `Johnson codes need at least two states; '${f.name}' has one`,
+          {},
+          'a one-state machine needs no state bits: choose binary',
+        ),
+      ],
+    };
   }
   return assignFromSequence(f, pins, 'johnson', Math.ceil(n / 2), traversal(f), johnsonSequence);
 }

@@ -42,29 +42,59 @@ export function readPins(
   let lengthFrom = '';
   const holder = new Map<string, string>();
   // Check in state order, so the messages (and which code sets the length) are stable.
-  const names = Object.keys(pinned).sort((a, b) => (index.get(a) ?? Infinity) - (index.get(b) ?? Infinity) || (a < b ? -1 : 1));
+  const names = Object.keys(pinned).sort(
+    (a, b) => (index.get(a) ?? Infinity) - (index.get(b) ?? Infinity) || (a < b ? -1 : 1),
+  );
   for (const name of names) {
     const code = pinned[name];
     const loc = at[name] ?? {};
     const s = index.get(name);
     if (s === undefined) {
-      diagnostics.push(diag('LW207', `pinned code '${code}' names state '${name}', which the built machine does not have; the pin is ignored`, loc, 'state minimisation may have merged it with an equivalent state; pin that state instead, or correct the name'));
+      diagnostics.push(
+        diag(
+          'LW207',
+          `pinned code '${code}' names state '${name}', which the built machine does not have; the pin is ignored`,
+          loc,
+          'state minimisation may have merged it with an equivalent state; pin that state instead, or correct the name',
+        ),
+      );
       continue;
     }
     if (typeof code !== 'string' || !/^[01]*$/.test(code)) {
-      diagnostics.push(diag('LW206', `pinned code '${String(code)}' of state '${name}' is not a string of 0s and 1s`, loc, 'write the code as binary digits, bit 0 first, e.g. 010'));
+      diagnostics.push(
+        diag(
+          'LW206',
+          `pinned code '${String(code)}' of state '${name}' is not a string of 0s and 1s`,
+          loc,
+          'write the code as binary digits, bit 0 first, e.g. 010',
+        ),
+      );
       continue;
     }
     if (bits === undefined) {
       bits = code.length;
       lengthFrom = name;
     } else if (code.length !== bits) {
-      diagnostics.push(diag('LW206', `pinned code '${code}' of state '${name}' has ${code.length} bits, but state '${lengthFrom}' is pinned with ${bits}`, loc, 'give every pinned code the same number of digits'));
+      diagnostics.push(
+        diag(
+          'LW206',
+          `pinned code '${code}' of state '${name}' has ${code.length} bits, but state '${lengthFrom}' is pinned with ${bits}`,
+          loc,
+          'give every pinned code the same number of digits',
+        ),
+      );
       continue;
     }
     const other = holder.get(code);
     if (other !== undefined) {
-      diagnostics.push(diag('LW206', `states '${other}' and '${name}' are both pinned to code '${code}'`, loc, 'give each state its own code'));
+      diagnostics.push(
+        diag(
+          'LW206',
+          `states '${other}' and '${name}' are both pinned to code '${code}'`,
+          loc,
+          'give each state its own code',
+        ),
+      );
       continue;
     }
     holder.set(code, name);
@@ -78,7 +108,12 @@ export function readPins(
  * the words of `sequence` in turn, skipping pinned ones. Undefined when the sequence runs
  * out (the strategy does not fit).
  */
-export function fillCodes(n: number, order: readonly number[], sequence: Iterable<string>, pins: PinSet): string[] | undefined {
+export function fillCodes(
+  n: number,
+  order: readonly number[],
+  sequence: Iterable<string>,
+  pins: PinSet,
+): string[] | undefined {
   const codes = new Array<string>(n);
   const used = new Set<string>();
   for (const [s, c] of pins.codes) {
@@ -103,7 +138,14 @@ export function pinnedStrategy(f: FlatMachine, pins: PinSet): StrategyResult {
   if (missing.length > 0) {
     const list = missing.map((m) => `'${m}'`).join(', ');
     return {
-      diagnostics: [diag('LW701', `the pinned encoding needs a code for every state; ${missing.length === 1 ? 'state' : 'states'} ${list} ${missing.length === 1 ? 'has' : 'have'} none`, {}, 'pin the missing states, or choose another encoding, which fills in the codes you did not pin')],
+      diagnostics: [
+        diag(
+          'LW701',
+          `the pinned encoding needs a code for every state; ${missing.length === 1 ? 'state' : 'states'} ${list} ${missing.length === 1 ? 'has' : 'have'} none`,
+          {},
+          'pin the missing states, or choose another encoding, which fills in the codes you did not pin',
+        ),
+      ],
     };
   }
   const codes = f.states.map((_, s) => pins.codes.get(s) as string);
@@ -128,7 +170,14 @@ export function assignFromSequence(
   const free = f.states.length - pins.codes.size;
   return {
     diagnostics: [
-      diag('LW701', `${strategy} codes of ${bits} bits run out: ${free} unpinned ${free === 1 ? 'state needs a code' : 'states need codes'} not already taken by the ${pins.codes.size} pinned ${pins.codes.size === 1 ? 'state' : 'states'}`, {}, pins.codes.size > 0 ? 'pin longer codes, or choose binary, gray or auto, which fit any pins' : 'choose another encoding'),
+      diag(
+        'LW701',
+        `${strategy} codes of ${bits} bits run out: ${free} unpinned ${free === 1 ? 'state needs a code' : 'states need codes'} not already taken by the ${pins.codes.size} pinned ${pins.codes.size === 1 ? 'state' : 'states'}`,
+        {},
+        pins.codes.size > 0
+          ? 'pin longer codes, or choose binary, gray or auto, which fit any pins'
+          : 'choose another encoding',
+      ),
     ],
   };
 }

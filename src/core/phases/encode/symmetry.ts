@@ -70,7 +70,11 @@ export function canonicalKey(codes: readonly number[], group: readonly CubeMap[]
  * group must map it onto itself), smallest of its class under `group`, in ascending
  * lexicographic order.
  */
-export function* assignmentClasses(slots: number, available: readonly number[], group: readonly CubeMap[]): Generator<number[]> {
+export function* assignmentClasses(
+  slots: number,
+  available: readonly number[],
+  group: readonly CubeMap[],
+): Generator<number[]> {
   const prefix: number[] = [];
   const used = new Set<number>();
   function* extend(alive: readonly CubeMap[]): Generator<number[]> {
@@ -118,5 +122,5 @@ function permutations(k: number): number[][] {
   for (const p of permutations(k - 1))
     for (let at = 0; at <= p.length; at++) out.push([...p.slice(0, at), k - 1, ...p.slice(at)]);
   // Identity first, the rest in a fixed order.
-  return out.sort((a, b) => a.join() < b.join() ? -1 : a.join() > b.join() ? 1 : 0);
+  return out.sort((a, b) => (a.join() < b.join() ? -1 : a.join() > b.join() ? 1 : 0));
 }

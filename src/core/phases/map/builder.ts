@@ -3,7 +3,20 @@
  * driver (lever or gate) to gate ports and actuators. Each driver gets exactly one cord,
  * `c.<driver>`, carrying every tie as a branch; a driver with no tie gets no cord.
  */
-import type { ActuatorPart, Cord, FlagPart, GatePart, GateRole, LatchPart, LeverPart, LeverRole, Netlist, Part, PortRef, PortSpec } from '../../model/netlist.js';
+import type {
+  ActuatorPart,
+  Cord,
+  FlagPart,
+  GatePart,
+  GateRole,
+  LatchPart,
+  LeverPart,
+  LeverRole,
+  Netlist,
+  Part,
+  PortRef,
+  PortSpec,
+} from '../../model/netlist.js';
 import type { Profile } from '../../physics/profile.js';
 
 /** Cords to spread over a gate's ports: at most maxCordsPerPort per port. */
@@ -53,7 +66,8 @@ export class NetBuilder {
         for (const d of g.drivers.slice(k * per, (k + 1) * per)) this.tie(d, { part: id, port });
       }
     }
-    if (ports.length > this.profile.maxPortsPerGate) throw new Error(`gate ${id}: ${ports.length} ports exceed the fan-in limit`);
+    if (ports.length > this.profile.maxPortsPerGate)
+      throw new Error(`gate ${id}: ${ports.length} ports exceed the fan-in limit`);
     const p: GatePart = { kind: 'gate', id, name, role, ports, ...(latch !== undefined ? { latch } : {}) };
     return this.add(p);
   }
@@ -89,7 +103,8 @@ export class NetBuilder {
     const cords: Cord[] = [];
     for (const p of this.parts) {
       const t = this.ties.get(p.id);
-      if (t && (t.ports.length > 0 || t.actuators.length > 0)) cords.push({ id: cordId(p.id), driver: p.id, ports: t.ports, actuators: t.actuators });
+      if (t && (t.ports.length > 0 || t.actuators.length > 0))
+        cords.push({ id: cordId(p.id), driver: p.id, ports: t.ports, actuators: t.actuators });
     }
     for (const d of this.ties.keys()) if (!this.ids.has(d)) throw new Error(`cord from unknown driver ${d}`);
     return { parts: [...this.parts], cords };

@@ -16,7 +16,11 @@ import type { CostWeights } from '../../physics/profile.js';
 
 /** Count gates, latches, levers, capstans, weights and cord branches. */
 export function countParts(n: Netlist): PartCounts {
-  let gates = 0, latches = 0, levers = 0, weights = 0, cords = 0;
+  let gates = 0,
+    latches = 0,
+    levers = 0,
+    weights = 0,
+    cords = 0;
   for (const p of n.parts) {
     if (p.kind === 'gate') {
       gates++;
@@ -33,5 +37,12 @@ export function countParts(n: Netlist): PartCounts {
 
 /** The weighted cost of a part count (the profile's cost weights). */
 export function partsCost(c: PartCounts, w: CostWeights): number {
-  return c.gates * w.gate + c.latches * w.latch + c.levers * w.lever + c.capstans * w.capstan + c.weights * w.weight + c.cords * w.cord;
+  return (
+    c.gates * w.gate +
+    c.latches * w.latch +
+    c.levers * w.lever +
+    c.capstans * w.capstan +
+    c.weights * w.weight +
+    c.cords * w.cord
+  );
 }

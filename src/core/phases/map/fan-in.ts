@@ -21,12 +21,24 @@ export function capacity(b: NetBuilder, ports = b.profile.maxPortsPerGate): numb
  * Narrow `drivers` to at most `slots` cords with NAND + inverter stages named
  * `<owner>.and<k>` and `<owner>.and<k>.inv`; the first `keep` drivers are never grouped.
  */
-export function fitAnd(b: NetBuilder, owner: string, role: GateRole, drivers: readonly string[], slots: number, keep = 0): string[] {
+export function fitAnd(
+  b: NetBuilder,
+  owner: string,
+  role: GateRole,
+  drivers: readonly string[],
+  slots: number,
+  keep = 0,
+): string[] {
   const list = [...drivers];
   const cap = capacity(b);
   if (list.length > slots && (cap < 2 || slots < keep + 1)) {
     throw new DiagnosticError([
-      diag('LW600', `the fan-in limits (${b.profile.maxPortsPerGate} ports × ${b.profile.maxCordsPerPort} cords) are too small to build gate ${owner}`, { path: '$.maxPortsPerGate' }, 'allow at least 2 ports per gate and 1 cord per port'),
+      diag(
+        'LW600',
+        `the fan-in limits (${b.profile.maxPortsPerGate} ports × ${b.profile.maxCordsPerPort} cords) are too small to build gate ${owner}`,
+        { path: '$.maxPortsPerGate' },
+        'allow at least 2 ports per gate and 1 cord per port',
+      ),
     ]);
   }
   let k = 0;
@@ -35,7 +47,9 @@ export function fitAnd(b: NetBuilder, owner: string, role: GateRole, drivers: re
     const group = list.splice(list.length - g, g);
     k++;
     const nand = b.gate(`${owner}.and${k}`, `${owner} AND stage ${k}`, role, [{ prefix: 'p', drivers: group }]);
-    const inv = b.gate(`${nand}.inv`, `${owner} AND stage ${k} inverter`, 'inverter', [{ prefix: 'p', drivers: [nand] }]);
+    const inv = b.gate(`${nand}.inv`, `${owner} AND stage ${k} inverter`, 'inverter', [
+      { prefix: 'p', drivers: [nand] },
+    ]);
     list.splice(keep, 0, inv);
   }
   return list;

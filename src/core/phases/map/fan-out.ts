@@ -36,7 +36,10 @@ export function splitFanout(netlist: Netlist, tooMany: (cord: Cord) => boolean):
   };
   for (let qi = 0; qi < queue.length; qi++) {
     const cord = queue[qi];
-    const items: Item[] = [...cord.ports.map((port) => ({ port })), ...cord.actuators.map((actuator) => ({ actuator }))];
+    const items: Item[] = [
+      ...cord.ports.map((port) => ({ port })),
+      ...cord.actuators.map((actuator) => ({ actuator })),
+    ];
     if (items.length < 2 || !tooMany(cord)) {
       done.push(cord);
       continue;
@@ -62,11 +65,22 @@ export function splitFanout(netlist: Netlist, tooMany: (cord: Cord) => boolean):
       continue;
     }
     const bs = groups.map((_, i) => `${a}.${i + 1}`);
-    const gates: GatePart[] = [a, ...bs].map((id) => ({ kind: 'gate', id, name: `buffer of ${cord.driver}`, role: 'buffer', ports: [{ name: 'p1' }] }));
+    const gates: GatePart[] = [a, ...bs].map((id) => ({
+      kind: 'gate',
+      id,
+      name: `buffer of ${cord.driver}`,
+      role: 'buffer',
+      ports: [{ name: 'p1' }],
+    }));
     for (const g of gates) ids.add(g.id);
     insertAfter(cord.driver, gates);
     done.push({ ...make(cord.driver, [...kept, toA]), id: cord.id });
-    queue.push(make(a, bs.map((id) => ({ port: { part: id, port: 'p1' } }))));
+    queue.push(
+      make(
+        a,
+        bs.map((id) => ({ port: { part: id, port: 'p1' } })),
+      ),
+    );
     groups.forEach((g, i) => queue.push(make(bs[i], g)));
   }
   // Cords follow their drivers' part order, as the builder emits them.

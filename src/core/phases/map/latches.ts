@@ -17,21 +17,61 @@ export function buildLatches(ctx: MapContext, startCode: string, feeds: readonly
     const one = startCode[j] === '1';
     const rstSet = one ? [ids.resetDriver] : [];
     const rstReset = one ? [] : [ids.resetDriver];
-    const m = ids.master(j), s = ids.slave(j);
+    const m = ids.master(j),
+      s = ids.slave(j);
     latch(ctx, m, `master latch M${j}`, 'master', j, [...feeds[2 * j], ...rstSet], [...feeds[2 * j + 1], ...rstReset]);
-    latch(ctx, s, `slave latch Q${j}`, 'slave', j, [ids.transferSet(j), ...rstSet], [ids.transferReset(j), ...rstReset]);
-    ctx.b.gate(ids.transferSet(j), `transfer φ2 M${j} → set Q${j}`, 'transfer', [{ prefix: 'p', drivers: [ids.phi2, ids.setGate(m)] }]);
-    ctx.b.gate(ids.transferReset(j), `transfer φ2 !M${j} → reset Q${j}`, 'transfer', [{ prefix: 'p', drivers: [ids.phi2, ids.resetGate(m)] }]);
+    latch(
+      ctx,
+      s,
+      `slave latch Q${j}`,
+      'slave',
+      j,
+      [ids.transferSet(j), ...rstSet],
+      [ids.transferReset(j), ...rstReset],
+    );
+    ctx.b.gate(ids.transferSet(j), `transfer φ2 M${j} → set Q${j}`, 'transfer', [
+      { prefix: 'p', drivers: [ids.phi2, ids.setGate(m)] },
+    ]);
+    ctx.b.gate(ids.transferReset(j), `transfer φ2 !M${j} → reset Q${j}`, 'transfer', [
+      { prefix: 'p', drivers: [ids.phi2, ids.resetGate(m)] },
+    ]);
   }
 }
 
-function latch(ctx: MapContext, id: string, name: string, role: 'master' | 'slave', bit: number, set: string[], reset: string[]): void {
-  const sg = ids.setGate(id), rg = ids.resetGate(id);
+function latch(
+  ctx: MapContext,
+  id: string,
+  name: string,
+  role: 'master' | 'slave',
+  bit: number,
+  set: string[],
+  reset: string[],
+): void {
+  const sg = ids.setGate(id),
+    rg = ids.resetGate(id);
   ctx.b.latch(id, name, role, bit, sg, rg);
   // One port is kept for the feedback cord; the rest take the set (reset) cords.
   const slots = capacity(ctx.b, ctx.b.profile.maxPortsPerGate - 1);
   const sd = fitAnd(ctx.b, sg, 'term', set, slots);
   const rd = fitAnd(ctx.b, rg, 'term', reset, slots);
-  ctx.b.gate(sg, `${name} set side (Q)`, 'latch-set', [{ prefix: 's', drivers: sd }, { prefix: 'fb', single: 'fb', drivers: [rg] }], id);
-  ctx.b.gate(rg, `${name} reset side (Q̄)`, 'latch-reset', [{ prefix: 'r', drivers: rd }, { prefix: 'fb', single: 'fb', drivers: [sg] }], id);
+  ctx.b.gate(
+    sg,
+    `${name} set side (Q)`,
+    'latch-set',
+    [
+      { prefix: 's', drivers: sd },
+      { prefix: 'fb', single: 'fb', drivers: [rg] },
+    ],
+    id,
+  );
+  ctx.b.gate(
+    rg,
+    `${name} reset side (Q̄)`,
+    'latch-reset',
+    [
+      { prefix: 'r', drivers: rd },
+      { prefix: 'fb', single: 'fb', drivers: [sg] },
+    ],
+    id,
+  );
 }

@@ -41,11 +41,18 @@ export interface OutputPlan {
 }
 
 /** Decide how every output is shown and which output term gates exist. */
-export function planOutputs(ctx: MapContext, cover: SopCover, names: readonly string[], actuators: Readonly<Record<string, number>>): OutputPlan {
+export function planOutputs(
+  ctx: MapContext,
+  cover: SopCover,
+  names: readonly string[],
+  actuators: Readonly<Record<string, number>>,
+): OutputPlan {
   const perOut: number[][] = names.map(() => []);
   cover.terms.forEach((t, i) => t.outputs.forEach((o) => perOut[o].push(i)));
   const lits = cover.terms.map((t) => [...t.cube].filter((c) => c !== '-').length);
-  const constant = perOut.map((ts): 0 | 1 | undefined => (ts.length === 0 ? 0 : ts.some((i) => lits[i] === 0) ? 1 : undefined));
+  const constant = perOut.map((ts): 0 | 1 | undefined =>
+    ts.length === 0 ? 0 : ts.some((i) => lits[i] === 0) ? 1 : undefined,
+  );
   // Term gates: every product of two or more literals that a non-constant output uses.
   const termId = new Map<number, string>();
   const counters = new Map<string, number>();
@@ -66,7 +73,10 @@ export function planOutputs(ctx: MapContext, cover: SopCover, names: readonly st
     else if (ts.length === 1 && lits[ts[0]] === 1) {
       const cube = cover.terms[ts[0]].cube;
       const i = [...cube].findIndex((x) => x !== '-');
-      show = loadG !== undefined ? { kind: 'cord', driver: literalDriver(ctx, i, cube[i] === '1' ? '0' : '1') } : readLiteral(ctx, i, cube[i]);
+      show =
+        loadG !== undefined
+          ? { kind: 'cord', driver: literalDriver(ctx, i, cube[i] === '1' ? '0' : '1') }
+          : readLiteral(ctx, i, cube[i]);
     } else if (ts.length === 1) {
       const gate = termId.get(ts[0]) as string;
       show = loadG !== undefined ? { kind: 'cord', driver: gate } : { kind: 'read', gate, inverted: false };
@@ -108,8 +118,11 @@ export function buildOutputs(ctx: MapContext, plan: OutputPlan): Record<string, 
   for (const o of plan.outputs) {
     if (o.show.kind !== 'or') continue;
     const id = ids.output(o.name);
-    b.gate(id, `output ${o.name} (OR of its terms)`, 'output', [{ prefix: 'p', drivers: fitAnd(b, id, 'output', o.show.drivers, capacity(b)) }]);
-    if (o.loadG !== undefined) b.gate(ids.outputDriver(o.name), `output ${o.name} actuator driver`, 'output', [{ prefix: 'p', drivers: [id] }]);
+    b.gate(id, `output ${o.name} (OR of its terms)`, 'output', [
+      { prefix: 'p', drivers: fitAnd(b, id, 'output', o.show.drivers, capacity(b)) },
+    ]);
+    if (o.loadG !== undefined)
+      b.gate(ids.outputDriver(o.name), `output ${o.name} actuator driver`, 'output', [{ prefix: 'p', drivers: [id] }]);
   }
   const shown: Record<string, string> = {};
   for (const o of plan.outputs) {

@@ -236,7 +236,11 @@ export function absorbFull(sp: Space, cubes: readonly BCube[]): BCube[] {
   order.sort((x, y) => x.s - y.s || x.i - y.i);
   for (const { c } of order) {
     let inside = false;
-    for (const o of out) if (contains(sp, o, c)) { inside = true; break; }
+    for (const o of out)
+      if (contains(sp, o, c)) {
+        inside = true;
+        break;
+      }
     if (!inside) out.push(c);
   }
   return out;
@@ -253,13 +257,19 @@ export function cubeWeights(sp: Space, F: readonly BCube[]): number[] {
   for (const c of F)
     for (let k = 0; k < W; k++) {
       let x = c[k];
-      while (x !== 0) { colCount[k * 32 + 31 - Math.clz32(x & -x)]++; x &= x - 1; }
+      while (x !== 0) {
+        colCount[k * 32 + 31 - Math.clz32(x & -x)]++;
+        x &= x - 1;
+      }
     }
   return F.map((c) => {
     let s = 0;
     for (let k = 0; k < W; k++) {
       let x = c[k];
-      while (x !== 0) { s += colCount[k * 32 + 31 - Math.clz32(x & -x)]; x &= x - 1; }
+      while (x !== 0) {
+        s += colCount[k * 32 + 31 - Math.clz32(x & -x)];
+        x &= x - 1;
+      }
     }
     return s;
   });
@@ -272,7 +282,18 @@ export function cubeWeights(sp: Space, F: readonly BCube[]): number[] {
 const scratchPool: Int32Array[] = [];
 
 /** Scratch slots, one per user. */
-export const SLOT = { rows: 0, act: 1, need: 2, pend: 3, feas: 4, weights: 5, stamp: 6, value: 7, rowStamp: 8, rowValue: 9 } as const;
+export const SLOT = {
+  rows: 0,
+  act: 1,
+  need: 2,
+  pend: 3,
+  feas: 4,
+  weights: 5,
+  stamp: 6,
+  value: 7,
+  rowStamp: 8,
+  rowValue: 9,
+} as const;
 
 /** A shared Int32Array of at least `size` entries for the given slot (contents undefined). */
 export function scratch(slot: number, size: number): Int32Array {

@@ -75,7 +75,11 @@ class Solver {
   /** Every cost an integer, so bounds may round up. */
   private readonly integral: boolean;
 
-  constructor(private readonly p: CoverProblem, private readonly nodeLimit: number, private readonly upperBound: number) {
+  constructor(
+    private readonly p: CoverProblem,
+    private readonly nodeLimit: number,
+    private readonly upperBound: number,
+  ) {
     this.nr = p.rowCount;
     this.nc = p.columns.length;
     this.rw = (this.nr + 31) >>> 5;
@@ -85,7 +89,9 @@ class Solver {
       return b;
     });
     this.rowCols = Array.from({ length: this.nr }, () => []);
-    p.columns.forEach((c, ci) => { for (const r of c.rows) this.rowCols[r].push(ci); });
+    p.columns.forEach((c, ci) => {
+      for (const r of c.rows) this.rowCols[r].push(ci);
+    });
     this.opened = new Int32Array(p.groupCost.length);
     this.stamp = new Int32Array(p.groupCost.length);
     this.colStamp = new Int32Array(this.nc);
@@ -142,7 +148,10 @@ class Solver {
     let n = 0;
     for (let k = 0; k < this.rw; k++) {
       let x = b[k] & unc[k];
-      while (x !== 0) { x &= x - 1; n++; }
+      while (x !== 0) {
+        x &= x - 1;
+        n++;
+      }
     }
     return n;
   }
@@ -169,13 +178,18 @@ class Solver {
     let cost = 0;
     let taken = 0;
     const cols = this.p.columns;
-    for (let changed = true; changed; ) {
+    for (let changed = true; changed;) {
       changed = false;
       for (let r = 0; r < this.nr; r++) {
         if (!this.isUnc(unc, r)) continue;
         let only = -1;
         let n = 0;
-        for (const c of this.rowCols[r]) if (alive[c] === 1) { n++; only = c; if (n > 1) break; }
+        for (const c of this.rowCols[r])
+          if (alive[c] === 1) {
+            n++;
+            only = c;
+            if (n > 1) break;
+          }
         if (n === 0) return null;
         if (n === 1) {
           cost += this.inc(only);
@@ -188,7 +202,10 @@ class Solver {
       const groupLive = new Int32Array(this.p.groupCost.length);
       for (let ci = 0; ci < this.nc; ci++) {
         if (alive[ci] === 0) continue;
-        if (this.covers(ci, unc) === 0) { alive[ci] = 0; continue; }
+        if (this.covers(ci, unc) === 0) {
+          alive[ci] = 0;
+          continue;
+        }
         groupLive[cols[ci].group]++;
       }
       for (let a = 0; a < this.nc; a++) {
@@ -201,7 +218,10 @@ class Solver {
         for (const r of ca.rows) {
           if (!this.isUnc(unc, r)) continue;
           const n = this.rowCols[r].length;
-          if (n < pivotN) { pivotN = n; pivot = r; }
+          if (n < pivotN) {
+            pivotN = n;
+            pivot = r;
+          }
         }
         for (const b of this.rowCols[pivot]) {
           if (b === a || alive[b] === 0) continue;
@@ -227,7 +247,11 @@ class Solver {
         for (const r of cols[pivot].rows) {
           if (r === s || !this.isUnc(unc, r)) continue;
           let inAll = true;
-          for (const c of ls) if ((this.colBits[c][r >>> 5] & (1 << (r & 31))) === 0) { inAll = false; break; }
+          for (const c of ls)
+            if ((this.colBits[c][r >>> 5] & (1 << (r & 31))) === 0) {
+              inAll = false;
+              break;
+            }
           if (!inAll) continue;
           // r holds all of s's columns; if s also holds all of r's, drop only the later one.
           if (r < s) {
@@ -247,7 +271,17 @@ class Solver {
     const unc = start.slice();
     const saved = this.opened.slice();
     const picked: number[] = [];
-    const count = (): number => { let n = 0; for (const w of unc) { let x = w; while (x) { x &= x - 1; n++; } } return n; };
+    const count = (): number => {
+      let n = 0;
+      for (const w of unc) {
+        let x = w;
+        while (x) {
+          x &= x - 1;
+          n++;
+        }
+      }
+      return n;
+    };
     while (count() > 0) {
       let bestCol = -1;
       let bestRatio = Infinity;
@@ -256,7 +290,10 @@ class Solver {
         const n = this.covers(ci, unc);
         if (n === 0) continue;
         const ratio = this.inc(ci) / n;
-        if (ratio < bestRatio) { bestRatio = ratio; bestCol = ci; }
+        if (ratio < bestRatio) {
+          bestRatio = ratio;
+          bestCol = ci;
+        }
       }
       const b = this.colBits[bestCol];
       for (let k = 0; k < this.rw; k++) unc[k] &= ~b[k];
@@ -267,9 +304,16 @@ class Solver {
     for (const ci of [...picked].sort((a, b) => this.p.columns[b].cost - this.p.columns[a].cost || b - a)) {
       keep.delete(ci);
       const cov = new Uint32Array(this.rw);
-      for (const k2 of keep) { const b = this.colBits[k2]; for (let k = 0; k < this.rw; k++) cov[k] |= b[k]; }
+      for (const k2 of keep) {
+        const b = this.colBits[k2];
+        for (let k = 0; k < this.rw; k++) cov[k] |= b[k];
+      }
       let ok = true;
-      for (let k = 0; k < this.rw; k++) if ((start[k] & ~cov[k]) !== 0) { ok = false; break; }
+      for (let k = 0; k < this.rw; k++)
+        if ((start[k] & ~cov[k]) !== 0) {
+          ok = false;
+          break;
+        }
       if (!ok) keep.add(ci);
     }
     this.opened.set(saved);
@@ -298,8 +342,15 @@ class Solver {
     const rest: number[] = [];
     for (const r of order) {
       let free = true;
-      for (const ci of this.rowCols[r]) if (alive[ci] === 1 && this.stamp[cols[ci].group] === gen) { free = false; break; }
-      if (!free) { rest.push(r); continue; }
+      for (const ci of this.rowCols[r])
+        if (alive[ci] === 1 && this.stamp[cols[ci].group] === gen) {
+          free = false;
+          break;
+        }
+      if (!free) {
+        rest.push(r);
+        continue;
+      }
       let min = Infinity;
       for (const ci of this.rowCols[r]) {
         if (alive[ci] === 0) continue;
@@ -312,7 +363,11 @@ class Solver {
     }
     for (const r of rest) {
       let free = true;
-      for (const ci of this.rowCols[r]) if (alive[ci] === 1 && this.colStamp[ci] === gen) { free = false; break; }
+      for (const ci of this.rowCols[r])
+        if (alive[ci] === 1 && this.colStamp[ci] === gen) {
+          free = false;
+          break;
+        }
       if (!free) continue;
       let min = Infinity;
       for (const ci of this.rowCols[r]) {
@@ -340,7 +395,10 @@ class Solver {
 
   private search(unc0: Uint32Array, alive0: Uint8Array, cost0: number): void {
     if (this.aborted) return;
-    if (++this.nodes > this.nodeLimit) { this.aborted = true; return; }
+    if (++this.nodes > this.nodeLimit) {
+      this.aborted = true;
+      return;
+    }
     const unc = unc0.slice();
     const alive = alive0.slice();
     const mark = this.chosen.length;

@@ -18,7 +18,17 @@
  * Preconditions: F misses the off-set; D does not meet the on-set.
  * Postcondition: the result covers the on-set F0 covered and misses R.
  */
-import { type BCube, type Space, contains, inDistance, outMeet, outCount, literals, outputsOf, hasOutput } from './bitcube.js';
+import {
+  type BCube,
+  type Space,
+  contains,
+  inDistance,
+  outMeet,
+  outCount,
+  literals,
+  outputsOf,
+  hasOutput,
+} from './bitcube.js';
 import { cubeCovered } from './unate.js';
 import { expandCover, expandCube, allowMask, type Boundary } from './expand.js';
 import { irredundantCover, byOutput } from './irredundant.js';
@@ -46,7 +56,14 @@ function total(sp: Space, F: readonly BCube[], cost: CoverCost): number {
  * Minimise the cover F0 (the on-set, or any cover of it) with don't-cares D within R. When
  * `isCover` says F0 is already a correct cover, the result never costs more than F0.
  */
-export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R: Boundary, cost: CoverCost, isCover = false): BCube[] {
+export function espresso(
+  sp: Space,
+  F0: readonly BCube[],
+  D: readonly BCube[],
+  R: Boundary,
+  cost: CoverCost,
+  isCover = false,
+): BCube[] {
   if (F0.length === 0) return [];
   if (isCover) {
     const out = espresso(sp, F0, D, R, cost);
@@ -66,11 +83,21 @@ export function espresso(sp: Space, F0: readonly BCube[], D: readonly BCube[], R
   for (let pass = 0; F.length > 0; pass++) {
     F = irredundantCover(sp, expandCover(sp, reduceCover(sp, F, dc2, pass % 2 === 1), R), dc2, price);
     const c = total(sp, F, cost);
-    if (c < bestCost) { best = F; bestCost = c; stall = 0; continue; }
+    if (c < bestCost) {
+      best = F;
+      bestCost = c;
+      stall = 0;
+      continue;
+    }
     if (c === bestCost && ++stall <= STALL) continue;
     const g = lastGasp(sp, best, dc2, R, price);
     const cg = total(sp, g, cost);
-    if (cg < bestCost) { best = g; bestCost = cg; F = g; continue; }
+    if (cg < bestCost) {
+      best = g;
+      bestCost = cg;
+      F = g;
+      continue;
+    }
     break;
   }
   return makeSparse(sp, [...E, ...best], dc, R, cost);
@@ -91,7 +118,10 @@ function essentials(sp: Space, F: readonly BCube[], D: readonly BCube[]): boolea
       const din = inDistance(sp, c, d);
       const meet = outMeet(sp, c, d);
       if (din + (meet ? 0 : 1) > 1) continue;
-      if (din === 0 && meet) { h.push(d); continue; }
+      if (din === 0 && meet) {
+        h.push(d);
+        continue;
+      }
       const x = new Array<number>(sp.w);
       for (let k = 0; k < sp.wi; k++) {
         const y = c[k] & d[k];
@@ -114,7 +144,13 @@ function essentials(sp: Space, F: readonly BCube[], D: readonly BCube[]): boolea
  * reduced cube aiming at the other reduced cubes, and keep the new cubes that swallow at
  * least one other; IRREDUNDANT decides whether they pay.
  */
-function lastGasp(sp: Space, F: readonly BCube[], dc: readonly BCube[][], R: Boundary, price: (c: BCube) => number): BCube[] {
+function lastGasp(
+  sp: Space,
+  F: readonly BCube[],
+  dc: readonly BCube[][],
+  R: Boundary,
+  price: (c: BCube) => number,
+): BCube[] {
   const reduced: BCube[] = [];
   F.forEach((c) => {
     const r = reduceCube(sp, c, F, dc);

@@ -44,7 +44,10 @@ function careValue(sp: Space, c: BCube): [number, number] {
   for (let i = 0; i < sp.n; i++) {
     const f = (c[(i / 15) | 0] >>> (2 * (i % 15))) & 3;
     if (f === 1) care |= 1 << i;
-    else if (f === 2) { care |= 1 << i; val |= 1 << i; }
+    else if (f === 2) {
+      care |= 1 << i;
+      val |= 1 << i;
+    }
   }
   return [care, val];
 }
@@ -58,7 +61,13 @@ function size(sp: Space, c: BCube): number {
  * Exact minimisation of on[j] with allowed[j] = on[j] ∪ dc[j]; null when over the limits or
  * when nothing cheaper than `limits.upperBound` was found.
  */
-export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allowed: readonly (readonly BCube[])[], cost: CoverCost, limits: ExactLimits): ExactResult | null {
+export function exactMinimise(
+  sp: Space,
+  on: readonly (readonly BCube[])[],
+  allowed: readonly (readonly BCube[])[],
+  cost: CoverCost,
+  limits: ExactLimits,
+): ExactResult | null {
   if (sp.n > EXACT_MAX_VARS) return null;
   const m = on.length;
   const all = (1 << sp.n) - 1 || 0;
@@ -77,7 +86,10 @@ export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allo
       const free = all & ~care;
       for (let s = free; ; s = (s - 1) & free) {
         const x = val | s;
-        if (ids.get(x) < 0) { ids.set(x, rowCount++); list.push(x); }
+        if (ids.get(x) < 0) {
+          ids.set(x, rowCount++);
+          list.push(x);
+        }
         if (s === 0) break;
       }
     }
@@ -104,7 +116,10 @@ export function exactMinimise(sp: Space, on: readonly (readonly BCube[])[], allo
           if (s === 0) break;
         }
       } else for (const x of rowsOf[j]) if ((x & care) === val) rows.push(ids.get(x));
-      if (rows.length > 0) { link.outs.push(j); link.rows.push(rows); }
+      if (rows.length > 0) {
+        link.outs.push(j);
+        link.rows.push(rows);
+      }
     }
     if (link.outs.length > 0) links.push(link);
   }
@@ -159,7 +174,12 @@ function subsetColumns(links: readonly Link[], cost: CoverCost, rowCount: number
     for (let mask = 1; mask < 1 << l.outs.length; mask++) {
       const outs: number[] = [];
       const rows: number[] = [];
-      l.outs.forEach((j, q) => { if (mask & (1 << q)) { outs.push(j); rows.push(...l.rows[q]); } });
+      l.outs.forEach((j, q) => {
+        if (mask & (1 << q)) {
+          outs.push(j);
+          rows.push(...l.rows[q]);
+        }
+      });
       columns.push({ group: groupCost.length, cost: 0, rows });
       groupCost.push(base + cost.connection * outs.length);
       meaning.push([li, outs]);
@@ -201,11 +221,19 @@ function rowIndex(n: number, j: number, m: number): RowIndex {
     const base = j << n;
     return {
       get: (x) => (stamp[base + x] === gen ? value[base + x] : -1),
-      set: (x, r) => { stamp[base + x] = gen; value[base + x] = r; },
+      set: (x, r) => {
+        stamp[base + x] = gen;
+        value[base + x] = r;
+      },
     };
   }
   const map = new Map<number, number>();
-  return { get: (x) => map.get(x) ?? -1, set: (x, r) => { map.set(x, r); } };
+  return {
+    get: (x) => map.get(x) ?? -1,
+    set: (x, r) => {
+      map.set(x, r);
+    },
+  };
 }
 
 let rowGeneration = 0;

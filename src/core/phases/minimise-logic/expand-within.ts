@@ -17,7 +17,13 @@ import { type BCube, type Space, outputsOf, popcount } from './bitcube.js';
 import { cubeCovered } from './unate.js';
 
 /** Grow c inside the allowed sets, covering candidates where possible. */
-export function expandWithin(sp: Space, c0: BCube, allowed: readonly (readonly BCube[])[], cands: readonly BCube[], allow: readonly number[]): BCube {
+export function expandWithin(
+  sp: Space,
+  c0: BCube,
+  allowed: readonly (readonly BCube[])[],
+  cands: readonly BCube[],
+  allow: readonly number[],
+): BCube {
   const W = sp.w;
   let c = c0.slice();
   const inside = (x: BCube): boolean => {

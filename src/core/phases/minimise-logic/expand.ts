@@ -54,12 +54,26 @@ export function allowMask(sp: Space, inputOnly: boolean): number[] {
 }
 
 /** Grow one cube into a prime within the boundary, trying to cover the candidate cubes. */
-export function expandCube(sp: Space, c0: BCube, bound: Boundary, cands: readonly BCube[], allow: readonly number[]): BCube {
-  return 'off' in bound ? expandAgainst(sp, c0, bound.off, cands, allow) : expandWithin(sp, c0, bound.allowed, cands, allow);
+export function expandCube(
+  sp: Space,
+  c0: BCube,
+  bound: Boundary,
+  cands: readonly BCube[],
+  allow: readonly number[],
+): BCube {
+  return 'off' in bound
+    ? expandAgainst(sp, c0, bound.off, cands, allow)
+    : expandWithin(sp, c0, bound.allowed, cands, allow);
 }
 
 /** EXPAND against an explicit off-set: the blocking-matrix method. */
-function expandAgainst(sp: Space, c0: BCube, R: readonly BCube[], cands: readonly BCube[], allow: readonly number[]): BCube {
+function expandAgainst(
+  sp: Space,
+  c0: BCube,
+  R: readonly BCube[],
+  cands: readonly BCube[],
+  allow: readonly number[],
+): BCube {
   const W = sp.w;
   const wi = sp.wi;
   const c = c0.slice();
@@ -87,7 +101,10 @@ function expandAgainst(sp: Space, c0: BCube, R: readonly BCube[], cands: readonl
       fixed |= x & ~free[k];
     }
     if (any === 0) throw new Error('expand: a cube of the cover meets the off-set');
-    if (fixed === 0) { act[na] = base; na++; } // else a bit we may not raise keeps c off r
+    if (fixed === 0) {
+      act[na] = base;
+      na++;
+    } // else a bit we may not raise keeps c off r
   }
   const nc = cands.length;
   const need = scratch(SLOT.need, nc * W);
@@ -155,7 +172,16 @@ function expandAgainst(sp: Space, c0: BCube, R: readonly BCube[], cands: readonl
 }
 
 /** Does every live row keep a free bit outside the raise need[a] (∪ need[b] when b ≥ 0)? */
-function rowsSurvive(W: number, rows: Int32Array, act: Int32Array, na: number, free: readonly number[], need: Int32Array, a: number, b: number): boolean {
+function rowsSurvive(
+  W: number,
+  rows: Int32Array,
+  act: Int32Array,
+  na: number,
+  free: readonly number[],
+  need: Int32Array,
+  a: number,
+  b: number,
+): boolean {
   for (let i = 0; i < na; i++) {
     const base = act[i];
     let left = 0;
@@ -169,8 +195,15 @@ function rowsSurvive(W: number, rows: Int32Array, act: Int32Array, na: number, f
  * Rows left with a single free bit force that bit to stay lowered; repeat to a fixed point.
  * Returns the number of rows (compacted at the front of `act`) not yet kept off.
  */
-function essentialLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: number[], keep: number[]): number {
-  for (let changed = true; changed; ) {
+function essentialLowering(
+  W: number,
+  rows: Int32Array,
+  act: Int32Array,
+  na: number,
+  free: number[],
+  keep: number[],
+): number {
+  for (let changed = true; changed;) {
     changed = false;
     let out = 0;
     for (let i = 0; i < na; i++) {
@@ -182,7 +215,10 @@ function essentialLowering(W: number, rows: Int32Array, act: Int32Array, na: num
         const x = rows[base + k];
         blocked |= x & keep[k];
         const f = x & free[k];
-        if (f !== 0) { cnt += popcount(f); only = k; }
+        if (f !== 0) {
+          cnt += popcount(f);
+          only = k;
+        }
       }
       if (blocked !== 0) continue;
       if (cnt === 0) throw new Error('expand: a raise made the cube meet the off-set');
@@ -209,7 +245,14 @@ const LOWERING_NODES = 300;
  * cover-exact.ts within a node limit, starting from the greedy choice). Every other free bit
  * is raised by the caller, so the cube comes out prime with as few literals as found.
  */
-function lowestLowering(W: number, rows: Int32Array, act: Int32Array, na: number, free: number[], keep: number[]): void {
+function lowestLowering(
+  W: number,
+  rows: Int32Array,
+  act: Int32Array,
+  na: number,
+  free: number[],
+  keep: number[],
+): void {
   if (na === 0) return;
   const bitIndex = new Map<number, number>();
   const bits: number[] = [];
@@ -234,18 +277,28 @@ function lowestLowering(W: number, rows: Int32Array, act: Int32Array, na: number
   // is what greedy takes first), so the exact search only runs for three or more.
   const chosen: number[] = [];
   const covered = new Uint8Array(na);
-  for (let left = na; left > 0; ) {
+  for (let left = na; left > 0;) {
     let best = 0;
     let bestN = -1;
     for (let ci = 0; ci < columns.length; ci++) {
       let n = 0;
       for (const r of columns[ci].rows) if (covered[r] === 0) n++;
-      if (n > bestN) { bestN = n; best = ci; }
+      if (n > bestN) {
+        bestN = n;
+        best = ci;
+      }
     }
     chosen.push(best);
-    for (const r of columns[best].rows) if (covered[r] === 0) { covered[r] = 1; left--; }
+    for (const r of columns[best].rows)
+      if (covered[r] === 0) {
+        covered[r] = 1;
+        left--;
+      }
   }
-  const pick = chosen.length <= 2 ? chosen : solveCover({ rowCount: na, columns, groupCost: columns.map(() => 1) }, LOWERING_NODES).columns;
+  const pick =
+    chosen.length <= 2
+      ? chosen
+      : solveCover({ rowCount: na, columns, groupCost: columns.map(() => 1) }, LOWERING_NODES).columns;
   for (const ci of pick) {
     const b = bits[ci];
     keep[b >>> 5] |= 1 << (b & 31);

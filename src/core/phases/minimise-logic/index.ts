@@ -23,7 +23,16 @@
  */
 import type { Cube } from '../../model/cube.js';
 import {
-  type BCube, type Space, makeSpace, parseInput, formatInput, withOutputs, outputsOf, inDisjoint, key, absorbFull,
+  type BCube,
+  type Space,
+  makeSpace,
+  parseInput,
+  formatInput,
+  withOutputs,
+  outputsOf,
+  inDisjoint,
+  key,
+  absorbFull,
 } from './bitcube.js';
 import { complement } from './unate.js';
 import { compact, subtractCover } from './tidy.js';
@@ -70,16 +79,24 @@ export function minimiseCover(f: MultiFunction, opts: MinimiseOptions = {}): Sop
 }
 
 /** Single-function convenience: the minimised sum of products as a list of cubes. */
-export function minimiseSop(on: readonly Cube[], dc: readonly Cube[], vars: number, opts: MinimiseOptions = {}): Cube[] {
+export function minimiseSop(
+  on: readonly Cube[],
+  dc: readonly Cube[],
+  vars: number,
+  opts: MinimiseOptions = {},
+): Cube[] {
   return minimiseCover({ vars, on: [on], dc: [dc] }, opts).terms.map((t) => t.cube);
 }
 
 function checkShape(f: MultiFunction): void {
-  if (!Number.isInteger(f.vars) || f.vars < 0) throw new RangeError(`minimiseCover: vars must be a non-negative integer, got ${f.vars}`);
-  if (f.dc.length !== f.on.length) throw new RangeError(`minimiseCover: ${f.on.length} on-set lists but ${f.dc.length} don't-care lists`);
+  if (!Number.isInteger(f.vars) || f.vars < 0)
+    throw new RangeError(`minimiseCover: vars must be a non-negative integer, got ${f.vars}`);
+  if (f.dc.length !== f.on.length)
+    throw new RangeError(`minimiseCover: ${f.on.length} on-set lists but ${f.dc.length} don't-care lists`);
   for (const list of [...f.on, ...f.dc])
     for (const c of list)
-      if (c.length !== f.vars) throw new RangeError(`minimiseCover: cube '${c}' has ${c.length} positions, expected ${f.vars}`);
+      if (c.length !== f.vars)
+        throw new RangeError(`minimiseCover: cube '${c}' has ${c.length} positions, expected ${f.vars}`);
 }
 
 /** The function in packed form: on-sets, don't-cares minus on-sets, and on ∪ dc. */
@@ -106,7 +123,10 @@ function pack(f: MultiFunction): Packed {
     // still uses the whole of on ∪ dc).
     const out: BCube[] = [];
     for (const d of cs.map((c) => parseInput(sp, c))) {
-      if (on[j].every((o) => inDisjoint(sp, d, o))) { out.push(d); continue; }
+      if (on[j].every((o) => inDisjoint(sp, d, o))) {
+        out.push(d);
+        continue;
+      }
       const pieces = subtractCover(sp, [d], on[j], DC_PIECES);
       if (pieces !== null) out.push(...pieces);
     }
@@ -125,10 +145,18 @@ function solve(f: MultiFunction, method: MinimiseOptions['method'], cost: CoverC
   const p = pack(f);
   const m = f.on.length;
   if (method === 'exact') {
-    if (f.vars > EXACT_MAX_VARS) throw new RangeError(`minimiseCover: the exact method handles at most ${EXACT_MAX_VARS} variables, got ${f.vars}`);
+    if (f.vars > EXACT_MAX_VARS)
+      throw new RangeError(
+        `minimiseCover: the exact method handles at most ${EXACT_MAX_VARS} variables, got ${f.vars}`,
+      );
     // The heuristic's cover bounds the search; without limits the result is a minimum.
     const h = m === 1 ? heuristic(p, cost) : shared(f, p, 'heuristic', cost);
-    const r = exactMinimise(p.sp, p.on, p.allowed, cost, { maxPrimes: Infinity, maxRows: Infinity, nodeLimit: Infinity, upperBound: price(f, h, cost) });
+    const r = exactMinimise(p.sp, p.on, p.allowed, cost, {
+      maxPrimes: Infinity,
+      maxRows: Infinity,
+      nodeLimit: Infinity,
+      upperBound: price(f, h, cost),
+    });
     return r === null ? h : toFound(p.sp, r.terms);
   }
   const h = m === 1 ? heuristic(p, cost) : shared(f, p, method ?? 'auto', cost);
@@ -160,7 +188,10 @@ function shared(f: MultiFunction, p: Packed, method: MinimiserMethod, cost: Cove
   });
   const start = [...byCube.entries()].map(([c, js]) => withOutputs(sp, parseInput(sp, c), js));
   const D = mergeOutputs(sp, p.dc);
-  return espresso(sp, start, D, boundary(p), cost, true).map((c) => ({ cube: formatInput(sp, c), outputs: outputsOf(sp, c) }));
+  return espresso(sp, start, D, boundary(p), cost, true).map((c) => ({
+    cube: formatInput(sp, c),
+    outputs: outputsOf(sp, c),
+  }));
 }
 
 function price(f: MultiFunction, terms: readonly Found[], cost: CoverCost): number {
@@ -205,8 +236,13 @@ function mergeOutputs(sp: Space, lists: readonly (readonly BCube[])[]): BCube[] 
     for (const c of cs) {
       const id = key(c.slice(0, sp.wi));
       const e = byKey.get(id);
-      if (e) { if (!e.outs.includes(j)) e.outs.push(j); } else byKey.set(id, { cube: c, outs: [j] });
+      if (e) {
+        if (!e.outs.includes(j)) e.outs.push(j);
+      } else byKey.set(id, { cube: c, outs: [j] });
     }
   });
-  return absorbFull(sp, [...byKey.values()].map((e) => withOutputs(sp, e.cube, e.outs)));
+  return absorbFull(
+    sp,
+    [...byKey.values()].map((e) => withOutputs(sp, e.cube, e.outs)),
+  );
 }

@@ -38,13 +38,21 @@ function coveredBy(sp: Space, c: BCube, lists: readonly BCube[][], dc: readonly 
  * A minimal-cost irredundant subcover of F, given the don't-cares per function `dc`
  * (input cubes); `costOf` prices a cube.
  */
-export function irredundantCover(sp: Space, F: readonly BCube[], dc: readonly BCube[][], costOf: (c: BCube) => number): BCube[] {
+export function irredundantCover(
+  sp: Space,
+  F: readonly BCube[],
+  dc: readonly BCube[][],
+  costOf: (c: BCube) => number,
+): BCube[] {
   const fj = byOutput(sp, F);
   const relEssential: number[] = [];
   const redundant: number[] = [];
   F.forEach((c, i) => (coveredBy(sp, c, fj, dc) ? redundant : relEssential).push(i));
   if (redundant.length === 0) return F.slice();
-  const ej = byOutput(sp, relEssential.map((i) => F[i]));
+  const ej = byOutput(
+    sp,
+    relEssential.map((i) => F[i]),
+  );
   const partial = redundant.filter((i) => !coveredBy(sp, F[i], ej, dc));
   if (partial.length === 0) return relEssential.map((i) => F[i]);
   const rp = partial.map((i) => F[i]);
@@ -63,7 +71,9 @@ export function irredundantCover(sp: Space, F: readonly BCube[], dc: readonly BC
     }
   });
   const columns = rp.map((_, qi) => ({ group: qi, cost: 0, rows: [] as number[] }));
-  rows.forEach((r, ri) => { for (const qi of r) columns[qi].rows.push(ri); });
+  rows.forEach((r, ri) => {
+    for (const qi of r) columns[qi].rows.push(ri);
+  });
   const sol = solveCover({ rowCount: rows.length, columns, groupCost: rp.map(costOf) }, IRREDUNDANT_NODES);
   const keep = new Set<number>(relEssential);
   for (const qi of sol.columns) keep.add(partial[qi]);

@@ -15,9 +15,7 @@
  *
  * Postcondition: every returned cube is prime; `tag` lists every function it implies.
  */
-import {
-  type BCube, type Space, inAnd, inContains, inDisjoint, isUniverse, key, varPos,
-} from './bitcube.js';
+import { type BCube, type Space, inAnd, inContains, inDisjoint, isUniverse, key, varPos } from './bitcube.js';
 import { cofactorVar, splitVar } from './unate.js';
 import { absorbCubes } from './tidy.js';
 
@@ -37,8 +35,7 @@ export function primesOf(sp: Space, t: readonly BCube[]): BCube[] {
   const [k, s] = varPos(v);
   const both = 3 << s;
   const cand: BCube[] = [];
-  for (const a of p1)
-    for (const b of p0) if (!inDisjoint(sp, a, b)) cand.push(inAnd(sp, a, b));
+  for (const a of p1) for (const b of p0) if (!inDisjoint(sp, a, b)) cand.push(inAnd(sp, a, b));
   for (const a of p1) {
     const r = a.slice(0, sp.wi);
     r[k] = (r[k] & ~both) | (2 << s);
@@ -62,7 +59,11 @@ export interface TaggedPrime {
  * Multi-output primes of the functions whose on ∪ dc covers are `allowed[j]`, or null when
  * there are more than `limit` of them (the caller then falls back to the heuristic).
  */
-export function multiOutputPrimes(sp: Space, allowed: readonly (readonly BCube[])[], limit = Infinity): TaggedPrime[] | null {
+export function multiOutputPrimes(
+  sp: Space,
+  allowed: readonly (readonly BCube[])[],
+  limit = Infinity,
+): TaggedPrime[] | null {
   const m = allowed.length;
   const single = allowed.map((t) => primesOf(sp, t));
   if (m === 1) return single[0].length > limit ? null : single[0].map((c) => ({ cube: c, tag: [0] }));
@@ -96,7 +97,10 @@ export function multiOutputPrimes(sp: Space, allowed: readonly (readonly BCube[]
     const id = sp.wi === 1 ? c[0] : key(c);
     if (seen.has(id) || rejected.has(id)) return true;
     const tag = tagOf(c);
-    if (!isPrime(c, tag)) { rejected.add(id); return true; }
+    if (!isPrime(c, tag)) {
+      rejected.add(id);
+      return true;
+    }
     const p = { cube: c, tag };
     seen.set(id, p);
     queue.push(p);

@@ -12,7 +12,20 @@
  * to the on-set, is unchanged.
  */
 import {
-  type BCube, type Space, cofactor, cubeWeights, inAnd, inDisjoint, inDistance, inOr, literals, outCount, outputsOf, hasOutput, outputBit, withOutputs,
+  type BCube,
+  type Space,
+  cofactor,
+  cubeWeights,
+  inAnd,
+  inDisjoint,
+  inDistance,
+  inOr,
+  literals,
+  outCount,
+  outputsOf,
+  hasOutput,
+  outputBit,
+  withOutputs,
 } from './bitcube.js';
 import { cubeCovered, supercubeOfComplement } from './unate.js';
 

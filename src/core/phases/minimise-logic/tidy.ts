@@ -34,7 +34,12 @@ export function sharp(sp: Space, a: BCube, b: BCube): BCube[] {
 }
 
 /** A cover minus a cover, as cubes (disjoint when `from` is); null past `limit` cubes. */
-export function subtractCover(sp: Space, from: readonly BCube[], minus: readonly BCube[], limit = Infinity): BCube[] | null {
+export function subtractCover(
+  sp: Space,
+  from: readonly BCube[],
+  minus: readonly BCube[],
+  limit = Infinity,
+): BCube[] | null {
   let cur: BCube[] = from.slice();
   for (const m of minus) {
     const next: BCube[] = [];
@@ -55,7 +60,7 @@ export function subtractCover(sp: Space, from: readonly BCube[], minus: readonly
 export function compact(sp: Space, t: readonly BCube[]): BCube[] {
   if (sp.wi === 1) return compact1(sp, t);
   let cur = t.map((c) => c.slice(0, sp.wi));
-  for (let changed = true; changed; ) {
+  for (let changed = true; changed;) {
     changed = false;
     // Only cubes fixing the same variables can merge: skip the pass when none do.
     const cares = new Set<string>();
@@ -63,7 +68,10 @@ export function compact(sp: Space, t: readonly BCube[]): BCube[] {
     for (const c of cur) {
       let id = '';
       for (let k = 0; k < sp.wi; k++) id += (sp.low[k] & ~(c[k] & (c[k] >>> 1))) + ',';
-      if (cares.has(id)) { shared = true; break; }
+      if (cares.has(id)) {
+        shared = true;
+        break;
+      }
       cares.add(id);
     }
     if (!shared) break;
@@ -74,12 +82,19 @@ export function compact(sp: Space, t: readonly BCube[]): BCube[] {
       const next: BCube[] = [];
       for (const c of cur) {
         const f = c[k] & both;
-        if (f === both) { next.push(c); continue; }
+        if (f === both) {
+          next.push(c);
+          continue;
+        }
         const freed = c.slice();
         freed[k] |= both;
         const id = freed.join(',');
         const at = groups.get(id);
-        if (at === undefined) { groups.set(id, next.length); next.push(c); continue; }
+        if (at === undefined) {
+          groups.set(id, next.length);
+          next.push(c);
+          continue;
+        }
         const other = next[at][k] & both;
         if (other === f || other === both) continue; // duplicate, or already merged
         next[at] = freed;
@@ -101,7 +116,7 @@ function compact1(sp: Space, t: readonly BCube[]): BCube[] {
   const stamp = direct ? scratch(SLOT.stamp, size) : null;
   const where = direct ? scratch(SLOT.value, size) : null;
   const groups = new Map<number, number>();
-  for (let changed = true; changed; ) {
+  for (let changed = true; changed;) {
     changed = false;
     for (let v = 0; v < sp.n; v++) {
       const both = 3 << (2 * v);
@@ -111,13 +126,19 @@ function compact1(sp: Space, t: readonly BCube[]): BCube[] {
       for (let i = 0; i < cur.length; i++) {
         const c = cur[i];
         const f = c & both;
-        if (f === both) { cur[out++] = c; continue; }
+        if (f === both) {
+          cur[out++] = c;
+          continue;
+        }
         const freed = c | both;
         let at: number | undefined;
         if (stamp !== null) at = stamp[freed] === gen ? where![freed] : undefined;
         else at = groups.get(freed);
         if (at === undefined) {
-          if (stamp !== null) { stamp[freed] = gen; where![freed] = out; } else groups.set(freed, out);
+          if (stamp !== null) {
+            stamp[freed] = gen;
+            where![freed] = out;
+          } else groups.set(freed, out);
           cur[out++] = c;
           continue;
         }
@@ -130,7 +151,10 @@ function compact1(sp: Space, t: readonly BCube[]): BCube[] {
     }
   }
   cur = [...new Set(cur)];
-  return absorbCubes(sp, cur.map((c) => [c]));
+  return absorbCubes(
+    sp,
+    cur.map((c) => [c]),
+  );
 }
 
 let generation = 0;
@@ -155,7 +179,11 @@ export function absorbCubes(sp: Space, t: readonly BCube[]): BCube[] {
   const out: BCube[] = [];
   for (const { c } of order) {
     let inside = false;
-    for (const o of out) if (inContains(sp, o, c)) { inside = true; break; }
+    for (const o of out)
+      if (inContains(sp, o, c)) {
+        inside = true;
+        break;
+      }
     if (!inside) out.push(c);
   }
   return out;

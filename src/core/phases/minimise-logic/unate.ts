@@ -108,7 +108,10 @@ export function tautology(sp: Space, t: readonly BCube[]): boolean {
       for (const c of cur) {
         let free = true;
         for (let k = 0; k < sp.wi; k++)
-          if ((c[k] & unateMask[k]) !== unateMask[k]) { free = false; break; }
+          if ((c[k] & unateMask[k]) !== unateMask[k]) {
+            free = false;
+            break;
+          }
         if (free) next.push(c);
       }
       cur = next;
@@ -136,7 +139,10 @@ export function cubeCovered(sp: Space, t: readonly BCube[], c: BCube, skip?: BCu
       for (let k = 0; k < wi; k++) {
         const x = c[k] & d[k];
         const l = sp.low[k];
-        if (((x | (x >>> 1)) & l) !== l) { meets = false; break; }
+        if (((x | (x >>> 1)) & l) !== l) {
+          meets = false;
+          break;
+        }
         if ((c[k] & ~d[k]) !== 0) whole = false;
       }
       if (!meets) continue;
@@ -209,7 +215,11 @@ export function complement(sp: Space, t: readonly BCube[], budget: Budget = { le
     if (used0[j]) continue;
     const b = c0[j];
     let lifted = false;
-    for (const a of c1) if (inContains(sp, a, b)) { lifted = true; break; }
+    for (const a of c1)
+      if (inContains(sp, a, b)) {
+        lifted = true;
+        break;
+      }
     const r = b.slice(0, sp.wi);
     if (!lifted) r[k] = (r[k] & ~both) | (1 << s);
     out.push(r);

@@ -18,14 +18,19 @@ export function verifyCover(f: MultiFunction, c: SopCover): { ok: boolean; probl
   const parse = (s: string): BCube | string =>
     s.length !== f.vars ? `cube '${s}' has ${s.length} positions, expected ${f.vars}` : tryParse(s);
   const tryParse = (s: string): BCube | string => {
-    try { return parseInput(sp, s); } catch (e) { return (e as Error).message; }
+    try {
+      return parseInput(sp, s);
+    } catch (e) {
+      return (e as Error).message;
+    }
   };
   const feeds: BCube[][] = Array.from({ length: m }, () => []);
   for (const t of c.terms) {
     const cube = parse(t.cube);
     if (typeof cube === 'string') return { ok: false, problem: cube };
     for (const j of t.outputs) {
-      if (!Number.isInteger(j) || j < 0 || j >= m) return { ok: false, problem: `term ${t.cube} feeds unknown function ${j}` };
+      if (!Number.isInteger(j) || j < 0 || j >= m)
+        return { ok: false, problem: `term ${t.cube} feeds unknown function ${j}` };
       feeds[j].push(cube);
     }
   }
@@ -43,7 +48,8 @@ export function verifyCover(f: MultiFunction, c: SopCover): { ok: boolean; probl
       allowed.push(x);
     }
     for (let i = 0; i < on.length; i++)
-      if (!cubeCovered(sp, feeds[j], on[i])) return { ok: false, problem: `function ${j}: on-set cube ${f.on[j][i]} is not covered` };
+      if (!cubeCovered(sp, feeds[j], on[i]))
+        return { ok: false, problem: `function ${j}: on-set cube ${f.on[j][i]} is not covered` };
     for (const t of c.terms)
       if (t.outputs.includes(j) && !cubeCovered(sp, allowed, parseInput(sp, t.cube)))
         return { ok: false, problem: `function ${j}: term ${t.cube} reaches the off-set` };

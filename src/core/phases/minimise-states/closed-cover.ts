@@ -29,7 +29,18 @@
  */
 import type { FlatMachine } from '../../model/flat.js';
 import {
-  compareSets, difference, has, intersection, isEmptySet, isSubset, key, members, overlapSize, setOf, size, union,
+  compareSets,
+  difference,
+  has,
+  intersection,
+  isEmptySet,
+  isSubset,
+  key,
+  members,
+  overlapSize,
+  setOf,
+  size,
+  union,
   type StateSet,
 } from './bitset.js';
 import { classRegions, type Compatibility } from './compatible.js';
@@ -146,7 +157,9 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
       }
     }
     const need = open[pick];
-    const ordered = (options ?? []).sort((a, b) => overlapSize(classes[b], need) - overlapSize(classes[a], need) || a - b);
+    const ordered = (options ?? []).sort(
+      (a, b) => overlapSize(classes[b], need) - overlapSize(classes[a], need) || a - b,
+    );
     return { need, options: ordered, forced };
   };
 
@@ -249,7 +262,10 @@ function clashing(sets: StateSet[], fits: (a: StateSet, b: StateSet) => boolean)
 export function incompatibleClique(compat: Compatibility, budget: number): number {
   const n = compat.n;
   const words = compat.words;
-  const all = setOf(words, Array.from({ length: n }, (_, i) => i));
+  const all = setOf(
+    words,
+    Array.from({ length: n }, (_, i) => i),
+  );
   const clash = compat.compatibleWith.map((c) => difference(all, c));
   let best = n > 0 ? 1 : 0;
   let work = 0;

@@ -116,7 +116,8 @@ function reduceByCompatibles(f: FlatMachine, budget: number): Attempt {
     if (isSubset(d, classes[self])) return self;
     return classes.findIndex((c) => isSubset(d, c));
   };
-  const targetOf = (t: number, self: number): number => (has(classes[self], t) ? self : classes.findIndex((c) => has(c, t)));
+  const targetOf = (t: number, self: number): number =>
+    has(classes[self], t) ? self : classes.findIndex((c) => has(c, t));
   const rows: FlatRow[][] = classes.map((c, i) => {
     const list = members(c);
     if (list.length === 1)
@@ -137,9 +138,14 @@ function reduceByCompatibles(f: FlatMachine, budget: number): Attempt {
   const renumber = new Map(kept.map((k, i) => [k, i]));
   const machine: FlatMachine = {
     ...f,
-    states: nameClasses(f, kept.map((k) => members(classes[k]))),
+    states: nameClasses(
+      f,
+      kept.map((k) => members(classes[k])),
+    ),
     start: renumber.get(startClass) as number,
-    rows: kept.map((k) => rows[k].map((r) => ({ ...r, next: r.next === DONT_CARE ? DONT_CARE : (renumber.get(r.next) as number) }))),
+    rows: kept.map((k) =>
+      rows[k].map((r) => ({ ...r, next: r.next === DONT_CARE ? DONT_CARE : (renumber.get(r.next) as number) })),
+    ),
   };
   const assign = Array.from({ length: n }, (_, s) =>
     s === f.start ? machine.start : kept.findIndex((k) => has(classes[k], s)),

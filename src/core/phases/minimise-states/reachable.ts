@@ -40,7 +40,10 @@ export function pruneUnreachable(f: FlatMachine): Pruned {
   seen.forEach((ok, i) => (ok ? original.push(i) : unreachable.push(f.states[i])));
   if (unreachable.length === 0) return { machine: f, original, unreachable };
   const newIndex = new Map(original.map((o, i) => [o, i]));
-  const remap = (r: FlatRow): FlatRow => ({ ...r, next: r.next === DONT_CARE ? DONT_CARE : (newIndex.get(r.next) as number) });
+  const remap = (r: FlatRow): FlatRow => ({
+    ...r,
+    next: r.next === DONT_CARE ? DONT_CARE : (newIndex.get(r.next) as number),
+  });
   const machine: FlatMachine = {
     ...f,
     states: original.map((o) => f.states[o]),

@@ -22,7 +22,8 @@ export function randomFlatConfig(rng: Random): Record<string, unknown> {
     `#${rootRef}.s${j}`,
     ...(custom[j] ? [`#k${j}`] : []),
   ];
-  const outputs = (): Record<string, OutBit> => Object.fromEntries(['o1', 'o2'].filter(() => rng.int(2) === 0).map((o) => [o, bit(rng)]));
+  const outputs = (): Record<string, OutBit> =>
+    Object.fromEntries(['o1', 'o2'].filter(() => rng.int(2) === 0).map((o) => [o, bit(rng)]));
   const single = (fromRoot: boolean): unknown => {
     const target = pick(rng, refs(rng.int(n), fromRoot));
     switch (rng.int(4)) {
@@ -88,21 +89,28 @@ export function randomMachine(rng: Random, shape: 'general' | 'levers'): Machine
   const outputs = Array.from({ length: rng.int(3) }, (_, i) => `o${i}`);
   const ns = 1 + rng.int(5);
   const names = Array.from({ length: ns }, (_, i) => `q${i}`);
-  const outs = (): Record<string, OutBit> => Object.fromEntries(outputs.filter(() => rng.int(2) === 0).map((o) => [o, bit(rng)]));
+  const outs = (): Record<string, OutBit> =>
+    Object.fromEntries(outputs.filter(() => rng.int(2) === 0).map((o) => [o, bit(rng)]));
   const never: Guard[] = [];
   if (shape === 'levers') {
-    for (let a = 0; a < ni; a++) for (let b = a + 1; b < ni; b++) never.push(guard(`${inputs[a]} & ${inputs[b]}`, inputs));
+    for (let a = 0; a < ni; a++)
+      for (let b = a + 1; b < ni; b++) never.push(guard(`${inputs[a]} & ${inputs[b]}`, inputs));
   } else if (ni > 1 && rng.int(3) === 0) {
     never.push(guard(`${pick(rng, inputs)} & ${pick(rng, inputs)}`, inputs));
   }
   const when = (): Guard => {
-    if (shape === 'levers') return guard(inputs.filter(() => rng.int(2) === 0).join(' | ') || pick(rng, inputs), inputs);
+    if (shape === 'levers')
+      return guard(inputs.filter(() => rng.int(2) === 0).join(' | ') || pick(rng, inputs), inputs);
     return rng.int(5) === 0 ? alwaysGuard(ni) : guard(randomExpr(rng, inputs, 2), inputs);
   };
   const states: State[] = names.map((name) => ({
     name,
     outputs: outs(),
-    transitions: Array.from({ length: rng.int(4) }, (): Transition => ({ when: when(), to: pick(rng, names), outputs: outs() })),
+    transitions: Array.from({ length: rng.int(4) }, (): Transition => ({
+      when: when(),
+      to: pick(rng, names),
+      outputs: outs(),
+    })),
   }));
   return {
     name: 'invented',

@@ -31,12 +31,15 @@ export function xstateStepper(config: object, guards: Record<string, unknown>, o
   let taken: readonly { meta?: unknown }[] = [];
   const actor = createActor(machine, {
     inspect: (ev) => {
-      if (ev.type === '@xstate.microstep') taken = (ev as unknown as { _transitions: { meta?: unknown }[] })._transitions;
+      if (ev.type === '@xstate.microstep')
+        taken = (ev as unknown as { _transitions: { meta?: unknown }[] })._transitions;
     },
   }).start();
   return (event: { type: string } | null): Observed => {
     const before = actor.getSnapshot();
-    const metas = Object.values(before.getMeta() as Record<string, unknown>).map((m) => (m as OutputsMeta)?.outputs ?? {});
+    const metas = Object.values(before.getMeta() as Record<string, unknown>).map(
+      (m) => (m as OutputsMeta)?.outputs ?? {},
+    );
     const moore = Object.assign({}, ...metas) as Record<string, OutBit>;
     taken = [];
     // A machine in a top-level final state is stopped: xstate ignores (and warns about) further events.

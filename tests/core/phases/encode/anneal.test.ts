@@ -10,13 +10,23 @@ describe('core/phases/encode/anneal', () => {
 
   function run(seed: number, pinned = new Map<number, number>(), evaluations = 150) {
     const seen: (readonly string[])[] = [];
-    const book = new CostBook({ cost: (c, b) => (seen.push(c), cost(c, b)), pins: new Map([...pinned].map(([s, c]) => [s, c.toString(2).padStart(4, '0')])), maxEvaluations: evaluations });
+    const book = new CostBook({
+      cost: (c, b) => (seen.push(c), cost(c, b)),
+      pins: new Map([...pinned].map(([s, c]) => [s, c.toString(2).padStart(4, '0')])),
+      maxEvaluations: evaluations,
+    });
     anneal(book, { n: 10, bits: 4, pinned, restarts: 2 }, seededRandom(seed));
     return { book, seen };
   }
 
   it('never moves a pinned state and only tries distinct codes', () => {
-    const { seen } = run(3, new Map([[0, 15], [5, 6]]));
+    const { seen } = run(
+      3,
+      new Map([
+        [0, 15],
+        [5, 6],
+      ]),
+    );
     expect(seen.length).toBeGreaterThan(0);
     for (const c of seen) {
       expect(c[0]).toBe('1111');

@@ -17,19 +17,29 @@ function bruteMinimum(f: FlatMachine, bits: number, cost: (c: readonly string[],
 /** Smallest image of an assignment under every bit permutation and complementation. */
 function orbitKey(codes: readonly string[]): string {
   const b = codes[0].length;
-  const perms = (k: number): number[][] => (k === 0 ? [[]] : perms(k - 1).flatMap((p) => Array.from({ length: k }, (_, at) => [...p.slice(0, at), k - 1, ...p.slice(at)])));
+  const perms = (k: number): number[][] =>
+    k === 0
+      ? [[]]
+      : perms(k - 1).flatMap((p) => Array.from({ length: k }, (_, at) => [...p.slice(0, at), k - 1, ...p.slice(at)]));
   let best = '';
   for (const p of perms(b))
     for (let mask = 0; mask < 2 ** b; mask++) {
-      const img = codes.map((c) => p.map((_, i) => (c[p[i]] === '1') !== (((mask >> i) & 1) === 1) ? '1' : '0').join('')).join(',');
+      const img = codes
+        .map((c) => p.map((_, i) => ((c[p[i]] === '1') !== (((mask >> i) & 1) === 1) ? '1' : '0')).join(''))
+        .join(',');
       if (best === '' || img < best) best = img;
     }
   return best;
 }
 
-const machineArb = fc.integer({ min: 2, max: 6 }).chain((n) =>
-  fc.array(fc.array(fc.integer({ min: 0, max: n - 1 }), { minLength: 4, maxLength: 4 }), { minLength: n, maxLength: n }),
-);
+const machineArb = fc
+  .integer({ min: 2, max: 6 })
+  .chain((n) =>
+    fc.array(fc.array(fc.integer({ min: 0, max: n - 1 }), { minLength: 4, maxLength: 4 }), {
+      minLength: n,
+      maxLength: n,
+    }),
+  );
 
 describe('core/phases/encode/auto', () => {
   it('finds the brute-force minimum of a synthetic cost on machines of 2–6 states (fast-check, seed 42)', () => {
@@ -52,7 +62,13 @@ describe('core/phases/encode/auto', () => {
   });
 
   it('prices each symmetry class at most once and reports the count of classes', () => {
-    const f = tableMachine('five', 1, [[1, 2], [3, 0], [4, 4], [0, 1], [2, 3]]);
+    const f = tableMachine('five', 1, [
+      [1, 2],
+      [3, 0],
+      [4, 4],
+      [0, 1],
+      [2, 3],
+    ]);
     const seen: string[] = [];
     const base = syntheticCost(f);
     const r = encode(f, 'auto', { cost: (c, b) => (seen.push(orbitKey(c)), base(c, b)) });
@@ -90,7 +106,11 @@ describe('core/phases/encode/auto', () => {
   });
 
   it('gives the same answer for the same seed (run twice, compare)', () => {
-    const f = tableMachine('mix', 2, Array.from({ length: 11 }, (_, s) => [s, (s + 1) % 11, (s * 3 + 2) % 11, (s + 5) % 11]));
+    const f = tableMachine(
+      'mix',
+      2,
+      Array.from({ length: 11 }, (_, s) => [s, (s + 1) % 11, (s * 3 + 2) % 11, (s + 5) % 11]),
+    );
     const run = (seed: number) => encode(f, 'auto', { cost: syntheticCost(f), seed, budget: { evaluations: 300 } });
     const a = run(7);
     const b = run(7);
@@ -100,7 +120,11 @@ describe('core/phases/encode/auto', () => {
   });
 
   it('never does worse than the named strategies', () => {
-    const f = tableMachine('mix', 2, Array.from({ length: 13 }, (_, s) => [(s * 5) % 13, (s + 1) % 13, (s * 7 + 3) % 13, s]));
+    const f = tableMachine(
+      'mix',
+      2,
+      Array.from({ length: 13 }, (_, s) => [(s * 5) % 13, (s + 1) % 13, (s * 7 + 3) % 13, s]),
+    );
     const cost = syntheticCost(f);
     const best = encode(f, 'auto', { cost, budget: { evaluations: 100 } }).encoding;
     for (const named of ['binary', 'gray', 'johnson', 'one-hot'] as const) {
@@ -112,7 +136,11 @@ describe('core/phases/encode/auto', () => {
   it('reports progress after every evaluation, the best never rising', () => {
     const f = ring(10);
     const seen: { done: number; total: number | null; best: number }[] = [];
-    const r = encode(f, 'auto', { cost: syntheticCost(f), budget: { evaluations: 80 }, onProgress: (p) => seen.push(p) });
+    const r = encode(f, 'auto', {
+      cost: syntheticCost(f),
+      budget: { evaluations: 80 },
+      onProgress: (p) => seen.push(p),
+    });
     expect(seen.map((p) => p.done)).toEqual(Array.from({ length: seen.length }, (_, i) => i + 1));
     expect(seen.length).toBe(r.search?.evaluations);
     expect(seen.every((p) => p.total === 80)).toBe(true);
@@ -165,12 +193,24 @@ describe('core/phases/encode/auto', () => {
 describe('core/phases/encode/auto with core/synthesise', () => {
   // An invented exhibit: a flap opens after buttons a, b, a in turn; both at once starts over.
   // Inputs (a, b); next state per input combination 00, 01, 10, 11.
-  const table = tableMachine('flap-lock', 2, [[0, 0, 1, 0], [1, 2, 1, 0], [2, 0, 3, 0], [3, 0, 0, 0]]);
-  const lock: FlatMachine = { ...table, outputs: ['flap'], rows: table.rows.map((rs, s) => rs.map((r) => ({ ...r, out: [s === 3 ? 1 : 0] }))) };
+  const table = tableMachine('flap-lock', 2, [
+    [0, 0, 1, 0],
+    [1, 2, 1, 0],
+    [2, 0, 3, 0],
+    [3, 0, 0, 0],
+  ]);
+  const lock: FlatMachine = {
+    ...table,
+    outputs: ['flap'],
+    rows: table.rows.map((rs, s) => rs.map((r) => ({ ...r, out: [s === 3 ? 1 : 0] }))),
+  };
   const cost = (codes: readonly string[], bits: number): number =>
-    partsCost(synthesise(lock, { strategy: 'candidate', bits, codes }, { profile: DEFAULT_PROFILE }).parts, DEFAULT_PROFILE.cost);
+    partsCost(
+      synthesise(lock, { strategy: 'candidate', bits, codes }, { profile: DEFAULT_PROFILE }).parts,
+      DEFAULT_PROFILE.cost,
+    );
 
-  it('the real build costs the same across a symmetry class (the search\'s precondition) and auto finds its minimum', () => {
+  it("the real build costs the same across a symmetry class (the search's precondition) and auto finds its minimum", () => {
     const byClass = new Map<string, Set<number>>();
     let best = Infinity;
     for (const a of allAssignments(4, 2)) {

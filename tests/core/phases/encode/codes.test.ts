@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { binaryCode, bitsFor, grayCode, hamming, johnsonCode, oneHotCode } from '../../../../src/core/phases/encode/codes.js';
+import {
+  binaryCode,
+  bitsFor,
+  grayCode,
+  hamming,
+  johnsonCode,
+  oneHotCode,
+} from '../../../../src/core/phases/encode/codes.js';
 
 describe('core/phases/encode/codes', () => {
   // F. Gray, US patent 2,632,058 (1953), "Pulse code communication": the reflected binary
@@ -22,7 +29,16 @@ describe('core/phases/encode/codes', () => {
   // and 0000, 1000, 1100, 1110, 1111, 0111, 0011, 0001 (4 stages).
   it('gives the Johnson counter sequence (Mano & Ciletti, Digital Design, from memory)', () => {
     expect(Array.from({ length: 6 }, (_, k) => johnsonCode(k, 3))).toEqual(['000', '100', '110', '111', '011', '001']);
-    expect(Array.from({ length: 8 }, (_, k) => johnsonCode(k, 4))).toEqual(['0000', '1000', '1100', '1110', '1111', '0111', '0011', '0001']);
+    expect(Array.from({ length: 8 }, (_, k) => johnsonCode(k, 4))).toEqual([
+      '0000',
+      '1000',
+      '1100',
+      '1110',
+      '1111',
+      '0111',
+      '0011',
+      '0001',
+    ]);
   });
 
   it('Johnson neighbours differ in one bit, cyclically', () => {

@@ -18,7 +18,12 @@ describe('core/phases/encode/gray', () => {
 
   it('makes the heaviest transition a single-bit change even when the state order does not', () => {
     // s0 goes to s3 on three of four input combinations, to s1 on one; s3 returns to s0.
-    const f = tableMachine('heavy', 2, [[1, 3, 3, 3], [2, 2, 2, 2], [0, 0, 0, 0], [0, 0, 0, 0]]);
+    const f = tableMachine('heavy', 2, [
+      [1, 3, 3, 3],
+      [2, 2, 2, 2],
+      [0, 0, 0, 0],
+      [0, 0, 0, 0],
+    ]);
     const codes = encode(f, 'gray').encoding?.codes ?? [];
     expect(hamming(codes[0], codes[3])).toBe(1);
     expect(encode(f, 'binary').encoding?.codes[3]).toBe('11'); // binary puts them two bits apart

@@ -12,7 +12,10 @@ describe('core/phases/encode', () => {
     expect(encode(ring(6), 'auto').search).toMatchObject({ method: 'exhaustive', complete: true, classes: 420 });
     // 7 states: 840 classes, so anneal; binary, Gray and Johnson are priced first (one-hot's
     // 7 bits are more than 3 over the minimum of 3).
-    expect(encode(ring(7), 'auto').search).toMatchObject({ method: 'annealing', evaluations: 3 + DEFAULT_SEARCH.annealingEvaluations });
+    expect(encode(ring(7), 'auto').search).toMatchObject({
+      method: 'annealing',
+      evaluations: 3 + DEFAULT_SEARCH.annealingEvaluations,
+    });
   });
 
   it('reports an unknown strategy name with LW700 and a did-you-mean', () => {
@@ -26,18 +29,29 @@ describe('core/phases/encode', () => {
   });
 
   it('accepts a strategy function and checks what it returns', () => {
-    const reversed = (f: FlatMachine) => ({ strategy: 'reversed', bits: 2, codes: f.states.map((_, s) => (3 - s).toString(2).padStart(2, '0')) });
+    const reversed = (f: FlatMachine) => ({
+      strategy: 'reversed',
+      bits: 2,
+      codes: f.states.map((_, s) => (3 - s).toString(2).padStart(2, '0')),
+    });
     expect(encode(ring(4), reversed).encoding?.codes).toEqual(['11', '10', '01', '00']);
     const clash = () => ({ strategy: 'clash', bits: 2, codes: ['00', '01', '01', '11'] });
     const r = encode(ring(4), clash);
     expect(r.encoding).toBeUndefined();
     expect(r.diagnostics.map((d) => d.code)).toEqual(['LW701']);
     expect(r.diagnostics[0].message).toContain("'s1' and 's2'");
-    expect(encode(ring(4), () => ({ strategy: 'short', bits: 2, codes: ['00', '01'] })).diagnostics[0].code).toBe('LW701');
+    expect(encode(ring(4), () => ({ strategy: 'short', bits: 2, codes: ['00', '01'] })).diagnostics[0].code).toBe(
+      'LW701',
+    );
   });
 
   it('reports bad options with LW700 and runs nothing', () => {
-    for (const o of [{ seed: -1 }, { seed: 1.5 }, { budget: { evaluations: 0 } }, { budget: { millis: Number.NaN } }] as EncodeOptions[]) {
+    for (const o of [
+      { seed: -1 },
+      { seed: 1.5 },
+      { budget: { evaluations: 0 } },
+      { budget: { millis: Number.NaN } },
+    ] as EncodeOptions[]) {
       const r = encode(ring(4), 'auto', o);
       expect(r.encoding, JSON.stringify(o)).toBeUndefined();
       expect(r.diagnostics.map((d) => d.code)).toEqual(['LW700']);
@@ -56,9 +70,17 @@ describe('core/phases/encode', () => {
   });
 
   it('every named strategy gives well-formed, repeatable codes on random machines (fast-check, seed 42)', () => {
-    const arb = fc.integer({ min: 2, max: 12 }).chain((n) =>
-      fc.tuple(fc.array(fc.array(fc.integer({ min: 0, max: n - 1 }), { minLength: 2, maxLength: 2 }), { minLength: n, maxLength: n }), fc.integer({ min: 0, max: n - 1 })),
-    );
+    const arb = fc
+      .integer({ min: 2, max: 12 })
+      .chain((n) =>
+        fc.tuple(
+          fc.array(fc.array(fc.integer({ min: 0, max: n - 1 }), { minLength: 2, maxLength: 2 }), {
+            minLength: n,
+            maxLength: n,
+          }),
+          fc.integer({ min: 0, max: n - 1 }),
+        ),
+      );
     fc.assert(
       fc.property(arb, ([next, start]) => {
         const f = tableMachine('random', 1, next, start);

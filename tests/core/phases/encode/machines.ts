@@ -5,21 +5,32 @@ import type { FlatMachine, FlatRow } from '../../../../src/core/model/flat.js';
 import { mintermString } from '../../../../src/core/model/cube.js';
 
 /** A machine from per-state next-state lists over every input minterm (rows[s][m] = next state of s under minterm m). */
-export function tableMachine(name: string, inputs: number, next: readonly (readonly number[])[], start = 0): FlatMachine {
+export function tableMachine(
+  name: string,
+  inputs: number,
+  next: readonly (readonly number[])[],
+  start = 0,
+): FlatMachine {
   return {
     name,
     inputs: Array.from({ length: inputs }, (_, i) => `x${i}`),
     outputs: [],
     states: next.map((_, s) => `s${s}`),
     start,
-    rows: next.map((row) => row.map((to, m): FlatRow => ({ cube: mintermString(m, inputs), next: to, out: [], transition: m }))),
+    rows: next.map((row) =>
+      row.map((to, m): FlatRow => ({ cube: mintermString(m, inputs), next: to, out: [], transition: m })),
+    ),
     never: [],
   };
 }
 
 /** A ring of n states: input x0 steps to the next state, !x0 holds. */
 export function ring(n: number): FlatMachine {
-  return tableMachine(`ring${n}`, 1, Array.from({ length: n }, (_, s) => [s, (s + 1) % n]));
+  return tableMachine(
+    `ring${n}`,
+    1,
+    Array.from({ length: n }, (_, s) => [s, (s + 1) % n]),
+  );
 }
 
 /** Hamming distance of two equal-length codes. */
@@ -72,5 +83,9 @@ export function* allAssignments(n: number, bits: number): Generator<string[]> {
 
 /** Checks every encoding must pass: n codes, one length, 0/1 only, all different. */
 export function wellFormed(f: FlatMachine, e: { bits: number; codes: readonly string[] }): boolean {
-  return e.codes.length === f.states.length && new Set(e.codes).size === e.codes.length && e.codes.every((c) => c.length === e.bits && /^[01]*$/.test(c));
+  return (
+    e.codes.length === f.states.length &&
+    new Set(e.codes).size === e.codes.length &&
+    e.codes.every((c) => c.length === e.bits && /^[01]*$/.test(c))
+  );
 }

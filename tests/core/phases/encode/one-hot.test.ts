@@ -14,6 +14,10 @@ describe('core/phases/encode/one-hot', () => {
   });
 
   it('gives a one-state machine the code 1', () => {
-    expect(encode(tableMachine('one', 0, [[0]]), 'one-hot').encoding).toEqual({ strategy: 'one-hot', bits: 1, codes: ['1'] });
+    expect(encode(tableMachine('one', 0, [[0]]), 'one-hot').encoding).toEqual({
+      strategy: 'one-hot',
+      bits: 1,
+      codes: ['1'],
+    });
   });
 });

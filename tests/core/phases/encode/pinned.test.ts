@@ -20,8 +20,11 @@ describe('core/phases/encode/pinned', () => {
     expect(r.diagnostics[0].hint).toBeDefined();
   });
 
-  it('reports LW206 for characters other than 0 and 1, at the pin\'s location', () => {
-    const r = encode(ring(4), 'pinned', { pinned: { ...full, s1: '0x' }, pinnedAt: { s1: { file: 'bell.lw', line: 7, column: 3 } } });
+  it("reports LW206 for characters other than 0 and 1, at the pin's location", () => {
+    const r = encode(ring(4), 'pinned', {
+      pinned: { ...full, s1: '0x' },
+      pinnedAt: { s1: { file: 'bell.lw', line: 7, column: 3 } },
+    });
     expect(r.encoding).toBeUndefined();
     expect(r.diagnostics.map((d) => d.code)).toEqual(['LW206']);
     expect(r.diagnostics[0].message).toContain("'s1'");

@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { assignmentClasses, canonicalKey, cubeSymmetries, fixing, publishedClassCount } from '../../../../src/core/phases/encode/symmetry.js';
+import {
+  assignmentClasses,
+  canonicalKey,
+  cubeSymmetries,
+  fixing,
+  publishedClassCount,
+} from '../../../../src/core/phases/encode/symmetry.js';
 
 const popcount = (x: number): number => x.toString(2).replace(/0/g, '').length;
 const range = (k: number): number[] => Array.from({ length: k }, (_, i) => i);
@@ -75,11 +81,18 @@ describe('core/phases/encode/symmetry', () => {
 
   it('gives one assignment per orbit with spare codes too (brute force over all assignments)', () => {
     // Off the minimum the formula no longer applies; compare with the orbits themselves.
-    for (const [n, b] of [[2, 2], [2, 3], [3, 3], [4, 3], [3, 4]]) expect(countClasses(n, b), `${n}/${b}`).toBe(bruteOrbits(n, b));
+    for (const [n, b] of [
+      [2, 2],
+      [2, 3],
+      [3, 3],
+      [4, 3],
+      [3, 4],
+    ])
+      expect(countClasses(n, b), `${n}/${b}`).toBe(bruteOrbits(n, b));
     expect(countClasses(2, 2)).toBe(2); // adjacent or diagonal
   });
 
-  it('respects pins: classes under the pins\' stabiliser match brute force', () => {
+  it("respects pins: classes under the pins' stabiliser match brute force", () => {
     // 3 bits, code 0 pinned: the stabiliser is the 3! bit permutations.
     const g = fixing(cubeSymmetries(3), [0]);
     expect(g).toHaveLength(6);
@@ -99,10 +112,14 @@ describe('core/phases/encode/symmetry', () => {
   it('canonical keys are equal exactly for assignments in one orbit (fast-check, seed 42)', () => {
     const g = cubeSymmetries(3);
     fc.assert(
-      fc.property(fc.uniqueArray(fc.integer({ min: 0, max: 7 }), { minLength: 1, maxLength: 8 }), fc.integer({ min: 0, max: g.length - 1 }), (a, k) => {
-        const img = a.map((x) => g[k].table[x]);
-        expect(canonicalKey(img, g)).toBe(canonicalKey(a, g));
-      }),
+      fc.property(
+        fc.uniqueArray(fc.integer({ min: 0, max: 7 }), { minLength: 1, maxLength: 8 }),
+        fc.integer({ min: 0, max: g.length - 1 }),
+        (a, k) => {
+          const img = a.map((x) => g[k].table[x]);
+          expect(canonicalKey(img, g)).toBe(canonicalKey(a, g));
+        },
+      ),
       { seed: 42, numRuns: 300 },
     );
     expect(canonicalKey([0, 1], g)).not.toBe(canonicalKey([0, 3], g));

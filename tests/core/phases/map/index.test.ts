@@ -54,7 +54,12 @@ describe('core/phases/map', () => {
     expect(b.parts.latches).toBe(0);
     expect(b.parts.gates).toBeLessThanOrEqual(5);
     const flag = b.signals.outputs.y;
-    for (const [a, c, y] of [[0, 0, 0], [0, 1, 1], [1, 0, 1], [1, 1, 0]] as const) {
+    for (const [a, c, y] of [
+      [0, 0, 0],
+      [0, 1, 1],
+      [1, 0, 1],
+      [1, 1, 0],
+    ] as const) {
       expect(settle(b.netlist, { 'in.a': a, 'in.b': c }, {}).shows(flag), `a=${a} b=${c}`).toBe(y);
     }
     expect(netlistViolations(b.netlist, DEFAULT_PROFILE)).toEqual([]);
@@ -70,7 +75,23 @@ describe('core/phases/map', () => {
   it('gives stable, readable ids and the same netlist every time', () => {
     const b = synthesise(coins, binaryEncoding(coins), { profile: DEFAULT_PROFILE });
     const ids = b.netlist.parts.map((p) => p.id);
-    for (const id of ['in.coin', 'clk.phi1', 'clk.phi2', 'rst', 'rst.drv', 'm0', 'm0.set', 'm0.reset', 's0', 's0.set', 's0.reset', 'tr0.set', 'tr0.reset', 'flag.bell', 'flag.lamp'])
+    for (const id of [
+      'in.coin',
+      'clk.phi1',
+      'clk.phi2',
+      'rst',
+      'rst.drv',
+      'm0',
+      'm0.set',
+      'm0.reset',
+      's0',
+      's0.set',
+      's0.reset',
+      'tr0.set',
+      'tr0.reset',
+      'flag.bell',
+      'flag.lamp',
+    ])
       expect(ids).toContain(id);
     expect(ids.some((id) => /^t\.S0\.1$/.test(id))).toBe(true);
     expect(ids.some((id) => /^t\.R0\.1$/.test(id))).toBe(true);
@@ -96,10 +117,16 @@ describe('core/phases/map', () => {
     const m: FlatMachine = {
       ...coins,
       outputs: ['bell', 'lamp', 'gong', 'horn'],
-      rows: coins.rows.map((rs, s) => rs.map((r) => ({ ...r, out: [...r.out, r.cube === '1' ? 1 : 0, (r.cube === '1') !== (s === 1) ? 1 : 0] }))),
+      rows: coins.rows.map((rs, s) =>
+        rs.map((r) => ({ ...r, out: [...r.out, r.cube === '1' ? 1 : 0, (r.cube === '1') !== (s === 1) ? 1 : 0] })),
+      ),
     };
     // Unshared minimisation, so that each output keeps its own shape.
-    const b = synthesise(m, binaryEncoding(m), { profile: DEFAULT_PROFILE, actuators: { bell: 200, lamp: 50, gong: 120, horn: 80 }, minimiseOptions: { share: false } });
+    const b = synthesise(m, binaryEncoding(m), {
+      profile: DEFAULT_PROFILE,
+      actuators: { bell: 200, lamp: 50, gong: 120, horn: 80 },
+      minimiseOptions: { share: false },
+    });
     expect(b.equations.slice(2).map((e) => [...e.terms].sort())).toEqual([['11'], ['--'], ['-1'], ['01', '10']]);
     expect(b.netlist.parts.find((p) => p.id === 'act.lamp')).toMatchObject({ kind: 'actuator', fixed: 1, loadG: 50 });
     expect(b.netlist.cords.find((c) => c.actuators.includes('act.horn'))?.driver).toBe('out.horn.drv');
@@ -122,9 +149,31 @@ describe('core/phases/map', () => {
   });
 
   it('spreads a wide AND over a NAND + inverter tree within the port limits', () => {
-    const sr = { vars: 6, functions: 2, terms: [{ cube: '011011', outputs: [0] }, { cube: '1-----', outputs: [1] }] };
-    const out = { vars: 6, functions: 1, terms: [{ cube: '-11111', outputs: [0] }, { cube: '-00000', outputs: [0] }] };
-    const m = mapToParts({ bits: 1, inputs: ['a', 'b', 'c', 'd', 'e'], outputs: ['z'], startCode: '0', sr, out, profile: small });
+    const sr = {
+      vars: 6,
+      functions: 2,
+      terms: [
+        { cube: '011011', outputs: [0] },
+        { cube: '1-----', outputs: [1] },
+      ],
+    };
+    const out = {
+      vars: 6,
+      functions: 1,
+      terms: [
+        { cube: '-11111', outputs: [0] },
+        { cube: '-00000', outputs: [0] },
+      ],
+    };
+    const m = mapToParts({
+      bits: 1,
+      inputs: ['a', 'b', 'c', 'd', 'e'],
+      outputs: ['z'],
+      startCode: '0',
+      sr,
+      out,
+      profile: small,
+    });
     expect(netlistViolations(m.netlist, small)).toEqual([]);
     const ids = m.netlist.parts.map((p) => p.id);
     expect(ids).toContain('t.S0.1.and1');
@@ -142,7 +191,15 @@ describe('core/phases/map', () => {
         { kind: 'flag', id: 'flag.z', name: 'z', output: 'z', gate: 'g2', inverted: false },
       ],
       cords: [
-        { id: 'c.in.a', driver: 'in.a', ports: [{ part: 'g1', port: 'p1' }, { part: 'g2', port: 'p1' }], actuators: [] },
+        {
+          id: 'c.in.a',
+          driver: 'in.a',
+          ports: [
+            { part: 'g1', port: 'p1' },
+            { part: 'g2', port: 'p1' },
+          ],
+          actuators: [],
+        },
         { id: 'c.g1', driver: 'g1', ports: [{ part: 'g2', port: 'p2' }], actuators: [] },
       ],
     };
@@ -155,9 +212,22 @@ describe('core/phases/map/fan-out', () => {
   const wide = (k: number): Netlist => ({
     parts: [
       { kind: 'lever', id: 'in.a', name: 'a', role: 'input', input: 'a' },
-      ...Array.from({ length: k }, (_, i) => ({ kind: 'gate' as const, id: `g${i}`, name: `g${i}`, role: 'inverter' as const, ports: [{ name: 'p1' }] })),
+      ...Array.from({ length: k }, (_, i) => ({
+        kind: 'gate' as const,
+        id: `g${i}`,
+        name: `g${i}`,
+        role: 'inverter' as const,
+        ports: [{ name: 'p1' }],
+      })),
     ],
-    cords: [{ id: 'c.in.a', driver: 'in.a', ports: Array.from({ length: k }, (_, i) => ({ part: `g${i}`, port: 'p1' })), actuators: [] }],
+    cords: [
+      {
+        id: 'c.in.a',
+        driver: 'in.a',
+        ports: Array.from({ length: k }, (_, i) => ({ part: `g${i}`, port: 'p1' })),
+        actuators: [],
+      },
+    ],
   });
 
   it('splits a cord with too many branches into buffer pairs that pass the same signal', () => {

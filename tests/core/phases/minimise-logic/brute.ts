@@ -82,7 +82,9 @@ export function minimumCost(f: MultiFunction, cost: CoverCost, allImplicants = f
       const outs = tag.filter((_, q) => mask & (1 << q));
       if (!allImplicants) {
         // prime for these functions: no strictly larger cube implies all of them
-        const larger = cubes.some((d, k2) => k2 !== k && d.c !== c && contains(d.c, c) && outs.every((j) => implied[k2].includes(j)));
+        const larger = cubes.some(
+          (d, k2) => k2 !== k && d.c !== c && contains(d.c, c) && outs.every((j) => implied[k2].includes(j)),
+        );
         if (larger) continue;
       }
       const points = outs.flatMap((j) => ms.filter((x) => on[j].has(x)).map((x) => pointId(j, x)));
@@ -99,7 +101,10 @@ export function minimumCost(f: MultiFunction, cost: CoverCost, allImplicants = f
   const dfs = (cost: number): void => {
     if (cost >= best) return;
     const open = required.find((p) => !covered.get(p));
-    if (open === undefined) { best = cost; return; }
+    if (open === undefined) {
+      best = cost;
+      return;
+    }
     for (const it of byPoint.get(open) ?? []) {
       for (const p of it.points) covered.set(p, (covered.get(p) ?? 0) + 1);
       dfs(cost + it.cost);
@@ -148,7 +153,10 @@ export function truth(cubes: readonly string[], n: number): Uint8Array {
     let val = 0;
     for (let i = 0; i < n; i++) {
       const bit = 2 ** (n - 1 - i);
-      if (c[i] !== '-') { care += bit; if (c[i] === '1') val += bit; }
+      if (c[i] !== '-') {
+        care += bit;
+        if (c[i] === '1') val += bit;
+      }
     }
     for (let x = 0; x < t.length; x++) if ((x & care) === val) t[x] = 1;
   }
@@ -158,7 +166,11 @@ export function truth(cubes: readonly string[], n: number): Uint8Array {
 /** Random covers; up to 17 variables so that the packed cubes span two words. */
 export const coverOf = (maxVars: number, maxCubes: number) =>
   fc
-    .record({ n: fc.integer({ min: 1, max: maxVars }), k: fc.integer({ min: 0, max: maxCubes }), seed: fc.integer({ min: 0, max: 2 ** 31 - 1 }) })
+    .record({
+      n: fc.integer({ min: 1, max: maxVars }),
+      k: fc.integer({ min: 0, max: maxCubes }),
+      seed: fc.integer({ min: 0, max: 2 ** 31 - 1 }),
+    })
     .map(({ n, k, seed }) => {
       const rnd = seededRandom(seed);
       // Few literals make tautologies and overlaps likely.

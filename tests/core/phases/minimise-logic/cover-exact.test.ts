@@ -36,7 +36,8 @@ const problemArb = fc.integer({ min: 0, max: 2 ** 31 - 1 }).map((seed): CoverPro
     }
   }
   // make every row coverable
-  for (let r = 0; r < rowCount; r++) if (!columns.some((c) => c.rows.includes(r))) columns.push({ group: 0, cost: 1, rows: [r] });
+  for (let r = 0; r < rowCount; r++)
+    if (!columns.some((c) => c.rows.includes(r))) columns.push({ group: 0, cost: 1, rows: [r] });
   return { rowCount, columns, groupCost };
 });
 

@@ -29,7 +29,10 @@ interface Case {
 function cubeCase(rnd: Random): Case {
   const n = 3 + rnd.int(8);
   const on = Array.from({ length: 2 + rnd.int(12) }, () => randomCube(rnd, n, 1 + rnd.int(n)));
-  const dc = subtract(Array.from({ length: rnd.int(5) }, () => randomCube(rnd, n, 1 + rnd.int(n))), on);
+  const dc = subtract(
+    Array.from({ length: rnd.int(5) }, () => randomCube(rnd, n, 1 + rnd.int(n))),
+    on,
+  );
   return { n, on, dc };
 }
 
@@ -49,7 +52,10 @@ function mintermCase(rnd: Random): Case {
 
 describe('core/phases/minimise-logic/espresso — against espresso-iisojs (Espresso-II reference)', () => {
   const rnd = seededRandom(20240917);
-  const cases = [...Array.from({ length: 170 }, () => cubeCase(rnd)), ...Array.from({ length: 50 }, () => mintermCase(rnd))];
+  const cases = [
+    ...Array.from({ length: 170 }, () => cubeCase(rnd)),
+    ...Array.from({ length: 50 }, () => mintermCase(rnd)),
+  ];
   // The reference minimises terms first, then literals; price ours the same way.
   const lexicographic = { term: 1000, literal: 1, connection: 0 };
 

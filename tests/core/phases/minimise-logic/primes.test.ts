@@ -13,7 +13,9 @@ const contains = (a: string, b: string): boolean => [...a].every((ch, i) => ch =
 
 function brutePrimes(n: number, allowed: Set<number>[]): Map<string, number[]> {
   const cubes = allCubes(n);
-  const tag = new Map(cubes.map((c) => [c, allowed.map((a, j) => (mintermsOf(c).every((x) => a.has(x)) ? j : -1)).filter((j) => j >= 0)]));
+  const tag = new Map(
+    cubes.map((c) => [c, allowed.map((a, j) => (mintermsOf(c).every((x) => a.has(x)) ? j : -1)).filter((j) => j >= 0)]),
+  );
   const out = new Map<string, number[]>();
   for (const c of cubes) {
     const t = tag.get(c)!;
@@ -30,7 +32,10 @@ describe('core/phases/minimise-logic/primes', () => {
       fc.property(fc.integer({ min: 1, max: 6 }), fc.integer({ min: 0, max: 2 ** 31 - 1 }), (n, seed) => {
         const f = randomMintermFunction(seededRandom(seed), n, 1, 0.5, 0.15);
         const sp = makeSpace(n, 1);
-        const got = primesOf(sp, [...f.on[0], ...f.dc[0]].map((c) => parseInput(sp, c))).map((c) => formatInput(sp, c));
+        const got = primesOf(
+          sp,
+          [...f.on[0], ...f.dc[0]].map((c) => parseInput(sp, c)),
+        ).map((c) => formatInput(sp, c));
         expect(got.sort()).toEqual([...brutePrimes(n, tables(f).allowed).keys()].sort());
       }),
       { seed: 42, numRuns: 120 },
@@ -39,13 +44,18 @@ describe('core/phases/minimise-logic/primes', () => {
 
   it('multi-output primes and their tags equal the definition', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 4 }), fc.integer({ min: 2, max: 4 }), fc.integer({ min: 0, max: 2 ** 31 - 1 }), (n, m, seed) => {
-        const f = randomMintermFunction(seededRandom(seed), n, m, 0.5, 0.2);
-        const sp = makeSpace(n, m);
-        const allowed = f.on.map((cs, j) => [...cs, ...f.dc[j]].map((c) => parseInput(sp, c)));
-        const got = new Map(multiOutputPrimes(sp, allowed)!.map((p) => [formatInput(sp, p.cube), [...p.tag]]));
-        expect(got).toEqual(brutePrimes(n, tables(f).allowed));
-      }),
+      fc.property(
+        fc.integer({ min: 1, max: 4 }),
+        fc.integer({ min: 2, max: 4 }),
+        fc.integer({ min: 0, max: 2 ** 31 - 1 }),
+        (n, m, seed) => {
+          const f = randomMintermFunction(seededRandom(seed), n, m, 0.5, 0.2);
+          const sp = makeSpace(n, m);
+          const allowed = f.on.map((cs, j) => [...cs, ...f.dc[j]].map((c) => parseInput(sp, c)));
+          const got = new Map(multiOutputPrimes(sp, allowed)!.map((p) => [formatInput(sp, p.cube), [...p.tag]]));
+          expect(got).toEqual(brutePrimes(n, tables(f).allowed));
+        },
+      ),
       { seed: 42, numRuns: 120 },
     );
   });

@@ -13,7 +13,10 @@ describe('core/phases/minimise-logic/tidy', () => {
     fc.assert(
       fc.property(coverArb, ({ n, cubes }) => {
         const sp = makeSpace(n, 1);
-        const out = compact(sp, cubes.map((c) => parseInput(sp, c))).map((c) => formatInput(sp, c));
+        const out = compact(
+          sp,
+          cubes.map((c) => parseInput(sp, c)),
+        ).map((c) => formatInput(sp, c));
         expect(truth(out, n)).toEqual(truth(cubes, n));
         expect(out.length).toBeLessThanOrEqual(cubes.length);
       }),
@@ -32,10 +35,19 @@ describe('core/phases/minimise-logic/tidy', () => {
       fc.property(smallCoverArb, smallCoverArb, ({ n, cubes }, other) => {
         const sp = makeSpace(n, 1);
         const minus = other.cubes.map((c) => (c + '-'.repeat(n)).slice(0, n));
-        const out = subtractCover(sp, cubes.map((c) => parseInput(sp, c)), minus.map((c) => parseInput(sp, c)))!;
+        const out = subtractCover(
+          sp,
+          cubes.map((c) => parseInput(sp, c)),
+          minus.map((c) => parseInput(sp, c)),
+        )!;
         const a = truth(cubes, n);
         const b = truth(minus, n);
-        expect(truth(out.map((c) => formatInput(sp, c)), n)).toEqual(a.map((x, i) => x & (1 - b[i])));
+        expect(
+          truth(
+            out.map((c) => formatInput(sp, c)),
+            n,
+          ),
+        ).toEqual(a.map((x, i) => x & (1 - b[i])));
       }),
       { seed: 42, numRuns: 150 },
     );

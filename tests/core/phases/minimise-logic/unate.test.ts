@@ -1,7 +1,12 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import { makeSpace, parseInput, formatInput } from '../../../../src/core/phases/minimise-logic/bitcube.js';
-import { tautology, complement, cubeCovered, supercubeOfComplement } from '../../../../src/core/phases/minimise-logic/unate.js';
+import {
+  tautology,
+  complement,
+  cubeCovered,
+  supercubeOfComplement,
+} from '../../../../src/core/phases/minimise-logic/unate.js';
 import { seededRandom } from '../../../../src/core/model/random.js';
 import { mintermsOf, randomCube, truth, coverOf } from './brute.js';
 
@@ -15,7 +20,12 @@ describe('core/phases/minimise-logic/unate', () => {
     fc.assert(
       fc.property(coverArb, ({ n, cubes }) => {
         const sp = makeSpace(n, 1);
-        expect(tautology(sp, cubes.map((c) => parseInput(sp, c)))).toBe(truth(cubes, n).every((b) => b === 1));
+        expect(
+          tautology(
+            sp,
+            cubes.map((c) => parseInput(sp, c)),
+          ),
+        ).toBe(truth(cubes, n).every((b) => b === 1));
       }),
       { seed: 42, numRuns: 200 },
     );
@@ -25,7 +35,10 @@ describe('core/phases/minimise-logic/unate', () => {
     fc.assert(
       fc.property(smallCoverArb, ({ n, cubes }) => {
         const sp = makeSpace(n, 1);
-        const comp = complement(sp, cubes.map((c) => parseInput(sp, c)))!.map((c) => formatInput(sp, c));
+        const comp = complement(
+          sp,
+          cubes.map((c) => parseInput(sp, c)),
+        )!.map((c) => formatInput(sp, c));
         const on = truth(cubes, n);
         const off = truth(comp, n);
         for (let x = 0; x < 2 ** n; x++) expect(off[x]).toBe(1 - on[x]);
@@ -39,8 +52,19 @@ describe('core/phases/minimise-logic/unate', () => {
     const n = 20;
     const cubes = Array.from({ length: 10 }, (_, i) => '-'.repeat(2 * i) + '11' + '-'.repeat(n - 2 * i - 2));
     const sp = makeSpace(n, 1);
-    expect(complement(sp, cubes.map((c) => parseInput(sp, c)), { left: 100 })).toBeNull();
-    expect(complement(sp, cubes.map((c) => parseInput(sp, c)))!.length).toBeGreaterThanOrEqual(1024);
+    expect(
+      complement(
+        sp,
+        cubes.map((c) => parseInput(sp, c)),
+        { left: 100 },
+      ),
+    ).toBeNull();
+    expect(
+      complement(
+        sp,
+        cubes.map((c) => parseInput(sp, c)),
+      )!.length,
+    ).toBeGreaterThanOrEqual(1024);
   });
 
   it('cubeCovered agrees with enumeration', () => {
@@ -50,7 +74,13 @@ describe('core/phases/minimise-logic/unate', () => {
         const c = randomCube(seededRandom(seed), n, seededRandom(seed + 1).int(n + 1));
         const t = truth(cubes, n);
         const inside = mintermsOf(c).every((x) => t[x] === 1);
-        expect(cubeCovered(sp, cubes.map((d) => parseInput(sp, d)), parseInput(sp, c))).toBe(inside);
+        expect(
+          cubeCovered(
+            sp,
+            cubes.map((d) => parseInput(sp, d)),
+            parseInput(sp, c),
+          ),
+        ).toBe(inside);
       }),
       { seed: 42, numRuns: 200 },
     );
@@ -60,7 +90,10 @@ describe('core/phases/minimise-logic/unate', () => {
     fc.assert(
       fc.property(smallCoverArb, ({ n, cubes }) => {
         const sp = makeSpace(n, 1);
-        const s = supercubeOfComplement(sp, cubes.map((c) => parseInput(sp, c)));
+        const s = supercubeOfComplement(
+          sp,
+          cubes.map((c) => parseInput(sp, c)),
+        );
         const on = truth(cubes, n);
         const missing = [...Array(2 ** n).keys()].filter((x) => on[x] === 0);
         if (missing.length === 0) {
