@@ -1,6 +1,7 @@
 /**
  * Browser benchmark of the web designer (wired into `npm run bench` by bench/run.ts): the
- * production build served on 127.0.0.1, Debian's chromium headless. Measures, in the page's
+ * production build served on 127.0.0.1, headless Chromium started by the browser tests' helper
+ * (tests/web/chromium.ts: the npm package @sparticuz/chromium). Measures, in the page's
  * own clock, the first load (to the sketch drawn and to the build checked) and, for the
  * largest example and a 16-state machine, the time from a keystroke to the updated sketch,
  * to the updated build and to the finished checks. Each keystroke figure is the median of
@@ -15,10 +16,11 @@ import { performance } from 'node:perf_hooks';
 import type { Page } from 'playwright-core';
 import { machineFromJson } from '../src/core/forms/json.js';
 import { printTextMachine } from '../src/core/forms/text.js';
-import { buildDesigner, launchChromium } from '../src/web/browser.js';
+import { buildDesigner } from '../src/web/browser.js';
 import { serveStatic } from '../src/web/serve.js';
 import { machineHash } from '../src/web/controllers/link.js';
 import { buildJob, readJob } from '../src/web/worker/jobs.js';
+import { launchChromium } from '../tests/web/chromium.js';
 
 export interface WebRow {
   readonly name: string;
@@ -41,7 +43,7 @@ async function whenAnswered(page: Page, job: number, stage: 'read' | 'built' | '
     ([j, st]) => {
       const app = document.querySelector('lw-app') as HTMLElement | null;
       const drawn = app?.shadowRoot?.querySelector('lw-diagram') as HTMLElement | null;
-      if (!app || Number(app.dataset[st as string]) < (j as number)) return false;
+      if (!app || Number(app.dataset[st as string]) < j) return false;
       if (st === 'read' && Number(drawn?.dataset.drawn ?? 0) < 1) return false;
       return performance.now();
     },
@@ -107,7 +109,7 @@ async function keystrokes(
   for (let i = 0; i < KEYSTROKES; i++) {
     await page.keyboard.press('x');
     job++;
-    const t0 = (await page.evaluate(() => (window as unknown as { lwKey: number }).lwKey)) as number;
+    const t0 = await page.evaluate(() => (window as unknown as { lwKey: number }).lwKey);
     sketch.push((await whenAnswered(page, job, 'read')) - t0);
     build.push((await whenAnswered(page, job, 'built')) - t0);
     checks.push((await whenAnswered(page, job, 'checked')) - t0);

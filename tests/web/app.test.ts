@@ -1,6 +1,7 @@
 /**
- * The designer end to end in a real browser (Debian's chromium, headless, driven by
- * playwright-core) against the production build served on 127.0.0.1 by the test itself.
+ * The designer end to end in a real browser (headless Chromium from the npm package
+ * @sparticuz/chromium, started by ./chromium.ts and driven by playwright-core) against the
+ * production build served on 127.0.0.1 by the test itself.
  * Expected values come from the core run in Node on the same text — the CLI's own wording of
  * a diagnostic (formatDiagnostic), the abstract machine (runAbstract) for the state after
  * each clock, the part-level runner for the latches a broken rule upsets — so the page is
@@ -21,8 +22,10 @@ import { runAbstract } from '../../src/core/sim/abstract.js';
 import { createRunner } from '../../src/core/sim/runner.js';
 import { isAlarm, timingOf } from '../../src/core/sim/part.js';
 import { RULE_WORDS } from '../../src/core/sim/hand.js';
-import { buildDesigner, launchChromium } from '../../src/web/browser.js';
+import { buildDesigner } from '../../src/web/browser.js';
 import { serveStatic, type Served } from '../../src/web/serve.js';
+import { machineHash } from '../../src/web/controllers/link.js';
+import { launchChromium } from './chromium.js';
 
 const SHOTS = fileURLToPath(new URL('../../docs/screenshots/', import.meta.url));
 const EXAMPLE = readFileSync(fileURLToPath(new URL('../../examples/marble-bell.lw', import.meta.url)), 'utf8');
@@ -226,6 +229,10 @@ describe('src/web (end to end in chromium)', () => {
   });
 
   it('carries the machine in a link that opens it elsewhere', async () => {
+    // The page writes the link a moment after the text changes (the hash delay of
+    // controllers/source.ts): wait for it to carry the text on the bench.
+    const hash = machineHash(await editor().inputValue());
+    await page.waitForURL((u) => u.hash === hash);
     const url = page.url();
     expect(url).toContain('#m=');
     const other = await context.browser()?.newContext({ viewport: { width: 1280, height: 800 }, colorScheme: 'dark' });
