@@ -8,7 +8,8 @@
  * Postconditions: the same input gives byte-identical files; every user-given name is
  * escaped for each format (escape.ts, csv.ts, JSON.stringify).
  */
-import { billOfMaterials, bomCsv } from '../physics/bom.js';
+import { billOfMaterials } from '../physics/bom.js';
+import { bomCsv } from './bom-csv.js';
 import { buildSheetHtml } from './build-sheet-html.js';
 import { buildSheetMd } from './build-sheet-md.js';
 import type { DocumentsInput } from './build-sheet.js';
