@@ -112,7 +112,11 @@ export function encode(
     };
   }
   const r = ENCODING_RUNS[entry.name](f, read.pins, opts);
-  return { ...r, diagnostics: [...diagnostics, ...r.diagnostics] };
+  return {
+    ...(r.encoding ? { encoding: r.encoding } : {}),
+    diagnostics: [...diagnostics, ...r.diagnostics],
+    ...(r.search ? { search: r.search } : {}),
+  };
 }
 
 function checkOptions(o: EncodeOptions): Diagnostic[] {
