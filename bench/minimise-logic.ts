@@ -14,8 +14,8 @@ import {
   type MultiFunction,
   type MinimiserMethod,
 } from '../src/core/phases/minimise-logic/index.js';
-import { seededRandom, type Random } from '../src/core/model/random.js';
-import { literalCount, subtract } from '../src/core/model/cube.js';
+import { type Random, seededRandom } from '../src/core/index.js';
+import { literalCount, subtract } from '../src/core/model/index.js';
 
 export interface MinimiserBenchRow {
   readonly name: string;

@@ -5,22 +5,28 @@
 import { writeFileSync, readFileSync, readdirSync } from 'node:fs';
 import os from 'node:os';
 import { createActor, createMachine } from 'xstate';
-import { analyse, buildMachine, type Analysed, type Built } from '../src/core/pipeline.js';
-import { randomFlatMachine } from '../src/core/sim/random-machine.js';
-import { machineToJson } from '../src/core/forms/json.js';
-import { printCubes } from '../src/core/forms/expr.js';
-import type { FlatMachine } from '../src/core/model/flat.js';
-import { createRunner } from '../src/core/sim/runner.js';
-import { timingOf } from '../src/core/sim/part.js';
-import { DEFAULT_PROFILE } from '../src/core/physics/profile.js';
-import { exportXstate, clockEvent } from '../src/core/forms/xstate.js';
-import { checkEquivalence } from '../src/core/checks/equivalence.js';
-import { checkForbiddenInput } from '../src/core/checks/forbidden-input.js';
-import { checkRecovery } from '../src/core/checks/recovery.js';
-import { checkDrive } from '../src/core/physics/check-drive.js';
-import { billOfMaterials } from '../src/core/physics/bom.js';
-import { driveSnapshots } from '../src/core/sim/snapshots.js';
-import { seededRandom } from '../src/core/model/random.js';
+import {
+  analyse,
+  type Analysed,
+  billOfMaterials,
+  buildMachine,
+  type Built,
+  checkDrive,
+  checkEquivalence,
+  checkForbiddenInput,
+  checkRecovery,
+  clockEvent,
+  createRunner,
+  DEFAULT_PROFILE,
+  driveSnapshots,
+  exportXstate,
+  type FlatMachine,
+  machineToJson,
+  printCubes,
+  randomFlatMachine,
+  seededRandom,
+  timingOf,
+} from '../src/core/index.js';
 import { benchMinimiseLogic } from './minimise-logic.js';
 import { median } from './median.js';
 

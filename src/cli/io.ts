@@ -2,10 +2,10 @@
 import { readFileSync } from 'node:fs';
 
 export interface CliIo {
-  out(s: string): void;
-  err(s: string): void;
+  readonly out: (s: string) => void;
+  readonly err: (s: string) => void;
   /** Read a file as UTF-8, or return an error message. */
-  readText(path: string): { text: string } | { error: string };
+  readonly readText: (path: string) => { text: string } | { error: string };
   /** True when standard input and output are a terminal (interactive stepping). */
   readonly interactive: boolean;
 }

@@ -1,6 +1,7 @@
 /**
- * The `latchwright` command: a thin shell over src/core. Exit status: 0 all good,
- * 1 a check failed, 2 bad input (diagnostics printed, never a stack trace).
+ * The `latchwright` command: a thin shell over src/core. Exit statuses are defined once, in
+ * exit.ts (diagnostics printed, never a stack trace). The usage text lists the encodings of
+ * the core's encodings registry.
  */
 import { parseArgs } from './args.js';
 import { runCheck } from './commands/check.js';
@@ -9,10 +10,11 @@ import { runCompare } from './commands/compare.js';
 import { runStepCommand } from './commands/step.js';
 import { runDemo } from './commands/demo.js';
 import { reportFailure } from './commands/common.js';
-import { diag, didYouMean } from '../core/model/diagnostics.js';
+import { DEFAULT_ENCODING, diag, didYouMean, ENCODING_REGISTRY } from '../core/index.js';
 import { nodeIo, type CliIo } from './io.js';
+import { EXIT, exitStatusText } from './exit.js';
 
-export const EXIT = { ok: 0, checkFailed: 1, badInput: 2 } as const;
+export { EXIT } from './exit.js';
 
 const USAGE = `latchwright — design, prove and commission lever-and-capstan state machines
 
@@ -33,8 +35,15 @@ Usage:
   latchwright demo
       Build and check the bundled demo machine and print its report.
 
-Encodings: binary, gray, johnson, one-hot, pinned, auto (default auto).
-Exit status: 0 all good, 1 a check failed, 2 bad input.`;
+Encodings (--encoding NAME, default ${DEFAULT_ENCODING}):
+${encodingLines()}
+Exit status: ${exitStatusText()}.`;
+
+/** One line per registered encoding: its name and what its codes are. */
+function encodingLines(): string {
+  const width = Math.max(...ENCODING_REGISTRY.map((e) => e.name.length));
+  return ENCODING_REGISTRY.map((e) => `  ${e.name.padEnd(width)}  ${e.label}`).join('\n');
+}
 
 const SPEC = {
   values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out'],
@@ -74,15 +83,15 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promi
   try {
     switch (args.command) {
       case 'check':
-        return await runCheck(args, io);
+        return runCheck(args, io);
       case 'build':
-        return await runBuild(args, io);
+        return runBuild(args, io);
       case 'compare':
-        return await runCompare(args, io);
+        return runCompare(args, io);
       case 'step':
         return await runStepCommand(args, io);
       case 'demo':
-        return await runDemo(args, io);
+        return runDemo(args, io);
       default:
         reportFailure(
           [

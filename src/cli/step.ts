@@ -3,17 +3,27 @@
  * JSON) or interactive (one keypress per hand action, the screen redrawn after each). The
  * behaviour lives in src/core/sim (runner, script); this file only reads keys and draws.
  */
-import { formatDiagnostic } from '../core/model/diagnostics.js';
-import type { Build } from '../core/model/build.js';
-import type { SpecInfo } from '../core/checks/clocking.js';
-import { DEFAULT_PROFILE, type Profile } from '../core/physics/profile.js';
-import { stepAbstract } from '../core/sim/abstract.js';
-import { assignmentOf, type HandAction } from '../core/sim/hand.js';
-import { timingOf } from '../core/sim/part.js';
-import { createRunner, type PartRunner } from '../core/sim/runner.js';
-import { runAbstractScript, runPartScript, validateSequence, type SeqArray, type StepRow } from '../core/sim/script.js';
+import {
+  assignmentOf,
+  type Build,
+  createRunner,
+  DEFAULT_PROFILE,
+  formatDiagnostic,
+  type HandAction,
+  type PartRunner,
+  type Profile,
+  runAbstractScript,
+  runPartScript,
+  type SeqArray,
+  type SpecInfo,
+  stepAbstract,
+  type StepRow,
+  timingOf,
+  validateSequence,
+} from '../core/index.js';
+import { EXIT } from './exit.js';
 
-export type { SeqArray, ShownValue, StepRow } from '../core/sim/script.js';
+export type { SeqArray, ShownValue, StepRow } from '../core/index.js';
 
 export interface StepOptions {
   /** The parsed sequence file (scripted mode); absent: interactive. */
@@ -28,33 +38,33 @@ export interface StepOptions {
 }
 
 export interface StepIo {
-  write(s: string): void;
+  readonly write: (s: string) => void;
   /** Where problems go (default: write). */
-  error?(s: string): void;
+  readonly error?: (s: string) => void;
   /** Keypresses, one string per key (interactive mode only). */
   readKeys?: () => AsyncIterable<string>;
 }
 
-/** Step a build; returns the exit status (0 fine, 1 an alarm was raised, 2 bad input). */
+/** Step a build; returns the exit status (EXIT.ok; EXIT.checkFailed when an alarm was raised; EXIT.badInput). */
 export async function runStep(build: Build, spec: SpecInfo, opts: StepOptions, io: StepIo): Promise<number> {
   const err = (s: string): void => (io.error ?? io.write)(s);
   if (opts.inputsFile !== undefined) {
     const problems = validateSequence(build, opts.inputsFile, opts.inputsPath);
     if (problems.length > 0) {
       for (const d of problems) err(formatDiagnostic(d) + '\n');
-      return 2;
+      return EXIT.badInput;
     }
     const rows = opts.abstract
       ? runAbstractScript(build, opts.inputsFile)
       : runPartScript(build, opts.inputsFile, timingOf(opts.profile ?? DEFAULT_PROFILE));
     io.write(opts.json ? JSON.stringify(rows, null, 2) + '\n' : formatRows(build, rows));
-    return rows.some((r) => r.alarms.length > 0 && !opts.abstract) ? 1 : 0;
+    return rows.some((r) => r.alarms.length > 0 && !opts.abstract) ? EXIT.checkFailed : EXIT.ok;
   }
   if (!io.readKeys) {
     err(
       'latchwright step: not at a terminal; give the clocks with --inputs FILE (a JSON array, one object of input settings per clock)\n',
     );
-    return 2;
+    return EXIT.badInput;
   }
   return interactive(build, spec, opts, io.readKeys(), io.write);
 }
@@ -144,8 +154,9 @@ async function interactive(
         ],
       }),
     );
-    const { value: key, done } = await it.next();
-    if (done || QUIT_KEYS.has(key)) return 0;
+    const next = await it.next();
+    if (next.done === true || QUIT_KEYS.has(next.value)) return EXIT.ok;
+    const key = next.value;
     const i = ik.indexOf(key);
     if (i >= 0 && i < m.inputs.length) message = stepper.apply({ toggle: m.inputs[i] });
     else if (key === KEYS.phi1 || key === KEYS.phi2) message = stepper.apply(key === KEYS.phi1 ? 'phi1' : 'phi2');

@@ -29,7 +29,7 @@ import {
   type Stats,
 } from 'node:fs';
 import { basename, dirname, isAbsolute, join, resolve } from 'node:path';
-import { diag, type Diagnostic } from '../core/model/diagnostics.js';
+import { diag, type Diagnostic } from '../core/index.js';
 
 /** The file that marks a folder as made by `latchwright build`. */
 export const BUILD_MARKER = '.latchwright-build';

@@ -7,10 +7,7 @@
  * a newer job of the same kind can overtake; every answer carries the page revision it is for.
  * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
  */
-import type { Built } from '../core/pipeline.js';
-import type { Progress } from '../core/phases/encode/cost.js';
-import { analyse } from '../core/pipeline.js';
-import { schematicSvg } from '../core/export/schematic-svg.js';
+import { analyse, type Built, type Progress, schematicSvg } from '../core/index.js';
 import { buildJob, checkJob, compareJob, readJob } from './worker/jobs.js';
 import { exportFile } from './worker/exports.js';
 import type { FromWorker, ToWorker } from './worker/protocol.js';

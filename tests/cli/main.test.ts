@@ -7,22 +7,28 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { EXIT, main } from '../../src/cli/main.js';
+import { EXIT_MEANINGS } from '../../src/cli/exit.js';
+import { DEFAULT_ENCODING, ENCODING_REGISTRY } from '../../src/core/index.js';
 import type { CliIo } from '../../src/cli/io.js';
 import { expectNoStack, run } from './support.js';
 
 const COMMANDS = ['check', 'build', 'compare', 'step', 'demo'];
 
 describe('cli/main', () => {
-  it('exit statuses are 0 all good, 1 a check failed, 2 bad input', () => {
+  it('exit statuses are 0 all good, 1 a check failed, 2 bad input, each meaning given once', () => {
     expect(EXIT).toEqual({ ok: 0, checkFailed: 1, badInput: 2 });
+    expect(EXIT_MEANINGS.map((e) => e.status)).toEqual([0, 1, 2]);
   });
 
-  it('--help and -h print the usage, naming every command and every encoding, exit 0', async () => {
+  it('--help and -h print the usage, naming every command and every encoding of the registry, exit 0', async () => {
     for (const flag of ['--help', '-h']) {
       const r = await run([flag]);
       expect(r.code).toBe(0);
       for (const c of COMMANDS) expect(r.out).toContain(`latchwright ${c}`);
-      expect(r.out).toContain('binary, gray, johnson, one-hot, pinned, auto');
+      expect(r.out).toContain(`Encodings (--encoding NAME, default ${DEFAULT_ENCODING}):`);
+      const listed = r.out.split('\n').filter((l) => /^ {2}[a-z-]+ {2,}\S/.test(l));
+      expect(listed.map((l) => l.trim().split(/\s+/)[0])).toEqual(ENCODING_REGISTRY.map((e) => e.name));
+      expect(r.out).toContain('  one-hot  one latch per state\n');
       expect(r.out).toContain('Exit status: 0 all good, 1 a check failed, 2 bad input.');
       expect(r.err).toBe('');
     }

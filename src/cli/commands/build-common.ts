@@ -1,9 +1,22 @@
 /** Loading a machine and a profile, and building it, for the commands that build. */
-import { analyse, buildMachine, type Built, type BuildOptions } from '../../core/pipeline.js';
-import { diag, didYouMean, formatDiagnostic, hasErrors, type Diagnostic } from '../../core/model/diagnostics.js';
-import { loadProfile } from '../../core/physics/profile-load.js';
-import { DEFAULT_PROFILE, type Profile } from '../../core/physics/profile.js';
-import { ENCODINGS, type EncodeStrategy } from '../../core/phases/encode/index.js';
+import {
+  analyse,
+  buildMachine,
+  type BuildOptions,
+  type Built,
+  DEFAULT_ENCODING,
+  DEFAULT_PROFILE,
+  diag,
+  type Diagnostic,
+  didYouMean,
+  encodingEntry,
+  ENCODINGS,
+  type EncodeStrategy,
+  formatDiagnostic,
+  hasErrors,
+  loadProfile,
+  type Profile,
+} from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
 import { loadSource, readFileArg } from './common.js';
@@ -84,12 +97,13 @@ export function seedFrom(args: ParsedArgs): number | undefined | Diagnostic {
   );
 }
 
-/** The --encoding option (default auto), or LW700 naming the encodings there are. */
+/** The --encoding option (default DEFAULT_ENCODING), or LW700 naming the encodings of the registry. */
 export function encodingFrom(args: ParsedArgs): EncodeStrategy | Diagnostic {
   const raw = args.flags.encoding;
-  if (raw === undefined) return 'auto';
+  if (raw === undefined) return DEFAULT_ENCODING;
   const name = String(raw);
-  if ((ENCODINGS as readonly string[]).includes(name)) return name as EncodeStrategy;
+  const known = encodingEntry(name);
+  if (known) return known.name;
   const guess = didYouMean(name, ENCODINGS);
   return diag(
     'LW700',

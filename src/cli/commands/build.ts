@@ -1,18 +1,18 @@
 /** `latchwright build FILE`: synthesise, check, and report (or write the build documents). */
-import { buildReport, equationTexts } from '../../core/report.js';
-import type { Built } from '../../core/pipeline.js';
+import { buildReport, type Built, equationTexts } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
 import { buildFromArgs, printDiagnostics } from './build-common.js';
-import { EXIT_BAD_INPUT, EXIT_CHECK_FAILED, EXIT_OK, reportFailure } from './common.js';
+import { EXIT } from '../exit.js';
+import { reportFailure } from './common.js';
 import { writeDocuments } from './out.js';
 
-export async function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
+export function runBuild(args: ParsedArgs, io: CliIo): number {
   const json = args.flags.json === true;
   const r = buildFromArgs(args, io);
   if (!r.ok) {
     reportFailure(r.diagnostics, io, json);
-    return EXIT_BAD_INPUT;
+    return EXIT.badInput;
   }
   const b = r.built;
   printDiagnostics(r.diagnostics, io, json);
@@ -21,13 +21,13 @@ export async function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
     const w = writeDocuments(b, args.flags.out, args.flags.force === true);
     if (!w.ok) {
       reportFailure([w.diagnostic], io, json);
-      return EXIT_BAD_INPUT;
+      return EXIT.badInput;
     }
     if (!json) io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);
   }
   if (json) io.out(JSON.stringify(buildReport(b), null, 2) + '\n');
   else io.out(textReport(b));
-  return ok ? EXIT_OK : EXIT_CHECK_FAILED;
+  return ok ? EXIT.ok : EXIT.checkFailed;
 }
 
 /** The terminal report: short, in the workshop's words. */

@@ -1,15 +1,15 @@
 /** `latchwright check FILE`: diagnostics, state counts and the merge map. */
-import { analyse } from '../../core/pipeline.js';
-import { formatDiagnostic } from '../../core/model/diagnostics.js';
+import { analyse, formatDiagnostic } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
-import { EXIT_BAD_INPUT, EXIT_OK, loadSource, machineSummary, reportFailure } from './common.js';
+import { EXIT } from '../exit.js';
+import { loadSource, machineSummary, reportFailure } from './common.js';
 
-export async function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
+export function runCheck(args: ParsedArgs, io: CliIo): number {
   const src = loadSource(args, io);
   if (!src.ok) {
     reportFailure(src.diagnostics, io, args.flags.json === true);
-    return EXIT_BAD_INPUT;
+    return EXIT.badInput;
   }
   const a = analyse(src.text, src.file);
   const summary = a.ok ? machineSummary(a) : undefined;
@@ -40,5 +40,5 @@ export async function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
       }
     }
   }
-  return a.ok ? EXIT_OK : EXIT_BAD_INPUT;
+  return a.ok ? EXIT.ok : EXIT.badInput;
 }

@@ -1,13 +1,7 @@
 /** Pieces the commands share. */
-import type { Analysed } from '../../core/pipeline.js';
-import { machineBlock } from '../../core/report.js';
-import { diag, formatDiagnostic, type Diagnostic } from '../../core/model/diagnostics.js';
+import { type Analysed, diag, type Diagnostic, formatDiagnostic, machineBlock } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
-
-export const EXIT_OK = 0;
-export const EXIT_CHECK_FAILED = 1;
-export const EXIT_BAD_INPUT = 2;
 
 /**
  * Report a failure that stops a command: `{ ok: false, diagnostics }` on standard output with

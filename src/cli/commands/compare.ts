@@ -1,31 +1,32 @@
 /** `latchwright compare FILE`: every encoding side by side, the cheapest marked. */
-import { analyse, compareEncodings } from '../../core/pipeline.js';
+import { analyse, compareEncodings } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
 import { profileFrom, seedFrom } from './build-common.js';
-import { EXIT_BAD_INPUT, EXIT_OK, loadSource, reportFailure } from './common.js';
+import { EXIT } from '../exit.js';
+import { loadSource, reportFailure } from './common.js';
 
-export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
+export function runCompare(args: ParsedArgs, io: CliIo): number {
   const json = args.flags.json === true;
   const src = loadSource(args, io);
   if (!src.ok) {
     reportFailure(src.diagnostics, io, json);
-    return EXIT_BAD_INPUT;
+    return EXIT.badInput;
   }
   const prof = profileFrom(args, io);
   if ('error' in prof) {
     reportFailure(prof.error, io, json);
-    return EXIT_BAD_INPUT;
+    return EXIT.badInput;
   }
   const seed = seedFrom(args);
   if (typeof seed === 'object') {
     reportFailure([seed], io, json);
-    return EXIT_BAD_INPUT;
+    return EXIT.badInput;
   }
   const a = analyse(src.text, src.file);
   if (!a.ok) {
     reportFailure(a.diagnostics, io, json);
-    return EXIT_BAD_INPUT;
+    return EXIT.badInput;
   }
   const rows = compareEncodings(a, { profile: prof.profile, seed });
   if (json) {
@@ -40,7 +41,7 @@ export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
         : r,
     );
     io.out(JSON.stringify({ machine: a.machine.name, encodings: named }, null, 2) + '\n');
-    return EXIT_OK;
+    return EXIT.ok;
   }
   const head = [
     'encoding',
@@ -82,5 +83,5 @@ export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
   io.out(`${a.machine.name}: ${n} ${n === 1 ? 'state' : 'states'} after minimisation\n`);
   io.out(line(head) + '\n');
   for (const row of table) io.out(line(row) + '\n');
-  return EXIT_OK;
+  return EXIT.ok;
 }

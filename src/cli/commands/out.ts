@@ -1,7 +1,5 @@
-/** `build --out DIR`: the build documents, written atomically. */
-import { buildDocuments } from '../../core/export/index.js';
-import type { Diagnostic } from '../../core/model/diagnostics.js';
-import type { Built } from '../../core/pipeline.js';
+/** `build --out DIR`: every document of the core's documents registry, written atomically. */
+import { buildDocuments, type Built, type Diagnostic } from '../../core/index.js';
 import { writeBuildFolder } from '../write-out.js';
 
 export function writeDocuments(

@@ -3,8 +3,9 @@ import { runStep, terminalKeys, type SeqArray } from '../step.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
 import { buildFromArgs } from './build-common.js';
-import { EXIT_BAD_INPUT, readFileArg, reportFailure } from './common.js';
-import { diag } from '../../core/model/diagnostics.js';
+import { EXIT } from '../exit.js';
+import { readFileArg, reportFailure } from './common.js';
+import { diag } from '../../core/index.js';
 
 export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<number> {
   const json = args.flags.json === true;
@@ -14,7 +15,7 @@ export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<numbe
     const r = readFileArg(file, io);
     if (!r.ok) {
       reportFailure(r.diagnostics, io, false);
-      return EXIT_BAD_INPUT;
+      return EXIT.badInput;
     }
     try {
       sequence = JSON.parse(r.text) as SeqArray;
@@ -32,13 +33,13 @@ export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<numbe
         io,
         false,
       );
-      return EXIT_BAD_INPUT;
+      return EXIT.badInput;
     }
   }
   const b = buildFromArgs(args, io, { checks: false });
   if (!b.ok) {
     reportFailure(b.diagnostics, io, false);
-    return EXIT_BAD_INPUT;
+    return EXIT.badInput;
   }
   const built = b.built;
   const spec = { original: built.analysed.flat, merged: built.analysed.minimised.merged };

@@ -8,10 +8,9 @@
  * drum), and the pins and pulleys of each branch's routing allowance (one pin per quarter
  * turn of redirection, an estimate: a pin rarely turns a cord further).
  * Postcondition: rows with a count of zero are left out; numbers are rounded to what a
- * builder can cut or weigh (0.1 g, 1 mm).
+ * builder can cut or weigh (0.1 g, 1 mm). The CSV form of the rows is export/bom-csv.ts.
  */
 import type { Netlist } from '../model/netlist.js';
-import { recordsToCsv } from '../export/csv.js';
 import { routingFor } from './capstan.js';
 import type { Profile } from './profile.js';
 
@@ -31,53 +30,24 @@ export interface BomRow {
 const r1 = (x: number): number => Math.round(x * 10) / 10;
 const r3 = (x: number): number => Math.round(x * 1000) / 1000;
 
+/** Adds a row when its count is above zero, rounding the amounts with `round` (default 0.1). */
+type AddRow = (
+  item: string,
+  kind: BomRow['kind'],
+  count: number,
+  each: number,
+  unit: string,
+  note: string,
+  round?: (x: number) => number,
+) => void;
+
 /** Parts, weights, capstans, cord and routing hardware, in that order. */
 export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
   const rows: BomRow[] = [];
-  const add = (
-    item: string,
-    kind: BomRow['kind'],
-    count: number,
-    each: number,
-    unit: string,
-    note: string,
-    round = r1,
-  ): void => {
+  const add: AddRow = (item, kind, count, each, unit, note, round = r1) => {
     if (count > 0) rows.push({ item, kind, count, each: round(each), unit, total: round(count * each), note });
   };
-  const levers = netlist.parts.flatMap((p) => (p.kind === 'lever' ? [p] : []));
-  const gates = netlist.parts.flatMap((p) => (p.kind === 'gate' ? [p] : []));
-  const portLevers = gates.reduce((n, g) => n + (g.ports.length > 1 ? g.ports.length : 0), 0);
-  const byRole = (...roles: string[]): number => levers.filter((l) => roles.includes(l.role)).length;
-
-  add('operator lever', 'lever', byRole('input'), 1, 'piece', 'one per machine input; pulled = 1');
-  add('clock lever', 'lever', byRole('phi1', 'phi2'), 1, 'piece', 'φ1 then φ2, never together');
-  add('reset lever', 'lever', byRole('reset'), 1, 'piece', 'pull only with both clock levers released');
-  add('summing lever Z', 'lever', gates.length, 1, 'piece', 'one per gate; the hold end of its capstan');
-  add('port lever', 'lever', portLevers, 1, 'piece', "gates with two or more ports (a one-port gate's port is its Z)");
-  add(
-    'flag',
-    'indicator',
-    netlist.parts.filter((p) => p.kind === 'flag').length,
-    1,
-    'piece',
-    "mounted on a gate's Z lever",
-  );
-  for (const p of netlist.parts) {
-    if (p.kind === 'actuator') add(`actuator ${p.name}`, 'actuator', 1, p.loadG, 'g load', `shows output ${p.output}`);
-  }
-
-  add('port pull-up weight', 'weight', portLevers, profile.portWeightG, 'g', 'one per port lever');
-  add('Z weight', 'weight', gates.length, profile.zWeightG, 'g', 'one per gate; sets the capstan hold tension');
-  add(
-    'lever pull-up weight',
-    'weight',
-    levers.length,
-    profile.leverWeightG,
-    'g',
-    'one per operator, clock or reset lever',
-  );
-
+  addLeversAndWeights(netlist, profile, add);
   const drivers = new Set(netlist.cords.map((c) => c.driver));
   const capstans = netlist.parts.filter((p) => (p.kind === 'lever' || p.kind === 'gate') && drivers.has(p.id)).length;
   add('capstan', 'capstan', capstans, profile.wraps, 'turns', `μ = ${profile.mu} cord on drum`);
@@ -90,7 +60,36 @@ export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
     `radius ${profile.drumRadiusM} m at ${profile.drumRpm} rev/min; ${r3(profile.wrapPitchM)} m per wrap`,
     r3,
   );
+  addCordAndRouting(netlist, profile, capstans, add);
+  return rows;
+}
 
+/** Levers by kind, flags, actuators, then the weights that hang on them. */
+function addLeversAndWeights(netlist: Netlist, profile: Profile, add: AddRow): void {
+  const levers = netlist.parts.flatMap((p) => (p.kind === 'lever' ? [p] : []));
+  const gates = netlist.parts.flatMap((p) => (p.kind === 'gate' ? [p] : []));
+  const portLevers = gates.reduce((n, g) => n + (g.ports.length > 1 ? g.ports.length : 0), 0);
+  const byRole = (...roles: string[]): number => levers.filter((l) => roles.includes(l.role)).length;
+
+  add('operator lever', 'lever', byRole('input'), 1, 'piece', 'one per machine input; pulled = 1');
+  add('clock lever', 'lever', byRole('phi1', 'phi2'), 1, 'piece', 'φ1 then φ2, never together');
+  add('reset lever', 'lever', byRole('reset'), 1, 'piece', 'pull only with both clock levers released');
+  add('summing lever Z', 'lever', gates.length, 1, 'piece', 'one per gate; the hold end of its capstan');
+  add('port lever', 'lever', portLevers, 1, 'piece', "gates with two or more ports (a one-port gate's port is its Z)");
+  const flags = netlist.parts.filter((p) => p.kind === 'flag').length;
+  add('flag', 'indicator', flags, 1, 'piece', "mounted on a gate's Z lever");
+  for (const p of netlist.parts) {
+    if (p.kind === 'actuator') add(`actuator ${p.name}`, 'actuator', 1, p.loadG, 'g load', `shows output ${p.output}`);
+  }
+
+  add('port pull-up weight', 'weight', portLevers, profile.portWeightG, 'g', 'one per port lever');
+  add('Z weight', 'weight', gates.length, profile.zWeightG, 'g', 'one per gate; sets the capstan hold tension');
+  const leverNote = 'one per operator, clock or reset lever';
+  add('lever pull-up weight', 'weight', levers.length, profile.leverWeightG, 'g', leverNote);
+}
+
+/** Cord (branches and the wraps on the drum), redirect pins and pulleys. */
+function addCordAndRouting(netlist: Netlist, profile: Profile, capstans: number, add: AddRow): void {
   let branches = 0;
   let pins = 0;
   let pulleys = 0;
@@ -101,30 +100,10 @@ export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
     pins += n * Math.ceil(r.pinAngleRad / (Math.PI / 2) - 1e-9);
     pulleys += n * r.pulleys;
   }
-  add(
-    'cord branch',
-    'cord',
-    branches,
-    profile.cordBranchM,
-    'm',
-    `${netlist.cords.length} cords; length per branch is an allowance`,
-    r3,
-  );
-  add(
-    'capstan wrap cord',
-    'cord',
-    capstans,
-    profile.wraps * 2 * Math.PI * profile.drumRadiusM,
-    'm',
-    'cord wrapped on the drum per capstan',
-    r3,
-  );
+  const branchNote = `${netlist.cords.length} cords; length per branch is an allowance`;
+  add('cord branch', 'cord', branches, profile.cordBranchM, 'm', branchNote, r3);
+  const wrapM = profile.wraps * 2 * Math.PI * profile.drumRadiusM;
+  add('capstan wrap cord', 'cord', capstans, wrapM, 'm', 'cord wrapped on the drum per capstan', r3);
   add('redirect pin', 'routing', pins, 1, 'piece', 'one per quarter turn of redirection per branch (estimate)');
   add('pulley', 'routing', pulleys, 1, 'piece', `efficiency ${profile.routing.pulleyEfficiency} each`);
-  return rows;
-}
-
-/** The bill of materials as CSV with a header line. */
-export function bomCsv(rows: readonly BomRow[]): string {
-  return recordsToCsv<BomRow>(['item', 'kind', 'count', 'each', 'unit', 'total', 'note'], rows);
 }

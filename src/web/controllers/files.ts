@@ -3,11 +3,14 @@
  * xstate configurations become the text form, which the bench edits), writing the machine
  * in each form, and handing a text to the browser as a download.
  */
-import { readMachine } from '../../core/forms/detect.js';
-import { printTextMachine } from '../../core/forms/text.js';
-import { machineToJson } from '../../core/forms/json.js';
-import { exportXstate } from '../../core/forms/xstate.js';
-import { formatDiagnostic, hasErrors } from '../../core/model/diagnostics.js';
+import {
+  exportXstate,
+  formatDiagnostic,
+  hasErrors,
+  machineToJson,
+  printTextMachine,
+  readMachine,
+} from '../../core/index.js';
 
 /** What opening a file gives: text for the bench, or the reasons it could not be read. */
 export type Opened =

@@ -4,11 +4,19 @@
  * latch and flag after every hand action (the timing chart's data), and the alarms in words.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import type { Build } from '../../core/model/build.js';
-import type { Profile } from '../../core/physics/profile.js';
-import { createRunner, type PartRunner } from '../../core/sim/runner.js';
-import { phaseActions, resetActions, type ControlLever, type HandAction } from '../../core/sim/hand.js';
-import { timingOf, type PartEvent, type PartReading } from '../../core/sim/part.js';
+import {
+  type Build,
+  type ControlLever,
+  createRunner,
+  type HandAction,
+  type PartEvent,
+  type PartReading,
+  type PartRunner,
+  phaseActions,
+  type Profile,
+  resetActions,
+  timingOf,
+} from '../../core/index.js';
 
 /** One column of the timing chart: the machine after a hand action. */
 export interface Sample {

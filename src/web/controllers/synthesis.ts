@@ -8,7 +8,7 @@
  * encoding search); the reader never, its jobs being short.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import type { Diagnostic } from '../../core/model/diagnostics.js';
+import type { Diagnostic } from '../../core/index.js';
 import type {
   BuildSettings,
   BuildView,

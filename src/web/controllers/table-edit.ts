@@ -3,7 +3,7 @@
  * parser recorded (line and column of each guard, target and statement), so the rest of the
  * text — comments, layout, order — stays exactly as the user wrote it. Pure.
  */
-import type { State, Transition } from '../../core/model/machine.js';
+import type { State, Transition } from '../../core/index.js';
 import { lineStarts, offsetOf } from './text-marks.js';
 
 /** Replace text[from, to) by `insert`. */

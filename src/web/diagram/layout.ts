@@ -14,7 +14,7 @@
  * at a small cost in edge length.
  */
 import dagre from '@dagrejs/dagre';
-import type { Machine, OutBit } from '../../core/model/machine.js';
+import type { Machine, OutBit } from '../../core/index.js';
 
 /** Pixel width of one character of the diagram's monospaced 12 px text. */
 export const CHAR_W = 7.3;

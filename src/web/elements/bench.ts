@@ -5,7 +5,7 @@
  * `example` {index}, `copy-link`, `restore`, `dismiss`.
  */
 import { LitElement, css, html, nothing } from 'lit';
-import type { Diagnostic } from '../../core/model/diagnostics.js';
+import type { Diagnostic } from '../../core/index.js';
 import type { Notice } from '../controllers/source.js';
 import { EXAMPLES } from '../examples.js';
 import { shared } from '../styles/shared.js';

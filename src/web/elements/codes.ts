@@ -5,32 +5,18 @@
  * Events: `compare`, `cancel-search`, `choose` {choice}.
  */
 import { LitElement, css, html, nothing } from 'lit';
-import type { EncodeStrategy } from '../../core/phases/encode/index.js';
+import { encodingEntry, ENCODING_REGISTRY, type EncodeStrategy } from '../../core/index.js';
 import type { BuildView, CodeRow, EncodingChoice } from '../worker/protocol.js';
 import type { Search, SearchProgress } from '../controllers/synthesis.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
 
-const NAMES: Readonly<Record<EncodeStrategy, string>> = {
-  binary: 'counting order',
-  gray: 'one bit per step (Gray)',
-  johnson: 'twisted ring (Johnson)',
-  'one-hot': 'one latch per state',
-  pinned: 'pinned in the text',
-  auto: 'searched for fewest parts',
-};
+/** The encodings the picker offers: every registered one that does not need codes pinned in the text. */
+const PICKABLE = ENCODING_REGISTRY.filter((e) => !e.needsPins);
 
-/** Short names for the table. */
-const SHORT: Readonly<Record<EncodeStrategy, string>> = {
-  binary: 'counting',
-  gray: 'Gray',
-  johnson: 'Johnson',
-  'one-hot': 'one-hot',
-  pinned: 'pinned',
-  auto: 'searched',
-};
-
-const PICKABLE: readonly EncodeStrategy[] = ['binary', 'gray', 'johnson', 'one-hot', 'auto'];
+/** The designer's words for an encoding, and its short name for the table (both from the registry). */
+const label = (name: EncodeStrategy): string => encodingEntry(name)?.label ?? name;
+const short = (name: EncodeStrategy): string => encodingEntry(name)?.short ?? name;
 
 export class LwCodes extends LitElement {
   static override properties = {
@@ -117,16 +103,7 @@ export class LwCodes extends LitElement {
     return html`<section class="panel" aria-label="Encodings side by side">
         <h2>Encodings side by side</h2>
         <div class="bar">
-          <label
-            >Codes for the build
-            <select
-              aria-label="Encoding used for the build"
-              @change=${(e: Event) => emit(this, 'choose', { choice: { strategy: (e.target as HTMLSelectElement).value as EncodeStrategy } })}
-            >
-              ${PICKABLE.map((s) => html`<option value=${s} ?selected=${'strategy' in this.choice && this.choice.strategy === s}>${NAMES[s]}</option>`)}
-              ${'kept' in this.choice ? html`<option selected value="auto">kept from the comparison (${this.choice.kept.strategy})</option>` : nothing}
-            </select></label
-          >
+          ${this.picker()}
           ${
             this.search === 'running'
               ? html`<button @click=${() => emit(this, 'cancel-search', {})}>Stop pricing</button>${this.progressBar()}`
@@ -193,6 +170,20 @@ export class LwCodes extends LitElement {
       }`;
   }
 
+  /** The encoding the build uses: every registered encoding that needs no pinned codes, or the codes kept from a comparison. */
+  private picker() {
+    return html`<label
+      >Codes for the build
+      <select
+        aria-label="Encoding used for the build"
+        @change=${(e: Event) => emit(this, 'choose', { choice: { strategy: (e.target as HTMLSelectElement).value as EncodeStrategy } })}
+      >
+        ${PICKABLE.map((e) => html`<option value=${e.name} ?selected=${'strategy' in this.choice && this.choice.strategy === e.name}>${e.label}</option>`)}
+        ${'kept' in this.choice ? html`<option selected value="auto">kept from the comparison (${this.choice.kept.strategy})</option>` : nothing}
+      </select></label
+    >`;
+  }
+
   private progressBar() {
     const p = this.progress;
     const label = p
@@ -230,13 +221,13 @@ export class LwCodes extends LitElement {
               const cls = `${r.cheapest ? 'cheapest' : ''} ${r.strategy === using ? 'using' : ''}`;
               if (!r.ok || !p || !r.encoding)
                 return html`<tr>
-                  <td title=${NAMES[r.strategy]}>${SHORT[r.strategy]}</td>
+                  <td title=${label(r.strategy)}>${short(r.strategy)}</td>
                   <td colspan="10" class="soft">${r.problem}</td>
                 </tr>`;
               const kept = r.encoding;
               return html`<tr class=${cls}>
-                <td title=${NAMES[r.strategy]}>
-                  ${SHORT[r.strategy]}${r.cheapest ? html` <strong title="fewest parts by weighted cost">★</strong>` : nothing}
+                <td title=${label(r.strategy)}>
+                  ${short(r.strategy)}${r.cheapest ? html` <strong title="fewest parts by weighted cost">★</strong>` : nothing}
                 </td>
                 <td class="num">${kept.bits}</td>
                 <td class="num">${p.latches}</td>
@@ -251,7 +242,7 @@ export class LwCodes extends LitElement {
                   <button
                     ?disabled=${!this.rowsCurrent}
                     @click=${() => emit(this, 'choose', { choice: { kept } })}
-                    aria-label=${`Build with the ${NAMES[r.strategy]} codes`}
+                    aria-label=${`Build with the ${label(r.strategy)} codes`}
                   >
                     Use
                   </button>

@@ -5,7 +5,7 @@
  * Events: `edit` {text}.
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
-import type { Diagnostic } from '../../core/model/diagnostics.js';
+import type { Diagnostic } from '../../core/index.js';
 import { lineStarts, markSpan } from '../controllers/text-marks.js';
 import { emit } from './emit.js';
 

@@ -4,7 +4,7 @@
  * flag (up = 1, down = 0, level and dashed = undetermined X).
  */
 import { LitElement, css, html, svg } from 'lit';
-import type { PartReading } from '../../core/sim/part.js';
+import type { PartReading } from '../../core/index.js';
 import { shared } from '../styles/shared.js';
 
 type Pos = '1' | '0' | 'X';

@@ -3,10 +3,7 @@
  * timing, operating rules. (The charts and the exports live in parts.ts.)
  */
 import { html, nothing } from 'lit';
-import type { CheckResult } from '../../core/model/build.js';
-import type { RuleViolation } from '../../core/checks/forbidden-input.js';
-import type { TimingResult } from '../../core/checks/timing.js';
-import { RULE_WORDS } from '../../core/sim/hand.js';
+import { type CheckResult, RULE_WORDS, type RuleViolation, type TimingResult } from '../../core/index.js';
 import type { BuildView } from '../worker/protocol.js';
 
 const CHECK_WORDS: Readonly<Record<string, string>> = {

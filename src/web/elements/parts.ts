@@ -6,13 +6,15 @@
  * Events: `export` {doc}, `replay` {actions, label}.
  */
 import { LitElement, css, html, nothing } from 'lit';
-import type { Diagnostic } from '../../core/model/diagnostics.js';
-import { formatDiagnostic } from '../../core/model/diagnostics.js';
-import { CAUTIONS } from '../../core/export/build-sheet.js';
-import type { RuleViolation } from '../../core/checks/forbidden-input.js';
-import { RULE_WORDS } from '../../core/sim/hand.js';
+import {
+  CAUTIONS,
+  DOCUMENT_REGISTRY,
+  formatDiagnostic,
+  RULE_WORDS,
+  type Diagnostic,
+  type RuleViolation,
+} from '../../core/index.js';
 import type { BuildView, ChecksView } from '../worker/protocol.js';
-import { DOCUMENTS } from '../worker/documents.js';
 import { shared } from '../styles/shared.js';
 import { checksSection, partsSection, rulesSection, timingSection } from './parts-sections.js';
 import { emit } from './emit.js';
@@ -158,7 +160,7 @@ export class LwParts extends LitElement {
     return html`<section class="panel" aria-label="Build documents">
       <h2>Build documents</h2>
       <div class="exports">
-        ${DOCUMENTS.map((d) => html`<button ?disabled=${!this.exportable} @click=${() => emit(this, 'export', { doc: d.file })} data-doc=${d.file}>${d.label}</button>`)}
+        ${DOCUMENT_REGISTRY.map((d) => html`<button ?disabled=${!this.exportable} @click=${() => emit(this, 'export', { doc: d.file })} data-doc=${d.file}>${d.label}</button>`)}
       </div>
       ${this.exportable ? nothing : html`<p class="soft">Ready when the checks are done.</p>`}
     </section>`;

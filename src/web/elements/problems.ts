@@ -4,7 +4,7 @@
  * Events: `reveal` {line, column}.
  */
 import { LitElement, css, html, nothing } from 'lit';
-import { formatDiagnostic, type Diagnostic } from '../../core/model/diagnostics.js';
+import { type Diagnostic, formatDiagnostic } from '../../core/index.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
 

@@ -5,7 +5,7 @@
  * Events: `text-edit` {edit}, `reveal` {line, column}.
  */
 import { LitElement, css, html, nothing } from 'lit';
-import type { Machine, State, Transition } from '../../core/model/machine.js';
+import type { Machine, State, Transition } from '../../core/index.js';
 import { outputWords } from '../diagram/layout.js';
 import { addState, addTransition, reguard, retarget, type TextEdit } from '../controllers/table-edit.js';
 import { shared } from '../styles/shared.js';

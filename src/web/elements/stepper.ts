@@ -6,7 +6,7 @@
  * Events: `step` {do: 'phi1' | 'phi2' | 'clock' | 'reset' | 'undo'} or {do: 'input', input, value}.
  */
 import { LitElement, css, html, nothing } from 'lit';
-import type { PartReading } from '../../core/sim/part.js';
+import type { PartReading } from '../../core/index.js';
 import type { Alarm, Sample } from '../controllers/stepper.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';

@@ -1,21 +1,32 @@
 /**
  * Build documents for download, made in the worker from the checked build by the core's
- * buildDocuments; made once per build, on the first request.
+ * documents registry; each document is made on its first request, and the pieces several
+ * documents share (the commissioning run, the Verilog pair) once per build.
  */
-import type { Built } from '../../core/pipeline.js';
-import { buildDocuments, type DocumentFile } from '../../core/export/index.js';
-import { DOCUMENTS, fileName } from './documents.js';
+import {
+  DOCUMENT_MAKERS,
+  documentByFile,
+  documentSources,
+  type Built,
+  type DocumentSources,
+} from '../../core/index.js';
+import { fileName } from './documents.js';
 import type { ExportFile } from './protocol.js';
 
-const made = new WeakMap<Built, Map<DocumentFile, string>>();
+const sources = new WeakMap<Built, DocumentSources>();
+const made = new WeakMap<Built, Map<string, string>>();
 
 /** One document of a checked build. */
 export function exportFile(b: Built, file: string): ExportFile {
-  const doc = DOCUMENTS.find((d) => d.file === file);
+  const doc = documentByFile(file);
   if (!doc) throw new Error(`no document called '${file}'`);
   let docs = made.get(b);
-  if (!docs) made.set(b, (docs = buildDocuments(b)));
-  const text = docs.get(doc.file);
-  if (text === undefined) throw new Error(`the build documents have no '${file}'`);
+  if (!docs) made.set(b, (docs = new Map<string, string>()));
+  let text = docs.get(doc.file);
+  if (text === undefined) {
+    let s = sources.get(b);
+    if (!s) sources.set(b, (s = documentSources(b)));
+    docs.set(doc.file, (text = DOCUMENT_MAKERS[doc.name](s)));
+  }
   return { name: fileName(b.build.machine.name, doc.file), mime: doc.mime, text };
 }

@@ -5,24 +5,24 @@
  */
 import {
   analyse,
-  buildMachine,
-  compareEncodings,
-  runChecks,
   type Analysed,
-  type Built,
+  billOfMaterials,
+  buildMachine,
   type BuildOptions,
-} from '../../core/pipeline.js';
-import type { Encoding } from '../../core/model/build.js';
-import type { Progress } from '../../core/phases/encode/cost.js';
-import { equationTexts } from '../../core/report.js';
-import { billOfMaterials } from '../../core/physics/bom.js';
-import { operatorForces } from '../../core/physics/operator.js';
-import { drumLoad } from '../../core/physics/drum.js';
-import type { DriveCheck } from '../../core/physics/check-drive.js';
-import { DEFAULT_PROFILE } from '../../core/physics/profile.js';
-import type { ForbiddenInputResult } from '../../core/checks/forbidden-input.js';
-import type { TimingResult } from '../../core/checks/timing.js';
-import { driveSnapshots } from '../../core/sim/snapshots.js';
+  type Built,
+  compareEncodings,
+  DEFAULT_PROFILE,
+  type DriveCheck,
+  driveSnapshots,
+  drumLoad,
+  type Encoding,
+  equationTexts,
+  type ForbiddenInputResult,
+  operatorForces,
+  type Progress,
+  runChecks,
+  type TimingResult,
+} from '../../core/index.js';
 import { layoutDiagram } from '../diagram/layout.js';
 import type { BuildSettings, BuildView, ChecksView, CodeRow, MarginBar, Reading, TorqueBar } from './protocol.js';
 

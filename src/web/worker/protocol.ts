@@ -7,17 +7,23 @@
  * A page revision (`rev`) travels with every job and every answer: the page drops answers for
  * a revision it has moved past, and the worker skips stages of a job a newer one replaced.
  */
-import type { Build, CheckResult, Encoding, GuardReport, PartCounts } from '../../core/model/build.js';
-import type { Diagnostic } from '../../core/model/diagnostics.js';
-import type { Machine } from '../../core/model/machine.js';
-import type { MachineForm } from '../../core/forms/detect.js';
-import type { EncodeStrategy } from '../../core/phases/encode/index.js';
-import type { AutoReport } from '../../core/phases/encode/auto.js';
-import type { BomRow } from '../../core/physics/bom.js';
-import type { OperatorForce } from '../../core/physics/operator.js';
-import type { Profile } from '../../core/physics/profile.js';
-import type { RuleViolation } from '../../core/checks/forbidden-input.js';
-import type { TimingResult } from '../../core/checks/timing.js';
+import type {
+  AutoReport,
+  BomRow,
+  Build,
+  CheckResult,
+  Diagnostic,
+  EncodeStrategy,
+  Encoding,
+  GuardReport,
+  Machine,
+  MachineForm,
+  OperatorForce,
+  PartCounts,
+  Profile,
+  RuleViolation,
+  TimingResult,
+} from '../../core/index.js';
 import type { DiagramLayout } from '../diagram/layout.js';
 
 /** Codes chosen in the code book: a named strategy, or exact codes kept from a comparison. */

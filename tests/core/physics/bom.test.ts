@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { csvParseRows } from 'd3';
-import { billOfMaterials, bomCsv } from '../../../src/core/physics/bom.js';
+import { billOfMaterials } from '../../../src/core/physics/bom.js';
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 import { actuator, cord, gate, lever } from './netlists.js';
 
@@ -57,20 +56,5 @@ describe('core/physics/bom', () => {
     });
     expect(routed.find((r) => r.item === 'redirect pin')?.count).toBe(2); // half a turn: two quarter-turn pins
     expect(routed.find((r) => r.item === 'pulley')?.count).toBe(1);
-  });
-
-  it('writes a CSV with a header that parses back to the rows', () => {
-    const back = csvParseRows(bomCsv(rows));
-    expect(back[0]).toEqual(['item', 'kind', 'count', 'each', 'unit', 'total', 'note']);
-    expect(back).toHaveLength(rows.length + 1);
-    expect(back[1]).toEqual([
-      rows[0].item,
-      rows[0].kind,
-      String(rows[0].count),
-      String(rows[0].each),
-      rows[0].unit,
-      String(rows[0].total),
-      rows[0].note,
-    ]);
   });
 });

@@ -7,6 +7,7 @@
  * auto (the assignment that minimises the caller's cost: exhaustive over the classes left by
  * the cube's symmetries — McCluskey & Unger 1959 — for small machines, simulated annealing
  * beyond). Each module names its method and reference; docs/methods/encode.md explains them.
+ * The named strategies are listed once, in the encodings registry (registry.ts).
  *
  * Pre: a flat machine (normally the output of state minimisation).
  * Post: n distinct codes of one length, '0'/'1' strings with bit 0 first; codes the user
@@ -19,15 +20,10 @@ import { diag, didYouMean, hasErrors, type Diagnostic } from '../../model/diagno
 import type { SourceLoc } from '../../model/machine.js';
 import type { FlatMachine } from '../../model/flat.js';
 import type { Encoding } from '../../model/build.js';
-import { auto, DEFAULT_SEARCH, type AutoReport } from './auto.js';
-import { binary } from './binary.js';
+import { DEFAULT_SEARCH, type AutoReport } from './auto.js';
 import { adjacencyCost, type Progress } from './cost.js';
-import { gray } from './gray.js';
-import { johnson } from './johnson.js';
-import { oneHot } from './one-hot.js';
-import { pinnedStrategy, readPins, type PinSet, type StrategyResult } from './pinned.js';
-
-export type EncodeStrategy = 'binary' | 'gray' | 'johnson' | 'one-hot' | 'pinned' | 'auto';
+import { readPins } from './pinned.js';
+import { encodingEntry, ENCODING_REGISTRY, ENCODING_RUNS, type EncodeStrategy } from './registry.js';
 
 export interface EncodeOptions {
   /** Codes pinned by the user, by state name (some or all); honoured by every strategy where possible, required by 'pinned'. */
@@ -53,19 +49,20 @@ export interface EncodeResult {
   readonly search?: AutoReport;
 }
 
-/** The strategies known by name, in the order the tool offers them. */
-export const ENCODINGS: readonly EncodeStrategy[] = ['binary', 'gray', 'johnson', 'one-hot', 'pinned', 'auto'];
+/** The strategies known by name, in the order the tool offers them (the names of ENCODING_REGISTRY). */
+export const ENCODINGS: readonly EncodeStrategy[] = ENCODING_REGISTRY.map((e) => e.name);
 
 export { DEFAULT_SEARCH, type AutoReport };
 export { adjacencyCost, type Progress };
-
-const NAMED: Readonly<Record<Exclude<EncodeStrategy, 'auto'>, (f: FlatMachine, pins: PinSet) => StrategyResult>> = {
-  binary,
-  gray,
-  johnson,
-  'one-hot': oneHot,
-  pinned: pinnedStrategy,
-};
+export {
+  DEFAULT_ENCODING,
+  encodingEntry,
+  ENCODING_REGISTRY,
+  ENCODING_RUNS,
+  type EncodeStrategy,
+  type EncodingEntry,
+  type EncodingRun,
+} from './registry.js';
 
 /** Assign state codes with a named strategy or a strategy function. */
 export function encode(
@@ -99,24 +96,8 @@ export function encode(
       };
     return { encoding, diagnostics };
   }
-  if (strategy === 'auto') {
-    const millis = opts.now ? opts.budget?.millis : undefined;
-    const start = millis !== undefined && opts.now ? opts.now() : undefined;
-    const r = auto(f, read.pins, {
-      cost: opts.cost ?? adjacencyCost(f),
-      seed: opts.seed ?? 1,
-      ...(opts.budget?.evaluations !== undefined ? { maxEvaluations: opts.budget.evaluations } : {}),
-      ...(start !== undefined && millis !== undefined ? { deadline: start + millis, now: opts.now } : {}),
-      ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
-    });
-    return {
-      ...(r.encoding ? { encoding: r.encoding } : {}),
-      diagnostics: [...diagnostics, ...r.diagnostics],
-      ...(r.report ? { search: r.report } : {}),
-    };
-  }
-  const named = Object.hasOwn(NAMED, strategy) ? NAMED[strategy as keyof typeof NAMED] : undefined;
-  if (!named) {
+  const entry = encodingEntry(String(strategy));
+  if (!entry) {
     const guess = didYouMean(String(strategy), ENCODINGS);
     return {
       diagnostics: [
@@ -130,8 +111,12 @@ export function encode(
       ],
     };
   }
-  const r = named(f, read.pins);
-  return { ...(r.encoding ? { encoding: r.encoding } : {}), diagnostics: [...diagnostics, ...r.diagnostics] };
+  const r = ENCODING_RUNS[entry.name](f, read.pins, opts);
+  return {
+    ...(r.encoding ? { encoding: r.encoding } : {}),
+    diagnostics: [...diagnostics, ...r.diagnostics],
+    ...(r.search ? { search: r.search } : {}),
+  };
 }
 
 function checkOptions(o: EncodeOptions): Diagnostic[] {
@@ -174,7 +159,7 @@ function malformed(f: FlatMachine, e: Encoding): string | undefined {
   if (e.codes.length !== f.states.length) return `gives ${e.codes.length} codes for ${f.states.length} states`;
   const seen = new Map<string, number>();
   for (let s = 0; s < e.codes.length; s++) {
-    const c = e.codes[s];
+    const c: unknown = e.codes[s];
     if (typeof c !== 'string' || c.length !== e.bits || !/^[01]*$/.test(c))
       return `gives state '${f.states[s]}' the code '${String(c)}', not ${e.bits} binary digits`;
     const other = seen.get(c);

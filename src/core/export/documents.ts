@@ -1,0 +1,193 @@
+/**
+ * The documents registry: every build document, once, with everything a shell needs — a
+ * stable name, the file name, a label for a button, the media type, the words and format the
+ * docs list (docs/build-documents.md is generated from them) — and, beside it, how to make
+ * each one. `latchwright build --out`, the designer's export buttons and the docs all read
+ * this file, so adding a document is one exporter module plus one entry in DOCUMENT_REGISTRY
+ * and one line in DOCUMENT_MAKERS (the compiler asks for it).
+ *
+ * The entries are plain data and the makers a separate table so that the designer's page,
+ * which shows a button per document but never makes one, does not bundle the exporters (its
+ * worker does).
+ *
+ * Order: the order the documents are listed and written in.
+ * Postcondition: the same input gives byte-identical documents; the pieces several documents
+ * share (the commissioning sequence, its simulated rows, the Verilog pair) are made once per
+ * input, when first asked for.
+ */
+import { billOfMaterials } from '../physics/bom.js';
+import { bomCsv } from './bom-csv.js';
+import { buildSheetHtml } from './build-sheet-html.js';
+import { buildSheetMd } from './build-sheet-md.js';
+import type { DocumentsInput } from './build-sheet.js';
+import { commissioningCsv, commissioningRows, type CommissioningRow } from './commissioning.js';
+import { commissioningHtml } from './commissioning-html.js';
+import { diagramSvg } from './diagram-svg.js';
+import { netlistJson } from './netlist-json.js';
+import { schematicSvg } from './schematic-svg.js';
+import { commissioningTour, type TourClock } from './tour.js';
+import { verilogFiles, type VerilogFiles } from './verilog.js';
+import { wiringCsv, wiringRows } from './wiring.js';
+
+/** What a document is made from: the input, and the pieces several documents share (each made once). */
+export interface DocumentSources {
+  readonly input: DocumentsInput;
+  /** The commissioning input sequence: the one given, or the transition tour of the built machine. */
+  tour(): readonly TourClock[];
+  /** The commissioning rows: the part-level simulator run through `tour()`. */
+  steps(): readonly CommissioningRow[];
+  /** The structural Verilog module and its testbench. */
+  verilog(): VerilogFiles;
+}
+
+/** One entry of the documents registry (plain data; its maker is DOCUMENT_MAKERS[name]). */
+export interface DocumentEntry {
+  /** Stable identifier (kebab-case). */
+  readonly name: string;
+  /** File name in the build folder (and the suffix of a download's name). */
+  readonly file: string;
+  /** Button text in the designer. */
+  readonly label: string;
+  /** Media type of a download. */
+  readonly mime: string;
+  /** What it is, in a few words (the docs table). */
+  readonly summary: string;
+  /** Its format, with the standard it follows (the docs table). */
+  readonly format: string;
+}
+
+/** Every build document, in the order they are listed and written. */
+export const DOCUMENT_REGISTRY = [
+  {
+    name: 'build-sheet-html',
+    file: 'build-sheet.html',
+    label: 'Build sheet (HTML, printable)',
+    mime: 'text/html',
+    summary: 'the build sheet, printable',
+    format: 'HTML, self-contained',
+  },
+  {
+    name: 'build-sheet-md',
+    file: 'build-sheet.md',
+    label: 'Build sheet (Markdown)',
+    mime: 'text/markdown',
+    summary: 'the same sheet',
+    format: 'Markdown (CommonMark with pipe tables)',
+  },
+  {
+    name: 'wiring',
+    file: 'wiring.csv',
+    label: 'Wiring list (CSV)',
+    mime: 'text/csv',
+    summary: 'one row per cord branch, in tying order',
+    format: 'CSV (RFC 4180)',
+  },
+  {
+    name: 'bom',
+    file: 'bom.csv',
+    label: 'Bill of materials (CSV)',
+    mime: 'text/csv',
+    summary: 'bill of materials',
+    format: 'CSV (RFC 4180)',
+  },
+  {
+    name: 'netlist',
+    file: 'netlist.json',
+    label: 'Netlist (JSON)',
+    mime: 'application/json',
+    summary: 'every part and cord',
+    format: 'JSON, described by `schemas/netlist.schema.json`',
+  },
+  {
+    name: 'schematic',
+    file: 'schematic.svg',
+    label: 'Schematic (SVG)',
+    mime: 'image/svg+xml',
+    summary: 'the parts and cords, left to right through one clock',
+    format: 'SVG',
+  },
+  {
+    name: 'state-diagram',
+    file: 'state-diagram.svg',
+    label: 'State diagram (SVG)',
+    mime: 'image/svg+xml',
+    summary: 'states, codes and transitions',
+    format: 'SVG',
+  },
+  {
+    name: 'commissioning-html',
+    file: 'commissioning.html',
+    label: 'Commissioning sheet (HTML)',
+    mime: 'text/html',
+    summary: 'what to do at the bench, step by step, with expected lever positions',
+    format: 'HTML, self-contained',
+  },
+  {
+    name: 'commissioning-csv',
+    file: 'commissioning.csv',
+    label: 'Commissioning sheet (CSV)',
+    mime: 'text/csv',
+    summary: 'the same sequence',
+    format: 'CSV (RFC 4180)',
+  },
+  {
+    name: 'verilog',
+    file: 'machine.v',
+    label: 'Verilog module',
+    mime: 'text/plain',
+    summary: 'structural Verilog of the build',
+    format: 'Verilog (IEEE 1364-2005)',
+  },
+  {
+    name: 'verilog-testbench',
+    file: 'machine_tb.v',
+    label: 'Verilog testbench',
+    mime: 'text/plain',
+    summary: 'a self-checking testbench for it',
+    format: 'Verilog (IEEE 1364-2005)',
+  },
+] as const satisfies readonly DocumentEntry[];
+
+export type DocumentName = (typeof DOCUMENT_REGISTRY)[number]['name'];
+export type DocumentFile = (typeof DOCUMENT_REGISTRY)[number]['file'];
+
+/** How each registered document is made, by name. */
+export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: DocumentSources) => string } = {
+  'build-sheet-html': (d) => buildSheetHtml(d.input),
+  'build-sheet-md': (d) => buildSheetMd(d.input),
+  wiring: (d) => wiringCsv(wiringRows(d.input.build.netlist, d.input.profile)),
+  bom: (d) => bomCsv(billOfMaterials(d.input.build.netlist, d.input.profile)),
+  netlist: (d) => netlistJson(d.input.build),
+  schematic: (d) => schematicSvg(d.input.build),
+  'state-diagram': (d) => diagramSvg(d.input.build),
+  'commissioning-html': (d) => commissioningHtml(d.input.build, d.steps(), d.tour()),
+  'commissioning-csv': (d) => commissioningCsv(d.steps()),
+  verilog: (d) => d.verilog().module,
+  'verilog-testbench': (d) => d.verilog().testbench,
+};
+
+/** The file names, in the order they are listed. */
+export const DOCUMENT_FILES: readonly DocumentFile[] = DOCUMENT_REGISTRY.map((d) => d.file);
+
+/** The registry entry for a file name, if there is one. */
+export function documentByFile(file: string): (typeof DOCUMENT_REGISTRY)[number] | undefined {
+  return DOCUMENT_REGISTRY.find((d) => d.file === file);
+}
+
+/** The sources of every document of one input; shared pieces are made on first use and kept. */
+export function documentSources(input: DocumentsInput): DocumentSources {
+  const once = <T>(make: () => T): (() => T) => {
+    let kept: { value: T } | undefined;
+    return () => (kept ??= { value: make() }).value;
+  };
+  const tour = once(() => input.tour ?? commissioningTour(input.build.machine));
+  const steps = once(() => commissioningRows(input.build, input.profile, tour()));
+  const verilog = once(() => verilogFiles(input.build, input.profile, tour()));
+  return { input, tour, steps, verilog };
+}
+
+/** Every build document: file name → content, in registry order. */
+export function buildDocuments(input: DocumentsInput): Map<DocumentFile, string> {
+  const sources = documentSources(input);
+  return new Map(DOCUMENT_REGISTRY.map((d) => [d.file, DOCUMENT_MAKERS[d.name](sources)]));
+}

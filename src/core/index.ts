@@ -1,0 +1,201 @@
+/**
+ * Latchwright's public entry: everything a program needs to read a machine, analyse it, build
+ * it, prove it, step it and print its workshop documents. The package's `exports` point at
+ * this file's build output (dist/core/index.js); the CLI, the designer and the benchmarks
+ * import the core only from here or from an area's barrel (src/core/<area>/index.ts).
+ *
+ *   const a = analyse(text, 'bell.lw');           // parse → validate → minimise states
+ *   if (a.ok) {
+ *     const b = buildMachine(a, { encoding: 'binary' });   // encode → synthesise → check
+ *     if (b.ok) writeSomewhere(buildDocuments(b));          // file name → text
+ *   }
+ *
+ * This file sits above every layer of the core (model ← forms, physics ← phases ← sim ←
+ * checks ← pipeline ← export, report); it only re-exports. Every name here is public API:
+ * DEVELOPERS.md ("Public API") lists them by purpose.
+ */
+
+// ── The machine model, diagnostics and the seeded generator ─────────────────────────────────
+export type { Expr, Guard, Machine, OutBit, SourceLoc, State, Transition, Unspecified } from './model/machine.js';
+export type { FlatMachine, FlatRow } from './model/flat.js';
+export type { Build, CheckResult, Encoding, Equation, GuardReport, PartCounts, SignalMap } from './model/build.js';
+export type {
+  ActuatorPart,
+  Cord,
+  FlagPart,
+  GatePart,
+  GateRole,
+  LatchPart,
+  LeverPart,
+  LeverRole,
+  Netlist,
+  Part,
+  PortRef,
+  PortSpec,
+} from './model/netlist.js';
+export {
+  DIAGNOSTIC_CODES,
+  DiagnosticError,
+  diag,
+  didYouMean,
+  formatDiagnostic,
+  formatLocation,
+  hasErrors,
+  type Diagnostic,
+  type DiagnosticCode,
+  type Severity,
+} from './model/diagnostics.js';
+export { seededRandom, type Random } from './model/random.js';
+
+// ── Parse and print: the text form, the JSON form, xstate configs ───────────────────────────
+export { detectForm, readMachine, readMachineValue, type MachineForm, type ReadResult } from './forms/detect.js';
+export { parseTextMachine, printTextMachine } from './forms/text.js';
+export {
+  machineFromJson,
+  machineToJson,
+  parseJsonMachine,
+  type JsonMachine,
+  type JsonState,
+  type JsonTransition,
+  type MachineResult,
+} from './forms/json.js';
+export { clockEvent, exportXstate, importXstate, type XstateExport, type XstateExportOptions } from './forms/xstate.js';
+export { printCubes, printExpr } from './forms/expr.js';
+
+// ── Analyse, build, compare: the pipeline ───────────────────────────────────────────────────
+export {
+  analyse,
+  buildMachine,
+  compareEncodings,
+  runChecks,
+  type AnalyseOptions,
+  type Analysed,
+  type BuildOptions,
+  type Built,
+  type EncodingRow,
+  type PhaseHook,
+  type Rejected,
+} from './pipeline.js';
+export type { StateMinimisation } from './phases/minimise-states/index.js';
+
+// ── Encodings (the encodings registry) ──────────────────────────────────────────────────────
+export {
+  DEFAULT_ENCODING,
+  DEFAULT_SEARCH,
+  encode,
+  encodingEntry,
+  ENCODING_REGISTRY,
+  ENCODING_RUNS,
+  ENCODINGS,
+  type AutoReport,
+  type EncodeOptions,
+  type EncodeResult,
+  type EncodeStrategy,
+  type EncodingEntry,
+  type EncodingRun,
+  type Progress,
+} from './phases/encode/index.js';
+
+// ── The checks ──────────────────────────────────────────────────────────────────────────────
+export {
+  checkEquivalence,
+  type Counterexample,
+  type EquivalenceOptions,
+  type EquivalenceResult,
+  type SpecInfo,
+} from './checks/equivalence.js';
+export {
+  checkForbiddenInput,
+  type ForbiddenCounterexample,
+  type ForbiddenInputOptions,
+  type ForbiddenInputResult,
+  type RuleViolation,
+} from './checks/forbidden-input.js';
+export { checkRecovery, type RecoveryOptions, type RecoveryResult } from './checks/recovery.js';
+export { checkTiming, type MonteCarloReport, type TimingOptions, type TimingResult } from './checks/timing.js';
+export { checkDrive, type DriveCheck } from './physics/check-drive.js';
+export { driveSnapshots } from './sim/snapshots.js';
+
+// ── Simulate: the pure part step, the runner, the hand procedure, scripts ───────────────────
+export { createRunner, type ClockRecord, type PartRunner } from './sim/runner.js';
+export {
+  isAlarm,
+  powerUp,
+  readPart,
+  simFor,
+  stepPart,
+  stepSim,
+  timingOf,
+  type PartEvent,
+  type PartEventKind,
+  type PartReading,
+  type PartSim,
+  type PartState,
+  type PartTiming,
+  type StepOptions,
+  type Trit,
+} from './sim/part.js';
+export {
+  assignmentOf,
+  clockActions,
+  describeAction,
+  OPERATING_RULES,
+  phaseActions,
+  resetActions,
+  RULE_WORDS,
+  valuesOf,
+  type ControlLever,
+  type HandAction,
+  type InputValues,
+  type OperatingRule,
+} from './sim/hand.js';
+export {
+  runAbstractScript,
+  runPartScript,
+  validateSequence,
+  type SeqArray,
+  type ShownValue,
+  type StepRow,
+} from './sim/script.js';
+export { runAbstract, stepAbstract, type AbstractClock, type AbstractStepResult } from './sim/abstract.js';
+export { randomFlatMachine } from './sim/random-machine.js';
+
+// ── The technology profile and the physics of the drive ─────────────────────────────────────
+export { DEFAULT_PROFILE, type CostWeights, type Profile, type RoutingLoss } from './physics/profile.js';
+export { loadProfile } from './physics/profile-load.js';
+export { availableTension, capstanGain, type Tension } from './physics/capstan.js';
+export { driveBudget, type BranchLoad, type DriverBudget } from './physics/drive.js';
+export { drumLoad, type DriveSnapshot, type DrumLoad, type SnapshotTorque } from './physics/drum.js';
+export { operatorForces, type OperatorForce } from './physics/operator.js';
+export { billOfMaterials, type BomRow } from './physics/bom.js';
+
+// ── Documents (the documents registry) and the report ───────────────────────────────────────
+export {
+  bomCsv,
+  buildDocuments,
+  buildSheet,
+  buildSheetHtml,
+  buildSheetMd,
+  CAUTIONS,
+  commissioningTour,
+  diagramSvg,
+  documentByFile,
+  documentSources,
+  DOCUMENT_FILES,
+  DOCUMENT_MAKERS,
+  DOCUMENT_REGISTRY,
+  netlistJson,
+  schematicSvg,
+  verilogFiles,
+  wiringCsv,
+  wiringRows,
+  type DocumentEntry,
+  type DocumentFile,
+  type DocumentName,
+  type DocumentsInput,
+  type DocumentSources,
+  type TourClock,
+  type VerilogFiles,
+  type WiringRow,
+} from './export/index.js';
+export { buildReport, equationTexts, machineBlock } from './report.js';

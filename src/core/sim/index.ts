@@ -1,0 +1,12 @@
+/**
+ * The simulation layer's barrel: the part-level simulator (pure step and compiled netlist),
+ * the hand procedure, the runner with undo, scripted stepping, drive snapshots, the abstract
+ * reference simulator and the random-machine generator the tests and benchmarks share.
+ */
+export * from './abstract.js';
+export * from './hand.js';
+export * from './part.js';
+export * from './random-machine.js';
+export * from './runner.js';
+export * from './script.js';
+export * from './snapshots.js';
