@@ -5,7 +5,7 @@
  */
 import { formatDiagnostic } from '../core/model/diagnostics.js';
 import type { Build } from '../core/model/build.js';
-import type { SpecInfo } from '../core/checks/clocking.js';
+import type { SpecInfo } from '../core/checks/spec.js';
 import { DEFAULT_PROFILE, type Profile } from '../core/physics/profile.js';
 import { stepAbstract } from '../core/sim/abstract.js';
 import { assignmentOf, type HandAction } from '../core/sim/hand.js';
