@@ -4,25 +4,28 @@
  * `runChecks` (pipeline.ts) runs them in this order with one seed for all; the shells and the
  * docs read names and labels here.
  *
- * Each check's result has its own type, told apart by `name`: `CheckResult` is their union,
- * and `findCheck(checks, 'drive')` gives the drive check's own type without a cast.
+ * Each check's result has its own type, told apart by `name`: `CheckResult` (results.ts) is
+ * their union, and `findCheck(checks, 'drive')` gives the drive check's own type without a
+ * cast. A module that only reads results imports results.ts, which pulls in no check code.
  *
  * Adding a check: write its module (a pure function to a result type extending
- * `CheckBase<'its-name'>`, model/build.ts), add that type to `CheckResult` and one entry to
- * `CHECKS` below.
+ * `CheckBase<'its-name'>`, model/build.ts), add that type to `CheckResult` in results.ts and
+ * one entry to `CHECKS` below.
  */
 import type { Build } from '../model/build.js';
-import { checkDrive, type DriveCheck } from '../physics/check-drive.js';
+import { checkDrive } from '../physics/check-drive.js';
 import type { Profile } from '../physics/profile.js';
-import { driveSnapshots, placeWords, type SnapshotPlace } from '../sim/snapshots.js';
-import { checkEquivalence, type EquivalenceResult } from './equivalence.js';
-import { forbiddenInputCheck, type ForbiddenInputCheck } from './forbidden-input.js';
-import { checkNextStateEquivalence, type NextStateResult } from './logic.js';
-import { checkRecovery, type RecoveryResult } from './recovery.js';
+import { driveSnapshots, placeWords } from '../sim/snapshots.js';
+import { checkEquivalence } from './equivalence.js';
+import { forbiddenInputCheck } from './forbidden-input.js';
+import { checkNextStateEquivalence } from './logic.js';
+import { checkRecovery } from './recovery.js';
+import type { CheckName, CheckResultOf } from './results.js';
 import type { SpecInfo } from './spec.js';
-import { checkTiming, type TimingResult } from './timing.js';
+import { checkTiming } from './timing.js';
 
 export type { SpecInfo } from './spec.js';
+export { findCheck, type CheckName, type CheckResult, type CheckResultOf, type DriveResult } from './results.js';
 
 /** Everything a check may read. */
 export interface CheckInput {
@@ -38,22 +41,10 @@ export interface CheckInput {
 /** One thing a check reads: a field of `CheckInput`. */
 export type CheckNeed = keyof CheckInput;
 
-/** The drive check's result, its places being those of the drive snapshots (state, code, inputs, clock phase). */
-export type DriveResult = DriveCheck<SnapshotPlace>;
-
-/** Every check's result: a union told apart by `name`. */
-export type CheckResult =
-  ForbiddenInputCheck | NextStateResult | EquivalenceResult | RecoveryResult | TimingResult | DriveResult;
-
-export type CheckName = CheckResult['name'];
-
-/** The result type of the check named N. */
-export type CheckResultOf<N extends CheckName> = Extract<CheckResult, { readonly name: N }>;
-
 /** One check as the shells see it. */
 export interface CheckEntryOf<N extends CheckName> {
   readonly name: N;
-  /** A line for people: what the check shows. */
+  /** What the check shows, in a few words for people (a heading). */
   readonly label: string;
   /** A word or two, for narrow places (a table column, a badge). */
   readonly shortLabel: string;
@@ -83,7 +74,7 @@ function entry<N extends CheckName, K extends CheckNeed>(e: {
 export const CHECKS = [
   entry({
     name: 'forbidden-input',
-    label: 'No latch sees both its ports pulled at once (S̄ = R̄ = 0), in the equations and in the parts',
+    label: 'No forbidden latch input',
     shortLabel: 'forbidden input',
     needs: ['build', 'profile', 'seed'],
     produces:
@@ -92,7 +83,7 @@ export const CHECKS = [
   }),
   entry({
     name: 'next-state-equivalence',
-    label: 'The equations give the specified next state and outputs in every state',
+    label: 'Equations match the table',
     shortLabel: 'next state',
     needs: ['build'],
     produces: 'the state and input cubes checked, a counterexample',
@@ -100,7 +91,7 @@ export const CHECKS = [
   }),
   entry({
     name: 'equivalence',
-    label: 'The built machine behaves as the machine as written, part by part',
+    label: 'Build behaves as written',
     shortLabel: 'equivalence',
     needs: ['build', 'spec', 'profile', 'seed'],
     produces: 'product states and pairs explored, exhaustive or sampled, a hand-action counterexample',
@@ -108,7 +99,7 @@ export const CHECKS = [
   }),
   entry({
     name: 'recovery',
-    label: 'Every unused code comes back to a used one within a few clocks',
+    label: 'Recovers from unused codes',
     shortLabel: 'recovery',
     needs: ['build', 'profile', 'seed'],
     produces: 'clocks to recover per unused code, the worst, a lock-up loop',
@@ -116,7 +107,7 @@ export const CHECKS = [
   }),
   entry({
     name: 'timing',
-    label: 'Clock-phase times, the fastest safe rate and the cam angles, with a Monte Carlo run',
+    label: 'Timing and clock rate',
     shortLabel: 'timing',
     needs: ['build', 'profile', 'seed'],
     produces: 'phase times and chains, clock and crank rate, cam windows, the Monte Carlo report',
@@ -124,7 +115,7 @@ export const CHECKS = [
   }),
   entry({
     name: 'drive',
-    label: 'Every capstan within its force budget; drum torque and the hardest lever pull',
+    label: 'Force budgets',
     shortLabel: 'drive',
     needs: ['build', 'profile', 'seed'],
     produces: 'margins per driver, the worst drum torque and power overall and per state, the hardest lever pull',
@@ -138,8 +129,3 @@ const _everyCheckListed: Exclude<CheckName, (typeof CHECKS)[number]['name']> ext
 
 /** Every check's name, in order. */
 export const CHECK_NAMES: readonly CheckName[] = CHECKS.map((c) => c.name);
-
-/** The result of the check named `name`, with that check's own type; undefined when it was not run. */
-export function findCheck<N extends CheckName>(checks: readonly CheckResult[], name: N): CheckResultOf<N> | undefined {
-  return checks.find((c): c is CheckResultOf<N> => c.name === name);
-}

@@ -17,7 +17,7 @@ import { billOfMaterials } from '../physics/bom.js';
 import { driveBudget } from '../physics/drive.js';
 import { OPERATING_RULES, RULE_WORDS } from '../sim/hand.js';
 import { momentWords, type SnapshotPlace } from '../sim/snapshots.js';
-import { findCheck, type CheckResult } from '../checks/registry.js';
+import { findCheck, type CheckResult } from '../checks/results.js';
 import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { num } from './readable.js';
 import { equationBlocks, stateTableBlocks } from './sheet-logic.js';

@@ -3,7 +3,7 @@
  * timing, operating rules. (The charts and the exports live in parts.ts.)
  */
 import { html, nothing } from 'lit';
-import type { CheckResult } from '../../core/checks/registry.js';
+import type { CheckResult } from '../../core/checks/results.js';
 import type { RuleViolation } from '../../core/checks/forbidden-input.js';
 import type { TimingResult } from '../../core/checks/timing.js';
 import { RULE_WORDS } from '../../core/sim/hand.js';

@@ -8,7 +8,7 @@
  * a revision it has moved past, and the worker skips stages of a job a newer one replaced.
  */
 import type { Build, Encoding, GuardReport, PartCounts } from '../../core/model/build.js';
-import type { CheckResult } from '../../core/checks/registry.js';
+import type { CheckResult } from '../../core/checks/results.js';
 import type { Diagnostic } from '../../core/model/diagnostics.js';
 import type { Machine } from '../../core/model/machine.js';
 import type { MachineForm } from '../../core/forms/detect.js';
