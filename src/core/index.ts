@@ -18,7 +18,7 @@
 // ── The machine model, diagnostics and the seeded generator ─────────────────────────────────
 export type { Expr, Guard, Machine, OutBit, SourceLoc, State, Transition, Unspecified } from './model/machine.js';
 export type { FlatMachine, FlatRow } from './model/flat.js';
-export type { Build, CheckResult, Encoding, Equation, GuardReport, PartCounts, SignalMap } from './model/build.js';
+export type { Build, CheckBase, Encoding, Equation, GuardReport, PartCounts, SignalMap } from './model/build.js';
 export type {
   ActuatorPart,
   Cord,
@@ -102,7 +102,6 @@ export {
   type Counterexample,
   type EquivalenceOptions,
   type EquivalenceResult,
-  type SpecInfo,
 } from './checks/equivalence.js';
 export {
   checkForbiddenInput,
@@ -114,7 +113,18 @@ export {
 export { checkRecovery, type RecoveryOptions, type RecoveryResult } from './checks/recovery.js';
 export { checkTiming, type MonteCarloReport, type TimingOptions, type TimingResult } from './checks/timing.js';
 export { checkDrive, type DriveCheck } from './physics/check-drive.js';
-export { driveSnapshots } from './sim/snapshots.js';
+export { driveSnapshots, momentWords, placeWords, type SnapshotPlace } from './sim/snapshots.js';
+export {
+  CHECK_NAMES,
+  CHECKS,
+  findCheck,
+  type CheckEntry,
+  type CheckName,
+  type CheckResult,
+  type CheckResultOf,
+  type DriveResult,
+  type SpecInfo,
+} from './checks/registry.js';
 
 // ── Simulate: the pure part step, the runner, the hand procedure, scripts ───────────────────
 export { createRunner, type ClockRecord, type PartRunner } from './sim/runner.js';

@@ -10,7 +10,7 @@
  */
 import { DiagnosticError, diag, didYouMean, hasErrors, type Diagnostic } from './model/diagnostics.js';
 import type { Machine, SourceLoc } from './model/machine.js';
-import type { Build, CheckResult, Encoding } from './model/build.js';
+import type { Build, Encoding } from './model/build.js';
 import {
   encode,
   ENCODINGS,
@@ -22,13 +22,8 @@ import { synthesise } from './synthesise.js';
 import { countParts, partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
 import { balanceDrive } from './physics/buffer-tree.js';
-import { checkDrive } from './physics/check-drive.js';
-import { checkForbiddenInput as checkForbiddenInputLogic, checkNextStateEquivalence } from './checks/logic.js';
-import { checkForbiddenInput } from './checks/forbidden-input.js';
-import { checkEquivalence } from './checks/equivalence.js';
+import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
 import { checkRecovery } from './checks/recovery.js';
-import { checkTiming } from './checks/timing.js';
-import { driveSnapshots } from './sim/snapshots.js';
 import type { FlatMachine } from './model/flat.js';
 import { readMachine, type MachineForm } from './forms/detect.js';
 import { validate } from './phases/validate.js';
@@ -139,7 +134,7 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
     const first = timed(opts, 'synthesise', () => make(encoding));
     const build =
       opts.unusedCodes === undefined
-        ? withRecovery(first, profile, (to) =>
+        ? withRecovery(first, profile, opts.seed ?? 1, (to) =>
             withDrive(synthesise(f, encoding, { ...synthOpts, unusedCodes: to }), profile),
           )
         : first;
@@ -162,8 +157,8 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
 }
 
 /** The build, or (when it can lock up in unused codes) the build with unused codes sent to the start state. */
-function withRecovery(b: Build, profile: Profile, rebuild: (to: number) => Build): Build {
-  if (b.encoding.codes.length === 2 ** b.encoding.bits || checkRecovery(b, profile).ok) return b;
+function withRecovery(b: Build, profile: Profile, seed: number, rebuild: (to: number) => Build): Build {
+  if (b.encoding.codes.length === 2 ** b.encoding.bits || checkRecovery(b, profile, { seed }).ok) return b;
   return rebuild(b.machine.start);
 }
 
@@ -173,30 +168,10 @@ function withDrive(b: Build, profile: Profile): Build {
   return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
 }
 
-/** Every check, in the order reports show them. */
+/** Every check of the registry (checks/registry.ts), in the order reports show them, all with one seed. */
 export function runChecks(build: Build, a: Analysed, profile: Profile, seed: number): CheckResult[] {
-  const spec = { original: a.flat, merged: a.minimised.merged };
-  const logicSr = checkForbiddenInputLogic(build);
-  const partSr = checkForbiddenInput(build, profile);
-  return [
-    mergeForbidden(logicSr, partSr),
-    checkNextStateEquivalence(build),
-    checkEquivalence(build, spec, profile, { seed }),
-    checkRecovery(build, profile),
-    checkTiming(build, profile, { seed }),
-    checkDrive(build.netlist, profile, driveSnapshots(build, profile)),
-  ];
-}
-
-/** One `forbidden-input` result: the logic-level proof and the part-level sweep. */
-function mergeForbidden(logic: CheckResult, part: CheckResult): CheckResult {
-  return {
-    ...part,
-    name: 'forbidden-input',
-    ok: logic.ok && part.ok,
-    summary: `${logic.summary}; ${part.summary}`,
-    logic,
-  };
+  const input: CheckInput = { build, spec: { original: a.flat, merged: a.minimised.merged }, profile, seed };
+  return CHECKS.map((c) => c.run(input));
 }
 
 function resolveUnused(a: Analysed, unused: string | undefined): 'dont-care' | number | Diagnostic {

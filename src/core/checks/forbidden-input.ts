@@ -17,9 +17,11 @@
  * only within `maxFreeMasterClocks`; the rule search stops at `maxActions` actions or
  * `maxStates` machine states. The result says which applied.
  */
-import type { Build, CheckResult } from '../model/build.js';
-import { seededRandom } from '../model/random.js';
+import type { Build, CheckBase } from '../model/build.js';
+import { seededRandom, type Random } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
+import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
+import { clockFrom, forEachHeld, latchKey } from '../sim/clocking.js';
 import {
   clockActions,
   describeAction,
@@ -44,17 +46,7 @@ import {
   type PartEvent,
   type PartSim,
 } from '../sim/part.js';
-import {
-  allCodes,
-  clockFrom,
-  describeInputs,
-  EXHAUSTIVE_INPUTS,
-  forEachHeld,
-  grayAssignments,
-  latchKey,
-  randomCodes,
-  sampledAssignments,
-} from './clocking.js';
+import { checkForbiddenInput as checkForbiddenLogic, type LogicForbiddenResult } from './logic.js';
 
 export interface ForbiddenInputOptions {
   readonly maxExhaustiveInputs?: number;
@@ -92,7 +84,8 @@ export interface ForbiddenCounterexample {
   readonly words: string;
 }
 
-export interface ForbiddenInputResult extends CheckResult {
+/** The part-level sweep and the rule search. */
+export interface ForbiddenInputResult extends CheckBase<'forbidden-input'> {
   readonly level: 'part';
   /** (slave code, master code, input combination) start points simulated through a clock and a reset. */
   readonly states: number;
@@ -103,6 +96,46 @@ export interface ForbiddenInputResult extends CheckResult {
   readonly counterexample?: ForbiddenCounterexample;
 }
 
+/** The `forbidden-input` check as the pipeline runs it: the part-level result with the logic-level proof inside. */
+export interface ForbiddenInputCheck extends ForbiddenInputResult {
+  readonly logic: LogicForbiddenResult;
+}
+
+/** Both levels of the forbidden-input check: passes when the logic-level proof and the part-level sweep both do. */
+export function forbiddenInputCheck(
+  build: Build,
+  profile: Pick<Profile, 'stageDelayS'>,
+  opts: ForbiddenInputOptions = {},
+): ForbiddenInputCheck {
+  const logic = checkForbiddenLogic(build);
+  const part = checkForbiddenInput(build, profile, opts);
+  return { ...part, ok: logic.ok && part.ok, summary: `${logic.summary}; ${part.summary}`, logic };
+}
+
+/** Which start points the sweep covers: slave codes, master codes, input combinations. */
+interface Scope {
+  readonly tries: readonly string[];
+  readonly exhaustive: boolean;
+  readonly codes: readonly string[];
+  readonly allFit: boolean;
+  readonly freeMasters: boolean;
+}
+
+function scopeOf(build: Build, bits: number, opts: ForbiddenInputOptions, rnd: Random): Scope {
+  const maxClocks = opts.maxClocks ?? 1 << 18;
+  const { list: tries, exhaustive } = inputAssignments(machineInputs(build.machine), rnd, {
+    ...opts,
+    includeNever: true,
+  });
+  const allFit = 2 ** bits * tries.length <= maxClocks;
+  const used = build.encoding.codes;
+  const codes = allFit
+    ? allCodes(bits)
+    : [...used, ...randomCodes(bits, Math.floor(maxClocks / tries.length) - used.length, rnd, new Set(used))];
+  const freeMasters = 4 ** bits * tries.length <= Math.min(maxClocks, opts.maxFreeMasterClocks ?? 1 << 15);
+  return { tries, exhaustive, codes, allFit, freeMasters };
+}
+
 /** Prove that no latch sees S̄ = R̄ = 0 under the operating rules, and find what breaking each rule upsets. */
 export function checkForbiddenInput(
   build: Build,
@@ -110,84 +143,80 @@ export function checkForbiddenInput(
   opts: ForbiddenInputOptions = {},
 ): ForbiddenInputResult {
   const sim = simFor(build, timingOf(profile));
-  const f = build.machine;
-  const n = f.inputs.length;
-  const bits = sim.slaves.length;
-  const rnd = seededRandom(opts.seed ?? 1);
-  const maxClocks = opts.maxClocks ?? 1 << 18;
-  const exhaustive = n <= (opts.maxExhaustiveInputs ?? EXHAUSTIVE_INPUTS);
-  const tries = exhaustive
-    ? grayAssignments(n)
-    : sampledAssignments([...f.rows.flat().map((r) => r.cube), ...f.never], n, opts.samples ?? 256, rnd);
-  const allFit = 2 ** bits * tries.length <= maxClocks;
-  const codes = allFit
-    ? allCodes(bits)
-    : [
-        ...build.encoding.codes,
-        ...randomCodes(
-          bits,
-          Math.floor(maxClocks / tries.length) - build.encoding.codes.length,
-          rnd,
-          new Set(build.encoding.codes),
-        ),
-      ];
-  const freeMasters = 4 ** bits * tries.length <= Math.min(maxClocks, opts.maxFreeMasterClocks ?? 1 << 15);
-
-  let states = 0;
-  let failure: ForbiddenCounterexample | undefined;
-  const fail = (code: string, m: string, a: string, actions: HandAction[], alarms: PartEvent[]): void => {
-    const where = `with the slaves at code ${code}${m !== code ? `, the masters at ${m}` : ''} and inputs ${describeInputs(f.inputs, a)}`;
-    failure = {
-      code,
-      masterCode: m,
-      inputs: a,
-      actions,
-      trace: describeTrace(actions),
-      ...(alarms[0].latch ? { latch: alarms[0].latch } : {}),
-      words: `${where}: ${alarms[0].words}`,
-    };
-  };
-  outer: for (const c of codes) {
-    // The masters equal to the slaves first (as every clock leaves them), then every other master code.
-    for (const m of freeMasters ? [c, ...allCodes(bits).filter((x) => x !== c)] : [c]) {
-      const zero = '0'.repeat(n);
-      const base = stateAtCode(sim, c, zero, m);
-      const resetAlarms = runActions(sim, base.values, resetActions());
-      if (resetAlarms.length > 0) {
-        fail(c, m, zero, resetActions(), resetAlarms);
-        break outer;
-      }
-      forEachHeld(
-        sim,
-        base.values,
-        tries,
-        (held, a) => {
-          if (failure) return false;
-          states++;
-          const out = clockFrom(sim, held);
-          if (out.alarms.length === 0) return true;
-          fail(c, m, a, clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero)), out.alarms);
-          return false;
-        },
-        (a, alarms) =>
-          fail(c, m, a, clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero)).slice(0, -4), alarms),
-      );
-      if (failure) break outer;
-    }
-  }
+  const scope = scopeOf(build, sim.slaves.length, opts, seededRandom(opts.seed ?? 1));
+  const { states, failure } = sweep(sim, scope);
   const rules = OPERATING_RULES.map((r) => searchRule(sim, r, opts.maxActions ?? 8, opts.maxStates ?? 20_000));
-  const scope = `${allFit ? 'every code' : `${codes.length} sampled codes`}${freeMasters ? ' (masters free)' : ''} × ${exhaustive ? 'every input combination' : `${tries.length} sampled input combinations`} × both phases and reset`;
+  const { allFit, freeMasters, exhaustive } = scope;
+  const scopeWords = `${allFit ? 'every code' : `${scope.codes.length} sampled codes`}${freeMasters ? ' (masters free)' : ''} × ${exhaustive ? 'every input combination' : `${scope.tries.length} sampled input combinations`} × both phases and reset`;
   return {
     name: 'forbidden-input',
     level: 'part',
     ok: failure === undefined,
-    summary: failure ? failure.words : `no latch sees S̄ = R̄ = 0 over ${scope} (${states} start points)`,
+    summary: failure ? failure.words : `no latch sees S̄ = R̄ = 0 over ${scopeWords} (${states} start points)`,
     states,
     codes: allFit ? 'all' : 'sampled',
     masters: freeMasters ? 'free' : 'equal to slaves',
     inputs: exhaustive ? 'exhaustive' : 'sampled',
     rules,
     ...(failure ? { counterexample: failure } : {}),
+  };
+}
+
+/** Reset and one clock from every start point of the scope; the start points simulated and the first failure. */
+function sweep(sim: PartSim, scope: Scope): { states: number; failure?: ForbiddenCounterexample } {
+  const f = sim.build.machine;
+  const bits = sim.slaves.length;
+  const zero = '0'.repeat(f.inputs.length);
+  const clockFromZero = (a: string): HandAction[] =>
+    clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero));
+  let states = 0;
+  let failure: ForbiddenCounterexample | undefined;
+  for (const c of scope.codes) {
+    // The masters equal to the slaves first (as every clock leaves them), then every other master code.
+    for (const m of scope.freeMasters ? [c, ...allCodes(bits).filter((x) => x !== c)] : [c]) {
+      const base = stateAtCode(sim, c, zero, m);
+      const resetAlarms = runActions(sim, base.values, resetActions());
+      if (resetAlarms.length > 0)
+        return { states, failure: counterexample(f.inputs, c, m, zero, resetActions(), resetAlarms) };
+      forEachHeld(
+        sim,
+        base.values,
+        scope.tries,
+        (held, a) => {
+          if (failure) return false;
+          states++;
+          const out = clockFrom(sim, held);
+          if (out.alarms.length === 0) return true;
+          failure = counterexample(f.inputs, c, m, a, clockFromZero(a), out.alarms);
+          return false;
+        },
+        (a, alarms) => {
+          failure = counterexample(f.inputs, c, m, a, clockFromZero(a).slice(0, -4), alarms);
+        },
+      );
+      if (failure) return { states, failure };
+    }
+  }
+  return { states };
+}
+
+function counterexample(
+  inputs: readonly string[],
+  code: string,
+  m: string,
+  a: string,
+  actions: HandAction[],
+  alarms: PartEvent[],
+): ForbiddenCounterexample {
+  const where = `with the slaves at code ${code}${m !== code ? `, the masters at ${m}` : ''} and inputs ${describeInputs(inputs, a)}`;
+  return {
+    code,
+    masterCode: m,
+    inputs: a,
+    actions,
+    trace: describeTrace(actions),
+    ...(alarms[0].latch ? { latch: alarms[0].latch } : {}),
+    words: `${where}: ${alarms[0].words}`,
   };
 }
 

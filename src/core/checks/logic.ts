@@ -18,11 +18,34 @@
  */
 import { coverHolds, intersect, subtract, type Cube } from '../model/cube.js';
 import { DONT_CARE } from '../model/flat.js';
-import type { Build, CheckResult } from '../model/build.js';
+import type { Build, CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
 
+/** The logic-level forbidden-input proof (the part-level check carries it as `logic`). */
+export interface LogicForbiddenResult extends CheckBase<'forbidden-input'> {
+  /** Latches checked before the first failure (all of them, masters and slaves, when ok). */
+  readonly latchesChecked: number;
+  /** The latch that fails, and where (code and inputs are empty for a slave wired wrongly). */
+  readonly counterexample?: { readonly latch: string; readonly code: string; readonly inputs: string };
+}
+
+/** The result of the next-state equivalence of the equations. */
+export interface NextStateResult extends CheckBase<'next-state-equivalence'> {
+  /** (state, row cube) cells checked. */
+  readonly cellsChecked: number;
+  readonly counterexample?: {
+    readonly state: string;
+    readonly code: string;
+    readonly inputs: string;
+    /** `next q<j>` or `output <name>`. */
+    readonly what: string;
+    readonly expected: number;
+    readonly got: number | 'forbidden';
+  };
+}
+
 /** S·R = 0 for every latch, over every code and input combination. */
-export function checkForbiddenInput(build: Build): CheckResult {
+export function checkForbiddenInput(build: Build): LogicForbiddenResult {
   const bits = build.encoding.bits;
   for (let j = 0; j < bits; j++) {
     const s = build.equations[2 * j].terms,
@@ -65,12 +88,18 @@ export function checkForbiddenInput(build: Build): CheckResult {
 }
 
 /** The equations give the specified next code and outputs in every state and input cube. */
-export function checkNextStateEquivalence(build: Build): CheckResult {
+export function checkNextStateEquivalence(build: Build): NextStateResult {
   const f = build.machine;
   const { bits, codes } = build.encoding;
   const eq = build.equations;
   let cells = 0;
-  const fail = (state: number, at: Cube, what: string, expected: number, got: number | 'forbidden'): CheckResult => ({
+  const fail = (
+    state: number,
+    at: Cube,
+    what: string,
+    expected: number,
+    got: number | 'forbidden',
+  ): NextStateResult => ({
     name: 'next-state-equivalence',
     ok: false,
     summary: `in state ${f.states[state]} with inputs ${at.slice(bits) || '(none)'}: ${what} should be ${expected}, the build gives ${got}`,

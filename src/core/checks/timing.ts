@@ -11,25 +11,18 @@
  * Monte Carlo: each run draws every gate's delay uniformly within ±`stageDelaySpread` of its
  * nominal value (seededRandom), then (a) recomputes the chains and checks that each still
  * fits its cam window, and (b) replays the reachable clocks (breadth-first from reset, up to
- * `clocksPerRun`) and compares the settled result with the nominal one — a difference is a
- * race (e.g. a latch released from the forbidden input resolving differently).
+ * `clocksPerRun`; the input combinations of sim/assignments.ts's rule, without `never`) and
+ * compares the settled result with the nominal one — a difference is a race (e.g. a latch
+ * released from the forbidden input resolving differently).
  */
-import { coverHolds } from '../model/cube.js';
-import type { Build, CheckResult } from '../model/build.js';
+import type { Build, CheckBase } from '../model/build.js';
 import { seededRandom } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
+import { describeInputs, inputAssignments, machineInputs } from '../sim/assignments.js';
+import { clockFrom, forEachHeld, latchKey } from '../sim/clocking.js';
 import { retimed, type PartSim } from '../sim/compile.js';
 import { resetActions } from '../sim/hand.js';
 import { applyInPlace, powerUp, show, simFor, slaveCode, timingOf } from '../sim/part.js';
-import {
-  clockFrom,
-  describeInputs,
-  EXHAUSTIVE_INPUTS,
-  forEachHeld,
-  grayAssignments,
-  latchKey,
-  sampledAssignments,
-} from './clocking.js';
 import { stageChain, type StageChain } from './stage-chains.js';
 
 export interface TimingOptions {
@@ -51,7 +44,7 @@ export interface MonteCarloReport {
   readonly race?: { readonly run: number; readonly words: string };
 }
 
-export interface TimingResult extends CheckResult {
+export interface TimingResult extends CheckBase<'timing'> {
   readonly phaseTimesS: { readonly phi1: number; readonly phi2: number };
   /** Dead bands after releasing φ1 and φ2 (the latter includes the next inputs settling). */
   readonly deadBandsS: { readonly afterPhi1: number; readonly afterPhi2: number };
@@ -124,7 +117,7 @@ export function checkTiming(
   };
   const monteCarlo = p.loop ? { runs: 0, seed, ok: false } : monteCarloRun(sim, profile, opts, runs, seed, windows);
   const base = {
-    name: 'timing',
+    name: 'timing' as const,
     phaseTimesS: { phi1: p.phi1.timeS, phi2: p.phi2.timeS },
     deadBandsS: { afterPhi1: p.dead1.timeS, afterPhi2: p.dead2.timeS },
     resetS: p.reset.timeS,
@@ -189,17 +182,7 @@ function nominalReplay(sim: PartSim, limit: number, seed: number): Replay[] {
   const f = sim.build.machine;
   const values = powerUp(sim)[0].values.slice();
   for (const a of resetActions()) applyInPlace(sim, values, 0, a, []);
-  const n = f.inputs.length;
-  const all =
-    n <= EXHAUSTIVE_INPUTS
-      ? grayAssignments(n)
-      : sampledAssignments(
-          f.rows.flat().map((r) => r.cube),
-          n,
-          64,
-          seededRandom(seed),
-        );
-  const tries = all.filter((a) => !coverHolds(f.never, a));
+  const tries = inputAssignments(machineInputs(f), seededRandom(seed)).list;
   const out: Replay[] = [];
   const bases: Uint8Array[] = [values];
   const seen = new Set([latchKey(sim, values)]);

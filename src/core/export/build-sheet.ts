@@ -10,16 +10,14 @@
  * the pipeline ran; a section whose check is missing says so rather than guessing.
  * Pure: no I/O; text only (renderers escape).
  */
-import type { Build, CheckResult } from '../model/build.js';
+import type { Build } from '../model/build.js';
 import type { Machine } from '../model/machine.js';
 import type { Profile } from '../physics/profile.js';
 import { billOfMaterials } from '../physics/bom.js';
 import { driveBudget } from '../physics/drive.js';
 import { OPERATING_RULES, RULE_WORDS } from '../sim/hand.js';
-import type { DriveCheck } from '../physics/check-drive.js';
-import type { TimingResult } from '../checks/timing.js';
-import type { ForbiddenInputResult } from '../checks/forbidden-input.js';
-import type { RecoveryResult } from '../checks/recovery.js';
+import { momentWords, type SnapshotPlace } from '../sim/snapshots.js';
+import { findCheck, type CheckResult } from '../checks/results.js';
 import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { num } from './readable.js';
 import { equationBlocks, stateTableBlocks } from './sheet-logic.js';
@@ -47,11 +45,6 @@ export const CAUTIONS: readonly string[] = [
   "The tool's figures support, and never replace, a competent person's judgement.",
   'Defer to local codes and licensed practice.',
 ];
-
-/** A check by name, typed by the caller (the pipeline's checks carry these shapes). */
-export function checkNamed<T extends CheckResult>(checks: readonly CheckResult[], name: string): T | undefined {
-  return checks.find((c) => c.name === name) as T | undefined;
-}
 
 function summarySection(input: DocumentsInput): Section {
   const { build, checks } = input;
@@ -123,7 +116,7 @@ function safetySection(): Section {
 
 function guardSection(input: DocumentsInput): Section {
   const g = input.build.guard;
-  const fi = checkNamed<ForbiddenInputResult & { logic?: CheckResult }>(input.checks, 'forbidden-input');
+  const fi = findCheck(input.checks, 'forbidden-input');
   const blocks: Block[] = [
     p(
       'A latch must never see both of its active-low ports pulled at once (S̄ = R̄ = 0): both outputs go to 1, and releasing both together leaves the latch unpredictable. The guard keeps the set and reset functions of every master latch apart everywhere the machine can be — unused codes and impossible inputs included.',
@@ -179,8 +172,8 @@ function partsSection(input: DocumentsInput): Section {
 
 function driveSection(input: DocumentsInput): Section {
   const { build, profile } = input;
-  const budgets = driveBudget(build.netlist, profile).sort((a, b) => a.margin - b.margin);
-  const d = checkNamed<DriveCheck>(input.checks, 'drive');
+  const d = findCheck(input.checks, 'drive');
+  const budgets = [...(d?.drivers ?? driveBudget(build.netlist, profile))].sort((a, b) => a.margin - b.margin);
   const blocks: Block[] = [
     p(
       `Capstan equation: a cord wrapped ${num(profile.wraps)} turns on the drum (μ = ${num(profile.mu)}) holds up to e^(μθ) = ${num(Math.exp(profile.mu * 2 * Math.PI * profile.wraps))} times its hold tension. Margin = available ÷ load; the design rule asks at least ${num(profile.minMargin)}. Weakest first.`,
@@ -214,6 +207,7 @@ function driveSection(input: DocumentsInput): Section {
         ['', ''],
         [
           ['worst drum torque', `${num(d.worstTorqueNm, 3)} N·m`],
+          ...(d.worstAt ? [['worst drum torque at', worstPlace(d.worstAt)]] : []),
           ['worst drum power', `${num(d.worstPowerW, 2)} W at ${num(profile.drumRpm)} rev/min`],
           ['hardest lever pull', `${num(d.operatorForceMaxG, 1)} g`],
         ],
@@ -223,9 +217,15 @@ function driveSection(input: DocumentsInput): Section {
   return { id: 'drive', title: 'Drive margins', blocks };
 }
 
+/** Where the drum torque is worst, in the sheet's words. */
+function worstPlace(w: SnapshotPlace): string {
+  const code = w.code === '' ? '' : ` (code ${w.code})`;
+  return `state ${w.state}${code}, ${momentWords(w)}`;
+}
+
 function timingSection(input: DocumentsInput): Section {
-  const t = checkNamed<TimingResult>(input.checks, 'timing');
-  if (!t || t.phaseTimesS === undefined)
+  const t = findCheck(input.checks, 'timing');
+  if (!t)
     return {
       id: 'timing',
       title: 'Timing and clock rate',
@@ -291,7 +291,7 @@ function wiringSection(input: DocumentsInput): Section {
 }
 
 function rulesSection(input: DocumentsInput): Section {
-  const fi = checkNamed<ForbiddenInputResult>(input.checks, 'forbidden-input');
+  const fi = findCheck(input.checks, 'forbidden-input');
   const seq = input.build.encoding.bits > 0;
   const blocks: Block[] = [];
   if (seq) {
@@ -305,14 +305,14 @@ function rulesSection(input: DocumentsInput): Section {
       p('Reset: pull the reset lever and release it, with both clock levers released. Rules:'),
     );
     const rows = OPERATING_RULES.map((r) => {
-      const v = fi?.rules?.find((x) => x.rule === r);
+      const v = fi?.rules.find((x) => x.rule === r);
       return [
         RULE_WORDS[r],
         v ? (v.upsets.length > 0 ? v.words : 'breaking it upsets no latch within the search') : 'not checked',
       ];
     });
     blocks.push(table(['rule', 'what breaking it does (forbidden-input check)'], rows));
-    if (fi?.rules?.some((r) => r.upsets.length > 0))
+    if (fi?.rules.some((r) => r.upsets.length > 0))
       blocks.push({
         kind: 'note',
         tone: 'caution',
@@ -328,7 +328,7 @@ function rulesSection(input: DocumentsInput): Section {
       ),
     );
   }
-  const rec = checkNamed<RecoveryResult>(input.checks, 'recovery');
+  const rec = findCheck(input.checks, 'recovery');
   if (rec) blocks.push(p(`Recovery from unused codes: ${rec.ok ? 'passed' : 'FAILED'} — ${rec.summary}`));
   return { id: 'rules', title: 'Operating rules', blocks };
 }

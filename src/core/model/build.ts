@@ -76,11 +76,14 @@ export interface Build {
   readonly parts: PartCounts;
 }
 
-/** One check's result; checks add their own fields. */
-export interface CheckResult {
-  readonly name: string;
+/**
+ * The fields every check's result has. Each check's result type extends it with its own
+ * figures; the results together are the union `CheckResult` of src/core/checks/registry.ts,
+ * told apart by `name`.
+ */
+export interface CheckBase<N extends string = string> {
+  readonly name: N;
   readonly ok: boolean;
   /** One line in words. */
   readonly summary: string;
-  readonly [field: string]: unknown;
 }

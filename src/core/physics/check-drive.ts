@@ -5,27 +5,53 @@
  * operator force are reported, never failed: the motor or the visitor is chosen to suit them).
  * Fields: `name`, `ok`, `summary`, `minMargin` (smallest finite margin, null without loaded
  * drivers), `weakestCord` (heaviest cord of the driver with that margin), `worstTorqueNm`,
- * `worstPowerW`, `operatorForceMaxG` (0 without levers), `drivers` (every budget).
+ * `worstPowerW`, `worstAt` (where the worst torque is, null without snapshots),
+ * `worstByState` (the worst torque of each state), `operatorForceMaxG` (0 without levers),
+ * `drivers` (every budget). The snapshots are read once, in order, and only these worst-case
+ * figures are kept in the result.
  */
-import type { CheckResult } from '../model/build.js';
+import type { CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
 import { driveBudget, type DriverBudget } from './drive.js';
-import { drumLoad, type DriveSnapshot } from './drum.js';
+import { ALL_ENGAGED, drumLoad, type DriveSnapshot, type SnapshotTorque } from './drum.js';
 import { operatorForces } from './operator.js';
 import type { Profile } from './profile.js';
 
-export interface DriveCheck extends CheckResult {
-  readonly name: 'drive';
+/** What the drive check needs to know of where a snapshot was taken: at least the state. */
+export interface StatePlace {
+  readonly state: string;
+}
+
+/** A drum torque and power, and where they occur. */
+export interface TorqueCase<W> {
+  readonly where: W;
+  readonly torqueNm: number;
+  readonly powerW: number;
+}
+
+export interface DriveCheck<W extends StatePlace = StatePlace> extends CheckBase<'drive'> {
   readonly minMargin: number | null;
   readonly weakestCord: string | null;
   readonly worstTorqueNm: number;
   readonly worstPowerW: number;
+  /** Where the worst drum torque is (the first of equals); null without snapshots: every capstan engaged. */
+  readonly worstAt: W | null;
+  /** The worst drum torque of each state (the first of equals), states in the order the snapshots give them. */
+  readonly worstByState: readonly TorqueCase<W>[];
   readonly operatorForceMaxG: number;
   readonly drivers: readonly DriverBudget[];
 }
 
-/** Force budgets, drum torque over the snapshots, and the hardest lever pull. */
-export function checkDrive(netlist: Netlist, profile: Profile, snapshots: Iterable<DriveSnapshot>): DriveCheck {
+/**
+ * Force budgets, drum torque over the snapshots, and the hardest lever pull. `words` puts a
+ * snapshot's place in words for the summary (default: its state).
+ */
+export function checkDrive<W extends StatePlace>(
+  netlist: Netlist,
+  profile: Profile,
+  snapshots: Iterable<DriveSnapshot<W>>,
+  words: (where: W) => string = (w) => w.state,
+): DriveCheck<W> {
   const drivers = driveBudget(netlist, profile);
   const drum = drumLoad(netlist, profile, snapshots);
   const operatorForceMaxG = operatorForces(netlist, profile).reduce((m, o) => Math.max(m, o.forceG), 0);
@@ -33,7 +59,8 @@ export function checkDrive(netlist: Netlist, profile: Profile, snapshots: Iterab
   const weakest = loaded.reduce<DriverBudget | undefined>((w, d) => (!w || d.margin < w.margin ? d : w), undefined);
   const failing = drivers.filter((d) => !d.ok);
   const ok = failing.length === 0;
-  const torque = `worst drum torque ${drum.worst.torqueNm.toFixed(3)} N·m (${drum.worst.powerW.toFixed(2)} W) in '${drum.worst.label}'`;
+  const at = drum.worst.where === null ? ALL_ENGAGED : words(drum.worst.where);
+  const torque = `worst drum torque ${drum.worst.torqueNm.toFixed(3)} N·m (${drum.worst.powerW.toFixed(2)} W) in '${at}'`;
   const pull = `hardest lever pull ${operatorForceMaxG} g`;
   let summary: string;
   if (!ok) {
@@ -54,7 +81,20 @@ export function checkDrive(netlist: Netlist, profile: Profile, snapshots: Iterab
     weakestCord: weakest ? weakest.weakestCord : null,
     worstTorqueNm: drum.worst.torqueNm,
     worstPowerW: drum.worst.powerW,
+    worstAt: drum.worst.where,
+    worstByState: worstByState(drum.snapshots),
     operatorForceMaxG,
     drivers,
   };
+}
+
+/** The worst snapshot of each state (the first of equals), in the order the states first appear. */
+function worstByState<W extends StatePlace>(rows: readonly SnapshotTorque<W>[]): TorqueCase<W>[] {
+  const worst = new Map<string, TorqueCase<W>>();
+  for (const r of rows) {
+    const w = worst.get(r.where.state);
+    if (!w || r.torqueNm > w.torqueNm)
+      worst.set(r.where.state, { where: r.where, torqueNm: r.torqueNm, powerW: r.powerW });
+  }
+  return [...worst.values()];
 }

@@ -9,22 +9,24 @@
  * not pulled). Torques add per snapshot (one reachable state in one clock phase); the worst
  * snapshot sizes the motor or the crank. Power = torque × ω, ω = 2π·rpm/60.
  * Precondition: snapshot outputs keyed by driver id (lever or gate). A driver missing from a
- * snapshot is taken as engaged (the safe side) and listed under `assumed`.
- * Postcondition: with no snapshots, the worst case is every capstan engaged at once.
+ * snapshot is taken as engaged (the safe side) and listed under `assumed`. Each snapshot says
+ * where it was taken in a value of the caller's type (`where`; sim/snapshots.ts gives the
+ * state, inputs and clock phase), carried through untouched.
+ * Postcondition: with no snapshots, the worst case is every capstan engaged at once (`where: null`).
  */
 import type { Netlist } from '../model/netlist.js';
 import { availableTension } from './capstan.js';
 import { holdWeightG } from './drive.js';
 import type { Profile } from './profile.js';
 
-/** One reachable state/phase: each driver's output signal. */
-export interface DriveSnapshot {
-  readonly label: string;
+/** One reachable state/phase: where it is (the caller's type), and each driver's output signal. */
+export interface DriveSnapshot<W = string> {
+  readonly where: W;
   readonly outputs: ReadonlyMap<string, 0 | 1>;
 }
 
-export interface SnapshotTorque {
-  readonly label: string;
+export interface SnapshotTorque<W = string> {
+  readonly where: W;
   /** Drivers the snapshot gives as 0: their capstans are engaged. */
   readonly engaged: readonly string[];
   /** Drivers the snapshot did not give, counted as engaged. */
@@ -33,22 +35,23 @@ export interface SnapshotTorque {
   readonly powerW: number;
 }
 
-export interface DrumLoad {
+export interface DrumLoad<W = string> {
   /** Capstans on the drum: every lever or gate with an output cord. */
   readonly capstans: readonly { readonly driver: string; readonly torqueNm: number }[];
   readonly totalWraps: number;
   /** Drum length the wraps take: total wraps × wrap pitch. */
   readonly drumLengthM: number;
   readonly omegaRadS: number;
-  readonly snapshots: readonly SnapshotTorque[];
-  readonly worst: { readonly label: string; readonly torqueNm: number; readonly powerW: number };
+  readonly snapshots: readonly SnapshotTorque<W>[];
+  /** The worst snapshot (the first of equals); `where` is null when no snapshots were given. */
+  readonly worst: { readonly where: W | null; readonly torqueNm: number; readonly powerW: number };
 }
 
-/** Label of the worst case when no snapshots are given. */
+/** The worst case in words when no snapshots are given. */
 export const ALL_ENGAGED = 'every capstan engaged (no states given)';
 
 /** Torque per snapshot and the worst case, from the capstans engaged in each. */
-export function drumLoad(netlist: Netlist, profile: Profile, snapshots: Iterable<DriveSnapshot>): DrumLoad {
+export function drumLoad<W>(netlist: Netlist, profile: Profile, snapshots: Iterable<DriveSnapshot<W>>): DrumLoad<W> {
   const drivers = new Set(netlist.cords.map((c) => c.driver));
   const gain = availableTension(profile).gain;
   const capstans = netlist.parts.flatMap((p) => {
@@ -57,7 +60,7 @@ export function drumLoad(netlist: Netlist, profile: Profile, snapshots: Iterable
     return [{ driver: p.id, torqueNm: holdN * (gain - 1) * profile.drumRadiusM }];
   });
   const omegaRadS = (2 * Math.PI * profile.drumRpm) / 60;
-  const rows: SnapshotTorque[] = [];
+  const rows: SnapshotTorque<W>[] = [];
   for (const s of snapshots) {
     const engaged: string[] = [];
     const assumed: string[] = [];
@@ -68,15 +71,15 @@ export function drumLoad(netlist: Netlist, profile: Profile, snapshots: Iterable
       (v === undefined ? assumed : engaged).push(c.driver);
       torqueNm += c.torqueNm;
     }
-    rows.push({ label: s.label, engaged, assumed, torqueNm, powerW: torqueNm * omegaRadS });
+    rows.push({ where: s.where, engaged, assumed, torqueNm, powerW: torqueNm * omegaRadS });
   }
-  let worst: DrumLoad['worst'];
+  let worst: DrumLoad<W>['worst'];
   if (rows.length === 0) {
     const torqueNm = capstans.reduce((t, c) => t + c.torqueNm, 0);
-    worst = { label: ALL_ENGAGED, torqueNm, powerW: torqueNm * omegaRadS };
+    worst = { where: null, torqueNm, powerW: torqueNm * omegaRadS };
   } else {
     const w = rows.reduce((a, r) => (r.torqueNm > a.torqueNm ? r : a), rows[0]);
-    worst = { label: w.label, torqueNm: w.torqueNm, powerW: w.powerW };
+    worst = { where: w.where, torqueNm: w.torqueNm, powerW: w.powerW };
   }
   const totalWraps = capstans.length * profile.wraps;
   return { capstans, totalWraps, drumLengthM: totalWraps * profile.wrapPitchM, omegaRadS, snapshots: rows, worst };

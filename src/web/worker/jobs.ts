@@ -12,16 +12,14 @@ import {
   type Built,
   compareEncodings,
   DEFAULT_PROFILE,
-  type DriveCheck,
-  driveSnapshots,
-  drumLoad,
+  type DriveResult,
   type Encoding,
   equationTexts,
-  type ForbiddenInputResult,
+  findCheck,
+  momentWords,
   operatorForces,
   type Progress,
   runChecks,
-  type TimingResult,
 } from '../../core/index.js';
 import { layoutDiagram } from '../diagram/layout.js';
 import type { BuildSettings, BuildView, ChecksView, CodeRow, MarginBar, Reading, TorqueBar } from './protocol.js';
@@ -82,47 +80,31 @@ export function buildJob(
 export function checkJob(b: Built, seed: number): { built: Built; view: ChecksView } {
   const checks = runChecks(b.build, b.analysed, b.profile, seed);
   const built: Built = { ...b, checks };
-  const drive = checks.find((c) => c.name === 'drive') as DriveCheck | undefined;
+  const drive = findCheck(checks, 'drive');
   const names = new Map(b.build.netlist.parts.map((p) => [p.id, p.name]));
   const margins: MarginBar[] = (drive?.drivers ?? [])
     .filter((d) => Number.isFinite(d.margin))
     .map((d) => ({ driver: d.driver, label: names.get(d.driver) ?? d.driver, margin: d.margin, ok: d.ok }))
     .sort((x, y) => x.margin - y.margin);
-  const drum = drumLoad(b.build.netlist, b.profile, driveSnapshots(b.build, b.profile, seed));
-  const torque = torqueByState(b.build.machine.states, drum.snapshots);
-  const forbidden = checks.find((c) => c.name === 'forbidden-input') as ForbiddenInputResult | undefined;
-  const timing = checks.find((c) => c.name === 'timing') as TimingResult | undefined;
+  const forbidden = findCheck(checks, 'forbidden-input');
+  const timing = findCheck(checks, 'timing');
   return {
     built,
     view: {
       checks,
       margins,
       minMargin: b.profile.minMargin,
-      torque,
-      powerW: drum.worst.powerW,
+      torque: drive ? torqueBars(drive) : [],
+      powerW: drive?.worstPowerW ?? 0,
       ...(timing ? { timing } : {}),
       rules: forbidden?.rules ?? [],
     },
   };
 }
 
-/** The worst snapshot of each state (snapshot labels start with the state's name and a comma). */
-export function torqueByState(
-  states: readonly string[],
-  snapshots: readonly { label: string; torqueNm: number }[],
-): TorqueBar[] {
-  const worst = new Map<string, TorqueBar>();
-  for (const s of snapshots) {
-    const cut = s.label.indexOf(', ');
-    const state = cut < 0 ? s.label : s.label.slice(0, cut);
-    const at = cut < 0 ? '' : s.label.slice(cut + 2);
-    const w = worst.get(state);
-    if (!w || s.torqueNm > w.torqueNm) worst.set(state, { state, torqueNm: s.torqueNm, at });
-  }
-  return states.flatMap((s) => {
-    const w = worst.get(s);
-    return w ? [w] : [];
-  });
+/** The worst drum torque of each state, as the drive check found it (no snapshot is simulated again here). */
+export function torqueBars(drive: Pick<DriveResult, 'worstByState'>): TorqueBar[] {
+  return drive.worstByState.map((w) => ({ state: w.where.state, torqueNm: w.torqueNm, at: momentWords(w.where) }));
 }
 
 /** Every encoding side by side, priced by the finished build's part count. */

@@ -2,7 +2,7 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { SpecInfo } from '../../../src/core/checks/clocking.js';
+import type { SpecInfo } from '../../../src/core/checks/spec.js';
 import type { Build } from '../../../src/core/model/build.js';
 import { analyse, buildMachine, type BuildOptions } from '../../../src/core/pipeline.js';
 

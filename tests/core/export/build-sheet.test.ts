@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { OPERATING_RULES, RULE_WORDS } from '../../../src/core/sim/hand.js';
-import type { TimingResult } from '../../../src/core/checks/timing.js';
-import { buildSheet, CAUTIONS, checkNamed } from '../../../src/core/export/build-sheet.js';
+import { findCheck } from '../../../src/core/checks/registry.js';
+import { PHASE_WORDS } from '../../../src/core/sim/clocking.js';
+import { buildSheet, CAUTIONS } from '../../../src/core/export/build-sheet.js';
 import { buildSheetHtml, renderDocHtml } from '../../../src/core/export/build-sheet-html.js';
 import { buildSheetMd, renderDocMd } from '../../../src/core/export/build-sheet-md.js';
 import { coverExpr } from '../../../src/core/export/readable.js';
@@ -79,12 +80,21 @@ describe('core/export/build-sheet', () => {
     const b = example('marble-bell.lw');
     const html = buildSheetHtml(b);
     for (const r of OPERATING_RULES) expect(html).toContain(escapeXml(RULE_WORDS[r]));
-    const fi = checkNamed<
-      { rules: { words: string; upsets: string[] }[] } & import('../../../src/core/model/build.js').CheckResult
-    >(b.checks, 'forbidden-input');
+    const fi = findCheck(b.checks, 'forbidden-input');
     for (const r of fi?.rules ?? []) if (r.upsets.length > 0) expect(html).toContain(escapeXml(r.words));
-    const t = checkNamed<TimingResult>(b.checks, 'timing') as TimingResult;
+    const t = findCheck(b.checks, 'timing');
+    if (!t) throw new Error('the timing check must have run');
     expect(html).toContain(`${Math.round(t.clocksPerMinute * 10) / 10} clocks per minute`);
+  });
+
+  it('says where the drum torque is worst, from the drive check', () => {
+    const b = example('marble-bell.lw');
+    const d = findCheck(b.checks, 'drive');
+    if (!d?.worstAt) throw new Error('the drive check must have run over the snapshots');
+    const { state, code, inputs, phase } = d.worstAt;
+    expect(buildSheetMd(b)).toContain(
+      `| worst drum torque at | state ${state} (code ${code}), inputs ${inputs}, ${PHASE_WORDS[phase]} |`,
+    );
   });
 
   it('says a check was not run rather than guessing, and flags failed checks at the top', () => {
@@ -92,9 +102,11 @@ describe('core/export/build-sheet', () => {
     const bare = buildSheetMd({ build: b.build, checks: [], profile: b.profile });
     expect(bare).toContain('The timing check was not run for this sheet.');
     expect(bare).toContain('No checks were run for this sheet.');
+    const eq = findCheck(b.checks, 'equivalence');
+    if (!eq) throw new Error('the equivalence check must have run');
     const failed = buildSheet({
       ...b,
-      checks: [{ name: 'equivalence', ok: false, summary: 'outputs differ in state two' }],
+      checks: [{ ...eq, ok: false, summary: 'outputs differ in state two' }],
     });
     const note = failed.sections[0].blocks.find((x) => x.kind === 'note');
     expect(note).toMatchObject({ tone: 'fail', items: ['equivalence: outputs differ in state two'] });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ALL_ENGAGED, drumLoad } from '../../../src/core/physics/drum.js';
+import { drumLoad } from '../../../src/core/physics/drum.js';
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 import { cord, gate, lever } from './netlists.js';
 
@@ -21,7 +21,7 @@ describe('core/physics/drum', () => {
     const d = drumLoad(n, DEFAULT_PROFILE, [
       // Nothing pulled: L and M rest (output 0, cords pull), so g1's port is down, g1 = 1.
       {
-        label: 'rest',
+        where: 'rest',
         outputs: new Map([
           ['L', 0],
           ['M', 0],
@@ -31,7 +31,7 @@ describe('core/physics/drum', () => {
       },
       // L pulled: L's cord slack, g1's port up, g1 = 0 (its cord pulls); M still pulls.
       {
-        label: 'L pulled',
+        where: 'L pulled',
         outputs: new Map([
           ['L', 1],
           ['M', 0],
@@ -40,7 +40,7 @@ describe('core/physics/drum', () => {
         ]),
       },
       {
-        label: 'both pulled',
+        where: 'both pulled',
         outputs: new Map([
           ['L', 1],
           ['M', 1],
@@ -54,7 +54,7 @@ describe('core/physics/drum', () => {
     expect(d.snapshots.map((s) => s.engaged)).toEqual([['L', 'M'], ['M', 'g1'], ['g1']]);
     expect(d.snapshots[0].torqueNm).toBeCloseTo(2 * ONE, 7);
     expect(d.snapshots[2].torqueNm).toBeCloseTo(ONE, 7);
-    expect(d.worst.label).toBe('rest'); // first of the equal worst cases
+    expect(d.worst.where).toBe('rest'); // first of the equal worst cases
     expect(d.worst.torqueNm).toBeCloseTo(0.26055123, 7);
     expect(d.worst.powerW).toBeCloseTo(0.26055123 * OMEGA, 7);
     expect(d.omegaRadS).toBeCloseTo(OMEGA, 7);
@@ -68,12 +68,12 @@ describe('core/physics/drum', () => {
 
   it('takes every capstan as engaged when no snapshot is given', () => {
     const d = drumLoad(n, DEFAULT_PROFILE, []);
-    expect(d.worst.label).toBe(ALL_ENGAGED);
+    expect(d.worst.where).toBeNull();
     expect(d.worst.torqueNm).toBeCloseTo(3 * ONE, 7);
   });
 
   it('counts a driver missing from a snapshot as engaged and says so', () => {
-    const d = drumLoad(n, DEFAULT_PROFILE, [{ label: 'partial', outputs: new Map([['L', 1]]) }]);
+    const d = drumLoad(n, DEFAULT_PROFILE, [{ where: 'partial', outputs: new Map([['L', 1]]) }]);
     expect(d.snapshots[0].engaged).toEqual([]);
     expect(d.snapshots[0].assumed).toEqual(['M', 'g1']);
     expect(d.snapshots[0].torqueNm).toBeCloseTo(2 * ONE, 7);

@@ -2,9 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { analyse, buildMachine } from '../../../src/core/pipeline.js';
+import { findCheck } from '../../../src/core/checks/registry.js';
 import { drumLoad } from '../../../src/core/physics/drum.js';
 import { driveSnapshots } from '../../../src/core/sim/snapshots.js';
-import { buildJob, checkJob, compareJob, readJob, torqueByState } from '../../../src/web/worker/jobs.js';
+import { buildJob, checkJob, compareJob, readJob, torqueBars } from '../../../src/web/worker/jobs.js';
 import type { BuildSettings } from '../../../src/web/worker/protocol.js';
 
 const BELL = readFileSync(fileURLToPath(new URL('../../../examples/marble-bell.lw', import.meta.url)), 'utf8');
@@ -44,8 +45,12 @@ describe('src/web/worker/jobs', () => {
     const margins = c.view.margins.map((m) => m.margin);
     expect(margins).toEqual([...margins].sort((x, y) => x - y));
     expect(c.view.torque.map((t) => t.state)).toEqual(['none', 'one', 'two', 'rung']);
+    // The bars are the drive check's own figures, the same as simulating the snapshots afresh.
+    const drive = findCheck(c.view.checks, 'drive');
     const drum = drumLoad(b.built.build.netlist, b.built.profile, driveSnapshots(b.built.build, b.built.profile, 1));
     expect(Math.max(...c.view.torque.map((t) => t.torqueNm))).toBeCloseTo(drum.worst.torqueNm, 12);
+    expect(drive?.worstTorqueNm).toBe(drum.worst.torqueNm);
+    expect(c.view.powerW).toBe(drum.worst.powerW);
     expect(c.view.rules.map((r) => r.rule)).toEqual(['clocks-apart', 'inputs-steady', 'reset-alone']);
   });
 
@@ -63,18 +68,16 @@ describe('src/web/worker/jobs', () => {
     expect(kept.view?.build.parts).toEqual(gray.parts);
   });
 
-  it('takes the worst snapshot of each state by its label', () => {
-    const bars = torqueByState(
-      ['a', 'b'],
-      [
-        { label: 'a, inputs 0, φ1 pulled', torqueNm: 1 },
-        { label: 'a, inputs 1, φ2 pulled', torqueNm: 3 },
-        { label: 'b, inputs 0, inputs held', torqueNm: 2 },
+  it("draws one torque bar per state from the drive check's worst cases, the place in words", () => {
+    const bars = torqueBars({
+      worstByState: [
+        { where: { state: 'a', code: '0', inputs: '1', phase: 'phi2-pulled' }, torqueNm: 3, powerW: 6 },
+        { where: { state: 'b', code: '1', inputs: '', phase: 'inputs-held' }, torqueNm: 2, powerW: 4 },
       ],
-    );
+    });
     expect(bars).toEqual([
       { state: 'a', torqueNm: 3, at: 'inputs 1, φ2 pulled' },
-      { state: 'b', torqueNm: 2, at: 'inputs 0, inputs held' },
+      { state: 'b', torqueNm: 2, at: 'inputs —, inputs held' },
     ]);
   });
 });

@@ -1,0 +1,36 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { CHECK_NAMES, findCheck } from '../../src/core/checks/registry.js';
+import { analyse, buildMachine } from '../../src/core/pipeline.js';
+import { buildReport } from '../../src/core/report.js';
+import { placeWords } from '../../src/core/sim/snapshots.js';
+
+function built(file: string) {
+  const a = analyse(readFileSync(file, 'utf8'), file);
+  if (!a.ok) throw new Error(`${file} must analyse`);
+  const b = buildMachine(a);
+  if (!b.ok) throw new Error(`${file} must build`);
+  return b;
+}
+
+describe('core/report', () => {
+  it('carries every check in registry order, and the drive figures as the drive check found them', () => {
+    const b = built('examples/crossing.lw');
+    const report = buildReport(b);
+    expect(report.checks.map((c) => c.name)).toEqual(CHECK_NAMES);
+    const d = findCheck(report.checks, 'drive');
+    if (!d?.worstAt) throw new Error('the drive check must have run over the snapshots');
+    // The worst case overall is the worst of the per-state worst cases, and the summary names its place.
+    const worst = d.worstByState.reduce((w, x) => (x.torqueNm > w.torqueNm ? x : w));
+    expect(worst.torqueNm).toBe(d.worstTorqueNm);
+    expect(worst.where).toEqual(d.worstAt);
+    expect(d.summary).toContain(`in '${placeWords(d.worstAt)}'`);
+    expect(d.worstByState.map((w) => w.where.state)).toEqual(b.build.machine.states);
+  });
+
+  it("keeps the drive check's places as plain data: the JSON text reads back the same", () => {
+    const d = findCheck(buildReport(built('examples/marble-bell.lw')).checks, 'drive');
+    const places = { worstAt: d?.worstAt, worstByState: d?.worstByState };
+    expect(JSON.parse(JSON.stringify(places))).toEqual(places);
+  });
+});
