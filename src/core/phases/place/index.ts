@@ -33,6 +33,7 @@ import { frameUnits, type FrameUnits } from './units.js';
 
 export type { Pin, PlacementProblem } from './pins.js';
 export { frameUnits, type FrameUnits } from './units.js';
+export { auditPlacement, type AuditFinding } from './audit.js';
 
 /** Most subsets the exact method visits on one drum (measured: about 0.1 s at this size; bench/place.ts). */
 export const EXACT_LIMIT = 2 ** 16;

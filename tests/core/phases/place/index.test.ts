@@ -1,6 +1,6 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { place, type Placement } from '../../../../src/core/phases/place/index.js';
+import { auditPlacement, place, type Placement } from '../../../../src/core/phases/place/index.js';
 import { frameUnits } from '../../../../src/core/phases/place/units.js';
 import type { Netlist } from '../../../../src/core/model/netlist.js';
 import { DEFAULT_PROFILE, type Profile } from '../../../../src/core/physics/profile.js';
@@ -82,7 +82,26 @@ describe('core/phases/place', () => {
     expect(p.totalCordM).toBeCloseTo(p.routing.totalCordM, 12);
     for (const d of p.drums) expect(d.lengthM).toBeLessThanOrEqual(F.longestDrumM + 1e-9);
     expect(p.problems).toEqual([]);
+    expect(auditPlacement(n, p, DEFAULT_PROFILE)).toEqual([]);
     if (p.drums.length === 1) expect(p.baselineChannelM).toBeCloseTo(netlistOrderChannel(n, DEFAULT_PROFILE), 9);
+  });
+
+  it('places an empty netlist on one empty drum, and a lone lever in bay 1', () => {
+    const empty = place({ parts: [], cords: [] }, DEFAULT_PROFILE);
+    expect(empty).toMatchObject({
+      method: 'exact',
+      exact: true,
+      bays: [],
+      totalCordM: 0,
+      baselineCordM: 0,
+      problems: [],
+    });
+    expect(empty.drums).toEqual([{ drum: 1, lengthM: 0, levelM: 0, bays: [], method: 'exact' }]);
+    const lone = place(
+      { parts: [{ kind: 'lever', id: 'in.a', name: 'a', role: 'input' }], cords: [] },
+      DEFAULT_PROFILE,
+    );
+    expect(lone.bays).toMatchObject([{ part: 'in.a', drum: 1, bay: 1 }]);
   });
 
   it('is deterministic for a given seed', () => {
@@ -182,6 +201,45 @@ describe('core/phases/place', () => {
     expect(p.flags).toEqual([{ flag: 'flag.bell', gate: 'o.bell.1', drum: 1, bay: at.get('o.bell.1')?.bay }]);
     expect(p.latches.map((l) => l.latch).sort()).toEqual(['m0', 'm1', 's0', 's1']);
     for (const l of p.latches) expect(l.bays).toEqual([at.get(`${l.latch}.set`)?.bay, at.get(`${l.latch}.reset`)?.bay]);
+  });
+});
+
+describe('core/phases/place/audit', () => {
+  it('finds every rule a tampered placement breaks', () => {
+    const n = netlistOf('marble-bell.lw');
+    const p = place(n, DEFAULT_PROFILE);
+    const rules = (q: Placement, profile: Profile = DEFAULT_PROFILE) =>
+      auditPlacement(n, q, profile).map((f) => f.rule);
+    const at = (part: string) => p.bays.findIndex((b) => b.part === part);
+    // A latch's reset side moved onto another part's bay.
+    const moved = p.bays.map((b, i) => (i === at('m0.reset') ? { ...b, bay: p.bays[at('t.S0.1')].bay } : b));
+    expect(rules({ ...p, bays: moved })).toEqual(expect.arrayContaining(['shared-bay', 'bay-order', 'latch-apart']));
+    // A part dropped.
+    expect(rules({ ...p, bays: p.bays.filter((b) => b.part !== 'clk.phi1') })).toContain('no-bay');
+    // A clock lever at the visitor end.
+    const first = p.bays.find((b) => b.bay === 1);
+    const phi = p.bays.find((b) => b.part === 'clk.phi1');
+    const swapped = p.bays.map((b) =>
+      b === first ? { ...b, part: 'clk.phi1' } : b === phi ? { ...b, part: first?.part ?? '' } : b,
+    );
+    expect(rules({ ...p, bays: swapped })).toContain('end-rule');
+    // A branch cut short, a drum too long, too many drums.
+    const [b0, ...rest] = p.routing.branches;
+    expect(
+      rules({ ...p, routing: { ...p.routing, branches: [{ ...b0, lengthM: b0.lengthM - 0.1 }, ...rest] } }),
+    ).toEqual(['branch-length']);
+    expect(rules(p, { ...DEFAULT_PROFILE, frame: { ...F, longestDrumM: 1, drumsPerFrame: 1 } })).toEqual([
+      'drum-too-long',
+    ]);
+    expect(
+      rules(
+        { ...p, drums: [...p.drums, { ...p.drums[0], drum: 2, bays: [], lengthM: 0 }] },
+        {
+          ...DEFAULT_PROFILE,
+          frame: { ...F, drumsPerFrame: 1 },
+        },
+      ),
+    ).toEqual(['too-many-drums']);
   });
 });
 
