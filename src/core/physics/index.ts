@@ -8,3 +8,4 @@ export * from './drum.js';
 export * from './operator.js';
 export * from './bom.js';
 export * from './check-drive.js';
+export * from './routing.js';

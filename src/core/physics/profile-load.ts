@@ -2,7 +2,7 @@
  * Loading a technology profile: a JSON value that overrides any subset of DEFAULT_PROFILE.
  *
  * Contract: `loadProfile(value)` accepts any parsed JSON value. Nested objects (`routing`,
- * `cost`) merge field by field with the defaults; `cordRouting` entries are partial routing
+ * `cost`, `frame`) merge field by field with the defaults; `cordRouting` entries are partial routing
  * losses merged with `routing` where they are used. Unknown fields give LW601 (with a
  * did-you-mean hint), values outside their range LW600 naming the field and the range.
  * Postcondition: a profile is returned exactly when there are no errors, and every number in
@@ -11,7 +11,14 @@
  */
 import { diag, didYouMean, type Diagnostic } from '../model/diagnostics.js';
 import type { SourceLoc } from '../model/machine.js';
-import { DEFAULT_PROFILE, type CostWeights, type Profile, type RoutingLoss } from './profile.js';
+import {
+  DEFAULT_PROFILE,
+  type CostWeights,
+  type FrameGeometry,
+  type FrameTurn,
+  type Profile,
+  type RoutingLoss,
+} from './profile.js';
 
 /** The allowed range of one numeric profile field. */
 export interface NumberRule {
@@ -46,7 +53,30 @@ const COST_RULES: Readonly<Record<keyof CostWeights, NumberRule>> = {
   cord: { min: 0, unit: '', why: 'cost weights are 0 or more' },
 };
 
-type ScalarKey = Exclude<keyof Profile, 'routing' | 'cordRouting' | 'cost'>;
+const length = (why: string): NumberRule => positive('m', why);
+
+/** Ranges of the frame geometry (every numeric field of FrameGeometry). */
+const FRAME_RULES: Readonly<Record<Exclude<keyof FrameGeometry, 'turn'>, NumberRule>> = {
+  leverThicknessM: length('a lever blank has a thickness'),
+  leverPitchM: length('levers side by side take some rail length each'),
+  leverLengthM: length('a lever has a length'),
+  railAboveDrumM: length('the lever rail sits above the drum'),
+  channelBelowDrumM: length('the cord channel runs below the drum'),
+  drumSpacingM: length('stacked drums are some distance apart'),
+  cordDiameterM: length('a cord has a diameter'),
+  pulleyDiameterM: length('a pulley or pin has a diameter'),
+  knotAllowanceM: { min: 0, unit: 'm', why: 'a knot allowance is 0 or more' },
+  takeUpAllowanceM: { min: 0, unit: 'm', why: 'a take-up allowance is 0 or more' },
+  actuatorRunM: { min: 0, unit: 'm', why: 'the run to an actuator is 0 or more' },
+  bayClearanceM: { min: 0, unit: 'm', why: 'a clearance is 0 or more' },
+  longestDrumM: length('a drum has a length'),
+  drumsPerFrame: { min: 1, integer: true, unit: 'count', why: 'a whole number of drums, at least 1' },
+};
+
+/** The values `frame.turn` may take. */
+export const FRAME_TURNS: readonly FrameTurn[] = ['pulley', 'pin'];
+
+type ScalarKey = Exclude<keyof Profile, 'routing' | 'cordRouting' | 'cost' | 'frame'>;
 
 const SCALAR_RULES: Readonly<Record<ScalarKey, NumberRule>> = {
   portWeightG: mass('a pull-up weight must be heavier than nothing'),
@@ -84,6 +114,7 @@ export const PROFILE_RULES: Readonly<Record<string, NumberRule>> = {
   ...SCALAR_RULES,
   ...prefixed('routing', ROUTING_RULES),
   ...prefixed('cost', COST_RULES),
+  ...prefixed('frame', FRAME_RULES),
 };
 
 /** Top-level keys a profile file may carry besides the fields of Profile. */
@@ -113,6 +144,7 @@ function fits(v: number, r: NumberRule): boolean {
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
 /** Validate `value` as a profile override and merge it over DEFAULT_PROFILE. */
+// eslint-disable-next-line max-lines-per-function -- one pass over the profile's top-level keys with the checks they share as closures; each key is a line or two
 export function loadProfile(value: unknown, where?: string): { profile?: Profile; diagnostics: Diagnostic[] } {
   const ds: Diagnostic[] = [];
   const loc = (path: string): SourceLoc => (where !== undefined ? { file: where, path } : { path });
@@ -196,6 +228,8 @@ export function loadProfile(value: unknown, where?: string): { profile?: Profile
       out.routing = mergeGroup(path, v, ROUTING_RULES, DEFAULT_PROFILE.routing);
     } else if (k === 'cost') {
       out.cost = mergeGroup(path, v, COST_RULES, DEFAULT_PROFILE.cost);
+    } else if (k === 'frame') {
+      out.frame = mergeFrame(path, v, mergeGroup, ds, loc);
     } else if (k === 'cordRouting') {
       if (!isObject(v)) {
         ds.push(diag('LW600', "profile field 'cordRouting' must be an object of cord id → routing loss", loc(path)));
@@ -220,8 +254,41 @@ export function loadProfile(value: unknown, where?: string): { profile?: Profile
     : { profile: out as unknown as Profile, diagnostics: ds };
 }
 
-/** Dotted paths a `sources` entry may name: every numeric field and `cordRouting`. */
-export const SOURCE_KEYS: readonly string[] = [...Object.keys(PROFILE_RULES), 'cordRouting'];
+type MergeGroup = <T extends object>(
+  path: string,
+  v: unknown,
+  rules: Readonly<Record<string, NumberRule>>,
+  base: T,
+) => T;
+
+/** The `frame` group: its numbers through the common merge, its one word field (`turn`) checked here. */
+function mergeFrame(
+  path: string,
+  v: unknown,
+  mergeGroup: MergeGroup,
+  ds: Diagnostic[],
+  loc: (p: string) => SourceLoc,
+): FrameGeometry {
+  if (!isObject(v) || !Object.hasOwn(v, 'turn')) return mergeGroup(path, v, FRAME_RULES, DEFAULT_PROFILE.frame);
+  const { turn, ...numbers } = v;
+  const merged = mergeGroup(path, numbers, FRAME_RULES, DEFAULT_PROFILE.frame);
+  if (typeof turn === 'string' && (FRAME_TURNS as readonly string[]).includes(turn))
+    return { ...merged, turn: turn as FrameTurn };
+  const got = typeof turn === 'string' ? turn : (JSON.stringify(turn) ?? String(turn));
+  const guess = typeof turn === 'string' ? didYouMean(turn, FRAME_TURNS) : undefined;
+  ds.push(
+    diag(
+      'LW600',
+      `profile field 'frame.turn' must be ${FRAME_TURNS.map((t) => `"${t}"`).join(' or ')}; got ${got}`,
+      loc(`${path}.turn`),
+      guess ? `did you mean '${guess}'?` : 'a cord turns over a pulley or over a smooth fixed pin',
+    ),
+  );
+  return merged;
+}
+
+/** Dotted paths a `sources` entry may name: every numeric field, `frame.turn` and `cordRouting`. */
+export const SOURCE_KEYS: readonly string[] = [...Object.keys(PROFILE_RULES), 'frame.turn', 'cordRouting'];
 
 function checkSources(v: unknown, path: string, ds: Diagnostic[], loc: (p: string) => SourceLoc): void {
   if (!isObject(v)) {

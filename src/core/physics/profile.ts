@@ -14,6 +14,46 @@ export interface RoutingLoss {
   readonly pulleyEfficiency: number;
 }
 
+/** How a cord changes direction in the frame: over a pulley (efficiency η) or a smooth fixed pin (capstan equation). */
+export type FrameTurn = 'pulley' | 'pin';
+
+/**
+ * The frame's geometry (design §11): where levers, drum, cord channel and pulleys sit, and the
+ * allowances a cord is cut with. Heights are measured from the drum's axis.
+ */
+export interface FrameGeometry {
+  /** Thickness of one lever blank, metres. */
+  readonly leverThicknessM: number;
+  /** Distance between neighbouring levers on the pivot rail (blank, washers and the weight hook's gap), metres. */
+  readonly leverPitchM: number;
+  /** Length of one lever blank, metres. */
+  readonly leverLengthM: number;
+  /** Height of the lever pivot rail above the drum's axis (the drop from rail to drum), metres. */
+  readonly railAboveDrumM: number;
+  /** Depth of the cord channel below the drum's axis, metres. */
+  readonly channelBelowDrumM: number;
+  /** Vertical distance between the axes of two drums stacked one above the other, metres. */
+  readonly drumSpacingM: number;
+  /** Diameter of the cord, metres. */
+  readonly cordDiameterM: number;
+  /** Diameter of a pulley or pin at a turn of the cord (its bend radius is half of it), metres. */
+  readonly pulleyDiameterM: number;
+  /** What each turn of a cord passes: a pulley or a smooth pin. */
+  readonly turn: FrameTurn;
+  /** Cord allowed for a knot at each end of a piece, metres. */
+  readonly knotAllowanceM: number;
+  /** Cord allowed per branch for lever travel and adjustment at the knot, metres. */
+  readonly takeUpAllowanceM: number;
+  /** Cord from the frame's exit pulley to an actuator's load, metres. */
+  readonly actuatorRunM: number;
+  /** Space added to a bay beside its capstan's wraps, metres. */
+  readonly bayClearanceM: number;
+  /** Longest drum the frame may carry (sag, and a person's reach along it), metres. */
+  readonly longestDrumM: number;
+  /** Most drums (or sides of one drum) one frame may carry. */
+  readonly drumsPerFrame: number;
+}
+
 export interface CostWeights {
   readonly gate: number;
   readonly latch: number;
@@ -53,7 +93,10 @@ export interface Profile {
   readonly drumRpm: number;
   /** Length of drum taken by one wrap, metres. */
   readonly wrapPitchM: number;
-  /** Typical length of one cord branch, metres (for the bill of materials). */
+  /**
+   * Typical length of one cord branch, metres: the fallback for the bill of materials where a
+   * build has no placement (a placed build measures every branch from the frame geometry).
+   */
   readonly cordBranchM: number;
   /** Time for one gate stage (lever swing plus cord take-up), seconds. */
   readonly stageDelayS: number;
@@ -61,6 +104,8 @@ export interface Profile {
   readonly stageDelaySpread: number;
   /** Weights per part kind for the encoding search's cost. */
   readonly cost: CostWeights;
+  /** The frame's geometry: bays, cord channel, pulleys, allowances, drum limits. */
+  readonly frame: FrameGeometry;
 }
 
 /** The shipped defaults (profiles/default.json carries the same values with their sources). */
@@ -84,4 +129,21 @@ export const DEFAULT_PROFILE: Profile = {
   stageDelayS: 0.25,
   stageDelaySpread: 0.3,
   cost: { gate: 4, latch: 8, lever: 2, capstan: 3, weight: 1, cord: 1 },
+  frame: {
+    leverThicknessM: 0.012,
+    leverPitchM: 0.03,
+    leverLengthM: 0.3,
+    railAboveDrumM: 0.2,
+    channelBelowDrumM: 0.12,
+    drumSpacingM: 0.6,
+    cordDiameterM: 0.003,
+    pulleyDiameterM: 0.03,
+    turn: 'pulley',
+    knotAllowanceM: 0.05,
+    takeUpAllowanceM: 0.1,
+    actuatorRunM: 1,
+    bayClearanceM: 0.02,
+    longestDrumM: 1.5,
+    drumsPerFrame: 2,
+  },
 };

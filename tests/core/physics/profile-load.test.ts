@@ -5,7 +5,7 @@ import { loadProfile, PROFILE_META_KEYS, PROFILE_RULES, SOURCE_KEYS } from '../.
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 
 const readJson = (rel: string): Record<string, unknown> =>
-  JSON.parse(readFileSync(new URL(rel, import.meta.url), 'utf8'));
+  JSON.parse(readFileSync(new URL(rel, import.meta.url), 'utf8')) as Record<string, unknown>;
 const defaultFile = readJson('../../../profiles/default.json');
 const schema = readJson('../../../schemas/profile.schema.json') as {
   additionalProperties: boolean;
@@ -137,6 +137,26 @@ describe('core/physics/profile-load', () => {
       ['LW601', '$.routing.__proto__'],
       ['LW601', '$.cost.constructor'],
     ]);
+  });
+
+  it('merges the frame geometry field by field, and checks it', () => {
+    const { profile, diagnostics } = loadProfile({ frame: { longestDrumM: 0.9, turn: 'pin' } });
+    expect(diagnostics).toEqual([]);
+    expect(profile?.frame).toEqual({ ...DEFAULT_PROFILE.frame, longestDrumM: 0.9, turn: 'pin' });
+    const ds = errorsOf({
+      frame: { leverPitchM: 0, drumsPerFrame: 1.5, knotAllowanceM: -0.1, turn: 'pulleys', lever: 1 },
+    });
+    expect(ds.map((d) => [d.code, d.location.path])).toEqual([
+      ['LW600', '$.frame.leverPitchM'],
+      ['LW600', '$.frame.drumsPerFrame'],
+      ['LW600', '$.frame.knotAllowanceM'],
+      ['LW601', '$.frame.lever'],
+      ['LW600', '$.frame.turn'],
+    ]);
+    expect(ds[4]).toMatchObject({ hint: "did you mean 'pulley'?" });
+    expect(ds[4].message).toContain("'frame.turn'");
+    expect(errorsOf({ frame: { turn: 3 } })[0]).toMatchObject({ code: 'LW600', location: { path: '$.frame.turn' } });
+    expect(errorsOf({ frame: 'wide' })[0]).toMatchObject({ code: 'LW600', location: { path: '$.frame' } });
   });
 
   it('rejects a value that is not an object with LW100', () => {

@@ -1,0 +1,222 @@
+/**
+ * The order of the bays on every drum, once each unit has its drum.
+ *
+ * Each drum is one arrangement problem (problem.ts): its units, the branches between its
+ * bays as edges, and every branch to another drum as an anchor at that part's current
+ * position there. A drum is solved exactly (exact.ts) when the subsets the exact method would
+ * visit are within the limit, and otherwise by the heuristic: the spectral order both ways
+ * round and the netlist's own order, each improved by local search (improve.ts), the cheapest
+ * kept. With more than one drum the drums are solved in turn, each against the others'
+ * positions, for a few rounds (block coordinate descent); the best round is kept.
+ */
+import type { Random } from '../../model/random.js';
+import { arrangeExact, EXACT_MAX_UNITS, exactStates } from './exact.js';
+import { improve, type ImproveOptions } from './improve.js';
+import { cheapest, fillOrder, spectralStarts } from './order.js';
+import { type Anchor, type ArrangeProblem, type Arrangement, type Edge } from './problem.js';
+import type { Bay, FrameUnits } from './units.js';
+
+/** Rounds of solving the drums in turn against each other (all but the last without kicks). */
+const ROUNDS = 2;
+/** Fewest kicks a drum's local search gets however many drums there are. */
+const MIN_KICKS = 8;
+
+export type DrumMethod = 'exact' | 'heuristic' | 'netlist';
+
+export interface ArrangeSettings {
+  /** 'optimise' searches; 'netlist' keeps the netlist's own order (the baseline). */
+  readonly mode: 'optimise' | 'netlist';
+  /** Most subsets the exact method may visit on one drum; 0 never uses it. */
+  readonly exactLimit: number;
+  /** Use the heuristic even where the exact method fits (for comparisons). */
+  readonly forceHeuristic?: boolean;
+  readonly improve: ImproveOptions;
+}
+
+/** Every bay's drum (0-based), index on it, and centre. */
+export interface Positions {
+  readonly drumOfBay: Int32Array;
+  readonly indexOfBay: Int32Array;
+  readonly centreM: Float64Array;
+  /** Units of each drum from the visitor end, with which are flipped (by global unit index). */
+  readonly orders: readonly (readonly number[])[];
+  readonly flipped: readonly boolean[];
+  readonly methods: readonly DrumMethod[];
+}
+
+/** Where the lever `name` of a bay sits, from the bay's centre: levers share the bay's width evenly. */
+export function leverOffset(bay: Bay, name: string): number {
+  const i = Math.max(0, bay.levers.indexOf(name));
+  return ((i + 0.5) * bay.widthM) / bay.levers.length - bay.widthM / 2;
+}
+
+interface DrumProblem {
+  readonly problem: ArrangeProblem;
+  /** Local unit → global unit. */
+  readonly units: readonly number[];
+  /** Local bay → global bay. */
+  readonly bays: readonly number[];
+}
+
+function drumProblem(
+  fu: FrameUnits,
+  drumOf: Int32Array,
+  d: number,
+  pins: ReadonlyMap<number, { drum: number; index: number }>,
+  at: Positions | undefined,
+  solved: ReadonlySet<number>,
+): DrumProblem {
+  const units = fu.units.map((_, u) => u).filter((u) => drumOf[u] === d);
+  const bays = units.flatMap((u) => fu.units[u].bays);
+  const localBay = new Map(bays.map((b, i) => [b, i]));
+  const edges: Edge[] = [];
+  const anchors: Anchor[] = [];
+  for (const br of fu.branches) {
+    const dr = localBay.get(br.driverBay);
+    const tg = localBay.get(br.targetBay);
+    const off = leverOffset(fu.bays[br.targetBay], br.lever);
+    if (dr !== undefined && tg !== undefined) {
+      if (dr !== tg) edges.push({ a: dr, b: tg, w: 1, da: 0, db: off });
+    } else if (at && dr !== undefined && solved.has(at.drumOfBay[br.targetBay]))
+      anchors.push({ bay: dr, d: 0, xM: at.centreM[br.targetBay] + off, w: 1 });
+    else if (at && tg !== undefined && solved.has(at.drumOfBay[br.driverBay]))
+      anchors.push({ bay: tg, d: off, xM: at.centreM[br.driverBay], w: 1 });
+  }
+  const pinMap = new Map<number, number>();
+  for (const [b, pin] of pins) {
+    const lb = localBay.get(b);
+    if (lb !== undefined && pin.drum === d) pinMap.set(lb, pin.index);
+  }
+  const problem: ArrangeProblem = {
+    units: units.map((u) => ({
+      bays: fu.units[u].bays.map((b) => localBay.get(b) as number),
+      flippable: fu.units[u].kind === 'latch',
+      zone: fu.units[u].zone,
+    })),
+    bayWidthM: bays.map((b) => fu.bays[b].widthM),
+    edges,
+    anchors,
+    pins: pinMap,
+  };
+  return { problem, units, bays };
+}
+
+/** Solve one drum's problem; undefined when no order meets its pins. */
+function solve(
+  p: ArrangeProblem,
+  s: ArrangeSettings,
+  rng: Random,
+  quick: boolean,
+): { a: Arrangement; method: DrumMethod } | undefined {
+  const netlistOrder = p.units.map((_, i) => i);
+  const own = fillOrder(p, netlistOrder);
+  const exactFits = p.units.length <= EXACT_MAX_UNITS && exactStates(p) <= s.exactLimit;
+  if (s.mode === 'netlist') {
+    const a = own ?? (exactFits ? arrangeExact(p) : undefined);
+    return a && { a, method: 'netlist' };
+  }
+  if (exactFits && !s.forceHeuristic) {
+    const a = arrangeExact(p);
+    return a && { a, method: 'exact' };
+  }
+  const starts = [...spectralStarts(p, rng.fork()), ...(own ? [own] : [])];
+  if (starts.length === 0) {
+    const a = exactFits ? arrangeExact(p) : undefined;
+    return a && { a, method: 'exact' };
+  }
+  // Screen every start with a plain descent on a share of the work, then spend the rest on kicks from the best.
+  const share = { ...s.improve, kicks: 0, work: s.improve.work / (2 * starts.length) };
+  const screened = starts.map((a) => improve(p, a, rng.fork(), share));
+  const best = cheapest(p, screened) ?? screened[0];
+  if (quick) return { a: best, method: 'heuristic' };
+  return { a: improve(p, best, rng.fork(), { ...s.improve, work: s.improve.work / 2 }), method: 'heuristic' };
+}
+
+function positionsOf(
+  fu: FrameUnits,
+  drums: number,
+  orders: number[][],
+  flipped: boolean[],
+  methods: DrumMethod[],
+): Positions {
+  const nb = fu.bays.length;
+  const drumOfBay = new Int32Array(nb);
+  const indexOfBay = new Int32Array(nb);
+  const centreM = new Float64Array(nb);
+  for (let d = 0; d < drums; d++) {
+    let x = 0;
+    let k = 0;
+    for (const u of orders[d]) {
+      const bays = flipped[u] ? [...fu.units[u].bays].reverse() : fu.units[u].bays;
+      for (const b of bays) {
+        drumOfBay[b] = d;
+        indexOfBay[b] = k++;
+        centreM[b] = x + fu.bays[b].widthM / 2;
+        x += fu.bays[b].widthM;
+      }
+    }
+  }
+  return {
+    drumOfBay,
+    indexOfBay,
+    centreM,
+    orders: orders.map((o) => [...o]),
+    flipped: [...flipped],
+    methods: [...methods],
+  };
+}
+
+/** The total channel length over every drum (each cross-drum branch once). */
+export function channelLength(fu: FrameUnits, at: Positions): number {
+  let s = 0;
+  for (const br of fu.branches)
+    if (br.driverBay !== br.targetBay)
+      s += Math.abs(at.centreM[br.driverBay] - at.centreM[br.targetBay] - leverOffset(fu.bays[br.targetBay], br.lever));
+  return s;
+}
+
+/**
+ * Order every drum's bays. `pins` maps a bay to its drum and 0-based index; a drum whose pins
+ * cannot be met is returned in `unmet` and solved without them.
+ */
+export function arrangeDrums(
+  fu: FrameUnits,
+  drumOf: Int32Array,
+  drums: number,
+  pins: ReadonlyMap<number, { drum: number; index: number }>,
+  s: ArrangeSettings,
+  rng: Random,
+): { at: Positions; unmet: number[] } {
+  const orders: number[][] = Array.from({ length: drums }, () => []);
+  const flipped = new Array<boolean>(fu.units.length).fill(false);
+  const methods = new Array<DrumMethod>(drums).fill(s.mode === 'netlist' ? 'netlist' : 'exact');
+  const unmet: number[] = [];
+  let at: Positions | undefined;
+  let best: { at: Positions; cost: number } | undefined;
+  const rounds = drums > 1 && s.mode === 'optimise' ? ROUNDS : 1;
+  // Many drums share the kicks of about three, so the work grows with the machine, not with drums × kicks.
+  const kicks = Math.min(s.improve.kicks, Math.max(MIN_KICKS, Math.ceil((3 * s.improve.kicks) / drums)));
+  const each: ArrangeSettings = { ...s, improve: { ...s.improve, kicks } };
+  const done = new Set<number>();
+  for (let round = 0; round < rounds; round++) {
+    for (let d = 0; d < drums; d++) {
+      const dp = drumProblem(fu, drumOf, d, unmet.includes(d) ? new Map() : pins, at, done);
+      const quick = round < rounds - 1;
+      let solved = solve(dp.problem, each, rng.fork(), quick);
+      if (!solved) {
+        unmet.push(d);
+        solved = solve({ ...dp.problem, pins: new Map() }, each, rng.fork(), quick);
+      }
+      if (!solved) throw new Error('an arrangement without pins always exists');
+      orders[d] = solved.a.order.map((u) => dp.units[u]);
+      solved.a.flipped.forEach((f, u) => (flipped[dp.units[u]] = f));
+      methods[d] = solved.method;
+      at = positionsOf(fu, drums, orders, flipped, methods);
+      done.add(d);
+    }
+    if (!at) break;
+    const cost = channelLength(fu, at);
+    if (!best || cost < best.cost - 1e-12) best = { at, cost };
+  }
+  return { at: best?.at ?? positionsOf(fu, drums, orders, flipped, methods), unmet };
+}
