@@ -78,6 +78,32 @@ export {
 } from './pipeline.js';
 export type { StateMinimisation } from './phases/minimise-states/index.js';
 
+// ── The frame: where every part sits and how every cord runs ────────────────────────────────
+export {
+  auditPlacement,
+  EXACT_LIMIT,
+  place,
+  type AuditFinding,
+  type Pin,
+  type PlaceOptions,
+  type PlacedBayInfo,
+  type PlacedDrum,
+  type Placement,
+  type PlacementProblem,
+} from './phases/place/index.js';
+export {
+  leavingLoss,
+  lossByBranch,
+  route,
+  type BranchRoute,
+  type CordRoute,
+  type CordRun,
+  type FrameLayout,
+  type PlacedBay,
+  type RoutePoint,
+  type Routing,
+} from './physics/routing.js';
+
 // ── Encodings (the encodings registry) ──────────────────────────────────────────────────────
 export {
   DEFAULT_ENCODING,
@@ -113,6 +139,7 @@ export {
 export { checkRecovery, type RecoveryOptions, type RecoveryResult } from './checks/recovery.js';
 export { checkTiming, type MonteCarloReport, type TimingOptions, type TimingResult } from './checks/timing.js';
 export { checkDrive, type DriveCheck } from './physics/check-drive.js';
+export { checkLayout, type LayoutFinding, type LayoutResult } from './checks/layout.js';
 export { driveSnapshots, momentWords, placeWords, type SnapshotPlace } from './sim/snapshots.js';
 export {
   CHECK_NAMES,
@@ -174,14 +201,20 @@ export { randomFlatMachine } from './sim/random-machine.js';
 export { DEFAULT_PROFILE, type CostWeights, type Profile, type RoutingLoss } from './physics/profile.js';
 export { loadProfile } from './physics/profile-load.js';
 export { availableTension, capstanGain, type Tension } from './physics/capstan.js';
-export { driveBudget, type BranchLoad, type DriverBudget } from './physics/drive.js';
+export { branchKey, driveBudget, type BranchLoad, type BranchLosses, type DriverBudget } from './physics/drive.js';
 export { drumLoad, type DriveSnapshot, type DrumLoad, type SnapshotTorque } from './physics/drum.js';
 export { operatorForces, type OperatorForce } from './physics/operator.js';
-export { billOfMaterials, type BomRow } from './physics/bom.js';
+export { billOfMaterials, type BomRow, type FrameFigures } from './physics/bom.js';
 
 // ── Documents (the documents registry) and the report ───────────────────────────────────────
 export {
   bomCsv,
+  camsSvg,
+  cutListCsv,
+  cutListRows,
+  frameScale,
+  frameSvg,
+  partWords,
   buildDocuments,
   buildSheet,
   buildSheetHtml,
@@ -204,8 +237,10 @@ export {
   type DocumentName,
   type DocumentsInput,
   type DocumentSources,
+  type CutRow,
+  type Drawings,
   type TourClock,
   type VerilogFiles,
   type WiringRow,
 } from './export/index.js';
-export { buildReport, equationTexts, machineBlock } from './report.js';
+export { buildReport, equationTexts, layoutBlock, machineBlock } from './report.js';

@@ -15,6 +15,7 @@ import {
   formatDiagnostic,
   hasErrors,
   loadProfile,
+  type Pin,
   type Profile,
 } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
@@ -70,6 +71,8 @@ export function buildFromArgs(args: ParsedArgs, io: CliIo, extra: Partial<BuildO
   if (typeof seed === 'object') return { ok: false, file: src.file, diagnostics: [seed] };
   const encoding = encodingFrom(args);
   if (typeof encoding === 'object') return { ok: false, file: src.file, diagnostics: [encoding] };
+  const pinned = pinsFrom(args);
+  if ('error' in pinned) return { ok: false, file: src.file, diagnostics: [pinned.error] };
   const a = analyse(src.text, src.file);
   if (!a.ok) return { ok: false, diagnostics: a.diagnostics, file: src.file };
   const b = buildMachine(a, {
@@ -77,10 +80,37 @@ export function buildFromArgs(args: ParsedArgs, io: CliIo, extra: Partial<BuildO
     profile: prof.profile,
     seed,
     unusedCodes: typeof args.flags.unused === 'string' ? args.flags.unused : undefined,
+    pins: pinned.pins,
     ...extra,
   });
   if (!b.ok) return { ok: false, diagnostics: [...prof.diagnostics, ...b.diagnostics], file: src.file };
   return { ok: true, built: b, file: src.file, diagnostics: [...prof.diagnostics, ...b.diagnostics] };
+}
+
+/**
+ * The --pin options: `PART=BAY` or `PART=BAY@DRUM`, repeated or joined with commas, as pins by
+ * part id; LW700 for one that is not written so. Whether the part and bay exist is the place
+ * phase's to say (LW706, LW707).
+ */
+export function pinsFrom(args: ParsedArgs): { pins: Record<string, Pin> } | { error: Diagnostic } {
+  // Entries, then Object.fromEntries: a part named like an Object property stays a plain key.
+  const pins: [string, Pin][] = [];
+  for (const raw of (args.lists.pin ?? []).flatMap((v) => v.split(','))) {
+    const text = raw.trim();
+    if (text === '') continue;
+    const m = /^(.+?)=(\d+)(?:@(\d+))?$/.exec(text);
+    if (!m)
+      return {
+        error: diag(
+          'LW700',
+          `--pin ${text} is not PART=BAY or PART=BAY@DRUM`,
+          { path: '--pin' },
+          'write the part id, =, and the bay counted from 1 at the visitor end, e.g. --pin rst=22 or --pin m0=5@2',
+        ),
+      };
+    pins.push([m[1].trim(), m[3] === undefined ? { bay: Number(m[2]) } : { bay: Number(m[2]), drum: Number(m[3]) }]);
+  }
+  return { pins: Object.fromEntries(pins) };
 }
 
 /** The --seed option: undefined when absent, else a whole number ≥ 0, or LW700. */

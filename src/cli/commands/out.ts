@@ -7,7 +7,13 @@ export function writeDocuments(
   dir: string,
   force: boolean,
 ): { ok: true; files: string[] } | { ok: false; diagnostic: Diagnostic } {
-  const files = buildDocuments({ build: b.build, checks: b.checks, profile: b.profile, analysed: b.analysed });
+  const files = buildDocuments({
+    build: b.build,
+    checks: b.checks,
+    profile: b.profile,
+    analysed: b.analysed,
+    placement: b.placement,
+  });
   const w = writeBuildFolder(dir, files, { force });
   return w.ok ? { ok: true, files: w.files } : { ok: false, diagnostic: w.diagnostic };
 }

@@ -208,6 +208,18 @@ export const DIAGNOSTIC_CODES = {
       'A file named on the command line (the machine, the profile or the input sequence) could not be read: it does not exist, is a folder, or may not be read.',
     fix: 'Check the path; name a file, not a folder.',
   },
+  LW706: {
+    severity: 'error',
+    cause:
+      'A pin (--pin PART=BAY) names a part the build does not have, a part that takes no bay of its own (a flag), a bay or drum the frame cannot have, or a bay another pin already holds.',
+    fix: 'Pin a gate, latch, lever or actuator by its id (netlist.json lists them) to a bay counted from 1, on a drum the frame carries.',
+  },
+  LW707: {
+    severity: 'warning',
+    cause:
+      'A pin could not be kept in this build: its drum has fewer bays than the pin asks for, or the pins on one drum cannot all be met together. The pin is dropped and the part placed freely.',
+    fix: 'Pin it to a bay the drum has (the frame drawing numbers them), or move one of the pins by a bay.',
+  },
 } as const satisfies Record<string, CodeInfo>;
 
 export type DiagnosticCode = keyof typeof DIAGNOSTIC_CODES;

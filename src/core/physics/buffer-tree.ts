@@ -13,6 +13,11 @@
  * them, giving a deeper tree; every step lightens the driver or removes branches, or stops.
  * Preconditions: a netlist meeting the netlist invariants.
  * A latch's feedback cord branch is never moved (it would slow the latch).
+ * Routing loss: without `losses`, every branch takes its cord's routing in the profile (the
+ * build before it is placed). With `losses` (the routed frame, physics/routing.ts), a branch
+ * takes its routed loss, and every branch the plan moves or adds — whose route is not known
+ * until the build is placed again — the loss of a branch that leaves its bay (`leavingLoss`,
+ * the most a computed route costs), so a budget planned here holds once the build is routed.
  * Postconditions: every driver that can be balanced passes; a driver that cannot (a single
  * branch heavier than any capstan can lift, or buffers that cannot help at this μ) is left
  * exactly as it was, so the drive check names its cord. Ids are stable: the k-th pair made
@@ -21,14 +26,49 @@
  */
 import type { Cord, GatePart, Netlist, Part, PortRef } from '../model/netlist.js';
 import { availableTension, routingFactor, routingFor } from './capstan.js';
-import { driveBudget, holdWeightG, portLoadG } from './drive.js';
+import { branchKey, driveBudget, holdWeightG, portLoadG, type BranchLosses } from './drive.js';
 import type { Profile } from './profile.js';
+import { leavingLoss } from './routing.js';
 
 interface Branch {
   readonly port?: PortRef;
   readonly actuator?: string;
   /** Load before routing loss, grams-force. */
   readonly baseG: number;
+  /** Routing loss where the branch is now. */
+  readonly loss: number;
+}
+
+/** How the plan prices routing: a branch of the netlist, and a branch the plan moves or adds. */
+interface LossModel {
+  existing(cord: string, target: string): number;
+  /** On cord `cord` (default: a new cord). */
+  planned(cord?: string): number;
+  /** Every branch of a trial netlist, for its budget (undefined: the profile's routing). */
+  complete(n: Netlist): BranchLosses | undefined;
+}
+
+function lossModel(profile: Profile, losses: BranchLosses | undefined): LossModel {
+  const straight = (cord: string): number => routingFactor(routingFor(profile, cord));
+  if (!losses)
+    return {
+      existing: straight,
+      planned: (cord) => (cord === undefined ? routingFactor(profile.routing) : straight(cord)),
+      complete: () => undefined,
+    };
+  const leaving = (cord?: string): number => leavingLoss(profile, cord);
+  return {
+    // A cord the plan gives a new branch leaves its bay, so its branches cost at least that.
+    existing: (cord, target) => Math.max(losses.get(branchKey(cord, target)) ?? 0, leaving(cord)),
+    planned: leaving,
+    complete: (n) => {
+      const out = new Map(losses);
+      for (const c of n.cords)
+        for (const t of [...c.ports.map((p) => `${p.part}.${p.port}`), ...c.actuators])
+          if (!out.has(branchKey(c.id, t))) out.set(branchKey(c.id, t), leaving(c.id));
+      return out;
+    },
+  };
 }
 
 interface WorkCord {
@@ -37,25 +77,26 @@ interface WorkCord {
   branches: Branch[];
 }
 
-/** Insert buffer pairs wherever a driver's margin fails, so that every budget that can pass does. */
-export function balanceDrive(netlist: Netlist, profile: Profile): Netlist {
-  const failing = driveBudget(netlist, profile).filter((b) => !b.ok);
+/** Insert buffer pairs wherever a driver's margin fails, so that every budget that can pass does; `losses` from the routed frame. */
+export function balanceDrive(netlist: Netlist, profile: Profile, losses?: BranchLosses): Netlist {
+  const failing = driveBudget(netlist, profile, losses).filter((b) => !b.ok);
   if (failing.length === 0) return netlist;
   const parts = new Map(netlist.parts.map((p) => [p.id, p]));
   const used = new Set<string>([...parts.keys(), ...netlist.cords.map((c) => c.id)]);
   const replaced = new Map<string, Cord>();
   const newParts: Part[] = [];
   const newCords: Cord[] = [];
+  const model = lossModel(profile, losses);
   for (const f of failing) {
     const own = netlist.cords.filter((c) => c.driver === f.driver);
-    const plan = planDriver(f.driver, f.driverKind, own, parts, used, profile);
+    const plan = planDriver(f.driver, f.driverKind, own, parts, used, profile, model);
     if (!plan) continue;
     const trial: Netlist = {
       parts: [...netlist.parts, ...plan.parts],
       cords: [...netlist.cords.map((c) => plan.cords.get(c.id) ?? c), ...plan.newCords],
     };
     const mine = new Set([f.driver, ...plan.parts.map((p) => p.id)]);
-    if (!driveBudget(trial, profile).every((b) => !mine.has(b.driver) || b.ok)) continue;
+    if (!driveBudget(trial, profile, model.complete(trial)).every((b) => !mine.has(b.driver) || b.ok)) continue;
     for (const [id, c] of plan.cords) replaced.set(id, c);
     newParts.push(...plan.parts);
     newCords.push(...plan.newCords);
@@ -76,6 +117,7 @@ interface Plan {
   readonly newCords: Cord[];
 }
 
+// eslint-disable-next-line max-lines-per-function -- one greedy packing loop over the driver's branches, with its state in closures; split, it would pass that state around
 function planDriver(
   driver: string,
   kind: 'lever' | 'gate',
@@ -83,29 +125,34 @@ function planDriver(
   parts: ReadonlyMap<string, Part>,
   usedIds: ReadonlySet<string>,
   profile: Profile,
+  model: LossModel,
 ): Plan | undefined {
   const driverBudget = availableTension(profile, holdWeightG(profile, kind)).availableG / profile.minMargin;
   const gateBudget = availableTension(profile, profile.zWeightG).availableG / profile.minMargin;
-  const f = (cordId: string): number => routingFactor(routingFor(profile, cordId));
   const used = new Set(usedIds);
   const work: WorkCord[] = own.map((c) => ({
     id: c.id,
     driver: c.driver,
     branches: [
-      ...c.ports.map((p) => ({ port: p, baseG: portLoadG(profile, parts.get(p.part)) })),
+      ...c.ports.map((p) => ({
+        port: p,
+        baseG: portLoadG(profile, parts.get(p.part)),
+        loss: model.existing(c.id, `${p.part}.${p.port}`),
+      })),
       ...c.actuators.map((a) => {
         const x = parts.get(a);
-        return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0 };
+        return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0, loss: model.existing(c.id, a) };
       }),
     ],
   }));
   const newParts: GatePart[] = [];
   const newCords: WorkCord[] = [];
   const counters = new Map<string, number>();
-  const driverLoad = (): number => work.reduce((s, c) => s + c.branches.reduce((t, b) => t + b.baseG * f(c.id), 0), 0);
-  // New cords are planned with the default routing loss; the trial budget in balanceDrive
-  // catches a per-cord override on a new cord id.
-  const fNew = routingFactor(profile.routing);
+  const load = (b: Branch): number => b.baseG * b.loss;
+  const driverLoad = (): number => work.reduce((s, c) => s + c.branches.reduce((t, b) => t + load(b), 0), 0);
+  // New cords are planned with the loss of a new branch (model.planned); the trial budget in
+  // balanceDrive catches a per-cord override on a new cord id.
+  const fNew = model.planned();
   // A latch's feedback branch stays on its driver: a buffer pair in the loop would add two
   // stage delays to the latch's settling. So does a branch a buffer `b` could never carry.
   const driverPart = parts.get(driver);
@@ -120,14 +167,14 @@ function planDriver(
     const all = work.flatMap((c) => c.branches.map((b) => ({ cord: c.id, b })));
     const fixed = all.filter((x) => !movable(x.b));
     const mov = all.filter((x) => movable(x.b));
-    const fixedLoad = fixed.reduce((s, x) => s + x.b.baseG * f(x.cord), 0);
+    const fixedLoad = fixed.reduce((s, x) => s + load(x.b), 0);
     let chosen: { k: number; groups: (typeof mov)[] } | undefined;
     for (let k = mov.length - 1; k >= 0; k--) {
       const groups = nextFit(mov.slice(k), gateBudget, fNew);
       const cost =
         fixedLoad +
-        mov.slice(0, k).reduce((s, x) => s + x.b.baseG * f(x.cord), 0) +
-        groups.reduce((s, g) => s + profile.zWeightG * f(g[0].cord), 0);
+        mov.slice(0, k).reduce((s, x) => s + load(x.b), 0) +
+        groups.reduce((s, g) => s + profile.zWeightG * model.planned(g[0].cord), 0);
       if (cost <= driverBudget) {
         chosen = { k, groups };
         break;
@@ -138,8 +185,8 @@ function planDriver(
       // progress — a lighter driver (heavy ports become one-port `a` levers) or fewer
       // branches at no more load. Otherwise a deeper tree would never end.
       const groups = nextFit(mov, gateBudget, fNew);
-      const before = mov.reduce((s, x) => s + x.b.baseG * f(x.cord), 0);
-      const after = groups.reduce((s, g) => s + profile.zWeightG * f(g[0].cord), 0);
+      const before = mov.reduce((s, x) => s + load(x.b), 0);
+      const after = groups.reduce((s, g) => s + profile.zWeightG * model.planned(g[0].cord), 0);
       const progress = after < before || (groups.length < mov.length && after <= before);
       if (!progress || round >= 64) return undefined;
       chosen = { k: 0, groups };
@@ -162,15 +209,19 @@ function planDriver(
       newCords.push({
         id: `${a}.out`,
         driver: a,
-        branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG }],
+        branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG, loss: model.planned(`${a}.out`) }],
       });
-      newCords.push({ id: `${b}.out`, driver: b, branches: g.map((y) => y.b) });
+      newCords.push({
+        id: `${b}.out`,
+        driver: b,
+        branches: g.map((y) => ({ ...y.b, loss: model.planned(`${b}.out`) })),
+      });
       const moved = new Set(g.map((y) => y.b));
       const home = work.find((c) => c.id === x);
       if (home)
         home.branches = [
           ...home.branches.filter((y) => !moved.has(y)),
-          { port: { part: a, port: 'in' }, baseG: profile.zWeightG },
+          { port: { part: a, port: 'in' }, baseG: profile.zWeightG, loss: model.planned(x) },
         ];
     }
   }

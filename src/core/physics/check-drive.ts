@@ -8,11 +8,12 @@
  * `worstPowerW`, `worstAt` (where the worst torque is, null without snapshots),
  * `worstByState` (the worst torque of each state), `operatorForceMaxG` (0 without levers),
  * `drivers` (every budget). The snapshots are read once, in order, and only these worst-case
- * figures are kept in the result.
+ * figures are kept in the result. `losses`: each branch's routing loss from the routed frame
+ * (physics/routing.ts `lossByBranch`); a branch it does not name takes its cord's profile routing.
  */
 import type { CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
-import { driveBudget, type DriverBudget } from './drive.js';
+import { driveBudget, type BranchLosses, type DriverBudget } from './drive.js';
 import { ALL_ENGAGED, drumLoad, type DriveSnapshot, type SnapshotTorque } from './drum.js';
 import { operatorForces } from './operator.js';
 import type { Profile } from './profile.js';
@@ -51,8 +52,9 @@ export function checkDrive<W extends StatePlace>(
   profile: Profile,
   snapshots: Iterable<DriveSnapshot<W>>,
   words: (where: W) => string = (w) => w.state,
+  losses?: BranchLosses,
 ): DriveCheck<W> {
-  const drivers = driveBudget(netlist, profile);
+  const drivers = driveBudget(netlist, profile, losses);
   const drum = drumLoad(netlist, profile, snapshots);
   const operatorForceMaxG = operatorForces(netlist, profile).reduce((m, o) => Math.max(m, o.forceG), 0);
   const loaded = drivers.filter((d) => Number.isFinite(d.margin));

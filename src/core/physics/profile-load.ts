@@ -71,6 +71,8 @@ const FRAME_RULES: Readonly<Record<Exclude<keyof FrameGeometry, 'turn'>, NumberR
   bayClearanceM: { min: 0, unit: 'm', why: 'a clearance is 0 or more' },
   longestDrumM: length('a drum has a length'),
   drumsPerFrame: { min: 1, integer: true, unit: 'count', why: 'a whole number of drums, at least 1' },
+  camBaseRadiusM: length('a cam disc has a radius'),
+  camLiftM: length('a cam lobe rises above the base circle'),
 };
 
 /** The values `frame.turn` may take. */

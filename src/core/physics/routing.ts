@@ -26,6 +26,7 @@
  */
 import type { Netlist } from '../model/netlist.js';
 import { routingFactor } from './capstan.js';
+import { branchKey, type BranchLosses } from './drive.js';
 import type { Profile, RoutingLoss } from './profile.js';
 
 /** A bay as placed: what routing needs to know of it. */
@@ -66,6 +67,8 @@ export interface BranchRoute {
   readonly driver: string;
   /** `gate.port`, or the actuator id. */
   readonly target: string;
+  /** The part tied to: the gate, or the actuator. */
+  readonly part: string;
   readonly kind: 'port' | 'actuator';
   readonly runs: readonly CordRun[];
   /** Runs + a knot allowance at each end + the take-up allowance. */
@@ -145,7 +148,7 @@ export function route(netlist: Netlist, layout: FrameLayout, profile: Profile): 
       const end = at(t.part, c.id);
       const lever = end.bay.levers.find((l) => l.name === t.lever) ?? end.bay.levers[0];
       const runs = leaves ? runsVia(driver, end, lever.xM, t.kind, profile) : [direct(driver, lever.xM, r, f)];
-      return branchRoute(c.id, c.driver, t.target, t.kind, runs, driver.bay.drum !== end.bay.drum, profile);
+      return branchRoute(c.id, c.driver, t, runs, driver.bay.drum !== end.bay.drum, profile);
     });
     cords.push({
       cord: c.id,
@@ -182,17 +185,13 @@ function runsVia(d: Anchor, t: Anchor, xM: number, kind: 'port' | 'actuator', pr
   return runs;
 }
 
-function branchRoute(
-  cord: string,
-  driver: string,
-  target: string,
-  kind: 'port' | 'actuator',
-  runs: readonly CordRun[],
-  crossDrum: boolean,
+/** The loss figures of a branch of `cord` that turns `turns` times in the frame, after the cord's override. */
+function lossFigures(
   profile: Profile,
-): BranchRoute {
+  cord: string,
+  turns: number,
+): { routing: RoutingLoss; pins: number[]; overridden: boolean } {
   const f = profile.frame;
-  const turns = runs.length - 1;
   const computed = {
     pulleys: (f.turn === 'pulley' ? turns : 0) + profile.routing.pulleys,
     pins: [...Array<number>(f.turn === 'pin' ? turns : 0).fill(TURN_RAD)],
@@ -208,21 +207,46 @@ function branchRoute(
     muPin: override?.muPin ?? profile.routing.muPin,
     pulleyEfficiency: override?.pulleyEfficiency ?? profile.routing.pulleyEfficiency,
   };
+  return { routing, pins, overridden: override !== undefined && Object.keys(override).length > 0 };
+}
+
+/** Turns of a branch that leaves its bay: drop → channel, channel → rise (or exit). */
+const LEAVING_TURNS = 2;
+
+/**
+ * The loss of a branch of `cord` that leaves its bay (two turns), before it is placed: the
+ * most any computed route of that cord costs, so a budget planned with it holds once routed.
+ */
+export function leavingLoss(profile: Profile, cord = ''): number {
+  return routingFactor(lossFigures(profile, cord, LEAVING_TURNS).routing);
+}
+
+function branchRoute(
+  cord: string,
+  driver: string,
+  to: { readonly target: string; readonly part: string; readonly kind: 'port' | 'actuator' },
+  runs: readonly CordRun[],
+  crossDrum: boolean,
+  profile: Profile,
+): BranchRoute {
+  const f = profile.frame;
+  const { routing, pins, overridden } = lossFigures(profile, cord, runs.length - 1);
   const runM = runs.reduce((s, x) => s + x.lengthM, 0);
   return {
     cord,
     driver,
-    target,
-    kind,
+    target: to.target,
+    part: to.part,
+    kind: to.kind,
     runs,
     lengthM: runM + 2 * f.knotAllowanceM + f.takeUpAllowanceM,
     channelM: runs.reduce((s, x) => s + (x.kind === 'channel' ? x.lengthM : 0), 0),
-    pulleys,
+    pulleys: routing.pulleys,
     pins,
     loss: routingFactor(routing),
     routing,
     crossDrum,
-    overridden: override !== undefined && Object.keys(override).length > 0,
+    overridden,
   };
 }
 
@@ -242,7 +266,7 @@ function totals(cords: readonly CordRoute[], profile: Profile): Routing {
   };
 }
 
-/** Routing loss of each branch, by cord and target (`gate.port` or actuator id): what the drive budget multiplies a load by. */
-export function lossByBranch(routing: Routing): ReadonlyMap<string, number> {
-  return new Map(routing.branches.map((b) => [`${b.cord}→${b.target}`, b.loss]));
+/** Routing loss of each branch, by `branchKey(cord, target)`: what the drive budget multiplies a load by. */
+export function lossByBranch(routing: Routing): BranchLosses {
+  return new Map(routing.branches.map((b) => [branchKey(b.cord, b.target), b.loss]));
 }

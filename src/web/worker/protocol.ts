@@ -20,6 +20,7 @@ import type {
   MachineForm,
   OperatorForce,
   PartCounts,
+  Placement,
   Profile,
   RuleViolation,
   TimingResult,
@@ -55,6 +56,8 @@ export interface Reading {
 export interface BuildView {
   readonly build: Build;
   readonly profile: Profile;
+  /** Where every part sits in the frame and how every cord runs (bays, drums, routes, cut lengths). */
+  readonly placement: Placement;
   readonly equations: readonly { readonly name: string; readonly expr: string }[];
   readonly guard: GuardReport;
   readonly bom: readonly BomRow[];

@@ -17,6 +17,7 @@ const SECTIONS = [
   'Set and reset equations',
   'Forbidden-input guard',
   'Parts and bill of materials',
+  'Frame: bays, drums and cords',
   'Drive margins',
   'Timing and clock rate',
   'Wiring list',
@@ -37,8 +38,9 @@ describe('core/export/build-sheet', () => {
       const html = buildSheetHtml(example(name));
       expect(xmlProblems(html), name).toEqual([]);
       expect(html.startsWith('<!DOCTYPE html>')).toBe(true);
-      // Self-contained: nothing is fetched from anywhere.
-      expect(html).not.toMatch(/<script|<link|<img|src=|url\(|@import|href="(?!#)/);
+      // Self-contained: nothing is fetched from anywhere (a drawing is an image whose source is the SVG itself).
+      expect(html).not.toMatch(/<script|<link|url\(|@import|href="(?!#)/);
+      expect(html.match(/src="(?!data:image\/svg\+xml;base64,)/g), name).toBeNull();
       for (const s of SECTIONS) expect(html, `${name}: ${s}`).toContain(`<h2>${escapeXml(s)}</h2>`);
     }
   });

@@ -167,13 +167,8 @@ describe('core/phases/place', () => {
       hint: "a flag rides on its gate: pin 'o.bell.1' instead",
     });
     expect(kinds['pin-clash']).toMatchObject({ part: 'm0.reset', other: 'm0.set', bay: 4 });
-    expect(kinds['pin-out-of-range']).toBeDefined();
-    expect(
-      p.problems
-        .filter((x) => x.kind === 'pin-out-of-range')
-        .map((x) => x.part)
-        .sort(),
-    ).toEqual(['o.bell.1', 'tr0.set']);
+    expect(kinds['pin-out-of-range']).toMatchObject({ part: 'tr0.set', drum: 3 });
+    expect(kinds['pin-beyond-drum']).toMatchObject({ part: 'o.bell.1', bay: 200, bays: p.drums[0].bays.length });
     expect(p.bays.find((b) => b.part === 'm0.set')?.bay).toBe(4);
     expectLayoutRules(n, p, DEFAULT_PROFILE);
   });
