@@ -152,7 +152,8 @@ describe('cli/commands/build --json', () => {
 
   it('bom: a list of items with counts', () => {
     expect(r.json.bom.length).toBeGreaterThan(0);
-    for (const line of r.json.bom) expect(line).toMatchObject({ item: expect.any(String) as unknown, count: expect.any(Number) as unknown });
+    for (const line of r.json.bom)
+      expect(line).toMatchObject({ item: expect.any(String) as unknown, count: expect.any(Number) as unknown });
   });
 });
 
