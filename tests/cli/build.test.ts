@@ -5,7 +5,17 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEFAULT_PROFILE } from '../../src/core/physics/profile.js';
-import { expectNoStack, run, runJson, removeTempDirs, tempDir, writeTemp, type Run } from './support.js';
+import {
+  EXAMPLES,
+  examplePath,
+  expectNoStack,
+  run,
+  runJson,
+  removeTempDirs,
+  tempDir,
+  writeTemp,
+  type Run,
+} from './support.js';
 
 interface Check {
   name: string;
@@ -29,6 +39,16 @@ interface Report {
   checks: Check[];
   ok: boolean;
   bom: { item: string; count: number }[];
+  layout: {
+    method: string;
+    exact: boolean;
+    drums: { lengthM: number; bays: number }[];
+    totalCordM: number;
+    baselineCordM: number;
+    channelM: number;
+    baselineChannelM: number;
+    pulleys: number;
+  };
   diagnostics: unknown[];
 }
 
@@ -210,5 +230,77 @@ describe('cli/commands/build with a low-friction profile', () => {
     expect(t.out).toContain(`  FAIL drive: `);
     expect(t.out).toContain(`'${String(d.weakestCord)}'`);
     expectNoStack(t);
+  });
+});
+
+describe('cli/commands/build: the frame', () => {
+  it('--json gives the layout block; for every example the placed frame takes no more cord than the netlist order', async () => {
+    for (const name of EXAMPLES) {
+      const r = await runJson<Report>(['build', examplePath(name), '--json']);
+      expect(r.code, name).toBe(0);
+      const l = r.json.layout;
+      expect(Object.keys(l), name).toEqual([
+        'method',
+        'exact',
+        'drums',
+        'totalCordM',
+        'baselineCordM',
+        'channelM',
+        'baselineChannelM',
+        'pulleys',
+      ]);
+      expect(['exact', 'heuristic', 'netlist'], name).toContain(l.method);
+      expect(l.drums.length, name).toBeGreaterThanOrEqual(1);
+      expect(l.totalCordM, name).toBeLessThanOrEqual(l.baselineCordM);
+      expect(r.json.checks.find((c) => c.name === 'layout')?.ok, name).toBe(true);
+    }
+  });
+
+  it('--pin keeps parts in bays (PART=BAY, PART=BAY@DRUM, repeated or joined with commas)', async () => {
+    const one = await runJson<Report>(['build', MB, '--encoding', 'binary', '--json', '--pin', 'o.bell.1=2@2']);
+    expect(one.code).toBe(0);
+    expect(one.json.layout.drums).toHaveLength(2);
+    const two = await runJson<Report>([
+      'build',
+      MB,
+      '--encoding',
+      'binary',
+      '--json',
+      '--pin',
+      'm1=9,rst=3',
+      '--pin',
+      'o.bell.1=2@2',
+    ]);
+    expect(two.code).toBe(0);
+    expect(two.json.layout.drums).toHaveLength(2);
+    // No pin problem: every pin was kept.
+    expect(JSON.stringify(two.json.diagnostics)).not.toMatch(/LW70[67]/);
+  });
+
+  it('--pin on a part the build does not have: LW706 with a did-you-mean, exit 2', async () => {
+    const r = await run(['build', MB, '--encoding', 'binary', '--pin', 'o.bel.1=4']);
+    expect(r.code).toBe(2);
+    expect(r.err).toContain('error LW706');
+    expect(r.err).toContain("did you mean 'o.bell.1'?");
+    expectNoStack(r);
+  });
+
+  it('--pin that is not PART=BAY: LW700 naming the form, exit 2', async () => {
+    const r = await run(['build', MB, '--pin', 'm1']);
+    expect(r.code).toBe(2);
+    expect(r.err).toContain('error LW700: --pin m1 is not PART=BAY or PART=BAY@DRUM');
+    expectNoStack(r);
+  });
+
+  it('--pin past the end of the drum: a warning (LW707), and the build goes on', async () => {
+    const r = await run(['build', MB, '--encoding', 'binary', '--pin', 'o.bell.1=90']);
+    expect(r.code).toBe(0);
+    expect(r.err).toContain('warning LW707');
+  });
+
+  it('--help explains --pin', async () => {
+    const r = await run(['--help']);
+    expect(r.out).toContain('[--pin PART=BAY[@DRUM] …]');
+    expect(r.out).toMatch(/--pin keeps a part in a bay/);
   });
 });

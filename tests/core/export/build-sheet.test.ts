@@ -8,6 +8,7 @@ import { buildSheetMd, renderDocMd } from '../../../src/core/export/build-sheet-
 import { coverExpr } from '../../../src/core/export/readable.js';
 import { escapeXml } from '../../../src/core/export/escape.js';
 import { table, type Doc } from '../../../src/core/export/doc.js';
+import { buildDocuments } from '../../../src/core/export/documents.js';
 import { example, exampleNames, xmlProblems } from './support.js';
 
 const SECTIONS = [
@@ -148,5 +149,27 @@ describe('core/export/build-sheet', () => {
         else expect(mdCells(l), `${name}: ${l}`).toHaveLength(width);
       }
     }
+  });
+
+  it('embeds the frame drawing, the state diagram and the schematic, each fitted to a printed page', () => {
+    const docs = buildDocuments(example('lighthouse.lw'));
+    for (const file of ['build-sheet.html', 'commissioning.html'] as const) {
+      const html = docs.get(file) ?? '';
+      expect(xmlProblems(html), file).toEqual([]);
+      const images = [...html.matchAll(/<img src="data:image\/svg\+xml;base64,([A-Za-z0-9+/=]+)" alt="([^"]*)" \/>/g)];
+      expect(images, file).toHaveLength(3);
+      // Each image is the very file written beside the sheet (RFC 2397 data URL, base64 of its UTF-8).
+      const svgs = images.map((m) => new TextDecoder().decode(Uint8Array.from(atob(m[1]), (c) => c.charCodeAt(0))));
+      expect(svgs, file).toEqual([docs.get('frame.svg'), docs.get('state-diagram.svg'), docs.get('schematic.svg')]);
+      // Printed, a drawing never breaks across pages and is never taller than the page.
+      expect(html, file).toMatch(
+        /figure\.drawing \{ break-inside: avoid; \}|tr, \.note, pre, figure\.drawing \{ break-inside: avoid; \}/,
+      );
+      expect(html, file).toMatch(/figure\.drawing img \{ max-height: \d+mm;/);
+    }
+    const md = docs.get('build-sheet.md') ?? '';
+    for (const f of ['frame.svg', 'state-diagram.svg', 'schematic.svg'])
+      expect(md).toMatch(new RegExp(`!\\[[^\\]]+\\]\\(${f.replace('.', '\\.')}\\)`));
+    expect(md).toContain('## Frame: bays, drums and cords');
   });
 });
