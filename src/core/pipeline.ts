@@ -22,7 +22,7 @@ import { synthesise } from './synthesise.js';
 import { countParts, partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
 import { balanceDrive } from './physics/buffer-tree.js';
-import { lossByBranch } from './physics/routing.js';
+import { expectedLosses, lossByBranch } from './physics/routing.js';
 import { pinDiagnostics, place, type Pin, type Placement } from './phases/place/index.js';
 import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
 import { checkRecovery } from './checks/recovery.js';
@@ -182,9 +182,12 @@ function withRecovery(b: Build, profile: Profile, seed: number, rebuild: (to: nu
   return rebuild(b.machine.start);
 }
 
-/** Replace the mapper's fixed fan-out limit by the capstan force budget (buffer trees where a margin fails). */
+/**
+ * Replace the mapper's fixed fan-out limit by the capstan force budget (buffer trees where a
+ * margin fails), with each branch's loss as it will be routed in the frame (expectedLosses).
+ */
 function withDrive(b: Build, profile: Profile): Build {
-  const netlist = balanceDrive(b.netlist, profile);
+  const netlist = balanceDrive(b.netlist, profile, expectedLosses(b.netlist, profile));
   return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
 }
 
@@ -194,9 +197,11 @@ export const PLACE_ROUNDS = 4;
 /**
  * Place the build and route its cords; when a routed branch costs more than the budget allowed
  * for, buffer trees are added with the routed losses (balanceDrive) and the build placed again,
- * at most PLACE_ROUNDS times. A budget that still fails is the drive check's to report.
+ * at most PLACE_ROUNDS times. A budget that still fails is the drive check's to report. (The
+ * build was balanced with the losses its routes will have, so this rarely has work to do: a
+ * `cordRouting` entry that names a buffer's cord, or a profile changed between the two.)
  */
-function placeWithDrive(
+export function placeWithDrive(
   b: Build,
   profile: Profile,
   opts: { readonly seed: number; readonly pins: Readonly<Record<string, Pin>> },

@@ -266,6 +266,24 @@ function totals(cords: readonly CordRoute[], profile: Profile): Routing {
   };
 }
 
+/**
+ * The loss each branch will have once the build is placed, before it is: every part has a bay
+ * of its own, so a branch to another part leaves its driver's bay and turns twice
+ * (`leavingLoss`); only a branch back to its own driver would rise straight. Exact for the
+ * routes above; what the build is balanced with before it is placed, so that placing it
+ * rarely has to balance it again.
+ */
+export function expectedLosses(netlist: Netlist, profile: Profile): BranchLosses {
+  const out = new Map<string, number>();
+  for (const c of netlist.cords) {
+    const leaving = leavingLoss(profile, c.id);
+    const straight = routingFactor(lossFigures(profile, c.id, 0).routing);
+    for (const p of c.ports) out.set(branchKey(c.id, `${p.part}.${p.port}`), p.part === c.driver ? straight : leaving);
+    for (const a of c.actuators) out.set(branchKey(c.id, a), leaving);
+  }
+  return out;
+}
+
 /** Routing loss of each branch, by `branchKey(cord, target)`: what the drive budget multiplies a load by. */
 export function lossByBranch(routing: Routing): BranchLosses {
   return new Map(routing.branches.map((b) => [branchKey(b.cord, b.target), b.loss]));

@@ -41,7 +41,11 @@ describe('src/web/worker/jobs', () => {
       'recovery',
       'timing',
       'drive',
+      'layout',
     ]);
+    // The page's view carries the placement the designer's frame view reads.
+    expect(b.view.placement).toEqual(ref.placement);
+    expect(findCheck(c.view.checks, 'layout')?.ok).toBe(true);
     const margins = c.view.margins.map((m) => m.margin);
     expect(margins).toEqual([...margins].sort((x, y) => x - y));
     expect(c.view.torque.map((t) => t.state)).toEqual(['none', 'one', 'two', 'rung']);
