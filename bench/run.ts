@@ -28,6 +28,7 @@ import {
   timingOf,
 } from '../src/core/index.js';
 import { benchMinimiseLogic } from './minimise-logic.js';
+import { benchPlace } from './place.js';
 import { median } from './median.js';
 
 interface Row {
@@ -191,6 +192,12 @@ async function main(): Promise<void> {
   step('two-level minimiser');
   const logic = await benchMinimiseLogic();
   const extra: string[] = [];
+  // ── Placement and routing (bench/place.ts): its rows in the table, its own section below ──
+  step('placement and routing');
+  const placement = benchPlace();
+  rows.push(...placement.rows);
+  extra.push(placement.markdown, '');
+  // ── end of placement and routing ──
   try {
     step('browser');
     const { benchWeb } = (await import('./web.js')) as { benchWeb: () => Promise<{ rows: Row[] }> };

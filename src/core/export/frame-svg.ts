@@ -89,6 +89,7 @@ interface Sheet {
 
 const STYLE = `
 .page { fill: #ffffff; }
+text { stroke: none; }
 .title { font: 600 4px system-ui, sans-serif; fill: #1d2327; }
 .sub { font: 2.6px system-ui, sans-serif; fill: #3c4240; }
 .drum { fill: #e9dcc4; stroke: #6b5a3c; stroke-width: 0.3; }
@@ -170,8 +171,11 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile): 
         : sheet.Y(d.levelM + f.railAboveDrumM + LEVER_END_M) - 1 - (bayRowY(d.drum + 1) + 1.5);
     body.push(...drumBody(sheet, d, placement, profile, { label, spaceMm, bayRowY: bayRowY(d.drum) }));
   }
-  body.push(...cordRuns(sheet, placement, profile, lanes));
-  let y = bayRowY(1) + 4;
+  const rowUnder = (channelY: number): number =>
+    sheet.Y(channelY) + sheet.laneStart + (count.get(channelY) ?? 0) * laneMm + FONT + 0.8;
+  body.push(...cordRuns(sheet, placement, profile, lanes, rowUnder));
+  const exits = placement.routing.branches.some((b) => b.kind === 'actuator');
+  let y = bayRowY(1) + (exits ? 7.5 : 4);
   body.push(...endWords(sheet, placement, y));
   y += 3;
   const dims = dimensions(sheet, placement, profile, y);
@@ -276,7 +280,13 @@ function drumBody(
 }
 
 /** Every branch's runs, a cord's branches in one colour, channel runs in their lanes; pulleys or pins at the turns. */
-function cordRuns(s: Sheet, placement: Placement, profile: Profile, lanes: ReadonlyMap<BranchRoute, Lane>): string[] {
+function cordRuns(
+  s: Sheet,
+  placement: Placement,
+  profile: Profile,
+  lanes: ReadonlyMap<BranchRoute, Lane>,
+  rowUnder: (channelY: number) => number,
+): string[] {
   const out: string[] = ['<g class="cords">'];
   const turns = new Map<string, RoutePoint>();
   placement.routing.cords.forEach((c, i) => {
@@ -285,7 +295,7 @@ function cordRuns(s: Sheet, placement: Placement, profile: Profile, lanes: Reado
     for (const b of c.branches) {
       const lane = lanes.get(b);
       const pts: { x: number; y: number }[] = [];
-      let exit: { x: number; y: number } | undefined;
+      let exit: { x: number; y: number; row: number } | undefined;
       for (const run of b.runs) {
         const at = (p: RoutePoint, inChannel: boolean): { x: number; y: number } => ({
           x: s.X(p.xM),
@@ -295,7 +305,7 @@ function cordRuns(s: Sheet, placement: Placement, profile: Profile, lanes: Reado
         else if (run.kind === 'drop') pts.push(at(run.from, false), at(run.to, true));
         else if (run.kind === 'channel') pts.push(at(run.to, true));
         else if (run.kind === 'rise') pts.push(at(run.to, false));
-        else exit = at(run.from, true);
+        else exit = { ...at(run.from, true), row: rowUnder(run.from.yM) };
         if (run.kind === 'drop' || run.kind === 'rise') {
           const p = run.kind === 'drop' ? run.to : run.from;
           turns.set(`${r2(p.xM)}:${r2(p.yM)}`, p);
@@ -307,10 +317,19 @@ function cordRuns(s: Sheet, placement: Placement, profile: Profile, lanes: Reado
         `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''}`)}</title></path>`,
       );
       if (exit) {
+        // Out of the frame: an arrow down to the bay numbers, and under them where it goes.
         out.push(
-          `<path d="M${r2(exit.x)},${r2(exit.y)} L${r2(exit.x)},${r2(exit.y + 8)}" class="cord" marker-end="url(#arrow)" />`,
+          `<path d="M${r2(exit.x)},${r2(exit.y)} L${r2(exit.x)},${r2(exit.row - FONT - 0.4)}" class="cord" marker-end="url(#arrow)" />`,
         );
-        out.push(upText(exit.x - 0.8, exit.y + 8, `to ${b.target}, ${m(profile.frame.actuatorRunM)}`, 'note'));
+        out.push(
+          svgText(
+            exit.x - 1,
+            exit.row + 3.4,
+            `↓ out of the frame to ${b.target}, ${m(profile.frame.actuatorRunM)}`,
+            'note',
+            'start',
+          ),
+        );
       }
     }
     out.push('</g>');
@@ -416,19 +435,22 @@ function footer(
       'start',
     ),
   );
-  out.push(
-    svgText(
-      MARGIN,
-      ly + 8.5,
-      clip(
-        'Caution: a turning drum catches hair, cords, sleeves and fingers — guard it and fit a stop within reach; hanging weights fall when a cord breaks; levers make pinch points. See the build sheet.',
-        Math.floor((width - 2 * MARGIN) / (2.4 * GLYPH)),
+  const caution = [
+    'Caution: a turning drum catches hair, cords, sleeves and fingers — guard it and fit a stop within reach.',
+    'Hanging weights fall when a cord breaks: keep them low, enclosed or caught. Levers make pinch points. See the build sheet.',
+  ];
+  caution.forEach((c, i) =>
+    out.push(
+      svgText(
+        MARGIN,
+        ly + 8.5 + 3.4 * i,
+        clip(c, Math.floor((width - 2 * MARGIN) / (2.4 * GLYPH))),
+        'caution',
+        'start',
       ),
-      'caution',
-      'start',
     ),
   );
-  return { items: out, bottom: ly + 10 };
+  return { items: out, bottom: ly + 8.5 + 3.4 * caution.length };
 }
 
 /** Every bay in words, drum by drum, in columns. */
