@@ -36,7 +36,15 @@ function whereSection(build: Build, placement: Placement): Section {
         b.part,
         words.get(b.part) ?? '',
         b.levers
-          .map((l) => (l.name === 'lever' ? 'hand lever' : l.name === 'exit' ? 'exit pulley' : l.name))
+          .map((l) =>
+            l.name === 'lever'
+              ? 'hand lever'
+              : l.name === 'exit'
+                ? 'exit pulley'
+                : b.levers.length === 1
+                  ? `${l.name} (its Z)`
+                  : l.name,
+          )
           .join(', '),
       ]),
       { tick: true, mono: [1] },
