@@ -56,7 +56,7 @@ export async function runStep(build: Build, spec: SpecInfo, opts: StepOptions, i
     );
     return 2;
   }
-  return interactive(build, spec, opts, io.readKeys(), io.write);
+  return interactive(build, spec, opts, io.readKeys(), (s) => io.write(s));
 }
 
 /** The scripted table: one line per clock. */
@@ -144,8 +144,9 @@ async function interactive(
         ],
       }),
     );
-    const { value: key, done } = await it.next();
-    if (done || QUIT_KEYS.has(key)) return 0;
+    const next = await it.next();
+    if (next.done || QUIT_KEYS.has(next.value)) return 0;
+    const key = next.value;
     const i = ik.indexOf(key);
     if (i >= 0 && i < m.inputs.length) message = stepper.apply({ toggle: m.inputs[i] });
     else if (key === KEYS.phi1 || key === KEYS.phi2) message = stepper.apply(key === KEYS.phi1 ? 'phi1' : 'phi2');

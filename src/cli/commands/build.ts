@@ -7,7 +7,12 @@ import { buildFromArgs, printDiagnostics } from './build-common.js';
 import { EXIT_BAD_INPUT, EXIT_CHECK_FAILED, EXIT_OK, reportFailure } from './common.js';
 import { writeDocuments } from './out.js';
 
-export async function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
+/** The command, promise-returning like every command; its work is synchronous. */
+export function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
+  return Promise.resolve(buildCommand(args, io));
+}
+
+function buildCommand(args: ParsedArgs, io: CliIo): number {
   const json = args.flags.json === true;
   const r = buildFromArgs(args, io);
   if (!r.ok) {

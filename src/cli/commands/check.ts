@@ -5,7 +5,12 @@ import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
 import { EXIT_BAD_INPUT, EXIT_OK, loadSource, machineSummary, reportFailure } from './common.js';
 
-export async function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
+/** The command, promise-returning like every command; its work is synchronous. */
+export function runCheck(args: ParsedArgs, io: CliIo): Promise<number> {
+  return Promise.resolve(checkCommand(args, io));
+}
+
+function checkCommand(args: ParsedArgs, io: CliIo): number {
   const src = loadSource(args, io);
   if (!src.ok) {
     reportFailure(src.diagnostics, io, args.flags.json === true);

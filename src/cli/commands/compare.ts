@@ -5,7 +5,12 @@ import type { CliIo } from '../io.js';
 import { profileFrom, seedFrom } from './build-common.js';
 import { EXIT_BAD_INPUT, EXIT_OK, loadSource, reportFailure } from './common.js';
 
-export async function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
+/** The command, promise-returning like every command; its work is synchronous. */
+export function runCompare(args: ParsedArgs, io: CliIo): Promise<number> {
+  return Promise.resolve(compareCommand(args, io));
+}
+
+function compareCommand(args: ParsedArgs, io: CliIo): number {
   const json = args.flags.json === true;
   const src = loadSource(args, io);
   if (!src.ok) {
