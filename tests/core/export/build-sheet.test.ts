@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { OPERATING_RULES, RULE_WORDS } from '../../../src/core/sim/hand.js';
 import type { TimingResult } from '../../../src/core/checks/timing.js';
+import type { CheckResult } from '../../../src/core/model/build.js';
 import { buildSheet, CAUTIONS, checkNamed } from '../../../src/core/export/build-sheet.js';
 import { buildSheetHtml, renderDocHtml } from '../../../src/core/export/build-sheet-html.js';
 import { buildSheetMd, renderDocMd } from '../../../src/core/export/build-sheet-md.js';
@@ -79,9 +80,7 @@ describe('core/export/build-sheet', () => {
     const b = example('marble-bell.lw');
     const html = buildSheetHtml(b);
     for (const r of OPERATING_RULES) expect(html).toContain(escapeXml(RULE_WORDS[r]));
-    const fi = checkNamed<
-      { rules: { words: string; upsets: string[] }[] } & import('../../../src/core/model/build.js').CheckResult
-    >(b.checks, 'forbidden-input');
+    const fi = checkNamed<{ rules: { words: string; upsets: string[] }[] } & CheckResult>(b.checks, 'forbidden-input');
     for (const r of fi?.rules ?? []) if (r.upsets.length > 0) expect(html).toContain(escapeXml(r.words));
     const t = checkNamed<TimingResult>(b.checks, 'timing') as TimingResult;
     expect(html).toContain(`${Math.round(t.clocksPerMinute * 10) / 10} clocks per minute`);

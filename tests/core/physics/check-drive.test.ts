@@ -32,7 +32,7 @@ describe('core/physics/check-drive', () => {
     expect(c.worstPowerW).toBeCloseTo(0.13027561 * ((2 * Math.PI * 20) / 60), 7);
     expect(c.operatorForceMaxG).toBe(20);
     expect(c.summary).toContain("smallest margin 2.31 on cord 'c.L'");
-    expect(JSON.parse(JSON.stringify(c)).minMargin).toBeCloseTo(2.314, 3);
+    expect((JSON.parse(JSON.stringify(c)) as { minMargin: number }).minMargin).toBeCloseTo(2.314, 3);
   });
 
   it('fails past the fan-out and names the cord and the fix', () => {

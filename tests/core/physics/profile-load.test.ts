@@ -5,7 +5,7 @@ import { loadProfile, PROFILE_META_KEYS, PROFILE_RULES, SOURCE_KEYS } from '../.
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 
 const readJson = (rel: string): Record<string, unknown> =>
-  JSON.parse(readFileSync(new URL(rel, import.meta.url), 'utf8'));
+  JSON.parse(readFileSync(new URL(rel, import.meta.url), 'utf8')) as Record<string, unknown>;
 const defaultFile = readJson('../../../profiles/default.json');
 const schema = readJson('../../../schemas/profile.schema.json') as {
   additionalProperties: boolean;
