@@ -190,7 +190,7 @@ function compareMulti(cases: readonly MultiFunction[]): MinimiserBenchRow {
 }
 
 /** Run every comparison; `markdown` is a table ready for docs/benchmarks.md. */
-export async function benchMinimiseLogic(): Promise<{ rows: MinimiserBenchRow[]; markdown: string }> {
+export function benchMinimiseLogic(): { rows: MinimiserBenchRow[]; markdown: string } {
   const rnd = seededRandom(1984);
   const cubesSet = cubeCases(rnd, 40);
   const mintermSet = mintermCases(rnd, 12);

@@ -21,7 +21,6 @@ import {
   driveSnapshots,
   exportXstate,
   type FlatMachine,
-  machineToJson,
   printCubes,
   randomFlatMachine,
   seededRandom,
@@ -73,7 +72,7 @@ function mustBuild(a: Analysed, encoding: 'auto' | 'binary', checks = true): Bui
 function benchAnalyse(): Row {
   const text = flatToJsonText(randomFlatMachine(1000, 6, 3, 7));
   const t = median(5, () => mustAnalyse(text, 'random-1000.json'));
-  const ref = median(5, () => JSON.parse(text));
+  const ref = median(5, () => JSON.parse(text) as unknown);
   return {
     name: 'parse + validate + minimise, random 1000 states × 6 inputs',
     figure: ms(t),
@@ -113,7 +112,7 @@ function benchSimulation(): Row[] {
   const x = exportXstate(a.machine, { form: 'clock' });
   const actor = createActor(createMachine(x.config as never, x.implementations as never)).start();
   const tx = median(1, () => {
-    for (const s of seq) actor.send(clockEvent(f.inputs, s) as never);
+    for (const s of seq) actor.send(clockEvent(f.inputs, s));
   });
   return [
     {
@@ -189,11 +188,11 @@ async function main(): Promise<void> {
   step('drive');
   rows.push(benchDrive());
   step('two-level minimiser');
-  const logic = await benchMinimiseLogic();
+  const logic = benchMinimiseLogic();
   const extra: string[] = [];
   try {
     step('browser');
-    const { benchWeb } = (await import('./web.js')) as { benchWeb: () => Promise<{ rows: Row[] }> };
+    const { benchWeb } = await import('./web.js');
     rows.push(...(await benchWeb()).rows);
   } catch (e) {
     extra.push(`Browser benchmark not run: ${e instanceof Error ? e.message : String(e)}`);

@@ -32,6 +32,10 @@ interface Report {
   diagnostics: unknown[];
 }
 
+/** vitest's "any value of this type" matchers (typed any by vitest), held as unknown. */
+const aNumber: unknown = expect.any(Number);
+const aString: unknown = expect.any(String);
+
 const CHECK_NAMES = ['forbidden-input', 'next-state-equivalence', 'equivalence', 'recovery', 'timing', 'drive'];
 const MB = 'examples/marble-bell.lw';
 const LOCK = 'examples/sequence-lock.lw';
@@ -107,9 +111,9 @@ describe('cli/commands/build --json', () => {
   it('guard: proven, with its cost over an unguarded build', () => {
     expect(r.json.guard).toMatchObject({
       ok: true,
-      extraGates: expect.any(Number),
-      extraCords: expect.any(Number),
-      method: expect.any(String),
+      extraGates: aNumber,
+      extraCords: aNumber,
+      method: aString,
     });
     expect(r.json.guard.extraGates).toBeGreaterThanOrEqual(0);
   });
@@ -125,11 +129,11 @@ describe('cli/commands/build --json', () => {
   it('drive: smallest margin, weakest cord, worst drum torque and power, hardest lever pull', () => {
     const d = r.json.checks.find((c) => c.name === 'drive')!;
     expect(d).toMatchObject({
-      minMargin: expect.any(Number),
-      weakestCord: expect.any(String),
-      worstTorqueNm: expect.any(Number),
-      worstPowerW: expect.any(Number),
-      operatorForceMaxG: expect.any(Number),
+      minMargin: aNumber,
+      weakestCord: aString,
+      worstTorqueNm: aNumber,
+      worstPowerW: aNumber,
+      operatorForceMaxG: aNumber,
     });
     expect(d.minMargin as number).toBeGreaterThanOrEqual(DEFAULT_PROFILE.minMargin);
     expect(r.json.netlist.cords.map((c) => c.id)).toContain(d.weakestCord);
@@ -144,7 +148,7 @@ describe('cli/commands/build --json', () => {
 
   it('bom: a list of items with counts', () => {
     expect(r.json.bom.length).toBeGreaterThan(0);
-    for (const line of r.json.bom) expect(line).toMatchObject({ item: expect.any(String), count: expect.any(Number) });
+    for (const line of r.json.bom) expect(line).toMatchObject({ item: aString, count: aNumber });
   });
 });
 
@@ -188,14 +192,14 @@ describe('cli/commands/build with a low-friction profile', () => {
     expect(d.ok).toBe(false);
     expect(d.minMargin as number).toBeLessThan(DEFAULT_PROFILE.minMargin);
     expect(low.json.netlist.cords.map((c) => c.id)).toContain(d.weakestCord);
-    expect(d.summary).toContain(`'${d.weakestCord}'`);
+    expect(d.summary).toContain(`'${d.weakestCord as string}'`);
     // Only the drive fails: the logic is still right.
     expect(low.json.checks.filter((c) => !c.ok).map((c) => c.name)).toEqual(['drive']);
 
     const t = await run(['build', LOCK, '--encoding', 'binary', '--profile', profile]);
     expect(t.code).toBe(1);
     expect(t.out).toContain(`  FAIL drive: `);
-    expect(t.out).toContain(`'${d.weakestCord}'`);
+    expect(t.out).toContain(`'${d.weakestCord as string}'`);
     expectNoStack(t);
   });
 });

@@ -90,7 +90,7 @@ describe('cli/commands/out (build --out)', () => {
     const dir = join(tempDir(), 'json-out');
     const r = await run(['build', MB, '--encoding', 'binary', '--json', '--out', dir]);
     expect(r.code).toBe(0);
-    expect(JSON.parse(r.out).machine.name).toBe('marble_bell');
+    expect((JSON.parse(r.out) as { machine: { name: string } }).machine.name).toBe('marble_bell');
     expect(readdirSync(dir)).toContain('netlist.json');
   });
 });

@@ -76,6 +76,9 @@ interface Plan {
   readonly newCords: Cord[];
 }
 
+/** A branch with the cord it hangs on. */
+type Placed = { readonly cord: string; readonly b: Branch };
+
 function planDriver(
   driver: string,
   kind: 'lever' | 'gate',
@@ -84,102 +87,140 @@ function planDriver(
   usedIds: ReadonlySet<string>,
   profile: Profile,
 ): Plan | undefined {
-  const driverBudget = availableTension(profile, holdWeightG(profile, kind)).availableG / profile.minMargin;
-  const gateBudget = availableTension(profile, profile.zWeightG).availableG / profile.minMargin;
-  const f = (cordId: string): number => routingFactor(routingFor(profile, cordId));
-  const used = new Set(usedIds);
-  const work: WorkCord[] = own.map((c) => ({
-    id: c.id,
-    driver: c.driver,
-    branches: [
-      ...c.ports.map((p) => ({ port: p, baseG: portLoadG(profile, parts.get(p.part)) })),
-      ...c.actuators.map((a) => {
-        const x = parts.get(a);
-        return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0 };
-      }),
-    ],
-  }));
-  const newParts: GatePart[] = [];
-  const newCords: WorkCord[] = [];
-  const counters = new Map<string, number>();
-  const driverLoad = (): number => work.reduce((s, c) => s + c.branches.reduce((t, b) => t + b.baseG * f(c.id), 0), 0);
-  // New cords are planned with the default routing loss; the trial budget in balanceDrive
-  // catches a per-cord override on a new cord id.
-  const fNew = routingFactor(profile.routing);
-  // A latch's feedback branch stays on its driver: a buffer pair in the loop would add two
-  // stage delays to the latch's settling. So does a branch a buffer `b` could never carry.
-  const driverPart = parts.get(driver);
-  const latch = driverPart?.kind === 'gate' ? driverPart.latch : undefined;
-  const feedback = (b: Branch): boolean => {
-    const g = b.port ? parts.get(b.port.part) : undefined;
-    return latch !== undefined && g?.kind === 'gate' && g.latch === latch;
-  };
-  const movable = (b: Branch): boolean => !feedback(b) && b.baseG * fNew <= gateBudget;
+  return new DriverPlanner(driver, kind, own, parts, usedIds, profile).plan();
+}
 
-  for (let round = 0; driverLoad() > driverBudget; round++) {
-    const all = work.flatMap((c) => c.branches.map((b) => ({ cord: c.id, b })));
-    const fixed = all.filter((x) => !movable(x.b));
-    const mov = all.filter((x) => movable(x.b));
-    const fixedLoad = fixed.reduce((s, x) => s + x.b.baseG * f(x.cord), 0);
-    let chosen: { k: number; groups: (typeof mov)[] } | undefined;
+/** The rounds of buffering for one driver (see the module comment); the driver's cords are rewritten in `work`. */
+class DriverPlanner {
+  private readonly driverBudget: number;
+  private readonly gateBudget: number;
+  /** The routing loss of new cords: the default (the trial budget in balanceDrive catches a per-cord override). */
+  private readonly fNew: number;
+  private readonly latch: string | undefined;
+  private readonly used: Set<string>;
+  private readonly work: WorkCord[];
+  private readonly newParts: GatePart[] = [];
+  private readonly newCords: WorkCord[] = [];
+  private readonly counters = new Map<string, number>();
+
+  constructor(
+    driver: string,
+    kind: 'lever' | 'gate',
+    own: readonly Cord[],
+    private readonly parts: ReadonlyMap<string, Part>,
+    usedIds: ReadonlySet<string>,
+    private readonly profile: Profile,
+  ) {
+    this.driverBudget = availableTension(profile, holdWeightG(profile, kind)).availableG / profile.minMargin;
+    this.gateBudget = availableTension(profile, profile.zWeightG).availableG / profile.minMargin;
+    this.fNew = routingFactor(profile.routing);
+    this.used = new Set(usedIds);
+    this.work = own.map((c) => ({
+      id: c.id,
+      driver: c.driver,
+      branches: [
+        ...c.ports.map((p) => ({ port: p, baseG: portLoadG(profile, parts.get(p.part)) })),
+        ...c.actuators.map((a) => {
+          const x = parts.get(a);
+          return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0 };
+        }),
+      ],
+    }));
+    const driverPart = parts.get(driver);
+    this.latch = driverPart?.kind === 'gate' ? driverPart.latch : undefined;
+  }
+
+  plan(): Plan | undefined {
+    for (let round = 0; this.driverLoad() > this.driverBudget; round++) {
+      const groups = this.choose(round);
+      if (!groups) return undefined;
+      for (const g of groups) this.addPair(g);
+    }
+    if (this.newParts.length === 0) return undefined;
+    return {
+      parts: this.newParts,
+      cords: new Map(this.work.map((c) => [c.id, toCord(c)])),
+      newCords: this.newCords.map(toCord),
+    };
+  }
+
+  /** The routing factor of a cord of the driver. */
+  private f(cordId: string): number {
+    return routingFactor(routingFor(this.profile, cordId));
+  }
+
+  private driverLoad(): number {
+    return this.work.reduce((s, c) => s + c.branches.reduce((t, b) => t + b.baseG * this.f(c.id), 0), 0);
+  }
+
+  /**
+   * A latch's feedback branch stays on its driver: a buffer pair in the loop would add two
+   * stage delays to the latch's settling. So does a branch a buffer `b` could never carry.
+   */
+  private movable(b: Branch): boolean {
+    const g = b.port ? this.parts.get(b.port.part) : undefined;
+    const feedback = this.latch !== undefined && g?.kind === 'gate' && g.latch === this.latch;
+    return !feedback && b.baseG * this.fNew <= this.gateBudget;
+  }
+
+  /**
+   * The groups to move onto buffer pairs this round: the fewest trailing movable branches whose
+   * groups fit beside what stays; undefined when no step makes progress.
+   */
+  private choose(round: number): Placed[][] | undefined {
+    const { profile, gateBudget, fNew } = this;
+    const all = this.work.flatMap((c) => c.branches.map((b): Placed => ({ cord: c.id, b })));
+    const fixed = all.filter((x) => !this.movable(x.b));
+    const mov = all.filter((x) => this.movable(x.b));
+    const loadOf = (xs: readonly Placed[]): number => xs.reduce((s, x) => s + x.b.baseG * this.f(x.cord), 0);
+    const pairsLoad = (groups: readonly Placed[][]): number =>
+      groups.reduce((s, g) => s + profile.zWeightG * this.f(g[0].cord), 0);
+    const fixedLoad = loadOf(fixed);
     for (let k = mov.length - 1; k >= 0; k--) {
       const groups = nextFit(mov.slice(k), gateBudget, fNew);
-      const cost =
-        fixedLoad +
-        mov.slice(0, k).reduce((s, x) => s + x.b.baseG * f(x.cord), 0) +
-        groups.reduce((s, g) => s + profile.zWeightG * f(g[0].cord), 0);
-      if (cost <= driverBudget) {
-        chosen = { k, groups };
-        break;
-      }
+      if (fixedLoad + loadOf(mov.slice(0, k)) + pairsLoad(groups) <= this.driverBudget) return groups;
     }
-    if (!chosen) {
-      // Nothing fits yet: buffer everything and go a level deeper, as long as the step makes
-      // progress — a lighter driver (heavy ports become one-port `a` levers) or fewer
-      // branches at no more load. Otherwise a deeper tree would never end.
-      const groups = nextFit(mov, gateBudget, fNew);
-      const before = mov.reduce((s, x) => s + x.b.baseG * f(x.cord), 0);
-      const after = groups.reduce((s, g) => s + profile.zWeightG * f(g[0].cord), 0);
-      const progress = after < before || (groups.length < mov.length && after <= before);
-      if (!progress || round >= 64) return undefined;
-      chosen = { k: 0, groups };
-    }
-    for (const g of chosen.groups) {
-      const x = g[0].cord;
-      let k = counters.get(x) ?? 1;
-      while (
-        used.has(`${x}.buf${k}a`) ||
-        used.has(`${x}.buf${k}b`) ||
-        used.has(`${x}.buf${k}a.out`) ||
-        used.has(`${x}.buf${k}b.out`)
-      )
-        k++;
-      counters.set(x, k + 1);
-      const a = `${x}.buf${k}a`;
-      const b = `${x}.buf${k}b`;
-      for (const id of [a, b, `${a}.out`, `${b}.out`]) used.add(id);
-      newParts.push(bufferGate(a), bufferGate(b));
-      newCords.push({
-        id: `${a}.out`,
-        driver: a,
-        branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG }],
-      });
-      newCords.push({ id: `${b}.out`, driver: b, branches: g.map((y) => y.b) });
-      const moved = new Set(g.map((y) => y.b));
-      const home = work.find((c) => c.id === x);
-      if (home)
-        home.branches = [
-          ...home.branches.filter((y) => !moved.has(y)),
-          { port: { part: a, port: 'in' }, baseG: profile.zWeightG },
-        ];
-    }
+    // Nothing fits yet: buffer everything and go a level deeper, as long as the step makes
+    // progress — a lighter driver (heavy ports become one-port `a` levers) or fewer
+    // branches at no more load. Otherwise a deeper tree would never end.
+    const groups = nextFit(mov, gateBudget, fNew);
+    const before = loadOf(mov);
+    const after = pairsLoad(groups);
+    const progress = after < before || (groups.length < mov.length && after <= before);
+    return !progress || round >= 64 ? undefined : groups;
   }
-  if (newParts.length === 0) return undefined;
-  return {
-    parts: newParts,
-    cords: new Map(work.map((c) => [c.id, toCord(c)])),
-    newCords: newCords.map(toCord),
-  };
+
+  /** Move one group of branches of cord x onto a new buffer pair `x.buf<k>a` → `x.buf<k>b`. */
+  private addPair(g: readonly Placed[]): void {
+    const { used, profile } = this;
+    const x = g[0].cord;
+    let k = this.counters.get(x) ?? 1;
+    while (
+      used.has(`${x}.buf${k}a`) ||
+      used.has(`${x}.buf${k}b`) ||
+      used.has(`${x}.buf${k}a.out`) ||
+      used.has(`${x}.buf${k}b.out`)
+    )
+      k++;
+    this.counters.set(x, k + 1);
+    const a = `${x}.buf${k}a`;
+    const b = `${x}.buf${k}b`;
+    for (const id of [a, b, `${a}.out`, `${b}.out`]) used.add(id);
+    this.newParts.push(bufferGate(a), bufferGate(b));
+    this.newCords.push({
+      id: `${a}.out`,
+      driver: a,
+      branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG }],
+    });
+    this.newCords.push({ id: `${b}.out`, driver: b, branches: g.map((y) => y.b) });
+    const moved = new Set(g.map((y) => y.b));
+    const home = this.work.find((c) => c.id === x);
+    if (home)
+      home.branches = [
+        ...home.branches.filter((y) => !moved.has(y)),
+        { port: { part: a, port: 'in' }, baseG: profile.zWeightG },
+      ];
+  }
 }
 
 /** Groups of consecutive branches of one cord, each group's load within `capacity`. */

@@ -14,7 +14,7 @@ const toLiterals = (c: string): number[] => {
   return out;
 };
 const fromLiterals = (lits: readonly number[], n: number): string => {
-  const a: string[] = Array(n).fill('-');
+  const a = new Array<string>(n).fill('-');
   for (const l of lits) a[l >> 1] = l & 1 ? '1' : '0';
   return a.join('');
 };
