@@ -1,15 +1,14 @@
 /**
  * Benchmark of the two-level minimiser against espresso-iisojs (an independent Espresso-II
  * implementation, single-output), on the same random functions (fixed seed), timed in the
- * same run: each time is the median of several passes over the whole set, and the ratio is
- * ours / theirs. Also term and literal totals for both, and every cover checked by truth
+ * same run: each time is the median of several passes over the whole set, ours and theirs
+ * alternating within each pass, and the ratio is ours / theirs. Also term and literal totals for both, and every cover checked by truth
  * table. Called by bench/run.ts (`--quick` runs a subset); not a test. Alone:
  *
  *   node --import tsx bench/minimise-logic.ts [--quick]
  */
 import { performance } from 'node:perf_hooks';
 import { pathToFileURL } from 'node:url';
-import { median as medianOf } from './median.js';
 import { randomCube } from '../tests/core/phases/minimise-logic/brute.js';
 import { espresso as referenceEspresso } from 'espresso-iisojs';
 import {
@@ -86,6 +85,32 @@ function totals(covers: readonly (readonly string[])[]): { terms: number; litera
 
 const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
 
+/**
+ * Median wall times of `passes` runs of each of ours and theirs, alternating within every pass
+ * (ours first on even passes, theirs first on odd ones) so that load from other work on a
+ * shared machine falls on both.
+ */
+function interleaved(passes: number, ours: () => void, theirs: () => void): [number, number] {
+  const a: number[] = [];
+  const b: number[] = [];
+  const time = (fn: () => void, into: number[]): void => {
+    const t0 = performance.now();
+    fn();
+    into.push(performance.now() - t0);
+  };
+  for (let pass = 0; pass < passes; pass++) {
+    if (pass % 2 === 0) {
+      time(ours, a);
+      time(theirs, b);
+    } else {
+      time(theirs, b);
+      time(ours, a);
+    }
+  }
+  const mid = (t: number[]): number => [...t].sort((x, y) => x - y)[Math.floor(t.length / 2)];
+  return [mid(a), mid(b)];
+}
+
 function compareSingle(
   label: string,
   cases: readonly Case[],
@@ -97,12 +122,15 @@ function compareSingle(
   const literalsIn = cases.map((c) => ({ on: c.on.map(toLiterals), dc: c.dc.map(toLiterals) }));
   let ours: string[][] = [];
   let theirs: number[][][] = [];
-  const tOurs = medianOf(passes, () => {
-    ours = cases.map((c) => minimiseSop(c.on, c.dc, c.n, { method, cost }));
-  });
-  const tTheirs = medianOf(passes, () => {
-    theirs = literalsIn.map((c) => referenceEspresso(c.on, c.dc));
-  });
+  const [tOurs, tTheirs] = interleaved(
+    passes,
+    () => {
+      ours = cases.map((c) => minimiseSop(c.on, c.dc, c.n, { method, cost }));
+    },
+    () => {
+      theirs = literalsIn.map((c) => referenceEspresso(c.on, c.dc));
+    },
+  );
   const a = totals(ours);
   const b = {
     terms: theirs.reduce((s, c) => s + c.length, 0),
@@ -174,20 +202,23 @@ function excitationCases(rnd: Random, count: number): MultiFunction[] {
 function compareMulti(cases: readonly MultiFunction[], passes: number): MinimiserBenchRow {
   let shared = { terms: 0, literals: 0, connections: 0 };
   let theirs: number[][][][] = [];
-  const tOurs = medianOf(passes, () => {
-    shared = { terms: 0, literals: 0, connections: 0 };
-    for (const f of cases) {
-      const s = coverStats(minimiseCover(f));
-      shared = {
-        terms: shared.terms + s.terms,
-        literals: shared.literals + s.literals,
-        connections: shared.connections + s.connections,
-      };
-    }
-  });
-  const tTheirs = medianOf(passes, () => {
-    theirs = cases.map((f) => f.on.map((on, j) => referenceEspresso(on.map(toLiterals), f.dc[j].map(toLiterals))));
-  });
+  const [tOurs, tTheirs] = interleaved(
+    passes,
+    () => {
+      shared = { terms: 0, literals: 0, connections: 0 };
+      for (const f of cases) {
+        const s = coverStats(minimiseCover(f));
+        shared = {
+          terms: shared.terms + s.terms,
+          literals: shared.literals + s.literals,
+          connections: shared.connections + s.connections,
+        };
+      }
+    },
+    () => {
+      theirs = cases.map((f) => f.on.map((on, j) => referenceEspresso(on.map(toLiterals), f.dc[j].map(toLiterals))));
+    },
+  );
   const tTerms = theirs.reduce((s, f) => s + f.reduce((q, c) => q + c.length, 0), 0);
   const tLits = theirs.reduce((s, f) => s + f.reduce((q, c) => q + c.reduce((r, t) => r + t.length, 0), 0), 0);
   return {
@@ -276,29 +307,17 @@ function compareSize(size: SweepSize): MinimiserBenchRow {
   const rnd = seededRandom(1300 + size.n);
   const cases = Array.from({ length: size.functions }, () => denseCase(rnd, size.n));
   const literalsIn = cases.map((c) => ({ on: c.on.map(toLiterals), dc: c.dc.map(toLiterals) }));
-  const tOurs: number[] = [];
-  const tTheirs: number[] = [];
   let ours: number[][][] = [];
   let theirs: number[][][] = [];
-  const runOurs = (): void => {
-    const t0 = performance.now();
-    ours = cases.map((c) => minimiseSop(c.on, c.dc, c.n, { cost }).map(toLiterals));
-    tOurs.push(performance.now() - t0);
-  };
-  const runTheirs = (): void => {
-    const t0 = performance.now();
-    theirs = literalsIn.map((c) => referenceEspresso(c.on, c.dc));
-    tTheirs.push(performance.now() - t0);
-  };
-  for (let pass = 0; pass < size.passes; pass++) {
-    if (pass % 2 === 0) {
-      runOurs();
-      runTheirs();
-    } else {
-      runTheirs();
-      runOurs();
-    }
-  }
+  const [to, tt] = interleaved(
+    size.passes,
+    () => {
+      ours = cases.map((c) => minimiseSop(c.on, c.dc, c.n, { cost }).map(toLiterals));
+    },
+    () => {
+      theirs = literalsIn.map((c) => referenceEspresso(c.on, c.dc));
+    },
+  );
   cases.forEach((c, i) => {
     checkCover(c, ours[i], 'ours');
     checkCover(c, theirs[i], 'espresso-iisojs');
@@ -309,8 +328,6 @@ function compareSize(size: SweepSize): MinimiserBenchRow {
   });
   const a = count(ours);
   const b = count(theirs);
-  const mid = (t: number[]): number => [...t].sort((x, y) => x - y)[Math.floor(t.length / 2)];
-  const [to, tt] = [mid(tOurs), mid(tTheirs)];
   return {
     name: `${size.n} variables, ${size.functions} random function${size.functions > 1 ? 's' : ''} (30 % on, 10 % don't-care), method 'auto', median of ${size.passes}: time; terms / literals`,
     figure: `${ms(to)}; ${a.terms} / ${a.literals}`,
@@ -363,7 +380,7 @@ export async function benchMinimiseLogic(
     ...(await sweep(quick ? QUICK_SWEEP : SWEEP)),
   ];
   const markdown = [
-    `Each time is the median of ${passes} passes over the whole set (the size sweep: of the passes named in the row); the ratio is ours / espresso-iisojs, measured in the same run, the two alternating within each pass.${quick ? ' Quick subset (`--quick`).' : ''}`,
+    `Each time is the median of ${passes} passes over the whole set (the size sweep: of the passes named in the row); the ratio is ours / espresso-iisojs, measured in the same run, the two alternating within each pass so that load falls on both.${quick ? ' Quick subset (`--quick`).' : ''}`,
     '',
     '| benchmark | ours | espresso-iisojs (same run) | time ratio | goal |',
     '|---|---|---|---|---|',
