@@ -11,7 +11,7 @@ export default tseslint.config(
   {
     languageOptions: {
       parserOptions: {
-        projectService: { allowDefaultProject: ['eslint.config.js', 'bin/*.js'] },
+        projectService: true,
         tsconfigRootDir: import.meta.dirname,
       },
     },
@@ -31,9 +31,15 @@ export default tseslint.config(
     rules: { 'max-lines-per-function': 'off', 'no-console': 'off' },
   },
   {
+    // The plain JavaScript files (this config, bin/latchwright.js) are linted without types: the
+    // launcher's types come from dist/, which exists only after a build. Spread the parser options
+    // of disableTypeChecked rather than replacing them, or the type checker would still be asked.
     files: ['**/*.js'],
     ...tseslint.configs.disableTypeChecked,
-    languageOptions: { globals: { process: 'readonly', console: 'readonly' } },
+    languageOptions: {
+      ...tseslint.configs.disableTypeChecked.languageOptions,
+      globals: { process: 'readonly', console: 'readonly' },
+    },
   },
   prettier,
 );

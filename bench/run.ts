@@ -21,7 +21,6 @@ import {
   driveSnapshots,
   exportXstate,
   type FlatMachine,
-  machineToJson,
   printCubes,
   randomFlatMachine,
   seededRandom,
@@ -74,7 +73,7 @@ function mustBuild(a: Analysed, encoding: 'auto' | 'binary', checks = true): Bui
 function benchAnalyse(): Row {
   const text = flatToJsonText(randomFlatMachine(1000, 6, 3, 7));
   const t = median(5, () => mustAnalyse(text, 'random-1000.json'));
-  const ref = median(5, () => JSON.parse(text));
+  const ref = median(5, () => JSON.parse(text) as unknown);
   return {
     name: 'parse + validate + minimise, random 1000 states × 6 inputs',
     figure: ms(t),
@@ -114,7 +113,7 @@ function benchSimulation(): Row[] {
   const x = exportXstate(a.machine, { form: 'clock' });
   const actor = createActor(createMachine(x.config as never, x.implementations as never)).start();
   const tx = median(1, () => {
-    for (const s of seq) actor.send(clockEvent(f.inputs, s) as never);
+    for (const s of seq) actor.send(clockEvent(f.inputs, s));
   });
   return [
     {
@@ -190,7 +189,7 @@ async function main(): Promise<void> {
   step('drive');
   rows.push(benchDrive());
   step('two-level minimiser');
-  const logic = await benchMinimiseLogic();
+  const logic = await benchMinimiseLogic({ quick: process.argv.includes('--quick') });
   const extra: string[] = [];
   // ── Placement and routing (bench/place.ts): its rows in the table, its own section below ──
   step('placement and routing');
@@ -200,7 +199,7 @@ async function main(): Promise<void> {
   // ── end of placement and routing ──
   try {
     step('browser');
-    const { benchWeb } = (await import('./web.js')) as { benchWeb: () => Promise<{ rows: Row[] }> };
+    const { benchWeb } = await import('./web.js');
     rows.push(...(await benchWeb()).rows);
   } catch (e) {
     extra.push(`Browser benchmark not run: ${e instanceof Error ? e.message : String(e)}`);

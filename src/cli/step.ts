@@ -66,7 +66,7 @@ export async function runStep(build: Build, spec: SpecInfo, opts: StepOptions, i
     );
     return EXIT.badInput;
   }
-  return interactive(build, spec, opts, io.readKeys(), io.write);
+  return interactive(build, spec, opts, io.readKeys(), (s) => io.write(s));
 }
 
 /** The scripted table: one line per clock. */

@@ -52,6 +52,10 @@ interface Report {
   diagnostics: unknown[];
 }
 
+/** vitest's "any value of this type" matchers (typed any by vitest), held as unknown. */
+const aNumber: unknown = expect.any(Number);
+const aString: unknown = expect.any(String);
+
 const CHECK_NAMES = [
   'forbidden-input',
   'next-state-equivalence',
@@ -135,9 +139,9 @@ describe('cli/commands/build --json', () => {
   it('guard: proven, with its cost over an unguarded build', () => {
     expect(r.json.guard).toMatchObject({
       ok: true,
-      extraGates: expect.any(Number) as unknown,
-      extraCords: expect.any(Number) as unknown,
-      method: expect.any(String) as unknown,
+      extraGates: aNumber,
+      extraCords: aNumber,
+      method: aString,
     });
     expect(r.json.guard.extraGates).toBeGreaterThanOrEqual(0);
   });
@@ -153,11 +157,11 @@ describe('cli/commands/build --json', () => {
   it('drive: smallest margin, weakest cord, worst drum torque and power, hardest lever pull', () => {
     const d = r.json.checks.find((c) => c.name === 'drive')!;
     expect(d).toMatchObject({
-      minMargin: expect.any(Number) as unknown,
-      weakestCord: expect.any(String) as unknown,
-      worstTorqueNm: expect.any(Number) as unknown,
-      worstPowerW: expect.any(Number) as unknown,
-      operatorForceMaxG: expect.any(Number) as unknown,
+      minMargin: aNumber,
+      weakestCord: aString,
+      worstTorqueNm: aNumber,
+      worstPowerW: aNumber,
+      operatorForceMaxG: aNumber,
     });
     expect(d.minMargin as number).toBeGreaterThanOrEqual(DEFAULT_PROFILE.minMargin);
     expect(r.json.netlist.cords.map((c) => c.id)).toContain(d.weakestCord);
@@ -172,8 +176,7 @@ describe('cli/commands/build --json', () => {
 
   it('bom: a list of items with counts', () => {
     expect(r.json.bom.length).toBeGreaterThan(0);
-    for (const line of r.json.bom)
-      expect(line).toMatchObject({ item: expect.any(String) as unknown, count: expect.any(Number) as unknown });
+    for (const line of r.json.bom) expect(line).toMatchObject({ item: aString, count: aNumber });
   });
 });
 
@@ -220,7 +223,7 @@ describe('cli/commands/build with a low-friction profile', () => {
     expect(d.ok).toBe(false);
     expect(d.minMargin as number).toBeLessThan(DEFAULT_PROFILE.minMargin);
     expect(low.json.netlist.cords.map((c) => c.id)).toContain(d.weakestCord);
-    expect(d.summary).toContain(`'${String(d.weakestCord)}'`);
+    expect(d.summary).toContain(`'${d.weakestCord as string}'`);
     // Only the force budgets fail (the drive check, and the layout check's margins with the routed
     // cords): the logic is still right.
     expect(low.json.checks.filter((c) => !c.ok).map((c) => c.name)).toEqual(['drive', 'layout']);
@@ -228,7 +231,7 @@ describe('cli/commands/build with a low-friction profile', () => {
     const t = await run(['build', LOCK, '--encoding', 'binary', '--profile', profile]);
     expect(t.code).toBe(1);
     expect(t.out).toContain(`  FAIL drive: `);
-    expect(t.out).toContain(`'${String(d.weakestCord)}'`);
+    expect(t.out).toContain(`'${d.weakestCord as string}'`);
     expectNoStack(t);
   });
 });

@@ -3,6 +3,19 @@ import { runStep, type StepIo } from '../../src/cli/step.js';
 import { brokenBuild } from '../core/checks/builds.js';
 import { toggleBuild } from '../core/sim/handmade.js';
 
+/** Keypresses delivered one at a time, asynchronously, as a terminal delivers them. */
+function keysFrom(keys: readonly string[]): AsyncIterable<string> {
+  return {
+    [Symbol.asyncIterator]: () => {
+      let i = 0;
+      return {
+        next: (): Promise<IteratorResult<string>> =>
+          Promise.resolve(i < keys.length ? { value: keys[i++], done: false } : { value: undefined, done: true }),
+      };
+    },
+  };
+}
+
 function capture(keys?: string[]): StepIo & { out: string[]; errors: string[] } {
   const out: string[] = [];
   const errors: string[] = [];
@@ -11,13 +24,7 @@ function capture(keys?: string[]): StepIo & { out: string[]; errors: string[] } 
     errors,
     write: (s) => void out.push(s),
     error: (s) => void errors.push(s),
-    ...(keys
-      ? {
-          readKeys: async function* () {
-            yield* keys;
-          },
-        }
-      : {}),
+    ...(keys ? { readKeys: () => keysFrom(keys) } : {}),
   };
 }
 
@@ -48,7 +55,7 @@ describe('cli/step', () => {
     const seq = [{ t: 1 as const }, { t: 0 as const }];
     await runStep(toggleBuild(), {}, { inputsFile: seq, json: true, abstract: false }, part);
     await runStep(toggleBuild(), {}, { inputsFile: seq, json: true, abstract: true }, abs);
-    const rows = JSON.parse(part.out.join(''));
+    const rows = JSON.parse(part.out.join('')) as unknown[];
     expect(rows[0]).toEqual({
       clock: 1,
       state: 'off',
@@ -71,7 +78,7 @@ describe('cli/step', () => {
       io,
     );
     expect(code).toBe(1);
-    const [row] = JSON.parse(io.out.join(''));
+    const [row] = JSON.parse(io.out.join('')) as { next: string | null; nextCode: string; alarms: string[] }[];
     expect(row.next).toBeNull();
     expect(row.nextCode).toBe('X');
     expect(row.alarms).toContain('latch M0 sees the forbidden input: S̄ and R̄ are pulled at once');

@@ -53,6 +53,10 @@ export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<numbe
       abstract: args.flags.abstract === true,
       profile: built.profile,
     },
-    { write: io.out, error: io.err, ...(sequence === undefined && io.interactive ? { readKeys: terminalKeys } : {}) },
+    {
+      write: (s) => io.out(s),
+      error: (s) => io.err(s),
+      ...(sequence === undefined && io.interactive ? { readKeys: terminalKeys } : {}),
+    },
   );
 }

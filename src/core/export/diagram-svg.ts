@@ -11,8 +11,8 @@
  * "Moore output" here means: the same value on every row of the state (mooreOutputs); the
  * rest are shown on the arrows.
  */
-import dagre from '@dagrejs/dagre';
 import type { Build } from '../model/build.js';
+import { layOut, layoutGraph, type LaidGraph } from './dagre.js';
 import { DONT_CARE } from '../model/flat.js';
 import { escapeXml } from './escape.js';
 import { coverExpr, wrapExpr, wrapJoined } from './readable.js';
@@ -61,15 +61,27 @@ export interface DiagramArrow {
 /** Height above a box taken by its self-loop: the arc plus its label. */
 const loopSpace = (lines: number): number => (lines === 0 ? 0 : 26 + lines * LINE + 4);
 
-/** Lay out the state diagram. Self-loops are not given to dagre: each state's node is made tall enough for its loop and label. */
-export function diagramLayout(build: Build): DiagramLayout {
+/** A state's box content before layout: its lines, its self-loop label and the box size. */
+interface BoxDraft {
+  readonly lines: string[];
+  readonly loop: string[];
+  readonly loopGuards: string[];
+  readonly width: number;
+  readonly height: number;
+}
+
+/** The content of the diagram: a box per state, and per arrow (key `from>to`) its label lines and guards. */
+interface DiagramDraft {
+  readonly boxes: BoxDraft[];
+  readonly labels: Map<string, string[]>;
+  readonly guardsOf: Map<string, string[]>;
+}
+
+/** What goes into each state's box and onto each arrow, before anything is placed. */
+function diagramDraft(build: Build): DiagramDraft {
   const f = build.machine;
-  const g = new dagre.graphlib.Graph({ multigraph: true });
-  g.setGraph({ rankdir: 'LR', nodesep: 30, ranksep: 60, edgesep: 14, marginx: 30, marginy: 24 });
   const groups = rowGroups(f);
-  const boxes: { lines: string[]; loop: string[]; loopGuards: string[]; width: number; height: number }[] = [];
-  const labels = new Map<string, string[]>();
-  const guardsOf = new Map<string, string[]>();
+  const draft: DiagramDraft = { boxes: [], labels: new Map(), guardsOf: new Map() };
   f.states.forEach((name, s) => {
     const moore = mooreOutputs(f, s);
     const lines = [name, build.encoding.bits > 0 ? `code ${build.encoding.codes[s]}` : 'one state'];
@@ -95,44 +107,61 @@ export function diagramLayout(build: Build): DiagramLayout {
         loopGuards.push(guard);
       } else {
         const key = `${s}>${gr.next}`;
-        labels.set(key, [...(labels.get(key) ?? []), ...text]);
-        guardsOf.set(key, [...(guardsOf.get(key) ?? []), guard]);
+        draft.labels.set(key, [...(draft.labels.get(key) ?? []), ...text]);
+        draft.guardsOf.set(key, [...(draft.guardsOf.get(key) ?? []), guard]);
       }
     }
     const width = Math.max(90, ...lines.map((l, i) => textWidth(l, i === 0 ? 12 : 10, i > 0))) + 22;
     const height = 14 + lines.length * LINE + (s === f.start ? 4 : 0);
-    boxes.push({ lines, loop, loopGuards, width, height });
-    const loopW = loop.length > 0 ? Math.max(...loop.map((l) => textWidth(l, 10, true))) + 10 : 0;
-    g.setNode(String(s), { width: Math.max(width, loopW), height: height + loopSpace(loop.length) });
+    draft.boxes.push({ lines, loop, loopGuards, width, height });
   });
-  for (const [key, lines] of labels) {
+  return draft;
+}
+
+/** Run dagre: one node per state (tall enough for its self-loop), one labelled edge per arrow. */
+function placeDraft(draft: DiagramDraft): LaidGraph {
+  const g = layoutGraph({ multigraph: true });
+  g.setGraph({ rankdir: 'LR', nodesep: 30, ranksep: 60, edgesep: 14, marginx: 30, marginy: 24 });
+  draft.boxes.forEach((b, s) => {
+    const loopW = b.loop.length > 0 ? Math.max(...b.loop.map((l) => textWidth(l, 10, true))) + 10 : 0;
+    g.setNode(String(s), { width: Math.max(b.width, loopW), height: b.height + loopSpace(b.loop.length) });
+  });
+  for (const [key, lines] of draft.labels) {
     const [a, b] = key.split('>');
     const width = Math.max(...lines.map((l) => textWidth(l, 10, true))) + 8;
     g.setEdge(a, b, { width, height: lines.length * LINE + 4, labelpos: 'c' }, key);
   }
-  dagre.layout(g);
-  const states = f.states.map((_, s): DiagramState => {
-    const n = g.node(String(s));
-    const b = boxes[s];
-    const top = (n.y as number) - n.height / 2;
-    const outer = { x: (n.x as number) - n.width / 2, y: top, width: n.width, height: n.height };
+  return layOut(g);
+}
+
+/** The states as placed: the box sits at the bottom of the space dagre reserved, the loop above it. */
+function placedStates(build: Build, draft: DiagramDraft, laid: LaidGraph): DiagramState[] {
+  return build.machine.states.map((_, s): DiagramState => {
+    const n = laid.node(String(s));
+    const b = draft.boxes[s];
+    const top = n.y - n.height / 2;
+    const outer = { x: n.x - n.width / 2, y: top, width: n.width, height: n.height };
     return {
       index: s,
       lines: b.lines,
       loop: b.loop,
       loopGuards: b.loopGuards,
-      x: n.x as number,
+      x: n.x,
       y: top + n.height - b.height / 2,
       width: b.width,
       height: b.height,
-      start: s === f.start,
+      start: s === build.machine.start,
       outer,
     };
   });
-  const arrows = [...labels].map(([key, label]): DiagramArrow => {
+}
+
+/** The arrows as routed, their ends moved from the reserved spaces onto the boxes. */
+function placedArrows(draft: DiagramDraft, laid: LaidGraph, states: readonly DiagramState[]): DiagramArrow[] {
+  return [...draft.labels].map(([key, label]): DiagramArrow => {
     const [a, b] = key.split('>');
-    const e = g.edge(a, b, key);
-    const points = (e.points ?? []).map((q: { x: number; y: number }) => ({ x: q.x, y: q.y }));
+    const e = laid.edge(a, b, key);
+    const points = e.points.map((q) => ({ x: q.x, y: q.y }));
     // dagre aims at the centre of the reserved space; end on the box itself.
     const to = states[Number(b)];
     const from = states[Number(a)];
@@ -140,17 +169,12 @@ export function diagramLayout(build: Build): DiagramLayout {
       points[0] = clampTo(from, points[0]);
       points[points.length - 1] = clampTo(to, points[points.length - 1]);
     }
-    return {
-      from: Number(a),
-      to: Number(b),
-      label,
-      guards: guardsOf.get(key) ?? [],
-      x: e.x as number,
-      y: e.y as number,
-      points,
-    };
+    return { from: Number(a), to: Number(b), label, guards: draft.guardsOf.get(key) ?? [], x: e.x, y: e.y, points };
   });
-  // Fit the drawing to everything drawn (dagre may route an arrow outside its own bounds).
+}
+
+/** Fit the drawing to everything drawn (dagre may route an arrow outside its own bounds). */
+function fitted(states: readonly DiagramState[], arrows: readonly DiagramArrow[]): DiagramLayout {
   const ext = extentOf(
     [
       ...states.map((st) => ({
@@ -177,6 +201,14 @@ export function diagramLayout(build: Build): DiagramLayout {
     states: states.map((st) => ({ ...st, ...move(st), outer: { ...st.outer, ...move(st.outer) } })),
     arrows: arrows.map((a) => ({ ...a, ...move(a), points: a.points.map(move) })),
   };
+}
+
+/** Lay out the state diagram. Self-loops are not given to dagre: each state's node is made tall enough for its loop and label. */
+export function diagramLayout(build: Build): DiagramLayout {
+  const draft = diagramDraft(build);
+  const laid = placeDraft(draft);
+  const states = placedStates(build, draft, laid);
+  return fitted(states, placedArrows(draft, laid, states));
 }
 
 /** Move an end point that dagre put on the reserved space's edge onto the box's edge, keeping its side. */

@@ -25,10 +25,13 @@ const XML_ENTITIES: Readonly<Record<string, string>> = {
 
 /** Text or attribute value for HTML, SVG or XML. */
 export function escapeXml(text: string): string {
-  // eslint-disable-next-line no-control-regex
-  return text
-    .replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\ufffe\uffff]/g, '')
-    .replace(/[&<>"']/g, (c) => XML_ENTITIES[c]);
+  return (
+    text
+      // Characters XML 1.0 does not allow (C0 controls other than tab and line ends, U+FFFE, U+FFFF).
+      // eslint-disable-next-line no-control-regex -- matching control characters is the point
+      .replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\ufffe\uffff]/g, '')
+      .replace(/[&<>"']/g, (c) => XML_ENTITIES[c])
+  );
 }
 
 /** The same escaping, under the name HTML readers look for. */
@@ -110,10 +113,14 @@ const ASCII_SPELLING: Readonly<Record<string, string>> = {
 
 /** Text safe inside a Verilog `//` comment: printable ASCII on one line. */
 export function verilogComment(text: string): string {
-  return text
-    .replace(/[\r\n]+/g, ' ')
-    .replace(/[φ→\u0304·≥≤×…—–]/g, (c) => ASCII_SPELLING[c])
-    .replace(/[^\x20-\x7e]/g, '?');
+  return (
+    text
+      .replace(/[\r\n]+/g, ' ')
+      // The combining macron (the bar of Q̄) is matched on its own, so that it never reads as part of
+      // a combined character with the class member before it.
+      .replace(/\u0304|[φ→·≥≤×…—–]/g, (c) => ASCII_SPELLING[c])
+      .replace(/[^\x20-\x7e]/g, '?')
+  );
 }
 
 /** Text safe inside a Verilog string literal: printable ASCII, `"` and `\` escaped, `%` doubled. */

@@ -39,3 +39,4 @@ export { schematicLayout, schematicSvg, type SchematicLayout } from './schematic
 export { commissioningTour, reachableTransitions, type TourClock, type TourOptions } from './tour.js';
 export { verilogFiles, type VerilogFiles } from './verilog.js';
 export { wiringCsv, wiringRows, type WiringRow } from './wiring.js';
+export { layOut, layoutGraph, type LaidGraph, type LayoutGraph } from './dagre.js';

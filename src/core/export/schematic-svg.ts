@@ -17,12 +17,12 @@
  * drawing prints in greyscale; cords solid, clock cords dashed, reset cords dotted, a flag's
  * link to the Z lever it reads thin and dashed without an arrow.
  */
-import dagre from '@dagrejs/dagre';
 import type { Build } from '../model/build.js';
-import type { Part } from '../model/netlist.js';
+import type { Netlist, Part } from '../model/netlist.js';
+import { layOut, layoutGraph, type LaidGraph, type LayoutGraph } from './dagre.js';
 import { escapeXml } from './escape.js';
 import { clip, extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
-import { stagesOf } from './stages.js';
+import { stagesOf, type StageInfo } from './stages.js';
 
 export type NodeKind =
   'operator' | 'clock' | 'reset' | 'term' | 'helper' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
@@ -109,28 +109,37 @@ const LEGEND_H = 34;
 /** The legend's width, so a small machine's drawing still shows all of it. */
 const LEGEND_W = 1060;
 
-/** Place every part with dagre (see the module comment). */
-export function schematicLayout(build: Build): SchematicLayout {
-  const net = build.netlist;
-  const stages = stagesOf(net);
+type NodeInfo = { kind: NodeKind; label: string; detail: string; title: string };
+
+/** A cord branch (or a flag's link to its Z lever) before layout. */
+interface EdgeDraft {
+  readonly cord: string;
+  readonly from: string;
+  readonly to: string;
+  readonly style: SchematicEdge['style'];
+  /** Laid out against the flow (from a later stage back to an earlier one). */
+  readonly reversed: boolean;
+  readonly name: string;
+  /** Latch side of each end: -1 set (Q, top half), 1 reset (Q̄, bottom half), 0 neither. */
+  readonly fromSide: number;
+  readonly toSide: number;
+}
+
+/** Which parts are drawn, and the drawn node of every part (a latch's two gates are drawn as the latch). */
+function drawnParts(net: Netlist): { shown: Part[]; nodeOf: Map<string, string> } {
+  const isLatchGate = (p: Part): boolean =>
+    p.kind === 'gate' && p.latch !== undefined && (p.role === 'latch-set' || p.role === 'latch-reset');
+  const shown = net.parts.filter((p) => !isLatchGate(p));
+  const nodeOf = new Map<string, string>();
+  for (const p of net.parts) nodeOf.set(p.id, isLatchGate(p) && p.kind === 'gate' ? (p.latch ?? p.id) : p.id);
+  return { shown, nodeOf };
+}
+
+/** One node per drawn part, sized for its kind label, id and detail. */
+function addPartNodes(g: LayoutGraph, net: Netlist, shown: readonly Part[]): Map<string, NodeInfo> {
   const latchRole = new Map<string, 'master' | 'slave'>();
   for (const p of net.parts) if (p.kind === 'latch') latchRole.set(p.id, p.role);
-  const nodeOf = new Map<string, string>();
-  const shown = net.parts.filter(
-    (p) => !(p.kind === 'gate' && (p.role === 'latch-set' || p.role === 'latch-reset') && p.latch !== undefined),
-  );
-  for (const p of net.parts)
-    nodeOf.set(
-      p.id,
-      p.kind === 'gate' && p.latch !== undefined && (p.role === 'latch-set' || p.role === 'latch-reset')
-        ? p.latch
-        : p.id,
-    );
-
-  const g = new dagre.graphlib.Graph({ compound: true, multigraph: true });
-  g.setGraph({ rankdir: 'LR', nodesep: 14, ranksep: 46, edgesep: 8, marginx: MARGIN, marginy: MARGIN });
-  g.setDefaultEdgeLabel(() => ({}));
-  const info = new Map<string, { kind: NodeKind; label: string; detail: string; title: string }>();
+  const info = new Map<string, NodeInfo>();
   for (const p of shown) {
     const kind = kindOf(p, latchRole);
     const label =
@@ -147,6 +156,11 @@ export function schematicLayout(build: Build): SchematicLayout {
     g.setNode(p.id, { width, height });
     info.set(p.id, { kind, label, detail, title: p.name });
   }
+  return info;
+}
+
+/** One cluster per state bit around its latches and transfer gates; returns the cluster of each bit. */
+function addBitClusters(g: LayoutGraph, net: Netlist, shown: readonly Part[]): Map<number, string> {
   const bitOf = (id: string): number | undefined => {
     const p = net.parts.find((q) => q.id === id);
     if (p?.kind === 'latch') return p.bit;
@@ -165,49 +179,40 @@ export function schematicLayout(build: Build): SchematicLayout {
     }
     g.setParent(p.id, c);
   }
+  return clusters;
+}
 
-  const drafts: {
-    cord: string;
-    from: string;
-    to: string;
-    style: SchematicEdge['style'];
-    reversed: boolean;
-    name: string;
-    fromSide: number;
-    toSide: number;
-  }[] = [];
-  const roleOfDriver = new Map(net.parts.map((p) => [p.id, p]));
+/** How a cord driven by `d` is drawn. */
+function cordStyle(d: Part | undefined): SchematicEdge['style'] {
+  if (d?.kind === 'lever' && (d.role === 'phi1' || d.role === 'phi2')) return 'clock';
+  if (d?.kind === 'lever' && d.role === 'reset') return 'reset';
+  if (d?.kind === 'gate' && d.role === 'reset-driver') return 'reset';
+  return 'cord';
+}
+
+/** Every cord branch between two different drawn nodes, then every flag's link to the Z lever it reads. */
+function edgeDrafts(g: LayoutGraph, net: Netlist, nodeOf: ReadonlyMap<string, string>, stages: StageInfo): EdgeDraft[] {
+  const drafts: EdgeDraft[] = [];
+  const byId = new Map(net.parts.map((p) => [p.id, p]));
   const side = (id: string): number => {
-    const p = roleOfDriver.get(id);
-    return p?.kind === 'gate' && p.latch !== undefined
-      ? p.role === 'latch-set'
-        ? -1
-        : p.role === 'latch-reset'
-          ? 1
-          : 0
-      : 0;
+    const p = byId.get(id);
+    if (p?.kind !== 'gate' || p.latch === undefined) return 0;
+    return p.role === 'latch-set' ? -1 : p.role === 'latch-reset' ? 1 : 0;
   };
   for (const c of net.cords) {
     const from = nodeOf.get(c.driver) ?? c.driver;
-    const d = roleOfDriver.get(c.driver);
-    const style: SchematicEdge['style'] =
-      d?.kind === 'lever' && (d.role === 'phi1' || d.role === 'phi2')
-        ? 'clock'
-        : d?.kind === 'lever' && d.role === 'reset'
-          ? 'reset'
-          : d?.kind === 'gate' && d.role === 'reset-driver'
-            ? 'reset'
-            : 'cord';
+    const style = cordStyle(byId.get(c.driver));
     const targets = [...c.ports.map((r) => r.part), ...c.actuators];
     targets.forEach((t, i) => {
       const to = nodeOf.get(t) ?? t;
       if (to === from || !g.hasNode(to) || !g.hasNode(from)) return;
+      const reversed = stages.compare(from, to) > 0;
       drafts.push({
         cord: c.id,
         from,
         to,
         style,
-        reversed: stages.compare(from, to) > 0,
+        reversed,
         name: `${c.id}#${i}`,
         fromSide: side(c.driver),
         toSide: side(t),
@@ -215,10 +220,11 @@ export function schematicLayout(build: Build): SchematicLayout {
     });
   }
   for (const p of net.parts) {
-    if (p.kind === 'flag' && p.fixed === undefined && g.hasNode(nodeOf.get(p.gate) ?? p.gate))
+    if (p.kind === 'flag' && p.fixed === undefined && g.hasNode(nodeOf.get(p.gate) ?? p.gate)) {
+      const from = nodeOf.get(p.gate) ?? p.gate;
       drafts.push({
         cord: '',
-        from: nodeOf.get(p.gate) ?? p.gate,
+        from,
         to: p.id,
         style: 'reads',
         reversed: false,
@@ -226,21 +232,16 @@ export function schematicLayout(build: Build): SchematicLayout {
         fromSide: 0,
         toSide: 0,
       });
+    }
   }
-  for (const e of drafts) {
-    if (e.reversed) g.setEdge(e.to, e.from, { weight: 1, minlen: 1 }, e.name);
-    else g.setEdge(e.from, e.to, { weight: e.style === 'reads' ? 4 : 2, minlen: 1 }, e.name);
-  }
-  dagre.layout(g);
+  return drafts;
+}
 
-  const nodes: SchematicNode[] = shown.map((p) => {
-    const n = g.node(p.id);
-    const i = info.get(p.id) as { kind: NodeKind; label: string; detail: string; title: string };
-    return { id: p.id, ...i, x: n.x as number, y: n.y as number, width: n.width, height: n.height };
-  });
+/** The route of each edge in drawing order, its ends moved to a latch's set or reset half. */
+function placedEdges(laid: LaidGraph, drafts: readonly EdgeDraft[], nodes: readonly SchematicNode[]): SchematicEdge[] {
   const byId = new Map(nodes.map((n) => [n.id, n]));
-  const edges: SchematicEdge[] = drafts.map((e) => {
-    const raw = (e.reversed ? g.edge(e.to, e.from, e.name) : g.edge(e.from, e.to, e.name)).points ?? [];
+  return drafts.map((e) => {
+    const raw = (e.reversed ? laid.edge(e.to, e.from, e.name) : laid.edge(e.from, e.to, e.name)).points;
     const pts: Point[] = (e.reversed ? [...raw].reverse() : [...raw]).map((q) => ({ x: q.x, y: q.y }));
     // Latch sides: Q leaves from the top half, Q̄ from the bottom; set ports in the top half, reset ports in the bottom.
     const a = byId.get(e.from);
@@ -250,20 +251,19 @@ export function schematicLayout(build: Build): SchematicLayout {
       pts[pts.length - 1] = { x: pts[pts.length - 1].x, y: b.y + (e.toSide * b.height) / 4 };
     return { cord: e.cord, from: e.from, to: e.to, style: e.style, points: pts };
   });
-  const cl = [...clusters.values()].map((id) => {
-    const n = g.node(id);
-    return {
-      id,
-      label: String(n.label ?? id),
-      x: (n.x as number) - n.width / 2,
-      y: (n.y as number) - n.height / 2,
-      width: n.width,
-      height: n.height,
-    };
-  });
-  // dagre may route a reversed cord outside its own bounds: fit the drawing to everything drawn.
+}
+
+/** dagre may route a reversed cord outside its own bounds: fit the drawing to everything drawn. */
+function fitted(
+  nodes: readonly SchematicNode[],
+  clusters: SchematicLayout['clusters'],
+  edges: readonly SchematicEdge[],
+): SchematicLayout {
   const ext = extentOf(
-    [...nodes, ...cl.map((c) => ({ x: c.x + c.width / 2, y: c.y + c.height / 2, width: c.width, height: c.height }))],
+    [
+      ...nodes,
+      ...clusters.map((c) => ({ x: c.x + c.width / 2, y: c.y + c.height / 2, width: c.width, height: c.height })),
+    ],
     edges.flatMap((e) => e.points),
   );
   const dx = MARGIN - ext.minX;
@@ -273,9 +273,37 @@ export function schematicLayout(build: Build): SchematicLayout {
     width: Math.max(ext.maxX - ext.minX + 2 * MARGIN, LEGEND_W),
     height: ext.maxY - ext.minY + 2 * MARGIN + LEGEND_H,
     nodes: nodes.map((n) => ({ ...n, ...move(n) })),
-    clusters: cl.map((c) => ({ ...c, ...move(c) })),
+    clusters: clusters.map((c) => ({ ...c, ...move(c) })),
     edges: edges.map((e) => ({ ...e, points: e.points.map(move) })),
   };
+}
+
+/** Place every part with dagre (see the module comment). */
+export function schematicLayout(build: Build): SchematicLayout {
+  const net = build.netlist;
+  const { shown, nodeOf } = drawnParts(net);
+  const g = layoutGraph({ compound: true, multigraph: true });
+  g.setGraph({ rankdir: 'LR', nodesep: 14, ranksep: 46, edgesep: 8, marginx: MARGIN, marginy: MARGIN });
+  g.setDefaultEdgeLabel(() => ({}));
+  const info = addPartNodes(g, net, shown);
+  const clusters = addBitClusters(g, net, shown);
+  const drafts = edgeDrafts(g, net, nodeOf, stagesOf(net));
+  for (const e of drafts) {
+    if (e.reversed) g.setEdge(e.to, e.from, { weight: 1, minlen: 1 }, e.name);
+    else g.setEdge(e.from, e.to, { weight: e.style === 'reads' ? 4 : 2, minlen: 1 }, e.name);
+  }
+  const laid = layOut(g);
+
+  const nodes: SchematicNode[] = shown.map((p) => {
+    const n = laid.node(p.id);
+    const i = info.get(p.id) as NodeInfo;
+    return { id: p.id, ...i, x: n.x, y: n.y, width: n.width, height: n.height };
+  });
+  const cl = [...clusters.values()].map((id) => {
+    const n = laid.node(id);
+    return { id, label: n.label ?? id, x: n.x - n.width / 2, y: n.y - n.height / 2, width: n.width, height: n.height };
+  });
+  return fitted(nodes, cl, placedEdges(laid, drafts, nodes));
 }
 
 const STYLE = `

@@ -26,6 +26,7 @@
  * header lists every mapping, so a name in a simulator's output can be traced to its part.
  */
 import type { Build } from '../model/build.js';
+import type { Part } from '../model/netlist.js';
 import type { Profile } from '../physics/profile.js';
 import { verilogComment as vc, VerilogNames, verilogString as vs } from './escape.js';
 import type { TourClock } from './tour.js';
@@ -51,6 +52,84 @@ export interface VerilogFiles {
   readonly testbenchName: string;
 }
 
+/** Fixed port names of a sequential build. */
+type FixedPorts = { readonly phi1: string; readonly phi2: string; readonly reset: string };
+
+/** What the module's lines need: the names (registered in a fixed order), nets and cords. */
+interface ModuleContext {
+  readonly build: Build;
+  readonly names: VerilogNames;
+  readonly outPort: (o: string) => string;
+  /** The net of a part's output (a constant 1 when it has none). */
+  readonly sig: (id: string) => string;
+  /** Drivers of the cords on each part's ports, by part id. */
+  readonly inputsOf: ReadonlyMap<string, readonly string[]>;
+}
+
+/** A gate input list: the drivers, or a constant 1 when there are none. */
+function inputList(ins: readonly string[]): string {
+  return (ins.length > 0 ? ins : ["1'b1"]).join(', ');
+}
+
+/** The net of every lever and gate output, by part id. */
+function partNets(
+  build: Build,
+  names: VerilogNames,
+  fixed: FixedPorts | undefined,
+  inPort: (i: string) => string,
+): Map<string, string> {
+  const net = new Map<string, string>();
+  for (const p of build.netlist.parts) {
+    if (p.kind === 'lever') {
+      if (p.role === 'input') net.set(p.id, inPort(p.input ?? p.name));
+      else if (fixed) net.set(p.id, fixed[p.role]);
+    } else if (p.kind === 'gate') net.set(p.id, names.get('g_', p.id));
+  }
+  return net;
+}
+
+/** The line that drives output `o`: its flag, its actuator, or a constant. */
+function outputLine(c: ModuleContext, o: string): string {
+  const n = c.build.netlist;
+  const part = n.parts.find((q) => q.id === c.build.signals.outputs[o]);
+  const out = c.outPort(o);
+  if (part?.kind === 'flag') {
+    if (part.fixed !== undefined) return `  assign ${out} = 1'b${part.fixed}; // ${vc(part.name)}, pinned`;
+    const ins = (c.inputsOf.get(part.gate) ?? []).map(c.sig);
+    const how = `${vc(part.name)}: Z of ${vc(part.gate)}${part.inverted ? ', mounted inverted' : ''}`;
+    return `  ${part.inverted ? 'nand' : 'and'} #(STAGE) ${c.names.get('f_', part.id)} (${out}, ${inputList(ins)}); // ${how}`;
+  }
+  if (part?.kind === 'actuator') {
+    const ds = n.cords.filter((cd) => cd.actuators.includes(part.id)).map((cd) => c.sig(cd.driver));
+    if (part.fixed !== undefined || ds.length === 0)
+      return `  assign ${out} = 1'b${part.fixed ?? 0}; // ${vc(part.name)}, no cord`;
+    return `  nand ${c.names.get('f_', part.id)} (${out}, ${ds.join(', ')}); // ${vc(part.name)}: lifted while a cord pulls`;
+  }
+  return `  assign ${out} = 1'b0; // no part shows this output`;
+}
+
+/** The module's statements: one nand per gate, then one line per output. */
+function moduleBody(c: ModuleContext, gates: readonly Part[]): string[] {
+  const body: string[] = [];
+  for (const g of gates) {
+    const ins = (c.inputsOf.get(g.id) ?? []).map(c.sig);
+    body.push(`  nand #(STAGE) ${c.names.get('u_', g.id)} (${c.sig(g.id)}, ${inputList(ins)}); // ${vc(g.name)}`);
+  }
+  for (const o of c.build.machine.outputs) body.push(outputLine(c, o));
+  return body;
+}
+
+/** The file header: what the module is, and every mangled name with what it stands for. */
+function moduleHeader(build: Build, names: VerilogNames): string[] {
+  return [
+    `// Structural Verilog (IEEE 1364-2005) of the lever machine ${vc(build.machine.name)}, written by Latchwright.`,
+    '// Every gate is a NAND over every cord on every port; a latch is two cross-coupled gates.',
+    "// A lever's signal is 1 exactly when it is pulled. Delays are gate stages of STAGE microseconds.",
+    '// Identifiers were mangled from part ids and names (Latchwright docs/build-documents.md):',
+    ...names.entries().map(([prefix, from, to]) => `//   ${to} = ${NAMESPACE_WORDS[prefix] ?? 'name'} ${vc(from)}`),
+  ];
+}
+
 /** Structural Verilog of the build and a testbench that steps `tour` and checks it. */
 export function verilogFiles(
   build: Build,
@@ -69,60 +148,20 @@ export function verilogFiles(
   const testbenchName = names.get('lw_', `${f.name}_tb`);
   const inPort = (i: string): string => names.get('in_', i);
   const outPort = (o: string): string => names.get('out_', o);
-  const net = new Map<string, string>();
-  for (const p of n.parts) {
-    if (p.kind === 'lever') {
-      if (p.role === 'input') net.set(p.id, inPort(p.input ?? p.name));
-      else if (fixed) net.set(p.id, fixed[p.role]);
-    } else if (p.kind === 'gate') net.set(p.id, names.get('g_', p.id));
-  }
+  const net = partNets(build, names, fixed, inPort);
   const inputsOf = new Map<string, string[]>();
   for (const c of n.cords) for (const r of c.ports) inputsOf.set(r.part, [...(inputsOf.get(r.part) ?? []), c.driver]);
   const sig = (id: string): string => net.get(id) ?? "1'b1";
   const gates = n.parts.filter((p) => p.kind === 'gate');
-  const body: string[] = [];
-  for (const g of gates) {
-    const ins = (inputsOf.get(g.id) ?? []).map(sig);
-    body.push(
-      `  nand #(STAGE) ${names.get('u_', g.id)} (${sig(g.id)}, ${(ins.length > 0 ? ins : ["1'b1"]).join(', ')}); // ${vc(g.name)}`,
-    );
-  }
-  for (const o of f.outputs) {
-    const part = n.parts.find((q) => q.id === build.signals.outputs[o]);
-    const out = outPort(o);
-    if (part?.kind === 'flag') {
-      if (part.fixed !== undefined) body.push(`  assign ${out} = 1'b${part.fixed}; // ${vc(part.name)}, pinned`);
-      else {
-        const ins = (inputsOf.get(part.gate) ?? []).map(sig);
-        body.push(
-          `  ${part.inverted ? 'nand' : 'and'} #(STAGE) ${names.get('f_', part.id)} (${out}, ${(ins.length > 0 ? ins : ["1'b1"]).join(', ')}); // ${vc(part.name)}: Z of ${vc(part.gate)}${part.inverted ? ', mounted inverted' : ''}`,
-        );
-      }
-    } else if (part?.kind === 'actuator') {
-      const ds = n.cords.filter((c) => c.actuators.includes(part.id)).map((c) => sig(c.driver));
-      if (part.fixed !== undefined || ds.length === 0)
-        body.push(`  assign ${out} = 1'b${part.fixed ?? 0}; // ${vc(part.name)}, no cord`);
-      else
-        body.push(
-          `  nand ${names.get('f_', part.id)} (${out}, ${ds.join(', ')}); // ${vc(part.name)}: lifted while a cord pulls`,
-        );
-    } else body.push(`  assign ${out} = 1'b0; // no part shows this output`);
-  }
+  const body = moduleBody({ build, names, outPort, sig, inputsOf }, gates);
   const stageUs = Math.max(1, Math.round(profile.stageDelayS * 1e6));
   const ports = [
     ...f.inputs.map((i) => `input wire ${inPort(i)}`),
     ...(fixed ? [`input wire ${fixed.phi1}`, `input wire ${fixed.phi2}`, `input wire ${fixed.reset}`] : []),
     ...f.outputs.map((o) => `output wire ${outPort(o)}`),
   ];
-  const header = [
-    `// Structural Verilog (IEEE 1364-2005) of the lever machine ${vc(f.name)}, written by Latchwright.`,
-    '// Every gate is a NAND over every cord on every port; a latch is two cross-coupled gates.',
-    "// A lever's signal is 1 exactly when it is pulled. Delays are gate stages of STAGE microseconds.",
-    '// Identifiers were mangled from part ids and names (Latchwright docs/build-documents.md):',
-    ...names.entries().map(([prefix, from, to]) => `//   ${to} = ${NAMESPACE_WORDS[prefix] ?? 'name'} ${vc(from)}`),
-  ];
   const module = [
-    ...header,
+    ...moduleHeader(build, names),
     '`timescale 1us / 1us',
     `module ${moduleName} #(parameter STAGE = ${stageUs}) (`,
     ports.map((x) => `  ${x}`).join(',\n'),
@@ -132,17 +171,8 @@ export function verilogFiles(
     'endmodule',
     '',
   ].join('\n');
-  const testbench = testbenchText(build, tour, {
-    names,
-    moduleName,
-    testbenchName,
-    fixed,
-    inPort,
-    outPort,
-    sig,
-    stageUs,
-    gateCount: gates.length,
-  });
+  const tb = { names, moduleName, testbenchName, fixed, inPort, outPort, sig, stageUs, gateCount: gates.length };
+  const testbench = testbenchText(build, tour, tb);
   return { module, testbench, moduleName, testbenchName };
 }
 
@@ -150,7 +180,7 @@ interface TbContext {
   readonly names: VerilogNames;
   readonly moduleName: string;
   readonly testbenchName: string;
-  readonly fixed?: { readonly phi1: string; readonly phi2: string; readonly reset: string };
+  readonly fixed?: FixedPorts;
   readonly inPort: (i: string) => string;
   readonly outPort: (o: string) => string;
   readonly sig: (id: string) => string;

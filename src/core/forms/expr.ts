@@ -60,11 +60,15 @@ function tokenize(text: string): { toks: Tok[]; bad?: { pos: number; msg: string
   return { toks };
 }
 
-class SyntaxProblem {
+/** A syntax error at offset `pos`; caught inside this module and turned into LW102. */
+class SyntaxProblem extends Error {
   constructor(
     readonly pos: number,
     readonly msg: string,
-  ) {}
+  ) {
+    super(msg);
+    this.name = 'SyntaxProblem';
+  }
 }
 
 /** Result of reading an expression from the front of a text. */
@@ -84,6 +88,111 @@ function where(loc: SourceLoc, offset: number): string {
   return loc.line !== undefined ? '' : ` (at character ${offset + 1})`;
 }
 
+function describeToken(t: Tok): string {
+  return t.kind === 'end' ? 'the end of the expression' : `'${t.text}'`;
+}
+
+/** Binary operators by precedence level, loosest first. */
+const LEVELS = [
+  ['|', 'or'],
+  ['^', 'xor'],
+  ['&', 'and'],
+] as const;
+
+/** Recursive descent over the tokens, one method per grammar rule; unknown inputs go to `diagnostics`. */
+class ExprReader {
+  readonly diagnostics: Diagnostic[] = [];
+  private k = 0;
+  private readonly index: Map<string, number>;
+
+  constructor(
+    private readonly toks: readonly Tok[],
+    private readonly inputs: readonly string[],
+    private readonly loc: SourceLoc,
+    private readonly stopWord: string | undefined,
+  ) {
+    this.index = new Map(inputs.map((n, i) => [n, i]));
+  }
+
+  peek(): Tok {
+    return this.toks[this.k];
+  }
+
+  or(): Expr {
+    return this.chain(0);
+  }
+
+  /**
+   * `sub (op sub)*` at one precedence level (0 '|', 1 '^', 2 '&') as one n-ary node; nested
+   * nodes of the same kind are flattened into it. The next level is called directly, so that a
+   * level of parentheses costs few stack frames.
+   */
+  private chain(level: 0 | 1 | 2): Expr {
+    const op = LEVELS[level][0];
+    const kind = LEVELS[level][1];
+    const args: Expr[] = [];
+    const push = (e: Expr): void => {
+      if (e.kind === kind) args.push(...e.args);
+      else args.push(e);
+    };
+    push(level < 2 ? this.chain((level + 1) as 1 | 2) : this.operand());
+    while (this.peek().kind === 'op' && this.peek().text === op) {
+      this.k++;
+      push(level < 2 ? this.chain((level + 1) as 1 | 2) : this.operand());
+    }
+    return args.length === 1 ? args[0] : { kind, args };
+  }
+
+  /** `not` and `atom` of the grammar: the `!`s are counted rather than recursed into. */
+  private operand(): Expr {
+    let nots = 0;
+    while (this.peek().kind === 'op' && this.peek().text === '!') {
+      this.k++;
+      nots++;
+    }
+    let e: Expr;
+    const t = this.peek();
+    if (t.kind === 'const') {
+      this.k++;
+      e = { kind: 'const', value: t.text === '1' ? 1 : 0 };
+    } else if (t.kind === 'name') e = this.input(t);
+    else if (t.kind === 'op' && t.text === '(') {
+      this.k++;
+      e = this.chain(0);
+      const c = this.peek();
+      if (!(c.kind === 'op' && c.text === ')'))
+        throw new SyntaxProblem(c.pos, `expected ')' but found ${describeToken(c)}`);
+      this.k++;
+    } else throw new SyntaxProblem(t.pos, `expected an input name, 0, 1, '!' or '(' but found ${describeToken(t)}`);
+    for (; nots > 0; nots--) e = { kind: 'not', arg: e };
+    return e;
+  }
+
+  /** A name in operand position: an input, or LW201 (reading goes on, to find more problems). */
+  private input(t: Tok): Expr {
+    const i = this.index.get(t.text);
+    if (i === undefined && t.text === this.stopWord)
+      throw new SyntaxProblem(t.pos, `the guard is incomplete before '${t.text}'`);
+    this.k++;
+    if (i === undefined) {
+      const guess = didYouMean(t.text, this.inputs);
+      this.diagnostics.push(
+        diag(
+          'LW201',
+          `unknown input '${t.text}'${where(this.loc, t.pos)}`,
+          locAt(this.loc, t.pos),
+          guess
+            ? `did you mean '${guess}'?`
+            : this.inputs.length
+              ? `declared inputs: ${this.inputs.join(', ')}`
+              : 'the machine declares no inputs',
+        ),
+      );
+    }
+    return { kind: 'input', name: t.text, index: i ?? -1 };
+  }
+}
+
 /**
  * Read an expression. With `stopWord` the expression may end before a name that cannot
  * continue it (the text form uses this to find its keyword after a guard); `stopWord` itself
@@ -91,86 +200,19 @@ function where(loc: SourceLoc, offset: number): string {
  */
 export function readExpr(text: string, inputs: readonly string[], loc: SourceLoc, stopWord?: string): ExprPrefix {
   const prefix = stopWord !== undefined;
-  const diagnostics: Diagnostic[] = [];
   const { toks, bad } = tokenize(text);
-  const index = new Map(inputs.map((n, i) => [n, i]));
-  let k = 0;
-  const peek = (): Tok => toks[k];
-  const describe = (t: Tok): string => (t.kind === 'end' ? 'the end of the expression' : `'${t.text}'`);
-
-  const atom = (): Expr => {
-    const t = peek();
-    if (t.kind === 'const') {
-      k++;
-      return { kind: 'const', value: t.text === '1' ? 1 : 0 };
-    }
-    if (t.kind === 'name') {
-      const i = index.get(t.text);
-      if (i === undefined && t.text === stopWord)
-        throw new SyntaxProblem(t.pos, `the guard is incomplete before '${t.text}'`);
-      k++;
-      if (i === undefined) {
-        const guess = didYouMean(t.text, inputs);
-        diagnostics.push(
-          diag(
-            'LW201',
-            `unknown input '${t.text}'${where(loc, t.pos)}`,
-            locAt(loc, t.pos),
-            guess
-              ? `did you mean '${guess}'?`
-              : inputs.length
-                ? `declared inputs: ${inputs.join(', ')}`
-                : 'the machine declares no inputs',
-          ),
-        );
-      }
-      return { kind: 'input', name: t.text, index: i ?? -1 };
-    }
-    if (t.kind === 'op' && t.text === '(') {
-      k++;
-      const e = or();
-      const c = peek();
-      if (!(c.kind === 'op' && c.text === ')')) throw new SyntaxProblem(c.pos, `expected ')' but found ${describe(c)}`);
-      k++;
-      return e;
-    }
-    throw new SyntaxProblem(t.pos, `expected an input name, 0, 1, '!' or '(' but found ${describe(t)}`);
-  };
-  const not = (): Expr => {
-    const t = peek();
-    if (t.kind === 'op' && t.text === '!') {
-      k++;
-      return { kind: 'not', arg: not() };
-    }
-    return atom();
-  };
-  const chain = (op: string, kind: 'and' | 'or' | 'xor', sub: () => Expr) => (): Expr => {
-    const args: Expr[] = [];
-    const push = (e: Expr): void => {
-      if (e.kind === kind) args.push(...e.args);
-      else args.push(e);
-    };
-    push(sub());
-    while (peek().kind === 'op' && peek().text === op) {
-      k++;
-      push(sub());
-    }
-    return args.length === 1 ? args[0] : { kind, args };
-  };
-  const and = chain('&', 'and', not);
-  const xor = chain('^', 'xor', and);
-  const or = chain('|', 'or', xor);
-
+  const reader = new ExprReader(toks, inputs, loc, stopWord);
+  const diagnostics = reader.diagnostics;
   try {
     if (toks.length === 1 && !bad) throw new SyntaxProblem(0, 'the expression is empty');
-    const expr = or();
-    const t = peek();
+    const expr = reader.or();
+    const t = reader.peek();
     if (t.kind !== 'end') {
       if (!(prefix && t.kind === 'name')) {
         const msg =
           t.kind === 'op' && t.text === ')'
             ? `unmatched ')'`
-            : `expected an operator (&, |, ^) but found ${describe(t)}`;
+            : `expected an operator (&, |, ^) but found ${describeToken(t)}`;
         throw new SyntaxProblem(t.pos, msg);
       }
     } else if (bad && !prefix) {
@@ -237,7 +279,13 @@ function clip(s: string): string {
   return s.length > 60 ? s.slice(0, 57) + '...' : s;
 }
 
-class TooBig {}
+/** The cover grew past a limit; caught inside exprCover, which then returns undefined. */
+class TooBig extends Error {
+  constructor() {
+    super('the cover exceeds its limits');
+    this.name = 'TooBig';
+  }
+}
 
 /** The cover of `expr` over n inputs, or undefined when it exceeds the limits. */
 export function exprCover(

@@ -4,109 +4,132 @@
  * position, and the user needs a line and column.
  */
 
+/** The first syntax error, thrown inside the scanner and caught by locateJsonError. */
+class Stop extends Error {
+  constructor(
+    readonly pos: number,
+    readonly msg: string,
+  ) {
+    super(msg);
+    this.name = 'Stop';
+  }
+}
+
+const NOT_A_VALUE = 'values are objects, arrays, strings, numbers, true, false or null';
+
+/** A recursive-descent reader of one JSON text that only checks the grammar; `i` is the read position. */
+class JsonScanner {
+  private i = 0;
+
+  constructor(private readonly text: string) {}
+
+  /** The whole text: one value, then only white space. */
+  document(): void {
+    this.value();
+    this.ws();
+    if (this.i < this.text.length) this.fail(`unexpected ${this.found()} after the end of the JSON value`);
+  }
+
+  private fail(msg: string, pos = this.i): never {
+    throw new Stop(pos, msg);
+  }
+
+  private found(): string {
+    return this.i >= this.text.length ? 'the end of the text' : `'${this.text[this.i]}'`;
+  }
+
+  private ws(): void {
+    while (this.i < this.text.length && ' \t\n\r'.includes(this.text[this.i])) this.i++;
+  }
+
+  private expect(ch: string, what: string): void {
+    if (this.text[this.i] !== ch) this.fail(`expected ${what} but found ${this.found()}`);
+    this.i++;
+  }
+
+  /**
+   * One value. Objects and arrays are read here rather than in methods of their own, so that
+   * each level of nesting costs one stack frame.
+   */
+  private value(): void {
+    this.ws();
+    const c = this.text[this.i];
+    if (c === '{' || c === '[') {
+      const close = c === '{' ? '}' : ']';
+      this.i++;
+      this.ws();
+      if (this.text[this.i] === close) {
+        this.i++;
+        return;
+      }
+      for (;;) {
+        if (c === '{') this.key();
+        this.value();
+        this.ws();
+        if (this.text[this.i] !== ',') break;
+        this.i++;
+      }
+      this.expect(close, `',' or '${close}'`);
+    } else if (c === '"') this.string();
+    else if (c === '-' || (c !== undefined && c >= '0' && c <= '9')) this.number();
+    else if (c === 't') this.word('true');
+    else if (c === 'f') this.word('false');
+    else if (c === 'n') this.word('null');
+    else if (c === undefined) this.fail('the text ends where a value should be');
+    else this.fail(`unexpected ${this.found()}: ${NOT_A_VALUE}`);
+  }
+
+  /** An object member's key and its ':'. */
+  private key(): void {
+    this.ws();
+    if (this.text[this.i] !== '"') this.fail(`expected a quoted key but found ${this.found()}`);
+    this.string();
+    this.ws();
+    this.expect(':', "':' after the key");
+  }
+
+  private string(): void {
+    const open = this.i++;
+    for (;;) {
+      if (this.i >= this.text.length) this.fail('a string is never closed', open);
+      const c = this.text.charCodeAt(this.i);
+      if (c === 0x22) {
+        this.i++;
+        return;
+      }
+      if (c < 0x20) this.fail('a string holds a raw control character (a line break?); write it as an escape');
+      if (c === 0x5c) this.escape();
+      else this.i++;
+    }
+  }
+
+  /** A backslash escape inside a string, at the backslash. */
+  private escape(): void {
+    const e = this.text[this.i + 1];
+    if (e === 'u') {
+      if (!/^[0-9a-fA-F]{4}$/.test(this.text.slice(this.i + 2, this.i + 6)))
+        this.fail('\\u must be followed by four hex digits');
+      this.i += 6;
+    } else if (e !== undefined && '"\\/bfnrt'.includes(e)) this.i += 2;
+    else this.fail(`unknown escape '\\${e ?? ''}' in a string`);
+  }
+
+  private number(): void {
+    const m = /^-?(0|[1-9][0-9]*)(\.[0-9]+)?([eE][+-]?[0-9]+)?/.exec(this.text.slice(this.i, this.i + 400));
+    if (!m || m[0] === '-') this.fail(`malformed number`);
+    this.i += m[0].length;
+  }
+
+  private word(w: string): void {
+    if (this.text.startsWith(w, this.i)) this.i += w.length;
+    else this.fail(`unexpected ${this.found()}: ${NOT_A_VALUE}`);
+  }
+}
+
 /** Offset and description of the first syntax error, or undefined when the text is valid. */
 export function locateJsonError(text: string): { pos: number; msg: string } | undefined {
-  let i = 0;
-  class Stop {
-    constructor(
-      readonly pos: number,
-      readonly msg: string,
-    ) {}
-  }
-  const fail = (msg: string, pos = i): never => {
-    throw new Stop(pos, msg);
-  };
-  const found = (): string => (i >= text.length ? 'the end of the text' : `'${text[i]}'`);
-  const ws = (): void => {
-    while (i < text.length && ' \t\n\r'.includes(text[i])) i++;
-  };
-  const expect = (ch: string, what: string): void => {
-    if (text[i] !== ch) fail(`expected ${what} but found ${found()}`);
-    i++;
-  };
-  const string = (): void => {
-    const open = i++;
-    for (;;) {
-      if (i >= text.length) fail('a string is never closed', open);
-      const c = text.charCodeAt(i);
-      if (c === 0x22) {
-        i++;
-        return;
-      }
-      if (c < 0x20) fail('a string holds a raw control character (a line break?); write it as an escape');
-      if (c === 0x5c) {
-        const e = text[i + 1];
-        if (e === 'u') {
-          if (!/^[0-9a-fA-F]{4}$/.test(text.slice(i + 2, i + 6))) fail('\\u must be followed by four hex digits');
-          i += 6;
-        } else if (e !== undefined && '"\\/bfnrt'.includes(e)) i += 2;
-        else fail(`unknown escape '\\${e ?? ''}' in a string`);
-      } else i++;
-    }
-  };
-  const number = (): void => {
-    const m = /^-?(0|[1-9][0-9]*)(\.[0-9]+)?([eE][+-]?[0-9]+)?/.exec(text.slice(i, i + 400));
-    if (!m || m[0] === '-') fail(`malformed number`);
-    i += m![0].length;
-  };
-  const word = (w: string): void => {
-    if (text.startsWith(w, i)) i += w.length;
-    else fail(`unexpected ${found()}: values are objects, arrays, strings, numbers, true, false or null`);
-  };
-  const value = (): void => {
-    ws();
-    const c = text[i];
-    if (c === '{') {
-      i++;
-      ws();
-      if (text[i] === '}') {
-        i++;
-        return;
-      }
-      for (;;) {
-        ws();
-        if (text[i] !== '"') fail(`expected a quoted key but found ${found()}`);
-        string();
-        ws();
-        expect(':', "':' after the key");
-        value();
-        ws();
-        if (text[i] === ',') {
-          i++;
-          continue;
-        }
-        expect('}', "',' or '}'");
-        return;
-      }
-    } else if (c === '[') {
-      i++;
-      ws();
-      if (text[i] === ']') {
-        i++;
-        return;
-      }
-      for (;;) {
-        value();
-        ws();
-        if (text[i] === ',') {
-          i++;
-          continue;
-        }
-        expect(']', "',' or ']'");
-        return;
-      }
-    } else if (c === '"') string();
-    else if (c === '-' || (c !== undefined && c >= '0' && c <= '9')) number();
-    else if (c === 't') word('true');
-    else if (c === 'f') word('false');
-    else if (c === 'n') word('null');
-    else if (c === undefined) fail('the text ends where a value should be');
-    else fail(`unexpected ${found()}: values are objects, arrays, strings, numbers, true, false or null`);
-  };
   try {
-    value();
-    ws();
-    if (i < text.length) fail(`unexpected ${found()} after the end of the JSON value`);
+    new JsonScanner(text).document();
     return undefined;
   } catch (e) {
     if (e instanceof Stop) return { pos: e.pos, msg: e.msg };

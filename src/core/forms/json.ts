@@ -66,9 +66,15 @@ function typeName(v: unknown): string {
   if (v === null) return 'null';
   if (Array.isArray(v)) return 'a list';
   if (typeof v === 'object') return 'an object';
-  return typeof v === 'string'
-    ? `the string ${JSON.stringify(v.length > 30 ? v.slice(0, 27) + '...' : v)}`
-    : `${typeof v} ${String(v)}`;
+  if (typeof v === 'string') return `the string ${JSON.stringify(v.length > 30 ? v.slice(0, 27) + '...' : v)}`;
+  if (typeof v === 'function') return `function ${String(v)}`;
+  return isPrimitive(v) ? `${typeof v} ${String(v)}` : typeof v;
+}
+
+/** A value that is neither a string, an object nor a function (those are described by kind). */
+export function isPrimitive(v: unknown): v is number | boolean | bigint | symbol | undefined {
+  const t = typeof v;
+  return t === 'number' || t === 'boolean' || t === 'bigint' || t === 'symbol' || t === 'undefined';
 }
 
 /** Parse JSON text into a Machine. */
@@ -94,49 +100,58 @@ export function parseJsonMachine(text: string, file?: string): MachineResult {
   return machineFromJson(value, file);
 }
 
-/** Read an already parsed JSON value into a Machine. */
-export function machineFromJson(value: unknown, file?: string): MachineResult {
-  const ds: Diagnostic[] = [];
-  const at = (path: string): SourceLoc => (file === undefined ? { path } : { file, path });
-  const wrongType = (path: string, want: string, v: unknown): void => {
-    ds.push(
-      diag('LW103', `${path} should be ${want}, not ${typeName(v)}`, at(path), `see schemas/machine.schema.json`),
-    );
-  };
-  const unknownKeys = (o: Obj, path: string, known: readonly string[]): void => {
+/** The diagnostics of one reading, and the helpers that add to them. */
+class JsonReader {
+  readonly ds: Diagnostic[] = [];
+
+  constructor(private readonly file: string | undefined) {}
+
+  at(path: string): SourceLoc {
+    return this.file === undefined ? { path } : { file: this.file, path };
+  }
+
+  wrongType(path: string, want: string, v: unknown): void {
+    const msg = `${path} should be ${want}, not ${typeName(v)}`;
+    this.ds.push(diag('LW103', msg, this.at(path), `see schemas/machine.schema.json`));
+  }
+
+  unknownKeys(o: Obj, path: string, known: readonly string[]): void {
     for (const k of Object.keys(o)) {
       if (known.includes(k)) continue;
       const guess = didYouMean(k, known);
-      ds.push(
-        diag(
-          'LW105',
-          `unknown field '${k}' ignored`,
-          at(jsonKey(path, k)),
-          guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`,
-        ),
-      );
+      const hint = guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`;
+      this.ds.push(diag('LW105', `unknown field '${k}' ignored`, this.at(jsonKey(path, k)), hint));
     }
-  };
-  const stringList = (o: Obj, key: string): string[] => {
+  }
+
+  /** The top-level list `key` of names. */
+  stringList(o: Obj, key: string): string[] {
     const v = own(o, key);
     const path = `$.${key}`;
     if (v === undefined) {
-      ds.push(diag('LW104', `the machine has no '${key}' list`, at('$'), `add "${key}": [] (a list of names)`));
+      this.ds.push(
+        diag('LW104', `the machine has no '${key}' list`, this.at('$'), `add "${key}": [] (a list of names)`),
+      );
       return [];
     }
     if (!Array.isArray(v)) {
-      wrongType(path, 'a list of names', v);
+      this.wrongType(path, 'a list of names', v);
       return [];
     }
     const out: string[] = [];
-    v.forEach((x, i) => (typeof x === 'string' ? out.push(x) : wrongType(`${path}[${i}]`, 'a name (a string)', x)));
+    v.forEach((x: unknown, i) => {
+      if (typeof x === 'string') out.push(x);
+      else this.wrongType(`${path}[${i}]`, 'a name (a string)', x);
+    });
     return out;
-  };
-  const outputsMap = (v: unknown, path: string, locs: Record<string, SourceLoc>): Record<string, OutBit> => {
-    const rec: Record<string, OutBit> = Object.create(null);
+  }
+
+  /** An `outputs` object of a state or transition; records where each value was written in `locs`. */
+  outputsMap(v: unknown, path: string, locs: Record<string, SourceLoc>): Record<string, OutBit> {
+    const rec = Object.create(null) as Record<string, OutBit>;
     if (v === undefined) return rec;
     if (!isObj(v)) {
-      wrongType(path, 'an object of output values, like {"bell": 1}', v);
+      this.wrongType(path, 'an object of output values, like {"bell": 1}', v);
       return rec;
     }
     for (const k of Object.keys(v)) {
@@ -144,156 +159,176 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
       const p = jsonKey(path, k);
       if (x === 0 || x === 1 || x === '-') {
         rec[k] = x;
-        locs[`out:${k}`] = at(p);
+        locs[`out:${k}`] = this.at(p);
       } else
-        ds.push(diag('LW106', `output '${k}' has the value ${typeName(x)}`, at(p), `write 0, 1 or "-" (don't care)`));
+        this.ds.push(
+          diag('LW106', `output '${k}' has the value ${typeName(x)}`, this.at(p), `write 0, 1 or "-" (don't care)`),
+        );
     }
     return rec;
-  };
-
-  if (!isObj(value)) {
-    ds.push(
-      diag(
-        'LW100',
-        `a machine must be a JSON object, not ${typeName(value)}`,
-        at('$'),
-        'start the file with { "name": …, "states": [ … ] }',
-      ),
-    );
-    return { diagnostics: ds };
   }
-  unknownKeys(value, '$', TOP_KEYS);
 
-  const partLocs: Record<string, SourceLoc> = { name: at('$.name'), start: at('$.start') };
+  /** A guard expression string over `inputs`. */
+  guard(v: unknown, path: string, inputs: readonly string[]): Guard | undefined {
+    if (typeof v !== 'string') {
+      this.wrongType(path, 'an expression (a string)', v);
+      return undefined;
+    }
+    const r = parseGuard(v, inputs, this.at(path));
+    this.ds.push(...r.diagnostics);
+    return r.guard;
+  }
+}
+
+/** `name`: a string, required. */
+function readName(r: JsonReader, value: Obj): string {
   const rawName = own(value, 'name');
-  let name = '';
-  if (rawName === undefined) ds.push(diag('LW104', `the machine has no 'name'`, at('$'), 'add "name": "…"'));
-  else if (typeof rawName !== 'string') wrongType('$.name', 'a string', rawName);
-  else name = rawName;
+  if (rawName === undefined) r.ds.push(diag('LW104', `the machine has no 'name'`, r.at('$'), 'add "name": "…"'));
+  else if (typeof rawName !== 'string') r.wrongType('$.name', 'a string', rawName);
+  else return rawName;
+  return '';
+}
 
-  const rawDescription = own(value, 'description');
-  if (rawDescription !== undefined && typeof rawDescription !== 'string')
-    wrongType('$.description', 'a string', rawDescription);
-
-  const inputs = stringList(value, 'inputs');
-  const outputs = stringList(value, 'outputs');
-  inputs.forEach((_, i) => (partLocs[`input:${i}`] = at(`$.inputs[${i}]`)));
-  outputs.forEach((_, i) => (partLocs[`output:${i}`] = at(`$.outputs[${i}]`)));
-
+/** `start`: a state name; an absent start is the validate phase's to report. */
+function readStart(r: JsonReader, value: Obj): string {
   const rawStart = own(value, 'start');
-  let start = '';
-  if (rawStart !== undefined && typeof rawStart !== 'string') wrongType('$.start', 'a state name (a string)', rawStart);
-  else if (typeof rawStart === 'string') start = rawStart;
+  if (rawStart !== undefined && typeof rawStart !== 'string')
+    r.wrongType('$.start', 'a state name (a string)', rawStart);
+  else if (typeof rawStart === 'string') return rawStart;
+  return '';
+}
 
-  const rawUnspecified = own(value, 'unspecified');
-  let unspecified: Machine['unspecified'] = 'hold';
-  if (rawUnspecified === 'hold' || rawUnspecified === 'dont-care') unspecified = rawUnspecified;
-  else if (rawUnspecified !== undefined) {
-    const guess = typeof rawUnspecified === 'string' ? didYouMean(rawUnspecified, ['hold', 'dont-care']) : undefined;
-    ds.push(
+/** `unspecified`: "hold" (the default) or "dont-care". */
+function readUnspecified(r: JsonReader, value: Obj): Machine['unspecified'] {
+  const raw = own(value, 'unspecified');
+  if (raw === 'hold' || raw === 'dont-care') return raw;
+  if (raw !== undefined) {
+    const guess = typeof raw === 'string' ? didYouMean(raw, ['hold', 'dont-care']) : undefined;
+    r.ds.push(
       diag(
         'LW103',
-        `$.unspecified should be "hold" or "dont-care", not ${typeName(rawUnspecified)}`,
-        at('$.unspecified'),
+        `$.unspecified should be "hold" or "dont-care", not ${typeName(raw)}`,
+        r.at('$.unspecified'),
         guess ? `did you mean "${guess}"?` : 'write "hold" or "dont-care"',
       ),
     );
   }
+  return 'hold';
+}
 
-  const guard = (v: unknown, path: string): Guard | undefined => {
-    if (typeof v !== 'string') {
-      wrongType(path, 'an expression (a string)', v);
-      return undefined;
-    }
-    const r = parseGuard(v, inputs, at(path));
-    ds.push(...r.diagnostics);
-    return r.guard;
-  };
-
+/** `never`: a list of expressions. */
+function readNever(r: JsonReader, value: Obj, inputs: readonly string[]): Guard[] {
   const never: Guard[] = [];
   const rawNever = own(value, 'never');
-  if (rawNever !== undefined && !Array.isArray(rawNever)) wrongType('$.never', 'a list of expressions', rawNever);
+  if (rawNever !== undefined && !Array.isArray(rawNever)) r.wrongType('$.never', 'a list of expressions', rawNever);
   else if (Array.isArray(rawNever))
-    rawNever.forEach((x, i) => {
-      const g = guard(x, `$.never[${i}]`);
+    rawNever.forEach((x: unknown, i) => {
+      const g = r.guard(x, `$.never[${i}]`, inputs);
       if (g) never.push(g);
     });
+  return never;
+}
 
+/** `states`: the list of states, each read by readState. */
+function readStates(r: JsonReader, value: Obj, inputs: readonly string[]): State[] {
   const states: State[] = [];
   const rawStates = own(value, 'states');
-  if (rawStates === undefined)
-    ds.push(
-      diag(
-        'LW104',
-        `the machine has no 'states' list`,
-        at('$'),
-        'add "states": [ { "name": …, "transitions": [ … ] } ]',
-      ),
-    );
-  else if (!Array.isArray(rawStates)) wrongType('$.states', 'a list of states', rawStates);
+  if (rawStates === undefined) {
+    const hint = 'add "states": [ { "name": …, "transitions": [ … ] } ]';
+    r.ds.push(diag('LW104', `the machine has no 'states' list`, r.at('$'), hint));
+  } else if (!Array.isArray(rawStates)) r.wrongType('$.states', 'a list of states', rawStates);
   else
-    rawStates.forEach((rs, si) => {
-      const sp = `$.states[${si}]`;
-      if (!isObj(rs)) return wrongType(sp, 'a state object', rs);
-      unknownKeys(rs, sp, STATE_KEYS);
-      const locs: Record<string, SourceLoc> = { name: at(`${sp}.name`) };
-      const sName = own(rs, 'name');
-      if (sName === undefined) ds.push(diag('LW104', `state ${si + 1} has no 'name'`, at(sp), 'add "name": "…"'));
-      else if (typeof sName !== 'string') wrongType(`${sp}.name`, 'a string', sName);
-      const code = own(rs, 'code');
-      if (code !== undefined) {
-        if (typeof code !== 'string') wrongType(`${sp}.code`, 'a string of 0/1 digits', code);
-        locs.code = at(`${sp}.code`);
-      }
-      const sOutputs = outputsMap(own(rs, 'outputs'), `${sp}.outputs`, locs);
-      const transitions: Transition[] = [];
-      const rawTs = own(rs, 'transitions');
-      if (rawTs === undefined)
-        ds.push(
-          diag(
-            'LW104',
-            `state ${typeof sName === 'string' ? `'${sName}'` : si + 1} has no 'transitions' list`,
-            at(sp),
-            'add "transitions": [] (a state with none holds)',
-          ),
-        );
-      else if (!Array.isArray(rawTs)) wrongType(`${sp}.transitions`, 'a list of transitions', rawTs);
-      else
-        rawTs.forEach((rt, ti) => {
-          const tp = `${sp}.transitions[${ti}]`;
-          if (!isObj(rt)) return wrongType(tp, 'a transition object', rt);
-          unknownKeys(rt, tp, TRANSITION_KEYS);
-          const tLocs: Record<string, SourceLoc> = { to: at(`${tp}.to`) };
-          const rawWhen = own(rt, 'when');
-          const when = rawWhen === undefined ? alwaysGuard(inputs.length, at(tp)) : guard(rawWhen, `${tp}.when`);
-          const to = own(rt, 'to');
-          if (to === undefined)
-            ds.push(
-              diag(
-                'LW104',
-                `transition ${ti + 1} of state ${typeof sName === 'string' ? `'${sName}'` : si + 1} has no 'to'`,
-                at(tp),
-                'add "to": "<state name>"',
-              ),
-            );
-          else if (typeof to !== 'string') wrongType(`${tp}.to`, 'a state name (a string)', to);
-          const tOutputs = outputsMap(own(rt, 'outputs'), `${tp}.outputs`, tLocs);
-          if (when && typeof to === 'string')
-            transitions.push({ when, to, outputs: tOutputs, loc: at(tp), partLocs: tLocs });
-        });
-      if (typeof sName === 'string') {
-        states.push({
-          name: sName,
-          outputs: sOutputs,
-          transitions,
-          ...(typeof code === 'string' ? { code } : {}),
-          loc: at(sp),
-          partLocs: locs,
-        });
-      }
+    rawStates.forEach((rs: unknown, si) => {
+      const s = readState(r, rs, si, inputs);
+      if (s) states.push(s);
     });
+  return states;
+}
 
-  if (ds.some((d) => d.severity === 'error')) return { diagnostics: ds };
+/** State number `si` (0-based); undefined when it has no usable name. */
+function readState(r: JsonReader, rs: unknown, si: number, inputs: readonly string[]): State | undefined {
+  const sp = `$.states[${si}]`;
+  if (!isObj(rs)) {
+    r.wrongType(sp, 'a state object', rs);
+    return undefined;
+  }
+  r.unknownKeys(rs, sp, STATE_KEYS);
+  const locs: Record<string, SourceLoc> = { name: r.at(`${sp}.name`) };
+  const sName = own(rs, 'name');
+  if (sName === undefined) r.ds.push(diag('LW104', `state ${si + 1} has no 'name'`, r.at(sp), 'add "name": "…"'));
+  else if (typeof sName !== 'string') r.wrongType(`${sp}.name`, 'a string', sName);
+  const code = own(rs, 'code');
+  if (code !== undefined) {
+    if (typeof code !== 'string') r.wrongType(`${sp}.code`, 'a string of 0/1 digits', code);
+    locs.code = r.at(`${sp}.code`);
+  }
+  const outputs = r.outputsMap(own(rs, 'outputs'), `${sp}.outputs`, locs);
+  // How messages name the state: by its name when it has one, else by its number.
+  const label = typeof sName === 'string' ? `'${sName}'` : String(si + 1);
+  const transitions: Transition[] = [];
+  const rawTs = own(rs, 'transitions');
+  if (rawTs === undefined) {
+    const hint = 'add "transitions": [] (a state with none holds)';
+    r.ds.push(diag('LW104', `state ${label} has no 'transitions' list`, r.at(sp), hint));
+  } else if (!Array.isArray(rawTs)) r.wrongType(`${sp}.transitions`, 'a list of transitions', rawTs);
+  else
+    rawTs.forEach((rt: unknown, ti) => {
+      const t = readTransition(r, rt, `${sp}.transitions[${ti}]`, `transition ${ti + 1} of state ${label}`, inputs);
+      if (t) transitions.push(t);
+    });
+  if (typeof sName !== 'string') return undefined;
+  const pinned = typeof code === 'string' ? { code } : {};
+  return { name: sName, outputs, transitions, ...pinned, loc: r.at(sp), partLocs: locs };
+}
+
+/** One transition at JSON path `tp`; `what` names it in messages. */
+function readTransition(
+  r: JsonReader,
+  rt: unknown,
+  tp: string,
+  what: string,
+  inputs: readonly string[],
+): Transition | undefined {
+  if (!isObj(rt)) {
+    r.wrongType(tp, 'a transition object', rt);
+    return undefined;
+  }
+  r.unknownKeys(rt, tp, TRANSITION_KEYS);
+  const tLocs: Record<string, SourceLoc> = { to: r.at(`${tp}.to`) };
+  const rawWhen = own(rt, 'when');
+  const when = rawWhen === undefined ? alwaysGuard(inputs.length, r.at(tp)) : r.guard(rawWhen, `${tp}.when`, inputs);
+  const to = own(rt, 'to');
+  if (to === undefined) r.ds.push(diag('LW104', `${what} has no 'to'`, r.at(tp), 'add "to": "<state name>"'));
+  else if (typeof to !== 'string') r.wrongType(`${tp}.to`, 'a state name (a string)', to);
+  const outputs = r.outputsMap(own(rt, 'outputs'), `${tp}.outputs`, tLocs);
+  return when && typeof to === 'string' ? { when, to, outputs, loc: r.at(tp), partLocs: tLocs } : undefined;
+}
+
+/** Read an already parsed JSON value into a Machine. */
+export function machineFromJson(value: unknown, file?: string): MachineResult {
+  const r = new JsonReader(file);
+  if (!isObj(value)) {
+    const msg = `a machine must be a JSON object, not ${typeName(value)}`;
+    r.ds.push(diag('LW100', msg, r.at('$'), 'start the file with { "name": …, "states": [ … ] }'));
+    return { diagnostics: r.ds };
+  }
+  r.unknownKeys(value, '$', TOP_KEYS);
+
+  const partLocs: Record<string, SourceLoc> = { name: r.at('$.name'), start: r.at('$.start') };
+  const name = readName(r, value);
+  const rawDescription = own(value, 'description');
+  if (rawDescription !== undefined && typeof rawDescription !== 'string')
+    r.wrongType('$.description', 'a string', rawDescription);
+  const inputs = r.stringList(value, 'inputs');
+  const outputs = r.stringList(value, 'outputs');
+  inputs.forEach((_, i) => (partLocs[`input:${i}`] = r.at(`$.inputs[${i}]`)));
+  outputs.forEach((_, i) => (partLocs[`output:${i}`] = r.at(`$.outputs[${i}]`)));
+  const start = readStart(r, value);
+  const unspecified = readUnspecified(r, value);
+  const never = readNever(r, value, inputs);
+  const states = readStates(r, value, inputs);
+
+  if (r.ds.some((d) => d.severity === 'error')) return { diagnostics: r.ds };
   const machine: Machine = {
     name,
     inputs,
@@ -303,10 +338,10 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
     never,
     states,
     ...(typeof rawDescription === 'string' ? { description: rawDescription } : {}),
-    loc: at('$'),
+    loc: r.at('$'),
     partLocs,
   };
-  return { machine, diagnostics: ds };
+  return { machine, diagnostics: r.ds };
 }
 
 /** Output values in the machine's declared output order, then any others as written. */

@@ -55,325 +55,364 @@ function stripComment(line: string): string {
   return k < 0 ? line : line.slice(0, k);
 }
 
-/** Parse the text form into a Machine. */
-export function parseTextMachine(text: string, file?: string): MachineResult {
-  const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
-  const ds: Diagnostic[] = [];
-  const at = (line: number, offset: number): SourceLoc => ({
-    ...(file !== undefined ? { file } : {}),
-    line: line + 1,
-    column: offset + 1,
-  });
-  const err = (
-    code: 'LW101' | 'LW103' | 'LW104' | 'LW106',
-    msg: string,
-    line: number,
-    offset: number,
-    hint: string,
-  ): void => {
-    ds.push(diag(code, msg, at(line, offset), hint));
-  };
+type TextCode = 'LW101' | 'LW103' | 'LW104' | 'LW106';
 
-  // The header comment block (after any leading blank lines) is the description.
+/** A state being read: its transitions follow it, up to the next `state` line. */
+interface OpenState {
+  readonly state: Omit<State, 'transitions'>;
+  readonly transitions: Transition[];
+}
+
+/** An empty output map without a prototype, so that output names never meet Object.prototype. */
+function noOutputs(): Record<string, OutBit> {
+  return Object.create(null) as Record<string, OutBit>;
+}
+
+/** True when `w` is missing or is one of the punctuation words ',' and '='. */
+function isGap(w: Word | undefined): boolean {
+  return !w || w.text === ',' || w.text === '=';
+}
+
+/** Offset of the first non-blank character of `line` at or after `from`. */
+function skipBlanks(line: string, from: number): number {
+  return from + (line.slice(from).length - line.slice(from).trimStart().length);
+}
+
+/** The header comment block (after any leading blank lines): the machine's description. */
+function headerOf(lines: readonly string[]): { first: number; header: string[] } {
   let first = 0;
   while (first < lines.length && lines[first].trim() === '') first++;
   const header: string[] = [];
   for (let i = first; i < lines.length && lines[i].trimStart().startsWith('#'); i++) {
     header.push(lines[i].trimStart().slice(1).replace(/^ /, '').trimEnd());
   }
+  return { first, header };
+}
 
-  // Guards need the inputs, which may be declared anywhere: collect them first.
-  const inputs: string[] = [];
-  const partLocs: Record<string, SourceLoc> = {};
-  lines.forEach((raw, li) => {
-    const ws = words(stripComment(raw), 0);
-    if (ws[0]?.text !== 'inputs') return;
-    for (const w of ws.slice(1)) {
-      if (w.text === ',' || w.text === '=') continue;
-      partLocs[`input:${inputs.length}`] = at(li, w.at);
-      inputs.push(w.text);
-    }
-  });
+/** What the line reader has found so far, and the diagnostics. */
+class TextReader {
+  readonly ds: Diagnostic[] = [];
+  readonly inputs: string[] = [];
+  readonly partLocs: Record<string, SourceLoc> = {};
+  readonly outputs: string[] = [];
+  readonly never: Guard[] = [];
+  readonly states: State[] = [];
+  name: string | undefined;
+  start: string | undefined;
+  unspecified: Machine['unspecified'] | undefined;
+  current: OpenState | undefined;
 
-  let name: string | undefined;
-  let start: string | undefined;
-  let unspecified: Machine['unspecified'] | undefined;
-  const outputs: string[] = [];
-  const never: Guard[] = [];
-  const states: State[] = [];
-  interface Open {
-    state: Omit<State, 'transitions'>;
-    transitions: Transition[];
+  constructor(private readonly file: string | undefined) {}
+
+  /** Location of 0-based `offset` on 0-based line `line`. */
+  at(line: number, offset: number): SourceLoc {
+    return { ...(this.file !== undefined ? { file: this.file } : {}), line: line + 1, column: offset + 1 };
   }
-  let current: Open | undefined;
-  const close = (): void => {
-    if (current) states.push({ ...current.state, transitions: current.transitions });
-    current = undefined;
-  };
 
-  /** Read `NAME=V[,] …` pairs from ws[k]; stops at a word not followed by '='. */
-  const readOutputs = (
-    ws: Word[],
-    k: number,
-    li: number,
-    locs: Record<string, SourceLoc>,
-  ): { outs: Record<string, OutBit>; k: number } => {
-    const outs: Record<string, OutBit> = Object.create(null);
-    let any = false;
-    while (k < ws.length) {
-      if (ws[k].text === ',' && any) {
-        k++;
-        continue;
+  err(code: TextCode, msg: string, line: number, offset: number, hint: string): void {
+    this.ds.push(diag(code, msg, this.at(line, offset), hint));
+  }
+
+  /** Guards need the inputs, which may be declared anywhere: collect them before anything else. */
+  collectInputs(lines: readonly string[]): void {
+    lines.forEach((raw, li) => {
+      const ws = words(stripComment(raw), 0);
+      if (ws[0]?.text !== 'inputs') return;
+      for (const w of ws.slice(1)) {
+        if (w.text === ',' || w.text === '=') continue;
+        this.partLocs[`input:${this.inputs.length}`] = this.at(li, w.at);
+        this.inputs.push(w.text);
       }
-      if (ws[k + 1]?.text !== '=') break;
-      const key = ws[k];
-      const val = ws[k + 2];
-      if (key.text === ',' || key.text === '=') break;
-      if (!val || val.text === ',' || val.text === '=') {
-        err(
-          'LW106',
-          `output '${key.text}' has no value`,
-          li,
-          ws[k + 1].at + 1,
-          `write ${key.text}=1, ${key.text}=0 or ${key.text}=- (don't care)`,
-        );
-        k += 2;
-        any = true;
-        continue;
-      }
-      if (val.text === '0' || val.text === '1' || val.text === '-')
-        outs[key.text] = val.text === '-' ? '-' : val.text === '1' ? 1 : 0;
-      else err('LW106', `output '${key.text}' has the value '${val.text}'`, li, val.at, `write 0, 1 or - (don't care)`);
-      locs[`out:${key.text}`] = at(li, key.at);
-      any = true;
-      k += 3;
-    }
-    if (!any) {
-      const w = ws[k];
-      err(
-        'LW101',
-        w
-          ? `expected output values like bell=1 after 'with', found '${w.text}'`
-          : `'with' needs output values, like bell=1`,
-        li,
-        w ? w.at : ws[k - 1].at + ws[k - 1].text.length,
-        'write with NAME=VALUE, NAME=VALUE … (values 0, 1 or -)',
-      );
-    }
-    return { outs, k };
-  };
-  const trailing = (ws: Word[], k: number, li: number, after: string): void => {
+    });
+  }
+
+  /** Finish the open state, if any. */
+  close(): void {
+    if (this.current) this.states.push({ ...this.current.state, transitions: this.current.transitions });
+    this.current = undefined;
+  }
+
+  /** Report a word after the end of a statement. */
+  trailing(ws: readonly Word[], k: number, li: number, after: string): void {
     if (k < ws.length)
-      err(
+      this.err(
         'LW101',
         `unexpected '${ws[k].text}' after ${after}`,
         li,
         ws[k].at,
         'remove it, or check the statement against the notation reference',
       );
-  };
-  const oneName = (ws: Word[], li: number, what: string, example: string): string | undefined => {
+  }
+
+  /** The one name after the keyword, or undefined (reported) when it is missing. */
+  oneName(ws: readonly Word[], li: number, what: string, example: string): string | undefined {
     const w = ws[1];
-    if (!w || w.text === ',' || w.text === '=') {
-      err('LW104', `'${ws[0].text}' needs ${what}`, li, w ? w.at : ws[0].at + ws[0].text.length, `write ${example}`);
+    if (isGap(w)) {
+      const offset = w ? w.at : ws[0].at + ws[0].text.length;
+      this.err('LW104', `'${ws[0].text}' needs ${what}`, li, offset, `write ${example}`);
       return undefined;
     }
-    trailing(ws, 2, li, `the ${what}`);
+    this.trailing(ws, 2, li, `the ${what}`);
     return w.text;
-  };
-  const once = (seen: unknown, ws: Word[], li: number): boolean => {
+  }
+
+  /** True for the first line of a once-only statement; reports any later one. */
+  once(seen: unknown, ws: readonly Word[], li: number): boolean {
     if (seen === undefined) return true;
-    err('LW101', `a second '${ws[0].text}' line`, li, ws[0].at, `a machine has one '${ws[0].text}' line; remove one`);
+    const kw = ws[0].text;
+    this.err('LW101', `a second '${kw}' line`, li, ws[0].at, `a machine has one '${kw}' line; remove one`);
     return false;
-  };
-  // Transition after `when GUARD` or `go`: `go TARGET [with …]`, from word list ws at k.
-  const transitionTail = (line: string, li: number, goAt: number, when: Guard | undefined, stmtAt: number): void => {
-    const ws = words(line, goAt);
-    if (ws[0]?.text !== 'go') {
-      const w = ws[0];
-      err(
-        'LW101',
-        w ? `expected 'go' after the guard, found '${w.text}'` : `expected 'go' and a state after the guard`,
-        li,
-        w ? w.at : line.trimEnd().length,
-        `write when GUARD go STATE`,
-      );
-      return;
-    }
-    const target = ws[1];
-    if (!target || target.text === ',' || target.text === '=') {
-      err('LW104', `'go' needs a state to go to`, li, target ? target.at : ws[0].at + 2, 'write go STATE');
-      return;
-    }
-    const locs: Record<string, SourceLoc> = { to: at(li, target.at) };
-    let k = 2;
-    let outs: Record<string, OutBit> = Object.create(null);
-    if (ws[k]?.text === 'with') ({ outs, k } = readOutputs(ws, k + 1, li, locs));
-    trailing(ws, k, li, `the target state`);
-    if (!current) {
-      err(
-        'LW101',
-        'a transition before any state',
-        li,
-        stmtAt,
-        "write 'state NAME' first; transitions belong to the state above them",
-      );
-      return;
-    }
-    const loc = at(li, stmtAt);
-    current.transitions.push({
-      when: when ?? alwaysGuard(inputs.length, loc),
-      to: target.text,
-      outputs: outs,
-      loc,
-      partLocs: locs,
-    });
-  };
+  }
 
-  lines.forEach((raw, li) => {
-    const line = stripComment(raw);
-    const ws = words(line, 0);
-    if (ws.length === 0) return;
-    const kw = ws[0];
-    switch (kw.text) {
-      case 'machine':
-        if (once(name, ws, li)) {
-          name = oneName(ws, li, 'a name', 'machine NAME') ?? '';
-          partLocs.name = at(li, ws[1]?.at ?? kw.at);
-        }
-        return;
-      case 'inputs':
-      case 'outputs': {
-        for (let k = 1; k < ws.length; k++) {
-          if (ws[k].text === '=')
-            err(
-              'LW101',
-              `unexpected '=' in the ${kw.text} list`,
-              li,
-              ws[k].at,
-              `list names separated by commas or spaces`,
-            );
-          else if (ws[k].text !== ',' && kw.text === 'outputs') {
-            partLocs[`output:${outputs.length}`] = at(li, ws[k].at);
-            outputs.push(ws[k].text);
-          }
-        }
-        return;
-      }
-      case 'start':
-        if (once(start, ws, li)) {
-          start = oneName(ws, li, 'a state name', 'start STATE') ?? '';
-          partLocs.start = at(li, ws[1]?.at ?? kw.at);
-        }
-        return;
-      case 'unspecified': {
-        if (!once(unspecified, ws, li)) return;
-        const v = oneName(ws, li, 'a rule', 'unspecified hold, or unspecified dont-care');
-        if (v === 'hold' || v === 'dont-care') unspecified = v;
-        else if (v !== undefined) {
-          const guess = didYouMean(v, ['hold', 'dont-care']);
-          err(
-            'LW103',
-            `unknown unspecified rule '${v}'`,
-            li,
-            ws[1].at,
-            guess ? `did you mean '${guess}'?` : 'write hold or dont-care',
-          );
-        }
-        return;
-      }
-      case 'never': {
-        const from = kw.at + kw.text.length;
-        const exprAt = from + (line.slice(from).length - line.slice(from).trimStart().length);
-        const r = parseGuard(line.slice(exprAt), inputs, at(li, exprAt));
-        ds.push(...r.diagnostics);
-        if (r.guard) never.push(r.guard);
-        return;
-      }
-      case 'state': {
-        close();
-        const nm = ws[1];
-        if (!nm || nm.text === ',' || nm.text === '=') {
-          err('LW104', `'state' needs a name`, li, nm ? nm.at : kw.at + 5, 'write state NAME');
-          return;
-        }
-        const locs: Record<string, SourceLoc> = { name: at(li, nm.at) };
-        let outs: Record<string, OutBit> = Object.create(null);
-        let code: string | undefined;
-        let k = 2;
-        while (k < ws.length) {
-          if (ws[k].text === 'with' && ws[k + 1]?.text !== '=') {
-            ({ outs, k } = readOutputs(ws, k + 1, li, locs));
-          } else if (ws[k].text === 'code' && code === undefined) {
-            const c = ws[k + 1];
-            if (!c || c.text === ',' || c.text === '=') {
-              err('LW104', `'code' needs a state code of 0/1 digits`, li, c ? c.at : ws[k].at + 4, 'write code 0101');
-              return;
-            }
-            code = c.text;
-            locs.code = at(li, c.at);
-            k += 2;
-          } else break;
-        }
-        trailing(ws, k, li, `state '${nm.text}'`);
-        current = {
-          state: {
-            name: nm.text,
-            outputs: outs,
-            ...(code !== undefined ? { code } : {}),
-            loc: at(li, kw.at),
-            partLocs: locs,
-          },
-          transitions: [],
-        };
-        return;
-      }
-      case 'go':
-        transitionTail(line, li, kw.at, undefined, kw.at);
-        return;
-      case 'when': {
-        const from = kw.at + 4;
-        const exprAt = from + (line.slice(from).length - line.slice(from).trimStart().length);
-        const r = readExpr(line.slice(exprAt), inputs, at(li, exprAt), 'go');
-        ds.push(...r.diagnostics);
-        if (!r.expr) return;
-        const g = guardFromExpr(r.expr, line.slice(exprAt, exprAt + r.end).trim(), inputs.length, at(li, exprAt));
-        ds.push(...g.diagnostics);
-        if (g.guard) transitionTail(line, li, exprAt + r.end, g.guard, kw.at);
-        return;
-      }
-      default: {
-        const guess = didYouMean(kw.text, KEYWORDS);
-        err(
-          'LW101',
-          `unknown statement '${kw.text}'`,
-          li,
-          kw.at,
-          guess
-            ? `did you mean '${guess}'?`
-            : `a line starts with one of: ${KEYWORDS.join(', ')} (transitions: when GUARD go STATE, or go STATE)`,
-        );
-      }
-    }
-  });
-  close();
+  /** The machine, or only the diagnostics when there is an error. */
+  result(lineCount: number, first: number, header: readonly string[]): MachineResult {
+    if (this.name === undefined)
+      this.err(
+        'LW104',
+        `the machine has no 'machine' line`,
+        first < lineCount ? first : 0,
+        0,
+        'add a line: machine NAME',
+      );
+    if (this.ds.some((d) => d.severity === 'error')) return { diagnostics: this.ds };
+    const machine: Machine = {
+      name: this.name ?? '',
+      inputs: this.inputs,
+      outputs: this.outputs,
+      start: this.start ?? '',
+      unspecified: this.unspecified ?? 'hold',
+      never: this.never,
+      states: this.states,
+      ...(header.length ? { description: header.join('\n') } : {}),
+      loc: this.at(0, 0),
+      partLocs: this.partLocs,
+    };
+    return { machine, diagnostics: this.ds };
+  }
+}
 
-  if (name === undefined)
-    err('LW104', `the machine has no 'machine' line`, first < lines.length ? first : 0, 0, 'add a line: machine NAME');
-  if (ds.some((d) => d.severity === 'error')) return { diagnostics: ds };
-  const machine: Machine = {
-    name: name ?? '',
-    inputs,
-    outputs,
-    start: start ?? '',
-    unspecified: unspecified ?? 'hold',
-    never,
-    states,
-    ...(header.length ? { description: header.join('\n') } : {}),
-    loc: at(0, 0),
-    partLocs,
-  };
-  return { machine, diagnostics: ds };
+/** Read `NAME=V[,] …` pairs from ws[k]; stops at a word not followed by '='. */
+function readOutputs(
+  r: TextReader,
+  ws: readonly Word[],
+  k: number,
+  li: number,
+  locs: Record<string, SourceLoc>,
+): { outs: Record<string, OutBit>; k: number } {
+  const outs = noOutputs();
+  let any = false;
+  while (k < ws.length) {
+    if (ws[k].text === ',' && any) {
+      k++;
+      continue;
+    }
+    if (ws[k + 1]?.text !== '=') break;
+    const key = ws[k];
+    const val = ws[k + 2];
+    if (key.text === ',' || key.text === '=') break;
+    any = true;
+    if (isGap(val)) {
+      const hint = `write ${key.text}=1, ${key.text}=0 or ${key.text}=- (don't care)`;
+      r.err('LW106', `output '${key.text}' has no value`, li, ws[k + 1].at + 1, hint);
+      k += 2;
+      continue;
+    }
+    if (val.text === '0' || val.text === '1' || val.text === '-')
+      outs[key.text] = val.text === '-' ? '-' : val.text === '1' ? 1 : 0;
+    else r.err('LW106', `output '${key.text}' has the value '${val.text}'`, li, val.at, `write 0, 1 or - (don't care)`);
+    locs[`out:${key.text}`] = r.at(li, key.at);
+    k += 3;
+  }
+  if (!any) {
+    const w = ws[k];
+    r.err(
+      'LW101',
+      w
+        ? `expected output values like bell=1 after 'with', found '${w.text}'`
+        : `'with' needs output values, like bell=1`,
+      li,
+      w ? w.at : ws[k - 1].at + ws[k - 1].text.length,
+      'write with NAME=VALUE, NAME=VALUE … (values 0, 1 or -)',
+    );
+  }
+  return { outs, k };
+}
+
+/** A transition after `when GUARD` or as `go …`: `go TARGET [with …]`, read from offset goAt. */
+function transitionTail(
+  r: TextReader,
+  line: string,
+  li: number,
+  goAt: number,
+  when: Guard | undefined,
+  stmtAt: number,
+): void {
+  const ws = words(line, goAt);
+  if (ws[0]?.text !== 'go') {
+    const w = ws[0];
+    r.err(
+      'LW101',
+      w ? `expected 'go' after the guard, found '${w.text}'` : `expected 'go' and a state after the guard`,
+      li,
+      w ? w.at : line.trimEnd().length,
+      `write when GUARD go STATE`,
+    );
+    return;
+  }
+  const target = ws[1];
+  if (isGap(target)) {
+    r.err('LW104', `'go' needs a state to go to`, li, target ? target.at : ws[0].at + 2, 'write go STATE');
+    return;
+  }
+  const locs: Record<string, SourceLoc> = { to: r.at(li, target.at) };
+  let k = 2;
+  let outs = noOutputs();
+  if (ws[k]?.text === 'with') ({ outs, k } = readOutputs(r, ws, k + 1, li, locs));
+  r.trailing(ws, k, li, `the target state`);
+  if (!r.current) {
+    const hint = "write 'state NAME' first; transitions belong to the state above them";
+    r.err('LW101', 'a transition before any state', li, stmtAt, hint);
+    return;
+  }
+  const loc = r.at(li, stmtAt);
+  const guard = when ?? alwaysGuard(r.inputs.length, loc);
+  r.current.transitions.push({ when: guard, to: target.text, outputs: outs, loc, partLocs: locs });
+}
+
+/** `inputs …` or `outputs …`: names separated by commas or spaces (inputs were collected already). */
+function nameList(r: TextReader, ws: readonly Word[], li: number): void {
+  const kw = ws[0];
+  for (let k = 1; k < ws.length; k++) {
+    if (ws[k].text === '=')
+      r.err('LW101', `unexpected '=' in the ${kw.text} list`, li, ws[k].at, `list names separated by commas or spaces`);
+    else if (ws[k].text !== ',' && kw.text === 'outputs') {
+      r.partLocs[`output:${r.outputs.length}`] = r.at(li, ws[k].at);
+      r.outputs.push(ws[k].text);
+    }
+  }
+}
+
+/** `unspecified hold` or `unspecified dont-care`. */
+function unspecifiedRule(r: TextReader, ws: readonly Word[], li: number): void {
+  if (!r.once(r.unspecified, ws, li)) return;
+  const v = r.oneName(ws, li, 'a rule', 'unspecified hold, or unspecified dont-care');
+  if (v === 'hold' || v === 'dont-care') r.unspecified = v;
+  else if (v !== undefined) {
+    const guess = didYouMean(v, ['hold', 'dont-care']);
+    const hint = guess ? `did you mean '${guess}'?` : 'write hold or dont-care';
+    r.err('LW103', `unknown unspecified rule '${v}'`, li, ws[1].at, hint);
+  }
+}
+
+/** `never EXPR`: one input combination that cannot occur. */
+function neverLine(r: TextReader, line: string, kw: Word, li: number): void {
+  const exprAt = skipBlanks(line, kw.at + kw.text.length);
+  const g = parseGuard(line.slice(exprAt), r.inputs, r.at(li, exprAt));
+  r.ds.push(...g.diagnostics);
+  if (g.guard) r.never.push(g.guard);
+}
+
+/** `state NAME [code BITS] [with NAME=V, …]`: opens a state (closing the one above). */
+function stateLine(r: TextReader, ws: readonly Word[], li: number): void {
+  r.close();
+  const kw = ws[0];
+  const nm = ws[1];
+  if (isGap(nm)) {
+    r.err('LW104', `'state' needs a name`, li, nm ? nm.at : kw.at + 5, 'write state NAME');
+    return;
+  }
+  const locs: Record<string, SourceLoc> = { name: r.at(li, nm.at) };
+  let outs = noOutputs();
+  let code: string | undefined;
+  let k = 2;
+  while (k < ws.length) {
+    if (ws[k].text === 'with' && ws[k + 1]?.text !== '=') {
+      ({ outs, k } = readOutputs(r, ws, k + 1, li, locs));
+    } else if (ws[k].text === 'code' && code === undefined) {
+      const c = ws[k + 1];
+      if (isGap(c)) {
+        r.err('LW104', `'code' needs a state code of 0/1 digits`, li, c ? c.at : ws[k].at + 4, 'write code 0101');
+        return;
+      }
+      code = c.text;
+      locs.code = r.at(li, c.at);
+      k += 2;
+    } else break;
+  }
+  r.trailing(ws, k, li, `state '${nm.text}'`);
+  const state = { name: nm.text, outputs: outs, ...(code !== undefined ? { code } : {}) };
+  r.current = { state: { ...state, loc: r.at(li, kw.at), partLocs: locs }, transitions: [] };
+}
+
+/** `when GUARD go …`: the guard is read in prefix mode, up to the word after it. */
+function whenLine(r: TextReader, line: string, kw: Word, li: number): void {
+  const exprAt = skipBlanks(line, kw.at + 4);
+  const e = readExpr(line.slice(exprAt), r.inputs, r.at(li, exprAt), 'go');
+  r.ds.push(...e.diagnostics);
+  if (!e.expr) return;
+  const g = guardFromExpr(e.expr, line.slice(exprAt, exprAt + e.end).trim(), r.inputs.length, r.at(li, exprAt));
+  r.ds.push(...g.diagnostics);
+  if (g.guard) transitionTail(r, line, li, exprAt + e.end, g.guard, kw.at);
+}
+
+function unknownStatement(r: TextReader, kw: Word, li: number): void {
+  const guess = didYouMean(kw.text, KEYWORDS);
+  r.err(
+    'LW101',
+    `unknown statement '${kw.text}'`,
+    li,
+    kw.at,
+    guess
+      ? `did you mean '${guess}'?`
+      : `a line starts with one of: ${KEYWORDS.join(', ')} (transitions: when GUARD go STATE, or go STATE)`,
+  );
+}
+
+/** Read one line (its comment already stripped) by its first word. */
+function statement(r: TextReader, line: string, li: number): void {
+  const ws = words(line, 0);
+  if (ws.length === 0) return;
+  const kw = ws[0];
+  switch (kw.text) {
+    case 'machine':
+      if (r.once(r.name, ws, li)) {
+        r.name = r.oneName(ws, li, 'a name', 'machine NAME') ?? '';
+        r.partLocs.name = r.at(li, ws[1]?.at ?? kw.at);
+      }
+      return;
+    case 'inputs':
+    case 'outputs':
+      return nameList(r, ws, li);
+    case 'start':
+      if (r.once(r.start, ws, li)) {
+        r.start = r.oneName(ws, li, 'a state name', 'start STATE') ?? '';
+        r.partLocs.start = r.at(li, ws[1]?.at ?? kw.at);
+      }
+      return;
+    case 'unspecified':
+      return unspecifiedRule(r, ws, li);
+    case 'never':
+      return neverLine(r, line, kw, li);
+    case 'state':
+      return stateLine(r, ws, li);
+    case 'go':
+      return transitionTail(r, line, li, kw.at, undefined, kw.at);
+    case 'when':
+      return whenLine(r, line, kw, li);
+    default:
+      return unknownStatement(r, kw, li);
+  }
+}
+
+/** Parse the text form into a Machine. */
+export function parseTextMachine(text: string, file?: string): MachineResult {
+  const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
+  const { first, header } = headerOf(lines);
+  const r = new TextReader(file);
+  r.collectInputs(lines);
+  lines.forEach((raw, li) => statement(r, stripComment(raw), li));
+  r.close();
+  return r.result(lines.length, first, header);
 }
 
 function printOutputs(m: Machine, rec: Readonly<Record<string, OutBit>>): string {

@@ -73,7 +73,12 @@ export function excite(f: FlatMachine, enc: Encoding, opts: ExciteOptions = {}):
     setDc: Cube[][] = [],
     resetOn: Cube[][] = [],
     resetDc: Cube[][] = [];
-  for (let j = 0; j < b; j++) (setOn.push([]), setDc.push([]), resetOn.push([]), resetDc.push([]));
+  for (let j = 0; j < b; j++) {
+    setOn.push([]);
+    setDc.push([]);
+    resetOn.push([]);
+    resetDc.push([]);
+  }
   const globalDc: Cube[] = [];
   const outOn: Cube[][] = f.outputs.map(() => []);
   const outDc: Cube[][] = f.outputs.map(() => []);
@@ -101,9 +106,13 @@ export function excite(f: FlatMachine, enc: Encoding, opts: ExciteOptions = {}):
       if (r.next === DONT_CARE) globalDc.push(cube);
       else excitePair(cube, code, enc.codes[r.next]);
       r.out.forEach((v, k) => {
-        if (v === 1) (outOn[k].push(cube), (seen[k].one = true));
-        else if (v === 0) (outOff[k].push(cube), (seen[k].zero = true));
-        else outDc[k].push(cube);
+        if (v === 1) {
+          outOn[k].push(cube);
+          seen[k].one = true;
+        } else if (v === 0) {
+          outOff[k].push(cube);
+          seen[k].zero = true;
+        } else outDc[k].push(cube);
       });
     }
     seen.forEach((x, k) => {

@@ -105,6 +105,7 @@ export function validate(m: Machine): Validated {
   return { flat, diagnostics: ds };
 }
 
+/** Names (LW205 form, LW203 repeats), then LW300 no states and LW204 the start state. */
 function checkNames(m: Machine, ds: Diagnostic[]): void {
   const mloc = m.loc ?? {};
   if (!MACHINE_NAME.test(m.name)) {
@@ -118,38 +119,55 @@ function checkNames(m: Machine, ds: Diagnostic[]): void {
     );
   }
   const declared = new Map<string, string>();
-  const names = (list: readonly string[], kind: 'input' | 'output'): void => {
-    list.forEach((n, i) => {
-      const where = partLoc(m, `${kind}:${i}`, `.${kind}s[${i}]`, mloc);
-      if (!IDENTIFIER.test(n)) {
-        ds.push(
-          diag(
-            'LW205',
-            `the ${kind} name '${n}' is not a valid identifier`,
-            where,
-            'use letters, digits and _; start with a letter or _',
-          ),
-        );
-      }
-      const prior = declared.get(n);
-      if (prior !== undefined) {
-        ds.push(
-          diag(
-            'LW203',
-            prior === kind ? `the ${kind} '${n}' is declared twice` : `'${n}' is both an input and an output`,
-            where,
-            'rename one of them',
-          ),
-        );
-      } else declared.set(n, kind);
-    });
-  };
-  names(m.inputs, 'input');
-  names(m.outputs, 'output');
+  checkSignalNames(m, m.inputs, 'input', declared, ds);
+  checkSignalNames(m, m.outputs, 'output', declared, ds);
+  const seen = checkStateNames(m, ds);
+  if (m.states.length === 0) {
+    ds.push(diag('LW300', 'the machine has no states', mloc, 'declare at least one state'));
+    return;
+  }
+  checkStart(m, seen, ds);
+}
 
+/** Input or output names: identifiers, each declared once across both lists (`declared`: name → kind). */
+function checkSignalNames(
+  m: Machine,
+  list: readonly string[],
+  kind: 'input' | 'output',
+  declared: Map<string, string>,
+  ds: Diagnostic[],
+): void {
+  list.forEach((n, i) => {
+    const where = partLoc(m, `${kind}:${i}`, `.${kind}s[${i}]`, m.loc ?? {});
+    if (!IDENTIFIER.test(n)) {
+      ds.push(
+        diag(
+          'LW205',
+          `the ${kind} name '${n}' is not a valid identifier`,
+          where,
+          'use letters, digits and _; start with a letter or _',
+        ),
+      );
+    }
+    const prior = declared.get(n);
+    if (prior !== undefined) {
+      ds.push(
+        diag(
+          'LW203',
+          prior === kind ? `the ${kind} '${n}' is declared twice` : `'${n}' is both an input and an output`,
+          where,
+          'rename one of them',
+        ),
+      );
+    } else declared.set(n, kind);
+  });
+}
+
+/** State names: well formed, each declared once. Returns the names seen. */
+function checkStateNames(m: Machine, ds: Diagnostic[]): Set<string> {
   const seen = new Set<string>();
   for (const s of m.states) {
-    const where = partLoc(s, 'name', '.name', mloc);
+    const where = partLoc(s, 'name', '.name', m.loc ?? {});
     if (!STATE_NAME.test(s.name)) {
       ds.push(
         diag(
@@ -171,12 +189,12 @@ function checkNames(m: Machine, ds: Diagnostic[]): void {
       );
     seen.add(s.name);
   }
+  return seen;
+}
 
-  if (m.states.length === 0) {
-    ds.push(diag('LW300', 'the machine has no states', mloc, 'declare at least one state'));
-    return;
-  }
-  const startLoc = partLoc(m, 'start', '.start', mloc);
+/** LW204: the start state is named and exists. */
+function checkStart(m: Machine, states: ReadonlySet<string>, ds: Diagnostic[]): void {
+  const startLoc = partLoc(m, 'start', '.start', m.loc ?? {});
   if (m.start === '') {
     ds.push(
       diag(
@@ -186,7 +204,7 @@ function checkNames(m: Machine, ds: Diagnostic[]): void {
         `name the state it starts in, for example '${m.states[0].name}'`,
       ),
     );
-  } else if (!seen.has(m.start)) {
+  } else if (!states.has(m.start)) {
     const guess = didYouMean(
       m.start,
       m.states.map((s) => s.name),

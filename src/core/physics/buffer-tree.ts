@@ -117,7 +117,9 @@ interface Plan {
   readonly newCords: Cord[];
 }
 
-// eslint-disable-next-line max-lines-per-function -- one greedy packing loop over the driver's branches, with its state in closures; split, it would pass that state around
+/** A branch with the cord it hangs on. */
+type Placed = { readonly cord: string; readonly b: Branch };
+
 function planDriver(
   driver: string,
   kind: 'lever' | 'gate',
@@ -127,110 +129,144 @@ function planDriver(
   profile: Profile,
   model: LossModel,
 ): Plan | undefined {
-  const driverBudget = availableTension(profile, holdWeightG(profile, kind)).availableG / profile.minMargin;
-  const gateBudget = availableTension(profile, profile.zWeightG).availableG / profile.minMargin;
-  const used = new Set(usedIds);
-  const work: WorkCord[] = own.map((c) => ({
-    id: c.id,
-    driver: c.driver,
-    branches: [
-      ...c.ports.map((p) => ({
-        port: p,
-        baseG: portLoadG(profile, parts.get(p.part)),
-        loss: model.existing(c.id, `${p.part}.${p.port}`),
-      })),
-      ...c.actuators.map((a) => {
-        const x = parts.get(a);
-        return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0, loss: model.existing(c.id, a) };
-      }),
-    ],
-  }));
-  const newParts: GatePart[] = [];
-  const newCords: WorkCord[] = [];
-  const counters = new Map<string, number>();
-  const load = (b: Branch): number => b.baseG * b.loss;
-  const driverLoad = (): number => work.reduce((s, c) => s + c.branches.reduce((t, b) => t + load(b), 0), 0);
-  // New cords are planned with the loss of a new branch (model.planned); the trial budget in
-  // balanceDrive catches a per-cord override on a new cord id.
-  const fNew = model.planned();
-  // A latch's feedback branch stays on its driver: a buffer pair in the loop would add two
-  // stage delays to the latch's settling. So does a branch a buffer `b` could never carry.
-  const driverPart = parts.get(driver);
-  const latch = driverPart?.kind === 'gate' ? driverPart.latch : undefined;
-  const feedback = (b: Branch): boolean => {
-    const g = b.port ? parts.get(b.port.part) : undefined;
-    return latch !== undefined && g?.kind === 'gate' && g.latch === latch;
-  };
-  const movable = (b: Branch): boolean => !feedback(b) && b.baseG * fNew <= gateBudget;
+  return new DriverPlanner(driver, kind, own, parts, usedIds, profile, model).plan();
+}
 
-  for (let round = 0; driverLoad() > driverBudget; round++) {
-    const all = work.flatMap((c) => c.branches.map((b) => ({ cord: c.id, b })));
-    const fixed = all.filter((x) => !movable(x.b));
-    const mov = all.filter((x) => movable(x.b));
-    const fixedLoad = fixed.reduce((s, x) => s + load(x.b), 0);
-    let chosen: { k: number; groups: (typeof mov)[] } | undefined;
+/** The rounds of buffering for one driver (see the module comment); the driver's cords are rewritten in `work`. */
+class DriverPlanner {
+  private readonly driverBudget: number;
+  private readonly gateBudget: number;
+  /** The routing loss of a new cord's branch (model.planned; the trial budget in balanceDrive catches a per-cord override). */
+  private readonly fNew: number;
+  private readonly latch: string | undefined;
+  private readonly used: Set<string>;
+  private readonly work: WorkCord[];
+  private readonly newParts: GatePart[] = [];
+  private readonly newCords: WorkCord[] = [];
+  private readonly counters = new Map<string, number>();
+
+  constructor(
+    driver: string,
+    kind: 'lever' | 'gate',
+    own: readonly Cord[],
+    private readonly parts: ReadonlyMap<string, Part>,
+    usedIds: ReadonlySet<string>,
+    private readonly profile: Profile,
+    private readonly model: LossModel,
+  ) {
+    this.driverBudget = availableTension(profile, holdWeightG(profile, kind)).availableG / profile.minMargin;
+    this.gateBudget = availableTension(profile, profile.zWeightG).availableG / profile.minMargin;
+    this.fNew = model.planned();
+    this.used = new Set(usedIds);
+    this.work = own.map((c) => ({
+      id: c.id,
+      driver: c.driver,
+      branches: [
+        ...c.ports.map((p) => ({
+          port: p,
+          baseG: portLoadG(profile, parts.get(p.part)),
+          loss: model.existing(c.id, `${p.part}.${p.port}`),
+        })),
+        ...c.actuators.map((a) => {
+          const x = parts.get(a);
+          return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0, loss: model.existing(c.id, a) };
+        }),
+      ],
+    }));
+    const driverPart = parts.get(driver);
+    this.latch = driverPart?.kind === 'gate' ? driverPart.latch : undefined;
+  }
+
+  plan(): Plan | undefined {
+    for (let round = 0; this.driverLoad() > this.driverBudget; round++) {
+      const groups = this.choose(round);
+      if (!groups) return undefined;
+      for (const g of groups) this.addPair(g);
+    }
+    if (this.newParts.length === 0) return undefined;
+    return {
+      parts: this.newParts,
+      cords: new Map(this.work.map((c) => [c.id, toCord(c)])),
+      newCords: this.newCords.map(toCord),
+    };
+  }
+
+  private driverLoad(): number {
+    return this.work.reduce((s, c) => s + c.branches.reduce((t, b) => t + b.baseG * b.loss, 0), 0);
+  }
+
+  /**
+   * A latch's feedback branch stays on its driver: a buffer pair in the loop would add two
+   * stage delays to the latch's settling. So does a branch a buffer `b` could never carry.
+   */
+  private movable(b: Branch): boolean {
+    const g = b.port ? this.parts.get(b.port.part) : undefined;
+    const feedback = this.latch !== undefined && g?.kind === 'gate' && g.latch === this.latch;
+    return !feedback && b.baseG * this.fNew <= this.gateBudget;
+  }
+
+  /**
+   * The groups to move onto buffer pairs this round: the fewest trailing movable branches whose
+   * groups fit beside what stays; undefined when no step makes progress.
+   */
+  private choose(round: number): Placed[][] | undefined {
+    const { profile, gateBudget, fNew } = this;
+    const all = this.work.flatMap((c) => c.branches.map((b): Placed => ({ cord: c.id, b })));
+    const fixed = all.filter((x) => !this.movable(x.b));
+    const mov = all.filter((x) => this.movable(x.b));
+    const loadOf = (xs: readonly Placed[]): number => xs.reduce((s, x) => s + x.b.baseG * x.b.loss, 0);
+    const pairsLoad = (groups: readonly Placed[][]): number =>
+      groups.reduce((s, g) => s + profile.zWeightG * this.model.planned(g[0].cord), 0);
+    const fixedLoad = loadOf(fixed);
     for (let k = mov.length - 1; k >= 0; k--) {
       const groups = nextFit(mov.slice(k), gateBudget, fNew);
-      const cost =
-        fixedLoad +
-        mov.slice(0, k).reduce((s, x) => s + load(x.b), 0) +
-        groups.reduce((s, g) => s + profile.zWeightG * model.planned(g[0].cord), 0);
-      if (cost <= driverBudget) {
-        chosen = { k, groups };
-        break;
-      }
+      if (fixedLoad + loadOf(mov.slice(0, k)) + pairsLoad(groups) <= this.driverBudget) return groups;
     }
-    if (!chosen) {
-      // Nothing fits yet: buffer everything and go a level deeper, as long as the step makes
-      // progress — a lighter driver (heavy ports become one-port `a` levers) or fewer
-      // branches at no more load. Otherwise a deeper tree would never end.
-      const groups = nextFit(mov, gateBudget, fNew);
-      const before = mov.reduce((s, x) => s + load(x.b), 0);
-      const after = groups.reduce((s, g) => s + profile.zWeightG * model.planned(g[0].cord), 0);
-      const progress = after < before || (groups.length < mov.length && after <= before);
-      if (!progress || round >= 64) return undefined;
-      chosen = { k: 0, groups };
-    }
-    for (const g of chosen.groups) {
-      const x = g[0].cord;
-      let k = counters.get(x) ?? 1;
-      while (
-        used.has(`${x}.buf${k}a`) ||
-        used.has(`${x}.buf${k}b`) ||
-        used.has(`${x}.buf${k}a.out`) ||
-        used.has(`${x}.buf${k}b.out`)
-      )
-        k++;
-      counters.set(x, k + 1);
-      const a = `${x}.buf${k}a`;
-      const b = `${x}.buf${k}b`;
-      for (const id of [a, b, `${a}.out`, `${b}.out`]) used.add(id);
-      newParts.push(bufferGate(a), bufferGate(b));
-      newCords.push({
-        id: `${a}.out`,
-        driver: a,
-        branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG, loss: model.planned(`${a}.out`) }],
-      });
-      newCords.push({
-        id: `${b}.out`,
-        driver: b,
-        branches: g.map((y) => ({ ...y.b, loss: model.planned(`${b}.out`) })),
-      });
-      const moved = new Set(g.map((y) => y.b));
-      const home = work.find((c) => c.id === x);
-      if (home)
-        home.branches = [
-          ...home.branches.filter((y) => !moved.has(y)),
-          { port: { part: a, port: 'in' }, baseG: profile.zWeightG, loss: model.planned(x) },
-        ];
-    }
+    // Nothing fits yet: buffer everything and go a level deeper, as long as the step makes
+    // progress — a lighter driver (heavy ports become one-port `a` levers) or fewer
+    // branches at no more load. Otherwise a deeper tree would never end.
+    const groups = nextFit(mov, gateBudget, fNew);
+    const before = loadOf(mov);
+    const after = pairsLoad(groups);
+    const progress = after < before || (groups.length < mov.length && after <= before);
+    return !progress || round >= 64 ? undefined : groups;
   }
-  if (newParts.length === 0) return undefined;
-  return {
-    parts: newParts,
-    cords: new Map(work.map((c) => [c.id, toCord(c)])),
-    newCords: newCords.map(toCord),
-  };
+
+  /** Move one group of branches of cord x onto a new buffer pair `x.buf<k>a` → `x.buf<k>b`. */
+  private addPair(g: readonly Placed[]): void {
+    const { used, profile, model } = this;
+    const x = g[0].cord;
+    let k = this.counters.get(x) ?? 1;
+    while (
+      used.has(`${x}.buf${k}a`) ||
+      used.has(`${x}.buf${k}b`) ||
+      used.has(`${x}.buf${k}a.out`) ||
+      used.has(`${x}.buf${k}b.out`)
+    )
+      k++;
+    this.counters.set(x, k + 1);
+    const a = `${x}.buf${k}a`;
+    const b = `${x}.buf${k}b`;
+    for (const id of [a, b, `${a}.out`, `${b}.out`]) used.add(id);
+    this.newParts.push(bufferGate(a), bufferGate(b));
+    this.newCords.push({
+      id: `${a}.out`,
+      driver: a,
+      branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG, loss: model.planned(`${a}.out`) }],
+    });
+    this.newCords.push({
+      id: `${b}.out`,
+      driver: b,
+      branches: g.map((y) => ({ ...y.b, loss: model.planned(`${b}.out`) })),
+    });
+    const moved = new Set(g.map((y) => y.b));
+    const home = this.work.find((c) => c.id === x);
+    if (home)
+      home.branches = [
+        ...home.branches.filter((y) => !moved.has(y)),
+        { port: { part: a, port: 'in' }, baseG: profile.zWeightG, loss: model.planned(x) },
+      ];
+  }
 }
 
 /** Groups of consecutive branches of one cord, each group's load within `capacity`. */

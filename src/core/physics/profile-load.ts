@@ -145,115 +145,115 @@ function fits(v: number, r: NumberRule): boolean {
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
-/** Validate `value` as a profile override and merge it over DEFAULT_PROFILE. */
-// eslint-disable-next-line max-lines-per-function -- one pass over the profile's top-level keys with the checks they share as closures; each key is a line or two
-export function loadProfile(value: unknown, where?: string): { profile?: Profile; diagnostics: Diagnostic[] } {
-  const ds: Diagnostic[] = [];
-  const loc = (path: string): SourceLoc => (where !== undefined ? { file: where, path } : { path });
-  if (!isObject(value)) {
-    ds.push(
-      diag(
-        'LW100',
-        'a technology profile must be a JSON object',
-        loc('$'),
-        'write { "mu": 0.25, … } with only the fields you change',
-      ),
-    );
-    return { diagnostics: ds };
+/** The diagnostics of one profile reading, and the checks that add to them. */
+class ProfileReader {
+  readonly ds: Diagnostic[] = [];
+
+  constructor(private readonly where: string | undefined) {}
+
+  loc(path: string): SourceLoc {
+    return this.where !== undefined ? { file: this.where, path } : { path };
   }
-  const checkNumber = (path: string, v: unknown, r: NumberRule): number | undefined => {
+
+  /** The number at `path` when it fits its rule; LW600 otherwise. */
+  checkNumber(path: string, v: unknown, r: NumberRule): number | undefined {
+    if (typeof v === 'number' && fits(v, r)) return v;
     const label = path.replace(/^\$\./, '');
-    if (typeof v !== 'number' || !fits(v, r)) {
-      const got = typeof v === 'number' ? String(v) : (JSON.stringify(v) ?? String(v));
-      ds.push(
-        diag(
-          'LW600',
-          `profile field '${label}' must be ${describeRule(r)}${r.unit && r.unit !== 'count' ? ` (${r.unit})` : ''}; got ${got}`,
-          loc(path),
-          r.why,
-        ),
-      );
-      return undefined;
-    }
-    return v;
-  };
-  const unknown = (path: string, key: string, known: readonly string[]): void => {
+    const got = typeof v === 'number' ? String(v) : (JSON.stringify(v) ?? String(v));
+    const unit = r.unit && r.unit !== 'count' ? ` (${r.unit})` : '';
+    this.ds.push(
+      diag('LW600', `profile field '${label}' must be ${describeRule(r)}${unit}; got ${got}`, this.loc(path), r.why),
+    );
+    return undefined;
+  }
+
+  /** LW601: field `key` of the object at `path` is not a profile field. */
+  unknown(path: string, key: string, known: readonly string[]): void {
     const guess = didYouMean(key, known);
     const label = path === '$' ? key : `${path.slice(2)}.${key}`;
-    ds.push(
-      diag(
-        'LW601',
-        `profile has no field '${label}'`,
-        loc(`${path}.${key}`),
-        guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`,
-      ),
-    );
-  };
-  const mergeGroup = <T extends object>(
-    path: string,
-    v: unknown,
-    rules: Readonly<Record<string, NumberRule>>,
-    base: T,
-  ): T => {
+    const hint = guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`;
+    this.ds.push(diag('LW601', `profile has no field '${label}'`, this.loc(`${path}.${key}`), hint));
+  }
+
+  /** The object at `path` merged field by field over `base` (`base` itself when it is not an object). */
+  mergeGroup<T extends object>(path: string, v: unknown, rules: Readonly<Record<string, NumberRule>>, base: T): T {
     if (!isObject(v)) {
-      ds.push(
-        diag(
-          'LW600',
-          `profile field '${path.slice(2)}' must be an object`,
-          loc(path),
-          `fields: ${Object.keys(rules).join(', ')}`,
-        ),
-      );
+      const hint = `fields: ${Object.keys(rules).join(', ')}`;
+      this.ds.push(diag('LW600', `profile field '${path.slice(2)}' must be an object`, this.loc(path), hint));
       return base;
     }
     const out: Record<string, unknown> = { ...(base as Record<string, unknown>) };
     for (const [k, x] of Object.entries(v)) {
       const r = Object.hasOwn(rules, k) ? rules[k] : undefined;
-      if (!r) unknown(path, k, Object.keys(rules));
+      if (!r) this.unknown(path, k, Object.keys(rules));
       else {
-        const n = checkNumber(`${path}.${k}`, x, r);
+        const n = this.checkNumber(`${path}.${k}`, x, r);
         if (n !== undefined) out[k] = n;
       }
     }
     return out as T;
-  };
+  }
 
-  const out: Record<string, unknown> = { ...DEFAULT_PROFILE };
-  const knownTop = [...Object.keys(DEFAULT_PROFILE), ...PROFILE_META_KEYS];
-  for (const [k, v] of Object.entries(value)) {
+  /** `cordRouting`: cord id → partial routing loss. */
+  cordRouting(path: string, v: unknown): Record<string, Partial<RoutingLoss>> | undefined {
+    if (!isObject(v)) {
+      const msg = "profile field 'cordRouting' must be an object of cord id → routing loss";
+      this.ds.push(diag('LW600', msg, this.loc(path)));
+      return undefined;
+    }
+    // fromEntries keeps a cord named like an Object.prototype key as a plain own field.
+    return Object.fromEntries(
+      Object.entries(v).map(([cord, r]): [string, Partial<RoutingLoss>] => [
+        cord,
+        this.mergeGroup(`${path}.${cord}`, r, ROUTING_RULES, {}),
+      ]),
+    );
+  }
+
+  /** Read top-level field `k` into `out` (the merged profile so far). */
+  field(k: string, v: unknown, out: Record<string, unknown>): void {
     const path = `$.${k}`;
     if (k === '$schema' || k === 'description') {
-      if (typeof v !== 'string') ds.push(diag('LW600', `profile field '${k}' must be a string`, loc(path)));
+      if (typeof v !== 'string') this.ds.push(diag('LW600', `profile field '${k}' must be a string`, this.loc(path)));
     } else if (k === 'sources') {
-      checkSources(v, path, ds, loc);
+      checkSources(v, path, this.ds, (p) => this.loc(p));
     } else if (k === 'routing') {
-      out.routing = mergeGroup(path, v, ROUTING_RULES, DEFAULT_PROFILE.routing);
+      out.routing = this.mergeGroup(path, v, ROUTING_RULES, DEFAULT_PROFILE.routing);
     } else if (k === 'cost') {
-      out.cost = mergeGroup(path, v, COST_RULES, DEFAULT_PROFILE.cost);
+      out.cost = this.mergeGroup(path, v, COST_RULES, DEFAULT_PROFILE.cost);
     } else if (k === 'frame') {
-      out.frame = mergeFrame(path, v, mergeGroup, ds, loc);
-    } else if (k === 'cordRouting') {
-      if (!isObject(v)) {
-        ds.push(diag('LW600', "profile field 'cordRouting' must be an object of cord id → routing loss", loc(path)));
-        continue;
-      }
-      // fromEntries keeps a cord named like an Object.prototype key as a plain own field.
-      out.cordRouting = Object.fromEntries(
-        Object.entries(v).map(([cord, r]): [string, Partial<RoutingLoss>] => [
-          cord,
-          mergeGroup(`${path}.${cord}`, r, ROUTING_RULES, {}),
-        ]),
+      out.frame = mergeFrame(
+        path,
+        v,
+        (...a) => this.mergeGroup(...a),
+        this.ds,
+        (q) => this.loc(q),
       );
+    } else if (k === 'cordRouting') {
+      const routes = this.cordRouting(path, v);
+      if (routes) out.cordRouting = routes;
     } else if (Object.hasOwn(SCALAR_RULES, k)) {
-      const n = checkNumber(path, v, SCALAR_RULES[k as ScalarKey]);
+      const n = this.checkNumber(path, v, SCALAR_RULES[k as ScalarKey]);
       if (n !== undefined) out[k] = n;
     } else {
-      unknown('$', k, knownTop);
+      this.unknown('$', k, [...Object.keys(DEFAULT_PROFILE), ...PROFILE_META_KEYS]);
     }
   }
-  return ds.some((d) => d.severity === 'error')
-    ? { diagnostics: ds }
-    : { profile: out as unknown as Profile, diagnostics: ds };
+}
+
+/** Validate `value` as a profile override and merge it over DEFAULT_PROFILE. */
+export function loadProfile(value: unknown, where?: string): { profile?: Profile; diagnostics: Diagnostic[] } {
+  const r = new ProfileReader(where);
+  if (!isObject(value)) {
+    const hint = 'write { "mu": 0.25, … } with only the fields you change';
+    r.ds.push(diag('LW100', 'a technology profile must be a JSON object', r.loc('$'), hint));
+    return { diagnostics: r.ds };
+  }
+  const out: Record<string, unknown> = { ...DEFAULT_PROFILE };
+  for (const [k, v] of Object.entries(value)) r.field(k, v, out);
+  return r.ds.some((d) => d.severity === 'error')
+    ? { diagnostics: r.ds }
+    : { profile: out as unknown as Profile, diagnostics: r.ds };
 }
 
 type MergeGroup = <T extends object>(

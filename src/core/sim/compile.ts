@@ -11,7 +11,7 @@
  * cord, ports only on gates). Postconditions: the arrays below never change afterwards.
  */
 import type { Build } from '../model/build.js';
-import type { Netlist, Part } from '../model/netlist.js';
+import type { LatchPart, Netlist, Part } from '../model/netlist.js';
 
 /** Three-valued signal: 0, 1, or X (unknown: a latch released from the forbidden input, a race, an oscillation). */
 export type Trit = 0 | 1 | 2;
@@ -80,74 +80,52 @@ export interface PartSim {
   evaluations: number;
 }
 
-/** Compile a build's netlist with the given stage delays. Throws on a netlist that breaks the model's invariants. */
-export function compilePart(build: Build, timing: PartTiming): PartSim {
-  const net: Netlist = build.netlist;
-  const levers = net.parts.filter((p) => p.kind === 'lever');
-  const gates = net.parts.filter((p) => p.kind === 'gate');
-  const drivers: Part[] = [...levers, ...gates];
-  const index = new Map(drivers.map((p, i) => [p.id, i]));
-  const byId = new Map(net.parts.map((p) => [p.id, p]));
-  const need = (id: string, what: string): number => {
-    const i = index.get(id);
-    if (i === undefined) throw new Error(`netlist: ${what} '${id}' is not a lever or gate`);
-    return i;
-  };
+/** The driver index of a part id; throws (naming `what`) when the part is not a lever or gate. */
+type NeedDriver = (id: string, what: string) => number;
 
-  const ins: number[][] = drivers.map(() => []);
-  for (const c of net.cords) {
-    const d = need(c.driver, `driver of cord ${c.id}`);
-    for (const p of c.ports) ins[need(p.part, `port owner on cord ${c.id}`)].push(d);
-  }
-  const n = drivers.length;
-  const inStart = new Int32Array(n + 1);
-  for (let i = 0; i < n; i++) inStart[i + 1] = inStart[i] + ins[i].length;
-  const inputs = Int32Array.from(ins.flat());
+/** Lists of driver indices packed into one array: list d is data[start[d] .. start[d+1]). */
+function packLists(lists: readonly Iterable<number>[]): { start: Int32Array; data: Int32Array } {
+  const flat = lists.map((l) => [...l]);
+  const start = new Int32Array(lists.length + 1);
+  for (let i = 0; i < lists.length; i++) start[i + 1] = start[i] + flat[i].length;
+  return { start, data: Int32Array.from(flat.flat()) };
+}
 
-  const outs: Set<number>[] = drivers.map(() => new Set());
-  ins.forEach((list, g) => list.forEach((d) => outs[d].add(g)));
-  const fanStart = new Int32Array(n + 1);
-  for (let i = 0; i < n; i++) fanStart[i + 1] = fanStart[i] + outs[i].size;
-  const fanout = Int32Array.from(outs.flatMap((s) => [...s]));
-
-  const delayUs = stageDelays(net, drivers, timing);
-  const latchParts = net.parts.filter((p) => p.kind === 'latch');
-
-  const latchOf = new Int32Array(n).fill(-1);
-  const latches: CompiledLatch[] = latchParts.map((l, li) => {
+/** Each latch with its two gates and the cords of S̄ and R̄; latchOf marks the latch gates. */
+function compileLatches(
+  latchParts: readonly LatchPart[],
+  need: NeedDriver,
+  ins: readonly (readonly number[])[],
+): { latches: CompiledLatch[]; latchOf: Int32Array } {
+  const latchOf = new Int32Array(ins.length).fill(-1);
+  const latches = latchParts.map((l, li): CompiledLatch => {
     const set = need(l.setGate, `set gate of latch ${l.name}`);
     const reset = need(l.resetGate, `reset gate of latch ${l.name}`);
     latchOf[set] = li;
     latchOf[reset] = li;
-    return {
-      id: l.id,
-      name: l.name,
-      role: l.role,
-      bit: l.bit,
-      set,
-      reset,
-      sBar: Int32Array.from(ins[set].filter((d) => d !== reset)),
-      rBar: Int32Array.from(ins[reset].filter((d) => d !== set)),
-    };
+    const sBar = Int32Array.from(ins[set].filter((d) => d !== reset));
+    const rBar = Int32Array.from(ins[reset].filter((d) => d !== set));
+    return { id: l.id, name: l.name, role: l.role, bit: l.bit, set, reset, sBar, rBar };
   });
-  const watchers: Set<number>[] = drivers.map(() => new Set());
+  return { latches, latchOf };
+}
+
+/** Per driver, the latches whose S̄ or R̄ reads it. */
+function latchWatchers(latches: readonly CompiledLatch[], driverCount: number): Set<number>[] {
+  const watchers: Set<number>[] = Array.from({ length: driverCount }, () => new Set());
   latches.forEach((l, li) => {
     for (const d of l.sBar) watchers[d].add(li);
     for (const d of l.rBar) watchers[d].add(li);
   });
-  const watchStart = new Int32Array(n + 1);
-  for (let i = 0; i < n; i++) watchStart[i + 1] = watchStart[i] + watchers[i].size;
-  const watch = Int32Array.from(watchers.flatMap((s) => [...s]));
+  return watchers;
+}
 
-  const sig = build.signals;
-  const latchIndex = new Map(latchParts.map((l, i) => [l.id, i]));
-  const latchAt = (id: string): number => {
-    const i = latchIndex.get(id);
-    if (i === undefined) throw new Error(`netlist: latch '${id}' named by the signal map does not exist`);
-    return i;
-  };
-  const outputs = build.machine.outputs.map((o): OutputReader => {
-    const id = sig.outputs[o];
+/** How each machine output is read, in the machine's output order. */
+function outputReaders(build: Build, need: NeedDriver): OutputReader[] {
+  const net = build.netlist;
+  const byId = new Map(net.parts.map((p) => [p.id, p]));
+  return build.machine.outputs.map((o): OutputReader => {
+    const id = build.signals.outputs[o];
     const part = id === undefined ? undefined : byId.get(id);
     if ((part?.kind === 'flag' || part?.kind === 'actuator') && part.fixed !== undefined)
       return { kind: 'fixed', value: part.fixed };
@@ -161,6 +139,58 @@ export function compilePart(build: Build, timing: PartTiming): PartSim {
     }
     throw new Error(`netlist: output '${o}' has no flag or actuator`);
   });
+}
+
+type SignalIndices = Pick<PartSim, 'phi1' | 'phi2' | 'reset' | 'inputLevers' | 'masters' | 'slaves'>;
+
+/** The control levers, the input levers and the master and slave latches, by driver or latch index. */
+function signalIndices(build: Build, need: NeedDriver, latchParts: readonly LatchPart[]): SignalIndices {
+  const sig = build.signals;
+  const latchIndex = new Map(latchParts.map((l, i) => [l.id, i]));
+  const latchAt = (id: string): number => {
+    const i = latchIndex.get(id);
+    if (i === undefined) throw new Error(`netlist: latch '${id}' named by the signal map does not exist`);
+    return i;
+  };
+  return {
+    phi1: sig.phi1 === '' ? -1 : need(sig.phi1, 'φ1 lever'),
+    phi2: sig.phi2 === '' ? -1 : need(sig.phi2, 'φ2 lever'),
+    reset: sig.reset === '' ? -1 : need(sig.reset, 'reset lever'),
+    inputLevers: Int32Array.from(build.machine.inputs.map((i) => need(sig.inputs[i] ?? '', `lever of input ${i}`))),
+    masters: Int32Array.from(sig.masters.map(latchAt)),
+    slaves: Int32Array.from(sig.slaves.map(latchAt)),
+  };
+}
+
+/** Compile a build's netlist with the given stage delays. Throws on a netlist that breaks the model's invariants. */
+export function compilePart(build: Build, timing: PartTiming): PartSim {
+  const net: Netlist = build.netlist;
+  const levers = net.parts.filter((p) => p.kind === 'lever');
+  const gates = net.parts.filter((p) => p.kind === 'gate');
+  const drivers: Part[] = [...levers, ...gates];
+  const index = new Map(drivers.map((p, i) => [p.id, i]));
+  const need: NeedDriver = (id, what) => {
+    const i = index.get(id);
+    if (i === undefined) throw new Error(`netlist: ${what} '${id}' is not a lever or gate`);
+    return i;
+  };
+
+  const ins: number[][] = drivers.map(() => []);
+  for (const c of net.cords) {
+    const d = need(c.driver, `driver of cord ${c.id}`);
+    for (const p of c.ports) ins[need(p.part, `port owner on cord ${c.id}`)].push(d);
+  }
+  const n = drivers.length;
+  const { start: inStart, data: inputs } = packLists(ins);
+  const outs: Set<number>[] = drivers.map(() => new Set());
+  ins.forEach((list, g) => list.forEach((d) => outs[d].add(g)));
+  const { start: fanStart, data: fanout } = packLists(outs);
+
+  const delayUs = stageDelays(net, drivers, timing);
+  const latchParts = net.parts.filter((p) => p.kind === 'latch');
+  const { latches, latchOf } = compileLatches(latchParts, need, ins);
+  const { start: watchStart, data: watch } = packLists(latchWatchers(latches, n));
+  const outputs = outputReaders(build, need);
 
   return {
     build,
@@ -177,12 +207,7 @@ export function compilePart(build: Build, timing: PartTiming): PartSim {
     latchOf,
     watchStart,
     watch,
-    phi1: sig.phi1 === '' ? -1 : need(sig.phi1, 'φ1 lever'),
-    phi2: sig.phi2 === '' ? -1 : need(sig.phi2, 'φ2 lever'),
-    reset: sig.reset === '' ? -1 : need(sig.reset, 'reset lever'),
-    inputLevers: Int32Array.from(build.machine.inputs.map((i) => need(sig.inputs[i] ?? '', `lever of input ${i}`))),
-    masters: Int32Array.from(sig.masters.map(latchAt)),
-    slaves: Int32Array.from(sig.slaves.map(latchAt)),
+    ...signalIndices(build, need, latchParts),
     outputs,
     evaluations: 0,
   };

@@ -46,7 +46,7 @@ const compiled = new WeakMap<Build, Map<string, PartSim>>();
 /** The compiled netlist of a build for these delays (cached per build and timing). */
 export function simFor(build: Build, timing: PartTiming): PartSim {
   let byTiming = compiled.get(build);
-  if (!byTiming) compiled.set(build, (byTiming = new Map()));
+  if (!byTiming) compiled.set(build, (byTiming = new Map<string, PartSim>()));
   const key = JSON.stringify([timing.stageDelayS, timing.delays ?? {}]);
   let sim = byTiming.get(key);
   if (!sim) byTiming.set(key, (sim = compilePart(build, timing)));

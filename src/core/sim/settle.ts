@@ -185,30 +185,14 @@ export function settle(
   trace = false,
 ): number {
   const s = scratchOf(sim);
-  const { fanStart, fanout, latchOf, leverCount } = sim;
+  const { fanStart, fanout, latchOf } = sim;
   const { pendVal, pendTime, stamp, changed, newVal } = s;
   const call = ++s.call;
   let evaluations = 0;
   let t = timeUs;
   let wentX = false;
 
-  let epoch = ++s.epoch;
-  let count = 0;
-  for (const d of moved) {
-    if (d >= leverCount && stamp[d] !== epoch) {
-      stamp[d] = epoch;
-      s.first[count++] = d;
-    }
-    for (let k = fanStart[d]; k < fanStart[d + 1]; k++) {
-      const g = fanout[k];
-      if (stamp[g] !== epoch) {
-        stamp[g] = epoch;
-        s.first[count++] = g;
-      }
-    }
-  }
-  for (let i = 0; i < count; i++) schedule(sim, s, values, s.first[i], t);
-  evaluations += count;
+  evaluations += scheduleMoved(sim, s, values, moved, t);
   checkForbidden(sim, s, values, moved, moved.length, t, events);
 
   const bound = changeBound(sim);
@@ -244,7 +228,7 @@ export function settle(
         });
     }
     changes += n;
-    epoch = ++s.epoch;
+    const epoch = ++s.epoch;
     for (let i = 0; i < n; i++) {
       const d = changed[i];
       for (let k = fanStart[d]; k < fanStart[d + 1]; k++) {
@@ -264,22 +248,55 @@ export function settle(
     }
   }
   sim.evaluations += evaluations;
-  if (wentX) {
-    sim.latches.forEach((l, li) => {
-      if (s.wentXIn[li] !== call || (values[l.set] !== UNKNOWN && values[l.reset] !== UNKNOWN)) return;
-      const why =
-        s.racedIn[li] === call
-          ? 'both its inputs were released together from the forbidden input'
-          : 'it oscillates or reads an undetermined input';
-      events.push({
-        kind: 'latch-x',
-        timeS: t / 1e6,
-        latch: l.name,
-        words: `${latchLabel(l.name)} is left undetermined (X): ${why}`,
-      });
-    });
-  }
+  if (wentX) reportLatchX(sim, s, values, call, t, events);
   return t;
+}
+
+/** Schedule the moved gates and every gate a moved driver feeds, each once; returns how many. */
+function scheduleMoved(sim: PartSim, s: Scratch, values: Uint8Array, moved: readonly number[], t: number): number {
+  const { fanStart, fanout, leverCount } = sim;
+  const stamp = s.stamp;
+  const epoch = ++s.epoch;
+  let count = 0;
+  for (const d of moved) {
+    if (d >= leverCount && stamp[d] !== epoch) {
+      stamp[d] = epoch;
+      s.first[count++] = d;
+    }
+    for (let k = fanStart[d]; k < fanStart[d + 1]; k++) {
+      const g = fanout[k];
+      if (stamp[g] !== epoch) {
+        stamp[g] = epoch;
+        s.first[count++] = g;
+      }
+    }
+  }
+  for (let i = 0; i < count; i++) schedule(sim, s, values, s.first[i], t);
+  return count;
+}
+
+/** A 'latch-x' alarm for every latch that went X in this settle call and is still X. */
+function reportLatchX(
+  sim: PartSim,
+  s: Scratch,
+  values: Uint8Array,
+  call: number,
+  t: number,
+  events: PartEvent[],
+): void {
+  sim.latches.forEach((l, li) => {
+    if (s.wentXIn[li] !== call || (values[l.set] !== UNKNOWN && values[l.reset] !== UNKNOWN)) return;
+    const why =
+      s.racedIn[li] === call
+        ? 'both its inputs were released together from the forbidden input'
+        : 'it oscillates or reads an undetermined input';
+    events.push({
+      kind: 'latch-x',
+      timeS: t / 1e6,
+      latch: l.name,
+      words: `${latchLabel(l.name)} is left undetermined (X): ${why}`,
+    });
+  });
 }
 
 /** Inertial scheduling of gate g at time t: a pending change the gate no longer wants is dropped. */

@@ -13,7 +13,7 @@
  * are ranked by dagre's tight-tree ranker, which is several times faster than network simplex
  * at a small cost in edge length.
  */
-import dagre from '@dagrejs/dagre';
+import { layOut, layoutGraph } from '../../core/export/index.js';
 import type { Machine, OutBit } from '../../core/index.js';
 
 /** Pixel width of one character of the diagram's monospaced 12 px text. */
@@ -115,7 +115,7 @@ function place(nodes: readonly Sized[], edges: readonly Linked[]): Placed {
     placedCache.set(key, hit);
     return hit;
   }
-  const g = new dagre.graphlib.Graph({ multigraph: false });
+  const g = layoutGraph({ multigraph: false });
   g.setGraph({
     rankdir: 'LR',
     nodesep: 28,
@@ -128,19 +128,19 @@ function place(nodes: readonly Sized[], edges: readonly Linked[]): Placed {
   g.setDefaultEdgeLabel(() => ({}));
   for (const n of nodes) g.setNode(n.id, { width: n.width, height: n.height });
   for (const e of edges) g.setEdge(e.from, e.to, { width: e.width, height: e.height, labelpos: 'c' });
-  dagre.layout(g);
+  const laid = layOut(g);
   const placed: Placed = {
-    width: (g.graph() as { width?: number }).width ?? 0,
-    height: (g.graph() as { height?: number }).height ?? 0,
+    width: laid.graph().width,
+    height: laid.graph().height,
     nodes: new Map(
       nodes.map((n) => {
-        const p = g.node(n.id) as Point;
+        const p = laid.node(n.id);
         return [n.id, { x: p.x, y: p.y }];
       }),
     ),
     edges: new Map(
       edges.map((e) => {
-        const l = g.edge(e.from, e.to) as { points: Point[]; x: number; y: number; width: number; height: number };
+        const l = laid.edge(e.from, e.to);
         return [
           `${e.from}\u0000${e.to}`,
           { points: l.points.map((p) => ({ x: p.x, y: p.y })), x: l.x, y: l.y, width: l.width, height: l.height },

@@ -45,7 +45,7 @@ export class LwApp extends LitElement {
   );
   private readonly codes = remember(codesByState);
   private readonly lit = remember(litStates);
-  private view: ViewId = (VIEWS.find((v) => v.id === keepGet('view'))?.id ?? 'sketch') as ViewId;
+  private view: ViewId = VIEWS.find((v) => v.id === keepGet('view'))?.id ?? 'sketch';
 
   override connectedCallback(): void {
     super.connectedCallback();
@@ -250,10 +250,11 @@ export class LwApp extends LitElement {
         words: ok ? 'Link copied: it carries the whole machine.' : 'Copy this link; it carries the whole machine:',
         ...(ok ? {} : { details: [link] }),
       });
-    navigator.clipboard?.writeText(link).then(
+    if (!navigator.clipboard) return told(false);
+    navigator.clipboard.writeText(link).then(
       () => told(true),
       () => told(false),
-    ) ?? told(false);
+    );
   };
 
   private onTabKey = (e: KeyboardEvent): void => {

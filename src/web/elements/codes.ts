@@ -98,7 +98,6 @@ export class LwCodes extends LitElement {
   ];
 
   override render() {
-    const b = this.built;
     const using = 'kept' in this.choice ? this.choice.kept.strategy : this.choice.strategy;
     return html`<section class="panel" aria-label="Encodings side by side">
         <h2>Encodings side by side</h2>
@@ -115,59 +114,63 @@ export class LwCodes extends LitElement {
         </div>
         ${this.rows.length > 0 ? this.table(using) : html`<p class="soft">Each encoding is built in full and priced by its parts; the automatic search tries many codes and can take a few seconds.</p>`}
       </section>
-      ${
-        b
-          ? html`<div class="grid2">
-                <section class="panel" aria-label="State codes">
-                  <h2>
-                    State codes (${b.build.encoding.strategy}, ${b.build.encoding.bits}
-                    bit${b.build.encoding.bits === 1 ? '' : 's'})
-                  </h2>
-                  <table>
-                    <thead>
-                      <tr>
-                        <th scope="col">State</th>
-                        <th scope="col">Code</th>
-                      </tr>
-                    </thead>
-                    <tbody>
-                      ${b.build.machine.states.map(
-                        (s, i) =>
-                          html`<tr>
-                            <td>${s}</td>
-                            <td class="mono">${b.build.encoding.codes[i] || '—'}</td>
-                          </tr>`,
-                      )}
-                    </tbody>
-                  </table>
-                </section>
-                <section class="panel" aria-label="Forbidden-input guard">
-                  <h2>Forbidden-input guard</h2>
-                  <p class=${b.guard.ok ? 'ok' : 'bad'}>
-                    ${b.guard.ok ? 'S·R = 0 proven for every latch over every code and input.' : 'The guard could not prove S·R = 0.'}
-                  </p>
-                  <p>Method: ${b.guard.method}.</p>
-                  <p>
-                    ${b.guard.compared === false ? 'Cost not measured for this build.' : `Cost of the guard: ${b.guard.extraGates} extra gate${b.guard.extraGates === 1 ? '' : 's'}, ${b.guard.extraCords} extra cord${b.guard.extraCords === 1 ? '' : 's'}.`}
-                  </p>
-                </section>
-              </div>
-              <section class="panel" aria-label="Equations">
-                <h2>Set, reset and output equations</h2>
-                <p class="soft">
-                  Over the slave bits ${b.build.vars.slice(0, b.build.encoding.bits).join(', ') || '(none)'} and the
-                  inputs; S and R drive master latch M of each bit during φ1.
-                </p>
-                <dl class="eq">
-                  ${b.equations.map(
-                    (e) =>
-                      html`<dt>${e.name}</dt>
-                        <dd>${e.expr}</dd>`,
+      ${this.buildPanels()}`;
+  }
+
+  /** The state codes, the guard and the equations of the current build. */
+  private buildPanels() {
+    const b = this.built;
+    return b
+      ? html`<div class="grid2">
+            <section class="panel" aria-label="State codes">
+              <h2>
+                State codes (${b.build.encoding.strategy}, ${b.build.encoding.bits}
+                bit${b.build.encoding.bits === 1 ? '' : 's'})
+              </h2>
+              <table>
+                <thead>
+                  <tr>
+                    <th scope="col">State</th>
+                    <th scope="col">Code</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  ${b.build.machine.states.map(
+                    (s, i) =>
+                      html`<tr>
+                        <td>${s}</td>
+                        <td class="mono">${b.build.encoding.codes[i] || '—'}</td>
+                      </tr>`,
                   )}
-                </dl>
-              </section>`
-          : html`<p class="soft">Codes and equations appear once the machine builds.</p>`
-      }`;
+                </tbody>
+              </table>
+            </section>
+            <section class="panel" aria-label="Forbidden-input guard">
+              <h2>Forbidden-input guard</h2>
+              <p class=${b.guard.ok ? 'ok' : 'bad'}>
+                ${b.guard.ok ? 'S·R = 0 proven for every latch over every code and input.' : 'The guard could not prove S·R = 0.'}
+              </p>
+              <p>Method: ${b.guard.method}.</p>
+              <p>
+                ${b.guard.compared === false ? 'Cost not measured for this build.' : `Cost of the guard: ${b.guard.extraGates} extra gate${b.guard.extraGates === 1 ? '' : 's'}, ${b.guard.extraCords} extra cord${b.guard.extraCords === 1 ? '' : 's'}.`}
+              </p>
+            </section>
+          </div>
+          <section class="panel" aria-label="Equations">
+            <h2>Set, reset and output equations</h2>
+            <p class="soft">
+              Over the slave bits ${b.build.vars.slice(0, b.build.encoding.bits).join(', ') || '(none)'} and the inputs;
+              S and R drive master latch M of each bit during φ1.
+            </p>
+            <dl class="eq">
+              ${b.equations.map(
+                (e) =>
+                  html`<dt>${e.name}</dt>
+                    <dd>${e.expr}</dd>`,
+              )}
+            </dl>
+          </section>`
+      : html`<p class="soft">Codes and equations appear once the machine builds.</p>`;
   }
 
   /** The encoding the build uses: every registered encoding that needs no pinned codes, or the codes kept from a comparison. */

@@ -105,11 +105,13 @@ export class LwDiagram extends LitElement {
     const h = el.clientHeight || 400;
     const k = Math.min(2, 0.92 * Math.min(w / Math.max(l.width, 1), h / Math.max(l.height, 1)));
     const t = zoomIdentity.translate((w - l.width * k) / 2, (h - l.height * k) / 2).scale(k);
-    this.svg().call(this.zoomer.transform, t);
+    const zoomer = this.zoomer;
+    this.svg().call((svg) => zoomer.transform(svg, t));
   }
 
   private scaleBy(f: number): void {
-    if (this.zoomer) this.svg().call(this.zoomer.scaleBy, f);
+    const zoomer = this.zoomer;
+    if (zoomer) this.svg().call((svg) => zoomer.scaleBy(svg, f));
   }
 
   private drawEdges(g: G, edges: readonly LaidEdge[]): void {

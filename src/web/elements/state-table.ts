@@ -193,7 +193,7 @@ export class LwStateTable extends LitElement {
       @submit=${(e: Event) => {
         e.preventDefault();
         const f = new FormData(e.target as HTMLFormElement);
-        this.send(addTransition(this.text, s, String(f.get('to')), String(f.get('when') ?? '')));
+        this.send(addTransition(this.text, s, formText(f, 'to'), formText(f, 'when')));
       }}
     >
       <input
@@ -212,7 +212,7 @@ export class LwStateTable extends LitElement {
 
   private onAddState = (e: Event): void => {
     e.preventDefault();
-    const name = String(new FormData(e.target as HTMLFormElement).get('name') ?? '').trim();
+    const name = formText(new FormData(e.target as HTMLFormElement), 'name').trim();
     if (name) this.send(addState(this.text, name));
   };
 
@@ -227,4 +227,10 @@ declare global {
   interface HTMLElementTagNameMap {
     'lw-state-table': LwStateTable;
   }
+}
+
+/** A text field of a submitted form ('' when it is missing). */
+function formText(f: FormData, name: string): string {
+  const v = f.get(name);
+  return typeof v === 'string' ? v : '';
 }

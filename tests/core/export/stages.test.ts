@@ -76,7 +76,7 @@ describe('core/export/stages', () => {
 
   it('orders by stage, then by netlist position', () => {
     const s = stagesOf(n);
-    const ids = n.parts.map((p) => p.id).sort(s.compare);
+    const ids = n.parts.map((p) => p.id).sort((a, b) => s.compare(a, b));
     expect(ids).toEqual([
       'buf.b',
       'buf.a',

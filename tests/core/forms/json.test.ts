@@ -18,8 +18,7 @@ function schemaErrors(value: unknown, s: Schema, path = '$', root: Schema = s): 
   if (s.type === 'object' && !isObj) return [`${path}: not an object`];
   if (s.type === 'array' && !Array.isArray(value)) return [`${path}: not an array`];
   if (s.type === 'string' && typeof value !== 'string') return [`${path}: not a string`];
-  if (Array.isArray(s.enum) && !s.enum.includes(value as never))
-    return [`${path}: not one of ${JSON.stringify(s.enum)}`];
+  if (Array.isArray(s.enum) && !s.enum.includes(value)) return [`${path}: not one of ${JSON.stringify(s.enum)}`];
   if (typeof value === 'string') {
     if (typeof s.pattern === 'string' && !new RegExp(s.pattern, 'u').test(value))
       errs.push(`${path}: does not match ${s.pattern}`);

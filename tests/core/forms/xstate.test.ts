@@ -88,7 +88,7 @@ function compareExport(m: Machine, seed: number, form: 'auto' | 'clock' = 'auto'
   const f = flatOf(m);
   const x = exportXstate(m, { form });
   const ours = abstractStepper(f);
-  const theirs = xstateStepper(JSON.parse(JSON.stringify(x.config)), x.implementations.guards, m.outputs);
+  const theirs = xstateStepper(JSON.parse(JSON.stringify(x.config)) as object, x.implementations.guards, m.outputs);
   const seq = randomSequence(seededRandom(seed), allowedAssignments(f), clocks);
   for (let k = 0; k < seq.length; k++) {
     const a = seq[k];
@@ -182,7 +182,7 @@ describe('core/forms/xstate import', () => {
       { code: 'LW200', location: { path: '$.on.go' }, hint: "on the machine root a state is written '.bb'" },
     ]);
     expect(bad({ go: '#m' })).toMatchObject([
-      { code: 'LW500', message: expect.stringContaining(featureNote('rootTarget').name) },
+      { code: 'LW500', message: expect.stringContaining(featureNote('rootTarget').name) as unknown },
     ]);
     for (const ok of ['bb', '#bee', '#m.bb']) expect(bad({ go: ok })).toEqual([]);
     expect(bad({}, { go: '.bb' })).toEqual([]);

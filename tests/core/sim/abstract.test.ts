@@ -48,7 +48,7 @@ describe('core/sim/abstract', () => {
         let snap = getInitialSnapshot(reference);
         const theirs = seq.map((x) => {
           snap = getNextSnapshot(reference, snap, { type: `x${x}` });
-          return String(snap.value);
+          return typeof snap.value === 'string' ? snap.value : JSON.stringify(snap.value);
         });
         expect(ours).toEqual(theirs);
       }),

@@ -37,7 +37,7 @@ function cubesAsCover(f: MultiFunction, pick: (k: number) => Cube[]): SopCover {
 
 /** Cut a cube into 1..parts disjoint cubes by splitting on random free variables. */
 function cut(rng: Random, cube: Cube, parts: number): Cube[] {
-  let cubes = [cube];
+  const cubes = [cube];
   while (cubes.length < parts) {
     const i = rng.int(cubes.length);
     const free = [...cubes[i]].flatMap((ch, v) => (ch === '-' ? [v] : []));
@@ -303,7 +303,10 @@ export function settle(
     let changed = false;
     for (const g of gates) {
       const v = z(g.id) === 1 ? 0 : 1;
-      if (signal.get(g.id) !== v) (signal.set(g.id, v), (changed = true));
+      if (signal.get(g.id) !== v) {
+        signal.set(g.id, v);
+        changed = true;
+      }
     }
     if (!changed) break;
   }

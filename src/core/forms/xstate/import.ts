@@ -52,126 +52,154 @@ export function importXstate(config: unknown, file?: string): MachineResult {
 
 /** A record without a prototype, so that output names never meet Object.prototype. */
 function record(entries: Iterable<readonly [string, OutBit]>): Record<string, OutBit> {
-  const r: Record<string, OutBit> = Object.create(null);
+  const r = Object.create(null) as Record<string, OutBit>;
   for (const [k, v] of entries) r[k] = v;
   return r;
+}
+
+/** One import: the configuration as scanned, its levers, and the diagnostics so far. */
+class Importer {
+  constructor(
+    readonly raw: RawConfig,
+    readonly inputs: readonly string[],
+    readonly ds: Diagnostic[],
+    private readonly file: string | undefined,
+  ) {}
+
+  at(path: string): SourceLoc {
+    return this.file === undefined ? { path } : { file: this.file, path };
+  }
+
+  /** The guard of lever `ev`. */
+  lever(ev: string, loc: SourceLoc): Guard | undefined {
+    const r = parseGuard(ev, this.inputs, loc);
+    this.ds.push(...r.diagnostics);
+    return r.guard;
+  }
+
+  /** One candidate's target state; null: targetless (stay); undefined: not resolved (reported). */
+  resolve(c: RawTransition, from: RawState | undefined): string | null | undefined {
+    if (c.target === undefined) return null;
+    const r = resolveTarget(c.target, from, this.raw);
+    if (r.ok) return r.state;
+    if (r.feature) {
+      const n = featureNote(r.feature);
+      const msg = `unsupported xstate feature: ${n.name} (${c.targetPath}): ${r.message}`;
+      this.ds.push(diag('LW500', msg, this.at(c.targetPath), n.hint));
+    } else this.ds.push(diag('LW200', r.message, this.at(c.targetPath), r.hint));
+    return undefined;
+  }
+}
+
+/** False (reported) when there are more levers than the tool handles; also reports names used twice. */
+function checkNames(im: Importer, outputs: readonly string[]): boolean {
+  const { inputs } = im;
+  if (inputs.length > MAX_LEVERS) {
+    const msg = `the configuration has ${inputs.length} event types; a lever machine handles at most ${MAX_LEVERS} levers`;
+    im.ds.push(diag('LW401', msg, im.at('$'), 'split the machine'));
+    return false;
+  }
+  const outSet = new Set(outputs);
+  for (const i of inputs) {
+    if (outSet.has(i)) {
+      const msg = `'${i}' is both an event type (a lever) and an output (a tag or meta.outputs name)`;
+      im.ds.push(diag('LW203', msg, im.at('$'), 'rename one of them'));
+    }
+  }
+  return true;
+}
+
+/** The start state: `initial`, when it names a state ('' otherwise, reported). */
+function startState(im: Importer): string {
+  const { raw } = im;
+  if (raw.initial === undefined) return '';
+  if (raw.states.some((s) => s.name === raw.initial)) return raw.initial;
+  const g = didYouMean(
+    raw.initial,
+    raw.states.map((s) => s.name),
+  );
+  im.ds.push(
+    diag(
+      'LW204',
+      `the initial state '${raw.initial}' is not a state of the machine`,
+      im.at('$.initial'),
+      g ? `did you mean '${g}'?` : 'name one of the states under "states"',
+    ),
+  );
+  return '';
+}
+
+/** A state's Moore outputs: 1 for each tag (its own and the root's), then its meta.outputs. */
+function mooreOutputs(im: Importer, s: RawState): Record<string, OutBit> {
+  const tagged = new Set([...im.raw.rootTags, ...s.tags]);
+  for (const [o, v] of s.outputs) {
+    if (tagged.has(o) && v !== 1) {
+      im.ds.push(
+        diag(
+          'LW501',
+          `state '${s.name}' carries the tag '${o}' (output 1) but meta.outputs gives '${o}' the value ${JSON.stringify(v)}`,
+          im.at(`${s.path}.meta.outputs`),
+          `drop one of the two, or make meta.outputs.${o} 1`,
+        ),
+      );
+    }
+  }
+  return record([...[...tagged].map((t) => [t, 1] as const), ...s.outputs]);
+}
+
+/**
+ * One state with its transitions: its own, then (unless final) the root's for each event whose
+ * candidate list in the state is empty, as an unhandled event bubbles to the root in xstate.
+ * `rootTargets` holds the root candidates' targets, resolved once.
+ */
+function importState(
+  im: Importer,
+  s: RawState,
+  rootTargets: ReadonlyMap<string, (string | null | undefined)[]>,
+): State {
+  const transitions: Transition[] = [];
+  const add = (ev: string, c: RawTransition, to: string | null | undefined): void => {
+    if (to === undefined) return;
+    const when = im.lever(ev, im.at(c.path));
+    if (when) transitions.push({ when, to: to ?? s.name, outputs: record(c.outputs), loc: im.at(c.path) });
+  };
+  const outputs = mooreOutputs(im, s);
+  for (const [ev, cs] of s.on) for (const c of cs) add(ev, c, im.resolve(c, s));
+  if (!s.final) {
+    for (const [ev, cs] of im.raw.rootOn) {
+      if ((s.on.get(ev)?.length ?? 0) > 0) continue;
+      const tos = rootTargets.get(ev) ?? [];
+      cs.forEach((c, k) => add(ev, c, tos[k]));
+    }
+  }
+  return { name: s.name, outputs, transitions, loc: im.at(s.path) };
+}
+
+/** At most one lever per clock: `a & b` is never pulled, for every pair of levers. */
+function oneLeverAtATime(im: Importer): Guard[] {
+  const { inputs } = im;
+  const never: Guard[] = [];
+  for (let a = 0; a < inputs.length; a++) {
+    for (let b = a + 1; b < inputs.length; b++) {
+      const r = parseGuard(`${inputs[a]} & ${inputs[b]}`, inputs, im.at('$'));
+      im.ds.push(...r.diagnostics);
+      if (r.guard) never.push(r.guard);
+    }
+  }
+  return never;
 }
 
 function importChecked(config: unknown, file?: string): MachineResult {
   const { raw, diagnostics: ds } = scanConfig(config, file);
   if (!raw) return { diagnostics: ds };
-  const at = (path: string): SourceLoc => (file === undefined ? { path } : { file, path });
-
   const inputs = uniqueInOrder([...raw.states.flatMap((s) => [...s.on.keys()]), ...raw.rootOn.keys()]);
   const outputs = uniqueInOrder(outputNamesInOrder(raw));
-  if (inputs.length > MAX_LEVERS) {
-    ds.push(
-      diag(
-        'LW401',
-        `the configuration has ${inputs.length} event types; a lever machine handles at most ${MAX_LEVERS} levers`,
-        at('$'),
-        'split the machine',
-      ),
-    );
-    return { diagnostics: ds };
-  }
-  const outSet = new Set(outputs);
-  for (const i of inputs) {
-    if (outSet.has(i))
-      ds.push(
-        diag(
-          'LW203',
-          `'${i}' is both an event type (a lever) and an output (a tag or meta.outputs name)`,
-          at('$'),
-          'rename one of them',
-        ),
-      );
-  }
-
-  let start = raw.initial ?? '';
-  if (raw.initial !== undefined && !raw.states.some((s) => s.name === raw.initial)) {
-    const g = didYouMean(
-      raw.initial,
-      raw.states.map((s) => s.name),
-    );
-    ds.push(
-      diag(
-        'LW204',
-        `the initial state '${raw.initial}' is not a state of the machine`,
-        at('$.initial'),
-        g ? `did you mean '${g}'?` : 'name one of the states under "states"',
-      ),
-    );
-    start = '';
-  }
-
-  const lever = (ev: string, loc: SourceLoc): Guard | undefined => {
-    const r = parseGuard(ev, inputs, loc);
-    ds.push(...r.diagnostics);
-    return r.guard;
-  };
-  // Resolve one candidate; root candidates are resolved once, with `stay` standing for "this state".
-  const resolve = (c: RawTransition, from: RawState | undefined): string | null | undefined => {
-    if (c.target === undefined) return null; // targetless: stay
-    const r = resolveTarget(c.target, from, raw);
-    if (r.ok) return r.state;
-    if (r.feature) {
-      const n = featureNote(r.feature);
-      ds.push(
-        diag(
-          'LW500',
-          `unsupported xstate feature: ${n.name} (${c.targetPath}): ${r.message}`,
-          at(c.targetPath),
-          n.hint,
-        ),
-      );
-    } else ds.push(diag('LW200', r.message, at(c.targetPath), r.hint));
-    return undefined;
-  };
-  const rootTargets = new Map([...raw.rootOn].map(([ev, cs]) => [ev, cs.map((c) => resolve(c, undefined))]));
-
-  const rootTags = new Set(raw.rootTags);
-  const states: State[] = raw.states.map((s) => {
-    const tagged = new Set([...rootTags, ...s.tags]);
-    for (const [o, v] of s.outputs) {
-      if (tagged.has(o) && v !== 1) {
-        ds.push(
-          diag(
-            'LW501',
-            `state '${s.name}' carries the tag '${o}' (output 1) but meta.outputs gives '${o}' the value ${JSON.stringify(v)}`,
-            at(`${s.path}.meta.outputs`),
-            `drop one of the two, or make meta.outputs.${o} 1`,
-          ),
-        );
-      }
-    }
-    const moore = record([...[...tagged].map((t) => [t, 1] as const), ...s.outputs]);
-    const transitions: Transition[] = [];
-    const add = (ev: string, c: RawTransition, to: string | null | undefined): void => {
-      if (to === undefined) return;
-      const when = lever(ev, at(c.path));
-      if (when) transitions.push({ when, to: to ?? s.name, outputs: record(c.outputs), loc: at(c.path) });
-    };
-    for (const [ev, cs] of s.on) for (const c of cs) add(ev, c, resolve(c, s));
-    if (!s.final) {
-      // An event whose candidate list in the state is empty bubbles to the root, as in xstate.
-      for (const [ev, cs] of raw.rootOn) {
-        if ((s.on.get(ev)?.length ?? 0) > 0) continue;
-        const tos = rootTargets.get(ev) ?? [];
-        cs.forEach((c, k) => add(ev, c, tos[k]));
-      }
-    }
-    return { name: s.name, outputs: moore, transitions, loc: at(s.path) };
-  });
-
-  const never: Guard[] = [];
-  for (let a = 0; a < inputs.length; a++) {
-    for (let b = a + 1; b < inputs.length; b++) {
-      const r = parseGuard(`${inputs[a]} & ${inputs[b]}`, inputs, at('$'));
-      ds.push(...r.diagnostics);
-      if (r.guard) never.push(r.guard);
-    }
-  }
+  const im = new Importer(raw, inputs, ds, file);
+  if (!checkNames(im, outputs)) return { diagnostics: ds };
+  const start = startState(im);
+  const rootTargets = new Map([...raw.rootOn].map(([ev, cs]) => [ev, cs.map((c) => im.resolve(c, undefined))]));
+  const states = raw.states.map((s) => importState(im, s, rootTargets));
+  const never = oneLeverAtATime(im);
 
   if (hasErrors(ds)) return { diagnostics: ds };
   const machine: Machine = {
@@ -183,7 +211,7 @@ function importChecked(config: unknown, file?: string): MachineResult {
     never,
     states,
     ...(raw.description !== undefined ? { description: raw.description } : {}),
-    loc: at('$'),
+    loc: im.at('$'),
   };
   return { machine, diagnostics: ds };
 }

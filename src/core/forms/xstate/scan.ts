@@ -11,8 +11,8 @@
  * `context: {}`) are accepted and ignored: they do nothing in xstate either.
  */
 import { diag, didYouMean, type Diagnostic, type DiagnosticCode } from '../../model/diagnostics.js';
-import type { OutBit, SourceLoc } from '../../model/machine.js';
-import { jsonKey } from '../json.js';
+import type { OutBit } from '../../model/machine.js';
+import { isPrimitive, jsonKey } from '../json.js';
 import { featureNote, type Feature } from './features.js';
 import type { RawConfig, RawState, RawTransition } from './types.js';
 
@@ -75,288 +75,321 @@ function describe(v: unknown): string {
   if (Array.isArray(v)) return 'a list';
   if (typeof v === 'object') return 'an object';
   if (typeof v === 'string') return `the string ${JSON.stringify(v.length > 30 ? v.slice(0, 27) + '...' : v)}`;
-  return typeof v === 'function' ? 'a function' : `${typeof v} ${String(v)}`;
+  if (typeof v === 'function') return 'a function';
+  return isPrimitive(v) ? `${typeof v} ${String(v)}` : typeof v;
 }
 
-/** Read and check a configuration; `raw` is present when the root is an object at all. */
-export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; diagnostics: Diagnostic[] } {
-  const ds: Diagnostic[] = [];
-  const at = (path: string): SourceLoc => (file === undefined ? { path } : { file, path });
-  const report = (code: DiagnosticCode, msg: string, path: string, hint?: string, sev?: 'warning'): void => {
-    ds.push(diag(code, msg, at(path), hint, sev));
-  };
-  const feature = (f: Feature, where: string, path: string): void => {
+type Warning = 'warning';
+
+/** The diagnostics of one reading, and the helpers that add to them. */
+class Scan {
+  readonly ds: Diagnostic[] = [];
+
+  constructor(private readonly file: string | undefined) {}
+
+  report(code: DiagnosticCode, msg: string, path: string, hint?: string, sev?: Warning): void {
+    this.ds.push(diag(code, msg, this.file === undefined ? { path } : { file: this.file, path }, hint, sev));
+  }
+
+  /** LW500: a feature a lever machine cannot have, in `where` (a state or the root). */
+  feature(f: Feature, where: string, path: string): void {
     const n = featureNote(f);
-    report('LW500', `unsupported xstate feature: ${n.name} in ${where} (${path})`, path, n.hint);
-  };
-  const unknown = (o: Obj, k: string, path: string, known: readonly string[]): void => {
+    this.report('LW500', `unsupported xstate feature: ${n.name} in ${where} (${path})`, path, n.hint);
+  }
+
+  /** LW105: a field `k` of the object at `path` that is not read. */
+  unknown(k: string, path: string, known: readonly string[]): void {
     const guess = didYouMean(k, known);
-    report(
-      'LW105',
-      `unknown field '${k}' ignored`,
-      jsonKey(path, k),
-      guess ? `did you mean '${guess}'?` : `fields read here: ${known.join(', ')}`,
-      'warning',
-    );
-  };
-  const name = (s: string, what: string, path: string): boolean => {
+    const hint = guess ? `did you mean '${guess}'?` : `fields read here: ${known.join(', ')}`;
+    this.report('LW105', `unknown field '${k}' ignored`, jsonKey(path, k), hint, 'warning');
+  }
+
+  /** True when `s` can name a `what` ('state', or a lever or output); LW205 otherwise. */
+  name(s: string, what: string, path: string): boolean {
     const isState = what === 'state';
     if (isState ? isStateName(s) : isLeverName(s)) return true;
     const fixed = s.replace(/[^A-Za-z0-9_]/g, '_').replace(/^(?=[0-9])/, isState ? '' : '_');
+    const example = fixed === '' ? 'x' : isLeverName(fixed) || isState ? fixed : 'x_' + fixed;
     const hint = (isState ? STATE_NAME : IDENT).test(s)
       ? `'${s}' is a property of every JavaScript object; choose another name`
-      : `use letters, digits and _${isState ? '' : ' (starting with a letter or _)'}, for example '${fixed === '' ? 'x' : isLeverName(fixed) || isState ? fixed : 'x_' + fixed}'`;
-    report('LW205', `${what} '${s}' is not a valid name`, path, hint);
+      : `use letters, digits and _${isState ? '' : ' (starting with a letter or _)'}, for example '${example}'`;
+    this.report('LW205', `${what} '${s}' is not a valid name`, path, hint);
     return false;
-  };
-
-  const tags = (v: unknown, path: string): string[] => {
-    if (v === undefined) return [];
-    const list = Array.isArray(v) ? v : [v];
-    const out: string[] = [];
-    list.forEach((t, i) => {
-      const p = Array.isArray(v) ? `${path}[${i}]` : path;
-      if (typeof t !== 'string')
-        report('LW501', `a tag should be a string, not ${describe(t)}`, p, 'tags: "name" or ["name", …]');
-      else if (name(t, 'tag (output)', p)) out.push(t);
-    });
-    return out;
-  };
-
-  const metaOutputs = (meta: unknown, path: string): Map<string, OutBit> => {
-    const out = new Map<string, OutBit>();
-    if (!isObj(meta) || !has(meta, 'outputs')) return out; // meta is free-form in xstate
-    const o = own(meta, 'outputs');
-    const op = `${path}.outputs`;
-    if (!isObj(o)) {
-      report(
-        'LW501',
-        `meta.outputs should be an object of output name → 0, 1 or "-", not ${describe(o)}`,
-        op,
-        'for example "meta": { "outputs": { "bell": 1 } }',
-      );
-      return out;
-    }
-    for (const k of Object.keys(o)) {
-      const kp = jsonKey(op, k);
-      if (!name(k, 'output', kp)) continue;
-      const v = o[k];
-      if (v === 0 || v === 1 || v === '-') out.set(k, v);
-      else report('LW106', `output '${k}' has the value ${describe(v)}`, kp, 'write 0, 1 or "-" (don\'t care)');
-    }
-    return out;
-  };
-
-  const transition = (v: unknown, path: string, where: string): RawTransition | undefined => {
-    if (typeof v === 'string') return { target: v, outputs: new Map(), path, targetPath: path };
-    if (!isObj(v)) {
-      report(
-        'LW501',
-        `a transition should be a target name, an object or a list of them, not ${describe(v)}`,
-        path,
-        'for example "COIN": "open" or "COIN": { "target": "open" }',
-      );
-      return undefined;
-    }
-    let target: string | undefined;
-    let ok = true;
-    for (const k of Object.keys(v)) {
-      const kp = jsonKey(path, k);
-      const x = v[k];
-      if (k === 'target') {
-        if (typeof x === 'string') target = x;
-        else if (x === undefined) target = undefined;
-        else if (Array.isArray(x) && x.length === 1 && typeof x[0] === 'string') target = x[0];
-        else if (Array.isArray(x) && x.length > 1) {
-          feature('multipleTargets', where, kp);
-          ok = false;
-        } else {
-          report(
-            'LW501',
-            `target should be a state reference (a string), not ${describe(x)}`,
-            kp,
-            'omit target to stay in the state',
-          );
-          ok = false;
-        }
-      } else if (k === 'reenter') {
-        if (typeof x !== 'boolean') report('LW501', `reenter should be true or false, not ${describe(x)}`, kp);
-      } else if (k === 'meta' || k === 'description') {
-        // meta read below; description is free text
-      } else if (has(TRANSITION_FEATURES, k)) {
-        if (isBlank(x) && k === 'actions') continue;
-        feature(TRANSITION_FEATURES[k], where, kp);
-        ok = false;
-      } else if (k === 'internal') {
-        report(
-          'LW105',
-          `the xstate v4 field 'internal' is ignored`,
-          kp,
-          'without actions, entering a state again changes nothing',
-          'warning',
-        );
-      } else unknown(v, k, path, TRANSITION_KEYS);
-    }
-    const outputs = metaOutputs(own(v, 'meta'), `${path}.meta`);
-    return ok
-      ? { ...(target === undefined ? {} : { target }), outputs, path, targetPath: `${path}.target` }
-      : undefined;
-  };
-
-  const onBlock = (v: unknown, path: string, where: string): Map<string, RawTransition[]> => {
-    const out = new Map<string, RawTransition[]>();
-    if (v === undefined) return out;
-    if (!isObj(v)) {
-      report(
-        'LW501',
-        `'on' should be an object of event type → transitions, not ${describe(v)}`,
-        path,
-        'for example "on": { "COIN": "open" }',
-      );
-      return out;
-    }
-    for (const ev of Object.keys(v)) {
-      const kp = jsonKey(path, ev);
-      if (ev === '') feature('eventless', where, kp);
-      else if (ev.includes('*')) feature('wildcard', where, kp);
-      else if (ev.startsWith('xstate.')) feature('builtinEvent', where, kp);
-      else if (name(ev, 'event type (lever)', kp)) {
-        const x = v[ev];
-        const list = Array.isArray(x)
-          ? x.map((c, i) => transition(c, `${kp}[${i}]`, where))
-          : [transition(x, kp, where)];
-        out.set(
-          ev,
-          list.filter((c): c is RawTransition => c !== undefined),
-        );
-      }
-    }
-    return out;
-  };
-
-  const state = (nm: string, v: unknown, path: string, rootId: string): RawState | undefined => {
-    const where = `state '${nm}'`;
-    if (!isObj(v)) {
-      report(
-        'LW501',
-        `state '${nm}' should be an object, not ${describe(v)}`,
-        path,
-        'write {} for a state with no transitions',
-      );
-      return undefined;
-    }
-    let final = false;
-    let shaped = false; // the state's structure (parallel, history, nested) was already reported
-    const type = own(v, 'type');
-    if (type === 'final') final = true;
-    else if (type === 'parallel' || type === 'history' || type === 'compound') {
-      feature(type === 'compound' ? 'nested' : type, where, `${path}.type`);
-      shaped = true;
-    } else if (type !== undefined && type !== 'atomic') {
-      report('LW501', `state type should be "atomic" or "final", not ${describe(type)}`, `${path}.type`);
-    }
-    const children = own(v, 'states');
-    if (children !== undefined && !isObj(children))
-      report('LW501', `'states' should be an object, not ${describe(children)}`, `${path}.states`);
-    else if (!isBlank(children) && !shaped) {
-      feature('nested', where, `${path}.states`);
-      shaped = true;
-    }
-    if (has(v, 'initial') && !shaped) feature('nested', where, `${path}.initial`);
-    let id = `${rootId}.${nm}`;
-    const cid = own(v, 'id');
-    if (typeof cid === 'string' && cid !== '') id = cid;
-    else if (cid !== undefined && typeof cid !== 'string')
-      report('LW501', `a state id should be a string, not ${describe(cid)}`, `${path}.id`);
-    for (const k of Object.keys(v)) {
-      if (STATE_KEYS.includes(k)) continue;
-      if (has(NODE_FEATURES, k)) {
-        if (!isBlank(v[k])) feature(NODE_FEATURES[k], where, jsonKey(path, k));
-      } else unknown(v, k, path, STATE_KEYS);
-    }
-    const on = onBlock(own(v, 'on'), `${path}.on`, where);
-    if (final && on.size > 0) feature('finalTransitions', where, `${path}.on`);
-    const outputs = metaOutputs(own(v, 'meta'), `${path}.meta`);
-    return { name: nm, path, id, final, tags: tags(own(v, 'tags'), `${path}.tags`), outputs, on };
-  };
-
-  if (!isObj(value)) {
-    report(
-      'LW501',
-      `an xstate configuration is an object, not ${describe(value)}`,
-      '$',
-      'it needs "initial" and "states"',
-    );
-    return { diagnostics: ds };
   }
-  const root = value;
+}
+
+/** `tags`: one name or a list of names, each an output. */
+function readTags(sc: Scan, v: unknown, path: string): string[] {
+  if (v === undefined) return [];
+  const list: unknown[] = Array.isArray(v) ? v : [v];
+  const out: string[] = [];
+  list.forEach((t, i) => {
+    const p = Array.isArray(v) ? `${path}[${i}]` : path;
+    if (typeof t !== 'string')
+      sc.report('LW501', `a tag should be a string, not ${describe(t)}`, p, 'tags: "name" or ["name", …]');
+    else if (sc.name(t, 'tag (output)', p)) out.push(t);
+  });
+  return out;
+}
+
+/** `meta.outputs`: output name → 0, 1 or "-"; the rest of `meta` is free-form in xstate. */
+function readMetaOutputs(sc: Scan, meta: unknown, path: string): Map<string, OutBit> {
+  const out = new Map<string, OutBit>();
+  if (!isObj(meta) || !has(meta, 'outputs')) return out;
+  const o = own(meta, 'outputs');
+  const op = `${path}.outputs`;
+  if (!isObj(o)) {
+    sc.report(
+      'LW501',
+      `meta.outputs should be an object of output name → 0, 1 or "-", not ${describe(o)}`,
+      op,
+      'for example "meta": { "outputs": { "bell": 1 } }',
+    );
+    return out;
+  }
+  for (const k of Object.keys(o)) {
+    const kp = jsonKey(op, k);
+    if (!sc.name(k, 'output', kp)) continue;
+    const v = o[k];
+    if (v === 0 || v === 1 || v === '-') out.set(k, v);
+    else sc.report('LW106', `output '${k}' has the value ${describe(v)}`, kp, 'write 0, 1 or "-" (don\'t care)');
+  }
+  return out;
+}
+
+/** What one field of a transition object says about it. */
+interface TargetRead {
+  target: string | undefined;
+  ok: boolean;
+}
+
+/** A transition's `target`: one state reference (a string, or a list of one). */
+function readTarget(sc: Scan, x: unknown, kp: string, where: string, into: TargetRead): void {
+  if (typeof x === 'string') into.target = x;
+  else if (x === undefined) into.target = undefined;
+  else if (Array.isArray(x) && x.length === 1 && typeof x[0] === 'string') into.target = x[0];
+  else if (Array.isArray(x) && x.length > 1) {
+    sc.feature('multipleTargets', where, kp);
+    into.ok = false;
+  } else {
+    const msg = `target should be a state reference (a string), not ${describe(x)}`;
+    sc.report('LW501', msg, kp, 'omit target to stay in the state');
+    into.ok = false;
+  }
+}
+
+/** Field `k` (value `x`) of the transition object at `path`. */
+function readTransitionField(sc: Scan, k: string, x: unknown, path: string, where: string, into: TargetRead): void {
+  const kp = jsonKey(path, k);
+  if (k === 'target') readTarget(sc, x, kp, where, into);
+  else if (k === 'reenter') {
+    if (typeof x !== 'boolean') sc.report('LW501', `reenter should be true or false, not ${describe(x)}`, kp);
+  } else if (k === 'meta' || k === 'description') {
+    // meta is read by the caller; description is free text
+  } else if (has(TRANSITION_FEATURES, k)) {
+    if (isBlank(x) && k === 'actions') return;
+    sc.feature(TRANSITION_FEATURES[k], where, kp);
+    into.ok = false;
+  } else if (k === 'internal') {
+    const hint = 'without actions, entering a state again changes nothing';
+    sc.report('LW105', `the xstate v4 field 'internal' is ignored`, kp, hint, 'warning');
+  } else sc.unknown(k, path, TRANSITION_KEYS);
+}
+
+/** One transition candidate: a target name or a transition object. */
+function readTransition(sc: Scan, v: unknown, path: string, where: string): RawTransition | undefined {
+  if (typeof v === 'string') return { target: v, outputs: new Map(), path, targetPath: path };
+  if (!isObj(v)) {
+    sc.report(
+      'LW501',
+      `a transition should be a target name, an object or a list of them, not ${describe(v)}`,
+      path,
+      'for example "COIN": "open" or "COIN": { "target": "open" }',
+    );
+    return undefined;
+  }
+  const read: TargetRead = { target: undefined, ok: true };
+  for (const k of Object.keys(v)) readTransitionField(sc, k, v[k], path, where, read);
+  const outputs = readMetaOutputs(sc, own(v, 'meta'), `${path}.meta`);
+  if (!read.ok) return undefined;
+  return { ...(read.target === undefined ? {} : { target: read.target }), outputs, path, targetPath: `${path}.target` };
+}
+
+/** An `on` block: event type → candidates, in order. */
+function readOn(sc: Scan, v: unknown, path: string, where: string): Map<string, RawTransition[]> {
+  const out = new Map<string, RawTransition[]>();
+  if (v === undefined) return out;
+  if (!isObj(v)) {
+    sc.report(
+      'LW501',
+      `'on' should be an object of event type → transitions, not ${describe(v)}`,
+      path,
+      'for example "on": { "COIN": "open" }',
+    );
+    return out;
+  }
+  for (const ev of Object.keys(v)) {
+    const kp = jsonKey(path, ev);
+    if (ev === '') sc.feature('eventless', where, kp);
+    else if (ev.includes('*')) sc.feature('wildcard', where, kp);
+    else if (ev.startsWith('xstate.')) sc.feature('builtinEvent', where, kp);
+    else if (sc.name(ev, 'event type (lever)', kp)) {
+      const x = v[ev];
+      const list = Array.isArray(x)
+        ? x.map((c: unknown, i) => readTransition(sc, c, `${kp}[${i}]`, where))
+        : [readTransition(sc, x, kp, where)];
+      out.set(
+        ev,
+        list.filter((c): c is RawTransition => c !== undefined),
+      );
+    }
+  }
+  return out;
+}
+
+/** A state's `type`, `states` and `initial`: whether it is final; nesting and parallel are features. */
+function readStateShape(sc: Scan, v: Obj, path: string, where: string): boolean {
+  let final = false;
+  let shaped = false; // the state's structure (parallel, history, nested) was already reported
+  const type = own(v, 'type');
+  if (type === 'final') final = true;
+  else if (type === 'parallel' || type === 'history' || type === 'compound') {
+    sc.feature(type === 'compound' ? 'nested' : type, where, `${path}.type`);
+    shaped = true;
+  } else if (type !== undefined && type !== 'atomic') {
+    sc.report('LW501', `state type should be "atomic" or "final", not ${describe(type)}`, `${path}.type`);
+  }
+  const children = own(v, 'states');
+  if (children !== undefined && !isObj(children))
+    sc.report('LW501', `'states' should be an object, not ${describe(children)}`, `${path}.states`);
+  else if (!isBlank(children) && !shaped) {
+    sc.feature('nested', where, `${path}.states`);
+    shaped = true;
+  }
+  if (has(v, 'initial') && !shaped) sc.feature('nested', where, `${path}.initial`);
+  return final;
+}
+
+/** One state `nm` at `path`. */
+function readState(sc: Scan, nm: string, v: unknown, path: string, rootId: string): RawState | undefined {
+  const where = `state '${nm}'`;
+  if (!isObj(v)) {
+    const msg = `state '${nm}' should be an object, not ${describe(v)}`;
+    sc.report('LW501', msg, path, 'write {} for a state with no transitions');
+    return undefined;
+  }
+  const final = readStateShape(sc, v, path, where);
+  let id = `${rootId}.${nm}`;
+  const cid = own(v, 'id');
+  if (typeof cid === 'string' && cid !== '') id = cid;
+  else if (cid !== undefined && typeof cid !== 'string')
+    sc.report('LW501', `a state id should be a string, not ${describe(cid)}`, `${path}.id`);
+  for (const k of Object.keys(v)) {
+    if (STATE_KEYS.includes(k)) continue;
+    if (has(NODE_FEATURES, k)) {
+      if (!isBlank(v[k])) sc.feature(NODE_FEATURES[k], where, jsonKey(path, k));
+    } else sc.unknown(k, path, STATE_KEYS);
+  }
+  const on = readOn(sc, own(v, 'on'), `${path}.on`, where);
+  if (final && on.size > 0) sc.feature('finalTransitions', where, `${path}.on`);
+  const outputs = readMetaOutputs(sc, own(v, 'meta'), `${path}.meta`);
+  return { name: nm, path, id, final, tags: readTags(sc, own(v, 'tags'), `${path}.tags`), outputs, on };
+}
+
+/** The root's `id`, `type`, `context`, `meta` and `description`; returns the xstate machine id. */
+function readRootFields(sc: Scan, root: Obj): string {
+  const where = 'the machine root';
   const idv = own(root, 'id');
   if (idv !== undefined && typeof idv !== 'string')
-    report('LW501', `the machine id should be a string, not ${describe(idv)}`, '$.id');
-  const rootId = typeof idv === 'string' && idv !== '' ? idv : '(machine)';
+    sc.report('LW501', `the machine id should be a string, not ${describe(idv)}`, '$.id');
   const type = own(root, 'type');
-  if (type === 'parallel') feature('parallel', 'the machine root', '$.type');
+  if (type === 'parallel') sc.feature('parallel', where, '$.type');
   else if (type !== undefined && type !== 'compound')
-    report('LW501', `the machine's type should be "compound" (or absent), not ${describe(type)}`, '$.type');
-  const context = own(root, 'context');
-  if (!isBlank(context)) feature('context', 'the machine root', '$.context');
+    sc.report('LW501', `the machine's type should be "compound" (or absent), not ${describe(type)}`, '$.type');
+  if (!isBlank(own(root, 'context'))) sc.feature('context', where, '$.context');
   const meta = own(root, 'meta');
-  if (isObj(meta) && has(meta, 'outputs')) feature('rootOutputs', 'the machine root', '$.meta.outputs');
+  if (isObj(meta) && has(meta, 'outputs')) sc.feature('rootOutputs', where, '$.meta.outputs');
   const desc = own(root, 'description');
   if (desc !== undefined && typeof desc !== 'string')
-    report('LW501', `description should be a string, not ${describe(desc)}`, '$.description');
+    sc.report('LW501', `description should be a string, not ${describe(desc)}`, '$.description');
+  return typeof idv === 'string' && idv !== '' ? idv : '(machine)';
+}
 
-  let initial: string | undefined;
+/** The root's `initial`: a state name, or a transition object with a target. */
+function readInitial(sc: Scan, root: Obj): string | undefined {
   const iv = own(root, 'initial');
-  if (typeof iv === 'string') initial = iv;
-  else if (isObj(iv) && typeof own(iv, 'target') === 'string') {
-    initial = own(iv, 'target') as string;
-    if (!isBlank(own(iv, 'actions'))) feature('actions', 'the initial transition', '$.initial.actions');
-  } else if (iv === undefined)
-    report('LW501', `the machine has no 'initial' state`, '$', 'add "initial": "<state name>"');
-  else report('LW501', `'initial' should be a state name, not ${describe(iv)}`, '$.initial');
-
-  for (const k of Object.keys(root)) {
-    if (ROOT_KEYS.includes(k)) continue;
-    if (has(NODE_FEATURES, k)) {
-      if (!isBlank(root[k])) feature(NODE_FEATURES[k], 'the machine root', jsonKey('$', k));
-    } else unknown(root, k, '$', ROOT_KEYS);
+  if (typeof iv === 'string') return iv;
+  if (isObj(iv)) {
+    const target = own(iv, 'target');
+    if (typeof target === 'string') {
+      if (!isBlank(own(iv, 'actions'))) sc.feature('actions', 'the initial transition', '$.initial.actions');
+      return target;
+    }
   }
+  if (iv === undefined) sc.report('LW501', `the machine has no 'initial' state`, '$', 'add "initial": "<state name>"');
+  else sc.report('LW501', `'initial' should be a state name, not ${describe(iv)}`, '$.initial');
+  return undefined;
+}
 
+/** The root's `states`, in order; states with unusable names are left out (reported). */
+function readStates(sc: Scan, root: Obj, rootId: string): RawState[] {
   const statesV = own(root, 'states');
   const states: RawState[] = [];
   if (!isObj(statesV)) {
-    report(
+    sc.report(
       'LW501',
       statesV === undefined ? `the machine has no 'states'` : `'states' should be an object, not ${describe(statesV)}`,
       statesV === undefined ? '$' : '$.states',
       'add "states": { "<name>": { "on": { … } } }',
     );
-  } else {
-    if (Object.keys(statesV).length === 0)
-      report('LW300', 'the machine has no states', '$.states', 'declare at least one state');
-    for (const nm of Object.keys(statesV)) {
-      const sp = jsonKey('$.states', nm);
-      if (!name(nm, 'state', sp)) continue;
-      const s = state(nm, statesV[nm], sp, rootId);
-      if (s) states.push(s);
-    }
+    return states;
   }
-  // xstate keeps one node per id; two nodes with one id would make `#id` targets ambiguous.
+  if (Object.keys(statesV).length === 0)
+    sc.report('LW300', 'the machine has no states', '$.states', 'declare at least one state');
+  for (const nm of Object.keys(statesV)) {
+    const sp = jsonKey('$.states', nm);
+    if (!sc.name(nm, 'state', sp)) continue;
+    const s = readState(sc, nm, statesV[nm], sp, rootId);
+    if (s) states.push(s);
+  }
+  return states;
+}
+
+/** xstate keeps one node per id; two nodes with one id would make `#id` targets ambiguous. */
+function checkIds(sc: Scan, states: readonly RawState[], rootId: string): void {
   const seen = new Map<string, string>([[rootId, '$']]);
   for (const s of states) {
     const first = seen.get(s.id);
-    if (first !== undefined)
-      report(
-        'LW501',
-        `state '${s.name}' has the id '${s.id}', already used at ${first}`,
-        `${s.path}.id`,
-        'give every state its own id',
-      );
-    else seen.set(s.id, s.path);
+    if (first !== undefined) {
+      const msg = `state '${s.name}' has the id '${s.id}', already used at ${first}`;
+      sc.report('LW501', msg, `${s.path}.id`, 'give every state its own id');
+    } else seen.set(s.id, s.path);
   }
+}
 
-  const rootOn = onBlock(own(root, 'on'), '$.on', 'the machine root');
+/** Read and check a configuration; `raw` is present when the root is an object at all. */
+export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; diagnostics: Diagnostic[] } {
+  const sc = new Scan(file);
+  if (!isObj(value)) {
+    const msg = `an xstate configuration is an object, not ${describe(value)}`;
+    sc.report('LW501', msg, '$', 'it needs "initial" and "states"');
+    return { diagnostics: sc.ds };
+  }
+  const root = value;
+  const rootId = readRootFields(sc, root);
+  const initial = readInitial(sc, root);
+  for (const k of Object.keys(root)) {
+    if (ROOT_KEYS.includes(k)) continue;
+    if (has(NODE_FEATURES, k)) {
+      if (!isBlank(root[k])) sc.feature(NODE_FEATURES[k], 'the machine root', jsonKey('$', k));
+    } else sc.unknown(k, '$', ROOT_KEYS);
+  }
+  const states = readStates(sc, root, rootId);
+  checkIds(sc, states, rootId);
+
+  const rootOn = readOn(sc, own(root, 'on'), '$.on', 'the machine root');
+  const idv = own(root, 'id');
+  const desc = own(root, 'description');
   const raw: RawConfig = {
     rootId,
     name: typeof idv === 'string' && idv !== '' ? machineName(idv) : 'machine',
@@ -364,7 +397,7 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
     ...(initial !== undefined ? { initial } : {}),
     states,
     rootOn,
-    rootTags: tags(own(root, 'tags'), '$.tags'),
+    rootTags: readTags(sc, own(root, 'tags'), '$.tags'),
   };
-  return { raw, diagnostics: ds };
+  return { raw, diagnostics: sc.ds };
 }

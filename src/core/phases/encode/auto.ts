@@ -76,10 +76,8 @@ const MAX_EXHAUSTIVE = 20_000;
 /** Annealing restarts: one per this many evaluations, between 1 and 4 (short restarts from random starts did worse than one long run). */
 const EVALUATIONS_PER_RESTART = 1000;
 
-/** The automatic search; pins are honoured and fix the code length. */
-export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResult & { report?: AutoReport } {
-  const n = f.states.length;
-  const bits = pins.bits ?? bitsFor(n);
+/** LW701 when the code length cannot be searched: too short for the states, or longer than the search handles. */
+function lengthProblem(n: number, bits: number): StrategyResult | undefined {
   if (2 ** bits < n) {
     return {
       diagnostics: [
@@ -104,6 +102,53 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
       ],
     };
   }
+  return undefined;
+}
+
+/** The search space at the main code length: the states still to place and the pinned codes. */
+interface Space {
+  readonly n: number;
+  readonly bits: number;
+  readonly slots: readonly number[];
+  readonly pinned: ReadonlyMap<number, number>;
+  readonly pinCount: number;
+}
+
+/**
+ * Steps 2 and 3: every class at the main length (then one bit more, when that is cheap too),
+ * or annealing when the classes did not fit the budget.
+ */
+function searchCodes(
+  book: CostBook,
+  space: Space,
+  classes: readonly number[][] | undefined,
+  o: AutoOptions,
+): { complete: boolean; extraBit: boolean } {
+  const { n, bits, slots, pinned } = space;
+  if (!classes) {
+    const best = book.best;
+    const start = best && best.bits === bits ? best.codes.map(codeToInt) : undefined;
+    const restarts = Math.min(4, Math.max(1, Math.floor(book.remaining() / EVALUATIONS_PER_RESTART)));
+    anneal(book, { n, bits, pinned, restarts, ...(start ? { start } : {}) }, seededRandom(o.seed), o.now, o.deadline);
+    return { complete: true, extraBit: false };
+  }
+  const complete = priceAll(book, classes, slots, pinned, n, bits);
+  if (complete && space.pinCount === 0 && n >= 2 && bits + 1 <= MAX_SYMMETRY_BITS && !book.exhausted()) {
+    const wider = listClasses(book, bits + 1, slots.length, pinned, Math.min(book.remaining(), MAX_EXHAUSTIVE));
+    if (wider) {
+      priceAll(book, wider, slots, pinned, n, bits + 1);
+      return { complete, extraBit: true };
+    }
+  }
+  return { complete, extraBit: false };
+}
+
+/** The automatic search; pins are honoured and fix the code length. */
+export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResult & { report?: AutoReport } {
+  const n = f.states.length;
+  const bits = pins.bits ?? bitsFor(n);
+  const problem = lengthProblem(n, bits);
+  if (problem) return problem;
   const timed = o.deadline !== undefined;
   const book = new CostBook({
     cost: o.cost,
@@ -140,44 +185,24 @@ export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResu
     if (book.evaluations > 0 && book.exhausted()) break;
     book.priceCodes(e.codes, e.bits);
   }
-
-  // 2. The main code length: every class if they fit, else annealing.
-  let extraBit = false;
-  let complete = true;
-  if (classes) {
-    complete = priceAll(book, classes, slots, pinned, n, bits);
-    // 3. One bit more, when that is cheap too.
-    if (complete && pins.codes.size === 0 && n >= 2 && bits + 1 <= MAX_SYMMETRY_BITS && !book.exhausted()) {
-      const wider = listClasses(book, bits + 1, slots.length, pinned, Math.min(book.remaining(), MAX_EXHAUSTIVE));
-      if (wider) {
-        extraBit = true;
-        priceAll(book, wider, slots, pinned, n, bits + 1);
-      }
-    }
-  } else {
-    const best = book.best;
-    const start = best && best.bits === bits ? best.codes.map(codeToInt) : undefined;
-    const restarts = Math.min(4, Math.max(1, Math.floor(book.remaining() / EVALUATIONS_PER_RESTART)));
-    anneal(book, { n, bits, pinned, restarts, ...(start ? { start } : {}) }, seededRandom(o.seed), o.now, o.deadline);
-  }
+  // 2. and 3.
+  const { complete, extraBit } = searchCodes(book, { n, bits, slots, pinned, pinCount: pins.codes.size }, classes, o);
 
   const best = book.best;
   if (!best)
     return {
       diagnostics: [diag('LW701', 'no encoding could be priced within the budget', {}, 'raise the evaluation budget')],
     };
-  return {
-    encoding: { strategy: 'auto', bits: best.bits, codes: best.codes },
-    diagnostics: [],
-    report: {
-      evaluations: book.evaluations,
-      method: classes ? 'exhaustive' : 'annealing',
-      complete,
-      ...(classes ? { classes: classes.length } : {}),
-      extraBit,
-      bestCost: best.cost,
-    },
+  const method = classes ? 'exhaustive' : 'annealing';
+  const report: AutoReport = {
+    evaluations: book.evaluations,
+    method,
+    complete,
+    ...(classes ? { classes: classes.length } : {}),
+    extraBit,
+    bestCost: best.cost,
   };
+  return { encoding: { strategy: 'auto', bits: best.bits, codes: best.codes }, diagnostics: [], report };
 }
 
 /** Every class of assignments at this length, or undefined when there are more than the budget allows. */

@@ -154,7 +154,10 @@ function checkOptions(o: EncodeOptions): Diagnostic[] {
 
 /** What is wrong with an encoding from a strategy function, if anything. */
 function malformed(f: FlatMachine, e: Encoding): string | undefined {
-  if (!e || !Array.isArray(e.codes) || !Number.isSafeInteger(e.bits) || e.bits < 0)
+  // A strategy function is the caller's code: its result is checked, not trusted. (The codes are
+  // tested through an unknown, so that Array.isArray does not widen e.codes to any[].)
+  const codes: unknown = e ? e.codes : undefined;
+  if (!e || !Array.isArray(codes) || !Number.isSafeInteger(e.bits) || e.bits < 0)
     return 'is not an encoding (strategy, bits, codes)';
   if (e.codes.length !== f.states.length) return `gives ${e.codes.length} codes for ${f.states.length} states`;
   const seen = new Map<string, number>();

@@ -92,6 +92,9 @@ export function splitFanout(netlist: Netlist, tooMany: (cord: Cord) => boolean):
 function make(driver: string, items: readonly Item[]): Cord {
   const ports: PortRef[] = [];
   const actuators: string[] = [];
-  for (const it of items) 'port' in it ? ports.push(it.port) : actuators.push(it.actuator);
+  for (const it of items) {
+    if ('port' in it) ports.push(it.port);
+    else actuators.push(it.actuator);
+  }
   return { id: cordId(driver), driver, ports, actuators };
 }

@@ -68,88 +68,124 @@ const EXPLORED_LIMIT = 100_000;
 
 /** Search for a smallest closed cover of compatibles holding the start state. */
 export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFAULT_COVER_BUDGET): CoverSearch {
-  const n = f.states.length;
-  const words = compat.words;
-  let best: StateSet[] = Array.from({ length: n }, (_, s) => setOf(words, [s]));
-  const lowerBound = incompatibleClique(compat, Math.min(budget, 2_000_000));
-  let work = 0;
-  let aborted = false;
-  const impliedCache = new Map<string, StateSet[]>();
-  const commonCache = new WeakMap<StateSet, StateSet>();
-  const explored = new Set<string>();
-  const memberCache = new WeakMap<StateSet, number[]>();
+  return new CoverSearcher(f, compat, budget).run();
+}
+
+/** The branch and bound of closedCover, with its caches and its work count (see the module comment). */
+class CoverSearcher {
+  private readonly n: number;
+  private readonly words: number;
+  private readonly lowerBound: number;
+  private best: StateSet[];
+  private work = 0;
+  private aborted = false;
+  private readonly impliedCache = new Map<string, StateSet[]>();
+  private readonly commonCache = new WeakMap<StateSet, StateSet>();
+  private readonly explored = new Set<string>();
+  private readonly memberCache = new WeakMap<StateSet, number[]>();
+
+  constructor(
+    private readonly f: FlatMachine,
+    private readonly compat: Compatibility,
+    private readonly budget: number,
+  ) {
+    this.n = f.states.length;
+    this.words = compat.words;
+    this.best = Array.from({ length: this.n }, (_, s) => setOf(this.words, [s]));
+    this.lowerBound = incompatibleClique(compat, Math.min(budget, 2_000_000));
+  }
+
+  run(): CoverSearch {
+    const { n, lowerBound } = this;
+    if (n > 1 && lowerBound < n) {
+      const first = this.greedy();
+      if (first !== null && first.length < this.best.length) this.best = first;
+      this.work = 0;
+      this.search([], [setOf(this.words, [this.f.start])]);
+    }
+    const classes = [...this.best].sort(compareSets);
+    return { classes, exact: !this.aborted || classes.length <= lowerBound, lowerBound };
+  }
 
   /** Members of a set, cached: sets are never changed once made. */
-  const listOf = (set: StateSet): number[] => {
-    let l = memberCache.get(set);
+  private listOf(set: StateSet): number[] {
+    let l = this.memberCache.get(set);
     if (l === undefined) {
       l = members(set);
-      memberCache.set(set, l);
+      this.memberCache.set(set, l);
     }
     return l;
-  };
+  }
 
   /** a ⊆ b, testing a's members (classes and requirements are mostly small against the word count). */
-  const inside = (a: StateSet, b: StateSet): boolean => {
-    const l = listOf(a);
-    work += 1 + l.length;
+  private inside(a: StateSet, b: StateSet): boolean {
+    const l = this.listOf(a);
+    this.work += 1 + l.length;
     for (const m of l) if (!has(b, m)) return false;
     return true;
-  };
+  }
 
   /** Maximal implied sets of a class that the class itself does not hold. */
-  const impliedOf = (cls: StateSet): StateSet[] => {
+  private impliedOf(cls: StateSet): StateSet[] {
     const k = key(cls);
-    const hit = impliedCache.get(k);
+    const hit = this.impliedCache.get(k);
     if (hit) return hit;
     const list = members(cls);
-    const regions = classRegions(f, list);
-    work += regions.length * (list.length + words);
+    const regions = classRegions(this.f, list);
+    this.work += regions.length * (list.length + this.words);
     const sets = maximal(regions.map((r) => r.next).filter((d) => !isEmptySet(d) && !isSubset(d, cls)));
-    impliedCache.set(k, sets);
+    this.impliedCache.set(k, sets);
     return sets;
-  };
+  }
 
   /** The states compatible with every member of the class. */
-  const common = (cls: StateSet): StateSet => {
-    let c = commonCache.get(cls);
+  private common(cls: StateSet): StateSet {
+    let c = this.commonCache.get(cls);
     if (c === undefined) {
-      const list = listOf(cls);
-      work += list.length * words;
-      c = compat.compatibleWith[list[0]];
-      for (const m of list) c = intersection(c, compat.compatibleWith[m]);
-      commonCache.set(cls, c);
+      const list = this.listOf(cls);
+      const compatibleWith = this.compat.compatibleWith;
+      this.work += list.length * this.words;
+      c = compatibleWith[list[0]];
+      for (const m of list) c = intersection(c, compatibleWith[m]);
+      this.commonCache.set(cls, c);
     }
     return c;
-  };
+  }
 
   /** Can requirement d join class c? (d is compatible on its own: it is an implied set of a compatible.) */
-  const fits = (c: StateSet, d: StateSet): boolean => inside(d, common(c));
+  private fits(c: StateSet, d: StateSet): boolean {
+    return this.inside(d, this.common(c));
+  }
 
-  const openAfter = (classes: StateSet[], changed: StateSet, open: StateSet[]): StateSet[] => {
-    const kept = open.filter((d) => !inside(d, changed));
-    const added = maximal(impliedOf(changed).filter((d) => !classes.some((c) => inside(d, c))));
+  /** The open requirements once class `changed` has joined the family. */
+  private openAfter(classes: StateSet[], changed: StateSet, open: StateSet[]): StateSet[] {
+    const kept = open.filter((d) => !this.inside(d, changed));
+    const added = maximal(this.impliedOf(changed).filter((d) => !classes.some((c) => this.inside(d, c))));
     if (added.length === 0) return kept;
     // Both lists are free of inner duplicates. Old requirements inside a new one go (meeting the
     // new one meets them); then a new one inside a remaining old one goes.
-    const out = kept.filter((d) => !added.some((a) => inside(d, a)));
+    const out = kept.filter((d) => !added.some((a) => this.inside(d, a)));
     const survivors = out.length;
-    for (const a of added) if (!out.slice(0, survivors).some((d) => inside(a, d))) out.push(a);
-    return out.sort((a, b) => listOf(b).length - listOf(a).length);
-  };
+    for (const a of added) if (!out.slice(0, survivors).some((d) => this.inside(a, d))) out.push(a);
+    return out.sort((a, b) => this.listOf(b).length - this.listOf(a).length);
+  }
 
   /**
    * The requirement to branch on: fail-first (fewest classes it can join, then largest) among
    * the first `scan` open requirements (they come largest first), with the classes it can join
    * (best overlap first) and the requirements that can join none.
    */
-  const choose = (classes: StateSet[], open: StateSet[], scan: number) => {
+  private choose(
+    classes: StateSet[],
+    open: StateSet[],
+    scan: number,
+  ): { need: StateSet; options: number[]; forced: StateSet[] } {
     let pick = 0;
     let options: number[] | null = null;
     const forced: StateSet[] = [];
     for (let i = 0; i < Math.min(scan, open.length); i++) {
       const d = open[i];
-      const fitting = classes.flatMap((c, j) => (fits(c, d) ? [j] : []));
+      const fitting = classes.flatMap((c, j) => (this.fits(c, d) ? [j] : []));
       if (fitting.length === 0) forced.push(d);
       if (options === null || fitting.length < options.length) {
         pick = i;
@@ -161,77 +197,71 @@ export function closedCover(f: FlatMachine, compat: Compatibility, budget = DEFA
       (a, b) => overlapSize(classes[b], need) - overlapSize(classes[a], need) || a - b,
     );
     return { need, options: ordered, forced };
-  };
+  }
 
-  const grow = (classes: StateSet[], j: number, need: StateSet): StateSet[] => {
+  /** The family with `need` merged into class j (classes the grown one now holds are dropped). */
+  private grow(classes: StateSet[], j: number, need: StateSet): StateSet[] {
     const grown = union(classes[j], need);
-    const next = classes.filter((c, i) => i !== j && !inside(c, grown));
+    const next = classes.filter((c, i) => i !== j && !this.inside(c, grown));
     next.push(grown);
     return next;
-  };
+  }
 
-  const open1 = (classes: StateSet[], need: StateSet): StateSet[] => {
-    const next = classes.filter((c) => !inside(c, need));
+  /** The family with `need` as a class of its own. */
+  private open1(classes: StateSet[], need: StateSet): StateSet[] {
+    const next = classes.filter((c) => !this.inside(c, need));
     next.push(need);
     return next;
-  };
+  }
 
   /**
    * The greedy closed cover: one descent, never backtracking. Every step puts a requirement
    * into the family that no class held, and nothing it held is lost, so the descent ends; the
    * step cap only bounds pathological cases (then no greedy cover is offered).
    */
-  const greedy = (): StateSet[] | null => {
+  private greedy(): StateSet[] | null {
+    const n = this.n;
     let classes: StateSet[] = [];
-    let open = [setOf(words, [f.start])];
+    let open = [setOf(this.words, [this.f.start])];
     for (let step = 0; open.length > 0; step++) {
       if (step > 4 * n * n) return null;
-      const { need, options } = choose(classes, open, scanFor(classes));
-      classes = options.length > 0 ? grow(classes, options[0], need) : open1(classes, need);
+      const { need, options } = this.choose(classes, open, scanFor(classes));
+      classes = options.length > 0 ? this.grow(classes, options[0], need) : this.open1(classes, need);
       if (classes.length >= n) return null;
-      open = openAfter(classes, classes[classes.length - 1], open);
+      open = this.openAfter(classes, classes[classes.length - 1], open);
     }
     return classes;
-  };
+  }
 
-  const search = (classes: StateSet[], open: StateSet[]): void => {
-    if (aborted) return;
-    if (work > budget) {
-      aborted = true;
+  private search(classes: StateSet[], open: StateSet[]): void {
+    if (this.aborted) return;
+    if (this.work > this.budget) {
+      this.aborted = true;
       return;
     }
     if (open.length === 0) {
-      if (classes.length < best.length) best = classes;
+      if (classes.length < this.best.length) this.best = classes;
       return;
     }
-    if (explored.size < EXPLORED_LIMIT) {
-      work += classes.length * words;
+    if (this.explored.size < EXPLORED_LIMIT) {
+      this.work += classes.length * this.words;
       const family = classes.map(key).sort().join('|');
-      if (explored.has(family)) return;
-      explored.add(family);
+      if (this.explored.has(family)) return;
+      this.explored.add(family);
     }
-    const { need, options, forced } = choose(classes, open, scanFor(classes));
-    const bound = Math.max(lowerBound, classes.length + clashing(forced, fits));
-    if (bound >= best.length) return;
+    const { need, options, forced } = this.choose(classes, open, scanFor(classes));
+    const bound = Math.max(this.lowerBound, classes.length + clashing(forced, (c, d) => this.fits(c, d)));
+    if (bound >= this.best.length) return;
     for (const j of options) {
-      const next = grow(classes, j, need);
-      search(next, openAfter(next, next[next.length - 1], open));
-      if (best.length <= lowerBound || aborted) return;
+      const next = this.grow(classes, j, need);
+      this.search(next, this.openAfter(next, next[next.length - 1], open));
+      if (this.best.length <= this.lowerBound || this.aborted) return;
     }
-    if (classes.length + 1 < best.length) {
-      const next = open1(classes, need);
-      search(next, openAfter(next, need, open));
+    if (classes.length + 1 < this.best.length) {
+      const next = this.open1(classes, need);
+      this.search(next, this.openAfter(next, need, open));
     }
-  };
-
-  if (n > 1 && lowerBound < n) {
-    const first = greedy();
-    if (first !== null && first.length < best.length) best = first;
-    work = 0;
-    search([], [setOf(words, [f.start])]);
   }
-  const classes = [...best].sort(compareSets);
-  return { classes, exact: !aborted || classes.length <= lowerBound, lowerBound };
 }
 
 function scanFor(classes: readonly StateSet[]): number {

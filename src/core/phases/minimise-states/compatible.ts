@@ -95,11 +95,39 @@ function pairIndex(s: number, t: number): number {
   return s < t ? (t * (t - 1)) / 2 + s : (s * (s - 1)) / 2 + t;
 }
 
+/** Do two packed rows (word offsets a and b) differ on a position both care about? */
+function differ(val: Int32Array, care: Int32Array, a: number, b: number, words: number): boolean {
+  for (let w = 0; w < words; w++, a++, b++) if (((val[a] ^ val[b]) & care[a] & care[b]) !== 0) return true;
+  return false;
+}
+
+/**
+ * The pairs that pair {s, t} (index p) implies, each once and never p itself, into `implied`
+ * (its length is their count); false when an overlapping pair of rows clashes on an output.
+ */
+function impliedPairs(pk: PackedRows, s: number, t: number, p: number, implied: IntList): boolean {
+  const { start, inWords, outWords, next } = pk;
+  implied.length = 0;
+  for (let i = start[s]; i < start[s + 1]; i++)
+    for (let j = start[t]; j < start[t + 1]; j++) {
+      if (differ(pk.inVal, pk.inCare, i * inWords, j * inWords, inWords)) continue;
+      if (differ(pk.outVal, pk.outCare, i * outWords, j * outWords, outWords)) return false;
+      const x = next[i];
+      const y = next[j];
+      if (x === DONT_CARE || y === DONT_CARE || x === y) continue;
+      const q = pairIndex(x, y);
+      let known = q === p;
+      for (let k = 0; k < implied.length && !known; k++) known = implied.data[k] === q;
+      if (!known) implied.push(q);
+    }
+  return true;
+}
+
 /** The implication table, resolved: which pairs of states are compatible. */
 export function compatibility(f: FlatMachine): Compatibility {
   const n = f.states.length;
   const words = wordsFor(n);
-  const { start, inWords, outWords, inCare, inVal, outCare, outVal, next } = pack(f);
+  const packed = pack(f);
   const pairs = (n * (n - 1)) / 2;
   const bad = new Uint8Array(pairs);
   const queue = new IntList();
@@ -107,49 +135,17 @@ export function compatibility(f: FlatMachine): Compatibility {
   const head = new Int32Array(pairs).fill(-1);
   const nextEdge = new IntList();
   const edgePair = new IntList();
-  let implied = new Int32Array(64); // implied pairs of the current pair
+  const implied = new IntList(); // implied pairs of the current pair
   for (let t = 1; t < n; t++)
     for (let s = 0; s < t; s++) {
       const p = pairIndex(s, t);
-      let count = 0;
-      let clash = false;
-      scan: for (let i = start[s]; i < start[s + 1]; i++)
-        for (let j = start[t]; j < start[t + 1]; j++) {
-          let apart = false;
-          for (let w = 0, a = i * inWords, b = j * inWords; w < inWords; w++, a++, b++)
-            if (((inVal[a] ^ inVal[b]) & inCare[a] & inCare[b]) !== 0) {
-              apart = true;
-              break;
-            }
-          if (apart) continue;
-          for (let w = 0, a = i * outWords, b = j * outWords; w < outWords; w++, a++, b++)
-            if (((outVal[a] ^ outVal[b]) & outCare[a] & outCare[b]) !== 0) {
-              clash = true;
-              break scan;
-            }
-          const x = next[i];
-          const y = next[j];
-          if (x !== DONT_CARE && y !== DONT_CARE && x !== y) {
-            const q = pairIndex(x, y);
-            let known = q === p;
-            for (let k = 0; k < count && !known; k++) known = implied[k] === q;
-            if (!known) {
-              if (count === implied.length) {
-                const grown = new Int32Array(count * 2);
-                grown.set(implied);
-                implied = grown;
-              }
-              implied[count++] = q;
-            }
-          }
-        }
-      if (clash) {
+      if (!impliedPairs(packed, s, t, p, implied)) {
         bad[p] = 1;
         queue.push(p);
         continue;
       }
-      for (let k = 0; k < count; k++) {
-        const q = implied[k];
+      for (let k = 0; k < implied.length; k++) {
+        const q = implied.data[k];
         nextEdge.push(head[q]);
         head[q] = edgePair.length;
         edgePair.push(p);

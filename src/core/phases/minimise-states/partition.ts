@@ -25,9 +25,18 @@ import type { FlatMachine } from '../../model/flat.js';
 
 /** Block number per state; blocks numbered by their lowest member. */
 export function equivalenceBlocks(f: FlatMachine): Int32Array {
+  const r = new Refinement(f);
+  r.run();
+  // Renumber blocks in order of their lowest member.
+  const order = r.blocks.map((m, id) => ({ id, low: Math.min(...m) })).sort((a, b) => a.low - b.low);
+  const renumber = new Int32Array(r.blocks.length);
+  order.forEach((o, i) => (renumber[o.id] = i));
+  return r.blockOf.map((id) => renumber[id]);
+}
+
+/** The predecessors of each state, each listed once. */
+function predecessors(f: FlatMachine): number[][] {
   const n = f.states.length;
-  const width = f.inputs.length;
-  const outKey = f.rows.map((rs) => rs.map((r) => r.out.join('')));
   const pred: number[][] = Array.from({ length: n }, () => []);
   const stamp = new Int32Array(n).fill(-1);
   for (let s = 0; s < n; s++)
@@ -36,20 +45,49 @@ export function equivalenceBlocks(f: FlatMachine): Int32Array {
         stamp[r.next] = s;
         pred[r.next].push(s);
       }
+  return pred;
+}
 
-  const blockOf = new Int32Array(n);
-  const blocks: number[][] = [Array.from({ length: n }, (_, i) => i)];
+/** The blocks, the work queue of blocks to look at again, and the refinement steps. */
+class Refinement {
+  readonly blockOf: Int32Array;
+  readonly blocks: number[][];
+  private readonly width: number;
+  private readonly outKey: string[][];
+  private readonly pred: number[][];
   // Per block, the members whose successors moved since the block was last looked at.
-  const touched: number[][] = [[]];
-  const isTouched = new Uint8Array(n);
-  const queued: boolean[] = [true];
-  const queue: number[] = [0];
-  const wholeBlock: boolean[] = [true]; // block 0 starts unchecked as a whole
+  private readonly touched: number[][] = [[]];
+  private readonly isTouched: Uint8Array;
+  private readonly queued: boolean[] = [true];
+  private readonly queue: number[] = [0];
+  private readonly wholeBlock: boolean[] = [true]; // block 0 starts unchecked as a whole
 
-  const signature = (s: number): string => {
+  constructor(private readonly f: FlatMachine) {
+    const n = f.states.length;
+    this.width = f.inputs.length;
+    this.outKey = f.rows.map((rs) => rs.map((r) => r.out.join('')));
+    this.pred = predecessors(f);
+    this.blockOf = new Int32Array(n);
+    this.blocks = [Array.from({ length: n }, (_, i) => i)];
+    this.isTouched = new Uint8Array(n);
+  }
+
+  /** Look at queued blocks until none is left to split. */
+  run(): void {
+    for (let head = 0; head < this.queue.length; head++) {
+      const b = this.queue[head];
+      this.queued[b] = false;
+      const groups = this.groupsOf(b);
+      if (groups.length > 1) this.split(b, groups);
+    }
+  }
+
+  /** Per label "outputs → next block": its minterm count and, per input, how many of those have it at 1. */
+  private signature(s: number): string {
+    const width = this.width;
     const tally = new Map<string, number[]>();
-    f.rows[s].forEach((r, i) => {
-      const label = `${outKey[s][i]}>${blockOf[r.next]}`;
+    this.f.rows[s].forEach((r, i) => {
+      const label = `${this.outKey[s][i]}>${this.blockOf[r.next]}`;
       let t = tally.get(label);
       if (t === undefined) {
         t = new Array<number>(width + 1).fill(0);
@@ -69,40 +107,41 @@ export function equivalenceBlocks(f: FlatMachine): Int32Array {
       .sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0))
       .map(([l, t]) => `${l}:${t.join(',')}`)
       .join(';');
-  };
+  }
 
-  const sameFunction = (s: number, t: number): boolean => {
-    const rs = f.rows[s];
-    const rt = f.rows[t];
+  /** Do s and t agree on every overlapping pair of rows, under the current blocks? */
+  private sameFunction(s: number, t: number): boolean {
+    const rs = this.f.rows[s];
+    const rt = this.f.rows[t];
+    const { blockOf, outKey } = this;
     for (let i = 0; i < rs.length; i++)
       for (let j = 0; j < rt.length; j++) {
         if (!overlaps(rs[i].cube, rt[j].cube)) continue;
         if (blockOf[rs[i].next] !== blockOf[rt[j].next] || outKey[s][i] !== outKey[t][j]) return false;
       }
     return true;
-  };
+  }
 
-  for (let head = 0; head < queue.length; head++) {
-    const b = queue[head];
-    queued[b] = false;
-    const all = blocks[b];
+  /** The members of block b in groups of equivalent states (one group: no split). */
+  private groupsOf(b: number): number[][] {
+    const all = this.blocks[b];
     // Untouched members kept their labels, so they still agree with one another.
-    const check = wholeBlock[b] ? all : touched[b];
-    const settled = wholeBlock[b] ? [] : all.filter((s) => isTouched[s] === 0);
-    for (const s of touched[b]) isTouched[s] = 0;
-    wholeBlock[b] = false;
-    touched[b] = [];
+    const check = this.wholeBlock[b] ? all : this.touched[b];
+    const settled = this.wholeBlock[b] ? [] : all.filter((s) => this.isTouched[s] === 0);
+    for (const s of this.touched[b]) this.isTouched[s] = 0;
+    this.wholeBlock[b] = false;
+    this.touched[b] = [];
 
     const groups: number[][] = [];
     const bySig = new Map<string, number[]>();
     if (settled.length > 0) {
       groups.push(settled);
-      bySig.set(signature(settled[0]), [0]);
+      bySig.set(this.signature(settled[0]), [0]);
     }
     for (const s of check) {
-      const sig = signature(s);
+      const sig = this.signature(s);
       const candidates = bySig.get(sig);
-      const hit = candidates?.find((g) => sameFunction(s, groups[g][0]));
+      const hit = candidates?.find((g) => this.sameFunction(s, groups[g][0]));
       if (hit !== undefined) groups[hit].push(s);
       else {
         groups.push([s]);
@@ -110,42 +149,39 @@ export function equivalenceBlocks(f: FlatMachine): Int32Array {
         else bySig.set(sig, [groups.length - 1]);
       }
     }
-    if (groups.length <= 1) continue;
+    return groups;
+  }
 
+  /** Split block b: the largest group keeps its number, the others move; their predecessors are queued. */
+  private split(b: number, groups: readonly number[][]): void {
     let keep = 0;
     groups.forEach((g, i) => {
       if (g.length > groups[keep].length) keep = i;
     });
-    blocks[b] = groups[keep];
+    this.blocks[b] = groups[keep];
     const moved: number[] = [];
     groups.forEach((g, i) => {
       if (i === keep) return;
-      const id = blocks.length;
-      blocks.push(g);
-      touched.push([]);
-      queued.push(false);
-      wholeBlock.push(false);
+      const id = this.blocks.length;
+      this.blocks.push(g);
+      this.touched.push([]);
+      this.queued.push(false);
+      this.wholeBlock.push(false);
       for (const s of g) {
-        blockOf[s] = id;
+        this.blockOf[s] = id;
         moved.push(s);
       }
     });
     for (const s of moved)
-      for (const p of pred[s]) {
-        if (isTouched[p] === 1) continue;
-        const pb = blockOf[p];
-        isTouched[p] = 1;
-        touched[pb].push(p);
-        if (!queued[pb]) {
-          queued[pb] = true;
-          queue.push(pb);
+      for (const p of this.pred[s]) {
+        if (this.isTouched[p] === 1) continue;
+        const pb = this.blockOf[p];
+        this.isTouched[p] = 1;
+        this.touched[pb].push(p);
+        if (!this.queued[pb]) {
+          this.queued[pb] = true;
+          this.queue.push(pb);
         }
       }
   }
-
-  // Renumber blocks in order of their lowest member.
-  const order = blocks.map((m, id) => ({ id, low: Math.min(...m) })).sort((a, b) => a.low - b.low);
-  const renumber = new Int32Array(blocks.length);
-  order.forEach((o, i) => (renumber[o.id] = i));
-  return blockOf.map((id) => renumber[id]);
 }

@@ -47,7 +47,8 @@ export function xstateStepper(config: object, guards: Record<string, unknown>, o
     expect(actor.getSnapshot().status).not.toBe('error');
     const mealy = (taken[0]?.meta as OutputsMeta)?.outputs ?? {};
     const value = (o: string): OutBit => mealy[o] ?? moore[o] ?? (before.hasTag(o) ? 1 : 0);
-    return { state: String(actor.getSnapshot().value), outputs: outputs.map(value) };
+    const state = actor.getSnapshot().value; // a flat machine's state value is the state's name
+    return { state: typeof state === 'string' ? state : JSON.stringify(state), outputs: outputs.map(value) };
   };
 }
 

@@ -32,14 +32,12 @@ function orbitKey(codes: readonly string[]): string {
   return best;
 }
 
-const machineArb = fc
-  .integer({ min: 2, max: 6 })
-  .chain((n) =>
-    fc.array(fc.array(fc.integer({ min: 0, max: n - 1 }), { minLength: 4, maxLength: 4 }), {
-      minLength: n,
-      maxLength: n,
-    }),
-  );
+const machineArb = fc.integer({ min: 2, max: 6 }).chain((n) =>
+  fc.array(fc.array(fc.integer({ min: 0, max: n - 1 }), { minLength: 4, maxLength: 4 }), {
+    minLength: n,
+    maxLength: n,
+  }),
+);
 
 describe('core/phases/encode/auto', () => {
   it('finds the brute-force minimum of a synthetic cost on machines of 2–6 states (fast-check, seed 42)', () => {

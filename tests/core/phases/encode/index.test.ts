@@ -70,17 +70,15 @@ describe('core/phases/encode', () => {
   });
 
   it('every named strategy gives well-formed, repeatable codes on random machines (fast-check, seed 42)', () => {
-    const arb = fc
-      .integer({ min: 2, max: 12 })
-      .chain((n) =>
-        fc.tuple(
-          fc.array(fc.array(fc.integer({ min: 0, max: n - 1 }), { minLength: 2, maxLength: 2 }), {
-            minLength: n,
-            maxLength: n,
-          }),
-          fc.integer({ min: 0, max: n - 1 }),
-        ),
-      );
+    const arb = fc.integer({ min: 2, max: 12 }).chain((n) =>
+      fc.tuple(
+        fc.array(fc.array(fc.integer({ min: 0, max: n - 1 }), { minLength: 2, maxLength: 2 }), {
+          minLength: n,
+          maxLength: n,
+        }),
+        fc.integer({ min: 0, max: n - 1 }),
+      ),
+    );
     fc.assert(
       fc.property(arb, ([next, start]) => {
         const f = tableMachine('random', 1, next, start);

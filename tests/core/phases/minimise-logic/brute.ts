@@ -135,7 +135,7 @@ export function randomMintermFunction(rnd: Random, n: number, m: number, pOn: nu
 
 /** A random cube over n variables with exactly `lits` literals. */
 export function randomCube(rnd: Random, n: number, lits: number): string {
-  const a: string[] = Array(n).fill('-');
+  const a = new Array<string>(n).fill('-');
   const idx = [...Array(n).keys()];
   for (let i = 0; i < lits; i++) {
     const k = i + rnd.int(n - i);
