@@ -28,7 +28,7 @@ interface Report {
   netlist: { parts: Part[]; cords: { id: string; driver: string; ports: unknown[]; actuators: unknown[] }[] };
   checks: Check[];
   ok: boolean;
-  bom: { item: string; count: number }[];
+  bom: { item: string; kind: string; count: number }[];
   diagnostics: unknown[];
 }
 
@@ -100,8 +100,11 @@ describe('cli/commands/build --json', () => {
     // A master and a slave latch per state bit; one lever per input plus φ1, φ2 and reset.
     expect(parts.latches).toBe(2 * r.json.encoding.bits);
     expect(parts.levers).toBe(r.json.machine.inputs + 3);
-    // Every gate and every lever works its own capstan.
-    expect(parts.capstans).toBe(parts.gates + parts.levers);
+    // Every gate and lever whose output pulls a cord works its own capstan (DESIGN.md §3: a
+    // flag reads Z unbuffered, so a gate only a flag reads needs none); the BOM counts the same.
+    const driving = new Set(netlist.cords.map((c) => c.driver));
+    expect(parts.capstans).toBe(netlist.parts.filter((p) => p.kind !== 'latch' && driving.has(p.id)).length);
+    expect(r.json.bom.filter((b) => b.kind === 'capstan').reduce((n, b) => n + b.count, 0)).toBe(parts.capstans);
     // Each latch is two gates of the gate count.
     expect(netlist.parts.filter((p) => p.role === 'latch-set' || p.role === 'latch-reset')).toHaveLength(
       2 * parts.latches,

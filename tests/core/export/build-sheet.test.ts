@@ -13,6 +13,7 @@ import { example, exampleNames, xmlProblems } from './support.js';
 const SECTIONS = [
   'Machine',
   'Safety',
+  'Technology profile',
   'State table',
   'Set and reset equations',
   'Forbidden-input guard',

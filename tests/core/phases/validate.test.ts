@@ -150,7 +150,8 @@ describe('core/phases/validate', () => {
 
   it('does not call a constant-0 guard shadowed too (LW304 only)', () => {
     const v = validate(text(head + 'state s\n  when 0 go s\n  go s\n'));
-    expect(v.diagnostics.map((d) => d.code)).toEqual(['LW304']);
+    // LW307 too: the machine never sets its output.
+    expect(v.diagnostics.map((d) => d.code).filter((c) => c !== 'LW307')).toEqual(['LW304']);
   });
 
   it('locates JSON-form problems by JSON path', () => {
@@ -169,7 +170,10 @@ describe('core/phases/validate', () => {
     const w = validate(
       machineFromJson({ ...j, states: [{ name: 's', transitions: [{ to: 's' }, { when: 'a', to: 's' }] }] }).machine!,
     );
-    expect(w.diagnostics.map((d) => [d.code, d.location.path])).toEqual([['LW301', '$.states[0].transitions[1]']]);
+    expect(w.diagnostics.map((d) => [d.code, d.location.path])).toEqual([
+      ['LW301', '$.states[0].transitions[1]'],
+      ['LW307', '$.outputs[0]'],
+    ]);
   });
 
   it('refuses machines past the limits at once (LW400, LW401, LW402)', () => {
@@ -228,7 +232,7 @@ describe('core/phases/validate', () => {
       expect(v.flat, f).toBeDefined();
       expect(m.states.length, f).toBeGreaterThanOrEqual(1);
       expect(m.states.length, f).toBeLessThanOrEqual(8);
-      expect(m.inputs.length, f).toBeLessThanOrEqual(3);
+      expect(m.inputs.length, f).toBeLessThanOrEqual(4);
     }
   });
 

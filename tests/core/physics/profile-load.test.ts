@@ -27,7 +27,11 @@ describe('core/physics/profile-load', () => {
     expect(typeof sources).toBe('object');
     expect(values).toEqual(DEFAULT_PROFILE);
     expect(Object.keys(values)).toEqual(Object.keys(DEFAULT_PROFILE));
-    expect(loadProfile(defaultFile)).toEqual({ profile: DEFAULT_PROFILE, diagnostics: [] });
+    // Read as a file, it carries what it says of itself (for the build sheet) and nothing else.
+    expect(loadProfile(defaultFile)).toEqual({
+      profile: { ...DEFAULT_PROFILE, about: { description, sources } },
+      diagnostics: [],
+    });
   });
 
   it('gives every field of default.json a source, marking the design figures "common practice"', () => {
