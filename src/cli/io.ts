@@ -24,7 +24,8 @@ export interface OutputStreams {
 function quietWriter(stream: NodeJS.WritableStream): (s: string) => void {
   let closed = false;
   stream.on('error', (e: NodeJS.ErrnoException) => {
-    if (e.code !== 'EPIPE') throw e;
+    // After a broken pipe, a write already under way may still fail ("stream destroyed").
+    if (e.code !== 'EPIPE' && !closed) throw e;
     closed = true;
   });
   return (s) => {

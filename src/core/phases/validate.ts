@@ -19,7 +19,7 @@
  * Postconditions: `flat` is present exactly when no diagnostic is an error; every diagnostic
  * carries the location of the state, transition, guard or name it is about.
  */
-import { absorb, coverContains, isTautology, overlaps, type Cube } from '../model/cube.js';
+import { contains, coverContains, isTautology, overlaps, type Cube } from '../model/cube.js';
 import { diag, didYouMean, hasErrors, type Diagnostic } from '../model/diagnostics.js';
 import { DONT_CARE, flatten, type FlatMachine } from '../model/flat.js';
 import type { Machine, SourceLoc, State, Transition } from '../model/machine.js';
@@ -447,11 +447,12 @@ function unspecifiedNote(m: Machine, s: State, rest: readonly Cube[], never: rea
  * The cubes widened into the don't-care set (the `never` combinations), for shorter messages:
  * each cube drops every literal it can while it stays inside cubes ∪ dc (the expand step of
  * Espresso-II: R. K. Brayton et al., Logic Minimization Algorithms for VLSI Synthesis, 1984),
- * then cubes inside another one go (absorption). `!up & !full | !up & full & !empty` with
- * `never full & empty` becomes `!up`.
+ * then cubes inside another one go (absorption), in the order written. `!up & !full | !up &
+ * full & !empty` with `never full & empty` becomes `!up`; `!up | up & !full` becomes
+ * `!up | !full` with no constraint at all.
  */
 function expandWithin(cubes: readonly Cube[], dc: readonly Cube[], n: number): Cube[] {
-  if (dc.length === 0 || cubes.length > 64) return [...cubes];
+  if (cubes.length > 64) return [...cubes];
   const allowed = [...cubes, ...dc];
   const wide = cubes.map((c) => {
     let cur = c;
@@ -462,7 +463,9 @@ function expandWithin(cubes: readonly Cube[], dc: readonly Cube[], n: number): C
     }
     return cur;
   });
-  return absorb([...new Set(wide)]);
+  // Absorption in the order written: a cube goes when another one contains it.
+  const unique = [...new Set(wide)];
+  return unique.filter((c, i) => !unique.some((k, j) => j !== i && contains(k, c)));
 }
 
 /** Merge cubes that differ in one fixed position (x&y | x&!y → x), for shorter messages only. */
