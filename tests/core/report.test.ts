@@ -58,4 +58,8 @@ describe('core/report', () => {
     const cord = buildReport(b).bom.find((r) => r.kind === 'cord');
     expect(cord?.total).toBeCloseTo(b.placement.totalCordM, 3);
   });
+
+  it('carries the profile used: the shipped defaults say no more than that no value changed', () => {
+    expect(buildReport(built('examples/marble-bell.lw')).profile).toEqual({ changes: [] });
+  });
 });

@@ -15,6 +15,7 @@
 import type { Build } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
 import type { Placement } from '../phases/place/index.js';
+import { wrapsOf } from '../physics/capstan.js';
 import type { Profile } from '../physics/profile.js';
 import { CAUTIONS } from './build-sheet.js';
 import { toCsv, type CsvCell } from './csv.js';
@@ -77,6 +78,7 @@ function cordRows(build: Build, placement: Placement, profile: Profile): CutRow[
     const y = at.get(b.driver);
     return (x?.drum ?? 0) - (y?.drum ?? 0) || (x?.bay ?? 0) - (y?.bay ?? 0) || (a.cord < b.cord ? -1 : 1);
   });
+  const parts = new Map(build.netlist.parts.map((p) => [p.id, p]));
   const rows: CutRow[] = [];
   const d = Math.round(profile.frame.cordDiameterM * 1000 * 10) / 10;
   for (const c of order) {
@@ -87,7 +89,7 @@ function cordRows(build: Build, placement: Placement, profile: Profile): CutRow[
       count: 1,
       lengthM: cutMetres(c.trunkM),
       where: where(c.driver),
-      note: `hold lever down to the drum, ${profile.wraps} turns and a knot; capstan of ${words.get(c.driver) ?? c.driver}`,
+      note: `hold lever down to the drum, ${wrapsOf(parts.get(c.driver), profile)} turns and a knot; capstan of ${words.get(c.driver) ?? c.driver}`,
     });
     for (const b of c.branches) {
       const turns = [

@@ -18,6 +18,8 @@
  * Pure; every user-given name is escaped (svg.ts, escape.ts).
  */
 import type { Build } from '../model/build.js';
+import type { Part } from '../model/netlist.js';
+import { wrapsOf } from '../physics/capstan.js';
 import type { Placement, PlacedBayInfo, PlacedDrum } from '../phases/place/index.js';
 import type { Profile } from '../physics/profile.js';
 import type { BranchRoute, RoutePoint } from '../physics/routing.js';
@@ -169,7 +171,14 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile): 
       d.drum === placement.drums.length
         ? topLabelMm
         : sheet.Y(d.levelM + f.railAboveDrumM + LEVER_END_M) - 1 - (bayRowY(d.drum + 1) + 1.5);
-    body.push(...drumBody(sheet, d, placement, profile, { label, spaceMm, bayRowY: bayRowY(d.drum) }));
+    body.push(
+      ...drumBody(sheet, d, placement, profile, {
+        label,
+        spaceMm,
+        bayRowY: bayRowY(d.drum),
+        parts: build.netlist.parts,
+      }),
+    );
   }
   const rowUnder = (channelY: number): number =>
     sheet.Y(channelY) + sheet.laneStart + (count.get(channelY) ?? 0) * laneMm + FONT + 0.8;
@@ -240,7 +249,7 @@ function drumBody(
   d: PlacedDrum,
   placement: Placement,
   profile: Profile,
-  text: { label: (b: PlacedBayInfo) => string; spaceMm: number; bayRowY: number },
+  text: { label: (b: PlacedBayInfo) => string; spaceMm: number; bayRowY: number; parts: readonly Part[] },
 ): string[] {
   const { drum, levelM: level, lengthM } = d;
   const { label, spaceMm } = text;
@@ -249,12 +258,13 @@ function drumBody(
   const out: string[] = [`<g class="drum-${drum}">`];
   const bays = placement.bays.filter((b) => b.drum === drum);
   const drivers = new Set(placement.routing.cords.map((c) => c.driver));
+  const parts = new Map(text.parts.map((p) => [p.id, p]));
   const channelY = level - f.channelBelowDrumM;
   const railY = level + f.railAboveDrumM;
   out.push(rect(s.X(0), s.Y(level + r), lengthM * s.k, 2 * r * s.k, 'drum'));
   for (const b of bays) {
     if (drivers.has(b.part)) {
-      const w = profile.wraps * profile.wrapPitchM * s.k;
+      const w = wrapsOf(parts.get(b.part), profile) * profile.wrapPitchM * s.k;
       out.push(rect(s.X(b.xM) - w / 2, s.Y(level + r), w, 2 * r * s.k, 'wraps'));
     }
     out.push(line(s.X(b.leftM), s.Y(channelY), s.X(b.leftM), s.Y(railY + LEVER_END_M), 'bay'));

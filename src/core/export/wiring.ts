@@ -1,10 +1,11 @@
 /**
  * The wiring list: one row per cord branch (a cord tied to one port or actuator), with what
  * a builder needs to tie it and to know it will hold — the driver and the side of it the cord
- * leaves from, the target part and port, the routing allowance, the branch's load and the
- * driver's force margin (physics/drive.ts, the capstan equation). With a placement, also the
- * bays the branch runs between (drum·bay) and its cut length, and the routing, load and margin
- * are those of the branch as routed in the frame (physics/routing.ts).
+ * leaves from, the turns of its capstan on the drum, the target part and port (for an
+ * actuator, its load), the routing allowance, the branch's load and the driver's force margin
+ * (physics/drive.ts, the capstan equation). With a placement, also the bays the branch runs
+ * between (drum·bay) and its cut length, and the routing, load and margin are those of the
+ * branch as routed in the frame (physics/routing.ts).
  *
  * Order: by driver in stage order (stages.ts: levers first, flags last; netlist order within
  * a stage), then by target in the same order, then port name — so a builder works along the
@@ -15,7 +16,7 @@
 import { partIndex, type Netlist, type Part } from '../model/netlist.js';
 import type { Placement } from '../phases/place/index.js';
 import { branchKey, branchLoads, driveBudget } from '../physics/drive.js';
-import { routingFor } from '../physics/capstan.js';
+import { routingFor, wrapsOf } from '../physics/capstan.js';
 import type { Profile, RoutingLoss } from '../physics/profile.js';
 import { lossByBranch, type BranchRoute } from '../physics/routing.js';
 import { recordsToCsv } from './csv.js';
@@ -33,10 +34,12 @@ export interface WiringRow {
   readonly driverName: string;
   /** Which output: `capstan` of a lever or gate, `Q (set side)` or `Q̄ (reset side)` of a latch. */
   readonly driverSide: string;
+  /** Turns of the driver's capstan on the drum. */
+  readonly turns: number;
   /** The gate (or actuator) the branch is tied to. */
   readonly target: string;
   readonly targetName: string;
-  /** Port name on the target gate; empty for an actuator. */
+  /** Port name on the target gate; for an actuator, the load it lifts (`load 300 g`). */
   readonly port: string;
   /** Where the cord leaves and where it is tied, as drum·bay (empty without a placement). */
   readonly fromBay: string;
@@ -93,18 +96,22 @@ export function wiringRows(netlist: Netlist, profile: Profile, placement?: Place
     const r = routingFor(profile, c.id);
     const branches = (loads.get(c.driver) ?? []).filter((b) => b.cord === c.id);
     const targets = [
-      ...c.ports.map((p) => ({ part: p.part, port: p.port })),
-      ...c.actuators.map((a) => ({ part: a, port: '' })),
+      ...c.ports.map((p) => ({ part: p.part, port: p.port, key: `${p.part}.${p.port}` })),
+      ...c.actuators.map((a) => {
+        const x = parts.get(a);
+        return { part: a, port: x?.kind === 'actuator' ? `load ${num(x.loadG, 1)} g` : '', key: a };
+      }),
     ];
     targets.forEach((t, i) => {
       const b = branches[i];
-      const route = routes.get(branchKey(c.id, t.port === '' ? t.part : `${t.part}.${t.port}`));
+      const route = routes.get(branchKey(c.id, t.key));
       drafts.push({
         stage: STAGE_WORDS[stages.stage.get(c.driver) ?? 'lever'],
         cord: c.id,
         driver: ds.driver,
         driverName: ds.name,
         driverSide: ds.side,
+        turns: wrapsOf(d, profile),
         target: t.part,
         targetName: parts.get(t.part)?.name ?? '',
         port: t.port,
@@ -145,6 +152,7 @@ const HEADER: Readonly<Record<keyof WiringRow, string>> = {
   driver: 'driver',
   driverName: 'driver name',
   driverSide: 'driver side',
+  turns: 'turns',
   target: 'target',
   targetName: 'target name',
   port: 'port',

@@ -24,8 +24,8 @@
  * Pre: every driver and target of every cord has a bay in the layout. Post: one route per
  * branch, in netlist order (cords, then each cord's ports, then its actuators).
  */
-import type { Netlist } from '../model/netlist.js';
-import { routingFactor } from './capstan.js';
+import { partIndex, type Netlist } from '../model/netlist.js';
+import { routingFactor, wrapsOf } from './capstan.js';
 import { branchKey, type BranchLosses } from './drive.js';
 import type { Profile, RoutingLoss } from './profile.js';
 
@@ -135,10 +135,14 @@ export function route(netlist: Netlist, layout: FrameLayout, profile: Profile): 
   };
   const r = profile.drumRadiusM;
   const f = profile.frame;
-  const trunkM = Math.max(0, f.railAboveDrumM - r) + 2 * Math.PI * r * profile.wraps + f.knotAllowanceM;
+  const parts = partIndex(netlist);
+  // The hold end down to the drum, the capstan's own turns, a knot.
+  const trunkOf = (driver: string): number =>
+    Math.max(0, f.railAboveDrumM - r) + 2 * Math.PI * r * wrapsOf(parts.get(driver), profile) + f.knotAllowanceM;
   const cords: CordRoute[] = [];
   for (const c of netlist.cords) {
     const driver = at(c.driver, c.id);
+    const trunkM = trunkOf(c.driver);
     const targets = [
       ...c.ports.map((p) => ({ target: `${p.part}.${p.port}`, kind: 'port' as const, part: p.part, lever: p.port })),
       ...c.actuators.map((a) => ({ target: a, kind: 'actuator' as const, part: a, lever: 'exit' })),

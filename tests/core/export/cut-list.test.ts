@@ -23,6 +23,8 @@ interface Placed {
   bay?: number;
   xM?: number;
   levers?: { name: string; xM: number }[];
+  /** A gate's own turns on the drum, where it has them (else the frame's). */
+  wraps?: number;
 }
 interface NetDoc {
   frame: {
@@ -54,7 +56,7 @@ function piecesFromNetlist(doc: NetDoc): Map<string, number> {
       ...c.actuators.map((a) => ({ target: a, to: part.get(a), lever: 'exit', exit: true })),
     ];
     const leaves = ends.some((e) => e.to?.drum !== d.drum || e.to?.bay !== d.bay);
-    const trunk = Math.max(0, f.railAboveDrumM - r) + 2 * Math.PI * r * f.wraps + f.knotAllowanceM;
+    const trunk = Math.max(0, f.railAboveDrumM - r) + 2 * Math.PI * r * (d.wraps ?? f.wraps) + f.knotAllowanceM;
     out.set(`${c.id}|trunk`, trunk);
     let total = trunk;
     for (const e of ends) {
