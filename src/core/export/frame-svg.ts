@@ -299,6 +299,9 @@ function cordRuns(
 ): string[] {
   const out: string[] = ['<g class="cords">'];
   const turns = new Map<string, RoutePoint>();
+  /** Cords that leave the frame, by the row under which they are named. */
+  const exits = new Map<number, { x: number; words: string }[]>();
+  const bayOf = new Map(placement.bays.map((b) => [b.part, b.bay]));
   placement.routing.cords.forEach((c, i) => {
     const colour = PALETTE[i % PALETTE.length];
     out.push(`<g class="cord-run" stroke="${colour}"><title>${x(`cord ${c.cord}: cut ${m(c.cutM)}`)}</title>`);
@@ -327,23 +330,30 @@ function cordRuns(
         `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''}`)}</title></path>`,
       );
       if (exit) {
-        // Out of the frame: an arrow down to the bay numbers, and under them where it goes.
+        // Out of the frame: an arrow down to the bay numbers; under them, one line names where each goes.
         out.push(
           `<path d="M${r2(exit.x)},${r2(exit.y)} L${r2(exit.x)},${r2(exit.row - FONT - 0.4)}" class="cord" marker-end="url(#arrow)" />`,
         );
-        out.push(
-          svgText(
-            exit.x - 1,
-            exit.row + 3.4,
-            `↓ out of the frame to ${b.target}, ${m(profile.frame.actuatorRunM)}`,
-            'note',
-            'start',
-          ),
-        );
+        const row = exits.get(exit.row) ?? [];
+        row.push({ x: exit.x, words: `bay ${bayOf.get(b.part) ?? '?'} to ${b.target}` });
+        exits.set(exit.row, row);
       }
     }
     out.push('</g>');
   });
+  for (const [row, list] of exits) {
+    const words = list.map((e) => e.words).join(', ');
+    const first = Math.min(...list.map((e) => e.x));
+    out.push(
+      svgText(
+        first - 1,
+        row + 3.4,
+        `↓ out of the frame, ${m(profile.frame.actuatorRunM)} each: ${words}`,
+        'note',
+        'start',
+      ),
+    );
+  }
   const radius = profile.frame.turn === 'pulley' ? (profile.frame.pulleyDiameterM / 2) * s.k : 0.5;
   for (const p of turns.values())
     out.push(
