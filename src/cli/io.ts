@@ -10,10 +10,35 @@ export interface CliIo {
   readonly interactive: boolean;
 }
 
+/** Streams whose reader went away (`latchwright … | head`): nothing more is written to them. */
+const closed = new Set<NodeJS.WriteStream>();
+let watching = false;
+
+/**
+ * A reader that stops reading (EPIPE) ends our output there, quietly, as for any command in a
+ * pipe; without a listener Node would throw the stream's error with a stack trace.
+ */
+function watchStreams(): void {
+  if (watching) return;
+  watching = true;
+  for (const stream of [process.stdout, process.stderr]) {
+    stream.on('error', (e: NodeJS.ErrnoException) => {
+      closed.add(stream);
+      if (e.code !== 'EPIPE' && stream === process.stdout && !closed.has(process.stderr))
+        process.stderr.write(`latchwright: standard output failed (${e.code ?? e.message})\n`);
+    });
+  }
+}
+
+function write(stream: NodeJS.WriteStream, s: string): void {
+  if (!closed.has(stream)) stream.write(s);
+}
+
 export function nodeIo(): CliIo {
+  watchStreams();
   return {
-    out: (s) => void process.stdout.write(s),
-    err: (s) => void process.stderr.write(s),
+    out: (s) => write(process.stdout, s),
+    err: (s) => write(process.stderr, s),
     readText(path) {
       try {
         return { text: readFileSync(path, 'utf8') };

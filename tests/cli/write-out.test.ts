@@ -24,7 +24,7 @@ describe('cli/write-out', () => {
   it('creates a missing folder (and its parents) with the documents and the marker', () => {
     const dir = fresh();
     const r = writeBuildFolder(dir, docs('one'), { force: false });
-    expect(r).toEqual({ ok: true, files: ['build-sheet.html', 'wiring.csv'] });
+    expect(r).toEqual({ ok: true, files: ['build-sheet.html', 'wiring.csv'], notes: [] });
     expect(readdirSync(dir).sort()).toEqual([BUILD_MARKER, 'build-sheet.html', 'wiring.csv']);
     expect(readFileSync(join(dir, 'wiring.csv'), 'utf8')).toBe('step\r\none\r\n');
     expect(readFileSync(join(dir, BUILD_MARKER), 'utf8')).toContain('latchwright build');
@@ -69,7 +69,7 @@ describe('cli/write-out', () => {
     writeFileSync(join(dir, 'notes.txt'), 'mine');
     writeFileSync(join(dir, 'wiring.csv'), 'stale');
     const r = writeBuildFolder(dir, docs('one'), { force: true });
-    expect(r).toEqual({ ok: true, files: ['build-sheet.html', 'wiring.csv'] });
+    expect(r).toEqual({ ok: true, files: ['build-sheet.html', 'wiring.csv'], notes: [] });
     expect(readdirSync(dir).sort()).toEqual(['build-sheet.html', 'notes.txt', 'wiring.csv']);
     expect(readFileSync(join(dir, 'wiring.csv'), 'utf8')).toBe('step\r\none\r\n');
     expect(readFileSync(join(dir, 'notes.txt'), 'utf8')).toBe('mine');

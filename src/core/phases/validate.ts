@@ -19,11 +19,12 @@
 import { coverContains, isTautology, overlaps, type Cube } from '../model/cube.js';
 import { diag, didYouMean, hasErrors, type Diagnostic } from '../model/diagnostics.js';
 import { flatten, type FlatMachine } from '../model/flat.js';
+import { LIMITS } from '../model/limits.js';
 import type { Machine, SourceLoc, State, Transition } from '../model/machine.js';
 import { printCubes, printExpr } from '../forms/expr.js';
 
-/** The largest machine the tool takes. */
-export const LIMITS = { states: 4096, inputs: 32, outputs: 256 } as const;
+/** The largest machine the tool takes (defined in the model, so the readers can check it too). */
+export { LIMITS } from '../model/limits.js';
 
 /** Result of the validate phase. */
 export interface Validated {
