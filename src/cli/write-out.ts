@@ -179,9 +179,7 @@ class FolderWriter {
       const entries = this.entries(path);
       if (entries === undefined) continue;
       const stale = m
-        ? Number(m[1]) !== process.pid &&
-          !alive(Number(m[1])) &&
-          (entries.length === 0 || entries.includes(BUILD_MARKER))
+        ? !alive(Number(m[1])) && (entries.length === 0 || entries.includes(BUILD_MARKER))
         : now - st.mtimeMs > LEGACY_AGE_MS && entries.every((e) => ours.has(e));
       if (stale) this.remove(path, 'the temporary folder of an interrupted build,');
     }

@@ -164,6 +164,11 @@ export const DIAGNOSTIC_CODES = {
     cause: 'A guard or never expression nests parentheses and ! deeper than the tool reads (256 levels).',
     fix: 'Write the expression flatter: drop doubled ! and parentheses that group nothing.',
   },
+  LW405: {
+    severity: 'error',
+    cause: 'A name (of the machine, a state, an input or an output) is longer than the tool takes (128 characters).',
+    fix: 'Shorten the name.',
+  },
   LW500: {
     severity: 'error',
     cause:

@@ -4,3 +4,10 @@
  * keys of `states`) refuses it before reading the parts.
  */
 export const LIMITS = { states: 4096, inputs: 32, outputs: 256 } as const;
+
+/**
+ * The longest name (machine, state, input or output) the tool takes, in characters (LW405):
+ * longer than any label painted on a lever, and it keeps every report, document and message
+ * that repeats names a readable size.
+ */
+export const NAME_MAX = 128;
