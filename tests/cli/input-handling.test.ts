@@ -131,6 +131,23 @@ describe('cli: input handling', () => {
     }
   });
 
+  it('refuses JSON nested past 64 levels as LW406 at the bracket, whatever the file (a deep value once exhausted the stack)', async () => {
+    const deep = '['.repeat(100_000) + ']'.repeat(100_000);
+    const cases: [string[], Record<string, string>, string, number][] = [
+      [['check', 'm.json'], { 'm.json': `{"name": ${deep}}` }, 'm.json', 73],
+      [['build', MB, '--profile', 'p.json'], { 'p.json': `{"mu": ${deep}}` }, 'p.json', 71],
+      [['step', MB, '--inputs', 's.json'], { 's.json': `[{"marble": ${deep}}]` }, 's.json', 75],
+    ];
+    for (const [argv, files, file, column] of cases) {
+      const r = await runJson<{ diagnostics: Diag[] }>([...argv, '--json'], files);
+      expectNoStack(r);
+      expect(r.code).toBe(2);
+      expect(r.json.diagnostics).toEqual([
+        expect.objectContaining({ code: 'LW406', location: { file, line: 1, column } }),
+      ]);
+    }
+  });
+
   it('--json makes every failure JSON on standard output, with nothing on standard error', async () => {
     const failures: [string[], Record<string, string>][] = [
       [['check', 'missing.lw'], {}],

@@ -5,13 +5,19 @@
  * - a syntax error is LW100 at its line and column;
  * - a number too large to hold (`1e309`, which JSON.parse reads as Infinity) is LW107 at its
  *   line and column;
+ * - nesting past JSON_DEPTH_MAX levels is LW406 at the bracket that goes too deep: no file
+ *   the tool reads needs more than a few, and a value nested thousands deep would exhaust the
+ *   stack of whatever walks it later (a message that describes it, a copy);
  * - diagnostics about the value, which name JSON paths, get the line and column of the value
  *   the path names (of the nearest enclosing value when the path names a missing member).
  */
 import { diag, type Diagnostic } from '../model/diagnostics.js';
 import type { SourceLoc } from '../model/machine.js';
-import { pathPrefixes, scanJson } from './json-positions.js';
+import { pathPrefixes, scanJson, tooDeep } from './json-positions.js';
 import { locateJsonError } from './json-syntax.js';
+
+/** Deepest nesting of objects and lists a JSON file may have. */
+export const JSON_DEPTH_MAX = 64;
 
 export type JsonRead =
   | { readonly ok: true; readonly value: unknown; readonly text: string }
@@ -68,6 +74,19 @@ export function readJsonText(text: string, file?: string, what?: string): JsonRe
       ],
     };
   }
+  const deep = tooDeep(src, JSON_DEPTH_MAX);
+  if (deep >= 0)
+    return {
+      ok: false,
+      diagnostics: [
+        diag(
+          'LW406',
+          `${what === undefined ? 'the file' : what} nests objects and lists more than ${JSON_DEPTH_MAX} levels deep`,
+          at(file, positionOf(lineStarts(src), deep)),
+          'check the brackets near this position',
+        ),
+      ],
+    };
   // Only a long exponent or a very long number can overflow; skip the scan when there is none.
   if (/[eE]\+?\d{3}|\d{300}/.test(src)) {
     const { overflows } = scanJson(src, new Set());

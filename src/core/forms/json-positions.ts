@@ -72,8 +72,11 @@ class Scanner {
     return true;
   }
 
-  /** Read one value (a scalar, or the opening of an object or array); false at a dead end. */
-  value(): boolean {
+  /**
+   * Read one value: a scalar or an empty container ('value'), or the opening of a container
+   * whose first member is to be read next ('open'); 'stop' where the text stops being JSON.
+   */
+  value(): 'value' | 'open' | 'stop' {
     this.ws();
     const path = this.path();
     if (this.wanted === undefined || this.wanted.has(path)) this.offsets.set(path, this.i);
@@ -86,15 +89,15 @@ class Scanner {
       if (this.text[this.i] === (c === '{' ? '}' : ']')) {
         this.i++;
         this.stack.pop();
-        return true;
+        return 'value';
       }
-      return c === '[' || this.key(frame) ? this.value() : false;
+      return c === '[' || this.key(frame) ? 'open' : 'stop';
     }
     if (c === '"') this.i = this.stringEnd(this.i);
     else if (c === '-' || (c >= '0' && c <= '9')) this.number(path);
     else if (/[tfn]/.test(c ?? '')) this.i += c === 'f' ? 5 : 4;
-    else return false;
-    return true;
+    else return 'stop';
+    return 'value';
   }
 
   number(path: string): void {
@@ -127,8 +130,25 @@ class Scanner {
 /** Scan a JSON text; `wanted`: record only these paths (all when absent). */
 export function scanJson(text: string, wanted?: ReadonlySet<string>): JsonScan {
   const s = new Scanner(text, wanted);
-  while (s.value() && s.next());
+  for (;;) {
+    const read = s.value();
+    if (read === 'stop' || (read === 'value' && !s.next())) break;
+  }
   return { offsets: s.offsets, overflows: s.overflows };
+}
+
+/** Offset of the first `{` or `[` that opens level `max + 1` of nesting (strings skipped), or -1 when none does. */
+export function tooDeep(text: string, max: number): number {
+  let depth = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 0x22) {
+      for (i++; i < text.length && text.charCodeAt(i) !== 0x22; i++) if (text.charCodeAt(i) === 0x5c) i++;
+    } else if (c === 0x7b || c === 0x5b) {
+      if (++depth > max) return i;
+    } else if (c === 0x7d || c === 0x5d) depth--;
+  }
+  return -1;
 }
 
 /** Every path a diagnostic path may fall back to: itself, then each shorter path (cut before a '.' or '['). */

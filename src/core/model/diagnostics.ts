@@ -169,6 +169,12 @@ export const DIAGNOSTIC_CODES = {
     cause: 'A name (of the machine, a state, an input or an output) is longer than the tool takes (128 characters).',
     fix: 'Shorten the name.',
   },
+  LW406: {
+    severity: 'error',
+    cause:
+      'A JSON file (a machine, an xstate configuration, a profile or an input sequence) nests objects and lists deeper than the tool reads (64 levels); none of them needs more than a few.',
+    fix: 'Check the brackets near the reported position.',
+  },
   LW500: {
     severity: 'error',
     cause:
