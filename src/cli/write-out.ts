@@ -19,8 +19,10 @@
  *
  * Housekeeping: a run killed half-way (kill -9, a power cut) leaves its temporary folder
  * behind. Each build removes the leftovers of earlier runs into the same target: folders named
- * as ours (`DIR.tmp-<pid>-<random>`, with or without `.old`) whose process is gone and which are
- * empty or carry our marker; and, from versions that did not put the process id in the name,
+ * as ours (`DIR.tmp-<pid>-<random>`, with or without `.old`) whose process is gone and which
+ * carry our marker or hold nothing but files a build writes (a run stopped while deleting the
+ * earlier build has already deleted its marker); and, from versions that did not put the
+ * process id in the name,
  * `DIR.tmp-<6 characters>` folders untouched for ten minutes that hold nothing but files a
  * build writes.
  *
@@ -179,7 +181,7 @@ class FolderWriter {
       const entries = this.entries(path);
       if (entries === undefined) continue;
       const stale = m
-        ? !alive(Number(m[1])) && (entries.length === 0 || entries.includes(BUILD_MARKER))
+        ? !alive(Number(m[1])) && (entries.includes(BUILD_MARKER) || entries.every((e) => ours.has(e)))
         : now - st.mtimeMs > LEGACY_AGE_MS && entries.every((e) => ours.has(e));
       if (stale) this.remove(path, 'the temporary folder of an interrupted build,');
     }

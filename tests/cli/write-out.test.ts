@@ -128,6 +128,8 @@ describe('cli/write-out', () => {
     made(`out.tmp-${gone}-0a1b2c3d`, true, ['build-sheet.html']);
     made(`out.tmp-${gone}-11111111`, false);
     made(`out.tmp-${gone}-22222222.old`, true, ['wiring.csv']);
+    // An earlier build that was being deleted when the run stopped: its marker is gone already.
+    made(`out.tmp-${gone}-66666666.old`, false, ['build-sheet.html']);
     // Kept: a run still going (this process's parent is alive), a folder of someone else's, a
     // leftover of a live-looking run that holds foreign files, and another target's leftovers.
     made(`out.tmp-${process.ppid}-33333333`, true);
