@@ -10,35 +10,33 @@ export interface CliIo {
   readonly interactive: boolean;
 }
 
-/** Streams whose reader went away (`latchwright … | head`): nothing more is written to them. */
-const closed = new Set<NodeJS.WriteStream>();
-let watching = false;
+/** The two output streams nodeIo writes to (injectable for tests). */
+export interface OutputStreams {
+  readonly stdout: NodeJS.WritableStream;
+  readonly stderr: NodeJS.WritableStream;
+}
 
 /**
- * A reader that stops reading (EPIPE) ends our output there, quietly, as for any command in a
- * pipe; without a listener Node would throw the stream's error with a stack trace.
+ * A stream that stops quietly once its reader has gone (`latchwright build … | head -1`): the
+ * broken pipe (EPIPE) is the reader's choice, not a fault, so later writes are dropped and the
+ * command ends with the status its checks earned. Any other write error is thrown as before.
  */
-function watchStreams(): void {
-  if (watching) return;
-  watching = true;
-  for (const stream of [process.stdout, process.stderr]) {
-    stream.on('error', (e: NodeJS.ErrnoException) => {
-      closed.add(stream);
-      if (e.code !== 'EPIPE' && stream === process.stdout && !closed.has(process.stderr))
-        process.stderr.write(`latchwright: standard output failed (${e.code ?? e.message})\n`);
-    });
-  }
+function quietWriter(stream: NodeJS.WritableStream): (s: string) => void {
+  let closed = false;
+  stream.on('error', (e: NodeJS.ErrnoException) => {
+    // After a broken pipe, a write already under way may still fail ("stream destroyed").
+    if (e.code !== 'EPIPE' && !closed) throw e;
+    closed = true;
+  });
+  return (s) => {
+    if (!closed) stream.write(s);
+  };
 }
 
-function write(stream: NodeJS.WriteStream, s: string): void {
-  if (!closed.has(stream)) stream.write(s);
-}
-
-export function nodeIo(): CliIo {
-  watchStreams();
+export function nodeIo(streams: OutputStreams = process): CliIo {
   return {
-    out: (s) => write(process.stdout, s),
-    err: (s) => write(process.stderr, s),
+    out: quietWriter(streams.stdout),
+    err: quietWriter(streams.stderr),
     readText(path) {
       try {
         return { text: readFileSync(path, 'utf8') };

@@ -112,7 +112,7 @@ describe('cli: input handling', () => {
     expect(t.err).not.toContain('<input>');
   });
 
-  it('refuses a number too large to hold (1e309) as LW107 in machines, xstate configs, profiles and step files', async () => {
+  it('refuses a number too large to hold (1e309) as LW108 in machines, xstate configs, profiles and step files', async () => {
     const cases: [string[], Record<string, string>, string][] = [
       [['check', 'm.json'], { 'm.json': MB_JSON.replace('"name": "marble_bell"', '"name": 1e309') }, 'm.json'],
       [['check', 'x.json'], { 'x.json': MB_XSTATE.replace('"initial"', '"version": 2e400, "initial"') }, 'x.json'],
@@ -122,7 +122,7 @@ describe('cli: input handling', () => {
     for (const [argv, files, file] of cases) {
       const r = await runJson<{ ok: boolean; diagnostics: Diag[] }>([...argv, '--json'], files);
       expect(r.code, file).toBe(2);
-      const d = r.json.diagnostics.find((x) => x.code === 'LW107');
+      const d = r.json.diagnostics.find((x) => x.code === 'LW108');
       expect(d, r.out).toBeDefined();
       expect(d!.location).toMatchObject({ file });
       expect(d!.location.line).toBeGreaterThan(0);

@@ -20,6 +20,7 @@ const PROTO_MACHINE = `# every name here is a key of every JavaScript object
 machine constructor
 inputs __proto__, toString, valueOf
 outputs hasOwnProperty, isPrototypeOf, __defineGetter__
+load isPrototypeOf 250 g
 start constructor
 
 state constructor code 000 with hasOwnProperty=1

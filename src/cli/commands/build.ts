@@ -1,5 +1,5 @@
 /** `latchwright build FILE`: synthesise, check, and report (or write the build documents). */
-import { buildReport, type Built, type Diagnostic, equationTexts } from '../../core/index.js';
+import { buildReport, type Built, type Diagnostic, equationTexts, withoutCapstanWords } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import { buildFromArgs } from './build-common.js';
 import { EXIT } from '../exit.js';
@@ -22,9 +22,7 @@ export function runBuild(args: ParsedArgs, ctx: RunContext): number {
       return EXIT.badInput;
     }
     notes.push(...w.notes);
-    if (!ctx.json)
-      ctx.io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}
-`);
+    if (!ctx.json) ctx.io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);
   }
   ctx.show([...r.diagnostics, ...notes]);
   if (ctx.json) {
@@ -46,8 +44,9 @@ export function textReport(b: Built): string {
   lines.push(
     `encoding ${b.build.encoding.strategy}, ${b.build.encoding.bits} state bits: ${f.states.map((s, i) => `${s}=${b.build.encoding.codes[i] || '—'}`).join(' ')}`,
   );
+  const idle = withoutCapstanWords(b.build.netlist);
   lines.push(
-    `parts: ${p.latches} latches, ${p.gates} gates, ${p.levers} levers, ${p.capstans} capstans, ${p.weights} weights, ${p.cords} cords`,
+    `parts: ${p.latches} latches, ${p.gates} gates, ${p.levers} levers, ${p.capstans} capstans, ${p.weights} weights, ${p.cords} cords${idle ? ` (${idle})` : ''}`,
   );
   const g = b.build.guard;
   lines.push(

@@ -3,7 +3,7 @@
  * profile or a step input sequence:
  * - a UTF-8 byte order mark at the start is skipped (RFC 8259 §8.1 lets a reader ignore it);
  * - a syntax error is LW100 at its line and column;
- * - a number too large to hold (`1e309`, which JSON.parse reads as Infinity) is LW107 at its
+ * - a number too large to hold (`1e309`, which JSON.parse reads as Infinity) is LW108 at its
  *   line and column;
  * - nesting past JSON_DEPTH_MAX levels is LW406 at the bracket that goes too deep: no file
  *   the tool reads needs more than a few, and a value nested thousands deep would exhaust the
@@ -51,7 +51,7 @@ const at = (file: string | undefined, l: Omit<SourceLoc, 'file'>): SourceLoc =>
   file === undefined ? l : { file, ...l };
 
 /**
- * Parse a JSON file's text (BOM skipped); LW100 or LW107 with a line and column when it cannot
+ * Parse a JSON file's text (BOM skipped); LW100 or LW108 with a line and column when it cannot
  * be used. `what` names the file in the message ("the profile"), when given.
  */
 export function readJsonText(text: string, file?: string, what?: string): JsonRead {
@@ -96,7 +96,7 @@ export function readJsonText(text: string, file?: string, what?: string): JsonRe
         ok: false,
         diagnostics: overflows.map((o) =>
           diag(
-            'LW107',
+            'LW108',
             `the number ${o.text} is too large to hold (a JSON reader takes it for infinity)`,
             at(file, { ...positionOf(starts, o.offset), path: o.path }),
             'write a number of ordinary size',

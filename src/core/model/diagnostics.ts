@@ -67,6 +67,12 @@ export const DIAGNOSTIC_CODES = {
   LW107: {
     severity: 'error',
     cause:
+      'An output load is not a mass above 0 with its unit (text form: load NAME 300 g, or 0.3 kg; JSON form: "loadsG", a number of grams above 0), or an output is given two loads.',
+    fix: 'Write the mass the output lifts with its unit, for example load sluice 300 g; give each output one load.',
+  },
+  LW108: {
+    severity: 'error',
+    cause:
       'A number in a JSON file (a machine, an xstate configuration, a profile or an input sequence) is too large to hold (such as 1e309): JSON readers turn it into infinity.',
     fix: 'Write a number of ordinary size.',
   },
@@ -139,6 +145,17 @@ export const DIAGNOSTIC_CODES = {
     cause: 'The never constraints exclude every input combination.',
     fix: 'Check the never expressions.',
   },
+  LW306: {
+    severity: 'warning',
+    cause:
+      'A reachable state has no way out: no transition leads to another state, so once there the machine stays until the reset lever is pulled.',
+    fix: 'Add a transition out of it, or mark it final (text form: state NAME final; JSON form: "final": true) if the machine is meant to stop there.',
+  },
+  LW307: {
+    severity: 'warning',
+    cause: 'An output is never 1 (or never 0) in any reachable state or transition: its flag or actuator never moves.',
+    fix: 'Set it where it should change (with NAME=1 on a state or transition), or remove the output.',
+  },
   LW400: {
     severity: 'error',
     cause: 'The machine has more states than the tool handles (4096).',
@@ -200,6 +217,18 @@ export const DIAGNOSTIC_CODES = {
     severity: 'error',
     cause: 'A technology profile names a field that does not exist.',
     fix: 'Correct the field name.',
+  },
+  LW602: {
+    severity: 'warning',
+    cause:
+      'A technology profile value lies outside its plausible range: it is allowed, but is most likely a slip of units (millimetres given as metres, kilograms given as grams, milliseconds given as seconds).',
+    fix: 'Check the unit in the field name (G grams, M metres, S seconds); the hint names the likely slip and the value meant.',
+  },
+  LW603: {
+    severity: 'error',
+    cause:
+      'A cordRouting entry of the technology profile names a cord the build does not have, so its routing would be ignored.',
+    fix: 'Use a cord id of this build (netlist.json or the wiring list lists them, e.g. c.clk.phi1); the hint names the closest.',
   },
   LW700: {
     severity: 'error',

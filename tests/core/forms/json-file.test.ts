@@ -72,7 +72,7 @@ describe('core/forms/json-file', () => {
     ]);
     const big = readJsonText('[1,\n 1E+400, 1e308, "1e999"]', 'f.json');
     expect(big.ok ? [] : big.diagnostics).toEqual([
-      expect.objectContaining({ code: 'LW107', location: { file: 'f.json', line: 2, column: 2, path: '$[1]' } }),
+      expect.objectContaining({ code: 'LW108', location: { file: 'f.json', line: 2, column: 2, path: '$[1]' } }),
     ]);
     const nested = readJsonText(`{"a": ${'['.repeat(70)}${']'.repeat(70)}}`, 'f.json');
     expect(nested.ok ? [] : nested.diagnostics.map((d) => [d.code, d.location.column])).toEqual([['LW406', 70]]);

@@ -165,19 +165,41 @@ describe('core/forms/json', () => {
     expect(parseJsonMachine(text.replace('a |', 'a')).diagnostics).toEqual([]);
   });
 
-  it('refuses a number too large to hold (1e309 reads as infinity) as LW107 at its line and column', () => {
+  it('refuses a number too large to hold (1e309 reads as infinity) as LW108 at its line and column', () => {
     const r = parseJsonMachine('{"name": "m",\n "states": [{"name": "s", "code": 1e309}]}', 'f.json');
     expect(r.machine).toBeUndefined();
     expect(r.diagnostics).toEqual([
       expect.objectContaining({
-        code: 'LW107',
+        code: 'LW108',
         location: { file: 'f.json', line: 2, column: 35, path: '$.states[0].code' },
       }),
     ]);
     expect(r.diagnostics[0].message).toContain('1e309');
     // Large but finite numbers and tiny ones are ordinary values (reported, if at all, for their type).
-    expect(parseJsonMachine('{"name": 1e308}').diagnostics.map((d) => d.code)).not.toContain('LW107');
-    expect(parseJsonMachine('{"name": 1e-400}').diagnostics.map((d) => d.code)).not.toContain('LW107');
+    expect(parseJsonMachine('{"name": 1e308}').diagnostics.map((d) => d.code)).not.toContain('LW108');
+    expect(parseJsonMachine('{"name": 1e-400}').diagnostics.map((d) => d.code)).not.toContain('LW108');
+  });
+
+  it('reads loadsG (grams above 0) and final, naming a bad load by its path (LW107)', () => {
+    const r = parseJsonMachine(tiny({ loadsG: { z: 300 } }, { final: true }), 'm.json');
+    expect(r.diagnostics).toEqual([]);
+    expect(r.machine?.loadsG).toEqual({ z: 300 });
+    expect(r.machine?.partLocs?.['load:z']).toEqual({ file: 'm.json', path: '$.loadsG.z' });
+    expect(r.machine?.states[0].final).toBe(true);
+    expect(machineToJson(r.machine!)).toMatchObject({ loadsG: { z: 300 }, states: [{ final: true }] });
+    const bad = parseJsonMachine(tiny({ loadsG: { z: '300 g', y: -1, w: 0 } }), 'm.json');
+    expect(bad.machine).toBeUndefined();
+    expect(bad.diagnostics.map((d) => [d.code, d.location.path])).toEqual([
+      ['LW107', '$.loadsG.z'],
+      ['LW107', '$.loadsG.y'],
+      ['LW107', '$.loadsG.w'],
+    ]);
+    expect(bad.diagnostics[0].hint).toBe('write the grams as a number: "z": 300');
+    expect(parseJsonMachine(tiny({ loadsG: [300] })).diagnostics[0]).toMatchObject({
+      code: 'LW103',
+      location: { path: '$.loadsG' },
+    });
+    expect(parseJsonMachine(tiny({}, { final: 'yes' })).diagnostics[0]).toMatchObject({ code: 'LW103' });
   });
 
   it('still gives a machine when only warnings were found', () => {
