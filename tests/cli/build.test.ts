@@ -346,7 +346,7 @@ describe('cli/commands/build with a profile that slips a unit or names no cord',
     );
     const t = await run(['build', MB, '--encoding', 'binary', '--profile', p]);
     expect(t.code).toBe(2);
-    expect(t.err).toContain(`${p} $.cordRouting["c.phi1"]: error LW603:`);
+    expect(t.err).toContain(`${p}:1:26 $.cordRouting["c.phi1"]: error LW603:`);
     expect(t.err).toContain("did you mean 'c.clk.phi1'?");
     expectNoStack(t);
   });
@@ -401,10 +401,10 @@ describe('cli/commands/build: the frame', () => {
     expect(JSON.stringify(two.json.diagnostics)).not.toMatch(/LW70[67]/);
   });
 
-  it('--pin on a part the build does not have: LW706 with a did-you-mean, exit 2', async () => {
+  it('--pin on a part the build does not have: LW707 with a did-you-mean, exit 2', async () => {
     const r = await run(['build', MB, '--encoding', 'binary', '--pin', 'o.bel.1=4']);
     expect(r.code).toBe(2);
-    expect(r.err).toContain('error LW706');
+    expect(r.err).toContain('error LW707');
     expect(r.err).toContain("did you mean 'o.bell.1'?");
     expectNoStack(r);
   });
@@ -416,10 +416,10 @@ describe('cli/commands/build: the frame', () => {
     expectNoStack(r);
   });
 
-  it('--pin past the end of the drum: a warning (LW707), and the build goes on', async () => {
+  it('--pin past the end of the drum: a warning (LW708), and the build goes on', async () => {
     const r = await run(['build', MB, '--encoding', 'binary', '--pin', 'o.bell.1=90']);
     expect(r.code).toBe(0);
-    expect(r.err).toContain('warning LW707');
+    expect(r.err).toContain('warning LW708');
   });
 
   it('--help explains --pin', async () => {

@@ -1,7 +1,7 @@
 /**
  * The place phase in the pipeline (src/core/pipeline.ts): the build comes back placed, pins are
- * kept, and pin problems come back as coded diagnostics — LW706 (an error: the pin is wrong
- * whatever the build) and LW707 (a warning: this build could not keep it).
+ * kept, and pin problems come back as coded diagnostics — LW707 (an error: the pin is wrong
+ * whatever the build) and LW708 (a warning: this build could not keep it).
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
@@ -38,18 +38,18 @@ describe('core/pipeline (place)', () => {
     const at = new Map(b.placement.bays.map((x) => [x.part, x]));
     expect([at.get('m1.set')?.bay, at.get('m1.reset')?.bay]).toEqual([9, 10]);
     expect([at.get('o.bell.1')?.drum, at.get('o.bell.1')?.bay]).toEqual([2, 2]);
-    expect(b.diagnostics.filter((d) => d.code === 'LW706' || d.code === 'LW707')).toEqual([]);
+    expect(b.diagnostics.filter((d) => d.code === 'LW707' || d.code === 'LW708')).toEqual([]);
     expect(findCheck(b.checks, 'layout')?.ok).toBe(true);
   });
 
-  it('rejects a pin on a part the build does not have, with a did-you-mean (LW706)', () => {
+  it('rejects a pin on a part the build does not have, with a did-you-mean (LW707)', () => {
     const b = buildMachine(bell(), { encoding: 'binary', pins: { 't.S0.l': { bay: 3 } } });
     expect(b.ok).toBe(false);
-    const d = b.diagnostics.find((x) => x.code === 'LW706');
+    const d = b.diagnostics.find((x) => x.code === 'LW707');
     expect(d).toMatchObject({ severity: 'error', location: { path: '--pin t.S0.l' }, hint: "did you mean 't.S0.1'?" });
   });
 
-  it('rejects a pin on a flag, on a drum the frame does not carry, or on a bay another pin holds (LW706)', () => {
+  it('rejects a pin on a flag, on a drum the frame does not carry, or on a bay another pin holds (LW707)', () => {
     const cases: Record<string, Pin>[] = [
       { 'flag.bell': { bay: 2 } },
       { 'tr0.set': { bay: 1, drum: 3 } },
@@ -58,14 +58,14 @@ describe('core/pipeline (place)', () => {
     for (const pins of cases) {
       const b = buildMachine(bell(), { encoding: 'binary', pins, checks: false });
       expect(b.ok, JSON.stringify(pins)).toBe(false);
-      expect(b.diagnostics.map((x) => x.code)).toContain('LW706');
+      expect(b.diagnostics.map((x) => x.code)).toContain('LW707');
     }
   });
 
-  it('builds, with a warning, when this build cannot keep a pin (LW707): a bay past the end of the drum', () => {
+  it('builds, with a warning, when this build cannot keep a pin (LW708): a bay past the end of the drum', () => {
     const b = buildMachine(bell(), { encoding: 'binary', pins: { 'o.bell.1': { bay: 200 } } });
     expect(b.ok).toBe(true);
-    const d = b.diagnostics.find((x) => x.code === 'LW707');
+    const d = b.diagnostics.find((x) => x.code === 'LW708');
     expect(d?.severity).toBe('warning');
     expect(d?.message).toMatch(/pinned to bay 200 of drum 1, which has \d+ bays/);
     if (b.ok) expect(b.placement.pinned).toEqual([]);

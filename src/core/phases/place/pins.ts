@@ -195,14 +195,14 @@ function inRange(
   return { pins, problems };
 }
 
-/** Pin problems as diagnostics: LW706 for a pin that is wrong whatever the build, LW707 for one this build could not keep. */
+/** Pin problems as diagnostics: LW707 for a pin that is wrong whatever the build, LW708 for one this build could not keep. */
 export function pinDiagnostics(problems: readonly PlacementProblem[]): Diagnostic[] {
   const out: Diagnostic[] = [];
   for (const p of problems) {
     if (p.kind === 'pin-unmet' || p.kind === 'pin-beyond-drum')
-      out.push(diag('LW707', p.message, { path: `--pin ${p.part}` }, p.hint));
+      out.push(diag('LW708', p.message, { path: `--pin ${p.part}` }, p.hint));
     else if (p.kind.startsWith('pin-') && 'part' in p)
-      out.push(diag('LW706', p.message, { path: `--pin ${p.part}` }, p.hint));
+      out.push(diag('LW707', p.message, { path: `--pin ${p.part}` }, p.hint));
   }
   return out;
 }
