@@ -5,8 +5,10 @@
  *
  * Geometry: every position and length comes from the placement and its routing (phases/place,
  * physics/routing.ts) and the profile's frame fields; one scale (1:s, the smallest of the usual
- * drawing scales that fits the longest drum into MAX_WIDTH_MM) maps metres to millimetres on
- * paper, and the SVG's width and height are in millimetres, so a print at 100 % is to scale.
+ * drawing scales that fits the longest drum into MAX_WIDTH_MM and the stack of drums, channel
+ * to lever ends, into MAX_HEIGHT_MM) maps metres to millimetres on paper, and the SVG's width
+ * and height are in millimetres, so a print at 100 % is to scale; the title names the smallest
+ * ISO 216 sheet that holds the whole drawing at that size.
  * Two drawing conventions, said on the drawing: runs along a cord channel, which all lie at
  * the channel's level, are drawn apart in lanes below it so each can be followed (lanes by the
  * left-edge algorithm: A. Hashimoto & J. Stevens, "Wire routing by optimizing channel
@@ -31,6 +33,16 @@ import { clip, round1 as r1, svgDocument, svgText } from './svg.js';
 const SCALES = [1, 2, 5, 10, 20, 25, 50, 100, 200, 500, 1000];
 /** Widest elevation on paper, mm (an A4 sheet in landscape holds 269 mm inside 14 mm margins). */
 export const MAX_WIDTH_MM = 250;
+/** Tallest elevation on paper, mm, from the lowest cord channel to the highest lever end (labels and key apart). */
+export const MAX_HEIGHT_MM = 200;
+/** ISO 216 A-series sheets, portrait width × height in mm. */
+const SHEETS: readonly (readonly [string, number, number])[] = [
+  ['A4', 210, 297],
+  ['A3', 297, 420],
+  ['A2', 420, 594],
+  ['A1', 594, 841],
+  ['A0', 841, 1189],
+];
 const MARGIN = 10;
 const FONT = 2.2;
 const GLYPH = 0.56;
@@ -39,9 +51,22 @@ const LEVER_END_M = 0.05;
 /** Okabe–Ito colours without the yellow, too pale on white. */
 const PALETTE = ['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69F00', '#56B4E9', '#000000'];
 
-/** The drawing scale 1:s for a frame `lengthM` long. */
-export function frameScale(lengthM: number): number {
-  return SCALES.find((s) => (lengthM * 1000) / s <= MAX_WIDTH_MM) ?? Math.ceil((lengthM * 1000) / MAX_WIDTH_MM);
+/** The drawing scale 1:s for a frame `lengthM` long and `heightM` high (lowest channel to highest lever end). */
+export function frameScale(lengthM: number, heightM = 0): number {
+  const fits = (s: number): boolean => (lengthM * 1000) / s <= MAX_WIDTH_MM && (heightM * 1000) / s <= MAX_HEIGHT_MM;
+  return (
+    SCALES.find(fits) ??
+    Math.max(Math.ceil((lengthM * 1000) / MAX_WIDTH_MM), Math.ceil((heightM * 1000) / MAX_HEIGHT_MM))
+  );
+}
+
+/** The smallest ISO 216 sheet that holds a drawing `w` × `h` mm at 100 %, and which way up ('' past A0): 'A3 sheet, portrait,'. */
+export function paperFor(w: number, h: number): string {
+  for (const [name, a, b] of SHEETS) {
+    if (w <= a && h <= b) return `${name} sheet, portrait,`;
+    if (w <= b && h <= a) return `${name} sheet, landscape,`;
+  }
+  return '';
 }
 
 /** A channel run of one branch and its lane. */
@@ -140,16 +165,16 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile): 
   const f = profile.frame;
   const words = partWords(build);
   const lengthM = Math.max(0.05, ...placement.drums.map((d) => d.lengthM));
-  const scale = frameScale(lengthM);
+  const top = placement.drums.length === 0 ? 0 : placement.drums[placement.drums.length - 1].levelM;
+  const worldTop = top + f.railAboveDrumM + LEVER_END_M;
+  const scale = frameScale(lengthM, worldTop + f.channelBelowDrumM);
   const k = 1000 / scale;
   const { lanes, count } = assignLanes(placement.routing.branches);
   const laneMm = Math.min(1.1, 22 / Math.max(1, ...count.values()));
-  const top = placement.drums.length === 0 ? 0 : placement.drums[placement.drums.length - 1].levelM;
   const label = (b: PlacedBayInfo): string => `${b.bay} · ${words.get(b.part) ?? b.part}`;
   const topBays = placement.bays.filter((b) => b.drum === placement.drums.length);
   const topLabelMm = Math.min(80, Math.max(10, ...topBays.map((b) => label(b).length * FONT * GLYPH))) + 2;
   const titleMm = 22;
-  const worldTop = top + f.railAboveDrumM + LEVER_END_M;
   const originY = MARGIN + titleMm + topLabelMm + worldTop * k;
   const sheet: Sheet = {
     k,
@@ -194,10 +219,16 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile): 
   body.push(...foot.items);
   const key = keyLines(build, placement, words, width, foot.bottom + 4);
   body.push(...key.items);
-  const head = titleBlock(build, placement, profile, { scale, lengthM, heightM: worldTop + f.channelBelowDrumM });
+  const height = key.bottom + MARGIN;
+  const head = titleBlock(build, placement, profile, {
+    scale,
+    lengthM,
+    heightM: worldTop + f.channelBelowDrumM,
+    paper: paperFor(width, height),
+  });
   return svgDocument(
     width,
-    key.bottom + MARGIN,
+    height,
     `Frame of ${build.machine.name}, scale 1:${scale}`,
     `Front elevation of the frame to scale 1:${scale}: ${placement.bays.length} bays on ${placement.drums.length} drum(s), every cord run, pulleys, dimensions and a key of the bays.`,
     STYLE,
@@ -211,7 +242,7 @@ function titleBlock(
   build: Build,
   placement: Placement,
   profile: Profile,
-  size: { scale: number; lengthM: number; heightM: number },
+  size: { scale: number; lengthM: number; heightM: number; paper: string },
 ): string[] {
   const f = profile.frame;
   const r = profile.drumRadiusM;
@@ -222,7 +253,7 @@ function titleBlock(
     svgText(
       MARGIN,
       MARGIN + 9,
-      `Front elevation: visitor end on the left, crank end (crank and cam shaft) on the right. Scale 1:${scale} when printed at 100 %.`,
+      `Front elevation: visitor end on the left, crank end (crank and cam shaft) on the right. Scale 1:${scale} when printed at 100 %${size.paper === '' ? '' : ` on an ${size.paper} or larger`}.`,
       'sub',
       'start',
     ),

@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { buildDocuments } from '../../../src/core/export/index.js';
-import { frameScale, frameSvg, MAX_WIDTH_MM } from '../../../src/core/export/frame-svg.js';
+import { frameScale, frameSvg, MAX_HEIGHT_MM, MAX_WIDTH_MM, paperFor } from '../../../src/core/export/frame-svg.js';
 import { partWords } from '../../../src/core/export/part-words.js';
 import { escapeXml } from '../../../src/core/export/escape.js';
 import { example, exampleNames, xmlProblems } from './support.js';
@@ -21,15 +21,22 @@ describe('core/export/frame-svg', () => {
       const root = /<svg [^>]*width="(\d+)mm" height="(\d+)mm" viewBox="0 0 (\d+) (\d+)"/.exec(svg);
       expect(root?.[1], name).toBe(root?.[3]);
       expect(root?.[2], name).toBe(root?.[4]);
-      const scale = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)));
-      expect(svg, name).toContain(`Scale 1:${scale} when printed at 100 %`);
+      const f = b.profile.frame;
+      const top = b.placement.drums[b.placement.drums.length - 1].levelM;
+      const heightM = top + f.railAboveDrumM + 0.05 + f.channelBelowDrumM;
+      const scale = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)), heightM);
+      expect((heightM * 1000) / scale, name).toBeLessThanOrEqual(MAX_HEIGHT_MM);
+      expect(svg, name).toContain(
+        `Scale 1:${scale} when printed at 100 % on an ${paperFor(+root![1], +root![2])} or larger`,
+      );
     }
   });
 
   it('draws each drum at its length to scale, and a scale bar of the length it says', () => {
     const b = example('crossing.lw');
     const svg = frameSvg(b.build, b.placement, b.profile);
-    const s = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)));
+    // Two drums 0.6 m apart: channel 0.12 m below drum 1, rail 0.2 m above drum 2, lever ends 0.05 m.
+    const s = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)), 0.97);
     expect(s).toBe(5); // 1.08 m at 1:5 is 216 mm, within MAX_WIDTH_MM
     expect((1.08 * 1000) / s).toBeLessThanOrEqual(MAX_WIDTH_MM);
     for (const d of b.placement.drums) {
@@ -63,6 +70,21 @@ describe('core/export/frame-svg', () => {
       expect(svg).toMatch(/crank end/);
       expect(svg).toMatch(/Caution/);
     }
+  });
+
+  it('picks a scale that keeps the stack of drums within MAX_HEIGHT_MM as well as the drum within MAX_WIDTH_MM', () => {
+    expect(frameScale(0.25, 0.37)).toBe(2); // 1:1 would be 370 mm tall
+    expect(frameScale(0.25, 0)).toBe(1);
+    expect(frameScale(1.2, 1.57)).toBe(10); // three drums
+    expect(frameScale(30, 0.37)).toBe(200); // a 30 m drum: its length alone asks for 1:200
+  });
+
+  it('names the smallest ISO 216 sheet that holds the drawing (A4 210 × 297 mm, A3 297 × 420, A2 420 × 594)', () => {
+    expect(paperFor(200, 290)).toBe('A4 sheet, portrait,');
+    expect(paperFor(280, 200)).toBe('A4 sheet, landscape,');
+    expect(paperFor(280, 299)).toBe('A3 sheet, portrait,');
+    expect(paperFor(253, 438)).toBe('A2 sheet, portrait,');
+    expect(paperFor(2000, 2000)).toBe('');
   });
 
   it('is the frame.svg of the build documents', () => {
