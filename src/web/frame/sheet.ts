@@ -1,8 +1,8 @@
 /**
  * The frame drawing made ready to print at its scale: frame.svg (the same document
  * `latchwright build --out` writes) alone on a page of the smallest ISO 216 sheet that holds
- * it whole, with the drawing at its own size in millimetres — never shrunk to fit — so a
- * print at 100 % measures true against its scale bar. Pure.
+ * it whole (the sheet its title names), with the drawing at its own size in millimetres —
+ * never shrunk to fit — so a print at 100 % measures true against its scale bar. Pure.
  */
 
 /** ISO 216 A sheets, portrait width × height in millimetres (ISO 216:2007). */
@@ -14,12 +14,6 @@ export const ISO_A: readonly { readonly name: string; readonly w: number; readon
   { name: 'A0', w: 841, h: 1189 },
 ];
 
-/**
- * Page margin on every side, millimetres: office printers leave about 4–5 mm unprinted (common
- * practice), and the drawing has a white border of its own inside it.
- */
-export const PRINT_MARGIN_MM = 5;
-
 export interface Paper {
   /** 'A4 landscape', or 'custom' when no A sheet holds the drawing. */
   readonly name: string;
@@ -27,15 +21,17 @@ export interface Paper {
   readonly heightMm: number;
 }
 
-/** The smallest A sheet, upright or turned, that holds a drawing `w` × `h` mm inside the margins (landscape first on a tie). */
-export function paperFor(w: number, h: number, margin = PRINT_MARGIN_MM): Paper {
-  const needW = w + 2 * margin;
-  const needH = h + 2 * margin;
+/**
+ * The smallest A sheet, upright first, then turned, that holds a drawing `w` × `h` mm at 100 %:
+ * the sheet frame.svg names in its own title (the drawing carries its own white border, so the
+ * page adds no margin).
+ */
+export function paperFor(w: number, h: number): Paper {
   for (const s of ISO_A) {
-    if (needW <= s.h && needH <= s.w) return { name: `${s.name} landscape`, widthMm: s.h, heightMm: s.w };
-    if (needW <= s.w && needH <= s.h) return { name: `${s.name} portrait`, widthMm: s.w, heightMm: s.h };
+    if (w <= s.w && h <= s.h) return { name: `${s.name} portrait`, widthMm: s.w, heightMm: s.h };
+    if (w <= s.h && h <= s.w) return { name: `${s.name} landscape`, widthMm: s.h, heightMm: s.w };
   }
-  return { name: 'custom', widthMm: Math.ceil(needW), heightMm: Math.ceil(needH) };
+  return { name: 'custom', widthMm: Math.ceil(w), heightMm: Math.ceil(h) };
 }
 
 /** Width and height of an SVG document whose size is given in millimetres, or undefined. */
@@ -62,7 +58,7 @@ export function drawingPage(svg: string, title: string): string {
     '<meta charset="utf-8" />',
     `<title>${escapeHtml(title)}</title>`,
     '<style>',
-    `@page { size: ${paper.widthMm}mm ${paper.heightMm}mm; margin: ${PRINT_MARGIN_MM}mm; }`,
+    `@page { size: ${paper.widthMm}mm ${paper.heightMm}mm; margin: 0; }`,
     'html, body { margin: 0; padding: 0; background: #ffffff; }',
     // The drawing keeps its own size in millimetres: nothing may scale it to the page.
     `svg { display: block; width: ${size.w}mm; height: ${size.h}mm; max-width: none; }`,

@@ -3,17 +3,19 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { analyse, buildMachine } from '../../../src/core/pipeline.js';
 import { frameSvg } from '../../../src/core/export/frame-svg.js';
-import { drawingPage, paperFor, PRINT_MARGIN_MM, svgSizeMm } from '../../../src/web/frame/sheet.js';
+import { drawingPage, paperFor, svgSizeMm } from '../../../src/web/frame/sheet.js';
 
 describe('src/web/frame/sheet', () => {
-  it('picks the smallest ISO 216 A sheet that holds the drawing inside the margins', () => {
+  it('picks the smallest ISO 216 A sheet that holds the drawing, upright first', () => {
     // ISO 216: A4 is 210 × 297 mm, A3 297 × 420 mm, A0 841 × 1189 mm.
     expect(paperFor(250, 150)).toEqual({ name: 'A4 landscape', widthMm: 297, heightMm: 210 });
     expect(paperFor(150, 250)).toEqual({ name: 'A4 portrait', widthMm: 210, heightMm: 297 });
-    expect(paperFor(297 - 2 * PRINT_MARGIN_MM, 210 - 2 * PRINT_MARGIN_MM).name).toBe('A4 landscape');
-    expect(paperFor(297 - 2 * PRINT_MARGIN_MM + 1, 100).name).toBe('A3 landscape');
+    expect(paperFor(200, 200).name).toBe('A4 portrait');
+    expect(paperFor(297, 210).name).toBe('A4 landscape');
+    expect(paperFor(298, 100).name).toBe('A3 landscape');
     expect(paperFor(250, 300)).toEqual({ name: 'A3 portrait', widthMm: 297, heightMm: 420 });
-    expect(paperFor(2000, 100)).toEqual({ name: 'custom', widthMm: 2000 + 2 * PRINT_MARGIN_MM, heightMm: 110 });
+    expect(paperFor(300, 290)).toEqual({ name: 'A3 landscape', widthMm: 420, heightMm: 297 });
+    expect(paperFor(2000, 100.2)).toEqual({ name: 'custom', widthMm: 2000, heightMm: 101 });
   });
 
   it('reads the size of a drawing given in millimetres, and nothing else', () => {
@@ -36,7 +38,10 @@ describe('src/web/frame/sheet', () => {
     if (!size) throw new Error('frame.svg is sized in millimetres');
     const page = drawingPage(svg, 'Frame <marble_bell>');
     const paper = paperFor(size.w, size.h);
-    expect(page).toContain(`@page { size: ${paper.widthMm}mm ${paper.heightMm}mm;`);
+    expect(page).toContain(`@page { size: ${paper.widthMm}mm ${paper.heightMm}mm; margin: 0; }`);
+    // The sheet the drawing names in its own title.
+    const [sheet, way] = paper.name.split(' ');
+    expect(svg).toContain(`on an ${sheet} sheet, ${way}, or larger`);
     expect(page).toContain(`svg { display: block; width: ${size.w}mm; height: ${size.h}mm; max-width: none; }`);
     expect(page).toContain('<title>Frame &lt;marble_bell&gt;</title>');
     expect(page).not.toContain('<?xml');
