@@ -65,6 +65,7 @@ export { printCubes, printExpr } from './forms/expr.js';
 // ── Analyse, build, compare: the pipeline ───────────────────────────────────────────────────
 export {
   analyse,
+  BUILD_DEFAULTS,
   buildMachine,
   compareEncodings,
   runChecks,
@@ -195,6 +196,7 @@ export {
   DOCUMENT_MAKERS,
   DOCUMENT_REGISTRY,
   netlistJson,
+  partRoles,
   schematicSvg,
   verilogFiles,
   wiringCsv,
@@ -204,6 +206,8 @@ export {
   type DocumentName,
   type DocumentsInput,
   type DocumentSources,
+  type PartRole,
+  type SchematicOptions,
   type TourClock,
   type VerilogFiles,
   type WiringRow,
