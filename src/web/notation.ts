@@ -40,14 +40,19 @@ export function inline(md: string): Inline[] {
   return out;
 }
 
-/** The lines of a section: from its heading to the next heading of the same or a higher level. */
+/**
+ * The lines of a section: from its heading to the next heading of the same or a higher level
+ * (a `#` line inside a fenced block is a comment of the example, not a heading).
+ */
 function section(lines: readonly string[], heading: string): string[] {
   const level = /^#+/.exec(heading)?.[0].length ?? 2;
   const start = lines.findIndex((l) => l.trim() === heading);
   if (start < 0) return [];
   const rest = lines.slice(start + 1);
+  let fenced = false;
   const end = rest.findIndex((l) => {
-    const m = /^(#+)\s/.exec(l);
+    if (l.trim().startsWith('```')) fenced = !fenced;
+    const m = fenced ? null : /^(#+)\s/.exec(l);
     return m !== null && m[1].length <= level;
   });
   return end < 0 ? rest : rest.slice(0, end);

@@ -84,6 +84,18 @@ export function parseUnused(raw: string): string | undefined {
   return /^[A-Za-z0-9_]{1,200}$/.test(raw) || raw === 'dont-care' ? raw : undefined;
 }
 
+/** The `latchwright build` command that builds what these settings build (the defaults left out). */
+export function commandLine(file: string, s: BuildSettings): string {
+  const quote = (w: string): string => (/^[A-Za-z0-9_./-]+$/.test(w) ? w : `'${w.replace(/'/g, `'\\''`)}'`);
+  const words = ['latchwright', 'build', quote(file)];
+  const d = DEFAULT_SETTINGS;
+  if ('strategy' in s.encoding && !('strategy' in d.encoding && d.encoding.strategy === s.encoding.strategy))
+    words.push('--encoding', s.encoding.strategy);
+  if (s.unusedCodes !== undefined) words.push('--unused', quote(s.unusedCodes));
+  if (s.seed !== d.seed) words.push('--seed', String(s.seed));
+  return words.join(' ');
+}
+
 /** True when the settings are the command line's defaults. */
 export function isDefault(s: BuildSettings): boolean {
   return (

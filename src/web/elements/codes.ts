@@ -8,7 +8,7 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { encodingEntry, ENCODING_REGISTRY, type EncodeStrategy } from '../../core/index.js';
 import { DEFAULT_SETTINGS, type BuildSettings, type BuildView, type CodeRow } from '../worker/protocol.js';
-import type { Search, SearchProgress } from '../controllers/synthesis.js';
+import { commandLine, type Search, type SearchProgress } from '../controllers/synthesis.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
 
@@ -338,18 +338,6 @@ export class LwCodes extends LitElement {
       ? ` (gate ${c.gate}, latch ${c.latch}, lever ${c.lever}, capstan ${c.capstan}, weight ${c.weight}, cord ${c.cord})`
       : '';
   }
-}
-
-/** The `latchwright build` command that builds what these settings build (the defaults left out). */
-export function commandLine(file: string, s: BuildSettings): string {
-  const quote = (w: string): string => (/^[A-Za-z0-9_./-]+$/.test(w) ? w : `'${w.replace(/'/g, `'\\''`)}'`);
-  const words = ['latchwright', 'build', quote(file)];
-  const d = DEFAULT_SETTINGS;
-  if ('strategy' in s.encoding && !('strategy' in d.encoding && d.encoding.strategy === s.encoding.strategy))
-    words.push('--encoding', s.encoding.strategy);
-  if (s.unusedCodes !== undefined) words.push('--unused', quote(s.unusedCodes));
-  if (s.seed !== d.seed) words.push('--seed', String(s.seed));
-  return words.join(' ');
 }
 
 customElements.define('lw-codes', LwCodes);
