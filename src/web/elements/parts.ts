@@ -20,7 +20,7 @@ import {
 } from '../../core/index.js';
 import type { BuildView, ChecksView } from '../worker/protocol.js';
 import { shared } from '../styles/shared.js';
-import { checksSection, partsSection, rulesSection, timingSection } from './parts-sections.js';
+import { checksSection, headroomView, partsSection, rulesSection, timingSection } from './parts-sections.js';
 import { emit } from './emit.js';
 import './bar-chart.js';
 
@@ -167,7 +167,8 @@ export class LwParts extends LitElement {
                   floor
                   .bars=${c.margins.map((m) => ({ label: `${m.kind}: ${m.does}`, value: m.margin, note: `${m.margin.toFixed(2)}×` }))}
                   .marker=${{ value: c.minMargin, label: `minimum ${c.minMargin}` }}
-                ></lw-bar-chart>`
+                ></lw-bar-chart>
+                ${headroomView(c)}`
             : html`<p class="soft">Checking…</p>`
         }
       </section>
