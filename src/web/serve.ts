@@ -114,15 +114,13 @@ export async function serveFrom(dir: string, port: number): Promise<Served> {
 /** The folder the build writes to (vite.config.ts). */
 export const BUILT_DIR = fileURLToPath(new URL('../../dist/web', import.meta.url));
 
-/** The port of the designer when none is given (vite.config.ts uses the same one for development). */
-export const DEFAULT_PORT = 5178;
-
 async function main(argv: readonly string[]): Promise<void> {
   const flag = (name: string): string | undefined => {
     const i = argv.indexOf(`--${name}`);
     return i >= 0 ? argv[i + 1] : undefined;
   };
-  const port = Number(flag('port') ?? DEFAULT_PORT);
+  // The designer's port when none is given (vite.config.ts uses the same one for development).
+  const port = Number(flag('port') ?? 5178);
   const dir = flag('dir') ?? BUILT_DIR;
   const fail = (words: string): void => {
     process.stderr.write(`latchwright: ${words}\n`);
