@@ -71,6 +71,7 @@ export { locateJsonPaths, readJsonText, withoutBom, type JsonRead } from './form
 // ── Analyse, build, compare: the pipeline ───────────────────────────────────────────────────
 export {
   analyse,
+  BUILD_DEFAULTS,
   buildMachine,
   compareEncodings,
   runChecks,
@@ -243,6 +244,7 @@ export {
   DOCUMENT_MAKERS,
   DOCUMENT_REGISTRY,
   netlistJson,
+  partRoles,
   schematicSvg,
   verilogFiles,
   wiringCsv,
@@ -254,6 +256,8 @@ export {
   type DocumentSources,
   type CutRow,
   type Drawings,
+  type PartRole,
+  type SchematicOptions,
   type TourClock,
   type VerilogFiles,
   type WiringRow,

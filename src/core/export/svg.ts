@@ -58,6 +58,7 @@ export function svgBox(cx: number, cy: number, w: number, h: number, cls: string
 /**
  * The whole SVG document. `unit` is the unit of its width and height ('' for pixels, 'mm' for a
  * drawing to print at a stated scale: one user unit is then one millimetre on paper).
+ * `rootClass` (one of our class names) goes on the root element.
  */
 export function svgDocument(
   width: number,
@@ -67,12 +68,14 @@ export function svgDocument(
   style: string,
   body: readonly string[],
   unit: '' | 'mm' = '',
+  rootClass?: string,
 ): string {
   const w = Math.ceil(width);
   const h = Math.ceil(height);
+  const cls = rootClass ? ` class="${rootClass}"` : '';
   return [
     '<?xml version="1.0" encoding="UTF-8"?>',
-    `<svg xmlns="http://www.w3.org/2000/svg" version="1.1" width="${w}${unit}" height="${h}${unit}" viewBox="0 0 ${w} ${h}">`,
+    `<svg xmlns="http://www.w3.org/2000/svg"${cls} version="1.1" width="${w}${unit}" height="${h}${unit}" viewBox="0 0 ${w} ${h}">`,
     `<title>${x(title)}</title>`,
     `<desc>${x(description)}</desc>`,
     `<style>${style}</style>`,
