@@ -283,7 +283,7 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
     paper: paperFor(width, height),
   });
   const screen = options.palette === 'screen';
-  const doc = svgDocument(
+  return svgDocument(
     width,
     height,
     `Frame of ${build.machine.name}, scale 1:${scale}`,
@@ -291,8 +291,8 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
     screen ? screenStyle() : STYLE,
     [...head, ...body],
     'mm',
+    screen ? FRAME_SCREEN_CLASS : undefined,
   );
-  return screen ? doc.replace('<svg ', `<svg class="${FRAME_SCREEN_CLASS}" `) : doc;
 }
 
 /** The title, what the drawing shows and at what scale, the overall figures and the drawing conventions. */

@@ -6,12 +6,15 @@
 
 const FRAME_ID = 'lw-print';
 
-/** Print a self-contained HTML page (the build sheet). Resolves once the print dialog was opened and closed. */
-export function printHtml(html: string): Promise<void> {
+/**
+ * Print a self-contained HTML page (the build sheet, the frame drawing), `title` naming it for
+ * assistive technology. Resolves once the print dialog was opened and closed.
+ */
+export function printHtml(html: string, title = 'The build sheet, for printing'): Promise<void> {
   document.getElementById(FRAME_ID)?.remove();
   const frame = document.createElement('iframe');
   frame.id = FRAME_ID;
-  frame.title = 'The build sheet, for printing';
+  frame.title = title;
   frame.setAttribute('aria-hidden', 'true');
   frame.setAttribute('sandbox', 'allow-modals allow-same-origin');
   Object.assign(frame.style, { position: 'fixed', right: '0', bottom: '0', width: '0', height: '0', border: '0' });

@@ -70,3 +70,21 @@ export function drawingPage(svg: string, title: string): string {
     '</html>',
   ].join('\n');
 }
+
+/** CSS pixels per millimetre (CSS Values and Units Level 3: 1in = 96px = 25.4mm). */
+export const PX_PER_MM = 96 / 25.4;
+
+/**
+ * A drawing sized in millimetres, sized for the screen at `zoom` × its paper size (1: a
+ * millimetre on paper is a CSS millimetre), in CSS pixels; its viewBox, and so its picture, kept.
+ */
+export function screenSized(svg: string, zoom: number): string {
+  const size = svgSizeMm(svg);
+  const inline = svg.replace(/^<\?xml[^>]*\?>\s*/, '');
+  if (!size) return inline;
+  const px = (mm: number): string => String(Math.round(mm * PX_PER_MM * zoom));
+  return inline.replace(
+    /^(<svg\b[^>]*?) width="[\d.]+mm" height="[\d.]+mm"/,
+    `$1 width="${px(size.w)}" height="${px(size.h)}"`,
+  );
+}

@@ -139,7 +139,7 @@ describe('core/export/frame-svg (ids for a page, and the screen palette)', () =>
       const style = /<style>([\s\S]*?)<\/style>/;
       const body = (svg: string): string => svg.replace(style, '').replace(' class="lw-frame"', '');
       expect(body(screen), name).toBe(body(paper));
-      expect(screen).toMatch(/^<\?xml[^>]*>\s*<svg class="lw-frame" /);
+      expect(screen).toMatch(/^<\?xml[^>]*>\s*<svg [^>]*class="lw-frame"/);
       const rules = (style.exec(screen)?.[1] ?? '').trim().split('\n');
       for (const r of rules) expect(r, name).toMatch(/^\.lw-frame /);
       // No paper colour is left but the one black cords are picked out by.

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { analyse, buildMachine } from '../../../src/core/pipeline.js';
 import { frameSvg } from '../../../src/core/export/frame-svg.js';
-import { drawingPage, paperFor, svgSizeMm } from '../../../src/web/frame/sheet.js';
+import { drawingPage, paperFor, PX_PER_MM, screenSized, svgSizeMm } from '../../../src/web/frame/sheet.js';
 
 describe('src/web/frame/sheet', () => {
   it('picks the smallest ISO 216 A sheet that holds the drawing, upright first', () => {
@@ -46,5 +46,15 @@ describe('src/web/frame/sheet', () => {
     expect(page).toContain('<title>Frame &lt;marble_bell&gt;</title>');
     expect(page).not.toContain('<?xml');
     expect(page).toContain(svg.replace(/^<\?xml[^>]*\?>\s*/, ''));
+  });
+});
+
+describe('src/web/frame/sheet (on screen)', () => {
+  it('sizes a millimetre drawing in CSS pixels at a zoom, keeping its viewBox (CSS Values 3: 96 px = 25.4 mm)', () => {
+    const svg =
+      '<?xml version="1.0"?>\n<svg class="lw-frame" width="254mm" height="127mm" viewBox="0 0 254 127"></svg>';
+    expect(screenSized(svg, 1)).toBe('<svg class="lw-frame" width="960" height="480" viewBox="0 0 254 127"></svg>');
+    expect(screenSized(svg, 1.5)).toBe('<svg class="lw-frame" width="1440" height="720" viewBox="0 0 254 127"></svg>');
+    expect(PX_PER_MM * 25.4).toBeCloseTo(96, 10);
   });
 });
