@@ -252,6 +252,9 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
     }));
     expect(fills.panel).toBe('#24211d');
     expect(fills.page).toBe('rgb(36, 33, 29)');
+    await page
+      .locator('lw-frame .sheet g.drum-1')
+      .evaluate((g) => g.scrollIntoView({ block: 'center', inline: 'start' }));
     await shot(page, 'frame-dark');
     await page.emulateMedia({ colorScheme: 'light' });
   });
