@@ -15,6 +15,7 @@ import { createRunner, type PartRunner } from '../../src/core/sim/runner.js';
 import { timingOf } from '../../src/core/sim/part.js';
 import { phaseActions, resetActions, type HandAction } from '../../src/core/sim/hand.js';
 import { frameScale, frameSvg } from '../../src/core/export/frame-svg.js';
+import { MIN_TEXT_PX } from '../../src/web/elements/frame-view.js';
 import { built, openPage, overflowing, PHONE, shot, startDesigner, type Designer } from './page.js';
 
 const FILE = 'marble-bell.lw';
@@ -205,6 +206,11 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
     await page.locator('lw-frame button[data-do="clock"]').click();
     act(phaseActions());
     expect(await downOnPage()).toEqual(downInNode(ref, runner));
+    // The trial run leads here.
+    await tab('Trial run');
+    await page.locator('button[data-do="see-frame"]').click();
+    await expect(page.getByRole('tab', { name: 'Frame & cords' }).getAttribute('aria-selected')).resolves.toBe('true');
+    expect(await downOnPage()).toEqual(downInNode(ref, runner));
     // Which levers are down changed from clock to clock.
     expect(seen.size).toBeGreaterThan(2);
     // One meaning of "down" with the trial run: its legend's glyphs stand beside the frame's.
@@ -271,6 +277,16 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
     expect(box[2]).toBe('auto');
     expect(Number(box[0])).toBeGreaterThan(Number(box[1]));
     await expect(phone.locator('lw-frame [data-frame-summary]').innerText()).resolves.toContain('Tap a cord');
+    // Opened at the smallest readable size, and Fit width goes no smaller.
+    const smallest = async (): Promise<number> =>
+      Number(await phone.locator('lw-frame').getAttribute('data-smallest-text-px'));
+    expect(await smallest()).toBeCloseTo(MIN_TEXT_PX, 1);
+    await phone
+      .locator('lw-frame')
+      .getByRole('button', { name: /^Shrink the frame to the width/ })
+      .click();
+    expect(await smallest()).toBeGreaterThanOrEqual(MIN_TEXT_PX - 0.01);
+    expect(await overflowing(phone)).toEqual([]);
     await phone.context().close();
   });
 });

@@ -22,8 +22,11 @@ import { LEVER_GLYPH_STYLES, leverGlyph, STAND_WORDS } from './lever-bank.js';
 /** The smallest text of the drawing, mm on paper (the key's part ids), and the least it may be on screen, px. */
 const SMALLEST_TEXT_MM = 2.1;
 export const MIN_TEXT_PX = 8;
-/** The zoom the view opens at: the drawing's labels at about 12 px. */
+/** The zoom the view opens at: the drawing's labels at about 12 px (on a narrow screen, the least readable zoom). */
 const START_ZOOM = 1.5;
+/** A box narrower than this (a phone) opens the drawing at the smallest zoom whose text stays readable. */
+const NARROW_PX = 600;
+const MIN_ZOOM = MIN_TEXT_PX / (SMALLEST_TEXT_MM * PX_PER_MM);
 
 /** A cord branch, as the drawing names it. */
 interface Lit {
@@ -55,6 +58,7 @@ export class LwFrame extends LitElement {
   declare canUndo: boolean;
   declare printable: boolean;
   private zoom = START_ZOOM;
+  private zoomChosen = false;
   /** The branch pointed at or focused, and the one tapped (it stays lit until tapped again). */
   private hovered: Lit | undefined;
   private pinned: Lit | undefined;
@@ -339,6 +343,12 @@ export class LwFrame extends LitElement {
   protected override updated(changed: PropertyValues<this>): void {
     const root = this.renderRoot.querySelector<SVGSVGElement>('.sheet svg');
     if (!root) return;
+    if (!this.zoomChosen) {
+      // Once, on the first drawing: a phone sees more of the frame at the smallest readable size.
+      this.zoomChosen = true;
+      const box = root.parentElement;
+      if (box && box.clientWidth < NARROW_PX) this.setZoom(MIN_ZOOM);
+    }
     if (root !== this.prepared) {
       this.prepared = root;
       for (const path of root.querySelectorAll<SVGPathElement>('path.cord[data-cord]')) {
@@ -359,6 +369,9 @@ export class LwFrame extends LitElement {
     }
     this.showStands(root);
     this.showLit(root);
+    // For the browser tests: the zoom, and the size of the drawing's smallest text on screen.
+    this.dataset.zoom = String(this.zoom);
+    this.dataset.smallestTextPx = (SMALLEST_TEXT_MM * PX_PER_MM * this.zoom).toFixed(2);
   }
 
   /** Every lever end takes its stand in the trial run (none when the trial run has no machine). */
@@ -428,7 +441,7 @@ export class LwFrame extends LitElement {
   };
 
   private setZoom(z: number): void {
-    this.zoom = Math.min(6, Math.max(MIN_TEXT_PX / (SMALLEST_TEXT_MM * PX_PER_MM), z));
+    this.zoom = Math.min(6, Math.max(MIN_ZOOM, z));
     this.requestUpdate();
   }
 
