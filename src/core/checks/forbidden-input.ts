@@ -21,7 +21,9 @@ import type { Build, CheckBase } from '../model/build.js';
 import { seededRandom, type Random } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
 import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
-import { clockFrom, forEachHeld, latchKey } from '../sim/clocking.js';
+import { clockFrom, latchKey } from '../sim/clocking.js';
+import { LANES, LaneBatch } from '../sim/lanes.js';
+import { sweep as sweepLanes } from '../sim/sweep.js';
 import {
   clockActions,
   describeAction,
@@ -34,11 +36,14 @@ import {
   type HandAction,
   type OperatingRule,
 } from '../sim/hand.js';
+import { isReady, moverFor } from '../sim/fast.js';
 import {
+  applyFastInPlace,
   applyInPlace,
   isAlarm,
   latchLabel,
   powerUp,
+  setLeversInPlace,
   simFor,
   stateAtCode,
   stepSim,
@@ -164,40 +169,102 @@ export function checkForbiddenInput(
 
 /** Reset and one clock from every start point of the scope; the start points simulated and the first failure. */
 function sweep(sim: PartSim, scope: Scope): { states: number; failure?: ForbiddenCounterexample } {
-  const f = sim.build.machine;
   const bits = sim.slaves.length;
-  const zero = '0'.repeat(f.inputs.length);
-  const clockFromZero = (a: string): HandAction[] =>
-    clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero));
+  const groups: [string, string][] = [];
+  for (const c of scope.codes)
+    // The masters equal to the slaves first (as every clock leaves them), then every other master code.
+    for (const m of scope.freeMasters ? [c, ...allCodes(bits).filter((x) => x !== c)] : [c]) groups.push([c, m]);
+  const batch = new LaneBatch(sim);
+  const resets = new ResetSweep(sim, groups);
   let states = 0;
   let failure: ForbiddenCounterexample | undefined;
-  for (const c of scope.codes) {
-    // The masters equal to the slaves first (as every clock leaves them), then every other master code.
-    for (const m of scope.freeMasters ? [c, ...allCodes(bits).filter((x) => x !== c)] : [c]) {
-      const base = stateAtCode(sim, c, zero, m);
-      const resetAlarms = runActions(sim, base.values, resetActions());
-      if (resetAlarms.length > 0)
-        return { states, failure: counterexample(f.inputs, c, m, zero, resetActions(), resetAlarms) };
-      forEachHeld(
-        sim,
-        base.values,
-        scope.tries,
-        (held, a) => {
-          if (failure) return false;
+  for (let g = 0; g < groups.length && !failure; g++) {
+    const [c, m] = groups[g];
+    failure = resets.failure(g);
+    if (failure) break;
+    sweepLanes(
+      sim,
+      scope.tries.length,
+      {
+        setUp: (b, lane, i) => {
+          b.setCodes(lane, c, m);
+          b.setInputs(lane, scope.tries[i]);
+        },
+        done: () => void states++,
+        slow: (i) => {
           states++;
-          const out = clockFrom(sim, held);
-          if (out.alarms.length === 0) return true;
-          failure = counterexample(f.inputs, c, m, a, clockFromZero(a), out.alarms);
-          return false;
+          failure = slowClock(sim, c, m, scope.tries[i]);
+          return failure === undefined;
         },
-        (a, alarms) => {
-          failure = counterexample(f.inputs, c, m, a, clockFromZero(a).slice(0, -4), alarms);
-        },
-      );
-      if (failure) return { states, failure };
-    }
+      },
+      batch,
+    );
   }
-  return { states };
+  return failure ? { states, failure } : { states };
+}
+
+/** The reset procedure from every (slave code, master code) group, 32 groups at a time; the failure of a group, if any. */
+class ResetSweep {
+  private readonly alarms: (PartEvent[] | undefined)[] = [];
+  private done = 0;
+  private readonly batch: LaneBatch;
+  constructor(
+    private readonly sim: PartSim,
+    private readonly groups: readonly (readonly [string, string])[],
+  ) {
+    this.batch = new LaneBatch(sim);
+  }
+
+  failure(g: number): ForbiddenCounterexample | undefined {
+    while (this.done <= g) this.next();
+    const alarms = this.alarms[g];
+    if (!alarms || alarms.length === 0) return undefined;
+    const [c, m] = this.groups[g];
+    const zero = '0'.repeat(this.sim.build.machine.inputs.length);
+    return counterexample(this.sim.build.machine.inputs, c, m, zero, resetActions(), alarms);
+  }
+
+  private next(): void {
+    const { sim, groups } = this;
+    const first = this.done;
+    const zero = '0'.repeat(sim.build.machine.inputs.length);
+    sweepLanes(
+      sim,
+      Math.min(LANES, groups.length - first),
+      {
+        setUp: (b, lane, i) => {
+          b.setCodes(lane, groups[first + i][0], groups[first + i][1]);
+          b.setInputs(lane, zero);
+        },
+        moves: (b) => {
+          b.move(sim.reset, 1);
+          b.move(sim.reset, 0);
+        },
+        done: (i) => void (this.alarms[first + i] = undefined),
+        slow: (i) => {
+          const [c, m] = groups[first + i];
+          this.alarms[first + i] = runActions(sim, stateAtCode(sim, c, zero, m).values, resetActions());
+        },
+      },
+      this.batch,
+    );
+    this.done = Math.min(groups.length, first + LANES);
+  }
+}
+
+/** One start point, event-driven: the levers moved from released to `a`, then one clock; the failure, if any. */
+function slowClock(sim: PartSim, c: string, m: string, a: string): ForbiddenCounterexample | undefined {
+  const inputs = sim.build.machine.inputs;
+  const zero = '0'.repeat(inputs.length);
+  const clockFromZero = (): HandAction[] => clockActions(inputs, valuesOf(inputs, a), valuesOf(inputs, zero));
+  const held = stateAtCode(sim, c, zero, m).values;
+  const events: PartEvent[] = [];
+  const to = [...a].map((x) => (x === '1' ? 1 : 0));
+  setLeversInPlace(sim, held, 0, Array.from(sim.inputLevers), to, events);
+  const moving = events.filter(isAlarm);
+  if (moving.length > 0) return counterexample(inputs, c, m, a, clockFromZero().slice(0, -4), moving);
+  const out = clockFrom(sim, held);
+  return out.alarms.length > 0 ? counterexample(inputs, c, m, a, clockFromZero(), out.alarms) : undefined;
 }
 
 function counterexample(
@@ -235,6 +302,8 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
   const f = sim.build.machine;
   let [start] = powerUp(sim);
   for (const a of resetActions()) start = stepSim(sim, start, a)[0];
+  const mover = moverFor(sim);
+  const readyOf: boolean[] = [isReady(sim, start.values)];
   const moves: HandAction[] = [];
   const levers = ['phi1', 'phi2', 'reset'] as const;
   const statesOf: Uint8Array[] = [start.values];
@@ -271,7 +340,9 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
       if (r !== null && r !== rule) continue;
       const b = broken[i] || r === rule;
       if (b && !firstBreak) firstBreak = path(i, a);
-      const [next, events] = stepSim(sim, { values: v, timeUs: 0 }, a);
+      const next = v.slice();
+      const events: PartEvent[] = [];
+      applyFastInPlace(sim, next, 0, a, events, readyOf[i]);
       const upset = events.filter((e) => UPSETS.has(e.kind));
       if (b && upset.length > 0) {
         const actions = path(i, a);
@@ -279,10 +350,11 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
         const words = `${RULE_WORDS[rule]}: breaking it (${actions.map(describeAction).join(', ')}) upsets ${latches.length > 0 ? latches.map(latchLabel).join(', ') : 'the machine'}: ${upset[0].words}`;
         return { rule, violation: actions, trace: describeTrace(actions), upsets: latches, words };
       }
-      const key = keyOf(next.values, b);
+      const key = keyOf(next, b);
       if (seen.has(key)) continue;
       seen.add(key);
-      statesOf.push(next.values);
+      statesOf.push(next);
+      readyOf.push(mover.ready);
       broken.push(b);
       parent.push(i);
       via.push(a);
