@@ -313,9 +313,12 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
   const depth: number[] = [0];
   const keyOf = (v: Uint8Array, b: boolean): string => {
     let k = b ? '1' : '0';
-    for (let d = 0; d < sim.leverCount; d++) k += v[d];
+    for (let d = 0; d < sim.leverCount; d++) k += v[d] === 1 ? '1' : '0';
     return k + latchKey(sim, v);
   };
+  // One scratch state and one event list for every move; a state is copied only when it is new.
+  const next = new Uint8Array(sim.driverCount);
+  const events: PartEvent[] = [];
   const seen = new Set([keyOf(start.values, false)]);
   const path = (i: number, last: HandAction): HandAction[] => {
     const out = [last];
@@ -340,10 +343,10 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
       if (r !== null && r !== rule) continue;
       const b = broken[i] || r === rule;
       if (b && !firstBreak) firstBreak = path(i, a);
-      const next = v.slice();
-      const events: PartEvent[] = [];
+      next.set(v);
+      if (events.length > 0) events.length = 0;
       applyFastInPlace(sim, next, 0, a, events, readyOf[i]);
-      const upset = events.filter((e) => UPSETS.has(e.kind));
+      const upset = events.length === 0 ? events : events.filter((e) => UPSETS.has(e.kind));
       if (b && upset.length > 0) {
         const actions = path(i, a);
         const latches = [...new Set(upset.flatMap((e) => (e.latch ? [e.latch] : [])))];
@@ -353,7 +356,7 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
       const key = keyOf(next, b);
       if (seen.has(key)) continue;
       seen.add(key);
-      statesOf.push(next);
+      statesOf.push(next.slice());
       readyOf.push(mover.ready);
       broken.push(b);
       parent.push(i);

@@ -81,25 +81,79 @@ interface Capstan {
 class CapstanReader {
   private ids: readonly string[] | null = null;
   private index = new Int32Array(0);
-  constructor(private readonly capstans: readonly Capstan[]) {}
+  /** The torque of each of the 32 lanes of lane words already summed (a batch's words serve 32 snapshots). */
+  private readonly laneTorques = new WeakMap<object, Float64Array>();
+  /** The capstans grouped by torque (few groups: a lever's and a gate's), for counting engaged ones 32 lanes at a time. */
+  private readonly groups: { readonly torqueNm: number; readonly members: Int32Array }[];
 
-  /** Torque of the engaged capstans of one snapshot. */
+  constructor(private readonly capstans: readonly Capstan[]) {
+    const byTorque = new Map<number, number[]>();
+    capstans.forEach((c, k) => {
+      const g = byTorque.get(c.torqueNm);
+      if (g) g.push(k);
+      else byTorque.set(c.torqueNm, [k]);
+    });
+    this.groups = [...byTorque].map(([torqueNm, ks]) => ({ torqueNm, members: Int32Array.from(ks) }));
+  }
+
+  /**
+   * Torque of the engaged capstans of one snapshot: per group of equal torque, the engaged
+   * capstans counted, times their torque (the same sum whichever form the outputs come in).
+   */
   torque(outputs: SnapshotOutputs): number {
-    const caps = this.capstans;
-    let t = 0;
     if (!('ids' in outputs)) {
-      for (const c of caps) if (outputs.get(c.driver) !== 1) t += c.torqueNm;
+      let t = 0;
+      for (const g of this.groups) {
+        let count = 0;
+        for (let m = 0; m < g.members.length; m++) if (outputs.get(this.capstans[g.members[m]].driver) !== 1) count++;
+        t += count * g.torqueNm;
+      }
       return t;
     }
     const index = this.indexFor(outputs.ids);
     const v = outputs.values;
-    const lane = outputs.lane;
-    for (let k = 0; k < caps.length; k++) {
-      const i = index[k];
-      const on = i >= 0 && (lane === undefined ? v[i] === 1 : ((v[i] >>> lane) & 1) === 1);
-      if (!on) t += caps[k].torqueNm;
+    if (outputs.lane !== undefined) {
+      let lanes = this.laneTorques.get(v);
+      if (!lanes) this.laneTorques.set(v, (lanes = this.sumLanes(index, v)));
+      return lanes[outputs.lane];
+    }
+    let t = 0;
+    for (const g of this.groups) {
+      let count = 0;
+      for (let m = 0; m < g.members.length; m++) {
+        const i = index[g.members[m]];
+        if (i < 0 || v[i] !== 1) count++;
+      }
+      t += count * g.torqueNm;
     }
     return t;
+  }
+
+  /**
+   * The torque of all 32 lanes of some lane words at once: per torque group, the engaged
+   * capstans of every lane counted in a bit-sliced counter (one word per bit of the count).
+   */
+  private sumLanes(index: Int32Array, v: ArrayLike<number>): Float64Array {
+    const laneTorque = new Float64Array(32);
+    for (const g of this.groups) {
+      const planes: number[] = [];
+      for (let m = 0; m < g.members.length; m++) {
+        const i = index[g.members[m]];
+        let carry = i < 0 ? -1 : ~v[i]; // engaged where the output is 0 (or not given)
+        for (let p = 0; carry !== 0; p++) {
+          if (p === planes.length) planes.push(0);
+          const sum = planes[p] ^ carry;
+          carry &= planes[p];
+          planes[p] = sum;
+        }
+      }
+      for (let lane = 0; lane < 32; lane++) {
+        let count = 0;
+        for (let p = 0; p < planes.length; p++) count += ((planes[p] >>> lane) & 1) << p;
+        laneTorque[lane] += count * g.torqueNm;
+      }
+    }
+    return laneTorque;
   }
 
   /** Capstans engaged, and those the snapshot does not give. */

@@ -6,9 +6,9 @@
  * Contract: `move` gives exactly what `settle` gives (values, alarms, time of the last change).
  * The pass is taken only from a ready state (binary, settled, every latch holding a value) and
  * only when the move's program exists; it then checks at run time that no latch sees S̄ and R̄
- * move in opposite directions or end both pulled, and that no binate gate sees its inputs move
- * both ways (a possible glitch, which would change the time of the last change). When a check
- * fails the pass is undone and settle.ts settles the move (program.ts gives the argument).
+ * move in opposite directions or end both pulled. Gates that may glitch (their inputs moved
+ * both ways; they reach no latch) are re-timed by glitch.ts. When a check fails the pass is
+ * undone and settle.ts settles the move (program.ts gives the argument).
  * Times: a gate whose output rises changes one stage delay after the first of its inputs that
  * fell, a gate whose output falls one stage delay after the last of its inputs that rose (the
  * inertial-delay model of settle.ts, for inputs that move one way only); in a latch the gate
@@ -16,7 +16,8 @@
  */
 import { X, type PartSim } from './compile.js';
 import { moveProgram, type SettleProgram } from './program.js';
-import { settle, type PartEvent } from './settle.js';
+import { Glitches } from './glitch.js';
+import { changeBound, settle, type PartEvent } from './settle.js';
 
 /** True when every value is 0 or 1 and every latch holds a value (Q ≠ Q̄): the fast pass may start here. */
 export function isBinary(sim: PartSim, values: ArrayLike<number>): boolean {
@@ -50,6 +51,9 @@ export class FastMover {
   private readonly changed: Int32Array;
   private epoch = 0;
   private count = 0;
+  private readonly glitches: Glitches;
+  /** settle.ts's bound on changes before it calls the netlist oscillating. */
+  private readonly bound: number;
   /** Programs by lever × 8 + control bits. */
   private readonly programs: (SettleProgram | undefined)[];
 
@@ -57,6 +61,8 @@ export class FastMover {
     this.stamp = new Int32Array(sim.driverCount);
     this.tChange = new Float64Array(sim.driverCount);
     this.changed = new Int32Array(sim.driverCount);
+    this.glitches = new Glitches(sim);
+    this.bound = changeBound(sim);
     this.programs = new Array<SettleProgram | undefined>(sim.leverCount * 8).fill(undefined);
   }
 
@@ -108,8 +114,22 @@ export class FastMover {
       if (t < 0) return this.undo(values);
       if (t > last) last = t;
     }
-    if (!this.unate(prog.binate, values, epoch)) return this.undo(values);
+    if (prog.binate.length > 0) {
+      const latest = this.glitches.run(prog.binate, values, this.stamp, this.tChange, epoch);
+      if (Number.isNaN(latest) || this.count + this.glitches.changes > this.bound) return this.undo(values);
+      if (latest !== -Infinity) last = this.lastOutside(timeUs, latest, epoch);
+    }
     this.sim.evaluations += steps.length;
+    return last;
+  }
+
+  /** The time of the last change when some gates were re-timed for glitches: theirs, and every other change. */
+  private lastOutside(timeUs: number, latest: number, epoch: number): number {
+    let last = Math.max(timeUs, latest);
+    for (let i = 0; i < this.count; i++) {
+      const g = this.changed[i];
+      if (!this.glitches.retimed(g, epoch) && this.tChange[g] > last) last = this.tChange[g];
+    }
     return last;
   }
 
@@ -205,24 +225,6 @@ export class FastMover {
     const t2 = Math.max(t1, this.lastChange(downCords, 0, downCords.length, epoch)) + delay[down];
     this.change(values, down, 0, t2, epoch);
     return t2;
-  }
-
-  /** No binate gate saw its inputs move both ways in this pass. */
-  private unate(binate: Int32Array, values: Uint8Array, epoch: number): boolean {
-    const { inStart, inputs } = this.sim;
-    for (let i = 0; i < binate.length; i++) {
-      const g = binate[i];
-      let rose = false;
-      let fell = false;
-      for (let j = inStart[g]; j < inStart[g + 1]; j++) {
-        const c = inputs[j];
-        if (this.stamp[c] !== epoch) continue;
-        if (values[c] === 1) rose = true;
-        else fell = true;
-      }
-      if (rose && fell) return false;
-    }
-    return true;
   }
 
   /** Put back every gate the pass changed (the lever stays moved); -1. */
