@@ -13,8 +13,9 @@
  * 3. the order: a topological order of the cone with each latch as one unit; a cone with any
  *    other cycle gets no program;
  * 4. directions: every path from L has a parity (the number of NANDs on it). A gate reached by
- *    both parities may see its inputs move in opposite directions (a glitch). When such a
- *    gate, or a latch port fed by both parities, can reach a latch, the move gets no program.
+ *    both parities may see its inputs move in opposite directions (a glitch). Both parities
+ *    spread downstream, so such a gate that can reach a latch makes that latch's port two-way:
+ *    a latch port fed by both parities gives the move no program.
  *
  * Why the result is exact (the argument the fast simulators rely on): start from a settled,
  * binary state whose latches each hold a value. In the cone's order every gate whose changes
@@ -200,7 +201,7 @@ const ODD = 2;
 const flip = (p: number): number => ((p & EVEN) << 1) | ((p & ODD) >> 1);
 
 /** Parities along the order; the binate gates, or why the move gets no program. */
-function directions(sim: PartSim, lever: number, ordered: readonly number[], inCone: Uint8Array): number[] | string {
+function directions(sim: PartSim, lever: number, ordered: readonly number[]): number[] | string {
   const par = new Uint8Array(sim.driverCount);
   par[lever] = EVEN;
   const orOf = (ds: ArrayLike<number>): number => {
@@ -221,29 +222,9 @@ function directions(sim: PartSim, lever: number, ordered: readonly number[], inC
     par[l.set] = flip(ps) | pr;
     par[l.reset] = flip(par[l.set]);
   }
-  // Which nodes reach a latch of the cone, in reverse order.
-  const reaches = new Uint8Array(sim.driverCount);
-  for (let i = ordered.length - 1; i >= 0; i--) {
-    const g = ordered[i];
-    const li = sim.latchOf[g];
-    const outs = li < 0 ? [g] : [sim.latches[li].set, sim.latches[li].reset];
-    let r = 0;
-    for (const d of outs)
-      for (let e = sim.fanStart[d]; e < sim.fanStart[d + 1]; e++) {
-        const u = sim.fanout[e];
-        if (inCone[u] === 0 || outs.includes(u)) continue;
-        if (sim.latchOf[u] >= 0 || reaches[u] === 1) r = 1;
-      }
-    for (const d of outs) reaches[d] = r;
-  }
-  const binate: number[] = [];
-  for (const g of ordered) {
-    if (par[g] !== 3) continue;
-    if (reaches[g] === 1)
-      return `${sim.names[g]} is reached by both directions and reaches a latch (a possible glitch into memory)`;
-    if (sim.latchOf[g] < 0) binate.push(g);
-  }
-  return binate;
+  // Both parities spread to everything downstream, so a gate reached by both that could reach a
+  // latch would have made that latch's port two-way above: the binate gates reach no latch.
+  return ordered.filter((g) => par[g] === 3 && sim.latchOf[g] < 0);
 }
 
 function analyseMove(sim: PartSim, lever: number, ctrl: number): SettleProgram {
@@ -253,7 +234,7 @@ function analyseMove(sim: PartSim, lever: number, ctrl: number): SettleProgram {
   if (typeof c === 'string') return noProgram(c);
   const ordered = order(sim, c.gates, c.inCone);
   if (!ordered) return noProgram('the gates it moves form a loop that is not a latch');
-  const binate = directions(sim, lever, ordered, c.inCone);
+  const binate = directions(sim, lever, ordered);
   if (typeof binate === 'string') return noProgram(binate);
   const steps = Int32Array.from(ordered, (g) => (sim.latchOf[g] >= 0 ? ~sim.latchOf[g] : g));
   return { fast: true, steps, binate: Int32Array.from(binate) };
