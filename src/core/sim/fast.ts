@@ -108,9 +108,24 @@ export class FastMover {
     this.count = 0;
     let last = timeUs;
     const steps = prog.steps;
+    const { inStart, inputs } = this.sim;
     for (let i = 0; i < steps.length; i++) {
       const step = steps[i];
-      const t = step >= 0 ? this.gate(values, step, epoch) : this.latch(values, ~step, epoch);
+      if (step >= 0) {
+        // A gate, inline: most do not change, and their NAND is all the work.
+        const end = inStart[step + 1];
+        let out = 0;
+        for (let j = inStart[step]; j < end; j++)
+          if (values[inputs[j]] === 0) {
+            out = 1;
+            break;
+          }
+        if (out === values[step]) continue;
+        const t = this.changed1(values, step, out, epoch);
+        if (t > last) last = t;
+        continue;
+      }
+      const t = this.latch(values, ~step, epoch);
       if (t < 0) return this.undo(values);
       if (t > last) last = t;
     }
@@ -133,17 +148,10 @@ export class FastMover {
     return last;
   }
 
-  /** Evaluate gate g; the time it changed at, or 0 when it did not. */
-  private gate(values: Uint8Array, g: number, epoch: number): number {
+  /** Gate g changes to `out`: when (one stage after its first input that fell, or its last that rose). */
+  private changed1(values: Uint8Array, g: number, out: number, epoch: number): number {
     const { inStart, inputs } = this.sim;
     const end = inStart[g + 1];
-    let out = 0;
-    for (let j = inStart[g]; j < end; j++)
-      if (values[inputs[j]] === 0) {
-        out = 1;
-        break;
-      }
-    if (out === values[g]) return 0;
     const from = inStart[g];
     const at =
       (out === 1 ? this.firstChange(inputs, from, end, epoch) : this.lastChange(inputs, from, end, epoch)) +
@@ -197,10 +205,13 @@ export class FastMover {
     const l = this.sim.latches[li];
     const s = this.port(values, l.sBar, epoch, false);
     const r = this.port(values, l.rBar, epoch, false);
+    // Both released: the latch holds (both released before too would need both pulled before, which a ready state never has).
+    if (s === 1 && r === 1) return 0;
     if (s === 0 && r === 0) return -1;
-    const s0 = this.port(values, l.sBar, epoch, true);
-    const r0 = this.port(values, l.rBar, epoch, true);
-    if (s !== s0 && r !== r0) return -1; // S̄ and R̄ moved in opposite directions: a transient forbidden input
+    // One port pulled: S̄ and R̄ moved in opposite directions when the other was pulled before and this one was not.
+    const other = s === 0 ? l.rBar : l.sBar;
+    if (this.port(values, other, epoch, true) === 0 && this.port(values, s === 0 ? l.sBar : l.rBar, epoch, true) === 1)
+      return -1; // a transient forbidden input
     const q = values[l.set];
     const next = s === 0 ? 1 : r === 0 ? 0 : q;
     if (next === q) return 0;

@@ -53,6 +53,9 @@ export interface PartRunner {
   readonly history: readonly string[];
 }
 
+/** Bytes per block of kept readings. */
+const KEPT_BLOCK = 1 << 14;
+
 /** Steps between two kept copies of the state (undo replays at most this many steps). */
 export const CHECKPOINT_EVERY = 64;
 
@@ -78,20 +81,21 @@ class LazyClockRecord implements ClockRecord {
     readonly inputs: InputValues,
     private readonly sim: PartSim,
     private readonly drivers: Int32Array,
-    /** The drivers' values while the inputs were held, then after the clock. */
+    /** From `at`: the drivers' values while the inputs were held, then after the clock. */
     private readonly kept: Uint8Array,
+    private readonly at: number,
     private readonly heldUs: number,
     private readonly doneUs: number,
     readonly alarms: readonly PartEvent[],
   ) {}
   get before(): PartReading {
-    return (this.held ??= this.read(0, this.heldUs));
+    return (this.held ??= this.read(this.at, this.heldUs));
   }
   get outputs(): Readonly<Record<string, string>> {
     return this.before.outputs;
   }
   get after(): PartReading {
-    return (this.done ??= this.read(this.drivers.length, this.doneUs));
+    return (this.done ??= this.read(this.at + this.drivers.length, this.doneUs));
   }
   private read(from: number, timeUs: number): PartReading {
     const values = new Uint8Array(this.sim.driverCount).fill(X);
@@ -104,6 +108,56 @@ class LazyClockRecord implements ClockRecord {
 const ACT = 0;
 const CLOCK = 1;
 const RESET = 2;
+
+/**
+ * The log of steps, kept in typed arrays (a clock costs two numbers, nothing for the garbage
+ * collector to walk): the kind of each step and, for a clock with up to 30 inputs, its input
+ * levers as bits; an action or a wider clock's levers sit in a side table by step.
+ */
+class StepLog {
+  private kinds = new Uint8Array(256);
+  private bits = new Int32Array(256);
+  private readonly others = new Map<number, HandAction | string>();
+  length = 0;
+
+  push(kind: number, payload: HandAction | number | string | null): void {
+    if (this.length === this.kinds.length) {
+      const kinds = new Uint8Array(2 * this.length);
+      kinds.set(this.kinds);
+      const bits = new Int32Array(2 * this.length);
+      bits.set(this.bits);
+      this.kinds = kinds;
+      this.bits = bits;
+    }
+    this.kinds[this.length] = kind;
+    if (typeof payload === 'number') this.bits[this.length] = payload;
+    else if (payload !== null) this.others.set(this.length, payload);
+    this.length++;
+  }
+
+  pop(): void {
+    this.length--;
+    this.others.delete(this.length);
+  }
+
+  kind(i: number): number {
+    return this.kinds[i];
+  }
+
+  payload(i: number): HandAction | number | string | null {
+    return this.others.get(i) ?? (this.kinds[i] === CLOCK ? this.bits[i] : null);
+  }
+
+  /** The steps in words, oldest first. */
+  labels(): string[] {
+    const out: string[] = [];
+    for (let i = 0; i < this.length; i++) {
+      const k = this.kinds[i];
+      out.push(k === CLOCK ? 'clock' : k === RESET ? 'reset' : describeAction(this.others.get(i) as HandAction));
+    }
+    return out;
+  }
+}
 
 interface Checkpoint {
   /** The state before step `at`. */
@@ -125,12 +179,13 @@ class Runner implements PartRunner {
   private ready = false;
   private readonly mover: FastMover;
   private readonly drivers: Int32Array;
-  /** The steps done, to replay them: a kind and a payload each. */
-  private readonly kinds: number[] = [];
-  private readonly payloads: (HandAction | number | string | null)[] = [];
-  private readonly labels: string[] = [];
+  /** The steps done, to replay them: a kind and a payload each (see StepLog). */
+  private readonly log = new StepLog();
   private readonly checkpoints: Checkpoint[] = [];
   private alarms: PartEvent[] | null = null;
+  /** Kept readings of the clocks, packed into shared blocks (no allocation per clock). */
+  private block = new Uint8Array(0);
+  private blockUsed = 0;
   /** Events of one move (reused: most moves raise none). */
   private readonly events: PartEvent[] = [];
 
@@ -148,7 +203,7 @@ class Runner implements PartRunner {
   }
 
   get history(): readonly string[] {
-    return this.labels;
+    return this.log.labels();
   }
 
   reading(): PartReading {
@@ -156,7 +211,7 @@ class Runner implements PartRunner {
   }
 
   act(action: HandAction): PartEvent[] {
-    this.remember(ACT, action, describeAction(action));
+    this.remember(ACT, action);
     return this.doAct(action);
   }
 
@@ -165,48 +220,56 @@ class Runner implements PartRunner {
     let packed: number | string = 0;
     if (names.length <= 30) for (let i = 0; i < names.length; i++) packed |= (inputs[names[i]] === 1 ? 1 : 0) << i;
     else packed = names.map((n) => (inputs[n] === 1 ? '1' : '0')).join('');
-    this.remember(CLOCK, packed, 'clock');
+    this.remember(CLOCK, packed);
     this.alarms = null;
     this.setInputs(packed);
     const ds = this.drivers;
-    const kept = new Uint8Array(2 * ds.length);
-    for (let i = 0; i < ds.length; i++) kept[i] = this.values[ds[i]];
+    const at = this.room(2 * ds.length);
+    const kept = this.block;
+    for (let i = 0; i < ds.length; i++) kept[at + i] = this.values[ds[i]];
     const heldUs = this.timeUs;
     this.clockLevers();
-    for (let i = 0; i < ds.length; i++) kept[ds.length + i] = this.values[ds[i]];
+    for (let i = 0; i < ds.length; i++) kept[at + ds.length + i] = this.values[ds[i]];
     const alarms = this.alarms ?? NO_ALARMS;
     this.alarms = null;
-    return new LazyClockRecord(inputs, this.sim, ds, kept, heldUs, this.timeUs, alarms);
+    return new LazyClockRecord(inputs, this.sim, ds, kept, at, heldUs, this.timeUs, alarms);
   }
 
   reset(): PartEvent[] {
-    this.remember(RESET, null, 'reset');
+    this.remember(RESET, null);
     return this.doReset();
   }
 
   undo(): boolean {
-    const k = this.kinds.length - 1;
+    const k = this.log.length - 1;
     if (k < 0) return false;
-    this.kinds.pop();
-    this.payloads.pop();
-    this.labels.pop();
+    this.log.pop();
     while (this.checkpoints.length > 0 && this.checkpoints[this.checkpoints.length - 1].at > k) this.checkpoints.pop();
     const cp = this.checkpoints[this.checkpoints.length - 1];
     this.values = cp.values.slice();
     this.timeUs = cp.timeUs;
     this.ready = cp.ready;
-    for (let i = cp.at; i < k; i++) this.replay(this.kinds[i], this.payloads[i]);
+    for (let i = cp.at; i < k; i++) this.replay(this.log.kind(i), this.log.payload(i));
     return true;
   }
 
-  private remember(kind: number, payload: HandAction | number | string | null, label: string): void {
-    const n = this.kinds.length;
+  /** Room for n kept values in `block` (a new block when it is full): their offset. */
+  private room(n: number): number {
+    if (this.blockUsed + n > this.block.length) {
+      this.block = new Uint8Array(Math.max(KEPT_BLOCK, n));
+      this.blockUsed = 0;
+    }
+    const at = this.blockUsed;
+    this.blockUsed += n;
+    return at;
+  }
+
+  private remember(kind: number, payload: HandAction | number | string | null): void {
+    const n = this.log.length;
     const last = this.checkpoints[this.checkpoints.length - 1] as Checkpoint | undefined;
     if (n % CHECKPOINT_EVERY === 0 && last?.at !== n)
       this.checkpoints.push({ at: n, values: this.values.slice(), timeUs: this.timeUs, ready: this.ready });
-    this.kinds.push(kind);
-    this.payloads.push(payload);
-    this.labels.push(label);
+    this.log.push(kind, payload);
   }
 
   private replay(kind: number, payload: HandAction | number | string | null): void {
