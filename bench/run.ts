@@ -123,7 +123,7 @@ async function main(): Promise<void> {
   const simChecks = benchSimulatorAndChecks(process.argv.includes('--quick'));
   // ── end of the simulator and checks section ──
   step('two-level minimiser');
-  const logic = benchMinimiseLogic();
+  const logic = await benchMinimiseLogic({ quick: process.argv.includes('--quick') });
   const extra: string[] = [];
   try {
     step('browser');

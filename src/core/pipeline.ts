@@ -4,7 +4,11 @@
  * own output type and a contract comment naming its method.
  *
  *   parse → validate → minimise states → encode → excite → guard → minimise logic → map
- *         → balance drive → check
+ *         → size actuators → balance drive → check
+ *
+ * The loads the machine gives its outputs (`loadsG`, and any `actuators` option over them) make
+ * those outputs actuators. A profile's `cordRouting` is checked against the cords of the build
+ * once it is made (LW603: an entry naming no cord would be ignored).
  *
  * `onPhase` (optional) is told how long each phase took; the benchmarks use it.
  */
@@ -22,6 +26,8 @@ import { synthesise } from './synthesise.js';
 import { countParts, partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
 import { balanceDrive } from './physics/buffer-tree.js';
+import { sizeActuators } from './physics/actuators.js';
+import { cordRoutingDiagnostics } from './physics/profile-load.js';
 import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
 import { checkRecovery } from './checks/recovery.js';
 import type { FlatMachine } from './model/flat.js';
@@ -86,7 +92,7 @@ export interface BuildOptions extends AnalyseOptions {
    * Default: don't-care, unless that lets the build lock up in unused codes; then the start state.
    */
   readonly unusedCodes?: string;
-  /** Outputs shown by an actuator: output name → load in grams. */
+  /** Outputs shown by an actuator: output name → load in grams, over the machine's own `loadsG`. */
   readonly actuators?: Readonly<Record<string, number>>;
   readonly budget?: EncodeOptions['budget'];
   readonly onProgress?: EncodeOptions['onProgress'];
@@ -112,7 +118,8 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
   const unused = resolveUnused(a, opts.unusedCodes);
   if (typeof unused === 'object') return { ok: false, form: a.form, diagnostics: [...a.diagnostics, unused] };
   // Buffer trees come from the force budget (balanceDrive), not from a fixed fan-out limit.
-  const synthOpts = { profile, unusedCodes: unused, actuators: opts.actuators, tooMany: () => false };
+  const actuators = { ...a.machine.loadsG, ...opts.actuators };
+  const synthOpts = { profile, unusedCodes: unused, actuators, tooMany: () => false };
   const make = (enc: Encoding): Build => withDrive(synthesise(f, enc, synthOpts), profile);
   // The search prices candidates with the guard method that wins in practice and no unguarded baseline (2 minimisations instead of 5).
   const price = (enc: Encoding): Build =>
@@ -146,6 +153,8 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
           {},
         ),
       );
+    const routes = cordRoutingDiagnostics(profile, build.netlist);
+    if (routes.length > 0) return { ok: false, form: a.form, diagnostics: [...diagnostics, ...routes] };
     const checks =
       opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, opts.seed ?? 1));
     return { ok: true, analysed: a, build, search: encoded.search, checks, profile, diagnostics };
@@ -162,9 +171,12 @@ function withRecovery(b: Build, profile: Profile, seed: number, rebuild: (to: nu
   return rebuild(b.machine.start);
 }
 
-/** Replace the mapper's fixed fan-out limit by the capstan force budget (buffer trees where a margin fails). */
+/**
+ * Replace the mapper's fixed fan-out limit by the capstan force budget: every heavy actuator a
+ * capstan of its own with the turns its load needs, then buffer trees where a margin fails.
+ */
 function withDrive(b: Build, profile: Profile): Build {
-  const netlist = balanceDrive(b.netlist, profile);
+  const netlist = balanceDrive(sizeActuators(b.netlist, profile), profile);
   return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
 }
 

@@ -4,7 +4,8 @@
  * Method: the capstan equation (see capstan.ts). An engaged capstan whose load has reached its
  * stop slips on the turning drum with tension T_hold on its tail and at most T_hold·e^(μθ) on
  * its load side, so friction takes torque up to T_hold·(e^(μθ) − 1)·r_drum from the drum — the
- * bound used here for every engaged capstan (a capstan still lifting takes less). A capstan
+ * bound used here for every engaged capstan (a capstan still lifting takes less), with θ of its
+ * own turns (an actuator's capstan may have more than the profile's `wraps`). A capstan
  * is engaged when its driver's output signal is 0: its cord pulls (for a lever: the lever is
  * not pulled). Torques add per snapshot (one reachable state in one clock phase); the worst
  * snapshot sizes the motor or the crank. Power = torque × ω, ω = 2π·rpm/60.
@@ -19,7 +20,7 @@
  * Postcondition: with no snapshots, the worst case is every capstan engaged at once (`where: null`).
  */
 import type { Netlist } from '../model/netlist.js';
-import { availableTension } from './capstan.js';
+import { availableTension, wrapsOf } from './capstan.js';
 import { holdWeightG } from './drive.js';
 import type { Profile } from './profile.js';
 
@@ -53,8 +54,8 @@ export interface SnapshotTorque<W = string> {
 }
 
 export interface DrumLoad<W = string> {
-  /** Capstans on the drum: every lever or gate with an output cord. */
-  readonly capstans: readonly { readonly driver: string; readonly torqueNm: number }[];
+  /** Capstans on the drum: every lever or gate with an output cord, with its turns. */
+  readonly capstans: readonly { readonly driver: string; readonly wraps: number; readonly torqueNm: number }[];
   readonly totalWraps: number;
   /** Drum length the wraps take: total wraps × wrap pitch. */
   readonly drumLengthM: number;
@@ -74,6 +75,7 @@ export const ALL_ENGAGED = 'every capstan engaged (no states given)';
 
 interface Capstan {
   readonly driver: string;
+  readonly wraps: number;
   readonly torqueNm: number;
 }
 
@@ -192,11 +194,11 @@ export function drumLoad<W>(
   groupOf?: (where: W) => string,
 ): DrumLoad<W> {
   const drivers = new Set(netlist.cords.map((c) => c.driver));
-  const gain = availableTension(profile).gain;
   const capstans = netlist.parts.flatMap((p) => {
     if ((p.kind !== 'lever' && p.kind !== 'gate') || !drivers.has(p.id)) return [];
-    const holdN = availableTension(profile, holdWeightG(profile, p.kind)).holdN;
-    return [{ driver: p.id, torqueNm: holdN * (gain - 1) * profile.drumRadiusM }];
+    const wraps = wrapsOf(p, profile);
+    const t = availableTension(profile, holdWeightG(profile, p.kind), wraps);
+    return [{ driver: p.id, wraps, torqueNm: t.holdN * (t.gain - 1) * profile.drumRadiusM }];
   });
   const omegaRadS = (2 * Math.PI * profile.drumRpm) / 60;
   const reader = new CapstanReader(capstans);
@@ -224,7 +226,7 @@ export function drumLoad<W>(
     const torqueNm = capstans.reduce((t, c) => t + c.torqueNm, 0);
     worst = { where: null, torqueNm, powerW: torqueNm * omegaRadS };
   } else worst = { where: worstRow.where, torqueNm: worstRow.torqueNm, powerW: worstRow.powerW };
-  const totalWraps = capstans.length * profile.wraps;
+  const totalWraps = capstans.reduce((n, c) => n + c.wraps, 0);
   return {
     capstans,
     totalWraps,
