@@ -21,7 +21,7 @@
  *
  * The clocks run 32 at a time on the bit-parallel simulator (sim/sweep.ts), each clock the
  * lanes cannot vouch for again on the event-driven one; a build's clocks from one latch content
- * are simulated once (up to a memory bound) and shared by every pair that holds it.
+ * are simulated once (up to 64 MB of kept results) and shared by every pair that holds it.
  * Bound: the input combinations are sim/assignments.ts's rule: up to `maxExhaustiveInputs`
  * (16) inputs every combination is tried; beyond, per pair one combination per row cube of
  * its written state plus `samples` (256) seeded random ones, and the result says
@@ -142,8 +142,8 @@ interface Clocks {
   readonly alarms: Map<number, string>;
 }
 
-/** Bound on clock results kept for sharing between pairs (node × combination). */
-const KEPT_CLOCKS = 1 << 24;
+/** Bound on the bytes of clock results kept for sharing between pairs (node × combination × (4 + outputs)). */
+const KEPT_BYTES = 1 << 26;
 
 /** The pair exploration: nodes of the build, pairs with the path back to reset. */
 class Explorer {
@@ -299,9 +299,10 @@ class Explorer {
     const n = this.nodes[node];
     if (n.clocks) return n.clocks;
     const clocks = this.simulate(node, this.all);
-    if (this.kept + this.all.length <= KEPT_CLOCKS) {
+    const bytes = this.all.length * (4 + this.f.outputs.length);
+    if (this.kept + bytes <= KEPT_BYTES) {
       n.clocks = clocks;
-      this.kept += this.all.length;
+      this.kept += bytes;
     }
     return clocks;
   }

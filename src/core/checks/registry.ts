@@ -94,7 +94,8 @@ export const CHECKS = [
     label: 'Build behaves as written',
     shortLabel: 'equivalence',
     needs: ['build', 'spec', 'profile', 'seed'],
-    produces: 'product states and pairs explored, exhaustive or sampled, a hand-action counterexample',
+    produces:
+      'pairs (state as written, build state) and steps explored, exhaustive or sampled, a hand-action counterexample',
     run: ({ build, spec, profile, seed }) => checkEquivalence(build, spec, profile, { seed }),
   }),
   entry({
