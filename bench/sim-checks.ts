@@ -106,6 +106,8 @@ function flatToJsonText(f: FlatMachine): string {
 
 const GOAL_RATIO = 10;
 
+const plural = (n: number, word: string): string => `${n} ${word}${n === 1 ? '' : 's'}`;
+
 /** The runner against xstate's actor on one machine, warm, over `clocks` clocks of seeded random inputs. */
 function runnerRow(label: string, a: Analysed, build: Build, clocks: number): SimBenchRow {
   const f = build.machine;
@@ -141,9 +143,9 @@ function runnerRow(label: string, a: Analysed, build: Build, clocks: number): Si
   const short =
     ratio >= GOAL_RATIO
       ? 'met'
-      : `short by ${(GOAL_RATIO / ratio).toFixed(1)}×: ${build.parts.gates} gates evaluated level by level per clock, where xstate looks up one guarded transition`;
+      : `short by ${(GOAL_RATIO / ratio).toFixed(1)}×: every part the clock moves is evaluated, with its settling time, where xstate evaluates one state's guards`;
   return {
-    name: `runner, ${label} (${build.machine.states.length} states, ${build.parts.gates} gates), warm, ${clocks.toLocaleString('en')} clocks`,
+    name: `runner, ${label} (${plural(build.machine.states.length, 'state')}, ${plural(build.parts.gates, 'gate')}), warm, ${clocks.toLocaleString('en')} clocks`,
     figure: `${rate(clocks, to)} clocks/s`,
     reference: `xstate actor ${rate(clocks, tx)} steps/s`,
     ratio: `${ratio.toFixed(2)}×`,
@@ -232,7 +234,7 @@ function cseRow(): SimBenchRow {
     figure: ms(tc),
     reference: `its build (auto encoding, no checks) ${ms(tb)}`,
     ratio: `${(tc / tb).toFixed(2)}×`,
-    goal: `keystroke → every check < 500 ms (checks alone: ${tc + tb < 500 ? 'met with the build' : `build + checks ${ms(tc + tb)}`})`,
+    goal: `keystroke → every check < 500 ms, of which the build's goal is 150 ms: checks < 350 ms (${tc < 350 ? 'met' : `short by ${ms(tc - 350)}`})`,
   };
 }
 

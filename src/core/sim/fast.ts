@@ -49,6 +49,8 @@ export class FastMover {
   private readonly stamp: Int32Array;
   private readonly tChange: Float64Array;
   private readonly changed: Int32Array;
+  /** Per gate: the pass (epoch) in which one of its inputs moved. */
+  private readonly dirty: Int32Array;
   private epoch = 0;
   private count = 0;
   private readonly glitches: Glitches;
@@ -61,6 +63,7 @@ export class FastMover {
     this.stamp = new Int32Array(sim.driverCount);
     this.tChange = new Float64Array(sim.driverCount);
     this.changed = new Int32Array(sim.driverCount);
+    this.dirty = new Int32Array(sim.driverCount);
     this.glitches = new Glitches(sim);
     this.bound = changeBound(sim);
     this.programs = new Array<SettleProgram | undefined>(sim.leverCount * 8).fill(undefined);
@@ -108,10 +111,13 @@ export class FastMover {
     this.count = 0;
     let last = timeUs;
     const steps = prog.steps;
-    const { inStart, inputs } = this.sim;
+    const { inStart, inputs, latches } = this.sim;
+    const dirty = this.dirty;
+    this.touch(lever, epoch);
     for (let i = 0; i < steps.length; i++) {
       const step = steps[i];
       if (step >= 0) {
+        if (dirty[step] !== epoch) continue; // none of its inputs moved: it keeps its settled value
         // A gate, inline: most do not change, and their NAND is all the work.
         const end = inStart[step + 1];
         let out = 0;
@@ -125,12 +131,14 @@ export class FastMover {
         if (t > last) last = t;
         continue;
       }
+      const l = latches[~step];
+      if (dirty[l.set] !== epoch && dirty[l.reset] !== epoch) continue;
       const t = this.latch(values, ~step, epoch);
       if (t < 0) return this.undo(values);
       if (t > last) last = t;
     }
     if (prog.binate.length > 0) {
-      const latest = this.glitches.run(prog.binate, values, this.stamp, this.tChange, epoch);
+      const latest = this.glitches.run(prog.binate, values, this.stamp, this.tChange, this.dirty, epoch);
       if (Number.isNaN(latest) || this.count + this.glitches.changes > this.bound) return this.undo(values);
       if (latest !== -Infinity) last = this.lastOutside(timeUs, latest, epoch);
     }
@@ -187,6 +195,14 @@ export class FastMover {
     this.stamp[g] = epoch;
     this.tChange[g] = at;
     this.changed[this.count++] = g;
+    this.touch(g, epoch);
+  }
+
+  /** Mark the gates driver d feeds: only they can change after it (the pass skips the rest). */
+  private touch(d: number, epoch: number): void {
+    const { fanStart, fanout } = this.sim;
+    const dirty = this.dirty;
+    for (let e = fanStart[d]; e < fanStart[d + 1]; e++) dirty[fanout[e]] = epoch;
   }
 
   /** AND of a port's cords now (`before` false) or before this pass (a changed cord had the other value). */

@@ -43,16 +43,24 @@ export class Glitches {
 
   /**
    * Re-time the binate gates (in order) that saw their inputs move both ways, or read one that
-   * did. Returns the latest time a change of theirs was scheduled for (−∞ when none needed
+   * did (`dirty`: the gates one of whose inputs moved in this pass). Returns the latest time a change of theirs was scheduled for (−∞ when none needed
    * it), or NaN when a waveform does not end at the pass's value (the pass cannot vouch).
    */
-  run(binate: Int32Array, values: Uint8Array, stamp: Int32Array, tChange: Float64Array, epoch: number): number {
+  run(
+    binate: Int32Array,
+    values: Uint8Array,
+    stamp: Int32Array,
+    tChange: Float64Array,
+    dirty: Int32Array,
+    epoch: number,
+  ): number {
     const { inStart, inputs } = this.sim;
     this.used = 0;
     this.changes = 0;
     let latest = -Infinity;
     for (let b = 0; b < binate.length; b++) {
       const g = binate[b];
+      if (dirty[g] !== epoch) continue; // no input moved: no glitch
       let wavy = false;
       let rose = false;
       let fell = false;
@@ -68,6 +76,9 @@ export class Glitches {
       const t = this.waveform(g, values, stamp, tChange, epoch);
       if (Number.isNaN(t)) return NaN;
       if (t > latest) latest = t;
+      // A pulse moves the gates it feeds even when the gate ends where it began.
+      if (this.wfLen[g] > 0)
+        for (let e = this.sim.fanStart[g]; e < this.sim.fanStart[g + 1]; e++) dirty[this.sim.fanout[e]] = epoch;
     }
     return latest;
   }
