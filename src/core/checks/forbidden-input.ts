@@ -7,7 +7,10 @@
  * combination (the `never` ones included: a visitor will try them), the hand procedure is
  * run — inputs set, φ1 pulled and released, φ2 pulled and released — and so is the reset
  * procedure; the simulator reports every instant at which a latch's two ports are pulled at
- * once, so transient overlaps count too. Then, per operating rule, a breadth-first search
+ * once, so transient overlaps count too. The start points run 32 at a time on the
+ * bit-parallel simulator (sim/sweep.ts); one whose latches the settle programs cannot vouch
+ * for (a port pulled both ways, both pulled, no program) runs again event-driven, with its
+ * input levers moved from released, and gives the alarm. Then, per operating rule, a breadth-first search
  * over hand actions from the reset machine, where actions may break that rule (and no
  * other), finds the shortest sequence after which a latch sees the forbidden input, is left
  * X, or the machine oscillates — what signage and interlocks are designed from.

@@ -4,7 +4,8 @@
  *
  * Method: build the graph of clocks among unused codes by part-level simulation (from each
  * unused code, with masters equal to slaves, one clock of the hand procedure per input
- * combination), then a depth-first search for its longest path: k(c) = 1 + the largest k of
+ * combination, 32 at a time on the bit-parallel simulator of sim/sweep.ts, event-driven where
+ * it cannot vouch for a clock), then a depth-first search for its longest path: k(c) = 1 + the largest k of
  * an unused successor (0 for a used one). A cycle is a lock-up loop: some input sequence
  * keeps the machine among unused codes for ever (the usual lock-up analysis of unused states;
  * e.g. Kohavi & Jha, *Switching and Finite Automata Theory*, 3rd ed. — from memory).
