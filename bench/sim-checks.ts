@@ -7,8 +7,8 @@
  *   running the same machine on the same inputs, warm, over 100 000 clocks;
  * - 32 input sequences at once on the bit-parallel lanes, clocks summed over the lanes;
  * - the exhaustive checks (equivalence, forbidden input, recovery) of an 8-state-bit ×
- *   6-input build, against one clock from every (code, inputs) start point on the
- *   event-driven simulator, one at a time (what the checks ran on before);
+ *   6-input build, then every check of it, against one clock from every (code, inputs)
+ *   start point on the event-driven simulator, one at a time (what the checks ran on before);
  * - every check of the cse benchmark machine (16 states), as the designer runs them after a
  *   keystroke, against its build.
  */
@@ -143,7 +143,7 @@ function runnerRow(label: string, a: Analysed, build: Build, clocks: number): Si
   const short =
     ratio >= GOAL_RATIO
       ? 'met'
-      : `short by ${(GOAL_RATIO / ratio).toFixed(1)}×: every part the clock moves is evaluated, with its settling time, where xstate evaluates one state's guards`;
+      : `short by ${(GOAL_RATIO / ratio).toFixed(1)}×: each clock settles, with exact times, every part its four lever moves reach (${plural(build.parts.gates, 'gate')} in all), where xstate evaluates one state's guards; the goal leaves ${((tx / clocks / GOAL_RATIO) * 1000).toFixed(2)} µs per clock, the runner takes ${((to / clocks) * 1000).toFixed(2)} µs`;
   return {
     name: `runner, ${label} (${plural(build.machine.states.length, 'state')}, ${plural(build.parts.gates, 'gate')}), warm, ${clocks.toLocaleString('en')} clocks`,
     figure: `${rate(clocks, to)} clocks/s`,
@@ -183,17 +183,21 @@ function lanesRow(label: string, a: Analysed, build: Build, clocks: number): Sim
   theirs();
   const [tl, tx] = interleaved(5, lanes, theirs);
   const done = steps * 32;
+  const lanesRatio = done / tl / (clocks / tx);
   return {
     name: `32 input sequences at once on the bit-parallel lanes, ${label}, ${done.toLocaleString('en')} clocks summed over the lanes`,
     figure: `${rate(done, tl)} clocks/s`,
     reference: `xstate actor ${rate(clocks, tx)} steps/s (one sequence)`,
-    ratio: `${(done / tl / (clocks / tx)).toFixed(1)}×`,
-    goal: '—',
+    ratio: `${lanesRatio.toFixed(1)}×`,
+    goal: `the runner's ≥ ${GOAL_RATIO}× is per sequence; summed over 32 sequences ${lanesRatio >= GOAL_RATIO ? 'met' : `short by ${(GOAL_RATIO / lanesRatio).toFixed(1)}×`}`,
   };
 }
 
-/** The three exhaustive checks of an 8-bit × 6-input build, against one event-driven clock from every start point. */
-function checksRow(): SimBenchRow {
+/**
+ * The three exhaustive checks of an 8-bit × 6-input build, and then every check of it, against
+ * one event-driven clock from every start point.
+ */
+function checksRows(): SimBenchRow[] {
   const text = flatToJsonText(randomFlatMachine(200, 6, 2, 3));
   const a = mustAnalyse(text, 'random-200.json');
   const build = mustBuild(a, 'binary');
@@ -204,35 +208,50 @@ function checksRow(): SimBenchRow {
     checkForbiddenInput(build, DEFAULT_PROFILE);
     checkRecovery(build, DEFAULT_PROFILE);
   };
+  const every = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1);
   const inputs = grayAssignments(build.machine.inputs.length);
   const eventDriven = (): void => {
     for (const c of allCodes(build.encoding.bits))
       for (const i of inputs) clockFrom(sim, stateAtCode(sim, c, i).values);
   };
   checks();
+  every();
   const [tc, te] = interleaved(3, checks, eventDriven);
-  return {
-    name: `exhaustive checks (equivalence, forbidden input, recovery), ${build.encoding.bits} state bits × ${build.machine.inputs.length} inputs (${build.parts.gates} gates)`,
-    figure: ms(tc),
-    reference: `one clock from each of the ${(2 ** build.encoding.bits * inputs.length).toLocaleString('en')} start points, event-driven, one at a time: ${ms(te)}`,
-    ratio: `${(tc / te).toFixed(2)}×`,
-    goal: `< 1 s (${tc < 1000 ? 'met' : `short by ${ms(tc - 1000)}`})`,
-  };
+  const [ta] = interleaved(3, every, () => undefined);
+  const size = `${build.encoding.bits} state bits × ${build.machine.inputs.length} inputs (${plural(build.parts.gates, 'gate')})`;
+  const reference = `one clock from each of the ${(2 ** build.encoding.bits * inputs.length).toLocaleString('en')} start points, event-driven, one at a time: ${ms(te)}`;
+  const goal = (t: number): string => `< 1 s (${t < 1000 ? 'met' : `short by ${ms(t - 1000)}`})`;
+  return [
+    {
+      name: `exhaustive checks (equivalence, forbidden input, recovery), ${size}`,
+      figure: ms(tc),
+      reference,
+      ratio: `${(tc / te).toFixed(2)}×`,
+      goal: goal(tc),
+    },
+    {
+      name: `every check (the exhaustive ones, next-state equivalence, timing with its Monte Carlo runs, drive), ${size}`,
+      figure: ms(ta),
+      reference,
+      ratio: `${(ta / te).toFixed(2)}×`,
+      goal: goal(ta),
+    },
+  ];
 }
 
 /** Every check of the cse machine, as the designer runs them after a keystroke, against its build. */
 function cseRow(): SimBenchRow {
   const file = 'tests/fixtures/lgsynth91/cse.json';
   const a = mustAnalyse(readFileSync(file, 'utf8'), file);
-  const build = mustBuild(a, 'auto');
+  const build = mustBuild(a, 'binary');
   const checks = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1);
-  const rebuild = (): void => void mustBuild(a, 'auto');
+  const rebuild = (): void => void mustBuild(a, 'binary');
   checks();
   const [tc, tb] = interleaved(3, checks, rebuild);
   return {
     name: `every check of the cse benchmark machine (${build.machine.states.length} states), as after a keystroke in the designer`,
     figure: ms(tc),
-    reference: `its build (auto encoding, no checks) ${ms(tb)}`,
+    reference: `its build (binary codes, as the designer's first build; no checks) ${ms(tb)}`,
     ratio: `${(tc / tb).toFixed(2)}×`,
     goal: `keystroke → every check < 500 ms, of which the build's goal is 150 ms: checks < 350 ms (${tc < 350 ? 'met' : `short by ${ms(tc - 350)}`})`,
   };
@@ -256,7 +275,7 @@ export function benchSimulatorAndChecks(quick: boolean): { rows: SimBenchRow[]; 
     const build = mustBuild(s298, 'binary');
     rows.push(runnerRow("LGSynth'91 s298", s298, build, clocks));
     rows.push(lanesRow("LGSynth'91 s298", s298, build, clocks));
-    rows.push(checksRow());
+    rows.push(...checksRows());
   }
   rows.push(cseRow());
   const markdown = [
@@ -264,7 +283,7 @@ export function benchSimulatorAndChecks(quick: boolean): { rows: SimBenchRow[]; 
     '|---|---|---|---|---|',
     ...rows.map((r) => `| ${r.name} | ${r.figure} | ${r.reference} | ${r.ratio} | ${r.goal} |`),
     '',
-    'CPU time of this process (user + system), median of interleaved runs. The runner moves one lever at a time by the settle programs (sim/program.ts, sim/fast.ts), with every settling time exact; the lanes carry 32 independent input sequences in one machine word per part.',
+    'CPU time of this process (user + system), median of interleaved runs. The runner moves one lever at a time by the settle programs (sim/program.ts, sim/fast.ts), with every settling time exact; the lanes carry 32 independent input sequences in one machine word per part. The designer rows of the first table time a whole keystroke in the browser, build and checks together.',
   ].join('\n');
   return { rows, markdown };
 }
