@@ -71,6 +71,7 @@ export { locateJsonPaths, readJsonText, withoutBom, type JsonRead } from './form
 // ── Analyse, build, compare: the pipeline ───────────────────────────────────────────────────
 export {
   analyse,
+  BUILD_DEFAULTS,
   buildMachine,
   compareEncodings,
   runChecks,
@@ -224,6 +225,7 @@ export {
   DOCUMENT_MAKERS,
   DOCUMENT_REGISTRY,
   netlistJson,
+  partRoles,
   schematicSvg,
   verilogFiles,
   wiringCsv,
@@ -233,6 +235,8 @@ export {
   type DocumentName,
   type DocumentsInput,
   type DocumentSources,
+  type PartRole,
+  type SchematicOptions,
   type TourClock,
   type VerilogFiles,
   type WiringRow,

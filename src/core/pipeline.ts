@@ -17,6 +17,7 @@ import type { Machine, SourceLoc } from './model/machine.js';
 import { nameRecord, ownValue } from './model/records.js';
 import type { Build, Encoding } from './model/build.js';
 import {
+  DEFAULT_ENCODING,
   encode,
   ENCODINGS,
   type EncodeOptions,
@@ -83,10 +84,24 @@ export function analyse(text: string, file?: string, opts: AnalyseOptions = {}):
   return { ok: true, form: parsed.form, machine, flat, minimised, diagnostics };
 }
 
+/**
+ * What a build uses when its caller says nothing: the one set of defaults of every shell (the
+ * CLI's options and the designer's settings both start from here, so one file builds the
+ * same machine in both). `unusedCodes` is absent on purpose: left out, unused codes are
+ * don't-cares unless that lets the build lock up, and then they go to the start state.
+ */
+export const BUILD_DEFAULTS: {
+  readonly encoding: EncodeStrategy;
+  readonly seed: number;
+  readonly profile: Profile;
+} = { encoding: DEFAULT_ENCODING, seed: 1, profile: DEFAULT_PROFILE };
+
 export interface BuildOptions extends AnalyseOptions {
-  /** A named encoding or a strategy function (default 'auto'). */
+  /** A named encoding or a strategy function (default BUILD_DEFAULTS.encoding, the searched codes). */
   readonly encoding?: EncodeStrategy | ((f: FlatMachine, o: EncodeOptions) => Encoding);
+  /** The technology profile (default BUILD_DEFAULTS.profile). */
   readonly profile?: Profile;
+  /** Seed of every seeded step: the encoding search and the checks (default BUILD_DEFAULTS.seed). */
   readonly seed?: number;
   /**
    * Unused state codes: 'dont-care', or the name of a state every unused code is sent to.
@@ -114,7 +129,8 @@ export interface Built {
 
 /** encode → synthesise (excite → guard → minimise logic → map) → balance drive → check. */
 export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Rejected {
-  const profile = opts.profile ?? DEFAULT_PROFILE;
+  const profile = opts.profile ?? BUILD_DEFAULTS.profile;
+  const seed = opts.seed ?? BUILD_DEFAULTS.seed;
   const f = a.minimised.machine;
   const unused = resolveUnused(a, opts.unusedCodes);
   if (typeof unused === 'object') return { ok: false, form: a.form, diagnostics: [...a.diagnostics, unused] };
@@ -127,9 +143,9 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
     withDrive(synthesise(f, enc, { ...synthOpts, guard: 'split-by-bit', guardBaseline: false }), profile);
   try {
     const encoded = timed(opts, 'encode', () =>
-      encode(f, opts.encoding ?? 'auto', {
+      encode(f, opts.encoding ?? BUILD_DEFAULTS.encoding, {
         ...pinnedCodes(a),
-        seed: opts.seed,
+        seed,
         budget: opts.budget,
         now: opts.now,
         onProgress: opts.onProgress,
@@ -142,7 +158,7 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
     const first = timed(opts, 'synthesise', () => make(encoding));
     const build =
       opts.unusedCodes === undefined
-        ? withRecovery(first, profile, opts.seed ?? 1, (to) =>
+        ? withRecovery(first, profile, seed, (to) =>
             withDrive(synthesise(f, encoding, { ...synthOpts, unusedCodes: to }), profile),
           )
         : first;
@@ -156,8 +172,7 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
       );
     const routes = cordRoutingDiagnostics(profile, build.netlist);
     if (routes.length > 0) return { ok: false, form: a.form, diagnostics: [...diagnostics, ...routes] };
-    const checks =
-      opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, opts.seed ?? 1));
+    const checks = opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, seed));
     return { ok: true, analysed: a, build, search: encoded.search, checks, profile, diagnostics };
   } catch (e) {
     if (e instanceof DiagnosticError)
@@ -237,7 +252,7 @@ export function compareEncodings(a: Analysed, opts: BuildOptions = {}): Encoding
   const rows = strategies.map((strategy) => {
     const b = buildMachine(a, { ...opts, encoding: strategy, checks: false });
     if (!b.ok) return { strategy, ok: false, diagnostics: b.diagnostics.filter((d) => d.severity === 'error') };
-    const profile = opts.profile ?? DEFAULT_PROFILE;
+    const profile = opts.profile ?? BUILD_DEFAULTS.profile;
     const termGates = b.build.netlist.parts.filter((p) => p.kind === 'gate' && p.role === 'term').length;
     return {
       strategy,

@@ -89,7 +89,11 @@ async function run(m: ToWorker): Promise<void> {
         return;
       }
       try {
-        post({ kind: 'schematic', rev: m.rev, svg: schematicSvg(checked.built.build) });
+        post({
+          kind: 'schematic',
+          rev: m.rev,
+          svg: schematicSvg(checked.built.build, undefined, { palette: 'screen' }),
+        });
       } catch (e) {
         post({ kind: 'schematic', rev: m.rev, problem: message(e) });
       }
