@@ -248,6 +248,18 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
     expect(printed.cords).toBe(ref.placement.routing.branches.length);
     // The paper drawing, not the screen one.
     expect(printed.style).not.toContain('--lw-');
+    // Ctrl+P on the frame prints the same drawing, not the page around it.
+    await frame.evaluate((f) => f.setAttribute('data-seen', ''));
+    // The focus came back from the print frame to the button.
+    await expect(
+      page.locator('lw-frame button[data-do="print-frame"]').evaluate((b) => b.matches(':focus')),
+    ).resolves.toBe(true);
+    await page.keyboard.press('Control+P');
+    const again = page.locator('iframe#lw-print:not([data-seen])');
+    await expect.poll(() => again.getAttribute('data-printed')).toBe('1');
+    await expect(again.evaluate((f: HTMLIFrameElement) => f.contentDocument?.title ?? '')).resolves.toBe(
+      'Frame — marble_bell',
+    );
   });
 
   it('follows the dark theme on screen', async () => {

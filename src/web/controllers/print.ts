@@ -23,8 +23,11 @@ export function printHtml(html: string, title = 'The build sheet, for printing')
       'load',
       () => {
         const w = frame.contentWindow;
+        const back = deepActive();
         w?.focus();
         w?.print();
+        // The dialog is closed: the keys go back to where they were (the designer's own shortcuts with them).
+        back?.focus();
         frame.dataset.printed = String(Number(frame.dataset.printed ?? 0) + 1);
         done();
       },
@@ -33,4 +36,11 @@ export function printHtml(html: string, title = 'The build sheet, for printing')
     frame.srcdoc = html;
     document.body.append(frame);
   });
+}
+
+/** The element that has the focus, looked for inside shadow roots too. */
+function deepActive(): HTMLElement | undefined {
+  let at = document.activeElement;
+  while (at?.shadowRoot?.activeElement) at = at.shadowRoot.activeElement;
+  return at instanceof HTMLElement ? at : undefined;
 }

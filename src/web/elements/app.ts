@@ -450,6 +450,12 @@ export class LwApp extends LitElement {
       else card?.show();
       return;
     }
+    // Ctrl+P (⌘P) on the frame prints the frame drawing at its scale, not the page around it.
+    if (this.view === 'frame' && (e.ctrlKey || e.metaKey) && !e.altKey && !e.shiftKey && e.key.toLowerCase() === 'p') {
+      e.preventDefault();
+      if (this.synth.work === Work.done) this.onPrintFrame();
+      return;
+    }
     // The trial run's keys work where its levers are shown: the trial run and the frame.
     if ((this.view !== 'trial' && this.view !== 'frame') || this.card()?.open) return;
     const target = e.composedPath()[0];
