@@ -277,6 +277,49 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
     await page.emulateMedia({ colorScheme: 'light' });
   });
 
+  it('draws a machine on two drums with every bay, and lights a cord that goes from one drum to the other', async () => {
+    const file = 'crossing.lw';
+    const a = analyse(readFileSync(fileURLToPath(new URL(`../../examples/${file}`, import.meta.url)), 'utf8'), file);
+    if (!a.ok) throw new Error('the example must read');
+    const b = buildMachine(a);
+    if (!b.ok) throw new Error('the example must build');
+    expect(b.placement.drums.length).toBe(2);
+    await page.locator('lw-bench select[aria-label="Load an example machine"]').selectOption({
+      label: 'Level crossing with a call button',
+    });
+    await built(page);
+    await frameTab();
+    const ends = await page
+      .locator('lw-frame rect.lever[data-part]')
+      .evaluateAll((rs) =>
+        rs.map((r) => ['data-part', 'data-lever', 'data-drum', 'data-bay'].map((x) => r.getAttribute(x)).join(' ')),
+      );
+    const placed = b.placement.bays.flatMap((bay) =>
+      bay.levers.filter((l) => l.name !== 'exit').map((l) => `${bay.part} ${l.name} ${bay.drum} ${bay.bay}`),
+    );
+    expect(ends.sort()).toEqual(placed.sort());
+    const drumOf = new Map(b.placement.bays.map((x) => [x.part, x.drum]));
+    const across = b.placement.routing.branches.find(
+      (x) => x.kind === 'port' && drumOf.get(x.driver) !== drumOf.get(x.part),
+    );
+    if (!across) throw new Error('a cord crosses between the drums');
+    await page.locator(`lw-frame path.cord[data-cord="${across.cord}"][data-target="${across.target}"]`).focus();
+    const lit = await page
+      .locator('lw-frame .end[data-part]')
+      .evaluateAll((es) => es.map((e) => e.getAttribute('data-part') ?? ''));
+    expect(new Set(lit)).toEqual(new Set([across.driver, across.part]));
+    expect(await downOnPage()).toEqual(
+      downInNode(
+        b,
+        (() => {
+          const r = createRunner(b.build, timingOf(b.profile));
+          resetActions().forEach((x) => r.act(x));
+          return r;
+        })(),
+      ),
+    );
+  });
+
   it('keeps the drawing in its own box on a phone: nothing overflows, the box pans', async () => {
     const phone = await openPage(await designer.context(PHONE), designer.url);
     await built(phone);
