@@ -340,7 +340,15 @@ export class LwFrame extends LitElement {
       cut${over.length ? `, over ${over.join(' and ')}` : ''}.`;
   }
 
-  protected override updated(changed: PropertyValues<this>): void {
+  /** A new placement: its cords are other cords, so none stays lit. */
+  protected override willUpdate(changed: PropertyValues<this>): void {
+    if (changed.has('placement')) {
+      this.hovered = undefined;
+      this.pinned = undefined;
+    }
+  }
+
+  protected override updated(): void {
     const root = this.renderRoot.querySelector<SVGSVGElement>('.sheet svg');
     if (!root) return;
     if (!this.zoomChosen) {
@@ -362,10 +370,6 @@ export class LwFrame extends LitElement {
         hit.setAttribute('aria-hidden', 'true');
         path.after(hit);
       }
-    }
-    if (changed.has('placement')) {
-      this.hovered = undefined;
-      this.pinned = undefined;
     }
     this.showStands(root);
     this.showLit(root);
