@@ -64,6 +64,8 @@ export class LwFrame extends LitElement {
   private pinned: Lit | undefined;
   /** The drawing the cords were made focusable in. */
   private prepared: SVGSVGElement | undefined;
+  /** The placement the box was last scrolled to the levers for. */
+  private scrolledFor: Placement | undefined;
 
   constructor() {
     super();
@@ -373,9 +375,22 @@ export class LwFrame extends LitElement {
     }
     this.showStands(root);
     this.showLit(root);
+    if (this.scrolledFor !== this.placement) {
+      this.scrolledFor = this.placement;
+      this.scrollToLevers(root);
+    }
     // For the browser tests: the zoom, and the size of the drawing's smallest text on screen.
     this.dataset.zoom = String(this.zoom);
     this.dataset.smallestTextPx = (SMALLEST_TEXT_MM * PX_PER_MM * this.zoom).toFixed(2);
+  }
+
+  /** Scroll the box down past the title block, to the bay labels and lever ends of the highest drum. */
+  private scrollToLevers(root: SVGSVGElement): void {
+    const box = root.parentElement;
+    const labels = [...root.querySelectorAll('g[data-part] text')];
+    if (!box || labels.length === 0) return;
+    const top = Math.min(...labels.map((t) => t.getBoundingClientRect().top));
+    box.scrollTop += top - box.getBoundingClientRect().top - 8;
   }
 
   /** Every lever end takes its stand in the trial run (none when the trial run has no machine). */
