@@ -206,6 +206,12 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
     await page.locator('lw-frame button[data-do="clock"]').click();
     act(phaseActions());
     expect(await downOnPage()).toEqual(downInNode(ref, runner));
+    // The trial run's keys work on the frame: C, a whole clock.
+    const before = await page.locator('lw-frame [data-read="clocks"]').innerText();
+    await page.keyboard.press('c');
+    act(phaseActions());
+    await expect(page.locator('lw-frame [data-read="clocks"]').innerText()).resolves.toBe(String(Number(before) + 1));
+    expect(await downOnPage()).toEqual(downInNode(ref, runner));
     // The trial run leads here.
     await tab('Trial run');
     await page.locator('button[data-do="see-frame"]').click();
