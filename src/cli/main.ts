@@ -85,13 +85,13 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promi
       case 'check':
         return runCheck(args, io);
       case 'build':
-        return runBuild(args, io);
+        return await runBuild(args, io);
       case 'compare':
         return runCompare(args, io);
       case 'step':
         return await runStepCommand(args, io);
       case 'demo':
-        return runDemo(args, io);
+        return await runDemo(args, io);
       default:
         reportFailure(
           [

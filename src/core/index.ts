@@ -66,6 +66,7 @@ export { printCubes, printExpr } from './forms/expr.js';
 export {
   analyse,
   buildMachine,
+  buildSearchSetup,
   compareEncodings,
   runChecks,
   type AnalyseOptions,
@@ -77,6 +78,7 @@ export {
   type Rejected,
 } from './pipeline.js';
 export type { StateMinimisation } from './phases/minimise-states/index.js';
+export { planSearch, searchOutcome, searchTaskRunner, type SearchExtras, type SearchSetup } from './search.js';
 
 // ── Encodings (the encodings registry) ──────────────────────────────────────────────────────
 export {
@@ -94,6 +96,10 @@ export {
   type EncodingEntry,
   type EncodingRun,
   type Progress,
+  SKETCH_SEARCH,
+  type AutoSearch,
+  type SearchTask,
+  type TaskResult,
 } from './phases/encode/index.js';
 
 // ── The checks ──────────────────────────────────────────────────────────────────────────────

@@ -18,12 +18,12 @@ import {
   type EncodeResult,
   type EncodeStrategy,
 } from './phases/encode/index.js';
-import { synthesise } from './synthesise.js';
-import { countParts, partsCost } from './phases/map/index.js';
+import { balanced, synthesise } from './synthesise.js';
+import { partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
-import { balanceDrive } from './physics/buffer-tree.js';
 import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
-import { checkRecovery } from './checks/recovery.js';
+import { recovered, searchOptions, synthesisOptions, type SearchSetup } from './search.js';
+import type { GuardMethod } from './phases/guard.js';
 import type { FlatMachine } from './model/flat.js';
 import { readMachine, type MachineForm } from './forms/detect.js';
 import { validate } from './phases/validate.js';
@@ -33,6 +33,8 @@ export type PhaseHook = (phase: string, millis: number) => void;
 
 export interface AnalyseOptions {
   readonly onPhase?: PhaseHook;
+  /** Told when a phase starts (a shell's progress line). */
+  readonly onPhaseStart?: (phase: string) => void;
   /** A clock for the phase hook (the core itself never reads the time). */
   readonly now?: () => number;
 }
@@ -55,6 +57,7 @@ export interface Rejected {
 }
 
 export function timed<T>(opts: AnalyseOptions, phase: string, run: () => T): T {
+  opts.onPhaseStart?.(phase);
   if (!opts.onPhase || !opts.now) return run();
   const t0 = opts.now();
   const out = run();
@@ -90,6 +93,11 @@ export interface BuildOptions extends AnalyseOptions {
   readonly actuators?: Readonly<Record<string, number>>;
   readonly budget?: EncodeOptions['budget'];
   readonly onProgress?: EncodeOptions['onProgress'];
+  /**
+   * The outcome of this build's automatic search, already run elsewhere (a shell that spreads
+   * it over threads: search.ts); used instead of searching again when the encoding is 'auto'.
+   */
+  readonly searched?: EncodeResult;
   /** Run the checks (default true); a comparison of encodings skips them. */
   readonly checks?: boolean;
 }
@@ -109,36 +117,28 @@ export interface Built {
 export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Rejected {
   const profile = opts.profile ?? DEFAULT_PROFILE;
   const f = a.minimised.machine;
-  const unused = resolveUnused(a, opts.unusedCodes);
-  if (typeof unused === 'object') return { ok: false, form: a.form, diagnostics: [...a.diagnostics, unused] };
-  // Buffer trees come from the force budget (balanceDrive), not from a fixed fan-out limit.
-  const synthOpts = { profile, unusedCodes: unused, actuators: opts.actuators, tooMany: () => false };
-  const make = (enc: Encoding): Build => withDrive(synthesise(f, enc, synthOpts), profile);
-  // The search prices candidates with the guard method that wins in practice and no unguarded baseline (2 minimisations instead of 5).
-  const price = (enc: Encoding): Build =>
-    withDrive(synthesise(f, enc, { ...synthOpts, guard: 'split-by-bit', guardBaseline: false }), profile);
+  const setup = buildSearchSetup(a, opts);
+  if (!('machine' in setup)) return { ok: false, form: a.form, diagnostics: [...a.diagnostics, setup] };
+  const make = (enc: Encoding, unused = setup.unusedCodes, guard?: GuardMethod): Build =>
+    balanced(synthesise(f, enc, { ...synthesisOptions(setup, unused), ...(guard ? { guard } : {}) }), profile);
+  const strategy = opts.encoding ?? 'auto';
   try {
-    const encoded = timed(opts, 'encode', () =>
-      encode(f, opts.encoding ?? 'auto', {
-        ...pinnedCodes(a),
-        seed: opts.seed,
-        budget: opts.budget,
-        now: opts.now,
-        onProgress: opts.onProgress,
-        cost: (codes, bits) => partsCost(price({ strategy: 'candidate', bits, codes }).parts, profile.cost),
-      }),
-    );
+    const encoded =
+      opts.searched && strategy === 'auto'
+        ? opts.searched
+        : timed(opts, 'encode', () =>
+            encode(
+              f,
+              strategy,
+              searchOptions(setup, { now: opts.now, onProgress: opts.onProgress, millis: opts.budget?.millis }),
+            ),
+          );
     const diagnostics = [...a.diagnostics, ...encoded.diagnostics];
     if (!encoded.encoding || hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
     const encoding = encoded.encoding;
     const first = timed(opts, 'synthesise', () => make(encoding));
-    const build =
-      opts.unusedCodes === undefined
-        ? withRecovery(first, profile, opts.seed ?? 1, (to) =>
-            withDrive(synthesise(f, encoding, { ...synthOpts, unusedCodes: to }), profile),
-          )
-        : first;
-    if (build !== first)
+    const { build, toStart } = recovered(first, setup, (unused, guard) => make(encoding, unused, guard));
+    if (toStart)
       diagnostics.push(
         diag(
           'LW703',
@@ -156,16 +156,24 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
   }
 }
 
-/** The build, or (when it can lock up in unused codes) the build with unused codes sent to the start state. */
-function withRecovery(b: Build, profile: Profile, seed: number, rebuild: (to: number) => Build): Build {
-  if (b.encoding.codes.length === 2 ** b.encoding.bits || checkRecovery(b, profile, { seed }).ok) return b;
-  return rebuild(b.machine.start);
-}
-
-/** Replace the mapper's fixed fan-out limit by the capstan force budget (buffer trees where a margin fails). */
-function withDrive(b: Build, profile: Profile): Build {
-  const netlist = balanceDrive(b.netlist, profile);
-  return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
+/**
+ * What the encoding search of this build depends on, as plain data (search.ts): a shell that
+ * runs the search on several threads plans it from this and passes the outcome back to
+ * `buildMachine` as `searched`. A bad unused-code target comes back as its diagnostic.
+ */
+export function buildSearchSetup(a: Analysed, opts: BuildOptions = {}): SearchSetup | Diagnostic {
+  const unused = resolveUnused(a, opts.unusedCodes);
+  if (typeof unused === 'object') return unused;
+  return {
+    machine: a.minimised.machine,
+    profile: opts.profile ?? DEFAULT_PROFILE,
+    unusedCodes: unused,
+    recover: opts.unusedCodes === undefined,
+    ...(opts.actuators ? { actuators: opts.actuators } : {}),
+    seed: opts.seed ?? 1,
+    ...pinnedCodes(a),
+    ...(opts.budget?.evaluations !== undefined ? { evaluations: opts.budget.evaluations } : {}),
+  };
 }
 
 /** Every check of the registry (checks/registry.ts), in the order reports show them, all with one seed. */

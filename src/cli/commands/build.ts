@@ -7,9 +7,9 @@ import { EXIT } from '../exit.js';
 import { reportFailure } from './common.js';
 import { writeDocuments } from './out.js';
 
-export function runBuild(args: ParsedArgs, io: CliIo): number {
+export async function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
   const json = args.flags.json === true;
-  const r = buildFromArgs(args, io);
+  const r = await buildFromArgs(args, io);
   if (!r.ok) {
     reportFailure(r.diagnostics, io, json);
     return EXIT.badInput;

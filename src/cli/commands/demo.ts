@@ -8,10 +8,10 @@ import { runBuild } from './build.js';
 /** The demo machine shipped with the package. */
 export const DEMO_FILE = join(dirname(fileURLToPath(import.meta.url)), '..', '..', '..', 'examples', 'marble-bell.lw');
 
-export function runDemo(args: ParsedArgs, io: CliIo): number {
+export async function runDemo(args: ParsedArgs, io: CliIo): Promise<number> {
   const file = relative(process.cwd(), DEMO_FILE) || DEMO_FILE;
   io.out(`Demo: building ${file} — a marble lift that rings a bell on every third marble.\n\n`);
-  const code = runBuild({ ...args, command: 'build', positional: [file] }, io);
+  const code = await runBuild({ ...args, command: 'build', positional: [file] }, io);
   io.out(
     `\nNext: \`npx latchwright step ${file}\` to work its levers, or \`npx latchwright build ${file} --out build/\` for the workshop documents.\n`,
   );

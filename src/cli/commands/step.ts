@@ -36,7 +36,7 @@ export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<numbe
       return EXIT.badInput;
     }
   }
-  const b = buildFromArgs(args, io, { checks: false });
+  const b = await buildFromArgs(args, io, { checks: false });
   if (!b.ok) {
     reportFailure(b.diagnostics, io, false);
     return EXIT.badInput;

@@ -13,6 +13,7 @@ import {
   compareEncodings,
   DEFAULT_PROFILE,
   type DriveResult,
+  type EncodeResult,
   type Encoding,
   equationTexts,
   findCheck,
@@ -55,13 +56,14 @@ export function buildOptions(s: BuildSettings, onProgress?: (p: Progress) => voi
   };
 }
 
-/** Encode and synthesise, without the checks (they follow in checkJob). */
+/** Encode and synthesise, without the checks (they follow in checkJob); `searched`: the search already run on two cores (worker/search.ts). */
 export function buildJob(
   a: Analysed,
   s: BuildSettings,
   onProgress?: (p: Progress) => void,
+  searched?: EncodeResult,
 ): { view?: BuildView; built?: Built; diagnostics: Built['diagnostics'] } {
-  const b = buildMachine(a, { ...buildOptions(s, onProgress), checks: false });
+  const b = buildMachine(a, { ...buildOptions(s, onProgress), checks: false, ...(searched ? { searched } : {}) });
   if (!b.ok) return { diagnostics: b.diagnostics };
   const view: BuildView = {
     build: b.build,
