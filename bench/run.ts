@@ -188,7 +188,7 @@ async function main(): Promise<void> {
   step('drive');
   rows.push(benchDrive());
   step('two-level minimiser');
-  const logic = benchMinimiseLogic();
+  const logic = await benchMinimiseLogic({ quick: process.argv.includes('--quick') });
   const extra: string[] = [];
   try {
     step('browser');

@@ -21,14 +21,38 @@ export interface CliIo {
  */
 export const MAX_READ_BYTES = 16 * 1024 * 1024;
 
-export function nodeIo(): CliIo {
+/** The two output streams nodeIo writes to (injectable for tests). */
+export interface OutputStreams {
+  readonly stdout: NodeJS.WritableStream;
+  readonly stderr: NodeJS.WritableStream;
+}
+
+/**
+ * A stream that stops quietly once its reader has gone (`latchwright build … | head -1`): the
+ * broken pipe (EPIPE) is the reader's choice, not a fault, so later writes are dropped and the
+ * command ends with the status its checks earned. Any other write error is thrown as before.
+ */
+function quietWriter(stream: NodeJS.WritableStream): (s: string) => void {
+  let closed = false;
+  stream.on('error', (e: NodeJS.ErrnoException) => {
+    // After a broken pipe, a write already under way may still fail ("stream destroyed").
+    if (e.code !== 'EPIPE' && !closed) throw e;
+    closed = true;
+  });
+  return (s) => {
+    if (!closed) stream.write(s);
+  };
+}
+
+export function nodeIo(streams: OutputStreams = process): CliIo {
+  const err = quietWriter(streams.stderr);
   return {
-    out: (s) => void process.stdout.write(s),
-    err: (s) => void process.stderr.write(s),
+    out: quietWriter(streams.stdout),
+    err,
     readText,
     interactive: Boolean(process.stdin.isTTY && process.stdout.isTTY),
     threads: availableParallelism(),
-    ...(process.stderr.isTTY ? { progress: (s: string) => void process.stderr.write(s) } : {}),
+    ...(process.stderr.isTTY ? { progress: err } : {}),
   };
 }
 

@@ -58,7 +58,9 @@ export async function runStep(build: Build, spec: SpecInfo, opts: StepOptions, i
       ? runAbstractScript(build, opts.inputsFile)
       : runPartScript(build, opts.inputsFile, timingOf(opts.profile ?? DEFAULT_PROFILE));
     io.write(opts.json ? JSON.stringify(rows, null, 2) + '\n' : formatRows(build, rows));
-    return rows.some((r) => r.alarms.length > 0 && !opts.abstract) ? EXIT.checkFailed : EXIT.ok;
+    // The same rule in both modes: a clock that raised an alarm (inputs declared impossible,
+    // an upset latch) fails the run, whether the parts or the machine itself were stepped.
+    return rows.some((r) => r.alarms.length > 0) ? EXIT.checkFailed : EXIT.ok;
   }
   if (!io.readKeys) {
     err(

@@ -177,9 +177,18 @@ export { runAbstract, stepAbstract, type AbstractClock, type AbstractStepResult 
 export { randomFlatMachine } from './sim/random-machine.js';
 
 // ── The technology profile and the physics of the drive ─────────────────────────────────────
-export { DEFAULT_PROFILE, type CostWeights, type Profile, type RoutingLoss } from './physics/profile.js';
-export { loadProfile } from './physics/profile-load.js';
-export { availableTension, capstanGain, type Tension } from './physics/capstan.js';
+export {
+  DEFAULT_PROFILE,
+  type CostWeights,
+  type Profile,
+  type ProfileAbout,
+  type RoutingLoss,
+} from './physics/profile.js';
+export { cordRoutingDiagnostics, loadProfile, profileChanges, type ProfileChange } from './physics/profile-load.js';
+export { availableTension, capstanGain, muNeeded, type Tension } from './physics/capstan.js';
+export { frictionHeadroom, headroomWords, type Headroom, type OutputLoad } from './physics/headroom.js';
+export { sizeActuators } from './physics/actuators.js';
+export { withoutCapstan, withoutCapstanWords } from './phases/map/index.js';
 export { driveBudget, type BranchLoad, type DriverBudget } from './physics/drive.js';
 export { drumLoad, type DriveSnapshot, type DrumLoad, type SnapshotTorque } from './physics/drum.js';
 export { operatorForces, type OperatorForce } from './physics/operator.js';

@@ -4,7 +4,11 @@
  * own output type and a contract comment naming its method.
  *
  *   parse → validate → minimise states → encode → excite → guard → minimise logic → map
- *         → balance drive → check
+ *         → size actuators → balance drive → check
+ *
+ * The loads the machine gives its outputs (`loadsG`, and any `actuators` option over them) make
+ * those outputs actuators. A profile's `cordRouting` is checked against the cords of the build
+ * once it is made (LW603: an entry naming no cord would be ignored).
  *
  * `onPhase` (optional) is told how long each phase took; the benchmarks use it.
  */
@@ -21,6 +25,7 @@ import {
 import { balanced, synthesise } from './synthesise.js';
 import { partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
+import { cordRoutingDiagnostics } from './physics/profile-load.js';
 import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
 import { recovered, searchOptions, synthesisOptions, type SearchSetup } from './search.js';
 import type { GuardMethod } from './phases/guard.js';
@@ -89,7 +94,7 @@ export interface BuildOptions extends AnalyseOptions {
    * Default: don't-care, unless that lets the build lock up in unused codes; then the start state.
    */
   readonly unusedCodes?: string;
-  /** Outputs shown by an actuator: output name → load in grams. */
+  /** Outputs shown by an actuator: output name → load in grams, over the machine's own `loadsG`. */
   readonly actuators?: Readonly<Record<string, number>>;
   readonly budget?: EncodeOptions['budget'];
   readonly onProgress?: EncodeOptions['onProgress'];
@@ -146,6 +151,8 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
           {},
         ),
       );
+    const routes = cordRoutingDiagnostics(profile, build.netlist);
+    if (routes.length > 0) return { ok: false, form: a.form, diagnostics: [...diagnostics, ...routes] };
     const checks =
       opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, opts.seed ?? 1));
     return { ok: true, analysed: a, build, search: encoded.search, checks, profile, diagnostics };
@@ -164,12 +171,13 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
 export function buildSearchSetup(a: Analysed, opts: BuildOptions = {}): SearchSetup | Diagnostic {
   const unused = resolveUnused(a, opts.unusedCodes);
   if (typeof unused === 'object') return unused;
+  const actuators = { ...a.machine.loadsG, ...opts.actuators };
   return {
     machine: a.minimised.machine,
     profile: opts.profile ?? DEFAULT_PROFILE,
     unusedCodes: unused,
     recover: opts.unusedCodes === undefined,
-    ...(opts.actuators ? { actuators: opts.actuators } : {}),
+    ...(Object.keys(actuators).length > 0 ? { actuators } : {}),
     seed: opts.seed ?? 1,
     ...pinnedCodes(a),
     ...(opts.budget?.evaluations !== undefined ? { evaluations: opts.budget.evaluations } : {}),

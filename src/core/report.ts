@@ -6,6 +6,8 @@ import type { Analysed, Built } from './pipeline.js';
 import { printCubes } from './forms/expr.js';
 import { billOfMaterials } from './physics/bom.js';
 import { operatorForces } from './physics/operator.js';
+import { profileChanges } from './physics/profile-load.js';
+import type { Profile } from './physics/profile.js';
 
 /** The `machine` block that `check --json` and `build --json` share: counts and names. */
 export function machineBlock(a: Analysed) {
@@ -29,6 +31,15 @@ export function equationTexts(b: Built): { name: string; expr: string }[] {
   }));
 }
 
+/** The `profile` block: the file and description of the profile used, and every value that differs from the defaults with its source. */
+export function profileBlock(profile: Profile) {
+  return {
+    ...(profile.about?.file !== undefined ? { file: profile.about.file } : {}),
+    ...(profile.about?.description !== undefined ? { description: profile.about.description } : {}),
+    changes: profileChanges(profile),
+  };
+}
+
 /** The whole report as one JSON-ready object. */
 export function buildReport(b: Built) {
   const f = b.build.machine;
@@ -42,6 +53,7 @@ export function buildReport(b: Built) {
       ...(b.search ? { search: b.search } : {}),
     },
     parts: b.build.parts,
+    profile: profileBlock(b.profile),
     guard: b.build.guard,
     equations: equationTexts(b),
     checks: b.checks,

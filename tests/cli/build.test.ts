@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEFAULT_PROFILE } from '../../src/core/physics/profile.js';
-import { expectNoStack, run, runJson, removeTempDirs, tempDir, writeTemp, type Run } from './support.js';
+import { expectNoStack, readText, run, runJson, removeTempDirs, tempDir, writeTemp, type Run } from './support.js';
 
 interface Check {
   name: string;
@@ -28,7 +28,7 @@ interface Report {
   netlist: { parts: Part[]; cords: { id: string; driver: string; ports: unknown[]; actuators: unknown[] }[] };
   checks: Check[];
   ok: boolean;
-  bom: { item: string; count: number }[];
+  bom: { item: string; kind: string; count: number }[];
   diagnostics: unknown[];
 }
 
@@ -100,8 +100,11 @@ describe('cli/commands/build --json', () => {
     // A master and a slave latch per state bit; one lever per input plus φ1, φ2 and reset.
     expect(parts.latches).toBe(2 * r.json.encoding.bits);
     expect(parts.levers).toBe(r.json.machine.inputs + 3);
-    // Every gate and every lever works its own capstan.
-    expect(parts.capstans).toBe(parts.gates + parts.levers);
+    // Every gate and lever whose output pulls a cord works its own capstan (DESIGN.md §3: a
+    // flag reads Z unbuffered, so a gate only a flag reads needs none); the BOM counts the same.
+    const driving = new Set(netlist.cords.map((c) => c.driver));
+    expect(parts.capstans).toBe(netlist.parts.filter((p) => p.kind !== 'latch' && driving.has(p.id)).length);
+    expect(r.json.bom.filter((b) => b.kind === 'capstan').reduce((n, b) => n + b.count, 0)).toBe(parts.capstans);
     // Each latch is two gates of the gate count.
     expect(netlist.parts.filter((p) => p.role === 'latch-set' || p.role === 'latch-reset')).toHaveLength(
       2 * parts.latches,
@@ -201,5 +204,118 @@ describe('cli/commands/build with a low-friction profile', () => {
     expect(t.out).toContain(`  FAIL drive: `);
     expect(t.out).toContain(`'${d.weakestCord as string}'`);
     expectNoStack(t);
+  });
+});
+
+describe('cli/commands/build with real loads: the canal lock (examples/canal-lock.lw)', () => {
+  const CANAL = 'examples/canal-lock.lw';
+  interface Drive {
+    ok: boolean;
+    muMin: number;
+    muAtMinMargin: number;
+    outputs: Record<string, { loadG: number; maxLoadG: number; margin: number }>;
+    drivers: { driver: string; wraps: number; margin: number }[];
+  }
+
+  // Hand computation from DESIGN.md §4 (capstan equation, T_hold = 15 g, μ = 0.25, margin 2):
+  // 450 g needs a gain of 60 → ln 60 / (2π·0.25) = 2.61 turns → 2.75; 300 g a gain of 40 →
+  // 2.35 turns → 2.5; 120 g fits the profile's two turns. Available = 15 g · e^(0.25·2π·turns).
+  const hand = (turns: number, loadG: number) => {
+    const available = 15 * Math.exp(0.25 * 2 * Math.PI * turns);
+    return { margin: available / loadG, maxLoadG: Math.floor((available / 2) * 10) / 10 };
+  };
+
+  it('passes with the margins a hand computation gives, and reports the friction headroom', async () => {
+    const r = await runJson<Report>(['build', CANAL, '--encoding', 'binary', '--json']);
+    expect(r.code).toBe(0);
+    const d = r.json.checks.find((c) => c.name === 'drive') as unknown as Drive;
+    expect(d.ok).toBe(true);
+    const want: Record<string, [number, number]> = {
+      lower_gate: [2.75, 450],
+      upper_gate: [2.75, 450],
+      fill: [2.5, 300],
+      drain: [2.5, 300],
+      bell: [2, 120],
+    };
+    for (const [o, [turns, load]] of Object.entries(want)) {
+      const h = hand(turns, load);
+      expect(d.outputs[o].loadG, o).toBe(load);
+      expect(d.outputs[o].margin, o).toBeCloseTo(h.margin, 9);
+      expect(d.outputs[o].maxLoadG, o).toBe(h.maxLoadG);
+    }
+    expect(d.outputs.lower_gate.margin).toBeCloseTo(2.506, 3);
+    expect(d.outputs.fill.margin).toBeCloseTo(2.538, 3);
+    // The gates' capstans slip first: μ = ln(450/15) / (2π·2.75).
+    expect(d.muMin).toBeCloseTo(Math.log(30) / (2 * Math.PI * 2.75), 12);
+    expect(d.muAtMinMargin).toBeCloseTo(Math.log(60) / (2 * Math.PI * 2.75), 12);
+    expect(r.json.bom.find((b) => b.item === 'actuator lower_gate')).toBeDefined();
+    const t = await run(['build', CANAL, '--encoding', 'binary']);
+    expect(t.out).toContain("output 'lower_gate' lifts 450 g, at most 563 g at margin 2");
+    expect(t.out).toContain('every capstan holds down to μ = 0.197 and keeps margin 2 down to μ = 0.237');
+  });
+
+  it('fails naming the output, how far short and what to change when the load is too heavy', async () => {
+    const files = { 'heavy.lw': readText(CANAL).replace('load lower_gate 450 g', 'load lower_gate 5 kg') };
+    const t = await run(['build', 'heavy.lw', '--encoding', 'binary'], files);
+    expect(t.code).toBe(1);
+    // 4 turns (maxWraps) hold 15 g · e^(2π) = 8032 g: at margin 2, 4016 g, 984 g short of 5000 g.
+    expect(t.out).toContain(
+      "FAIL drive: over budget, margin below 2: output 'lower_gate' lifts 5000 g (actuator act.lower_gate",
+    );
+    expect(t.out).toContain('can move at most 4016 g at margin 2: 984 g short');
+    expect(t.out).toContain("fix: a lighter load on 'lower_gate': at most 4016 g");
+    expect(t.out).toContain('raise maxWraps to 4.25 (now 4)');
+    expectNoStack(t);
+  });
+});
+
+describe('cli/commands/build with a profile that slips a unit or names no cord', () => {
+  const dir = tempDir('lw-slip-');
+
+  it('warns about millimetres given as metres, and still builds (the value is allowed)', async () => {
+    const t = await run([
+      'build',
+      MB,
+      '--encoding',
+      'binary',
+      '--profile',
+      writeTemp(dir, 'r.json', '{"drumRadiusM": 40}'),
+    ]);
+    expect(t.code).toBe(0);
+    expect(t.err).toContain(
+      "$.drumRadiusM: warning LW602: profile field 'drumRadiusM' is 40 m, outside the plausible 0.01–0.3 m: did you mean 0.04 (millimetres given as metres)?",
+    );
+  });
+
+  it('refuses a stage delay that allows less than one clock a minute, naming the slip', async () => {
+    const t = await run([
+      'build',
+      MB,
+      '--encoding',
+      'binary',
+      '--profile',
+      writeTemp(dir, 's.json', '{"stageDelayS": 250}'),
+    ]);
+    expect(t.code).toBe(2);
+    expect(t.err).toContain('error LW600');
+    expect(t.err).toContain('did you mean 0.25 (milliseconds given as seconds)?');
+  });
+
+  it('refuses a cordRouting key that names no cord, with the cord meant (the old profile reference example)', async () => {
+    const p = writeTemp(
+      dir,
+      'c.json',
+      JSON.stringify({ cordRouting: { 'c.phi1': { pinAngleRad: 1.5708, pulleys: 1 } } }),
+    );
+    const t = await run(['build', MB, '--encoding', 'binary', '--profile', p]);
+    expect(t.code).toBe(2);
+    expect(t.err).toContain(`${p} $.cordRouting["c.phi1"]: error LW603:`);
+    expect(t.err).toContain("did you mean 'c.clk.phi1'?");
+    expectNoStack(t);
+  });
+
+  it('names the gates that have no capstan in the parts line, and counts the same capstans as the BOM', async () => {
+    const t = await run(['build', 'examples/ferry-gate.lw', '--encoding', 'binary']);
+    expect(t.out).toContain('24 capstans, 42 weights, 49 cords (2 gates that only show a flag have no capstan)');
   });
 });

@@ -107,6 +107,21 @@ describe('cli/commands/step', () => {
     expectNoStack(r);
   });
 
+  it('gives the same exit status in both modes: 1 for a clock whose inputs are declared impossible', async () => {
+    // examples/ferry-gate.lw declares `never visitor & cast_off`.
+    const files = { 'clocks.json': JSON.stringify([{ visitor: 1 }, { visitor: 1, cast_off: 1 }]) };
+    const argv = ['step', examplePath('ferry-gate'), '--inputs', 'clocks.json', '--encoding', 'binary'];
+    const built = await run(argv, files);
+    const abstract = await run([...argv, '--abstract'], files);
+    expect(built.code).toBe(1);
+    expect(abstract.code).toBe(1);
+    expect(built.out).toContain('these inputs are declared never to occur');
+    expect(abstract.out).toContain('these inputs are declared never to occur');
+    const fine = { 'clocks.json': JSON.stringify([{ visitor: 1 }, {}]) };
+    expect((await run(argv, fine)).code).toBe(0);
+    expect((await run([...argv, '--abstract'], fine)).code).toBe(0);
+  });
+
   it('without --inputs and without a terminal: asks for a sequence file, exit 2', async () => {
     const r = await run(['step', examplePath('marble-bell'), '--encoding', 'binary']);
     expect(r.code).toBe(2);

@@ -33,4 +33,8 @@ describe('core/report', () => {
     const places = { worstAt: d?.worstAt, worstByState: d?.worstByState };
     expect(JSON.parse(JSON.stringify(places))).toEqual(places);
   });
+
+  it('carries the profile used: the shipped defaults say no more than that no value changed', () => {
+    expect(buildReport(built('examples/marble-bell.lw')).profile).toEqual({ changes: [] });
+  });
 });

@@ -1,5 +1,5 @@
 /** `latchwright build FILE`: synthesise, check, and report (or write the build documents). */
-import { buildReport, type Built, equationTexts } from '../../core/index.js';
+import { buildReport, type Built, equationTexts, withoutCapstanWords } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
 import { buildFromArgs, printDiagnostics } from './build-common.js';
@@ -42,8 +42,9 @@ export function textReport(b: Built): string {
   lines.push(
     `encoding ${b.build.encoding.strategy}, ${b.build.encoding.bits} state bits: ${f.states.map((s, i) => `${s}=${b.build.encoding.codes[i] || '—'}`).join(' ')}`,
   );
+  const idle = withoutCapstanWords(b.build.netlist);
   lines.push(
-    `parts: ${p.latches} latches, ${p.gates} gates, ${p.levers} levers, ${p.capstans} capstans, ${p.weights} weights, ${p.cords} cords`,
+    `parts: ${p.latches} latches, ${p.gates} gates, ${p.levers} levers, ${p.capstans} capstans, ${p.weights} weights, ${p.cords} cords${idle ? ` (${idle})` : ''}`,
   );
   const g = b.build.guard;
   lines.push(

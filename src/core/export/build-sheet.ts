@@ -2,11 +2,14 @@
  * The build sheet's content: what goes to the workshop, as a Doc rendered to HTML and
  * Markdown by build-sheet-html.ts and build-sheet-md.ts.
  *
- * Sections: the machine and its checks; safety cautions (DESIGN §9, in full); the state
- * table with codes; the set/reset equations per latch and the output equations; the
- * forbidden-input guard; parts and bill of materials; drive margins (capstan equation), drum
- * torque and lever force; timing and clock rate; the wiring list; the operating rules with
- * what breaking each one does (from the forbidden-input check). Figures come from the checks
+ * Sections: the machine and its checks; safety cautions (DESIGN §9, in full); the technology
+ * profile (its file and description, and every value that differs from the shipped defaults
+ * with the source the profile gives); the state table with codes; the set/reset equations per
+ * latch and the output equations; the forbidden-input guard; parts and bill of materials;
+ * drive margins (capstan equation), the friction headroom, what each output moves (an
+ * actuator its load; a flag only its own swing), drum torque and lever force; timing and
+ * clock rate; the wiring list; the operating rules with what breaking each one does (from the
+ * forbidden-input check). Figures come from the checks
  * the pipeline ran; a section whose check is missing says so rather than guessing.
  * Pure: no I/O; text only (renderers escape).
  */
@@ -15,6 +18,9 @@ import type { Machine } from '../model/machine.js';
 import type { Profile } from '../physics/profile.js';
 import { billOfMaterials } from '../physics/bom.js';
 import { driveBudget } from '../physics/drive.js';
+import { frictionHeadroom, type Headroom } from '../physics/headroom.js';
+import { profileChanges } from '../physics/profile-load.js';
+import { withoutCapstanWords } from '../phases/map/counts.js';
 import { OPERATING_RULES, RULE_WORDS } from '../sim/hand.js';
 import { momentWords, type SnapshotPlace } from '../sim/snapshots.js';
 import { findCheck, type CheckResult } from '../checks/results.js';
@@ -64,17 +70,15 @@ function summarySection(input: DocumentsInput): Section {
       [
         ['machine', f.name],
         ['inputs', f.inputs.join(', ') || '(none)'],
-        ['outputs', f.outputs.join(', ') || '(none)'],
+        ['outputs', outputsLine(build) || '(none)'],
         ['states', statesLine],
         ['start state', f.states[f.start]],
         [
           'encoding',
           `${build.encoding.strategy}, ${build.encoding.bits} state ${build.encoding.bits === 1 ? 'bit' : 'bits'}`,
         ],
-        [
-          'parts',
-          `${build.parts.gates} gates (${build.parts.latches} latches), ${build.parts.levers} levers, ${build.parts.capstans} capstans, ${build.parts.weights} weights, ${build.parts.cords} cords`,
-        ],
+        ['parts', partsLine(build)],
+        ['technology profile', profileName(input.profile)],
       ],
     ),
   );
@@ -97,6 +101,51 @@ function summarySection(input: DocumentsInput): Section {
     );
   else blocks.push(p('No checks were run for this sheet.'));
   return { id: 'machine', title: 'Machine', blocks };
+}
+
+/** `fill (actuator, 300 g), bell (flag)`: every output and what shows it. */
+function outputsLine(build: Build): string {
+  const parts = new Map(build.netlist.parts.map((q) => [q.id, q]));
+  return build.machine.outputs
+    .map((o) => {
+      const part = parts.get(build.signals.outputs[o] ?? '');
+      return part?.kind === 'actuator' ? `${o} (actuator, ${num(part.loadG, 1)} g)` : `${o} (flag)`;
+    })
+    .join(', ');
+}
+
+/** The part counts, with the gates and levers that have no capstan named. */
+function partsLine(build: Build): string {
+  const c = build.parts;
+  const idle = withoutCapstanWords(build.netlist);
+  return `${c.gates} gates (${c.latches} latches), ${c.levers} levers, ${c.capstans} capstans${idle ? ` (${idle})` : ''}, ${c.weights} weights, ${c.cords} cords`;
+}
+
+/** The profile in a few words: its file and description, or the shipped defaults. */
+function profileName(profile: Profile): string {
+  const a = profile.about;
+  if (!a?.file && !a?.description) return 'the shipped defaults (profiles/default.json)';
+  return [a.file, a.description].filter((x) => x !== undefined && x !== '').join(' — ');
+}
+
+function profileSection(input: DocumentsInput): Section {
+  const { profile } = input;
+  const changes = profileChanges(profile);
+  const blocks: Block[] = [p(`Profile: ${profileName(profile)}.`)];
+  if (changes.length === 0)
+    blocks.push(p('Every value is the shipped default; profiles/default.json gives the source of each.'));
+  else
+    blocks.push(
+      p(
+        'Values that differ from the shipped defaults (profiles/default.json), with the source this profile gives for each. A value without a source is one to measure or to justify before building.',
+      ),
+      table(
+        ['field', 'value', 'default', 'source'],
+        changes.map((c) => [c.field, c.value, c.fallback, c.source ?? 'NOT GIVEN — add it under "sources"']),
+        { mono: [0, 1, 2] },
+      ),
+    );
+  return { id: 'profile', title: 'Technology profile', blocks };
 }
 
 function safetySection(): Section {
@@ -142,6 +191,7 @@ function partsSection(input: DocumentsInput): Section {
   const bom = billOfMaterials(build.netlist, profile);
   const stages = stagesOf(build.netlist);
   const parts = [...build.netlist.parts].sort((a, b) => stages.compare(a.id, b.id));
+  const idle = withoutCapstanWords(build.netlist);
   return {
     id: 'parts',
     title: 'Parts and bill of materials',
@@ -150,6 +200,13 @@ function partsSection(input: DocumentsInput): Section {
         ['gates', 'latches', 'levers', 'capstans', 'weights', 'cords'],
         [[c.gates, c.latches, c.levers, c.capstans, c.weights, c.cords].map(String)],
       ),
+      ...(idle
+        ? [
+            p(
+              `Capstans: one per gate or lever whose output pulls a cord; ${idle}. The bill of materials, the drum length, the drum torque and the cost count the same ${c.capstans}.`,
+            ),
+          ]
+        : []),
       table(
         ['item', 'kind', 'count', 'each', 'unit', 'total', 'note'],
         bom.map((r) => [r.item, r.kind, String(r.count), num(r.each, 3), r.unit, num(r.total, 3), r.note]),
@@ -179,11 +236,23 @@ function driveSection(input: DocumentsInput): Section {
       `Capstan equation: a cord wrapped ${num(profile.wraps)} turns on the drum (μ = ${num(profile.mu)}) holds up to e^(μθ) = ${num(Math.exp(profile.mu * 2 * Math.PI * profile.wraps))} times its hold tension. Margin = available ÷ load; the design rule asks at least ${num(profile.minMargin)}. Weakest first.`,
     ),
     table(
-      ['driver', 'kind', 'cords', 'branches', 'hold (g)', 'available (g)', 'load (g)', 'margin', 'within budget'],
+      [
+        'driver',
+        'kind',
+        'cords',
+        'turns',
+        'branches',
+        'hold (g)',
+        'available (g)',
+        'load (g)',
+        'margin',
+        'within budget',
+      ],
       budgets.map((b) => [
         b.driver,
         b.driverKind,
         b.cords.join(', '),
+        num(b.wraps),
         String(b.branches.length),
         num(b.holdG, 1),
         num(b.availableG, 1),
@@ -201,6 +270,8 @@ function driveSection(input: DocumentsInput): Section {
       title: b.message ?? `driver ${b.driver} is over budget`,
       items: b.fixes ?? [],
     });
+  const headroom = d ?? frictionHeadroom(build.netlist, budgets, profile);
+  blocks.push(...headroomBlocks(headroom, profile), outputsTable(input, headroom.outputs));
   if (d) {
     blocks.push(
       table(
@@ -215,6 +286,53 @@ function driveSection(input: DocumentsInput): Section {
     );
   } else blocks.push(p('The drive check (drum torque and lever force) was not run for this sheet.'));
   return { id: 'drive', title: 'Drive margins', blocks };
+}
+
+/** The friction headroom: how far μ may fall before the first capstan slips, and before the design margin goes. */
+function headroomBlocks(h: Pick<Headroom, 'muMin' | 'muAtMinMargin'>, profile: Profile): Block[] {
+  if (h.muMin === null || h.muAtMinMargin === null) return [p('Friction headroom: no capstan carries a load.')];
+  return [
+    p(
+      `Friction headroom: damp cord, a polished drum or wear lower μ. With μ = ${num(profile.mu)} now, every capstan still holds its load down to μ = ${num(h.muMin, 3)}, and keeps the design margin ${num(profile.minMargin)} down to μ = ${num(h.muAtMinMargin, 3)}. Measure μ on the finished machine (docs/profile.md) and compare.`,
+    ),
+  ];
+}
+
+/** What every output moves: an actuator its load (and the most it could lift), a flag only its own swing. */
+function outputsTable(input: DocumentsInput, loads: Headroom['outputs']): Block {
+  const { build, profile } = input;
+  const parts = new Map(build.netlist.parts.map((q) => [q.id, q]));
+  const m = num(profile.minMargin);
+  const rows = build.machine.outputs.map((o) => {
+    const part = parts.get(build.signals.outputs[o] ?? '');
+    const l = loads[o];
+    if (part?.kind === 'actuator' && l)
+      return [o, 'actuator', num(l.loadG, 1), num(l.maxLoadG, 1), num(l.margin), 'its load, by its own capstan'];
+    if (part?.kind === 'actuator')
+      return [
+        o,
+        'actuator',
+        num(part.loadG, 1),
+        '—',
+        '—',
+        `held ${part.fixed === 1 ? 'lifted' : 'at rest'}: the output is constant`,
+      ];
+    return [
+      o,
+      'flag',
+      '—',
+      '—',
+      '—',
+      "the Z lever's own swing: no external load (give the output a load to drive one)",
+    ];
+  });
+  return table(
+    ['output', 'shown by', 'load (g)', `most it can lift at margin ${m} (g)`, 'margin', 'what it moves'],
+    rows,
+    {
+      caption: 'What each output moves',
+    },
+  );
 }
 
 /** Where the drum torque is worst, in the sheet's words. */
@@ -272,19 +390,20 @@ function wiringSection(input: DocumentsInput): Section {
         'One row per cord branch, in tying order: every cord of one capstan before the next, from the levers to the flags. The same list is in wiring.csv.',
       ),
       table(
-        ['step', 'cord', 'from', 'side', 'to', 'port', 'routing', 'load (g)', 'margin'],
+        ['step', 'cord', 'from', 'side', 'turns', 'to', 'port', 'routing', 'load (g)', 'margin'],
         rows.map((r) => [
           String(r.step),
           r.cord,
           r.driver,
           r.driverSide,
+          num(r.turns),
           r.target,
           r.port,
           r.routing,
           num(r.loadG, 1),
           num(r.margin),
         ]),
-        { tick: true, mono: [1, 2, 4, 5] },
+        { tick: true, mono: [1, 2, 5, 6] },
       ),
     ],
   };
@@ -342,6 +461,7 @@ export function buildSheet(input: DocumentsInput): Doc {
     sections: [
       summarySection(input),
       safetySection(),
+      profileSection(input),
       { id: 'states', title: 'State table', blocks: stateTableBlocks(input.build) },
       { id: 'equations', title: 'Set and reset equations', blocks: equationBlocks(input.build) },
       guardSection(input),

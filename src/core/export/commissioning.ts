@@ -13,6 +13,9 @@
  * for a build whose checks passed).
  * The outputs shown once the inputs are set are compared with the state table too.
  * A one-state machine has no latches, clock or reset levers: one row per input setting.
+ * The CSV opens with the safety cautions (DESIGN §9): after the header line, one record per
+ * caution (step `caution`, the text under `action`), so the file stays one table a spreadsheet
+ * reads, and whoever opens it meets the cautions before the first hand action.
  */
 import type { Build } from '../model/build.js';
 import type { OutBit } from '../model/machine.js';
@@ -31,6 +34,7 @@ import {
   type PartSim,
   type PartState,
 } from '../sim/part.js';
+import { CAUTIONS } from './build-sheet.js';
 import { toCsv } from './csv.js';
 import type { TourClock } from './tour.js';
 
@@ -207,6 +211,7 @@ export function commissioningCsv(rows: readonly CommissioningRow[]): string {
     'note',
     'done',
   ];
+  const cautions = CAUTIONS.map((c) => ['caution', '', c, ...header.slice(3).map(() => '')]);
   const body = rows.map((r) => [
     r.step,
     r.clock,
@@ -218,5 +223,5 @@ export function commissioningCsv(rows: readonly CommissioningRow[]): string {
     r.note,
     '',
   ]);
-  return toCsv([header, ...body]);
+  return toCsv([header, ...cautions, ...body]);
 }

@@ -57,6 +57,7 @@ function partObject(p: Part): object {
         role: p.role,
         ports: p.ports.map((q) => ({ name: q.name })),
         ...(p.latch !== undefined ? { latch: p.latch } : {}),
+        ...(p.wraps !== undefined ? { wraps: p.wraps } : {}),
       };
     case 'latch':
       return {

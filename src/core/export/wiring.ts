@@ -1,8 +1,9 @@
 /**
  * The wiring list: one row per cord branch (a cord tied to one port or actuator), with what
  * a builder needs to tie it and to know it will hold — the driver and the side of it the cord
- * leaves from, the target part and port, the routing allowance, the branch's load and the
- * driver's force margin (physics/drive.ts, the capstan equation).
+ * leaves from, the turns of its capstan on the drum, the target part and port (for an
+ * actuator, its load), the routing allowance, the branch's load and the driver's force margin
+ * (physics/drive.ts, the capstan equation).
  *
  * Order: by driver in stage order (stages.ts: levers first, flags last; netlist order within
  * a stage), then by target in the same order, then port name — so a builder works along the
@@ -12,7 +13,7 @@
  */
 import { partIndex, type Netlist, type Part } from '../model/netlist.js';
 import { branchLoads, driveBudget } from '../physics/drive.js';
-import { routingFor } from '../physics/capstan.js';
+import { routingFor, wrapsOf } from '../physics/capstan.js';
 import type { Profile, RoutingLoss } from '../physics/profile.js';
 import { recordsToCsv } from './csv.js';
 import { num } from './readable.js';
@@ -29,10 +30,12 @@ export interface WiringRow {
   readonly driverName: string;
   /** Which output: `capstan` of a lever or gate, `Q (set side)` or `Q̄ (reset side)` of a latch. */
   readonly driverSide: string;
+  /** Turns of the driver's capstan on the drum. */
+  readonly turns: number;
   /** The gate (or actuator) the branch is tied to. */
   readonly target: string;
   readonly targetName: string;
-  /** Port name on the target gate; empty for an actuator. */
+  /** Port name on the target gate; for an actuator, the load it lifts (`load 300 g`). */
   readonly port: string;
   /** Routing allowance in words. */
   readonly routing: string;
@@ -82,7 +85,10 @@ export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
     const branches = (loads.get(c.driver) ?? []).filter((b) => b.cord === c.id);
     const targets = [
       ...c.ports.map((p) => ({ part: p.part, port: p.port })),
-      ...c.actuators.map((a) => ({ part: a, port: '' })),
+      ...c.actuators.map((a) => {
+        const x = parts.get(a);
+        return { part: a, port: x?.kind === 'actuator' ? `load ${num(x.loadG, 1)} g` : '' };
+      }),
     ];
     targets.forEach((t, i) => {
       const b = branches[i];
@@ -92,6 +98,7 @@ export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
         driver: ds.driver,
         driverName: ds.name,
         driverSide: ds.side,
+        turns: wrapsOf(d, profile),
         target: t.part,
         targetName: parts.get(t.part)?.name ?? '',
         port: t.port,
@@ -123,6 +130,7 @@ const HEADER: Readonly<Record<keyof WiringRow, string>> = {
   driver: 'driver',
   driverName: 'driver name',
   driverSide: 'driver side',
+  turns: 'turns',
   target: 'target',
   targetName: 'target name',
   port: 'port',

@@ -4,9 +4,10 @@
  *
  * Fields: name, inputs, outputs, start, unspecified ("hold" | "dont-care", default "hold"),
  * never (expression strings), states: [{ name, code?, outputs?, transitions: [{ when?, to,
- * outputs? }] }]. Two additive extensions: `code` on a state (a pinned state code of 0/1
- * digits) and `description` on the machine (the text form's header comment, so that
- * text → JSON → text keeps it).
+ * outputs? }] }]. Additive extensions: `code` on a state (a pinned state code of 0/1
+ * digits), `final` on a state (true: meant to stay there until reset), `loadsG` on the machine
+ * (output name → grams the output lifts: those outputs are actuators) and `description` on the
+ * machine (the text form's header comment, so that text → JSON → text keeps it).
  *
  * Preconditions: none — any value of any type gives diagnostics, never an exception.
  * Postconditions: a Machine is returned exactly when no error was found; every part carries
@@ -28,6 +29,7 @@ export interface JsonTransition {
 export interface JsonState {
   name: string;
   code?: string;
+  final?: true;
   outputs?: Record<string, OutBit>;
   transitions: JsonTransition[];
 }
@@ -40,6 +42,7 @@ export interface JsonMachine {
   start: string;
   unspecified: 'hold' | 'dont-care';
   never?: string[];
+  loadsG?: Record<string, number>;
   states: JsonState[];
 }
 
@@ -49,8 +52,8 @@ export interface MachineResult {
   readonly diagnostics: Diagnostic[];
 }
 
-const TOP_KEYS = ['name', 'description', 'inputs', 'outputs', 'start', 'unspecified', 'never', 'states'];
-const STATE_KEYS = ['name', 'code', 'outputs', 'transitions'];
+const TOP_KEYS = ['name', 'description', 'inputs', 'outputs', 'start', 'unspecified', 'never', 'loadsG', 'states'];
+const STATE_KEYS = ['name', 'code', 'final', 'outputs', 'transitions'];
 const TRANSITION_KEYS = ['when', 'to', 'outputs'];
 
 type Obj = Record<string, unknown>;
@@ -229,6 +232,39 @@ function readNever(r: JsonReader, value: Obj, inputs: readonly string[]): Guard[
   return never;
 }
 
+/** `loadsG`: output name → grams above 0 (where each was written goes to `locs` as `load:NAME`). */
+function readLoads(r: JsonReader, value: Obj, locs: Record<string, SourceLoc>): Record<string, number> | undefined {
+  const raw = own(value, 'loadsG');
+  if (raw === undefined) return undefined;
+  if (!isObj(raw)) {
+    r.wrongType('$.loadsG', 'an object of output name → grams, like {"bell": 120}', raw);
+    return undefined;
+  }
+  const loads = Object.create(null) as Record<string, number>;
+  for (const k of Object.keys(raw)) {
+    const v = raw[k];
+    const p = jsonKey('$.loadsG', k);
+    if (typeof v === 'number' && Number.isFinite(v) && v > 0) {
+      loads[k] = v;
+      locs[`load:${k}`] = r.at(p);
+    } else
+      r.ds.push(
+        diag(
+          'LW107',
+          `the load of '${k}' is ${typeTextOf(v)}; a load is a number of grams above 0`,
+          r.at(p),
+          typeof v === 'string' ? `write the grams as a number: "${k}": 300` : `write "${k}": 300 for 300 g`,
+        ),
+      );
+  }
+  return loads;
+}
+
+/** A value in a message: numbers as they are, anything else by its kind. */
+function typeTextOf(v: unknown): string {
+  return typeof v === 'number' ? String(v) : typeName(v);
+}
+
 /** `states`: the list of states, each read by readState. */
 function readStates(r: JsonReader, value: Obj, inputs: readonly string[]): State[] {
   const states: State[] = [];
@@ -262,6 +298,11 @@ function readState(r: JsonReader, rs: unknown, si: number, inputs: readonly stri
     if (typeof code !== 'string') r.wrongType(`${sp}.code`, 'a string of 0/1 digits', code);
     locs.code = r.at(`${sp}.code`);
   }
+  const final = own(rs, 'final');
+  if (final !== undefined) {
+    if (typeof final !== 'boolean') r.wrongType(`${sp}.final`, 'true or false', final);
+    locs.final = r.at(`${sp}.final`);
+  }
   const outputs = r.outputsMap(own(rs, 'outputs'), `${sp}.outputs`, locs);
   // How messages name the state: by its name when it has one, else by its number.
   const label = typeof sName === 'string' ? `'${sName}'` : String(si + 1);
@@ -278,7 +319,15 @@ function readState(r: JsonReader, rs: unknown, si: number, inputs: readonly stri
     });
   if (typeof sName !== 'string') return undefined;
   const pinned = typeof code === 'string' ? { code } : {};
-  return { name: sName, outputs, transitions, ...pinned, loc: r.at(sp), partLocs: locs };
+  return {
+    name: sName,
+    outputs,
+    transitions,
+    ...pinned,
+    ...(final === true ? { final } : {}),
+    loc: r.at(sp),
+    partLocs: locs,
+  };
 }
 
 /** One transition at JSON path `tp`; `what` names it in messages. */
@@ -326,6 +375,7 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
   const start = readStart(r, value);
   const unspecified = readUnspecified(r, value);
   const never = readNever(r, value, inputs);
+  const loadsG = readLoads(r, value, partLocs);
   const states = readStates(r, value, inputs);
 
   if (r.ds.some((d) => d.severity === 'error')) return { diagnostics: r.ds };
@@ -337,6 +387,7 @@ export function machineFromJson(value: unknown, file?: string): MachineResult {
     unspecified,
     never,
     states,
+    ...(loadsG && Object.keys(loadsG).length > 0 ? { loadsG } : {}),
     ...(typeof rawDescription === 'string' ? { description: rawDescription } : {}),
     loc: r.at('$'),
     partLocs,
@@ -350,6 +401,16 @@ function orderedOutputs(m: Machine, rec: Readonly<Record<string, OutBit>>): Reco
   if (keys.length === 0) return undefined;
   const order = [...m.outputs.filter((o) => keys.includes(o)), ...keys.filter((k) => !m.outputs.includes(k))];
   return Object.fromEntries(order.map((k) => [k, rec[k]]));
+}
+
+/** The loads in the machine's output order, then any others as written. */
+export function orderedLoads(m: Machine): [string, number][] {
+  const loads = m.loadsG ?? {};
+  const keys = Object.keys(loads);
+  return [...m.outputs.filter((o) => keys.includes(o)), ...keys.filter((k) => !m.outputs.includes(k))].map((k) => [
+    k,
+    loads[k],
+  ]);
 }
 
 /** True when a guard is the literal constant 1 (written as an absent `when`). */
@@ -367,11 +428,13 @@ export function machineToJson(m: Machine): JsonMachine {
     start: m.start,
     unspecified: m.unspecified,
     ...(m.never.length ? { never: m.never.map((g) => printExpr(g.expr)) } : {}),
+    ...(m.loadsG && Object.keys(m.loadsG).length > 0 ? { loadsG: Object.fromEntries(orderedLoads(m)) } : {}),
     states: m.states.map((s) => {
       const outs = orderedOutputs(m, s.outputs);
       return {
         name: s.name,
         ...(s.code !== undefined ? { code: s.code } : {}),
+        ...(s.final === true ? { final: true as const } : {}),
         ...(outs ? { outputs: outs } : {}),
         transitions: s.transitions.map((t) => {
           const tOuts = orderedOutputs(m, t.outputs);

@@ -9,7 +9,8 @@
  *   start empty
  *   unspecified dont-care               (optional; the default is hold)
  *   never marble & lid                  (one expression per line)
- *   state empty code 00 with bell=0     (code and with are optional, in either order)
+ *   load bell 120 g                     (an output that lifts a load: an actuator; g or kg)
+ *   state empty code 00 with bell=0     (code, final and with are optional, in any order)
  *     when marble go one with bell=1    (guarded transition, Mealy outputs optional)
  *     go empty                          (a transition that always fires)
  *
@@ -23,9 +24,9 @@
 import { diag, didYouMean, type Diagnostic } from '../model/diagnostics.js';
 import type { Guard, Machine, OutBit, SourceLoc, State, Transition } from '../model/machine.js';
 import { alwaysGuard, guardFromExpr, parseGuard, printExpr, readExpr } from './expr.js';
-import { isAlways, type MachineResult } from './json.js';
+import { isAlways, orderedLoads, type MachineResult } from './json.js';
 
-const KEYWORDS = ['machine', 'inputs', 'outputs', 'start', 'unspecified', 'never', 'state', 'when', 'go'];
+const KEYWORDS = ['machine', 'inputs', 'outputs', 'start', 'unspecified', 'never', 'load', 'state', 'when', 'go'];
 
 interface Word {
   readonly text: string;
@@ -55,7 +56,7 @@ function stripComment(line: string): string {
   return k < 0 ? line : line.slice(0, k);
 }
 
-type TextCode = 'LW101' | 'LW103' | 'LW104' | 'LW106';
+type TextCode = 'LW101' | 'LW103' | 'LW104' | 'LW106' | 'LW107';
 
 /** A state being read: its transitions follow it, up to the next `state` line. */
 interface OpenState {
@@ -97,6 +98,8 @@ class TextReader {
   readonly outputs: string[] = [];
   readonly never: Guard[] = [];
   readonly states: State[] = [];
+  /** Output loads in grams, by output name, in the order written. */
+  readonly loads: Record<string, number> = Object.create(null) as Record<string, number>;
   name: string | undefined;
   start: string | undefined;
   unspecified: Machine['unspecified'] | undefined;
@@ -183,6 +186,7 @@ class TextReader {
       unspecified: this.unspecified ?? 'hold',
       never: this.never,
       states: this.states,
+      ...(Object.keys(this.loads).length > 0 ? { loadsG: { ...this.loads } } : {}),
       ...(header.length ? { description: header.join('\n') } : {}),
       loc: this.at(0, 0),
       partLocs: this.partLocs,
@@ -312,7 +316,66 @@ function neverLine(r: TextReader, line: string, kw: Word, li: number): void {
   if (g.guard) r.never.push(g.guard);
 }
 
-/** `state NAME [code BITS] [with NAME=V, …]`: opens a state (closing the one above). */
+/** Grams per unit of mass the text form takes. */
+const MASS_UNITS: Readonly<Record<string, number>> = { g: 1, kg: 1000 };
+
+/** A mass in grams from a number and its unit, or why not (a message and a hint). */
+function gramsOf(num: string, unit: string | undefined, output: string): number | { msg: string; hint: string } {
+  const example = `write load ${output} 300 g, or load ${output} 0.3 kg`;
+  if (!/^[0-9]*\.?[0-9]+(e[+-]?[0-9]+)?$/i.test(num))
+    return { msg: `the load of '${output}' is '${num}', not a number`, hint: example };
+  if (unit === undefined) return { msg: `the load of '${output}' (${num}) has no unit`, hint: example };
+  const per = Object.hasOwn(MASS_UNITS, unit) ? MASS_UNITS[unit] : undefined;
+  if (per === undefined) {
+    const force = unit === 'N' ? '; a force in newtons divided by 9.81 is a mass in kg' : '';
+    return { msg: `the load of '${output}' is given in '${unit}'`, hint: `give a mass in g or kg${force}: ${example}` };
+  }
+  const grams = per === 1 ? Number(num) : Math.round(Number(num) * per * 1e6) / 1e6;
+  if (!(grams > 0) || !Number.isFinite(grams))
+    return {
+      msg: `the load of '${output}' is ${num} ${unit}`,
+      hint: 'a load is a mass above 0; leave an output without a load to show it by a flag',
+    };
+  return grams;
+}
+
+/** `load NAME MASS UNIT[, NAME MASS UNIT …]`: the masses outputs lift (the outputs become actuators). */
+function loadLine(r: TextReader, ws: readonly Word[], li: number): void {
+  let k = 1;
+  for (;;) {
+    const nm = ws[k];
+    if (isGap(nm)) {
+      const at = nm ? nm.at : ws[k - 1].at + ws[k - 1].text.length;
+      r.err('LW104', `'load' needs an output name and a mass`, li, at, 'write load NAME 300 g');
+      return;
+    }
+    const m = /^([0-9.eE+-]+)(g|kg)?$/.exec(ws[k + 1]?.text ?? '');
+    const num = m ? m[1] : (ws[k + 1]?.text ?? '');
+    const unitWord = m?.[2] ?? (isGap(ws[k + 2]) ? undefined : ws[k + 2].text);
+    const used = m?.[2] !== undefined ? 2 : unitWord !== undefined ? 3 : 2;
+    if (isGap(ws[k + 1])) {
+      r.err('LW107', `the load of '${nm.text}' has no mass`, li, nm.at + nm.text.length, `write load ${nm.text} 300 g`);
+      return;
+    }
+    const g = gramsOf(num, unitWord, nm.text);
+    if (typeof g !== 'number') {
+      r.err('LW107', g.msg, li, ws[k + 1].at, g.hint);
+      return;
+    }
+    if (Object.hasOwn(r.loads, nm.text)) {
+      r.err('LW107', `'${nm.text}' is given a second load`, li, nm.at, 'give each output one load');
+      return;
+    }
+    r.loads[nm.text] = g;
+    r.partLocs[`load:${nm.text}`] = r.at(li, nm.at);
+    k += used;
+    if (k >= ws.length) return;
+    if (ws[k].text !== ',') return r.trailing(ws, k, li, `the load of '${nm.text}'`);
+    k++;
+  }
+}
+
+/** `state NAME [code BITS] [final] [with NAME=V, …]`: opens a state (closing the one above). */
 function stateLine(r: TextReader, ws: readonly Word[], li: number): void {
   r.close();
   const kw = ws[0];
@@ -324,10 +387,15 @@ function stateLine(r: TextReader, ws: readonly Word[], li: number): void {
   const locs: Record<string, SourceLoc> = { name: r.at(li, nm.at) };
   let outs = noOutputs();
   let code: string | undefined;
+  let final = false;
   let k = 2;
   while (k < ws.length) {
     if (ws[k].text === 'with' && ws[k + 1]?.text !== '=') {
       ({ outs, k } = readOutputs(r, ws, k + 1, li, locs));
+    } else if (ws[k].text === 'final' && ws[k + 1]?.text !== '=' && !final) {
+      final = true;
+      locs.final = r.at(li, ws[k].at);
+      k++;
     } else if (ws[k].text === 'code' && code === undefined) {
       const c = ws[k + 1];
       if (isGap(c)) {
@@ -340,7 +408,7 @@ function stateLine(r: TextReader, ws: readonly Word[], li: number): void {
     } else break;
   }
   r.trailing(ws, k, li, `state '${nm.text}'`);
-  const state = { name: nm.text, outputs: outs, ...(code !== undefined ? { code } : {}) };
+  const state = { name: nm.text, outputs: outs, ...(code !== undefined ? { code } : {}), ...(final ? { final } : {}) };
   r.current = { state: { ...state, loc: r.at(li, kw.at), partLocs: locs }, transitions: [] };
 }
 
@@ -393,6 +461,8 @@ function statement(r: TextReader, line: string, li: number): void {
       return unspecifiedRule(r, ws, li);
     case 'never':
       return neverLine(r, line, kw, li);
+    case 'load':
+      return loadLine(r, ws, li);
     case 'state':
       return stateLine(r, ws, li);
     case 'go':
@@ -434,9 +504,11 @@ export function printTextMachine(m: Machine): string {
   out.push(`start ${m.start}`);
   if (m.unspecified !== 'hold') out.push(`unspecified ${m.unspecified}`);
   for (const g of m.never) out.push(`never ${printExpr(g.expr)}`);
+  for (const [o, g] of orderedLoads(m)) out.push(`load ${o} ${g} g`);
   for (const s of m.states) {
     out.push('');
-    out.push(`state ${s.name}${s.code !== undefined ? ` code ${s.code}` : ''}${printOutputs(m, s.outputs)}`);
+    const final = s.final === true ? ' final' : '';
+    out.push(`state ${s.name}${s.code !== undefined ? ` code ${s.code}` : ''}${final}${printOutputs(m, s.outputs)}`);
     for (const t of s.transitions) {
       const guard = isAlways(t.when) ? '' : `when ${printExpr(t.when.expr)} `;
       out.push(`  ${guard}go ${t.to}${printOutputs(m, t.outputs)}`);

@@ -60,6 +60,12 @@ export const DIAGNOSTIC_CODES = {
     fix: 'Remove it or correct its spelling.',
   },
   LW106: { severity: 'error', cause: 'An output value is not 0, 1 or -.', fix: "Write 0, 1 or - (don't care)." },
+  LW107: {
+    severity: 'error',
+    cause:
+      'An output load is not a mass above 0 with its unit (text form: load NAME 300 g, or 0.3 kg; JSON form: "loadsG", a number of grams above 0), or an output is given two loads.',
+    fix: 'Write the mass the output lifts with its unit, for example load sluice 300 g; give each output one load.',
+  },
   LW200: {
     severity: 'error',
     cause: 'A transition goes to a state that does not exist.',
@@ -129,6 +135,17 @@ export const DIAGNOSTIC_CODES = {
     cause: 'The never constraints exclude every input combination.',
     fix: 'Check the never expressions.',
   },
+  LW306: {
+    severity: 'warning',
+    cause:
+      'A reachable state has no way out: no transition leads to another state, so once there the machine stays until the reset lever is pulled.',
+    fix: 'Add a transition out of it, or mark it final (text form: state NAME final; JSON form: "final": true) if the machine is meant to stop there.',
+  },
+  LW307: {
+    severity: 'warning',
+    cause: 'An output is never 1 (or never 0) in any reachable state or transition: its flag or actuator never moves.',
+    fix: 'Set it where it should change (with NAME=1 on a state or transition), or remove the output.',
+  },
   LW400: {
     severity: 'error',
     cause: 'The machine has more states than the tool handles (4096).',
@@ -174,6 +191,18 @@ export const DIAGNOSTIC_CODES = {
     severity: 'error',
     cause: 'A technology profile names a field that does not exist.',
     fix: 'Correct the field name.',
+  },
+  LW602: {
+    severity: 'warning',
+    cause:
+      'A technology profile value lies outside its plausible range: it is allowed, but is most likely a slip of units (millimetres given as metres, kilograms given as grams, milliseconds given as seconds).',
+    fix: 'Check the unit in the field name (G grams, M metres, S seconds); the hint names the likely slip and the value meant.',
+  },
+  LW603: {
+    severity: 'error',
+    cause:
+      'A cordRouting entry of the technology profile names a cord the build does not have, so its routing would be ignored.',
+    fix: 'Use a cord id of this build (netlist.json or the wiring list lists them, e.g. c.clk.phi1); the hint names the closest.',
   },
   LW700: {
     severity: 'error',

@@ -52,6 +52,11 @@ export interface State {
   readonly transitions: readonly Transition[];
   /** A state code pinned by the user ('0'/'1' string, most significant bit first). */
   readonly code?: string;
+  /**
+   * Marked final: the machine is meant to stay here until the reset lever is pulled, so a state
+   * with no way out is intended (no LW306 warning, no LW302 note).
+   */
+  readonly final?: boolean;
   readonly loc?: SourceLoc;
   /** Where parts were written, by key ('to', 'code', 'start', 'input:0', 'out:bell' …), when the form knows. */
   readonly partLocs?: Readonly<Record<string, SourceLoc>>;
@@ -68,10 +73,15 @@ export interface Machine {
   /** Input combinations that cannot occur. */
   readonly never: readonly Guard[];
   readonly states: readonly State[];
+  /**
+   * External loads the outputs lift, grams, by output name: an output named here is an actuator
+   * (a capstan output pulling that load), every other output a flag. Absent: every output a flag.
+   */
+  readonly loadsG?: Readonly<Record<string, number>>;
   /** Free text carried from the source (the header comment of a text file). */
   readonly description?: string;
   readonly loc?: SourceLoc;
-  /** Where parts were written, by key ('to', 'code', 'start', 'input:0', 'out:bell' …), when the form knows. */
+  /** Where parts were written, by key ('to', 'code', 'start', 'input:0', 'out:bell', 'load:bell' …), when the form knows. */
   readonly partLocs?: Readonly<Record<string, SourceLoc>>;
 }
 

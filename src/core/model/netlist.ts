@@ -60,6 +60,11 @@ export interface GatePart {
   readonly ports: readonly PortSpec[];
   /** The latch this gate belongs to (roles latch-set / latch-reset). */
   readonly latch?: string;
+  /**
+   * Turns of cord on the drum for this gate's capstan, where its force budget asks for more
+   * than the profile's `wraps` (the capstan of an actuator); absent: the profile's `wraps`.
+   */
+  readonly wraps?: number;
 }
 
 export interface LatchPart {

@@ -3,10 +3,13 @@
  *
  * Checks, in order: size limits (LW400–LW402, at once, before any other work); names
  * (LW205 form, LW203 repeats, LW204 start, LW300 no states); pinned codes (LW206);
- * references (LW200 target states, LW202 output names); guards (LW304 constant 0, LW305 a
- * `never` that excludes everything). Then, on the flat table (src/core/model/flat.ts):
- * transitions that get no row (LW301), states where the unspecified rule applies (LW302),
- * states not reachable from the start (LW303).
+ * references (LW200 target states, LW202 output names, of values and of loads); guards (LW304
+ * constant 0, LW305 a `never` that excludes everything). Then, on the flat table
+ * (src/core/model/flat.ts): transitions that get no row (LW301), states where the unspecified
+ * rule applies (LW302, not for a state marked final; the input combinations it names are
+ * simplified with the `never` set as don't-cares), states not reachable from the start
+ * (LW303), and traps among the reachable states: a state with no way out that is not marked
+ * final (LW306), an output that is never 1 or never 0 (LW307).
  *
  * Method: everything works on cubes — the flat table comes from the disjoint sharp of each
  * guard against the earlier ones (Hong, Cain & Ostapko, IBM J. Res. Dev. 1974), and
@@ -16,9 +19,9 @@
  * Postconditions: `flat` is present exactly when no diagnostic is an error; every diagnostic
  * carries the location of the state, transition, guard or name it is about.
  */
-import { coverContains, isTautology, overlaps, type Cube } from '../model/cube.js';
+import { contains, coverContains, isTautology, overlaps, type Cube } from '../model/cube.js';
 import { diag, didYouMean, hasErrors, type Diagnostic } from '../model/diagnostics.js';
-import { flatten, type FlatMachine } from '../model/flat.js';
+import { DONT_CARE, flatten, type FlatMachine } from '../model/flat.js';
 import type { Machine, SourceLoc, State, Transition } from '../model/machine.js';
 import { printCubes, printExpr } from '../forms/expr.js';
 
@@ -280,6 +283,18 @@ function checkReferences(m: Machine, ds: Diagnostic[]): void {
       );
     }
   };
+  for (const k of Object.keys(m.loadsG ?? {})) {
+    if (outputs.has(k)) continue;
+    const guess = didYouMean(k, m.outputs);
+    ds.push(
+      diag(
+        'LW202',
+        `a load is given for '${k}', which is not a declared output`,
+        partLoc(m, `load:${k}`, `.loadsG.${k}`, m.loc),
+        guess ? `did you mean '${guess}'?` : 'declare it among the outputs, or correct its name',
+      ),
+    );
+  }
   for (const s of m.states) {
     outNames(s, s.outputs, `state '${s.name}'`);
     s.transitions.forEach((t, ti) => {
@@ -319,7 +334,7 @@ function checkBehaviour(m: Machine, flat: FlatMachine, never: readonly Cube[], d
       );
     });
     const rest = flat.rows[si].filter((r) => r.transition === -1).map((r) => r.cube);
-    if (rest.length) ds.push(unspecifiedNote(m, s, rest));
+    if (rest.length && s.final !== true) ds.push(unspecifiedNote(m, s, rest, never));
   });
 
   // Reachability: breadth-first over the rows' next states.
@@ -345,6 +360,50 @@ function checkBehaviour(m: Machine, flat: FlatMachine, never: readonly Cube[], d
         ),
       );
   });
+  checkTraps(m, flat, reached, ds);
+}
+
+/**
+ * LW306: a reachable state (of a machine with more than one) whose every row stays in it — no
+ * transition leads out, so only the reset lever does — unless it is marked final. A row whose
+ * next state is free is no way out: the build may choose to stay. LW307: an output that no
+ * reachable row sets to 1, or none to 0 (free values aside).
+ */
+function checkTraps(m: Machine, flat: FlatMachine, reached: ReadonlySet<number>, ds: Diagnostic[]): void {
+  const mloc = m.loc ?? {};
+  if (m.states.length > 1)
+    m.states.forEach((s, si) => {
+      if (!reached.has(si) || s.final === true) return;
+      if (flat.rows[si].some((r) => r.next !== si && r.next !== DONT_CARE)) return;
+      ds.push(
+        diag(
+          'LW306',
+          `state '${s.name}' has no way out: no transition leads to another state, so once there the machine stays until the reset lever is pulled`,
+          s.loc ?? mloc,
+          `add a transition out of it, or mark it final if the machine is meant to stop there (text form: state ${s.name} final; JSON form: "final": true)`,
+        ),
+      );
+    });
+  m.outputs.forEach((o, k) => {
+    const values = new Set<string>();
+    for (const si of reached) for (const r of flat.rows[si]) values.add(String(r.out[k]));
+    const never = !values.has('1') ? 1 : !values.has('0') ? 0 : undefined;
+    if (never === undefined || (!values.has('0') && !values.has('1'))) return;
+    const actuator = m.loadsG !== undefined && Object.hasOwn(m.loadsG, o);
+    const moves = actuator ? 'its actuator never moves its load' : 'its flag never moves';
+    ds.push(
+      diag(
+        'LW307',
+        never === 1
+          ? `output '${o}' is never 1 in any reachable state or transition: ${moves}`
+          : `output '${o}' is 1 in every reachable state and transition, never 0: ${moves}`,
+        partLoc(m, `output:${k}`, `.outputs[${k}]`, mloc),
+        never === 1
+          ? `set it where it should show (with ${o}=1 on a state or transition), or remove the output`
+          : `set it to 0 where it should drop (with ${o}=0), or remove the output`,
+      ),
+    );
+  });
 }
 
 function shadowedBy(s: State, ti: number, never: readonly Cube[]): string {
@@ -364,9 +423,9 @@ function shadowedBy(s: State, ti: number, never: readonly Cube[]): string {
   return `${list}${byNever ? ' and the never constraints' : ''} already ${verb} every combination its guard covers`;
 }
 
-function unspecifiedNote(m: Machine, s: State, rest: readonly Cube[]): Diagnostic {
+function unspecifiedNote(m: Machine, s: State, rest: readonly Cube[], never: readonly Cube[]): Diagnostic {
   const n = m.inputs.length;
-  const merged = mergeAdjacent(rest);
+  const merged = mergeAdjacent(expandWithin(rest, never, n));
   const shown = printCubes(merged.slice(0, 3), m.inputs) + (merged.length > 3 ? ' | …' : '');
   const what =
     n === 0 || s.transitions.length === 0
@@ -382,6 +441,31 @@ function unspecifiedNote(m: Machine, s: State, rest: readonly Cube[]): Diagnosti
     s.loc ?? m.loc ?? {},
     'nothing to do if that is intended; otherwise add transitions',
   );
+}
+
+/**
+ * The cubes widened into the don't-care set (the `never` combinations), for shorter messages:
+ * each cube drops every literal it can while it stays inside cubes ∪ dc (the expand step of
+ * Espresso-II: R. K. Brayton et al., Logic Minimization Algorithms for VLSI Synthesis, 1984),
+ * then cubes inside another one go (absorption), in the order written. `!up & !full | !up &
+ * full & !empty` with `never full & empty` becomes `!up`; `!up | up & !full` becomes
+ * `!up | !full` with no constraint at all.
+ */
+function expandWithin(cubes: readonly Cube[], dc: readonly Cube[], n: number): Cube[] {
+  if (cubes.length > 64) return [...cubes];
+  const allowed = [...cubes, ...dc];
+  const wide = cubes.map((c) => {
+    let cur = c;
+    for (let k = 0; k < n; k++) {
+      if (cur[k] === '-') continue;
+      const wider = cur.slice(0, k) + '-' + cur.slice(k + 1);
+      if (coverContains(allowed, [wider])) cur = wider;
+    }
+    return cur;
+  });
+  // Absorption in the order written: a cube goes when another one contains it.
+  const unique = [...new Set(wide)];
+  return unique.filter((c, i) => !unique.some((k, j) => j !== i && contains(k, c)));
 }
 
 /** Merge cubes that differ in one fixed position (x&y | x&!y → x), for shorter messages only. */

@@ -3,15 +3,17 @@
  *
  * What it counts: levers by kind (operator, clock, reset, summing lever Z of each gate, port
  * levers of gates with two or more ports — a one-port gate's port is Z itself), flags,
- * actuators, weights (one per port lever, per Z, per operator lever), capstans and their
- * wraps, drum length, cord (each branch at profile.cordBranchM, plus the cord wrapped on the
- * drum), and the pins and pulleys of each branch's routing allowance (one pin per quarter
+ * actuators (each with its load and the capstan that lifts it), weights (one per port lever,
+ * per Z, per operator lever), capstans and their wraps (one row per number of turns: an
+ * actuator's capstan may have more than the profile's `wraps`), drum length (the sum of every
+ * capstan's turns × wrapPitchM), cord (each branch at profile.cordBranchM, plus the cord
+ * wrapped on the drum), and the pins and pulleys of each branch's routing allowance (one pin per quarter
  * turn of redirection, an estimate: a pin rarely turns a cord further).
  * Postcondition: rows with a count of zero are left out; numbers are rounded to what a
  * builder can cut or weigh (0.1 g, 1 mm). The CSV form of the rows is export/bom-csv.ts.
  */
 import type { Netlist } from '../model/netlist.js';
-import { routingFor } from './capstan.js';
+import { routingFor, wrapsOf } from './capstan.js';
 import type { Profile } from './profile.js';
 
 /** One line of the bill of materials. */
@@ -48,20 +50,44 @@ export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
     if (count > 0) rows.push({ item, kind, count, each: round(each), unit, total: round(count * each), note });
   };
   addLeversAndWeights(netlist, profile, add);
-  const drivers = new Set(netlist.cords.map((c) => c.driver));
-  const capstans = netlist.parts.filter((p) => (p.kind === 'lever' || p.kind === 'gate') && drivers.has(p.id)).length;
-  add('capstan', 'capstan', capstans, profile.wraps, 'turns', `μ = ${profile.mu} cord on drum`);
+  const turns = capstanTurns(netlist, profile);
+  for (const [w, n] of turns)
+    add(
+      w === profile.wraps ? 'capstan' : `capstan, ${w} turns`,
+      'capstan',
+      n,
+      w,
+      'turns',
+      w === profile.wraps
+        ? `μ = ${profile.mu} cord on drum`
+        : `μ = ${profile.mu}; an actuator's capstan, turns sized by its load`,
+    );
+  const capstans = [...turns.values()].reduce((a, n) => a + n, 0);
+  const totalTurns = [...turns].reduce((a, [w, n]) => a + w * n, 0);
   add(
     'drum',
     'drum',
     capstans > 0 ? 1 : 0,
-    capstans * profile.wraps * profile.wrapPitchM,
+    totalTurns * profile.wrapPitchM,
     'm length',
     `radius ${profile.drumRadiusM} m at ${profile.drumRpm} rev/min; ${r3(profile.wrapPitchM)} m per wrap`,
     r3,
   );
-  addCordAndRouting(netlist, profile, capstans, add);
+  addCordAndRouting(netlist, profile, turns, add);
   return rows;
+}
+
+/** Capstans by their turns (every lever or gate with an output cord), the profile's `wraps` first. */
+export function capstanTurns(netlist: Netlist, profile: Profile): Map<number, number> {
+  const drivers = new Set(netlist.cords.map((c) => c.driver));
+  const turns = new Map<number, number>();
+  for (const p of netlist.parts)
+    if ((p.kind === 'lever' || p.kind === 'gate') && drivers.has(p.id)) {
+      const w = wrapsOf(p, profile);
+      turns.set(w, (turns.get(w) ?? 0) + 1);
+    }
+  const sorted = [...turns].sort(([a], [b]) => (a === profile.wraps ? -1 : b === profile.wraps ? 1 : a - b));
+  return new Map(sorted);
 }
 
 /** Levers by kind, flags, actuators, then the weights that hang on them. */
@@ -77,9 +103,24 @@ function addLeversAndWeights(netlist: Netlist, profile: Profile, add: AddRow): v
   add('summing lever Z', 'lever', gates.length, 1, 'piece', 'one per gate; the hold end of its capstan');
   add('port lever', 'lever', portLevers, 1, 'piece', "gates with two or more ports (a one-port gate's port is its Z)");
   const flags = netlist.parts.filter((p) => p.kind === 'flag').length;
-  add('flag', 'indicator', flags, 1, 'piece', "mounted on a gate's Z lever");
+  add(
+    'flag',
+    'indicator',
+    flags,
+    1,
+    'piece',
+    "mounted on a gate's Z lever; moves only its own swing, no external load",
+  );
+  const pulledBy = new Map(netlist.cords.flatMap((c) => c.actuators.map((a): [string, string] => [a, c.driver])));
+  const byId = new Map(netlist.parts.map((p) => [p.id, p]));
   for (const p of netlist.parts) {
-    if (p.kind === 'actuator') add(`actuator ${p.name}`, 'actuator', 1, p.loadG, 'g load', `shows output ${p.output}`);
+    if (p.kind !== 'actuator') continue;
+    const driver = pulledBy.get(p.id);
+    const how =
+      driver === undefined
+        ? `held ${p.fixed === 1 ? 'lifted' : 'at rest'} (a constant output)`
+        : `lifted by the capstan of ${driver}, ${wrapsOf(byId.get(driver), profile)} turns`;
+    add(`actuator ${p.output}`, 'actuator', 1, p.loadG, 'g load', `shows output ${p.output}; ${how}`);
   }
 
   add('port pull-up weight', 'weight', portLevers, profile.portWeightG, 'g', 'one per port lever');
@@ -89,7 +130,7 @@ function addLeversAndWeights(netlist: Netlist, profile: Profile, add: AddRow): v
 }
 
 /** Cord (branches and the wraps on the drum), redirect pins and pulleys. */
-function addCordAndRouting(netlist: Netlist, profile: Profile, capstans: number, add: AddRow): void {
+function addCordAndRouting(netlist: Netlist, profile: Profile, turns: ReadonlyMap<number, number>, add: AddRow): void {
   let branches = 0;
   let pins = 0;
   let pulleys = 0;
@@ -102,8 +143,10 @@ function addCordAndRouting(netlist: Netlist, profile: Profile, capstans: number,
   }
   const branchNote = `${netlist.cords.length} cords; length per branch is an allowance`;
   add('cord branch', 'cord', branches, profile.cordBranchM, 'm', branchNote, r3);
-  const wrapM = profile.wraps * 2 * Math.PI * profile.drumRadiusM;
-  add('capstan wrap cord', 'cord', capstans, wrapM, 'm', 'cord wrapped on the drum per capstan', r3);
+  for (const [w, n] of turns) {
+    const item = w === profile.wraps ? 'capstan wrap cord' : `capstan wrap cord, ${w} turns`;
+    add(item, 'cord', n, w * 2 * Math.PI * profile.drumRadiusM, 'm', 'cord wrapped on the drum per capstan', r3);
+  }
   add('redirect pin', 'routing', pins, 1, 'piece', 'one per quarter turn of redirection per branch (estimate)');
   add('pulley', 'routing', pulleys, 1, 'piece', `efficiency ${profile.routing.pulleyEfficiency} each`);
 }

@@ -9,6 +9,7 @@
  * Forces are kept in grams-force (what builders weigh) and converted to newtons with standard
  * gravity g₀ = 9.80665 m/s² (the conventional value fixed by the 3rd CGPM, 1901).
  */
+import type { Part } from '../model/netlist.js';
 import type { Profile, RoutingLoss } from './profile.js';
 
 /** Standard gravity, m/s². */
@@ -35,13 +36,42 @@ export interface Tension {
 
 /**
  * Tension available from one capstan whose hold end is kept by `holdWeightG` (a gate's Z
- * weight by default; an operator lever's pull-up weight for a lever's capstan).
+ * weight by default; an operator lever's pull-up weight for a lever's capstan), wrapped
+ * `wraps` turns (default: the profile's).
  */
-export function availableTension(profile: Profile, holdWeightG: number = profile.zWeightG): Tension {
+export function availableTension(
+  profile: Profile,
+  holdWeightG: number = profile.zWeightG,
+  wraps: number = profile.wraps,
+): Tension {
   const holdG = holdWeightG * profile.leverRatio;
-  const gain = capstanGain(profile.mu, profile.wraps);
+  const gain = capstanGain(profile.mu, wraps);
   const availableG = holdG * gain;
   return { holdG, gain, availableG, holdN: gramsToNewtons(holdG), availableN: gramsToNewtons(availableG) };
+}
+
+/** Turns of cord of a part's capstan: a gate's own `wraps` where it has them, else the profile's. */
+export function wrapsOf(part: Part | undefined, profile: Profile): number {
+  return part?.kind === 'gate' && part.wraps !== undefined ? part.wraps : profile.wraps;
+}
+
+/**
+ * The lowest friction coefficient at which a capstan with hold tension `holdG`, wrapped
+ * `wraps` turns, still holds `loadG` with the margin `margin` (1: it just holds): from the
+ * capstan equation, margin·load = hold·e^(μθ), so μ = ln(margin·load / hold) / θ with
+ * θ = 2π·wraps. 0 when the hold tension alone carries it.
+ */
+export function muNeeded(loadG: number, holdG: number, wraps: number, margin = 1): number {
+  return Math.max(0, Math.log((margin * loadG) / holdG) / (2 * Math.PI * wraps));
+}
+
+/**
+ * The fewest turns, in quarter turns and at least `fromWraps`, at which a capstan with hold
+ * tension `holdG` holds `loadG` with the margin `margin` at friction `mu`.
+ */
+export function wrapsNeeded(loadG: number, holdG: number, mu: number, margin: number, fromWraps: number): number {
+  const turns = Math.log((margin * loadG) / holdG) / (2 * Math.PI * mu);
+  return Math.max(fromWraps, Math.ceil(turns * 4 - 1e-9) / 4);
 }
 
 /** The routing loss of a cord: the profile default with that cord's overrides. */

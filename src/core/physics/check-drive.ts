@@ -7,13 +7,17 @@
  * drivers), `weakestCord` (heaviest cord of the driver with that margin), `worstTorqueNm`,
  * `worstPowerW`, `worstAt` (where the worst torque is, null without snapshots),
  * `worstByState` (the worst torque of each state), `operatorForceMaxG` (0 without levers),
- * `drivers` (every budget). The snapshots are read once, in order, and only these worst-case
- * figures are kept in the result.
+ * `drivers` (every budget), and the friction headroom (headroom.ts): `muMin` (the lowest μ at
+ * which every capstan still holds), `muAtMinMargin` (the lowest μ at which every capstan keeps
+ * the design margin), both null without loaded drivers, and `outputs` (per actuator output:
+ * its load, the largest load it could lift at the design margin, its capstan's margin). The
+ * snapshots are read once, in order, and only these worst-case figures are kept in the result.
  */
 import type { CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
 import { driveBudget, type DriverBudget } from './drive.js';
 import { ALL_ENGAGED, drumLoad, type DriveSnapshot, type SnapshotTorque } from './drum.js';
+import { frictionHeadroom, headroomWords, outputLoadWords, type OutputLoad } from './headroom.js';
 import { operatorForces } from './operator.js';
 import type { Profile } from './profile.js';
 
@@ -40,6 +44,12 @@ export interface DriveCheck<W extends StatePlace = StatePlace> extends CheckBase
   readonly worstByState: readonly TorqueCase<W>[];
   readonly operatorForceMaxG: number;
   readonly drivers: readonly DriverBudget[];
+  /** The lowest μ of cord on drum at which every capstan still holds (margin ≥ 1); null without loads. */
+  readonly muMin: number | null;
+  /** The lowest μ at which every capstan keeps the design margin (profile.minMargin); null without loads. */
+  readonly muAtMinMargin: number | null;
+  /** Per output shown by an actuator: its load, the largest it could lift at the design margin, and the margin. */
+  readonly outputs: Readonly<Record<string, OutputLoad>>;
 }
 
 /**
@@ -59,6 +69,8 @@ export function checkDrive<W extends StatePlace>(
   const weakest = loaded.reduce<DriverBudget | undefined>((w, d) => (!w || d.margin < w.margin ? d : w), undefined);
   const failing = drivers.filter((d) => !d.ok);
   const ok = failing.length === 0;
+  const headroom = frictionHeadroom(netlist, drivers, profile);
+  const friction = [`friction headroom: ${headroomWords(headroom, profile)}`, ...outputLoadWords(headroom, profile)];
   const at = drum.worst.where === null ? ALL_ENGAGED : words(drum.worst.where);
   const torque = `worst drum torque ${drum.worst.torqueNm.toFixed(3)} N·m (${drum.worst.powerW.toFixed(2)} W) in '${at}'`;
   const pull = `hardest lever pull ${operatorForceMaxG} g`;
@@ -67,9 +79,9 @@ export function checkDrive<W extends StatePlace>(
     // Lead with the weakest failing driver, so the words name the same cord as `weakestCord`.
     const f = failing.reduce((w, d) => (d.margin < w.margin ? d : w));
     const more = failing.length > 1 ? ` (and ${failing.length - 1} more of ${drivers.length} capstans)` : '';
-    summary = `over budget, margin below ${profile.minMargin}: ${f.message}${more}; fix: ${(f.fixes ?? []).join('; or ')}`;
+    summary = `over budget, margin below ${profile.minMargin}: ${f.message}${more}; fix: ${(f.fixes ?? []).join('; or ')}; ${friction.join('; ')}`;
   } else if (weakest) {
-    summary = `every capstan within budget: smallest margin ${weakest.margin.toFixed(2)} on cord '${weakest.weakestCord}' (≥ ${profile.minMargin}); ${torque}; ${pull}`;
+    summary = `every capstan within budget: smallest margin ${weakest.margin.toFixed(2)} on cord '${weakest.weakestCord}' (≥ ${profile.minMargin}); ${friction.join('; ')}; ${torque}; ${pull}`;
   } else {
     summary = `no capstan carries a load; ${torque}; ${pull}`;
   }
@@ -85,6 +97,9 @@ export function checkDrive<W extends StatePlace>(
     worstByState: worstByState(drum.snapshots),
     operatorForceMaxG,
     drivers,
+    muMin: headroom.muMin,
+    muAtMinMargin: headroom.muAtMinMargin,
+    outputs: headroom.outputs,
   };
 }
 

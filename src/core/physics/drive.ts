@@ -10,12 +10,15 @@
  * - A branch to a one-port gate lifts Z itself (that port is Z): the Z weight alone.
  * - A branch to an actuator lifts the actuator's load; its routing loss applies too.
  * The hold tension is Z's weight (a gate) or the lever's pull-up weight (a lever), times the
- * lever ratio. Margin = available / load; ok when margin ≥ profile.minMargin.
+ * lever ratio; the gain is e^(μθ) with θ = 2π × the capstan's turns (a gate's own `wraps`, the
+ * capstan of an actuator, else the profile's). Margin = available / load; ok when margin ≥
+ * profile.minMargin. A failing budget that pulls an actuator names the output, how far its
+ * load is over what the capstan can move at the design margin, and what to change.
  * Precondition: a netlist whose cords name existing parts (the netlist invariants).
  * Postcondition: one budget per driver, in the netlist's part order.
  */
 import { partIndex, type Netlist, type Part } from '../model/netlist.js';
-import { availableTension, gramsToNewtons, routingFactor, routingFor } from './capstan.js';
+import { availableTension, gramsToNewtons, routingFactor, routingFor, wrapsNeeded, wrapsOf } from './capstan.js';
 import type { Profile } from './profile.js';
 
 /** One branch of a cord and what it costs the capstan. */
@@ -29,6 +32,8 @@ export interface BranchLoad {
   readonly routingFactor: number;
   /** baseG × routingFactor. */
   readonly loadG: number;
+  /** The machine output an actuator branch shows. */
+  readonly output?: string;
 }
 
 /** The budget of one capstan driver. */
@@ -36,6 +41,8 @@ export interface DriverBudget {
   readonly driver: string;
   readonly driverKind: 'lever' | 'gate';
   readonly cords: readonly string[];
+  /** Turns of cord on the drum of this capstan. */
+  readonly wraps: number;
   readonly holdG: number;
   readonly gain: number;
   readonly availableG: number;
@@ -79,7 +86,8 @@ export function branchLoads(netlist: Netlist, profile: Profile): Map<string, Bra
     for (const a of c.actuators) {
       const part = parts.get(a);
       const baseG = part?.kind === 'actuator' ? part.loadG : 0;
-      list.push({ cord: c.id, target: a, kind: 'actuator', baseG, routingFactor: f, loadG: baseG * f });
+      const output = part?.kind === 'actuator' ? { output: part.output } : {};
+      list.push({ cord: c.id, target: a, kind: 'actuator', baseG, routingFactor: f, loadG: baseG * f, ...output });
     }
     byDriver.set(c.driver, list);
   }
@@ -93,7 +101,7 @@ export function driveBudget(netlist: Netlist, profile: Profile): DriverBudget[] 
   for (const part of netlist.parts) {
     const branches = loads.get(part.id);
     if (!branches || (part.kind !== 'lever' && part.kind !== 'gate')) continue;
-    out.push(budgetOf(part.id, part.kind, branches, profile));
+    out.push(budgetOf(part.id, part.kind, branches, profile, wrapsOf(part, profile)));
   }
   return out;
 }
@@ -103,8 +111,9 @@ function budgetOf(
   driverKind: 'lever' | 'gate',
   branches: readonly BranchLoad[],
   profile: Profile,
+  wraps: number,
 ): DriverBudget {
-  const t = availableTension(profile, holdWeightG(profile, driverKind));
+  const t = availableTension(profile, holdWeightG(profile, driverKind), wraps);
   const cords = [...new Set(branches.map((b) => b.cord))];
   const perCord = new Map<string, number>();
   for (const b of branches) perCord.set(b.cord, (perCord.get(b.cord) ?? 0) + b.loadG);
@@ -116,6 +125,7 @@ function budgetOf(
     driver,
     driverKind,
     cords,
+    wraps,
     holdG: t.holdG,
     gain: t.gain,
     availableG: t.availableG,
@@ -128,12 +138,31 @@ function budgetOf(
     weakestCord,
   };
   if (ok) return base;
-  return { ...base, message: failMessage(base), fixes: fixesFor(base, profile) };
+  return { ...base, message: failMessage(base, profile), fixes: fixesFor(base, profile) };
 }
 
 const grams = (g: number): string => `${g >= 100 ? Math.round(g) : Math.round(g * 10) / 10} g`;
 
-function failMessage(b: Omit<DriverBudget, 'message' | 'fixes'>): string {
+/**
+ * The largest load an actuator branch `a` of budget `b` could have, grams before routing loss,
+ * with the capstan keeping `margin`: what the capstan holds at that margin, less its other
+ * branches, divided by the branch's routing loss. 0 when the others already use it all.
+ */
+export function maxActuatorLoadG(b: Pick<DriverBudget, 'availableG' | 'loadG'>, a: BranchLoad, margin: number): number {
+  return Math.max(0, (b.availableG / margin - (b.loadG - a.loadG)) / a.routingFactor);
+}
+
+function failMessage(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile): string {
+  const act = b.branches.find((x) => x.kind === 'actuator' && x.output !== undefined);
+  if (act) {
+    const most = maxActuatorLoadG(b, act, profile.minMargin);
+    const turns = `${b.wraps} ${b.wraps === 1 ? 'turn' : 'turns'}${b.wraps >= profile.maxWraps ? ', the most maxWraps allows' : ''}`;
+    return (
+      `output '${act.output}' lifts ${grams(act.baseG)} (actuator ${act.target}, cord '${act.cord}'), but its capstan ` +
+      `(${b.driverKind} '${b.driver}', ${turns}) can move at most ${grams(most)} at margin ${profile.minMargin}: ` +
+      `${grams(act.baseG - most)} short (margin ${b.margin.toFixed(2)})`
+    );
+  }
   const shown = b.branches.slice(0, 8).map((x) => `${x.target} ${grams(x.loadG)}`);
   const more = b.branches.length > 8 ? `, … ${b.branches.length - 8} more` : '';
   const cordWord = b.cords.length === 1 ? `cord '${b.cords[0]}'` : `cords ${b.cords.map((c) => `'${c}'`).join(', ')}`;
@@ -147,15 +176,25 @@ function fixesFor(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile):
   const fixes: string[] = [];
   const budgetG = b.availableG / profile.minMargin;
   const heaviest = Math.max(...b.branches.map((x) => x.loadG));
-  if (b.branches.length > 1 && heaviest <= budgetG) {
+  const act = b.branches.find((x) => x.kind === 'actuator' && x.output !== undefined);
+  if (act) {
+    const most = Math.floor(maxActuatorLoadG(b, act, profile.minMargin));
+    fixes.push(
+      `a lighter load on '${act.output}': at most ${most} g (counterweight the load, or hang it from a 2:1 pulley block, which halves it)`,
+    );
+  } else if (b.branches.length > 1 && heaviest <= budgetG) {
     const each = b.loadG / b.branches.length;
     fixes.push(
       `fewer branches: this capstan carries about ${Math.max(1, Math.floor(budgetG / each))} of them at margin ${profile.minMargin}; spread the rest over a buffer tree`,
     );
   }
-  const neededGain = (profile.minMargin * b.loadG) / b.holdG;
-  const quarterTurns = Math.ceil((4 * Math.log(neededGain)) / (profile.mu * 2 * Math.PI));
-  if (quarterTurns > 0) fixes.push(`more wraps: ${quarterTurns / 4} turns on the drum (μ = ${profile.mu})`);
+  const turns = wrapsNeeded(b.loadG, b.holdG, profile.mu, profile.minMargin, 0);
+  if (turns > b.wraps)
+    fixes.push(
+      act
+        ? `more wraps: ${turns} turns on this capstan (μ = ${profile.mu}); raise maxWraps to ${turns} (now ${profile.maxWraps})`
+        : `more wraps: ${turns} turns on the drum (μ = ${profile.mu})`,
+    );
   const needG = Math.ceil((profile.minMargin * b.loadG) / (profile.leverRatio * b.gain));
   fixes.push(
     b.driverKind === 'lever'

@@ -4,7 +4,8 @@
  * Method: the capstan equation (see capstan.ts). An engaged capstan whose load has reached its
  * stop slips on the turning drum with tension T_hold on its tail and at most T_hold·e^(μθ) on
  * its load side, so friction takes torque up to T_hold·(e^(μθ) − 1)·r_drum from the drum — the
- * bound used here for every engaged capstan (a capstan still lifting takes less). A capstan
+ * bound used here for every engaged capstan (a capstan still lifting takes less), with θ of its
+ * own turns (an actuator's capstan may have more than the profile's `wraps`). A capstan
  * is engaged when its driver's output signal is 0: its cord pulls (for a lever: the lever is
  * not pulled). Torques add per snapshot (one reachable state in one clock phase); the worst
  * snapshot sizes the motor or the crank. Power = torque × ω, ω = 2π·rpm/60.
@@ -15,7 +16,7 @@
  * Postcondition: with no snapshots, the worst case is every capstan engaged at once (`where: null`).
  */
 import type { Netlist } from '../model/netlist.js';
-import { availableTension } from './capstan.js';
+import { availableTension, wrapsOf } from './capstan.js';
 import { holdWeightG } from './drive.js';
 import type { Profile } from './profile.js';
 
@@ -36,8 +37,8 @@ export interface SnapshotTorque<W = string> {
 }
 
 export interface DrumLoad<W = string> {
-  /** Capstans on the drum: every lever or gate with an output cord. */
-  readonly capstans: readonly { readonly driver: string; readonly torqueNm: number }[];
+  /** Capstans on the drum: every lever or gate with an output cord, with its turns. */
+  readonly capstans: readonly { readonly driver: string; readonly wraps: number; readonly torqueNm: number }[];
   readonly totalWraps: number;
   /** Drum length the wraps take: total wraps × wrap pitch. */
   readonly drumLengthM: number;
@@ -53,11 +54,11 @@ export const ALL_ENGAGED = 'every capstan engaged (no states given)';
 /** Torque per snapshot and the worst case, from the capstans engaged in each. */
 export function drumLoad<W>(netlist: Netlist, profile: Profile, snapshots: Iterable<DriveSnapshot<W>>): DrumLoad<W> {
   const drivers = new Set(netlist.cords.map((c) => c.driver));
-  const gain = availableTension(profile).gain;
   const capstans = netlist.parts.flatMap((p) => {
     if ((p.kind !== 'lever' && p.kind !== 'gate') || !drivers.has(p.id)) return [];
-    const holdN = availableTension(profile, holdWeightG(profile, p.kind)).holdN;
-    return [{ driver: p.id, torqueNm: holdN * (gain - 1) * profile.drumRadiusM }];
+    const wraps = wrapsOf(p, profile);
+    const t = availableTension(profile, holdWeightG(profile, p.kind), wraps);
+    return [{ driver: p.id, wraps, torqueNm: t.holdN * (t.gain - 1) * profile.drumRadiusM }];
   });
   const omegaRadS = (2 * Math.PI * profile.drumRpm) / 60;
   const rows: SnapshotTorque<W>[] = [];
@@ -81,6 +82,6 @@ export function drumLoad<W>(netlist: Netlist, profile: Profile, snapshots: Itera
     const w = rows.reduce((a, r) => (r.torqueNm > a.torqueNm ? r : a), rows[0]);
     worst = { where: w.where, torqueNm: w.torqueNm, powerW: w.powerW };
   }
-  const totalWraps = capstans.length * profile.wraps;
+  const totalWraps = capstans.reduce((n, c) => n + c.wraps, 0);
   return { capstans, totalWraps, drumLengthM: totalWraps * profile.wrapPitchM, omegaRadS, snapshots: rows, worst };
 }

@@ -9,3 +9,5 @@ export * from './operator.js';
 export * from './bom.js';
 export * from './check-drive.js';
 export * from './routing.js';
+export * from './actuators.js';
+export * from './headroom.js';

@@ -79,6 +79,11 @@ export interface Profile {
   readonly operatorExtraG: number;
   /** Full turns of cord on the drum per capstan. */
   readonly wraps: number;
+  /**
+   * Most turns one capstan may have. The capstan of an actuator (an output with a load) gets
+   * more turns than `wraps` where its force budget asks for them, up to this.
+   */
+  readonly maxWraps: number;
   /** Friction coefficient of cord on the drum. */
   readonly mu: number;
   /** Default routing loss of every cord branch. */
@@ -106,6 +111,20 @@ export interface Profile {
   readonly cost: CostWeights;
   /** The frame's geometry: bays, cord channel, pulleys, allowances, drum limits. */
   readonly frame: FrameGeometry;
+  /**
+   * Where the profile came from, for the build sheet: the file, its description and its
+   * `sources`. Absent for the shipped defaults used without a file. Not a physical figure.
+   */
+  readonly about?: ProfileAbout;
+}
+
+/** What a profile file says about itself (its non-physical fields). */
+export interface ProfileAbout {
+  /** The file it was read from. */
+  readonly file?: string;
+  readonly description?: string;
+  /** Where each value comes from, by field path (`mu`, `routing.muPin`, `frame.leverPitchM`). */
+  readonly sources?: Readonly<Record<string, string>>;
 }
 
 /** The shipped defaults (profiles/default.json carries the same values with their sources). */
@@ -116,6 +135,7 @@ export const DEFAULT_PROFILE: Profile = {
   leverWeightG: 15,
   operatorExtraG: 5,
   wraps: 2,
+  maxWraps: 4,
   mu: 0.25,
   routing: { pinAngleRad: 0, muPin: 0.2, pulleys: 0, pulleyEfficiency: 0.95 },
   cordRouting: {},

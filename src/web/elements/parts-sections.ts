@@ -3,8 +3,14 @@
  * timing, operating rules. (The charts and the exports live in parts.ts.)
  */
 import { html, nothing } from 'lit';
-import { type CheckResult, RULE_WORDS, type RuleViolation, type TimingResult } from '../../core/index.js';
-import type { BuildView } from '../worker/protocol.js';
+import {
+  type CheckResult,
+  RULE_WORDS,
+  type RuleViolation,
+  type TimingResult,
+  withoutCapstanWords,
+} from '../../core/index.js';
+import type { BuildView, ChecksView } from '../worker/protocol.js';
 
 const CHECK_WORDS: Readonly<Record<string, string>> = {
   'forbidden-input': 'No forbidden latch input',
@@ -47,6 +53,7 @@ export function partsSection(b: BuildView) {
   return html`<section class="panel" aria-label="Parts and bill of materials">
     <h2>Parts and bill of materials</h2>
     <p class="counts">${counts.map(([k, v]) => html`<span><strong>${v}</strong> ${k}</span>`)}</p>
+    ${withoutCapstanWords(b.build.netlist) ? html`<p class="soft">${withoutCapstanWords(b.build.netlist)}.</p>` : nothing}
     <table aria-label="Bill of materials">
       <thead>
         <tr>
@@ -75,6 +82,43 @@ export function partsSection(b: BuildView) {
 }
 
 const s2 = (x: number): string => (Math.round(x * 100) / 100).toString();
+
+/** Friction headroom (how far μ may fall) and what each actuator lifts against the most it could. */
+export function headroomView(c: ChecksView) {
+  return html`${
+    c.muMin === null || c.muAtMinMargin === null
+      ? nothing
+      : html`<p data-headroom>
+          Friction headroom: every capstan still holds down to μ = ${c.muMin.toFixed(3)} and keeps the margin of
+          ${c.minMargin} down to μ = ${c.muAtMinMargin.toFixed(3)} (μ = ${c.mu} now).
+        </p>`
+  }
+  ${
+    c.outputLoads.length === 0
+      ? html`<p class="soft">Every output is a flag: it moves only its own lever's swing, no external load.</p>`
+      : html`<table aria-label="Loads of the outputs">
+          <thead>
+            <tr>
+              <th scope="col">Output</th>
+              <th scope="col" class="num">Load</th>
+              <th scope="col" class="num">Most at margin ${c.minMargin}</th>
+              <th scope="col" class="num">Margin</th>
+            </tr>
+          </thead>
+          <tbody>
+            ${c.outputLoads.map(
+              (o) =>
+                html`<tr class=${o.margin >= c.minMargin ? 'ok' : 'bad'}>
+                  <td>${o.output}</td>
+                  <td class="num">${o.loadG} g</td>
+                  <td class="num">${Math.floor(o.maxLoadG)} g</td>
+                  <td class="num">${s2(o.margin)}</td>
+                </tr>`,
+            )}
+          </tbody>
+        </table>`
+  }`;
+}
 
 export function timingSection(t: TimingResult | undefined) {
   if (!t) return nothing;

@@ -16,7 +16,7 @@ import {
 } from '../../core/index.js';
 import type { BuildView, ChecksView } from '../worker/protocol.js';
 import { shared } from '../styles/shared.js';
-import { checksSection, partsSection, rulesSection, timingSection } from './parts-sections.js';
+import { checksSection, headroomView, partsSection, rulesSection, timingSection } from './parts-sections.js';
 import { emit } from './emit.js';
 import './bar-chart.js';
 
@@ -127,7 +127,8 @@ export class LwParts extends LitElement {
                   floor
                   .bars=${c.margins.map((m) => ({ label: m.label, value: m.margin }))}
                   .marker=${{ value: c.minMargin, label: `minimum ${c.minMargin}` }}
-                ></lw-bar-chart>`
+                ></lw-bar-chart>
+                ${headroomView(c)}`
             : html`<p class="soft">Checking…</p>`
         }
       </section>

@@ -79,11 +79,25 @@ export interface TorqueBar {
   readonly at: string;
 }
 
+/** What an output shown by an actuator lifts, and the most it could lift at the design margin. */
+export interface OutputLoadRow {
+  readonly output: string;
+  readonly loadG: number;
+  readonly maxLoadG: number;
+  readonly margin: number;
+}
+
 /** Check results and the figures the parts view draws. */
 export interface ChecksView {
   readonly checks: readonly CheckResult[];
   readonly margins: readonly MarginBar[];
   readonly minMargin: number;
+  /** μ of the profile, and the lowest μ at which every capstan still holds / keeps the design margin (null: no loads). */
+  readonly mu: number;
+  readonly muMin: number | null;
+  readonly muAtMinMargin: number | null;
+  /** Outputs shown by an actuator, in output order. */
+  readonly outputLoads: readonly OutputLoadRow[];
   readonly torque: readonly TorqueBar[];
   readonly powerW: number;
   readonly timing?: TimingResult;

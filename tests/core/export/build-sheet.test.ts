@@ -8,11 +8,13 @@ import { buildSheetMd, renderDocMd } from '../../../src/core/export/build-sheet-
 import { coverExpr } from '../../../src/core/export/readable.js';
 import { escapeXml } from '../../../src/core/export/escape.js';
 import { table, type Doc } from '../../../src/core/export/doc.js';
+import { billOfMaterials } from '../../../src/core/physics/bom.js';
 import { example, exampleNames, xmlProblems } from './support.js';
 
 const SECTIONS = [
   'Machine',
   'Safety',
+  'Technology profile',
   'State table',
   'Set and reset equations',
   'Forbidden-input guard',
@@ -110,6 +112,50 @@ describe('core/export/build-sheet', () => {
     });
     const note = failed.sections[0].blocks.find((x) => x.kind === 'note');
     expect(note).toMatchObject({ tone: 'fail', items: ['equivalence: outputs differ in state two'] });
+  });
+
+  it('says what each output moves: an actuator its load and the most it can lift, a flag only its own swing', () => {
+    const lock = buildSheetMd(example('canal-lock.lw'));
+    // 450 g on 2.75 turns: 15 g · e^(0.25·2π·2.75) = 1127.5 g, at margin 2 563.7 g, margin 2.51 (capstan equation).
+    expect(lock).toContain('| lower_gate | actuator | 450 | 563.7 | 2.51 | its load, by its own capstan |');
+    expect(lock).toContain(
+      '| outputs | lower_gate (actuator, 450 g), upper_gate (actuator, 450 g), fill (actuator, 300 g)',
+    );
+    const bell = buildSheetMd(example('marble-bell.lw'));
+    expect(bell).toContain(
+      "| bell | flag | — | — | — | the Z lever's own swing: no external load (give the output a load to drive one) |",
+    );
+    const d = findCheck(example('canal-lock.lw').checks, 'drive');
+    expect(lock).toContain(
+      `every capstan still holds its load down to μ = ${Math.round((d?.muMin ?? 0) * 1000) / 1000}`,
+    );
+  });
+
+  it('names the profile used, its description, and the source of every value that differs from the defaults', () => {
+    const b = example('marble-bell.lw');
+    expect(buildSheetMd(b)).toContain('| technology profile | the shipped defaults (profiles/default.json) |');
+    expect(buildSheetMd(b)).toContain('Every value is the shipped default');
+    const profile = {
+      ...b.profile,
+      mu: 0.22,
+      zWeightG: 20,
+      about: { file: 'shop.json', description: 'beech drum', sources: { mu: 'measured, lowest of five' } },
+    };
+    const md = buildSheetMd({ ...b, profile });
+    expect(md).toContain('| technology profile | shop.json — beech drum |');
+    expect(md).toContain('| `mu` | `0.22` | `0.25` | measured, lowest of five |');
+    expect(md).toContain('| `zWeightG` | `20` | `15` | NOT GIVEN — add it under "sources" |');
+  });
+
+  it('counts the capstans as the bill of materials does, naming the gates that have none', () => {
+    const b = example('ferry-gate.lw');
+    const md = buildSheetMd(b);
+    const bomCapstans = billOfMaterials(b.build.netlist, b.profile)
+      .filter((r) => r.kind === 'capstan')
+      .reduce((n, r) => n + r.count, 0);
+    expect(b.build.parts.capstans).toBe(bomCapstans);
+    expect(md).toContain(`on ${bomCapstans} capstans`);
+    expect(md).toContain('2 gates that only show a flag have no capstan');
   });
 
   it('keeps every Markdown table rectangular, whatever the cells hold', () => {

@@ -90,9 +90,12 @@ describe('core/export/commissioning', () => {
   it('writes CSV with one row per hand action, a column per latch lever and output, and an empty done column', () => {
     const b = example('marble-bell.lw').build;
     const rows = commissioningRows(b, DEFAULT_PROFILE, commissioningTour(b.machine));
-    const parsed = csvParse(commissioningCsv(rows));
+    const all = csvParse(commissioningCsv(rows));
+    // It opens with the safety cautions (DESIGN §9), one record each, before the first hand action.
+    expect(all.slice(0, CAUTIONS.length).map((r) => [r.step, r.action])).toEqual(CAUTIONS.map((c) => ['caution', c]));
+    const parsed = all.slice(CAUTIONS.length);
     expect(parsed).toHaveLength(rows.length);
-    expect(parsed.columns).toEqual([
+    expect(all.columns).toEqual([
       'step',
       'clock',
       'action',

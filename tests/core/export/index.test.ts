@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { csvParse, csvParseRows } from 'd3';
-import { buildDocuments, DOCUMENT_FILES } from '../../../src/core/export/index.js';
+import { buildDocuments, CAUTIONS, DOCUMENT_FILES } from '../../../src/core/export/index.js';
 import { EVIL, evilBuild, example, exampleNames, schemaProblems, xmlProblems, type Schema } from './support.js';
 
 const schema = JSON.parse(
@@ -54,7 +54,8 @@ describe('core/export/index', () => {
       },
     ];
     const docs = buildDocuments({ ...b, tour });
-    expect(docs.get('commissioning.csv')?.trim().split('\r\n')).toHaveLength(1 + 1 + 5);
+    // The header, the cautions, the reset and the five hand actions of the one clock.
+    expect(docs.get('commissioning.csv')?.trim().split('\r\n')).toHaveLength(1 + CAUTIONS.length + 1 + 5);
     expect(docs.get('machine_tb.v')).toContain('the commissioning sequence, 1 clocks.');
   });
 

@@ -14,10 +14,17 @@ describe('core/export/wiring', () => {
       const want = n.cords
         .flatMap((c) => [
           ...c.ports.map((p) => `${c.id}>${p.part}.${p.port}`),
-          ...c.actuators.map((a) => `${c.id}>${a}.`),
+          ...c.actuators.map((a) => `${c.id}>${a}`),
         ])
         .sort();
-      expect(rows.map((r) => `${r.cord}>${r.target}.${r.port}`).sort(), name).toEqual(want);
+      // An actuator branch names the load in place of a port.
+      const isActuator = (r: { target: string }): boolean =>
+        n.parts.some((p) => p.id === r.target && p.kind === 'actuator');
+      expect(
+        rows.map((r) => (isActuator(r) ? `${r.cord}>${r.target}` : `${r.cord}>${r.target}.${r.port}`)).sort(),
+        name,
+      ).toEqual(want);
+      for (const r of rows.filter(isActuator)) expect(r.port, name).toMatch(/^load [0-9.]+ g$/);
       expect(rows.map((r) => r.step)).toEqual(rows.map((_, i) => i + 1));
     }
   });
@@ -90,6 +97,7 @@ describe('core/export/wiring', () => {
       'driver',
       'driver name',
       'driver side',
+      'turns',
       'target',
       'target name',
       'port',

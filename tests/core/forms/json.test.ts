@@ -137,6 +137,28 @@ describe('core/forms/json', () => {
     if (d!.severity === 'error') expect(r.machine).toBeUndefined();
   });
 
+  it('reads loadsG (grams above 0) and final, naming a bad load by its path (LW107)', () => {
+    const r = parseJsonMachine(tiny({ loadsG: { z: 300 } }, { final: true }), 'm.json');
+    expect(r.diagnostics).toEqual([]);
+    expect(r.machine?.loadsG).toEqual({ z: 300 });
+    expect(r.machine?.partLocs?.['load:z']).toEqual({ file: 'm.json', path: '$.loadsG.z' });
+    expect(r.machine?.states[0].final).toBe(true);
+    expect(machineToJson(r.machine!)).toMatchObject({ loadsG: { z: 300 }, states: [{ final: true }] });
+    const bad = parseJsonMachine(tiny({ loadsG: { z: '300 g', y: -1, w: 0 } }), 'm.json');
+    expect(bad.machine).toBeUndefined();
+    expect(bad.diagnostics.map((d) => [d.code, d.location.path])).toEqual([
+      ['LW107', '$.loadsG.z'],
+      ['LW107', '$.loadsG.y'],
+      ['LW107', '$.loadsG.w'],
+    ]);
+    expect(bad.diagnostics[0].hint).toBe('write the grams as a number: "z": 300');
+    expect(parseJsonMachine(tiny({ loadsG: [300] })).diagnostics[0]).toMatchObject({
+      code: 'LW103',
+      location: { path: '$.loadsG' },
+    });
+    expect(parseJsonMachine(tiny({}, { final: 'yes' })).diagnostics[0]).toMatchObject({ code: 'LW103' });
+  });
+
   it('still gives a machine when only warnings were found', () => {
     const r = parseJsonMachine(tiny({ colour: 'red' }));
     expect(r.diagnostics.map((d) => d.code)).toEqual(['LW105']);

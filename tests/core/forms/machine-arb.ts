@@ -47,6 +47,17 @@ function outputsArb(outputs: readonly string[]): fc.Arbitrary<Record<string, Out
     );
 }
 
+/** Loads (grams, as a person weighs them: whole or tenths) for a subset of the outputs; undefined for none. */
+function loadsArb(outputs: readonly string[]): fc.Arbitrary<Record<string, number> | undefined> {
+  return fc
+    .subarray([...outputs])
+    .chain((keys) =>
+      fc
+        .tuple(...keys.map(() => fc.integer({ min: 1, max: 50000 }).map((t) => t / 10)))
+        .map((g) => (keys.length ? Object.fromEntries(keys.map((k, i) => [k, g[i]])) : undefined)),
+    );
+}
+
 const descriptionArb = fc.option(
   fc
     .array(
@@ -72,6 +83,7 @@ export const jsonMachineArb: fc.Arbitrary<JsonMachine> = fc
       fc
         .record({
           code: fc.option(fc.constant(i.toString(2).padStart(bits, '0')), { nil: undefined }),
+          final: fc.option(fc.constant(true as const), { nil: undefined }),
           outputs: outputsArb(outputs),
           transitions: fc.array(transition, { maxLength: 4 }),
         })
@@ -82,6 +94,7 @@ export const jsonMachineArb: fc.Arbitrary<JsonMachine> = fc
         start: fc.constantFrom(...states),
         unspecified: fc.constantFrom('hold' as const, 'dont-care' as const),
         never: fc.option(fc.array(exprArb(inputs).map(printExpr), { minLength: 1, maxLength: 2 }), { nil: undefined }),
+        loadsG: loadsArb(outputs),
         states: fc.tuple(...states.map(state)),
       })
       .map(
@@ -94,6 +107,7 @@ export const jsonMachineArb: fc.Arbitrary<JsonMachine> = fc
             start: r.start,
             unspecified: r.unspecified,
             never: r.never,
+            loadsG: r.loadsG,
             states: r.states,
           }) as JsonMachine,
       );

@@ -109,6 +109,14 @@ state busy
     ['state without a name', head + 'state\n', 'LW104', 5, 6],
     ['code without digits', head + 'state s code\n', 'LW104', 5, 13],
     ['bad output value', head + 'state s with z=2\n', 'LW106', 5, 16],
+    ['a load without a unit', head + 'load z 300\n', 'LW107', 5, 8],
+    ['a load in pounds', head + 'load z 2 lb\n', 'LW107', 5, 8],
+    ['a load of nothing', head + 'load z 0 g\n', 'LW107', 5, 8],
+    ['a load that is not a number', head + 'load z heavy g\n', 'LW107', 5, 8],
+    ['a load without a mass', head + 'load z\n', 'LW107', 5, 7],
+    ['two loads for one output', head + 'load z 1 g, z 2 g\n', 'LW107', 5, 13],
+    ['load without an output', head + 'load\n', 'LW104', 5, 5],
+    ['junk after a load', head + 'load z 3 g soon\n', 'LW101', 5, 12],
     ['unknown input', head + 'state s\n  when a & c go s\n', 'LW201', 6, 12],
     [
       'guard too large',
@@ -126,6 +134,39 @@ state busy
     expect(d!.location).toEqual({ file: 'bad.lw', line, column });
     expect(d!.hint).toBeTruthy();
     expect(formatDiagnostic(d!)).toMatch(new RegExp(`^bad\\.lw:${line}:${column}: error ${code}: `));
+  });
+
+  it('reads output loads with their unit (g or kg), several per line, and final states', () => {
+    const src = head + 'load z 450 g\nstate s final with z=1\nstate t final code 1\n';
+    const r = parseTextMachine(
+      'machine m\ninputs a\noutputs gate, paddle, bell\nload gate 0.45 kg, paddle 300g\nload bell 120 g\nstart s\nstate s final with gate=1\n',
+      'lock.lw',
+    );
+    expect(r.diagnostics).toEqual([]);
+    expect(r.machine?.loadsG).toEqual({ gate: 450, paddle: 300, bell: 120 });
+    expect(r.machine?.partLocs?.['load:bell']).toEqual({ file: 'lock.lw', line: 5, column: 6 });
+    expect(r.machine?.states[0]).toMatchObject({ name: 's', final: true, outputs: { gate: 1 } });
+    expect(printTextMachine(r.machine!)).toContain('load gate 450 g\nload paddle 300 g\nload bell 120 g\n');
+    expect(printTextMachine(r.machine!)).toContain('state s final with gate=1\n');
+    // final, code and with in any order; a state may even be called final.
+    const q = parseTextMachine(src);
+    expect(q.diagnostics).toEqual([]);
+    expect(q.machine?.states.map((x) => [x.name, x.final, x.code])).toEqual([
+      ['s', true, undefined],
+      ['t', true, '1'],
+    ]);
+    expect(parseTextMachine(head + 'state final\n').machine?.states[0]).toMatchObject({ name: 'final' });
+    expect(parseTextMachine(head + 'state final\n').machine?.states[0].final).toBeUndefined();
+    // JSON form: the same loads in grams, and "final": true.
+    const j = machineToJson(r.machine!);
+    expect(j.loadsG).toEqual({ gate: 450, paddle: 300, bell: 120 });
+    expect(j.states[0].final).toBe(true);
+  });
+
+  it('names the likely unit of a load given as a force', () => {
+    const [d] = parseTextMachine(head + 'load z 3 N\n').diagnostics;
+    expect(d.code).toBe('LW107');
+    expect(d.hint).toContain('a force in newtons divided by 9.81 is a mass in kg');
   });
 
   it('gives a did-you-mean hint for misspelt statements', () => {

@@ -142,6 +142,22 @@ describe('core/forms/xstate import', () => {
     ]);
   });
 
+  it('marks a final state final, and reads the loads of outputs from the root meta.loadsG', () => {
+    const m = importXstate(kilnDoor).machine as Machine;
+    expect(m.states.find((s) => s.name === 'jammed')?.final).toBe(true);
+    expect(m.states.find((s) => s.name === 'closed')?.final).toBeUndefined();
+    const withLoads = importXstate({ ...ticketGate, meta: { loadsG: { chime: 120 } } }, 'gate.json');
+    expect(withLoads.diagnostics).toEqual([]);
+    expect(withLoads.machine?.loadsG).toEqual({ chime: 120 });
+    expect(withLoads.machine?.partLocs?.['load:chime']).toEqual({ file: 'gate.json', path: '$.meta.loadsG.chime' });
+    const bad = importXstate({ ...ticketGate, meta: { loadsG: { chime: '120 g', lamp: 0 } } });
+    expect(bad.diagnostics.map((d) => [d.code, d.location.path])).toEqual([
+      ['LW107', '$.meta.loadsG.chime'],
+      ['LW107', '$.meta.loadsG.lamp'],
+    ]);
+    expect(importXstate({ ...ticketGate, meta: { loadsG: 5 } }).diagnostics[0]).toMatchObject({ code: 'LW501' });
+  });
+
   it('agrees with xstate 5.33.3 on random flat configs of the supported subset (fast-check, fixed seed)', () => {
     let accepted = 0;
     fc.assert(
@@ -371,6 +387,21 @@ describe('core/forms/xstate export', () => {
       expect(compareExport(m, seed)).toBeUndefined();
       expect(compareExport(m, seed, 'clock')).toBeUndefined();
     }
+  });
+
+  it('writes the loads into the root meta and a final state that answers to nothing as type "final"', () => {
+    const m = parse(
+      'machine m\ninputs a\noutputs z\nload z 300 g\nstart s\nstate s\n  when a go t\nstate t final with z=1\n',
+    );
+    expect(exportXstate(m, { form: 'clock' }).config.states.t.type).toBe('final');
+    const { config, form } = exportXstate(m);
+    expect(form).toBe('levers');
+    expect(config.meta.loadsG).toEqual({ z: 300 });
+    expect(config.states.t.type).toBe('final');
+    expect(config.states.s.type).toBeUndefined();
+    const back = importXstate(JSON.parse(JSON.stringify(config)) as unknown).machine as Machine;
+    expect(back.loadsG).toEqual({ z: 300 });
+    expect(back.states.find((s) => s.name === 't')?.final).toBe(true);
   });
 
   it('chooses the levers form exactly for machines shaped like an xstate import', () => {

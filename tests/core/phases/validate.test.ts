@@ -137,6 +137,23 @@ describe('core/phases/validate', () => {
       7,
       /exclude every input combination/,
     ],
+    [
+      'a state with no way out',
+      head + 'state s\n  when a go t\nstate t with z=1\n  when b go t\n',
+      'LW306',
+      7,
+      1,
+      /state 't' has no way out: no transition leads to another state/,
+    ],
+    ['an output never 1', head + 'state s\n  when a go t\nstate t\n  go s\n', 'LW307', 3, 9, /output 'z' is never 1/],
+    [
+      'an output never 0',
+      head + 'state s with z=1\n  when a go t\nstate t with z=1\n  go s\n',
+      'LW307',
+      3,
+      9,
+      /output 'z' is 1 in every reachable state and transition, never 0/,
+    ],
   ];
   it.each(noteKinds)('notes %s', (_name, src, code, line, column, msg) => {
     const v = validate(text(src));
@@ -148,9 +165,66 @@ describe('core/phases/validate', () => {
     expect(d!.severity).not.toBe('error');
   });
 
+  it('warns about a trap only when the state is reachable, not final, and truly closed (LW306)', () => {
+    const trap = head + 'state s\n  when a go t\nstate t with z=1\n  when b go t\n';
+    expect(validate(text(trap)).diagnostics.map((d) => d.code)).toContain('LW306');
+    // Marked final: intended, so neither the trap warning nor the "no transition" note.
+    const final = validate(text(trap.replace('state t with z=1', 'state t final with z=1')));
+    expect(final.diagnostics.map((d) => [d.code, d.message.includes("'t'")])).not.toContainEqual(['LW306', true]);
+    expect(final.diagnostics.map((d) => [d.code, d.message.includes("'t'")])).not.toContainEqual(['LW302', true]);
+    // A way out on some input is enough; a one-state machine is combinational and never traps.
+    expect(validate(text(trap + '  when a go s\n')).diagnostics.map((d) => d.code)).not.toContain('LW306');
+    expect(validate(text(head + 'state s with z=1\n  when a go s with z=0\n')).diagnostics.map((d) => d.code)).toEqual([
+      'LW302',
+    ]);
+    // JSON form: the location is the state's path, and "final": true silences it.
+    const j = (final: boolean) =>
+      machineFromJson({
+        name: 'm',
+        inputs: ['a'],
+        outputs: ['z'],
+        start: 's',
+        states: [
+          { name: 's', transitions: [{ when: 'a', to: 't' }] },
+          { name: 't', ...(final ? { final: true } : {}), outputs: { z: 1 }, transitions: [] },
+        ],
+      }).machine!;
+    const w = validate(j(false)).diagnostics.find((d) => d.code === 'LW306');
+    expect(w?.location.path).toBe('$.states[1]');
+    expect(w?.hint).toContain('"final": true');
+    expect(validate(j(true)).diagnostics.map((d) => d.code)).not.toContain('LW306');
+  });
+
+  it('prints the LW302 input combinations simplified by the never constraints', () => {
+    // !up & !full | !up & full & !empty is !up once full & empty cannot happen.
+    const src =
+      'machine lock\ninputs up, full, empty\noutputs z\nstart s\nnever full & empty\nstate s\n  when up go t with z=1\nstate t\n  go s\n';
+    const d = validate(text(src)).diagnostics.find((x) => x.code === 'LW302');
+    expect(d?.message).toContain('some input combinations (!up);');
+    // Without the never constraint there is nothing to widen into.
+    const plain = validate(text(src.replace('never full & empty\n', ''))).diagnostics.find((x) => x.code === 'LW302');
+    expect(plain?.message).toContain('some input combinations (!up);');
+    const two = src.replace('when up go t', 'when up & full go t');
+    // up & full taken: the rest, !up | up & !full, is read as !up | !full (with or without never).
+    expect(validate(text(two)).diagnostics.find((x) => x.code === 'LW302')?.message).toMatch(
+      /\((!up \| !full|!full \| !up)\);/,
+    );
+    const twoPlain = two.replace('never full & empty\n', '');
+    expect(validate(text(twoPlain)).diagnostics.find((x) => x.code === 'LW302')?.message).toContain('(!up | !full);');
+  });
+
+  it('names an undeclared output in a load (LW202)', () => {
+    const v = validate(text(head + 'load zz 100 g\nstate s\n  when a go s with z=1\n  go s\n'));
+    expect(v.diagnostics.map((d) => [d.code, d.location.line, d.location.column, d.hint])).toEqual([
+      ['LW202', 5, 6, "did you mean 'z'?"],
+    ]);
+    expect(v.diagnostics[0].message).toBe("a load is given for 'zz', which is not a declared output");
+  });
+
   it('does not call a constant-0 guard shadowed too (LW304 only)', () => {
     const v = validate(text(head + 'state s\n  when 0 go s\n  go s\n'));
-    expect(v.diagnostics.map((d) => d.code)).toEqual(['LW304']);
+    // LW307 too: the machine never sets its output.
+    expect(v.diagnostics.map((d) => d.code).filter((c) => c !== 'LW307')).toEqual(['LW304']);
   });
 
   it('locates JSON-form problems by JSON path', () => {
@@ -169,7 +243,10 @@ describe('core/phases/validate', () => {
     const w = validate(
       machineFromJson({ ...j, states: [{ name: 's', transitions: [{ to: 's' }, { when: 'a', to: 's' }] }] }).machine!,
     );
-    expect(w.diagnostics.map((d) => [d.code, d.location.path])).toEqual([['LW301', '$.states[0].transitions[1]']]);
+    expect(w.diagnostics.map((d) => [d.code, d.location.path])).toEqual([
+      ['LW301', '$.states[0].transitions[1]'],
+      ['LW307', '$.outputs[0]'],
+    ]);
   });
 
   it('refuses machines past the limits at once (LW400, LW401, LW402)', () => {
@@ -228,7 +305,7 @@ describe('core/phases/validate', () => {
       expect(v.flat, f).toBeDefined();
       expect(m.states.length, f).toBeGreaterThanOrEqual(1);
       expect(m.states.length, f).toBeLessThanOrEqual(8);
-      expect(m.inputs.length, f).toBeLessThanOrEqual(3);
+      expect(m.inputs.length, f).toBeLessThanOrEqual(4);
     }
   });
 

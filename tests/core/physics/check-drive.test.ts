@@ -20,6 +20,9 @@ describe('core/physics/check-drive', () => {
         'worstByState',
         'operatorForceMaxG',
         'drivers',
+        'muMin',
+        'muAtMinMargin',
+        'outputs',
       ].sort(),
     );
     expect(c.name).toBe('drive');

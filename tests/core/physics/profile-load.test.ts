@@ -1,7 +1,16 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { loadProfile, PROFILE_META_KEYS, PROFILE_RULES, SOURCE_KEYS } from '../../../src/core/physics/profile-load.js';
+import {
+  cordRoutingDiagnostics,
+  likelySlip,
+  loadProfile,
+  profileChanges,
+  PROFILE_META_KEYS,
+  PROFILE_RULES,
+  SOURCE_KEYS,
+} from '../../../src/core/physics/profile-load.js';
+import { fanOut } from './netlists.js';
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 
 const readJson = (rel: string): Record<string, unknown> =>
@@ -27,7 +36,11 @@ describe('core/physics/profile-load', () => {
     expect(typeof sources).toBe('object');
     expect(values).toEqual(DEFAULT_PROFILE);
     expect(Object.keys(values)).toEqual(Object.keys(DEFAULT_PROFILE));
-    expect(loadProfile(defaultFile)).toEqual({ profile: DEFAULT_PROFILE, diagnostics: [] });
+    // Read as a file, it carries what it says of itself (for the build sheet) and nothing else.
+    expect(loadProfile(defaultFile)).toEqual({
+      profile: { ...DEFAULT_PROFILE, about: { description, sources } },
+      diagnostics: [],
+    });
   });
 
   it('gives every field of default.json a source, marking the design figures "common practice"', () => {
@@ -96,6 +109,7 @@ describe('core/physics/profile-load', () => {
     ['stageDelaySpread', 1.2],
     ['stageDelaySpread', -0.1],
     ['stageDelayS', 0],
+    ['stageDelayS', 7.5],
     ['drumRpm', 0],
     ['leverRatio', 0],
     ['operatorExtraG', -1],
@@ -111,6 +125,98 @@ describe('core/physics/profile-load', () => {
     });
     expect(ds[0].message).toContain(`'${field}'`);
     expect(ds[0].hint).toBeTruthy();
+  });
+
+  // The unit slips of the issue that asked for these checks, each caught with a message naming it.
+  it.each([
+    ['drumRadiusM', 40, 'LW602', 'did you mean 0.04 (millimetres given as metres)?'],
+    ['portWeightG', 0.015, 'LW602', 'did you mean 15 (kilograms given as grams)?'],
+    ['zWeightG', 0.015, 'LW602', 'did you mean 15 (kilograms given as grams)?'],
+    ['leverWeightG', 0.015, 'LW602', 'did you mean 15 (kilograms given as grams)?'],
+    ['stageDelayS', 250, 'LW600', 'did you mean 0.25 (milliseconds given as seconds)?'],
+    ['mu', 25, 'LW600', 'did you mean 0.25 (a percentage given as a fraction)?'],
+    ['wrapPitchM', 8, 'LW602', 'did you mean 0.008 (millimetres given as metres)?'],
+    ['drumRpm', 0.33, 'LW602', 'did you mean 19.8 (revolutions per second given as per minute)?'],
+  ])('catches %s = %d as %s, naming the slip', (field, value, code, slip) => {
+    const r = loadProfile({ [field]: value }, 'shop.json');
+    expect(r.diagnostics).toHaveLength(1);
+    const d = r.diagnostics[0];
+    expect(d).toMatchObject({ code, location: { file: 'shop.json', path: `$.${field}` } });
+    expect(`${d.message} ${d.hint}`).toContain(slip);
+    // A warning keeps the value (it is allowed, only implausible); an error gives no profile.
+    expect(r.profile === undefined).toBe(code === 'LW600');
+  });
+
+  it('names the slip over pins too: degrees given as radians', () => {
+    const [d] = errorsOf({ routing: { pinAngleRad: 90 } });
+    expect(d).toMatchObject({ code: 'LW602', location: { path: '$.routing.pinAngleRad' } });
+    expect(d.message).toContain('did you mean 1.571 (degrees given as radians)?');
+  });
+
+  it('warns without guessing when no usual slip explains a value', () => {
+    const [d] = errorsOf({ drumRadiusM: 0.5 });
+    expect(d.code).toBe('LW602');
+    expect(d.message).toBe("profile field 'drumRadiusM' is 0.5 m, outside the plausible 0.01–0.3 m");
+    expect(d.hint).toMatch(/^plausible range: estimate/);
+  });
+
+  it('gives every numeric field a plausible range inside its allowed range, with a source, holding the default', () => {
+    const at = (path: string): unknown =>
+      path.split('.').reduce<unknown>((o, k) => (o as Record<string, unknown>)[k], DEFAULT_PROFILE);
+    for (const [path, r] of Object.entries(PROFILE_RULES)) {
+      expect(r.plausible.min, path).toBeLessThanOrEqual(r.plausible.max);
+      expect(r.plausible.source, path).toMatch(/^(estimate|common practice)/);
+      const v = at(path) as number;
+      expect(v >= r.plausible.min && v <= r.plausible.max, `${path} = ${v}`).toBe(true);
+      if (r.min !== undefined) expect(r.plausible.min, path).toBeGreaterThanOrEqual(r.min);
+      if (r.max !== undefined) expect(r.plausible.max, path).toBeLessThanOrEqual(r.max);
+      // Every field with a unit says it at the end of its name (G grams, M metres, S seconds …).
+      const suffix = { g: 'G', m: 'M', s: 'S', rad: 'Rad', 'rev/min': 'Rpm' }[r.unit];
+      if (suffix) expect(path.endsWith(suffix), path).toBe(true);
+    }
+    expect(likelySlip(40, PROFILE_RULES.drumRadiusM)).toBe('did you mean 0.04 (millimetres given as metres)?');
+    expect(likelySlip(0.5, PROFILE_RULES.drumRadiusM)).toBeUndefined();
+  });
+
+  it('names a cordRouting key that matches no cord of the build (LW603), with a did-you-mean', () => {
+    // The profile reference's example once routed 'c.phi1'; the φ1 lever's cord is 'c.clk.phi1'.
+    const net = fanOut(2);
+    const withPhi = { ...net, cords: [...net.cords, { id: 'c.clk.phi1', driver: 'L', ports: [], actuators: [] }] };
+    const { profile } = loadProfile({ cordRouting: { 'c.phi1': { pulleys: 1 }, 'c.L': { pulleys: 1 } } }, 'shop.json');
+    if (!profile) throw new Error('the profile must load');
+    const ds = cordRoutingDiagnostics(profile, withPhi);
+    expect(ds).toHaveLength(1);
+    expect(ds[0]).toMatchObject({
+      code: 'LW603',
+      severity: 'error',
+      location: { file: 'shop.json', path: '$.cordRouting["c.phi1"]' },
+      hint: "did you mean 'c.clk.phi1'?",
+    });
+    expect(cordRoutingDiagnostics(DEFAULT_PROFILE, withPhi)).toEqual([]);
+  });
+
+  it('keeps the file, description and sources, and lists every changed value with its source', () => {
+    const { profile } = loadProfile(
+      {
+        description: 'beech drum',
+        mu: 0.22,
+        frame: { turn: 'pin' },
+        cordRouting: { 'c.clk.phi1': { pulleys: 1 } },
+        sources: { mu: 'measured, lowest of five' },
+      },
+      'shop.json',
+    );
+    expect(profile?.about).toEqual({
+      file: 'shop.json',
+      description: 'beech drum',
+      sources: { mu: 'measured, lowest of five' },
+    });
+    expect(profileChanges(profile ?? DEFAULT_PROFILE)).toEqual([
+      { field: 'mu', value: '0.22', fallback: '0.25', source: 'measured, lowest of five' },
+      { field: 'frame.turn', value: 'pin', fallback: 'pulley', source: undefined },
+      { field: 'cordRouting.c.clk.phi1', value: '{"pulleys":1}', fallback: '—', source: undefined },
+    ]);
+    expect(profileChanges(DEFAULT_PROFILE)).toEqual([]);
   });
 
   it('rejects nested nonsense naming the nested field', () => {

@@ -52,6 +52,21 @@ describe('src/web/worker/jobs', () => {
     expect(drive?.worstTorqueNm).toBe(drum.worst.torqueNm);
     expect(c.view.powerW).toBe(drum.worst.powerW);
     expect(c.view.rules.map((r) => r.rule)).toEqual(['clocks-apart', 'inputs-steady', 'reset-alone']);
+    // The forces view's friction headroom is the drive check's, and a machine of flags has no loads.
+    expect([c.view.mu, c.view.muMin, c.view.muAtMinMargin]).toEqual([0.25, drive?.muMin, drive?.muAtMinMargin]);
+    expect(c.view.outputLoads).toEqual([]);
+  });
+
+  it('gives the forces view every output with a load, as the drive check found it', () => {
+    const a = readJob(BELL.replace('outputs bell', 'outputs bell\nload bell 120 g'), 'b.lw').analysed;
+    if (!a) throw new Error('must read');
+    const b = buildJob(a, binary);
+    if (!b.built) throw new Error('must build');
+    const c = checkJob(b.built, 1);
+    // 120 g on the two turns of the profile: 15 g · e^π = 347.1 g, margin 2.89, at most 173.5 g at margin 2.
+    expect(c.view.outputLoads).toEqual([
+      { output: 'bell', loadG: 120, maxLoadG: 173.5, margin: (15 * Math.exp(Math.PI)) / 120 },
+    ]);
   });
 
   it('keeps codes chosen from a comparison exactly', () => {

@@ -132,7 +132,11 @@ function leversConfig(m: Machine, f: FlatMachine): XstateConfig {
     });
     return [
       s.name,
-      { meta: { outputs: outputsRecord(m.outputs, stay) }, ...(on.length ? { on: Object.fromEntries(on) } : {}) },
+      {
+        ...finalType(s.final, on.length),
+        meta: { outputs: outputsRecord(m.outputs, stay) },
+        ...(on.length ? { on: Object.fromEntries(on) } : {}),
+      },
     ];
   });
   return header(m, 'levers', Object.fromEntries(states));
@@ -156,6 +160,7 @@ function clockConfig(m: Machine): XstateConfig {
     return [
       s.name,
       {
+        ...finalType(s.final, candidates.length),
         meta: {
           outputs: outputsRecord(
             m.outputs,
@@ -169,12 +174,22 @@ function clockConfig(m: Machine): XstateConfig {
   return header(m, 'clock', Object.fromEntries(states));
 }
 
+/** `type: "final"` for a state marked final that answers to nothing (xstate takes no transition out of a final state). */
+function finalType(final: boolean | undefined, answers: number): { type?: 'final' } {
+  return final === true && answers === 0 ? { type: 'final' } : {};
+}
+
 function header(m: Machine, form: XstateForm, states: Record<string, XstateStateConfig>): XstateConfig {
   return {
     id: m.name,
     initial: m.start,
     ...(m.description !== undefined ? { description: m.description } : {}),
-    meta: { form, inputs: [...m.inputs], outputNames: [...m.outputs] },
+    meta: {
+      form,
+      inputs: [...m.inputs],
+      outputNames: [...m.outputs],
+      ...(m.loadsG && Object.keys(m.loadsG).length > 0 ? { loadsG: { ...m.loadsG } } : {}),
+    },
     states,
   };
 }

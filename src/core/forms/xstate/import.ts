@@ -10,7 +10,8 @@
  * the event itself, as xstate v5 lets an unhandled event bubble from a state to the root.
  * Outputs come from `meta.outputs` on states (Moore), `meta.outputs` on transitions (Mealy,
  * overriding the state's for that clock) and tags (1 in a tagged state, 0 elsewhere).
- * A final state answers to nothing: xstate stops the machine there, so every clock holds.
+ * A final state answers to nothing: xstate stops the machine there, so every clock holds; it is
+ * marked final in the Machine. The root's `meta.loadsG` gives the loads of actuator outputs.
  *
  * Preconditions: none — any value gives diagnostics, never an exception.
  * Postconditions: a Machine is returned exactly when no error was found; its inputs are the
@@ -21,7 +22,7 @@
 import { diag, didYouMean, hasErrors, type Diagnostic } from '../../model/diagnostics.js';
 import type { Guard, Machine, OutBit, SourceLoc, State, Transition } from '../../model/machine.js';
 import { parseGuard } from '../expr.js';
-import type { MachineResult } from '../json.js';
+import { jsonKey, type MachineResult } from '../json.js';
 import { featureNote } from './features.js';
 import { scanConfig } from './scan.js';
 import { resolveTarget } from './targets.js';
@@ -172,7 +173,7 @@ function importState(
       cs.forEach((c, k) => add(ev, c, tos[k]));
     }
   }
-  return { name: s.name, outputs, transitions, loc: im.at(s.path) };
+  return { name: s.name, outputs, transitions, ...(s.final ? { final: true } : {}), loc: im.at(s.path) };
 }
 
 /** At most one lever per clock: `a & b` is never pulled, for every pair of levers. */
@@ -210,8 +211,16 @@ function importChecked(config: unknown, file?: string): MachineResult {
     unspecified: 'hold',
     never,
     states,
+    ...(raw.loadsG ? { loadsG: Object.fromEntries(raw.loadsG) } : {}),
     ...(raw.description !== undefined ? { description: raw.description } : {}),
     loc: im.at('$'),
+    ...(raw.loadsG
+      ? {
+          partLocs: Object.fromEntries(
+            [...raw.loadsG.keys()].map((o) => [`load:${o}`, im.at(jsonKey('$.meta.loadsG', o))]),
+          ),
+        }
+      : {}),
   };
   return { machine, diagnostics: ds };
 }

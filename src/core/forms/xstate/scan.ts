@@ -296,6 +296,41 @@ function readState(sc: Scan, nm: string, v: unknown, path: string, rootId: strin
   return { name: nm, path, id, final, tags: readTags(sc, own(v, 'tags'), `${path}.tags`), outputs, on };
 }
 
+/**
+ * The root's `meta.loadsG`: output name → grams above 0, the loads the outputs lift (the same
+ * key as the JSON form's top-level `loadsG`). Absent: every output is a flag.
+ */
+function readRootLoads(sc: Scan, root: Obj): Map<string, number> | undefined {
+  const meta = own(root, 'meta');
+  if (!isObj(meta) || !has(meta, 'loadsG')) return undefined;
+  const v = own(meta, 'loadsG');
+  const path = '$.meta.loadsG';
+  if (!isObj(v)) {
+    sc.report(
+      'LW501',
+      `meta.loadsG should be an object of output name → grams, not ${describe(v)}`,
+      path,
+      'for example "meta": { "loadsG": { "bell": 120 } }',
+    );
+    return undefined;
+  }
+  const loads = new Map<string, number>();
+  for (const k of Object.keys(v)) {
+    const p = jsonKey(path, k);
+    if (!sc.name(k, 'output', p)) continue;
+    const g = v[k];
+    if (typeof g === 'number' && Number.isFinite(g) && g > 0) loads.set(k, g);
+    else
+      sc.report(
+        'LW107',
+        `the load of '${k}' is ${typeof g === 'number' ? String(g) : describe(g)}; a load is a number of grams above 0`,
+        p,
+        `write "${k}": 300 for 300 g`,
+      );
+  }
+  return loads;
+}
+
 /** The root's `id`, `type`, `context`, `meta` and `description`; returns the xstate machine id. */
 function readRootFields(sc: Scan, root: Obj): string {
   const where = 'the machine root';
@@ -388,6 +423,7 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
   checkIds(sc, states, rootId);
 
   const rootOn = readOn(sc, own(root, 'on'), '$.on', 'the machine root');
+  const loadsG = readRootLoads(sc, root);
   const idv = own(root, 'id');
   const desc = own(root, 'description');
   const raw: RawConfig = {
@@ -398,6 +434,7 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
     states,
     rootOn,
     rootTags: readTags(sc, own(root, 'tags'), '$.tags'),
+    ...(loadsG && loadsG.size > 0 ? { loadsG } : {}),
   };
   return { raw, diagnostics: sc.ds };
 }

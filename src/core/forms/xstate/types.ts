@@ -28,6 +28,8 @@ export interface XstateTransitionConfig {
 }
 
 export interface XstateStateConfig {
+  /** A state marked final that answers to nothing (the machine stays until reset). */
+  readonly type?: 'final';
   /** Moore outputs: every declared output, the values while no transition is taken. */
   readonly meta: { readonly outputs: Readonly<Record<string, OutBit>> };
   readonly on?: Readonly<Record<string, XstateTransitionConfig | readonly XstateTransitionConfig[]>>;
@@ -42,6 +44,8 @@ export interface XstateConfig {
     readonly form: XstateForm;
     readonly inputs: readonly string[];
     readonly outputNames: readonly string[];
+    /** The loads the outputs lift, grams (the JSON form's `loadsG`); absent when every output is a flag. */
+    readonly loadsG?: Readonly<Record<string, number>>;
   };
   readonly states: Readonly<Record<string, XstateStateConfig>>;
 }
@@ -90,4 +94,6 @@ export interface RawConfig {
   readonly states: readonly RawState[];
   readonly rootOn: ReadonlyMap<string, readonly RawTransition[]>;
   readonly rootTags: readonly string[];
+  /** The root's `meta.loadsG`: grams each loaded output lifts. */
+  readonly loadsG?: ReadonlyMap<string, number>;
 }

@@ -32,7 +32,7 @@ import { ids } from './names.js';
 import { buildOutputs, planOutputs, planReferences } from './outputs.js';
 import { buildSrTerms, literalDrivers, nameSrTerms, srFeeds, type MapContext } from './terms.js';
 
-export { countParts, partsCost } from './counts.js';
+export { countParts, partsCost, withoutCapstan, withoutCapstanWords } from './counts.js';
 export { splitFanout, tooManyBranches, DEFAULT_FANOUT_LIMIT } from './fan-out.js';
 export { ids } from './names.js';
 

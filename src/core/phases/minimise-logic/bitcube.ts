@@ -293,6 +293,10 @@ export const SLOT = {
   value: 7,
   rowStamp: 8,
   rowValue: 9,
+  compZeros: 10,
+  compOnes: 11,
+  compLift1: 12,
+  compLift0: 13,
 } as const;
 
 /** A shared Int32Array of at least `size` entries for the given slot (contents undefined). */

@@ -171,99 +171,126 @@ class Solver {
   /**
    * Essential columns, column dominance and row dominance on the current table, to a fixed
    * point (Quine–McCluskey's cyclic-core reduction, redone at every node). Mutates unc and
-   * alive; returns the cost added and how many columns it took, or -1 when a row is left
+   * alive; returns the cost added and how many columns it took, or null when a row is left
    * with no column.
    */
   private reduce(unc: Uint32Array, alive: Uint8Array): { cost: number; taken: number } | null {
     let cost = 0;
     let taken = 0;
-    const cols = this.p.columns;
     for (let changed = true; changed;) {
-      changed = false;
-      for (let r = 0; r < this.nr; r++) {
-        if (!this.isUnc(unc, r)) continue;
-        let only = -1;
-        let n = 0;
-        for (const c of this.rowCols[r])
-          if (alive[c] === 1) {
-            n++;
-            only = c;
-            if (n > 1) break;
-          }
-        if (n === 0) return null;
-        if (n === 1) {
-          cost += this.inc(only);
-          this.take(only, unc);
-          taken++;
-          changed = true;
+      const ess = this.takeEssentials(unc, alive);
+      if (ess === null) return null;
+      cost += ess.cost;
+      taken += ess.taken;
+      const columns = this.dropDominatedColumns(unc, alive);
+      const rows = this.dropDominatedRows(unc, alive);
+      if (rows === null) return null;
+      changed = ess.taken > 0 || columns || rows;
+    }
+    return { cost, taken };
+  }
+
+  /** Take every column that is the only live one of an uncovered row (null: a row has none). */
+  private takeEssentials(unc: Uint32Array, alive: Uint8Array): { cost: number; taken: number } | null {
+    let cost = 0;
+    let taken = 0;
+    for (let r = 0; r < this.nr; r++) {
+      if (!this.isUnc(unc, r)) continue;
+      let only = -1;
+      let n = 0;
+      for (const c of this.rowCols[r])
+        if (alive[c] === 1) {
+          n++;
+          only = c;
+          if (n > 1) break;
         }
-      }
-      // Column dominance: a's rows within b's, and b can never cost more than a would.
-      const groupLive = new Int32Array(this.p.groupCost.length);
-      for (let ci = 0; ci < this.nc; ci++) {
-        if (alive[ci] === 0) continue;
-        if (this.covers(ci, unc) === 0) {
-          alive[ci] = 0;
-          continue;
-        }
-        groupLive[cols[ci].group]++;
-      }
-      for (let a = 0; a < this.nc; a++) {
-        if (alive[a] === 0) continue;
-        const ca = cols[a];
-        const solo = groupLive[ca.group] === 1 && this.opened[ca.group] === 0;
-        const bestA = ca.cost + (solo ? this.p.groupCost[ca.group] : 0);
-        let pivot = -1;
-        let pivotN = Infinity;
-        for (const r of ca.rows) {
-          if (!this.isUnc(unc, r)) continue;
-          const n = this.rowCols[r].length;
-          if (n < pivotN) {
-            pivotN = n;
-            pivot = r;
-          }
-        }
-        for (const b of this.rowCols[pivot]) {
-          if (b === a || alive[b] === 0) continue;
-          const cb = cols[b];
-          const worstB = cb.cost + (this.opened[cb.group] > 0 ? 0 : this.p.groupCost[cb.group]);
-          if (worstB > bestA) continue;
-          if (!this.subset(a, b, unc)) continue;
-          // Equal columns at equal cost: keep the lower index.
-          if (worstB === bestA && b > a && this.subset(b, a, unc)) continue;
-          alive[a] = 0;
-          groupLive[ca.group]--;
-          changed = true;
-          break;
-        }
-      }
-      // Row dominance: a row holding every live column of another row is implied by it.
-      for (let s = 0; s < this.nr; s++) {
-        if (!this.isUnc(unc, s)) continue;
-        const ls = this.live(s, alive);
-        if (ls.length === 0) return null;
-        let pivot = ls[0];
-        for (const c of ls) if (cols[c].rows.length < cols[pivot].rows.length) pivot = c;
-        for (const r of cols[pivot].rows) {
-          if (r === s || !this.isUnc(unc, r)) continue;
-          let inAll = true;
-          for (const c of ls)
-            if ((this.colBits[c][r >>> 5] & (1 << (r & 31))) === 0) {
-              inAll = false;
-              break;
-            }
-          if (!inAll) continue;
-          // r holds all of s's columns; if s also holds all of r's, drop only the later one.
-          if (r < s) {
-            const lr = this.live(r, alive);
-            if (lr.length === ls.length) continue;
-          }
-          unc[r >>> 5] &= ~(1 << (r & 31));
-          changed = true;
-        }
+      if (n === 0) return null;
+      if (n === 1) {
+        cost += this.inc(only);
+        this.take(only, unc);
+        taken++;
       }
     }
     return { cost, taken };
+  }
+
+  /** Column dominance: a's rows within b's, and b can never cost more than a would. */
+  private dropDominatedColumns(unc: Uint32Array, alive: Uint8Array): boolean {
+    const cols = this.p.columns;
+    let changed = false;
+    const groupLive = new Int32Array(this.p.groupCost.length);
+    for (let ci = 0; ci < this.nc; ci++) {
+      if (alive[ci] === 0) continue;
+      if (this.covers(ci, unc) === 0) {
+        alive[ci] = 0;
+        continue;
+      }
+      groupLive[cols[ci].group]++;
+    }
+    for (let a = 0; a < this.nc; a++) {
+      if (alive[a] === 0) continue;
+      const ca = cols[a];
+      const solo = groupLive[ca.group] === 1 && this.opened[ca.group] === 0;
+      const bestA = ca.cost + (solo ? this.p.groupCost[ca.group] : 0);
+      let pivot = -1;
+      let pivotN = Infinity;
+      for (const r of ca.rows) {
+        if (!this.isUnc(unc, r)) continue;
+        const n = this.rowCols[r].length;
+        if (n < pivotN) {
+          pivotN = n;
+          pivot = r;
+        }
+      }
+      for (const b of this.rowCols[pivot]) {
+        if (b === a || alive[b] === 0) continue;
+        const cb = cols[b];
+        const worstB = cb.cost + (this.opened[cb.group] > 0 ? 0 : this.p.groupCost[cb.group]);
+        if (worstB > bestA) continue;
+        if (!this.subset(a, b, unc)) continue;
+        // Equal columns at equal cost: keep the lower index.
+        if (worstB === bestA && b > a && this.subset(b, a, unc)) continue;
+        alive[a] = 0;
+        groupLive[ca.group]--;
+        changed = true;
+        break;
+      }
+    }
+    return changed;
+  }
+
+  /**
+   * Row dominance: a row holding every live column of another row is implied by it.
+   * Returns whether a row went, or null when a row is left with no column.
+   */
+  private dropDominatedRows(unc: Uint32Array, alive: Uint8Array): boolean | null {
+    const cols = this.p.columns;
+    let changed = false;
+    for (let s = 0; s < this.nr; s++) {
+      if (!this.isUnc(unc, s)) continue;
+      const ls = this.live(s, alive);
+      if (ls.length === 0) return null;
+      let pivot = ls[0];
+      for (const c of ls) if (cols[c].rows.length < cols[pivot].rows.length) pivot = c;
+      for (const r of cols[pivot].rows) {
+        if (r === s || !this.isUnc(unc, r)) continue;
+        let inAll = true;
+        for (const c of ls)
+          if ((this.colBits[c][r >>> 5] & (1 << (r & 31))) === 0) {
+            inAll = false;
+            break;
+          }
+        if (!inAll) continue;
+        // r holds all of s's columns; if s also holds all of r's, drop only the later one.
+        if (r < s) {
+          const lr = this.live(r, alive);
+          if (lr.length === ls.length) continue;
+        }
+        unc[r >>> 5] &= ~(1 << (r & 31));
+        changed = true;
+      }
+    }
+    return changed;
   }
 
   /** Cheapest cost per newly covered row, then drop columns made redundant. */

@@ -195,7 +195,7 @@ function fixedCharge(links: readonly Link[], cost: CoverCost, rowCount: number):
   const meaning: [number, number[]][] = [];
   links.forEach((l, li) => {
     l.outs.forEach((j, q) => {
-      columns.push({ group: li, cost: cost.connection, rows: l.rows[q] as number[] });
+      columns.push({ group: li, cost: cost.connection, rows: l.rows[q] });
       meaning.push([li, [j]]);
     });
     groupCost.push(cost.term + cost.literal * l.lits);

@@ -25,7 +25,6 @@ export type Boundary = { readonly off: readonly BCube[] } | { readonly allowed: 
 
 /** Expand every cube of F within the boundary; `inputOnly` leaves output parts alone. */
 export function expandCover(sp: Space, F: readonly BCube[], bound: Boundary, inputOnly = false): BCube[] {
-  const W = sp.w;
   const allow = allowMask(sp, inputOnly);
   // Espresso's ordering: light cubes (whose parts few other cubes share) first, since they
   // are the least likely to be covered by others.
@@ -75,7 +74,6 @@ function expandAgainst(
   allow: readonly number[],
 ): BCube {
   const W = sp.w;
-  const wi = sp.wi;
   const c = c0.slice();
   const free: number[] = new Array<number>(W);
   const keep: number[] = new Array<number>(W).fill(0);
@@ -83,6 +81,28 @@ function expandAgainst(
   // Blocking rows, flat: row i occupies rows[i*W .. i*W+W-1]; `act` lists the live ones.
   const rows = scratch(SLOT.rows, R.length * W);
   const act = scratch(SLOT.act, R.length);
+  let na = blockingRows(sp, c, R, free, rows, act);
+  na = raiseTowards(W, c, cands, rows, act, na, free, keep);
+  lowestLowering(W, rows, act, na, free, keep);
+  for (let k = 0; k < W; k++) c[k] |= free[k] & ~keep[k];
+  return c;
+}
+
+/**
+ * The blocking matrix of c against R: per off cube, the lowered bits of c that would let c
+ * meet it once raised. Rows that a bit c may not raise already blocks are left out. Returns
+ * the number of live rows (their offsets at the front of `act`).
+ */
+function blockingRows(
+  sp: Space,
+  c: BCube,
+  R: readonly BCube[],
+  free: readonly number[],
+  rows: Int32Array,
+  act: Int32Array,
+): number {
+  const W = sp.w;
+  const wi = sp.wi;
   let na = 0;
   for (let i = 0; i < R.length; i++) {
     const r = R[i];
@@ -106,6 +126,24 @@ function expandAgainst(
       na++;
     } // else a bit we may not raise keeps c off r
   }
+  return na;
+}
+
+/**
+ * Grow c (in place) towards the candidate cubes it can still swallow without meeting R: after
+ * the essential lowerings and the free raises, take the candidate whose raise leaves most of
+ * the others feasible, until none is. Returns the number of live rows left.
+ */
+function raiseTowards(
+  W: number,
+  c: BCube,
+  cands: readonly BCube[],
+  rows: Int32Array,
+  act: Int32Array,
+  na: number,
+  free: number[],
+  keep: number[],
+): number {
   const nc = cands.length;
   const need = scratch(SLOT.need, nc * W);
   const pend = scratch(SLOT.pend, nc);
@@ -142,33 +180,46 @@ function expandAgainst(
       if (rowsSurvive(W, rows, act, na, free, need, nb, -1)) feas[nf++] = i;
     }
     np = kept;
-    if (nf === 0) break;
-    // Espresso's select_feasible: take the cube whose raise leaves most of the other feasible
-    // cubes still feasible; ties go to the smaller raise, then to the earlier cube.
-    let best = feas[0];
-    let bestScore = -1;
-    let bestBits = Infinity;
-    for (let a = 0; a < nf; a++) {
-      const ia = feas[a] * W;
-      let score = 0;
-      for (let b = 0; b < nf; b++) if (a !== b && rowsSurvive(W, rows, act, na, free, need, ia, feas[b] * W)) score++;
-      let bits = 0;
-      for (let k = 0; k < W; k++) bits += popcount(need[ia + k]);
-      if (score > bestScore || (score === bestScore && bits < bestBits)) {
-        best = feas[a];
-        bestScore = score;
-        bestBits = bits;
-      }
-    }
+    if (nf === 0) return na;
+    const best = selectFeasible(W, rows, act, na, free, need, feas, nf);
     for (let k = 0; k < W; k++) {
       const x = need[best * W + k];
       c[k] |= x;
       free[k] &= ~x;
     }
   }
-  lowestLowering(W, rows, act, na, free, keep);
-  for (let k = 0; k < W; k++) c[k] |= free[k] & ~keep[k];
-  return c;
+}
+
+/**
+ * Espresso's select_feasible: the candidate whose raise leaves most of the other feasible
+ * candidates still feasible; ties go to the smaller raise, then to the earlier candidate.
+ */
+function selectFeasible(
+  W: number,
+  rows: Int32Array,
+  act: Int32Array,
+  na: number,
+  free: readonly number[],
+  need: Int32Array,
+  feas: Int32Array,
+  nf: number,
+): number {
+  let best = feas[0];
+  let bestScore = -1;
+  let bestBits = Infinity;
+  for (let a = 0; a < nf; a++) {
+    const ia = feas[a] * W;
+    let score = 0;
+    for (let b = 0; b < nf; b++) if (a !== b && rowsSurvive(W, rows, act, na, free, need, ia, feas[b] * W)) score++;
+    let bits = 0;
+    for (let k = 0; k < W; k++) bits += popcount(need[ia + k]);
+    if (score > bestScore || (score === bestScore && bits < bestBits)) {
+      best = feas[a];
+      bestScore = score;
+      bestBits = bits;
+    }
+  }
+  return best;
 }
 
 /** Does every live row keep a free bit outside the raise need[a] (∪ need[b] when b ≥ 0)? */

@@ -34,10 +34,9 @@ import {
   key,
   absorbFull,
 } from './bitcube.js';
-import { complement } from './unate.js';
+import { boundary } from './offset.js';
 import { compact, subtractCover } from './tidy.js';
 import { espresso } from './espresso.js';
-import type { Boundary } from './expand.js';
 import { exactMinimise, EXACT_MAX_VARS, type ExactLimits } from './exact.js';
 import { DEFAULT_COST, coverCost } from './cost.js';
 import type { CoverCost, MinimiseOptions, MinimiserMethod, MultiFunction, SopCover, Term } from './types.js';
@@ -188,7 +187,7 @@ function shared(f: MultiFunction, p: Packed, method: MinimiserMethod, cost: Cove
   });
   const start = [...byCube.entries()].map(([c, js]) => withOutputs(sp, parseInput(sp, c), js));
   const D = mergeOutputs(sp, p.dc);
-  return espresso(sp, start, D, boundary(p), cost, true).map((c) => ({
+  return espresso(sp, start, D, boundary(sp, p.allowed), cost, true).map((c) => ({
     cube: formatInput(sp, c),
     outputs: outputsOf(sp, c),
   }));
@@ -202,31 +201,15 @@ function toFound(sp: Space, terms: readonly { cube: BCube; outputs: readonly num
   return terms.map((t) => ({ cube: formatInput(sp, t.cube), outputs: t.outputs.slice() }));
 }
 
-/**
- * Work allowed for building the off-set, in cubes produced by the complement recursion: past
- * it, EXPAND tests containment in on ∪ dc instead (expand-within.ts).
- */
-const OFFSET_BUDGET = 20_000;
-
 /** Espresso-II on the packed function. */
 function heuristic(p: Packed, cost: CoverCost): Found[] {
   const { sp } = p;
   const F = mergeOutputs(sp, p.on);
   const D = mergeOutputs(sp, p.dc);
-  return espresso(sp, F, D, boundary(p), cost).map((c) => ({ cube: formatInput(sp, c), outputs: outputsOf(sp, c) }));
-}
-
-/** The off-set as single-function cubes, or the allowed sets when it is too large. */
-function boundary(p: Packed): Boundary {
-  const { sp } = p;
-  const R: BCube[] = [];
-  const budget = { left: OFFSET_BUDGET };
-  for (let j = 0; j < p.allowed.length; j++) {
-    const off = complement(sp, p.allowed[j], budget);
-    if (off === null) return { allowed: p.allowed };
-    for (const r of off) R.push(withOutputs(sp, r, [j]));
-  }
-  return { off: R };
+  return espresso(sp, F, D, boundary(sp, p.allowed), cost).map((c) => ({
+    cube: formatInput(sp, c),
+    outputs: outputsOf(sp, c),
+  }));
 }
 
 /** One multi-output cube per distinct input cube, feeding every function that lists it. */

@@ -6,7 +6,7 @@
  *
  * Every routine here reads only the input part (words 0..wi-1) of its cubes.
  */
-import { type BCube, type Space, popcount, isUniverse, universe, varPos, inEqual, inContains } from './bitcube.js';
+import { type BCube, type Space, popcount, isUniverse, universe, varPos } from './bitcube.js';
 
 /** Per-variable literal summary of a cover: which variables appear as 0 and as 1. */
 interface Columns {
@@ -155,8 +155,8 @@ export function cubeCovered(sp: Space, t: readonly BCube[], c: BCube, skip?: BCu
   return tautology(sp, cof);
 }
 
-/** Complement of a cube by De Morgan: one cube per literal. */
-function complementCube(sp: Space, c: BCube): BCube[] {
+/** Complement of a cube by De Morgan: one cube per literal (fresh cubes). */
+export function complementCube(sp: Space, c: BCube): BCube[] {
   const out: BCube[] = [];
   for (let k = 0; k < sp.wi; k++) {
     let lits = sp.low[k] & ~(c[k] & (c[k] >>> 1));
@@ -175,56 +175,6 @@ function complementCube(sp: Space, c: BCube): BCube[] {
 /** A work allowance shared by a recursion; `left` counts down. */
 export interface Budget {
   left: number;
-}
-
-/**
- * Complement of a cover over the input space (Brayton et al. ch. 3, with the merge step
- * that lifts a cube present, or contained, on both sides of the split). With a budget, null
- * once more cubes than it allows have been produced (the complement of sparse covers over
- * many variables can be exponentially large).
- */
-export function complement(sp: Space, t: readonly BCube[], budget: Budget = { left: Infinity }): BCube[] | null {
-  if (t.length === 0) return [universe(sp)];
-  for (const c of t) if (isUniverse(sp, c)) return [];
-  if (t.length === 1) return complementCube(sp, t[0]);
-  const v = splitVar(sp, t, false);
-  const c1 = complement(sp, cofactorVar(sp, t, v, 1), budget);
-  if (c1 === null) return null;
-  const c0 = complement(sp, cofactorVar(sp, t, v, 0), budget);
-  if (c0 === null) return null;
-  budget.left -= c1.length + c0.length;
-  if (budget.left < 0) return null;
-  const [k, s] = varPos(v);
-  const both = 3 << s;
-  const out: BCube[] = [];
-  const used0 = new Uint8Array(c0.length);
-  for (const a of c1) {
-    let lifted = false;
-    for (let j = 0; j < c0.length; j++) {
-      if (inContains(sp, c0[j], a)) {
-        if (inEqual(sp, c0[j], a)) used0[j] = 1;
-        lifted = true;
-        break;
-      }
-    }
-    const r = a.slice(0, sp.wi);
-    if (!lifted) r[k] = (r[k] & ~both) | (2 << s);
-    out.push(r);
-  }
-  for (let j = 0; j < c0.length; j++) {
-    if (used0[j]) continue;
-    const b = c0[j];
-    let lifted = false;
-    for (const a of c1)
-      if (inContains(sp, a, b)) {
-        lifted = true;
-        break;
-      }
-    const r = b.slice(0, sp.wi);
-    if (!lifted) r[k] = (r[k] & ~both) | (1 << s);
-    out.push(r);
-  }
-  return out;
 }
 
 /**

@@ -3,7 +3,14 @@ import fc from 'fast-check';
 import type { FlatMachine } from '../../../../src/core/model/flat.js';
 import type { Cord, Netlist } from '../../../../src/core/model/netlist.js';
 import { DEFAULT_PROFILE, type Profile } from '../../../../src/core/physics/profile.js';
-import { countParts, mapToParts, splitFanout, tooManyBranches } from '../../../../src/core/phases/map/index.js';
+import {
+  countParts,
+  mapToParts,
+  splitFanout,
+  tooManyBranches,
+  withoutCapstan,
+  withoutCapstanWords,
+} from '../../../../src/core/phases/map/index.js';
 import { synthesise } from '../../../../src/core/synthesise.js';
 import { binaryEncoding, netlistViolations, polarityMismatch, randomMachine, settle } from '../../support/synthesis.js';
 
@@ -204,7 +211,10 @@ describe('core/phases/map', () => {
       ],
     };
     // Weights: lever 1; one-port gate 1 (its port is Z); two-port gate 2 ports + Z = 3.
-    expect(countParts(n)).toEqual({ gates: 2, latches: 0, levers: 1, capstans: 3, weights: 5, cords: 3 });
+    // Capstans: the lever and g1 drive cords; g2 only shows a flag, so it has no capstan.
+    expect(countParts(n)).toEqual({ gates: 2, latches: 0, levers: 1, capstans: 2, weights: 5, cords: 3 });
+    expect(withoutCapstan(n)).toEqual({ gates: 1, levers: 0 });
+    expect(withoutCapstanWords(n)).toBe('1 gate that only shows a flag has no capstan');
   });
 });
 

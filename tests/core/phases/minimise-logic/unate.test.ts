@@ -1,12 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import { makeSpace, parseInput, formatInput } from '../../../../src/core/phases/minimise-logic/bitcube.js';
-import {
-  tautology,
-  complement,
-  cubeCovered,
-  supercubeOfComplement,
-} from '../../../../src/core/phases/minimise-logic/unate.js';
+import { tautology, cubeCovered, supercubeOfComplement } from '../../../../src/core/phases/minimise-logic/unate.js';
 import { seededRandom } from '../../../../src/core/model/random.js';
 import { mintermsOf, randomCube, truth, coverOf } from './brute.js';
 
@@ -29,42 +24,6 @@ describe('core/phases/minimise-logic/unate', () => {
       }),
       { seed: 42, numRuns: 200 },
     );
-  });
-
-  it('complement is exactly the missing points', () => {
-    fc.assert(
-      fc.property(smallCoverArb, ({ n, cubes }) => {
-        const sp = makeSpace(n, 1);
-        const comp = complement(
-          sp,
-          cubes.map((c) => parseInput(sp, c)),
-        )!.map((c) => formatInput(sp, c));
-        const on = truth(cubes, n);
-        const off = truth(comp, n);
-        for (let x = 0; x < 2 ** n; x++) expect(off[x]).toBe(1 - on[x]);
-      }),
-      { seed: 42, numRuns: 200 },
-    );
-  });
-
-  it('complement gives up (null) past its budget', () => {
-    // Ten cubes on disjoint variables: the complement has 2^10 cubes.
-    const n = 20;
-    const cubes = Array.from({ length: 10 }, (_, i) => '-'.repeat(2 * i) + '11' + '-'.repeat(n - 2 * i - 2));
-    const sp = makeSpace(n, 1);
-    expect(
-      complement(
-        sp,
-        cubes.map((c) => parseInput(sp, c)),
-        { left: 100 },
-      ),
-    ).toBeNull();
-    expect(
-      complement(
-        sp,
-        cubes.map((c) => parseInput(sp, c)),
-      )!.length,
-    ).toBeGreaterThanOrEqual(1024);
   });
 
   it('cubeCovered agrees with enumeration', () => {
