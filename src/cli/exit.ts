@@ -12,8 +12,8 @@ export type ExitStatus = (typeof EXIT)[keyof typeof EXIT];
 export const EXIT_MEANINGS: readonly { readonly status: ExitStatus; readonly meaning: string }[] = [
   { status: EXIT.ok, meaning: 'all good' },
   { status: EXIT.checkFailed, meaning: 'a check failed' },
-  // A fault of the tool itself is reported in one plain line with this status too: the run
-  // produced nothing a script may rely on, which is what a script needs to know.
+  // A fault of the tool itself (LW900) is reported with this status too: the run produced
+  // nothing a script may rely on, which is what a script needs to know.
   { status: EXIT.badInput, meaning: 'bad input' },
 ];
 

@@ -27,21 +27,28 @@ export interface OutputStreams {
   readonly stderr: NodeJS.WritableStream;
 }
 
+const writers = new WeakMap<NodeJS.WritableStream, (s: string) => void>();
+
 /**
  * A stream that stops quietly once its reader has gone (`latchwright build … | head -1`): the
  * broken pipe (EPIPE) is the reader's choice, not a fault, so later writes are dropped and the
  * command ends with the status its checks earned. Any other write error is thrown as before.
  */
 function quietWriter(stream: NodeJS.WritableStream): (s: string) => void {
+  // One writer (one listener) per stream, however often nodeIo is called.
+  const known = writers.get(stream);
+  if (known) return known;
   let closed = false;
   stream.on('error', (e: NodeJS.ErrnoException) => {
     // After a broken pipe, a write already under way may still fail ("stream destroyed").
     if (e.code !== 'EPIPE' && !closed) throw e;
     closed = true;
   });
-  return (s) => {
+  const write = (s: string): void => {
     if (!closed) stream.write(s);
   };
+  writers.set(stream, write);
+  return write;
 }
 
 export function nodeIo(streams: OutputStreams = process): CliIo {

@@ -3,13 +3,13 @@
  * exit.ts (diagnostics printed, never a stack trace). The usage text lists the encodings of
  * the core's encodings registry.
  */
-import { parseArgs } from './args.js';
+import { parseArgs, type ParsedArgs } from './args.js';
 import { runCheck } from './commands/check.js';
 import { runBuild } from './commands/build.js';
 import { runCompare } from './commands/compare.js';
 import { runStepCommand } from './commands/step.js';
 import { runDemo } from './commands/demo.js';
-import { reportFailure } from './commands/common.js';
+import { RunContext } from './commands/common.js';
 import { DEFAULT_ENCODING, diag, didYouMean, ENCODING_REGISTRY } from '../core/index.js';
 import { nodeIo, type CliIo } from './io.js';
 import { EXIT, exitStatusText } from './exit.js';
@@ -51,7 +51,28 @@ const SPEC = {
 };
 
 export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promise<number> {
-  const args = parseArgs(argv, SPEC);
+  let ctx = new RunContext(io, argv.includes('--json'));
+  try {
+    const args = parseArgs(argv, SPEC);
+    ctx = new RunContext(io, args.flags.json === true);
+    return await dispatch(args, ctx);
+  } catch (e) {
+    // A fault of ours, not of the input: one coded diagnostic (JSON with --json), never a stack trace.
+    const why = e instanceof Error ? e.message : String(e);
+    ctx.fail([
+      diag(
+        'LW900',
+        `internal error: ${why}`,
+        ctx.machineFile !== undefined ? { file: ctx.machineFile } : { path: argv[0] ?? 'latchwright' },
+        'please report this, with the machine file and the command line that caused it',
+      ),
+    ]);
+    return EXIT.badInput;
+  }
+}
+
+async function dispatch(args: ParsedArgs, ctx: RunContext): Promise<number> {
+  const io = ctx.io;
   if (args.flags.version) {
     io.out('latchwright 0.1.0\n');
     return EXIT.ok;
@@ -60,10 +81,9 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promi
     io.out(USAGE + '\n');
     return args.command === undefined && !args.flags.help ? EXIT.badInput : EXIT.ok;
   }
-  const json = args.flags.json === true;
   if (args.errors.length > 0) {
     const known = [...SPEC.values, ...SPEC.switches].map((o) => `--${o}`);
-    reportFailure(
+    ctx.fail(
       args.errors.map((e) => {
         const guess = didYouMean(e.option, known);
         return diag(
@@ -75,42 +95,29 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promi
             : 'run `latchwright --help` for usage',
         );
       }),
-      io,
-      json,
     );
     return EXIT.badInput;
   }
-  try {
-    switch (args.command) {
-      case 'check':
-        return runCheck(args, io);
-      case 'build':
-        return await runBuild(args, io);
-      case 'compare':
-        return runCompare(args, io);
-      case 'step':
-        return await runStepCommand(args, io);
-      case 'demo':
-        return await runDemo(args, io);
-      default:
-        reportFailure(
-          [
-            diag(
-              'LW700',
-              `unknown command '${args.command}'`,
-              { path: args.command },
-              'commands: check, build, compare, step, demo',
-            ),
-          ],
-          io,
-          json,
-        );
-        return EXIT.badInput;
-    }
-  } catch (e) {
-    // A fault of ours, not of the input: say so plainly, without a stack trace.
-    io.err(`latchwright: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
-    io.err('Please report this with the machine file that caused it.\n');
-    return EXIT.badInput;
+  switch (args.command) {
+    case 'check':
+      return runCheck(args, ctx);
+    case 'build':
+      return await runBuild(args, ctx);
+    case 'compare':
+      return runCompare(args, ctx);
+    case 'step':
+      return await runStepCommand(args, ctx);
+    case 'demo':
+      return await runDemo(args, ctx);
+    default:
+      ctx.fail([
+        diag(
+          'LW700',
+          `unknown command '${args.command}'`,
+          { path: args.command },
+          'commands: check, build, compare, step, demo',
+        ),
+      ]);
+      return EXIT.badInput;
   }
 }

@@ -8,6 +8,8 @@ import {
   type Build,
   createRunner,
   DEFAULT_PROFILE,
+  diag,
+  type Diagnostic,
   formatDiagnostic,
   type HandAction,
   type PartRunner,
@@ -39,19 +41,24 @@ export interface StepOptions {
 
 export interface StepIo {
   readonly write: (s: string) => void;
-  /** Where problems go (default: write). */
+  /** Where problems go as text (default: write), when there is no `fail`. */
   readonly error?: (s: string) => void;
+  /** Stop with these diagnostics (the command reports them, as text or JSON). */
+  readonly fail?: (ds: readonly Diagnostic[]) => void;
   /** Keypresses, one string per key (interactive mode only). */
   readKeys?: () => AsyncIterable<string>;
 }
 
 /** Step a build; returns the exit status (EXIT.ok; EXIT.checkFailed when an alarm was raised; EXIT.badInput). */
 export async function runStep(build: Build, spec: SpecInfo, opts: StepOptions, io: StepIo): Promise<number> {
-  const err = (s: string): void => (io.error ?? io.write)(s);
+  const fail = (ds: readonly Diagnostic[]): void => {
+    if (io.fail) io.fail(ds);
+    else for (const d of ds) (io.error ?? io.write)(formatDiagnostic(d) + '\n');
+  };
   if (opts.inputsFile !== undefined) {
     const problems = validateSequence(build, opts.inputsFile, opts.inputsPath);
     if (problems.length > 0) {
-      for (const d of problems) err(formatDiagnostic(d) + '\n');
+      fail(problems);
       return EXIT.badInput;
     }
     const rows = opts.abstract
@@ -63,9 +70,14 @@ export async function runStep(build: Build, spec: SpecInfo, opts: StepOptions, i
     return rows.some((r) => r.alarms.length > 0) ? EXIT.checkFailed : EXIT.ok;
   }
   if (!io.readKeys) {
-    err(
-      'latchwright step: not at a terminal; give the clocks with --inputs FILE (a JSON array, one object of input settings per clock)\n',
-    );
+    fail([
+      diag(
+        'LW700',
+        'not at a terminal; give the clocks with --inputs FILE',
+        { path: '--inputs' },
+        'a JSON array with one object of input settings per clock, e.g. [{"marble": 1}, {}]',
+      ),
+    ]);
     return EXIT.badInput;
   }
   return interactive(build, spec, opts, io.readKeys(), (s) => io.write(s));
@@ -84,7 +96,8 @@ export function formatRows(build: Build, rows: readonly StepRow[]): string {
     r.next ?? `unused ${r.nextCode}`,
     r.alarms.join('; ') || '-',
   ]);
-  const widths = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
+  // A loop, not Math.max(...cells): a spread of 130,000 rows exceeds the engine's argument limit.
+  const widths = head.map((h, i) => body.reduce((w, b) => Math.max(w, b[i].length), h.length));
   const line = (cells: string[]): string =>
     cells.map((c, i) => (i === cells.length - 1 ? c : c.padEnd(widths[i]))).join('  ') + '\n';
   return line(head) + body.map(line).join('');

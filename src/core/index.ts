@@ -38,14 +38,19 @@ export {
   DiagnosticError,
   diag,
   didYouMean,
+  ECHO_MAX,
   formatDiagnostic,
   formatLocation,
   hasErrors,
+  printable,
+  printableDiagnostic,
+  shorten,
   type Diagnostic,
   type DiagnosticCode,
   type Severity,
 } from './model/diagnostics.js';
 export { seededRandom, type Random } from './model/random.js';
+export { nameRecord, nameRecordOf, ownValue } from './model/records.js';
 
 // ── Parse and print: the text form, the JSON form, xstate configs ───────────────────────────
 export { detectForm, readMachine, readMachineValue, type MachineForm, type ReadResult } from './forms/detect.js';
@@ -61,6 +66,7 @@ export {
 } from './forms/json.js';
 export { clockEvent, exportXstate, importXstate, type XstateExport, type XstateExportOptions } from './forms/xstate.js';
 export { printCubes, printExpr } from './forms/expr.js';
+export { locateJsonPaths, readJsonText, withoutBom, type JsonRead } from './forms/json-file.js';
 
 // ── Analyse, build, compare: the pipeline ───────────────────────────────────────────────────
 export {

@@ -14,6 +14,7 @@
  */
 import { DiagnosticError, diag, didYouMean, hasErrors, type Diagnostic } from './model/diagnostics.js';
 import type { Machine, SourceLoc } from './model/machine.js';
+import { nameRecord, ownValue } from './model/records.js';
 import type { Build, Encoding } from './model/build.js';
 import {
   encode,
@@ -192,7 +193,7 @@ export function runChecks(build: Build, a: Analysed, profile: Profile, seed: num
 
 function resolveUnused(a: Analysed, unused: string | undefined): 'dont-care' | number | Diagnostic {
   if (unused === undefined || unused === 'dont-care') return 'dont-care';
-  const target = a.minimised.merged[unused];
+  const target = ownValue(a.minimised.merged, unused);
   const index = target === undefined ? -1 : a.minimised.machine.states.indexOf(target);
   if (index >= 0) return index;
   const guess = didYouMean(
@@ -209,11 +210,11 @@ function resolveUnused(a: Analysed, unused: string | undefined): 'dont-care' | n
 
 /** Codes pinned on original states, carried to the states they merged into. */
 function pinnedCodes(a: Analysed): Pick<EncodeOptions, 'pinned' | 'pinnedAt'> {
-  const pinned: Record<string, string> = {};
-  const pinnedAt: Record<string, SourceLoc> = {};
+  const pinned = nameRecord<string>();
+  const pinnedAt = nameRecord<SourceLoc>();
   for (const s of a.machine.states) {
-    const target = a.minimised.merged[s.name];
-    if (s.code === undefined || target === undefined || target in pinned) continue;
+    const target = ownValue(a.minimised.merged, s.name);
+    if (s.code === undefined || target === undefined || ownValue(pinned, target) !== undefined) continue;
     pinned[target] = s.code;
     if (s.loc) pinnedAt[target] = s.loc;
   }

@@ -25,9 +25,9 @@ interface Diag {
 
 const BAD = 'tests/fixtures/bad';
 
-/** `file:line:col` or `file path`, as the one-line form prints a location. */
+/** `file:line:col`, then the JSON path when there is one, as the one-line form prints a location. */
 function where(l: Located): string {
-  if (l.line !== undefined) return `${l.file ?? '<input>'}:${l.line}:${l.column ?? 1}`;
+  if (l.line !== undefined) return `${l.file ?? '<input>'}:${l.line}:${l.column ?? 1}${l.path ? ` ${l.path}` : ''}`;
   return `${l.file ? l.file + ' ' : ''}${l.path ?? ''}`;
 }
 
@@ -59,7 +59,7 @@ const FILES: readonly FileCase[] = [
     file: 'unknown-state.json',
     code: 'LW200',
     severity: 'error',
-    location: { path: '$.states[2].transitions[0].to' },
+    location: { path: '$.states[2].transitions[0].to', line: 9, column: 88 },
     exit: 2,
     says: "did you mean 'zero'?",
   },
@@ -67,7 +67,7 @@ const FILES: readonly FileCase[] = [
     file: 'xstate-unknown-target.json',
     code: 'LW200',
     severity: 'error',
-    location: { path: '$.states.locked.on.coin' },
+    location: { path: '$.states.locked.on.coin', line: 5, column: 33 },
     exit: 2,
     says: "did you mean 'unlocked'?",
   },
@@ -83,7 +83,7 @@ const FILES: readonly FileCase[] = [
     file: 'unknown-input.json',
     code: 'LW201',
     severity: 'error',
-    location: { path: '$.states[0].transitions[0].when' },
+    location: { path: '$.states[0].transitions[0].when', line: 7, column: 49 },
     exit: 2,
     says: "did you mean 'push'?",
   },
@@ -99,7 +99,7 @@ const FILES: readonly FileCase[] = [
     file: 'unknown-output.json',
     code: 'LW202',
     severity: 'error',
-    location: { path: '$.states[1].outputs.dong' },
+    location: { path: '$.states[1].outputs.dong', line: 8, column: 47 },
     exit: 2,
     says: "did you mean 'ding'?",
   },
@@ -115,12 +115,18 @@ const FILES: readonly FileCase[] = [
     file: 'duplicate-input.json',
     code: 'LW203',
     severity: 'error',
-    location: { path: '$.inputs[1]' },
+    location: { path: '$.inputs[1]', line: 3, column: 22 },
     exit: 2,
     says: "'pull' is declared twice",
   },
   { file: 'missing-start.lw', code: 'LW204', severity: 'error', location: { line: 1, column: 1 }, exit: 2 },
-  { file: 'missing-start.json', code: 'LW204', severity: 'error', location: { path: '$.start' }, exit: 2 },
+  {
+    file: 'missing-start.json',
+    code: 'LW204',
+    severity: 'error',
+    location: { path: '$.start', line: 1, column: 1 },
+    exit: 2,
+  },
   {
     file: 'unknown-start.lw',
     code: 'LW204',
@@ -143,7 +149,7 @@ const FILES: readonly FileCase[] = [
     file: 'bad-expr.json',
     code: 'LW102',
     severity: 'error',
-    location: { path: '$.states[0].transitions[0].when' },
+    location: { path: '$.states[0].transitions[0].when', line: 7, column: 49 },
     exit: 2,
     says: "expected ')'",
   },
@@ -168,7 +174,7 @@ const FILES: readonly FileCase[] = [
     file: 'xstate-parallel.json',
     code: 'LW500',
     severity: 'error',
-    location: { path: '$.states.running.type' },
+    location: { path: '$.states.running.type', line: 7, column: 15 },
     exit: 2,
     says: 'parallel states',
   },
@@ -176,7 +182,7 @@ const FILES: readonly FileCase[] = [
     file: 'xstate-guard.json',
     code: 'LW500',
     severity: 'error',
-    location: { path: '$.states.closed.on.ticket.guard' },
+    location: { path: '$.states.closed.on.ticket.guard', line: 5, column: 64 },
     exit: 2,
     says: 'guards (guard)',
   },
@@ -271,6 +277,8 @@ describe('cli: machines over the limits (generated, never stored)', () => {
     expect(j.json.diagnostics.find((d) => d.code === 'LW401')?.location).toEqual({
       file: 'wide.json',
       path: '$.inputs[32]',
+      line: 1,
+      column: json.indexOf('"i32"') + 1,
     });
     const text32 = text.replace(', i32', '');
     expect((await run(['check', 'w32.lw'], { 'w32.lw': text32 })).code).toBe(0);
@@ -402,13 +410,13 @@ describe('cli: bad command lines, options and other files', () => {
       'clocks.json': '[{"marble": 1},',
     });
     expect(notJson.code).toBe(2);
-    expect(notJson.err).toMatch(/^clocks\.json \$: error LW100: the input sequence is not valid JSON/);
+    expect(notJson.err).toMatch(/^clocks\.json:1:16: error LW100: the input sequence is not valid JSON: /);
     const unknown = await run(['step', MB, '--encoding', 'binary', '--inputs', 'clocks.json'], {
       'clocks.json': '[{"marble": 1}, {"marbel": 1}]',
     });
     expect(unknown.code).toBe(2);
     expect(unknown.err).toContain(
-      "clocks.json $[1].marbel: error LW208: clock 2 sets 'marbel', which is not an input of marble_bell",
+      "clocks.json:1:28 $[1].marbel: error LW208: clock 2 sets 'marbel', which is not an input of marble_bell",
     );
     for (const r of [miss, notJson, unknown]) expectNoStack(r);
   });

@@ -309,7 +309,7 @@ describe('cli/commands/build with a profile that slips a unit or names no cord',
     );
     const t = await run(['build', MB, '--encoding', 'binary', '--profile', p]);
     expect(t.code).toBe(2);
-    expect(t.err).toContain(`${p} $.cordRouting["c.phi1"]: error LW603:`);
+    expect(t.err).toContain(`${p}:1:26 $.cordRouting["c.phi1"]: error LW603:`);
     expect(t.err).toContain("did you mean 'c.clk.phi1'?");
     expectNoStack(t);
   });

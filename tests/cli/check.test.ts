@@ -121,14 +121,13 @@ describe('cli/commands/check', () => {
     expect(r.json.diagnostics[0].message).toContain("state 'none'");
   });
 
-  it('prints the counts in words, and counts the notes instead of listing them', async () => {
+  it('prints the counts in words, and counts the notes (on standard error, with the diagnostics) instead of listing them', async () => {
     const r = await run(['check', examplePath('marble-bell')]);
     expect(r.code).toBe(0);
     expect(r.out).toBe(
-      '3 notes (LW302); see them with --json\n' +
-        'marble_bell: 4 states (4 reachable, 4 after minimisation by partition-refinement, proven minimal), 1 input, 1 output\n',
+      'marble_bell: 4 states (4 reachable, 4 after minimisation by partition-refinement, proven minimal), 1 input, 1 output\n',
     );
-    expect(r.err).toBe('');
+    expect(r.err).toBe('3 notes (LW302); see them with --json\n');
   });
 
   // MCNC / LGSynth'91 FSM benchmarks (open dataset), reference figures from TABLE.md: complete
@@ -181,10 +180,11 @@ describe('cli/commands/check', () => {
   it('exit 0 with a warning, exit 2 with an error; never a stack trace', async () => {
     const warn = await run(['check', 'tests/fixtures/bad/shadowed.lw']);
     expect(warn.code).toBe(0);
-    expect(warn.out).toContain('warning LW301');
+    expect(warn.err).toContain('warning LW301');
     const bad = await run(['check', 'tests/fixtures/bad/unknown-state.lw']);
     expect(bad.code).toBe(2);
-    expect(bad.out).toContain('error LW200');
+    expect(bad.err).toContain('error LW200');
+    expect(bad.out).toBe('');
     expectNoStack(warn);
     expectNoStack(bad);
   });

@@ -89,22 +89,43 @@ describe('cli/main', () => {
     expectNoStack(r);
   });
 
-  it('a fault of ours becomes one plain line and exit 2, never a stack trace', async () => {
-    let out = '';
-    let err = '';
-    const io: CliIo = {
-      out: (s) => void (out += s),
-      err: (s) => void (err += s),
-      readText: () => {
-        throw new Error('the disk fell off');
-      },
-      interactive: false,
+  it('a fault of ours becomes one coded line (LW900) asking for a report, and exit 2, never a stack trace', async () => {
+    const faulty = (argv: string[], fault: () => never) => {
+      let out = '';
+      let err = '';
+      const io: CliIo = {
+        out: (s) => void (out += s),
+        err: (s) => void (err += s),
+        readText: fault,
+        interactive: false,
+      };
+      return main(argv, io).then((code) => ({ code, out, err }));
     };
-    const code = await main(['check', 'examples/marble-bell.lw'], io);
-    expect(code).toBe(2);
-    expect(out).toBe('');
-    expect(err).toBe(
-      'latchwright: internal error: the disk fell off\nPlease report this with the machine file that caused it.\n',
-    );
+    const fell = await faulty(['check', 'examples/marble-bell.lw'], () => {
+      throw new Error('the disk fell off');
+    });
+    expect(fell).toEqual({
+      code: 2,
+      out: '',
+      err: 'check: error LW900: internal error: the disk fell off — please report this, with the machine file and the command line that caused it\n',
+    });
+    // With --json the fault is JSON on standard output, like every other failure.
+    const deep = await faulty(['build', 'examples/marble-bell.lw', '--json'], () => {
+      throw new RangeError('Maximum call stack size exceeded');
+    });
+    expect(deep.code).toBe(2);
+    expect(deep.err).toBe('');
+    expect(JSON.parse(deep.out)).toEqual({
+      ok: false,
+      diagnostics: [
+        {
+          code: 'LW900',
+          severity: 'error',
+          message: 'internal error: Maximum call stack size exceeded',
+          location: { path: 'build' },
+          hint: 'please report this, with the machine file and the command line that caused it',
+        },
+      ],
+    });
   });
 });

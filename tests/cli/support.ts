@@ -17,15 +17,17 @@ export interface Run {
   readonly err: string;
 }
 
+/** The disk, read by every run (made once: each nodeIo() watches the process's output streams). */
+const disk = nodeIo();
+
 /** Run `latchwright ...argv`; `files` (path → text) are read from memory before the disk. */
 export async function run(argv: readonly string[], files: Readonly<Record<string, string>> = {}): Promise<Run> {
   let out = '';
   let err = '';
-  const disk = nodeIo();
   const io: CliIo = {
     out: (s) => void (out += s),
     err: (s) => void (err += s),
-    readText: (path) => (path in files ? { text: files[path] } : disk.readText(path)),
+    readText: (path) => (Object.hasOwn(files, path) ? { text: files[path] } : disk.readText(path)),
     interactive: false,
   };
   const code = await main(argv, io);

@@ -12,48 +12,25 @@ import {
   encodingEntry,
   ENCODINGS,
   type EncodeStrategy,
-  formatDiagnostic,
   hasErrors,
   loadProfile,
   type Profile,
 } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
-import type { CliIo } from '../io.js';
-import { loadSource, readFileArg } from './common.js';
+import { loadSource, readJsonArg, type RunContext } from './common.js';
 import { progressLine } from '../progress.js';
 import { searchOnThreads } from '../search-pool.js';
 
-/** Print diagnostics (as text, or nothing when the caller prints JSON). */
-export function printDiagnostics(ds: readonly Diagnostic[], io: CliIo, json: boolean): void {
-  if (json) return;
-  for (const d of ds) if (d.severity !== 'info') io.err(formatDiagnostic(d) + '\n');
-}
-
-/** The profile named by --profile, over the defaults; undefined after printing its errors. */
+/** The profile named by --profile, over the defaults, or the diagnostics of why it cannot be used. */
 export function profileFrom(
   args: ParsedArgs,
-  io: CliIo,
-): { profile: Profile; diagnostics: Diagnostic[] } | { error: Diagnostic[] } {
+  ctx: RunContext,
+): { profile: Profile; diagnostics: Diagnostic[] } | { error: readonly Diagnostic[] } {
   const file = args.flags.profile;
   if (typeof file !== 'string') return { profile: DEFAULT_PROFILE, diagnostics: [] };
-  const r = readFileArg(file, io);
-  if (!r.ok) return { error: [...r.diagnostics] };
-  let value: unknown;
-  try {
-    value = JSON.parse(r.text);
-  } catch (e) {
-    return {
-      error: [
-        {
-          code: 'LW100',
-          severity: 'error',
-          message: `the profile is not valid JSON (${e instanceof Error ? e.message : String(e)})`,
-          location: { file },
-        },
-      ],
-    };
-  }
-  const p = loadProfile(value, file);
+  const r = readJsonArg(file, ctx, 'the profile');
+  if (!r.ok) return { error: r.diagnostics };
+  const p = loadProfile(r.value, file);
   if (!p.profile || hasErrors(p.diagnostics)) return { error: p.diagnostics };
   return { profile: p.profile, diagnostics: p.diagnostics };
 }
@@ -68,12 +45,13 @@ export type BuildAttempt =
  */
 export async function buildFromArgs(
   args: ParsedArgs,
-  io: CliIo,
+  ctx: RunContext,
   extra: Partial<BuildOptions> = {},
 ): Promise<BuildAttempt> {
-  const src = loadSource(args, io);
+  const io = ctx.io;
+  const src = loadSource(args, ctx);
   if (!src.ok) return { ok: false, diagnostics: src.diagnostics };
-  const prof = profileFrom(args, io);
+  const prof = profileFrom(args, ctx);
   if ('error' in prof) return { ok: false, diagnostics: prof.error, file: src.file };
   const seed = seedFrom(args);
   if (typeof seed === 'object') return { ok: false, file: src.file, diagnostics: [seed] };

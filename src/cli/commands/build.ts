@@ -1,32 +1,34 @@
 /** `latchwright build FILE`: synthesise, check, and report (or write the build documents). */
-import { buildReport, type Built, equationTexts, withoutCapstanWords } from '../../core/index.js';
+import { buildReport, type Built, type Diagnostic, equationTexts, withoutCapstanWords } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
-import type { CliIo } from '../io.js';
-import { buildFromArgs, printDiagnostics } from './build-common.js';
+import { buildFromArgs } from './build-common.js';
 import { EXIT } from '../exit.js';
-import { reportFailure } from './common.js';
+import type { RunContext } from './common.js';
 import { writeDocuments } from './out.js';
 
-export async function runBuild(args: ParsedArgs, io: CliIo): Promise<number> {
-  const json = args.flags.json === true;
-  const r = await buildFromArgs(args, io);
+export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<number> {
+  const r = await buildFromArgs(args, ctx);
   if (!r.ok) {
-    reportFailure(r.diagnostics, io, json);
+    ctx.fail(r.diagnostics);
     return EXIT.badInput;
   }
   const b = r.built;
-  printDiagnostics(r.diagnostics, io, json);
   const ok = b.checks.every((c) => c.ok);
+  const notes: Diagnostic[] = [];
   if (typeof args.flags.out === 'string') {
     const w = writeDocuments(b, args.flags.out, args.flags.force === true);
     if (!w.ok) {
-      reportFailure([w.diagnostic], io, json);
+      ctx.fail([...r.diagnostics, w.diagnostic]);
       return EXIT.badInput;
     }
-    if (!json) io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);
+    notes.push(...w.notes);
+    if (!ctx.json) ctx.io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);
   }
-  if (json) io.out(JSON.stringify(buildReport(b), null, 2) + '\n');
-  else io.out(textReport(b));
+  ctx.show([...r.diagnostics, ...notes]);
+  if (ctx.json) {
+    const report = buildReport(b);
+    ctx.io.out(JSON.stringify({ ...report, diagnostics: ctx.present([...r.diagnostics, ...notes]) }, null, 2) + '\n');
+  } else ctx.io.out(textReport(b));
   return ok ? EXIT.ok : EXIT.checkFailed;
 }
 

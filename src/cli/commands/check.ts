@@ -1,43 +1,36 @@
 /** `latchwright check FILE`: diagnostics, state counts and the merge map. */
-import { analyse, formatDiagnostic } from '../../core/index.js';
+import { analyse } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
-import type { CliIo } from '../io.js';
 import { EXIT } from '../exit.js';
-import { loadSource, machineSummary, reportFailure } from './common.js';
+import { loadSource, machineSummary, type RunContext } from './common.js';
 
-export function runCheck(args: ParsedArgs, io: CliIo): number {
-  const src = loadSource(args, io);
+export function runCheck(args: ParsedArgs, ctx: RunContext): number {
+  const src = loadSource(args, ctx);
   if (!src.ok) {
-    reportFailure(src.diagnostics, io, args.flags.json === true);
+    ctx.fail(src.diagnostics);
     return EXIT.badInput;
   }
   const a = analyse(src.text, src.file);
   const summary = a.ok ? machineSummary(a) : undefined;
-  if (args.flags.json) {
-    io.out(
-      JSON.stringify(
-        { file: src.file, form: a.form, ok: a.ok, ...(summary ?? {}), diagnostics: a.diagnostics },
-        null,
-        2,
-      ) + '\n',
+  if (ctx.json) {
+    const diagnostics = ctx.present(a.diagnostics);
+    ctx.io.out(
+      JSON.stringify({ file: src.file, form: a.form, ok: a.ok, ...(summary ?? {}), diagnostics }, null, 2) + '\n',
     );
-  } else {
-    const notes = a.diagnostics.filter((d) => d.severity === 'info');
-    for (const d of a.diagnostics) if (d.severity !== 'info') io.out(formatDiagnostic(d) + '\n');
-    // Notes are many and mild (e.g. LW302 per state): one line each when few, else counted.
-    if (notes.length <= 2) for (const d of notes) io.out(formatDiagnostic(d) + '\n');
-    else io.out(`${notes.length} notes (${[...new Set(notes.map((d) => d.code))].join(', ')}); see them with --json\n`);
-    if (summary) {
-      const m = summary.machine;
-      const n = (k: number, what: string): string => `${k} ${what}${k === 1 ? '' : 's'}`;
-      io.out(
-        `${m.name}: ${n(m.states, 'state')} (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${n(m.inputs, 'input')}, ${n(m.outputs, 'output')}\n`,
-      );
-      const merges = Object.entries(summary.merged).filter(([k, v]) => k !== v);
-      if (merges.length > 0) {
-        io.out('merged states:\n');
-        for (const [k, v] of merges) io.out(`  ${k} → ${v}\n`);
-      }
+    return a.ok ? EXIT.ok : EXIT.badInput;
+  }
+  // Notes are many and mild (e.g. LW302 per state): one line each when few, else counted.
+  ctx.show(a.diagnostics, 2);
+  if (summary) {
+    const m = summary.machine;
+    const n = (k: number, what: string): string => `${k} ${what}${k === 1 ? '' : 's'}`;
+    ctx.io.out(
+      `${m.name}: ${n(m.states, 'state')} (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${n(m.inputs, 'input')}, ${n(m.outputs, 'output')}\n`,
+    );
+    const merges = Object.entries(summary.merged).filter(([k, v]) => k !== v);
+    if (merges.length > 0) {
+      ctx.io.out('merged states:\n');
+      for (const [k, v] of merges) ctx.io.out(`  ${k} → ${v}\n`);
     }
   }
   return a.ok ? EXIT.ok : EXIT.badInput;

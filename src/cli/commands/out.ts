@@ -6,8 +6,7 @@ export function writeDocuments(
   b: Built,
   dir: string,
   force: boolean,
-): { ok: true; files: string[] } | { ok: false; diagnostic: Diagnostic } {
+): { ok: true; files: string[]; notes: Diagnostic[] } | { ok: false; diagnostic: Diagnostic } {
   const files = buildDocuments({ build: b.build, checks: b.checks, profile: b.profile, analysed: b.analysed });
-  const w = writeBuildFolder(dir, files, { force });
-  return w.ok ? { ok: true, files: w.files } : { ok: false, diagnostic: w.diagnostic };
+  return writeBuildFolder(dir, files, { force });
 }

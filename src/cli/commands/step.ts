@@ -1,46 +1,40 @@
 /** `latchwright step FILE`: build the machine, then step it (scripted or at the terminal). */
+import { nameRecordOf } from '../../core/index.js';
 import { runStep, terminalKeys, type SeqArray } from '../step.js';
 import type { ParsedArgs } from '../args.js';
-import type { CliIo } from '../io.js';
 import { buildFromArgs } from './build-common.js';
 import { EXIT } from '../exit.js';
-import { readFileArg, reportFailure } from './common.js';
-import { diag } from '../../core/index.js';
+import { readJsonArg, type RunContext } from './common.js';
 
-export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<number> {
-  const json = args.flags.json === true;
+/**
+ * The clocks of a sequence file as records without a prototype, so an input named like a key
+ * of every object (`constructor`, `toString`) reads as released when a clock does not set it.
+ * Anything that is not an array of objects is passed on as it is, for the step's own checks.
+ */
+function ownRecords(value: unknown): unknown {
+  if (!Array.isArray(value)) return value;
+  return value.map((row: unknown) =>
+    typeof row === 'object' && row !== null && !Array.isArray(row) ? nameRecordOf(Object.entries(row)) : row,
+  );
+}
+
+export async function runStepCommand(args: ParsedArgs, ctx: RunContext): Promise<number> {
   let sequence: SeqArray | undefined;
-  if (typeof args.flags.inputs === 'string') {
-    const file = args.flags.inputs;
-    const r = readFileArg(file, io);
+  const inputs = typeof args.flags.inputs === 'string' ? args.flags.inputs : undefined;
+  if (inputs !== undefined) {
+    const r = readJsonArg(inputs, ctx, 'the input sequence');
     if (!r.ok) {
-      reportFailure(r.diagnostics, io, false);
+      ctx.fail(r.diagnostics);
       return EXIT.badInput;
     }
-    try {
-      sequence = JSON.parse(r.text) as SeqArray;
-    } catch (e) {
-      const why = e instanceof Error ? e.message : String(e);
-      reportFailure(
-        [
-          diag(
-            'LW100',
-            `the input sequence is not valid JSON (${why})`,
-            { file, path: '$' },
-            'give an array with one object per clock, e.g. [{"marble": 1}, {}]',
-          ),
-        ],
-        io,
-        false,
-      );
-      return EXIT.badInput;
-    }
+    sequence = ownRecords(r.value) as SeqArray;
   }
-  const b = await buildFromArgs(args, io, { checks: false });
+  const b = await buildFromArgs(args, ctx, { checks: false });
   if (!b.ok) {
-    reportFailure(b.diagnostics, io, false);
+    ctx.fail(b.diagnostics);
     return EXIT.badInput;
   }
+  ctx.show(b.diagnostics);
   const built = b.built;
   const spec = { original: built.analysed.flat, merged: built.analysed.minimised.merged };
   return runStep(
@@ -48,15 +42,16 @@ export async function runStepCommand(args: ParsedArgs, io: CliIo): Promise<numbe
     spec,
     {
       inputsFile: sequence,
-      ...(typeof args.flags.inputs === 'string' ? { inputsPath: args.flags.inputs } : {}),
-      json,
+      ...(inputs !== undefined ? { inputsPath: inputs } : {}),
+      json: ctx.json,
       abstract: args.flags.abstract === true,
       profile: built.profile,
     },
     {
-      write: (s) => io.out(s),
-      error: (s) => io.err(s),
-      ...(sequence === undefined && io.interactive ? { readKeys: terminalKeys } : {}),
+      write: (s) => ctx.io.out(s),
+      error: (s) => ctx.io.err(s),
+      fail: (ds) => ctx.fail(ds),
+      ...(sequence === undefined && ctx.io.interactive ? { readKeys: terminalKeys } : {}),
     },
   );
 }

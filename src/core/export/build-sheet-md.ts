@@ -5,12 +5,12 @@
  * (GFM 0.29, "Tables" extension) and a text holding a backtick falls back to plain escaping.
  */
 import type { Block, Doc, TableBlock } from './doc.js';
-import { escapeMd } from './escape.js';
+import { escapeMd, spellControls } from './escape.js';
 import { buildSheet, type DocumentsInput } from './build-sheet.js';
 
 /** A fixed-width cell: a code span when it can be one. */
 function monoCell(text: string): string {
-  const line = text.replace(/\r\n|\r|\n/g, ' ');
+  const line = spellControls(text).replace(/\r\n|\r|\n|\u2028|\u2029/g, ' ');
   if (line === '' || line.includes('`')) return escapeMd(line);
   return `\`${line.replace(/\|/g, '\\|')}\``;
 }

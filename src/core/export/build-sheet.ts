@@ -15,6 +15,7 @@
  */
 import type { Build } from '../model/build.js';
 import type { Machine } from '../model/machine.js';
+import { shorten } from '../model/printable.js';
 import type { Profile } from '../physics/profile.js';
 import { billOfMaterials } from '../physics/bom.js';
 import { driveBudget } from '../physics/drive.js';
@@ -52,13 +53,17 @@ export const CAUTIONS: readonly string[] = [
   'Defer to local codes and licensed practice.',
 ];
 
+/** Longest description the sheet prints in full (characters). */
+const DESCRIPTION_MAX = 20_000;
+
 function summarySection(input: DocumentsInput): Section {
   const { build, checks } = input;
   const f = build.machine;
   const source = input.analysed?.machine;
   const blocks: Block[] = [];
-  // The description's paragraphs (blank-line separated, lines joined), as the author wrote them.
-  for (const para of (source?.description ?? '').split(/\n\s*\n/))
+  // The description's paragraphs (blank-line separated, lines joined), as the author wrote them;
+  // a description past DESCRIPTION_MAX characters is shortened (its middle left out).
+  for (const para of shorten(source?.description ?? '', DESCRIPTION_MAX).split(/\n\s*\n/))
     if (para.trim() !== '') blocks.push(p(para.replace(/\s*\n\s*/g, ' ').trim()));
   const statesLine =
     source && source.states.length !== f.states.length

@@ -8,7 +8,10 @@
  *   other than tab and line feed are dropped (XML 1.0 §2.2 does not allow them).
  * - Markdown table cells: backslash escapes of ASCII punctuation (CommonMark 0.31, §2.4),
  *   applied to the characters that would start markup or end a cell (`|`), and line breaks
- *   turned into spaces (a table row is one line).
+ *   turned into spaces (a table row is one line). Control characters (C0 but tab, DEL, C1:
+ *   ESC and CSI would drive a terminal showing the file) and bidirectional formatting
+ *   characters are spelt out as `\u{1b}`, as in diagnostics (model/printable.ts); CommonMark
+ *   itself passes them through (§2.3 only replaces NUL).
  * - Verilog identifiers: a safe mangling to simple identifiers (IEEE 1364-2005 §3.7.1:
  *   letters, digits, `_` and `$`, not starting with a digit or `$`), made unique per module
  *   and kept off the keyword list; comments and strings are sanitised the same way.
@@ -37,11 +40,20 @@ export function escapeXml(text: string): string {
 /** The same escaping, under the name HTML readers look for. */
 export const escapeHtml = escapeXml;
 
+const MD_CONTROLS =
+  // eslint-disable-next-line no-control-regex -- matching control characters is the point
+  /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
+
+/** Control and bidirectional formatting characters spelt out (`\u{1b}`); line breaks and tabs stay. */
+export function spellControls(text: string): string {
+  return text.replace(MD_CONTROLS, (c) => `\\u{${c.charCodeAt(0).toString(16)}}`);
+}
+
 /** One Markdown table cell (or inline text): markup characters escaped, on one line. */
 export function escapeMd(text: string): string {
   return (
-    text
-      .replace(/\r\n|\r|\n/g, ' ')
+    spellControls(text)
+      .replace(/\r\n|\r|\n|\u2028|\u2029/g, ' ')
       .replace(/[\\`*[\]<>|&#~]/g, (c) => `\\${c}`)
       // An underscore inside a word never starts emphasis (CommonMark §6.2), so `got_green` stays as it is.
       .replace(/(?<![A-Za-z0-9])_|_(?![A-Za-z0-9])/g, '\\_')

@@ -3,8 +3,9 @@
  * with `initial` and a `states` object is an xstate configuration; any other JSON object is
  * our JSON form; anything else is our text form.
  */
-import { diag, type Diagnostic } from '../model/diagnostics.js';
+import type { Diagnostic } from '../model/diagnostics.js';
 import type { Machine } from '../model/machine.js';
+import { locateJsonPaths, readJsonText, withoutBom } from './json-file.js';
 import { machineFromJson, parseJsonMachine } from './json.js';
 import { parseTextMachine } from './text.js';
 import { importXstate } from './xstate.js';
@@ -36,18 +37,19 @@ function isXstateShape(v: unknown): boolean {
   return 'initial' in o && typeof o.states === 'object' && o.states !== null && !Array.isArray(o.states);
 }
 
-/** Parse a machine from source text in whichever form it is written. */
+/**
+ * Parse a machine from source text in whichever form it is written. A byte order mark is
+ * skipped; diagnostics of the JSON forms carry the line and column of the path they name.
+ */
 export function readMachine(text: string, file?: string): ReadResult {
-  const form = detectForm(text);
-  if (form === 'text') return { form, ...parseTextMachine(text, file) };
-  if (form === 'json') return { form, ...parseJsonMachine(text, file) };
-  let value: unknown;
-  try {
-    value = JSON.parse(text);
-  } catch {
-    return { form, diagnostics: [diag('LW100', 'the file is not valid JSON', { file })] };
-  }
-  return { form, ...importXstate(value, file) };
+  const src = withoutBom(text);
+  const form = detectForm(src);
+  if (form === 'text') return { form, ...parseTextMachine(src, file) };
+  if (form === 'json') return { form, ...parseJsonMachine(src, file) };
+  const read = readJsonText(src, file);
+  if (!read.ok) return { form, diagnostics: read.diagnostics };
+  const r = importXstate(read.value, file);
+  return { form, ...r, diagnostics: locateJsonPaths(src, r.diagnostics, file) };
 }
 
 /** Parse an already decoded JSON value (JSON form or xstate configuration). */

@@ -9,7 +9,9 @@
  *   not  := '!' not | atom
  *   atom := name | '0' | '1' | '(' or ')'
  * Parsed by recursive descent; chains of one operator become one n-ary node, so printing and
- * re-parsing give the same tree.
+ * re-parsing give the same tree. Nesting (open parentheses plus the `!`s over them) is limited
+ * to GUARD_DEPTH_LIMIT levels (LW404), so neither the reader nor anything that walks the tree
+ * later (the cover, the printer) can run out of stack.
  *
  * Cover conversion never enumerates input combinations: negations are pushed to the literals
  * (De Morgan), AND is the pairwise intersection of covers, OR is concatenation with
@@ -18,13 +20,15 @@
  * many inputs) is reported as LW403 instead of hanging.
  */
 import { literalCount, contains, intersect, universe, type Cube } from '../model/cube.js';
-import { diag, didYouMean, type Diagnostic } from '../model/diagnostics.js';
+import { diag, didYouMean, printable, type Diagnostic } from '../model/diagnostics.js';
 import type { Expr, Guard, SourceLoc } from '../model/machine.js';
 
 /** Largest cover a guard may expand to. */
 export const GUARD_CUBE_LIMIT = 4096;
 /** Largest number of pairwise cube operations spent converting one guard. */
 export const GUARD_WORK_LIMIT = 4_000_000;
+/** Deepest nesting of parentheses and `!` a guard may have (each level is a level of the tree). */
+export const GUARD_DEPTH_LIMIT = 256;
 
 type Tok = { kind: 'name' | 'op' | 'const' | 'end'; text: string; pos: number };
 
@@ -51,20 +55,21 @@ function tokenize(text: string): { toks: Tok[]; bad?: { pos: number; msg: string
       const word = text.slice(start, i);
       if (NAME_START.test(word[0])) toks.push({ kind: 'name', text: word, pos: start });
       else if (word === '0' || word === '1') toks.push({ kind: 'const', text: word, pos: start });
-      else return stop(start, `'${word}' is neither an input name nor 0 or 1`);
+      else return stop(start, `'${printable(word)}' is neither an input name nor 0 or 1`);
     } else {
-      return stop(i, `unexpected character '${ch}'`);
+      return stop(i, `unexpected character '${printable(String.fromCodePoint(text.codePointAt(i) ?? 0))}'`);
     }
   }
   toks.push({ kind: 'end', text: '', pos: text.length });
   return { toks };
 }
 
-/** A syntax error at offset `pos`; caught inside this module and turned into LW102. */
+/** A syntax error at offset `pos`; caught inside this module and turned into LW102 (LW404 for nesting). */
 class SyntaxProblem extends Error {
   constructor(
     readonly pos: number,
     readonly msg: string,
+    readonly code: 'LW102' | 'LW404' = 'LW102',
   ) {
     super(msg);
     this.name = 'SyntaxProblem';
@@ -89,7 +94,7 @@ function where(loc: SourceLoc, offset: number): string {
 }
 
 function describeToken(t: Tok): string {
-  return t.kind === 'end' ? 'the end of the expression' : `'${t.text}'`;
+  return t.kind === 'end' ? 'the end of the expression' : `'${printable(t.text)}'`;
 }
 
 /** Binary operators by precedence level, loosest first. */
@@ -103,6 +108,8 @@ const LEVELS = [
 class ExprReader {
   readonly diagnostics: Diagnostic[] = [];
   private k = 0;
+  /** Open parentheses and the `!`s over them, at the read position. */
+  private level = 0;
   private readonly index: Map<string, number>;
 
   constructor(
@@ -143,10 +150,22 @@ class ExprReader {
     return args.length === 1 ? args[0] : { kind, args };
   }
 
+  /** One more level of nesting at token `t`; LW404 past GUARD_DEPTH_LIMIT. */
+  private deeper(t: Tok): void {
+    if (++this.level > GUARD_DEPTH_LIMIT)
+      throw new SyntaxProblem(
+        t.pos,
+        `the guard nests parentheses and '!' more than ${GUARD_DEPTH_LIMIT} levels deep`,
+        'LW404',
+      );
+  }
+
   /** `not` and `atom` of the grammar: the `!`s are counted rather than recursed into. */
   private operand(): Expr {
+    const outer = this.level;
     let nots = 0;
     while (this.peek().kind === 'op' && this.peek().text === '!') {
+      this.deeper(this.peek());
       this.k++;
       nots++;
     }
@@ -157,6 +176,7 @@ class ExprReader {
       e = { kind: 'const', value: t.text === '1' ? 1 : 0 };
     } else if (t.kind === 'name') e = this.input(t);
     else if (t.kind === 'op' && t.text === '(') {
+      this.deeper(t);
       this.k++;
       e = this.chain(0);
       const c = this.peek();
@@ -165,6 +185,7 @@ class ExprReader {
       this.k++;
     } else throw new SyntaxProblem(t.pos, `expected an input name, 0, 1, '!' or '(' but found ${describeToken(t)}`);
     for (; nots > 0; nots--) e = { kind: 'not', arg: e };
+    this.level = outer;
     return e;
   }
 
@@ -179,7 +200,7 @@ class ExprReader {
       this.diagnostics.push(
         diag(
           'LW201',
-          `unknown input '${t.text}'${where(this.loc, t.pos)}`,
+          `unknown input '${printable(t.text)}'${where(this.loc, t.pos)}`,
           locAt(this.loc, t.pos),
           guess
             ? `did you mean '${guess}'?`
@@ -225,12 +246,19 @@ export function readExpr(text: string, inputs: readonly string[], loc: SourceLoc
     // Running into the bad token: its own message says more than "expected …".
     const p = bad && e.pos >= bad.pos ? new SyntaxProblem(bad.pos, bad.msg) : e;
     diagnostics.push(
-      diag(
-        'LW102',
-        `guard syntax: ${p.msg}${where(loc, p.pos)}`,
-        locAt(loc, p.pos),
-        "use input names, '!', '&', '^', '|', parentheses, 0 and 1",
-      ),
+      p.code === 'LW404'
+        ? diag(
+            'LW404',
+            `${p.msg}${where(loc, p.pos)}`,
+            locAt(loc, p.pos),
+            "write it flatter: '!!x' is x, and parentheses around a single term group nothing",
+          )
+        : diag(
+            'LW102',
+            `guard syntax: ${p.msg}${where(loc, p.pos)}`,
+            locAt(loc, p.pos),
+            "use input names, '!', '&', '^', '|', parentheses, 0 and 1",
+          ),
     );
     return { end: p.pos, diagnostics };
   }

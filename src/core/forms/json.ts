@@ -14,10 +14,11 @@
  * its JSON path (`$.states[2].transitions[0].to`) in `loc`/`partLocs`. Names are taken as
  * given: whether they exist, repeat or are well formed is the validate phase's job.
  */
-import { diag, didYouMean, type Diagnostic } from '../model/diagnostics.js';
+import { diag, didYouMean, printable, type Diagnostic } from '../model/diagnostics.js';
 import type { Guard, Machine, OutBit, SourceLoc, State, Transition } from '../model/machine.js';
 import { alwaysGuard, parseGuard, printExpr } from './expr.js';
-import { lineColumn, locateJsonError } from './json-syntax.js';
+import { jsonKey } from './json-path.js';
+import { locateJsonPaths, readJsonText } from './json-file.js';
 
 /** The JSON form of a transition. */
 export interface JsonTransition {
@@ -60,10 +61,7 @@ type Obj = Record<string, unknown>;
 const isObj = (v: unknown): v is Obj => typeof v === 'object' && v !== null && !Array.isArray(v);
 const own = (o: Obj, k: string): unknown => (Object.prototype.hasOwnProperty.call(o, k) ? o[k] : undefined);
 
-/** `$.a.b` for plain keys, `$.a["odd key"]` otherwise. */
-export function jsonKey(path: string, key: string): string {
-  return /^[A-Za-z_][A-Za-z0-9_]*$/.test(key) ? `${path}.${key}` : `${path}[${JSON.stringify(key)}]`;
-}
+export { jsonKey };
 
 function typeName(v: unknown): string {
   if (v === null) return 'null';
@@ -80,27 +78,12 @@ export function isPrimitive(v: unknown): v is number | boolean | bigint | symbol
   return t === 'number' || t === 'boolean' || t === 'bigint' || t === 'symbol' || t === 'undefined';
 }
 
-/** Parse JSON text into a Machine. */
+/** Parse JSON text into a Machine (a byte order mark is skipped; diagnostics carry line and column). */
 export function parseJsonMachine(text: string, file?: string): MachineResult {
-  const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  let value: unknown;
-  try {
-    value = JSON.parse(src);
-  } catch (e) {
-    const found = locateJsonError(src) ?? { pos: 0, msg: e instanceof Error ? e.message : 'not valid JSON' };
-    const { line, column } = lineColumn(src, found.pos);
-    return {
-      diagnostics: [
-        diag(
-          'LW100',
-          `not valid JSON: ${found.msg}`,
-          { file, line, column },
-          'check brackets, commas and quotes near this position',
-        ),
-      ],
-    };
-  }
-  return machineFromJson(value, file);
+  const read = readJsonText(text, file);
+  if (!read.ok) return { diagnostics: read.diagnostics };
+  const r = machineFromJson(read.value, file);
+  return r.diagnostics.length === 0 ? r : { ...r, diagnostics: locateJsonPaths(read.text, r.diagnostics, file) };
 }
 
 /** The diagnostics of one reading, and the helpers that add to them. */
@@ -123,7 +106,7 @@ class JsonReader {
       if (known.includes(k)) continue;
       const guess = didYouMean(k, known);
       const hint = guess ? `did you mean '${guess}'?` : `known fields: ${known.join(', ')}`;
-      this.ds.push(diag('LW105', `unknown field '${k}' ignored`, this.at(jsonKey(path, k)), hint));
+      this.ds.push(diag('LW105', `unknown field '${printable(k)}' ignored`, this.at(jsonKey(path, k)), hint));
     }
   }
 
@@ -165,7 +148,12 @@ class JsonReader {
         locs[`out:${k}`] = this.at(p);
       } else
         this.ds.push(
-          diag('LW106', `output '${k}' has the value ${typeName(x)}`, this.at(p), `write 0, 1 or "-" (don't care)`),
+          diag(
+            'LW106',
+            `output '${printable(k)}' has the value ${typeName(x)}`,
+            this.at(p),
+            `write 0, 1 or "-" (don't care)`,
+          ),
         );
     }
     return rec;
@@ -305,7 +293,7 @@ function readState(r: JsonReader, rs: unknown, si: number, inputs: readonly stri
   }
   const outputs = r.outputsMap(own(rs, 'outputs'), `${sp}.outputs`, locs);
   // How messages name the state: by its name when it has one, else by its number.
-  const label = typeof sName === 'string' ? `'${sName}'` : String(si + 1);
+  const label = typeof sName === 'string' ? `'${printable(sName)}'` : String(si + 1);
   const transitions: Transition[] = [];
   const rawTs = own(rs, 'transitions');
   if (rawTs === undefined) {

@@ -21,7 +21,7 @@
  * Postconditions: a Machine exactly when no error was found; every diagnostic has a line and
  * column; states, transitions, guards and named parts carry their line/column.
  */
-import { diag, didYouMean, type Diagnostic } from '../model/diagnostics.js';
+import { diag, didYouMean, printable, type Diagnostic } from '../model/diagnostics.js';
 import type { Guard, Machine, OutBit, SourceLoc, State, Transition } from '../model/machine.js';
 import { alwaysGuard, guardFromExpr, parseGuard, printExpr, readExpr } from './expr.js';
 import { isAlways, orderedLoads, type MachineResult } from './json.js';
@@ -140,7 +140,7 @@ class TextReader {
     if (k < ws.length)
       this.err(
         'LW101',
-        `unexpected '${ws[k].text}' after ${after}`,
+        `unexpected '${printable(ws[k].text)}' after ${after}`,
         li,
         ws[k].at,
         'remove it, or check the statement against the notation reference',
@@ -152,7 +152,7 @@ class TextReader {
     const w = ws[1];
     if (isGap(w)) {
       const offset = w ? w.at : ws[0].at + ws[0].text.length;
-      this.err('LW104', `'${ws[0].text}' needs ${what}`, li, offset, `write ${example}`);
+      this.err('LW104', `'${printable(ws[0].text)}' needs ${what}`, li, offset, `write ${example}`);
       return undefined;
     }
     this.trailing(ws, 2, li, `the ${what}`);
@@ -217,13 +217,20 @@ function readOutputs(
     any = true;
     if (isGap(val)) {
       const hint = `write ${key.text}=1, ${key.text}=0 or ${key.text}=- (don't care)`;
-      r.err('LW106', `output '${key.text}' has no value`, li, ws[k + 1].at + 1, hint);
+      r.err('LW106', `output '${printable(key.text)}' has no value`, li, ws[k + 1].at + 1, hint);
       k += 2;
       continue;
     }
     if (val.text === '0' || val.text === '1' || val.text === '-')
       outs[key.text] = val.text === '-' ? '-' : val.text === '1' ? 1 : 0;
-    else r.err('LW106', `output '${key.text}' has the value '${val.text}'`, li, val.at, `write 0, 1 or - (don't care)`);
+    else
+      r.err(
+        'LW106',
+        `output '${printable(key.text)}' has the value '${printable(val.text)}'`,
+        li,
+        val.at,
+        `write 0, 1 or - (don't care)`,
+      );
     locs[`out:${key.text}`] = r.at(li, key.at);
     k += 3;
   }
@@ -232,7 +239,7 @@ function readOutputs(
     r.err(
       'LW101',
       w
-        ? `expected output values like bell=1 after 'with', found '${w.text}'`
+        ? `expected output values like bell=1 after 'with', found '${printable(w.text)}'`
         : `'with' needs output values, like bell=1`,
       li,
       w ? w.at : ws[k - 1].at + ws[k - 1].text.length,
@@ -256,7 +263,7 @@ function transitionTail(
     const w = ws[0];
     r.err(
       'LW101',
-      w ? `expected 'go' after the guard, found '${w.text}'` : `expected 'go' and a state after the guard`,
+      w ? `expected 'go' after the guard, found '${printable(w.text)}'` : `expected 'go' and a state after the guard`,
       li,
       w ? w.at : line.trimEnd().length,
       `write when GUARD go STATE`,
@@ -304,7 +311,7 @@ function unspecifiedRule(r: TextReader, ws: readonly Word[], li: number): void {
   else if (v !== undefined) {
     const guess = didYouMean(v, ['hold', 'dont-care']);
     const hint = guess ? `did you mean '${guess}'?` : 'write hold or dont-care';
-    r.err('LW103', `unknown unspecified rule '${v}'`, li, ws[1].at, hint);
+    r.err('LW103', `unknown unspecified rule '${printable(v)}'`, li, ws[1].at, hint);
   }
 }
 
@@ -407,7 +414,7 @@ function stateLine(r: TextReader, ws: readonly Word[], li: number): void {
       k += 2;
     } else break;
   }
-  r.trailing(ws, k, li, `state '${nm.text}'`);
+  r.trailing(ws, k, li, `state '${printable(nm.text)}'`);
   const state = { name: nm.text, outputs: outs, ...(code !== undefined ? { code } : {}), ...(final ? { final } : {}) };
   r.current = { state: { ...state, loc: r.at(li, kw.at), partLocs: locs }, transitions: [] };
 }
@@ -427,7 +434,7 @@ function unknownStatement(r: TextReader, kw: Word, li: number): void {
   const guess = didYouMean(kw.text, KEYWORDS);
   r.err(
     'LW101',
-    `unknown statement '${kw.text}'`,
+    `unknown statement '${printable(kw.text)}'`,
     li,
     kw.at,
     guess

@@ -4,6 +4,10 @@
  * The table below is the single source of the codes; docs/notation.md is generated from it.
  */
 import type { SourceLoc } from './machine.js';
+import { MESSAGE_MAX, printable } from './printable.js';
+
+export { didYouMean } from './did-you-mean.js';
+export { ECHO_MAX, printable, shorten } from './printable.js';
 
 export type Severity = 'error' | 'warning' | 'info';
 
@@ -65,6 +69,12 @@ export const DIAGNOSTIC_CODES = {
     cause:
       'An output load is not a mass above 0 with its unit (text form: load NAME 300 g, or 0.3 kg; JSON form: "loadsG", a number of grams above 0), or an output is given two loads.',
     fix: 'Write the mass the output lifts with its unit, for example load sluice 300 g; give each output one load.',
+  },
+  LW108: {
+    severity: 'error',
+    cause:
+      'A number in a JSON file (a machine, an xstate configuration, a profile or an input sequence) is too large to hold (such as 1e309): JSON readers turn it into infinity.',
+    fix: 'Write a number of ordinary size.',
   },
   LW200: {
     severity: 'error',
@@ -166,6 +176,22 @@ export const DIAGNOSTIC_CODES = {
     cause: 'A guard expands into too many product terms to handle.',
     fix: 'Simplify the guard or split the transition.',
   },
+  LW404: {
+    severity: 'error',
+    cause: 'A guard or never expression nests parentheses and ! deeper than the tool reads (256 levels).',
+    fix: 'Write the expression flatter: drop doubled ! and parentheses that group nothing.',
+  },
+  LW405: {
+    severity: 'error',
+    cause: 'A name (of the machine, a state, an input or an output) is longer than the tool takes (128 characters).',
+    fix: 'Shorten the name.',
+  },
+  LW406: {
+    severity: 'error',
+    cause:
+      'A JSON file (a machine, an xstate configuration, a profile or an input sequence) nests objects and lists deeper than the tool reads (64 levels); none of them needs more than a few.',
+    fix: 'Check the brackets near the reported position.',
+  },
   LW500: {
     severity: 'error',
     cause:
@@ -206,7 +232,8 @@ export const DIAGNOSTIC_CODES = {
   },
   LW700: {
     severity: 'error',
-    cause: 'A build option is unknown or out of range (encoding name, seed, unused-code target).',
+    cause:
+      'The command line is not usable: an unknown command or option, a missing value or file, a value out of range (encoding name, seed, unused-code target), or interactive stepping away from a terminal.',
     fix: 'See `latchwright --help`.',
   },
   LW701: {
@@ -237,11 +264,26 @@ export const DIAGNOSTIC_CODES = {
       'A file named on the command line (the machine, the profile or the input sequence) could not be read: it does not exist, is a folder, or may not be read.',
     fix: 'Check the path; name a file, not a folder.',
   },
+  LW706: {
+    severity: 'warning',
+    cause:
+      'After writing the build documents, a folder the tool left beside the output folder (an earlier build moved aside, or the temporary folder of an interrupted run) could not be removed.',
+    fix: 'The new documents are in place; remove the folder the message names by hand.',
+  },
+  LW900: {
+    severity: 'error',
+    cause: 'A fault of the tool itself, not of the input: an internal check failed or the tool ran out of stack.',
+    fix: 'Please report it, with the machine file and the command line that caused it.',
+  },
 } as const satisfies Record<string, CodeInfo>;
 
 export type DiagnosticCode = keyof typeof DIAGNOSTIC_CODES;
 
-/** Make a diagnostic with the code's default severity. */
+/**
+ * Make a diagnostic with the code's default severity. The message, the hint and the location
+ * are made printable (model/printable.ts): whatever of the input they echo, no control
+ * character reaches a terminal and no message runs past a few lines.
+ */
 export function diag(
   code: DiagnosticCode,
   message: string,
@@ -249,51 +291,48 @@ export function diag(
   hint?: string,
   severity?: Severity,
 ): Diagnostic {
-  return { code, severity: severity ?? DIAGNOSTIC_CODES[code].severity, message, location, ...(hint ? { hint } : {}) };
+  return printableDiagnostic({
+    code,
+    severity: severity ?? DIAGNOSTIC_CODES[code].severity,
+    message,
+    location,
+    ...(hint ? { hint } : {}),
+  });
+}
+
+/** The same diagnostic with its message, hint, file and path made printable (itself when they are). */
+export function printableDiagnostic(d: Diagnostic): Diagnostic {
+  const message = printable(d.message, MESSAGE_MAX);
+  const hint = d.hint === undefined ? undefined : printable(d.hint, MESSAGE_MAX);
+  const l = d.location;
+  const file = l.file === undefined ? undefined : printable(l.file, MESSAGE_MAX);
+  const path = l.path === undefined ? undefined : printable(l.path, MESSAGE_MAX);
+  if (message === d.message && hint === d.hint && file === l.file && path === l.path) return d;
+  return {
+    ...d,
+    message,
+    ...(hint !== undefined ? { hint } : {}),
+    location: { ...l, ...(file !== undefined ? { file } : {}), ...(path !== undefined ? { path } : {}) },
+  };
 }
 
 export function hasErrors(ds: readonly Diagnostic[]): boolean {
   return ds.some((d) => d.severity === 'error');
 }
 
-/** `file:line:col` or the JSON path, for printing. */
+/** `file:line:col`, then the JSON path when there is one (`file:3:7 $.states[0].to`), for printing. */
 export function formatLocation(l: SourceLoc): string {
-  if (l.line !== undefined) return `${l.file ?? '<input>'}:${l.line}:${l.column ?? 1}`;
-  if (l.path !== undefined) return `${l.file ? l.file + ' ' : ''}${l.path}`;
-  return l.file ?? '<input>';
+  const file = l.file === undefined ? undefined : printable(l.file, MESSAGE_MAX);
+  const path = l.path === undefined ? undefined : printable(l.path, MESSAGE_MAX);
+  if (l.line !== undefined) return `${file ?? '<input>'}:${l.line}:${l.column ?? 1}${path ? ` ${path}` : ''}`;
+  if (path !== undefined) return `${file ? file + ' ' : ''}${path}`;
+  return file ?? '<input>';
 }
 
-/** One line per diagnostic: `where: severity CODE: message (hint)`. */
+/** One line per diagnostic: `where: severity CODE: message — hint`. */
 export function formatDiagnostic(d: Diagnostic): string {
-  return `${formatLocation(d.location)}: ${d.severity} ${d.code}: ${d.message}${d.hint ? ` — ${d.hint}` : ''}`;
-}
-
-/** Closest candidate by edit distance, for "did you mean" hints. */
-export function didYouMean(name: string, candidates: readonly string[]): string | undefined {
-  let best: string | undefined;
-  let bestD = Infinity;
-  for (const c of candidates) {
-    const d = editDistance(name.toLowerCase(), c.toLowerCase());
-    if (d < bestD) {
-      bestD = d;
-      best = c;
-    }
-  }
-  return best !== undefined && bestD <= Math.max(2, Math.floor(name.length / 3)) ? best : undefined;
-}
-
-function editDistance(a: string, b: string): number {
-  const prev = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    let diagPrev = prev[0];
-    prev[0] = i;
-    for (let j = 1; j <= b.length; j++) {
-      const tmp = prev[j];
-      prev[j] = Math.min(prev[j] + 1, prev[j - 1] + 1, diagPrev + (a[i - 1] === b[j - 1] ? 0 : 1));
-      diagPrev = tmp;
-    }
-  }
-  return prev[b.length];
+  const p = printableDiagnostic(d);
+  return `${formatLocation(p.location)}: ${p.severity} ${p.code}: ${p.message}${p.hint ? ` — ${p.hint}` : ''}`;
 }
 
 /** A user-caused failure carried as diagnostics (never a stack trace at the shells). */

@@ -10,3 +10,4 @@ export * from './flat.js';
 export * from './machine.js';
 export * from './netlist.js';
 export * from './random.js';
+export * from './records.js';

@@ -2,7 +2,7 @@
  * Validate phase: checks a parsed Machine and, when it has no errors, returns its flat table.
  *
  * Checks, in order: size limits (LW400–LW402, at once, before any other work); names
- * (LW205 form, LW203 repeats, LW204 start, LW300 no states); pinned codes (LW206);
+ * (LW405 length, LW205 form, LW203 repeats, LW204 start, LW300 no states); pinned codes (LW206);
  * references (LW200 target states, LW202 output names, of values and of loads); guards (LW304
  * constant 0, LW305 a `never` that excludes everything). Then, on the flat table
  * (src/core/model/flat.ts): transitions that get no row (LW301), states where the unspecified
@@ -22,11 +22,12 @@
 import { contains, coverContains, isTautology, overlaps, type Cube } from '../model/cube.js';
 import { diag, didYouMean, hasErrors, type Diagnostic } from '../model/diagnostics.js';
 import { DONT_CARE, flatten, type FlatMachine } from '../model/flat.js';
+import { LIMITS, NAME_MAX } from '../model/limits.js';
 import type { Machine, SourceLoc, State, Transition } from '../model/machine.js';
 import { printCubes, printExpr } from '../forms/expr.js';
 
-/** The largest machine the tool takes. */
-export const LIMITS = { states: 4096, inputs: 32, outputs: 256 } as const;
+/** The largest machine the tool takes (defined in the model, so the readers can check it too). */
+export { LIMITS } from '../model/limits.js';
 
 /** Result of the validate phase. */
 export interface Validated {
@@ -108,10 +109,24 @@ export function validate(m: Machine): Validated {
   return { flat, diagnostics: ds };
 }
 
-/** Names (LW205 form, LW203 repeats), then LW300 no states and LW204 the start state. */
+/** LW405 for a name longer than NAME_MAX; true when it is that long. */
+function tooLong(name: string, what: string, where: SourceLoc, ds: Diagnostic[]): boolean {
+  if (name.length <= NAME_MAX) return false;
+  ds.push(
+    diag(
+      'LW405',
+      `the ${what} name '${name.slice(0, 40)}…' is ${name.length} characters long; the tool takes names of up to ${NAME_MAX}`,
+      where,
+      'shorten the name',
+    ),
+  );
+  return true;
+}
+
+/** Names (LW405 length, LW205 form, LW203 repeats), then LW300 no states and LW204 the start state. */
 function checkNames(m: Machine, ds: Diagnostic[]): void {
   const mloc = m.loc ?? {};
-  if (!MACHINE_NAME.test(m.name)) {
+  if (!tooLong(m.name, 'machine', partLoc(m, 'name', '.name', mloc), ds) && !MACHINE_NAME.test(m.name)) {
     ds.push(
       diag(
         'LW205',
@@ -142,7 +157,7 @@ function checkSignalNames(
 ): void {
   list.forEach((n, i) => {
     const where = partLoc(m, `${kind}:${i}`, `.${kind}s[${i}]`, m.loc ?? {});
-    if (!IDENTIFIER.test(n)) {
+    if (!tooLong(n, kind, where, ds) && !IDENTIFIER.test(n)) {
       ds.push(
         diag(
           'LW205',
@@ -171,7 +186,7 @@ function checkStateNames(m: Machine, ds: Diagnostic[]): Set<string> {
   const seen = new Set<string>();
   for (const s of m.states) {
     const where = partLoc(s, 'name', '.name', m.loc ?? {});
-    if (!STATE_NAME.test(s.name)) {
+    if (!tooLong(s.name, 'state', where, ds) && !STATE_NAME.test(s.name)) {
       ds.push(
         diag(
           'LW205',

@@ -4,6 +4,7 @@
  * pull the reset lever, release it. Also the three operating rules the procedure keeps and
  * how to tell whether an action breaks one.
  */
+import { nameRecord, ownValue } from '../model/records.js';
 
 /** The clock and reset levers, by role. */
 export type ControlLever = 'phi1' | 'phi2' | 'reset';
@@ -78,15 +79,16 @@ export function phaseActions(): HandAction[] {
 export function clockActions(inputs: readonly string[], values: InputValues, current?: InputValues): HandAction[] {
   const set: HandAction[] = [];
   for (const name of inputs) {
-    const v = values[name] ?? 0;
-    if (current === undefined || (current[name] ?? 0) !== v) set.push({ kind: 'input', input: name, value: v });
+    const v = ownValue(values, name) ?? 0;
+    if (current === undefined || (ownValue(current, name) ?? 0) !== v)
+      set.push({ kind: 'input', input: name, value: v });
   }
   return [...set, ...phaseActions()];
 }
 
 /** Input values from a '0'/'1' assignment string in the machine's input order. */
 export function valuesOf(inputs: readonly string[], assignment: string): Record<string, 0 | 1> {
-  const out: Record<string, 0 | 1> = {};
+  const out = nameRecord<0 | 1>();
   inputs.forEach((name, i) => (out[name] = assignment[i] === '1' ? 1 : 0));
   return out;
 }

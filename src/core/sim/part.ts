@@ -10,6 +10,7 @@
  * model/netlist.ts. Postconditions: the input state is never modified.
  */
 import type { Build } from '../model/build.js';
+import { nameRecord } from '../model/records.js';
 import { DEFAULT_PROFILE, type Profile } from '../physics/profile.js';
 import { compilePart, X, type PartSim, type PartTiming, type Trit } from './compile.js';
 import {
@@ -254,10 +255,10 @@ export function readPart(sim: PartSim, state: PartState): PartReading {
   const m = sim.build.machine;
   const code = slaveCode(sim, v);
   const si = sim.build.encoding.codes.indexOf(code);
-  const inputs: Record<string, 0 | 1> = {};
+  const inputs = nameRecord<0 | 1>();
   m.inputs.forEach((name, i) => (inputs[name] = v[sim.inputLevers[i]] === 1 ? 1 : 0));
   const outs = outputValues(sim, v);
-  const outputs: Record<string, string> = {};
+  const outputs = nameRecord<string>();
   m.outputs.forEach((o, i) => (outputs[o] = show(outs[i])));
   return {
     code,

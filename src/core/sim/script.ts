@@ -8,6 +8,7 @@
 import { coverHolds } from '../model/cube.js';
 import type { Build } from '../model/build.js';
 import { diag, type Diagnostic } from '../model/diagnostics.js';
+import { ownValue } from '../model/records.js';
 import { stepAbstract } from './abstract.js';
 import { assignmentOf, type InputValues } from './hand.js';
 import type { PartTiming } from './compile.js';
@@ -124,7 +125,7 @@ export function runAbstractScript(build: Build, seq: SeqArray): StepRow[] {
       clock: i + 1,
       state: f.states[state],
       code: codes[state] ?? '',
-      inputs: Object.fromEntries(f.inputs.map((n) => [n, values[n] ?? 0])),
+      inputs: Object.fromEntries(f.inputs.map((n) => [n, ownValue(values, n) ?? 0])),
       outputs: Object.fromEntries(f.outputs.map((o, k) => [o, shown(String(outputs[k]))])),
       next: f.states[next],
       nextCode: codes[next] ?? '',

@@ -34,6 +34,21 @@ describe('core/export/escape', () => {
     expect(escapeMd('_lead and trail_')).toBe('\\_lead and trail\\_');
   });
 
+  // ECMA-48 §5.3 (ESC, CSI as C1) and Unicode Standard Annex #9 (bidirectional formatting): a
+  // terminal showing the file must never receive them raw.
+  it('spells out control and bidirectional characters in Markdown (the backslash itself escaped), keeping tab', () => {
+    expect(escapeMd('bell\u0007 nul\u0000 esc\u001b[2J')).toBe('bell\\\\u{7} nul\\\\u{0} esc\\\\u{1b}\\[2J');
+    expect(escapeMd('csi\u009b31m rlo\u202e')).toBe('csi\\\\u{9b}31m rlo\\\\u{202e}');
+    expect(escapeMd('tab\tstays')).toBe('tab\tstays');
+    fc.assert(
+      fc.property(fc.string({ unit: 'binary' }), (s) => {
+        // eslint-disable-next-line no-control-regex -- looking for control characters is the point
+        expect(escapeMd(s)).not.toMatch(/[\u0000-\u0008\u000a-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/);
+      }),
+      { seed: 42, numRuns: 300 },
+    );
+  });
+
   it('never leaves an unescaped pipe in a cell', () => {
     fc.assert(
       fc.property(fc.string(), (s) => {

@@ -6,6 +6,7 @@ import {
   evalExpr,
   exprCover,
   GUARD_CUBE_LIMIT,
+  GUARD_DEPTH_LIMIT,
   parseGuard,
   printCubes,
   printExpr,
@@ -143,6 +144,43 @@ describe('core/forms/expr', () => {
     // An XOR chain that fits stays exact: 10 inputs → 2^9 products.
     expect(exprCover(readExpr(xs.slice(0, 10).join(' ^ '), xs, at).expr!, 32)).toHaveLength(512);
     expect(GUARD_CUBE_LIMIT).toBe(4096);
+  });
+
+  it('refuses nesting past GUARD_DEPTH_LIMIT as LW404 at the character that goes too deep, never a stack overflow', () => {
+    const n = GUARD_DEPTH_LIMIT;
+    // As deep as allowed: read, covered, printed and evaluated.
+    const deep = '('.repeat(n / 2) + '!'.repeat(n / 2) + 'a' + ')'.repeat(n / 2);
+    const ok = parseGuard(deep, ins, at);
+    expect(ok.diagnostics).toEqual([]);
+    expect(ok.guard!.cubes).toEqual(['1---']);
+    expect(printExpr(ok.guard!.expr)).toBe('!'.repeat(n / 2) + 'a');
+    expect(evalExpr(ok.guard!.expr, '1000')).toBe(true);
+    // One level more, and the cases that used to exhaust the stack (2,000 parentheses, 5,000 '!').
+    for (const [text, column] of [
+      ['('.repeat(n + 1) + 'a' + ')'.repeat(n + 1), 10 + n],
+      ['!'.repeat(n + 1) + 'a', 10 + n],
+      ['('.repeat(2000) + 'a' + ')'.repeat(2000), 10 + n],
+      ['!'.repeat(5000) + 'a', 10 + n],
+      ['a & (' + '!('.repeat(3000) + 'b' + ')'.repeat(6000), 14 + n],
+    ] as const) {
+      const r = parseGuard(text, ins, at);
+      expect(r.guard).toBeUndefined();
+      expect(r.diagnostics).toHaveLength(1);
+      expect(r.diagnostics[0]).toMatchObject({ code: 'LW404', severity: 'error', location: { line: 3, column } });
+      expect(r.diagnostics[0].message).toContain(`more than ${n} levels`);
+    }
+    // Depth is nesting, not length: a long flat chain is fine.
+    expect(parseGuard(Array.from({ length: 5000 }, () => '!a').join(' | '), ins, at).diagnostics).toEqual([]);
+  });
+
+  it('echoes at most a short, printable piece of a bad token', () => {
+    const r = parseGuard('a & 9' + 'x'.repeat(100_000), ins, at);
+    expect(r.diagnostics[0].message.length).toBeLessThan(300);
+    // A terminal title sequence (ESC ] 0 ; … BEL, ECMA-48 OSC) is spelt out, never passed on.
+    const esc = parseGuard('a & \u001b]0;title\u0007', ins, at);
+    // eslint-disable-next-line no-control-regex -- looking for control characters is the point
+    expect(esc.diagnostics[0].message).not.toMatch(/[\u0000-\u001f]/);
+    expect(esc.diagnostics[0].message).toContain('\\u{1b}');
   });
 
   it('handles 24-input guards on cubes (no enumeration of 2^24 combinations)', () => {

@@ -96,23 +96,30 @@ describe('core/forms/json', () => {
     expect(machineToJson(g).states[0].transitions[0]).toEqual({ when: 'a', to: 's' });
   });
 
-  // Each row: the input, the expected code and the expected location.
-  const errorKinds: [string, string, string, object][] = [
+  // Each row: the input, the expected code, the expected location, and (for a JSON path) what the
+  // text holds at the line and column given: the value the path names, or the object that lacks it.
+  const errorKinds: [string, string, string, object, string?][] = [
     ['syntax: missing value', '{"name": }', 'LW100', { line: 1, column: 10 }],
     ['syntax: bad literal on line 3', '{\n  "name": "m",\n  "inputs": tru\n}', 'LW100', { line: 3, column: 13 }],
     ['syntax: empty file', '', 'LW100', { line: 1, column: 1 }],
     ['syntax: unclosed string', '{"name": "m', 'LW100', { line: 1, column: 10 }],
-    ['not an object', '[1, 2]', 'LW100', { path: '$' }],
-    ['guard syntax', tiny({}, {}, { when: 'a &' }), 'LW102', { path: '$.states[0].transitions[0].when' }],
-    ['wrong type', tiny({ inputs: 'a' }), 'LW103', { path: '$.inputs' }],
-    ['bad unspecified', tiny({ unspecified: 'keep' }), 'LW103', { path: '$.unspecified' }],
-    ['wrong type of code', tiny({}, { code: 1 }), 'LW103', { path: '$.states[0].code' }],
-    ['missing states', JSON.stringify({ name: 'm', inputs: [], outputs: [], start: 's' }), 'LW104', { path: '$' }],
-    ['missing to', tiny({}, {}, { to: undefined }), 'LW104', { path: '$.states[0].transitions[0]' }],
-    ['missing transitions', tiny({}, { transitions: undefined }), 'LW104', { path: '$.states[0]' }],
-    ['unknown field', tiny({ start_state: 's' }), 'LW105', { path: '$.start_state' }],
-    ['bad output value', tiny({}, { outputs: { z: 2 } }), 'LW106', { path: '$.states[0].outputs.z' }],
-    ['unknown input', tiny({ never: ['b'] }), 'LW201', { path: '$.never[0]' }],
+    ['not an object', '[1, 2]', 'LW100', { path: '$' }, '[1, 2]'],
+    ['guard syntax', tiny({}, {}, { when: 'a &' }), 'LW102', { path: '$.states[0].transitions[0].when' }, '"a &"'],
+    ['wrong type', tiny({ inputs: 'a' }), 'LW103', { path: '$.inputs' }, '"a"'],
+    ['bad unspecified', tiny({ unspecified: 'keep' }), 'LW103', { path: '$.unspecified' }, '"keep"'],
+    ['wrong type of code', tiny({}, { code: 1 }), 'LW103', { path: '$.states[0].code' }, '1}'],
+    [
+      'missing states',
+      JSON.stringify({ name: 'm', inputs: [], outputs: [], start: 's' }),
+      'LW104',
+      { path: '$' },
+      '{"name"',
+    ],
+    ['missing to', tiny({}, {}, { to: undefined }), 'LW104', { path: '$.states[0].transitions[0]' }, '{"when":"a"}'],
+    ['missing transitions', tiny({}, { transitions: undefined }), 'LW104', { path: '$.states[0]' }, '{"name":"s"}'],
+    ['unknown field', tiny({ start_state: 's' }), 'LW105', { path: '$.start_state' }, '"s"}'],
+    ['bad output value', tiny({}, { outputs: { z: 2 } }), 'LW106', { path: '$.states[0].outputs.z' }, '2}'],
+    ['unknown input', tiny({ never: ['b'] }), 'LW201', { path: '$.never[0]' }, '"b"]'],
     [
       'guard too large',
       JSON.stringify({
@@ -126,15 +133,51 @@ describe('core/forms/json', () => {
       }),
       'LW403',
       { path: '$.states[0].transitions[0].when' },
+      '"x0 ^ x1',
     ],
   ];
-  it.each(errorKinds)('reports %s', (_name, text, code, location) => {
+  it.each(errorKinds)('reports %s', (_name, text, code, location, there) => {
     const r = parseJsonMachine(text, 'f.json');
     const d = r.diagnostics.find((x) => x.code === code);
     expect(d, JSON.stringify(r.diagnostics)).toBeDefined();
-    expect(d!.location).toEqual({ file: 'f.json', ...location });
+    const { line, column } = d!.location;
+    expect(d!.location).toEqual({ file: 'f.json', ...location, line, column });
+    expect(line).toBeGreaterThan(0);
+    if (there !== undefined)
+      expect(
+        text
+          .split('\n')
+          [line! - 1].slice(column! - 1)
+          .startsWith(there),
+        there,
+      ).toBe(true);
     expect(d!.hint).toBeTruthy();
     if (d!.severity === 'error') expect(r.machine).toBeUndefined();
+  });
+
+  it('gives line and column on a file of many lines, and skips a byte order mark', () => {
+    const text =
+      '\ufeff{\n  "name": "m",\n  "inputs": ["a"],\n  "outputs": [],\n  "start": "s",\n  "states": [\n    { "name": "s", "transitions": [ { "when": "a |", "to": "s" } ] }\n  ]\n}\n';
+    const r = parseJsonMachine(text, 'f.json');
+    expect(r.diagnostics.map((d) => d.location)).toEqual([
+      { file: 'f.json', path: '$.states[0].transitions[0].when', line: 7, column: 47 },
+    ]);
+    expect(parseJsonMachine(text.replace('a |', 'a')).diagnostics).toEqual([]);
+  });
+
+  it('refuses a number too large to hold (1e309 reads as infinity) as LW108 at its line and column', () => {
+    const r = parseJsonMachine('{"name": "m",\n "states": [{"name": "s", "code": 1e309}]}', 'f.json');
+    expect(r.machine).toBeUndefined();
+    expect(r.diagnostics).toEqual([
+      expect.objectContaining({
+        code: 'LW108',
+        location: { file: 'f.json', line: 2, column: 35, path: '$.states[0].code' },
+      }),
+    ]);
+    expect(r.diagnostics[0].message).toContain('1e309');
+    // Large but finite numbers and tiny ones are ordinary values (reported, if at all, for their type).
+    expect(parseJsonMachine('{"name": 1e308}').diagnostics.map((d) => d.code)).not.toContain('LW108');
+    expect(parseJsonMachine('{"name": 1e-400}').diagnostics.map((d) => d.code)).not.toContain('LW108');
   });
 
   it('reads loadsG (grams above 0) and final, naming a bad load by its path (LW107)', () => {

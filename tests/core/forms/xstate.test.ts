@@ -9,6 +9,7 @@ import { createMachine } from 'xstate';
 import { describe, expect, it } from 'vitest';
 import { parseTextMachine } from '../../../src/core/forms/text.js';
 import { clockEvent, exportXstate, featureNote, importXstate, type Feature } from '../../../src/core/forms/xstate.js';
+import { LIMITS } from '../../../src/core/model/limits.js';
 import type { Machine } from '../../../src/core/model/machine.js';
 import { seededRandom } from '../../../src/core/model/random.js';
 import { randomFlatConfig, randomMachine } from './xstate/generators.js';
@@ -124,6 +125,30 @@ describe('core/forms/xstate import', () => {
       ['service', 'locked'],
     ]);
     expect(locked.transitions[0].loc).toEqual({ file: 'gate.json', path: '$.states.locked.on.coin' });
+  });
+
+  it('refuses more states than the tool takes (LW400) by counting them, before reading any state', () => {
+    const n = LIMITS.states + 1;
+    const states: Record<string, unknown> = {};
+    // A state whose reading would report problems: none is reported, as none is read.
+    for (let i = 0; i < n; i++) states[`s${i}`] = i === 0 ? { entry: ['beep'], on: { GO: '#nowhere' } } : {};
+    const r = importXstate({ id: 'big', initial: 's0', states }, 'big.json');
+    expect(r.machine).toBeUndefined();
+    expect(r.diagnostics).toEqual([
+      {
+        code: 'LW400',
+        severity: 'error',
+        message: `the machine has ${n} states; the tool handles at most ${LIMITS.states}`,
+        location: { file: 'big.json', path: `$.states.s${LIMITS.states}` },
+        hint: 'split the machine',
+      },
+    ]);
+    // At the limit it is read (and validated) as usual.
+    delete states[`s${LIMITS.states}`];
+    expect(importXstate({ id: 'big', initial: 's0', states }).diagnostics.map((d) => d.code)).toEqual([
+      'LW500',
+      'LW200',
+    ]);
   });
 
   it('agrees with xstate 5.33.3 (createActor/send/getSnapshot) on state and outputs after every event: ticket gate, dial lock, kiln door', () => {

@@ -48,7 +48,7 @@ describe('src/web/controllers/files', () => {
     expect(r.ok).toBe(false);
     if (!r.ok)
       expect(r.problems[0]).toBe(
-        'bad.json $.name: error LW103: $.name should be a string, not number 3 — see schemas/machine.schema.json',
+        'bad.json:1:10 $.name: error LW103: $.name should be a string, not number 3 — see schemas/machine.schema.json',
       );
     // A machine that does not parse cannot be put in another form (one that only fails
     // validation, e.g. an unknown target, can: the JSON form carries the same mistake).

@@ -19,7 +19,7 @@
  * its outputs likewise (tags and meta.outputs of each state and its transitions); every part
  * carries its JSON path in `loc`.
  */
-import { diag, didYouMean, hasErrors, type Diagnostic } from '../../model/diagnostics.js';
+import { diag, didYouMean, hasErrors, printable, type Diagnostic } from '../../model/diagnostics.js';
 import type { Guard, Machine, OutBit, SourceLoc, State, Transition } from '../../model/machine.js';
 import { parseGuard } from '../expr.js';
 import { jsonKey, type MachineResult } from '../json.js';
@@ -122,7 +122,7 @@ function startState(im: Importer): string {
   im.ds.push(
     diag(
       'LW204',
-      `the initial state '${raw.initial}' is not a state of the machine`,
+      `the initial state '${printable(raw.initial)}' is not a state of the machine`,
       im.at('$.initial'),
       g ? `did you mean '${g}'?` : 'name one of the states under "states"',
     ),

@@ -10,7 +10,8 @@
  * fields we do not know are LW105 warnings. Empty feature values (`entry: []`,
  * `context: {}`) are accepted and ignored: they do nothing in xstate either.
  */
-import { diag, didYouMean, type Diagnostic, type DiagnosticCode } from '../../model/diagnostics.js';
+import { diag, didYouMean, printable, type Diagnostic, type DiagnosticCode } from '../../model/diagnostics.js';
+import { LIMITS } from '../../model/limits.js';
 import type { OutBit } from '../../model/machine.js';
 import { isPrimitive, jsonKey } from '../json.js';
 import { featureNote, type Feature } from './features.js';
@@ -101,7 +102,7 @@ class Scan {
   unknown(k: string, path: string, known: readonly string[]): void {
     const guess = didYouMean(k, known);
     const hint = guess ? `did you mean '${guess}'?` : `fields read here: ${known.join(', ')}`;
-    this.report('LW105', `unknown field '${k}' ignored`, jsonKey(path, k), hint, 'warning');
+    this.report('LW105', `unknown field '${printable(k)}' ignored`, jsonKey(path, k), hint, 'warning');
   }
 
   /** True when `s` can name a `what` ('state', or a lever or output); LW205 otherwise. */
@@ -111,9 +112,9 @@ class Scan {
     const fixed = s.replace(/[^A-Za-z0-9_]/g, '_').replace(/^(?=[0-9])/, isState ? '' : '_');
     const example = fixed === '' ? 'x' : isLeverName(fixed) || isState ? fixed : 'x_' + fixed;
     const hint = (isState ? STATE_NAME : IDENT).test(s)
-      ? `'${s}' is a property of every JavaScript object; choose another name`
-      : `use letters, digits and _${isState ? '' : ' (starting with a letter or _)'}, for example '${example}'`;
-    this.report('LW205', `${what} '${s}' is not a valid name`, path, hint);
+      ? `'${printable(s)}' is a property of every JavaScript object; choose another name`
+      : `use letters, digits and _${isState ? '' : ' (starting with a letter or _)'}, for example '${printable(example)}'`;
+    this.report('LW205', `${what} '${printable(s)}' is not a valid name`, path, hint);
     return false;
   }
 }
@@ -152,7 +153,13 @@ function readMetaOutputs(sc: Scan, meta: unknown, path: string): Map<string, Out
     if (!sc.name(k, 'output', kp)) continue;
     const v = o[k];
     if (v === 0 || v === 1 || v === '-') out.set(k, v);
-    else sc.report('LW106', `output '${k}' has the value ${describe(v)}`, kp, 'write 0, 1 or "-" (don\'t care)');
+    else
+      sc.report(
+        'LW106',
+        `output '${printable(k)}' has the value ${describe(v)}`,
+        kp,
+        'write 0, 1 or "-" (don\'t care)',
+      );
   }
   return out;
 }
@@ -272,9 +279,9 @@ function readStateShape(sc: Scan, v: Obj, path: string, where: string): boolean 
 
 /** One state `nm` at `path`. */
 function readState(sc: Scan, nm: string, v: unknown, path: string, rootId: string): RawState | undefined {
-  const where = `state '${nm}'`;
+  const where = `state '${printable(nm)}'`;
   if (!isObj(v)) {
-    const msg = `state '${nm}' should be an object, not ${describe(v)}`;
+    const msg = `state '${printable(nm)}' should be an object, not ${describe(v)}`;
     sc.report('LW501', msg, path, 'write {} for a state with no transitions');
     return undefined;
   }
@@ -379,9 +386,9 @@ function readStates(sc: Scan, root: Obj, rootId: string): RawState[] {
     );
     return states;
   }
-  if (Object.keys(statesV).length === 0)
-    sc.report('LW300', 'the machine has no states', '$.states', 'declare at least one state');
-  for (const nm of Object.keys(statesV)) {
+  const names = Object.keys(statesV);
+  if (names.length === 0) sc.report('LW300', 'the machine has no states', '$.states', 'declare at least one state');
+  for (const nm of names) {
     const sp = jsonKey('$.states', nm);
     if (!sc.name(nm, 'state', sp)) continue;
     const s = readState(sc, nm, statesV[nm], sp, rootId);
@@ -396,13 +403,28 @@ function checkIds(sc: Scan, states: readonly RawState[], rootId: string): void {
   for (const s of states) {
     const first = seen.get(s.id);
     if (first !== undefined) {
-      const msg = `state '${s.name}' has the id '${s.id}', already used at ${first}`;
+      const msg = `state '${s.name}' has the id '${printable(s.id)}', already used at ${first}`;
       sc.report('LW501', msg, `${s.path}.id`, 'give every state its own id');
     } else seen.set(s.id, s.path);
   }
 }
 
-/** Read and check a configuration; `raw` is present when the root is an object at all. */
+/** LW400 when `states` holds more states than the tool takes: counted before any state is read. */
+function tooManyStates(sc: Scan, root: Obj): boolean {
+  const statesV = own(root, 'states');
+  if (!isObj(statesV)) return false;
+  const names = Object.keys(statesV);
+  if (names.length <= LIMITS.states) return false;
+  sc.report(
+    'LW400',
+    `the machine has ${names.length} states; the tool handles at most ${LIMITS.states}`,
+    jsonKey('$.states', names[LIMITS.states]),
+    'split the machine',
+  );
+  return true;
+}
+
+/** Read and check a configuration; `raw` is present when the root is an object at all and not too large. */
 export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; diagnostics: Diagnostic[] } {
   const sc = new Scan(file);
   if (!isObj(value)) {
@@ -411,6 +433,7 @@ export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; di
     return { diagnostics: sc.ds };
   }
   const root = value;
+  if (tooManyStates(sc, root)) return { diagnostics: sc.ds };
   const rootId = readRootFields(sc, root);
   const initial = readInitial(sc, root);
   for (const k of Object.keys(root)) {

@@ -9,7 +9,7 @@
  * Anything else is LW200 (a target to the root itself is LW500). We accept a subset of what
  * xstate accepts and never read a target differently from it (tests compare with xstate).
  */
-import { didYouMean } from '../../model/diagnostics.js';
+import { didYouMean, printable } from '../../model/diagnostics.js';
 import type { Feature } from './features.js';
 import type { RawConfig, RawState } from './types.js';
 
@@ -36,14 +36,31 @@ export function toStatePath(id: string): string[] {
   return out;
 }
 
+/** The states of a configuration by name and by id, made once per configuration (not once per target). */
+interface StateIndex {
+  readonly names: readonly string[];
+  readonly byName: ReadonlySet<string>;
+  readonly byId: ReadonlyMap<string, string>;
+}
+
+const indexes = new WeakMap<RawConfig, StateIndex>();
+
+function indexOf(raw: RawConfig): StateIndex {
+  let ix = indexes.get(raw);
+  if (ix === undefined) {
+    const names = raw.states.map((s) => s.name);
+    ix = { names, byName: new Set(names), byId: new Map(raw.states.map((s) => [s.id, s.name])) };
+    indexes.set(raw, ix);
+  }
+  return ix;
+}
+
 /** Resolve `target`, written on state `from` (undefined: on the machine root). */
 export function resolveTarget(target: string, from: RawState | undefined, raw: RawConfig): Resolution {
-  const names = raw.states.map((s) => s.name);
-  const byName = new Set(names);
-  const byId = new Map(raw.states.map((s) => [s.id, s.name]));
+  const { names, byName, byId } = indexOf(raw);
   const unknown = (hint?: string): Resolution => ({
     ok: false,
-    message: `the target '${target}' names no state of this flat machine`,
+    message: `the target '${printable(target)}' names no state of this flat machine`,
     ...(hint ? { hint } : {}),
   });
   const guessName = (n: string, prefix: string): string | undefined => {
@@ -61,7 +78,7 @@ export function resolveTarget(target: string, from: RawState | undefined, raw: R
     const rest = segs.slice(1);
     if (head === raw.rootId) {
       if (rest.length === 0 || (rest.length === 1 && rest[0] === ''))
-        return { ok: false, message: `the target '${target}' is the machine root`, feature: 'rootTarget' };
+        return { ok: false, message: `the target '${printable(target)}' is the machine root`, feature: 'rootTarget' };
       if (rest.length === 1 && byName.has(rest[0])) return { ok: true, state: rest[0] };
       return unknown(
         rest.length === 1 ? guessName(rest[0], `#${raw.rootId}.`) : 'a flat machine has no states inside states',
@@ -89,7 +106,7 @@ export function resolveTarget(target: string, from: RawState | undefined, raw: R
   if (target.startsWith('.')) {
     const child = target.slice(1);
     return unknown(
-      `'${target}' names a child of state '${from.name}', and states of a flat machine have none${byName.has(child) ? `; write '${child}' for the state '${child}'` : ''}`,
+      `'${printable(target)}' names a child of state '${from.name}', and states of a flat machine have none${byName.has(child) ? `; write '${child}' for the state '${child}'` : ''}`,
     );
   }
   const s = single(target);

@@ -22,6 +22,7 @@
  */
 import type { PartCounts, SignalMap } from '../../model/build.js';
 import type { Cord, Netlist } from '../../model/netlist.js';
+import { nameRecordOf } from '../../model/records.js';
 import type { Profile } from '../../physics/profile.js';
 import type { SopCover } from '../minimise-logic/types.js';
 import { NetBuilder } from './builder.js';
@@ -86,7 +87,7 @@ export function mapToParts(m: MapInput): Mapped {
 
   const netlist = splitFanout(b.build(), m.tooMany ?? tooManyBranches());
   const signals: SignalMap = {
-    inputs: Object.fromEntries(m.inputs.map((name) => [name, ids.input(name)])),
+    inputs: nameRecordOf(m.inputs.map((name) => [name, ids.input(name)])),
     phi1: seq ? ids.phi1 : '',
     phi2: seq ? ids.phi2 : '',
     reset: seq ? ids.reset : '',

@@ -23,6 +23,7 @@
  *   Z = AND(NOT p) = NOT f is read by an inverted flag. An actuator needs one more one-port
  *   gate on the OR gate's cord (its Z = f), whose cord pulls the load.
  */
+import { nameRecord, ownValue } from '../../model/records.js';
 import type { SopCover } from '../minimise-logic/types.js';
 import { capacity, fitAnd } from './fan-in.js';
 import { ids, termText } from './names.js';
@@ -65,7 +66,7 @@ export function planOutputs(
     termId.set(i, ids.outputTerm(first, k));
   });
   const outputs = names.map((name, k) => {
-    const loadG = actuators[name];
+    const loadG = ownValue(actuators, name);
     const ts = perOut[k];
     const c = constant[k];
     let show: Show;
@@ -124,7 +125,7 @@ export function buildOutputs(ctx: MapContext, plan: OutputPlan): Record<string, 
     if (o.loadG !== undefined)
       b.gate(ids.outputDriver(o.name), `output ${o.name} actuator driver`, 'output', [{ prefix: 'p', drivers: [id] }]);
   }
-  const shown: Record<string, string> = {};
+  const shown = nameRecord<string>();
   for (const o of plan.outputs) {
     const s = o.show;
     if (o.loadG !== undefined) {

@@ -24,6 +24,7 @@
  * State names follow quotient.ts (each reduced state keeps one member's name).
  */
 import { DONT_CARE, isIncomplete, type FlatMachine, type FlatRow } from '../../model/flat.js';
+import { nameRecord } from '../../model/records.js';
 import { has, isEmptySet, isSubset, members, type StateSet } from './bitset.js';
 import { closedCover, DEFAULT_COVER_BUDGET } from './closed-cover.js';
 import { classRegions, compatibility } from './compatible.js';
@@ -82,7 +83,7 @@ export function minimiseStates(f: FlatMachine, options: MinimiseStatesOptions = 
     machine = step.machine;
     if (attempt.exact) break; // proven minimal: nothing further can shrink it
   }
-  const merged: Record<string, string> = {};
+  const merged = nameRecord<string>();
   pruned.original.forEach((o, i) => (merged[f.states[o]] = machine.states[current[i]]));
   return {
     machine,

@@ -1,0 +1,13 @@
+/**
+ * The largest machine the tool takes (LW400–LW402). The validate phase refuses a machine past
+ * them before any other work; a reader that can count cheaply (the xstate importer counts the
+ * keys of `states`) refuses it before reading the parts.
+ */
+export const LIMITS = { states: 4096, inputs: 32, outputs: 256 } as const;
+
+/**
+ * The longest name (machine, state, input or output) the tool takes, in characters (LW405):
+ * longer than any label painted on a lever, and it keeps every report, document and message
+ * that repeats names a readable size.
+ */
+export const NAME_MAX = 128;
