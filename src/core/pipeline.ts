@@ -15,6 +15,7 @@
 import { DiagnosticError, diag, didYouMean, hasErrors, type Diagnostic } from './model/diagnostics.js';
 import type { Machine, SourceLoc } from './model/machine.js';
 import { nameRecord, ownValue } from './model/records.js';
+import { BUILD_LIMITS } from './model/limits.js';
 import type { Build, Encoding } from './model/build.js';
 import {
   encode,
@@ -167,9 +168,18 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
 /**
  * What the encoding search of this build depends on, as plain data (search.ts): a shell that
  * runs the search on several threads plans it from this and passes the outcome back to
- * `buildMachine` as `searched`. A bad unused-code target comes back as its diagnostic.
+ * `buildMachine` as `searched`. A bad unused-code target, or a machine past the size a build
+ * takes (LW407, refused before any work), comes back as its diagnostic.
  */
 export function buildSearchSetup(a: Analysed, opts: BuildOptions = {}): SearchSetup | Diagnostic {
+  const n = a.minimised.machine.states.length;
+  if (n > BUILD_LIMITS.states)
+    return diag(
+      'LW407',
+      `${a.machine.name} has ${n} states after state minimisation; a build takes at most ${BUILD_LIMITS.states}`,
+      {},
+      'split the machine into smaller ones, or merge states that behave alike',
+    );
   const unused = resolveUnused(a, opts.unusedCodes);
   if (typeof unused === 'object') return unused;
   const actuators = { ...a.machine.loadsG, ...opts.actuators };

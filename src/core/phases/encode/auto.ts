@@ -97,6 +97,11 @@ export const DEFAULT_SEARCH = { exhaustiveClasses: 500, annealingEvaluations: 50
  * the `finalists` best screened candidates at the main length (half as many at one bit more)
  * are priced by the full cost — `largeFinalists` when one sketch takes more than
  * `largeSketch` steps (the full cost grows with the sketch, at 100–1000 times its time).
+ * Past `hugeWork` (one sketch's steps times the variables of the set/reset functions, state
+ * bits plus inputs: a measure of one full synthesis that grows with both), a full synthesis
+ * takes seconds to tens of seconds, so the sketch alone chooses among the named encodings and
+ * the annealed candidates and only its choice is priced by the full cost (one synthesis
+ * instead of four). Every LGSynth'91 machine stays below it (s298, the largest, at 2.6e7).
  * Measured on the LGSynth'91 machines: see docs/methods/encode.md.
  */
 export const SKETCH_SEARCH = {
@@ -104,12 +109,13 @@ export const SKETCH_SEARCH = {
   runs: 4,
   work: 2e8,
   minSketches: 40,
-  maxSketches: 2000,
+  maxSketches: 4000,
   smallSketch: 2e4,
   smallFinalists: 16,
   finalists: 6,
   largeSketch: 4e5,
   largeFinalists: 2,
+  hugeWork: 3e7,
 } as const;
 
 /** Named strategies are priced only when their codes are at most this many bits longer than the minimum. */
@@ -210,7 +216,8 @@ export class AutoSearch {
     if (this.problem) return [];
     if (this.stage === 0) {
       this.stage = 1;
-      this.batch = [...this.named.map((e, i) => this.priceTask(e.codes, e.bits, i === 0)), ...this.screenTasks()];
+      const named = this.huge ? [] : this.named.map((e, i) => this.priceTask(e.codes, e.bits, i === 0));
+      this.batch = [...named, ...this.screenTasks()];
       return this.batch;
     }
     if (this.stage === 1 && !this.sketched && !this.classes) {
@@ -412,8 +419,18 @@ export class AutoSearch {
     return Math.max(SKETCH_SEARCH.minSketches, Math.min(SKETCH_SEARCH.maxSketches, n));
   }
 
-  /** Finalists per length: fewer when one sketch is large. */
+  /**
+   * True when one full synthesis is too dear to price more than one candidate (SKETCH_SEARCH.hugeWork):
+   * then the named encodings are screened by the sketch with the rest, and one finalist is priced.
+   */
+  private get huge(): boolean {
+    if (!this.sketched || this.classes) return false;
+    return this.sketchSize() * (this.bits + this.f.inputs.length) > SKETCH_SEARCH.hugeWork;
+  }
+
+  /** Finalists per length: fewer when one sketch is large, one when it is huge. */
   private finalistCount(): number {
+    if (this.huge) return 1;
     const w = this.sketchSize();
     if (w <= SKETCH_SEARCH.smallSketch) return SKETCH_SEARCH.smallFinalists;
     return w > SKETCH_SEARCH.largeSketch ? SKETCH_SEARCH.largeFinalists : SKETCH_SEARCH.finalists;
@@ -422,9 +439,9 @@ export class AutoSearch {
   /** The best screened candidates of each length, not already priced as a named strategy. */
   private chooseFinalists(screens: readonly TaskResult[]): Best[] {
     const keyOf = (c: Best): string => `${c.bits}|${canonicalKey(c.codes.map(codeToInt), this.book.group(c.bits))}`;
-    const exclude = new Set(this.named.map((e) => (e.bits <= MAX_SEARCH_BITS ? keyOf({ ...e, cost: 0 }) : '')));
-    const room =
-      this.o.maxEvaluations !== undefined ? Math.max(0, this.o.maxEvaluations - this.named.length) : Infinity;
+    const priced = this.huge ? [] : this.named;
+    const exclude = new Set(priced.map((e) => (e.bits <= MAX_SEARCH_BITS ? keyOf({ ...e, cost: 0 }) : '')));
+    const room = this.o.maxEvaluations !== undefined ? Math.max(1, this.o.maxEvaluations - priced.length) : Infinity;
     const at = (bits: number, keep: number): Best[] =>
       mergeScreens(
         screens.filter((r) => r.kind === 'screen' && r.best[0]?.bits === bits),
@@ -447,7 +464,7 @@ export class AutoSearch {
       const k = this.finalistCount();
       return named + listed + Math.min(listed, k + (this.wider ? Math.ceil(k / 2) : 0));
     }
-    if (this.sketched) return named + this.sketchBudget() + this.finalistCount();
+    if (this.sketched) return (this.huge ? 0 : named) + this.sketchBudget() + this.finalistCount();
     const b = this.annealBudget();
     return Number.isFinite(b) ? named + b : null;
   }
