@@ -19,6 +19,7 @@ import { buildDesigner } from '../src/web/browser.js';
 import { serveStatic } from '../src/web/serve.js';
 import { machineHash } from '../src/web/controllers/link.js';
 import { buildJob, readJob } from '../src/web/worker/jobs.js';
+import { DEFAULT_SETTINGS } from '../src/web/worker/protocol.js';
 import { launchChromium } from '../tests/web/chromium.js';
 
 export interface WebRow {
@@ -78,7 +79,7 @@ function nodeReference(text: string): { read: number; build: number } {
     const t0 = performance.now();
     const r = readJob(text, 'bench.lw');
     const t1 = performance.now();
-    if (r.analysed) buildJob(r.analysed, { encoding: { strategy: 'binary' }, seed: 1, unusedCodes: 'dont-care' });
+    if (r.analysed) buildJob(r.analysed, DEFAULT_SETTINGS);
     reads.push(t1 - t0);
     builds.push(performance.now() - t0);
   }
@@ -91,8 +92,9 @@ async function keystrokes(
   text: string,
 ): Promise<{ sketch: number; build: number; checks: number }> {
   await page.goto(base + machineHash(text));
-  let job = Number(await page.locator('lw-app').getAttribute('data-job'));
-  await whenAnswered(page, job, 'checked');
+  // Opening a link may start a second job (the file name following the machine's name): let it settle.
+  await page.waitForTimeout(300);
+  await whenAnswered(page, Number(await page.locator('lw-app').getAttribute('data-job')), 'checked');
   const area = page.locator('lw-editor textarea');
   await area.evaluate((t: HTMLTextAreaElement) => {
     t.focus();
@@ -107,7 +109,7 @@ async function keystrokes(
   const checks: number[] = [];
   for (let i = 0; i < KEYSTROKES; i++) {
     await page.keyboard.press('x');
-    job++;
+    const job = Number(await page.locator('lw-app').getAttribute('data-job'));
     const t0 = await page.evaluate(() => (window as unknown as { lwKey: number }).lwKey);
     sketch.push((await whenAnswered(page, job, 'read')) - t0);
     build.push((await whenAnswered(page, job, 'built')) - t0);

@@ -10,6 +10,7 @@
  */
 import { Worker } from 'node:worker_threads';
 import {
+  BUILD_DEFAULTS,
   buildSearchSetup,
   planSearch,
   searchOutcome,
@@ -49,7 +50,7 @@ export async function searchOnThreads(
   threads: number,
   onProgress?: (p: Progress) => void,
 ): Promise<EncodeResult | undefined> {
-  if ((opts.encoding ?? 'auto') !== 'auto') return undefined;
+  if ((opts.encoding ?? BUILD_DEFAULTS.encoding) !== 'auto') return undefined;
   const setup = buildSearchSetup(a, opts);
   if (!('machine' in setup)) return undefined;
   const { plan, diagnostics } = planSearch(setup, onProgress ? { onProgress } : {});

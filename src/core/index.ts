@@ -71,6 +71,7 @@ export { locateJsonPaths, readJsonText, withoutBom, type JsonRead } from './form
 // ── Analyse, build, compare: the pipeline ───────────────────────────────────────────────────
 export {
   analyse,
+  BUILD_DEFAULTS,
   buildMachine,
   buildSearchSetup,
   compareEncodings,
@@ -216,6 +217,7 @@ export {
   DOCUMENT_MAKERS,
   DOCUMENT_REGISTRY,
   netlistJson,
+  partRoles,
   schematicSvg,
   verilogFiles,
   wiringCsv,
@@ -225,6 +227,8 @@ export {
   type DocumentName,
   type DocumentsInput,
   type DocumentSources,
+  type PartRole,
+  type SchematicOptions,
   type TourClock,
   type VerilogFiles,
   type WiringRow,

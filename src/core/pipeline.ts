@@ -18,6 +18,7 @@ import { nameRecord, ownValue } from './model/records.js';
 import { BUILD_LIMITS } from './model/limits.js';
 import type { Build, Encoding } from './model/build.js';
 import {
+  DEFAULT_ENCODING,
   encode,
   ENCODINGS,
   type EncodeOptions,
@@ -86,10 +87,24 @@ export function analyse(text: string, file?: string, opts: AnalyseOptions = {}):
   return { ok: true, form: parsed.form, machine, flat, minimised, diagnostics };
 }
 
+/**
+ * What a build uses when its caller says nothing: the one set of defaults of every shell (the
+ * CLI's options and the designer's settings both start from here, so one file builds the
+ * same machine in both). `unusedCodes` is absent on purpose: left out, unused codes are
+ * don't-cares unless that lets the build lock up, and then they go to the start state.
+ */
+export const BUILD_DEFAULTS: {
+  readonly encoding: EncodeStrategy;
+  readonly seed: number;
+  readonly profile: Profile;
+} = { encoding: DEFAULT_ENCODING, seed: 1, profile: DEFAULT_PROFILE };
+
 export interface BuildOptions extends AnalyseOptions {
-  /** A named encoding or a strategy function (default 'auto'). */
+  /** A named encoding or a strategy function (default BUILD_DEFAULTS.encoding, the searched codes). */
   readonly encoding?: EncodeStrategy | ((f: FlatMachine, o: EncodeOptions) => Encoding);
+  /** The technology profile (default BUILD_DEFAULTS.profile). */
   readonly profile?: Profile;
+  /** Seed of every seeded step: the encoding search and the checks (default BUILD_DEFAULTS.seed). */
   readonly seed?: number;
   /**
    * Unused state codes: 'dont-care', or the name of a state every unused code is sent to.
@@ -122,13 +137,14 @@ export interface Built {
 
 /** encode → synthesise (excite → guard → minimise logic → map) → balance drive → check. */
 export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Rejected {
-  const profile = opts.profile ?? DEFAULT_PROFILE;
+  const profile = opts.profile ?? BUILD_DEFAULTS.profile;
+  const seed = opts.seed ?? BUILD_DEFAULTS.seed;
   const f = a.minimised.machine;
   const setup = buildSearchSetup(a, opts);
   if (!('machine' in setup)) return { ok: false, form: a.form, diagnostics: [...a.diagnostics, setup] };
   const make = (enc: Encoding, unused = setup.unusedCodes, guard?: GuardMethod): Build =>
     balanced(synthesise(f, enc, { ...synthesisOptions(setup, unused), ...(guard ? { guard } : {}) }), profile);
-  const strategy = opts.encoding ?? 'auto';
+  const strategy = opts.encoding ?? BUILD_DEFAULTS.encoding;
   try {
     const encoded =
       opts.searched && strategy === 'auto'
@@ -155,8 +171,7 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
       );
     const routes = cordRoutingDiagnostics(profile, build.netlist);
     if (routes.length > 0) return { ok: false, form: a.form, diagnostics: [...diagnostics, ...routes] };
-    const checks =
-      opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, opts.seed ?? 1));
+    const checks = opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, seed));
     return { ok: true, analysed: a, build, search: encoded.search, checks, profile, diagnostics };
   } catch (e) {
     if (e instanceof DiagnosticError)
@@ -185,11 +200,11 @@ export function buildSearchSetup(a: Analysed, opts: BuildOptions = {}): SearchSe
   const actuators = { ...a.machine.loadsG, ...opts.actuators };
   return {
     machine: a.minimised.machine,
-    profile: opts.profile ?? DEFAULT_PROFILE,
+    profile: opts.profile ?? BUILD_DEFAULTS.profile,
     unusedCodes: unused,
     recover: opts.unusedCodes === undefined,
     ...(Object.keys(actuators).length > 0 ? { actuators } : {}),
-    seed: opts.seed ?? 1,
+    seed: opts.seed ?? BUILD_DEFAULTS.seed,
     ...pinnedCodes(a),
     ...(opts.budget?.evaluations !== undefined ? { evaluations: opts.budget.evaluations } : {}),
   };
@@ -251,7 +266,7 @@ export function compareEncodings(a: Analysed, opts: BuildOptions = {}): Encoding
   const rows = strategies.map((strategy) => {
     const b = buildMachine(a, { ...opts, encoding: strategy, checks: false });
     if (!b.ok) return { strategy, ok: false, diagnostics: b.diagnostics.filter((d) => d.severity === 'error') };
-    const profile = opts.profile ?? DEFAULT_PROFILE;
+    const profile = opts.profile ?? BUILD_DEFAULTS.profile;
     const termGates = b.build.netlist.parts.filter((p) => p.kind === 'gate' && p.role === 'term').length;
     return {
       strategy,

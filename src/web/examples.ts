@@ -21,3 +21,20 @@ export const EXAMPLES: readonly Example[] = [
 
 /** The machine a new visitor finds on the bench. */
 export const FIRST_EXAMPLE = EXAMPLES[0];
+
+/** What New puts on the bench: a small machine to write over, every line explained. */
+export const NEW_MACHINE = `# A new machine. A line starting with # is a comment.
+# The notation card (Ctrl+/ or the Notation button) lists every statement.
+
+machine new_machine
+inputs button        # levers a person, a marble or a sensor pulls
+outputs lamp         # flags or actuators the machine shows
+
+start dark           # the state it starts in, and returns to on reset
+
+state dark
+  when button go lit # at a clock with button pulled, go to lit
+
+state lit with lamp=1
+  when button go dark
+`;

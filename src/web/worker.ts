@@ -8,7 +8,7 @@
  * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
  */
 import { analyse, type Built, type Progress, schematicSvg } from '../core/index.js';
-import { buildJob, buildOptions, checkJob, compareJob, readJob } from './worker/jobs.js';
+import { buildJob, buildOptions, checkJob, compareJob, readJob, settle } from './worker/jobs.js';
 import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
 import type { FromWorker, ToWorker } from './worker/protocol.js';
@@ -64,7 +64,8 @@ async function run(m: ToWorker): Promise<void> {
         return;
       }
       const onProgress = reporter(m.rev, 'search');
-      const searched = await searchOnTwoCores(a, buildOptions(m.settings), onProgress);
+      // The search sees the settings as the build will use them (settle drops those this machine cannot use).
+      const searched = await searchOnTwoCores(a, buildOptions(settle(a, m.settings).settings), onProgress);
       if (stale(m.kind, m.rev)) return;
       const b = buildJob(a, m.settings, onProgress, searched);
       if (b.view) post({ kind: 'built', rev: m.rev, view: b.view });
@@ -93,7 +94,11 @@ async function run(m: ToWorker): Promise<void> {
         return;
       }
       try {
-        post({ kind: 'schematic', rev: m.rev, svg: schematicSvg(checked.built.build) });
+        post({
+          kind: 'schematic',
+          rev: m.rev,
+          svg: schematicSvg(checked.built.build, undefined, { palette: 'screen' }),
+        });
       } catch (e) {
         post({ kind: 'schematic', rev: m.rev, problem: message(e) });
       }

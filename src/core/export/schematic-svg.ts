@@ -12,14 +12,22 @@
  * outputs back to the term gates, found by stage order) are laid out reversed so the flow
  * stays left to right, and drawn with their arrow at the true target.
  *
- * Visual language (our own): plain rounded boxes, a small kind label above the part id, a
- * lever glyph on levers, fills told apart by lightness and outlines by dash pattern so the
- * drawing prints in greyscale; cords solid, clock cords dashed, reset cords dotted, a flag's
- * link to the Z lever it reads thin and dashed without an arrow.
+ * Visual language (our own): plain rounded boxes, each with a small kind label, what the part
+ * does in words (roles.ts: "resets M1 when q0 · marble") and, smallest, the part id the wiring
+ * list uses; a lever glyph on levers; fills told apart by lightness and outlines by dash
+ * pattern so the drawing prints in greyscale; cords solid, clock cords dashed, reset cords
+ * dotted, a flag's link to the Z lever it reads thin and dashed without an arrow; a legend of
+ * every fill and line along the bottom.
+ *
+ * Two palettes: `paper` (the default, the document: black on white, readable printed in
+ * greyscale) and `screen` (for drawing inline in the designer's page: the colours are the
+ * page's theme variables, so the drawing follows light and dark; its rules are scoped to the
+ * drawing's own class so they touch nothing else on the page).
  */
 import type { Build } from '../model/build.js';
 import type { Netlist, Part } from '../model/netlist.js';
 import { layOut, layoutGraph, type LaidGraph, type LayoutGraph } from './dagre.js';
+import { partRoles } from './roles.js';
 import { escapeXml } from './escape.js';
 import { clip, extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
 import { stagesOf, type StageInfo } from './stages.js';
@@ -49,9 +57,13 @@ const HELPER_LABEL: Readonly<Record<string, string>> = {
 export interface SchematicNode {
   readonly id: string;
   readonly kind: NodeKind;
+  /** The kind in words ("φ1 term"). */
   readonly label: string;
+  /** What the part does, in words (roles.ts). */
   readonly detail: string;
-  /** Full name, shown as a tooltip. */
+  /** `detail` broken into the lines drawn in the box. */
+  readonly lines: readonly string[];
+  /** Full name and id, shown as a tooltip. */
   readonly title: string;
   readonly x: number;
   readonly y: number;
@@ -98,18 +110,42 @@ function kindOf(p: Part, latchRole: ReadonlyMap<string, 'master' | 'slave'>): No
   }
 }
 
-function detailOf(p: Part): string {
-  if (p.kind === 'flag') return p.fixed !== undefined ? `${p.output} pinned ${p.fixed}` : `shows ${p.output}`;
-  if (p.kind === 'actuator') return `${p.output}, ${p.loadG} g`;
-  return p.name;
+/** Break words into lines of at most `width` characters (at most `most` lines, the last cut with an ellipsis). */
+export function wrapWords(text: string, width: number, most: number): string[] {
+  const lines: string[] = [];
+  let line = '';
+  // A product's dot stays with the literal after it ("a · b" breaks as "a" / "· b").
+  const words = text.split(' ').reduce<string[]>((ws, w) => {
+    const last = ws[ws.length - 1];
+    if (last === '·') ws[ws.length - 1] = `· ${w}`;
+    else ws.push(w);
+    return ws;
+  }, []);
+  for (const word of words) {
+    if (line === '') line = word;
+    else if ([...line].length + 1 + [...word].length <= width) line += ` ${word}`;
+    else {
+      lines.push(line);
+      line = word;
+    }
+  }
+  if (line !== '') lines.push(line);
+  const kept = lines.slice(0, most).map((l) => clip(l, width));
+  if (lines.length > most) kept[most - 1] = clip(`${kept[most - 1]} …`, width);
+  return kept;
 }
 
 const MARGIN = 16;
-const LEGEND_H = 34;
+const LEGEND_H = 50;
 /** The legend's width, so a small machine's drawing still shows all of it. */
 const LEGEND_W = 1060;
+/** Characters per line of a box's role words, and lines at most. */
+const ROLE_CHARS = 30;
+const ROLE_LINES = 2;
+/** Line height of the role words (10 px text). */
+const ROLE_LINE_H = 12;
 
-type NodeInfo = { kind: NodeKind; label: string; detail: string; title: string };
+type NodeInfo = { kind: NodeKind; label: string; detail: string; lines: string[]; title: string };
 
 /** A cord branch (or a flag's link to its Z lever) before layout. */
 interface EdgeDraft {
@@ -135,10 +171,16 @@ function drawnParts(net: Netlist): { shown: Part[]; nodeOf: Map<string, string> 
   return { shown, nodeOf };
 }
 
-/** One node per drawn part, sized for its kind label, id and detail. */
+/** Height of a box: kind label, its role lines and its id (a latch also has its two side labels). */
+function boxHeight(kind: NodeKind, lines: number): number {
+  return (kind === 'master' || kind === 'slave' ? 52 : 34) + lines * ROLE_LINE_H;
+}
+
+/** One node per drawn part, sized for its kind label, role words and id. */
 function addPartNodes(g: LayoutGraph, net: Netlist, shown: readonly Part[]): Map<string, NodeInfo> {
   const latchRole = new Map<string, 'master' | 'slave'>();
   for (const p of net.parts) if (p.kind === 'latch') latchRole.set(p.id, p.role);
+  const roles = partRoles(net);
   const info = new Map<string, NodeInfo>();
   for (const p of shown) {
     const kind = kindOf(p, latchRole);
@@ -148,13 +190,13 @@ function addPartNodes(g: LayoutGraph, net: Netlist, shown: readonly Part[]): Map
         : kind === 'indicator'
           ? p.kind
           : KIND_LABEL[kind];
-    const detail = clip(detailOf(p), 30);
+    const detail = roles.get(p.id)?.does ?? p.name;
+    const lines = wrapWords(detail, ROLE_CHARS, ROLE_LINES);
     const width =
-      Math.max(textWidth(label, 9), textWidth(p.id, 11, true), textWidth(detail, 10)) +
+      Math.max(textWidth(label, 9), textWidth(p.id, 9, true), ...lines.map((l) => textWidth(l, 10))) +
       (kind === 'operator' || kind === 'clock' || kind === 'reset' ? 34 : 18);
-    const height = kind === 'master' || kind === 'slave' ? 60 : 48;
-    g.setNode(p.id, { width, height });
-    info.set(p.id, { kind, label, detail, title: p.name });
+    g.setNode(p.id, { width, height: boxHeight(kind, lines.length) });
+    info.set(p.id, { kind, label, detail, lines, title: `${p.name} (${p.id})` });
   }
   return info;
 }
@@ -306,33 +348,100 @@ export function schematicLayout(build: Build): SchematicLayout {
   return fitted(nodes, cl, placedEdges(laid, drafts, nodes));
 }
 
-const STYLE = `
-.page { fill: #ffffff; }
-.cluster { fill: #f7f7f4; stroke: #b9bdb8; stroke-width: 1; stroke-dasharray: 6 3; }
-.cluster-label { font: 600 10px system-ui, sans-serif; fill: #4a4f4c; }
-.box { stroke: #3c4240; stroke-width: 1.2; }
-.k-operator, .k-clock, .k-reset { fill: #ffffff; stroke-width: 1.8; }
-.k-term { fill: #e6ebf0; }
-.k-helper { fill: #f1f1f1; stroke-dasharray: 3 2; }
-.k-master { fill: #efe7d6; }
-.k-transfer { fill: #e9e4ef; }
-.k-slave { fill: #dfe9e1; }
-.k-output { fill: #f2e3de; }
-.k-indicator { fill: #ffffff; stroke-dasharray: 1.5 2; }
-.kind { font: 9px system-ui, sans-serif; fill: #5a605d; letter-spacing: 0.4px; }
-.pid { font: 11px ui-monospace, Menlo, Consolas, monospace; fill: #1d2327; }
-.detail { font: 10px system-ui, sans-serif; fill: #3c4240; }
-.half { stroke: #3c4240; stroke-width: 0.8; stroke-dasharray: 2 2; }
-.side { font: 8px system-ui, sans-serif; fill: #5a605d; }
-.glyph { stroke: #1d2327; stroke-width: 1.6; fill: none; stroke-linecap: round; }
-.pivot { fill: #1d2327; }
-.e { fill: none; stroke: #4a4f4c; stroke-width: 1; }
-.e-clock { stroke-dasharray: 6 3; stroke: #6b716e; }
-.e-reset { stroke-dasharray: 1.5 2.5; stroke: #6b716e; }
-.e-reads { stroke-dasharray: 3 3; stroke: #8a908d; stroke-width: 0.8; }
-.tip { fill: #4a4f4c; }
-.legend { font: 9px system-ui, sans-serif; fill: #3c4240; }
-`;
+/** The palettes: the paper one for documents, the screen one taking the page's theme variables. */
+export interface SchematicOptions {
+  readonly palette?: 'paper' | 'screen';
+}
+
+const PAPER = {
+  page: '#ffffff',
+  clusterFill: '#f7f7f4',
+  clusterLine: '#b9bdb8',
+  clusterText: '#4a4f4c',
+  line: '#3c4240',
+  ink: '#1d2327',
+  soft: '#5a605d',
+  edge: '#4a4f4c',
+  edgeSoft: '#6b716e',
+  edgeFaint: '#8a908d',
+  fill: {
+    lever: '#ffffff',
+    term: '#e6ebf0',
+    helper: '#f1f1f1',
+    master: '#efe7d6',
+    transfer: '#e9e4ef',
+    slave: '#dfe9e1',
+    output: '#f2e3de',
+    indicator: '#ffffff',
+  },
+};
+
+/** The designer's theme variables (src/web/styles/theme.css); a fill is a tint of an accent over the panel. */
+const tint = (accent: string, pct: number): string => `color-mix(in srgb, var(${accent}) ${pct}%, var(--lw-panel))`;
+const SCREEN: typeof PAPER = {
+  page: 'var(--lw-panel)',
+  clusterFill: 'var(--lw-sunk)',
+  clusterLine: 'var(--lw-line)',
+  clusterText: 'var(--lw-ink-soft)',
+  line: 'var(--lw-ink-soft)',
+  ink: 'var(--lw-ink)',
+  soft: 'var(--lw-ink-soft)',
+  edge: 'var(--lw-ink-soft)',
+  edgeSoft: 'var(--lw-ink-soft)',
+  edgeFaint: 'var(--lw-line)',
+  fill: {
+    lever: 'var(--lw-panel)',
+    term: tint('--lw-info', 18),
+    helper: 'var(--lw-sunk)',
+    master: tint('--lw-brass', 22),
+    transfer: tint('--lw-x', 18),
+    slave: tint('--lw-ok', 18),
+    output: tint('--lw-cord', 18),
+    indicator: 'var(--lw-panel)',
+  },
+};
+
+/** The style sheet of one palette; `scope` prefixes every rule (the screen drawing's own class). */
+function styleOf(c: typeof PAPER, scope: string): string {
+  const rules: [string, string][] = [
+    ['.page', `fill: ${c.page};`],
+    ['.cluster', `fill: ${c.clusterFill}; stroke: ${c.clusterLine}; stroke-width: 1; stroke-dasharray: 6 3;`],
+    ['.cluster-label', `font: 600 10px system-ui, sans-serif; fill: ${c.clusterText};`],
+    ['.box', `stroke: ${c.line}; stroke-width: 1.2;`],
+    ['.k-operator, .k-clock, .k-reset', `fill: ${c.fill.lever}; stroke-width: 1.8;`],
+    ['.k-term', `fill: ${c.fill.term};`],
+    ['.k-helper', `fill: ${c.fill.helper}; stroke-dasharray: 3 2;`],
+    ['.k-master', `fill: ${c.fill.master};`],
+    ['.k-transfer', `fill: ${c.fill.transfer};`],
+    ['.k-slave', `fill: ${c.fill.slave};`],
+    ['.k-output', `fill: ${c.fill.output};`],
+    ['.k-indicator', `fill: ${c.fill.indicator}; stroke-dasharray: 1.5 2;`],
+    ['.kind', `font: 9px system-ui, sans-serif; fill: ${c.soft}; letter-spacing: 0.4px;`],
+    ['.role', `font: 10px system-ui, sans-serif; fill: ${c.ink};`],
+    ['.pid', `font: 9px ui-monospace, Menlo, Consolas, monospace; fill: ${c.soft};`],
+    ['.half', `stroke: ${c.line}; stroke-width: 0.8; stroke-dasharray: 2 2;`],
+    ['.side', `font: 8px system-ui, sans-serif; fill: ${c.soft};`],
+    ['.glyph', `stroke: ${c.ink}; stroke-width: 1.6; fill: none; stroke-linecap: round;`],
+    ['.pivot', `fill: ${c.ink};`],
+    ['.e', `fill: none; stroke: ${c.edge}; stroke-width: 1;`],
+    ['.e-clock', `stroke-dasharray: 6 3; stroke: ${c.edgeSoft};`],
+    ['.e-reset', `stroke-dasharray: 1.5 2.5; stroke: ${c.edgeSoft};`],
+    ['.e-reads', `stroke-dasharray: 3 3; stroke: ${c.edgeFaint}; stroke-width: 0.8;`],
+    ['.tip', `fill: ${c.edge};`],
+    ['.legend', `font: 9px system-ui, sans-serif; fill: ${c.ink};`],
+  ];
+  const scoped = (sel: string): string =>
+    scope
+      ? sel
+          .split(', ')
+          .map((x) => `${scope} ${x}`)
+          .join(', ')
+      : sel;
+  return ['', ...rules.map(([sel, body]) => `${scoped(sel)} { ${body} }`), ''].join('\n');
+}
+
+/** The class the screen drawing carries, scoping its style sheet. */
+const SCREEN_SCOPE = 'lw-schematic';
 
 function nodeSvg(n: SchematicNode): string {
   const top = n.y - n.height / 2;
@@ -340,18 +449,22 @@ function nodeSvg(n: SchematicNode): string {
   parts.push(svgBox(n.x, n.y, n.width, n.height, `box k-${n.kind}`));
   const lever = n.kind === 'operator' || n.kind === 'clock' || n.kind === 'reset';
   const cx = lever ? n.x - 8 : n.x;
+  const roleLines = (y0: number): string[] => n.lines.map((l, i) => svgText(cx, y0 + i * ROLE_LINE_H, l, 'role'));
   if (n.kind === 'master' || n.kind === 'slave') {
+    // The set side (Q) is the top half of the box, the reset side (Q̄) the bottom half.
     parts.push(`<line x1="${n.x - n.width / 2}" y1="${n.y}" x2="${n.x + n.width / 2}" y2="${n.y}" class="half" />`);
     parts.push(
       svgText(n.x - n.width / 2 + 4, top + 10, 'Q · set', 'side', 'start'),
       svgText(n.x - n.width / 2 + 4, n.y + n.height / 2 - 4, 'Q̄ · reset', 'side', 'start'),
+      svgText(n.x + n.width / 2 - 4, n.y + n.height / 2 - 4, n.id, 'pid', 'end'),
+      svgText(cx, n.y - 6, n.label, 'kind'),
+      ...roleLines(n.y + 12),
     );
-    parts.push(svgText(n.x, n.y - 6, n.id, 'pid'), svgText(n.x, n.y + 13, n.detail, 'detail'));
   } else {
     parts.push(
       svgText(cx, top + 12, n.label, 'kind'),
-      svgText(cx, top + 27, n.id, 'pid'),
-      svgText(cx, top + 41, n.detail, 'detail'),
+      ...roleLines(top + 25),
+      svgText(cx, top + 25 + n.lines.length * ROLE_LINE_H, n.id, 'pid'),
     );
   }
   if (lever) {
@@ -414,12 +527,25 @@ function legendSvg(y: number): string {
     );
     x += 38 + textWidth(words, 9);
   }
+  out.push(
+    svgText(
+      MARGIN,
+      y + 25,
+      'Each box: its kind, what it does (q0 is state bit 0, M0 its next value; a · b both, !a not), and its id in the wiring list.',
+      'legend',
+      'start',
+    ),
+  );
   return out.join('');
 }
 
-/** The schematic of a build as a self-contained SVG (from its layout, when already made). */
-export function schematicSvg(build: Build, layout?: SchematicLayout): string {
+/**
+ * The schematic of a build as a self-contained SVG (from its layout, when already made), in the
+ * paper palette unless told otherwise.
+ */
+export function schematicSvg(build: Build, layout?: SchematicLayout, options: SchematicOptions = {}): string {
   const l = layout ?? schematicLayout(build);
+  const screen = options.palette === 'screen';
   const body: string[] = [];
   for (const c of l.clusters)
     body.push(
@@ -435,7 +561,8 @@ export function schematicSvg(build: Build, layout?: SchematicLayout): string {
     l.height,
     `Schematic — ${f.name}`,
     `${l.nodes.length} parts and ${l.edges.length} cord branches of the lever machine ${f.name}, flowing left to right through one clock.`,
-    STYLE,
+    screen ? styleOf(SCREEN, `.${SCREEN_SCOPE}`) : styleOf(PAPER, ''),
     body,
+    screen ? SCREEN_SCOPE : undefined,
   );
 }

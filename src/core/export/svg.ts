@@ -55,7 +55,7 @@ export function svgBox(cx: number, cy: number, w: number, h: number, cls: string
   return `<rect x="${r1(cx - w / 2)}" y="${r1(cy - h / 2)}" width="${r1(w)}" height="${r1(h)}" rx="${radius}" class="${cls}" />`;
 }
 
-/** The whole SVG document. */
+/** The whole SVG document; `rootClass` (one of our class names) goes on the root element. */
 export function svgDocument(
   width: number,
   height: number,
@@ -63,12 +63,14 @@ export function svgDocument(
   description: string,
   style: string,
   body: readonly string[],
+  rootClass?: string,
 ): string {
   const w = Math.ceil(width);
   const h = Math.ceil(height);
+  const cls = rootClass ? ` class="${rootClass}"` : '';
   return [
     '<?xml version="1.0" encoding="UTF-8"?>',
-    `<svg xmlns="http://www.w3.org/2000/svg" version="1.1" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}">`,
+    `<svg xmlns="http://www.w3.org/2000/svg"${cls} version="1.1" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}">`,
     `<title>${x(title)}</title>`,
     `<desc>${x(description)}</desc>`,
     `<style>${style}</style>`,

@@ -58,9 +58,13 @@ export function savedText(
   return { name: `${base}.xstate.json`, mime: 'application/json', text: JSON.stringify(x.config, null, 2) + '\n' };
 }
 
-/** Hand a text to the browser as a file download. */
-export function download(name: string, mime: string, text: string): void {
-  const url = URL.createObjectURL(new Blob([text], { type: `${mime};charset=utf-8` }));
+/** Hand a text (or bytes) to the browser as a file download. */
+export function download(name: string, mime: string, content: string | Uint8Array): void {
+  const blob =
+    typeof content === 'string'
+      ? new Blob([content], { type: `${mime};charset=utf-8` })
+      : new Blob([content as Uint8Array<ArrayBuffer>], { type: mime });
+  const url = URL.createObjectURL(blob);
   const a = document.createElement('a');
   a.href = url;
   a.download = name;

@@ -8,18 +8,20 @@
  * encoding search); the reader never, its jobs being short.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import type { Diagnostic } from '../../core/index.js';
-import type {
-  BuildSettings,
-  BuildView,
-  ChecksView,
-  CodeRow,
-  EncodingChoice,
-  ExportFile,
-  FromWorker,
-  Reading,
+import { encodingEntry, type Diagnostic } from '../../core/index.js';
+import {
+  DEFAULT_SETTINGS,
+  type BuildSettings,
+  type BuildView,
+  type ChecksView,
+  type CodeRow,
+  type DroppedSetting,
+  type EncodingChoice,
+  type ExportFile,
+  type FromWorker,
+  type Reading,
 } from '../worker/protocol.js';
-import { keepGet, keepSet } from './keep.js';
+import { keepDrop, keepRead, keepSet, parseJson } from './keep.js';
 import { Lane } from './lane.js';
 
 /** Where the live work on the latest text stands. */
@@ -52,6 +54,58 @@ export interface SearchProgress {
 
 /** Restart a builder that has spent this long on a stale revision. */
 const BUILD_PATIENCE_MS = 400;
+
+const isCode = (c: unknown, bits: number): boolean => typeof c === 'string' && c.length === bits && /^[01]*$/.test(c);
+
+/** A stored encoding choice, if it has the shape of one (keep.ts sets anything else aside). */
+export function parseChoice(raw: string): EncodingChoice | undefined {
+  const v = parseJson(raw);
+  if (typeof v !== 'object' || v === null) return undefined;
+  const o = v as Record<string, unknown>;
+  if (typeof o.strategy === 'string') {
+    const e = encodingEntry(o.strategy);
+    return e && !e.needsPins ? { strategy: e.name } : undefined;
+  }
+  const kept = o.kept as Record<string, unknown> | null | undefined;
+  const named: unknown = o.states;
+  if (typeof kept !== 'object' || kept === null || !Array.isArray(named)) return undefined;
+  const { strategy, bits, codes: rawCodes } = kept;
+  if (typeof strategy !== 'string' || typeof bits !== 'number' || !Number.isInteger(bits) || bits < 0) return undefined;
+  const list: unknown[] = named;
+  const states = list.filter((x): x is string => typeof x === 'string');
+  const codes = Array.isArray(rawCodes) ? (rawCodes as unknown[]).filter((c): c is string => isCode(c, bits)) : [];
+  if (states.length !== list.length || codes.length !== states.length || new Set(codes).size !== codes.length)
+    return undefined;
+  return { kept: { strategy, bits, codes }, states };
+}
+
+/** A stored unused-codes choice: 'dont-care' or a state's name. */
+export function parseUnused(raw: string): string | undefined {
+  return /^[A-Za-z0-9_]{1,200}$/.test(raw) || raw === 'dont-care' ? raw : undefined;
+}
+
+/** The `latchwright build` command that builds what these settings build (the defaults left out). */
+export function commandLine(file: string, s: BuildSettings): string {
+  const quote = (w: string): string => (/^[A-Za-z0-9_./-]+$/.test(w) ? w : `'${w.replace(/'/g, `'\\''`)}'`);
+  const words = ['latchwright', 'build', quote(file)];
+  const d = DEFAULT_SETTINGS;
+  if ('strategy' in s.encoding && !('strategy' in d.encoding && d.encoding.strategy === s.encoding.strategy))
+    words.push('--encoding', s.encoding.strategy);
+  if (s.unusedCodes !== undefined) words.push('--unused', quote(s.unusedCodes));
+  if (s.seed !== d.seed) words.push('--seed', String(s.seed));
+  return words.join(' ');
+}
+
+/** True when the settings are the command line's defaults. */
+export function isDefault(s: BuildSettings): boolean {
+  return (
+    'strategy' in s.encoding &&
+    'strategy' in DEFAULT_SETTINGS.encoding &&
+    s.encoding.strategy === DEFAULT_SETTINGS.encoding.strategy &&
+    s.seed === DEFAULT_SETTINGS.seed &&
+    s.unusedCodes === undefined
+  );
+}
 
 export class SynthesisController implements ReactiveController {
   search: Search = Search.none;
@@ -86,15 +140,22 @@ export class SynthesisController implements ReactiveController {
 
   constructor(
     private readonly host: ReactiveControllerHost,
-    /** Told of every new build (the stepper follows it). */
-    private readonly onBuilt: (view: BuildView) => void = () => undefined,
+    private readonly told: {
+      /** Every new build (the stepper follows it). */
+      readonly built?: (view: BuildView) => void;
+      /** Every reading of the latest text. */
+      readonly read?: (reading: Reading) => void;
+      /** Settings the build dropped because they were made for another machine. */
+      readonly dropped?: (dropped: readonly DroppedSetting[]) => void;
+    } = {},
   ) {
     host.addController(this);
-    const kept = keepGet('encoding');
+    const encoding = keepRead('encoding', parseChoice);
+    const unused = keepRead('unused', parseUnused);
     this.settings = {
-      encoding: kept ? (JSON.parse(kept) as EncodingChoice) : { strategy: 'binary' },
-      seed: 1,
-      unusedCodes: 'dont-care',
+      ...DEFAULT_SETTINGS,
+      ...(encoding ? { encoding } : {}),
+      ...(unused !== undefined ? { unusedCodes: unused } : {}),
     };
   }
 
@@ -143,7 +204,30 @@ export class SynthesisController implements ReactiveController {
   /** Build with other codes. */
   choose(choice: EncodingChoice): void {
     this.settings = { ...this.settings, encoding: choice };
-    keepSet('encoding', JSON.stringify(choice));
+    if (
+      'strategy' in choice &&
+      'strategy' in DEFAULT_SETTINGS.encoding &&
+      choice.strategy === DEFAULT_SETTINGS.encoding.strategy
+    )
+      keepDrop('encoding');
+    else keepSet('encoding', JSON.stringify(choice));
+    this.submit(this.text, this.file);
+  }
+
+  /** Back to the command line's defaults (the searched codes, unused codes chosen automatically). */
+  useDefaults(): void {
+    this.settings = DEFAULT_SETTINGS;
+    keepDrop('encoding');
+    keepDrop('unused');
+    this.submit(this.text, this.file);
+  }
+
+  /** Where unused codes go: 'dont-care', a state's name, or undefined for the automatic choice. */
+  setUnused(to: string | undefined): void {
+    const { unusedCodes: _, ...rest } = this.settings;
+    this.settings = to === undefined ? rest : { ...rest, unusedCodes: to };
+    if (to === undefined) keepDrop('unused');
+    else keepSet('unused', to);
     this.submit(this.text, this.file);
   }
 
@@ -201,6 +285,7 @@ export class SynthesisController implements ReactiveController {
       this.reading = m.reading;
       if (m.reading.ok) this.good = m.reading;
       this.shown.reading = m.rev;
+      this.told.read?.(m.reading);
     } else if (m.kind === 'fault') this.fault = m.message;
     this.host.requestUpdate();
   }
@@ -216,7 +301,8 @@ export class SynthesisController implements ReactiveController {
         this.buildProblems = [];
         this.buildProgress = undefined;
         this.shown.built = m.rev;
-        this.onBuilt(m.view);
+        if (m.view.dropped) this.forget(m.view.dropped);
+        this.told.built?.(m.view);
         // The checker's current work, if any, is for an older build.
         if (!this.checker.idle) this.checker.restart();
         // The checker builds again with the codes the builder chose, so a code search is not repeated.
@@ -225,7 +311,10 @@ export class SynthesisController implements ReactiveController {
           rev: m.rev,
           text: this.text,
           file: this.file,
-          settings: { ...this.settings, encoding: { kept: m.view.build.encoding } },
+          settings: {
+            ...this.settings,
+            encoding: { kept: m.view.build.encoding, states: m.view.build.machine.states },
+          },
         });
         break;
       case 'unbuilt':
@@ -239,6 +328,23 @@ export class SynthesisController implements ReactiveController {
         return;
     }
     this.host.requestUpdate();
+  }
+
+  /** Settings the builder dropped for this machine: forget them (it built without them already). */
+  private forget(dropped: readonly DroppedSetting[]): void {
+    let s = this.settings;
+    for (const d of dropped) {
+      if (d.setting === 'encoding') {
+        s = { ...s, encoding: DEFAULT_SETTINGS.encoding };
+        keepDrop('encoding');
+      } else {
+        const { unusedCodes: _, ...rest } = s;
+        s = rest;
+        keepDrop('unused');
+      }
+    }
+    this.settings = s;
+    this.told.dropped?.(dropped);
   }
 
   private fromChecker(m: FromWorker): void {

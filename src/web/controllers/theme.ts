@@ -3,7 +3,7 @@
  * visits. The choice is a `data-theme` attribute on the document; theme.css does the rest.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import { keepGet, keepSet } from './keep.js';
+import { keepRead, keepSet } from './keep.js';
 
 export const Theme = { system: 'system', light: 'light', dark: 'dark' } as const;
 export type Theme = (typeof Theme)[keyof typeof Theme];
@@ -18,8 +18,7 @@ export class ThemeController implements ReactiveController {
   }
 
   hostConnected(): void {
-    const kept = keepGet('theme');
-    this.apply(ORDER.includes(kept as Theme) ? (kept as Theme) : Theme.system);
+    this.apply(keepRead('theme', (raw) => ORDER.find((t) => t === raw)) ?? Theme.system);
   }
 
   /** The next theme in turn: system → light → dark → system. */

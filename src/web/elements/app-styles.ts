@@ -1,4 +1,7 @@
-/** The shell's layout: a header, then the bench and the views side by side (stacked when narrow). */
+/**
+ * The shell's layout: a header, then the bench and the views side by side; stacked when narrow,
+ * and at phone width (about 390 px) the header wraps onto two rows so nothing leaves the screen.
+ */
 import { css } from 'lit';
 
 export const appStyles = css`
@@ -10,8 +13,9 @@ export const appStyles = css`
   }
   header {
     display: flex;
+    flex-wrap: wrap;
     align-items: center;
-    gap: 1rem;
+    gap: 0.4rem 1rem;
     padding: 0.45rem 1rem;
     border-bottom: 2px solid var(--lw-brass);
     background: var(--lw-panel);
@@ -37,17 +41,33 @@ export const appStyles = css`
   .machine {
     font-family: var(--lw-mono);
     font-weight: 700;
+    min-width: 0;
+    overflow-wrap: anywhere;
   }
   .status {
     margin-left: auto;
+    font: inherit;
     font-size: 0.85rem;
     padding: 0.2rem 0.6rem;
     border-radius: 999px;
     border: 1px solid var(--lw-line);
+    background: none;
+    color: var(--lw-ink);
+  }
+  button.status {
+    cursor: pointer;
+  }
+  button.status:hover {
+    text-decoration: underline;
   }
   .status.ok {
     color: var(--lw-ok);
     border-color: var(--lw-ok);
+  }
+  .status.warn {
+    color: var(--lw-warn);
+    border-color: var(--lw-warn);
+    background: var(--lw-mark-warn);
   }
   .status.bad {
     color: var(--lw-error);
@@ -126,14 +146,51 @@ export const appStyles = css`
     background: var(--lw-sunk);
     font-size: 0.85rem;
   }
+  /* Stacked: the page scrolls as a whole; the text and the sketch keep a screenful each. */
   @media (max-width: 60rem) {
+    :host {
+      height: auto;
+      min-height: 100%;
+    }
     main {
-      grid-template-columns: 1fr;
+      grid-template-columns: minmax(0, 1fr);
       grid-template-rows: none;
-      grid-auto-rows: minmax(28rem, auto);
+    }
+    section.bench {
+      height: max(24rem, 70vh);
+    }
+    #view {
+      overflow: visible;
+    }
+    #view.view-sketch {
+      height: max(24rem, 70vh);
     }
     header h1 .soft {
       display: none;
+    }
+  }
+  @media (max-width: 32rem) {
+    header {
+      padding: 0.4rem 0.6rem;
+    }
+    main {
+      padding: 0.5rem 0.5rem 0.6rem;
+    }
+    /* The status gets a row of its own, on one line. */
+    .status {
+      order: 5;
+      flex: 1 1 100%;
+      margin-left: 0;
+      text-align: left;
+      white-space: nowrap;
+      overflow: hidden;
+      text-overflow: ellipsis;
+    }
+    .theme {
+      margin-left: auto;
+    }
+    [role='tab'] {
+      padding: 0.35rem 0.5rem;
     }
   }
 `;

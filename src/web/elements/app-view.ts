@@ -1,6 +1,7 @@
 /** What the shell shows: the views in tab order, and small readings of the controllers' state. */
+import type { Diagnostic } from '../../core/index.js';
 import type { Reading, BuildView } from '../worker/protocol.js';
-import { Search, Work, type SynthesisController } from '../controllers/synthesis.js';
+import { isDefault, Search, Work, type SynthesisController } from '../controllers/synthesis.js';
 
 /** A function that returns its last result while its arguments are the same (by identity). */
 export function remember<A extends readonly unknown[], R>(fn: (...args: A) => R): (...args: A) => R {
@@ -12,7 +13,10 @@ export function remember<A extends readonly unknown[], R>(fn: (...args: A) => R)
   };
 }
 
-/** The views, in our own workshop words. */
+/**
+ * The views, in our own workshop words, in tab order. Adding a view is one entry here and one
+ * renderer in <lw-app>'s table of views (the compiler asks for it).
+ */
 export const VIEWS = [
   { id: 'sketch', label: 'Sketch' },
   { id: 'ledger', label: 'Ledger' },
@@ -22,6 +26,14 @@ export const VIEWS = [
 ] as const;
 
 export type ViewId = (typeof VIEWS)[number]['id'];
+
+/** A stored view name, if it is one of the views. */
+export const parseView = (raw: string): ViewId | undefined => VIEWS.find((v) => v.id === raw)?.id;
+
+/** Diagnostics with the bench's file name where they name no file (so none reads `<input>`). */
+export function withFile(ds: readonly Diagnostic[], file: string): readonly Diagnostic[] {
+  return ds.map((d) => (d.location.file === undefined ? { ...d, location: { ...d.location, file } } : d));
+}
 
 /** The code of every state as written, through the state it was merged into. */
 export function codesByState(r: Reading | undefined, b: BuildView | undefined): Record<string, string> {
@@ -42,8 +54,11 @@ export function litStates(r: Reading | undefined, state: string | null): Set<str
   return new Set(Object.entries(r.merged).flatMap(([orig, reduced]) => (reduced === state ? [orig] : [])));
 }
 
-/** The status line in words, and its tone. */
-export function statusWords(s: SynthesisController): { words: string; tone: 'busy' | 'ok' | 'bad' } {
+/** The status line's tone: busy, all good, warnings to read (amber), or something failing. */
+export type Tone = 'busy' | 'ok' | 'warn' | 'bad';
+
+/** The status line in words, and its tone; `warnings` counts the warnings of the text and the build. */
+export function statusWords(s: SynthesisController, warnings = 0): { words: string; tone: Tone } {
   const searching = s.search === Search.running ? ' · pricing encodings' : '';
   const p = s.buildProgress;
   switch (s.work) {
@@ -66,9 +81,14 @@ export function statusWords(s: SynthesisController): { words: string; tone: 'bus
       return { words: `Internal fault: ${s.fault ?? 'unknown'}`, tone: 'bad' };
     case Work.done: {
       const failing = s.checks?.checks.filter((c) => !c.ok).length ?? 0;
-      return failing === 0
-        ? { words: `Built · every check passes${searching}`, tone: 'ok' }
-        : { words: `Built · ${failing} check${failing === 1 ? '' : 's'} failing${searching}`, tone: 'bad' };
+      const warned = warnings > 0 ? ` · ${warnings} warning${warnings === 1 ? '' : 's'}` : '';
+      const own = isDefault(s.settings) ? '' : ' · own settings';
+      if (failing > 0)
+        return {
+          words: `Built · ${failing} check${failing === 1 ? '' : 's'} failing${warned}${own}${searching}`,
+          tone: 'bad',
+        };
+      return { words: `Built · every check passes${warned}${own}${searching}`, tone: warnings > 0 ? 'warn' : 'ok' };
     }
   }
 }

@@ -1,30 +1,34 @@
 /**
  * <lw-app>: the designer's shell. The bench (the text) on the left; on the right the view
- * chosen from the tabs — sketch, ledger, code book, parts & forces, trial run. It owns the
- * controllers and routes the elements' events to them; it holds no state of its own beyond
- * which view is showing.
+ * chosen from the tabs — sketch, ledger, code book, parts & forces, trial run (VIEWS in
+ * app-view.ts, each drawn by its entry in `views` below). It owns the controllers and routes
+ * the elements' events to them; it holds no state of its own beyond which view is showing.
  */
 import { LitElement, html, nothing } from 'lit';
 import { SourceController } from '../controllers/source.js';
-import { SynthesisController, Work } from '../controllers/synthesis.js';
+import { SynthesisController, Work, isDefault } from '../controllers/synthesis.js';
 import { StepperController } from '../controllers/stepper.js';
 import { ThemeController } from '../controllers/theme.js';
 import { applyEdit, type TextEdit } from '../controllers/table-edit.js';
 import { download, type SaveForm } from '../controllers/files.js';
-import { keepGet, keepSet } from '../controllers/keep.js';
+import { keepRead, keepSet } from '../controllers/keep.js';
+import { printHtml } from '../controllers/print.js';
 import { EXAMPLES } from '../examples.js';
-import type { EncodingChoice } from '../worker/protocol.js';
-import type { Diagnostic, HandAction } from '../../core/index.js';
+import { ALL_DOCUMENTS, PRINT_SHEET, type EncodingChoice } from '../worker/protocol.js';
+import { formatDiagnostic, type Diagnostic, type HandAction } from '../../core/index.js';
 import { shared } from '../styles/shared.js';
 import { appStyles } from './app-styles.js';
-import { VIEWS, codesByState, litStates, remember, statusWords, type ViewId } from './app-view.js';
+import { VIEWS, codesByState, litStates, parseView, remember, statusWords, withFile, type ViewId } from './app-view.js';
 import type { LwBench } from './bench.js';
+import type { Fix } from './parts.js';
+import type { LwNotationCard } from './notation-card.js';
 import './bench.js';
 import './diagram.js';
 import './state-table.js';
 import './codes.js';
 import './parts.js';
 import './stepper.js';
+import './notation-card.js';
 
 type Detail<T> = CustomEvent<T>;
 
@@ -33,19 +37,48 @@ export class LwApp extends LitElement {
 
   private readonly theme = new ThemeController(this);
   private readonly stepper = new StepperController(this);
-  private readonly synth = new SynthesisController(this, (v) => this.stepper.follow(v.build, v.profile));
+  private readonly synth = new SynthesisController(this, {
+    built: (v) => this.stepper.follow(v.build, v.profile, this.synth.good?.machine?.never ?? []),
+    read: (r) => {
+      if (r.name !== undefined) this.source.followName(r.name);
+    },
+    dropped: (ds) => this.source.tell(`Settings changed for this machine: ${ds.map((d) => d.words).join('; ')}.`),
+  });
   private readonly source = new SourceController(this, (text, file) => this.synth.submit(text, file));
   // Derived values keep their identity while their inputs do, so elements redraw only on change.
   private readonly problems = remember(
-    (a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[]): readonly Diagnostic[] => [...(a ?? []), ...b],
+    (a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[], file: string): readonly Diagnostic[] =>
+      withFile([...(a ?? []), ...b], file),
   );
+  /** The warnings of the text and of the build, each once (a build repeats the warnings of its reading). */
   private readonly warnings = remember(
-    (a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[] | undefined): readonly Diagnostic[] =>
-      [...(a ?? []), ...(b ?? [])].filter((d) => d.severity === 'warning'),
+    (
+      a: readonly Diagnostic[] | undefined,
+      b: readonly Diagnostic[] | undefined,
+      file: string,
+    ): readonly Diagnostic[] => {
+      const seen = new Set<string>();
+      return withFile(
+        [...(a ?? []), ...(b ?? [])].filter((d) => d.severity === 'warning'),
+        file,
+      ).filter((d) => {
+        const key = formatDiagnostic(d);
+        return !seen.has(key) && (seen.add(key), true);
+      });
+    },
   );
   private readonly codes = remember(codesByState);
   private readonly lit = remember(litStates);
-  private view: ViewId = VIEWS.find((v) => v.id === keepGet('view'))?.id ?? 'sketch';
+  private view: ViewId = keepRead('view', parseView) ?? 'sketch';
+
+  /** How each view is drawn: one entry per view of VIEWS. */
+  private readonly views: { readonly [V in ViewId]: () => unknown } = {
+    sketch: () => this.sketchView(),
+    ledger: () => this.ledgerView(),
+    codes: () => this.codesView(),
+    parts: () => this.partsView(),
+    trial: () => this.trialView(),
+  };
 
   override connectedCallback(): void {
     super.connectedCallback();
@@ -60,35 +93,16 @@ export class LwApp extends LitElement {
   override render() {
     const s = this.synth;
     const reading = s.reading;
-    const diagnostics = this.problems(reading?.diagnostics, s.buildProblems);
-    const status = statusWords(s);
-    return html`<header>
-        <h1>
-          <span class="mark" aria-hidden="true"></span>Latchwright <span class="soft">lever machine designer</span>
-        </h1>
-        <span class="machine">${s.good?.machine?.name ?? ''}</span>
-        <span class="status ${status.tone}" role="status" data-work=${s.work}>${status.words}</span>
-        ${s.buildProgress && s.work === Work.building ? html`<button @click=${() => s.stopBuild()} aria-label="Stop the code search of this build">Stop search</button>` : nothing}
-        <button
-          class="theme"
-          @click=${() => this.theme.next()}
-          aria-label=${`Colour theme: ${this.theme.theme}. Change it`}
-        >
-          ${
-            this.theme.theme === 'system'
-              ? 'Theme: system'
-              : this.theme.theme === 'light'
-                ? 'Theme: light'
-                : 'Theme: dark'
-          }
-        </button>
-      </header>
+    const file = this.source.file;
+    const diagnostics = this.problems(reading?.diagnostics, s.buildProblems, file);
+    return html`${this.header()}
       <main>
         <section class="bench" aria-label="Bench: the machine's text">
           <h2 class="pane-title">Bench</h2>
           <lw-bench
             .text=${this.source.text}
-            .file=${this.source.file}
+            .file=${file}
+            ?named=${this.source.named}
             ?dirty=${this.source.dirty}
             .diagnostics=${diagnostics}
             ?settled=${s.shown.reading >= 0 && s.work !== Work.reading}
@@ -96,10 +110,13 @@ export class LwApp extends LitElement {
             ?canRestore=${this.source.canRestore}
             @edit=${(e: Detail<{ text: string }>) => this.source.edit(e.detail.text)}
             @reveal=${this.onReveal}
+            @new=${() => this.source.newMachine()}
             @open-file=${(e: Detail<{ file: File }>) => void this.source.open(e.detail.file)}
             @save=${(e: Detail<{ form: SaveForm }>) => this.source.save(e.detail.form)}
+            @rename=${(e: Detail<{ name: string }>) => this.source.rename(e.detail.name)}
             @example=${(e: Detail<{ index: number }>) => this.source.useExample(EXAMPLES[e.detail.index])}
             @copy-link=${this.onCopyLink}
+            @notation=${() => this.card()?.show()}
             @restore=${() => this.source.restore()}
             @dismiss=${() => this.source.say(undefined)}
           ></lw-bench>
@@ -121,10 +138,49 @@ export class LwApp extends LitElement {
             )}
           </div>
           <div id="view" role="tabpanel" aria-labelledby=${`tab-${this.view}`} class=${`view-${this.view}`}>
-            ${this.viewBody()}
+            ${this.staleNote()}${this.views[this.view]()}
           </div>
         </section>
-      </main>`;
+      </main>
+      <lw-notation-card
+        @use-example=${(e: Detail<{ text: string }>) =>
+          this.source.startFrom(e.detail.text, "The notation card's example: write over it.")}
+      ></lw-notation-card>`;
+  }
+
+  private header() {
+    const s = this.synth;
+    const warnings = this.warnings(s.good?.diagnostics, s.built?.diagnostics, this.source.file);
+    const status = statusWords(s, warnings.length);
+    const goes = status.tone === 'warn' || status.tone === 'bad';
+    return html`<header>
+      <h1><span class="mark" aria-hidden="true"></span>Latchwright <span class="soft">lever machine designer</span></h1>
+      <span class="machine">${s.good?.machine?.name ?? ''}</span>
+      ${
+        goes
+          ? html`<button
+              class="status ${status.tone}"
+              role="status"
+              data-work=${s.work}
+              data-tone=${status.tone}
+              @click=${() => this.showFindings()}
+              title="Show the failing checks and the warnings"
+            >
+              ${status.words}
+            </button>`
+          : html`<span class="status ${status.tone}" role="status" data-work=${s.work} data-tone=${status.tone}
+              >${status.words}</span
+            >`
+      }
+      ${s.buildProgress && s.work === Work.building ? html`<button @click=${() => s.stopBuild()} aria-label="Stop the code search of this build">Stop search</button>` : nothing}
+      <button
+        class="theme"
+        @click=${() => this.theme.next()}
+        aria-label=${`Colour theme: ${this.theme.theme}. Change it`}
+      >
+        Theme: ${this.theme.theme}
+      </button>
+    </header>`;
   }
 
   protected override updated(): void {
@@ -140,78 +196,117 @@ export class LwApp extends LitElement {
     if (this.view === 'parts') s.drawSchematic();
   }
 
-  private viewBody() {
+  /** While the text has errors the views keep the last machine that read, marked as such. */
+  private get stale(): boolean {
+    return this.synth.reading !== undefined && !this.synth.reading.ok;
+  }
+
+  private staleNote() {
+    return this.stale && this.synth.good
+      ? html`<p class="stale" role="note">
+          Showing the last version that read without errors; fix the problems on the bench to update.
+        </p>`
+      : nothing;
+  }
+
+  private sketchView() {
+    const r = this.synth.good;
+    return r?.layout
+      ? html`<lw-diagram
+          class=${this.stale ? 'stale' : ''}
+          .layout=${r.layout}
+          .codes=${this.codes(r, this.synth.built)}
+          .lit=${this.lit(r, this.stepper.reading?.state ?? null)}
+          @reveal=${this.onReveal}
+        ></lw-diagram>`
+      : html`<p class="soft">The sketch appears when the machine reads without errors.</p>`;
+  }
+
+  private ledgerView() {
     const s = this.synth;
-    // While the text has errors the views keep the last machine that read, marked as such.
-    const stale = s.reading !== undefined && !s.reading.ok;
     const r = s.good;
-    const b = s.built;
-    const codes = this.codes(r, b);
-    const note =
-      stale && r
-        ? html`<p class="stale" role="note">
-            Showing the last version that read without errors; fix the problems on the bench to update.
-          </p>`
-        : nothing;
-    switch (this.view) {
-      case 'sketch':
-        return r?.layout
-          ? html`${note}<lw-diagram
-                class=${stale ? 'stale' : ''}
-                .layout=${r.layout}
-                .codes=${codes}
-                .lit=${this.lit(r, this.stepper.reading?.state ?? null)}
-                @reveal=${this.onReveal}
-              ></lw-diagram>`
-          : html`<p class="soft">The sketch appears when the machine reads without errors.</p>`;
-      case 'ledger':
-        return html`${note}<lw-state-table
-            .machine=${r?.machine}
-            ?frozen=${stale || s.work === Work.reading}
-            .text=${this.source.text}
-            .codes=${codes}
-            .merged=${r?.merged ?? {}}
-            @reveal=${this.onReveal}
-            @text-edit=${(e: Detail<{ edit: TextEdit }>) => this.source.edit(applyEdit(this.source.text, e.detail.edit))}
-          ></lw-state-table>`;
-      case 'codes':
-        return html`${note}<lw-codes
-            .built=${b}
-            .rows=${s.rows}
-            ?rowsCurrent=${s.rowsCurrent}
-            .search=${s.search}
-            .progress=${s.progress}
-            .choice=${s.settings.encoding}
-            @compare=${() => s.compare()}
-            @cancel-search=${() => s.cancelSearch()}
-            @choose=${(e: Detail<{ choice: EncodingChoice }>) => s.choose(e.detail.choice)}
-          ></lw-codes>`;
-      case 'parts':
-        return html`${note}<lw-parts
-            .built=${b}
-            .checks=${s.checks && s.shown.checks === s.shown.built ? s.checks : undefined}
-            .schematic=${s.shown.schematic === s.shown.built ? s.schematic : undefined}
-            .warnings=${this.warnings(r?.diagnostics, b?.diagnostics)}
-            ?checking=${s.work === Work.checking}
-            ?exportable=${s.work === Work.done}
-            @export=${this.onExport}
-            @replay=${(e: Detail<{ actions: HandAction[]; label: string }>) => {
-              this.stepper.replay(e.detail.actions, e.detail.label);
-              this.show('trial');
-            }}
-          ></lw-parts>`;
-      case 'trial':
-        return html`${note}<lw-stepper
-            .reading=${this.stepper.reading}
-            .samples=${this.stepper.samples}
-            .alarms=${this.stepper.alarms}
-            .clocks=${this.stepper.clocks}
-            ?canUndo=${this.stepper.canUndo}
-            @step=${this.onStep}
-          ></lw-stepper>`;
-      default:
-        return nothing;
-    }
+    return html`<lw-state-table
+      .machine=${r?.machine}
+      ?frozen=${this.stale || s.work === Work.reading}
+      .text=${this.source.text}
+      .codes=${this.codes(r, s.built)}
+      .merged=${r?.merged ?? {}}
+      @reveal=${this.onReveal}
+      @text-edit=${(e: Detail<{ edit: TextEdit }>) => this.source.edit(applyEdit(this.source.text, e.detail.edit))}
+    ></lw-state-table>`;
+  }
+
+  private codesView() {
+    const s = this.synth;
+    return html`<lw-codes
+      .built=${s.built}
+      .rows=${s.rows}
+      ?rowsCurrent=${s.rowsCurrent}
+      .search=${s.search}
+      .progress=${s.progress}
+      .settings=${s.settings}
+      .states=${s.good?.machine?.states.map((x) => x.name) ?? []}
+      .file=${this.source.file}
+      @compare=${() => s.compare()}
+      @cancel-search=${() => s.cancelSearch()}
+      @choose=${(e: Detail<{ choice: EncodingChoice }>) => s.choose(e.detail.choice)}
+      @unused=${(e: Detail<{ to: string | undefined }>) => s.setUnused(e.detail.to)}
+    ></lw-codes>`;
+  }
+
+  private partsView() {
+    const s = this.synth;
+    const r = s.good;
+    return html`<lw-parts
+      .built=${s.built}
+      .checks=${s.checks && s.shown.checks === s.shown.built ? s.checks : undefined}
+      .schematic=${s.shown.schematic === s.shown.built ? s.schematic : undefined}
+      .warnings=${this.warnings(r?.diagnostics, s.built?.diagnostics, this.source.file)}
+      .fixes=${this.fixes()}
+      ?checking=${s.work === Work.checking}
+      ?exportable=${s.work === Work.done}
+      @export=${this.onExport}
+      @print=${this.onPrint}
+      @fix=${(e: Detail<{ id: Fix['id'] }>) => this.applyFix(e.detail.id)}
+      @replay=${(e: Detail<{ actions: HandAction[]; label: string }>) => {
+        this.stepper.replay(e.detail.actions, e.detail.label);
+        this.show('trial');
+      }}
+    ></lw-parts>`;
+  }
+
+  private trialView() {
+    const st = this.stepper;
+    return html`<lw-stepper
+      .reading=${st.reading}
+      .samples=${st.samples}
+      .alarms=${st.alarms}
+      .clocks=${st.clocks}
+      .impossible=${st.impossible}
+      ?canUndo=${st.canUndo}
+      @step=${this.onStep}
+    ></lw-stepper>`;
+  }
+
+  /** What the failing checks offer to do about themselves. */
+  private fixes(): Fix[] {
+    const s = this.synth;
+    const failing = s.checks?.checks.filter((c) => !c.ok) ?? [];
+    const start = s.good?.machine?.start;
+    const out: Fix[] = [];
+    if (failing.some((c) => c.name === 'recovery') && start !== undefined && s.settings.unusedCodes !== start)
+      out.push({ id: 'unused-to-start', check: 'recovery', label: 'Send unused codes to the start state' });
+    if (failing.length > 0 && !isDefault(s.settings))
+      out.push({ id: 'defaults', label: 'Use the searched codes (the command line’s defaults)' });
+    return out;
+  }
+
+  private applyFix(id: Fix['id']): void {
+    const s = this.synth;
+    if (id === 'unused-to-start') {
+      const start = s.good?.machine?.start;
+      if (start !== undefined) s.setUnused(start);
+    } else s.useDefaults();
   }
 
   private show(v: ViewId): void {
@@ -220,8 +315,21 @@ export class LwApp extends LitElement {
     this.requestUpdate();
   }
 
-  private onReveal = (e: Detail<{ line: number; column: number }>): void => {
-    this.renderRoot.querySelector<LwBench>('lw-bench')?.reveal(e.detail.line, e.detail.column);
+  /** The status was clicked: show the failing checks and warnings (Parts & forces). */
+  private showFindings(): void {
+    this.show('parts');
+    void this.updateComplete.then(() => {
+      const parts = this.renderRoot.querySelector('lw-parts');
+      void parts?.updateComplete.then(() => parts.showFindings());
+    });
+  }
+
+  private card(): LwNotationCard | null {
+    return this.renderRoot.querySelector('lw-notation-card');
+  }
+
+  private onReveal = (e: Detail<{ line: number; column: number; select?: boolean }>): void => {
+    this.renderRoot.querySelector<LwBench>('lw-bench')?.reveal(e.detail.line, e.detail.column, e.detail.select ?? true);
   };
 
   private onStep = (e: Detail<{ do: string; input?: string; value?: 0 | 1 }>): void => {
@@ -233,13 +341,22 @@ export class LwApp extends LitElement {
     else if (d.do === 'undo') this.stepper.undo();
   };
 
+  private failed = (what: string) => (err: unknown) =>
+    this.source.say({ tone: 'problem', words: `No ${what}: ${err instanceof Error ? err.message : String(err)}` });
+
   private onExport = (e: Detail<{ doc: string }>): void => {
+    const doc = e.detail.doc;
     this.synth
-      .exportDoc(e.detail.doc)
-      .then((f) => download(f.name, f.mime, f.text))
-      .catch((err: unknown) =>
-        this.source.say({ tone: 'problem', words: `No document: ${err instanceof Error ? err.message : String(err)}` }),
-      );
+      .exportDoc(doc === 'all' ? ALL_DOCUMENTS : doc)
+      .then((f) => download(f.name, f.mime, 'bytes' in f ? f.bytes : f.text))
+      .catch(this.failed(doc === 'all' ? 'archive' : 'document'));
+  };
+
+  private onPrint = (): void => {
+    this.synth
+      .exportDoc(PRINT_SHEET)
+      .then((f) => printHtml('text' in f ? f.text : ''))
+      .catch(this.failed('build sheet to print'));
   };
 
   private onCopyLink = (): void => {
@@ -266,7 +383,15 @@ export class LwApp extends LitElement {
   };
 
   private onKey = (e: KeyboardEvent): void => {
-    if (this.view !== 'trial') return;
+    // Ctrl+/ (⌘/ on a Mac) opens the notation card from anywhere, the text included.
+    if ((e.ctrlKey || e.metaKey) && !e.altKey && (e.key === '/' || e.code === 'Slash')) {
+      e.preventDefault();
+      const card = this.card();
+      if (card?.open) card.close();
+      else card?.show();
+      return;
+    }
+    if (this.view !== 'trial' || this.card()?.open) return;
     const target = e.composedPath()[0];
     if (target instanceof HTMLElement && (target.closest('textarea, input, select') || target.isContentEditable))
       return;

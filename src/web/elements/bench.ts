@@ -1,8 +1,9 @@
 /**
- * <lw-bench>: where the machine is written — file and example actions, the shareable link,
+ * <lw-bench>: where the machine is written — New, file and example actions, the shareable
+ * link, the notation card, the file name (follows the machine's name until typed over),
  * notices, the text editor and its problem list.
- * Events: `edit` {text} (from the editor), `reveal`, `open-file` {file}, `save` {form},
- * `example` {index}, `copy-link`, `restore`, `dismiss`.
+ * Events: `edit` {text} (from the editor), `reveal`, `new`, `open-file` {file}, `save` {form},
+ * `example` {index}, `copy-link`, `notation`, `rename` {name}, `restore`, `dismiss`.
  */
 import { LitElement, css, html, nothing } from 'lit';
 import type { Diagnostic } from '../../core/index.js';
@@ -18,6 +19,7 @@ export class LwBench extends LitElement {
   static override properties = {
     text: { attribute: false },
     file: { type: String },
+    named: { type: Boolean },
     dirty: { type: Boolean },
     diagnostics: { attribute: false },
     settled: { type: Boolean },
@@ -26,6 +28,8 @@ export class LwBench extends LitElement {
   };
   declare text: string;
   declare file: string;
+  /** The user named the file (it no longer follows the machine's name). */
+  declare named: boolean;
   declare dirty: boolean;
   declare diagnostics: readonly Diagnostic[];
   declare settled: boolean;
@@ -36,6 +40,7 @@ export class LwBench extends LitElement {
     super();
     this.text = '';
     this.file = '';
+    this.named = false;
     this.dirty = false;
     this.diagnostics = [];
     this.settled = true;
@@ -60,10 +65,20 @@ export class LwBench extends LitElement {
         align-items: center;
       }
       .file {
-        font-family: var(--lw-mono);
+        display: flex;
+        align-items: center;
+        gap: 0.25rem;
+        margin-left: auto;
+        min-width: 0;
         font-size: 0.85rem;
         color: var(--lw-ink-soft);
-        margin-left: auto;
+      }
+      .file input {
+        font-family: var(--lw-mono);
+        font-size: 0.85rem;
+        width: 12rem;
+        max-width: 100%;
+        min-width: 6rem;
       }
       lw-editor {
         flex: 1;
@@ -103,6 +118,7 @@ export class LwBench extends LitElement {
   override render() {
     const n = this.notice;
     return html`<div class="tools" role="toolbar" aria-label="Machine file">
+        <button @click=${() => emit(this, 'new', {})} aria-label="New machine from a short template">New</button>
         <button
           @click=${() => this.renderRoot.querySelector<HTMLInputElement>('input[type=file]')?.click()}
           aria-label="Open a machine file: text form, JSON form or xstate configuration"
@@ -129,9 +145,28 @@ export class LwBench extends LitElement {
         <button @click=${() => emit(this, 'copy-link', {})} aria-label="Copy a link that carries this machine">
           Copy link
         </button>
-        <span class="file" title=${this.dirty ? 'changed since it was last saved to a file' : 'saved'}
-          >${this.file}${this.dirty ? ' •' : ''}</span
+        <button
+          @click=${() => emit(this, 'notation', {})}
+          aria-label="Notation card: every statement of the text form (Ctrl+/)"
+          aria-keyshortcuts="Control+Slash"
         >
+          Notation
+        </button>
+        <label
+          class="file"
+          title=${this.named ? 'the name you gave the file' : "follows the machine's name until you type another"}
+        >
+          <span class="visually-hidden">File name</span>
+          <input
+            .value=${this.file}
+            spellcheck="false"
+            autocapitalize="off"
+            aria-label=${`File name${this.named ? '' : " (follows the machine's name)"}${this.dirty ? ', changed since saved' : ''}`}
+            @change=${(e: Event) => emit(this, 'rename', { name: (e.target as HTMLInputElement).value })}
+            @keydown=${(e: KeyboardEvent) => e.key === 'Enter' && (e.target as HTMLInputElement).blur()}
+          />
+          <span aria-hidden="true" title="changed since it was last saved to a file">${this.dirty ? '•' : ''}</span>
+        </label>
       </div>
       ${
         n
@@ -155,9 +190,9 @@ export class LwBench extends LitElement {
       <lw-problems .diagnostics=${this.diagnostics} ?settled=${this.settled}></lw-problems>`;
   }
 
-  /** Show a line and column of the text. */
-  reveal(line: number, column: number): void {
-    this.renderRoot.querySelector<LwEditor>('lw-editor')?.reveal(line, column);
+  /** Show a line and column of the text (selecting the word there unless told not to). */
+  reveal(line: number, column: number, select = true): void {
+    this.renderRoot.querySelector<LwEditor>('lw-editor')?.reveal(line, column, select);
   }
 
   private onFile = (e: Event): void => {

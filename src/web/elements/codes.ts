@@ -1,13 +1,14 @@
 /**
- * <lw-codes>: the code book — the state codes in use, every encoding priced side by side
- * (bits, latches, gates, levers, capstans, weights, cords, weighted cost), the set/reset and
- * output equations of the build, and the forbidden-input guard's report.
- * Events: `compare`, `cancel-search`, `choose` {choice}.
+ * <lw-codes>: the code book — how the build is made (its codes and where unused codes go,
+ * with the command line that builds the same machine), every encoding priced side by side
+ * (bits, latches, gates, levers, capstans, weights, cords, weighted cost), the state codes in
+ * use, the set/reset and output equations of the build, and the forbidden-input guard's report.
+ * Events: `compare`, `cancel-search`, `choose` {choice}, `unused` {to}.
  */
 import { LitElement, css, html, nothing } from 'lit';
 import { encodingEntry, ENCODING_REGISTRY, type EncodeStrategy } from '../../core/index.js';
-import type { BuildView, CodeRow, EncodingChoice } from '../worker/protocol.js';
-import type { Search, SearchProgress } from '../controllers/synthesis.js';
+import { DEFAULT_SETTINGS, type BuildSettings, type BuildView, type CodeRow } from '../worker/protocol.js';
+import { commandLine, type Search, type SearchProgress } from '../controllers/synthesis.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
 
@@ -25,14 +26,20 @@ export class LwCodes extends LitElement {
     rowsCurrent: { type: Boolean },
     search: { type: String },
     progress: { attribute: false },
-    choice: { attribute: false },
+    settings: { attribute: false },
+    states: { attribute: false },
+    file: { type: String },
   };
   declare built: BuildView | undefined;
   declare rows: readonly CodeRow[];
   declare rowsCurrent: boolean;
   declare search: Search;
   declare progress: SearchProgress | undefined;
-  declare choice: EncodingChoice;
+  declare settings: BuildSettings;
+  /** The machine's states as written (where unused codes may be sent). */
+  declare states: readonly string[];
+  /** The bench's file name, for the command line that builds the same. */
+  declare file: string;
 
   constructor() {
     super();
@@ -41,7 +48,9 @@ export class LwCodes extends LitElement {
     this.rowsCurrent = false;
     this.search = 'none';
     this.progress = undefined;
-    this.choice = { strategy: 'binary' };
+    this.settings = DEFAULT_SETTINGS;
+    this.states = [];
+    this.file = 'machine.lw';
   }
 
   static override styles = [
@@ -84,6 +93,31 @@ export class LwCodes extends LitElement {
       }
       .wide {
         overflow-x: auto;
+        max-width: 100%;
+      }
+      .panel {
+        min-width: 0;
+      }
+      .how {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.5rem 1.2rem;
+        align-items: end;
+      }
+      .how label {
+        display: grid;
+        gap: 0.15rem;
+        font-size: 0.85rem;
+        color: var(--lw-ink-soft);
+        min-width: 0;
+        max-width: 100%;
+      }
+      .how select {
+        width: 100%;
+        max-width: 100%;
+      }
+      .cli code {
+        overflow-wrap: anywhere;
       }
       .wide th,
       .wide td {
@@ -98,11 +132,12 @@ export class LwCodes extends LitElement {
   ];
 
   override render() {
-    const using = 'kept' in this.choice ? this.choice.kept.strategy : this.choice.strategy;
-    return html`<section class="panel" aria-label="Encodings side by side">
+    const choice = this.settings.encoding;
+    const using = 'kept' in choice ? choice.kept.strategy : choice.strategy;
+    return html`${this.howSection()}
+      <section class="panel" aria-label="Encodings side by side">
         <h2>Encodings side by side</h2>
         <div class="bar">
-          ${this.picker()}
           ${
             this.search === 'running'
               ? html`<button @click=${() => emit(this, 'cancel-search', {})}>Stop pricing</button>${this.progressBar()}`
@@ -173,16 +208,55 @@ export class LwCodes extends LitElement {
       : html`<p class="soft">Codes and equations appear once the machine builds.</p>`;
   }
 
+  /** How the build is made: its codes, where unused codes go, and the command line that builds the same machine. */
+  private howSection() {
+    return html`<section class="panel" aria-label="How the build is made">
+      <h2>How the build is made</h2>
+      <div class="how">${this.picker()} ${this.unusedPicker()}</div>
+      <p class="cli soft">
+        ${
+          'kept' in this.settings.encoding
+            ? html`Codes kept from the comparison have no command-line option: to build the same from the command line,
+                pin them in the text with <code>code</code> on each state.`
+            : html`The same build from the command line: <code data-cli>${commandLine(this.file, this.settings)}</code>`
+        }
+      </p>
+    </section>`;
+  }
+
   /** The encoding the build uses: every registered encoding that needs no pinned codes, or the codes kept from a comparison. */
   private picker() {
+    const choice = this.settings.encoding;
+    const dflt = 'strategy' in DEFAULT_SETTINGS.encoding ? DEFAULT_SETTINGS.encoding.strategy : 'auto';
     return html`<label
-      >Codes for the build
+      >Codes
       <select
         aria-label="Encoding used for the build"
         @change=${(e: Event) => emit(this, 'choose', { choice: { strategy: (e.target as HTMLSelectElement).value as EncodeStrategy } })}
       >
-        ${PICKABLE.map((e) => html`<option value=${e.name} ?selected=${'strategy' in this.choice && this.choice.strategy === e.name}>${e.label}</option>`)}
-        ${'kept' in this.choice ? html`<option selected value="auto">kept from the comparison (${this.choice.kept.strategy})</option>` : nothing}
+        ${PICKABLE.map((e) => html`<option value=${e.name} ?selected=${'strategy' in choice && choice.strategy === e.name}>${e.label}${e.name === dflt ? ' (default)' : ''}</option>`)}
+        ${'kept' in choice ? html`<option selected value="kept">kept from the comparison (${choice.kept.strategy})</option>` : nothing}
+      </select></label
+    >`;
+  }
+
+  /** Where unused codes go: the automatic choice (the default), free, or a state. */
+  private unusedPicker() {
+    const to = this.settings.unusedCodes;
+    const states =
+      to !== undefined && to !== 'dont-care' && !this.states.includes(to) ? [...this.states, to] : this.states;
+    return html`<label
+      >Unused codes
+      <select
+        aria-label="Where unused state codes go"
+        @change=${(e: Event) => {
+          const v = (e.target as HTMLSelectElement).value;
+          emit(this, 'unused', { to: v === '' ? undefined : v });
+        }}
+      >
+        <option value="" ?selected=${to === undefined}>automatic (default): free unless that could lock up</option>
+        <option value="dont-care" ?selected=${to === 'dont-care'}>free (don't care)</option>
+        ${states.map((s) => html`<option value=${s} ?selected=${to === s}>go to ${s}</option>`)}
       </select></label
     >`;
   }
@@ -244,7 +318,7 @@ export class LwCodes extends LitElement {
                 <td>
                   <button
                     ?disabled=${!this.rowsCurrent}
-                    @click=${() => emit(this, 'choose', { choice: { kept } })}
+                    @click=${() => emit(this, 'choose', { choice: { kept, states: r.states } })}
                     aria-label=${`Build with the ${label(r.strategy)} codes`}
                   >
                     Use

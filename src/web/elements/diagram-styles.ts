@@ -18,6 +18,10 @@ export const diagramStyles = css`
   .legend {
     font-size: 0.8rem;
   }
+  .note {
+    margin: 0 0 0.4rem;
+    font-size: 0.82rem;
+  }
   svg {
     flex: 1;
     min-height: 260px;

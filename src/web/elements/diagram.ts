@@ -1,19 +1,35 @@
 /**
  * <lw-diagram>: the sketch — the state diagram laid out by dagre (in the worker) and drawn with
  * d3, with zoom and pan. Each state shows its name, its outputs and its code; while stepping,
- * the state the machine is in is lit. Clicking a state (or pressing Enter on it) jumps to its
- * line in the text; clicking a transition label jumps to the transition.
+ * the state the machine is in is lit. Clicking a state (or pressing Enter on it) puts the
+ * caret on its line in the text and changes nothing there (the key press goes no further);
+ * clicking a transition label does the same for the transition. Fit never shrinks the text
+ * below MIN_LABEL_PX: a sketch too big for the view at that size is shown from its start
+ * state, and the rest is a drag (or a swipe) away.
  * Events: `reveal` {line, column}.
  */
-import { LitElement, html, type PropertyValues } from 'lit';
+import { LitElement, html, nothing, type PropertyValues } from 'lit';
 import { curveBasis, line, select, zoom, zoomIdentity, type Selection, type ZoomBehavior } from 'd3';
 import type { DiagramLayout, LaidEdge, LaidNode } from '../diagram/layout.js';
 import { LINE_H } from '../diagram/layout.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
 import { emit } from './emit.js';
+import { touchScreen } from '../touch.js';
 
 type G = Selection<SVGGElement, unknown, null, undefined>;
+
+/** The sketch's text is 12 px at scale 1; Fit keeps it at least this big on screen. */
+export const MIN_LABEL_PX = 10;
+const TEXT_PX = 12;
+
+/** Enter or Space on a focused sketch item: find it in the text, and let the key do nothing else. */
+function onActivate(ev: KeyboardEvent, line: number | undefined, reveal: (line: number | undefined) => void): void {
+  if (ev.key !== 'Enter' && ev.key !== ' ') return;
+  ev.preventDefault();
+  ev.stopPropagation();
+  reveal(line);
+}
 
 export class LwDiagram extends LitElement {
   static override properties = {
@@ -29,6 +45,8 @@ export class LwDiagram extends LitElement {
 
   private zoomer: ZoomBehavior<SVGSVGElement, unknown> | undefined;
   private shape = '';
+  /** Fit could not show everything at a readable size (the view shows part of the sketch). */
+  private partial = false;
 
   constructor() {
     super();
@@ -41,12 +59,25 @@ export class LwDiagram extends LitElement {
 
   override render() {
     const n = this.layout?.nodes.length ?? 0;
+    const touch = touchScreen();
+    const hint = touch
+      ? 'drag to move · pinch to zoom · tap a state to find it in the text'
+      : 'drag to pan · wheel to zoom · click a state to find it in the text';
     return html`<div class="tools" role="toolbar" aria-label="Sketch view">
-        <button @click=${() => this.fit()} aria-label="Fit the whole sketch in view">Fit</button>
+        <button @click=${() => this.fit()} aria-label="Fit the sketch in view, as far as its text stays readable">
+          Fit
+        </button>
         <button @click=${() => this.scaleBy(1.25)} aria-label="Zoom in">+</button>
         <button @click=${() => this.scaleBy(0.8)} aria-label="Zoom out">−</button>
-        <span class="soft legend">drag to pan · wheel to zoom · click a state to find it in the text</span>
+        <span class="soft legend" data-hint=${touch ? 'touch' : 'pointer'}>${hint}</span>
       </div>
+      ${
+        this.partial || this.layout?.method === 'by-distance'
+          ? html`<p class="soft note" role="note">
+              ${this.layout?.method === 'by-distance' ? `A large machine (${n} states): laid out in columns by clocks from the start state. ` : ''}${this.partial ? `Too big to show whole at a readable size: ${touch ? 'drag' : 'drag or scroll'} to see the rest.` : ''}
+            </p>`
+          : nothing
+      }
       <svg role="group" aria-label=${`State sketch with ${n} states`}>
         <defs>
           <marker
@@ -96,17 +127,38 @@ export class LwDiagram extends LitElement {
     return select(this.renderRoot.querySelector('svg') as SVGSVGElement);
   }
 
-  /** Scale and centre the whole layout in the view. */
+  /**
+   * Scale and centre the whole layout in the view — but never below MIN_LABEL_PX text: then the
+   * view shows the sketch from its start state at that size, and the rest is panned to.
+   */
   fit(): void {
     const l = this.layout;
     const el = this.renderRoot.querySelector('svg');
     if (!l || !el || !this.zoomer) return;
     const w = el.clientWidth || 600;
     const h = el.clientHeight || 400;
-    const k = Math.min(2, 0.92 * Math.min(w / Math.max(l.width, 1), h / Math.max(l.height, 1)));
-    const t = zoomIdentity.translate((w - l.width * k) / 2, (h - l.height * k) / 2).scale(k);
+    const whole = Math.min(2, 0.92 * Math.min(w / Math.max(l.width, 1), h / Math.max(l.height, 1)));
+    const least = MIN_LABEL_PX / TEXT_PX;
+    const k = Math.max(whole, least);
+    const partial = whole < least;
+    let t = zoomIdentity.translate((w - l.width * k) / 2, (h - l.height * k) / 2).scale(k);
+    if (partial) {
+      // Start state at the left, a little in; centred vertically on it when the sketch is taller than the view.
+      const start = l.nodes.find((n) => n.start) ?? l.nodes[0];
+      const tx = l.width * k <= w ? (w - l.width * k) / 2 : 24 - (start ? (start.x - start.width / 2) * k : 0) + 22;
+      const ty =
+        l.height * k <= h
+          ? (h - l.height * k) / 2
+          : Math.min(0, Math.max(h - l.height * k, h / 2 - (start?.y ?? 0) * k));
+      t = zoomIdentity.translate(tx, ty).scale(k);
+    }
     const zoomer = this.zoomer;
     this.svg().call((svg) => zoomer.transform(svg, t));
+    if (partial !== this.partial) {
+      this.partial = partial;
+      this.requestUpdate();
+    }
+    this.dataset.scale = String(k);
   }
 
   private scaleBy(f: number): void {
@@ -135,7 +187,7 @@ export class LwDiagram extends LitElement {
       .attr('transform', (e) => `translate(${e.label.x - e.label.width / 2},${e.label.y - e.label.height / 2})`)
       .attr('aria-label', (e) => `Transition from ${e.from} to ${e.to}: ${e.lines.join('; ')}`)
       .on('click', (_, e) => this.revealLine(e.sourceLines[0]))
-      .on('keydown', (ev: KeyboardEvent, e) => ev.key === 'Enter' && this.revealLine(e.sourceLines[0]));
+      .on('keydown', (ev: KeyboardEvent, e) => onActivate(ev, e.sourceLines[0], (l) => this.revealLine(l)));
     label
       .select('rect')
       .attr('width', (e) => e.label.width)
@@ -174,7 +226,7 @@ export class LwDiagram extends LitElement {
           `State ${n.lines.join(', ')}${this.codes[n.id] ? `, code ${this.codes[n.id]}` : ''}${n.start ? ', start' : ''}${this.lit.has(n.id) ? ', the machine is here' : ''}${n.line ? `, line ${n.line}` : ''}`,
       )
       .on('click', (_, n) => this.revealLine(n.line))
-      .on('keydown', (ev: KeyboardEvent, n) => ev.key === 'Enter' && this.revealLine(n.line));
+      .on('keydown', (ev: KeyboardEvent, n) => onActivate(ev, n.line, (l) => this.revealLine(l)));
     sel
       .select('rect.body')
       .attr('width', (n) => n.width)
@@ -204,8 +256,9 @@ export class LwDiagram extends LitElement {
       .text((n) => (n.mergedInto ? `same as ${n.mergedInto}` : n.unreachable ? 'unreachable' : ''));
   }
 
+  /** Put the caret at the start of a line of the text (nothing selected, so the next key typed only adds). */
   private revealLine(line: number | undefined): void {
-    if (line !== undefined) emit(this, 'reveal', { line, column: 1 });
+    if (line !== undefined) emit(this, 'reveal', { line, column: 1, select: false });
   }
 }
 

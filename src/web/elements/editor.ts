@@ -26,6 +26,11 @@ export class LwEditor extends LitElement {
   }
 
   static override styles = css`
+    *,
+    *::before,
+    *::after {
+      box-sizing: border-box;
+    }
     :host {
       display: block;
       min-height: 0;
@@ -207,8 +212,11 @@ ${lines.map((line, i) => html`${this.marked(line, byLine.get(i + 1))}${i < lines
     }
   }
 
-  /** Put the caret at a line and column (1-based), select the word there, and show it. */
-  reveal(line: number, column = 1): void {
+  /**
+   * Put the caret at a line and column (1-based) and show it; with `select`, the word there is
+   * selected (a problem's word, to be typed over), else the caret sits before it.
+   */
+  reveal(line: number, column = 1, select = true): void {
     const t = this.area;
     if (!t) return;
     const starts = lineStarts(this.text);
@@ -216,7 +224,7 @@ ${lines.map((line, i) => html`${this.marked(line, byLine.get(i + 1))}${i < lines
     const lineText = this.text.slice(starts[l - 1]).split(/\r\n|\n|\r/, 1)[0];
     const span = markSpan(lineText, column);
     t.focus({ preventScroll: true });
-    t.setSelectionRange(starts[l - 1] + span.from, starts[l - 1] + span.to);
+    t.setSelectionRange(starts[l - 1] + span.from, starts[l - 1] + (select ? span.to : span.from));
     t.scrollTop = Math.max(0, (l - 1) * LINE_PX - t.clientHeight / 3);
     this.onScroll();
   }

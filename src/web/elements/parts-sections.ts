@@ -11,6 +11,7 @@ import {
   withoutCapstanWords,
 } from '../../core/index.js';
 import type { BuildView, ChecksView } from '../worker/protocol.js';
+import type { Fix } from './parts.js';
 
 const CHECK_WORDS: Readonly<Record<string, string>> = {
   'forbidden-input': 'No forbidden latch input',
@@ -21,21 +22,31 @@ const CHECK_WORDS: Readonly<Record<string, string>> = {
   drive: 'Force budgets',
 };
 
-export function checksSection(checks: readonly CheckResult[] | undefined, pending: boolean) {
+/** The checks, each in words; a failing check shows the fixes offered for it, and any general fix follows the list. */
+export function checksSection(
+  checks: readonly CheckResult[] | undefined,
+  pending: boolean,
+  fixes: readonly Fix[],
+  fix: (id: Fix['id']) => void,
+) {
+  const button = (f: Fix) => html`<button data-fix=${f.id} @click=${() => fix(f.id)}>${f.label}</button>`;
+  const general = fixes.filter((f) => f.check === undefined);
   return html`<section class="panel" aria-label="Checks">
     <h2>Checks</h2>
     ${
       !checks
         ? html`<p class="soft">${pending ? 'Checking…' : 'Checks run once the machine builds.'}</p>`
         : html`<ul class="checks">
-            ${checks.map(
-              (c) =>
-                html`<li class=${c.ok ? 'ok' : 'bad'} data-check=${c.name}>
+              ${checks.map((c) => {
+                const own = c.ok ? [] : fixes.filter((f) => f.check === c.name);
+                return html`<li class=${c.ok ? 'ok' : 'bad'} data-check=${c.name}>
                   <strong>${c.ok ? '✔' : '✘'} ${CHECK_WORDS[c.name] ?? c.name}</strong>
                   <div class="summary">${c.summary}</div>
-                </li>`,
-            )}
-          </ul>`
+                  ${own.length > 0 ? html`<div class="fixes">${own.map(button)}</div>` : nothing}
+                </li>`;
+              })}
+            </ul>
+            ${general.length > 0 ? html`<div class="fixes">${general.map(button)}</div>` : nothing}`
     }
   </section>`;
 }
@@ -54,29 +65,31 @@ export function partsSection(b: BuildView) {
     <h2>Parts and bill of materials</h2>
     <p class="counts">${counts.map(([k, v]) => html`<span><strong>${v}</strong> ${k}</span>`)}</p>
     ${withoutCapstanWords(b.build.netlist) ? html`<p class="soft">${withoutCapstanWords(b.build.netlist)}.</p>` : nothing}
-    <table aria-label="Bill of materials">
-      <thead>
-        <tr>
-          <th scope="col">Item</th>
-          <th scope="col" class="num">Count</th>
-          <th scope="col" class="num">Each</th>
-          <th scope="col" class="num">Total</th>
-          <th scope="col">Note</th>
-        </tr>
-      </thead>
-      <tbody>
-        ${b.bom.map(
-          (r) =>
-            html`<tr>
-              <td>${r.item}</td>
-              <td class="num">${r.count}</td>
-              <td class="num">${r.each} ${r.unit}</td>
-              <td class="num">${r.total} ${r.unit}</td>
-              <td class="soft">${r.note}</td>
-            </tr>`,
-        )}
-      </tbody>
-    </table>
+    <div class="box">
+      <table aria-label="Bill of materials">
+        <thead>
+          <tr>
+            <th scope="col">Item</th>
+            <th scope="col" class="num">Count</th>
+            <th scope="col" class="num">Each</th>
+            <th scope="col" class="num">Total</th>
+            <th scope="col">Note</th>
+          </tr>
+        </thead>
+        <tbody>
+          ${b.bom.map(
+            (r) =>
+              html`<tr>
+                <td>${r.item}</td>
+                <td class="num">${r.count}</td>
+                <td class="num">${r.each} ${r.unit}</td>
+                <td class="num">${r.total} ${r.unit}</td>
+                <td class="soft">${r.note}</td>
+              </tr>`,
+          )}
+        </tbody>
+      </table>
+    </div>
     <p class="soft">Hardest lever pull: ${Math.max(0, ...b.forces.map((f) => f.forceG))} g at the weight.</p>
   </section>`;
 }
@@ -96,27 +109,29 @@ export function headroomView(c: ChecksView) {
   ${
     c.outputLoads.length === 0
       ? html`<p class="soft">Every output is a flag: it moves only its own lever's swing, no external load.</p>`
-      : html`<table aria-label="Loads of the outputs">
-          <thead>
-            <tr>
-              <th scope="col">Output</th>
-              <th scope="col" class="num">Load</th>
-              <th scope="col" class="num">Most at margin ${c.minMargin}</th>
-              <th scope="col" class="num">Margin</th>
-            </tr>
-          </thead>
-          <tbody>
-            ${c.outputLoads.map(
-              (o) =>
-                html`<tr class=${o.margin >= c.minMargin ? 'ok' : 'bad'}>
-                  <td>${o.output}</td>
-                  <td class="num">${o.loadG} g</td>
-                  <td class="num">${Math.floor(o.maxLoadG)} g</td>
-                  <td class="num">${s2(o.margin)}</td>
-                </tr>`,
-            )}
-          </tbody>
-        </table>`
+      : html`<div class="box">
+          <table aria-label="Loads of the outputs">
+            <thead>
+              <tr>
+                <th scope="col">Output</th>
+                <th scope="col" class="num">Load</th>
+                <th scope="col" class="num">Most at margin ${c.minMargin}</th>
+                <th scope="col" class="num">Margin</th>
+              </tr>
+            </thead>
+            <tbody>
+              ${c.outputLoads.map(
+                (o) =>
+                  html`<tr class=${o.margin >= c.minMargin ? 'ok' : 'bad'}>
+                    <td>${o.output}</td>
+                    <td class="num">${o.loadG} g</td>
+                    <td class="num">${Math.floor(o.maxLoadG)} g</td>
+                    <td class="num">${s2(o.margin)}</td>
+                  </tr>`,
+              )}
+            </tbody>
+          </table>
+        </div>`
   }`;
 }
 
@@ -124,45 +139,47 @@ export function timingSection(t: TimingResult | undefined) {
   if (!t) return nothing;
   return html`<section class="panel" aria-label="Timing and clock rate">
     <h2>Timing and clock rate</h2>
-    <table>
-      <tbody>
-        <tr>
-          <th scope="row">φ1 (compute)</th>
-          <td class="num">${s2(t.phaseTimesS.phi1)} s</td>
-          <td class="soft">${t.chains.phi1.join(' → ')}</td>
-        </tr>
-        <tr>
-          <th scope="row">dead band after φ1</th>
-          <td class="num">${s2(t.deadBandsS.afterPhi1)} s</td>
-          <td></td>
-        </tr>
-        <tr>
-          <th scope="row">φ2 (transfer)</th>
-          <td class="num">${s2(t.phaseTimesS.phi2)} s</td>
-          <td class="soft">${t.chains.phi2.join(' → ')}</td>
-        </tr>
-        <tr>
-          <th scope="row">dead band after φ2</th>
-          <td class="num">${s2(t.deadBandsS.afterPhi2)} s</td>
-          <td></td>
-        </tr>
-        <tr>
-          <th scope="row">one clock</th>
-          <td class="num">${s2(t.clockS)} s</td>
-          <td>at most ${t.clocksPerMinute} clocks per minute</td>
-        </tr>
-        <tr>
-          <th scope="row">crank</th>
-          <td class="num">${t.crankRpm} /min</td>
-          <td>cam: φ1 ${t.cam.phi1[0]}°–${t.cam.phi1[1]}°, φ2 ${t.cam.phi2[0]}°–${t.cam.phi2[1]}°</td>
-        </tr>
-        <tr>
-          <th scope="row">reset</th>
-          <td class="num">${s2(t.resetS)} s</td>
-          <td></td>
-        </tr>
-      </tbody>
-    </table>
+    <div class="box">
+      <table>
+        <tbody>
+          <tr>
+            <th scope="row">φ1 (compute)</th>
+            <td class="num">${s2(t.phaseTimesS.phi1)} s</td>
+            <td class="soft">${t.chains.phi1.join(' → ')}</td>
+          </tr>
+          <tr>
+            <th scope="row">dead band after φ1</th>
+            <td class="num">${s2(t.deadBandsS.afterPhi1)} s</td>
+            <td></td>
+          </tr>
+          <tr>
+            <th scope="row">φ2 (transfer)</th>
+            <td class="num">${s2(t.phaseTimesS.phi2)} s</td>
+            <td class="soft">${t.chains.phi2.join(' → ')}</td>
+          </tr>
+          <tr>
+            <th scope="row">dead band after φ2</th>
+            <td class="num">${s2(t.deadBandsS.afterPhi2)} s</td>
+            <td></td>
+          </tr>
+          <tr>
+            <th scope="row">one clock</th>
+            <td class="num">${s2(t.clockS)} s</td>
+            <td>at most ${t.clocksPerMinute} clocks per minute</td>
+          </tr>
+          <tr>
+            <th scope="row">crank</th>
+            <td class="num">${t.crankRpm} /min</td>
+            <td>cam: φ1 ${t.cam.phi1[0]}°–${t.cam.phi1[1]}°, φ2 ${t.cam.phi2[0]}°–${t.cam.phi2[1]}°</td>
+          </tr>
+          <tr>
+            <th scope="row">reset</th>
+            <td class="num">${s2(t.resetS)} s</td>
+            <td></td>
+          </tr>
+        </tbody>
+      </table>
+    </div>
     <p class=${t.monteCarlo.ok ? 'ok' : 'bad'}>
       ${t.monteCarlo.ok ? `${t.monteCarlo.runs} runs with varied stage delays (seed ${t.monteCarlo.seed}) agree.` : (t.monteCarlo.race?.words ?? 'A run with varied delays disagrees.')}
     </p>

@@ -1,11 +1,15 @@
 /**
- * <lw-parts>: parts & forces — the checks, the schematic, parts and bill of materials, the
- * capstans' force margins (bar chart, the minimum margin marked), drum torque per state,
- * timing and clock rate, the operating rules, warnings, safety cautions, and a button for
- * every build document.
- * Events: `export` {doc}, `replay` {actions, label}.
+ * <lw-parts>: parts & forces — the checks (a failing one offers its fix where there is one),
+ * the build documents (print the build sheet, download them all in one archive, or one by
+ * one), the schematic (drawn in the page's theme), parts and bill of materials, the capstans'
+ * force margins (bar chart, the minimum margin marked, each capstan named by what it does),
+ * drum torque per state, timing and clock rate, the operating rules, warnings, and the safety
+ * cautions.
+ * Events: `export` {doc} (a document's file name, or 'all'), `print`, `fix` {id},
+ * `replay` {actions, label}.
  */
 import { LitElement, css, html, nothing } from 'lit';
+import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import {
   CAUTIONS,
   DOCUMENT_REGISTRY,
@@ -20,12 +24,20 @@ import { checksSection, headroomView, partsSection, rulesSection, timingSection 
 import { emit } from './emit.js';
 import './bar-chart.js';
 
+/** An action that fixes a failing check: its id, the check it fixes (if one), and its words. */
+export interface Fix {
+  readonly id: 'unused-to-start' | 'defaults';
+  readonly check?: string;
+  readonly label: string;
+}
+
 export class LwParts extends LitElement {
   static override properties = {
     built: { attribute: false },
     checks: { attribute: false },
     schematic: { attribute: false },
     warnings: { attribute: false },
+    fixes: { attribute: false },
     checking: { type: Boolean },
     exportable: { type: Boolean },
   };
@@ -33,6 +45,7 @@ export class LwParts extends LitElement {
   declare checks: ChecksView | undefined;
   declare schematic: { readonly svg?: string; readonly problem?: string } | undefined;
   declare warnings: readonly Diagnostic[];
+  declare fixes: readonly Fix[];
   declare checking: boolean;
   declare exportable: boolean;
   private zoom = 1;
@@ -43,6 +56,7 @@ export class LwParts extends LitElement {
     this.checks = undefined;
     this.schematic = undefined;
     this.warnings = [];
+    this.fixes = [];
     this.checking = false;
     this.exportable = false;
   }
@@ -52,7 +66,24 @@ export class LwParts extends LitElement {
     css`
       :host {
         display: grid;
+        grid-template-columns: minmax(0, 1fr);
         gap: 0.9rem;
+      }
+      .panel {
+        min-width: 0;
+      }
+      .box {
+        overflow-x: auto;
+        max-width: 100%;
+      }
+      .fixes {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.4rem;
+        margin-top: 0.5rem;
+      }
+      .exports.main {
+        margin-bottom: 0.5rem;
       }
       ul.checks,
       ol.rules,
@@ -87,22 +118,31 @@ export class LwParts extends LitElement {
       .sheet {
         overflow: auto;
         max-height: 32rem;
-        background: #fff;
+        background: var(--lw-panel);
         border: 1px solid var(--lw-line);
         border-radius: var(--lw-radius);
       }
-      .sheet img {
+      .sheet svg {
         display: block;
-        transform-origin: 0 0;
+        height: auto;
       }
       .cautions {
         border-left: 5px solid var(--lw-cord);
       }
       .row {
         display: flex;
+        flex-wrap: wrap;
         gap: 0.4rem;
         align-items: center;
         margin-bottom: 0.4rem;
+      }
+      .row button {
+        white-space: nowrap;
+      }
+      details summary {
+        font-size: 0.88rem;
+        cursor: pointer;
+        margin: 0.2rem 0;
       }
     `,
   ];
@@ -111,8 +151,8 @@ export class LwParts extends LitElement {
     const b = this.built;
     const c = this.checks;
     if (!b) return html`<p class="soft">Parts and forces appear once the machine builds.</p>`;
-    return html`${checksSection(c?.checks, this.checking)} ${this.exportsSection()} ${this.schematicSection()}
-      ${partsSection(b)}
+    return html`${checksSection(c?.checks, this.checking, this.fixes, (id) => emit(this, 'fix', { id }))}
+      ${this.exportsSection()} ${this.schematicSection()} ${partsSection(b)}
       <section class="panel" aria-label="Force margins">
         <h2>Force margins of the capstans</h2>
         ${
@@ -125,7 +165,7 @@ export class LwParts extends LitElement {
                   caption="Force margin per capstan"
                   unit="×"
                   floor
-                  .bars=${c.margins.map((m) => ({ label: m.label, value: m.margin }))}
+                  .bars=${c.margins.map((m) => ({ label: `${m.kind}: ${m.does}`, value: m.margin, note: `${m.margin.toFixed(2)}×` }))}
                   .marker=${{ value: c.minMargin, label: `minimum ${c.minMargin}` }}
                 ></lw-bar-chart>
                 ${headroomView(c)}`
@@ -140,10 +180,11 @@ export class LwParts extends LitElement {
                   The worst case of each state over its inputs and clock phases; the worst sizes the motor or crank
                   (${c.powerW.toFixed(2)} W at the drum's speed).
                 </p>
+                ${torqueWords(c.torque)}
                 <lw-bar-chart
                   caption="Drum torque per state"
                   unit="N·m"
-                  .bars=${c.torque.map((t) => ({ label: t.state, value: t.torqueNm, note: `${t.torqueNm.toFixed(3)} N·m (${t.at})` }))}
+                  .bars=${c.torque.map((t) => ({ label: t.state, sub: `worst at ${t.at}`, value: t.torqueNm, note: `${t.torqueNm.toFixed(3)} N·m` }))}
                 ></lw-bar-chart>`
             : html`<p class="soft">Checking…</p>`
         }
@@ -158,12 +199,24 @@ export class LwParts extends LitElement {
   }
 
   private exportsSection() {
+    const off = !this.exportable;
     return html`<section class="panel" aria-label="Build documents">
       <h2>Build documents</h2>
-      <div class="exports">
-        ${DOCUMENT_REGISTRY.map((d) => html`<button ?disabled=${!this.exportable} @click=${() => emit(this, 'export', { doc: d.file })} data-doc=${d.file}>${d.label}</button>`)}
+      <div class="exports main">
+        <button class="primary" ?disabled=${off} @click=${() => emit(this, 'print', {})} data-do="print">
+          Print the build sheet
+        </button>
+        <button ?disabled=${off} @click=${() => emit(this, 'export', { doc: 'all' })} data-doc="all">
+          All documents (.zip)
+        </button>
       </div>
-      ${this.exportable ? nothing : html`<p class="soft">Ready when the checks are done.</p>`}
+      <details>
+        <summary class="soft">One document at a time</summary>
+        <div class="exports">
+          ${DOCUMENT_REGISTRY.map((d) => html`<button ?disabled=${off} @click=${() => emit(this, 'export', { doc: d.file })} data-doc=${d.file}>${d.label}</button>`)}
+        </div>
+      </details>
+      ${off ? html`<p class="soft">Ready when the checks are done.</p>` : nothing}
     </section>`;
   }
 
@@ -176,14 +229,26 @@ export class LwParts extends LitElement {
           ? html`<div class="row">
                 <button @click=${() => this.setZoom(this.zoom * 1.25)} aria-label="Enlarge the schematic">+</button>
                 <button @click=${() => this.setZoom(this.zoom / 1.25)} aria-label="Shrink the schematic">−</button>
-                <button @click=${() => this.setZoom(1)}>Fit width</button>
+                <button @click=${() => this.setZoom(1)} aria-label="Show the schematic at its own size">
+                  Actual size
+                </button>
+                <button
+                  @click=${() => this.fitWidth(s.svg ?? '')}
+                  aria-label="Shrink the schematic to the width of its box"
+                >
+                  Fit width
+                </button>
               </div>
-              <div class="sheet" tabindex="0" aria-label="Schematic drawing; scroll to pan">
-                <img
-                  alt="Schematic of the lever machine: levers, gates, latches and cords, left to right through one clock"
-                  src=${`data:image/svg+xml;charset=utf-8,${encodeURIComponent(s.svg)}`}
-                  style=${`width:${Math.round(this.zoom * 100)}%`}
-                />
+              <p class="soft">
+                Each box: its kind, what it does, and its id in the wiring list. The legend is at the foot.
+              </p>
+              <div
+                class="sheet"
+                tabindex="0"
+                role="img"
+                aria-label="Schematic of the lever machine: levers, gates, latches and cords, left to right through one clock; scroll to pan"
+              >
+                ${unsafeSVG(sized(s.svg, this.zoom))}
               </div>`
           : html`<p class="soft">${s?.problem ? `No schematic: ${s.problem}` : 'Drawing…'}</p>`
       }
@@ -193,8 +258,8 @@ export class LwParts extends LitElement {
   private warningsSection() {
     const failing = this.checks?.checks.filter((c) => !c.ok) ?? [];
     if (this.warnings.length === 0 && failing.length === 0) return nothing;
-    return html`<section class="panel" aria-label="Warnings">
-      <h2>Warnings</h2>
+    return html`<section class="panel" aria-label="Warnings" id="findings" tabindex="-1">
+      <h2>Failing checks and warnings</h2>
       <ul class="plain">
         ${failing.map((c) => html`<li class="bad">${c.name}: ${c.summary}</li>`)}
         ${this.warnings.map((d) => html`<li class="warn mono">${formatDiagnostic(d)}</li>`)}
@@ -202,14 +267,51 @@ export class LwParts extends LitElement {
     </section>`;
   }
 
+  /** Bring the failing checks and warnings into view (the status line was clicked). */
+  showFindings(): void {
+    const at = this.renderRoot.querySelector<HTMLElement>('#findings') ?? this.renderRoot.querySelector('[data-check]');
+    if (!(at instanceof HTMLElement)) return;
+    at.scrollIntoView({ block: 'start' });
+    at.focus({ preventScroll: true });
+  }
+
   private setZoom(z: number): void {
-    this.zoom = Math.min(4, Math.max(0.25, z));
+    this.zoom = Math.min(4, Math.max(0.1, z));
     this.requestUpdate();
+  }
+
+  /** Shrink the schematic to the width of its box (its text may then be small: Actual size brings it back). */
+  private fitWidth(svgText: string): void {
+    const box = this.renderRoot.querySelector<HTMLElement>('.sheet');
+    const w = Number(/ width="(\d+)"/.exec(svgText)?.[1] ?? 0);
+    if (box && w > 0) this.setZoom(box.clientWidth / w);
   }
 
   private replay(r: RuleViolation): void {
     emit(this, 'replay', { actions: r.violation, label: `break: ${RULE_WORDS[r.rule]}` });
   }
+}
+
+/** The schematic's SVG at `zoom` × its own size (1: its text at the size it was drawn for), its viewBox kept. */
+function sized(svgText: string, zoom: number): string {
+  return svgText
+    .replace(/^<\?xml[^>]*\?>\s*/, '')
+    .replace(
+      /^<svg([^>]*?) width="(\d+)" height="(\d+)"/,
+      (_, attrs: string, w: string, h: string) =>
+        `<svg${attrs} width="${Math.round(Number(w) * zoom)}" height="${Math.round(Number(h) * zoom)}"`,
+    );
+}
+
+/** A sentence on the torque chart when every state has the same worst case (the bars then look alike on purpose). */
+function torqueWords(torque: ChecksView['torque']) {
+  if (torque.length < 2) return nothing;
+  const first = torque[0].torqueNm;
+  return torque.every((t) => Math.abs(t.torqueNm - first) < 1e-9)
+    ? html`<p class="soft">
+        Every state has the same worst case, ${first.toFixed(3)} N·m: the same capstans pull in each.
+      </p>`
+    : nothing;
 }
 
 customElements.define('lw-parts', LwParts);

@@ -1,6 +1,7 @@
 /**
  * <lw-problems>: the diagnostics, worded exactly as the command line words them
- * (formatDiagnostic), errors first. An entry with a line jumps there.
+ * (formatDiagnostic), errors first. An entry with a line jumps there; one without says that it
+ * concerns the whole machine.
  * Events: `reveal` {line, column}.
  */
 import { LitElement, css, html, nothing } from 'lit';
@@ -34,6 +35,10 @@ export class LwProblems extends LitElement {
         padding: 0;
         max-height: 11rem;
         overflow: auto;
+      }
+      li button:disabled {
+        opacity: 1;
+        cursor: default;
       }
       li button {
         display: grid;
@@ -71,9 +76,10 @@ export class LwProblems extends LitElement {
       li.info .sev {
         color: var(--lw-info);
       }
-      .line {
+      .line,
+      .sev {
         white-space: pre-wrap;
-        word-break: break-word;
+        overflow-wrap: anywhere;
       }
       .clear {
         padding: 0.3rem 0.2rem;
@@ -119,14 +125,18 @@ export class LwProblems extends LitElement {
   }
 
   private entry(d: Diagnostic) {
-    return html`<li class=${d.severity}>
+    const line = d.location.line;
+    const path = d.location.path;
+    const whole = line === undefined && (path === undefined || path === '$');
+    const where = line !== undefined ? `at line ${line}` : whole ? 'about the whole machine' : `at ${path}`;
+    return html`<li class=${d.severity} data-line=${line ?? 'machine'}>
       <button
-        ?disabled=${d.location.line === undefined}
-        @click=${() => emit(this, 'reveal', { line: d.location.line ?? 1, column: d.location.column ?? 1 })}
-        aria-label=${`${d.severity} ${d.code}${d.location.line !== undefined ? ` at line ${d.location.line}` : ''}: ${d.message}${d.hint ? `. ${d.hint}` : ''}`}
+        ?disabled=${line === undefined}
+        @click=${() => emit(this, 'reveal', { line: line ?? 1, column: d.location.column ?? 1 })}
+        aria-label=${`${d.severity} ${d.code} ${where}: ${d.message}${d.hint ? `. ${d.hint}` : ''}`}
       >
         <span class="sev"
-          >${d.severity} ${d.location.line !== undefined ? html`<br />line ${d.location.line}` : nothing}</span
+          >${d.severity}<br />${line !== undefined ? `line ${line}` : whole ? 'whole machine' : path}</span
         >
         <span class="line mono">${formatDiagnostic(d)}</span>
       </button>

@@ -11,6 +11,9 @@ import { addState, addTransition, reguard, retarget, type TextEdit } from '../co
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
 
+/** Above this many states a target is typed (with the states offered as suggestions) rather than picked from a list per row. */
+const PICK_STATES = 60;
+
 export class LwStateTable extends LitElement {
   static override properties = {
     machine: { attribute: false },
@@ -41,9 +44,19 @@ export class LwStateTable extends LitElement {
     css`
       :host {
         display: block;
+        min-width: 0;
+      }
+      /* The table scrolls sideways in its own box on a narrow screen. */
+      .box {
+        overflow-x: auto;
+        max-width: 100%;
       }
       table {
         width: 100%;
+      }
+      input.target {
+        width: 9rem;
+        font-family: var(--lw-mono);
       }
       td.state {
         border-left: 3px solid var(--lw-brass);
@@ -78,21 +91,28 @@ export class LwStateTable extends LitElement {
     const m = this.machine;
     if (!m) return html`<p class="soft">The ledger fills in when the machine reads without errors.</p>`;
     const editable = m.loc?.line !== undefined;
-    return html`<table aria-label="State ledger">
-        <thead>
-          <tr>
-            <th scope="col">State</th>
-            <th scope="col">Code</th>
-            <th scope="col">Shows</th>
-            <th scope="col">When</th>
-            <th scope="col">Go to</th>
-            <th scope="col">With</th>
-          </tr>
-        </thead>
-        <tbody>
-          ${m.states.map((s) => this.stateRows(m, s, editable))}
-        </tbody>
-      </table>
+    return html`${
+        m.states.length > PICK_STATES
+          ? html`<datalist id="state-names">${m.states.map((x) => html`<option value=${x.name}></option>`)}</datalist>`
+          : nothing
+      }
+      <div class="box">
+        <table aria-label="State ledger">
+          <thead>
+            <tr>
+              <th scope="col">State</th>
+              <th scope="col">Code</th>
+              <th scope="col">Shows</th>
+              <th scope="col">When</th>
+              <th scope="col">Go to</th>
+              <th scope="col">With</th>
+            </tr>
+          </thead>
+          <tbody>
+            ${m.states.map((s) => this.stateRows(m, s, editable))}
+          </tbody>
+        </table>
+      </div>
       ${
         editable
           ? html`<form class="add" @submit=${this.onAddState}>
@@ -118,7 +138,7 @@ export class LwStateTable extends LitElement {
     const first = html`<td class="state" rowspan=${span}>
         <button
           class="link"
-          @click=${() => emit(this, 'reveal', { line: s.loc?.line ?? 1, column: s.loc?.column ?? 1 })}
+          @click=${() => emit(this, 'reveal', { line: s.loc?.line ?? 1, column: s.loc?.column ?? 1, select: false })}
           aria-label=${`Show state ${s.name} in the text`}
         >
           ${s.name}</button
@@ -170,20 +190,32 @@ export class LwStateTable extends LitElement {
             : html`<code>${guard || 'always'}</code>`
         }
       </td>
-      <td>
-        ${
-          editable
-            ? html`<select
-                ?disabled=${this.frozen}
-                aria-label=${`Target of transition ${i + 1}`}
-                @change=${(e: Event) => this.send(retarget(this.text, t, (e.target as HTMLSelectElement).value))}
-              >
-                ${m.states.map((s) => html`<option ?selected=${s.name === t.to} value=${s.name}>${s.name}</option>`)}
-              </select>`
-            : t.to
-        }
-      </td>
+      <td>${editable ? this.targetField(m, t, i) : t.to}</td>
       <td class="mono">${outputWords(t.outputs, m.outputs) || '—'}</td>`;
+  }
+
+  /** Where a transition goes: a list of the states, or for a large machine a field with the states as suggestions. */
+  private targetField(m: Machine, t: Transition, i: number) {
+    if (m.states.length <= PICK_STATES)
+      return html`<select
+        ?disabled=${this.frozen}
+        aria-label=${`Target of transition ${i + 1}`}
+        @change=${(e: Event) => this.send(retarget(this.text, t, (e.target as HTMLSelectElement).value))}
+      >
+        ${m.states.map((s) => html`<option ?selected=${s.name === t.to} value=${s.name}>${s.name}</option>`)}
+      </select>`;
+    return html`<input
+      class="target"
+      list="state-names"
+      ?disabled=${this.frozen}
+      .value=${t.to}
+      aria-label=${`Target of transition ${i + 1}`}
+      @change=${(e: Event) => {
+        const field = e.target as HTMLInputElement;
+        if (m.states.some((s) => s.name === field.value)) this.send(retarget(this.text, t, field.value));
+        else field.value = t.to;
+      }}
+    />`;
   }
 
   private adder(m: Machine, s: State) {
@@ -193,7 +225,8 @@ export class LwStateTable extends LitElement {
       @submit=${(e: Event) => {
         e.preventDefault();
         const f = new FormData(e.target as HTMLFormElement);
-        this.send(addTransition(this.text, s, formText(f, 'to'), formText(f, 'when')));
+        const to = formText(f, 'to');
+        if (m.states.some((x) => x.name === to)) this.send(addTransition(this.text, s, to, formText(f, 'when')));
       }}
     >
       <input
@@ -203,9 +236,20 @@ export class LwStateTable extends LitElement {
         aria-label=${`Guard of a new transition from ${s.name}`}
         class="guard"
       />
-      <select name="to" ?disabled=${this.frozen} aria-label=${`Target of a new transition from ${s.name}`}>
-        ${m.states.map((x) => html`<option value=${x.name}>${x.name}</option>`)}
-      </select>
+      ${
+        m.states.length <= PICK_STATES
+          ? html`<select name="to" ?disabled=${this.frozen} aria-label=${`Target of a new transition from ${s.name}`}>
+              ${m.states.map((x) => html`<option value=${x.name}>${x.name}</option>`)}
+            </select>`
+          : html`<input
+              name="to"
+              class="target"
+              list="state-names"
+              required
+              ?disabled=${this.frozen}
+              aria-label=${`Target of a new transition from ${s.name}`}
+            />`
+      }
       <button type="submit" ?disabled=${this.frozen} aria-label=${`Add a transition from ${s.name}`}>Add</button>
     </form>`;
   }

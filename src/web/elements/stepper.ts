@@ -1,15 +1,18 @@
 /**
  * <lw-stepper>: the trial run — the machine stepped by hand at part level. Input levers as
  * toggles; φ1, φ2, a whole clock, reset and undo as buttons (and keys); the state, code and
- * outputs read off the latches; every lever drawn in its position; the timing diagram; and
- * the alarms in words when an operating rule is broken.
+ * outputs read off the latches; every lever drawn in its position; the timing diagram (in a
+ * box of its own that scrolls sideways); the alarms in words when an operating rule is broken,
+ * each naming its clock and hand action; and a flag when the input levers stand at a
+ * combination the machine declares `never`.
  * Events: `step` {do: 'phi1' | 'phi2' | 'clock' | 'reset' | 'undo'} or {do: 'input', input, value}.
  */
 import { LitElement, css, html, nothing } from 'lit';
 import type { PartReading } from '../../core/index.js';
-import type { Alarm, Sample } from '../controllers/stepper.js';
+import type { Alarm, Impossible, Sample } from '../controllers/stepper.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
+import { touchScreen } from '../touch.js';
 import './lever-bank.js';
 import './timing-chart.js';
 
@@ -19,12 +22,14 @@ export class LwStepper extends LitElement {
     samples: { attribute: false },
     alarms: { attribute: false },
     clocks: { type: Number },
+    impossible: { attribute: false },
     canUndo: { type: Boolean },
   };
   declare reading: PartReading | undefined;
   declare samples: readonly Sample[];
   declare alarms: readonly Alarm[];
   declare clocks: number;
+  declare impossible: Impossible | undefined;
   declare canUndo: boolean;
 
   constructor() {
@@ -33,6 +38,7 @@ export class LwStepper extends LitElement {
     this.samples = [];
     this.alarms = [];
     this.clocks = 0;
+    this.impossible = undefined;
     this.canUndo = false;
   }
 
@@ -41,7 +47,20 @@ export class LwStepper extends LitElement {
     css`
       :host {
         display: grid;
+        grid-template-columns: minmax(0, 1fr);
         gap: 0.9rem;
+      }
+      .panel {
+        min-width: 0;
+      }
+      .never {
+        margin: 0.5rem 0 0;
+        padding: 0.3rem 0.6rem;
+        border-left: 4px solid var(--lw-warn);
+        background: var(--lw-sunk);
+      }
+      :host([touch]) kbd {
+        display: none;
       }
       .controls {
         display: flex;
@@ -91,6 +110,12 @@ export class LwStepper extends LitElement {
     `,
   ];
 
+  override connectedCallback(): void {
+    super.connectedCallback();
+    // Key hints mean nothing on a touch screen.
+    this.toggleAttribute('touch', touchScreen());
+  }
+
   override render() {
     const r = this.reading;
     if (!r) return html`<p class="soft">The trial run starts once the machine builds.</p>`;
@@ -111,6 +136,16 @@ export class LwStepper extends LitElement {
           )}
           ${Object.keys(r.inputs).length === 0 ? html`<span class="soft">No input levers.</span>` : nothing}
         </div>
+        ${
+          this.impossible
+            ? html`<p class="never" role="alert" data-never=${this.impossible.guard}>
+                These inputs are declared impossible:
+                <code>never ${this.impossible.guard}</code
+                >${this.impossible.line !== undefined ? ` (line ${this.impossible.line})` : ''}. The build may go to any
+                state from here; its latches stay safe.
+              </p>`
+            : nothing
+        }
         <div class="controls" role="group" aria-label="Clock and reset" style="margin-top:0.5rem">
           <button aria-pressed=${r.phi1 ? 'true' : 'false'} @click=${step({ do: 'phi1' })} data-do="phi1">
             φ1<kbd>1</kbd>
@@ -147,11 +182,14 @@ export class LwStepper extends LitElement {
           this.alarms.length === 0
             ? html`<p class="soft" role="log">None: every operating rule kept so far.</p>`
             : html`<ul class="alarms" role="log" aria-live="polite">
-                ${[...this.alarms].sort((a, b) => b.step - a.step).map((a) => html`<li class=${a.latch ? 'latch' : ''} data-kind=${a.kind}>Step ${a.step + 1}: ${a.words}</li>`)}
+                ${[...this.alarms].reverse().map((a) => html`<li class=${a.latch ? 'latch' : a.kind === 'never' ? 'never' : ''} data-kind=${a.kind} data-clock=${a.clock}>Clock ${a.clock}, ${a.moment}: ${a.words}</li>`)}
               </ul>`
         }
       </section>
-      <section class="panel" aria-label="Lever positions"><lw-lever-bank .reading=${r}></lw-lever-bank></section>
+      <section class="panel" aria-label="Lever positions">
+        <h2>Levers as they stand</h2>
+        <lw-lever-bank .reading=${r}></lw-lever-bank>
+      </section>
       <section class="panel" aria-label="Timing diagram">
         <h2>Timing diagram</h2>
         <lw-timing-chart .samples=${this.samples}></lw-timing-chart>

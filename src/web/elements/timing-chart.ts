@@ -1,7 +1,9 @@
 /**
  * <lw-timing-chart>: a timing diagram of the trial run, drawn with d3 — one trace per input
  * lever, φ1, φ2, reset, slave and master state bit and output, one column per hand action,
- * with the clock boundaries marked. An undetermined value (X) is a hatched band.
+ * with the clock boundaries marked. An undetermined value (X) is a hatched band. The chart
+ * grows to the right with every action inside a box of its own that scrolls sideways (kept
+ * at its newest end); the page around it never widens.
  */
 import { LitElement, css, html, type PropertyValues } from 'lit';
 import { select } from 'd3';
@@ -11,7 +13,9 @@ import { shared } from '../styles/shared.js';
 
 const ROW = 24;
 const COL = 18;
+/** Width of the fixed column of trace names, and the gap before the first column of the traces. */
 const LEFT = 70;
+const PAD = 6;
 
 export class LwTimingChart extends LitElement {
   static override properties = { samples: { attribute: false } };
@@ -27,12 +31,25 @@ export class LwTimingChart extends LitElement {
     css`
       :host {
         display: block;
+        min-width: 0;
+        max-width: 100%;
       }
-      .scroll {
-        overflow-x: auto;
+      /* The trace names stay put at the left; the traces scroll beside them. */
+      .frame {
+        display: flex;
+        max-width: 100%;
         border: 1px solid var(--lw-line);
         border-radius: var(--lw-radius);
         background: var(--lw-sunk);
+      }
+      .names {
+        flex: none;
+        border-right: 1px solid var(--lw-line);
+      }
+      .scroll {
+        flex: 1;
+        min-width: 0;
+        overflow-x: auto;
       }
       svg {
         display: block;
@@ -78,8 +95,11 @@ export class LwTimingChart extends LitElement {
 
   override render() {
     const traces = tracesOf(this.samples);
-    return html`<div class="scroll">
-      <svg role="img" aria-label=${this.describe(traces)}></svg>
+    return html`<div class="frame">
+      <svg class="names" aria-hidden="true"></svg>
+      <div class="scroll" tabindex="0" aria-label="Timing diagram; scroll sideways for earlier clocks">
+        <svg class="traces" role="img" aria-label=${this.describe(traces)}></svg>
+      </div>
     </div>`;
   }
 
@@ -94,9 +114,21 @@ export class LwTimingChart extends LitElement {
     if (!changed.has('samples')) return;
     const traces = tracesOf(this.samples);
     const n = this.samples.length;
-    const width = LEFT + Math.max(n, 1) * COL + 20;
+    const width = PAD + Math.max(n, 1) * COL + 20;
     const height = traces.length * ROW + 22;
-    const root = select(this.renderRoot.querySelector('svg') as SVGSVGElement)
+    const names = select(this.renderRoot.querySelector('svg.names') as SVGSVGElement)
+      .attr('width', LEFT)
+      .attr('height', height);
+    names.selectAll('*').remove();
+    names
+      .selectAll('text')
+      .data(traces)
+      .join('text')
+      .attr('class', 'name')
+      .attr('x', 6)
+      .attr('y', (_, k) => 16 + k * ROW + ROW / 2 + 2)
+      .text((t) => t.name);
+    const root = select(this.renderRoot.querySelector('svg.traces') as SVGSVGElement)
       .attr('width', width)
       .attr('height', height);
     root.selectAll('*').remove();
@@ -108,7 +140,7 @@ export class LwTimingChart extends LitElement {
       .attr('height', 6)
       .attr('patternUnits', 'userSpaceOnUse');
     pattern.append('path').attr('class', 'hatch-line').attr('d', 'M0,6 L6,0');
-    const x = (i: number): number => LEFT + i * COL;
+    const x = (i: number): number => PAD + i * COL;
     // Clock boundaries: where the count of finished clocks goes up.
     this.samples.forEach((s, i) => {
       if (i === 0 || s.clock === this.samples[i - 1].clock) return;
@@ -132,12 +164,6 @@ export class LwTimingChart extends LitElement {
       .join('g')
       .attr('class', 'row')
       .attr('transform', (_, k) => `translate(0,${16 + k * ROW})`);
-    rows
-      .append('text')
-      .attr('class', 'name')
-      .attr('x', 4)
-      .attr('y', ROW / 2 + 2)
-      .text((t) => t.name);
     rows.each(function (t) {
       const g = select(this);
       let d = '';

@@ -2,6 +2,12 @@
 import { css } from 'lit';
 
 export const shared = css`
+  /* The page's box-sizing rule (theme.css) does not reach into shadow roots: repeat it here. */
+  *,
+  *::before,
+  *::after {
+    box-sizing: border-box;
+  }
   :host {
     /* Contains the visually hidden text, so it never stretches the page. */
     position: relative;
@@ -101,6 +107,14 @@ export const shared = css`
   }
   .soft {
     color: var(--lw-ink-soft);
+  }
+  /* A box that scrolls sideways on its own (a wide table on a phone). Positioned, so that
+     visually hidden text inside it stays inside it rather than widening the page. */
+  .wide,
+  .box {
+    position: relative;
+    overflow-x: auto;
+    max-width: 100%;
   }
   .visually-hidden {
     position: absolute;

@@ -7,32 +7,47 @@ import {
   analyse,
   type Analysed,
   billOfMaterials,
+  BUILD_DEFAULTS,
   buildMachine,
   type BuildOptions,
   type Built,
   compareEncodings,
-  DEFAULT_PROFILE,
   type DriveResult,
   type EncodeResult,
-  type Encoding,
   equationTexts,
   findCheck,
   momentWords,
   operatorForces,
+  partRoles,
   type Progress,
+  readMachine,
   runChecks,
 } from '../../core/index.js';
 import { layoutDiagram } from '../diagram/layout.js';
-import type { BuildSettings, BuildView, ChecksView, CodeRow, MarginBar, Reading, TorqueBar } from './protocol.js';
+import type {
+  BuildSettings,
+  BuildView,
+  ChecksView,
+  CodeRow,
+  DroppedSetting,
+  MarginBar,
+  Reading,
+  TorqueBar,
+} from './protocol.js';
 
 /** Parse, validate and minimise; lay out the diagram when the machine is sound. */
 export function readJob(text: string, file: string): { reading: Reading; analysed?: Analysed } {
   const a = analyse(text, file);
-  if (!a.ok) return { reading: { ok: false, form: a.form, diagnostics: a.diagnostics } };
+  if (!a.ok) {
+    // The name, when the machine parsed but did not validate: the file name follows it all the same.
+    const name = readMachine(text, file).machine?.name;
+    return { reading: { ok: false, form: a.form, diagnostics: a.diagnostics, ...(name ? { name } : {}) } };
+  }
   const m = a.minimised;
   const reading: Reading = {
     ok: true,
     form: a.form,
+    name: a.machine.name,
     diagnostics: a.diagnostics,
     machine: a.machine,
     merged: m.merged,
@@ -44,25 +59,59 @@ export function readJob(text: string, file: string): { reading: Reading; analyse
   return { reading, analysed: a };
 }
 
-/** Build options from the page's settings. */
+/** Build options from the page's settings (with the command line's defaults for all the page leaves out). */
 export function buildOptions(s: BuildSettings, onProgress?: (p: Progress) => void): BuildOptions {
-  const kept: Encoding | undefined = 'kept' in s.encoding ? s.encoding.kept : undefined;
+  const e = s.encoding;
   return {
-    encoding: kept ? () => kept : 'strategy' in s.encoding ? s.encoding.strategy : 'binary',
+    encoding: 'kept' in e ? () => e.kept : e.strategy,
     seed: s.seed,
-    unusedCodes: s.unusedCodes,
-    profile: DEFAULT_PROFILE,
+    ...(s.unusedCodes !== undefined ? { unusedCodes: s.unusedCodes } : {}),
+    profile: BUILD_DEFAULTS.profile,
     ...(onProgress ? { onProgress } : {}),
   };
+}
+
+const same = (a: readonly string[], b: readonly string[]): boolean =>
+  a.length === b.length && a.every((x, i) => x === b[i]);
+
+/**
+ * The settings as this machine can use them: codes kept for other states, and unused codes
+ * sent to a state this machine does not have, are dropped (back to the defaults), with why.
+ */
+export function settle(a: Analysed, s: BuildSettings): { settings: BuildSettings; dropped: DroppedSetting[] } {
+  const dropped: DroppedSetting[] = [];
+  let settings = s;
+  const e = s.encoding;
+  const states = a.minimised.machine.states;
+  if ('kept' in e && !same(e.states, states)) {
+    const were = e.states.length === states.length ? `the states ${e.states.join(', ')}` : `${e.states.length} states`;
+    dropped.push({ setting: 'encoding', words: `the codes you picked were for ${were}; back to the searched codes` });
+    settings = { ...settings, encoding: { strategy: BUILD_DEFAULTS.encoding } };
+  }
+  const to = s.unusedCodes;
+  if (
+    to !== undefined &&
+    to !== 'dont-care' &&
+    !(to in a.minimised.merged && states.includes(a.minimised.merged[to]))
+  ) {
+    dropped.push({
+      setting: 'unused',
+      words: `unused codes were sent to '${to}', which this machine does not reach; back to the automatic choice`,
+    });
+    const { unusedCodes: _, ...rest } = settings;
+    settings = rest;
+  }
+  return { settings, dropped };
 }
 
 /** Encode and synthesise, without the checks (they follow in checkJob); `searched`: the search already run on two cores (worker/search.ts). */
 export function buildJob(
   a: Analysed,
-  s: BuildSettings,
+  asked: BuildSettings,
   onProgress?: (p: Progress) => void,
   searched?: EncodeResult,
 ): { view?: BuildView; built?: Built; diagnostics: Built['diagnostics'] } {
+  const { settings: s, dropped } = settle(a, asked);
   const b = buildMachine(a, { ...buildOptions(s, onProgress), checks: false, ...(searched ? { searched } : {}) });
   if (!b.ok) return { diagnostics: b.diagnostics };
   const view: BuildView = {
@@ -74,6 +123,7 @@ export function buildJob(
     forces: operatorForces(b.build.netlist, b.profile),
     ...(b.search ? { search: b.search } : {}),
     diagnostics: b.diagnostics,
+    ...(dropped.length > 0 ? { dropped } : {}),
   };
   return { view, built: b, diagnostics: b.diagnostics };
 }
@@ -83,10 +133,13 @@ export function checkJob(b: Built, seed: number): { built: Built; view: ChecksVi
   const checks = runChecks(b.build, b.analysed, b.profile, seed);
   const built: Built = { ...b, checks };
   const drive = findCheck(checks, 'drive');
-  const names = new Map(b.build.netlist.parts.map((p) => [p.id, p.name]));
+  const roles = partRoles(b.build.netlist);
   const margins: MarginBar[] = (drive?.drivers ?? [])
     .filter((d) => Number.isFinite(d.margin))
-    .map((d) => ({ driver: d.driver, label: names.get(d.driver) ?? d.driver, margin: d.margin, ok: d.ok }))
+    .map((d) => {
+      const r = roles.get(d.driver);
+      return { driver: d.driver, kind: r?.kind ?? 'part', does: r?.does ?? d.driver, margin: d.margin, ok: d.ok };
+    })
     .sort((x, y) => x.margin - y.margin);
   const forbidden = findCheck(checks, 'forbidden-input');
   const timing = findCheck(checks, 'timing');
@@ -115,9 +168,11 @@ export function torqueBars(drive: Pick<DriveResult, 'worstByState'>): TorqueBar[
 
 /** Every encoding side by side, priced by the finished build's part count. */
 export function compareJob(a: Analysed, s: BuildSettings, onProgress?: (p: Progress) => void): CodeRow[] {
-  return compareEncodings(a, buildOptions(s, onProgress)).map((r) => ({
+  const states = a.minimised.machine.states;
+  return compareEncodings(a, buildOptions(settle(a, s).settings, onProgress)).map((r) => ({
     strategy: r.strategy,
     ok: r.ok,
+    states,
     ...(r.encoding ? { encoding: r.encoding } : {}),
     ...(r.parts ? { parts: r.parts } : {}),
     ...(r.termGates !== undefined ? { termGates: r.termGates } : {}),

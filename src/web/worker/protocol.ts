@@ -7,34 +7,55 @@
  * A page revision (`rev`) travels with every job and every answer: the page drops answers for
  * a revision it has moved past, and the worker skips stages of a job a newer one replaced.
  */
-import type {
-  AutoReport,
-  BomRow,
-  Build,
-  CheckResult,
-  Diagnostic,
-  EncodeStrategy,
-  Encoding,
-  GuardReport,
-  Machine,
-  MachineForm,
-  OperatorForce,
-  PartCounts,
-  Profile,
-  RuleViolation,
-  TimingResult,
+import {
+  BUILD_DEFAULTS,
+  type AutoReport,
+  type BomRow,
+  type Build,
+  type CheckResult,
+  type Diagnostic,
+  type EncodeStrategy,
+  type Encoding,
+  type GuardReport,
+  type Machine,
+  type MachineForm,
+  type OperatorForce,
+  type PartCounts,
+  type Profile,
+  type RuleViolation,
+  type TimingResult,
 } from '../../core/index.js';
 import type { DiagramLayout } from '../diagram/layout.js';
 
-/** Codes chosen in the code book: a named strategy, or exact codes kept from a comparison. */
-export type EncodingChoice = { readonly strategy: EncodeStrategy } | { readonly kept: Encoding };
+/**
+ * Codes chosen in the code book: a named strategy, or exact codes kept from a comparison. Kept
+ * codes belong to the machine they were priced for: `states` are its states in the order the
+ * codes are given (the minimised machine's), and the build drops them when they differ.
+ */
+export type EncodingChoice =
+  { readonly strategy: EncodeStrategy } | { readonly kept: Encoding; readonly states: readonly string[] };
 
 /** How the page asks for a build. */
 export interface BuildSettings {
   readonly encoding: EncodingChoice;
   readonly seed: number;
-  /** 'dont-care' or the name of the state unused codes go to. */
-  readonly unusedCodes: string;
+  /**
+   * 'dont-care' or the name of the state unused codes go to; absent: the pipeline's own choice
+   * (don't-care unless the build could lock up, then the start state), as the command line.
+   */
+  readonly unusedCodes?: string;
+}
+
+/** The settings a page starts with: the command line's defaults (BUILD_DEFAULTS), so both build the same machine. */
+export const DEFAULT_SETTINGS: BuildSettings = {
+  encoding: { strategy: BUILD_DEFAULTS.encoding },
+  seed: BUILD_DEFAULTS.seed,
+};
+
+/** A setting the build could not use for this machine, dropped, with why in words. */
+export interface DroppedSetting {
+  readonly setting: 'encoding' | 'unused';
+  readonly words: string;
 }
 
 /** A machine as read: diagnostics always; the rest when it parsed and validated. */
@@ -42,6 +63,8 @@ export interface Reading {
   readonly ok: boolean;
   readonly form: MachineForm;
   readonly diagnostics: readonly Diagnostic[];
+  /** The machine's name, whenever it parsed (also when it did not validate). */
+  readonly name?: string;
   readonly machine?: Machine;
   /** Original state → the reduced state standing for it. */
   readonly merged?: Readonly<Record<string, string>>;
@@ -61,12 +84,15 @@ export interface BuildView {
   readonly forces: readonly OperatorForce[];
   readonly search?: AutoReport;
   readonly diagnostics: readonly Diagnostic[];
+  /** Settings dropped because they were made for another machine (the page forgets them). */
+  readonly dropped?: readonly DroppedSetting[];
 }
 
-/** One capstan's force margin, named for people. */
+/** One capstan's force margin, named for people: the kind of part and what it does, in words. */
 export interface MarginBar {
   readonly driver: string;
-  readonly label: string;
+  readonly kind: string;
+  readonly does: string;
   readonly margin: number;
   readonly ok: boolean;
 }
@@ -109,6 +135,8 @@ export interface CodeRow {
   readonly strategy: EncodeStrategy;
   readonly ok: boolean;
   readonly encoding?: Encoding;
+  /** The states the codes are for, in order (the minimised machine's). */
+  readonly states: readonly string[];
   readonly parts?: PartCounts;
   /** Gates computing set/reset product terms. */
   readonly termGates?: number;
@@ -118,12 +146,15 @@ export interface CodeRow {
   readonly problem?: string;
 }
 
-/** A document for download. */
-export interface ExportFile {
-  readonly name: string;
-  readonly mime: string;
-  readonly text: string;
-}
+/** A document for download: text, or bytes (the archive of every document). */
+export type ExportFile =
+  | { readonly name: string; readonly mime: string; readonly text: string }
+  | { readonly name: string; readonly mime: string; readonly bytes: Uint8Array };
+
+/** Ask `export` for this to get the build sheet made ready to print (with its drawings). */
+export const PRINT_SHEET = 'print';
+/** Ask `export` for this to get every document in one zip archive. */
+export const ALL_DOCUMENTS = 'all';
 
 export type ToWorker =
   | { readonly kind: 'read'; readonly rev: number; readonly text: string; readonly file: string }

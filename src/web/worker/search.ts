@@ -6,6 +6,7 @@
  * Progress is reported as the tasks finish. Without Worker support it all runs here.
  */
 import {
+  BUILD_DEFAULTS,
   buildSearchSetup,
   planSearch,
   searchOutcome,
@@ -41,7 +42,7 @@ export async function searchOnTwoCores(
   opts: BuildOptions,
   onProgress?: (p: Progress) => void,
 ): Promise<EncodeResult | undefined> {
-  if ((opts.encoding ?? 'auto') !== 'auto') return undefined;
+  if ((opts.encoding ?? BUILD_DEFAULTS.encoding) !== 'auto') return undefined;
   const setup = buildSearchSetup(a, opts);
   if (!('machine' in setup)) return undefined;
   const { plan, diagnostics } = planSearch(setup, onProgress ? { onProgress } : {});

@@ -4,7 +4,8 @@ import { fileURLToPath } from 'node:url';
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import { analyse, buildMachine } from '../../../src/core/pipeline.js';
 import { runAbstract } from '../../../src/core/sim/abstract.js';
-import { StepperController } from '../../../src/web/controllers/stepper.js';
+import { momentWords, nextPhase, StepperController } from '../../../src/web/controllers/stepper.js';
+import { clockActions } from '../../../src/core/sim/hand.js';
 import { tracesOf } from '../../../src/web/controllers/traces.js';
 
 const BELL = readFileSync(fileURLToPath(new URL('../../../examples/marble-bell.lw', import.meta.url)), 'utf8');
@@ -23,6 +24,16 @@ function host(): ReactiveControllerHost & { updates: number } {
 
 const key = (k: string, code = '', shiftKey = false, ctrlKey = false): KeyboardEvent =>
   ({ key: k, code, shiftKey, ctrlKey, altKey: false, metaKey: false }) as KeyboardEvent;
+
+const LOCK = readFileSync(fileURLToPath(new URL('../../../examples/sequence-lock.lw', import.meta.url)), 'utf8');
+
+function built(text: string) {
+  const a = analyse(text, 'x.lw');
+  if (!a.ok) throw new Error('must read');
+  const b = buildMachine(a, { encoding: 'binary', checks: false });
+  if (!b.ok) throw new Error('must build');
+  return { a, b };
+}
 
 function bell() {
   const a = analyse(BELL, 'b.lw');
@@ -82,5 +93,70 @@ describe('src/web/controllers/stepper', () => {
     // Power-up leaves the latches undetermined until reset.
     expect(traces[4].values[0]).toBe('X');
     expect(traces[1].values.join('')).toBe('0000' + '1000');
+  });
+
+  it('counts a clock done lever by lever as the hand procedure describes it, and only then', () => {
+    const { a, b } = bell();
+    const s = new StepperController(host());
+    s.follow(b.build, b.profile);
+    s.setInput('marble', 1);
+    for (const lever of ['phi1', 'phi1', 'phi2', 'phi2'] as const) s.toggle(lever);
+    expect(s.clocks).toBe(1);
+    expect(s.reading?.state).toBe(runAbstract(a.minimised.machine, ['1'])[0].nextName);
+    // φ2 alone is a transfer, not a clock; reset in the middle starts the procedure again.
+    s.toggle('phi2');
+    s.toggle('phi2');
+    s.toggle('phi1');
+    s.reset();
+    s.toggle('phi1'); // released after the reset: no φ1 of this clock
+    s.toggle('phi2');
+    s.toggle('phi2');
+    expect(s.clocks).toBe(1);
+    // Undo takes the count back with the step.
+    for (const lever of ['phi1', 'phi1', 'phi2', 'phi2'] as const) s.toggle(lever);
+    expect(s.clocks).toBe(2);
+    s.undo();
+    expect(s.clocks).toBe(1);
+    // The same procedure as the core's clock: φ1 pulled and released, then φ2 (src/core/sim/hand.ts).
+    let phase: Parameters<typeof nextPhase>[0] = 'idle';
+    let clocked = 0;
+    for (const act of clockActions(['marble'], { marble: 1 })) {
+      const n = nextPhase(phase, act);
+      phase = n.phase;
+      if (n.clocked) clocked++;
+    }
+    expect(clocked).toBe(1);
+  });
+
+  it('names the clock and the hand action of every alarm', () => {
+    const { b } = bell();
+    const s = new StepperController(host());
+    s.follow(b.build, b.profile);
+    s.clock();
+    s.clock();
+    s.toggle('phi1');
+    s.toggle('phi2');
+    expect(s.alarms.length).toBeGreaterThan(0);
+    for (const x of s.alarms) {
+      expect(x.clock).toBe(3);
+      expect(x.moment).toBe('pulling φ2 while φ1 is pulled');
+    }
+    expect(momentWords({ kind: 'input', input: 'a', value: 1 }, undefined)).toBe('setting a=1');
+  });
+
+  it('flags input levers set to a combination the machine declares never, with its line', () => {
+    const { a, b } = built(LOCK);
+    const s = new StepperController(host());
+    s.follow(b.build, b.profile, a.machine.never);
+    s.setInput('red', 1);
+    expect(s.impossible).toBeUndefined();
+    s.setInput('green', 1);
+    const line = LOCK.split('\n').indexOf('never red & green') + 1;
+    expect(s.impossible).toEqual({ guard: 'red & green', line });
+    expect(s.alarms.filter((x) => x.kind === 'never').map((x) => x.words)).toEqual([
+      `the inputs red=1 green=1 blue=0 are declared impossible (never red & green, line ${line}): the build may go to any state from here; its latches stay safe`,
+    ]);
+    s.undo();
+    expect(s.impossible).toBeUndefined();
   });
 });

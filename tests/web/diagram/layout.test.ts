@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { analyse } from '../../../src/core/pipeline.js';
-import { CHAR_W, layoutDiagram, outputWords, type LaidNode } from '../../../src/web/diagram/layout.js';
+import { CHAR_W, LAYERED_BUDGET, layoutDiagram, outputWords, type LaidNode } from '../../../src/web/diagram/layout.js';
 
 const example = (f: string): string =>
   readFileSync(fileURLToPath(new URL(`../../../examples/${f}`, import.meta.url)), 'utf8');
@@ -58,5 +58,38 @@ describe('src/web/diagram/layout', () => {
     expect([byId.get('b')?.mergedInto, byId.get('c')?.mergedInto].filter((x) => x !== undefined)).toHaveLength(1);
     expect(byId.get('a')?.mergedInto).toBeUndefined();
     expect(byId.get('b')?.lines).toEqual(['b', 'y=1']);
+  });
+
+  it('lays out a machine past the layered budget by distance from the start: every state once, none overlapping', () => {
+    // An invented ring of stations with a jump back every third: long edges, which make the layered layout slow.
+    const n = 150;
+    let text = 'machine ring\ninputs a, b\noutputs o\nstart s0\n';
+    for (let i = 0; i < n; i++)
+      text += `state s${i}${i % 3 === 0 ? ' with o=1' : ''}\n  when a go s${(i + 1) % n}\n  when b go s${(i * 7 + 3) % n}\n`;
+    const { a, l } = laid(text);
+    expect(a.machine.states.length + l.edges.length).toBeGreaterThan(LAYERED_BUDGET);
+    expect(l.method).toBe('by-distance');
+    expect(l.nodes.map((x) => x.id)).toEqual(a.machine.states.map((s) => s.name));
+    const byId = new Map(l.nodes.map((x) => [x.id, x]));
+    // The start state is in the first column; its successors in the next.
+    expect(byId.get('s0')?.x).toBe(Math.min(...l.nodes.map((x) => x.x)));
+    expect((byId.get('s1')?.x ?? 0) > (byId.get('s0')?.x ?? 0)).toBe(true);
+    const sorted = [...l.nodes].sort((p, q) => p.x - q.x || p.y - q.y);
+    for (let i = 0; i < sorted.length; i++)
+      for (let j = i + 1; j < sorted.length && sorted[j].x - sorted[i].x < 400; j++)
+        expect(overlap(sorted[i], sorted[j]), `${sorted[i].id} × ${sorted[j].id}`).toBe(false);
+    for (const x of l.nodes) {
+      expect(x.x - x.width / 2).toBeGreaterThanOrEqual(0);
+      expect(x.y + x.height / 2).toBeLessThanOrEqual(l.height + 1e-9);
+    }
+  });
+
+  it('lays out a chain of 4,000 states (the stack of a recursive layout would overflow)', () => {
+    let text = 'machine chain\ninputs a\noutputs o\nstart s0\n';
+    for (let i = 0; i < 4000; i++) text += `state s${i}\n  when a go s${(i + 1) % 4000}\n`;
+    const { l } = laid(text);
+    expect(l.nodes).toHaveLength(4000);
+    // Wrapped into bands rather than one endless row.
+    expect(l.width).toBeLessThan(20 * l.height);
   });
 });

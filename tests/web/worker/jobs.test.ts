@@ -5,11 +5,12 @@ import { analyse, buildMachine } from '../../../src/core/pipeline.js';
 import { findCheck } from '../../../src/core/checks/registry.js';
 import { drumLoad } from '../../../src/core/physics/drum.js';
 import { driveSnapshots } from '../../../src/core/sim/snapshots.js';
-import { buildJob, checkJob, compareJob, readJob, torqueBars } from '../../../src/web/worker/jobs.js';
-import type { BuildSettings } from '../../../src/web/worker/protocol.js';
+import { buildJob, checkJob, compareJob, readJob, settle, torqueBars } from '../../../src/web/worker/jobs.js';
+import { DEFAULT_SETTINGS, type BuildSettings } from '../../../src/web/worker/protocol.js';
 
 const BELL = readFileSync(fileURLToPath(new URL('../../../examples/marble-bell.lw', import.meta.url)), 'utf8');
 const binary: BuildSettings = { encoding: { strategy: 'binary' }, seed: 1, unusedCodes: 'dont-care' };
+const LIGHTHOUSE = readFileSync(fileURLToPath(new URL('../../../examples/lighthouse.lw', import.meta.url)), 'utf8');
 
 describe('src/web/worker/jobs', () => {
   it('reads a machine with the pipeline: the same diagnostics, plus the sketch', () => {
@@ -78,9 +79,32 @@ describe('src/web/worker/jobs', () => {
     for (const r of rows) expect(r.cheapest).toBe(r.cost === best);
     const gray = rows.find((r) => r.strategy === 'gray');
     if (!gray?.encoding) throw new Error('gray must fit');
-    const kept = buildJob(a, { ...binary, encoding: { kept: gray.encoding } });
+    const kept = buildJob(a, { ...binary, encoding: { kept: gray.encoding, states: gray.states } });
     expect(kept.view?.build.encoding.codes).toEqual(gray.encoding.codes);
     expect(kept.view?.build.parts).toEqual(gray.parts);
+    expect(kept.view?.dropped).toBeUndefined();
+  });
+
+  it('drops codes kept for other states, and unused codes sent to a state the machine lacks, with a plain notice', () => {
+    const bell = readJob(BELL, 'b.lw').analysed;
+    const other = readJob(LIGHTHOUSE, 'l.lw').analysed;
+    if (!bell || !other) throw new Error('must read');
+    const gray = compareJob(bell, binary).find((r) => r.strategy === 'gray');
+    if (!gray?.encoding) throw new Error('gray must fit');
+    const asked: BuildSettings = { ...DEFAULT_SETTINGS, encoding: { kept: gray.encoding, states: gray.states } };
+    // The same machine keeps them.
+    expect(settle(bell, asked)).toEqual({ settings: asked, dropped: [] });
+    // Another machine drops them: the searched codes again, said in words, and the build has no error.
+    const s = settle(other, { ...asked, unusedCodes: 'rung' });
+    expect(s.settings).toEqual(DEFAULT_SETTINGS);
+    expect(s.dropped.map((d) => d.setting)).toEqual(['encoding', 'unused']);
+    expect(s.dropped[0].words).toBe(
+      `the codes you picked were for ${gray.states.length} states; back to the searched codes`,
+    );
+    const b = buildJob(other, { ...asked, unusedCodes: 'rung' });
+    expect(b.view?.dropped).toEqual(s.dropped);
+    expect(b.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    expect(b.view?.build.parts).toEqual(buildJob(other, DEFAULT_SETTINGS).view?.build.parts);
   });
 
   it("draws one torque bar per state from the drive check's worst cases, the place in words", () => {

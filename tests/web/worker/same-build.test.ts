@@ -1,0 +1,52 @@
+/**
+ * One behaviour: the designer and the command line build the same machine from the same file.
+ * Every example is built both ways — `latchwright build FILE --out DIR` run in-process, and
+ * the designer's worker jobs with the page's starting settings (DEFAULT_SETTINGS, taken from
+ * the core's BUILD_DEFAULTS) — and the netlists must be identical, part for part and cord for
+ * cord, with the same codes and the same verdict of every check.
+ */
+import { afterAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { BUILD_DEFAULTS, DEFAULT_ENCODING, DEFAULT_PROFILE, netlistJson } from '../../../src/core/index.js';
+import { buildJob, checkJob, readJob } from '../../../src/web/worker/jobs.js';
+import { DEFAULT_SETTINGS } from '../../../src/web/worker/protocol.js';
+import { EXAMPLES, examplePath, removeTempDirs, run, tempDir } from '../../cli/support.js';
+
+afterAll(removeTempDirs);
+
+describe('src/web/worker (the same build as the command line)', () => {
+  it('starts from the core’s build defaults: the searched codes, seed, profile, unused codes left to the pipeline', () => {
+    expect(DEFAULT_SETTINGS).toEqual({ encoding: { strategy: BUILD_DEFAULTS.encoding }, seed: BUILD_DEFAULTS.seed });
+    expect(BUILD_DEFAULTS.encoding).toBe(DEFAULT_ENCODING);
+    expect(BUILD_DEFAULTS.profile).toBe(DEFAULT_PROFILE);
+    expect('unusedCodes' in DEFAULT_SETTINGS).toBe(false);
+  });
+
+  for (const name of EXAMPLES)
+    it(`builds ${name} exactly as \`latchwright build\` does`, async () => {
+      const file = examplePath(name);
+      const dir = tempDir();
+      const cli = await run(['build', file, '--out', dir]);
+      expect([0, 1], cli.err).toContain(cli.code);
+      const a = readJob(readFileSync(file, 'utf8'), file).analysed;
+      if (!a) throw new Error(`${name} must read`);
+      const b = buildJob(a, DEFAULT_SETTINGS);
+      if (!b.built || !b.view) throw new Error(`${name} must build in the worker`);
+      expect(netlistJson(b.view.build)).toBe(readFileSync(join(dir, 'netlist.json'), 'utf8'));
+      // The checker builds again with the codes the builder chose: still the same machine.
+      const again = buildJob(a, {
+        ...DEFAULT_SETTINGS,
+        encoding: { kept: b.view.build.encoding, states: b.view.build.machine.states },
+      });
+      expect(again.view && netlistJson(again.view.build)).toBe(netlistJson(b.view.build));
+      const checks = checkJob(b.built, DEFAULT_SETTINGS.seed).view.checks;
+      expect(
+        checks.every((c) => c.ok) ? 0 : 1,
+        `${name}: ${checks
+          .filter((c) => !c.ok)
+          .map((c) => c.summary)
+          .join('; ')}`,
+      ).toBe(cli.code);
+    });
+});
