@@ -6,7 +6,8 @@
  * is free. The answer is the one the core's own search gives for the same seed, whatever the
  * number of threads; with none (or when a worker cannot start) the tasks run on this thread.
  *
- * Under the TypeScript sources (tests, `tsx`) the worker is the .ts file, started with tsx.
+ * Under the TypeScript sources (tests, `tsx`) the worker is the .ts file, loaded through tsx's
+ * loader. A worker that fails hands its batch back to this thread, which finishes the search.
  */
 import { Worker } from 'node:worker_threads';
 import {
@@ -59,10 +60,14 @@ export async function searchOnThreads(
   const local = searchTaskRunner(setup);
   try {
     for (let batch = plan.next(); batch.length > 0; batch = plan.next()) {
-      const results =
-        pool.length > 0
-          ? await runBatch(pool, batch, (count, best) => plan.progress.add(count, best))
-          : batch.map((t) => local(t, plan.progress.tick));
+      let results: TaskResult[] | undefined;
+      if (pool.length > 0)
+        results = await runBatch(pool, batch, (count, best) => plan.progress.add(count, best)).catch(() => undefined);
+      // A worker that failed (it could not start, or it broke) leaves the batch to this thread: same answer.
+      if (!results) {
+        await Promise.all(pool.splice(0).map((w) => w.terminate()));
+        results = batch.map((t) => local(t, plan.progress.tick));
+      }
       plan.accept(results);
     }
   } finally {
@@ -76,10 +81,14 @@ function startPool(setup: SearchSetup, threads: number): Worker[] {
   const here = import.meta.url;
   const typescript = here.endsWith('.ts');
   const file = new URL(typescript ? './search-worker.ts' : './search-worker.js', here);
+  // Under the TypeScript sources the worker registers tsx's loader before it loads the .ts file.
+  const boot = `import('tsx/esm/api').then((t) => { t.register(); return import(${JSON.stringify(file.href)}); });`;
   const pool: Worker[] = [];
   try {
     for (let i = 0; i < threads; i++)
-      pool.push(new Worker(file, { workerData: setup, ...(typescript ? { execArgv: ['--import', 'tsx'] } : {}) }));
+      pool.push(
+        typescript ? new Worker(boot, { eval: true, workerData: setup }) : new Worker(file, { workerData: setup }),
+      );
   } catch {
     for (const w of pool) void w.terminate();
     return [];

@@ -97,6 +97,9 @@ export const DEFAULT_SEARCH = { exhaustiveClasses: 500, annealingEvaluations: 50
  * the `finalists` best screened candidates at the main length (half as many at one bit more)
  * are priced by the full cost — `largeFinalists` when one sketch takes more than
  * `largeSketch` steps (the full cost grows with the sketch, at 100–1000 times its time).
+ * When annealing screened and one sketch is at most `largeSketch` steps, `polishRuns` runs of
+ * `polishEvaluations` full-cost annealing steps start from the cheapest priced codes and from
+ * the cheapest named ones (the polish).
  * Past `hugeWork` (one sketch's steps times the variables of the set/reset functions, state
  * bits plus inputs: a measure of one full synthesis that grows with both), a full synthesis
  * takes seconds to tens of seconds, so the sketch alone chooses among the named encodings and
@@ -116,6 +119,8 @@ export const SKETCH_SEARCH = {
   largeSketch: 4e5,
   largeFinalists: 2,
   hugeWork: 3e7,
+  polishRuns: 2,
+  polishEvaluations: 10,
 } as const;
 
 /** Named strategies are priced only when their codes are at most this many bits longer than the minimum. */
@@ -231,8 +236,48 @@ export class AutoSearch {
       this.batch = this.finalists.map((c) => this.priceTask(c.codes, c.bits));
       return this.batch;
     }
-    this.stage = 4;
+    if (this.stage === 3 && this.polishes) {
+      this.stage = 4;
+      this.batch = this.polishTasks();
+      if (this.batch.length > 0) return this.batch;
+    }
+    this.stage = 5;
     return [];
+  }
+
+  /** Whether the polish runs: annealing screened, and one sketch is at most SKETCH_SEARCH.largeSketch steps. */
+  private get polishes(): boolean {
+    return this.sketched && !this.classes && this.sketchSize() <= SKETCH_SEARCH.largeSketch;
+  }
+
+  /**
+   * The polish: SKETCH_SEARCH.polishRuns annealing runs by the full cost, each of
+   * `polishEvaluations`, from the cheapest priced codes at the main length (the sketch ranks
+   * well but not exactly; a few full-cost steps near the best find what it misses).
+   */
+  private polishTasks(): SearchTask[] {
+    const atLength = this.priced.filter((p) => p.bits === this.bits);
+    const named = atLength.slice(0, this.named.filter((e) => e.bits === this.bits).length);
+    const cheapest = (list: readonly Priced[]): Priced | undefined =>
+      list.reduce<Priced | undefined>((b, p) => (!b || p.cost < b.cost ? p : b), undefined);
+    // One run from the best priced codes, one from the best named ones (their neighbourhood is
+    // where a full-cost search from them finds its gains); the same codes when those are named.
+    const starts = [cheapest(atLength), cheapest(named) ?? cheapest(atLength)];
+    if (!starts[0]) return [];
+    const room = this.o.maxEvaluations !== undefined ? this.o.maxEvaluations - this.evaluations : Infinity;
+    const runs = SKETCH_SEARCH.polishRuns;
+    const each = Math.min(SKETCH_SEARCH.polishEvaluations, Math.floor(room / runs));
+    if (each < 2) return [];
+    return taskSeeds(this.o.seed + 1, runs).map((seed, r) => ({
+      kind: 'anneal',
+      full: true,
+      bits: this.bits,
+      seed,
+      evaluations: each,
+      start: (starts[r % starts.length] ?? (starts[0] as Priced)).codes.map(codeToInt),
+      keep: 1,
+      ...(this.o.deadline !== undefined ? { deadline: this.o.deadline } : {}),
+    }));
   }
 
   /** The results of the batch just handed out, in its order. */
@@ -245,11 +290,12 @@ export class AutoSearch {
         if (t.kind === 'price' && r.priced) this.priced.push({ codes: t.codes, bits: t.bits, cost: r.cost });
         return;
       }
-      if (this.sketched) this.sketches += r.evaluations;
-      else this.evaluations += r.evaluations;
+      const full = !this.sketched || (t.kind === 'anneal' && t.full === true);
+      if (full) this.evaluations += r.evaluations;
+      else this.sketches += r.evaluations;
       if (!r.complete) this.complete = false;
-      screens.push(r);
-      if (!this.sketched) for (const c of r.best.slice(0, 1)) this.priced.push(c);
+      if (full) for (const c of r.best.slice(0, 1)) this.priced.push(c);
+      else screens.push(r);
     });
     if (this.sketched && screens.length > 0) this.finalists = this.chooseFinalists(screens);
   }
@@ -464,7 +510,10 @@ export class AutoSearch {
       const k = this.finalistCount();
       return named + listed + Math.min(listed, k + (this.wider ? Math.ceil(k / 2) : 0));
     }
-    if (this.sketched) return (this.huge ? 0 : named) + this.sketchBudget() + this.finalistCount();
+    if (this.sketched) {
+      const polish = this.polishes ? SKETCH_SEARCH.polishRuns * SKETCH_SEARCH.polishEvaluations : 0;
+      return (this.huge ? 0 : named) + this.sketchBudget() + this.finalistCount() + polish;
+    }
     const b = this.annealBudget();
     return Number.isFinite(b) ? named + b : null;
   }

@@ -11,7 +11,8 @@
  * Batches:
  * 1. the named strategies' codes, priced by the full cost, and the screening tasks: either the
  *    classes of assignments in fixed-size slices, or independent annealing runs;
- * 2. (when a sketch screens) the best few screened candidates, priced by the full cost.
+ * 2. (when a sketch screens) the best few screened candidates, priced by the full cost;
+ * 3. (when a sketch screens) short annealing runs by the full cost from the best priced codes.
  *
  * A task is plain data (it can be posted to a worker); its result too.
  */
@@ -61,6 +62,8 @@ export interface AnnealTask {
   readonly start?: readonly number[];
   readonly keep: number;
   readonly deadline?: number;
+  /** Anneal by the full cost even when a sketch screens (the search's last, polishing step). */
+  readonly full?: boolean;
 }
 
 export type SearchTask = PriceTask | ListTask | AnnealTask;
@@ -90,10 +93,11 @@ export function runTask(ctx: TaskContext, task: SearchTask, tick?: Tick): TaskRe
     tick?.(true, cost);
     return { kind: 'price', cost, priced: true };
   }
-  const full = !ctx.sketch;
+  const sketch = task.kind === 'anneal' && task.full ? undefined : ctx.sketch;
+  const full = !sketch;
   const book = new CostBook({
     cost: ctx.cost,
-    ...(ctx.sketch ? { measure: ctx.sketch } : {}),
+    ...(sketch ? { measure: sketch } : {}),
     pins: ctx.pins,
     maxEvaluations: task.kind === 'list' ? Infinity : task.evaluations,
     ...(task.deadline !== undefined ? { deadline: task.deadline } : {}),
