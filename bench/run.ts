@@ -4,7 +4,6 @@
  */
 import { writeFileSync, readFileSync, readdirSync } from 'node:fs';
 import os from 'node:os';
-import { createActor, createMachine } from 'xstate';
 import {
   analyse,
   type Analysed,
@@ -12,21 +11,14 @@ import {
   buildMachine,
   type Built,
   checkDrive,
-  checkEquivalence,
-  checkForbiddenInput,
-  checkRecovery,
-  clockEvent,
-  createRunner,
   DEFAULT_PROFILE,
   driveSnapshots,
-  exportXstate,
   type FlatMachine,
   printCubes,
   randomFlatMachine,
-  seededRandom,
-  timingOf,
 } from '../src/core/index.js';
 import { benchMinimiseLogic } from './minimise-logic.js';
+import { benchSimulatorAndChecks } from './sim-checks.js';
 import { median } from './median.js';
 import { benchBuildTable } from './build-table.js';
 
@@ -97,63 +89,6 @@ function benchAuto(): Row {
   };
 }
 
-function benchSimulation(): Row[] {
-  const a = mustAnalyse(readFileSync('examples/crossing.lw', 'utf8'), 'crossing.lw');
-  const b = mustBuild(a, 'binary', false);
-  const rnd = seededRandom(5);
-  const f = b.build.machine;
-  const seq = Array.from({ length: 2000 }, () => f.inputs.map(() => (rnd.next() < 0.5 ? '0' : '1')).join(''));
-  const runner = createRunner(b.build, timingOf(DEFAULT_PROFILE));
-  runner.reset();
-  const ev0 = runner.sim.evaluations;
-  const t = median(1, () => {
-    for (const s of seq) runner.clock(Object.fromEntries(f.inputs.map((n, i) => [n, s[i] === '1' ? 1 : 0])));
-  });
-  const evals = runner.sim.evaluations - ev0;
-  const x = exportXstate(a.machine, { form: 'clock' });
-  const actor = createActor(createMachine(x.config as never, x.implementations as never)).start();
-  const tx = median(1, () => {
-    for (const s of seq) actor.send(clockEvent(f.inputs, s));
-  });
-  return [
-    {
-      name: 'part-level simulation, crossing example, 2000 clocks',
-      figure: `${(((evals / t) * 1000) / 1e6).toFixed(2)} M gate evaluations/s`,
-      reference: '—',
-      ratio: '—',
-      goal: '≥ 1 M/s',
-    },
-    {
-      name: 'part-level clocks per second vs xstate actor steps per second (same machine, same 2000 clocks)',
-      figure: `${((seq.length / t) * 1000).toFixed(0)} clocks/s`,
-      reference: `xstate ${((seq.length / tx) * 1000).toFixed(0)} steps/s`,
-      ratio: (tx / t).toFixed(2) + '×',
-      goal: '—',
-    },
-  ];
-}
-
-function benchChecks(): Row {
-  // About 200 states need 8 state bits; 6 inputs.
-  const text = flatToJsonText(randomFlatMachine(200, 6, 2, 3));
-  const a = mustAnalyse(text, 'random-200.json');
-  const b = mustBuild(a, 'binary', false);
-  const spec = { original: a.flat, merged: a.minimised.merged };
-  const t = median(3, () => {
-    checkEquivalence(b.build, spec, DEFAULT_PROFILE);
-    checkForbiddenInput(b.build, DEFAULT_PROFILE);
-    checkRecovery(b.build, DEFAULT_PROFILE);
-  });
-  const ref = median(3, () => mustBuild(a, 'binary', false));
-  return {
-    name: `exhaustive checks (equivalence, forbidden input, recovery), ${b.build.encoding.bits} state bits × 6 inputs`,
-    figure: ms(t),
-    reference: `synthesis of the same build ${ms(ref)}`,
-    ratio: (t / ref).toFixed(1) + '×',
-    goal: '< 1 s',
-  };
-}
-
 function benchDrive(): Row {
   const sizes = readdirSync('examples')
     .filter((f) => f.endsWith('.lw'))
@@ -182,12 +117,12 @@ async function main(): Promise<void> {
   rows.push(benchAnalyse());
   step('auto encoding');
   rows.push(benchAuto());
-  step('simulation');
-  rows.push(...benchSimulation());
-  step('checks');
-  rows.push(benchChecks());
   step('drive');
   rows.push(benchDrive());
+  // ── Simulator and checks: a section of their own (bench/sim-checks.ts) ──
+  step('simulator and checks');
+  const simChecks = benchSimulatorAndChecks(process.argv.includes('--quick'));
+  // ── end of the simulator and checks section ──
   step('two-level minimiser');
   const logic = await benchMinimiseLogic({ quick: process.argv.includes('--quick') });
   const extra: string[] = [];
@@ -208,6 +143,10 @@ async function main(): Promise<void> {
     '| benchmark | figure | reference (same run) | ratio | goal |',
     '|---|---|---|---|---|',
     ...rows.map((r) => `| ${r.name} | ${r.figure} | ${r.reference} | ${r.ratio} | ${r.goal} |`),
+    '',
+    '## Simulator and checks',
+    '',
+    simChecks.markdown,
     '',
     '## Two-level minimiser against espresso-iisojs (Espresso-II)',
     '',

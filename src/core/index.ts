@@ -126,7 +126,14 @@ export {
 export { checkRecovery, type RecoveryOptions, type RecoveryResult } from './checks/recovery.js';
 export { checkTiming, type MonteCarloReport, type TimingOptions, type TimingResult } from './checks/timing.js';
 export { checkDrive, type DriveCheck } from './physics/check-drive.js';
-export { driveSnapshots, momentWords, placeWords, type SnapshotPlace } from './sim/snapshots.js';
+export {
+  driveSnapshots,
+  momentWords,
+  placeWords,
+  type DriveSnapshotRun,
+  type SnapshotOptions,
+  type SnapshotPlace,
+} from './sim/snapshots.js';
 export {
   CHECK_NAMES,
   CHECKS,
@@ -197,7 +204,14 @@ export { frictionHeadroom, headroomWords, type Headroom, type OutputLoad } from 
 export { sizeActuators } from './physics/actuators.js';
 export { withoutCapstan, withoutCapstanWords } from './phases/map/index.js';
 export { driveBudget, type BranchLoad, type DriverBudget } from './physics/drive.js';
-export { drumLoad, type DriveSnapshot, type DrumLoad, type SnapshotTorque } from './physics/drum.js';
+export {
+  drumLoad,
+  type DriveSnapshot,
+  type DrumLoad,
+  type IndexedOutputs,
+  type SnapshotOutputs,
+  type SnapshotTorque,
+} from './physics/drum.js';
 export { operatorForces, type OperatorForce } from './physics/operator.js';
 export { billOfMaterials, type BomRow } from './physics/bom.js';
 

@@ -7,7 +7,10 @@
  * combination (the `never` ones included: a visitor will try them), the hand procedure is
  * run — inputs set, φ1 pulled and released, φ2 pulled and released — and so is the reset
  * procedure; the simulator reports every instant at which a latch's two ports are pulled at
- * once, so transient overlaps count too. Then, per operating rule, a breadth-first search
+ * once, so transient overlaps count too. The start points run 32 at a time on the
+ * bit-parallel simulator (sim/sweep.ts); one whose latches the settle programs cannot vouch
+ * for (a port pulled both ways, both pulled, no program) runs again event-driven, with its
+ * input levers moved from released, and gives the alarm. Then, per operating rule, a breadth-first search
  * over hand actions from the reset machine, where actions may break that rule (and no
  * other), finds the shortest sequence after which a latch sees the forbidden input, is left
  * X, or the machine oscillates — what signage and interlocks are designed from.
@@ -21,7 +24,9 @@ import type { Build, CheckBase } from '../model/build.js';
 import { seededRandom, type Random } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
 import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
-import { clockFrom, forEachHeld, latchKey } from '../sim/clocking.js';
+import { clockFrom, latchKey } from '../sim/clocking.js';
+import { LANES, LaneBatch } from '../sim/lanes.js';
+import { sweep as sweepLanes } from '../sim/sweep.js';
 import {
   clockActions,
   describeAction,
@@ -34,11 +39,14 @@ import {
   type HandAction,
   type OperatingRule,
 } from '../sim/hand.js';
+import { isReady, moverFor } from '../sim/fast.js';
 import {
+  applyFastInPlace,
   applyInPlace,
   isAlarm,
   latchLabel,
   powerUp,
+  setLeversInPlace,
   simFor,
   stateAtCode,
   stepSim,
@@ -164,40 +172,102 @@ export function checkForbiddenInput(
 
 /** Reset and one clock from every start point of the scope; the start points simulated and the first failure. */
 function sweep(sim: PartSim, scope: Scope): { states: number; failure?: ForbiddenCounterexample } {
-  const f = sim.build.machine;
   const bits = sim.slaves.length;
-  const zero = '0'.repeat(f.inputs.length);
-  const clockFromZero = (a: string): HandAction[] =>
-    clockActions(f.inputs, valuesOf(f.inputs, a), valuesOf(f.inputs, zero));
+  const groups: [string, string][] = [];
+  for (const c of scope.codes)
+    // The masters equal to the slaves first (as every clock leaves them), then every other master code.
+    for (const m of scope.freeMasters ? [c, ...allCodes(bits).filter((x) => x !== c)] : [c]) groups.push([c, m]);
+  const batch = new LaneBatch(sim);
+  const resets = new ResetSweep(sim, groups);
   let states = 0;
   let failure: ForbiddenCounterexample | undefined;
-  for (const c of scope.codes) {
-    // The masters equal to the slaves first (as every clock leaves them), then every other master code.
-    for (const m of scope.freeMasters ? [c, ...allCodes(bits).filter((x) => x !== c)] : [c]) {
-      const base = stateAtCode(sim, c, zero, m);
-      const resetAlarms = runActions(sim, base.values, resetActions());
-      if (resetAlarms.length > 0)
-        return { states, failure: counterexample(f.inputs, c, m, zero, resetActions(), resetAlarms) };
-      forEachHeld(
-        sim,
-        base.values,
-        scope.tries,
-        (held, a) => {
-          if (failure) return false;
+  for (let g = 0; g < groups.length && !failure; g++) {
+    const [c, m] = groups[g];
+    failure = resets.failure(g);
+    if (failure) break;
+    sweepLanes(
+      sim,
+      scope.tries.length,
+      {
+        setUp: (b, lane, i) => {
+          b.setCodes(lane, c, m);
+          b.setInputs(lane, scope.tries[i]);
+        },
+        done: () => void states++,
+        slow: (i) => {
           states++;
-          const out = clockFrom(sim, held);
-          if (out.alarms.length === 0) return true;
-          failure = counterexample(f.inputs, c, m, a, clockFromZero(a), out.alarms);
-          return false;
+          failure = slowClock(sim, c, m, scope.tries[i]);
+          return failure === undefined;
         },
-        (a, alarms) => {
-          failure = counterexample(f.inputs, c, m, a, clockFromZero(a).slice(0, -4), alarms);
-        },
-      );
-      if (failure) return { states, failure };
-    }
+      },
+      batch,
+    );
   }
-  return { states };
+  return failure ? { states, failure } : { states };
+}
+
+/** The reset procedure from every (slave code, master code) group, 32 groups at a time; the failure of a group, if any. */
+class ResetSweep {
+  private readonly alarms: (PartEvent[] | undefined)[] = [];
+  private done = 0;
+  private readonly batch: LaneBatch;
+  constructor(
+    private readonly sim: PartSim,
+    private readonly groups: readonly (readonly [string, string])[],
+  ) {
+    this.batch = new LaneBatch(sim);
+  }
+
+  failure(g: number): ForbiddenCounterexample | undefined {
+    while (this.done <= g) this.next();
+    const alarms = this.alarms[g];
+    if (!alarms || alarms.length === 0) return undefined;
+    const [c, m] = this.groups[g];
+    const zero = '0'.repeat(this.sim.build.machine.inputs.length);
+    return counterexample(this.sim.build.machine.inputs, c, m, zero, resetActions(), alarms);
+  }
+
+  private next(): void {
+    const { sim, groups } = this;
+    const first = this.done;
+    const zero = '0'.repeat(sim.build.machine.inputs.length);
+    sweepLanes(
+      sim,
+      Math.min(LANES, groups.length - first),
+      {
+        setUp: (b, lane, i) => {
+          b.setCodes(lane, groups[first + i][0], groups[first + i][1]);
+          b.setInputs(lane, zero);
+        },
+        moves: (b) => {
+          b.move(sim.reset, 1);
+          b.move(sim.reset, 0);
+        },
+        done: (i) => void (this.alarms[first + i] = undefined),
+        slow: (i) => {
+          const [c, m] = groups[first + i];
+          this.alarms[first + i] = runActions(sim, stateAtCode(sim, c, zero, m).values, resetActions());
+        },
+      },
+      this.batch,
+    );
+    this.done = Math.min(groups.length, first + LANES);
+  }
+}
+
+/** One start point, event-driven: the levers moved from released to `a`, then one clock; the failure, if any. */
+function slowClock(sim: PartSim, c: string, m: string, a: string): ForbiddenCounterexample | undefined {
+  const inputs = sim.build.machine.inputs;
+  const zero = '0'.repeat(inputs.length);
+  const clockFromZero = (): HandAction[] => clockActions(inputs, valuesOf(inputs, a), valuesOf(inputs, zero));
+  const held = stateAtCode(sim, c, zero, m).values;
+  const events: PartEvent[] = [];
+  const to = [...a].map((x) => (x === '1' ? 1 : 0));
+  setLeversInPlace(sim, held, 0, Array.from(sim.inputLevers), to, events);
+  const moving = events.filter(isAlarm);
+  if (moving.length > 0) return counterexample(inputs, c, m, a, clockFromZero().slice(0, -4), moving);
+  const out = clockFrom(sim, held);
+  return out.alarms.length > 0 ? counterexample(inputs, c, m, a, clockFromZero(), out.alarms) : undefined;
 }
 
 function counterexample(
@@ -235,6 +305,8 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
   const f = sim.build.machine;
   let [start] = powerUp(sim);
   for (const a of resetActions()) start = stepSim(sim, start, a)[0];
+  const mover = moverFor(sim);
+  const readyOf: boolean[] = [isReady(sim, start.values)];
   const moves: HandAction[] = [];
   const levers = ['phi1', 'phi2', 'reset'] as const;
   const statesOf: Uint8Array[] = [start.values];
@@ -244,9 +316,12 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
   const depth: number[] = [0];
   const keyOf = (v: Uint8Array, b: boolean): string => {
     let k = b ? '1' : '0';
-    for (let d = 0; d < sim.leverCount; d++) k += v[d];
+    for (let d = 0; d < sim.leverCount; d++) k += v[d] === 1 ? '1' : '0';
     return k + latchKey(sim, v);
   };
+  // One scratch state and one event list for every move; a state is copied only when it is new.
+  const next = new Uint8Array(sim.driverCount);
+  const events: PartEvent[] = [];
   const seen = new Set([keyOf(start.values, false)]);
   const path = (i: number, last: HandAction): HandAction[] => {
     const out = [last];
@@ -271,18 +346,21 @@ function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxSt
       if (r !== null && r !== rule) continue;
       const b = broken[i] || r === rule;
       if (b && !firstBreak) firstBreak = path(i, a);
-      const [next, events] = stepSim(sim, { values: v, timeUs: 0 }, a);
-      const upset = events.filter((e) => UPSETS.has(e.kind));
+      next.set(v);
+      if (events.length > 0) events.length = 0;
+      applyFastInPlace(sim, next, 0, a, events, readyOf[i]);
+      const upset = events.length === 0 ? events : events.filter((e) => UPSETS.has(e.kind));
       if (b && upset.length > 0) {
         const actions = path(i, a);
         const latches = [...new Set(upset.flatMap((e) => (e.latch ? [e.latch] : [])))];
         const words = `${RULE_WORDS[rule]}: breaking it (${actions.map(describeAction).join(', ')}) upsets ${latches.length > 0 ? latches.map(latchLabel).join(', ') : 'the machine'}: ${upset[0].words}`;
         return { rule, violation: actions, trace: describeTrace(actions), upsets: latches, words };
       }
-      const key = keyOf(next.values, b);
+      const key = keyOf(next, b);
       if (seen.has(key)) continue;
       seen.add(key);
-      statesOf.push(next.values);
+      statesOf.push(next.slice());
+      readyOf.push(mover.ready);
       broken.push(b);
       parent.push(i);
       via.push(a);

@@ -4,7 +4,8 @@
  *
  * Method: build the graph of clocks among unused codes by part-level simulation (from each
  * unused code, with masters equal to slaves, one clock of the hand procedure per input
- * combination), then a depth-first search for its longest path: k(c) = 1 + the largest k of
+ * combination, 32 at a time on the bit-parallel simulator of sim/sweep.ts, event-driven where
+ * it cannot vouch for a clock), then a depth-first search for its longest path: k(c) = 1 + the largest k of
  * an unused successor (0 for a used one). A cycle is a lock-up loop: some input sequence
  * keeps the machine among unused codes for ever (the usual lock-up analysis of unused states;
  * e.g. Kohavi & Jha, *Switching and Finite Automata Theory*, 3rd ed. — from memory).
@@ -16,7 +17,9 @@ import type { Build, CheckBase } from '../model/build.js';
 import { seededRandom } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
 import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
-import { clockFrom, forEachHeld } from '../sim/clocking.js';
+import { clockFrom } from '../sim/clocking.js';
+import { LaneBatch } from '../sim/lanes.js';
+import { sweep } from '../sim/sweep.js';
 import { simFor, stateAtCode, timingOf, type PartSim } from '../sim/part.js';
 
 export interface RecoveryOptions {
@@ -102,23 +105,39 @@ function clockGraph(
   used: ReadonlySet<string>,
   maxCodes: number,
 ): Map<string, Edge[]> {
-  const zero = '0'.repeat(sim.build.machine.inputs.length);
   const edges = new Map<string, Edge[]>();
   const queue = [...start];
+  const batch = new LaneBatch(sim);
   for (let i = 0; i < queue.length && edges.size < maxCodes; i++) {
     const c = queue[i];
     if (edges.has(c)) continue;
     const out: Edge[] = [];
-    forEachHeld(sim, stateAtCode(sim, c, zero).values, tries, (held, a) => {
-      const r = clockFrom(sim, held);
-      if (r.alarms.length > 0 || r.code.includes('X')) {
-        const words = r.alarms.map((e) => e.words).join('; ') || 'a latch is left undetermined (X)';
-        out.push({ next: r.code, inputs: a, words });
-        return;
-      }
-      if (!out.some((e) => e.next === r.code)) out.push({ next: r.code, inputs: a });
-      if (!used.has(r.code) && !edges.has(r.code)) queue.push(r.code);
-    });
+    const reached = (next: string, a: string, words?: string): void => {
+      if (words !== undefined) out.push({ next, inputs: a, words });
+      else if (!out.some((e) => e.next === next)) out.push({ next, inputs: a });
+      if (words === undefined && !used.has(next) && !edges.has(next)) queue.push(next);
+    };
+    sweep(
+      sim,
+      tries.length,
+      {
+        setUp: (b, lane, k) => {
+          b.setCodes(lane, c);
+          b.setInputs(lane, tries[k]);
+        },
+        done: (k, b, lane) => reached(b.slaveCode(lane), tries[k]),
+        slow: (k) => {
+          const r = clockFrom(sim, stateAtCode(sim, c, tries[k]).values);
+          const bad = r.alarms.length > 0 || r.code.includes('X');
+          reached(
+            r.code,
+            tries[k],
+            bad ? r.alarms.map((e) => e.words).join('; ') || 'a latch is left undetermined (X)' : undefined,
+          );
+        },
+      },
+      batch,
+    );
     edges.set(c, out);
   }
   return edges;

@@ -11,8 +11,14 @@ import type { NextStateResult } from './logic.js';
 import type { RecoveryResult } from './recovery.js';
 import type { TimingResult } from './timing.js';
 
-/** The drive check's result, its places being those of the drive snapshots (state, code, inputs, clock phase). */
-export type DriveResult = DriveCheck<SnapshotPlace>;
+/**
+ * The drive check's result, its places being those of the drive snapshots (state, code, inputs,
+ * clock phase), and which input combinations the drum torque was taken over.
+ */
+export type DriveResult = DriveCheck<SnapshotPlace> & {
+  /** Start points (state × input combination) simulated for the drum torque, and whether they were all of them or a seeded sample. */
+  readonly torqueOver: { readonly clocks: number; readonly inputs: 'exhaustive' | 'sampled'; readonly seed: number };
+};
 
 /** Every check's result: a union told apart by `name`. */
 export type CheckResult =

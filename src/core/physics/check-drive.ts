@@ -11,12 +11,13 @@
  * which every capstan still holds), `muAtMinMargin` (the lowest μ at which every capstan keeps
  * the design margin), both null without loaded drivers, and `outputs` (per actuator output:
  * its load, the largest load it could lift at the design margin, its capstan's margin). The
- * snapshots are read once, in order, and only these worst-case figures are kept in the result.
+ * snapshots are read once, in order, and not kept (drum.ts streams them): only these
+ * worst-case figures are, so any number of snapshots fits in memory.
  */
 import type { CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
 import { driveBudget, type DriverBudget } from './drive.js';
-import { ALL_ENGAGED, drumLoad, type DriveSnapshot, type SnapshotTorque } from './drum.js';
+import { ALL_ENGAGED, drumLoad, type DriveSnapshot } from './drum.js';
 import { frictionHeadroom, headroomWords, outputLoadWords, type OutputLoad } from './headroom.js';
 import { operatorForces } from './operator.js';
 import type { Profile } from './profile.js';
@@ -63,7 +64,7 @@ export function checkDrive<W extends StatePlace>(
   words: (where: W) => string = (w) => w.state,
 ): DriveCheck<W> {
   const drivers = driveBudget(netlist, profile);
-  const drum = drumLoad(netlist, profile, snapshots);
+  const drum = drumLoad(netlist, profile, snapshots, (w) => w.state);
   const operatorForceMaxG = operatorForces(netlist, profile).reduce((m, o) => Math.max(m, o.forceG), 0);
   const loaded = drivers.filter((d) => Number.isFinite(d.margin));
   const weakest = loaded.reduce<DriverBudget | undefined>((w, d) => (!w || d.margin < w.margin ? d : w), undefined);
@@ -94,22 +95,11 @@ export function checkDrive<W extends StatePlace>(
     worstTorqueNm: drum.worst.torqueNm,
     worstPowerW: drum.worst.powerW,
     worstAt: drum.worst.where,
-    worstByState: worstByState(drum.snapshots),
+    worstByState: drum.worstByGroup.map((r) => ({ where: r.where, torqueNm: r.torqueNm, powerW: r.powerW })),
     operatorForceMaxG,
     drivers,
     muMin: headroom.muMin,
     muAtMinMargin: headroom.muAtMinMargin,
     outputs: headroom.outputs,
   };
-}
-
-/** The worst snapshot of each state (the first of equals), in the order the states first appear. */
-function worstByState<W extends StatePlace>(rows: readonly SnapshotTorque<W>[]): TorqueCase<W>[] {
-  const worst = new Map<string, TorqueCase<W>>();
-  for (const r of rows) {
-    const w = worst.get(r.where.state);
-    if (!w || r.torqueNm > w.torqueNm)
-      worst.set(r.where.state, { where: r.where, torqueNm: r.torqueNm, powerW: r.powerW });
-  }
-  return [...worst.values()];
 }

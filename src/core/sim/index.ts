@@ -1,7 +1,8 @@
 /**
  * The simulation layer's barrel: the part-level simulator (pure step and compiled netlist),
- * the hand procedure, the runner with undo, scripted stepping, drive snapshots, the abstract
- * reference simulator and the random-machine generator the tests and benchmarks share.
+ * the settle programs and the bit-parallel lanes, the hand procedure, the runner with undo,
+ * scripted stepping, drive snapshots, the abstract reference simulator and the
+ * random-machine generator the tests and benchmarks share.
  */
 export * from './abstract.js';
 export * from './hand.js';
@@ -10,3 +11,8 @@ export * from './random-machine.js';
 export * from './runner.js';
 export * from './script.js';
 export * from './snapshots.js';
+export { allCodes, grayAssignments } from './assignments.js';
+export { clockFrom } from './clocking.js';
+export { LANES, LaneBatch } from './lanes.js';
+export { heldProgram, moveProgram, type SettleProgram } from './program.js';
+export { sweep, type SweepSteps } from './sweep.js';

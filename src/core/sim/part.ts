@@ -21,6 +21,7 @@ import {
   type InputValues,
   type OperatingRule,
 } from './hand.js';
+import { isReady, moverFor } from './fast.js';
 import { evalGate, settle, show, type PartEvent, type PartEventKind } from './settle.js';
 
 export { X, compilePart, type PartSim, type PartTiming, type Trit } from './compile.js';
@@ -69,11 +70,17 @@ export function stepPart(
   return stepSim(simFor(build, opts.timing ?? timingOf(DEFAULT_PROFILE)), state, action, opts.trace ?? false);
 }
 
-/** The pure step on an already compiled netlist. */
+/**
+ * The pure step on an already compiled netlist. Without `trace` the move is settled by the
+ * fast pass where it can vouch for the result (fast.ts), which gives what the event-driven
+ * settling gives; with `trace` always event-driven (it reports every part change).
+ */
 export function stepSim(sim: PartSim, state: PartState, action: HandAction, trace = false): [PartState, PartEvent[]] {
   const values = state.values.slice();
   const events: PartEvent[] = [];
-  const timeUs = applyInPlace(sim, values, state.timeUs, action, events, trace);
+  const timeUs = trace
+    ? applyInPlace(sim, values, state.timeUs, action, events, true)
+    : applyFastInPlace(sim, values, state.timeUs, action, events, isReady(sim, state.values));
   return [{ values, timeUs }, events];
 }
 
@@ -105,6 +112,20 @@ export function applyInPlace(
 ): number {
   const [d, v] = leverOf(sim, a);
   if (d < 0 || values[d] === v) return timeUs;
+  ruleAlarm(sim, values, timeUs, a, d, events);
+  values[d] = v;
+  return settle(sim, values, timeUs, [d], events, trace);
+}
+
+/** The alarm of an action that breaks an operating rule with the levers where they are (before the move). */
+function ruleAlarm(
+  sim: PartSim,
+  values: Uint8Array,
+  timeUs: number,
+  a: HandAction,
+  d: number,
+  events: PartEvent[],
+): void {
   const rule = ruleBroken(a, {
     phi1: values[sim.phi1] === 1,
     phi2: values[sim.phi2] === 1,
@@ -118,8 +139,29 @@ export function applyInPlace(
       parts: [sim.names[d]],
       words: `operating rule broken (${RULE_WORDS[rule]}): ${describeAction(a)}`,
     });
-  values[d] = v;
-  return settle(sim, values, timeUs, [d], events, trace);
+}
+
+/**
+ * `applyInPlace` without tracing, settled by the fast pass where it can vouch for the result
+ * (fast.ts): the same values, alarms and time. `ready` says `values` is ready for the pass
+ * (isReady); afterwards `moverFor(sim).ready` says whether the result is.
+ */
+export function applyFastInPlace(
+  sim: PartSim,
+  values: Uint8Array,
+  timeUs: number,
+  a: HandAction,
+  events: PartEvent[],
+  ready: boolean,
+): number {
+  const mover = moverFor(sim);
+  const [d, v] = leverOf(sim, a);
+  if (d < 0 || values[d] === v) {
+    mover.ready = ready;
+    return timeUs;
+  }
+  ruleAlarm(sim, values, timeUs, a, d, events);
+  return mover.move(values, timeUs, d, v, events, ready);
 }
 
 /** Set several levers at once (used by the exhaustive checks; the hand sets them one by one). */
@@ -158,18 +200,45 @@ export function powerUp(sim: PartSim): [PartState, PartEvent[]] {
  * released, input levers at `assignment`.
  */
 export function stateAtCode(sim: PartSim, code: string, assignment = '', masterCode = code): PartState {
-  const values = new Uint8Array(sim.driverCount).fill(X);
-  values.fill(0, 0, sim.leverCount);
-  sim.inputLevers.forEach((d, i) => (values[d] = assignment[i] === '1' ? 1 : 0));
+  return stateAtLatches(sim, latchesAtCode(sim, code, masterCode), assignment);
+}
+
+/** Q and Q̄ of every latch (in latch order, two values each) for a slave code and a master code. */
+export function latchesAtCode(sim: PartSim, code: string, masterCode = code): Uint8Array {
+  const latches = new Uint8Array(2 * sim.latches.length).fill(X);
   const put = (li: number, bit: string): void => {
-    const l = sim.latches[li];
-    values[l.set] = bit === '1' ? 1 : 0;
-    values[l.reset] = bit === '1' ? 0 : 1;
+    latches[2 * li] = bit === '1' ? 1 : 0;
+    latches[2 * li + 1] = bit === '1' ? 0 : 1;
   };
   for (let b = 0; b < code.length; b++) {
     if (b < sim.masters.length) put(sim.masters[b], masterCode[b]);
     if (b < sim.slaves.length) put(sim.slaves[b], code[b]);
   }
+  return latches;
+}
+
+/** Q and Q̄ of every latch (in latch order, two values each) in a state's values. */
+export function latchesOf(sim: PartSim, values: ArrayLike<number>): Uint8Array {
+  const latches = new Uint8Array(2 * sim.latches.length);
+  sim.latches.forEach((l, li) => {
+    latches[2 * li] = values[l.set];
+    latches[2 * li + 1] = values[l.reset];
+  });
+  return latches;
+}
+
+/**
+ * The machine with its latches at `latches` (Q and Q̄ per latch, latchesAtCode's layout; X for
+ * a latch not set up), control levers released, input levers at `assignment`, then settled.
+ */
+export function stateAtLatches(sim: PartSim, latches: ArrayLike<number>, assignment = ''): PartState {
+  const values = new Uint8Array(sim.driverCount).fill(X);
+  values.fill(0, 0, sim.leverCount);
+  sim.inputLevers.forEach((d, i) => (values[d] = assignment[i] === '1' ? 1 : 0));
+  sim.latches.forEach((l, li) => {
+    values[l.set] = latches[2 * li];
+    values[l.reset] = latches[2 * li + 1];
+  });
   const gates: number[] = [];
   for (let g = sim.leverCount; g < sim.driverCount; g++) if (sim.latchOf[g] < 0) gates.push(g);
   // Combinational gates first, without delay, so the latches see settled inputs.

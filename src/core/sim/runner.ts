@@ -1,16 +1,25 @@
 /**
- * A thin runner over the pure part step: it holds the current state and an undo history and
- * offers the hand procedure as whole steps (`clock`, `reset`). All behaviour is in part.ts.
+ * A thin runner over the part step: it holds the current state and offers the hand procedure
+ * as whole steps (`clock`, `reset`), with undo. All behaviour is in part.ts and fast.ts.
+ *
+ * What is not asked for costs (almost) nothing: the state is moved in place, lever by lever,
+ * by the fast pass where it can vouch for the result (fast.ts), else event-driven; a clock's
+ * readings are kept as a few bytes (the levers, latches and output drivers) and put in words
+ * only when read; undo keeps a log of the steps and a copy of the state every
+ * `CHECKPOINT_EVERY` steps, and goes back by replaying from the nearest copy (the step is
+ * deterministic, so the replay gives the same state).
  */
 import type { Build } from '../model/build.js';
-import { clockActions, describeAction, resetActions, type HandAction, type InputValues } from './hand.js';
+import { X } from './compile.js';
+import { isBinary, moverFor, type FastMover } from './fast.js';
+import { describeAction, RULE_WORDS, type HandAction, type InputValues, type OperatingRule } from './hand.js';
 import {
-  isAlarm,
+  applyFastInPlace,
   powerUp,
   readPart,
   simFor,
-  stepSim,
   type PartEvent,
+  type PartEventKind,
   type PartReading,
   type PartSim,
   type PartState,
@@ -28,7 +37,7 @@ export interface ClockRecord {
 
 export interface PartRunner {
   readonly sim: PartSim;
-  /** The current state. */
+  /** The current state (a copy). */
   readonly state: PartState;
   /** The current reading (state, code, levers, latches, outputs). */
   reading(): PartReading;
@@ -44,55 +53,312 @@ export interface PartRunner {
   readonly history: readonly string[];
 }
 
+/** Bytes per block of kept readings. */
+const KEPT_BLOCK = 1 << 14;
+
+/** Steps between two kept copies of the state (undo replays at most this many steps). */
+export const CHECKPOINT_EVERY = 64;
+
+const NO_ALARMS: readonly PartEvent[] = Object.freeze([]);
+
+/** The drivers a reading looks at: levers, latch gates and the drivers of the outputs. */
+function readingDrivers(sim: PartSim): Int32Array {
+  const ds = new Set<number>();
+  for (let d = 0; d < sim.leverCount; d++) ds.add(d);
+  for (const l of sim.latches) ds.add(l.set).add(l.reset);
+  for (const r of sim.outputs) {
+    if (r.kind === 'flag') ds.add(r.gate);
+    if (r.kind === 'actuator') for (const d of r.drivers) ds.add(d);
+  }
+  return Int32Array.from([...ds].sort((a, b) => a - b));
+}
+
+/** Two readings of one clock (inputs held, then after φ2), kept as the values of a few drivers each; put in words when read. */
+class LazyClockRecord implements ClockRecord {
+  private held: PartReading | undefined;
+  private done: PartReading | undefined;
+  constructor(
+    readonly inputs: InputValues,
+    private readonly sim: PartSim,
+    private readonly drivers: Int32Array,
+    /** From `at`: the drivers' values while the inputs were held, then after the clock. */
+    private readonly kept: Uint8Array,
+    private readonly at: number,
+    private readonly heldUs: number,
+    private readonly doneUs: number,
+    readonly alarms: readonly PartEvent[],
+  ) {}
+  get before(): PartReading {
+    return (this.held ??= this.read(this.at, this.heldUs));
+  }
+  get outputs(): Readonly<Record<string, string>> {
+    return this.before.outputs;
+  }
+  get after(): PartReading {
+    return (this.done ??= this.read(this.at + this.drivers.length, this.doneUs));
+  }
+  private read(from: number, timeUs: number): PartReading {
+    const values = new Uint8Array(this.sim.driverCount).fill(X);
+    for (let i = 0; i < this.drivers.length; i++) values[this.drivers[i]] = this.kept[from + i];
+    return readPart(this.sim, { values, timeUs });
+  }
+}
+
+/** Kinds of logged steps; a clock's payload is its input levers (a bit per input, or a '0'/'1' string past 30 inputs). */
+const ACT = 0;
+const CLOCK = 1;
+const RESET = 2;
+
+/**
+ * The log of steps, kept in typed arrays (a clock costs two numbers, nothing for the garbage
+ * collector to walk): the kind of each step and, for a clock with up to 30 inputs, its input
+ * levers as bits; an action or a wider clock's levers sit in a side table by step.
+ */
+class StepLog {
+  private kinds = new Uint8Array(256);
+  private bits = new Int32Array(256);
+  private readonly others = new Map<number, HandAction | string>();
+  length = 0;
+
+  push(kind: number, payload: HandAction | number | string | null): void {
+    if (this.length === this.kinds.length) {
+      const kinds = new Uint8Array(2 * this.length);
+      kinds.set(this.kinds);
+      const bits = new Int32Array(2 * this.length);
+      bits.set(this.bits);
+      this.kinds = kinds;
+      this.bits = bits;
+    }
+    this.kinds[this.length] = kind;
+    if (typeof payload === 'number') this.bits[this.length] = payload;
+    else if (payload !== null) this.others.set(this.length, payload);
+    this.length++;
+  }
+
+  pop(): void {
+    this.length--;
+    this.others.delete(this.length);
+  }
+
+  kind(i: number): number {
+    return this.kinds[i];
+  }
+
+  payload(i: number): HandAction | number | string | null {
+    return this.others.get(i) ?? (this.kinds[i] === CLOCK ? this.bits[i] : null);
+  }
+
+  /** The steps in words, oldest first. */
+  labels(): string[] {
+    const out: string[] = [];
+    for (let i = 0; i < this.length; i++) {
+      const k = this.kinds[i];
+      out.push(k === CLOCK ? 'clock' : k === RESET ? 'reset' : describeAction(this.others.get(i) as HandAction));
+    }
+    return out;
+  }
+}
+
+interface Checkpoint {
+  /** The state before step `at`. */
+  readonly at: number;
+  readonly values: Uint8Array;
+  readonly timeUs: number;
+  readonly ready: boolean;
+}
+
+const RULE_KIND: Readonly<Record<OperatingRule, PartEventKind>> = {
+  'clocks-apart': 'clocks-together',
+  'inputs-steady': 'input-during-phi1',
+  'reset-alone': 'reset-during-clock',
+};
+
+class Runner implements PartRunner {
+  private values: Uint8Array;
+  private timeUs: number;
+  private ready = false;
+  private readonly mover: FastMover;
+  private readonly drivers: Int32Array;
+  /** The steps done, to replay them: a kind and a payload each (see StepLog). */
+  private readonly log = new StepLog();
+  private readonly checkpoints: Checkpoint[] = [];
+  private alarms: PartEvent[] | null = null;
+  /** Kept readings of the clocks, packed into shared blocks (no allocation per clock). */
+  private block = new Uint8Array(0);
+  private blockUsed = 0;
+  /** Events of one move (reused: most moves raise none). */
+  private readonly events: PartEvent[] = [];
+
+  constructor(readonly sim: PartSim) {
+    const [s] = powerUp(sim);
+    this.values = s.values.slice();
+    this.timeUs = s.timeUs;
+    this.ready = isBinary(sim, this.values);
+    this.mover = moverFor(sim);
+    this.drivers = readingDrivers(sim);
+  }
+
+  get state(): PartState {
+    return { values: this.values.slice(), timeUs: this.timeUs };
+  }
+
+  get history(): readonly string[] {
+    return this.log.labels();
+  }
+
+  reading(): PartReading {
+    return readPart(this.sim, { values: this.values, timeUs: this.timeUs });
+  }
+
+  act(action: HandAction): PartEvent[] {
+    this.remember(ACT, action);
+    return this.doAct(action);
+  }
+
+  clock(inputs: InputValues): ClockRecord {
+    const names = this.sim.build.machine.inputs;
+    let packed: number | string = 0;
+    if (names.length <= 30) for (let i = 0; i < names.length; i++) packed |= (inputs[names[i]] === 1 ? 1 : 0) << i;
+    else packed = names.map((n) => (inputs[n] === 1 ? '1' : '0')).join('');
+    this.remember(CLOCK, packed);
+    this.alarms = null;
+    this.setInputs(packed);
+    const ds = this.drivers;
+    const at = this.room(2 * ds.length);
+    const kept = this.block;
+    for (let i = 0; i < ds.length; i++) kept[at + i] = this.values[ds[i]];
+    const heldUs = this.timeUs;
+    this.clockLevers();
+    for (let i = 0; i < ds.length; i++) kept[at + ds.length + i] = this.values[ds[i]];
+    const alarms = this.alarms ?? NO_ALARMS;
+    this.alarms = null;
+    return new LazyClockRecord(inputs, this.sim, ds, kept, at, heldUs, this.timeUs, alarms);
+  }
+
+  reset(): PartEvent[] {
+    this.remember(RESET, null);
+    return this.doReset();
+  }
+
+  undo(): boolean {
+    const k = this.log.length - 1;
+    if (k < 0) return false;
+    this.log.pop();
+    while (this.checkpoints.length > 0 && this.checkpoints[this.checkpoints.length - 1].at > k) this.checkpoints.pop();
+    const cp = this.checkpoints[this.checkpoints.length - 1];
+    this.values = cp.values.slice();
+    this.timeUs = cp.timeUs;
+    this.ready = cp.ready;
+    for (let i = cp.at; i < k; i++) this.replay(this.log.kind(i), this.log.payload(i));
+    return true;
+  }
+
+  /** Room for n kept values in `block` (a new block when it is full): their offset. */
+  private room(n: number): number {
+    if (this.blockUsed + n > this.block.length) {
+      this.block = new Uint8Array(Math.max(KEPT_BLOCK, n));
+      this.blockUsed = 0;
+    }
+    const at = this.blockUsed;
+    this.blockUsed += n;
+    return at;
+  }
+
+  private remember(kind: number, payload: HandAction | number | string | null): void {
+    const n = this.log.length;
+    const last = this.checkpoints[this.checkpoints.length - 1] as Checkpoint | undefined;
+    if (n % CHECKPOINT_EVERY === 0 && last?.at !== n)
+      this.checkpoints.push({ at: n, values: this.values.slice(), timeUs: this.timeUs, ready: this.ready });
+    this.log.push(kind, payload);
+  }
+
+  private replay(kind: number, payload: HandAction | number | string | null): void {
+    if (kind === ACT) this.doAct(payload as HandAction);
+    else if (kind === RESET) this.doReset();
+    else {
+      this.setInputs(payload as number | string);
+      this.clockLevers();
+    }
+    this.alarms = null;
+  }
+
+  private doAct(action: HandAction): PartEvent[] {
+    const events: PartEvent[] = [];
+    this.timeUs = applyFastInPlace(this.sim, this.values, this.timeUs, action, events, this.ready);
+    this.ready = this.mover.ready;
+    return events.filter((e) => e.kind !== 'change');
+  }
+
+  private doReset(): PartEvent[] {
+    this.alarms = null;
+    this.move(this.sim.reset, 1);
+    this.move(this.sim.reset, 0);
+    const alarms = this.alarms ?? [];
+    this.alarms = null;
+    return alarms;
+  }
+
+  /** Move the input levers to a clock's payload, in input order. */
+  private setInputs(packed: number | string): void {
+    const levers = this.sim.inputLevers;
+    for (let i = 0; i < levers.length; i++) {
+      const v = typeof packed === 'number' ? (packed >>> i) & 1 : packed.charCodeAt(i) - 48;
+      if (this.values[levers[i]] !== v) this.move(levers[i], v as 0 | 1);
+    }
+  }
+
+  private clockLevers(): void {
+    const { phi1, phi2 } = this.sim;
+    this.move(phi1, 1);
+    this.move(phi1, 0);
+    this.move(phi2, 1);
+    this.move(phi2, 0);
+  }
+
+  /** Move lever d to v (the hand procedure's own moves), collecting alarms in `this.alarms`. */
+  private move(d: number, v: 0 | 1): void {
+    const values = this.values;
+    if (d < 0 || values[d] === v) return;
+    const events = this.events;
+    if (events.length !== 0) events.length = 0;
+    const rule = this.ruleBroken(d, v);
+    if (rule) events.push(this.ruleAlarm(rule, d, v));
+    this.timeUs = this.mover.move(values, this.timeUs, d, v, events, this.ready);
+    this.ready = this.mover.ready;
+    if (events.length > 0) (this.alarms ??= []).push(...events);
+  }
+
+  /** The operating rule moving lever d to v breaks (hand.ts's ruleBroken, on lever indices). */
+  private ruleBroken(d: number, v: 0 | 1): OperatingRule | null {
+    const { phi1, phi2, reset } = this.sim;
+    const values = this.values;
+    const p1 = phi1 >= 0 && values[phi1] === 1;
+    const p2 = phi2 >= 0 && values[phi2] === 1;
+    if (d !== phi1 && d !== phi2 && d !== reset) return p1 ? 'inputs-steady' : null;
+    if (v === 0) return null;
+    if (d === reset) return p1 || p2 ? 'reset-alone' : null;
+    if (d === phi1 ? p2 : p1) return 'clocks-apart';
+    return reset >= 0 && values[reset] === 1 ? 'reset-alone' : null;
+  }
+
+  private ruleAlarm(rule: OperatingRule, d: number, v: 0 | 1): PartEvent {
+    const { phi1, phi2, reset } = this.sim;
+    const names = this.sim.build.machine.inputs;
+    const action: HandAction =
+      d === phi1 || d === phi2 || d === reset
+        ? { kind: v === 1 ? 'pull' : 'release', lever: d === phi1 ? 'phi1' : d === phi2 ? 'phi2' : 'reset' }
+        : { kind: 'input', input: names[this.sim.inputLevers.indexOf(d)], value: v };
+    return {
+      kind: RULE_KIND[rule],
+      timeS: this.timeUs / 1e6,
+      rule,
+      parts: [this.sim.names[d]],
+      words: `operating rule broken (${RULE_WORDS[rule]}): ${describeAction(action)}`,
+    };
+  }
+}
+
 /** A runner at power-up (latches X until reset). */
 export function createRunner(build: Build, timing: PartTiming): PartRunner {
-  const sim = simFor(build, timing);
-  let state = powerUp(sim)[0];
-  const past: { state: PartState; label: string }[] = [];
-  const run = (actions: readonly HandAction[]): PartEvent[] => {
-    const alarms: PartEvent[] = [];
-    for (const a of actions) {
-      const [next, events] = stepSim(sim, state, a);
-      state = next;
-      alarms.push(...events.filter(isAlarm));
-    }
-    return alarms;
-  };
-  const remember = (label: string): void => {
-    past.push({ state, label });
-  };
-  return {
-    sim,
-    get state() {
-      return state;
-    },
-    get history() {
-      return past.map((p) => p.label);
-    },
-    reading: () => readPart(sim, state),
-    act(action) {
-      remember(describeAction(action));
-      return run([action]);
-    },
-    clock(inputs) {
-      remember('clock');
-      const m = build.machine;
-      const actions = clockActions(m.inputs, inputs);
-      const setCount = actions.length - 4;
-      const alarms = run(actions.slice(0, setCount));
-      const before = readPart(sim, state);
-      alarms.push(...run(actions.slice(setCount)));
-      return { inputs, before, outputs: before.outputs, after: readPart(sim, state), alarms };
-    },
-    reset() {
-      remember('reset');
-      return run(resetActions());
-    },
-    undo() {
-      const last = past.pop();
-      if (!last) return false;
-      state = last.state;
-      return true;
-    },
-  };
+  return new Runner(simFor(build, timing));
 }

@@ -37,20 +37,27 @@ describe('core/checks/equivalence', () => {
     expect(r.counterexample).toBeUndefined();
   });
 
-  it('compares with the machine as written through the merged-state map', () => {
+  it('explores pairs of a written state and a build code, not a map from written states to minimised ones', () => {
     const merged = { off: 'off', on: 'on', off2: 'off', on2: 'on' };
     const ok = checkEquivalence(toggleBuild(), { original: toggleAsWritten(), merged }, DEFAULT_PROFILE);
     expect(ok).toMatchObject({ ok: true, states: 4, pairs: 8 });
-    // A wrong map: off2 said to stand for 'on'; the build goes to 'off' there.
-    const wrong = checkEquivalence(
+    // A wrong map changes nothing: the check does not read it.
+    const wrongMap = checkEquivalence(
       toggleBuild(),
       { original: toggleAsWritten(), merged: { ...merged, off2: 'on' } },
       DEFAULT_PROFILE,
     );
+    expect(wrongMap).toMatchObject({ ok: true, states: 4 });
+    // A machine as written that the build does not implement: 'on2' goes back to 'on2' instead of 'off'.
+    const other = toggleAsWritten();
+    const changed = { ...other, rows: other.rows.map((rs, s) => (s === 3 ? [{ ...rs[0], next: 3 }, rs[1]] : rs)) };
+    const wrong = checkEquivalence(toggleBuild(), { original: changed }, DEFAULT_PROFILE);
     expect(wrong.ok).toBe(false);
+    // The build's start state cannot stand for the written start (they part after five clocks of t=1): caught at reset.
     expect(wrong.summary).toBe(
-      "after reset and 1 clock, in state 'on' (code 1) with t=1: the build goes to 'off' (code 0), the machine as written goes to 'on' (code 1)",
+      "reset leaves 'off' (code 0), which cannot stand for the start state 'off' of the machine as written: from there, t=1, then t=1, then t=1, then t=1, then t=1 make the machine as written show lit=1 where 'off' shows 0",
     );
+    expect(wrong.counterexample?.trace).toEqual(['1. pull reset', '2. release reset']);
   });
 
   it('catches a missing term cord with a hand-action trace', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { drumLoad } from '../../../src/core/physics/drum.js';
+import { drumLoad, type DriveSnapshot } from '../../../src/core/physics/drum.js';
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 import { cord, gate, lever } from './netlists.js';
 
@@ -51,13 +51,32 @@ describe('core/physics/drum', () => {
     ]);
     expect(d.capstans.map((c) => c.driver)).toEqual(['L', 'M', 'g1']);
     expect(d.capstans[0].torqueNm).toBeCloseTo(ONE, 7);
-    expect(d.snapshots.map((s) => s.engaged)).toEqual([['L', 'M'], ['M', 'g1'], ['g1']]);
-    expect(d.snapshots[0].torqueNm).toBeCloseTo(2 * ONE, 7);
-    expect(d.snapshots[2].torqueNm).toBeCloseTo(ONE, 7);
+    expect(d.snapshotCount).toBe(3);
+    expect(d.worstSnapshot?.engaged).toEqual(['L', 'M']);
     expect(d.worst.where).toBe('rest'); // first of the equal worst cases
     expect(d.worst.torqueNm).toBeCloseTo(0.26055123, 7);
     expect(d.worst.powerW).toBeCloseTo(0.26055123 * OMEGA, 7);
     expect(d.omegaRadS).toBeCloseTo(OMEGA, 7);
+  });
+
+  it('keeps the worst snapshot of each group, read as a stream, from Maps or from values by index', () => {
+    const ids = ['L', 'M', 'g1', 'g2'];
+    // A generator: the snapshots are made as they are read, never held together.
+    function* snapshots(): Generator<DriveSnapshot> {
+      yield { where: 'a rest', outputs: { ids, values: [0, 0, 1, 1] } };
+      yield { where: 'a L pulled', outputs: { ids, values: Uint8Array.from([1, 0, 0, 1]) } };
+      // Lane 1 of packed words: L = 1, M = 1, g1 = 0, g2 = 1 (bit 1 of each word).
+      yield { where: 'b both pulled', outputs: { ids, values: Int32Array.from([2, 2, 1, 3]), lane: 1 } };
+      yield { where: 'b X on g1', outputs: { ids, values: [1, 1, 2, 1] } };
+    }
+    const d = drumLoad(n, DEFAULT_PROFILE, snapshots(), (w) => w.split(' ')[0]);
+    expect(d.snapshotCount).toBe(4);
+    expect(d.worstByGroup.map((r) => [r.where, r.engaged])).toEqual([
+      ['a rest', ['L', 'M']],
+      ['b both pulled', ['g1']],
+    ]);
+    expect(d.worstByGroup[0].torqueNm).toBeCloseTo(2 * ONE, 7);
+    expect(d.worstByGroup[1].torqueNm).toBeCloseTo(ONE, 7); // an X output counts as engaged: 'b X on g1' ties, the first is kept
   });
 
   it('measures the drum from total wraps × pitch: 3 capstans × 2 wraps × 8 mm = 48 mm', () => {
@@ -74,9 +93,9 @@ describe('core/physics/drum', () => {
 
   it('counts a driver missing from a snapshot as engaged and says so', () => {
     const d = drumLoad(n, DEFAULT_PROFILE, [{ where: 'partial', outputs: new Map([['L', 1]]) }]);
-    expect(d.snapshots[0].engaged).toEqual([]);
-    expect(d.snapshots[0].assumed).toEqual(['M', 'g1']);
-    expect(d.snapshots[0].torqueNm).toBeCloseTo(2 * ONE, 7);
+    expect(d.worstSnapshot?.engaged).toEqual([]);
+    expect(d.worstSnapshot?.assumed).toEqual(['M', 'g1']);
+    expect(d.worstSnapshot?.torqueNm).toBeCloseTo(2 * ONE, 7);
   });
 
   it('uses the lever weight for a lever capstan and scales with the drum radius', () => {

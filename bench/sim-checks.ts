@@ -1,0 +1,290 @@
+/**
+ * Benchmarks of the part-level simulator and the exhaustive checks, for `npm run bench`
+ * (bench/run.ts calls `benchSimulatorAndChecks` once and prints its section). Each figure is
+ * measured beside its reference in the same run, in CPU time of this process (the machine is
+ * shared), as the median of several interleaved runs:
+ * - the runner (one input sequence, the hand procedure clock by clock) against xstate's actor
+ *   running the same machine on the same inputs, warm, over 100 000 clocks;
+ * - 32 input sequences at once on the bit-parallel lanes, clocks summed over the lanes;
+ * - the exhaustive checks (equivalence, forbidden input, recovery) of an 8-state-bit ×
+ *   6-input build, then every check of it, against one clock from every (code, inputs)
+ *   start point on the event-driven simulator, one at a time (what the checks ran on before);
+ * - every check of the cse benchmark machine (16 states), as the designer runs them after a
+ *   keystroke, against its build.
+ */
+import { readFileSync } from 'node:fs';
+import { createActor, createMachine } from 'xstate';
+import {
+  analyse,
+  type Analysed,
+  buildMachine,
+  type Build,
+  checkEquivalence,
+  checkForbiddenInput,
+  checkRecovery,
+  clockEvent,
+  createRunner,
+  DEFAULT_PROFILE,
+  exportXstate,
+  printCubes,
+  randomFlatMachine,
+  runChecks,
+  seededRandom,
+  timingOf,
+  type FlatMachine,
+} from '../src/core/index.js';
+import {
+  allCodes,
+  clockFrom,
+  grayAssignments,
+  LaneBatch,
+  latchesOf,
+  simFor,
+  stateAtCode,
+} from '../src/core/sim/index.js';
+
+export interface SimBenchRow {
+  readonly name: string;
+  readonly figure: string;
+  readonly reference: string;
+  readonly ratio: string;
+  readonly goal: string;
+}
+
+/** CPU milliseconds (user + system) of one call. */
+function cpu(fn: () => void): number {
+  const t0 = process.cpuUsage();
+  fn();
+  const t = process.cpuUsage(t0);
+  return (t.user + t.system) / 1000;
+}
+
+/** Medians of interleaved runs of two functions. */
+function interleaved(runs: number, a: () => void, b: () => void): [number, number] {
+  const ta: number[] = [];
+  const tb: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    ta.push(cpu(a));
+    tb.push(cpu(b));
+  }
+  const mid = (xs: number[]): number => xs.sort((x, y) => x - y)[Math.floor(xs.length / 2)];
+  return [mid(ta), mid(tb)];
+}
+
+const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
+const rate = (n: number, t: number): string => `${Math.round((n / t) * 1000).toLocaleString('en')}`;
+
+function mustAnalyse(text: string, file: string): Analysed {
+  const a = analyse(text, file);
+  if (!a.ok) throw new Error(`${file}: ${a.diagnostics.map((d) => d.message).join('; ')}`);
+  return a;
+}
+
+/** A build without its checks, with `encoding` or else the command line's default (as the designer builds). */
+function mustBuild(a: Analysed, encoding?: 'binary'): Build {
+  const b = buildMachine(a, { ...(encoding ? { encoding } : {}), checks: false });
+  if (!b.ok) throw new Error(b.diagnostics.map((d) => d.message).join('; '));
+  return b.build;
+}
+
+/** A flat table back into the JSON form (one transition per row). */
+function flatToJsonText(f: FlatMachine): string {
+  return JSON.stringify({
+    name: f.name,
+    inputs: f.inputs,
+    outputs: f.outputs,
+    start: f.states[f.start],
+    states: f.states.map((name, s) => ({
+      name,
+      transitions: f.rows[s].map((r) => ({
+        when: printCubes([r.cube], f.inputs),
+        to: f.states[r.next],
+        outputs: Object.fromEntries(f.outputs.map((o, k) => [o, r.out[k]])),
+      })),
+    })),
+  });
+}
+
+const GOAL_RATIO = 10;
+
+const plural = (n: number, word: string): string => `${n} ${word}${n === 1 ? '' : 's'}`;
+
+/** The runner against xstate's actor on one machine, warm, over `clocks` clocks of seeded random inputs. */
+function runnerRow(label: string, a: Analysed, build: Build, clocks: number): SimBenchRow {
+  const f = build.machine;
+  const rnd = seededRandom(5);
+  const seq = Array.from({ length: clocks }, () => a.machine.inputs.map(() => (rnd.next() < 0.5 ? '0' : '1')).join(''));
+  const values = seq.map((s) => Object.fromEntries(f.inputs.map((n, i) => [n, s[i] === '1' ? 1 : 0] as const)));
+  const events = seq.map((s) => clockEvent(a.machine.inputs, s));
+  const x = exportXstate(a.machine, { form: 'clock' });
+  const warm = Math.min(clocks, 5000);
+  const ours = (): void => {
+    const r = createRunner(build, timingOf(DEFAULT_PROFILE));
+    r.reset();
+    for (let i = 0; i < warm; i++) r.clock(values[i]);
+    const t = cpu(() => {
+      for (let i = 0; i < clocks; i++) r.clock(values[i]);
+    });
+    times.ours.push(t);
+  };
+  const theirs = (): void => {
+    const actor = createActor(createMachine(x.config as never, x.implementations as never)).start();
+    for (let i = 0; i < warm; i++) actor.send(events[i]);
+    const t = cpu(() => {
+      for (let i = 0; i < clocks; i++) actor.send(events[i]);
+    });
+    times.theirs.push(t);
+  };
+  const times = { ours: [] as number[], theirs: [] as number[] };
+  interleaved(5, ours, theirs);
+  const mid = (xs: number[]): number => xs.sort((p, q) => p - q)[Math.floor(xs.length / 2)];
+  const to = mid(times.ours);
+  const tx = mid(times.theirs);
+  const ratio = tx / to;
+  const short =
+    ratio >= GOAL_RATIO
+      ? 'met'
+      : `short by ${(GOAL_RATIO / ratio).toFixed(1)}×: each clock settles, with exact times, every part its four lever moves reach (${plural(build.parts.gates, 'gate')} in all), where xstate evaluates one state's guards; the goal leaves ${((tx / clocks / GOAL_RATIO) * 1000).toFixed(2)} µs per clock, the runner takes ${((to / clocks) * 1000).toFixed(2)} µs`;
+  return {
+    name: `runner, ${label} (${plural(build.machine.states.length, 'state')}, ${plural(build.parts.gates, 'gate')}), warm, ${clocks.toLocaleString('en')} clocks`,
+    figure: `${rate(clocks, to)} clocks/s`,
+    reference: `xstate actor ${rate(clocks, tx)} steps/s`,
+    ratio: `${ratio.toFixed(2)}×`,
+    goal: `≥ ${GOAL_RATIO}× (${short})`,
+  };
+}
+
+/** 32 seeded input sequences at once on the lanes: each clock sets each lane's inputs, then the four clock moves. */
+function lanesRow(label: string, a: Analysed, build: Build, clocks: number): SimBenchRow {
+  const sim = simFor(build, timingOf(DEFAULT_PROFILE));
+  const n = build.machine.inputs.length;
+  const rnd = seededRandom(6);
+  const steps = Math.ceil(clocks / 32);
+  const seq = Array.from({ length: steps * 32 }, () =>
+    Array.from({ length: n }, () => (rnd.next() < 0.5 ? '0' : '1')).join(''),
+  );
+  const start = stateAtCode(sim, build.encoding.codes[build.machine.start]).values;
+  const lanes = (): void => {
+    const b = new LaneBatch(sim);
+    b.clear();
+    for (let lane = 0; lane < 32; lane++) b.setLatches(lane, latchesOf(sim, start));
+    for (let k = 0; k < steps; k++) {
+      for (let lane = 0; lane < 32; lane++) b.setInputs(lane, seq[k * 32 + lane]);
+      b.settleHeld();
+      b.clock();
+    }
+  };
+  const x = exportXstate(a.machine, { form: 'clock' });
+  const events = seq.slice(0, clocks).map((s) => clockEvent(a.machine.inputs, s));
+  const theirs = (): void => {
+    const actor = createActor(createMachine(x.config as never, x.implementations as never)).start();
+    for (const e of events) actor.send(e);
+  };
+  lanes();
+  theirs();
+  const [tl, tx] = interleaved(5, lanes, theirs);
+  const done = steps * 32;
+  const lanesRatio = done / tl / (clocks / tx);
+  return {
+    name: `32 input sequences at once on the bit-parallel lanes, ${label}, ${done.toLocaleString('en')} clocks summed over the lanes`,
+    figure: `${rate(done, tl)} clocks/s`,
+    reference: `xstate actor ${rate(clocks, tx)} steps/s (one sequence)`,
+    ratio: `${lanesRatio.toFixed(1)}×`,
+    goal: `the runner's ≥ ${GOAL_RATIO}× is per sequence; summed over 32 sequences ${lanesRatio >= GOAL_RATIO ? 'met' : `short by ${(GOAL_RATIO / lanesRatio).toFixed(1)}×`}`,
+  };
+}
+
+/**
+ * The three exhaustive checks of an 8-bit × 6-input build, and then every check of it, against
+ * one event-driven clock from every start point.
+ */
+function checksRows(): SimBenchRow[] {
+  const text = flatToJsonText(randomFlatMachine(200, 6, 2, 3));
+  const a = mustAnalyse(text, 'random-200.json');
+  const build = mustBuild(a, 'binary');
+  const spec = { original: a.flat, merged: a.minimised.merged };
+  const sim = simFor(build, timingOf(DEFAULT_PROFILE));
+  const checks = (): void => {
+    checkEquivalence(build, spec, DEFAULT_PROFILE);
+    checkForbiddenInput(build, DEFAULT_PROFILE);
+    checkRecovery(build, DEFAULT_PROFILE);
+  };
+  const every = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1);
+  const inputs = grayAssignments(build.machine.inputs.length);
+  const eventDriven = (): void => {
+    for (const c of allCodes(build.encoding.bits))
+      for (const i of inputs) clockFrom(sim, stateAtCode(sim, c, i).values);
+  };
+  checks();
+  every();
+  const [tc, te] = interleaved(3, checks, eventDriven);
+  const [ta] = interleaved(3, every, () => undefined);
+  const size = `${build.encoding.bits} state bits × ${build.machine.inputs.length} inputs (${plural(build.parts.gates, 'gate')})`;
+  const reference = `one clock from each of the ${(2 ** build.encoding.bits * inputs.length).toLocaleString('en')} start points, event-driven, one at a time: ${ms(te)}`;
+  const goal = (t: number): string => `< 1 s (${t < 1000 ? 'met' : `short by ${ms(t - 1000)}`})`;
+  return [
+    {
+      name: `exhaustive checks (equivalence, forbidden input, recovery), ${size}`,
+      figure: ms(tc),
+      reference,
+      ratio: `${(tc / te).toFixed(2)}×`,
+      goal: goal(tc),
+    },
+    {
+      name: `every check (the exhaustive ones, next-state equivalence, timing with its Monte Carlo runs, drive), ${size}`,
+      figure: ms(ta),
+      reference,
+      ratio: `${(ta / te).toFixed(2)}×`,
+      goal: goal(ta),
+    },
+  ];
+}
+
+/** Every check of the cse machine, as the designer runs them after a keystroke, against its build. */
+function cseRow(): SimBenchRow {
+  const file = 'tests/fixtures/lgsynth91/cse.json';
+  const a = mustAnalyse(readFileSync(file, 'utf8'), file);
+  const build = mustBuild(a);
+  const checks = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1);
+  const rebuild = (): void => void mustBuild(a);
+  checks();
+  const [tc, tb] = interleaved(3, checks, rebuild);
+  return {
+    name: `every check of the cse benchmark machine (${build.machine.states.length} states), as after a keystroke in the designer`,
+    figure: ms(tc),
+    reference: `its build (the command line's default encoding, as the designer builds; no checks) ${ms(tb)}`,
+    ratio: `${(tc / tb).toFixed(2)}×`,
+    goal: `keystroke → every check < 500 ms, of which the build's goal is 150 ms: checks < 350 ms (${tc < 350 ? 'met' : `short by ${ms(tc - 350)}`})`,
+  };
+}
+
+/** The simulator and checks section of the benchmarks; `quick` leaves out the large machines. */
+export function benchSimulatorAndChecks(quick: boolean): { rows: SimBenchRow[]; markdown: string } {
+  const rows: SimBenchRow[] = [];
+  const clocks = quick ? 20_000 : 100_000;
+  const examples = ['crossing', 'ferry-gate', 'lighthouse', 'marble-bell', 'odd-lever', 'sequence-lock'];
+  for (const name of examples) {
+    const file = `examples/${name}.lw`;
+    const a = mustAnalyse(readFileSync(file, 'utf8'), file);
+    rows.push(runnerRow(`example ${name}`, a, mustBuild(a, 'binary'), clocks));
+  }
+  const crossing = mustAnalyse(readFileSync('examples/crossing.lw', 'utf8'), 'crossing.lw');
+  rows.push(lanesRow('example crossing', crossing, mustBuild(crossing, 'binary'), clocks));
+  if (!quick) {
+    const file = 'tests/fixtures/lgsynth91/s298.json';
+    const s298 = mustAnalyse(readFileSync(file, 'utf8'), file);
+    const build = mustBuild(s298, 'binary');
+    rows.push(runnerRow("LGSynth'91 s298", s298, build, clocks));
+    rows.push(lanesRow("LGSynth'91 s298", s298, build, clocks));
+    rows.push(...checksRows());
+  }
+  rows.push(cseRow());
+  const markdown = [
+    '| benchmark | figure | reference (same run) | ratio | goal |',
+    '|---|---|---|---|---|',
+    ...rows.map((r) => `| ${r.name} | ${r.figure} | ${r.reference} | ${r.ratio} | ${r.goal} |`),
+    '',
+    'CPU time of this process (user + system), median of interleaved runs. The runner moves one lever at a time by the settle programs (sim/program.ts, sim/fast.ts), with every settling time exact; the lanes carry 32 independent input sequences in one machine word per part. The designer rows of the first table time a whole keystroke in the browser, build and checks together.',
+  ].join('\n');
+  return { rows, markdown };
+}
