@@ -20,6 +20,7 @@ import {
 import { benchMinimiseLogic } from './minimise-logic.js';
 import { benchSimulatorAndChecks } from './sim-checks.js';
 import { median } from './median.js';
+import { benchBuildTable } from './build-table.js';
 
 interface Row {
   readonly name: string;
@@ -125,6 +126,7 @@ async function main(): Promise<void> {
   step('two-level minimiser');
   const logic = await benchMinimiseLogic({ quick: process.argv.includes('--quick') });
   const extra: string[] = [];
+  extra.push(await benchBuildTable({ quick: process.argv.includes('--quick') }));
   try {
     step('browser');
     const { benchWeb } = await import('./web.js');
