@@ -21,6 +21,7 @@ import { benchMinimiseLogic } from './minimise-logic.js';
 import { benchPlace } from './place.js';
 import { benchSimulatorAndChecks } from './sim-checks.js';
 import { median } from './median.js';
+import { benchBuildTable } from './build-table.js';
 
 interface Row {
   readonly name: string;
@@ -132,6 +133,7 @@ async function main(): Promise<void> {
   rows.push(...placement.rows);
   extra.push(placement.markdown, '');
   // ── end of placement and routing ──
+  extra.push(await benchBuildTable({ quick: process.argv.includes('--quick') }));
   try {
     step('browser');
     const { benchWeb } = await import('./web.js');

@@ -109,13 +109,13 @@ async function dispatch(args: ParsedArgs, ctx: RunContext): Promise<number> {
     case 'check':
       return runCheck(args, ctx);
     case 'build':
-      return runBuild(args, ctx);
+      return await runBuild(args, ctx);
     case 'compare':
       return runCompare(args, ctx);
     case 'step':
       return await runStepCommand(args, ctx);
     case 'demo':
-      return runDemo(args, ctx);
+      return await runDemo(args, ctx);
     default:
       ctx.fail([
         diag(

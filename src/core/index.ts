@@ -73,6 +73,7 @@ export {
   analyse,
   BUILD_DEFAULTS,
   buildMachine,
+  buildSearchSetup,
   compareEncodings,
   runChecks,
   type AnalyseOptions,
@@ -84,6 +85,7 @@ export {
   type Rejected,
 } from './pipeline.js';
 export type { StateMinimisation } from './phases/minimise-states/index.js';
+export { planSearch, searchOutcome, searchTaskRunner, type SearchExtras, type SearchSetup } from './search.js';
 
 // ── The frame: where every part sits and how every cord runs ────────────────────────────────
 export {
@@ -127,6 +129,10 @@ export {
   type EncodingEntry,
   type EncodingRun,
   type Progress,
+  SKETCH_SEARCH,
+  type AutoSearch,
+  type SearchTask,
+  type TaskResult,
 } from './phases/encode/index.js';
 
 // ── The checks ──────────────────────────────────────────────────────────────────────────────

@@ -16,6 +16,7 @@
 import { DiagnosticError, diag, didYouMean, hasErrors, type Diagnostic } from './model/diagnostics.js';
 import type { Machine, SourceLoc } from './model/machine.js';
 import { nameRecord, ownValue } from './model/records.js';
+import { BUILD_LIMITS } from './model/limits.js';
 import type { Build, Encoding } from './model/build.js';
 import {
   DEFAULT_ENCODING,
@@ -25,16 +26,16 @@ import {
   type EncodeResult,
   type EncodeStrategy,
 } from './phases/encode/index.js';
-import { synthesise } from './synthesise.js';
+import { balanced, synthesise } from './synthesise.js';
 import { countParts, partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
-import { balanceDrive } from './physics/buffer-tree.js';
-import { sizeActuators } from './physics/actuators.js';
 import { cordRoutingDiagnostics } from './physics/profile-load.js';
-import { expectedLosses, lossByBranch } from './physics/routing.js';
+import { lossByBranch } from './physics/routing.js';
+import { balanceDrive } from './physics/buffer-tree.js';
 import { pinDiagnostics, place, type Pin, type Placement } from './phases/place/index.js';
 import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
-import { checkRecovery } from './checks/recovery.js';
+import { recovered, searchOptions, synthesisOptions, type SearchSetup } from './search.js';
+import type { GuardMethod } from './phases/guard.js';
 import type { FlatMachine } from './model/flat.js';
 import { readMachine, type MachineForm } from './forms/detect.js';
 import { validate } from './phases/validate.js';
@@ -44,6 +45,8 @@ export type PhaseHook = (phase: string, millis: number) => void;
 
 export interface AnalyseOptions {
   readonly onPhase?: PhaseHook;
+  /** Told when a phase starts (a shell's progress line). */
+  readonly onPhaseStart?: (phase: string) => void;
   /** A clock for the phase hook (the core itself never reads the time). */
   readonly now?: () => number;
 }
@@ -66,6 +69,7 @@ export interface Rejected {
 }
 
 export function timed<T>(opts: AnalyseOptions, phase: string, run: () => T): T {
+  opts.onPhaseStart?.(phase);
   if (!opts.onPhase || !opts.now) return run();
   const t0 = opts.now();
   const out = run();
@@ -115,6 +119,11 @@ export interface BuildOptions extends AnalyseOptions {
   readonly actuators?: Readonly<Record<string, number>>;
   readonly budget?: EncodeOptions['budget'];
   readonly onProgress?: EncodeOptions['onProgress'];
+  /**
+   * The outcome of this build's automatic search, already run elsewhere (a shell that spreads
+   * it over threads: search.ts); used instead of searching again when the encoding is 'auto'.
+   */
+  readonly searched?: EncodeResult;
   /** Run the checks (default true); a comparison of encodings skips them. */
   readonly checks?: boolean;
   /** Parts pinned to a bay along the drum, by part id (a latch id pins its set side; its reset side takes the next bay). */
@@ -139,37 +148,28 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
   const profile = opts.profile ?? BUILD_DEFAULTS.profile;
   const seed = opts.seed ?? BUILD_DEFAULTS.seed;
   const f = a.minimised.machine;
-  const unused = resolveUnused(a, opts.unusedCodes);
-  if (typeof unused === 'object') return { ok: false, form: a.form, diagnostics: [...a.diagnostics, unused] };
-  // Buffer trees come from the force budget (balanceDrive), not from a fixed fan-out limit.
-  const actuators = { ...a.machine.loadsG, ...opts.actuators };
-  const synthOpts = { profile, unusedCodes: unused, actuators, tooMany: () => false };
-  const make = (enc: Encoding): Build => withDrive(synthesise(f, enc, synthOpts), profile);
-  // The search prices candidates with the guard method that wins in practice and no unguarded baseline (2 minimisations instead of 5).
-  const price = (enc: Encoding): Build =>
-    withDrive(synthesise(f, enc, { ...synthOpts, guard: 'split-by-bit', guardBaseline: false }), profile);
+  const setup = buildSearchSetup(a, opts);
+  if (!('machine' in setup)) return { ok: false, form: a.form, diagnostics: [...a.diagnostics, setup] };
+  const make = (enc: Encoding, unused = setup.unusedCodes, guard?: GuardMethod): Build =>
+    balanced(synthesise(f, enc, { ...synthesisOptions(setup, unused), ...(guard ? { guard } : {}) }), profile);
+  const strategy = opts.encoding ?? BUILD_DEFAULTS.encoding;
   try {
-    const encoded = timed(opts, 'encode', () =>
-      encode(f, opts.encoding ?? BUILD_DEFAULTS.encoding, {
-        ...pinnedCodes(a),
-        seed,
-        budget: opts.budget,
-        now: opts.now,
-        onProgress: opts.onProgress,
-        cost: (codes, bits) => partsCost(price({ strategy: 'candidate', bits, codes }).parts, profile.cost),
-      }),
-    );
+    const encoded =
+      opts.searched && strategy === 'auto'
+        ? opts.searched
+        : timed(opts, 'encode', () =>
+            encode(
+              f,
+              strategy,
+              searchOptions(setup, { now: opts.now, onProgress: opts.onProgress, millis: opts.budget?.millis }),
+            ),
+          );
     const diagnostics = [...a.diagnostics, ...encoded.diagnostics];
     if (!encoded.encoding || hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
     const encoding = encoded.encoding;
     const first = timed(opts, 'synthesise', () => make(encoding));
-    const build =
-      opts.unusedCodes === undefined
-        ? withRecovery(first, profile, seed, (to) =>
-            withDrive(synthesise(f, encoding, { ...synthOpts, unusedCodes: to }), profile),
-          )
-        : first;
-    if (build !== first)
+    const { build, toStart } = recovered(first, setup, (unused, guard) => make(encoding, unused, guard));
+    if (toStart)
       diagnostics.push(
         diag(
           'LW703',
@@ -202,22 +202,34 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
   }
 }
 
-/** The build, or (when it can lock up in unused codes) the build with unused codes sent to the start state. */
-function withRecovery(b: Build, profile: Profile, seed: number, rebuild: (to: number) => Build): Build {
-  if (b.encoding.codes.length === 2 ** b.encoding.bits || checkRecovery(b, profile, { seed }).ok) return b;
-  return rebuild(b.machine.start);
-}
-
 /**
-/**
- * Replace the mapper's fixed fan-out limit by the capstan force budget: every heavy actuator a
- * capstan of its own with the turns its load needs, then buffer trees where a margin fails —
- * each branch at the loss it will have as routed in the frame (expectedLosses).
+ * What the encoding search of this build depends on, as plain data (search.ts): a shell that
+ * runs the search on several threads plans it from this and passes the outcome back to
+ * `buildMachine` as `searched`. A bad unused-code target, or a machine past the size a build
+ * takes (LW407, refused before any work), comes back as its diagnostic.
  */
-function withDrive(b: Build, profile: Profile): Build {
-  const sized = sizeActuators(b.netlist, profile, expectedLosses(b.netlist, profile));
-  const netlist = balanceDrive(sized, profile, expectedLosses(sized, profile));
-  return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
+export function buildSearchSetup(a: Analysed, opts: BuildOptions = {}): SearchSetup | Diagnostic {
+  const n = a.minimised.machine.states.length;
+  if (n > BUILD_LIMITS.states)
+    return diag(
+      'LW407',
+      `${a.machine.name} has ${n} states after state minimisation; a build takes at most ${BUILD_LIMITS.states}`,
+      {},
+      'split the machine into smaller ones, or merge states that behave alike',
+    );
+  const unused = resolveUnused(a, opts.unusedCodes);
+  if (typeof unused === 'object') return unused;
+  const actuators = { ...a.machine.loadsG, ...opts.actuators };
+  return {
+    machine: a.minimised.machine,
+    profile: opts.profile ?? BUILD_DEFAULTS.profile,
+    unusedCodes: unused,
+    recover: opts.unusedCodes === undefined,
+    ...(Object.keys(actuators).length > 0 ? { actuators } : {}),
+    seed: opts.seed ?? BUILD_DEFAULTS.seed,
+    ...pinnedCodes(a),
+    ...(opts.budget?.evaluations !== undefined ? { evaluations: opts.budget.evaluations } : {}),
+  };
 }
 
 /** Rounds of placing and balancing again at most: each round only adds buffers, so a few settle it. */

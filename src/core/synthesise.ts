@@ -20,7 +20,10 @@ import type { Profile } from './physics/profile.js';
 import type { Cord } from './model/netlist.js';
 import { excite, type Excitation } from './phases/excite.js';
 import { guard, mergeTerms, termsOf, type GuardMethod, type Minimiser } from './phases/guard.js';
-import { mapToParts, partsCost, type Mapped } from './phases/map/index.js';
+import { countParts, mapToParts, partsCost, type Mapped } from './phases/map/index.js';
+import { balanceDrive } from './physics/buffer-tree.js';
+import { sizeActuators } from './physics/actuators.js';
+import { expectedLosses } from './physics/routing.js';
 import { minimiseCover } from './phases/minimise-logic/index.js';
 import type { MinimiseOptions, MultiFunction, SopCover, Term } from './phases/minimise-logic/types.js';
 
@@ -98,6 +101,17 @@ export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions
     signals: mapped.signals,
     parts: mapped.parts,
   };
+}
+
+/**
+ * The build with the mapper's fixed fan-out limit replaced by the capstan force budget: every
+ * heavy actuator a capstan of its own with the turns its load needs, then buffer trees where a
+ * margin fails — each branch at the loss it will have as routed in the frame (expectedLosses).
+ */
+export function balanced(b: Build, profile: Profile): Build {
+  const sized = sizeActuators(b.netlist, profile, expectedLosses(b.netlist, profile));
+  const netlist = balanceDrive(sized, profile, expectedLosses(sized, profile));
+  return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
 }
 
 /**

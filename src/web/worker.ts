@@ -8,7 +8,8 @@
  * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
  */
 import { analyse, type Built, type Progress, schematicSvg } from '../core/index.js';
-import { buildJob, checkJob, compareJob, readJob } from './worker/jobs.js';
+import { buildJob, buildOptions, checkJob, compareJob, readJob, settle } from './worker/jobs.js';
+import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
 import type { FromWorker, ToWorker } from './worker/protocol.js';
 
@@ -62,7 +63,11 @@ async function run(m: ToWorker): Promise<void> {
         post({ kind: 'unbuilt', rev: m.rev, diagnostics: [] }); // the reader reports the problems
         return;
       }
-      const b = buildJob(a, m.settings, reporter(m.rev, 'search'));
+      const onProgress = reporter(m.rev, 'search');
+      // The search sees the settings as the build will use them (settle drops those this machine cannot use).
+      const searched = await searchOnTwoCores(a, buildOptions(settle(a, m.settings).settings), onProgress);
+      if (stale(m.kind, m.rev)) return;
+      const b = buildJob(a, m.settings, onProgress, searched);
       if (b.view) post({ kind: 'built', rev: m.rev, view: b.view });
       else post({ kind: 'unbuilt', rev: m.rev, diagnostics: b.diagnostics });
       return;

@@ -255,6 +255,20 @@ describe('cli: machines over the limits (generated, never stored)', () => {
     expect(r.json.diagnostics[0].message).toContain('4097 states');
   });
 
+  it('257 distinct states after minimisation: check takes them, build refuses them at once with LW407', async () => {
+    // A ring whose one marked state makes every state distinct, so state minimisation keeps all 257.
+    const marked = ring(257).replace('state s0\n', 'state s0 with mark=1\n');
+    const c = await runJson<{ diagnostics: Diag[] }>(['check', 'ring.lw', '--json'], { 'ring.lw': marked });
+    expect(c.json.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    const b = await runJson<{ diagnostics: Diag[] }>(['build', 'ring.lw', '--json'], { 'ring.lw': marked });
+    expect(b.code).toBe(2);
+    const errors = b.json.diagnostics.filter((d) => d.severity === 'error');
+    expect(errors).toEqual([
+      expect.objectContaining({ code: 'LW407', severity: 'error', location: { file: 'ring.lw' } }),
+    ]);
+    expect(errors[0].message).toContain('257 states after state minimisation');
+  });
+
   it('33 inputs give LW401 with exit 2, in the text form and in the JSON form', async () => {
     const text = `machine wide\ninputs ${inputs.join(', ')}\noutputs o\nstart a\nstate a\n  when i0 go a\n`;
     const json = JSON.stringify({

@@ -1,6 +1,10 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { Writable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
-import { nodeIo } from '../../src/cli/io.js';
+import { nodeIo, readText } from '../../src/cli/io.js';
 import { main } from '../../src/cli/main.js';
 
 /** A stream whose reader has gone, as standard output is after `| head -1` ends: every write fails with EPIPE. */
@@ -50,5 +54,39 @@ describe('cli/io', () => {
     io.out('a');
     io.out('b\n');
     expect(stdout.text).toBe('ab\n');
+  });
+
+  describe('readText', () => {
+    it('reads a regular file, and refuses one past the size cap before reading it', () => {
+      const dir = mkdtempSync(join(tmpdir(), 'lw-io-'));
+      try {
+        const file = join(dir, 'm.lw');
+        writeFileSync(file, 'machine m\n');
+        expect(readText(file)).toEqual({ text: 'machine m\n' });
+        const refused = readText(file, 4);
+        expect('error' in refused && refused.error).toMatch(/larger than/);
+      } finally {
+        rmSync(dir, { recursive: true, force: true });
+      }
+    });
+
+    it('refuses a device that never ends (/dev/zero) and a folder, at once', () => {
+      const zero = readText('/dev/zero');
+      expect('error' in zero && zero.error).toMatch(/not a regular file/);
+      const folder = readText('examples');
+      expect('error' in folder && folder.error).toMatch(/is a folder/);
+    });
+
+    it.runIf(process.platform !== 'win32')('refuses a named pipe with no writer instead of waiting for one', () => {
+      const dir = mkdtempSync(join(tmpdir(), 'lw-io-'));
+      try {
+        const fifo = join(dir, 'pipe');
+        execFileSync('mkfifo', [fifo]);
+        const r = readText(fifo);
+        expect('error' in r && r.error).toMatch(/not a regular file/);
+      } finally {
+        rmSync(dir, { recursive: true, force: true });
+      }
+    });
   });
 });

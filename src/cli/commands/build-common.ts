@@ -19,6 +19,8 @@ import {
 } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import { loadSource, readJsonArg, type RunContext } from './common.js';
+import { progressLine } from '../progress.js';
+import { searchOnThreads } from '../search-pool.js';
 
 /** The profile named by --profile, over the defaults, or the diagnostics of why it cannot be used. */
 export function profileFrom(
@@ -38,8 +40,16 @@ export type BuildAttempt =
   | { readonly ok: true; readonly built: Built; readonly file: string; readonly diagnostics: readonly Diagnostic[] }
   | { readonly ok: false; readonly diagnostics: readonly Diagnostic[]; readonly file?: string };
 
-/** Read, analyse and build the machine the command line names. */
-export function buildFromArgs(args: ParsedArgs, ctx: RunContext, extra: Partial<BuildOptions> = {}): BuildAttempt {
+/**
+ * Read, analyse and build the machine the command line names. The encoding search runs on the
+ * io's threads (search-pool.ts); long phases show on the io's progress line.
+ */
+export async function buildFromArgs(
+  args: ParsedArgs,
+  ctx: RunContext,
+  extra: Partial<BuildOptions> = {},
+): Promise<BuildAttempt> {
+  const io = ctx.io;
   const src = loadSource(args, ctx);
   if (!src.ok) return { ok: false, diagnostics: src.diagnostics };
   const prof = profileFrom(args, ctx);
@@ -50,16 +60,29 @@ export function buildFromArgs(args: ParsedArgs, ctx: RunContext, extra: Partial<
   if (typeof encoding === 'object') return { ok: false, file: src.file, diagnostics: [encoding] };
   const pinned = pinsFrom(args);
   if ('error' in pinned) return { ok: false, file: src.file, diagnostics: [pinned.error] };
-  const a = analyse(src.text, src.file);
-  if (!a.ok) return { ok: false, diagnostics: a.diagnostics, file: src.file };
-  const b = buildMachine(a, {
+  const line = io.progress ? progressLine(io.progress) : undefined;
+  const onPhaseStart = line?.phase;
+  const a = analyse(src.text, src.file, onPhaseStart ? { onPhaseStart } : {});
+  if (!a.ok) {
+    line?.done();
+    return { ok: false, diagnostics: a.diagnostics, file: src.file };
+  }
+  const opts: BuildOptions = {
     encoding,
     profile: prof.profile,
     seed,
     unusedCodes: typeof args.flags.unused === 'string' ? args.flags.unused : undefined,
     pins: pinned.pins,
     ...extra,
-  });
+  };
+  let b;
+  try {
+    line?.phase('encode');
+    const searched = await searchOnThreads(a, opts, io.threads ?? 1, line?.search);
+    b = buildMachine(a, { ...opts, ...(searched ? { searched } : {}), ...(onPhaseStart ? { onPhaseStart } : {}) });
+  } finally {
+    line?.done();
+  }
   if (!b.ok) return { ok: false, diagnostics: [...prof.diagnostics, ...b.diagnostics], file: src.file };
   return { ok: true, built: b, file: src.file, diagnostics: [...prof.diagnostics, ...b.diagnostics] };
 }

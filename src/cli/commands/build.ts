@@ -6,8 +6,8 @@ import { EXIT } from '../exit.js';
 import type { RunContext } from './common.js';
 import { writeDocuments } from './out.js';
 
-export function runBuild(args: ParsedArgs, ctx: RunContext): number {
-  const r = buildFromArgs(args, ctx);
+export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<number> {
+  const r = await buildFromArgs(args, ctx);
   if (!r.ok) {
     ctx.fail(r.diagnostics);
     return EXIT.badInput;

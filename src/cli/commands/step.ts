@@ -29,7 +29,7 @@ export async function runStepCommand(args: ParsedArgs, ctx: RunContext): Promise
     }
     sequence = ownRecords(r.value) as SeqArray;
   }
-  const b = buildFromArgs(args, ctx, { checks: false });
+  const b = await buildFromArgs(args, ctx, { checks: false });
   if (!b.ok) {
     ctx.fail(b.diagnostics);
     return EXIT.badInput;

@@ -192,6 +192,12 @@ export const DIAGNOSTIC_CODES = {
       'A JSON file (a machine, an xstate configuration, a profile or an input sequence) nests objects and lists deeper than the tool reads (64 levels); none of them needs more than a few.',
     fix: 'Check the brackets near the reported position.',
   },
+  LW407: {
+    severity: 'error',
+    cause:
+      'The machine has more states after state minimisation than a build handles (256): its synthesis would run for minutes. Checking it (latchwright check) still works.',
+    fix: 'Split the machine into smaller ones that drive each other, or merge states that behave alike.',
+  },
   LW500: {
     severity: 'error',
     cause:

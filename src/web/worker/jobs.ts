@@ -13,6 +13,7 @@ import {
   type Built,
   compareEncodings,
   type DriveResult,
+  type EncodeResult,
   equationTexts,
   findCheck,
   momentWords,
@@ -103,14 +104,15 @@ export function settle(a: Analysed, s: BuildSettings): { settings: BuildSettings
   return { settings, dropped };
 }
 
-/** Encode and synthesise, without the checks (they follow in checkJob). */
+/** Encode and synthesise, without the checks (they follow in checkJob); `searched`: the search already run on two cores (worker/search.ts). */
 export function buildJob(
   a: Analysed,
   asked: BuildSettings,
   onProgress?: (p: Progress) => void,
+  searched?: EncodeResult,
 ): { view?: BuildView; built?: Built; diagnostics: Built['diagnostics'] } {
   const { settings: s, dropped } = settle(a, asked);
-  const b = buildMachine(a, { ...buildOptions(s, onProgress), checks: false });
+  const b = buildMachine(a, { ...buildOptions(s, onProgress), checks: false, ...(searched ? { searched } : {}) });
   if (!b.ok) return { diagnostics: b.diagnostics };
   const view: BuildView = {
     build: b.build,

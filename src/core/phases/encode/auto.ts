@@ -1,45 +1,64 @@
 /**
  * Automatic encoding: the assignment that minimises the caller's cost (the finished build's
- * weighted part count), searched in three steps that share one memo and one budget:
+ * weighted part count). The search is a plan of independent tasks (search.ts), run here one
+ * after the other; a shell may run each batch on several threads with the same result.
  *
- * 1. the named strategies (binary, Gray, Johnson, one-hot) whose codes are at most three
- *    bits longer than the minimum, so the answer is never worse than the best of them and
- *    ties go to them, being easier to read (longer codes are slow to price and never won in
- *    our measurements);
- * 2. at the fewest bits that fit (or the pinned codes' length): every assignment up to the
- *    cube's symmetries (symmetry.ts) when their number fits the budget, else simulated
- *    annealing (anneal.ts);
- * 3. when step 2 was exhaustive and nothing is pinned: one bit more, if its classes also fit
- *    what is left of the budget (in practice up to 4 states).
+ * 1. The named strategies (binary, Gray, Johnson, one-hot) whose codes are at most three bits
+ *    longer than the minimum are priced by the full cost, so the answer is never worse than
+ *    the best of them and ties go to them, being easier to read.
+ * 2. Screening at the fewest bits that fit (or the pinned codes' length): every assignment up
+ *    to the cube's symmetries (symmetry.ts) when their number fits the budget — then, with
+ *    nothing pinned, one bit more if those classes fit too — else simulated annealing
+ *    (anneal.ts) in independent runs. With a sketch (sketch.ts), screening uses the sketch,
+ *    which costs a fraction of a millisecond where the full cost takes tens to hundreds.
+ * 3. With a sketch: the best few screened candidates of each length are priced by the full
+ *    cost. Without one, the screening measure is the full cost and step 3 is not needed.
  *
- * The budget is an evaluation count, a deadline on the caller's clock, or (by default)
- * DEFAULT_SEARCH: exhaustive when there are at most 500 classes (every machine up to 6
- * states), else 50 annealing evaluations.
+ * The answer is the cheapest by the full cost; ties go to the named strategies (in order),
+ * then to the better screened candidate.
+ *
+ * Budgets. An evaluation count (`maxEvaluations`) bounds the full-cost evaluations; a deadline
+ * on the caller's clock bounds everything; by default the budget follows the size of the
+ * problem (SKETCH_SEARCH, DEFAULT_SEARCH), so that the search's work grows with the machine
+ * no faster than one full synthesis does.
  *
  * Precondition: the cost is the same for assignments that differ by a cube symmetry (true of
  * the SR build, where Q and Q̄ are both free); only one assignment per class is priced.
  * Postcondition: the best priced assignment, strategy 'auto'; the same for the same seed
- * when only the evaluation count bounds the search.
+ * when no deadline bounds the search, however its tasks were run.
  */
 import { diag } from '../../model/diagnostics.js';
 import type { FlatMachine } from '../../model/flat.js';
-import { seededRandom } from '../../model/random.js';
-import { anneal } from './anneal.js';
 import { binary } from './binary.js';
 import { bitsFor, codeToInt } from './codes.js';
-import { CostBook, MAX_SEARCH_BITS, type CostFn, type Progress } from './cost.js';
+import { CostBook, MAX_SEARCH_BITS, type Best, type CostFn, type Progress } from './cost.js';
 import { gray } from './gray.js';
 import { johnson } from './johnson.js';
 import { oneHot } from './one-hot.js';
 import { startFirst } from './order.js';
-import type { PinSet, StrategyResult } from './pinned.js';
-import { assignmentClasses, MAX_SYMMETRY_BITS } from './symmetry.js';
+import { readPins, type PinSet, type StrategyResult } from './pinned.js';
+import {
+  mergeScreens,
+  ProgressCounter,
+  runTask,
+  taskSeeds,
+  type SearchTask,
+  type TaskContext,
+  type TaskResult,
+} from './search.js';
+import { assignmentClasses, canonicalKey, MAX_SYMMETRY_BITS, surelyMoreClasses } from './symmetry.js';
+import type { Encoding } from '../../model/build.js';
+import { adjacencyCost } from './cost.js';
+import type { EncodeOptions } from './index.js';
+import { sketchOf, type Sketch } from './sketch.js';
 
 /** How the automatic search went. */
 export interface AutoReport {
-  /** Cost evaluations made (distinct symmetry classes priced). */
+  /** Evaluations of the full cost. */
   readonly evaluations: number;
-  /** 'exhaustive' when the classes at the main code length were listed for pricing, else 'annealing'. */
+  /** Evaluations of the sketch (0 when the full cost screened). */
+  readonly sketches: number;
+  /** 'exhaustive' when the classes at the main code length were listed for screening, else 'annealing'. */
   readonly method: 'exhaustive' | 'annealing';
   /** False when a deadline cut an exhaustive search short. */
   readonly complete: boolean;
@@ -52,8 +71,10 @@ export interface AutoReport {
 
 export interface AutoOptions {
   readonly cost: CostFn;
+  /** Screening measure; without it the full cost screens every candidate. */
+  readonly sketch?: Sketch;
   readonly seed: number;
-  /** Most cost evaluations; undefined for DEFAULT_SEARCH (or, with a deadline, no count limit). */
+  /** Most full-cost evaluations; undefined for the default budget (or, with a deadline, no count limit). */
   readonly maxEvaluations?: number;
   readonly deadline?: number;
   readonly now?: () => number;
@@ -61,20 +82,55 @@ export interface AutoOptions {
 }
 
 /**
- * The default budget: price every class when there are at most `exhaustiveClasses` (all
- * machines up to 6 states: 420 classes at most, McCluskey & Unger), else anneal for
- * `annealingEvaluations`. Sized for the goal of about 5 s on the benchmark's random 16-state,
- * 4-input machine, where one evaluation (the pipeline's pricing synthesis) measured 70–100 ms
- * of CPU time: 50 evaluations took 3.8 s; an exhaustive 6-state search (bbtas) took 2.6 s.
+ * The default budget without a sketch (every candidate priced by the full cost): every class
+ * when there are at most `exhaustiveClasses` (all machines up to 6 states: 420 classes at most,
+ * McCluskey & Unger), else `annealingEvaluations`.
  */
 export const DEFAULT_SEARCH = { exhaustiveClasses: 500, annealingEvaluations: 50 } as const;
+
+/**
+ * The default budget with a sketch. Every class is screened when there are at most
+ * `exhaustiveClasses` (every machine up to 8 states at the fewest bits; one bit more up to 5
+ * states); else `runs` annealing runs share as many sketches as fit in `work` steps of the
+ * sketch's own count (measured once, on the first named encoding), between `minSketches` and
+ * `maxSketches`, so the screening takes about the same time on machines of every size. Then
+ * the `finalists` best screened candidates at the main length (half as many at one bit more)
+ * are priced by the full cost — `largeFinalists` when one sketch takes more than
+ * `largeSketch` steps (the full cost grows with the sketch, at 100–1000 times its time).
+ * When annealing screened and one sketch is at most `smallSketch` steps, `polishRuns` runs of
+ * `polishEvaluations` full-cost annealing steps start from the cheapest priced codes and from
+ * the cheapest named ones (the polish).
+ * Past `hugeWork` (one sketch's steps times the variables of the set/reset functions, state
+ * bits plus inputs: a measure of one full synthesis that grows with both), a full synthesis
+ * takes seconds to tens of seconds, so the sketch alone chooses among the named encodings and
+ * the annealed candidates and only its choice is priced by the full cost (one synthesis
+ * instead of four). Every LGSynth'91 machine stays below it (s298, the largest, at 2.6e7).
+ * Measured on the LGSynth'91 machines: see docs/methods/encode.md.
+ */
+export const SKETCH_SEARCH = {
+  exhaustiveClasses: 2000,
+  runs: 4,
+  work: 2e8,
+  minSketches: 40,
+  maxSketches: 4000,
+  smallSketch: 2e4,
+  smallFinalists: 16,
+  finalists: 6,
+  largeSketch: 4e5,
+  largeFinalists: 2,
+  hugeWork: 3e7,
+  polishRuns: 2,
+  polishEvaluations: 10,
+} as const;
 
 /** Named strategies are priced only when their codes are at most this many bits longer than the minimum. */
 const NAMED_EXTRA_BITS = 3;
 /** Never enumerate more classes than this, whatever the budget (a time-bounded search would otherwise spend it listing). */
 const MAX_EXHAUSTIVE = 20_000;
-/** Annealing restarts: one per this many evaluations, between 1 and 4 (short restarts from random starts did worse than one long run). */
-const EVALUATIONS_PER_RESTART = 1000;
+/** Classes per listing task. */
+const LIST_SLICE = 250;
+/** Without a sketch: annealing runs, one per this many evaluations, between 1 and 4. */
+const EVALUATIONS_PER_RUN = 1000;
 
 /** LW701 when the code length cannot be searched: too short for the states, or longer than the search handles. */
 function lengthProblem(n: number, bits: number): StrategyResult | undefined {
@@ -105,149 +161,405 @@ function lengthProblem(n: number, bits: number): StrategyResult | undefined {
   return undefined;
 }
 
-/** The search space at the main code length: the states still to place and the pinned codes. */
-interface Space {
-  readonly n: number;
+/** One priced candidate in the order ties are broken. */
+interface Priced {
+  readonly codes: readonly string[];
   readonly bits: number;
-  readonly slots: readonly number[];
-  readonly pinned: ReadonlyMap<number, number>;
-  readonly pinCount: number;
+  readonly cost: number;
+}
+
+/** The plan of one automatic search, stepped batch by batch (see the module comment). */
+export class AutoSearch {
+  /** Set when the search cannot run (LW701); then there are no tasks. */
+  readonly problem?: StrategyResult;
+  /** The machine as the tasks need it. */
+  readonly n: number;
+  readonly pins: ReadonlyMap<number, string>;
+  private readonly bits: number;
+  private readonly named: Encoding[] = [];
+  private readonly book: CostBook;
+  private readonly classes?: number[][];
+  private readonly wider?: number[][];
+  private readonly sketched: boolean;
+  private stage = 0;
+  private batch: SearchTask[] = [];
+  private readonly priced: Priced[] = [];
+  private finalists: Best[] = [];
+  private oneSketch?: number;
+  private sketches = 0;
+  private evaluations = 0;
+  private complete = true;
+  readonly progress: ProgressCounter;
+
+  constructor(
+    private readonly f: FlatMachine,
+    pins: PinSet,
+    private readonly o: AutoOptions,
+  ) {
+    this.n = f.states.length;
+    this.pins = pins.codes;
+    this.bits = pins.bits ?? bitsFor(this.n);
+    this.sketched = o.sketch !== undefined;
+    this.book = new CostBook({ cost: o.cost, pins: pins.codes, maxEvaluations: Infinity });
+    this.progress = new ProgressCounter(null, o.onProgress);
+    this.problem = lengthProblem(this.n, this.bits);
+    if (this.problem) return;
+    const limit = Math.min(MAX_SEARCH_BITS, this.bits + NAMED_EXTRA_BITS);
+    for (const strategy of [binary, gray, johnson, oneHot]) {
+      const e = strategy(f, pins).encoding;
+      if (e && e.bits <= limit && !this.named.some((x) => this.same(x, e))) this.named.push(e);
+    }
+    const cap = this.classCap();
+    this.classes = this.listClasses(this.bits, cap);
+    if (this.classes && pins.codes.size === 0 && this.n >= 2 && this.bits + 1 <= MAX_SYMMETRY_BITS && !this.timed)
+      this.wider = this.listClasses(this.bits + 1, cap - this.classes.length);
+    this.progress.total = this.plannedTotal();
+  }
+
+  /** The next batch of independent tasks; empty when the search is over. */
+  next(): SearchTask[] {
+    if (this.problem) return [];
+    if (this.stage === 0) {
+      this.stage = 1;
+      const named = this.huge ? [] : this.named.map((e, i) => this.priceTask(e.codes, e.bits, i === 0));
+      this.batch = [...named, ...this.screenTasks()];
+      return this.batch;
+    }
+    if (this.stage === 1 && !this.sketched && !this.classes) {
+      // Without a sketch, annealing starts from the best named encoding, so it waits for their prices.
+      this.stage = 2;
+      this.batch = this.annealTasks(this.annealBudget());
+      return this.batch;
+    }
+    if (this.stage < 3 && this.sketched) {
+      this.stage = 3;
+      this.batch = this.finalists.map((c) => this.priceTask(c.codes, c.bits));
+      return this.batch;
+    }
+    if (this.stage === 3 && this.polishes) {
+      this.stage = 4;
+      this.batch = this.polishTasks();
+      if (this.batch.length > 0) return this.batch;
+    }
+    this.stage = 5;
+    return [];
+  }
+
+  /**
+   * Whether the polish runs: annealing screened, and one sketch is at most SKETCH_SEARCH.smallSketch
+   * steps (where a full synthesis is cheap; on larger machines it gained 0.1–3 % for 2–5 times the time).
+   */
+  private get polishes(): boolean {
+    return this.sketched && !this.classes && this.sketchSize() <= SKETCH_SEARCH.smallSketch;
+  }
+
+  /**
+   * The polish: SKETCH_SEARCH.polishRuns annealing runs by the full cost, each of
+   * `polishEvaluations`, from the cheapest priced codes at the main length (the sketch ranks
+   * well but not exactly; a few full-cost steps near the best find what it misses).
+   */
+  private polishTasks(): SearchTask[] {
+    const atLength = this.priced.filter((p) => p.bits === this.bits);
+    const named = atLength.slice(0, this.named.filter((e) => e.bits === this.bits).length);
+    const cheapest = (list: readonly Priced[]): Priced | undefined =>
+      list.reduce<Priced | undefined>((b, p) => (!b || p.cost < b.cost ? p : b), undefined);
+    // One run from the best priced codes, one from the best named ones (their neighbourhood is
+    // where a full-cost search from them finds its gains); the same codes when those are named.
+    const starts = [cheapest(atLength), cheapest(named) ?? cheapest(atLength)];
+    if (!starts[0]) return [];
+    const room = this.o.maxEvaluations !== undefined ? this.o.maxEvaluations - this.evaluations : Infinity;
+    const runs = SKETCH_SEARCH.polishRuns;
+    const each = Math.min(SKETCH_SEARCH.polishEvaluations, Math.floor(room / runs));
+    if (each < 2) return [];
+    return taskSeeds(this.o.seed + 1, runs).map((seed, r) => ({
+      kind: 'anneal',
+      full: true,
+      bits: this.bits,
+      seed,
+      evaluations: each,
+      start: (starts[r % starts.length] ?? (starts[0] as Priced)).codes.map(codeToInt),
+      keep: 1,
+      ...(this.o.deadline !== undefined ? { deadline: this.o.deadline } : {}),
+    }));
+  }
+
+  /** The results of the batch just handed out, in its order. */
+  accept(results: readonly TaskResult[]): void {
+    const screens: TaskResult[] = [];
+    results.forEach((r, i) => {
+      const t = this.batch[i];
+      if (r.kind === 'price') {
+        if (r.priced) this.evaluations++;
+        if (t.kind === 'price' && r.priced) this.priced.push({ codes: t.codes, bits: t.bits, cost: r.cost });
+        return;
+      }
+      const full = !this.sketched || (t.kind === 'anneal' && t.full === true);
+      if (full) this.evaluations += r.evaluations;
+      else this.sketches += r.evaluations;
+      if (!r.complete) this.complete = false;
+      if (full) for (const c of r.best.slice(0, 1)) this.priced.push(c);
+      else screens.push(r);
+    });
+    if (this.sketched && screens.length > 0) this.finalists = this.chooseFinalists(screens);
+  }
+
+  /** The answer once every batch is done. */
+  result(): StrategyResult & { report?: AutoReport } {
+    if (this.problem) return this.problem;
+    let best: Priced | undefined;
+    for (const p of this.priced) if (!best || p.cost < best.cost) best = p;
+    if (!best)
+      return {
+        diagnostics: [
+          diag('LW701', 'no encoding could be priced within the budget', {}, 'raise the evaluation budget'),
+        ],
+      };
+    const report: AutoReport = {
+      evaluations: this.evaluations,
+      sketches: this.sketches,
+      method: this.classes ? 'exhaustive' : 'annealing',
+      complete: this.complete,
+      ...(this.classes ? { classes: this.classes.length + this.namedClassesAt(this.bits) } : {}),
+      extraBit: this.wider !== undefined,
+      bestCost: best.cost,
+    };
+    return { encoding: { strategy: 'auto', bits: best.bits, codes: [...best.codes] }, diagnostics: [], report };
+  }
+
+  /** The context a task runs in (the caller adds the measures' functions). */
+  context(): Omit<TaskContext, 'cost' | 'sketch'> {
+    return { n: this.n, pins: this.pins, ...(this.o.now ? { now: this.o.now } : {}) };
+  }
+
+  private get timed(): boolean {
+    return this.o.deadline !== undefined;
+  }
+
+  private same(a: Encoding, b: Encoding): boolean {
+    return a.bits === b.bits && a.codes.every((c, i) => c === b.codes[i]);
+  }
+
+  /** Most classes that may be listed for screening. */
+  private classCap(): number {
+    const named = this.named.length;
+    if (this.sketched) return this.timed ? MAX_EXHAUSTIVE : SKETCH_SEARCH.exhaustiveClasses;
+    if (this.o.maxEvaluations !== undefined) return Math.max(0, this.o.maxEvaluations - named);
+    return this.timed ? MAX_EXHAUSTIVE : DEFAULT_SEARCH.exhaustiveClasses;
+  }
+
+  /** Every class at this length not already among the named strategies', or undefined past `cap`. */
+  private listClasses(bits: number, cap: number): number[][] | undefined {
+    if (cap < 0) return undefined;
+    const pinned = new Map([...this.pins].map(([s, c]) => [s, codeToInt(c)]));
+    const taken = new Set(pinned.values());
+    const slots = startFirst(this.f).filter((s) => !pinned.has(s));
+    const group = this.book.group(bits);
+    const free = 2 ** bits - taken.size;
+    const skip = this.namedKeys(bits);
+    if (surelyMoreClasses(slots.length, free, group.length, cap + skip.size)) return undefined;
+    const available: number[] = [];
+    for (let c = 0; c < 2 ** bits; c++) if (!taken.has(c)) available.push(c);
+    const out: number[][] = [];
+    for (const a of assignmentClasses(slots.length, available, group)) {
+      const codes = new Array<number>(this.n);
+      for (const [s, c] of pinned) codes[s] = c;
+      slots.forEach((s, i) => (codes[s] = a[i]));
+      if (skip.has(canonicalKey(codes, group))) continue;
+      if (out.length >= cap) return undefined;
+      out.push(codes);
+    }
+    return out;
+  }
+
+  /** Canonical keys of the named strategies' codes of this length. */
+  private namedKeys(bits: number): Set<string> {
+    const group = this.book.group(bits);
+    return new Set(this.named.filter((e) => e.bits === bits).map((e) => canonicalKey(e.codes.map(codeToInt), group)));
+  }
+
+  private namedClassesAt(bits: number): number {
+    return this.namedKeys(bits).size;
+  }
+
+  /** A full price; the search's first one has no deadline, so that some encoding is always priced. */
+  private priceTask(codes: readonly string[], bits: number, first = false): SearchTask {
+    const deadline = this.o.deadline !== undefined && !first ? { deadline: this.o.deadline } : {};
+    return { kind: 'price', bits, codes, ...deadline };
+  }
+
+  /** The first batch's screening: slices of the classes, or (with a sketch) annealing runs. */
+  private screenTasks(): SearchTask[] {
+    const keep = this.sketched ? this.finalistCount() : 1;
+    const deadline = this.o.deadline !== undefined ? { deadline: this.o.deadline } : {};
+    if (this.classes) {
+      const tasks: SearchTask[] = [];
+      const slice = (bits: number, list: number[][], k: number): void => {
+        for (let i = 0; i < list.length; i += LIST_SLICE)
+          tasks.push({ kind: 'list', bits, assignments: list.slice(i, i + LIST_SLICE), keep: k, ...deadline });
+      };
+      slice(this.bits, this.classes, keep);
+      if (this.wider) slice(this.bits + 1, this.wider, Math.ceil(keep / 2));
+      return tasks;
+    }
+    return this.sketched ? this.annealTasks(this.sketchBudget()) : [];
+  }
+
+  /** Independent annealing runs sharing `budget` evaluations of the screening measure (and, with a sketch, its work budget). */
+  private annealTasks(budget: number): SearchTask[] {
+    const runs = this.sketched
+      ? SKETCH_SEARCH.runs
+      : Math.min(4, Math.max(1, Math.floor(budget / EVALUATIONS_PER_RUN)));
+    const seeds = taskSeeds(this.o.seed, runs);
+    const starts = this.annealStarts(runs);
+    const share = Number.isFinite(budget) ? Math.floor(budget / runs) : Infinity;
+    return seeds.map((seed, r) => ({
+      kind: 'anneal',
+      bits: this.bits,
+      seed,
+      evaluations: Number.isFinite(share) ? share + (r < budget - share * runs ? 1 : 0) : Infinity,
+      ...(starts[r] ? { start: starts[r] } : {}),
+      keep: this.sketched ? this.finalistCount() : 1,
+      ...(this.o.deadline !== undefined ? { deadline: this.o.deadline } : {}),
+    }));
+  }
+
+  /**
+   * Where each annealing run starts: without a sketch, the first from the best priced named
+   * encoding; with one, the runs start from the named encodings at the main length in order
+   * of their sketch (cheapest first), the rest from random assignments.
+   */
+  private annealStarts(runs: number): (number[] | undefined)[] {
+    const atLength = this.named.filter((e) => e.bits === this.bits).map((e) => e.codes.map(codeToInt));
+    if (!this.sketched) {
+      const best = this.priced.filter((p) => p.bits === this.bits).sort((a, b) => a.cost - b.cost)[0];
+      return [best ? best.codes.map(codeToInt) : undefined];
+    }
+    const sketch = this.o.sketch as Sketch;
+    const ranked = atLength
+      .map((codes, i) => ({ codes, i, v: sketch.estimate(codes, this.bits) }))
+      .sort((a, b) => a.v - b.v || a.i - b.i);
+    return Array.from({ length: runs }, (_, r) => ranked[r]?.codes);
+  }
+
+  /** Evaluations of the full cost left for annealing without a sketch. */
+  private annealBudget(): number {
+    if (this.o.maxEvaluations !== undefined) return Math.max(0, this.o.maxEvaluations - this.named.length);
+    return this.timed ? Infinity : DEFAULT_SEARCH.annealingEvaluations;
+  }
+
+  /** Work of one sketch of the first named encoding at the main length (measured once). */
+  private sketchSize(): number {
+    if (this.oneSketch !== undefined) return this.oneSketch;
+    const sketch = this.o.sketch;
+    const first = this.named.find((e) => e.bits === this.bits);
+    let w = 0;
+    if (sketch && first) {
+      const w0 = sketch.work;
+      sketch.estimate(first.codes.map(codeToInt), this.bits);
+      w = sketch.work - w0;
+    }
+    this.oneSketch = w;
+    return w;
+  }
+
+  /** Sketches for annealing: as many as fit the work budget. */
+  private sketchBudget(): number {
+    const n = Math.floor(SKETCH_SEARCH.work / Math.max(1, this.sketchSize()));
+    return Math.max(SKETCH_SEARCH.minSketches, Math.min(SKETCH_SEARCH.maxSketches, n));
+  }
+
+  /**
+   * True when one full synthesis is too dear to price more than one candidate (SKETCH_SEARCH.hugeWork):
+   * then the named encodings are screened by the sketch with the rest, and one finalist is priced.
+   */
+  private get huge(): boolean {
+    if (!this.sketched || this.classes) return false;
+    return this.sketchSize() * (this.bits + this.f.inputs.length) > SKETCH_SEARCH.hugeWork;
+  }
+
+  /** Finalists per length: fewer when one sketch is large, one when it is huge. */
+  private finalistCount(): number {
+    if (this.huge) return 1;
+    const w = this.sketchSize();
+    if (w <= SKETCH_SEARCH.smallSketch) return SKETCH_SEARCH.smallFinalists;
+    return w > SKETCH_SEARCH.largeSketch ? SKETCH_SEARCH.largeFinalists : SKETCH_SEARCH.finalists;
+  }
+
+  /** The best screened candidates of each length, not already priced as a named strategy. */
+  private chooseFinalists(screens: readonly TaskResult[]): Best[] {
+    const keyOf = (c: Best): string => `${c.bits}|${canonicalKey(c.codes.map(codeToInt), this.book.group(c.bits))}`;
+    const priced = this.huge ? [] : this.named;
+    const exclude = new Set(priced.map((e) => (e.bits <= MAX_SEARCH_BITS ? keyOf({ ...e, cost: 0 }) : '')));
+    const room = this.o.maxEvaluations !== undefined ? Math.max(1, this.o.maxEvaluations - priced.length) : Infinity;
+    const at = (bits: number, keep: number): Best[] =>
+      mergeScreens(
+        screens.filter((r) => r.kind === 'screen' && r.best[0]?.bits === bits),
+        keyOf,
+        exclude,
+        keep,
+      );
+    const k = this.finalistCount();
+    const main = at(this.bits, Math.min(room, k));
+    const wide = this.wider ? at(this.bits + 1, Math.min(room - main.length, Math.ceil(k / 2))) : [];
+    return [...main, ...wide];
+  }
+
+  /** Evaluations planned, for progress (null when only a deadline bounds them). */
+  private plannedTotal(): number | null {
+    const named = this.named.length;
+    if (this.classes) {
+      const listed = this.classes.length + (this.wider?.length ?? 0);
+      if (!this.sketched) return named + listed;
+      const k = this.finalistCount();
+      return named + listed + Math.min(listed, k + (this.wider ? Math.ceil(k / 2) : 0));
+    }
+    if (this.sketched) {
+      const polish = this.polishes ? SKETCH_SEARCH.polishRuns * SKETCH_SEARCH.polishEvaluations : 0;
+      return (this.huge ? 0 : named) + this.sketchBudget() + this.finalistCount() + polish;
+    }
+    const b = this.annealBudget();
+    return Number.isFinite(b) ? named + b : null;
+  }
+}
+
+/** The automatic search, its tasks run one after the other; pins are honoured and fix the code length. */
+export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResult & { report?: AutoReport } {
+  const search = new AutoSearch(f, pins, o);
+  return runPlan(search, { ...search.context(), cost: o.cost, ...(o.sketch ? { sketch: o.sketch } : {}) });
+}
+
+/** Run a plan's batches in this thread, task after task. */
+export function runPlan(search: AutoSearch, ctx: TaskContext): StrategyResult & { report?: AutoReport } {
+  if (search.problem) return search.problem;
+  for (let batch = search.next(); batch.length > 0; batch = search.next())
+    search.accept(batch.map((t) => runTask(ctx, t, search.progress.tick)));
+  return search.result();
+}
+
+/** The plan of the automatic search for checked pins and the phase's options. */
+export function autoSearch(f: FlatMachine, pins: PinSet, opts: EncodeOptions): AutoSearch {
+  const millis = opts.now ? opts.budget?.millis : undefined;
+  const start = millis !== undefined && opts.now ? opts.now() : undefined;
+  return new AutoSearch(f, pins, {
+    cost: opts.cost ?? adjacencyCost(f),
+    ...(opts.sketch ? { sketch: sketchOf(f, opts.sketch) } : {}),
+    seed: opts.seed ?? 1,
+    ...(opts.budget?.evaluations !== undefined ? { maxEvaluations: opts.budget.evaluations } : {}),
+    ...(start !== undefined && millis !== undefined ? { deadline: start + millis, now: opts.now } : {}),
+    ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
+  });
 }
 
 /**
- * Steps 2 and 3: every class at the main length (then one bit more, when that is cheap too),
- * or annealing when the classes did not fit the budget.
+ * What a thread needs to run the tasks of the plan `planAuto(f, opts)` made: the pins and the
+ * measures, built again from the same machine and options (so a worker needs only those).
  */
-function searchCodes(
-  book: CostBook,
-  space: Space,
-  classes: readonly number[][] | undefined,
-  o: AutoOptions,
-): { complete: boolean; extraBit: boolean } {
-  const { n, bits, slots, pinned } = space;
-  if (!classes) {
-    const best = book.best;
-    const start = best && best.bits === bits ? best.codes.map(codeToInt) : undefined;
-    const restarts = Math.min(4, Math.max(1, Math.floor(book.remaining() / EVALUATIONS_PER_RESTART)));
-    anneal(book, { n, bits, pinned, restarts, ...(start ? { start } : {}) }, seededRandom(o.seed), o.now, o.deadline);
-    return { complete: true, extraBit: false };
-  }
-  const complete = priceAll(book, classes, slots, pinned, n, bits);
-  if (complete && space.pinCount === 0 && n >= 2 && bits + 1 <= MAX_SYMMETRY_BITS && !book.exhausted()) {
-    const wider = listClasses(book, bits + 1, slots.length, pinned, Math.min(book.remaining(), MAX_EXHAUSTIVE));
-    if (wider) {
-      priceAll(book, wider, slots, pinned, n, bits + 1);
-      return { complete, extraBit: true };
-    }
-  }
-  return { complete, extraBit: false };
-}
-
-/** The automatic search; pins are honoured and fix the code length. */
-export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResult & { report?: AutoReport } {
-  const n = f.states.length;
-  const bits = pins.bits ?? bitsFor(n);
-  const problem = lengthProblem(n, bits);
-  if (problem) return problem;
-  const timed = o.deadline !== undefined;
-  const book = new CostBook({
-    cost: o.cost,
-    pins: pins.codes,
-    maxEvaluations: Infinity,
-    deadline: o.deadline,
-    now: o.now,
-    onProgress: o.onProgress,
-  });
-  const named = [binary, gray, johnson, oneHot].flatMap((strategy) => {
-    const e = strategy(f, pins).encoding;
-    return e && e.bits <= Math.min(MAX_SEARCH_BITS, bits + NAMED_EXTRA_BITS) ? [e] : [];
-  });
-  const pinned = new Map([...pins.codes].map(([s, c]) => [s, codeToInt(c)]));
-  const slots = startFirst(f).filter((s) => !pinned.has(s));
-
-  // Settle the budget now that the size of the space is known.
-  const cap =
-    o.maxEvaluations !== undefined
-      ? o.maxEvaluations - named.length
-      : timed
-        ? MAX_EXHAUSTIVE
-        : DEFAULT_SEARCH.exhaustiveClasses;
-  const classes = listClasses(book, bits, slots.length, pinned, cap);
-  book.limit =
-    o.maxEvaluations ??
-    (timed
-      ? Infinity
-      : named.length + (classes ? DEFAULT_SEARCH.exhaustiveClasses : DEFAULT_SEARCH.annealingEvaluations));
-  book.total = classes ? named.length + classes.length : Number.isFinite(book.limit) ? book.limit : null;
-
-  // 1. Named strategies.
-  for (const e of named) {
-    if (book.evaluations > 0 && book.exhausted()) break;
-    book.priceCodes(e.codes, e.bits);
-  }
-  // 2. and 3.
-  const { complete, extraBit } = searchCodes(book, { n, bits, slots, pinned, pinCount: pins.codes.size }, classes, o);
-
-  const best = book.best;
-  if (!best)
-    return {
-      diagnostics: [diag('LW701', 'no encoding could be priced within the budget', {}, 'raise the evaluation budget')],
-    };
-  const method = classes ? 'exhaustive' : 'annealing';
-  const report: AutoReport = {
-    evaluations: book.evaluations,
-    method,
-    complete,
-    ...(classes ? { classes: classes.length } : {}),
-    extraBit,
-    bestCost: best.cost,
+export function searchContext(f: FlatMachine, opts: EncodeOptions): TaskContext {
+  return {
+    n: f.states.length,
+    pins: readPins(f, opts.pinned, opts.pinnedAt).pins.codes,
+    cost: opts.cost ?? adjacencyCost(f),
+    ...(opts.sketch ? { sketch: sketchOf(f, opts.sketch) } : {}),
+    ...(opts.now ? { now: opts.now } : {}),
   };
-  return { encoding: { strategy: 'auto', bits: best.bits, codes: best.codes }, diagnostics: [], report };
-}
-
-/** Every class of assignments at this length, or undefined when there are more than the budget allows. */
-function listClasses(
-  book: CostBook,
-  bits: number,
-  slots: number,
-  pinned: ReadonlyMap<number, number>,
-  cap: number,
-): number[][] | undefined {
-  const taken = new Set(pinned.values());
-  const group = book.group(bits);
-  // Without symmetries every injective assignment is its own class, so slots + cap + 1 codes
-  // already give more than cap classes: no need to list all 2^bits codes.
-  const limit = group.length > 0 ? Infinity : slots + cap + 1;
-  const available: number[] = [];
-  for (let c = 0; c < 2 ** bits && available.length < limit; c++) if (!taken.has(c)) available.push(c);
-  const out: number[][] = [];
-  for (const a of assignmentClasses(slots, available, group)) {
-    if (out.length >= cap) return undefined;
-    out.push(a);
-  }
-  return out;
-}
-
-/** Price every class (false when the budget ran out first), first correcting the planned total for classes already priced (the named strategies' own). */
-function priceAll(
-  book: CostBook,
-  classes: readonly number[][],
-  slots: readonly number[],
-  pinned: ReadonlyMap<number, number>,
-  n: number,
-  bits: number,
-): boolean {
-  const vectors = classes.map((a) => {
-    const codes = new Array<number>(n);
-    for (const [s, c] of pinned) codes[s] = c;
-    slots.forEach((s, i) => (codes[s] = a[i]));
-    return codes;
-  });
-  book.total = book.evaluations + vectors.filter((v) => book.known(v, bits) === undefined).length;
-  for (const v of vectors) {
-    if (book.known(v, bits) !== undefined) continue;
-    if (book.exhausted()) return false;
-    book.price(v, bits);
-  }
-  return true;
 }

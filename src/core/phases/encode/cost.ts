@@ -8,6 +8,7 @@ import type { FlatMachine } from '../../model/flat.js';
 import { binaryCode, codeToInt, hamming } from './codes.js';
 import { transitionWeights } from './order.js';
 import { canonicalKey, cubeSymmetries, fixing, type CubeMap } from './symmetry.js';
+import type { Sketch } from './sketch.js';
 
 /** Cost of a candidate encoding (lower is better). */
 export type CostFn = (codes: readonly string[], bits: number) => number;
@@ -40,7 +41,7 @@ export function adjacencyCost(f: FlatMachine): CostFn {
   };
 }
 
-/** The best candidate priced so far. */
+/** A priced candidate: its codes, their length and the value the book's measure gave it. */
 export interface Best {
   readonly codes: readonly string[];
   readonly bits: number;
@@ -49,28 +50,42 @@ export interface Best {
 
 export interface BookOptions {
   readonly cost: CostFn;
+  /** The measure on integer codes, used instead of `cost` when given (the search's sketch). */
+  readonly measure?: Sketch;
   /** Pinned codes by state index (they fix the symmetry group at their length). */
   readonly pins: ReadonlyMap<number, string>;
-  /** Most cost evaluations allowed (Infinity when only the deadline bounds the search). */
+  /** Most evaluations allowed (Infinity when only the deadline bounds the search). */
   readonly maxEvaluations: number;
   readonly deadline?: number;
   readonly now?: () => number;
   readonly onProgress?: (p: Progress) => void;
+  /** Told the value of every evaluation as it is made. */
+  readonly onEvaluate?: (value: number) => void;
+  /** How many of the best distinct candidates to remember (default 1). */
+  readonly keep?: number;
 }
 
-/** The memo and budget shared by every part of one automatic search. */
+/** The memo and budget shared by every part of one automatic search (or one task of it). */
 export class CostBook {
   evaluations = 0;
-  /** Most cost evaluations allowed; the search may settle it once it knows the size of the space. */
+  /** Most evaluations allowed; the search may settle it once it knows the size of the space. */
   limit: number;
   /** Planned number of evaluations, for progress reports. */
   total: number | null = null;
-  best: Best | undefined;
+  /** The best distinct candidates so far, cheapest first (the first found wins a tie). */
+  readonly top: Best[] = [];
   private readonly memo = new Map<string, number>();
   private readonly groups = new Map<number, CubeMap[]>();
+  private readonly keep: number;
 
   constructor(private readonly o: BookOptions) {
     this.limit = o.maxEvaluations;
+    this.keep = Math.max(1, o.keep ?? 1);
+  }
+
+  /** The best candidate so far. */
+  get best(): Best | undefined {
+    return this.top[0];
   }
 
   /** True when no further evaluation may start. */
@@ -106,11 +121,13 @@ export class CostBook {
     const key = this.key(codes, bits);
     const hit = this.memo.get(key);
     if (hit !== undefined) return hit;
-    return this.evaluate(
-      key,
-      codes.map((c) => binaryCode(c, bits)),
-      bits,
-    );
+    const raw = this.o.measure
+      ? this.o.measure.estimate(codes, bits)
+      : this.o.cost(
+          codes.map((c) => binaryCode(c, bits)),
+          bits,
+        );
+    return this.record(key, raw, bits, codes);
   }
 
   /** Cost of an assignment given as code strings (the named strategies, any length). */
@@ -118,20 +135,35 @@ export class CostBook {
     const key = bits <= MAX_SEARCH_BITS ? this.key(codes.map(codeToInt), bits) : `${bits}|${codes.join(',')}`;
     const hit = this.memo.get(key);
     if (hit !== undefined) return hit;
-    return this.evaluate(key, codes, bits);
+    const raw =
+      this.o.measure && bits <= MAX_SEARCH_BITS
+        ? this.o.measure.estimate(codes.map(codeToInt), bits)
+        : this.o.cost(codes, bits);
+    return this.record(key, raw, bits, codes);
   }
 
   private key(codes: readonly number[], bits: number): string {
     return `${bits}|${canonicalKey(codes, this.group(bits))}`;
   }
 
-  private evaluate(key: string, codes: readonly string[], bits: number): number {
-    const raw = this.o.cost(codes, bits);
+  private record(key: string, raw: number, bits: number, codes: readonly (number | string)[]): number {
     const cost = Number.isNaN(raw) ? Infinity : raw;
     this.evaluations++;
     this.memo.set(key, cost);
-    if (!this.best || cost < this.best.cost) this.best = { codes: [...codes], bits, cost };
-    this.o.onProgress?.({ done: this.evaluations, total: this.total, best: this.best.cost });
+    this.remember(cost, bits, codes);
+    this.o.onEvaluate?.(cost);
+    this.o.onProgress?.({ done: this.evaluations, total: this.total, best: this.top[0].cost });
     return cost;
+  }
+
+  /** Keep the candidate if it is among the `keep` best (ties: the earlier stays ahead). */
+  private remember(cost: number, bits: number, codes: readonly (number | string)[]): void {
+    const top = this.top;
+    if (top.length >= this.keep && !(cost < top[top.length - 1].cost)) return;
+    let at = top.length;
+    while (at > 0 && cost < top[at - 1].cost) at--;
+    const strings = codes.map((c) => (typeof c === 'string' ? c : binaryCode(c, bits)));
+    top.splice(at, 0, { codes: strings, bits, cost });
+    if (top.length > this.keep) top.pop();
   }
 }

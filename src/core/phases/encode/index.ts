@@ -20,9 +20,10 @@ import { diag, didYouMean, hasErrors, type Diagnostic } from '../../model/diagno
 import type { SourceLoc } from '../../model/machine.js';
 import type { FlatMachine } from '../../model/flat.js';
 import type { Encoding } from '../../model/build.js';
-import { DEFAULT_SEARCH, type AutoReport } from './auto.js';
+import { AutoSearch, autoSearch, DEFAULT_SEARCH, searchContext, SKETCH_SEARCH, type AutoReport } from './auto.js';
 import { adjacencyCost, type Progress } from './cost.js';
 import { readPins } from './pinned.js';
+import type { SketchWeights } from './sketch.js';
 import { encodingEntry, ENCODING_REGISTRY, ENCODING_RUNS, type EncodeStrategy } from './registry.js';
 
 export interface EncodeOptions {
@@ -32,13 +33,18 @@ export interface EncodeOptions {
   readonly pinnedAt?: Readonly<Record<string, SourceLoc>>;
   /** Cost of a candidate encoding (the finished build's weighted part count); used by 'auto', which falls back to `adjacencyCost` without it. */
   readonly cost?: (codes: readonly string[], bits: number) => number;
+  /**
+   * Screen candidates with the sketch (sketch.ts) in these weights, and price only the best
+   * few by `cost`; without it, 'auto' prices every candidate by `cost`.
+   */
+  readonly sketch?: SketchWeights;
   /** Seed of the automatic search's generator (default 1). */
   readonly seed?: number;
-  /** Bounds of the automatic search: cost evaluations and/or milliseconds on `now` (default DEFAULT_SEARCH). */
+  /** Bounds of the automatic search: cost evaluations and/or milliseconds on `now` (default DEFAULT_SEARCH, or SKETCH_SEARCH with a sketch). */
   readonly budget?: { readonly evaluations?: number; readonly millis?: number };
   /** Clock in milliseconds for `budget.millis` (the core reads no clock of its own). */
   readonly now?: () => number;
-  /** Called after every cost evaluation of the automatic search. */
+  /** Called after every evaluation (of the sketch or the cost) of the automatic search. */
   readonly onProgress?: (p: Progress) => void;
 }
 
@@ -52,8 +58,10 @@ export interface EncodeResult {
 /** The strategies known by name, in the order the tool offers them (the names of ENCODING_REGISTRY). */
 export const ENCODINGS: readonly EncodeStrategy[] = ENCODING_REGISTRY.map((e) => e.name);
 
-export { DEFAULT_SEARCH, type AutoReport };
+export { AutoSearch, DEFAULT_SEARCH, SKETCH_SEARCH, searchContext, type AutoReport };
 export { adjacencyCost, type Progress };
+export { runTask, type SearchTask, type TaskContext, type TaskResult } from './search.js';
+export { sketchOf, SKETCH_WEIGHTS, type SketchWeights } from './sketch.js';
 export {
   DEFAULT_ENCODING,
   encodingEntry,
@@ -117,6 +125,24 @@ export function encode(
     diagnostics: [...diagnostics, ...r.diagnostics],
     ...(r.search ? { search: r.search } : {}),
   };
+}
+
+/**
+ * The automatic search of `encode(f, 'auto', opts)` as a plan whose tasks a shell may run on
+ * other threads (AutoSearch: `next()` a batch, run every task with `runTask` in a context from
+ * `searchContext`, `accept()` the results in order, until a batch is empty; then `result()`).
+ * The answer is the one `encode` gives. Diagnostics as `encode` gives them; no plan on errors.
+ */
+export function planAuto(f: FlatMachine, opts: EncodeOptions = {}): { search?: AutoSearch; diagnostics: Diagnostic[] } {
+  if (f.states.length === 0)
+    return {
+      diagnostics: [diag('LW300', `machine '${f.name}' has no states to encode`, {}, 'declare at least one state')],
+    };
+  const diagnostics = checkOptions(opts);
+  const read = readPins(f, opts.pinned, opts.pinnedAt);
+  diagnostics.push(...read.diagnostics);
+  if (hasErrors(diagnostics)) return { diagnostics };
+  return { search: autoSearch(f, read.pins, opts), diagnostics };
 }
 
 function checkOptions(o: EncodeOptions): Diagnostic[] {

@@ -12,9 +12,8 @@
  * Order: the order the tool offers them, `auto` last (it prices the others' codes first).
  */
 import type { FlatMachine } from '../../model/flat.js';
-import { auto } from './auto.js';
+import { autoSearch, runPlan, searchContext } from './auto.js';
 import { binary } from './binary.js';
-import { adjacencyCost } from './cost.js';
 import { gray } from './gray.js';
 import type { EncodeOptions, EncodeResult } from './index.js';
 import { johnson } from './johnson.js';
@@ -115,15 +114,8 @@ export function encodingEntry(name: string): (typeof ENCODING_REGISTRY)[number] 
 
 /** The automatic search, bounded by the options' evaluation budget and (with a clock) time budget. */
 function runAuto(f: FlatMachine, pins: PinSet, opts: EncodeOptions): EncodeResult {
-  const millis = opts.now ? opts.budget?.millis : undefined;
-  const start = millis !== undefined && opts.now ? opts.now() : undefined;
-  const r = auto(f, pins, {
-    cost: opts.cost ?? adjacencyCost(f),
-    seed: opts.seed ?? 1,
-    ...(opts.budget?.evaluations !== undefined ? { maxEvaluations: opts.budget.evaluations } : {}),
-    ...(start !== undefined && millis !== undefined ? { deadline: start + millis, now: opts.now } : {}),
-    ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
-  });
+  const search = autoSearch(f, pins, opts);
+  const r = runPlan(search, searchContext(f, opts));
   return {
     ...(r.encoding ? { encoding: r.encoding } : {}),
     diagnostics: r.diagnostics,

@@ -68,7 +68,8 @@ export function canonicalKey(codes: readonly number[], group: readonly CubeMap[]
 /**
  * One assignment per class: `slots` distinct codes drawn from `available` (ascending; the
  * group must map it onto itself), smallest of its class under `group`, in ascending
- * lexicographic order.
+ * lexicographic order. Depth-first with an explicit stack, so thousands of slots need no
+ * deeper call stack than one.
  */
 export function* assignmentClasses(
   slots: number,
@@ -77,17 +78,30 @@ export function* assignmentClasses(
 ): Generator<number[]> {
   const prefix: number[] = [];
   const used = new Set<number>();
-  function* extend(alive: readonly CubeMap[]): Generator<number[]> {
-    if (prefix.length === slots) {
+  // Per depth d: the maps that keep prefix[0..d) fixed (they decide the comparison at d), and
+  // the next index of `available` to try there.
+  const alive: (readonly CubeMap[])[] = [group];
+  const cursor: number[] = [0];
+  const back = (): void => {
+    cursor.pop();
+    alive.pop();
+    const x = prefix.pop();
+    if (x !== undefined) used.delete(x);
+  };
+  while (cursor.length > 0) {
+    const d = cursor.length - 1;
+    if (d === slots) {
       yield prefix.slice();
-      return;
+      back();
+      continue;
     }
-    for (const x of available) {
+    let placed = false;
+    while (!placed && cursor[d] < available.length) {
+      const x = available[cursor[d]++];
       if (used.has(x)) continue;
-      // Maps that keep the prefix fixed decide the comparison at this position.
       const next: CubeMap[] = [];
       let lower = false;
-      for (const g of alive) {
+      for (const g of alive[d]) {
         const y = g.table[x];
         if (y < x) {
           lower = true;
@@ -98,12 +112,28 @@ export function* assignmentClasses(
       if (lower) continue;
       prefix.push(x);
       used.add(x);
-      yield* extend(next);
-      prefix.pop();
-      used.delete(x);
+      alive.push(next);
+      cursor.push(0);
+      placed = true;
     }
+    if (!placed) back();
   }
-  yield* extend(group);
+}
+
+/**
+ * Whether the classes of `slots` states over `available` codes certainly outnumber `cap`: every
+ * class holds at most |group| assignments (the identity alone when the group is empty), so
+ * there are at least P(available, slots) / |group| of them. Decided without listing any.
+ */
+export function surelyMoreClasses(slots: number, available: number, groupSize: number, cap: number): boolean {
+  const limit = cap * Math.max(1, groupSize);
+  let p = 1;
+  for (let k = 0; k < slots; k++) {
+    p *= available - k;
+    if (p <= 0) return false;
+    if (p > limit) return true;
+  }
+  return false;
 }
 
 /** McCluskey & Unger's count (2^b − 1)! / ((2^b − n)! · b!) of distinct assignments of n states to b bits. */

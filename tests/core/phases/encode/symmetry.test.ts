@@ -124,4 +124,11 @@ describe('core/phases/encode/symmetry', () => {
     );
     expect(canonicalKey([0, 1], g)).not.toBe(canonicalKey([0, 3], g));
   });
+
+  it('lists an assignment of 4096 states without a deep call stack (12 bits: identity alone)', () => {
+    // A recursive enumeration overflowed the stack at this depth; the explicit stack does not.
+    const first = assignmentClasses(4096, range(4096), cubeSymmetries(12)).next();
+    expect(first.done).toBe(false);
+    expect(first.value).toEqual(range(4096));
+  });
 });

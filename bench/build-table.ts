@@ -1,0 +1,90 @@
+/**
+ * The build table of `npm run bench`: every LGSynth'91 machine built as the command line
+ * builds it (the encoding search on worker threads, every check), each in a child process
+ * (build-one.ts) so that its peak resident memory is its own; then the growth of the build
+ * time per doubling of states on random machines of 4–128 states (4 inputs, 2 outputs).
+ * `--quick` builds a subset (three small machines, 4–16 states) in about a minute on a loaded 2-core machine.
+ * Goals (issue figures): every machine under 10 s and under 500 MB.
+ */
+import { execFile } from 'node:child_process';
+import { readdirSync } from 'node:fs';
+import type { BuildFigures } from './build-one.js';
+
+const FIXTURES = 'tests/fixtures/lgsynth91';
+/** A build past this is stopped and reported as such (ms). */
+const STOP_AFTER = 120_000;
+const QUICK_MACHINES = ['bbara', 's27', 'tbk'];
+
+/** One build in a child process, or why it gave no figures. */
+function buildInChild(source: string): Promise<BuildFigures | string> {
+  return new Promise((resolve) => {
+    execFile(
+      process.execPath,
+      ['--import', 'tsx', 'bench/build-one.ts', source],
+      { timeout: STOP_AFTER, maxBuffer: 1 << 20 },
+      (error, stdout) => {
+        if (error) resolve(error.killed ? `stopped after ${STOP_AFTER / 1000} s` : `failed (${error.code ?? 'error'})`);
+        else resolve(JSON.parse(stdout) as BuildFigures);
+      },
+    );
+  });
+}
+
+const seconds = (ms: number): string => (ms / 1000).toFixed(2);
+
+function row(name: string, r: BuildFigures | string): string {
+  if (typeof r === 'string') return `| ${name} | — | ${r} | — | — | — | — | — |`;
+  if (!r.ok)
+    return `| ${name} | ${r.states} → ${r.minimised} | refused (${r.problem ?? 'error'}) | — | — | — | ${r.peakRssMb} | — |`;
+  const share = r.ms > 0 ? Math.round((100 * r.searchMs) / r.ms) : 0;
+  return `| ${name} | ${r.states} → ${r.minimised} | ${seconds(r.ms)} | ${seconds(r.searchMs)} (${share} %) | ${seconds(r.checkMs)} | ${r.cost} | ${r.peakRssMb} | ${r.checksPassed ? 'all pass' : 'a check fails'} |`;
+}
+
+/** The build table and the growth table, as Markdown. */
+export async function benchBuildTable(opts: { readonly quick: boolean }): Promise<string> {
+  const all = readdirSync(FIXTURES)
+    .filter((f) => f.endsWith('.json'))
+    .map((f) => f.slice(0, -5))
+    .sort();
+  const names = opts.quick ? all.filter((n) => QUICK_MACHINES.includes(n)) : all;
+  const lines = [
+    "## Builds of the LGSynth'91 machines",
+    '',
+    'Each build as `latchwright build` runs it (encoding search on worker threads, every check), in a child process of its own. Goals: under 10 s and under 500 MB peak resident memory each.',
+    '',
+    '| machine | states (→ minimised) | build s | search s (share) | checks s | parts cost | peak RSS MB | checks |',
+    '|---|---|---|---|---|---|---|---|',
+  ];
+  let slowest = { name: '', ms: 0 };
+  for (const name of names) {
+    process.stdout.write(`bench: build ${name}…\n`);
+    const r = await buildInChild(`${FIXTURES}/${name}.json`);
+    if (typeof r !== 'string' && r.ms > slowest.ms) slowest = { name, ms: r.ms };
+    lines.push(row(name, r));
+  }
+  lines.push('', `Slowest: ${slowest.name} in ${seconds(slowest.ms)} s (goal < 10 s).`, '');
+  lines.push(
+    '## Build time per doubling of states',
+    '',
+    'Random machines (src/core/sim/random-machine.ts, 4 inputs, 2 outputs, seed 1), built as above.',
+    '',
+    '| states | build s | growth over half as many states | search s | checks s | peak RSS MB |',
+    '|---|---|---|---|---|---|',
+  );
+  let previous: number | undefined;
+  for (let states = 4; states <= (opts.quick ? 16 : 128); states *= 2) {
+    process.stdout.write(`bench: build random ${states} states…\n`);
+    const r = await buildInChild(`random:${states}:4:2:1`);
+    if (typeof r === 'string' || !r.ok) {
+      lines.push(`| ${states} | ${typeof r === 'string' ? r : `refused (${r.problem ?? 'error'})`} | — | — | — | — |`);
+      previous = undefined;
+      continue;
+    }
+    const growth = previous !== undefined && previous > 0 ? `${(r.ms / previous).toFixed(2)}×` : '—';
+    lines.push(
+      `| ${states} | ${seconds(r.ms)} | ${growth} | ${seconds(r.searchMs)} | ${seconds(r.checkMs)} | ${r.peakRssMb} |`,
+    );
+    previous = r.ms;
+  }
+  return lines.join('\n');
+}
