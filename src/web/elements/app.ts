@@ -80,8 +80,16 @@ export class LwApp extends LitElement {
   private readonly codes = remember(codesByState);
   private readonly lit = remember(litStates);
   /** The frame in the page's colours: the same drawing as frame.svg (the core's frameSvg). */
-  private readonly frameDrawing = remember((b: BuildView | undefined): string | undefined =>
-    b ? frameSvg(b.build, b.placement, b.profile, { palette: 'screen' }) : undefined,
+  private readonly frameDrawing = remember(
+    (b: BuildView | undefined): { readonly svg?: string; readonly problem?: string } | undefined => {
+      if (!b) return undefined;
+      try {
+        return { svg: frameSvg(b.build, b.placement, b.profile, { palette: 'screen' }) };
+      } catch (e) {
+        // A fault of the drawing must not take the rest of the page with it: say so in the view.
+        return { problem: e instanceof Error ? e.message : String(e) };
+      }
+    },
   );
   private readonly partWords = remember((b: BuildView | undefined) => (b ? partWords(b.build) : undefined));
   /** Where every lever on the frame stands in the trial run (the runner's state changes with every step). */
@@ -303,7 +311,7 @@ export class LwApp extends LitElement {
     const st = this.stepper;
     const b = s.built;
     return html`<lw-frame
-      .svg=${this.frameDrawing(b)}
+      .drawing=${this.frameDrawing(b)}
       .placement=${b?.placement}
       .words=${this.partWords(b)}
       .stands=${this.stands(st.runner, st.runner?.state, b)}

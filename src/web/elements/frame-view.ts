@@ -39,7 +39,7 @@ const same = (a: Lit | undefined, b: Lit | undefined): boolean =>
 
 export class LwFrame extends LitElement {
   static override properties = {
-    svg: { attribute: false },
+    drawing: { attribute: false },
     placement: { attribute: false },
     words: { attribute: false },
     stands: { attribute: false },
@@ -48,7 +48,8 @@ export class LwFrame extends LitElement {
     canUndo: { type: Boolean },
     printable: { type: Boolean },
   };
-  declare svg: string | undefined;
+  /** The drawing (frameSvg in the screen palette), or why there is none. */
+  declare drawing: { readonly svg?: string; readonly problem?: string } | undefined;
   declare placement: Placement | undefined;
   /** What each part does, in words, by part id. */
   declare words: ReadonlyMap<string, string> | undefined;
@@ -69,7 +70,7 @@ export class LwFrame extends LitElement {
 
   constructor() {
     super();
-    this.svg = undefined;
+    this.drawing = undefined;
     this.placement = undefined;
     this.words = undefined;
     this.stands = undefined;
@@ -207,11 +208,14 @@ export class LwFrame extends LitElement {
   ];
 
   override render() {
-    if (!this.svg || !this.placement)
+    const svg = this.drawing?.svg;
+    if (this.drawing?.problem !== undefined)
+      return html`<p class="bad" role="alert">No frame drawing: ${this.drawing.problem}</p>`;
+    if (svg === undefined || !this.placement)
       return html`<p class="soft">The frame appears once the machine builds: every part in its bay along the drum.</p>`;
     const p = this.placement;
-    const size = svgSizeMm(this.svg);
-    const scale = /scale 1:(\d+)/.exec(this.svg)?.[1] ?? '?';
+    const size = svgSizeMm(svg);
+    const scale = /scale 1:(\d+)/.exec(svg)?.[1] ?? '?';
     const touch = touchScreen();
     return html`<section class="panel" aria-label="The frame">
       <h2>Frame &amp; cords</h2>
@@ -252,7 +256,7 @@ export class LwFrame extends LitElement {
         @click=${this.onTap}
         @keydown=${this.onKey}
       >
-        ${unsafeSVG(screenSized(this.svg, this.zoom))}
+        ${unsafeSVG(screenSized(svg, this.zoom))}
       </div>
       <p class="readout ${this.lit() ? 'on' : ''}" role="status" aria-live="polite" data-readout>${this.litWords()}</p>
       ${this.legend()}
