@@ -22,6 +22,7 @@ import {
   type Diagnostic,
   type HandAction,
   type PartRunner,
+  type PartState,
 } from '../../core/index.js';
 import { leverStands, type Stands } from '../frame/stands.js';
 import { drawingPage } from '../frame/sheet.js';
@@ -94,9 +95,9 @@ export class LwApp extends LitElement {
   private readonly partWords = remember((b: BuildView | undefined) => (b ? partWords(b.build) : undefined));
   /** Where every lever on the frame stands in the trial run (the runner's state changes with every step). */
   private readonly stands = remember(
-    (runner: PartRunner | undefined, state: unknown, b: BuildView | undefined): Stands | undefined =>
-      runner && b && runner.sim.build === b.build
-        ? leverStands(b.build.netlist, b.placement.bays, runner.sim.ids, runner.state.values)
+    (runner: PartRunner | undefined, state: PartState | undefined, b: BuildView | undefined): Stands | undefined =>
+      runner && state && b && runner.sim.build === b.build
+        ? leverStands(b.build.netlist, b.placement.bays, runner.sim.ids, state.values)
         : undefined,
   );
   private view: ViewId = keepRead('view', parseView) ?? 'sketch';
