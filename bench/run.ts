@@ -18,6 +18,7 @@ import {
   randomFlatMachine,
 } from '../src/core/index.js';
 import { benchMinimiseLogic } from './minimise-logic.js';
+import { benchPlace } from './place.js';
 import { benchSimulatorAndChecks } from './sim-checks.js';
 import { median } from './median.js';
 import { benchBuildTable } from './build-table.js';
@@ -126,6 +127,12 @@ async function main(): Promise<void> {
   step('two-level minimiser');
   const logic = await benchMinimiseLogic({ quick: process.argv.includes('--quick') });
   const extra: string[] = [];
+  // ── Placement and routing (bench/place.ts): its rows in the table, its own section below ──
+  step('placement and routing');
+  const placement = benchPlace();
+  rows.push(...placement.rows);
+  extra.push(placement.markdown, '');
+  // ── end of placement and routing ──
   extra.push(await benchBuildTable({ quick: process.argv.includes('--quick') }));
   try {
     step('browser');

@@ -23,9 +23,15 @@ Usage:
       Read a machine (text form, JSON form or an xstate config), report diagnostics,
       state counts and which states merge.
   latchwright build FILE [--encoding NAME] [--profile FILE] [--seed N]
-                         [--unused dont-care|STATE] [--json] [--out DIR [--force]]
-      Synthesise the lever machine, run every check, print the report
-      (or the build documents into DIR).
+                         [--unused dont-care|STATE] [--pin PART=BAY[@DRUM] …]
+                         [--json] [--out DIR [--force]]
+      Synthesise the lever machine, place every part in a bay along the drum,
+      route every cord, run every check, print the report (or the build
+      documents into DIR: sheets, frame drawing, cam templates, cut list …).
+      --pin keeps a part in a bay, counted from 1 at the visitor end of drum 1
+      (or of drum DRUM): --pin rst=22 --pin m0=5@2; several may be given, or
+      joined with commas. Part ids are in netlist.json; a latch id pins its
+      set side, and its reset side takes the next bay.
   latchwright compare FILE [--profile FILE] [--seed N] [--json]
       Every state encoding side by side, the cheapest marked.
   latchwright step FILE [--inputs SEQ.json] [--json] [--abstract] [--encoding NAME]
@@ -48,6 +54,7 @@ function encodingLines(): string {
 const SPEC = {
   values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out'],
   switches: ['json', 'force', 'abstract', 'help', 'version'],
+  lists: ['pin'],
 };
 
 export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promise<number> {
@@ -82,7 +89,7 @@ async function dispatch(args: ParsedArgs, ctx: RunContext): Promise<number> {
     return args.command === undefined && !args.flags.help ? EXIT.badInput : EXIT.ok;
   }
   if (args.errors.length > 0) {
-    const known = [...SPEC.values, ...SPEC.switches].map((o) => `--${o}`);
+    const known = [...SPEC.values, ...SPEC.switches, ...SPEC.lists].map((o) => `--${o}`);
     ctx.fail(
       args.errors.map((e) => {
         const guess = didYouMean(e.option, known);

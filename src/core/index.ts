@@ -87,6 +87,32 @@ export {
 export type { StateMinimisation } from './phases/minimise-states/index.js';
 export { planSearch, searchOutcome, searchTaskRunner, type SearchExtras, type SearchSetup } from './search.js';
 
+// ── The frame: where every part sits and how every cord runs ────────────────────────────────
+export {
+  auditPlacement,
+  EXACT_LIMIT,
+  place,
+  type AuditFinding,
+  type Pin,
+  type PlaceOptions,
+  type PlacedBayInfo,
+  type PlacedDrum,
+  type Placement,
+  type PlacementProblem,
+} from './phases/place/index.js';
+export {
+  leavingLoss,
+  lossByBranch,
+  route,
+  type BranchRoute,
+  type CordRoute,
+  type CordRun,
+  type FrameLayout,
+  type PlacedBay,
+  type RoutePoint,
+  type Routing,
+} from './physics/routing.js';
+
 // ── Encodings (the encodings registry) ──────────────────────────────────────────────────────
 export {
   DEFAULT_ENCODING,
@@ -126,6 +152,7 @@ export {
 export { checkRecovery, type RecoveryOptions, type RecoveryResult } from './checks/recovery.js';
 export { checkTiming, type MonteCarloReport, type TimingOptions, type TimingResult } from './checks/timing.js';
 export { checkDrive, type DriveCheck } from './physics/check-drive.js';
+export { checkLayout, type LayoutFinding, type LayoutResult } from './checks/layout.js';
 export {
   driveSnapshots,
   momentWords,
@@ -203,7 +230,7 @@ export { availableTension, capstanGain, muNeeded, type Tension } from './physics
 export { frictionHeadroom, headroomWords, type Headroom, type OutputLoad } from './physics/headroom.js';
 export { sizeActuators } from './physics/actuators.js';
 export { withoutCapstan, withoutCapstanWords } from './phases/map/index.js';
-export { driveBudget, type BranchLoad, type DriverBudget } from './physics/drive.js';
+export { branchKey, driveBudget, type BranchLoad, type BranchLosses, type DriverBudget } from './physics/drive.js';
 export {
   drumLoad,
   type DriveSnapshot,
@@ -213,11 +240,17 @@ export {
   type SnapshotTorque,
 } from './physics/drum.js';
 export { operatorForces, type OperatorForce } from './physics/operator.js';
-export { billOfMaterials, type BomRow } from './physics/bom.js';
+export { billOfMaterials, type BomRow, type FrameFigures } from './physics/bom.js';
 
 // ── Documents (the documents registry) and the report ───────────────────────────────────────
 export {
   bomCsv,
+  camsSvg,
+  cutListCsv,
+  cutListRows,
+  frameScale,
+  frameSvg,
+  partWords,
   buildDocuments,
   buildSheet,
   buildSheetHtml,
@@ -241,10 +274,12 @@ export {
   type DocumentName,
   type DocumentsInput,
   type DocumentSources,
+  type CutRow,
+  type Drawings,
   type PartRole,
   type SchematicOptions,
   type TourClock,
   type VerilogFiles,
   type WiringRow,
 } from './export/index.js';
-export { buildReport, equationTexts, machineBlock } from './report.js';
+export { buildReport, equationTexts, layoutBlock, machineBlock } from './report.js';

@@ -4,7 +4,8 @@
  * own output type and a contract comment naming its method.
  *
  *   parse → validate → minimise states → encode → excite → guard → minimise logic → map
- *         → size actuators → balance drive → check
+ *         → size actuators → balance drive → place (and route; balance again with the routed
+ *         losses) → check
  *
  * The loads the machine gives its outputs (`loadsG`, and any `actuators` option over them) make
  * those outputs actuators. A profile's `cordRouting` is checked against the cords of the build
@@ -26,9 +27,12 @@ import {
   type EncodeStrategy,
 } from './phases/encode/index.js';
 import { balanced, synthesise } from './synthesise.js';
-import { partsCost } from './phases/map/index.js';
+import { countParts, partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
 import { cordRoutingDiagnostics } from './physics/profile-load.js';
+import { lossByBranch } from './physics/routing.js';
+import { balanceDrive } from './physics/buffer-tree.js';
+import { pinDiagnostics, place, type Pin, type Placement } from './phases/place/index.js';
 import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
 import { recovered, searchOptions, synthesisOptions, type SearchSetup } from './search.js';
 import type { GuardMethod } from './phases/guard.js';
@@ -122,6 +126,8 @@ export interface BuildOptions extends AnalyseOptions {
   readonly searched?: EncodeResult;
   /** Run the checks (default true); a comparison of encodings skips them. */
   readonly checks?: boolean;
+  /** Parts pinned to a bay along the drum, by part id (a latch id pins its set side; its reset side takes the next bay). */
+  readonly pins?: Readonly<Record<string, Pin>>;
 }
 
 /** A machine that was built, with every check's result. */
@@ -130,12 +136,14 @@ export interface Built {
   readonly analysed: Analysed;
   readonly build: Build;
   readonly search?: EncodeResult['search'];
+  /** Where every part sits in the frame and how every cord runs (phases/place). */
+  readonly placement: Placement;
   readonly checks: readonly CheckResult[];
   readonly profile: Profile;
   readonly diagnostics: readonly Diagnostic[];
 }
 
-/** encode → synthesise (excite → guard → minimise logic → map) → balance drive → check. */
+/** encode → synthesise (excite → guard → minimise logic → map) → balance drive → place → check. */
 export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Rejected {
   const profile = opts.profile ?? BUILD_DEFAULTS.profile;
   const seed = opts.seed ?? BUILD_DEFAULTS.seed;
@@ -171,8 +179,22 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
       );
     const routes = cordRoutingDiagnostics(profile, build.netlist);
     if (routes.length > 0) return { ok: false, form: a.form, diagnostics: [...diagnostics, ...routes] };
-    const checks = opts.checks === false ? [] : timed(opts, 'check', () => runChecks(build, a, profile, seed));
-    return { ok: true, analysed: a, build, search: encoded.search, checks, profile, diagnostics };
+    const placed = timed(opts, 'place', () => placeWithDrive(build, profile, { seed, pins: opts.pins ?? {} }));
+    diagnostics.push(...pinDiagnostics(placed.placement.problems));
+    if (hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
+    const { placement } = placed;
+    const checks =
+      opts.checks === false ? [] : timed(opts, 'check', () => runChecks(placed.build, a, profile, seed, placement));
+    return {
+      ok: true,
+      analysed: a,
+      build: placed.build,
+      search: encoded.search,
+      placement,
+      checks,
+      profile,
+      diagnostics,
+    };
   } catch (e) {
     if (e instanceof DiagnosticError)
       return { ok: false, form: a.form, diagnostics: [...a.diagnostics, ...e.diagnostics] };
@@ -210,9 +232,50 @@ export function buildSearchSetup(a: Analysed, opts: BuildOptions = {}): SearchSe
   };
 }
 
-/** Every check of the registry (checks/registry.ts), in the order reports show them, all with one seed. */
-export function runChecks(build: Build, a: Analysed, profile: Profile, seed: number): CheckResult[] {
-  const input: CheckInput = { build, spec: { original: a.flat, merged: a.minimised.merged }, profile, seed };
+/** Rounds of placing and balancing again at most: each round only adds buffers, so a few settle it. */
+export const PLACE_ROUNDS = 4;
+
+/**
+ * Place the build and route its cords; when a routed branch costs more than the budget allowed
+ * for, buffer trees are added with the routed losses (balanceDrive) and the build placed again,
+ * at most PLACE_ROUNDS times. A budget that still fails is the drive check's to report. (The
+ * build was balanced with the losses its routes will have, so this rarely has work to do: a
+ * `cordRouting` entry that names a buffer's cord, or a profile changed between the two.)
+ */
+export function placeWithDrive(
+  b: Build,
+  profile: Profile,
+  opts: { readonly seed: number; readonly pins: Readonly<Record<string, Pin>> },
+): { build: Build; placement: Placement } {
+  let build = b;
+  let placement = place(build.netlist, profile, opts);
+  for (let round = 0; round < PLACE_ROUNDS; round++) {
+    const netlist = balanceDrive(build.netlist, profile, lossByBranch(placement.routing));
+    if (netlist === build.netlist) break;
+    build = { ...build, netlist, parts: countParts(netlist) };
+    placement = place(netlist, profile, opts);
+  }
+  return { build, placement };
+}
+
+/**
+ * Every check of the registry (checks/registry.ts), in the order reports show them, all with one
+ * seed. `placement`: the build's place in the frame (default: placed here with the same seed).
+ */
+export function runChecks(
+  build: Build,
+  a: Analysed,
+  profile: Profile,
+  seed: number,
+  placement: Placement = place(build.netlist, profile, { seed }),
+): CheckResult[] {
+  const input: CheckInput = {
+    build,
+    spec: { original: a.flat, merged: a.minimised.merged },
+    profile,
+    seed,
+    placement,
+  };
   return CHECKS.map((c) => c.run(input));
 }
 

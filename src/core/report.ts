@@ -31,6 +31,27 @@ export function equationTexts(b: Built): { name: string; expr: string }[] {
   }));
 }
 
+const mm = (m: number): number => Math.round(m * 1000) / 1000;
+
+/**
+ * The `layout` block: how the bays were ordered, each drum's length and bay count, the cord to
+ * cut against the same routing in the netlist's own order (measured in the same run), the cord
+ * along the channels (what the order minimises) and the pulleys. Metres, to the millimetre.
+ */
+export function layoutBlock(b: Pick<Built, 'placement'>) {
+  const p = b.placement;
+  return {
+    method: p.method,
+    exact: p.exact,
+    drums: p.drums.map((d) => ({ lengthM: mm(d.lengthM), bays: d.bays.length })),
+    totalCordM: mm(p.totalCordM),
+    baselineCordM: mm(p.baselineCordM),
+    channelM: mm(p.channelM),
+    baselineChannelM: mm(p.baselineChannelM),
+    pulleys: p.pulleys,
+  };
+}
+
 /** The `profile` block: the file and description of the profile used, and every value that differs from the defaults with its source. */
 export function profileBlock(profile: Profile) {
   return {
@@ -53,12 +74,13 @@ export function buildReport(b: Built) {
       ...(b.search ? { search: b.search } : {}),
     },
     parts: b.build.parts,
+    layout: layoutBlock(b),
     profile: profileBlock(b.profile),
     guard: b.build.guard,
     equations: equationTexts(b),
     checks: b.checks,
     ok: b.checks.every((c) => c.ok),
-    bom: billOfMaterials(b.build.netlist, b.profile),
+    bom: billOfMaterials(b.build.netlist, b.profile, b.placement),
     operatorForces: operatorForces(b.build.netlist, b.profile),
     netlist: b.build.netlist,
     diagnostics: b.diagnostics,

@@ -23,6 +23,7 @@ import { guard, mergeTerms, termsOf, type GuardMethod, type Minimiser } from './
 import { countParts, mapToParts, partsCost, type Mapped } from './phases/map/index.js';
 import { balanceDrive } from './physics/buffer-tree.js';
 import { sizeActuators } from './physics/actuators.js';
+import { expectedLosses } from './physics/routing.js';
 import { minimiseCover } from './phases/minimise-logic/index.js';
 import type { MinimiseOptions, MultiFunction, SopCover, Term } from './phases/minimise-logic/types.js';
 
@@ -105,10 +106,11 @@ export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions
 /**
  * The build with the mapper's fixed fan-out limit replaced by the capstan force budget: every
  * heavy actuator a capstan of its own with the turns its load needs, then buffer trees where a
- * margin fails.
+ * margin fails — each branch at the loss it will have as routed in the frame (expectedLosses).
  */
 export function balanced(b: Build, profile: Profile): Build {
-  const netlist = balanceDrive(sizeActuators(b.netlist, profile), profile);
+  const sized = sizeActuators(b.netlist, profile, expectedLosses(b.netlist, profile));
+  const netlist = balanceDrive(sized, profile, expectedLosses(sized, profile));
   return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
 }
 

@@ -2,8 +2,10 @@
  * Stored expected outputs for whole builds of the example machines (examples/*.lw, our own
  * invented exhibits), built as `latchwright build FILE` builds them: default encoding (auto),
  * default seed, shipped profile. Each build is summarised — machine counts, merges, encoding,
- * part counts, guard, equations (terms in cube order), check names and ok flags; not the
- * netlist, not timings — and compared exactly with tests/fixtures/expected/<name>.json.
+ * part counts, guard, equations (terms in cube order), the frame (how the bays were ordered,
+ * each drum's length and bays, the cord to cut against the netlist order, to the centimetre),
+ * check names and ok flags; not the netlist, not timings — and compared exactly with
+ * tests/fixtures/expected/<name>.json.
  *
  * When a change to the pipeline changes a build on purpose, rewrite the stored files with
  *   LW_UPDATE_EXPECTED=1 npx vitest run tests/core/examples.test.ts
@@ -21,6 +23,8 @@ const EXAMPLES = readdirSync('examples')
   .sort();
 const EXPECTED_DIR = 'tests/fixtures/expected';
 const UPDATE = process.env.LW_UPDATE_EXPECTED === '1';
+
+const cm = (m: number): number => Math.round(m * 100) / 100;
 
 /** The part of a build that is stored: everything a reviewer can judge by eye. */
 function summary(b: Built) {
@@ -53,6 +57,13 @@ function summary(b: Built) {
       name: e.name,
       expr: e.terms.length === 0 ? '0' : printCubes([...e.terms].sort(), b.build.vars),
     })),
+    frame: {
+      method: b.placement.method,
+      drums: b.placement.drums.map((d) => ({ lengthM: cm(d.lengthM), bays: d.bays.length })),
+      totalCordM: cm(b.placement.totalCordM),
+      baselineCordM: cm(b.placement.baselineCordM),
+      pulleys: b.placement.pulleys,
+    },
     checks: b.checks.map((c) => ({ name: c.name, ok: c.ok })),
     diagnostics: b.diagnostics.filter((d) => d.severity !== 'info').map((d) => d.code),
   };
@@ -88,6 +99,9 @@ describe('core/pipeline on the examples (stored expected builds)', () => {
       // Every stored build is a good one: a failing check is never the expected output.
       expect(got.checks.every((c) => c.ok)).toBe(true);
       expect(got.guard.ok).toBe(true);
+      // The layout check is among them, and the placed frame is never longer in cord than the netlist's own order.
+      expect(got.checks.map((c) => c.name)).toContain('layout');
+      expect(got.frame.totalCordM).toBeLessThanOrEqual(got.frame.baselineCordM);
     });
   }
 

@@ -34,6 +34,31 @@ describe('core/report', () => {
     expect(JSON.parse(JSON.stringify(places))).toEqual(places);
   });
 
+  it('gives the layout block: method, each drum, the cord against the netlist order measured in the same run, pulleys', () => {
+    const b = built('examples/crossing.lw');
+    const { layout } = buildReport(b);
+    expect(Object.keys(layout)).toEqual([
+      'method',
+      'exact',
+      'drums',
+      'totalCordM',
+      'baselineCordM',
+      'channelM',
+      'baselineChannelM',
+      'pulleys',
+    ]);
+    expect(layout.drums).toEqual(
+      b.placement.drums.map((d) => ({ lengthM: Math.round(d.lengthM * 1000) / 1000, bays: d.bays.length })),
+    );
+    expect(layout.drums).toHaveLength(2); // our crossing example needs two drums of at most 1.5 m
+    expect(layout.totalCordM).toBeLessThanOrEqual(layout.baselineCordM);
+    expect(layout.channelM).toBeLessThanOrEqual(layout.baselineChannelM);
+    expect(layout.pulleys).toBe(b.placement.routing.branches.reduce((s, x) => s + x.pulleys, 0));
+    // The bill of materials measures the cord from the frame.
+    const cord = buildReport(b).bom.find((r) => r.kind === 'cord');
+    expect(cord?.total).toBeCloseTo(b.placement.totalCordM, 3);
+  });
+
   it('carries the profile used: the shipped defaults say no more than that no value changed', () => {
     expect(buildReport(built('examples/marble-bell.lw')).profile).toEqual({ changes: [] });
   });

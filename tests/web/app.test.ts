@@ -287,7 +287,8 @@ describe('src/web (end to end in chromium)', () => {
     const frame = page.locator('iframe#lw-print');
     await expect.poll(() => frame.getAttribute('data-printed')).toBe('1');
     const printed = await frame.evaluate((f: HTMLIFrameElement) => ({
-      drawings: f.contentDocument?.querySelectorAll('svg').length ?? 0,
+      // A drawing inline, or embedded as an image whose source is the SVG (the sheet's frame drawing and the rest).
+      drawings: f.contentDocument?.querySelectorAll('svg, img[src^="data:image/svg+xml"]').length ?? 0,
       title: f.contentDocument?.title ?? '',
     }));
     expect(printed.drawings).toBeGreaterThanOrEqual(2);

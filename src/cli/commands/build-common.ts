@@ -14,6 +14,7 @@ import {
   type EncodeStrategy,
   hasErrors,
   loadProfile,
+  type Pin,
   type Profile,
 } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
@@ -57,6 +58,8 @@ export async function buildFromArgs(
   if (typeof seed === 'object') return { ok: false, file: src.file, diagnostics: [seed] };
   const encoding = encodingFrom(args);
   if (typeof encoding === 'object') return { ok: false, file: src.file, diagnostics: [encoding] };
+  const pinned = pinsFrom(args);
+  if ('error' in pinned) return { ok: false, file: src.file, diagnostics: [pinned.error] };
   const line = io.progress ? progressLine(io.progress) : undefined;
   const onPhaseStart = line?.phase;
   const a = analyse(src.text, src.file, onPhaseStart ? { onPhaseStart } : {});
@@ -69,6 +72,7 @@ export async function buildFromArgs(
     profile: prof.profile,
     seed,
     unusedCodes: typeof args.flags.unused === 'string' ? args.flags.unused : undefined,
+    pins: pinned.pins,
     ...extra,
   };
   let b;
@@ -81,6 +85,32 @@ export async function buildFromArgs(
   }
   if (!b.ok) return { ok: false, diagnostics: [...prof.diagnostics, ...b.diagnostics], file: src.file };
   return { ok: true, built: b, file: src.file, diagnostics: [...prof.diagnostics, ...b.diagnostics] };
+}
+
+/**
+ * The --pin options: `PART=BAY` or `PART=BAY@DRUM`, repeated or joined with commas, as pins by
+ * part id; LW700 for one that is not written so. Whether the part and bay exist is the place
+ * phase's to say (LW707, LW708).
+ */
+export function pinsFrom(args: ParsedArgs): { pins: Record<string, Pin> } | { error: Diagnostic } {
+  // Entries, then Object.fromEntries: a part named like an Object property stays a plain key.
+  const pins: [string, Pin][] = [];
+  for (const raw of (args.lists.pin ?? []).flatMap((v) => v.split(','))) {
+    const text = raw.trim();
+    if (text === '') continue;
+    const m = /^(.+?)=(\d+)(?:@(\d+))?$/.exec(text);
+    if (!m)
+      return {
+        error: diag(
+          'LW700',
+          `--pin ${text} is not PART=BAY or PART=BAY@DRUM`,
+          { path: '--pin' },
+          'write the part id, =, and the bay counted from 1 at the visitor end, e.g. --pin rst=22 or --pin m0=5@2',
+        ),
+      };
+    pins.push([m[1].trim(), m[3] === undefined ? { bay: Number(m[2]) } : { bay: Number(m[2]), drum: Number(m[3]) }]);
+  }
+  return { pins: Object.fromEntries(pins) };
 }
 
 /** The --seed option: undefined when absent, else a whole number ≥ 0, or LW700. */

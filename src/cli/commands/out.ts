@@ -7,6 +7,12 @@ export function writeDocuments(
   dir: string,
   force: boolean,
 ): { ok: true; files: string[]; notes: Diagnostic[] } | { ok: false; diagnostic: Diagnostic } {
-  const files = buildDocuments({ build: b.build, checks: b.checks, profile: b.profile, analysed: b.analysed });
+  const files = buildDocuments({
+    build: b.build,
+    checks: b.checks,
+    profile: b.profile,
+    analysed: b.analysed,
+    placement: b.placement,
+  });
   return writeBuildFolder(dir, files, { force });
 }

@@ -13,11 +13,14 @@
  * one entry to `CHECKS` below.
  */
 import type { Build } from '../model/build.js';
+import type { Placement } from '../phases/place/index.js';
 import { checkDrive } from '../physics/check-drive.js';
 import type { Profile } from '../physics/profile.js';
+import { lossByBranch } from '../physics/routing.js';
 import { driveSnapshots, placeWords } from '../sim/snapshots.js';
 import { checkEquivalence } from './equivalence.js';
 import { forbiddenInputCheck } from './forbidden-input.js';
+import { checkLayout } from './layout.js';
 import { checkNextStateEquivalence } from './logic.js';
 import { checkRecovery } from './recovery.js';
 import type { CheckName, CheckResultOf } from './results.js';
@@ -25,7 +28,14 @@ import type { SpecInfo } from './spec.js';
 import { checkTiming } from './timing.js';
 
 export type { SpecInfo } from './spec.js';
-export { findCheck, type CheckName, type CheckResult, type CheckResultOf, type DriveResult } from './results.js';
+export {
+  findCheck,
+  type CheckName,
+  type CheckResult,
+  type CheckResultOf,
+  type DriveResult,
+  type LayoutResult,
+} from './results.js';
 
 /** Everything a check may read. */
 export interface CheckInput {
@@ -36,6 +46,8 @@ export interface CheckInput {
   readonly profile: Profile;
   /** The seed of every random choice a check makes (sampled inputs and codes, Monte Carlo delays). */
   readonly seed: number;
+  /** Where every part sits in the frame and how every cord runs (phases/place). */
+  readonly placement: Placement;
 }
 
 /** One thing a check reads: a field of `CheckInput`. */
@@ -118,17 +130,26 @@ export const CHECKS = [
     name: 'drive',
     label: 'Force budgets',
     shortLabel: 'drive',
-    needs: ['build', 'profile', 'seed'],
+    needs: ['build', 'profile', 'seed', 'placement'],
     produces:
-      'margins per driver, the worst drum torque and power overall and per state (over every or a sampled set of inputs), the hardest lever pull',
-    run: ({ build, profile, seed }) => {
+      'margins per driver with each branch’s routed loss, the worst drum torque and power overall and per state (over every or a sampled set of inputs), the hardest lever pull',
+    run: ({ build, profile, seed, placement }) => {
       const snapshots = driveSnapshots(build, profile, seed);
-      const r = checkDrive(build.netlist, profile, snapshots, placeWords);
+      const r = checkDrive(build.netlist, profile, snapshots, placeWords, lossByBranch(placement.routing));
       const torqueOver = { clocks: snapshots.clocks, inputs: snapshots.inputs, seed };
       if (snapshots.inputs === 'exhaustive') return { ...r, torqueOver };
       const summary = `${r.summary}; drum torque over ${snapshots.clocks} sampled start points (state × inputs, seed ${seed}), not every one`;
       return { ...r, summary, torqueOver };
     },
+  }),
+  entry({
+    name: 'layout',
+    label: 'Frame layout',
+    shortLabel: 'layout',
+    needs: ['build', 'profile', 'placement'],
+    produces:
+      'drums and bays, the cord to cut against the netlist order, every rule the layout breaks with what to change, the smallest margin with the routed cords',
+    run: ({ build, profile, placement }) => checkLayout(build.netlist, placement, profile),
   }),
 ] as const satisfies readonly CheckEntry[];
 

@@ -7,6 +7,7 @@ import type { DriveCheck } from '../physics/check-drive.js';
 import type { SnapshotPlace } from '../sim/snapshots.js';
 import type { EquivalenceResult } from './equivalence.js';
 import type { ForbiddenInputCheck } from './forbidden-input.js';
+import type { LayoutResult } from './layout.js';
 import type { NextStateResult } from './logic.js';
 import type { RecoveryResult } from './recovery.js';
 import type { TimingResult } from './timing.js';
@@ -22,7 +23,15 @@ export type DriveResult = DriveCheck<SnapshotPlace> & {
 
 /** Every check's result: a union told apart by `name`. */
 export type CheckResult =
-  ForbiddenInputCheck | NextStateResult | EquivalenceResult | RecoveryResult | TimingResult | DriveResult;
+  | ForbiddenInputCheck
+  | NextStateResult
+  | EquivalenceResult
+  | RecoveryResult
+  | TimingResult
+  | DriveResult
+  | LayoutResult;
+
+export type { LayoutResult } from './layout.js';
 
 export type CheckName = CheckResult['name'];
 

@@ -1,13 +1,16 @@
 /**
  * HTML rendering of a Doc (the build sheet and the commissioning sheet): one self-contained
- * file — no scripts, fonts, images or links to anything outside it — in light colours, with a
+ * file — no scripts, fonts, or links to anything outside it — in light colours, with a
  * print stylesheet that starts every section on a new page, repeats table headers on each
- * page and keeps table rows whole. Every piece of text goes through escapeXml; the markup is
- * well-formed XML as well as HTML (every element closed), so it parses either way.
+ * page, keeps table rows whole and fits each drawing on one page. Every piece of text goes
+ * through escapeXml; the markup is well-formed XML as well as HTML (every element closed), so
+ * it parses either way. A drawing is embedded as an image whose source is the SVG itself, as
+ * a data URL (RFC 2397, base64 of its UTF-8): its style sheet stays its own, and it scales to
+ * the page like a picture.
  */
-import type { Block, Doc, TableBlock } from './doc.js';
+import type { Block, Doc, FigureBlock, TableBlock } from './doc.js';
 import { escapeXml as x } from './escape.js';
-import { buildSheet, type DocumentsInput } from './build-sheet.js';
+import { buildSheet, type DocumentsInput, type Drawings } from './build-sheet.js';
 
 const CSS = `
 :root { color-scheme: light; }
@@ -31,6 +34,9 @@ pre { background: #f3f5f4; border: 1px solid #d4dad7; padding: .6rem .8rem; whit
 .note.ok { border-left-color: #5a8a6a; background: #f1f7f2; }
 .note p.title { font-weight: 600; margin: .1rem 0 .3rem; }
 .note ul { margin: .2rem 0; padding-left: 1.2rem; }
+figure.drawing { margin: .8rem 0 1.2rem; }
+figure.drawing img { display: block; max-width: 100%; height: auto; border: 1px solid #d4dad7; background: #fff; }
+figure.drawing figcaption { color: #50575e; font-size: .88rem; margin-top: .3rem; }
 @page { margin: 14mm; }
 @media print {
   body { background: #fff; margin: 0; max-width: none; padding: 0; font-size: 10pt; }
@@ -40,7 +46,8 @@ pre { background: #f3f5f4; border: 1px solid #d4dad7; padding: .6rem .8rem; whit
   h2 { break-after: avoid; margin-top: 0; }
   table { font-size: 8.5pt; }
   thead { display: table-header-group; }
-  tr, .note, pre { break-inside: avoid; }
+  tr, .note, pre, figure.drawing { break-inside: avoid; }
+  figure.drawing img { max-height: 235mm; width: auto; border: none; }
   tbody tr:nth-child(even) td { background: #fff; }
 }
 `;
@@ -57,6 +64,19 @@ function tableHtml(t: TableBlock): string {
   return `<table>${t.caption ? `<caption>${x(t.caption)}</caption>` : ''}${thead}<tbody>\n${rows.join('\n')}\n</tbody></table>`;
 }
 
+/** Base64 of a text's UTF-8 bytes (RFC 4648), with the platform's btoa. */
+function base64(text: string): string {
+  const bytes = new TextEncoder().encode(text);
+  let binary = '';
+  for (let i = 0; i < bytes.length; i += 0x8000) binary += String.fromCharCode(...bytes.subarray(i, i + 0x8000));
+  return btoa(binary);
+}
+
+function figureHtml(f: FigureBlock): string {
+  const src = `data:image/svg+xml;base64,${base64(f.svg)}`;
+  return `<figure class="drawing"><img src="${src}" alt="${x(f.caption)}" /><figcaption>${x(f.caption)} (also in ${x(f.file)})</figcaption></figure>`;
+}
+
 function blockHtml(b: Block): string {
   switch (b.kind) {
     case 'p':
@@ -71,6 +91,8 @@ function blockHtml(b: Block): string {
       return `<div class="note ${b.tone}"><p class="title">${x(b.title)}</p>${b.items.length > 0 ? `<ul>${b.items.map((i) => `<li>${x(i)}</li>`).join('')}</ul>` : ''}</div>`;
     case 'table':
       return tableHtml(b);
+    case 'figure':
+      return figureHtml(b);
   }
 }
 
@@ -83,7 +105,9 @@ export function renderDocHtml(doc: Doc): string {
   const sections = doc.sections.map(
     (s) => `<section id="${x(s.id)}">\n<h2>${x(s.title)}</h2>\n${s.blocks.map(blockHtml).join('\n')}\n</section>`,
   );
-  const page = doc.landscape ? '\n@page { size: landscape; }\nbody { max-width: 96rem; }' : '';
+  const page = doc.landscape
+    ? '\n@page { size: landscape; }\nbody { max-width: 96rem; }\n@media print { figure.drawing img { max-height: 150mm; } }'
+    : '';
   return [
     '<!DOCTYPE html>',
     '<html lang="en">',
@@ -102,7 +126,7 @@ export function renderDocHtml(doc: Doc): string {
   ].join('\n');
 }
 
-/** The build sheet as a printable, self-contained HTML page. */
-export function buildSheetHtml(input: DocumentsInput): string {
-  return renderDocHtml(buildSheet(input));
+/** The build sheet as a printable, self-contained HTML page, with the drawings when given. */
+export function buildSheetHtml(input: DocumentsInput, drawings?: Drawings): string {
+  return renderDocHtml(buildSheet(input, drawings));
 }

@@ -6,7 +6,7 @@
  */
 import type { Block, Doc, TableBlock } from './doc.js';
 import { escapeMd, spellControls } from './escape.js';
-import { buildSheet, type DocumentsInput } from './build-sheet.js';
+import { buildSheet, type DocumentsInput, type Drawings } from './build-sheet.js';
 
 /** A fixed-width cell: a code span when it can be one. */
 function monoCell(text: string): string {
@@ -43,6 +43,9 @@ function blockMd(b: Block): string {
       ].join('\n');
     case 'table':
       return tableMd(b);
+    case 'figure':
+      // The drawing is a file of its own beside the sheet in the build folder.
+      return `![${escapeMd(b.caption)}](${encodeURI(b.file)})\n\n${escapeMd(b.caption)} (${escapeMd(b.file)})`;
   }
 }
 
@@ -57,7 +60,7 @@ export function renderDocMd(doc: Doc): string {
   return out.join('\n') + '\n';
 }
 
-/** The build sheet as Markdown. */
-export function buildSheetMd(input: DocumentsInput): string {
-  return renderDocMd(buildSheet(input));
+/** The build sheet as Markdown; the drawings, when given, are linked to their files beside it. */
+export function buildSheetMd(input: DocumentsInput, drawings?: Drawings): string {
+  return renderDocMd(buildSheet(input, drawings));
 }

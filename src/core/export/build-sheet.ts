@@ -5,20 +5,24 @@
  * Sections: the machine and its checks; safety cautions (DESIGN §9, in full); the technology
  * profile (its file and description, and every value that differs from the shipped defaults
  * with the source the profile gives); the state table with codes; the set/reset equations per
- * latch and the output equations; the forbidden-input guard; parts and bill of materials;
- * drive margins (capstan equation), the friction headroom, what each output moves (an
- * actuator its load; a flag only its own swing), drum torque and lever force; timing and
- * clock rate; the wiring list; the operating rules with what breaking each one does (from the
- * forbidden-input check). Figures come from the checks
- * the pipeline ran; a section whose check is missing says so rather than guessing.
- * Pure: no I/O; text only (renderers escape).
+ * latch and the output equations; the forbidden-input guard; parts and bill of materials; the
+ * frame (the drawing, every bay and what it does, the cord to cut); drive margins (capstan
+ * equation, each branch's routed loss), the friction headroom, what each output moves (an
+ * actuator its load; a flag only its own swing), drum torque and lever force; timing, clock
+ * rate and cams; the wiring list; the operating rules with what breaking each one does (from
+ * the forbidden-input check); the state diagram and the schematic. Figures come from the
+ * checks the pipeline ran; a section whose check is missing says so rather than guessing.
+ * Pure: no I/O; text only (renderers escape), and the drawings as SVG texts they embed.
  */
 import type { Build } from '../model/build.js';
 import type { Machine } from '../model/machine.js';
+import type { Placement } from '../phases/place/index.js';
 import { shorten } from '../model/printable.js';
 import type { Profile } from '../physics/profile.js';
 import { billOfMaterials } from '../physics/bom.js';
 import { driveBudget } from '../physics/drive.js';
+import { lossByBranch } from '../physics/routing.js';
+import { partWords } from './part-words.js';
 import { frictionHeadroom, type Headroom } from '../physics/headroom.js';
 import { profileChanges } from '../physics/profile-load.js';
 import { withoutCapstanWords } from '../phases/map/counts.js';
@@ -41,6 +45,15 @@ export interface DocumentsInput {
   readonly analysed?: { readonly machine: Machine };
   /** The commissioning input sequence; default: the transition tour of the built machine. */
   readonly tour?: readonly TourClock[];
+  /** Where every part sits and how every cord runs (the pipeline's); default: placed with the profile. */
+  readonly placement?: Placement;
+}
+
+/** The drawings the sheets embed, as SVG texts (each is also a file of its own). */
+export interface Drawings {
+  readonly frame: string;
+  readonly stateDiagram: string;
+  readonly schematic: string;
 }
 
 /** The safety cautions every build sheet, commissioning sheet and guide carries (DESIGN §9). */
@@ -193,7 +206,7 @@ function guardSection(input: DocumentsInput): Section {
 function partsSection(input: DocumentsInput): Section {
   const { build, profile } = input;
   const c = build.parts;
-  const bom = billOfMaterials(build.netlist, profile);
+  const bom = billOfMaterials(build.netlist, profile, input.placement);
   const stages = stagesOf(build.netlist);
   const parts = [...build.netlist.parts].sort((a, b) => stages.compare(a.id, b.id));
   const idle = withoutCapstanWords(build.netlist);
@@ -235,10 +248,11 @@ function partsSection(input: DocumentsInput): Section {
 function driveSection(input: DocumentsInput): Section {
   const { build, profile } = input;
   const d = findCheck(input.checks, 'drive');
-  const budgets = [...(d?.drivers ?? driveBudget(build.netlist, profile))].sort((a, b) => a.margin - b.margin);
+  const losses = input.placement ? lossByBranch(input.placement.routing) : undefined;
+  const budgets = [...(d?.drivers ?? driveBudget(build.netlist, profile, losses))].sort((a, b) => a.margin - b.margin);
   const blocks: Block[] = [
     p(
-      `Capstan equation: a cord wrapped ${num(profile.wraps)} turns on the drum (μ = ${num(profile.mu)}) holds up to e^(μθ) = ${num(Math.exp(profile.mu * 2 * Math.PI * profile.wraps))} times its hold tension. Margin = available ÷ load; the design rule asks at least ${num(profile.minMargin)}. Weakest first.`,
+      `Capstan equation: a cord wrapped ${num(profile.wraps)} turns on the drum (μ = ${num(profile.mu)}) holds up to e^(μθ) = ${num(Math.exp(profile.mu * 2 * Math.PI * profile.wraps))} times its hold tension. Each branch's load is multiplied by its routing loss as routed in the frame: 1/η for every pulley it passes, e^(μ_pin·α) for every pin. Margin = available ÷ load; the design rule asks at least ${num(profile.minMargin)}. Weakest first.`,
     ),
     table(
       [
@@ -386,16 +400,16 @@ function timingSection(input: DocumentsInput): Section {
 }
 
 function wiringSection(input: DocumentsInput): Section {
-  const rows = wiringRows(input.build.netlist, input.profile);
+  const rows = wiringRows(input.build.netlist, input.profile, input.placement);
   return {
     id: 'wiring',
     title: 'Wiring list',
     blocks: [
       p(
-        'One row per cord branch, in tying order: every cord of one capstan before the next, from the levers to the flags. The same list is in wiring.csv.',
+        'One row per cord branch, in tying order: every cord of one capstan before the next, from the levers to the flags. Bays are written drum·bay. The same list is in wiring.csv; the length of every piece is in cut-list.csv.',
       ),
       table(
-        ['step', 'cord', 'from', 'side', 'turns', 'to', 'port', 'routing', 'load (g)', 'margin'],
+        ['step', 'cord', 'from', 'side', 'turns', 'to', 'port', 'bays', 'length (m)', 'routing', 'load (g)', 'margin'],
         rows.map((r) => [
           String(r.step),
           r.cord,
@@ -404,12 +418,77 @@ function wiringSection(input: DocumentsInput): Section {
           num(r.turns),
           r.target,
           r.port,
+          r.fromBay === '' ? '' : `${r.fromBay} → ${r.toBay}`,
+          r.lengthM === '' ? '' : num(r.lengthM, 3),
           r.routing,
           num(r.loadG, 1),
           num(r.margin),
         ]),
         { tick: true, mono: [1, 2, 5, 6] },
       ),
+    ],
+  };
+}
+
+/** The frame: the drawing, what each bay does, the cord to cut. */
+function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Section {
+  const pl = input.placement;
+  if (!pl) return { id: 'frame', title: 'Frame', blocks: [p('This sheet was made without a placement.')] };
+  const words = partWords(input.build);
+  const f = input.profile.frame;
+  const layout = findCheck(input.checks, 'layout');
+  const drums = pl.drums.map((d) => `drum ${d.drum}: ${num(d.lengthM)} m, ${d.bays.length} bays`).join('; ');
+  const blocks: Block[] = [
+    p(
+      `${pl.drums.length === 1 ? 'One drum' : `${pl.drums.length} drums, stacked ${num(f.drumSpacingM)} m apart`} (${drums}; the longest allowed is ${num(f.longestDrumM)} m). Bays are counted from 1 at the visitor end of each drum; operator levers sit at the visitor end, clock and reset levers at the crank end. The order of the bays is ${pl.method === 'exact' ? 'the proven shortest' : pl.method === 'heuristic' ? 'the shortest the search found' : "the netlist's own, which was already the shortest"} in cord along the channel: ${num(pl.totalCordM, 1)} m of cord in all (${num(pl.baselineCordM, 1)} m with the bays in netlist order), ${pl.pulleys} ${f.turn === 'pulley' ? 'pulley passes' : 'pin turns'}.`,
+    ),
+  ];
+  if (layout) blocks.push(p(`Layout check: ${layout.ok ? 'passed' : 'FAILED'} — ${layout.summary}`));
+  if (drawings)
+    blocks.push({
+      kind: 'figure',
+      svg: drawings.frame,
+      file: 'frame.svg',
+      caption: 'The frame, front elevation to scale (the scale is on the drawing)',
+    });
+  blocks.push(
+    table(
+      ['drum', 'bay', 'from visitor end (m)', 'part', 'what it does', 'levers'],
+      pl.bays.map((b) => [
+        String(b.drum),
+        String(b.bay),
+        num(b.xM, 3),
+        b.part,
+        words.get(b.part) ?? '',
+        b.levers.map((l) => l.name).join(', '),
+      ]),
+      { caption: 'Every bay, from the visitor end', mono: [3] },
+    ),
+    p(
+      'Cut every cord piece to cut-list.csv (trunk from the hold lever to the drum, then each branch). Cut the clock cams from cams.svg printed at 100 %: check its 100 mm bar first.',
+    ),
+  );
+  return { id: 'frame', title: 'Frame: bays, drums and cords', blocks };
+}
+
+/** The state diagram and the schematic, each on its own page. */
+function drawingsSection(drawings: Drawings): Section {
+  return {
+    id: 'drawings',
+    title: 'State diagram and schematic',
+    blocks: [
+      {
+        kind: 'figure',
+        svg: drawings.stateDiagram,
+        file: 'state-diagram.svg',
+        caption: 'The machine as written: states, codes and transitions',
+      },
+      {
+        kind: 'figure',
+        svg: drawings.schematic,
+        file: 'schematic.svg',
+        caption: 'The parts and cords, left to right through one clock',
+      },
     ],
   };
 }
@@ -457,8 +536,8 @@ function rulesSection(input: DocumentsInput): Section {
   return { id: 'rules', title: 'Operating rules', blocks };
 }
 
-/** The whole build sheet. */
-export function buildSheet(input: DocumentsInput): Doc {
+/** The whole build sheet; `drawings` embeds the frame drawing, the state diagram and the schematic. */
+export function buildSheet(input: DocumentsInput, drawings?: Drawings): Doc {
   const f = input.build.machine;
   return {
     title: `Build sheet — ${f.name}`,
@@ -471,10 +550,12 @@ export function buildSheet(input: DocumentsInput): Doc {
       { id: 'equations', title: 'Set and reset equations', blocks: equationBlocks(input.build) },
       guardSection(input),
       partsSection(input),
+      frameSection(input, drawings),
       driveSection(input),
       timingSection(input),
       wiringSection(input),
       rulesSection(input),
+      ...(drawings ? [drawingsSection(drawings)] : []),
     ],
   };
 }

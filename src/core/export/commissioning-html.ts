@@ -1,14 +1,17 @@
 /**
  * The commissioning sheet as a printable page (landscape): how to use it, the safety
- * cautions, and the sequence table with a tick box per hand action and the expected position
- * of every latch lever and output after it. Content from commissioning.ts; rendered by the
- * shared Doc renderer (every name escaped there).
+ * cautions, where every lever is (by bay: "bay 7, drum 1"), the sequence table with a tick
+ * box per hand action and the expected position of every latch lever and output after it,
+ * and the frame drawing, state diagram and schematic, each on a page of its own. Content from
+ * commissioning.ts; rendered by the shared Doc renderer (every name escaped there).
  */
 import type { Build } from '../model/build.js';
+import type { Placement } from '../phases/place/index.js';
 import { renderDocHtml } from './build-sheet-html.js';
-import { CAUTIONS } from './build-sheet.js';
-import { showsWords, type CommissioningRow } from './commissioning.js';
-import { p, table, type Doc } from './doc.js';
+import { CAUTIONS, type Drawings } from './build-sheet.js';
+import { bayWords, showsWords, type CommissioningRow } from './commissioning.js';
+import { p, table, type Block, type Doc, type Section } from './doc.js';
+import { partWords } from './part-words.js';
 import { reachableTransitions, type TourClock } from './tour.js';
 
 /** What the sequence covers, in words. */
@@ -18,17 +21,89 @@ function coverage(taken: number, reachable: number): string {
     : `The sequence takes ${taken} of the ${reachable} reachable transitions of the state table (it was cut short).`;
 }
 
-/** The commissioning sheet as a Doc. */
-export function commissioningDoc(build: Build, rows: readonly CommissioningRow[], tour: readonly TourClock[]): Doc {
+/** Every bay and the levers in it, and where each flag rides. */
+function whereSection(build: Build, placement: Placement): Section {
+  const words = partWords(build);
+  const where = bayWords(placement);
+  const blocks: Block[] = [
+    p(
+      'Bays are counted from 1 at the visitor end of each drum (the frame drawing numbers them). Each bay holds its levers side by side on the pivot rail, left to right as listed.',
+    ),
+    table(
+      ['where', 'part', 'what it does', 'levers, left to right'],
+      placement.bays.map((b) => [
+        `bay ${b.bay}, drum ${b.drum}`,
+        b.part,
+        words.get(b.part) ?? '',
+        b.levers
+          .map((l) =>
+            l.name === 'lever'
+              ? 'hand lever'
+              : l.name === 'exit'
+                ? 'exit pulley'
+                : b.levers.length === 1
+                  ? `${l.name} (its Z)`
+                  : l.name,
+          )
+          .join(', '),
+      ]),
+      { tick: true, mono: [1] },
+    ),
+  ];
+  const flags = build.netlist.parts.flatMap((q) => (q.kind === 'flag' && q.fixed === undefined ? [q] : []));
+  if (flags.length > 0)
+    blocks.push(
+      table(
+        ['flag', 'shows', 'rides on'],
+        flags.map((q) => [q.id, q.output, `the Z lever of ${q.gate} (${where(q.gate)})`]),
+        { mono: [0] },
+      ),
+    );
+  return { id: 'levers', title: 'Where the levers are', blocks };
+}
+
+function drawingsSection(drawings: Drawings): Section {
+  return {
+    id: 'drawings',
+    title: 'Drawings',
+    blocks: [
+      { kind: 'figure', svg: drawings.frame, file: 'frame.svg', caption: 'The frame, front elevation to scale' },
+      {
+        kind: 'figure',
+        svg: drawings.stateDiagram,
+        file: 'state-diagram.svg',
+        caption: 'The machine as written: states, codes and transitions',
+      },
+      {
+        kind: 'figure',
+        svg: drawings.schematic,
+        file: 'schematic.svg',
+        caption: 'The parts and cords through one clock',
+      },
+    ],
+  };
+}
+
+/** The commissioning sheet as a Doc; `placement` names every lever by its bay, `drawings` adds the drawings. */
+export function commissioningDoc(
+  build: Build,
+  rows: readonly CommissioningRow[],
+  tour: readonly TourClock[],
+  placement?: Placement,
+  drawings?: Drawings,
+): Doc {
   const f = build.machine;
   const first = rows[0];
   const latches = first?.latches ?? [];
   const outputs = first?.outputs ?? [];
+  const latchBays = new Map(
+    placement?.latches.map((l) => [l.latch, ` (bays ${l.bays[0]} and ${l.bays[1]}, drum ${l.drum})`]),
+  );
   const headers = [
     'step',
     'clock',
     'do this',
-    ...latches.map((l) => `${l.id}: set Z · reset Z`),
+    ...latches.map((l) => `${l.id}${latchBays.get(l.id) ?? ''}: set Z · reset Z`),
     ...outputs.map((o) => `${o.output} (${o.kind})`),
     'state after',
     'note',
@@ -75,16 +150,24 @@ export function commissioningDoc(build: Build, rows: readonly CommissioningRow[]
         title: 'Safety',
         blocks: [{ kind: 'note', tone: 'caution', title: 'Cautions', items: CAUTIONS }],
       },
+      ...(placement ? [whereSection(build, placement)] : []),
       {
         id: 'sequence',
         title: 'Sequence',
         blocks: [table(headers, body, { tick: true, mono: latches.map((_, i) => 3 + i) })],
       },
+      ...(drawings ? [drawingsSection(drawings)] : []),
     ],
   };
 }
 
 /** The commissioning sheet as a printable, self-contained HTML page. */
-export function commissioningHtml(build: Build, rows: readonly CommissioningRow[], tour: readonly TourClock[]): string {
-  return renderDocHtml(commissioningDoc(build, rows, tour));
+export function commissioningHtml(
+  build: Build,
+  rows: readonly CommissioningRow[],
+  tour: readonly TourClock[],
+  placement?: Placement,
+  drawings?: Drawings,
+): string {
+  return renderDocHtml(commissioningDoc(build, rows, tour, placement, drawings));
 }

@@ -13,12 +13,15 @@
  * for a build whose checks passed).
  * The outputs shown once the inputs are set are compared with the state table too.
  * A one-state machine has no latches, clock or reset levers: one row per input setting.
+ * With a placement, every lever an action names is named by its bay as well ("φ1 (bay 20,
+ * drum 1)"), so a person at the frame can find it.
  * The CSV opens with the safety cautions (DESIGN §9): after the header line, one record per
  * caution (step `caution`, the text under `action`), so the file stays one table a spreadsheet
  * reads, and whoever opens it meets the cautions before the first hand action.
  */
 import type { Build } from '../model/build.js';
 import type { OutBit } from '../model/machine.js';
+import type { Placement } from '../phases/place/index.js';
 import type { Profile } from '../physics/profile.js';
 import { clockActions, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
 import {
@@ -70,12 +73,35 @@ export interface CommissioningRow {
 
 const zOf = (v: number): Position => (v === X ? '?' : v === 1 ? 'down' : 'up');
 
-/** The hand actions of the sheet, from power-up, and what the machine shows after each. */
+/** Where a part sits, as a person at the frame reads it: `bay 7, drum 1` (empty without a placement). */
+export function bayWords(placement: Pick<Placement, 'bays'> | undefined): (part: string) => string {
+  const at = new Map(placement?.bays.map((b) => [b.part, `bay ${b.bay}, drum ${b.drum}`]));
+  return (part) => at.get(part) ?? '';
+}
+
+/** The words of each hand action, naming each lever's bay when there is a placement. */
+function actionWords(build: Build, placement: Pick<Placement, 'bays'> | undefined) {
+  const where = bayWords(placement);
+  const at = (part: string): string => (where(part) === '' ? '' : ` (${where(part)})`);
+  const sg = build.signals;
+  return {
+    reset: (first: boolean): string =>
+      `Reset: pull the reset lever${at(sg.reset)}, then release it${first ? ' (both clock levers released)' : ''}.`,
+    inputs: (inputs: readonly string[], assignment: string, unchanged: boolean): string =>
+      `Set the input levers: ${inputWords(inputs, assignment, (i) => at(sg.inputs[i] ?? ''))}${unchanged ? ' (no change)' : ''}.`,
+    clock: (verb: 'Pull' | 'Release', lever: 'phi1' | 'phi2'): string =>
+      `${verb} ${lever === 'phi1' ? 'φ1' : 'φ2'}${at(lever === 'phi1' ? sg.phi1 : sg.phi2)}.`,
+  };
+}
+
+/** The hand actions of the sheet, from power-up, and what the machine shows after each; `placement` names the levers' bays. */
 export function commissioningRows(
   build: Build,
   profile: Pick<Profile, 'stageDelayS'>,
   tour: readonly TourClock[],
+  placement?: Pick<Placement, 'bays'>,
 ): CommissioningRow[] {
+  const words = actionWords(build, placement);
   const sim = simFor(build, timingOf(profile));
   const f = build.machine;
   const seq = build.encoding.bits > 0;
@@ -122,38 +148,38 @@ export function commissioningRows(
     );
   };
   const inputs = f.inputs;
-  if (seq)
-    run(0, 'Reset: pull the reset lever, then release it (both clock levers released).', resetActions(), {
-      next: f.start,
-    });
+  if (seq) run(0, words.reset(true), resetActions(), { next: f.start });
   let current = valuesOf(inputs, '0'.repeat(inputs.length));
   tour.forEach((c, i) => {
     const clock = i + 1;
-    if (c.reset && seq) run(clock, 'Reset: pull the reset lever, then release it.', resetActions(), { next: f.start });
+    if (c.reset && seq) run(clock, words.reset(false), resetActions(), { next: f.start });
     const values = valuesOf(inputs, c.inputs);
     const moves = clockActions(inputs, values, current).slice(0, -4);
     const out = f.rows[c.state][c.row].out;
-    if (inputs.length > 0)
-      run(
-        clock,
-        `Set the input levers: ${inputWords(inputs, c.inputs)}${moves.length === 0 ? ' (no change)' : ''}.`,
-        moves,
-        { out },
-      );
+    if (inputs.length > 0) run(clock, words.inputs(inputs, c.inputs, moves.length === 0), moves, { out });
     else if (!seq) run(clock, 'Look at the flags.', [], { out });
     current = values;
     if (!seq) return;
-    run(clock, 'Pull φ1.', [{ kind: 'pull', lever: 'phi1' }], inputs.length === 0 ? { out, outBefore: true } : {});
-    run(clock, 'Release φ1.', [{ kind: 'release', lever: 'phi1' }]);
-    run(clock, 'Pull φ2.', [{ kind: 'pull', lever: 'phi2' }]);
-    run(clock, 'Release φ2.', [{ kind: 'release', lever: 'phi2' }], { next: c.next });
+    run(
+      clock,
+      words.clock('Pull', 'phi1'),
+      [{ kind: 'pull', lever: 'phi1' }],
+      inputs.length === 0 ? { out, outBefore: true } : {},
+    );
+    run(clock, words.clock('Release', 'phi1'), [{ kind: 'release', lever: 'phi1' }]);
+    run(clock, words.clock('Pull', 'phi2'), [{ kind: 'pull', lever: 'phi2' }]);
+    run(clock, words.clock('Release', 'phi2'), [{ kind: 'release', lever: 'phi2' }], { next: c.next });
   });
   return rows;
 }
 
-/** `marble pulled, coin released`. */
-export function inputWords(inputs: readonly string[], assignment: string): string {
-  return inputs.map((n, i) => `${n} ${assignment[i] === '1' ? 'pulled' : 'released'}`).join(', ');
+/** `marble pulled, coin released` (`where` adds a lever's place after its name). */
+export function inputWords(
+  inputs: readonly string[],
+  assignment: string,
+  where: (input: string) => string = () => '',
+): string {
+  return inputs.map((n, i) => `${n}${where(n)} ${assignment[i] === '1' ? 'pulled' : 'released'}`).join(', ');
 }
 
 function rowOf(

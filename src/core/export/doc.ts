@@ -28,7 +28,18 @@ export type Block =
       readonly title: string;
       readonly items: readonly string[];
     }
-  | TableBlock;
+  | TableBlock
+  /** A drawing of the build, from its own file in the build folder. */
+  | FigureBlock;
+
+/** A drawing: the SVG text, the file it is also written to, and what it shows. */
+export interface FigureBlock {
+  readonly kind: 'figure';
+  readonly svg: string;
+  /** File name in the build folder (the Markdown sheet links to it). */
+  readonly file: string;
+  readonly caption: string;
+}
 
 export interface Section {
   /** Anchor id (letters, digits and '-'). */

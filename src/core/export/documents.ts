@@ -12,17 +12,23 @@
  *
  * Order: the order the documents are listed and written in.
  * Postcondition: the same input gives byte-identical documents; the pieces several documents
- * share (the commissioning sequence, its simulated rows, the Verilog pair) are made once per
- * input, when first asked for.
+ * share (the placement, the drawings, the commissioning sequence, its simulated rows, the
+ * Verilog pair) are made once per input, when first asked for.
  */
+import { findCheck } from '../checks/results.js';
+import { checkTiming } from '../checks/timing.js';
+import { place, type Placement } from '../phases/place/index.js';
 import { billOfMaterials } from '../physics/bom.js';
 import { bomCsv } from './bom-csv.js';
 import { buildSheetHtml } from './build-sheet-html.js';
 import { buildSheetMd } from './build-sheet-md.js';
-import type { DocumentsInput } from './build-sheet.js';
+import type { DocumentsInput, Drawings } from './build-sheet.js';
+import { camsSvg } from './cams-svg.js';
 import { commissioningCsv, commissioningRows, type CommissioningRow } from './commissioning.js';
 import { commissioningHtml } from './commissioning-html.js';
+import { cutListCsv, cutListRows } from './cut-list.js';
 import { diagramSvg } from './diagram-svg.js';
+import { frameSvg } from './frame-svg.js';
 import { netlistJson } from './netlist-json.js';
 import { schematicSvg } from './schematic-svg.js';
 import { commissioningTour, type TourClock } from './tour.js';
@@ -32,6 +38,10 @@ import { wiringCsv, wiringRows } from './wiring.js';
 /** What a document is made from: the input, and the pieces several documents share (each made once). */
 export interface DocumentSources {
   readonly input: DocumentsInput;
+  /** Where every part sits and how every cord runs: the input's, or the build placed with the profile. */
+  placement(): Placement;
+  /** The frame drawing, the state diagram and the schematic (SVG texts), which the sheets embed. */
+  drawings(): Drawings;
   /** The commissioning input sequence: the one given, or the transition tour of the built machine. */
   tour(): readonly TourClock[];
   /** The commissioning rows: the part-level simulator run through `tour()`. */
@@ -91,12 +101,36 @@ export const DOCUMENT_REGISTRY = [
     format: 'CSV (RFC 4180)',
   },
   {
+    name: 'cut-list',
+    file: 'cut-list.csv',
+    label: 'Cut list (CSV)',
+    mime: 'text/csv',
+    summary: 'every cord piece cut to length, lever blanks, drums, pulleys, weights and cam discs',
+    format: 'CSV (RFC 4180)',
+  },
+  {
     name: 'netlist',
     file: 'netlist.json',
     label: 'Netlist (JSON)',
     mime: 'application/json',
-    summary: 'every part and cord',
+    summary: 'every part and cord, with its bay and position and each branch’s length',
     format: 'JSON, described by `schemas/netlist.schema.json`',
+  },
+  {
+    name: 'frame',
+    file: 'frame.svg',
+    label: 'Frame drawing (SVG)',
+    mime: 'image/svg+xml',
+    summary: 'front elevation to scale: drums, bays and what each does, cord runs, pulleys, dimensions',
+    format: 'SVG, sized in millimetres at a stated scale',
+  },
+  {
+    name: 'cams',
+    file: 'cams.svg',
+    label: 'Cam templates (SVG, 1:1)',
+    mime: 'image/svg+xml',
+    summary: 'the φ1 and φ2 cam discs to cut, full size, with a 100 mm check bar',
+    format: 'SVG, sized in millimetres at 1:1',
   },
   {
     name: 'schematic',
@@ -153,14 +187,24 @@ export type DocumentFile = (typeof DOCUMENT_REGISTRY)[number]['file'];
 
 /** How each registered document is made, by name. */
 export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: DocumentSources) => string } = {
-  'build-sheet-html': (d) => buildSheetHtml(d.input),
-  'build-sheet-md': (d) => buildSheetMd(d.input),
-  wiring: (d) => wiringCsv(wiringRows(d.input.build.netlist, d.input.profile)),
-  bom: (d) => bomCsv(billOfMaterials(d.input.build.netlist, d.input.profile)),
-  netlist: (d) => netlistJson(d.input.build),
-  schematic: (d) => schematicSvg(d.input.build),
-  'state-diagram': (d) => diagramSvg(d.input.build),
-  'commissioning-html': (d) => commissioningHtml(d.input.build, d.steps(), d.tour()),
+  'build-sheet-html': (d) => buildSheetHtml({ ...d.input, placement: d.placement() }, d.drawings()),
+  'build-sheet-md': (d) => buildSheetMd({ ...d.input, placement: d.placement() }, d.drawings()),
+  wiring: (d) => wiringCsv(wiringRows(d.input.build.netlist, d.input.profile, d.placement())),
+  bom: (d) => bomCsv(billOfMaterials(d.input.build.netlist, d.input.profile, d.placement())),
+  'cut-list': (d) => cutListCsv(cutListRows(d.input.build, d.placement(), d.input.profile)),
+  netlist: (d) => netlistJson(d.input.build, { placement: d.placement(), profile: d.input.profile }),
+  frame: (d) => d.drawings().frame,
+  cams: (d) =>
+    camsSvg(
+      d.input.build.machine.name,
+      d.input.build.encoding.bits === 0
+        ? undefined
+        : (findCheck(d.input.checks, 'timing') ?? checkTiming(d.input.build, d.input.profile, { runs: 0 })),
+      d.input.profile,
+    ),
+  schematic: (d) => d.drawings().schematic,
+  'state-diagram': (d) => d.drawings().stateDiagram,
+  'commissioning-html': (d) => commissioningHtml(d.input.build, d.steps(), d.tour(), d.placement(), d.drawings()),
   'commissioning-csv': (d) => commissioningCsv(d.steps()),
   verilog: (d) => d.verilog().module,
   'verilog-testbench': (d) => d.verilog().testbench,
@@ -180,10 +224,16 @@ export function documentSources(input: DocumentsInput): DocumentSources {
     let kept: { value: T } | undefined;
     return () => (kept ??= { value: make() }).value;
   };
+  const placement = once(() => input.placement ?? place(input.build.netlist, input.profile));
+  const drawings = once(() => ({
+    frame: frameSvg(input.build, placement(), input.profile),
+    stateDiagram: diagramSvg(input.build),
+    schematic: schematicSvg(input.build),
+  }));
   const tour = once(() => input.tour ?? commissioningTour(input.build.machine));
-  const steps = once(() => commissioningRows(input.build, input.profile, tour()));
+  const steps = once(() => commissioningRows(input.build, input.profile, tour(), placement()));
   const verilog = once(() => verilogFiles(input.build, input.profile, tour()));
-  return { input, tour, steps, verilog };
+  return { input, placement, drawings, tour, steps, verilog };
 }
 
 /** Every build document: file name → content, in registry order. */

@@ -9,7 +9,11 @@
  * Postconditions: the same input gives byte-identical files; every user-given name is
  * escaped for each format (escape.ts, csv.ts, JSON.stringify).
  */
-export type { DocumentsInput } from './build-sheet.js';
+export type { DocumentsInput, Drawings } from './build-sheet.js';
+export { camsSvg, camSpecs, RAMP_MAX_DEG } from './cams-svg.js';
+export { cutListCsv, cutListRows, cutMetres, type CutRow } from './cut-list.js';
+export { frameScale, frameSvg } from './frame-svg.js';
+export { partWords } from './part-words.js';
 export {
   buildDocuments,
   documentByFile,

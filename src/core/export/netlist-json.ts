@@ -6,13 +6,28 @@
  * by id and their branches by part then port; object keys come in a fixed order; each part
  * and each cord sits on one line. Ids are the mapper's stable, readable ids, so a small change
  * to the machine changes few lines. Strings are written by JSON.stringify.
+ *
+ * With a placement (phases/place), the document says where everything is: `frame` gives the
+ * geometry the routing used and each drum; each gate, lever and actuator its drum, bay
+ * (counted from 1 at the visitor end), centre `xM` and its levers' positions (metres from the
+ * visitor end); a latch its drum and two bays; a flag the place of the Z lever it rides on;
+ * each cord its trunk, cut length and every branch's length, pulleys, pins and loss, in the
+ * order of its ports and then its actuators. Lengths to 0.1 mm. From positions and `frame`
+ * alone, anyone can work every branch length out again (docs/methods/place.md, "Routing").
  */
 import type { Build } from '../model/build.js';
 import type { Cord, Netlist, Part } from '../model/netlist.js';
+import type { PlacedBayInfo, Placement } from '../phases/place/index.js';
+import type { Profile } from '../physics/profile.js';
+import type { BranchRoute, CordRoute } from '../physics/routing.js';
 
 /** Format tag and version written into every file (bump the version on an incompatible change). */
 export const NETLIST_FORMAT = 'latchwright-netlist';
-export const NETLIST_VERSION = 1;
+/** 2: where every part sits and how every cord runs (`frame`, part and cord placement fields). */
+export const NETLIST_VERSION = 2;
+
+/** A length in metres to 0.1 mm. */
+const m4 = (x: number): number => Math.round(x * 10000) / 10000;
 
 const KIND_ORDER: Readonly<Record<Part['kind'], number>> = { lever: 0, gate: 1, latch: 2, flag: 3, actuator: 4 };
 
@@ -91,10 +106,89 @@ function partObject(p: Part): object {
   }
 }
 
-/** The document as a value (what the file holds). */
-export function netlistDocument(build: Build): object {
+/** Where a part sits, as the document gives it (nothing for a part without a place). */
+function placeOf(p: Part, bays: ReadonlyMap<string, PlacedBayInfo>): object {
+  const own = bays.get(p.id);
+  if (own)
+    return {
+      drum: own.drum,
+      bay: own.bay,
+      xM: m4(own.xM),
+      levers: own.levers.map((l) => ({ name: l.name, xM: m4(l.xM) })),
+    };
+  if (p.kind === 'latch') {
+    const s = bays.get(p.setGate);
+    const r = bays.get(p.resetGate);
+    return s && r ? { drum: s.drum, bays: [s.bay, r.bay], xM: m4((s.xM + r.xM) / 2) } : {};
+  }
+  if (p.kind === 'flag' && p.fixed === undefined) {
+    const g = bays.get(p.gate);
+    const z = g?.levers.find((l) => l.name === 'Z') ?? g?.levers[0];
+    return g && z ? { drum: g.drum, bay: g.bay, xM: m4(z.xM) } : {};
+  }
+  return {};
+}
+
+function branchObject(b: BranchRoute, port?: string): object {
+  return {
+    part: b.part,
+    ...(port !== undefined ? { port } : {}),
+    lengthM: m4(b.lengthM),
+    channelM: m4(b.channelM),
+    pulleys: b.pulleys,
+    pins: b.pins.map(m4),
+    loss: m4(b.loss),
+  };
+}
+
+/** A cord with its routing: trunk, cut length, and its branches in the order of its ports and actuators. */
+function routedCord(c: Cord, routes: ReadonlyMap<string, CordRoute>): object {
+  const route = routes.get(c.id);
+  if (!route) return c;
+  const branch = (target: string): BranchRoute | undefined => route.branches.find((b) => b.target === target);
+  const branches = [
+    ...c.ports.map((p) => ({ b: branch(`${p.part}.${p.port}`), port: p.port })),
+    ...c.actuators.map((a) => ({ b: branch(a), port: undefined })),
+  ].flatMap(({ b, port }) => (b ? [branchObject(b, port)] : []));
+  return { ...c, trunkM: m4(route.trunkM), cutM: m4(route.cutM), branches };
+}
+
+/** The frame block: the geometry the routing used, each drum, the totals. */
+function frameObject(placement: Placement, profile: Profile): object {
+  const f = profile.frame;
+  return {
+    method: placement.method,
+    exact: placement.exact,
+    seed: placement.seed,
+    drumRadiusM: profile.drumRadiusM,
+    wraps: profile.wraps,
+    railAboveDrumM: f.railAboveDrumM,
+    channelBelowDrumM: f.channelBelowDrumM,
+    drumSpacingM: f.drumSpacingM,
+    knotAllowanceM: f.knotAllowanceM,
+    takeUpAllowanceM: f.takeUpAllowanceM,
+    actuatorRunM: f.actuatorRunM,
+    drums: placement.drums.map((d) => ({
+      drum: d.drum,
+      lengthM: m4(d.lengthM),
+      levelM: m4(d.levelM),
+      bays: d.bays.length,
+    })),
+    totalCordM: m4(placement.totalCordM),
+    baselineCordM: m4(placement.baselineCordM),
+    pulleys: placement.pulleys,
+  };
+}
+
+/** The document as a value (what the file holds); `frame`, when given, places every part and routes every cord. */
+export function netlistDocument(
+  build: Build,
+  frame?: { readonly placement: Placement; readonly profile: Profile },
+): object {
   const f = build.machine;
   const s = build.signals;
+  const bays = new Map(frame?.placement.bays.map((b) => [b.part, b]));
+  const routes = new Map(frame?.placement.routing.cords.map((c) => [c.cord, c]));
   return {
     format: NETLIST_FORMAT,
     version: NETLIST_VERSION,
@@ -117,14 +211,18 @@ export function netlistDocument(build: Build): object {
       outputs: Object.fromEntries(f.outputs.map((o) => [o, s.outputs[o] ?? ''])),
     },
     counts: { ...build.parts },
-    parts: sortedParts(build.netlist).map(partObject),
-    cords: sortedCords(build.netlist),
+    ...(frame ? { frame: frameObject(frame.placement, frame.profile) } : {}),
+    parts: sortedParts(build.netlist).map((p) => (frame ? { ...partObject(p), ...placeOf(p, bays) } : partObject(p))),
+    cords: sortedCords(build.netlist).map((c) => (frame ? routedCord(c, routes) : c)),
   };
 }
 
 /** The netlist JSON text: two-space indentation, one part or cord per line, ending in a newline. */
-export function netlistJson(build: Build): string {
-  const doc = netlistDocument(build) as Record<string, unknown>;
+export function netlistJson(
+  build: Build,
+  frame?: { readonly placement: Placement; readonly profile: Profile },
+): string {
+  const doc = netlistDocument(build, frame) as Record<string, unknown>;
   const lines = Object.entries(doc).map(([k, v]) => {
     if (Array.isArray(v)) {
       const items = v.map((x) => `    ${JSON.stringify(x)}`);

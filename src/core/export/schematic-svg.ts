@@ -563,6 +563,7 @@ export function schematicSvg(build: Build, layout?: SchematicLayout, options: Sc
     `${l.nodes.length} parts and ${l.edges.length} cord branches of the lever machine ${f.name}, flowing left to right through one clock.`,
     screen ? styleOf(SCREEN, `.${SCREEN_SCOPE}`) : styleOf(PAPER, ''),
     body,
+    '',
     screen ? SCREEN_SCOPE : undefined,
   );
 }

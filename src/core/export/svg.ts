@@ -55,7 +55,11 @@ export function svgBox(cx: number, cy: number, w: number, h: number, cls: string
   return `<rect x="${r1(cx - w / 2)}" y="${r1(cy - h / 2)}" width="${r1(w)}" height="${r1(h)}" rx="${radius}" class="${cls}" />`;
 }
 
-/** The whole SVG document; `rootClass` (one of our class names) goes on the root element. */
+/**
+ * The whole SVG document. `unit` is the unit of its width and height ('' for pixels, 'mm' for a
+ * drawing to print at a stated scale: one user unit is then one millimetre on paper).
+ * `rootClass` (one of our class names) goes on the root element.
+ */
 export function svgDocument(
   width: number,
   height: number,
@@ -63,6 +67,7 @@ export function svgDocument(
   description: string,
   style: string,
   body: readonly string[],
+  unit: '' | 'mm' = '',
   rootClass?: string,
 ): string {
   const w = Math.ceil(width);
@@ -70,7 +75,7 @@ export function svgDocument(
   const cls = rootClass ? ` class="${rootClass}"` : '';
   return [
     '<?xml version="1.0" encoding="UTF-8"?>',
-    `<svg xmlns="http://www.w3.org/2000/svg"${cls} version="1.1" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}">`,
+    `<svg xmlns="http://www.w3.org/2000/svg"${cls} version="1.1" width="${w}${unit}" height="${h}${unit}" viewBox="0 0 ${w} ${h}">`,
     `<title>${x(title)}</title>`,
     `<desc>${x(description)}</desc>`,
     `<style>${style}</style>`,

@@ -3,7 +3,9 @@
  * a builder needs to tie it and to know it will hold — the driver and the side of it the cord
  * leaves from, the turns of its capstan on the drum, the target part and port (for an
  * actuator, its load), the routing allowance, the branch's load and the driver's force margin
- * (physics/drive.ts, the capstan equation).
+ * (physics/drive.ts, the capstan equation). With a placement, also the bays the branch runs
+ * between (drum·bay) and its cut length, and the routing, load and margin are those of the
+ * branch as routed in the frame (physics/routing.ts).
  *
  * Order: by driver in stage order (stages.ts: levers first, flags last; netlist order within
  * a stage), then by target in the same order, then port name — so a builder works along the
@@ -12,9 +14,11 @@
  * csv.ts (RFC 4180 with formula-injection escaping).
  */
 import { partIndex, type Netlist, type Part } from '../model/netlist.js';
-import { branchLoads, driveBudget } from '../physics/drive.js';
+import type { Placement } from '../phases/place/index.js';
+import { branchKey, branchLoads, driveBudget } from '../physics/drive.js';
 import { routingFor, wrapsOf } from '../physics/capstan.js';
 import type { Profile, RoutingLoss } from '../physics/profile.js';
+import { lossByBranch, type BranchRoute } from '../physics/routing.js';
 import { recordsToCsv } from './csv.js';
 import { num } from './readable.js';
 import { stagesOf, STAGE_WORDS } from './stages.js';
@@ -37,6 +41,11 @@ export interface WiringRow {
   readonly targetName: string;
   /** Port name on the target gate; for an actuator, the load it lifts (`load 300 g`). */
   readonly port: string;
+  /** Where the cord leaves and where it is tied, as drum·bay (empty without a placement). */
+  readonly fromBay: string;
+  readonly toBay: string;
+  /** The branch's cut length, metres (empty without a placement). */
+  readonly lengthM: number | '';
   /** Routing allowance in words. */
   readonly routing: string;
   readonly routingFactor: number;
@@ -70,12 +79,15 @@ export function driverSide(
   return { driver: p?.id ?? '', name: p?.name ?? '', side: 'capstan' };
 }
 
-/** Every cord branch in tying order. */
-export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
+/** Every cord branch in tying order; with `placement`, its bays, length and routed loss. */
+export function wiringRows(netlist: Netlist, profile: Profile, placement?: Placement): WiringRow[] {
   const parts = partIndex(netlist);
   const stages = stagesOf(netlist);
-  const margins = new Map(driveBudget(netlist, profile).map((b) => [b.driver, b.margin]));
-  const loads = branchLoads(netlist, profile);
+  const losses = placement ? lossByBranch(placement.routing) : undefined;
+  const margins = new Map(driveBudget(netlist, profile, losses).map((b) => [b.driver, b.margin]));
+  const loads = branchLoads(netlist, profile, losses);
+  const routes = new Map(placement?.routing.branches.map((b) => [branchKey(b.cord, b.target), b]));
+  const bays = new Map(placement?.bays.map((b) => [b.part, `${b.drum}·${b.bay}`]));
   type Draft = Omit<WiringRow, 'step'> & { readonly driverPart: string; readonly targetPart: string };
   const drafts: Draft[] = [];
   for (const c of netlist.cords) {
@@ -84,14 +96,15 @@ export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
     const r = routingFor(profile, c.id);
     const branches = (loads.get(c.driver) ?? []).filter((b) => b.cord === c.id);
     const targets = [
-      ...c.ports.map((p) => ({ part: p.part, port: p.port })),
+      ...c.ports.map((p) => ({ part: p.part, port: p.port, key: `${p.part}.${p.port}` })),
       ...c.actuators.map((a) => {
         const x = parts.get(a);
-        return { part: a, port: x?.kind === 'actuator' ? `load ${num(x.loadG, 1)} g` : '' };
+        return { part: a, port: x?.kind === 'actuator' ? `load ${num(x.loadG, 1)} g` : '', key: a };
       }),
     ];
     targets.forEach((t, i) => {
       const b = branches[i];
+      const route = routes.get(branchKey(c.id, t.key));
       drafts.push({
         stage: STAGE_WORDS[stages.stage.get(c.driver) ?? 'lever'],
         cord: c.id,
@@ -102,7 +115,10 @@ export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
         target: t.part,
         targetName: parts.get(t.part)?.name ?? '',
         port: t.port,
-        routing: routingWords(r),
+        fromBay: bays.get(c.driver) ?? '',
+        toBay: bays.get(t.part) ?? '',
+        lengthM: route ? Math.round(route.lengthM * 1000) / 1000 : '',
+        routing: route ? routeWords(route) : routingWords(r),
         routingFactor: Math.round((b?.routingFactor ?? 1) * 1000) / 1000,
         loadG: Math.round((b?.loadG ?? 0) * 10) / 10,
         margin: Math.round((margins.get(c.driver) ?? Infinity) * 100) / 100,
@@ -123,6 +139,12 @@ export function wiringRows(netlist: Netlist, profile: Profile): WiringRow[] {
 
 const cmp = (a: string, b: string): number => (a < b ? -1 : a > b ? 1 : 0);
 
+/** A routed branch's turns in words: `2 pulleys (η 0.95)`, or `rises straight` with none. */
+function routeWords(b: BranchRoute): string {
+  const words = routingWords(b.routing);
+  return words === 'straight' && b.runs.length === 1 ? 'rises straight' : words;
+}
+
 const HEADER: Readonly<Record<keyof WiringRow, string>> = {
   step: 'step',
   stage: 'stage',
@@ -134,6 +156,9 @@ const HEADER: Readonly<Record<keyof WiringRow, string>> = {
   target: 'target',
   targetName: 'target name',
   port: 'port',
+  fromBay: 'from bay',
+  toBay: 'to bay',
+  lengthM: 'length (m)',
   routing: 'routing',
   routingFactor: 'routing factor',
   loadG: 'load (g)',

@@ -276,6 +276,18 @@ export const DIAGNOSTIC_CODES = {
       'After writing the build documents, a folder the tool left beside the output folder (an earlier build moved aside, or the temporary folder of an interrupted run) could not be removed.',
     fix: 'The new documents are in place; remove the folder the message names by hand.',
   },
+  LW707: {
+    severity: 'error',
+    cause:
+      'A pin (--pin PART=BAY) names a part the build does not have, a part that takes no bay of its own (a flag), a bay or drum the frame cannot have, or a bay another pin already holds.',
+    fix: 'Pin a gate, latch, lever or actuator by its id (netlist.json lists them) to a bay counted from 1, on a drum the frame carries.',
+  },
+  LW708: {
+    severity: 'warning',
+    cause:
+      'A pin could not be kept in this build: its drum has fewer bays than the pin asks for, or the pins on one drum cannot all be met together. The pin is dropped and the part placed freely.',
+    fix: 'Pin it to a bay the drum has (the frame drawing numbers them), or move one of the pins by a bay.',
+  },
   LW900: {
     severity: 'error',
     cause: 'A fault of the tool itself, not of the input: an internal check failed or the tool ran out of stack.',

@@ -17,6 +17,9 @@
  *   carries them as `wraps`.
  * Where even `maxWraps` turns fall short, the capstan keeps `maxWraps` and the drive check
  * fails naming the output, how far short it is, and what to change.
+ * Routing loss of an actuator's branch: its cord's routing in the profile, or with `losses`
+ * (the frame's, physics/routing.ts) its entry there — and for a branch the sizing moves, the
+ * loss of a branch that leaves its bay (`leavingLoss`).
  * Preconditions: a netlist meeting the netlist invariants.
  * Postconditions: the logic is unchanged (every actuator sees the same signal); new parts come
  * just before the actuator they drive, cords in their drivers' order; a netlist with no
@@ -24,18 +27,23 @@
  */
 import type { Cord, GatePart, Netlist, Part } from '../model/netlist.js';
 import { availableTension, routingFactor, routingFor, wrapsNeeded } from './capstan.js';
-import { driveBudget } from './drive.js';
+import { branchKey, driveBudget, type BranchLosses } from './drive.js';
 import type { Profile } from './profile.js';
+import { leavingLoss } from './routing.js';
 
-/** Give every actuator over budget a capstan of its own, with the turns its load needs. */
-export function sizeActuators(netlist: Netlist, profile: Profile): Netlist {
+/** Give every actuator over budget a capstan of its own, with the turns its load needs; `losses` from the frame. */
+export function sizeActuators(netlist: Netlist, profile: Profile, losses?: BranchLosses): Netlist {
   const failing = new Set(
-    driveBudget(netlist, profile)
+    driveBudget(netlist, profile, losses)
       .filter((b) => !b.ok)
       .map((b) => b.driver),
   );
   if (!netlist.cords.some((c) => c.actuators.length > 0 && failing.has(c.driver))) return netlist;
-  const s = new Sizer(netlist, profile);
+  const loss = (cordId: string, actuator: string): number =>
+    losses
+      ? (losses.get(branchKey(cordId, actuator)) ?? leavingLoss(profile, cordId))
+      : routingFactor(routingFor(profile, cordId));
+  const s = new Sizer(netlist, profile, loss);
   for (const c of netlist.cords) if (failing.has(c.driver)) for (const a of c.actuators) s.size(c.id, a);
   return s.result();
 }
@@ -51,6 +59,8 @@ class Sizer {
   constructor(
     netlist: Netlist,
     private readonly profile: Profile,
+    /** The routing loss of an actuator's branch on a cord. */
+    private readonly loss: (cordId: string, actuator: string) => number,
   ) {
     this.parts = [...netlist.parts];
     this.cords = new Map(netlist.cords.map((c) => [c.id, c]));
@@ -74,10 +84,10 @@ class Sizer {
       cord.ports.length === 0 &&
       cord.actuators.length === 1 &&
       [...this.cords.values()].filter((c) => c.driver === driver.id).length === 1;
-    if (alone) return this.turns(driver, cord.id, act.loadG);
-    if (act.loadG * routingFactor(routingFor(this.profile, cord.id)) <= this.bufferBudgetG) return;
+    if (alone) return this.turns(driver, cord.id, a, act.loadG);
+    if (act.loadG * this.loss(cord.id, a) <= this.bufferBudgetG) return;
     const b = this.pair(cord, a);
-    this.turns(b, `c.${b.id}`, act.loadG);
+    this.turns(b, `c.${b.id}`, a, act.loadG);
   }
 
   /** Move actuator `a` off `cord` onto a new buffer pair; returns the pair's second gate. */
@@ -116,9 +126,9 @@ class Sizer {
   }
 
   /** The fewest quarter turns (from `wraps` up to `maxWraps`) that lift `loadG` on `cordId` with the design margin. */
-  private turns(gate: GatePart, cordId: string, loadG: number): void {
+  private turns(gate: GatePart, cordId: string, actuator: string, loadG: number): void {
     const p = this.profile;
-    const load = loadG * routingFactor(routingFor(p, cordId));
+    const load = loadG * this.loss(cordId, actuator);
     const hold = p.zWeightG * p.leverRatio;
     const wraps = Math.max(p.wraps, Math.min(p.maxWraps, wrapsNeeded(load, hold, p.mu, p.minMargin, p.wraps)));
     if (wraps === p.wraps) return;

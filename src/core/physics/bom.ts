@@ -5,16 +5,28 @@
  * levers of gates with two or more ports — a one-port gate's port is Z itself), flags,
  * actuators (each with its load and the capstan that lifts it), weights (one per port lever,
  * per Z, per operator lever), capstans and their wraps (one row per number of turns: an
- * actuator's capstan may have more than the profile's `wraps`), drum length (the sum of every
- * capstan's turns × wrapPitchM), cord (each branch at profile.cordBranchM, plus the cord
- * wrapped on the drum), and the pins and pulleys of each branch's routing allowance (one pin per quarter
- * turn of redirection, an estimate: a pin rarely turns a cord further).
+ * actuator's capstan may have more than the profile's `wraps`), drums, cord, and the pins and
+ * pulleys the cords pass.
+ * - A placed build (`frame`: its routing and drums, phases/place) is measured: each drum at its
+ *   length, the cord as the sum of every cut length (physics/routing.ts: runs, knots, take-up,
+ *   trunks and wraps), pulleys and pins as routed.
+ * - Otherwise, estimates: one drum as long as every capstan's turns × wrapPitchM, each branch at
+ *   profile.cordBranchM plus the cord wrapped on the drum, and each branch's routing allowance
+ *   in the profile (one pin per quarter turn of redirection, an estimate: a pin rarely turns a
+ *   cord further).
  * Postcondition: rows with a count of zero are left out; numbers are rounded to what a
  * builder can cut or weigh (0.1 g, 1 mm). The CSV form of the rows is export/bom-csv.ts.
  */
 import type { Netlist } from '../model/netlist.js';
 import { routingFor, wrapsOf } from './capstan.js';
 import type { Profile } from './profile.js';
+import type { Routing } from './routing.js';
+
+/** What a placed build adds: its routing and its drums (a Placement of phases/place fits). */
+export interface FrameFigures {
+  readonly routing: Routing;
+  readonly drums: readonly { readonly drum: number; readonly lengthM: number }[];
+}
 
 /** One line of the bill of materials. */
 export interface BomRow {
@@ -43,8 +55,8 @@ type AddRow = (
   round?: (x: number) => number,
 ) => void;
 
-/** Parts, weights, capstans, cord and routing hardware, in that order. */
-export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
+/** Parts, weights, capstans, cord and routing hardware, in that order; measured from `frame` when given. */
+export function billOfMaterials(netlist: Netlist, profile: Profile, frame?: FrameFigures): BomRow[] {
   const rows: BomRow[] = [];
   const add: AddRow = (item, kind, count, each, unit, note, round = r1) => {
     if (count > 0) rows.push({ item, kind, count, each: round(each), unit, total: round(count * each), note });
@@ -64,17 +76,38 @@ export function billOfMaterials(netlist: Netlist, profile: Profile): BomRow[] {
     );
   const capstans = [...turns.values()].reduce((a, n) => a + n, 0);
   const totalTurns = [...turns].reduce((a, [w, n]) => a + w * n, 0);
+  const drumNote = `radius ${profile.drumRadiusM} m at ${profile.drumRpm} rev/min; ${r3(profile.wrapPitchM)} m per wrap`;
+  if (frame) {
+    for (const d of frame.drums) add(`drum ${d.drum}`, 'drum', 1, d.lengthM, 'm length', `${drumNote}; as placed`, r3);
+    addMeasuredCord(netlist, frame.routing, profile, add);
+  } else {
+    add('drum', 'drum', capstans > 0 ? 1 : 0, totalTurns * profile.wrapPitchM, 'm length', drumNote, r3);
+    addCordAndRouting(netlist, profile, turns, add);
+  }
+  return rows;
+}
+
+/** Cord, pins and pulleys as routed in the frame. */
+function addMeasuredCord(netlist: Netlist, routing: Routing, profile: Profile, add: AddRow): void {
+  const branches = routing.branches.length;
   add(
-    'drum',
-    'drum',
-    capstans > 0 ? 1 : 0,
-    totalTurns * profile.wrapPitchM,
-    'm length',
-    `radius ${profile.drumRadiusM} m at ${profile.drumRpm} rev/min; ${r3(profile.wrapPitchM)} m per wrap`,
+    'cord, cut to length',
+    'cord',
+    1,
+    routing.totalCordM,
+    'm',
+    `${netlist.cords.length} cords, ${branches} branches (each length in cut-list.csv); knots, take-up and the wraps on the drum included`,
     r3,
   );
-  addCordAndRouting(netlist, profile, turns, add);
-  return rows;
+  add('redirect pin', 'routing', routing.pins, 1, 'piece', 'one per branch at each turn over a pin');
+  add(
+    'pulley',
+    'routing',
+    routing.pulleys,
+    1,
+    'piece',
+    `${profile.frame.pulleyDiameterM * 1000} mm, efficiency ${profile.routing.pulleyEfficiency} each; one per branch at each turn`,
+  );
 }
 
 /** Capstans by their turns (every lever or gate with an output cord), the profile's `wraps` first. */

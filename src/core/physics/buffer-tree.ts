@@ -13,6 +13,11 @@
  * them, giving a deeper tree; every step lightens the driver or removes branches, or stops.
  * Preconditions: a netlist meeting the netlist invariants.
  * A latch's feedback cord branch is never moved (it would slow the latch).
+ * Routing loss: without `losses`, every branch takes its cord's routing in the profile (the
+ * build before it is placed). With `losses` (the routed frame, physics/routing.ts), a branch
+ * takes its routed loss, and every branch the plan moves or adds — whose route is not known
+ * until the build is placed again — the loss of a branch that leaves its bay (`leavingLoss`,
+ * the most a computed route costs), so a budget planned here holds once the build is routed.
  * Postconditions: every driver that can be balanced passes; a driver that cannot (a single
  * branch heavier than any capstan can lift, or buffers that cannot help at this μ) is left
  * exactly as it was, so the drive check names its cord. Ids are stable: the k-th pair made
@@ -21,14 +26,49 @@
  */
 import type { Cord, GatePart, Netlist, Part, PortRef } from '../model/netlist.js';
 import { availableTension, routingFactor, routingFor } from './capstan.js';
-import { driveBudget, holdWeightG, portLoadG } from './drive.js';
+import { branchKey, driveBudget, holdWeightG, portLoadG, type BranchLosses } from './drive.js';
 import type { Profile } from './profile.js';
+import { leavingLoss } from './routing.js';
 
 interface Branch {
   readonly port?: PortRef;
   readonly actuator?: string;
   /** Load before routing loss, grams-force. */
   readonly baseG: number;
+  /** Routing loss where the branch is now. */
+  readonly loss: number;
+}
+
+/** How the plan prices routing: a branch of the netlist, and a branch the plan moves or adds. */
+interface LossModel {
+  existing(cord: string, target: string): number;
+  /** On cord `cord` (default: a new cord). */
+  planned(cord?: string): number;
+  /** Every branch of a trial netlist, for its budget (undefined: the profile's routing). */
+  complete(n: Netlist): BranchLosses | undefined;
+}
+
+function lossModel(profile: Profile, losses: BranchLosses | undefined): LossModel {
+  const straight = (cord: string): number => routingFactor(routingFor(profile, cord));
+  if (!losses)
+    return {
+      existing: straight,
+      planned: (cord) => (cord === undefined ? routingFactor(profile.routing) : straight(cord)),
+      complete: () => undefined,
+    };
+  const leaving = (cord?: string): number => leavingLoss(profile, cord);
+  return {
+    // A cord the plan gives a new branch leaves its bay, so its branches cost at least that.
+    existing: (cord, target) => Math.max(losses.get(branchKey(cord, target)) ?? 0, leaving(cord)),
+    planned: leaving,
+    complete: (n) => {
+      const out = new Map(losses);
+      for (const c of n.cords)
+        for (const t of [...c.ports.map((p) => `${p.part}.${p.port}`), ...c.actuators])
+          if (!out.has(branchKey(c.id, t))) out.set(branchKey(c.id, t), leaving(c.id));
+      return out;
+    },
+  };
 }
 
 interface WorkCord {
@@ -37,25 +77,26 @@ interface WorkCord {
   branches: Branch[];
 }
 
-/** Insert buffer pairs wherever a driver's margin fails, so that every budget that can pass does. */
-export function balanceDrive(netlist: Netlist, profile: Profile): Netlist {
-  const failing = driveBudget(netlist, profile).filter((b) => !b.ok);
+/** Insert buffer pairs wherever a driver's margin fails, so that every budget that can pass does; `losses` from the routed frame. */
+export function balanceDrive(netlist: Netlist, profile: Profile, losses?: BranchLosses): Netlist {
+  const failing = driveBudget(netlist, profile, losses).filter((b) => !b.ok);
   if (failing.length === 0) return netlist;
   const parts = new Map(netlist.parts.map((p) => [p.id, p]));
   const used = new Set<string>([...parts.keys(), ...netlist.cords.map((c) => c.id)]);
   const replaced = new Map<string, Cord>();
   const newParts: Part[] = [];
   const newCords: Cord[] = [];
+  const model = lossModel(profile, losses);
   for (const f of failing) {
     const own = netlist.cords.filter((c) => c.driver === f.driver);
-    const plan = planDriver(f.driver, f.driverKind, own, parts, used, profile);
+    const plan = planDriver(f.driver, f.driverKind, own, parts, used, profile, model);
     if (!plan) continue;
     const trial: Netlist = {
       parts: [...netlist.parts, ...plan.parts],
       cords: [...netlist.cords.map((c) => plan.cords.get(c.id) ?? c), ...plan.newCords],
     };
     const mine = new Set([f.driver, ...plan.parts.map((p) => p.id)]);
-    if (!driveBudget(trial, profile).every((b) => !mine.has(b.driver) || b.ok)) continue;
+    if (!driveBudget(trial, profile, model.complete(trial)).every((b) => !mine.has(b.driver) || b.ok)) continue;
     for (const [id, c] of plan.cords) replaced.set(id, c);
     newParts.push(...plan.parts);
     newCords.push(...plan.newCords);
@@ -86,15 +127,16 @@ function planDriver(
   parts: ReadonlyMap<string, Part>,
   usedIds: ReadonlySet<string>,
   profile: Profile,
+  model: LossModel,
 ): Plan | undefined {
-  return new DriverPlanner(driver, kind, own, parts, usedIds, profile).plan();
+  return new DriverPlanner(driver, kind, own, parts, usedIds, profile, model).plan();
 }
 
 /** The rounds of buffering for one driver (see the module comment); the driver's cords are rewritten in `work`. */
 class DriverPlanner {
   private readonly driverBudget: number;
   private readonly gateBudget: number;
-  /** The routing loss of new cords: the default (the trial budget in balanceDrive catches a per-cord override). */
+  /** The routing loss of a new cord's branch (model.planned; the trial budget in balanceDrive catches a per-cord override). */
   private readonly fNew: number;
   private readonly latch: string | undefined;
   private readonly used: Set<string>;
@@ -110,19 +152,24 @@ class DriverPlanner {
     private readonly parts: ReadonlyMap<string, Part>,
     usedIds: ReadonlySet<string>,
     private readonly profile: Profile,
+    private readonly model: LossModel,
   ) {
     this.driverBudget = availableTension(profile, holdWeightG(profile, kind)).availableG / profile.minMargin;
     this.gateBudget = availableTension(profile, profile.zWeightG).availableG / profile.minMargin;
-    this.fNew = routingFactor(profile.routing);
+    this.fNew = model.planned();
     this.used = new Set(usedIds);
     this.work = own.map((c) => ({
       id: c.id,
       driver: c.driver,
       branches: [
-        ...c.ports.map((p) => ({ port: p, baseG: portLoadG(profile, parts.get(p.part)) })),
+        ...c.ports.map((p) => ({
+          port: p,
+          baseG: portLoadG(profile, parts.get(p.part)),
+          loss: model.existing(c.id, `${p.part}.${p.port}`),
+        })),
         ...c.actuators.map((a) => {
           const x = parts.get(a);
-          return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0 };
+          return { actuator: a, baseG: x?.kind === 'actuator' ? x.loadG : 0, loss: model.existing(c.id, a) };
         }),
       ],
     }));
@@ -144,13 +191,8 @@ class DriverPlanner {
     };
   }
 
-  /** The routing factor of a cord of the driver. */
-  private f(cordId: string): number {
-    return routingFactor(routingFor(this.profile, cordId));
-  }
-
   private driverLoad(): number {
-    return this.work.reduce((s, c) => s + c.branches.reduce((t, b) => t + b.baseG * this.f(c.id), 0), 0);
+    return this.work.reduce((s, c) => s + c.branches.reduce((t, b) => t + b.baseG * b.loss, 0), 0);
   }
 
   /**
@@ -172,9 +214,9 @@ class DriverPlanner {
     const all = this.work.flatMap((c) => c.branches.map((b): Placed => ({ cord: c.id, b })));
     const fixed = all.filter((x) => !this.movable(x.b));
     const mov = all.filter((x) => this.movable(x.b));
-    const loadOf = (xs: readonly Placed[]): number => xs.reduce((s, x) => s + x.b.baseG * this.f(x.cord), 0);
+    const loadOf = (xs: readonly Placed[]): number => xs.reduce((s, x) => s + x.b.baseG * x.b.loss, 0);
     const pairsLoad = (groups: readonly Placed[][]): number =>
-      groups.reduce((s, g) => s + profile.zWeightG * this.f(g[0].cord), 0);
+      groups.reduce((s, g) => s + profile.zWeightG * this.model.planned(g[0].cord), 0);
     const fixedLoad = loadOf(fixed);
     for (let k = mov.length - 1; k >= 0; k--) {
       const groups = nextFit(mov.slice(k), gateBudget, fNew);
@@ -192,7 +234,7 @@ class DriverPlanner {
 
   /** Move one group of branches of cord x onto a new buffer pair `x.buf<k>a` → `x.buf<k>b`. */
   private addPair(g: readonly Placed[]): void {
-    const { used, profile } = this;
+    const { used, profile, model } = this;
     const x = g[0].cord;
     let k = this.counters.get(x) ?? 1;
     while (
@@ -210,15 +252,19 @@ class DriverPlanner {
     this.newCords.push({
       id: `${a}.out`,
       driver: a,
-      branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG }],
+      branches: [{ port: { part: b, port: 'in' }, baseG: profile.zWeightG, loss: model.planned(`${a}.out`) }],
     });
-    this.newCords.push({ id: `${b}.out`, driver: b, branches: g.map((y) => y.b) });
+    this.newCords.push({
+      id: `${b}.out`,
+      driver: b,
+      branches: g.map((y) => ({ ...y.b, loss: model.planned(`${b}.out`) })),
+    });
     const moved = new Set(g.map((y) => y.b));
     const home = this.work.find((c) => c.id === x);
     if (home)
       home.branches = [
         ...home.branches.filter((y) => !moved.has(y)),
-        { port: { part: a, port: 'in' }, baseG: profile.zWeightG },
+        { port: { part: a, port: 'in' }, baseG: profile.zWeightG, loss: model.planned(x) },
       ];
   }
 }

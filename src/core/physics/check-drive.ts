@@ -13,10 +13,12 @@
  * its load, the largest load it could lift at the design margin, its capstan's margin). The
  * snapshots are read once, in order, and not kept (drum.ts streams them): only these
  * worst-case figures are, so any number of snapshots fits in memory.
+ * `losses`: each branch's routing loss from the routed frame (physics/routing.ts
+ * `lossByBranch`); a branch it does not name takes its cord's profile routing.
  */
 import type { CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
-import { driveBudget, type DriverBudget } from './drive.js';
+import { driveBudget, type BranchLosses, type DriverBudget } from './drive.js';
 import { ALL_ENGAGED, drumLoad, type DriveSnapshot } from './drum.js';
 import { frictionHeadroom, headroomWords, outputLoadWords, type OutputLoad } from './headroom.js';
 import { operatorForces } from './operator.js';
@@ -62,8 +64,9 @@ export function checkDrive<W extends StatePlace>(
   profile: Profile,
   snapshots: Iterable<DriveSnapshot<W>>,
   words: (where: W) => string = (w) => w.state,
+  losses?: BranchLosses,
 ): DriveCheck<W> {
-  const drivers = driveBudget(netlist, profile);
+  const drivers = driveBudget(netlist, profile, losses);
   const drum = drumLoad(netlist, profile, snapshots, (w) => w.state);
   const operatorForceMaxG = operatorForces(netlist, profile).reduce((m, o) => Math.max(m, o.forceG), 0);
   const loaded = drivers.filter((d) => Number.isFinite(d.margin));

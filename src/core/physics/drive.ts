@@ -14,12 +14,23 @@
  * capstan of an actuator, else the profile's). Margin = available / load; ok when margin ≥
  * profile.minMargin. A failing budget that pulls an actuator names the output, how far its
  * load is over what the capstan can move at the design margin, and what to change.
+ * Routing loss of a branch: its entry in `losses` (the routed frame: physics/routing.ts, keyed
+ * by `branchKey`), else its cord's routing in the profile (the default with the cord's
+ * `cordRouting` entry) — "straight" unless the profile says otherwise.
  * Precondition: a netlist whose cords name existing parts (the netlist invariants).
  * Postcondition: one budget per driver, in the netlist's part order.
  */
 import { partIndex, type Netlist, type Part } from '../model/netlist.js';
 import { availableTension, gramsToNewtons, routingFactor, routingFor, wrapsNeeded, wrapsOf } from './capstan.js';
 import type { Profile } from './profile.js';
+
+/** Routing loss (factor ≥ 1) of each branch, by `branchKey(cord, target)`: what the routed frame gives. */
+export type BranchLosses = ReadonlyMap<string, number>;
+
+/** The key of one branch in `BranchLosses`: cord id and target (`gate.port` or actuator id). */
+export function branchKey(cord: string, target: string): string {
+  return `${cord}→${target}`;
+}
 
 /** One branch of a cord and what it costs the capstan. */
 export interface BranchLoad {
@@ -72,31 +83,41 @@ export function holdWeightG(profile: Profile, driverKind: 'lever' | 'gate'): num
   return driverKind === 'lever' ? profile.leverWeightG : profile.zWeightG;
 }
 
-/** Every branch load of the cords driven by each driver, keyed by driver id. */
-export function branchLoads(netlist: Netlist, profile: Profile): Map<string, BranchLoad[]> {
+/** Every branch load of the cords driven by each driver, keyed by driver id; `losses` from the routed frame. */
+export function branchLoads(netlist: Netlist, profile: Profile, losses?: BranchLosses): Map<string, BranchLoad[]> {
   const parts = partIndex(netlist);
   const byDriver = new Map<string, BranchLoad[]>();
   for (const c of netlist.cords) {
-    const f = routingFactor(routingFor(profile, c.id));
+    const straight = routingFactor(routingFor(profile, c.id));
+    const f = (target: string): number => losses?.get(branchKey(c.id, target)) ?? straight;
     const list = byDriver.get(c.driver) ?? [];
     for (const p of c.ports) {
       const baseG = portLoadG(profile, parts.get(p.part));
-      list.push({ cord: c.id, target: `${p.part}.${p.port}`, kind: 'port', baseG, routingFactor: f, loadG: baseG * f });
+      const target = `${p.part}.${p.port}`;
+      list.push({ cord: c.id, target, kind: 'port', baseG, routingFactor: f(target), loadG: baseG * f(target) });
     }
     for (const a of c.actuators) {
       const part = parts.get(a);
       const baseG = part?.kind === 'actuator' ? part.loadG : 0;
       const output = part?.kind === 'actuator' ? { output: part.output } : {};
-      list.push({ cord: c.id, target: a, kind: 'actuator', baseG, routingFactor: f, loadG: baseG * f, ...output });
+      list.push({
+        cord: c.id,
+        target: a,
+        kind: 'actuator',
+        baseG,
+        routingFactor: f(a),
+        loadG: baseG * f(a),
+        ...output,
+      });
     }
     byDriver.set(c.driver, list);
   }
   return byDriver;
 }
 
-/** Force budget of every capstan driver, in part order. */
-export function driveBudget(netlist: Netlist, profile: Profile): DriverBudget[] {
-  const loads = branchLoads(netlist, profile);
+/** Force budget of every capstan driver, in part order; `losses` from the routed frame. */
+export function driveBudget(netlist: Netlist, profile: Profile, losses?: BranchLosses): DriverBudget[] {
+  const loads = branchLoads(netlist, profile, losses);
   const out: DriverBudget[] = [];
   for (const part of netlist.parts) {
     const branches = loads.get(part.id);

@@ -148,6 +148,11 @@ const FRAME_RULES: Readonly<Record<Exclude<keyof FrameGeometry, 'turn'>, NumberR
     why: 'a whole number of drums, at least 1',
     plausible: pl(1, 8, 'estimate — drums geared together in one frame'),
   },
+  camBaseRadiusM: length('a cam disc has a radius', pl(0.01, 0.3, 'estimate — a bench model to a large hand-cut disc')),
+  camLiftM: length(
+    'a cam lobe rises above the base circle',
+    pl(0.002, 0.1, 'estimate — a few millimetres to a long lever throw'),
+  ),
 };
 
 /** The values `frame.turn` may take. */

@@ -52,6 +52,10 @@ export interface FrameGeometry {
   readonly longestDrumM: number;
   /** Most drums (or sides of one drum) one frame may carry. */
   readonly drumsPerFrame: number;
+  /** Radius of a clock cam's base circle (where its lever rests released), metres. */
+  readonly camBaseRadiusM: number;
+  /** Rise of a clock cam's lobe above its base circle (the travel that pulls the clock lever), metres. */
+  readonly camLiftM: number;
 }
 
 export interface CostWeights {
@@ -165,5 +169,7 @@ export const DEFAULT_PROFILE: Profile = {
     bayClearanceM: 0.02,
     longestDrumM: 1.5,
     drumsPerFrame: 2,
+    camBaseRadiusM: 0.04,
+    camLiftM: 0.015,
   },
 };

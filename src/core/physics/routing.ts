@@ -24,8 +24,9 @@
  * Pre: every driver and target of every cord has a bay in the layout. Post: one route per
  * branch, in netlist order (cords, then each cord's ports, then its actuators).
  */
-import type { Netlist } from '../model/netlist.js';
-import { routingFactor } from './capstan.js';
+import { partIndex, type Netlist } from '../model/netlist.js';
+import { routingFactor, wrapsOf } from './capstan.js';
+import { branchKey, type BranchLosses } from './drive.js';
 import type { Profile, RoutingLoss } from './profile.js';
 
 /** A bay as placed: what routing needs to know of it. */
@@ -66,6 +67,8 @@ export interface BranchRoute {
   readonly driver: string;
   /** `gate.port`, or the actuator id. */
   readonly target: string;
+  /** The part tied to: the gate, or the actuator. */
+  readonly part: string;
   readonly kind: 'port' | 'actuator';
   readonly runs: readonly CordRun[];
   /** Runs + a knot allowance at each end + the take-up allowance. */
@@ -132,10 +135,14 @@ export function route(netlist: Netlist, layout: FrameLayout, profile: Profile): 
   };
   const r = profile.drumRadiusM;
   const f = profile.frame;
-  const trunkM = Math.max(0, f.railAboveDrumM - r) + 2 * Math.PI * r * profile.wraps + f.knotAllowanceM;
+  const parts = partIndex(netlist);
+  // The hold end down to the drum, the capstan's own turns, a knot.
+  const trunkOf = (driver: string): number =>
+    Math.max(0, f.railAboveDrumM - r) + 2 * Math.PI * r * wrapsOf(parts.get(driver), profile) + f.knotAllowanceM;
   const cords: CordRoute[] = [];
   for (const c of netlist.cords) {
     const driver = at(c.driver, c.id);
+    const trunkM = trunkOf(c.driver);
     const targets = [
       ...c.ports.map((p) => ({ target: `${p.part}.${p.port}`, kind: 'port' as const, part: p.part, lever: p.port })),
       ...c.actuators.map((a) => ({ target: a, kind: 'actuator' as const, part: a, lever: 'exit' })),
@@ -145,7 +152,7 @@ export function route(netlist: Netlist, layout: FrameLayout, profile: Profile): 
       const end = at(t.part, c.id);
       const lever = end.bay.levers.find((l) => l.name === t.lever) ?? end.bay.levers[0];
       const runs = leaves ? runsVia(driver, end, lever.xM, t.kind, profile) : [direct(driver, lever.xM, r, f)];
-      return branchRoute(c.id, c.driver, t.target, t.kind, runs, driver.bay.drum !== end.bay.drum, profile);
+      return branchRoute(c.id, c.driver, t, runs, driver.bay.drum !== end.bay.drum, profile);
     });
     cords.push({
       cord: c.id,
@@ -182,17 +189,13 @@ function runsVia(d: Anchor, t: Anchor, xM: number, kind: 'port' | 'actuator', pr
   return runs;
 }
 
-function branchRoute(
-  cord: string,
-  driver: string,
-  target: string,
-  kind: 'port' | 'actuator',
-  runs: readonly CordRun[],
-  crossDrum: boolean,
+/** The loss figures of a branch of `cord` that turns `turns` times in the frame, after the cord's override. */
+function lossFigures(
   profile: Profile,
-): BranchRoute {
+  cord: string,
+  turns: number,
+): { routing: RoutingLoss; pins: number[]; overridden: boolean } {
   const f = profile.frame;
-  const turns = runs.length - 1;
   const computed = {
     pulleys: (f.turn === 'pulley' ? turns : 0) + profile.routing.pulleys,
     pins: [...Array<number>(f.turn === 'pin' ? turns : 0).fill(TURN_RAD)],
@@ -208,21 +211,46 @@ function branchRoute(
     muPin: override?.muPin ?? profile.routing.muPin,
     pulleyEfficiency: override?.pulleyEfficiency ?? profile.routing.pulleyEfficiency,
   };
+  return { routing, pins, overridden: override !== undefined && Object.keys(override).length > 0 };
+}
+
+/** Turns of a branch that leaves its bay: drop → channel, channel → rise (or exit). */
+const LEAVING_TURNS = 2;
+
+/**
+ * The loss of a branch of `cord` that leaves its bay (two turns), before it is placed: the
+ * most any computed route of that cord costs, so a budget planned with it holds once routed.
+ */
+export function leavingLoss(profile: Profile, cord = ''): number {
+  return routingFactor(lossFigures(profile, cord, LEAVING_TURNS).routing);
+}
+
+function branchRoute(
+  cord: string,
+  driver: string,
+  to: { readonly target: string; readonly part: string; readonly kind: 'port' | 'actuator' },
+  runs: readonly CordRun[],
+  crossDrum: boolean,
+  profile: Profile,
+): BranchRoute {
+  const f = profile.frame;
+  const { routing, pins, overridden } = lossFigures(profile, cord, runs.length - 1);
   const runM = runs.reduce((s, x) => s + x.lengthM, 0);
   return {
     cord,
     driver,
-    target,
-    kind,
+    target: to.target,
+    part: to.part,
+    kind: to.kind,
     runs,
     lengthM: runM + 2 * f.knotAllowanceM + f.takeUpAllowanceM,
     channelM: runs.reduce((s, x) => s + (x.kind === 'channel' ? x.lengthM : 0), 0),
-    pulleys,
+    pulleys: routing.pulleys,
     pins,
     loss: routingFactor(routing),
     routing,
     crossDrum,
-    overridden: override !== undefined && Object.keys(override).length > 0,
+    overridden,
   };
 }
 
@@ -242,7 +270,25 @@ function totals(cords: readonly CordRoute[], profile: Profile): Routing {
   };
 }
 
-/** Routing loss of each branch, by cord and target (`gate.port` or actuator id): what the drive budget multiplies a load by. */
-export function lossByBranch(routing: Routing): ReadonlyMap<string, number> {
-  return new Map(routing.branches.map((b) => [`${b.cord}→${b.target}`, b.loss]));
+/**
+ * The loss each branch will have once the build is placed, before it is: every part has a bay
+ * of its own, so a branch to another part leaves its driver's bay and turns twice
+ * (`leavingLoss`); only a branch back to its own driver would rise straight. Exact for the
+ * routes above; what the build is balanced with before it is placed, so that placing it
+ * rarely has to balance it again.
+ */
+export function expectedLosses(netlist: Netlist, profile: Profile): BranchLosses {
+  const out = new Map<string, number>();
+  for (const c of netlist.cords) {
+    const leaving = leavingLoss(profile, c.id);
+    const straight = routingFactor(lossFigures(profile, c.id, 0).routing);
+    for (const p of c.ports) out.set(branchKey(c.id, `${p.part}.${p.port}`), p.part === c.driver ? straight : leaving);
+    for (const a of c.actuators) out.set(branchKey(c.id, a), leaving);
+  }
+  return out;
+}
+
+/** Routing loss of each branch, by `branchKey(cord, target)`: what the drive budget multiplies a load by. */
+export function lossByBranch(routing: Routing): BranchLosses {
+  return new Map(routing.branches.map((b) => [branchKey(b.cord, b.target), b.loss]));
 }

@@ -45,6 +45,9 @@ figure.drawing figcaption { color: #50575e; font-size: .9rem; }
 @media print { figure.drawing { break-before: page; break-inside: avoid; } figure.drawing svg { max-height: 240mm; } }
 `;
 
+/** A drawing in a sheet: an SVG inline, or embedded as an image whose source is the SVG (a data: URL). */
+export const HAS_DRAWING = /<svg[\s>]|<img src="data:image\/svg\+xml/;
+
 /**
  * The build sheet to print: the sheet exactly as the registry makes it. A sheet that carries no
  * drawing of its own gets the state diagram and the schematic added at its end, one page each,
@@ -52,7 +55,7 @@ figure.drawing figcaption { color: #50575e; font-size: .9rem; }
  */
 export function printSheet(b: Built): string {
   const sheet = documentText(b, 'build-sheet.html');
-  if (/<svg[\s>]/.test(sheet)) return sheet;
+  if (HAS_DRAWING.test(sheet)) return sheet;
   const figure = (file: string, caption: string): string =>
     `<figure class="drawing">${inlineSvg(documentText(b, file))}<figcaption>${caption}</figcaption></figure>`;
   const drawings = [

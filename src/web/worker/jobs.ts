@@ -117,9 +117,10 @@ export function buildJob(
   const view: BuildView = {
     build: b.build,
     profile: b.profile,
+    placement: b.placement,
     equations: equationTexts(b),
     guard: b.build.guard,
-    bom: billOfMaterials(b.build.netlist, b.profile),
+    bom: billOfMaterials(b.build.netlist, b.profile, b.placement),
     forces: operatorForces(b.build.netlist, b.profile),
     ...(b.search ? { search: b.search } : {}),
     diagnostics: b.diagnostics,
@@ -130,7 +131,7 @@ export function buildJob(
 
 /** Run every check of a build; returns the checked build and the page's view of it. */
 export function checkJob(b: Built, seed: number): { built: Built; view: ChecksView } {
-  const checks = runChecks(b.build, b.analysed, b.profile, seed);
+  const checks = runChecks(b.build, b.analysed, b.profile, seed, b.placement);
   const built: Built = { ...b, checks };
   const drive = findCheck(checks, 'drive');
   const roles = partRoles(b.build.netlist);

@@ -21,6 +21,7 @@ import {
   type MachineForm,
   type OperatorForce,
   type PartCounts,
+  type Placement,
   type Profile,
   type RuleViolation,
   type TimingResult,
@@ -78,6 +79,8 @@ export interface Reading {
 export interface BuildView {
   readonly build: Build;
   readonly profile: Profile;
+  /** Where every part sits in the frame and how every cord runs (bays, drums, routes, cut lengths). */
+  readonly placement: Placement;
   readonly equations: readonly { readonly name: string; readonly expr: string }[];
   readonly guard: GuardReport;
   readonly bom: readonly BomRow[];

@@ -70,7 +70,7 @@ vi.mock('../../../src/core/sim/snapshots.js', async (importOriginal) => {
   };
 });
 
-const ORDER = ['forbidden-input', 'next-state-equivalence', 'equivalence', 'recovery', 'timing', 'drive'];
+const ORDER = ['forbidden-input', 'next-state-equivalence', 'equivalence', 'recovery', 'timing', 'drive', 'layout'];
 
 function bell(): { a: Analysed; b: Built } {
   const file = 'examples/marble-bell.lw';
@@ -85,7 +85,7 @@ describe('core/checks/registry', () => {
   it('lists every check once, in the order reports show them, with labels and what each reads', () => {
     expect(CHECK_NAMES).toEqual(ORDER);
     expect(new Set(CHECK_NAMES).size).toBe(CHECKS.length);
-    const fields: (keyof CheckInput)[] = ['build', 'spec', 'profile', 'seed'];
+    const fields: (keyof CheckInput)[] = ['build', 'spec', 'profile', 'seed', 'placement'];
     for (const c of CHECKS) {
       expect(c.label.length, c.name).toBeGreaterThan(0);
       expect(c.shortLabel.length, c.name).toBeGreaterThan(0);
@@ -94,23 +94,31 @@ describe('core/checks/registry', () => {
       for (const n of c.needs) expect(fields).toContain(n);
     }
     expect(new Set(CHECKS.map((c) => c.shortLabel)).size).toBe(CHECKS.length);
-    // Only the logic-level proof on the equations draws nothing at random.
-    expect(CHECKS.filter((c) => !c.needs.includes('seed')).map((c) => c.name)).toEqual(['next-state-equivalence']);
+    // Only the logic-level proof on the equations, and the layout (judged from the placement as made), draw nothing at random.
+    expect(CHECKS.filter((c) => !c.needs.includes('seed')).map((c) => c.name)).toEqual([
+      'next-state-equivalence',
+      'layout',
+    ]);
     expect(CHECKS.filter((c) => c.needs.includes('spec')).map((c) => c.name)).toEqual(['equivalence']);
+    // The checks of the routed frame read the placement.
+    expect(CHECKS.filter((c) => c.needs.includes('placement')).map((c) => c.name)).toEqual(['drive', 'layout']);
   });
 
   it('runs as the pipeline runs the checks: one result per entry, in order, each named by its entry', () => {
     const { a, b } = bell();
-    const checks = runChecks(b.build, a, b.profile, 1);
+    const checks = runChecks(b.build, a, b.profile, 1, b.placement);
     expect(checks.map((c) => c.name)).toEqual(ORDER);
     const input: CheckInput = {
       build: b.build,
       spec: { original: a.flat, merged: a.minimised.merged },
       profile: b.profile,
       seed: 1,
+      placement: b.placement,
     };
     const next = CHECKS[1].run(input);
     expect(next).toEqual(checks[1]);
+    // Without a placement, runChecks places the build itself with the same seed: the same frame.
+    expect(runChecks(b.build, a, b.profile, 1).at(-1)).toEqual(checks.at(-1));
   });
 
   it('gives each check its own result type by name, without a cast', () => {

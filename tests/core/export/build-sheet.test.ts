@@ -8,6 +8,7 @@ import { buildSheetMd, renderDocMd } from '../../../src/core/export/build-sheet-
 import { coverExpr } from '../../../src/core/export/readable.js';
 import { escapeXml } from '../../../src/core/export/escape.js';
 import { table, type Doc } from '../../../src/core/export/doc.js';
+import { buildDocuments } from '../../../src/core/export/documents.js';
 import { billOfMaterials } from '../../../src/core/physics/bom.js';
 import { example, exampleNames, xmlProblems } from './support.js';
 
@@ -19,6 +20,7 @@ const SECTIONS = [
   'Set and reset equations',
   'Forbidden-input guard',
   'Parts and bill of materials',
+  'Frame: bays, drums and cords',
   'Drive margins',
   'Timing and clock rate',
   'Wiring list',
@@ -39,8 +41,9 @@ describe('core/export/build-sheet', () => {
       const html = buildSheetHtml(example(name));
       expect(xmlProblems(html), name).toEqual([]);
       expect(html.startsWith('<!DOCTYPE html>')).toBe(true);
-      // Self-contained: nothing is fetched from anywhere.
-      expect(html).not.toMatch(/<script|<link|<img|src=|url\(|@import|href="(?!#)/);
+      // Self-contained: nothing is fetched from anywhere (a drawing is an image whose source is the SVG itself).
+      expect(html).not.toMatch(/<script|<link|url\(|@import|href="(?!#)/);
+      expect(html.match(/src="(?!data:image\/svg\+xml;base64,)/g), name).toBeNull();
       for (const s of SECTIONS) expect(html, `${name}: ${s}`).toContain(`<h2>${escapeXml(s)}</h2>`);
     }
   });
@@ -116,8 +119,9 @@ describe('core/export/build-sheet', () => {
 
   it('says what each output moves: an actuator its load and the most it can lift, a flag only its own swing', () => {
     const lock = buildSheetMd(example('canal-lock.lw'));
-    // 450 g on 2.75 turns: 15 g · e^(0.25·2π·2.75) = 1127.5 g, at margin 2 563.7 g, margin 2.51 (capstan equation).
-    expect(lock).toContain('| lower_gate | actuator | 450 | 563.7 | 2.51 | its load, by its own capstan |');
+    // 450 g on 2.75 turns: 15 g · e^(0.25·2π·2.75) = 1127.5 g (capstan equation); routed out of the frame over
+    // two pulleys (1/0.95² ≈ 1.108) the load is 498.6 g: margin 2.26, and at margin 2 at most 563.7 × 0.95² = 508.7 g.
+    expect(lock).toContain('| lower_gate | actuator | 450 | 508.7 | 2.26 | its load, by its own capstan |');
     expect(lock).toContain(
       '| outputs | lower_gate (actuator, 450 g), upper_gate (actuator, 450 g), fill (actuator, 300 g)',
     );
@@ -192,5 +196,27 @@ describe('core/export/build-sheet', () => {
         else expect(mdCells(l), `${name}: ${l}`).toHaveLength(width);
       }
     }
+  });
+
+  it('embeds the frame drawing, the state diagram and the schematic, each fitted to a printed page', () => {
+    const docs = buildDocuments(example('lighthouse.lw'));
+    for (const file of ['build-sheet.html', 'commissioning.html'] as const) {
+      const html = docs.get(file) ?? '';
+      expect(xmlProblems(html), file).toEqual([]);
+      const images = [...html.matchAll(/<img src="data:image\/svg\+xml;base64,([A-Za-z0-9+/=]+)" alt="([^"]*)" \/>/g)];
+      expect(images, file).toHaveLength(3);
+      // Each image is the very file written beside the sheet (RFC 2397 data URL, base64 of its UTF-8).
+      const svgs = images.map((m) => new TextDecoder().decode(Uint8Array.from(atob(m[1]), (c) => c.charCodeAt(0))));
+      expect(svgs, file).toEqual([docs.get('frame.svg'), docs.get('state-diagram.svg'), docs.get('schematic.svg')]);
+      // Printed, a drawing never breaks across pages and is never taller than the page.
+      expect(html, file).toMatch(
+        /figure\.drawing \{ break-inside: avoid; \}|tr, \.note, pre, figure\.drawing \{ break-inside: avoid; \}/,
+      );
+      expect(html, file).toMatch(/figure\.drawing img \{ max-height: \d+mm;/);
+    }
+    const md = docs.get('build-sheet.md') ?? '';
+    for (const f of ['frame.svg', 'state-diagram.svg', 'schematic.svg'])
+      expect(md).toMatch(new RegExp(`!\\[[^\\]]+\\]\\(${f.replace('.', '\\.')}\\)`));
+    expect(md).toContain('## Frame: bays, drums and cords');
   });
 });

@@ -122,4 +122,25 @@ describe('core/export/commissioning', () => {
     expect(html).toContain('takes every one of the');
     expect(html).toContain('size: landscape');
   });
+
+  it('names every hand lever by its bay ("bay 7, drum 1") in the actions, and every bay in its own table', () => {
+    const b = example('crossing.lw');
+    const where = new Map(b.placement.bays.map((x) => [x.part, `bay ${x.bay}, drum ${x.drum}`]));
+    const s = b.build.signals;
+    const rows = commissioningRows(b.build, DEFAULT_PROFILE, commissioningTour(b.build.machine), b.placement);
+    expect(rows[0].action).toBe(
+      `Reset: pull the reset lever (${where.get(s.reset)}), then release it (both clock levers released).`,
+    );
+    expect(rows.some((r) => r.action === `Pull φ1 (${where.get(s.phi1)}).`)).toBe(true);
+    expect(rows.some((r) => r.action === `Release φ2 (${where.get(s.phi2)}).`)).toBe(true);
+    const set = rows.find((r) => r.action.startsWith('Set the input levers'))?.action ?? '';
+    for (const [input, lever] of Object.entries(s.inputs)) expect(set).toContain(`${input} (${where.get(lever)}) `);
+    // The sheet: a table of every bay and its levers, and each latch's columns with its two bays.
+    const html = commissioningHtml(b.build, rows, commissioningTour(b.build.machine), b.placement);
+    expect(xmlProblems(html)).toEqual([]);
+    expect(html).toContain('<h2>Where the levers are</h2>');
+    for (const bay of b.placement.bays) expect(html).toContain(`<td>bay ${bay.bay}, drum ${bay.drum}</td>`);
+    for (const l of b.placement.latches)
+      expect(html).toContain(`${l.latch} (bays ${l.bays[0]} and ${l.bays[1]}, drum ${l.drum}): set Z`);
+  });
 });

@@ -89,4 +89,46 @@ describe('core/export/netlist-json', () => {
     expect(c).toHaveLength(a.length);
     expect(a.filter((line, i) => line !== c[i])).toHaveLength(1);
   });
+
+  it('with a placement: the frame block, every part’s drum, bay and position, every branch as routed — and the schema accepts it', () => {
+    for (const name of exampleNames()) {
+      const b = example(name);
+      const doc = JSON.parse(netlistJson(b.build, { placement: b.placement, profile: b.profile })) as {
+        version: number;
+        frame: { drums: { drum: number; lengthM: number }[]; totalCordM: number; baselineCordM: number };
+        parts: {
+          id: string;
+          kind: string;
+          drum?: number;
+          bay?: number;
+          bays?: number[];
+          xM?: number;
+          fixed?: number;
+        }[];
+        cords: {
+          id: string;
+          ports: unknown[];
+          actuators: unknown[];
+          cutM: number;
+          branches: { lengthM: number; pulleys: number }[];
+        }[];
+      };
+      expect(schemaProblems(schema, doc), name).toEqual([]);
+      expect(doc.version).toBe(2);
+      expect(doc.frame.drums.length).toBe(b.placement.drums.length);
+      expect(doc.frame.totalCordM).toBeLessThanOrEqual(doc.frame.baselineCordM);
+      const at = new Map(b.placement.bays.map((x) => [x.part, x]));
+      for (const p of doc.parts) {
+        if (p.kind === 'gate' || p.kind === 'lever' || (p.kind === 'actuator' && p.fixed === undefined)) {
+          expect([p.drum, p.bay], `${name} ${p.id}`).toEqual([at.get(p.id)?.drum, at.get(p.id)?.bay]);
+          expect(p.xM, `${name} ${p.id}`).toBeCloseTo(at.get(p.id)?.xM ?? NaN, 4);
+        }
+        if (p.kind === 'latch') expect(p.bays?.length, `${name} ${p.id}`).toBe(2);
+      }
+      for (const c of doc.cords) {
+        expect(c.branches.length, `${name} ${c.id}`).toBe(c.ports.length + c.actuators.length);
+        for (const br of c.branches) expect(br.lengthM).toBeGreaterThan(0);
+      }
+    }
+  });
 });

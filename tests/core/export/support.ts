@@ -6,7 +6,6 @@
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import { analyse, buildMachine, type Built } from '../../../src/core/pipeline.js';
-import type { Build } from '../../../src/core/model/build.js';
 import type { FlatMachine } from '../../../src/core/model/flat.js';
 
 const EXAMPLES = new URL('../../../examples/', import.meta.url);
@@ -218,17 +217,18 @@ export const EVIL = {
 
 /**
  * The marble bell build with its machine name, input, output and one state renamed to EVIL
- * names everywhere (machine, netlist ids and names, signal map, equations' variables): the
- * build is serialised, the names are replaced, and it is read back, so it stays consistent.
+ * names everywhere (machine, netlist ids and names, signal map, equations' variables, and the
+ * placement's part ids and routes): the build and its placement are serialised, the names are
+ * replaced, and they are read back, so they stay consistent.
  */
 export function evilBuild(): Built {
   const b = example('marble-bell.lw');
-  const json = JSON.stringify(b.build)
+  const json = JSON.stringify({ build: b.build, placement: b.placement })
     .replaceAll('marble_bell', '\u0001')
     .replaceAll('marble', JSON.stringify(EVIL.input).slice(1, -1))
     .replaceAll('bell', JSON.stringify(EVIL.output).slice(1, -1))
     .replaceAll('"rung"', JSON.stringify(EVIL.state))
     .replaceAll('\u0001', JSON.stringify(EVIL.machine).slice(1, -1));
-  const build = JSON.parse(json) as Build;
-  return { ...b, build };
+  const { build, placement } = JSON.parse(json) as Pick<Built, 'build' | 'placement'>;
+  return { ...b, build, placement };
 }

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { CHECKS } from '../../../src/core/checks/registry.js';
 import type { Build } from '../../../src/core/model/build.js';
 import { seededRandom } from '../../../src/core/model/random.js';
+import { place } from '../../../src/core/phases/place/index.js';
 import { checkDrive } from '../../../src/core/physics/check-drive.js';
 import type { DriveSnapshot, SnapshotOutputs } from '../../../src/core/physics/drum.js';
 import { inputAssignments, machineInputs } from '../../../src/core/sim/assignments.js';
@@ -109,12 +110,24 @@ describe('core/sim/snapshots, streamed', () => {
     const { build, spec } = exampleBuild('sequence-lock');
     const entry = CHECKS.find((c) => c.name === 'drive');
     if (!entry) throw new Error('the drive check is registered');
-    const r = entry.run({ build, spec, profile: DEFAULT_PROFILE, seed: 1 });
+    const r = entry.run({
+      build,
+      spec,
+      profile: DEFAULT_PROFILE,
+      seed: 1,
+      placement: place(build.netlist, DEFAULT_PROFILE),
+    });
     expect(r.torqueOver).toMatchObject({ inputs: 'exhaustive', seed: 1 });
     expect(r.summary).not.toContain('sampled');
     // 17 inputs: past the exhaustive bound of sim/assignments.ts, so the combinations are sampled.
     const wide = randomBuild(3, 17, 1, 5);
-    const w = entry.run({ build: wide, spec: {}, profile: DEFAULT_PROFILE, seed: 2 });
+    const w = entry.run({
+      build: wide,
+      spec: {},
+      profile: DEFAULT_PROFILE,
+      seed: 2,
+      placement: place(wide.netlist, DEFAULT_PROFILE, { seed: 2 }),
+    });
     expect(w.torqueOver).toMatchObject({ inputs: 'sampled', seed: 2 });
     expect(w.summary).toMatch(/drum torque over \d+ sampled start points \(state × inputs, seed 2\), not every one$/);
   });

@@ -4,7 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { strFromU8, unzipSync } from 'fflate';
 import { analyse, buildMachine } from '../../../src/core/pipeline.js';
 import { buildDocuments, DOCUMENT_REGISTRY } from '../../../src/core/export/index.js';
-import { documentsZip, exportFile, printSheet } from '../../../src/web/worker/exports.js';
+import { documentsZip, exportFile, HAS_DRAWING, printSheet } from '../../../src/web/worker/exports.js';
 import { fileName } from '../../../src/web/worker/documents.js';
 import { ALL_DOCUMENTS, PRINT_SHEET, type ExportFile } from '../../../src/web/worker/protocol.js';
 
@@ -57,8 +57,9 @@ describe('src/web/worker/exports', () => {
     const sheet = buildDocuments(b).get('build-sheet.html') ?? '';
     const printed = textOf(exportFile(b, PRINT_SHEET));
     expect(printed).toBe(printSheet(b));
-    expect(printed.match(/<svg[\s>]/g)?.length ?? 0).toBeGreaterThanOrEqual(2);
-    if (/<svg[\s>]/.test(sheet)) expect(printed).toBe(sheet);
+    const drawings = new RegExp(HAS_DRAWING.source, 'g');
+    expect(printed.match(drawings)?.length ?? 0).toBeGreaterThanOrEqual(2);
+    if (HAS_DRAWING.test(sheet)) expect(printed).toBe(sheet);
     else {
       expect(printed).toContain('<section id="drawings">');
       expect(printed).not.toContain('<?xml');

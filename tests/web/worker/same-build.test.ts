@@ -33,13 +33,17 @@ describe('src/web/worker (the same build as the command line)', () => {
       if (!a) throw new Error(`${name} must read`);
       const b = buildJob(a, DEFAULT_SETTINGS);
       if (!b.built || !b.view) throw new Error(`${name} must build in the worker`);
-      expect(netlistJson(b.view.build)).toBe(readFileSync(join(dir, 'netlist.json'), 'utf8'));
+      // netlist.json carries the frame too: every part's bay, every branch's run and length.
+      const frame = { placement: b.view.placement, profile: b.view.profile };
+      expect(netlistJson(b.view.build, frame)).toBe(readFileSync(join(dir, 'netlist.json'), 'utf8'));
       // The checker builds again with the codes the builder chose: still the same machine.
       const again = buildJob(a, {
         ...DEFAULT_SETTINGS,
         encoding: { kept: b.view.build.encoding, states: b.view.build.machine.states },
       });
-      expect(again.view && netlistJson(again.view.build)).toBe(netlistJson(b.view.build));
+      expect(
+        again.view && netlistJson(again.view.build, { placement: again.view.placement, profile: again.view.profile }),
+      ).toBe(netlistJson(b.view.build, frame));
       const checks = checkJob(b.built, DEFAULT_SETTINGS.seed).view.checks;
       expect(
         checks.every((c) => c.ok) ? 0 : 1,

@@ -18,8 +18,11 @@ import type { Bay, FrameUnits } from './units.js';
 
 /** Rounds of solving the drums in turn against each other (all but the last without kicks). */
 const ROUNDS = 2;
-/** Fewest kicks a drum's local search gets however many drums there are. */
-const MIN_KICKS = 8;
+/**
+ * Fewest kicks a drum's local search gets however many drums there are. Measured on s298
+ * (84 drums): 3 rather than 8 saves a sixth of the placement's time and costs 0.01 % of cord.
+ */
+const MIN_KICKS = 3;
 
 export type DrumMethod = 'exact' | 'heuristic' | 'netlist';
 

@@ -31,7 +31,7 @@ import { DEFAULT_IMPROVE, type ImproveOptions } from './improve.js';
 import { checkPins, type Pin, type PlacementProblem } from './pins.js';
 import { frameUnits, type FrameUnits } from './units.js';
 
-export type { Pin, PlacementProblem } from './pins.js';
+export { pinDiagnostics, type Pin, type PlacementProblem } from './pins.js';
 export { frameUnits, type FrameUnits } from './units.js';
 export { auditPlacement, type AuditFinding } from './audit.js';
 
@@ -100,6 +100,8 @@ export interface Placement extends FrameLayout {
   readonly longestDrumM: number;
   readonly drumsAllowed: number;
   readonly seed: number;
+  /** Bays' parts the user pinned and the placement kept there (a pinned latch: both its gates). */
+  readonly pinned: readonly string[];
   readonly problems: readonly PlacementProblem[];
 }
 
@@ -146,7 +148,24 @@ export function place(netlist: Netlist, profile: Profile, opts: PlaceOptions = {
   problems.push(...best.pinProblems);
   for (const d of best.unmet) problems.push(...pins.unmetOn(d));
   problems.push(...limitProblems(fu, best, profile));
-  return output(netlist, fu, best, baseline, profile, seed, problems);
+  const pinned = keptPins(netlist, opts.pins ?? {}, problems);
+  return { ...output(netlist, fu, best, baseline, profile, seed, problems), pinned };
+}
+
+/** The bays' parts of every pin that came through without a problem. */
+function keptPins(
+  netlist: Netlist,
+  pins: Readonly<Record<string, Pin>>,
+  problems: readonly PlacementProblem[],
+): string[] {
+  const dropped = new Set(problems.flatMap((p) => ('part' in p ? [p.part] : [])));
+  const parts = new Map(netlist.parts.map((p) => [p.id, p]));
+  return Object.keys(pins)
+    .filter((id) => !dropped.has(id))
+    .flatMap((id) => {
+      const p = parts.get(id);
+      return p?.kind === 'latch' ? [p.setGate, p.resetGate] : [id];
+    });
 }
 
 /** Drums by width and pins; the split retried with one more drum while a drum is still too long. */
@@ -239,7 +258,7 @@ function output(
   profile: Profile,
   seed: number,
   problems: readonly PlacementProblem[],
-): Placement {
+): Omit<Placement, 'pinned'> {
   const f = profile.frame;
   const { bays } = layoutOf(fu, best.at);
   const byPart = new Map(bays.map((b) => [b.part, b]));

@@ -3,10 +3,11 @@
  * A pin wins over the end rules. A latch's id pins its set side to the bay and its reset side
  * to the next one; a latch gate's id pins that gate alone. Every pin that cannot be kept is
  * reported, with what to change, and dropped: an unknown part (with a did-you-mean), a part
- * that takes no bay (a flag), a bay or drum out of range, two pins on one bay, or pins that
- * no order can meet together.
+ * that takes no bay (a flag), a bay or drum out of range, two pins on one bay (these four are
+ * wrong whatever the build), a bay past the last one its drum has in this build, or pins that
+ * no order can meet together (these two depend on the build).
  */
-import { didYouMean } from '../../model/diagnostics.js';
+import { diag, didYouMean, type Diagnostic } from '../../model/diagnostics.js';
 import type { Netlist, Part } from '../../model/netlist.js';
 import type { FrameUnits } from './units.js';
 
@@ -27,6 +28,14 @@ export type PlacementProblem = { readonly message: string; readonly hint?: strin
       readonly other: string;
       readonly drum: number;
       readonly bay: number;
+    }
+  | {
+      readonly kind: 'pin-beyond-drum';
+      readonly part: string;
+      readonly drum: number;
+      readonly bay: number;
+      /** Bays the drum has in this build. */
+      readonly bays: number;
     }
   | { readonly kind: 'pin-unmet'; readonly part: string; readonly drum: number; readonly bay: number }
   | { readonly kind: 'bay-too-wide'; readonly part: string; readonly widthM: number; readonly longestM: number }
@@ -174,13 +183,26 @@ function inRange(
     if (k.drum < drums && k.index < count[k.drum]) pins.set(k.bay, { drum: k.drum, index: k.index });
     else
       problems.push({
-        kind: 'pin-out-of-range',
+        kind: 'pin-beyond-drum',
         part: k.part,
         drum: k.drum + 1,
         bay: k.index + 1,
+        bays: count[k.drum] ?? 0,
         message: `'${k.part}' is pinned to bay ${k.index + 1} of drum ${k.drum + 1}, which has ${count[k.drum] ?? 0} bays`,
         hint: `pin it to a bay from 1 to ${count[k.drum] ?? 0}`,
       });
   }
   return { pins, problems };
+}
+
+/** Pin problems as diagnostics: LW707 for a pin that is wrong whatever the build, LW708 for one this build could not keep. */
+export function pinDiagnostics(problems: readonly PlacementProblem[]): Diagnostic[] {
+  const out: Diagnostic[] = [];
+  for (const p of problems) {
+    if (p.kind === 'pin-unmet' || p.kind === 'pin-beyond-drum')
+      out.push(diag('LW708', p.message, { path: `--pin ${p.part}` }, p.hint));
+    else if (p.kind.startsWith('pin-') && 'part' in p)
+      out.push(diag('LW707', p.message, { path: `--pin ${p.part}` }, p.hint));
+  }
+  return out;
 }

@@ -7,8 +7,10 @@
  *   on the drum below;
  * - an operator, clock or reset lever's bay holds the lever and its capstan;
  * - an actuator's bay holds the exit pulley its cord leaves the frame by.
- * Bay width = max(levers × lever pitch, wraps × wrap pitch + clearance); an exit bay is
- * max(lever pitch, pulley diameter + clearance). A latch is one unit: its two gates in
+ * Bay width = max(levers × lever pitch, wraps × wrap pitch + clearance), with the capstan's own
+ * turns (a gate's `wraps` where it has them, physics/capstan.ts); a part that pulls no cord has
+ * no capstan, and its bay is as wide as its levers. An exit bay is max(lever pitch, pulley
+ * diameter + clearance). A latch is one unit: its two gates in
  * neighbouring bays, in either order. Operator levers and actuator exits belong at the visitor
  * end (zone 0), clock and reset levers at the crank end (zone 2), the rest anywhere (zone 1).
  * Flags ride on their gate's Z lever and take no bay.
@@ -18,6 +20,7 @@
  * in the netlist: that order is the baseline every method is measured against.
  */
 import type { Netlist, Part } from '../../model/netlist.js';
+import { wrapsOf } from '../../physics/capstan.js';
 import type { Profile } from '../../physics/profile.js';
 import type { Zone } from './problem.js';
 
@@ -78,7 +81,9 @@ function zoneOf(p: Part): Zone {
 /** Bays, units and branches of a netlist under a profile's geometry. */
 export function frameUnits(netlist: Netlist, profile: Profile): FrameUnits {
   const f = profile.frame;
-  const capstan = profile.wraps * profile.wrapPitchM + f.bayClearanceM;
+  const drivers = new Set(netlist.cords.map((c) => c.driver));
+  const capstan = (part: Part): number =>
+    drivers.has(part.id) ? wrapsOf(part, profile) * profile.wrapPitchM + f.bayClearanceM : 0;
   const bays: Bay[] = [];
   const units: Unit[] = [];
   const bayOf = new Map<string, number>();
@@ -89,7 +94,7 @@ export function frameUnits(netlist: Netlist, profile: Profile): FrameUnits {
     const widthM =
       part.kind === 'actuator'
         ? Math.max(f.leverPitchM, f.pulleyDiameterM + f.bayClearanceM)
-        : Math.max(levers.length * f.leverPitchM, capstan);
+        : Math.max(levers.length * f.leverPitchM, capstan(part));
     const kind = part.kind === 'gate' ? 'gate' : part.kind === 'lever' ? 'lever' : 'actuator';
     bays.push({ part: part.id, kind, widthM, levers, unit });
     bayOf.set(part.id, bays.length - 1);

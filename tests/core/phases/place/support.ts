@@ -110,14 +110,19 @@ interface BruteBay {
 
 function bruteBays(n: Netlist, profile: Profile): BruteBay[] {
   const f = profile.frame;
-  const capstan = profile.wraps * profile.wrapPitchM + f.bayClearanceM;
+  // A capstan's own turns (a gate's `wraps`, else the profile's); a part that pulls no cord has none.
+  const drivers = new Set(n.cords.map((c) => c.driver));
+  const capstanOf = (p: Part): number =>
+    drivers.has(p.id)
+      ? (p.kind === 'gate' && p.wraps !== undefined ? p.wraps : profile.wraps) * profile.wrapPitchM + f.bayClearanceM
+      : 0;
   const out: BruteBay[] = [];
   for (const p of n.parts) {
     if (p.kind === 'gate') {
       const levers = p.ports.length === 1 ? [p.ports[0].name] : [...p.ports.map((x) => x.name), 'Z'];
       out.push({
         part: p.id,
-        width: Math.max(levers.length * f.leverPitchM, capstan),
+        width: Math.max(levers.length * f.leverPitchM, capstanOf(p)),
         levers,
         latch: p.latch,
         zone: 1,
@@ -125,7 +130,7 @@ function bruteBays(n: Netlist, profile: Profile): BruteBay[] {
     } else if (p.kind === 'lever')
       out.push({
         part: p.id,
-        width: Math.max(f.leverPitchM, capstan),
+        width: Math.max(f.leverPitchM, capstanOf(p)),
         levers: ['lever'],
         zone: p.role === 'input' ? 0 : 2,
       });

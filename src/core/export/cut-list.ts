@@ -1,0 +1,217 @@
+/**
+ * cut-list.csv: what the workshop cuts and weighs, from the placed and routed build — every
+ * cord piece with its cut length, every lever blank, each drum's length and diameter, the
+ * pulleys or pins, the weights, and the cam discs.
+ *
+ * Cord pieces (physics/routing.ts): a cord is cut as its trunk — from its hold lever down to
+ * the drum, its wraps, and a knot — and one piece per branch, tied to the trunk at the knot
+ * where the cord leaves the drum; a branch's length is its runs plus a knot allowance at each
+ * end plus the take-up allowance. The cord's total is trunk plus branches. Cords are listed by
+ * where their capstan sits, drum by drum from the visitor end. Lengths in metres to the
+ * millimetre, rounded up so that no piece is cut short.
+ * The safety cautions come first (as in every document), then the rows; every cell goes through
+ * csv.ts (RFC 4180, spreadsheet formula injection escaped).
+ */
+import type { Build } from '../model/build.js';
+import type { Netlist } from '../model/netlist.js';
+import type { Placement } from '../phases/place/index.js';
+import { wrapsOf } from '../physics/capstan.js';
+import type { Profile } from '../physics/profile.js';
+import { CAUTIONS } from './build-sheet.js';
+import { toCsv, type CsvCell } from './csv.js';
+import { partWords } from './part-words.js';
+
+/** One line of the cut list. */
+export interface CutRow {
+  /** What kind of thing: caution, cord, lever blank, drum, pulley, pin, weight, cam. */
+  readonly group: string;
+  /** The cord, drum or part kind. */
+  readonly item: string;
+  /** Which piece: `trunk`, `branch to <target>`, `whole cord`, or a size class. */
+  readonly piece: string;
+  readonly count: number | '';
+  /** Cut length of one piece, metres ('' where it has none). */
+  readonly lengthM: number | '';
+  /** Size in words: diameter, section, mass. */
+  readonly size: string;
+  /** Where it goes: `bay 7, drum 1 → bay 12, drum 1`. */
+  readonly where: string;
+  readonly note: string;
+}
+
+const HEADER = ['group', 'item', 'piece', 'count', 'length (m)', 'size', 'where', 'note'];
+
+/** Metres rounded up to the millimetre (never cut short). */
+export function cutMetres(m: number): number {
+  return Math.ceil(m * 1000 - 1e-6) / 1000;
+}
+
+const mm = (m: number): string => `${Math.round(m * 1000)} mm`;
+
+/** Every row of the cut list, cautions first. */
+export function cutListRows(build: Build, placement: Placement, profile: Profile): CutRow[] {
+  const rows: CutRow[] = CAUTIONS.map((c) => ({
+    group: 'caution',
+    item: '',
+    piece: '',
+    count: '',
+    lengthM: '',
+    size: '',
+    where: '',
+    note: c,
+  }));
+  rows.push(...cordRows(build, placement, profile));
+  rows.push(...leverRows(build.netlist, profile));
+  rows.push(...frameRows(build, placement, profile));
+  return rows;
+}
+
+function cordRows(build: Build, placement: Placement, profile: Profile): CutRow[] {
+  const at = new Map(placement.bays.map((b) => [b.part, b]));
+  const where = (part: string): string => {
+    const b = at.get(part);
+    return b ? `bay ${b.bay}, drum ${b.drum}` : '';
+  };
+  const words = partWords(build);
+  const order = [...placement.routing.cords].sort((a, b) => {
+    const x = at.get(a.driver);
+    const y = at.get(b.driver);
+    return (x?.drum ?? 0) - (y?.drum ?? 0) || (x?.bay ?? 0) - (y?.bay ?? 0) || (a.cord < b.cord ? -1 : 1);
+  });
+  const parts = new Map(build.netlist.parts.map((p) => [p.id, p]));
+  const rows: CutRow[] = [];
+  const d = Math.round(profile.frame.cordDiameterM * 1000 * 10) / 10;
+  for (const c of order) {
+    const base = { group: 'cord', item: c.cord, size: `${d} mm cord` };
+    rows.push({
+      ...base,
+      piece: 'trunk',
+      count: 1,
+      lengthM: cutMetres(c.trunkM),
+      where: where(c.driver),
+      note: `hold lever down to the drum, ${wrapsOf(parts.get(c.driver), profile)} turns and a knot; capstan of ${words.get(c.driver) ?? c.driver}`,
+    });
+    for (const b of c.branches) {
+      const turns = [
+        ...(b.pulleys > 0 ? [`${b.pulleys} ${b.pulleys === 1 ? 'pulley' : 'pulleys'}`] : []),
+        ...(b.pins.length > 0 ? [`${b.pins.length} ${b.pins.length === 1 ? 'pin' : 'pins'}`] : []),
+      ];
+      rows.push({
+        ...base,
+        piece: `branch to ${b.target}`,
+        count: 1,
+        lengthM: cutMetres(b.lengthM),
+        where: `${where(c.driver)} → ${where(b.part)}`,
+        note: [b.runs.length === 1 ? 'rises straight to its lever' : 'down to the channel, along, up', ...turns].join(
+          '; ',
+        ),
+      });
+    }
+    rows.push({
+      ...base,
+      piece: 'whole cord',
+      count: '',
+      lengthM: cutMetres(c.cutM),
+      where: '',
+      note: `trunk and ${c.branches.length} ${c.branches.length === 1 ? 'branch' : 'branches'}`,
+    });
+  }
+  return rows;
+}
+
+function leverRows(n: Netlist, profile: Profile): CutRow[] {
+  const f = profile.frame;
+  const size = `${mm(f.leverLengthM)} × ${mm(f.leverThicknessM)} blank`;
+  const levers = n.parts.flatMap((p) => (p.kind === 'lever' ? [p] : []));
+  const gates = n.parts.flatMap((p) => (p.kind === 'gate' ? [p] : []));
+  const kinds: [string, number, string][] = [
+    ['operator lever', levers.filter((l) => l.role === 'input').length, 'one per machine input'],
+    ['clock lever', levers.filter((l) => l.role === 'phi1' || l.role === 'phi2').length, 'φ1 and φ2'],
+    ['reset lever', levers.filter((l) => l.role === 'reset').length, ''],
+    ['summing lever Z', gates.length, 'one per gate'],
+    [
+      'port lever',
+      gates.reduce((s, g) => s + (g.ports.length > 1 ? g.ports.length : 0), 0),
+      'gates with two or more ports',
+    ],
+  ];
+  return kinds
+    .filter(([, count]) => count > 0)
+    .map(([piece, count, note]) => ({
+      group: 'lever blank',
+      item: 'lever',
+      piece,
+      count,
+      lengthM: f.leverLengthM,
+      size,
+      where: 'the frame drawing and the commissioning sheet give each one’s bay',
+      note,
+    }));
+}
+
+function frameRows(build: Build, placement: Placement, profile: Profile): CutRow[] {
+  const f = profile.frame;
+  const rows: CutRow[] = placement.drums.map((d) => ({
+    group: 'drum',
+    item: `drum ${d.drum}`,
+    piece: '',
+    count: 1,
+    lengthM: cutMetres(d.lengthM),
+    size: `Ø ${mm(2 * profile.drumRadiusM)}`,
+    where: d.drum === 1 ? 'lowest' : `axis ${d.levelM.toFixed(2)} m above drum 1's`,
+    note: `${d.bays.length} bays; add bearings and the drive beyond this length`,
+  }));
+  const r = placement.routing;
+  if (r.pulleys > 0)
+    rows.push({
+      group: 'pulley',
+      item: 'pulley',
+      piece: '',
+      count: r.pulleys,
+      lengthM: '',
+      size: `Ø ${mm(f.pulleyDiameterM)}`,
+      where: 'at every turn of a branch (cut-list rows above)',
+      note: `bend radius ${r.bend.ok ? 'at least' : 'LESS than'} 4 × the cord diameter`,
+    });
+  if (r.pins > 0)
+    rows.push({
+      group: 'pin',
+      item: 'redirect pin',
+      piece: '',
+      count: r.pins,
+      lengthM: '',
+      size: `Ø ${mm(f.pulleyDiameterM)}`,
+      where: 'at every turn over a pin',
+      note: 'smooth and fixed',
+    });
+  const gates = build.netlist.parts.filter((p) => p.kind === 'gate');
+  const ports = gates.reduce((s, g) => s + (g.kind === 'gate' && g.ports.length > 1 ? g.ports.length : 0), 0);
+  const levers = build.netlist.parts.filter((p) => p.kind === 'lever').length;
+  const weights: [string, number, number][] = [
+    ['port pull-up weight', ports, profile.portWeightG],
+    ['Z weight', gates.length, profile.zWeightG],
+    ['lever pull-up weight', levers, profile.leverWeightG],
+  ];
+  for (const [piece, count, g] of weights)
+    if (count > 0)
+      rows.push({ group: 'weight', item: 'weight', piece, count, lengthM: '', size: `${g} g`, where: '', note: '' });
+  if (build.encoding.bits > 0)
+    rows.push({
+      group: 'cam',
+      item: 'cam disc',
+      piece: 'φ1 and φ2',
+      count: 2,
+      lengthM: '',
+      size: `Ø ${mm(2 * (f.camBaseRadiusM + f.camLiftM))}`,
+      where: 'on the cam shaft at the crank end',
+      note: 'cut from cams.svg printed at 100 %',
+    });
+  return rows;
+}
+
+/** The cut list as CSV with a header line. */
+export function cutListCsv(rows: readonly CutRow[]): string {
+  const cells: CsvCell[][] = [HEADER];
+  for (const r of rows) cells.push([r.group, r.item, r.piece, r.count, r.lengthM, r.size, r.where, r.note]);
+  return toCsv(cells);
+}

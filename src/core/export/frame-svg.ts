@@ -1,0 +1,540 @@
+/**
+ * frame.svg: the front elevation of the frame, to scale — drums, bays (numbered and labelled
+ * with what each does), lever ends on the pivot rail, capstan wraps, every cord run with its
+ * pulleys or pins, drum lengths and heights, a scale bar, and a key of every bay.
+ *
+ * Geometry: every position and length comes from the placement and its routing (phases/place,
+ * physics/routing.ts) and the profile's frame fields; one scale (1:s, the smallest of the usual
+ * drawing scales that fits the longest drum into MAX_WIDTH_MM and the stack of drums, channel
+ * to lever ends, into MAX_HEIGHT_MM) maps metres to millimetres on paper, and the SVG's width
+ * and height are in millimetres, so a print at 100 % is to scale; the title names the smallest
+ * ISO 216 sheet that holds the whole drawing at that size.
+ * Two drawing conventions, said on the drawing: runs along a cord channel, which all lie at
+ * the channel's level, are drawn apart in lanes below it so each can be followed (lanes by the
+ * left-edge algorithm: A. Hashimoto & J. Stevens, "Wire routing by optimizing channel
+ * assignment within large apertures", 8th Design Automation Workshop, 1971 — from memory);
+ * a lever is shown as the end of its blank, LEVER_END_M tall. Cords are coloured from the
+ * palette of M. Okabe & K. Ito, "Color Universal Design" (2008), which colour-blind readers
+ * can tell apart. Labels too long for the space between two drums are cut short; the key
+ * under the drawing has every bay's words in full.
+ * Pure; every user-given name is escaped (svg.ts, escape.ts).
+ */
+import type { Build } from '../model/build.js';
+import type { Part } from '../model/netlist.js';
+import { wrapsOf } from '../physics/capstan.js';
+import type { Placement, PlacedBayInfo, PlacedDrum } from '../phases/place/index.js';
+import type { Profile } from '../physics/profile.js';
+import type { BranchRoute, RoutePoint } from '../physics/routing.js';
+import { escapeXml as x } from './escape.js';
+import { partWords } from './part-words.js';
+import { clip, round1 as r1, svgDocument, svgText } from './svg.js';
+
+/** Usual drawing scales, 1:s. */
+const SCALES = [1, 2, 5, 10, 20, 25, 50, 100, 200, 500, 1000];
+/** Widest elevation on paper, mm (an A4 sheet in landscape holds 269 mm inside 14 mm margins). */
+export const MAX_WIDTH_MM = 250;
+/** Tallest elevation on paper, mm, from the lowest cord channel to the highest lever end (labels and key apart). */
+export const MAX_HEIGHT_MM = 200;
+/** ISO 216 A-series sheets, portrait width × height in mm. */
+const SHEETS: readonly (readonly [string, number, number])[] = [
+  ['A4', 210, 297],
+  ['A3', 297, 420],
+  ['A2', 420, 594],
+  ['A1', 594, 841],
+  ['A0', 841, 1189],
+];
+const MARGIN = 10;
+const FONT = 2.2;
+const GLYPH = 0.56;
+/** Height of a lever's end shown above the rail (a drawing convention, not a dimension). */
+const LEVER_END_M = 0.05;
+/** Okabe–Ito colours without the yellow, too pale on white. */
+const PALETTE = ['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69F00', '#56B4E9', '#000000'];
+
+/** The drawing scale 1:s for a frame `lengthM` long and `heightM` high (lowest channel to highest lever end). */
+export function frameScale(lengthM: number, heightM = 0): number {
+  const fits = (s: number): boolean => (lengthM * 1000) / s <= MAX_WIDTH_MM && (heightM * 1000) / s <= MAX_HEIGHT_MM;
+  return (
+    SCALES.find(fits) ??
+    Math.max(Math.ceil((lengthM * 1000) / MAX_WIDTH_MM), Math.ceil((heightM * 1000) / MAX_HEIGHT_MM))
+  );
+}
+
+/** The smallest ISO 216 sheet that holds a drawing `w` × `h` mm at 100 %, and which way up ('' past A0): 'A3 sheet, portrait,'. */
+export function paperFor(w: number, h: number): string {
+  for (const [name, a, b] of SHEETS) {
+    if (w <= a && h <= b) return `${name} sheet, portrait,`;
+    if (w <= b && h <= a) return `${name} sheet, landscape,`;
+  }
+  return '';
+}
+
+/** A channel run of one branch and its lane. */
+interface Lane {
+  readonly branch: BranchRoute;
+  readonly channelY: number;
+  readonly lane: number;
+}
+
+/** Lanes per channel by the left-edge algorithm: runs sorted by their left end, each in the first lane free there. */
+function assignLanes(branches: readonly BranchRoute[]): { lanes: Map<BranchRoute, Lane>; count: Map<number, number> } {
+  const byChannel = new Map<number, { b: BranchRoute; lo: number; hi: number }[]>();
+  for (const b of branches) {
+    const run = b.runs.find((r) => r.kind === 'channel');
+    if (!run) continue;
+    const y = run.from.yM;
+    const list = byChannel.get(y) ?? [];
+    list.push({ b, lo: Math.min(run.from.xM, run.to.xM), hi: Math.max(run.from.xM, run.to.xM) });
+    byChannel.set(y, list);
+  }
+  const lanes = new Map<BranchRoute, Lane>();
+  const count = new Map<number, number>();
+  for (const [y, list] of byChannel) {
+    list.sort((a, b) => a.lo - b.lo || a.hi - b.hi);
+    const ends: number[] = [];
+    for (const it of list) {
+      let k = ends.findIndex((e) => e < it.lo - 1e-9);
+      if (k === -1) k = ends.push(it.hi) - 1;
+      else ends[k] = it.hi;
+      lanes.set(it.b, { branch: it.b, channelY: y, lane: k });
+    }
+    count.set(y, ends.length);
+  }
+  return { lanes, count };
+}
+
+interface Sheet {
+  readonly k: number;
+  readonly scale: number;
+  readonly originY: number;
+  readonly laneMm: number;
+  /** Depth below a channel's level of its first lane, mm (clear of the pulleys drawn there). */
+  readonly laneStart: number;
+  X(m: number): number;
+  Y(m: number): number;
+}
+
+const STYLE = `
+.page { fill: #ffffff; }
+text { stroke: none; }
+.title { font: 600 4px system-ui, sans-serif; fill: #1d2327; }
+.sub { font: 2.6px system-ui, sans-serif; fill: #3c4240; }
+.drum { fill: #e9dcc4; stroke: #6b5a3c; stroke-width: 0.3; }
+.wraps { fill: url(#wrap-hatch); stroke: #6b5a3c; stroke-width: 0.2; }
+.rail { stroke: #4a4f4c; stroke-width: 0.6; }
+.bay { stroke: #9aa19d; stroke-width: 0.15; stroke-dasharray: 0.8 0.8; }
+.lever { fill: #cfd8d3; stroke: #2f3532; stroke-width: 0.15; }
+.lever.z { fill: #7d8a84; }
+.lever.hand { fill: #f2c14e; }
+.pivot { fill: #1d2327; }
+.cord { fill: none; stroke-width: 0.3; stroke-linejoin: round; }
+.pulley { fill: #ffffff; stroke: #2f3532; stroke-width: 0.2; }
+.pin { fill: #2f3532; }
+.label { font: ${FONT}px system-ui, sans-serif; fill: #1d2327; }
+.bayno { font: 600 ${FONT}px system-ui, sans-serif; fill: #2c4a5a; }
+.dim { stroke: #2c4a5a; stroke-width: 0.2; fill: none; }
+.dimtext { font: 2.4px system-ui, sans-serif; fill: #2c4a5a; }
+.key { font: 2.2px system-ui, sans-serif; fill: #1d2327; }
+.keyid { font: 2.1px ui-monospace, Menlo, Consolas, monospace; fill: #3c4240; }
+.bar-a { fill: #1d2327; }
+.bar-b { fill: #ffffff; stroke: #1d2327; stroke-width: 0.2; }
+.note { font: 2.3px system-ui, sans-serif; fill: #3c4240; }
+.caution { font: 600 2.4px system-ui, sans-serif; fill: #8a5a00; }
+`;
+
+const DEFS =
+  '<defs><pattern id="wrap-hatch" width="1.2" height="1.2" patternUnits="userSpaceOnUse" patternTransform="rotate(60)">' +
+  '<rect width="1.2" height="1.2" fill="#c9b48f" /><line x1="0" y1="0" x2="0" y2="1.2" stroke="#6b5a3c" stroke-width="0.35" /></pattern>' +
+  '<marker id="arrow" viewBox="0 0 6 6" refX="5" refY="3" markerWidth="3" markerHeight="3" orient="auto"><path d="M0,0 L6,3 L0,6 z" fill="#2c4a5a" /></marker></defs>';
+
+const m = (v: number): string => `${v.toFixed(2)} m`;
+const line = (x1: number, y1: number, x2: number, y2: number, cls: string, extra = ''): string =>
+  `<line x1="${r1(x1)}" y1="${r1(y1)}" x2="${r1(x2)}" y2="${r1(y2)}" class="${cls}"${extra} />`;
+const rect = (x0: number, y0: number, w: number, h: number, cls: string): string =>
+  `<rect x="${r1(x0)}" y="${r1(y0)}" width="${r1(w)}" height="${r1(h)}" class="${cls}" />`;
+/** Coordinates to 0.01 mm: the geometry of the drawing, read back by tests. */
+const r2 = (v: number): string => String(Math.round(v * 100) / 100);
+
+/** Text reading upwards from (px, py). */
+function upText(px: number, py: number, text: string, cls: string): string {
+  return `<text x="${r1(px)}" y="${r1(py)}" class="${cls}" transform="rotate(-90 ${r1(px)} ${r1(py)})">${x(text)}</text>`;
+}
+
+/** The frame drawing of a placed build. */
+export function frameSvg(build: Build, placement: Placement, profile: Profile): string {
+  const f = profile.frame;
+  const words = partWords(build);
+  const lengthM = Math.max(0.05, ...placement.drums.map((d) => d.lengthM));
+  const top = placement.drums.length === 0 ? 0 : placement.drums[placement.drums.length - 1].levelM;
+  const worldTop = top + f.railAboveDrumM + LEVER_END_M;
+  const scale = frameScale(lengthM, worldTop + f.channelBelowDrumM);
+  const k = 1000 / scale;
+  const { lanes, count } = assignLanes(placement.routing.branches);
+  const laneMm = Math.min(1.1, 22 / Math.max(1, ...count.values()));
+  const label = (b: PlacedBayInfo): string => `${b.bay} · ${words.get(b.part) ?? b.part}`;
+  const topBays = placement.bays.filter((b) => b.drum === placement.drums.length);
+  const topLabelMm = Math.min(80, Math.max(10, ...topBays.map((b) => label(b).length * FONT * GLYPH))) + 2;
+  const titleMm = 22;
+  const originY = MARGIN + titleMm + topLabelMm + worldTop * k;
+  const sheet: Sheet = {
+    k,
+    scale,
+    originY,
+    laneMm,
+    laneStart: Math.max(0.5, (f.pulleyDiameterM / 2) * k) + 0.6,
+    X: (v) => MARGIN + v * k,
+    Y: (v) => originY - v * k,
+  };
+  const width = Math.max(230, 2 * MARGIN + lengthM * k + 16);
+  const body: string[] = [DEFS];
+  const bayRowY = (d: number): number => {
+    const cy = (d - 1) * f.drumSpacingM - f.channelBelowDrumM;
+    return sheet.Y(cy) + sheet.laneStart + (count.get(cy) ?? 0) * laneMm + FONT + 0.8;
+  };
+  for (const d of placement.drums) {
+    const spaceMm =
+      d.drum === placement.drums.length
+        ? topLabelMm
+        : sheet.Y(d.levelM + f.railAboveDrumM + LEVER_END_M) - 1 - (bayRowY(d.drum + 1) + 1.5);
+    body.push(
+      ...drumBody(sheet, d, placement, profile, {
+        label,
+        spaceMm,
+        bayRowY: bayRowY(d.drum),
+        parts: build.netlist.parts,
+      }),
+    );
+  }
+  const rowUnder = (channelY: number): number =>
+    sheet.Y(channelY) + sheet.laneStart + (count.get(channelY) ?? 0) * laneMm + FONT + 0.8;
+  body.push(...cordRuns(sheet, placement, profile, lanes, rowUnder));
+  const exits = placement.routing.branches.some((b) => b.kind === 'actuator');
+  let y = bayRowY(1) + (exits ? 7.5 : 4);
+  body.push(...endWords(sheet, placement, y));
+  y += 3;
+  const dims = dimensions(sheet, placement, profile, y);
+  body.push(...dims.items);
+  y = dims.bottom + 4;
+  const foot = footer(sheet, placement, profile, width, y);
+  body.push(...foot.items);
+  const key = keyLines(build, placement, words, width, foot.bottom + 4);
+  body.push(...key.items);
+  const height = key.bottom + MARGIN;
+  const head = titleBlock(build, placement, profile, {
+    scale,
+    lengthM,
+    heightM: worldTop + f.channelBelowDrumM,
+    paper: paperFor(width, height),
+  });
+  return svgDocument(
+    width,
+    height,
+    `Frame of ${build.machine.name}, scale 1:${scale}`,
+    `Front elevation of the frame to scale 1:${scale}: ${placement.bays.length} bays on ${placement.drums.length} drum(s), every cord run, pulleys, dimensions and a key of the bays.`,
+    STYLE,
+    [...head, ...body],
+    'mm',
+  );
+}
+
+/** The title, what the drawing shows and at what scale, the overall figures and the drawing conventions. */
+function titleBlock(
+  build: Build,
+  placement: Placement,
+  profile: Profile,
+  size: { scale: number; lengthM: number; heightM: number; paper: string },
+): string[] {
+  const f = profile.frame;
+  const r = profile.drumRadiusM;
+  const { scale, lengthM } = size;
+  const frameHeightM = size.heightM;
+  return [
+    svgText(MARGIN, MARGIN + 4, `Frame — ${build.machine.name}`, 'title', 'start'),
+    svgText(
+      MARGIN,
+      MARGIN + 9,
+      `Front elevation: visitor end on the left, crank end (crank and cam shaft) on the right. Scale 1:${scale} when printed at 100 %${size.paper === '' ? '' : ` on an ${size.paper} or larger`}.`,
+      'sub',
+      'start',
+    ),
+    svgText(
+      MARGIN,
+      MARGIN + 13,
+      `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${r1(2 * r * 1000)} mm, ${placement.drums.map((d) => m(d.lengthM)).join(' and ')} long; overall ${m(lengthM)} × ${m(frameHeightM)}; ${placement.bays.length} bays; ${m(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${placement.pulleys} ${f.turn === 'pin' ? 'pin turns' : `pulley passes (Ø ${r1(f.pulleyDiameterM * 1000)} mm)`}.`,
+      'sub',
+      'start',
+    ),
+    svgText(
+      MARGIN,
+      MARGIN + 17,
+      'Runs along a cord channel all lie at its level; they are drawn apart below it so each can be followed. Levers are shown end on, on the pivot rail.',
+      'note',
+      'start',
+    ),
+  ];
+}
+
+/** One drum: body, capstan wraps, bay lines, rail, lever ends, labels and bay numbers. */
+function drumBody(
+  s: Sheet,
+  d: PlacedDrum,
+  placement: Placement,
+  profile: Profile,
+  text: { label: (b: PlacedBayInfo) => string; spaceMm: number; bayRowY: number; parts: readonly Part[] },
+): string[] {
+  const { drum, levelM: level, lengthM } = d;
+  const { label, spaceMm } = text;
+  const f = profile.frame;
+  const r = profile.drumRadiusM;
+  const out: string[] = [`<g class="drum-${drum}">`];
+  const bays = placement.bays.filter((b) => b.drum === drum);
+  const drivers = new Set(placement.routing.cords.map((c) => c.driver));
+  const parts = new Map(text.parts.map((p) => [p.id, p]));
+  const channelY = level - f.channelBelowDrumM;
+  const railY = level + f.railAboveDrumM;
+  out.push(rect(s.X(0), s.Y(level + r), lengthM * s.k, 2 * r * s.k, 'drum'));
+  for (const b of bays) {
+    if (drivers.has(b.part)) {
+      const w = wrapsOf(parts.get(b.part), profile) * profile.wrapPitchM * s.k;
+      out.push(rect(s.X(b.xM) - w / 2, s.Y(level + r), w, 2 * r * s.k, 'wraps'));
+    }
+    out.push(line(s.X(b.leftM), s.Y(channelY), s.X(b.leftM), s.Y(railY + LEVER_END_M), 'bay'));
+  }
+  out.push(line(s.X(lengthM), s.Y(channelY), s.X(lengthM), s.Y(railY + LEVER_END_M), 'bay'));
+  out.push(line(s.X(0), s.Y(railY), s.X(lengthM), s.Y(railY), 'rail'));
+  const leverW = Math.max(0.4, f.leverThicknessM * s.k);
+  for (const b of bays) {
+    for (const lv of b.levers) {
+      if (lv.name === 'exit') continue;
+      const cls = b.kind === 'lever' ? 'lever hand' : lv.name === 'Z' || b.levers.length === 1 ? 'lever z' : 'lever';
+      out.push(rect(s.X(lv.xM) - leverW / 2, s.Y(railY + LEVER_END_M), leverW, LEVER_END_M * s.k, cls));
+      out.push(`<circle cx="${r1(s.X(lv.xM))}" cy="${r1(s.Y(railY))}" r="0.35" class="pivot" />`);
+    }
+    const chars = Math.max(3, Math.floor(spaceMm / (FONT * GLYPH)));
+    out.push(
+      `<g><title>${x(`drum ${drum}, bay ${b.bay}: ${label(b)} (${b.part})`)}</title>${upText(s.X(b.xM) + FONT * 0.35, s.Y(railY + LEVER_END_M) - 1, clip(label(b), chars), 'label')}</g>`,
+    );
+    out.push(svgText(s.X(b.xM), text.bayRowY, String(b.bay), 'bayno'));
+  }
+  out.push('</g>');
+  return out;
+}
+
+/** Every branch's runs, a cord's branches in one colour, channel runs in their lanes; pulleys or pins at the turns. */
+function cordRuns(
+  s: Sheet,
+  placement: Placement,
+  profile: Profile,
+  lanes: ReadonlyMap<BranchRoute, Lane>,
+  rowUnder: (channelY: number) => number,
+): string[] {
+  const out: string[] = ['<g class="cords">'];
+  const turns = new Map<string, RoutePoint>();
+  /** Cords that leave the frame, by the row under which they are named. */
+  const exits = new Map<number, { x: number; words: string }[]>();
+  const bayOf = new Map(placement.bays.map((b) => [b.part, b.bay]));
+  placement.routing.cords.forEach((c, i) => {
+    const colour = PALETTE[i % PALETTE.length];
+    out.push(`<g class="cord-run" stroke="${colour}"><title>${x(`cord ${c.cord}: cut ${m(c.cutM)}`)}</title>`);
+    for (const b of c.branches) {
+      const lane = lanes.get(b);
+      const pts: { x: number; y: number }[] = [];
+      let exit: { x: number; y: number; row: number } | undefined;
+      for (const run of b.runs) {
+        const at = (p: RoutePoint, inChannel: boolean): { x: number; y: number } => ({
+          x: s.X(p.xM),
+          y: inChannel && lane ? s.Y(p.yM) + s.laneStart + lane.lane * s.laneMm : s.Y(p.yM),
+        });
+        if (run.kind === 'direct') pts.push(at(run.from, false), at(run.to, false));
+        else if (run.kind === 'drop') pts.push(at(run.from, false), at(run.to, true));
+        else if (run.kind === 'channel') pts.push(at(run.to, true));
+        else if (run.kind === 'rise') pts.push(at(run.to, false));
+        else exit = { ...at(run.from, true), row: rowUnder(run.from.yM) };
+        if (run.kind === 'drop' || run.kind === 'rise') {
+          const p = run.kind === 'drop' ? run.to : run.from;
+          turns.set(`${r2(p.xM)}:${r2(p.yM)}`, p);
+        }
+        if (run.kind === 'exit') turns.set(`${r2(run.from.xM)}:${r2(run.from.yM)}`, run.from);
+      }
+      const d = pts.map((p, j) => `${j === 0 ? 'M' : 'L'}${r2(p.x)},${r2(p.y)}`).join(' ');
+      out.push(
+        `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''}`)}</title></path>`,
+      );
+      if (exit) {
+        // Out of the frame: an arrow down to the bay numbers; under them, one line names where each goes.
+        out.push(
+          `<path d="M${r2(exit.x)},${r2(exit.y)} L${r2(exit.x)},${r2(exit.row - FONT - 0.4)}" class="cord" marker-end="url(#arrow)" />`,
+        );
+        const row = exits.get(exit.row) ?? [];
+        row.push({ x: exit.x, words: `bay ${bayOf.get(b.part) ?? '?'} to ${b.target}` });
+        exits.set(exit.row, row);
+      }
+    }
+    out.push('</g>');
+  });
+  for (const [row, list] of exits) {
+    const words = list.map((e) => e.words).join(', ');
+    const first = Math.min(...list.map((e) => e.x));
+    out.push(
+      svgText(
+        first - 1,
+        row + 3.4,
+        `↓ out of the frame, ${m(profile.frame.actuatorRunM)} each: ${words}`,
+        'note',
+        'start',
+      ),
+    );
+  }
+  const radius = profile.frame.turn === 'pulley' ? (profile.frame.pulleyDiameterM / 2) * s.k : 0.5;
+  for (const p of turns.values())
+    out.push(
+      `<circle cx="${r1(s.X(p.xM))}" cy="${r1(s.Y(p.yM))}" r="${r1(Math.max(0.4, radius))}" class="${profile.frame.turn === 'pulley' ? 'pulley' : 'pin'}" />`,
+    );
+  out.push('</g>');
+  return out;
+}
+
+function endWords(s: Sheet, placement: Placement, y: number): string[] {
+  const len = placement.drums[0]?.lengthM ?? 0;
+  return [
+    svgText(s.X(0), y, '◀ visitor end (operator levers)', 'note', 'start'),
+    svgText(s.X(len), y, 'crank end (clock and reset levers, cam shaft) ▶', 'note', 'end'),
+  ];
+}
+
+/** Drum lengths under the drawing; heights at its right. */
+function dimensions(s: Sheet, placement: Placement, profile: Profile, y0: number): { items: string[]; bottom: number } {
+  const f = profile.frame;
+  const out: string[] = [];
+  let y = y0;
+  for (const d of placement.drums) {
+    y += 5;
+    const a = s.X(0);
+    const b = s.X(d.lengthM);
+    out.push(line(a, y, b, y, 'dim', ' marker-start="url(#arrow)" marker-end="url(#arrow)"'));
+    out.push(line(a, y - 2, a, y + 1, 'dim'), line(b, y - 2, b, y + 1, 'dim'));
+    out.push(svgText((a + b) / 2, y - 0.8, `drum ${d.drum}: ${m(d.lengthM)}, ${d.bays.length} bays`, 'dimtext'));
+  }
+  const right = s.X(Math.max(...placement.drums.map((d) => d.lengthM))) + 8;
+  const lowest = s.Y(-f.channelBelowDrumM);
+  const rail1 = s.Y(f.railAboveDrumM);
+  out.push(line(right, lowest, right, rail1, 'dim', ' marker-start="url(#arrow)" marker-end="url(#arrow)"'));
+  out.push(
+    upText(
+      right - 0.8,
+      (lowest + rail1) / 2 + 12,
+      `channel to rail ${m(f.channelBelowDrumM + f.railAboveDrumM)}`,
+      'dimtext',
+    ),
+  );
+  if (placement.drums.length > 1) {
+    const a1 = s.Y(0);
+    const a2 = s.Y(f.drumSpacingM);
+    out.push(line(right + 4, a1, right + 4, a2, 'dim', ' marker-start="url(#arrow)" marker-end="url(#arrow)"'));
+    out.push(upText(right + 3.2, (a1 + a2) / 2 + 14, `drum axes ${m(f.drumSpacingM)} apart`, 'dimtext'));
+  }
+  return { items: out, bottom: y + 2 };
+}
+
+/** Scale bar, legend and caution. */
+function footer(
+  s: Sheet,
+  placement: Placement,
+  profile: Profile,
+  width: number,
+  y0: number,
+): { items: string[]; bottom: number } {
+  const out: string[] = [];
+  const nice = [0.05, 0.1, 0.2, 0.25, 0.5, 1, 2, 5, 10, 20, 50, 100];
+  const barM = [...nice].reverse().find((v) => v * s.k <= 80) ?? nice[0];
+  const step = (barM * s.k) / 5;
+  for (let i = 0; i < 5; i++) out.push(rect(MARGIN + i * step, y0, step, 1.6, i % 2 === 0 ? 'bar-a' : 'bar-b'));
+  out.push(svgText(MARGIN, y0 + 4.6, '0', 'dimtext', 'middle'));
+  out.push(svgText(MARGIN + barM * s.k, y0 + 4.6, `${barM} m`, 'dimtext', 'middle'));
+  out.push(
+    svgText(
+      MARGIN + barM * s.k + 8,
+      y0 + 1.6,
+      `scale 1:${s.scale} — check the bar with a rule after printing`,
+      'note',
+      'start',
+    ),
+  );
+  const f = profile.frame;
+  const ly = y0 + 9;
+  const legend: string[] = [
+    rect(MARGIN, ly - 2, 6, 2.4, 'drum'),
+    svgText(MARGIN + 8, ly, `drum, Ø ${r1(profile.drumRadiusM * 2000)} mm`, 'note', 'start'),
+    rect(MARGIN + 42, ly - 2, 3, 2.4, 'wraps'),
+    svgText(MARGIN + 47, ly, `capstan: ${profile.wraps} turns`, 'note', 'start'),
+    rect(MARGIN + 76, ly - 2.4, 1, 2.4, 'lever hand'),
+    svgText(MARGIN + 78.5, ly, 'hand lever', 'note', 'start'),
+    rect(MARGIN + 96, ly - 2.4, 1, 2.4, 'lever z'),
+    svgText(MARGIN + 98.5, ly, 'Z lever', 'note', 'start'),
+    rect(MARGIN + 112, ly - 2.4, 1, 2.4, 'lever'),
+    svgText(MARGIN + 114.5, ly, 'port lever', 'note', 'start'),
+    `<circle cx="${MARGIN + 133}" cy="${ly - 0.8}" r="1.2" class="${f.turn === 'pulley' ? 'pulley' : 'pin'}" />`,
+    svgText(MARGIN + 135.5, ly, f.turn === 'pulley' ? 'pulley' : 'pin', 'note', 'start'),
+  ];
+  out.push(...legend);
+  out.push(
+    svgText(
+      MARGIN,
+      ly + 4.5,
+      `Cut lengths of every cord: cut-list.csv (${m(placement.totalCordM)} in all; ${m(placement.baselineCordM)} with the bays in netlist order). Cam templates at 1:1: cams.svg.`,
+      'note',
+      'start',
+    ),
+  );
+  const caution = [
+    'Caution: a turning drum catches hair, cords, sleeves and fingers — guard it and fit a stop within reach.',
+    'Hanging weights fall when a cord breaks: keep them low, enclosed or caught. Levers make pinch points. See the build sheet.',
+  ];
+  caution.forEach((c, i) =>
+    out.push(
+      svgText(
+        MARGIN,
+        ly + 8.5 + 3.4 * i,
+        clip(c, Math.floor((width - 2 * MARGIN) / (2.4 * GLYPH))),
+        'caution',
+        'start',
+      ),
+    ),
+  );
+  return { items: out, bottom: ly + 8.5 + 3.4 * caution.length };
+}
+
+/** Every bay in words, drum by drum, in columns. */
+function keyLines(
+  build: Build,
+  placement: Placement,
+  words: ReadonlyMap<string, string>,
+  width: number,
+  y0: number,
+): { items: string[]; bottom: number } {
+  const out: string[] = [svgText(MARGIN, y0 + 3, 'Key: every bay, from the visitor end', 'sub', 'start')];
+  const colW = 104;
+  const cols = Math.max(1, Math.floor((width - 2 * MARGIN) / colW));
+  const rows = Math.ceil(placement.bays.length / cols);
+  const names = new Map(build.netlist.parts.map((p) => [p.id, p.id]));
+  placement.bays.forEach((b, i) => {
+    const c = Math.floor(i / Math.max(1, rows));
+    const row = i % Math.max(1, rows);
+    const px = MARGIN + c * colW;
+    const py = y0 + 7 + row * 3.2;
+    out.push(svgText(px, py, `${b.drum}·${b.bay}`, 'bayno', 'start'));
+    out.push(svgText(px + 9, py, `${b.xM.toFixed(2)}`, 'keyid', 'start'));
+    out.push(svgText(px + 18, py, clip(names.get(b.part) ?? b.part, 14), 'keyid', 'start'));
+    out.push(svgText(px + 40, py, clip(words.get(b.part) ?? '', 50), 'key', 'start'));
+  });
+  out.push(
+    svgText(
+      MARGIN,
+      y0 + 7 + rows * 3.2 + 1.5,
+      'drum·bay, centre in metres from the visitor end, part, what it does',
+      'note',
+      'start',
+    ),
+  );
+  return { items: out, bottom: y0 + 7 + rows * 3.2 + 3 };
+}

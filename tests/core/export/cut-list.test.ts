@@ -1,0 +1,161 @@
+/**
+ * cut-list.csv against an independent reading of the frame: every branch length and every
+ * cord's cut length worked out again, by a function of this test alone, from nothing but the
+ * positions and the frame geometry that netlist.json publishes — the geometry of design §11
+ * ("Cord runs": drop from the drum to the channel, along it, rise to the lever, a knot
+ * allowance at each end and the take-up; a branch that stays in its bay rises straight) —
+ * and compared with what the cut list says to cut.
+ */
+import { readFileSync } from 'node:fs';
+import { csvParse } from 'd3';
+import { describe, expect, it } from 'vitest';
+import { analyse, buildMachine, type Built } from '../../../src/core/pipeline.js';
+import { buildDocuments } from '../../../src/core/export/index.js';
+import { CAUTIONS } from '../../../src/core/export/build-sheet.js';
+import { cutListCsv, cutMetres } from '../../../src/core/export/cut-list.js';
+import { DEFAULT_PROFILE, type Profile } from '../../../src/core/physics/profile.js';
+import { example, exampleNames } from './support.js';
+
+interface Placed {
+  id: string;
+  kind: string;
+  drum?: number;
+  bay?: number;
+  xM?: number;
+  levers?: { name: string; xM: number }[];
+  /** A gate's own turns on the drum, where it has them (else the frame's). */
+  wraps?: number;
+}
+interface NetDoc {
+  frame: {
+    drumRadiusM: number;
+    wraps: number;
+    railAboveDrumM: number;
+    channelBelowDrumM: number;
+    knotAllowanceM: number;
+    takeUpAllowanceM: number;
+    actuatorRunM: number;
+    drums: { drum: number; levelM: number }[];
+  };
+  parts: Placed[];
+  cords: { id: string; driver: string; ports: { part: string; port: string }[]; actuators: string[] }[];
+}
+
+/** Every piece of every cord, worked out from netlist.json alone: `cord|trunk`, `cord|branch to <target>`, `cord|whole cord`. */
+function piecesFromNetlist(doc: NetDoc): Map<string, number> {
+  const f = doc.frame;
+  const r = f.drumRadiusM;
+  const part = new Map(doc.parts.map((p) => [p.id, p]));
+  const level = (d: number | undefined): number => doc.frame.drums.find((x) => x.drum === d)?.levelM ?? NaN;
+  const out = new Map<string, number>();
+  for (const c of doc.cords) {
+    const d = part.get(c.driver);
+    if (d?.xM === undefined) throw new Error(`${c.driver} has no position`);
+    const ends = [
+      ...c.ports.map((p) => ({ target: `${p.part}.${p.port}`, to: part.get(p.part), lever: p.port, exit: false })),
+      ...c.actuators.map((a) => ({ target: a, to: part.get(a), lever: 'exit', exit: true })),
+    ];
+    const leaves = ends.some((e) => e.to?.drum !== d.drum || e.to?.bay !== d.bay);
+    const trunk = Math.max(0, f.railAboveDrumM - r) + 2 * Math.PI * r * (d.wraps ?? f.wraps) + f.knotAllowanceM;
+    out.set(`${c.id}|trunk`, trunk);
+    let total = trunk;
+    for (const e of ends) {
+      const x = e.to?.levers?.find((l) => l.name === e.lever)?.xM ?? e.to?.levers?.[0]?.xM ?? NaN;
+      let runs: number;
+      if (!leaves) runs = Math.hypot(x - d.xM, f.railAboveDrumM - r);
+      else {
+        const ld = level(d.drum);
+        const lt = level(e.to?.drum);
+        const channel = Math.min(ld, lt) - f.channelBelowDrumM;
+        const drop = Math.max(channel, ld - r) - channel;
+        const rise = e.exit ? f.actuatorRunM : lt + f.railAboveDrumM - channel;
+        runs = drop + Math.abs(x - d.xM) + rise;
+      }
+      const length = runs + 2 * f.knotAllowanceM + f.takeUpAllowanceM;
+      out.set(`${c.id}|branch to ${e.target}`, length);
+      total += length;
+    }
+    out.set(`${c.id}|whole cord`, total);
+  }
+  return out;
+}
+
+function checkAgainstCutList(b: Built, tag: string): number {
+  const docs = buildDocuments(b);
+  const want = piecesFromNetlist(JSON.parse(docs.get('netlist.json') ?? '') as NetDoc);
+  const rows = csvParse(docs.get('cut-list.csv') ?? '').filter((r) => r.group === 'cord');
+  const got = new Map(rows.map((r) => [`${r.item}|${r.piece}`, Number(r['length (m)'])]));
+  expect([...got.keys()].sort(), tag).toEqual([...want.keys()].sort());
+  for (const [key, m] of want) {
+    const cut = got.get(key) ?? NaN;
+    // The cut list rounds up to the millimetre, never short; netlist.json gives positions to 0.1 mm.
+    expect(cut, `${tag} ${key}`).toBeGreaterThanOrEqual(m - 0.0005);
+    expect(cut, `${tag} ${key}`).toBeLessThanOrEqual(m + 0.0015);
+  }
+  return want.size;
+}
+
+function build(name: string, profile: Profile = DEFAULT_PROFILE, actuators?: Record<string, number>): Built {
+  const a = analyse(readFileSync(`examples/${name}`, 'utf8'), name);
+  if (!a.ok) throw new Error(name);
+  const b = buildMachine(a, { encoding: 'binary', profile, ...(actuators ? { actuators } : {}) });
+  if (!b.ok) throw new Error(b.diagnostics.map((d) => d.message).join('; '));
+  return b;
+}
+
+describe('core/export/cut-list', () => {
+  it('every cord piece of every example matches the lengths worked out again from netlist.json (design §11 geometry)', () => {
+    for (const name of exampleNames()) expect(checkAgainstCutList(example(name, 'auto'), name)).toBeGreaterThan(0);
+  });
+
+  it('matches them too across two drums and for an actuator’s run out of the frame', () => {
+    const split: Profile = { ...DEFAULT_PROFILE, frame: { ...DEFAULT_PROFILE.frame, longestDrumM: 0.8 } };
+    const twoDrums = build('marble-bell.lw', split);
+    expect(twoDrums.placement.drums.length).toBe(2);
+    expect(twoDrums.placement.crossDrumBranches).toBeGreaterThan(0);
+    checkAgainstCutList(twoDrums, 'marble bell on two drums');
+    const bell = build('marble-bell.lw', DEFAULT_PROFILE, { bell: 120 });
+    expect(bell.placement.routing.branches.some((x) => x.kind === 'actuator')).toBe(true);
+    checkAgainstCutList(bell, 'marble bell with a bell actuator');
+  });
+
+  it('opens with the safety cautions, then cords, lever blanks, drums, pulleys, weights and cams', () => {
+    const b = example('marble-bell.lw', 'auto');
+    const text = buildDocuments(b).get('cut-list.csv') ?? '';
+    const rows = csvParse(text);
+    expect(rows.columns).toEqual(['group', 'item', 'piece', 'count', 'length (m)', 'size', 'where', 'note']);
+    expect(rows.slice(0, CAUTIONS.length).map((r) => [r.group, r.note])).toEqual(CAUTIONS.map((c) => ['caution', c]));
+    const groups = [...new Set(rows.map((r) => r.group))];
+    expect(groups).toEqual(['caution', 'cord', 'lever blank', 'drum', 'pulley', 'weight', 'cam']);
+    // Lever blanks: one per lever of the build (operator, clock, reset, every Z and port lever).
+    const p = b.build.parts;
+    const blanks = rows.filter((r) => r.group === 'lever blank').reduce((s, r) => s + Number(r.count), 0);
+    expect(blanks).toBe(
+      p.levers +
+        b.build.netlist.parts
+          .filter((q) => q.kind === 'gate')
+          .reduce((s, g) => s + (g.kind === 'gate' && g.ports.length > 1 ? g.ports.length + 1 : 1), 0),
+    );
+    // Weights: one per port lever, per Z and per hand lever (as the bill of materials counts them).
+    expect(rows.filter((r) => r.group === 'weight').reduce((s, r) => s + Number(r.count), 0)).toBe(p.weights);
+    const drum = rows.find((r) => r.group === 'drum');
+    expect(Number(drum?.['length (m)'])).toBe(cutMetres(b.placement.drums[0].lengthM));
+    expect(drum?.size).toBe('Ø 80 mm');
+    expect(Number(rows.find((r) => r.group === 'pulley')?.count)).toBe(b.placement.pulleys);
+  });
+
+  it('escapes a cell that a spreadsheet would run as a formula (OWASP, CSV Injection)', () => {
+    const text = cutListCsv([
+      { group: 'cord', item: '=HYPERLINK("x")', piece: '+1', count: 1, lengthM: 0.5, size: '-', where: '@a', note: '' },
+    ]);
+    const [row] = csvParse(text);
+    expect([row.item, row.piece, row.size, row.where]).toEqual(['\'=HYPERLINK("x")', "'+1", "'-", "'@a"]);
+    expect(row['length (m)']).toBe('0.5');
+  });
+
+  it('rounds every length up to the millimetre, so that no piece is cut short', () => {
+    expect(cutMetres(0.6361)).toBe(0.637);
+    expect(cutMetres(0.636)).toBe(0.636);
+    expect(cutMetres(1.0000000001)).toBe(1);
+  });
+});

@@ -1,0 +1,94 @@
+/**
+ * frame.svg: the front elevation to scale. Sizes are read from the SVG itself (SVG 1.1,
+ * "Units": width and height in mm on the root element, the viewBox in the same numbers, so
+ * one user unit is one millimetre on paper): the drum's drawn length is its length at the
+ * stated scale, and so is the scale bar. Every bay is labelled by what it does; every routed
+ * branch is drawn.
+ */
+import { describe, expect, it } from 'vitest';
+import { buildDocuments } from '../../../src/core/export/index.js';
+import { frameScale, frameSvg, MAX_HEIGHT_MM, MAX_WIDTH_MM, paperFor } from '../../../src/core/export/frame-svg.js';
+import { partWords } from '../../../src/core/export/part-words.js';
+import { escapeXml } from '../../../src/core/export/escape.js';
+import { example, exampleNames, xmlProblems } from './support.js';
+
+describe('core/export/frame-svg', () => {
+  it('draws every example well-formed, sized in millimetres, at a stated scale', () => {
+    for (const name of exampleNames()) {
+      const b = example(name);
+      const svg = frameSvg(b.build, b.placement, b.profile);
+      expect(xmlProblems(svg), name).toEqual([]);
+      const root = /<svg [^>]*width="(\d+)mm" height="(\d+)mm" viewBox="0 0 (\d+) (\d+)"/.exec(svg);
+      expect(root?.[1], name).toBe(root?.[3]);
+      expect(root?.[2], name).toBe(root?.[4]);
+      const f = b.profile.frame;
+      const top = b.placement.drums[b.placement.drums.length - 1].levelM;
+      const heightM = top + f.railAboveDrumM + 0.05 + f.channelBelowDrumM;
+      const scale = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)), heightM);
+      expect((heightM * 1000) / scale, name).toBeLessThanOrEqual(MAX_HEIGHT_MM);
+      expect(svg, name).toContain(
+        `Scale 1:${scale} when printed at 100 % on an ${paperFor(+root![1], +root![2])} or larger`,
+      );
+    }
+  });
+
+  it('draws each drum at its length to scale, and a scale bar of the length it says', () => {
+    const b = example('crossing.lw');
+    const svg = frameSvg(b.build, b.placement, b.profile);
+    // Two drums 0.6 m apart: channel 0.12 m below drum 1, rail 0.2 m above drum 2, lever ends 0.05 m.
+    const s = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)), 0.97);
+    expect(s).toBe(5); // 1.08 m at 1:5 is 216 mm, within MAX_WIDTH_MM
+    expect((1.08 * 1000) / s).toBeLessThanOrEqual(MAX_WIDTH_MM);
+    for (const d of b.placement.drums) {
+      const g = new RegExp(`<g class="drum-${d.drum}">\\s*<rect x="[\\d.]+" y="[\\d.]+" width="([\\d.]+)"`).exec(svg);
+      expect(Number(g?.[1]), `drum ${d.drum}`).toBeCloseTo((d.lengthM * 1000) / s, 0);
+    }
+    const blocks = [
+      ...svg.matchAll(/<rect x="([\d.]+)" y="([\d.]+)" width="([\d.]+)" height="1.6" class="bar-[ab]" \/>/g),
+    ];
+    expect(blocks).toHaveLength(5);
+    const drawn = blocks.reduce((sum, m) => sum + Number(m[3]), 0);
+    const said = /<text [^>]*>([\d.]+) m<\/text>/.exec(svg.slice(svg.indexOf('class="bar-a"')));
+    expect(drawn).toBeCloseTo((Number(said?.[1]) * 1000) / s, 0);
+  });
+
+  it('labels every bay with what it does, and draws every routed branch once', () => {
+    for (const name of ['marble-bell.lw', 'lighthouse.lw']) {
+      const b = example(name);
+      const svg = frameSvg(b.build, b.placement, b.profile);
+      const words = partWords(b.build);
+      for (const bay of b.placement.bays) {
+        expect(svg, `${name} ${bay.part}`).toContain(
+          escapeXml(`drum ${bay.drum}, bay ${bay.bay}: ${bay.bay} · ${words.get(bay.part)}`),
+        );
+      }
+      const drawn = [...svg.matchAll(/data-cord="([^"]+)" data-target="([^"]+)"/g)].map((m) => `${m[1]}→${m[2]}`);
+      const routed = b.placement.routing.branches.map((x) => `${escapeXml(x.cord)}→${escapeXml(x.target)}`);
+      expect(drawn.sort(), name).toEqual(routed.sort());
+      expect(svg).toMatch(/class="pulley"/);
+      expect(svg).toMatch(/visitor end/);
+      expect(svg).toMatch(/crank end/);
+      expect(svg).toMatch(/Caution/);
+    }
+  });
+
+  it('picks a scale that keeps the stack of drums within MAX_HEIGHT_MM as well as the drum within MAX_WIDTH_MM', () => {
+    expect(frameScale(0.25, 0.37)).toBe(2); // 1:1 would be 370 mm tall
+    expect(frameScale(0.25, 0)).toBe(1);
+    expect(frameScale(1.2, 1.57)).toBe(10); // three drums
+    expect(frameScale(30, 0.37)).toBe(200); // a 30 m drum: its length alone asks for 1:200
+  });
+
+  it('names the smallest ISO 216 sheet that holds the drawing (A4 210 × 297 mm, A3 297 × 420, A2 420 × 594)', () => {
+    expect(paperFor(200, 290)).toBe('A4 sheet, portrait,');
+    expect(paperFor(280, 200)).toBe('A4 sheet, landscape,');
+    expect(paperFor(280, 299)).toBe('A3 sheet, portrait,');
+    expect(paperFor(253, 438)).toBe('A2 sheet, portrait,');
+    expect(paperFor(2000, 2000)).toBe('');
+  });
+
+  it('is the frame.svg of the build documents', () => {
+    const b = example('marble-bell.lw');
+    expect(buildDocuments(b).get('frame.svg')).toBe(frameSvg(b.build, b.placement, b.profile));
+  });
+});
