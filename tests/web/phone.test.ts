@@ -41,7 +41,7 @@ describe('src/web on a phone (end to end in chromium)', () => {
   });
 
   it('lets nothing overflow in any view; tables scroll in their own boxes', async () => {
-    for (const view of ['Sketch', 'Ledger', 'Code book', 'Parts & forces', 'Trial run']) {
+    for (const view of ['Sketch', 'Ledger', 'Code book', 'Parts & forces', 'Frame & cords', 'Trial run']) {
       await tab(view);
       if (view === 'Code book') {
         await page.getByRole('button', { name: 'Price every encoding' }).click();
@@ -53,6 +53,7 @@ describe('src/web on a phone (end to end in chromium)', () => {
         expect(Number(sizes[0])).toBeGreaterThan(Number(sizes[1]));
       }
       if (view === 'Parts & forces') await page.locator('lw-parts .sheet svg').waitFor();
+      if (view === 'Frame & cords') await page.locator('lw-frame .sheet svg').waitFor();
       if (view === 'Trial run')
         for (let i = 0; i < 12; i++) await page.locator('lw-stepper button[data-do="clock"]').click();
       expect(await overflowing(page), view).toEqual([]);

@@ -17,6 +17,10 @@
  * palette of M. Okabe & K. Ito, "Color Universal Design" (2008), which colour-blind readers
  * can tell apart. Labels too long for the space between two drums are cut short; the key
  * under the drawing has every bay's words in full.
+ * Every lever end carries its part, lever, drum and bay (data-part, data-lever, data-drum,
+ * data-bay) and every branch its cord, target, driver and lever, so a page can light a cord's
+ * run and both its ends. Two palettes: `paper` (the default, the document) and `screen` (the
+ * designer's theme variables, light or dark, its rules scoped to the drawing's own class).
  * Pure; every user-given name is escaped (svg.ts, escape.ts).
  */
 import type { Build } from '../model/build.js';
@@ -142,6 +146,58 @@ text { stroke: none; }
 .caution { font: 600 2.4px system-ui, sans-serif; fill: #8a5a00; }
 `;
 
+/** The class the screen drawing's root carries: every rule of its style sheet is scoped to it. */
+export const FRAME_SCREEN_CLASS = 'lw-frame';
+
+/** The designer's theme variables (src/web/styles/theme.css) for each colour of the paper drawing. */
+const tint = (accent: string, pct: number): string => `color-mix(in srgb, var(${accent}) ${pct}%, var(--lw-panel))`;
+const SCREEN_COLOURS: readonly (readonly [string, string])[] = [
+  ['url(#wrap-hatch)', tint('--lw-brass', 45)],
+  ['#ffffff', 'var(--lw-panel)'],
+  ['#1d2327', 'var(--lw-ink)'],
+  ['#3c4240', 'var(--lw-ink-soft)'],
+  ['#e9dcc4', tint('--lw-brass', 18)],
+  ['#6b5a3c', 'var(--lw-brass)'],
+  ['#4a4f4c', 'var(--lw-ink-soft)'],
+  ['#9aa19d', 'var(--lw-line)'],
+  ['#cfd8d3', 'var(--lw-sunk)'],
+  ['#2f3532', 'var(--lw-ink)'],
+  ['#7d8a84', tint('--lw-ink-soft', 60)],
+  ['#f2c14e', tint('--lw-info', 45)],
+  ['#2c4a5a', 'var(--lw-info)'],
+  ['#8a5a00', 'var(--lw-warn)'],
+];
+
+/**
+ * The paper style sheet in the page's theme colours, every rule scoped to the drawing's own
+ * class so it touches nothing else on the page; the black cords and the arrow heads take the ink.
+ */
+function screenStyle(): string {
+  const scope = `.${FRAME_SCREEN_CLASS}`;
+  const rules = STYLE.trim()
+    .split('\n')
+    .map((rule) => {
+      const open = rule.indexOf('{');
+      const sel = rule
+        .slice(0, open)
+        .split(',')
+        .map((x) => `${scope} ${x.trim()}`)
+        .join(', ');
+      const body = SCREEN_COLOURS.reduce((b, [paper, screen]) => b.split(paper).join(screen), rule.slice(open));
+      return `${sel} ${body}`;
+    });
+  rules.push(
+    `${scope} .cord-run[stroke='#000000'] { stroke: var(--lw-ink); }`,
+    `${scope} marker path { fill: var(--lw-info); }`,
+  );
+  return `\n${rules.join('\n')}\n`;
+}
+
+/** How the drawing is coloured: `paper` (the document, on white) or `screen` (the designer's theme, light or dark). */
+export interface FrameOptions {
+  readonly palette?: 'paper' | 'screen';
+}
+
 const DEFS =
   '<defs><pattern id="wrap-hatch" width="1.2" height="1.2" patternUnits="userSpaceOnUse" patternTransform="rotate(60)">' +
   '<rect width="1.2" height="1.2" fill="#c9b48f" /><line x1="0" y1="0" x2="0" y2="1.2" stroke="#6b5a3c" stroke-width="0.35" /></pattern>' +
@@ -150,8 +206,8 @@ const DEFS =
 const m = (v: number): string => `${v.toFixed(2)} m`;
 const line = (x1: number, y1: number, x2: number, y2: number, cls: string, extra = ''): string =>
   `<line x1="${r1(x1)}" y1="${r1(y1)}" x2="${r1(x2)}" y2="${r1(y2)}" class="${cls}"${extra} />`;
-const rect = (x0: number, y0: number, w: number, h: number, cls: string): string =>
-  `<rect x="${r1(x0)}" y="${r1(y0)}" width="${r1(w)}" height="${r1(h)}" class="${cls}" />`;
+const rect = (x0: number, y0: number, w: number, h: number, cls: string, extra = ''): string =>
+  `<rect x="${r1(x0)}" y="${r1(y0)}" width="${r1(w)}" height="${r1(h)}" class="${cls}"${extra} />`;
 /** Coordinates to 0.01 mm: the geometry of the drawing, read back by tests. */
 const r2 = (v: number): string => String(Math.round(v * 100) / 100);
 
@@ -161,7 +217,7 @@ function upText(px: number, py: number, text: string, cls: string): string {
 }
 
 /** The frame drawing of a placed build. */
-export function frameSvg(build: Build, placement: Placement, profile: Profile): string {
+export function frameSvg(build: Build, placement: Placement, profile: Profile, options: FrameOptions = {}): string {
   const f = profile.frame;
   const words = partWords(build);
   const lengthM = Math.max(0.05, ...placement.drums.map((d) => d.lengthM));
@@ -226,14 +282,16 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile): 
     heightM: worldTop + f.channelBelowDrumM,
     paper: paperFor(width, height),
   });
+  const screen = options.palette === 'screen';
   return svgDocument(
     width,
     height,
     `Frame of ${build.machine.name}, scale 1:${scale}`,
     `Front elevation of the frame to scale 1:${scale}: ${placement.bays.length} bays on ${placement.drums.length} drum(s), every cord run, pulleys, dimensions and a key of the bays.`,
-    STYLE,
+    screen ? screenStyle() : STYLE,
     [...head, ...body],
     'mm',
+    screen ? FRAME_SCREEN_CLASS : undefined,
   );
 }
 
@@ -296,7 +354,7 @@ function drumBody(
   for (const b of bays) {
     if (drivers.has(b.part)) {
       const w = wrapsOf(parts.get(b.part), profile) * profile.wrapPitchM * s.k;
-      out.push(rect(s.X(b.xM) - w / 2, s.Y(level + r), w, 2 * r * s.k, 'wraps'));
+      out.push(rect(s.X(b.xM) - w / 2, s.Y(level + r), w, 2 * r * s.k, 'wraps', ` data-part="${x(b.part)}"`));
     }
     out.push(line(s.X(b.leftM), s.Y(channelY), s.X(b.leftM), s.Y(railY + LEVER_END_M), 'bay'));
   }
@@ -307,18 +365,22 @@ function drumBody(
     for (const lv of b.levers) {
       if (lv.name === 'exit') continue;
       const cls = b.kind === 'lever' ? 'lever hand' : lv.name === 'Z' || b.levers.length === 1 ? 'lever z' : 'lever';
-      out.push(rect(s.X(lv.xM) - leverW / 2, s.Y(railY + LEVER_END_M), leverW, LEVER_END_M * s.k, cls));
+      const ids = ` data-part="${x(b.part)}" data-lever="${x(lv.name)}" data-drum="${drum}" data-bay="${b.bay}"`;
+      out.push(rect(s.X(lv.xM) - leverW / 2, s.Y(railY + LEVER_END_M), leverW, LEVER_END_M * s.k, cls, ids));
       out.push(`<circle cx="${r1(s.X(lv.xM))}" cy="${r1(s.Y(railY))}" r="0.35" class="pivot" />`);
     }
     const chars = Math.max(3, Math.floor(spaceMm / (FONT * GLYPH)));
     out.push(
-      `<g><title>${x(`drum ${drum}, bay ${b.bay}: ${label(b)} (${b.part})`)}</title>${upText(s.X(b.xM) + FONT * 0.35, s.Y(railY + LEVER_END_M) - 1, clip(label(b), chars), 'label')}</g>`,
+      `<g data-part="${x(b.part)}"><title>${x(`drum ${drum}, bay ${b.bay}: ${label(b)} (${b.part})`)}</title>${upText(s.X(b.xM) + FONT * 0.35, s.Y(railY + LEVER_END_M) - 1, clip(label(b), chars), 'label')}</g>`,
     );
     out.push(svgText(s.X(b.xM), text.bayRowY, String(b.bay), 'bayno'));
   }
   out.push('</g>');
   return out;
 }
+
+/** The lever a branch is tied to: its port (the target is `gate.port`), or 'exit' for an actuator. */
+const leverOf = (b: BranchRoute): string => (b.kind === 'port' ? b.target.slice(b.part.length + 1) : 'exit');
 
 /** Every branch's runs, a cord's branches in one colour, channel runs in their lanes; pulleys or pins at the turns. */
 function cordRuns(
@@ -358,7 +420,7 @@ function cordRuns(
       }
       const d = pts.map((p, j) => `${j === 0 ? 'M' : 'L'}${r2(p.x)},${r2(p.y)}`).join(' ');
       out.push(
-        `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''}`)}</title></path>`,
+        `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}" data-driver="${x(b.driver)}" data-part="${x(b.part)}" data-lever="${x(leverOf(b))}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''}`)}</title></path>`,
       );
       if (exit) {
         // Out of the frame: an arrow down to the bay numbers; under them, one line names where each goes.

@@ -22,6 +22,7 @@ export const VIEWS = [
   { id: 'ledger', label: 'Ledger' },
   { id: 'codes', label: 'Code book' },
   { id: 'parts', label: 'Parts & forces' },
+  { id: 'frame', label: 'Frame & cords' },
   { id: 'trial', label: 'Trial run' },
 ] as const;
 

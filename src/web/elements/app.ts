@@ -1,6 +1,6 @@
 /**
  * <lw-app>: the designer's shell. The bench (the text) on the left; on the right the view
- * chosen from the tabs — sketch, ledger, code book, parts & forces, trial run (VIEWS in
+ * chosen from the tabs — sketch, ledger, code book, parts & forces, frame & cords, trial run (VIEWS in
  * app-view.ts, each drawn by its entry in `views` below). It owns the controllers and routes
  * the elements' events to them; it holds no state of its own beyond which view is showing.
  */
@@ -14,8 +14,18 @@ import { download, type SaveForm } from '../controllers/files.js';
 import { keepRead, keepSet } from '../controllers/keep.js';
 import { printHtml } from '../controllers/print.js';
 import { EXAMPLES } from '../examples.js';
-import { ALL_DOCUMENTS, PRINT_SHEET, type EncodingChoice } from '../worker/protocol.js';
-import { formatDiagnostic, type Diagnostic, type HandAction } from '../../core/index.js';
+import { ALL_DOCUMENTS, PRINT_SHEET, type BuildView, type EncodingChoice } from '../worker/protocol.js';
+import {
+  formatDiagnostic,
+  frameSvg,
+  partWords,
+  type Diagnostic,
+  type HandAction,
+  type PartRunner,
+  type PartState,
+} from '../../core/index.js';
+import { leverStands, type Stands } from '../frame/stands.js';
+import { drawingPage } from '../frame/sheet.js';
 import { shared } from '../styles/shared.js';
 import { appStyles } from './app-styles.js';
 import { VIEWS, codesByState, litStates, parseView, remember, statusWords, withFile, type ViewId } from './app-view.js';
@@ -29,6 +39,7 @@ import './codes.js';
 import './parts.js';
 import './stepper.js';
 import './notation-card.js';
+import './frame-view.js';
 
 type Detail<T> = CustomEvent<T>;
 
@@ -69,6 +80,26 @@ export class LwApp extends LitElement {
   );
   private readonly codes = remember(codesByState);
   private readonly lit = remember(litStates);
+  /** The frame in the page's colours: the same drawing as frame.svg (the core's frameSvg). */
+  private readonly frameDrawing = remember(
+    (b: BuildView | undefined): { readonly svg?: string; readonly problem?: string } | undefined => {
+      if (!b) return undefined;
+      try {
+        return { svg: frameSvg(b.build, b.placement, b.profile, { palette: 'screen' }) };
+      } catch (e) {
+        // A fault of the drawing must not take the rest of the page with it: say so in the view.
+        return { problem: e instanceof Error ? e.message : String(e) };
+      }
+    },
+  );
+  private readonly partWords = remember((b: BuildView | undefined) => (b ? partWords(b.build) : undefined));
+  /** Where every lever on the frame stands in the trial run (the runner's state changes with every step). */
+  private readonly stands = remember(
+    (runner: PartRunner | undefined, state: PartState | undefined, b: BuildView | undefined): Stands | undefined =>
+      runner && state && b && runner.sim.build === b.build
+        ? leverStands(b.build.netlist, b.placement.bays, runner.sim.ids, state.values)
+        : undefined,
+  );
   private view: ViewId = keepRead('view', parseView) ?? 'sketch';
 
   /** How each view is drawn: one entry per view of VIEWS. */
@@ -77,6 +108,7 @@ export class LwApp extends LitElement {
     ledger: () => this.ledgerView(),
     codes: () => this.codesView(),
     parts: () => this.partsView(),
+    frame: () => this.frameView(),
     trial: () => this.trialView(),
   };
 
@@ -275,17 +307,42 @@ export class LwApp extends LitElement {
     ></lw-parts>`;
   }
 
+  private frameView() {
+    const s = this.synth;
+    const st = this.stepper;
+    const b = s.built;
+    return html`<lw-frame
+      .drawing=${this.frameDrawing(b)}
+      .placement=${b?.placement}
+      .words=${this.partWords(b)}
+      .stands=${this.stands(st.runner, st.runner?.state, b)}
+      .reading=${st.reading}
+      .clocks=${st.clocks}
+      ?canUndo=${st.canUndo}
+      ?printable=${s.work === Work.done}
+      @step=${this.onStep}
+      @print-frame=${this.onPrintFrame}
+    ></lw-frame>`;
+  }
+
   private trialView() {
     const st = this.stepper;
     return html`<lw-stepper
-      .reading=${st.reading}
-      .samples=${st.samples}
-      .alarms=${st.alarms}
-      .clocks=${st.clocks}
-      .impossible=${st.impossible}
-      ?canUndo=${st.canUndo}
-      @step=${this.onStep}
-    ></lw-stepper>`;
+        .reading=${st.reading}
+        .samples=${st.samples}
+        .alarms=${st.alarms}
+        .clocks=${st.clocks}
+        .impossible=${st.impossible}
+        ?canUndo=${st.canUndo}
+        @step=${this.onStep}
+      ></lw-stepper>
+      ${
+        st.reading
+          ? html`<p class="to-frame">
+              <button data-do="see-frame" @click=${() => this.show('frame')}>See these levers on the frame</button>
+            </p>`
+          : nothing
+      }`;
   }
 
   /** What the failing checks offer to do about themselves. */
@@ -359,6 +416,17 @@ export class LwApp extends LitElement {
       .catch(this.failed('build sheet to print'));
   };
 
+  /** Print frame.svg, the build document, alone at its scale. */
+  private onPrintFrame = (): void => {
+    const name = this.synth.built?.build.machine.name ?? 'machine';
+    this.synth
+      .exportDoc('frame.svg')
+      .then((f) =>
+        printHtml(drawingPage('text' in f ? f.text : '', `Frame — ${name}`), 'The frame drawing, for printing'),
+      )
+      .catch(this.failed('frame drawing to print'));
+  };
+
   private onCopyLink = (): void => {
     const link = this.source.link();
     const told = (ok: boolean): void =>
@@ -391,7 +459,14 @@ export class LwApp extends LitElement {
       else card?.show();
       return;
     }
-    if (this.view !== 'trial' || this.card()?.open) return;
+    // Ctrl+P (⌘P) on the frame prints the frame drawing at its scale, not the page around it.
+    if (this.view === 'frame' && (e.ctrlKey || e.metaKey) && !e.altKey && !e.shiftKey && e.key.toLowerCase() === 'p') {
+      e.preventDefault();
+      if (this.synth.work === Work.done) this.onPrintFrame();
+      return;
+    }
+    // The trial run's keys work where its levers are shown: the trial run and the frame.
+    if ((this.view !== 'trial' && this.view !== 'frame') || this.card()?.open) return;
     const target = e.composedPath()[0];
     if (target instanceof HTMLElement && (target.closest('textarea, input, select') || target.isContentEditable))
       return;

@@ -12,12 +12,62 @@
  *
  * A legend under the drawings says so.
  */
-import { LitElement, css, html, svg } from 'lit';
+import { LitElement, css, html, svg, type TemplateResult } from 'lit';
 import type { PartReading } from '../../core/index.js';
 import { shared } from '../styles/shared.js';
 
 /** Where a lever stands. */
-type Stand = 'down' | 'up' | 'X';
+export type Stand = 'down' | 'up' | 'X';
+
+/** What each stand means, in the legend's words: one meaning for every lever drawing of the designer (the frame's too). */
+export const STAND_WORDS: Readonly<Record<Stand, string>> = {
+  down: 'held down — an operator lever pulled (reads 1), or a latch side whose gate gives 1',
+  up: 'the lever stands up — at rest on its weight; a flag stands up to show 1',
+  X: 'undetermined (X), e.g. before the first reset',
+};
+
+/** The drawing of one lever standing `stand`, with a figure beside it (styled by LEVER_GLYPH_STYLES). */
+export function leverGlyph(stand: Stand, figure: string): TemplateResult {
+  // Angle of the arm from horizontal, degrees (positive is down on screen).
+  const angle = stand === 'X' ? 0 : stand === 'down' ? 30 : -30;
+  const rad = (angle * Math.PI) / 180;
+  const [px, py, len] = [14, 30, 34];
+  const ex = px + len * Math.cos(rad);
+  const ey = py + len * Math.sin(rad);
+  return html`<svg width="60" height="56" viewBox="0 0 64 56" aria-hidden="true" class=${stand === 'X' ? 'x' : ''}>
+    ${svg`<path class="base" d="M6,44 L22,44 L14,30 Z"></path>
+        <line class="arm" x1=${px} y1=${py} x2=${ex} y2=${ey}></line>
+        <circle class="knob" cx=${ex} cy=${ey} r="5"></circle>
+        <circle class="base" cx=${px} cy=${py} r="3.5"></circle>
+        <text class="val" x="58" y="52" text-anchor="end">${figure}</text>`}
+  </svg>`;
+}
+
+/** The styles of leverGlyph's drawing. */
+export const LEVER_GLYPH_STYLES = css`
+  .base {
+    fill: var(--lw-ink-soft);
+  }
+  .arm {
+    stroke: var(--lw-brass);
+    stroke-width: 5px;
+    stroke-linecap: round;
+  }
+  .knob {
+    fill: var(--lw-cord);
+  }
+  .x .arm {
+    stroke: var(--lw-x);
+    stroke-dasharray: 4 3;
+  }
+  .x .knob {
+    fill: var(--lw-x);
+  }
+  .val {
+    font: 700 13px var(--lw-mono);
+    fill: var(--lw-ink);
+  }
+`;
 
 interface Lever {
   readonly name: string;
@@ -47,6 +97,7 @@ export class LwLeverBank extends LitElement {
 
   static override styles = [
     shared,
+    LEVER_GLYPH_STYLES,
     css`
       :host {
         display: block;
@@ -88,28 +139,6 @@ export class LwLeverBank extends LitElement {
       figcaption {
         line-height: 1.15;
         word-break: break-word;
-      }
-      .base {
-        fill: var(--lw-ink-soft);
-      }
-      .arm {
-        stroke: var(--lw-brass);
-        stroke-width: 5px;
-        stroke-linecap: round;
-      }
-      .knob {
-        fill: var(--lw-cord);
-      }
-      .x .arm {
-        stroke: var(--lw-x);
-        stroke-dasharray: 4 3;
-      }
-      .x .knob {
-        fill: var(--lw-x);
-      }
-      .val {
-        font: 700 13px var(--lw-mono);
-        fill: var(--lw-ink);
       }
       .legend {
         display: flex;
@@ -192,21 +221,8 @@ export class LwLeverBank extends LitElement {
     </div>`;
   }
 
-  /** The drawing of one lever standing `stand`, with a figure beside it. */
   private glyph(stand: Stand, figure: string) {
-    // Angle of the arm from horizontal, degrees (positive is down on screen).
-    const angle = stand === 'X' ? 0 : stand === 'down' ? 30 : -30;
-    const rad = (angle * Math.PI) / 180;
-    const [px, py, len] = [14, 30, 34];
-    const ex = px + len * Math.cos(rad);
-    const ey = py + len * Math.sin(rad);
-    return html`<svg width="60" height="56" viewBox="0 0 64 56" aria-hidden="true" class=${stand === 'X' ? 'x' : ''}>
-      ${svg`<path class="base" d="M6,44 L22,44 L14,30 Z"></path>
-          <line class="arm" x1=${px} y1=${py} x2=${ex} y2=${ey}></line>
-          <circle class="knob" cx=${ex} cy=${ey} r="5"></circle>
-          <circle class="base" cx=${px} cy=${py} r="3.5"></circle>
-          <text class="val" x="58" y="52" text-anchor="end">${figure}</text>`}
-    </svg>`;
+    return leverGlyph(stand, figure);
   }
 
   private lever(l: Lever) {
@@ -243,15 +259,9 @@ export class LwLeverBank extends LitElement {
 
   private legend() {
     return html`<div class="legend" role="note" aria-label="How the levers are drawn">
-      <div>
-        ${this.glyph('down', '')}<span
-          >Down: held down — an operator lever pulled (reads 1), or a latch side whose gate gives 1.</span
-        >
-      </div>
-      <div>
-        ${this.glyph('up', '')}<span>Up: the lever stands up — at rest on its weight; a flag stands up to show 1.</span>
-      </div>
-      <div>${this.glyph('X', '')}<span>Level, dashed: undetermined (X), e.g. before the first reset.</span></div>
+      <div>${this.glyph('down', '')}<span>Down: ${STAND_WORDS.down}.</span></div>
+      <div>${this.glyph('up', '')}<span>Up: ${STAND_WORDS.up}.</span></div>
+      <div>${this.glyph('X', '')}<span>Level, dashed: ${STAND_WORDS.X}.</span></div>
       <div>
         <span>A latch holding 1 has its set side down and its reset side up; holding 0, the other way round.</span>
       </div>

@@ -92,3 +92,59 @@ describe('core/export/frame-svg', () => {
     expect(buildDocuments(b).get('frame.svg')).toBe(frameSvg(b.build, b.placement, b.profile));
   });
 });
+
+describe('core/export/frame-svg (ids for a page, and the screen palette)', () => {
+  const attr = (tag: string, name: string): string | undefined => new RegExp(`\\s${name}="([^"]*)"`).exec(tag)?.[1];
+
+  it('marks every lever end with its part, lever, drum and bay, as placed', () => {
+    for (const name of ['marble-bell.lw', 'crossing.lw']) {
+      const b = example(name);
+      const svg = frameSvg(b.build, b.placement, b.profile);
+      const ends = [...svg.matchAll(/<rect [^>]*class="lever[^"]*"[^>]*data-part[^>]*\/>/g)].map((m) =>
+        [attr(m[0], 'data-part'), attr(m[0], 'data-lever'), attr(m[0], 'data-drum'), attr(m[0], 'data-bay')].join(' '),
+      );
+      const placed = b.placement.bays.flatMap((bay) =>
+        bay.levers
+          .filter((l) => l.name !== 'exit')
+          .map((l) => [escapeXml(bay.part), escapeXml(l.name), bay.drum, bay.bay].join(' ')),
+      );
+      expect(ends.sort(), name).toEqual(placed.sort());
+    }
+  });
+
+  it("names each branch's driver and the lever it is tied to, and that lever is drawn", () => {
+    const b = example('marble-bell.lw');
+    const svg = frameSvg(b.build, b.placement, b.profile);
+    const paths = [...svg.matchAll(/<path [^>]*data-cord="[^"]*"[^>]*>/g)].map((m) => m[0]);
+    expect(paths).toHaveLength(b.placement.routing.branches.length);
+    for (const br of b.placement.routing.branches) {
+      const p = paths.find(
+        (t) => attr(t, 'data-cord') === escapeXml(br.cord) && attr(t, 'data-target') === escapeXml(br.target),
+      );
+      expect(p, br.target).toBeDefined();
+      expect(attr(p ?? '', 'data-driver')).toBe(escapeXml(br.driver));
+      expect(`${br.part}.${attr(p ?? '', 'data-lever')}`).toBe(br.kind === 'port' ? br.target : `${br.part}.exit`);
+      if (br.kind === 'port')
+        expect(svg).toContain(`data-part="${escapeXml(br.part)}" data-lever="${attr(p ?? '', 'data-lever')}"`);
+      expect(svg).toContain(`data-part="${escapeXml(br.driver)}"`);
+    }
+  });
+
+  it('draws the same picture in the screen palette, in theme colours scoped to its own class', () => {
+    for (const name of exampleNames()) {
+      const b = example(name);
+      const paper = frameSvg(b.build, b.placement, b.profile);
+      const screen = frameSvg(b.build, b.placement, b.profile, { palette: 'screen' });
+      expect(xmlProblems(screen), name).toEqual([]);
+      const style = /<style>([\s\S]*?)<\/style>/;
+      const body = (svg: string): string => svg.replace(style, '').replace(' class="lw-frame"', '');
+      expect(body(screen), name).toBe(body(paper));
+      expect(screen).toMatch(/^<\?xml[^>]*>\s*<svg [^>]*class="lw-frame"/);
+      const rules = (style.exec(screen)?.[1] ?? '').trim().split('\n');
+      for (const r of rules) expect(r, name).toMatch(/^\.lw-frame /);
+      // No paper colour is left but the one black cords are picked out by.
+      expect(rules.join('\n').replace("[stroke='#000000']", ''), name).not.toMatch(/#[0-9a-f]{6}|url\(/i);
+      expect(rules.join('\n')).toContain('var(--lw-ink)');
+    }
+  });
+});

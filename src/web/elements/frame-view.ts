@@ -1,0 +1,484 @@
+/**
+ * <lw-frame>: the frame — the placed machine drawn along its drum(s), from the build's own
+ * placement and the same drawing as frame.svg (the core's frameSvg, in the page's theme
+ * colours). Pointing at a cord, tabbing to it or tapping it lights its run and its two ends
+ * (the capstan that pulls it, the lever it is tied to) and says where it goes in words. The
+ * trial run's levers stand on the frame as they stand now: a lever held down hangs below the
+ * pivot rail (the one meaning of "down" the trial run's lever drawings have, with their
+ * legend's glyphs beside), and the trial run can be stepped from here. Zoom and pan in the box;
+ * Print gives frame.svg at its scale.
+ * Events: `step` (as <lw-stepper>), `print-frame`.
+ */
+import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
+import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
+import type { BranchRoute, PartReading, Placement } from '../../core/index.js';
+import type { Stands } from '../frame/stands.js';
+import { screenSized, svgSizeMm, PX_PER_MM } from '../frame/sheet.js';
+import { shared } from '../styles/shared.js';
+import { touchScreen } from '../touch.js';
+import { emit } from './emit.js';
+import { LEVER_GLYPH_STYLES, leverGlyph, STAND_WORDS } from './lever-bank.js';
+
+/** The smallest text of the drawing, mm on paper (the key's part ids), and the least it may be on screen, px. */
+const SMALLEST_TEXT_MM = 2.1;
+export const MIN_TEXT_PX = 8;
+/** The zoom the view opens at: the drawing's labels at about 12 px (on a narrow screen, the least readable zoom). */
+const START_ZOOM = 1.5;
+/** A box narrower than this (a phone) opens the drawing at the smallest zoom whose text stays readable. */
+const NARROW_PX = 600;
+const MIN_ZOOM = MIN_TEXT_PX / (SMALLEST_TEXT_MM * PX_PER_MM);
+
+/** A cord branch, as the drawing names it. */
+interface Lit {
+  readonly cord: string;
+  readonly target: string;
+}
+
+const same = (a: Lit | undefined, b: Lit | undefined): boolean =>
+  a !== undefined && b !== undefined && a.cord === b.cord && a.target === b.target;
+
+export class LwFrame extends LitElement {
+  static override properties = {
+    drawing: { attribute: false },
+    placement: { attribute: false },
+    words: { attribute: false },
+    stands: { attribute: false },
+    reading: { attribute: false },
+    clocks: { type: Number },
+    canUndo: { type: Boolean },
+    printable: { type: Boolean },
+  };
+  /** The drawing (frameSvg in the screen palette), or why there is none. */
+  declare drawing: { readonly svg?: string; readonly problem?: string } | undefined;
+  declare placement: Placement | undefined;
+  /** What each part does, in words, by part id. */
+  declare words: ReadonlyMap<string, string> | undefined;
+  declare stands: Stands | undefined;
+  declare reading: PartReading | undefined;
+  declare clocks: number;
+  declare canUndo: boolean;
+  declare printable: boolean;
+  private zoom = START_ZOOM;
+  private zoomChosen = false;
+  /** The branch pointed at or focused, and the one tapped (it stays lit until tapped again). */
+  private hovered: Lit | undefined;
+  private pinned: Lit | undefined;
+  /** The drawing the cords were made focusable in. */
+  private prepared: SVGSVGElement | undefined;
+  /** The placement the box was last scrolled to the levers for. */
+  private scrolledFor: Placement | undefined;
+
+  constructor() {
+    super();
+    this.drawing = undefined;
+    this.placement = undefined;
+    this.words = undefined;
+    this.stands = undefined;
+    this.reading = undefined;
+    this.clocks = 0;
+    this.canUndo = false;
+    this.printable = false;
+  }
+
+  static override styles = [
+    shared,
+    LEVER_GLYPH_STYLES,
+    css`
+      :host {
+        display: grid;
+        grid-template-columns: minmax(0, 1fr);
+        gap: 0.9rem;
+      }
+      .panel {
+        min-width: 0;
+      }
+      .row {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.4rem;
+        align-items: center;
+        margin-bottom: 0.4rem;
+      }
+      button[aria-pressed='true'] {
+        background: var(--lw-brass);
+        color: var(--lw-panel);
+        border-color: var(--lw-brass);
+      }
+      /* Under the drawing, so that its words changing never moves the cords under the pointer. */
+      .readout {
+        min-height: 2.9em;
+        margin: 0.4rem 0 0;
+        padding: 0.3rem 0.6rem;
+        border-left: 4px solid var(--lw-line);
+        background: var(--lw-sunk);
+        overflow-wrap: anywhere;
+      }
+      .readout.on {
+        border-left-color: var(--lw-focus);
+      }
+      .sheet {
+        position: relative;
+        overflow: auto;
+        max-width: 100%;
+        max-height: 70vh;
+        background: var(--lw-panel);
+        border: 1px solid var(--lw-line);
+        border-radius: var(--lw-radius);
+        touch-action: pan-x pan-y pinch-zoom;
+      }
+      .sheet svg {
+        display: block;
+      }
+      /* The cords: each one a target to point at, tab to or tap. */
+      .sheet path.cord[data-cord] {
+        stroke-width: 0.45px;
+      }
+      .sheet path.hit {
+        fill: none;
+        stroke: transparent;
+        /* As wide as the space between two lanes of a cord channel (frame-svg.ts), no wider. */
+        stroke-width: 1px;
+        pointer-events: stroke;
+        cursor: pointer;
+      }
+      .sheet path.cord[data-cord]:focus {
+        outline: none;
+      }
+      .sheet.lighting path.cord:not(.lit) {
+        opacity: 0.22;
+      }
+      .sheet path.cord.lit {
+        stroke-width: 0.9px;
+      }
+      .sheet .end rect,
+      .sheet rect.end {
+        stroke: var(--lw-focus);
+        stroke-width: 0.7px;
+      }
+      .sheet g.end text {
+        fill: var(--lw-focus);
+        font-weight: 700;
+      }
+      /* The trial run's levers as they stand: held down hangs below the rail; undetermined is dashed. */
+      .sheet rect.lever[data-stand='down'] {
+        transform-box: fill-box;
+        transform: translateY(100%);
+        fill: var(--lw-brass);
+      }
+      .sheet rect.lever[data-stand='X'] {
+        fill: color-mix(in srgb, var(--lw-x) 30%, var(--lw-panel));
+        stroke: var(--lw-x);
+        stroke-dasharray: 0.6 0.4;
+      }
+      .legend {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.3rem 1.2rem;
+        margin: 0.6rem 0 0;
+        font-size: 0.8rem;
+        color: var(--lw-ink-soft);
+      }
+      .legend div {
+        display: flex;
+        align-items: center;
+        gap: 0.3rem;
+        max-width: 24rem;
+      }
+      .legend svg {
+        flex: none;
+      }
+      .swatch .rail {
+        stroke: var(--lw-ink-soft);
+        stroke-width: 2px;
+      }
+      .swatch .end {
+        fill: var(--lw-sunk);
+        stroke: var(--lw-ink);
+        stroke-width: 1px;
+      }
+      .swatch .down {
+        fill: var(--lw-brass);
+      }
+      .swatch .x {
+        fill: color-mix(in srgb, var(--lw-x) 30%, var(--lw-panel));
+        stroke: var(--lw-x);
+        stroke-dasharray: 3 2;
+      }
+    `,
+  ];
+
+  override render() {
+    const svg = this.drawing?.svg;
+    if (this.drawing?.problem !== undefined)
+      return html`<p class="bad" role="alert">No frame drawing: ${this.drawing.problem}</p>`;
+    if (svg === undefined || !this.placement)
+      return html`<p class="soft">The frame appears once the machine builds: every part in its bay along the drum.</p>`;
+    const p = this.placement;
+    const size = svgSizeMm(svg);
+    const scale = /scale 1:(\d+)/.exec(svg)?.[1] ?? '?';
+    const touch = touchScreen();
+    return html`<section class="panel" aria-label="The frame">
+      <h2>Frame &amp; cords</h2>
+      <p class="soft" data-frame-summary>
+        ${p.bays.length} bays on ${p.drums.length === 1 ? 'one drum' : `${p.drums.length} drums`}
+        (${p.drums.map((d) => `${d.lengthM.toFixed(2)} m`).join(', ')}); ${p.totalCordM.toFixed(2)} m of cord in
+        ${p.routing.cords.length} cords. Drawn at 1:${scale} on paper.
+        ${touch ? 'Tap a cord to light its run and both ends; drag to pan.' : 'Point at a cord, or Tab to it, to light its run and both ends.'}
+      </p>
+      <div class="row">
+        <button @click=${() => this.setZoom(this.zoom * 1.25)} aria-label="Enlarge the frame">+</button>
+        <button @click=${() => this.setZoom(this.zoom / 1.25)} aria-label="Shrink the frame">−</button>
+        <button
+          @click=${() => this.fitWidth(size?.w ?? 0)}
+          aria-label="Shrink the frame to the width of its box, as far as its text stays readable"
+        >
+          Fit width
+        </button>
+        <button
+          class="primary"
+          data-do="print-frame"
+          ?disabled=${!this.printable}
+          @click=${() => emit(this, 'print-frame', {})}
+          title="Print frame.svg at 100 %: to scale 1:${scale}"
+        >
+          Print to scale
+        </button>
+      </div>
+      ${this.trialRow()}
+      <div
+        class="sheet ${this.lit() ? 'lighting' : ''}"
+        role="group"
+        aria-label="Front elevation of the frame: visitor end on the left, crank end on the right; the box scrolls"
+        @pointerover=${this.onOver}
+        @pointerout=${this.onOut}
+        @focusin=${this.onOver}
+        @focusout=${this.onOut}
+        @click=${this.onTap}
+        @keydown=${this.onKey}
+      >
+        ${unsafeSVG(screenSized(svg, this.zoom))}
+      </div>
+      <p class="readout ${this.lit() ? 'on' : ''}" role="status" aria-live="polite" data-readout>${this.litWords()}</p>
+      ${this.legend()}
+    </section>`;
+  }
+
+  /** Step the trial run from here: its levers stand on the frame. */
+  private trialRow() {
+    const r = this.reading;
+    if (!r) return nothing;
+    const step = (d: Record<string, unknown>) => () => emit(this, 'step', d);
+    return html`<div class="row" role="group" aria-label="Trial run">
+      <span
+        >Trial run, clock <strong data-read="clocks">${this.clocks}</strong>, state
+        <strong data-read="state">${r.state ?? (r.code.includes('X') ? 'undetermined' : 'unused code')}</strong>:</span
+      >
+      ${Object.entries(r.inputs).map(
+        ([name, v]) =>
+          html`<button
+            aria-pressed=${v === 1 ? 'true' : 'false'}
+            data-input=${name}
+            @click=${step({ do: 'input', input: name, value: v === 1 ? 0 : 1 })}
+          >
+            ${name}
+          </button>`,
+      )}
+      <button aria-pressed=${r.phi1 ? 'true' : 'false'} data-do="phi1" @click=${step({ do: 'phi1' })}>φ1</button>
+      <button aria-pressed=${r.phi2 ? 'true' : 'false'} data-do="phi2" @click=${step({ do: 'phi2' })}>φ2</button>
+      <button data-do="clock" @click=${step({ do: 'clock' })}>Whole clock</button>
+      <button data-do="reset" @click=${step({ do: 'reset' })}>Reset</button>
+      <button data-do="undo" ?disabled=${!this.canUndo} @click=${step({ do: 'undo' })}>Undo</button>
+    </div>`;
+  }
+
+  private legend() {
+    const swatch = (cls: string, down: boolean) =>
+      html`<svg class="swatch" width="34" height="40" viewBox="0 0 34 40" aria-hidden="true">
+        <line class="rail" x1="2" y1="20" x2="32" y2="20"></line>
+        <rect class="end ${cls}" x="13" y=${down ? 20 : 6} width="8" height="14"></rect>
+      </svg>`;
+    return html`<div class="legend" role="note" aria-label="How the levers stand on the frame">
+      <div>
+        ${swatch('down', true)}${leverGlyph('down', '')}<span
+          ><strong>Down</strong>, hanging below the rail in brass: ${STAND_WORDS.down}.</span
+        >
+      </div>
+      <div>
+        ${swatch('', false)}${leverGlyph('up', '')}<span><strong>Up</strong>, above the rail: ${STAND_WORDS.up}.</span>
+      </div>
+      <div>
+        ${swatch('x', false)}${leverGlyph('X', '')}<span><strong>Dashed</strong>: ${STAND_WORDS.X}.</span>
+      </div>
+      <div>
+        <span
+          >Beside each look, the trial run's drawing of the same lever: the frame shows lever ends end on. Every gate
+          stands the same way: its Z lever is down while the gate gives 1, a port lever while a cord on it pulls.</span
+        >
+      </div>
+    </div>`;
+  }
+
+  private lit(): Lit | undefined {
+    return this.hovered ?? this.pinned;
+  }
+
+  private branchOf(l: Lit | undefined): BranchRoute | undefined {
+    return l ? this.placement?.routing.branches.find((b) => b.cord === l.cord && b.target === l.target) : undefined;
+  }
+
+  /** The lit branch in words: from where, to where, how long, over what. */
+  private litWords() {
+    const b = this.branchOf(this.lit());
+    if (!b) return html`<span class="soft">No cord lit.</span>`;
+    const bays = this.placement?.bays ?? [];
+    const at = (part: string): string => {
+      const bay = bays.find((x) => x.part === part);
+      const words = this.words?.get(part);
+      return `${bay ? `bay ${bay.bay}, drum ${bay.drum}` : part}${words ? ` (${words})` : ''}`;
+    };
+    const lever = b.kind === 'port' ? `lever ${b.target.slice(b.part.length + 1)} of ` : 'the exit of ';
+    const over = [
+      b.pulleys > 0 ? `${b.pulleys} ${b.pulleys === 1 ? 'pulley' : 'pulleys'}` : '',
+      b.pins.length > 0 ? `${b.pins.length} ${b.pins.length === 1 ? 'pin' : 'pins'}` : '',
+    ].filter((s) => s !== '');
+    return html`Cord <strong class="mono" data-lit-cord=${b.cord}>${b.cord}</strong>: from the capstan in
+      ${at(b.driver)} to ${lever}${at(b.part)}; ${b.lengthM.toFixed(2)} m to
+      cut${over.length ? `, over ${over.join(' and ')}` : ''}.`;
+  }
+
+  /** A new placement: its cords are other cords, so none stays lit. */
+  protected override willUpdate(changed: PropertyValues<this>): void {
+    if (changed.has('placement')) {
+      this.hovered = undefined;
+      this.pinned = undefined;
+    }
+  }
+
+  protected override updated(): void {
+    const root = this.renderRoot.querySelector<SVGSVGElement>('.sheet svg');
+    if (!root) return;
+    if (!this.zoomChosen) {
+      // Once, on the first drawing: a phone sees more of the frame at the smallest readable size.
+      this.zoomChosen = true;
+      const box = root.parentElement;
+      if (box && box.clientWidth < NARROW_PX) this.setZoom(MIN_ZOOM);
+    }
+    if (root !== this.prepared) {
+      this.prepared = root;
+      for (const path of root.querySelectorAll<SVGPathElement>('path.cord[data-cord]')) {
+        path.setAttribute('tabindex', '0');
+        path.setAttribute('role', 'button');
+        path.setAttribute('aria-label', `Cord ${path.querySelector('title')?.textContent ?? ''}`);
+        // A wider, unseen copy over it, so a finger or a pointer finds a cord a fraction of a millimetre thick.
+        const hit = path.cloneNode(true) as SVGPathElement;
+        hit.setAttribute('class', 'hit');
+        for (const a of ['tabindex', 'role', 'aria-label']) hit.removeAttribute(a);
+        hit.setAttribute('aria-hidden', 'true');
+        path.after(hit);
+      }
+    }
+    this.showStands(root);
+    this.showLit(root);
+    if (this.scrolledFor !== this.placement) {
+      this.scrolledFor = this.placement;
+      this.scrollToLevers(root);
+    }
+    // For the browser tests: the zoom, and the size of the drawing's smallest text on screen.
+    this.dataset.zoom = String(this.zoom);
+    this.dataset.smallestTextPx = (SMALLEST_TEXT_MM * PX_PER_MM * this.zoom).toFixed(2);
+  }
+
+  /** Scroll the box down past the title block, to the bay labels and lever ends of the highest drum. */
+  private scrollToLevers(root: SVGSVGElement): void {
+    const box = root.parentElement;
+    const labels = [...root.querySelectorAll('g[data-part] text')];
+    if (!box || labels.length === 0) return;
+    const top = Math.min(...labels.map((t) => t.getBoundingClientRect().top));
+    box.scrollTop += top - box.getBoundingClientRect().top - 8;
+  }
+
+  /** Every lever end takes its stand in the trial run (none when the trial run has no machine). */
+  private showStands(root: SVGSVGElement): void {
+    for (const el of root.querySelectorAll('rect.lever[data-part][data-lever]')) {
+      const s = this.stands?.get(el.getAttribute('data-part') ?? '')?.get(el.getAttribute('data-lever') ?? '');
+      if (s) el.setAttribute('data-stand', s);
+      else el.removeAttribute('data-stand');
+    }
+  }
+
+  /** The lit branch, its capstan end (the wraps and the label of the bay that pulls it) and its lever end. */
+  private showLit(root: SVGSVGElement): void {
+    for (const el of root.querySelectorAll('.lit, .end')) el.classList.remove('lit', 'end', 'from', 'to');
+    const l = this.lit();
+    const b = this.branchOf(l);
+    if (!l || !b) return;
+    const lever = b.kind === 'port' ? b.target.slice(b.part.length + 1) : 'exit';
+    for (const el of root.querySelectorAll('[data-cord]'))
+      if (el.getAttribute('data-cord') === l.cord && el.getAttribute('data-target') === l.target)
+        el.classList.add('lit');
+    for (const el of root.querySelectorAll('[data-part]:not([data-cord])')) {
+      const part = el.getAttribute('data-part');
+      const at = el.getAttribute('data-lever');
+      if (part === b.driver && at === null) el.classList.add('end', 'from');
+      if (part === b.part && (at === null ? el.localName === 'g' : at === lever)) el.classList.add('end', 'to');
+    }
+  }
+
+  private static branchAt(e: Event): Lit | undefined {
+    const t = e.composedPath()[0];
+    if (!(t instanceof Element)) return undefined;
+    const path = t.closest('[data-cord][data-target]');
+    const cord = path?.getAttribute('data-cord');
+    const target = path?.getAttribute('data-target');
+    return cord && target ? { cord, target } : undefined;
+  }
+
+  private onOver = (e: Event): void => {
+    const l = LwFrame.branchAt(e);
+    if (!l || same(l, this.hovered)) return;
+    this.hovered = l;
+    this.requestUpdate();
+  };
+
+  private onOut = (e: Event): void => {
+    if (!this.hovered || !LwFrame.branchAt(e)) return;
+    const next = e instanceof FocusEvent || e instanceof PointerEvent ? e.relatedTarget : null;
+    if (next instanceof Element && next.closest('[data-cord][data-target]')) return;
+    this.hovered = undefined;
+    this.requestUpdate();
+  };
+
+  /** A tap (or click, or Enter) on a cord keeps it lit; on it again, or off every cord, lets it go. */
+  private onTap = (e: Event): void => {
+    const l = LwFrame.branchAt(e);
+    this.pinned = l && !same(l, this.pinned) ? l : undefined;
+    if (!l) this.hovered = undefined;
+    this.requestUpdate();
+  };
+
+  private onKey = (e: KeyboardEvent): void => {
+    if ((e.key !== 'Enter' && e.key !== ' ') || !LwFrame.branchAt(e)) return;
+    e.preventDefault();
+    e.stopPropagation();
+    this.onTap(e);
+  };
+
+  private setZoom(z: number): void {
+    this.zoom = Math.min(6, Math.max(MIN_ZOOM, z));
+    this.requestUpdate();
+  }
+
+  /** As wide as the box, but never with text smaller than MIN_TEXT_PX: then the box pans. */
+  private fitWidth(widthMm: number): void {
+    const box = this.renderRoot.querySelector<HTMLElement>('.sheet');
+    if (box && widthMm > 0) this.setZoom((box.clientWidth - 2) / (widthMm * PX_PER_MM));
+  }
+}
+
+customElements.define('lw-frame', LwFrame);
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'lw-frame': LwFrame;
+  }
+}
