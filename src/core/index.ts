@@ -250,6 +250,8 @@ export {
   cutListRows,
   frameScale,
   frameSvg,
+  isoSheetFor,
+  type IsoSheet,
   partWords,
   buildDocuments,
   buildSheet,

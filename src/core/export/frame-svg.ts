@@ -64,13 +64,27 @@ export function frameScale(lengthM: number, heightM = 0): number {
   );
 }
 
-/** The smallest ISO 216 sheet that holds a drawing `w` × `h` mm at 100 %, and which way up ('' past A0): 'A3 sheet, portrait,'. */
-export function paperFor(w: number, h: number): string {
+/** An ISO 216 A sheet as it must lie to hold a drawing: its name, which way up, and its size in mm. */
+export interface IsoSheet {
+  readonly name: string;
+  readonly orientation: 'portrait' | 'landscape';
+  readonly widthMm: number;
+  readonly heightMm: number;
+}
+
+/** The smallest ISO 216 A sheet, upright first, then turned, that holds a drawing `w` × `h` mm at 100 % (undefined past A0). */
+export function isoSheetFor(w: number, h: number): IsoSheet | undefined {
   for (const [name, a, b] of SHEETS) {
-    if (w <= a && h <= b) return `${name} sheet, portrait,`;
-    if (w <= b && h <= a) return `${name} sheet, landscape,`;
+    if (w <= a && h <= b) return { name, orientation: 'portrait', widthMm: a, heightMm: b };
+    if (w <= b && h <= a) return { name, orientation: 'landscape', widthMm: b, heightMm: a };
   }
-  return '';
+  return undefined;
+}
+
+/** The sheet of `isoSheetFor` in the drawing's words ('' past A0): 'A3 sheet, portrait,'. */
+export function paperFor(w: number, h: number): string {
+  const s = isoSheetFor(w, h);
+  return s ? `${s.name} sheet, ${s.orientation},` : '';
 }
 
 /** A channel run of one branch and its lane. */

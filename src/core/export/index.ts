@@ -12,7 +12,7 @@
 export type { DocumentsInput, Drawings } from './build-sheet.js';
 export { camsSvg, camSpecs, RAMP_MAX_DEG } from './cams-svg.js';
 export { cutListCsv, cutListRows, cutMetres, type CutRow } from './cut-list.js';
-export { frameScale, frameSvg } from './frame-svg.js';
+export { frameScale, frameSvg, isoSheetFor, type IsoSheet } from './frame-svg.js';
 export { partWords } from './part-words.js';
 export {
   buildDocuments,

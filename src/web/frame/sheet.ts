@@ -5,14 +5,7 @@
  * never shrunk to fit — so a print at 100 % measures true against its scale bar. Pure.
  */
 
-/** ISO 216 A sheets, portrait width × height in millimetres (ISO 216:2007). */
-export const ISO_A: readonly { readonly name: string; readonly w: number; readonly h: number }[] = [
-  { name: 'A4', w: 210, h: 297 },
-  { name: 'A3', w: 297, h: 420 },
-  { name: 'A2', w: 420, h: 594 },
-  { name: 'A1', w: 594, h: 841 },
-  { name: 'A0', w: 841, h: 1189 },
-];
+import { isoSheetFor } from '../../core/index.js';
 
 export interface Paper {
   /** 'A4 landscape', or 'custom' when no A sheet holds the drawing. */
@@ -27,11 +20,10 @@ export interface Paper {
  * page adds no margin).
  */
 export function paperFor(w: number, h: number): Paper {
-  for (const s of ISO_A) {
-    if (w <= s.w && h <= s.h) return { name: `${s.name} portrait`, widthMm: s.w, heightMm: s.h };
-    if (w <= s.h && h <= s.w) return { name: `${s.name} landscape`, widthMm: s.h, heightMm: s.w };
-  }
-  return { name: 'custom', widthMm: Math.ceil(w), heightMm: Math.ceil(h) };
+  const s = isoSheetFor(w, h);
+  return s
+    ? { name: `${s.name} ${s.orientation}`, widthMm: s.widthMm, heightMm: s.heightMm }
+    : { name: 'custom', widthMm: Math.ceil(w), heightMm: Math.ceil(h) };
 }
 
 /** Width and height of an SVG document whose size is given in millimetres, or undefined. */
