@@ -23,6 +23,8 @@ export interface BuildFigures {
   readonly checkMs: number;
   readonly cost: number;
   readonly checksPassed: boolean;
+  /** The checks that fail, the layout check with its drum count. */
+  readonly failing?: readonly string[];
   readonly peakRssMb: number;
   readonly problem?: string;
 }
@@ -106,6 +108,11 @@ async function buildOne(source: string): Promise<BuildFigures> {
     checkMs,
     cost: partsCost(b.build.parts, b.profile.cost),
     checksPassed: b.checks.every((c) => c.ok),
+    failing: b.checks
+      .filter((c) => !c.ok)
+      .map((c) =>
+        c.name === 'layout' ? `layout (${c.drums.length} drums; a frame carries ${c.drumsAllowed})` : c.name,
+      ),
     peakRssMb: peak(),
   };
 }
