@@ -11,9 +11,7 @@
  */
 import { Worker } from 'node:worker_threads';
 import {
-  BUILD_DEFAULTS,
-  buildSearchSetup,
-  planSearch,
+  planBuildSearch,
   searchOutcome,
   searchTaskRunner,
   type Analysed,
@@ -51,11 +49,9 @@ export async function searchOnThreads(
   threads: number,
   onProgress?: (p: Progress) => void,
 ): Promise<EncodeResult | undefined> {
-  if ((opts.encoding ?? BUILD_DEFAULTS.encoding) !== 'auto') return undefined;
-  const setup = buildSearchSetup(a, opts);
-  if (!('machine' in setup)) return undefined;
-  const { plan, diagnostics } = planSearch(setup, onProgress ? { onProgress } : {});
-  if (!plan) return undefined;
+  const planned = planBuildSearch(a, opts, onProgress);
+  if (!planned) return undefined;
+  const { setup, plan, diagnostics } = planned;
   const pool = threads >= 2 && setup.machine.states.length >= THREADS_FROM_STATES ? startPool(setup, threads) : [];
   const local = searchTaskRunner(setup);
   try {

@@ -74,6 +74,7 @@ export {
   BUILD_DEFAULTS,
   buildMachine,
   buildSearchSetup,
+  planBuildSearch,
   compareEncodings,
   runChecks,
   type AnalyseOptions,

@@ -34,7 +34,8 @@ import { lossByBranch } from './physics/routing.js';
 import { balanceDrive } from './physics/buffer-tree.js';
 import { pinDiagnostics, place, type Pin, type Placement } from './phases/place/index.js';
 import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
-import { recovered, searchOptions, synthesisOptions, type SearchSetup } from './search.js';
+import { planSearch, recovered, searchOptions, synthesisOptions, type SearchSetup } from './search.js';
+import type { AutoSearch, Progress } from './phases/encode/index.js';
 import type { GuardMethod } from './phases/guard.js';
 import type { FlatMachine } from './model/flat.js';
 import { readMachine, type MachineForm } from './forms/detect.js';
@@ -230,6 +231,24 @@ export function buildSearchSetup(a: Analysed, opts: BuildOptions = {}): SearchSe
     ...pinnedCodes(a),
     ...(opts.budget?.evaluations !== undefined ? { evaluations: opts.budget.evaluations } : {}),
   };
+}
+
+/**
+ * The build's automatic search as a plan a shell can run in pieces (on threads or workers), with
+ * the setup it was planned from and the diagnostics of planning; undefined when this build does
+ * not search (another encoding, or options the build itself will reject), so the shell builds
+ * as usual.
+ */
+export function planBuildSearch(
+  a: Analysed,
+  opts: BuildOptions = {},
+  onProgress?: (p: Progress) => void,
+): { setup: SearchSetup; plan: AutoSearch; diagnostics: Diagnostic[] } | undefined {
+  if ((opts.encoding ?? BUILD_DEFAULTS.encoding) !== 'auto') return undefined;
+  const setup = buildSearchSetup(a, opts);
+  if (!('machine' in setup)) return undefined;
+  const { plan, diagnostics } = planSearch(setup, onProgress ? { onProgress } : {});
+  return plan ? { setup, plan, diagnostics } : undefined;
 }
 
 /** Rounds of placing and balancing again at most: each round only adds buffers, so a few settle it. */

@@ -6,9 +6,7 @@
  * Progress is reported as the tasks finish. Without Worker support it all runs here.
  */
 import {
-  BUILD_DEFAULTS,
-  buildSearchSetup,
-  planSearch,
+  planBuildSearch,
   searchOutcome,
   searchTaskRunner,
   type Analysed,
@@ -42,11 +40,9 @@ export async function searchOnTwoCores(
   opts: BuildOptions,
   onProgress?: (p: Progress) => void,
 ): Promise<EncodeResult | undefined> {
-  if ((opts.encoding ?? BUILD_DEFAULTS.encoding) !== 'auto') return undefined;
-  const setup = buildSearchSetup(a, opts);
-  if (!('machine' in setup)) return undefined;
-  const { plan, diagnostics } = planSearch(setup, onProgress ? { onProgress } : {});
-  if (!plan) return undefined;
+  const planned = planBuildSearch(a, opts, onProgress);
+  if (!planned) return undefined;
+  const { setup, plan, diagnostics } = planned;
   const local = searchTaskRunner(setup);
   const h = startHelper();
   const build = ++builds;
