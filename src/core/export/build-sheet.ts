@@ -56,6 +56,30 @@ export interface Drawings {
   readonly schematic: string;
 }
 
+/** Each drawing as a figure, with the one caption every sheet that embeds it uses. */
+export function drawingFigures(drawings: Drawings): Record<keyof Drawings, Block> {
+  return {
+    frame: {
+      kind: 'figure',
+      svg: drawings.frame,
+      file: 'frame.svg',
+      caption: 'The frame, front elevation to scale (the scale is on the drawing)',
+    },
+    stateDiagram: {
+      kind: 'figure',
+      svg: drawings.stateDiagram,
+      file: 'state-diagram.svg',
+      caption: 'The machine as written: states, codes and transitions',
+    },
+    schematic: {
+      kind: 'figure',
+      svg: drawings.schematic,
+      file: 'schematic.svg',
+      caption: 'The parts and cords, left to right through one clock',
+    },
+  };
+}
+
 /** The safety cautions every build sheet, commissioning sheet and guide carries (DESIGN §9). */
 export const CAUTIONS: readonly string[] = [
   'Turning drums catch hair, cords, sleeves and fingers: guard them and fit a stop within reach.',
@@ -444,13 +468,7 @@ function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Se
     ),
   ];
   if (layout) blocks.push(p(`Layout check: ${layout.ok ? 'passed' : 'FAILED'} — ${layout.summary}`));
-  if (drawings)
-    blocks.push({
-      kind: 'figure',
-      svg: drawings.frame,
-      file: 'frame.svg',
-      caption: 'The frame, front elevation to scale (the scale is on the drawing)',
-    });
+  if (drawings) blocks.push(drawingFigures(drawings).frame);
   blocks.push(
     table(
       ['drum', 'bay', 'from visitor end (m)', 'part', 'what it does', 'levers'],
@@ -473,23 +491,11 @@ function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Se
 
 /** The state diagram and the schematic, each on its own page. */
 function drawingsSection(drawings: Drawings): Section {
+  const figures = drawingFigures(drawings);
   return {
     id: 'drawings',
     title: 'State diagram and schematic',
-    blocks: [
-      {
-        kind: 'figure',
-        svg: drawings.stateDiagram,
-        file: 'state-diagram.svg',
-        caption: 'The machine as written: states, codes and transitions',
-      },
-      {
-        kind: 'figure',
-        svg: drawings.schematic,
-        file: 'schematic.svg',
-        caption: 'The parts and cords, left to right through one clock',
-      },
-    ],
+    blocks: [figures.stateDiagram, figures.schematic],
   };
 }
 

@@ -8,7 +8,7 @@
 import type { Build } from '../model/build.js';
 import type { Placement } from '../phases/place/index.js';
 import { renderDocHtml } from './build-sheet-html.js';
-import { CAUTIONS, type Drawings } from './build-sheet.js';
+import { CAUTIONS, drawingFigures, type Drawings } from './build-sheet.js';
 import { bayWords, showsWords, type CommissioningRow } from './commissioning.js';
 import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { partWords } from './part-words.js';
@@ -63,25 +63,8 @@ function whereSection(build: Build, placement: Placement): Section {
 }
 
 function drawingsSection(drawings: Drawings): Section {
-  return {
-    id: 'drawings',
-    title: 'Drawings',
-    blocks: [
-      { kind: 'figure', svg: drawings.frame, file: 'frame.svg', caption: 'The frame, front elevation to scale' },
-      {
-        kind: 'figure',
-        svg: drawings.stateDiagram,
-        file: 'state-diagram.svg',
-        caption: 'The machine as written: states, codes and transitions',
-      },
-      {
-        kind: 'figure',
-        svg: drawings.schematic,
-        file: 'schematic.svg',
-        caption: 'The parts and cords through one clock',
-      },
-    ],
-  };
+  const f = drawingFigures(drawings);
+  return { id: 'drawings', title: 'Drawings', blocks: [f.frame, f.stateDiagram, f.schematic] };
 }
 
 /** The commissioning sheet as a Doc; `placement` names every lever by its bay, `drawings` adds the drawings. */
