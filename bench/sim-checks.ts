@@ -18,6 +18,7 @@ import {
   type Analysed,
   buildMachine,
   type Build,
+  type Built,
   checkEquivalence,
   checkForbiddenInput,
   checkRecovery,
@@ -25,7 +26,6 @@ import {
   createRunner,
   DEFAULT_PROFILE,
   exportXstate,
-  place,
   randomFlatMachine,
   runChecks,
   seededRandom,
@@ -74,10 +74,10 @@ const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `$
 const rate = (n: number, t: number): string => `${Math.round((n / t) * 1000).toLocaleString('en')}`;
 
 /** A build without its checks, with `encoding` or else the command line's default (as the designer builds). */
-function mustBuild(a: Analysed, encoding?: 'binary'): Build {
+function mustBuild(a: Analysed, encoding?: 'binary'): Built {
   const b = buildMachine(a, { ...(encoding ? { encoding } : {}), checks: false });
   if (!b.ok) throw new Error(b.diagnostics.map((d) => d.message).join('; '));
-  return b.build;
+  return b;
 }
 
 const GOAL_RATIO = 10;
@@ -176,7 +176,7 @@ function lanesRow(label: string, a: Analysed, build: Build, clocks: number): Sim
 function checksRows(): SimBenchRow[] {
   const text = flatToJsonText(randomFlatMachine(200, 6, 2, 3));
   const a = mustAnalyse(text, 'random-200.json');
-  const build = mustBuild(a, 'binary');
+  const { build, placement } = mustBuild(a, 'binary');
   const spec = { original: a.flat, merged: a.minimised.merged };
   const sim = simFor(build, timingOf(DEFAULT_PROFILE));
   const checks = (): void => {
@@ -184,8 +184,7 @@ function checksRows(): SimBenchRow[] {
     checkForbiddenInput(build, DEFAULT_PROFILE);
     checkRecovery(build, DEFAULT_PROFILE);
   };
-  // The build's placement is made once, as a build makes it (the designer's checks reuse it too).
-  const placement = place(build.netlist, DEFAULT_PROFILE, { seed: 1 });
+  // The checks reuse the build's own placement, as builds and the designer's checks do.
   const every = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1, placement);
   const inputs = grayAssignments(build.machine.inputs.length);
   const eventDriven = (): void => {
@@ -221,8 +220,7 @@ function checksRows(): SimBenchRow[] {
 function cseRow(): SimBenchRow {
   const file = 'tests/fixtures/lgsynth91/cse.json';
   const a = mustAnalyse(readFileSync(file, 'utf8'), file);
-  const build = mustBuild(a);
-  const placement = place(build.netlist, DEFAULT_PROFILE, { seed: 1 });
+  const { build, placement } = mustBuild(a);
   const checks = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1, placement);
   const rebuild = (): void => void mustBuild(a);
   checks();
@@ -244,14 +242,14 @@ export function benchSimulatorAndChecks(quick: boolean): { rows: SimBenchRow[]; 
   for (const name of examples) {
     const file = `examples/${name}.lw`;
     const a = mustAnalyse(readFileSync(file, 'utf8'), file);
-    rows.push(runnerRow(`example ${name}`, a, mustBuild(a, 'binary'), clocks));
+    rows.push(runnerRow(`example ${name}`, a, mustBuild(a, 'binary').build, clocks));
   }
   const crossing = mustAnalyse(readFileSync('examples/crossing.lw', 'utf8'), 'crossing.lw');
-  rows.push(lanesRow('example crossing', crossing, mustBuild(crossing, 'binary'), clocks));
+  rows.push(lanesRow('example crossing', crossing, mustBuild(crossing, 'binary').build, clocks));
   if (!quick) {
     const file = 'tests/fixtures/lgsynth91/s298.json';
     const s298 = mustAnalyse(readFileSync(file, 'utf8'), file);
-    const build = mustBuild(s298, 'binary');
+    const { build } = mustBuild(s298, 'binary');
     rows.push(runnerRow("LGSynth'91 s298", s298, build, clocks));
     rows.push(lanesRow("LGSynth'91 s298", s298, build, clocks));
     rows.push(...checksRows());
