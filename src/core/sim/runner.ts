@@ -8,10 +8,17 @@
  * only when read; undo keeps a log of the steps and a copy of the state every
  * `CHECKPOINT_EVERY` steps, and goes back by replaying from the nearest copy (the step is
  * deterministic, so the replay gives the same state).
+ *
+ * A clock seen before costs one look-up: the memo (memo.ts) keeps, per ready state and input
+ * levers, where the clock ends, its two readings and its times as offsets. The step is
+ * deterministic and only shifts in time, so the memo's answer is the one settling would give
+ * (memo.ts gives the argument); clocks with alarms, or from a state that is not ready, are
+ * always settled.
  */
 import type { Build } from '../model/build.js';
 import { X } from './compile.js';
 import { isBinary, moverFor, type FastMover } from './fast.js';
+import { ClockMemo, MEMO_BYTES, type MemoClock, type MemoState, type MemoStats } from './memo.js';
 import { describeAction, RULE_WORDS, type HandAction, type InputValues, type OperatingRule } from './hand.js';
 import {
   applyFastInPlace,
@@ -51,6 +58,14 @@ export interface PartRunner {
   undo(): boolean;
   /** Labels of the steps that undo would take back, oldest first. */
   readonly history: readonly string[];
+  /** How the memo of clocks has served so far (memo.ts). */
+  memoStats(): MemoStats;
+}
+
+/** Options of a runner. */
+export interface RunnerOptions {
+  /** Bound on the memory of the memo of clocks, in bytes (default MEMO_BYTES, 16 MiB); 0: no memo. */
+  readonly memoBytes?: number;
 }
 
 /** Bytes per block of kept readings. */
@@ -188,14 +203,25 @@ class Runner implements PartRunner {
   private blockUsed = 0;
   /** Events of one move (reused: most moves raise none). */
   private readonly events: PartEvent[] = [];
+  private readonly memo: ClockMemo;
+  /** The memo's state for the current values, when known (any lever move forgets it). */
+  private at: MemoState | null = null;
 
-  constructor(readonly sim: PartSim) {
+  constructor(
+    readonly sim: PartSim,
+    memoBytes: number,
+  ) {
     const [s] = powerUp(sim);
     this.values = s.values.slice();
     this.timeUs = s.timeUs;
     this.ready = isBinary(sim, this.values);
     this.mover = moverFor(sim);
     this.drivers = readingDrivers(sim);
+    this.memo = new ClockMemo(sim, memoBytes);
+  }
+
+  memoStats(): MemoStats {
+    return this.memo.stats();
   }
 
   get state(): PartState {
@@ -221,6 +247,20 @@ class Runner implements PartRunner {
     if (names.length <= 30) for (let i = 0; i < names.length; i++) packed |= (inputs[names[i]] === 1 ? 1 : 0) << i;
     else packed = names.map((n) => (inputs[n] === 1 ? '1' : '0')).join('');
     this.remember(CLOCK, packed);
+    const t0 = this.timeUs;
+    const seen = this.recall(packed);
+    if (seen)
+      return new LazyClockRecord(
+        inputs,
+        this.sim,
+        this.drivers,
+        seen.kept,
+        0,
+        t0 + seen.heldDt,
+        this.timeUs,
+        NO_ALARMS,
+      );
+    const from = this.ready ? this.at : null;
     this.alarms = null;
     this.setInputs(packed);
     const ds = this.drivers;
@@ -232,6 +272,8 @@ class Runner implements PartRunner {
     for (let i = 0; i < ds.length; i++) kept[at + ds.length + i] = this.values[ds[i]];
     const alarms = this.alarms ?? NO_ALARMS;
     this.alarms = null;
+    if (from && alarms.length === 0)
+      this.memorise(from, packed, kept.subarray(at, at + 2 * ds.length), heldUs - t0, t0);
     return new LazyClockRecord(inputs, this.sim, ds, kept, at, heldUs, this.timeUs, alarms);
   }
 
@@ -249,6 +291,7 @@ class Runner implements PartRunner {
     this.values = cp.values.slice();
     this.timeUs = cp.timeUs;
     this.ready = cp.ready;
+    this.at = null;
     for (let i = cp.at; i < k; i++) this.replay(this.log.kind(i), this.log.payload(i));
     return true;
   }
@@ -275,14 +318,47 @@ class Runner implements PartRunner {
   private replay(kind: number, payload: HandAction | number | string | null): void {
     if (kind === ACT) this.doAct(payload as HandAction);
     else if (kind === RESET) this.doReset();
-    else {
+    else if (!this.recall(payload as number | string)) {
       this.setInputs(payload as number | string);
       this.clockLevers();
     }
     this.alarms = null;
   }
 
+  /**
+   * The clock with these input levers from the memo, when it holds it: the state is moved to
+   * the clock's end (values, time, memo state) and the kept clock returned; else null, with
+   * `this.at` the memo's state for the current values when they are ready and the memo has room.
+   */
+  private recall(packed: number | string): MemoClock | null {
+    const memo = this.memo;
+    if (!this.ready || !memo.usable) return null;
+    let from = this.at;
+    if (from === null || !memo.holds(from)) from = this.at = memo.stateOf(this.values);
+    const seen = from?.clocks.get(packed);
+    // Offsets are exact only while the end time stays a safe integer (memo.ts).
+    if (seen === undefined || this.timeUs > Number.MAX_SAFE_INTEGER - seen.doneDt) {
+      memo.misses++;
+      return null;
+    }
+    memo.hits++;
+    this.values.set(seen.to.values);
+    this.timeUs += seen.doneDt;
+    this.at = seen.to;
+    return seen;
+  }
+
+  /** Keep a clock that ran from memo state `from` at time t0 and raised no alarm, when it ended ready. */
+  private memorise(from: MemoState, packed: number | string, kept: Uint8Array, heldDt: number, t0: number): void {
+    if (!this.ready || !Number.isSafeInteger(this.timeUs)) return;
+    const to = this.memo.stateOf(this.values);
+    if (to === null) return;
+    this.memo.keep(from, packed, to, kept, heldDt, this.timeUs - t0);
+    this.at = to;
+  }
+
   private doAct(action: HandAction): PartEvent[] {
+    this.at = null;
     const events: PartEvent[] = [];
     this.timeUs = applyFastInPlace(this.sim, this.values, this.timeUs, action, events, this.ready);
     this.ready = this.mover.ready;
@@ -319,6 +395,7 @@ class Runner implements PartRunner {
   private move(d: number, v: 0 | 1): void {
     const values = this.values;
     if (d < 0 || values[d] === v) return;
+    this.at = null;
     const events = this.events;
     if (events.length !== 0) events.length = 0;
     const rule = this.ruleBroken(d, v);
@@ -359,6 +436,6 @@ class Runner implements PartRunner {
 }
 
 /** A runner at power-up (latches X until reset). */
-export function createRunner(build: Build, timing: PartTiming): PartRunner {
-  return new Runner(simFor(build, timing));
+export function createRunner(build: Build, timing: PartTiming, opts: RunnerOptions = {}): PartRunner {
+  return new Runner(simFor(build, timing), opts.memoBytes ?? MEMO_BYTES);
 }

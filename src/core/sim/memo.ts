@@ -1,0 +1,173 @@
+/**
+ * The runner's memo of clocks (runner.ts): what a clock did, kept by the settled state it
+ * started from and the input levers it was given, so that the same clock from the same state
+ * costs one look-up instead of settling its four lever moves again.
+ *
+ * Method: memoisation of a deterministic step (tabling; D. Michie, "'Memo' functions and
+ * machine learning", Nature 218, 1968 — from memory), keyed by a short name of the state.
+ *
+ * Why it is exact:
+ * - A clock is a deterministic function of the values of every driver before it, the input
+ *   levers it sets and the time it starts at (settle.ts and fast.ts read nothing else: no
+ *   randomness, no option that changes between clocks; the stage delays belong to the
+ *   compiled netlist, and a memo belongs to one runner, which keeps one netlist).
+ * - Time only shifts: every settling time is the start time plus whole microseconds of stage
+ *   delay (sums and maxima of whole numbers, exact in a double below 2^53), so a clock started
+ *   later gives the same changes at the same offsets. The memo keeps offsets and is used only
+ *   where the end time stays a safe integer.
+ * - A ready state (fast.ts: binary, settled, every latch holding a value) is named by its
+ *   levers and the Q of each latch alone: in it Q̄ = NOT Q, and when the gates outside the
+ *   latches form no loop (program.ts's `heldProgram` is fast) each of them is the NAND of
+ *   drivers that come before it in that program's order, so one value each is possible. A
+ *   netlist with such a loop gets no memo.
+ * - Only clocks that start and end in a ready state and raise no alarm are kept; every other
+ *   clock is settled as before (its alarms carry absolute times and words of that moment).
+ * Bound: the states and clocks kept take at most `maxBytes` (estimated); past it the memo is
+ * emptied and fills again, so a long run of ever new states costs one copy per clock, no more.
+ */
+import type { PartSim } from './compile.js';
+import { heldProgram } from './program.js';
+
+/** Default bound on the memory of one runner's memo (bytes, estimated). */
+export const MEMO_BYTES = 16 * 1024 * 1024;
+
+/** Estimated bytes a kept state or clock costs beyond its arrays. */
+const OVERHEAD = 128;
+
+/** Levers plus latches up to which a state's name is a number (a double holds 53 bits exactly). */
+const NUMERIC_BITS = 52;
+
+/** A ready state the runner has been in: every driver's value, and the clocks seen from it. */
+export class MemoState {
+  /** Clocks from this state by their input levers (the runner's packed form: bits, or a '0'/'1' string). */
+  readonly clocks = new Map<number | string, MemoClock>();
+  constructor(
+    /** Every driver's value (never changed). */
+    readonly values: Uint8Array,
+    /** The memo's filling this state belongs to (a state of an emptied memo takes no clocks). */
+    readonly filling: number,
+  ) {}
+}
+
+/** One clock from a MemoState: where it ends and what the runner reports of it. */
+export interface MemoClock {
+  readonly to: MemoState;
+  /** The reading drivers' values while the inputs were held, then after the clock (never changed). */
+  readonly kept: Uint8Array;
+  /** Microseconds from the clock's start to the inputs held, and to its end. */
+  readonly heldDt: number;
+  readonly doneDt: number;
+}
+
+/** How the memo has served: clocks answered from it, clocks settled in full, what it holds. */
+export interface MemoStats {
+  readonly hits: number;
+  readonly misses: number;
+  readonly states: number;
+  readonly clocks: number;
+  /** Times it was emptied at its bound. */
+  readonly emptied: number;
+}
+
+/** The memo of one runner (see the module comment). */
+export class ClockMemo {
+  /** False: the memo keeps nothing (bound 0, or gates outside the latches form a loop). */
+  readonly usable: boolean;
+  hits = 0;
+  misses = 0;
+  private states = new Map<number | string, MemoState>();
+  private clockCount = 0;
+  private bytes = 0;
+  private filling = 0;
+  private readonly numeric: boolean;
+
+  constructor(
+    private readonly sim: PartSim,
+    private readonly maxBytes: number = MEMO_BYTES,
+  ) {
+    this.usable = maxBytes > 0 && heldProgram(sim).fast;
+    this.numeric = sim.leverCount + sim.latches.length <= NUMERIC_BITS;
+  }
+
+  /** The kept state of ready `values` (kept now when new); null when the memo cannot hold it. */
+  stateOf(values: Uint8Array): MemoState | null {
+    if (!this.usable) return null;
+    const key = this.key(values);
+    const known = this.states.get(key);
+    if (known) return known;
+    if (!this.room(values.length)) return null;
+    const s = new MemoState(values.slice(), this.filling);
+    this.states.set(key, s);
+    return s;
+  }
+
+  /** Keep a clock from `from` with input levers `inputs` (a copy of `kept` is made). */
+  keep(
+    from: MemoState,
+    inputs: number | string,
+    to: MemoState,
+    kept: Uint8Array,
+    heldDt: number,
+    doneDt: number,
+  ): void {
+    if (!this.holds(from) || !this.holds(to) || !this.room(kept.length)) return;
+    // room() may have emptied the memo: then `from` is no longer kept and takes nothing.
+    if (!this.holds(from)) return;
+    from.clocks.set(inputs, { to, kept: kept.slice(), heldDt, doneDt });
+    this.clockCount++;
+  }
+
+  /** Whether `s` belongs to the memo's present filling (a state of an emptied one is dropped by its holder). */
+  holds(s: MemoState): boolean {
+    return s.filling === this.filling;
+  }
+
+  stats(): MemoStats {
+    return {
+      hits: this.hits,
+      misses: this.misses,
+      states: this.states.size,
+      clocks: this.clockCount,
+      emptied: this.filling,
+    };
+  }
+
+  /** Room for an array of n bytes: empties the memo when it would pass its bound; false when n alone would. */
+  private room(n: number): boolean {
+    const cost = n + OVERHEAD;
+    if (cost > this.maxBytes) return false;
+    if (this.bytes + cost > this.maxBytes) {
+      this.states = new Map<number | string, MemoState>();
+      this.clockCount = 0;
+      this.bytes = 0;
+      this.filling++;
+    }
+    this.bytes += cost;
+    return true;
+  }
+
+  /** The name of a ready state: every lever's value, then every latch's Q (see the module comment). */
+  private key(values: Uint8Array): number | string {
+    const { leverCount, latches } = this.sim;
+    if (this.numeric) {
+      let k = 0;
+      for (let d = 0; d < leverCount; d++) k = k * 2 + values[d];
+      for (let li = 0; li < latches.length; li++) k = k * 2 + values[latches[li].set];
+      return k;
+    }
+    let s = '';
+    let word = 0;
+    let n = 0;
+    const bit = (b: number): void => {
+      word = (word << 1) | b;
+      if (++n === 16) {
+        s += String.fromCharCode(word);
+        word = 0;
+        n = 0;
+      }
+    };
+    for (let d = 0; d < leverCount; d++) bit(values[d]);
+    for (let li = 0; li < latches.length; li++) bit(values[latches[li].set]);
+    return s + String.fromCharCode(word, n);
+  }
+}
