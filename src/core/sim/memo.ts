@@ -1,7 +1,11 @@
 /**
  * The runner's memo of clocks (runner.ts): what a clock did, kept by the settled state it
  * started from and the input levers it was given, so that the same clock from the same state
- * costs one look-up instead of settling its four lever moves again.
+ * costs one look-up instead of settling its lever moves again. A second, smaller table keeps
+ * the four clock-lever moves by the state with the inputs held (before φ1): a clock new to the
+ * first table then settles only its input levers, as long as that held state has been seen
+ * (a machine's held states are about its states × input combinations; its whole clocks, from
+ * every earlier setting of the input levers, are that many times the input combinations).
  *
  * Method: memoisation of a deterministic step (tabling; D. Michie, "'Memo' functions and
  * machine learning", Nature 218, 1968 — from memory), keyed by a short name of the state.
@@ -41,6 +45,8 @@ const NUMERIC_BITS = 52;
 export class MemoState {
   /** Clocks from this state by their input levers (the runner's packed form: bits, or a '0'/'1' string). */
   readonly clocks = new Map<number | string, MemoClock>();
+  /** The four clock-lever moves from this state, once seen (a state with the inputs held before φ1). */
+  phases: MemoPhases | null = null;
   constructor(
     /** Every driver's value (never changed). */
     readonly values: Uint8Array,
@@ -59,9 +65,20 @@ export interface MemoClock {
   readonly doneDt: number;
 }
 
+/** The four clock-lever moves from a MemoState: where they end, the reading drivers' values after them, their time. */
+export interface MemoPhases {
+  readonly to: MemoState;
+  readonly kept: Uint8Array;
+  readonly dt: number;
+}
+
 /** How the memo has served: clocks answered from it, clocks settled in full, what it holds. */
 export interface MemoStats {
+  /** Clocks answered whole. */
   readonly hits: number;
+  /** Clocks whose input levers were settled and whose four clock-lever moves were answered. */
+  readonly heldHits: number;
+  /** Clocks settled in full while the memo was on. */
   readonly misses: number;
   readonly states: number;
   readonly clocks: number;
@@ -74,6 +91,7 @@ export class ClockMemo {
   /** False: the memo keeps nothing (bound 0, or gates outside the latches form a loop). */
   readonly usable: boolean;
   hits = 0;
+  heldHits = 0;
   misses = 0;
   private states = new Map<number | string, MemoState>();
   private clockCount = 0;
@@ -117,6 +135,13 @@ export class ClockMemo {
     this.clockCount++;
   }
 
+  /** Keep the four clock-lever moves from `held` (a copy of `kept`, the readings after them, is made). */
+  keepPhases(held: MemoState, to: MemoState, kept: Uint8Array, dt: number): void {
+    if (!this.holds(held) || !this.holds(to) || !this.room(kept.length)) return;
+    if (!this.holds(held)) return;
+    held.phases = { to, kept: kept.slice(), dt };
+  }
+
   /** Whether `s` belongs to the memo's present filling (a state of an emptied one is dropped by its holder). */
   holds(s: MemoState): boolean {
     return s.filling === this.filling;
@@ -125,6 +150,7 @@ export class ClockMemo {
   stats(): MemoStats {
     return {
       hits: this.hits,
+      heldHits: this.heldHits,
       misses: this.misses,
       states: this.states.size,
       clocks: this.clockCount,

@@ -203,6 +203,8 @@ class Runner implements PartRunner {
   private blockUsed = 0;
   /** Events of one move (reused: most moves raise none). */
   private readonly events: PartEvent[] = [];
+  /** Readings nobody keeps (a replayed clock's). */
+  private readonly scratch: Uint8Array;
   private readonly memo: ClockMemo;
   /** The memo's state for the current values, when known (any lever move forgets it). */
   private at: MemoState | null = null;
@@ -217,6 +219,7 @@ class Runner implements PartRunner {
     this.ready = isBinary(sim, this.values);
     this.mover = moverFor(sim);
     this.drivers = readingDrivers(sim);
+    this.scratch = new Uint8Array(this.drivers.length);
     this.memo = new ClockMemo(sim, memoBytes);
   }
 
@@ -268,8 +271,7 @@ class Runner implements PartRunner {
     const kept = this.block;
     for (let i = 0; i < ds.length; i++) kept[at + i] = this.values[ds[i]];
     const heldUs = this.timeUs;
-    this.clockLevers();
-    for (let i = 0; i < ds.length; i++) kept[at + ds.length + i] = this.values[ds[i]];
+    this.clockPhases(kept, at + ds.length);
     const alarms = this.alarms ?? NO_ALARMS;
     this.alarms = null;
     if (from && alarms.length === 0)
@@ -320,9 +322,39 @@ class Runner implements PartRunner {
     else if (kind === RESET) this.doReset();
     else if (!this.recall(payload as number | string)) {
       this.setInputs(payload as number | string);
-      this.clockLevers();
+      this.clockPhases(this.scratch, 0);
     }
     this.alarms = null;
+  }
+
+  /**
+   * The four clock-lever moves from the inputs held, the reading drivers' values after them put
+   * at kept[to …]: from the memo when it has seen them from this held state, else settled (and
+   * kept when they raise no alarm and end ready).
+   */
+  private clockPhases(kept: Uint8Array, to: number): void {
+    const memo = this.memo;
+    const ds = this.drivers;
+    const held = this.ready && memo.usable ? memo.stateOf(this.values) : null;
+    const seen = held?.phases;
+    if (seen && this.timeUs <= Number.MAX_SAFE_INTEGER - seen.dt) {
+      memo.heldHits++;
+      this.values.set(seen.to.values);
+      this.timeUs += seen.dt;
+      this.at = seen.to;
+      kept.set(seen.kept, to);
+      return;
+    }
+    if (memo.usable) memo.misses++;
+    const t0 = this.timeUs;
+    const alarmsBefore = this.alarms?.length ?? 0;
+    this.clockLevers();
+    for (let i = 0; i < ds.length; i++) kept[to + i] = this.values[ds[i]];
+    if (!held || (this.alarms?.length ?? 0) > alarmsBefore || !this.ready || !Number.isSafeInteger(this.timeUs)) return;
+    const end = memo.stateOf(this.values);
+    if (end === null) return;
+    memo.keepPhases(held, end, kept.subarray(to, to + ds.length), this.timeUs - t0);
+    this.at = end;
   }
 
   /**
@@ -337,10 +369,7 @@ class Runner implements PartRunner {
     if (from === null || !memo.holds(from)) from = this.at = memo.stateOf(this.values);
     const seen = from?.clocks.get(packed);
     // Offsets are exact only while the end time stays a safe integer (memo.ts).
-    if (seen === undefined || this.timeUs > Number.MAX_SAFE_INTEGER - seen.doneDt) {
-      memo.misses++;
-      return null;
-    }
+    if (seen === undefined || this.timeUs > Number.MAX_SAFE_INTEGER - seen.doneDt) return null;
     memo.hits++;
     this.values.set(seen.to.values);
     this.timeUs += seen.doneDt;
@@ -351,7 +380,7 @@ class Runner implements PartRunner {
   /** Keep a clock that ran from memo state `from` at time t0 and raised no alarm, when it ended ready. */
   private memorise(from: MemoState, packed: number | string, kept: Uint8Array, heldDt: number, t0: number): void {
     if (!this.ready || !Number.isSafeInteger(this.timeUs)) return;
-    const to = this.memo.stateOf(this.values);
+    const to = this.at ?? this.memo.stateOf(this.values);
     if (to === null) return;
     this.memo.keep(from, packed, to, kept, heldDt, this.timeUs - t0);
     this.at = to;

@@ -115,6 +115,7 @@ class Reference {
 /** What a run saw: clocks answered by the memo, clocks that started at an unused code. */
 interface Seen {
   hits: number;
+  heldHits: number;
   emptied: number;
   unusedStarts: number;
   clocks: number;
@@ -135,7 +136,7 @@ function agree(build: Build, steps: readonly Step[], timing: PartTiming, memoByt
   const plainRunner = createRunner(build, timing, { memoBytes: 0 });
   const ref = new Reference(sim);
   const names = build.machine.inputs;
-  const seen: Seen = { hits: 0, emptied: 0, unusedStarts: 0, clocks: 0 };
+  const seen: Seen = { hits: 0, heldHits: 0, emptied: 0, unusedStarts: 0, clocks: 0 };
   const both = (f: (r: PartRunner) => unknown): [unknown, unknown] => [f(memo), f(plainRunner)];
   steps.forEach((s, k) => {
     if (s.kind === 'clock') {
@@ -175,6 +176,7 @@ function agree(build: Build, steps: readonly Step[], timing: PartTiming, memoByt
   });
   expect(memo.history).toEqual(plainRunner.history);
   seen.hits = memo.memoStats().hits;
+  seen.heldHits = memo.memoStats().heldHits;
   seen.emptied = memo.memoStats().emptied;
   return seen;
 }
@@ -194,22 +196,29 @@ describe('core/sim/memo', () => {
     'gives every clock the same record as the runner without it and the event-driven simulator, on %s',
     (name) => {
       let hits = 0;
+      let heldHits = 0;
+      let inputs = 0;
       for (const encoding of ['binary', 'one-hot'] as const) {
         const { build } = exampleBuild(name, { encoding });
+        inputs = build.machine.inputs.length;
         fc.assert(
           fc.property(stepsArb(build.machine.inputs.length, 160), (steps) => {
-            hits += agree(build, [{ kind: 'reset' }, ...steps], timing).hits;
+            const seen = agree(build, [{ kind: 'reset' }, ...steps], timing);
+            hits += seen.hits;
+            heldHits += seen.heldHits;
           }),
           { seed: 20261205, numRuns: 6 },
         );
       }
-      // The runs come back to clocks they have seen, so the memo answers many of them.
+      // The runs come back to clocks they have seen, so the memo answers many of them whole, and
+      // some new clocks from a held state it has seen.
       expect(hits).toBeGreaterThan(200);
+      if (inputs > 0) expect(heldHits).toBeGreaterThan(0);
     },
   );
 
   it('agrees on random machines, through bumped latches and unused codes (fixed seed)', () => {
-    const seen: Seen = { hits: 0, emptied: 0, unusedStarts: 0, clocks: 0 };
+    const seen: Seen = { hits: 0, heldHits: 0, emptied: 0, unusedStarts: 0, clocks: 0 };
     fc.assert(
       fc.property(
         fc.integer({ min: 2, max: 9 }),
@@ -221,6 +230,7 @@ describe('core/sim/memo', () => {
           const steps = fc.sample(stepsArb(inputs, 200), { seed, numRuns: 1 })[0];
           const s = agree(build, [{ kind: 'reset' }, ...steps], timing);
           seen.hits += s.hits;
+          seen.heldHits += s.heldHits;
           seen.unusedStarts += s.unusedStarts;
           seen.clocks += s.clocks;
         },
@@ -228,6 +238,7 @@ describe('core/sim/memo', () => {
       { seed: 20261206, numRuns: 30 },
     );
     expect(seen.hits).toBeGreaterThan(seen.clocks / 4);
+    expect(seen.heldHits).toBeGreaterThan(0);
     // Rule-breaking lever moves leave some clocks starting at a code no state has.
     expect(seen.unusedStarts).toBeGreaterThan(0);
   });
@@ -283,10 +294,10 @@ describe('core/sim/memo', () => {
     const off = createRunner(build, timing, { memoBytes: 0 });
     off.reset();
     for (let i = 0; i < 20; i++) off.clock({});
-    expect(off.memoStats()).toEqual({ hits: 0, misses: 0, states: 0, clocks: 0, emptied: 0 });
+    expect(off.memoStats()).toEqual({ hits: 0, heldHits: 0, misses: 0, states: 0, clocks: 0, emptied: 0 });
     const on = createRunner(build, timing);
     on.clock({}); // at power-up the latches are X: not ready, not kept
-    expect(on.memoStats()).toMatchObject({ hits: 0, misses: 0, clocks: 0 });
+    expect(on.memoStats()).toMatchObject({ hits: 0, heldHits: 0, states: 0, clocks: 0 });
     on.reset();
     on.clock({});
     on.clock({});
