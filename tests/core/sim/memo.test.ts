@@ -118,6 +118,10 @@ interface Seen {
   heldHits: number;
   emptied: number;
   unusedStarts: number;
+  /** Clocks from an unused code into a state of the machine. */
+  recoveries: number;
+  /** Clocks from an unused code that the memo answered whole. */
+  unusedHits: number;
   clocks: number;
 }
 
@@ -136,18 +140,23 @@ function agree(build: Build, steps: readonly Step[], timing: PartTiming, memoByt
   const plainRunner = createRunner(build, timing, { memoBytes: 0 });
   const ref = new Reference(sim);
   const names = build.machine.inputs;
-  const seen: Seen = { hits: 0, heldHits: 0, emptied: 0, unusedStarts: 0, clocks: 0 };
+  const seen: Seen = { hits: 0, heldHits: 0, emptied: 0, unusedStarts: 0, recoveries: 0, unusedHits: 0, clocks: 0 };
   const both = (f: (r: PartRunner) => unknown): [unknown, unknown] => [f(memo), f(plainRunner)];
   steps.forEach((s, k) => {
     if (s.kind === 'clock') {
       const inputs = inputValues(names, s.inputs);
+      const hitsBefore = memo.memoStats().hits;
       const [a, b] = both((r) => plain(r.clock(inputs)));
       const r = ref.clock(inputs);
       expect({ k, memo: a }).toEqual({ k, memo: b });
       const expected = { inputs, before: r.before, outputs: r.before.outputs, after: r.after, alarms: r.alarms };
       expect({ k, memo: a }).toEqual({ k, memo: expected });
       seen.clocks++;
-      if (r.before.state === null && !r.before.code.includes('X')) seen.unusedStarts++;
+      if (r.before.state === null && !r.before.code.includes('X')) {
+        seen.unusedStarts++;
+        if (r.after.state !== null) seen.recoveries++;
+        if (memo.memoStats().hits > hitsBefore) seen.unusedHits++;
+      }
     } else if (s.kind === 'act') {
       const [a, b] = both((r) => r.act(s.action));
       expect({ k, a }).toEqual({ k, a: b });
@@ -179,6 +188,40 @@ function agree(build: Build, steps: readonly Step[], timing: PartTiming, memoByt
   seen.heldHits = memo.memoStats().heldHits;
   seen.emptied = memo.memoStats().emptied;
   return seen;
+}
+
+/**
+ * Steps from power-up that leave the machine ready at a code no state has (its latches each
+ * holding a value, the control levers released), found by seeded rule-breaking lever moves
+ * (control levers pulled and released at random, half clocks, clocks) on a runner; null when
+ * none is found.
+ */
+function pathToUnusedCode(build: Build, seed: number): Step[] | null {
+  const rnd = seededRandom(seed);
+  const names = build.machine.inputs;
+  const levers: readonly ControlLever[] = ['phi1', 'phi2', 'reset'];
+  for (let attempt = 0; attempt < 20; attempt++) {
+    const r = createRunner(build, timing, { memoBytes: 0 });
+    r.reset();
+    const steps: Step[] = [{ kind: 'reset' }];
+    for (let i = 0; i < 200; i++) {
+      const x = rnd.next();
+      const inputs = rnd.int(2 ** names.length);
+      let s: Step;
+      if (x < 0.5)
+        s = { kind: 'act', action: { kind: rnd.next() < 0.5 ? 'pull' : 'release', lever: levers[rnd.int(3)] } };
+      else if (x < 0.7) s = { kind: 'half', inputs };
+      else s = { kind: 'clock', inputs };
+      steps.push(s);
+      if (s.kind === 'act') r.act(s.action);
+      else if (s.kind === 'clock') r.clock(inputValues(names, s.inputs));
+      else for (const a of clockActions(names, inputValues(names, s.inputs)).slice(0, -2)) r.act(a);
+      const now = r.reading();
+      const held = now.latches.every((l) => l.q !== 'X' && l.qBar !== 'X' && l.q !== l.qBar);
+      if (now.state === null && held && !now.phi1 && !now.phi2 && !now.reset) return steps;
+    }
+  }
+  return null;
 }
 
 const resetSteps: readonly HandAction[] = [
@@ -218,7 +261,7 @@ describe('core/sim/memo', () => {
   );
 
   it('agrees on random machines, through bumped latches and unused codes (fixed seed)', () => {
-    const seen: Seen = { hits: 0, heldHits: 0, emptied: 0, unusedStarts: 0, clocks: 0 };
+    const seen: Seen = { hits: 0, heldHits: 0, emptied: 0, unusedStarts: 0, recoveries: 0, unusedHits: 0, clocks: 0 };
     fc.assert(
       fc.property(
         fc.integer({ min: 2, max: 9 }),
@@ -232,6 +275,7 @@ describe('core/sim/memo', () => {
           seen.hits += s.hits;
           seen.heldHits += s.heldHits;
           seen.unusedStarts += s.unusedStarts;
+          seen.recoveries += s.recoveries;
           seen.clocks += s.clocks;
         },
       ),
@@ -239,8 +283,33 @@ describe('core/sim/memo', () => {
     );
     expect(seen.hits).toBeGreaterThan(seen.clocks / 4);
     expect(seen.heldHits).toBeGreaterThan(0);
-    // Rule-breaking lever moves leave some clocks starting at a code no state has.
+    // Rule-breaking lever moves leave some clocks starting at a code no state has, and the
+    // machine recovers from it into one of its states.
     expect(seen.unusedStarts).toBeGreaterThan(0);
+    expect(seen.recoveries).toBeGreaterThan(0);
+  });
+
+  it('answers clocks from unused codes exactly, and recovers from them as the machine does', () => {
+    let found = 0;
+    let unusedHits = 0;
+    let recoveries = 0;
+    for (let seed = 41; seed < 61 && found < 4; seed++) {
+      const inputs = 1 + (seed % 2);
+      const build = randomBuild([3, 5, 6, 7][seed % 4], inputs, 1, seed);
+      const prefix = pathToUnusedCode(build, seed);
+      if (!prefix) continue;
+      found++;
+      // From the unused code: each clock, taken back and taken again (the memo answers the second).
+      const again: Step[] = [];
+      for (let k = 0; k < 2 ** inputs; k++)
+        again.push({ kind: 'clock', inputs: k }, { kind: 'undo' }, { kind: 'clock', inputs: k }, { kind: 'undo' });
+      const seen = agree(build, [...prefix, ...again], timing);
+      unusedHits += seen.unusedHits;
+      recoveries += seen.recoveries;
+    }
+    expect(found).toBe(4);
+    expect(unusedHits).toBeGreaterThan(4);
+    expect(recoveries).toBeGreaterThan(4);
   });
 
   it('agrees with unequal stage delays, where glitches and races show', () => {
