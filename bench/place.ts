@@ -18,7 +18,7 @@ import { analyse, buildMachine, place, type Built, type Placement } from '../src
 import { DEFAULT_PROFILE, type Profile } from '../src/core/physics/index.js';
 import { frameUnits } from '../src/core/phases/place/index.js';
 import { randomNetlist } from '../tests/core/phases/place/support.js';
-import { median } from './median.js';
+import { median, middle } from './median.js';
 
 /** A line of the benchmark table of docs/benchmarks.md. */
 export interface PlaceBenchRow {
@@ -56,14 +56,6 @@ const savedOf = (p: Placement): Saved => ({
 
 /** A build with cord to route: one that minimises to a single state with fixed outputs has none. */
 const hasCord = (p: Placement): boolean => p.baselineCordM > 0;
-
-/** The middle value (the mean of the two middle ones for an even count). */
-function middle(xs: readonly number[]): number {
-  if (xs.some((x) => !Number.isFinite(x))) throw new Error('a figure to take the median of is not a number');
-  const s = [...xs].sort((a, b) => a - b);
-  const k = Math.floor(s.length / 2);
-  return s.length === 0 ? NaN : s.length % 2 === 1 ? s[k] : (s[k - 1] + s[k]) / 2;
-}
 
 function built(text: string, file: string, encoding: 'auto' | 'binary'): Built | undefined {
   const a = analyse(text, file);
