@@ -27,7 +27,12 @@
  * - Only clocks that start and end in a ready state and raise no alarm are kept; every other
  *   clock is settled as before (its alarms carry absolute times and words of that moment).
  * Bound: the states and clocks kept take at most `maxBytes` (estimated); past it the memo is
- * emptied and fills again, so a long run of ever new states costs one copy per clock, no more.
+ * emptied and fills again. A run that seldom comes back to a clock (a wide machine stepped at
+ * random) would pay for copying every new state and answer little: when fewer than one clock
+ * in REST_BELOW of a window of WINDOW clocks is answered, the memo rests (keeps nothing new,
+ * still answers from what it holds) for one window, then two, four … up to MAX_REST, and
+ * keeps again after each rest; a window that is answered well enough ends the backing off.
+ * What is kept never changes, so resting changes which clocks are answered, never an answer.
  */
 import type { PartSim } from './compile.js';
 import { heldProgram } from './program.js';
@@ -37,6 +42,13 @@ export const MEMO_BYTES = 16 * 1024 * 1024;
 
 /** Estimated bytes a kept state or clock costs beyond its arrays. */
 const OVERHEAD = 128;
+
+/** Clocks per window of the resting rule (module comment). */
+const WINDOW = 1024;
+/** A window with fewer answered clocks than WINDOW / REST_BELOW sends the memo to rest. */
+const REST_BELOW = 8;
+/** Most windows of one rest. */
+const MAX_REST = 64;
 
 /** Levers plus latches up to which a state's name is a number (a double holds 53 bits exactly). */
 const NUMERIC_BITS = 52;
@@ -84,15 +96,26 @@ export interface MemoStats {
   readonly clocks: number;
   /** Times it was emptied at its bound. */
   readonly emptied: number;
+  /** Windows of clocks in which it rested (kept nothing new, see memo.ts). */
+  readonly rested: number;
 }
+
+/** What became of a clock from a ready state: answered whole, its clock-lever moves answered, or settled in full. */
+export type MemoAnswer = 'hit' | 'held' | 'miss';
 
 /** The memo of one runner (see the module comment). */
 export class ClockMemo {
   /** False: the memo keeps nothing (bound 0, or gates outside the latches form a loop). */
   readonly usable: boolean;
-  hits = 0;
-  heldHits = 0;
-  misses = 0;
+  private hits = 0;
+  private heldHits = 0;
+  private misses = 0;
+  /** The resting rule: clocks and answers in this window, windows of rest left, of the next rest, rested in all. */
+  private windowClocks = 0;
+  private windowAnswers = 0;
+  private restLeft = 0;
+  private nextRest = 1;
+  private rested = 0;
   private states = new Map<number | string, MemoState>();
   private clockCount = 0;
   private bytes = 0;
@@ -113,7 +136,7 @@ export class ClockMemo {
     const key = this.key(values);
     const known = this.states.get(key);
     if (known) return known;
-    if (!this.room(values.length)) return null;
+    if (this.restLeft > 0 || !this.room(values.length)) return null;
     const s = new MemoState(values.slice(), this.filling);
     this.states.set(key, s);
     return s;
@@ -128,7 +151,7 @@ export class ClockMemo {
     heldDt: number,
     doneDt: number,
   ): void {
-    if (!this.holds(from) || !this.holds(to) || !this.room(kept.length)) return;
+    if (this.restLeft > 0 || !this.holds(from) || !this.holds(to) || !this.room(kept.length)) return;
     // room() may have emptied the memo: then `from` is no longer kept and takes nothing.
     if (!this.holds(from)) return;
     from.clocks.set(inputs, { to, kept: kept.slice(), heldDt, doneDt });
@@ -137,9 +160,27 @@ export class ClockMemo {
 
   /** Keep the four clock-lever moves from `held` (a copy of `kept`, the readings after them, is made). */
   keepPhases(held: MemoState, to: MemoState, kept: Uint8Array, dt: number): void {
-    if (!this.holds(held) || !this.holds(to) || !this.room(kept.length)) return;
+    if (this.restLeft > 0 || !this.holds(held) || !this.holds(to) || !this.room(kept.length)) return;
     if (!this.holds(held)) return;
     held.phases = { to, kept: kept.slice(), dt };
+  }
+
+  /** Count a clock that consulted the memo, and apply the resting rule at the end of each window. */
+  count(answer: MemoAnswer): void {
+    if (answer === 'hit') this.hits++;
+    else if (answer === 'held') this.heldHits++;
+    else this.misses++;
+    if (answer !== 'miss') this.windowAnswers++;
+    if (++this.windowClocks < WINDOW) return;
+    if (this.restLeft > 0) {
+      this.restLeft--;
+      this.rested++;
+    } else if (this.windowAnswers * REST_BELOW < WINDOW) {
+      this.restLeft = this.nextRest;
+      this.nextRest = Math.min(MAX_REST, 2 * this.nextRest);
+    } else this.nextRest = 1;
+    this.windowClocks = 0;
+    this.windowAnswers = 0;
   }
 
   /** Whether `s` belongs to the memo's present filling (a state of an emptied one is dropped by its holder). */
@@ -155,6 +196,7 @@ export class ClockMemo {
       states: this.states.size,
       clocks: this.clockCount,
       emptied: this.filling,
+      rested: this.rested,
     };
   }
 

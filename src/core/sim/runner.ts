@@ -233,14 +233,14 @@ class Runner implements PartRunner {
     const held = this.ready && memo.usable ? memo.stateOf(this.values) : null;
     const seen = held?.phases;
     if (seen && this.timeUs <= Number.MAX_SAFE_INTEGER - seen.dt) {
-      memo.heldHits++;
+      memo.count('held');
       this.values.set(seen.to.values);
       this.timeUs += seen.dt;
       this.at = seen.to;
       kept.set(seen.kept, to);
       return;
     }
-    if (memo.usable) memo.misses++;
+    if (memo.usable) memo.count('miss');
     const t0 = this.timeUs;
     const alarmsBefore = this.alarms?.length ?? 0;
     this.clockLevers();
@@ -265,7 +265,7 @@ class Runner implements PartRunner {
     const seen = from?.clocks.get(packed);
     // Offsets are exact only while the end time stays a safe integer (memo.ts).
     if (seen === undefined || this.timeUs > Number.MAX_SAFE_INTEGER - seen.doneDt) return null;
-    memo.hits++;
+    memo.count('hit');
     this.values.set(seen.to.values);
     this.timeUs += seen.doneDt;
     this.at = seen.to;

@@ -358,12 +358,42 @@ describe('core/sim/memo', () => {
     expect(seen.hits).toBeGreaterThan(0);
   });
 
+  it('rests through a run that seldom comes back to a clock, and keeps again when it does', () => {
+    // A 14-input machine stepped at random: nearly every clock is new to the memo.
+    const build = randomBuild(9, 14, 2, 3);
+    const rnd = seededRandom(19);
+    const steps: Step[] = [{ kind: 'reset' }];
+    for (let i = 0; i < 4000; i++) steps.push({ kind: 'clock', inputs: rnd.int(2 ** 14) });
+    for (let i = 0; i < 4000; i++) steps.push({ kind: 'clock', inputs: rnd.int(3) });
+    const memo = createRunner(build, timing);
+    const plainRunner = createRunner(build, timing, { memoBytes: 0 });
+    let hitsWhileRepeating = 0;
+    for (const [i, s] of steps.entries()) {
+      if (s.kind === 'reset') {
+        memo.reset();
+        plainRunner.reset();
+        continue;
+      }
+      if (s.kind !== 'clock') continue;
+      const inputs = inputValues(build.machine.inputs, s.inputs);
+      const hitsBefore = memo.memoStats().hits;
+      const a = plain(memo.clock(inputs));
+      const b = plain(plainRunner.clock(inputs));
+      if (JSON.stringify(a) !== JSON.stringify(b)) expect({ i, a }).toEqual({ i, a: b });
+      if (i > 4000 && memo.memoStats().hits > hitsBefore) hitsWhileRepeating++;
+    }
+    expect(memo.state).toEqual(plainRunner.state);
+    expect(memo.memoStats().rested).toBeGreaterThan(0);
+    // Back in a few states with three input combinations, the memo keeps and answers again.
+    expect(hitsWhileRepeating).toBeGreaterThan(2000);
+  });
+
   it('keeps nothing with a bound of 0, and clocks from a state that is not ready are settled', () => {
     const { build } = exampleBuild('marble-bell');
     const off = createRunner(build, timing, { memoBytes: 0 });
     off.reset();
     for (let i = 0; i < 20; i++) off.clock({});
-    expect(off.memoStats()).toEqual({ hits: 0, heldHits: 0, misses: 0, states: 0, clocks: 0, emptied: 0 });
+    expect(off.memoStats()).toEqual({ hits: 0, heldHits: 0, misses: 0, states: 0, clocks: 0, emptied: 0, rested: 0 });
     const on = createRunner(build, timing);
     on.clock({}); // at power-up the latches are X: not ready, not kept
     expect(on.memoStats()).toMatchObject({ hits: 0, heldHits: 0, states: 0, clocks: 0 });
