@@ -24,8 +24,10 @@
  *   latches form no loop (program.ts's `heldProgram` is fast) each of them is the NAND of
  *   drivers that come before it in that program's order, so one value each is possible. A
  *   netlist with such a loop gets no memo.
- * - Only clocks that start and end in a ready state and raise no alarm are kept; every other
- *   clock is settled as before (its alarms carry absolute times and words of that moment).
+ * - Only clocks (and four clock-lever moves) that start and end in a ready state and raise no
+ *   alarm are kept; every other one is settled as before (alarms carry absolute times).
+ * The tests hold the runner with the memo to the runner without it and to the event-driven
+ * simulator, clock by clock (tests/core/sim/memo.test.ts).
  * Bound: the states and clocks kept take at most `maxBytes` (estimated); past it the memo is
  * emptied and fills again. A run that seldom comes back to a clock (a wide machine stepped at
  * random) would pay for copying every new state and answer little: when fewer than one clock
@@ -55,8 +57,8 @@ const NUMERIC_BITS = 52;
 
 /** A ready state the runner has been in: every driver's value, and the clocks seen from it. */
 export class MemoState {
-  /** Clocks from this state by their input levers (the runner's packed form: bits, or a '0'/'1' string). */
-  readonly clocks = new Map<number | string, MemoClock>();
+  /** Clocks from this state by their input levers (the runner's packed form: bits, or a '0'/'1' string); made with the first. */
+  clocks: Map<number | string, MemoClock> | null = null;
   /** The four clock-lever moves from this state, once seen (a state with the inputs held before φ1). */
   phases: MemoPhases | null = null;
   constructor(
@@ -154,7 +156,7 @@ export class ClockMemo {
     if (this.restLeft > 0 || !this.holds(from) || !this.holds(to) || !this.room(kept.length)) return;
     // room() may have emptied the memo: then `from` is no longer kept and takes nothing.
     if (!this.holds(from)) return;
-    from.clocks.set(inputs, { to, kept: kept.slice(), heldDt, doneDt });
+    (from.clocks ??= new Map<number | string, MemoClock>()).set(inputs, { to, kept: kept.slice(), heldDt, doneDt });
     this.clockCount++;
   }
 

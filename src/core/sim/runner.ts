@@ -262,7 +262,7 @@ class Runner implements PartRunner {
     if (!this.ready || !memo.usable) return null;
     let from = this.at;
     if (from === null || !memo.holds(from)) from = this.at = memo.stateOf(this.values);
-    const seen = from?.clocks.get(packed);
+    const seen = from?.clocks?.get(packed);
     // Offsets are exact only while the end time stays a safe integer (memo.ts).
     if (seen === undefined || this.timeUs > Number.MAX_SAFE_INTEGER - seen.doneDt) return null;
     memo.count('hit');
