@@ -257,26 +257,19 @@ const RUNNER_EXAMPLES = [
   'sequence-lock',
 ];
 
-/** The runner rows of the examples (or of the `only` ones), `clocks` clocks each. */
-export function benchRunnerExamples(clocks: number, only: readonly string[] = RUNNER_EXAMPLES): SimBenchRow[] {
-  return only.map((name) => {
+/** The runner rows of the examples, `clocks` clocks each. */
+function runnerExampleRows(clocks: number): SimBenchRow[] {
+  return RUNNER_EXAMPLES.map((name) => {
     const file = `examples/${name}.lw`;
     const a = mustAnalyse(readFileSync(file, 'utf8'), file);
     return runnerRow(`example ${name}`, a, mustBuild(a, 'binary').build, clocks);
   });
 }
 
-/** The runner row of LGSynth'91 s298 (2124 gates), `clocks` clocks, on its own (the section builds s298 once for two rows). */
-export function benchRunnerS298(clocks: number): SimBenchRow {
-  const file = 'tests/fixtures/lgsynth91/s298.json';
-  const s298 = mustAnalyse(readFileSync(file, 'utf8'), file);
-  return runnerRow("LGSynth'91 s298", s298, mustBuild(s298, 'binary').build, clocks);
-}
-
 /** The simulator and checks section of the benchmarks; `quick` leaves out the large machines. */
 export function benchSimulatorAndChecks(quick: boolean): { rows: SimBenchRow[]; markdown: string } {
   const clocks = quick ? 20_000 : 100_000;
-  const rows: SimBenchRow[] = benchRunnerExamples(clocks);
+  const rows: SimBenchRow[] = runnerExampleRows(clocks);
   const crossing = mustAnalyse(readFileSync('examples/crossing.lw', 'utf8'), 'crossing.lw');
   rows.push(lanesRow('example crossing', crossing, mustBuild(crossing, 'binary').build, clocks));
   if (!quick) {
