@@ -7,11 +7,28 @@
  * a newer job of the same kind can overtake; every answer carries the page revision it is for.
  * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
  */
-import { analyse, type Built, type Progress, schematicSvg } from '../core/index.js';
-import { buildJob, buildOptions, checkJob, compareJob, readJob, settle } from './worker/jobs.js';
+import {
+  analyse,
+  type Analysed,
+  type Built,
+  type EncodeResult,
+  type Progress,
+  schematicSvg,
+  type SearchSetup,
+} from '../core/index.js';
+import {
+  buildJob,
+  buildOptions,
+  checkJob,
+  codesPlan,
+  compareJob,
+  readJob,
+  settle,
+  standInSettings,
+} from './worker/jobs.js';
 import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
-import type { FromWorker, ToWorker } from './worker/protocol.js';
+import type { BuildView, FromWorker, RememberedSearch, ToWorker } from './worker/protocol.js';
 
 const scope = self as unknown as {
   postMessage(m: FromWorker): void;
@@ -21,6 +38,14 @@ const scope = self as unknown as {
 /** The newest revision asked for, per kind of job. */
 const latest: Record<string, number> = {};
 let checked: { rev: number; built: Built } | undefined;
+/** The encoding search under way: its setup's key, the newest build job waiting on it and that job's draft. */
+interface Running {
+  readonly key: string;
+  wanted: number;
+  draft: Draft | undefined;
+  done: Promise<EncodeResult | undefined>;
+}
+let running: Running | undefined;
 
 const post = (m: FromWorker): void => scope.postMessage(m);
 const turn = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
@@ -36,6 +61,98 @@ function reporter(rev: number, stage: string): (p: Progress) => void {
     last = t;
     post({ kind: 'progress', rev, done: p.done, total: p.total, best: p.best, stage });
   };
+}
+
+/**
+ * A build job. Codes named by the settings, or remembered by the page for an equal search
+ * setup, build at once. Otherwise a draft with stand-in codes is posted first (the views follow
+ * the keyboard), then the search runs on two cores and the final build follows.
+ */
+async function build(m: Extract<ToWorker, { kind: 'build' }>): Promise<void> {
+  const a = analyse(m.text, m.file);
+  if (!a.ok) {
+    post({ kind: 'unbuilt', rev: m.rev, diagnostics: [] }); // the reader reports the problems
+    return;
+  }
+  const plan = codesPlan(a, m.settings, m.known);
+  if (plan.kind !== 'search') {
+    if (plan.kind === 'named') return finish(m.rev, buildJob(a, m.settings));
+    const b = buildJob(a, m.settings, undefined, plan.outcome, 'remembered');
+    return finish(m.rev, b, { key: plan.key, outcome: plan.outcome });
+  }
+  const draft = running?.key === plan.key ? redraft(running.draft, a) : makeDraft(a, m, plan.setup);
+  if (draft) post({ kind: 'draft', rev: m.rev, view: draft.view });
+  await turn();
+  if (stale(m.kind, m.rev)) return;
+  const searched = await search(a, m, plan.key, draft);
+  if (stale(m.kind, m.rev)) return;
+  finish(
+    m.rev,
+    buildJob(a, m.settings, undefined, searched),
+    searched ? { key: plan.key, outcome: searched } : undefined,
+  );
+}
+
+/** A draft: the build with stand-in codes, and how many of its diagnostics are the reading's. */
+interface Draft {
+  readonly view: BuildView;
+  readonly read: number;
+}
+
+function makeDraft(a: Analysed, m: Extract<ToWorker, { kind: 'build' }>, setup: SearchSetup): Draft | undefined {
+  const standIn = standInSettings(a, m.settings, setup, m.previous);
+  const b = buildJob(a, standIn.settings, undefined, undefined, 'stand-in');
+  return b.view ? { view: { ...b.view, standIn: standIn.standIn }, read: a.diagnostics.length } : undefined;
+}
+
+/**
+ * The draft of the search under way, for a newer text with the same setup (a comment typed
+ * while it runs): the same build, with the new reading's diagnostics (their lines may have
+ * moved). Building it again would only hold the search up.
+ */
+function redraft(d: Draft | undefined, a: Analysed): Draft | undefined {
+  if (!d) return undefined;
+  const diagnostics = [...a.diagnostics, ...d.view.diagnostics.slice(d.read)];
+  return { view: { ...d.view, diagnostics }, read: a.diagnostics.length };
+}
+
+/** Post a build job's final answer; `searched`: the search outcome it used, for the page to keep. */
+function finish(rev: number, b: ReturnType<typeof buildJob>, searched?: RememberedSearch): void {
+  if (!b.view) post({ kind: 'unbuilt', rev, diagnostics: b.diagnostics });
+  else post({ kind: 'built', rev, view: b.view, ...(searched ? { searched } : {}) });
+}
+
+/**
+ * The search of a build job's setup. A newer job with the same setup (a comment typed while it
+ * runs) takes the running search over instead of starting again; the search gives up, between
+ * tasks, once the newest job wants another one.
+ */
+function search(
+  a: Analysed,
+  m: Extract<ToWorker, { kind: 'build' }>,
+  key: string,
+  draft: Draft | undefined,
+): Promise<EncodeResult | undefined> {
+  if (running?.key === key) {
+    running.wanted = m.rev;
+    running.draft = draft;
+    return running.done;
+  }
+  const r: Running = { key, wanted: m.rev, draft, done: Promise.resolve(undefined) };
+  // Progress is posted for the newest job that waits on this search.
+  let reportFor = r.wanted;
+  let report = reporter(reportFor, 'search');
+  const progress = (p: Progress): void => {
+    if (reportFor !== r.wanted) report = reporter((reportFor = r.wanted), 'search');
+    report(p);
+  };
+  // The search sees the settings as the build will use them (settle drops those this machine cannot use).
+  r.done = searchOnTwoCores(a, buildOptions(settle(a, m.settings).settings), progress, () => stale('build', r.wanted));
+  running = r;
+  void r.done.finally(() => {
+    if (running === r) running = undefined;
+  });
+  return r.done;
 }
 
 async function run(m: ToWorker): Promise<void> {
@@ -57,21 +174,9 @@ async function run(m: ToWorker): Promise<void> {
     case 'read':
       post({ kind: 'reading', rev: m.rev, reading: readJob(m.text, m.file).reading });
       return;
-    case 'build': {
-      const a = analyse(m.text, m.file);
-      if (!a.ok) {
-        post({ kind: 'unbuilt', rev: m.rev, diagnostics: [] }); // the reader reports the problems
-        return;
-      }
-      const onProgress = reporter(m.rev, 'search');
-      // The search sees the settings as the build will use them (settle drops those this machine cannot use).
-      const searched = await searchOnTwoCores(a, buildOptions(settle(a, m.settings).settings), onProgress);
-      if (stale(m.kind, m.rev)) return;
-      const b = buildJob(a, m.settings, onProgress, searched);
-      if (b.view) post({ kind: 'built', rev: m.rev, view: b.view });
-      else post({ kind: 'unbuilt', rev: m.rev, diagnostics: b.diagnostics });
+    case 'build':
+      await build(m);
       return;
-    }
     case 'check': {
       const a = analyse(m.text, m.file);
       const b = a.ok ? buildJob(a, m.settings) : undefined;
