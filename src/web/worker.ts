@@ -17,7 +17,9 @@ import {
   type SearchSetup,
 } from '../core/index.js';
 import {
+  againFor,
   buildJob,
+  buildKey,
   buildOptions,
   checkJob,
   codesPlan,
@@ -46,6 +48,8 @@ interface Running {
   done: Promise<EncodeResult | undefined>;
 }
 let running: Running | undefined;
+/** The last final build posted, under its build key (jobs.ts `buildKey`), and how many of its diagnostics were its reading's. */
+let last: { key: string; view: BuildView; read: number } | undefined;
 
 const post = (m: FromWorker): void => scope.postMessage(m);
 const turn = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
@@ -75,10 +79,16 @@ async function build(m: Extract<ToWorker, { kind: 'build' }>): Promise<void> {
     return;
   }
   const plan = codesPlan(a, m.settings, m.known);
+  const key = buildKey(a, m.settings);
   if (plan.kind !== 'search') {
-    if (plan.kind === 'named') return finish(m.rev, buildJob(a, m.settings));
-    const b = buildJob(a, m.settings, undefined, plan.outcome, 'remembered');
-    return finish(m.rev, b, { key: plan.key, outcome: plan.outcome });
+    const searched = plan.kind === 'remembered' ? { key: plan.key, outcome: plan.outcome } : undefined;
+    // The machine as built last (a comment or spacing typed): the same build, no work but the reading.
+    if (key !== undefined && last?.key === key) {
+      const view = againFor(last.view, last.read, a, m.settings, plan.kind === 'remembered' ? 'remembered' : 'named');
+      return finish(m.rev, a, key, { view, diagnostics: view.diagnostics }, searched);
+    }
+    if (plan.kind === 'named') return finish(m.rev, a, key, buildJob(a, m.settings));
+    return finish(m.rev, a, key, buildJob(a, m.settings, undefined, plan.outcome, 'remembered'), searched);
   }
   const draft = running?.key === plan.key ? redraft(running.draft, a) : makeDraft(a, m, plan.setup);
   if (draft) post({ kind: 'draft', rev: m.rev, view: draft.view });
@@ -86,11 +96,8 @@ async function build(m: Extract<ToWorker, { kind: 'build' }>): Promise<void> {
   if (stale(m.kind, m.rev)) return;
   const searched = await search(a, m, plan.key, draft);
   if (stale(m.kind, m.rev)) return;
-  finish(
-    m.rev,
-    buildJob(a, m.settings, undefined, searched),
-    searched ? { key: plan.key, outcome: searched } : undefined,
-  );
+  const b = buildJob(a, m.settings, undefined, searched);
+  finish(m.rev, a, key, b, searched ? { key: plan.key, outcome: searched } : undefined);
 }
 
 /** A draft: the build with stand-in codes, and how many of its diagnostics are the reading's. */
@@ -116,10 +123,23 @@ function redraft(d: Draft | undefined, a: Analysed): Draft | undefined {
   return { view: { ...d.view, diagnostics }, read: a.diagnostics.length };
 }
 
-/** Post a build job's final answer; `searched`: the search outcome it used, for the page to keep. */
-function finish(rev: number, b: ReturnType<typeof buildJob>, searched?: RememberedSearch): void {
-  if (!b.view) post({ kind: 'unbuilt', rev, diagnostics: b.diagnostics });
-  else post({ kind: 'built', rev, view: b.view, ...(searched ? { searched } : {}) });
+/**
+ * Post a build job's final answer, and keep it as the last build under its key; `searched`:
+ * the search outcome it used, for the page to keep.
+ */
+function finish(
+  rev: number,
+  a: Analysed,
+  key: string | undefined,
+  b: Pick<ReturnType<typeof buildJob>, 'view' | 'diagnostics'>,
+  searched?: RememberedSearch,
+): void {
+  if (!b.view) {
+    post({ kind: 'unbuilt', rev, diagnostics: b.diagnostics });
+    return;
+  }
+  last = key !== undefined ? { key, view: b.view, read: a.diagnostics.length } : undefined;
+  post({ kind: 'built', rev, view: b.view, ...(searched ? { searched } : {}) });
 }
 
 /**

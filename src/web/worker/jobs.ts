@@ -133,6 +133,39 @@ export function codesPlan(a: Analysed, asked: BuildSettings, known: readonly Rem
 }
 
 /**
+ * The key of everything a build view depends on but the reading's diagnostics: the codes as
+ * the settings choose them for this machine, and the search setup (the minimised machine,
+ * profile, unused codes, seed, pins). Undefined when the build will refuse the setup.
+ */
+export function buildKey(a: Analysed, asked: BuildSettings): string | undefined {
+  const s = settle(a, asked).settings;
+  const setup = buildSearchSetup(a, buildOptions(s));
+  return 'machine' in setup ? `${JSON.stringify(s.encoding)}\n${searchSetupKey(setup)}` : undefined;
+}
+
+/**
+ * A view built for an equal build key, for a newer reading (a comment typed): the same build,
+ * with this reading's diagnostics in front of the build's own (their lines may have moved) and
+ * the settings this machine drops. `read`: how many of the view's diagnostics were its reading's.
+ */
+export function againFor(
+  view: BuildView,
+  read: number,
+  a: Analysed,
+  asked: BuildSettings,
+  codesFrom: CodesFrom,
+): BuildView {
+  const { dropped: _, ...rest } = view;
+  const dropped = settle(a, asked).dropped;
+  return {
+    ...rest,
+    diagnostics: [...a.diagnostics, ...view.diagnostics.slice(read)],
+    ...(dropped.length > 0 ? { dropped } : {}),
+    codesFrom,
+  };
+}
+
+/**
  * The settings of a draft build while the search runs: the codes of the build shown before
  * when they are for the same states and keep every pinned code, else counting order (which
  * keeps pins itself).

@@ -4,15 +4,17 @@
  * the remembered codes instead of searching, and must come out identical to the build a fresh
  * search gives — the same netlist JSON, part for part and cord for cord — on every example and
  * on cse, a machine of the MCNC / LGSynth'91 FSM benchmark set (16 states after minimisation).
+ * The builder's last build taken again for a text with only comments added (`buildKey`,
+ * `againFor`) must equal the build made afresh, diagnostics at their new lines included.
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { machineFromJson, netlistJson, printTextMachine, type Analysed } from '../../../src/core/index.js';
 import { SearchMemory } from '../../../src/web/controllers/search-memory.js';
-import { buildJob, codesPlan, readJob, standInSettings } from '../../../src/web/worker/jobs.js';
+import { againFor, buildJob, buildKey, codesPlan, readJob, standInSettings } from '../../../src/web/worker/jobs.js';
 import { searchOnTwoCores } from '../../../src/web/worker/search.js';
 import { buildOptions } from '../../../src/web/worker/jobs.js';
-import { DEFAULT_SETTINGS, type BuildView } from '../../../src/web/worker/protocol.js';
+import { DEFAULT_SETTINGS, type BuildView, type RememberedSearch } from '../../../src/web/worker/protocol.js';
 import { EXAMPLES, examplePath } from '../../cli/support.js';
 
 const CSE = 'tests/fixtures/lgsynth91/cse.json';
@@ -33,13 +35,15 @@ const netlist = (v: BuildView | undefined): string | undefined =>
   v && netlistJson(v.build, { placement: v.placement, profile: v.profile });
 
 /** Search as the builder does (here without a helper worker), remember the outcome as the page does. */
-async function searchAndRemember(a: Analysed, memory: SearchMemory): Promise<void> {
+async function searchAndRemember(a: Analysed, memory: SearchMemory): Promise<RememberedSearch> {
   const plan = codesPlan(a, DEFAULT_SETTINGS, memory.entries());
   if (plan.kind !== 'search') throw new Error(`expected a search, got ${plan.kind}`);
   const outcome = await searchOnTwoCores(a, buildOptions(DEFAULT_SETTINGS));
   if (!outcome) throw new Error('the search must finish');
   // The outcome crosses to the page and back by structured clone.
-  memory.remember(structuredClone({ key: plan.key, outcome }));
+  const kept = structuredClone({ key: plan.key, outcome });
+  memory.remember(kept);
+  return kept;
 }
 
 const machines = [
@@ -51,7 +55,8 @@ describe('src/web/worker/jobs (remembered search outcomes)', () => {
   for (const m of machines)
     it(`${m.name}: a comment typed, the remembered codes build the same netlist as a fresh search`, async () => {
       const memory = new SearchMemory();
-      await searchAndRemember(analysed(m.text), memory);
+      const original = analysed(m.text);
+      const kept = await searchAndRemember(original, memory);
       const typed = analysed(`# a note typed on top\n\n${m.text}\n# and one below\n`);
       const plan = codesPlan(typed, DEFAULT_SETTINGS, memory.entries());
       expect(plan.kind).toBe('remembered');
@@ -64,6 +69,12 @@ describe('src/web/worker/jobs (remembered search outcomes)', () => {
       expect(reused?.search).toEqual(fresh?.search);
       expect(netlist(reused)).toBe(netlist(fresh));
       expect(reused?.diagnostics).toEqual(fresh?.diagnostics);
+      // The builder's last build, taken again for the typed text (no build at all): the same view, its
+      // reading's diagnostics at their new lines.
+      expect(buildKey(typed, DEFAULT_SETTINGS)).toBe(buildKey(original, DEFAULT_SETTINGS));
+      const before = buildJob(original, DEFAULT_SETTINGS, undefined, kept.outcome, 'remembered').view;
+      if (!before) throw new Error('must build');
+      expect(againFor(before, original.diagnostics.length, typed, DEFAULT_SETTINGS, 'remembered')).toEqual(reused);
     }, 60_000);
 
   it('misses on a change of seed or unused codes, and named codes never search', async () => {
