@@ -28,6 +28,9 @@ export interface BuildFigures {
   readonly failing?: readonly string[];
   readonly peakRssMb: number;
   readonly problem?: string;
+  /** `layout.totalCordM` and `layout.baselineCordM` of the build, as `build --json` reports them. */
+  readonly cordM?: number;
+  readonly baselineCordM?: number;
 }
 
 function sourceText(source: string): { text: string; file: string } {
@@ -97,6 +100,8 @@ async function buildOne(source: string): Promise<BuildFigures> {
         c.name === 'layout' ? `layout (${c.drums.length} drums; a frame carries ${c.drumsAllowed})` : c.name,
       ),
     peakRssMb: peak(),
+    cordM: b.placement.totalCordM,
+    baselineCordM: b.placement.baselineCordM,
   };
 }
 

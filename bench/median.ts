@@ -12,3 +12,11 @@ export function median(runs: number, fn: () => void): number {
   t.sort((a, b) => a - b);
   return t[Math.floor(t.length / 2)];
 }
+
+/** The middle value of some figures (the mean of the two middle ones for an even count); refuses anything that is not a number. */
+export function middle(xs: readonly number[]): number {
+  if (xs.some((x) => !Number.isFinite(x))) throw new Error('a figure to take the median of is not a number');
+  const s = [...xs].sort((a, b) => a - b);
+  const k = Math.floor(s.length / 2);
+  return s.length === 0 ? NaN : s.length % 2 === 1 ? s[k] : (s[k - 1] + s[k]) / 2;
+}
