@@ -21,7 +21,9 @@ import {
   buildJob,
   buildKey,
   buildOptions,
+  checkedAgain,
   checkJob,
+  checkKey,
   codesPlan,
   compareJob,
   readJob,
@@ -30,7 +32,7 @@ import {
 } from './worker/jobs.js';
 import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
-import type { BuildView, FromWorker, RememberedSearch, ToWorker } from './worker/protocol.js';
+import type { BuildView, ChecksView, FromWorker, RememberedSearch, ToWorker } from './worker/protocol.js';
 
 const scope = self as unknown as {
   postMessage(m: FromWorker): void;
@@ -39,7 +41,8 @@ const scope = self as unknown as {
 
 /** The newest revision asked for, per kind of job. */
 const latest: Record<string, number> = {};
-let checked: { rev: number; built: Built } | undefined;
+/** The build checked last: its revision, the checked build, its check key (jobs.ts `checkKey`), how many of its diagnostics were its reading's, and the page's view of it. */
+let checked: { rev: number; built: Built; key: string | undefined; read: number; view: ChecksView } | undefined;
 /** The encoding search under way: its setup's key, the newest build job waiting on it and that job's draft. */
 interface Running {
   readonly key: string;
@@ -199,6 +202,18 @@ async function run(m: ToWorker): Promise<void> {
       return;
     case 'check': {
       const a = analyse(m.text, m.file);
+      const key = a.ok ? checkKey(a, m.settings) : undefined;
+      // The build checked last, for a text that only changed where the checks do not look.
+      if (a.ok && key !== undefined && checked?.key === key) {
+        checked = {
+          ...checked,
+          rev: m.rev,
+          built: checkedAgain(checked.built, checked.read, a),
+          read: a.diagnostics.length,
+        };
+        post({ kind: 'checked', rev: m.rev, view: checked.view });
+        return;
+      }
       const b = a.ok ? buildJob(a, m.settings) : undefined;
       if (!b?.built) {
         post({
@@ -209,7 +224,7 @@ async function run(m: ToWorker): Promise<void> {
         return;
       }
       const c = checkJob(b.built, m.settings.seed);
-      checked = { rev: m.rev, built: c.built };
+      checked = { rev: m.rev, built: c.built, key, read: a.ok ? a.diagnostics.length : 0, view: c.view };
       post({ kind: 'checked', rev: m.rev, view: c.view });
       return;
     }

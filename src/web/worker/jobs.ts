@@ -166,6 +166,25 @@ export function againFor(
 }
 
 /**
+ * The key of everything a check job's result depends on but the reading's diagnostics and
+ * source: the build (`buildKey`) and the specification the checks compare it with (the flat
+ * machine as written, and which states merged).
+ */
+export function checkKey(a: Analysed, asked: BuildSettings): string | undefined {
+  const build = buildKey(a, asked);
+  return build === undefined ? undefined : `${build}\n${JSON.stringify(a.flat)}\n${JSON.stringify(a.minimised.merged)}`;
+}
+
+/**
+ * A checked build of an equal check key, for a newer reading (a comment typed): the same build
+ * and checks, with this reading's machine (the build sheet quotes it) and its diagnostics in
+ * front of the build's own. `read`: how many of the build's diagnostics were its reading's.
+ */
+export function checkedAgain(b: Built, read: number, a: Analysed): Built {
+  return { ...b, analysed: a, diagnostics: [...a.diagnostics, ...b.diagnostics.slice(read)] };
+}
+
+/**
  * The settings of a draft build while the search runs: the codes of the build shown before
  * when they are for the same states and keep every pinned code, else counting order (which
  * keeps pins itself).

@@ -5,13 +5,25 @@
  * search gives — the same netlist JSON, part for part and cord for cord — on every example and
  * on cse, a machine of the MCNC / LGSynth'91 FSM benchmark set (16 states after minimisation).
  * The builder's last build taken again for a text with only comments added (`buildKey`,
- * `againFor`) must equal the build made afresh, diagnostics at their new lines included.
+ * `againFor`) must equal the build made afresh, diagnostics at their new lines included; the
+ * checker's last checked build taken again (`checkKey`, `checkedAgain`) must equal the checks
+ * run afresh.
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { machineFromJson, netlistJson, printTextMachine, type Analysed } from '../../../src/core/index.js';
 import { SearchMemory } from '../../../src/web/controllers/search-memory.js';
-import { againFor, buildJob, buildKey, codesPlan, readJob, standInSettings } from '../../../src/web/worker/jobs.js';
+import {
+  againFor,
+  buildJob,
+  buildKey,
+  checkedAgain,
+  checkJob,
+  checkKey,
+  codesPlan,
+  readJob,
+  standInSettings,
+} from '../../../src/web/worker/jobs.js';
 import { searchOnTwoCores } from '../../../src/web/worker/search.js';
 import { buildOptions } from '../../../src/web/worker/jobs.js';
 import { DEFAULT_SETTINGS, type BuildView, type RememberedSearch } from '../../../src/web/worker/protocol.js';
@@ -75,6 +87,19 @@ describe('src/web/worker/jobs (remembered search outcomes)', () => {
       const before = buildJob(original, DEFAULT_SETTINGS, undefined, kept.outcome, 'remembered').view;
       if (!before) throw new Error('must build');
       expect(againFor(before, original.diagnostics.length, typed, DEFAULT_SETTINGS, 'remembered')).toEqual(reused);
+      // The checker's last checked build, taken again for the typed text: the same as checking afresh.
+      const kept2 = {
+        ...DEFAULT_SETTINGS,
+        encoding: { kept: before.build.encoding, states: before.build.machine.states },
+      };
+      expect(checkKey(typed, kept2)).toBe(checkKey(original, kept2));
+      const checkedBefore = buildJob(original, kept2).built;
+      const checkedTyped = buildJob(typed, kept2).built;
+      if (!checkedBefore || !checkedTyped) throw new Error('must build');
+      const c = checkJob(checkedBefore, DEFAULT_SETTINGS.seed).built;
+      expect(checkedAgain(c, original.diagnostics.length, typed)).toEqual(
+        checkJob(checkedTyped, DEFAULT_SETTINGS.seed).built,
+      );
     }, 60_000);
 
   it('misses on a change of seed or unused codes, and named codes never search', async () => {
