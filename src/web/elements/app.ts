@@ -252,7 +252,7 @@ export class LwApp extends LitElement {
     const codes = b.standIn === 'previous' ? 'the codes of the build before this edit' : 'counting-order codes';
     const stopped = this.synth.work === Work.stopped;
     return html`<p class="stale draft" role="note" data-note="draft">
-      Draft build: its state codes are stand-ins (${codes})
+      Draft build: its state codes are stand-ins (${codes}) and its frame a rough arrangement,
       ${stopped ? 'because the code search was stopped' : 'while the search for the cheapest codes runs'}. The checks,
       the documents and printing wait for the final build${stopped ? '; edit the machine to search again' : ''}.
     </p>`;

@@ -208,9 +208,16 @@ export function standInSettings(
 }
 
 /**
+ * How hard a draft's place phase works: the spectral order alone, no exact arrangement and no
+ * local search (a rough frame, in a fraction of the time; the final build places in full).
+ */
+export const DRAFT_PLACE_EFFORT = { exactLimit: 0, improve: { kicks: 0, work: 0 } } as const;
+
+/**
  * Encode and synthesise, without the checks (they follow in checkJob); `searched`: the search
  * already run on two cores (worker/search.ts) or remembered; `from`: where the codes came from
- * (default: 'searched' when the settings search, else 'named').
+ * (default: 'searched' when the settings search, else 'named'; a 'stand-in' draft is placed
+ * with DRAFT_PLACE_EFFORT).
  */
 export function buildJob(
   a: Analysed,
@@ -221,7 +228,12 @@ export function buildJob(
 ): { view?: BuildView; built?: Built; diagnostics: Built['diagnostics'] } {
   const { settings: s, dropped } = settle(a, asked);
   const codesFrom = from ?? ('strategy' in s.encoding && s.encoding.strategy === 'auto' ? 'searched' : 'named');
-  const b = buildMachine(a, { ...buildOptions(s, onProgress), checks: false, ...(searched ? { searched } : {}) });
+  const b = buildMachine(a, {
+    ...buildOptions(s, onProgress),
+    checks: false,
+    ...(searched ? { searched } : {}),
+    ...(from === 'stand-in' ? { placeEffort: DRAFT_PLACE_EFFORT } : {}),
+  });
   if (!b.ok) return { diagnostics: b.diagnostics };
   const view: BuildView = {
     build: b.build,
