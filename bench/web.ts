@@ -85,9 +85,10 @@ function sixteenStates(): { name: string; text: string } {
  * Median in-Node time of reading the text; of reading and building it with its codes known (as
  * after a comment: the remembered codes); of reading and building it with its search.
  */
-function nodeReference(text: string): { read: number; known: number; build: number } {
+function nodeReference(text: string): { read: number; known: number; draft: number; build: number } {
   const reads: number[] = [];
   const known: number[] = [];
+  const drafts: number[] = [];
   const builds: number[] = [];
   for (let i = 0; i < 5; i++) {
     const t0 = performance.now();
@@ -96,13 +97,17 @@ function nodeReference(text: string): { read: number; known: number; build: numb
     const b = r.analysed ? buildJob(r.analysed, DEFAULT_SETTINGS).view : undefined;
     reads.push(t1 - t0);
     builds.push(performance.now() - t0);
+    const kept = b && { ...DEFAULT_SETTINGS, encoding: { kept: b.build.encoding, states: b.build.machine.states } };
     const t2 = performance.now();
     const again = readJob(text, 'bench.lw').analysed;
-    if (again && b)
-      buildJob(again, { ...DEFAULT_SETTINGS, encoding: { kept: b.build.encoding, states: b.build.machine.states } });
+    if (again && kept) buildJob(again, kept);
     known.push(performance.now() - t2);
+    const t3 = performance.now();
+    const draft = readJob(text, 'bench.lw').analysed;
+    if (draft && kept) buildJob(draft, kept, undefined, undefined, 'stand-in');
+    drafts.push(performance.now() - t3);
   }
-  return { read: median(reads), known: median(known), build: median(builds) };
+  return { read: median(reads), known: median(known), draft: median(drafts), build: median(builds) };
 }
 
 async function keystrokes(
@@ -252,12 +257,12 @@ export async function benchWeb(): Promise<{ rows: WebRow[] }> {
       rows.push({
         name: `designer: structural edit (a transition sent elsewhere) → first build shown, ${sixteen.name}`,
         figure: ms(e.first),
-        reference: `read + layout + build with known codes in Node ${ms(ref.known)}`,
-        ratio: `${(e.first / ref.known).toFixed(1)}×`,
+        reference: `read + layout + draft build (the same codes, rough placement) in Node ${ms(ref.draft)}`,
+        ratio: `${(e.first / ref.draft).toFixed(1)}×`,
         goal:
           e.first < 150
             ? `< 150 ms (met; ${shownBy}, with stand-in codes, labelled as such)`
-            : `< 150 ms (short by ${ms(e.first - 150)}; ${shownBy}: the draft is a whole build with stand-in codes, synthesis and placement, as the Node figure beside it shows)`,
+            : `< 150 ms (short by ${ms(e.first - 150)}; ${shownBy}: the draft is a whole build with stand-in codes, its synthesis and a rough placement, as the Node figure beside it shows, then copied to the page and drawn)`,
       });
       rows.push({
         name: `designer: structural edit → final build (codes searched), ${sixteen.name}`,
