@@ -340,6 +340,7 @@ export class SynthesisController implements ReactiveController {
         break;
       case 'draft':
         this.built = m.view;
+        this.buildProblems = [];
         this.shown.draft = m.rev;
         this.told.built?.(m.view);
         // The checks wait for the final build; the ones shown are for an older build.
