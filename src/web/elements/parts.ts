@@ -155,7 +155,7 @@ export class LwParts extends LitElement {
     const b = this.built;
     const c = this.checks;
     if (!b) return html`<p class="soft">Parts and forces appear once the machine builds.</p>`;
-    return html`${checksSection(c?.checks, this.checking, this.fixes, (id) => emit(this, 'fix', { id }))}
+    return html`${checksSection(c?.checks, this.checking, this.fixes, (id) => emit(this, 'fix', { id }), this.draft)}
       ${this.exportsSection()} ${this.schematicSection()} ${partsSection(b)}
       <section class="panel" aria-label="Force margins">
         <h2>Force margins of the capstans</h2>
@@ -264,7 +264,15 @@ export class LwParts extends LitElement {
               >
                 ${unsafeSVG(sized(s.svg, this.zoom))}
               </div>`
-          : html`<p class="soft">${s?.problem ? `No schematic: ${s.problem}` : 'Drawing…'}</p>`
+          : html`<p class="soft">
+              ${
+                s?.problem
+                  ? `No schematic: ${s.problem}`
+                  : this.draft
+                    ? 'Drawn from the final build, once its codes are chosen.'
+                    : 'Drawing…'
+              }
+            </p>`
       }
     </section>`;
   }
