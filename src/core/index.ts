@@ -86,7 +86,14 @@ export {
   type Rejected,
 } from './pipeline.js';
 export type { StateMinimisation } from './phases/minimise-states/index.js';
-export { planSearch, searchOutcome, searchTaskRunner, type SearchExtras, type SearchSetup } from './search.js';
+export {
+  planSearch,
+  searchOutcome,
+  searchSetupKey,
+  searchTaskRunner,
+  type SearchExtras,
+  type SearchSetup,
+} from './search.js';
 
 // ── The frame: where every part sits and how every cord runs ────────────────────────────────
 export {

@@ -32,7 +32,7 @@ import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
 import { cordRoutingDiagnostics } from './physics/profile-load.js';
 import { lossByBranch } from './physics/routing.js';
 import { balanceDrive } from './physics/buffer-tree.js';
-import { pinDiagnostics, place, type Pin, type Placement } from './phases/place/index.js';
+import { pinDiagnostics, place, type Pin, type Placement, type PlaceOptions } from './phases/place/index.js';
 import { CHECKS, type CheckInput, type CheckResult } from './checks/registry.js';
 import { planSearch, recovered, searchOptions, synthesisOptions, type SearchSetup } from './search.js';
 import type { AutoSearch, Progress } from './phases/encode/index.js';
@@ -129,6 +129,11 @@ export interface BuildOptions extends AnalyseOptions {
   readonly checks?: boolean;
   /** Parts pinned to a bay along the drum, by part id (a latch id pins its set side; its reset side takes the next bay). */
   readonly pins?: Readonly<Record<string, Pin>>;
+  /**
+   * How hard the place phase works (default: PlaceOptions' defaults). Less effort gives a
+   * rougher arrangement sooner: a shell's draft build while the final one is still coming.
+   */
+  readonly placeEffort?: Pick<PlaceOptions, 'exactLimit' | 'improve'>;
 }
 
 /** A machine that was built, with every check's result. */
@@ -180,7 +185,9 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
       );
     const routes = cordRoutingDiagnostics(profile, build.netlist);
     if (routes.length > 0) return { ok: false, form: a.form, diagnostics: [...diagnostics, ...routes] };
-    const placed = timed(opts, 'place', () => placeWithDrive(build, profile, { seed, pins: opts.pins ?? {} }));
+    const placed = timed(opts, 'place', () =>
+      placeWithDrive(build, profile, { ...opts.placeEffort, seed, pins: opts.pins ?? {} }),
+    );
     diagnostics.push(...pinDiagnostics(placed.placement.problems));
     if (hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
     const { placement } = placed;
@@ -264,7 +271,7 @@ export const PLACE_ROUNDS = 4;
 export function placeWithDrive(
   b: Build,
   profile: Profile,
-  opts: { readonly seed: number; readonly pins: Readonly<Record<string, Pin>> },
+  opts: PlaceOptions & { readonly seed: number; readonly pins: Readonly<Record<string, Pin>> },
 ): { build: Build; placement: Placement } {
   let build = b;
   let placement = place(build.netlist, profile, opts);

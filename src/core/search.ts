@@ -56,6 +56,31 @@ export interface SearchSetup {
   readonly evaluations?: number;
 }
 
+/**
+ * A stable text key of a setup: its plain data as JSON with every object's keys in sorted
+ * order, so two setups that are equal as data (however they were assembled) get the same key
+ * and any difference in a field (machine, profile, unused codes, seed, pins, budget) gives
+ * another. The search is deterministic for a setup, so a shell may keep outcomes under it.
+ */
+export function searchSetupKey(s: SearchSetup): string {
+  return stableJson(s);
+}
+
+function stableJson(v: unknown): string {
+  if (Array.isArray(v)) return `[${v.map((x) => (x === undefined ? 'null' : stableJson(x))).join(',')}]`;
+  if (typeof v === 'object' && v !== null) {
+    const o = v as Record<string, unknown>;
+    const fields = Object.keys(o)
+      .filter((k) => o[k] !== undefined)
+      .sort()
+      .map((k) => `${JSON.stringify(k)}:${stableJson(o[k])}`);
+    return `{${fields.join(',')}}`;
+  }
+  // JSON would write Infinity and NaN as null; bare, they differ from every other value.
+  if (typeof v === 'number' && !Number.isFinite(v)) return String(v);
+  return JSON.stringify(v) ?? 'null';
+}
+
 /** What the shell adds on its own thread: the clock for a time budget, and progress. */
 export type SearchExtras = Pick<EncodeOptions, 'now' | 'onProgress'> & { readonly millis?: number };
 

@@ -7,11 +7,32 @@
  * a newer job of the same kind can overtake; every answer carries the page revision it is for.
  * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
  */
-import { analyse, type Built, type Progress, schematicSvg } from '../core/index.js';
-import { buildJob, buildOptions, checkJob, compareJob, readJob, settle } from './worker/jobs.js';
+import {
+  analyse,
+  type Analysed,
+  type Built,
+  type EncodeResult,
+  type Progress,
+  schematicSvg,
+  type SearchSetup,
+} from '../core/index.js';
+import {
+  againFor,
+  buildJob,
+  buildKey,
+  buildOptions,
+  checkedAgain,
+  checkJob,
+  checkKey,
+  codesPlan,
+  compareJob,
+  readJob,
+  settle,
+  standInSettings,
+} from './worker/jobs.js';
 import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
-import type { FromWorker, ToWorker } from './worker/protocol.js';
+import type { BuildView, ChecksView, FromWorker, RememberedSearch, ToWorker } from './worker/protocol.js';
 
 const scope = self as unknown as {
   postMessage(m: FromWorker): void;
@@ -20,7 +41,18 @@ const scope = self as unknown as {
 
 /** The newest revision asked for, per kind of job. */
 const latest: Record<string, number> = {};
-let checked: { rev: number; built: Built } | undefined;
+/** The build checked last: its revision, the checked build, its check key (jobs.ts `checkKey`), how many of its diagnostics were its reading's, and the page's view of it. */
+let checked: { rev: number; built: Built; key: string | undefined; read: number; view: ChecksView } | undefined;
+/** The encoding search under way: its setup's key, the newest build job waiting on it and that job's draft. */
+interface Running {
+  readonly key: string;
+  wanted: number;
+  draft: Draft | undefined;
+  done: Promise<EncodeResult | undefined>;
+}
+let running: Running | undefined;
+/** The last final build posted, under its build key (jobs.ts `buildKey`), and how many of its diagnostics were its reading's. */
+let last: { key: string; view: BuildView; read: number } | undefined;
 
 const post = (m: FromWorker): void => scope.postMessage(m);
 const turn = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
@@ -36,6 +68,114 @@ function reporter(rev: number, stage: string): (p: Progress) => void {
     last = t;
     post({ kind: 'progress', rev, done: p.done, total: p.total, best: p.best, stage });
   };
+}
+
+/**
+ * A build job. Codes named by the settings, or remembered by the page for an equal search
+ * setup, build at once. Otherwise a draft with stand-in codes is posted first (the views follow
+ * the keyboard), then the search runs on two cores and the final build follows.
+ */
+async function build(m: Extract<ToWorker, { kind: 'build' }>): Promise<void> {
+  const a = analyse(m.text, m.file);
+  if (!a.ok) {
+    post({ kind: 'unbuilt', rev: m.rev, diagnostics: [] }); // the reader reports the problems
+    return;
+  }
+  const plan = codesPlan(a, m.settings, m.known);
+  const key = buildKey(a, m.settings);
+  if (plan.kind !== 'search') {
+    const searched = plan.kind === 'remembered' ? { key: plan.key, outcome: plan.outcome } : undefined;
+    // The machine as built last (a comment or spacing typed): the same build, no work but the reading.
+    if (key !== undefined && last?.key === key) {
+      const view = againFor(last.view, last.read, a, m.settings, plan.kind === 'remembered' ? 'remembered' : 'named');
+      return finish(m.rev, a, key, { view, diagnostics: view.diagnostics }, searched);
+    }
+    if (plan.kind === 'named') return finish(m.rev, a, key, buildJob(a, m.settings));
+    return finish(m.rev, a, key, buildJob(a, m.settings, undefined, plan.outcome, 'remembered'), searched);
+  }
+  const draft = running?.key === plan.key ? redraft(running.draft, a) : makeDraft(a, m, plan.setup);
+  if (draft) post({ kind: 'draft', rev: m.rev, view: draft.view });
+  await turn();
+  if (stale(m.kind, m.rev)) return;
+  const searched = await search(a, m, plan.key, draft);
+  if (stale(m.kind, m.rev)) return;
+  const b = buildJob(a, m.settings, undefined, searched);
+  finish(m.rev, a, key, b, searched ? { key: plan.key, outcome: searched } : undefined);
+}
+
+/** A draft: the build with stand-in codes, and how many of its diagnostics are the reading's. */
+interface Draft {
+  readonly view: BuildView;
+  readonly read: number;
+}
+
+function makeDraft(a: Analysed, m: Extract<ToWorker, { kind: 'build' }>, setup: SearchSetup): Draft | undefined {
+  const standIn = standInSettings(a, m.settings, setup, m.previous);
+  const b = buildJob(a, standIn.settings, undefined, undefined, 'stand-in');
+  return b.view ? { view: { ...b.view, standIn: standIn.standIn }, read: a.diagnostics.length } : undefined;
+}
+
+/**
+ * The draft of the search under way, for a newer text with the same setup (a comment typed
+ * while it runs): the same build, with the new reading's diagnostics (their lines may have
+ * moved). Building it again would only hold the search up.
+ */
+function redraft(d: Draft | undefined, a: Analysed): Draft | undefined {
+  if (!d) return undefined;
+  const diagnostics = [...a.diagnostics, ...d.view.diagnostics.slice(d.read)];
+  return { view: { ...d.view, diagnostics }, read: a.diagnostics.length };
+}
+
+/**
+ * Post a build job's final answer, and keep it as the last build under its key; `searched`:
+ * the search outcome it used, for the page to keep.
+ */
+function finish(
+  rev: number,
+  a: Analysed,
+  key: string | undefined,
+  b: Pick<ReturnType<typeof buildJob>, 'view' | 'diagnostics'>,
+  searched?: RememberedSearch,
+): void {
+  if (!b.view) {
+    post({ kind: 'unbuilt', rev, diagnostics: b.diagnostics });
+    return;
+  }
+  last = key !== undefined ? { key, view: b.view, read: a.diagnostics.length } : undefined;
+  post({ kind: 'built', rev, view: b.view, ...(searched ? { searched } : {}) });
+}
+
+/**
+ * The search of a build job's setup. A newer job with the same setup (a comment typed while it
+ * runs) takes the running search over instead of starting again; the search gives up, between
+ * tasks, once the newest job wants another one.
+ */
+function search(
+  a: Analysed,
+  m: Extract<ToWorker, { kind: 'build' }>,
+  key: string,
+  draft: Draft | undefined,
+): Promise<EncodeResult | undefined> {
+  if (running?.key === key) {
+    running.wanted = m.rev;
+    running.draft = draft;
+    return running.done;
+  }
+  const r: Running = { key, wanted: m.rev, draft, done: Promise.resolve(undefined) };
+  // Progress is posted for the newest job that waits on this search.
+  let reportFor = r.wanted;
+  let report = reporter(reportFor, 'search');
+  const progress = (p: Progress): void => {
+    if (reportFor !== r.wanted) report = reporter((reportFor = r.wanted), 'search');
+    report(p);
+  };
+  // The search sees the settings as the build will use them (settle drops those this machine cannot use).
+  r.done = searchOnTwoCores(a, buildOptions(settle(a, m.settings).settings), progress, () => stale('build', r.wanted));
+  running = r;
+  void r.done.finally(() => {
+    if (running === r) running = undefined;
+  });
+  return r.done;
 }
 
 async function run(m: ToWorker): Promise<void> {
@@ -57,23 +197,23 @@ async function run(m: ToWorker): Promise<void> {
     case 'read':
       post({ kind: 'reading', rev: m.rev, reading: readJob(m.text, m.file).reading });
       return;
-    case 'build': {
-      const a = analyse(m.text, m.file);
-      if (!a.ok) {
-        post({ kind: 'unbuilt', rev: m.rev, diagnostics: [] }); // the reader reports the problems
-        return;
-      }
-      const onProgress = reporter(m.rev, 'search');
-      // The search sees the settings as the build will use them (settle drops those this machine cannot use).
-      const searched = await searchOnTwoCores(a, buildOptions(settle(a, m.settings).settings), onProgress);
-      if (stale(m.kind, m.rev)) return;
-      const b = buildJob(a, m.settings, onProgress, searched);
-      if (b.view) post({ kind: 'built', rev: m.rev, view: b.view });
-      else post({ kind: 'unbuilt', rev: m.rev, diagnostics: b.diagnostics });
+    case 'build':
+      await build(m);
       return;
-    }
     case 'check': {
       const a = analyse(m.text, m.file);
+      const key = a.ok ? checkKey(a, m.settings) : undefined;
+      // The build checked last, for a text that only changed where the checks do not look.
+      if (a.ok && key !== undefined && checked?.key === key) {
+        checked = {
+          ...checked,
+          rev: m.rev,
+          built: checkedAgain(checked.built, checked.read, a),
+          read: a.diagnostics.length,
+        };
+        post({ kind: 'checked', rev: m.rev, view: checked.view });
+        return;
+      }
       const b = a.ok ? buildJob(a, m.settings) : undefined;
       if (!b?.built) {
         post({
@@ -84,7 +224,7 @@ async function run(m: ToWorker): Promise<void> {
         return;
       }
       const c = checkJob(b.built, m.settings.seed);
-      checked = { rev: m.rev, built: c.built };
+      checked = { rev: m.rev, built: c.built, key, read: a.ok ? a.diagnostics.length : 0, view: c.view };
       post({ kind: 'checked', rev: m.rev, view: c.view });
       return;
     }

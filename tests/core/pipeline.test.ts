@@ -32,6 +32,20 @@ describe('core/pipeline (place)', () => {
     expect(PLACE_ROUNDS).toBeGreaterThanOrEqual(1);
   });
 
+  it('places with less effort when asked (placeEffort): every part still placed and its layout check passing', () => {
+    const full = buildMachine(bell(), { encoding: 'binary' });
+    const rough = buildMachine(bell(), {
+      encoding: 'binary',
+      placeEffort: { exactLimit: 0, improve: { kicks: 0, work: 0 } },
+    });
+    if (!full.ok || !rough.ok) throw new Error('the bell must build');
+    const parts = (b: typeof full): string[] => b.placement.bays.map((x) => x.part).sort();
+    expect(parts(rough)).toEqual(parts(full));
+    expect(findCheck(rough.checks, 'layout')?.ok).toBe(true);
+    // Left out, the effort is the place phase's own default.
+    expect(buildMachine(bell(), { encoding: 'binary', placeEffort: {} })).toEqual(full);
+  });
+
   it('keeps a pinned latch in its bay and the next, and a pinned part on another drum', () => {
     const b = buildMachine(bell(), { encoding: 'binary', pins: { m1: { bay: 9 }, 'o.bell.1': { bay: 2, drum: 2 } } });
     if (!b.ok) throw new Error(b.diagnostics.map((d) => d.message).join('; '));

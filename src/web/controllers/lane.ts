@@ -11,6 +11,8 @@ export class Lane {
   private worker: Worker | undefined;
   /** The newest job sent and when; cleared when an answer for it (or a newer one) arrives. */
   private busy: { rev: number; since: number } | undefined;
+  /** When the worker last said anything (progress and drafts included). */
+  private heard = 0;
 
   constructor(private readonly answer: (m: FromWorker) => void) {}
 
@@ -24,9 +26,13 @@ export class Lane {
     if (m.kind !== 'export') this.busy = { rev: m.rev, since: performance.now() };
   }
 
-  /** How long the lane has been busy on a job older than `rev` (0 when it is not). */
+  /**
+   * How long the lane has been busy on a job older than `rev` without a word from its worker (0
+   * when it is not): a worker that reports progress is between tasks, where it gives stale work
+   * up by itself.
+   */
   staleFor(rev: number): number {
-    return this.busy && this.busy.rev < rev ? performance.now() - this.busy.since : 0;
+    return this.busy && this.busy.rev < rev ? performance.now() - Math.max(this.busy.since, this.heard) : 0;
   }
 
   get idle(): boolean {
@@ -44,7 +50,10 @@ export class Lane {
     const w = makeWorker();
     w.onmessage = (e: MessageEvent<FromWorker>) => {
       const m = e.data;
-      if (this.busy && m.kind !== 'progress' && m.kind !== 'exported' && m.rev >= this.busy.rev) this.busy = undefined;
+      this.heard = performance.now();
+      // A draft is followed by its final build: the job is not done yet.
+      if (this.busy && m.kind !== 'progress' && m.kind !== 'exported' && m.kind !== 'draft' && m.rev >= this.busy.rev)
+        this.busy = undefined;
       this.answer(m);
     };
     w.onerror = (e) => {

@@ -4,8 +4,15 @@
  * synthesises; the checker runs every check, draws the schematic and makes the documents; the
  * searcher prices every encoding. A lane busy on a revision the page has moved past is
  * restarted when waiting for it would cost more than starting afresh: the checker and the
- * searcher at once, the builder once it has spent BUILD_PATIENCE_MS on stale work (a long
- * encoding search); the reader never, its jobs being short.
+ * searcher at once, the builder once it has been silent for BUILD_PATIENCE_MS on stale work (a
+ * searching builder reports progress and gives stale searches up by itself); the reader
+ * never, its jobs being short.
+ *
+ * The codes of a build that searches: the page remembers the outcomes of the latest searches
+ * (search-memory.ts) and sends them with every build, so a keystroke that leaves the search's
+ * setup as it was builds with the remembered codes at once. A setup never searched gets a
+ * draft first — the build with stand-in codes, shown as such (Work.drafted) and neither checked
+ * nor exported — and the final build when the search ends.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import { encodingEntry, type Diagnostic } from '../../core/index.js';
@@ -23,11 +30,14 @@ import {
 } from '../worker/protocol.js';
 import { keepDrop, keepRead, keepSet, parseJson } from './keep.js';
 import { Lane } from './lane.js';
+import { SearchMemory } from './search-memory.js';
 
 /** Where the live work on the latest text stands. */
 export const Work = {
   reading: 'reading',
   building: 'building',
+  /** A draft build (stand-in codes) is shown while the search for this revision's codes runs. */
+  drafted: 'drafted',
   checking: 'checking',
   done: 'done',
   refused: 'refused',
@@ -122,9 +132,21 @@ export class SynthesisController implements ReactiveController {
   rows: readonly CodeRow[] = [];
   /** The build's schematic (SVG text), or why there is none. */
   schematic: { readonly svg?: string; readonly problem?: string } | undefined;
-  /** Revision of each result shown (the page marks stale views). */
-  readonly shown = { reading: -1, built: -1, unbuilt: -1, checks: -1, rows: -1, schematic: -1, stopped: -1 };
+  /** Revision of each result shown (the page marks stale views); `draft`: of the latest draft build. */
+  readonly shown = {
+    reading: -1,
+    built: -1,
+    draft: -1,
+    unbuilt: -1,
+    checks: -1,
+    rows: -1,
+    schematic: -1,
+    stopped: -1,
+  };
   settings: BuildSettings;
+  /** Encoding searches finished for this page (a build with remembered codes does not count). */
+  searches = 0;
+  private readonly memory = new SearchMemory();
 
   private readonly reader = new Lane((m) => this.fromReader(m));
   private readonly builder = new Lane((m) => this.fromBuilder(m));
@@ -180,9 +202,14 @@ export class SynthesisController implements ReactiveController {
     if (s.reading < this.rev) return Work.reading;
     if (!this.reading?.ok || s.unbuilt === this.rev) return Work.refused;
     if (s.stopped === this.rev) return Work.stopped;
-    if (s.built < this.rev) return Work.building;
+    if (s.built < this.rev) return s.draft === this.rev ? Work.drafted : Work.building;
     if (s.checks < this.rev) return Work.checking;
     return Work.done;
+  }
+
+  /** The build shown is a draft: stand-in codes while the search for the final ones runs (or was stopped). */
+  get provisional(): boolean {
+    return this.built?.codesFrom === 'stand-in';
   }
 
   /** A new revision of the text. */
@@ -196,7 +223,16 @@ export class SynthesisController implements ReactiveController {
     // Checks of an older build are no use now; stopping them frees the processor.
     if (!this.checker.idle) this.checker.restart();
     if (this.builder.staleFor(rev) > BUILD_PATIENCE_MS) this.builder.restart();
-    this.builder.send({ kind: 'build', rev, text, file, settings: this.settings });
+    const b = this.built?.build;
+    this.builder.send({
+      kind: 'build',
+      rev,
+      text,
+      file,
+      settings: this.settings,
+      known: this.memory.entries(),
+      ...(b ? { previous: { encoding: b.encoding, states: b.machine.states } } : {}),
+    });
     if (this.search === Search.running && text !== this.pricedText) this.cancelSearch();
     this.host.requestUpdate();
   }
@@ -271,7 +307,13 @@ export class SynthesisController implements ReactiveController {
   exportDoc(doc: string): Promise<ExportFile> {
     return new Promise((resolve, reject) => {
       if (this.work !== Work.done) {
-        reject(new Error('the build and its checks are not finished yet'));
+        reject(
+          new Error(
+            this.provisional
+              ? 'the build shown is a draft with stand-in codes; documents come from the final build once it is checked'
+              : 'the build and its checks are not finished yet',
+          ),
+        );
         return;
       }
       this.exports.set(`${this.rev}:${doc}`, (f) => (typeof f === 'string' ? reject(new Error(f)) : resolve(f)));
@@ -296,7 +338,17 @@ export class SynthesisController implements ReactiveController {
       case 'progress':
         this.buildProgress = { done: m.done, total: m.total, best: m.best };
         break;
+      case 'draft':
+        this.built = m.view;
+        this.buildProblems = [];
+        this.shown.draft = m.rev;
+        this.told.built?.(m.view);
+        // The checks wait for the final build; the ones shown are for an older build.
+        if (!this.checker.idle) this.checker.restart();
+        break;
       case 'built':
+        if (m.searched) this.memory.remember(m.searched);
+        if (m.view.codesFrom === 'searched') this.searches++;
         this.built = m.view;
         this.buildProblems = [];
         this.buildProgress = undefined;

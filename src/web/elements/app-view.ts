@@ -72,8 +72,18 @@ export function statusWords(s: SynthesisController, warnings = 0): { words: stri
           : `Building…${searching}`,
         tone: 'busy',
       };
+    case Work.drafted:
+      return {
+        words: `Draft build shown · choosing its codes${p ? `: ${p.done}${p.total !== null ? ` of ${p.total}` : ''} priced, best cost ${p.best}` : '…'}${searching}`,
+        tone: 'busy',
+      };
     case Work.stopped:
-      return { words: 'Code search stopped; the views show the last build', tone: 'bad' };
+      return {
+        words: s.provisional
+          ? 'Code search stopped; the views show the draft build (stand-in codes, not checked)'
+          : 'Code search stopped; the views show the last build',
+        tone: 'bad',
+      };
     case Work.checking:
       return { words: `Built · checking…${searching}`, tone: 'busy' };
     case Work.refused:

@@ -170,7 +170,7 @@ export class LwApp extends LitElement {
             )}
           </div>
           <div id="view" role="tabpanel" aria-labelledby=${`tab-${this.view}`} class=${`view-${this.view}`}>
-            ${this.staleNote()}${this.views[this.view]()}
+            ${this.staleNote()}${this.draftNote()}${this.views[this.view]()}
           </div>
         </section>
       </main>
@@ -204,7 +204,7 @@ export class LwApp extends LitElement {
               >${status.words}</span
             >`
       }
-      ${s.buildProgress && s.work === Work.building ? html`<button @click=${() => s.stopBuild()} aria-label="Stop the code search of this build">Stop search</button>` : nothing}
+      ${s.buildProgress && (s.work === Work.building || s.work === Work.drafted) ? html`<button @click=${() => s.stopBuild()} aria-label="Stop the code search of this build">Stop search</button>` : nothing}
       <button
         class="theme"
         @click=${() => this.theme.next()}
@@ -222,7 +222,11 @@ export class LwApp extends LitElement {
       job: String(s.job),
       read: String(s.shown.reading),
       built: String(s.shown.built),
+      draft: String(s.shown.draft),
       checked: String(s.shown.checks),
+      // Where the shown build's codes came from, and how many searches have finished.
+      codes: s.built?.codesFrom ?? '',
+      searches: String(s.searches),
     });
     // The schematic is drawn only when someone looks at it.
     if (this.view === 'parts') s.drawSchematic();
@@ -239,6 +243,19 @@ export class LwApp extends LitElement {
           Showing the last version that read without errors; fix the problems on the bench to update.
         </p>`
       : nothing;
+  }
+
+  /** A draft build is labelled in every view until its final build replaces it. */
+  private draftNote() {
+    const b = this.synth.built;
+    if (!this.synth.provisional || !b) return nothing;
+    const codes = b.standIn === 'previous' ? 'the codes of the build before this edit' : 'counting-order codes';
+    const stopped = this.synth.work === Work.stopped;
+    return html`<p class="stale draft" role="note" data-note="draft">
+      Draft build: its state codes are stand-ins (${codes}) and its frame a rough arrangement,
+      ${stopped ? 'because the code search was stopped' : 'while the search for the cheapest codes runs'}. The checks,
+      the documents and printing wait for the final build${stopped ? '; edit the machine to search again' : ''}.
+    </p>`;
   }
 
   private sketchView() {
@@ -291,12 +308,13 @@ export class LwApp extends LitElement {
     const r = s.good;
     return html`<lw-parts
       .built=${s.built}
-      .checks=${s.checks && s.shown.checks === s.shown.built ? s.checks : undefined}
-      .schematic=${s.shown.schematic === s.shown.built ? s.schematic : undefined}
+      .checks=${s.checks && s.shown.checks === s.shown.built && !s.provisional ? s.checks : undefined}
+      .schematic=${s.shown.schematic === s.shown.built && !s.provisional ? s.schematic : undefined}
       .warnings=${this.warnings(r?.diagnostics, s.built?.diagnostics, this.source.file)}
       .fixes=${this.fixes()}
       ?checking=${s.work === Work.checking}
       ?exportable=${s.work === Work.done}
+      ?draft=${s.provisional}
       @export=${this.onExport}
       @print=${this.onPrint}
       @fix=${(e: Detail<{ id: Fix['id'] }>) => this.applyFix(e.detail.id)}

@@ -28,6 +28,7 @@ export function checksSection(
   pending: boolean,
   fixes: readonly Fix[],
   fix: (id: Fix['id']) => void,
+  draft = false,
 ) {
   const button = (f: Fix) => html`<button data-fix=${f.id} @click=${() => fix(f.id)}>${f.label}</button>`;
   const general = fixes.filter((f) => f.check === undefined);
@@ -35,7 +36,15 @@ export function checksSection(
     <h2>Checks</h2>
     ${
       !checks
-        ? html`<p class="soft">${pending ? 'Checking…' : 'Checks run once the machine builds.'}</p>`
+        ? html`<p class="soft">
+            ${
+              draft
+                ? 'The checks run on the final build, once its codes are chosen.'
+                : pending
+                  ? 'Checking…'
+                  : 'Checks run once the machine builds.'
+            }
+          </p>`
         : html`<ul class="checks">
               ${checks.map((c) => {
                 const own = c.ok ? [] : fixes.filter((f) => f.check === c.name);

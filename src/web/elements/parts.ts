@@ -40,6 +40,7 @@ export class LwParts extends LitElement {
     fixes: { attribute: false },
     checking: { type: Boolean },
     exportable: { type: Boolean },
+    draft: { type: Boolean },
   };
   declare built: BuildView | undefined;
   declare checks: ChecksView | undefined;
@@ -48,6 +49,8 @@ export class LwParts extends LitElement {
   declare fixes: readonly Fix[];
   declare checking: boolean;
   declare exportable: boolean;
+  /** The build shown is a draft (stand-in codes): no documents are made from it. */
+  declare draft: boolean;
   private zoom = 1;
 
   constructor() {
@@ -59,6 +62,7 @@ export class LwParts extends LitElement {
     this.fixes = [];
     this.checking = false;
     this.exportable = false;
+    this.draft = false;
   }
 
   static override styles = [
@@ -151,7 +155,7 @@ export class LwParts extends LitElement {
     const b = this.built;
     const c = this.checks;
     if (!b) return html`<p class="soft">Parts and forces appear once the machine builds.</p>`;
-    return html`${checksSection(c?.checks, this.checking, this.fixes, (id) => emit(this, 'fix', { id }))}
+    return html`${checksSection(c?.checks, this.checking, this.fixes, (id) => emit(this, 'fix', { id }), this.draft)}
       ${this.exportsSection()} ${this.schematicSection()} ${partsSection(b)}
       <section class="panel" aria-label="Force margins">
         <h2>Force margins of the capstans</h2>
@@ -216,7 +220,17 @@ export class LwParts extends LitElement {
           ${DOCUMENT_REGISTRY.map((d) => html`<button ?disabled=${off} @click=${() => emit(this, 'export', { doc: d.file })} data-doc=${d.file}>${d.label}</button>`)}
         </div>
       </details>
-      ${off ? html`<p class="soft">Ready when the checks are done.</p>` : nothing}
+      ${
+        off
+          ? html`<p class="soft" data-note="exports">
+              ${
+                this.draft
+                  ? 'Not from a draft build: the documents are made from the final build, once its codes are chosen and its checks are done.'
+                  : 'Ready when the checks are done.'
+              }
+            </p>`
+          : nothing
+      }
     </section>`;
   }
 
@@ -250,7 +264,15 @@ export class LwParts extends LitElement {
               >
                 ${unsafeSVG(sized(s.svg, this.zoom))}
               </div>`
-          : html`<p class="soft">${s?.problem ? `No schematic: ${s.problem}` : 'Drawing…'}</p>`
+          : html`<p class="soft">
+              ${
+                s?.problem
+                  ? `No schematic: ${s.problem}`
+                  : this.draft
+                    ? 'Drawn from the final build, once its codes are chosen.'
+                    : 'Drawing…'
+              }
+            </p>`
       }
     </section>`;
   }

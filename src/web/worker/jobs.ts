@@ -9,6 +9,7 @@ import {
   billOfMaterials,
   BUILD_DEFAULTS,
   buildMachine,
+  buildSearchSetup,
   type BuildOptions,
   type Built,
   compareEncodings,
@@ -22,6 +23,9 @@ import {
   type Progress,
   readMachine,
   runChecks,
+  searchSetupKey,
+  type Encoding,
+  type SearchSetup,
 } from '../../core/index.js';
 import { layoutDiagram } from '../diagram/layout.js';
 import type {
@@ -29,9 +33,12 @@ import type {
   BuildView,
   ChecksView,
   CodeRow,
+  CodesFrom,
   DroppedSetting,
   MarginBar,
   Reading,
+  RememberedSearch,
+  StandIn,
   TorqueBar,
 } from './protocol.js';
 
@@ -104,15 +111,129 @@ export function settle(a: Analysed, s: BuildSettings): { settings: BuildSettings
   return { settings, dropped };
 }
 
-/** Encode and synthesise, without the checks (they follow in checkJob); `searched`: the search already run on two cores (worker/search.ts). */
+/** How a build gets its codes: no search (named codes), a remembered search outcome, or a search to run. */
+export type CodesPlan =
+  | { readonly kind: 'named' }
+  | { readonly kind: 'remembered'; readonly key: string; readonly outcome: EncodeResult }
+  | { readonly kind: 'search'; readonly key: string; readonly setup: SearchSetup };
+
+/**
+ * The plan of a build's codes: a build that searches (the settings, as this machine can use
+ * them, name the automatic search) looks the key of its search setup up among the outcomes the
+ * page keeps; a setup the build will refuse is left to the build to report.
+ */
+export function codesPlan(a: Analysed, asked: BuildSettings, known: readonly RememberedSearch[] = []): CodesPlan {
+  const s = settle(a, asked).settings;
+  if (!('strategy' in s.encoding) || s.encoding.strategy !== 'auto') return { kind: 'named' };
+  const setup = buildSearchSetup(a, buildOptions(s));
+  if (!('machine' in setup)) return { kind: 'named' };
+  const key = searchSetupKey(setup);
+  const hit = known.find((k) => k.key === key);
+  return hit ? { kind: 'remembered', key, outcome: hit.outcome } : { kind: 'search', key, setup };
+}
+
+/**
+ * The key of everything a build view depends on but the reading's diagnostics: the codes as
+ * the settings choose them for this machine, and the search setup (the minimised machine,
+ * profile, unused codes, seed, pins). Undefined when the build will refuse the setup.
+ */
+export function buildKey(a: Analysed, asked: BuildSettings): string | undefined {
+  const s = settle(a, asked).settings;
+  const setup = buildSearchSetup(a, buildOptions(s));
+  return 'machine' in setup ? `${JSON.stringify(s.encoding)}\n${searchSetupKey(setup)}` : undefined;
+}
+
+/**
+ * A view built for an equal build key, for a newer reading (a comment typed): the same build,
+ * with this reading's diagnostics in front of the build's own (their lines may have moved) and
+ * the settings this machine drops. `read`: how many of the view's diagnostics were its reading's.
+ */
+export function againFor(
+  view: BuildView,
+  read: number,
+  a: Analysed,
+  asked: BuildSettings,
+  codesFrom: CodesFrom,
+): BuildView {
+  const { dropped: _, ...rest } = view;
+  const dropped = settle(a, asked).dropped;
+  return {
+    ...rest,
+    diagnostics: [...a.diagnostics, ...view.diagnostics.slice(read)],
+    ...(dropped.length > 0 ? { dropped } : {}),
+    codesFrom,
+  };
+}
+
+/**
+ * The key of everything a check job's result depends on but the reading's diagnostics and
+ * source: the build (`buildKey`) and the specification the checks compare it with (the flat
+ * machine as written, and which states merged).
+ */
+export function checkKey(a: Analysed, asked: BuildSettings): string | undefined {
+  const build = buildKey(a, asked);
+  return build === undefined ? undefined : `${build}\n${JSON.stringify(a.flat)}\n${JSON.stringify(a.minimised.merged)}`;
+}
+
+/**
+ * A checked build of an equal check key, for a newer reading (a comment typed): the same build
+ * and checks, with this reading's machine (the build sheet quotes it) and its diagnostics in
+ * front of the build's own. `read`: how many of the build's diagnostics were its reading's.
+ */
+export function checkedAgain(b: Built, read: number, a: Analysed): Built {
+  return { ...b, analysed: a, diagnostics: [...a.diagnostics, ...b.diagnostics.slice(read)] };
+}
+
+/**
+ * The settings of a draft build while the search runs: the codes of the build shown before
+ * when they are for the same states and keep every pinned code, else counting order (which
+ * keeps pins itself).
+ */
+export function standInSettings(
+  a: Analysed,
+  asked: BuildSettings,
+  setup: SearchSetup,
+  previous?: { readonly encoding: Encoding; readonly states: readonly string[] },
+): { settings: BuildSettings; standIn: StandIn } {
+  const s = settle(a, asked).settings;
+  const states = a.minimised.machine.states;
+  const pinned = setup.pinned ?? {};
+  const fits =
+    previous !== undefined &&
+    same(previous.states, states) &&
+    Object.entries(pinned).every(([st, code]) => previous.encoding.codes[states.indexOf(st)] === code);
+  return fits
+    ? { settings: { ...s, encoding: { kept: previous.encoding, states } }, standIn: 'previous' }
+    : { settings: { ...s, encoding: { strategy: 'binary' } }, standIn: 'binary' };
+}
+
+/**
+ * How hard a draft's place phase works: the spectral order alone, no exact arrangement and no
+ * local search (a rough frame, in a fraction of the time; the final build places in full).
+ */
+export const DRAFT_PLACE_EFFORT = { exactLimit: 0, improve: { kicks: 0, work: 0 } } as const;
+
+/**
+ * Encode and synthesise, without the checks (they follow in checkJob); `searched`: the search
+ * already run on two cores (worker/search.ts) or remembered; `from`: where the codes came from
+ * (default: 'searched' when the settings search, else 'named'; a 'stand-in' draft is placed
+ * with DRAFT_PLACE_EFFORT).
+ */
 export function buildJob(
   a: Analysed,
   asked: BuildSettings,
   onProgress?: (p: Progress) => void,
   searched?: EncodeResult,
+  from?: CodesFrom,
 ): { view?: BuildView; built?: Built; diagnostics: Built['diagnostics'] } {
   const { settings: s, dropped } = settle(a, asked);
-  const b = buildMachine(a, { ...buildOptions(s, onProgress), checks: false, ...(searched ? { searched } : {}) });
+  const codesFrom = from ?? ('strategy' in s.encoding && s.encoding.strategy === 'auto' ? 'searched' : 'named');
+  const b = buildMachine(a, {
+    ...buildOptions(s, onProgress),
+    checks: false,
+    ...(searched ? { searched } : {}),
+    ...(from === 'stand-in' ? { placeEffort: DRAFT_PLACE_EFFORT } : {}),
+  });
   if (!b.ok) return { diagnostics: b.diagnostics };
   const view: BuildView = {
     build: b.build,
@@ -125,6 +246,7 @@ export function buildJob(
     ...(b.search ? { search: b.search } : {}),
     diagnostics: b.diagnostics,
     ...(dropped.length > 0 ? { dropped } : {}),
+    codesFrom,
   };
   return { view, built: b, diagnostics: b.diagnostics };
 }

@@ -14,6 +14,7 @@ import {
   type Build,
   type CheckResult,
   type Diagnostic,
+  type EncodeResult,
   type EncodeStrategy,
   type Encoding,
   type GuardReport,
@@ -53,6 +54,26 @@ export const DEFAULT_SETTINGS: BuildSettings = {
   seed: BUILD_DEFAULTS.seed,
 };
 
+/**
+ * The outcome of an encoding search kept by the page, under the key of the setup it searched
+ * (`searchSetupKey`): the search is deterministic for a setup, so an equal setup takes the
+ * outcome instead of searching again.
+ */
+export interface RememberedSearch {
+  readonly key: string;
+  readonly outcome: EncodeResult;
+}
+
+/**
+ * Where a build's codes came from: a named strategy or kept codes ('named'); the search run
+ * for this build ('searched'); a search of an equal setup the page remembered ('remembered');
+ * stand-ins while the search runs ('stand-in': a draft build, replaced when the search ends).
+ */
+export type CodesFrom = 'named' | 'searched' | 'remembered' | 'stand-in';
+
+/** What a draft build stands in with: the codes of the build shown before (same states), or counting order. */
+export type StandIn = 'previous' | 'binary';
+
 /** A setting the build could not use for this machine, dropped, with why in words. */
 export interface DroppedSetting {
   readonly setting: 'encoding' | 'unused';
@@ -89,6 +110,9 @@ export interface BuildView {
   readonly diagnostics: readonly Diagnostic[];
   /** Settings dropped because they were made for another machine (the page forgets them). */
   readonly dropped?: readonly DroppedSetting[];
+  readonly codesFrom: CodesFrom;
+  /** A draft's stand-in codes (codesFrom 'stand-in' only). */
+  readonly standIn?: StandIn;
 }
 
 /** One capstan's force margin, named for people: the kind of part and what it does, in words. */
@@ -167,6 +191,10 @@ export type ToWorker =
       readonly text: string;
       readonly file: string;
       readonly settings: BuildSettings;
+      /** Search outcomes the page keeps (a build whose setup has one of their keys does not search). */
+      readonly known?: readonly RememberedSearch[];
+      /** The codes of the build the page shows, for a draft while this build searches. */
+      readonly previous?: { readonly encoding: Encoding; readonly states: readonly string[] };
     }
   | {
       readonly kind: 'check';
@@ -187,7 +215,9 @@ export type ToWorker =
 
 export type FromWorker =
   | { readonly kind: 'reading'; readonly rev: number; readonly reading: Reading }
-  | { readonly kind: 'built'; readonly rev: number; readonly view: BuildView }
+  | { readonly kind: 'built'; readonly rev: number; readonly view: BuildView; readonly searched?: RememberedSearch }
+  /** A build with stand-in codes, shown while the search for this revision's codes runs; its final build follows. */
+  | { readonly kind: 'draft'; readonly rev: number; readonly view: BuildView }
   | { readonly kind: 'unbuilt'; readonly rev: number; readonly diagnostics: readonly Diagnostic[] }
   | { readonly kind: 'checked'; readonly rev: number; readonly view: ChecksView }
   | { readonly kind: 'schematic'; readonly rev: number; readonly svg?: string; readonly problem?: string }

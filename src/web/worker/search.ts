@@ -34,11 +34,15 @@ function startHelper(): Worker | undefined {
 
 const turn = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
 
-/** The build's automatic search on this worker and the helper; undefined when the build does not search. */
+/**
+ * The build's automatic search on this worker and the helper; undefined when the build does
+ * not search, or when `stale()` says a newer job replaced it (checked between tasks).
+ */
 export async function searchOnTwoCores(
   a: Analysed,
   opts: BuildOptions,
   onProgress?: (p: Progress) => void,
+  stale: () => boolean = () => false,
 ): Promise<EncodeResult | undefined> {
   const planned = planBuildSearch(a, opts, onProgress);
   if (!planned) return undefined;
@@ -47,10 +51,13 @@ export async function searchOnTwoCores(
   const h = startHelper();
   const build = ++builds;
   h?.postMessage({ kind: 'setup', build, setup } satisfies ToSearchHelper);
-  for (let batch = plan.next(); batch.length > 0; batch = plan.next())
-    plan.accept(
-      h ? await runBatch(h, build, batch, local, plan.progress) : batch.map((t) => local(t, plan.progress.tick)),
-    );
+  for (let batch = plan.next(); batch.length > 0; batch = plan.next()) {
+    const results = h
+      ? await runBatch(h, build, batch, local, plan.progress, stale)
+      : batch.map((t) => local(t, plan.progress.tick));
+    if (!results || stale()) return undefined;
+    plan.accept(results);
+  }
   return searchOutcome(plan, diagnostics);
 }
 
@@ -61,7 +68,8 @@ async function runBatch(
   batch: readonly SearchTask[],
   local: (t: SearchTask, tick: (full: boolean, value: number) => void) => TaskResult,
   progress: { add(count: number, best: number): void; tick: (full: boolean, value: number) => void },
-): Promise<TaskResult[]> {
+  stale: () => boolean,
+): Promise<TaskResult[] | undefined> {
   const results = new Array<TaskResult | undefined>(batch.length);
   let next = 0;
   let helperBusy = false;
@@ -87,9 +95,13 @@ async function runBatch(
     while (next < batch.length) {
       const id = next++;
       results[id] = local(batch[id], progress.tick);
-      await turn(); // let the helper's answers in
+      await turn(); // let the helper's answers (and newer jobs) in
+      if (stale()) return undefined;
     }
-    while (helperBusy && failure === undefined) await turn();
+    while (helperBusy && failure === undefined) {
+      await turn();
+      if (stale()) return undefined; // the helper's task may have been dropped for a newer setup
+    }
   } finally {
     h.removeEventListener('message', onMessage);
   }
