@@ -182,7 +182,8 @@ export {
 } from './checks/registry.js';
 
 // ── Simulate: the pure part step, the runner, the hand procedure, scripts ───────────────────
-export { createRunner, type ClockRecord, type PartRunner } from './sim/runner.js';
+export { createRunner, type ClockRecord, type PartRunner, type RunnerOptions } from './sim/runner.js';
+export { MEMO_BYTES, type MemoStats } from './sim/memo.js';
 export {
   isAlarm,
   powerUp,

@@ -2,10 +2,11 @@
  * The simulation layer's barrel: the part-level simulator (pure step and compiled netlist),
  * the settle programs and the bit-parallel lanes, the hand procedure, the runner with undo,
  * scripted stepping, drive snapshots, the abstract reference simulator and the
- * random-machine generator the tests and benchmarks share.
+ * random-machine generator the tests and benchmarks share; the runner's memo of clocks.
  */
 export * from './abstract.js';
 export * from './hand.js';
+export { MEMO_BYTES, type MemoStats } from './memo.js';
 export * from './part.js';
 export * from './random-machine.js';
 export * from './runner.js';

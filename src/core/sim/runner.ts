@@ -8,11 +8,18 @@
  * only when read; undo keeps a log of the steps and a copy of the state every
  * `CHECKPOINT_EVERY` steps, and goes back by replaying from the nearest copy (the step is
  * deterministic, so the replay gives the same state).
+ *
+ * A clock seen before costs one look-up: the memo (memo.ts) keeps, per ready state and input
+ * levers, where the clock ends, its two readings and its times as offsets. The step is
+ * deterministic and only shifts in time, so the memo's answer is the one settling would give
+ * (memo.ts gives the argument); clocks with alarms, or from a state that is not ready, are
+ * always settled.
  */
 import type { Build } from '../model/build.js';
-import { X } from './compile.js';
 import { isBinary, moverFor, type FastMover } from './fast.js';
+import { ClockMemo, MEMO_BYTES, type MemoClock, type MemoState, type MemoStats } from './memo.js';
 import { describeAction, RULE_WORDS, type HandAction, type InputValues, type OperatingRule } from './hand.js';
+import { ACT, CLOCK, LazyClockRecord, readingDrivers, RESET, StepLog, type ClockRecord } from './runner-log.js';
 import {
   applyFastInPlace,
   powerUp,
@@ -26,14 +33,7 @@ import {
   type PartTiming,
 } from './part.js';
 
-/** What one clock did: the outputs shown while its inputs were held (before φ1), and the code before and after. */
-export interface ClockRecord {
-  readonly inputs: InputValues;
-  readonly before: PartReading;
-  readonly outputs: Readonly<Record<string, string>>;
-  readonly after: PartReading;
-  readonly alarms: readonly PartEvent[];
-}
+export type { ClockRecord } from './runner-log.js';
 
 export interface PartRunner {
   readonly sim: PartSim;
@@ -51,6 +51,14 @@ export interface PartRunner {
   undo(): boolean;
   /** Labels of the steps that undo would take back, oldest first. */
   readonly history: readonly string[];
+  /** How the memo of clocks has served so far (memo.ts). */
+  memoStats(): MemoStats;
+}
+
+/** Options of a runner. */
+export interface RunnerOptions {
+  /** Bound on the memory of the memo of clocks, in bytes (default MEMO_BYTES, 16 MiB); 0: no memo. */
+  readonly memoBytes?: number;
 }
 
 /** Bytes per block of kept readings. */
@@ -60,104 +68,6 @@ const KEPT_BLOCK = 1 << 14;
 export const CHECKPOINT_EVERY = 64;
 
 const NO_ALARMS: readonly PartEvent[] = Object.freeze([]);
-
-/** The drivers a reading looks at: levers, latch gates and the drivers of the outputs. */
-function readingDrivers(sim: PartSim): Int32Array {
-  const ds = new Set<number>();
-  for (let d = 0; d < sim.leverCount; d++) ds.add(d);
-  for (const l of sim.latches) ds.add(l.set).add(l.reset);
-  for (const r of sim.outputs) {
-    if (r.kind === 'flag') ds.add(r.gate);
-    if (r.kind === 'actuator') for (const d of r.drivers) ds.add(d);
-  }
-  return Int32Array.from([...ds].sort((a, b) => a - b));
-}
-
-/** Two readings of one clock (inputs held, then after φ2), kept as the values of a few drivers each; put in words when read. */
-class LazyClockRecord implements ClockRecord {
-  private held: PartReading | undefined;
-  private done: PartReading | undefined;
-  constructor(
-    readonly inputs: InputValues,
-    private readonly sim: PartSim,
-    private readonly drivers: Int32Array,
-    /** From `at`: the drivers' values while the inputs were held, then after the clock. */
-    private readonly kept: Uint8Array,
-    private readonly at: number,
-    private readonly heldUs: number,
-    private readonly doneUs: number,
-    readonly alarms: readonly PartEvent[],
-  ) {}
-  get before(): PartReading {
-    return (this.held ??= this.read(this.at, this.heldUs));
-  }
-  get outputs(): Readonly<Record<string, string>> {
-    return this.before.outputs;
-  }
-  get after(): PartReading {
-    return (this.done ??= this.read(this.at + this.drivers.length, this.doneUs));
-  }
-  private read(from: number, timeUs: number): PartReading {
-    const values = new Uint8Array(this.sim.driverCount).fill(X);
-    for (let i = 0; i < this.drivers.length; i++) values[this.drivers[i]] = this.kept[from + i];
-    return readPart(this.sim, { values, timeUs });
-  }
-}
-
-/** Kinds of logged steps; a clock's payload is its input levers (a bit per input, or a '0'/'1' string past 30 inputs). */
-const ACT = 0;
-const CLOCK = 1;
-const RESET = 2;
-
-/**
- * The log of steps, kept in typed arrays (a clock costs two numbers, nothing for the garbage
- * collector to walk): the kind of each step and, for a clock with up to 30 inputs, its input
- * levers as bits; an action or a wider clock's levers sit in a side table by step.
- */
-class StepLog {
-  private kinds = new Uint8Array(256);
-  private bits = new Int32Array(256);
-  private readonly others = new Map<number, HandAction | string>();
-  length = 0;
-
-  push(kind: number, payload: HandAction | number | string | null): void {
-    if (this.length === this.kinds.length) {
-      const kinds = new Uint8Array(2 * this.length);
-      kinds.set(this.kinds);
-      const bits = new Int32Array(2 * this.length);
-      bits.set(this.bits);
-      this.kinds = kinds;
-      this.bits = bits;
-    }
-    this.kinds[this.length] = kind;
-    if (typeof payload === 'number') this.bits[this.length] = payload;
-    else if (payload !== null) this.others.set(this.length, payload);
-    this.length++;
-  }
-
-  pop(): void {
-    this.length--;
-    this.others.delete(this.length);
-  }
-
-  kind(i: number): number {
-    return this.kinds[i];
-  }
-
-  payload(i: number): HandAction | number | string | null {
-    return this.others.get(i) ?? (this.kinds[i] === CLOCK ? this.bits[i] : null);
-  }
-
-  /** The steps in words, oldest first. */
-  labels(): string[] {
-    const out: string[] = [];
-    for (let i = 0; i < this.length; i++) {
-      const k = this.kinds[i];
-      out.push(k === CLOCK ? 'clock' : k === RESET ? 'reset' : describeAction(this.others.get(i) as HandAction));
-    }
-    return out;
-  }
-}
 
 interface Checkpoint {
   /** The state before step `at`. */
@@ -188,14 +98,28 @@ class Runner implements PartRunner {
   private blockUsed = 0;
   /** Events of one move (reused: most moves raise none). */
   private readonly events: PartEvent[] = [];
+  /** Readings nobody keeps (a replayed clock's). */
+  private readonly scratch: Uint8Array;
+  private readonly memo: ClockMemo;
+  /** The memo's state for the current values, when known (any lever move forgets it). */
+  private at: MemoState | null = null;
 
-  constructor(readonly sim: PartSim) {
+  constructor(
+    readonly sim: PartSim,
+    memoBytes: number,
+  ) {
     const [s] = powerUp(sim);
     this.values = s.values.slice();
     this.timeUs = s.timeUs;
     this.ready = isBinary(sim, this.values);
     this.mover = moverFor(sim);
     this.drivers = readingDrivers(sim);
+    this.scratch = new Uint8Array(this.drivers.length);
+    this.memo = new ClockMemo(sim, memoBytes);
+  }
+
+  memoStats(): MemoStats {
+    return this.memo.stats();
   }
 
   get state(): PartState {
@@ -221,6 +145,20 @@ class Runner implements PartRunner {
     if (names.length <= 30) for (let i = 0; i < names.length; i++) packed |= (inputs[names[i]] === 1 ? 1 : 0) << i;
     else packed = names.map((n) => (inputs[n] === 1 ? '1' : '0')).join('');
     this.remember(CLOCK, packed);
+    const t0 = this.timeUs;
+    const seen = this.recall(packed);
+    if (seen)
+      return new LazyClockRecord(
+        inputs,
+        this.sim,
+        this.drivers,
+        seen.kept,
+        0,
+        t0 + seen.heldDt,
+        this.timeUs,
+        NO_ALARMS,
+      );
+    const from = this.ready ? this.at : null;
     this.alarms = null;
     this.setInputs(packed);
     const ds = this.drivers;
@@ -228,10 +166,11 @@ class Runner implements PartRunner {
     const kept = this.block;
     for (let i = 0; i < ds.length; i++) kept[at + i] = this.values[ds[i]];
     const heldUs = this.timeUs;
-    this.clockLevers();
-    for (let i = 0; i < ds.length; i++) kept[at + ds.length + i] = this.values[ds[i]];
+    this.clockPhases(kept, at + ds.length);
     const alarms = this.alarms ?? NO_ALARMS;
     this.alarms = null;
+    if (from && alarms.length === 0)
+      this.memorise(from, packed, kept.subarray(at, at + 2 * ds.length), heldUs - t0, t0);
     return new LazyClockRecord(inputs, this.sim, ds, kept, at, heldUs, this.timeUs, alarms);
   }
 
@@ -249,6 +188,7 @@ class Runner implements PartRunner {
     this.values = cp.values.slice();
     this.timeUs = cp.timeUs;
     this.ready = cp.ready;
+    this.at = null;
     for (let i = cp.at; i < k; i++) this.replay(this.log.kind(i), this.log.payload(i));
     return true;
   }
@@ -275,14 +215,74 @@ class Runner implements PartRunner {
   private replay(kind: number, payload: HandAction | number | string | null): void {
     if (kind === ACT) this.doAct(payload as HandAction);
     else if (kind === RESET) this.doReset();
-    else {
+    else if (!this.recall(payload as number | string)) {
       this.setInputs(payload as number | string);
-      this.clockLevers();
+      this.clockPhases(this.scratch, 0);
     }
     this.alarms = null;
   }
 
+  /**
+   * The four clock-lever moves from the inputs held, the reading drivers' values after them put
+   * at kept[to …]: from the memo when it has seen them from this held state, else settled (and
+   * kept when they raise no alarm and end ready).
+   */
+  private clockPhases(kept: Uint8Array, to: number): void {
+    const memo = this.memo;
+    const ds = this.drivers;
+    const held = this.ready && memo.usable ? memo.stateOf(this.values) : null;
+    const seen = held?.phases;
+    if (seen && this.timeUs <= Number.MAX_SAFE_INTEGER - seen.dt) {
+      memo.count('held');
+      this.values.set(seen.to.values);
+      this.timeUs += seen.dt;
+      this.at = seen.to;
+      kept.set(seen.kept, to);
+      return;
+    }
+    if (memo.usable) memo.count('miss');
+    const t0 = this.timeUs;
+    const alarmsBefore = this.alarms?.length ?? 0;
+    this.clockLevers();
+    for (let i = 0; i < ds.length; i++) kept[to + i] = this.values[ds[i]];
+    if (!held || (this.alarms?.length ?? 0) > alarmsBefore || !this.ready || !Number.isSafeInteger(this.timeUs)) return;
+    const end = memo.stateOf(this.values);
+    if (end === null) return;
+    memo.keepPhases(held, end, kept.subarray(to, to + ds.length), this.timeUs - t0);
+    this.at = end;
+  }
+
+  /**
+   * The clock with these input levers from the memo, when it holds it: the state is moved to
+   * the clock's end (values, time, memo state) and the kept clock returned; else null, with
+   * `this.at` the memo's state for the current values when they are ready and the memo has room.
+   */
+  private recall(packed: number | string): MemoClock | null {
+    const memo = this.memo;
+    if (!this.ready || !memo.usable) return null;
+    let from = this.at;
+    if (from === null || !memo.holds(from)) from = this.at = memo.stateOf(this.values);
+    const seen = from?.clocks?.get(packed);
+    // Offsets are exact only while the end time stays a safe integer (memo.ts).
+    if (seen === undefined || this.timeUs > Number.MAX_SAFE_INTEGER - seen.doneDt) return null;
+    memo.count('hit');
+    this.values.set(seen.to.values);
+    this.timeUs += seen.doneDt;
+    this.at = seen.to;
+    return seen;
+  }
+
+  /** Keep a clock that ran from memo state `from` at time t0 and raised no alarm, when it ended ready. */
+  private memorise(from: MemoState, packed: number | string, kept: Uint8Array, heldDt: number, t0: number): void {
+    if (!this.ready || !Number.isSafeInteger(this.timeUs)) return;
+    const to = this.at ?? this.memo.stateOf(this.values);
+    if (to === null) return;
+    this.memo.keep(from, packed, to, kept, heldDt, this.timeUs - t0);
+    this.at = to;
+  }
+
   private doAct(action: HandAction): PartEvent[] {
+    this.at = null;
     const events: PartEvent[] = [];
     this.timeUs = applyFastInPlace(this.sim, this.values, this.timeUs, action, events, this.ready);
     this.ready = this.mover.ready;
@@ -319,6 +319,7 @@ class Runner implements PartRunner {
   private move(d: number, v: 0 | 1): void {
     const values = this.values;
     if (d < 0 || values[d] === v) return;
+    this.at = null;
     const events = this.events;
     if (events.length !== 0) events.length = 0;
     const rule = this.ruleBroken(d, v);
@@ -359,6 +360,6 @@ class Runner implements PartRunner {
 }
 
 /** A runner at power-up (latches X until reset). */
-export function createRunner(build: Build, timing: PartTiming): PartRunner {
-  return new Runner(simFor(build, timing));
+export function createRunner(build: Build, timing: PartTiming, opts: RunnerOptions = {}): PartRunner {
+  return new Runner(simFor(build, timing), opts.memoBytes ?? MEMO_BYTES);
 }
