@@ -14,7 +14,7 @@ import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { BranchRoute, PartReading, Placement } from '../../core/index.js';
 import type { Stands } from '../frame/stands.js';
 import { screenSized, svgSizeMm, PX_PER_MM } from '../frame/sheet.js';
-import { shared } from '../styles/shared.js';
+import { shared, viewColumn } from '../styles/shared.js';
 import { touchScreen } from '../touch.js';
 import { emit } from './emit.js';
 import { LEVER_GLYPH_STYLES, leverGlyph, STAND_WORDS } from './lever-bank.js';
@@ -82,16 +82,9 @@ export class LwFrame extends LitElement {
 
   static override styles = [
     shared,
+    viewColumn,
     LEVER_GLYPH_STYLES,
     css`
-      :host {
-        display: grid;
-        grid-template-columns: minmax(0, 1fr);
-        gap: 0.9rem;
-      }
-      .panel {
-        min-width: 0;
-      }
       .row {
         display: flex;
         flex-wrap: wrap;

@@ -19,7 +19,7 @@ import {
   type RuleViolation,
 } from '../../core/index.js';
 import type { BuildView, ChecksView } from '../worker/protocol.js';
-import { shared } from '../styles/shared.js';
+import { shared, viewColumn } from '../styles/shared.js';
 import { checksSection, headroomView, partsSection, rulesSection, timingSection } from './parts-sections.js';
 import { emit } from './emit.js';
 import './bar-chart.js';
@@ -67,15 +67,8 @@ export class LwParts extends LitElement {
 
   static override styles = [
     shared,
+    viewColumn,
     css`
-      :host {
-        display: grid;
-        grid-template-columns: minmax(0, 1fr);
-        gap: 0.9rem;
-      }
-      .panel {
-        min-width: 0;
-      }
       .box {
         overflow-x: auto;
         max-width: 100%;

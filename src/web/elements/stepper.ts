@@ -10,7 +10,7 @@
 import { LitElement, css, html, nothing } from 'lit';
 import type { PartReading } from '../../core/index.js';
 import type { Alarm, Impossible, Sample } from '../controllers/stepper.js';
-import { shared } from '../styles/shared.js';
+import { shared, viewColumn } from '../styles/shared.js';
 import { emit } from './emit.js';
 import { touchScreen } from '../touch.js';
 import './lever-bank.js';
@@ -44,15 +44,8 @@ export class LwStepper extends LitElement {
 
   static override styles = [
     shared,
+    viewColumn,
     css`
-      :host {
-        display: grid;
-        grid-template-columns: minmax(0, 1fr);
-        gap: 0.9rem;
-      }
-      .panel {
-        min-width: 0;
-      }
       .never {
         margin: 0.5rem 0 0;
         padding: 0.3rem 0.6rem;

@@ -125,3 +125,15 @@ export const shared = css`
     white-space: nowrap;
   }
 `;
+
+/** A view of one column of panels that never grows past its box (the parts, frame and trial-run views). */
+export const viewColumn = css`
+  :host {
+    display: grid;
+    grid-template-columns: minmax(0, 1fr);
+    gap: 0.9rem;
+  }
+  .panel {
+    min-width: 0;
+  }
+`;
