@@ -261,7 +261,12 @@ function treeOf(d: Anchor, paths: readonly CordRun[][], r: number): { own: CordR
       if (!owner) continue;
       corners++;
       if (side !== 2)
-        channels[owner.i] = { kind: 'channel', from: { xM: xD, yM: y }, to: { xM: owner.x, yM: y }, lengthM: owner.far };
+        channels[owner.i] = {
+          kind: 'channel',
+          from: { xM: xD, yM: y },
+          to: { xM: owner.x, yM: y },
+          lengthM: owner.far,
+        };
     }
   }
   for (const t of info) {

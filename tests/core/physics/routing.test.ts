@@ -82,7 +82,9 @@ function checkTree(c: CordRoute, p: Profile): void {
         expect(o.to.yM).toBeGreaterThanOrEqual(drop.to.yM - 1e-12);
       } else if (o.kind === 'channel') expect(o).toEqual(ch);
       else expect(o).toBe(b.runs[b.runs.length - 1]);
-      segs.push(`${o.kind}:${o.from.xM.toFixed(9)}:${o.from.yM.toFixed(9)}:${o.to.xM.toFixed(9)}:${o.to.yM.toFixed(9)}`);
+      segs.push(
+        `${o.kind}:${o.from.xM.toFixed(9)}:${o.from.yM.toFixed(9)}:${o.to.xM.toFixed(9)}:${o.to.yM.toFixed(9)}`,
+      );
     }
   }
   expect(new Set(segs).size).toBe(segs.length);

@@ -161,7 +161,12 @@ function permutations<T>(xs: readonly T[], visit: (p: readonly T[]) => void): vo
   }
 }
 
-/** Channel length of one order of bays: Σ |capstan x of the driver − x of the lever tied to|. */
+/**
+ * Channel length of one order of bays, one drum, cords as trees (design §11: "a driver with
+ * several branches splits them at a knot in the channel"): for every cord with a target outside
+ * its driver's bay, the span from the leftmost to the rightmost of its capstan and the levers
+ * (or exits) it is tied to; a cord that stays in its bay rises straight and has none.
+ */
 export function channelOf(n: Netlist, order: readonly BruteBay[]): number {
   const capstan = new Map<string, number>();
   const lever = new Map<string, number>();
@@ -174,9 +179,10 @@ export function channelOf(n: Netlist, order: readonly BruteBay[]): number {
   let s = 0;
   for (const c of n.cords) {
     const from = capstan.get(c.driver) as number;
-    for (const p of c.ports)
-      if (p.part !== c.driver) s += Math.abs(from - (lever.get(`${p.part}.${p.port}`) as number));
-    for (const a of c.actuators) s += Math.abs(from - (lever.get(`${a}.exit`) as number));
+    const tied = [...c.ports.map((p) => [p.part, `${p.part}.${p.port}`]), ...c.actuators.map((a) => [a, `${a}.exit`])];
+    if (tied.every(([part]) => part === c.driver)) continue;
+    const xs = [from, ...tied.map(([, key]) => lever.get(key) as number)];
+    s += Math.max(...xs) - Math.min(...xs);
   }
   return s;
 }
