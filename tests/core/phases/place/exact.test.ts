@@ -98,7 +98,7 @@ describe('core/phases/place/exact', () => {
         const least = bruteForceChannel(n, ONE_DRUM);
         expect(placedChannel(n, placed.bays)).toBeCloseTo(least, 9);
         // The routing measures the same trees (physics/routing.ts).
-        // expect(placed.channelM).toBeCloseTo(least, 9);
+        expect(placed.channelM).toBeCloseTo(least, 9);
       }),
       { seed: 808, numRuns: 60 },
     );
