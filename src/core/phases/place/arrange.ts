@@ -210,8 +210,7 @@ function positionsOf(
 /** The total channel length over every drum: every cord's run along each channel it uses, once. */
 export function channelLength(fu: FrameUnits, at: Positions): number {
   let s = 0;
-  for (const cn of cordNets(fu, (b) => at.drumOfBay[b]))
-    s += netSpan({ pins: cn.points, w: 1 }, at.centreM);
+  for (const cn of cordNets(fu, (b) => at.drumOfBay[b])) s += netSpan({ pins: cn.points, w: 1 }, at.centreM);
   return s;
 }
 
