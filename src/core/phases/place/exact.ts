@@ -72,6 +72,9 @@ interface Tables {
   readonly touch: readonly (readonly Touch[])[];
   /** Nets with fixed points elsewhere. */
   readonly fixedNets: readonly number[];
+  /** The units' distinct widths, and each unit's index among them. */
+  readonly widths: Float64Array;
+  readonly widthOf: Int32Array;
   /** Bay index → the unit that must cover it (−1 none). */
   readonly coverAt: Int32Array;
   readonly pinned: Set<number>;
@@ -99,7 +102,11 @@ function tables(p: ArrangeProblem): Tables {
   });
   const coverAt = new Int32Array(nb).fill(-1);
   for (const [bay, k] of p.pins) if (k >= 0 && k < nb) coverAt[k] = unitOfBay[bay];
+  const unitWidth = p.units.map((u) => u.bays.reduce((sum, b) => sum + p.bayWidthM[b], 0));
+  const widths = [...new Set(unitWidth)];
   return {
+    widths: Float64Array.from(widths),
+    widthOf: Int32Array.from(unitWidth, (w) => widths.indexOf(w)),
     n,
     mask,
     w,
@@ -146,21 +153,62 @@ function covered(x: number, w: number, left: boolean, right: boolean, lo: number
  */
 interface FixedAfter {
   readonly full: number;
-  readonly partial: readonly { readonly net: number; readonly left: boolean; readonly right: boolean }[];
+  /** The nets that may cover part of it, with whether each has points placed (left) and to come (right). */
+  readonly partial: Int32Array;
+  readonly left: Uint8Array;
+  readonly right: Uint8Array;
+  readonly count: number;
+  /** Their cover of a unit of each width (units share a few widths), NaN until needed. */
+  readonly byWidth: Float64Array;
 }
 
-function fixedAfter(p: ArrangeProblem, t: Tables, s: State): FixedAfter {
+/** Whether a net with fixed points that does not cover what comes next wholly may cover part of it. */
+function partly(t: Tables, net: number, right: boolean, s: State): boolean {
+  return t.plain[net] === 0 && (right || t.fixedHi[net] > s.widthM);
+}
+
+function fixedAfter(t: Tables, s: State): FixedAfter {
   let full = 0;
-  const partial: { net: number; left: boolean; right: boolean }[] = [];
+  const partial = new Int32Array(t.fixedNets.length);
+  const left = new Uint8Array(t.fixedNets.length);
+  const right = new Uint8Array(t.fixedNets.length);
+  let count = 0;
   for (const net of t.fixedNets) {
+    const m = t.mask[net];
+    const l = (m & s.mask) !== 0;
+    const r = (m & ~s.mask) !== 0;
+    if (l && r) full += t.w[net];
+    else if (partly(t, net, r, s)) {
+      partial[count] = net;
+      left[count] = l ? 1 : 0;
+      right[count++] = r ? 1 : 0;
+    }
+  }
+  return { full, partial, left, right, count, byWidth: new Float64Array(t.widths.length).fill(NaN) };
+}
+
+/** A net's weighted cover of [x, x + w] (see `covered`), by its fixed points and which sides it has points on. */
+function cover(t: Tables, net: number, x: number, w: number, left: boolean, right: boolean): number {
+  return t.w[net] * covered(x, w, left, right, t.fixedLo[net], t.fixedHi[net]);
+}
+
+/** Cover by every partly covering net of unit u (of width index k) placed next, but the nets u itself touches. */
+function partlyCovered(t: Tables, s: State, fx: FixedAfter, u: number, k: number): number {
+  const w = t.widths[k];
+  let all = fx.byWidth[k];
+  if (Number.isNaN(all)) {
+    all = 0;
+    for (let i = 0; i < fx.count; i++) all += cover(t, fx.partial[i], s.widthM, w, fx.left[i] === 1, fx.right[i] === 1);
+    fx.byWidth[k] = all;
+  }
+  // The nets u touches were counted above as if it did not: take them out (step covers them itself).
+  for (const { net } of t.touch[u]) {
     const m = t.mask[net];
     const left = (m & s.mask) !== 0;
     const right = (m & ~s.mask) !== 0;
-    const fixed = p.nets[net].fixed;
-    if (left && right) full += t.w[net];
-    else if (fixed && (right || fixed.hiM > s.widthM)) partial.push({ net, left, right });
+    if (!(left && right) && partly(t, net, right, s)) all -= cover(t, net, s.widthM, w, left, right);
   }
-  return { full, partial };
+  return all;
 }
 
 /** The cost of putting unit u (bays in `order`) right after state s, and the cut after it. */
@@ -177,7 +225,7 @@ function step(
   let cut = s.cut;
   let through = s.cut + fx.full;
   let inc = 0;
-  const widthM = order.reduce((sum, b) => sum + p.bayWidthM[b], 0);
+  const widthM = t.widths[t.widthOf[u]];
   for (const tc of t.touch[u]) {
     const net = tc.net;
     const m = t.mask[net];
@@ -206,9 +254,7 @@ function step(
     }
   }
   inc += widthM * through;
-  for (const { net, left, right } of fx.partial)
-    if ((t.mask[net] & bit) === 0)
-      inc += t.w[net] * covered(s.widthM, widthM, left, right, t.fixedLo[net], t.fixedHi[net]);
+  inc += partlyCovered(t, s, fx, u, t.widthOf[u]);
   return { inc, cut };
 }
 
@@ -245,7 +291,7 @@ export function arrangeExact(p: ArrangeProblem): Arrangement | undefined {
     for (const s of layer.values()) {
       const zone = nextZone(p, t, s.mask);
       const forced = s.bays < t.coverAt.length ? t.coverAt[s.bays] : -1;
-      const fx = fixedAfter(p, t, s);
+      const fx = fixedAfter(t, s);
       for (let u = 0; u < t.n; u++) {
         if ((s.mask & (1 << u)) !== 0 || (forced !== -1 && forced !== u)) continue;
         for (const flipped of p.units[u].flippable ? [false, true] : [false]) {
