@@ -27,8 +27,9 @@
  *   x < the capstan's), then the right side, then targets right under the capstan; on each side
  *   the target farthest from the capstan owns the channel run out to it, the others only their
  *   rise; the first branch served at a level also owns the drop from the previous level (or the
- *   drum) down to it. Ties go to the branch first in netlist order. A branch's length is its own
- *   runs + a knot allowance at each end + the take-up allowance, so a cord of one branch is as
+ *   drum) down to it. Equally far levers (one above another on different drums) go by target
+ *   name (`gate.port`, code-point order). A branch's length is its own runs + a knot
+ *   allowance at each end + the take-up allowance, so a cord of one branch is as
  *   long as its path. A cord's trunk (from its hold lever down to the drum, its wraps, and a
  *   knot) is listed per cord; cutM = trunk + every branch's piece.
  * - Pulleys and pins in the frame: the corner where the drop turns into one side of a channel
@@ -184,7 +185,8 @@ export function route(netlist: Netlist, layout: FrameLayout, profile: Profile): 
     const paths = ends.map((e, i) =>
       leaves ? runsVia(driver, e.end, e.xM, targets[i].kind, profile) : [direct(driver, e.xM, r, f)],
     );
-    const tree = leaves ? treeOf(driver, paths, profile.drumRadiusM) : { own: paths, corners: 0 };
+    const names = targets.map((t) => t.target);
+    const tree = leaves ? treeOf(driver, paths, names, profile.drumRadiusM) : { own: paths, corners: 0 };
     const branches = targets.map((t, i) =>
       branchRoute(c.id, c.driver, t, paths[i], tree.own[i], driver.bay.drum !== ends[i].end.bay.drum, profile),
     );
@@ -233,7 +235,12 @@ const sideOf = (x: number, xD: number): 0 | 1 | 2 => (x < xD - 1e-9 ? 0 : x > xD
  * each branch is cut as, by the ownership rule of the contract, and how many corners (drop into
  * a side of a channel) it turns.
  */
-function treeOf(d: Anchor, paths: readonly CordRun[][], r: number): { own: CordRun[][]; corners: number } {
+function treeOf(
+  d: Anchor,
+  paths: readonly CordRun[][],
+  names: readonly string[],
+  r: number,
+): { own: CordRun[][]; corners: number } {
   const xD = d.bay.xM;
   const yTop = d.levelM - r;
   const info = paths.map((runs, i) => {
@@ -250,8 +257,14 @@ function treeOf(d: Anchor, paths: readonly CordRun[][], r: number): { own: CordR
   let corners = 0;
   for (const y of levels) {
     const here = info.filter((t) => t.y === y);
-    // Served in order: left side, right side, under the capstan; farthest first on a side, then netlist order.
-    const served = [...here].sort((a, b) => a.side - b.side || b.far - a.far || a.i - b.i);
+    // Served in order: left side, right side, under the capstan; farthest first on a side; levers equally far
+    // (above one another on different drums) by target name, so the rule does not hang on any listing order.
+    const served = [...here].sort(
+      (a, b) =>
+        a.side - b.side ||
+        (Math.abs(b.far - a.far) > 1e-9 ? b.far - a.far : 0) ||
+        (names[a.i] < names[b.i] ? -1 : names[a.i] > names[b.i] ? 1 : 0),
+    );
     const first = served[0];
     const from = { xM: xD, yM: Math.max(y, Math.min(yTop, above)) };
     drops[first.i] = { kind: 'drop', from, to: { xM: xD, yM: y }, lengthM: from.yM - y };

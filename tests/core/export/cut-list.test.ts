@@ -65,8 +65,10 @@ function treePieces(ends: readonly End[], xD: number, dropTop: number): number[]
   let above = dropTop;
   for (const y of levels) {
     const here = ends.filter((e) => e.channel === y);
+    // Equally far levers (one above another on different drums) by target name, as the routing's contract says.
+    const far = (e: End): number => Math.round(Math.abs(e.x - xD) * 1e4);
     const order = [...here].sort(
-      (a, b) => side(a.x) - side(b.x) || Math.abs(b.x - xD) - Math.abs(a.x - xD) || a.index - b.index,
+      (a, b) => side(a.x) - side(b.x) || far(b) - far(a) || (a.target < b.target ? -1 : a.target > b.target ? 1 : 0),
     );
     own[order[0].index] += Math.max(0, Math.min(dropTop, above) - y);
     above = y;
