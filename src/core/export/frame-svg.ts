@@ -1,7 +1,9 @@
 /**
  * frame.svg: the front elevation of the frame, to scale — drums, bays (numbered and labelled
- * with what each does), lever ends on the pivot rail, capstan wraps, every cord run with its
- * pulleys or pins, drum lengths and heights, a scale bar, and a key of every bay.
+ * with what each does), lever ends on the pivot rail, capstan wraps, every cord as its tree
+ * (physics/routing.ts: one drop, a run each way along each channel, a rise from a knot to each
+ * lever — each stretch drawn once, with the branch whose piece it is) and a pulley or pin at
+ * each corner and rise, drum lengths and heights, a scale bar, and a key of every bay.
  *
  * Geometry: every position and length comes from the placement and its routing (phases/place,
  * physics/routing.ts) and the profile's frame fields; one scale (1:s, the smallest of the usual
@@ -19,7 +21,8 @@
  * under the drawing has every bay's words in full.
  * Every lever end carries its part, lever, drum and bay (data-part, data-lever, data-drum,
  * data-bay) and every branch its cord, target, driver and lever, so a page can light a cord's
- * run and both its ends. Two palettes: `paper` (the default, the document) and `screen` (the
+ * run and both its ends; the screen palette adds each branch's whole path (class `route`,
+ * data-route-cord, data-route-target), unseen until the page lights it. Two palettes: `paper` (the default, the document) and `screen` (the
  * designer's theme variables, light or dark, its rules scoped to the drawing's own class).
  * Pure; every user-given name is escaped (svg.ts, escape.ts).
  */

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { route, type CordRoute, type FrameLayout, type PlacedBay } from '../../../src/core/physics/routing.js';
 import { DEFAULT_PROFILE, type Profile } from '../../../src/core/physics/profile.js';
 import { place } from '../../../src/core/phases/place/index.js';
@@ -70,7 +71,7 @@ function checkTree(c: CordRoute, p: Profile): void {
   const f = p.frame;
   const pieces = c.branches.reduce((s, b) => s + b.lengthM, 0);
   expect(c.cutM).toBeCloseTo(c.trunkM + pieces, 12);
-  if (c.branches[0]?.runs[0].kind === 'direct') return;
+  if (c.branches.length === 0 || c.branches[0].runs[0].kind === 'direct') return;
   const segs: string[] = [];
   for (const b of c.branches) {
     const drop = b.runs[0];
@@ -329,5 +330,50 @@ describe('core/physics/routing', () => {
     expect(bell?.own[2].lengthM).toBe(F.actuatorRunM);
     expect(out.channelM).toBeCloseTo(0.12, 12);
     checkTree(out.cords[0], DEFAULT_PROFILE);
+  });
+
+  // Property (fixed seed): one driver and up to six targets scattered over three drums, in any bays.
+  it('cuts every tree into pieces that cover it once, with the channel its spans, wherever the bays stand (property)', () => {
+    const spot = fc.record({ drum: fc.integer({ min: 1, max: 3 }), slot: fc.integer({ min: 0, max: 11 }) });
+    fc.assert(
+      fc.property(
+        spot,
+        fc.uniqueArray(spot, { minLength: 1, maxLength: 6, selector: (x) => `${x.drum}:${x.slot}` }),
+        (d, ts) => {
+          const free = ts.filter((t) => t.drum !== d.drum || t.slot !== d.slot);
+          const gates = free.map((_, i) => gate(`g${i}`, 1));
+          const n: Netlist = {
+            parts: [lever('in'), ...gates],
+            cords: [
+              cord(
+                'c.in',
+                'in',
+                gates.map((g) => `${g.id}.a`),
+              ),
+            ],
+          };
+          const l: FrameLayout = {
+            bays: [
+              bay('in', d.drum, d.slot + 1, 0.03 + 0.06 * d.slot, ['lever']),
+              ...free.map((t, i) => bay(`g${i}`, t.drum, t.slot + 1, 0.03 + 0.06 * t.slot, ['a'])),
+            ],
+          };
+          const out = route(n, l, DEFAULT_PROFILE);
+          const [c] = out.cords;
+          checkTree(c, DEFAULT_PROFILE);
+          expect(out.channelM).toBeCloseTo(spans(c), 9);
+          // Every branch's own runs lie on its own path, and every path turns twice: (1/η)² (η = 0.95).
+          for (const b of c.branches) expect(b.loss).toBeCloseTo(1 / 0.95 ** 2, 12);
+          // In the frame: a pulley at each side of each channel used, and one at each rise.
+          const sides = new Set(
+            c.branches.map(
+              (b) => `${b.runs[1].from.yM}|${Math.sign(Math.round((b.runs[1].to.xM - b.runs[1].from.xM) * 1e6))}`,
+            ),
+          );
+          expect(c.pulleys).toBe(sides.size + c.branches.length);
+        },
+      ),
+      { seed: 4242, numRuns: 200 },
+    );
   });
 });
