@@ -36,10 +36,10 @@ const pc = (x: number): string => `${(x * 100).toFixed(1)} %`;
 
 /**
  * Share of cord saved against the netlist order: along the channel, and in all; and, on one
- * drum, the most any order could save. On one drum a branch's drop, rise and knots and a
- * cord's trunk are the same in every order (a branch rises straight only back to its own
- * driver's bay), so the order changes only the runs along the channel, and no order can save
- * more than the channel's share of the netlist order's cord.
+ * drum, the most any order could save. On one drum a cord's trunk and drop and a branch's
+ * rise and knots are the same in every order (a cord rises straight only when every lever it
+ * pulls is in its own driver's bay), so the order changes only the runs along the channel,
+ * and no order can save more than the channel's share of the netlist order's cord.
  */
 interface Saved {
   readonly channel: number;
@@ -204,7 +204,7 @@ export function benchPlace(large: readonly string[] = ['s298', 's1488']): { rows
     const total = middle(saved.map((x) => x.total));
     return total >= 0.3
       ? '≥ 30 % less (met)'
-      : `≥ 30 % less (short by ${((0.3 - total) * 100).toFixed(1)} points: the order moves only the runs along the channel and, over several drums, the rises between them; every branch keeps its drop from the drum, its rise to the lever and its knot allowances, and every cord its trunk, wherever its bays are. On one drum no order can save more than the channel's share of the netlist order's cord, whose median over the builds on one drum is ${bounds(saved)})`;
+      : `≥ 30 % less (short by ${((0.3 - total) * 100).toFixed(1)} points: the order moves only the runs along the channel and, over several drums, the drops and rises between them; every cord keeps its trunk and its drop from the drum, and every branch its rise to the lever and its knot allowances, wherever its bays are. On one drum no order can save more than the channel's share of the netlist order's cord, whose median over the builds on one drum is ${bounds(saved)})`;
   };
   const rows: PlaceBenchRow[] = [
     ...(biggest ? [biggest] : []),

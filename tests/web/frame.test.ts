@@ -131,7 +131,11 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
   });
 
   it("lights one cord's run and its two ends when pointed at, tabbed to or tapped", async () => {
-    const b = ref.placement.routing.branches.find((x) => x.kind === 'port' && x.driver !== x.part);
+    // A branch cut with a run along the channel of its own: a branch that only rises from a knot can
+    // share its whole drawn line with another cord's rise to the same lever.
+    const b = ref.placement.routing.branches.find(
+      (x) => x.kind === 'port' && x.driver !== x.part && x.own.some((r) => r.kind === 'channel'),
+    );
     if (!b) throw new Error('the example has a cord between two bays');
     const port = b.target.slice(b.part.length + 1);
     const litNow = () =>
@@ -146,6 +150,11 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
         );
     await pointAt(b.cord, b.target);
     expect(await litNow()).toEqual([`${b.cord}→${b.target}`]);
+    // Its whole path from the drum, shared stretches included, is drawn while it is lit.
+    const route = page.locator('lw-frame path.route.lit');
+    await expect(route.count()).resolves.toBe(1);
+    await expect(route.getAttribute('data-route-target')).resolves.toBe(b.target);
+    await expect(route.evaluate((el) => getComputedStyle(el).visibility)).resolves.toBe('visible');
     await expect(page.locator('lw-frame .sheet').getAttribute('class')).resolves.toContain('lighting');
     // One end: the capstan that pulls it and its bay's label; the other: the lever it is tied to.
     const from = await ends('from');
@@ -314,6 +323,7 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
       .locator('lw-frame .end[data-part]')
       .evaluateAll((es) => es.map((e) => e.getAttribute('data-part') ?? ''));
     expect(new Set(lit)).toEqual(new Set([across.driver, across.part]));
+    await expect(page.locator('lw-frame path.route.lit').getAttribute('data-route-cord')).resolves.toBe(across.cord);
     expect(await downOnPage()).toEqual(
       downInNode(
         b,

@@ -7,8 +7,8 @@
  * one bay and no two share one; the bays of each drum are counted 1, 2, 3 … side by side; a
  * latch's gates are neighbours; operator levers sit at the visitor end of drum 1 and clock and
  * reset levers at its crank end (unless pinned); every drum is within the longest allowed, and
- * the frame carries every drum; every branch is longer than 0 and as long as its runs and
- * allowances. Then every capstan's margin with each branch's routed loss — pulleys at η each
+ * the frame carries every drum; every branch is longer than 0 and as long as the runs it is cut
+ * as (its own segments of the cord's tree) and the allowances. Then every capstan's margin with each branch's routed loss — pulleys at η each
  * and pins by the capstan equation of Euler and Eytelwein (physics/routing.ts) — must be at
  * least profile.minMargin (the same budget as the drive check, physics/drive.ts).
  * A failure says what to change: a longer drum allowed, a second drum, more wraps, a buffer

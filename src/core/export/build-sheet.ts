@@ -464,7 +464,7 @@ function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Se
   const drums = pl.drums.map((d) => `drum ${d.drum}: ${num(d.lengthM)} m, ${d.bays.length} bays`).join('; ');
   const blocks: Block[] = [
     p(
-      `${pl.drums.length === 1 ? 'One drum' : `${pl.drums.length} drums, stacked ${num(f.drumSpacingM)} m apart`} (${drums}; the longest allowed is ${num(f.longestDrumM)} m). Bays are counted from 1 at the visitor end of each drum; operator levers sit at the visitor end, clock and reset levers at the crank end. The order of the bays is ${pl.method === 'exact' ? 'the proven shortest' : pl.method === 'heuristic' ? 'the shortest the search found' : "the netlist's own, which was already the shortest"} in cord along the channel: ${num(pl.totalCordM, 1)} m of cord in all (${num(pl.baselineCordM, 1)} m with the bays in netlist order), ${pl.pulleys} ${f.turn === 'pulley' ? 'pulley passes' : 'pin turns'}.`,
+      `${pl.drums.length === 1 ? 'One drum' : `${pl.drums.length} drums, stacked ${num(f.drumSpacingM)} m apart`} (${drums}; the longest allowed is ${num(f.longestDrumM)} m). Bays are counted from 1 at the visitor end of each drum; operator levers sit at the visitor end, clock and reset levers at the crank end. The order of the bays is ${pl.method === 'exact' ? 'the proven shortest' : pl.method === 'heuristic' ? 'the shortest the search found' : "the netlist's own, which was already the shortest"} in cord along the channel: ${num(pl.totalCordM, 1)} m of cord in all (${num(pl.baselineCordM, 1)} m with the bays in netlist order), ${f.turn === 'pulley' ? `${pl.pulleys} pulleys` : `${pl.routing.pins} pins`} (one at each corner where a cord's drop turns along a channel, shared by its branches, and one where each branch rises or leaves the frame).`,
     ),
   ];
   if (layout) blocks.push(p(`Layout check: ${layout.ok ? 'passed' : 'FAILED'} — ${layout.summary}`));
@@ -483,7 +483,7 @@ function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Se
       { caption: 'Every bay, from the visitor end', mono: [3] },
     ),
     p(
-      'Cut every cord piece to cut-list.csv (trunk from the hold lever to the drum, then each branch). Cut the clock cams from cams.svg printed at 100 %: check its 100 mm bar first.',
+      'Cut every cord piece to cut-list.csv (trunk from the hold lever to the drum, then each branch’s piece: a cord that leaves its bay drops once and splits at knots in the channel, and the list says where each piece is tied on). Cut the clock cams from cams.svg printed at 100 %: check its 100 mm bar first.',
     ),
   );
   return { id: 'frame', title: 'Frame: bays, drums and cords', blocks };

@@ -4,11 +4,13 @@
  * pulleys or pins, the weights, and the cam discs.
  *
  * Cord pieces (physics/routing.ts): a cord is cut as its trunk — from its hold lever down to
- * the drum, its wraps, and a knot — and one piece per branch, tied to the trunk at the knot
- * where the cord leaves the drum; a branch's length is its runs plus a knot allowance at each
- * end plus the take-up allowance. The cord's total is trunk plus branches. Cords are listed by
- * where their capstan sits, drum by drum from the visitor end. Lengths in metres to the
- * millimetre, rounded up so that no piece is cut short.
+ * the drum, its wraps, and a knot — and one piece per branch. A cord that leaves its bay runs as
+ * a tree (one drop, a run each way along each channel it uses, a rise to every lever), and each
+ * branch's piece is the part of the tree it owns: the row says where it is tied on (at the drum,
+ * in the drop, or at a knot in the channel) and where it goes. A piece's length is its own runs
+ * plus a knot allowance at each end plus the take-up allowance. The cord's total is trunk plus
+ * pieces. Cords are listed by where their capstan sits, drum by drum from the visitor end.
+ * Lengths in metres to the millimetre, rounded up so that no piece is cut short.
  * The safety cautions come first (as in every document), then the rows; every cell goes through
  * csv.ts (RFC 4180, spreadsheet formula injection escaped).
  */
@@ -17,6 +19,7 @@ import type { Netlist } from '../model/netlist.js';
 import type { Placement } from '../phases/place/index.js';
 import { wrapsOf } from '../physics/capstan.js';
 import type { Profile } from '../physics/profile.js';
+import type { BranchRoute, CordRun } from '../physics/routing.js';
 import { CAUTIONS } from './build-sheet.js';
 import { toCsv, type CsvCell } from './csv.js';
 import { partWords } from './part-words.js';
@@ -34,7 +37,7 @@ export interface CutRow {
   readonly lengthM: number | '';
   /** Size in words: diameter, section, mass. */
   readonly size: string;
-  /** Where it goes: `bay 7, drum 1 → bay 12, drum 1`. */
+  /** Where it goes: `bay 7, drum 1 → bay 12, drum 1`; for a branch piece, where it is tied on and where it ends. */
   readonly where: string;
   readonly note: string;
 }
@@ -96,15 +99,14 @@ function cordRows(build: Build, placement: Placement, profile: Profile): CutRow[
         ...(b.pulleys > 0 ? [`${b.pulleys} ${b.pulleys === 1 ? 'pulley' : 'pulleys'}`] : []),
         ...(b.pins.length > 0 ? [`${b.pins.length} ${b.pins.length === 1 ? 'pin' : 'pins'}`] : []),
       ];
+      const piece = pieceWords(b, at, profile);
       rows.push({
         ...base,
         piece: `branch to ${b.target}`,
         count: 1,
         lengthM: cutMetres(b.lengthM),
-        where: `${where(c.driver)} → ${where(b.part)}`,
-        note: [b.runs.length === 1 ? 'rises straight to its lever' : 'down to the channel, along, up', ...turns].join(
-          '; ',
-        ),
+        where: `${piece.tied} → ${where(b.part)}`,
+        note: [piece.runs, ...(turns.length > 0 ? [`its path passes ${turns.join(' and ')}`] : [])].join('; '),
       });
     }
     rows.push({
@@ -117,6 +119,42 @@ function cordRows(build: Build, placement: Placement, profile: Profile): CutRow[
     });
   }
   return rows;
+}
+
+/** The drum whose channel lies at height `yM` (channels run channelBelowDrumM under each drum's axis). */
+function channelDrum(yM: number, profile: Profile): number {
+  const f = profile.frame;
+  return Math.round((yM + f.channelBelowDrumM) / f.drumSpacingM) + 1;
+}
+
+/** Where a branch's piece is tied on, and its runs in words: `down to drum 1's channel, along it to bay 9, up to the lever`. */
+function pieceWords(
+  b: BranchRoute,
+  at: ReadonlyMap<string, { readonly bay: number; readonly drum: number }>,
+  profile: Profile,
+): { tied: string; runs: string } {
+  const from = at.get(b.driver);
+  const to = at.get(b.part);
+  const under = (p: { bay: number; drum: number } | undefined): string => (p ? `bay ${p.bay} of drum ${p.drum}` : '');
+  const first = b.own[0] as CordRun | undefined;
+  if (!first || first.kind === 'direct')
+    return { tied: `from the drum, ${under(from)}`, runs: 'rises straight to its lever' };
+  const words = b.own.map((r) => {
+    const ch = channelDrum(r.to.yM, profile);
+    if (r.kind === 'drop') return `down to drum ${ch}'s channel`;
+    if (r.kind === 'channel') return `along it to ${to ? `bay ${to.bay}` : 'its lever'}`;
+    return r.kind === 'rise' ? 'up to its lever' : 'out of the frame';
+  });
+  const knot = channelDrum(first.from.yM, profile);
+  const tied =
+    first.kind === 'drop'
+      ? first.from.yM >= (b.runs[0]?.from.yM ?? first.from.yM) - 1e-9
+        ? `from the drum, ${under(from)}`
+        : `tied on in the drop under ${under(from)}, at drum ${knot}'s channel`
+      : first.kind === 'channel'
+        ? `tied on at the foot of the drop under ${under(from)}, in drum ${knot}'s channel`
+        : `tied on at the knot under ${under(to)}, in drum ${knot}'s channel`;
+  return { tied, runs: words.join(', ') };
 }
 
 function leverRows(n: Netlist, profile: Profile): CutRow[] {
@@ -170,7 +208,8 @@ function frameRows(build: Build, placement: Placement, profile: Profile): CutRow
       count: r.pulleys,
       lengthM: '',
       size: `Ø ${mm(f.pulleyDiameterM)}`,
-      where: 'at every turn of a branch (cut-list rows above)',
+      where:
+        'one where each cord’s drop turns into a side of a channel (its branches share it), one where each branch rises or leaves the frame',
       note: `bend radius ${r.bend.ok ? 'at least' : 'LESS than'} 4 × the cord diameter`,
     });
   if (r.pins > 0)
@@ -181,7 +220,7 @@ function frameRows(build: Build, placement: Placement, profile: Profile): CutRow
       count: r.pins,
       lengthM: '',
       size: `Ø ${mm(f.pulleyDiameterM)}`,
-      where: 'at every turn over a pin',
+      where: 'as the pulleys: one at each shared corner, one where each branch rises or leaves',
       note: 'smooth and fixed',
     });
   const gates = build.netlist.parts.filter((p) => p.kind === 'gate');

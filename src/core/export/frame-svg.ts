@@ -1,7 +1,9 @@
 /**
  * frame.svg: the front elevation of the frame, to scale — drums, bays (numbered and labelled
- * with what each does), lever ends on the pivot rail, capstan wraps, every cord run with its
- * pulleys or pins, drum lengths and heights, a scale bar, and a key of every bay.
+ * with what each does), lever ends on the pivot rail, capstan wraps, every cord as its tree
+ * (physics/routing.ts: one drop, a run each way along each channel, a rise from a knot to each
+ * lever — each stretch drawn once, with the branch whose piece it is) and a pulley or pin at
+ * each corner and rise, drum lengths and heights, a scale bar, and a key of every bay.
  *
  * Geometry: every position and length comes from the placement and its routing (phases/place,
  * physics/routing.ts) and the profile's frame fields; one scale (1:s, the smallest of the usual
@@ -19,7 +21,8 @@
  * under the drawing has every bay's words in full.
  * Every lever end carries its part, lever, drum and bay (data-part, data-lever, data-drum,
  * data-bay) and every branch its cord, target, driver and lever, so a page can light a cord's
- * run and both its ends. Two palettes: `paper` (the default, the document) and `screen` (the
+ * run and both its ends; the screen palette adds each branch's whole path (class `route`,
+ * data-route-cord, data-route-target), unseen until the page lights it. Two palettes: `paper` (the default, the document) and `screen` (the
  * designer's theme variables, light or dark, its rules scoped to the drawing's own class).
  * Pure; every user-given name is escaped (svg.ts, escape.ts).
  */
@@ -28,7 +31,7 @@ import type { Part } from '../model/netlist.js';
 import { wrapsOf } from '../physics/capstan.js';
 import type { Placement, PlacedBayInfo, PlacedDrum } from '../phases/place/index.js';
 import type { Profile } from '../physics/profile.js';
-import type { BranchRoute, RoutePoint } from '../physics/routing.js';
+import type { BranchRoute, CordRun, RoutePoint } from '../physics/routing.js';
 import { escapeXml as x } from './escape.js';
 import { partWords } from './part-words.js';
 import { clip, round1 as r1, svgDocument, svgText } from './svg.js';
@@ -94,11 +97,19 @@ interface Lane {
   readonly lane: number;
 }
 
-/** Lanes per channel by the left-edge algorithm: runs sorted by their left end, each in the first lane free there. */
+/** Which side of its capstan a run along the channel goes (0 left, 1 right), as routing.ts serves them. */
+const sideOf = (run: CordRun): number => (run.to.xM < run.from.xM ? 0 : 1);
+/** The key of one side of one cord's tree in one channel. */
+const sideKey = (cord: string, run: CordRun): string => `${cord}|${run.from.yM}|${sideOf(run)}`;
+
+/**
+ * Lanes per channel by the left-edge algorithm: the channel runs of every cord's tree (each drawn
+ * once, by the branch that owns it), sorted by their left end, each in the first lane free there.
+ */
 function assignLanes(branches: readonly BranchRoute[]): { lanes: Map<BranchRoute, Lane>; count: Map<number, number> } {
   const byChannel = new Map<number, { b: BranchRoute; lo: number; hi: number }[]>();
   for (const b of branches) {
-    const run = b.runs.find((r) => r.kind === 'channel');
+    const run = b.own.find((r) => r.kind === 'channel');
     if (!run) continue;
     const y = run.from.yM;
     const list = byChannel.get(y) ?? [];
@@ -203,6 +214,7 @@ function screenStyle(): string {
   rules.push(
     `${scope} .cord-run[stroke='#000000'] { stroke: var(--lw-ink); }`,
     `${scope} marker path { fill: var(--lw-info); }`,
+    `${scope} path.route { fill: none; stroke-width: 0.3; stroke-linejoin: round; visibility: hidden; pointer-events: none; }`,
   );
   return `\n${rules.join('\n')}\n`;
 }
@@ -277,7 +289,7 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   }
   const rowUnder = (channelY: number): number =>
     sheet.Y(channelY) + sheet.laneStart + (count.get(channelY) ?? 0) * laneMm + FONT + 0.8;
-  body.push(...cordRuns(sheet, placement, profile, lanes, rowUnder));
+  body.push(...cordRuns(sheet, placement, profile, { lanes, rowUnder, screen: options.palette === 'screen' }));
   const exits = placement.routing.branches.some((b) => b.kind === 'actuator');
   let y = bayRowY(1) + (exits ? 7.5 : 4);
   body.push(...endWords(sheet, placement, y));
@@ -332,14 +344,14 @@ function titleBlock(
     svgText(
       MARGIN,
       MARGIN + 13,
-      `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${r1(2 * r * 1000)} mm, ${placement.drums.map((d) => m(d.lengthM)).join(' and ')} long; overall ${m(lengthM)} × ${m(frameHeightM)}; ${placement.bays.length} bays; ${m(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${placement.pulleys} ${f.turn === 'pin' ? 'pin turns' : `pulley passes (Ø ${r1(f.pulleyDiameterM * 1000)} mm)`}.`,
+      `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${r1(2 * r * 1000)} mm, ${placement.drums.map((d) => m(d.lengthM)).join(' and ')} long; overall ${m(lengthM)} × ${m(frameHeightM)}; ${placement.bays.length} bays; ${m(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${r1(f.pulleyDiameterM * 1000)} mm)`}, one at each corner of a cord's tree and where each branch rises.`,
       'sub',
       'start',
     ),
     svgText(
       MARGIN,
       MARGIN + 17,
-      'Runs along a cord channel all lie at its level; they are drawn apart below it so each can be followed. Levers are shown end on, on the pivot rail.',
+      'A cord drops once and splits at knots in the channel; runs along a channel all lie at its level and are drawn apart below it so each can be followed. Levers are shown end on.',
       'note',
       'start',
     ),
@@ -396,54 +408,110 @@ function drumBody(
 /** The lever a branch is tied to: its port (the target is `gate.port`), or 'exit' for an actuator. */
 const leverOf = (b: BranchRoute): string => (b.kind === 'port' ? b.target.slice(b.part.length + 1) : 'exit');
 
-/** Every branch's runs, a cord's branches in one colour, channel runs in their lanes; pulleys or pins at the turns. */
+/** Where a branch's runs are drawn: channel runs in the lane of the tree's run on that side of the channel. */
+interface Pen {
+  readonly s: Sheet;
+  readonly hostLane: ReadonlyMap<string, number>;
+  readonly cord: string;
+}
+
+/** A point of a run on paper; `inChannel`, at the lane of the channel run that carries it there. */
+function penAt(pen: Pen, p: RoutePoint, inChannel: CordRun | undefined): { x: number; y: number } {
+  const { s } = pen;
+  const lane = inChannel ? pen.hostLane.get(sideKey(pen.cord, inChannel)) : undefined;
+  return { x: s.X(p.xM), y: lane === undefined ? s.Y(p.yM) : s.Y(p.yM) + s.laneStart + lane * s.laneMm };
+}
+
+/** The polyline of some runs of a branch whose whole path is `path` (its own runs, or the path itself). */
+function polyline(pen: Pen, runs: readonly CordRun[], path: readonly CordRun[]): { x: number; y: number }[] {
+  const channel = path.find((r) => r.kind === 'channel');
+  const pts: { x: number; y: number }[] = [];
+  const start = (p: { x: number; y: number }): void => {
+    if (pts.length === 0) pts.push(p);
+  };
+  for (const run of runs) {
+    if (run.kind === 'direct') pts.push(penAt(pen, run.from, undefined), penAt(pen, run.to, undefined));
+    else if (run.kind === 'drop') {
+      start(penAt(pen, run.from, undefined));
+      pts.push(penAt(pen, run.to, channel));
+    } else if (run.kind === 'channel') {
+      // A run that does not follow its own drop leaves the foot of the drop for its lane.
+      start(penAt(pen, run.from, undefined));
+      pts.push(penAt(pen, run.from, run), penAt(pen, run.to, run));
+    } else if (run.kind === 'rise') {
+      start(penAt(pen, run.from, channel));
+      pts.push(penAt(pen, run.to, undefined));
+    } else start(penAt(pen, run.from, channel));
+  }
+  return pts;
+}
+
+const pathData = (pts: readonly { x: number; y: number }[]): string =>
+  pts.map((p, j) => `${j === 0 ? 'M' : 'L'}${r2(p.x)},${r2(p.y)}`).join(' ');
+
+/**
+ * Every cord as its tree: each segment once, drawn with the branch that owns it (the piece it is
+ * cut in), a cord's branches in one colour, channel runs in their lanes; a pulley or pin at each
+ * corner (shared by the branches turning there) and where each branch rises or leaves. On screen,
+ * each branch's whole path too, unseen until the page lights it.
+ */
 function cordRuns(
   s: Sheet,
   placement: Placement,
   profile: Profile,
-  lanes: ReadonlyMap<BranchRoute, Lane>,
-  rowUnder: (channelY: number) => number,
+  how: {
+    lanes: ReadonlyMap<BranchRoute, Lane>;
+    rowUnder: (channelY: number) => number;
+    screen: boolean;
+  },
 ): string[] {
   const out: string[] = ['<g class="cords">'];
   const turns = new Map<string, RoutePoint>();
+  const turn = (p: RoutePoint): void => {
+    turns.set(`${r2(p.xM)}:${r2(p.yM)}`, p);
+  };
   /** Cords that leave the frame, by the row under which they are named. */
   const exits = new Map<number, { x: number; words: string }[]>();
   const bayOf = new Map(placement.bays.map((b) => [b.part, b.bay]));
   placement.routing.cords.forEach((c, i) => {
     const colour = PALETTE[i % PALETTE.length];
     out.push(`<g class="cord-run" stroke="${colour}"><title>${x(`cord ${c.cord}: cut ${m(c.cutM)}`)}</title>`);
+    const hostLane = new Map<string, number>();
     for (const b of c.branches) {
-      const lane = lanes.get(b);
-      const pts: { x: number; y: number }[] = [];
-      let exit: { x: number; y: number; row: number } | undefined;
-      for (const run of b.runs) {
-        const at = (p: RoutePoint, inChannel: boolean): { x: number; y: number } => ({
-          x: s.X(p.xM),
-          y: inChannel && lane ? s.Y(p.yM) + s.laneStart + lane.lane * s.laneMm : s.Y(p.yM),
-        });
-        if (run.kind === 'direct') pts.push(at(run.from, false), at(run.to, false));
-        else if (run.kind === 'drop') pts.push(at(run.from, false), at(run.to, true));
-        else if (run.kind === 'channel') pts.push(at(run.to, true));
-        else if (run.kind === 'rise') pts.push(at(run.to, false));
-        else exit = { ...at(run.from, true), row: rowUnder(run.from.yM) };
-        if (run.kind === 'drop' || run.kind === 'rise') {
-          const p = run.kind === 'drop' ? run.to : run.from;
-          turns.set(`${r2(p.xM)}:${r2(p.yM)}`, p);
-        }
-        if (run.kind === 'exit') turns.set(`${r2(run.from.xM)}:${r2(run.from.yM)}`, run.from);
-      }
-      const d = pts.map((p, j) => `${j === 0 ? 'M' : 'L'}${r2(p.x)},${r2(p.y)}`).join(' ');
+      const run = b.own.find((r) => r.kind === 'channel');
+      const lane = how.lanes.get(b);
+      if (run && lane) hostLane.set(sideKey(c.cord, run), lane.lane);
+    }
+    const pen: Pen = { s, hostLane, cord: c.cord };
+    for (const b of c.branches) {
+      const d = pathData(polyline(pen, b.own, b.runs));
       out.push(
-        `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}" data-driver="${x(b.driver)}" data-part="${x(b.part)}" data-lever="${x(leverOf(b))}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''}`)}</title></path>`,
+        `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}" data-driver="${x(b.driver)}" data-part="${x(b.part)}" data-lever="${x(leverOf(b))}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, over ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''} on its way`)}</title></path>`,
       );
-      if (exit) {
-        // Out of the frame: an arrow down to the bay numbers; under them, one line names where each goes.
+      if (how.screen)
         out.push(
-          `<path d="M${r2(exit.x)},${r2(exit.y)} L${r2(exit.x)},${r2(exit.row - FONT - 0.4)}" class="cord" marker-end="url(#arrow)" />`,
+          `<path d="${pathData(polyline(pen, b.runs, b.runs))}" class="route" data-route-cord="${x(b.cord)}" data-route-target="${x(b.target)}" />`,
         );
-        const row = exits.get(exit.row) ?? [];
-        row.push({ x: exit.x, words: `bay ${bayOf.get(b.part) ?? '?'} to ${b.target}` });
-        exits.set(exit.row, row);
+      for (const run of b.own) {
+        if (run.kind === 'drop' && !b.own.some((r) => r.kind === 'channel')) turn(run.to);
+        if (run.kind === 'channel') turn(run.from);
+        if (run.kind === 'rise' || run.kind === 'exit') turn(run.from);
+      }
+      const last = b.own[b.own.length - 1];
+      if (last.kind === 'exit') {
+        // Out of the frame: an arrow down to the bay numbers; under them, one line names where each goes.
+        const at = penAt(
+          pen,
+          last.from,
+          b.runs.find((r) => r.kind === 'channel'),
+        );
+        const row = how.rowUnder(last.from.yM);
+        out.push(
+          `<path d="M${r2(at.x)},${r2(at.y)} L${r2(at.x)},${r2(row - FONT - 0.4)}" class="cord" marker-end="url(#arrow)" />`,
+        );
+        const list = exits.get(row) ?? [];
+        list.push({ x: at.x, words: `bay ${bayOf.get(b.part) ?? '?'} to ${b.target}` });
+        exits.set(row, list);
       }
     }
     out.push('</g>');

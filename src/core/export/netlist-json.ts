@@ -11,9 +11,11 @@
  * geometry the routing used and each drum; each gate, lever and actuator its drum, bay
  * (counted from 1 at the visitor end), centre `xM` and its levers' positions (metres from the
  * visitor end); a latch its drum and two bays; a flag the place of the Z lever it rides on;
- * each cord its trunk, cut length and every branch's length, pulleys, pins and loss, in the
- * order of its ports and then its actuators. Lengths to 0.1 mm. From positions and `frame`
- * alone, anyone can work every branch length out again (docs/methods/place.md, "Routing").
+ * each cord its trunk, cut length, the pulleys and pins it takes in the frame, and every
+ * branch's piece to cut (`lengthM`, the runs it owns in the cord's tree, `own`), its whole path
+ * from the drum (`pathM`), pulleys, pins and loss, in the order of its ports and then its
+ * actuators. Lengths to 0.1 mm. From positions and `frame` alone, anyone can work every piece
+ * out again (docs/methods/place.md, "Routing").
  */
 import type { Build } from '../model/build.js';
 import type { Cord, Netlist, Part } from '../model/netlist.js';
@@ -23,8 +25,8 @@ import type { BranchRoute, CordRoute } from '../physics/routing.js';
 
 /** Format tag and version written into every file (bump the version on an incompatible change). */
 export const NETLIST_FORMAT = 'latchwright-netlist';
-/** 2: where every part sits and how every cord runs (`frame`, part and cord placement fields). */
-export const NETLIST_VERSION = 2;
+/** 3: cords run as trees; a branch's `lengthM` is its own piece (`own`), `pathM` its whole path. */
+export const NETLIST_VERSION = 3;
 
 /** A length in metres to 0.1 mm. */
 const m4 = (x: number): number => Math.round(x * 10000) / 10000;
@@ -135,6 +137,8 @@ function branchObject(b: BranchRoute, port?: string): object {
     ...(port !== undefined ? { port } : {}),
     lengthM: m4(b.lengthM),
     channelM: m4(b.channelM),
+    own: b.own.map((r) => ({ kind: r.kind, lengthM: m4(r.lengthM) })),
+    pathM: m4(b.runs.reduce((s, r) => s + r.lengthM, 0)),
     pulleys: b.pulleys,
     pins: b.pins.map(m4),
     loss: m4(b.loss),
@@ -150,7 +154,14 @@ function routedCord(c: Cord, routes: ReadonlyMap<string, CordRoute>): object {
     ...c.ports.map((p) => ({ b: branch(`${p.part}.${p.port}`), port: p.port })),
     ...c.actuators.map((a) => ({ b: branch(a), port: undefined })),
   ].flatMap(({ b, port }) => (b ? [branchObject(b, port)] : []));
-  return { ...c, trunkM: m4(route.trunkM), cutM: m4(route.cutM), branches };
+  return {
+    ...c,
+    trunkM: m4(route.trunkM),
+    cutM: m4(route.cutM),
+    pulleys: route.pulleys,
+    pins: route.pins,
+    branches,
+  };
 }
 
 /** The frame block: the geometry the routing used, each drum, the totals. */
@@ -176,6 +187,7 @@ function frameObject(placement: Placement, profile: Profile): object {
     })),
     totalCordM: m4(placement.totalCordM),
     baselineCordM: m4(placement.baselineCordM),
+    channelM: m4(placement.channelM),
     pulleys: placement.pulleys,
   };
 }

@@ -4,8 +4,9 @@
  * leaves from, the turns of its capstan on the drum, the target part and port (for an
  * actuator, its load), the routing allowance, the branch's load and the driver's force margin
  * (physics/drive.ts, the capstan equation). With a placement, also the bays the branch runs
- * between (drum·bay) and its cut length, and the routing, load and margin are those of the
- * branch as routed in the frame (physics/routing.ts).
+ * between (drum·bay) and the length of the piece it is cut as (its part of the cord's tree;
+ * cut-list.csv says where it is tied on), and the routing, load and margin are those of the
+ * branch's whole path as routed in the frame (physics/routing.ts).
  *
  * Order: by driver in stage order (stages.ts: levers first, flags last; netlist order within
  * a stage), then by target in the same order, then port name — so a builder works along the
@@ -44,7 +45,7 @@ export interface WiringRow {
   /** Where the cord leaves and where it is tied, as drum·bay (empty without a placement). */
   readonly fromBay: string;
   readonly toBay: string;
-  /** The branch's cut length, metres (empty without a placement). */
+  /** The length of the branch's piece (its part of the cord's tree), metres (empty without a placement). */
   readonly lengthM: number | '';
   /** Routing allowance in words. */
   readonly routing: string;

@@ -99,14 +99,21 @@ function addMeasuredCord(netlist: Netlist, routing: Routing, profile: Profile, a
     `${netlist.cords.length} cords, ${branches} branches (each length in cut-list.csv); knots, take-up and the wraps on the drum included`,
     r3,
   );
-  add('redirect pin', 'routing', routing.pins, 1, 'piece', 'one per branch at each turn over a pin');
+  add(
+    'redirect pin',
+    'routing',
+    routing.pins,
+    1,
+    'piece',
+    'one at each corner of a cord’s tree (shared by its branches) and one where each branch rises or leaves',
+  );
   add(
     'pulley',
     'routing',
     routing.pulleys,
     1,
     'piece',
-    `${profile.frame.pulleyDiameterM * 1000} mm, efficiency ${profile.routing.pulleyEfficiency} each; one per branch at each turn`,
+    `${profile.frame.pulleyDiameterM * 1000} mm, efficiency ${profile.routing.pulleyEfficiency} each; one at each corner of a cord’s tree (shared by its branches) and one where each branch rises or leaves`,
   );
 }
 

@@ -1,28 +1,48 @@
 /**
  * Routing: the run, length, pulleys, pins and force loss of every cord branch, from where the
- * parts sit in the frame (design §11).
+ * parts sit in the frame (design §11), and the pieces each cord is cut as.
  *
  * Geometry (every figure from profile.frame): x runs along the drum from its visitor end,
  * y upwards from the axis of drum 1; drum d's axis is (d − 1)·drumSpacingM higher (drums
  * stacked one above the other). A capstan sits at its bay's centre; each lever at its place
- * on the pivot rail, railAboveDrumM above its drum's axis.
- * - A branch whose cord never leaves its bay rises directly from the top of the drum to its
- *   lever: one straight run, no turn.
- * - Any other branch drops from the bottom of its driver's drum to the cord channel
- *   (channelBelowDrumM under the lower of the two drums it joins), runs along the channel to
- *   its target's lever, and rises to it (a port) or leaves the frame by an exit pulley (an
- *   actuator, actuatorRunM more). Each change of direction, a right angle, passes a pulley or a
- *   smooth pin (frame.turn).
- * - Length = the runs + a knot allowance at each end + the take-up allowance. A cord's trunk
- *   (from its hold lever down to the drum, its wraps, and a knot) is listed per cord; a cord
- *   with several branches splits at a knot where it leaves the drum.
+ * on the pivot rail, railAboveDrumM above its drum's axis. The channel of drum L runs
+ * channelBelowDrumM under its axis.
+ * - A cord none of whose targets leaves its driver's bay: every branch rises directly from the
+ *   top of the drum to its lever: one straight run, no turn.
+ * - Any other cord runs as a tree (design §11: "a driver with several branches splits them at
+ *   a knot in the channel"): ONE drop from the bottom of its driver's drum down to the lowest
+ *   channel any branch uses, a knot where it meets each channel used. A branch to drum d_i runs
+ *   in the channel of the lower drum, L_i = min(driver's drum, d_i). Along channel L the cord
+ *   covers [min, max] of the capstan's x and its targets' x there: one run from the capstan
+ *   towards the leftmost target, one towards the rightmost; each branch peels off at a knot
+ *   under its lever and rises to it (a port) or leaves the frame by an exit pulley (an
+ *   actuator, actuatorRunM). So the cord along the channels is, summed over every cord that
+ *   leaves its bay and every channel it uses, max − min of those x: `Routing.channelM`, the
+ *   quantity the arrangement minimises (a minimum linear arrangement over the cords' nets).
+ * - A branch's `runs` are its whole path, drum to lever: drop to its channel, along it from the
+ *   capstan to its lever, rise (or exit). Its loss is taken over that path: two right-angle
+ *   turns, each at a pulley or a smooth pin (frame.turn).
+ * - The pieces to cut: each segment of the tree belongs to exactly one branch (`own`), by this
+ *   rule: levels from the highest channel down; within a level the left side (targets with
+ *   x < the capstan's), then the right side, then targets right under the capstan; on each side
+ *   the target farthest from the capstan owns the channel run out to it, the others only their
+ *   rise; the first branch served at a level also owns the drop from the previous level (or the
+ *   drum) down to it. Equally far levers (one above another on different drums) go by target
+ *   name (`gate.port`, code-point order). A branch's length is its own runs + a knot
+ *   allowance at each end + the take-up allowance, so a cord of one branch is as
+ *   long as its path. A cord's trunk (from its hold lever down to the drum, its wraps, and a
+ *   knot) is listed per cord; cutM = trunk + every branch's piece.
+ * - Pulleys and pins in the frame: the corner where the drop turns into one side of a channel
+ *   is one pulley (or pin) shared by every branch turning there; each branch has its own at its
+ *   rise or exit. A cord with a `cordRouting` entry is counted per branch, as its entry says.
  * Loss of a branch (factor ≥ 1 on the tension it needs): (1/η)^pulleys · e^(μ_pin·α) for a
  * total pin angle α — the capstan equation of Euler and Eytelwein for the pins (capstan.ts).
  * `routing.pulleys` and `routing.pinAngleRad` of the profile are added to every computed route;
  * a `cordRouting` entry replaces, for its cord, each figure it names (its pulleys and pin angle
  * count per branch, in all).
  * Pre: every driver and target of every cord has a bay in the layout. Post: one route per
- * branch, in netlist order (cords, then each cord's ports, then its actuators).
+ * branch, in netlist order (cords, then each cord's ports, then its actuators); the `own` runs
+ * of a cord's branches cover its tree, each segment once.
  */
 import { partIndex, type Netlist } from '../model/netlist.js';
 import { routingFactor, wrapsOf } from './capstan.js';
@@ -70,11 +90,15 @@ export interface BranchRoute {
   /** The part tied to: the gate, or the actuator. */
   readonly part: string;
   readonly kind: 'port' | 'actuator';
+  /** Its whole path, from the drum to its lever (or out of the frame): what its loss is taken over. */
   readonly runs: readonly CordRun[];
-  /** Runs + a knot allowance at each end + the take-up allowance. */
+  /** The segments of the cord's tree this branch is cut as (each segment of a tree belongs to one branch), in path order. */
+  readonly own: readonly CordRun[];
+  /** The piece to cut: its own runs + a knot allowance at each end + the take-up allowance. */
   readonly lengthM: number;
-  /** Length of the run along the cord channel (0 for a direct rise). */
+  /** Length of its own run along the cord channel (0 for a direct rise, or a branch that only rises from the channel). */
   readonly channelM: number;
+  /** Pulleys on its path (each turn it passes, shared or not, and the profile's own allowance). */
   readonly pulleys: number;
   /** Angle turned over each smooth pin, radians. */
   readonly pins: readonly number[];
@@ -93,8 +117,12 @@ export interface CordRoute {
   /** Hold end to the drum, the wraps, and a knot. */
   readonly trunkM: number;
   readonly branches: readonly BranchRoute[];
-  /** trunkM + every branch: the cord to cut for this driver. */
+  /** trunkM + every branch's piece: the cord to cut for this driver. */
   readonly cutM: number;
+  /** Pulleys in the frame for this cord: a corner shared by its branches counts once. */
+  readonly pulleys: number;
+  /** Pins in the frame for this cord, counted as `pulleys` is. */
+  readonly pins: number;
 }
 
 export interface Routing {
@@ -103,11 +131,13 @@ export interface Routing {
   readonly branches: readonly BranchRoute[];
   /** Every cord's cut length together. */
   readonly totalCordM: number;
-  /** The branches' lengths together (what the arrangement changes, with their fixed parts). */
+  /** The branches' pieces together (what the arrangement changes, with their fixed parts). */
   readonly branchCordM: number;
-  /** Along the channels: the quantity the arrangement minimises, as routed. */
+  /** Along the channels, each cord's run once (its span on every channel it uses): the quantity the arrangement minimises. */
   readonly channelM: number;
+  /** Pulleys in the frame (every cord's `pulleys`). */
   readonly pulleys: number;
+  /** Pins in the frame (every cord's `pins`). */
   readonly pins: number;
   /** Rope-rescue practice: bend radius ≥ 4 × cord diameter at every pulley and pin. */
   readonly bend: { readonly radiusM: number; readonly minRadiusM: number; readonly ok: boolean };
@@ -142,24 +172,32 @@ export function route(netlist: Netlist, layout: FrameLayout, profile: Profile): 
   const cords: CordRoute[] = [];
   for (const c of netlist.cords) {
     const driver = at(c.driver, c.id);
-    const trunkM = trunkOf(c.driver);
     const targets = [
       ...c.ports.map((p) => ({ target: `${p.part}.${p.port}`, kind: 'port' as const, part: p.part, lever: p.port })),
       ...c.actuators.map((a) => ({ target: a, kind: 'actuator' as const, part: a, lever: 'exit' })),
     ];
-    const leaves = targets.some((t) => at(t.part, c.id).bay !== driver.bay);
-    const branches = targets.map((t) => {
+    const ends = targets.map((t) => {
       const end = at(t.part, c.id);
       const lever = end.bay.levers.find((l) => l.name === t.lever) ?? end.bay.levers[0];
-      const runs = leaves ? runsVia(driver, end, lever.xM, t.kind, profile) : [direct(driver, lever.xM, r, f)];
-      return branchRoute(c.id, c.driver, t, runs, driver.bay.drum !== end.bay.drum, profile);
+      return { end, xM: lever.xM };
     });
+    const leaves = ends.some((e) => e.end.bay !== driver.bay);
+    const paths = ends.map((e, i) =>
+      leaves ? runsVia(driver, e.end, e.xM, targets[i].kind, profile) : [direct(driver, e.xM, r, f)],
+    );
+    const names = targets.map((t) => t.target);
+    const tree = leaves ? treeOf(driver, paths, names, profile.drumRadiusM) : { own: paths, corners: 0 };
+    const branches = targets.map((t, i) =>
+      branchRoute(c.id, c.driver, t, paths[i], tree.own[i], driver.bay.drum !== ends[i].end.bay.drum, profile),
+    );
+    const trunkM = trunkOf(c.driver);
     cords.push({
       cord: c.id,
       driver: c.driver,
       trunkM,
       branches,
       cutM: trunkM + branches.reduce((s, b) => s + b.lengthM, 0),
+      ...inFrame(branches, leaves ? tree.corners : 0, profile),
     });
   }
   return totals(cords, profile);
@@ -187,6 +225,92 @@ function runsVia(d: Anchor, t: Anchor, xM: number, kind: 'port' | 'actuator', pr
     runs.push({ kind: 'rise', from: under, to: lever, lengthM: lever.yM - under.yM });
   }
   return runs;
+}
+
+/** Which side of the capstan a target's rise is on, along the channel. */
+const sideOf = (x: number, xD: number): 0 | 1 | 2 => (x < xD - 1e-9 ? 0 : x > xD + 1e-9 ? 1 : 2);
+
+/**
+ * The tree of a cord that leaves its bay, from its branches' whole paths (runsVia): which runs
+ * each branch is cut as, by the ownership rule of the contract, and how many corners (drop into
+ * a side of a channel) it turns.
+ */
+function treeOf(
+  d: Anchor,
+  paths: readonly CordRun[][],
+  names: readonly string[],
+  r: number,
+): { own: CordRun[][]; corners: number } {
+  const xD = d.bay.xM;
+  const yTop = d.levelM - r;
+  const info = paths.map((runs, i) => {
+    const end = runs[runs.length - 1];
+    const y = end.from.yM;
+    const x = end.from.xM;
+    return { i, y, x, side: sideOf(x, xD), far: Math.abs(x - xD), end };
+  });
+  const own: CordRun[][] = paths.map(() => []);
+  const drops: (CordRun | undefined)[] = paths.map(() => undefined);
+  const channels: (CordRun | undefined)[] = paths.map(() => undefined);
+  const levels = [...new Set(info.map((t) => t.y))].sort((a, b) => b - a);
+  let above = yTop;
+  let corners = 0;
+  for (const y of levels) {
+    const here = info.filter((t) => t.y === y);
+    // Served in order: left side, right side, under the capstan; farthest first on a side; levers equally far
+    // (above one another on different drums) by target name, so the rule does not hang on any listing order.
+    const served = [...here].sort(
+      (a, b) =>
+        a.side - b.side ||
+        (Math.abs(b.far - a.far) > 1e-9 ? b.far - a.far : 0) ||
+        (names[a.i] < names[b.i] ? -1 : names[a.i] > names[b.i] ? 1 : 0),
+    );
+    const first = served[0];
+    const from = { xM: xD, yM: Math.max(y, Math.min(yTop, above)) };
+    drops[first.i] = { kind: 'drop', from, to: { xM: xD, yM: y }, lengthM: from.yM - y };
+    above = y;
+    for (const side of [0, 1, 2] as const) {
+      const owner = served.find((t) => t.side === side);
+      if (!owner) continue;
+      corners++;
+      if (side !== 2)
+        channels[owner.i] = {
+          kind: 'channel',
+          from: { xM: xD, yM: y },
+          to: { xM: owner.x, yM: y },
+          lengthM: owner.far,
+        };
+    }
+  }
+  for (const t of info) {
+    const drop = drops[t.i];
+    const channel = channels[t.i];
+    if (drop) own[t.i].push(drop);
+    if (channel) own[t.i].push(channel);
+    own[t.i].push(t.end);
+  }
+  return { own, corners };
+}
+
+/**
+ * Pulleys and pins of one cord in the frame: each corner of its tree once, each branch's rise or
+ * exit, and the profile's allowance per branch; a cord with a `cordRouting` entry, per branch.
+ */
+function inFrame(
+  branches: readonly BranchRoute[],
+  corners: number,
+  profile: Profile,
+): { pulleys: number; pins: number } {
+  const perBranch = {
+    pulleys: branches.reduce((s, b) => s + b.pulleys, 0),
+    pins: branches.reduce((s, b) => s + b.pins.length, 0),
+  };
+  if (corners === 0 || branches.some((b) => b.overridden)) return perBranch;
+  const turns = corners + branches.length;
+  return {
+    pulleys: (profile.frame.turn === 'pulley' ? turns : 0) + branches.length * profile.routing.pulleys,
+    pins: (profile.frame.turn === 'pin' ? turns : 0) + (profile.routing.pinAngleRad > 0 ? branches.length : 0),
+  };
 }
 
 /** The loss figures of a branch of `cord` that turns `turns` times in the frame, after the cord's override. */
@@ -230,12 +354,13 @@ function branchRoute(
   driver: string,
   to: { readonly target: string; readonly part: string; readonly kind: 'port' | 'actuator' },
   runs: readonly CordRun[],
+  own: readonly CordRun[],
   crossDrum: boolean,
   profile: Profile,
 ): BranchRoute {
   const f = profile.frame;
   const { routing, pins, overridden } = lossFigures(profile, cord, runs.length - 1);
-  const runM = runs.reduce((s, x) => s + x.lengthM, 0);
+  const ownM = own.reduce((s, x) => s + x.lengthM, 0);
   return {
     cord,
     driver,
@@ -243,8 +368,9 @@ function branchRoute(
     part: to.part,
     kind: to.kind,
     runs,
-    lengthM: runM + 2 * f.knotAllowanceM + f.takeUpAllowanceM,
-    channelM: runs.reduce((s, x) => s + (x.kind === 'channel' ? x.lengthM : 0), 0),
+    own,
+    lengthM: ownM + 2 * f.knotAllowanceM + f.takeUpAllowanceM,
+    channelM: own.reduce((s, x) => s + (x.kind === 'channel' ? x.lengthM : 0), 0),
     pulleys: routing.pulleys,
     pins,
     loss: routingFactor(routing),
@@ -264,8 +390,8 @@ function totals(cords: readonly CordRoute[], profile: Profile): Routing {
     totalCordM: cords.reduce((s, c) => s + c.cutM, 0),
     branchCordM: branches.reduce((s, b) => s + b.lengthM, 0),
     channelM: branches.reduce((s, b) => s + b.channelM, 0),
-    pulleys: branches.reduce((s, b) => s + b.pulleys, 0),
-    pins: branches.reduce((s, b) => s + b.pins.length, 0),
+    pulleys: cords.reduce((s, c) => s + c.pulleys, 0),
+    pins: cords.reduce((s, c) => s + c.pins, 0),
     bend: { radiusM, minRadiusM, ok: radiusM >= minRadiusM - 1e-12 },
   };
 }

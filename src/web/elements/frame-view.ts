@@ -2,7 +2,8 @@
  * <lw-frame>: the frame — the placed machine drawn along its drum(s), from the build's own
  * placement and the same drawing as frame.svg (the core's frameSvg, in the page's theme
  * colours). Pointing at a cord, tabbing to it or tapping it lights its run and its two ends
- * (the capstan that pulls it, the lever it is tied to) and says where it goes in words. The
+ * (the capstan that pulls it, the lever it is tied to) and says where it goes in words; a
+ * branch that shares its drop and channel run with others of its cord lights its whole path. The
  * trial run's levers stand on the frame as they stand now: a lever held down hangs below the
  * pivot rail (the one meaning of "down" the trial run's lever drawings have, with their
  * legend's glyphs beside), and the trial run can be stepped from here. Zoom and pan in the box;
@@ -141,6 +142,11 @@ export class LwFrame extends LitElement {
         opacity: 0.22;
       }
       .sheet path.cord.lit {
+        stroke-width: 0.9px;
+      }
+      /* A branch shares its way down and along the channel with others of its cord: its whole path, drawn when lit. */
+      .sheet path.route.lit {
+        visibility: visible;
         stroke-width: 0.9px;
       }
       .sheet .end rect,
@@ -408,6 +414,9 @@ export class LwFrame extends LitElement {
     const lever = b.kind === 'port' ? b.target.slice(b.part.length + 1) : 'exit';
     for (const el of root.querySelectorAll('[data-cord]'))
       if (el.getAttribute('data-cord') === l.cord && el.getAttribute('data-target') === l.target)
+        el.classList.add('lit');
+    for (const el of root.querySelectorAll('path.route'))
+      if (el.getAttribute('data-route-cord') === l.cord && el.getAttribute('data-route-target') === l.target)
         el.classList.add('lit');
     for (const el of root.querySelectorAll('[data-part]:not([data-cord])')) {
       const part = el.getAttribute('data-part');

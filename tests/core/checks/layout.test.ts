@@ -82,7 +82,7 @@ describe('core/checks/layout', () => {
     expect(f?.hint).toMatch(/more drums per frame/);
   });
 
-  it('fails on a branch whose length is not its runs and allowances', () => {
+  it('fails on a branch whose length is not the runs it is cut as and the allowances', () => {
     const [first, ...others] = bell.placement.routing.branches;
     const wrong: Placement = {
       ...bell.placement,

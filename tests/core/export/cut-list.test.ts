@@ -1,10 +1,13 @@
 /**
- * cut-list.csv against an independent reading of the frame: every branch length and every
+ * cut-list.csv against an independent reading of the frame: every branch piece and every
  * cord's cut length worked out again, by a function of this test alone, from nothing but the
  * positions and the frame geometry that netlist.json publishes — the geometry of design §11
  * ("Cord runs": drop from the drum to the channel, along it, rise to the lever, a knot
- * allowance at each end and the take-up; a branch that stays in its bay rises straight) —
- * and compared with what the cut list says to cut.
+ * allowance at each end and the take-up; a branch that stays in its bay rises straight; "a
+ * driver with several branches splits them at a knot in the channel") — and compared with what
+ * the cut list says to cut. The tree and the pieces follow the rule of docs/methods/place.md,
+ * "Routing": one drop to the lowest channel used, a run each way along each channel, each
+ * segment cut once as part of one branch's piece.
  */
 import { readFileSync } from 'node:fs';
 import { csvParse } from 'd3';
@@ -41,6 +44,42 @@ interface NetDoc {
   cords: { id: string; driver: string; ports: { part: string; port: string }[]; actuators: string[] }[];
 }
 
+/** One branch's end, as this test reads it: its channel's height, its lever's x, its rise (or exit). */
+interface End {
+  readonly target: string;
+  readonly index: number;
+  readonly x: number;
+  readonly channel: number;
+  readonly rise: number;
+}
+
+/**
+ * Each branch's own tree length (without allowances) for a cord that leaves its bay: levels from
+ * the highest channel down; at each, left side, right side, then under the capstan; the farthest
+ * on a side owns the run out to it, the first served at a level the drop down to it.
+ */
+function treePieces(ends: readonly End[], xD: number, dropTop: number): number[] {
+  const own = ends.map((e) => e.rise);
+  const side = (x: number): number => (x < xD - 1e-9 ? 0 : x > xD + 1e-9 ? 1 : 2);
+  const levels = [...new Set(ends.map((e) => e.channel))].sort((a, b) => b - a);
+  let above = dropTop;
+  for (const y of levels) {
+    const here = ends.filter((e) => e.channel === y);
+    // Equally far levers (one above another on different drums) by target name, as the routing's contract says.
+    const far = (e: End): number => Math.round(Math.abs(e.x - xD) * 1e4);
+    const order = [...here].sort(
+      (a, b) => side(a.x) - side(b.x) || far(b) - far(a) || (a.target < b.target ? -1 : a.target > b.target ? 1 : 0),
+    );
+    own[order[0].index] += Math.max(0, Math.min(dropTop, above) - y);
+    above = y;
+    for (const s of [0, 1]) {
+      const far = order.find((e) => side(e.x) === s);
+      if (far) own[far.index] += Math.abs(far.x - xD);
+    }
+  }
+  return own;
+}
+
 /** Every piece of every cord, worked out from netlist.json alone: `cord|trunk`, `cord|branch to <target>`, `cord|whole cord`. */
 function piecesFromNetlist(doc: NetDoc): Map<string, number> {
   const f = doc.frame;
@@ -51,30 +90,29 @@ function piecesFromNetlist(doc: NetDoc): Map<string, number> {
   for (const c of doc.cords) {
     const d = part.get(c.driver);
     if (d?.xM === undefined) throw new Error(`${c.driver} has no position`);
-    const ends = [
+    const tied = [
       ...c.ports.map((p) => ({ target: `${p.part}.${p.port}`, to: part.get(p.part), lever: p.port, exit: false })),
       ...c.actuators.map((a) => ({ target: a, to: part.get(a), lever: 'exit', exit: true })),
     ];
-    const leaves = ends.some((e) => e.to?.drum !== d.drum || e.to?.bay !== d.bay);
+    const leaves = tied.some((e) => e.to?.drum !== d.drum || e.to?.bay !== d.bay);
     const trunk = Math.max(0, f.railAboveDrumM - r) + 2 * Math.PI * r * (d.wraps ?? f.wraps) + f.knotAllowanceM;
     out.set(`${c.id}|trunk`, trunk);
-    let total = trunk;
-    for (const e of ends) {
+    const ld = level(d.drum);
+    const ends: End[] = tied.map((e, index) => {
       const x = e.to?.levers?.find((l) => l.name === e.lever)?.xM ?? e.to?.levers?.[0]?.xM ?? NaN;
-      let runs: number;
-      if (!leaves) runs = Math.hypot(x - d.xM, f.railAboveDrumM - r);
-      else {
-        const ld = level(d.drum);
-        const lt = level(e.to?.drum);
-        const channel = Math.min(ld, lt) - f.channelBelowDrumM;
-        const drop = Math.max(channel, ld - r) - channel;
-        const rise = e.exit ? f.actuatorRunM : lt + f.railAboveDrumM - channel;
-        runs = drop + Math.abs(x - d.xM) + rise;
-      }
-      const length = runs + 2 * f.knotAllowanceM + f.takeUpAllowanceM;
+      const lt = level(e.to?.drum);
+      const channel = Math.min(ld, lt) - f.channelBelowDrumM;
+      return { target: e.target, index, x, channel, rise: e.exit ? f.actuatorRunM : lt + f.railAboveDrumM - channel };
+    });
+    const runs = leaves
+      ? treePieces(ends, d.xM, ld - r)
+      : ends.map((e) => Math.hypot(e.x - (d.xM ?? NaN), f.railAboveDrumM - r));
+    let total = trunk;
+    ends.forEach((e, i) => {
+      const length = runs[i] + 2 * f.knotAllowanceM + f.takeUpAllowanceM;
       out.set(`${c.id}|branch to ${e.target}`, length);
       total += length;
-    }
+    });
     out.set(`${c.id}|whole cord`, total);
   }
   return out;
@@ -117,6 +155,29 @@ describe('core/export/cut-list', () => {
     const bell = build('marble-bell.lw', DEFAULT_PROFILE, { bell: 120 });
     expect(bell.placement.routing.branches.some((x) => x.kind === 'actuator')).toBe(true);
     checkAgainstCutList(bell, 'marble bell with a bell actuator');
+  });
+
+  it('says where each piece is tied on, and cuts a shared run once: a cord of several branches takes less than their paths', () => {
+    const b = example('marble-bell.lw', 'auto');
+    const docs = buildDocuments(b);
+    const rows = csvParse(docs.get('cut-list.csv') ?? '').filter((r) => r.group === 'cord');
+    const pieces = rows.filter((r) => r.piece.startsWith('branch to '));
+    expect(
+      pieces.every((r) => /^(from the drum,|tied on (at the knot|at the foot of the drop|in the drop) )/.test(r.where)),
+    ).toBe(true);
+    expect(pieces.some((r) => r.where.startsWith('tied on at the knot under '))).toBe(true);
+    const doc = JSON.parse(docs.get('netlist.json') ?? '') as {
+      frame: { knotAllowanceM: number; takeUpAllowanceM: number };
+      cords: { id: string; branches: { lengthM: number; pathM: number }[] }[];
+    };
+    const allow = 2 * doc.frame.knotAllowanceM + doc.frame.takeUpAllowanceM;
+    const shared = doc.cords.filter((c) => c.branches.length > 1 && c.branches.some((x) => x.pathM > 0.3));
+    expect(shared.length).toBeGreaterThan(0);
+    for (const c of shared) {
+      const cut = c.branches.reduce((s, x) => s + x.lengthM, 0);
+      const paths = c.branches.reduce((s, x) => s + x.pathM + allow, 0);
+      expect(cut, c.id).toBeLessThan(paths - 0.01);
+    }
   });
 
   it('opens with the safety cautions, then cords, lever blanks, drums, pulleys, weights and cams', () => {

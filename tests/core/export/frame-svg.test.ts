@@ -137,7 +137,11 @@ describe('core/export/frame-svg (ids for a page, and the screen palette)', () =>
       const screen = frameSvg(b.build, b.placement, b.profile, { palette: 'screen' });
       expect(xmlProblems(screen), name).toEqual([]);
       const style = /<style>([\s\S]*?)<\/style>/;
-      const body = (svg: string): string => svg.replace(style, '').replace(' class="lw-frame"', '');
+      // The screen drawing adds, unseen until the page lights one, each branch's whole path from the drum.
+      const route = /\s*<path d="[^"]*" class="route" [^>]*\/>/g;
+      expect(screen.match(route)?.length ?? 0, name).toBe(b.placement.routing.branches.length);
+      expect(paper).not.toMatch(route);
+      const body = (svg: string): string => svg.replace(style, '').replace(' class="lw-frame"', '').replace(route, '');
       expect(body(screen), name).toBe(body(paper));
       expect(screen).toMatch(/^<\?xml[^>]*>\s*<svg [^>]*class="lw-frame"/);
       const rules = (style.exec(screen)?.[1] ?? '').trim().split('\n');

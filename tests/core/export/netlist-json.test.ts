@@ -95,7 +95,15 @@ describe('core/export/netlist-json', () => {
       const b = example(name);
       const doc = JSON.parse(netlistJson(b.build, { placement: b.placement, profile: b.profile })) as {
         version: number;
-        frame: { drums: { drum: number; lengthM: number }[]; totalCordM: number; baselineCordM: number };
+        frame: {
+          drums: { drum: number; lengthM: number }[];
+          totalCordM: number;
+          baselineCordM: number;
+          channelM: number;
+          pulleys: number;
+          knotAllowanceM: number;
+          takeUpAllowanceM: number;
+        };
         parts: {
           id: string;
           kind: string;
@@ -109,12 +117,20 @@ describe('core/export/netlist-json', () => {
           id: string;
           ports: unknown[];
           actuators: unknown[];
+          trunkM: number;
           cutM: number;
-          branches: { lengthM: number; pulleys: number }[];
+          pulleys: number;
+          branches: {
+            lengthM: number;
+            channelM: number;
+            pathM: number;
+            own: { kind: string; lengthM: number }[];
+            pulleys: number;
+          }[];
         }[];
       };
       expect(schemaProblems(schema, doc), name).toEqual([]);
-      expect(doc.version).toBe(2);
+      expect(doc.version).toBe(3);
       expect(doc.frame.drums.length).toBe(b.placement.drums.length);
       expect(doc.frame.totalCordM).toBeLessThanOrEqual(doc.frame.baselineCordM);
       const at = new Map(b.placement.bays.map((x) => [x.part, x]));
@@ -127,8 +143,21 @@ describe('core/export/netlist-json', () => {
       }
       for (const c of doc.cords) {
         expect(c.branches.length, `${name} ${c.id}`).toBe(c.ports.length + c.actuators.length);
-        for (const br of c.branches) expect(br.lengthM).toBeGreaterThan(0);
+        // Each branch's piece is its own runs and the allowances; it never holds more than its whole path.
+        const allow = doc.frame.knotAllowanceM * 2 + doc.frame.takeUpAllowanceM;
+        for (const br of c.branches) {
+          expect(br.lengthM).toBeGreaterThan(0);
+          const own = br.own.reduce((s, r) => s + r.lengthM, 0);
+          expect(br.lengthM, `${name} ${c.id}`).toBeCloseTo(own + allow, 3);
+          expect(own, `${name} ${c.id}`).toBeLessThanOrEqual(br.pathM + 0.0005);
+          const ownChannel = br.own.filter((r) => r.kind === 'channel').reduce((s, r) => s + r.lengthM, 0);
+          expect(br.channelM).toBeCloseTo(ownChannel, 3);
+        }
+        expect(c.cutM, `${name} ${c.id}`).toBeCloseTo(c.trunkM + c.branches.reduce((s, br) => s + br.lengthM, 0), 3);
       }
+      const channel = doc.cords.reduce((s, c) => s + c.branches.reduce((t, br) => t + br.channelM, 0), 0);
+      expect(doc.frame.channelM, name).toBeCloseTo(channel, 2);
+      expect(doc.frame.pulleys, name).toBe(doc.cords.reduce((s, c) => s + c.pulleys, 0));
     }
   });
 });

@@ -1,9 +1,10 @@
 /**
  * The order of the bays on every drum, once each unit has its drum.
  *
- * Each drum is one arrangement problem (problem.ts): its units, the branches between its
- * bays as edges, and every branch to another drum as an anchor at that part's current
- * position there. A drum is solved exactly (exact.ts) when the subsets the exact method would
+ * Each drum is one arrangement problem (problem.ts): its units, and a net for every cord's run
+ * along a channel (design §11: a cord that leaves its bay runs as a tree in the channel of the
+ * lower of the two drums each branch joins, so a cord has one run per channel it uses), with
+ * that run's points on other drums fixed where they already are. A drum is solved exactly (exact.ts) when the subsets the exact method would
  * visit are within the limit, and otherwise by the heuristic: the spectral order both ways
  * round and the netlist's own order, each improved by local search (improve.ts), the cheapest
  * kept. With more than one drum the drums are solved in turn, each against the others'
@@ -13,8 +14,8 @@ import type { Random } from '../../model/random.js';
 import { arrangeExact, EXACT_MAX_UNITS, exactStates } from './exact.js';
 import { improve, type ImproveOptions } from './improve.js';
 import { cheapest, fillOrder, spectralStarts } from './order.js';
-import { type Anchor, type ArrangeProblem, type Arrangement, type Edge } from './problem.js';
-import type { Bay, FrameUnits } from './units.js';
+import { netSpan, type ArrangeProblem, type Arrangement, type Net } from './problem.js';
+import type { Bay, Branch, FrameUnits } from './units.js';
 
 /** Rounds of solving the drums in turn against each other (all but the last without kicks). */
 const ROUNDS = 2;
@@ -61,10 +62,44 @@ interface DrumProblem {
   readonly bays: readonly number[];
 }
 
+/** A cord's run along one channel: its points, each a bay and where the run meets it. */
+interface CordNet {
+  readonly points: readonly { readonly bay: number; readonly d: number }[];
+}
+
+/**
+ * The runs along the channels of every cord that leaves its bay, for bays on drums `drumOfBay`:
+ * each branch runs in the channel of the lower of its two drums, and a cord's run in one channel
+ * reaches its capstan and every lever tied to it there (physics/routing.ts).
+ */
+function cordNets(fu: FrameUnits, drumOfBay: (bay: number) => number): CordNet[] {
+  const byCord = new Map<string, Branch[]>();
+  for (const br of fu.branches) {
+    const list = byCord.get(br.cord) ?? [];
+    list.push(br);
+    byCord.set(br.cord, list);
+  }
+  const out: CordNet[] = [];
+  for (const list of byCord.values()) {
+    const driver = list[0].driverBay;
+    if (list.every((br) => br.targetBay === driver)) continue;
+    const levels = new Map<number, { bay: number; d: number }[]>();
+    for (const br of list) {
+      const level = Math.min(drumOfBay(driver), drumOfBay(br.targetBay));
+      const points = levels.get(level) ?? [{ bay: driver, d: 0 }];
+      points.push({ bay: br.targetBay, d: leverOffset(fu.bays[br.targetBay], br.lever) });
+      levels.set(level, points);
+    }
+    for (const points of levels.values()) out.push({ points });
+  }
+  return out;
+}
+
 function drumProblem(
   fu: FrameUnits,
   drumOf: Int32Array,
   d: number,
+  cords: readonly CordNet[],
   pins: ReadonlyMap<number, { drum: number; index: number }>,
   at: Positions | undefined,
   solved: ReadonlySet<number>,
@@ -72,18 +107,22 @@ function drumProblem(
   const units = fu.units.map((_, u) => u).filter((u) => drumOf[u] === d);
   const bays = units.flatMap((u) => fu.units[u].bays);
   const localBay = new Map(bays.map((b, i) => [b, i]));
-  const edges: Edge[] = [];
-  const anchors: Anchor[] = [];
-  for (const br of fu.branches) {
-    const dr = localBay.get(br.driverBay);
-    const tg = localBay.get(br.targetBay);
-    const off = leverOffset(fu.bays[br.targetBay], br.lever);
-    if (dr !== undefined && tg !== undefined) {
-      if (dr !== tg) edges.push({ a: dr, b: tg, w: 1, da: 0, db: off });
-    } else if (at && dr !== undefined && solved.has(at.drumOfBay[br.targetBay]))
-      anchors.push({ bay: dr, d: 0, xM: at.centreM[br.targetBay] + off, w: 1 });
-    else if (at && tg !== undefined && solved.has(at.drumOfBay[br.driverBay]))
-      anchors.push({ bay: tg, d: off, xM: at.centreM[br.driverBay], w: 1 });
+  const nets: Net[] = [];
+  for (const cn of cords) {
+    const here: { bay: number; d: number }[] = [];
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const pt of cn.points) {
+      const lb = localBay.get(pt.bay);
+      if (lb !== undefined) here.push({ bay: lb, d: pt.d });
+      else if (at && solved.has(at.drumOfBay[pt.bay])) {
+        const x = at.centreM[pt.bay] + pt.d;
+        lo = Math.min(lo, x);
+        hi = Math.max(hi, x);
+      }
+    }
+    if (here.length === 0 || (here.length === 1 && lo > hi)) continue;
+    nets.push({ pins: here, ...(lo <= hi ? { fixed: { loM: lo, hiM: hi } } : {}), w: 1 });
   }
   const pinMap = new Map<number, number>();
   for (const [b, pin] of pins) {
@@ -97,8 +136,7 @@ function drumProblem(
       zone: fu.units[u].zone,
     })),
     bayWidthM: bays.map((b) => fu.bays[b].widthM),
-    edges,
-    anchors,
+    nets,
     pins: pinMap,
   };
   return { problem, units, bays };
@@ -169,12 +207,10 @@ function positionsOf(
   };
 }
 
-/** The total channel length over every drum (each cross-drum branch once). */
+/** The total channel length over every drum: every cord's run along each channel it uses, once. */
 export function channelLength(fu: FrameUnits, at: Positions): number {
   let s = 0;
-  for (const br of fu.branches)
-    if (br.driverBay !== br.targetBay)
-      s += Math.abs(at.centreM[br.driverBay] - at.centreM[br.targetBay] - leverOffset(fu.bays[br.targetBay], br.lever));
+  for (const cn of cordNets(fu, (b) => at.drumOfBay[b])) s += netSpan({ pins: cn.points, w: 1 }, at.centreM);
   return s;
 }
 
@@ -201,9 +237,13 @@ export function arrangeDrums(
   const kicks = Math.min(s.improve.kicks, Math.max(MIN_KICKS, Math.ceil((3 * s.improve.kicks) / drums)));
   const each: ArrangeSettings = { ...s, improve: { ...s.improve, kicks } };
   const done = new Set<number>();
+  // Each drum's runs along the channels: they depend on the drums, not on the orders.
+  const onDrum = Array.from({ length: drums }, () => [] as CordNet[]);
+  for (const cn of cordNets(fu, (b) => drumOf[fu.bays[b].unit]))
+    for (const d of new Set(cn.points.map((pt) => drumOf[fu.bays[pt.bay].unit]))) onDrum[d].push(cn);
   for (let round = 0; round < rounds; round++) {
     for (let d = 0; d < drums; d++) {
-      const dp = drumProblem(fu, drumOf, d, unmet.includes(d) ? new Map() : pins, at, done);
+      const dp = drumProblem(fu, drumOf, d, onDrum[d], unmet.includes(d) ? new Map() : pins, at, done);
       const quick = round < rounds - 1;
       let solved = solve(dp.problem, each, rng.fork(), quick);
       if (!solved) {

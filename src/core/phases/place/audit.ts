@@ -7,8 +7,8 @@
  * 1, 2, 3 … without gaps, or not side by side; a latch whose gates are not neighbours; an
  * operator lever or actuator exit not at the visitor end of drum 1, or a clock or reset lever
  * not at its crank end (unless pinned there by the user); a drum longer than allowed; more
- * drums than the frame carries; a branch of non-positive length, or whose length is not its
- * runs plus the allowances. The force margins with the computed routing are the drive check's.
+ * drums than the frame carries; a branch of non-positive length, or whose length is not the
+ * runs it is cut as (its own segments of the cord's tree, physics/routing.ts) plus the allowances. The force margins with the computed routing are the drive check's.
  */
 import type { Netlist, Part } from '../../model/netlist.js';
 import type { Profile } from '../../physics/profile.js';
@@ -132,12 +132,12 @@ function frameFindings(placement: Placement, profile: Profile, out: AuditFinding
       hint: 'allow more drums per frame (frame.drumsPerFrame), or a longer drum (frame.longestDrumM)',
     });
   for (const b of placement.routing.branches) {
-    const runs = b.runs.reduce((s, r) => s + r.lengthM, 0);
+    const runs = b.own.reduce((s, r) => s + r.lengthM, 0);
     const want = runs + 2 * f.knotAllowanceM + f.takeUpAllowanceM;
     if (!(b.lengthM > 0) || Math.abs(b.lengthM - want) > TOLERANCE_M)
       out.push({
         rule: 'branch-length',
-        message: `branch of cord '${b.cord}' to '${b.target}' is ${b.lengthM.toFixed(3)} m; its runs and allowances make ${want.toFixed(3)} m`,
+        message: `branch of cord '${b.cord}' to '${b.target}' is ${b.lengthM.toFixed(3)} m; its own runs and allowances make ${want.toFixed(3)} m`,
         hint: 'route the build again with this profile',
       });
   }

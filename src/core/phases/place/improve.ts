@@ -3,9 +3,11 @@
  * O. C. Martin & T. Stützle, "Iterated local search", in Handbook of Metaheuristics, Kluwer
  * 2003) over three moves that keep the end rules and the pins:
  * - insertion: a unit slides left or right past its neighbours (unpinned, same zone) to the
- *   best place in reach — evaluated as a run of adjacent swaps, each of which changes only the
- *   lengths of the edges at the two units swapped (their neighbours keep their positions,
- *   since the pair's total width is unchanged), so trying every place costs O(path · degree);
+ *   best place in reach — evaluated as a run of adjacent swaps, each of which can change only
+ *   the spans of the nets at the two units swapped (their neighbours keep their positions,
+ *   since the pair's total width is unchanged); a net is measured again only when one of its
+ *   moved points was, or becomes, one of its two ends, so a swap costs O(points at the pair)
+ *   plus the points of the nets whose ends moved;
  * - flip: a latch's two gates change sides;
  * - kick: between descents, a run of neighbouring units is reversed, or a short run shuffled,
  *   by the one seeded generator, and the descent repeats from there; the best arrangement
@@ -19,7 +21,7 @@ import { arrangementCost, pinnedUnits, type ArrangeProblem, type Arrangement } f
 export interface ImproveOptions {
   /** Kicks after the first descent. */
   readonly kicks: number;
-  /** Edge evaluations allowed in all (a deterministic bound on the work). */
+  /** Net points evaluated in all (a deterministic bound on the work). */
   readonly work: number;
   /** Furthest a unit slides in one insertion move, in units. */
   readonly reach: number;
@@ -37,9 +39,25 @@ interface Search {
   readonly flipped: Uint8Array;
   readonly centre: Float64Array;
   readonly movable: Uint8Array;
-  readonly incident: readonly (readonly number[])[];
-  readonly anchorsOf: readonly (readonly number[])[];
+  /** The points in each bay: their nets and offsets from the bay's centre. */
+  readonly pinNet: readonly Int32Array[];
+  readonly pinD: readonly Float64Array[];
+  /** Every net's points, net i's at [first[i], first[i + 1]): their bays and offsets. */
+  readonly first: Int32Array;
+  readonly pointBay: Int32Array;
+  readonly pointD: Float64Array;
+  /** Each net's fixed points' ends (±Infinity when it has none), and its weight. */
+  readonly fixedLo: Float64Array;
+  readonly fixedHi: Float64Array;
+  readonly weight: Float64Array;
+  /** Each net's ends and span as the bays now sit (kept current by every move). */
+  readonly lo: Float64Array;
+  readonly hi: Float64Array;
+  readonly span: Float64Array;
   readonly stamp: Int32Array;
+  /** Bays of the units a move shifts, and their centres before it. */
+  readonly movedBays: Int32Array;
+  readonly movedFrom: Float64Array;
   tick: number;
   work: number;
   cost: number;
@@ -48,13 +66,11 @@ interface Search {
 function start(p: ArrangeProblem, a: Arrangement): Search {
   const n = p.units.length;
   const nb = p.bayWidthM.length;
-  const incident = Array.from({ length: nb }, () => [] as number[]);
-  p.edges.forEach((e, i) => {
-    incident[e.a].push(i);
-    incident[e.b].push(i);
+  const pinsAt = Array.from({ length: nb }, () => [] as { net: number; d: number }[]);
+  p.nets.forEach((net, i) => {
+    for (const pin of net.pins) pinsAt[pin.bay].push({ net: i, d: pin.d });
   });
-  const anchorsOf = Array.from({ length: nb }, () => [] as number[]);
-  p.anchors.forEach((h, i) => anchorsOf[h.bay].push(i));
+  const widest = Math.max(1, ...p.units.map((u) => u.bays.length));
   const pinned = pinnedUnits(p);
   const s: Search = {
     p,
@@ -63,9 +79,20 @@ function start(p: ArrangeProblem, a: Arrangement): Search {
     flipped: Uint8Array.from(a.flipped, (f) => (f ? 1 : 0)),
     centre: new Float64Array(nb),
     movable: Uint8Array.from(p.units, (_, u) => (pinned.has(u) ? 0 : 1)),
-    incident,
-    anchorsOf,
-    stamp: new Int32Array(p.edges.length),
+    first: firstPoints(p),
+    pointBay: Int32Array.from(p.nets.flatMap((n) => n.pins.map((pin) => pin.bay))),
+    pointD: Float64Array.from(p.nets.flatMap((n) => n.pins.map((pin) => pin.d))),
+    fixedLo: Float64Array.from(p.nets, (n) => (n.fixed ? n.fixed.loM : Infinity)),
+    fixedHi: Float64Array.from(p.nets, (n) => (n.fixed ? n.fixed.hiM : -Infinity)),
+    weight: Float64Array.from(p.nets, (n) => n.w),
+    pinNet: pinsAt.map((ps) => Int32Array.from(ps, (x) => x.net)),
+    pinD: pinsAt.map((ps) => Float64Array.from(ps, (x) => x.d)),
+    lo: new Float64Array(p.nets.length),
+    hi: new Float64Array(p.nets.length),
+    span: new Float64Array(p.nets.length),
+    stamp: new Int32Array(p.nets.length),
+    movedBays: new Int32Array(2 * widest),
+    movedFrom: new Float64Array(2 * widest),
     tick: 0,
     work: 0,
     cost: 0,
@@ -75,6 +102,7 @@ function start(p: ArrangeProblem, a: Arrangement): Search {
     s.pos[u] = i;
     x = place(s, u, x);
   });
+  measureAll(s);
   s.cost = arrangementCost(p, snapshot(s));
   return s;
 }
@@ -98,32 +126,69 @@ function leftEdge(s: Search, u: number): number {
   return lo;
 }
 
-/** Length of every edge and anchor at the bays of units u and v (each edge once). */
-function local(s: Search, u: number, v: number): number {
-  s.tick++;
-  return atUnit(s, u) + (v === u ? 0 : atUnit(s, v));
+/** Where each net's points start in the flat lists (a running sum of the nets' sizes). */
+function firstPoints(p: ArrangeProblem): Int32Array {
+  const first = new Int32Array(p.nets.length + 1);
+  p.nets.forEach((n, i) => (first[i + 1] = first[i] + n.pins.length));
+  return first;
 }
 
-function atUnit(s: Search, unit: number): number {
-  let sum = 0;
-  const { edges, anchors } = s.p;
-  for (const b of s.p.units[unit].bays) {
-    const inc = s.incident[b];
-    for (let k = 0; k < inc.length; k++) {
-      const i = inc[k];
-      if (s.stamp[i] === s.tick) continue;
-      s.stamp[i] = s.tick;
-      const e = edges[i];
-      sum += e.w * Math.abs(s.centre[e.a] + e.da - s.centre[e.b] - e.db);
-    }
-    const an = s.anchorsOf[b];
-    for (let k = 0; k < an.length; k++) {
-      const h = anchors[an[k]];
-      sum += h.w * Math.abs(s.centre[b] + h.d - h.xM);
-    }
-    s.work += inc.length + an.length + 1;
+/** Net i's ends and span, measured afresh from the bays' centres. */
+function measure(s: Search, i: number): void {
+  let lo = s.fixedLo[i];
+  let hi = s.fixedHi[i];
+  const end = s.first[i + 1];
+  for (let k = s.first[i]; k < end; k++) {
+    const x = s.centre[s.pointBay[k]] + s.pointD[k];
+    if (x < lo) lo = x;
+    if (x > hi) hi = x;
   }
-  return sum;
+  s.lo[i] = lo;
+  s.hi[i] = hi;
+  s.span[i] = hi > lo ? hi - lo : 0;
+  s.work += end - s.first[i];
+}
+
+function measureAll(s: Search): void {
+  for (let i = 0; i < s.p.nets.length; i++) measure(s, i);
+}
+
+/** Note the bays of unit u and their centres before a move. */
+function noteMoved(s: Search, u: number, k: number): number {
+  for (const b of s.p.units[u].bays) {
+    s.movedBays[k] = b;
+    s.movedFrom[k++] = s.centre[b];
+  }
+  return k;
+}
+
+/**
+ * The change in the weighted spans after the `k` noted bays moved. A net whose moved points
+ * all lay strictly between its ends, and still do, keeps its ends and its span.
+ */
+function respan(s: Search, k: number): number {
+  s.tick++;
+  let delta = 0;
+  for (let j = 0; j < k; j++) {
+    const b = s.movedBays[j];
+    const nets = s.pinNet[b];
+    const ds = s.pinD[b];
+    for (let q = 0; q < nets.length; q++) {
+      const i = nets[q];
+      if (s.stamp[i] === s.tick) continue;
+      const from = s.movedFrom[j] + ds[q];
+      const to = s.centre[b] + ds[q];
+      const lo = s.lo[i] + EPS;
+      const hi = s.hi[i] - EPS;
+      if (from > lo && from < hi && to > lo && to < hi) continue;
+      s.stamp[i] = s.tick;
+      const old = s.span[i];
+      measure(s, i);
+      delta += s.weight[i] * (s.span[i] - old);
+    }
+    s.work += nets.length + 1;
+  }
+  return delta;
 }
 
 const canSwap = (s: Search, i: number): boolean => {
@@ -136,25 +201,25 @@ const canSwap = (s: Search, i: number): boolean => {
 function swap(s: Search, i: number): number {
   const a = s.order[i];
   const b = s.order[i + 1];
-  const before = local(s, a, b);
+  const k = noteMoved(s, b, noteMoved(s, a, 0));
   const x = leftEdge(s, a);
   place(s, a, place(s, b, x));
   s.order[i] = b;
   s.order[i + 1] = a;
   s.pos[a] = i + 1;
   s.pos[b] = i;
-  const delta = local(s, a, b) - before;
+  const delta = respan(s, k);
   s.cost += delta;
   return delta;
 }
 
 /** Flip unit u's bays; returns the change in cost. */
 function flip(s: Search, u: number): number {
-  const before = local(s, u, u);
+  const k = noteMoved(s, u, 0);
   const x = leftEdge(s, u);
   s.flipped[u] ^= 1;
   place(s, u, x);
-  const delta = local(s, u, u) - before;
+  const delta = respan(s, k);
   s.cost += delta;
   return delta;
 }
@@ -260,6 +325,7 @@ function restore(s: Search, a: Arrangement, cost: number): void {
     s.pos[u] = i;
     x = place(s, u, x);
   });
+  measureAll(s);
   s.cost = cost;
 }
 

@@ -73,18 +73,24 @@ export function fillOrder(p: ArrangeProblem, preferred: readonly number[]): Arra
   return { order, flipped };
 }
 
-/** Unit-level edges of a problem (bay edges summed between units). */
+/**
+ * Unit-level edges of a problem for the spectral order: each net as a star from its first
+ * point (the capstan, where the cord's driver is on this drum) to each of its other points —
+ * the cord's branches — summed between units.
+ */
 export function unitEdges(p: ArrangeProblem): WeightedEdge[] {
   const unitOf = new Int32Array(p.bayWidthM.length);
   p.units.forEach((u, i) => u.bays.forEach((b) => (unitOf[b] = i)));
   const sum = new Map<number, number>();
   const n = p.units.length;
-  for (const e of p.edges) {
-    const a = unitOf[e.a];
-    const b = unitOf[e.b];
-    if (a === b) continue;
-    const key = Math.min(a, b) * n + Math.max(a, b);
-    sum.set(key, (sum.get(key) ?? 0) + e.w);
+  for (const net of p.nets) {
+    const a = unitOf[net.pins[0].bay];
+    for (const pin of net.pins.slice(1)) {
+      const b = unitOf[pin.bay];
+      if (a === b) continue;
+      const key = Math.min(a, b) * n + Math.max(a, b);
+      sum.set(key, (sum.get(key) ?? 0) + net.w);
+    }
   }
   return [...sum].map(([key, w]) => ({ a: Math.floor(key / n), b: key % n, w }));
 }

@@ -4,15 +4,16 @@
  *
  * A unit is a gate, a lever, an actuator's exit, or a latch (its two gates, in either order).
  * Bays have widths; a bay's centre is the sum of the widths before it plus half its own.
- * Cost = Σ over edges w·|(c_a + d_a) − (c_b + d_b)| + Σ over anchors w·|c_bay + d − x|: the
- * length along the cord channel of every branch. An edge joins a driver bay (its capstan, at
- * the centre: d = 0) and a target bay (the port lever, d from the bay's centre, strictly
- * inside the bay); an anchor is a branch to a part on another drum, whose position there is
- * fixed. Because both ends lie strictly inside their bays, an edge's length is
- * |c_a − c_b| + (d_later − d_earlier): the centre-to-centre distance plus a term that depends
- * only on which of the two comes first. That is a minimum linear arrangement with unequal
- * widths (Garey & Johnson, "Computers and Intractability", 1979: NP-hard already with unit
- * widths and no offsets).
+ * A cord that leaves its bay runs as a tree in the cord channel (design §11; physics/routing.ts):
+ * one drop from its capstan, a run along the channel that reaches every lever it pulls, and a
+ * rise at each. Its length along the channel is the span of its points: the capstan (a pin at
+ * the driver bay's centre, d = 0) and each lever (a pin d from its bay's centre, strictly inside
+ * the bay), with the points of the same cord on another drum that share this drum's channel
+ * fixed where they already are (`fixed`). So
+ *   Cost = Σ over nets w · (max − min of the net's pin positions c_bay + d and fixed points),
+ * the length along the cord channel of every cord: a minimum linear arrangement of the cords'
+ * nets (hypergraph edges) with unequal widths (Garey & Johnson, "Computers and Intractability",
+ * 1979: NP-hard already for two-point nets with unit widths and no offsets).
  *
  * Rules every arrangement keeps: unpinned units run front zone, then middle, then crank zone
  * (operator levers at the visitor end, clock and reset levers at the crank end); a pinned bay
@@ -30,31 +31,47 @@ export interface ArrangeUnit {
   readonly zone: Zone;
 }
 
-export interface Edge {
-  readonly a: number;
-  readonly b: number;
-  readonly w: number;
-  /** Where the edge meets bay a, from its centre (|da| < half its width). */
-  readonly da: number;
-  readonly db: number;
+/** A point of a net in one of the problem's bays. */
+export interface NetPin {
+  readonly bay: number;
+  /** Where the net meets the bay, from its centre (|d| < half its width). */
+  readonly d: number;
 }
 
-export interface Anchor {
-  readonly bay: number;
-  /** Where the branch meets the bay, from its centre. */
-  readonly d: number;
-  readonly xM: number;
+/** One cord's run along the channel: the points it must reach. */
+export interface Net {
+  /** Points in this drum's bays (at least one). */
+  readonly pins: readonly NetPin[];
+  /** The leftmost and rightmost of its points fixed elsewhere (metres from the visitor end), if any. */
+  readonly fixed?: { readonly loM: number; readonly hiM: number };
   readonly w: number;
 }
 
 export interface ArrangeProblem {
   readonly units: readonly ArrangeUnit[];
   readonly bayWidthM: readonly number[];
-  /** Between two different bays, w > 0. */
-  readonly edges: readonly Edge[];
-  readonly anchors: readonly Anchor[];
+  readonly nets: readonly Net[];
   /** Bay → required bay index (0-based, from the visitor end). */
   readonly pins: ReadonlyMap<number, number>;
+}
+
+/** A two-point net: a branch from (a, da) to (b, db), or to a point fixed at `xM` elsewhere. */
+export function twoPointNet(a: number, da: number, to: { bay: number; d: number } | { xM: number }, w = 1): Net {
+  return 'xM' in to
+    ? { pins: [{ bay: a, d: da }], fixed: { loM: to.xM, hiM: to.xM }, w }
+    : { pins: [{ bay: a, d: da }, to], w };
+}
+
+/** Length along the channel of one net with the bays' centres at `centreM`. */
+export function netSpan(net: Net, centreM: ArrayLike<number>): number {
+  let lo = net.fixed ? net.fixed.loM : Infinity;
+  let hi = net.fixed ? net.fixed.hiM : -Infinity;
+  for (const p of net.pins) {
+    const x = centreM[p.bay] + p.d;
+    if (x < lo) lo = x;
+    if (x > hi) hi = x;
+  }
+  return hi > lo ? hi - lo : 0;
 }
 
 /** Units in order from the visitor end, and which of them are flipped (by unit index). */
@@ -88,8 +105,7 @@ export function bayCentres(p: ArrangeProblem, a: Arrangement): { centreM: Float6
 export function arrangementCost(p: ArrangeProblem, a: Arrangement): number {
   const { centreM } = bayCentres(p, a);
   let cost = 0;
-  for (const e of p.edges) cost += e.w * Math.abs(centreM[e.a] + e.da - centreM[e.b] - e.db);
-  for (const h of p.anchors) cost += h.w * Math.abs(centreM[h.bay] + h.d - h.xM);
+  for (const n of p.nets) cost += n.w * netSpan(n, centreM);
   return cost;
 }
 

@@ -5,18 +5,20 @@ import { place } from '../../../../src/core/phases/place/index.js';
 import {
   arrangementCost,
   isFeasible,
+  twoPointNet,
   type ArrangeProblem,
   type Arrangement,
+  type Net,
   type Zone,
 } from '../../../../src/core/phases/place/problem.js';
 import { seededRandom } from '../../../../src/core/model/random.js';
 import { DEFAULT_PROFILE, type Profile } from '../../../../src/core/physics/profile.js';
-import { bruteForceChannel, randomNetlist } from './support.js';
+import { bruteForceChannel, placedChannel, randomNetlist } from './support.js';
 
 /** One drum long enough for anything: the arrangement alone is under test. */
 const ONE_DRUM: Profile = { ...DEFAULT_PROFILE, frame: { ...DEFAULT_PROFILE.frame, longestDrumM: 100 } };
 
-/** A random problem: units of one or two bays, zones, offsets, anchors and (sometimes) pins. */
+/** A random problem: units of one or two bays, zones, nets of two to four points with offsets, fixed points elsewhere, and (sometimes) pins. */
 function randomProblem(seed: number, units: number): ArrangeProblem {
   const rng = seededRandom(seed);
   const us: { bays: number[]; flippable: boolean; zone: Zone }[] = [];
@@ -28,18 +30,17 @@ function randomProblem(seed: number, units: number): ArrangeProblem {
   }
   const nb = widths.length;
   const off = (b: number): number => (rng.next() - 0.5) * 0.9 * widths[b];
-  const edges = Array.from({ length: rng.int(3 * nb) }, () => {
-    const a = rng.int(nb);
-    const b = (a + 1 + rng.int(nb - 1)) % nb;
-    return { a, b, w: 1 + rng.int(3), da: off(a), db: off(b) };
-  }).filter((e) => e.a !== e.b);
-  const anchors = Array.from({ length: rng.int(3) }, () => {
-    const bay = rng.int(nb);
-    return { bay, d: off(bay), xM: rng.next() * 0.6, w: 1 + rng.int(2) };
+  const nets: Net[] = Array.from({ length: rng.int(2 * nb + 1) }, () => {
+    const pins = Array.from({ length: 1 + rng.int(4) }, () => {
+      const bay = rng.int(nb);
+      return { bay, d: off(bay) };
+    });
+    const fixed = rng.next() < 0.25 ? [rng.next() * 0.6, rng.next() * 0.6].sort((a, b) => a - b) : undefined;
+    return { pins, ...(fixed ? { fixed: { loM: fixed[0], hiM: fixed[1] } } : {}), w: 1 + rng.int(3) };
   });
   const pins = new Map<number, number>();
   if (rng.next() < 0.4) pins.set(rng.int(nb), rng.int(nb));
-  return { units: us, bayWidthM: widths, edges, anchors, pins };
+  return { units: us, bayWidthM: widths, nets, pins };
 }
 
 /** Every order of the units, each latch both ways round: the least feasible cost (Infinity if none). */
@@ -74,7 +75,7 @@ function bruteForce(p: ArrangeProblem): number {
 
 describe('core/phases/place/exact', () => {
   // Subset dynamic programming (Held & Karp 1962) against enumeration of every order.
-  it('finds the least cost of every feasible order, with widths, offsets, anchors, zones and pins (property)', () => {
+  it('finds the least cost of every feasible order, with widths, offsets, nets of several points, fixed points, zones and pins (property)', () => {
     fc.assert(
       fc.property(fc.integer({ min: 1, max: 1e9 }), fc.integer({ min: 1, max: 6 }), (seed, units) => {
         const p = randomProblem(seed, units);
@@ -94,7 +95,10 @@ describe('core/phases/place/exact', () => {
         const n = randomNetlist(seed, bays);
         const placed = place(n, ONE_DRUM, { seed: 3 });
         expect(placed.exact).toBe(true);
-        expect(placed.channelM).toBeCloseTo(bruteForceChannel(n, ONE_DRUM), 9);
+        const least = bruteForceChannel(n, ONE_DRUM);
+        expect(placedChannel(n, placed.bays)).toBeCloseTo(least, 9);
+        // The routing measures the same trees (physics/routing.ts).
+        expect(placed.channelM).toBeCloseTo(least, 9);
       }),
       { seed: 808, numRuns: 60 },
     );
@@ -105,8 +109,7 @@ describe('core/phases/place/exact', () => {
     const p: ArrangeProblem = {
       units: [unit(0, 0), unit(0, 1), unit(1, 2), unit(1, 3), unit(1, 4), unit(2, 5)],
       bayWidthM: [1, 1, 1, 1, 1, 1],
-      edges: [],
-      anchors: [],
+      nets: [],
       pins: new Map(),
     };
     expect(exactStates(p)).toBe(4 + 8 + 2);
@@ -119,8 +122,7 @@ describe('core/phases/place/exact', () => {
         { bays: [2], flippable: false, zone: 1 },
       ],
       bayWidthM: [1, 1, 1],
-      edges: [],
-      anchors: [],
+      nets: [],
       // The single bay in the middle splits the latch.
       pins: new Map([[2, 1]]),
     };
@@ -132,8 +134,7 @@ describe('core/phases/place/exact', () => {
     const p: ArrangeProblem = {
       units: Array.from({ length: n }, (_, i) => ({ bays: [i], flippable: false, zone: 1 })),
       bayWidthM: new Array<number>(n).fill(0.05),
-      edges: [3, 0, 5, 1, 6, 2].map((b, i, xs) => ({ a: i === 0 ? 4 : xs[i - 1], b, w: 1, da: 0, db: 0 })),
-      anchors: [],
+      nets: [3, 0, 5, 1, 6, 2].map((b, i, xs) => twoPointNet(i === 0 ? 4 : xs[i - 1], 0, { bay: b, d: 0 })),
       pins: new Map(),
     };
     const a = arrangeExact(p);

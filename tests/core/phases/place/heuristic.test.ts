@@ -61,15 +61,16 @@ describe('core/phases/place/improve', () => {
     const local = new Map(bays.map((b, i) => [b, i]));
     const re = units.map((u): ArrangeUnit => ({ ...u, bays: u.bays.map((b) => local.get(b) as number) }));
     const nb = bays.length;
-    const edges = Array.from({ length: 80 }, () => {
+    // Cords of one to three branches: a capstan (d = 0) and levers beside their gates' centres.
+    const nets = Array.from({ length: 60 }, () => {
       const a = rng.int(nb);
-      return { a, b: (a + 1 + rng.int(nb - 1)) % nb, w: 1, da: 0, db: 0.01 };
+      const targets = Array.from({ length: 1 + rng.int(3) }, () => ({ bay: (a + 1 + rng.int(nb - 1)) % nb, d: 0.01 }));
+      return { pins: [{ bay: a, d: 0 }, ...targets], w: 1 };
     });
     return {
       units: re,
       bayWidthM: bays.map((b) => widthOf.get(b) as number),
-      edges,
-      anchors: [],
+      nets,
       pins: new Map([[5, 7]]),
     };
   };

@@ -1,7 +1,7 @@
 /**
  * Helpers for the placement tests: random netlists of a given number of bays (seeded), and an
  * independent brute force over every order of the bays that measures the cord along the
- * channel from positions computed here, not by the module under test.
+ * channel (design §11's cord trees) from positions computed here, not by the module under test.
  */
 import { analyse, buildMachine } from '../../../../src/core/pipeline.js';
 import type { Cord, GatePart, LatchPart, LeverPart, Netlist, Part } from '../../../../src/core/model/netlist.js';
@@ -161,7 +161,12 @@ function permutations<T>(xs: readonly T[], visit: (p: readonly T[]) => void): vo
   }
 }
 
-/** Channel length of one order of bays: Σ |capstan x of the driver − x of the lever tied to|. */
+/**
+ * Channel length of one order of bays on one drum, by design §11's cord runs: a cord that
+ * leaves its bay splits at knots in the channel, so its run along the channel is the span from
+ * its capstan to the furthest lever it pulls on either side; a cord all of whose levers are in
+ * its own bay rises straight and has none.
+ */
 export function channelOf(n: Netlist, order: readonly BruteBay[]): number {
   const capstan = new Map<string, number>();
   const lever = new Map<string, number>();
@@ -173,10 +178,13 @@ export function channelOf(n: Netlist, order: readonly BruteBay[]): number {
   }
   let s = 0;
   for (const c of n.cords) {
-    const from = capstan.get(c.driver) as number;
-    for (const p of c.ports)
-      if (p.part !== c.driver) s += Math.abs(from - (lever.get(`${p.part}.${p.port}`) as number));
-    for (const a of c.actuators) s += Math.abs(from - (lever.get(`${a}.exit`) as number));
+    if (c.actuators.length === 0 && c.ports.every((p) => p.part === c.driver)) continue;
+    const xs = [
+      capstan.get(c.driver) as number,
+      ...c.ports.map((p) => lever.get(`${p.part}.${p.port}`) as number),
+      ...c.actuators.map((a) => lever.get(`${a}.exit`) as number),
+    ];
+    s += Math.max(...xs) - Math.min(...xs);
   }
   return s;
 }
@@ -203,4 +211,25 @@ export function netlistOrderChannel(n: Netlist, profile: Profile): number {
     n,
     [...bays].sort((a, b) => a.zone - b.zone),
   );
+}
+
+/** The same measure read from a placement's published positions (one drum): each bay's centre and its levers. */
+export function placedChannel(
+  n: Netlist,
+  bays: readonly { part: string; xM: number; levers: readonly { name: string; xM: number }[] }[],
+): number {
+  const order = [...bays].sort((a, b) => a.xM - b.xM);
+  const capstan = new Map(order.map((b) => [b.part, b.xM]));
+  const lever = new Map(order.flatMap((b) => b.levers.map((l) => [`${b.part}.${l.name}`, l.xM] as const)));
+  let s = 0;
+  for (const c of n.cords) {
+    if (c.actuators.length === 0 && c.ports.every((p) => p.part === c.driver)) continue;
+    const xs = [
+      capstan.get(c.driver) as number,
+      ...c.ports.map((p) => lever.get(`${p.part}.${p.port}`) as number),
+      ...c.actuators.map((a) => lever.get(`${a}.exit`) as number),
+    ];
+    s += Math.max(...xs) - Math.min(...xs);
+  }
+  return s;
 }
