@@ -4,17 +4,19 @@
  * Each drum is one arrangement problem (problem.ts): its units, and a net for every cord's run
  * along a channel (design §11: a cord that leaves its bay runs as a tree in the channel of the
  * lower of the two drums each branch joins, so a cord has one run per channel it uses), with
- * that run's points on other drums fixed where they already are. A drum is solved exactly (exact.ts) when the subsets the exact method would
- * visit are within the limit, and otherwise by the heuristic: the spectral order both ways
- * round and the netlist's own order, each improved by local search (improve.ts), the cheapest
- * kept. With more than one drum the drums are solved in turn, each against the others'
- * positions, for a few rounds (block coordinate descent); the best round is kept.
+ * that run's points on other drums fixed where they already are. A drum is solved exactly
+ * (exact.ts) when the subsets the exact method would visit are within the limit, and otherwise
+ * by the heuristic: the spectral order both ways round and the netlist's own order, each
+ * improved by local search (improve.ts), the cheapest kept. With more than one drum the drums
+ * are solved in turn, each against the others' positions, for a few rounds (block coordinate
+ * descent; after the first round a drum's search starts from its own last order); the best
+ * round is kept.
  */
 import type { Random } from '../../model/random.js';
 import { arrangeExact, EXACT_MAX_UNITS, exactStates } from './exact.js';
 import { improve, type ImproveOptions } from './improve.js';
 import { cheapest, fillOrder, spectralStarts } from './order.js';
-import { netSpan, type ArrangeProblem, type Arrangement, type Net } from './problem.js';
+import { isFeasible, netSpan, type ArrangeProblem, type Arrangement, type Net } from './problem.js';
 import type { Bay, Branch, FrameUnits } from './units.js';
 
 /** Rounds of solving the drums in turn against each other (all but the last without kicks). */
@@ -148,6 +150,7 @@ function solve(
   s: ArrangeSettings,
   rng: Random,
   quick: boolean,
+  previous?: Arrangement,
 ): { a: Arrangement; method: DrumMethod } | undefined {
   const netlistOrder = p.units.map((_, i) => i);
   const own = fillOrder(p, netlistOrder);
@@ -160,7 +163,9 @@ function solve(
     const a = arrangeExact(p);
     return a && { a, method: 'exact' };
   }
-  const starts = [...spectralStarts(p, rng.fork()), ...(own ? [own] : [])];
+  // A drum solved in an earlier round starts from its own order there (block coordinate descent goes on).
+  const starts =
+    previous && isFeasible(p, previous) ? [previous] : [...spectralStarts(p, rng.fork()), ...(own ? [own] : [])];
   if (starts.length === 0) {
     const a = exactFits ? arrangeExact(p) : undefined;
     return a && { a, method: 'exact' };
@@ -245,7 +250,12 @@ export function arrangeDrums(
     for (let d = 0; d < drums; d++) {
       const dp = drumProblem(fu, drumOf, d, onDrum[d], unmet.includes(d) ? new Map() : pins, at, done);
       const quick = round < rounds - 1;
-      let solved = solve(dp.problem, each, rng.fork(), quick);
+      const local = new Map(dp.units.map((u, i) => [u, i]));
+      const previous: Arrangement | undefined =
+        round > 0
+          ? { order: orders[d].map((u) => local.get(u) ?? -1), flipped: dp.units.map((u) => flipped[u]) }
+          : undefined;
+      let solved = solve(dp.problem, each, rng.fork(), quick, previous);
       if (!solved) {
         unmet.push(d);
         solved = solve({ ...dp.problem, pins: new Map() }, each, rng.fork(), quick);
