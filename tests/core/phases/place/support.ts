@@ -162,20 +162,12 @@ function permutations<T>(xs: readonly T[], visit: (p: readonly T[]) => void): vo
 }
 
 /**
- * Channel length of one order of bays on one drum, by design §11's cord runs: a cord that
- * leaves its bay splits at knots in the channel, so its run along the channel is the span from
- * its capstan to the furthest lever it pulls on either side; a cord all of whose levers are in
- * its own bay rises straight and has none.
+ * Channel length on one drum, by design §11's cord runs: a cord that leaves its bay splits at
+ * knots in the channel, so its run along the channel is the span from its capstan to the
+ * furthest lever it pulls on either side; a cord all of whose levers are in its own bay rises
+ * straight and has none. `capstan` by part, `lever` by `part.lever` (an actuator's: `id.exit`).
  */
-export function channelOf(n: Netlist, order: readonly BruteBay[]): number {
-  const capstan = new Map<string, number>();
-  const lever = new Map<string, number>();
-  let x = 0;
-  for (const b of order) {
-    capstan.set(b.part, x + b.width / 2);
-    b.levers.forEach((name, i) => lever.set(`${b.part}.${name}`, x + ((i + 0.5) * b.width) / b.levers.length));
-    x += b.width;
-  }
+function spans(n: Netlist, capstan: ReadonlyMap<string, number>, lever: ReadonlyMap<string, number>): number {
   let s = 0;
   for (const c of n.cords) {
     if (c.actuators.length === 0 && c.ports.every((p) => p.part === c.driver)) continue;
@@ -187,6 +179,19 @@ export function channelOf(n: Netlist, order: readonly BruteBay[]): number {
     s += Math.max(...xs) - Math.min(...xs);
   }
   return s;
+}
+
+/** Channel length of one order of bays (`spans`), positions worked out here from the widths. */
+export function channelOf(n: Netlist, order: readonly BruteBay[]): number {
+  const capstan = new Map<string, number>();
+  const lever = new Map<string, number>();
+  let x = 0;
+  for (const b of order) {
+    capstan.set(b.part, x + b.width / 2);
+    b.levers.forEach((name, i) => lever.set(`${b.part}.${name}`, x + ((i + 0.5) * b.width) / b.levers.length));
+    x += b.width;
+  }
+  return spans(n, capstan, lever);
 }
 
 /** The least channel length over every order of the bays that keeps latches together and the end rules. */
@@ -221,15 +226,5 @@ export function placedChannel(
   const order = [...bays].sort((a, b) => a.xM - b.xM);
   const capstan = new Map(order.map((b) => [b.part, b.xM]));
   const lever = new Map(order.flatMap((b) => b.levers.map((l) => [`${b.part}.${l.name}`, l.xM] as const)));
-  let s = 0;
-  for (const c of n.cords) {
-    if (c.actuators.length === 0 && c.ports.every((p) => p.part === c.driver)) continue;
-    const xs = [
-      capstan.get(c.driver) as number,
-      ...c.ports.map((p) => lever.get(`${p.part}.${p.port}`) as number),
-      ...c.actuators.map((a) => lever.get(`${a}.exit`) as number),
-    ];
-    s += Math.max(...xs) - Math.min(...xs);
-  }
-  return s;
+  return spans(n, capstan, lever);
 }
