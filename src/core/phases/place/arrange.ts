@@ -213,9 +213,9 @@ function positionsOf(
 }
 
 /** The total channel length over every drum: every cord's run along each channel it uses, once. */
-export function channelLength(fu: FrameUnits, at: Positions): number {
+function channelLength(cords: readonly CordNet[], at: Positions): number {
   let s = 0;
-  for (const cn of cordNets(fu, (b) => at.drumOfBay[b])) s += netSpan({ pins: cn.points, w: 1 }, at.centreM);
+  for (const cn of cords) s += netSpan({ pins: cn.points, w: 1 }, at.centreM);
   return s;
 }
 
@@ -243,8 +243,9 @@ export function arrangeDrums(
   const each: ArrangeSettings = { ...s, improve: { ...s.improve, kicks } };
   const done = new Set<number>();
   // Each drum's runs along the channels: they depend on the drums, not on the orders.
+  const cords = cordNets(fu, (b) => drumOf[fu.bays[b].unit]);
   const onDrum = Array.from({ length: drums }, () => [] as CordNet[]);
-  for (const cn of cordNets(fu, (b) => drumOf[fu.bays[b].unit]))
+  for (const cn of cords)
     for (const d of new Set(cn.points.map((pt) => drumOf[fu.bays[pt.bay].unit]))) onDrum[d].push(cn);
   for (let round = 0; round < rounds; round++) {
     for (let d = 0; d < drums; d++) {
@@ -268,7 +269,7 @@ export function arrangeDrums(
       done.add(d);
     }
     if (!at) break;
-    const cost = channelLength(fu, at);
+    const cost = channelLength(cords, at);
     if (!best || cost < best.cost - 1e-12) best = { at, cost };
   }
   return { at: best?.at ?? positionsOf(fu, drums, orders, flipped, methods), unmet };

@@ -55,13 +55,6 @@ export interface ArrangeProblem {
   readonly pins: ReadonlyMap<number, number>;
 }
 
-/** A two-point net: a branch from (a, da) to (b, db), or to a point fixed at `xM` elsewhere. */
-export function twoPointNet(a: number, da: number, to: { bay: number; d: number } | { xM: number }, w = 1): Net {
-  return 'xM' in to
-    ? { pins: [{ bay: a, d: da }], fixed: { loM: to.xM, hiM: to.xM }, w }
-    : { pins: [{ bay: a, d: da }, to], w };
-}
-
 /** Length along the channel of one net with the bays' centres at `centreM`. */
 export function netSpan(net: Net, centreM: ArrayLike<number>): number {
   let lo = net.fixed ? net.fixed.loM : Infinity;

@@ -5,7 +5,6 @@ import { place } from '../../../../src/core/phases/place/index.js';
 import {
   arrangementCost,
   isFeasible,
-  twoPointNet,
   type ArrangeProblem,
   type Arrangement,
   type Net,
@@ -134,7 +133,13 @@ describe('core/phases/place/exact', () => {
     const p: ArrangeProblem = {
       units: Array.from({ length: n }, (_, i) => ({ bays: [i], flippable: false, zone: 1 })),
       bayWidthM: new Array<number>(n).fill(0.05),
-      nets: [3, 0, 5, 1, 6, 2].map((b, i, xs) => twoPointNet(i === 0 ? 4 : xs[i - 1], 0, { bay: b, d: 0 })),
+      nets: [3, 0, 5, 1, 6, 2].map((b, i, xs) => ({
+        pins: [
+          { bay: i === 0 ? 4 : xs[i - 1], d: 0 },
+          { bay: b, d: 0 },
+        ],
+        w: 1,
+      })),
       pins: new Map(),
     };
     const a = arrangeExact(p);
