@@ -8,7 +8,8 @@
  * operator lever or actuator exit not at the visitor end of drum 1, or a clock or reset lever
  * not at its crank end (unless pinned there by the user); a drum longer than allowed; more
  * drums than the frame carries; a branch of non-positive length, or whose length is not the
- * runs it is cut as (its own segments of the cord's tree, physics/routing.ts) plus the allowances. The force margins with the computed routing are the drive check's.
+ * runs it is cut as (its own segments of the cord's tree, physics/routing.ts) plus the
+ * allowances. The force margins with the computed routing are the drive check's.
  */
 import type { Netlist, Part } from '../../model/netlist.js';
 import type { Profile } from '../../physics/profile.js';
