@@ -27,6 +27,7 @@ import type { Profile } from '../../physics/profile.js';
 import { route, type FrameLayout, type PlacedBay, type Routing } from '../../physics/routing.js';
 import { arrangeDrums, leverOffset, type ArrangeSettings, type DrumMethod, type Positions } from './arrange.js';
 import { crossings, drumsNeeded, fillDrums, splitDrums } from './drums.js';
+import { refineDrums } from './refine.js';
 import { DEFAULT_IMPROVE, type ImproveOptions } from './improve.js';
 import { checkPins, type Pin, type PlacementProblem } from './pins.js';
 import { frameUnits, type FrameUnits } from './units.js';
@@ -179,7 +180,9 @@ function chooseSplit(
   const widest = Math.max(0, ...fu.units.map((u) => u.widthM));
   for (let attempt = 0; ; attempt++) {
     const drumOf =
-      drums === 1 ? new Int32Array(fu.units.length) : splitDrums(fu, drums, fixedDrum, longestM, rng.fork());
+      drums === 1
+        ? new Int32Array(fu.units.length)
+        : refineDrums(fu, splitDrums(fu, drums, fixedDrum, longestM, rng.fork()), drums, fixedDrum, longestM);
     const fits = drumLengths(fu, drumOf, drums).every((w) => w <= longestM + 1e-9);
     if (fits || attempt >= 3 || widest > longestM) return { drumOf, drums };
     drums++;
