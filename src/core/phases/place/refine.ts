@@ -16,8 +16,9 @@
  * while one gains. The cost along the channels is left to the arrangement that follows.
  *
  * Pre: every unit has a drum in [0, drums); fixed units (`fixedDrum` ≥ 0) are on theirs.
- * Post: fixed units stay; no drum that was within `longestM` goes over it; the vertical cost
- * never rises. Deterministic (units in index order, drums in increasing order, ties kept).
+ * Post: fixed units stay; no drum that was within `longestM` goes over it, nor below the bays
+ * its pins need (`baysNeeded`: a pin to bay k needs k bays on its drum) if it had them; the
+ * vertical cost never rises. Deterministic (units in index order, drums in increasing order, ties kept).
  */
 import type { FrameUnits } from './units.js';
 
@@ -68,6 +69,9 @@ class Split {
   readonly members: number[][];
   readonly widthOf: number[];
   readonly width: Float64Array;
+  readonly baysOf: number[];
+  /** Bays on each drum. */
+  readonly bays: Int32Array;
   readonly onDrum: number[][];
   /** Each unit's levels as things stand, kept up to date as units move (what moving it could save at most). */
   readonly own: Float64Array;
@@ -82,6 +86,7 @@ class Split {
     drums: number,
     readonly cords: readonly CordEnds[],
     readonly longestM: number,
+    readonly baysNeeded: ReadonlyMap<number, number>,
   ) {
     const n = fu.units.length;
     this.out = Int32Array.from(drumOf);
@@ -92,9 +97,12 @@ class Split {
     });
     this.widthOf = fu.units.map((u) => u.widthM);
     this.width = new Float64Array(drums);
+    this.baysOf = fu.units.map((u) => u.bays.length);
+    this.bays = new Int32Array(drums);
     this.onDrum = Array.from({ length: drums }, () => []);
     for (let u = 0; u < n; u++) {
       this.width[this.out[u]] += this.widthOf[u];
+      this.bays[this.out[u]] += this.baysOf[u];
       this.onDrum[this.out[u]].push(u);
     }
     this.own = Float64Array.from({ length: n }, (_, u) => this.cost(u));
@@ -134,17 +142,21 @@ class Split {
     return before - after;
   }
 
-  fits(d: number, extra: number): boolean {
-    return this.width[d] + extra <= this.longestM + 1e-9;
+  /** Drum `d` can take `extra` metres and `bays` more bays (fewer when negative) and stay within its limits. */
+  fits(d: number, extra: number, bays: number): boolean {
+    const keeps = bays >= 0 || this.bays[d] + bays >= (this.baysNeeded.get(d) ?? 0);
+    return keeps && (extra <= 0 || this.width[d] + extra <= this.longestM + 1e-9);
   }
 
   /** Move `u` to drum `to`, adding to `touched` every unit whose levels that changes. */
   place(u: number, to: number, touched: Set<number>): void {
     const from = this.out[u];
     this.width[from] -= this.widthOf[u];
+    this.bays[from] -= this.baysOf[u];
     this.onDrum[from].splice(this.onDrum[from].indexOf(u), 1);
     this.out[u] = to;
     this.width[to] += this.widthOf[u];
+    this.bays[to] += this.baysOf[u];
     this.onDrum[to].push(u);
     for (const i of this.cordsOf[u])
       for (const x of this.members[i]) {
@@ -175,16 +187,18 @@ function reachOf(s: Split, u: number, seen: Int32Array): number[] {
 function tryUnit(s: Split, u: number, fixedDrum: Int32Array, seen: Int32Array): number {
   const from = s.out[u];
   const w = s.widthOf[u];
+  const k = s.baysOf[u];
   let best = { gain: 0, to: -1, swap: -1 };
   for (const to of reachOf(s, u, seen)) {
     const g = s.gain(u, to);
-    if (s.fits(to, w)) {
+    if (s.fits(to, w, k) && s.fits(from, -w, -k)) {
       if (g > best.gain) best = { gain: g, to, swap: -1 };
       continue;
     }
     // No room: swap with a unit there that fits where u was, priced by both moves.
     for (const v of s.onDrum[to]) {
-      if (fixedDrum[v] !== -1 || !s.fits(to, w - s.widthOf[v]) || !s.fits(from, s.widthOf[v] - w)) continue;
+      const [wv, kv] = [s.widthOf[v], s.baysOf[v]];
+      if (fixedDrum[v] !== -1 || !s.fits(to, w - wv, k - kv) || !s.fits(from, wv - w, kv - k)) continue;
       // A swap saves at most both units' levels now (v's alone beside u's move, when they share no cord).
       const joint = s.shares(u, v);
       const most = joint ? s.own[u] + s.own[v] : g + s.own[v];
@@ -208,9 +222,10 @@ export function refineDrums(
   drums: number,
   fixedDrum: Int32Array,
   longestM: number,
+  baysNeeded: ReadonlyMap<number, number> = new Map(),
 ): Int32Array {
   if (drums < 2) return Int32Array.from(drumOf);
-  const s = new Split(fu, drumOf, drums, cordEnds(fu), longestM);
+  const s = new Split(fu, drumOf, drums, cordEnds(fu), longestM, baysNeeded);
   const seen = new Int32Array(drums).fill(-1);
   // The first pass tries every unit; each later pass only those that share a cord with one that moved.
   let todo = Array.from({ length: fu.units.length }, (_, u) => u);
