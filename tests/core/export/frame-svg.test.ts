@@ -36,9 +36,13 @@ describe('core/export/frame-svg', () => {
     const b = example('crossing.lw');
     const svg = frameSvg(b.build, b.placement, b.profile);
     // Two drums 0.6 m apart: channel 0.12 m below drum 1, rail 0.2 m above drum 2, lever ends 0.05 m.
-    const s = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)), 0.97);
-    expect(s).toBe(5); // 1.08 m at 1:5 is 216 mm, within MAX_WIDTH_MM
-    expect((1.08 * 1000) / s).toBeLessThanOrEqual(MAX_WIDTH_MM);
+    const longest = Math.max(...b.placement.drums.map((d) => d.lengthM));
+    const s = frameScale(longest, 0.97);
+    // The longer drum, 1.30 m: 260 mm at 1:5 is past MAX_WIDTH_MM, so 1:10 (130 mm).
+    expect(longest).toBeCloseTo(1.302, 3);
+    expect(s).toBe(10);
+    expect((longest * 1000) / 5).toBeGreaterThan(MAX_WIDTH_MM);
+    expect((longest * 1000) / s).toBeLessThanOrEqual(MAX_WIDTH_MM);
     for (const d of b.placement.drums) {
       const g = new RegExp(`<g class="drum-${d.drum}">\\s*<rect x="[\\d.]+" y="[\\d.]+" width="([\\d.]+)"`).exec(svg);
       expect(Number(g?.[1]), `drum ${d.drum}`).toBeCloseTo((d.lengthM * 1000) / s, 0);

@@ -27,8 +27,9 @@ import type { Profile } from '../../physics/profile.js';
 import { route, type FrameLayout, type PlacedBay, type Routing } from '../../physics/routing.js';
 import { arrangeDrums, leverOffset, type ArrangeSettings, type DrumMethod, type Positions } from './arrange.js';
 import { crossings, drumsNeeded, fillDrums, splitDrums } from './drums.js';
+import { refineDrums } from './refine.js';
 import { DEFAULT_IMPROVE, type ImproveOptions } from './improve.js';
-import { checkPins, type Pin, type PlacementProblem } from './pins.js';
+import { checkPins, type CheckedPins, type Pin, type PlacementProblem } from './pins.js';
 import { frameUnits, type FrameUnits } from './units.js';
 
 export { pinDiagnostics, type Pin, type PlacementProblem } from './pins.js';
@@ -138,7 +139,7 @@ export function place(netlist: Netlist, profile: Profile, opts: PlaceOptions = {
   };
   const base = fillDrums(fu, pins.fixedDrum, f.longestDrumM);
   const baseline = evaluate(base.drumOf, base.drums, { ...settings, mode: 'netlist' }, rng.fork());
-  const split = chooseSplit(fu, pins.fixedDrum, f.longestDrumM, rng.fork());
+  const split = chooseSplit(fu, pins, f.longestDrumM, rng.fork());
   const candidates = [evaluate(split.drumOf, split.drums, settings, rng.fork()), baseline];
   const rank = (c: Candidate): [number, number] => [overLimits(fu, c, f), c.routing.totalCordM];
   const best = candidates.reduce((a, b) => {
@@ -168,18 +169,31 @@ function keptPins(
     });
 }
 
-/** Drums by width and pins; the split retried with one more drum while a drum is still too long. */
+/**
+ * Drums by width and pins; the split (bisection, then refined by the cord between drums), retried
+ * with one more drum while a drum is still too long.
+ */
 function chooseSplit(
   fu: FrameUnits,
-  fixedDrum: Int32Array,
+  pins: CheckedPins,
   longestM: number,
   rng: Random,
 ): { drumOf: Int32Array; drums: number } {
+  const { fixedDrum, baysNeeded } = pins;
   let drums = Math.max(drumsNeeded(fu, longestM), 1 + Math.max(0, ...fixedDrum));
   const widest = Math.max(0, ...fu.units.map((u) => u.widthM));
   for (let attempt = 0; ; attempt++) {
     const drumOf =
-      drums === 1 ? new Int32Array(fu.units.length) : splitDrums(fu, drums, fixedDrum, longestM, rng.fork());
+      drums === 1
+        ? new Int32Array(fu.units.length)
+        : refineDrums(
+            fu,
+            splitDrums(fu, drums, fixedDrum, longestM, rng.fork()),
+            drums,
+            fixedDrum,
+            longestM,
+            baysNeeded,
+          );
     const fits = drumLengths(fu, drumOf, drums).every((w) => w <= longestM + 1e-9);
     if (fits || attempt >= 3 || widest > longestM) return { drumOf, drums };
     drums++;

@@ -55,6 +55,8 @@ export interface CheckedPins {
   readonly problems: readonly PlacementProblem[];
   /** Per unit: the drum (0-based) it must be on, or −1. Units at either end go on drum 0 unless pinned. */
   readonly fixedDrum: Int32Array;
+  /** Per drum (0-based) with pins: the bays it must keep so that its farthest pinned bay exists. */
+  readonly baysNeeded: ReadonlyMap<number, number>;
   /** The pins whose bay exists on their drum under a split, by bay; the others reported. */
   inRange(
     drumOf: Int32Array,
@@ -150,10 +152,15 @@ export function checkPins(
     }
   }
   const fixedDrum = Int32Array.from(fu.units, (u) => (u.zone === 1 ? -1 : 0));
-  for (const k of kept) fixedDrum[fu.bays[k.bay].unit] = k.drum;
+  const baysNeeded = new Map<number, number>();
+  for (const k of kept) {
+    fixedDrum[fu.bays[k.bay].unit] = k.drum;
+    baysNeeded.set(k.drum, Math.max(baysNeeded.get(k.drum) ?? 0, k.index + 1));
+  }
   return {
     problems,
     fixedDrum,
+    baysNeeded,
     inRange: (drumOf, drums) => inRange(fu, kept, drumOf, drums),
     unmetOn: (d) =>
       kept
