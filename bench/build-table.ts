@@ -31,6 +31,21 @@ function buildInChild(source: string): Promise<BuildFigures | string> {
   });
 }
 
+/** A build past this share of the goal is built twice more and the median run kept (ms). */
+const AGAIN_PAST = 5_000;
+
+/** One build, or for a slow one (past AGAIN_PAST) the run of median time of three. */
+async function medianBuild(source: string): Promise<BuildFigures | string> {
+  const first = await buildInChild(source);
+  if (typeof first === 'string' || first.ms <= AGAIN_PAST) return first;
+  const runs = [first];
+  for (let i = 0; i < 2; i++) {
+    const r = await buildInChild(source);
+    if (typeof r !== 'string') runs.push(r);
+  }
+  return runs.sort((a, b) => a.ms - b.ms)[Math.floor(runs.length / 2)];
+}
+
 const seconds = (ms: number): string => (ms / 1000).toFixed(2);
 
 function row(name: string, r: BuildFigures | string): string {
@@ -63,7 +78,7 @@ export async function benchBuildTable(opts: { readonly quick: boolean }): Promis
   const lines = [
     "## Builds of the LGSynth'91 machines",
     '',
-    "Each build as `latchwright build` runs it (encoding search on worker threads, every check), in a child process of its own. Goals: under 10 s and under 500 MB peak resident memory each. The shipped profile's frame carries 2 drums of at most 1.5 m, so a larger machine fails the layout check and says what to change (tests/core/checks/lgsynth91.test.ts builds every machine with every check passing under a profile that allows more drums).",
+    "Each build as `latchwright build` runs it (encoding search on worker threads, every check), in a child process of its own; a build over 5 s is run three times and the row is its median run. Goals: under 10 s and under 500 MB peak resident memory each. The shipped profile's frame carries 2 drums of at most 1.5 m, so a larger machine fails the layout check and says what to change (tests/core/checks/lgsynth91.test.ts builds every machine with every check passing under a profile that allows more drums).",
     '',
     '| machine | states (→ minimised) | build s | search s (share) | checks s | parts cost | peak RSS MB | checks |',
     '|---|---|---|---|---|---|---|---|',
@@ -72,7 +87,7 @@ export async function benchBuildTable(opts: { readonly quick: boolean }): Promis
   const saved: { fixtures: number[]; examples: number[] } = { fixtures: [], examples: [] };
   for (const name of names) {
     process.stdout.write(`bench: build ${name}…\n`);
-    const r = await buildInChild(`${FIXTURES}/${name}.json`);
+    const r = await medianBuild(`${FIXTURES}/${name}.json`);
     if (typeof r !== 'string' && r.ms > slowest.ms) slowest = { name, ms: r.ms };
     lines.push(row(name, r));
     pushSaved(saved.fixtures, r);
