@@ -1,7 +1,8 @@
 /**
  * The build table of `npm run bench`: every LGSynth'91 machine built as the command line
  * builds it (the encoding search on worker threads, every check), each in a child process
- * (build-one.ts) so that its peak resident memory is its own; then the growth of the build
+ * (build-one.ts) so that its peak resident memory is its own (a build over 5 s three times,
+ * its median run kept); then the growth of the build
  * time per doubling of states on random machines of 4–128 states (4 inputs, 2 outputs).
  * `--quick` builds a subset (three small machines, 4–16 states) in about a minute on a loaded 2-core machine.
  * Goals (issue figures): every machine under 10 s and under 500 MB.
