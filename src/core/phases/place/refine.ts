@@ -13,12 +13,14 @@
  * kept): in turn, each free unit is tried on every drum its cords reach; it moves where the
  * gain is largest if that drum has room for it, and otherwise swaps with the unit there that
  * gives the largest joint gain and keeps both drums within the longest allowed. Passes repeat
- * while one gains. The cost along the channels is left to the arrangement that follows.
+ * while one gains (at most MAX_PASSES), each after the first trying only the units that share a
+ * cord with one that moved. The cost along the channels is left to the arrangement that follows.
  *
  * Pre: every unit has a drum in [0, drums); fixed units (`fixedDrum` ≥ 0) are on theirs.
  * Post: fixed units stay; no drum that was within `longestM` goes over it, nor below the bays
  * its pins need (`baysNeeded`: a pin to bay k needs k bays on its drum) if it had them; the
- * vertical cost never rises. Deterministic (units in index order, drums in increasing order, ties kept).
+ * vertical cost never rises. Deterministic (units in index order, drums in increasing order,
+ * ties to the move, then to the lower unit).
  */
 import type { FrameUnits } from './units.js';
 
