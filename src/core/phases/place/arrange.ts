@@ -145,9 +145,9 @@ function drumProblem(
 }
 
 /**
- * Nets with points on other drums a state of the exact method may carry before a drum is left
- * to the heuristic: the exact method's work grows with its states times the nets it must sort
- * by their fixed points at each. Measured on s298 and s1488 (many drums): solved exactly, the
+ * How much more work than its subsets the exact method may do on one drum before the drum is
+ * left to the heuristic: at each subset it sorts the nets with points on other drums by those
+ * fixed points, so its work grows with its subsets times (1 + those nets). Measured on s298 and s1488 (many drums): solved exactly, the
  * drums past 2^16 × 4 took an eighth and a quarter of their placement's time, and the heuristic
  * found the same cord within 0.01 %.
  */
@@ -258,7 +258,6 @@ export function arrangeDrums(
   const flipped = new Array<boolean>(fu.units.length).fill(false);
   const methods = new Array<DrumMethod>(drums).fill(s.mode === 'netlist' ? 'netlist' : 'exact');
   const unmet: number[] = [];
-  let at: Positions | undefined;
   let best: { at: Positions; cost: number } | undefined;
   const rounds = drums > 1 && s.mode === 'optimise' ? ROUNDS : 1;
   // Many drums share the kicks of about three, so the work grows with the machine, not with drums × kicks.
@@ -293,7 +292,7 @@ export function arrangeDrums(
       layDrum(fu, d, orders[d], flipped, live);
       done.add(d);
     }
-    at = positionsOf(fu, drums, orders, flipped, methods);
+    const at = positionsOf(fu, drums, orders, flipped, methods);
     const cost = channelLength(cords, at);
     if (!best || cost < best.cost - 1e-12) best = { at, cost };
   }

@@ -56,10 +56,9 @@ describe('cord between drums, in drum levels', () => {
   });
 
   it('counts a drop shared by branches below once, and each branch above on its own', () => {
-    // One capstan on drum 2 (0-based) with three branches, two on drum 0 and one on drum 1: its
-    // drop reaches drum 0's channel, 2 levels, whatever the branches there. With the capstan on
-    // drum 0, the branches above rise 1 + 2 levels... (drum 1 and drum 2 are empty here, so
-    // only the split of the levers matters).
+    // One capstan with three branches: two to gate p (ports a and b), one to gate q. Capstan on
+    // drum 2 (0-based), p on drum 0, q on drum 1: one drop to drum 0's channel, 2 levels, shared
+    // by all three. Capstan on drum 0, p on 1, q on 2: each branch rises on its own, 1 + 1 + 2.
     const n: Netlist = {
       parts: [
         { kind: 'gate', id: 'd', name: 'd', role: 'term', ports: [{ name: 'a' }] },
