@@ -197,7 +197,8 @@ function tryUnit(s: Split, u: number, fixedDrum: Int32Array, seen: Int32Array): 
       if (g > best.gain) best = { gain: g, to, swap: -1 };
       continue;
     }
-    // No room: swap with a unit there that fits where u was, priced by both moves.
+    // No room there (or u's drum would lose bays its pins need): swap with a unit there that fits
+    // where u was, priced by both moves.
     for (const v of s.onDrum[to]) {
       const [wv, kv] = [s.widthOf[v], s.baysOf[v]];
       if (fixedDrum[v] !== -1 || !s.fits(to, w - wv, k - kv) || !s.fits(from, wv - w, kv - k)) continue;
