@@ -84,10 +84,12 @@ function stableJson(v: unknown): string {
 /** What the shell adds on its own thread: the clock for a time budget, and progress. */
 export type SearchExtras = Pick<EncodeOptions, 'now' | 'onProgress'> & { readonly millis?: number };
 
+/** The mapper splits no cord by count: buffer trees come from the force budget (balanced). One function, so a synthesis memo sees one rule. */
+const NO_FANOUT_LIMIT = (): boolean => false;
+
 /** The synthesis options of a build under this setup (unused codes as given, or sent to a state). */
 export function synthesisOptions(s: SearchSetup, unusedCodes: 'dont-care' | number = s.unusedCodes): SynthesisOptions {
-  // Buffer trees come from the force budget (balanced), not from a fixed fan-out limit.
-  return { profile: s.profile, unusedCodes, actuators: s.actuators, tooMany: () => false };
+  return { profile: s.profile, unusedCodes, actuators: s.actuators, tooMany: NO_FANOUT_LIMIT };
 }
 
 /** Whether a build with free unused codes is rebuilt with them sent to the start state: it has unused codes and could lock up in them. */
