@@ -171,7 +171,7 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
     const diagnostics = [...a.diagnostics, ...encoded.diagnostics];
     if (!encoded.encoding || hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
     const encoding = encoded.encoding;
-    const { build, toStart } = synthesised(f, encoding, setup, profile, opts);
+    const { build, toStart } = synthesised(f, encoding, setup, profile, opts, encoded.kept);
     if (toStart)
       diagnostics.push(
         diag(
@@ -211,7 +211,8 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
  * The build of these codes: synthesise → balance drive, and when unused codes are free by
  * default and the build could lock up in them, again with the split-by-bit guard or with
  * unused codes sent to the start state (`recovered`). The syntheses share one memo
- * (synthesise.ts), and the guard's cost against an unguarded minimisation (`GuardReport`) is
+ * (synthesise.ts), seeded with the minimisations the search made pricing these codes
+ * (`kept`, when it priced them; search.ts `searchPricing`), and the guard's cost against an unguarded minimisation (`GuardReport`) is
  * measured only for the build that is kept: the others are made without it (it changes
  * nothing but the report) and the kept one made again with it, its covers and mappings from
  * the memo. The result is the build the steps would give one by one.
@@ -222,8 +223,9 @@ function synthesised(
   setup: SearchSetup,
   profile: Profile,
   opts: AnalyseOptions,
+  kept: unknown,
 ): { build: Build; toStart: boolean } {
-  const memo = synthesisMemo();
+  const memo = synthesisMemo(kept);
   const make = (unused: 'dont-care' | number, guard: GuardMethod | undefined, guardBaseline: boolean): Build =>
     balanced(
       synthesise(f, encoding, { ...synthesisOptions(setup, unused), ...(guard ? { guard } : {}), guardBaseline, memo }),

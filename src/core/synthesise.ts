@@ -75,9 +75,29 @@ export interface SynthesisMemo {
   readonly balanced: Map<Build['netlist'], Build['netlist']>;
 }
 
-/** An empty memo for the syntheses of one build (see SynthesisMemo). */
-export function synthesisMemo(): SynthesisMemo {
-  return { excited: new Map(), minimised: new Map(), mapped: new Map(), balanced: new Map() };
+/**
+ * A memo for the syntheses of one build (see SynthesisMemo), empty or holding minimisations
+ * made elsewhere (`keptMinimisations` of another memo, e.g. from a search on another thread):
+ * an entry pairs a function, as its key, with the cover the default minimiser gives it, so it
+ * answers that function in any synthesis. Anything not shaped as such is left out.
+ */
+export function synthesisMemo(kept?: unknown): SynthesisMemo {
+  const minimised = new Map<string, SopCover>();
+  if (Array.isArray(kept))
+    for (const entry of kept as unknown[])
+      if (Array.isArray(entry) && typeof entry[0] === 'string' && isCover(entry[1])) minimised.set(entry[0], entry[1]);
+  return { excited: new Map(), minimised, mapped: new Map(), balanced: new Map() };
+}
+
+/** The minimisations of a memo as plain data (key and cover pairs), for `synthesisMemo` elsewhere. */
+export function keptMinimisations(memo: SynthesisMemo): [string, SopCover][] {
+  return [...memo.minimised];
+}
+
+function isCover(v: unknown): v is SopCover {
+  if (typeof v !== 'object' || v === null) return false;
+  const c = v as Partial<Record<keyof SopCover, unknown>>;
+  return typeof c.vars === 'number' && typeof c.functions === 'number' && Array.isArray(c.terms);
 }
 
 /** The memo when it belongs to this synthesis (binding an unused one to it), else undefined. */
