@@ -93,41 +93,42 @@ export function paperFor(w: number, h: number): string {
 /** A channel run of one branch and its lane. */
 interface Lane {
   readonly branch: BranchRoute;
-  readonly channelY: number;
+  /** The drum whose channel the run lies in, as the routing recorded it. */
+  readonly channelDrum: number;
   readonly lane: number;
 }
 
 /** Which side of its capstan a run along the channel goes (0 left, 1 right), as routing.ts serves them. */
 const sideOf = (run: CordRun): number => (run.to.xM < run.from.xM ? 0 : 1);
-/** The key of one side of one cord's tree in one channel. */
-const sideKey = (cord: string, run: CordRun): string => `${cord}|${run.from.yM}|${sideOf(run)}`;
+/** The key of one side of one cord's tree in one channel (the channel by its drum, as routed). */
+const sideKey = (cord: string, run: CordRun): string => `${cord}|${run.drum}|${sideOf(run)}`;
 
 /**
  * Lanes per channel by the left-edge algorithm: the channel runs of every cord's tree (each drawn
  * once, by the branch that owns it), sorted by their left end, each in the first lane free there.
+ * Channels are keyed by the drum each run records; `count` gives each drum's channel its lanes.
  */
 function assignLanes(branches: readonly BranchRoute[]): { lanes: Map<BranchRoute, Lane>; count: Map<number, number> } {
   const byChannel = new Map<number, { b: BranchRoute; lo: number; hi: number }[]>();
   for (const b of branches) {
     const run = b.own.find((r) => r.kind === 'channel');
     if (!run) continue;
-    const y = run.from.yM;
-    const list = byChannel.get(y) ?? [];
+    const list = byChannel.get(run.drum) ?? [];
     list.push({ b, lo: Math.min(run.from.xM, run.to.xM), hi: Math.max(run.from.xM, run.to.xM) });
-    byChannel.set(y, list);
+    byChannel.set(run.drum, list);
   }
   const lanes = new Map<BranchRoute, Lane>();
   const count = new Map<number, number>();
-  for (const [y, list] of byChannel) {
+  for (const [drum, list] of byChannel) {
     list.sort((a, b) => a.lo - b.lo || a.hi - b.hi);
     const ends: number[] = [];
     for (const it of list) {
       let k = ends.findIndex((e) => e < it.lo - 1e-9);
       if (k === -1) k = ends.push(it.hi) - 1;
       else ends[k] = it.hi;
-      lanes.set(it.b, { branch: it.b, channelY: y, lane: k });
+      lanes.set(it.b, { branch: it.b, channelDrum: drum, lane: k });
     }
-    count.set(y, ends.length);
+    count.set(drum, ends.length);
   }
   return { lanes, count };
 }
@@ -269,9 +270,10 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   };
   const width = Math.max(230, 2 * MARGIN + lengthM * k + 16);
   const body: string[] = [DEFS];
+  /** The row of bay numbers under drum d's channel and its lanes. */
   const bayRowY = (d: number): number => {
-    const cy = (d - 1) * f.drumSpacingM - f.channelBelowDrumM;
-    return sheet.Y(cy) + sheet.laneStart + (count.get(cy) ?? 0) * laneMm + FONT + 0.8;
+    const cy = (placement.drums.find((x) => x.drum === d)?.levelM ?? (d - 1) * f.drumSpacingM) - f.channelBelowDrumM;
+    return sheet.Y(cy) + sheet.laneStart + (count.get(d) ?? 0) * laneMm + FONT + 0.8;
   };
   for (const d of placement.drums) {
     const spaceMm =
@@ -287,9 +289,7 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
       }),
     );
   }
-  const rowUnder = (channelY: number): number =>
-    sheet.Y(channelY) + sheet.laneStart + (count.get(channelY) ?? 0) * laneMm + FONT + 0.8;
-  body.push(...cordRuns(sheet, placement, profile, { lanes, rowUnder, screen: options.palette === 'screen' }));
+  body.push(...cordRuns(sheet, placement, profile, { lanes, rowUnder: bayRowY, screen: options.palette === 'screen' }));
   const exits = placement.routing.branches.some((b) => b.kind === 'actuator');
   let y = bayRowY(1) + (exits ? 7.5 : 4);
   body.push(...endWords(sheet, placement, y));
@@ -461,7 +461,8 @@ function cordRuns(
   profile: Profile,
   how: {
     lanes: ReadonlyMap<BranchRoute, Lane>;
-    rowUnder: (channelY: number) => number;
+    /** The row under a drum's channel and its lanes (where cords leaving the frame are named). */
+    rowUnder: (channelDrum: number) => number;
     screen: boolean;
   },
 ): string[] {
@@ -505,7 +506,7 @@ function cordRuns(
           last.from,
           b.runs.find((r) => r.kind === 'channel'),
         );
-        const row = how.rowUnder(last.from.yM);
+        const row = how.rowUnder(last.drum);
         out.push(
           `<path d="M${r2(at.x)},${r2(at.y)} L${r2(at.x)},${r2(row - FONT - 0.4)}" class="cord" marker-end="url(#arrow)" />`,
         );
