@@ -252,7 +252,7 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
       return {
         width: svg?.getAttribute('width') ?? '',
         shownPx: svg?.getBoundingClientRect().width ?? 0,
-        text: svg?.textContent ?? '',
+        text: [...(svg?.querySelectorAll('text') ?? [])].map((t) => t.textContent).join(' '),
         style: d?.querySelector('style')?.textContent ?? '',
         cords: svg?.querySelectorAll('path.cord[data-cord]').length ?? 0,
       };

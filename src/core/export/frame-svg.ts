@@ -35,7 +35,7 @@ import type { Profile } from '../physics/profile.js';
 import type { BranchRoute, CordRun, RoutePoint } from '../physics/routing.js';
 import { escapeXml as x } from './escape.js';
 import { partWords } from './part-words.js';
-import { clip, round1 as r1, svgDocument, svgText } from './svg.js';
+import { clip, round1 as r1, svgDocument, svgText, wrapWords } from './svg.js';
 
 /** Usual drawing scales, 1:s. */
 const SCALES = [1, 2, 5, 10, 20, 25, 50, 100, 200, 500, 1000];
@@ -53,6 +53,9 @@ const SHEETS: readonly (readonly [string, number, number])[] = [
 ];
 const MARGIN = 10;
 const FONT = 2.2;
+/** Font sizes of the title block's `sub` and `note` lines, mm (as in STYLE). */
+const SUB_FONT = 2.6;
+const NOTE_FONT = 2.3;
 const GLYPH = 0.56;
 /** Height of a lever's end shown above the rail (a drawing convention, not a dimension). */
 const LEVER_END_M = 0.05;
@@ -258,7 +261,11 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   const label = (b: PlacedBayInfo): string => `${b.bay} · ${words.get(b.part) ?? b.part}`;
   const topBays = placement.bays.filter((b) => b.drum === placement.drums.length);
   const topLabelMm = Math.min(80, Math.max(10, ...topBays.map((b) => label(b).length * FONT * GLYPH))) + 2;
-  const titleMm = 26;
+  const width = Math.max(230, 2 * MARGIN + lengthM * k + 16);
+  const heightM = worldTop + f.channelBelowDrumM;
+  // The sheet is known only once the drawing's height is; its words are reserved at their widest.
+  const reserved = titleLines(build, placement, profile, { scale, lengthM, heightM, paper: WIDEST_PAPER, width });
+  const titleMm = 10 + 4 * reserved.length;
   const originY = MARGIN + titleMm + topLabelMm + worldTop * k;
   const sheet: Sheet = {
     k,
@@ -269,7 +276,6 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
     X: (v) => MARGIN + v * k,
     Y: (v) => originY - v * k,
   };
-  const width = Math.max(230, 2 * MARGIN + lengthM * k + 16);
   const body: string[] = [DEFS];
   /** The row of bay numbers under drum d's channel and its lanes. */
   const bayRowY = (d: number): number => {
@@ -303,12 +309,10 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   const key = keyLines(build, placement, words, width, foot.bottom + 4);
   body.push(...key.items);
   const height = key.bottom + MARGIN;
-  const head = titleBlock(build, placement, profile, {
-    scale,
-    lengthM,
-    heightM: worldTop + f.channelBelowDrumM,
-    paper: paperFor(width, height),
-  });
+  const head = titleBlock(
+    build,
+    titleLines(build, placement, profile, { scale, lengthM, heightM, paper: paperFor(width, height), width }),
+  );
   const screen = options.palette === 'screen';
   return svgDocument(
     width,
@@ -322,47 +326,53 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   );
 }
 
-/** The title, what the drawing shows and at what scale, the overall figures and the drawing conventions. */
-function titleBlock(
+/** The widest sheet phrase the title can name, to reserve the title's lines before the sheet is known. */
+const WIDEST_PAPER = 'A0 sheet, landscape,';
+
+/**
+ * The title, what the drawing shows and at what scale, the overall figures and the drawing
+ * conventions: each sentence wrapped to the drawing's width (`width`, mm) in lines of its class.
+ */
+function titleLines(
   build: Build,
   placement: Placement,
   profile: Profile,
-  size: { scale: number; lengthM: number; heightM: number; paper: string },
-): string[] {
+  size: { scale: number; lengthM: number; heightM: number; paper: string; width: number },
+): { text: string; cls: 'sub' | 'note' }[] {
   const f = profile.frame;
   const r = profile.drumRadiusM;
   const { scale, lengthM } = size;
   const frameHeightM = size.heightM;
+  const sentences: { text: string; cls: 'sub' | 'note' }[] = [
+    {
+      text: `Front elevation: visitor end on the left, crank end (crank and cam shaft) on the right. Scale 1:${scale} when printed at 100 %${size.paper === '' ? '' : ` on an ${size.paper} or larger`}.`,
+      cls: 'sub',
+    },
+    {
+      text: `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${r1(2 * r * 1000)} mm, ${placement.drums.map((d) => m(d.lengthM)).join(' and ')} long; overall ${m(lengthM)} × ${m(frameHeightM)}; ${placement.bays.length} bays; ${m(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${r1(f.pulleyDiameterM * 1000)} mm)`}, one at each corner of a cord's tree and where each branch rises.`,
+      cls: 'sub',
+    },
+    {
+      text: 'A cord drops once and splits at knots in the channel; runs along a channel all lie at its level and are drawn apart below it so each can be followed. Levers are shown end on.',
+      cls: 'note',
+    },
+    {
+      text: 'Cords tied to one lever rise side by side across it, each on a line of its own, one pulley each where it turns up.',
+      cls: 'note',
+    },
+  ];
+  const chars = (cls: 'sub' | 'note'): number =>
+    Math.floor((size.width - 2 * MARGIN) / ((cls === 'sub' ? SUB_FONT : NOTE_FONT) * GLYPH));
+  return sentences.flatMap(({ text, cls }) =>
+    wrapWords(text, chars(cls), Number.MAX_SAFE_INTEGER).map((line) => ({ text: line, cls })),
+  );
+}
+
+/** The title block's items: the title, then its lines (titleLines) 4 mm apart. */
+function titleBlock(build: Build, lines: readonly { text: string; cls: string }[]): string[] {
   return [
     svgText(MARGIN, MARGIN + 4, `Frame — ${build.machine.name}`, 'title', 'start'),
-    svgText(
-      MARGIN,
-      MARGIN + 9,
-      `Front elevation: visitor end on the left, crank end (crank and cam shaft) on the right. Scale 1:${scale} when printed at 100 %${size.paper === '' ? '' : ` on an ${size.paper} or larger`}.`,
-      'sub',
-      'start',
-    ),
-    svgText(
-      MARGIN,
-      MARGIN + 13,
-      `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${r1(2 * r * 1000)} mm, ${placement.drums.map((d) => m(d.lengthM)).join(' and ')} long; overall ${m(lengthM)} × ${m(frameHeightM)}; ${placement.bays.length} bays; ${m(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${r1(f.pulleyDiameterM * 1000)} mm)`}, one at each corner of a cord's tree and where each branch rises.`,
-      'sub',
-      'start',
-    ),
-    svgText(
-      MARGIN,
-      MARGIN + 17,
-      'A cord drops once and splits at knots in the channel; runs along a channel all lie at its level and are drawn apart below it so each can be followed. Levers are shown end on.',
-      'note',
-      'start',
-    ),
-    svgText(
-      MARGIN,
-      MARGIN + 21,
-      'Cords tied to one lever rise side by side across it, each on a line of its own, one pulley each where it turns up.',
-      'note',
-      'start',
-    ),
+    ...lines.map((l, i) => svgText(MARGIN, MARGIN + 9 + 4 * i, l.text, l.cls, 'start')),
   ];
 }
 

@@ -29,9 +29,31 @@ describe('core/export/frame-svg', () => {
       const heightM = top + f.railAboveDrumM + 0.05 + f.channelBelowDrumM;
       const scale = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)), heightM);
       expect((heightM * 1000) / scale, name).toBeLessThanOrEqual(MAX_HEIGHT_MM);
-      expect(svg, name).toContain(
+      // The title block's lines, wrapped to the sheet, read as one text.
+      const title = [...svg.matchAll(/<text [^>]*class="(?:sub|note)"[^>]*>([^<]*)<\/text>/g)]
+        .map((t) => t[1])
+        .join(' ');
+      expect(title, name).toContain(
         `Scale 1:${scale} when printed at 100 % on an ${paperFor(+root![1], +root![2])} or larger`,
       );
+    }
+  });
+
+  it('wraps the title block to the drawing: no line runs past the right margin', () => {
+    for (const name of exampleNames()) {
+      const b = example(name);
+      const svg = frameSvg(b.build, b.placement, b.profile);
+      const width = Number(/<svg [^>]*width="(\d+)mm"/.exec(svg)?.[1]);
+      const lines = [...svg.matchAll(/<text x="10" y="([\d.]+)" class="(sub|note)"[^>]*>([^<]*)<\/text>/g)].filter(
+        (t) => Number(t[1]) < 40,
+      );
+      expect(lines.length, name).toBeGreaterThanOrEqual(4);
+      for (const [, , cls, text] of lines) {
+        // Font sizes as the drawing's style sets them; 0.56 em, the average advance of a sans glyph (an estimate).
+        const size = cls === 'sub' ? 2.6 : 2.3;
+        const chars = [...text.replace(/&#?\w+;/g, '_')].length;
+        expect(10 + chars * size * 0.56, `${name}: ${text}`).toBeLessThanOrEqual(width - 10);
+      }
     }
   });
 
