@@ -131,8 +131,7 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
   });
 
   it("lights one cord's run and its two ends when pointed at, tabbed to or tapped", async () => {
-    // A branch cut with a run along the channel of its own: a branch that only rises from a knot can
-    // share its whole drawn line with another cord's rise to the same lever.
+    // A branch cut with a run along the channel of its own (a branch cut as its rise alone comes below).
     const b = ref.placement.routing.branches.find(
       (x) => x.kind === 'port' && x.driver !== x.part && x.own.some((r) => r.kind === 'channel'),
     );
@@ -179,6 +178,17 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
     expect(await litNow()).toEqual([`${b.cord}→${b.target}`]);
     // A tap elsewhere in the drawing lets it go.
     await page.locator('lw-frame .sheet svg rect.page').dispatchEvent('click');
+    expect(await litNow()).toEqual([]);
+    // A branch cut as its rise alone, to a lever other cords are tied to as well: it rises on a line of its
+    // own beside theirs, so pointing at it lights it and no other.
+    const tiedTo = (t: string): number => ref.placement.routing.branches.filter((x) => x.target === t).length;
+    const riser = ref.placement.routing.branches.find(
+      (x) => x.kind === 'port' && x.own.length === 1 && x.own[0].kind === 'rise' && tiedTo(x.target) > 1,
+    );
+    if (!riser) throw new Error('the example has a lever with two cords, one only rising from a knot');
+    await pointAt(riser.cord, riser.target);
+    expect(await litNow()).toEqual([`${riser.cord}→${riser.target}`]);
+    await page.mouse.move(1, 1);
     expect(await litNow()).toEqual([]);
   });
 
@@ -242,7 +252,7 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
       return {
         width: svg?.getAttribute('width') ?? '',
         shownPx: svg?.getBoundingClientRect().width ?? 0,
-        text: svg?.textContent ?? '',
+        text: [...(svg?.querySelectorAll('text') ?? [])].map((t) => t.textContent).join(' '),
         style: d?.querySelector('style')?.textContent ?? '',
         cords: svg?.querySelectorAll('path.cord[data-cord]').length ?? 0,
       };

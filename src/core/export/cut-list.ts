@@ -7,9 +7,10 @@
  * the drum, its wraps, and a knot — and one piece per branch. A cord that leaves its bay runs as
  * a tree (one drop, a run each way along each channel it uses, a rise to every lever), and each
  * branch's piece is the part of the tree it owns: the row says where it is tied on (at the drum,
- * in the drop, or at a knot in the channel) and where it goes. A piece's length is its own runs
- * plus a knot allowance at each end plus the take-up allowance. The cord's total is trunk plus
- * pieces. Cords are listed by where their capstan sits, drum by drum from the visitor end.
+ * in the drop, or at a knot in the channel, each channel named by the drum the routing recorded
+ * for the run) and where it goes. A piece's length is its own runs plus a knot allowance at each
+ * end plus the take-up allowance. The cord's total is trunk plus pieces. Cords are listed by
+ * where their capstan sits, drum by drum from the visitor end.
  * Lengths in metres to the millimetre, rounded up so that no piece is cut short.
  * The safety cautions come first (as in every document), then the rows; every cell goes through
  * csv.ts (RFC 4180, spreadsheet formula injection escaped).
@@ -99,7 +100,7 @@ function cordRows(build: Build, placement: Placement, profile: Profile): CutRow[
         ...(b.pulleys > 0 ? [`${b.pulleys} ${b.pulleys === 1 ? 'pulley' : 'pulleys'}`] : []),
         ...(b.pins.length > 0 ? [`${b.pins.length} ${b.pins.length === 1 ? 'pin' : 'pins'}`] : []),
       ];
-      const piece = pieceWords(b, at, profile);
+      const piece = pieceWords(b, at);
       rows.push({
         ...base,
         piece: `branch to ${b.target}`,
@@ -121,17 +122,10 @@ function cordRows(build: Build, placement: Placement, profile: Profile): CutRow[
   return rows;
 }
 
-/** The drum whose channel lies at height `yM` (channels run channelBelowDrumM under each drum's axis). */
-function channelDrum(yM: number, profile: Profile): number {
-  const f = profile.frame;
-  return Math.round((yM + f.channelBelowDrumM) / f.drumSpacingM) + 1;
-}
-
 /** Where a branch's piece is tied on, and its runs in words: `down to drum 1's channel, along it to bay 9, up to the lever`. */
 function pieceWords(
   b: BranchRoute,
   at: ReadonlyMap<string, { readonly bay: number; readonly drum: number }>,
-  profile: Profile,
 ): { tied: string; runs: string } {
   const from = at.get(b.driver);
   const to = at.get(b.part);
@@ -139,21 +133,20 @@ function pieceWords(
   const first = b.own[0] as CordRun | undefined;
   if (!first || first.kind === 'direct')
     return { tied: `from the drum, ${under(from)}`, runs: 'rises straight to its lever' };
+  // Each run's channel is the drum the routing recorded when it laid the run (never worked out from a height).
   const words = b.own.map((r) => {
-    const ch = channelDrum(r.to.yM, profile);
-    if (r.kind === 'drop') return `down to drum ${ch}'s channel`;
+    if (r.kind === 'drop') return `down to drum ${r.drum}'s channel`;
     if (r.kind === 'channel') return `along it to ${to ? `bay ${to.bay}` : 'its lever'}`;
     return r.kind === 'rise' ? 'up to its lever' : 'out of the frame';
   });
-  const knot = channelDrum(first.from.yM, profile);
   const tied =
     first.kind === 'drop'
-      ? first.from.yM >= (b.runs[0]?.from.yM ?? first.from.yM) - 1e-9
+      ? first.knotDrum === undefined
         ? `from the drum, ${under(from)}`
-        : `tied on in the drop under ${under(from)}, at drum ${knot}'s channel`
+        : `tied on in the drop under ${under(from)}, at drum ${first.knotDrum}'s channel`
       : first.kind === 'channel'
-        ? `tied on at the foot of the drop under ${under(from)}, in drum ${knot}'s channel`
-        : `tied on at the knot under ${under(to)}, in drum ${knot}'s channel`;
+        ? `tied on at the foot of the drop under ${under(from)}, in drum ${first.drum}'s channel`
+        : `tied on at the knot under ${under(to)}, in drum ${first.drum}'s channel`;
   return { tied, runs: words.join(', ') };
 }
 

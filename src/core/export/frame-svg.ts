@@ -11,11 +11,12 @@
  * to lever ends, into MAX_HEIGHT_MM) maps metres to millimetres on paper, and the SVG's width
  * and height are in millimetres, so a print at 100 % is to scale; the title names the smallest
  * ISO 216 sheet that holds the whole drawing at that size.
- * Two drawing conventions, said on the drawing: runs along a cord channel, which all lie at
+ * Drawing conventions, said on the drawing: runs along a cord channel, which all lie at
  * the channel's level, are drawn apart in lanes below it so each can be followed (lanes by the
  * left-edge algorithm: A. Hashimoto & J. Stevens, "Wire routing by optimizing channel
  * assignment within large apertures", 8th Design Automation Workshop, 1971 — from memory);
- * a lever is shown as the end of its blank, LEVER_END_M tall. Cords are coloured from the
+ * a lever is shown as the end of its blank, LEVER_END_M tall, and the cords tied to one lever rise
+ * side by side across it (riseShifts), each on its own line. Cords are coloured from the
  * palette of M. Okabe & K. Ito, "Color Universal Design" (2008), which colour-blind readers
  * can tell apart. Labels too long for the space between two drums are cut short; the key
  * under the drawing has every bay's words in full.
@@ -34,7 +35,7 @@ import type { Profile } from '../physics/profile.js';
 import type { BranchRoute, CordRun, RoutePoint } from '../physics/routing.js';
 import { escapeXml as x } from './escape.js';
 import { partWords } from './part-words.js';
-import { clip, round1 as r1, svgDocument, svgText } from './svg.js';
+import { clip, round1 as r1, svgDocument, svgText, wrapWords } from './svg.js';
 
 /** Usual drawing scales, 1:s. */
 const SCALES = [1, 2, 5, 10, 20, 25, 50, 100, 200, 500, 1000];
@@ -52,6 +53,9 @@ const SHEETS: readonly (readonly [string, number, number])[] = [
 ];
 const MARGIN = 10;
 const FONT = 2.2;
+/** Font sizes of the title block's `sub` and `note` lines, mm (as in STYLE). */
+const SUB_FONT = 2.6;
+const NOTE_FONT = 2.3;
 const GLYPH = 0.56;
 /** Height of a lever's end shown above the rail (a drawing convention, not a dimension). */
 const LEVER_END_M = 0.05;
@@ -93,41 +97,42 @@ export function paperFor(w: number, h: number): string {
 /** A channel run of one branch and its lane. */
 interface Lane {
   readonly branch: BranchRoute;
-  readonly channelY: number;
+  /** The drum whose channel the run lies in, as the routing recorded it. */
+  readonly channelDrum: number;
   readonly lane: number;
 }
 
 /** Which side of its capstan a run along the channel goes (0 left, 1 right), as routing.ts serves them. */
 const sideOf = (run: CordRun): number => (run.to.xM < run.from.xM ? 0 : 1);
-/** The key of one side of one cord's tree in one channel. */
-const sideKey = (cord: string, run: CordRun): string => `${cord}|${run.from.yM}|${sideOf(run)}`;
+/** The key of one side of one cord's tree in one channel (the channel by its drum, as routed). */
+const sideKey = (cord: string, run: CordRun): string => `${cord}|${run.drum}|${sideOf(run)}`;
 
 /**
  * Lanes per channel by the left-edge algorithm: the channel runs of every cord's tree (each drawn
  * once, by the branch that owns it), sorted by their left end, each in the first lane free there.
+ * Channels are keyed by the drum each run records; `count` gives each drum's channel its lanes.
  */
 function assignLanes(branches: readonly BranchRoute[]): { lanes: Map<BranchRoute, Lane>; count: Map<number, number> } {
   const byChannel = new Map<number, { b: BranchRoute; lo: number; hi: number }[]>();
   for (const b of branches) {
     const run = b.own.find((r) => r.kind === 'channel');
     if (!run) continue;
-    const y = run.from.yM;
-    const list = byChannel.get(y) ?? [];
+    const list = byChannel.get(run.drum) ?? [];
     list.push({ b, lo: Math.min(run.from.xM, run.to.xM), hi: Math.max(run.from.xM, run.to.xM) });
-    byChannel.set(y, list);
+    byChannel.set(run.drum, list);
   }
   const lanes = new Map<BranchRoute, Lane>();
   const count = new Map<number, number>();
-  for (const [y, list] of byChannel) {
+  for (const [drum, list] of byChannel) {
     list.sort((a, b) => a.lo - b.lo || a.hi - b.hi);
     const ends: number[] = [];
     for (const it of list) {
       let k = ends.findIndex((e) => e < it.lo - 1e-9);
       if (k === -1) k = ends.push(it.hi) - 1;
       else ends[k] = it.hi;
-      lanes.set(it.b, { branch: it.b, channelY: y, lane: k });
+      lanes.set(it.b, { branch: it.b, channelDrum: drum, lane: k });
     }
-    count.set(y, ends.length);
+    count.set(drum, ends.length);
   }
   return { lanes, count };
 }
@@ -256,7 +261,11 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   const label = (b: PlacedBayInfo): string => `${b.bay} · ${words.get(b.part) ?? b.part}`;
   const topBays = placement.bays.filter((b) => b.drum === placement.drums.length);
   const topLabelMm = Math.min(80, Math.max(10, ...topBays.map((b) => label(b).length * FONT * GLYPH))) + 2;
-  const titleMm = 22;
+  const width = Math.max(230, 2 * MARGIN + lengthM * k + 16);
+  const heightM = worldTop + f.channelBelowDrumM;
+  // The sheet is known only once the drawing's height is; its words are reserved at their widest.
+  const reserved = titleLines(build, placement, profile, { scale, lengthM, heightM, paper: WIDEST_PAPER, width });
+  const titleMm = 10 + 4 * reserved.length;
   const originY = MARGIN + titleMm + topLabelMm + worldTop * k;
   const sheet: Sheet = {
     k,
@@ -267,11 +276,11 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
     X: (v) => MARGIN + v * k,
     Y: (v) => originY - v * k,
   };
-  const width = Math.max(230, 2 * MARGIN + lengthM * k + 16);
   const body: string[] = [DEFS];
+  /** The row of bay numbers under drum d's channel and its lanes. */
   const bayRowY = (d: number): number => {
-    const cy = (d - 1) * f.drumSpacingM - f.channelBelowDrumM;
-    return sheet.Y(cy) + sheet.laneStart + (count.get(cy) ?? 0) * laneMm + FONT + 0.8;
+    const cy = (placement.drums.find((x) => x.drum === d)?.levelM ?? (d - 1) * f.drumSpacingM) - f.channelBelowDrumM;
+    return sheet.Y(cy) + sheet.laneStart + (count.get(d) ?? 0) * laneMm + FONT + 0.8;
   };
   for (const d of placement.drums) {
     const spaceMm =
@@ -287,9 +296,7 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
       }),
     );
   }
-  const rowUnder = (channelY: number): number =>
-    sheet.Y(channelY) + sheet.laneStart + (count.get(channelY) ?? 0) * laneMm + FONT + 0.8;
-  body.push(...cordRuns(sheet, placement, profile, { lanes, rowUnder, screen: options.palette === 'screen' }));
+  body.push(...cordRuns(sheet, placement, profile, { lanes, rowUnder: bayRowY, screen: options.palette === 'screen' }));
   const exits = placement.routing.branches.some((b) => b.kind === 'actuator');
   let y = bayRowY(1) + (exits ? 7.5 : 4);
   body.push(...endWords(sheet, placement, y));
@@ -302,12 +309,10 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   const key = keyLines(build, placement, words, width, foot.bottom + 4);
   body.push(...key.items);
   const height = key.bottom + MARGIN;
-  const head = titleBlock(build, placement, profile, {
-    scale,
-    lengthM,
-    heightM: worldTop + f.channelBelowDrumM,
-    paper: paperFor(width, height),
-  });
+  const head = titleBlock(
+    build,
+    titleLines(build, placement, profile, { scale, lengthM, heightM, paper: paperFor(width, height), width }),
+  );
   const screen = options.palette === 'screen';
   return svgDocument(
     width,
@@ -321,40 +326,53 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   );
 }
 
-/** The title, what the drawing shows and at what scale, the overall figures and the drawing conventions. */
-function titleBlock(
+/** The widest sheet phrase the title can name, to reserve the title's lines before the sheet is known. */
+const WIDEST_PAPER = 'A0 sheet, landscape,';
+
+/**
+ * The title, what the drawing shows and at what scale, the overall figures and the drawing
+ * conventions: each sentence wrapped to the drawing's width (`width`, mm) in lines of its class.
+ */
+function titleLines(
   build: Build,
   placement: Placement,
   profile: Profile,
-  size: { scale: number; lengthM: number; heightM: number; paper: string },
-): string[] {
+  size: { scale: number; lengthM: number; heightM: number; paper: string; width: number },
+): { text: string; cls: 'sub' | 'note' }[] {
   const f = profile.frame;
   const r = profile.drumRadiusM;
   const { scale, lengthM } = size;
   const frameHeightM = size.heightM;
+  const sentences: { text: string; cls: 'sub' | 'note' }[] = [
+    {
+      text: `Front elevation: visitor end on the left, crank end (crank and cam shaft) on the right. Scale 1:${scale} when printed at 100 %${size.paper === '' ? '' : ` on an ${size.paper} or larger`}.`,
+      cls: 'sub',
+    },
+    {
+      text: `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${r1(2 * r * 1000)} mm, ${placement.drums.map((d) => m(d.lengthM)).join(' and ')} long; overall ${m(lengthM)} × ${m(frameHeightM)}; ${placement.bays.length} bays; ${m(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${r1(f.pulleyDiameterM * 1000)} mm)`}, one at each corner of a cord's tree and where each branch rises.`,
+      cls: 'sub',
+    },
+    {
+      text: 'A cord drops once and splits at knots in the channel; runs along a channel all lie at its level and are drawn apart below it so each can be followed. Levers are shown end on.',
+      cls: 'note',
+    },
+    {
+      text: 'Cords tied to one lever rise side by side across it, each on a line of its own, one pulley each where it turns up.',
+      cls: 'note',
+    },
+  ];
+  const chars = (cls: 'sub' | 'note'): number =>
+    Math.floor((size.width - 2 * MARGIN) / ((cls === 'sub' ? SUB_FONT : NOTE_FONT) * GLYPH));
+  return sentences.flatMap(({ text, cls }) =>
+    wrapWords(text, chars(cls), Number.MAX_SAFE_INTEGER).map((line) => ({ text: line, cls })),
+  );
+}
+
+/** The title block's items: the title, then its lines (titleLines) 4 mm apart. */
+function titleBlock(build: Build, lines: readonly { text: string; cls: string }[]): string[] {
   return [
     svgText(MARGIN, MARGIN + 4, `Frame — ${build.machine.name}`, 'title', 'start'),
-    svgText(
-      MARGIN,
-      MARGIN + 9,
-      `Front elevation: visitor end on the left, crank end (crank and cam shaft) on the right. Scale 1:${scale} when printed at 100 %${size.paper === '' ? '' : ` on an ${size.paper} or larger`}.`,
-      'sub',
-      'start',
-    ),
-    svgText(
-      MARGIN,
-      MARGIN + 13,
-      `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${r1(2 * r * 1000)} mm, ${placement.drums.map((d) => m(d.lengthM)).join(' and ')} long; overall ${m(lengthM)} × ${m(frameHeightM)}; ${placement.bays.length} bays; ${m(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${r1(f.pulleyDiameterM * 1000)} mm)`}, one at each corner of a cord's tree and where each branch rises.`,
-      'sub',
-      'start',
-    ),
-    svgText(
-      MARGIN,
-      MARGIN + 17,
-      'A cord drops once and splits at knots in the channel; runs along a channel all lie at its level and are drawn apart below it so each can be followed. Levers are shown end on.',
-      'note',
-      'start',
-    ),
+    ...lines.map((l, i) => svgText(MARGIN, MARGIN + 9 + 4 * i, l.text, l.cls, 'start')),
   ];
 }
 
@@ -386,7 +404,7 @@ function drumBody(
   }
   out.push(line(s.X(lengthM), s.Y(channelY), s.X(lengthM), s.Y(railY + LEVER_END_M), 'bay'));
   out.push(line(s.X(0), s.Y(railY), s.X(lengthM), s.Y(railY), 'rail'));
-  const leverW = Math.max(0.4, f.leverThicknessM * s.k);
+  const leverW = leverMm(s, f);
   for (const b of bays) {
     for (const lv of b.levers) {
       if (lv.name === 'exit') continue;
@@ -408,18 +426,64 @@ function drumBody(
 /** The lever a branch is tied to: its port (the target is `gate.port`), or 'exit' for an actuator. */
 const leverOf = (b: BranchRoute): string => (b.kind === 'port' ? b.target.slice(b.part.length + 1) : 'exit');
 
-/** Where a branch's runs are drawn: channel runs in the lane of the tree's run on that side of the channel. */
+/** Smallest step between two cords rising side by side across one lever, mm on paper: the cord's stroke and a gap. */
+const RISE_STEP_MM = 0.6;
+
+/** A lever end's drawn width, mm on paper: the blank's thickness to scale, never thinner than can be seen. */
+const leverMm = (s: Sheet, f: Profile['frame']): number => Math.max(0.4, f.leverThicknessM * s.k);
+
+/**
+ * Where each branch rises across the lever it is tied to, mm on paper from the lever's centre.
+ * Cords tied to one lever rise side by side, each on its own line all the way up: ordered by
+ * where their capstans sit (visitor end first), then by cord; the lever's drawn width shared
+ * out, at least RISE_STEP_MM apart, and never past the lever's share of its bay, so the drawing
+ * stays to scale. A cord alone on its lever rises at its centre (no entry).
+ */
+function riseShifts(s: Sheet, placement: Placement, f: Profile['frame']): Map<BranchRoute, number> {
+  const byLever = new Map<string, BranchRoute[]>();
+  for (const b of placement.routing.branches) {
+    const key = `${b.part}\u0000${leverOf(b)}`;
+    byLever.set(key, [...(byLever.get(key) ?? []), b]);
+  }
+  const bays = new Map(placement.bays.map((b) => [b.part, b]));
+  const out = new Map<BranchRoute, number>();
+  for (const list of byLever.values()) {
+    if (list.length < 2) continue;
+    const bay = bays.get(list[0].part);
+    const shareMm = bay ? (bay.widthM / Math.max(1, bay.levers.length)) * s.k : leverMm(s, f);
+    const step = Math.min(Math.max(leverMm(s, f) / list.length, RISE_STEP_MM), shareMm / list.length);
+    const capstan = (b: BranchRoute): number => b.runs[0]?.from.xM ?? 0;
+    const sorted = [...list].sort(
+      (a, b) => capstan(a) - capstan(b) || (a.cord < b.cord ? -1 : a.cord > b.cord ? 1 : 0),
+    );
+    sorted.forEach((b, j) => out.set(b, (j - (list.length - 1) / 2) * step));
+  }
+  return out;
+}
+
+/**
+ * Where a branch's runs are drawn: channel runs in the lane of the tree's run on that side of the
+ * channel; its end at its lever (the end of its run along the channel, its rise or exit) moved
+ * `shift` mm across the lever, so that cords tied to one lever rise on lines of their own.
+ */
 interface Pen {
   readonly s: Sheet;
   readonly hostLane: ReadonlyMap<string, number>;
   readonly cord: string;
+  readonly shift: number;
 }
 
-/** A point of a run on paper; `inChannel`, at the lane of the channel run that carries it there. */
-function penAt(pen: Pen, p: RoutePoint, inChannel: CordRun | undefined): { x: number; y: number } {
+/**
+ * A point of a run on paper; `inChannel`, at the lane of the channel run that carries it there;
+ * `atLever`, moved across the lever by the branch's shift.
+ */
+function penAt(pen: Pen, p: RoutePoint, inChannel: CordRun | undefined, atLever = false): { x: number; y: number } {
   const { s } = pen;
   const lane = inChannel ? pen.hostLane.get(sideKey(pen.cord, inChannel)) : undefined;
-  return { x: s.X(p.xM), y: lane === undefined ? s.Y(p.yM) : s.Y(p.yM) + s.laneStart + lane * s.laneMm };
+  return {
+    x: s.X(p.xM) + (atLever ? pen.shift : 0),
+    y: lane === undefined ? s.Y(p.yM) : s.Y(p.yM) + s.laneStart + lane * s.laneMm,
+  };
 }
 
 /** The polyline of some runs of a branch whose whole path is `path` (its own runs, or the path itself). */
@@ -429,19 +493,20 @@ function polyline(pen: Pen, runs: readonly CordRun[], path: readonly CordRun[]):
   const start = (p: { x: number; y: number }): void => {
     if (pts.length === 0) pts.push(p);
   };
+  // A branch's run along the channel always ends under its own lever: there it moves across to its rise.
   for (const run of runs) {
-    if (run.kind === 'direct') pts.push(penAt(pen, run.from, undefined), penAt(pen, run.to, undefined));
+    if (run.kind === 'direct') pts.push(penAt(pen, run.from, undefined), penAt(pen, run.to, undefined, true));
     else if (run.kind === 'drop') {
       start(penAt(pen, run.from, undefined));
       pts.push(penAt(pen, run.to, channel));
     } else if (run.kind === 'channel') {
       // A run that does not follow its own drop leaves the foot of the drop for its lane.
       start(penAt(pen, run.from, undefined));
-      pts.push(penAt(pen, run.from, run), penAt(pen, run.to, run));
+      pts.push(penAt(pen, run.from, run), penAt(pen, run.to, run, true));
     } else if (run.kind === 'rise') {
-      start(penAt(pen, run.from, channel));
-      pts.push(penAt(pen, run.to, undefined));
-    } else start(penAt(pen, run.from, channel));
+      start(penAt(pen, run.from, channel, true));
+      pts.push(penAt(pen, run.to, undefined, true));
+    } else start(penAt(pen, run.from, channel, true));
   }
   return pts;
 }
@@ -461,15 +526,19 @@ function cordRuns(
   profile: Profile,
   how: {
     lanes: ReadonlyMap<BranchRoute, Lane>;
-    rowUnder: (channelY: number) => number;
+    /** The row under a drum's channel and its lanes (where cords leaving the frame are named). */
+    rowUnder: (channelDrum: number) => number;
     screen: boolean;
   },
 ): string[] {
   const out: string[] = ['<g class="cords">'];
-  const turns = new Map<string, RoutePoint>();
-  const turn = (p: RoutePoint): void => {
-    turns.set(`${r2(p.xM)}:${r2(p.yM)}`, p);
+  /** Pulleys or pins on paper, each drawn once: a shared corner once, each rise's own beside the others at its lever. */
+  const turns = new Map<string, { x: number; y: number }>();
+  const turn = (p: RoutePoint, shift = 0): void => {
+    const at = { x: s.X(p.xM) + shift, y: s.Y(p.yM) };
+    turns.set(`${r2(at.x)}:${r2(at.y)}`, at);
   };
+  const shifts = riseShifts(s, placement, profile.frame);
   /** Cords that leave the frame, by the row under which they are named. */
   const exits = new Map<number, { x: number; words: string }[]>();
   const bayOf = new Map(placement.bays.map((b) => [b.part, b.bay]));
@@ -482,8 +551,8 @@ function cordRuns(
       const lane = how.lanes.get(b);
       if (run && lane) hostLane.set(sideKey(c.cord, run), lane.lane);
     }
-    const pen: Pen = { s, hostLane, cord: c.cord };
     for (const b of c.branches) {
+      const pen: Pen = { s, hostLane, cord: c.cord, shift: shifts.get(b) ?? 0 };
       const d = pathData(polyline(pen, b.own, b.runs));
       out.push(
         `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}" data-driver="${x(b.driver)}" data-part="${x(b.part)}" data-lever="${x(leverOf(b))}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, over ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''} on its way`)}</title></path>`,
@@ -495,7 +564,7 @@ function cordRuns(
       for (const run of b.own) {
         if (run.kind === 'drop' && !b.own.some((r) => r.kind === 'channel')) turn(run.to);
         if (run.kind === 'channel') turn(run.from);
-        if (run.kind === 'rise' || run.kind === 'exit') turn(run.from);
+        if (run.kind === 'rise' || run.kind === 'exit') turn(run.from, pen.shift);
       }
       const last = b.own[b.own.length - 1];
       if (last.kind === 'exit') {
@@ -504,8 +573,9 @@ function cordRuns(
           pen,
           last.from,
           b.runs.find((r) => r.kind === 'channel'),
+          true,
         );
-        const row = how.rowUnder(last.from.yM);
+        const row = how.rowUnder(last.drum);
         out.push(
           `<path d="M${r2(at.x)},${r2(at.y)} L${r2(at.x)},${r2(row - FONT - 0.4)}" class="cord" marker-end="url(#arrow)" />`,
         );
@@ -516,6 +586,18 @@ function cordRuns(
     }
     out.push('</g>');
   });
+  out.push(...exitWordsAndTurns(s, profile, exits, turns.values()), '</g>');
+  return out;
+}
+
+/** Under each channel, where the cords that leave the frame go; then a pulley or pin at every turn. */
+function exitWordsAndTurns(
+  s: Sheet,
+  profile: Profile,
+  exits: ReadonlyMap<number, readonly { x: number; words: string }[]>,
+  turns: Iterable<{ x: number; y: number }>,
+): string[] {
+  const out: string[] = [];
   for (const [row, list] of exits) {
     const words = list.map((e) => e.words).join(', ');
     const first = Math.min(...list.map((e) => e.x));
@@ -530,11 +612,10 @@ function cordRuns(
     );
   }
   const radius = profile.frame.turn === 'pulley' ? (profile.frame.pulleyDiameterM / 2) * s.k : 0.5;
-  for (const p of turns.values())
+  for (const p of turns)
     out.push(
-      `<circle cx="${r1(s.X(p.xM))}" cy="${r1(s.Y(p.yM))}" r="${r1(Math.max(0.4, radius))}" class="${profile.frame.turn === 'pulley' ? 'pulley' : 'pin'}" />`,
+      `<circle cx="${r1(p.x)}" cy="${r1(p.y)}" r="${r1(Math.max(0.4, radius))}" class="${profile.frame.turn === 'pulley' ? 'pulley' : 'pin'}" />`,
     );
-  out.push('</g>');
   return out;
 }
 

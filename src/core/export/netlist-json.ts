@@ -12,9 +12,9 @@
  * (counted from 1 at the visitor end), centre `xM` and its levers' positions (metres from the
  * visitor end); a latch its drum and two bays; a flag the place of the Z lever it rides on;
  * each cord its trunk, cut length, the pulleys and pins it takes in the frame, and every
- * branch's piece to cut (`lengthM`, the runs it owns in the cord's tree, `own`), its whole path
- * from the drum (`pathM`), pulleys, pins and loss, in the order of its ports and then its
- * actuators. Lengths to 0.1 mm. From positions and `frame` alone, anyone can work every piece
+ * branch's piece to cut (`lengthM`, the runs it owns in the cord's tree, `own`, each with the
+ * drum whose channel it belongs to), its whole path from the drum (`pathM`), pulleys, pins and
+ * loss, in the order of its ports and then its actuators. Lengths to 0.1 mm. From positions and `frame` alone, anyone can work every piece
  * out again (docs/methods/place.md, "Routing").
  */
 import type { Build } from '../model/build.js';
@@ -25,8 +25,12 @@ import type { BranchRoute, CordRoute } from '../physics/routing.js';
 
 /** Format tag and version written into every file (bump the version on an incompatible change). */
 export const NETLIST_FORMAT = 'latchwright-netlist';
-/** 3: cords run as trees; a branch's `lengthM` is its own piece (`own`), `pathM` its whole path. */
-export const NETLIST_VERSION = 3;
+/**
+ * 4: each run a branch owns names the drum whose channel it belongs to (`own[].drum`), as the
+ * routing laid it. (3: cords run as trees; a branch's `lengthM` is its own piece (`own`), `pathM`
+ * its whole path.)
+ */
+export const NETLIST_VERSION = 4;
 
 /** A length in metres to 0.1 mm. */
 const m4 = (x: number): number => Math.round(x * 10000) / 10000;
@@ -137,7 +141,7 @@ function branchObject(b: BranchRoute, port?: string): object {
     ...(port !== undefined ? { port } : {}),
     lengthM: m4(b.lengthM),
     channelM: m4(b.channelM),
-    own: b.own.map((r) => ({ kind: r.kind, lengthM: m4(r.lengthM) })),
+    own: b.own.map((r) => ({ kind: r.kind, drum: r.drum, lengthM: m4(r.lengthM) })),
     pathM: m4(b.runs.reduce((s, r) => s + r.lengthM, 0)),
     pulleys: b.pulleys,
     pins: b.pins.map(m4),

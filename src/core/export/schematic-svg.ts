@@ -29,7 +29,7 @@ import type { Netlist, Part } from '../model/netlist.js';
 import { layOut, layoutGraph, type LaidGraph, type LayoutGraph } from './dagre.js';
 import { partRoles } from './roles.js';
 import { escapeXml } from './escape.js';
-import { clip, extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, type Point } from './svg.js';
+import { extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, wrapWords, type Point } from './svg.js';
 import { stagesOf, type StageInfo } from './stages.js';
 
 export type NodeKind =
@@ -108,31 +108,6 @@ function kindOf(p: Part, latchRole: ReadonlyMap<string, 'master' | 'slave'>): No
       if (p.role === 'latch-set' || p.role === 'latch-reset') return latchRole.get(p.latch ?? '') ?? 'master';
       return 'helper';
   }
-}
-
-/** Break words into lines of at most `width` characters (at most `most` lines, the last cut with an ellipsis). */
-export function wrapWords(text: string, width: number, most: number): string[] {
-  const lines: string[] = [];
-  let line = '';
-  // A product's dot stays with the literal after it ("a · b" breaks as "a" / "· b").
-  const words = text.split(' ').reduce<string[]>((ws, w) => {
-    const last = ws[ws.length - 1];
-    if (last === '·') ws[ws.length - 1] = `· ${w}`;
-    else ws.push(w);
-    return ws;
-  }, []);
-  for (const word of words) {
-    if (line === '') line = word;
-    else if ([...line].length + 1 + [...word].length <= width) line += ` ${word}`;
-    else {
-      lines.push(line);
-      line = word;
-    }
-  }
-  if (line !== '') lines.push(line);
-  const kept = lines.slice(0, most).map((l) => clip(l, width));
-  if (lines.length > most) kept[most - 1] = clip(`${kept[most - 1]} …`, width);
-  return kept;
 }
 
 const MARGIN = 16;

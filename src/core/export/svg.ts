@@ -111,3 +111,28 @@ export function extentOf(
   }
   return minX === Infinity ? { minX: 0, minY: 0, maxX: 0, maxY: 0 } : { minX, minY, maxX, maxY };
 }
+
+/** Break words into lines of at most `width` characters (at most `most` lines, the last cut with an ellipsis). */
+export function wrapWords(text: string, width: number, most: number): string[] {
+  const lines: string[] = [];
+  let line = '';
+  // A product's dot stays with the literal after it ("a · b" breaks as "a" / "· b").
+  const words = text.split(' ').reduce<string[]>((ws, w) => {
+    const last = ws[ws.length - 1];
+    if (last === '·') ws[ws.length - 1] = `· ${w}`;
+    else ws.push(w);
+    return ws;
+  }, []);
+  for (const word of words) {
+    if (line === '') line = word;
+    else if ([...line].length + 1 + [...word].length <= width) line += ` ${word}`;
+    else {
+      lines.push(line);
+      line = word;
+    }
+  }
+  if (line !== '') lines.push(line);
+  const kept = lines.slice(0, most).map((l) => clip(l, width));
+  if (lines.length > most) kept[most - 1] = clip(`${kept[most - 1]} …`, width);
+  return kept;
+}

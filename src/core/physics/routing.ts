@@ -40,6 +40,8 @@
  * `routing.pulleys` and `routing.pinAngleRad` of the profile are added to every computed route;
  * a `cordRouting` entry replaces, for its cord, each figure it names (its pulleys and pin angle
  * count per branch, in all).
+ * Every run records the drum whose channel it belongs to (`CordRun.drum`), and a drop from a knot
+ * the drum of the channel it leaves (`knotDrum`): readers take them from here, never from a height.
  * Pre: every driver and target of every cord has a bay in the layout. Post: one route per
  * branch, in netlist order (cords, then each cord's ports, then its actuators); the `own` runs
  * of a cord's branches cover its tree, each segment once.
@@ -80,6 +82,13 @@ export interface CordRun {
   /** For 'exit', the same as `from`: the cord leaves the frame there (its length is frame.actuatorRunM). */
   readonly to: RoutePoint;
   readonly lengthM: number;
+  /**
+   * The drum whose cord channel the run belongs to, as laid: a channel run lies in it, a drop falls
+   * to it, a rise or exit leaves it; a direct rise rises from the top of this drum.
+   */
+  readonly drum: number;
+  /** A drop that starts at a knot in a higher channel (not at the drum): that channel's drum. */
+  readonly knotDrum?: number;
 }
 
 export interface BranchRoute {
@@ -206,23 +215,25 @@ export function route(netlist: Netlist, layout: FrameLayout, profile: Profile): 
 function direct(d: Anchor, xM: number, r: number, f: Profile['frame']): CordRun {
   const from = { xM: d.bay.xM, yM: d.levelM + r };
   const to = { xM, yM: d.levelM + f.railAboveDrumM };
-  return { kind: 'direct', from, to, lengthM: Math.hypot(to.xM - from.xM, to.yM - from.yM) };
+  return { kind: 'direct', from, to, lengthM: Math.hypot(to.xM - from.xM, to.yM - from.yM), drum: d.bay.drum };
 }
 
 function runsVia(d: Anchor, t: Anchor, xM: number, kind: 'port' | 'actuator', profile: Profile): CordRun[] {
   const f = profile.frame;
+  // The branch runs in the channel of the lower of its two drums.
+  const drum = Math.min(d.bay.drum, t.bay.drum);
   const channelY = Math.min(d.levelM, t.levelM) - f.channelBelowDrumM;
   const top = { xM: d.bay.xM, yM: Math.max(channelY, d.levelM - profile.drumRadiusM) };
   const corner = { xM: d.bay.xM, yM: channelY };
   const under = { xM, yM: channelY };
   const runs: CordRun[] = [
-    { kind: 'drop', from: top, to: corner, lengthM: top.yM - corner.yM },
-    { kind: 'channel', from: corner, to: under, lengthM: Math.abs(under.xM - corner.xM) },
+    { kind: 'drop', from: top, to: corner, lengthM: top.yM - corner.yM, drum },
+    { kind: 'channel', from: corner, to: under, lengthM: Math.abs(under.xM - corner.xM), drum },
   ];
-  if (kind === 'actuator') runs.push({ kind: 'exit', from: under, to: under, lengthM: f.actuatorRunM });
+  if (kind === 'actuator') runs.push({ kind: 'exit', from: under, to: under, lengthM: f.actuatorRunM, drum });
   else {
     const lever = { xM, yM: t.levelM + f.railAboveDrumM };
-    runs.push({ kind: 'rise', from: under, to: lever, lengthM: lever.yM - under.yM });
+    runs.push({ kind: 'rise', from: under, to: lever, lengthM: lever.yM - under.yM, drum });
   }
   return runs;
 }
@@ -247,13 +258,14 @@ function treeOf(
     const end = runs[runs.length - 1];
     const y = end.from.yM;
     const x = end.from.xM;
-    return { i, y, x, side: sideOf(x, xD), far: Math.abs(x - xD), end };
+    return { i, y, x, side: sideOf(x, xD), far: Math.abs(x - xD), end, drum: end.drum };
   });
   const own: CordRun[][] = paths.map(() => []);
   const drops: (CordRun | undefined)[] = paths.map(() => undefined);
   const channels: (CordRun | undefined)[] = paths.map(() => undefined);
   const levels = [...new Set(info.map((t) => t.y))].sort((a, b) => b - a);
   let above = yTop;
+  let aboveDrum: number | undefined;
   let corners = 0;
   for (const y of levels) {
     const here = info.filter((t) => t.y === y);
@@ -266,9 +278,20 @@ function treeOf(
         (names[a.i] < names[b.i] ? -1 : names[a.i] > names[b.i] ? 1 : 0),
     );
     const first = served[0];
+    const drum = first.drum;
+    // From the knot where the drop meets the channel above, or from the drum itself.
+    const fromKnot = aboveDrum !== undefined && above < yTop;
     const from = { xM: xD, yM: Math.max(y, Math.min(yTop, above)) };
-    drops[first.i] = { kind: 'drop', from, to: { xM: xD, yM: y }, lengthM: from.yM - y };
+    drops[first.i] = {
+      kind: 'drop',
+      from,
+      to: { xM: xD, yM: y },
+      lengthM: from.yM - y,
+      drum,
+      ...(fromKnot && from.yM > y ? { knotDrum: aboveDrum } : {}),
+    };
     above = y;
+    aboveDrum = drum;
     for (const side of [0, 1, 2] as const) {
       const owner = served.find((t) => t.side === side);
       if (!owner) continue;
@@ -279,6 +302,7 @@ function treeOf(
           from: { xM: xD, yM: y },
           to: { xM: owner.x, yM: y },
           lengthM: owner.far,
+          drum,
         };
     }
   }

@@ -41,7 +41,14 @@ interface NetDoc {
     drums: { drum: number; levelM: number }[];
   };
   parts: Placed[];
-  cords: { id: string; driver: string; ports: { part: string; port: string }[]; actuators: string[] }[];
+  cords: {
+    id: string;
+    driver: string;
+    ports: { part: string; port: string }[];
+    actuators: string[];
+    /** As routed, in the order of `ports` then `actuators`: the runs each branch owns, each with its channel's drum. */
+    branches: { own: { kind: string; drum: number }[] }[];
+  }[];
 }
 
 /** One branch's end, as this test reads it: its channel's height, its lever's x, its rise (or exit). */
@@ -101,7 +108,12 @@ function piecesFromNetlist(doc: NetDoc): Map<string, number> {
     const ends: End[] = tied.map((e, index) => {
       const x = e.to?.levers?.find((l) => l.name === e.lever)?.xM ?? e.to?.levers?.[0]?.xM ?? NaN;
       const lt = level(e.to?.drum);
-      const channel = Math.min(ld, lt) - f.channelBelowDrumM;
+      // Design §11: a branch between two drums runs in the lower drum's channel. netlist.json records that
+      // drum on the branch's last run (its rise or exit); it must be the one the rule gives.
+      const lower = Math.min(d.drum ?? NaN, e.to?.drum ?? NaN);
+      const recorded = c.branches[index]?.own.at(-1);
+      if (leaves && recorded?.drum !== lower) throw new Error(`${c.id} → ${e.target}: recorded drum ${recorded?.drum}`);
+      const channel = level(lower) - f.channelBelowDrumM;
       return { target: e.target, index, x, channel, rise: e.exit ? f.actuatorRunM : lt + f.railAboveDrumM - channel };
     });
     const runs = leaves
@@ -155,6 +167,46 @@ describe('core/export/cut-list', () => {
     const bell = build('marble-bell.lw', DEFAULT_PROFILE, { bell: 120 });
     expect(bell.placement.routing.branches.some((x) => x.kind === 'actuator')).toBe(true);
     checkAgainstCutList(bell, 'marble bell with a bell actuator');
+  });
+
+  it('names the channel of every piece by the drum the routing recorded, with a channel deeper than half the drum spacing', () => {
+    // 0.45 m of channel under 0.6 m between drums (each inside the plausible ranges of docs/profile.md): drum 2's
+    // channel runs below drum 1's rail. A drum worked out from a channel's height, round((y + depth) / spacing) + 1,
+    // still gives the right drum here (every channel lies at (d − 1) · spacing − depth, so the rule is exact for
+    // stacked drums whatever the depth); what is checked is that the words name the drum design §11 gives:
+    // a branch runs in the lower drum's channel, and a drop from a knot leaves the next channel up that its cord uses.
+    const deep: Profile = {
+      ...DEFAULT_PROFILE,
+      frame: { ...DEFAULT_PROFILE.frame, channelBelowDrumM: 0.45, longestDrumM: 0.5, drumsPerFrame: 6 },
+    };
+    const b = build('marble-bell.lw', deep);
+    expect(b.placement.drums.length).toBeGreaterThanOrEqual(3);
+    checkAgainstCutList(b, 'marble bell, deep channel');
+    const drum = new Map(b.placement.bays.map((x) => [x.part, x.drum]));
+    const rows = csvParse(buildDocuments(b).get('cut-list.csv') ?? '').filter((r) => r.piece.startsWith('branch to '));
+    const seen = new Set<string>();
+    for (const c of b.build.netlist.cords) {
+      const from = drum.get(c.driver) ?? NaN;
+      const targets = [
+        ...c.ports.map((p) => ({ target: `${p.part}.${p.port}`, part: p.part })),
+        ...c.actuators.map((a) => ({ target: a, part: a })),
+      ];
+      const lowers = targets.map((t) => Math.min(from, drum.get(t.part) ?? NaN));
+      if (targets.every((t) => t.part === c.driver)) continue;
+      targets.forEach((t, i) => {
+        const row = rows.find((r) => r.item === c.id && r.piece === `branch to ${t.target}`);
+        const where = row?.where ?? '';
+        const tag = `${c.id} → ${t.target}: ${where}`;
+        const inChannel = /in drum (\d+)'s channel/.exec(where);
+        if (inChannel) expect(Number(inChannel[1]), tag).toBe(lowers[i]);
+        const inDrop = /tied on in the drop under .*, at drum (\d+)'s channel/.exec(where);
+        if (inDrop) expect(Number(inDrop[1]), tag).toBe(Math.min(...lowers.filter((l) => l > lowers[i])));
+        const down = /down to drum (\d+)'s channel/.exec(row?.note ?? '');
+        if (down) expect(Number(down[1]), tag).toBe(lowers[i]);
+        seen.add(inChannel ? 'channel' : inDrop ? 'drop' : down ? 'from the drum, down' : 'other');
+      });
+    }
+    expect([...seen].sort()).toEqual(['channel', 'drop', 'from the drum, down']);
   });
 
   it('says where each piece is tied on, and cuts a shared run once: a cord of several branches takes less than their paths', () => {

@@ -5,7 +5,10 @@
  * stated scale, and so is the scale bar. Every bay is labelled by what it does; every routed
  * branch is drawn.
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { analyse, buildMachine } from '../../../src/core/pipeline.js';
+import { DEFAULT_PROFILE, type Profile } from '../../../src/core/physics/profile.js';
 import { buildDocuments } from '../../../src/core/export/index.js';
 import { frameScale, frameSvg, MAX_HEIGHT_MM, MAX_WIDTH_MM, paperFor } from '../../../src/core/export/frame-svg.js';
 import { partWords } from '../../../src/core/export/part-words.js';
@@ -26,9 +29,31 @@ describe('core/export/frame-svg', () => {
       const heightM = top + f.railAboveDrumM + 0.05 + f.channelBelowDrumM;
       const scale = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)), heightM);
       expect((heightM * 1000) / scale, name).toBeLessThanOrEqual(MAX_HEIGHT_MM);
-      expect(svg, name).toContain(
+      // The title block's lines, wrapped to the sheet, read as one text.
+      const title = [...svg.matchAll(/<text [^>]*class="(?:sub|note)"[^>]*>([^<]*)<\/text>/g)]
+        .map((t) => t[1])
+        .join(' ');
+      expect(title, name).toContain(
         `Scale 1:${scale} when printed at 100 % on an ${paperFor(+root![1], +root![2])} or larger`,
       );
+    }
+  });
+
+  it('wraps the title block to the drawing: no line runs past the right margin', () => {
+    for (const name of exampleNames()) {
+      const b = example(name);
+      const svg = frameSvg(b.build, b.placement, b.profile);
+      const width = Number(/<svg [^>]*width="(\d+)mm"/.exec(svg)?.[1]);
+      const lines = [...svg.matchAll(/<text x="10" y="([\d.]+)" class="(sub|note)"[^>]*>([^<]*)<\/text>/g)].filter(
+        (t) => Number(t[1]) < 40,
+      );
+      expect(lines.length, name).toBeGreaterThanOrEqual(4);
+      for (const [, , cls, text] of lines) {
+        // Font sizes as the drawing's style sets them; 0.56 em, the average advance of a sans glyph (an estimate).
+        const size = cls === 'sub' ? 2.6 : 2.3;
+        const chars = [...text.replace(/&#?\w+;/g, '_')].length;
+        expect(10 + chars * size * 0.56, `${name}: ${text}`).toBeLessThanOrEqual(width - 10);
+      }
     }
   });
 
@@ -74,6 +99,113 @@ describe('core/export/frame-svg', () => {
       expect(svg).toMatch(/crank end/);
       expect(svg).toMatch(/Caution/);
     }
+  });
+
+  it('draws every run along a channel under the drum the routing recorded for it, with a channel deeper than half the drum spacing', () => {
+    // 0.45 m of channel under drums 0.6 m apart (inside the plausible ranges of docs/profile.md): drum 2's channel runs
+    // between drum 1's axis and its rail. Each drum's channel line on paper is taken from the drawing itself (the
+    // drum's body, its axis at the rect's middle, the channel the profile's depth at the stated scale below it).
+    const deep: Profile = {
+      ...DEFAULT_PROFILE,
+      frame: { ...DEFAULT_PROFILE.frame, channelBelowDrumM: 0.45, longestDrumM: 0.5, drumsPerFrame: 6 },
+    };
+    const a = analyse(readFileSync('examples/marble-bell.lw', 'utf8'), 'marble-bell.lw');
+    if (!a.ok) throw new Error('marble bell must read');
+    const b = buildMachine(a, { encoding: 'binary', profile: deep, checks: false });
+    if (!b.ok) throw new Error('marble bell must build');
+    expect(b.placement.drums.length).toBeGreaterThanOrEqual(3);
+    const svg = frameSvg(b.build, b.placement, b.profile);
+    const scale = Number(/Scale 1:(\d+) when printed/.exec(svg)?.[1]);
+    const channelOnPaper = new Map(
+      b.placement.drums.map((d) => {
+        const body = new RegExp(
+          `<g class="drum-${d.drum}">\\s*<rect x="[\\d.]+" y="([\\d.]+)" width="[\\d.]+" height="([\\d.]+)"`,
+        ).exec(svg);
+        return [d.drum, Number(body?.[1]) + Number(body?.[2]) / 2 + (0.45 * 1000) / scale];
+      }),
+    );
+    const drumOf = new Map(b.placement.bays.map((x) => [x.part, x.drum]));
+    let checked = 0;
+    for (const br of b.placement.routing.branches) {
+      const run = br.own.find((r) => r.kind === 'channel');
+      // A run of a few millimetres (a lever almost above its capstan) can vanish on paper into the cord's rise.
+      if (!run || (run.lengthM * 1000) / scale < 1) continue;
+      const tag = `${br.cord} → ${br.target}`;
+      // Design §11: the lower of the two drums' channel, as the run records.
+      expect(run.drum, tag).toBe(Math.min(drumOf.get(br.driver) ?? NaN, drumOf.get(br.part) ?? NaN));
+      const path = new RegExp(
+        `<path d="([^"]+)" class="cord" data-cord="${escapeXml(br.cord)}" data-target="${escapeXml(br.target)}"`,
+      ).exec(svg);
+      const pts = [...(path?.[1] ?? '').matchAll(/[ML]([\d.]+),([\d.]+)/g)].map((m) => [Number(m[1]), Number(m[2])]);
+      const along = pts.findIndex((p, i) => i > 0 && p[1] === pts[i - 1][1] && p[0] !== pts[i - 1][0]);
+      expect(along, tag).toBeGreaterThan(0);
+      const y = pts[along][1];
+      // Its lane lies under its own drum's channel: the nearest channel line above it is that drum's.
+      const above = [...channelOnPaper].filter(([, cy]) => cy <= y + 1e-6).sort((p, q) => q[1] - p[1]);
+      expect(above[0]?.[0], tag).toBe(run.drum);
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(10);
+    expect(
+      new Set(b.placement.routing.branches.flatMap((x) => x.own.filter((r) => r.kind === 'channel').map((r) => r.drum)))
+        .size,
+    ).toBeGreaterThan(1);
+  });
+
+  it('draws each cord tied to one lever on a rise line of its own, straight up and inside the lever’s share of its bay', () => {
+    // A port is the wired-AND of its cords, and a one-port gate's Z lever carries every input (design §3), so a
+    // lever with two or more cords is common: every example has them. Each must be seen as a cord of its own.
+    let levers = 0;
+    for (const name of exampleNames()) {
+      const b = example(name);
+      const svg = frameSvg(b.build, b.placement, b.profile, { palette: 'screen' });
+      const scale = Number(/Scale 1:(\d+) when printed/.exec(svg)?.[1]);
+      const points = (d: string): number[][] => [...d.matchAll(/[ML]([\d.]+),([\d.]+)/g)].map((m) => [+m[1], +m[2]]);
+      const drawn = new Map(
+        [...svg.matchAll(/<path d="([^"]+)" class="cord" data-cord="([^"]+)" data-target="([^"]+)"/g)].map((m) => [
+          `${m[2]}→${m[3]}`,
+          points(m[1]),
+        ]),
+      );
+      const lit = new Map(
+        [...svg.matchAll(/<path d="([^"]+)" class="route" data-route-cord="([^"]+)" data-route-target="([^"]+)"/g)].map(
+          (m) => [`${m[2]}→${m[3]}`, points(m[1])],
+        ),
+      );
+      const byLever = new Map<string, typeof b.placement.routing.branches>();
+      for (const br of b.placement.routing.branches)
+        if (br.kind === 'port' && br.own[br.own.length - 1].kind === 'rise')
+          byLever.set(br.target, [...(byLever.get(br.target) ?? []), br]);
+      for (const [target, list] of byLever) {
+        if (list.length < 2) continue;
+        levers++;
+        const part = list[0].part;
+        const bay = b.placement.bays.find((x) => x.part === part);
+        const lever = escapeXml(target.slice(part.length + 1));
+        const end = new RegExp(
+          `<rect x="([\\d.]+)" y="[\\d.]+" width="([\\d.]+)" height="[\\d.]+" class="lever[^"]*" data-part="${escapeXml(part)}" data-lever="${lever}"`,
+        ).exec(svg);
+        const centre = Number(end?.[1]) + Number(end?.[2]) / 2;
+        const share = ((bay?.widthM ?? 0) / (bay?.levers.length ?? 1)) * (1000 / scale);
+        const xs = list.map((br) => {
+          const key = `${escapeXml(br.cord)}→${escapeXml(br.target)}`;
+          const pts = drawn.get(key) ?? [];
+          const [foot, top] = pts.slice(-2);
+          const tag = `${name} ${key}`;
+          // Straight up: the same offset from the channel to the rail; and the lit whole path rises on the same line.
+          expect(foot[0], tag).toBe(top[0]);
+          expect(top[1], tag).toBeLessThan(foot[1]);
+          expect((lit.get(key) ?? []).at(-1)?.[0], tag).toBe(top[0]);
+          expect(Math.abs(top[0] - centre), tag).toBeLessThan(share / 2);
+          return top[0];
+        });
+        // Distinct lines at least a cord's stroke (0.3 mm) apart.
+        const sorted = [...xs].sort((p, q) => p - q);
+        for (let i = 1; i < sorted.length; i++)
+          expect(sorted[i] - sorted[i - 1], `${name} ${target}`).toBeGreaterThanOrEqual(0.3 - 0.011);
+      }
+    }
+    expect(levers).toBeGreaterThan(50);
   });
 
   it('picks a scale that keeps the stack of drums within MAX_HEIGHT_MM as well as the drum within MAX_WIDTH_MM', () => {

@@ -115,22 +115,24 @@ describe('core/export/netlist-json', () => {
         }[];
         cords: {
           id: string;
+          driver: string;
           ports: unknown[];
           actuators: unknown[];
           trunkM: number;
           cutM: number;
           pulleys: number;
           branches: {
+            part: string;
             lengthM: number;
             channelM: number;
             pathM: number;
-            own: { kind: string; lengthM: number }[];
+            own: { kind: string; drum: number; lengthM: number }[];
             pulleys: number;
           }[];
         }[];
       };
       expect(schemaProblems(schema, doc), name).toEqual([]);
-      expect(doc.version).toBe(3);
+      expect(doc.version).toBe(4);
       expect(doc.frame.drums.length).toBe(b.placement.drums.length);
       expect(doc.frame.totalCordM).toBeLessThanOrEqual(doc.frame.baselineCordM);
       const at = new Map(b.placement.bays.map((x) => [x.part, x]));
@@ -152,6 +154,16 @@ describe('core/export/netlist-json', () => {
           expect(own, `${name} ${c.id}`).toBeLessThanOrEqual(br.pathM + 0.0005);
           const ownChannel = br.own.filter((r) => r.kind === 'channel').reduce((s, r) => s + r.lengthM, 0);
           expect(br.channelM).toBeCloseTo(ownChannel, 3);
+          // Design §11, docs/methods/place.md "Routing": a branch between two drums runs in the lower
+          // drum's channel; its rise, its run along the channel and the drop it owns name that drum.
+          const from = at.get(c.driver)?.drum ?? NaN;
+          const lower = Math.min(from, at.get(br.part)?.drum ?? NaN);
+          const last = br.own[br.own.length - 1];
+          expect(last.drum, `${name} ${c.id} → ${br.part}`).toBe(last.kind === 'direct' ? from : lower);
+          for (const r of br.own) {
+            expect(r.drum, `${name} ${c.id} → ${br.part} ${r.kind}`).toBeLessThanOrEqual(from);
+            if (r.kind === 'channel') expect(r.drum, `${name} ${c.id} → ${br.part}`).toBe(lower);
+          }
         }
         expect(c.cutM, `${name} ${c.id}`).toBeCloseTo(c.trunkM + c.branches.reduce((s, br) => s + br.lengthM, 0), 3);
       }

@@ -164,6 +164,8 @@ describe('core/physics/routing', () => {
     expect(cross?.runs.map((x) => x.kind)).toEqual(['drop', 'channel', 'rise']);
     // Up from drum 1's channel to drum 2's rail.
     expect(cross?.runs[2].lengthM).toBeCloseTo(F.channelBelowDrumM + F.drumSpacingM + F.railAboveDrumM, 12);
+    // In drum 1's channel (the lower drum's), as every run of the branch records.
+    expect(cross?.runs.map((x) => x.drum)).toEqual([1, 1, 1]);
     // Trunk: hold lever to the drum, the wraps, one knot.
     expect(out.cords[0].trunkM).toBeCloseTo(
       F.railAboveDrumM - r + 2 * Math.PI * r * DEFAULT_PROFILE.wraps + F.knotAllowanceM,
@@ -180,6 +182,7 @@ describe('core/physics/routing', () => {
     const l: FrameLayout = { bays: [bay('g', 1, 1, 0.045, ['a', 'b', 'Z'], 0.09)] };
     const [b] = route(n, l, DEFAULT_PROFILE).branches;
     expect(b.runs.map((x) => x.kind)).toEqual(['direct']);
+    expect(b.runs[0].drum).toBe(1);
     expect(b.pulleys).toBe(0);
     expect(b.loss).toBe(1);
     expect(b.runs[0].lengthM).toBeCloseTo(Math.hypot(0.03, F.railAboveDrumM - r), 12);
@@ -289,6 +292,12 @@ describe('core/physics/routing', () => {
     expect(lo.own.map((x) => x.kind)).toEqual(['drop', 'channel', 'rise']);
     expect(lo.own[0].lengthM).toBeCloseTo(s, 12);
     expect(lo.own[1].from.yM).toBeCloseTo(-F.channelBelowDrumM, 12);
+    // Each run records the drum whose channel it belongs to, and a drop from a knot the channel it leaves.
+    expect(hi.own.map((x) => x.drum)).toEqual([2, 2, 2]);
+    expect(hi.own[0].knotDrum).toBeUndefined();
+    expect(lo.own.map((x) => x.drum)).toEqual([1, 1, 1]);
+    expect(lo.own[0].knotDrum).toBe(2);
+    expect(lo.runs.map((x) => x.drum)).toEqual([1, 1, 1]);
     // Each branch's path is still the whole way from drum 2.
     expect(lo.runs[0].lengthM).toBeCloseTo(s + F.channelBelowDrumM - r, 12);
     expect(out.channelM).toBeCloseTo(0.06 + 0.12, 12);
