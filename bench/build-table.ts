@@ -4,7 +4,8 @@
  * (build-one.ts) so that its peak resident memory is its own (a build over 5 s three times,
  * its median run kept); then the growth of the build
  * time per doubling of states on random machines of 4–128 states (4 inputs, 2 outputs).
- * `--quick` builds a subset (three small machines, 4–16 states) in about a minute on a loaded 2-core machine.
+ * `--quick` builds a subset (three small machines, 4–16 states) in about a minute on a loaded 2-core machine,
+ * with the reference's three runs (a few seconds each) on top.
  * Goals (issue figures): every machine under 10 s and under 500 MB.
  *
  * The same-run reference: one fixed build with no search (REFERENCE: s298 with binary codes,
