@@ -212,10 +212,11 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
  * default and the build could lock up in them, again with the split-by-bit guard or with
  * unused codes sent to the start state (`recovered`). The syntheses share one memo
  * (synthesise.ts), seeded with the minimisations the search made pricing these codes
- * (`kept`, when it priced them; search.ts `searchPricing`), and the guard's cost against an unguarded minimisation (`GuardReport`) is
- * measured only for the build that is kept: the others are made without it (it changes
- * nothing but the report) and the kept one made again with it, its covers and mappings from
- * the memo. The result is the build the steps would give one by one.
+ * (`kept`, when it priced them; search.ts `searchPricing`). The guard's cost against an
+ * unguarded minimisation (`GuardReport`) is measured only for the build that is kept: the
+ * others are made without it (it changes nothing but the report) and the kept one made again
+ * with it, its covers and mappings from the memo. The result is the build the steps would
+ * give one by one.
  */
 function synthesised(
   f: FlatMachine,
@@ -239,9 +240,9 @@ function synthesised(
     return b;
   };
   return timed(opts, 'synthesise', () => {
-    const kept = recovered(draft(setup.unusedCodes), setup, draft);
-    const made = how.get(kept.build) ?? { unused: setup.unusedCodes };
-    return { build: make(made.unused, made.guard, true), toStart: kept.toStart };
+    const chosen = recovered(draft(setup.unusedCodes), setup, draft);
+    const made = how.get(chosen.build) ?? { unused: setup.unusedCodes };
+    return { build: make(made.unused, made.guard, true), toStart: chosen.toStart };
   });
 }
 

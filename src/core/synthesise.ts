@@ -119,6 +119,7 @@ function memoFor(f: FlatMachine, enc: Encoding, opts: SynthesisOptions): Synthes
 function memoMinimiser(memo: SynthesisMemo | undefined): Minimiser {
   if (!memo) return minimiseCover;
   return (fn, mopts) => {
+    if (mopts !== undefined) return minimiseCover(fn, mopts);
     const key = JSON.stringify([fn.vars, fn.on, fn.dc]);
     let cover = memo.minimised.get(key);
     if (!cover) {
