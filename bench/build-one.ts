@@ -1,15 +1,16 @@
 /**
  * One build for the build table (build-table.ts runs this in a child process, so that its peak
- * resident memory is the build's own): `node --import tsx bench/build-one.ts SOURCE` where
- * SOURCE is a machine file or `random:STATES:INPUTS:OUTPUTS:SEED`. It builds as the command
- * line does (the encoding search on worker threads, every check) and prints one JSON line:
+ * resident memory is the build's own): `node --import tsx bench/build-one.ts SOURCE [ENCODING]`
+ * where SOURCE is a machine file or `random:STATES:INPUTS:OUTPUTS:SEED`, and ENCODING a named
+ * encoding (default: the searched codes). It builds as the command line does (the encoding
+ * search on worker threads, every check) and prints one JSON line:
  * the wall time of the whole build, of the encoding search and of the checks, the parts cost,
  * whether every check passed, and the peak resident memory.
  */
 import { readFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { analyse, buildMachine, randomFlatMachine } from '../src/core/index.js';
+import { analyse, buildMachine, randomFlatMachine, type EncodeStrategy } from '../src/core/index.js';
 import { partsCost } from '../src/core/phases/map/index.js';
 import { searchOnThreads } from '../src/cli/search-pool.js';
 import { flatToJsonText } from './machines.js';
@@ -40,7 +41,7 @@ function sourceText(source: string): { text: string; file: string } {
   return { text: flatToJsonText(randomFlatMachine(s, i, o, seed)), file: `${source}.json` };
 }
 
-async function buildOne(source: string): Promise<BuildFigures> {
+async function buildOne(source: string, encoding?: EncodeStrategy): Promise<BuildFigures> {
   const { text, file } = sourceText(source);
   const t0 = performance.now();
   const a = analyse(text, file);
@@ -59,10 +60,12 @@ async function buildOne(source: string): Promise<BuildFigures> {
       problem: a.diagnostics[0]?.code,
     };
   const t1 = performance.now();
-  const searched = await searchOnThreads(a, {}, availableParallelism());
+  const chosen = encoding ? { encoding } : {};
+  const searched = await searchOnThreads(a, chosen, availableParallelism());
   const searchMs = performance.now() - t1;
   let checkMs = 0;
   const b = buildMachine(a, {
+    ...chosen,
     ...(searched ? { searched } : {}),
     now: () => performance.now(),
     onPhase: (phase, ms) => {
@@ -105,5 +108,5 @@ async function buildOne(source: string): Promise<BuildFigures> {
   };
 }
 
-const source = process.argv[2];
-if (source) process.stdout.write(JSON.stringify(await buildOne(source)) + '\n');
+const [source, encoding] = process.argv.slice(2);
+if (source) process.stdout.write(JSON.stringify(await buildOne(source, encoding as EncodeStrategy | undefined)) + '\n');

@@ -26,7 +26,7 @@ import {
   type EncodeResult,
   type EncodeStrategy,
 } from './phases/encode/index.js';
-import { balanced, synthesise } from './synthesise.js';
+import { balanced, synthesise, synthesisMemo } from './synthesise.js';
 import { countParts, partsCost } from './phases/map/index.js';
 import { DEFAULT_PROFILE, type Profile } from './physics/profile.js';
 import { cordRoutingDiagnostics } from './physics/profile-load.js';
@@ -156,8 +156,6 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
   const f = a.minimised.machine;
   const setup = buildSearchSetup(a, opts);
   if (!('machine' in setup)) return { ok: false, form: a.form, diagnostics: [...a.diagnostics, setup] };
-  const make = (enc: Encoding, unused = setup.unusedCodes, guard?: GuardMethod): Build =>
-    balanced(synthesise(f, enc, { ...synthesisOptions(setup, unused), ...(guard ? { guard } : {}) }), profile);
   const strategy = opts.encoding ?? BUILD_DEFAULTS.encoding;
   try {
     const encoded =
@@ -173,8 +171,7 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
     const diagnostics = [...a.diagnostics, ...encoded.diagnostics];
     if (!encoded.encoding || hasErrors(diagnostics)) return { ok: false, form: a.form, diagnostics };
     const encoding = encoded.encoding;
-    const first = timed(opts, 'synthesise', () => make(encoding));
-    const { build, toStart } = recovered(first, setup, (unused, guard) => make(encoding, unused, guard));
+    const { build, toStart } = synthesised(f, encoding, setup, profile, opts, encoded.kept);
     if (toStart)
       diagnostics.push(
         diag(
@@ -208,6 +205,45 @@ export function buildMachine(a: Analysed, opts: BuildOptions = {}): Built | Reje
       return { ok: false, form: a.form, diagnostics: [...a.diagnostics, ...e.diagnostics] };
     throw e;
   }
+}
+
+/**
+ * The build of these codes: synthesise → balance drive, and when unused codes are free by
+ * default and the build could lock up in them, again with the split-by-bit guard or with
+ * unused codes sent to the start state (`recovered`). The syntheses share one memo
+ * (synthesise.ts), seeded with the minimisations the search made pricing these codes
+ * (`kept`, when it priced them; search.ts `searchPricing`). The guard's cost against an
+ * unguarded minimisation (`GuardReport`) is measured only for the build that is kept: the
+ * others are made without it (it changes nothing but the report) and the kept one made again
+ * with it, its covers and mappings from the memo. The result is the build the steps would
+ * give one by one.
+ */
+function synthesised(
+  f: FlatMachine,
+  encoding: Encoding,
+  setup: SearchSetup,
+  profile: Profile,
+  opts: AnalyseOptions,
+  kept: unknown,
+): { build: Build; toStart: boolean } {
+  const memo = synthesisMemo(kept);
+  const make = (unused: 'dont-care' | number, guard: GuardMethod | undefined, guardBaseline: boolean): Build =>
+    balanced(
+      synthesise(f, encoding, { ...synthesisOptions(setup, unused), ...(guard ? { guard } : {}), guardBaseline, memo }),
+      profile,
+      memo,
+    );
+  const how = new Map<Build, { unused: 'dont-care' | number; guard?: GuardMethod }>();
+  const draft = (unused: 'dont-care' | number, guard?: GuardMethod): Build => {
+    const b = make(unused, guard, false);
+    how.set(b, { unused, ...(guard ? { guard } : {}) });
+    return b;
+  };
+  return timed(opts, 'synthesise', () => {
+    const chosen = recovered(draft(setup.unusedCodes), setup, draft);
+    const made = how.get(chosen.build) ?? { unused: setup.unusedCodes };
+    return { build: make(made.unused, made.guard, true), toStart: chosen.toStart };
+  });
 }
 
 /**

@@ -14,7 +14,9 @@
  * A `SearchSetup` is plain data: a worker given it builds the same costs and runs any task of
  * the plan with `searchTaskRunner`; `searchOutcome` turns the finished plan into what
  * `encode` would have returned, which `buildMachine` takes as `searched`. The answer is the
- * same whatever the number of threads (see phases/encode/search.ts).
+ * same whatever the number of threads (see phases/encode/search.ts). A price hands back the
+ * minimisations it made (`searchPricing`); the outcome carries the chosen codes' as `kept`, and
+ * `buildMachine` seeds its synthesis memo with them instead of minimising those functions again.
  */
 import type { Diagnostic } from './model/diagnostics.js';
 import type { Encoding } from './model/build.js';
@@ -36,7 +38,14 @@ import { partsCost } from './phases/map/index.js';
 import type { Profile } from './physics/profile.js';
 import { availableTension, routingFactor } from './physics/capstan.js';
 import { checkRecovery } from './checks/recovery.js';
-import { balanced, synthesise, type SynthesisOptions } from './synthesise.js';
+import {
+  balanced,
+  keptMinimisations,
+  synthesise,
+  synthesisMemo,
+  type SynthesisMemo,
+  type SynthesisOptions,
+} from './synthesise.js';
 import type { GuardMethod } from './phases/guard.js';
 
 /** Everything the search's costs depend on, as plain data (it can be posted to a worker). */
@@ -84,10 +93,12 @@ function stableJson(v: unknown): string {
 /** What the shell adds on its own thread: the clock for a time budget, and progress. */
 export type SearchExtras = Pick<EncodeOptions, 'now' | 'onProgress'> & { readonly millis?: number };
 
+/** The mapper splits no cord by count: buffer trees come from the force budget (balanced). One function, so a synthesis memo sees one rule. */
+const NO_FANOUT_LIMIT = (): boolean => false;
+
 /** The synthesis options of a build under this setup (unused codes as given, or sent to a state). */
 export function synthesisOptions(s: SearchSetup, unusedCodes: 'dont-care' | number = s.unusedCodes): SynthesisOptions {
-  // Buffer trees come from the force budget (balanced), not from a fixed fan-out limit.
-  return { profile: s.profile, unusedCodes, actuators: s.actuators, tooMany: () => false };
+  return { profile: s.profile, unusedCodes, actuators: s.actuators, tooMany: NO_FANOUT_LIMIT };
 }
 
 /** Whether a build with free unused codes is rebuilt with them sent to the start state: it has unused codes and could lock up in them. */
@@ -116,17 +127,37 @@ export function recovered(
 
 /** The full cost of a candidate encoding (see the module comment). */
 export function searchCost(s: SearchSetup): (codes: readonly string[], bits: number) => number {
-  const price = (enc: Encoding, unused: 'dont-care' | number): Build =>
+  return searchPricing(s).cost;
+}
+
+/**
+ * The full cost, and what it kept of the codes it priced last: the minimisations of their
+ * syntheses (one memo per candidate, so its two syntheses share the output cover), as plain
+ * data. The search hands the chosen codes' back (`EncodeResult.kept`), and the build seeds its
+ * own memo with them (`synthesisMemo`), so it does not minimise those functions again.
+ */
+export function searchPricing(s: SearchSetup): {
+  cost: (codes: readonly string[], bits: number) => number;
+  kept: (codes: readonly string[]) => unknown;
+} {
+  let last: { codes: readonly string[]; memo: SynthesisMemo } | undefined;
+  const price = (enc: Encoding, unused: 'dont-care' | number, memo: SynthesisMemo): Build =>
     balanced(
-      synthesise(s.machine, enc, { ...synthesisOptions(s, unused), guard: 'split-by-bit', guardBaseline: false }),
+      synthesise(s.machine, enc, { ...synthesisOptions(s, unused), guard: 'split-by-bit', guardBaseline: false, memo }),
       s.profile,
+      memo,
     );
-  return (codes, bits) => {
+  const cost = (codes: readonly string[], bits: number): number => {
     const enc: Encoding = { strategy: 'candidate', bits, codes };
-    let b = price(enc, s.unusedCodes);
-    if (s.recover && needsRecovery(b, s.profile, s.seed)) b = price(enc, s.machine.start);
+    const memo = synthesisMemo();
+    last = { codes, memo };
+    let b = price(enc, s.unusedCodes, memo);
+    if (s.recover && needsRecovery(b, s.profile, s.seed)) b = price(enc, s.machine.start, memo);
     return partsCost(b.parts, s.profile.cost);
   };
+  const kept = (codes: readonly string[]): unknown =>
+    last && last.codes === codes ? keptMinimisations(last.memo) : undefined;
+  return { cost, kept };
 }
 
 /**
@@ -161,7 +192,7 @@ export function searchOptions(s: SearchSetup, extras: SearchExtras = {}): Encode
     ...(Object.keys(budget).length > 0 ? { budget } : {}),
     ...(extras.now ? { now: extras.now } : {}),
     ...(extras.onProgress ? { onProgress: extras.onProgress } : {}),
-    cost: searchCost(s),
+    ...searchPricing(s),
     sketch: sketchWeights(s.profile),
   };
 }
@@ -191,5 +222,6 @@ export function searchOutcome(plan: AutoSearch, diagnostics: readonly Diagnostic
     ...(r.encoding ? { encoding: r.encoding } : {}),
     diagnostics: [...diagnostics, ...r.diagnostics],
     ...(r.report ? { search: r.report } : {}),
+    ...(r.kept !== undefined ? { kept: r.kept } : {}),
   };
 }

@@ -45,16 +45,99 @@ export interface SynthesisOptions {
   readonly guardBaseline?: boolean;
   /** Which cords the mapper splits into buffer trees (default: a fixed fan-out limit; the pipeline passes none and balances by force budget instead). */
   readonly tooMany?: (cord: Cord) => boolean;
+  /**
+   * Work kept between syntheses of one machine under one encoding (`synthesisMemo`): a build
+   * that synthesises again with another guard method reuses what the first synthesis computed.
+   */
+  readonly memo?: SynthesisMemo;
+}
+
+/**
+ * What syntheses of one machine under one encoding, profile and set of actuators share: the
+ * excitation and output cover per unused-code setting, every minimisation by the exact
+ * function minimised (the default minimiser and options only), every mapping by its covers,
+ * and every balanced netlist. Each is a pure function of what keys it, so a result taken
+ * from the memo is the one computing it again would give. A memo used with another machine,
+ * codes, profile, actuators or fan-out rule (`tooMany`; compared by identity) is not read:
+ * that synthesis works afresh.
+ */
+export interface SynthesisMemo {
+  owner?: {
+    readonly f: FlatMachine;
+    readonly codes: readonly string[];
+    readonly profile: Profile;
+    readonly actuators?: Readonly<Record<string, number>>;
+    readonly tooMany?: (cord: Cord) => boolean;
+  };
+  readonly excited: Map<string, { ex: Excitation; out: SopCover }>;
+  readonly minimised: Map<string, SopCover>;
+  readonly mapped: Map<SopCover, Map<SopCover, Mapped>>;
+  readonly balanced: Map<Build['netlist'], Build['netlist']>;
+}
+
+/**
+ * A memo for the syntheses of one build (see SynthesisMemo), empty or holding minimisations
+ * made elsewhere (`keptMinimisations` of another memo, e.g. from a search on another thread):
+ * an entry pairs a function, as its key, with the cover the default minimiser gives it, so it
+ * answers that function in any synthesis. Anything not shaped as such is left out.
+ */
+export function synthesisMemo(kept?: unknown): SynthesisMemo {
+  const minimised = new Map<string, SopCover>();
+  if (Array.isArray(kept))
+    for (const entry of kept as unknown[])
+      if (Array.isArray(entry) && typeof entry[0] === 'string' && isCover(entry[1])) minimised.set(entry[0], entry[1]);
+  return { excited: new Map(), minimised, mapped: new Map(), balanced: new Map() };
+}
+
+/** The minimisations of a memo as plain data (key and cover pairs), for `synthesisMemo` elsewhere. */
+export function keptMinimisations(memo: SynthesisMemo): [string, SopCover][] {
+  return [...memo.minimised];
+}
+
+function isCover(v: unknown): v is SopCover {
+  if (typeof v !== 'object' || v === null) return false;
+  const c = v as Partial<Record<keyof SopCover, unknown>>;
+  return typeof c.vars === 'number' && typeof c.functions === 'number' && Array.isArray(c.terms);
+}
+
+/** The memo when it belongs to this synthesis (binding an unused one to it), else undefined. */
+function memoFor(f: FlatMachine, enc: Encoding, opts: SynthesisOptions): SynthesisMemo | undefined {
+  const m = opts.memo;
+  if (!m || opts.minimise || opts.minimiseOptions) return undefined;
+  m.owner ??= { f, codes: enc.codes, profile: opts.profile, actuators: opts.actuators, tooMany: opts.tooMany };
+  const o = m.owner;
+  const same =
+    o.f === f &&
+    o.codes === enc.codes &&
+    o.profile === opts.profile &&
+    o.actuators === opts.actuators &&
+    o.tooMany === opts.tooMany;
+  return same ? m : undefined;
+}
+
+/** The default minimiser, answering a function it has minimised before from the memo. */
+function memoMinimiser(memo: SynthesisMemo | undefined): Minimiser {
+  if (!memo) return minimiseCover;
+  return (fn, mopts) => {
+    if (mopts !== undefined) return minimiseCover(fn, mopts);
+    const key = JSON.stringify([fn.vars, fn.on, fn.dc]);
+    let cover = memo.minimised.get(key);
+    if (!cover) {
+      cover = minimiseCover(fn, mopts);
+      memo.minimised.set(key, cover);
+    }
+    return cover;
+  };
 }
 
 /** Build the lever machine of a flat machine under an encoding. */
 export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions): Build {
   checkOptions(f, opts);
   const encoding: Encoding = f.states.length === 1 ? { strategy: enc.strategy, bits: 0, codes: [''] } : enc;
-  const minimise = opts.minimise ?? minimiseCover;
-  const ex = excite(f, encoding, { unusedCodes: opts.unusedCodes });
-  const out = minimiseOutputs(ex, minimise, opts.minimiseOptions);
-  const cache = new Map<SopCover, Mapped>();
+  const memo = memoFor(f, enc, opts);
+  const minimise = opts.minimise ?? memoMinimiser(memo);
+  const { ex, out } = excited(f, encoding, opts, minimise, memo);
+  const cache = mappings(out, memo);
   const mapWith = (sr: SopCover): Mapped => {
     let m = cache.get(sr);
     if (!m) {
@@ -103,14 +186,47 @@ export function synthesise(f: FlatMachine, enc: Encoding, opts: SynthesisOptions
   };
 }
 
+/** The excitation table and the minimised outputs under these unused codes (from the memo when it has them). */
+function excited(
+  f: FlatMachine,
+  encoding: Encoding,
+  opts: SynthesisOptions,
+  minimise: Minimiser,
+  memo: SynthesisMemo | undefined,
+): { ex: Excitation; out: SopCover } {
+  const key = String(opts.unusedCodes ?? 'dont-care');
+  const known = memo?.excited.get(key);
+  if (known) return known;
+  const ex = excite(f, encoding, { unusedCodes: opts.unusedCodes });
+  const made = { ex, out: minimiseOutputs(ex, minimise, opts.minimiseOptions) };
+  memo?.excited.set(key, made);
+  return made;
+}
+
+/** The mappings made with this output cover, by set/reset cover (kept in the memo, if any). */
+function mappings(out: SopCover, memo: SynthesisMemo | undefined): Map<SopCover, Mapped> {
+  let m = memo?.mapped.get(out);
+  if (!m) {
+    m = new Map<SopCover, Mapped>();
+    memo?.mapped.set(out, m);
+  }
+  return m;
+}
+
 /**
  * The build with the mapper's fixed fan-out limit replaced by the capstan force budget: every
  * heavy actuator a capstan of its own with the turns its load needs, then buffer trees where a
  * margin fails — each branch at the loss it will have as routed in the frame (expectedLosses).
+ * A memo (one build's, see SynthesisMemo; the same profile) answers a netlist balanced before.
  */
-export function balanced(b: Build, profile: Profile): Build {
-  const sized = sizeActuators(b.netlist, profile, expectedLosses(b.netlist, profile));
-  const netlist = balanceDrive(sized, profile, expectedLosses(sized, profile));
+export function balanced(b: Build, profile: Profile, memo?: SynthesisMemo): Build {
+  const kept = memo?.owner?.profile === profile ? memo.balanced : undefined;
+  let netlist = kept?.get(b.netlist);
+  if (!netlist) {
+    const sized = sizeActuators(b.netlist, profile, expectedLosses(b.netlist, profile));
+    netlist = balanceDrive(sized, profile, expectedLosses(sized, profile));
+    kept?.set(b.netlist, netlist);
+  }
   return netlist === b.netlist ? b : { ...b, netlist, parts: countParts(netlist) };
 }
 

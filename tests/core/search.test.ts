@@ -3,13 +3,18 @@
  * equal keys however they were assembled, and a change of any build option the search reads
  * gives another key. The outside reference for "equal as data" is Node's own deep equality
  * (`node:util` isDeepStrictEqual), checked beside the key on seeded random setups (fast-check).
+ * What the search keeps of pricing (`searchPricing`, `EncodeResult.kept`): a build seeded with
+ * it is the build made without it, on LGSynth'91 machines (the open dataset in
+ * tests/fixtures/lgsynth91).
  */
 import { readFileSync } from 'node:fs';
 import { isDeepStrictEqual } from 'node:util';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyse, buildSearchSetup, type Analysed } from '../../src/core/pipeline.js';
-import { searchSetupKey, type SearchSetup } from '../../src/core/search.js';
+import { analyse, buildMachine, buildSearchSetup, type Analysed } from '../../src/core/pipeline.js';
+import { searchOptions, searchPricing, searchSetupKey, type SearchSetup } from '../../src/core/search.js';
+import { encode } from '../../src/core/phases/encode/index.js';
+import { synthesisMemo } from '../../src/core/synthesise.js';
 import { DEFAULT_PROFILE } from '../../src/core/physics/profile.js';
 
 function analysed(text: string): Analysed {
@@ -87,5 +92,53 @@ describe('core/search (searchSetupKey)', () => {
       }),
       { seed: 7, numRuns: 300 },
     );
+  });
+});
+
+describe('core/search (searchPricing)', () => {
+  // LGSynth'91 machines (open dataset, tests/fixtures/lgsynth91): small enough to build quickly,
+  // and one that sends unused codes to the start state (two syntheses per price).
+  const MACHINES = ['dk15', 'bbtas', 'lion9', 'ex5'];
+
+  it("hands back the chosen codes' minimisations; a build seeded with them (after structuredClone, as from a worker) equals the build without them (LGSynth'91)", () => {
+    let carried = 0;
+    for (const name of MACHINES) {
+      const text = readFileSync(`tests/fixtures/lgsynth91/${name}.json`, 'utf8');
+      const a = analyse(text, `${name}.json`);
+      if (!a.ok) throw new Error(`${name} must analyse`);
+      const s = setup(a);
+      const r = encode(s.machine, 'auto', searchOptions(s));
+      if (r.kept !== undefined) carried++;
+      const { kept: _kept, ...bare } = r;
+      const seeded = buildMachine(a, { searched: structuredClone(r), checks: false });
+      const fresh = buildMachine(a, { searched: bare, checks: false });
+      if (!seeded.ok || !fresh.ok) throw new Error(`${name} must build`);
+      expect(seeded.build, name).toEqual(fresh.build);
+      expect(seeded.placement, name).toEqual(fresh.placement);
+    }
+    expect(carried).toBeGreaterThan(0);
+  });
+
+  it('keeps what it priced last, for those codes only, as key and cover pairs', () => {
+    const text = readFileSync('tests/fixtures/lgsynth91/dk15.json', 'utf8');
+    const a = analyse(text, 'dk15.json');
+    if (!a.ok) throw new Error('dk15 must analyse');
+    const s = setup(a);
+    const { cost, kept } = searchPricing(s);
+    const codes = s.machine.states.map((_, i) => i.toString(2).padStart(2, '0'));
+    expect(cost(codes, 2)).toBeGreaterThan(0);
+    const pairs = kept(codes);
+    expect(Array.isArray(pairs) && pairs.length > 0).toBe(true);
+    for (const [key, cover] of pairs as [string, { terms: unknown[] }][]) {
+      expect(typeof key).toBe('string');
+      expect(Array.isArray(cover.terms)).toBe(true);
+    }
+    expect(kept([...codes])).toBeUndefined();
+  });
+
+  it('a memo seeded with anything but key and cover pairs holds none of it', () => {
+    expect(synthesisMemo([['k', { vars: 1, functions: 1, terms: [] }]]).minimised.size).toBe(1);
+    for (const bad of [undefined, 3, 'x', [1], [['k']], [['k', null]], [[1, { vars: 1, functions: 1, terms: [] }]]])
+      expect(synthesisMemo(bad).minimised.size).toBe(0);
   });
 });

@@ -5,7 +5,7 @@ import { DiagnosticError } from '../../src/core/model/diagnostics.js';
 import type { Build } from '../../src/core/model/build.js';
 import { DEFAULT_PROFILE } from '../../src/core/physics/profile.js';
 import { excite } from '../../src/core/phases/excite.js';
-import { synthesise } from '../../src/core/synthesise.js';
+import { balanced, synthesise, synthesisMemo } from '../../src/core/synthesise.js';
 import { checkForbiddenInput, checkNextStateEquivalence } from '../../src/core/checks/logic.js';
 import {
   binaryEncoding,
@@ -120,5 +120,46 @@ describe('core/synthesise', () => {
     expect(codeOf(() => synthesise(f, enc, { profile: DEFAULT_PROFILE, unusedCodes: 9 }))).toBe('LW700');
     expect(codeOf(() => synthesise(f, enc, { profile: DEFAULT_PROFILE, actuators: { siren: 10 } }))).toBe('LW700');
     expect(codeOf(() => synthesise(f, enc, { profile: DEFAULT_PROFILE, actuators: { z1: -5 } }))).toBe('LW700');
+  });
+
+  it("gives the same builds with a memo as without, in every guard and unused-code setting (LGSynth'91 machines, open dataset)", () => {
+    const never = (): boolean => false;
+    for (const name of ['dk27', 'bbtas', 'beecount', 'dk15', 'mc']) {
+      const f = fixture(name);
+      const enc = binaryEncoding(f);
+      const memo = synthesisMemo();
+      const settings = [
+        { unusedCodes: 'dont-care' as const, guardBaseline: false },
+        { unusedCodes: 'dont-care' as const, guard: 'split-by-bit' as const, guardBaseline: false },
+        { unusedCodes: 'dont-care' as const, guard: 'set-first' as const },
+        { unusedCodes: f.start },
+        { unusedCodes: 'dont-care' as const },
+      ];
+      for (const s of settings) {
+        const o = { profile: DEFAULT_PROFILE, tooMany: never, ...s };
+        const fresh = balanced(synthesise(f, enc, o), DEFAULT_PROFILE);
+        expect(
+          balanced(synthesise(f, enc, { ...o, memo }), DEFAULT_PROFILE, memo),
+          `${name} ${JSON.stringify(s)}`,
+        ).toEqual(fresh);
+      }
+      expect(memo.minimised.size).toBeGreaterThan(0);
+    }
+  });
+
+  it('reads a memo only for the machine, codes, profile and fan-out rule it was first used with', () => {
+    const f = fixture('dk27');
+    const memo = synthesisMemo();
+    const enc = binaryEncoding(f);
+    synthesise(f, enc, { profile: DEFAULT_PROFILE, memo });
+    const kept = memo.minimised.size;
+    const other = oneHotEncoding(f);
+    const b = synthesise(f, other, { profile: DEFAULT_PROFILE, memo });
+    expect(b).toEqual(synthesise(f, other, { profile: DEFAULT_PROFILE }));
+    expect(memo.minimised.size).toBe(kept);
+    expect(synthesise(f, enc, { profile: DEFAULT_PROFILE, memo, tooMany: () => true })).toEqual(
+      synthesise(f, enc, { profile: DEFAULT_PROFILE, tooMany: () => true }),
+    );
+    expect(memo.minimised.size).toBe(kept);
   });
 });

@@ -3,7 +3,9 @@
  * the search as batches of independent tasks (src/core/search.ts); the builder runs tasks
  * itself and hands others to a helper worker (../search-worker.ts), one at a time, and merges
  * the results in task order — the same answer as the core's own search for the same seed.
- * Progress is reported as the tasks finish. Without Worker support it all runs here.
+ * Progress is reported as the tasks finish. Without Worker support it all runs here. The
+ * outcome leaves out what the search kept of pricing the codes (`EncodeResult.kept`): the page
+ * keeps outcomes and posts them with every build.
  */
 import {
   planBuildSearch,
@@ -58,7 +60,10 @@ export async function searchOnTwoCores(
     if (!results || stale()) return undefined;
     plan.accept(results);
   }
-  return searchOutcome(plan, diagnostics);
+  // The page keeps outcomes and posts them with every build, so they stay small: without the
+  // minimisations the search kept (`kept`), which the build would only have reused.
+  const { kept: _kept, ...outcome } = searchOutcome(plan, diagnostics);
+  return outcome;
 }
 
 /** One batch: the helper takes the next task whenever it is free, this worker the rest. */

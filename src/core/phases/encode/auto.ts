@@ -166,6 +166,8 @@ interface Priced {
   readonly codes: readonly string[];
   readonly bits: number;
   readonly cost: number;
+  /** What the cost kept of pricing them (TaskContext.kept), when a price task priced them. */
+  readonly kept?: unknown;
 }
 
 /** The plan of one automatic search, stepped batch by batch (see the module comment). */
@@ -290,7 +292,13 @@ export class AutoSearch {
       const t = this.batch[i];
       if (r.kind === 'price') {
         if (r.priced) this.evaluations++;
-        if (t.kind === 'price' && r.priced) this.priced.push({ codes: t.codes, bits: t.bits, cost: r.cost });
+        if (t.kind === 'price' && r.priced)
+          this.priced.push({
+            codes: t.codes,
+            bits: t.bits,
+            cost: r.cost,
+            ...(r.kept !== undefined ? { kept: r.kept } : {}),
+          });
         return;
       }
       const full = !this.sketched || (t.kind === 'anneal' && t.full === true);
@@ -303,8 +311,8 @@ export class AutoSearch {
     if (this.sketched && screens.length > 0) this.finalists = this.chooseFinalists(screens);
   }
 
-  /** The answer once every batch is done. */
-  result(): StrategyResult & { report?: AutoReport } {
+  /** The answer once every batch is done, with what the cost kept of pricing it (if a price task did). */
+  result(): StrategyResult & { report?: AutoReport; kept?: unknown } {
     if (this.problem) return this.problem;
     let best: Priced | undefined;
     for (const p of this.priced) if (!best || p.cost < best.cost) best = p;
@@ -323,7 +331,12 @@ export class AutoSearch {
       extraBit: this.wider !== undefined,
       bestCost: best.cost,
     };
-    return { encoding: { strategy: 'auto', bits: best.bits, codes: [...best.codes] }, diagnostics: [], report };
+    return {
+      encoding: { strategy: 'auto', bits: best.bits, codes: [...best.codes] },
+      diagnostics: [],
+      report,
+      ...(best.kept !== undefined ? { kept: best.kept } : {}),
+    };
   }
 
   /** The context a task runs in (the caller adds the measures' functions). */
@@ -523,13 +536,20 @@ export class AutoSearch {
 }
 
 /** The automatic search, its tasks run one after the other; pins are honoured and fix the code length. */
-export function auto(f: FlatMachine, pins: PinSet, o: AutoOptions): StrategyResult & { report?: AutoReport } {
+export function auto(
+  f: FlatMachine,
+  pins: PinSet,
+  o: AutoOptions,
+): StrategyResult & { report?: AutoReport; kept?: unknown } {
   const search = new AutoSearch(f, pins, o);
   return runPlan(search, { ...search.context(), cost: o.cost, ...(o.sketch ? { sketch: o.sketch } : {}) });
 }
 
 /** Run a plan's batches in this thread, task after task. */
-export function runPlan(search: AutoSearch, ctx: TaskContext): StrategyResult & { report?: AutoReport } {
+export function runPlan(
+  search: AutoSearch,
+  ctx: TaskContext,
+): StrategyResult & { report?: AutoReport; kept?: unknown } {
   if (search.problem) return search.problem;
   for (let batch = search.next(); batch.length > 0; batch = search.next())
     search.accept(batch.map((t) => runTask(ctx, t, search.progress.tick)));
@@ -561,5 +581,6 @@ export function searchContext(f: FlatMachine, opts: EncodeOptions): TaskContext 
     cost: opts.cost ?? adjacencyCost(f),
     ...(opts.sketch ? { sketch: sketchOf(f, opts.sketch) } : {}),
     ...(opts.now ? { now: opts.now } : {}),
+    ...(opts.kept ? { kept: opts.kept } : {}),
   };
 }

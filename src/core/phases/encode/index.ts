@@ -46,6 +46,8 @@ export interface EncodeOptions {
   readonly now?: () => number;
   /** Called after every evaluation (of the sketch or the cost) of the automatic search. */
   readonly onProgress?: (p: Progress) => void;
+  /** What `cost` kept of pricing some codes ('auto'; see TaskContext.kept); the winner's comes back as `kept`. */
+  readonly kept?: (codes: readonly string[], bits: number) => unknown;
 }
 
 export interface EncodeResult {
@@ -53,6 +55,8 @@ export interface EncodeResult {
   readonly diagnostics: Diagnostic[];
   /** How the automatic search went (strategy 'auto' only). */
   readonly search?: AutoReport;
+  /** What the cost kept of pricing the chosen codes (strategy 'auto' with `kept`, when a price task priced them). */
+  readonly kept?: unknown;
 }
 
 /** The strategies known by name, in the order the tool offers them (the names of ENCODING_REGISTRY). */
@@ -124,6 +128,7 @@ export function encode(
     ...(r.encoding ? { encoding: r.encoding } : {}),
     diagnostics: [...diagnostics, ...r.diagnostics],
     ...(r.search ? { search: r.search } : {}),
+    ...(r.kept !== undefined ? { kept: r.kept } : {}),
   };
 }
 

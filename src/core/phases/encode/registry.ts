@@ -120,5 +120,6 @@ function runAuto(f: FlatMachine, pins: PinSet, opts: EncodeOptions): EncodeResul
     ...(r.encoding ? { encoding: r.encoding } : {}),
     diagnostics: r.diagnostics,
     ...(r.report ? { search: r.report } : {}),
+    ...(r.kept !== undefined ? { kept: r.kept } : {}),
   };
 }

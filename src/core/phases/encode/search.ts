@@ -33,6 +33,11 @@ export interface TaskContext {
   /** The screening measure; without it the full cost screens. */
   readonly sketch?: Sketch;
   readonly now?: () => number;
+  /**
+   * What the full cost kept of pricing these codes, asked right after it priced them and handed
+   * back with the price (plain data; the caller's own, e.g. the covers a build can reuse).
+   */
+  readonly kept?: (codes: readonly string[], bits: number) => unknown;
 }
 
 /** Price one assignment by the full cost. */
@@ -69,7 +74,7 @@ export interface AnnealTask {
 export type SearchTask = PriceTask | ListTask | AnnealTask;
 
 export type TaskResult =
-  | { readonly kind: 'price'; readonly cost: number; readonly priced: boolean }
+  | { readonly kind: 'price'; readonly cost: number; readonly priced: boolean; readonly kept?: unknown }
   | {
       readonly kind: 'screen';
       readonly evaluations: number;
@@ -90,8 +95,9 @@ export function runTask(ctx: TaskContext, task: SearchTask, tick?: Tick): TaskRe
     if (late()) return { kind: 'price', cost: Infinity, priced: false };
     const raw = ctx.cost(task.codes, task.bits);
     const cost = Number.isNaN(raw) ? Infinity : raw;
+    const kept = ctx.kept?.(task.codes, task.bits);
     tick?.(true, cost);
-    return { kind: 'price', cost, priced: true };
+    return { kind: 'price', cost, priced: true, ...(kept !== undefined ? { kept } : {}) };
   }
   const sketch = task.kind === 'anneal' && task.full ? undefined : ctx.sketch;
   const full = !sketch;
