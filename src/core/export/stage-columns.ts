@@ -16,6 +16,9 @@
  * side of a target in the same column, through the gap beside the column), drawn behind the
  * boxes.
  *
+ * The state diagram uses the same placement past its own size bound (diagram-svg.ts), with a
+ * state's distance from the start state as its rank and no bands.
+ *
  * Preconditions: ranks are small non-negative integers; links name laid-out boxes. Postconditions:
  * no two boxes overlap; every box of a lower rank lies left of every box of a higher rank.
  */
