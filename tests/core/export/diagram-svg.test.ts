@@ -138,7 +138,7 @@ describe('core/export/diagram-svg', () => {
   // Stored digests of the examples' diagrams (binary codes), reviewed when they change: rewrite with
   // LW_UPDATE_EXPECTED=1 npx vitest run tests/core/export/diagram-svg.test.ts
   it('draws every example exactly as the stored digests say (layered layout)', () => {
-    const path = 'tests/fixtures/expected/diagram-digests.json';
+    const path = 'tests/fixtures/drawings/diagram-digests.json';
     const digests: Record<string, string> = {};
     for (const name of exampleNames()) {
       const b = example(name).build;

@@ -175,7 +175,7 @@ describe('core/export/schematic-svg', () => {
   // Stored digests of the examples' drawings (binary codes, both palettes), reviewed when they
   // change: rewrite with LW_UPDATE_EXPECTED=1 npx vitest run tests/core/export/schematic-svg.test.ts
   it('draws every example exactly as the stored digests say (layered layout, both palettes)', () => {
-    const path = 'tests/fixtures/expected/schematic-digests.json';
+    const path = 'tests/fixtures/drawings/schematic-digests.json';
     const digests: Record<string, string> = {};
     for (const name of exampleNames()) {
       const b = example(name).build;
