@@ -19,6 +19,7 @@ import { benchPlace } from './place.js';
 import { benchSimulatorAndChecks } from './sim-checks.js';
 import { median } from './median.js';
 import { benchBuildTable } from './build-table.js';
+import { benchDrawings } from './drawings.js';
 import { flatToJsonText, mustAnalyse } from './machines.js';
 
 interface Row {
@@ -107,6 +108,10 @@ async function main(): Promise<void> {
   rows.push(...placement.rows);
   extra.push(placement.markdown, '');
   // ── end of placement and routing ──
+  // ── Drawings (bench/drawings.ts): the schematic and the state diagram of the largest builds ──
+  step('drawings');
+  rows.push(...benchDrawings());
+  // ── end of drawings ──
   extra.push(await benchBuildTable({ quick: process.argv.includes('--quick') }));
   try {
     step('browser');

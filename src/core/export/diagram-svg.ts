@@ -8,11 +8,21 @@
  * Method: layered graph drawing (Sugiyama, Tagawa & Toda 1981) by @dagrejs/dagre, rankdir
  * LR; edge labels are laid out as dagre label nodes, so they do not overlap boxes; dagre
  * places self-loops beside their state.
+ *
+ * Size bound: dagre's time grows about with the square of the arrows (measured on LGSynth'91
+ * builds: scf, 94 states and 217 arrows, 0.5 s; s298, 135 states and 627 arrows, 6 s; a
+ * 256-state machine, which a build accepts, may have thousands). Past LAYERED_MAX_ITEMS states
+ * plus arrows the states are laid out in columns by the fewest clocks from the start state
+ * (breadth-first), each column ordered by the barycentre of its neighbours, with the stage-column
+ * placement of the schematic (stage-columns.ts): near-linear, but arrows are smooth lines drawn
+ * behind the boxes and a label sits at its arrow's middle, where labels may overlap. A line
+ * under such a drawing says so. Every drawing up to the bound is made exactly as before.
  * "Moore output" here means: the same value on every row of the state (mooreOutputs); the
  * rest are shown on the arrows.
  */
 import type { Build } from '../model/build.js';
-import { layOut, layoutGraph, type LaidGraph } from './dagre.js';
+import { layOut, layoutGraph, type LaidEdge, type LaidGraph, type LaidNode } from './dagre.js';
+import { stageColumns } from './stage-columns.js';
 import { DONT_CARE } from '../model/flat.js';
 import { escapeXml } from './escape.js';
 import { coverExpr, wrapExpr, wrapJoined } from './readable.js';
@@ -22,6 +32,10 @@ import { extentOf, pathThrough, round1, svgBox, svgDocument, svgText, textWidth,
 const LINE = 13;
 const MARGIN = 12;
 const WRAP = 34;
+/** States plus arrows past which the diagram is laid out in columns by distance (see the module comment). */
+export const LAYERED_MAX_ITEMS = 400;
+/** The line under a diagram laid out in columns. */
+const NOTE_H = 18;
 
 /** A state box; `loop` is its self-loop label (drawn above the box, inside the space dagre reserved). */
 export interface DiagramState {
@@ -41,6 +55,8 @@ export interface DiagramState {
 }
 
 export interface DiagramLayout {
+  /** How the states were placed: dagre's layered layout, or columns by distance past the size bound. */
+  readonly method: 'layered' | 'columns';
   readonly width: number;
   readonly height: number;
   readonly states: readonly DiagramState[];
@@ -118,20 +134,68 @@ function diagramDraft(build: Build): DiagramDraft {
   return draft;
 }
 
+/** The space a state takes: its box with its self-loop and label above it. */
+function spaceOf(b: BoxDraft): { width: number; height: number } {
+  const loopW = b.loop.length > 0 ? Math.max(...b.loop.map((l) => textWidth(l, 10, true))) + 10 : 0;
+  return { width: Math.max(b.width, loopW), height: b.height + loopSpace(b.loop.length) };
+}
+
+/** Size of an arrow's label. */
+const labelSize = (lines: readonly string[]): { width: number; height: number } => ({
+  width: Math.max(...lines.map((l) => textWidth(l, 10, true))) + 8,
+  height: lines.length * LINE + 4,
+});
+
 /** Run dagre: one node per state (tall enough for its self-loop), one labelled edge per arrow. */
 function placeDraft(draft: DiagramDraft): LaidGraph {
   const g = layoutGraph({ multigraph: true });
   g.setGraph({ rankdir: 'LR', nodesep: 30, ranksep: 60, edgesep: 14, marginx: 30, marginy: 24 });
   draft.boxes.forEach((b, s) => {
-    const loopW = b.loop.length > 0 ? Math.max(...b.loop.map((l) => textWidth(l, 10, true))) + 10 : 0;
-    g.setNode(String(s), { width: Math.max(b.width, loopW), height: b.height + loopSpace(b.loop.length) });
+    g.setNode(String(s), spaceOf(b));
   });
   for (const [key, lines] of draft.labels) {
     const [a, b] = key.split('>');
-    const width = Math.max(...lines.map((l) => textWidth(l, 10, true))) + 8;
-    g.setEdge(a, b, { width, height: lines.length * LINE + 4, labelpos: 'c' }, key);
+    g.setEdge(a, b, { ...labelSize(lines), labelpos: 'c' }, key);
   }
   return layOut(g);
+}
+
+/** Fewest clocks from the start state to each state (breadth-first; a state never reached goes after the rest). */
+function distances(states: number, start: number, arrows: readonly (readonly [number, number])[]): number[] {
+  const next = Array.from({ length: states }, (): number[] => []);
+  for (const [a, b] of arrows) next[a].push(b);
+  const dist = new Array<number>(states).fill(-1);
+  dist[start] = 0;
+  const queue = [start];
+  for (let i = 0; i < queue.length; i++)
+    for (const t of next[queue[i]])
+      if (dist[t] < 0) {
+        dist[t] = dist[queue[i]] + 1;
+        queue.push(t);
+      }
+  const far = Math.max(...dist) + 1;
+  return dist.map((d) => (d < 0 ? far : d));
+}
+
+/** Past the size bound: columns by distance from the start (stage-columns.ts), read as dagre's layout is read. */
+function placeInColumns(draft: DiagramDraft, start: number): LaidGraph {
+  const arrows = [...draft.labels.keys()].map((k) => k.split('>').map(Number) as [number, number]);
+  const rank = distances(draft.boxes.length, start, arrows);
+  const laid = stageColumns(
+    draft.boxes.map((b, s) => ({ id: String(s), ...spaceOf(b), rank: rank[s], position: s })),
+    arrows.map(([a, b]) => ({ from: String(a), to: String(b) })),
+  );
+  const node = (name: string): LaidNode => {
+    const c = laid.centre.get(name) ?? { x: 0, y: 0 };
+    return { ...c, ...spaceOf(draft.boxes[Number(name)]) };
+  };
+  const edge = (from: string, to: string, key?: string): LaidEdge => {
+    const points = laid.route(from, to, node(from).y, node(to).y);
+    const a = points[1] ?? points[0];
+    const b = points[points.length - 2] ?? a;
+    return { points, x: (a.x + b.x) / 2, y: (a.y + b.y) / 2, ...labelSize(draft.labels.get(key ?? '') ?? ['']) };
+  };
+  return { graph: () => ({ width: 0, height: 0 }), node, edge };
 }
 
 /** The states as placed: the box sits at the bottom of the space dagre reserved, the loop above it. */
@@ -174,7 +238,11 @@ function placedArrows(draft: DiagramDraft, laid: LaidGraph, states: readonly Dia
 }
 
 /** Fit the drawing to everything drawn (dagre may route an arrow outside its own bounds). */
-function fitted(states: readonly DiagramState[], arrows: readonly DiagramArrow[]): DiagramLayout {
+function fitted(
+  method: DiagramLayout['method'],
+  states: readonly DiagramState[],
+  arrows: readonly DiagramArrow[],
+): DiagramLayout {
   const ext = extentOf(
     [
       ...states.map((st) => ({
@@ -196,8 +264,9 @@ function fitted(states: readonly DiagramState[], arrows: readonly DiagramArrow[]
   const dy = MARGIN - ext.minY;
   const move = (q: Point): Point => ({ x: q.x + dx, y: q.y + dy });
   return {
+    method,
     width: Math.max(ext.maxX - ext.minX + 2 * MARGIN, 240),
-    height: ext.maxY - ext.minY + 2 * MARGIN,
+    height: ext.maxY - ext.minY + 2 * MARGIN + (method === 'layered' ? 0 : NOTE_H),
     states: states.map((st) => ({ ...st, ...move(st), outer: { ...st.outer, ...move(st.outer) } })),
     arrows: arrows.map((a) => ({ ...a, ...move(a), points: a.points.map(move) })),
   };
@@ -206,9 +275,10 @@ function fitted(states: readonly DiagramState[], arrows: readonly DiagramArrow[]
 /** Lay out the state diagram. Self-loops are not given to dagre: each state's node is made tall enough for its loop and label. */
 export function diagramLayout(build: Build): DiagramLayout {
   const draft = diagramDraft(build);
-  const laid = placeDraft(draft);
+  const method = draft.boxes.length + draft.labels.size > LAYERED_MAX_ITEMS ? 'columns' : 'layered';
+  const laid = method === 'layered' ? placeDraft(draft) : placeInColumns(draft, build.machine.start);
   const states = placedStates(build, draft, laid);
-  return fitted(states, placedArrows(draft, laid, states));
+  return fitted(method, states, placedArrows(draft, laid, states));
 }
 
 /** Move an end point that dagre put on the reserved space's edge onto the box's edge, keeping its side. */
@@ -293,12 +363,22 @@ export function diagramSvg(build: Build): string {
     }
     body.push('</g>');
   }
+  if (l.method === 'columns')
+    body.push(
+      svgText(
+        MARGIN,
+        l.height - 8,
+        `Laid out in columns by the fewest clocks from the start state (more than ${LAYERED_MAX_ITEMS} states and arrows): arrows run behind the boxes and labels may overlap; the state table has every transition.`,
+        'label',
+        'start',
+      ),
+    );
   const f = build.machine;
   return svgDocument(
     l.width,
     l.height,
     `State diagram — ${f.name}`,
-    `${f.states.length} states of ${f.name}; arrows labelled guard / Mealy outputs; the start state has a heavier outline.`,
+    `${f.states.length} states of ${f.name}; arrows labelled guard / Mealy outputs; the start state has a heavier outline${l.method === 'columns' ? '; laid out in columns by distance from the start state' : ''}.`,
     STYLE,
     body,
   );

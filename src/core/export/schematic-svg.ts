@@ -12,6 +12,15 @@
  * outputs back to the term gates, found by stage order) are laid out reversed so the flow
  * stays left to right, and drawn with their arrow at the true target.
  *
+ * Size bound: dagre's ranking (network simplex) and crossing reduction on this compound graph
+ * grow much faster than the number of parts — measured on the development machine on LGSynth'91
+ * machines: 189 parts 0.6 s, 311 parts 1.3 s, 415 parts 2.1 s, 513 parts 3.1 s, 746 parts 18 s,
+ * 931 parts 41 s, 2 152 parts over 13 minutes — so past LAYERED_MAX_PARTS (300) parts, where
+ * the layered layout still takes about a second, the schematic is laid out in stage columns instead
+ * (stage-columns.ts: near-linear, a few seconds at most for any build within LW407's bound of
+ * 256 states), and the drawing says so under its legend. Every part and every cord is drawn
+ * either way; the examples and every machine up to the bound are drawn exactly as before.
+ *
  * Visual language (our own): plain rounded boxes, each with a small kind label, what the part
  * does in words (roles.ts: "resets M1 when q0 · marble") and, smallest, the part id the wiring
  * list uses; a lever glyph on levers; fills told apart by lightness and outlines by dash
@@ -30,7 +39,8 @@ import { layOut, layoutGraph, type LaidGraph, type LayoutGraph } from './dagre.j
 import { partRoles } from './roles.js';
 import { escapeXml } from './escape.js';
 import { extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, wrapWords, type Point } from './svg.js';
-import { stagesOf, type StageInfo } from './stages.js';
+import { stageColumns } from './stage-columns.js';
+import { STAGE_RANK, stagesOf, type StageInfo } from './stages.js';
 
 export type NodeKind =
   'operator' | 'clock' | 'reset' | 'term' | 'helper' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
@@ -80,6 +90,8 @@ export interface SchematicEdge {
 }
 
 export interface SchematicLayout {
+  /** How the parts were placed: dagre's layered layout, or stage columns past the size bound. */
+  readonly method: 'layered' | 'stage-columns';
   readonly width: number;
   readonly height: number;
   readonly nodes: readonly SchematicNode[];
@@ -112,6 +124,10 @@ function kindOf(p: Part, latchRole: ReadonlyMap<string, 'master' | 'slave'>): No
 
 const MARGIN = 16;
 const LEGEND_H = 50;
+/** The line under the legend that says a drawing is laid out in stage columns. */
+const NOTE_H = 14;
+/** Parts past which the schematic is laid out in stage columns (see the module comment). */
+export const LAYERED_MAX_PARTS = 300;
 /** The legend's width, so a small machine's drawing still shows all of it. */
 const LEGEND_W = 1060;
 /** Characters per line of a box's role words, and lines at most. */
@@ -120,7 +136,15 @@ const ROLE_LINES = 2;
 /** Line height of the role words (10 px text). */
 const ROLE_LINE_H = 12;
 
-type NodeInfo = { kind: NodeKind; label: string; detail: string; lines: string[]; title: string };
+type NodeInfo = {
+  kind: NodeKind;
+  label: string;
+  detail: string;
+  lines: string[];
+  title: string;
+  width: number;
+  height: number;
+};
 
 /** A cord branch (or a flag's link to its Z lever) before layout. */
 interface EdgeDraft {
@@ -170,23 +194,25 @@ function addPartNodes(g: LayoutGraph, net: Netlist, shown: readonly Part[]): Map
     const width =
       Math.max(textWidth(label, 9), textWidth(p.id, 9, true), ...lines.map((l) => textWidth(l, 10))) +
       (kind === 'operator' || kind === 'clock' || kind === 'reset' ? 34 : 18);
-    g.setNode(p.id, { width, height: boxHeight(kind, lines.length) });
-    info.set(p.id, { kind, label, detail, lines, title: `${p.name} (${p.id})` });
+    const height = boxHeight(kind, lines.length);
+    g.setNode(p.id, { width, height });
+    info.set(p.id, { kind, label, detail, lines, title: `${p.name} (${p.id})`, width, height });
   }
   return info;
 }
 
+/** The state bit of a latch or a transfer gate (`tr<bit>.…`); undefined for any other part. */
+function bitOf(p: Part): number | undefined {
+  if (p.kind === 'latch') return p.bit;
+  const m = p.kind === 'gate' && p.role === 'transfer' ? /^tr(\d+)\./.exec(p.id) : null;
+  return m ? Number(m[1]) : undefined;
+}
+
 /** One cluster per state bit around its latches and transfer gates; returns the cluster of each bit. */
-function addBitClusters(g: LayoutGraph, net: Netlist, shown: readonly Part[]): Map<number, string> {
-  const bitOf = (id: string): number | undefined => {
-    const p = net.parts.find((q) => q.id === id);
-    if (p?.kind === 'latch') return p.bit;
-    const m = p?.kind === 'gate' && p.role === 'transfer' ? /^tr(\d+)\./.exec(p.id) : null;
-    return m ? Number(m[1]) : undefined;
-  };
+function addBitClusters(g: LayoutGraph, shown: readonly Part[]): Map<number, string> {
   const clusters = new Map<number, string>();
   for (const p of shown) {
-    const bit = bitOf(p.id);
+    const bit = bitOf(p);
     if (bit === undefined) continue;
     let c = clusters.get(bit);
     if (!c) {
@@ -272,6 +298,7 @@ function placedEdges(laid: LaidGraph, drafts: readonly EdgeDraft[], nodes: reado
 
 /** dagre may route a reversed cord outside its own bounds: fit the drawing to everything drawn. */
 function fitted(
+  method: SchematicLayout['method'],
   nodes: readonly SchematicNode[],
   clusters: SchematicLayout['clusters'],
   edges: readonly SchematicEdge[],
@@ -287,23 +314,32 @@ function fitted(
   const dy = MARGIN - ext.minY;
   const move = (q: Point): Point => ({ x: q.x + dx, y: q.y + dy });
   return {
+    method,
     width: Math.max(ext.maxX - ext.minX + 2 * MARGIN, LEGEND_W),
-    height: ext.maxY - ext.minY + 2 * MARGIN + LEGEND_H,
+    height: ext.maxY - ext.minY + 2 * MARGIN + legendHeight(method),
     nodes: nodes.map((n) => ({ ...n, ...move(n) })),
     clusters: clusters.map((c) => ({ ...c, ...move(c) })),
     edges: edges.map((e) => ({ ...e, points: e.points.map(move) })),
   };
 }
 
+const legendHeight = (method: SchematicLayout['method']): number =>
+  method === 'layered' ? LEGEND_H : LEGEND_H + NOTE_H;
+
+/** The parts, their words and sizes, and every cord branch, before layout. */
+interface Drafted {
+  readonly g: LayoutGraph;
+  readonly shown: readonly Part[];
+  readonly info: ReadonlyMap<string, NodeInfo>;
+}
+
 /** Place every part with dagre (see the module comment). */
-export function schematicLayout(build: Build): SchematicLayout {
-  const net = build.netlist;
-  const { shown, nodeOf } = drawnParts(net);
-  const g = layoutGraph({ compound: true, multigraph: true });
-  g.setGraph({ rankdir: 'LR', nodesep: 14, ranksep: 46, edgesep: 8, marginx: MARGIN, marginy: MARGIN });
-  g.setDefaultEdgeLabel(() => ({}));
-  const info = addPartNodes(g, net, shown);
-  const clusters = addBitClusters(g, net, shown);
+function layeredLayout(
+  net: Netlist,
+  { g, shown, info }: Drafted,
+  nodeOf: ReadonlyMap<string, string>,
+): SchematicLayout {
+  const clusters = addBitClusters(g, shown);
   const drafts = edgeDrafts(g, net, nodeOf, stagesOf(net));
   for (const e of drafts) {
     if (e.reversed) g.setEdge(e.to, e.from, { weight: 1, minlen: 1 }, e.name);
@@ -320,7 +356,70 @@ export function schematicLayout(build: Build): SchematicLayout {
     const n = laid.node(id);
     return { id, label: n.label ?? id, x: n.x - n.width / 2, y: n.y - n.height / 2, width: n.width, height: n.height };
   });
-  return fitted(nodes, cl, placedEdges(laid, drafts, nodes));
+  return fitted('layered', nodes, cl, placedEdges(laid, drafts, nodes));
+}
+
+/** Place every part in stage columns (stage-columns.ts), past the layered layout's size bound. */
+function columnLayout(net: Netlist, { g, shown, info }: Drafted, nodeOf: ReadonlyMap<string, string>): SchematicLayout {
+  const stages = stagesOf(net);
+  const drafts = edgeDrafts(g, net, nodeOf, stages);
+  const laid = stageColumns(
+    shown.map((p) => {
+      const i = info.get(p.id) as NodeInfo;
+      const rank = STAGE_RANK[stages.stage.get(p.id) ?? 'indicator'];
+      return {
+        id: p.id,
+        width: i.width,
+        height: i.height,
+        rank,
+        position: stages.position.get(p.id) ?? 0,
+        bit: bitOf(p),
+      };
+    }),
+    drafts,
+  );
+  const nodes: SchematicNode[] = shown.map((p) => {
+    const c = laid.centre.get(p.id) ?? { x: 0, y: 0 };
+    return { id: p.id, ...(info.get(p.id) as NodeInfo), x: c.x, y: c.y };
+  });
+  const byId = new Map(nodes.map((n) => [n.id, n]));
+  // Latch sides as in the layered drawing: Q and set ports in the top half, Q̄ and reset ports in the bottom.
+  const endY = (id: string, side: number): number => {
+    const n = byId.get(id);
+    return (n?.y ?? 0) + (side * (n?.height ?? 0)) / 4;
+  };
+  const edges = drafts.map((e) => ({
+    cord: e.cord,
+    from: e.from,
+    to: e.to,
+    style: e.style,
+    points: laid.route(e.from, e.to, endY(e.from, e.fromSide), endY(e.to, e.toSide)),
+  }));
+  const clusters = laid.bands.map((b) => ({
+    id: `bit ${b.bit}`,
+    label: `state bit q${b.bit}`,
+    x: b.x,
+    y: b.y,
+    width: b.width,
+    height: b.height,
+  }));
+  return fitted('stage-columns', nodes, clusters, edges);
+}
+
+/**
+ * Place every part: with dagre's layered layout up to LAYERED_MAX_PARTS parts, in stage columns
+ * past it (see the module comment).
+ */
+export function schematicLayout(build: Build): SchematicLayout {
+  const net = build.netlist;
+  const { shown, nodeOf } = drawnParts(net);
+  const g = layoutGraph({ compound: true, multigraph: true });
+  g.setGraph({ rankdir: 'LR', nodesep: 14, ranksep: 46, edgesep: 8, marginx: MARGIN, marginy: MARGIN });
+  g.setDefaultEdgeLabel(() => ({}));
+  const drafted = { g, shown, info: addPartNodes(g, net, shown) };
+  return net.parts.length > LAYERED_MAX_PARTS
+    ? columnLayout(net, drafted, nodeOf)
+    : layeredLayout(net, drafted, nodeOf);
 }
 
 /** The palettes: the paper one for documents, the screen one taking the page's theme variables. */
@@ -469,7 +568,7 @@ function edgeSvg(e: SchematicEdge): string {
   return `${line}<path d="M${t(7, 0.45)} L${b.x.toFixed(1)},${b.y.toFixed(1)} L${t(7, -0.45)} L${t(4.5, 0)} Z" class="tip" />`;
 }
 
-function legendSvg(y: number): string {
+function legendSvg(y: number, l: SchematicLayout): string {
   const kinds: [NodeKind, string][] = [
     ['operator', 'lever'],
     ['term', 'φ1 term'],
@@ -511,6 +610,16 @@ function legendSvg(y: number): string {
       'start',
     ),
   );
+  if (l.method === 'stage-columns')
+    out.push(
+      svgText(
+        MARGIN,
+        y + 39,
+        `Laid out in stage columns (more than ${LAYERED_MAX_PARTS} parts): each box stands in the column of its stage, near the boxes it is tied to; cords run behind the boxes, and the wiring list gives each cord's ends.`,
+        'legend',
+        'start',
+      ),
+    );
   return out.join('');
 }
 
@@ -529,13 +638,13 @@ export function schematicSvg(build: Build, layout?: SchematicLayout, options: Sc
     );
   for (const e of l.edges) body.push(edgeSvg(e));
   for (const n of l.nodes) body.push(nodeSvg(n));
-  body.push(legendSvg(l.height - LEGEND_H + 12));
+  body.push(legendSvg(l.height - legendHeight(l.method) + 12, l));
   const f = build.machine;
   return svgDocument(
     l.width,
     l.height,
     `Schematic — ${f.name}`,
-    `${l.nodes.length} parts and ${l.edges.length} cord branches of the lever machine ${f.name}, flowing left to right through one clock.`,
+    `${l.nodes.length} parts and ${l.edges.length} cord branches of the lever machine ${f.name}, flowing left to right through one clock${l.method === 'stage-columns' ? ', laid out in stage columns' : ''}.`,
     screen ? styleOf(SCREEN, `.${SCREEN_SCOPE}`) : styleOf(PAPER, ''),
     body,
     '',

@@ -1,9 +1,11 @@
+import { createHash } from 'node:crypto';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import type { Build } from '../../../src/core/model/build.js';
 import { DONT_CARE, type FlatMachine } from '../../../src/core/model/flat.js';
 import { coverContains, type Cube } from '../../../src/core/model/cube.js';
 import { parseGuard } from '../../../src/core/forms/expr.js';
-import { diagramLayout, diagramSvg } from '../../../src/core/export/diagram-svg.js';
+import { diagramLayout, diagramSvg, LAYERED_MAX_ITEMS } from '../../../src/core/export/diagram-svg.js';
 import { example, exampleNames, xmlProblems } from './support.js';
 
 type Box = { readonly x: number; readonly y: number; readonly width: number; readonly height: number };
@@ -32,6 +34,30 @@ function handBuild(): Build {
     ],
   };
   return { ...example('marble-bell.lw').build, machine, encoding: { strategy: 'binary', bits: 1, codes: ['0', '1'] } };
+}
+
+/**
+ * An invented counter of n positions with three buttons (step on, step back, jump to position
+ * 3·s mod n), binary codes: n states and 3n arrows; only the fields the diagram reads.
+ */
+function counterBuild(n: number): Build {
+  const machine: FlatMachine = {
+    name: 'counter',
+    inputs: ['on', 'back', 'jump'],
+    outputs: ['lamp'],
+    states: Array.from({ length: n }, (_, i) => `pos${i}`),
+    start: 0,
+    never: ['11-', '1-1', '-11'],
+    rows: Array.from({ length: n }, (_, s) => [
+      { cube: '100', next: (s + 1) % n, out: [s % 2 === 0 ? 0 : 1], transition: 0 },
+      { cube: '010', next: (s + n - 1) % n, out: [0], transition: 1 },
+      { cube: '001', next: (3 * s + 2) % n, out: [1], transition: 2 },
+      { cube: '000', next: s, out: [0], transition: -1 },
+    ]),
+  };
+  const bits = Math.ceil(Math.log2(n));
+  const codes = Array.from({ length: n }, (_, i) => i.toString(2).padStart(bits, '0'));
+  return { ...example('marble-bell.lw').build, machine, encoding: { strategy: 'binary', bits, codes } };
 }
 
 describe('core/export/diagram-svg', () => {
@@ -107,5 +133,43 @@ describe('core/export/diagram-svg', () => {
     expect(xmlProblems(svg)).toEqual([]);
     expect(svg).toContain('&lt;idle &amp; &quot;x&quot;&gt;');
     expect(svg).not.toContain('<idle');
+  });
+
+  // Stored digests of the examples' diagrams (binary codes), reviewed when they change: rewrite with
+  // LW_UPDATE_EXPECTED=1 npx vitest run tests/core/export/diagram-svg.test.ts
+  it('draws every example exactly as the stored digests say (layered layout)', () => {
+    const path = 'tests/fixtures/drawings/diagram-digests.json';
+    const digests: Record<string, string> = {};
+    for (const name of exampleNames()) {
+      const b = example(name).build;
+      expect(diagramLayout(b).method, name).toBe('layered');
+      digests[name] = createHash('sha256').update(diagramSvg(b)).digest('hex');
+    }
+    if (process.env.LW_UPDATE_EXPECTED === '1') writeFileSync(path, JSON.stringify(digests, null, 2) + '\n');
+    expect(existsSync(path), `${path} is missing`).toBe(true);
+    expect(digests).toEqual(JSON.parse(readFileSync(path, 'utf8')));
+  });
+
+  it('past the size bound, lays the states out in columns by distance, every state and arrow drawn', () => {
+    const b = counterBuild(150);
+    const l = diagramLayout(b);
+    expect(l.states.length + l.arrows.length).toBeGreaterThan(LAYERED_MAX_ITEMS);
+    expect(l.method).toBe('columns');
+    expect(l.states).toHaveLength(150);
+    // Every pair of different states with a transition between them is one arrow with a route.
+    const pairs = new Set(
+      b.machine.rows.flatMap((rows, s) => rows.filter((r) => r.next !== s && r.next >= 0).map((r) => `${s}>${r.next}`)),
+    );
+    expect(l.arrows.map((a) => `${a.from}>${a.to}`).sort()).toEqual([...pairs].sort());
+    for (const a of l.arrows) expect(a.points.length, `${a.from}>${a.to}`).toBeGreaterThanOrEqual(2);
+    for (let i = 0; i < l.states.length; i++)
+      for (let j = i + 1; j < l.states.length; j++)
+        expect(apart(l.states[i].outer, l.states[j].outer), `state ${i} × state ${j}`).toBe(true);
+    // Columns by the fewest clocks from the start: the start state alone in the first.
+    const start = l.states[b.machine.start];
+    expect(l.states.every((s) => s === start || s.x > start.x)).toBe(true);
+    const svg = diagramSvg(b);
+    expect(xmlProblems(svg)).toEqual([]);
+    expect(svg).toContain('Laid out in columns by the fewest clocks from the start state');
   });
 });

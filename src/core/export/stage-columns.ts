@@ -1,0 +1,217 @@
+/**
+ * Stage columns: the schematic's layout for machines past the layered layout's size bound
+ * (schematic-svg.ts). Every box goes into the column of its stage (stages.ts: levers, input
+ * inverters and reset driver, φ1 terms, master latches, φ2 transfers, slave latches, outputs,
+ * flags and actuators); the master latch, transfer gates and slave latch of one state bit form
+ * one band across their three columns, bands stacked in bit order. The other boxes of a column
+ * are ordered by the barycentre of the boxes they are already linked to (the barycentre
+ * heuristic of K. Sugiyama, S. Tagawa & M. Toda, "Methods for visual understanding of
+ * hierarchical system structures", IEEE Trans. SMC 11(2), 1981, here one pass outward from the
+ * bands) and each is put at that height or, when taken, just below the box above it.
+ *
+ * Cost: one pass over the boxes and links plus one sort per column, O((n + e) log n), where the
+ * layered layout's ranking and crossing reduction grow much faster (schematic-svg.ts gives the
+ * figures). The price: no crossing reduction between columns and no routing round boxes — a
+ * cord is a smooth line from its driver's right side to its target's left side (to the right
+ * side of a target in the same column, through the gap beside the column), drawn behind the
+ * boxes.
+ *
+ * The state diagram uses the same placement past its own size bound (diagram-svg.ts), with a
+ * state's distance from the start state as its rank and no bands.
+ *
+ * Preconditions: ranks are small non-negative integers; links name laid-out boxes. Postconditions:
+ * no two boxes overlap; every box of a lower rank lies left of every box of a higher rank.
+ */
+import type { Point } from './svg.js';
+
+/** A box to place: its size, stage rank, netlist position and, for a latch or transfer gate, its state bit. */
+export interface ColumnBox {
+  readonly id: string;
+  readonly width: number;
+  readonly height: number;
+  readonly rank: number;
+  readonly position: number;
+  readonly bit?: number;
+}
+
+/** A placed band: the boxes of one state bit and the rectangle round them (top-left corner). */
+export interface ColumnBand {
+  readonly bit: number;
+  readonly x: number;
+  readonly y: number;
+  readonly width: number;
+  readonly height: number;
+}
+
+export interface ColumnLayout {
+  /** Centre of every box. */
+  readonly centre: ReadonlyMap<string, Point>;
+  readonly bands: readonly ColumnBand[];
+  /**
+   * The route of a cord branch from `from` to `to`, leaving at height `fromY` and arriving at
+   * `toY` (a latch's set or reset half).
+   */
+  route(from: string, to: string, fromY: number, toY: number): Point[];
+}
+
+/** Space between boxes in a column, between columns, and round a band (its caption on top). */
+const BOX_GAP = 14;
+const COLUMN_GAP = 120;
+const BAND_PAD = 10;
+const BAND_TOP = 24;
+const BAND_GAP = 18;
+/** Horizontal run of a cord where it leaves or enters a box, so its arrow points along the flow. */
+const STUB = 16;
+
+interface Columns {
+  readonly ranks: readonly number[];
+  readonly members: ReadonlyMap<number, ColumnBox[]>;
+  readonly left: ReadonlyMap<number, number>;
+  readonly width: ReadonlyMap<number, number>;
+}
+
+/** Columns of boxes by rank, left to right; a column holding band boxes leaves room for the band's edge. */
+function columnsOf(boxes: readonly ColumnBox[]): Columns {
+  const members = new Map<number, ColumnBox[]>();
+  for (const b of boxes) {
+    const m = members.get(b.rank);
+    if (m) m.push(b);
+    else members.set(b.rank, [b]);
+  }
+  const ranks = [...members.keys()].sort((a, b) => a - b);
+  const left = new Map<number, number>();
+  const width = new Map<number, number>();
+  let x = 0;
+  for (const r of ranks) {
+    const m = members.get(r) ?? [];
+    const pad = m.some((b) => b.bit !== undefined) ? BAND_PAD : 0;
+    const w = Math.max(...m.map((b) => b.width)) + 2 * pad;
+    left.set(r, x);
+    width.set(r, w);
+    x += w + COLUMN_GAP;
+  }
+  return { ranks, members, left, width };
+}
+
+/** Stack the bands in bit order; returns the bands and the height below them. */
+function placeBands(cols: Columns, centre: Map<string, Point>): { bands: ColumnBand[]; bottom: number } {
+  const byBit = new Map<number, ColumnBox[]>();
+  for (const r of cols.ranks)
+    for (const b of cols.members.get(r) ?? [])
+      if (b.bit !== undefined) byBit.set(b.bit, [...(byBit.get(b.bit) ?? []), b]);
+  const bands: ColumnBand[] = [];
+  let y = 0;
+  for (const bit of [...byBit.keys()].sort((a, b) => a - b)) {
+    const parts = byBit.get(bit) ?? [];
+    const ranks = [...new Set(parts.map((b) => b.rank))];
+    const stackH = (r: number): number =>
+      parts.filter((b) => b.rank === r).reduce((h, b) => h + b.height + BOX_GAP, -BOX_GAP);
+    const inner = Math.max(...ranks.map(stackH));
+    for (const r of ranks) {
+      const cx = (cols.left.get(r) ?? 0) + (cols.width.get(r) ?? 0) / 2;
+      let top = y + BAND_TOP + (inner - stackH(r)) / 2;
+      for (const b of parts.filter((p) => p.rank === r)) {
+        centre.set(b.id, { x: cx, y: top + b.height / 2 });
+        top += b.height + BOX_GAP;
+      }
+    }
+    const x0 = Math.min(...ranks.map((r) => cols.left.get(r) ?? 0));
+    const x1 = Math.max(...ranks.map((r) => (cols.left.get(r) ?? 0) + (cols.width.get(r) ?? 0)));
+    const height = BAND_TOP + inner + BAND_PAD;
+    bands.push({ bit, x: x0, y, width: x1 - x0, height });
+    y += height + BAND_GAP;
+  }
+  return { bands, bottom: y };
+}
+
+/**
+ * Place one column's boxes not yet placed: by the barycentre of their placed neighbours (the
+ * others after them, in netlist order), each at its barycentre or just below the box above.
+ */
+function placeColumn(
+  cols: Columns,
+  rank: number,
+  top: number,
+  centre: Map<string, Point>,
+  neighbours: ReadonlyMap<string, readonly string[]>,
+): void {
+  const cx = (cols.left.get(rank) ?? 0) + (cols.width.get(rank) ?? 0) / 2;
+  const want = (b: ColumnBox): number => {
+    const ys = (neighbours.get(b.id) ?? []).flatMap((n) => {
+      const c = centre.get(n);
+      return c ? [c.y] : [];
+    });
+    return ys.length > 0 ? ys.reduce((s, y) => s + y, 0) / ys.length : Infinity;
+  };
+  const free = (cols.members.get(rank) ?? [])
+    .filter((b) => !centre.has(b.id))
+    .map((b) => ({ b, at: want(b) }))
+    .sort((p, q) => (p.at === q.at ? p.b.position - q.b.position : p.at < q.at ? -1 : 1));
+  let cursor = top;
+  for (const { b, at } of free) {
+    const y = Number.isFinite(at) ? Math.max(at - b.height / 2, cursor) : cursor;
+    centre.set(b.id, { x: cx, y: y + b.height / 2 });
+    cursor = y + b.height + BOX_GAP;
+  }
+}
+
+/** Lay the boxes out in stage columns (see the module comment); `links` are the cord branches. */
+export function stageColumns(
+  boxes: readonly ColumnBox[],
+  links: readonly { readonly from: string; readonly to: string }[],
+): ColumnLayout {
+  const cols = columnsOf(boxes);
+  const centre = new Map<string, Point>();
+  const { bands, bottom } = placeBands(cols, centre);
+  const neighbours = new Map<string, string[]>();
+  const link = (a: string, b: string): void => {
+    const n = neighbours.get(a);
+    if (n) n.push(b);
+    else neighbours.set(a, [b]);
+  };
+  for (const l of links) {
+    link(l.from, l.to);
+    link(l.to, l.from);
+  }
+  // Outward from the bands: their own columns (below them), then leftwards, then rightwards.
+  const bandRanks = new Set(boxes.filter((b) => b.bit !== undefined).map((b) => b.rank));
+  const first = bandRanks.size > 0 ? Math.min(...bandRanks) : (cols.ranks[0] ?? 0);
+  const order = [
+    ...cols.ranks.filter((r) => bandRanks.has(r)),
+    ...cols.ranks.filter((r) => r < first && !bandRanks.has(r)).reverse(),
+    ...cols.ranks.filter((r) => r >= first && !bandRanks.has(r)),
+  ];
+  for (const r of order) placeColumn(cols, r, bandRanks.has(r) ? bottom : 0, centre, neighbours);
+
+  const box = new Map(boxes.map((b) => [b.id, b]));
+  const sideX = (id: string, right: boolean): number => {
+    const b = box.get(id);
+    const c = centre.get(id);
+    return (c?.x ?? 0) + ((right ? 1 : -1) * (b?.width ?? 0)) / 2;
+  };
+  return {
+    centre,
+    bands,
+    route(from, to, fromY, toY) {
+      const a = sideX(from, true);
+      if (box.get(from)?.rank === box.get(to)?.rank) {
+        const r = box.get(from)?.rank ?? 0;
+        const lane = (cols.left.get(r) ?? 0) + (cols.width.get(r) ?? 0) + STUB;
+        const b = sideX(to, true);
+        return [
+          { x: a, y: fromY },
+          { x: lane, y: fromY },
+          { x: lane, y: toY },
+          { x: b, y: toY },
+        ];
+      }
+      const b = sideX(to, false);
+      return [
+        { x: a, y: fromY },
+        { x: a + STUB, y: fromY },
+        { x: b - STUB, y: toY },
+        { x: b, y: toY },
+      ];
+    },
+  };
+}
