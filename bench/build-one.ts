@@ -3,7 +3,7 @@
  * resident memory is the build's own): `node --import tsx bench/build-one.ts SOURCE [ENCODING]`
  * where SOURCE is a machine file or `random:STATES:INPUTS:OUTPUTS:SEED`, and ENCODING a named
  * encoding (default: the searched codes). It builds as the command line does (the encoding
- * search on worker threads, every check) and prints one JSON line:
+ * search on worker threads from 130 states, every check) and prints one JSON line:
  * the wall time of the whole build, of the encoding search and of the checks, the parts cost,
  * whether every check passed, and the peak resident memory.
  */

@@ -1,6 +1,6 @@
 /**
  * The build table of `npm run bench`: every LGSynth'91 machine built as the command line
- * builds it (the encoding search on worker threads, every check), each in a child process
+ * builds it (the encoding search on worker threads from 130 states, every check), each in a child process
  * (build-one.ts) so that its peak resident memory is its own (a build over 5 s three times,
  * its median run kept); then the growth of the build
  * time per doubling of states on random machines of 4–128 states (4 inputs, 2 outputs).
@@ -134,7 +134,7 @@ async function machineRows(
 const TABLE_HEAD = [
   "## Builds of the LGSynth'91 machines",
   '',
-  "Each build as `latchwright build` runs it (encoding search on worker threads, every check), in a child process of its own; a build over 5 s is run three times and the row is its median run. Goals: under 10 s and under 500 MB peak resident memory each. The shipped profile's frame carries 2 drums of at most 1.5 m, so a larger machine fails the layout check and says what to change (tests/core/checks/lgsynth91.test.ts builds every machine with every check passing under a profile that allows more drums). Under the table, the slowest build stands beside a reference measured in the same run (one fixed build with no search, at the start, middle and end of the table) as a ratio, which carries across machines and busy days better than the seconds.",
+  "Each build as `latchwright build` runs it (encoding search on worker threads from 130 states, src/cli/search-pool.ts, every check), in a child process of its own; a build over 5 s is run three times and the row is its median run. Goals: under 10 s and under 500 MB peak resident memory each. The shipped profile's frame carries 2 drums of at most 1.5 m, so a larger machine fails the layout check and says what to change (tests/core/checks/lgsynth91.test.ts builds every machine with every check passing under a profile that allows more drums). Under the table, the slowest build stands beside a reference measured in the same run (one fixed build with no search, at the start, middle and end of the table) as a ratio, which carries across machines and busy days better than the seconds.",
   '',
   '| machine | states (→ minimised) | build s | search s (share) | checks s | parts cost | peak RSS MB | checks |',
   '|---|---|---|---|---|---|---|---|',

@@ -1,6 +1,6 @@
 /**
- * The encoding search of a build on worker threads (node:worker_threads), so a build uses
- * every core. The core plans the search as batches of independent tasks and merges their
+ * The encoding search of a large build on worker threads (node:worker_threads), so it uses
+ * every core (a smaller one runs here: THREADS_FROM_STATES says why). The core plans the search as batches of independent tasks and merges their
  * results in task order (src/core/search.ts, src/core/phases/encode/search.ts); here each
  * batch is handed out to a pool of workers (search-worker.ts), one task at a time to whichever
  * is free. The answer is the one the core's own search gives for the same seed, whatever the
@@ -35,12 +35,22 @@ export type FromSearchWorker =
   | { readonly kind: 'done'; readonly id: number; readonly result: TaskResult }
   | { readonly kind: 'failed'; readonly id: number; readonly message: string };
 
-/** Below this many states the search takes well under the time threads need to start: it runs here. */
-export const THREADS_FROM_STATES = 6;
+/**
+ * Below this many states (after state minimisation) the search runs on this thread alone. A
+ * worker takes about half a second to start and build its search context, and the search's
+ * batches are few and uneven, so on two cores the pool paid off on only one machine of those
+ * measured (median of 3–5 interleaved runs of the search alone, compiled CLI, 2 cores, one
+ * thread against two workers): bbara (7 states) 0.23 s against 0.78 s, ex4 (14) 0.92 s against
+ * 1.67 s, tbk (16) 1.12 s against 1.90 s, s1488 (48) 2.04 s against 2.66 s, scf (94) 3.77 s
+ * against 4.07 s, random machines of 64, 96 and 128 states (src/core/sim/random-machine.ts,
+ * 4 inputs, seed 1) 1.72 / 2.76 / 1.91 s against 2.57 / 3.14 / 2.56 s — and s298 (135)
+ * 5.77 s against 5.07 s.
+ */
+export const THREADS_FROM_STATES = 130;
 
 /**
- * The outcome of the build's automatic search, run on up to `threads` worker threads; undefined
- * when the build does not search (another encoding, or options the build itself will reject),
+ * The outcome of the build's automatic search, run on up to `threads` worker threads when the
+ * machine has at least `fromStates` states (else here); undefined when the build does not search (another encoding, or options the build itself will reject),
  * so the caller builds as usual.
  */
 export async function searchOnThreads(
@@ -48,11 +58,12 @@ export async function searchOnThreads(
   opts: BuildOptions,
   threads: number,
   onProgress?: (p: Progress) => void,
+  fromStates = THREADS_FROM_STATES,
 ): Promise<EncodeResult | undefined> {
   const planned = planBuildSearch(a, opts, onProgress);
   if (!planned) return undefined;
   const { setup, plan, diagnostics } = planned;
-  const pool = threads >= 2 && setup.machine.states.length >= THREADS_FROM_STATES ? startPool(setup, threads) : [];
+  const pool = threads >= 2 && setup.machine.states.length >= fromStates ? startPool(setup, threads) : [];
   const local = searchTaskRunner(setup);
   try {
     for (let batch = plan.next(); batch.length > 0; batch = plan.next()) {
