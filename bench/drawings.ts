@@ -11,17 +11,9 @@ import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import { analyse, buildMachine, diagramSvg, schematicSvg, type Build } from '../src/core/index.js';
 import { median } from './median.js';
+import { ms, type BenchRow } from './row.js';
 
-/** A line of the benchmark table of docs/benchmarks.md. */
-export interface DrawingBenchRow {
-  readonly name: string;
-  readonly figure: string;
-  readonly reference: string;
-  readonly ratio: string;
-  readonly goal: string;
-}
-
-const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
+export type DrawingBenchRow = BenchRow;
 
 /** Goals of the schematic's time: a few seconds at most for any build (scf and s298 named). */
 const SCHEMATIC_GOAL: Readonly<Record<string, string>> = { scf: '< 2 s', s298: '< 5 s' };

@@ -20,14 +20,9 @@ import {
 } from '../src/core/phases/minimise-logic/index.js';
 import { type Random, seededRandom } from '../src/core/index.js';
 import { literalCount, subtract } from '../src/core/model/index.js';
+import { ms, type BenchRow } from './row.js';
 
-export interface MinimiserBenchRow {
-  readonly name: string;
-  readonly figure: string;
-  readonly reference: string;
-  readonly ratio: string;
-  readonly goal: string;
-}
+export type MinimiserBenchRow = BenchRow;
 
 interface Case {
   readonly n: number;
@@ -82,8 +77,6 @@ function totals(covers: readonly (readonly string[])[]): { terms: number; litera
   }
   return { terms, literals };
 }
-
-const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
 
 /**
  * Median wall times of `passes` runs of each of ours and theirs, alternating within every pass

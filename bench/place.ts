@@ -19,18 +19,11 @@ import { DEFAULT_PROFILE, type Profile } from '../src/core/physics/index.js';
 import { frameUnits } from '../src/core/phases/place/index.js';
 import { randomNetlist } from '../tests/core/phases/place/support.js';
 import { median, middle } from './median.js';
+import { ms, type BenchRow } from './row.js';
 
-/** A line of the benchmark table of docs/benchmarks.md. */
-export interface PlaceBenchRow {
-  readonly name: string;
-  readonly figure: string;
-  readonly reference: string;
-  readonly ratio: string;
-  readonly goal: string;
-}
+export type PlaceBenchRow = BenchRow;
 
 const ONE_DRUM: Profile = { ...DEFAULT_PROFILE, frame: { ...DEFAULT_PROFILE.frame, longestDrumM: 1000 } };
-const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
 const pct = (a: number, b: number): string => `${((1 - a / b) * 100).toFixed(1)} %`;
 const pc = (x: number): string => `${(x * 100).toFixed(1)} %`;
 

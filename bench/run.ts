@@ -21,16 +21,7 @@ import { median } from './median.js';
 import { benchBuildTable } from './build-table.js';
 import { benchDrawings } from './drawings.js';
 import { flatToJsonText, mustAnalyse } from './machines.js';
-
-interface Row {
-  readonly name: string;
-  readonly figure: string;
-  readonly reference: string;
-  readonly ratio: string;
-  readonly goal: string;
-}
-
-const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
+import { ms, type BenchRow } from './row.js';
 
 function mustBuild(a: Analysed, encoding: 'auto' | 'binary', checks = true): Built {
   const b = buildMachine(a, { encoding, checks });
@@ -38,7 +29,7 @@ function mustBuild(a: Analysed, encoding: 'auto' | 'binary', checks = true): Bui
   return b;
 }
 
-function benchAnalyse(): Row {
+function benchAnalyse(): BenchRow {
   const text = flatToJsonText(randomFlatMachine(1000, 6, 3, 7));
   const t = median(5, () => mustAnalyse(text, 'random-1000.json'));
   const ref = median(5, () => JSON.parse(text) as unknown);
@@ -51,7 +42,7 @@ function benchAnalyse(): Row {
   };
 }
 
-function benchAuto(): Row {
+function benchAuto(): BenchRow {
   const text = flatToJsonText(randomFlatMachine(16, 4, 2, 11));
   const a = mustAnalyse(text, 'random-16.json');
   const t = median(3, () => mustBuild(a, 'auto', false));
@@ -65,7 +56,7 @@ function benchAuto(): Row {
   };
 }
 
-function benchDrive(): Row {
+function benchDrive(): BenchRow {
   const sizes = readdirSync('examples')
     .filter((f) => f.endsWith('.lw'))
     .map((f) => ({ f, a: mustAnalyse(readFileSync(`examples/${f}`, 'utf8'), f) }))
@@ -87,7 +78,7 @@ function benchDrive(): Row {
 }
 
 async function main(): Promise<void> {
-  const rows: Row[] = [];
+  const rows: BenchRow[] = [];
   const step = (label: string): void => void process.stdout.write(`bench: ${label}…\n`);
   step('analyse');
   rows.push(benchAnalyse());

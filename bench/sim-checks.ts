@@ -42,14 +42,9 @@ import {
   stateAtCode,
 } from '../src/core/sim/index.js';
 import { flatToJsonText, mustAnalyse } from './machines.js';
+import { ms, type BenchRow } from './row.js';
 
-export interface SimBenchRow {
-  readonly name: string;
-  readonly figure: string;
-  readonly reference: string;
-  readonly ratio: string;
-  readonly goal: string;
-}
+export type SimBenchRow = BenchRow;
 
 /** CPU milliseconds (user + system) of one call. */
 function cpu(fn: () => void): number {
@@ -71,7 +66,6 @@ function interleaved(runs: number, a: () => void, b: () => void): [number, numbe
   return [mid(ta), mid(tb)];
 }
 
-const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
 const rate = (n: number, t: number): string => `${Math.round((n / t) * 1000).toLocaleString('en')}`;
 
 /** A build without its checks, with `encoding` or else the command line's default (as the designer builds). */

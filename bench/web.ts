@@ -26,20 +26,14 @@ import { machineHash } from '../src/web/controllers/link.js';
 import { buildJob, readJob } from '../src/web/worker/jobs.js';
 import { DEFAULT_SETTINGS } from '../src/web/worker/protocol.js';
 import { launchChromium } from '../tests/web/chromium.js';
+import { ms, type BenchRow } from './row.js';
 
-export interface WebRow {
-  readonly name: string;
-  readonly figure: string;
-  readonly reference: string;
-  readonly ratio: string;
-  readonly goal: string;
-}
+export type WebRow = BenchRow;
 
 const KEYSTROKES = 7;
 /** The 16-state machine: cse from the MCNC / LGSynth'91 set (16 states after minimisation, 7 inputs). */
 const SIXTEEN = 'tests/fixtures/lgsynth91/cse.json';
 
-const ms = (x: number): string => (x >= 1000 ? `${(x / 1000).toFixed(2)} s` : `${x.toFixed(1)} ms`);
 const median = (xs: readonly number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
 /** In-page time (ms since navigation) when the app has answered job `job` up to `stage` ('shown': a draft or the final build). */
