@@ -1,10 +1,13 @@
 /**
  * Helpers for the export tests: the examples built through the pipeline, a strict XML
  * well-formedness checker (for the SVG and the HTML, which is written as well-formed XML),
- * a small JSON Schema (2020-12) validator for the subset the netlist schema uses, and a
- * machine whose names hold quotes, `<`, `&` and formula characters.
+ * a small JSON Schema (2020-12) validator for the subset the netlist schema uses, a
+ * machine whose names hold quotes, `<`, `&` and formula characters, and drawings held to
+ * their stored digests.
  */
-import { readdirSync, readFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { expect } from 'vitest';
 import { analyse, buildMachine, type Built } from '../../../src/core/pipeline.js';
 import type { FlatMachine } from '../../../src/core/model/flat.js';
 
@@ -231,4 +234,17 @@ export function evilBuild(): Built {
     .replaceAll('\u0001', JSON.stringify(EVIL.machine).slice(1, -1));
   const { build, placement } = JSON.parse(json) as Pick<Built, 'build' | 'placement'>;
   return { ...b, build, placement };
+}
+
+/**
+ * Each drawing's SHA-256 digest equals the one stored at `path` (a JSON object by name), so a
+ * drawing that changes at all fails; `LW_UPDATE_EXPECTED=1` rewrites the file, to be reviewed.
+ */
+export function expectStoredDigests(path: string, drawings: Readonly<Record<string, string>>): void {
+  const digests = Object.fromEntries(
+    Object.entries(drawings).map(([name, svg]) => [name, createHash('sha256').update(svg).digest('hex')]),
+  );
+  if (process.env.LW_UPDATE_EXPECTED === '1') writeFileSync(path, JSON.stringify(digests, null, 2) + '\n');
+  expect(existsSync(path), `${path} is missing`).toBe(true);
+  expect(digests).toEqual(JSON.parse(readFileSync(path, 'utf8')));
 }
