@@ -58,7 +58,7 @@ import {
   type Trit,
 } from '../sim/part.js';
 import { LaneBatch } from '../sim/lanes.js';
-import { sweep } from '../sim/sweep.js';
+import { batchKey, sweep } from '../sim/sweep.js';
 import { Compatibility } from './compatibility.js';
 import type { SpecInfo } from './spec.js';
 
@@ -329,6 +329,8 @@ class Explorer {
           b.setLatches(lane, start);
           b.setInputs(lane, list[i]);
         },
+        // The exhaustive list's clocks are the same as other checks' from the same latches (sim/sweep.ts).
+        recordKey: (first, n) => (list === this.all ? batchKey(start, list, first, n) : undefined),
         held: (b, lane) => b.outputs(lane),
         done: (i, b, lane, shown) => {
           clocks.outputs.set(shown ?? [], i * outs);

@@ -26,7 +26,7 @@ import type { Profile } from '../physics/profile.js';
 import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
 import { clockFrom } from '../sim/clocking.js';
 import { LANES, LaneBatch } from '../sim/lanes.js';
-import { sweep as sweepLanes } from '../sim/sweep.js';
+import { codesBatchKey, sweep as sweepLanes } from '../sim/sweep.js';
 import { clockActions, describeTrace, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
 import {
   applyInPlace,
@@ -169,6 +169,7 @@ function sweep(sim: PartSim, scope: Scope): { states: number; failure?: Forbidde
           b.setCodes(lane, c, m);
           b.setInputs(lane, scope.tries[i]);
         },
+        recordKey: (first, n) => codesBatchKey(sim, c, m, scope.tries, first, n),
         done: () => void states++,
         slow: (i) => {
           states++;

@@ -109,14 +109,16 @@ export function checkNextStateEquivalence(build: Build): NextStateResult {
   });
   for (let s = 0; s < f.states.length; s++) {
     const code = codes[s];
+    // Each equation's terms that can hold at this code, in order: the others meet no cube of this state.
+    const at = eq.map((e) => termsAtCode(e.terms, code));
     for (const row of f.rows[s]) {
       cells++;
       const x = code + row.cube;
       if (row.next !== DONT_CARE) {
         const to = codes[row.next];
         for (let j = 0; j < bits; j++) {
-          const set = eq[2 * j].terms,
-            reset = eq[2 * j + 1].terms;
+          const set = at[2 * j],
+            reset = at[2 * j + 1];
           const want = to[j] === '1' ? 1 : 0;
           // Wrong where the opposite input fires, or where the needed input is missing.
           const bad =
@@ -127,7 +129,7 @@ export function checkNextStateEquivalence(build: Build): NextStateResult {
       for (let k = 0; k < f.outputs.length; k++) {
         const v = row.out[k];
         if (v === '-') continue;
-        const terms = eq[2 * bits + k].terms;
+        const terms = at[2 * bits + k];
         const bad = v === 1 ? miss(x, terms) : meet(x, terms);
         if (bad !== null) return fail(s, bad, `output ${f.outputs[k]}`, v, v === 1 ? 0 : 1);
       }
@@ -139,6 +141,18 @@ export function checkNextStateEquivalence(build: Build): NextStateResult {
     summary: `next codes and outputs match the specification in all ${f.states.length} states (${cells} input cubes)`,
     cellsChecked: cells,
   };
+}
+
+/**
+ * The terms of a cover that agree with a state code on its bits (the code's variables come
+ * first), in cover order. A term left out is disjoint from every cube of that code, so it
+ * changes neither where the cover meets such a cube nor what subtracting it leaves.
+ */
+function termsAtCode(cover: readonly Cube[], code: string): readonly Cube[] {
+  return cover.filter((t) => {
+    for (let i = 0; i < code.length; i++) if (t[i] !== '-' && t[i] !== code[i]) return false;
+    return true;
+  });
 }
 
 /** A point of cube x where the cover holds, or null. */

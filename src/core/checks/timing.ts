@@ -24,7 +24,7 @@ import type { Profile } from '../physics/profile.js';
 import { describeInputs, inputAssignments, machineInputs } from '../sim/assignments.js';
 import { clockFrom, latchKey } from '../sim/clocking.js';
 import { LaneBatch } from '../sim/lanes.js';
-import { sweep } from '../sim/sweep.js';
+import { batchKey, sweep } from '../sim/sweep.js';
 import { retimed, X, type PartSim } from '../sim/compile.js';
 import { resetActions } from '../sim/hand.js';
 import { applyInPlace, latchesOf, powerUp, show, simFor, slaveCode, stateAtLatches, timingOf } from '../sim/part.js';
@@ -241,6 +241,7 @@ function nominalReplay(sim: PartSim, limit: number, seed: number): Replay[] {
           b.setLatches(lane, base);
           b.setInputs(lane, tries[k]);
         },
+        recordKey: (first, n) => batchKey(base, tries, first, n),
         held: (b, lane) => b.outputs(lane).map(show).join(''),
         done: (k, b, lane, outputs) => {
           code ||= slaveCodeOf(sim, base);
