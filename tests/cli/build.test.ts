@@ -198,6 +198,16 @@ describe('cli/commands/build (text report)', () => {
   });
 });
 
+describe('cli/commands/build (text report) of a build with no latches', () => {
+  it('says the guard is not needed rather than proven for latches it does not have (examples/odd-lever.lw)', async () => {
+    const t = await run(['build', 'examples/odd-lever.lw']);
+    expect(t.code).toBe(0);
+    expect(t.out).toContain('parts: 0 latches, ');
+    expect(t.out).toContain('forbidden-input guard: none needed (no latches)\n');
+    expect(t.out).not.toContain('proven for every latch');
+  });
+});
+
 describe('cli/commands/build with a low-friction profile', () => {
   // Capstan equation (Euler–Eytelwein): gain e^(μθ), θ = 2 wraps = 4π. With the 15 g hold weight
   // and 15 g per port, μ = 0.16 gives 15·e^(0.64π) ≈ 112 g, room for 3 ports at margin 2 even after

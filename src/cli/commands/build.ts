@@ -50,7 +50,9 @@ export function textReport(b: Built): string {
   );
   const g = b.build.guard;
   lines.push(
-    `forbidden-input guard (${g.method}): ${g.ok ? 'S·R = 0 proven for every latch' : 'NOT proven'}; cost ${g.extraGates} gates, ${g.extraCords} cords over an unguarded build`,
+    p.latches === 0
+      ? 'forbidden-input guard: none needed (no latches)'
+      : `forbidden-input guard (${g.method}): ${g.ok ? 'S·R = 0 proven for every latch' : 'NOT proven'}; cost ${counted(g.extraGates, 'gate')}, ${counted(g.extraCords, 'cord')} over an unguarded build`,
   );
   lines.push('equations:');
   for (const e of equationTexts(b)) lines.push(`  ${e.name} = ${e.expr}`);
