@@ -76,6 +76,7 @@ export function countColumnCrossings(g: CrossingGeometry, y: ArrayLike<number>):
   for (const { from, to } of g.cords) {
     const cf = g.column[from];
     const ct = g.column[to];
+    tied[from] = tied[to] = true;
     if (cf === ct) {
       lanes.push([cf, Math.min(y[from], y[to]), Math.max(y[from], y[to])]);
       continue;
@@ -83,10 +84,10 @@ export function countColumnCrossings(g: CrossingGeometry, y: ArrayLike<number>):
     const [ca, ya, cb, yb] = cf < ct ? [cf, y[from], ct, y[to]] : [ct, y[to], cf, y[from]];
     const x0 = edge(2 * ca + 1);
     const x1 = edge(2 * cb);
-    const at = (x: number): number => (x1 === x0 ? ya : ya + ((yb - ya) * (x - x0)) / (x1 - x0));
+    // The ends exactly (cords sharing an end must not seem to cross by rounding), the rest interpolated.
+    const at = (x: number): number => (x === x1 ? yb : x === x0 ? ya : ya + ((yb - ya) * (x - x0)) / (x1 - x0));
     for (let s = 2 * ca + 1; s < 2 * cb; s++) strips[s].push([at(edge(s)), at(edge(s + 1))]);
     for (let c = ca + 1; c < cb; c++) passing[c].push(at(edge(2 * c + 1)));
-    tied[from] = tied[to] = true;
   }
   // A box with cords stands across its column's strip (its stubs and itself): a cord passing the column crosses it.
   tied.forEach((t, i) => {

@@ -196,10 +196,16 @@ function reorder(
   });
 }
 
+export interface StageColumnOptions {
+  /** Reduce the crossings after the first placement (column-order.ts); on unless told otherwise. */
+  readonly reduceCrossings?: boolean;
+}
+
 /** Lay the boxes out in stage columns (see the module comment); `links` are the cord branches. */
 export function stageColumns(
   boxes: readonly ColumnBox[],
   links: readonly { readonly from: string; readonly to: string }[],
+  options: StageColumnOptions = {},
 ): ColumnLayout {
   const cols = columnsOf(boxes);
   const centre = new Map<string, Point>();
@@ -223,7 +229,7 @@ export function stageColumns(
     ...cols.ranks.filter((r) => r >= first && !bandRanks.has(r)),
   ];
   for (const r of order) placeColumn(cols, r, bandRanks.has(r) ? bottom : 0, centre, neighbours);
-  reorder(cols, boxes, links, centre, bottom);
+  if (options.reduceCrossings !== false) reorder(cols, boxes, links, centre, bottom);
 
   const box = new Map(boxes.map((b) => [b.id, b]));
   const sideX = (id: string, right: boolean): number => {
