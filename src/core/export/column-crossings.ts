@@ -32,9 +32,8 @@ export interface CrossingGeometry {
   readonly stub: number;
 }
 
-/** Pairs i < j with a[i] > a[j] (strictly), by merge sort; sorts `a`. */
-function inversions(a: number[]): number {
-  const buf = new Array<number>(a.length);
+/** Pairs i < j with a[i] > a[j] (strictly), by merge sort; sorts `a`, using `buf` (as long) as scratch. */
+function inversions(a: Float64Array, buf: Float64Array): number {
   let n = 0;
   for (let width = 1; width < a.length; width *= 2) {
     for (let lo = 0; lo < a.length - width; lo += 2 * width) {
@@ -52,51 +51,101 @@ function inversions(a: number[]): number {
       }
       while (i < mid) buf[k++] = a[i++];
       while (j < hi) buf[k++] = a[j++];
-      for (let t = lo; t < hi; t++) a[t] = buf[t];
+      a.set(buf.subarray(lo, hi), lo);
     }
   }
   return n;
 }
 
-/** Crossings within one strip: `ends` holds, per cord in it, its height at the strip's left and right edge. */
-function stripCrossings(ends: [number, number][]): number {
-  ends.sort((p, q) => p[0] - q[0] || p[1] - q[1]);
-  return inversions(ends.map((e) => e[1]));
+/** The pieces of all strips, strip by strip: piece k runs from height `left[k]` to `right[k]`. */
+interface Pieces {
+  /** Pieces of strip s: start[s] … start[s + 1] - 1. */
+  readonly start: Int32Array;
+  readonly left: Float64Array;
+  readonly right: Float64Array;
+}
+
+/** Crossings within each strip: the inversions between the pieces' order at its left edge and at its right edge. */
+function stripCrossings({ start, left, right }: Pieces): number {
+  const order = new Int32Array(left.length).map((_, k) => k);
+  const seq = new Float64Array(left.length);
+  const buf = new Float64Array(left.length);
+  let n = 0;
+  for (let s = 0; s + 1 < start.length; s++) {
+    const lo = start[s];
+    const hi = start[s + 1];
+    if (hi - lo < 2) continue;
+    const strip = order.subarray(lo, hi).sort((p, q) => left[p] - left[q] || right[p] - right[q]);
+    for (let k = 0; k < strip.length; k++) seq[k] = right[strip[k]];
+    n += inversions(seq.subarray(0, hi - lo), buf.subarray(0, hi - lo));
+  }
+  return n;
+}
+
+/**
+ * Every strip's pieces (see the module comment), and the heights where cords pass each column
+ * (at the lane beside it). Strip edges: 2c is column c's left edge less the stub, 2c + 1 its
+ * right edge plus the stub; strip s lies between edges s and s + 1.
+ */
+function piecesOf(g: CrossingGeometry, y: ArrayLike<number>): { pieces: Pieces; passing: number[][] } {
+  const cols = g.left.length;
+  const edge = new Float64Array(2 * cols);
+  for (let c = 0; c < cols; c++) {
+    edge[2 * c] = g.left[c] - g.stub;
+    edge[2 * c + 1] = g.right[c] + g.stub;
+  }
+  const strips = Math.max(0, 2 * cols - 1);
+  const tied = new Uint8Array(g.column.length);
+  const start = new Int32Array(strips + 1);
+  for (const { from, to } of g.cords) {
+    tied[from] = tied[to] = 1;
+    const [a, b] = [g.column[from], g.column[to]].sort((p, q) => p - q);
+    for (let s = 2 * a + 1; s < 2 * b; s++) start[s + 1]++;
+  }
+  // A box with cords stands across its column's strip (its stubs and itself): a cord passing the column crosses it.
+  tied.forEach((t, i) => {
+    if (t) start[2 * g.column[i] + 1]++;
+  });
+  for (let s = 0; s < strips; s++) start[s + 1] += start[s];
+  const fill = start.slice(0, strips);
+  const left = new Float64Array(start[strips]);
+  const right = new Float64Array(start[strips]);
+  const passing: number[][] = Array.from({ length: cols }, () => []);
+  for (const { from, to } of g.cords) {
+    const cf = g.column[from];
+    const ct = g.column[to];
+    if (cf === ct) continue;
+    const [ca, ya, cb, yb] = cf < ct ? [cf, y[from], ct, y[to]] : [ct, y[to], cf, y[from]];
+    const x0 = edge[2 * ca + 1];
+    const x1 = edge[2 * cb];
+    // The ends exactly (cords sharing an end must not seem to cross by rounding), the rest interpolated.
+    const at = (e: number): number =>
+      e === 2 * cb ? yb : e === 2 * ca + 1 ? ya : ya + ((yb - ya) * (edge[e] - x0)) / (x1 - x0);
+    for (let s = 2 * ca + 1; s < 2 * cb; s++) {
+      left[fill[s]] = at(s);
+      right[fill[s]++] = at(s + 1);
+    }
+    for (let c = ca + 1; c < cb; c++) passing[c].push(at(2 * c + 1));
+  }
+  tied.forEach((t, i) => {
+    if (!t) return;
+    const s = 2 * g.column[i];
+    left[fill[s]] = right[fill[s]++] = y[i];
+  });
+  return { pieces: { start, left, right }, passing };
 }
 
 /** Crossings of the drawn cords with the boxes' centres at `y` (see the module comment). */
 export function countColumnCrossings(g: CrossingGeometry, y: ArrayLike<number>): number {
-  const cols = g.left.length;
-  // Strip edges: 2c is column c's left edge less the stub, 2c + 1 its right edge plus the stub.
-  const edge = (i: number): number => (i % 2 === 0 ? g.left[i / 2] - g.stub : g.right[(i - 1) / 2] + g.stub);
-  const strips: [number, number][][] = Array.from({ length: Math.max(0, 2 * cols - 1) }, () => []);
-  const passing: number[][] = Array.from({ length: cols }, () => []);
-  const lanes: [number, number, number][] = [];
-  const tied = new Array<boolean>(g.column.length).fill(false);
-  for (const { from, to } of g.cords) {
-    const cf = g.column[from];
-    const ct = g.column[to];
-    tied[from] = tied[to] = true;
-    if (cf === ct) {
-      lanes.push([cf, Math.min(y[from], y[to]), Math.max(y[from], y[to])]);
-      continue;
-    }
-    const [ca, ya, cb, yb] = cf < ct ? [cf, y[from], ct, y[to]] : [ct, y[to], cf, y[from]];
-    const x0 = edge(2 * ca + 1);
-    const x1 = edge(2 * cb);
-    // The ends exactly (cords sharing an end must not seem to cross by rounding), the rest interpolated.
-    const at = (x: number): number => (x === x1 ? yb : x === x0 ? ya : ya + ((yb - ya) * (x - x0)) / (x1 - x0));
-    for (let s = 2 * ca + 1; s < 2 * cb; s++) strips[s].push([at(edge(s)), at(edge(s + 1))]);
-    for (let c = ca + 1; c < cb; c++) passing[c].push(at(edge(2 * c + 1)));
-  }
-  // A box with cords stands across its column's strip (its stubs and itself): a cord passing the column crosses it.
-  tied.forEach((t, i) => {
-    if (t) strips[2 * g.column[i]]?.push([y[i], y[i]]);
-  });
-  let n = 0;
-  for (const s of strips) if (s.length > 1) n += stripCrossings(s);
+  const { pieces, passing } = piecesOf(g, y);
+  let n = stripCrossings(pieces);
   for (const p of passing) p.sort((a, b) => a - b);
-  for (const [c, lo, hi] of lanes) n += Math.max(0, countLess(passing[c], hi) - countAtMost(passing[c], lo));
+  for (const { from, to } of g.cords) {
+    const c = g.column[from];
+    if (c !== g.column[to]) continue;
+    const [lo, hi] = y[from] < y[to] ? [y[from], y[to]] : [y[to], y[from]];
+    n += Math.max(0, countLess(passing[c], hi) - countAtMost(passing[c], lo));
+  }
   return n;
 }
 
