@@ -19,6 +19,14 @@
  * Cost: O(s · e log e) for s strips (two per column) and e cords.
  */
 
+/** A cord between two boxes, by box index. */
+export interface ColumnCord {
+  readonly from: number;
+  readonly to: number;
+  readonly fromDy?: number;
+  readonly toDy?: number;
+}
+
 /** The drawing as the counter sees it: per box its column and centre height; cords as box pairs. */
 export interface CrossingGeometry {
   /** x of each column's left and right edge, by column index, left to right. */
@@ -26,8 +34,11 @@ export interface CrossingGeometry {
   readonly right: readonly number[];
   /** Column index of each box. */
   readonly column: readonly number[];
-  /** Cords between two boxes (by box index), at the heights where they leave and arrive. */
-  readonly cords: readonly { readonly from: number; readonly to: number }[];
+  /**
+   * Cords between two boxes (by box index); a cord leaves `fromDy` below its driver's centre and
+   * arrives `toDy` below its target's (a latch's set or reset half; 0 when not given).
+   */
+  readonly cords: readonly ColumnCord[];
   /** The stub length beyond a column edge. */
   readonly stub: number;
 }
@@ -111,11 +122,13 @@ function piecesOf(g: CrossingGeometry, y: ArrayLike<number>): { pieces: Pieces; 
   const left = new Float64Array(start[strips]);
   const right = new Float64Array(start[strips]);
   const passing: number[][] = Array.from({ length: cols }, () => []);
-  for (const { from, to } of g.cords) {
+  for (const { from, to, fromDy = 0, toDy = 0 } of g.cords) {
     const cf = g.column[from];
     const ct = g.column[to];
     if (cf === ct) continue;
-    const [ca, ya, cb, yb] = cf < ct ? [cf, y[from], ct, y[to]] : [ct, y[to], cf, y[from]];
+    const yf = y[from] + fromDy;
+    const yt = y[to] + toDy;
+    const [ca, ya, cb, yb] = cf < ct ? [cf, yf, ct, yt] : [ct, yt, cf, yf];
     const x0 = edge[2 * ca + 1];
     const x1 = edge[2 * cb];
     // The ends exactly (cords sharing an end must not seem to cross by rounding), the rest interpolated.
@@ -140,10 +153,12 @@ export function countColumnCrossings(g: CrossingGeometry, y: ArrayLike<number>):
   const { pieces, passing } = piecesOf(g, y);
   let n = stripCrossings(pieces);
   for (const p of passing) p.sort((a, b) => a - b);
-  for (const { from, to } of g.cords) {
+  for (const { from, to, fromDy = 0, toDy = 0 } of g.cords) {
     const c = g.column[from];
     if (c !== g.column[to]) continue;
-    const [lo, hi] = y[from] < y[to] ? [y[from], y[to]] : [y[to], y[from]];
+    const yf = y[from] + fromDy;
+    const yt = y[to] + toDy;
+    const [lo, hi] = yf < yt ? [yf, yt] : [yt, yf];
     n += Math.max(0, countLess(passing[c], hi) - countAtMost(passing[c], lo));
   }
   return n;

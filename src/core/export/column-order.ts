@@ -52,10 +52,15 @@ export const MAX_SWEEPS = 12;
 /** Stop after this many sweeps in a row that found nothing better. */
 const PATIENCE = 4;
 
-/** Boxes tied to each box in other columns: those of box i are list[start[i]] … list[start[i + 1] - 1]. */
+/**
+ * Boxes tied to each box in other columns: those of box i are list[start[i]] … list[start[i + 1] - 1],
+ * and shift[t] is how far below the far box's centre its cord ends, less how far below box i's
+ * centre it ends (a latch's halves), so box i lies level with the cord's far end at y[far] + shift.
+ */
 interface Neighbours {
   readonly start: Int32Array;
   readonly list: Int32Array;
+  readonly shift: Float64Array;
 }
 
 function neighbourLists(p: OrderProblem): Neighbours {
@@ -69,11 +74,14 @@ function neighbourLists(p: OrderProblem): Neighbours {
   for (let i = 0; i < n; i++) start[i + 1] += start[i];
   const fill = start.slice(0, n);
   const list = new Int32Array(start[n]);
-  for (const c of across) {
-    list[fill[c.from]++] = c.to;
-    list[fill[c.to]++] = c.from;
+  const shift = new Float64Array(start[n]);
+  for (const { from, to, fromDy = 0, toDy = 0 } of across) {
+    shift[fill[from]] = toDy - fromDy;
+    list[fill[from]++] = to;
+    shift[fill[to]] = fromDy - toDy;
+    list[fill[to]++] = from;
   }
-  return { start, list };
+  return { start, list, shift };
 }
 
 /**
@@ -137,7 +145,7 @@ function sweep(
       const ys: number[] = [];
       for (let t = nb.start[i]; t < nb.start[i + 1]; t++) {
         const j = nb.list[t];
-        if (both || (down ? p.column[j] < c : p.column[j] > c)) ys.push(y[j]);
+        if (both || (down ? p.column[j] < c : p.column[j] > c)) ys.push(y[j] + nb.shift[t]);
       }
       return { i, at: ys.length > 0 ? centreOf(ys, median) : y[i] };
     });
@@ -163,7 +171,7 @@ function farEnds(p: OrderProblem, nb: Neighbours, y: Float64Array, i: number, c:
   const right: number[] = [];
   for (let t = nb.start[i]; t < nb.start[i + 1]; t++) {
     const j = nb.list[t];
-    (p.column[j] < c ? left : right).push(y[j]);
+    (p.column[j] < c ? left : right).push(y[j] + nb.shift[t]);
   }
   return [left.sort((a, b) => a - b), right.sort((a, b) => a - b)];
 }

@@ -39,6 +39,17 @@ export interface ColumnBox {
   readonly bit?: number;
 }
 
+/**
+ * A cord branch between two boxes. An end on a latch may be on its set half (side -1: a quarter of
+ * the box's height above its centre) or its reset half (side 1, as far below); 0 or absent, the centre.
+ */
+export interface ColumnLink {
+  readonly from: string;
+  readonly to: string;
+  readonly fromSide?: number;
+  readonly toSide?: number;
+}
+
 /** A placed band: the boxes of one state bit and the rectangle round them (top-left corner). */
 export interface ColumnBand {
   readonly bit: number;
@@ -164,7 +175,7 @@ function placeColumn(
 function reorder(
   cols: Columns,
   boxes: readonly ColumnBox[],
-  links: readonly { readonly from: string; readonly to: string }[],
+  links: readonly ColumnLink[],
   centre: Map<string, Point>,
   bandTop: number,
 ): void {
@@ -174,7 +185,9 @@ function reorder(
   const cords = links.flatMap((l) => {
     const from = index.get(l.from);
     const to = index.get(l.to);
-    return from === undefined || to === undefined || from === to ? [] : [{ from, to }];
+    if (from === undefined || to === undefined || from === to) return [];
+    const fromDy = ((l.fromSide ?? 0) * boxes[from].height) / 4;
+    return [{ from, to, fromDy, toDy: ((l.toSide ?? 0) * boxes[to].height) / 4 }];
   });
   const { y } = reduceCrossings(
     {
@@ -204,7 +217,7 @@ export interface StageColumnOptions {
 /** Lay the boxes out in stage columns (see the module comment); `links` are the cord branches. */
 export function stageColumns(
   boxes: readonly ColumnBox[],
-  links: readonly { readonly from: string; readonly to: string }[],
+  links: readonly ColumnLink[],
   options: StageColumnOptions = {},
 ): ColumnLayout {
   const cols = columnsOf(boxes);

@@ -7,7 +7,7 @@ import { countCrossings } from './stage-crossings.js';
 const STUB = 16;
 
 /** Columns 100 wide with 120 between them. */
-function geometry(column: number[], cords: { from: number; to: number }[]): CrossingGeometry {
+function geometry(column: number[], cords: CrossingGeometry['cords']): CrossingGeometry {
   const cols = Math.max(...column) + 1;
   const left = Array.from({ length: cols }, (_, c) => c * 220);
   return { left, right: left.map((x) => x + 100), column, cords, stub: STUB };
@@ -104,6 +104,24 @@ describe('core/export/column-crossings', () => {
     expect(countColumnCrossings(g, [50, 0, 100, 50])).toBe(1);
     // Passing above both boxes, the cord misses the lane.
     expect(countColumnCrossings(g, [-50, 0, 100, -50])).toBe(0);
+  });
+
+  it("counts a latch's cords from its set and reset halves, not from its centre", () => {
+    // Box 0 is a latch: its set half (10 above its centre) drives box 2 below, its reset half (10 below) box 1 above.
+    const cords = [
+      { from: 0, to: 2, fromDy: -10 },
+      { from: 0, to: 1, fromDy: 10 },
+    ];
+    expect(countColumnCrossings(geometry([0, 1, 1], cords), [0, -50, 50])).toBe(1);
+    expect(
+      countColumnCrossings(
+        geometry(
+          [0, 1, 1],
+          cords.map(({ from, to }) => ({ from, to })),
+        ),
+        [0, -50, 50],
+      ),
+    ).toBe(0);
   });
 
   it('agrees with brute-force segment intersection on random drawings (property, fixed seed)', () => {
