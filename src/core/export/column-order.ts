@@ -231,7 +231,6 @@ export function reduceCrossings(p: OrderProblem, start: ArrayLike<number>): Orde
   p.column.forEach((c, i) => {
     if (!p.pinned[i]) free[c].push(i);
   });
-  for (const f of free) f.sort((a, b) => start[a] - start[b] || a - b);
   const nb = neighbourLists(p);
   const y = Float64Array.from(start);
   const before = countColumnCrossings(p, y);

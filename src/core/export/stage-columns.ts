@@ -209,6 +209,7 @@ function reorder(
   });
 }
 
+/** How the stage columns are laid out. */
 export interface StageColumnOptions {
   /** Reduce the crossings after the first placement (column-order.ts); on unless told otherwise. */
   readonly reduceCrossings?: boolean;
