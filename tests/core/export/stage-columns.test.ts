@@ -1,9 +1,13 @@
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { schematicLayout } from '../../../src/core/export/schematic-svg.js';
+import { LAYERED_MAX_PARTS, schematicLayout } from '../../../src/core/export/schematic-svg.js';
 import { stageColumns, type ColumnBox, type ColumnLayout } from '../../../src/core/export/stage-columns.js';
+import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 import { analyse, buildMachine } from '../../../src/core/pipeline.js';
+import { randomFlatMachine } from '../../../src/core/sim/random-machine.js';
+import { synthesise } from '../../../src/core/synthesise.js';
+import { binaryEncoding } from '../support/synthesis.js';
 import { countCrossings } from './stage-crossings.js';
 
 const box = (id: string, rank: number, position: number, bit?: number, height = 40): ColumnBox => ({
@@ -172,6 +176,21 @@ describe('core/export/stage-columns', () => {
         expect(drawnCrossings(stageColumns(boxes, links), links)).toBeLessThanOrEqual(before);
       }),
       { seed: 42, numRuns: 200 },
+    );
+  });
+
+  it('never draws more crossings than the first placement on random builds past the size bound (property, fixed seed)', () => {
+    // Random machines of 40 states, 5 inputs and 5 outputs (randomFlatMachine), binary codes: about 400 parts each.
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 1_000_000 }), (seed) => {
+        const f = randomFlatMachine(40, 5, 5, seed);
+        const b = synthesise(f, binaryEncoding(f), { profile: DEFAULT_PROFILE });
+        expect(b.netlist.parts.length).toBeGreaterThan(LAYERED_MAX_PARTS);
+        const crossings = (reduceCrossings: boolean): number =>
+          countCrossings(schematicLayout(b, { reduceCrossings }).edges.map((e) => e.points));
+        expect(crossings(true)).toBeLessThanOrEqual(crossings(false));
+      }),
+      { seed: 42, numRuns: 4 },
     );
   });
 
