@@ -5,6 +5,7 @@
  * the elements' events to them; it holds no state of its own beyond which view is showing.
  */
 import { LitElement, html, nothing } from 'lit';
+import { cache } from 'lit/directives/cache.js';
 import { SourceController } from '../controllers/source.js';
 import { SynthesisController, Work, isDefault } from '../controllers/synthesis.js';
 import { StepperController } from '../controllers/stepper.js';
@@ -42,6 +43,14 @@ import './notation-card.js';
 import './frame-view.js';
 
 type Detail<T> = CustomEvent<T>;
+
+/**
+ * Views whose drawings are kept while another view shows (lit's cache directive): the frame and
+ * the schematic of a large build are several megabytes of SVG, which the browser would otherwise
+ * parse and lay out again, freezing the page for a second or more, at every switch back to them.
+ * Kept, they come back as they were left: the same zoom, scroll and lit cord.
+ */
+const KEPT_VIEWS: ReadonlySet<ViewId> = new Set<ViewId>(['parts', 'frame']);
 
 export class LwApp extends LitElement {
   static override styles = [shared, appStyles];
@@ -170,7 +179,9 @@ export class LwApp extends LitElement {
             )}
           </div>
           <div id="view" role="tabpanel" aria-labelledby=${`tab-${this.view}`} class=${`view-${this.view}`}>
-            ${this.staleNote()}${this.draftNote()}${this.views[this.view]()}
+            ${this.staleNote()}${this.draftNote()}${KEPT_VIEWS.has(this.view) ? nothing : this.views[this.view]()}${cache(
+              KEPT_VIEWS.has(this.view) ? this.views[this.view]() : nothing,
+            )}
           </div>
         </section>
       </main>
