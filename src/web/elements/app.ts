@@ -5,7 +5,6 @@
  * the elements' events to them; it holds no state of its own beyond which view is showing.
  */
 import { LitElement, html, nothing } from 'lit';
-import { cache } from 'lit/directives/cache.js';
 import { SourceController } from '../controllers/source.js';
 import { SynthesisController, Work, isDefault } from '../controllers/synthesis.js';
 import { StepperController } from '../controllers/stepper.js';
@@ -45,12 +44,15 @@ import './frame-view.js';
 type Detail<T> = CustomEvent<T>;
 
 /**
- * Views whose drawings are kept while another view shows (lit's cache directive): the frame and
- * the schematic of a large build are several megabytes of SVG, which the browser would otherwise
- * parse and lay out again, freezing the page for a second or more, at every switch back to them.
- * Kept, they come back as they were left: the same zoom, scroll and lit cord.
+ * Views kept in the page, drawn, while another view shows: the frame and the schematic of a
+ * large build are megabytes of SVG (tens of thousands of elements), which the browser would
+ * otherwise parse, style and lay out again, freezing the page for a second or more, at every
+ * switch back to them. Away, a kept view is skipped by the browser's rendering (CSS
+ * content-visibility: hidden keeps its layout for its return), inert, and not drawn again: it
+ * keeps the last template it was given, so a build that arrives meanwhile is drawn when the view
+ * is shown. It comes back as it was left: the same zoom, scroll and pinned cord.
  */
-const KEPT_VIEWS: ReadonlySet<ViewId> = new Set<ViewId>(['parts', 'frame']);
+const KEPT_VIEWS: readonly ViewId[] = ['parts', 'frame'];
 
 export class LwApp extends LitElement {
   static override styles = [shared, appStyles];
@@ -110,6 +112,8 @@ export class LwApp extends LitElement {
         : undefined,
   );
   private view: ViewId = keepRead('view', parseView) ?? 'sketch';
+  /** The last template of each kept view shown so far (KEPT_VIEWS), given again while it is away. */
+  private readonly kept = new Map<ViewId, unknown>();
 
   /** How each view is drawn: one entry per view of VIEWS. */
   private readonly views: { readonly [V in ViewId]: () => unknown } = {
@@ -179,9 +183,7 @@ export class LwApp extends LitElement {
             )}
           </div>
           <div id="view" role="tabpanel" aria-labelledby=${`tab-${this.view}`} class=${`view-${this.view}`}>
-            ${this.staleNote()}${this.draftNote()}${KEPT_VIEWS.has(this.view) ? nothing : this.views[this.view]()}${cache(
-              KEPT_VIEWS.has(this.view) ? this.views[this.view]() : nothing,
-            )}
+            ${this.staleNote()}${this.draftNote()}${KEPT_VIEWS.includes(this.view) ? nothing : this.views[this.view]()}${this.keptViews()}
           </div>
         </section>
       </main>
@@ -241,6 +243,20 @@ export class LwApp extends LitElement {
     });
     // The schematic is drawn only when someone looks at it.
     if (this.view === 'parts') s.drawSchematic();
+  }
+
+  /** The kept views shown so far, in a fixed order: the one showing drawn afresh, the others as they were left. */
+  private keptViews() {
+    return KEPT_VIEWS.map((v) => {
+      const here = v === this.view;
+      if (here) this.kept.set(v, this.views[v]());
+      const t = this.kept.get(v);
+      return t === undefined
+        ? nothing
+        : html`<div class=${here ? 'kept' : 'kept away'} ?inert=${!here} aria-hidden=${here ? nothing : 'true'}>
+            ${t}
+          </div>`;
+    });
   }
 
   /** While the text has errors the views keep the last machine that read, marked as such. */

@@ -345,12 +345,6 @@ export class LwFrame extends LitElement {
       cut${over.length ? `, over ${over.join(' and ')}` : ''}.`;
   }
 
-  /** Kept while another view shows (the app's cache of drawn views): the pointer is gone, so nothing stays lit by it. */
-  override disconnectedCallback(): void {
-    this.hovered = undefined;
-    super.disconnectedCallback();
-  }
-
   /** A new placement: its cords are other cords, so none stays lit. */
   protected override willUpdate(changed: PropertyValues<this>): void {
     if (changed.has('placement')) {
