@@ -106,11 +106,24 @@ describe('src/web (a large machine, in chromium)', () => {
     expect(after.built).toBe(typed);
     expect(after.codes).toBe('searched');
     expect(after.searches).toBe(before.searches + 1);
-    // The same codes as `latchwright build` with its defaults: the same frame, bay for bay.
+    // The same codes as `latchwright build` with its defaults: the same frame, bay for bay. A frame
+    // this large is drawn after the view has shown a note saying so (watched frame by frame).
+    await page.evaluate(() => {
+      const w = window as unknown as { lwPending?: string };
+      const look = (): void => {
+        const frame = document.querySelector('lw-app')?.shadowRoot?.querySelector('lw-frame');
+        const note = frame?.shadowRoot?.querySelector('[data-frame-pending]');
+        if (note) w.lwPending = note.textContent ?? '';
+        else requestAnimationFrame(look);
+      };
+      requestAnimationFrame(look);
+    });
     await tab('frame');
     await expect(page.locator('lw-frame [data-frame-summary]').innerText()).resolves.toContain(
       `${ref.placement.bays.length} bays`,
     );
+    const note = await page.evaluate(() => (window as unknown as { lwPending?: string }).lwPending);
+    expect(note).toContain(`Drawing the frame: ${ref.placement.bays.length} bays`);
   }, 300_000);
 
   it('draws every view of the build, and keeps the frame and the schematic drawn while another view shows', async () => {
@@ -126,8 +139,10 @@ describe('src/web (a large machine, in chromium)', () => {
       else if (v.id === 'parts') {
         await page.locator('lw-parts .sheet svg').waitFor({ timeout: 60_000 });
         drawn[v.id] = await page.locator('lw-parts li[data-check]').count();
-      } else if (v.id === 'frame') drawn[v.id] = await page.locator('lw-frame path.cord[data-cord]').count();
-      else drawn[v.id] = await page.locator('lw-stepper button[data-do="clock"]').count();
+      } else if (v.id === 'frame') {
+        await page.locator('lw-frame .sheet svg').waitFor();
+        drawn[v.id] = await page.locator('lw-frame path.cord[data-cord]').count();
+      } else drawn[v.id] = await page.locator('lw-stepper button[data-do="clock"]').count();
     }
     expect(drawn.sketch).toBe(STATES);
     expect(drawn.ledger).toBeGreaterThanOrEqual(STATES);

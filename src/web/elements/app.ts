@@ -54,6 +54,13 @@ type Detail<T> = CustomEvent<T>;
  */
 const KEPT_VIEWS: readonly ViewId[] = ['parts', 'frame'];
 
+/**
+ * Past this many bays the frame is drawn in a task of its own after the view has shown a note
+ * saying so (planet, 48 states, has about 600 bays; the largest example under 40): drawing it
+ * holds the page for half a second to a second and a half, and the tab should answer first.
+ */
+const FRAME_LATER_BAYS = 400;
+
 export class LwApp extends LitElement {
   static override styles = [shared, appStyles];
 
@@ -112,6 +119,9 @@ export class LwApp extends LitElement {
         : undefined,
   );
   private view: ViewId = keepRead('view', parseView) ?? 'sketch';
+  /** The build whose frame is drawn now; a large one's after its note has shown (FRAME_LATER_BAYS). */
+  private frameDue: BuildView | undefined;
+  private frameSoon: BuildView | undefined;
   /** The last template of each kept view shown so far (KEPT_VIEWS), given again while it is away. */
   private readonly kept = new Map<ViewId, unknown>();
 
@@ -356,8 +366,11 @@ export class LwApp extends LitElement {
     const s = this.synth;
     const st = this.stepper;
     const b = s.built;
+    const later = b !== undefined && b !== this.frameDue && b.placement.bays.length > FRAME_LATER_BAYS;
+    if (later) this.drawFrameSoon(b);
     return html`<lw-frame
-      .drawing=${this.frameDrawing(b)}
+      .drawing=${later ? undefined : this.frameDrawing(b)}
+      ?pending=${later}
       .placement=${b?.placement}
       .words=${this.partWords(b)}
       .stands=${this.stands(st.runner, st.runner?.state, b)}
@@ -388,6 +401,19 @@ export class LwApp extends LitElement {
             </p>`
           : nothing
       }`;
+  }
+
+  /** Draw a large build's frame once the view has painted its note, in a task of its own. */
+  private drawFrameSoon(b: BuildView): void {
+    if (this.frameSoon === b) return;
+    this.frameSoon = b;
+    requestAnimationFrame(() =>
+      setTimeout(() => {
+        if (this.synth.built !== b) return;
+        this.frameDue = b;
+        this.requestUpdate();
+      }),
+    );
   }
 
   /** What the failing checks offer to do about themselves. */

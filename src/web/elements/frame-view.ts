@@ -48,6 +48,7 @@ export class LwFrame extends LitElement {
     clocks: { type: Number },
     canUndo: { type: Boolean },
     printable: { type: Boolean },
+    pending: { type: Boolean },
   };
   /** The drawing (frameSvg in the screen palette), or why there is none. */
   declare drawing: { readonly svg?: string; readonly problem?: string } | undefined;
@@ -59,6 +60,8 @@ export class LwFrame extends LitElement {
   declare clocks: number;
   declare canUndo: boolean;
   declare printable: boolean;
+  /** A large build's drawing is on its way: the view says so until it comes. */
+  declare pending: boolean;
   private zoom = START_ZOOM;
   private zoomChosen = false;
   /** The branch pointed at or focused, and the one tapped (it stays lit until tapped again). */
@@ -79,6 +82,7 @@ export class LwFrame extends LitElement {
     this.clocks = 0;
     this.canUndo = false;
     this.printable = false;
+    this.pending = false;
   }
 
   static override styles = [
@@ -210,6 +214,16 @@ export class LwFrame extends LitElement {
     const svg = this.drawing?.svg;
     if (this.drawing?.problem !== undefined)
       return html`<p class="bad" role="alert">No frame drawing: ${this.drawing.problem}</p>`;
+    if (this.pending && this.placement) {
+      const p = this.placement;
+      return html`<section class="panel" aria-label="The frame">
+        <h2>Frame &amp; cords</h2>
+        <p class="soft" role="status" data-frame-pending>
+          Drawing the frame: ${p.bays.length} bays on ${p.drums.length === 1 ? 'one drum' : `${p.drums.length} drums`}.
+          A frame this large takes a moment, and the page waits while it is drawn.
+        </p>
+      </section>`;
+    }
     if (svg === undefined || !this.placement)
       return html`<p class="soft">The frame appears once the machine builds: every part in its bay along the drum.</p>`;
     const p = this.placement;
