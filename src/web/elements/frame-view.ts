@@ -69,6 +69,10 @@ export class LwFrame extends LitElement {
   private pinned: Lit | undefined;
   /** The drawing the cords were made focusable in. */
   private prepared: SVGSVGElement | undefined;
+  /** The drawing sized for the zoom (megabytes of text for a large build: made once per drawing and zoom). */
+  private sized: { readonly svg: string; readonly zoom: number; readonly text: string } | undefined;
+  /** The stands last shown on the drawing: pointing at a cord leaves them as they are. */
+  private standsShown: { readonly root: SVGSVGElement; readonly stands: Stands | undefined } | undefined;
   /** The placement the box was last scrolled to the levers for. */
   private scrolledFor: Placement | undefined;
 
@@ -269,7 +273,7 @@ export class LwFrame extends LitElement {
         @click=${this.onTap}
         @keydown=${this.onKey}
       >
-        ${unsafeSVG(screenSized(svg, this.zoom))}
+        ${unsafeSVG(this.sizedText(svg))}
       </div>
       <p class="readout ${this.lit() ? 'on' : ''}" role="status" aria-live="polite" data-readout>${this.litWords()}</p>
       ${this.legend()}
@@ -390,7 +394,10 @@ export class LwFrame extends LitElement {
         path.after(hit);
       }
     }
-    this.showStands(root);
+    if (this.standsShown?.root !== root || this.standsShown.stands !== this.stands) {
+      this.standsShown = { root, stands: this.stands };
+      this.showStands(root);
+    }
     this.showLit(root);
     if (this.scrolledFor !== this.placement) {
       this.scrolledFor = this.placement;
@@ -399,6 +406,12 @@ export class LwFrame extends LitElement {
     // For the browser tests: the zoom, and the size of the drawing's smallest text on screen.
     this.dataset.zoom = String(this.zoom);
     this.dataset.smallestTextPx = (SMALLEST_TEXT_MM * PX_PER_MM * this.zoom).toFixed(2);
+  }
+
+  private sizedText(svg: string): string {
+    if (this.sized?.svg !== svg || this.sized.zoom !== this.zoom)
+      this.sized = { svg, zoom: this.zoom, text: screenSized(svg, this.zoom) };
+    return this.sized.text;
   }
 
   /** Scroll the box down past the title block, to the bay labels and lever ends of the highest drum. */
