@@ -188,11 +188,23 @@ describe('cli/commands/build (text report)', () => {
   it('prints the encoding, the parts, the equations, one line per check and the safety line', async () => {
     const t = await run(['build', MB, '--encoding', 'binary']);
     expect(t.code).toBe(0);
+    // One input and one output: counted in the singular.
+    expect(t.out).toContain('marble_bell: 4 states → 4 after minimisation; 1 input, 1 output\n');
     expect(t.out).toContain('encoding binary, 2 state bits: none=00 one=01 two=10 rung=11\n');
     expect(t.out).toContain('  bell = q0 & q1\n');
     for (const name of CHECK_NAMES) expect(t.out).toMatch(new RegExp(`^ {2}ok {3}${name}: `, 'm'));
     expect(t.out).toMatch(/^Safety: /m);
     expectNoStack(t);
+  });
+});
+
+describe('cli/commands/build (text report) of a build with no latches', () => {
+  it('says the guard is not needed rather than proven for latches it does not have (examples/odd-lever.lw)', async () => {
+    const t = await run(['build', 'examples/odd-lever.lw']);
+    expect(t.code).toBe(0);
+    expect(t.out).toContain('parts: 0 latches, ');
+    expect(t.out).toContain('forbidden-input guard: none needed (no latches)\n');
+    expect(t.out).not.toContain('proven for every latch');
   });
 });
 

@@ -3,7 +3,7 @@ import { buildReport, type Built, type Diagnostic, equationTexts, withoutCapstan
 import type { ParsedArgs } from '../args.js';
 import { buildFromArgs } from './build-common.js';
 import { EXIT } from '../exit.js';
-import type { RunContext } from './common.js';
+import { counted, type RunContext } from './common.js';
 import { writeDocuments } from './out.js';
 
 export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<number> {
@@ -39,18 +39,20 @@ export function textReport(b: Built): string {
   const p = b.build.parts;
   const lines: string[] = [];
   lines.push(
-    `${m.name}: ${m.states.length} states → ${f.states.length} after minimisation; ${m.inputs.length} inputs, ${m.outputs.length} outputs`,
+    `${m.name}: ${counted(m.states.length, 'state')} → ${f.states.length} after minimisation; ${counted(m.inputs.length, 'input')}, ${counted(m.outputs.length, 'output')}`,
   );
   lines.push(
     `encoding ${b.build.encoding.strategy}, ${b.build.encoding.bits} state bits: ${f.states.map((s, i) => `${s}=${b.build.encoding.codes[i] || '—'}`).join(' ')}`,
   );
   const idle = withoutCapstanWords(b.build.netlist);
   lines.push(
-    `parts: ${p.latches} latches, ${p.gates} gates, ${p.levers} levers, ${p.capstans} capstans, ${p.weights} weights, ${p.cords} cords${idle ? ` (${idle})` : ''}`,
+    `parts: ${counted(p.latches, 'latch', 'latches')}, ${counted(p.gates, 'gate')}, ${counted(p.levers, 'lever')}, ${counted(p.capstans, 'capstan')}, ${counted(p.weights, 'weight')}, ${counted(p.cords, 'cord')}${idle ? ` (${idle})` : ''}`,
   );
   const g = b.build.guard;
   lines.push(
-    `forbidden-input guard (${g.method}): ${g.ok ? 'S·R = 0 proven for every latch' : 'NOT proven'}; cost ${g.extraGates} gates, ${g.extraCords} cords over an unguarded build`,
+    p.latches === 0
+      ? 'forbidden-input guard: none needed (no latches)'
+      : `forbidden-input guard (${g.method}): ${g.ok ? 'S·R = 0 proven for every latch' : 'NOT proven'}; cost ${counted(g.extraGates, 'gate')}, ${counted(g.extraCords, 'cord')} over an unguarded build`,
   );
   lines.push('equations:');
   for (const e of equationTexts(b)) lines.push(`  ${e.name} = ${e.expr}`);

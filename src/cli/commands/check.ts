@@ -2,7 +2,7 @@
 import { analyse } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import { EXIT } from '../exit.js';
-import { loadSource, machineSummary, type RunContext } from './common.js';
+import { counted, loadSource, machineSummary, type RunContext } from './common.js';
 
 export function runCheck(args: ParsedArgs, ctx: RunContext): number {
   const src = loadSource(args, ctx);
@@ -23,9 +23,8 @@ export function runCheck(args: ParsedArgs, ctx: RunContext): number {
   ctx.show(a.diagnostics, 2);
   if (summary) {
     const m = summary.machine;
-    const n = (k: number, what: string): string => `${k} ${what}${k === 1 ? '' : 's'}`;
     ctx.io.out(
-      `${m.name}: ${n(m.states, 'state')} (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${n(m.inputs, 'input')}, ${n(m.outputs, 'output')}\n`,
+      `${m.name}: ${counted(m.states, 'state')} (${m.reachable} reachable, ${m.minimized} after minimisation by ${summary.method}${summary.exact ? ', proven minimal' : ''}), ${counted(m.inputs, 'input')}, ${counted(m.outputs, 'output')}\n`,
     );
     const merges = Object.entries(summary.merged).filter(([k, v]) => k !== v);
     if (merges.length > 0) {

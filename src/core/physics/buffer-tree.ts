@@ -44,7 +44,7 @@ interface LossModel {
   existing(cord: string, target: string): number;
   /** On cord `cord` (default: a new cord). */
   planned(cord?: string): number;
-  /** Every branch of a trial netlist, for its budget (undefined: the profile's routing). */
+  /** Every branch of a trial netlist's cords, for its budget (undefined: the profile's routing). */
   complete(n: Netlist): BranchLosses | undefined;
 }
 
@@ -62,10 +62,12 @@ function lossModel(profile: Profile, losses: BranchLosses | undefined): LossMode
     existing: (cord, target) => Math.max(losses.get(branchKey(cord, target)) ?? 0, leaving(cord)),
     planned: leaving,
     complete: (n) => {
-      const out = new Map(losses);
+      const out = new Map<string, number>();
       for (const c of n.cords)
-        for (const t of [...c.ports.map((p) => `${p.part}.${p.port}`), ...c.actuators])
-          if (!out.has(branchKey(c.id, t))) out.set(branchKey(c.id, t), leaving(c.id));
+        for (const t of [...c.ports.map((p) => `${p.part}.${p.port}`), ...c.actuators]) {
+          const k = branchKey(c.id, t);
+          out.set(k, losses.get(k) ?? leaving(c.id));
+        }
       return out;
     },
   };
@@ -87,16 +89,11 @@ export function balanceDrive(netlist: Netlist, profile: Profile, losses?: Branch
   const newParts: Part[] = [];
   const newCords: Cord[] = [];
   const model = lossModel(profile, losses);
+  const byDriver = cordsByDriver(netlist.cords);
   for (const f of failing) {
-    const own = netlist.cords.filter((c) => c.driver === f.driver);
+    const own = byDriver.get(f.driver) ?? [];
     const plan = planDriver(f.driver, f.driverKind, own, parts, used, profile, model);
-    if (!plan) continue;
-    const trial: Netlist = {
-      parts: [...netlist.parts, ...plan.parts],
-      cords: [...netlist.cords.map((c) => plan.cords.get(c.id) ?? c), ...plan.newCords],
-    };
-    const mine = new Set([f.driver, ...plan.parts.map((p) => p.id)]);
-    if (!driveBudget(trial, profile, model.complete(trial)).every((b) => !mine.has(b.driver) || b.ok)) continue;
+    if (!plan || !planHolds(f.driver, own, plan, parts, profile, model)) continue;
     for (const [id, c] of plan.cords) replaced.set(id, c);
     newParts.push(...plan.parts);
     newCords.push(...plan.newCords);
@@ -108,6 +105,46 @@ export function balanceDrive(netlist: Netlist, profile: Profile, losses?: Branch
     parts: [...netlist.parts, ...newParts],
     cords: [...netlist.cords.map((c) => replaced.get(c.id) ?? c), ...newCords],
   };
+}
+
+/** The cords of each driver, in netlist order. */
+function cordsByDriver(cords: readonly Cord[]): Map<string, Cord[]> {
+  const out = new Map<string, Cord[]>();
+  for (const c of cords) {
+    const list = out.get(c.driver);
+    if (list) list.push(c);
+    else out.set(c.driver, [c]);
+  }
+  return out;
+}
+
+/**
+ * Whether every budget the plan touches passes once it is made: the driver's and each new
+ * buffer's, at their losses (model.complete). A budget depends only on its driver's own cords
+ * and the parts they pull, so the trial holds just those, not the whole netlist.
+ */
+function planHolds(
+  driver: string,
+  own: readonly Cord[],
+  plan: Plan,
+  parts: ReadonlyMap<string, Part>,
+  profile: Profile,
+  model: LossModel,
+): boolean {
+  const cords = [...own.map((c) => plan.cords.get(c.id) ?? c), ...plan.newCords];
+  const involved = new Map<string, Part>(plan.parts.map((p) => [p.id, p]));
+  const take = (id: string): void => {
+    const p = parts.get(id);
+    if (p && !involved.has(id)) involved.set(id, p);
+  };
+  take(driver);
+  for (const c of cords) {
+    for (const p of c.ports) take(p.part);
+    for (const a of c.actuators) take(a);
+  }
+  const trial: Netlist = { parts: [...involved.values()], cords };
+  const mine = new Set([driver, ...plan.parts.map((p) => p.id)]);
+  return driveBudget(trial, profile, model.complete(trial)).every((b) => !mine.has(b.driver) || b.ok);
 }
 
 interface Plan {
@@ -139,7 +176,8 @@ class DriverPlanner {
   /** The routing loss of a new cord's branch (model.planned; the trial budget in balanceDrive catches a per-cord override). */
   private readonly fNew: number;
   private readonly latch: string | undefined;
-  private readonly used: Set<string>;
+  /** Ids taken in the netlist (`usedIds`, read only) or by this plan (`taken`). */
+  private readonly taken = new Set<string>();
   private readonly work: WorkCord[];
   private readonly newParts: GatePart[] = [];
   private readonly newCords: WorkCord[] = [];
@@ -150,14 +188,13 @@ class DriverPlanner {
     kind: 'lever' | 'gate',
     own: readonly Cord[],
     private readonly parts: ReadonlyMap<string, Part>,
-    usedIds: ReadonlySet<string>,
+    private readonly usedIds: ReadonlySet<string>,
     private readonly profile: Profile,
     private readonly model: LossModel,
   ) {
     this.driverBudget = availableTension(profile, holdWeightG(profile, kind)).availableG / profile.minMargin;
     this.gateBudget = availableTension(profile, profile.zWeightG).availableG / profile.minMargin;
     this.fNew = model.planned();
-    this.used = new Set(usedIds);
     this.work = own.map((c) => ({
       id: c.id,
       driver: c.driver,
@@ -234,20 +271,16 @@ class DriverPlanner {
 
   /** Move one group of branches of cord x onto a new buffer pair `x.buf<k>a` → `x.buf<k>b`. */
   private addPair(g: readonly Placed[]): void {
-    const { used, profile, model } = this;
+    const { profile, model } = this;
+    const used = (id: string): boolean => this.usedIds.has(id) || this.taken.has(id);
     const x = g[0].cord;
     let k = this.counters.get(x) ?? 1;
-    while (
-      used.has(`${x}.buf${k}a`) ||
-      used.has(`${x}.buf${k}b`) ||
-      used.has(`${x}.buf${k}a.out`) ||
-      used.has(`${x}.buf${k}b.out`)
-    )
+    while (used(`${x}.buf${k}a`) || used(`${x}.buf${k}b`) || used(`${x}.buf${k}a.out`) || used(`${x}.buf${k}b.out`))
       k++;
     this.counters.set(x, k + 1);
     const a = `${x}.buf${k}a`;
     const b = `${x}.buf${k}b`;
-    for (const id of [a, b, `${a}.out`, `${b}.out`]) used.add(id);
+    for (const id of [a, b, `${a}.out`, `${b}.out`]) this.taken.add(id);
     this.newParts.push(bufferGate(a), bufferGate(b));
     this.newCords.push({
       id: `${a}.out`,

@@ -118,6 +118,44 @@ describe('core/physics/buffer-tree', () => {
     expect(check.summary).toContain("cord 'c'");
   });
 
+  it('drops a plan whose buffer cord a per-cord routing makes too lossy, and still balances the other drivers', () => {
+    // Two levers, each pulling 20 one-port gates: both fail at μ = 0.15. The profile routes the
+    // first buffer cord of M over pins turning 10 rad at μ 0.5 (loss e^5 ≈ 148), so M's buffer
+    // `b` cannot carry its group and M's plan is dropped whole; L's plan is tried on its own
+    // budgets and lands as it would alone.
+    const gates = (d: string) => Array.from({ length: 20 }, (_, i) => gate(`${d}${i + 1}`, 1, 'term'));
+    const ofL = gates('l');
+    const ofM = gates('m');
+    const n: Netlist = {
+      parts: [lever('L'), lever('M'), ...ofL, ...ofM],
+      cords: [
+        cord(
+          'c.L',
+          'L',
+          ofL.map((g) => `${g.id}.a`),
+        ),
+        cord(
+          'c.M',
+          'M',
+          ofM.map((g) => `${g.id}.a`),
+        ),
+      ],
+    };
+    const lossy: Profile = { ...lowMu, cordRouting: { 'c.M.buf1b.out': { pinAngleRad: 10, muPin: 0.5 } } };
+    const out = balanceDrive(n, lossy);
+    expect(out.cords.find((c) => c.id === 'c.M')).toBe(n.cords[1]);
+    expect(out.parts.some((p) => p.id.startsWith('c.M.buf'))).toBe(false);
+    const alone = balanceDrive({ parts: [lever('L'), ...ofL], cords: [n.cords[0]] }, lossy);
+    expect(out.parts.filter((p) => p.id.startsWith('c.L.buf'))).toEqual(
+      alone.parts.filter((p) => p.id.startsWith('c.L.buf')),
+    );
+    const budgets = driveBudget(out, lossy);
+    expect(budgets.find((b) => b.driver === 'L')?.ok).toBe(true);
+    expect(budgets.find((b) => b.driver === 'M')?.ok).toBe(false);
+    expect(sameLogic(n, out)).toBe(true);
+    expect(invariantsHold(out)).toBe(true);
+  });
+
   it('fails the drive check naming the weak cord when μ is absurdly small', () => {
     const absurd: Profile = { ...DEFAULT_PROFILE, mu: 0.01 }; // gain ≈ 1.13: not even one port at margin 2
     const n = fanOut(3, 1);
