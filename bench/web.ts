@@ -347,7 +347,7 @@ function largeRows(f: LargeFigures): WebRow[] {
           ? '—'
           : again < 150
             ? '< 150 ms again (met: the view is kept drawn while away)'
-            : `< 150 ms again (short by ${ms(again - 150)}: the view is kept drawn while away; showing it again styles, lays out and paints what it shows)`,
+            : `< 150 ms again (short by ${ms(again - 150)}: the view is kept drawn while away, but coming back from the sketch, whose panel is laid out as a column, lays it out again)`,
     });
   }
   return rows;
