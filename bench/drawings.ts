@@ -4,12 +4,16 @@
  * The schematic (schematicSvg) and the state diagram (diagramSvg) of the largest LGSynth'91
  * builds, beside the build itself (binary codes, without checks) measured in the same run.
  * Both machines are past the schematic's layered-layout bound, so they are drawn in stage
- * columns (src/core/export/schematic-svg.ts). Figures are medians of three runs; the machine
- * may be shared, so read ratios, not absolute times. Never a test.
+ * columns (src/core/export/schematic-svg.ts); a third row per machine gives the schematic's
+ * layout with its crossing reduction (src/core/export/column-order.ts) beside the same layout
+ * without it (the first placement only), so the ratio is what the reduction costs. Figures are
+ * medians of three runs; the machine may be shared, so read ratios, not absolute times. Never a
+ * test.
  */
 import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import { analyse, buildMachine, diagramSvg, schematicSvg, type Build } from '../src/core/index.js';
+import { schematicLayout } from '../src/core/export/index.js';
 import { median } from './median.js';
 import { ms, type BenchRow } from './row.js';
 
@@ -35,6 +39,8 @@ export function benchDrawings(fixtures: readonly string[] = ['scf', 's298']): Dr
     const parts = b.netlist.parts.length;
     const schematic = median(3, () => schematicSvg(b));
     const diagram = median(3, () => diagramSvg(b));
+    const first = median(3, () => schematicLayout(b, { reduceCrossings: false }));
+    const reduced = median(3, () => schematicLayout(b));
     const reference = `the build (binary, without checks) ${ms(ref)}`;
     rows.push(
       {
@@ -43,6 +49,13 @@ export function benchDrawings(fixtures: readonly string[] = ['scf', 's298']): Dr
         reference,
         ratio: (schematic / ref).toFixed(2) + '×',
         goal: SCHEMATIC_GOAL[name] ?? '< 5 s',
+      },
+      {
+        name: `schematic layout, ${name}: stage columns with crossing reduction`,
+        figure: ms(reduced),
+        reference: `the first placement alone ${ms(first)}`,
+        ratio: (reduced / first).toFixed(2) + '×',
+        goal: '< 1 s',
       },
       {
         name: `state diagram SVG, ${name} (${b.machine.states.length} states)`,

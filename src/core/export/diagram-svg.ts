@@ -13,8 +13,9 @@
  * builds: scf, 94 states and 217 arrows, 0.5 s; s298, 135 states and 627 arrows, 6 s; a
  * 256-state machine, which a build accepts, may have thousands). Past LAYERED_MAX_ITEMS states
  * plus arrows the states are laid out in columns by the fewest clocks from the start state
- * (breadth-first), each column ordered by the barycentre of its neighbours, with the stage-column
- * placement of the schematic (stage-columns.ts): near-linear, but arrows are smooth lines drawn
+ * (breadth-first), each column ordered by the barycentre of its neighbours and the crossings then
+ * reduced, with the stage-column placement of the schematic (stage-columns.ts, column-order.ts):
+ * near-linear, but arrows are smooth lines drawn
  * behind the boxes and a label sits at its arrow's middle, where labels may overlap. A line
  * under such a drawing says so. Every drawing up to the bound is made exactly as before.
  * "Moore output" here means: the same value on every row of the state (mooreOutputs); the

@@ -39,7 +39,7 @@ import { layOut, layoutGraph, type LaidGraph, type LayoutGraph } from './dagre.j
 import { partRoles } from './roles.js';
 import { escapeXml } from './escape.js';
 import { extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, wrapWords, type Point } from './svg.js';
-import { stageColumns } from './stage-columns.js';
+import { stageColumns, type StageColumnOptions } from './stage-columns.js';
 import { STAGE_RANK, stagesOf, type StageInfo } from './stages.js';
 
 export type NodeKind =
@@ -360,7 +360,12 @@ function layeredLayout(
 }
 
 /** Place every part in stage columns (stage-columns.ts), past the layered layout's size bound. */
-function columnLayout(net: Netlist, { g, shown, info }: Drafted, nodeOf: ReadonlyMap<string, string>): SchematicLayout {
+function columnLayout(
+  net: Netlist,
+  { g, shown, info }: Drafted,
+  nodeOf: ReadonlyMap<string, string>,
+  options: StageColumnOptions,
+): SchematicLayout {
   const stages = stagesOf(net);
   const drafts = edgeDrafts(g, net, nodeOf, stages);
   const laid = stageColumns(
@@ -377,6 +382,7 @@ function columnLayout(net: Netlist, { g, shown, info }: Drafted, nodeOf: Readonl
       };
     }),
     drafts,
+    options,
   );
   const nodes: SchematicNode[] = shown.map((p) => {
     const c = laid.centre.get(p.id) ?? { x: 0, y: 0 };
@@ -408,9 +414,9 @@ function columnLayout(net: Netlist, { g, shown, info }: Drafted, nodeOf: Readonl
 
 /**
  * Place every part: with dagre's layered layout up to LAYERED_MAX_PARTS parts, in stage columns
- * past it (see the module comment).
+ * past it (see the module comment; `options` apply to the stage columns only).
  */
-export function schematicLayout(build: Build): SchematicLayout {
+export function schematicLayout(build: Build, options: StageColumnOptions = {}): SchematicLayout {
   const net = build.netlist;
   const { shown, nodeOf } = drawnParts(net);
   const g = layoutGraph({ compound: true, multigraph: true });
@@ -418,7 +424,7 @@ export function schematicLayout(build: Build): SchematicLayout {
   g.setDefaultEdgeLabel(() => ({}));
   const drafted = { g, shown, info: addPartNodes(g, net, shown) };
   return net.parts.length > LAYERED_MAX_PARTS
-    ? columnLayout(net, drafted, nodeOf)
+    ? columnLayout(net, drafted, nodeOf, options)
     : layeredLayout(net, drafted, nodeOf);
 }
 

@@ -3,18 +3,22 @@
  * (schematic-svg.ts). Every box goes into the column of its stage (stages.ts: levers, input
  * inverters and reset driver, φ1 terms, master latches, φ2 transfers, slave latches, outputs,
  * flags and actuators); the master latch, transfer gates and slave latch of one state bit form
- * one band across their three columns, bands stacked in bit order. The other boxes of a column
- * are ordered by the barycentre of the boxes they are already linked to (the barycentre
- * heuristic of K. Sugiyama, S. Tagawa & M. Toda, "Methods for visual understanding of
- * hierarchical system structures", IEEE Trans. SMC 11(2), 1981, here one pass outward from the
- * bands) and each is put at that height or, when taken, just below the box above it.
+ * one band across their three columns, bands stacked in bit order, so a reader finds bit j in the
+ * j-th band — the bands are pinned, and everything below is arranged round them. First placement:
+ * the other boxes of a column are ordered by the barycentre of the boxes they are already linked
+ * to (the barycentre heuristic of K. Sugiyama, S. Tagawa & M. Toda, "Methods for visual
+ * understanding of hierarchical system structures", IEEE Trans. SMC 11(2), 1981, one pass
+ * outward from the bands) and each is put at that height or, when taken, just below the box
+ * above it. Then the crossings are reduced (column-order.ts: sweeps down and up by barycentre
+ * and median, the adjacent exchange, the best placement seen kept), moving only boxes outside
+ * the bands.
  *
- * Cost: one pass over the boxes and links plus one sort per column, O((n + e) log n), where the
- * layered layout's ranking and crossing reduction grow much faster (schematic-svg.ts gives the
- * figures). The price: no crossing reduction between columns and no routing round boxes — a
- * cord is a smooth line from its driver's right side to its target's left side (to the right
- * side of a target in the same column, through the gap beside the column), drawn behind the
- * boxes.
+ * Cost: near-linear, O(s · (n + e) log (n + e)) for s ≤ MAX_SWEEPS sweeps, where the layered
+ * layout's ranking and crossing reduction grow much faster (schematic-svg.ts gives the figures).
+ * The price: no routing round boxes — a cord is a smooth line drawn behind the boxes, turning at
+ * the column edges: from its driver's right side to its target's left side, or, against the
+ * flow, from the driver's left side to the target's right side (as the layered drawing draws a
+ * reversed cord), or, when both share a column, through the gap beside it.
  *
  * The state diagram uses the same placement past its own size bound (diagram-svg.ts), with a
  * state's distance from the start state as its rank and no bands.
@@ -22,6 +26,7 @@
  * Preconditions: ranks are small non-negative integers; links name laid-out boxes. Postconditions:
  * no two boxes overlap; every box of a lower rank lies left of every box of a higher rank.
  */
+import { reduceCrossings } from './column-order.js';
 import type { Point } from './svg.js';
 
 /** A box to place: its size, stage rank, netlist position and, for a latch or transfer gate, its state bit. */
@@ -32,6 +37,17 @@ export interface ColumnBox {
   readonly rank: number;
   readonly position: number;
   readonly bit?: number;
+}
+
+/**
+ * A cord branch between two boxes. An end on a latch may be on its set half (side -1: a quarter of
+ * the box's height above its centre) or its reset half (side 1, as far below); 0 or absent, the centre.
+ */
+export interface ColumnLink {
+  readonly from: string;
+  readonly to: string;
+  readonly fromSide?: number;
+  readonly toSide?: number;
 }
 
 /** A placed band: the boxes of one state bit and the rectangle round them (top-left corner). */
@@ -155,10 +171,55 @@ function placeColumn(
   }
 }
 
+/** Reduce the crossings of the first placement (column-order.ts), moving only boxes outside the bands. */
+function reorder(
+  cols: Columns,
+  boxes: readonly ColumnBox[],
+  links: readonly ColumnLink[],
+  centre: Map<string, Point>,
+  bandTop: number,
+): void {
+  const index = new Map(boxes.map((b, i) => [b.id, i]));
+  const columnOf = new Map(cols.ranks.map((r, c) => [r, c]));
+  const bandRanks = new Set(boxes.filter((b) => b.bit !== undefined).map((b) => b.rank));
+  const cords = links.flatMap((l) => {
+    const from = index.get(l.from);
+    const to = index.get(l.to);
+    if (from === undefined || to === undefined || from === to) return [];
+    const fromDy = ((l.fromSide ?? 0) * boxes[from].height) / 4;
+    return [{ from, to, fromDy, toDy: ((l.toSide ?? 0) * boxes[to].height) / 4 }];
+  });
+  const { y } = reduceCrossings(
+    {
+      left: cols.ranks.map((r) => cols.left.get(r) ?? 0),
+      right: cols.ranks.map((r) => (cols.left.get(r) ?? 0) + (cols.width.get(r) ?? 0)),
+      column: boxes.map((b) => columnOf.get(b.rank) ?? 0),
+      cords,
+      stub: STUB,
+      height: boxes.map((b) => b.height),
+      pinned: boxes.map((b) => b.bit !== undefined),
+      top: cols.ranks.map((r) => (bandRanks.has(r) ? bandTop : 0)),
+      gap: BOX_GAP,
+    },
+    boxes.map((b) => centre.get(b.id)?.y ?? 0),
+  );
+  boxes.forEach((b, i) => {
+    const c = centre.get(b.id);
+    if (c && b.bit === undefined) centre.set(b.id, { x: c.x, y: y[i] });
+  });
+}
+
+/** How the stage columns are laid out. */
+export interface StageColumnOptions {
+  /** Reduce the crossings after the first placement (column-order.ts); on unless told otherwise. */
+  readonly reduceCrossings?: boolean;
+}
+
 /** Lay the boxes out in stage columns (see the module comment); `links` are the cord branches. */
 export function stageColumns(
   boxes: readonly ColumnBox[],
-  links: readonly { readonly from: string; readonly to: string }[],
+  links: readonly ColumnLink[],
+  options: StageColumnOptions = {},
 ): ColumnLayout {
   const cols = columnsOf(boxes);
   const centre = new Map<string, Point>();
@@ -182,6 +243,7 @@ export function stageColumns(
     ...cols.ranks.filter((r) => r >= first && !bandRanks.has(r)),
   ];
   for (const r of order) placeColumn(cols, r, bandRanks.has(r) ? bottom : 0, centre, neighbours);
+  if (options.reduceCrossings !== false) reorder(cols, boxes, links, centre, bottom);
 
   const box = new Map(boxes.map((b) => [b.id, b]));
   const sideX = (id: string, right: boolean): number => {
@@ -189,14 +251,18 @@ export function stageColumns(
     const c = centre.get(id);
     return (c?.x ?? 0) + ((right ? 1 : -1) * (b?.width ?? 0)) / 2;
   };
+  // A column's edge on either side: cords turn there (plus a stub), so the lines between two columns start level.
+  const edgeX = (id: string, right: boolean): number => {
+    const r = box.get(id)?.rank ?? 0;
+    return (cols.left.get(r) ?? 0) + (right ? (cols.width.get(r) ?? 0) + STUB : -STUB);
+  };
   return {
     centre,
     bands,
     route(from, to, fromY, toY) {
-      const a = sideX(from, true);
       if (box.get(from)?.rank === box.get(to)?.rank) {
-        const r = box.get(from)?.rank ?? 0;
-        const lane = (cols.left.get(r) ?? 0) + (cols.width.get(r) ?? 0) + STUB;
+        const a = sideX(from, true);
+        const lane = edgeX(from, true);
         const b = sideX(to, true);
         return [
           { x: a, y: fromY },
@@ -205,12 +271,14 @@ export function stageColumns(
           { x: b, y: toY },
         ];
       }
-      const b = sideX(to, false);
+      // A cord against the flow leaves its driver's left side and comes into its target's right side,
+      // so it runs only between the two columns, as in the layered drawing.
+      const forward = (box.get(from)?.rank ?? 0) < (box.get(to)?.rank ?? 0);
       return [
-        { x: a, y: fromY },
-        { x: a + STUB, y: fromY },
-        { x: b - STUB, y: toY },
-        { x: b, y: toY },
+        { x: sideX(from, forward), y: fromY },
+        { x: edgeX(from, forward), y: fromY },
+        { x: edgeX(to, !forward), y: toY },
+        { x: sideX(to, !forward), y: toY },
       ];
     },
   };
