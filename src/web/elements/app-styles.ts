@@ -133,6 +133,10 @@ export const appStyles = css`
     display: flex;
     flex-direction: column;
   }
+  /* A kept view while another shows (app.ts KEPT_VIEWS): skipped by rendering, its layout kept for its return. */
+  .kept.away {
+    content-visibility: hidden;
+  }
   lw-diagram {
     flex: 1;
   }

@@ -2,7 +2,8 @@
  * <lw-app>: the designer's shell. The bench (the text) on the left; on the right the view
  * chosen from the tabs — sketch, ledger, code book, parts & forces, frame & cords, trial run (VIEWS in
  * app-view.ts, each drawn by its entry in `views` below). It owns the controllers and routes
- * the elements' events to them; it holds no state of its own beyond which view is showing.
+ * the elements' events to them; it holds no state of its own beyond which view is showing and
+ * what it keeps drawn of the views that are not (KEPT_VIEWS).
  */
 import { LitElement, html, nothing } from 'lit';
 import { SourceController } from '../controllers/source.js';
@@ -42,6 +43,24 @@ import './notation-card.js';
 import './frame-view.js';
 
 type Detail<T> = CustomEvent<T>;
+
+/**
+ * Views kept in the page, drawn, while another view shows: the frame and the schematic of a
+ * large build are megabytes of SVG (tens of thousands of elements), which the browser would
+ * otherwise parse, style and lay out again, freezing the page for a second or more, at every
+ * switch back to them. Away, a kept view is skipped by the browser's rendering (CSS
+ * content-visibility: hidden keeps its layout for its return), inert, and not drawn again: it
+ * keeps the last template it was given, so a build that arrives meanwhile is drawn when the view
+ * is shown. It comes back as it was left: the same zoom, scroll and pinned cord.
+ */
+const KEPT_VIEWS: readonly ViewId[] = ['parts', 'frame'];
+
+/**
+ * Past this many bays the frame is drawn in a task of its own after the view has shown a note
+ * saying so (planet, 48 states, has about 600 bays; the largest example under 40): drawing it
+ * holds the page for half a second to a second and a half, and the tab should answer first.
+ */
+const FRAME_LATER_BAYS = 400;
 
 export class LwApp extends LitElement {
   static override styles = [shared, appStyles];
@@ -101,6 +120,11 @@ export class LwApp extends LitElement {
         : undefined,
   );
   private view: ViewId = keepRead('view', parseView) ?? 'sketch';
+  /** The build whose frame is drawn now; a large one's after its note has shown (FRAME_LATER_BAYS). */
+  private frameDue: BuildView | undefined;
+  private frameSoon: BuildView | undefined;
+  /** The last template of each kept view shown so far (KEPT_VIEWS), given again while it is away. */
+  private readonly kept = new Map<ViewId, unknown>();
 
   /** How each view is drawn: one entry per view of VIEWS. */
   private readonly views: { readonly [V in ViewId]: () => unknown } = {
@@ -170,7 +194,7 @@ export class LwApp extends LitElement {
             )}
           </div>
           <div id="view" role="tabpanel" aria-labelledby=${`tab-${this.view}`} class=${`view-${this.view}`}>
-            ${this.staleNote()}${this.draftNote()}${this.views[this.view]()}
+            ${this.staleNote()}${this.draftNote()}${KEPT_VIEWS.includes(this.view) ? nothing : this.views[this.view]()}${this.keptViews()}
           </div>
         </section>
       </main>
@@ -230,6 +254,20 @@ export class LwApp extends LitElement {
     });
     // The schematic is drawn only when someone looks at it.
     if (this.view === 'parts') s.drawSchematic();
+  }
+
+  /** The kept views shown so far, in a fixed order: the one showing drawn afresh, the others as they were left. */
+  private keptViews() {
+    return KEPT_VIEWS.map((v) => {
+      const here = v === this.view;
+      if (here) this.kept.set(v, this.views[v]());
+      const t = this.kept.get(v);
+      return t === undefined
+        ? nothing
+        : html`<div class=${here ? 'kept' : 'kept away'} ?inert=${!here} aria-hidden=${here ? nothing : 'true'}>
+            ${t}
+          </div>`;
+    });
   }
 
   /** While the text has errors the views keep the last machine that read, marked as such. */
@@ -329,8 +367,11 @@ export class LwApp extends LitElement {
     const s = this.synth;
     const st = this.stepper;
     const b = s.built;
+    const later = b !== undefined && b !== this.frameDue && b.placement.bays.length > FRAME_LATER_BAYS;
+    if (later) this.drawFrameSoon(b);
     return html`<lw-frame
-      .drawing=${this.frameDrawing(b)}
+      .drawing=${later ? undefined : this.frameDrawing(b)}
+      ?pending=${later}
       .placement=${b?.placement}
       .words=${this.partWords(b)}
       .stands=${this.stands(st.runner, st.runner?.state, b)}
@@ -361,6 +402,19 @@ export class LwApp extends LitElement {
             </p>`
           : nothing
       }`;
+  }
+
+  /** Draw a large build's frame once the view has painted its note, in a task of its own. */
+  private drawFrameSoon(b: BuildView): void {
+    if (this.frameSoon === b) return;
+    this.frameSoon = b;
+    requestAnimationFrame(() =>
+      setTimeout(() => {
+        if (this.synth.built !== b) return;
+        this.frameDue = b;
+        this.requestUpdate();
+      }),
+    );
   }
 
   /** What the failing checks offer to do about themselves. */

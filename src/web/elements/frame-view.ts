@@ -48,6 +48,7 @@ export class LwFrame extends LitElement {
     clocks: { type: Number },
     canUndo: { type: Boolean },
     printable: { type: Boolean },
+    pending: { type: Boolean },
   };
   /** The drawing (frameSvg in the screen palette), or why there is none. */
   declare drawing: { readonly svg?: string; readonly problem?: string } | undefined;
@@ -59,6 +60,8 @@ export class LwFrame extends LitElement {
   declare clocks: number;
   declare canUndo: boolean;
   declare printable: boolean;
+  /** A large build's drawing is on its way: the view says so until it comes. */
+  declare pending: boolean;
   private zoom = START_ZOOM;
   private zoomChosen = false;
   /** The branch pointed at or focused, and the one tapped (it stays lit until tapped again). */
@@ -66,6 +69,10 @@ export class LwFrame extends LitElement {
   private pinned: Lit | undefined;
   /** The drawing the cords were made focusable in. */
   private prepared: SVGSVGElement | undefined;
+  /** The drawing sized for the zoom (megabytes of text for a large build: made once per drawing and zoom). */
+  private sized: { readonly svg: string; readonly zoom: number; readonly text: string } | undefined;
+  /** The stands last shown on the drawing: pointing at a cord leaves them as they are. */
+  private standsShown: { readonly root: SVGSVGElement; readonly stands: Stands | undefined } | undefined;
   /** The placement the box was last scrolled to the levers for. */
   private scrolledFor: Placement | undefined;
 
@@ -79,6 +86,7 @@ export class LwFrame extends LitElement {
     this.clocks = 0;
     this.canUndo = false;
     this.printable = false;
+    this.pending = false;
   }
 
   static override styles = [
@@ -210,6 +218,16 @@ export class LwFrame extends LitElement {
     const svg = this.drawing?.svg;
     if (this.drawing?.problem !== undefined)
       return html`<p class="bad" role="alert">No frame drawing: ${this.drawing.problem}</p>`;
+    if (this.pending && this.placement) {
+      const p = this.placement;
+      return html`<section class="panel" aria-label="The frame">
+        <h2>Frame &amp; cords</h2>
+        <p class="soft" role="status" data-frame-pending>
+          Drawing the frame: ${p.bays.length} bays on ${p.drums.length === 1 ? 'one drum' : `${p.drums.length} drums`}.
+          A frame this large takes a moment, and the page waits while it is drawn.
+        </p>
+      </section>`;
+    }
     if (svg === undefined || !this.placement)
       return html`<p class="soft">The frame appears once the machine builds: every part in its bay along the drum.</p>`;
     const p = this.placement;
@@ -255,7 +273,7 @@ export class LwFrame extends LitElement {
         @click=${this.onTap}
         @keydown=${this.onKey}
       >
-        ${unsafeSVG(screenSized(svg, this.zoom))}
+        ${unsafeSVG(this.sizedText(svg))}
       </div>
       <p class="readout ${this.lit() ? 'on' : ''}" role="status" aria-live="polite" data-readout>${this.litWords()}</p>
       ${this.legend()}
@@ -376,7 +394,10 @@ export class LwFrame extends LitElement {
         path.after(hit);
       }
     }
-    this.showStands(root);
+    if (this.standsShown?.root !== root || this.standsShown.stands !== this.stands) {
+      this.standsShown = { root, stands: this.stands };
+      this.showStands(root);
+    }
     this.showLit(root);
     if (this.scrolledFor !== this.placement) {
       this.scrolledFor = this.placement;
@@ -385,6 +406,12 @@ export class LwFrame extends LitElement {
     // For the browser tests: the zoom, and the size of the drawing's smallest text on screen.
     this.dataset.zoom = String(this.zoom);
     this.dataset.smallestTextPx = (SMALLEST_TEXT_MM * PX_PER_MM * this.zoom).toFixed(2);
+  }
+
+  private sizedText(svg: string): string {
+    if (this.sized?.svg !== svg || this.sized.zoom !== this.zoom)
+      this.sized = { svg, zoom: this.zoom, text: screenSized(svg, this.zoom) };
+    return this.sized.text;
   }
 
   /** Scroll the box down past the title block, to the bay labels and lever ends of the highest drum. */

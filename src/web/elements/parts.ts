@@ -22,6 +22,7 @@ import type { BuildView, ChecksView } from '../worker/protocol.js';
 import { shared, viewColumn } from '../styles/shared.js';
 import { checksSection, headroomView, partsSection, rulesSection, timingSection } from './parts-sections.js';
 import { emit } from './emit.js';
+import type { Bar } from './bar-chart.js';
 import './bar-chart.js';
 
 /** An action that fixes a failing check: its id, the check it fixes (if one), and its words. */
@@ -162,8 +163,8 @@ export class LwParts extends LitElement {
                   caption="Force margin per capstan"
                   unit="×"
                   floor
-                  .bars=${c.margins.map((m) => ({ label: `${m.kind}: ${m.does}`, value: m.margin, note: `${m.margin.toFixed(2)}×` }))}
-                  .marker=${{ value: c.minMargin, label: `minimum ${c.minMargin}` }}
+                  .bars=${charts(c).margins}
+                  .marker=${charts(c).marker}
                 ></lw-bar-chart>
                 ${headroomView(c)}`
             : html`<p class="soft">Checking…</p>`
@@ -178,11 +179,7 @@ export class LwParts extends LitElement {
                   (${c.powerW.toFixed(2)} W at the drum's speed).
                 </p>
                 ${torqueWords(c.torque)}
-                <lw-bar-chart
-                  caption="Drum torque per state"
-                  unit="N·m"
-                  .bars=${c.torque.map((t) => ({ label: t.state, sub: `worst at ${t.at}`, value: t.torqueNm, note: `${t.torqueNm.toFixed(3)} N·m` }))}
-                ></lw-bar-chart>`
+                <lw-bar-chart caption="Drum torque per state" unit="N·m" .bars=${charts(c).torque}></lw-bar-chart>`
             : html`<p class="soft">Checking…</p>`
         }
       </section>
@@ -305,6 +302,41 @@ export class LwParts extends LitElement {
   private replay(r: RuleViolation): void {
     emit(this, 'replay', { actions: r.violation, label: `break: ${RULE_WORDS[r.rule]}` });
   }
+}
+
+/** The bars of the two charts of a checked build, and the margin chart's marker. */
+interface Charts {
+  readonly margins: readonly Bar[];
+  readonly marker: { readonly value: number; readonly label: string };
+  readonly torque: readonly Bar[];
+}
+
+/**
+ * The charts' bars, made once per checked build: the same arrays at every render, so a chart
+ * draws again only when its build changed (a large build has a bar per capstan, hundreds of
+ * them, and the view renders again whenever it is shown).
+ */
+const chartsOf = new WeakMap<ChecksView, Charts>();
+function charts(c: ChecksView): Charts {
+  let out = chartsOf.get(c);
+  if (!out) {
+    out = {
+      margins: c.margins.map((m) => ({
+        label: `${m.kind}: ${m.does}`,
+        value: m.margin,
+        note: `${m.margin.toFixed(2)}×`,
+      })),
+      marker: { value: c.minMargin, label: `minimum ${c.minMargin}` },
+      torque: c.torque.map((t) => ({
+        label: t.state,
+        sub: `worst at ${t.at}`,
+        value: t.torqueNm,
+        note: `${t.torqueNm.toFixed(3)} N·m`,
+      })),
+    };
+    chartsOf.set(c, out);
+  }
+  return out;
 }
 
 /** The schematic's SVG at `zoom` × its own size (1: its text at the size it was drawn for), its viewBox kept. */
