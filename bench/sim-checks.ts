@@ -12,6 +12,9 @@
  *   start point on the event-driven simulator, one at a time (what the checks ran on before);
  * - every check of the cse benchmark machine (16 states), as the designer runs them after a
  *   keystroke, against its build.
+ * The checks share work within a build (compiled netlist, settle programs, clock records, move
+ * memo, routed budgets), so each timed run of them checks a copy of the build that no check has
+ * seen (`unseen`): the figure is what checking a new build costs, not a second look at one.
  */
 import { readFileSync } from 'node:fs';
 import { createActor, createMachine } from 'xstate';
@@ -67,6 +70,11 @@ function interleaved(runs: number, a: () => void, b: () => void): [number, numbe
 }
 
 const rate = (n: number, t: number): string => `${Math.round((n / t) * 1000).toLocaleString('en')}`;
+
+/** A copy of a build and its placement that no check has seen: every memo keyed by them starts empty. */
+function unseen(b: Built): { build: Build; placement: Built['placement'] } {
+  return { build: { ...b.build }, placement: { ...b.placement, routing: { ...b.placement.routing } } };
+}
 
 /** A build without its checks, with `encoding` or else the command line's default (as the designer builds). */
 function mustBuild(a: Analysed, encoding?: 'binary'): Built {
@@ -180,19 +188,24 @@ function lanesRow(label: string, a: Analysed, build: Build, clocks: number): Sim
  * The three exhaustive checks of an 8-bit × 6-input build, and then every check of it, against
  * one event-driven clock from every start point.
  */
-function checksRows(): SimBenchRow[] {
+export function checksRows(): SimBenchRow[] {
   const text = flatToJsonText(randomFlatMachine(200, 6, 2, 3));
   const a = mustAnalyse(text, 'random-200.json');
-  const { build, placement } = mustBuild(a, 'binary');
+  const built = mustBuild(a, 'binary');
+  const { build } = built;
   const spec = { original: a.flat, merged: a.minimised.merged };
   const sim = simFor(build, timingOf(DEFAULT_PROFILE));
   const checks = (): void => {
-    checkEquivalence(build, spec, DEFAULT_PROFILE);
-    checkForbiddenInput(build, DEFAULT_PROFILE);
-    checkRecovery(build, DEFAULT_PROFILE);
+    const b = unseen(built).build;
+    checkEquivalence(b, spec, DEFAULT_PROFILE);
+    checkForbiddenInput(b, DEFAULT_PROFILE);
+    checkRecovery(b, DEFAULT_PROFILE);
   };
   // The checks reuse the build's own placement, as builds and the designer's checks do.
-  const every = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1, placement);
+  const every = (): void => {
+    const u = unseen(built);
+    void runChecks(u.build, a, DEFAULT_PROFILE, 1, u.placement);
+  };
   const inputs = grayAssignments(build.machine.inputs.length);
   const eventDriven = (): void => {
     for (const c of allCodes(build.encoding.bits))
@@ -207,14 +220,14 @@ function checksRows(): SimBenchRow[] {
   const goal = (t: number): string => `< 1 s (${t < 1000 ? 'met' : `short by ${ms(t - 1000)}`})`;
   return [
     {
-      name: `exhaustive checks (equivalence, forbidden input, recovery), ${size}`,
+      name: `exhaustive checks (equivalence, forbidden input, recovery), ${size}, on a build no check has seen`,
       figure: ms(tc),
       reference,
       ratio: `${(tc / te).toFixed(2)}×`,
       goal: goal(tc),
     },
     {
-      name: `every check (the exhaustive ones, next-state equivalence, timing with its Monte Carlo runs, drive, layout), ${size}, the build placed once beforehand`,
+      name: `every check (the exhaustive ones, next-state equivalence, timing with its Monte Carlo runs, drive, layout), ${size}, the build placed once beforehand, on a copy no check has seen`,
       figure: ms(ta),
       reference,
       ratio: `${(ta / te).toFixed(2)}×`,
@@ -224,11 +237,15 @@ function checksRows(): SimBenchRow[] {
 }
 
 /** Every check of the cse machine, as the designer runs them after a keystroke, against its build. */
-function cseRow(): SimBenchRow {
+export function cseRow(): SimBenchRow {
   const file = 'tests/fixtures/lgsynth91/cse.json';
   const a = mustAnalyse(readFileSync(file, 'utf8'), file);
-  const { build, placement } = mustBuild(a);
-  const checks = (): void => void runChecks(build, a, DEFAULT_PROFILE, 1, placement);
+  const built = mustBuild(a);
+  const { build } = built;
+  const checks = (): void => {
+    const u = unseen(built);
+    void runChecks(u.build, a, DEFAULT_PROFILE, 1, u.placement);
+  };
   const rebuild = (): void => void mustBuild(a);
   checks();
   const [tc, tb] = interleaved(3, checks, rebuild);

@@ -57,7 +57,8 @@ import {
   type PartSim,
   type Trit,
 } from '../sim/part.js';
-import { sweep } from '../sim/sweep.js';
+import { LaneBatch } from '../sim/lanes.js';
+import { batchKey, sweep } from '../sim/sweep.js';
 import { Compatibility } from './compatibility.js';
 import type { SpecInfo } from './spec.js';
 
@@ -167,6 +168,8 @@ class Explorer {
   private readonly pParent: number[] = [];
   private readonly pVia: string[] = [];
   private readonly seen = new Set<string>();
+  /** One batch of lanes for every sweep (its words are as long as the netlist). */
+  private readonly batch: LaneBatch;
 
   constructor(
     private readonly build: Build,
@@ -183,6 +186,7 @@ class Explorer {
     this.exhaustive = isExhaustive(this.f.inputs.length, opts);
     this.rnd = seededRandom(opts.seed ?? 1);
     this.all = this.exhaustive ? this.assignments([]) : [];
+    this.batch = new LaneBatch(sim);
   }
 
   /** Pairs reached so far. */
@@ -317,23 +321,30 @@ class Explorer {
       outputs: new Uint8Array(list.length * outs),
       alarms: new Map(),
     };
-    sweep<Trit[]>(sim, list.length, {
-      setUp: (b, lane, i) => {
-        b.setLatches(lane, start);
-        b.setInputs(lane, list[i]);
+    sweep<Trit[]>(
+      sim,
+      list.length,
+      {
+        setUp: (b, lane, i) => {
+          b.setLatches(lane, start);
+          b.setInputs(lane, list[i]);
+        },
+        // The exhaustive list's clocks are the same as other checks' from the same latches (sim/sweep.ts).
+        recordKey: (first, n) => (list === this.all ? batchKey(start, list, first, n) : undefined),
+        held: (b, lane) => b.outputs(lane),
+        done: (i, b, lane, shown) => {
+          clocks.outputs.set(shown ?? [], i * outs);
+          clocks.next[i] = this.addNode(b.latchesOf(lane));
+        },
+        slow: (i) => {
+          const c = clockFrom(sim, stateAtLatches(sim, start, list[i]).values);
+          clocks.outputs.set(c.outputs, i * outs);
+          clocks.next[i] = this.addNode(latchesOf(sim, c.values));
+          if (c.alarms.length > 0) clocks.alarms.set(i, c.alarms.map((e) => e.words).join('; '));
+        },
       },
-      held: (b, lane) => b.outputs(lane),
-      done: (i, b, lane, shown) => {
-        clocks.outputs.set(shown ?? [], i * outs);
-        clocks.next[i] = this.addNode(b.latchesOf(lane));
-      },
-      slow: (i) => {
-        const c = clockFrom(sim, stateAtLatches(sim, start, list[i]).values);
-        clocks.outputs.set(c.outputs, i * outs);
-        clocks.next[i] = this.addNode(latchesOf(sim, c.values));
-        if (c.alarms.length > 0) clocks.alarms.set(i, c.alarms.map((e) => e.words).join('; '));
-      },
-    });
+      this.batch,
+    );
     return clocks;
   }
 

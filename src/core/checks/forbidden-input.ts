@@ -13,7 +13,7 @@
  * input levers moved from released, and gives the alarm. Then, per operating rule, a breadth-first search
  * over hand actions from the reset machine, where actions may break that rule (and no
  * other), finds the shortest sequence after which a latch sees the forbidden input, is left
- * X, or the machine oscillates — what signage and interlocks are designed from.
+ * X, or the machine oscillates — what signage and interlocks are designed from (rule-search.ts).
  * Bounds: inputs beyond `maxExhaustiveInputs` (16) are sampled (one combination per row and
  * `never` cube plus seeded random ones); codes beyond `maxClocks` simulated clocks are
  * the used codes plus a seeded sample of unused ones; master codes are free of the slaves'
@@ -24,37 +24,24 @@ import type { Build, CheckBase } from '../model/build.js';
 import { seededRandom, type Random } from '../model/random.js';
 import type { Profile } from '../physics/profile.js';
 import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
-import { clockFrom, latchKey } from '../sim/clocking.js';
+import { clockFrom } from '../sim/clocking.js';
 import { LANES, LaneBatch } from '../sim/lanes.js';
-import { sweep as sweepLanes } from '../sim/sweep.js';
+import { codesBatchKey, sweep as sweepLanes } from '../sim/sweep.js';
+import { clockActions, describeTrace, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
 import {
-  clockActions,
-  describeAction,
-  describeTrace,
-  OPERATING_RULES,
-  resetActions,
-  RULE_WORDS,
-  ruleBroken,
-  valuesOf,
-  type HandAction,
-  type OperatingRule,
-} from '../sim/hand.js';
-import { isReady, moverFor } from '../sim/fast.js';
-import {
-  applyFastInPlace,
   applyInPlace,
   isAlarm,
-  latchLabel,
-  powerUp,
   setLeversInPlace,
   simFor,
   stateAtCode,
-  stepSim,
   timingOf,
   type PartEvent,
   type PartSim,
 } from '../sim/part.js';
 import { checkForbiddenInput as checkForbiddenLogic, type LogicForbiddenResult } from './logic.js';
+import { searchRules, type RuleViolation } from './rule-search.js';
+
+export type { RuleViolation } from './rule-search.js';
 
 export interface ForbiddenInputOptions {
   readonly maxExhaustiveInputs?: number;
@@ -68,17 +55,6 @@ export interface ForbiddenInputOptions {
   /** Rule search bounds: hand actions (default 8) and machine states (default 20 000). */
   readonly maxActions?: number;
   readonly maxStates?: number;
-}
-
-/** The shortest way found of breaking one operating rule, and which latches it upsets. */
-export interface RuleViolation {
-  readonly rule: OperatingRule;
-  /** Hand actions from the reset machine (the last one shows the upset). */
-  readonly violation: readonly HandAction[];
-  readonly trace: readonly string[];
-  /** Latch names that see the forbidden input or are left X (empty when none within the bound). */
-  readonly upsets: readonly string[];
-  readonly words: string;
 }
 
 export interface ForbiddenCounterexample {
@@ -153,7 +129,7 @@ export function checkForbiddenInput(
   const sim = simFor(build, timingOf(profile));
   const scope = scopeOf(build, sim.slaves.length, opts, seededRandom(opts.seed ?? 1));
   const { states, failure } = sweep(sim, scope);
-  const rules = OPERATING_RULES.map((r) => searchRule(sim, r, opts.maxActions ?? 8, opts.maxStates ?? 20_000));
+  const rules = searchRules(sim, opts.maxActions ?? 8, opts.maxStates ?? 20_000);
   const { allFit, freeMasters, exhaustive } = scope;
   const scopeWords = `${allFit ? 'every code' : `${scope.codes.length} sampled codes`}${freeMasters ? ' (masters free)' : ''} × ${exhaustive ? 'every input combination' : `${scope.tries.length} sampled input combinations`} × both phases and reset`;
   return {
@@ -193,6 +169,8 @@ function sweep(sim: PartSim, scope: Scope): { states: number; failure?: Forbidde
           b.setCodes(lane, c, m);
           b.setInputs(lane, scope.tries[i]);
         },
+        // Other checks run clocks from codes with the masters equal to the slaves (as every clock leaves them): keep those.
+        recordKey: (first, n) => (m === c ? codesBatchKey(sim, c, m, scope.tries, first, n) : undefined),
         done: () => void states++,
         slow: (i) => {
           states++;
@@ -296,83 +274,4 @@ function runActions(sim: PartSim, values: Uint8Array, actions: readonly HandActi
   const events: PartEvent[] = [];
   for (const a of actions) applyInPlace(sim, v, 0, a, events);
   return events.filter(isAlarm);
-}
-
-const UPSETS = new Set(['forbidden-input', 'latch-x', 'oscillation']);
-
-/** Breadth-first search for the shortest action sequence breaking `rule` (and only it) that upsets a latch. */
-function searchRule(sim: PartSim, rule: OperatingRule, maxActions: number, maxStates: number): RuleViolation {
-  const f = sim.build.machine;
-  let [start] = powerUp(sim);
-  for (const a of resetActions()) start = stepSim(sim, start, a)[0];
-  const mover = moverFor(sim);
-  const readyOf: boolean[] = [isReady(sim, start.values)];
-  const moves: HandAction[] = [];
-  const levers = ['phi1', 'phi2', 'reset'] as const;
-  const statesOf: Uint8Array[] = [start.values];
-  const broken: boolean[] = [false];
-  const parent: number[] = [-1];
-  const via: (HandAction | null)[] = [null];
-  const depth: number[] = [0];
-  const keyOf = (v: Uint8Array, b: boolean): string => {
-    let k = b ? '1' : '0';
-    for (let d = 0; d < sim.leverCount; d++) k += v[d] === 1 ? '1' : '0';
-    return k + latchKey(sim, v);
-  };
-  // One scratch state and one event list for every move; a state is copied only when it is new.
-  const next = new Uint8Array(sim.driverCount);
-  const events: PartEvent[] = [];
-  const seen = new Set([keyOf(start.values, false)]);
-  const path = (i: number, last: HandAction): HandAction[] => {
-    const out = [last];
-    for (let j = i; parent[j] >= 0; j = parent[j]) out.unshift(via[j] as HandAction);
-    return out;
-  };
-  let firstBreak: HandAction[] | undefined;
-  for (let i = 0; i < statesOf.length && statesOf.length < maxStates; i++) {
-    if (depth[i] >= maxActions) continue;
-    const v = statesOf[i];
-    moves.length = 0;
-    f.inputs.forEach((name, k) =>
-      moves.push({ kind: 'input', input: name, value: v[sim.inputLevers[k]] === 1 ? 0 : 1 }),
-    );
-    for (const l of levers) {
-      const d = l === 'phi1' ? sim.phi1 : l === 'phi2' ? sim.phi2 : sim.reset;
-      moves.push({ kind: v[d] === 1 ? 'release' : 'pull', lever: l });
-    }
-    const at = { phi1: v[sim.phi1] === 1, phi2: v[sim.phi2] === 1, reset: v[sim.reset] === 1 };
-    for (const a of moves) {
-      const r = ruleBroken(a, at);
-      if (r !== null && r !== rule) continue;
-      const b = broken[i] || r === rule;
-      if (b && !firstBreak) firstBreak = path(i, a);
-      next.set(v);
-      if (events.length > 0) events.length = 0;
-      applyFastInPlace(sim, next, 0, a, events, readyOf[i]);
-      const upset = events.length === 0 ? events : events.filter((e) => UPSETS.has(e.kind));
-      if (b && upset.length > 0) {
-        const actions = path(i, a);
-        const latches = [...new Set(upset.flatMap((e) => (e.latch ? [e.latch] : [])))];
-        const words = `${RULE_WORDS[rule]}: breaking it (${actions.map(describeAction).join(', ')}) upsets ${latches.length > 0 ? latches.map(latchLabel).join(', ') : 'the machine'}: ${upset[0].words}`;
-        return { rule, violation: actions, trace: describeTrace(actions), upsets: latches, words };
-      }
-      const key = keyOf(next, b);
-      if (seen.has(key)) continue;
-      seen.add(key);
-      statesOf.push(next.slice());
-      readyOf.push(mover.ready);
-      broken.push(b);
-      parent.push(i);
-      via.push(a);
-      depth.push(depth[i] + 1);
-    }
-  }
-  const actions = firstBreak ?? [];
-  return {
-    rule,
-    violation: actions,
-    trace: describeTrace(actions),
-    upsets: [],
-    words: `${RULE_WORDS[rule]}: no way of breaking it upsets a latch within ${maxActions} hand actions from the reset machine (${statesOf.length} machine states searched)`,
-  };
 }

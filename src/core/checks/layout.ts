@@ -18,9 +18,8 @@
 import type { CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
 import { auditPlacement, type AuditFinding, type Placement } from '../phases/place/index.js';
-import { driveBudget } from '../physics/drive.js';
 import type { Profile } from '../physics/profile.js';
-import { lossByBranch } from '../physics/routing.js';
+import { routedBudgets } from './budgets.js';
 
 /** One rule the layout breaks, and what to change. */
 export interface LayoutFinding {
@@ -53,7 +52,7 @@ const metres = (m: number): string => `${m.toFixed(2)} m`;
 /** Judge a placement of `netlist` under `profile`. */
 export function checkLayout(netlist: Netlist, placement: Placement, profile: Profile): LayoutResult {
   const findings: LayoutFinding[] = [...auditPlacement(netlist, placement, profile, new Set(placement.pinned))];
-  const budgets = driveBudget(netlist, profile, lossByBranch(placement.routing));
+  const budgets = routedBudgets(netlist, profile, placement.routing);
   for (const b of budgets)
     if (!b.ok)
       findings.push({

@@ -19,7 +19,7 @@
 import { coverHolds, intersect, subtract, type Cube } from '../model/cube.js';
 import { DONT_CARE } from '../model/flat.js';
 import type { Build, CheckBase } from '../model/build.js';
-import type { Netlist } from '../model/netlist.js';
+import type { Cord, Netlist, Part } from '../model/netlist.js';
 
 /** The logic-level forbidden-input proof (the part-level check carries it as `logic`). */
 export interface LogicForbiddenResult extends CheckBase<'forbidden-input'> {
@@ -64,8 +64,9 @@ export function checkForbiddenInput(build: Build): LogicForbiddenResult {
         };
       }
   }
+  const index = new NetIndex(build.netlist);
   for (let j = 0; j < bits; j++) {
-    const wrong = slaveWiring(build, j);
+    const wrong = slaveWiring(build, index, j);
     if (wrong) {
       return {
         name: 'forbidden-input',
@@ -108,14 +109,16 @@ export function checkNextStateEquivalence(build: Build): NextStateResult {
   });
   for (let s = 0; s < f.states.length; s++) {
     const code = codes[s];
+    // Each equation's terms that can hold at this code, in order: the others meet no cube of this state.
+    const at = eq.map((e) => termsAtCode(e.terms, code));
     for (const row of f.rows[s]) {
       cells++;
       const x = code + row.cube;
       if (row.next !== DONT_CARE) {
         const to = codes[row.next];
         for (let j = 0; j < bits; j++) {
-          const set = eq[2 * j].terms,
-            reset = eq[2 * j + 1].terms;
+          const set = at[2 * j],
+            reset = at[2 * j + 1];
           const want = to[j] === '1' ? 1 : 0;
           // Wrong where the opposite input fires, or where the needed input is missing.
           const bad =
@@ -126,7 +129,7 @@ export function checkNextStateEquivalence(build: Build): NextStateResult {
       for (let k = 0; k < f.outputs.length; k++) {
         const v = row.out[k];
         if (v === '-') continue;
-        const terms = eq[2 * bits + k].terms;
+        const terms = at[2 * bits + k];
         const bad = v === 1 ? miss(x, terms) : meet(x, terms);
         if (bad !== null) return fail(s, bad, `output ${f.outputs[k]}`, v, v === 1 ? 0 : 1);
       }
@@ -138,6 +141,18 @@ export function checkNextStateEquivalence(build: Build): NextStateResult {
     summary: `next codes and outputs match the specification in all ${f.states.length} states (${cells} input cubes)`,
     cellsChecked: cells,
   };
+}
+
+/**
+ * The terms of a cover that agree with a state code on its bits (the code's variables come
+ * first), in cover order. A term left out is disjoint from every cube of that code, so it
+ * changes neither where the cover meets such a cube nor what subtracting it leaves.
+ */
+function termsAtCode(cover: readonly Cube[], code: string): readonly Cube[] {
+  return cover.filter((t) => {
+    for (let i = 0; i < code.length; i++) if (t[i] !== '-' && t[i] !== code[i]) return false;
+    return true;
+  });
 }
 
 /** A point of cube x where the cover holds, or null. */
@@ -163,10 +178,9 @@ function nextBit(point: string, j: number, set: readonly Cube[], reset: readonly
 }
 
 /** Why slave j is not wired as NAND(φ2, M_j) → S̄, NAND(φ2, M̄_j) → R̄ with reset on one side; or null. */
-function slaveWiring(build: Build, j: number): string | null {
-  const n = build.netlist;
-  const slave = n.parts.find((p) => p.id === build.signals.slaves[j]);
-  const master = n.parts.find((p) => p.id === build.signals.masters[j]);
+function slaveWiring(build: Build, n: NetIndex, j: number): string | null {
+  const slave = n.part(build.signals.slaves[j]);
+  const master = n.part(build.signals.masters[j]);
   if (slave?.kind !== 'latch' || master?.kind !== 'latch') return `latches of bit ${j} are missing`;
   const setIn = feeders(n, slave.setGate, slave.resetGate),
     resetIn = feeders(n, slave.resetGate, slave.setGate);
@@ -187,19 +201,45 @@ function slaveWiring(build: Build, j: number): string | null {
   return null;
 }
 
+/** A netlist's parts by id and its cords by the parts they pull, looked up instead of scanned. */
+class NetIndex {
+  private readonly parts = new Map<string, Part>();
+  /** Per part, the cords with a port on it, in netlist order (each once). */
+  private readonly cords = new Map<string, Cord[]>();
+
+  constructor(n: Netlist) {
+    // The first part of an id, as a search from the front finds it.
+    for (const p of n.parts) if (!this.parts.has(p.id)) this.parts.set(p.id, p);
+    for (const c of n.cords)
+      for (const part of new Set(c.ports.map((p) => p.part))) {
+        const list = this.cords.get(part);
+        if (list) list.push(c);
+        else this.cords.set(part, [c]);
+      }
+  }
+
+  part(id: string): Part | undefined {
+    return this.parts.get(id);
+  }
+
+  cordsAt(part: string): readonly Cord[] {
+    return this.cords.get(part) ?? [];
+  }
+}
+
 /**
  * The drivers whose cords reach a gate's ports (except the feedback from `skip`), looking
  * through buffer pairs and fan-in trees (gates named `<gate>.and<k>`), which pass signals on.
  */
-function feeders(n: Netlist, gate: string, skip: string): Set<string> {
+function feeders(n: NetIndex, gate: string, skip: string): Set<string> {
   const out = new Set<string>();
   const seen = new Set<string>();
   const visit = (g: string): void => {
     if (seen.has(g)) return;
     seen.add(g);
-    for (const c of n.cords) {
-      if (c.driver === skip || !c.ports.some((p) => p.part === g)) continue;
-      const d = n.parts.find((p) => p.id === c.driver);
+    for (const c of n.cordsAt(g)) {
+      if (c.driver === skip) continue;
+      const d = n.part(c.driver);
       const passOn =
         d?.kind === 'gate' && (d.role === 'buffer' || d.id.startsWith(`${gate}.and`) || d.id.startsWith(`${g}.and`));
       if (passOn) visit(d.id);

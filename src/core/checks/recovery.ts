@@ -19,7 +19,7 @@ import type { Profile } from '../physics/profile.js';
 import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
 import { clockFrom } from '../sim/clocking.js';
 import { LaneBatch } from '../sim/lanes.js';
-import { sweep } from '../sim/sweep.js';
+import { codesBatchKey, sweep } from '../sim/sweep.js';
 import { simFor, stateAtCode, timingOf, type PartSim } from '../sim/part.js';
 
 export interface RecoveryOptions {
@@ -125,6 +125,7 @@ function clockGraph(
           b.setCodes(lane, c);
           b.setInputs(lane, tries[k]);
         },
+        recordKey: (first, n) => codesBatchKey(sim, c, c, tries, first, n),
         done: (k, b, lane) => reached(b.slaveCode(lane), tries[k]),
         slow: (k) => {
           const r = clockFrom(sim, stateAtCode(sim, c, tries[k]).values);

@@ -16,8 +16,8 @@ import type { Build } from '../model/build.js';
 import type { Placement } from '../phases/place/index.js';
 import { checkDrive } from '../physics/check-drive.js';
 import type { Profile } from '../physics/profile.js';
-import { lossByBranch } from '../physics/routing.js';
 import { driveSnapshots, placeWords } from '../sim/snapshots.js';
+import { routedBudgets } from './budgets.js';
 import { checkEquivalence } from './equivalence.js';
 import { forbiddenInputCheck } from './forbidden-input.js';
 import { checkLayout } from './layout.js';
@@ -135,7 +135,9 @@ export const CHECKS = [
       'margins per driver with each branch’s routed loss, the worst drum torque and power overall and per state (over every or a sampled set of inputs), the hardest lever pull',
     run: ({ build, profile, seed, placement }) => {
       const snapshots = driveSnapshots(build, profile, seed);
-      const r = checkDrive(build.netlist, profile, snapshots, placeWords, lossByBranch(placement.routing));
+      // The budgets with the routed losses, made once for this check and the layout check.
+      const drivers = routedBudgets(build.netlist, profile, placement.routing);
+      const r = checkDrive(build.netlist, profile, snapshots, placeWords, undefined, drivers);
       const torqueOver = { clocks: snapshots.clocks, inputs: snapshots.inputs, seed };
       if (snapshots.inputs === 'exhaustive') return { ...r, torqueOver };
       const summary = `${r.summary}; drum torque over ${snapshots.clocks} sampled start points (state × inputs, seed ${seed}), not every one`;

@@ -10,6 +10,11 @@
  * (its two gates in turn) after its last S̄/R̄ input; on a release the chain stops at the
  * latches, since ports rising never flip one. A loop of gates that no latch closes is
  * reported instead of a time. The result is an upper bound on the settling time.
+ * Only the arrival times depend on the stage delays: the constant gates, the depth-first
+ * order (a topological order of the gates that can change) and the loop do not, so a plan
+ * (`chainPlan`) finds them once per netlist and action and puts each set of delays on them in
+ * one pass, with the same times and the same chain as a fresh search (the Monte Carlo runs of
+ * timing.ts vary the delays of one netlist).
  */
 import { X, type PartSim } from '../sim/compile.js';
 import { evalGate } from '../sim/settle.js';
@@ -30,10 +35,37 @@ const NEG = -Infinity;
 
 /** The longest stage chain after one action, with the sim's delays. */
 export function stageChain(sim: PartSim, action: TimedAction): StageChain {
+  return chainPlan(sim, action).chain(sim);
+}
+
+/**
+ * What the chains of one action need that does not depend on the stage delays, found once:
+ * the gates the still levers hold constant and the order in which the depth-first search
+ * finishes the others, with each one's inputs. `chain` puts any stage delays of the same
+ * netlist on it (a retimed copy: the Monte Carlo runs) in one pass over that order.
+ */
+export interface ChainPlan {
+  readonly action: TimedAction;
+  /** The longest chain with `sim`'s stage delays (`sim`: the netlist planned, or a retimed copy of it). */
+  chain(sim: PartSim): StageChain;
+}
+
+/** The plan of one action's chains (see ChainPlan). */
+export function chainPlan(sim: PartSim, action: TimedAction): ChainPlan {
   const { sources, fixed } = leversOf(sim, action);
   const crossLatches = action === 'phi1' || action === 'phi2' || action === 'reset';
-  const paths = longestPaths(sim, heldConstant(sim, fixed), sources, crossLatches);
-  if (paths.loop) return { timeS: Infinity, parts: [], loop: paths.loop };
+  const order = searchOrder(sim, heldConstant(sim, fixed), sources, crossLatches);
+  return {
+    action,
+    chain: (timed) => {
+      if (order.loop) return { timeS: Infinity, parts: [], loop: order.loop };
+      return chainOf(timed, longestPaths(timed, order));
+    },
+  };
+}
+
+/** The chain from the driver that settles last back to its source, in part names. */
+function chainOf(sim: PartSim, paths: Paths): StageChain {
   const { arrival, pred, end, isSource } = paths;
   const parts: string[] = [];
   for (let d = end; d >= 0 && !isSource[d]; d = pred[d]) {
@@ -89,55 +121,96 @@ interface Paths {
   /** The driver that settles last (-1: nothing moves). */
   readonly end: number;
   readonly isSource: Uint8Array;
+}
+
+/** The depth-first search over the gates that can still change, which needs no delays. */
+interface SearchOrder {
+  readonly isSource: Uint8Array;
+  /** The gates whose arrival the delays decide, in the order the search finishes them (each after its inputs). */
+  readonly timed: Int32Array;
+  /** Their inputs, in the order the search visits them: timed[k]'s are ins[insStart[k] .. insStart[k+1]). */
+  readonly insStart: Int32Array;
+  readonly ins: Int32Array;
   readonly loop?: string[];
 }
 
-/** Arrival times from the sources over the gates that can still change (the longest path of a DAG, by depth-first search). */
-function longestPaths(sim: PartSim, values: Uint8Array, sources: readonly number[], crossLatches: boolean): Paths {
+/**
+ * The depth-first search from every driver in index order over the gates that can still
+ * change: sources, levers, gates held constant and (on a release) latches end a path; a gate
+ * met again while it is on the stack closes a loop.
+ */
+function searchOrder(sim: PartSim, values: Uint8Array, sources: readonly number[], crossLatches: boolean): SearchOrder {
   const isSource = new Uint8Array(sim.driverCount);
   for (const s of sources) isSource[s] = 1;
-  const arrival = new Float64Array(sim.driverCount).fill(NaN);
-  const pred = new Int32Array(sim.driverCount).fill(-1);
   const state = new Uint8Array(sim.driverCount); // 0 new, 1 on stack, 2 done
   const stack: number[] = [];
+  const timed: number[] = [];
+  const insStart: number[] = [0];
+  const ins: number[] = [];
   let loop: string[] | undefined;
-  const finish = (d: number, a: number, from: number): number => {
-    state[d] = 2;
-    arrival[d] = a;
-    pred[d] = from;
-    return a;
-  };
-  const visit = (d: number): number => {
-    if (state[d] === 2) return arrival[d];
-    if (isSource[d]) return finish(d, 0, -1);
-    if (d < sim.leverCount || values[d] !== X) return finish(d, NEG, -1);
-    const li = sim.latchOf[d];
-    if (li >= 0 && !crossLatches) return finish(d, NEG, -1);
+  const visit = (d: number): void => {
+    if (state[d] === 2) return;
+    const fixed = isSource[d] || d < sim.leverCount || values[d] !== X || (sim.latchOf[d] >= 0 && !crossLatches);
+    if (fixed) {
+      state[d] = 2;
+      return;
+    }
     if (state[d] === 1) {
       loop ??= stack.slice(stack.indexOf(d)).map((g) => sim.names[g]);
-      return NEG;
+      return;
     }
     state[d] = 1;
     stack.push(d);
+    const inputs = inputsOf(sim, d);
+    for (const i of inputs) visit(i);
+    stack.pop();
+    state[d] = 2;
+    timed.push(d);
+    for (const i of inputs) ins.push(i);
+    insStart.push(ins.length);
+  };
+  for (let d = 0; d < sim.driverCount; d++) visit(d);
+  const order = {
+    isSource,
+    timed: Int32Array.from(timed),
+    insStart: Int32Array.from(insStart),
+    ins: Int32Array.from(ins),
+  };
+  return loop ? { ...order, loop } : order;
+}
+
+/**
+ * Arrival times from the sources (the longest path of a DAG), over a loop-free search order:
+ * each gate after its inputs, its latest input the first of equals in the order visited.
+ */
+function longestPaths(sim: PartSim, o: SearchOrder): Paths {
+  const { delayUs, latchOf, latches } = sim;
+  const arrival = new Float64Array(sim.driverCount).fill(NEG);
+  const pred = new Int32Array(sim.driverCount).fill(-1);
+  for (let d = 0; d < sim.driverCount; d++) if (o.isSource[d]) arrival[d] = 0;
+  const { timed, insStart, ins } = o;
+  for (let k = 0; k < timed.length; k++) {
+    const d = timed[k];
     let best = NEG;
     let from = -1;
-    for (const i of inputsOf(sim, d)) {
-      const a = visit(i);
+    for (let j = insStart[k]; j < insStart[k + 1]; j++) {
+      const a = arrival[ins[j]];
       if (a > best) {
         best = a;
-        from = i;
+        from = ins[j];
       }
     }
-    stack.pop();
-    const own = li >= 0 ? sim.delayUs[sim.latches[li].set] + sim.delayUs[sim.latches[li].reset] : sim.delayUs[d];
-    return finish(d, best === NEG ? NEG : best + own, from);
-  };
+    const li = latchOf[d];
+    const own = li >= 0 ? delayUs[latches[li].set] + delayUs[latches[li].reset] : delayUs[d];
+    arrival[d] = best === NEG ? NEG : best + own;
+    pred[d] = from;
+  }
   let end = -1;
   for (let d = 0; d < sim.driverCount; d++) {
-    const a = visit(d);
+    const a = arrival[d];
     if (a > 0 && (end < 0 || a > arrival[end])) end = d;
   }
-  return loop ? { arrival, pred, end, isSource, loop } : { arrival, pred, end, isSource };
+  return { arrival, pred, end, isSource: o.isSource };
 }
 
 /** A gate's input drivers; for a latch, the drivers of its S̄ and R̄ ports (it counts as one two-stage part). */

@@ -24,11 +24,11 @@ import type { Profile } from '../physics/profile.js';
 import { describeInputs, inputAssignments, machineInputs } from '../sim/assignments.js';
 import { clockFrom, latchKey } from '../sim/clocking.js';
 import { LaneBatch } from '../sim/lanes.js';
-import { sweep } from '../sim/sweep.js';
+import { batchKey, sweep } from '../sim/sweep.js';
 import { retimed, X, type PartSim } from '../sim/compile.js';
 import { resetActions } from '../sim/hand.js';
 import { applyInPlace, latchesOf, powerUp, show, simFor, slaveCode, stateAtLatches, timingOf } from '../sim/part.js';
-import { stageChain, type StageChain } from './stage-chains.js';
+import { chainPlan, type ChainPlan, type StageChain } from './stage-chains.js';
 
 export interface TimingOptions {
   /** Crank speed in turns per minute (one clock per turn); default the fastest safe rate divided by 1 + spread. */
@@ -73,15 +73,42 @@ interface Phases {
   readonly loop?: readonly string[];
 }
 
-function phases(sim: PartSim): Phases {
-  const inputs = stageChain(sim, 'inputs');
-  const rel2 = stageChain(sim, 'phi2-release');
+/** The plans of the chains a clock needs (stage-chains.ts), made once per netlist. */
+interface Plans {
+  readonly phi1: ChainPlan;
+  readonly dead1: ChainPlan;
+  readonly phi2: ChainPlan;
+  readonly rel2: ChainPlan;
+  readonly inputs: ChainPlan;
+  readonly reset: ChainPlan;
+}
+
+function plansOf(sim: PartSim): Plans {
+  return {
+    phi1: chainPlan(sim, 'phi1'),
+    dead1: chainPlan(sim, 'phi1-release'),
+    phi2: chainPlan(sim, 'phi2'),
+    rel2: chainPlan(sim, 'phi2-release'),
+    inputs: chainPlan(sim, 'inputs'),
+    reset: chainPlan(sim, 'reset'),
+  };
+}
+
+/** The dead band after φ2: the slower of its release and the next inputs settling. */
+function deadAfterPhi2(plans: Plans, sim: PartSim): { dead2: StageChain; inputs: StageChain; rel2: StageChain } {
+  const inputs = plans.inputs.chain(sim);
+  const rel2 = plans.rel2.chain(sim);
+  return { dead2: inputs.timeS > rel2.timeS ? inputs : rel2, inputs, rel2 };
+}
+
+function phases(plans: Plans, sim: PartSim): Phases {
+  const { dead2, inputs, rel2 } = deadAfterPhi2(plans, sim);
   const p: Phases = {
-    phi1: stageChain(sim, 'phi1'),
-    dead1: stageChain(sim, 'phi1-release'),
-    phi2: stageChain(sim, 'phi2'),
-    dead2: inputs.timeS > rel2.timeS ? inputs : rel2,
-    reset: stageChain(sim, 'reset'),
+    phi1: plans.phi1.chain(sim),
+    dead1: plans.dead1.chain(sim),
+    phi2: plans.phi2.chain(sim),
+    dead2,
+    reset: plans.reset.chain(sim),
   };
   const loop = [p.phi1, p.dead1, p.phi2, p.dead2, p.reset, inputs, rel2].find((c) => c.loop)?.loop;
   return loop ? { ...p, loop } : p;
@@ -98,7 +125,8 @@ export function checkTiming(
   opts: TimingOptions = {},
 ): TimingResult {
   const sim = simFor(build, timingOf(profile, opts.delays));
-  const p = phases(sim);
+  const plans = plansOf(sim);
+  const p = phases(plans, sim);
   const clockS = p.phi1.timeS + p.dead1.timeS + p.phi2.timeS + p.dead2.timeS;
   // A loop gives no finite time; a machine with nothing that moves (no clock, no inputs) needs none.
   const timed = Number.isFinite(clockS) && clockS > 0;
@@ -120,7 +148,9 @@ export function checkTiming(
     phi2: window(p.phi2.timeS),
     dead2: window(p.dead2.timeS),
   };
-  const monteCarlo = p.loop ? { runs: 0, seed, ok: false } : monteCarloRun(sim, profile, opts, runs, seed, windows);
+  const monteCarlo = p.loop
+    ? { runs: 0, seed, ok: false }
+    : monteCarloRun(sim, plans, profile, opts, runs, seed, windows);
   const base = {
     name: 'timing' as const,
     phaseTimesS: { phi1: p.phi1.timeS, phi2: p.phi2.timeS },
@@ -211,6 +241,7 @@ function nominalReplay(sim: PartSim, limit: number, seed: number): Replay[] {
           b.setLatches(lane, base);
           b.setInputs(lane, tries[k]);
         },
+        recordKey: (first, n) => batchKey(base, tries, first, n),
         held: (b, lane) => b.outputs(lane).map(show).join(''),
         done: (k, b, lane, outputs) => {
           code ||= slaveCodeOf(sim, base);
@@ -269,6 +300,7 @@ function difference(nominal: Settled, varied: Settled): string | null {
 
 function monteCarloRun(
   nominal: PartSim,
+  plans: Plans,
   profile: Pick<Profile, 'stageDelayS' | 'stageDelaySpread'>,
   opts: TimingOptions,
   runs: number,
@@ -280,11 +312,20 @@ function monteCarloRun(
   const spread = profile.stageDelaySpread;
   const f = nominal.build.machine;
   for (let run = 1; run <= runs; run++) {
-    const delays: Record<string, number> = {};
-    for (let g = nominal.leverCount; g < nominal.driverCount; g++)
-      delays[nominal.ids[g]] = (nominal.delayUs[g] / 1e6) * (1 + spread * (2 * rnd.next() - 1));
-    const sim = retimed(nominal, { stageDelayS: profile.stageDelayS, delays });
-    const p = phases(sim);
+    // Every gate's delay drawn in driver order, rounded to whole microseconds as compile.ts rounds a delay.
+    const delayUs = new Int32Array(nominal.driverCount);
+    for (let g = nominal.leverCount; g < nominal.driverCount; g++) {
+      const s = (nominal.delayUs[g] / 1e6) * (1 + spread * (2 * rnd.next() - 1));
+      delayUs[g] = Math.max(1, Math.round(s * 1e6));
+    }
+    const sim = retimed(nominal, delayUs);
+    // The reset chain has no cam window; a loop would have stopped the runs before they began.
+    const p = {
+      phi1: plans.phi1.chain(sim),
+      dead1: plans.dead1.chain(sim),
+      phi2: plans.phi2.chain(sim),
+      dead2: deadAfterPhi2(plans, sim).dead2,
+    };
     const tight = (['phi1', 'dead1', 'phi2', 'dead2'] as const).find((w) => p[w].timeS > windows[w] + 1e-9);
     if (tight) {
       const label = { phi1: 'φ1', dead1: 'the dead band after φ1', phi2: 'φ2', dead2: 'the dead band after φ2' }[tight];

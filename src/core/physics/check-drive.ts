@@ -14,7 +14,8 @@
  * snapshots are read once, in order, and not kept (drum.ts streams them): only these
  * worst-case figures are, so any number of snapshots fits in memory.
  * `losses`: each branch's routing loss from the routed frame (physics/routing.ts
- * `lossByBranch`); a branch it does not name takes its cord's profile routing.
+ * `lossByBranch`); a branch it does not name takes its cord's profile routing. `drivers`: the
+ * budgets, when the caller has them already (`driveBudget`'s result; `losses` is then not read).
  */
 import type { CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
@@ -65,8 +66,8 @@ export function checkDrive<W extends StatePlace>(
   snapshots: Iterable<DriveSnapshot<W>>,
   words: (where: W) => string = (w) => w.state,
   losses?: BranchLosses,
+  drivers: readonly DriverBudget[] = driveBudget(netlist, profile, losses),
 ): DriveCheck<W> {
-  const drivers = driveBudget(netlist, profile, losses);
   const drum = drumLoad(netlist, profile, snapshots, (w) => w.state);
   const operatorForceMaxG = operatorForces(netlist, profile).reduce((m, o) => Math.max(m, o.forceG), 0);
   const loaded = drivers.filter((d) => Number.isFinite(d.margin));

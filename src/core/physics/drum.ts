@@ -162,17 +162,22 @@ class CapstanReader {
   lists(outputs: SnapshotOutputs): { engaged: string[]; assumed: string[] } {
     const engaged: string[] = [];
     const assumed: string[] = [];
-    this.capstans.forEach((c, k) => {
-      let v: number | undefined;
-      if (!('ids' in outputs)) v = outputs.get(c.driver);
-      else {
-        const i = this.indexFor(outputs.ids)[k];
-        const raw = i >= 0 ? outputs.values[i] : undefined;
-        v = raw === undefined || outputs.lane === undefined ? raw : (raw >>> outputs.lane) & 1;
+    const capstans = this.capstans;
+    if (!('ids' in outputs)) {
+      for (const c of capstans) {
+        const v = outputs.get(c.driver);
+        if (v !== 1) (v === undefined ? assumed : engaged).push(c.driver);
       }
-      if (v === 1) return;
-      (v === undefined ? assumed : engaged).push(c.driver);
-    });
+      return { engaged, assumed };
+    }
+    const index = this.indexFor(outputs.ids);
+    const { values, lane } = outputs;
+    for (let k = 0; k < capstans.length; k++) {
+      const i = index[k];
+      const raw = i >= 0 ? values[i] : undefined;
+      const v = raw === undefined || lane === undefined ? raw : (raw >>> lane) & 1;
+      if (v !== 1) (v === undefined ? assumed : engaged).push(capstans[k].driver);
+    }
     return { engaged, assumed };
   }
 
