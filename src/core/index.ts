@@ -51,6 +51,7 @@ export {
 } from './model/diagnostics.js';
 export { seededRandom, type Random } from './model/random.js';
 export { nameRecord, nameRecordOf, ownValue } from './model/records.js';
+export { counted } from './model/words.js';
 
 // ── Parse and print: the text form, the JSON form, xstate configs ───────────────────────────
 export { detectForm, readMachine, readMachineValue, type MachineForm, type ReadResult } from './forms/detect.js';

@@ -205,6 +205,16 @@ describe('cli/commands/build (text report) of a build with no latches', () => {
     expect(t.out).toContain('parts: 0 latches, ');
     expect(t.out).toContain('forbidden-input guard: none needed (no latches)\n');
     expect(t.out).not.toContain('proven for every latch');
+    // One state: the checks count it, its reachable pair and its start point in the singular.
+    expect(t.out).toMatch(
+      /next-state-equivalence: next codes and outputs match the specification in its one state \(\d+ input cubes?\)/,
+    );
+    expect(t.out).toContain('over 1 reachable pair (state, build code)');
+    // No inputs either: one start point.
+    const lamp = 'machine lamp\noutputs on\nstart lit\nstate lit with on=1\n';
+    const one = await run(['build', 'lamp.lw'], { 'lamp.lw': lamp });
+    expect(one.out).toContain('(1 start point)');
+    expect(one.out).toContain('lamp: 1 state → 1 after minimisation; 0 inputs, 1 output');
   });
 });
 

@@ -1,9 +1,16 @@
 /** `latchwright build FILE`: synthesise, check, and report (or write the build documents). */
-import { buildReport, type Built, type Diagnostic, equationTexts, withoutCapstanWords } from '../../core/index.js';
+import {
+  buildReport,
+  type Built,
+  counted,
+  type Diagnostic,
+  equationTexts,
+  withoutCapstanWords,
+} from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import { buildFromArgs } from './build-common.js';
 import { EXIT } from '../exit.js';
-import { counted, type RunContext } from './common.js';
+import type { RunContext } from './common.js';
 import { writeDocuments } from './out.js';
 
 export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<number> {

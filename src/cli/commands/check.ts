@@ -1,8 +1,8 @@
 /** `latchwright check FILE`: diagnostics, state counts and the merge map. */
-import { analyse } from '../../core/index.js';
+import { analyse, counted } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
 import { EXIT } from '../exit.js';
-import { counted, loadSource, machineSummary, type RunContext } from './common.js';
+import { loadSource, machineSummary, type RunContext } from './common.js';
 
 export function runCheck(args: ParsedArgs, ctx: RunContext): number {
   const src = loadSource(args, ctx);

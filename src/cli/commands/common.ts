@@ -26,11 +26,6 @@ import type { ParsedArgs } from '../args.js';
 import type { CliIo } from '../io.js';
 
 /** One run of a command: how it reports, and the files it has read (for the places of diagnostics). */
-/** `1 input`, `2 inputs`: a count with its noun, for the terminal's reports. */
-export function counted(k: number, noun: string, plural = `${noun}s`): string {
-  return `${k} ${k === 1 ? noun : plural}`;
-}
-
 export class RunContext {
   /** Texts of the files read, by the path as given. */
   private readonly texts = new Map<string, string>();

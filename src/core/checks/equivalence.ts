@@ -32,6 +32,7 @@
 import type { Build, CheckBase } from '../model/build.js';
 import { DONT_CARE, rowFor, type FlatMachine, type FlatRow } from '../model/flat.js';
 import { seededRandom, type Random } from '../model/random.js';
+import { counted } from '../model/words.js';
 import type { Profile } from '../physics/profile.js';
 import {
   describeInputs,
@@ -120,7 +121,7 @@ export function checkEquivalence(
   const what = spec.original ? 'machine as written, wherever it is specified,' : 'machine';
   return x.result(
     true,
-    `the build behaves as the ${what} over ${x.size} reachable pairs (state, build code) and ${how}`,
+    `the build behaves as the ${what} over ${counted(x.size, 'reachable pair')} (state, build code) and ${how}`,
   );
 }
 

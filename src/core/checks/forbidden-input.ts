@@ -22,6 +22,7 @@
  */
 import type { Build, CheckBase } from '../model/build.js';
 import { seededRandom, type Random } from '../model/random.js';
+import { counted } from '../model/words.js';
 import type { Profile } from '../physics/profile.js';
 import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
 import { clockFrom } from '../sim/clocking.js';
@@ -136,7 +137,7 @@ export function checkForbiddenInput(
     name: 'forbidden-input',
     level: 'part',
     ok: failure === undefined,
-    summary: failure ? failure.words : `no latch sees S̄ = R̄ = 0 over ${scopeWords} (${states} start points)`,
+    summary: failure ? failure.words : `no latch sees S̄ = R̄ = 0 over ${scopeWords} (${counted(states, 'start point')})`,
     states,
     codes: allFit ? 'all' : 'sampled',
     masters: freeMasters ? 'free' : 'equal to slaves',

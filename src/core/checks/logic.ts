@@ -20,6 +20,7 @@ import { coverHolds, intersect, subtract, type Cube } from '../model/cube.js';
 import { DONT_CARE } from '../model/flat.js';
 import type { Build, CheckBase } from '../model/build.js';
 import type { Cord, Netlist, Part } from '../model/netlist.js';
+import { counted } from '../model/words.js';
 
 /** The logic-level forbidden-input proof (the part-level check carries it as `logic`). */
 export interface LogicForbiddenResult extends CheckBase<'forbidden-input'> {
@@ -138,7 +139,7 @@ export function checkNextStateEquivalence(build: Build): NextStateResult {
   return {
     name: 'next-state-equivalence',
     ok: true,
-    summary: `next codes and outputs match the specification in all ${f.states.length} states (${cells} input cubes)`,
+    summary: `next codes and outputs match the specification in ${f.states.length === 1 ? 'its one state' : `all ${f.states.length} states`} (${counted(cells, 'input cube')})`,
     cellsChecked: cells,
   };
 }

@@ -15,6 +15,7 @@
  */
 import type { Build, CheckBase } from '../model/build.js';
 import { seededRandom } from '../model/random.js';
+import { counted } from '../model/words.js';
 import type { Profile } from '../physics/profile.js';
 import { allCodes, describeInputs, inputAssignments, machineInputs, randomCodes } from '../sim/assignments.js';
 import { clockFrom } from '../sim/clocking.js';
@@ -84,7 +85,7 @@ export function checkRecovery(
     codes.length === 0
       ? 'no unused codes'
       : worstK !== null
-        ? `every unused code (${codes.length}) reaches a used code within ${worstK} clock${worstK === 1 ? '' : 's'}${sampledNote}`
+        ? `every unused code (${codes.length}) reaches a used code within ${counted(worstK, 'clock')}${sampledNote}`
         : `${stuck.length} unused code${stuck.length === 1 ? '' : 's'} can stay unused for ever: ${loop?.words ?? ''}`;
   return {
     name: 'recovery',

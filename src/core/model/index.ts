@@ -11,3 +11,4 @@ export * from './machine.js';
 export * from './netlist.js';
 export * from './random.js';
 export * from './records.js';
+export * from './words.js';
