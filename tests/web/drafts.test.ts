@@ -14,7 +14,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { machineFromJson, printTextMachine } from '../../src/core/index.js';
 import { machineHash } from '../../src/web/controllers/link.js';
 import { removeTempDirs, run, tempDir } from '../cli/support.js';
-import { built, downloaded, startDesigner, type Designer } from './page.js';
+import { built, downloaded, pageWork, startDesigner, type Designer, type PageWork } from './page.js';
 
 const CSE = 'tests/fixtures/lgsynth91/cse.json';
 const m = machineFromJson(JSON.parse(readFileSync(CSE, 'utf8')) as unknown, CSE);
@@ -28,30 +28,8 @@ let designer: Designer;
 let context: BrowserContext;
 let page: Page;
 
-interface Host {
-  readonly job: number;
-  readonly built: number;
-  readonly draft: number;
-  readonly codes: string;
-  readonly searches: number;
-  readonly work: string;
-}
-
 /** The page's own account of its latest job and build. */
-function host(): Promise<Host> {
-  return page.evaluate(() => {
-    const app = document.querySelector('lw-app') as HTMLElement;
-    const d = app.dataset;
-    return {
-      job: Number(d.job),
-      built: Number(d.built),
-      draft: Number(d.draft),
-      codes: d.codes ?? '',
-      searches: Number(d.searches),
-      work: app.shadowRoot?.querySelector('.status')?.getAttribute('data-work') ?? '',
-    };
-  });
-}
+const host = (): Promise<PageWork> => pageWork(page);
 
 /** Replace `from` in the text by `to` as one edit (a paste over a selection). */
 async function edit(from: string, to: string): Promise<void> {

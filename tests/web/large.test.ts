@@ -14,7 +14,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { analyse, buildMachine, type Built } from '../../src/core/pipeline.js';
 import { schematicSvg } from '../../src/core/export/schematic-svg.js';
 import { VIEWS } from '../../src/web/elements/app-view.js';
-import { openPage, startDesigner, type Designer } from './page.js';
+import { openPage, pageWork, startDesigner, type Designer, type PageWork } from './page.js';
 
 const FILE = 'tests/fixtures/lgsynth91/planet.json';
 const JSON_TEXT = readFileSync(FILE, 'utf8');
@@ -26,31 +26,8 @@ let context: BrowserContext;
 let page: Page;
 let ref: Built;
 
-interface Host {
-  readonly job: number;
-  readonly built: number;
-  readonly draft: number;
-  readonly checked: number;
-  readonly codes: string;
-  readonly searches: number;
-  readonly work: string;
-}
-
-function host(): Promise<Host> {
-  return page.evaluate(() => {
-    const app = document.querySelector('lw-app') as HTMLElement;
-    const d = app.dataset;
-    return {
-      job: Number(d.job),
-      built: Number(d.built),
-      draft: Number(d.draft),
-      checked: Number(d.checked),
-      codes: d.codes ?? '',
-      searches: Number(d.searches),
-      work: app.shadowRoot?.querySelector('.status')?.getAttribute('data-work') ?? '',
-    };
-  });
-}
+/** The page's own account of its latest job and build. */
+const host = (): Promise<PageWork> => pageWork(page);
 
 const tab = (id: string): Promise<void> => page.locator(`lw-app #tab-${id}`).click();
 

@@ -145,3 +145,30 @@ export function caret(page: Page): Promise<{ line: number; selected: string }> {
     selected: t.value.slice(t.selectionStart, t.selectionEnd),
   }));
 }
+
+/** The page's own account of its latest job, draft, build and checks (data attributes on lw-app), and its status. */
+export interface PageWork {
+  readonly job: number;
+  readonly built: number;
+  readonly draft: number;
+  readonly checked: number;
+  readonly codes: string;
+  readonly searches: number;
+  readonly work: string;
+}
+
+export function pageWork(page: Page): Promise<PageWork> {
+  return page.evaluate(() => {
+    const app = document.querySelector('lw-app') as HTMLElement;
+    const d = app.dataset;
+    return {
+      job: Number(d.job),
+      built: Number(d.built),
+      draft: Number(d.draft),
+      checked: Number(d.checked),
+      codes: d.codes ?? '',
+      searches: Number(d.searches),
+      work: app.shadowRoot?.querySelector('.status')?.getAttribute('data-work') ?? '',
+    };
+  });
+}

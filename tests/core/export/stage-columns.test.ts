@@ -32,6 +32,25 @@ function drawnCrossings(l: ColumnLayout, links: readonly Link[]): number {
   return countCrossings(links.filter((k) => k.from !== k.to).map((k) => l.route(k.from, k.to, y(k.from), y(k.to))));
 }
 
+/** Random boxes (up to 60, in 8 ranks, some in one of 4 bit bands) and up to 120 ties between them, by index. */
+function randomColumns(minBoxes: number) {
+  return fc
+    .array(
+      fc.record({
+        rank: fc.integer({ min: 0, max: 7 }),
+        bit: fc.option(fc.integer({ min: 0, max: 3 }), { nil: undefined }),
+        height: fc.integer({ min: 20, max: 80 }),
+      }),
+      { minLength: minBoxes, maxLength: 60 },
+    )
+    .chain((specs) =>
+      fc.tuple(
+        fc.constant(specs),
+        fc.array(fc.tuple(fc.nat(specs.length - 1), fc.nat(specs.length - 1)), { maxLength: 120 }),
+      ),
+    );
+}
+
 describe('core/export/stage-columns', () => {
   it('puts one column per rank, left to right, and a bit band round its latches and transfer', () => {
     const boxes = [
@@ -82,21 +101,7 @@ describe('core/export/stage-columns', () => {
   });
 
   it('places every box, keeps boxes apart and ranks left to right (property, fixed seed)', () => {
-    const arb = fc
-      .array(
-        fc.record({
-          rank: fc.integer({ min: 0, max: 7 }),
-          bit: fc.option(fc.integer({ min: 0, max: 3 }), { nil: undefined }),
-          height: fc.integer({ min: 20, max: 80 }),
-        }),
-        { minLength: 1, maxLength: 60 },
-      )
-      .chain((specs) =>
-        fc.tuple(
-          fc.constant(specs),
-          fc.array(fc.tuple(fc.nat(specs.length - 1), fc.nat(specs.length - 1)), { maxLength: 120 }),
-        ),
-      );
+    const arb = randomColumns(1);
     fc.assert(
       fc.property(arb, ([specs, pairs]) => {
         const boxes = specs.map((s, i) => box(`p${i}`, s.rank, i, s.bit, s.height));
@@ -153,21 +158,7 @@ describe('core/export/stage-columns', () => {
   });
 
   it('never draws more crossings than the first placement (property, fixed seed)', () => {
-    const arb = fc
-      .array(
-        fc.record({
-          rank: fc.integer({ min: 0, max: 7 }),
-          bit: fc.option(fc.integer({ min: 0, max: 3 }), { nil: undefined }),
-          height: fc.integer({ min: 20, max: 80 }),
-        }),
-        { minLength: 2, maxLength: 60 },
-      )
-      .chain((specs) =>
-        fc.tuple(
-          fc.constant(specs),
-          fc.array(fc.tuple(fc.nat(specs.length - 1), fc.nat(specs.length - 1)), { maxLength: 120 }),
-        ),
-      );
+    const arb = randomColumns(2);
     fc.assert(
       fc.property(arb, ([specs, pairs]) => {
         const boxes = specs.map((sp, i) => box(`p${i}`, sp.rank, i, sp.bit, sp.height));
