@@ -3,9 +3,9 @@
  * crossing reduction (column-order.ts) to keep the best order it has seen.
  *
  * Geometry counted: a cord between two columns is a straight line from the right edge of the
- * left column (plus a short stub) to the left edge of the right column (less a stub), whichever
- * way it points (stage-columns.ts draws it so; a box narrower than its column adds a level stub
- * that is not counted). The x of every column edge ± stub cuts the drawing into strips; inside a
+ * left column (plus a short lead) to the left edge of the right column (less a lead), whichever
+ * way it points (stage-columns.ts draws it so; a box narrower than its column adds a level lead
+ * that is not counted). The x of every column edge ± lead cuts the drawing into strips; inside a
  * strip every cord present is one straight piece, so two cords cross in it exactly when their
  * order at the strip's left edge differs from their order at its right edge. The count per strip
  * is thus the number of inversions between the two orders (merge sort, O(k log k) for k cords),
@@ -39,8 +39,8 @@ export interface CrossingGeometry {
    * arrives `toDy` below its target's (a latch's set or reset half; 0 when not given).
    */
   readonly cords: readonly ColumnCord[];
-  /** The stub length beyond a column edge. */
-  readonly stub: number;
+  /** The lead length beyond a column edge. */
+  readonly lead: number;
 }
 
 /** Pairs i < j with a[i] > a[j] (strictly), by merge sort; sorts `a`, using `buf` (as long) as scratch. */
@@ -95,15 +95,15 @@ function stripCrossings({ start, left, right }: Pieces): number {
 
 /**
  * Every strip's pieces (see the module comment), and the heights where cords pass each column
- * (at the lane beside it). Strip edges: 2c is column c's left edge less the stub, 2c + 1 its
- * right edge plus the stub; strip s lies between edges s and s + 1.
+ * (at the lane beside it). Strip edges: 2c is column c's left edge less the lead, 2c + 1 its
+ * right edge plus the lead; strip s lies between edges s and s + 1.
  */
 function piecesOf(g: CrossingGeometry, y: ArrayLike<number>): { pieces: Pieces; passing: number[][] } {
   const cols = g.left.length;
   const edge = new Float64Array(2 * cols);
   for (let c = 0; c < cols; c++) {
-    edge[2 * c] = g.left[c] - g.stub;
-    edge[2 * c + 1] = g.right[c] + g.stub;
+    edge[2 * c] = g.left[c] - g.lead;
+    edge[2 * c + 1] = g.right[c] + g.lead;
   }
   const strips = Math.max(0, 2 * cols - 1);
   const tied = new Uint8Array(g.column.length);
@@ -113,7 +113,7 @@ function piecesOf(g: CrossingGeometry, y: ArrayLike<number>): { pieces: Pieces; 
     const [a, b] = [g.column[from], g.column[to]].sort((p, q) => p - q);
     for (let s = 2 * a + 1; s < 2 * b; s++) start[s + 1]++;
   }
-  // A box with cords stands across its column's strip (its stubs and itself): a cord passing the column crosses it.
+  // A box with cords stands across its column's strip (its leads and itself): a cord passing the column crosses it.
   tied.forEach((t, i) => {
     if (t) start[2 * g.column[i] + 1]++;
   });

@@ -77,7 +77,7 @@ const BAND_PAD = 10;
 const BAND_TOP = 24;
 const BAND_GAP = 18;
 /** Horizontal run of a cord where it leaves or enters a box, so its arrow points along the flow. */
-const STUB = 16;
+const LEAD = 16;
 
 interface Columns {
   readonly ranks: readonly number[];
@@ -195,7 +195,7 @@ function reorder(
       right: cols.ranks.map((r) => (cols.left.get(r) ?? 0) + (cols.width.get(r) ?? 0)),
       column: boxes.map((b) => columnOf.get(b.rank) ?? 0),
       cords,
-      stub: STUB,
+      lead: LEAD,
       height: boxes.map((b) => b.height),
       pinned: boxes.map((b) => b.bit !== undefined),
       top: cols.ranks.map((r) => (bandRanks.has(r) ? bandTop : 0)),
@@ -251,10 +251,10 @@ export function stageColumns(
     const c = centre.get(id);
     return (c?.x ?? 0) + ((right ? 1 : -1) * (b?.width ?? 0)) / 2;
   };
-  // A column's edge on either side: cords turn there (plus a stub), so the lines between two columns start level.
+  // A column's edge on either side: cords turn there (plus a lead), so the lines between two columns start level.
   const edgeX = (id: string, right: boolean): number => {
     const r = box.get(id)?.rank ?? 0;
-    return (cols.left.get(r) ?? 0) + (right ? (cols.width.get(r) ?? 0) + STUB : -STUB);
+    return (cols.left.get(r) ?? 0) + (right ? (cols.width.get(r) ?? 0) + LEAD : -LEAD);
   };
   return {
     centre,

@@ -4,20 +4,20 @@ import { countColumnCrossings, type CrossingGeometry } from '../../../src/core/e
 import type { Point } from '../../../src/core/export/svg.js';
 import { countCrossings } from './stage-crossings.js';
 
-const STUB = 16;
+const LEAD = 16;
 
 /** Columns 100 wide with 120 between them. */
 function geometry(column: number[], cords: CrossingGeometry['cords']): CrossingGeometry {
   const cols = Math.max(...column) + 1;
   const left = Array.from({ length: cols }, (_, c) => c * 220);
-  return { left, right: left.map((x) => x + 100), column, cords, stub: STUB };
+  return { left, right: left.map((x) => x + 100), column, cords, lead: LEAD };
 }
 
 /**
  * The lines the counter means (its module comment), for the brute-force counter: each cord
- * between columns straight from the left column's edge plus the stub to the right column's edge
- * less the stub; a cord within a column up or down the lane beside it; each box with cords level
- * across its column and its stubs.
+ * between columns straight from the left column's edge plus the lead to the right column's edge
+ * less the lead; a cord within a column up or down the lane beside it; each box with cords level
+ * across its column and its leads.
  */
 function modelLines(g: CrossingGeometry, y: readonly number[]): Point[][] {
   const lines: Point[][] = [];
@@ -27,21 +27,21 @@ function modelLines(g: CrossingGeometry, y: readonly number[]): Point[][] {
     tied.add(to);
     const [a, b] = g.column[from] <= g.column[to] ? [from, to] : [to, from];
     if (g.column[a] === g.column[b]) {
-      const lane = g.right[g.column[a]] + g.stub;
+      const lane = g.right[g.column[a]] + g.lead;
       lines.push([
         { x: lane, y: y[a] },
         { x: lane, y: y[b] },
       ]);
     } else
       lines.push([
-        { x: g.right[g.column[a]] + g.stub, y: y[a] },
-        { x: g.left[g.column[b]] - g.stub, y: y[b] },
+        { x: g.right[g.column[a]] + g.lead, y: y[a] },
+        { x: g.left[g.column[b]] - g.lead, y: y[b] },
       ]);
   }
   for (const i of tied)
     lines.push([
-      { x: g.left[g.column[i]] - g.stub, y: y[i] },
-      { x: g.right[g.column[i]] + g.stub, y: y[i] },
+      { x: g.left[g.column[i]] - g.lead, y: y[i] },
+      { x: g.right[g.column[i]] + g.lead, y: y[i] },
     ]);
   return lines;
 }

@@ -16,7 +16,7 @@ function problem(
     right: left.map((x) => x + 100),
     column,
     cords: cords.map(([from, to]) => ({ from, to })),
-    stub: 16,
+    lead: 16,
     height: column.map(() => 20),
     pinned,
     top: left.map(() => 0),

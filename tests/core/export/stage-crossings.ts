@@ -6,7 +6,7 @@
  * test of computational geometry, e.g. T. H. Cormen, C. E. Leiserson, R. L. Rivest & C. Stein,
  * *Introduction to Algorithms*, 3rd ed., §33.1 — from memory); segments that only touch (cords
  * leaving one driver, arriving at one port) or run along each other are not crossings, and a
- * segment drawn twice (the stub that two branches of one cord share) is counted once.
+ * segment drawn twice (the lead that two branches of one cord share) is counted once.
  */
 import type { Point } from '../../../src/core/export/svg.js';
 
@@ -43,7 +43,7 @@ export function countCrossings(lines: readonly (readonly Point[])[]): number {
       const a = pts[i - 1];
       const b = pts[i];
       if (a.x === b.x && a.y === b.y) continue;
-      // A segment drawn twice (the stub two branches of one cord share) is one line on paper.
+      // A segment drawn twice (the lead two branches of one cord share) is one line on paper.
       const key = [a.x, a.y, b.x, b.y].map((v) => v.toFixed(1)).join(' ');
       if (seen.has(key)) continue;
       seen.add(key);
