@@ -44,6 +44,31 @@ export type OutputReader =
   | { readonly kind: 'actuator'; readonly drivers: Int32Array }
   | { readonly kind: 'fixed'; readonly value: 0 | 1 };
 
+/**
+ * The machine's outputs, each read as its reader says from `value` (a driver's output, X when
+ * undetermined): a flag shows 1 while its gate's Z is up (0), the other way round when
+ * inverted; an actuator is pulled (1) while any of its drivers is 0. The one reading of
+ * outputs, for a scalar state (part.ts) and for a lane of a batch (lanes.ts, sweep.ts).
+ */
+export function readOutputs(sim: PartSim, value: (driver: number) => Trit): Trit[] {
+  return sim.outputs.map((r): Trit => {
+    if (r.kind === 'fixed') return r.value;
+    if (r.kind === 'flag') {
+      const out = value(r.gate);
+      if (out === X) return X;
+      const z = out === 1 ? 0 : 1;
+      return (r.inverted ? 1 - z : z) as Trit;
+    }
+    let unknown = false;
+    for (const d of r.drivers) {
+      const v = value(d);
+      if (v === 0) return 1;
+      if (v === X) unknown = true;
+    }
+    return unknown ? X : 0;
+  });
+}
+
 /** The netlist as index arrays (see the module comment). */
 export interface PartSim {
   readonly build: Build;

@@ -15,7 +15,7 @@
  * no alarm. Glitches on gates that reach no latch change nothing here (no time is kept).
  * All lanes move the same lever the same way; they differ in latch contents and input levers.
  */
-import { X, type PartSim, type Trit } from './compile.js';
+import { readOutputs, X, type PartSim, type Trit } from './compile.js';
 import { heldProgram, moveProgram, type SettleProgram } from './program.js';
 
 /** Start points per batch. */
@@ -181,15 +181,7 @@ export class LaneBatch {
 
   /** The outputs of a lane, as part.ts's outputValues reads them. */
   outputs(lane: number): Trit[] {
-    return this.sim.outputs.map((r): Trit => {
-      if (r.kind === 'fixed') return r.value;
-      if (r.kind === 'flag') {
-        const z = 1 - this.value(r.gate, lane);
-        return (r.inverted ? 1 - z : z) as Trit;
-      }
-      for (const d of r.drivers) if (this.value(d, lane) === 0) return 1;
-      return 0;
-    });
+    return readOutputs(this.sim, (d) => this.value(d, lane));
   }
 
   /** AND of some drivers' words (a latch port). */

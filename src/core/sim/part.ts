@@ -12,7 +12,7 @@
 import type { Build } from '../model/build.js';
 import { nameRecord } from '../model/records.js';
 import { DEFAULT_PROFILE, type Profile } from '../physics/profile.js';
-import { compilePart, X, type PartSim, type PartTiming, type Trit } from './compile.js';
+import { compilePart, readOutputs, X, type PartSim, type PartTiming, type Trit } from './compile.js';
 import {
   describeAction,
   ruleBroken,
@@ -280,21 +280,7 @@ export function masterCode(sim: PartSim, values: Uint8Array): string {
 
 /** Output values in the machine's output order: flags read Z = NOT(gate output); actuators show 1 while their cord pulls; pinned parts their constant. */
 export function outputValues(sim: PartSim, values: Uint8Array): Trit[] {
-  return sim.outputs.map((r): Trit => {
-    if (r.kind === 'fixed') return r.value;
-    if (r.kind === 'flag') {
-      const out = values[r.gate];
-      if (out === X) return X;
-      const z = out === 1 ? 0 : 1;
-      return (r.inverted ? 1 - z : z) as Trit;
-    }
-    let unknown = false;
-    for (const d of r.drivers) {
-      if (values[d] === 0) return 1;
-      if (values[d] === X) unknown = true;
-    }
-    return unknown ? X : 0;
-  });
+  return readOutputs(sim, (d) => values[d] as Trit);
 }
 
 /** Everything a person can see on the machine, in words and values. */

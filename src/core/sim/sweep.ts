@@ -12,7 +12,7 @@
  * inputs are held, the latches after the clock — per netlist, and a later sweep of a batch of
  * the same name reads them instead of running it again (`ClockedLanes`, `HeldLanes`).
  */
-import type { PartSim, Trit } from './compile.js';
+import { readOutputs, type PartSim, type Trit } from './compile.js';
 import { latchesAtCode } from './part.js';
 import { LANES, LaneBatch } from './lanes.js';
 
@@ -198,15 +198,7 @@ class RecordedLanes implements HeldLanes, ClockedLanes {
   }
 
   outputs(lane: number): Trit[] {
-    return this.sim.outputs.map((r): Trit => {
-      if (r.kind === 'fixed') return r.value;
-      if (r.kind === 'flag') {
-        const z = 1 - this.heldBit(r.gate, lane);
-        return (r.inverted ? 1 - z : z) as Trit;
-      }
-      for (const d of r.drivers) if (this.heldBit(d, lane) === 0) return 1;
-      return 0;
-    });
+    return readOutputs(this.sim, (d) => this.heldBit(d, lane) as Trit);
   }
 
   latchesOf(lane: number): Uint8Array {
