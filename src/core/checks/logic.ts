@@ -19,7 +19,7 @@
 import { coverHolds, intersect, subtract, type Cube } from '../model/cube.js';
 import { DONT_CARE } from '../model/flat.js';
 import type { Build, CheckBase } from '../model/build.js';
-import type { Cord, Netlist, Part } from '../model/netlist.js';
+import { partIndex, type Cord, type Netlist, type Part } from '../model/netlist.js';
 import { counted } from '../model/words.js';
 
 /** The logic-level forbidden-input proof (the part-level check carries it as `logic`). */
@@ -204,13 +204,13 @@ function slaveWiring(build: Build, n: NetIndex, j: number): string | null {
 
 /** A netlist's parts by id and its cords by the parts they pull, looked up instead of scanned. */
 class NetIndex {
-  private readonly parts = new Map<string, Part>();
+  private readonly parts: ReadonlyMap<string, Part>;
   /** Per part, the cords with a port on it, in netlist order (each once). */
   private readonly cords = new Map<string, Cord[]>();
 
   constructor(n: Netlist) {
-    // The first part of an id, as a search from the front finds it.
-    for (const p of n.parts) if (!this.parts.has(p.id)) this.parts.set(p.id, p);
+    // Ids are unique (the netlist invariants), so the index finds what a search from the front would.
+    this.parts = partIndex(n);
     for (const c of n.cords)
       for (const part of new Set(c.ports.map((p) => p.part))) {
         const list = this.cords.get(part);
