@@ -9,8 +9,12 @@
  * Events: `reveal` {line, column}.
  */
 import { LitElement, html, nothing, type PropertyValues } from 'lit';
-import { curveBasis, line, select, zoom, zoomIdentity, type Selection, type ZoomBehavior } from 'd3';
+import { curveBasis, line, pointer, select, zoom, zoomIdentity, type Selection, type ZoomBehavior } from 'd3';
+import type { Machine } from '../../core/index.js';
 import type { DiagramLayout, LaidEdge, LaidNode } from '../diagram/layout.js';
+import { SketchDraw, type FieldKind, type Spot } from '../controllers/sketch-draw.js';
+import type { TextEdit } from '../controllers/table-edit.js';
+import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
 import { LINE_H } from '../diagram/layout.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
@@ -24,6 +28,15 @@ export const MIN_LABEL_PX = 10;
 const TEXT_PX = 12;
 
 /** Enter or Space on a focused sketch item: find it in the text, and let the key do nothing else. */
+/** Which line of a transition label an event is on (0 when not on a line). */
+function lineIndex(ev: Event): number {
+  const t = (ev.target as Element | null)?.closest?.('text[data-line]');
+  return t ? Number(t.getAttribute('data-line')) || 0 : 0;
+}
+
+/** A key with no Ctrl, Alt or ⌘ (Shift allowed). */
+const plain = (ev: KeyboardEvent): boolean => !ev.ctrlKey && !ev.altKey && !ev.metaKey;
+
 function onActivate(ev: KeyboardEvent, line: number | undefined, reveal: (line: number | undefined) => void): void {
   if (ev.key !== 'Enter' && ev.key !== ' ') return;
   ev.preventDefault();
@@ -36,12 +49,27 @@ export class LwDiagram extends LitElement {
     layout: { attribute: false },
     codes: { attribute: false },
     lit: { attribute: false },
+    machine: { attribute: false },
+    text: { attribute: false },
+    frozen: { type: Boolean },
   };
   declare layout: DiagramLayout | undefined;
   /** Code of each state, by state name (from the build). */
   declare codes: Readonly<Record<string, string>>;
   /** States to light (the machine is in one of them). */
   declare lit: ReadonlySet<string>;
+  /** The machine drawn, with the places its parts were written (drawing needs them). */
+  declare machine: Machine | undefined;
+  /** The text the machine was read from. */
+  declare text: string;
+  /** The machine shown is not (yet) the text's current version: drawing waits. */
+  declare frozen: boolean;
+
+  private readonly draw = new SketchDraw(this);
+  /** A state to give the focus to once it is drawn (after a rename or a new state). */
+  private focusDue: string | undefined;
+  /** Where the field shown was opened (a new spot is a new field, which takes the focus). */
+  private fieldAt: Spot | undefined;
 
   private zoomer: ZoomBehavior<SVGSVGElement, unknown> | undefined;
   private shape = '';
@@ -53,6 +81,24 @@ export class LwDiagram extends LitElement {
     this.layout = undefined;
     this.codes = {};
     this.lit = new Set();
+    this.machine = undefined;
+    this.text = '';
+    this.frozen = false;
+  }
+
+  override connectedCallback(): void {
+    super.connectedCallback();
+    this.addEventListener('keydown', this.onKey);
+  }
+
+  override disconnectedCallback(): void {
+    this.removeEventListener('keydown', this.onKey);
+    super.disconnectedCallback();
+  }
+
+  /** The machine can be drawn on: it is in the text form (its parts have lines). */
+  get drawable(): boolean {
+    return this.machine?.loc?.line !== undefined && this.layout !== undefined;
   }
 
   static override styles = [shared, diagramStyles];
@@ -60,17 +106,35 @@ export class LwDiagram extends LitElement {
   override render() {
     const n = this.layout?.nodes.length ?? 0;
     const touch = touchScreen();
-    const hint = touch
-      ? 'drag to move · pinch to zoom · tap a state to find it in the text'
-      : 'drag to pan · wheel to zoom · click a state to find it in the text';
+    const hint = this.hint(touch);
+    const m = this.machine;
+    const d = this.draw;
     return html`<div class="tools" role="toolbar" aria-label="Sketch view">
         <button @click=${() => this.fit()} aria-label="Fit the sketch in view, as far as its text stays readable">
           Fit
         </button>
         <button @click=${() => this.scaleBy(1.25)} aria-label="Zoom in">+</button>
         <button @click=${() => this.scaleBy(0.8)} aria-label="Zoom out">−</button>
+        ${
+          this.drawable
+            ? drawButtons(this.frozen, {
+                add: () => this.openNewState(),
+                undo: (again) => emit(this, 'undo', { again }),
+              })
+            : nothing
+        }
         <span class="soft legend" data-hint=${touch ? 'touch' : 'pointer'}>${hint}</span>
       </div>
+      ${
+        this.drawable && m && d.picked
+          ? actsTemplate(d.picked, m, this.frozen, {
+              link: () => this.startLink(d.picked?.kind === 'state' ? d.picked.id : undefined),
+              open: (kind) => this.openOnPicked(kind),
+              act: (what) => this.act(what),
+            })
+          : nothing
+      }
+      ${d.said ? html`<p class="soft said" role="status">${d.said}</p>` : nothing}
       ${
         this.partial || this.layout?.method === 'by-distance'
           ? html`<p class="soft note" role="note">
@@ -95,8 +159,31 @@ export class LwDiagram extends LitElement {
         <g class="view">
           <g class="edges"></g>
           <g class="nodes"></g>
+          <path class="rubber" marker-end="url(#tip)"></path>
         </g>
-      </svg>`;
+      </svg>
+      ${
+        d.field && m
+          ? fieldTemplate(d.field, m, {
+              type: (v) => d.type(v),
+              submit: () => this.submitField(),
+              cancel: () => this.cancelField(),
+            })
+          : nothing
+      }`;
+  }
+
+  /** The toolbar's hint: how to look around and, on a drawable machine, how to draw. */
+  private hint(touch: boolean): string {
+    const look = touch
+      ? 'drag to move · pinch to zoom · tap a state to find it in the text'
+      : 'drag to pan · wheel to zoom · click a state to find it in the text';
+    if (this.layout !== undefined && this.machine !== undefined && !this.drawable)
+      return `${look} · drawing works on a machine in the text form`;
+    if (!this.drawable) return look;
+    return touch
+      ? `${look} · New state adds one · drag a tapped state's dot onto a state to draw a transition · tap a label, then Change guard`
+      : `${look} · double-click the canvas for a new state · drag a state's dot onto a state to draw a transition · double-click a name or a guard to change it`;
   }
 
   protected override firstUpdated(): void {
@@ -106,10 +193,25 @@ export class LwDiagram extends LitElement {
       .on('zoom', (e: { transform: { toString(): string } }) =>
         select(this.renderRoot.querySelector('g.view') as SVGGElement).attr('transform', e.transform.toString()),
       );
+    // A drag that starts on a state's dot draws a transition; every other drag pans.
+    this.zoomer.filter(
+      (e: MouseEvent) =>
+        (!e.ctrlKey || e.type === 'wheel') && !e.button && !(e.target as Element | null)?.closest?.('.handle'),
+    );
     svg.call(this.zoomer).on('dblclick.zoom', null);
+    svg.on('dblclick.draw', (ev: MouseEvent) => {
+      if ((ev.target as Element).closest('g.node, g.label') || !this.drawable || this.frozen) return;
+      this.openField('new-state', this.spotOf(ev.clientX, ev.clientY));
+    });
+    svg.on('pointermove.draw', (ev: PointerEvent) => this.onDrag(ev));
+    svg.on('pointerup.draw pointercancel.draw', (ev: PointerEvent) => this.onDrop(ev));
   }
 
   protected override updated(changed: PropertyValues<this>): void {
+    this.drawMarks();
+    const opened = this.draw.field?.at;
+    if (opened !== undefined && opened !== this.fieldAt) this.focusField();
+    this.fieldAt = opened;
     if (!changed.has('layout') && !changed.has('codes') && !changed.has('lit')) return;
     const l = this.layout;
     const view = select(this.renderRoot.querySelector('g.view') as SVGGElement);
@@ -121,6 +223,14 @@ export class LwDiagram extends LitElement {
       this.fit();
     }
     this.dataset.drawn = String((Number(this.dataset.drawn) || 0) + 1);
+    const due = this.focusDue;
+    if (due !== undefined && changed.has('layout')) {
+      const el = this.nodeElement(due);
+      if (el) {
+        this.focusDue = undefined;
+        el.focus({ preventScroll: true });
+      }
+    }
   }
 
   private svg(): Selection<SVGSVGElement, unknown, null, undefined> {
@@ -186,8 +296,16 @@ export class LwDiagram extends LitElement {
     label
       .attr('transform', (e) => `translate(${e.label.x - e.label.width / 2},${e.label.y - e.label.height / 2})`)
       .attr('aria-label', (e) => `Transition from ${e.from} to ${e.to}: ${e.lines.join('; ')}`)
-      .on('click', (_, e) => this.revealLine(e.sourceLines[0]))
-      .on('keydown', (ev: KeyboardEvent, e) => onActivate(ev, e.sourceLines[0], (l) => this.revealLine(l)));
+      .on('click', (ev: MouseEvent, e) => {
+        const i = lineIndex(ev);
+        this.revealLine(e.sourceLines[i]);
+        this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
+      })
+      .on('dblclick', (ev: MouseEvent, e) => {
+        ev.stopPropagation();
+        this.openGuard(e, lineIndex(ev));
+      })
+      .on('keydown', (ev: KeyboardEvent, e) => this.onLabelKey(ev, e));
     label
       .select('rect')
       .attr('width', (e) => e.label.width)
@@ -197,6 +315,7 @@ export class LwDiagram extends LitElement {
       .selectAll<SVGTextElement, string>('text')
       .data((e) => e.lines)
       .join('text')
+      .attr('data-line', (_, i) => i)
       .attr('x', 4)
       .attr('y', (_, i) => 12 + i * LINE_H)
       .text((t) => t);
@@ -212,6 +331,7 @@ export class LwDiagram extends LitElement {
         e.append('path').attr('class', 'entry');
         e.append('text').attr('class', 'code');
         e.append('text').attr('class', 'merged');
+        e.append('circle').attr('class', 'handle').attr('r', 6);
         return e;
       });
     sel
@@ -225,8 +345,21 @@ export class LwDiagram extends LitElement {
         (n) =>
           `State ${n.lines.join(', ')}${this.codes[n.id] ? `, code ${this.codes[n.id]}` : ''}${n.start ? ', start' : ''}${this.lit.has(n.id) ? ', the machine is here' : ''}${n.line ? `, line ${n.line}` : ''}`,
       )
-      .on('click', (_, n) => this.revealLine(n.line))
-      .on('keydown', (ev: KeyboardEvent, n) => onActivate(ev, n.line, (l) => this.revealLine(l)));
+      .on('click', (_, n) => {
+        this.revealLine(n.line);
+        this.draw.pick({ kind: 'state', id: n.id });
+      })
+      .on('dblclick', (ev: MouseEvent, n) => {
+        ev.stopPropagation();
+        if (this.drawable && !this.frozen) this.openField('rename', this.spotUnder(n.id), { state: n.id });
+      })
+      .on('keydown', (ev: KeyboardEvent, n) => this.onNodeKey(ev, n));
+    sel
+      .select('circle.handle')
+      .attr('cx', (n) => n.width)
+      .attr('cy', (n) => n.height / 2)
+      .attr('display', this.drawable ? null : 'none')
+      .on('pointerdown', (ev: PointerEvent, n) => this.onGrab(ev, n));
     sel
       .select('rect.body')
       .attr('width', (n) => n.width)
@@ -255,6 +388,258 @@ export class LwDiagram extends LitElement {
       .attr('y', (n) => n.height + 13)
       .text((n) => (n.mergedInto ? `same as ${n.mergedInto}` : n.unreachable ? 'unreachable' : ''));
   }
+
+  // ── Drawing ────────────────────────────────────────────────────────────────────────────────
+
+  /** The picked item, the transition being drawn and its target, drawn over the sketch. */
+  private drawMarks(): void {
+    const view = select(this.renderRoot.querySelector('g.view') as SVGGElement);
+    const d = this.draw;
+    const picked = d.picked;
+    view
+      .selectAll<SVGGElement, LaidNode>('g.node')
+      .classed('picked', (n) => picked?.kind === 'state' && picked.id === n.id)
+      .classed('target', (n) => d.linking?.to === n.id);
+    view
+      .selectAll<SVGGElement, LaidEdge>('g.label')
+      .selectAll<SVGTextElement, string>('text')
+      .classed('picked', function (_, i) {
+        const e = select<Element, LaidEdge>(this.parentNode as Element).datum();
+        return (
+          picked?.kind === 'edge' &&
+          picked.from === e.from &&
+          picked.to === e.to &&
+          picked.index === i &&
+          e.lines.length > 1
+        );
+      });
+    const rubber = view.select('path.rubber');
+    const l = d.linking;
+    const from = l && this.layout?.nodes.find((n) => n.id === l.from);
+    if (!l || !from) {
+      rubber.attr('d', null);
+      return;
+    }
+    const to = this.layout?.nodes.find((n) => n.id === l.to);
+    const end = l.pointer ?? (to ? { x: to.x, y: to.y - to.height / 2 - (to === from ? 18 : 0) } : undefined);
+    const x0 = from.x + from.width / 2;
+    rubber.attr('d', end ? `M${x0},${from.y} L${end.x},${end.y}` : null);
+  }
+
+  private nodeElement(id: string): SVGGElement | undefined {
+    return [...this.renderRoot.querySelectorAll<SVGGElement>('g.node')].find((g) => g.dataset.state === id);
+  }
+
+  /** A point of the screen as a spot on this element (where a field opens). */
+  private spotOf(clientX: number, clientY: number): Spot {
+    const r = this.getBoundingClientRect();
+    return { x: clientX - r.left, y: clientY - r.top };
+  }
+
+  /** The spot just under a state (or the middle of the canvas). */
+  private spotUnder(id: string): Spot {
+    const b =
+      this.nodeElement(id)?.getBoundingClientRect() ?? this.renderRoot.querySelector('svg')?.getBoundingClientRect();
+    return b ? this.spotOf(b.left, b.bottom + 4) : { x: 8, y: 40 };
+  }
+
+  private openField(kind: FieldKind, at: Spot, more: { state?: string; to?: string; index?: number } = {}): void {
+    const m = this.machine;
+    if (!m || !this.drawable) return;
+    if (this.frozen) return this.draw.say('The text is being read: draw again in a moment.');
+    this.draw.open(kind, at, m, more);
+  }
+
+  private openNewState(): void {
+    const b = this.renderRoot.querySelector('svg')?.getBoundingClientRect();
+    this.openField('new-state', b ? this.spotOf(b.left + b.width / 3, b.top + b.height / 3) : { x: 8, y: 40 });
+  }
+
+  private openGuard(e: LaidEdge, index: number): void {
+    const g = [...this.renderRoot.querySelectorAll<SVGGElement>('g.label')].find(
+      (x) => select<SVGGElement, LaidEdge>(x).datum() === e,
+    );
+    const b = g?.getBoundingClientRect();
+    this.openField('guard', b ? this.spotOf(b.left, b.bottom + 4) : { x: 8, y: 40 }, {
+      state: e.from,
+      to: e.to,
+      index,
+    });
+  }
+
+  private openOnPicked(kind: 'rename' | 'outputs' | 'guard'): void {
+    const p = this.draw.picked;
+    if (p?.kind === 'state' && kind !== 'guard') this.openField(kind, this.spotUnder(p.id), { state: p.id });
+    const e = p?.kind === 'edge' ? this.layout?.edges.find((x) => x.from === p.from && x.to === p.to) : undefined;
+    if (p?.kind === 'edge' && e) this.openGuard(e, p.index);
+  }
+
+  private focusField(): void {
+    const input = this.renderRoot.querySelector<HTMLInputElement>('form.field input');
+    if (input) {
+      input.focus();
+      input.select();
+    }
+  }
+
+  private submitField(): void {
+    const m = this.machine;
+    const f = this.draw.field;
+    if (!m || !f) return;
+    const edit = this.draw.submit(m, this.text);
+    if (!edit) return;
+    const back = f.kind === 'new-state' || f.kind === 'rename' ? undefined : f.state;
+    if (f.kind === 'new-state' || f.kind === 'rename') this.focusDue = f.value.trim();
+    this.send(edit, back);
+  }
+
+  private cancelField(): void {
+    const f = this.draw.field;
+    this.draw.cancel();
+    if (f?.state !== undefined) this.nodeElement(f.state)?.focus({ preventScroll: true });
+  }
+
+  /** Send an edit, the focus first on the state it came from, so the bench gives it back there. */
+  private send(edit: TextEdit, focus: string | undefined): void {
+    const el = focus !== undefined ? this.nodeElement(focus) : undefined;
+    if (el) el.focus({ preventScroll: true });
+    else this.renderRoot.querySelector<HTMLElement>('button[data-do="new-state"]')?.focus({ preventScroll: true });
+    emit(this, 'text-edit', { edit });
+  }
+
+  private act(what: 'start' | 'delete'): void {
+    const m = this.machine;
+    const p = this.draw.picked;
+    if (!m || !p || !this.drawable) return;
+    if (this.frozen) return this.draw.say('The text is being read: try again in a moment.');
+    const edit = this.draw.act(what, m, this.text, p);
+    if (edit) this.send(edit, p.kind === 'state' ? (what === 'start' ? p.id : undefined) : p.from);
+  }
+
+  private startLink(from: string | undefined): void {
+    if (from === undefined || !this.drawable || this.frozen) return;
+    const ids = this.layout?.nodes.map((n) => n.id) ?? [];
+    const next = ids[(ids.indexOf(from) + 1) % ids.length];
+    this.draw.link({ from, to: next });
+    this.draw.say(
+      `Drawing a transition from ${from}: arrow keys or Tab choose the state it goes to, Enter takes it, Escape stops.`,
+    );
+    this.nodeElement(from)?.focus({ preventScroll: true });
+  }
+
+  private onGrab(ev: PointerEvent, n: LaidNode): void {
+    if (!this.drawable || this.frozen) return;
+    ev.preventDefault();
+    ev.stopPropagation();
+    this.renderRoot.querySelector('svg')?.setPointerCapture(ev.pointerId);
+    this.draw.link({ from: n.id });
+  }
+
+  private onDrag(ev: PointerEvent): void {
+    const l = this.draw.linking;
+    if (!l || (l.to !== undefined && l.pointer === undefined)) return;
+    const [x, y] = pointer(ev, this.renderRoot.querySelector('g.view'));
+    const over = (this.renderRoot as ShadowRoot)
+      .elementFromPoint(ev.clientX, ev.clientY)
+      ?.closest<SVGGElement>('g.node');
+    this.draw.link({
+      from: l.from,
+      pointer: { x, y },
+      ...(over?.dataset.state !== undefined ? { to: over.dataset.state } : {}),
+    });
+  }
+
+  private onDrop(ev: PointerEvent): void {
+    const l = this.draw.linking;
+    if (!l || (l.pointer === undefined && l.to !== undefined)) return;
+    this.renderRoot.querySelector('svg')?.releasePointerCapture(ev.pointerId);
+    const over = (this.renderRoot as ShadowRoot)
+      .elementFromPoint(ev.clientX, ev.clientY)
+      ?.closest<SVGGElement>('g.node');
+    const to = over?.dataset.state;
+    if (to === undefined || ev.type === 'pointercancel') return this.draw.link(undefined);
+    this.openField('new-transition', this.spotUnder(to), { state: l.from, to });
+  }
+
+  /** Keys on a state: Enter finds it in the text; while a transition is drawn, the keys choose its target. */
+  private onNodeKey(ev: KeyboardEvent, n: LaidNode): void {
+    const l = this.draw.linking;
+    if (l && l.from === n.id && l.pointer === undefined) return this.chooseTarget(ev, l.to ?? n.id);
+    onActivate(ev, n.line, (line) => this.revealLine(line));
+    if (ev.defaultPrevented || !plain(ev) || !this.drawable) return;
+    const keys: Record<string, () => void> = {
+      t: () => this.startLink(n.id),
+      F2: () => this.openField('rename', this.spotUnder(n.id), { state: n.id }),
+      o: () => this.openField('outputs', this.spotUnder(n.id), { state: n.id }),
+      s: () => {
+        this.draw.pick({ kind: 'state', id: n.id });
+        this.act('start');
+      },
+      Delete: () => {
+        this.draw.pick({ kind: 'state', id: n.id });
+        this.act('delete');
+      },
+    };
+    const run = keys[ev.key === 'Backspace' ? 'Delete' : ev.key.length === 1 ? ev.key.toLowerCase() : ev.key];
+    if (!run || (ev.key === 'o' && (this.machine?.outputs.length ?? 0) === 0)) return;
+    ev.preventDefault();
+    ev.stopPropagation();
+    run();
+  }
+
+  private chooseTarget(ev: KeyboardEvent, to: string): void {
+    const ids = this.layout?.nodes.map((x) => x.id) ?? [];
+    const l = this.draw.linking;
+    if (!l) return;
+    const step =
+      ['ArrowRight', 'ArrowDown'].includes(ev.key) || (ev.key === 'Tab' && !ev.shiftKey)
+        ? 1
+        : ['ArrowLeft', 'ArrowUp', 'Tab'].includes(ev.key)
+          ? -1
+          : 0;
+    if (step !== 0) this.draw.link({ from: l.from, to: ids[(ids.indexOf(to) + step + ids.length) % ids.length] });
+    else if (ev.key === 'Enter' || ev.key === ' ')
+      this.openField('new-transition', this.spotUnder(to), { state: l.from, to });
+    else if (ev.key === 'Escape') {
+      this.draw.link(undefined);
+      this.draw.say(undefined);
+    } else return;
+    ev.preventDefault();
+    ev.stopPropagation();
+  }
+
+  /** Keys on a transition label: Enter finds it; with several transitions, ↑ and ↓ pick one; F2 or G its guard; Delete. */
+  private onLabelKey(ev: KeyboardEvent, e: LaidEdge): void {
+    const p = this.draw.picked;
+    const index = p?.kind === 'edge' && p.from === e.from && p.to === e.to ? p.index : 0;
+    onActivate(ev, e.sourceLines[index], (line) => this.revealLine(line));
+    if (ev.defaultPrevented || !plain(ev) || !this.drawable) return;
+    const pickAt = (i: number): void => this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
+    if ((ev.key === 'ArrowDown' || ev.key === 'ArrowUp') && e.lines.length > 1) {
+      const i = (index + (ev.key === 'ArrowDown' ? 1 : e.lines.length - 1)) % e.lines.length;
+      pickAt(i);
+      this.draw.say(`Transition ${i + 1} of ${e.lines.length} from ${e.from} to ${e.to}: ${e.lines[i]}`);
+    } else if (ev.key === 'F2' || ev.key.toLowerCase() === 'g') this.openGuard(e, index);
+    else if (ev.key === 'Delete' || ev.key === 'Backspace') {
+      pickAt(index);
+      this.act('delete');
+    } else return;
+    ev.preventDefault();
+    ev.stopPropagation();
+  }
+
+  /** Keys anywhere in the sketch: N a new state; Ctrl+Z undo, Ctrl+Shift+Z or Ctrl+Y redo; Escape stops drawing. */
+  private readonly onKey = (ev: KeyboardEvent): void => {
+    const target = ev.composedPath()[0];
+    if (target instanceof HTMLElement && target.closest('input, textarea, select')) return;
+    const mod = (ev.ctrlKey || ev.metaKey) && !ev.altKey;
+    const k = ev.key.toLowerCase();
+    if (mod && (k === 'z' || k === 'y')) emit(this, 'undo', { again: k === 'y' || ev.shiftKey });
+    else if (plain(ev) && k === 'n' && this.drawable) this.openNewState();
+    else if (ev.key === 'Escape' && (this.draw.linking || this.draw.field)) this.draw.cancel();
+    else return;
+    ev.preventDefault();
+  };
 
   /** Put the caret at the start of a line of the text (nothing selected, so the next key typed only adds). */
   private revealLine(line: number | undefined): void {
