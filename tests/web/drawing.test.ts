@@ -196,5 +196,19 @@ describe('src/web/elements/diagram (drawing a machine, end to end in chromium)',
     await page.locator('lw-parts details').evaluate((d: HTMLDetailsElement) => (d.open = true));
     const f = await downloaded(page, () => page.locator('lw-parts button[data-doc="netlist.json"]').click());
     expect(readFileSync(f.path, 'utf8')).toBe(readFileSync(join(dir, 'netlist.json'), 'utf8'));
+
+    // An edit in the ledger is typed into the text the same way: the text's own Ctrl+Z takes it back.
+    await page.getByRole('tab', { name: 'Ledger' }).click();
+    const guard = page.locator('lw-state-table input[aria-label="Guard of transition 1 to idle"]').nth(1);
+    await guard.fill('button');
+    await guard.press('Tab');
+    const guarded = final.replace(
+      'state ringing with lamp=1\n  go idle\n',
+      'state ringing with lamp=1\n  when button go idle\n',
+    );
+    await expect.poll(text).toBe(guarded);
+    await page.locator('lw-editor textarea').focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(text).toBe(final);
   });
 });
