@@ -6,37 +6,37 @@
  * clicking a transition label does the same for the transition. Fit never shrinks the text
  * below MIN_LABEL_PX: a sketch too big for the view at that size is shown from its start
  * state, and the rest is a drag (or a swipe) away.
- * Events: `reveal` {line, column}.
+ *
+ * The sketch is also drawn on (a machine in the text form, while its text reads): a new state
+ * (double-click the canvas, the New state button, or N), a transition (drag a state's dot onto
+ * a state, or T and then the arrow keys), a guard, a name or outputs changed in place
+ * (double-click, or the keys of docs/designer.md), a state made the start, an item deleted.
+ * Each becomes one small edit of the text (controllers/sketch-draw.ts), which the bench types
+ * into the text so its undo takes it back; the sketch redraws from the text as always.
+ * The SVG itself is drawn by sketch-svg.ts, the inline field and the actions by sketch-field.ts.
+ * Events: `reveal` {line, column}, `text-edit` {edit}, `undo` {again}.
  */
 import { LitElement, html, nothing, type PropertyValues } from 'lit';
-import { curveBasis, line, pointer, select, zoom, zoomIdentity, type Selection, type ZoomBehavior } from 'd3';
+import { pointer, select, zoom, zoomIdentity, type Selection, type ZoomBehavior } from 'd3';
 import type { Machine } from '../../core/index.js';
 import type { DiagramLayout, LaidEdge, LaidNode } from '../diagram/layout.js';
 import { SketchDraw, type FieldKind, type Spot } from '../controllers/sketch-draw.js';
 import type { TextEdit } from '../controllers/table-edit.js';
 import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
-import { LINE_H } from '../diagram/layout.js';
+import { drawEdges, drawMarks, drawNodes, lineIndex } from './sketch-svg.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
 import { emit } from './emit.js';
 import { touchScreen } from '../touch.js';
 
-type G = Selection<SVGGElement, unknown, null, undefined>;
-
 /** The sketch's text is 12 px at scale 1; Fit keeps it at least this big on screen. */
 export const MIN_LABEL_PX = 10;
 const TEXT_PX = 12;
 
-/** Enter or Space on a focused sketch item: find it in the text, and let the key do nothing else. */
-/** Which line of a transition label an event is on (0 when not on a line). */
-function lineIndex(ev: Event): number {
-  const t = (ev.target as Element | null)?.closest?.('text[data-line]');
-  return t ? Number(t.getAttribute('data-line')) || 0 : 0;
-}
-
 /** A key with no Ctrl, Alt or ⌘ (Shift allowed). */
 const plain = (ev: KeyboardEvent): boolean => !ev.ctrlKey && !ev.altKey && !ev.metaKey;
 
+/** Enter or Space on a focused sketch item: find it in the text, and let the key do nothing else. */
 function onActivate(ev: KeyboardEvent, line: number | undefined, reveal: (line: number | undefined) => void): void {
   if (ev.key !== 'Enter' && ev.key !== ' ') return;
   ev.preventDefault();
@@ -208,15 +208,40 @@ export class LwDiagram extends LitElement {
   }
 
   protected override updated(changed: PropertyValues<this>): void {
-    this.drawMarks();
+    drawMarks(select(this.renderRoot.querySelector('g.view') as SVGGElement), this.layout, this.draw);
     const opened = this.draw.field?.at;
     if (opened !== undefined && opened !== this.fieldAt) this.focusField();
     this.fieldAt = opened;
     if (!changed.has('layout') && !changed.has('codes') && !changed.has('lit')) return;
     const l = this.layout;
     const view = select(this.renderRoot.querySelector('g.view') as SVGGElement);
-    this.drawEdges(view.select<SVGGElement>('g.edges'), l?.edges ?? []);
-    this.drawNodes(view.select<SVGGElement>('g.nodes'), l?.nodes ?? []);
+    drawEdges(view.select<SVGGElement>('g.edges'), l?.edges ?? [], {
+      click: (ev, e) => {
+        const i = lineIndex(ev);
+        this.revealLine(e.sourceLines[i]);
+        this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
+      },
+      dblclick: (ev, e) => {
+        ev.stopPropagation();
+        this.openGuard(e, lineIndex(ev));
+      },
+      key: (ev, e) => this.onLabelKey(ev, e),
+    });
+    drawNodes(view.select<SVGGElement>('g.nodes'), l?.nodes ?? [], {
+      codes: this.codes,
+      lit: this.lit,
+      drawable: this.drawable,
+      click: (_, n) => {
+        this.revealLine(n.line);
+        this.draw.pick({ kind: 'state', id: n.id });
+      },
+      dblclick: (ev, n) => {
+        ev.stopPropagation();
+        if (this.drawable && !this.frozen) this.openField('rename', this.spotUnder(n.id), { state: n.id });
+      },
+      key: (ev, n) => this.onNodeKey(ev, n),
+      grab: (ev, n) => this.onGrab(ev, n),
+    });
     const shape = (l?.nodes ?? []).map((n) => n.id).join(' ');
     if (shape !== this.shape) {
       this.shape = shape;
@@ -274,156 +299,6 @@ export class LwDiagram extends LitElement {
   private scaleBy(f: number): void {
     const zoomer = this.zoomer;
     if (zoomer) this.svg().call((svg) => zoomer.scaleBy(svg, f));
-  }
-
-  private drawEdges(g: G, edges: readonly LaidEdge[]): void {
-    const path = line<{ x: number; y: number }>()
-      .x((p) => p.x)
-      .y((p) => p.y)
-      .curve(curveBasis);
-    const sel = g
-      .selectAll<SVGGElement, LaidEdge>('g.edge')
-      .data(edges, (e) => `${e.from}\u0000${e.to}`)
-      .join((enter) => {
-        const e = enter.append('g').attr('class', 'edge');
-        e.append('path').attr('class', 'wire').attr('marker-end', 'url(#tip)');
-        const label = e.append('g').attr('class', 'label').attr('tabindex', 0).attr('role', 'button');
-        label.append('rect');
-        return e;
-      });
-    sel.select('path.wire').attr('d', (e) => path(e.points as { x: number; y: number }[]) ?? '');
-    const label = sel.select<SVGGElement>('g.label');
-    label
-      .attr('transform', (e) => `translate(${e.label.x - e.label.width / 2},${e.label.y - e.label.height / 2})`)
-      .attr('aria-label', (e) => `Transition from ${e.from} to ${e.to}: ${e.lines.join('; ')}`)
-      .on('click', (ev: MouseEvent, e) => {
-        const i = lineIndex(ev);
-        this.revealLine(e.sourceLines[i]);
-        this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
-      })
-      .on('dblclick', (ev: MouseEvent, e) => {
-        ev.stopPropagation();
-        this.openGuard(e, lineIndex(ev));
-      })
-      .on('keydown', (ev: KeyboardEvent, e) => this.onLabelKey(ev, e));
-    label
-      .select('rect')
-      .attr('width', (e) => e.label.width)
-      .attr('height', (e) => e.label.height)
-      .attr('rx', 3);
-    label
-      .selectAll<SVGTextElement, string>('text')
-      .data((e) => e.lines)
-      .join('text')
-      .attr('data-line', (_, i) => i)
-      .attr('x', 4)
-      .attr('y', (_, i) => 12 + i * LINE_H)
-      .text((t) => t);
-  }
-
-  private drawNodes(g: G, nodes: readonly LaidNode[]): void {
-    const sel = g
-      .selectAll<SVGGElement, LaidNode>('g.node')
-      .data(nodes, (n) => n.id)
-      .join((enter) => {
-        const e = enter.append('g').attr('class', 'node').attr('tabindex', 0).attr('role', 'button');
-        e.append('rect').attr('class', 'body');
-        e.append('path').attr('class', 'entry');
-        e.append('text').attr('class', 'code');
-        e.append('text').attr('class', 'merged');
-        e.append('circle').attr('class', 'handle').attr('r', 6);
-        return e;
-      });
-    sel
-      .attr('transform', (n) => `translate(${n.x - n.width / 2},${n.y - n.height / 2})`)
-      .classed('start', (n) => n.start)
-      .classed('unreachable', (n) => n.unreachable)
-      .classed('lit', (n) => this.lit.has(n.id))
-      .attr('data-state', (n) => n.id)
-      .attr(
-        'aria-label',
-        (n) =>
-          `State ${n.lines.join(', ')}${this.codes[n.id] ? `, code ${this.codes[n.id]}` : ''}${n.start ? ', start' : ''}${this.lit.has(n.id) ? ', the machine is here' : ''}${n.line ? `, line ${n.line}` : ''}`,
-      )
-      .on('click', (_, n) => {
-        this.revealLine(n.line);
-        this.draw.pick({ kind: 'state', id: n.id });
-      })
-      .on('dblclick', (ev: MouseEvent, n) => {
-        ev.stopPropagation();
-        if (this.drawable && !this.frozen) this.openField('rename', this.spotUnder(n.id), { state: n.id });
-      })
-      .on('keydown', (ev: KeyboardEvent, n) => this.onNodeKey(ev, n));
-    sel
-      .select('circle.handle')
-      .attr('cx', (n) => n.width)
-      .attr('cy', (n) => n.height / 2)
-      .attr('display', this.drawable ? null : 'none')
-      .on('pointerdown', (ev: PointerEvent, n) => this.onGrab(ev, n));
-    sel
-      .select('rect.body')
-      .attr('width', (n) => n.width)
-      .attr('height', (n) => n.height)
-      .attr('rx', 7);
-    sel
-      .select('path.entry')
-      .attr('d', (n) => (n.start ? `M-22,${n.height / 2} L-3,${n.height / 2}` : ''))
-      .attr('marker-end', (n) => (n.start ? 'url(#tip)' : null));
-    sel
-      .selectAll<SVGTextElement, string>('text.line')
-      .data((n) => n.lines)
-      .join('text')
-      .attr('class', (_, i) => (i === 0 ? 'line name' : 'line outs'))
-      .attr('x', 12)
-      .attr('y', (_, i) => 21 + i * LINE_H)
-      .text((t) => t);
-    sel
-      .select('text.code')
-      .attr('x', (n) => n.width - 4)
-      .attr('y', -4)
-      .text((n) => this.codes[n.id] ?? '');
-    sel
-      .select('text.merged')
-      .attr('x', 2)
-      .attr('y', (n) => n.height + 13)
-      .text((n) => (n.mergedInto ? `same as ${n.mergedInto}` : n.unreachable ? 'unreachable' : ''));
-  }
-
-  // ── Drawing ────────────────────────────────────────────────────────────────────────────────
-
-  /** The picked item, the transition being drawn and its target, drawn over the sketch. */
-  private drawMarks(): void {
-    const view = select(this.renderRoot.querySelector('g.view') as SVGGElement);
-    const d = this.draw;
-    const picked = d.picked;
-    view
-      .selectAll<SVGGElement, LaidNode>('g.node')
-      .classed('picked', (n) => picked?.kind === 'state' && picked.id === n.id)
-      .classed('target', (n) => d.linking?.to === n.id);
-    view
-      .selectAll<SVGGElement, LaidEdge>('g.label')
-      .selectAll<SVGTextElement, string>('text')
-      .classed('picked', function (_, i) {
-        const e = select<Element, LaidEdge>(this.parentNode as Element).datum();
-        return (
-          picked?.kind === 'edge' &&
-          picked.from === e.from &&
-          picked.to === e.to &&
-          picked.index === i &&
-          e.lines.length > 1
-        );
-      });
-    const rubber = view.select('path.rubber');
-    const l = d.linking;
-    const from = l && this.layout?.nodes.find((n) => n.id === l.from);
-    if (!l || !from) {
-      rubber.attr('d', null);
-      return;
-    }
-    const to = this.layout?.nodes.find((n) => n.id === l.to);
-    const end = l.pointer ?? (to ? { x: to.x, y: to.y - to.height / 2 - (to === from ? 18 : 0) } : undefined);
-    const x0 = from.x + from.width / 2;
-    rubber.attr('d', end ? `M${x0},${from.y} L${end.x},${end.y}` : null);
   }
 
   private nodeElement(id: string): SVGGElement | undefined {
