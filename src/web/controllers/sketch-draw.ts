@@ -197,7 +197,8 @@ export class SketchDraw implements ReactiveController {
     return `${words[f.kind]} Ctrl+Z takes it back.`;
   }
 
-  private refuse(problem: string): undefined {
+  /** Keep the field open, saying why its answer was not taken. */
+  refuse(problem: string): undefined {
     if (this.field) this.field = { ...this.field, problem };
     this.host.requestUpdate();
     return undefined;

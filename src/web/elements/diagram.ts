@@ -322,7 +322,9 @@ export class LwDiagram extends LitElement {
     const m = this.machine;
     if (!m || !this.drawable) return;
     if (this.frozen) return this.draw.say('The text is being read: draw again in a moment.');
-    this.draw.open(kind, at, m, more);
+    // Keep the field inside the sketch (it is about 16rem wide).
+    const x = Math.max(0, Math.min(at.x, this.clientWidth - 270));
+    this.draw.open(kind, { x, y: at.y }, m, more);
   }
 
   private openNewState(): void {
@@ -361,6 +363,8 @@ export class LwDiagram extends LitElement {
     const m = this.machine;
     const f = this.draw.field;
     if (!m || !f) return;
+    // The machine drawn must be the text's current reading, or the places it records are not the text's.
+    if (this.frozen) return this.draw.refuse('The text is being read: press Enter again in a moment.');
     const edit = this.draw.submit(m, this.text);
     if (!edit) return;
     const back = f.kind === 'new-state' || f.kind === 'rename' ? undefined : f.state;
@@ -428,6 +432,10 @@ export class LwDiagram extends LitElement {
     const l = this.draw.linking;
     if (!l || (l.pointer === undefined && l.to !== undefined)) return;
     this.renderRoot.querySelector('svg')?.releasePointerCapture(ev.pointerId);
+    if (l.pointer === undefined) {
+      this.draw.link(undefined);
+      return this.draw.say(`Drag the dot of ${l.from} onto the state the transition goes to (or back onto ${l.from}).`);
+    }
     const over = (this.renderRoot as ShadowRoot)
       .elementFromPoint(ev.clientX, ev.clientY)
       ?.closest<SVGGElement>('g.node');
