@@ -50,6 +50,13 @@ function coreError(t: string): string {
   return `${d.code}: ${d.message}${d.hint ? ` — ${d.hint}` : ''}`;
 }
 
+/** Where a state is drawn, from the sketch's top left corner (the page around it may move). */
+async function placeOf(name: string): Promise<{ x: number; y: number }> {
+  const [a, b] = await Promise.all([node(name).boundingBox(), page.locator('lw-diagram svg').boundingBox()]);
+  if (!a || !b) throw new Error('not drawn');
+  return { x: a.x - b.x, y: a.y - b.y };
+}
+
 /** Drag a state's dot onto another state (once the page has stopped moving: a draft build's note comes and goes). */
 async function drag(from: string, to: string): Promise<void> {
   await built(page);
@@ -90,10 +97,16 @@ describe('src/web/elements/diagram (drawing a machine, end to end in chromium)',
     await answer('ring-ing');
     expect(await problem()).toBe(coreError(`${NEW_MACHINE}\nstate ring-ing\n`));
     expect(await text()).toBe(NEW_MACHINE);
+    const litWas = await placeOf('lit');
     await answer('ringing');
     let want = `${NEW_MACHINE}\nstate ringing\n`;
     expect(await text()).toBe(want);
     await read();
+    // The states already there stay about where they were in the sketch (less than a line of its
+    // text: the layout centres each rank anew), at the same scale, rather than the whole sketch being fitted again.
+    await node('ringing').waitFor();
+    const litNow = await placeOf('lit');
+    expect(Math.hypot(litNow.x - litWas.x, litNow.y - litWas.y)).toBeLessThan(16);
 
     // A transition by dragging lit's dot onto ringing; a misspelt input gets the core's did-you-mean.
     await drag('lit', 'ringing');

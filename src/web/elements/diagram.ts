@@ -12,12 +12,13 @@
  * a state, or T and then the arrow keys), a guard, a name or outputs changed in place
  * (double-click, or the keys of docs/designer.md), a state made the start, an item deleted.
  * Each becomes one small edit of the text (controllers/sketch-draw.ts), which the bench types
- * into the text so its undo takes it back; the sketch redraws from the text as always.
+ * into the text so its undo takes it back; the sketch redraws from the text as always, and
+ * when the states are mostly the same ones it keeps them where they were on screen (keepView).
  * The SVG itself is drawn by sketch-svg.ts, the inline field and the actions by sketch-field.ts.
  * Events: `reveal` {line, column}, `text-edit` {edit}, `undo` {again}.
  */
 import { LitElement, html, nothing, type PropertyValues } from 'lit';
-import { pointer, select, zoom, zoomIdentity, type Selection, type ZoomBehavior } from 'd3';
+import { pointer, select, zoom, zoomIdentity, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
 import type { Machine } from '../../core/index.js';
 import type { DiagramLayout, LaidEdge, LaidNode } from '../diagram/layout.js';
 import { SketchDraw, type FieldKind, type Spot } from '../controllers/sketch-draw.js';
@@ -245,7 +246,7 @@ export class LwDiagram extends LitElement {
     const shape = (l?.nodes ?? []).map((n) => n.id).join(' ');
     if (shape !== this.shape) {
       this.shape = shape;
-      this.fit();
+      if (!this.keepView(changed.get('layout'))) this.fit();
     }
     this.dataset.drawn = String((Number(this.dataset.drawn) || 0) + 1);
     const due = this.focusDue;
@@ -294,6 +295,36 @@ export class LwDiagram extends LitElement {
       this.requestUpdate();
     }
     this.dataset.scale = String(k);
+  }
+
+  /**
+   * After a state was added, renamed or deleted, keep the states that stay where they were on
+   * screen (the layout moves them all alike when a rank is added), as long as every state is
+   * then in view; true when it did. A new machine, or one that would leave the view, is fitted.
+   */
+  private keepView(before: DiagramLayout | undefined): boolean {
+    const l = this.layout;
+    const el = this.renderRoot.querySelector('svg');
+    const zoomer = this.zoomer;
+    if (!before || !l || !el || !zoomer || l.method !== 'layered') return false;
+    const was = new Map(before.nodes.map((n) => [n.id, n]));
+    const common = l.nodes.filter((n) => was.has(n.id));
+    if (common.length === 0) return false;
+    const shift = (axis: 'x' | 'y'): number =>
+      common.reduce((k, n) => k + n[axis] - (was.get(n.id)?.[axis] ?? n[axis]), 0) / common.length;
+    const t = zoomTransform(el).translate(-shift('x'), -shift('y'));
+    const w = el.clientWidth;
+    const h = el.clientHeight;
+    const inView = l.nodes.every(
+      (n) =>
+        t.applyX(n.x - n.width / 2) >= 0 &&
+        t.applyX(n.x + n.width / 2) <= w &&
+        t.applyY(n.y - n.height / 2) >= 0 &&
+        t.applyY(n.y + n.height / 2) <= h,
+    );
+    if (!inView) return false;
+    this.svg().call((svg) => zoomer.transform(svg, t));
+    return true;
   }
 
   private scaleBy(f: number): void {
