@@ -7,7 +7,7 @@
  * the refusals must carry the core's own diagnostics (analyse, as the command line reports
  * them); the finished text, built by `latchwright build` run in-process, must give the very
  * netlist the page built; Ctrl+Z in the sketch takes back the last drawn edit and Ctrl+Shift+Z
- * makes it again.
+ * makes it again. With LW_SCREENSHOTS=1 it takes the docs' picture of a field refusing a guard.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync, writeFileSync } from 'node:fs';
@@ -16,7 +16,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { analyse } from '../../src/core/pipeline.js';
 import { NEW_MACHINE } from '../../src/web/examples.js';
 import { run, tempDir, removeTempDirs } from '../cli/support.js';
-import { built, downloaded, openPage, settled, startDesigner, type Designer } from './page.js';
+import { built, downloaded, openPage, settled, shot, startDesigner, type Designer } from './page.js';
 
 let designer: Designer;
 let context: BrowserContext;
@@ -114,6 +114,7 @@ describe('src/web/elements/diagram (drawing a machine, end to end in chromium)',
     await expect(field().locator('.offer button').allInnerTexts()).resolves.toEqual(['button']);
     await answer('buton');
     expect(await problem()).toMatch(/^LW201: .*did you mean 'button'\?/);
+    await shot(page, 'sketch-drawing');
     await answer('button');
     want = want.replace('  when button go dark\n', '  when button go dark\n  when button go ringing\n');
     expect(await text()).toBe(want);

@@ -353,9 +353,10 @@ export class LwDiagram extends LitElement {
     const m = this.machine;
     if (!m || !this.drawable) return;
     if (this.frozen) return this.draw.say('The text is being read: draw again in a moment.');
-    // Keep the field inside the sketch (it is about 16rem wide).
+    // Keep the field inside the sketch (it is about 17rem wide and, with a reason shown, 11rem high).
     const x = Math.max(0, Math.min(at.x, this.clientWidth - 270));
-    this.draw.open(kind, { x, y: at.y }, m, more);
+    const y = Math.max(0, Math.min(at.y, this.clientHeight - 180));
+    this.draw.open(kind, { x, y }, m, more);
   }
 
   private openNewState(): void {
