@@ -163,7 +163,7 @@ export class SketchDraw implements ReactiveController {
 
   private checked(text: string, edit: TextEdit | undefined, words: string): TextEdit | undefined {
     const trial = trialEdit(text, edit);
-    this.say(trial.ok ? `${words} Ctrl+Z takes it back.` : trial.problem);
+    this.say(trial.ok ? `${words} Undo (Ctrl+Z) takes it back.` : trial.problem);
     return trial.ok ? edit : undefined;
   }
 
@@ -194,7 +194,7 @@ export class SketchDraw implements ReactiveController {
       rename: `Renamed ${f.state ?? ''} to ${v}.`,
       outputs: `Changed the outputs of ${f.state ?? ''}.`,
     };
-    return `${words[f.kind]} Ctrl+Z takes it back.`;
+    return `${words[f.kind]} Undo (Ctrl+Z) takes it back.`;
   }
 
   /** Keep the field open, saying why its answer was not taken. */

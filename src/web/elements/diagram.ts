@@ -25,6 +25,7 @@ import { SketchDraw, type FieldKind, type Spot } from '../controllers/sketch-dra
 import type { TextEdit } from '../controllers/table-edit.js';
 import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
 import { drawEdges, drawMarks, drawNodes, lineIndex } from './sketch-svg.js';
+import { labelKey, sketchKey, stateKey, targetKey } from './sketch-keys.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
 import { emit } from './emit.js';
@@ -33,9 +34,6 @@ import { touchScreen } from '../touch.js';
 /** The sketch's text is 12 px at scale 1; Fit keeps it at least this big on screen. */
 export const MIN_LABEL_PX = 10;
 const TEXT_PX = 12;
-
-/** A key with no Ctrl, Alt or ⌘ (Shift allowed). */
-const plain = (ev: KeyboardEvent): boolean => !ev.ctrlKey && !ev.altKey && !ev.metaKey;
 
 /** Enter or Space on a focused sketch item: find it in the text, and let the key do nothing else. */
 function onActivate(ev: KeyboardEvent, line: number | undefined, reveal: (line: number | undefined) => void): void {
@@ -479,48 +477,32 @@ export class LwDiagram extends LitElement {
   /** Keys on a state: Enter finds it in the text; while a transition is drawn, the keys choose its target. */
   private onNodeKey(ev: KeyboardEvent, n: LaidNode): void {
     const l = this.draw.linking;
-    if (l && l.from === n.id && l.pointer === undefined) return this.chooseTarget(ev, l.to ?? n.id);
+    if (l && l.from === n.id && l.pointer === undefined) return this.chooseTarget(ev, l.from, l.to ?? n.id);
     onActivate(ev, n.line, (line) => this.revealLine(line));
-    if (ev.defaultPrevented || !plain(ev) || !this.drawable) return;
-    const keys: Record<string, () => void> = {
-      t: () => this.startLink(n.id),
-      F2: () => this.openField('rename', this.spotUnder(n.id), { state: n.id }),
-      o: () => this.openField('outputs', this.spotUnder(n.id), { state: n.id }),
-      s: () => {
-        this.draw.pick({ kind: 'state', id: n.id });
-        this.act('start');
-      },
-      Delete: () => {
-        this.draw.pick({ kind: 'state', id: n.id });
-        this.act('delete');
-      },
-    };
-    const run = keys[ev.key === 'Backspace' ? 'Delete' : ev.key.length === 1 ? ev.key.toLowerCase() : ev.key];
-    if (!run || (ev.key === 'o' && (this.machine?.outputs.length ?? 0) === 0)) return;
+    const k = stateKey(ev);
+    if (ev.defaultPrevented || !k || !this.drawable || (k === 'outputs' && !this.machine?.outputs.length)) return;
     ev.preventDefault();
     ev.stopPropagation();
-    run();
+    if (k === 'link') this.startLink(n.id);
+    else if (k === 'rename' || k === 'outputs') this.openField(k, this.spotUnder(n.id), { state: n.id });
+    else {
+      this.draw.pick({ kind: 'state', id: n.id });
+      this.act(k);
+    }
   }
 
-  private chooseTarget(ev: KeyboardEvent, to: string): void {
-    const ids = this.layout?.nodes.map((x) => x.id) ?? [];
-    const l = this.draw.linking;
-    if (!l) return;
-    const step =
-      ['ArrowRight', 'ArrowDown'].includes(ev.key) || (ev.key === 'Tab' && !ev.shiftKey)
-        ? 1
-        : ['ArrowLeft', 'ArrowUp', 'Tab'].includes(ev.key)
-          ? -1
-          : 0;
-    if (step !== 0) this.draw.link({ from: l.from, to: ids[(ids.indexOf(to) + step + ids.length) % ids.length] });
-    else if (ev.key === 'Enter' || ev.key === ' ')
-      this.openField('new-transition', this.spotUnder(to), { state: l.from, to });
-    else if (ev.key === 'Escape') {
-      this.draw.link(undefined);
-      this.draw.say(undefined);
-    } else return;
+  private chooseTarget(ev: KeyboardEvent, from: string, to: string): void {
+    const k = targetKey(ev);
+    if (!k) return;
     ev.preventDefault();
     ev.stopPropagation();
+    const ids = this.layout?.nodes.map((x) => x.id) ?? [];
+    if (typeof k === 'object') this.draw.link({ from, to: ids[(ids.indexOf(to) + k.step + ids.length) % ids.length] });
+    else if (k === 'take') this.openField('new-transition', this.spotUnder(to), { state: from, to });
+    else {
+      this.draw.link(undefined);
+      this.draw.say(undefined);
+    }
   }
 
   /** Keys on a transition label: Enter finds it; with several transitions, ↑ and ↓ pick one; F2 or G its guard; Delete. */
@@ -528,32 +510,28 @@ export class LwDiagram extends LitElement {
     const p = this.draw.picked;
     const index = p?.kind === 'edge' && p.from === e.from && p.to === e.to ? p.index : 0;
     onActivate(ev, e.sourceLines[index], (line) => this.revealLine(line));
-    if (ev.defaultPrevented || !plain(ev) || !this.drawable) return;
-    const pickAt = (i: number): void => this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
-    if ((ev.key === 'ArrowDown' || ev.key === 'ArrowUp') && e.lines.length > 1) {
-      const i = (index + (ev.key === 'ArrowDown' ? 1 : e.lines.length - 1)) % e.lines.length;
-      pickAt(i);
-      this.draw.say(`Transition ${i + 1} of ${e.lines.length} from ${e.from} to ${e.to}: ${e.lines[i]}`);
-    } else if (ev.key === 'F2' || ev.key.toLowerCase() === 'g') this.openGuard(e, index);
-    else if (ev.key === 'Delete' || ev.key === 'Backspace') {
-      pickAt(index);
-      this.act('delete');
-    } else return;
+    const k = labelKey(ev);
+    if (ev.defaultPrevented || !k || !this.drawable || (typeof k === 'object' && e.lines.length < 2)) return;
     ev.preventDefault();
     ev.stopPropagation();
+    const i = typeof k === 'object' ? (index + k.step + e.lines.length) % e.lines.length : index;
+    this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
+    if (typeof k === 'object')
+      this.draw.say(`Transition ${i + 1} of ${e.lines.length} from ${e.from} to ${e.to}: ${e.lines[i]}`);
+    else if (k === 'guard') this.openGuard(e, index);
+    else this.act('delete');
   }
 
-  /** Keys anywhere in the sketch: N a new state; Ctrl+Z undo, Ctrl+Shift+Z or Ctrl+Y redo; Escape stops drawing. */
+  /** Keys anywhere in the sketch (not in its field): a new state, undo and redo, stop drawing. */
   private readonly onKey = (ev: KeyboardEvent): void => {
     const target = ev.composedPath()[0];
     if (target instanceof HTMLElement && target.closest('input, textarea, select')) return;
-    const mod = (ev.ctrlKey || ev.metaKey) && !ev.altKey;
-    const k = ev.key.toLowerCase();
-    if (mod && (k === 'z' || k === 'y')) emit(this, 'undo', { again: k === 'y' || ev.shiftKey });
-    else if (plain(ev) && k === 'n' && this.drawable) this.openNewState();
-    else if (ev.key === 'Escape' && (this.draw.linking || this.draw.field)) this.draw.cancel();
-    else return;
+    const k = sketchKey(ev);
+    if (!k || (k === 'new-state' && !this.drawable) || (k === 'stop' && !this.draw.linking && !this.draw.field)) return;
     ev.preventDefault();
+    if (typeof k === 'object') emit(this, 'undo', k);
+    else if (k === 'new-state') this.openNewState();
+    else this.draw.cancel();
   };
 
   /** Put the caret at the start of a line of the text (nothing selected, so the next key typed only adds). */
