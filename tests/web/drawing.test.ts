@@ -224,5 +224,32 @@ describe('src/web/elements/diagram (drawing a machine, end to end in chromium)',
     await page.locator('lw-editor textarea').focus();
     await page.keyboard.press('Control+z');
     await expect.poll(text).toBe(final);
+
+    // A machine in the JSON form is shown, not drawn on: the sketch says so and offers no drawing.
+    const json = JSON.stringify({
+      name: 'tiny',
+      inputs: ['a'],
+      outputs: [],
+      start: 's',
+      states: [
+        { name: 's', transitions: [{ when: 'a', to: 't' }] },
+        { name: 't', transitions: [{ to: 's' }] },
+      ],
+    });
+    await page.locator('lw-editor textarea').fill(json);
+    await settled(page);
+    await page.getByRole('tab', { name: 'Sketch' }).click();
+    await node('t').waitFor();
+    await expect(page.locator('lw-diagram .legend').innerText()).resolves.toContain(
+      'this machine is not in the text form, so the sketch only shows it',
+    );
+    await expect(page.locator('lw-diagram button[data-do="new-state"]').count()).resolves.toBe(0);
+    const sketch = await page.locator('lw-diagram svg').boundingBox();
+    if (!sketch) throw new Error('no sketch');
+    await page.mouse.dblclick(sketch.x + 12, sketch.y + sketch.height - 12);
+    await node('t').focus();
+    await page.keyboard.press('Delete');
+    await expect(field().count()).resolves.toBe(0);
+    expect(await text()).toBe(json);
   });
 });

@@ -178,7 +178,7 @@ export class LwDiagram extends LitElement {
       ? 'drag to move · pinch to zoom · tap a state to find it in the text'
       : 'drag to pan · wheel to zoom · click a state to find it in the text';
     if (this.layout !== undefined && this.machine !== undefined && !this.drawable)
-      return `${look} · drawing works on a machine in the text form`;
+      return `${look} · this machine is not in the text form, so the sketch only shows it: drawing works in the text form`;
     if (!this.drawable) return look;
     return touch
       ? `${look} · New state adds one · drag a tapped state's dot onto a state to draw a transition · tap a label, then Change guard`
