@@ -16,7 +16,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { analyse } from '../../src/core/pipeline.js';
 import { NEW_MACHINE } from '../../src/web/examples.js';
 import { run, tempDir, removeTempDirs } from '../cli/support.js';
-import { built, downloaded, openPage, settled, shot, startDesigner, type Designer } from './page.js';
+import { built, downloaded, openPage, PHONE, settled, shot, startDesigner, type Designer } from './page.js';
 
 let designer: Designer;
 let context: BrowserContext;
@@ -251,5 +251,36 @@ describe('src/web/elements/diagram (drawing a machine, end to end in chromium)',
     await page.keyboard.press('Delete');
     await expect(field().count()).resolves.toBe(0);
     expect(await text()).toBe(json);
+  });
+
+  it('draws a transition by touch on a phone: tap a state, drag its dot onto another', async () => {
+    const phone = await designer.context(PHONE);
+    page = await openPage(phone, designer.url);
+    await page.getByRole('button', { name: 'New machine from a short template' }).click();
+    await built(page);
+    await node('lit').scrollIntoViewIfNeeded();
+    await node('lit').tap();
+    const dot = await node('lit').locator('circle.handle').boundingBox();
+    const target = await node('dark').locator('rect.body').boundingBox();
+    if (!dot || !target) throw new Error('not drawn');
+    // A finger on the dot, moved in steps onto dark and lifted (Chromium's own touch input).
+    const cdp = await phone.newCDPSession(page);
+    const touch = (type: string, x: number, y: number): Promise<unknown> =>
+      cdp.send('Input.dispatchTouchEvent', { type, touchPoints: type === 'touchEnd' ? [] : [{ x, y }] });
+    const [x0, y0] = [dot.x + dot.width / 2, dot.y + dot.height / 2];
+    const [x1, y1] = [target.x + target.width / 2, target.y + target.height / 2];
+    await touch('touchStart', x0, y0);
+    for (let i = 1; i <= 6; i++) await touch('touchMove', x0 + ((x1 - x0) * i) / 6, y0 + ((y1 - y0) * i) / 6);
+    await touch('touchEnd', x1, y1);
+    await expect(field().getAttribute('data-field')).resolves.toBe('new-transition');
+    // The first tap after a drag can be taken as the drag's end (Chromium's gesture detection): tap the field first.
+    await field().locator('input').tap();
+    await field().locator('.offer button').tap();
+    await expect.poll(() => field().locator('input').inputValue()).toBe('button');
+    await field().getByRole('button', { name: 'OK' }).tap();
+    await expect
+      .poll(text)
+      .toBe(NEW_MACHINE.replace('  when button go dark\n', '  when button go dark\n  when button go dark\n'));
+    await phone.close();
   });
 });

@@ -35,6 +35,8 @@ export const diagramStyles = css`
     border: 1px solid var(--lw-line);
     border-radius: var(--lw-radius);
     cursor: grab;
+    /* Touches on the sketch pan and zoom it (d3) or draw a transition, never scroll the page. */
+    touch-action: none;
     font-family: var(--lw-mono);
     font-size: 12px;
   }
