@@ -265,7 +265,7 @@ describe('src/web/elements/diagram (drawing a machine, end to end in chromium)',
     if (!dot || !target) throw new Error('not drawn');
     // A finger on the dot, moved in steps onto dark and lifted (Chromium's own touch input).
     const cdp = await phone.newCDPSession(page);
-    const touch = (type: string, x: number, y: number): Promise<unknown> =>
+    const touch = (type: 'touchStart' | 'touchMove' | 'touchEnd', x: number, y: number): Promise<unknown> =>
       cdp.send('Input.dispatchTouchEvent', { type, touchPoints: type === 'touchEnd' ? [] : [{ x, y }] });
     const [x0, y0] = [dot.x + dot.width / 2, dot.y + dot.height / 2];
     const [x1, y1] = [target.x + target.width / 2, target.y + target.height / 2];
