@@ -21,7 +21,7 @@ import { LitElement, html, nothing, type PropertyValues } from 'lit';
 import { pointer, select, zoom, zoomIdentity, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
 import type { Machine } from '../../core/index.js';
 import type { DiagramLayout, LaidEdge, LaidNode } from '../diagram/layout.js';
-import { SketchDraw, type FieldKind, type Spot } from '../controllers/sketch-draw.js';
+import { SketchDraw, type FieldKind, type Picked, type Spot } from '../controllers/sketch-draw.js';
 import type { TextEdit } from '../controllers/table-edit.js';
 import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
 import { drawEdges, drawMarks, drawNodes, lineIndex } from './sketch-svg.js';
@@ -108,6 +108,7 @@ export class LwDiagram extends LitElement {
     const hint = this.hint(touch);
     const m = this.machine;
     const d = this.draw;
+    const picked = this.picked();
     return html`<div class="tools" role="toolbar" aria-label="Sketch view">
         <button @click=${() => this.fit()} aria-label="Fit the sketch in view, as far as its text stays readable">
           Fit
@@ -125,9 +126,9 @@ export class LwDiagram extends LitElement {
         <span class="soft legend" data-hint=${touch ? 'touch' : 'pointer'}>${hint}</span>
       </div>
       ${
-        this.drawable && m && d.picked
-          ? actsTemplate(d.picked, m, this.frozen, {
-              link: () => this.startLink(d.picked?.kind === 'state' ? d.picked.id : undefined),
+        this.drawable && m && picked
+          ? actsTemplate(picked, m, this.frozen, {
+              link: () => this.startLink(picked.kind === 'state' ? picked.id : undefined),
               open: (kind) => this.openOnPicked(kind),
               act: (what) => this.act(what),
             })
@@ -204,6 +205,15 @@ export class LwDiagram extends LitElement {
     });
     svg.on('pointermove.draw', (ev: PointerEvent) => this.onDrag(ev));
     svg.on('pointerup.draw pointercancel.draw', (ev: PointerEvent) => this.onDrop(ev));
+  }
+
+  protected override willUpdate(changed: PropertyValues<this>): void {
+    // Another machine on the bench: what was said and picked was about the one before.
+    const before = changed.get('machine');
+    if (before && this.machine && before.name !== this.machine.name) {
+      this.draw.said = undefined;
+      this.draw.picked = undefined;
+    }
   }
 
   protected override updated(changed: PropertyValues<this>): void {
@@ -374,8 +384,20 @@ export class LwDiagram extends LitElement {
     });
   }
 
-  private openOnPicked(kind: 'rename' | 'outputs' | 'guard'): void {
+  /** The item picked, while the sketch still has it (a deletion or a rename in the text takes it away). */
+  private picked(): Picked | undefined {
     const p = this.draw.picked;
+    const l = this.layout;
+    if (!p || !l) return undefined;
+    const there =
+      p.kind === 'state'
+        ? l.nodes.some((n) => n.id === p.id)
+        : l.edges.some((e) => e.from === p.from && e.to === p.to && p.index < e.lines.length);
+    return there ? p : undefined;
+  }
+
+  private openOnPicked(kind: 'rename' | 'outputs' | 'guard'): void {
+    const p = this.picked();
     if (p?.kind === 'state' && kind !== 'guard') this.openField(kind, this.spotUnder(p.id), { state: p.id });
     const e = p?.kind === 'edge' ? this.layout?.edges.find((x) => x.from === p.from && x.to === p.to) : undefined;
     if (p?.kind === 'edge' && e) this.openGuard(e, p.index);
@@ -398,7 +420,10 @@ export class LwDiagram extends LitElement {
     const edit = this.draw.submit(m, this.text);
     if (!edit) return;
     const back = f.kind === 'new-state' || f.kind === 'rename' ? undefined : f.state;
-    if (f.kind === 'new-state' || f.kind === 'rename') this.focusDue = f.value.trim();
+    if (f.kind === 'new-state' || f.kind === 'rename') {
+      this.focusDue = f.value.trim();
+      this.draw.pick({ kind: 'state', id: this.focusDue });
+    }
     this.send(edit, back);
   }
 
@@ -418,7 +443,7 @@ export class LwDiagram extends LitElement {
 
   private act(what: 'start' | 'delete'): void {
     const m = this.machine;
-    const p = this.draw.picked;
+    const p = this.picked();
     if (!m || !p || !this.drawable) return;
     if (this.frozen) return this.draw.say('The text is being read: try again in a moment.');
     const edit = this.draw.act(what, m, this.text, p);
