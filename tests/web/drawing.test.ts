@@ -224,6 +224,14 @@ describe('src/web/elements/diagram (drawing a machine, end to end in chromium)',
     await page.locator('lw-editor textarea').focus();
     await page.keyboard.press('Control+z');
     await expect.poll(text).toBe(final);
+    // And Ctrl+Z in the ledger itself (outside a text field) takes back its last edit.
+    const target = page.locator('lw-state-table select[aria-label="Target of transition 1"]').first();
+    await target.selectOption('ringing');
+    await expect.poll(text).toBe(final.replace('  when button go lit #', '  when button go ringing #'));
+    await read();
+    await target.focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(text).toBe(final);
 
     // A machine in the JSON form is shown, not drawn on: the sketch says so and offers no drawing.
     const json = JSON.stringify({

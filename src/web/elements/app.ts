@@ -309,7 +309,7 @@ export class LwApp extends LitElement {
           ?frozen=${this.stale || this.synth.work === Work.reading}
           @reveal=${this.onReveal}
           @text-edit=${this.onTextEdit}
-          @undo=${(e: Detail<{ again: boolean }>) => this.bench()?.undo(e.detail.again)}
+          @undo=${this.onUndo}
         ></lw-diagram>`
       : html`<p class="soft">The sketch appears when the machine reads without errors.</p>`;
   }
@@ -325,6 +325,7 @@ export class LwApp extends LitElement {
       .merged=${r?.merged ?? {}}
       @reveal=${this.onReveal}
       @text-edit=${this.onTextEdit}
+      @undo=${this.onUndo}
     ></lw-state-table>`;
   }
 
@@ -469,6 +470,8 @@ export class LwApp extends LitElement {
   private onReveal = (e: Detail<{ line: number; column: number; select?: boolean }>): void => {
     this.bench()?.reveal(e.detail.line, e.detail.column, e.detail.select ?? true);
   };
+
+  private onUndo = (e: Detail<{ again: boolean }>): void => this.bench()?.undo(e.detail.again);
 
   /** An edit from the ledger or the sketch: typed into the text by the bench, so the text's undo takes it back. */
   private onTextEdit = (e: Detail<{ edit: TextEdit }>): void => {

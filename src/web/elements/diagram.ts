@@ -235,6 +235,7 @@ export class LwDiagram extends LitElement {
         this.openGuard(e, lineIndex(ev));
       },
       key: (ev, e) => this.onLabelKey(ev, e),
+      keys: this.drawable ? 'Enter ArrowUp ArrowDown F2 G Delete' : 'Enter',
     });
     drawNodes(view.select<SVGGElement>('g.nodes'), l?.nodes ?? [], {
       codes: this.codes,
@@ -249,6 +250,7 @@ export class LwDiagram extends LitElement {
         if (this.drawable && !this.frozen) this.openField('rename', this.spotUnder(n.id), { state: n.id });
       },
       key: (ev, n) => this.onNodeKey(ev, n),
+      keys: this.drawable ? 'Enter T F2 O S Delete' : 'Enter',
       grab: (ev, n) => this.onGrab(ev, n),
     });
     const shape = (l?.nodes ?? []).map((n) => n.id).join(' ');
@@ -430,7 +432,8 @@ export class LwDiagram extends LitElement {
   private cancelField(): void {
     const f = this.draw.field;
     this.draw.cancel();
-    if (f?.state !== undefined) this.nodeElement(f.state)?.focus({ preventScroll: true });
+    const back = f?.state !== undefined ? this.nodeElement(f.state) : undefined;
+    (back ?? this.renderRoot.querySelector<HTMLElement>('button[data-do="new-state"]'))?.focus({ preventScroll: true });
   }
 
   /** Send an edit, the focus first on the state it came from, so the bench gives it back there. */

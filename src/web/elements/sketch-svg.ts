@@ -17,6 +17,8 @@ export interface Handlers<T> {
   readonly click: (ev: MouseEvent, item: T) => void;
   readonly dblclick: (ev: MouseEvent, item: T) => void;
   readonly key: (ev: KeyboardEvent, item: T) => void;
+  /** The keys the item takes, for assistive technology (aria-keyshortcuts). */
+  readonly keys: string;
 }
 
 export interface NodeHandlers extends Handlers<LaidNode> {
@@ -53,6 +55,7 @@ export function drawEdges(g: G, edges: readonly LaidEdge[], on: Handlers<LaidEdg
   label
     .attr('transform', (e) => `translate(${e.label.x - e.label.width / 2},${e.label.y - e.label.height / 2})`)
     .attr('aria-label', (e) => `Transition from ${e.from} to ${e.to}: ${e.lines.join('; ')}`)
+    .attr('aria-keyshortcuts', on.keys)
     .on('click', on.click)
     .on('dblclick', on.dblclick)
     .on('keydown', on.key);
@@ -104,6 +107,7 @@ export function drawNodes(g: G, nodes: readonly LaidNode[], on: NodeHandlers): v
     .attr('cy', (n) => n.height / 2)
     .attr('display', on.drawable ? null : 'none')
     .on('pointerdown', on.grab);
+  sel.attr('aria-keyshortcuts', on.keys);
   sel
     .select('rect.body')
     .attr('width', (n) => n.width)
