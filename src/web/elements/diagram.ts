@@ -25,6 +25,7 @@ import { SketchDraw, type FieldKind, type Picked, type Spot } from '../controlle
 import type { TextEdit } from '../controllers/table-edit.js';
 import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
 import { drawEdges, drawMarks, drawNodes, lineIndex } from './sketch-svg.js';
+import { keptView } from '../diagram/view.js';
 import { labelKey, sketchKey, stateKey, targetKey } from './sketch-keys.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
@@ -310,31 +311,17 @@ export class LwDiagram extends LitElement {
   /**
    * After a state was added, renamed or deleted, keep the states that stay where they were on
    * screen (the layout moves them all alike when a rank is added), as long as every state is
-   * then in view; true when it did. A new machine, or one that would leave the view, is fitted.
+   * then in view (diagram/view.ts); true when it did. A new machine, or one that would leave
+   * the view, is fitted.
    */
   private keepView(before: DiagramLayout | undefined): boolean {
     const l = this.layout;
     const el = this.renderRoot.querySelector('svg');
     const zoomer = this.zoomer;
-    if (!before || !l || !el || !zoomer || l.method !== 'layered') return false;
-    const was = new Map(before.nodes.map((n) => [n.id, n]));
-    const common = l.nodes.filter((n) => was.has(n.id));
-    if (common.length === 0) return false;
-    const shift = (axis: 'x' | 'y'): number =>
-      common.reduce((k, n) => k + n[axis] - (was.get(n.id)?.[axis] ?? n[axis]), 0) / common.length;
-    const t = zoomTransform(el).translate(-shift('x'), -shift('y'));
-    const w = el.clientWidth;
-    const h = el.clientHeight;
-    const inView = l.nodes.every(
-      (n) =>
-        t.applyX(n.x - n.width / 2) >= 0 &&
-        t.applyX(n.x + n.width / 2) <= w &&
-        t.applyY(n.y - n.height / 2) >= 0 &&
-        t.applyY(n.y + n.height / 2) <= h,
-    );
-    if (!inView) return false;
-    this.svg().call((svg) => zoomer.transform(svg, t));
-    return true;
+    if (!before || !l || !el || !zoomer) return false;
+    const t = keptView(before, l, zoomTransform(el), el.clientWidth, el.clientHeight);
+    if (t) this.svg().call((svg) => zoomer.transform(svg, t));
+    return t !== undefined;
   }
 
   private scaleBy(f: number): void {
