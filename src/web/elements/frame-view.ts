@@ -7,7 +7,9 @@
  * trial run's levers stand on the frame as they stand now: a lever held down hangs below the
  * pivot rail (the one meaning of "down" the trial run's lever drawings have, with their
  * legend's glyphs beside), and the trial run can be stepped from here. Zoom and pan in the box;
- * Print gives frame.svg at its scale.
+ * Print gives frame.svg at its scale. A large drawing comes in piece by piece, one piece per
+ * animation frame (frame/pieces.ts), and the drawing in the page is indexed as it comes
+ * (frame/drawn.ts), so lighting a cord touches only that cord's elements.
  * Events: `step` (as <lw-stepper>), `print-frame`.
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
