@@ -549,7 +549,11 @@ export async function frameRows(browser: Browser, base: string): Promise<WebRow[
         figure: `${ms(f.hover.time)}; ${ms(f.hover.task)}`,
         reference: `the same on ${small.name} ${ms(small.hover.time)}`,
         ratio: `${(f.hover.time / small.hover.time).toFixed(1)}×`,
-        goal: f.hover.time < 50 ? '< 50 ms (met)' : `< 50 ms (short by ${ms(f.hover.time - 50)})`,
+        // The response budget of the RAIL model (web.dev, from memory): an answer to a pointer within 100 ms.
+        goal:
+          f.hover.time < 100
+            ? '< 100 ms (met)'
+            : `< 100 ms (short by ${ms(f.hover.time - 100)}: the browser paints and hit-tests the whole drawing again)`,
       },
       {
         name: `designer: back to Frame & cords from the sketch, ${f.name}; longest main-thread task`,
