@@ -436,13 +436,14 @@ export class LwFrame extends LitElement {
 
   /**
    * Put the pieces of a large drawing in, one per animation frame (each parsed apart from the
-   * page and made ready before it goes in), until all are in or another drawing replaced it.
+   * page and made ready before it goes in), until all are in or the drawing is gone.
    */
   private feed(drawn: DrawnFrame, pieces: readonly Piece[]): void {
     this.toCome = pieces.length;
     let next = 0;
     const step = (): void => {
-      if (this.drawn !== drawn) return;
+      // Stop for a drawing replaced, or taken out of the page (a larger build's note shows meanwhile).
+      if (this.drawn !== drawn || !drawn.root.isConnected) return;
       drawn.put(pieces[next++]);
       this.toCome = pieces.length - next;
       // The lit cord's elements may have come in this piece.
