@@ -51,6 +51,12 @@ interface Running {
   done: Promise<EncodeResult | undefined>;
 }
 let running: Running | undefined;
+/**
+ * The latest draft made, under its search setup's key: a newer job of the same setup that
+ * arrives before the search starts (the file name following the machine's name after a paste,
+ * a comment typed) takes it again rather than build it twice.
+ */
+let drafted: { readonly key: string; readonly draft: Draft | undefined } | undefined;
 /** The last final build posted, under its build key (jobs.ts `buildKey`), and how many of its diagnostics were its reading's. */
 let last: { key: string; view: BuildView; read: number } | undefined;
 
@@ -93,12 +99,15 @@ async function build(m: Extract<ToWorker, { kind: 'build' }>): Promise<void> {
     if (plan.kind === 'named') return finish(m.rev, a, key, buildJob(a, m.settings));
     return finish(m.rev, a, key, buildJob(a, m.settings, undefined, plan.outcome, 'remembered'), searched);
   }
-  const draft = running?.key === plan.key ? redraft(running.draft, a) : makeDraft(a, m, plan.setup);
+  const made = running?.key === plan.key ? running : drafted?.key === plan.key ? drafted : undefined;
+  const draft = made ? redraft(made.draft, a) : makeDraft(a, m, plan.setup);
+  drafted = { key: plan.key, draft };
   if (draft) post({ kind: 'draft', rev: m.rev, view: draft.view });
   await turn();
   if (stale(m.kind, m.rev)) return;
   const searched = await search(a, m, plan.key, draft);
   if (stale(m.kind, m.rev)) return;
+  if (drafted?.key === plan.key) drafted = undefined; // the final build replaces it
   const b = buildJob(a, m.settings, undefined, searched);
   finish(m.rev, a, key, b, searched ? { key: plan.key, outcome: searched } : undefined);
 }
@@ -116,9 +125,10 @@ function makeDraft(a: Analysed, m: Extract<ToWorker, { kind: 'build' }>, setup: 
 }
 
 /**
- * The draft of the search under way, for a newer text with the same setup (a comment typed
- * while it runs): the same build, with the new reading's diagnostics (their lines may have
- * moved). Building it again would only hold the search up.
+ * The draft made for the same setup (the search under way, or the latest draft), for a newer
+ * text (a comment typed, the file name following the machine's name): the same build, with the
+ * new reading's diagnostics (their lines may have moved). Building it again would only hold the
+ * search up.
  */
 function redraft(d: Draft | undefined, a: Analysed): Draft | undefined {
   if (!d) return undefined;
