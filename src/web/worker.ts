@@ -1,10 +1,10 @@
 /**
  * The synthesis worker. The page runs several, each for one kind of job, so that slow work
  * never stands in front of fast work: a reader (read + sketch layout, every keystroke), a
- * builder (encode + synthesise), a checker (every check; on request the schematic and the
- * build documents)
- * and a searcher (every encoding priced). Jobs go stage by stage, yielding between stages so
- * a newer job of the same kind can overtake; every answer carries the page revision it is for.
+ * builder (encode + synthesise), a checker (every check of the builder's build, which the page
+ * hands over; on request the schematic and the build documents) and a searcher (every encoding
+ * priced). Jobs go stage by stage, yielding between stages so a newer job of the same kind can
+ * overtake; every answer carries the page revision it is for.
  * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
  */
 import {
@@ -21,6 +21,7 @@ import {
   buildJob,
   buildKey,
   buildOptions,
+  builtForChecks,
   checkedAgain,
   checkJob,
   checkKey,
@@ -224,17 +225,16 @@ async function run(m: ToWorker): Promise<void> {
         post({ kind: 'checked', rev: m.rev, view: checked.view });
         return;
       }
-      const b = a.ok ? buildJob(a, m.settings) : undefined;
-      if (!b?.built) {
+      if (!a.ok) {
         post({
           kind: 'fault',
           rev: m.rev,
-          message: 'the machine built for the page did not build again for its checks',
+          message: 'the machine built for the page did not read again for its checks',
         });
         return;
       }
-      const c = checkJob(b.built, m.settings.seed);
-      checked = { rev: m.rev, built: c.built, key, read: a.ok ? a.diagnostics.length : 0, view: c.view };
+      const c = checkJob(builtForChecks(a, m.made), m.settings.seed);
+      checked = { rev: m.rev, built: c.built, key, read: a.diagnostics.length, view: c.view };
       post({ kind: 'checked', rev: m.rev, view: c.view });
       return;
     }

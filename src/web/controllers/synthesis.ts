@@ -363,7 +363,7 @@ export class SynthesisController implements ReactiveController {
         this.told.built?.(m.view);
         // The checker's current work, if any, is for an older build.
         if (!this.checker.idle) this.checker.restart();
-        // The checker builds again with the codes the builder chose, so a code search is not repeated.
+        // The checker checks this build (no second build); its key names the codes the builder chose.
         this.checker.send({
           kind: 'check',
           rev: m.rev,
@@ -372,6 +372,12 @@ export class SynthesisController implements ReactiveController {
           settings: {
             ...this.settings,
             encoding: { kept: m.view.build.encoding, states: m.view.build.machine.states },
+          },
+          made: {
+            build: m.view.build,
+            placement: m.view.placement,
+            profile: m.view.profile,
+            diagnostics: m.view.diagnostics,
           },
         });
         break;

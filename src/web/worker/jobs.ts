@@ -31,6 +31,7 @@ import { layoutDiagram } from '../diagram/layout.js';
 import type {
   BuildSettings,
   BuildView,
+  BuiltForChecks,
   ChecksView,
   CodeRow,
   CodesFrom,
@@ -249,6 +250,23 @@ export function buildJob(
     codesFrom,
   };
   return { view, built: b, diagnostics: b.diagnostics };
+}
+
+/**
+ * The build the checker checks: the builder's (as the page received it) with the checker's own
+ * reading of the same text, which the checks compare it with. The search report is left out,
+ * as a build with kept codes has none.
+ */
+export function builtForChecks(a: Analysed, made: BuiltForChecks): Built {
+  return {
+    ok: true,
+    analysed: a,
+    build: made.build,
+    placement: made.placement,
+    profile: made.profile,
+    checks: [],
+    diagnostics: made.diagnostics,
+  };
 }
 
 /** Run every check of a build; returns the checked build and the page's view of it. */
