@@ -30,6 +30,7 @@ import {
   readJob,
   settle,
   standInSettings,
+  toRemember,
 } from './worker/jobs.js';
 import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
@@ -109,8 +110,9 @@ async function build(m: Extract<ToWorker, { kind: 'build' }>): Promise<void> {
   const searched = await search(a, m, plan.key, draft);
   if (stale(m.kind, m.rev)) return;
   if (drafted?.key === plan.key) drafted = undefined; // the final build replaces it
+  // The outcome with what the search kept of pricing these codes; the page keeps it without.
   const b = buildJob(a, m.settings, undefined, searched);
-  finish(m.rev, a, key, b, searched ? { key: plan.key, outcome: searched } : undefined);
+  finish(m.rev, a, key, b, searched ? toRemember(plan.key, searched) : undefined);
 }
 
 /** A draft: the build with stand-in codes, and how many of its diagnostics are the reading's. */

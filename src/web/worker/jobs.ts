@@ -186,6 +186,17 @@ export function checkedAgain(b: Built, read: number, a: Analysed): Built {
 }
 
 /**
+ * A search outcome as the page keeps it, under its setup's key: without the minimisations the
+ * search kept of pricing the chosen codes (`EncodeResult.kept`, a hundred kilobytes for a large
+ * machine), since the page posts what it keeps with every build job. A build from it is the same
+ * build; it only minimises those functions itself.
+ */
+export function toRemember(key: string, outcome: EncodeResult): RememberedSearch {
+  const { kept: _kept, ...rest } = outcome;
+  return { key, outcome: rest };
+}
+
+/**
  * The settings of a draft build while the search runs: the codes of the build shown before
  * when they are for the same states and keep every pinned code, else counting order (which
  * keeps pins itself).
