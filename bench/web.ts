@@ -23,7 +23,13 @@
  * the drawing itself made in Node (frameSvg, schematicSvg of the same build): the page keeps
  * the frame and the schematic drawn while another view shows (src/web/elements/app.ts).
  *
- * `node --import tsx bench/web.ts` runs this section alone and prints its rows.
+ * The frame (src/web/elements/frame-view.ts) on cse, s298 and scf, each pasted whole: the click
+ * on its tab to the drawing there, and the longest main-thread task meanwhile (PerformanceObserver
+ * 'longtask'), against frameSvg of the same build in Node; a cord pointed at to its highlight
+ * drawn, against the same on cse; back to the frame from the sketch, against back from the ledger.
+ *
+ * `node --import tsx bench/web.ts` runs this section alone and prints its rows; with `frame`,
+ * only the frame's rows.
  */
 import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -365,14 +371,223 @@ function largeRows(f: LargeFigures): WebRow[] {
   return rows;
 }
 
-/** Run the browser benchmark; rows in the format of docs/benchmarks.md. */
-export async function benchWeb(): Promise<{ rows: WebRow[] }> {
+/** The machines whose frame rows are measured: s298 (LGSynth'91, 218 states) and scf (121 states), pasted in their JSON form. */
+const FRAME_MACHINES = ['tests/fixtures/lgsynth91/s298.json', LARGE] as const;
+/** Cords pointed at on each frame, spread along it. */
+const HOVERS = 7;
+
+/** The longest main-thread task (PerformanceObserver 'longtask', from 50 ms) since `lwTasks` was last emptied, in the page. */
+async function watchTasks(page: Page): Promise<void> {
+  await page.evaluate(() => {
+    const w = window as unknown as { lwTasks?: number[]; lwWatching?: boolean };
+    w.lwTasks = [];
+    if (w.lwWatching) return;
+    w.lwWatching = true;
+    new PerformanceObserver((list) => {
+      for (const e of list.getEntries()) w.lwTasks?.push(e.duration);
+    }).observe({ type: 'longtask' });
+  });
+}
+
+const longestTask = (page: Page): Promise<number> =>
+  page.evaluate(() => Math.max(0, ...((window as unknown as { lwTasks?: number[] }).lwTasks ?? [])));
+
+/** Paste `json` into the bench as a user pastes it and wait until it is built and checked. */
+async function pasteChecked(page: Page, base: string, json: string): Promise<void> {
+  await page.goto(base);
+  await whenAnswered(page, Number(await page.locator('lw-app').getAttribute('data-job')), 'checked');
+  await page.evaluate((text) => navigator.clipboard.writeText(text), json);
+  await page.locator('lw-editor textarea').focus();
+  await page.keyboard.press('Control+A');
+  await page.keyboard.press('Control+V');
+  await page.waitForTimeout(300);
+  await whenAnswered(page, Number(await page.locator('lw-app').getAttribute('data-job')), 'checked');
+}
+
+/**
+ * Point at `HOVERS` cords spread along the frame, each at a point of its stroke no other cord
+ * covers; per cord, the time from the pointer's arrival to the second animation frame after
+ * it (the highlight drawn), and the longest main-thread task meanwhile. Medians of the times; the longest task.
+ */
+async function hoverCords(page: Page): Promise<{ time: number; task: number; lit: number }> {
+  // From the pointer's move onto the cord (its pointerover goes to the drawing in the same task).
+  await page.evaluate(() => {
+    const w = window as unknown as { lwArmed?: boolean; lwOver?: number; lwDrawn?: number };
+    window.addEventListener(
+      'pointermove',
+      () => {
+        if (!w.lwArmed) return;
+        w.lwArmed = false;
+        w.lwOver = performance.now();
+        requestAnimationFrame(() => requestAnimationFrame(() => (w.lwDrawn = performance.now())));
+      },
+      { capture: true },
+    );
+  });
+  const total = await page.locator('lw-frame path.cord[data-cord]').count();
+  const times: number[] = [];
+  let task = 0;
+  let lit = 0;
+  for (let i = 0; i < HOVERS; i++) {
+    await page.mouse.move(1, 1);
+    await page.waitForTimeout(100);
+    const at = await page
+      .locator('lw-frame path.cord[data-cord]')
+      .nth(Math.floor(((i + 0.5) * total) / HOVERS))
+      .evaluate((el: SVGPathElement) => {
+        el.scrollIntoView({ block: 'center', inline: 'center' });
+        const m = el.getScreenCTM();
+        const root = el.getRootNode() as ShadowRoot;
+        const len = el.getTotalLength();
+        // On a large frame the cords lie close: whichever branch is on top at a point of this one's stroke.
+        for (let j = 1; j < 40 && m; j++) {
+          const p = el.getPointAtLength((len * j) / 40);
+          const x = m.a * p.x + m.c * p.y + m.e;
+          const y = m.b * p.x + m.d * p.y + m.f;
+          const top = root.elementFromPoint(x, y)?.closest('[data-cord][data-target]');
+          if (top) return { x, y, branch: `${top.getAttribute('data-cord')}→${top.getAttribute('data-target')}` };
+        }
+        return undefined;
+      });
+    if (!at) continue;
+    await page.waitForTimeout(100);
+    await watchTasks(page);
+    await page.evaluate(() => {
+      const w = window as unknown as { lwArmed?: boolean; lwDrawn?: number };
+      w.lwDrawn = undefined;
+      w.lwArmed = true;
+    });
+    await page.mouse.move(at.x, at.y);
+    await page.waitForFunction(() => (window as unknown as { lwDrawn?: number }).lwDrawn !== undefined);
+    times.push(
+      await page.evaluate(() => {
+        const w = window as unknown as { lwOver: number; lwDrawn: number };
+        return w.lwDrawn - w.lwOver;
+      }),
+    );
+    task = Math.max(task, await longestTask(page));
+    const litNow = await page
+      .locator('lw-frame path.cord.lit')
+      .evaluateAll((ps) => ps.map((q) => `${q.getAttribute('data-cord')}→${q.getAttribute('data-target')}`));
+    if (litNow.length === 1 && litNow[0] === at.branch) lit++;
+  }
+  await page.mouse.move(1, 1);
+  return { time: median(times), task, lit };
+}
+
+interface FrameFigures {
+  readonly name: string;
+  readonly bays: number;
+  /** frameSvg of the same build in Node. */
+  readonly ref: number;
+  /** Click on the tab → the drawing there, and → the drawing whole; the longest task meanwhile. */
+  readonly first: { time: number; whole: number; task: number };
+  readonly hover: { time: number; task: number; lit: number };
+  /** Back to the frame from the sketch, and from the ledger (the same-run reference); the longest task of the first. */
+  readonly fromSketch: { time: number; task: number };
+  readonly fromLedger: number;
+}
+
+async function frameFigures(browser: Browser, base: string, file: string): Promise<FrameFigures> {
+  const json = readFileSync(file, 'utf8');
+  const r = readJob(json, file);
+  if (!r.analysed) throw new Error(`${file} does not read`);
+  const b = buildJob(r.analysed, DEFAULT_SETTINGS).view;
+  if (!b) throw new Error(`${file} does not build`);
+  const refs: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    const t = performance.now();
+    frameSvg(b.build, b.placement, b.profile, { palette: 'screen' });
+    refs.push(performance.now() - t);
+  }
+  const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+  await ctx.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: base });
+  try {
+    const page = await ctx.newPage();
+    await pasteChecked(page, base, json);
+    await switchTo(page, 'ledger');
+    await watchTasks(page);
+    const first = { time: await switchTo(page, 'frame'), whole: 0, task: 0 };
+    // A large frame comes in pieces after the view has answered: until every piece is in.
+    first.whole = await page.evaluate(async (shown) => {
+      const t0 = performance.now() - shown;
+      const frame = document.querySelector('lw-app')?.shadowRoot?.querySelector('lw-frame');
+      while (frame?.getAttribute('data-drawing') === 'partial') await new Promise((r) => setTimeout(r, 5));
+      return performance.now() - t0;
+    }, first.time);
+    first.task = await longestTask(page);
+    const hover = await hoverCords(page);
+    const sketch: number[] = [];
+    const ledger: number[] = [];
+    let task = 0;
+    for (let i = 0; i < 3; i++) {
+      await switchTo(page, 'sketch');
+      await watchTasks(page);
+      sketch.push(await switchTo(page, 'frame'));
+      task = Math.max(task, await longestTask(page));
+      await switchTo(page, 'ledger');
+      ledger.push(await switchTo(page, 'frame'));
+    }
+    return {
+      name: `${file.split('/').pop() ?? file} (${r.analysed.machine.states.length} states)`,
+      bays: b.placement.bays.length,
+      ref: median(refs),
+      first,
+      hover,
+      fromSketch: { time: median(sketch), task },
+      fromLedger: median(ledger),
+    };
+  } finally {
+    await ctx.close();
+  }
+}
+
+/** The frame's rows: its first drawing, a cord pointed at, and the way back from the sketch, on each large machine. */
+export async function frameRows(browser: Browser, base: string): Promise<WebRow[]> {
+  const rows: WebRow[] = [];
+  const small = await frameFigures(browser, base, 'tests/fixtures/lgsynth91/cse.json');
+  for (const file of FRAME_MACHINES) {
+    const f = await frameFigures(browser, base, file);
+    rows.push(
+      {
+        name: `designer: Frame & cords first drawn (click on the tab → drawn; → every piece in), ${f.name}, ${f.bays} bays; longest main-thread task`,
+        figure: `${ms(f.first.time)}; ${ms(f.first.whole)}; ${ms(f.first.task)}`,
+        reference: `frameSvg of the same build in Node ${ms(f.ref)}`,
+        ratio: `${(f.first.time / f.ref).toFixed(1)}×`,
+        goal: f.first.task < 200 ? 'no task ≥ 200 ms (met)' : `no task ≥ 200 ms (short by ${ms(f.first.task - 200)})`,
+      },
+      {
+        name: `designer: a cord pointed at → lit and drawn (median of ${HOVERS}; ${f.hover.lit} of them lit alone), ${f.name}; longest main-thread task`,
+        figure: `${ms(f.hover.time)}; ${ms(f.hover.task)}`,
+        reference: `the same on ${small.name} ${ms(small.hover.time)}`,
+        ratio: `${(f.hover.time / small.hover.time).toFixed(1)}×`,
+        // The response budget of the RAIL model (web.dev, from memory): an answer to a pointer within 100 ms.
+        goal:
+          f.hover.time < 100
+            ? '< 100 ms (met)'
+            : `< 100 ms (short by ${ms(f.hover.time - 100)}: the browser paints and hit-tests the whole drawing again)`,
+      },
+      {
+        name: `designer: back to Frame & cords from the sketch, ${f.name}; longest main-thread task`,
+        figure: `${ms(f.fromSketch.time)}; ${ms(f.fromSketch.task)}`,
+        reference: `back from the ledger ${ms(f.fromLedger)}`,
+        ratio: `${(f.fromSketch.time / f.fromLedger).toFixed(1)}×`,
+        goal: f.fromSketch.time < 150 ? '< 150 ms (met)' : `< 150 ms (short by ${ms(f.fromSketch.time - 150)})`,
+      },
+    );
+  }
+  return rows;
+}
+
+/** Run the browser benchmark (only the frame's rows with `only: 'frame'`); rows in the format of docs/benchmarks.md. */
+export async function benchWeb(only?: 'frame'): Promise<{ rows: WebRow[] }> {
   const out = mkdtempSync(join(tmpdir(), 'latchwright-bench-web-'));
   const browser = await launchChromium();
   try {
     await buildDesigner(out);
     const server = await serveStatic(out);
     try {
+      if (only === 'frame') return { rows: await frameRows(browser, server.url) };
       const rows: WebRow[] = [];
       const loads: { sketch: number; checked: number }[] = [];
       for (let i = 0; i < 3; i++) {
@@ -457,6 +672,7 @@ export async function benchWeb(): Promise<{ rows: WebRow[] }> {
       });
       await ctx.close();
       rows.push(...largeRows(await largeMachine(browser, server.url)));
+      rows.push(...(await frameRows(browser, server.url)));
       return { rows };
     } finally {
       await server.close();
@@ -468,5 +684,5 @@ export async function benchWeb(): Promise<{ rows: WebRow[] }> {
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href)
-  for (const row of (await benchWeb()).rows)
+  for (const row of (await benchWeb(process.argv[2] === 'frame' ? 'frame' : undefined)).rows)
     console.log(`${row.name}: ${row.figure} (${row.reference}; ${row.ratio}; goal ${row.goal})`);

@@ -5,7 +5,8 @@
  * outputs; tests/fixtures/lgsynth91/TABLE.md), pasted into the bench in its JSON form as a user
  * would paste it. Its build has several hundred parts, so its schematic is laid out in stage
  * columns and its frame runs over many drums. Expected values come from the tool run in Node
- * on the same text (the build with the same defaults, its placement and its schematic).
+ * on the same text (the build with the same defaults, its placement, its schematic and its frame
+ * drawing, frame.svg in the screen palette, which the page puts in piece by piece).
  * Nothing here is timed: the figures are in bench/web.ts.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -13,6 +14,8 @@ import { readFileSync } from 'node:fs';
 import type { BrowserContext, Page } from 'playwright-core';
 import { analyse, buildMachine, type Built } from '../../src/core/pipeline.js';
 import { schematicSvg } from '../../src/core/export/schematic-svg.js';
+import { frameSvg } from '../../src/core/export/frame-svg.js';
+import { PIECE_CHARS } from '../../src/web/elements/frame-view.js';
 import { VIEWS } from '../../src/web/elements/app-view.js';
 import { openPage, pageWork, startDesigner, type Designer, type PageWork } from './page.js';
 
@@ -159,5 +162,81 @@ describe('src/web (a large machine, in chromium)', () => {
     const total = await ends.count();
     expect(total).toBeGreaterThan(0);
     await expect(page.locator('lw-frame rect.lever[data-part][data-stand]').count()).resolves.toBe(total);
+  }, 120_000);
+
+  it("puts a large frame in piece by piece, ending as the core's drawing element for element, and lights one cord and its two ends", async () => {
+    await tab('frame');
+    await page.locator('lw-frame[data-drawing="whole"]').waitFor({ timeout: 60_000 });
+    // The core's drawing of the same build (frame.svg in the screen palette) is long enough to come in pieces.
+    const core = frameSvg(ref.build, ref.placement, ref.profile, { palette: 'screen' });
+    expect(core.length).toBeGreaterThan(2 * PIECE_CHARS);
+    const mismatch = await page.locator('lw-frame .sheet svg').evaluate((svg, text) => {
+      // What the page adds: a hit copy over each cord, the copies of a lit cord, focus and stand attributes, lighting classes.
+      const added = new Set(['tabindex', 'role', 'aria-label', 'aria-hidden', 'data-stand']);
+      const lighting = new Set(['lit', 'end', 'from', 'to', 'veiled']);
+      const sig = (el: Element): string =>
+        [
+          el.localName,
+          ...[...el.attributes]
+            .filter((a) => !added.has(a.name) && a.name !== 'class')
+            .map((a) => `${a.name}=${a.value}`),
+          [...el.classList].filter((c) => !lighting.has(c)).join('.'),
+          el.children.length === 0 ? (el.textContent ?? '') : '',
+        ].join(' ');
+      const drawn = [...svg.querySelectorAll('*')].filter(
+        (el) => !el.matches('path.hit, path.hit *, g.lit-copies, g.lit-copies *'),
+      );
+      const doc = new DOMParser().parseFromString(text, 'image/svg+xml');
+      const want = [...doc.documentElement.querySelectorAll('*')];
+      for (let i = 0; i < Math.max(drawn.length, want.length); i++) {
+        const a = drawn[i] ? sig(drawn[i]) : '(none)';
+        const b = want[i] ? sig(want[i]) : '(none)';
+        if (a !== b) return `element ${i} of ${want.length}: drawn ${a.slice(0, 200)}; frame.svg ${b.slice(0, 200)}`;
+      }
+      return drawn.length > 0 ? '' : 'nothing drawn';
+    }, core);
+    expect(mismatch).toBe('');
+    // Pointing at a cord where it lies on top of the others lights exactly that branch, its whole path and its ends.
+    const at = await page
+      .locator('lw-frame path.cord[data-cord]')
+      .nth(Math.floor(ref.placement.routing.branches.length / 2))
+      .evaluate((el: SVGPathElement) => {
+        el.scrollIntoView({ block: 'center', inline: 'center' });
+        const m = el.getScreenCTM();
+        const root = el.getRootNode() as ShadowRoot;
+        for (let j = 1; j < 40 && m; j++) {
+          const p = el.getPointAtLength((el.getTotalLength() * j) / 40);
+          const x = m.a * p.x + m.c * p.y + m.e;
+          const y = m.b * p.x + m.d * p.y + m.f;
+          const top = root.elementFromPoint(x, y)?.closest('[data-cord][data-target]');
+          if (top)
+            return { x, y, cord: top.getAttribute('data-cord') ?? '', target: top.getAttribute('data-target') ?? '' };
+        }
+        return undefined;
+      });
+    if (!at) throw new Error('no cord on top anywhere along the one pointed at');
+    await page.mouse.move(at.x, at.y);
+    const b = ref.placement.routing.branches.find((x) => x.cord === at.cord && x.target === at.target);
+    if (!b) throw new Error(`the build has no branch ${at.cord} → ${at.target}`);
+    const lit = await page
+      .locator('lw-frame path.cord.lit')
+      .evaluateAll((ps) => ps.map((p) => `${p.getAttribute('data-cord')}→${p.getAttribute('data-target')}`));
+    expect(lit).toEqual([`${b.cord}→${b.target}`]);
+    await expect(page.locator('lw-frame path.route.lit').getAttribute('data-route-target')).resolves.toBe(b.target);
+    // Drawn again above the dimmed cords: the branch and its whole path.
+    await expect(page.locator('lw-frame g.lit-copies path').count()).resolves.toBe(2);
+    await expect(page.locator('lw-frame g.cords.veiled').count()).resolves.toBe(1);
+    const ends = (side: string) =>
+      page.locator(`lw-frame .end.${side}`).evaluateAll((es) => es.map((e) => e.getAttribute('data-part')));
+    const from = await ends('from');
+    expect(from.length).toBeGreaterThan(0);
+    expect(new Set(from)).toEqual(new Set([b.driver]));
+    const to = await ends('to');
+    expect(to.length).toBeGreaterThan(0);
+    expect(new Set(to)).toEqual(new Set([b.part]));
+    await page.mouse.move(1, 1);
+    await expect(page.locator('lw-frame path.cord.lit').count()).resolves.toBe(0);
+    await expect(page.locator('lw-frame g.lit-copies path').count()).resolves.toBe(0);
+    await expect(page.locator('lw-frame g.cords.veiled').count()).resolves.toBe(0);
   }, 120_000);
 });

@@ -123,15 +123,19 @@ export const appStyles = css`
     color: var(--lw-ink);
     border-bottom-color: var(--lw-brass);
   }
+  /*
+   * A column for every view, not only the sketch's: a change of display would build the layout of
+   * everything in it again, the kept views' large drawings included (app.ts KEPT_VIEWS).
+   */
   #view {
     flex: 1;
     min-height: 0;
     overflow: auto;
+    display: flex;
+    flex-direction: column;
   }
   #view.view-sketch {
     overflow: hidden;
-    display: flex;
-    flex-direction: column;
   }
   /* A kept view while another shows (app.ts KEPT_VIEWS): skipped by rendering, its layout kept for its return. */
   .kept.away {

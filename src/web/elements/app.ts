@@ -18,7 +18,6 @@ import { EXAMPLES } from '../examples.js';
 import { ALL_DOCUMENTS, PRINT_SHEET, type BuildView, type EncodingChoice } from '../worker/protocol.js';
 import {
   formatDiagnostic,
-  frameSvg,
   partWords,
   type Diagnostic,
   type HandAction,
@@ -27,6 +26,7 @@ import {
 } from '../../core/index.js';
 import { leverStands, type Stands } from '../frame/stands.js';
 import { drawingPage } from '../frame/sheet.js';
+import { FrameDrawings } from '../frame/drawing.js';
 import { shared } from '../styles/shared.js';
 import { appStyles } from './app-styles.js';
 import { VIEWS, codesByState, litStates, parseView, remember, statusWords, withFile, type ViewId } from './app-view.js';
@@ -54,13 +54,6 @@ type Detail<T> = CustomEvent<T>;
  * is shown. It comes back as it was left: the same zoom, scroll and pinned cord.
  */
 const KEPT_VIEWS: readonly ViewId[] = ['parts', 'frame'];
-
-/**
- * Past this many bays the frame is drawn in a task of its own after the view has shown a note
- * saying so (planet, 48 states, has about 600 bays; the largest example under 40): drawing it
- * holds the page for half a second to a second and a half, and the tab should answer first.
- */
-const FRAME_LATER_BAYS = 400;
 
 export class LwApp extends LitElement {
   static override styles = [shared, appStyles];
@@ -99,18 +92,8 @@ export class LwApp extends LitElement {
   );
   private readonly codes = remember(codesByState);
   private readonly lit = remember(litStates);
-  /** The frame in the page's colours: the same drawing as frame.svg (the core's frameSvg). */
-  private readonly frameDrawing = remember(
-    (b: BuildView | undefined): { readonly svg?: string; readonly problem?: string } | undefined => {
-      if (!b) return undefined;
-      try {
-        return { svg: frameSvg(b.build, b.placement, b.profile, { palette: 'screen' }) };
-      } catch (e) {
-        // A fault of the drawing must not take the rest of the page with it: say so in the view.
-        return { problem: e instanceof Error ? e.message : String(e) };
-      }
-    },
-  );
+  /** The frame in the page's colours: the same drawing as frame.svg; a large one's drawn in a worker (frame/drawing.ts). */
+  private readonly frameDrawings = new FrameDrawings(() => this.requestUpdate());
   private readonly partWords = remember((b: BuildView | undefined) => (b ? partWords(b.build) : undefined));
   /** Where every lever on the frame stands in the trial run (the runner's state changes with every step). */
   private readonly stands = remember(
@@ -120,9 +103,6 @@ export class LwApp extends LitElement {
         : undefined,
   );
   private view: ViewId = keepRead('view', parseView) ?? 'sketch';
-  /** The build whose frame is drawn now; a large one's after its note has shown (FRAME_LATER_BAYS). */
-  private frameDue: BuildView | undefined;
-  private frameSoon: BuildView | undefined;
   /** The last template of each kept view shown so far (KEPT_VIEWS), given again while it is away. */
   private readonly kept = new Map<ViewId, unknown>();
 
@@ -367,11 +347,10 @@ export class LwApp extends LitElement {
     const s = this.synth;
     const st = this.stepper;
     const b = s.built;
-    const later = b !== undefined && b !== this.frameDue && b.placement.bays.length > FRAME_LATER_BAYS;
-    if (later) this.drawFrameSoon(b);
+    const drawing = this.frameDrawings.of(b);
     return html`<lw-frame
-      .drawing=${later ? undefined : this.frameDrawing(b)}
-      ?pending=${later}
+      .drawing=${drawing}
+      ?pending=${b !== undefined && drawing === undefined}
       .placement=${b?.placement}
       .words=${this.partWords(b)}
       .stands=${this.stands(st.runner, st.runner?.state, b)}
@@ -402,19 +381,6 @@ export class LwApp extends LitElement {
             </p>`
           : nothing
       }`;
-  }
-
-  /** Draw a large build's frame once the view has painted its note, in a task of its own. */
-  private drawFrameSoon(b: BuildView): void {
-    if (this.frameSoon === b) return;
-    this.frameSoon = b;
-    requestAnimationFrame(() =>
-      setTimeout(() => {
-        if (this.synth.built !== b) return;
-        this.frameDue = b;
-        this.requestUpdate();
-      }),
-    );
   }
 
   /** What the failing checks offer to do about themselves. */

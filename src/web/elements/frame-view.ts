@@ -7,14 +7,18 @@
  * trial run's levers stand on the frame as they stand now: a lever held down hangs below the
  * pivot rail (the one meaning of "down" the trial run's lever drawings have, with their
  * legend's glyphs beside), and the trial run can be stepped from here. Zoom and pan in the box;
- * Print gives frame.svg at its scale.
+ * Print gives frame.svg at its scale. A large drawing comes in piece by piece, one piece per
+ * animation frame (frame/pieces.ts), and the drawing in the page is indexed as it comes
+ * (frame/drawn.ts), so lighting a cord touches only that cord's elements.
  * Events: `step` (as <lw-stepper>), `print-frame`.
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { BranchRoute, PartReading, Placement } from '../../core/index.js';
 import type { Stands } from '../frame/stands.js';
-import { screenSized, svgSizeMm, PX_PER_MM } from '../frame/sheet.js';
+import { DrawnFrame } from '../frame/drawn.js';
+import { drawingPieces, type Piece } from '../frame/pieces.js';
+import { screenSize, screenSized, svgSizeMm, PX_PER_MM } from '../frame/sheet.js';
 import { shared, viewColumn } from '../styles/shared.js';
 import { touchScreen } from '../touch.js';
 import { emit } from './emit.js';
@@ -28,6 +32,12 @@ const START_ZOOM = 1.5;
 /** A box narrower than this (a phone) opens the drawing at the smallest zoom whose text stays readable. */
 const NARROW_PX = 600;
 const MIN_ZOOM = MIN_TEXT_PX / (SMALLEST_TEXT_MM * PX_PER_MM);
+/**
+ * A drawing longer than twice this many characters (a frame of several hundred bays; the
+ * examples' are well under) goes into the page a piece of about this size per animation frame,
+ * each piece parsed, styled and laid out in a frame of its own, so the page never waits long on it.
+ */
+export const PIECE_CHARS = 200_000;
 
 /** A cord branch, as the drawing names it. */
 interface Lit {
@@ -67,12 +77,18 @@ export class LwFrame extends LitElement {
   /** The branch pointed at or focused, and the one tapped (it stays lit until tapped again). */
   private hovered: Lit | undefined;
   private pinned: Lit | undefined;
-  /** The drawing the cords were made focusable in. */
-  private prepared: SVGSVGElement | undefined;
-  /** The drawing sized for the zoom (megabytes of text for a large build: made once per drawing and zoom). */
-  private sized: { readonly svg: string; readonly zoom: number; readonly text: string } | undefined;
+  /** The drawing in the page, indexed for lighting its cords and standing its levers (frame/drawn.ts). */
+  private drawn: DrawnFrame | undefined;
+  /**
+   * The drawing sized for the screen at the zoom it first showed at, as its shell and the pieces
+   * that go into it after (megabytes of text for a large build: made once per drawing; a new
+   * zoom sets the size of the drawing in the page).
+   */
+  private sized: { readonly svg: string; readonly shell: string; readonly pieces: readonly Piece[] } | undefined;
+  /** The pieces of the drawing not yet in the page. */
+  private toCome = 0;
   /** The stands last shown on the drawing: pointing at a cord leaves them as they are. */
-  private standsShown: { readonly root: SVGSVGElement; readonly stands: Stands | undefined } | undefined;
+  private standsShown: Stands | undefined;
   /** The placement the box was last scrolled to the levers for. */
   private scrolledFor: Placement | undefined;
 
@@ -146,7 +162,8 @@ export class LwFrame extends LitElement {
       .sheet path.cord[data-cord]:focus {
         outline: none;
       }
-      .sheet.lighting path.cord:not(.lit) {
+      /* While a cord is lit the others are dimmed: their group as one element (frame/drawn.ts). */
+      .sheet g.cords.veiled {
         opacity: 0.22;
       }
       .sheet path.cord.lit {
@@ -156,6 +173,13 @@ export class LwFrame extends LitElement {
       .sheet path.route.lit {
         visibility: visible;
         stroke-width: 0.9px;
+      }
+      /* The lit branch and its whole path, drawn again above the dimmed cords. */
+      .sheet g.lit-copies path {
+        fill: none;
+        stroke-width: 0.9px;
+        stroke-linejoin: round;
+        pointer-events: none;
       }
       .sheet .end rect,
       .sheet rect.end {
@@ -224,7 +248,7 @@ export class LwFrame extends LitElement {
         <h2>Frame &amp; cords</h2>
         <p class="soft" role="status" data-frame-pending>
           Drawing the frame: ${p.bays.length} bays on ${p.drums.length === 1 ? 'one drum' : `${p.drums.length} drums`}.
-          A frame this large takes a moment, and the page waits while it is drawn.
+          A frame this large is drawn beside the page, which answers meanwhile.
         </p>
       </section>`;
     }
@@ -275,6 +299,13 @@ export class LwFrame extends LitElement {
       >
         ${unsafeSVG(this.sizedText(svg))}
       </div>
+      ${
+        this.toCome > 0
+          ? html`<p class="soft" role="status" data-frame-progress>
+              Still drawing the frame: its cords and bays come in piece by piece, and the page answers meanwhile.
+            </p>`
+          : nothing
+      }
       <p class="readout ${this.lit() ? 'on' : ''}" role="status" aria-live="polite" data-readout>${this.litWords()}</p>
       ${this.legend()}
     </section>`;
@@ -380,77 +411,66 @@ export class LwFrame extends LitElement {
       const box = root.parentElement;
       if (box && box.clientWidth < NARROW_PX) this.setZoom(MIN_ZOOM);
     }
-    if (root !== this.prepared) {
-      this.prepared = root;
-      for (const path of root.querySelectorAll<SVGPathElement>('path.cord[data-cord]')) {
-        path.setAttribute('tabindex', '0');
-        path.setAttribute('role', 'button');
-        path.setAttribute('aria-label', `Cord ${path.querySelector('title')?.textContent ?? ''}`);
-        // A wider, unseen copy over it, so a finger or a pointer finds a cord a fraction of a millimetre thick.
-        const hit = path.cloneNode(true) as SVGPathElement;
-        hit.setAttribute('class', 'hit');
-        for (const a of ['tabindex', 'role', 'aria-label']) hit.removeAttribute(a);
-        hit.setAttribute('aria-hidden', 'true');
-        path.after(hit);
-      }
+    if (this.drawn?.root !== root) {
+      this.drawn = new DrawnFrame(root);
+      this.standsShown = undefined;
+      this.feed(this.drawn, this.sized?.pieces ?? []);
     }
-    if (this.standsShown?.root !== root || this.standsShown.stands !== this.stands) {
-      this.standsShown = { root, stands: this.stands };
-      this.showStands(root);
+    const size = this.sized ? screenSize(this.sized.svg, this.zoom) : undefined;
+    if (size && root.getAttribute('width') !== size.width) root.setAttribute('width', size.width);
+    if (size && root.getAttribute('height') !== size.height) root.setAttribute('height', size.height);
+    if (this.standsShown !== this.stands) {
+      this.standsShown = this.stands;
+      this.drawn.setStands(this.stands);
     }
-    this.showLit(root);
-    if (this.scrolledFor !== this.placement) {
+    this.drawn.light(this.branchOf(this.lit()));
+    if (this.scrolledFor !== this.placement && this.toCome === 0) {
       this.scrolledFor = this.placement;
       this.scrollToLevers(root);
     }
-    // For the browser tests: the zoom, and the size of the drawing's smallest text on screen.
+    // For the browser tests: the zoom, the size of the drawing's smallest text on screen, and whether it is all in.
     this.dataset.zoom = String(this.zoom);
     this.dataset.smallestTextPx = (SMALLEST_TEXT_MM * PX_PER_MM * this.zoom).toFixed(2);
+    this.dataset.drawing = this.toCome > 0 ? 'partial' : 'whole';
+  }
+
+  /**
+   * Put the pieces of a large drawing in, one per animation frame (each parsed apart from the
+   * page and made ready before it goes in), until all are in or the drawing is gone.
+   */
+  private feed(drawn: DrawnFrame, pieces: readonly Piece[]): void {
+    this.toCome = pieces.length;
+    let next = 0;
+    const step = (): void => {
+      // Stop for a drawing replaced, or taken out of the page (a larger build's note shows meanwhile).
+      if (this.drawn !== drawn || !drawn.root.isConnected) return;
+      drawn.put(pieces[next++]);
+      this.toCome = pieces.length - next;
+      // The lit cord's elements may have come in this piece.
+      drawn.light(this.branchOf(this.lit()));
+      if (this.toCome > 0) requestAnimationFrame(step);
+      else this.requestUpdate();
+    };
+    if (pieces.length > 0) requestAnimationFrame(step);
   }
 
   private sizedText(svg: string): string {
-    if (this.sized?.svg !== svg || this.sized.zoom !== this.zoom)
-      this.sized = { svg, zoom: this.zoom, text: screenSized(svg, this.zoom) };
-    return this.sized.text;
+    if (this.sized?.svg !== svg) {
+      const { shell, pieces } = drawingPieces(screenSized(svg, this.zoom), PIECE_CHARS);
+      this.sized = { svg, shell, pieces };
+    }
+    return this.sized.shell;
   }
 
   /** Scroll the box down past the title block, to the bay labels and lever ends of the highest drum. */
   private scrollToLevers(root: SVGSVGElement): void {
     const box = root.parentElement;
     const labels = [...root.querySelectorAll('g[data-part] text')];
-    if (!box || labels.length === 0) return;
+    // A drawing that came in pieces is not moved once the user has scrolled it meanwhile.
+    const scrolled = box !== null && (box.scrollTop > 0 || box.scrollLeft > 0);
+    if (!box || labels.length === 0 || (scrolled && (this.sized?.pieces.length ?? 0) > 0)) return;
     const top = Math.min(...labels.map((t) => t.getBoundingClientRect().top));
     box.scrollTop += top - box.getBoundingClientRect().top - 8;
-  }
-
-  /** Every lever end takes its stand in the trial run (none when the trial run has no machine). */
-  private showStands(root: SVGSVGElement): void {
-    for (const el of root.querySelectorAll('rect.lever[data-part][data-lever]')) {
-      const s = this.stands?.get(el.getAttribute('data-part') ?? '')?.get(el.getAttribute('data-lever') ?? '');
-      if (s) el.setAttribute('data-stand', s);
-      else el.removeAttribute('data-stand');
-    }
-  }
-
-  /** The lit branch, its capstan end (the wraps and the label of the bay that pulls it) and its lever end. */
-  private showLit(root: SVGSVGElement): void {
-    for (const el of root.querySelectorAll('.lit, .end')) el.classList.remove('lit', 'end', 'from', 'to');
-    const l = this.lit();
-    const b = this.branchOf(l);
-    if (!l || !b) return;
-    const lever = b.kind === 'port' ? b.target.slice(b.part.length + 1) : 'exit';
-    for (const el of root.querySelectorAll('[data-cord]'))
-      if (el.getAttribute('data-cord') === l.cord && el.getAttribute('data-target') === l.target)
-        el.classList.add('lit');
-    for (const el of root.querySelectorAll('path.route'))
-      if (el.getAttribute('data-route-cord') === l.cord && el.getAttribute('data-route-target') === l.target)
-        el.classList.add('lit');
-    for (const el of root.querySelectorAll('[data-part]:not([data-cord])')) {
-      const part = el.getAttribute('data-part');
-      const at = el.getAttribute('data-lever');
-      if (part === b.driver && at === null) el.classList.add('end', 'from');
-      if (part === b.part && (at === null ? el.localName === 'g' : at === lever)) el.classList.add('end', 'to');
-    }
   }
 
   private static branchAt(e: Event): Lit | undefined {

@@ -67,16 +67,25 @@ export function drawingPage(svg: string, title: string): string {
 export const PX_PER_MM = 96 / 25.4;
 
 /**
- * A drawing sized in millimetres, sized for the screen at `zoom` × its paper size (1: a
- * millimetre on paper is a CSS millimetre), in CSS pixels; its viewBox, and so its picture, kept.
+ * The size on screen, in whole CSS pixels, of a drawing sized in millimetres at `zoom` × its
+ * paper size (1: a millimetre on paper is a CSS millimetre); undefined when it has no size in millimetres.
+ */
+export function screenSize(svg: string, zoom: number): { readonly width: string; readonly height: string } | undefined {
+  const size = svgSizeMm(svg);
+  const px = (mm: number): string => String(Math.round(mm * PX_PER_MM * zoom));
+  return size ? { width: px(size.w), height: px(size.h) } : undefined;
+}
+
+/**
+ * A drawing sized in millimetres, sized for the screen at `zoom` (screenSize), in CSS pixels;
+ * its viewBox, and so its picture, kept.
  */
 export function screenSized(svg: string, zoom: number): string {
-  const size = svgSizeMm(svg);
+  const size = screenSize(svg, zoom);
   const inline = svg.replace(/^<\?xml[^>]*\?>\s*/, '');
   if (!size) return inline;
-  const px = (mm: number): string => String(Math.round(mm * PX_PER_MM * zoom));
   return inline.replace(
     /^(<svg\b[^>]*?) width="[\d.]+mm" height="[\d.]+mm"/,
-    `$1 width="${px(size.w)}" height="${px(size.h)}"`,
+    `$1 width="${size.width}" height="${size.height}"`,
   );
 }
