@@ -16,7 +16,8 @@
  *
  * A large machine (scf from LGSynth'91, 121 states, pasted in its JSON form through the
  * clipboard as a user pastes it): paste → first build shown (the draft) and → final build,
- * against the same build in Node; then every view switched to, timed in the page from the
+ * against the same build in Node, and from the final build shown to every check done against
+ * every check of that build in Node; then every view switched to, timed in the page from the
  * click on its tab to the second animation frame after it drew (for Parts & forces, after the
  * schematic the checker draws arrived), the first time and again after another view, against
  * the drawing itself made in Node (frameSvg, schematicSvg of the same build): the page keeps
@@ -40,7 +41,7 @@ import { frameSvg, machineFromJson, printTextMachine, schematicSvg } from '../sr
 import { buildDesigner } from '../src/web/browser.js';
 import { serveStatic } from '../src/web/serve.js';
 import { machineHash } from '../src/web/controllers/link.js';
-import { buildJob, readJob } from '../src/web/worker/jobs.js';
+import { buildJob, checkJob, readJob } from '../src/web/worker/jobs.js';
 import { DEFAULT_SETTINGS } from '../src/web/worker/protocol.js';
 import { launchChromium } from '../tests/web/chromium.js';
 import { ms, type BenchRow } from './row.js';
@@ -233,7 +234,7 @@ interface LargeFigures {
   readonly checked: number;
   /** Per view: the first switch to it and a switch back to it after another view. */
   readonly views: Readonly<Record<string, { first: number; again: number }>>;
-  readonly ref: { draft: number; build: number; frame: number; schematic: number };
+  readonly ref: { draft: number; build: number; checks: number; frame: number; schematic: number };
 }
 
 /** The large machine pasted, built and every view drawn; its references in Node. */
@@ -248,9 +249,13 @@ async function largeMachine(browser: Browser, base: string): Promise<LargeFigure
   buildJob(r.analysed, binary, undefined, undefined, 'stand-in');
   const draft = performance.now() - t;
   t = performance.now();
-  const b = buildJob(readJob(json, 'scf.json').analysed ?? r.analysed, DEFAULT_SETTINGS).view;
+  const made = buildJob(readJob(json, 'scf.json').analysed ?? r.analysed, DEFAULT_SETTINGS);
   const build = performance.now() - t;
-  if (!b) throw new Error(`${LARGE} does not build`);
+  const b = made.view;
+  if (!b || !made.built) throw new Error(`${LARGE} does not build`);
+  t = performance.now();
+  checkJob(made.built, DEFAULT_SETTINGS.seed);
+  const checks = performance.now() - t;
   t = performance.now();
   frameSvg(b.build, b.placement, b.profile, { palette: 'screen' });
   const frame = performance.now() - t;
@@ -297,7 +302,7 @@ async function largeMachine(browser: Browser, base: string): Promise<LargeFigure
       final,
       checked,
       views,
-      ref: { draft, build, frame, schematic },
+      ref: { draft, build, checks, frame, schematic },
     };
   } finally {
     await ctx.close();
@@ -326,6 +331,13 @@ function largeRows(f: LargeFigures): WebRow[] {
       figure: ms(f.checked),
       reference: '—',
       ratio: '—',
+      goal: '—',
+    },
+    {
+      name: `designer: final build shown → every check done, ${f.name}`,
+      figure: ms(f.checked - f.final),
+      reference: `every check of the same build in Node ${ms(f.ref.checks)} (the checker is handed the build, and builds nothing)`,
+      ratio: `${((f.checked - f.final) / f.ref.checks).toFixed(1)}×`,
       goal: '—',
     },
   ];

@@ -1,10 +1,10 @@
 /**
  * The synthesis worker. The page runs several, each for one kind of job, so that slow work
  * never stands in front of fast work: a reader (read + sketch layout, every keystroke), a
- * builder (encode + synthesise), a checker (every check; on request the schematic and the
- * build documents)
- * and a searcher (every encoding priced). Jobs go stage by stage, yielding between stages so
- * a newer job of the same kind can overtake; every answer carries the page revision it is for.
+ * builder (encode + synthesise), a checker (every check of the builder's build, which the page
+ * hands over; on request the schematic and the build documents) and a searcher (every encoding
+ * priced). Jobs go stage by stage, yielding between stages so a newer job of the same kind can
+ * overtake; every answer carries the page revision it is for.
  * A worker busy on stale work is cancelled by the page, which terminates it and starts another.
  */
 import {
@@ -21,6 +21,7 @@ import {
   buildJob,
   buildKey,
   buildOptions,
+  builtForChecks,
   checkedAgain,
   checkJob,
   checkKey,
@@ -29,6 +30,7 @@ import {
   readJob,
   settle,
   standInSettings,
+  toRemember,
 } from './worker/jobs.js';
 import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
@@ -51,6 +53,12 @@ interface Running {
   done: Promise<EncodeResult | undefined>;
 }
 let running: Running | undefined;
+/**
+ * The latest draft made, under its search setup's key: a newer job of the same setup that
+ * arrives before the search starts (the file name following the machine's name after a paste,
+ * a comment typed) takes it again rather than build it twice.
+ */
+let drafted: { readonly key: string; readonly draft: Draft | undefined } | undefined;
 /** The last final build posted, under its build key (jobs.ts `buildKey`), and how many of its diagnostics were its reading's. */
 let last: { key: string; view: BuildView; read: number } | undefined;
 
@@ -93,14 +101,18 @@ async function build(m: Extract<ToWorker, { kind: 'build' }>): Promise<void> {
     if (plan.kind === 'named') return finish(m.rev, a, key, buildJob(a, m.settings));
     return finish(m.rev, a, key, buildJob(a, m.settings, undefined, plan.outcome, 'remembered'), searched);
   }
-  const draft = running?.key === plan.key ? redraft(running.draft, a) : makeDraft(a, m, plan.setup);
+  const made = running?.key === plan.key ? running : drafted?.key === plan.key ? drafted : undefined;
+  const draft = made ? redraft(made.draft, a) : makeDraft(a, m, plan.setup);
+  drafted = { key: plan.key, draft };
   if (draft) post({ kind: 'draft', rev: m.rev, view: draft.view });
   await turn();
   if (stale(m.kind, m.rev)) return;
   const searched = await search(a, m, plan.key, draft);
   if (stale(m.kind, m.rev)) return;
+  if (drafted?.key === plan.key) drafted = undefined; // the final build replaces it
+  // The outcome with what the search kept of pricing these codes; the page keeps it without.
   const b = buildJob(a, m.settings, undefined, searched);
-  finish(m.rev, a, key, b, searched ? { key: plan.key, outcome: searched } : undefined);
+  finish(m.rev, a, key, b, searched ? toRemember(plan.key, searched) : undefined);
 }
 
 /** A draft: the build with stand-in codes, and how many of its diagnostics are the reading's. */
@@ -116,9 +128,10 @@ function makeDraft(a: Analysed, m: Extract<ToWorker, { kind: 'build' }>, setup: 
 }
 
 /**
- * The draft of the search under way, for a newer text with the same setup (a comment typed
- * while it runs): the same build, with the new reading's diagnostics (their lines may have
- * moved). Building it again would only hold the search up.
+ * The draft made for the same setup (the search under way, or the latest draft), for a newer
+ * text (a comment typed, the file name following the machine's name): the same build, with the
+ * new reading's diagnostics (their lines may have moved). Building it again would only hold the
+ * search up.
  */
 function redraft(d: Draft | undefined, a: Analysed): Draft | undefined {
   if (!d) return undefined;
@@ -214,17 +227,16 @@ async function run(m: ToWorker): Promise<void> {
         post({ kind: 'checked', rev: m.rev, view: checked.view });
         return;
       }
-      const b = a.ok ? buildJob(a, m.settings) : undefined;
-      if (!b?.built) {
+      if (!a.ok) {
         post({
           kind: 'fault',
           rev: m.rev,
-          message: 'the machine built for the page did not build again for its checks',
+          message: 'the machine built for the page did not read again for its checks',
         });
         return;
       }
-      const c = checkJob(b.built, m.settings.seed);
-      checked = { rev: m.rev, built: c.built, key, read: a.ok ? a.diagnostics.length : 0, view: c.view };
+      const c = checkJob(builtForChecks(a, m.made), m.settings.seed);
+      checked = { rev: m.rev, built: c.built, key, read: a.diagnostics.length, view: c.view };
       post({ kind: 'checked', rev: m.rev, view: c.view });
       return;
     }

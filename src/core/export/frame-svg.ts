@@ -443,7 +443,9 @@ function riseShifts(s: Sheet, placement: Placement, f: Profile['frame']): Map<Br
   const byLever = new Map<string, BranchRoute[]>();
   for (const b of placement.routing.branches) {
     const key = `${b.part}\u0000${leverOf(b)}`;
-    byLever.set(key, [...(byLever.get(key) ?? []), b]);
+    const list = byLever.get(key);
+    if (list) list.push(b);
+    else byLever.set(key, [b]);
   }
   const bays = new Map(placement.bays.map((b) => [b.part, b]));
   const out = new Map<BranchRoute, number>();

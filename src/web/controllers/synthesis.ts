@@ -157,6 +157,8 @@ export class SynthesisController implements ReactiveController {
   private text = '';
   private file = '';
   private pricedText: string | undefined;
+  /** The text and settings of the latest build job. */
+  private sentBuild: { readonly text: string; readonly settings: BuildSettings } | undefined;
   private drawn = -1;
   private readonly exports = new Map<string, (f: ExportFile | string) => void>();
 
@@ -222,7 +224,11 @@ export class SynthesisController implements ReactiveController {
     this.reader.send({ kind: 'read', rev, text, file });
     // Checks of an older build are no use now; stopping them frees the processor.
     if (!this.checker.idle) this.checker.restart();
-    if (this.builder.staleFor(rev) > BUILD_PATIENCE_MS) this.builder.restart();
+    // A build of the same text and settings is no stale work (the file name following the
+    // machine's name after a paste): the builder's draft and search serve the new job too.
+    const same = this.sentBuild?.text === text && this.sentBuild.settings === this.settings;
+    if (!same && this.builder.staleFor(rev) > BUILD_PATIENCE_MS) this.builder.restart();
+    this.sentBuild = { text, settings: this.settings };
     const b = this.built?.build;
     this.builder.send({
       kind: 'build',
@@ -357,7 +363,7 @@ export class SynthesisController implements ReactiveController {
         this.told.built?.(m.view);
         // The checker's current work, if any, is for an older build.
         if (!this.checker.idle) this.checker.restart();
-        // The checker builds again with the codes the builder chose, so a code search is not repeated.
+        // The checker checks this build (no second build); its key names the codes the builder chose.
         this.checker.send({
           kind: 'check',
           rev: m.rev,
@@ -366,6 +372,12 @@ export class SynthesisController implements ReactiveController {
           settings: {
             ...this.settings,
             encoding: { kept: m.view.build.encoding, states: m.view.build.machine.states },
+          },
+          made: {
+            build: m.view.build,
+            placement: m.view.placement,
+            profile: m.view.profile,
+            diagnostics: m.view.diagnostics,
           },
         });
         break;

@@ -31,6 +31,7 @@ import { layoutDiagram } from '../diagram/layout.js';
 import type {
   BuildSettings,
   BuildView,
+  BuiltForChecks,
   ChecksView,
   CodeRow,
   CodesFrom,
@@ -185,6 +186,17 @@ export function checkedAgain(b: Built, read: number, a: Analysed): Built {
 }
 
 /**
+ * A search outcome as the page keeps it, under its setup's key: without the minimisations the
+ * search kept of pricing the chosen codes (`EncodeResult.kept`, a hundred kilobytes for a large
+ * machine), since the page posts what it keeps with every build job. A build from it is the same
+ * build; it only minimises those functions itself.
+ */
+export function toRemember(key: string, outcome: EncodeResult): RememberedSearch {
+  const { kept: _kept, ...rest } = outcome;
+  return { key, outcome: rest };
+}
+
+/**
  * The settings of a draft build while the search runs: the codes of the build shown before
  * when they are for the same states and keep every pinned code, else counting order (which
  * keeps pins itself).
@@ -249,6 +261,23 @@ export function buildJob(
     codesFrom,
   };
   return { view, built: b, diagnostics: b.diagnostics };
+}
+
+/**
+ * The build the checker checks: the builder's (as the page received it) with the checker's own
+ * reading of the same text, which the checks compare it with. The search report is left out,
+ * as a build with kept codes has none.
+ */
+export function builtForChecks(a: Analysed, made: BuiltForChecks): Built {
+  return {
+    ok: true,
+    analysed: a,
+    build: made.build,
+    placement: made.placement,
+    profile: made.profile,
+    checks: [],
+    diagnostics: made.diagnostics,
+  };
 }
 
 /** Run every check of a build; returns the checked build and the page's view of it. */

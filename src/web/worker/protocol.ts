@@ -1,8 +1,9 @@
 /**
  * Messages between the page and the synthesis workers. Everything crossing is plain data
- * (structured clone), and as little as the page needs: the worker that checks builds the
- * machine again from the text (the same text and settings give the same build) rather than
- * have a whole build copied through the page's thread.
+ * (structured clone), and as little as the page needs. The worker that checks is handed the
+ * build the page was sent (its netlist and placement, `BuiltForChecks`) rather than build the
+ * machine again from the text: for a large machine a second build costs the checker a second
+ * or more, the copy a few tens of milliseconds of the page's thread.
  *
  * A page revision (`rev`) travels with every job and every answer: the page drops answers for
  * a revision it has moved past, and the worker skips stages of a job a newer one replaced.
@@ -115,6 +116,9 @@ export interface BuildView {
   readonly standIn?: StandIn;
 }
 
+/** The part of a build view the checker checks: the builder's build as the page received it. */
+export type BuiltForChecks = Pick<BuildView, 'build' | 'placement' | 'profile' | 'diagnostics'>;
+
 /** One capstan's force margin, named for people: the kind of part and what it does, in words. */
 export interface MarginBar {
   readonly driver: string;
@@ -201,7 +205,10 @@ export type ToWorker =
       readonly rev: number;
       readonly text: string;
       readonly file: string;
+      /** The settings with the build's codes kept (the key of the checks, jobs.ts `checkKey`). */
       readonly settings: BuildSettings;
+      /** The build to check: the builder's, for this revision. */
+      readonly made: BuiltForChecks;
     }
   | {
       readonly kind: 'compare';

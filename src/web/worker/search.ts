@@ -4,8 +4,9 @@
  * itself and hands others to a helper worker (../search-worker.ts), one at a time, and merges
  * the results in task order — the same answer as the core's own search for the same seed.
  * Progress is reported as the tasks finish. Without Worker support it all runs here. The
- * outcome leaves out what the search kept of pricing the codes (`EncodeResult.kept`): the page
- * keeps outcomes and posts them with every build.
+ * outcome carries what the search kept of pricing the chosen codes (`EncodeResult.kept`), so the
+ * builder's final build does not minimise those functions again; what the page keeps leaves it
+ * out (jobs.ts `toRemember`).
  */
 import {
   planBuildSearch,
@@ -60,10 +61,7 @@ export async function searchOnTwoCores(
     if (!results || stale()) return undefined;
     plan.accept(results);
   }
-  // The page keeps outcomes and posts them with every build, so they stay small: without the
-  // minimisations the search kept (`kept`), which the build would only have reused.
-  const { kept: _kept, ...outcome } = searchOutcome(plan, diagnostics);
-  return outcome;
+  return searchOutcome(plan, diagnostics);
 }
 
 /** One batch: the helper takes the next task whenever it is free, this worker the rest. */

@@ -11,7 +11,13 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { machineFromJson, netlistJson, printTextMachine, type Analysed } from '../../../src/core/index.js';
+import {
+  machineFromJson,
+  netlistJson,
+  printTextMachine,
+  type Analysed,
+  type EncodeResult,
+} from '../../../src/core/index.js';
 import { SearchMemory } from '../../../src/web/controllers/search-memory.js';
 import {
   againFor,
@@ -23,6 +29,7 @@ import {
   codesPlan,
   readJob,
   standInSettings,
+  toRemember,
 } from '../../../src/web/worker/jobs.js';
 import { searchOnTwoCores } from '../../../src/web/worker/search.js';
 import { buildOptions } from '../../../src/web/worker/jobs.js';
@@ -46,16 +53,23 @@ function analysed(text: string): Analysed {
 const netlist = (v: BuildView | undefined): string | undefined =>
   v && netlistJson(v.build, { placement: v.placement, profile: v.profile });
 
-/** Search as the builder does (here without a helper worker), remember the outcome as the page does. */
-async function searchAndRemember(a: Analysed, memory: SearchMemory): Promise<RememberedSearch> {
+/**
+ * Search as the builder does (here without a helper worker), remember the outcome as the page
+ * does; also the whole outcome, with which the builder makes its final build.
+ */
+async function searchAndRemember(
+  a: Analysed,
+  memory: SearchMemory,
+): Promise<RememberedSearch & { readonly whole: EncodeResult }> {
   const plan = codesPlan(a, DEFAULT_SETTINGS, memory.entries());
   if (plan.kind !== 'search') throw new Error(`expected a search, got ${plan.kind}`);
-  const outcome = await searchOnTwoCores(a, buildOptions(DEFAULT_SETTINGS));
-  if (!outcome) throw new Error('the search must finish');
-  // The outcome crosses to the page and back by structured clone.
-  const kept = structuredClone({ key: plan.key, outcome });
+  const whole = await searchOnTwoCores(a, buildOptions(DEFAULT_SETTINGS));
+  if (!whole) throw new Error('the search must finish');
+  // The outcome crosses to the page and back by structured clone, without the search's minimisations.
+  const kept = structuredClone(toRemember(plan.key, whole));
+  expect('kept' in kept.outcome).toBe(false);
   memory.remember(kept);
-  return kept;
+  return { ...kept, whole };
 }
 
 const machines = [
@@ -86,6 +100,9 @@ describe('src/web/worker/jobs (remembered search outcomes)', () => {
       expect(buildKey(typed, DEFAULT_SETTINGS)).toBe(buildKey(original, DEFAULT_SETTINGS));
       const before = buildJob(original, DEFAULT_SETTINGS, undefined, kept.outcome, 'remembered').view;
       if (!before) throw new Error('must build');
+      // The builder's own final build, from the whole outcome (the minimisations the search kept
+      // seed its memo): the same netlist as from the outcome the page keeps.
+      expect(netlist(buildJob(original, DEFAULT_SETTINGS, undefined, kept.whole).view)).toBe(netlist(before));
       expect(againFor(before, original.diagnostics.length, typed, DEFAULT_SETTINGS, 'remembered')).toEqual(reused);
       // The checker's last checked build, taken again for the typed text: the same as checking afresh.
       const kept2 = {
