@@ -26,11 +26,13 @@ import {
   type EncodingChoice,
   type ExportFile,
   type FromWorker,
+  type ProfileSetting,
   type Reading,
 } from '../worker/protocol.js';
 import { keepDrop, keepRead, keepSet, parseJson } from './keep.js';
 import { Lane } from './lane.js';
 import { SearchMemory } from './search-memory.js';
+import { parseStoredProfile } from './workshop.js';
 
 /** Where the live work on the latest text stands. */
 export const Work = {
@@ -103,6 +105,7 @@ export function commandLine(file: string, s: BuildSettings): string {
     words.push('--encoding', s.encoding.strategy);
   if (s.unusedCodes !== undefined) words.push('--unused', quote(s.unusedCodes));
   if (s.seed !== d.seed) words.push('--seed', String(s.seed));
+  if (s.profile) words.push('--profile', quote(s.profile.name));
   return words.join(' ');
 }
 
@@ -113,7 +116,8 @@ export function isDefault(s: BuildSettings): boolean {
     'strategy' in DEFAULT_SETTINGS.encoding &&
     s.encoding.strategy === DEFAULT_SETTINGS.encoding.strategy &&
     s.seed === DEFAULT_SETTINGS.seed &&
-    s.unusedCodes === undefined
+    s.unusedCodes === undefined &&
+    s.profile === undefined
   );
 }
 
@@ -176,10 +180,12 @@ export class SynthesisController implements ReactiveController {
     host.addController(this);
     const encoding = keepRead('encoding', parseChoice);
     const unused = keepRead('unused', parseUnused);
+    const profile = keepRead('profile', parseStoredProfile);
     this.settings = {
       ...DEFAULT_SETTINGS,
       ...(encoding ? { encoding } : {}),
       ...(unused !== undefined ? { unusedCodes: unused } : {}),
+      ...(profile ? { profile } : {}),
     };
   }
 
@@ -256,9 +262,13 @@ export class SynthesisController implements ReactiveController {
     this.submit(this.text, this.file);
   }
 
-  /** Back to the command line's defaults (the searched codes, unused codes chosen automatically). */
+  /**
+   * Back to the command line's defaults for the codes (the searched codes, unused codes chosen
+   * automatically). The workshop's profile stays: it describes the workshop, not this build.
+   */
   useDefaults(): void {
-    this.settings = DEFAULT_SETTINGS;
+    const profile = this.settings.profile;
+    this.settings = profile ? { ...DEFAULT_SETTINGS, profile } : DEFAULT_SETTINGS;
     keepDrop('encoding');
     keepDrop('unused');
     this.submit(this.text, this.file);
@@ -270,6 +280,15 @@ export class SynthesisController implements ReactiveController {
     this.settings = to === undefined ? rest : { ...rest, unusedCodes: to };
     if (to === undefined) keepDrop('unused');
     else keepSet('unused', to);
+    this.submit(this.text, this.file);
+  }
+
+  /** Build with the workshop's own technology profile (one that loads without errors), or the shipped defaults. */
+  setProfile(p: ProfileSetting | undefined): void {
+    const { profile: _, ...rest } = this.settings;
+    this.settings = p ? { ...rest, profile: p } : rest;
+    if (p) keepSet('profile', JSON.stringify(p));
+    else keepDrop('profile');
     this.submit(this.text, this.file);
   }
 
