@@ -1,6 +1,6 @@
 /**
  * <lw-app>: the designer's shell. The bench (the text) on the left; on the right the view
- * chosen from the tabs — sketch, ledger, code book, parts & forces, frame & cords, trial run, workshop (VIEWS in
+ * chosen from the tabs — sketch, ledger, code book, parts & forces, frame & cords, trial run, shop (VIEWS in
  * app-view.ts, each drawn by its entry in `views` below). It owns the controllers and routes
  * the elements' events to them; it holds no state of its own beyond which view is showing and
  * what it keeps drawn of the views that are not (KEPT_VIEWS).

@@ -54,6 +54,7 @@ export class LwWorkshop extends LitElement {
         margin: 0;
         padding: 0.5rem 0.7rem 0.7rem;
         display: grid;
+        align-content: start;
         gap: 0.3rem;
         min-width: 0;
       }
