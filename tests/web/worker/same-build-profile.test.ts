@@ -13,7 +13,7 @@ import { join } from 'node:path';
 import { strFromU8, unzipSync } from 'fflate';
 import { loadProfile, netlistJson } from '../../../src/core/index.js';
 import { exportFile } from '../../../src/web/worker/exports.js';
-import { buildJob, checkJob, readJob } from '../../../src/web/worker/jobs.js';
+import { buildJob, buildKey, checkJob, codesPlan, readJob } from '../../../src/web/worker/jobs.js';
 import { profileFileText } from '../../../src/web/worker/profile-file.js';
 import { ALL_DOCUMENTS, DEFAULT_SETTINGS, type BuildSettings } from '../../../src/web/worker/protocol.js';
 import { EXAMPLES, examplePath, removeTempDirs, run, tempDir } from '../../cli/support.js';
@@ -52,6 +52,18 @@ describe('src/web/worker (the same build as the command line, with a profile of 
           .join('; ')}`,
       ).toBe(cli.code);
     });
+
+  it('never takes codes searched for the shipped profile: the search setup key names the profile', () => {
+    const file = examplePath('marble-bell');
+    const a = readJob(readFileSync(file, 'utf8'), file).analysed;
+    if (!a) throw new Error('marble-bell must read');
+    const plain = codesPlan(a, DEFAULT_SETTINGS);
+    const own = codesPlan(a, settings);
+    if (plain.kind !== 'search' || own.kind !== 'search') throw new Error('the default encoding searches');
+    expect(own.key).not.toBe(plain.key);
+    expect(codesPlan(a, settings, [{ key: plain.key, outcome: { diagnostics: [] } }]).kind).toBe('search');
+    expect(buildKey(a, settings)).not.toBe(buildKey(a, DEFAULT_SETTINGS));
+  });
 
   it('puts the profile file in the archive of every document; the core reads it back to the same profile', () => {
     const file = examplePath('marble-bell');
