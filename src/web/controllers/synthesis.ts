@@ -161,6 +161,8 @@ export class SynthesisController implements ReactiveController {
   private text = '';
   private file = '';
   private pricedText: string | undefined;
+  /** The profile the comparison was priced with (its rows are for that workshop only). */
+  private pricedProfile: ProfileSetting | undefined;
   /** The text and settings of the latest build job. */
   private sentBuild: { readonly text: string; readonly settings: BuildSettings } | undefined;
   private drawn = -1;
@@ -245,7 +247,7 @@ export class SynthesisController implements ReactiveController {
       known: this.memory.entries(),
       ...(b ? { previous: { encoding: b.encoding, states: b.machine.states } } : {}),
     });
-    if (this.search === Search.running && text !== this.pricedText) this.cancelSearch();
+    if (this.search === Search.running && !this.pricedNow) this.cancelSearch();
     this.host.requestUpdate();
   }
 
@@ -302,13 +304,19 @@ export class SynthesisController implements ReactiveController {
 
   /** The comparison shown was priced for the text as it is now. */
   get rowsCurrent(): boolean {
-    return this.search === Search.done && this.pricedText === this.text;
+    return this.search === Search.done && this.pricedNow;
+  }
+
+  /** The comparison is for the text and the profile as they are now. */
+  private get pricedNow(): boolean {
+    return this.pricedText === this.text && this.pricedProfile === this.settings.profile;
   }
 
   /** Price every encoding of the latest text. */
   compare(): void {
     this.searcher.restart();
     this.pricedText = this.text;
+    this.pricedProfile = this.settings.profile;
     this.search = Search.running;
     this.progress = undefined;
     this.searcher.send({ kind: 'compare', rev: this.rev, text: this.text, file: this.file, settings: this.settings });
@@ -452,7 +460,7 @@ export class SynthesisController implements ReactiveController {
     if (this.search !== Search.running) return;
     if (m.kind === 'progress') this.progress = { done: m.done, total: m.total, best: m.best };
     else if (m.kind === 'compared') {
-      if (this.pricedText !== this.text) return;
+      if (!this.pricedNow) return;
       this.rows = m.rows;
       this.shown.rows = m.rev;
       this.search = Search.done;
