@@ -292,7 +292,12 @@ export class LwApp extends LitElement {
           .layout=${r.layout}
           .codes=${this.codes(r, this.synth.built)}
           .lit=${this.lit(r, this.stepper.reading?.state ?? null)}
+          .machine=${r.machine}
+          .text=${this.source.text}
+          ?frozen=${this.stale || this.synth.work === Work.reading}
           @reveal=${this.onReveal}
+          @text-edit=${this.onTextEdit}
+          @undo=${this.onUndo}
         ></lw-diagram>`
       : html`<p class="soft">The sketch appears when the machine reads without errors.</p>`;
   }
@@ -307,7 +312,8 @@ export class LwApp extends LitElement {
       .codes=${this.codes(r, s.built)}
       .merged=${r?.merged ?? {}}
       @reveal=${this.onReveal}
-      @text-edit=${(e: Detail<{ edit: TextEdit }>) => this.source.edit(applyEdit(this.source.text, e.detail.edit))}
+      @text-edit=${this.onTextEdit}
+      @undo=${this.onUndo}
     ></lw-state-table>`;
   }
 
@@ -447,8 +453,21 @@ export class LwApp extends LitElement {
     return this.renderRoot.querySelector('lw-notation-card');
   }
 
+  private bench(): LwBench | null {
+    return this.renderRoot.querySelector<LwBench>('lw-bench');
+  }
+
   private onReveal = (e: Detail<{ line: number; column: number; select?: boolean }>): void => {
-    this.renderRoot.querySelector<LwBench>('lw-bench')?.reveal(e.detail.line, e.detail.column, e.detail.select ?? true);
+    this.bench()?.reveal(e.detail.line, e.detail.column, e.detail.select ?? true);
+  };
+
+  private onUndo = (e: Detail<{ again: boolean }>): void => this.bench()?.undo(e.detail.again);
+
+  /** An edit from the ledger or the sketch: typed into the text by the bench, so the text's undo takes it back. */
+  private onTextEdit = (e: Detail<{ edit: TextEdit }>): void => {
+    const bench = this.bench();
+    if (bench) bench.applyEdit(e.detail.edit);
+    else this.source.edit(applyEdit(this.source.text, e.detail.edit));
   };
 
   private onStep = (e: Detail<{ do: string; input?: string; value?: 0 | 1 }>): void => {

@@ -12,6 +12,7 @@ import { EXAMPLES } from '../examples.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
 import type { LwEditor } from './editor.js';
+import type { TextEdit } from '../controllers/table-edit.js';
 import './editor.js';
 import './problems.js';
 
@@ -193,6 +194,16 @@ export class LwBench extends LitElement {
   /** Show a line and column of the text (selecting the word there unless told not to). */
   reveal(line: number, column: number, select = true): void {
     this.renderRoot.querySelector<LwEditor>('lw-editor')?.reveal(line, column, select);
+  }
+
+  /** Make an edit of the text as if typed (the editor's undo takes it back). */
+  applyEdit(edit: TextEdit): void {
+    this.renderRoot.querySelector<LwEditor>('lw-editor')?.applyEdit(edit);
+  }
+
+  /** Take back the last edit of the text, or (`again`) make the last one taken back again. */
+  undo(again = false): void {
+    this.renderRoot.querySelector<LwEditor>('lw-editor')?.undo(again);
   }
 
   private onFile = (e: Event): void => {

@@ -6,18 +6,31 @@
  * clicking a transition label does the same for the transition. Fit never shrinks the text
  * below MIN_LABEL_PX: a sketch too big for the view at that size is shown from its start
  * state, and the rest is a drag (or a swipe) away.
- * Events: `reveal` {line, column}.
+ *
+ * The sketch is also drawn on (a machine in the text form, while its text reads): a new state
+ * (double-click the canvas, the New state button, or N), a transition (drag a state's dot onto
+ * a state, or T and then the arrow keys), a guard, a name or outputs changed in place
+ * (double-click, or the keys of docs/designer.md), a state made the start, an item deleted.
+ * Each becomes one small edit of the text (controllers/sketch-draw.ts), which the bench types
+ * into the text so its undo takes it back; the sketch redraws from the text as always, and
+ * when the states are mostly the same ones it keeps them where they were on screen (keepView).
+ * The SVG itself is drawn by sketch-svg.ts, the inline field and the actions by sketch-field.ts.
+ * Events: `reveal` {line, column}, `text-edit` {edit}, `undo` {again}.
  */
 import { LitElement, html, nothing, type PropertyValues } from 'lit';
-import { curveBasis, line, select, zoom, zoomIdentity, type Selection, type ZoomBehavior } from 'd3';
+import { pointer, select, zoom, zoomIdentity, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
+import type { Machine } from '../../core/index.js';
 import type { DiagramLayout, LaidEdge, LaidNode } from '../diagram/layout.js';
-import { LINE_H } from '../diagram/layout.js';
+import { SketchDraw, type FieldKind, type Picked, type Spot } from '../controllers/sketch-draw.js';
+import type { TextEdit } from '../controllers/table-edit.js';
+import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
+import { drawEdges, drawMarks, drawNodes, lineIndex } from './sketch-svg.js';
+import { keptView } from '../diagram/view.js';
+import { labelKey, sketchKey, stateKey, targetKey } from './sketch-keys.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
 import { emit } from './emit.js';
 import { touchScreen } from '../touch.js';
-
-type G = Selection<SVGGElement, unknown, null, undefined>;
 
 /** The sketch's text is 12 px at scale 1; Fit keeps it at least this big on screen. */
 export const MIN_LABEL_PX = 10;
@@ -36,12 +49,27 @@ export class LwDiagram extends LitElement {
     layout: { attribute: false },
     codes: { attribute: false },
     lit: { attribute: false },
+    machine: { attribute: false },
+    text: { attribute: false },
+    frozen: { type: Boolean },
   };
   declare layout: DiagramLayout | undefined;
   /** Code of each state, by state name (from the build). */
   declare codes: Readonly<Record<string, string>>;
   /** States to light (the machine is in one of them). */
   declare lit: ReadonlySet<string>;
+  /** The machine drawn, with the places its parts were written (drawing needs them). */
+  declare machine: Machine | undefined;
+  /** The text the machine was read from. */
+  declare text: string;
+  /** The machine shown is not (yet) the text's current version: drawing waits. */
+  declare frozen: boolean;
+
+  private readonly draw = new SketchDraw(this);
+  /** A state to give the focus to once it is drawn (after a rename or a new state). */
+  private focusDue: string | undefined;
+  /** Where the field shown was opened (a new spot is a new field, which takes the focus). */
+  private fieldAt: Spot | undefined;
 
   private zoomer: ZoomBehavior<SVGSVGElement, unknown> | undefined;
   private shape = '';
@@ -53,6 +81,24 @@ export class LwDiagram extends LitElement {
     this.layout = undefined;
     this.codes = {};
     this.lit = new Set();
+    this.machine = undefined;
+    this.text = '';
+    this.frozen = false;
+  }
+
+  override connectedCallback(): void {
+    super.connectedCallback();
+    this.addEventListener('keydown', this.onKey);
+  }
+
+  override disconnectedCallback(): void {
+    this.removeEventListener('keydown', this.onKey);
+    super.disconnectedCallback();
+  }
+
+  /** The machine can be drawn on: it is in the text form (its parts have lines). */
+  get drawable(): boolean {
+    return this.machine?.loc?.line !== undefined && this.layout !== undefined;
   }
 
   static override styles = [shared, diagramStyles];
@@ -60,17 +106,36 @@ export class LwDiagram extends LitElement {
   override render() {
     const n = this.layout?.nodes.length ?? 0;
     const touch = touchScreen();
-    const hint = touch
-      ? 'drag to move · pinch to zoom · tap a state to find it in the text'
-      : 'drag to pan · wheel to zoom · click a state to find it in the text';
+    const hint = this.hint(touch);
+    const m = this.machine;
+    const d = this.draw;
+    const picked = this.picked();
     return html`<div class="tools" role="toolbar" aria-label="Sketch view">
         <button @click=${() => this.fit()} aria-label="Fit the sketch in view, as far as its text stays readable">
           Fit
         </button>
         <button @click=${() => this.scaleBy(1.25)} aria-label="Zoom in">+</button>
         <button @click=${() => this.scaleBy(0.8)} aria-label="Zoom out">−</button>
+        ${
+          this.drawable
+            ? drawButtons(this.frozen, {
+                add: () => this.openNewState(),
+                undo: (again) => emit(this, 'undo', { again }),
+              })
+            : nothing
+        }
         <span class="soft legend" data-hint=${touch ? 'touch' : 'pointer'}>${hint}</span>
       </div>
+      ${
+        this.drawable && m && picked
+          ? actsTemplate(picked, m, this.frozen, {
+              link: () => this.startLink(picked.kind === 'state' ? picked.id : undefined),
+              open: (kind) => this.openOnPicked(kind),
+              act: (what) => this.act(what),
+            })
+          : nothing
+      }
+      ${d.said ? html`<p class="soft said" role="status">${d.said}</p>` : nothing}
       ${
         this.partial || this.layout?.method === 'by-distance'
           ? html`<p class="soft note" role="note">
@@ -95,8 +160,31 @@ export class LwDiagram extends LitElement {
         <g class="view">
           <g class="edges"></g>
           <g class="nodes"></g>
+          <path class="rubber" marker-end="url(#tip)"></path>
         </g>
-      </svg>`;
+      </svg>
+      ${
+        d.field && m
+          ? fieldTemplate(d.field, m, {
+              type: (v) => d.type(v),
+              submit: () => this.submitField(),
+              cancel: () => this.cancelField(),
+            })
+          : nothing
+      }`;
+  }
+
+  /** The toolbar's hint: how to look around and, on a drawable machine, how to draw. */
+  private hint(touch: boolean): string {
+    const look = touch
+      ? 'drag to move · pinch to zoom · tap a state to find it in the text'
+      : 'drag to pan · wheel to zoom · click a state to find it in the text';
+    if (this.layout !== undefined && this.machine !== undefined && !this.drawable)
+      return `${look} · this machine is not in the text form, so the sketch only shows it: drawing works in the text form`;
+    if (!this.drawable) return look;
+    return touch
+      ? `${look} · New state adds one · drag a tapped state's dot onto a state to draw a transition · tap a label, then Change guard`
+      : `${look} · double-click the canvas for a new state · drag a state's dot onto a state to draw a transition · double-click a name or a guard to change it`;
   }
 
   protected override firstUpdated(): void {
@@ -106,21 +194,80 @@ export class LwDiagram extends LitElement {
       .on('zoom', (e: { transform: { toString(): string } }) =>
         select(this.renderRoot.querySelector('g.view') as SVGGElement).attr('transform', e.transform.toString()),
       );
+    // A drag that starts on a state's dot draws a transition; every other drag pans.
+    this.zoomer.filter(
+      (e: MouseEvent) =>
+        (!e.ctrlKey || e.type === 'wheel') && !e.button && !(e.target as Element | null)?.closest?.('.handle'),
+    );
     svg.call(this.zoomer).on('dblclick.zoom', null);
+    svg.on('dblclick.draw', (ev: MouseEvent) => {
+      if ((ev.target as Element).closest('g.node, g.label') || !this.drawable || this.frozen) return;
+      this.openField('new-state', this.spotOf(ev.clientX, ev.clientY));
+    });
+    svg.on('pointermove.draw', (ev: PointerEvent) => this.onDrag(ev));
+    svg.on('pointerup.draw pointercancel.draw', (ev: PointerEvent) => this.onDrop(ev));
+  }
+
+  protected override willUpdate(changed: PropertyValues<this>): void {
+    // Another machine on the bench: what was said and picked was about the one before.
+    const before = changed.get('machine');
+    if (before && this.machine && before.name !== this.machine.name) {
+      this.draw.said = undefined;
+      this.draw.picked = undefined;
+    }
   }
 
   protected override updated(changed: PropertyValues<this>): void {
+    drawMarks(select(this.renderRoot.querySelector('g.view') as SVGGElement), this.layout, this.draw);
+    const opened = this.draw.field?.at;
+    if (opened !== undefined && opened !== this.fieldAt) this.focusField();
+    this.fieldAt = opened;
     if (!changed.has('layout') && !changed.has('codes') && !changed.has('lit')) return;
     const l = this.layout;
     const view = select(this.renderRoot.querySelector('g.view') as SVGGElement);
-    this.drawEdges(view.select<SVGGElement>('g.edges'), l?.edges ?? []);
-    this.drawNodes(view.select<SVGGElement>('g.nodes'), l?.nodes ?? []);
+    drawEdges(view.select<SVGGElement>('g.edges'), l?.edges ?? [], {
+      click: (ev, e) => {
+        const i = lineIndex(ev);
+        this.revealLine(e.sourceLines[i]);
+        this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
+      },
+      dblclick: (ev, e) => {
+        ev.stopPropagation();
+        this.openGuard(e, lineIndex(ev));
+      },
+      key: (ev, e) => this.onLabelKey(ev, e),
+      keys: this.drawable ? 'Enter ArrowUp ArrowDown F2 G Delete' : 'Enter',
+    });
+    drawNodes(view.select<SVGGElement>('g.nodes'), l?.nodes ?? [], {
+      codes: this.codes,
+      lit: this.lit,
+      drawable: this.drawable,
+      click: (_, n) => {
+        this.revealLine(n.line);
+        this.draw.pick({ kind: 'state', id: n.id });
+      },
+      dblclick: (ev, n) => {
+        ev.stopPropagation();
+        if (this.drawable && !this.frozen) this.openField('rename', this.spotUnder(n.id), { state: n.id });
+      },
+      key: (ev, n) => this.onNodeKey(ev, n),
+      keys: this.drawable ? 'Enter T F2 O S Delete' : 'Enter',
+      grab: (ev, n) => this.onGrab(ev, n),
+    });
     const shape = (l?.nodes ?? []).map((n) => n.id).join(' ');
     if (shape !== this.shape) {
       this.shape = shape;
-      this.fit();
+      if (!this.keepView(changed.get('layout'))) this.fit();
     }
     this.dataset.drawn = String((Number(this.dataset.drawn) || 0) + 1);
+    const due = this.focusDue;
+    if (due !== undefined && changed.has('layout')) {
+      const el = this.nodeElement(due);
+      if (el) {
+        this.focusDue = undefined;
+        el.focus({ preventScroll: true });
+      }
+    }
   }
 
   private svg(): Selection<SVGSVGElement, unknown, null, undefined> {
@@ -161,100 +308,246 @@ export class LwDiagram extends LitElement {
     this.dataset.scale = String(k);
   }
 
+  /**
+   * After a state was added, renamed or deleted, keep the states that stay where they were on
+   * screen (the layout moves them all alike when a rank is added), as long as every state is
+   * then in view (diagram/view.ts); true when it did. A new machine, or one that would leave
+   * the view, is fitted.
+   */
+  private keepView(before: DiagramLayout | undefined): boolean {
+    const l = this.layout;
+    const el = this.renderRoot.querySelector('svg');
+    const zoomer = this.zoomer;
+    if (!before || !l || !el || !zoomer) return false;
+    const t = keptView(before, l, zoomTransform(el), el.clientWidth, el.clientHeight);
+    if (t) this.svg().call((svg) => zoomer.transform(svg, t));
+    return t !== undefined;
+  }
+
   private scaleBy(f: number): void {
     const zoomer = this.zoomer;
     if (zoomer) this.svg().call((svg) => zoomer.scaleBy(svg, f));
   }
 
-  private drawEdges(g: G, edges: readonly LaidEdge[]): void {
-    const path = line<{ x: number; y: number }>()
-      .x((p) => p.x)
-      .y((p) => p.y)
-      .curve(curveBasis);
-    const sel = g
-      .selectAll<SVGGElement, LaidEdge>('g.edge')
-      .data(edges, (e) => `${e.from}\u0000${e.to}`)
-      .join((enter) => {
-        const e = enter.append('g').attr('class', 'edge');
-        e.append('path').attr('class', 'wire').attr('marker-end', 'url(#tip)');
-        const label = e.append('g').attr('class', 'label').attr('tabindex', 0).attr('role', 'button');
-        label.append('rect');
-        return e;
-      });
-    sel.select('path.wire').attr('d', (e) => path(e.points as { x: number; y: number }[]) ?? '');
-    const label = sel.select<SVGGElement>('g.label');
-    label
-      .attr('transform', (e) => `translate(${e.label.x - e.label.width / 2},${e.label.y - e.label.height / 2})`)
-      .attr('aria-label', (e) => `Transition from ${e.from} to ${e.to}: ${e.lines.join('; ')}`)
-      .on('click', (_, e) => this.revealLine(e.sourceLines[0]))
-      .on('keydown', (ev: KeyboardEvent, e) => onActivate(ev, e.sourceLines[0], (l) => this.revealLine(l)));
-    label
-      .select('rect')
-      .attr('width', (e) => e.label.width)
-      .attr('height', (e) => e.label.height)
-      .attr('rx', 3);
-    label
-      .selectAll<SVGTextElement, string>('text')
-      .data((e) => e.lines)
-      .join('text')
-      .attr('x', 4)
-      .attr('y', (_, i) => 12 + i * LINE_H)
-      .text((t) => t);
+  private nodeElement(id: string): SVGGElement | undefined {
+    return [...this.renderRoot.querySelectorAll<SVGGElement>('g.node')].find((g) => g.dataset.state === id);
   }
 
-  private drawNodes(g: G, nodes: readonly LaidNode[]): void {
-    const sel = g
-      .selectAll<SVGGElement, LaidNode>('g.node')
-      .data(nodes, (n) => n.id)
-      .join((enter) => {
-        const e = enter.append('g').attr('class', 'node').attr('tabindex', 0).attr('role', 'button');
-        e.append('rect').attr('class', 'body');
-        e.append('path').attr('class', 'entry');
-        e.append('text').attr('class', 'code');
-        e.append('text').attr('class', 'merged');
-        return e;
-      });
-    sel
-      .attr('transform', (n) => `translate(${n.x - n.width / 2},${n.y - n.height / 2})`)
-      .classed('start', (n) => n.start)
-      .classed('unreachable', (n) => n.unreachable)
-      .classed('lit', (n) => this.lit.has(n.id))
-      .attr('data-state', (n) => n.id)
-      .attr(
-        'aria-label',
-        (n) =>
-          `State ${n.lines.join(', ')}${this.codes[n.id] ? `, code ${this.codes[n.id]}` : ''}${n.start ? ', start' : ''}${this.lit.has(n.id) ? ', the machine is here' : ''}${n.line ? `, line ${n.line}` : ''}`,
-      )
-      .on('click', (_, n) => this.revealLine(n.line))
-      .on('keydown', (ev: KeyboardEvent, n) => onActivate(ev, n.line, (l) => this.revealLine(l)));
-    sel
-      .select('rect.body')
-      .attr('width', (n) => n.width)
-      .attr('height', (n) => n.height)
-      .attr('rx', 7);
-    sel
-      .select('path.entry')
-      .attr('d', (n) => (n.start ? `M-22,${n.height / 2} L-3,${n.height / 2}` : ''))
-      .attr('marker-end', (n) => (n.start ? 'url(#tip)' : null));
-    sel
-      .selectAll<SVGTextElement, string>('text.line')
-      .data((n) => n.lines)
-      .join('text')
-      .attr('class', (_, i) => (i === 0 ? 'line name' : 'line outs'))
-      .attr('x', 12)
-      .attr('y', (_, i) => 21 + i * LINE_H)
-      .text((t) => t);
-    sel
-      .select('text.code')
-      .attr('x', (n) => n.width - 4)
-      .attr('y', -4)
-      .text((n) => this.codes[n.id] ?? '');
-    sel
-      .select('text.merged')
-      .attr('x', 2)
-      .attr('y', (n) => n.height + 13)
-      .text((n) => (n.mergedInto ? `same as ${n.mergedInto}` : n.unreachable ? 'unreachable' : ''));
+  /** A point of the screen as a spot on this element (where a field opens). */
+  private spotOf(clientX: number, clientY: number): Spot {
+    const r = this.getBoundingClientRect();
+    return { x: clientX - r.left, y: clientY - r.top };
   }
+
+  /** The spot just under a state (or the middle of the canvas). */
+  private spotUnder(id: string): Spot {
+    const b =
+      this.nodeElement(id)?.getBoundingClientRect() ?? this.renderRoot.querySelector('svg')?.getBoundingClientRect();
+    return b ? this.spotOf(b.left, b.bottom + 4) : { x: 8, y: 40 };
+  }
+
+  private openField(kind: FieldKind, at: Spot, more: { state?: string; to?: string; index?: number } = {}): void {
+    const m = this.machine;
+    if (!m || !this.drawable) return;
+    if (this.frozen) return this.draw.say('The text is being read: draw again in a moment.');
+    // Keep the field inside the sketch (it is about 17rem wide and, with a reason shown, 11rem high).
+    const x = Math.max(0, Math.min(at.x, this.clientWidth - 270));
+    const y = Math.max(0, Math.min(at.y, this.clientHeight - 180));
+    this.draw.open(kind, { x, y }, m, more);
+  }
+
+  private openNewState(): void {
+    const b = this.renderRoot.querySelector('svg')?.getBoundingClientRect();
+    this.openField('new-state', b ? this.spotOf(b.left + b.width / 3, b.top + b.height / 3) : { x: 8, y: 40 });
+  }
+
+  private openGuard(e: LaidEdge, index: number): void {
+    const g = [...this.renderRoot.querySelectorAll<SVGGElement>('g.label')].find(
+      (x) => select<SVGGElement, LaidEdge>(x).datum() === e,
+    );
+    const b = g?.getBoundingClientRect();
+    this.openField('guard', b ? this.spotOf(b.left, b.bottom + 4) : { x: 8, y: 40 }, {
+      state: e.from,
+      to: e.to,
+      index,
+    });
+  }
+
+  /** The item picked, while the sketch still has it (a deletion or a rename in the text takes it away). */
+  private picked(): Picked | undefined {
+    const p = this.draw.picked;
+    const l = this.layout;
+    if (!p || !l) return undefined;
+    const there =
+      p.kind === 'state'
+        ? l.nodes.some((n) => n.id === p.id)
+        : l.edges.some((e) => e.from === p.from && e.to === p.to && p.index < e.lines.length);
+    return there ? p : undefined;
+  }
+
+  private openOnPicked(kind: 'rename' | 'outputs' | 'guard'): void {
+    const p = this.picked();
+    if (p?.kind === 'state' && kind !== 'guard') this.openField(kind, this.spotUnder(p.id), { state: p.id });
+    const e = p?.kind === 'edge' ? this.layout?.edges.find((x) => x.from === p.from && x.to === p.to) : undefined;
+    if (p?.kind === 'edge' && e) this.openGuard(e, p.index);
+  }
+
+  private focusField(): void {
+    const input = this.renderRoot.querySelector<HTMLInputElement>('form.field input');
+    if (input) {
+      input.focus();
+      input.select();
+    }
+  }
+
+  private submitField(): void {
+    const m = this.machine;
+    const f = this.draw.field;
+    if (!m || !f) return;
+    // The machine drawn must be the text's current reading, or the places it records are not the text's.
+    if (this.frozen) return this.draw.refuse('The text is being read: press Enter again in a moment.');
+    const edit = this.draw.submit(m, this.text);
+    if (!edit) return;
+    const back = f.kind === 'new-state' || f.kind === 'rename' ? undefined : f.state;
+    if (f.kind === 'new-state' || f.kind === 'rename') {
+      this.focusDue = f.value.trim();
+      this.draw.pick({ kind: 'state', id: this.focusDue });
+    }
+    this.send(edit, back);
+  }
+
+  private cancelField(): void {
+    const f = this.draw.field;
+    this.draw.cancel();
+    const back = f?.state !== undefined ? this.nodeElement(f.state) : undefined;
+    (back ?? this.renderRoot.querySelector<HTMLElement>('button[data-do="new-state"]'))?.focus({ preventScroll: true });
+  }
+
+  /** Send an edit, the focus first on the state it came from, so the bench gives it back there. */
+  private send(edit: TextEdit, focus: string | undefined): void {
+    const el = focus !== undefined ? this.nodeElement(focus) : undefined;
+    if (el) el.focus({ preventScroll: true });
+    else this.renderRoot.querySelector<HTMLElement>('button[data-do="new-state"]')?.focus({ preventScroll: true });
+    emit(this, 'text-edit', { edit });
+  }
+
+  private act(what: 'start' | 'delete'): void {
+    const m = this.machine;
+    const p = this.picked();
+    if (!m || !p || !this.drawable) return;
+    if (this.frozen) return this.draw.say('The text is being read: try again in a moment.');
+    const edit = this.draw.act(what, m, this.text, p);
+    if (edit) this.send(edit, p.kind === 'state' ? (what === 'start' ? p.id : undefined) : p.from);
+  }
+
+  private startLink(from: string | undefined): void {
+    if (from === undefined || !this.drawable || this.frozen) return;
+    const ids = this.layout?.nodes.map((n) => n.id) ?? [];
+    const next = ids[(ids.indexOf(from) + 1) % ids.length];
+    this.draw.link({ from, to: next });
+    this.draw.say(
+      `Drawing a transition from ${from}: arrow keys or Tab choose the state it goes to, Enter takes it, Escape stops.`,
+    );
+    this.nodeElement(from)?.focus({ preventScroll: true });
+  }
+
+  private onGrab(ev: PointerEvent, n: LaidNode): void {
+    if (!this.drawable || this.frozen) return;
+    ev.preventDefault();
+    ev.stopPropagation();
+    this.renderRoot.querySelector('svg')?.setPointerCapture(ev.pointerId);
+    this.draw.link({ from: n.id });
+  }
+
+  private onDrag(ev: PointerEvent): void {
+    const l = this.draw.linking;
+    if (!l || (l.to !== undefined && l.pointer === undefined)) return;
+    const [x, y] = pointer(ev, this.renderRoot.querySelector('g.view'));
+    const over = (this.renderRoot as ShadowRoot)
+      .elementFromPoint(ev.clientX, ev.clientY)
+      ?.closest<SVGGElement>('g.node');
+    this.draw.link({
+      from: l.from,
+      pointer: { x, y },
+      ...(over?.dataset.state !== undefined ? { to: over.dataset.state } : {}),
+    });
+  }
+
+  private onDrop(ev: PointerEvent): void {
+    const l = this.draw.linking;
+    if (!l || (l.pointer === undefined && l.to !== undefined)) return;
+    this.renderRoot.querySelector('svg')?.releasePointerCapture(ev.pointerId);
+    if (l.pointer === undefined) {
+      this.draw.link(undefined);
+      return this.draw.say(`Drag the dot of ${l.from} onto the state the transition goes to (or back onto ${l.from}).`);
+    }
+    const over = (this.renderRoot as ShadowRoot)
+      .elementFromPoint(ev.clientX, ev.clientY)
+      ?.closest<SVGGElement>('g.node');
+    const to = over?.dataset.state;
+    if (to === undefined || ev.type === 'pointercancel') return this.draw.link(undefined);
+    this.openField('new-transition', this.spotUnder(to), { state: l.from, to });
+  }
+
+  /** Keys on a state: Enter finds it in the text; while a transition is drawn, the keys choose its target. */
+  private onNodeKey(ev: KeyboardEvent, n: LaidNode): void {
+    const l = this.draw.linking;
+    if (l && l.from === n.id && l.pointer === undefined) return this.chooseTarget(ev, l.from, l.to ?? n.id);
+    onActivate(ev, n.line, (line) => this.revealLine(line));
+    const k = stateKey(ev);
+    if (ev.defaultPrevented || !k || !this.drawable || (k === 'outputs' && !this.machine?.outputs.length)) return;
+    ev.preventDefault();
+    ev.stopPropagation();
+    if (k === 'link') this.startLink(n.id);
+    else if (k === 'rename' || k === 'outputs') this.openField(k, this.spotUnder(n.id), { state: n.id });
+    else {
+      this.draw.pick({ kind: 'state', id: n.id });
+      this.act(k);
+    }
+  }
+
+  private chooseTarget(ev: KeyboardEvent, from: string, to: string): void {
+    const k = targetKey(ev);
+    if (!k) return;
+    ev.preventDefault();
+    ev.stopPropagation();
+    const ids = this.layout?.nodes.map((x) => x.id) ?? [];
+    if (typeof k === 'object') this.draw.link({ from, to: ids[(ids.indexOf(to) + k.step + ids.length) % ids.length] });
+    else if (k === 'take') this.openField('new-transition', this.spotUnder(to), { state: from, to });
+    else {
+      this.draw.link(undefined);
+      this.draw.say(undefined);
+    }
+  }
+
+  /** Keys on a transition label: Enter finds it; with several transitions, ↑ and ↓ pick one; F2 or G its guard; Delete. */
+  private onLabelKey(ev: KeyboardEvent, e: LaidEdge): void {
+    const p = this.draw.picked;
+    const index = p?.kind === 'edge' && p.from === e.from && p.to === e.to ? p.index : 0;
+    onActivate(ev, e.sourceLines[index], (line) => this.revealLine(line));
+    const k = labelKey(ev);
+    if (ev.defaultPrevented || !k || !this.drawable || (typeof k === 'object' && e.lines.length < 2)) return;
+    ev.preventDefault();
+    ev.stopPropagation();
+    const i = typeof k === 'object' ? (index + k.step + e.lines.length) % e.lines.length : index;
+    this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
+    if (typeof k === 'object')
+      this.draw.say(`Transition ${i + 1} of ${e.lines.length} from ${e.from} to ${e.to}: ${e.lines[i]}`);
+    else if (k === 'guard') this.openGuard(e, index);
+    else this.act('delete');
+  }
+
+  /** Keys anywhere in the sketch (not in its field): a new state, undo and redo, stop drawing. */
+  private readonly onKey = (ev: KeyboardEvent): void => {
+    const target = ev.composedPath()[0];
+    if (target instanceof HTMLElement && target.closest('input, textarea, select')) return;
+    const k = sketchKey(ev);
+    if (!k || (k === 'new-state' && !this.drawable) || (k === 'stop' && !this.draw.linking && !this.draw.field)) return;
+    ev.preventDefault();
+    if (typeof k === 'object') emit(this, 'undo', k);
+    else if (k === 'new-state') this.openNewState();
+    else this.draw.cancel();
+  };
 
   /** Put the caret at the start of a line of the text (nothing selected, so the next key typed only adds). */
   private revealLine(line: number | undefined): void {

@@ -2,11 +2,18 @@
  * <lw-editor>: the machine's text. A plain textarea (the browser's own editing, undo and
  * accessibility) over a backdrop that mirrors the text and marks each diagnostic at its line
  * and column, beside a gutter of line numbers that flags lines with problems.
+ *
+ * Edits made elsewhere (the ledger, the sketch) are typed into the textarea as the browser's
+ * own edit (`applyEdit`), so its undo history keeps them beside the user's typing: Ctrl+Z in
+ * the text, or `undo()` from another view, takes back a drawn edit as it takes back a typed one.
+ * Where the browser cannot (or the textarea's text is not the machine's text, as when its line
+ * breaks were CRLF), the edit is sent as a new text instead, and that one has no undo.
  * Events: `edit` {text}.
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import type { Diagnostic } from '../../core/index.js';
 import { lineStarts, markSpan } from '../controllers/text-marks.js';
+import { applyEdit, type TextEdit } from '../controllers/table-edit.js';
 import { emit } from './emit.js';
 
 const LINE_PX = 20;
@@ -213,6 +220,36 @@ ${lines.map((line, i) => html`${this.marked(line, byLine.get(i + 1))}${i < lines
   }
 
   /**
+   * Make an edit of the text as if typed, so the browser's undo takes it back; the focus goes
+   * back where it was (the view the edit came from).
+   */
+  applyEdit(e: TextEdit): void {
+    const t = this.area;
+    const want = applyEdit(this.text, e);
+    if (t && t.value === this.text) {
+      const back = focused();
+      t.focus({ preventScroll: true });
+      t.setSelectionRange(e.from, e.to);
+      // The browser's own editing command keeps the edit in its undo history; it fires `input`.
+      const typed = e.insert === '' ? runCommand('delete') : runCommand('insertText', e.insert);
+      back?.focus({ preventScroll: true });
+      if (typed && t.value === want) return;
+      if (typed) t.value = this.text;
+    }
+    emit(this, 'edit', { text: want });
+  }
+
+  /** Take back the last edit of the text (typed or drawn), or make again the last one taken back. */
+  undo(again = false): void {
+    const t = this.area;
+    if (!t) return;
+    const back = focused();
+    t.focus({ preventScroll: true });
+    runCommand(again ? 'redo' : 'undo');
+    back?.focus({ preventScroll: true });
+  }
+
+  /**
    * Put the caret at a line and column (1-based) and show it; with `select`, the word there is
    * selected (a problem's word, to be typed over), else the caret sits before it.
    */
@@ -227,6 +264,23 @@ ${lines.map((line, i) => html`${this.marked(line, byLine.get(i + 1))}${i < lines
     t.setSelectionRange(starts[l - 1] + span.from, starts[l - 1] + (select ? span.to : span.from));
     t.scrollTop = Math.max(0, (l - 1) * LINE_PX - t.clientHeight / 3);
     this.onScroll();
+  }
+}
+
+/** The element that has the focus, looking inside shadow roots. */
+function focused(): HTMLOrSVGElement | undefined {
+  let a: Element | null = document.activeElement;
+  while (a?.shadowRoot?.activeElement) a = a.shadowRoot.activeElement;
+  return a instanceof HTMLElement || a instanceof SVGElement ? a : undefined;
+}
+
+/** One of the browser's editing commands on the focused textarea; false where the browser has none. */
+function runCommand(name: 'insertText' | 'delete' | 'undo' | 'redo', value?: string): boolean {
+  try {
+    // The only way to edit a textarea that its own undo history records.
+    return document.execCommand(name, false, value);
+  } catch {
+    return false;
   }
 }
 

@@ -1,8 +1,9 @@
 /**
  * <lw-state-table>: the ledger — the machine as a table, one row per transition, always in
  * step with the text. Guards, targets and new transitions edited here become small edits of
- * the text at the places the parser recorded (controllers/table-edit.ts).
- * Events: `text-edit` {edit}, `reveal` {line, column}.
+ * the text at the places the parser recorded (controllers/table-edit.ts); the bench types them
+ * into the text, so they are undone there, or here with Ctrl+Z outside a text field.
+ * Events: `text-edit` {edit}, `reveal` {line, column}, `undo` {again}.
  */
 import { LitElement, css, html, nothing } from 'lit';
 import type { Machine, State, Transition } from '../../core/index.js';
@@ -10,6 +11,7 @@ import { outputWords } from '../diagram/layout.js';
 import { addState, addTransition, reguard, retarget, type TextEdit } from '../controllers/table-edit.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
+import { sketchKey } from './sketch-keys.js';
 
 /** Above this many states a target is typed (with the states offered as suggestions) rather than picked from a list per row. */
 const PICK_STATES = 60;
@@ -37,6 +39,15 @@ export class LwStateTable extends LitElement {
     this.codes = {};
     this.merged = {};
     this.frozen = false;
+    // Ctrl+Z / Ctrl+Shift+Z outside a text field undo and redo the text's edits (a field keeps its own).
+    this.addEventListener('keydown', (ev) => {
+      const target = ev.composedPath()[0];
+      if (target instanceof HTMLElement && target.closest('input:not([type=submit]), textarea')) return;
+      const k = sketchKey(ev);
+      if (typeof k !== 'object') return;
+      ev.preventDefault();
+      emit(this, 'undo', k);
+    });
   }
 
   static override styles = [
