@@ -66,7 +66,7 @@ export function withValue(v: Value, path: string, x: unknown): Value {
 export function fieldFacts(path: WorkshopPath): FieldFacts {
   const r: NumberRule = PROFILE_RULES[path];
   return {
-    unit: r.unit === 'count' ? 'count' : r.unit,
+    unit: r.unit,
     range: describeRule(r),
     plausible: plausibleWords(r),
     fallback: valueAt(DEFAULT_PROFILE, path) as number,

@@ -7,7 +7,7 @@
  */
 import { LitElement, css, html, nothing } from 'lit';
 import { formatDiagnostic, type Diagnostic } from '../../core/index.js';
-import { fieldFacts, WORKSHOP_FIELDS, type WorkshopPath } from '../controllers/workshop.js';
+import { fieldFacts, WORKSHOP_FIELDS, WORKSHOP_FILE, type WorkshopPath } from '../controllers/workshop.js';
 import { valueAt } from '../worker/profile-file.js';
 import type { ProfileSetting } from '../worker/protocol.js';
 import { shared, viewColumn } from '../styles/shared.js';
@@ -28,7 +28,7 @@ export class LwWorkshop extends LitElement {
 
   constructor() {
     super();
-    this.draft = { name: 'workshop-profile.json', value: {} };
+    this.draft = { name: WORKSHOP_FILE, value: {} };
     this.problems = [];
     this.inUse = undefined;
   }
