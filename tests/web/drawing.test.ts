@@ -261,6 +261,25 @@ describe('src/web/elements/diagram (drawing a machine, end to end in chromium)',
     expect(await text()).toBe(json);
   });
 
+  it('takes a file with CRLF line breaks as the textarea holds it, so a drawing is undone by the text’s own undo', async () => {
+    // A file saved on a system that ends lines with CR LF: the bench holds it with LF, as its
+    // textarea does (HTML's API value of a textarea), lines and columns unchanged.
+    const crlf = NEW_MACHINE.replace(/\n/g, '\r\n');
+    await page
+      .locator('lw-bench input[type=file]')
+      .setInputFiles({ name: 'dos.lw', mimeType: 'text/plain', buffer: Buffer.from(crlf) });
+    await expect.poll(text).toBe(NEW_MACHINE);
+    await page.getByRole('tab', { name: 'Sketch' }).click();
+    await built(page);
+    await node('dark').focus();
+    await page.keyboard.press('n');
+    await answer('spare');
+    await expect.poll(text).toBe(`${NEW_MACHINE}\nstate spare\n`);
+    await page.locator('lw-editor textarea').focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(text).toBe(NEW_MACHINE);
+  });
+
   it('draws a transition by touch on a phone: tap a state, drag its dot onto another', async () => {
     const phone = await designer.context(PHONE);
     page = await openPage(phone, designer.url);

@@ -278,7 +278,13 @@ export class SourceController implements ReactiveController {
     keepSet('previous', JSON.stringify(this.previous));
   }
 
-  private place(text: string, file: string, words?: string): void {
+  private place(given: string, file: string, words?: string): void {
+    // The bench holds what its textarea can: a textarea's value has every line break as LF
+    // (HTML's "API value" of a textarea), so a text with CRLF or CR breaks (a file saved on
+    // another system) is taken with LF. Otherwise the text and the textarea differ, the editor
+    // puts the text back on every update, and the edits of the ledger and the sketch cannot
+    // go through the textarea's own undo. Lines and columns are the same either way.
+    const text = given.replace(/\r\n?/g, '\n');
     this.text = text;
     this.file = file;
     this.rev++;

@@ -14,19 +14,19 @@
  * Each becomes one small edit of the text (controllers/sketch-draw.ts), which the bench types
  * into the text so its undo takes it back; the sketch redraws from the text as always, and
  * when the states are mostly the same ones it keeps them where they were on screen (keepView).
- * The SVG itself is drawn by sketch-svg.ts, the inline field and the actions by sketch-field.ts.
+ * The SVG itself is drawn by sketch-svg.ts, the inline field and the actions by sketch-field.ts;
+ * what the pointer and the keys do to draw is in sketch-gestures.ts.
  * Events: `reveal` {line, column}, `text-edit` {edit}, `undo` {again}.
  */
 import { LitElement, html, nothing, type PropertyValues } from 'lit';
-import { pointer, select, zoom, zoomIdentity, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
+import { select, zoom, zoomIdentity, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
 import type { Machine } from '../../core/index.js';
-import type { DiagramLayout, LaidEdge, LaidNode } from '../diagram/layout.js';
-import { SketchDraw, type FieldKind, type Picked, type Spot } from '../controllers/sketch-draw.js';
-import type { TextEdit } from '../controllers/table-edit.js';
+import type { DiagramLayout } from '../diagram/layout.js';
+import { SketchDraw, type Spot } from '../controllers/sketch-draw.js';
 import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
 import { drawEdges, drawMarks, drawNodes, lineIndex } from './sketch-svg.js';
 import { keptView } from '../diagram/view.js';
-import { labelKey, sketchKey, stateKey, targetKey } from './sketch-keys.js';
+import { SketchGestures } from './sketch-gestures.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
 import { emit } from './emit.js';
@@ -35,14 +35,6 @@ import { touchScreen } from '../touch.js';
 /** The sketch's text is 12 px at scale 1; Fit keeps it at least this big on screen. */
 export const MIN_LABEL_PX = 10;
 const TEXT_PX = 12;
-
-/** Enter or Space on a focused sketch item: find it in the text, and let the key do nothing else. */
-function onActivate(ev: KeyboardEvent, line: number | undefined, reveal: (line: number | undefined) => void): void {
-  if (ev.key !== 'Enter' && ev.key !== ' ') return;
-  ev.preventDefault();
-  ev.stopPropagation();
-  reveal(line);
-}
 
 export class LwDiagram extends LitElement {
   static override properties = {
@@ -66,8 +58,7 @@ export class LwDiagram extends LitElement {
   declare frozen: boolean;
 
   private readonly draw = new SketchDraw(this);
-  /** A state to give the focus to once it is drawn (after a rename or a new state). */
-  private focusDue: string | undefined;
+  private readonly gestures = new SketchGestures(this, this.draw);
   /** Where the field shown was opened (a new spot is a new field, which takes the focus). */
   private fieldAt: Spot | undefined;
 
@@ -88,11 +79,11 @@ export class LwDiagram extends LitElement {
 
   override connectedCallback(): void {
     super.connectedCallback();
-    this.addEventListener('keydown', this.onKey);
+    this.addEventListener('keydown', this.gestures.onKey);
   }
 
   override disconnectedCallback(): void {
-    this.removeEventListener('keydown', this.onKey);
+    this.removeEventListener('keydown', this.gestures.onKey);
     super.disconnectedCallback();
   }
 
@@ -109,7 +100,7 @@ export class LwDiagram extends LitElement {
     const hint = this.hint(touch);
     const m = this.machine;
     const d = this.draw;
-    const picked = this.picked();
+    const picked = this.gestures.picked();
     return html`<div class="tools" role="toolbar" aria-label="Sketch view">
         <button @click=${() => this.fit()} aria-label="Fit the sketch in view, as far as its text stays readable">
           Fit
@@ -119,7 +110,7 @@ export class LwDiagram extends LitElement {
         ${
           this.drawable
             ? drawButtons(this.frozen, {
-                add: () => this.openNewState(),
+                add: () => this.gestures.openNewState(),
                 undo: (again) => emit(this, 'undo', { again }),
               })
             : nothing
@@ -129,9 +120,9 @@ export class LwDiagram extends LitElement {
       ${
         this.drawable && m && picked
           ? actsTemplate(picked, m, this.frozen, {
-              link: () => this.startLink(picked.kind === 'state' ? picked.id : undefined),
-              open: (kind) => this.openOnPicked(kind),
-              act: (what) => this.act(what),
+              link: () => this.gestures.startLink(picked.kind === 'state' ? picked.id : undefined),
+              open: (kind) => this.gestures.openOnPicked(kind),
+              act: (what) => this.gestures.act(what),
             })
           : nothing
       }
@@ -167,8 +158,8 @@ export class LwDiagram extends LitElement {
         d.field && m
           ? fieldTemplate(d.field, m, {
               type: (v) => d.type(v),
-              submit: () => this.submitField(),
-              cancel: () => this.cancelField(),
+              submit: () => this.gestures.submitField(),
+              cancel: () => this.gestures.cancelField(),
             })
           : nothing
       }`;
@@ -202,10 +193,10 @@ export class LwDiagram extends LitElement {
     svg.call(this.zoomer).on('dblclick.zoom', null);
     svg.on('dblclick.draw', (ev: MouseEvent) => {
       if ((ev.target as Element).closest('g.node, g.label') || !this.drawable || this.frozen) return;
-      this.openField('new-state', this.spotOf(ev.clientX, ev.clientY));
+      this.gestures.openField('new-state', this.gestures.spotOf(ev.clientX, ev.clientY));
     });
-    svg.on('pointermove.draw', (ev: PointerEvent) => this.onDrag(ev));
-    svg.on('pointerup.draw pointercancel.draw', (ev: PointerEvent) => this.onDrop(ev));
+    svg.on('pointermove.draw', (ev: PointerEvent) => this.gestures.onDrag(ev));
+    svg.on('pointerup.draw pointercancel.draw', (ev: PointerEvent) => this.gestures.onDrop(ev));
   }
 
   protected override willUpdate(changed: PropertyValues<this>): void {
@@ -220,7 +211,7 @@ export class LwDiagram extends LitElement {
   protected override updated(changed: PropertyValues<this>): void {
     drawMarks(select(this.renderRoot.querySelector('g.view') as SVGGElement), this.layout, this.draw);
     const opened = this.draw.field?.at;
-    if (opened !== undefined && opened !== this.fieldAt) this.focusField();
+    if (opened !== undefined && opened !== this.fieldAt) this.gestures.focusField();
     this.fieldAt = opened;
     if (!changed.has('layout') && !changed.has('codes') && !changed.has('lit')) return;
     const l = this.layout;
@@ -228,14 +219,14 @@ export class LwDiagram extends LitElement {
     drawEdges(view.select<SVGGElement>('g.edges'), l?.edges ?? [], {
       click: (ev, e) => {
         const i = lineIndex(ev);
-        this.revealLine(e.sourceLines[i]);
+        this.gestures.revealLine(e.sourceLines[i]);
         this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
       },
       dblclick: (ev, e) => {
         ev.stopPropagation();
-        this.openGuard(e, lineIndex(ev));
+        this.gestures.openGuard(e, lineIndex(ev));
       },
-      key: (ev, e) => this.onLabelKey(ev, e),
+      key: (ev, e) => this.gestures.onLabelKey(ev, e),
       keys: this.drawable ? 'Enter ArrowUp ArrowDown F2 G Delete' : 'Enter',
     });
     drawNodes(view.select<SVGGElement>('g.nodes'), l?.nodes ?? [], {
@@ -243,16 +234,17 @@ export class LwDiagram extends LitElement {
       lit: this.lit,
       drawable: this.drawable,
       click: (_, n) => {
-        this.revealLine(n.line);
+        this.gestures.revealLine(n.line);
         this.draw.pick({ kind: 'state', id: n.id });
       },
       dblclick: (ev, n) => {
         ev.stopPropagation();
-        if (this.drawable && !this.frozen) this.openField('rename', this.spotUnder(n.id), { state: n.id });
+        if (this.drawable && !this.frozen)
+          this.gestures.openField('rename', this.gestures.spotUnder(n.id), { state: n.id });
       },
-      key: (ev, n) => this.onNodeKey(ev, n),
+      key: (ev, n) => this.gestures.onNodeKey(ev, n),
       keys: this.drawable ? 'Enter T F2 O S Delete' : 'Enter',
-      grab: (ev, n) => this.onGrab(ev, n),
+      grab: (ev, n) => this.gestures.onGrab(ev, n),
     });
     const shape = (l?.nodes ?? []).map((n) => n.id).join(' ');
     if (shape !== this.shape) {
@@ -260,11 +252,11 @@ export class LwDiagram extends LitElement {
       if (!this.keepView(changed.get('layout'))) this.fit();
     }
     this.dataset.drawn = String((Number(this.dataset.drawn) || 0) + 1);
-    const due = this.focusDue;
+    const due = this.gestures.focusDue;
     if (due !== undefined && changed.has('layout')) {
-      const el = this.nodeElement(due);
+      const el = this.gestures.nodeElement(due);
       if (el) {
-        this.focusDue = undefined;
+        this.gestures.focusDue = undefined;
         el.focus({ preventScroll: true });
       }
     }
@@ -327,231 +319,6 @@ export class LwDiagram extends LitElement {
   private scaleBy(f: number): void {
     const zoomer = this.zoomer;
     if (zoomer) this.svg().call((svg) => zoomer.scaleBy(svg, f));
-  }
-
-  private nodeElement(id: string): SVGGElement | undefined {
-    return [...this.renderRoot.querySelectorAll<SVGGElement>('g.node')].find((g) => g.dataset.state === id);
-  }
-
-  /** A point of the screen as a spot on this element (where a field opens). */
-  private spotOf(clientX: number, clientY: number): Spot {
-    const r = this.getBoundingClientRect();
-    return { x: clientX - r.left, y: clientY - r.top };
-  }
-
-  /** The spot just under a state (or the middle of the canvas). */
-  private spotUnder(id: string): Spot {
-    const b =
-      this.nodeElement(id)?.getBoundingClientRect() ?? this.renderRoot.querySelector('svg')?.getBoundingClientRect();
-    return b ? this.spotOf(b.left, b.bottom + 4) : { x: 8, y: 40 };
-  }
-
-  private openField(kind: FieldKind, at: Spot, more: { state?: string; to?: string; index?: number } = {}): void {
-    const m = this.machine;
-    if (!m || !this.drawable) return;
-    if (this.frozen) return this.draw.say('The text is being read: draw again in a moment.');
-    // Keep the field inside the sketch (it is about 17rem wide and, with a reason shown, 11rem high).
-    const x = Math.max(0, Math.min(at.x, this.clientWidth - 270));
-    const y = Math.max(0, Math.min(at.y, this.clientHeight - 180));
-    this.draw.open(kind, { x, y }, m, more);
-  }
-
-  private openNewState(): void {
-    const b = this.renderRoot.querySelector('svg')?.getBoundingClientRect();
-    this.openField('new-state', b ? this.spotOf(b.left + b.width / 3, b.top + b.height / 3) : { x: 8, y: 40 });
-  }
-
-  private openGuard(e: LaidEdge, index: number): void {
-    const g = [...this.renderRoot.querySelectorAll<SVGGElement>('g.label')].find(
-      (x) => select<SVGGElement, LaidEdge>(x).datum() === e,
-    );
-    const b = g?.getBoundingClientRect();
-    this.openField('guard', b ? this.spotOf(b.left, b.bottom + 4) : { x: 8, y: 40 }, {
-      state: e.from,
-      to: e.to,
-      index,
-    });
-  }
-
-  /** The item picked, while the sketch still has it (a deletion or a rename in the text takes it away). */
-  private picked(): Picked | undefined {
-    const p = this.draw.picked;
-    const l = this.layout;
-    if (!p || !l) return undefined;
-    const there =
-      p.kind === 'state'
-        ? l.nodes.some((n) => n.id === p.id)
-        : l.edges.some((e) => e.from === p.from && e.to === p.to && p.index < e.lines.length);
-    return there ? p : undefined;
-  }
-
-  private openOnPicked(kind: 'rename' | 'outputs' | 'guard'): void {
-    const p = this.picked();
-    if (p?.kind === 'state' && kind !== 'guard') this.openField(kind, this.spotUnder(p.id), { state: p.id });
-    const e = p?.kind === 'edge' ? this.layout?.edges.find((x) => x.from === p.from && x.to === p.to) : undefined;
-    if (p?.kind === 'edge' && e) this.openGuard(e, p.index);
-  }
-
-  private focusField(): void {
-    const input = this.renderRoot.querySelector<HTMLInputElement>('form.field input');
-    if (input) {
-      input.focus();
-      input.select();
-    }
-  }
-
-  private submitField(): void {
-    const m = this.machine;
-    const f = this.draw.field;
-    if (!m || !f) return;
-    // The machine drawn must be the text's current reading, or the places it records are not the text's.
-    if (this.frozen) return this.draw.refuse('The text is being read: press Enter again in a moment.');
-    const edit = this.draw.submit(m, this.text);
-    if (!edit) return;
-    const back = f.kind === 'new-state' || f.kind === 'rename' ? undefined : f.state;
-    if (f.kind === 'new-state' || f.kind === 'rename') {
-      this.focusDue = f.value.trim();
-      this.draw.pick({ kind: 'state', id: this.focusDue });
-    }
-    this.send(edit, back);
-  }
-
-  private cancelField(): void {
-    const f = this.draw.field;
-    this.draw.cancel();
-    const back = f?.state !== undefined ? this.nodeElement(f.state) : undefined;
-    (back ?? this.renderRoot.querySelector<HTMLElement>('button[data-do="new-state"]'))?.focus({ preventScroll: true });
-  }
-
-  /** Send an edit, the focus first on the state it came from, so the bench gives it back there. */
-  private send(edit: TextEdit, focus: string | undefined): void {
-    const el = focus !== undefined ? this.nodeElement(focus) : undefined;
-    if (el) el.focus({ preventScroll: true });
-    else this.renderRoot.querySelector<HTMLElement>('button[data-do="new-state"]')?.focus({ preventScroll: true });
-    emit(this, 'text-edit', { edit });
-  }
-
-  private act(what: 'start' | 'delete'): void {
-    const m = this.machine;
-    const p = this.picked();
-    if (!m || !p || !this.drawable) return;
-    if (this.frozen) return this.draw.say('The text is being read: try again in a moment.');
-    const edit = this.draw.act(what, m, this.text, p);
-    if (edit) this.send(edit, p.kind === 'state' ? (what === 'start' ? p.id : undefined) : p.from);
-  }
-
-  private startLink(from: string | undefined): void {
-    if (from === undefined || !this.drawable || this.frozen) return;
-    const ids = this.layout?.nodes.map((n) => n.id) ?? [];
-    const next = ids[(ids.indexOf(from) + 1) % ids.length];
-    this.draw.link({ from, to: next });
-    this.draw.say(
-      `Drawing a transition from ${from}: arrow keys or Tab choose the state it goes to, Enter takes it, Escape stops.`,
-    );
-    this.nodeElement(from)?.focus({ preventScroll: true });
-  }
-
-  private onGrab(ev: PointerEvent, n: LaidNode): void {
-    if (!this.drawable || this.frozen) return;
-    ev.preventDefault();
-    ev.stopPropagation();
-    this.renderRoot.querySelector('svg')?.setPointerCapture(ev.pointerId);
-    this.draw.link({ from: n.id });
-  }
-
-  private onDrag(ev: PointerEvent): void {
-    const l = this.draw.linking;
-    if (!l || (l.to !== undefined && l.pointer === undefined)) return;
-    const [x, y] = pointer(ev, this.renderRoot.querySelector('g.view'));
-    const over = (this.renderRoot as ShadowRoot)
-      .elementFromPoint(ev.clientX, ev.clientY)
-      ?.closest<SVGGElement>('g.node');
-    this.draw.link({
-      from: l.from,
-      pointer: { x, y },
-      ...(over?.dataset.state !== undefined ? { to: over.dataset.state } : {}),
-    });
-  }
-
-  private onDrop(ev: PointerEvent): void {
-    const l = this.draw.linking;
-    if (!l || (l.pointer === undefined && l.to !== undefined)) return;
-    this.renderRoot.querySelector('svg')?.releasePointerCapture(ev.pointerId);
-    if (l.pointer === undefined) {
-      this.draw.link(undefined);
-      return this.draw.say(`Drag the dot of ${l.from} onto the state the transition goes to (or back onto ${l.from}).`);
-    }
-    const over = (this.renderRoot as ShadowRoot)
-      .elementFromPoint(ev.clientX, ev.clientY)
-      ?.closest<SVGGElement>('g.node');
-    const to = over?.dataset.state;
-    if (to === undefined || ev.type === 'pointercancel') return this.draw.link(undefined);
-    this.openField('new-transition', this.spotUnder(to), { state: l.from, to });
-  }
-
-  /** Keys on a state: Enter finds it in the text; while a transition is drawn, the keys choose its target. */
-  private onNodeKey(ev: KeyboardEvent, n: LaidNode): void {
-    const l = this.draw.linking;
-    if (l && l.from === n.id && l.pointer === undefined) return this.chooseTarget(ev, l.from, l.to ?? n.id);
-    onActivate(ev, n.line, (line) => this.revealLine(line));
-    const k = stateKey(ev);
-    if (ev.defaultPrevented || !k || !this.drawable || (k === 'outputs' && !this.machine?.outputs.length)) return;
-    ev.preventDefault();
-    ev.stopPropagation();
-    if (k === 'link') this.startLink(n.id);
-    else if (k === 'rename' || k === 'outputs') this.openField(k, this.spotUnder(n.id), { state: n.id });
-    else {
-      this.draw.pick({ kind: 'state', id: n.id });
-      this.act(k);
-    }
-  }
-
-  private chooseTarget(ev: KeyboardEvent, from: string, to: string): void {
-    const k = targetKey(ev);
-    if (!k) return;
-    ev.preventDefault();
-    ev.stopPropagation();
-    const ids = this.layout?.nodes.map((x) => x.id) ?? [];
-    if (typeof k === 'object') this.draw.link({ from, to: ids[(ids.indexOf(to) + k.step + ids.length) % ids.length] });
-    else if (k === 'take') this.openField('new-transition', this.spotUnder(to), { state: from, to });
-    else {
-      this.draw.link(undefined);
-      this.draw.say(undefined);
-    }
-  }
-
-  /** Keys on a transition label: Enter finds it; with several transitions, ↑ and ↓ pick one; F2 or G its guard; Delete. */
-  private onLabelKey(ev: KeyboardEvent, e: LaidEdge): void {
-    const p = this.draw.picked;
-    const index = p?.kind === 'edge' && p.from === e.from && p.to === e.to ? p.index : 0;
-    onActivate(ev, e.sourceLines[index], (line) => this.revealLine(line));
-    const k = labelKey(ev);
-    if (ev.defaultPrevented || !k || !this.drawable || (typeof k === 'object' && e.lines.length < 2)) return;
-    ev.preventDefault();
-    ev.stopPropagation();
-    const i = typeof k === 'object' ? (index + k.step + e.lines.length) % e.lines.length : index;
-    this.draw.pick({ kind: 'edge', from: e.from, to: e.to, index: i });
-    if (typeof k === 'object')
-      this.draw.say(`Transition ${i + 1} of ${e.lines.length} from ${e.from} to ${e.to}: ${e.lines[i]}`);
-    else if (k === 'guard') this.openGuard(e, index);
-    else this.act('delete');
-  }
-
-  /** Keys anywhere in the sketch (not in its field): a new state, undo and redo, stop drawing. */
-  private readonly onKey = (ev: KeyboardEvent): void => {
-    const target = ev.composedPath()[0];
-    if (target instanceof HTMLElement && target.closest('input, textarea, select')) return;
-    const k = sketchKey(ev);
-    if (!k || (k === 'new-state' && !this.drawable) || (k === 'stop' && !this.draw.linking && !this.draw.field)) return;
-    ev.preventDefault();
-    if (typeof k === 'object') emit(this, 'undo', k);
-    else if (k === 'new-state') this.openNewState();
-    else this.draw.cancel();
-  };
-
-  /** Put the caret at the start of a line of the text (nothing selected, so the next key typed only adds). */
-  private revealLine(line: number | undefined): void {
-    if (line !== undefined) emit(this, 'reveal', { line, column: 1, select: false });
   }
 }
 

@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { parseTextMachine } from '../../../src/core/forms/text.js';
 import type { Machine, State } from '../../../src/core/model/machine.js';
-import { applyEdit, type TextEdit } from '../../../src/web/controllers/table-edit.js';
+import { apply, read } from './edits.support.js';
 import {
   deleteState,
   deleteTransition,
@@ -37,17 +36,6 @@ state open with gate=1, bell=0 final
 state spare
   go shut
 `;
-
-function read(text: string): Machine {
-  const r = parseTextMachine(text);
-  if (!r.machine) throw new Error(r.diagnostics.map((d) => d.message).join('; '));
-  return r.machine;
-}
-
-function apply(text: string, e: TextEdit | undefined): string {
-  if (!e) throw new Error('no edit');
-  return applyEdit(text, e);
-}
 
 function state(m: Machine, name: string): State {
   const s = m.states.find((x) => x.name === name);

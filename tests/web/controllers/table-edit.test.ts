@@ -1,29 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { parseTextMachine } from '../../../src/core/forms/text.js';
-import type { Machine } from '../../../src/core/model/machine.js';
-import {
-  addState,
-  addTransition,
-  applyEdit,
-  reguard,
-  retarget,
-  type TextEdit,
-} from '../../../src/web/controllers/table-edit.js';
+import { addState, addTransition, reguard, retarget } from '../../../src/web/controllers/table-edit.js';
+import { apply, read } from './edits.support.js';
 
 const LOCK = readFileSync(fileURLToPath(new URL('../../../examples/sequence-lock.lw', import.meta.url)), 'utf8');
-
-function read(text: string): Machine {
-  const r = parseTextMachine(text);
-  if (!r.machine) throw new Error(r.diagnostics.map((d) => d.message).join('; '));
-  return r.machine;
-}
-
-function apply(text: string, e: TextEdit | undefined): string {
-  if (!e) throw new Error('no edit');
-  return applyEdit(text, e);
-}
 
 /** Lines that differ between two texts of the same length in lines. */
 function changedLines(a: string, b: string): string[] {
