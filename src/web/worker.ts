@@ -34,7 +34,15 @@ import {
 } from './worker/jobs.js';
 import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
-import type { BuildView, ChecksView, FromWorker, RememberedSearch, ToWorker } from './worker/protocol.js';
+import { profileFileText } from './worker/profile-file.js';
+import type {
+  BuildView,
+  ChecksView,
+  FromWorker,
+  ProfileSetting,
+  RememberedSearch,
+  ToWorker,
+} from './worker/protocol.js';
 
 const scope = self as unknown as {
   postMessage(m: FromWorker): void;
@@ -43,8 +51,25 @@ const scope = self as unknown as {
 
 /** The newest revision asked for, per kind of job. */
 const latest: Record<string, number> = {};
-/** The build checked last: its revision, the checked build, its check key (jobs.ts `checkKey`), how many of its diagnostics were its reading's, and the page's view of it. */
-let checked: { rev: number; built: Built; key: string | undefined; read: number; view: ChecksView } | undefined;
+/**
+ * The build checked last: its revision, the checked build, its check key (jobs.ts `checkKey`),
+ * how many of its diagnostics were its reading's, the page's view of it, and the workshop's
+ * profile it was built with (the archive of its documents carries the file).
+ */
+let checked:
+  | {
+      rev: number;
+      built: Built;
+      key: string | undefined;
+      read: number;
+      view: ChecksView;
+      profile: ProfileSetting | undefined;
+    }
+  | undefined;
+
+/** The files besides the documents that the archive of a build carries: its profile file, when it has its own. */
+const extraFiles = (p: ProfileSetting | undefined): Record<string, string> =>
+  p ? { [p.name]: profileFileText(p) } : {};
 /** The encoding search under way: its setup's key, the newest build job waiting on it and that job's draft. */
 interface Running {
   readonly key: string;
@@ -191,16 +216,27 @@ function search(
   return r.done;
 }
 
+/** A document of the build checked last (with its profile file in the archive), or why not. */
+function exportDocument(m: Extract<ToWorker, { kind: 'export' }>): void {
+  if (!checked || checked.rev !== m.rev)
+    post({
+      kind: 'exported',
+      rev: m.rev,
+      doc: m.doc,
+      problem: 'the build is not checked yet; try again when the checks are done',
+    });
+  else
+    post({
+      kind: 'exported',
+      rev: m.rev,
+      doc: m.doc,
+      file: exportFile(checked.built, m.doc, extraFiles(checked.profile)),
+    });
+}
+
 async function run(m: ToWorker): Promise<void> {
   if (m.kind === 'export') {
-    if (!checked || checked.rev !== m.rev)
-      post({
-        kind: 'exported',
-        rev: m.rev,
-        doc: m.doc,
-        problem: 'the build is not checked yet; try again when the checks are done',
-      });
-    else post({ kind: 'exported', rev: m.rev, doc: m.doc, file: exportFile(checked.built, m.doc) });
+    exportDocument(m);
     return;
   }
   latest[m.kind] = m.rev;
@@ -236,7 +272,14 @@ async function run(m: ToWorker): Promise<void> {
         return;
       }
       const c = checkJob(builtForChecks(a, m.made), m.settings.seed);
-      checked = { rev: m.rev, built: c.built, key, read: a.diagnostics.length, view: c.view };
+      checked = {
+        rev: m.rev,
+        built: c.built,
+        key,
+        read: a.diagnostics.length,
+        view: c.view,
+        profile: m.settings.profile,
+      };
       post({ kind: 'checked', rev: m.rev, view: c.view });
       return;
     }

@@ -41,7 +41,7 @@ describe('src/web on a phone (end to end in chromium)', () => {
   });
 
   it('lets nothing overflow in any view; tables scroll in their own boxes', async () => {
-    for (const view of ['Sketch', 'Ledger', 'Code book', 'Parts & forces', 'Frame & cords', 'Trial run']) {
+    for (const view of ['Sketch', 'Ledger', 'Code book', 'Parts & forces', 'Frame & cords', 'Trial run', 'Shop']) {
       await tab(view);
       if (view === 'Code book') {
         await page.getByRole('button', { name: 'Price every encoding' }).click();

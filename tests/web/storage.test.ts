@@ -29,6 +29,8 @@ const BAD: Readonly<Record<KeptKey, string>> = {
   theme: 'neon',
   encoding: '{"kept": {"strategy": "auto", "bits": 2, "codes": ["00", "00"]}, "states": ["a"]}',
   unused: '../x y',
+  // μ given as a percentage: the core's loader refuses it (LW600), so the page never builds with it.
+  profile: '{"name": "shop.json", "value": {"mu": 25}}',
   written: '<script>',
 };
 

@@ -22,6 +22,7 @@ export const KEPT_ENTRIES = {
   theme: 'the colour theme',
   encoding: 'the codes chosen for the build',
   unused: 'where unused codes go',
+  profile: "the workshop's technology profile",
   written: "the page's own links",
 } as const;
 

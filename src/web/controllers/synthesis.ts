@@ -26,11 +26,13 @@ import {
   type EncodingChoice,
   type ExportFile,
   type FromWorker,
+  type ProfileSetting,
   type Reading,
 } from '../worker/protocol.js';
 import { keepDrop, keepRead, keepSet, parseJson } from './keep.js';
 import { Lane } from './lane.js';
 import { SearchMemory } from './search-memory.js';
+import { parseStoredProfile } from './workshop.js';
 
 /** Where the live work on the latest text stands. */
 export const Work = {
@@ -103,6 +105,7 @@ export function commandLine(file: string, s: BuildSettings): string {
     words.push('--encoding', s.encoding.strategy);
   if (s.unusedCodes !== undefined) words.push('--unused', quote(s.unusedCodes));
   if (s.seed !== d.seed) words.push('--seed', String(s.seed));
+  if (s.profile) words.push('--profile', quote(s.profile.name));
   return words.join(' ');
 }
 
@@ -113,7 +116,8 @@ export function isDefault(s: BuildSettings): boolean {
     'strategy' in DEFAULT_SETTINGS.encoding &&
     s.encoding.strategy === DEFAULT_SETTINGS.encoding.strategy &&
     s.seed === DEFAULT_SETTINGS.seed &&
-    s.unusedCodes === undefined
+    s.unusedCodes === undefined &&
+    s.profile === undefined
   );
 }
 
@@ -157,6 +161,8 @@ export class SynthesisController implements ReactiveController {
   private text = '';
   private file = '';
   private pricedText: string | undefined;
+  /** The profile the comparison was priced with (its rows are for that workshop only). */
+  private pricedProfile: ProfileSetting | undefined;
   /** The text and settings of the latest build job. */
   private sentBuild: { readonly text: string; readonly settings: BuildSettings } | undefined;
   private drawn = -1;
@@ -176,10 +182,12 @@ export class SynthesisController implements ReactiveController {
     host.addController(this);
     const encoding = keepRead('encoding', parseChoice);
     const unused = keepRead('unused', parseUnused);
+    const profile = keepRead('profile', parseStoredProfile);
     this.settings = {
       ...DEFAULT_SETTINGS,
       ...(encoding ? { encoding } : {}),
       ...(unused !== undefined ? { unusedCodes: unused } : {}),
+      ...(profile ? { profile } : {}),
     };
   }
 
@@ -239,7 +247,7 @@ export class SynthesisController implements ReactiveController {
       known: this.memory.entries(),
       ...(b ? { previous: { encoding: b.encoding, states: b.machine.states } } : {}),
     });
-    if (this.search === Search.running && text !== this.pricedText) this.cancelSearch();
+    if (this.search === Search.running && !this.pricedNow) this.cancelSearch();
     this.host.requestUpdate();
   }
 
@@ -256,9 +264,13 @@ export class SynthesisController implements ReactiveController {
     this.submit(this.text, this.file);
   }
 
-  /** Back to the command line's defaults (the searched codes, unused codes chosen automatically). */
+  /**
+   * Back to the command line's defaults for the codes (the searched codes, unused codes chosen
+   * automatically). The workshop's profile stays: it describes the workshop, not this build.
+   */
   useDefaults(): void {
-    this.settings = DEFAULT_SETTINGS;
+    const profile = this.settings.profile;
+    this.settings = profile ? { ...DEFAULT_SETTINGS, profile } : DEFAULT_SETTINGS;
     keepDrop('encoding');
     keepDrop('unused');
     this.submit(this.text, this.file);
@@ -273,6 +285,15 @@ export class SynthesisController implements ReactiveController {
     this.submit(this.text, this.file);
   }
 
+  /** Build with the workshop's own technology profile (one that loads without errors), or the shipped defaults. */
+  setProfile(p: ProfileSetting | undefined): void {
+    const { profile: _, ...rest } = this.settings;
+    this.settings = p ? { ...rest, profile: p } : rest;
+    if (p) keepSet('profile', JSON.stringify(p));
+    else keepDrop('profile');
+    this.submit(this.text, this.file);
+  }
+
   /** Stop the build's encoding search; the views keep the last build. */
   stopBuild(): void {
     this.builder.restart();
@@ -283,13 +304,19 @@ export class SynthesisController implements ReactiveController {
 
   /** The comparison shown was priced for the text as it is now. */
   get rowsCurrent(): boolean {
-    return this.search === Search.done && this.pricedText === this.text;
+    return this.search === Search.done && this.pricedNow;
+  }
+
+  /** The comparison is for the text and the profile as they are now. */
+  private get pricedNow(): boolean {
+    return this.pricedText === this.text && this.pricedProfile === this.settings.profile;
   }
 
   /** Price every encoding of the latest text. */
   compare(): void {
     this.searcher.restart();
     this.pricedText = this.text;
+    this.pricedProfile = this.settings.profile;
     this.search = Search.running;
     this.progress = undefined;
     this.searcher.send({ kind: 'compare', rev: this.rev, text: this.text, file: this.file, settings: this.settings });
@@ -433,7 +460,7 @@ export class SynthesisController implements ReactiveController {
     if (this.search !== Search.running) return;
     if (m.kind === 'progress') this.progress = { done: m.done, total: m.total, best: m.best };
     else if (m.kind === 'compared') {
-      if (this.pricedText !== this.text) return;
+      if (!this.pricedNow) return;
       this.rows = m.rows;
       this.shown.rows = m.rev;
       this.search = Search.done;

@@ -24,6 +24,7 @@ export const VIEWS = [
   { id: 'parts', label: 'Parts & forces' },
   { id: 'frame', label: 'Frame & cords' },
   { id: 'trial', label: 'Trial run' },
+  { id: 'workshop', label: 'Shop' },
 ] as const;
 
 export type ViewId = (typeof VIEWS)[number]['id'];

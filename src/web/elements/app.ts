@@ -1,6 +1,6 @@
 /**
  * <lw-app>: the designer's shell. The bench (the text) on the left; on the right the view
- * chosen from the tabs — sketch, ledger, code book, parts & forces, frame & cords, trial run (VIEWS in
+ * chosen from the tabs — sketch, ledger, code book, parts & forces, frame & cords, trial run, shop (VIEWS in
  * app-view.ts, each drawn by its entry in `views` below). It owns the controllers and routes
  * the elements' events to them; it holds no state of its own beyond which view is showing and
  * what it keeps drawn of the views that are not (KEPT_VIEWS).
@@ -14,6 +14,8 @@ import { applyEdit, type TextEdit } from '../controllers/table-edit.js';
 import { download, type SaveForm } from '../controllers/files.js';
 import { keepRead, keepSet } from '../controllers/keep.js';
 import { printHtml } from '../controllers/print.js';
+import { WorkshopController, type WorkshopPath } from '../controllers/workshop.js';
+import { profileFileText } from '../worker/profile-file.js';
 import { EXAMPLES } from '../examples.js';
 import { ALL_DOCUMENTS, PRINT_SHEET, type BuildView, type EncodingChoice } from '../worker/protocol.js';
 import {
@@ -41,6 +43,7 @@ import './parts.js';
 import './stepper.js';
 import './notation-card.js';
 import './frame-view.js';
+import './workshop.js';
 
 type Detail<T> = CustomEvent<T>;
 
@@ -68,6 +71,10 @@ export class LwApp extends LitElement {
     dropped: (ds) => this.source.tell(`Settings changed for this machine: ${ds.map((d) => d.words).join('; ')}.`),
   });
   private readonly source = new SourceController(this, (text, file) => this.synth.submit(text, file));
+  /** The workshop's own profile: the form's draft; the builds take each profile that loads without errors. */
+  private readonly workshop = new WorkshopController(this, this.synth.settings.profile, (p) =>
+    this.synth.setProfile(p),
+  );
   // Derived values keep their identity while their inputs do, so elements redraw only on change.
   private readonly problems = remember(
     (a: readonly Diagnostic[] | undefined, b: readonly Diagnostic[], file: string): readonly Diagnostic[] =>
@@ -114,6 +121,7 @@ export class LwApp extends LitElement {
     parts: () => this.partsView(),
     frame: () => this.frameView(),
     trial: () => this.trialView(),
+    workshop: () => this.workshopView(),
   };
 
   override connectedCallback(): void {
@@ -389,6 +397,20 @@ export class LwApp extends LitElement {
       }`;
   }
 
+  private workshopView() {
+    const w = this.workshop;
+    return html`<lw-workshop
+      .draft=${w.draft}
+      .problems=${w.problems}
+      .inUse=${w.good}
+      @profile-edit=${(e: Detail<{ path: WorkshopPath; raw: string }>) => w.edit(e.detail.path, e.detail.raw)}
+      @profile-source=${(e: Detail<{ path: WorkshopPath; words: string }>) => w.source(e.detail.path, e.detail.words)}
+      @profile-open=${(e: Detail<{ text: string; name: string }>) => w.open(e.detail.text, e.detail.name)}
+      @profile-save=${() => w.good && download(w.good.name, 'application/json', profileFileText(w.good))}
+      @profile-reset=${() => w.reset()}
+    ></lw-workshop>`;
+  }
+
   /** What the failing checks offer to do about themselves. */
   private fixes(): Fix[] {
     const s = this.synth;
@@ -397,7 +419,9 @@ export class LwApp extends LitElement {
     const out: Fix[] = [];
     if (failing.some((c) => c.name === 'recovery') && start !== undefined && s.settings.unusedCodes !== start)
       out.push({ id: 'unused-to-start', check: 'recovery', label: 'Send unused codes to the start state' });
-    if (failing.length > 0 && !isDefault(s.settings))
+    // The codes' settings only: the workshop's profile stays whatever the codes.
+    const { profile: _, ...codes } = s.settings;
+    if (failing.length > 0 && !isDefault(codes))
       out.push({ id: 'defaults', label: 'Use the searched codes (the command line’s defaults)' });
     return out;
   }

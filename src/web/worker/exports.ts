@@ -3,7 +3,9 @@
  * documents registry; each document is made on its first request, and the pieces several
  * documents share (the commissioning run, the Verilog pair) once per build. Two more things
  * are made from the same documents: the build sheet made ready to print, and one zip archive
- * (PKWARE APPNOTE .ZIP format, written by fflate) holding every document of the registry.
+ * (PKWARE APPNOTE .ZIP format, written by fflate) holding every document of the registry, and
+ * the files the build was made from besides the machine (the workshop's profile, when it is not
+ * the shipped defaults).
  */
 import { strToU8, zipSync } from 'fflate';
 import {
@@ -68,20 +70,24 @@ export function printSheet(b: Built): string {
   return sheet.replace('</style>', `${DRAWINGS_CSS}</style>`).replace('</body>', `${drawings}\n</body>`);
 }
 
-/** Every document of the registry in one zip archive, each under its download name. */
-export function documentsZip(b: Built): Uint8Array {
+/** Every document of the registry in one zip archive, each under its download name; `extra`: more files, by name. */
+export function documentsZip(b: Built, extra: Readonly<Record<string, string>> = {}): Uint8Array {
   const files: Record<string, Uint8Array> = {};
   for (const d of DOCUMENT_REGISTRY) files[fileName(b.build.machine.name, d.file)] = strToU8(documentText(b, d.file));
+  for (const [name, text] of Object.entries(extra)) files[name] = strToU8(text);
   return zipSync(files, { level: 6 });
 }
 
-/** One document of a checked build: a registered one by its file name, the sheet to print, or the archive of all. */
-export function exportFile(b: Built, file: string): ExportFile {
+/**
+ * One document of a checked build: a registered one by its file name, the sheet to print, or the
+ * archive of all (with the `extra` files, by name).
+ */
+export function exportFile(b: Built, file: string, extra: Readonly<Record<string, string>> = {}): ExportFile {
   const machine = b.build.machine.name;
   if (file === PRINT_SHEET)
     return { name: fileName(machine, 'build-sheet.html'), mime: 'text/html', text: printSheet(b) };
   if (file === ALL_DOCUMENTS)
-    return { name: fileName(machine, 'documents.zip'), mime: 'application/zip', bytes: documentsZip(b) };
+    return { name: fileName(machine, 'documents.zip'), mime: 'application/zip', bytes: documentsZip(b, extra) };
   const doc = documentByFile(file);
   if (!doc) throw new Error(`no document called '${file}'`);
   return { name: fileName(machine, doc.file), mime: doc.mime, text: documentText(b, doc.file) };

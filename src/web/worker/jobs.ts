@@ -10,6 +10,9 @@ import {
   BUILD_DEFAULTS,
   buildMachine,
   buildSearchSetup,
+  hasErrors,
+  loadProfile,
+  type Profile,
   type BuildOptions,
   type Built,
   compareEncodings,
@@ -37,6 +40,7 @@ import type {
   CodesFrom,
   DroppedSetting,
   MarginBar,
+  ProfileSetting,
   Reading,
   RememberedSearch,
   StandIn,
@@ -67,6 +71,26 @@ export function readJob(text: string, file: string): { reading: Reading; analyse
   return { reading, analysed: a };
 }
 
+/** Profiles read, by the setting they were read from (a job asks for its profile several times). */
+const loaded = new WeakMap<ProfileSetting, Profile>();
+
+/**
+ * The profile of a setting, read by the core's loader over the defaults as the command line's
+ * `--profile NAME` reads the file. The page sends only a profile that loaded without errors, so
+ * one that does not is a fault, never a build with other figures.
+ */
+export function settingProfile(p: ProfileSetting | undefined): Profile {
+  if (!p) return BUILD_DEFAULTS.profile;
+  let profile = loaded.get(p);
+  if (!profile) {
+    const r = loadProfile(p.value, p.name);
+    if (!r.profile || hasErrors(r.diagnostics))
+      throw new Error(`the profile ${p.name} did not load: ${r.diagnostics.map((d) => d.message).join('; ')}`);
+    loaded.set(p, (profile = r.profile));
+  }
+  return profile;
+}
+
 /** Build options from the page's settings (with the command line's defaults for all the page leaves out). */
 export function buildOptions(s: BuildSettings, onProgress?: (p: Progress) => void): BuildOptions {
   const e = s.encoding;
@@ -74,7 +98,7 @@ export function buildOptions(s: BuildSettings, onProgress?: (p: Progress) => voi
     encoding: 'kept' in e ? () => e.kept : e.strategy,
     seed: s.seed,
     ...(s.unusedCodes !== undefined ? { unusedCodes: s.unusedCodes } : {}),
-    profile: BUILD_DEFAULTS.profile,
+    profile: settingProfile(s.profile),
     ...(onProgress ? { onProgress } : {}),
   };
 }

@@ -47,6 +47,18 @@ export interface BuildSettings {
    * (don't-care unless the build could lock up, then the start state), as the command line.
    */
   readonly unusedCodes?: string;
+  /** The workshop's own technology profile (a profile file as `--profile` takes it); absent: the shipped defaults. */
+  readonly profile?: ProfileSetting;
+}
+
+/**
+ * A technology profile file as the page holds it: its name (the `--profile` file, and the
+ * profile's `about.file` as the command line gives it) and its JSON value, which the core's
+ * `loadProfile` reads over the defaults exactly as it reads the file for the command line.
+ */
+export interface ProfileSetting {
+  readonly name: string;
+  readonly value: Readonly<Record<string, unknown>>;
 }
 
 /** The settings a page starts with: the command line's defaults (BUILD_DEFAULTS), so both build the same machine. */

@@ -1,0 +1,188 @@
+/**
+ * The workshop's own technology profile in the page: the figures of its cord, drum and weights,
+ * read, checked and saved as a profile file the command line takes with `--profile FILE`.
+ *
+ * Every value is checked by the core's own loader (`loadProfile`, diagnostics LW600–LW602 with
+ * their hints), never by a copy of its rules. The form edits a draft; the build keeps the last
+ * draft that loaded without errors (`good`), so a value being typed never stops the build or
+ * changes it to figures nobody meant. A profile file names only what it changes
+ * (docs/profile.md): what is saved is the fields that differ from the shipped defaults, with the
+ * `sources` and the description.
+ */
+import type { ReactiveController, ReactiveControllerHost } from 'lit';
+import { DEFAULT_PROFILE, hasErrors, loadProfile, readJsonText, type Diagnostic } from '../../core/index.js';
+import { describeRule, plausibleWords, PROFILE_RULES, type NumberRule } from '../../core/physics/index.js';
+import { valueAt } from '../worker/profile-file.js';
+import type { ProfileSetting } from '../worker/protocol.js';
+import { isFileName, parseJson } from './keep.js';
+
+/** The figures the workshop form offers, in its order, named in our words; `path` is the profile field. */
+export const WORKSHOP_FIELDS = [
+  { path: 'mu', label: 'Friction of cord on the turning drum (μ)' },
+  { path: 'zWeightG', label: 'Weight on each gate’s summing lever Z' },
+  { path: 'portWeightG', label: 'Weight on each port lever' },
+  { path: 'leverWeightG', label: 'Weight on each operator, clock and reset lever' },
+  { path: 'wraps', label: 'Turns of cord per capstan' },
+  { path: 'maxWraps', label: 'Most turns one capstan may have' },
+  { path: 'drumRadiusM', label: 'Drum radius (half its diameter)' },
+  { path: 'frame.longestDrumM', label: 'Longest drum the frame carries' },
+  { path: 'frame.drumsPerFrame', label: 'Drums one frame carries' },
+  { path: 'minMargin', label: 'Design margin (available over needed tension)' },
+] as const;
+
+export type WorkshopPath = (typeof WORKSHOP_FIELDS)[number]['path'];
+
+/** The name a profile started in the page is saved under (and named by on the command line). */
+export const WORKSHOP_FILE = 'workshop-profile.json';
+
+/** What the form says of one figure: its unit, allowed and plausible ranges, shipped default. */
+export interface FieldFacts {
+  readonly unit: string;
+  readonly range: string;
+  readonly plausible: string;
+  readonly fallback: number;
+}
+
+type Value = Readonly<Record<string, unknown>>;
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/** A copy of `v` with the field at `path` set to `x`, or removed (with its group when that empties) for undefined. */
+export function withValue(v: Value, path: string, x: unknown): Value {
+  const [head, ...rest] = path.split('.');
+  const out: Record<string, unknown> = { ...v };
+  if (rest.length === 0) {
+    if (x === undefined) delete out[head];
+    else out[head] = x;
+    return out;
+  }
+  const inner = withValue(isObject(v[head]) ? v[head] : {}, rest.join('.'), x);
+  if (Object.keys(inner).length === 0) delete out[head];
+  else out[head] = inner;
+  return out;
+}
+
+/** The unit, ranges and default of a figure, from the core's rules. */
+export function fieldFacts(path: WorkshopPath): FieldFacts {
+  const r: NumberRule = PROFILE_RULES[path];
+  return {
+    unit: r.unit,
+    range: describeRule(r),
+    plausible: plausibleWords(r),
+    fallback: valueAt(DEFAULT_PROFILE, path) as number,
+  };
+}
+
+/** The diagnostics of a profile setting, from the core's loader (as `--profile` would give them). */
+export function profileDiagnostics(s: ProfileSetting): Diagnostic[] {
+  return loadProfile(s.value, s.name).diagnostics;
+}
+
+/** A profile file's text as a setting, or the diagnostics that refuse it (JSON syntax, LW600, LW601 …). */
+export function readProfileFile(
+  text: string,
+  name: string,
+): { readonly setting?: ProfileSetting; readonly diagnostics: readonly Diagnostic[] } {
+  const read = readJsonText(text, name, 'the profile');
+  if (!read.ok) return { diagnostics: read.diagnostics };
+  if (!isObject(read.value)) return { diagnostics: loadProfile(read.value, name).diagnostics };
+  const setting: ProfileSetting = { name, value: read.value };
+  const diagnostics = profileDiagnostics(setting);
+  return hasErrors(diagnostics) ? { diagnostics } : { setting, diagnostics };
+}
+
+/** A stored profile setting (keep.ts), if it has the shape of one and loads without errors. */
+export function parseStoredProfile(raw: string): ProfileSetting | undefined {
+  const v = parseJson(raw);
+  if (!isObject(v) || !isFileName(v.name) || !isObject(v.value)) return undefined;
+  const setting: ProfileSetting = { name: v.name, value: v.value };
+  return hasErrors(profileDiagnostics(setting)) ? undefined : setting;
+}
+
+/** A number typed in the form, as the value to try: '' leaves the field to its default; text that is no number goes to the loader as typed (it says why). */
+export function typedValue(raw: string): unknown {
+  const t = raw.trim();
+  if (t === '') return undefined;
+  const n = Number(t);
+  return Number.isFinite(n) ? n : t;
+}
+
+/**
+ * The form's state: the draft as edited, its diagnostics, and the last good profile, which the
+ * build uses. `changed` is told every new good profile (undefined: the shipped defaults).
+ */
+export class WorkshopController implements ReactiveController {
+  /** The profile as edited (may hold a value the loader refuses). */
+  draft: ProfileSetting;
+  /** The diagnostics of the draft, or of a file that could not be opened. */
+  problems: readonly Diagnostic[] = [];
+  /** The last profile that loaded without errors; undefined: the shipped defaults. */
+  good: ProfileSetting | undefined;
+
+  constructor(
+    private readonly host: ReactiveControllerHost,
+    initial: ProfileSetting | undefined,
+    private readonly changed: (s: ProfileSetting | undefined) => void,
+  ) {
+    host.addController(this);
+    this.good = initial;
+    this.draft = initial ?? { name: WORKSHOP_FILE, value: {} };
+    if (initial) this.problems = profileDiagnostics(initial);
+  }
+
+  hostConnected(): void {
+    // nothing to start: the form works on the page's thread, the builds in the workers
+  }
+
+  /** The draft's diagnostics at one field (`$.mu`, `$.frame.longestDrumM`, `$.sources.mu`). */
+  problemsAt(path: string): readonly Diagnostic[] {
+    return this.problems.filter((d) => d.location.path === `$.${path}`);
+  }
+
+  /** A figure typed into the form. */
+  edit(path: WorkshopPath, raw: string): void {
+    this.tryDraft({ ...this.draft, value: withValue(this.draft.value, path, typedValue(raw)) });
+  }
+
+  /** Where a figure comes from, typed into the form ('' removes the entry). */
+  source(path: WorkshopPath, words: string): void {
+    const sources = isObject(this.draft.value.sources) ? this.draft.value.sources : {};
+    const next: Record<string, unknown> = { ...sources };
+    if (words.trim() === '') delete next[path];
+    else next[path] = words;
+    const value = withValue(this.draft.value, 'sources', undefined);
+    this.tryDraft({ ...this.draft, value: Object.keys(next).length > 0 ? { ...value, sources: next } : value });
+  }
+
+  /** A profile file opened: it replaces the draft when it loads; otherwise its problems show and nothing changes. */
+  open(text: string, name: string): boolean {
+    const r = readProfileFile(text, name);
+    this.problems = r.diagnostics;
+    if (r.setting) {
+      this.draft = r.setting;
+      this.adopt(r.setting);
+    }
+    this.host.requestUpdate();
+    return r.setting !== undefined;
+  }
+
+  /** Back to the shipped defaults. */
+  reset(): void {
+    this.draft = { name: WORKSHOP_FILE, value: {} };
+    this.problems = [];
+    this.adopt(undefined);
+    this.host.requestUpdate();
+  }
+
+  private tryDraft(d: ProfileSetting): void {
+    this.draft = d;
+    this.problems = profileDiagnostics(d);
+    if (!hasErrors(this.problems)) this.adopt(Object.keys(d.value).length > 0 ? d : undefined);
+    this.host.requestUpdate();
+  }
+
+  private adopt(s: ProfileSetting | undefined): void {
+    this.good = s;
+    this.changed(s);
+  }
+}

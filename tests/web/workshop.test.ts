@@ -1,0 +1,105 @@
+/**
+ * The workshop's own profile in the page, end to end in a real browser (headless Chromium from
+ * the npm package @sparticuz/chromium, ./chromium.ts) against the production build (./page.ts).
+ * The guide's slippery cord (examples/profiles/slippery-cord.json, μ = 0.12, docs/guide.md §6)
+ * is opened in the Shop view: the friction headroom of the drive check follows it, the
+ * verdict is the command line's for `--profile` of the same file (run in-process), the status
+ * says own settings and the code book's command names the profile. A bad value shows its code
+ * and hint while the build keeps the last good profile; a reload keeps the profile; one click
+ * goes back to the shipped defaults.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import type { BrowserContext, Page } from 'playwright-core';
+import { loadProfile } from '../../src/core/index.js';
+import { run } from '../cli/support.js';
+import { built, downloaded, openPage, shot, startDesigner, type Designer } from './page.js';
+
+const PROFILE = 'examples/profiles/slippery-cord.json';
+
+let designer: Designer;
+let context: BrowserContext;
+let page: Page;
+
+const tab = (name: string): Promise<void> => page.getByRole('tab', { name }).click();
+const status = (): ReturnType<Page['locator']> => page.locator('lw-app .status');
+const headroom = async (): Promise<string> => {
+  await tab('Parts & forces');
+  return page.locator('lw-parts [data-headroom]').innerText();
+};
+/** Wait until the latest build is checked and the status does (or does not) say own settings. */
+async function builtWith(own: boolean): Promise<void> {
+  await built(page);
+  await page
+    .locator(
+      own ? 'lw-app .status[data-work="done"]' : 'lw-app .status[data-work="done"]:not(:has-text("own settings"))',
+    )
+    .filter(own ? { hasText: 'own settings' } : {})
+    .waitFor({ timeout: 60_000 });
+}
+
+beforeAll(async () => {
+  designer = await startDesigner();
+  context = await designer.context();
+  page = await openPage(context, designer.url);
+});
+
+afterAll(async () => {
+  await designer.close();
+});
+
+describe('src/web/elements/workshop (end to end in chromium)', () => {
+  it('builds with an opened profile, says so, and goes back to the defaults in one click', async () => {
+    await page
+      .locator('lw-bench select[aria-label="Load an example machine"]')
+      .selectOption({ label: 'Marble bell (every third marble)' });
+    await builtWith(false);
+    expect(await headroom()).toContain('(μ = 0.25 now)');
+    const file = await page.locator('lw-bench label.file input').inputValue();
+
+    await tab('Shop');
+    await page.locator('lw-workshop input[type=file]').setInputFiles(PROFILE);
+    await builtWith(true);
+    expect(await headroom()).toContain('(μ = 0.12 now)');
+    // The verdict is the command line's for the same machine and profile.
+    const cli = await run(['build', 'examples/marble-bell.lw', '--profile', PROFILE]);
+    expect(await status().innerText()).toContain(cli.code === 0 ? 'every check passes' : 'failing');
+    await tab('Code book');
+    expect(await page.locator('lw-codes [data-cli]').innerText()).toBe(
+      `latchwright build ${file} --profile slippery-cord.json`,
+    );
+
+    // Saved: only what differs from the defaults, which the core reads back to μ = 0.12.
+    await tab('Shop');
+    const saved = await downloaded(page, () => page.getByRole('button', { name: 'Save the profile' }).click());
+    expect(saved.name).toBe('slippery-cord.json');
+    const back = loadProfile(JSON.parse(readFileSync(saved.path, 'utf8')), saved.name);
+    expect(back.profile?.mu).toBe(0.12);
+
+    // A percentage typed for μ: the loader's code and hint, and the build keeps μ = 0.12.
+    const mu = page.getByRole('textbox', { name: /Friction of cord on the turning drum/ });
+    await mu.fill('25');
+    await mu.press('Enter');
+    await mu.blur();
+    const problem = page.locator('lw-workshop fieldset[data-field="mu"] .problem');
+    await problem.waitFor();
+    expect(await problem.innerText()).toMatch(/LW600.*did you mean 0\.25 \(a percentage given as a fraction\)\?/s);
+    expect(await mu.getAttribute('aria-invalid')).toBe('true');
+    await shot(page, 'workshop');
+    await builtWith(true);
+    expect(await headroom()).toContain('(μ = 0.12 now)');
+
+    // A reload keeps the profile in use.
+    await page.reload();
+    await builtWith(true);
+    expect(await headroom()).toContain('(μ = 0.12 now)');
+    await tab('Shop');
+    expect(await page.locator('lw-workshop [data-profile-name]').innerText()).toBe('slippery-cord.json');
+
+    // Back to the shipped defaults: one click.
+    await page.getByRole('button', { name: 'Back to the shipped defaults' }).click();
+    await builtWith(false);
+    expect(await headroom()).toContain('(μ = 0.25 now)');
+    expect(await status().innerText()).not.toContain('own settings');
+  });
+});
