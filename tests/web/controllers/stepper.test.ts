@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import type { ReactiveController, ReactiveControllerHost } from 'lit';
+import { host } from './host.support.js';
 import { analyse, buildMachine } from '../../../src/core/pipeline.js';
 import { runAbstract } from '../../../src/core/sim/abstract.js';
 import { momentWords, nextPhase, StepperController } from '../../../src/web/controllers/stepper.js';
@@ -9,18 +9,6 @@ import { clockActions } from '../../../src/core/sim/hand.js';
 import { tracesOf } from '../../../src/web/controllers/traces.js';
 
 const BELL = readFileSync(fileURLToPath(new URL('../../../examples/marble-bell.lw', import.meta.url)), 'utf8');
-
-function host(): ReactiveControllerHost & { updates: number } {
-  return {
-    updates: 0,
-    addController(_c: ReactiveController) {},
-    removeController(_c: ReactiveController) {},
-    requestUpdate() {
-      this.updates++;
-    },
-    updateComplete: Promise.resolve(true),
-  };
-}
 
 const key = (k: string, code = '', shiftKey = false, ctrlKey = false): KeyboardEvent =>
   ({ key: k, code, shiftKey, ctrlKey, altKey: false, metaKey: false }) as KeyboardEvent;

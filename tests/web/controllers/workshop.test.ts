@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import type { ReactiveController, ReactiveControllerHost } from 'lit';
+import { host } from './host.support.js';
 import { DEFAULT_PROFILE, loadProfile } from '../../../src/core/index.js';
 import { PROFILE_RULES } from '../../../src/core/physics/index.js';
 import {
@@ -24,19 +24,6 @@ import { profileFileText, savedValue } from '../../../src/web/worker/profile-fil
 import { DEFAULT_SETTINGS, type ProfileSetting } from '../../../src/web/worker/protocol.js';
 
 const SLIPPERY = readFileSync('examples/profiles/slippery-cord.json', 'utf8');
-
-/** A host that records how often it was asked to draw. */
-function host(): ReactiveControllerHost & { updates: number } {
-  return {
-    updates: 0,
-    addController(_c: ReactiveController) {},
-    removeController(_c: ReactiveController) {},
-    requestUpdate() {
-      this.updates++;
-    },
-    updateComplete: Promise.resolve(true),
-  };
-}
 
 function form(initial?: ProfileSetting) {
   const told: (ProfileSetting | undefined)[] = [];
