@@ -6,13 +6,15 @@
  * verdict is the command line's for `--profile` of the same file (run in-process), the status
  * says own settings and the code book's command names the profile. A bad value shows its code
  * and hint while the build keeps the last good profile; a reload keeps the profile; one click
- * goes back to the shipped defaults.
+ * goes back to the shipped defaults. A figure of the folded part of the form (the stage time)
+ * gives the timing check the command line gives for a profile file naming the same figure.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { loadProfile } from '../../src/core/index.js';
-import { run } from '../cli/support.js';
+import { removeTempDirs, run, tempDir } from '../cli/support.js';
 import { built, downloaded, openPage, shot, startDesigner, type Designer } from './page.js';
 
 const PROFILE = 'examples/profiles/slippery-cord.json';
@@ -101,5 +103,36 @@ describe('src/web/elements/workshop (end to end in chromium)', () => {
     await builtWith(false);
     expect(await headroom()).toContain('(μ = 0.25 now)');
     expect(await status().innerText()).not.toContain('own settings');
+  });
+
+  it('takes every other figure of the profile too: a stage time typed there times the clock as --profile does', async () => {
+    await tab('Shop');
+    await page.locator('lw-workshop details.more summary').click();
+    const stage = page.getByRole('textbox', { name: /^Time for one gate stage/ });
+    await stage.fill('0.5');
+    await stage.press('Enter');
+    await stage.blur();
+    await builtWith(true);
+    await tab('Parts & forces');
+    const timing = await page.locator('lw-parts li[data-check="timing"] .summary').innerText();
+    // The command line with a profile file that names the same figure.
+    const file = join(tempDir('lw-stage-'), 'stage.json');
+    writeFileSync(file, JSON.stringify({ stageDelayS: 0.5 }));
+    const cli = await run(['build', 'examples/marble-bell.lw', '--profile', file, '--json']);
+    const report = JSON.parse(cli.out) as { checks: { name: string; summary: string }[] };
+    expect(timing).toBe(report.checks.find((c) => c.name === 'timing')?.summary);
+    expect(timing).toMatch(/^φ1 1\.5 s, φ2 2 s/);
+    // Saved, it names that figure and nothing else of the defaults.
+    await tab('Shop');
+    const saved = await downloaded(page, () => page.getByRole('button', { name: 'Save the profile' }).click());
+    const value = JSON.parse(readFileSync(saved.path, 'utf8')) as Record<string, unknown>;
+    expect(value.stageDelayS).toBe(0.5);
+    expect(Object.keys(value).filter((k) => !['$schema', 'description', 'sources'].includes(k))).toEqual([
+      'stageDelayS',
+    ]);
+    expect(loadProfile(value, saved.name).profile?.stageDelayS).toBe(0.5);
+    await page.getByRole('button', { name: 'Back to the shipped defaults' }).click();
+    await builtWith(false);
+    removeTempDirs();
   });
 });

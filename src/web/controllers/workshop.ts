@@ -30,7 +30,37 @@ export const WORKSHOP_FIELDS = [
   { path: 'minMargin', label: 'Design margin (available over needed tension)' },
 ] as const;
 
-export type WorkshopPath = (typeof WORKSHOP_FIELDS)[number]['path'];
+/** A profile field the form can edit: one of PROFILE_RULES (`mu`, `frame.longestDrumM`, `cost.gate` …). */
+export type WorkshopPath = string;
+
+/**
+ * What each profile field is for, in the words of the profile reference (docs/profile.md): the
+ * first sentence of the last column of its tables, by field; a row that names several fields
+ * (the cost weights) gives its words to each. Read from the reference itself, so the form and
+ * the reference never disagree. Pure.
+ */
+export function fieldWords(reference: string): ReadonlyMap<string, string> {
+  const out = new Map<string, string>();
+  for (const line of reference.split('\n')) {
+    if (!line.startsWith('| `')) continue;
+    const cells = line.split(/(?<!\\)\|/).map((c) => c.trim());
+    const names = [...(cells[1] ?? '').matchAll(/`([^`]+)`/g)].map((m) => m[1]);
+    const words = (cells[cells.length - 2] ?? '').replace(/\*\*/g, '').replace(/`/g, '');
+    const first = /^.*?\.(?=\s|$)/.exec(words)?.[0] ?? words;
+    // A row of several fields (the cost weights) names which one each field is.
+    for (const n of names)
+      if (!out.has(n)) out.set(n, names.length > 1 ? `${first.replace(/\.$/, '')}: ${n.split('.').pop()}` : first);
+  }
+  return out;
+}
+
+/** Every other figure of the profile (not in WORKSHOP_FIELDS), in the core's order, each named by the reference's words (its field name where the reference has none). */
+export function otherFields(words: ReadonlyMap<string, string>): { readonly path: string; readonly label: string }[] {
+  const main = new Set<string>(WORKSHOP_FIELDS.map((f) => f.path));
+  return Object.keys(PROFILE_RULES)
+    .filter((path) => !main.has(path))
+    .map((path) => ({ path, label: words.get(path) ?? path }));
+}
 
 /** The name a profile started in the page is saved under (and named by on the command line). */
 export const WORKSHOP_FILE = 'workshop-profile.json';
@@ -64,7 +94,8 @@ export function withValue(v: Value, path: string, x: unknown): Value {
 
 /** The unit, ranges and default of a figure, from the core's rules. */
 export function fieldFacts(path: WorkshopPath): FieldFacts {
-  const r: NumberRule = PROFILE_RULES[path];
+  const r: NumberRule | undefined = PROFILE_RULES[path];
+  if (!r) throw new Error(`no profile field ${path}`);
   return {
     unit: r.unit,
     range: describeRule(r),

@@ -3,15 +3,29 @@
  * form over a technology profile (the file `latchwright build --profile FILE` takes). It only
  * renders: the WorkshopController holds the draft and its diagnostics, and the page builds with
  * the last profile that loaded without errors. Each figure shows its unit, its allowed and
- * plausible ranges, the shipped default and where the value comes from (`sources`).
+ * plausible ranges, the shipped default and where the value comes from (`sources`). The ten
+ * figures that matter most come first; every other figure of the core's rules follows in a
+ * folded part, named by the profile reference's own words (docs/profile.md, read as the page
+ * is built), so the form and the reference never disagree.
  */
 import { LitElement, css, html, nothing } from 'lit';
 import { formatDiagnostic, type Diagnostic } from '../../core/index.js';
-import { fieldFacts, WORKSHOP_FIELDS, WORKSHOP_FILE, type WorkshopPath } from '../controllers/workshop.js';
+import reference from '../../../docs/profile.md?raw';
+import {
+  fieldFacts,
+  fieldWords,
+  otherFields,
+  WORKSHOP_FIELDS,
+  WORKSHOP_FILE,
+  type WorkshopPath,
+} from '../controllers/workshop.js';
 import { valueAt } from '../worker/profile-file.js';
 import type { ProfileSetting } from '../worker/protocol.js';
 import { shared, viewColumn } from '../styles/shared.js';
 import { emit } from './emit.js';
+
+/** The rest of the profile's figures, named in the reference's words. */
+const OTHER_FIELDS = otherFields(fieldWords(reference));
 
 export class LwWorkshop extends LitElement {
   static override properties = {
@@ -86,6 +100,13 @@ export class LwWorkshop extends LitElement {
       .facts {
         font-size: 0.8rem;
       }
+      details.more {
+        margin-top: 0.9rem;
+      }
+      details.more summary {
+        cursor: pointer;
+        margin-bottom: 0.6rem;
+      }
       .problem {
         font-family: var(--lw-mono);
         font-size: 0.8rem;
@@ -130,6 +151,13 @@ export class LwWorkshop extends LitElement {
           lowest of several measurements. A figure left empty keeps the shipped default.
         </p>
         <div class="figures">${WORKSHOP_FIELDS.map((f) => this.field(f.path, f.label))}</div>
+        <details class="more" ?open=${this.otherInUse()}>
+          <summary>
+            Every other figure (${OTHER_FIELDS.length}): stage time and its spread, pulleys and pins, frame and cam
+            dimensions, cord allowances, the search's cost weights
+          </summary>
+          <div class="figures">${OTHER_FIELDS.map((f) => this.field(f.path, f.label))}</div>
+        </details>
       </section>
       <section class="panel" aria-label="Cautions">
         <p class="soft">
@@ -140,9 +168,20 @@ export class LwWorkshop extends LitElement {
       </section>`;
   }
 
+  /** A figure of the folded part has a value of the workshop's own or a problem: the part opens. */
+  private otherInUse(): boolean {
+    return OTHER_FIELDS.some(
+      (f) =>
+        valueAt(this.draft.value, f.path) !== undefined ||
+        this.problems.some((d) => d.location.path === `$.${f.path}` || d.location.path === `$.sources.${f.path}`),
+    );
+  }
+
   /** The problems that name no field of the form (a file that is no profile, an unknown field, …). */
   private fileProblems() {
-    const shown = new Set<string>(WORKSHOP_FIELDS.flatMap((f) => [`$.${f.path}`, `$.sources.${f.path}`]));
+    const shown = new Set<string>(
+      [...WORKSHOP_FIELDS, ...OTHER_FIELDS].flatMap((f) => [`$.${f.path}`, `$.sources.${f.path}`]),
+    );
     const rest = this.problems.filter((d) => !shown.has(d.location.path ?? ''));
     if (rest.length === 0) return nothing;
     return html`<div role="alert">

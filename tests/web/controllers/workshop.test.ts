@@ -12,6 +12,8 @@ import { DEFAULT_PROFILE, loadProfile } from '../../../src/core/index.js';
 import { PROFILE_RULES } from '../../../src/core/physics/index.js';
 import {
   fieldFacts,
+  fieldWords,
+  otherFields,
   parseStoredProfile,
   readProfileFile,
   typedValue,
@@ -44,6 +46,24 @@ describe('src/web/controllers/workshop', () => {
     // docs/profile.md, The frame: drums per frame, a whole number ≥ 1, default 2.
     expect(fieldFacts('frame.drumsPerFrame')).toMatchObject({ unit: 'count', range: 'a whole number, at least 1' });
     expect(fieldFacts('drumRadiusM')).toMatchObject({ unit: 'm', fallback: 0.04 });
+  });
+
+  it('offers every other figure of the profile, each named in the words of docs/profile.md', () => {
+    const words = fieldWords(readFileSync('docs/profile.md', 'utf8'));
+    const others = otherFields(words);
+    // The form's two parts together hold every field the core's rules know, each once.
+    const all = [...WORKSHOP_FIELDS.map((f) => f.path), ...others.map((f) => f.path)];
+    expect(new Set(all).size).toBe(all.length);
+    expect([...all].sort()).toEqual(Object.keys(PROFILE_RULES).sort());
+    // Every one has words of the reference's own table, its first sentence.
+    for (const path of Object.keys(PROFILE_RULES)) expect(words.get(path), path).toMatch(/^[A-Z].*\.$|: [a-z]+$/);
+    // docs/profile.md, Fields: the stage time, and a row naming all six cost weights.
+    expect(others.find((f) => f.path === 'stageDelayS')?.label).toBe(
+      'Time for one gate stage: lever swing plus cord take-up.',
+    );
+    expect(others.find((f) => f.path === 'cost.capstan')?.label).toBe(
+      'Relative effort per part kind, used by the automatic encoding search to compare builds: capstan',
+    );
   });
 
   it('builds with a good value at once, and keeps the last good profile while a bad one stands (LW600 with its hint)', () => {
