@@ -35,7 +35,7 @@ export type WorkshopPath = string;
 
 /**
  * What each profile field is for, in the words of the profile reference (docs/profile.md): the
- * first sentence of the last column of its tables, by field; a row that names several fields
+ * first sentence of the last column of its tables, by field, as a heading; a row that names several fields
  * (the cost weights) gives its words to each. Read from the reference itself, so the form and
  * the reference never disagree. Pure.
  */
@@ -46,10 +46,13 @@ export function fieldWords(reference: string): ReadonlyMap<string, string> {
     const cells = line.split(/(?<!\\)\|/).map((c) => c.trim());
     const names = [...(cells[1] ?? '').matchAll(/`([^`]+)`/g)].map((m) => m[1]);
     const words = (cells[cells.length - 2] ?? '').replace(/\*\*/g, '').replace(/`/g, '');
-    const first = /^.*?\.(?=\s|$)/.exec(words)?.[0] ?? words;
+    // The first sentence, as a heading: no closing full stop, and no aside that points to
+    // another part of the reference ("… from the frame, below"), which the form does not have.
+    const first = (/^.*?\.(?=\s|$)/.exec(words)?.[0] ?? words)
+      .replace(/\s*\([^()]*\b(?:below|above)\b[^()]*\)/g, '')
+      .replace(/\.$/, '');
     // A row of several fields (the cost weights) names which one each field is.
-    for (const n of names)
-      if (!out.has(n)) out.set(n, names.length > 1 ? `${first.replace(/\.$/, '')}: ${n.split('.').pop()}` : first);
+    for (const n of names) if (!out.has(n)) out.set(n, names.length > 1 ? `${first}: ${n.split('.').pop()}` : first);
   }
   return out;
 }

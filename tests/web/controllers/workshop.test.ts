@@ -55,11 +55,14 @@ describe('src/web/controllers/workshop', () => {
     const all = [...WORKSHOP_FIELDS.map((f) => f.path), ...others.map((f) => f.path)];
     expect(new Set(all).size).toBe(all.length);
     expect([...all].sort()).toEqual(Object.keys(PROFILE_RULES).sort());
-    // Every one has words of the reference's own table, its first sentence.
-    for (const path of Object.keys(PROFILE_RULES)) expect(words.get(path), path).toMatch(/^[A-Z].*\.$|: [a-z]+$/);
+    // Every one has words of the reference's own table: its first sentence, as a heading (no full stop).
+    for (const path of Object.keys(PROFILE_RULES)) expect(words.get(path), path).toMatch(/^[A-Z].*[^.]$/);
     // docs/profile.md, Fields: the stage time, and a row naming all six cost weights.
     expect(others.find((f) => f.path === 'stageDelayS')?.label).toBe(
-      'Time for one gate stage: lever swing plus cord take-up.',
+      'Time for one gate stage: lever swing plus cord take-up',
+    );
+    expect(others.find((f) => f.path === 'cordBranchM')?.label).toBe(
+      'Length allowed per cord branch where a build has no placement',
     );
     expect(others.find((f) => f.path === 'cost.capstan')?.label).toBe(
       'Relative effort per part kind, used by the automatic encoding search to compare builds: capstan',
