@@ -50,7 +50,7 @@ export {
   type Severity,
 } from './model/diagnostics.js';
 export { seededRandom, type Random } from './model/random.js';
-export { nameRecord, nameRecordOf, ownValue } from './model/records.js';
+export { isJsonObject, nameRecord, nameRecordOf, ownValue } from './model/records.js';
 export { counted } from './model/words.js';
 
 // ── Parse and print: the text form, the JSON form, xstate configs ───────────────────────────

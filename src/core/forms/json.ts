@@ -19,6 +19,7 @@ import type { Guard, Machine, OutBit, SourceLoc, State, Transition } from '../mo
 import { alwaysGuard, parseGuard, printExpr } from './expr.js';
 import { jsonKey } from './json-path.js';
 import { locateJsonPaths, readJsonText } from './json-file.js';
+import { isJsonObject, ownValue as own } from '../model/records.js';
 
 /** The JSON form of a transition. */
 export interface JsonTransition {
@@ -58,8 +59,6 @@ const STATE_KEYS = ['name', 'code', 'final', 'outputs', 'transitions'];
 const TRANSITION_KEYS = ['when', 'to', 'outputs'];
 
 type Obj = Record<string, unknown>;
-const isObj = (v: unknown): v is Obj => typeof v === 'object' && v !== null && !Array.isArray(v);
-const own = (o: Obj, k: string): unknown => (Object.prototype.hasOwnProperty.call(o, k) ? o[k] : undefined);
 
 export { jsonKey };
 
@@ -136,7 +135,7 @@ class JsonReader {
   outputsMap(v: unknown, path: string, locs: Record<string, SourceLoc>): Record<string, OutBit> {
     const rec = Object.create(null) as Record<string, OutBit>;
     if (v === undefined) return rec;
-    if (!isObj(v)) {
+    if (!isJsonObject(v)) {
       this.wrongType(path, 'an object of output values, like {"bell": 1}', v);
       return rec;
     }
@@ -224,7 +223,7 @@ function readNever(r: JsonReader, value: Obj, inputs: readonly string[]): Guard[
 function readLoads(r: JsonReader, value: Obj, locs: Record<string, SourceLoc>): Record<string, number> | undefined {
   const raw = own(value, 'loadsG');
   if (raw === undefined) return undefined;
-  if (!isObj(raw)) {
+  if (!isJsonObject(raw)) {
     r.wrongType('$.loadsG', 'an object of output name → grams, like {"bell": 120}', raw);
     return undefined;
   }
@@ -272,7 +271,7 @@ function readStates(r: JsonReader, value: Obj, inputs: readonly string[]): State
 /** State number `si` (0-based); undefined when it has no usable name. */
 function readState(r: JsonReader, rs: unknown, si: number, inputs: readonly string[]): State | undefined {
   const sp = `$.states[${si}]`;
-  if (!isObj(rs)) {
+  if (!isJsonObject(rs)) {
     r.wrongType(sp, 'a state object', rs);
     return undefined;
   }
@@ -326,7 +325,7 @@ function readTransition(
   what: string,
   inputs: readonly string[],
 ): Transition | undefined {
-  if (!isObj(rt)) {
+  if (!isJsonObject(rt)) {
     r.wrongType(tp, 'a transition object', rt);
     return undefined;
   }
@@ -344,7 +343,7 @@ function readTransition(
 /** Read an already parsed JSON value into a Machine. */
 export function machineFromJson(value: unknown, file?: string): MachineResult {
   const r = new JsonReader(file);
-  if (!isObj(value)) {
+  if (!isJsonObject(value)) {
     const msg = `a machine must be a JSON object, not ${typeName(value)}`;
     r.ds.push(diag('LW100', msg, r.at('$'), 'start the file with { "name": …, "states": [ … ] }'));
     return { diagnostics: r.ds };

@@ -22,3 +22,8 @@ export function nameRecordOf<T>(entries: Iterable<readonly [string, T]>): Record
 export function ownValue<T>(rec: Readonly<Record<string, T>> | undefined, key: string): T | undefined {
   return rec !== undefined && Object.prototype.hasOwnProperty.call(rec, key) ? rec[key] : undefined;
 }
+
+/** True for a JSON object (not null, not an array): a record whose keys came from a file. */
+export function isJsonObject(v: unknown): v is Record<string, unknown> {
+  return typeof v === 'object' && v !== null && !Array.isArray(v);
+}

@@ -29,6 +29,7 @@ import {
   type ProfileAbout,
   type RoutingLoss,
 } from './profile.js';
+import { isJsonObject } from '../model/records.js';
 
 /** Where a value is believable: outside it, warning LW602. `source` says where the range comes from. */
 export interface Plausible {
@@ -312,8 +313,6 @@ function fits(v: number, r: NumberRule): boolean {
   return true;
 }
 
-const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
-
 /** The diagnostics of one profile reading, and the checks that add to them. */
 class ProfileReader {
   readonly ds: Diagnostic[] = [];
@@ -360,7 +359,7 @@ class ProfileReader {
 
   /** The object at `path` merged field by field over `base` (`base` itself when it is not an object). */
   mergeGroup<T extends object>(path: string, v: unknown, rules: Readonly<Record<string, NumberRule>>, base: T): T {
-    if (!isObject(v)) {
+    if (!isJsonObject(v)) {
       const hint = `fields: ${Object.keys(rules).join(', ')}`;
       this.ds.push(diag('LW600', `profile field '${path.slice(2)}' must be an object`, this.loc(path), hint));
       return base;
@@ -379,7 +378,7 @@ class ProfileReader {
 
   /** `cordRouting`: cord id → partial routing loss. */
   cordRouting(path: string, v: unknown): Record<string, Partial<RoutingLoss>> | undefined {
-    if (!isObject(v)) {
+    if (!isJsonObject(v)) {
       const msg = "profile field 'cordRouting' must be an object of cord id → routing loss";
       this.ds.push(diag('LW600', msg, this.loc(path)));
       return undefined;
@@ -434,7 +433,7 @@ class ProfileReader {
 /** Validate `value` as a profile override and merge it over DEFAULT_PROFILE. */
 export function loadProfile(value: unknown, where?: string): { profile?: Profile; diagnostics: Diagnostic[] } {
   const r = new ProfileReader(where);
-  if (!isObject(value)) {
+  if (!isJsonObject(value)) {
     const hint = 'write { "mu": 0.25, … } with only the fields you change';
     r.ds.push(diag('LW100', 'a technology profile must be a JSON object', r.loc('$'), hint));
     return { diagnostics: r.ds };
@@ -463,7 +462,7 @@ function mergeFrame(
   ds: Diagnostic[],
   loc: (p: string) => SourceLoc,
 ): FrameGeometry {
-  if (!isObject(v) || !Object.hasOwn(v, 'turn')) return mergeGroup(path, v, FRAME_RULES, DEFAULT_PROFILE.frame);
+  if (!isJsonObject(v) || !Object.hasOwn(v, 'turn')) return mergeGroup(path, v, FRAME_RULES, DEFAULT_PROFILE.frame);
   const { turn, ...numbers } = v;
   const merged = mergeGroup(path, numbers, FRAME_RULES, DEFAULT_PROFILE.frame);
   if (typeof turn === 'string' && (FRAME_TURNS as readonly string[]).includes(turn))
@@ -486,7 +485,7 @@ export const SOURCE_KEYS: readonly string[] = [...Object.keys(PROFILE_RULES), 'f
 
 /** True when `sources` is an object (its entries are checked one by one). */
 function checkSources(v: unknown, path: string, ds: Diagnostic[], loc: (p: string) => SourceLoc): boolean {
-  if (!isObject(v)) {
+  if (!isJsonObject(v)) {
     ds.push(diag('LW600', "profile field 'sources' must be an object of field → source", loc(path)));
     return false;
   }
@@ -531,7 +530,7 @@ export interface ProfileChange {
 export function profileChanges(profile: Profile): ProfileChange[] {
   const sources = profile.about?.sources ?? {};
   const at = (o: unknown, path: string): unknown =>
-    path.split('.').reduce<unknown>((x, k) => (isObject(x) ? x[k] : undefined), o);
+    path.split('.').reduce<unknown>((x, k) => (isJsonObject(x) ? x[k] : undefined), o);
   const out: ProfileChange[] = [];
   for (const field of [...Object.keys(PROFILE_RULES), 'frame.turn']) {
     const v = at(profile, field);

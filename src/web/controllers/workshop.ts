@@ -10,7 +10,14 @@
  * `sources` and the description.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import { DEFAULT_PROFILE, hasErrors, loadProfile, readJsonText, type Diagnostic } from '../../core/index.js';
+import {
+  DEFAULT_PROFILE,
+  hasErrors,
+  isJsonObject,
+  loadProfile,
+  readJsonText,
+  type Diagnostic,
+} from '../../core/index.js';
 import { describeRule, plausibleWords, PROFILE_RULES, type NumberRule } from '../../core/physics/index.js';
 import { valueAt } from '../worker/profile-file.js';
 import type { ProfileSetting } from '../worker/protocol.js';
@@ -78,8 +85,6 @@ export interface FieldFacts {
 
 type Value = Readonly<Record<string, unknown>>;
 
-const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
-
 /** A copy of `v` with the field at `path` set to `x`, or removed (with its group when that empties) for undefined. */
 export function withValue(v: Value, path: string, x: unknown): Value {
   const [head, ...rest] = path.split('.');
@@ -89,7 +94,7 @@ export function withValue(v: Value, path: string, x: unknown): Value {
     else out[head] = x;
     return out;
   }
-  const inner = withValue(isObject(v[head]) ? v[head] : {}, rest.join('.'), x);
+  const inner = withValue(isJsonObject(v[head]) ? v[head] : {}, rest.join('.'), x);
   if (Object.keys(inner).length === 0) delete out[head];
   else out[head] = inner;
   return out;
@@ -119,7 +124,7 @@ export function readProfileFile(
 ): { readonly setting?: ProfileSetting; readonly diagnostics: readonly Diagnostic[] } {
   const read = readJsonText(text, name, 'the profile');
   if (!read.ok) return { diagnostics: read.diagnostics };
-  if (!isObject(read.value)) return { diagnostics: loadProfile(read.value, name).diagnostics };
+  if (!isJsonObject(read.value)) return { diagnostics: loadProfile(read.value, name).diagnostics };
   const setting: ProfileSetting = { name, value: read.value };
   const diagnostics = profileDiagnostics(setting);
   return hasErrors(diagnostics) ? { diagnostics } : { setting, diagnostics };
@@ -128,7 +133,7 @@ export function readProfileFile(
 /** A stored profile setting (keep.ts), if it has the shape of one and loads without errors. */
 export function parseStoredProfile(raw: string): ProfileSetting | undefined {
   const v = parseJson(raw);
-  if (!isObject(v) || !isFileName(v.name) || !isObject(v.value)) return undefined;
+  if (!isJsonObject(v) || !isFileName(v.name) || !isJsonObject(v.value)) return undefined;
   const setting: ProfileSetting = { name: v.name, value: v.value };
   return hasErrors(profileDiagnostics(setting)) ? undefined : setting;
 }
@@ -180,7 +185,7 @@ export class WorkshopController implements ReactiveController {
 
   /** Where a figure comes from, typed into the form ('' removes the entry). */
   source(path: WorkshopPath, words: string): void {
-    const sources = isObject(this.draft.value.sources) ? this.draft.value.sources : {};
+    const sources = isJsonObject(this.draft.value.sources) ? this.draft.value.sources : {};
     const next: Record<string, unknown> = { ...sources };
     if (words.trim() === '') delete next[path];
     else next[path] = words;

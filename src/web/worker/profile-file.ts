@@ -4,16 +4,14 @@
  * description. The designer saves it from the workshop form and puts it in the archive of every
  * document, so the documents can be made again with `latchwright build FILE --profile NAME`.
  */
-import { DEFAULT_PROFILE } from '../../core/index.js';
+import { DEFAULT_PROFILE, isJsonObject } from '../../core/index.js';
 import type { ProfileSetting } from './protocol.js';
 
 type Value = Readonly<Record<string, unknown>>;
 
-const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
-
 /** The value at a dotted path (`mu`, `frame.longestDrumM`) of a profile value. */
 export function valueAt(v: unknown, path: string): unknown {
-  return path.split('.').reduce<unknown>((x, k) => (isObject(x) && Object.hasOwn(x, k) ? x[k] : undefined), v);
+  return path.split('.').reduce<unknown>((x, k) => (isJsonObject(x) && Object.hasOwn(x, k) ? x[k] : undefined), v);
 }
 
 /** True when `x` equals the shipped default at `path` (a group compared field by field). */
@@ -29,12 +27,12 @@ export function savedValue(v: Value): Record<string, unknown> {
   const out: Record<string, unknown> = {};
   for (const [k, x] of Object.entries(v)) {
     if (k === '$schema') continue;
-    if (k === 'sources' && isObject(x)) {
+    if (k === 'sources' && isJsonObject(x)) {
       const given = Object.entries(x).filter(([, s]) => typeof s === 'string' && s.trim() !== '');
       if (given.length > 0) out.sources = Object.fromEntries(given);
-    } else if (k === 'cordRouting' && isObject(x)) {
+    } else if (k === 'cordRouting' && isJsonObject(x)) {
       if (Object.keys(x).length > 0) out.cordRouting = x;
-    } else if (k !== 'description' && k !== 'cordRouting' && isObject(x)) {
+    } else if (k !== 'description' && k !== 'cordRouting' && isJsonObject(x)) {
       const changed = Object.entries(x).filter(([f, y]) => !isDefaultAt(`${k}.${f}`, y));
       if (changed.length > 0) out[k] = Object.fromEntries(changed);
     } else if (k === 'description' || !isDefaultAt(k, x)) out[k] = x;

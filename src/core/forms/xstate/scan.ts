@@ -16,14 +16,13 @@ import type { OutBit } from '../../model/machine.js';
 import { isPrimitive, jsonKey } from '../json.js';
 import { featureNote, type Feature } from './features.js';
 import type { RawConfig, RawState, RawTransition } from './types.js';
+import { isJsonObject, ownValue as own } from '../../model/records.js';
 
 type Obj = Record<string, unknown>;
-const isObj = (v: unknown): v is Obj => typeof v === 'object' && v !== null && !Array.isArray(v);
-const own = (o: Obj, k: string): unknown => (Object.prototype.hasOwnProperty.call(o, k) ? o[k] : undefined);
 const has = (o: Obj, k: string): boolean => Object.prototype.hasOwnProperty.call(o, k);
 /** Nothing there: absent, an empty list or an empty object (does nothing in xstate either). */
 const isBlank = (v: unknown): boolean =>
-  v === undefined || (Array.isArray(v) && v.length === 0) || (isObj(v) && Object.keys(v).length === 0);
+  v === undefined || (Array.isArray(v) && v.length === 0) || (isJsonObject(v) && Object.keys(v).length === 0);
 
 const IDENT = /^[A-Za-z_][A-Za-z0-9_]*$/;
 const STATE_NAME = /^[A-Za-z0-9_]+$/;
@@ -136,10 +135,10 @@ function readTags(sc: Scan, v: unknown, path: string): string[] {
 /** `meta.outputs`: output name → 0, 1 or "-"; the rest of `meta` is free-form in xstate. */
 function readMetaOutputs(sc: Scan, meta: unknown, path: string): Map<string, OutBit> {
   const out = new Map<string, OutBit>();
-  if (!isObj(meta) || !has(meta, 'outputs')) return out;
+  if (!isJsonObject(meta) || !has(meta, 'outputs')) return out;
   const o = own(meta, 'outputs');
   const op = `${path}.outputs`;
-  if (!isObj(o)) {
+  if (!isJsonObject(o)) {
     sc.report(
       'LW501',
       `meta.outputs should be an object of output name → 0, 1 or "-", not ${describe(o)}`,
@@ -206,7 +205,7 @@ function readTransitionField(sc: Scan, k: string, x: unknown, path: string, wher
 /** One transition candidate: a target name or a transition object. */
 function readTransition(sc: Scan, v: unknown, path: string, where: string): RawTransition | undefined {
   if (typeof v === 'string') return { target: v, outputs: new Map(), path, targetPath: path };
-  if (!isObj(v)) {
+  if (!isJsonObject(v)) {
     sc.report(
       'LW501',
       `a transition should be a target name, an object or a list of them, not ${describe(v)}`,
@@ -226,7 +225,7 @@ function readTransition(sc: Scan, v: unknown, path: string, where: string): RawT
 function readOn(sc: Scan, v: unknown, path: string, where: string): Map<string, RawTransition[]> {
   const out = new Map<string, RawTransition[]>();
   if (v === undefined) return out;
-  if (!isObj(v)) {
+  if (!isJsonObject(v)) {
     sc.report(
       'LW501',
       `'on' should be an object of event type → transitions, not ${describe(v)}`,
@@ -267,7 +266,7 @@ function readStateShape(sc: Scan, v: Obj, path: string, where: string): boolean 
     sc.report('LW501', `state type should be "atomic" or "final", not ${describe(type)}`, `${path}.type`);
   }
   const children = own(v, 'states');
-  if (children !== undefined && !isObj(children))
+  if (children !== undefined && !isJsonObject(children))
     sc.report('LW501', `'states' should be an object, not ${describe(children)}`, `${path}.states`);
   else if (!isBlank(children) && !shaped) {
     sc.feature('nested', where, `${path}.states`);
@@ -280,7 +279,7 @@ function readStateShape(sc: Scan, v: Obj, path: string, where: string): boolean 
 /** One state `nm` at `path`. */
 function readState(sc: Scan, nm: string, v: unknown, path: string, rootId: string): RawState | undefined {
   const where = `state '${printable(nm)}'`;
-  if (!isObj(v)) {
+  if (!isJsonObject(v)) {
     const msg = `state '${printable(nm)}' should be an object, not ${describe(v)}`;
     sc.report('LW501', msg, path, 'write {} for a state with no transitions');
     return undefined;
@@ -309,10 +308,10 @@ function readState(sc: Scan, nm: string, v: unknown, path: string, rootId: strin
  */
 function readRootLoads(sc: Scan, root: Obj): Map<string, number> | undefined {
   const meta = own(root, 'meta');
-  if (!isObj(meta) || !has(meta, 'loadsG')) return undefined;
+  if (!isJsonObject(meta) || !has(meta, 'loadsG')) return undefined;
   const v = own(meta, 'loadsG');
   const path = '$.meta.loadsG';
-  if (!isObj(v)) {
+  if (!isJsonObject(v)) {
     sc.report(
       'LW501',
       `meta.loadsG should be an object of output name → grams, not ${describe(v)}`,
@@ -350,7 +349,7 @@ function readRootFields(sc: Scan, root: Obj): string {
     sc.report('LW501', `the machine's type should be "compound" (or absent), not ${describe(type)}`, '$.type');
   if (!isBlank(own(root, 'context'))) sc.feature('context', where, '$.context');
   const meta = own(root, 'meta');
-  if (isObj(meta) && has(meta, 'outputs')) sc.feature('rootOutputs', where, '$.meta.outputs');
+  if (isJsonObject(meta) && has(meta, 'outputs')) sc.feature('rootOutputs', where, '$.meta.outputs');
   const desc = own(root, 'description');
   if (desc !== undefined && typeof desc !== 'string')
     sc.report('LW501', `description should be a string, not ${describe(desc)}`, '$.description');
@@ -361,7 +360,7 @@ function readRootFields(sc: Scan, root: Obj): string {
 function readInitial(sc: Scan, root: Obj): string | undefined {
   const iv = own(root, 'initial');
   if (typeof iv === 'string') return iv;
-  if (isObj(iv)) {
+  if (isJsonObject(iv)) {
     const target = own(iv, 'target');
     if (typeof target === 'string') {
       if (!isBlank(own(iv, 'actions'))) sc.feature('actions', 'the initial transition', '$.initial.actions');
@@ -377,7 +376,7 @@ function readInitial(sc: Scan, root: Obj): string | undefined {
 function readStates(sc: Scan, root: Obj, rootId: string): RawState[] {
   const statesV = own(root, 'states');
   const states: RawState[] = [];
-  if (!isObj(statesV)) {
+  if (!isJsonObject(statesV)) {
     sc.report(
       'LW501',
       statesV === undefined ? `the machine has no 'states'` : `'states' should be an object, not ${describe(statesV)}`,
@@ -412,7 +411,7 @@ function checkIds(sc: Scan, states: readonly RawState[], rootId: string): void {
 /** LW400 when `states` holds more states than the tool takes: counted before any state is read. */
 function tooManyStates(sc: Scan, root: Obj): boolean {
   const statesV = own(root, 'states');
-  if (!isObj(statesV)) return false;
+  if (!isJsonObject(statesV)) return false;
   const names = Object.keys(statesV);
   if (names.length <= LIMITS.states) return false;
   sc.report(
@@ -427,7 +426,7 @@ function tooManyStates(sc: Scan, root: Obj): boolean {
 /** Read and check a configuration; `raw` is present when the root is an object at all and not too large. */
 export function scanConfig(value: unknown, file?: string): { raw?: RawConfig; diagnostics: Diagnostic[] } {
   const sc = new Scan(file);
-  if (!isObj(value)) {
+  if (!isJsonObject(value)) {
     const msg = `an xstate configuration is an object, not ${describe(value)}`;
     sc.report('LW501', msg, '$', 'it needs "initial" and "states"');
     return { diagnostics: sc.ds };
