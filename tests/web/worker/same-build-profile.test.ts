@@ -17,6 +17,7 @@ import { buildJob, buildKey, checkJob, codesPlan, readJob } from '../../../src/w
 import { profileFileText } from '../../../src/web/worker/profile-file.js';
 import { ALL_DOCUMENTS, DEFAULT_SETTINGS, type BuildSettings } from '../../../src/web/worker/protocol.js';
 import { EXAMPLES, examplePath, removeTempDirs, run, tempDir } from '../../cli/support.js';
+import { expectCliVerdict } from './verdict.support.js';
 
 afterAll(removeTempDirs);
 
@@ -44,13 +45,7 @@ describe('src/web/worker (the same build as the command line, with a profile of 
       const sheet = exportFile(checked.built, 'build-sheet.html');
       expect('text' in sheet && sheet.text).toBe(readFileSync(join(dir, 'build-sheet.html'), 'utf8'));
       const checks = checked.view.checks;
-      expect(
-        checks.every((c) => c.ok) ? 0 : 1,
-        `${name}: ${checks
-          .filter((c) => !c.ok)
-          .map((c) => c.summary)
-          .join('; ')}`,
-      ).toBe(cli.code);
+      expectCliVerdict(name, checks, cli.code);
     });
 
   it('never takes codes searched for the shipped profile: the search setup key names the profile', () => {

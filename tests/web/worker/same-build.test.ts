@@ -20,6 +20,7 @@ import { exportFile } from '../../../src/web/worker/exports.js';
 import { buildJob, builtForChecks, checkJob, readJob } from '../../../src/web/worker/jobs.js';
 import { DEFAULT_SETTINGS } from '../../../src/web/worker/protocol.js';
 import { EXAMPLES, examplePath, removeTempDirs, run, tempDir } from '../../cli/support.js';
+import { expectCliVerdict } from './verdict.support.js';
 
 afterAll(removeTempDirs);
 
@@ -57,12 +58,6 @@ describe('src/web/worker (the same build as the command line)', () => {
       // And the documents made from it are the same, byte for byte.
       for (const d of DOCUMENT_REGISTRY)
         expect(exportFile(handed.built, d.file), d.file).toEqual(exportFile(checked.built, d.file));
-      expect(
-        checks.every((c) => c.ok) ? 0 : 1,
-        `${name}: ${checks
-          .filter((c) => !c.ok)
-          .map((c) => c.summary)
-          .join('; ')}`,
-      ).toBe(cli.code);
+      expectCliVerdict(name, checks, cli.code);
     });
 });
