@@ -1,0 +1,242 @@
+/**
+ * One machine through the campaign: both forms read, the round trips, the builds of several
+ * settings each explored against the reference, the checks' verdicts held to it, and now and
+ * then the Verilog export elaborated by Yosys. Every finding is returned, never thrown.
+ */
+import {
+  analyse,
+  buildDocuments,
+  buildMachine,
+  exportXstate,
+  findCheck,
+  importXstate,
+  machineToJson,
+  printTextMachine,
+  type Analysed,
+  type BuildOptions,
+  type Built,
+  type Diagnostic,
+  type Profile,
+} from '../../src/core/index.js';
+import { explore } from './explore.js';
+import { textForm } from './generate.js';
+import type { Rng } from './random.js';
+import { Reference, type SpecJson } from './reference.js';
+import { compareWithXstate } from './xstate-ref.js';
+
+export interface Finding {
+  readonly area: string;
+  readonly kind: string;
+  readonly words: string;
+  readonly setting?: string;
+}
+
+export interface Tally {
+  readonly counts: Map<string, number>;
+  readonly findings: Finding[];
+}
+
+export function bump(t: Tally, key: string, by = 1): void {
+  t.counts.set(key, (t.counts.get(key) ?? 0) + by);
+}
+
+const ENCODINGS = ['binary', 'gray', 'johnson', 'one-hot', 'auto'] as const;
+
+function errorWords(e: unknown): string {
+  return e instanceof Error
+    ? `${e.name}: ${e.message} @ ${(e.stack ?? '').split('\n').slice(1, 4).join(' | ')}`
+    : String(e);
+}
+
+/** A diagnostic a user can act on: a stable code, a message and a place (file with line or JSON path). */
+function badDiagnostic(d: Diagnostic, needPlace: boolean): string | undefined {
+  if (!/^LW\d{3}$/.test(d.code)) return `code '${d.code}'`;
+  if (!d.message) return `${d.code} without a message`;
+  if (needPlace && d.severity === 'error' && d.location.line === undefined && d.location.path === undefined)
+    return `${d.code} without a line or path: ${d.message}`;
+  return undefined;
+}
+
+function checkDiagnostics(
+  t: Tally,
+  area: string,
+  ds: readonly Diagnostic[],
+  needPlace: boolean,
+  setting?: string,
+): void {
+  for (const d of ds) {
+    const bad = badDiagnostic(d, needPlace);
+    if (bad) t.findings.push({ area, kind: 'diagnostic', words: bad, ...(setting ? { setting } : {}) });
+    if (d.severity === 'error')
+      bump(t, `${area}: rejected ${d.code} ${d.message.replace(/'[^']*'/g, "'…'").slice(0, 60)}`);
+  }
+}
+
+/** The canonical JSON of a machine without its description (the text form's header comment). */
+function canonical(a: Analysed): string {
+  const { description: _d, ...rest } = machineToJson(a.machine);
+  return JSON.stringify(rest);
+}
+
+function readForms(t: Tally, m: SpecJson, r: Rng): { text?: Analysed; json?: Analysed; source: string } {
+  const source = textForm(r, m);
+  const read = (s: string, file: string, form: string): Analysed | undefined => {
+    try {
+      const a = analyse(s, file);
+      bump(t, `forms: ${form} ${a.ok ? 'read' : 'rejected'}`);
+      if (!a.ok) checkDiagnostics(t, 'forms', a.diagnostics, true);
+      return a.ok ? a : undefined;
+    } catch (e) {
+      t.findings.push({ area: 'forms', kind: 'crash', words: `${form}: ${errorWords(e)}` });
+      return undefined;
+    }
+  };
+  const text = read(source, 'soak.lw', 'text');
+  const json = read(JSON.stringify(m, null, r.chance(0.5) ? 2 : undefined), 'soak.json', 'json');
+  if (!text !== !json) t.findings.push({ area: 'forms', kind: 'disagree', words: 'one form read, the other rejected' });
+  else if (text && json && canonical(text) !== canonical(json))
+    t.findings.push({ area: 'forms', kind: 'disagree', words: `text ${canonical(text)} vs json ${canonical(json)}` });
+  return { ...(text ? { text } : {}), ...(json ? { json } : {}), source };
+}
+
+function roundTrips(t: Tally, a: Analysed, ref: Reference, r: Rng): void {
+  try {
+    const again = analyse(printTextMachine(a.machine), 'again.lw');
+    bump(t, 'round trip: text');
+    if (!again.ok || canonical(again) !== canonical(a))
+      t.findings.push({
+        area: 'round trip',
+        kind: 'text',
+        words: again.ok ? canonical(again) : again.diagnostics[0]?.message,
+      });
+    const x = exportXstate(a.machine);
+    bump(t, `round trip: xstate ${x.form}`);
+    if (x.form === 'levers') {
+      const back = importXstate(JSON.parse(JSON.stringify(x.config)), 'again.json');
+      if (!back.machine)
+        t.findings.push({ area: 'round trip', kind: 'xstate', words: back.diagnostics[0]?.message ?? '' });
+    }
+    const diff = compareWithXstate(a.machine, ref, r);
+    bump(t, 'xstate reference: machines');
+    if (diff) t.findings.push({ area: 'xstate reference', kind: 'differs', words: diff });
+  } catch (e) {
+    t.findings.push({ area: 'round trip', kind: 'crash', words: errorWords(e) });
+  }
+}
+
+export interface Setting {
+  readonly label: string;
+  readonly options: BuildOptions;
+}
+
+/** The settings a machine is built with: the default, then a few drawn from every choice. */
+export function settings(
+  r: Rng,
+  m: SpecJson,
+  profiles: readonly { name: string; profile: Profile }[],
+  k: number,
+): Setting[] {
+  const out: Setting[] = [{ label: 'auto', options: {} }];
+  const pinned = m.states.some((s) => s.code !== undefined);
+  for (let i = 0; i < k; i++) {
+    const encoding = pinned && r.chance(0.4) ? 'pinned' : r.pick(ENCODINGS);
+    const unused = r.pick([undefined, 'dont-care', r.pick(m.states).name]);
+    const p = r.pick(profiles);
+    const label = `${encoding}${unused ? ` --unused ${unused}` : ''} profile=${p.name}`;
+    out.push({ label, options: { encoding, ...(unused ? { unusedCodes: unused } : {}), profile: p.profile } });
+  }
+  return out;
+}
+
+/** Build one setting and hold the build and its checks to the reference. */
+function buildOne(t: Tally, a: Analysed, ref: Reference, s: Setting, r: Rng): Built | undefined {
+  let b: ReturnType<typeof buildMachine>;
+  try {
+    b = buildMachine(a, { seed: 1, ...s.options });
+  } catch (e) {
+    t.findings.push({ area: 'build', kind: 'crash', words: errorWords(e), setting: s.label });
+    return undefined;
+  }
+  if (!b.ok) {
+    bump(t, 'build: rejected');
+    checkDiagnostics(t, 'build', b.diagnostics, false, s.label);
+    return undefined;
+  }
+  bump(t, 'build: built');
+  const x = explore(b.build, ref, b.profile, r);
+  bump(t, `explore: pairs`, x.pairs);
+  bump(t, `explore: clocks`, x.clocks);
+  if (!x.complete) bump(t, 'explore: stopped at the bound');
+  const eq = findCheck(b.checks, 'equivalence');
+  const fi = findCheck(b.checks, 'forbidden-input');
+  const profile = /profile=(\S+)/.exec(s.label)?.[1] ?? 'default';
+  for (const c of b.checks)
+    bump(t, `check ${c.name}: ${c.ok ? 'pass' : `fail (${profile}, unused ${s.options.unusedCodes ?? 'default'})`}`);
+  const wrong = x.difference && x.difference.kind !== 'never-alarm';
+  if (x.difference)
+    t.findings.push({
+      area: 'behaviour',
+      kind: x.difference.kind,
+      words: `${x.difference.words} after [${x.difference.path.join(' ')}]`,
+      setting: s.label,
+    });
+  if (eq && x.complete && eq.ok === !!wrong)
+    t.findings.push({
+      area: 'verdict',
+      kind: 'equivalence',
+      words: `check says ${eq.ok ? 'pass' : `fail (${eq.summary})`}, reference says ${wrong ? 'different' : 'same'}`,
+      setting: s.label,
+    });
+  if (fi?.ok && x.difference && x.difference.kind !== 'output')
+    t.findings.push({
+      area: 'verdict',
+      kind: 'forbidden-input',
+      words: `check passes, ${x.difference.words}`,
+      setting: s.label,
+    });
+  return b;
+}
+
+/** Pins for a second build of a built machine: a latch or gate moved to a random bay. */
+function pinSetting(r: Rng, b: Built): Setting {
+  const ids = b.build.netlist.parts.filter((p) => p.kind === 'latch' || p.kind === 'gate').map((p) => p.id);
+  const bays = b.placement.bays.length;
+  const pins = Object.fromEntries(r.sample(ids, r.int(1, 2)).map((id) => [id, { bay: r.int(1, bays + 1) }]));
+  return { label: `auto --pin ${JSON.stringify(pins)}`, options: { pins } };
+}
+
+export interface MachineRun {
+  readonly built?: Built;
+}
+
+/** Everything the campaign does with one machine. */
+export function runMachine(
+  t: Tally,
+  m: SpecJson,
+  r: Rng,
+  profiles: readonly { name: string; profile: Profile }[],
+  builds: number,
+): MachineRun {
+  const ref = new Reference(m);
+  const forms = readForms(t, m, r);
+  const a = forms.json ?? forms.text;
+  if (!a) return {};
+  roundTrips(t, a, ref, r);
+  let first: Built | undefined;
+  for (const s of settings(r, m, profiles, builds)) {
+    const use = r.chance(0.5) && forms.text ? forms.text : a;
+    const b = buildOne(t, use, ref, s, r);
+    first ??= b;
+  }
+  if (first && r.chance(0.3)) buildOne(t, a, ref, pinSetting(r, first), r);
+  return first ? { built: first } : {};
+}
+
+/** The Verilog pair of a build: module text, testbench and the module's name. */
+export function verilogOf(b: Built): { module: string; testbench: string; top: string } {
+  const docs = buildDocuments(b);
+  const module = docs.get('machine.v') ?? '';
+  const testbench = docs.get('machine_tb.v') ?? '';
+  const top = /^module\s+(\\?[^\s(]+)/m.exec(module)?.[1] ?? '';
+  return { module, testbench, top };
+}
