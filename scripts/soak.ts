@@ -16,7 +16,7 @@ import { readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { runYosys } from '@yowasp/yosys';
 import { DEFAULT_PROFILE, loadProfile, type Profile } from '../src/core/index.js';
 import { randomMachine } from './soak/generate.js';
-import { bump, runMachine, verilogOf, type Finding, type Tally } from './soak/machine.js';
+import { bump, fuzzMachine, runMachine, verilogOf, type Finding, type Tally } from './soak/machine.js';
 import { Rng } from './soak/random.js';
 import { importAgainstXstate, randomXstateConfig } from './soak/xstate-gen.js';
 import type { SpecJson } from './soak/reference.js';
@@ -34,7 +34,7 @@ function options(argv: readonly string[]): Options {
   const o: Options = {
     seed: 1,
     count: 100,
-    only: new Set(['forms', 'build', 'verilog', 'xstate']),
+    only: new Set(['forms', 'build', 'verilog', 'xstate', 'fuzz']),
     builds: 2,
     verilogEvery: 50,
   };
@@ -125,6 +125,7 @@ async function main(): Promise<void> {
       designs.push({ ...verilogOf(run.built), machine: i });
       bump(t, 'verilog: elaborated');
     }
+    if (o.only.has('fuzz')) fuzzMachine(t, m, randomXstateConfig(r, i), r);
     if (o.only.has('xstate')) xstateMachine(t, new Rng(o.seed * 1_000_003 + i + 0x5eed), i, ps, o.builds);
     if (t.findings.length > before) machines.set(i, m);
     for (const f of t.findings.slice(before)) Object.assign(f, { machine: i });

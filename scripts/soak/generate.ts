@@ -14,8 +14,24 @@ type Mutable<T> = { -readonly [K in keyof T]: Mutable<T[K]> };
 type State = Mutable<SpecJson['states'][number]>;
 
 /** Names a person might choose, some of them words of the notation itself. */
-const INPUTS = ['a', 'b', 'coin', 'go', 'with', 'lid', 'x_1', 'when', 'code', 'final', 'push', '_k'];
-const OUTPUTS = ['bell', 'lamp', 'flap', 'Q', 'out_2', 'never', 'state', 'gate'];
+const INPUTS = [
+  'a',
+  'b',
+  'coin',
+  'go',
+  'with',
+  'lid',
+  'x_1',
+  'when',
+  'code',
+  'final',
+  'push',
+  '_k',
+  'load',
+  'start',
+  'hold',
+];
+const OUTPUTS = ['bell', 'lamp', 'flap', 'Q', 'out_2', 'never', 'state', 'gate', 'inputs', 'machine', 'unspecified'];
 const STATES = [
   'idle',
   's1',
@@ -110,6 +126,9 @@ export function randomMachine(r: Rng, index: number): SpecJson {
     start,
     ...(r.chance(0.35) ? { unspecified: 'dont-care' as const } : r.chance(0.2) ? { unspecified: 'hold' as const } : {}),
     ...(never.length ? { never } : {}),
+    ...(r.chance(0.25)
+      ? { loadsG: Object.fromEntries(r.sample(outputs, r.int(1, 2)).map((o) => [o, r.int(1, 4000) / r.pick([1, 10])])) }
+      : {}),
     states,
   };
   if (r.chance(0.12)) pinCodes(r, m.states);
@@ -179,6 +198,8 @@ export function textForm(r: Rng, m: SpecJson): string {
   list('outputs', m.outputs);
   out.push(`start ${m.start}`);
   if (m.unspecified) out.push(`unspecified ${m.unspecified}`);
+  for (const [o, g] of Object.entries(m.loadsG ?? {}))
+    out.push(g >= 100 && r.chance(0.5) ? `load ${o} ${g / 1000} kg` : `load ${o} ${g}${r.pick([' g', 'g'])}`);
   for (const g of m.never ?? []) out.push(`never ${g}${comment(r)}`);
   for (const s of m.states) {
     if (r.chance(0.3)) out.push('');

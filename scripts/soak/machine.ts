@@ -7,6 +7,7 @@ import {
   analyse,
   buildDocuments,
   buildMachine,
+  checkEquivalence,
   exportXstate,
   findCheck,
   importXstate,
@@ -18,7 +19,10 @@ import {
   type Diagnostic,
   type Profile,
 } from '../../src/core/index.js';
+import { driveDisagreement } from './drive-ref.js';
 import { explore } from './explore.js';
+import { recoveryDisagreement } from './recovery-ref.js';
+import { editJson, editText } from './fuzz.js';
 import { textForm } from './generate.js';
 import type { Rng } from './random.js';
 import { Reference, type SpecJson } from './reference.js';
@@ -194,7 +198,68 @@ function buildOne(t: Tally, a: Analysed, ref: Reference, s: Setting, r: Rng): Bu
       words: `check passes, ${x.difference.words}`,
       setting: s.label,
     });
+  const recovery = recoveryDisagreement(b, ref);
+  const rec = findCheck(b.checks, 'recovery');
+  if (rec?.checked === 'all' && rec.codes.length > 0)
+    bump(t, `recovery reference: compared (${rec.ok ? 'recovers' : 'locks up'})`);
+  if (recovery) t.findings.push({ area: 'verdict', kind: 'recovery', words: recovery, setting: s.label });
+  const drive = driveDisagreement(b);
+  if (drive) t.findings.push({ area: 'verdict', kind: 'drive', words: drive, setting: s.label });
+  const layout = findCheck(b.checks, 'layout');
+  if (
+    layout?.ok &&
+    (layout.drums.length > layout.drumsAllowed || layout.drums.some((d) => d.lengthM > layout.longestDrumM + 1e-9))
+  )
+    t.findings.push({ area: 'verdict', kind: 'layout', words: `layout passes: ${layout.summary}`, setting: s.label });
   return b;
+}
+
+/** A spec like m with one thing changed: an output value, a target, or a guard negated. */
+function mutant(r: Rng, m: SpecJson): SpecJson {
+  const x = structuredClone(m) as { -readonly [K in keyof SpecJson]: SpecJson[K] } & {
+    states: {
+      name: string;
+      outputs?: Record<string, 0 | 1 | '-'>;
+      transitions: { when?: string; to: string; outputs?: Record<string, 0 | 1 | '-'> }[];
+    }[];
+  };
+  const s = r.pick(x.states);
+  const roll = r.next();
+  if (roll < 0.4 || s.transitions.length === 0) {
+    const o = r.pick(x.outputs);
+    s.outputs = { ...s.outputs, [o]: s.outputs?.[o] === 1 ? 0 : 1 };
+  } else {
+    const t = r.pick(s.transitions);
+    if (roll < 0.6) t.to = r.pick(x.states).name;
+    else if (roll < 0.8) t.when = t.when === undefined ? '0' : `!(${t.when})`;
+    else {
+      const o = r.pick(x.outputs);
+      t.outputs = { ...t.outputs, [o]: t.outputs?.[o] === 1 ? 0 : 1 };
+    }
+  }
+  return x;
+}
+
+/**
+ * The equivalence check asked about a build against a spec it was not built from (one thing
+ * changed): its verdict must be the reference's.
+ */
+function mutantProbe(t: Tally, b: Built, m: SpecJson, r: Rng, label: string): void {
+  const spec = mutant(r, m);
+  const a = analyse(JSON.stringify(spec), 'mutant.json');
+  if (!a.ok) return;
+  bump(t, 'mutants: probed');
+  const eq = checkEquivalence(b.build, { original: a.flat }, b.profile);
+  const x = explore(b.build, new Reference(spec), b.profile, r);
+  const wrong = !!x.difference && x.difference.kind !== 'never-alarm';
+  bump(t, `mutants: ${wrong ? 'different' : 'same'}`);
+  if (x.complete && eq.complete && eq.ok === wrong)
+    t.findings.push({
+      area: 'verdict',
+      kind: 'equivalence (mutant)',
+      words: `check says ${eq.ok ? 'pass' : `fail (${eq.summary})`}, reference says ${wrong ? `different: ${x.difference?.words} after [${x.difference?.path.join(' ')}]` : 'same'}; mutant ${JSON.stringify(spec)}`,
+      setting: label,
+    });
 }
 
 /** Pins for a second build of a built machine: a latch or gate moved to a random bay. */
@@ -229,6 +294,7 @@ export function runMachine(
     first ??= b;
   }
   if (first && r.chance(0.3)) buildOne(t, a, ref, pinSetting(r, first), r);
+  if (first) for (let k = 0; k < 3; k++) mutantProbe(t, first, m, r, 'auto');
   return first ? { built: first } : {};
 }
 
@@ -239,4 +305,51 @@ export function verilogOf(b: Built): { module: string; testbench: string; top: s
   const testbench = docs.get('machine_tb.v') ?? '';
   const top = /^module\s+(\\?[^\s(]+)/m.exec(module)?.[1] ?? '';
   return { module, testbench, top };
+}
+
+/** Edited texts of one machine (and of an xstate configuration): read, and built when they read. */
+export function fuzzMachine(t: Tally, m: SpecJson, config: unknown, r: Rng): void {
+  const texts: [string, string, string][] = [
+    ['text', editText(r, textForm(r, m)), 'fuzz.lw'],
+    ['text', editText(r, textForm(r, m)), 'fuzz.lw'],
+    ['json', JSON.stringify(editJson(r, m), null, 1), 'fuzz.json'],
+    ['json', JSON.stringify(editJson(r, m)), 'fuzz.json'],
+    ['xstate', JSON.stringify(editJson(r, config), null, 1), 'fuzz.json'],
+  ];
+  if (r.chance(0.2)) texts.push(['json', editText(r, JSON.stringify(m, null, 1)), 'fuzz.json']);
+  for (const [form, text, file] of texts) {
+    let a: ReturnType<typeof analyse>;
+    try {
+      a = analyse(text, file);
+    } catch (e) {
+      t.findings.push({
+        area: 'fuzz',
+        kind: 'crash',
+        words: `${form}: ${errorWords(e)} reading ${JSON.stringify(text)}`,
+      });
+      continue;
+    }
+    bump(t, `fuzz: ${form} ${a.ok ? 'read' : 'rejected'}`);
+    if (!a.ok) {
+      checkDiagnostics(t, 'fuzz', a.diagnostics, true);
+      if (!a.diagnostics.some((d) => d.severity === 'error'))
+        t.findings.push({
+          area: 'fuzz',
+          kind: 'diagnostic',
+          words: `rejected without an error: ${JSON.stringify(text)}`,
+        });
+      continue;
+    }
+    const spec = machineToJson(a.machine) as unknown as SpecJson;
+    const s = { label: `fuzz ${form}`, options: { encoding: r.pick(ENCODINGS.slice(0, 4)) } };
+    try {
+      buildOne(t, a, new Reference(spec), s, r);
+    } catch (e) {
+      t.findings.push({
+        area: 'fuzz',
+        kind: 'crash',
+        words: `${form} build: ${errorWords(e)} of ${JSON.stringify(text)}`,
+      });
+    }
+  }
 }

@@ -73,6 +73,8 @@ export interface SpecJson {
   readonly start: string;
   readonly unspecified?: 'hold' | 'dont-care';
   readonly never?: readonly string[];
+  /** Actuator loads in grams (the reference ignores them: they change no behaviour). */
+  readonly loadsG?: Readonly<Record<string, number>>;
   readonly states: readonly {
     readonly name: string;
     readonly code?: string;
