@@ -15,6 +15,7 @@
 import { readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { runYosys } from '@yowasp/yosys';
 import { DEFAULT_PROFILE, loadProfile, type Profile } from '../src/core/index.js';
+import { cliRun } from './soak/cli-fuzz.js';
 import { randomMachine } from './soak/generate.js';
 import { bump, fuzzMachine, runMachine, verilogOf, type Finding, type Tally } from './soak/machine.js';
 import { Rng } from './soak/random.js';
@@ -34,7 +35,7 @@ function options(argv: readonly string[]): Options {
   const o: Options = {
     seed: 1,
     count: 100,
-    only: new Set(['forms', 'build', 'verilog', 'xstate', 'fuzz']),
+    only: new Set(['forms', 'build', 'verilog', 'xstate', 'fuzz', 'cli']),
     builds: 2,
     verilogEvery: 50,
   };
@@ -126,6 +127,11 @@ async function main(): Promise<void> {
       bump(t, 'verilog: elaborated');
     }
     if (o.only.has('fuzz')) fuzzMachine(t, m, randomXstateConfig(r, i), r);
+    if (o.only.has('cli')) {
+      const c = await cliRun(r, m);
+      bump(t, `cli: exit ${c.status ?? 'thrown'}`);
+      if (c.problem) t.findings.push({ area: 'cli', kind: 'fault', words: `${c.argv.join(' ')}: ${c.problem}` });
+    }
     if (o.only.has('xstate')) xstateMachine(t, new Rng(o.seed * 1_000_003 + i + 0x5eed), i, ps, o.builds);
     if (t.findings.length > before) machines.set(i, m);
     for (const f of t.findings.slice(before)) Object.assign(f, { machine: i });

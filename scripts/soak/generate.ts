@@ -114,7 +114,7 @@ export function randomMachine(r: Rng, index: number): SpecJson {
   const start = r.pick(states).name;
   if (r.chance(0.8)) spine(r, states, start, inputs);
   for (const s of states) for (const t of s.transitions) if (t.outputs === undefined) delete t.outputs;
-  for (const s of states) if (s.transitions.length === 0 && r.chance(0.5)) s.final = true;
+  for (const s of states) if ((s.transitions.length === 0 && r.chance(0.5)) || r.chance(0.04)) s.final = true;
   const never =
     inputs.length >= 2 && r.chance(0.3)
       ? [`${r.pick(['', '!'])}${inputs[0]} & ${inputs[1]}`, ...(r.chance(0.3) ? [guardText(r, inputs, 1).text] : [])]

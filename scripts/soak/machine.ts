@@ -22,6 +22,7 @@ import {
 import { driveDisagreement } from './drive-ref.js';
 import { explore } from './explore.js';
 import { recoveryDisagreement } from './recovery-ref.js';
+import { timingDisagreement } from './timing-ref.js';
 import { editJson, editText } from './fuzz.js';
 import { textForm } from './generate.js';
 import type { Rng } from './random.js';
@@ -128,6 +129,19 @@ function roundTrips(t: Tally, a: Analysed, ref: Reference, r: Rng): void {
   }
 }
 
+/** Every state × allowed combination stepped by both references; the first difference in words. */
+function sameSteps(a: Reference, b: Reference): string | undefined {
+  for (const s of a.spec.states)
+    for (const x of a.assignments) {
+      if (a.isNever(x)) continue;
+      const p = a.step(s.name, x);
+      const q = b.step(s.name, x);
+      if (JSON.stringify(p) !== JSON.stringify(q))
+        return `state '${s.name}' inputs ${x}: ${JSON.stringify(p)} before, ${JSON.stringify(q)} after`;
+    }
+  return undefined;
+}
+
 export interface Setting {
   readonly label: string;
   readonly options: BuildOptions;
@@ -203,6 +217,8 @@ function buildOne(t: Tally, a: Analysed, ref: Reference, s: Setting, r: Rng): Bu
   if (rec?.checked === 'all' && rec.codes.length > 0)
     bump(t, `recovery reference: compared (${rec.ok ? 'recovers' : 'locks up'})`);
   if (recovery) t.findings.push({ area: 'verdict', kind: 'recovery', words: recovery, setting: s.label });
+  const timing = timingDisagreement(b, ref, r);
+  if (timing) t.findings.push({ area: 'verdict', kind: 'timing', words: timing, setting: s.label });
   const drive = driveDisagreement(b);
   if (drive) t.findings.push({ area: 'verdict', kind: 'drive', words: drive, setting: s.label });
   const layout = findCheck(b.checks, 'layout');
