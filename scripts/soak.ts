@@ -7,7 +7,12 @@
  * machines.
  *
  *   node --import tsx scripts/soak.ts --seed 1 --count 200 [--only forms,build,verilog]
- *        [--builds 2] [--verilog-every 50] [--out findings.jsonl]
+ *        [--builds 2] [--verilog-every 50] [--large] [--out findings.jsonl]
+ *
+ * Areas (--only): forms (both forms read alike, round trips, xstate's actor), build (every
+ * encoding and setting explored against the reference, the checks' verdicts, mutant specs),
+ * verilog (Yosys elaborates the export), xstate (configurations imported and held to xstate),
+ * fuzz (edited texts and JSON), cli (command lines in memory). --large: 8–14 states, 3–5 inputs.
  *
  * Prints counts per area and every finding (area, kind, words, the setting, the machine in
  * the JSON form); exits 1 when there is a finding.
@@ -29,6 +34,7 @@ interface Options {
   builds: number;
   verilogEvery: number;
   out?: string;
+  large: boolean;
 }
 
 function options(argv: readonly string[]): Options {
@@ -47,7 +53,10 @@ function options(argv: readonly string[]): Options {
     else if (argv[i] === '--verilog-every') o.verilogEvery = Number(v);
     else if (argv[i] === '--only') o.only = new Set(v.split(','));
     else if (argv[i] === '--out') o.out = v;
-    else continue;
+    else if (argv[i] === '--large') {
+      o.large = true;
+      continue;
+    } else continue;
     i++;
   }
   return o;
@@ -118,7 +127,7 @@ async function main(): Promise<void> {
   const machines = new Map<number, SpecJson>();
   for (let i = 0; i < o.count; i++) {
     const r = new Rng(o.seed * 1_000_003 + i);
-    const m = randomMachine(r, i);
+    const m = randomMachine(r, i, o.large);
     const before = t.findings.length;
     bump(t, 'machines');
     const run = runMachine(t, m, r, ps, o.only.has('build') ? o.builds : -1);

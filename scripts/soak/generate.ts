@@ -81,11 +81,11 @@ function outputsFor(r: Rng, outputs: readonly string[], p: number): Record<strin
 }
 
 /** A random machine in the JSON form. */
-// eslint-disable-next-line max-lines-per-function -- one recipe read top to bottom: every feature's odds in one place
-export function randomMachine(r: Rng, index: number): SpecJson {
-  const inputs = r.sample(INPUTS, r.int(1, 5));
+
+export function randomMachine(r: Rng, index: number, large = false): SpecJson {
+  const inputs = r.sample(INPUTS, large ? r.int(3, 5) : r.int(1, 5));
   const outputs = r.sample(OUTPUTS, r.int(1, 4));
-  const n = r.chance(0.5) ? r.int(1, 5) : r.int(1, 14);
+  const n = large ? r.int(8, 14) : r.chance(0.5) ? r.int(1, 5) : r.int(1, 14);
   const names = r.sample(STATES, n);
   const depth = r.pick([1, 1, 2, 2, 3]);
   const states: State[] = names.map((name) => {

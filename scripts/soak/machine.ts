@@ -120,6 +120,10 @@ function roundTrips(t: Tally, a: Analysed, ref: Reference, r: Rng): void {
       const back = importXstate(JSON.parse(JSON.stringify(x.config)), 'again.json');
       if (!back.machine)
         t.findings.push({ area: 'round trip', kind: 'xstate', words: back.diagnostics[0]?.message ?? '' });
+      else {
+        const diff = sameSteps(ref, new Reference(machineToJson(back.machine)));
+        if (diff) t.findings.push({ area: 'round trip', kind: 'xstate levers', words: diff });
+      }
     }
     const diff = compareWithXstate(a.machine, ref, r);
     bump(t, 'xstate reference: machines');

@@ -98,7 +98,7 @@ export function importAgainstXstate(
       if (lever >= 0) actor.send({ type: inputs[lever] });
       const a = inputs.map((_, i) => (i === lever ? '1' : '0')).join('');
       state = ref.step(state, a).next ?? state;
-      const theirs = String(actor.getSnapshot().value as unknown);
+      const theirs = JSON.stringify(actor.getSnapshot().value).replace(/^"|"$/g, '');
       if (theirs !== state)
         return {
           spec,

@@ -14,7 +14,7 @@ import type { Reference } from './reference.js';
 export function compareWithXstate(m: Machine, ref: Reference, r: Rng, walks = 3, clocks = 25): string | undefined {
   const x = exportXstate(m, { form: 'clock' });
   const config = JSON.parse(JSON.stringify(x.config)) as Parameters<typeof createMachine>[0];
-  const machine = createMachine(config, { guards: x.implementations.guards } as never);
+  const machine = createMachine(config, { guards: x.implementations.guards });
   const allowed = ref.assignments.filter((a) => !ref.isNever(a));
   if (allowed.length === 0) return undefined;
   for (let w = 0; w < walks; w++) {
@@ -27,7 +27,7 @@ export function compareWithXstate(m: Machine, ref: Reference, r: Rng, walks = 3,
       path.push(a);
       actor.send(clockEvent(m.inputs, a));
       state = ref.step(state, a).next;
-      const theirs = String(actor.getSnapshot().value as unknown);
+      const theirs = JSON.stringify(actor.getSnapshot().value).replace(/^"|"$/g, '');
       if (state !== null && theirs !== state)
         return `after [${path.join(' ')}] xstate is in '${theirs}', the reference in '${state}'`;
     }
