@@ -21,7 +21,7 @@ import {
 } from '../../src/core/index.js';
 import { driveDisagreement } from './drive-ref.js';
 import { explore } from './explore.js';
-import { recoveryDisagreement } from './recovery-ref.js';
+import { recoveryDisagreement, resetDisagreement } from './recovery-ref.js';
 import { timingDisagreement } from './timing-ref.js';
 import { editJson, editText } from './fuzz.js';
 import { textForm } from './generate.js';
@@ -221,6 +221,8 @@ function buildOne(t: Tally, a: Analysed, ref: Reference, s: Setting, r: Rng): Bu
   if (rec?.checked === 'all' && rec.codes.length > 0)
     bump(t, `recovery reference: compared (${rec.ok ? 'recovers' : 'locks up'})`);
   if (recovery) t.findings.push({ area: 'verdict', kind: 'recovery', words: recovery, setting: s.label });
+  const reset = resetDisagreement(b, ref);
+  if (reset) t.findings.push({ area: 'behaviour', kind: 'reset', words: reset, setting: s.label });
   const timing = timingDisagreement(b, ref, r);
   if (timing) t.findings.push({ area: 'verdict', kind: 'timing', words: timing, setting: s.label });
   const drive = driveDisagreement(b);

@@ -6,7 +6,7 @@
  * clock that leaves a latch undetermined or raises an alarm is a lock-up (DESIGN.md §6: "recovery
  * of every unused code (no lock-up loop) within k clocks").
  */
-import { clockActions, findCheck, stepSim, timingOf, type Built } from '../../src/core/index.js';
+import { clockActions, findCheck, resetActions, stepSim, timingOf, type Built } from '../../src/core/index.js';
 import { isAlarm, readPart, simFor, stateAtCode } from '../../src/core/sim/part.js';
 import type { Reference } from './reference.js';
 
@@ -69,5 +69,34 @@ export function recoveryDisagreement(b: Built, ref: Reference): string | undefin
   for (const { code, k } of rec.codes)
     if (mine.has(code) && mine.get(code) !== k)
       return `code ${code}: the check says k=${k}, the reference ${mine.get(code)}`;
+  return undefined;
+}
+
+/**
+ * The reset lever from every code, used or not, with every allowed input combination held
+ * (DESIGN.md §5: "Reset lever: forces every latch to the start code"): the slave code after
+ * it must be the start state's, with no alarm. The first code where it is not, in words.
+ */
+export function resetDisagreement(b: Built, ref: Reference): string | undefined {
+  const sim = simFor(b.build, timingOf(b.profile));
+  const width = b.build.encoding.codes[0]?.length ?? 0;
+  if (width > 8) return undefined;
+  const start = b.build.encoding.codes[b.build.machine.start];
+  const allowed = ref.assignments.filter((a) => !ref.isNever(a));
+  for (let k = 0; k < 2 ** width; k++) {
+    const code = width === 0 ? '' : k.toString(2).padStart(width, '0');
+    for (const a of allowed) {
+      let state = stateAtCode(sim, code, a);
+      const alarms: string[] = [];
+      for (const action of resetActions()) {
+        const [s, events] = stepSim(sim, state, action, true);
+        state = s;
+        alarms.push(...events.filter(isAlarm).map((e) => e.words));
+      }
+      const after = readPart(sim, state).code;
+      if (after !== start || alarms.length > 0)
+        return `reset from ${code} with inputs ${a} leaves ${after} (start ${start})${alarms.length ? `: ${alarms.join('; ')}` : ''}`;
+    }
+  }
   return undefined;
 }

@@ -25,7 +25,7 @@ export function compareWithXstate(m: Machine, ref: Reference, r: Rng, walks = 3,
     for (let k = 0; k < clocks && state !== null; k++) {
       const a = r.pick(allowed);
       path.push(a);
-      actor.send(clockEvent(m.inputs, a));
+      if (actor.getSnapshot().status === 'active') actor.send(clockEvent(m.inputs, a));
       state = ref.step(state, a).next;
       const theirs = JSON.stringify(actor.getSnapshot().value).replace(/^"|"$/g, '');
       if (state !== null && theirs !== state)
