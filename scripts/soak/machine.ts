@@ -19,6 +19,7 @@ import {
   type Diagnostic,
   type Profile,
 } from '../../src/core/index.js';
+import { commissioningDisagreement } from './commissioning-ref.js';
 import { driveDisagreement } from './drive-ref.js';
 import { explore } from './explore.js';
 import { recoveryDisagreement, resetDisagreement } from './recovery-ref.js';
@@ -133,14 +134,23 @@ function roundTrips(t: Tally, a: Analysed, ref: Reference, r: Rng): void {
   }
 }
 
-/** Every state × allowed combination stepped by both references; the first difference in words. */
+/**
+ * Every state × allowed combination stepped by both references, inputs matched by name (an
+ * import orders its inputs by first use; an input it lacks is never answered, so pulled or
+ * not it changes nothing); `b` may fix what `a` leaves free. The first difference in words.
+ */
 function sameSteps(a: Reference, b: Reference): string | undefined {
+  const inB = (x: string): string =>
+    b.spec.inputs.map((n) => (a.spec.inputs.includes(n) ? x[a.spec.inputs.indexOf(n)] : '0')).join('');
   for (const s of a.spec.states)
     for (const x of a.assignments) {
       if (a.isNever(x)) continue;
       const p = a.step(s.name, x);
-      const q = b.step(s.name, x);
-      if (JSON.stringify(p) !== JSON.stringify(q))
+      const q = b.step(s.name, inB(x));
+      const outputs = a.spec.outputs.every(
+        (o, k) => p.outputs[k] === null || p.outputs[k] === q.outputs[b.spec.outputs.indexOf(o)],
+      );
+      if ((p.next !== null && p.next !== q.next) || !outputs)
         return `state '${s.name}' inputs ${x}: ${JSON.stringify(p)} before, ${JSON.stringify(q)} after`;
     }
   return undefined;
@@ -316,6 +326,15 @@ export function runMachine(
     first ??= b;
   }
   if (first && r.chance(0.3)) buildOne(t, a, ref, pinSetting(r, first), r);
+  if (first) {
+    bump(t, 'commissioning sheet: read');
+    try {
+      const sheet = commissioningDisagreement(first, first.analysed, ref);
+      if (sheet) t.findings.push({ area: 'documents', kind: 'commissioning', words: sheet, setting: 'auto' });
+    } catch (e) {
+      t.findings.push({ area: 'documents', kind: 'crash', words: errorWords(e), setting: 'auto' });
+    }
+  }
   if (first) for (let k = 0; k < 3; k++) mutantProbe(t, first, m, r, 'auto');
   return first ? { built: first } : {};
 }
