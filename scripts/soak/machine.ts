@@ -174,8 +174,9 @@ export function settings(
     const encoding = pinned && r.chance(0.4) ? 'pinned' : r.pick(ENCODINGS);
     const unused = r.pick([undefined, 'dont-care', r.pick(m.states).name]);
     const p = r.pick(profiles);
-    const label = `${encoding}${unused ? ` --unused ${unused}` : ''} profile=${p.name}`;
-    out.push({ label, options: { encoding, ...(unused ? { unusedCodes: unused } : {}), profile: p.profile } });
+    const seed = r.chance(0.3) ? r.int(2, 10_000) : 1;
+    const label = `${encoding}${unused ? ` --unused ${unused}` : ''} profile=${p.name} seed=${seed}`;
+    out.push({ label, options: { encoding, ...(unused ? { unusedCodes: unused } : {}), profile: p.profile, seed } });
   }
   return out;
 }
@@ -185,6 +186,17 @@ function buildOne(t: Tally, a: Analysed, ref: Reference, s: Setting, r: Rng): Bu
   let b: ReturnType<typeof buildMachine>;
   try {
     b = buildMachine(a, { seed: 1, ...s.options });
+    if (b.ok && s.options.seed === undefined) {
+      // The same setup twice must give the same build (CONVENTIONS.md: deterministic on purpose).
+      const again = buildMachine(a, { seed: 1, ...s.options });
+      if (again.ok && JSON.stringify(again.build.netlist) !== JSON.stringify(b.build.netlist))
+        t.findings.push({
+          area: 'build',
+          kind: 'not deterministic',
+          words: 'two builds of one setup differ',
+          setting: s.label,
+        });
+    }
   } catch (e) {
     t.findings.push({ area: 'build', kind: 'crash', words: errorWords(e), setting: s.label });
     return undefined;

@@ -63,7 +63,11 @@ export const DIAGNOSTIC_CODES = {
     cause: 'A field the form does not know was ignored.',
     fix: 'Remove it or correct its spelling.',
   },
-  LW106: { severity: 'error', cause: 'An output value is not 0, 1 or -.', fix: "Write 0, 1 or - (don't care)." },
+  LW106: {
+    severity: 'error',
+    cause: 'An output value is not 0, 1 or -, or one list gives an output two values.',
+    fix: "Write 0, 1 or - (don't care), once per output.",
+  },
   LW107: {
     severity: 'error',
     cause:
