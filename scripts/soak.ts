@@ -44,6 +44,7 @@ function options(argv: readonly string[]): Options {
     only: new Set(['forms', 'build', 'verilog', 'xstate', 'fuzz', 'cli']),
     builds: 2,
     verilogEvery: 50,
+    large: false,
   };
   for (let i = 0; i < argv.length; i++) {
     const v = argv[i + 1];

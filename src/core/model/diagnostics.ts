@@ -80,6 +80,12 @@ export const DIAGNOSTIC_CODES = {
       'A number in a JSON file (a machine, an xstate configuration, a profile or an input sequence) is too large to hold (such as 1e309): JSON readers turn it into infinity.',
     fix: 'Write a number of ordinary size.',
   },
+  LW109: {
+    severity: 'error',
+    cause:
+      'A JSON object names the same key twice: a JSON reader keeps only one of the two (RFC 8259 leaves duplicate names to the reader), so the other would be lost without a word.',
+    fix: 'Keep one of the two, or merge them.',
+  },
   LW200: {
     severity: 'error',
     cause: 'A transition goes to a state that does not exist.',
