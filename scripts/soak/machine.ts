@@ -360,8 +360,36 @@ export function verilogOf(b: Built): { module: string; testbench: string; top: s
   return { module, testbench, top };
 }
 
+/**
+ * A value typed twice must be refused, never read over the first: an output given two values in
+ * one `with` list (LW106), a key written twice in a JSON object (LW109).
+ */
+function typedTwice(t: Tally, m: SpecJson, r: Rng): void {
+  const text = textForm(r, m);
+  const twice = text.replace(
+    / with ([A-Za-z_][A-Za-z0-9_]*)=([01-])/,
+    (_all, o: string, v: string) => ` with ${o}=${v}, ${o}=${v === '1' ? 0 : 1}`,
+  );
+  const json = JSON.stringify(m).replace(/"start":("[^"]*")/, '"start":$1,"start":$1');
+  for (const [source, file, code] of [
+    [twice, 'twice.lw', 'LW106'],
+    [json, 'twice.json', 'LW109'],
+  ] as const) {
+    if (source === (file === 'twice.lw' ? text : JSON.stringify(m))) continue;
+    bump(t, `typed twice: ${code}`);
+    const a = analyse(source, file);
+    if (a.ok || !a.diagnostics.some((d) => d.code === code))
+      t.findings.push({
+        area: 'forms',
+        kind: 'typed twice',
+        words: `${file} read without ${code}: ${a.diagnostics.map((d) => d.code).join(' ')}`,
+      });
+  }
+}
+
 /** Edited texts of one machine (and of an xstate configuration): read, and built when they read. */
 export function fuzzMachine(t: Tally, m: SpecJson, config: unknown, r: Rng): void {
+  typedTwice(t, m, r);
   const texts: [string, string, string][] = [
     ['text', editText(r, textForm(r, m)), 'fuzz.lw'],
     ['text', editText(r, textForm(r, m)), 'fuzz.lw'],
