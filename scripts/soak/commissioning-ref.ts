@@ -49,6 +49,7 @@ export function commissioningDisagreement(b: Built, a: Analysed, ref: Reference)
   const col = (name: string): number => header.indexOf(name);
   const outCols = ref.spec.outputs.map((o) => header.findIndex((h) => h.startsWith(`${o} (`)));
   const tour = commissioningTour(b.build.machine);
+  const inputs = ref.spec.inputs.length;
   let state: string | null = ref.spec.start;
   const free = (o: Readonly<Record<string, unknown>> | undefined): boolean => Object.values(o ?? {}).includes('-');
   const complete =
@@ -64,7 +65,9 @@ export function commissioningDisagreement(b: Built, a: Analysed, ref: Reference)
     const clock = tour[k - 1];
     const lines = byClock.get(k) ?? [];
     if (clock.reset) state = ref.spec.start;
-    const set = lines.find((r) => r[col('action')].startsWith('Set the input levers'));
+    // Without inputs the clock's first row is where its outputs are read ("Look at the flags." for a one-state machine).
+    const set =
+      lines.find((r) => r[col('action')].startsWith('Set the input levers')) ?? (inputs === 0 ? lines[0] : undefined);
     const last = lines[lines.length - 1];
     if (state === null || !set || !last) return state === null ? undefined : `clock ${k}: rows missing`;
     if (ref.isNever(clock.inputs)) return undefined;
