@@ -155,7 +155,8 @@ class TextReader {
       this.err('LW104', `'${printable(ws[0].text)}' needs ${what}`, li, offset, `write ${example}`);
       return undefined;
     }
-    this.trailing(ws, 2, li, `the ${what}`);
+    // `what` is written for "needs a name"; after it the thing is "the name", never "the a name".
+    this.trailing(ws, 2, li, what.replace(/^an? /, 'the '));
     return w.text;
   }
 

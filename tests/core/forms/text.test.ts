@@ -132,6 +132,13 @@ state busy
       8,
     ],
   ];
+  it('names what a stray word follows in plain words ("after the name", not "after the a name")', () => {
+    const said = (text: string) => parseTextMachine(text, 'bad.lw').diagnostics.map((d) => d.message);
+    expect(said('machine m soon\n')).toContain("unexpected 'soon' after the name");
+    expect(said(head + 'unspecified hold soon\nstate s\n')).toContain("unexpected 'soon' after the rule");
+    expect(said('machine m\nstart s soon\nstate s\n')).toContain("unexpected 'soon' after the state name");
+  });
+
   it.each(errorKinds)('reports %s with file:line:column and a hint', (_name, text, code, line, column) => {
     const r = parseTextMachine(text, 'bad.lw');
     expect(r.machine).toBeUndefined();
