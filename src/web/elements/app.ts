@@ -25,6 +25,7 @@ import {
   type HandAction,
   type PartRunner,
   type PartState,
+  type Pin,
 } from '../../core/index.js';
 import { leverStands, type Stands } from '../frame/stands.js';
 import { drawingPage } from '../frame/sheet.js';
@@ -372,8 +373,12 @@ export class LwApp extends LitElement {
       .clocks=${st.clocks}
       ?canUndo=${st.canUndo}
       ?printable=${s.work === Work.done}
+      .pins=${s.settings.pins}
+      .notes=${s.work === Work.refused ? s.buildProblems : (b?.diagnostics ?? [])}
       @step=${this.onStep}
       @print-frame=${this.onPrintFrame}
+      @keep-part=${(e: Detail<{ part: string; pin: Pin }>) => s.keepPart(e.detail.part, e.detail.pin)}
+      @release=${(e: Detail<{ part?: string }>) => s.release(e.detail.part)}
     ></lw-frame>`;
   }
 

@@ -99,6 +99,7 @@ export function buildOptions(s: BuildSettings, onProgress?: (p: Progress) => voi
     seed: s.seed,
     ...(s.unusedCodes !== undefined ? { unusedCodes: s.unusedCodes } : {}),
     profile: settingProfile(s.profile),
+    ...(s.pins !== undefined ? { pins: s.pins } : {}),
     ...(onProgress ? { onProgress } : {}),
   };
 }
@@ -159,13 +160,15 @@ export function codesPlan(a: Analysed, asked: BuildSettings, known: readonly Rem
 
 /**
  * The key of everything a build view depends on but the reading's diagnostics: the codes as
- * the settings choose them for this machine, and the search setup (the minimised machine,
- * profile, unused codes, seed, pins). Undefined when the build will refuse the setup.
+ * the settings choose them for this machine, the parts kept in a bay (in their order: it orders
+ * their problems), and the search setup (the minimised machine, profile, unused codes, seed,
+ * pinned codes). Undefined when the build will refuse the setup.
  */
 export function buildKey(a: Analysed, asked: BuildSettings): string | undefined {
   const s = settle(a, asked).settings;
   const setup = buildSearchSetup(a, buildOptions(s));
-  return 'machine' in setup ? `${JSON.stringify(s.encoding)}\n${searchSetupKey(setup)}` : undefined;
+  const pins = JSON.stringify(Object.entries(s.pins ?? {}));
+  return 'machine' in setup ? `${JSON.stringify(s.encoding)}\n${pins}\n${searchSetupKey(setup)}` : undefined;
 }
 
 /**
