@@ -7,6 +7,7 @@
  * synthesis controller the pins (events `keep-part` and `release`).
  */
 import { css, html, nothing } from 'lit';
+import { guard } from 'lit/directives/guard.js';
 import type { Diagnostic, Placement } from '../../core/index.js';
 import { bayOf, pinNotes, pinsAway, pinWords, spotFrom, type Pins } from '../controllers/pins.js';
 
@@ -67,7 +68,8 @@ export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
   const by = (step: number) => (): void => {
     if (picked !== undefined && shown && shown.bay + step >= 1) act.keep(picked, shown.bay + step, shown.drum);
   };
-  const bays = [...p.bays].sort((a, b) => a.drum - b.drum || a.bay - b.bay);
+  // One option per bay (thousands on a large frame): made again only when the placement or the pick changes.
+  const bays = () => [...p.bays].sort((a, b) => a.drum - b.drum || a.bay - b.bay);
   return html`<div class="row keep" role="group" aria-label="Keep a part in a bay">
       <label
         >Keep
@@ -77,11 +79,13 @@ export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
           @change=${(e: Event) => act.pick((e.target as HTMLSelectElement).value || undefined)}
         >
           <option value="" ?selected=${picked === undefined}>pick a part…</option>
-          ${bays.map(
-            (b) =>
-              html`<option value=${b.part} ?selected=${b.part === picked}>
-                ${at(b)}: ${k.words?.get(b.part) ?? b.part} (${b.part})
-              </option>`,
+          ${guard([p, k.words, picked], () =>
+            bays().map(
+              (b) =>
+                html`<option value=${b.part} ?selected=${b.part === picked}>
+                  ${at(b)}: ${k.words?.get(b.part) ?? b.part} (${b.part})
+                </option>`,
+            ),
           )}
         </select></label
       >
