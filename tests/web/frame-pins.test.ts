@@ -4,13 +4,14 @@
  * core places the same machine with the same pin (`buildMachine` with `pins`, run in Node);
  * the code book's command carries the `--pin`; a pin the build cannot keep shows the command
  * line's code and hint beside it; a reload keeps the pins; letting every part go gives the first
- * placement back.
+ * placement back. A cord tapped gets a route of its own in the workshop's profile (its
+ * `cordRouting` entry, docs/profile.md), as the core routes it with that profile, and loses it again.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type { BrowserContext, Page } from 'playwright-core';
-import { analyse, buildMachine, type Built, type Pin } from '../../src/core/index.js';
+import { analyse, buildMachine, loadProfile, type Built, type Pin } from '../../src/core/index.js';
 import { built, openPage, startDesigner, type Designer } from './page.js';
 
 const FILE = 'marble-bell.lw';
@@ -20,10 +21,11 @@ let designer: Designer;
 let context: BrowserContext;
 let page: Page;
 
-function buildWith(pins: Readonly<Record<string, Pin>>): Built {
+function buildWith(pins: Readonly<Record<string, Pin>>, profileValue?: Record<string, unknown>): Built {
   const a = analyse(EXAMPLE, FILE);
   if (!a.ok) throw new Error('the example must read');
-  const b = buildMachine(a, { pins, checks: false });
+  const profile = profileValue ? loadProfile(profileValue, 'workshop-profile.json').profile : undefined;
+  const b = buildMachine(a, { pins, checks: false, ...(profile ? { profile } : {}) });
   if (!b.ok) throw new Error('the example must build');
   return b;
 }
@@ -132,5 +134,38 @@ describe('src/web/elements/frame-view (keeping parts in a bay, end to end in chr
     await expect(page.locator('lw-frame [data-kept]').count()).resolves.toBe(0);
     await expect(page.locator('lw-app .status').innerText()).resolves.not.toContain('own settings');
     await expect(page.evaluate(() => localStorage.getItem('latchwright.pins'))).resolves.toBeNull();
+  });
+
+  it("sets a tapped cord's own route in the workshop's profile, as the core routes it, and clears it", async () => {
+    const first = buildWith({});
+    const b = first.placement.routing.branches.find((x) => x.kind === 'port' && x.driver !== x.part);
+    if (!b) throw new Error('the example has a cord between two bays');
+    const pulleys = b.pulleys + 2;
+    const routed = buildWith({}, { cordRouting: { [b.cord]: { pulleys } } });
+    expect(routed.placement.routing.branches.find((x) => x.cord === b.cord && x.target === b.target)?.pulleys).toBe(
+      pulleys,
+    );
+    await page.locator(`lw-frame path.cord[data-cord="${b.cord}"][data-target="${b.target}"]`).first().focus();
+    await page.keyboard.press('Enter');
+    const row = page.locator(`lw-frame [data-route-cord="${b.cord}"]`);
+    await row.locator('input[data-route="pulleys"]').fill(String(pulleys));
+    const before = await job();
+    await row.locator('button[data-do="route-set"]').click();
+    await rebuilt(before);
+    await expect(page.locator('lw-frame [data-readout]').innerText()).resolves.toContain(`over ${pulleys} pulleys`);
+    await page.getByRole('tab', { name: 'Code book' }).click();
+    await expect(page.locator('lw-codes [data-cli]').innerText()).resolves.toBe(
+      `latchwright build ${FILE} --profile workshop-profile.json`,
+    );
+    await page.getByRole('tab', { name: 'Shop' }).click();
+    await expect(page.locator(`lw-workshop [data-cord-route="${b.cord}"]`).innerText()).resolves.toContain(
+      `"pulleys":${pulleys}`,
+    );
+    await page.getByRole('tab', { name: 'Frame & cords' }).click();
+    const again = await job();
+    await page.locator(`lw-frame [data-route-cord="${b.cord}"] button[data-do="route-clear"]`).click();
+    await rebuilt(again);
+    await expect(page.locator('lw-frame [data-readout]').innerText()).resolves.not.toContain(`over ${pulleys} pulleys`);
+    await expect(page.locator('lw-app .status').innerText()).resolves.not.toContain('own settings');
   });
 });

@@ -10,10 +10,12 @@
  * Print gives frame.svg at its scale. A part is kept in a bay of the workshop's choosing (the
  * build's pins, `--pin PART=BAY@DRUM`) by dragging its lever end onto another bay, or by picking
  * it (a click, a tap, or the field of frame-keep.ts) and naming the bay; the parts kept are
- * listed with what the build said of each, and each can be let go. A large drawing comes in piece by piece, one piece per
+ * listed with what the build said of each, and each can be let go. A cord tapped can be given
+ * its own route (pulleys, angle over pins) in the workshop's profile (frame-route.ts). A large drawing comes in piece by piece, one piece per
  * animation frame (frame/pieces.ts), and the drawing in the page is indexed as it comes
  * (frame/drawn.ts), so lighting a cord touches only that cord's elements.
- * Events: `step` (as <lw-stepper>), `print-frame`, `keep-part` ({ part, pin }), `release` ({ part? }: none, every part).
+ * Events: `step` (as <lw-stepper>), `print-frame`, `keep-part` ({ part, pin }), `release` ({ part? }: none, every part),
+ * `cord-route` ({ cord, typed? }: none, the computed route again).
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
@@ -27,6 +29,7 @@ import { screenSize, screenSized, svgSizeMm, PX_PER_MM } from '../frame/sheet.js
 import { shared, viewColumn } from '../styles/shared.js';
 import { touchScreen } from '../touch.js';
 import { emit } from './emit.js';
+import { routeField } from './frame-route.js';
 import { KEEP_STYLES, keepField, keptList, type KeepActions, type KeepInput } from './frame-keep.js';
 import { LEVER_GLYPH_STYLES, leverGlyph, STAND_WORDS } from './lever-bank.js';
 
@@ -79,6 +82,8 @@ export class LwFrame extends LitElement {
     pending: { type: Boolean },
     pins: { attribute: false },
     notes: { attribute: false },
+    routes: { attribute: false },
+    routeNotes: { attribute: false },
   };
   /** The drawing (frameSvg in the screen palette), or why there is none. */
   declare drawing: { readonly svg?: string; readonly problem?: string } | undefined;
@@ -96,6 +101,9 @@ export class LwFrame extends LitElement {
   declare pins: Pins | undefined;
   /** The build's diagnostics (or why it did not build): those about pins show beside them. */
   declare notes: readonly Diagnostic[];
+  /** The `cordRouting` group of the workshop's profile as edited, and the loader's diagnostics of that profile. */
+  declare routes: unknown;
+  declare routeNotes: readonly Diagnostic[];
   /** The part picked to keep in a bay, and the lever end being dragged. */
   private picked: string | undefined;
   private drag: Drag | undefined;
@@ -134,6 +142,8 @@ export class LwFrame extends LitElement {
     this.pending = false;
     this.pins = undefined;
     this.notes = [];
+    this.routes = undefined;
+    this.routeNotes = [];
   }
 
   static override styles = [
@@ -368,8 +378,18 @@ export class LwFrame extends LitElement {
           : nothing
       }
       <p class="readout ${this.lit() ? 'on' : ''}" role="status" aria-live="polite" data-readout>${this.litWords()}</p>
-      ${this.legend()}
+      ${this.routeRow()} ${this.legend()}
     </section>`;
+  }
+
+  /** The tapped cord's own route in the workshop's profile (none when no cord is tapped). */
+  private routeRow() {
+    if (!this.pinned) return nothing;
+    return routeField(
+      { cord: this.pinned.cord, routes: this.routes, problems: this.routeNotes },
+      (cord, typed) => emit(this, 'cord-route', typed ? { cord, typed } : { cord }),
+      this.renderRoot,
+    );
   }
 
   /** Step the trial run from here: its levers stand on the frame. */
@@ -459,11 +479,14 @@ export class LwFrame extends LitElement {
       cut${over.length ? `, over ${over.join(' and ')}` : ''}.`;
   }
 
-  /** A new placement: its cords are other cords, so none stays lit. */
+  /**
+   * A new placement: its cords are other cords, so none stays lit under the pointer; a tapped one
+   * stays lit when the new placement has the same branch (its route just set, or a part kept).
+   */
   protected override willUpdate(changed: PropertyValues<this>): void {
     if (changed.has('placement')) {
       this.hovered = undefined;
-      this.pinned = undefined;
+      if (!this.branchOf(this.pinned)) this.pinned = undefined;
     }
   }
 
