@@ -4,7 +4,8 @@
  * core places the same machine with the same pin (`buildMachine` with `pins`, run in Node);
  * the code book's command carries the `--pin`; a pin the build cannot keep shows the command
  * line's code and hint beside it; a reload keeps the pins; letting every part go gives the first
- * placement back. A cord tapped gets a route of its own in the workshop's profile (its
+ * placement back; a pin of a part another machine does not have is reported (LW707), never
+ * dropped, until it is let go. A cord tapped gets a route of its own in the workshop's profile (its
  * `cordRouting` entry, docs/profile.md), as the core routes it with that profile, and loses it again.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -12,7 +13,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type { BrowserContext, Page } from 'playwright-core';
 import { analyse, buildMachine, loadProfile, type Built, type Pin } from '../../src/core/index.js';
-import { built, openPage, startDesigner, type Designer } from './page.js';
+import { built, openPage, settled, startDesigner, type Designer } from './page.js';
 
 const FILE = 'marble-bell.lw';
 const EXAMPLE = readFileSync(fileURLToPath(new URL(`../../examples/${FILE}`, import.meta.url)), 'utf8');
@@ -167,5 +168,27 @@ describe('src/web/elements/frame-view (keeping parts in a bay, end to end in chr
     await rebuilt(again);
     await expect(page.locator('lw-frame [data-readout]').innerText()).resolves.not.toContain(`over ${pulleys} pulleys`);
     await expect(page.locator('lw-app .status').innerText()).resolves.not.toContain('own settings');
+  });
+
+  it('reports a pin of a part the next machine does not have, with the command line’s LW707, until it is let go', async () => {
+    const before = await job();
+    await page.locator('lw-frame select[data-keep="part"]').selectOption('in.marble');
+    await page.locator('lw-frame input[data-keep="bay"]').fill('3');
+    await page.locator('lw-frame button[data-do="keep"]').click();
+    await rebuilt(before);
+    await page
+      .locator('lw-bench select[aria-label="Load an example machine"]')
+      .selectOption({ label: 'Odd one out (two levers, one chime)' });
+    await settled(page);
+    await expect(page.locator('lw-app .status').getAttribute('data-work')).resolves.toBe('refused');
+    const note = page.locator('lw-frame [data-kept-part="in.marble"] [data-pin-note="LW707"]');
+    // The place phase's words (src/core/phases/place/pins.ts) with its hint.
+    await expect(note.innerText()).resolves.toContain("a pin names 'in.marble', which is not a part of this build");
+    // On the bench too, as every problem of the build is.
+    await page.locator('lw-bench').getByText(/LW707/).first().waitFor();
+    const again = await job();
+    await page.locator('lw-frame [data-kept-part="in.marble"] button[data-do="release-part"]').click();
+    await rebuilt(again);
+    await expect(page.locator('lw-frame [data-kept]').count()).resolves.toBe(0);
   });
 });

@@ -525,6 +525,7 @@ export class LwFrame extends LitElement {
 
   /** A lever end pressed with the mouse or a pen: it may be dragged onto another bay (a finger pans instead, and taps to pick). */
   private onDown = (e: PointerEvent): void => {
+    this.dragged = false;
     const part = LwFrame.partAt(e);
     if (part === undefined || e.pointerType === 'touch' || e.button !== 0) return;
     e.preventDefault();
@@ -680,6 +681,12 @@ export class LwFrame extends LitElement {
   };
 
   private onKey = (e: KeyboardEvent): void => {
+    // Escape while dragging a part: it goes back where it stands.
+    if (e.key === 'Escape' && this.drag) {
+      this.drag = undefined;
+      this.requestUpdate();
+      return;
+    }
     if ((e.key !== 'Enter' && e.key !== ' ') || !LwFrame.branchAt(e)) return;
     e.preventDefault();
     e.stopPropagation();
