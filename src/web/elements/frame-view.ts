@@ -11,11 +11,12 @@
  * build's pins, `--pin PART=BAY@DRUM`) by dragging its lever end onto another bay, or by picking
  * it (a click, a tap, or the field of frame-keep.ts) and naming the bay; the parts kept are
  * listed with what the build said of each, and each can be let go. A cord tapped can be given
- * its own route (pulleys, angle over pins) in the workshop's profile (frame-route.ts). A large drawing comes in piece by piece, one piece per
- * animation frame (frame/pieces.ts), and the drawing in the page is indexed as it comes
- * (frame/drawn.ts), so lighting a cord touches only that cord's elements.
- * Events: `step` (as <lw-stepper>), `print-frame`, `keep-part` ({ part, pin }), `release` ({ part? }: none, every part),
- * `cord-route` ({ cord, typed? }: none, the computed route again).
+ * its own route (pulleys, angle over pins) in the workshop's profile (frame-route.ts). A large
+ * drawing comes in piece by piece, one piece per animation frame (frame/pieces.ts), and the
+ * drawing in the page is indexed as it comes (frame/drawn.ts), so lighting a cord touches only
+ * that cord's elements.
+ * Events: `step` (as <lw-stepper>), `print-frame`, `keep-part` ({ part, pin }), `release`
+ * ({ part? }: none, every part), `cord-route` ({ cord, typed? }: none, the computed route again).
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';

@@ -8,7 +8,9 @@
  * the sheet would restyle every cord) and draws the lit branch and its whole path again above
  * it, at full strength; the branch, its whole path and its two ends (the capstan that pulls it
  * with its bay's label, the lever it is tied to) carry the classes `lit` and `end from` /
- * `end to` as before, for the view's styles and its tests.
+ * `end to` as before, for the view's styles and its tests. For a part dragged onto another bay
+ * it measures where every bay's lever ends and label are on screen (`bayEnds`), and marks the
+ * part picked and the bay it would go to (`pick`: classes `picked`, `drop`).
  */
 import type { BranchRoute } from '../../core/index.js';
 import type { BaySpot } from '../controllers/pins.js';

@@ -345,10 +345,15 @@ export function torqueBars(drive: Pick<DriveResult, 'worstByState'>): TorqueBar[
   return drive.worstByState.map((w) => ({ state: w.where.state, torqueNm: w.torqueNm, at: momentWords(w.where) }));
 }
 
-/** Every encoding side by side, priced by the finished build's part count. */
+/**
+ * Every encoding side by side, priced by the finished build's part count. The parts kept in a bay
+ * are left out, as `latchwright compare` takes none: the comparison is of codes, priced for the
+ * text and the profile (the page prices it again when either changes, not when a part moves).
+ */
 export function compareJob(a: Analysed, s: BuildSettings, onProgress?: (p: Progress) => void): CodeRow[] {
   const states = a.minimised.machine.states;
-  return compareEncodings(a, buildOptions(settle(a, s).settings, onProgress)).map((r) => ({
+  const { pins: _, ...settings } = settle(a, s).settings;
+  return compareEncodings(a, buildOptions(settings, onProgress)).map((r) => ({
     strategy: r.strategy,
     ok: r.ok,
     states,

@@ -15,7 +15,7 @@ import { parseArgs } from '../../../src/cli/args.js';
 import { pinsFrom } from '../../../src/cli/commands/build-common.js';
 import { commandLine } from '../../../src/web/controllers/synthesis.js';
 import { exportFile } from '../../../src/web/worker/exports.js';
-import { buildJob, buildKey, checkJob, codesPlan, readJob } from '../../../src/web/worker/jobs.js';
+import { buildJob, buildKey, checkJob, codesPlan, compareJob, readJob } from '../../../src/web/worker/jobs.js';
 import { DEFAULT_SETTINGS, type BuildSettings } from '../../../src/web/worker/protocol.js';
 import { EXAMPLES, examplePath, removeTempDirs, run, tempDir } from '../../cli/support.js';
 import { expectCliVerdict } from './verdict.support.js';
@@ -108,5 +108,18 @@ describe('src/web/worker (the same build as the command line, with parts kept in
     expect(cli.err).toContain('LW707');
     expect(cli.err).toContain(d?.message ?? '—');
     expect(cli.err).toContain("did you mean 'in.marble'?");
+  });
+
+  it('compares the encodings without the pins, as `latchwright compare` takes none', async () => {
+    const file = examplePath('odd-lever');
+    const a = readJob(readFileSync(file, 'utf8'), file).analysed;
+    if (!a) throw new Error('odd-lever must read');
+    const rows = compareJob(a, { ...DEFAULT_SETTINGS, pins: { 'in.gone': { bay: 2 } } });
+    expect(rows.map((r) => [r.strategy, r.ok, r.cost])).toEqual(
+      compareJob(a, DEFAULT_SETTINGS).map((r) => [r.strategy, r.ok, r.cost]),
+    );
+    expect(rows.some((r) => r.ok)).toBe(true);
+    const cli = await run(['compare', file, '--json']);
+    expect(cli.code, cli.err).toBe(0);
   });
 });
