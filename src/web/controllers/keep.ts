@@ -24,6 +24,7 @@ export const KEPT_ENTRIES = {
   unused: 'where unused codes go',
   profile: "the workshop's technology profile",
   written: "the page's own links",
+  places: 'where states were moved in the sketch',
 } as const;
 
 export type KeptKey = keyof typeof KEPT_ENTRIES;

@@ -6,11 +6,13 @@
  */
 import type { ZoomTransform } from 'd3';
 import type { DiagramLayout } from './layout.js';
+import { meanShift } from './arrange.js';
 
 /**
  * The view `t` moved by the mean shift of the states both layouts have, or undefined when
  * there is nothing to keep (no state in common, a layout by distance) or when a state of
  * `after` would then be outside the view of `width` × `height` pixels (the caller fits instead).
+ * `shown` is `after` as drawn: with the states the user moved where they are (arrange.ts).
  */
 export function keptView(
   before: DiagramLayout,
@@ -18,15 +20,14 @@ export function keptView(
   t: ZoomTransform,
   width: number,
   height: number,
+  shown: DiagramLayout = after,
 ): ZoomTransform | undefined {
   if (after.method !== 'layered' || before.method !== 'layered') return undefined;
-  const was = new Map(before.nodes.map((n) => [n.id, n]));
-  const common = after.nodes.filter((n) => was.has(n.id));
-  if (common.length === 0) return undefined;
-  const shift = (axis: 'x' | 'y'): number =>
-    common.reduce((k, n) => k + n[axis] - (was.get(n.id)?.[axis] ?? n[axis]), 0) / common.length;
-  const kept = t.translate(-shift('x'), -shift('y'));
-  const inView = after.nodes.every(
+  const was = new Set(before.nodes.map((n) => n.id));
+  if (!after.nodes.some((n) => was.has(n.id))) return undefined;
+  const shift = meanShift(before, after);
+  const kept = t.translate(-shift.x, -shift.y);
+  const inView = shown.nodes.every(
     (n) =>
       kept.applyX(n.x - n.width / 2) >= 0 &&
       kept.applyX(n.x + n.width / 2) <= width &&
