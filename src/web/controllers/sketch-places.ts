@@ -123,6 +123,8 @@ export class SketchPlaces {
   keep(): void {
     if (this.machine === undefined) return;
     kept = shelve(kept, this.machine, this.places);
+    // Whole pixels, as stored: the sketch after a reload is the sketch now.
+    this.places = unshelve(kept, this.machine);
     if (kept.length === 0) keepDrop('places');
     else keepSet('places', shelfText(kept));
   }

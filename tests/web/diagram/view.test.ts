@@ -3,6 +3,7 @@ import { zoomIdentity } from 'd3';
 import { parseTextMachine } from '../../../src/core/forms/text.js';
 import { layoutDiagram, type DiagramLayout } from '../../../src/web/diagram/layout.js';
 import { keptView } from '../../../src/web/diagram/view.js';
+import { arranged } from '../../../src/web/diagram/arrange.js';
 import { NEW_MACHINE } from '../../../src/web/examples.js';
 
 function laid(text: string): DiagramLayout {
@@ -41,5 +42,11 @@ describe('src/web/diagram/view', () => {
     expect(keptView(before, after, zoomIdentity.translate(10, 10), 2000, 1200)).toBeUndefined();
     const other = laid('machine other\nstart a\nstate a\n  go b\nstate b\n  go a\n');
     expect(keptView(before, other, t, 2000, 1200)).toBeUndefined();
+  });
+
+  it('counts the states where they are drawn: a state moved out of the kept view makes it give up', () => {
+    expect(keptView(before, after, t, 2000, 1200)).toBeDefined();
+    const shown = arranged(after, new Map([['lit', { x: 5000, y: 0 }]]));
+    expect(keptView(before, after, t, 2000, 1200, shown)).toBeUndefined();
   });
 });
