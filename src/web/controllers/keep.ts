@@ -23,8 +23,8 @@ export const KEPT_ENTRIES = {
   encoding: 'the codes chosen for the build',
   unused: 'where unused codes go',
   profile: "the workshop's technology profile",
-  written: "the page's own links",
   places: 'where states were moved in the sketch',
+  written: "the page's own links",
 } as const;
 
 export type KeptKey = keyof typeof KEPT_ENTRIES;

@@ -25,16 +25,16 @@
  * Events: `reveal` {line, column}, `text-edit` {edit}, `undo` {again}.
  */
 import { LitElement, html, nothing, type PropertyValues } from 'lit';
-import { pointer, select, zoom, zoomIdentity, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
+import { pointer, select, zoom, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
 import type { Machine } from '../../core/index.js';
 import type { DiagramLayout, Point } from '../diagram/layout.js';
-import { arranged, extent, meanShift } from '../diagram/arrange.js';
+import { arranged, meanShift } from '../diagram/arrange.js';
 import { SketchPlaces } from '../controllers/sketch-places.js';
 import { StateMover } from './sketch-moves.js';
 import { SketchDraw, type Spot } from '../controllers/sketch-draw.js';
 import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
 import { drawEdges, drawMarks, drawNodes, lineIndex } from './sketch-svg.js';
-import { keptView } from '../diagram/view.js';
+import { fitted, insideView, keptView } from '../diagram/view.js';
 import { SketchGestures } from './sketch-gestures.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
@@ -285,12 +285,7 @@ export class LwDiagram extends LitElement {
     if (!el || !l || !n) return;
     const shift = before ? meanShift(before, l) : { x: 0, y: 0 };
     const t = zoomTransform(el).translate(-shift.x, -shift.y);
-    const clamp = (v: number, lo: number, hi: number): number =>
-      lo > hi ? (lo + hi) / 2 : Math.min(hi, Math.max(lo, v));
-    const pad = 4 / t.k;
-    const [x0, x1] = [t.invertX(0) + n.width / 2 + pad, t.invertX(el.clientWidth) - n.width / 2 - pad];
-    const [y0, y1] = [t.invertY(0) + n.height / 2 + pad, t.invertY(el.clientHeight) - n.height / 2 - pad];
-    this.arrangement.move(id, { x: clamp(n.x, x0, x1), y: clamp(n.y, y0, y1) });
+    this.arrangement.move(id, insideView(n, t, el.clientWidth, el.clientHeight));
     this.shown = arranged(l, this.arrangement.places);
   }
 
@@ -379,26 +374,7 @@ export class LwDiagram extends LitElement {
     const shown = this.shown ?? l;
     const el = this.renderRoot.querySelector('svg');
     if (!l || !shown || !el || !this.zoomer) return;
-    const w = el.clientWidth || 600;
-    const h = el.clientHeight || 400;
-    // The moved states count: the box is the drawing's own once any state was moved (arrange.ts).
-    const e = extent(l, shown);
-    const whole = Math.min(2, 0.92 * Math.min(w / Math.max(e.width, 1), h / Math.max(e.height, 1)));
-    const least = MIN_LABEL_PX / TEXT_PX;
-    const k = Math.max(whole, least);
-    const partial = whole < least;
-    let t = zoomIdentity.translate((w - e.width * k) / 2 - e.x * k, (h - e.height * k) / 2 - e.y * k).scale(k);
-    if (partial) {
-      // Start state at the left, a little in; centred vertically on it when the sketch is taller than the view.
-      const start = shown.nodes.find((n) => n.start) ?? shown.nodes[0];
-      const tx =
-        e.width * k <= w ? (w - e.width * k) / 2 - e.x * k : 24 - (start ? (start.x - start.width / 2) * k : 0) + 22;
-      const ty =
-        e.height * k <= h
-          ? (h - e.height * k) / 2 - e.y * k
-          : Math.min(-e.y * k, Math.max(h - (e.y + e.height) * k, h / 2 - (start?.y ?? 0) * k));
-      t = zoomIdentity.translate(tx, ty).scale(k);
-    }
+    const { t, k, partial } = fitted(l, shown, el.clientWidth || 600, el.clientHeight || 400, MIN_LABEL_PX / TEXT_PX);
     const zoomer = this.zoomer;
     this.svg().call((svg) => zoomer.transform(svg, t));
     if (partial !== this.partial) {
