@@ -11,7 +11,13 @@ import {
   withoutCapstanWords,
 } from '../../core/index.js';
 import type { BuildView, ChecksView } from '../worker/protocol.js';
-import type { Fix } from './parts.js';
+
+/** An action that fixes a failing check: its id, the check it fixes (if one), and its words. */
+export interface Fix {
+  readonly id: 'unused-to-start' | 'defaults';
+  readonly check?: string;
+  readonly label: string;
+}
 
 const CHECK_WORDS: Readonly<Record<string, string>> = {
   'forbidden-input': 'No forbidden latch input',

@@ -20,17 +20,12 @@ import {
 } from '../../core/index.js';
 import type { BuildView, ChecksView } from '../worker/protocol.js';
 import { shared, viewColumn } from '../styles/shared.js';
-import { checksSection, headroomView, partsSection, rulesSection, timingSection } from './parts-sections.js';
+import { checksSection, headroomView, partsSection, rulesSection, timingSection, type Fix } from './parts-sections.js';
 import { emit } from './emit.js';
 import type { Bar } from './bar-chart.js';
 import './bar-chart.js';
 
-/** An action that fixes a failing check: its id, the check it fixes (if one), and its words. */
-export interface Fix {
-  readonly id: 'unused-to-start' | 'defaults';
-  readonly check?: string;
-  readonly label: string;
-}
+export type { Fix };
 
 export class LwParts extends LitElement {
   static override properties = {

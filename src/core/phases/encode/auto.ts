@@ -49,7 +49,7 @@ import {
 import { assignmentClasses, canonicalKey, MAX_SYMMETRY_BITS, surelyMoreClasses } from './symmetry.js';
 import type { Encoding } from '../../model/build.js';
 import { adjacencyCost } from './cost.js';
-import type { EncodeOptions } from './index.js';
+import type { EncodeOptions } from './options.js';
 import { sketchOf, type Sketch } from './sketch.js';
 
 /** How the automatic search went. */

@@ -11,14 +11,26 @@
  *
  * Order: the order the tool offers them, `auto` last (it prices the others' codes first).
  */
+import type { Diagnostic } from '../../model/diagnostics.js';
+import type { Encoding } from '../../model/build.js';
 import type { FlatMachine } from '../../model/flat.js';
-import { autoSearch, runPlan, searchContext } from './auto.js';
+import { autoSearch, runPlan, searchContext, type AutoReport } from './auto.js';
 import { binary } from './binary.js';
 import { gray } from './gray.js';
-import type { EncodeOptions, EncodeResult } from './index.js';
+import type { EncodeOptions } from './options.js';
 import { johnson } from './johnson.js';
 import { oneHot } from './one-hot.js';
 import { pinnedStrategy, type PinSet } from './pinned.js';
+
+/** What the encode phase gives: the codes (absent when it refused), why not, and how the search went. */
+export interface EncodeResult {
+  readonly encoding?: Encoding;
+  readonly diagnostics: Diagnostic[];
+  /** How the automatic search went (strategy 'auto' only). */
+  readonly search?: AutoReport;
+  /** What the cost kept of pricing the chosen codes (strategy 'auto' with `kept`, when a price task priced them). */
+  readonly kept?: unknown;
+}
 
 /** One entry of the encodings registry (plain data; its run is ENCODING_RUNS[name]). */
 export interface EncodingEntry {

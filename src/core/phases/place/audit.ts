@@ -13,7 +13,7 @@
  */
 import type { Netlist, Part } from '../../model/netlist.js';
 import type { Profile } from '../../physics/profile.js';
-import type { Placement } from './index.js';
+import type { Placement } from './placement.js';
 
 export interface AuditFinding {
   readonly rule:

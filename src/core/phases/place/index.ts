@@ -24,17 +24,19 @@
 import { seededRandom, type Random } from '../../model/random.js';
 import type { Netlist } from '../../model/netlist.js';
 import type { Profile } from '../../physics/profile.js';
-import { route, type FrameLayout, type PlacedBay, type Routing } from '../../physics/routing.js';
-import { arrangeDrums, leverOffset, type ArrangeSettings, type DrumMethod, type Positions } from './arrange.js';
+import { route, type Routing } from '../../physics/routing.js';
+import { arrangeDrums, leverOffset, type ArrangeSettings, type Positions } from './arrange.js';
 import { crossings, drumsNeeded, fillDrums, splitDrums } from './drums.js';
 import { refineDrums } from './refine.js';
 import { DEFAULT_IMPROVE, type ImproveOptions } from './improve.js';
 import { checkPins, type CheckedPins, type Pin, type PlacementProblem } from './pins.js';
+import type { PlacedBayInfo, PlacedDrum, Placement } from './placement.js';
 import { frameUnits, type FrameUnits } from './units.js';
 
 export { pinDiagnostics, type Pin, type PlacementProblem } from './pins.js';
 export { frameUnits, type FrameUnits } from './units.js';
 export { auditPlacement, type AuditFinding } from './audit.js';
+export type { PlacedBayInfo, PlacedDrum, Placement } from './placement.js';
 
 /** Most subsets the exact method visits on one drum (measured: about 0.1 s at this size; bench/place.ts). */
 export const EXACT_LIMIT = 2 ** 16;
@@ -48,62 +50,6 @@ export interface PlaceOptions {
   readonly exactLimit?: number;
   /** Local search bounds (default DEFAULT_IMPROVE). */
   readonly improve?: Partial<ImproveOptions>;
-}
-
-export interface PlacedBayInfo extends PlacedBay {
-  readonly kind: 'gate' | 'lever' | 'actuator';
-  /** Left edge of the bay, metres from the visitor end. */
-  readonly leftM: number;
-  /** The unit the bay belongs to: its latch's id, or the part itself. */
-  readonly unit: string;
-}
-
-export interface PlacedDrum {
-  /** Counted from 1, the lowest first. */
-  readonly drum: number;
-  readonly lengthM: number;
-  /** Height of its axis above drum 1's, metres. */
-  readonly levelM: number;
-  /** Part ids from the visitor end. */
-  readonly bays: readonly string[];
-  readonly method: DrumMethod;
-}
-
-export interface Placement extends FrameLayout {
-  /** 'exact' when every drum's order is a proven minimum; 'netlist' when the netlist's own order was the shortest. */
-  readonly method: 'exact' | 'heuristic' | 'netlist';
-  /** One drum, solved exactly: no arrangement has less cord along the channel. */
-  readonly exact: boolean;
-  readonly drums: readonly PlacedDrum[];
-  readonly bays: readonly PlacedBayInfo[];
-  readonly latches: readonly {
-    readonly latch: string;
-    readonly drum: number;
-    readonly bays: readonly [number, number];
-  }[];
-  readonly flags: readonly {
-    readonly flag: string;
-    readonly gate: string;
-    readonly drum: number;
-    readonly bay: number;
-  }[];
-  readonly routing: Routing;
-  /** Every cord's cut length (routing.totalCordM). */
-  readonly totalCordM: number;
-  /** The same, with the netlist's own order routed the same way. */
-  readonly baselineCordM: number;
-  /** Cord along the channels (the quantity minimised). */
-  readonly channelM: number;
-  readonly baselineChannelM: number;
-  readonly pulleys: number;
-  /** Branches between different drums. */
-  readonly crossDrumBranches: number;
-  readonly longestDrumM: number;
-  readonly drumsAllowed: number;
-  readonly seed: number;
-  /** Bays' parts the user pinned and the placement kept there (a pinned latch: both its gates). */
-  readonly pinned: readonly string[];
-  readonly problems: readonly PlacementProblem[];
 }
 
 interface Candidate {
