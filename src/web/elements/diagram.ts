@@ -74,6 +74,8 @@ export class LwDiagram extends LitElement {
   private shown: DiagramLayout | undefined;
   /** A state just placed where it was asked for (kept inside the view once drawn). */
   private placedNew: string | undefined;
+  /** The frame a drag's drawing waits for. */
+  private frame = 0;
   /** Where the field shown was opened (a new spot is a new field, which takes the focus). */
   private fieldAt: Spot | undefined;
 
@@ -258,10 +260,17 @@ export class LwDiagram extends LitElement {
   moveState(id: string, at: Point, done: boolean): void {
     const first = this.arrangement.places.size === 0;
     this.arrangement.move(id, at, done);
+    // While dragging, draw at most once a frame (a large sketch is many elements); at the end, at once.
+    cancelAnimationFrame(this.frame);
+    if (done) this.drawArranged();
+    else this.frame = requestAnimationFrame(() => this.drawArranged());
+    if (first) this.requestUpdate();
+  }
+
+  private drawArranged(): void {
     if (this.layout) this.shown = arranged(this.layout, this.arrangement.places);
     this.drawSketch();
     drawMarks(select(this.renderRoot.querySelector('g.view') as SVGGElement), this.shown, this.draw);
-    if (first) this.requestUpdate();
   }
 
   moveBy(id: string, dx: number, dy: number): void {
