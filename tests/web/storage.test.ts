@@ -32,6 +32,8 @@ const BAD: Readonly<Record<KeptKey, string>> = {
   // μ given as a percentage: the core's loader refuses it (LW600), so the page never builds with it.
   profile: '{"name": "shop.json", "value": {"mu": 25}}',
   written: '<script>',
+  // A place with one coordinate: not a point of the sketch.
+  places: '[{"machine": "odd_one_out", "at": {"idle": [12]}}]',
 };
 
 beforeAll(async () => {
