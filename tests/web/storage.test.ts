@@ -34,6 +34,8 @@ const BAD: Readonly<Record<KeptKey, string>> = {
   // A bay counted from 0: the page never sends it to the build.
   pins: '[["g1", {"bay": 0}]]',
   written: '<script>',
+  // A place with one coordinate: not a point of the sketch.
+  places: '[{"machine": "odd_one_out", "at": {"idle": [12]}}]',
 };
 
 beforeAll(async () => {

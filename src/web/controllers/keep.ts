@@ -24,6 +24,7 @@ export const KEPT_ENTRIES = {
   unused: 'where unused codes go',
   profile: "the workshop's technology profile",
   pins: 'the parts kept in a bay',
+  places: 'where states were moved in the sketch',
   written: "the page's own links",
 } as const;
 
