@@ -63,6 +63,18 @@ describe('src/web on a phone (end to end in chromium)', () => {
     await expect(page.locator('lw-stepper kbd').first().isVisible()).resolves.toBe(false);
   });
 
+  it('gives the sketch a screenful of its own below the text, not a sliver under its tools', async () => {
+    await tab('Sketch');
+    // The stacked layout's promise (app-styles.ts): the sketch's view is max(24rem, 70vh) high;
+    // once it was sized as a share of what the text left of the screen, and its drawing got 0 px.
+    const heights = await page.locator('lw-diagram').evaluate((d) => ({
+      drawing: (d.shadowRoot?.querySelector('svg') as SVGSVGElement).getBoundingClientRect().height,
+      screen: innerHeight,
+    }));
+    expect(heights.drawing).toBeGreaterThanOrEqual(0.4 * heights.screen);
+    expect(await overflowing(page)).toEqual([]);
+  });
+
   it('describes touch gestures, and Fit keeps the sketch readable, showing it from its start', async () => {
     await tab('Sketch');
     await expect(page.locator('lw-diagram .legend').innerText()).resolves.toContain('pinch to zoom');

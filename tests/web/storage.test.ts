@@ -31,7 +31,11 @@ const BAD: Readonly<Record<KeptKey, string>> = {
   unused: '../x y',
   // μ given as a percentage: the core's loader refuses it (LW600), so the page never builds with it.
   profile: '{"name": "shop.json", "value": {"mu": 25}}',
+  // A bay counted from 0: the page never sends it to the build.
+  pins: '[["g1", {"bay": 0}]]',
   written: '<script>',
+  // A place with one coordinate: not a point of the sketch.
+  places: '[{"machine": "odd_one_out", "at": {"idle": [12]}}]',
 };
 
 beforeAll(async () => {

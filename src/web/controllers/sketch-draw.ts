@@ -43,6 +43,8 @@ export interface Field {
   readonly to?: string;
   readonly index?: number;
   readonly problem?: string;
+  /** Where a new state asked for at a spot of the canvas goes (layout coordinates; a view matter, not the text's). */
+  readonly place?: { readonly x: number; readonly y: number };
 }
 
 /** A transition being drawn: from a state, towards the state the pointer or the keys are on. */

@@ -72,6 +72,13 @@ export function cleanFileName(typed: string): string | undefined {
 /** The page's record of its own links: fingerprints separated by spaces. */
 const parseWritten = (raw: string): string | undefined => (/^[0-9a-z ]*$/.test(raw) ? raw : undefined);
 
+/** Count a text's link as the page's own, so that an address carrying it is never taken for a link someone opened. */
+function markWritten(text: string): void {
+  const mark = fingerprint(text);
+  const written = (keepRead('written', parseWritten) ?? '').split(' ').filter((w) => w !== '' && w !== mark);
+  keepSet('written', [...written.slice(-(WRITTEN_KEPT - 1)), mark].join(' '));
+}
+
 function parsePrevious(raw: string): { text: string; file: string } | undefined {
   const v = parseJson(raw);
   if (typeof v !== 'object' || v === null) return undefined;
@@ -148,6 +155,10 @@ export class SourceController implements ReactiveController {
       this.named = false;
       this.place(FIRST_EXAMPLE.text, FIRST_EXAMPLE.file);
     }
+    // The address this page came with is dealt with now (opened, or kept to bring back). A reload
+    // may come before the page writes its own link (HASH_DELAY_MS) and carry this address again:
+    // it must not be taken for a new link then, even when the record above was unreadable.
+    if (linked !== undefined) markWritten(linked);
     this.notice = asideNotice(takeSetAside()) ?? this.notice;
     addEventListener('beforeunload', this.onLeave);
     addEventListener('pagehide', this.flushHash);
@@ -309,9 +320,7 @@ export class SourceController implements ReactiveController {
   private readonly flushHash = (): void => {
     clearTimeout(this.hashTimer);
     const hash = machineHash(this.text);
-    const mark = fingerprint(this.text);
-    const written = (keepRead('written', parseWritten) ?? '').split(' ').filter((w) => w !== '' && w !== mark);
-    keepSet('written', [...written.slice(-(WRITTEN_KEPT - 1)), mark].join(' '));
+    markWritten(this.text);
     if (location.hash !== hash) history.replaceState(null, '', hash);
   };
 

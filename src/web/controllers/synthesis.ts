@@ -15,7 +15,7 @@
  * nor exported — and the final build when the search ends.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import { encodingEntry, type Diagnostic } from '../../core/index.js';
+import { encodingEntry, type Diagnostic, type Pin } from '../../core/index.js';
 import {
   DEFAULT_SETTINGS,
   type BuildSettings,
@@ -30,6 +30,7 @@ import {
   type Reading,
 } from '../worker/protocol.js';
 import { keepDrop, keepRead, keepSet, parseJson } from './keep.js';
+import { parseStoredPins, pinOptions, storedPins, withoutPin, withPin, type Pins } from './pins.js';
 import { Lane } from './lane.js';
 import { SearchMemory } from './search-memory.js';
 import { parseStoredProfile } from './workshop.js';
@@ -98,7 +99,7 @@ export function parseUnused(raw: string): string | undefined {
 
 /** The `latchwright build` command that builds what these settings build (the defaults left out). */
 export function commandLine(file: string, s: BuildSettings): string {
-  const quote = (w: string): string => (/^[A-Za-z0-9_./-]+$/.test(w) ? w : `'${w.replace(/'/g, `'\\''`)}'`);
+  const quote = (w: string): string => (/^[A-Za-z0-9_./=@-]+$/.test(w) ? w : `'${w.replace(/'/g, `'\\''`)}'`);
   const words = ['latchwright', 'build', quote(file)];
   const d = DEFAULT_SETTINGS;
   if ('strategy' in s.encoding && !('strategy' in d.encoding && d.encoding.strategy === s.encoding.strategy))
@@ -106,6 +107,7 @@ export function commandLine(file: string, s: BuildSettings): string {
   if (s.unusedCodes !== undefined) words.push('--unused', quote(s.unusedCodes));
   if (s.seed !== d.seed) words.push('--seed', String(s.seed));
   if (s.profile) words.push('--profile', quote(s.profile.name));
+  words.push(...pinOptions(s.pins).map(quote));
   return words.join(' ');
 }
 
@@ -117,7 +119,8 @@ export function isDefault(s: BuildSettings): boolean {
     s.encoding.strategy === DEFAULT_SETTINGS.encoding.strategy &&
     s.seed === DEFAULT_SETTINGS.seed &&
     s.unusedCodes === undefined &&
-    s.profile === undefined
+    s.profile === undefined &&
+    s.pins === undefined
   );
 }
 
@@ -183,11 +186,13 @@ export class SynthesisController implements ReactiveController {
     const encoding = keepRead('encoding', parseChoice);
     const unused = keepRead('unused', parseUnused);
     const profile = keepRead('profile', parseStoredProfile);
+    const pins = keepRead('pins', parseStoredPins);
     this.settings = {
       ...DEFAULT_SETTINGS,
       ...(encoding ? { encoding } : {}),
       ...(unused !== undefined ? { unusedCodes: unused } : {}),
       ...(profile ? { profile } : {}),
+      ...(pins ? { pins } : {}),
     };
   }
 
@@ -265,14 +270,34 @@ export class SynthesisController implements ReactiveController {
   }
 
   /**
-   * Back to the command line's defaults for the codes (the searched codes, unused codes chosen
-   * automatically). The workshop's profile stays: it describes the workshop, not this build.
+   * Back to the command line's defaults for this build (the searched codes, unused codes chosen
+   * automatically, every part placed freely). The workshop's profile stays: it describes the
+   * workshop, not this build.
    */
   useDefaults(): void {
     const profile = this.settings.profile;
     this.settings = profile ? { ...DEFAULT_SETTINGS, profile } : DEFAULT_SETTINGS;
     keepDrop('encoding');
     keepDrop('unused');
+    keepDrop('pins');
+    this.submit(this.text, this.file);
+  }
+
+  /** Keep a part in a bay (`--pin PART=BAY@DRUM`): the build places it there, or says why it cannot. */
+  keepPart(part: string, pin: Pin): void {
+    this.setPins(withPin(this.settings.pins, part, pin));
+  }
+
+  /** Let one part go (placed freely again), or every part when none is named. */
+  release(part?: string): void {
+    this.setPins(part === undefined ? undefined : withoutPin(this.settings.pins, part));
+  }
+
+  private setPins(pins: Pins | undefined): void {
+    const { pins: _, ...rest } = this.settings;
+    this.settings = pins ? { ...rest, pins } : rest;
+    if (pins) keepSet('pins', storedPins(pins));
+    else keepDrop('pins');
     this.submit(this.text, this.file);
   }
 

@@ -100,6 +100,30 @@ export function withValue(v: Value, path: string, x: unknown): Value {
   return out;
 }
 
+/** The figures of a cord's own route the frame view sets (`cordRouting` entry fields), as typed. */
+export interface CordRouteTyped {
+  readonly pulleys: string;
+  readonly pinAngleRad: string;
+}
+
+/**
+ * A copy of `v` with the `cordRouting` entry of `cord` set to the figures typed (each left out
+ * when empty, so the computed figure stays), or removed for undefined or nothing typed; the
+ * group goes when it empties. Cord ids hold dots (`c.clk.phi1`), so the entry is set by key.
+ */
+export function withCordRoute(v: Value, cord: string, typed: CordRouteTyped | undefined): Value {
+  const routes: Record<string, unknown> = isJsonObject(v.cordRouting) ? { ...v.cordRouting } : {};
+  const entry = Object.fromEntries(
+    Object.entries(typed ?? {})
+      .map(([k, raw]) => [k, typedValue(String(raw))] as const)
+      .filter(([, x]) => x !== undefined),
+  );
+  if (Object.keys(entry).length > 0) routes[cord] = entry;
+  else delete routes[cord];
+  const { cordRouting: _, ...rest } = v;
+  return Object.keys(routes).length > 0 ? { ...rest, cordRouting: routes } : rest;
+}
+
 /** The unit, ranges and default of a figure, from the core's rules. */
 export function fieldFacts(path: WorkshopPath): FieldFacts {
   const r: NumberRule | undefined = PROFILE_RULES[path];
@@ -191,6 +215,11 @@ export class WorkshopController implements ReactiveController {
     else next[path] = words;
     const value = withValue(this.draft.value, 'sources', undefined);
     this.tryDraft({ ...this.draft, value: Object.keys(next).length > 0 ? { ...value, sources: next } : value });
+  }
+
+  /** One cord's own route set from the frame view (its `cordRouting` entry), or cleared (undefined). */
+  route(cord: string, typed: CordRouteTyped | undefined): void {
+    this.tryDraft({ ...this.draft, value: withCordRoute(this.draft.value, cord, typed) });
   }
 
   /** A profile file opened: it replaces the draft when it loads; otherwise its problems show and nothing changes. */

@@ -91,7 +91,8 @@ export function outputWords(outs: Readonly<Record<string, OutBit>>, order: reado
     .join(' ');
 }
 
-function box(lines: readonly string[]): { width: number; height: number } {
+/** The size of a card (a state) or a label box holding these lines. */
+export function box(lines: readonly string[]): { width: number; height: number } {
   const chars = Math.ceil(Math.max(...lines.map((l) => l.length), 1) / SIZE_STEP) * SIZE_STEP;
   return { width: Math.ceil(chars * CHAR_W + 2 * PAD_X), height: lines.length * LINE_H + 2 * PAD_Y };
 }
@@ -166,7 +167,7 @@ function sweep(columns: string[][], edges: readonly Linked[]): void {
 }
 
 /** Where the straight line from a box's centre `c` towards `to` leaves the box. */
-function border(c: Point, box: { readonly width: number; readonly height: number }, to: Point): Point {
+export function border(c: Point, box: { readonly width: number; readonly height: number }, to: Point): Point {
   const dx = to.x - c.x;
   const dy = to.y - c.y;
   const t = Math.min(

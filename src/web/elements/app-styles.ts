@@ -161,6 +161,7 @@ export const appStyles = css`
       min-height: 100%;
     }
     main {
+      flex: 1 0 auto;
       grid-template-columns: minmax(0, 1fr);
       grid-template-rows: none;
     }
@@ -170,7 +171,9 @@ export const appStyles = css`
     #view {
       overflow: visible;
     }
+    /* Its own height, not a share of the column's (flex: 1 would size it from a basis of 0 and leave it a sliver). */
     #view.view-sketch {
+      flex: none;
       height: max(24rem, 70vh);
     }
     header h1 .soft {

@@ -14,7 +14,7 @@ import { applyEdit, type TextEdit } from '../controllers/table-edit.js';
 import { download, type SaveForm } from '../controllers/files.js';
 import { keepRead, keepSet } from '../controllers/keep.js';
 import { printHtml } from '../controllers/print.js';
-import { WorkshopController, type WorkshopPath } from '../controllers/workshop.js';
+import { WorkshopController, type CordRouteTyped, type WorkshopPath } from '../controllers/workshop.js';
 import { profileFileText } from '../worker/profile-file.js';
 import { EXAMPLES } from '../examples.js';
 import { ALL_DOCUMENTS, PRINT_SHEET, type BuildView, type EncodingChoice } from '../worker/protocol.js';
@@ -25,6 +25,7 @@ import {
   type HandAction,
   type PartRunner,
   type PartState,
+  type Pin,
 } from '../../core/index.js';
 import { leverStands, type Stands } from '../frame/stands.js';
 import { drawingPage } from '../frame/sheet.js';
@@ -372,8 +373,16 @@ export class LwApp extends LitElement {
       .clocks=${st.clocks}
       ?canUndo=${st.canUndo}
       ?printable=${s.work === Work.done}
+      .pins=${s.settings.pins}
+      .notes=${s.work === Work.refused ? s.buildProblems : (b?.diagnostics ?? [])}
       @step=${this.onStep}
       @print-frame=${this.onPrintFrame}
+      @keep-part=${(e: Detail<{ part: string; pin: Pin }>) => s.keepPart(e.detail.part, e.detail.pin)}
+      @release=${(e: Detail<{ part?: string }>) => s.release(e.detail.part)}
+      .routes=${this.workshop.draft.value.cordRouting}
+      .routeNotes=${this.workshop.problems}
+      @cord-route=${(e: Detail<{ cord: string; typed?: CordRouteTyped }>) =>
+        this.workshop.route(e.detail.cord, e.detail.typed)}
     ></lw-frame>`;
   }
 
@@ -408,6 +417,7 @@ export class LwApp extends LitElement {
       @profile-open=${(e: Detail<{ text: string; name: string }>) => w.open(e.detail.text, e.detail.name)}
       @profile-save=${() => w.good && download(w.good.name, 'application/json', profileFileText(w.good))}
       @profile-reset=${() => w.reset()}
+      @profile-route=${(e: Detail<{ cord: string }>) => w.route(e.detail.cord, undefined)}
     ></lw-workshop>`;
   }
 

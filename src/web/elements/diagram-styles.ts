@@ -40,6 +40,12 @@ export const diagramStyles = css`
     font-family: var(--lw-mono);
     font-size: 12px;
   }
+  .relayout {
+    position: absolute;
+    right: 0.5rem;
+    bottom: 0.5rem;
+    z-index: 1;
+  }
   .tip {
     fill: var(--lw-ink-soft);
   }

@@ -16,16 +16,25 @@
  * when the states are mostly the same ones it keeps them where they were on screen (keepView).
  * The SVG itself is drawn by sketch-svg.ts, the inline field and the actions by sketch-field.ts;
  * what the pointer and the keys do to draw is in sketch-gestures.ts.
+ *
+ * The user arranges the sketch: a state dragged by its card (sketch-moves.ts) or moved by Shift
+ * and the arrow keys goes where it is put, its transitions following (diagram/arrange.ts); a
+ * state asked for by a double-click goes to the spot clicked. The arrangement is a view matter:
+ * it is kept for the machine's name in the browser's storage (controllers/sketch-places.ts),
+ * follows the layout across edits, and never touches the text; "Back to the layout" drops it.
  * Events: `reveal` {line, column}, `text-edit` {edit}, `undo` {again}.
  */
 import { LitElement, html, nothing, type PropertyValues } from 'lit';
-import { select, zoom, zoomIdentity, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
+import { pointer, select, zoom, zoomTransform, type Selection, type ZoomBehavior } from 'd3';
 import type { Machine } from '../../core/index.js';
-import type { DiagramLayout } from '../diagram/layout.js';
+import type { DiagramLayout, Point } from '../diagram/layout.js';
+import { arranged, meanShift } from '../diagram/arrange.js';
+import { SketchPlaces } from '../controllers/sketch-places.js';
+import { StateMover } from './sketch-moves.js';
 import { SketchDraw, type Spot } from '../controllers/sketch-draw.js';
 import { actsTemplate, drawButtons, fieldTemplate } from './sketch-field.js';
 import { drawEdges, drawMarks, drawNodes, lineIndex } from './sketch-svg.js';
-import { keptView } from '../diagram/view.js';
+import { fitted, insideView, keptView } from '../diagram/view.js';
 import { SketchGestures } from './sketch-gestures.js';
 import { shared } from '../styles/shared.js';
 import { diagramStyles } from './diagram-styles.js';
@@ -59,6 +68,14 @@ export class LwDiagram extends LitElement {
 
   private readonly draw = new SketchDraw(this);
   private readonly gestures = new SketchGestures(this, this.draw);
+  private readonly arrangement = new SketchPlaces();
+  private readonly mover = new StateMover(this);
+  /** The layout as drawn: with the states the user moved where they are. */
+  private shown: DiagramLayout | undefined;
+  /** A state just placed where it was asked for (kept inside the view once drawn). */
+  private placedNew: string | undefined;
+  /** The frame a drag's drawing waits for. */
+  private frame = 0;
   /** Where the field shown was opened (a new spot is a new field, which takes the focus). */
   private fieldAt: Spot | undefined;
 
@@ -154,6 +171,7 @@ export class LwDiagram extends LitElement {
           <path class="rubber" marker-end="url(#tip)"></path>
         </g>
       </svg>
+      ${this.relayoutButton()}
       ${
         d.field && m
           ? fieldTemplate(d.field, m, {
@@ -165,11 +183,28 @@ export class LwDiagram extends LitElement {
       }`;
   }
 
+  /**
+   * Once a state was moved: the command that puts every state back where the layout puts it, in
+   * the sketch's corner (so it never changes the size of the view it is about).
+   */
+  private relayoutButton() {
+    return this.arrangement.places.size > 0
+      ? html`<button
+          class="relayout"
+          data-do="relayout"
+          @click=${() => this.relayout()}
+          aria-label="Put every moved state back where the automatic layout places it"
+        >
+          Back to the layout
+        </button>`
+      : nothing;
+  }
+
   /** The toolbar's hint: how to look around and, on a drawable machine, how to draw. */
   private hint(touch: boolean): string {
     const look = touch
-      ? 'drag to move · pinch to zoom · tap a state to find it in the text'
-      : 'drag to pan · wheel to zoom · click a state to find it in the text';
+      ? 'drag to move · pinch to zoom · tap a state to find it in the text, drag it to move it'
+      : 'drag to pan · wheel to zoom · click a state to find it in the text, drag it to move it';
     if (this.layout !== undefined && this.machine !== undefined && !this.drawable)
       return `${look} · this machine is not in the text form, so the sketch only shows it: drawing works in the text form`;
     if (!this.drawable) return look;
@@ -185,18 +220,23 @@ export class LwDiagram extends LitElement {
       .on('zoom', (e: { transform: { toString(): string } }) =>
         select(this.renderRoot.querySelector('g.view') as SVGGElement).attr('transform', e.transform.toString()),
       );
-    // A drag that starts on a state's dot draws a transition; every other drag pans.
+    // A drag that starts on a state's dot draws a transition, one on its card moves it; every other drag pans.
     this.zoomer.filter(
       (e: MouseEvent) =>
-        (!e.ctrlKey || e.type === 'wheel') && !e.button && !(e.target as Element | null)?.closest?.('.handle'),
+        (!e.ctrlKey || e.type === 'wheel') &&
+        !e.button &&
+        (e.type === 'wheel' || !(e.target as Element | null)?.closest?.('.handle, g.node')),
     );
     svg.call(this.zoomer).on('dblclick.zoom', null);
     svg.on('dblclick.draw', (ev: MouseEvent) => {
       if ((ev.target as Element).closest('g.node, g.label') || !this.drawable || this.frozen) return;
-      this.gestures.openField('new-state', this.gestures.spotOf(ev.clientX, ev.clientY));
+      const [x, y] = pointer(ev, this.renderRoot.querySelector('g.view'));
+      this.gestures.openField('new-state', this.gestures.spotOf(ev.clientX, ev.clientY), { place: { x, y } });
     });
     svg.on('pointermove.draw', (ev: PointerEvent) => this.gestures.onDrag(ev));
     svg.on('pointerup.draw pointercancel.draw', (ev: PointerEvent) => this.gestures.onDrop(ev));
+    svg.on('pointermove.move', (ev: PointerEvent) => this.mover.onDrag(ev));
+    svg.on('pointerup.move pointercancel.move', (ev: PointerEvent) => this.mover.onDrop(ev));
   }
 
   protected override willUpdate(changed: PropertyValues<this>): void {
@@ -206,15 +246,95 @@ export class LwDiagram extends LitElement {
       this.draw.said = undefined;
       this.draw.picked = undefined;
     }
+    const l = this.layout;
+    if (changed.has('layout') && l) {
+      const was = changed.get('layout');
+      const name = this.machine?.name ?? '';
+      if (!was || name !== this.arrangement.machine) this.arrangement.open(name, l);
+      else this.placedNew = this.arrangement.follow(was, l);
+    }
+    this.shown = l && arranged(l, this.arrangement.places);
+  }
+
+  /** Put a state at `at` (layout coordinates) and draw it there with its transitions; kept when `done`. */
+  moveState(id: string, at: Point, done: boolean): void {
+    const first = this.arrangement.places.size === 0;
+    this.arrangement.move(id, at, done);
+    // While dragging, draw at most once a frame (a large sketch is many elements); at the end, at once.
+    cancelAnimationFrame(this.frame);
+    if (done) this.drawArranged();
+    else this.frame = requestAnimationFrame(() => this.drawArranged());
+    if (first) this.requestUpdate();
+  }
+
+  private drawArranged(): void {
+    if (this.layout) this.shown = arranged(this.layout, this.arrangement.places);
+    this.drawSketch();
+    drawMarks(select(this.renderRoot.querySelector('g.view') as SVGGElement), this.shown, this.draw);
+  }
+
+  moveBy(id: string, dx: number, dy: number): void {
+    const n = this.shown?.nodes.find((x) => x.id === id);
+    if (n) this.moveState(id, { x: n.x + dx, y: n.y + dy }, true);
+  }
+
+  /** A new state asked for at a spot goes there once it is drawn. */
+  expectState(id: string, at: Point): void {
+    this.arrangement.expect(id, at);
+  }
+
+  /**
+   * Keep the card of a state just placed at a spot inside the view the sketch is about to keep
+   * (the view moved by the layout's shift, keptView), once the toolbars have their new size.
+   */
+  private keepInView(id: string, before: DiagramLayout | undefined): void {
+    const el = this.renderRoot.querySelector('svg');
+    const l = this.layout;
+    const n = this.shown?.nodes.find((x) => x.id === id);
+    if (!el || !l || !n) return;
+    const shift = before ? meanShift(before, l) : { x: 0, y: 0 };
+    const t = zoomTransform(el).translate(-shift.x, -shift.y);
+    this.arrangement.move(id, insideView(n, t, el.clientWidth, el.clientHeight));
+    this.shown = arranged(l, this.arrangement.places);
+  }
+
+  /** Every state back where the automatic layout puts it. */
+  private relayout(): void {
+    this.arrangement.reset();
+    this.shown = this.layout;
+    this.drawSketch();
+    this.requestUpdate();
   }
 
   protected override updated(changed: PropertyValues<this>): void {
-    drawMarks(select(this.renderRoot.querySelector('g.view') as SVGGElement), this.layout, this.draw);
+    drawMarks(select(this.renderRoot.querySelector('g.view') as SVGGElement), this.shown, this.draw);
     const opened = this.draw.field?.at;
     if (opened !== undefined && opened !== this.fieldAt) this.gestures.focusField();
     this.fieldAt = opened;
     if (!changed.has('layout') && !changed.has('codes') && !changed.has('lit')) return;
-    const l = this.layout;
+    const placed = this.placedNew;
+    this.placedNew = undefined;
+    if (placed !== undefined) this.keepInView(placed, changed.get('layout'));
+    this.drawSketch();
+    const shape = (this.layout?.nodes ?? []).map((n) => n.id).join(' ');
+    if (shape !== this.shape) {
+      this.shape = shape;
+      if (!this.keepView(changed.get('layout'))) this.fit();
+    }
+    this.dataset.drawn = String((Number(this.dataset.drawn) || 0) + 1);
+    const due = this.gestures.focusDue;
+    if (due !== undefined && changed.has('layout')) {
+      const el = this.gestures.nodeElement(due);
+      if (el) {
+        this.gestures.focusDue = undefined;
+        el.focus({ preventScroll: true });
+      }
+    }
+  }
+
+  /** Draw the transitions and the states of the layout as shown (sketch-svg.ts). */
+  private drawSketch(): void {
+    const l = this.shown;
     const view = select(this.renderRoot.querySelector('g.view') as SVGGElement);
     drawEdges(view.select<SVGGElement>('g.edges'), l?.edges ?? [], {
       click: (ev, e) => {
@@ -234,6 +354,7 @@ export class LwDiagram extends LitElement {
       lit: this.lit,
       drawable: this.drawable,
       click: (_, n) => {
+        if (this.mover.swallowClick()) return;
         this.gestures.revealLine(n.line);
         this.draw.pick({ kind: 'state', id: n.id });
       },
@@ -245,21 +366,8 @@ export class LwDiagram extends LitElement {
       key: (ev, n) => this.gestures.onNodeKey(ev, n),
       keys: this.drawable ? 'Enter T F2 O S Delete' : 'Enter',
       grab: (ev, n) => this.gestures.onGrab(ev, n),
+      press: (ev, n) => this.mover.onPress(ev, n),
     });
-    const shape = (l?.nodes ?? []).map((n) => n.id).join(' ');
-    if (shape !== this.shape) {
-      this.shape = shape;
-      if (!this.keepView(changed.get('layout'))) this.fit();
-    }
-    this.dataset.drawn = String((Number(this.dataset.drawn) || 0) + 1);
-    const due = this.gestures.focusDue;
-    if (due !== undefined && changed.has('layout')) {
-      const el = this.gestures.nodeElement(due);
-      if (el) {
-        this.gestures.focusDue = undefined;
-        el.focus({ preventScroll: true });
-      }
-    }
   }
 
   private svg(): Selection<SVGSVGElement, unknown, null, undefined> {
@@ -272,25 +380,10 @@ export class LwDiagram extends LitElement {
    */
   fit(): void {
     const l = this.layout;
+    const shown = this.shown ?? l;
     const el = this.renderRoot.querySelector('svg');
-    if (!l || !el || !this.zoomer) return;
-    const w = el.clientWidth || 600;
-    const h = el.clientHeight || 400;
-    const whole = Math.min(2, 0.92 * Math.min(w / Math.max(l.width, 1), h / Math.max(l.height, 1)));
-    const least = MIN_LABEL_PX / TEXT_PX;
-    const k = Math.max(whole, least);
-    const partial = whole < least;
-    let t = zoomIdentity.translate((w - l.width * k) / 2, (h - l.height * k) / 2).scale(k);
-    if (partial) {
-      // Start state at the left, a little in; centred vertically on it when the sketch is taller than the view.
-      const start = l.nodes.find((n) => n.start) ?? l.nodes[0];
-      const tx = l.width * k <= w ? (w - l.width * k) / 2 : 24 - (start ? (start.x - start.width / 2) * k : 0) + 22;
-      const ty =
-        l.height * k <= h
-          ? (h - l.height * k) / 2
-          : Math.min(0, Math.max(h - l.height * k, h / 2 - (start?.y ?? 0) * k));
-      t = zoomIdentity.translate(tx, ty).scale(k);
-    }
+    if (!l || !shown || !el || !this.zoomer) return;
+    const { t, k, partial } = fitted(l, shown, el.clientWidth || 600, el.clientHeight || 400, MIN_LABEL_PX / TEXT_PX);
     const zoomer = this.zoomer;
     this.svg().call((svg) => zoomer.transform(svg, t));
     if (partial !== this.partial) {
@@ -311,7 +404,7 @@ export class LwDiagram extends LitElement {
     const el = this.renderRoot.querySelector('svg');
     const zoomer = this.zoomer;
     if (!before || !l || !el || !zoomer) return false;
-    const t = keptView(before, l, zoomTransform(el), el.clientWidth, el.clientHeight);
+    const t = keptView(before, l, zoomTransform(el), el.clientWidth, el.clientHeight, this.shown);
     if (t) this.svg().call((svg) => zoomer.transform(svg, t));
     return t !== undefined;
   }

@@ -7,14 +7,22 @@
  * trial run's levers stand on the frame as they stand now: a lever held down hangs below the
  * pivot rail (the one meaning of "down" the trial run's lever drawings have, with their
  * legend's glyphs beside), and the trial run can be stepped from here. Zoom and pan in the box;
- * Print gives frame.svg at its scale. A large drawing comes in piece by piece, one piece per
- * animation frame (frame/pieces.ts), and the drawing in the page is indexed as it comes
- * (frame/drawn.ts), so lighting a cord touches only that cord's elements.
- * Events: `step` (as <lw-stepper>), `print-frame`.
+ * Print gives frame.svg at its scale. A part is kept in a bay of the workshop's choosing (the
+ * build's pins, `--pin PART=BAY@DRUM`) by dragging its lever end onto another bay, or by picking
+ * it (a click, a tap, or the field of frame-keep.ts) and naming the bay; the parts kept are
+ * listed with what the build said of each, and each can be let go. A cord tapped can be given
+ * its own route (pulleys, angle over pins) in the workshop's profile (frame-route.ts). A large
+ * drawing comes in piece by piece, one piece per animation frame (frame/pieces.ts), and the
+ * drawing in the page is indexed as it comes (frame/drawn.ts), so lighting a cord touches only
+ * that cord's elements.
+ * Events: `step` (as <lw-stepper>), `print-frame`, `keep-part` ({ part, pin }), `release`
+ * ({ part? }: none, every part), `cord-route` ({ cord, typed? }: none, the computed route again).
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
-import type { BranchRoute, PartReading, Placement } from '../../core/index.js';
+import type { BranchRoute, Diagnostic, PartReading, Placement } from '../../core/index.js';
+import { bayOf, pinAt, pinForDrop, type BaySpot, type Pins } from '../controllers/pins.js';
+import { bayBoxes, bayNearest, type BayBox } from '../frame/bays.js';
 import type { Stands } from '../frame/stands.js';
 import { DrawnFrame } from '../frame/drawn.js';
 import { drawingPieces, type Piece } from '../frame/pieces.js';
@@ -22,6 +30,8 @@ import { screenSize, screenSized, svgSizeMm, PX_PER_MM } from '../frame/sheet.js
 import { shared, viewColumn } from '../styles/shared.js';
 import { touchScreen } from '../touch.js';
 import { emit } from './emit.js';
+import { routeField } from './frame-route.js';
+import { KEEP_STYLES, keepField, keptList, type KeepActions, type KeepInput } from './frame-keep.js';
 import { LEVER_GLYPH_STYLES, leverGlyph, STAND_WORDS } from './lever-bank.js';
 
 /** The smallest text of the drawing, mm on paper (the key's part ids), and the least it may be on screen, px. */
@@ -45,6 +55,18 @@ interface Lit {
   readonly target: string;
 }
 
+/** A lever end dragged toward another bay: the part, where the drag began, and the bay it is over once it moved. */
+interface Drag {
+  readonly part: string;
+  readonly x: number;
+  readonly y: number;
+  boxes?: readonly BayBox[];
+  over?: BaySpot;
+}
+
+/** A pointer that moves less than this (px) is a click, not a drag. */
+const DRAG_PX = 5;
+
 const same = (a: Lit | undefined, b: Lit | undefined): boolean =>
   a !== undefined && b !== undefined && a.cord === b.cord && a.target === b.target;
 
@@ -59,6 +81,10 @@ export class LwFrame extends LitElement {
     canUndo: { type: Boolean },
     printable: { type: Boolean },
     pending: { type: Boolean },
+    pins: { attribute: false },
+    notes: { attribute: false },
+    routes: { attribute: false },
+    routeNotes: { attribute: false },
   };
   /** The drawing (frameSvg in the screen palette), or why there is none. */
   declare drawing: { readonly svg?: string; readonly problem?: string } | undefined;
@@ -72,6 +98,18 @@ export class LwFrame extends LitElement {
   declare printable: boolean;
   /** A large build's drawing is on its way: the view says so until it comes. */
   declare pending: boolean;
+  /** The parts kept in a bay (the build's pins). */
+  declare pins: Pins | undefined;
+  /** The build's diagnostics (or why it did not build): those about pins show beside them. */
+  declare notes: readonly Diagnostic[];
+  /** The `cordRouting` group of the workshop's profile as edited, and the loader's diagnostics of that profile. */
+  declare routes: unknown;
+  declare routeNotes: readonly Diagnostic[];
+  /** The part picked to keep in a bay, and the lever end being dragged. */
+  private picked: string | undefined;
+  private drag: Drag | undefined;
+  /** A drag just ended: the click that follows it picks nothing. */
+  private dragged = false;
   private zoom = START_ZOOM;
   private zoomChosen = false;
   /** The branch pointed at or focused, and the one tapped (it stays lit until tapped again). */
@@ -103,12 +141,17 @@ export class LwFrame extends LitElement {
     this.canUndo = false;
     this.printable = false;
     this.pending = false;
+    this.pins = undefined;
+    this.notes = [];
+    this.routes = undefined;
+    this.routeNotes = [];
   }
 
   static override styles = [
     shared,
     viewColumn,
     LEVER_GLYPH_STYLES,
+    KEEP_STYLES,
     css`
       .row {
         display: flex;
@@ -190,6 +233,28 @@ export class LwFrame extends LitElement {
         fill: var(--lw-focus);
         font-weight: 700;
       }
+      /* A part's lever ends and label: picked up and dragged onto another bay. */
+      .sheet rect.lever[data-part],
+      .sheet g[data-part] {
+        cursor: grab;
+      }
+      .sheet.dragging,
+      .sheet.dragging * {
+        cursor: grabbing;
+      }
+      .sheet rect.picked {
+        stroke: var(--lw-focus);
+        stroke-width: 1px;
+      }
+      .sheet g.picked text {
+        fill: var(--lw-focus);
+        font-weight: 700;
+      }
+      .sheet rect.drop {
+        stroke: var(--lw-brass);
+        stroke-width: 1px;
+        stroke-dasharray: 0.8 0.4;
+      }
       /* The trial run's levers as they stand: held down hangs below the rail; undetermined is dashed. */
       .sheet rect.lever[data-stand='down'] {
         transform-box: fill-box;
@@ -241,7 +306,8 @@ export class LwFrame extends LitElement {
   override render() {
     const svg = this.drawing?.svg;
     if (this.drawing?.problem !== undefined)
-      return html`<p class="bad" role="alert">No frame drawing: ${this.drawing.problem}</p>`;
+      return html`<p class="bad" role="alert">No frame drawing: ${this.drawing.problem}</p>
+        ${keptList(this.keepInput(), this.keepActions)}`;
     if (this.pending && this.placement) {
       const p = this.placement;
       return html`<section class="panel" aria-label="The frame">
@@ -253,7 +319,8 @@ export class LwFrame extends LitElement {
       </section>`;
     }
     if (svg === undefined || !this.placement)
-      return html`<p class="soft">The frame appears once the machine builds: every part in its bay along the drum.</p>`;
+      return html`<p class="soft">The frame appears once the machine builds: every part in its bay along the drum.</p>
+        ${keptList(this.keepInput(), this.keepActions)}`;
     const p = this.placement;
     const size = svgSizeMm(svg);
     const scale = /scale 1:(\d+)/.exec(svg)?.[1] ?? '?';
@@ -285,9 +352,10 @@ export class LwFrame extends LitElement {
           Print to scale
         </button>
       </div>
-      ${this.trialRow()}
+      ${this.trialRow()} ${keepField(this.keepInput(), this.keepActions, this.renderRoot)}
+      ${keptList(this.keepInput(), this.keepActions)}
       <div
-        class="sheet ${this.lit() ? 'lighting' : ''}"
+        class="sheet ${this.lit() ? 'lighting' : ''} ${this.drag?.over ? 'dragging' : ''}"
         role="group"
         aria-label="Front elevation of the frame: visitor end on the left, crank end on the right; the box scrolls"
         @pointerover=${this.onOver}
@@ -296,6 +364,10 @@ export class LwFrame extends LitElement {
         @focusout=${this.onOut}
         @click=${this.onTap}
         @keydown=${this.onKey}
+        @pointerdown=${this.onDown}
+        @pointermove=${this.onMove}
+        @pointerup=${this.onUp}
+        @pointercancel=${this.onCancel}
       >
         ${unsafeSVG(this.sizedText(svg))}
       </div>
@@ -307,8 +379,18 @@ export class LwFrame extends LitElement {
           : nothing
       }
       <p class="readout ${this.lit() ? 'on' : ''}" role="status" aria-live="polite" data-readout>${this.litWords()}</p>
-      ${this.legend()}
+      ${this.routeRow()} ${this.legend()}
     </section>`;
+  }
+
+  /** The tapped cord's own route in the workshop's profile (none when no cord is tapped). */
+  private routeRow() {
+    if (!this.pinned) return nothing;
+    return routeField(
+      { cord: this.pinned.cord, routes: this.routes, problems: this.routeNotes },
+      (cord, typed) => emit(this, 'cord-route', typed ? { cord, typed } : { cord }),
+      this.renderRoot,
+    );
   }
 
   /** Step the trial run from here: its levers stand on the frame. */
@@ -374,8 +456,12 @@ export class LwFrame extends LitElement {
     return l ? this.placement?.routing.branches.find((b) => b.cord === l.cord && b.target === l.target) : undefined;
   }
 
-  /** The lit branch in words: from where, to where, how long, over what. */
+  /** The lit branch in words: from where, to where, how long, over what (while a part is dragged: where it would go). */
   private litWords() {
+    const to = this.drag?.over;
+    if (this.drag && to)
+      return html`Let go to keep <strong class="mono">${this.drag.part}</strong> in
+        <strong data-drop>bay ${to.bay}, drum ${to.drum}</strong>.`;
     const b = this.branchOf(this.lit());
     if (!b) return html`<span class="soft">No cord lit.</span>`;
     const bays = this.placement?.bays ?? [];
@@ -394,13 +480,89 @@ export class LwFrame extends LitElement {
       cut${over.length ? `, over ${over.join(' and ')}` : ''}.`;
   }
 
-  /** A new placement: its cords are other cords, so none stays lit. */
+  /**
+   * A new placement: its cords are other cords, so none stays lit under the pointer; a tapped one
+   * stays lit when the new placement has the same branch (its route just set, or a part kept).
+   */
   protected override willUpdate(changed: PropertyValues<this>): void {
     if (changed.has('placement')) {
       this.hovered = undefined;
-      this.pinned = undefined;
+      if (!this.branchOf(this.pinned)) this.pinned = undefined;
     }
   }
+
+  private keepInput(): KeepInput {
+    return {
+      placement: this.placement,
+      pins: this.pins,
+      picked: this.picked,
+      notes: this.notes,
+      words: this.words,
+    };
+  }
+
+  private readonly keepActions: KeepActions = {
+    pick: (part) => {
+      this.picked = part;
+      this.requestUpdate();
+    },
+    keep: (part, bay, drum) => emit(this, 'keep-part', { part, pin: pinAt({ bay, drum }) }),
+    release: (part) => emit(this, 'release', part === undefined ? {} : { part }),
+  };
+
+  /** The parts standing in a bay (a drop target's), from the placement. */
+  private partsIn(spot: BaySpot | undefined): string[] {
+    return spot
+      ? (this.placement?.bays.filter((b) => b.drum === spot.drum && b.bay === spot.bay).map((b) => b.part) ?? [])
+      : [];
+  }
+
+  /** The part of a lever end or bay label under an event (not a cord's). */
+  private static partAt(e: Event): string | undefined {
+    const t = e.composedPath()[0];
+    if (!(t instanceof Element) || t.closest('[data-cord]')) return undefined;
+    return t.closest('rect.lever[data-part], g[data-part]')?.getAttribute('data-part') ?? undefined;
+  }
+
+  /** A lever end pressed with the mouse or a pen: it may be dragged onto another bay (a finger pans instead, and taps to pick). */
+  private onDown = (e: PointerEvent): void => {
+    this.dragged = false;
+    const part = LwFrame.partAt(e);
+    if (part === undefined || e.pointerType === 'touch' || e.button !== 0) return;
+    e.preventDefault();
+    this.drag = { part, x: e.clientX, y: e.clientY };
+  };
+
+  private onMove = (e: PointerEvent): void => {
+    const d = this.drag;
+    if (!d || !this.drawn) return;
+    if (!d.boxes) {
+      if (Math.hypot(e.clientX - d.x, e.clientY - d.y) < DRAG_PX) return;
+      (e.currentTarget as Element).setPointerCapture(e.pointerId);
+      d.boxes = bayBoxes(this.drawn.bayEnds((part) => bayOf(this.placement, part)));
+    }
+    const over = bayNearest(d.boxes, e.clientX, e.clientY);
+    if (over?.bay === d.over?.bay && over?.drum === d.over?.drum) return;
+    d.over = over;
+    this.requestUpdate();
+  };
+
+  /** Let go over a bay: keep the part there (nothing when it is where it stands). */
+  private onUp = (): void => {
+    const d = this.drag;
+    this.drag = undefined;
+    if (!d?.boxes) return;
+    this.dragged = true;
+    this.picked = d.part;
+    const pin = d.over ? pinForDrop(this.placement, d.part, d.over) : undefined;
+    if (pin) emit(this, 'keep-part', { part: d.part, pin });
+    this.requestUpdate();
+  };
+
+  private onCancel = (): void => {
+    this.drag = undefined;
+    this.requestUpdate();
+  };
 
   protected override updated(): void {
     const root = this.renderRoot.querySelector<SVGSVGElement>('.sheet svg');
@@ -424,6 +586,7 @@ export class LwFrame extends LitElement {
       this.drawn.setStands(this.stands);
     }
     this.drawn.light(this.branchOf(this.lit()));
+    this.drawn.pick(this.picked, this.partsIn(this.drag?.over));
     if (this.scrolledFor !== this.placement && this.toCome === 0) {
       this.scrolledFor = this.placement;
       this.scrollToLevers(root);
@@ -497,8 +660,21 @@ export class LwFrame extends LitElement {
     this.requestUpdate();
   };
 
-  /** A tap (or click, or Enter) on a cord keeps it lit; on it again, or off every cord, lets it go. */
+  /**
+   * A tap (or click, or Enter) on a cord keeps it lit; on it again, or off every cord, lets it go.
+   * On a lever end or bay label it picks that part to keep in a bay (again: puts it down).
+   */
   private onTap = (e: Event): void => {
+    if (this.dragged) {
+      this.dragged = false;
+      return;
+    }
+    const part = LwFrame.partAt(e);
+    if (part !== undefined) {
+      this.picked = part === this.picked ? undefined : part;
+      this.requestUpdate();
+      return;
+    }
     const l = LwFrame.branchAt(e);
     this.pinned = l && !same(l, this.pinned) ? l : undefined;
     if (!l) this.hovered = undefined;
@@ -506,6 +682,12 @@ export class LwFrame extends LitElement {
   };
 
   private onKey = (e: KeyboardEvent): void => {
+    // Escape while dragging a part: it goes back where it stands.
+    if (e.key === 'Escape' && this.drag) {
+      this.drag = undefined;
+      this.requestUpdate();
+      return;
+    }
     if ((e.key !== 'Enter' && e.key !== ' ') || !LwFrame.branchAt(e)) return;
     e.preventDefault();
     e.stopPropagation();

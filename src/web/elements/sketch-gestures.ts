@@ -3,16 +3,17 @@
  * (a new state, a guard, a new name, outputs) and submitted as one edit of the text; a
  * transition drawn by dragging a state's dot or by keys (T, then the arrows or Tab, Enter);
  * the keys on a state, on a transition label and anywhere in the sketch (sketch-keys.ts);
- * a picked item started, deleted or made the start. The drawing's state is SketchDraw's
+ * a picked item started, deleted or made the start; a focused state moved by Shift and the
+ * arrow keys (moving by dragging is sketch-moves.ts). The drawing's state is SketchDraw's
  * (controllers/sketch-draw.ts); the element keeps the view (zoom, fit) and the SVG.
  * Events, sent from the element: `reveal` {line, column}, `text-edit` {edit}, `undo` {again}.
  */
 import { pointer, select } from 'd3';
 import type { Machine } from '../../core/index.js';
-import type { DiagramLayout, LaidEdge, LaidNode } from '../diagram/layout.js';
+import type { DiagramLayout, LaidEdge, LaidNode, Point } from '../diagram/layout.js';
 import type { FieldKind, Picked, SketchDraw, Spot } from '../controllers/sketch-draw.js';
 import type { TextEdit } from '../controllers/table-edit.js';
-import { labelKey, sketchKey, stateKey, targetKey } from './sketch-keys.js';
+import { labelKey, moveKey, sketchKey, stateKey, targetKey } from './sketch-keys.js';
 import { emit } from './emit.js';
 
 /** The sketch element as its gestures see it. */
@@ -23,6 +24,10 @@ export interface SketchHost extends HTMLElement {
   readonly frozen: boolean;
   readonly layout: DiagramLayout | undefined;
   readonly drawable: boolean;
+  /** Move a state by (dx, dy) in the layout's coordinates (a view matter: the text stays). */
+  moveBy(id: string, dx: number, dy: number): void;
+  /** A new state about to be added under this name goes to `at` (layout coordinates) once it is drawn. */
+  expectState(id: string, at: Point): void;
 }
 
 /** Enter or Space on a focused sketch item: find it in the text, and let the key do nothing else. */
@@ -60,7 +65,11 @@ export class SketchGestures {
     return b ? this.spotOf(b.left, b.bottom + 4) : { x: 8, y: 40 };
   }
 
-  openField(kind: FieldKind, at: Spot, more: { state?: string; to?: string; index?: number } = {}): void {
+  openField(
+    kind: FieldKind,
+    at: Spot,
+    more: { state?: string; to?: string; index?: number; place?: Point } = {},
+  ): void {
     const m = this.host.machine;
     if (!m || !this.host.drawable) return;
     if (this.host.frozen) return this.draw.say('The text is being read: draw again in a moment.');
@@ -127,6 +136,7 @@ export class SketchGestures {
       this.focusDue = f.value.trim();
       this.draw.pick({ kind: 'state', id: this.focusDue });
     }
+    if (f.kind === 'new-state' && f.place) this.host.expectState(f.value.trim(), f.place);
     this.send(edit, back);
   }
 
@@ -210,6 +220,12 @@ export class SketchGestures {
     const l = this.draw.linking;
     if (l && l.from === n.id && l.pointer === undefined) return this.chooseTarget(ev, l.from, l.to ?? n.id);
     onActivate(ev, n.line, (line) => this.revealLine(line));
+    const move = ev.defaultPrevented ? undefined : moveKey(ev);
+    if (move) {
+      ev.preventDefault();
+      ev.stopPropagation();
+      return this.host.moveBy(n.id, move.dx, move.dy);
+    }
     const k = stateKey(ev);
     if (ev.defaultPrevented || !k || !this.host.drawable || (k === 'outputs' && !this.host.machine?.outputs.length))
       return;

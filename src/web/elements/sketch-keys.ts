@@ -3,7 +3,7 @@
  * each read as what it asks for. Pure: <lw-diagram> does what they ask.
  *
  * On a focused state: T draw a transition from it, F2 rename it, O its outputs, S make it the
- * start, Delete or Backspace delete it. While a transition is drawn by keys: the arrow keys or
+ * start, Delete or Backspace delete it, Shift with an arrow key move it a step (MOVE_STEP). While a transition is drawn by keys: the arrow keys or
  * Tab (Shift+Tab back) move to the target, Enter or Space take it, Escape stops. On a focused
  * transition label: ↑ and ↓ choose one of its transitions, F2 or G change its guard, Delete or
  * Backspace delete it. Anywhere in the sketch: N a new state, Ctrl+Z (⌘Z) undo, Ctrl+Shift+Z
@@ -31,6 +31,23 @@ const STATE_KEYS: Readonly<Record<string, StateKey>> = {
 
 export function stateKey(ev: Key): StateKey | undefined {
   return plain(ev) && Object.hasOwn(STATE_KEYS, letter(ev)) ? STATE_KEYS[letter(ev)] : undefined;
+}
+
+/** How far Shift and an arrow key move a focused state, in the sketch's pixels (a line of its text). */
+export const MOVE_STEP = 16;
+
+const MOVES: Readonly<Record<string, readonly [number, number]>> = {
+  ArrowLeft: [-1, 0],
+  ArrowRight: [1, 0],
+  ArrowUp: [0, -1],
+  ArrowDown: [0, 1],
+};
+
+/** Shift with an arrow key on a focused state: how far to move it. */
+export function moveKey(ev: Key): { readonly dx: number; readonly dy: number } | undefined {
+  if (!plain(ev) || !ev.shiftKey || !Object.hasOwn(MOVES, ev.key)) return undefined;
+  const [x, y] = MOVES[ev.key];
+  return { dx: x * MOVE_STEP, dy: y * MOVE_STEP };
 }
 
 /** Move to the next (1) or the previous (-1) item. */

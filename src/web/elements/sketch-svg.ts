@@ -1,7 +1,8 @@
 /**
  * The sketch's SVG, drawn with d3 for <lw-diagram>: the transitions (a wire and a label with a
  * line per transition), the states (a card with name, outputs and code, the start's entry
- * arrow, and the dot a transition is dragged from), and the marks of drawing (the item picked,
+ * arrow, and the dot a transition is dragged from; a state is drawn wherever the layout given
+ * has it, which is where the user moved it, diagram/arrange.ts), and the marks of drawing (the item picked,
  * the cord of a transition being drawn and the state it would go to). Elements are joined by
  * key, so a redraw keeps every element that stays (and its focus).
  */
@@ -27,6 +28,8 @@ export interface NodeHandlers extends Handlers<LaidNode> {
   /** Show the dots transitions are dragged from. */
   readonly drawable: boolean;
   readonly grab: (ev: PointerEvent, n: LaidNode) => void;
+  /** A press on the card (it may become a move of the state). */
+  readonly press: (ev: PointerEvent, n: LaidNode) => void;
 }
 
 /** Which line of a transition label an event is on (0 when not on a line). */
@@ -100,7 +103,8 @@ export function drawNodes(g: G, nodes: readonly LaidNode[], on: NodeHandlers): v
     )
     .on('click', on.click)
     .on('dblclick', on.dblclick)
-    .on('keydown', on.key);
+    .on('keydown', on.key)
+    .on('pointerdown', on.press);
   sel
     .select('circle.handle')
     .attr('cx', (n) => n.width)

@@ -9,7 +9,7 @@
  * is built), so the form and the reference never disagree.
  */
 import { LitElement, css, html, nothing } from 'lit';
-import { formatDiagnostic, type Diagnostic } from '../../core/index.js';
+import { formatDiagnostic, isJsonObject, type Diagnostic } from '../../core/index.js';
 import reference from '../../../docs/profile.md?raw';
 import {
   fieldFacts,
@@ -158,6 +158,7 @@ export class LwWorkshop extends LitElement {
           </summary>
           <div class="figures">${OTHER_FIELDS.map((f) => this.field(f.path, f.label))}</div>
         </details>
+        ${this.cordRoutes()}
       </section>
       <section class="panel" aria-label="Cautions">
         <p class="soft">
@@ -166,6 +167,25 @@ export class LwWorkshop extends LitElement {
           lever. The figures support, and never replace, a competent person's judgement and your local codes.
         </p>
       </section>`;
+  }
+
+  /** The cords given a route of their own (`cordRouting`, set from the frame view), each with a way back to the computed route. */
+  private cordRoutes() {
+    const routes = this.draft.value.cordRouting;
+    const entries = isJsonObject(routes) ? Object.entries(routes) : [];
+    if (entries.length === 0) return nothing;
+    return html`<div class="routes" data-cord-routes>
+      <p class="soft">Cords with a route of their own (<code>cordRouting</code>), set from the frame:</p>
+      <ul>
+        ${entries.map(
+          ([cord, r]) =>
+            html`<li data-cord-route=${cord}>
+              <span class="mono">${cord}</span>: ${JSON.stringify(r)}
+              <button @click=${() => emit(this, 'profile-route', { cord })}>Computed route</button>
+            </li>`,
+        )}
+      </ul>
+    </div>`;
   }
 
   /** A figure of the folded part has a value of the workshop's own or a problem: the part opens. */

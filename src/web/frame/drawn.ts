@@ -8,9 +8,13 @@
  * the sheet would restyle every cord) and draws the lit branch and its whole path again above
  * it, at full strength; the branch, its whole path and its two ends (the capstan that pulls it
  * with its bay's label, the lever it is tied to) carry the classes `lit` and `end from` /
- * `end to` as before, for the view's styles and its tests.
+ * `end to` as before, for the view's styles and its tests. For a part dragged onto another bay
+ * it measures where every bay's lever ends and label are on screen (`bayEnds`), and marks the
+ * part picked and the bay it would go to (`pick`: classes `picked`, `drop`).
  */
 import type { BranchRoute } from '../../core/index.js';
+import type { BaySpot } from '../controllers/pins.js';
+import type { BayBox } from './bays.js';
 import type { Piece } from './pieces.js';
 import type { Stands } from './stands.js';
 
@@ -29,6 +33,8 @@ export class DrawnFrame {
   private cordGroup: Element | null;
   private readonly copies: SVGGElement;
   private marked: Element[] = [];
+  /** The elements of the part picked to keep in a bay, and of the bay it would be dropped on. */
+  private picked: Element[] = [];
   private stands: Stands | undefined;
 
   constructor(readonly root: SVGSVGElement) {
@@ -98,6 +104,36 @@ export class DrawnFrame {
       if (s === undefined) el.removeAttribute('data-stand');
       else if (el.getAttribute('data-stand') !== s) el.setAttribute('data-stand', s);
     }
+  }
+
+  /** The screen boxes of every part's lever ends and label, as the bay it stands in (`spotOf`, from the placement). */
+  bayEnds(spotOf: (part: string) => BaySpot | undefined): BayBox[] {
+    const out: BayBox[] = [];
+    for (const [part, els] of this.parts) {
+      const spot = spotOf(part);
+      if (!spot) continue;
+      for (const el of els) {
+        if (!el.matches('rect.lever') && el.localName !== 'g') continue;
+        const r = el.getBoundingClientRect();
+        out.push({ ...spot, left: r.left, right: r.right, top: r.top, bottom: r.bottom });
+      }
+    }
+    return out;
+  }
+
+  /** Mark the part picked to keep in a bay (class `picked`) and the parts of the bay it would be dropped on (`drop`). */
+  pick(picked: string | undefined, drop: readonly string[]): void {
+    for (const el of this.picked) el.classList.remove('picked', 'drop');
+    this.picked = [];
+    const mark = (part: string, cls: string): void => {
+      for (const el of this.parts.get(part) ?? []) {
+        if (!el.matches('rect.lever') && el.localName !== 'g') continue;
+        el.classList.add(cls);
+        this.picked.push(el);
+      }
+    };
+    if (picked !== undefined) mark(picked, 'picked');
+    for (const p of drop) if (p !== picked) mark(p, 'drop');
   }
 
   /** Light branch `b` (none when undefined): its run, its whole path, and its capstan end and lever end. */

@@ -99,6 +99,7 @@ export function buildOptions(s: BuildSettings, onProgress?: (p: Progress) => voi
     seed: s.seed,
     ...(s.unusedCodes !== undefined ? { unusedCodes: s.unusedCodes } : {}),
     profile: settingProfile(s.profile),
+    ...(s.pins !== undefined ? { pins: s.pins } : {}),
     ...(onProgress ? { onProgress } : {}),
   };
 }
@@ -159,13 +160,15 @@ export function codesPlan(a: Analysed, asked: BuildSettings, known: readonly Rem
 
 /**
  * The key of everything a build view depends on but the reading's diagnostics: the codes as
- * the settings choose them for this machine, and the search setup (the minimised machine,
- * profile, unused codes, seed, pins). Undefined when the build will refuse the setup.
+ * the settings choose them for this machine, the parts kept in a bay (in their order: it orders
+ * their problems), and the search setup (the minimised machine, profile, unused codes, seed,
+ * pinned codes). Undefined when the build will refuse the setup.
  */
 export function buildKey(a: Analysed, asked: BuildSettings): string | undefined {
   const s = settle(a, asked).settings;
   const setup = buildSearchSetup(a, buildOptions(s));
-  return 'machine' in setup ? `${JSON.stringify(s.encoding)}\n${searchSetupKey(setup)}` : undefined;
+  const pins = JSON.stringify(Object.entries(s.pins ?? {}));
+  return 'machine' in setup ? `${JSON.stringify(s.encoding)}\n${pins}\n${searchSetupKey(setup)}` : undefined;
 }
 
 /**
@@ -342,10 +345,15 @@ export function torqueBars(drive: Pick<DriveResult, 'worstByState'>): TorqueBar[
   return drive.worstByState.map((w) => ({ state: w.where.state, torqueNm: w.torqueNm, at: momentWords(w.where) }));
 }
 
-/** Every encoding side by side, priced by the finished build's part count. */
+/**
+ * Every encoding side by side, priced by the finished build's part count. The parts kept in a bay
+ * are left out, as `latchwright compare` takes none: the comparison is of codes, priced for the
+ * text and the profile (the page prices it again when either changes, not when a part moves).
+ */
 export function compareJob(a: Analysed, s: BuildSettings, onProgress?: (p: Progress) => void): CodeRow[] {
   const states = a.minimised.machine.states;
-  return compareEncodings(a, buildOptions(settle(a, s).settings, onProgress)).map((r) => ({
+  const { pins: _, ...settings } = settle(a, s).settings;
+  return compareEncodings(a, buildOptions(settings, onProgress)).map((r) => ({
     strategy: r.strategy,
     ok: r.ok,
     states,

@@ -23,6 +23,7 @@ import {
   type MachineForm,
   type OperatorForce,
   type PartCounts,
+  type Pin,
   type Placement,
   type Profile,
   type RuleViolation,
@@ -49,6 +50,12 @@ export interface BuildSettings {
   readonly unusedCodes?: string;
   /** The workshop's own technology profile (a profile file as `--profile` takes it); absent: the shipped defaults. */
   readonly profile?: ProfileSetting;
+  /**
+   * Parts the workshop keeps in a bay, by part id, in the order they were kept (`--pin PART=BAY@DRUM`
+   * as the command line takes them); absent: every part placed freely. They move the placement
+   * only: the encoding search's setup does not depend on them.
+   */
+  readonly pins?: Readonly<Record<string, Pin>>;
 }
 
 /**

@@ -17,6 +17,7 @@ import {
   parseStoredProfile,
   readProfileFile,
   typedValue,
+  withCordRoute,
   withValue,
   WORKSHOP_FIELDS,
   WorkshopController,
@@ -196,5 +197,31 @@ describe('src/web/controllers/workshop', () => {
     expect(commandLine('a.lw', { ...s, profile: { name: 'our shop.json', value: {} } })).toBe(
       "latchwright build a.lw --profile 'our shop.json'",
     );
+  });
+
+  it("sets one cord's own route from the frame as its cordRouting entry (docs/profile.md), and clears it", () => {
+    const { w, told } = form();
+    // Cord ids hold dots: the entry is set by key, never as a dotted path.
+    w.route('c.clk.phi1', { pulleys: '1', pinAngleRad: '1.5708' });
+    expect(w.draft.value).toEqual({ cordRouting: { 'c.clk.phi1': { pulleys: 1, pinAngleRad: 1.5708 } } });
+    expect(told.at(-1)?.value).toEqual(w.draft.value);
+    // The file saved (and put in the archive) carries it; the core's loader reads it back.
+    const back = loadProfile(JSON.parse(profileFileText(w.draft)), 'workshop-profile.json');
+    expect(back.diagnostics).toEqual([]);
+    expect(back.profile?.cordRouting).toEqual({ 'c.clk.phi1': { pulleys: 1, pinAngleRad: 1.5708 } });
+    // One figure left empty keeps the computed one; a value the loader refuses stays in the form, unused.
+    expect(withCordRoute({ mu: 0.2 }, 'c.in.coin', { pulleys: '', pinAngleRad: '0.5' })).toEqual({
+      mu: 0.2,
+      cordRouting: { 'c.in.coin': { pinAngleRad: 0.5 } },
+    });
+    w.route('c.in.coin', { pulleys: '-1', pinAngleRad: '' });
+    expect(w.problems.some((d) => d.code === 'LW600' && d.location.path === '$.cordRouting.c.in.coin.pulleys')).toBe(
+      true,
+    );
+    expect(told.at(-1)?.value).toEqual({ cordRouting: { 'c.clk.phi1': { pulleys: 1, pinAngleRad: 1.5708 } } });
+    w.route('c.in.coin', undefined);
+    w.route('c.clk.phi1', undefined);
+    expect(w.draft.value).toEqual({});
+    expect(told.at(-1)).toBeUndefined();
   });
 });

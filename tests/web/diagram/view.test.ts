@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { zoomIdentity } from 'd3';
 import { parseTextMachine } from '../../../src/core/forms/text.js';
 import { layoutDiagram, type DiagramLayout } from '../../../src/web/diagram/layout.js';
-import { keptView } from '../../../src/web/diagram/view.js';
+import { fitted, insideView, keptView } from '../../../src/web/diagram/view.js';
+import { arranged } from '../../../src/web/diagram/arrange.js';
 import { NEW_MACHINE } from '../../../src/web/examples.js';
 
 function laid(text: string): DiagramLayout {
@@ -41,5 +42,33 @@ describe('src/web/diagram/view', () => {
     expect(keptView(before, after, zoomIdentity.translate(10, 10), 2000, 1200)).toBeUndefined();
     const other = laid('machine other\nstart a\nstate a\n  go b\nstate b\n  go a\n');
     expect(keptView(before, other, t, 2000, 1200)).toBeUndefined();
+  });
+
+  it('counts the states where they are drawn: a state moved out of the kept view makes it give up', () => {
+    expect(keptView(before, after, t, 2000, 1200)).toBeDefined();
+    const shown = arranged(after, new Map([['lit', { x: 5000, y: 0 }]]));
+    expect(keptView(before, after, t, 2000, 1200, shown)).toBeUndefined();
+  });
+
+  it('fits the layout’s own box while nothing was moved, and the moved states too once one was', () => {
+    const k = Math.min(2, 0.92 * Math.min(800 / after.width, 600 / after.height));
+    expect(fitted(after, after, 800, 600, 10 / 12).t).toEqual(
+      zoomIdentity.translate((800 - after.width * k) / 2, (600 - after.height * k) / 2).scale(k),
+    );
+    const shown = arranged(after, new Map([['lit', { x: 1500, y: -400 }]]));
+    const f = fitted(after, shown, 800, 600, 0.1);
+    for (const n of shown.nodes) {
+      expect(f.t.applyX(n.x - n.width / 2)).toBeGreaterThanOrEqual(0);
+      expect(f.t.applyX(n.x + n.width / 2)).toBeLessThanOrEqual(800);
+      expect(f.t.applyY(n.y - n.height / 2)).toBeGreaterThanOrEqual(0);
+      expect(f.t.applyY(n.y + n.height / 2)).toBeLessThanOrEqual(600);
+    }
+  });
+
+  it('keeps a card put near the edge of the view inside it', () => {
+    const n = after.nodes[0];
+    const p = insideView({ ...n, x: -1000, y: 1e6 }, t, 800, 600);
+    expect(t.applyX(p.x - n.width / 2)).toBeCloseTo(4, 6);
+    expect(t.applyY(p.y + n.height / 2)).toBeCloseTo(596, 6);
   });
 });

@@ -1,7 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { labelKey, sketchKey, stateKey, targetKey, type Key } from '../../../src/web/elements/sketch-keys.js';
+import {
+  labelKey,
+  moveKey,
+  MOVE_STEP,
+  sketchKey,
+  stateKey,
+  targetKey,
+  type Key,
+} from '../../../src/web/elements/sketch-keys.js';
 
 const key = (k: string, mods: Partial<Key> = {}): Key => ({
   key: k,
@@ -29,6 +37,18 @@ describe('src/web/elements/sketch-keys', () => {
     expect(stateKey(key('s', { ctrlKey: true }))).toBeUndefined();
     expect(stateKey(key('t', { metaKey: true }))).toBeUndefined();
     expect(stateKey(key('Enter'))).toBeUndefined();
+  });
+
+  it('moves a focused state a step with Shift and an arrow key, and not with the arrows alone or with Ctrl', () => {
+    expect(moveKey(key('ArrowRight', { shiftKey: true }))).toEqual({ dx: MOVE_STEP, dy: 0 });
+    expect(moveKey(key('ArrowLeft', { shiftKey: true }))).toEqual({ dx: -MOVE_STEP, dy: 0 });
+    expect(moveKey(key('ArrowUp', { shiftKey: true }))).toEqual({ dx: 0, dy: -MOVE_STEP });
+    expect(moveKey(key('ArrowDown', { shiftKey: true }))).toEqual({ dx: 0, dy: MOVE_STEP });
+    expect(moveKey(key('ArrowDown'))).toBeUndefined();
+    expect(moveKey(key('ArrowDown', { shiftKey: true, ctrlKey: true }))).toBeUndefined();
+    expect(moveKey(key('T', { shiftKey: true }))).toBeUndefined();
+    // The state's own keys stay as they were with Shift held (Shift+T is still T).
+    expect(stateKey(key('T', { shiftKey: true }))).toBe('link');
   });
 
   it('moves between targets with the arrows and Tab, takes one with Enter, stops with Escape', () => {
@@ -72,6 +92,8 @@ describe('src/web/elements/sketch-keys', () => {
       'Ctrl+Z',
       'Ctrl+Shift+Z',
       'Ctrl+Y',
+      'Shift+arrow keys',
+      '**Back to the layout**',
     ])
       expect(table).toContain(k);
   });

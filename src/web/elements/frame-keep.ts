@@ -1,0 +1,172 @@
+/**
+ * The frame view's part of keeping parts in a bay (<lw-frame>, frame-view.ts): the field that
+ * picks a part and names a bay and drum (the keyboard's and the finger's way; the pointer can
+ * also drag a lever end onto another bay), and the list of the parts kept so far, each with what
+ * the build said of it (LW707, LW708: its code, message and hint, as the command line prints
+ * them) and a button to let it go. Rendering only: the view holds which part is picked, and the
+ * synthesis controller the pins (events `keep-part` and `release`).
+ */
+import { css, html, nothing } from 'lit';
+import { guard } from 'lit/directives/guard.js';
+import type { Diagnostic, Placement } from '../../core/index.js';
+import { bayOf, pinNotes, pinsAway, pinWords, spotFrom, type Pins } from '../controllers/pins.js';
+
+/** What the keep field and list show. */
+export interface KeepInput {
+  readonly placement: Placement | undefined;
+  readonly pins: Pins | undefined;
+  /** The part picked in the drawing or the field. */
+  readonly picked: string | undefined;
+  /** The build's diagnostics, among them those about pins (located at `--pin PART`). */
+  readonly notes: readonly Diagnostic[];
+  readonly words: ReadonlyMap<string, string> | undefined;
+}
+
+/** What the field and the list do. */
+export interface KeepActions {
+  pick(part: string | undefined): void;
+  keep(part: string, bay: number, drum: number): void;
+  release(part?: string): void;
+}
+
+export const KEEP_STYLES = css`
+  .keep select {
+    max-width: 18rem;
+  }
+  .keep input {
+    width: 4.5em;
+  }
+  .kept {
+    margin: 0.2rem 0 0.4rem;
+    padding-left: 1.2rem;
+  }
+  .kept li {
+    margin: 0.15rem 0;
+  }
+  .kept .note {
+    display: block;
+    font-size: 0.85rem;
+  }
+`;
+
+const at = (b: { drum: number; bay: number }): string => `bay ${b.bay}, drum ${b.drum}`;
+
+/** The field: a part, its bay and drum, keep it there; one bay either way; let it go. */
+export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
+  const p = k.placement;
+  if (!p) return nothing;
+  const picked = k.picked;
+  const pin = picked !== undefined ? k.pins?.[picked] : undefined;
+  const here = picked !== undefined ? bayOf(p, picked) : undefined;
+  const shown = pin ? { bay: pin.bay, drum: pin.drum ?? 1 } : here;
+  const value = (name: string): string =>
+    root.querySelector<HTMLInputElement>(`input[data-keep="${name}"]`)?.value ?? '';
+  const keepNamed = (): void => {
+    const spot = spotFrom(value('bay'), value('drum'));
+    if (picked !== undefined && spot) act.keep(picked, spot.bay, spot.drum);
+  };
+  const by = (step: number) => (): void => {
+    if (picked !== undefined && shown && shown.bay + step >= 1) act.keep(picked, shown.bay + step, shown.drum);
+  };
+  // One option per bay (thousands on a large frame): made again only when the placement or the pick changes.
+  const bays = () => [...p.bays].sort((a, b) => a.drum - b.drum || a.bay - b.bay);
+  return html`<div class="row keep" role="group" aria-label="Keep a part in a bay">
+      <label
+        >Keep
+        <select
+          data-keep="part"
+          aria-label="The part to keep in a bay"
+          @change=${(e: Event) => act.pick((e.target as HTMLSelectElement).value || undefined)}
+        >
+          <option value="" ?selected=${picked === undefined}>pick a part…</option>
+          ${guard([p, k.words, picked], () =>
+            bays().map(
+              (b) =>
+                html`<option value=${b.part} ?selected=${b.part === picked}>
+                  ${at(b)}: ${k.words?.get(b.part) ?? b.part} (${b.part})
+                </option>`,
+            ),
+          )}
+        </select></label
+      >
+      <label
+        >in bay
+        <input
+          type="number"
+          min="1"
+          data-keep="bay"
+          .value=${shown ? String(shown.bay) : ''}
+          ?disabled=${picked === undefined}
+          @keydown=${(e: KeyboardEvent) => e.key === 'Enter' && keepNamed()}
+      /></label>
+      <label
+        >drum
+        <input
+          type="number"
+          min="1"
+          data-keep="drum"
+          .value=${shown ? String(shown.drum) : ''}
+          ?disabled=${picked === undefined}
+          @keydown=${(e: KeyboardEvent) => e.key === 'Enter' && keepNamed()}
+      /></label>
+      <button data-do="keep" ?disabled=${picked === undefined} @click=${keepNamed}>Keep it there</button>
+      <button
+        data-do="keep-left"
+        ?disabled=${!shown || shown.bay <= 1}
+        @click=${by(-1)}
+        aria-label="Keep it one bay nearer the visitor end"
+      >
+        ◀ bay
+      </button>
+      <button
+        data-do="keep-right"
+        ?disabled=${!shown}
+        @click=${by(1)}
+        aria-label="Keep it one bay nearer the crank end"
+      >
+        bay ▶
+      </button>
+      <button data-do="release" ?disabled=${!pin} @click=${() => picked !== undefined && act.release(picked)}>
+        Let it go
+      </button>
+    </div>
+    <p class="soft" data-keep-status>${keepStatus(k)}</p>`;
+}
+
+/** Where the picked part stands, and where it is kept; how to keep one when none is picked. */
+function keepStatus(k: KeepInput): string {
+  const picked = k.picked;
+  if (picked === undefined)
+    return 'To keep a part in a bay of your choosing, drag its lever end onto another bay, or pick it here or with a tap and name the bay.';
+  const here = bayOf(k.placement, picked);
+  const pin = k.pins?.[picked];
+  return `${picked} stands in ${here ? at(here) : 'no bay of this build'}${pin ? `; kept in ${at({ bay: pin.bay, drum: pin.drum ?? 1 })}` : ''}.`;
+}
+
+/** The parts kept in a bay, each with what the build said of it and a button to let it go; nothing when none is. */
+export function keptList(k: KeepInput, act: KeepActions) {
+  const pins = Object.entries(k.pins ?? {});
+  if (pins.length === 0) return nothing;
+  const away = new Set(pinsAway(k.pins, k.placement));
+  return html`<section aria-label="Parts kept in a bay" data-kept>
+    <ul class="kept">
+      ${pins.map(([part, pin]) => {
+        const notes = pinNotes(k.notes, part);
+        return html`<li data-kept-part=${part}>
+          <span class="mono">${pinWords(part, pin)}</span>: ${part} kept in
+          ${at({ bay: pin.bay, drum: pin.drum ?? 1 })}${away.has(part) ? ' — not a part of this build' : ''}
+          <button data-do="release-part" @click=${() => act.release(part)} aria-label=${`Let ${part} go`}>
+            Let go
+          </button>
+          ${notes.map(
+            (d) =>
+              html`<span class="note ${d.severity === 'error' ? 'bad' : 'soft'}" data-pin-note=${d.code}
+                >${d.severity} ${d.code}: ${d.message}${d.hint ? html` — <em>${d.hint}</em>` : nothing}</span
+              >`,
+          )}
+        </li>`;
+      })}
+    </ul>
+    <button data-do="release-all" @click=${() => act.release()}>Let every part go</button>
+  </section>`;
+}
