@@ -124,6 +124,22 @@ export function isDefault(s: BuildSettings): boolean {
   );
 }
 
+/**
+ * The settings with the codes back at the command line's defaults (the searched codes, unused
+ * codes chosen automatically), and what describes the workshop and its frame kept: the
+ * profile and the parts kept in bays, each of which has its own way back.
+ */
+export function codesToDefaults(s: BuildSettings): BuildSettings {
+  const { profile, pins } = s;
+  return { ...DEFAULT_SETTINGS, ...(profile ? { profile } : {}), ...(pins ? { pins } : {}) };
+}
+
+/** The codes are the command line's defaults, whatever the profile and the parts kept in bays. */
+export function codesAreDefault(s: BuildSettings): boolean {
+  const { profile: _profile, pins: _pins, ...codes } = s;
+  return isDefault(codes);
+}
+
 export class SynthesisController implements ReactiveController {
   search: Search = Search.none;
   reading: Reading | undefined;
@@ -270,16 +286,15 @@ export class SynthesisController implements ReactiveController {
   }
 
   /**
-   * Back to the command line's defaults for this build (the searched codes, unused codes chosen
-   * automatically, every part placed freely). The workshop's profile stays: it describes the
-   * workshop, not this build.
+   * Back to the command line's defaults for the codes (the searched codes, unused codes chosen
+   * automatically). The workshop's profile and the parts it keeps in bays stay: they describe
+   * the workshop and its frame, not the codes, and each has its own way back (the Shop view's
+   * defaults, **Let every part go**).
    */
   useDefaults(): void {
-    const profile = this.settings.profile;
-    this.settings = profile ? { ...DEFAULT_SETTINGS, profile } : DEFAULT_SETTINGS;
+    this.settings = codesToDefaults(this.settings);
     keepDrop('encoding');
     keepDrop('unused');
-    keepDrop('pins');
     this.submit(this.text, this.file);
   }
 

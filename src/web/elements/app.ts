@@ -7,7 +7,7 @@
  */
 import { LitElement, html, nothing } from 'lit';
 import { SourceController } from '../controllers/source.js';
-import { SynthesisController, Work, isDefault } from '../controllers/synthesis.js';
+import { SynthesisController, Work, codesAreDefault } from '../controllers/synthesis.js';
 import { StepperController } from '../controllers/stepper.js';
 import { ThemeController } from '../controllers/theme.js';
 import { applyEdit, type TextEdit } from '../controllers/table-edit.js';
@@ -429,9 +429,7 @@ export class LwApp extends LitElement {
     const out: Fix[] = [];
     if (failing.some((c) => c.name === 'recovery') && start !== undefined && s.settings.unusedCodes !== start)
       out.push({ id: 'unused-to-start', check: 'recovery', label: 'Send unused codes to the start state' });
-    // The codes' settings only: the workshop's profile stays whatever the codes.
-    const { profile: _, ...codes } = s.settings;
-    if (failing.length > 0 && !isDefault(codes))
+    if (failing.length > 0 && !codesAreDefault(s.settings))
       out.push({ id: 'defaults', label: 'Use the searched codes (the command line’s defaults)' });
     return out;
   }

@@ -8,7 +8,7 @@
  * pivot rail (the one meaning of "down" the trial run's lever drawings have, with their
  * legend's glyphs beside), and the trial run can be stepped from here. Zoom and pan in the box;
  * Print gives frame.svg at its scale. A part is kept in a bay of the workshop's choosing (the
- * build's pins, `--pin PART=BAY@DRUM`) by dragging its lever end onto another bay, or by picking
+ * build's pins, `--pin PART=BAY@DRUM`) by dragging its lever end onto another bay (frame-drag.ts), or by picking
  * it (a click, a tap, or the field of frame-keep.ts) and naming the bay; the parts kept are
  * listed with what the build said of each, and each can be let go. A cord tapped can be given
  * its own route (pulleys, angle over pins) in the workshop's profile (frame-route.ts). A large
@@ -18,11 +18,10 @@
  * Events: `step` (as <lw-stepper>), `print-frame`, `keep-part` ({ part, pin }), `release`
  * ({ part? }: none, every part), `cord-route` ({ cord, typed? }: none, the computed route again).
  */
-import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
+import { LitElement, html, nothing, type PropertyValues } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { BranchRoute, Diagnostic, PartReading, Placement } from '../../core/index.js';
-import { bayOf, pinAt, pinForDrop, type BaySpot, type Pins } from '../controllers/pins.js';
-import { bayBoxes, bayNearest, type BayBox } from '../frame/bays.js';
+import { pinAt, type BaySpot, type Pins } from '../controllers/pins.js';
 import type { Stands } from '../frame/stands.js';
 import { DrawnFrame } from '../frame/drawn.js';
 import { drawingPieces, type Piece } from '../frame/pieces.js';
@@ -30,7 +29,9 @@ import { screenSize, screenSized, svgSizeMm, PX_PER_MM } from '../frame/sheet.js
 import { shared, viewColumn } from '../styles/shared.js';
 import { touchScreen } from '../touch.js';
 import { emit } from './emit.js';
+import { PartDrag, partAt } from './frame-drag.js';
 import { routeField } from './frame-route.js';
+import { frameStyles } from './frame-styles.js';
 import { KEEP_STYLES, keepField, keptList, type KeepActions, type KeepInput } from './frame-keep.js';
 import { LEVER_GLYPH_STYLES, leverGlyph, STAND_WORDS } from './lever-bank.js';
 
@@ -54,18 +55,6 @@ interface Lit {
   readonly cord: string;
   readonly target: string;
 }
-
-/** A lever end dragged toward another bay: the part, where the drag began, and the bay it is over once it moved. */
-interface Drag {
-  readonly part: string;
-  readonly x: number;
-  readonly y: number;
-  boxes?: readonly BayBox[];
-  over?: BaySpot;
-}
-
-/** A pointer that moves less than this (px) is a click, not a drag. */
-const DRAG_PX = 5;
 
 const same = (a: Lit | undefined, b: Lit | undefined): boolean =>
   a !== undefined && b !== undefined && a.cord === b.cord && a.target === b.target;
@@ -105,11 +94,18 @@ export class LwFrame extends LitElement {
   /** The `cordRouting` group of the workshop's profile as edited, and the loader's diagnostics of that profile. */
   declare routes: unknown;
   declare routeNotes: readonly Diagnostic[];
-  /** The part picked to keep in a bay, and the lever end being dragged. */
+  /** The part picked to keep in a bay. */
   private picked: string | undefined;
-  private drag: Drag | undefined;
-  /** A drag just ended: the click that follows it picks nothing. */
-  private dragged = false;
+  /** A part dragged onto another bay (frame-drag.ts). */
+  private readonly partDrag = new PartDrag({
+    placement: () => this.placement,
+    drawn: () => this.drawn,
+    keep: (part, pin) => emit(this, 'keep-part', { part, pin }),
+    pick: (part) => {
+      this.picked = part;
+    },
+    requestUpdate: () => this.requestUpdate(),
+  });
   private zoom = START_ZOOM;
   private zoomChosen = false;
   /** The branch pointed at or focused, and the one tapped (it stays lit until tapped again). */
@@ -147,161 +143,7 @@ export class LwFrame extends LitElement {
     this.routeNotes = [];
   }
 
-  static override styles = [
-    shared,
-    viewColumn,
-    LEVER_GLYPH_STYLES,
-    KEEP_STYLES,
-    css`
-      .row {
-        display: flex;
-        flex-wrap: wrap;
-        gap: 0.4rem;
-        align-items: center;
-        margin-bottom: 0.4rem;
-      }
-      button[aria-pressed='true'] {
-        background: var(--lw-brass);
-        color: var(--lw-panel);
-        border-color: var(--lw-brass);
-      }
-      /* Under the drawing, so that its words changing never moves the cords under the pointer. */
-      .readout {
-        min-height: 2.9em;
-        margin: 0.4rem 0 0;
-        padding: 0.3rem 0.6rem;
-        border-left: 4px solid var(--lw-line);
-        background: var(--lw-sunk);
-        overflow-wrap: anywhere;
-      }
-      .readout.on {
-        border-left-color: var(--lw-focus);
-      }
-      .sheet {
-        position: relative;
-        overflow: auto;
-        max-width: 100%;
-        max-height: 70vh;
-        background: var(--lw-panel);
-        border: 1px solid var(--lw-line);
-        border-radius: var(--lw-radius);
-        touch-action: pan-x pan-y pinch-zoom;
-      }
-      .sheet svg {
-        display: block;
-      }
-      /* The cords: each one a target to point at, tab to or tap. */
-      .sheet path.cord[data-cord] {
-        stroke-width: 0.45px;
-      }
-      .sheet path.hit {
-        fill: none;
-        stroke: transparent;
-        /* As wide as the space between two lanes of a cord channel (frame-svg.ts), no wider. */
-        stroke-width: 1px;
-        pointer-events: stroke;
-        cursor: pointer;
-      }
-      .sheet path.cord[data-cord]:focus {
-        outline: none;
-      }
-      /* While a cord is lit the others are dimmed: their group as one element (frame/drawn.ts). */
-      .sheet g.cords.veiled {
-        opacity: 0.22;
-      }
-      .sheet path.cord.lit {
-        stroke-width: 0.9px;
-      }
-      /* A branch shares its way down and along the channel with others of its cord: its whole path, drawn when lit. */
-      .sheet path.route.lit {
-        visibility: visible;
-        stroke-width: 0.9px;
-      }
-      /* The lit branch and its whole path, drawn again above the dimmed cords. */
-      .sheet g.lit-copies path {
-        fill: none;
-        stroke-width: 0.9px;
-        stroke-linejoin: round;
-        pointer-events: none;
-      }
-      .sheet .end rect,
-      .sheet rect.end {
-        stroke: var(--lw-focus);
-        stroke-width: 0.7px;
-      }
-      .sheet g.end text {
-        fill: var(--lw-focus);
-        font-weight: 700;
-      }
-      /* A part's lever ends and label: picked up and dragged onto another bay. */
-      .sheet rect.lever[data-part],
-      .sheet g[data-part] {
-        cursor: grab;
-      }
-      .sheet.dragging,
-      .sheet.dragging * {
-        cursor: grabbing;
-      }
-      .sheet rect.picked {
-        stroke: var(--lw-focus);
-        stroke-width: 1px;
-      }
-      .sheet g.picked text {
-        fill: var(--lw-focus);
-        font-weight: 700;
-      }
-      .sheet rect.drop {
-        stroke: var(--lw-brass);
-        stroke-width: 1px;
-        stroke-dasharray: 0.8 0.4;
-      }
-      /* The trial run's levers as they stand: held down hangs below the rail; undetermined is dashed. */
-      .sheet rect.lever[data-stand='down'] {
-        transform-box: fill-box;
-        transform: translateY(100%);
-        fill: var(--lw-brass);
-      }
-      .sheet rect.lever[data-stand='X'] {
-        fill: color-mix(in srgb, var(--lw-x) 30%, var(--lw-panel));
-        stroke: var(--lw-x);
-        stroke-dasharray: 0.6 0.4;
-      }
-      .legend {
-        display: flex;
-        flex-wrap: wrap;
-        gap: 0.3rem 1.2rem;
-        margin: 0.6rem 0 0;
-        font-size: 0.8rem;
-        color: var(--lw-ink-soft);
-      }
-      .legend div {
-        display: flex;
-        align-items: center;
-        gap: 0.3rem;
-        max-width: 24rem;
-      }
-      .legend svg {
-        flex: none;
-      }
-      .swatch .rail {
-        stroke: var(--lw-ink-soft);
-        stroke-width: 2px;
-      }
-      .swatch .end {
-        fill: var(--lw-sunk);
-        stroke: var(--lw-ink);
-        stroke-width: 1px;
-      }
-      .swatch .down {
-        fill: var(--lw-brass);
-      }
-      .swatch .x {
-        fill: color-mix(in srgb, var(--lw-x) 30%, var(--lw-panel));
-        stroke: var(--lw-x);
-        stroke-dasharray: 3 2;
-      }
-    `,
-  ];
+  static override styles = [shared, viewColumn, LEVER_GLYPH_STYLES, KEEP_STYLES, frameStyles];
 
   override render() {
     const svg = this.drawing?.svg;
@@ -355,7 +197,7 @@ export class LwFrame extends LitElement {
       ${this.trialRow()} ${keepField(this.keepInput(), this.keepActions, this.renderRoot)}
       ${keptList(this.keepInput(), this.keepActions)}
       <div
-        class="sheet ${this.lit() ? 'lighting' : ''} ${this.drag?.over ? 'dragging' : ''}"
+        class="sheet ${this.lit() ? 'lighting' : ''} ${this.partDrag.part ? 'dragging' : ''}"
         role="group"
         aria-label="Front elevation of the frame: visitor end on the left, crank end on the right; the box scrolls"
         @pointerover=${this.onOver}
@@ -364,10 +206,10 @@ export class LwFrame extends LitElement {
         @focusout=${this.onOut}
         @click=${this.onTap}
         @keydown=${this.onKey}
-        @pointerdown=${this.onDown}
-        @pointermove=${this.onMove}
-        @pointerup=${this.onUp}
-        @pointercancel=${this.onCancel}
+        @pointerdown=${this.partDrag.down}
+        @pointermove=${this.partDrag.move}
+        @pointerup=${this.partDrag.up}
+        @pointercancel=${this.partDrag.cancel}
       >
         ${unsafeSVG(this.sizedText(svg))}
       </div>
@@ -458,9 +300,10 @@ export class LwFrame extends LitElement {
 
   /** The lit branch in words: from where, to where, how long, over what (while a part is dragged: where it would go). */
   private litWords() {
-    const to = this.drag?.over;
-    if (this.drag && to)
-      return html`Let go to keep <strong class="mono">${this.drag.part}</strong> in
+    const to = this.partDrag.over;
+    const dragged = this.partDrag.part;
+    if (dragged && to)
+      return html`Let go to keep <strong class="mono">${dragged}</strong> in
         <strong data-drop>bay ${to.bay}, drum ${to.drum}</strong>.`;
     const b = this.branchOf(this.lit());
     if (!b) return html`<span class="soft">No cord lit.</span>`;
@@ -517,53 +360,6 @@ export class LwFrame extends LitElement {
       : [];
   }
 
-  /** The part of a lever end or bay label under an event (not a cord's). */
-  private static partAt(e: Event): string | undefined {
-    const t = e.composedPath()[0];
-    if (!(t instanceof Element) || t.closest('[data-cord]')) return undefined;
-    return t.closest('rect.lever[data-part], g[data-part]')?.getAttribute('data-part') ?? undefined;
-  }
-
-  /** A lever end pressed with the mouse or a pen: it may be dragged onto another bay (a finger pans instead, and taps to pick). */
-  private onDown = (e: PointerEvent): void => {
-    this.dragged = false;
-    const part = LwFrame.partAt(e);
-    if (part === undefined || e.pointerType === 'touch' || e.button !== 0) return;
-    e.preventDefault();
-    this.drag = { part, x: e.clientX, y: e.clientY };
-  };
-
-  private onMove = (e: PointerEvent): void => {
-    const d = this.drag;
-    if (!d || !this.drawn) return;
-    if (!d.boxes) {
-      if (Math.hypot(e.clientX - d.x, e.clientY - d.y) < DRAG_PX) return;
-      (e.currentTarget as Element).setPointerCapture(e.pointerId);
-      d.boxes = bayBoxes(this.drawn.bayEnds((part) => bayOf(this.placement, part)));
-    }
-    const over = bayNearest(d.boxes, e.clientX, e.clientY);
-    if (over?.bay === d.over?.bay && over?.drum === d.over?.drum) return;
-    d.over = over;
-    this.requestUpdate();
-  };
-
-  /** Let go over a bay: keep the part there (nothing when it is where it stands). */
-  private onUp = (): void => {
-    const d = this.drag;
-    this.drag = undefined;
-    if (!d?.boxes) return;
-    this.dragged = true;
-    this.picked = d.part;
-    const pin = d.over ? pinForDrop(this.placement, d.part, d.over) : undefined;
-    if (pin) emit(this, 'keep-part', { part: d.part, pin });
-    this.requestUpdate();
-  };
-
-  private onCancel = (): void => {
-    this.drag = undefined;
-    this.requestUpdate();
-  };
-
   protected override updated(): void {
     const root = this.renderRoot.querySelector<SVGSVGElement>('.sheet svg');
     if (!root) return;
@@ -586,7 +382,7 @@ export class LwFrame extends LitElement {
       this.drawn.setStands(this.stands);
     }
     this.drawn.light(this.branchOf(this.lit()));
-    this.drawn.pick(this.picked, this.partsIn(this.drag?.over));
+    this.drawn.pick(this.picked, this.partsIn(this.partDrag.over));
     if (this.scrolledFor !== this.placement && this.toCome === 0) {
       this.scrolledFor = this.placement;
       this.scrollToLevers(root);
@@ -665,11 +461,8 @@ export class LwFrame extends LitElement {
    * On a lever end or bay label it picks that part to keep in a bay (again: puts it down).
    */
   private onTap = (e: Event): void => {
-    if (this.dragged) {
-      this.dragged = false;
-      return;
-    }
-    const part = LwFrame.partAt(e);
+    if (this.partDrag.endedJustNow()) return;
+    const part = partAt(e);
     if (part !== undefined) {
       this.picked = part === this.picked ? undefined : part;
       this.requestUpdate();
@@ -683,11 +476,7 @@ export class LwFrame extends LitElement {
 
   private onKey = (e: KeyboardEvent): void => {
     // Escape while dragging a part: it goes back where it stands.
-    if (e.key === 'Escape' && this.drag) {
-      this.drag = undefined;
-      this.requestUpdate();
-      return;
-    }
+    if (e.key === 'Escape' && this.partDrag.escape()) return;
     if ((e.key !== 'Enter' && e.key !== ' ') || !LwFrame.branchAt(e)) return;
     e.preventDefault();
     e.stopPropagation();

@@ -5,7 +5,14 @@
  */
 import { describe, expect, it } from 'vitest';
 import { cleanFileName, fileFor } from '../../../src/web/controllers/source.js';
-import { commandLine, isDefault, parseChoice, parseUnused } from '../../../src/web/controllers/synthesis.js';
+import {
+  codesAreDefault,
+  codesToDefaults,
+  commandLine,
+  isDefault,
+  parseChoice,
+  parseUnused,
+} from '../../../src/web/controllers/synthesis.js';
 import { DEFAULT_SETTINGS } from '../../../src/web/worker/protocol.js';
 import { run } from '../../cli/support.js';
 
@@ -39,6 +46,21 @@ describe('src/web/controllers (names and settings)', () => {
     expect(parseUnused('road_open')).toBe('road_open');
     expect(parseUnused('dont-care')).toBe('dont-care');
     expect(parseUnused('../x')).toBeUndefined();
+  });
+
+  it('takes the codes back to the defaults and leaves the workshop: its profile, and the parts kept in bays', () => {
+    const workshop = {
+      profile: { name: 'slippery-cord.json', value: { mu: 0.12 } },
+      pins: { 'in.marble': { bay: 7 } },
+    };
+    const own = { ...DEFAULT_SETTINGS, encoding: { strategy: 'gray' as const }, unusedCodes: 'dont-care', ...workshop };
+    expect(codesAreDefault(own)).toBe(false);
+    const back = codesToDefaults(own);
+    expect(back).toEqual({ ...DEFAULT_SETTINGS, ...workshop });
+    expect(codesAreDefault(back)).toBe(true);
+    // Still own settings (the status says so): the profile and the pins stay until let go.
+    expect(isDefault(back)).toBe(false);
+    expect(codesToDefaults(DEFAULT_SETTINGS)).toEqual(DEFAULT_SETTINGS);
   });
 
   it('shows the command line that builds what the settings build, and the command line accepts it', async () => {
