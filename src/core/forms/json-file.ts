@@ -5,6 +5,8 @@
  * - a syntax error is LW100 at its line and column;
  * - a number too large to hold (`1e309`, which JSON.parse reads as Infinity) is LW108 at its
  *   line and column;
+ * - a key written twice in one object is LW109 at the second (JSON.parse would keep the last
+ *   and drop the first without a word: RFC 8259 §4 leaves duplicate names to the reader);
  * - nesting past JSON_DEPTH_MAX levels is LW406 at the bracket that goes too deep: no file
  *   the tool reads needs more than a few, and a value nested thousands deep would exhaust the
  *   stack of whatever walks it later (a message that describes it, a copy);
@@ -13,7 +15,7 @@
  */
 import { diag, type Diagnostic } from '../model/diagnostics.js';
 import type { SourceLoc } from '../model/machine.js';
-import { pathPrefixes, scanJson, tooDeep } from './json-positions.js';
+import { membersKept, membersWritten, pathPrefixes, scanJson, tooDeep } from './json-positions.js';
 import { locateJsonError } from './json-syntax.js';
 
 /** Deepest nesting of objects and lists a JSON file may have. */
@@ -100,6 +102,23 @@ export function readJsonText(text: string, file?: string, what?: string): JsonRe
             `the number ${o.text} is too large to hold (a JSON reader takes it for infinity)`,
             at(file, { ...positionOf(starts, o.offset), path: o.path }),
             'write a number of ordinary size',
+          ),
+        ),
+      };
+    }
+  }
+  if (membersWritten(src) !== membersKept(value)) {
+    const { duplicates } = scanJson(src, new Set());
+    if (duplicates.length > 0) {
+      const starts = lineStarts(src);
+      return {
+        ok: false,
+        diagnostics: duplicates.map((d) =>
+          diag(
+            'LW109',
+            `the key ${JSON.stringify(d.key)} is written twice in one object`,
+            at(file, { ...positionOf(starts, d.offset), path: d.path }),
+            'keep one of the two: a JSON reader would silently keep only the last',
           ),
         ),
       };

@@ -1,8 +1,10 @@
 /**
  * Where the values of a JSON text (RFC 8259) start, by JSON path — `$`, `$.states[2].to`,
  * `$.states["odd key"]`, as `jsonKey` writes them — so that a diagnostic that names a path can
- * name a line and column too; and where a number literal is too large to hold (JSON.parse
- * reads `1e309` as Infinity, which JSON.stringify then writes as null).
+ * name a line and column too; where a number literal is too large to hold (JSON.parse
+ * reads `1e309` as Infinity, which JSON.stringify then writes as null); and where a key
+ * repeats within one object (JSON.parse keeps the last and drops the others without a word;
+ * RFC 8259 §4: names SHOULD be unique, and where they are not, readers differ).
  *
  * Method: one pass over the text with an explicit stack of open objects and arrays (no
  * recursion, so nesting of any depth is fine), building each value's path as it goes.
@@ -17,6 +19,8 @@ interface Frame {
   readonly array: boolean;
   index: number;
   key: string;
+  /** The keys read so far (objects only). */
+  readonly keys?: Set<string>;
 }
 
 export interface JsonScan {
@@ -24,6 +28,8 @@ export interface JsonScan {
   readonly offsets: ReadonlyMap<string, number>;
   /** Number literals that JSON.parse reads as ±Infinity: their offset, text and path. */
   readonly overflows: readonly { readonly offset: number; readonly text: string; readonly path: string }[];
+  /** Keys that repeat within their object: the offset of the repeat, the key, and the path of its value. */
+  readonly duplicates: readonly { readonly offset: number; readonly key: string; readonly path: string }[];
 }
 
 const WS = new Set([' ', '\t', '\n', '\r']);
@@ -35,6 +41,7 @@ class Scanner {
   readonly stack: Frame[] = [];
   readonly offsets = new Map<string, number>();
   readonly overflows: { offset: number; text: string; path: string }[] = [];
+  readonly duplicates: { offset: number; key: string; path: string }[] = [];
 
   constructor(
     private readonly text: string,
@@ -65,6 +72,9 @@ class Scanner {
     if (this.text[this.i] !== '"') return false;
     const end = this.stringEnd(this.i);
     top.key = JSON.parse(this.text.slice(this.i, end)) as string;
+    if (top.keys?.has(top.key))
+      this.duplicates.push({ offset: this.i, key: top.key, path: jsonKey(top.path, top.key) });
+    top.keys?.add(top.key);
     this.i = end;
     this.ws();
     if (this.text[this.i] !== ':') return false;
@@ -83,7 +93,13 @@ class Scanner {
     const c = this.text[this.i];
     if (c === '{' || c === '[') {
       this.i++;
-      const frame: Frame = { path, array: c === '[', index: 0, key: '' };
+      const frame: Frame = {
+        path,
+        array: c === '[',
+        index: 0,
+        key: '',
+        ...(c === '{' ? { keys: new Set<string>() } : {}),
+      };
       this.stack.push(frame);
       this.ws();
       if (this.text[this.i] === (c === '{' ? '}' : ']')) {
@@ -134,7 +150,29 @@ export function scanJson(text: string, wanted?: ReadonlySet<string>): JsonScan {
     const read = s.value();
     if (read === 'stop' || (read === 'value' && !s.next())) break;
   }
-  return { offsets: s.offsets, overflows: s.overflows };
+  return { offsets: s.offsets, overflows: s.overflows, duplicates: s.duplicates };
+}
+
+/**
+ * Object members written in the text: the ':' outside strings (each member has exactly one).
+ * When it equals the keys JSON.parse kept, no key repeats and the text need not be scanned.
+ */
+export function membersWritten(text: string): number {
+  let n = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 0x22) {
+      for (i++; i < text.length && text.charCodeAt(i) !== 0x22; i++) if (text.charCodeAt(i) === 0x5c) i++;
+    } else if (c === 0x3a) n++;
+  }
+  return n;
+}
+
+/** Own keys of every object in a parsed JSON value (nesting already bounded by the caller). */
+export function membersKept(value: unknown): number {
+  if (Array.isArray(value)) return value.reduce((n: number, v) => n + membersKept(v), 0);
+  if (typeof value !== 'object' || value === null) return 0;
+  return Object.values(value).reduce((n: number, v) => n + membersKept(v), Object.keys(value).length);
 }
 
 /** Offset of the first `{` or `[` that opens level `max + 1` of nesting (strings skipped), or -1 when none does. */

@@ -155,7 +155,8 @@ class TextReader {
       this.err('LW104', `'${printable(ws[0].text)}' needs ${what}`, li, offset, `write ${example}`);
       return undefined;
     }
-    this.trailing(ws, 2, li, `the ${what}`);
+    // `what` is written for "needs a name"; after it the thing is "the name", never "the a name".
+    this.trailing(ws, 2, li, what.replace(/^an? /, 'the '));
     return w.text;
   }
 
@@ -221,7 +222,16 @@ function readOutputs(
       k += 2;
       continue;
     }
-    if (val.text === '0' || val.text === '1' || val.text === '-')
+    if (key.text in outs)
+      // A second value would silently replace the first: the user meant one of them.
+      r.err(
+        'LW106',
+        `output '${printable(key.text)}' is given a second value`,
+        li,
+        key.at,
+        `give each output one value: keep ${printable(key.text)}=${outs[key.text]} or ${printable(key.text)}=${printable(val.text)}`,
+      );
+    else if (val.text === '0' || val.text === '1' || val.text === '-')
       outs[key.text] = val.text === '-' ? '-' : val.text === '1' ? 1 : 0;
     else
       r.err(
@@ -392,12 +402,13 @@ function stateLine(r: TextReader, ws: readonly Word[], li: number): void {
     return;
   }
   const locs: Record<string, SourceLoc> = { name: r.at(li, nm.at) };
-  let outs = noOutputs();
+  let outs: Record<string, OutBit> | undefined;
   let code: string | undefined;
   let final = false;
   let k = 2;
   while (k < ws.length) {
-    if (ws[k].text === 'with' && ws[k + 1]?.text !== '=') {
+    // One `with` list, like one `code` and one `final`: a second is reported as trailing, never read over the first.
+    if (ws[k].text === 'with' && ws[k + 1]?.text !== '=' && outs === undefined) {
       ({ outs, k } = readOutputs(r, ws, k + 1, li, locs));
     } else if (ws[k].text === 'final' && ws[k + 1]?.text !== '=' && !final) {
       final = true;
@@ -415,7 +426,12 @@ function stateLine(r: TextReader, ws: readonly Word[], li: number): void {
     } else break;
   }
   r.trailing(ws, k, li, `state '${printable(nm.text)}'`);
-  const state = { name: nm.text, outputs: outs, ...(code !== undefined ? { code } : {}), ...(final ? { final } : {}) };
+  const state = {
+    name: nm.text,
+    outputs: outs ?? noOutputs(),
+    ...(code !== undefined ? { code } : {}),
+    ...(final ? { final } : {}),
+  };
   r.current = { state: { ...state, loc: r.at(li, kw.at), partLocs: locs }, transitions: [] };
 }
 

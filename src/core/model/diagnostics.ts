@@ -63,7 +63,11 @@ export const DIAGNOSTIC_CODES = {
     cause: 'A field the form does not know was ignored.',
     fix: 'Remove it or correct its spelling.',
   },
-  LW106: { severity: 'error', cause: 'An output value is not 0, 1 or -.', fix: "Write 0, 1 or - (don't care)." },
+  LW106: {
+    severity: 'error',
+    cause: 'An output value is not 0, 1 or -, or one list gives an output two values.',
+    fix: "Write 0, 1 or - (don't care), once per output.",
+  },
   LW107: {
     severity: 'error',
     cause:
@@ -75,6 +79,12 @@ export const DIAGNOSTIC_CODES = {
     cause:
       'A number in a JSON file (a machine, an xstate configuration, a profile or an input sequence) is too large to hold (such as 1e309): JSON readers turn it into infinity.',
     fix: 'Write a number of ordinary size.',
+  },
+  LW109: {
+    severity: 'error',
+    cause:
+      'A JSON object names the same key twice: a JSON reader keeps only one of the two (RFC 8259 leaves duplicate names to the reader), so the other would be lost without a word.',
+    fix: 'Keep one of the two, or merge them.',
   },
   LW200: {
     severity: 'error',

@@ -77,4 +77,24 @@ describe('core/forms/json-file', () => {
     const nested = readJsonText(`{"a": ${'['.repeat(70)}${']'.repeat(70)}}`, 'f.json');
     expect(nested.ok ? [] : nested.diagnostics.map((d) => [d.code, d.location.column])).toEqual([['LW406', 70]]);
   });
+
+  // RFC 8259 §4: the names within an object SHOULD be unique; where they are not, readers
+  // differ, and JSON.parse keeps the last. A key written twice in a machine (a second "when"
+  // on a transition, a second "start") changed the machine without a word; now it is LW109.
+  it('reports a key written twice in one object at the second, with its path (LW109)', () => {
+    const text =
+      '{"name": "m", "start": "s",\n "states": [{"name": "s", "transitions": [{"to": "s", "when": "a", "when": "!a"}]}],\n "start": "t"}';
+    const r = readJsonText(text, 'f.json');
+    expect(r.ok ? [] : r.diagnostics.map((d) => [d.code, d.location])).toEqual([
+      ['LW109', { file: 'f.json', line: 2, column: 68, path: '$.states[0].transitions[0].when' }],
+      ['LW109', { file: 'f.json', line: 3, column: 2, path: '$.start' }],
+    ]);
+    expect(r.ok ? '' : r.diagnostics[0].hint).toBeTruthy();
+    expect(at(text, 2, 68)).toMatch(/^"when": "!a"/);
+  });
+
+  it('takes the same key in different objects, and a colon inside a string, as written once', () => {
+    const r = readJsonText('{"a": {"b": 1}, "c": {"b": "x:y", "__proto__": 2}, "d": [{"b": 1}, {"b": 2}]}');
+    expect(r.ok).toBe(true);
+  });
 });

@@ -109,6 +109,12 @@ state busy
     ['state without a name', head + 'state\n', 'LW104', 5, 6],
     ['code without digits', head + 'state s code\n', 'LW104', 5, 13],
     ['bad output value', head + 'state s with z=2\n', 'LW106', 5, 16],
+    // One value per output and one `with` list per statement (docs/notation.md, Text form): a
+    // second was read over the first without a word, and the build then showed the other value.
+    ['two values for one output', head + 'state s with z=1, z=0\n', 'LW106', 5, 19],
+    ['two values in a transition', head + 'state s\n  go s with z=1 z=-\n', 'LW106', 6, 17],
+    ['a second with list on a state', head + 'state s with z=1 with z=0\n', 'LW101', 5, 18],
+    ['a second with list after final', head + 'state s with z=1 final with z=0\n', 'LW101', 5, 24],
     ['a load without a unit', head + 'load z 300\n', 'LW107', 5, 8],
     ['a load in pounds', head + 'load z 2 lb\n', 'LW107', 5, 8],
     ['a load of nothing', head + 'load z 0 g\n', 'LW107', 5, 8],
@@ -126,6 +132,13 @@ state busy
       8,
     ],
   ];
+  it('names what a stray word follows in plain words ("after the name", not "after the a name")', () => {
+    const said = (text: string) => parseTextMachine(text, 'bad.lw').diagnostics.map((d) => d.message);
+    expect(said('machine m soon\n')).toContain("unexpected 'soon' after the name");
+    expect(said(head + 'unspecified hold soon\nstate s\n')).toContain("unexpected 'soon' after the rule");
+    expect(said('machine m\nstart s soon\nstate s\n')).toContain("unexpected 'soon' after the state name");
+  });
+
   it.each(errorKinds)('reports %s with file:line:column and a hint', (_name, text, code, line, column) => {
     const r = parseTextMachine(text, 'bad.lw');
     expect(r.machine).toBeUndefined();
