@@ -346,10 +346,19 @@ function resolveUnused(a: Analysed, unused: string | undefined): 'dont-care' | n
   const target = ownValue(a.minimised.merged, unused);
   const index = target === undefined ? -1 : a.minimised.machine.states.indexOf(target);
   if (index >= 0) return index;
-  const guess = didYouMean(
-    unused,
-    a.machine.states.map((s) => s.name),
-  );
+  const reachable = a.machine.states.map((s) => s.name).filter((n) => ownValue(a.minimised.merged, n) !== undefined);
+  // A state of the machine that cannot be reached is not in the build: say so, never "did you mean" itself.
+  if (a.machine.states.some((s) => s.name === unused))
+    return diag(
+      'LW700',
+      `unused codes are sent to '${unused}', which cannot be reached from the start state, so the build has no such state`,
+      { path: '--unused' },
+      `name a reachable state (${reachable
+        .slice(0, 8)
+        .map((n) => `'${n}'`)
+        .join(', ')}${reachable.length > 8 ? ', …' : ''}), or 'dont-care'`,
+    );
+  const guess = didYouMean(unused, reachable);
   return diag(
     'LW700',
     `unused codes are sent to '${unused}', which is not a reachable state`,

@@ -339,6 +339,14 @@ describe('cli: bad command lines, options and other files', () => {
     expect(d.hint).toContain("did you mean 'none'?");
   });
 
+  it('an --unused state that cannot be reached: LW700 says it is not in the build and names the reachable ones', async () => {
+    const d = await oneError(['build', `${BAD}/unreachable.lw`, '--encoding', 'binary', '--unused', 'attic']);
+    expect(d).toMatchObject({ code: 'LW700', location: { path: '--unused' } });
+    expect(d.message).toContain("'attic', which cannot be reached from the start state");
+    // Never a did-you-mean of the very name typed.
+    expect(d.hint).toBe("name a reachable state ('dark', 'bright'), or 'dont-care'");
+  });
+
   it('an unknown option: LW700 at the option, a did-you-mean when close; text on standard error', async () => {
     expect(await oneError(['build', MB, '--frobnicate'])).toMatchObject({
       code: 'LW700',
