@@ -7,23 +7,7 @@ import {
   parseJson,
   takeSetAside,
 } from '../../../src/web/controllers/keep.js';
-
-/** A Storage held in a Map (the Web Storage interface, as far as keep.ts uses it); `refuse` makes every write throw. */
-class MemoryStorage {
-  readonly items = new Map<string, string>();
-  refuse = false;
-  getItem(k: string): string | null {
-    return this.items.get(k) ?? null;
-  }
-  setItem(k: string, v: string): void {
-    if (this.refuse) throw new Error('QuotaExceededError');
-    this.items.set(k, v);
-  }
-  removeItem(k: string): void {
-    if (this.refuse) throw new Error('QuotaExceededError');
-    this.items.delete(k);
-  }
-}
+import { MemoryStorage } from './storage.support.js';
 
 let store: MemoryStorage;
 const flag = (raw: string): boolean | undefined => parseFlag(raw);

@@ -11,25 +11,12 @@ import {
   type Shelf,
 } from '../../../src/web/controllers/sketch-places.js';
 import { NEW_MACHINE } from '../../../src/web/examples.js';
+import { MemoryStorage } from './storage.support.js';
 
 function laid(text: string): DiagramLayout {
   const r = parseTextMachine(text);
   if (!r.machine) throw new Error(r.diagnostics.map((d) => d.message).join('; '));
   return layoutDiagram(r.machine);
-}
-
-/** A Storage held in a Map (the Web Storage interface, as far as keep.ts uses it). */
-class MemoryStorage {
-  readonly items = new Map<string, string>();
-  getItem(k: string): string | null {
-    return this.items.get(k) ?? null;
-  }
-  setItem(k: string, v: string): void {
-    this.items.set(k, v);
-  }
-  removeItem(k: string): void {
-    this.items.delete(k);
-  }
 }
 
 describe('src/web/controllers/sketch-places', () => {

@@ -8,20 +8,7 @@ import { SourceController } from '../../../src/web/controllers/source.js';
 import { takeSetAside } from '../../../src/web/controllers/keep.js';
 import { machineHash } from '../../../src/web/controllers/link.js';
 import { host } from './host.support.js';
-
-/** A Storage held in a Map (as much of the Web Storage interface as keep.ts uses). */
-class MemoryStorage {
-  readonly items = new Map<string, string>();
-  getItem(k: string): string | null {
-    return this.items.get(k) ?? null;
-  }
-  setItem(k: string, v: string): void {
-    this.items.set(k, v);
-  }
-  removeItem(k: string): void {
-    this.items.delete(k);
-  }
-}
+import { MemoryStorage } from './storage.support.js';
 
 const FIRST =
   'machine shed_door\ninputs key\noutputs bolt\nstart shut\n\nstate shut\n  when key go open\n\nstate open with bolt=1\n  go shut\n';
