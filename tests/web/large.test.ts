@@ -104,6 +104,11 @@ describe('src/web (a large machine, in chromium)', () => {
     );
     const note = await page.evaluate(() => (window as unknown as { lwPending?: string }).lwPending);
     expect(note).toContain(`Drawing the frame: ${ref.placement.bays.length} bays`);
+    // Its keep list offers the bays (an option each) only once it is used: not with the drawing.
+    const list = page.locator('lw-frame select[data-keep="part"]');
+    await expect(list.locator('option').count()).resolves.toBe(1);
+    await list.focus();
+    await expect.poll(() => list.locator('option').count()).toBe(ref.placement.bays.length + 1);
   }, 300_000);
 
   it('draws every view of the build, and keeps the frame and the schematic drawn while another view shows', async () => {

@@ -20,10 +20,17 @@ export interface KeepInput {
   /** The build's diagnostics, among them those about pins (located at `--pin PART`). */
   readonly notes: readonly Diagnostic[];
   readonly words: ReadonlyMap<string, string> | undefined;
+  /**
+   * Offer every bay in the list. A large frame's (thousands of options: about 90 ms of the
+   * page's time for s298's 2,090 bays) is made only once the list is first used.
+   */
+  readonly listed: boolean;
 }
 
 /** What the field and the list do. */
 export interface KeepActions {
+  /** The list is about to be used: offer every bay. */
+  readonly list: () => void;
   pick(part: string | undefined): void;
   keep(part: string, bay: number, drum: number): void;
   release(part?: string): void;
@@ -51,6 +58,22 @@ export const KEEP_STYLES = css`
 
 const at = (b: { drum: number; bay: number }): string => `bay ${b.bay}, drum ${b.drum}`;
 
+/**
+ * One option per bay (thousands on a large frame), from the visitor end of drum 1; until the
+ * list is used, only the part picked.
+ */
+function bayOptions(p: Placement, k: KeepInput) {
+  return [...p.bays]
+    .filter((b) => k.listed || b.part === k.picked)
+    .sort((a, b) => a.drum - b.drum || a.bay - b.bay)
+    .map(
+      (b) =>
+        html`<option value=${b.part} ?selected=${b.part === k.picked}>
+          ${at(b)}: ${k.words?.get(b.part) ?? b.part} (${b.part})
+        </option>`,
+    );
+}
+
 /** The field: a part, its bay and drum, keep it there; one bay either way; let it go. */
 export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
   const p = k.placement;
@@ -68,8 +91,6 @@ export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
   const by = (step: number) => (): void => {
     if (picked !== undefined && shown && shown.bay + step >= 1) act.keep(picked, shown.bay + step, shown.drum);
   };
-  // One option per bay (thousands on a large frame): made again only when the placement or the pick changes.
-  const bays = () => [...p.bays].sort((a, b) => a.drum - b.drum || a.bay - b.bay);
   return html`<div class="row keep" role="group" aria-label="Keep a part in a bay">
       <label
         >Keep
@@ -77,16 +98,11 @@ export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
           data-keep="part"
           aria-label="The part to keep in a bay"
           @change=${(e: Event) => act.pick((e.target as HTMLSelectElement).value || undefined)}
+          @pointerdown=${act.list}
+          @focus=${act.list}
         >
           <option value="" ?selected=${picked === undefined}>pick a part…</option>
-          ${guard([p, k.words, picked], () =>
-            bays().map(
-              (b) =>
-                html`<option value=${b.part} ?selected=${b.part === picked}>
-                  ${at(b)}: ${k.words?.get(b.part) ?? b.part} (${b.part})
-                </option>`,
-            ),
-          )}
+          ${guard([p, k.words, picked, k.listed], () => bayOptions(p, k))}
         </select></label
       >
       <label

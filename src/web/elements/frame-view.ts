@@ -24,6 +24,7 @@ import type { BranchRoute, Diagnostic, PartReading, Placement } from '../../core
 import { pinAt, type BaySpot, type Pins } from '../controllers/pins.js';
 import type { Stands } from '../frame/stands.js';
 import { DrawnFrame } from '../frame/drawn.js';
+import { FRAME_HERE_BAYS } from '../frame/drawing.js';
 import { drawingPieces, type Piece } from '../frame/pieces.js';
 import { screenSize, screenSized, svgSizeMm, PX_PER_MM } from '../frame/sheet.js';
 import { shared, viewColumn } from '../styles/shared.js';
@@ -96,6 +97,8 @@ export class LwFrame extends LitElement {
   declare routeNotes: readonly Diagnostic[];
   /** The part picked to keep in a bay. */
   private picked: string | undefined;
+  /** The keep list was used on this placement: it offers every bay (frame-keep.ts). */
+  private listed = false;
   /** A part dragged onto another bay (frame-drag.ts). */
   private readonly partDrag = new PartDrag({
     placement: () => this.placement,
@@ -329,6 +332,7 @@ export class LwFrame extends LitElement {
    */
   protected override willUpdate(changed: PropertyValues<this>): void {
     if (changed.has('placement')) {
+      this.listed = false;
       this.hovered = undefined;
       if (!this.branchOf(this.pinned)) this.pinned = undefined;
     }
@@ -336,6 +340,7 @@ export class LwFrame extends LitElement {
 
   private keepInput(): KeepInput {
     return {
+      listed: this.listed || (this.placement?.bays.length ?? 0) <= FRAME_HERE_BAYS,
       placement: this.placement,
       pins: this.pins,
       picked: this.picked,
@@ -345,6 +350,11 @@ export class LwFrame extends LitElement {
   }
 
   private readonly keepActions: KeepActions = {
+    list: () => {
+      if (this.listed) return;
+      this.listed = true;
+      this.requestUpdate();
+    },
     pick: (part) => {
       this.picked = part;
       this.requestUpdate();
