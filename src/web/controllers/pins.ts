@@ -27,6 +27,11 @@ export function pinAt(spot: BaySpot): Pin {
   return spot.drum === 1 ? { bay: spot.bay } : { bay: spot.bay, drum: spot.drum };
 }
 
+/** The spot of a pin (drum 1 when it names none): the inverse of `pinAt`. */
+export function spotOfPin(pin: Pin): BaySpot {
+  return { drum: pin.drum ?? 1, bay: pin.bay };
+}
+
 /** The same pins with `part` kept at `pin` (a part pinned again keeps its place in the order). */
 export function withPin(pins: Pins | undefined, part: string, pin: Pin): Pins {
   return Object.fromEntries([...Object.entries(pins ?? {}).filter(([p]) => p !== part), [part, pin]]);

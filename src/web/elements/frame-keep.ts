@@ -8,8 +8,8 @@
  */
 import { css, html, nothing } from 'lit';
 import { guard } from 'lit/directives/guard.js';
-import type { Diagnostic, Placement } from '../../core/index.js';
-import { bayOf, pinNotes, pinsAway, pinWords, spotFrom, type Pins } from '../controllers/pins.js';
+import { formatDiagnostic, type Diagnostic, type Placement } from '../../core/index.js';
+import { bayOf, pinNotes, pinsAway, pinWords, spotFrom, spotOfPin, type Pins } from '../controllers/pins.js';
 
 /** What the keep field and list show. */
 export interface KeepInput {
@@ -81,7 +81,7 @@ export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
   const picked = k.picked;
   const pin = picked !== undefined ? k.pins?.[picked] : undefined;
   const here = picked !== undefined ? bayOf(p, picked) : undefined;
-  const shown = pin ? { bay: pin.bay, drum: pin.drum ?? 1 } : here;
+  const shown = pin ? spotOfPin(pin) : here;
   const value = (name: string): string =>
     root.querySelector<HTMLInputElement>(`input[data-keep="${name}"]`)?.value ?? '';
   const keepNamed = (): void => {
@@ -156,7 +156,7 @@ function keepStatus(k: KeepInput): string {
     return 'To keep a part in a bay of your choosing, drag its lever end onto another bay, or pick it here or with a tap and name the bay.';
   const here = bayOf(k.placement, picked);
   const pin = k.pins?.[picked];
-  return `${picked} stands in ${here ? at(here) : 'no bay of this build'}${pin ? `; kept in ${at({ bay: pin.bay, drum: pin.drum ?? 1 })}` : ''}.`;
+  return `${picked} stands in ${here ? at(here) : 'no bay of this build'}${pin ? `; kept in ${at(spotOfPin(pin))}` : ''}.`;
 }
 
 /** The parts kept in a bay, each with what the build said of it and a button to let it go; nothing when none is. */
@@ -170,14 +170,14 @@ export function keptList(k: KeepInput, act: KeepActions) {
         const notes = pinNotes(k.notes, part);
         return html`<li data-kept-part=${part}>
           <span class="mono">${pinWords(part, pin)}</span>: ${part} kept in
-          ${at({ bay: pin.bay, drum: pin.drum ?? 1 })}${away.has(part) ? ' — not a part of this build' : ''}
+          ${at(spotOfPin(pin))}${away.has(part) ? ' — not a part of this build' : ''}
           <button data-do="release-part" @click=${() => act.release(part)} aria-label=${`Let ${part} go`}>
             Let go
           </button>
           ${notes.map(
             (d) =>
               html`<span class="note ${d.severity === 'error' ? 'bad' : 'soft'}" data-pin-note=${d.code}
-                >${d.severity} ${d.code}: ${d.message}${d.hint ? html` — <em>${d.hint}</em>` : nothing}</span
+                >${formatDiagnostic(d)}</span
               >`,
           )}
         </li>`;

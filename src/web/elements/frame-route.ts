@@ -7,7 +7,7 @@
  * and in the Shop view) and hands the build every profile that loads (event `cord-route`).
  */
 import { html } from 'lit';
-import { isJsonObject, type Diagnostic } from '../../core/index.js';
+import { formatDiagnostic, isJsonObject, type Diagnostic } from '../../core/index.js';
 
 /** What the field shows: the cord, the profile's entry for it as written (if any), and the loader's word on it. */
 export interface RouteInput {
@@ -58,5 +58,5 @@ export function routeField(r: RouteInput, act: RouteAction, root: ParentNode) {
       </button>
       <button data-do="route-clear" ?disabled=${!own} @click=${() => act(r.cord, undefined)}>Computed route</button>
     </div>
-    ${notes.map((d) => html`<p class="bad" data-route-note=${d.code}>${d.severity} ${d.code}: ${d.message}${d.hint ? ` — ${d.hint}` : ''}</p>`)}`;
+    ${notes.map((d) => html`<p class="bad" data-route-note=${d.code}>${formatDiagnostic(d)}</p>`)}`;
 }

@@ -23,6 +23,9 @@ const SVG_NS = 'http://www.w3.org/2000/svg';
 /** A branch of a cord, as the drawing names it (data-cord, data-target). */
 const branchKey = (cord: string | null, target: string | null): string => `${cord ?? ''}\u0000${target ?? ''}`;
 
+/** A part's lever end or its bay label (of a part's drawn elements: what is picked up, measured and marked). */
+const partEnd = (el: Element): boolean => el.matches('rect.lever') || el.localName === 'g';
+
 export class DrawnFrame {
   /** The drawn branches (path.cord), their whole paths (path.route) and each part's other elements. */
   private readonly cords = new Map<string, Element[]>();
@@ -113,7 +116,7 @@ export class DrawnFrame {
       const spot = spotOf(part);
       if (!spot) continue;
       for (const el of els) {
-        if (!el.matches('rect.lever') && el.localName !== 'g') continue;
+        if (!partEnd(el)) continue;
         const r = el.getBoundingClientRect();
         out.push({ ...spot, left: r.left, right: r.right, top: r.top, bottom: r.bottom });
       }
@@ -127,7 +130,7 @@ export class DrawnFrame {
     this.picked = [];
     const mark = (part: string, cls: string): void => {
       for (const el of this.parts.get(part) ?? []) {
-        if (!el.matches('rect.lever') && el.localName !== 'g') continue;
+        if (!partEnd(el)) continue;
         el.classList.add(cls);
         this.picked.push(el);
       }

@@ -19,6 +19,7 @@ import {
   pinsAway,
   pinWords,
   spotFrom,
+  spotOfPin,
   storedPins,
   withoutPin,
   withPin,
@@ -46,6 +47,9 @@ describe('src/web/controllers/pins', () => {
     expect(pinForDrop(bell, 'no.such', { drum: 1, bay: 2 })).toBeUndefined();
     // A latch's id stands where its first bay is.
     expect(bayOf(bell, 'm1')).toEqual({ drum: 1, bay: 2 });
+    // A pin's spot: drum 1 when the pin names none, as `--pin PART=BAY` means.
+    expect(spotOfPin({ bay: 7 })).toEqual({ drum: 1, bay: 7 });
+    expect(spotOfPin({ bay: 3, drum: 2 })).toEqual({ drum: 2, bay: 3 });
   });
 
   it('reads a bay and drum typed in the field: whole numbers from 1, an empty drum being drum 1', () => {
