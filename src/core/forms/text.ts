@@ -23,6 +23,7 @@
  */
 import { diag, didYouMean, printable, type Diagnostic } from '../model/diagnostics.js';
 import type { Guard, Machine, OutBit, SourceLoc, State, Transition } from '../model/machine.js';
+import { nameRecord } from '../model/records.js';
 import { alwaysGuard, guardFromExpr, parseGuard, printExpr, readExpr } from './expr.js';
 import { isAlways, orderedLoads, type MachineResult } from './json.js';
 
@@ -62,11 +63,6 @@ type TextCode = 'LW101' | 'LW103' | 'LW104' | 'LW106' | 'LW107';
 interface OpenState {
   readonly state: Omit<State, 'transitions'>;
   readonly transitions: Transition[];
-}
-
-/** An empty output map without a prototype, so that output names never meet Object.prototype. */
-function noOutputs(): Record<string, OutBit> {
-  return Object.create(null) as Record<string, OutBit>;
 }
 
 /** True when `w` is missing or is one of the punctuation words ',' and '='. */
@@ -204,7 +200,7 @@ function readOutputs(
   li: number,
   locs: Record<string, SourceLoc>,
 ): { outs: Record<string, OutBit>; k: number } {
-  const outs = noOutputs();
+  const outs = nameRecord<OutBit>();
   let any = false;
   while (k < ws.length) {
     if (ws[k].text === ',' && any) {
@@ -287,7 +283,7 @@ function transitionTail(
   }
   const locs: Record<string, SourceLoc> = { to: r.at(li, target.at) };
   let k = 2;
-  let outs = noOutputs();
+  let outs = nameRecord<OutBit>();
   if (ws[k]?.text === 'with') ({ outs, k } = readOutputs(r, ws, k + 1, li, locs));
   r.trailing(ws, k, li, `the target state`);
   if (!r.current) {
@@ -428,7 +424,7 @@ function stateLine(r: TextReader, ws: readonly Word[], li: number): void {
   r.trailing(ws, k, li, `state '${printable(nm.text)}'`);
   const state = {
     name: nm.text,
-    outputs: outs ?? noOutputs(),
+    outputs: outs ?? nameRecord<OutBit>(),
     ...(code !== undefined ? { code } : {}),
     ...(final ? { final } : {}),
   };
