@@ -269,9 +269,17 @@ export {
   buildSheetMd,
   CAUTIONS,
   commissioningTour,
+  cordFinder,
+  cordFinderCsv,
+  cordsFor,
+  coverageBlock,
+  coverageLine,
+  sheetFaults,
+  sightWords,
   diagramSvg,
   documentByFile,
   documentSources,
+  documentsOf,
   DOCUMENT_FILES,
   DOCUMENT_MAKERS,
   DOCUMENT_REGISTRY,
@@ -281,6 +289,9 @@ export {
   verilogFiles,
   wiringCsv,
   wiringRows,
+  type CordFinder,
+  type FinderEntry,
+  type SheetFaults,
   type DocumentEntry,
   type DocumentFile,
   type DocumentName,
@@ -294,4 +305,4 @@ export {
   type VerilogFiles,
   type WiringRow,
 } from './export/index.js';
-export { buildReport, equationTexts, layoutBlock, machineBlock } from './report.js';
+export { buildReport, equationTexts, layoutBlock, machineBlock, type CommissioningCoverage } from './report.js';

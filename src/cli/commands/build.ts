@@ -3,6 +3,8 @@ import {
   buildReport,
   type Built,
   counted,
+  coverageBlock,
+  coverageLine,
   type Diagnostic,
   equationTexts,
   withoutCapstanWords,
@@ -11,7 +13,7 @@ import type { ParsedArgs } from '../args.js';
 import { buildFromArgs } from './build-common.js';
 import { EXIT } from '../exit.js';
 import type { RunContext } from './common.js';
-import { writeDocuments } from './out.js';
+import { sourcesOf, writeDocuments } from './out.js';
 
 export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<number> {
   const r = await buildFromArgs(args, ctx);
@@ -22,8 +24,9 @@ export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<numbe
   const b = r.built;
   const ok = b.checks.every((c) => c.ok);
   const notes: Diagnostic[] = [];
+  const sources = sourcesOf(b);
   if (typeof args.flags.out === 'string') {
-    const w = writeDocuments(b, args.flags.out, args.flags.force === true);
+    const w = writeDocuments(sources, args.flags.out, args.flags.force === true);
     if (!w.ok) {
       ctx.fail([...r.diagnostics, w.diagnostic]);
       return EXIT.badInput;
@@ -33,14 +36,14 @@ export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<numbe
   }
   ctx.show([...r.diagnostics, ...notes]);
   if (ctx.json) {
-    const report = buildReport(b);
+    const report = buildReport(b, coverageBlock(sources.faults()));
     ctx.io.out(JSON.stringify({ ...report, diagnostics: ctx.present([...r.diagnostics, ...notes]) }, null, 2) + '\n');
-  } else ctx.io.out(textReport(b));
+  } else ctx.io.out(textReport(b, coverageLine(sources.faults())));
   return ok ? EXIT.ok : EXIT.checkFailed;
 }
 
-/** The terminal report: short, in the workshop's words. */
-export function textReport(b: Built): string {
+/** The terminal report: short, in the workshop's words; `coverage` is the commissioning sheet's line. */
+export function textReport(b: Built, coverage?: string): string {
   const f = b.build.machine;
   const m = b.analysed.machine;
   const p = b.build.parts;
@@ -65,6 +68,7 @@ export function textReport(b: Built): string {
   for (const e of equationTexts(b)) lines.push(`  ${e.name} = ${e.expr}`);
   lines.push('checks:');
   for (const c of b.checks) lines.push(`  ${c.ok ? 'ok  ' : 'FAIL'} ${c.name}: ${c.summary}`);
+  if (coverage !== undefined) lines.push(coverage);
   lines.push(
     'Safety: turning drums, hanging weights and levers can hurt people; see the build sheet (--out) for the cautions.',
   );

@@ -10,8 +10,8 @@
  * open is run on through them, so one appended run often shows several. A search that
  * exhausts the product both from the end of the sequence and from a fresh reset declares the
  * fault never showable: no clock sequence the state table specifies shows it, from reset or
- * from where the sheet ends (the cord matters only for recovery from unused codes, or it is
- * redundant).
+ * from where the sheet ends (the cord matters only for inputs declared never to happen, for
+ * recovery from unused codes, or it is redundant).
  *
  * Clocks the search may take: from the fault-free machine's state, every input setting in a
  * row of the state table with a specified next state (so `never` inputs and clocks the table
@@ -72,8 +72,9 @@ export interface SheetFaults {
   readonly verdicts: readonly FaultVerdict[];
   /** The clocks appended to the sequence, each marked `extra`. */
   readonly extra: readonly TourClock[];
-  /** Rows of the sheet before the appended clocks. */
+  /** Rows and clocks of the sheet before the appended clocks. */
   readonly tourRows: number;
+  readonly tourClocks: number;
 }
 
 interface Open {
@@ -85,13 +86,14 @@ interface Open {
   by: FaultVerdict['by'];
 }
 
-/** The fault simulation of the sheet of `tour` and its appended clocks (see the module comment). */
+/** The fault simulation of the sheet of `tour` and its appended clocks (see the module comment); `extend: false` appends none. */
 export function sheetFaults(
   build: Build,
   profile: Pick<Profile, 'stageDelayS'>,
   tour: readonly TourClock[],
-  seed = 1,
+  opts: { readonly seed?: number; readonly extend?: boolean } = {},
 ): SheetFaults {
+  const seed = opts.seed ?? 1;
   const f = build.machine;
   const seq = build.encoding.bits > 0;
   const sim = simFor(build, timingOf(profile));
@@ -106,7 +108,7 @@ export function sheetFaults(
     const r = runRows(bad, steps, looks);
     return { fault, bad, may: r.may, shown: r.shown, seen: r.seen, by: r.shown >= 0 ? 'tour' : 'open' };
   });
-  const extra = extend(build, all, good, tour, steps.length, seq);
+  const extra = opts.extend === false ? [] : extend(build, all, good, tour, steps.length, seq);
   return {
     all: list.all,
     collapsed: list.faults.length,
@@ -115,6 +117,7 @@ export function sheetFaults(
     verdicts: all.map((o) => ({ fault: o.fault, shown: o.shown, may: o.may, by: o.by, seen: o.seen })),
     extra,
     tourRows: steps.length,
+    tourClocks: tour.length,
   };
 }
 
@@ -259,4 +262,30 @@ export function coverageOf(sf: SheetFaults): { total: KindCoverage; byKind: Reco
       untied: count((v) => v.fault.kind === 'untied'),
     },
   };
+}
+
+/** The coverage of the commissioning sheet as report data (`build --json`'s `commissioning` block). */
+export function coverageBlock(sf: SheetFaults) {
+  const c = coverageOf(sf);
+  return {
+    faults: sf.all,
+    collapsed: sf.collapsed,
+    simulated: sf.simulated,
+    sampled: sf.simulated < sf.collapsed,
+    ...(sf.simulated < sf.collapsed ? { seed: sf.seed } : {}),
+    tourClocks: sf.tourClocks,
+    extraClocks: sf.extra.length,
+    shown: c.total.tour + c.total.extra,
+    ...c,
+  };
+}
+
+/** The coverage in one line of the terminal report. */
+export function coverageLine(sf: SheetFaults): string {
+  const c = coverageOf(sf).total;
+  const sample = sf.simulated < sf.collapsed ? ` (a seeded sample of ${sf.simulated} of ${sf.collapsed})` : '';
+  const extra = sf.extra.length > 0 ? `, ${c.extra} more by ${sf.extra.length} clocks added at the end` : '';
+  const never = c.never > 0 ? `; ${c.never} no sequence from reset can show` : '';
+  const open = c.open > 0 ? `; ${c.open} undecided` : '';
+  return `commissioning sheet: shows ${c.tour + c.extra} of ${c.faults} cord faults${sample} (${c.tour} by the tour${extra})${never}${open}`;
 }

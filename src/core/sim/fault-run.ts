@@ -29,7 +29,7 @@ import type { HandAction } from './hand.js';
 import { applyInPlace, powerUp, type PartEvent, type PartState } from './part.js';
 import { clockSteps, type SheetClock, type SheetStep } from './sheet.js';
 
-/** Values a person ticks per row: Z of each latch's set and reset gate (as gate outputs), then each output. */
+/** Values a person ticks per row: Z of each latch's set and reset gate (as gate outputs), then each output as compile.ts's readOutputs reads it. */
 export function lookWidth(sim: PartSim): number {
   return 2 * sim.latches.length + sim.outputs.length;
 }
@@ -44,8 +44,9 @@ export function lookAt(sim: PartSim, values: Uint8Array, out: Uint8Array): Uint8
   for (const r of sim.outputs) {
     if (r.kind === 'fixed') out[k++] = r.value;
     else if (r.kind === 'flag') {
+      // The flag rides on Z = NOT the gate's output; an inverted flag shows the other way.
       const v = values[r.gate];
-      out[k++] = v === X ? X : 1 - v;
+      out[k++] = v === X ? X : r.inverted ? v : 1 - v;
     } else {
       let o = 0;
       for (const d of r.drivers) {
