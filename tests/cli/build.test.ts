@@ -40,6 +40,17 @@ interface Report {
   checks: Check[];
   ok: boolean;
   bom: { item: string; kind: string; count: number }[];
+  commissioning: {
+    faults: number;
+    collapsed: number;
+    simulated: number;
+    sampled: boolean;
+    shown: number;
+    tourClocks: number;
+    extraClocks: number;
+    total: { faults: number; tour: number; extra: number; may: number; never: number; open: number };
+    byKind: Record<'slack' | 'taut' | 'untied', { faults: number; tour: number; extra: number }>;
+  };
   layout: {
     method: string;
     exact: boolean;
@@ -103,6 +114,21 @@ describe('cli/commands/build --json', () => {
       outputs: 1,
     });
     expect(r.json.ok).toBe(true);
+  });
+
+  // Coverage as properties only (docs/methods/faults.md): the figures add up, and the clocks
+  // added never lose a fault the tour showed.
+  it('commissioning: the coverage of cord faults by the sheet, by kind, adding up', () => {
+    const c = r.json.commissioning;
+    expect(c.sampled).toBe(false);
+    expect(c.simulated).toBe(c.collapsed);
+    expect(c.collapsed).toBeLessThanOrEqual(c.faults);
+    expect(c.shown).toBe(c.total.tour + c.total.extra);
+    expect(c.shown).toBeGreaterThanOrEqual(c.total.tour);
+    expect(c.total.tour + c.total.extra + c.total.never + c.total.open).toBe(c.total.faults);
+    const kinds = Object.values(c.byKind);
+    expect(kinds.reduce((a, k) => a + k.faults, 0)).toBe(c.total.faults);
+    expect(c.extraClocks > 0).toBe(c.total.extra > 0);
   });
 
   it('encoding: strategy, bits and one code per state (binary counts in state order)', () => {
@@ -193,6 +219,7 @@ describe('cli/commands/build (text report)', () => {
     expect(t.out).toContain('encoding binary, 2 state bits: none=00 one=01 two=10 rung=11\n');
     expect(t.out).toContain('  bell = q0 & q1\n');
     for (const name of CHECK_NAMES) expect(t.out).toMatch(new RegExp(`^ {2}ok {3}${name}: `, 'm'));
+    expect(t.out).toMatch(/^commissioning sheet: shows \d+ of \d+ cord faults \(\d+ by the tour/m);
     expect(t.out).toMatch(/^Safety: /m);
     expectNoStack(t);
   });

@@ -15,6 +15,7 @@
  */
 import type { Build } from '../model/build.js';
 import { partIndex, type Cord, type Part } from '../model/netlist.js';
+import { counted } from '../model/words.js';
 import type { Placement } from '../phases/place/index.js';
 import { tiesOf, type CordFault } from '../sim/faults.js';
 import { CAUTIONS } from './build-sheet.js';
@@ -189,7 +190,7 @@ export function coverageWords(sf: SheetFaults): string {
       ? `Of a seeded sample of ${sf.simulated} of the ${sf.collapsed} distinct cord faults (seed ${sf.seed}; ${sf.all} before collapsing faults that look alike)`
       : `Of the ${sf.collapsed} distinct cord faults (${sf.all} before collapsing faults that look alike)`;
   const parts = [`the tour shows ${c.tour}`];
-  if (sf.extra.length > 0) parts.push(`the ${sf.extra.length} clocks added at the end show ${c.extra} more`);
+  if (sf.extra.length > 0) parts.push(`the ${counted(sf.extra.length, 'clock')} added at the end show ${c.extra} more`);
   if (c.never > 0) parts.push(`${c.never} no sequence from reset can show`);
   if (c.open > 0)
     parts.push(

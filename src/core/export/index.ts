@@ -48,7 +48,7 @@ export {
   coverageLine,
   coverageOf,
   sheetFaults,
-  FAULT_LIMIT,
+  FAULT_WORK,
   type FaultVerdict,
   type SheetFaults,
 } from './sheet-faults.js';

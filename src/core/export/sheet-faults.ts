@@ -20,15 +20,17 @@
  * setting per row (free inputs released, as the tour does) and then never declares a fault
  * never showable, only undecided.
  *
- * Bounds: past FAULT_LIMIT faults (after collapsing) a seeded sample of FAULT_LIMIT is
- * simulated, and every figure says so. Each search visits at most SEARCH_BOUNDS; all searches
- * together at most SEARCH_BUDGET product states; at most EXTRA_CLOCKS_LIMIT clocks are
- * appended. A fault past a bound is "undecided".
+ * Bounds: the simulation takes at most FAULT_WORK fault-rows (faults × rows of the sheet);
+ * past it, a seeded sample of FAULT_WORK / rows faults (at least FAULT_FLOOR) is simulated, and
+ * every figure says so. Each search takes at most SEARCH_BOUNDS; all searches together at most
+ * SEARCH_BUDGET clocks; at most EXTRA_CLOCKS_LIMIT clocks are appended. A fault past a bound is
+ * "undecided".
  * Deterministic: faults in netlist order, samples from the seed.
  */
 import type { Build } from '../model/build.js';
 import { DONT_CARE } from '../model/flat.js';
 import { seededRandom } from '../model/random.js';
+import { counted } from '../model/words.js';
 import type { Profile } from '../physics/profile.js';
 import { resetActions } from '../sim/hand.js';
 import { faultInjector, listFaults, type CordFault, type FaultKind } from '../sim/faults.js';
@@ -37,12 +39,14 @@ import { simFor, slaveCode, timingOf } from '../sim/part.js';
 import { clockSteps, sheetSteps, type SheetClock, type SheetStep } from '../sim/sheet.js';
 import { assignmentFor, type TourClock } from './tour.js';
 
-/** Faults simulated in full; past it, a seeded sample of this many. */
-export const FAULT_LIMIT = 3000;
-/** Bounds of one search for clocks that show a fault. */
-export const SEARCH_BOUNDS: SearchBounds = { depth: 6, nodes: 300 };
-/** Product states all searches of one sheet may visit together. */
-export const SEARCH_BUDGET = 60_000;
+/** Fault-rows (faults × rows of the sheet) simulated at most; past it, a seeded sample of faults. */
+export const FAULT_WORK = 1_000_000;
+/** The smallest sample. */
+export const FAULT_FLOOR = 100;
+/** Bounds of one search for clocks that show a fault: clocks in a sequence, product states, clocks simulated. */
+export const SEARCH_BOUNDS: SearchBounds = { depth: 6, nodes: 300, clocks: 3000 };
+/** Clocks all searches of one sheet may simulate together. */
+export const SEARCH_BUDGET = 20_000;
 /** Most clocks appended to the sequence. */
 export const EXTRA_CLOCKS_LIMIT = 200;
 /** Most inputs for which the search tries every input setting (2^6 = 64 per state). */
@@ -99,8 +103,8 @@ export function sheetFaults(
   const sim = simFor(build, timingOf(profile));
   const injector = faultInjector(sim, profile.stageDelayS);
   const list = listFaults(build.netlist);
-  const faults = sampled(list.faults, seed);
   const steps = sheetSteps(f.inputs, seq, tour);
+  const faults = sampled(list.faults, Math.max(FAULT_FLOOR, Math.floor(FAULT_WORK / Math.max(1, steps.length))), seed);
   const good = new Stepped(sim);
   const looks = lookThrough(good, steps);
   const all: Open[] = faults.map((fault) => {
@@ -121,17 +125,17 @@ export function sheetFaults(
   };
 }
 
-/** At most FAULT_LIMIT faults: all of them, or a seeded sample kept in netlist order. */
-function sampled(faults: readonly CordFault[], seed: number): readonly CordFault[] {
-  if (faults.length <= FAULT_LIMIT) return faults;
+/** At most `limit` faults: all of them, or a seeded sample kept in netlist order. */
+function sampled(faults: readonly CordFault[], limit: number, seed: number): readonly CordFault[] {
+  if (faults.length <= limit) return faults;
   const rnd = seededRandom(seed);
   const idx = faults.map((_, i) => i);
-  for (let i = 0; i < FAULT_LIMIT; i++) {
+  for (let i = 0; i < limit; i++) {
     const j = i + rnd.int(idx.length - i);
     [idx[i], idx[j]] = [idx[j], idx[i]];
   }
   return idx
-    .slice(0, FAULT_LIMIT)
+    .slice(0, limit)
     .sort((a, b) => a - b)
     .map((i) => faults[i]);
 }
@@ -195,12 +199,12 @@ function extend(
   for (const o of open) {
     if (o.shown >= 0) continue;
     if (extra.length >= EXTRA_CLOCKS_LIMIT || budget <= 0) continue;
-    const bounds = { depth: SEARCH_BOUNDS.depth, nodes: Math.min(SEARCH_BOUNDS.nodes, budget) };
+    const bounds = { ...SEARCH_BOUNDS, clocks: Math.min(SEARCH_BOUNDS.clocks, budget) };
     const r = searchShowing({ good: good.copy(), bad: o.bad.copy(), levers }, inputs, seq, movesAt, complete, bounds);
-    budget -= r.nodes;
+    budget -= r.work;
     if (r.kind === 'never') {
       const again = searchShowing(fresh(o), inputs, seq, movesAt, complete, bounds);
-      budget -= again.nodes;
+      budget -= again.work;
       if (again.kind === 'never') o.by = 'never';
       continue;
     }
@@ -284,7 +288,7 @@ export function coverageBlock(sf: SheetFaults) {
 export function coverageLine(sf: SheetFaults): string {
   const c = coverageOf(sf).total;
   const sample = sf.simulated < sf.collapsed ? ` (a seeded sample of ${sf.simulated} of ${sf.collapsed})` : '';
-  const extra = sf.extra.length > 0 ? `, ${c.extra} more by ${sf.extra.length} clocks added at the end` : '';
+  const extra = sf.extra.length > 0 ? `, ${c.extra} more by ${counted(sf.extra.length, 'clock')} added at the end` : '';
   const never = c.never > 0 ? `; ${c.never} no sequence from reset can show` : '';
   const open = c.open > 0 ? `; ${c.open} undecided` : '';
   return `commissioning sheet: shows ${c.tour + c.extra} of ${c.faults} cord faults${sample} (${c.tour} by the tour${extra})${never}${open}`;

@@ -160,12 +160,15 @@ export interface SearchBounds {
   readonly depth: number;
   /** Most product states visited. */
   readonly nodes: number;
+  /** Most clocks simulated (each in both machines). */
+  readonly clocks: number;
 }
 
+/** How a search ended, with the clocks it simulated (`work`). */
 export type SearchOutcome =
-  | { readonly kind: 'shown'; readonly clocks: readonly SheetClock[]; readonly nodes: number }
-  | { readonly kind: 'never'; readonly nodes: number }
-  | { readonly kind: 'bound'; readonly nodes: number };
+  | { readonly kind: 'shown'; readonly clocks: readonly SheetClock[]; readonly work: number }
+  | { readonly kind: 'never'; readonly work: number }
+  | { readonly kind: 'bound'; readonly work: number };
 
 interface Node {
   readonly good: Stepped;
@@ -193,10 +196,16 @@ export function searchShowing(
   const gl = new Uint8Array(lookWidth(start.good.sim));
   const bl = new Uint8Array(lookWidth(start.bad.sim));
   let cut = false;
-  for (let depth = 0; depth < bounds.depth && queue.length > 0; depth++) {
+  let work = 0;
+  for (let depth = 0; depth < bounds.depth && queue.length > 0 && !cut; depth++) {
     const next: Node[] = [];
     for (const node of queue) {
       for (const m of movesAt(node.good)) {
+        if (work >= bounds.clocks) {
+          cut = true;
+          break;
+        }
+        work++;
         const good = node.good.copy();
         const bad = node.bad.copy();
         let shown = false;
@@ -209,7 +218,7 @@ export function searchShowing(
           }
         }
         const path = [...node.path, m];
-        if (shown) return { kind: 'shown', clocks: path, nodes: seen.size };
+        if (shown) return { kind: 'shown', clocks: path, work };
         const key = good.key() + '|' + bad.key();
         if (seen.has(key)) continue;
         if (seen.size >= bounds.nodes) {
@@ -223,5 +232,5 @@ export function searchShowing(
     queue = next;
   }
   if (queue.length > 0) cut = true;
-  return !cut && complete ? { kind: 'never', nodes: seen.size } : { kind: 'bound', nodes: seen.size };
+  return !cut && complete ? { kind: 'never', work } : { kind: 'bound', work };
 }

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { csvParse } from 'd3';
 import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 import { CAUTIONS } from '../../../src/core/export/build-sheet.js';
-import { cordFinderCsv, cordsFor } from '../../../src/core/export/cord-finder.js';
+import { cordFinderCsv, cordsFor, coverageWords } from '../../../src/core/export/cord-finder.js';
+import { coverageLine } from '../../../src/core/export/sheet-faults.js';
 import { DOCUMENT_MAKERS, documentSources } from '../../../src/core/export/documents.js';
 import { example, exampleNames } from './support.js';
 
@@ -44,6 +45,14 @@ describe('core/export/cord-finder', () => {
   });
 
   // RFC 4180 read back by d3-dsv; formula characters escaped by csv.ts (OWASP "CSV Injection").
+  it('says when its figures are of a seeded sample', () => {
+    const d = sourcesOf('marble-bell.lw');
+    const sf = { ...d.faults(), simulated: d.faults().simulated - 1, seed: 7 };
+    expect(coverageWords(sf)).toMatch(/^Of a seeded sample of \d+ of the \d+ distinct cord faults \(seed 7;/);
+    expect(coverageLine(sf)).toContain('(a seeded sample of');
+    expect(coverageWords(d.faults())).toMatch(/^Of the \d+ distinct cord faults/);
+  });
+
   it('writes a CSV that opens with the cautions and reads back one record per fault', () => {
     const d = sourcesOf('crossing.lw');
     const text = cordFinderCsv(d.finder());
