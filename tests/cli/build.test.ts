@@ -477,3 +477,40 @@ describe('cli/commands/build: the frame', () => {
     expect(r.out).toMatch(/--pin keeps a part in a bay/);
   });
 });
+
+describe('cli/commands/build --saw', () => {
+  // The answer is the core's dictionary (tests/core/export/cord-finder.test.ts holds its round
+  // trip); here: the command line reads the question and says it in words or in JSON.
+  it('names the cords to look at for what was seen at a step', async () => {
+    const j = await runJson<{ saw: { step: number; what: string; seen: string; cords: { cord: string }[] } }>([
+      'build',
+      LOCK,
+      '--encoding',
+      'binary',
+      '--json',
+      '--saw',
+      '1:s0 set Z=down',
+    ]);
+    expect(j.code).toBe(0);
+    expect(j.json.saw).toMatchObject({ step: 1, what: 's0 set Z', seen: 'down' });
+    const t = await run(['build', LOCK, '--encoding', 'binary', '--saw', '1:S0-set_Z=down']);
+    expect(t.code).toBe(0);
+    expect(t.out).toContain('at step 1 you saw s0 set Z down: ');
+    if (j.json.saw.cords.length > 0) expect(t.out).toContain(`look at ${j.json.saw.cords[0].cord}: `);
+    expectNoStack(t);
+  });
+
+  it('refuses a question it cannot read with LW700 and a hint, never a stack', async () => {
+    for (const [saw, words] of [
+      ['s0 set Z up', 'is not STEP:WHAT=POSITION'],
+      ['0:s0 set Z=up', 'has steps 1 to'],
+      ['1:s0 sat Z=up', "did you mean 's0 set Z'"],
+    ]) {
+      const t = await run(['build', LOCK, '--encoding', 'binary', '--saw', saw]);
+      expect(t.code, saw).toBe(2);
+      expect(t.err, saw).toContain('LW700');
+      expect(t.err, saw).toContain(words);
+      expectNoStack(t);
+    }
+  });
+});

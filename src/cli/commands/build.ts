@@ -13,6 +13,7 @@ import type { ParsedArgs } from '../args.js';
 import { buildFromArgs } from './build-common.js';
 import { EXIT } from '../exit.js';
 import type { RunContext } from './common.js';
+import { sawAnswer, sawText } from './build-saw.js';
 import { sourcesOf, writeDocuments } from './out.js';
 
 export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<number> {
@@ -34,11 +35,20 @@ export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<numbe
     notes.push(...w.notes);
     if (!ctx.json) ctx.io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);
   }
+  const saw = typeof args.flags.saw === 'string' ? sawAnswer(args.flags.saw, sources) : undefined;
+  if (saw && 'code' in saw) {
+    ctx.fail([...r.diagnostics, saw]);
+    return EXIT.badInput;
+  }
   ctx.show([...r.diagnostics, ...notes]);
   if (ctx.json) {
     const report = buildReport(b, coverageBlock(sources.faults()));
-    ctx.io.out(JSON.stringify({ ...report, diagnostics: ctx.present([...r.diagnostics, ...notes]) }, null, 2) + '\n');
-  } else ctx.io.out(textReport(b, coverageLine(sources.faults())));
+    const doc = { ...report, ...(saw ? { saw } : {}), diagnostics: ctx.present([...r.diagnostics, ...notes]) };
+    ctx.io.out(JSON.stringify(doc, null, 2) + '\n');
+  } else {
+    ctx.io.out(textReport(b, coverageLine(sources.faults())));
+    if (saw) ctx.io.out(sawText(saw));
+  }
   return ok ? EXIT.ok : EXIT.checkFailed;
 }
 
