@@ -40,9 +40,9 @@ import { clockSteps, sheetSteps, type SheetClock, type SheetStep } from '../sim/
 import { assignmentFor, type TourClock } from './tour.js';
 
 /** Fault-rows (faults × rows of the sheet) simulated at most; past it, a seeded sample of faults. */
-export const FAULT_WORK = 1_000_000;
+export const FAULT_WORK = 500_000;
 /** The smallest sample. */
-export const FAULT_FLOOR = 100;
+export const FAULT_FLOOR = 50;
 /** Bounds of one search for clocks that show a fault: clocks in a sequence, product states, clocks simulated. */
 export const SEARCH_BOUNDS: SearchBounds = { depth: 6, nodes: 300, clocks: 3000 };
 /** Clocks all searches of one sheet may simulate together. */

@@ -10,8 +10,9 @@
  * and each output's flag or actuator. A row *shows* a fault when a value is determinate (0 or
  * 1) in both machines and differs; a faulty X against a determinate value only *may* show it
  * (the lever could come to rest either way). The faulty machines are settled event-driven
- * (settle.ts), and so is the fault-free one here (the sheet steps it by part.ts
- * `stepSim`, which gives the same values).
+ * (settle.ts), and so is the fault-free one here (the sheet steps it by part.ts `stepSim`,
+ * which gives the same values). Not the fast pass (fast.ts): its programs rest on the netlist's
+ * latches being latches, which a fault on a feedback cord undoes.
  *
  * Search: breadth-first search over the product of the fault-free and the faulty machine, one
  * node per pair of clock-level states (lever positions and latch contents of both: the
