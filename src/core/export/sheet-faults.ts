@@ -23,8 +23,8 @@
  * Bounds: the simulation takes at most FAULT_WORK fault-rows (faults × rows of the sheet);
  * past it, a seeded sample of FAULT_WORK / rows faults (at least FAULT_FLOOR) is simulated, and
  * every figure says so. Each search takes at most SEARCH_BOUNDS; all searches together at most
- * SEARCH_BUDGET clocks; at most EXTRA_CLOCKS_LIMIT clocks are appended. A fault past a bound is
- * "undecided".
+ * SEARCH_BUDGET clocks; no search starts once EXTRA_CLOCKS_LIMIT clocks are appended. A fault
+ * past a bound is "undecided".
  * Deterministic: faults in netlist order, samples from the seed.
  */
 import type { Build } from '../model/build.js';
@@ -47,7 +47,7 @@ export const FAULT_FLOOR = 50;
 export const SEARCH_BOUNDS: SearchBounds = { depth: 6, nodes: 300, clocks: 3000 };
 /** Clocks all searches of one sheet may simulate together. */
 export const SEARCH_BUDGET = 20_000;
-/** Most clocks appended to the sequence. */
+/** No search starts once this many clocks are appended (a search adds at most SEARCH_BOUNDS.depth). */
 export const EXTRA_CLOCKS_LIMIT = 200;
 /** Most inputs for which the search tries every input setting (2^6 = 64 per state). */
 export const SEARCH_INPUTS = 6;
