@@ -1,0 +1,45 @@
+import { describe, expect, it } from 'vitest';
+import { BEHAVIOURS, BEHAVIOUR_WRITERS, writeBehaviour } from '../../../src/core/behaviours/index.js';
+import { parseTextMachine, printTextMachine } from '../../../src/core/forms/text.js';
+import { analysedBehaviour } from './harness.js';
+
+describe('core/behaviours/index', () => {
+  it('writes every behaviour from the examples of its fields, readable and commented', () => {
+    for (const b of BEHAVIOURS) {
+      const values = Object.fromEntries(b.fields.map((f) => [f.key, f.example]));
+      const w = BEHAVIOUR_WRITERS[b.name](values);
+      expect(w.ok, b.name).toBe(true);
+      if (!w.ok) continue;
+      const a = analysedBehaviour(b.name, values);
+      // Every state line says in words what the state remembers.
+      const stateLines = w.text.split('\n').filter((l) => l.startsWith('state '));
+      expect(stateLines.length).toBe(a.machine.states.length);
+      for (const l of stateLines) expect(l).toMatch(/ # remembers: \S/);
+      // The header comment is the sentence, carried as the machine's description.
+      expect(a.machine.description?.split('\n')[0]).toBe(w.sentence);
+      // The text form reads back to the same machine when printed and read again.
+      const again = parseTextMachine(printTextMachine(a.machine));
+      expect(again.machine?.states.map((s) => s.name)).toEqual(a.machine.states.map((s) => s.name));
+    }
+  });
+
+  it('names an unknown behaviour with LW804 and the nearest name', () => {
+    const w = writeBehaviour('toggel', {});
+    expect(w.ok).toBe(false);
+    if (!w.ok)
+      expect(w.diagnostics.map((d) => [d.code, d.location.path, d.hint])).toEqual([
+        ['LW804', 'behaviour', 'did you mean toggle? behaviours: counting, sequence, hold, toggle'],
+      ]);
+  });
+
+  it('gives a field of a user name no special meaning (constructor, __proto__)', () => {
+    const w = writeBehaviour('toggle', { input: 'constructor', output: '__proto__', name: 'toString' });
+    expect(w.ok).toBe(true);
+    expect(
+      writeBehaviour(
+        'toggle',
+        Object.assign(Object.create(null) as object, { input: 'a', output: 'b' }) as Record<string, string>,
+      ).ok,
+    ).toBe(true);
+  });
+});
