@@ -67,8 +67,8 @@ export const SEQUENCE_FIELDS: readonly Field[] = [
     help: 'overlap: fall back only as far as needed (Knuth–Morris–Pratt); strict: back to the start',
     example: 'overlap',
     choices: [
-      { value: 'overlap', label: 'keep what still fits the order' },
-      { value: 'strict', label: 'start again from nothing' },
+      { value: 'overlap', label: 'keep what still fits' },
+      { value: 'strict', label: 'start again' },
     ],
   },
   {
