@@ -187,6 +187,22 @@ export class FieldReader {
     return undefined;
   }
 
+  /** LW800 for a list of `n` names when the field's bounds do not take that many. */
+  countOf(key: string, n: number): void {
+    const f = this.field(key);
+    const min = f.min ?? 1;
+    const max = f.max ?? n;
+    if (n >= min && n <= max) return;
+    this.diagnostics.push(
+      diag(
+        'LW800',
+        `${this.behaviour}: --${key} names ${n}, not ${min} to ${max}`,
+        this.where(key),
+        `name from ${min} to ${max}`,
+      ),
+    );
+  }
+
   /** The machine's name: the field `name` when given (letters, digits, _ and -), else `fallback`. */
   machineName(fallback: string): string {
     const v = this.raw('name');

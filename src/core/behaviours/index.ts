@@ -8,6 +8,7 @@
  * read the registry. Adding a behaviour is one module plus one entry and one line here.
  */
 import { diag, didYouMean } from '../model/diagnostics.js';
+import { COLLECT_FIELDS, writeCollect } from './collect.js';
 import { COUNTING_FIELDS, writeCounting } from './counting.js';
 import type { Field, FieldValues, Written } from './fields.js';
 import { HOLD_FIELDS, writeHold } from './hold.js';
@@ -15,11 +16,12 @@ import { SEQUENCE_FIELDS, writeSequence } from './sequence.js';
 import { TOGGLE_FIELDS, writeToggle } from './toggle.js';
 
 export type { Field, FieldKind, FieldValues, Written } from './fields.js';
+export { COLLECT_MAX } from './collect.js';
 export { COUNT_MAX } from './counting.js';
 export { HOLD_MAX } from './hold.js';
 export { failureFunction, nextPrefix, ORDER_MAX, PRESS_INPUTS_MAX } from './sequence.js';
 
-export type BehaviourName = 'counting' | 'sequence' | 'hold' | 'toggle';
+export type BehaviourName = 'counting' | 'sequence' | 'hold' | 'toggle' | 'collect';
 
 export interface BehaviourEntry {
   readonly name: BehaviourName;
@@ -56,6 +58,12 @@ export const BEHAVIOURS: readonly BehaviourEntry[] = [
     summary: 'each press of an input flips an output; a press held down flips it once',
     fields: TOGGLE_FIELDS,
   },
+  {
+    name: 'collect',
+    label: 'All seen, any order',
+    summary: 'an output once each of several inputs has been pulled, in any order',
+    fields: COLLECT_FIELDS,
+  },
 ];
 
 /** What writes each behaviour's machine. */
@@ -64,6 +72,7 @@ export const BEHAVIOUR_WRITERS: Readonly<Record<BehaviourName, (values: FieldVal
   sequence: writeSequence,
   hold: writeHold,
   toggle: writeToggle,
+  collect: writeCollect,
 };
 
 /** The registry's entry of a behaviour named by the user, or undefined. */

@@ -28,7 +28,7 @@ describe('core/behaviours/index', () => {
     expect(w.ok).toBe(false);
     if (!w.ok)
       expect(w.diagnostics.map((d) => [d.code, d.location.path, d.hint])).toEqual([
-        ['LW804', 'behaviour', 'did you mean toggle? behaviours: counting, sequence, hold, toggle'],
+        ['LW804', 'behaviour', 'did you mean toggle? behaviours: counting, sequence, hold, toggle, collect'],
       ]);
   });
 

@@ -101,3 +101,17 @@ export function toggleReference(clocks: readonly Clock[], p: { input: string; ou
     return shown;
   });
 }
+
+/** Collect: the set of inputs pulled since the start (or the last clear clock); the output once it holds them all. */
+export function collectReference(
+  clocks: readonly Clock[],
+  p: { inputs: readonly string[]; output: string; clear?: string },
+): Shown[] {
+  const seen = new Set<string>();
+  return clocks.map((c) => {
+    const shown = { [p.output]: seen.size === p.inputs.length ? 1 : 0 };
+    if (p.clear && c[p.clear]) seen.clear();
+    else for (const x of p.inputs) if (c[x]) seen.add(x);
+    return shown;
+  });
+}
