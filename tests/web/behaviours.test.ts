@@ -8,7 +8,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { writeBehaviour } from '../../src/core/behaviours/index.js';
+import { BEHAVIOURS, writeBehaviour } from '../../src/core/behaviours/index.js';
 import { built, DESKTOP, openPage, overflowing, PHONE, shot, startDesigner, type Designer } from './page.js';
 
 let designer: Designer;
@@ -80,7 +80,7 @@ describe('src/web behaviour panel (end to end in chromium)', () => {
     await built(page);
     await page.getByRole('button', { name: /Start from a behaviour/ }).click();
     await panel(page).waitFor();
-    for (const name of ['counting', 'sequence', 'hold', 'toggle']) {
+    for (const { name } of BEHAVIOURS) {
       await panel(page).locator('select').first().selectOption(name);
       expect(await overflowing(page), name).toEqual([]);
       const box = await panel(page).boundingBox();

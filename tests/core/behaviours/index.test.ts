@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { BEHAVIOURS, BEHAVIOUR_WRITERS, writeBehaviour } from '../../../src/core/behaviours/index.js';
 import { parseTextMachine, printTextMachine } from '../../../src/core/forms/text.js';
@@ -41,5 +42,15 @@ describe('core/behaviours/index', () => {
         Object.assign(Object.create(null) as object, { input: 'a', output: 'b' }) as Record<string, string>,
       ).ok,
     ).toBe(true);
+  });
+
+  it('docs/behaviours.md gives each behaviour its section and each of its options', () => {
+    const doc = readFileSync('docs/behaviours.md', 'utf8');
+    for (const b of BEHAVIOURS) {
+      expect(doc).toContain(`### ${b.name} — `);
+      const section = doc.slice(doc.indexOf(`### ${b.name} — `)).split('\n### ')[0];
+      for (const f of b.fields.filter((x) => x.key !== 'name'))
+        expect(section, `${b.name} --${f.key}`).toContain(`\`--${f.key} `);
+    }
   });
 });
