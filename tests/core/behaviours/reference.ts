@@ -109,7 +109,7 @@ export function collectReference(
 ): Shown[] {
   const seen = new Set<string>();
   return clocks.map((c) => {
-    const shown = { [p.output]: seen.size === p.inputs.length ? 1 : 0 };
+    const shown: Shown = { [p.output]: seen.size === p.inputs.length ? 1 : 0 };
     if (p.clear && c[p.clear]) seen.clear();
     else for (const x of p.inputs) if (c[x]) seen.add(x);
     return shown;
