@@ -1,7 +1,9 @@
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { BEHAVIOURS, BEHAVIOUR_WRITERS, writeBehaviour } from '../../../src/core/behaviours/index.js';
 import { parseTextMachine, printTextMachine } from '../../../src/core/forms/text.js';
+import { analyse } from '../../../src/core/pipeline.js';
 import { analysedBehaviour } from './harness.js';
 
 describe('core/behaviours/index', () => {
@@ -52,5 +54,50 @@ describe('core/behaviours/index', () => {
       for (const f of b.fields.filter((x) => x.key !== 'name'))
         expect(section, `${b.name} --${f.key}`).toContain(`\`--${f.key} `);
     }
+  });
+
+  it('answers any field values with a machine that reads cleanly or with LW800–LW805, never an exception (fast-check, seed 9)', () => {
+    const word = fc.oneof(
+      fc.constantFrom(
+        'a',
+        'b',
+        'lamp',
+        'red',
+        '2',
+        '3',
+        '40',
+        'x y',
+        '-',
+        '',
+        ' ',
+        'constructor',
+        'same-clock',
+        'strict',
+        'until-closed',
+      ),
+      fc.string({ maxLength: 6 }),
+    );
+    const values = fc.dictionary(
+      fc.constantFrom(...new Set(BEHAVIOURS.flatMap((b) => b.fields.map((f) => f.key)))),
+      fc.array(word, { maxLength: 4 }).map((ws) => ws.join(',')),
+    );
+    fc.assert(
+      fc.property(fc.constantFrom(...BEHAVIOURS.map((b) => b.name)), values, (name, v) => {
+        const w = writeBehaviour(name, v);
+        if (!w.ok) {
+          expect(w.diagnostics.length).toBeGreaterThan(0);
+          for (const d of w.diagnostics) {
+            expect(d.code).toMatch(/^LW80[0-5]$/);
+            expect(d.location.path).toMatch(new RegExp(`^${name}\\.`));
+            expect(d.hint).toBeDefined();
+          }
+          return;
+        }
+        const a = analyse(w.text, 'w.lw');
+        expect(a.diagnostics.filter((d) => d.severity !== 'info')).toEqual([]);
+        expect(a.ok).toBe(true);
+      }),
+      { seed: 9, numRuns: 1500 },
+    );
   });
 });
