@@ -25,7 +25,7 @@ const panel = (page: Page) => page.locator('lw-behaviour-card dialog');
 
 /** Open the panel from the bench with the keyboard. */
 async function openPanel(page: Page): Promise<void> {
-  await page.getByRole('button', { name: /Start from a behaviour/ }).focus();
+  await page.getByRole('button', { name: 'From a behaviour…' }).focus();
   await page.keyboard.press('Enter');
   await panel(page).waitFor();
 }
@@ -78,7 +78,7 @@ describe('src/web behaviour panel (end to end in chromium)', () => {
   it('fits a phone: nothing of the panel sticks out of a 390 px screen', async () => {
     const page = await openPage(await designer.context(PHONE), designer.url);
     await built(page);
-    await page.getByRole('button', { name: /Start from a behaviour/ }).click();
+    await page.getByRole('button', { name: 'From a behaviour…' }).click();
     await panel(page).waitFor();
     for (const { name } of BEHAVIOURS) {
       await panel(page).locator('select').first().selectOption(name);

@@ -147,11 +147,11 @@ export class LwBench extends LitElement {
         </select>
         <button
           @click=${() => emit(this, 'behaviour', {})}
-          aria-label="Start from a behaviour: a sentence and a few fields write the machine"
+          title="Start from a behaviour: a sentence and a few fields write the machine"
         >
           From a behaviour…
         </button>
-        <button @click=${() => emit(this, 'copy-link', {})} aria-label="Copy a link that carries this machine">
+        <button @click=${() => emit(this, 'copy-link', {})} title="Copy a link that carries this machine">
           Copy link
         </button>
         <button
