@@ -9,8 +9,9 @@ import { runBuild } from './commands/build.js';
 import { runCompare } from './commands/compare.js';
 import { runStepCommand } from './commands/step.js';
 import { runDemo } from './commands/demo.js';
+import { runWrite, WRITE_SPEC } from './commands/write.js';
 import { RunContext } from './commands/common.js';
-import { DEFAULT_ENCODING, diag, didYouMean, ENCODING_REGISTRY } from '../core/index.js';
+import { BEHAVIOURS, DEFAULT_ENCODING, diag, didYouMean, ENCODING_REGISTRY } from '../core/index.js';
 import { nodeIo, type CliIo } from './io.js';
 import { EXIT, exitStatusText } from './exit.js';
 
@@ -40,6 +41,10 @@ Usage:
       JSON array of input settings (one object per clock).
   latchwright demo
       Build and check the bundled demo machine and print its report.
+  latchwright write BEHAVIOUR [--OPTION VALUE …] [--json]
+      Write the machine of a behaviour (${BEHAVIOURS.map((b) => b.name).join(', ')}) in the
+      text form on standard output (the JSON form with --json), ready for check,
+      build or step. \`latchwright write --help\` lists each behaviour's options.
 
 Encodings (--encoding NAME, default ${DEFAULT_ENCODING}):
 ${encodingLines()}
@@ -60,7 +65,9 @@ const SPEC = {
 export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promise<number> {
   let ctx = new RunContext(io, argv.includes('--json'));
   try {
-    const args = parseArgs(argv, SPEC);
+    const first = parseArgs(argv, SPEC);
+    // `write` takes the options of its behaviours (--order, --every …), which no other command takes.
+    const args = first.command === 'write' ? parseArgs(argv, WRITE_SPEC) : first;
     ctx = new RunContext(io, args.flags.json === true);
     return await dispatch(args, ctx);
   } catch (e) {
@@ -84,12 +91,14 @@ async function dispatch(args: ParsedArgs, ctx: RunContext): Promise<number> {
     io.out('latchwright 0.1.0\n');
     return EXIT.ok;
   }
+  if (args.command === 'write' && args.errors.length === 0) return runWrite(args, ctx);
   if (args.flags.help || args.command === undefined || args.command === 'help') {
     io.out(USAGE + '\n');
     return args.command === undefined && !args.flags.help ? EXIT.badInput : EXIT.ok;
   }
   if (args.errors.length > 0) {
-    const known = [...SPEC.values, ...SPEC.switches, ...SPEC.lists].map((o) => `--${o}`);
+    const spec = args.command === 'write' ? WRITE_SPEC : SPEC;
+    const known = [...spec.values, ...spec.switches, ...(spec.lists ?? [])].map((o) => `--${o}`);
     ctx.fail(
       args.errors.map((e) => {
         const guess = didYouMean(e.option, known);
@@ -122,7 +131,7 @@ async function dispatch(args: ParsedArgs, ctx: RunContext): Promise<number> {
           'LW700',
           `unknown command '${args.command}'`,
           { path: args.command },
-          'commands: check, build, compare, step, demo',
+          'commands: check, build, compare, step, demo, write',
         ),
       ]);
       return EXIT.badInput;

@@ -69,6 +69,20 @@ export { clockEvent, exportXstate, importXstate, type XstateExport, type XstateE
 export { printCubes, printExpr } from './forms/expr.js';
 export { locateJsonPaths, readJsonText, withoutBom, type JsonRead } from './forms/json-file.js';
 
+// ── Behaviours: machines written from a sentence and a few parameters ────────────────────────
+export {
+  BEHAVIOURS,
+  BEHAVIOUR_WRITERS,
+  behaviourNamed,
+  writeBehaviour,
+  type BehaviourEntry,
+  type BehaviourName,
+  type Field,
+  type FieldKind,
+  type FieldValues,
+  type Written,
+} from './behaviours/index.js';
+
 // ── Analyse, build, compare: the pipeline ───────────────────────────────────────────────────
 export {
   analyse,
