@@ -27,11 +27,12 @@ import { wrapsOf } from '../physics/capstan.js';
 import type { Profile } from '../physics/profile.js';
 import type { BranchRoute, CordRun } from '../physics/routing.js';
 import {
+  cutMetres,
+  cutSixteenths,
   feetInches,
   inchesOfSixteenths,
   lengthFeetInches,
   massWords,
-  sixteenthsUp,
   sizeInches,
   type DocumentUnits,
 } from '../model/units.js';
@@ -60,10 +61,8 @@ export interface CutRow {
 const HEADER = ['group', 'item', 'piece', 'count', 'length (m)', 'size', 'where', 'note'];
 const INCH_HEADER = ['group', 'item', 'piece', 'count', 'length (in)', 'length (ft in)', 'size', 'where', 'note'];
 
-/** Metres rounded up to the millimetre (never cut short). */
-export function cutMetres(m: number): number {
-  return Math.ceil(m * 1000 - 1e-6) / 1000;
-}
+/** Metres rounded up to the millimetre (never cut short); defined with the other conversions. */
+export { cutMetres };
 
 /** How the list writes sizes, masses and heights in the profile's units. */
 interface Words {
@@ -291,7 +290,7 @@ function frameRows(build: Build, placement: Placement, profile: Profile): CutRow
 export function cutListCsv(rows: readonly CutRow[], units: DocumentUnits = 'metric'): string {
   const cells: CsvCell[][] = [units === 'inch' ? INCH_HEADER : HEADER];
   for (const r of rows) {
-    const sixteenths = r.lengthM === '' ? undefined : sixteenthsUp(r.lengthM);
+    const sixteenths = r.lengthM === '' ? undefined : cutSixteenths(r.lengthM);
     const length: CsvCell[] =
       units === 'metric'
         ? [r.lengthM]

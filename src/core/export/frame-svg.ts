@@ -38,15 +38,13 @@ import type { Placement, PlacedBayInfo, PlacedDrum } from '../phases/place/index
 import type { Profile } from '../physics/profile.js';
 import type { BranchRoute, CordRun, RoutePoint } from '../physics/routing.js';
 import {
-  feetInches,
+  cutFeetInches,
   inchesOf,
   lengthFeetInches,
   METRES_PER_INCH,
-  sixteenthsUp,
   sizeInches,
   type DocumentUnits,
 } from '../model/units.js';
-import { cutMetres } from './cut-list.js';
 import { escapeXml as x } from './escape.js';
 import { partWords } from './part-words.js';
 import { clip, round1 as r1, svgDocument, svgText, wrapWords } from './svg.js';
@@ -276,7 +274,7 @@ const METRIC_MEASURES: Measures = {
 const INCH_MEASURES: Measures = {
   units: 'inch',
   len: lengthFeetInches,
-  cut: (v) => feetInches(sixteenthsUp(cutMetres(v))),
+  cut: cutFeetInches,
   size: (mm) => sizeInches(mm / 1000),
   centre: (v) => inchesOf(v).toFixed(1),
   centreWords: 'centre in inches',

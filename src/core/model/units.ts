@@ -121,8 +121,19 @@ export function feetInches(sixteenths: number): string {
   return whole === 0 ? `${feet} ft 0 ${inches}` : `${feet} ft ${inches}`;
 }
 
-/** A cut length written in feet and inches, rounded up to the sixteenth. */
-export const cutFeetInches = (m: number): string => feetInches(sixteenthsUp(m));
+/** Metres rounded up to the millimetre: the metric cut list's cut length (never cut short). */
+export function cutMetres(m: number): number {
+  return Math.ceil(m * 1000 - 1e-6) / 1000;
+}
+
+/**
+ * The inch cut of a length, in sixteenths: its metric cut (`cutMetres`) rounded up again to the
+ * sixteenth, so that the inch piece is never shorter than the metric piece of the same build.
+ */
+export const cutSixteenths = (m: number): number => sixteenthsUp(cutMetres(m));
+
+/** A cut length written in feet and inches: `cutSixteenths` of it. */
+export const cutFeetInches = (m: number): string => feetInches(cutSixteenths(m));
 
 /** A length (a dimension on a drawing, not a cut) in feet and inches, to the nearest sixteenth. */
 export const lengthFeetInches = (m: number): string => feetInches(sixteenthsNearest(m));
