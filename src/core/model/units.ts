@@ -84,7 +84,8 @@ export const ouncesOf = (g: number): number => g / GRAMS_PER_OUNCE;
 
 /** Whole sixteenths of an inch in `m` metres, rounded up (never short). */
 export function sixteenthsUp(m: number): number {
-  return Math.ceil((m / METRES_PER_INCH) * 16 - SLACK);
+  // max(0, …): a length of nothing is 0 sixteenths, never the -0 that ceil gives just below it.
+  return Math.max(0, Math.ceil((m / METRES_PER_INCH) * 16 - SLACK));
 }
 
 /** Whole sixteenths of an inch in `m` metres, to the nearest. */
