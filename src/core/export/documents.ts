@@ -129,7 +129,7 @@ export const DOCUMENT_REGISTRY = [
     file: 'cams.svg',
     label: 'Cam templates (SVG, 1:1)',
     mime: 'image/svg+xml',
-    summary: 'the φ1 and φ2 cam discs to cut, full size, with a 100 mm check bar',
+    summary: 'the φ1 and φ2 cam discs to cut, full size, with a check bar (100 mm, or 4 in)',
     format: 'SVG, sized in millimetres at 1:1',
   },
   {
