@@ -221,6 +221,13 @@ function profileName(profile: Profile): string {
   return [a.file, a.description].filter((x) => x !== undefined && x !== '').join(' — ');
 }
 
+/** What the sheet says of a changed value with no source: a figure needs one; the units of the papers are a choice. */
+function sourceMissing(field: string): string {
+  return field === 'documentUnits'
+    ? 'the workshop’s choice of units (no figure to source)'
+    : 'NOT GIVEN — add it under "sources"';
+}
+
 function profileSection(input: DocumentsInput): Section {
   const { profile } = input;
   const changes = profileChanges(profile);
@@ -234,7 +241,7 @@ function profileSection(input: DocumentsInput): Section {
       ),
       table(
         ['field', 'value', 'default', 'source'],
-        changes.map((c) => [c.field, c.value, c.fallback, c.source ?? 'NOT GIVEN — add it under "sources"']),
+        changes.map((c) => [c.field, c.value, c.fallback, c.source ?? sourceMissing(c.field)]),
         { mono: [0, 1, 2] },
       ),
     );
