@@ -10,10 +10,9 @@
 import { readFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { analyse, buildMachine, randomFlatMachine, type EncodeStrategy } from '../src/core/index.js';
+import { analyse, buildMachine, type EncodeStrategy, flatToJsonText, randomFlatMachine } from '../src/core/index.js';
 import { partsCost } from '../src/core/phases/map/index.js';
 import { searchOnThreads } from '../src/cli/search-pool.js';
-import { flatToJsonText } from './machines.js';
 
 /** What the child prints. */
 export interface BuildFigures {

@@ -1,26 +1,8 @@
 /**
- * Machines for the benchmarks: a flat table written back into the JSON form (so a benchmark
- * includes parsing), and a reading that must succeed.
+ * Machines for the benchmarks: a reading that must succeed. (A flat table written back into the
+ * JSON form, so that a benchmark includes parsing, is the core's `flatToJsonText`.)
  */
-import { analyse, printCubes, type Analysed, type FlatMachine } from '../src/core/index.js';
-
-/** A flat table in the JSON form, one transition per row. */
-export function flatToJsonText(f: FlatMachine): string {
-  return JSON.stringify({
-    name: f.name,
-    inputs: f.inputs,
-    outputs: f.outputs,
-    start: f.states[f.start],
-    states: f.states.map((name, s) => ({
-      name,
-      transitions: f.rows[s].map((r) => ({
-        when: printCubes([r.cube], f.inputs),
-        to: f.states[r.next],
-        outputs: Object.fromEntries(f.outputs.map((o, k) => [o, r.out[k]])),
-      })),
-    })),
-  });
-}
+import { analyse, type Analysed } from '../src/core/index.js';
 
 /** The analysed machine of `text`, or a thrown error naming the file and its problems. */
 export function mustAnalyse(text: string, file: string): Analysed {

@@ -12,6 +12,7 @@ import {
   checkDrive,
   DEFAULT_PROFILE,
   driveSnapshots,
+  flatToJsonText,
   randomFlatMachine,
 } from '../src/core/index.js';
 import { benchMinimiseLogic } from './minimise-logic.js';
@@ -20,7 +21,7 @@ import { benchSimulatorAndChecks } from './sim-checks.js';
 import { median } from './median.js';
 import { benchBuildTable } from './build-table.js';
 import { benchDrawings } from './drawings.js';
-import { flatToJsonText, mustAnalyse } from './machines.js';
+import { mustAnalyse } from './machines.js';
 import { ms, type BenchRow } from './row.js';
 
 function mustBuild(a: Analysed, encoding: 'auto' | 'binary', checks = true): Built {

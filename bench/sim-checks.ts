@@ -20,8 +20,8 @@ import { readFileSync } from 'node:fs';
 import { createActor, createMachine } from 'xstate';
 import {
   type Analysed,
-  buildMachine,
   type Build,
+  buildMachine,
   type Built,
   checkEquivalence,
   checkForbiddenInput,
@@ -30,6 +30,7 @@ import {
   createRunner,
   DEFAULT_PROFILE,
   exportXstate,
+  flatToJsonText,
   randomFlatMachine,
   runChecks,
   seededRandom,
@@ -44,7 +45,7 @@ import {
   simFor,
   stateAtCode,
 } from '../src/core/sim/index.js';
-import { flatToJsonText, mustAnalyse } from './machines.js';
+import { mustAnalyse } from './machines.js';
 import { ms, type BenchRow } from './row.js';
 
 export type SimBenchRow = BenchRow;

@@ -239,7 +239,7 @@ export {
   type StepRow,
 } from './sim/script.js';
 export { runAbstract, stepAbstract, type AbstractClock, type AbstractStepResult } from './sim/abstract.js';
-export { randomFlatMachine } from './sim/random-machine.js';
+export { flatToJsonText, randomFlatMachine } from './sim/random-machine.js';
 
 // ── The technology profile and the physics of the drive ─────────────────────────────────────
 export {

@@ -160,6 +160,15 @@ describe('src/web/elements/diagram (arranging the sketch, end to end in chromium
       arranged,
     );
 
+    // Renamed on its machine line, the machine keeps its arrangement (the entry moves to the new name).
+    const renamed = `${NEW_MACHINE}\nstate ringing\n`.replace('machine new_machine', 'machine porch_lamp');
+    await page.locator('lw-editor textarea').fill(renamed);
+    await settled(page);
+    expect({ lit: await laidAt('lit'), ringing: await laidAt('ringing'), dark: await laidAt('dark') }).toEqual(
+      arranged,
+    );
+    expect(await page.evaluate(() => localStorage.getItem('latchwright.places'))).toContain('"porch_lamp"');
+
     // Back to the layout: every state where the automatic layout has it, and the arrangement forgotten.
     await relayout().click();
     await expect(relayout().count()).resolves.toBe(0);

@@ -63,6 +63,13 @@ async function rebuilt(job: string | null): Promise<void> {
   await built(page);
 }
 const job = (): Promise<string | null> => page.locator('lw-app').getAttribute('data-job');
+const keepOpen = (): Promise<boolean> =>
+  page.locator('lw-frame details.keep-tools').evaluate((d) => (d as HTMLDetailsElement).open);
+/** Open the keep field by its one line, as a person does (a part picked opens it by itself). */
+async function openKeep(): Promise<void> {
+  if (!(await keepOpen())) await page.locator('lw-frame [data-keep-tools]').click();
+  await page.locator('lw-frame select[data-keep="part"]').waitFor();
+}
 
 beforeAll(async () => {
   designer = await startDesigner();
@@ -82,6 +89,8 @@ describe('src/web/elements/frame-view (keeping parts in a bay, end to end in chr
     const first = buildWith({});
     expect(await baysOnPage()).toEqual(baysOf(first));
     expect(await bayOf('in.marble')).toBe('1');
+    // The keep field is one line until it is wanted: the drawing keeps the room.
+    expect(await keepOpen()).toBe(false);
     // Picked up by its bay's label (cords rise across the lever ends themselves).
     const from = await centre('lw-frame g[data-part="in.marble"] text', true);
     const to = await centre('lw-frame rect.lever[data-bay="7"][data-drum="1"]');
@@ -97,6 +106,11 @@ describe('src/web/elements/frame-view (keeping parts in a bay, end to end in chr
     expect(await baysOnPage()).toEqual(baysOf(buildWith({ 'in.marble': { bay: 7 } })));
     await expect(page.locator('lw-frame [data-kept-part="in.marble"]').innerText()).resolves.toContain('in.marble=7');
     await expect(page.locator('lw-app .status').innerText()).resolves.toContain('own settings');
+    // The part a drag ends on is picked, and the field opens on it.
+    expect(await keepOpen()).toBe(true);
+    await expect(page.locator('lw-frame [data-keep-status]').innerText()).resolves.toContain(
+      'in.marble stands in bay 7',
+    );
   });
 
   it("writes the pin on the code book's command line", async () => {
@@ -109,6 +123,7 @@ describe('src/web/elements/frame-view (keeping parts in a bay, end to end in chr
 
   it("shows the command line's code and hint beside a pin the build cannot keep", async () => {
     const bays = buildWith({ 'in.marble': { bay: 7 } }).placement.drums[0].bays.length;
+    await openKeep();
     await page.locator('lw-frame select[data-keep="part"]').selectOption('rst');
     await page.locator('lw-frame input[data-keep="bay"]').fill(String(bays + 5));
     await page.locator('lw-frame input[data-keep="drum"]').fill('1');
@@ -172,6 +187,7 @@ describe('src/web/elements/frame-view (keeping parts in a bay, end to end in chr
 
   it('reports a pin of a part the next machine does not have, with the command line’s LW707, until it is let go', async () => {
     const before = await job();
+    await openKeep();
     await page.locator('lw-frame select[data-keep="part"]').selectOption('in.marble');
     await page.locator('lw-frame input[data-keep="bay"]').fill('3');
     await page.locator('lw-frame button[data-do="keep"]').click();

@@ -105,6 +105,7 @@ describe('src/web (a large machine, in chromium)', () => {
     const note = await page.evaluate(() => (window as unknown as { lwPending?: string }).lwPending);
     expect(note).toContain(`Drawing the frame: ${ref.placement.bays.length} bays`);
     // Its keep list offers the bays (an option each) only once it is used: not with the drawing.
+    await page.locator('lw-frame [data-keep-tools]').click();
     const list = page.locator('lw-frame select[data-keep="part"]');
     await expect(list.locator('option').count()).resolves.toBe(1);
     await list.focus();

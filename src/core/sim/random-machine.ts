@@ -4,7 +4,10 @@
  * disjoint cubes by splitting on random inputs; each cube gets a random next state and
  * random 0/1 outputs. Row 0 of state i goes to state i+1 (the last state's to state 0), so
  * every state is reachable and the timings measure the whole table. Deterministic per seed.
+ * `flatToJsonText` writes such a table back into the JSON form (one transition per row), so a
+ * benchmark or a test can start from the text a user would have written.
  */
+import { printCubes } from '../forms/expr.js';
 import type { FlatMachine, FlatRow } from '../model/flat.js';
 import type { OutBit } from '../model/machine.js';
 import { seededRandom, type Random } from '../model/random.js';
@@ -50,4 +53,22 @@ export function randomFlatMachine(states: number, inputs: number, outputs: numbe
     rows,
     never: [],
   };
+}
+
+/** A flat table in the JSON form (docs/notation.md), one transition per row. */
+export function flatToJsonText(f: FlatMachine): string {
+  return JSON.stringify({
+    name: f.name,
+    inputs: f.inputs,
+    outputs: f.outputs,
+    start: f.states[f.start],
+    states: f.states.map((name, s) => ({
+      name,
+      transitions: f.rows[s].map((r) => ({
+        when: printCubes([r.cube], f.inputs),
+        to: f.states[r.next],
+        outputs: Object.fromEntries(f.outputs.map((o, k) => [o, r.out[k]])),
+      })),
+    })),
+  });
 }

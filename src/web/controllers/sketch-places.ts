@@ -2,7 +2,7 @@
  * The sketch's arrangement as the page keeps it: the places of the states the user moved
  * (diagram/arrange.ts), for the machine on the bench, kept in the browser's storage under the
  * machine's name so that another machine never takes them, for the last SHELF_SIZE machines
- * arranged. Places are whole pixels of the layout's coordinates, so the entry stays small.
+ * arranged; a machine renamed in its text takes its places along. Places are whole pixels of the layout's coordinates, so the entry stays small.
  * Nothing here touches the machine's text: an arrangement is a view matter.
  *
  * The stored entry is read once, when the page starts, with the other kept entries, so a broken
@@ -76,12 +76,32 @@ export class SketchPlaces {
   /** A state asked for at a spot, placed there once the layout has it. */
   private due: { readonly id: string; readonly at: Point } | undefined;
 
-  /** Take up the arrangement kept for a machine (the states of `l` only). */
-  open(machine: string, l: DiagramLayout): void {
-    this.machine = machine;
-    this.due = undefined;
+  /**
+   * Take up the arrangement kept for a machine (the states of `l` only). `was` is the layout
+   * shown until now, when the machine on the sketch changed its name by an edit of the text:
+   * when it has exactly the states of `l` and the new name has nothing kept, the machine was
+   * renamed, and its places go with it (the old name's entry moves to the new one) rather than
+   * being left behind under a name no machine has.
+   */
+  open(machine: string, l: DiagramLayout, was?: DiagramLayout): void {
     const ids = new Set(l.nodes.map((n) => n.id));
-    this.places = new Map([...unshelve(kept, machine)].filter(([id]) => ids.has(id)));
+    const mine = unshelve(kept, machine);
+    const renamed =
+      was !== undefined &&
+      this.machine !== undefined &&
+      this.places.size > 0 &&
+      mine.size === 0 &&
+      was.nodes.length === ids.size &&
+      was.nodes.every((n) => ids.has(n.id));
+    this.due = undefined;
+    if (renamed) {
+      kept = kept.filter((x) => x.machine !== this.machine);
+      this.machine = machine;
+      this.keep();
+      return;
+    }
+    this.machine = machine;
+    this.places = new Map([...mine].filter(([id]) => ids.has(id)));
   }
 
   /**

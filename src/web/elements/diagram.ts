@@ -250,7 +250,7 @@ export class LwDiagram extends LitElement {
     if (changed.has('layout') && l) {
       const was = changed.get('layout');
       const name = this.machine?.name ?? '';
-      if (!was || name !== this.arrangement.machine) this.arrangement.open(name, l);
+      if (!was || name !== this.arrangement.machine) this.arrangement.open(name, l, was);
       else this.placedNew = this.arrangement.follow(was, l);
     }
     this.shown = l && arranged(l, this.arrangement.places);

@@ -25,18 +25,26 @@ export interface KeepInput {
    * page's time for s298's 2,090 bays) is made only once the list is first used.
    */
   readonly listed: boolean;
+  /** The field is open (a part is picked, or the person opened it). */
+  readonly open: boolean;
 }
 
 /** What the field and the list do. */
 export interface KeepActions {
   /** The list is about to be used: offer every bay. */
   readonly list: () => void;
+  /** The field was opened or closed by the person (closed: nothing stays picked). */
+  open(open: boolean): void;
   pick(part: string | undefined): void;
   keep(part: string, bay: number, drum: number): void;
   release(part?: string): void;
 }
 
 export const KEEP_STYLES = css`
+  .keep-tools > summary {
+    cursor: pointer;
+    padding: 0.15rem 0;
+  }
   .keep select {
     max-width: 18rem;
   }
@@ -91,7 +99,13 @@ export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
   const by = (step: number) => (): void => {
     if (picked !== undefined && shown && shown.bay + step >= 1) act.keep(picked, shown.bay + step, shown.drum);
   };
-  return html`<div class="row keep" role="group" aria-label="Keep a part in a bay">
+  return html`<details
+    class="keep-tools"
+    ?open=${k.open}
+    @toggle=${(e: Event) => act.open((e.target as HTMLDetailsElement).open)}
+  >
+    ${keepSummary(k.open)}
+    <div class="row keep" role="group" aria-label="Keep a part in a bay">
       <label
         >Keep
         <select
@@ -146,14 +160,24 @@ export function keepField(k: KeepInput, act: KeepActions, root: ParentNode) {
         Let it go
       </button>
     </div>
-    <p class="soft" data-keep-status>${keepStatus(k)}</p>`;
+    <p class="soft" data-keep-status>${keepStatus(k)}</p>
+  </details>`;
+}
+
+/** The field's one line while closed: the drag is the way that needs no field. */
+function keepSummary(open: boolean) {
+  return html`<summary data-keep-tools>
+    Keep a part in a bay<span class="soft"
+      >${open ? '' : ': drag its lever end onto another bay, or open this to name the bay'}</span
+    >
+  </summary>`;
 }
 
 /** Where the picked part stands, and where it is kept; how to keep one when none is picked. */
 function keepStatus(k: KeepInput): string {
   const picked = k.picked;
   if (picked === undefined)
-    return 'To keep a part in a bay of your choosing, drag its lever end onto another bay, or pick it here or with a tap and name the bay.';
+    return 'Pick the part here, or with a click or a tap in the drawing, and name the bay; or drag its lever end onto another bay.';
   const here = bayOf(k.placement, picked);
   const pin = k.pins?.[picked];
   return `${picked} stands in ${here ? at(here) : 'no bay of this build'}${pin ? `; kept in ${at(spotOfPin(pin))}` : ''}.`;

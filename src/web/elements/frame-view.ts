@@ -97,6 +97,8 @@ export class LwFrame extends LitElement {
   declare routeNotes: readonly Diagnostic[];
   /** The part picked to keep in a bay. */
   private picked: string | undefined;
+  /** The person opened the keep field (a part picked opens it too). */
+  private keepOpen = false;
   /** The keep list was used on this placement: it offers every bay (frame-keep.ts). */
   private listed = false;
   /** A part dragged onto another bay (frame-drag.ts). */
@@ -344,6 +346,7 @@ export class LwFrame extends LitElement {
       placement: this.placement,
       pins: this.pins,
       picked: this.picked,
+      open: this.keepOpen || this.picked !== undefined,
       notes: this.notes,
       words: this.words,
     };
@@ -353,6 +356,12 @@ export class LwFrame extends LitElement {
     list: () => {
       if (this.listed) return;
       this.listed = true;
+      this.requestUpdate();
+    },
+    open: (open) => {
+      if (open === (this.keepOpen || this.picked !== undefined)) return;
+      this.keepOpen = open;
+      if (!open) this.picked = undefined;
       this.requestUpdate();
     },
     pick: (part) => {

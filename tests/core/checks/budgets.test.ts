@@ -6,8 +6,7 @@ import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 import { driveBudget } from '../../../src/core/physics/drive.js';
 import { lossByBranch } from '../../../src/core/physics/routing.js';
 import { analyse, buildMachine, runChecks, type Analysed, type Built } from '../../../src/core/pipeline.js';
-import { flatToJsonText } from '../../../bench/machines.js';
-import { randomFlatMachine } from '../../../src/core/sim/random-machine.js';
+import { flatToJsonText, randomFlatMachine } from '../../../src/core/sim/random-machine.js';
 import { exampleNames } from './builds.js';
 
 function built(text: string, file: string): { a: Analysed; b: Built } {

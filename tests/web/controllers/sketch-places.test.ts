@@ -102,5 +102,31 @@ describe('src/web/controllers/sketch-places', () => {
       expect(a.places.get('ringing')).toEqual({ x: Math.round(20 + s.x), y: Math.round(200 + s.y) });
       expect(parseShelf(store.items.get('latchwright.places') ?? '')?.[0].machine).toBe('new_machine');
     });
+
+    it('takes the places along when the machine is renamed in its text, and not to another machine', async () => {
+      const { SketchPlaces } = await import('../../../src/web/controllers/sketch-places.js');
+      const l = laid(NEW_MACHINE);
+      const a = new SketchPlaces();
+      a.open('new_machine', l);
+      a.move('lit', { x: 300, y: 40 });
+      // The name line edited, a keystroke at a time: the same states under each new name.
+      a.open('new_machin', l, l);
+      a.open('lamp_post', l, l);
+      expect(a.places).toEqual(new Map([['lit', { x: 300, y: 40 }]]));
+      // One entry, under the name the machine has now: the names typed on the way leave nothing.
+      expect(parseShelf(store.items.get('latchwright.places') ?? '')?.map((x) => x.machine)).toEqual(['lamp_post']);
+      // Another machine on the bench (other states) starts from the layout, and the renamed one keeps its places.
+      const other = laid(`${NEW_MACHINE}\nstate ringing\n`);
+      a.open('bell_tower', other, l);
+      expect(a.places.size).toBe(0);
+      a.open('lamp_post', l, other);
+      expect(a.places).toEqual(new Map([['lit', { x: 300, y: 40 }]]));
+      // A name that has its own places keeps them, even with the same states.
+      const b = new SketchPlaces();
+      b.open('twin', l);
+      b.move('lit', { x: 5, y: 6 });
+      b.open('lamp_post', l, l);
+      expect(b.places).toEqual(new Map([['lit', { x: 300, y: 40 }]]));
+    });
   });
 });
