@@ -362,10 +362,7 @@ describe('src/web/elements/frame-view (end to end in chromium)', () => {
     const smallest = async (): Promise<number> =>
       Number(await phone.locator('lw-frame').getAttribute('data-smallest-text-px'));
     expect(await smallest()).toBeCloseTo(MIN_TEXT_PX, 1);
-    await phone
-      .locator('lw-frame')
-      .getByRole('button', { name: /^Shrink the frame to the width/ })
-      .click();
+    await phone.locator('lw-frame').getByRole('button', { name: 'Fit width' }).click();
     expect(await smallest()).toBeGreaterThanOrEqual(MIN_TEXT_PX - 0.01);
     expect(await overflowing(phone)).toEqual([]);
     await phone.context().close();

@@ -6,7 +6,9 @@
  * through escapeXml; the markup is well-formed XML as well as HTML (every element closed), so
  * it parses either way. A drawing is embedded as an image whose source is the SVG itself, as
  * a data URL (RFC 2397, base64 of its UTF-8): its style sheet stays its own, and it scales to
- * the page like a picture.
+ * the page like a picture. Its colours keep text at 4.5:1 or more against its background, and
+ * every link of the contents is at least 24 px high (WCAG 2.2, 1.4.3 and 2.5.8; held by an
+ * accessibility checker in tests/web/accessibility.test.ts).
  */
 import type { Block, Doc, FigureBlock, TableBlock } from './doc.js';
 import { escapeXml as x } from './escape.js';
@@ -19,7 +21,7 @@ h1 { font-size: 1.7rem; margin: 0 0 .2rem; }
 .subtitle { color: #50575e; margin: 0 0 1.5rem; }
 h2 { font-size: 1.25rem; border-bottom: 2px solid #c9d3cf; padding-bottom: .2rem; margin-top: 2.2rem; }
 nav ol { columns: 2; color: #50575e; }
-nav a { color: #2c4a5a; }
+nav a { color: #2c4a5a; display: inline-block; min-height: 24px; padding: 2px 0; }
 table { border-collapse: collapse; margin: .6rem 0 1rem; font-size: .92rem; }
 caption { text-align: left; color: #50575e; font-size: .88rem; padding-bottom: .2rem; }
 th, td { border: 1px solid #d4dad7; padding: .22rem .5rem; text-align: left; vertical-align: top; }

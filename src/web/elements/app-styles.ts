@@ -144,9 +144,6 @@ export const appStyles = css`
   lw-diagram {
     flex: 1;
   }
-  lw-diagram.stale {
-    opacity: 0.6;
-  }
   .stale {
     margin: 0 0 0.5rem;
     padding: 0.3rem 0.6rem;

@@ -143,7 +143,7 @@ export class LwBench extends LitElement {
           <option value="">Examples…</option>
           ${EXAMPLES.map((e, i) => html`<option value=${i}>${e.title}</option>`)}
         </select>
-        <button @click=${() => emit(this, 'copy-link', {})} aria-label="Copy a link that carries this machine">
+        <button @click=${() => emit(this, 'copy-link', {})} title="Copy a link that carries this machine">
           Copy link
         </button>
         <button

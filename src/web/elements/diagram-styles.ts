@@ -87,6 +87,10 @@ export const diagramStyles = css`
   .node.unreachable {
     opacity: 0.55;
   }
+  /* The last sketch that read, while the text does not (app.ts): the drawing dimmed, its tools and key as ever. */
+  :host(.stale) svg {
+    opacity: 0.6;
+  }
   .node.unreachable rect.body {
     stroke-dasharray: 4 3;
   }

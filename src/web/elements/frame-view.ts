@@ -185,7 +185,7 @@ export class LwFrame extends LitElement {
         <button @click=${() => this.setZoom(this.zoom / 1.25)} aria-label="Shrink the frame">−</button>
         <button
           @click=${() => this.fitWidth(size?.w ?? 0)}
-          aria-label="Shrink the frame to the width of its box, as far as its text stays readable"
+          title="Shrink the frame to the width of its box, as far as its text stays readable"
         >
           Fit width
         </button>

@@ -227,7 +227,7 @@ export function rulesSection(rules: readonly RuleViolation[], replay: (r: RuleVi
               r.violation.length > 0 && r.upsets.length > 0
                 ? html`<button
                     @click=${() => replay(r)}
-                    aria-label=${`Try breaking the rule “${RULE_WORDS[r.rule]}” in the trial run`}
+                    aria-label=${`Try it in the trial run: break the rule “${RULE_WORDS[r.rule]}”`}
                   >
                     Try it in the trial run
                   </button>`

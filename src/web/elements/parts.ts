@@ -228,13 +228,8 @@ export class LwParts extends LitElement {
           ? html`<div class="row">
                 <button @click=${() => this.setZoom(this.zoom * 1.25)} aria-label="Enlarge the schematic">+</button>
                 <button @click=${() => this.setZoom(this.zoom / 1.25)} aria-label="Shrink the schematic">−</button>
-                <button @click=${() => this.setZoom(1)} aria-label="Show the schematic at its own size">
-                  Actual size
-                </button>
-                <button
-                  @click=${() => this.fitWidth(s.svg ?? '')}
-                  aria-label="Shrink the schematic to the width of its box"
-                >
+                <button @click=${() => this.setZoom(1)} title="Show the schematic at its own size">Actual size</button>
+                <button @click=${() => this.fitWidth(s.svg ?? '')} title="Shrink the schematic to the width of its box">
                   Fit width
                 </button>
               </div>

@@ -128,12 +128,11 @@ export class LwProblems extends LitElement {
     const line = d.location.line;
     const path = d.location.path;
     const whole = line === undefined && (path === undefined || path === '$');
-    const where = line !== undefined ? `at line ${line}` : whole ? 'about the whole machine' : `at ${path}`;
     return html`<li class=${d.severity} data-line=${line ?? 'machine'}>
       <button
         ?disabled=${line === undefined}
         @click=${() => emit(this, 'reveal', { line: line ?? 1, column: d.location.column ?? 1 })}
-        aria-label=${`${d.severity} ${d.code} ${where}: ${d.message}${d.hint ? `. ${d.hint}` : ''}`}
+        title=${line !== undefined ? `Show line ${line} in the text` : ''}
       >
         <span class="sev"
           >${d.severity}<br />${line !== undefined ? `line ${line}` : whole ? 'whole machine' : path}</span

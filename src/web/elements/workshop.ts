@@ -152,7 +152,7 @@ export class LwWorkshop extends LitElement {
         <div class="bar" role="toolbar" aria-label="Profile file">
           <button
             @click=${() => this.renderRoot.querySelector<HTMLInputElement>('input[type=file]')?.click()}
-            aria-label="Open a technology profile file (JSON)"
+            title="Open a technology profile file (JSON)"
           >
             Open a profile…
           </button>
