@@ -25,14 +25,17 @@ Usage:
       state counts and which states merge.
   latchwright build FILE [--encoding NAME] [--profile FILE] [--seed N]
                          [--unused dont-care|STATE] [--pin PART=BAY[@DRUM] …]
-                         [--json] [--out DIR [--force]]
+                         [--shop-units metric|inch] [--json] [--out DIR [--force]]
       Synthesise the lever machine, place every part in a bay along the drum,
       route every cord, run every check, print the report (or the build
       documents into DIR: sheets, frame drawing, cam templates, cut list …).
       --pin keeps a part in a bay, counted from 1 at the visitor end of drum 1
       (or of drum DRUM): --pin rst=22 --pin m0=5@2; several may be given, or
       joined with commas. Part ids are in netlist.json; a latch id pins its
-      set side, and its reset side takes the next bay.
+      set side, and its reset side takes the next bay. --shop-units inch writes
+      the cut list, drawings, bill of materials and build sheet in feet, inches
+      and ounces for this build (the profile's documentUnits; netlist.json
+      stays SI).
   latchwright compare FILE [--profile FILE] [--seed N] [--json]
       Every state encoding side by side, the cheapest marked.
   latchwright step FILE [--inputs SEQ.json] [--json] [--abstract] [--encoding NAME]
@@ -57,7 +60,7 @@ function encodingLines(): string {
 }
 
 const SPEC = {
-  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out'],
+  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out', 'shop-units'],
   switches: ['json', 'force', 'abstract', 'help', 'version'],
   lists: ['pin'],
 };
