@@ -9,8 +9,9 @@ import { runBuild } from './commands/build.js';
 import { runCompare } from './commands/compare.js';
 import { runStepCommand } from './commands/step.js';
 import { runDemo } from './commands/demo.js';
+import { runWrite, WRITE_SPEC } from './commands/write.js';
 import { RunContext } from './commands/common.js';
-import { DEFAULT_ENCODING, diag, didYouMean, ENCODING_REGISTRY } from '../core/index.js';
+import { BEHAVIOURS, DEFAULT_ENCODING, diag, didYouMean, ENCODING_REGISTRY } from '../core/index.js';
 import { nodeIo, type CliIo } from './io.js';
 import { EXIT, exitStatusText } from './exit.js';
 
@@ -24,7 +25,8 @@ Usage:
       state counts and which states merge.
   latchwright build FILE [--encoding NAME] [--profile FILE] [--seed N]
                          [--unused dont-care|STATE] [--pin PART=BAY[@DRUM] …]
-                         [--json] [--out DIR [--force]] [--saw STEP:WHAT=POSITION]
+                         [--shop-units metric|inch] [--json] [--out DIR [--force]]
+                         [--saw STEP:WHAT=POSITION]
       Synthesise the lever machine, place every part in a bay along the drum,
       route every cord, run every check, print the report (or the build
       documents into DIR: sheets, frame drawing, cam templates, cut list …).
@@ -34,7 +36,10 @@ Usage:
       --pin keeps a part in a bay, counted from 1 at the visitor end of drum 1
       (or of drum DRUM): --pin rst=22 --pin m0=5@2; several may be given, or
       joined with commas. Part ids are in netlist.json; a latch id pins its
-      set side, and its reset side takes the next bay.
+      set side, and its reset side takes the next bay. --shop-units inch writes
+      the cut list, drawings, bill of materials and build sheet in feet, inches
+      and ounces for this build (the profile's documentUnits; netlist.json
+      stays SI).
   latchwright compare FILE [--profile FILE] [--seed N] [--json]
       Every state encoding side by side, the cheapest marked.
   latchwright step FILE [--inputs SEQ.json] [--json] [--abstract] [--encoding NAME]
@@ -43,6 +48,10 @@ Usage:
       JSON array of input settings (one object per clock).
   latchwright demo
       Build and check the bundled demo machine and print its report.
+  latchwright write BEHAVIOUR [--OPTION VALUE …] [--json]
+      Write the machine of a behaviour (${BEHAVIOURS.map((b) => b.name).join(', ')}) in the
+      text form on standard output (the JSON form with --json), ready for check,
+      build or step. \`latchwright write --help\` lists each behaviour's options.
 
 Encodings (--encoding NAME, default ${DEFAULT_ENCODING}):
 ${encodingLines()}
@@ -55,7 +64,7 @@ function encodingLines(): string {
 }
 
 const SPEC = {
-  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out', 'saw'],
+  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out', 'shop-units', 'saw'],
   switches: ['json', 'force', 'abstract', 'help', 'version'],
   lists: ['pin'],
 };
@@ -63,7 +72,9 @@ const SPEC = {
 export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promise<number> {
   let ctx = new RunContext(io, argv.includes('--json'));
   try {
-    const args = parseArgs(argv, SPEC);
+    const first = parseArgs(argv, SPEC);
+    // `write` takes the options of its behaviours (--order, --every …), which no other command takes.
+    const args = first.command === 'write' ? parseArgs(argv, WRITE_SPEC) : first;
     ctx = new RunContext(io, args.flags.json === true);
     return await dispatch(args, ctx);
   } catch (e) {
@@ -87,12 +98,14 @@ async function dispatch(args: ParsedArgs, ctx: RunContext): Promise<number> {
     io.out('latchwright 0.1.0\n');
     return EXIT.ok;
   }
+  if (args.command === 'write' && args.errors.length === 0) return runWrite(args, ctx);
   if (args.flags.help || args.command === undefined || args.command === 'help') {
     io.out(USAGE + '\n');
     return args.command === undefined && !args.flags.help ? EXIT.badInput : EXIT.ok;
   }
   if (args.errors.length > 0) {
-    const known = [...SPEC.values, ...SPEC.switches, ...SPEC.lists].map((o) => `--${o}`);
+    const spec = args.command === 'write' ? WRITE_SPEC : SPEC;
+    const known = [...spec.values, ...spec.switches, ...(spec.lists ?? [])].map((o) => `--${o}`);
     ctx.fail(
       args.errors.map((e) => {
         const guess = didYouMean(e.option, known);
@@ -125,7 +138,7 @@ async function dispatch(args: ParsedArgs, ctx: RunContext): Promise<number> {
           'LW700',
           `unknown command '${args.command}'`,
           { path: args.command },
-          'commands: check, build, compare, step, demo',
+          'commands: check, build, compare, step, demo, write',
         ),
       ]);
       return EXIT.badInput;

@@ -52,6 +52,20 @@ export {
 export { seededRandom, type Random } from './model/random.js';
 export { isJsonObject, nameRecord, nameRecordOf, ownValue } from './model/records.js';
 export { counted } from './model/words.js';
+export {
+  cutFeetInches,
+  DOCUMENT_UNITS,
+  documentUnitsGuess,
+  feetInches,
+  GRAMS_PER_OUNCE,
+  GRAMS_PER_POUND,
+  massWords,
+  METRES_PER_INCH,
+  parseFeetInches,
+  sixteenthsUp,
+  sizeInches,
+  type DocumentUnits,
+} from './model/units.js';
 
 // ── Parse and print: the text form, the JSON form, xstate configs ───────────────────────────
 export { detectForm, readMachine, readMachineValue, type MachineForm, type ReadResult } from './forms/detect.js';
@@ -68,6 +82,20 @@ export {
 export { clockEvent, exportXstate, importXstate, type XstateExport, type XstateExportOptions } from './forms/xstate.js';
 export { printCubes, printExpr } from './forms/expr.js';
 export { locateJsonPaths, readJsonText, withoutBom, type JsonRead } from './forms/json-file.js';
+
+// ── Behaviours: machines written from a sentence and a few parameters ────────────────────────
+export {
+  BEHAVIOURS,
+  BEHAVIOUR_WRITERS,
+  behaviourNamed,
+  writeBehaviour,
+  type BehaviourEntry,
+  type BehaviourName,
+  type Field,
+  type FieldKind,
+  type FieldValues,
+  type Written,
+} from './behaviours/index.js';
 
 // ── Analyse, build, compare: the pipeline ───────────────────────────────────────────────────
 export {

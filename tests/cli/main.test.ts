@@ -12,7 +12,7 @@ import { DEFAULT_ENCODING, ENCODING_REGISTRY } from '../../src/core/index.js';
 import type { CliIo } from '../../src/cli/io.js';
 import { expectNoStack, run } from './support.js';
 
-const COMMANDS = ['check', 'build', 'compare', 'step', 'demo'];
+const COMMANDS = ['check', 'build', 'compare', 'step', 'demo', 'write'];
 
 describe('cli/main', () => {
   it('exit statuses are 0 all good, 1 a check failed, 2 bad input, each meaning given once', () => {
@@ -51,7 +51,7 @@ describe('cli/main', () => {
     const r = await run(['assemble', 'examples/marble-bell.lw']);
     expect(r.code).toBe(2);
     expect(r.err).toBe(
-      "assemble: error LW700: unknown command 'assemble' — commands: check, build, compare, step, demo\n",
+      "assemble: error LW700: unknown command 'assemble' — commands: check, build, compare, step, demo, write\n",
     );
     expect(r.out).toBe('');
   });

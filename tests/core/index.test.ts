@@ -131,6 +131,7 @@ describe('core/index', () => {
       documents: ['buildDocuments', 'DOCUMENT_REGISTRY', 'DOCUMENT_MAKERS', 'buildReport'],
       encodings: ['encode', 'ENCODING_REGISTRY', 'ENCODING_RUNS'],
       profile: ['loadProfile', 'DEFAULT_PROFILE'],
+      behaviours: ['BEHAVIOURS', 'BEHAVIOUR_WRITERS', 'writeBehaviour'],
     };
     for (const [purpose, wanted] of Object.entries(purposes))
       for (const w of wanted) expect(names, `${purpose}: ${w}`).toContain(w);

@@ -1,7 +1,7 @@
 /**
  * The layer rule of CONVENTIONS.md, enforced on every import in src/ and bench/:
  *
- *   model ← forms, physics ← phases ← sim ← checks ← pipeline ← export, report ← index ← cli, web
+ *   model ← forms, physics, behaviours ← phases ← sim ← checks ← pipeline ← export, report ← index ← cli, web
  *
  * A module may import from its own layer or from a layer below it, never from a layer above
  * nor from a peer (layers at the same height, like forms and physics, or export and report,
@@ -21,6 +21,8 @@ const LAYERS: readonly { readonly name: string; readonly height: number; readonl
   { name: 'model', height: 0, holds: /^src\/core\/model\// },
   { name: 'forms', height: 1, holds: /^src\/core\/forms\// },
   { name: 'physics', height: 1, holds: /^src\/core\/physics\// },
+  // Behaviours write machines in the text form from a few parameters; they need only the model.
+  { name: 'behaviours', height: 1, holds: /^src\/core\/behaviours\// },
   { name: 'phases', height: 2, holds: /^src\/core\/phases\// },
   { name: 'sim', height: 3, holds: /^src\/core\/sim\// },
   { name: 'checks', height: 4, holds: /^src\/core\/checks\// },

@@ -1,6 +1,6 @@
 /**
- * The doc test of the user documentation: every command docs/guide.md and
- * docs/operating-and-safety.md show is run, and what it prints must still be what the page
+ * The doc test of the user documentation: every command docs/guide.md,
+ * docs/operating-and-safety.md and docs/behaviours.md show is run, and what it prints must still be what the page
  * shows; every file a page quotes must still say what the page quotes; every relative link
  * must lead somewhere.
  *
@@ -31,7 +31,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { OPERATING_RULES, RULE_WORDS } from '../../src/core/sim/hand.js';
 import { commandsOf, DocRunner, linesOf, mismatch, parseBlocks, type DocBlock } from './transcript.js';
 
-const PAGES = ['docs/guide.md', 'docs/operating-and-safety.md'] as const;
+const PAGES = ['docs/guide.md', 'docs/operating-and-safety.md', 'docs/behaviours.md'] as const;
 const runner = new DocRunner();
 afterAll(() => rmSync(runner.tempRoot, { recursive: true, force: true }));
 

@@ -4,7 +4,7 @@
  * levels A and AA (W3C Recommendations; among them 1.4.3 contrast of text at least 4.5:1,
  * 2.5.3 a control's visible label part of its accessible name, 4.1.2 every control named),
  * run in Chromium on every view of the page in the light and the dark theme, on a phone, with
- * the notation card open, with a text that does not read, and on the build sheet and the
+ * the notation card open, the behaviour panel open, with a text that does not read, and on the build sheet and the
  * commissioning sheet.
  *
  * One reading is set aside, and only where named: 2.5.3 on the sketch's state cards. A card
@@ -95,6 +95,21 @@ describe('the designer and its documents against WCAG 2.2 A/AA (axe-core, in chr
       await context.close();
     }, 180_000);
   }
+
+  it('the behaviour panel, with a field that cannot be used, in both themes', async () => {
+    const found: string[] = [];
+    for (const scheme of ['light', 'dark'] as const) {
+      const context = await designer.context({ ...DESKTOP, colorScheme: scheme });
+      const page = await designerPage(context);
+      await page.getByRole('button', { name: 'From a behaviour…' }).click();
+      await page.locator('lw-behaviour-card dialog').waitFor();
+      found.push(...(await violations(page)).map((v) => `${scheme} behaviour panel: ${v}`));
+      await page.locator('lw-behaviour-card #field-every').fill('1');
+      found.push(...(await violations(page)).map((v) => `${scheme} behaviour panel, refused: ${v}`));
+      await context.close();
+    }
+    expect(found).toEqual([]);
+  }, 180_000);
 
   it('on a phone', async () => {
     const context = await designer.context(PHONE);

@@ -7,7 +7,9 @@
  * says own settings and the code book's command names the profile. A bad value shows its code
  * and hint while the build keeps the last good profile; a reload keeps the profile; one click
  * goes back to the shipped defaults. A figure of the folded part of the form (the stage time)
- * gives the timing check the command line gives for a profile file naming the same figure.
+ * gives the timing check the command line gives for a profile file naming the same figure. The
+ * choice of inches on the workshop's papers reaches the frame view and the cut list the page
+ * downloads, and the profile it saves.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync, writeFileSync } from 'node:fs';
@@ -103,6 +105,47 @@ describe('src/web/elements/workshop (end to end in chromium)', () => {
     await builtWith(false);
     expect(await headroom()).toContain('(μ = 0.25 now)');
     expect(await status().innerText()).not.toContain('own settings');
+  });
+
+  it('writes the papers in inches when the Shop view says so: the frame view and the cut list follow, and the saved profile names it', async () => {
+    await tab('Shop');
+    await page.getByRole('radio', { name: /^Inches/ }).check();
+    await builtWith(true);
+    // The frame view: the key's positions and the drum lengths in inches (the drawing is the core's frameSvg).
+    await tab('Frame & cords');
+    await page.locator('lw-frame .sheet svg').waitFor();
+    const frame = await page.locator('lw-frame .sheet svg').innerHTML();
+    expect(frame).toContain('centre in inches from the visitor end');
+    expect(frame).toMatch(/drum 1: (\d+ ft )?\d+( \d+\/\d+)? in, \d+ bays|drum 1: \d+ ft, \d+ bays/);
+    expect(frame).not.toContain('centre in metres');
+    // The cut list from the page is the inch list: its header names the unit, and every cord piece
+    // is a whole number of sixteenths at least as long as the command line's metric piece.
+    await tab('Parts & forces');
+    await page.locator('lw-parts summary', { hasText: 'One document at a time' }).click();
+    const cut = await downloaded(page, () => page.locator('lw-parts button[data-doc="cut-list.csv"]').click());
+    const inch = readFileSync(cut.path, 'utf8').split('\r\n');
+    expect(inch[0]).toBe('group,item,piece,count,length (in),length (ft in),size,where,note');
+    const dir = tempDir('lw-units-');
+    const cli = await run(['build', 'examples/marble-bell.lw', '--out', join(dir, 'docs')]);
+    expect(cli.code).toBe(0);
+    const metric = readFileSync(join(dir, 'docs', 'cut-list.csv'), 'utf8').split('\r\n');
+    const trunk = (lines: string[]): string[] | undefined =>
+      lines.find((l) => l.startsWith('cord,c.in.marble,trunk,'))?.split(',');
+    const m = Number(trunk(metric)?.[4]);
+    const i = Number(trunk(inch)?.[4]);
+    expect(Number.isInteger(i * 16)).toBe(true);
+    // 1 in = 0.0254 m exactly (NIST SP 811 B.8).
+    expect(i * 0.0254).toBeGreaterThanOrEqual(m - 1e-9);
+    expect(i * 0.0254).toBeLessThan(m + 0.0254 / 16);
+    // Saved, the profile names the choice; the command line reads it back.
+    await tab('Shop');
+    const saved = await downloaded(page, () => page.getByRole('button', { name: 'Save the profile' }).click());
+    const value = JSON.parse(readFileSync(saved.path, 'utf8')) as Record<string, unknown>;
+    expect(value.documentUnits).toBe('inch');
+    expect(loadProfile(value, saved.name).profile?.documentUnits).toBe('inch');
+    await page.getByRole('radio', { name: /^Metric/ }).check();
+    await builtWith(false);
+    removeTempDirs();
   });
 
   it('takes every other figure of the profile too: a stage time typed there times the clock as --profile does', async () => {

@@ -7,6 +7,9 @@ import {
   DEFAULT_ENCODING,
   DEFAULT_PROFILE,
   diag,
+  DOCUMENT_UNITS,
+  documentUnitsGuess,
+  type DocumentUnits,
   type Diagnostic,
   didYouMean,
   encodingEntry,
@@ -22,18 +25,47 @@ import { loadSource, readJsonArg, type RunContext } from './common.js';
 import { progressLine } from '../progress.js';
 import { searchOnThreads } from '../search-pool.js';
 
-/** The profile named by --profile, over the defaults, or the diagnostics of why it cannot be used. */
+/**
+ * The profile named by --profile, over the defaults, with --shop-units over its `documentUnits`
+ * for this one run; or the diagnostics of why it cannot be used.
+ */
 export function profileFrom(
   args: ParsedArgs,
   ctx: RunContext,
 ): { profile: Profile; diagnostics: Diagnostic[] } | { error: readonly Diagnostic[] } {
+  const units = shopUnitsFrom(args);
+  if (typeof units === 'object') return { error: [units] };
   const file = args.flags.profile;
-  if (typeof file !== 'string') return { profile: DEFAULT_PROFILE, diagnostics: [] };
+  const read = typeof file === 'string' ? profileFile(file, ctx) : { profile: DEFAULT_PROFILE, diagnostics: [] };
+  if ('error' in read || units === undefined) return read;
+  return { profile: { ...read.profile, documentUnits: units }, diagnostics: read.diagnostics };
+}
+
+function profileFile(
+  file: string,
+  ctx: RunContext,
+): { profile: Profile; diagnostics: Diagnostic[] } | { error: readonly Diagnostic[] } {
   const r = readJsonArg(file, ctx, 'the profile');
   if (!r.ok) return { error: r.diagnostics };
   const p = loadProfile(r.value, file);
   if (!p.profile || hasErrors(p.diagnostics)) return { error: p.diagnostics };
   return { profile: p.profile, diagnostics: p.diagnostics };
+}
+
+/** The --shop-units option: undefined when absent, else one of DOCUMENT_UNITS, or LW700 with a did-you-mean hint. */
+export function shopUnitsFrom(args: ParsedArgs): DocumentUnits | undefined | Diagnostic {
+  const raw = args.flags['shop-units'];
+  if (raw === undefined) return undefined;
+  const name = String(raw);
+  const known = DOCUMENT_UNITS.find((u) => u === name);
+  if (known) return known;
+  const guess = didYouMean(name, DOCUMENT_UNITS) ?? documentUnitsGuess(name);
+  return diag(
+    'LW700',
+    `--shop-units ${name} is not a system of units the documents know${guess ? ` — did you mean '${guess}'?` : ''}`,
+    { path: '--shop-units' },
+    `choose ${DOCUMENT_UNITS.join(' or ')}: the units the cut list, drawings, bill of materials and build sheet show lengths and masses in (the profile's documentUnits)`,
+  );
 }
 
 export type BuildAttempt =

@@ -12,6 +12,9 @@
  * rate and cams; the wiring list; the operating rules with what breaking each one does (from
  * the forbidden-input check); the state diagram and the schematic. Figures come from the
  * checks the pipeline ran; a section whose check is missing says so rather than guessing.
+ * Units: lengths and masses follow the profile's `documentUnits` (model/units.ts): metres and
+ * grams, or feet, inches and ounces (a tension is written as the weight that would pull it, so in
+ * ounces too); torques and powers stay SI (N·m, W).
  * Pure: no I/O; text only (renderers escape), and the drawings as SVG texts they embed.
  */
 import type { Build } from '../model/build.js';
@@ -31,6 +34,8 @@ import { momentWords, type SnapshotPlace } from '../sim/snapshots.js';
 import { findCheck, type CheckResult } from '../checks/results.js';
 import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { num } from './readable.js';
+import { cutFeetInches, inchesOf, lengthFeetInches, massWords, ouncesOf } from '../model/units.js';
+import { bomRowIn } from './bom-csv.js';
 import { equationBlocks, stateTableBlocks } from './sheet-logic.js';
 import { wiringRows } from './wiring.js';
 import { stagesOf, STAGE_WORDS } from './stages.js';
@@ -90,6 +95,52 @@ export const CAUTIONS: readonly string[] = [
   'Defer to local codes and licensed practice.',
 ];
 
+/** How the sheet writes lengths and masses in the profile's units. */
+interface SheetUnits {
+  /** A mass or tension in a table cell (its unit in the column's head). */
+  readonly mass: (g: number) => string;
+  /** The mass unit for a column's head: `g`, `oz`. */
+  readonly massUnit: string;
+  /** A mass in running text: `300 g`, `10.6 oz`. */
+  readonly massText: (g: number) => string;
+  /** A dimension in running text, to `digits` in metric: `1.22 m`, `4 ft 0 1/16 in`. */
+  readonly len: (m: number, digits?: number) => string;
+  /** A position along the drum in a table cell, and its column's unit. */
+  readonly along: (m: number) => string;
+  readonly alongUnit: string;
+  /** A length to cut in a table cell, and its column's head. */
+  readonly cut: (m: number) => string;
+  readonly cutHead: string;
+  /** The cam template's check bar. */
+  readonly checkBar: string;
+}
+
+const METRIC_SHEET: SheetUnits = {
+  mass: (g) => num(g, 1),
+  massUnit: 'g',
+  massText: (g) => `${num(g, 1)} g`,
+  len: (m, digits) => `${num(m, digits)} m`,
+  along: (m) => num(m, 3),
+  alongUnit: 'm',
+  cut: (m) => num(m, 3),
+  cutHead: 'length (m)',
+  checkBar: '100 mm',
+};
+
+const INCH_SHEET: SheetUnits = {
+  mass: (g) => num(ouncesOf(g), 1),
+  massUnit: 'oz',
+  massText: massWords,
+  len: (m) => lengthFeetInches(m),
+  along: (m) => num(inchesOf(m), 1),
+  alongUnit: 'in',
+  cut: cutFeetInches,
+  cutHead: 'length to cut',
+  checkBar: '4 in',
+};
+
+const unitsOf = (profile: Profile): SheetUnits => (profile.documentUnits === 'inch' ? INCH_SHEET : METRIC_SHEET);
+
 /** Longest description the sheet prints in full (characters). */
 const DESCRIPTION_MAX = 20_000;
 
@@ -112,7 +163,7 @@ function summarySection(input: DocumentsInput): Section {
       [
         ['machine', f.name],
         ['inputs', f.inputs.join(', ') || '(none)'],
-        ['outputs', outputsLine(build) || '(none)'],
+        ['outputs', outputsLine(build, unitsOf(input.profile)) || '(none)'],
         ['states', statesLine],
         ['start state', f.states[f.start]],
         [
@@ -146,12 +197,12 @@ function summarySection(input: DocumentsInput): Section {
 }
 
 /** `fill (actuator, 300 g), bell (flag)`: every output and what shows it. */
-function outputsLine(build: Build): string {
+function outputsLine(build: Build, u: SheetUnits): string {
   const parts = new Map(build.netlist.parts.map((q) => [q.id, q]));
   return build.machine.outputs
     .map((o) => {
       const part = parts.get(build.signals.outputs[o] ?? '');
-      return part?.kind === 'actuator' ? `${o} (actuator, ${num(part.loadG, 1)} g)` : `${o} (flag)`;
+      return part?.kind === 'actuator' ? `${o} (actuator, ${u.massText(part.loadG)})` : `${o} (flag)`;
     })
     .join(', ');
 }
@@ -170,6 +221,13 @@ function profileName(profile: Profile): string {
   return [a.file, a.description].filter((x) => x !== undefined && x !== '').join(' — ');
 }
 
+/** What the sheet says of a changed value with no source: a figure needs one; the units of the papers are a choice. */
+function sourceMissing(field: string): string {
+  return field === 'documentUnits'
+    ? 'the workshop’s choice of units (no figure to source)'
+    : 'NOT GIVEN — add it under "sources"';
+}
+
 function profileSection(input: DocumentsInput): Section {
   const { profile } = input;
   const changes = profileChanges(profile);
@@ -183,7 +241,7 @@ function profileSection(input: DocumentsInput): Section {
       ),
       table(
         ['field', 'value', 'default', 'source'],
-        changes.map((c) => [c.field, c.value, c.fallback, c.source ?? 'NOT GIVEN — add it under "sources"']),
+        changes.map((c) => [c.field, c.value, c.fallback, c.source ?? sourceMissing(c.field)]),
         { mono: [0, 1, 2] },
       ),
     );
@@ -251,7 +309,9 @@ function partsSection(input: DocumentsInput): Section {
         : []),
       table(
         ['item', 'kind', 'count', 'each', 'unit', 'total', 'note'],
-        bom.map((r) => [r.item, r.kind, String(r.count), num(r.each, 3), r.unit, num(r.total, 3), r.note]),
+        bom
+          .map((r) => bomRowIn(r, profile.documentUnits))
+          .map((r) => [r.item, r.kind, String(r.count), num(r.each, 3), r.unit, num(r.total, 3), r.note]),
         { caption: 'Bill of materials' },
       ),
       table(
@@ -274,6 +334,7 @@ function driveSection(input: DocumentsInput): Section {
   const d = findCheck(input.checks, 'drive');
   const losses = input.placement ? lossByBranch(input.placement.routing) : undefined;
   const budgets = [...(d?.drivers ?? driveBudget(build.netlist, profile, losses))].sort((a, b) => a.margin - b.margin);
+  const u = unitsOf(profile);
   const blocks: Block[] = [
     p(
       `Capstan equation: a cord wrapped ${num(profile.wraps)} turns on the drum (μ = ${num(profile.mu)}) holds up to e^(μθ) = ${num(Math.exp(profile.mu * 2 * Math.PI * profile.wraps))} times its hold tension. Each branch's load is multiplied by its routing loss as routed in the frame: 1/η for every pulley it passes, e^(μ_pin·α) for every pin. Margin = available ÷ load; the design rule asks at least ${num(profile.minMargin)}. Weakest first.`,
@@ -285,9 +346,9 @@ function driveSection(input: DocumentsInput): Section {
         'cords',
         'turns',
         'branches',
-        'hold (g)',
-        'available (g)',
-        'load (g)',
+        `hold (${u.massUnit})`,
+        `available (${u.massUnit})`,
+        `load (${u.massUnit})`,
         'margin',
         'within budget',
       ],
@@ -297,9 +358,9 @@ function driveSection(input: DocumentsInput): Section {
         b.cords.join(', '),
         num(b.wraps),
         String(b.branches.length),
-        num(b.holdG, 1),
-        num(b.availableG, 1),
-        num(b.loadG, 1),
+        u.mass(b.holdG),
+        u.mass(b.availableG),
+        u.mass(b.loadG),
         num(b.margin),
         b.ok ? 'yes' : 'NO',
       ]),
@@ -323,7 +384,7 @@ function driveSection(input: DocumentsInput): Section {
           ['worst drum torque', `${num(d.worstTorqueNm, 3)} N·m`],
           ...(d.worstAt ? [['worst drum torque at', worstPlace(d.worstAt)]] : []),
           ['worst drum power', `${num(d.worstPowerW, 2)} W at ${num(profile.drumRpm)} rev/min`],
-          ['hardest lever pull', `${num(d.operatorForceMaxG, 1)} g`],
+          ['hardest lever pull', u.massText(d.operatorForceMaxG)],
         ],
       ),
     );
@@ -346,16 +407,17 @@ function outputsTable(input: DocumentsInput, loads: Headroom['outputs']): Block 
   const { build, profile } = input;
   const parts = new Map(build.netlist.parts.map((q) => [q.id, q]));
   const m = num(profile.minMargin);
+  const u = unitsOf(profile);
   const rows = build.machine.outputs.map((o) => {
     const part = parts.get(build.signals.outputs[o] ?? '');
     const l = loads[o];
     if (part?.kind === 'actuator' && l)
-      return [o, 'actuator', num(l.loadG, 1), num(l.maxLoadG, 1), num(l.margin), 'its load, by its own capstan'];
+      return [o, 'actuator', u.mass(l.loadG), u.mass(l.maxLoadG), num(l.margin), 'its load, by its own capstan'];
     if (part?.kind === 'actuator')
       return [
         o,
         'actuator',
-        num(part.loadG, 1),
+        u.mass(part.loadG),
         '—',
         '—',
         `held ${part.fixed === 1 ? 'lifted' : 'at rest'}: the output is constant`,
@@ -370,7 +432,14 @@ function outputsTable(input: DocumentsInput, loads: Headroom['outputs']): Block 
     ];
   });
   return table(
-    ['output', 'shown by', 'load (g)', `most it can lift at margin ${m} (g)`, 'margin', 'what it moves'],
+    [
+      'output',
+      'shown by',
+      `load (${u.massUnit})`,
+      `most it can lift at margin ${m} (${u.massUnit})`,
+      'margin',
+      'what it moves',
+    ],
     rows,
     {
       caption: 'What each output moves',
@@ -425,6 +494,7 @@ function timingSection(input: DocumentsInput): Section {
 
 function wiringSection(input: DocumentsInput): Section {
   const rows = wiringRows(input.build.netlist, input.profile, input.placement);
+  const u = unitsOf(input.profile);
   return {
     id: 'wiring',
     title: 'Wiring list',
@@ -433,7 +503,20 @@ function wiringSection(input: DocumentsInput): Section {
         'One row per cord branch, in tying order: every cord of one capstan before the next, from the levers to the flags. Bays are written drum·bay. The same list is in wiring.csv; the length of every piece is in cut-list.csv.',
       ),
       table(
-        ['step', 'cord', 'from', 'side', 'turns', 'to', 'port', 'bays', 'length (m)', 'routing', 'load (g)', 'margin'],
+        [
+          'step',
+          'cord',
+          'from',
+          'side',
+          'turns',
+          'to',
+          'port',
+          'bays',
+          u.cutHead,
+          'routing',
+          `load (${u.massUnit})`,
+          'margin',
+        ],
         rows.map((r) => [
           String(r.step),
           r.cord,
@@ -443,9 +526,9 @@ function wiringSection(input: DocumentsInput): Section {
           r.target,
           r.port,
           r.fromBay === '' ? '' : `${r.fromBay} → ${r.toBay}`,
-          r.lengthM === '' ? '' : num(r.lengthM, 3),
+          r.lengthM === '' ? '' : u.cut(r.lengthM),
           r.routing,
-          num(r.loadG, 1),
+          u.mass(r.loadG),
           num(r.margin),
         ]),
         { tick: true, mono: [1, 2, 5, 6] },
@@ -461,21 +544,22 @@ function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Se
   const words = partWords(input.build);
   const f = input.profile.frame;
   const layout = findCheck(input.checks, 'layout');
-  const drums = pl.drums.map((d) => `drum ${d.drum}: ${num(d.lengthM)} m, ${d.bays.length} bays`).join('; ');
+  const u = unitsOf(input.profile);
+  const drums = pl.drums.map((d) => `drum ${d.drum}: ${u.len(d.lengthM)}, ${d.bays.length} bays`).join('; ');
   const blocks: Block[] = [
     p(
-      `${pl.drums.length === 1 ? 'One drum' : `${pl.drums.length} drums, stacked ${num(f.drumSpacingM)} m apart`} (${drums}; the longest allowed is ${num(f.longestDrumM)} m). Bays are counted from 1 at the visitor end of each drum; operator levers sit at the visitor end, clock and reset levers at the crank end. The order of the bays is ${pl.method === 'exact' ? 'the proven shortest' : pl.method === 'heuristic' ? 'the shortest the search found' : "the netlist's own, which was already the shortest"} in cord along the channel: ${num(pl.totalCordM, 1)} m of cord in all (${num(pl.baselineCordM, 1)} m with the bays in netlist order), ${f.turn === 'pulley' ? `${pl.pulleys} pulleys` : `${pl.routing.pins} pins`} (one at each corner where a cord's drop turns along a channel, shared by its branches, and one where each branch rises or leaves the frame).`,
+      `${pl.drums.length === 1 ? 'One drum' : `${pl.drums.length} drums, stacked ${u.len(f.drumSpacingM)} apart`} (${drums}; the longest allowed is ${u.len(f.longestDrumM)}). Bays are counted from 1 at the visitor end of each drum; operator levers sit at the visitor end, clock and reset levers at the crank end. The order of the bays is ${pl.method === 'exact' ? 'the proven shortest' : pl.method === 'heuristic' ? 'the shortest the search found' : "the netlist's own, which was already the shortest"} in cord along the channel: ${u.len(pl.totalCordM, 1)} of cord in all (${u.len(pl.baselineCordM, 1)} with the bays in netlist order), ${f.turn === 'pulley' ? `${pl.pulleys} pulleys` : `${pl.routing.pins} pins`} (one at each corner where a cord's drop turns along a channel, shared by its branches, and one where each branch rises or leaves the frame).`,
     ),
   ];
   if (layout) blocks.push(p(`Layout check: ${layout.ok ? 'passed' : 'FAILED'} — ${layout.summary}`));
   if (drawings) blocks.push(drawingFigures(drawings).frame);
   blocks.push(
     table(
-      ['drum', 'bay', 'from visitor end (m)', 'part', 'what it does', 'levers'],
+      ['drum', 'bay', `from visitor end (${u.alongUnit})`, 'part', 'what it does', 'levers'],
       pl.bays.map((b) => [
         String(b.drum),
         String(b.bay),
-        num(b.xM, 3),
+        u.along(b.xM),
         b.part,
         words.get(b.part) ?? '',
         b.levers.map((l) => l.name).join(', '),
@@ -483,7 +567,7 @@ function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Se
       { caption: 'Every bay, from the visitor end', mono: [3] },
     ),
     p(
-      'Cut every cord piece to cut-list.csv (trunk from the hold lever to the drum, then each branch’s piece: a cord that leaves its bay drops once and splits at knots in the channel, and the list says where each piece is tied on). Cut the clock cams from cams.svg printed at 100 %: check its 100 mm bar first.',
+      `Cut every cord piece to cut-list.csv (trunk from the hold lever to the drum, then each branch’s piece: a cord that leaves its bay drops once and splits at knots in the channel, and the list says where each piece is tied on). Cut the clock cams from cams.svg printed at 100 %: check its ${u.checkBar} bar first.`,
     ),
   );
   return { id: 'frame', title: 'Frame: bays, drums and cords', blocks };

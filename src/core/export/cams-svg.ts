@@ -11,10 +11,13 @@
  * turns, so that the point at angle θ is under a follower at the 0° mark when the crank has
  * turned θ. Sizes from the profile (frame.camBaseRadiusM, frame.camLiftM).
  * The SVG's width and height are in millimetres (one user unit is 1 mm), so a print at 100 %
- * is full size; a 100 mm check bar tells the user whether it was.
+ * is full size; a 100 mm check bar tells the user whether it was. Where the profile's
+ * `documentUnits` is `inch`, the bar is 4 in (101.6 mm exactly) with quarter-inch ticks, and the
+ * sizes are written in inches (model/units.ts); the drawing itself is the same.
  */
 import type { TimingResult } from '../checks/timing.js';
 import type { Profile } from '../physics/profile.js';
+import { METRES_PER_INCH, sizeInches, type DocumentUnits } from '../model/units.js';
 import { round1 as r1, svgDocument, svgText } from './svg.js';
 
 /** Largest ramp, degrees of crank turn. */
@@ -141,6 +144,36 @@ function camPanel(spec: CamSpec, cx: number, cy: number, r0: number, r1: number)
 
 const r1f = (v: number): string => r1(v);
 
+/** The check bar in the chosen units: its length and ticks on paper (mm), their heights, and its words. */
+interface CheckBar {
+  readonly lengthMm: number;
+  /** Where each tick stands, mm from the bar's start, and whether it is a long one. */
+  readonly ticks: readonly { readonly at: number; readonly long: boolean }[];
+  readonly words: string;
+  /** The bar's length as the print check asks for it: `100 mm`, `4 in`. */
+  readonly says: string;
+}
+
+const INCH_MM = METRES_PER_INCH * 1000;
+/** A position on paper to the micrometre (whole millimetres print as before). */
+const mm3 = (v: number): number => Math.round(v * 1000) / 1000;
+
+function checkBar(units: DocumentUnits): CheckBar {
+  if (units === 'inch') {
+    // Quarter-inch ticks, long at each whole inch; the bar is 4 in = 101.6 mm exactly.
+    // Positions to the micrometre, so the file prints 19.05 where binary arithmetic gives 19.049999….
+    const at = (quarters: number): number => Math.round((quarters * INCH_MM * 1000) / 4) / 1000;
+    const ticks = Array.from({ length: 17 }, (_, q) => ({ at: at(q), long: q % 4 === 0 }));
+    return { lengthMm: at(16), ticks, words: '4 in check bar', says: '4 in' };
+  }
+  const ticks = Array.from({ length: 11 }, (_, i) => ({ at: i * 10, long: (i * 10) % 50 === 0 }));
+  return { lengthMm: 100, ticks, words: '100 mm check bar', says: '100 mm' };
+}
+
+/** A cam's size in the chosen units: `80 mm`, `3.150 in`. */
+const sizeWords = (mm: number, units: DocumentUnits): string =>
+  units === 'inch' ? sizeInches(mm / 1000) : `${r1(mm)} mm`;
+
 /**
  * The cam templates of a build: `timing` from the timing check (undefined for a machine
  * without a clock: then the file says so).
@@ -150,6 +183,8 @@ export function camsSvg(
   timing: Pick<TimingResult, 'cam' | 'crankRpm'> | undefined,
   profile: Profile,
 ): string {
+  const units = profile.documentUnits;
+  const bar = checkBar(units);
   const r0 = profile.frame.camBaseRadiusM * 1000;
   const r1v = r0 + profile.frame.camLiftM * 1000;
   const panel = 2 * r1v + 14;
@@ -161,7 +196,7 @@ export function camsSvg(
     svgText(
       MARGIN,
       MARGIN + 9,
-      'Print at 100 % (no “fit to page”) and check the bar below measures 100 mm before cutting. One crank turn is one clock.',
+      `Print at 100 % (no “fit to page”) and check the bar below measures ${bar.says} before cutting. One crank turn is one clock.`,
       'sub',
       'start',
     ),
@@ -179,19 +214,19 @@ export function camsSvg(
       svgText(
         MARGIN,
         y,
-        `Base circle Ø ${r1(2 * r0)} mm, lobe Ø ${r1(2 * r1v)} mm (lift ${r1(r1v - r0)} mm). Crank at ${timing.crankRpm} turns per minute. Drill the centre to suit the cam shaft; key both cams with their 0° marks together.`,
+        `Base circle Ø ${sizeWords(2 * r0, units)}, lobe Ø ${sizeWords(2 * r1v, units)} (lift ${sizeWords(r1v - r0, units)}). Crank at ${timing.crankRpm} turns per minute. Drill the centre to suit the cam shaft; key both cams with their 0° marks together.`,
         'sub',
         'start',
       ),
     );
     y += 6;
   }
-  body.push(`<line x1="${MARGIN}" y1="${y + 3}" x2="${MARGIN + 100}" y2="${y + 3}" class="bar" />`);
-  for (let mm = 0; mm <= 100; mm += 10)
+  body.push(`<line x1="${MARGIN}" y1="${y + 3}" x2="${mm3(MARGIN + bar.lengthMm)}" y2="${y + 3}" class="bar" />`);
+  for (const t of bar.ticks)
     body.push(
-      `<line x1="${MARGIN + mm}" y1="${y + (mm % 50 === 0 ? 0 : 1.5)}" x2="${MARGIN + mm}" y2="${y + 3}" class="bar" />`,
+      `<line x1="${mm3(MARGIN + t.at)}" y1="${y + (t.long ? 0 : 1.5)}" x2="${mm3(MARGIN + t.at)}" y2="${y + 3}" class="bar" />`,
     );
-  body.push(svgText(MARGIN + 104, y + 3.5, '100 mm check bar', 'sub', 'start'));
+  body.push(svgText(MARGIN + bar.lengthMm + 4, y + 3.5, bar.words, 'sub', 'start'));
   body.push(
     svgText(
       MARGIN,
@@ -205,7 +240,7 @@ export function camsSvg(
     width,
     y + 10 + MARGIN,
     `Clock cams of ${machine}, 1:1`,
-    'Cutting templates of the φ1 and φ2 cams at full size, with a 100 mm check bar.',
+    `Cutting templates of the φ1 and φ2 cams at full size, with a ${bar.words}.`,
     STYLE,
     body,
     'mm',

@@ -11,7 +11,12 @@
  * for the run) and where it goes. A piece's length is its own runs plus a knot allowance at each
  * end plus the take-up allowance. The cord's total is trunk plus pieces. Cords are listed by
  * where their capstan sits, drum by drum from the visitor end.
- * Lengths in metres to the millimetre, rounded up so that no piece is cut short.
+ * Lengths in metres to the millimetre, rounded up so that no piece is cut short. In the profile's
+ * `documentUnits: "inch"` the same promise holds in inches: each length is the metric cut length
+ * rounded up again to the sixteenth of an inch (model/units.ts), so an inch piece is never
+ * shorter than the metric piece of the same build, and at most 1/16 in longer. The numeric
+ * column is then decimal inches (exact sixteenths, which a spreadsheet sums), with the feet and
+ * inches a workshop writes beside it; sizes are in inches and weights in ounces.
  * The safety cautions come first (as in every document), then the rows; every cell goes through
  * csv.ts (RFC 4180, spreadsheet formula injection escaped).
  */
@@ -21,6 +26,16 @@ import type { Placement } from '../phases/place/index.js';
 import { wrapsOf } from '../physics/capstan.js';
 import type { Profile } from '../physics/profile.js';
 import type { BranchRoute, CordRun } from '../physics/routing.js';
+import {
+  cutMetres,
+  cutSixteenths,
+  feetInches,
+  inchesOfSixteenths,
+  lengthFeetInches,
+  massWords,
+  sizeInches,
+  type DocumentUnits,
+} from '../model/units.js';
 import { CAUTIONS } from './build-sheet.js';
 import { toCsv, type CsvCell } from './csv.js';
 import { partWords } from './part-words.js';
@@ -34,7 +49,7 @@ export interface CutRow {
   /** Which piece: `trunk`, `branch to <target>`, `whole cord`, or a size class. */
   readonly piece: string;
   readonly count: number | '';
-  /** Cut length of one piece, metres ('' where it has none). */
+  /** Cut length of one piece, metres ('' where it has none); the inch list rounds it up again to the sixteenth. */
   readonly lengthM: number | '';
   /** Size in words: diameter, section, mass. */
   readonly size: string;
@@ -44,13 +59,37 @@ export interface CutRow {
 }
 
 const HEADER = ['group', 'item', 'piece', 'count', 'length (m)', 'size', 'where', 'note'];
+const INCH_HEADER = ['group', 'item', 'piece', 'count', 'length (in)', 'length (ft in)', 'size', 'where', 'note'];
 
-/** Metres rounded up to the millimetre (never cut short). */
-export function cutMetres(m: number): number {
-  return Math.ceil(m * 1000 - 1e-6) / 1000;
+/** Metres rounded up to the millimetre (never cut short); defined with the other conversions. */
+export { cutMetres };
+
+/** How the list writes sizes, masses and heights in the profile's units. */
+interface Words {
+  /** A size: `12 mm`, or in inches `0.472 in`. */
+  readonly size: (m: number) => string;
+  /** The cord's size: `3 mm cord`. */
+  readonly cord: (m: number) => string;
+  readonly mass: (g: number) => string;
+  /** A height on the frame: `0.60 m`. */
+  readonly height: (m: number) => string;
 }
 
-const mm = (m: number): string => `${Math.round(m * 1000)} mm`;
+const METRIC: Words = {
+  size: (m) => `${Math.round(m * 1000)} mm`,
+  cord: (m) => `${Math.round(m * 1000 * 10) / 10} mm cord`,
+  mass: (g) => `${g} g`,
+  height: (m) => `${m.toFixed(2)} m`,
+};
+
+const INCH: Words = {
+  size: sizeInches,
+  cord: (m) => `${sizeInches(m)} cord`,
+  mass: massWords,
+  height: lengthFeetInches,
+};
+
+const wordsFor = (units: DocumentUnits): Words => (units === 'inch' ? INCH : METRIC);
 
 /** Every row of the cut list, cautions first. */
 export function cutListRows(build: Build, placement: Placement, profile: Profile): CutRow[] {
@@ -84,9 +123,9 @@ function cordRows(build: Build, placement: Placement, profile: Profile): CutRow[
   });
   const parts = new Map(build.netlist.parts.map((p) => [p.id, p]));
   const rows: CutRow[] = [];
-  const d = Math.round(profile.frame.cordDiameterM * 1000 * 10) / 10;
+  const size = wordsFor(profile.documentUnits).cord(profile.frame.cordDiameterM);
   for (const c of order) {
-    const base = { group: 'cord', item: c.cord, size: `${d} mm cord` };
+    const base = { group: 'cord', item: c.cord, size };
     rows.push({
       ...base,
       piece: 'trunk',
@@ -152,7 +191,8 @@ function pieceWords(
 
 function leverRows(n: Netlist, profile: Profile): CutRow[] {
   const f = profile.frame;
-  const size = `${mm(f.leverLengthM)} × ${mm(f.leverThicknessM)} blank`;
+  const w = wordsFor(profile.documentUnits);
+  const size = `${w.size(f.leverLengthM)} × ${w.size(f.leverThicknessM)} blank`;
   const levers = n.parts.flatMap((p) => (p.kind === 'lever' ? [p] : []));
   const gates = n.parts.flatMap((p) => (p.kind === 'gate' ? [p] : []));
   const kinds: [string, number, string][] = [
@@ -182,6 +222,8 @@ function leverRows(n: Netlist, profile: Profile): CutRow[] {
 
 function frameRows(build: Build, placement: Placement, profile: Profile): CutRow[] {
   const f = profile.frame;
+  const w = wordsFor(profile.documentUnits);
+  const mm = w.size;
   const rows: CutRow[] = placement.drums.map((d) => ({
     group: 'drum',
     item: `drum ${d.drum}`,
@@ -189,7 +231,7 @@ function frameRows(build: Build, placement: Placement, profile: Profile): CutRow
     count: 1,
     lengthM: cutMetres(d.lengthM),
     size: `Ø ${mm(2 * profile.drumRadiusM)}`,
-    where: d.drum === 1 ? 'lowest' : `axis ${d.levelM.toFixed(2)} m above drum 1's`,
+    where: d.drum === 1 ? 'lowest' : `axis ${w.height(d.levelM)} above drum 1's`,
     note: `${d.bays.length} bays; add bearings and the drive beyond this length`,
   }));
   const r = placement.routing;
@@ -226,7 +268,7 @@ function frameRows(build: Build, placement: Placement, profile: Profile): CutRow
   ];
   for (const [piece, count, g] of weights)
     if (count > 0)
-      rows.push({ group: 'weight', item: 'weight', piece, count, lengthM: '', size: `${g} g`, where: '', note: '' });
+      rows.push({ group: 'weight', item: 'weight', piece, count, lengthM: '', size: w.mass(g), where: '', note: '' });
   if (build.encoding.bits > 0)
     rows.push({
       group: 'cam',
@@ -241,9 +283,21 @@ function frameRows(build: Build, placement: Placement, profile: Profile): CutRow
   return rows;
 }
 
-/** The cut list as CSV with a header line. */
-export function cutListCsv(rows: readonly CutRow[]): string {
-  const cells: CsvCell[][] = [HEADER];
-  for (const r of rows) cells.push([r.group, r.item, r.piece, r.count, r.lengthM, r.size, r.where, r.note]);
+/**
+ * The cut list as CSV with a header line. In inches, each length is the row's metric cut length
+ * rounded up to the sixteenth: decimal inches, then feet and inches.
+ */
+export function cutListCsv(rows: readonly CutRow[], units: DocumentUnits = 'metric'): string {
+  const cells: CsvCell[][] = [units === 'inch' ? INCH_HEADER : HEADER];
+  for (const r of rows) {
+    const sixteenths = r.lengthM === '' ? undefined : cutSixteenths(r.lengthM);
+    const length: CsvCell[] =
+      units === 'metric'
+        ? [r.lengthM]
+        : sixteenths === undefined
+          ? ['', '']
+          : [inchesOfSixteenths(sixteenths), feetInches(sixteenths)];
+    cells.push([r.group, r.item, r.piece, r.count, ...length, r.size, r.where, r.note]);
+  }
   return toCsv(cells);
 }

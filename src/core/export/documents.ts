@@ -140,7 +140,7 @@ export const DOCUMENT_REGISTRY = [
     file: 'cams.svg',
     label: 'Cam templates (SVG, 1:1)',
     mime: 'image/svg+xml',
-    summary: 'the φ1 and φ2 cam discs to cut, full size, with a 100 mm check bar',
+    summary: 'the φ1 and φ2 cam discs to cut, full size, with a check bar (100 mm, or 4 in)',
     format: 'SVG, sized in millimetres at 1:1',
   },
   {
@@ -217,8 +217,10 @@ export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: Document
   'build-sheet-html': (d) => buildSheetHtml({ ...d.input, placement: d.placement() }, d.drawings()),
   'build-sheet-md': (d) => buildSheetMd({ ...d.input, placement: d.placement() }, d.drawings()),
   wiring: (d) => wiringCsv(wiringRows(d.input.build.netlist, d.input.profile, d.placement())),
-  bom: (d) => bomCsv(billOfMaterials(d.input.build.netlist, d.input.profile, d.placement())),
-  'cut-list': (d) => cutListCsv(cutListRows(d.input.build, d.placement(), d.input.profile)),
+  bom: (d) =>
+    bomCsv(billOfMaterials(d.input.build.netlist, d.input.profile, d.placement()), d.input.profile.documentUnits),
+  'cut-list': (d) =>
+    cutListCsv(cutListRows(d.input.build, d.placement(), d.input.profile), d.input.profile.documentUnits),
   netlist: (d) => netlistJson(d.input.build, { placement: d.placement(), profile: d.input.profile }),
   frame: (d) => d.drawings().frame,
   cams: (d) =>

@@ -25,6 +25,10 @@
  * run and both its ends; the screen palette adds each branch's whole path (class `route`,
  * data-route-cord, data-route-target), unseen until the page lights it. Two palettes: `paper` (the default, the document) and `screen` (the
  * designer's theme variables, light or dark, its rules scoped to the drawing's own class).
+ * Units: the profile's `documentUnits` chooses what the words on the drawing say — metres and
+ * millimetres, or feet and inches (model/units.ts: dimensions to the nearest sixteenth, cut lengths
+ * as the cut list rounds them up, sizes in inches) with a scale bar of whole inches or feet. The
+ * geometry is the same either way: the SVG is sized in millimetres, so a print at 100 % is to scale.
  * Pure; every user-given name is escaped (svg.ts, escape.ts).
  */
 import type { Build } from '../model/build.js';
@@ -33,6 +37,14 @@ import { wrapsOf } from '../physics/capstan.js';
 import type { Placement, PlacedBayInfo, PlacedDrum } from '../phases/place/index.js';
 import type { Profile } from '../physics/profile.js';
 import type { BranchRoute, CordRun, RoutePoint } from '../physics/routing.js';
+import {
+  cutFeetInches,
+  inchesOf,
+  lengthFeetInches,
+  METRES_PER_INCH,
+  sizeInches,
+  type DocumentUnits,
+} from '../model/units.js';
 import { escapeXml as x } from './escape.js';
 import { partWords } from './part-words.js';
 import { clip, round1 as r1, svgDocument, svgText, wrapWords } from './svg.js';
@@ -234,7 +246,41 @@ const DEFS =
   '<rect width="1.2" height="1.2" fill="#c9b48f" /><line x1="0" y1="0" x2="0" y2="1.2" stroke="#6b5a3c" stroke-width="0.35" /></pattern>' +
   '<marker id="arrow" viewBox="0 0 6 6" refX="5" refY="3" markerWidth="3" markerHeight="3" orient="auto"><path d="M0,0 L6,3 L0,6 z" fill="#2c4a5a" /></marker></defs>';
 
-const m = (v: number): string => `${v.toFixed(2)} m`;
+/** How the drawing writes a measure in the profile's units. */
+interface Measures {
+  readonly units: DocumentUnits;
+  /** A dimension: `1.25 m`, `4 ft 1 3/16 in`. */
+  len(v: number): string;
+  /** A length to cut (metres): metric as a dimension, as it always was; inch as the cut list rounds it up. */
+  cut(v: number): string;
+  /** A size given in millimetres: `80 mm`, `3.150 in`. */
+  size(mm: number): string;
+  /** A bay's centre for the key, and what the key says it is in. */
+  centre(v: number): string;
+  readonly centreWords: string;
+}
+
+const metres = (v: number): string => `${v.toFixed(2)} m`;
+
+const METRIC_MEASURES: Measures = {
+  units: 'metric',
+  len: metres,
+  cut: metres,
+  size: (mm) => `${r1(mm)} mm`,
+  centre: (v) => v.toFixed(2),
+  centreWords: 'centre in metres',
+};
+
+const INCH_MEASURES: Measures = {
+  units: 'inch',
+  len: lengthFeetInches,
+  cut: cutFeetInches,
+  size: (mm) => sizeInches(mm / 1000),
+  centre: (v) => inchesOf(v).toFixed(1),
+  centreWords: 'centre in inches',
+};
+
+const measuresFor = (p: Profile): Measures => (p.documentUnits === 'inch' ? INCH_MEASURES : METRIC_MEASURES);
 const line = (x1: number, y1: number, x2: number, y2: number, cls: string, extra = ''): string =>
   `<line x1="${r1(x1)}" y1="${r1(y1)}" x2="${r1(x2)}" y2="${r1(y2)}" class="${cls}"${extra} />`;
 const rect = (x0: number, y0: number, w: number, h: number, cls: string, extra = ''): string =>
@@ -306,7 +352,7 @@ export function frameSvg(build: Build, placement: Placement, profile: Profile, o
   y = dims.bottom + 4;
   const foot = footer(sheet, placement, profile, width, y);
   body.push(...foot.items);
-  const key = keyLines(build, placement, words, width, foot.bottom + 4);
+  const key = keyLines(build, placement, { words, measures: measuresFor(profile) }, width, foot.bottom + 4);
   body.push(...key.items);
   const height = key.bottom + MARGIN;
   const head = titleBlock(
@@ -341,6 +387,7 @@ function titleLines(
 ): { text: string; cls: 'sub' | 'note' }[] {
   const f = profile.frame;
   const r = profile.drumRadiusM;
+  const u = measuresFor(profile);
   const { scale, lengthM } = size;
   const frameHeightM = size.heightM;
   const sentences: { text: string; cls: 'sub' | 'note' }[] = [
@@ -349,7 +396,7 @@ function titleLines(
       cls: 'sub',
     },
     {
-      text: `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${r1(2 * r * 1000)} mm, ${placement.drums.map((d) => m(d.lengthM)).join(' and ')} long; overall ${m(lengthM)} × ${m(frameHeightM)}; ${placement.bays.length} bays; ${m(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${r1(f.pulleyDiameterM * 1000)} mm)`}, one at each corner of a cord's tree and where each branch rises.`,
+      text: `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${u.size(2 * r * 1000)}, ${placement.drums.map((d) => u.len(d.lengthM)).join(' and ')} long; overall ${u.len(lengthM)} × ${u.len(frameHeightM)}; ${placement.bays.length} bays; ${u.len(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${u.size(f.pulleyDiameterM * 1000)})`}, one at each corner of a cord's tree and where each branch rises.`,
       cls: 'sub',
     },
     {
@@ -534,6 +581,7 @@ function cordRuns(
   },
 ): string[] {
   const out: string[] = ['<g class="cords">'];
+  const u = measuresFor(profile);
   /** Pulleys or pins on paper, each drawn once: a shared corner once, each rise's own beside the others at its lever. */
   const turns = new Map<string, { x: number; y: number }>();
   const turn = (p: RoutePoint, shift = 0): void => {
@@ -546,7 +594,7 @@ function cordRuns(
   const bayOf = new Map(placement.bays.map((b) => [b.part, b.bay]));
   placement.routing.cords.forEach((c, i) => {
     const colour = PALETTE[i % PALETTE.length];
-    out.push(`<g class="cord-run" stroke="${colour}"><title>${x(`cord ${c.cord}: cut ${m(c.cutM)}`)}</title>`);
+    out.push(`<g class="cord-run" stroke="${colour}"><title>${x(`cord ${c.cord}: cut ${u.cut(c.cutM)}`)}</title>`);
     const hostLane = new Map<string, number>();
     for (const b of c.branches) {
       const run = b.own.find((r) => r.kind === 'channel');
@@ -557,7 +605,7 @@ function cordRuns(
       const pen: Pen = { s, hostLane, cord: c.cord, shift: shifts.get(b) ?? 0 };
       const d = pathData(polyline(pen, b.own, b.runs));
       out.push(
-        `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}" data-driver="${x(b.driver)}" data-part="${x(b.part)}" data-lever="${x(leverOf(b))}"><title>${x(`${b.cord} → ${b.target}: ${m(b.lengthM)} to cut, over ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''} on its way`)}</title></path>`,
+        `<path d="${d}" class="cord" data-cord="${x(b.cord)}" data-target="${x(b.target)}" data-driver="${x(b.driver)}" data-part="${x(b.part)}" data-lever="${x(leverOf(b))}"><title>${x(`${b.cord} → ${b.target}: ${u.cut(b.lengthM)} to cut, over ${b.pulleys} pulleys${b.pins.length > 0 ? `, ${b.pins.length} pins` : ''} on its way`)}</title></path>`,
       );
       if (how.screen)
         out.push(
@@ -607,7 +655,7 @@ function exitWordsAndTurns(
       svgText(
         first - 1,
         row + 3.4,
-        `↓ out of the frame, ${m(profile.frame.actuatorRunM)} each: ${words}`,
+        `↓ out of the frame, ${measuresFor(profile).len(profile.frame.actuatorRunM)} each: ${words}`,
         'note',
         'start',
       ),
@@ -632,6 +680,7 @@ function endWords(s: Sheet, placement: Placement, y: number): string[] {
 /** Drum lengths under the drawing; heights at its right. */
 function dimensions(s: Sheet, placement: Placement, profile: Profile, y0: number): { items: string[]; bottom: number } {
   const f = profile.frame;
+  const u = measuresFor(profile);
   const out: string[] = [];
   let y = y0;
   for (const d of placement.drums) {
@@ -640,7 +689,7 @@ function dimensions(s: Sheet, placement: Placement, profile: Profile, y0: number
     const b = s.X(d.lengthM);
     out.push(line(a, y, b, y, 'dim', ' marker-start="url(#arrow)" marker-end="url(#arrow)"'));
     out.push(line(a, y - 2, a, y + 1, 'dim'), line(b, y - 2, b, y + 1, 'dim'));
-    out.push(svgText((a + b) / 2, y - 0.8, `drum ${d.drum}: ${m(d.lengthM)}, ${d.bays.length} bays`, 'dimtext'));
+    out.push(svgText((a + b) / 2, y - 0.8, `drum ${d.drum}: ${u.len(d.lengthM)}, ${d.bays.length} bays`, 'dimtext'));
   }
   const right = s.X(Math.max(...placement.drums.map((d) => d.lengthM))) + 8;
   const lowest = s.Y(-f.channelBelowDrumM);
@@ -650,7 +699,7 @@ function dimensions(s: Sheet, placement: Placement, profile: Profile, y0: number
     upText(
       right - 0.8,
       (lowest + rail1) / 2 + 12,
-      `channel to rail ${m(f.channelBelowDrumM + f.railAboveDrumM)}`,
+      `channel to rail ${u.len(f.channelBelowDrumM + f.railAboveDrumM)}`,
       'dimtext',
     ),
   );
@@ -658,9 +707,39 @@ function dimensions(s: Sheet, placement: Placement, profile: Profile, y0: number
     const a1 = s.Y(0);
     const a2 = s.Y(f.drumSpacingM);
     out.push(line(right + 4, a1, right + 4, a2, 'dim', ' marker-start="url(#arrow)" marker-end="url(#arrow)"'));
-    out.push(upText(right + 3.2, (a1 + a2) / 2 + 14, `drum axes ${m(f.drumSpacingM)} apart`, 'dimtext'));
+    out.push(upText(right + 3.2, (a1 + a2) / 2 + 14, `drum axes ${u.len(f.drumSpacingM)} apart`, 'dimtext'));
   }
   return { items: out, bottom: y + 2 };
+}
+
+/** Lengths a metric scale bar may have, metres (cut in fifths). */
+const METRIC_BARS = [0.05, 0.1, 0.2, 0.25, 0.5, 1, 2, 5, 10, 20, 50, 100];
+/** Lengths an inch scale bar may have, whole inches, each with the parts it is cut in (quarters of a foot, feet …). */
+const INCH_BARS: readonly (readonly [number, number])[] = [
+  [1, 4],
+  [2, 4],
+  [3, 3],
+  [6, 6],
+  [12, 4],
+  [24, 4],
+  [36, 3],
+  [60, 5],
+  [120, 5],
+  [240, 4],
+  [600, 5],
+  [1200, 4],
+  [2400, 4],
+];
+
+/** The scale bar: the longest usual length that is at most 80 mm on paper, its parts and its label. */
+export function scaleBar(s: { readonly k: number }, units: DocumentUnits): { m: number; parts: number; words: string } {
+  if (units === 'inch') {
+    const [inches, parts] = [...INCH_BARS].reverse().find(([v]) => v * METRES_PER_INCH * s.k <= 80) ?? INCH_BARS[0];
+    const words = inches >= 12 ? `${inches / 12} ft` : `${inches} in`;
+    return { m: inches * METRES_PER_INCH, parts, words };
+  }
+  const barM = [...METRIC_BARS].reverse().find((v) => v * s.k <= 80) ?? METRIC_BARS[0];
+  return { m: barM, parts: 5, words: `${barM} m` };
 }
 
 /** Scale bar, legend and caution. */
@@ -671,16 +750,16 @@ function footer(
   width: number,
   y0: number,
 ): { items: string[]; bottom: number } {
+  const u = measuresFor(profile);
   const out: string[] = [];
-  const nice = [0.05, 0.1, 0.2, 0.25, 0.5, 1, 2, 5, 10, 20, 50, 100];
-  const barM = [...nice].reverse().find((v) => v * s.k <= 80) ?? nice[0];
-  const step = (barM * s.k) / 5;
-  for (let i = 0; i < 5; i++) out.push(rect(MARGIN + i * step, y0, step, 1.6, i % 2 === 0 ? 'bar-a' : 'bar-b'));
+  const bar = scaleBar(s, u.units);
+  const step = (bar.m * s.k) / bar.parts;
+  for (let i = 0; i < bar.parts; i++) out.push(rect(MARGIN + i * step, y0, step, 1.6, i % 2 === 0 ? 'bar-a' : 'bar-b'));
   out.push(svgText(MARGIN, y0 + 4.6, '0', 'dimtext', 'middle'));
-  out.push(svgText(MARGIN + barM * s.k, y0 + 4.6, `${barM} m`, 'dimtext', 'middle'));
+  out.push(svgText(MARGIN + bar.m * s.k, y0 + 4.6, bar.words, 'dimtext', 'middle'));
   out.push(
     svgText(
-      MARGIN + barM * s.k + 8,
+      MARGIN + bar.m * s.k + 8,
       y0 + 1.6,
       `scale 1:${s.scale} — check the bar with a rule after printing`,
       'note',
@@ -691,7 +770,7 @@ function footer(
   const ly = y0 + 9;
   const legend: string[] = [
     rect(MARGIN, ly - 2, 6, 2.4, 'drum'),
-    svgText(MARGIN + 8, ly, `drum, Ø ${r1(profile.drumRadiusM * 2000)} mm`, 'note', 'start'),
+    svgText(MARGIN + 8, ly, `drum, Ø ${u.size(profile.drumRadiusM * 2000)}`, 'note', 'start'),
     rect(MARGIN + 42, ly - 2, 3, 2.4, 'wraps'),
     svgText(MARGIN + 47, ly, `capstan: ${profile.wraps} turns`, 'note', 'start'),
     rect(MARGIN + 76, ly - 2.4, 1, 2.4, 'lever hand'),
@@ -708,7 +787,7 @@ function footer(
     svgText(
       MARGIN,
       ly + 4.5,
-      `Cut lengths of every cord: cut-list.csv (${m(placement.totalCordM)} in all; ${m(placement.baselineCordM)} with the bays in netlist order). Cam templates at 1:1: cams.svg.`,
+      `Cut lengths of every cord: cut-list.csv (${u.len(placement.totalCordM)} in all; ${u.len(placement.baselineCordM)} with the bays in netlist order). Cam templates at 1:1: cams.svg.`,
       'note',
       'start',
     ),
@@ -735,10 +814,11 @@ function footer(
 function keyLines(
   build: Build,
   placement: Placement,
-  words: ReadonlyMap<string, string>,
+  said: { readonly words: ReadonlyMap<string, string>; readonly measures: Measures },
   width: number,
   y0: number,
 ): { items: string[]; bottom: number } {
+  const { words, measures } = said;
   const out: string[] = [svgText(MARGIN, y0 + 3, 'Key: every bay, from the visitor end', 'sub', 'start')];
   const colW = 104;
   const cols = Math.max(1, Math.floor((width - 2 * MARGIN) / colW));
@@ -750,7 +830,7 @@ function keyLines(
     const px = MARGIN + c * colW;
     const py = y0 + 7 + row * 3.2;
     out.push(svgText(px, py, `${b.drum}·${b.bay}`, 'bayno', 'start'));
-    out.push(svgText(px + 9, py, `${b.xM.toFixed(2)}`, 'keyid', 'start'));
+    out.push(svgText(px + 9, py, measures.centre(b.xM), 'keyid', 'start'));
     out.push(svgText(px + 18, py, clip(names.get(b.part) ?? b.part, 14), 'keyid', 'start'));
     out.push(svgText(px + 40, py, clip(words.get(b.part) ?? '', 50), 'key', 'start'));
   });
@@ -758,7 +838,7 @@ function keyLines(
     svgText(
       MARGIN,
       y0 + 7 + rows * 3.2 + 1.5,
-      'drum·bay, centre in metres from the visitor end, part, what it does',
+      `drum·bay, ${measures.centreWords} from the visitor end, part, what it does`,
       'note',
       'start',
     ),

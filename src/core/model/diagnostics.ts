@@ -29,7 +29,7 @@ interface CodeInfo {
 
 /**
  * Stable codes. Numbers group by area: LW1xx syntax, LW2xx names and references,
- * LW3xx behaviour, LW4xx limits, LW5xx interop, LW6xx technology profile, LW7xx build options.
+ * LW3xx behaviour, LW4xx limits, LW5xx interop, LW6xx technology profile, LW7xx build options, LW8xx behaviours.
  * Never renumber; retire a code by leaving it here marked as retired.
  */
 export const DIAGNOSTIC_CODES = {
@@ -297,6 +297,39 @@ export const DIAGNOSTIC_CODES = {
     cause:
       'A pin could not be kept in this build: its drum has fewer bays than the pin asks for, or the pins on one drum cannot all be met together. The pin is dropped and the part placed freely.',
     fix: 'Pin it to a bay the drum has (the frame drawing numbers them), or move one of the pins by a bay.',
+  },
+  LW800: {
+    severity: 'error',
+    cause:
+      'A count given to a behaviour (every N, clocks held K, the length of an order, the number of levers) is not a whole number within its range.',
+    fix: 'Give a whole number in the range the message names (docs/behaviours.md lists each).',
+  },
+  LW801: {
+    severity: 'error',
+    cause: 'A name given to a behaviour (an input, an output or the machine) is not a name the notation takes.',
+    fix: 'Use letters, digits and _ , starting with a letter or _ (the machine name may also use -).',
+  },
+  LW802: {
+    severity: 'error',
+    cause:
+      'A behaviour is missing a parameter it needs (an input, an output, a count or the order of presses), or it was left empty.',
+    fix: 'Give the parameter the message names; the hint shows an example.',
+  },
+  LW803: {
+    severity: 'error',
+    cause:
+      'A behaviour is given one name for two roles (the same lever as the counted input and the clear input, an output named like an input), or a list names one lever twice.',
+    fix: 'Give each lever and each output its own name, once.',
+  },
+  LW804: {
+    severity: 'error',
+    cause: 'A behaviour, or a choice of one of its parameters, is not one the tool knows.',
+    fix: 'Write one of the words the hint lists (latchwright write --help lists them all).',
+  },
+  LW805: {
+    severity: 'error',
+    cause: 'The order of a sequence presses a lever that is not among the levers it was given.',
+    fix: 'Add the lever to the list of levers, or leave the list out (it then holds the levers the order names).',
   },
   LW900: {
     severity: 'error',

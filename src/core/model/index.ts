@@ -11,4 +11,5 @@ export * from './machine.js';
 export * from './netlist.js';
 export * from './random.js';
 export * from './records.js';
+export * from './units.js';
 export * from './words.js';

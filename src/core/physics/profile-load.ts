@@ -30,6 +30,7 @@ import {
   type RoutingLoss,
 } from './profile.js';
 import { isJsonObject } from '../model/records.js';
+import { DOCUMENT_UNITS, documentUnitsGuess, type DocumentUnits } from '../model/units.js';
 
 /** Where a value is believable: outside it, warning LW602. `source` says where the range comes from. */
 export interface Plausible {
@@ -159,7 +160,7 @@ const FRAME_RULES: Readonly<Record<Exclude<keyof FrameGeometry, 'turn'>, NumberR
 /** The values `frame.turn` may take. */
 export const FRAME_TURNS: readonly FrameTurn[] = ['pulley', 'pin'];
 
-type ScalarKey = Exclude<keyof Profile, 'routing' | 'cordRouting' | 'cost' | 'frame' | 'about'>;
+type ScalarKey = Exclude<keyof Profile, 'routing' | 'cordRouting' | 'cost' | 'frame' | 'about' | 'documentUnits'>;
 
 /** Weights a builder hangs: a few grams of lead shot to a half-kilo block. */
 const WEIGHT_RANGE = pl(2, 500, 'estimate — a few grams of lead shot to a half-kilo steel block; design §4 uses 15 g');
@@ -392,6 +393,24 @@ class ProfileReader {
     );
   }
 
+  /** `documentUnits`: one of DOCUMENT_UNITS; anything else LW600 with a did-you-mean hint. */
+  documentUnits(path: string, v: unknown): DocumentUnits | undefined {
+    if (typeof v === 'string' && (DOCUMENT_UNITS as readonly string[]).includes(v)) return v as DocumentUnits;
+    const got = typeof v === 'string' ? JSON.stringify(v) : (JSON.stringify(v) ?? String(v));
+    const guess = typeof v === 'string' ? (didYouMean(v, DOCUMENT_UNITS) ?? documentUnitsGuess(v)) : undefined;
+    this.ds.push(
+      diag(
+        'LW600',
+        `profile field 'documentUnits' must be ${DOCUMENT_UNITS.map((u) => `"${u}"`).join(' or ')}; got ${got}`,
+        this.loc(path),
+        guess
+          ? `did you mean '${guess}'?`
+          : 'the units the documents show lengths and masses in: "metric" (metres, millimetres, grams) or "inch" (feet, inches, ounces, pounds)',
+      ),
+    );
+    return undefined;
+  }
+
   /** Read top-level field `k` into `out` (the merged profile so far) and `about` (what the file says of itself). */
   field(
     k: string,
@@ -421,6 +440,9 @@ class ProfileReader {
     } else if (k === 'cordRouting') {
       const routes = this.cordRouting(path, v);
       if (routes) out.cordRouting = routes;
+    } else if (k === 'documentUnits') {
+      const units = this.documentUnits(path, v);
+      if (units) out.documentUnits = units;
     } else if (Object.hasOwn(SCALAR_RULES, k)) {
       const n = this.checkNumber(path, v, SCALAR_RULES[k as ScalarKey]);
       if (n !== undefined) out[k] = n;
@@ -480,8 +502,13 @@ function mergeFrame(
   return merged;
 }
 
-/** Dotted paths a `sources` entry may name: every numeric field, `frame.turn` and `cordRouting`. */
-export const SOURCE_KEYS: readonly string[] = [...Object.keys(PROFILE_RULES), 'frame.turn', 'cordRouting'];
+/** Dotted paths a `sources` entry may name: every numeric field, `frame.turn`, `cordRouting` and `documentUnits`. */
+export const SOURCE_KEYS: readonly string[] = [
+  ...Object.keys(PROFILE_RULES),
+  'frame.turn',
+  'cordRouting',
+  'documentUnits',
+];
 
 /** True when `sources` is an object (its entries are checked one by one). */
 function checkSources(v: unknown, path: string, ds: Diagnostic[], loc: (p: string) => SourceLoc): boolean {
@@ -526,13 +553,13 @@ export interface ProfileChange {
   readonly source?: string;
 }
 
-/** Every value of `profile` that differs from DEFAULT_PROFILE, in the order of PROFILE_RULES (then frame.turn, then cordRouting). */
+/** Every value of `profile` that differs from DEFAULT_PROFILE, in the order of PROFILE_RULES (then frame.turn, documentUnits, then cordRouting). */
 export function profileChanges(profile: Profile): ProfileChange[] {
   const sources = profile.about?.sources ?? {};
   const at = (o: unknown, path: string): unknown =>
     path.split('.').reduce<unknown>((x, k) => (isJsonObject(x) ? x[k] : undefined), o);
   const out: ProfileChange[] = [];
-  for (const field of [...Object.keys(PROFILE_RULES), 'frame.turn']) {
+  for (const field of [...Object.keys(PROFILE_RULES), 'frame.turn', 'documentUnits']) {
     const v = at(profile, field);
     const d = at(DEFAULT_PROFILE, field);
     if (v !== d) out.push({ field, value: String(v), fallback: String(d), source: sources[field] });

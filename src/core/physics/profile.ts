@@ -3,6 +3,7 @@
  * profiles/default.json (with a `sources` entry per field); this module holds the type and
  * the same defaults for code that runs without a file (the browser, tests).
  */
+import type { DocumentUnits } from '../model/units.js';
 
 export interface RoutingLoss {
   /** Angle a cord branch turns over fixed pins, radians. */
@@ -116,6 +117,12 @@ export interface Profile {
   /** The frame's geometry: bays, cord channel, pulleys, allowances, drum limits. */
   readonly frame: FrameGeometry;
   /**
+   * The units the workshop's documents show what it cuts and hangs in (cut list, frame and cam
+   * drawings, bill of materials, build sheet): `metric` or `inch` (feet, inches, ounces, pounds;
+   * model/units.ts). Only what the documents show changes: every figure of the profile stays SI.
+   */
+  readonly documentUnits: DocumentUnits;
+  /**
    * Where the profile came from, for the build sheet: the file, its description and its
    * `sources`. Absent for the shipped defaults used without a file. Not a physical figure.
    */
@@ -172,4 +179,5 @@ export const DEFAULT_PROFILE: Profile = {
     camBaseRadiusM: 0.04,
     camLiftM: 0.015,
   },
+  documentUnits: 'metric',
 };

@@ -12,11 +12,13 @@
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import {
   DEFAULT_PROFILE,
+  DOCUMENT_UNITS,
   hasErrors,
   isJsonObject,
   loadProfile,
   readJsonText,
   type Diagnostic,
+  type DocumentUnits,
 } from '../../core/index.js';
 import { describeRule, plausibleWords, PROFILE_RULES, type NumberRule } from '../../core/physics/index.js';
 import { valueAt } from '../worker/profile-file.js';
@@ -71,6 +73,28 @@ export function otherFields(words: ReadonlyMap<string, string>): { readonly path
     .filter((path) => !main.has(path))
     .map((path) => ({ path, label: words.get(path) ?? path }));
 }
+
+/** The units the workshop's documents may be written in, as the form offers them, in our words. */
+export const UNITS_CHOICES: readonly {
+  readonly units: DocumentUnits;
+  readonly label: string;
+  readonly says: string;
+}[] = [
+  { units: 'metric', label: 'Metric', says: 'metres and millimetres, grams' },
+  { units: 'inch', label: 'Inches', says: 'feet and inches to 1/16 in, ounces and pounds' },
+];
+
+/**
+ * The units a draft's documents are written in: its `documentUnits` where that is one the core
+ * knows, else metric (a wrong value shows as its diagnostic beside the choice).
+ */
+export function documentUnitsOf(v: Value): DocumentUnits {
+  const u = v.documentUnits;
+  return DOCUMENT_UNITS.find((x) => x === u) ?? 'metric';
+}
+
+/** The raw value the form sends for a choice of units: metric is the default, so it leaves the field out. */
+export const unitsRaw = (units: DocumentUnits): string => (units === 'metric' ? '' : units);
 
 /** The name a profile started in the page is saved under (and named by on the command line). */
 export const WORKSHOP_FILE = 'workshop-profile.json';

@@ -36,6 +36,7 @@ import { VIEWS, codesByState, litStates, parseView, remember, statusWords, withF
 import type { LwBench } from './bench.js';
 import type { Fix } from './parts.js';
 import type { LwNotationCard } from './notation-card.js';
+import type { LwBehaviourCard } from './behaviour-card.js';
 import './bench.js';
 import './diagram.js';
 import './state-table.js';
@@ -43,6 +44,7 @@ import './codes.js';
 import './parts.js';
 import './stepper.js';
 import './notation-card.js';
+import './behaviour-card.js';
 import './frame-view.js';
 import './workshop.js';
 
@@ -162,6 +164,7 @@ export class LwApp extends LitElement {
             @example=${(e: Detail<{ index: number }>) => this.source.useExample(EXAMPLES[e.detail.index])}
             @copy-link=${this.onCopyLink}
             @notation=${() => this.card()?.show()}
+            @behaviour=${() => this.renderRoot.querySelector<LwBehaviourCard>('lw-behaviour-card')?.show()}
             @restore=${() => this.source.restore()}
             @dismiss=${() => this.source.say(undefined)}
           ></lw-bench>
@@ -190,7 +193,11 @@ export class LwApp extends LitElement {
       <lw-notation-card
         @use-example=${(e: Detail<{ text: string }>) =>
           this.source.startFrom(e.detail.text, "The notation card's example: write over it.")}
-      ></lw-notation-card>`;
+      ></lw-notation-card>
+      <lw-behaviour-card
+        @use-behaviour=${(e: Detail<{ text: string; sentence: string }>) =>
+          this.source.startFrom(e.detail.text, `Written from a behaviour: ${e.detail.sentence}`)}
+      ></lw-behaviour-card>`;
   }
 
   private header() {

@@ -1,9 +1,11 @@
 /**
- * <lw-bench>: where the machine is written — New, file and example actions, the shareable
+ * <lw-bench>: where the machine is written — New, file and example actions, starting from a
+ * behaviour, the shareable
  * link, the notation card, the file name (follows the machine's name until typed over),
  * notices, the text editor and its problem list.
  * Events: `edit` {text} (from the editor), `reveal`, `new`, `open-file` {file}, `save` {form},
- * `example` {index}, `copy-link`, `notation`, `rename` {name}, `restore`, `dismiss`.
+ * `example` {index}, `behaviour` (open the behaviour panel), `copy-link`, `notation`, `rename` {name},
+ * `restore`, `dismiss`.
  */
 import { LitElement, css, html, nothing } from 'lit';
 import type { Diagnostic } from '../../core/index.js';
@@ -143,6 +145,12 @@ export class LwBench extends LitElement {
           <option value="">Examples…</option>
           ${EXAMPLES.map((e, i) => html`<option value=${i}>${e.title}</option>`)}
         </select>
+        <button
+          @click=${() => emit(this, 'behaviour', {})}
+          title="Start from a behaviour: a sentence and a few fields write the machine"
+        >
+          From a behaviour…
+        </button>
         <button @click=${() => emit(this, 'copy-link', {})} title="Copy a link that carries this machine">
           Copy link
         </button>

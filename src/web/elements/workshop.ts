@@ -6,15 +6,20 @@
  * plausible ranges, the shipped default and where the value comes from (`sources`). The ten
  * figures that matter most come first; every other figure of the core's rules follows in a
  * folded part, named by the profile reference's own words (docs/profile.md, read as the page
- * is built), so the form and the reference never disagree.
+ * is built), so the form and the reference never disagree. The units the workshop's papers are
+ * written in (the profile's `documentUnits`: the cut list, the frame and cam drawings, the bill
+ * of materials and the build sheet) are a choice of their own above the figures, which stay SI.
  */
 import { LitElement, css, html, nothing } from 'lit';
 import { formatDiagnostic, isJsonObject, type Diagnostic } from '../../core/index.js';
 import reference from '../../../docs/profile.md?raw';
 import {
+  documentUnitsOf,
   fieldFacts,
   fieldWords,
   otherFields,
+  UNITS_CHOICES,
+  unitsRaw,
   WORKSHOP_FIELDS,
   WORKSHOP_FILE,
   type WorkshopPath,
@@ -107,6 +112,20 @@ export class LwWorkshop extends LitElement {
         cursor: pointer;
         margin-bottom: 0.6rem;
       }
+      .units {
+        display: flex;
+        gap: 1.2rem;
+        flex-wrap: wrap;
+        border: 0;
+        padding: 0;
+      }
+      .units label {
+        display: flex;
+        gap: 0.4rem;
+        align-items: baseline;
+        color: var(--lw-ink);
+        font-size: 0.9rem;
+      }
       .problem {
         font-family: var(--lw-mono);
         font-size: 0.8rem;
@@ -145,6 +164,7 @@ export class LwWorkshop extends LitElement {
         </div>
         ${this.fileProblems()}
       </section>
+      ${this.unitsChoice()}
       <section class="panel" aria-label="Figures">
         <p class="soft">
           Measure μ on your own drum, with your own cord, at its working speed (docs/profile.md says how), and keep the
@@ -167,6 +187,38 @@ export class LwWorkshop extends LitElement {
           lever. The figures support, and never replace, a competent person's judgement and your local codes.
         </p>
       </section>`;
+  }
+
+  /** Which units the papers the workshop cuts from are written in (the profile's documentUnits). */
+  private unitsChoice() {
+    const chosen = documentUnitsOf(this.draft.value);
+    const at = this.problems.filter((d) =>
+      ['$.documentUnits', '$.sources.documentUnits'].includes(d.location.path ?? ''),
+    );
+    return html`<section class="panel" aria-label="Units on the workshop's papers" data-units=${chosen}>
+      <fieldset class="units" role="radiogroup" aria-label="Units the cut list, drawings and sheets are written in">
+        <legend>Units on your papers</legend>
+        ${UNITS_CHOICES.map(
+          (c) =>
+            html`<label
+              ><input
+                type="radio"
+                name="document-units"
+                value=${c.units}
+                .checked=${chosen === c.units}
+                @change=${() => emit(this, 'profile-edit', { path: 'documentUnits', raw: unitsRaw(c.units) })}
+              />${c.label} <span class="soft">(${c.says})</span></label
+            >`,
+        )}
+      </fieldset>
+      <p class="soft">
+        The cut list, the frame and cam drawings, the bill of materials and the build sheet show what you cut and hang
+        in these units; cut lengths are always rounded up, so no piece comes out short. The figures below stay in metres
+        and grams, and the netlist stays SI. Check the printed scale bar and the cam template's check bar with a rule
+        before cutting.
+      </p>
+      ${at.map((d) => html`<p class="problem bad" role="alert">${formatDiagnostic(d)}</p>`)}
+    </section>`;
   }
 
   /** The cords given a route of their own (`cordRouting`, set from the frame view), each with a way back to the computed route. */
@@ -200,7 +252,10 @@ export class LwWorkshop extends LitElement {
   /** The problems that name no field of the form (a file that is no profile, an unknown field, …). */
   private fileProblems() {
     const shown = new Set<string>(
-      [...WORKSHOP_FIELDS, ...OTHER_FIELDS].flatMap((f) => [`$.${f.path}`, `$.sources.${f.path}`]),
+      [...WORKSHOP_FIELDS, ...OTHER_FIELDS, { path: 'documentUnits' }].flatMap((f) => [
+        `$.${f.path}`,
+        `$.sources.${f.path}`,
+      ]),
     );
     const rest = this.problems.filter((d) => !shown.has(d.location.path ?? ''));
     if (rest.length === 0) return nothing;

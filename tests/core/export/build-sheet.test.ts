@@ -219,4 +219,33 @@ describe('core/export/build-sheet', () => {
       expect(md).toMatch(new RegExp(`!\\[[^\\]]+\\]\\(${f.replace('.', '\\.')}\\)`));
     expect(md).toContain('## Frame: bays, drums and cords');
   });
+
+  it('writes masses in ounces and lengths in feet and inches where the profile asks for inches (NIST Handbook 44 appendix C: 1 oz = 28.349523125 g)', () => {
+    const b = example('canal-lock.lw');
+    const lock = buildSheetMd({ ...b, profile: { ...b.profile, documentUnits: 'inch' } });
+    // 450 g = 15.87 oz and 508.7 g = 17.94 oz, to 0.1 oz (the same capstan figures as in grams above).
+    expect(lock).toContain('| lower_gate | actuator | 15.9 | 17.9 | 2.26 | its load, by its own capstan |');
+    expect(lock).toContain(
+      '| outputs | lower_gate (actuator, 15.9 oz), upper_gate (actuator, 15.9 oz), fill (actuator, 10.6 oz)',
+    );
+    expect(lock).toContain(
+      '| output | shown by | load (oz) | most it can lift at margin 2 (oz) | margin | what it moves |',
+    );
+    expect(lock).toContain('from visitor end (in)');
+    expect(lock).toContain('check its 4 in bar first');
+    expect(lock).toContain(
+      '| ✓ | step | cord | from | side | turns | to | port | bays | length to cut | routing | load (oz) | margin |',
+    );
+    // Each drum's length in feet and inches, to the nearest sixteenth (1 in = 25.4 mm exactly, NIST SP 811 B.8).
+    for (const d of b.placement.drums) {
+      const words = new RegExp(`drum ${d.drum}: ([^,]+), ${d.bays.length} bays`).exec(lock)?.[1] ?? '';
+      expect(words, `drum ${d.drum}`).toMatch(/^(\d+ ft)?( ?\d+)?( \d+\/\d+)? in$|^\d+ ft$/);
+    }
+    // The choice of units is listed with the profile's changes, as a choice rather than a figure wanting a source.
+    expect(lock).toContain(
+      '| `documentUnits` | `inch` | `metric` | the workshop’s choice of units (no figure to source) |',
+    );
+    // Torque stays SI.
+    expect(lock).toMatch(/\| worst drum torque \| [\d.]+ N·m \|/);
+  });
 });

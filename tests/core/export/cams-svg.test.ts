@@ -117,3 +117,26 @@ describe('core/export/cams-svg', () => {
     expect(svg).toContain('100 mm check bar');
   });
 });
+
+describe('core/export/cams-svg', () => {
+  it('draws a 4 in check bar with quarter-inch ticks where the profile asks for inches (1 in = 25.4 mm exactly, NIST SP 811 B.8)', () => {
+    const inch = { ...DEFAULT_PROFILE, documentUnits: 'inch' as const };
+    const svg = camsSvg('bell', { cam: { phi1: [0, 98.2], phi2: [130.9, 294.5] }, crankRpm: 16.7 }, inch);
+    // The long line of the bar, read from the drawing's own geometry (one user unit per mm).
+    const bar = /<line x1="([\d.]+)" y1="([\d.]+)" x2="([\d.]+)" y2="\2" class="bar" \/>/.exec(svg);
+    const widthMm = Number(bar?.[3]) - Number(bar?.[1]);
+    expect(widthMm / 25.4).toBeCloseTo(4, 9);
+    expect(svg).toContain('4 in check bar');
+    expect(svg).toContain('measures 4 in before cutting');
+    expect(svg).not.toContain('100 mm');
+    // Ticks every quarter inch (6.35 mm), 17 of them from 0 to 4 in.
+    const ticks = [...svg.matchAll(/<line x1="([\d.]+)" y1="[\d.]+" x2="\1" y2="[\d.]+" class="bar" \/>/g)].map(
+      (m) => Number(m[1]) - Number(bar?.[1]),
+    );
+    expect(ticks).toHaveLength(17);
+    ticks.forEach((t, q) => expect(t).toBeCloseTo(q * 6.35, 6));
+    // The sizes in inches: the 80 mm base circle is 3.150 in, the 15 mm lift 0.591 in (decimal: no true fraction).
+    expect(svg).toContain('Base circle Ø 3.150 in');
+    expect(svg).toContain('lift 0.591 in');
+  });
+});

@@ -272,3 +272,91 @@ describe('core/export/cut-list', () => {
     expect(cutMetres(1.0000000001)).toBe(1);
   });
 });
+
+describe('core/export/cut-list', () => {
+  /** Feet and inches as the cut list writes them, read back by this test alone, in inches. */
+  const readFeetInches = (t: string): number => {
+    const m = /^(?:(\d+) ft)?(?: ?(\d+))?(?: ?(\d+)\/(\d+))?(?: in)?$/.exec(t);
+    if (!m || t === '') throw new Error(`not feet and inches: ${t}`);
+    return Number(m[1] ?? 0) * 12 + Number(m[2] ?? 0) + (m[3] ? Number(m[3]) / Number(m[4]) : 0);
+  };
+
+  it('cuts every piece in inches at least as long as its metric piece and within 1/16 in of it (1 in = 0.0254 m exactly, NIST SP 811 B.8)', () => {
+    for (const name of exampleNames()) {
+      const b = example(name);
+      const metric = csvParse(buildDocuments(b).get('cut-list.csv') ?? '');
+      const inch = csvParse(
+        buildDocuments({ ...b, profile: { ...b.profile, documentUnits: 'inch' } }).get('cut-list.csv') ?? '',
+      );
+      expect(inch.columns, name).toEqual([
+        'group',
+        'item',
+        'piece',
+        'count',
+        'length (in)',
+        'length (ft in)',
+        'size',
+        'where',
+        'note',
+      ]);
+      expect(inch, name).toHaveLength(metric.length);
+      let pieces = 0;
+      metric.forEach((row, i) => {
+        const other = inch[i];
+        expect([other.group, other.item, other.piece, other.count], name).toEqual([
+          row.group,
+          row.item,
+          row.piece,
+          row.count,
+        ]);
+        if (row['length (m)'] === '') {
+          expect(other['length (in)'], name).toBe('');
+          return;
+        }
+        const m = Number(row['length (m)']);
+        const inches = Number(other['length (in)']);
+        // The workshop's form says the same length as the spreadsheet's column.
+        expect(readFeetInches(other['length (ft in)']), `${name} ${row.item} ${row.piece}`).toBe(inches);
+        // A whole number of sixteenths …
+        expect(Number.isInteger(inches * 16), `${name} ${row.item}`).toBe(true);
+        // … never shorter than the metric piece, and less than a sixteenth longer.
+        expect(inches * 0.0254, `${name} ${row.item} ${row.piece}`).toBeGreaterThanOrEqual(m - 1e-9);
+        expect(inches * 0.0254, `${name} ${row.item} ${row.piece}`).toBeLessThan(m + 0.0254 / 16);
+        if (row.group === 'cord') pieces++;
+      });
+      expect(pieces, name).toBeGreaterThan(0);
+    }
+  });
+
+  it('sums in the spreadsheet column: the cord pieces of a cord add up to its whole-cord row within a sixteenth per piece', () => {
+    const b = example('crossing.lw');
+    const rows = csvParse(
+      buildDocuments({ ...b, profile: { ...b.profile, documentUnits: 'inch' } }).get('cut-list.csv') ?? '',
+    );
+    const cords = new Map<string, { pieces: number; n: number; whole: number }>();
+    for (const r of rows.filter((x) => x.group === 'cord')) {
+      const c = cords.get(r.item) ?? { pieces: 0, n: 0, whole: 0 };
+      if (r.piece === 'whole cord') c.whole = Number(r['length (in)']);
+      else {
+        c.pieces += Number(r['length (in)']);
+        c.n++;
+      }
+      cords.set(r.item, c);
+    }
+    for (const [cord, c] of cords) {
+      // Each length, the whole cord's too, is rounded up by at most 1 mm (metric) and then 1/16 in.
+      expect(Math.abs(c.pieces - c.whole), cord).toBeLessThanOrEqual((c.n + 1) * (1 / 25.4 + 1 / 16));
+    }
+  });
+
+  it('writes sizes in inches and weights in ounces where the profile asks for inches (1 oz = 28.349523125 g, NIST Handbook 44 C)', () => {
+    const b = example('marble-bell.lw');
+    const text = buildDocuments({ ...b, profile: { ...b.profile, documentUnits: 'inch' } }).get('cut-list.csv') ?? '';
+    const rows = csvParse(text);
+    // 15 g = 0.529 oz, to 0.1 oz.
+    for (const w of rows.filter((r) => r.group === 'weight')) expect(w.size).toBe('0.5 oz');
+    // 3 mm cord is 0.118 in (decimal: 1/8 in would be another cord).
+    for (const c of rows.filter((r) => r.group === 'cord')) expect(c.size).toBe('0.118 in cord');
+    expect(text).not.toMatch(/\d mm\b| g,/);
+  });
+});

@@ -288,3 +288,47 @@ describe('core/export/frame-svg (ids for a page, and the screen palette)', () =>
     }
   });
 });
+
+describe('core/export/frame-svg', () => {
+  it('draws a scale bar of whole inches or feet where the profile asks for inches, as long as its label says at the scale', () => {
+    // 1 in = 25.4 mm and 1 ft = 304.8 mm exactly (NIST SP 811 B.8).
+    for (const name of ['crossing.lw', 'marble-bell.lw', 'odd-lever.lw']) {
+      const b = example(name);
+      const inch: Profile = { ...b.profile, documentUnits: 'inch' };
+      const svg = frameSvg(b.build, b.placement, inch);
+      const f = b.profile.frame;
+      const top = b.placement.drums[b.placement.drums.length - 1].levelM;
+      const heightM = top + f.railAboveDrumM + 0.05 + f.channelBelowDrumM;
+      const scale = frameScale(Math.max(...b.placement.drums.map((d) => d.lengthM)), heightM);
+      // The same scale as the metric drawing: only the words change.
+      expect(svg, name).toContain(`scale 1:${scale} — check the bar`);
+      const blocks = [
+        ...svg.matchAll(/<rect x="([\d.]+)" y="([\d.]+)" width="([\d.]+)" height="1.6" class="bar-[ab]" \/>/g),
+      ];
+      const first = Number(blocks[0][1]);
+      const last = blocks[blocks.length - 1];
+      const drawnMm = Number(last[1]) + Number(last[3]) - first;
+      const label = /<text [^>]*>(\d+) (in|ft)<\/text>/.exec(svg.slice(svg.indexOf('class="bar-a"')));
+      expect(label, name).not.toBeNull();
+      const saidMm = Number(label?.[1]) * (label?.[2] === 'ft' ? 304.8 : 25.4);
+      // Positions are written to 0.1 mm: the bar measures its label to within that, at the drawing's scale.
+      expect(Math.abs(drawnMm * scale - saidMm), name).toBeLessThanOrEqual(0.15 * scale);
+      expect(drawnMm, name).toBeLessThanOrEqual(80.1);
+      expect(svg, name).not.toMatch(/<text [^>]*>[\d.]+ m<\/text>/);
+      expect(svg, name).toContain('centre in inches from the visitor end');
+    }
+  });
+
+  it('writes the drum lengths in feet and inches to the nearest sixteenth where the profile asks for inches', () => {
+    const b = example('crossing.lw');
+    const svg = frameSvg(b.build, b.placement, { ...b.profile, documentUnits: 'inch' });
+    for (const d of b.placement.drums) {
+      const words = new RegExp(`drum ${d.drum}: ([^,<]+), ${d.bays.length} bays`).exec(svg)?.[1] ?? '';
+      const m = /^(?:(\d+) ft)? ?(?:(\d+))? ?(?:(\d+)\/(\d+))? in$|^(\d+) ft$/.exec(words);
+      expect(m, words).not.toBeNull();
+      const inches =
+        Number(m?.[1] ?? m?.[5] ?? 0) * 12 + Number(m?.[2] ?? 0) + (m?.[3] ? Number(m[3]) / Number(m[4]) : 0);
+      expect(Math.abs(inches * 0.0254 - d.lengthM), words).toBeLessThanOrEqual(0.0254 / 32 + 1e-12);
+    }
+  });
+});

@@ -265,6 +265,36 @@ describe('core/physics/profile-load', () => {
     expect(errorsOf({ frame: 'wide' })[0]).toMatchObject({ code: 'LW600', location: { path: '$.frame' } });
   });
 
+  it('takes documentUnits "metric" or "inch", and gives LW600 at $.documentUnits with a hint for anything else', () => {
+    expect(loadProfile({ documentUnits: 'inch' })).toEqual({
+      profile: { ...DEFAULT_PROFILE, documentUnits: 'inch' },
+      diagnostics: [],
+    });
+    expect(DEFAULT_PROFILE.documentUnits).toBe('metric');
+    const bad = errorsOf({ documentUnits: 'inches' });
+    expect(bad).toHaveLength(1);
+    expect(bad[0]).toMatchObject({
+      code: 'LW600',
+      severity: 'error',
+      location: { file: 'shop.json', path: '$.documentUnits' },
+      hint: "did you mean 'inch'?",
+    });
+    expect(bad[0].message).toContain("'documentUnits'");
+    // A word for the system rather than our name for it: the hint names the one it means.
+    expect(errorsOf({ documentUnits: 'imperial' })[0].hint).toBe("did you mean 'inch'?");
+    expect(errorsOf({ documentUnits: 'SI' })[0].hint).toBe("did you mean 'metric'?");
+    // The wrong type: the same code and place, and a hint that says what the field is.
+    for (const v of [3, true, null, ['inch'], { inch: 1 }]) {
+      const [d] = errorsOf({ documentUnits: v });
+      expect(d, JSON.stringify(v)).toMatchObject({ code: 'LW600', location: { path: '$.documentUnits' } });
+      expect(d.hint, JSON.stringify(v)).toContain('"metric"');
+    }
+    expect(loadProfile({ documentUnits: 'furlong' }).profile).toBeUndefined();
+    expect(profileChanges(loadProfile({ documentUnits: 'inch' }).profile!)).toEqual([
+      { field: 'documentUnits', value: 'inch', fallback: 'metric', source: undefined },
+    ]);
+  });
+
   it('rejects a value that is not an object with LW100', () => {
     for (const v of [null, 3, 'mu', [1]]) expect(errorsOf(v)[0].code).toBe('LW100');
   });

@@ -11,12 +11,15 @@ import { host } from './host.support.js';
 import { DEFAULT_PROFILE, loadProfile } from '../../../src/core/index.js';
 import { PROFILE_RULES } from '../../../src/core/physics/index.js';
 import {
+  documentUnitsOf,
   fieldFacts,
   fieldWords,
   otherFields,
   parseStoredProfile,
   readProfileFile,
   typedValue,
+  UNITS_CHOICES,
+  unitsRaw,
   withCordRoute,
   withValue,
   WORKSHOP_FIELDS,
@@ -223,5 +226,23 @@ describe('src/web/controllers/workshop', () => {
     w.route('c.clk.phi1', undefined);
     expect(w.draft.value).toEqual({});
     expect(told.at(-1)).toBeUndefined();
+  });
+
+  it('offers the units of the papers the core knows, leaving the field out for metric (the default) and saving inch', () => {
+    expect(UNITS_CHOICES.map((c) => c.units)).toEqual(['metric', 'inch']);
+    const { w, told } = form();
+    w.edit('documentUnits', unitsRaw('inch'));
+    expect(w.draft.value).toEqual({ documentUnits: 'inch' });
+    expect(w.problems).toEqual([]);
+    expect(told.at(-1)?.value).toEqual({ documentUnits: 'inch' });
+    expect(documentUnitsOf(w.draft.value)).toBe('inch');
+    expect(JSON.parse(profileFileText(w.draft))).toEqual({ documentUnits: 'inch' });
+    w.edit('documentUnits', unitsRaw('metric'));
+    expect(w.draft.value).toEqual({});
+    expect(told.at(-1)).toBeUndefined();
+    // A file with a word the loader refuses: its code at the field, and the choice shows metric.
+    w.open('{ "documentUnits": "imperial" }', 'shop.json');
+    expect(w.problemsAt('documentUnits').map((d) => d.code)).toEqual(['LW600']);
+    expect(documentUnitsOf({ documentUnits: 'imperial' })).toBe('metric');
   });
 });
