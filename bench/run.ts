@@ -21,6 +21,7 @@ import { benchSimulatorAndChecks } from './sim-checks.js';
 import { median } from './median.js';
 import { benchBuildTable } from './build-table.js';
 import { benchDrawings } from './drawings.js';
+import { benchFaults } from './faults.js';
 import { mustAnalyse } from './machines.js';
 import { ms, type BenchRow } from './row.js';
 
@@ -104,6 +105,10 @@ async function main(): Promise<void> {
   step('drawings');
   rows.push(...benchDrawings());
   // ── end of drawings ──
+  // ── Fault simulation of the commissioning sheet (bench/faults.ts) ──
+  step('fault simulation of the commissioning sheet');
+  rows.push(...benchFaults());
+  // ── end of fault simulation ──
   extra.push(await benchBuildTable({ quick: process.argv.includes('--quick') }));
   try {
     step('browser');

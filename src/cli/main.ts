@@ -26,9 +26,13 @@ Usage:
   latchwright build FILE [--encoding NAME] [--profile FILE] [--seed N]
                          [--unused dont-care|STATE] [--pin PART=BAY[@DRUM] …]
                          [--shop-units metric|inch] [--json] [--out DIR [--force]]
+                         [--saw STEP:WHAT=POSITION]
       Synthesise the lever machine, place every part in a bay along the drum,
       route every cord, run every check, print the report (or the build
       documents into DIR: sheets, frame drawing, cam templates, cut list …).
+      --saw names the cords to look at when step STEP of the commissioning
+      sheet did not match: --saw 14:s0-set-Z=up (the column's name, dashes
+      for spaces).
       --pin keeps a part in a bay, counted from 1 at the visitor end of drum 1
       (or of drum DRUM): --pin rst=22 --pin m0=5@2; several may be given, or
       joined with commas. Part ids are in netlist.json; a latch id pins its
@@ -60,7 +64,7 @@ function encodingLines(): string {
 }
 
 const SPEC = {
-  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out', 'shop-units'],
+  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out', 'shop-units', 'saw'],
   switches: ['json', 'force', 'abstract', 'help', 'version'],
   lists: ['pin'],
 };

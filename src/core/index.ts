@@ -297,9 +297,17 @@ export {
   buildSheetMd,
   CAUTIONS,
   commissioningTour,
+  cordFinder,
+  cordFinderCsv,
+  cordsFor,
+  coverageBlock,
+  coverageLine,
+  sheetFaults,
+  sightWords,
   diagramSvg,
   documentByFile,
   documentSources,
+  documentsOf,
   DOCUMENT_FILES,
   DOCUMENT_MAKERS,
   DOCUMENT_REGISTRY,
@@ -309,6 +317,9 @@ export {
   verilogFiles,
   wiringCsv,
   wiringRows,
+  type CordFinder,
+  type FinderEntry,
+  type SheetFaults,
   type DocumentEntry,
   type DocumentFile,
   type DocumentName,
@@ -322,4 +333,4 @@ export {
   type VerilogFiles,
   type WiringRow,
 } from './export/index.js';
-export { buildReport, equationTexts, layoutBlock, machineBlock } from './report.js';
+export { buildReport, equationTexts, layoutBlock, machineBlock, type CommissioningCoverage } from './report.js';

@@ -61,8 +61,21 @@ export function profileBlock(profile: Profile) {
   };
 }
 
-/** The whole report as one JSON-ready object. */
-export function buildReport(b: Built) {
+/**
+ * What the fault simulation of the commissioning sheet found (export/sheet-faults.ts
+ * `coverageBlock`, made by the shell with the documents so it runs once): counts of cord faults
+ * shown, by kind.
+ */
+export interface CommissioningCoverage {
+  readonly faults: number;
+  readonly collapsed: number;
+  readonly simulated: number;
+  readonly sampled: boolean;
+  readonly shown: number;
+}
+
+/** The whole report as one JSON-ready object; `commissioning`, when given, is the sheet's coverage of cord faults. */
+export function buildReport<C extends CommissioningCoverage>(b: Built, commissioning?: C) {
   const f = b.build.machine;
   return {
     machine: machineBlock(b.analysed),
@@ -82,6 +95,7 @@ export function buildReport(b: Built) {
     ok: b.checks.every((c) => c.ok),
     bom: billOfMaterials(b.build.netlist, b.profile, b.placement),
     operatorForces: operatorForces(b.build.netlist, b.profile),
+    ...(commissioning ? { commissioning } : {}),
     netlist: b.build.netlist,
     diagnostics: b.diagnostics,
   };

@@ -40,6 +40,17 @@ interface Report {
   checks: Check[];
   ok: boolean;
   bom: { item: string; kind: string; count: number }[];
+  commissioning: {
+    faults: number;
+    collapsed: number;
+    simulated: number;
+    sampled: boolean;
+    shown: number;
+    tourClocks: number;
+    extraClocks: number;
+    total: { faults: number; tour: number; extra: number; may: number; never: number; open: number };
+    byKind: Record<'slack' | 'taut' | 'untied', { faults: number; tour: number; extra: number }>;
+  };
   layout: {
     method: string;
     exact: boolean;
@@ -103,6 +114,21 @@ describe('cli/commands/build --json', () => {
       outputs: 1,
     });
     expect(r.json.ok).toBe(true);
+  });
+
+  // Coverage as properties only (docs/methods/faults.md): the figures add up, and the clocks
+  // added never lose a fault the tour showed.
+  it('commissioning: the coverage of cord faults by the sheet, by kind, adding up', () => {
+    const c = r.json.commissioning;
+    expect(c.sampled).toBe(false);
+    expect(c.simulated).toBe(c.collapsed);
+    expect(c.collapsed).toBeLessThanOrEqual(c.faults);
+    expect(c.shown).toBe(c.total.tour + c.total.extra);
+    expect(c.shown).toBeGreaterThanOrEqual(c.total.tour);
+    expect(c.total.tour + c.total.extra + c.total.never + c.total.open).toBe(c.total.faults);
+    const kinds = Object.values(c.byKind);
+    expect(kinds.reduce((a, k) => a + k.faults, 0)).toBe(c.total.faults);
+    expect(c.extraClocks > 0).toBe(c.total.extra > 0);
   });
 
   it('encoding: strategy, bits and one code per state (binary counts in state order)', () => {
@@ -193,6 +219,7 @@ describe('cli/commands/build (text report)', () => {
     expect(t.out).toContain('encoding binary, 2 state bits: none=00 one=01 two=10 rung=11\n');
     expect(t.out).toContain('  bell = q0 & q1\n');
     for (const name of CHECK_NAMES) expect(t.out).toMatch(new RegExp(`^ {2}ok {3}${name}: `, 'm'));
+    expect(t.out).toMatch(/^commissioning sheet: shows \d+ of \d+ cord faults \(\d+ by the tour/m);
     expect(t.out).toMatch(/^Safety: /m);
     expectNoStack(t);
   });
@@ -448,5 +475,42 @@ describe('cli/commands/build: the frame', () => {
     const r = await run(['--help']);
     expect(r.out).toContain('[--pin PART=BAY[@DRUM] …]');
     expect(r.out).toMatch(/--pin keeps a part in a bay/);
+  });
+});
+
+describe('cli/commands/build --saw', () => {
+  // The answer is the core's dictionary (tests/core/export/cord-finder.test.ts holds its round
+  // trip); here: the command line reads the question and says it in words or in JSON.
+  it('names the cords to look at for what was seen at a step', async () => {
+    const j = await runJson<{ saw: { step: number; what: string; seen: string; cords: { cord: string }[] } }>([
+      'build',
+      LOCK,
+      '--encoding',
+      'binary',
+      '--json',
+      '--saw',
+      '1:s0 set Z=down',
+    ]);
+    expect(j.code).toBe(0);
+    expect(j.json.saw).toMatchObject({ step: 1, what: 's0 set Z', seen: 'down' });
+    const t = await run(['build', LOCK, '--encoding', 'binary', '--saw', '1:S0-set_Z=down']);
+    expect(t.code).toBe(0);
+    expect(t.out).toContain('at step 1 you saw s0 set Z down: ');
+    if (j.json.saw.cords.length > 0) expect(t.out).toContain(`look at ${j.json.saw.cords[0].cord}: `);
+    expectNoStack(t);
+  });
+
+  it('refuses a question it cannot read with LW700 and a hint, never a stack', async () => {
+    for (const [saw, words] of [
+      ['s0 set Z up', 'is not STEP:WHAT=POSITION'],
+      ['0:s0 set Z=up', 'has steps 1 to'],
+      ['1:s0 sat Z=up', "did you mean 's0 set Z'"],
+    ]) {
+      const t = await run(['build', LOCK, '--encoding', 'binary', '--saw', saw]);
+      expect(t.code, saw).toBe(2);
+      expect(t.err, saw).toContain('LW700');
+      expect(t.err, saw).toContain(words);
+      expectNoStack(t);
+    }
   });
 });

@@ -3,6 +3,8 @@ import {
   buildReport,
   type Built,
   counted,
+  coverageBlock,
+  coverageLine,
   type Diagnostic,
   equationTexts,
   withoutCapstanWords,
@@ -11,7 +13,8 @@ import type { ParsedArgs } from '../args.js';
 import { buildFromArgs } from './build-common.js';
 import { EXIT } from '../exit.js';
 import type { RunContext } from './common.js';
-import { writeDocuments } from './out.js';
+import { sawAnswer, sawText } from './build-saw.js';
+import { sourcesOf, writeDocuments } from './out.js';
 
 export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<number> {
   const r = await buildFromArgs(args, ctx);
@@ -22,8 +25,9 @@ export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<numbe
   const b = r.built;
   const ok = b.checks.every((c) => c.ok);
   const notes: Diagnostic[] = [];
+  const sources = sourcesOf(b);
   if (typeof args.flags.out === 'string') {
-    const w = writeDocuments(b, args.flags.out, args.flags.force === true);
+    const w = writeDocuments(sources, args.flags.out, args.flags.force === true);
     if (!w.ok) {
       ctx.fail([...r.diagnostics, w.diagnostic]);
       return EXIT.badInput;
@@ -31,16 +35,25 @@ export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<numbe
     notes.push(...w.notes);
     if (!ctx.json) ctx.io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);
   }
+  const saw = typeof args.flags.saw === 'string' ? sawAnswer(args.flags.saw, sources) : undefined;
+  if (saw && 'code' in saw) {
+    ctx.fail([...r.diagnostics, saw]);
+    return EXIT.badInput;
+  }
   ctx.show([...r.diagnostics, ...notes]);
   if (ctx.json) {
-    const report = buildReport(b);
-    ctx.io.out(JSON.stringify({ ...report, diagnostics: ctx.present([...r.diagnostics, ...notes]) }, null, 2) + '\n');
-  } else ctx.io.out(textReport(b));
+    const report = buildReport(b, coverageBlock(sources.faults()));
+    const doc = { ...report, ...(saw ? { saw } : {}), diagnostics: ctx.present([...r.diagnostics, ...notes]) };
+    ctx.io.out(JSON.stringify(doc, null, 2) + '\n');
+  } else {
+    ctx.io.out(textReport(b, coverageLine(sources.faults())));
+    if (saw) ctx.io.out(sawText(saw));
+  }
   return ok ? EXIT.ok : EXIT.checkFailed;
 }
 
-/** The terminal report: short, in the workshop's words. */
-export function textReport(b: Built): string {
+/** The terminal report: short, in the workshop's words; `coverage` is the commissioning sheet's line. */
+export function textReport(b: Built, coverage?: string): string {
   const f = b.build.machine;
   const m = b.analysed.machine;
   const p = b.build.parts;
@@ -65,6 +78,7 @@ export function textReport(b: Built): string {
   for (const e of equationTexts(b)) lines.push(`  ${e.name} = ${e.expr}`);
   lines.push('checks:');
   for (const c of b.checks) lines.push(`  ${c.ok ? 'ok  ' : 'FAIL'} ${c.name}: ${c.summary}`);
+  if (coverage !== undefined) lines.push(coverage);
   lines.push(
     'Safety: turning drums, hanging weights and levers can hurt people; see the build sheet (--out) for the cautions.',
   );

@@ -2,16 +2,22 @@
  * The commissioning sheet as a printable page (landscape): how to use it, the safety
  * cautions, where every lever is (by bay: "bay 7, drum 1"), the sequence table with a tick
  * box per hand action and the expected position of every latch lever and output after it,
- * and the frame drawing, state diagram and schematic, each on a page of its own. Content from
+ * then, when the fault simulation is given, the clocks appended to catch the cords the tour
+ * does not show and the section on finding a broken cord (cord-finder.ts), and the frame
+ * drawing, state diagram and schematic, each on a page of its own. Content from
  * commissioning.ts; rendered by the shared Doc renderer (every name escaped there).
  */
 import type { Build } from '../model/build.js';
+import { counted } from '../model/words.js';
 import type { Placement } from '../phases/place/index.js';
 import { renderDocHtml } from './build-sheet-html.js';
+import { renderDocMd } from './build-sheet-md.js';
 import { CAUTIONS, drawingFigures, type Drawings } from './build-sheet.js';
 import { bayWords, showsWords, type CommissioningRow } from './commissioning.js';
+import { coverageWords, finderSection, type CordFinder } from './cord-finder.js';
 import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { partWords } from './part-words.js';
+import type { SheetFaults } from './sheet-faults.js';
 import { reachableTransitions, type TourClock } from './tour.js';
 
 /** What the sequence covers, in words. */
@@ -67,13 +73,48 @@ function drawingsSection(drawings: Drawings): Section {
   return { id: 'drawings', title: 'Drawings', blocks: [f.frame, f.stateDiagram, f.schematic] };
 }
 
-/** The commissioning sheet as a Doc; `placement` names every lever by its bay, `drawings` adds the drawings. */
+/** The fault simulation of the sheet and its dictionary, for the sheet's section on finding a broken cord. */
+export interface SheetFaultWords {
+  readonly sheet: SheetFaults;
+  readonly finder: CordFinder;
+}
+
+/** The sequence table, split where the clocks appended to catch the remaining cords begin. */
+function sequenceSections(
+  headers: readonly string[],
+  body: readonly (readonly string[])[],
+  rows: readonly CommissioningRow[],
+  tour: readonly TourClock[],
+  mono: readonly number[],
+): Section[] {
+  const first = tour.findIndex((c) => c.extra === true);
+  const split = first < 0 ? rows.length : rows.findIndex((r) => r.clock > first);
+  const at = split < 0 ? rows.length : split;
+  const sections: Section[] = [
+    { id: 'sequence', title: 'Sequence', blocks: [table(headers, body.slice(0, at), { tick: true, mono })] },
+  ];
+  if (at < rows.length)
+    sections.push({
+      id: 'catching',
+      title: 'Clocks that catch the remaining cords',
+      blocks: [
+        p(
+          `The tour above leaves some broken cords unshown. Go on with these ${counted(tour.length - first, 'clock')} (the steps go on counting): each run of them shows at least one of those cords, at the row the section on finding the cord gives.`,
+        ),
+        table(headers, body.slice(at), { tick: true, mono }),
+      ],
+    });
+  return sections;
+}
+
+/** The commissioning sheet as a Doc; `placement` names every lever by its bay, `drawings` adds the drawings, `faults` the section on finding a broken cord. */
 export function commissioningDoc(
   build: Build,
   rows: readonly CommissioningRow[],
   tour: readonly TourClock[],
   placement?: Placement,
   drawings?: Drawings,
+  faults?: SheetFaultWords,
 ): Doc {
   const f = build.machine;
   const first = rows[0];
@@ -126,6 +167,7 @@ export function commissioningDoc(
             : []),
           p('A flag "up (1)" shows 1. An actuator "lifted (1)" is pulling its load.'),
           p(coverage(taken, reachableTransitions(f).length)),
+          ...(faults ? [p(coverageWords(faults.sheet))] : []),
         ],
       },
       {
@@ -134,11 +176,14 @@ export function commissioningDoc(
         blocks: [{ kind: 'note', tone: 'caution', title: 'Cautions', items: CAUTIONS }],
       },
       ...(placement ? [whereSection(build, placement)] : []),
-      {
-        id: 'sequence',
-        title: 'Sequence',
-        blocks: [table(headers, body, { tick: true, mono: latches.map((_, i) => 3 + i) })],
-      },
+      ...sequenceSections(
+        headers,
+        body,
+        rows,
+        tour,
+        latches.map((_, i) => 3 + i),
+      ),
+      ...(faults ? [finderSection(faults.finder, faults.sheet)] : []),
       ...(drawings ? [drawingsSection(drawings)] : []),
     ],
   };
@@ -151,6 +196,19 @@ export function commissioningHtml(
   tour: readonly TourClock[],
   placement?: Placement,
   drawings?: Drawings,
+  faults?: SheetFaultWords,
 ): string {
-  return renderDocHtml(commissioningDoc(build, rows, tour, placement, drawings));
+  return renderDocHtml(commissioningDoc(build, rows, tour, placement, drawings, faults));
+}
+
+/** The commissioning sheet in Markdown (the same content; drawings linked to their files). */
+export function commissioningMd(
+  build: Build,
+  rows: readonly CommissioningRow[],
+  tour: readonly TourClock[],
+  placement?: Placement,
+  drawings?: Drawings,
+  faults?: SheetFaultWords,
+): string {
+  return renderDocMd(commissioningDoc(build, rows, tour, placement, drawings, faults));
 }

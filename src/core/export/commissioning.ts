@@ -23,7 +23,7 @@ import type { Build } from '../model/build.js';
 import type { OutBit } from '../model/machine.js';
 import type { Placement } from '../phases/place/index.js';
 import type { Profile } from '../physics/profile.js';
-import { clockActions, resetActions, valuesOf, type HandAction } from '../sim/hand.js';
+import { type HandAction } from '../sim/hand.js';
 import {
   isAlarm,
   outputValues,
@@ -39,6 +39,7 @@ import {
 } from '../sim/part.js';
 import { CAUTIONS } from './build-sheet.js';
 import { toCsv } from './csv.js';
+import { sheetSteps } from '../sim/sheet.js';
 import type { TourClock } from './tour.js';
 
 /** Position of a lever: Z down when its gate's output is 1; '?' when the simulator cannot tell. */
@@ -147,29 +148,20 @@ export function commissioningRows(
       ),
     );
   };
-  const inputs = f.inputs;
-  if (seq) run(0, words.reset(true), resetActions(), { next: f.start });
-  let current = valuesOf(inputs, '0'.repeat(inputs.length));
-  tour.forEach((c, i) => {
-    const clock = i + 1;
-    if (c.reset && seq) run(clock, words.reset(false), resetActions(), { next: f.start });
-    const values = valuesOf(inputs, c.inputs);
-    const moves = clockActions(inputs, values, current).slice(0, -4);
-    const out = f.rows[c.state][c.row].out;
-    if (inputs.length > 0) run(clock, words.inputs(inputs, c.inputs, moves.length === 0), moves, { out });
-    else if (!seq) run(clock, 'Look at the flags.', [], { out });
-    current = values;
-    if (!seq) return;
-    run(
-      clock,
-      words.clock('Pull', 'phi1'),
-      [{ kind: 'pull', lever: 'phi1' }],
-      inputs.length === 0 ? { out, outBefore: true } : {},
-    );
-    run(clock, words.clock('Release', 'phi1'), [{ kind: 'release', lever: 'phi1' }]);
-    run(clock, words.clock('Pull', 'phi2'), [{ kind: 'pull', lever: 'phi2' }]);
-    run(clock, words.clock('Release', 'phi2'), [{ kind: 'release', lever: 'phi2' }], { next: c.next });
-  });
+  for (const st of sheetSteps(f.inputs, seq, tour)) {
+    const c = st.at >= 0 ? tour[st.at] : undefined;
+    const out = c ? f.rows[c.state][c.row].out : undefined;
+    if (st.kind === 'reset') run(st.clock, words.reset(st.at < 0), st.actions, { next: f.start });
+    else if (st.kind === 'inputs' && c)
+      run(st.clock, words.inputs(f.inputs, c.inputs, st.actions.length === 0), st.actions, { out });
+    else if (st.kind === 'look') run(st.clock, 'Look at the flags.', st.actions, { out });
+    else if (st.kind === 'pull-phi1')
+      run(st.clock, words.clock('Pull', 'phi1'), st.actions, f.inputs.length === 0 ? { out, outBefore: true } : {});
+    else if (st.kind === 'release-phi1') run(st.clock, words.clock('Release', 'phi1'), st.actions);
+    else if (st.kind === 'pull-phi2') run(st.clock, words.clock('Pull', 'phi2'), st.actions);
+    else if (st.kind === 'release-phi2')
+      run(st.clock, words.clock('Release', 'phi2'), st.actions, c ? { next: c.next } : {});
+  }
   return rows;
 }
 

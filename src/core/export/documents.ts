@@ -13,7 +13,8 @@
  * Order: the order the documents are listed and written in.
  * Postcondition: the same input gives byte-identical documents; the pieces several documents
  * share (the placement, the drawings, the commissioning sequence, its simulated rows, the
- * Verilog pair) are made once per input, when first asked for.
+ * Verilog pair, the fault simulation of the commissioning sheet) are made once per input, when
+ * first asked for.
  */
 import { findCheck } from '../checks/results.js';
 import { checkTiming } from '../checks/timing.js';
@@ -25,12 +26,14 @@ import { buildSheetMd } from './build-sheet-md.js';
 import type { DocumentsInput, Drawings } from './build-sheet.js';
 import { camsSvg } from './cams-svg.js';
 import { commissioningCsv, commissioningRows, type CommissioningRow } from './commissioning.js';
-import { commissioningHtml } from './commissioning-html.js';
+import { commissioningHtml, commissioningMd } from './commissioning-html.js';
+import { cordFinder, cordFinderCsv, type CordFinder } from './cord-finder.js';
 import { cutListCsv, cutListRows } from './cut-list.js';
 import { diagramSvg } from './diagram-svg.js';
 import { frameSvg } from './frame-svg.js';
 import { netlistJson } from './netlist-json.js';
 import { schematicSvg } from './schematic-svg.js';
+import { sheetFaults, type SheetFaults } from './sheet-faults.js';
 import { commissioningTour, type TourClock } from './tour.js';
 import { verilogFiles, type VerilogFiles } from './verilog.js';
 import { wiringCsv, wiringRows } from './wiring.js';
@@ -42,8 +45,16 @@ export interface DocumentSources {
   placement(): Placement;
   /** The frame drawing, the state diagram and the schematic (SVG texts), which the sheets embed. */
   drawings(): Drawings;
-  /** The commissioning input sequence: the one given, or the transition tour of the built machine. */
+  /**
+   * The commissioning input sequence: the one given, or the transition tour of the built
+   * machine followed by the clocks that catch the cords it does not show (`faults().extra`).
+   * The sheet, its CSV and Markdown and the Verilog testbench all step this one sequence.
+   */
   tour(): readonly TourClock[];
+  /** The fault simulation of the commissioning sheet: coverage, and the clocks appended to the sequence. */
+  faults(): SheetFaults;
+  /** The dictionary of broken cords by the first row that shows each. */
+  finder(): CordFinder;
   /** The commissioning rows: the part-level simulator run through `tour()`. */
   steps(): readonly CommissioningRow[];
   /** The structural Verilog module and its testbench. */
@@ -157,11 +168,27 @@ export const DOCUMENT_REGISTRY = [
     format: 'HTML, self-contained',
   },
   {
+    name: 'commissioning-md',
+    file: 'commissioning.md',
+    label: 'Commissioning sheet (Markdown)',
+    mime: 'text/markdown',
+    summary: 'the same sheet',
+    format: 'Markdown (CommonMark with pipe tables)',
+  },
+  {
     name: 'commissioning-csv',
     file: 'commissioning.csv',
     label: 'Commissioning sheet (CSV)',
     mime: 'text/csv',
     summary: 'the same sequence',
+    format: 'CSV (RFC 4180)',
+  },
+  {
+    name: 'cord-finder',
+    file: 'cord-finder.csv',
+    label: 'Finding a broken cord (CSV)',
+    mime: 'text/csv',
+    summary: 'by the first row of the commissioning sheet that differs and what is seen there, the cords to look at',
     format: 'CSV (RFC 4180)',
   },
   {
@@ -206,8 +233,18 @@ export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: Document
     ),
   schematic: (d) => d.drawings().schematic,
   'state-diagram': (d) => d.drawings().stateDiagram,
-  'commissioning-html': (d) => commissioningHtml(d.input.build, d.steps(), d.tour(), d.placement(), d.drawings()),
+  'commissioning-html': (d) =>
+    commissioningHtml(d.input.build, d.steps(), d.tour(), d.placement(), d.drawings(), {
+      sheet: d.faults(),
+      finder: d.finder(),
+    }),
+  'commissioning-md': (d) =>
+    commissioningMd(d.input.build, d.steps(), d.tour(), d.placement(), d.drawings(), {
+      sheet: d.faults(),
+      finder: d.finder(),
+    }),
   'commissioning-csv': (d) => commissioningCsv(d.steps()),
+  'cord-finder': (d) => cordFinderCsv(d.finder()),
   verilog: (d) => d.verilog().module,
   'verilog-testbench': (d) => d.verilog().testbench,
 };
@@ -232,14 +269,22 @@ export function documentSources(input: DocumentsInput): DocumentSources {
     stateDiagram: diagramSvg(input.build),
     schematic: schematicSvg(input.build),
   }));
-  const tour = once(() => input.tour ?? commissioningTour(input.build.machine));
+  const given = once(() => input.tour ?? commissioningTour(input.build.machine));
+  // A sequence the caller gives is stepped as given; the tour gets the clocks that catch the rest.
+  const faults = once(() => sheetFaults(input.build, input.profile, given(), { extend: input.tour === undefined }));
+  const tour = once(() => [...given(), ...faults().extra]);
   const steps = once(() => commissioningRows(input.build, input.profile, tour(), placement()));
+  const finder = once(() => cordFinder(input.build, steps(), faults(), placement()));
   const verilog = once(() => verilogFiles(input.build, input.profile, tour()));
-  return { input, placement, drawings, tour, steps, verilog };
+  return { input, placement, drawings, tour, faults, finder, steps, verilog };
 }
 
 /** Every build document: file name → content, in registry order. */
 export function buildDocuments(input: DocumentsInput): Map<DocumentFile, string> {
-  const sources = documentSources(input);
+  return documentsOf(documentSources(input));
+}
+
+/** Every build document from sources already made (a shell that reads them for more than the documents). */
+export function documentsOf(sources: DocumentSources): Map<DocumentFile, string> {
   return new Map(DOCUMENT_REGISTRY.map((d) => [d.file, DOCUMENT_MAKERS[d.name](sources)]));
 }

@@ -18,6 +18,7 @@ export {
   buildDocuments,
   documentByFile,
   documentSources,
+  documentsOf,
   DOCUMENT_FILES,
   DOCUMENT_MAKERS,
   DOCUMENT_REGISTRY,
@@ -31,7 +32,26 @@ export { bomCsv } from './bom-csv.js';
 export { buildSheetHtml, renderDocHtml } from './build-sheet-html.js';
 export { buildSheetMd, renderDocMd } from './build-sheet-md.js';
 export { commissioningCsv, commissioningRows, type CommissioningRow } from './commissioning.js';
-export { commissioningHtml } from './commissioning-html.js';
+export { commissioningHtml, commissioningMd } from './commissioning-html.js';
+export {
+  cordFinder,
+  cordFinderCsv,
+  cordsFor,
+  coverageWords,
+  sightWords,
+  type CordFinder,
+  type FinderEntry,
+  type Sight,
+} from './cord-finder.js';
+export {
+  coverageBlock,
+  coverageLine,
+  coverageOf,
+  sheetFaults,
+  FAULT_WORK,
+  type FaultVerdict,
+  type SheetFaults,
+} from './sheet-faults.js';
 export { csvField, recordsToCsv, toCsv, type CsvCell } from './csv.js';
 export { diagramLayout, diagramSvg } from './diagram-svg.js';
 export { netlistDocument, netlistJson, NETLIST_FORMAT, NETLIST_VERSION } from './netlist-json.js';

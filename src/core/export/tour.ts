@@ -34,6 +34,11 @@ export interface TourClock {
   readonly state: number;
   readonly row: number;
   readonly next: number;
+  /**
+   * A clock appended after the tour to show a broken cord the tour does not show
+   * (sheet-faults.ts); absent on the tour's own clocks.
+   */
+  readonly extra?: boolean;
 }
 
 export interface TourOptions {
