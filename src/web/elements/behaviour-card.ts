@@ -6,14 +6,15 @@
  * the text is written by the core's behaviours (src/core/behaviours).
  * Events: `use-behaviour` {text, sentence}.
  */
-import { LitElement, css, html, nothing } from 'lit';
+import { css, html, nothing } from 'lit';
+import { DialogCard } from './dialog-card.js';
 import type { Field } from '../../core/behaviours/index.js';
 import { BEHAVIOURS } from '../../core/behaviours/index.js';
 import { BehaviourDraft } from '../controllers/behaviour-draft.js';
 import { shared } from '../styles/shared.js';
 import { emit } from './emit.js';
 
-export class LwBehaviourCard extends LitElement {
+export class LwBehaviourCard extends DialogCard {
   private readonly draft = new BehaviourDraft(this);
 
   static override styles = [
@@ -172,19 +173,6 @@ export class LwBehaviourCard extends LitElement {
           : nothing
       }
     </label>`;
-  }
-
-  get open(): boolean {
-    return this.renderRoot.querySelector('dialog')?.open ?? false;
-  }
-
-  show(): void {
-    const d = this.renderRoot.querySelector('dialog');
-    if (d && !d.open) d.showModal();
-  }
-
-  close(): void {
-    this.renderRoot.querySelector('dialog')?.close();
   }
 
   private use = (): void => {

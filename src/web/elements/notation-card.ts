@@ -5,7 +5,8 @@
  * example on the bench" sends the example as a new machine.
  * Events: `use-example` {text}.
  */
-import { LitElement, css, html } from 'lit';
+import { css, html } from 'lit';
+import { DialogCard } from './dialog-card.js';
 import reference from '../../../docs/notation.md?raw';
 import { notationCard, type CardRow, type Inline } from '../notation.js';
 import { shared } from '../styles/shared.js';
@@ -15,7 +16,7 @@ const CARD = notationCard(reference);
 
 const words = (runs: readonly Inline[]) => runs.map((r) => (r.code ? html`<code>${r.text}</code>` : r.text));
 
-export class LwNotationCard extends LitElement {
+export class LwNotationCard extends DialogCard {
   static override styles = [
     shared,
     css`
@@ -115,19 +116,6 @@ export class LwNotationCard extends LitElement {
         </tbody>
       </table>
     </div>`;
-  }
-
-  get open(): boolean {
-    return this.renderRoot.querySelector('dialog')?.open ?? false;
-  }
-
-  show(): void {
-    const d = this.renderRoot.querySelector('dialog');
-    if (d && !d.open) d.showModal();
-  }
-
-  close(): void {
-    this.renderRoot.querySelector('dialog')?.close();
   }
 
   private useExample = (): void => {
