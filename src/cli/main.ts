@@ -108,7 +108,8 @@ async function dispatch(args: ParsedArgs, ctx: RunContext): Promise<number> {
     const known = [...spec.values, ...spec.switches, ...(spec.lists ?? [])].map((o) => `--${o}`);
     ctx.fail(
       args.errors.map((e) => {
-        const guess = didYouMean(e.option, known);
+        // A near spelling, or the option of which the word typed is the last part (--units: --shop-units).
+        const guess = didYouMean(e.option, known) ?? known.find((k) => k.endsWith(`-${e.option.slice(2)}`));
         return diag(
           'LW700',
           e.message,

@@ -359,6 +359,10 @@ describe('cli: bad command lines, options and other files', () => {
     expect(t.err).toBe(
       '--encodng: error LW700: unknown option --encodng — did you mean --encoding? Run `latchwright --help` for usage\n',
     );
+    // The last word of an option, typed alone.
+    expect((await oneError(['build', MB, '--units', 'inch'])).hint).toBe(
+      'did you mean --shop-units? Run `latchwright --help` for usage',
+    );
   });
 
   it('an option without its value, an unknown command, no file, two files: LW700', async () => {
