@@ -7,7 +7,7 @@
  * Events: `use-behaviour` {text, sentence}.
  */
 import { css, html, nothing } from 'lit';
-import { DialogCard } from './dialog-card.js';
+import { DIALOG_STYLES, DialogCard } from './dialog-card.js';
 import type { Field } from '../../core/behaviours/index.js';
 import { BEHAVIOURS } from '../../core/behaviours/index.js';
 import { BehaviourDraft } from '../controllers/behaviour-draft.js';
@@ -19,36 +19,11 @@ export class LwBehaviourCard extends DialogCard {
 
   static override styles = [
     shared,
+    DIALOG_STYLES,
     css`
       dialog {
         width: min(46rem, calc(100vw - 1rem));
-        max-width: calc(100vw - 1rem);
-        max-height: calc(100vh - 2rem);
-        padding: 0;
-        border: 1px solid var(--lw-line);
-        border-top: 4px solid var(--lw-brass);
-        border-radius: var(--lw-radius);
-        background: var(--lw-panel);
-        color: var(--lw-ink);
         box-sizing: border-box;
-      }
-      dialog::backdrop {
-        background: rgb(0 0 0 / 35%);
-      }
-      .head {
-        display: flex;
-        align-items: center;
-        gap: 0.5rem;
-        padding: 0.6rem 0.9rem;
-        border-bottom: 1px solid var(--lw-line);
-        position: sticky;
-        top: 0;
-        background: var(--lw-panel);
-        z-index: 1;
-      }
-      .head h2 {
-        margin: 0;
-        flex: 1;
       }
       .body {
         padding: 0.6rem 0.9rem 0.9rem;

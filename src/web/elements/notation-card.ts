@@ -6,7 +6,7 @@
  * Events: `use-example` {text}.
  */
 import { css, html } from 'lit';
-import { DialogCard } from './dialog-card.js';
+import { DIALOG_STYLES, DialogCard } from './dialog-card.js';
 import reference from '../../../docs/notation.md?raw';
 import { notationCard, type CardRow, type Inline } from '../notation.js';
 import { shared } from '../styles/shared.js';
@@ -19,34 +19,8 @@ const words = (runs: readonly Inline[]) => runs.map((r) => (r.code ? html`<code>
 export class LwNotationCard extends DialogCard {
   static override styles = [
     shared,
+    DIALOG_STYLES,
     css`
-      dialog {
-        max-width: min(46rem, calc(100vw - 1rem));
-        max-height: calc(100vh - 2rem);
-        padding: 0;
-        border: 1px solid var(--lw-line);
-        border-top: 4px solid var(--lw-brass);
-        border-radius: var(--lw-radius);
-        background: var(--lw-panel);
-        color: var(--lw-ink);
-      }
-      dialog::backdrop {
-        background: rgb(0 0 0 / 35%);
-      }
-      .head {
-        display: flex;
-        align-items: center;
-        gap: 0.5rem;
-        padding: 0.6rem 0.9rem;
-        border-bottom: 1px solid var(--lw-line);
-        position: sticky;
-        top: 0;
-        background: var(--lw-panel);
-      }
-      .head h2 {
-        margin: 0;
-        flex: 1;
-      }
       .body {
         padding: 0.4rem 0.9rem 0.9rem;
         display: grid;
