@@ -56,8 +56,8 @@ export const COUNTING_FIELDS: readonly Field[] = [
     help: 'same-clock: on the clock of the Nth pulse (Mealy); next-clock: for one clock after it (Moore)',
     example: 'same-clock',
     choices: [
-      { value: 'same-clock', label: 'on the clock of the Nth pulse' },
-      { value: 'next-clock', label: 'for the one clock after it' },
+      { value: 'same-clock', label: 'with the Nth pulse' },
+      { value: 'next-clock', label: 'the clock after it' },
     ],
   },
   nameField('counter'),
