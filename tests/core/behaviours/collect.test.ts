@@ -1,6 +1,5 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { writeBehaviour } from '../../../src/core/behaviours/index.js';
 import {
   analysedBehaviour,
   builtWithChecks,
@@ -8,6 +7,7 @@ import {
   throughLevers,
   throughXstate,
   type Clock,
+  refusals,
 } from './harness.js';
 import { collectReference } from './reference.js';
 
@@ -72,10 +72,7 @@ describe('core/behaviours/collect', () => {
   });
 
   it('refuses parameters a user can get wrong, each with its code, the parameter and a hint', () => {
-    const code = (v: Record<string, string>) => {
-      const w = writeBehaviour('collect', v);
-      return w.ok ? [] : w.diagnostics.map((d) => [d.code, d.location.path, d.hint !== undefined]);
-    };
+    const code = (v: Record<string, string>) => refusals('collect', v);
     expect(code({ inputs: 'red', output: 'gate' })).toEqual([['LW800', 'collect.inputs', true]]);
     expect(code({ inputs: 'a,b,c,d,e', output: 'gate' })).toEqual([['LW800', 'collect.inputs', true]]);
     expect(code({ inputs: 'red,red', output: 'gate' })).toEqual([['LW803', 'collect.inputs', true]]);

@@ -8,6 +8,7 @@ import {
   stateCounts,
   throughLevers,
   throughXstate,
+  refusals,
 } from './harness.js';
 import { countingReference } from './reference.js';
 
@@ -78,10 +79,7 @@ describe('core/behaviours/counting', () => {
   });
 
   it('refuses parameters a user can get wrong, each with its code, the parameter and a hint', () => {
-    const code = (v: Record<string, string>) => {
-      const w = writeBehaviour('counting', v);
-      return w.ok ? [] : w.diagnostics.map((d) => [d.code, d.location.path, d.hint !== undefined]);
-    };
+    const code = (v: Record<string, string>) => refusals('counting', v);
     expect(code({ input: 'marble', every: '1', output: 'bell' })).toEqual([['LW800', 'counting.every', true]]);
     expect(code({ input: 'marble', every: '33', output: 'bell' })).toEqual([['LW800', 'counting.every', true]]);
     expect(code({ input: 'marble', every: 'three', output: 'bell' })).toEqual([['LW800', 'counting.every', true]]);

@@ -29,6 +29,15 @@ export function analysedBehaviour(behaviour: string, values: Readonly<Record<str
   return a;
 }
 
+/** What a behaviour says of parameters it refuses: code, parameter path and whether a hint is given, per diagnostic ([] when written). */
+export function refusals(
+  behaviour: string,
+  values: Readonly<Record<string, string>>,
+): [string, string | undefined, boolean][] {
+  const w = writeBehaviour(behaviour, values);
+  return w.ok ? [] : w.diagnostics.map((d) => [d.code, d.location.path, d.hint !== undefined]);
+}
+
 const assignmentOf = (inputs: readonly string[], c: Clock): string => inputs.map((n) => (c[n] ? '1' : '0')).join('');
 
 /** The outputs of each clock as xstate's actor steps the exported configuration (clock form). */

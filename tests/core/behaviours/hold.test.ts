@@ -1,6 +1,5 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { writeBehaviour } from '../../../src/core/behaviours/index.js';
 import {
   analysedBehaviour,
   builtWithChecks,
@@ -8,6 +7,7 @@ import {
   stateCounts,
   throughLevers,
   throughXstate,
+  refusals,
 } from './harness.js';
 import { holdReference } from './reference.js';
 
@@ -57,10 +57,7 @@ describe('core/behaviours/hold', () => {
   });
 
   it('refuses parameters a user can get wrong, each with its code, the parameter and a hint', () => {
-    const code = (v: Record<string, string>) => {
-      const w = writeBehaviour('hold', v);
-      return w.ok ? [] : w.diagnostics.map((d) => [d.code, d.location.path, d.hint !== undefined]);
-    };
+    const code = (v: Record<string, string>) => refusals('hold', v);
     expect(code({ input: 'sensor', clocks: '1', output: 'unlock' })).toEqual([['LW800', 'hold.clocks', true]]);
     expect(code({ input: 'sensor', clocks: '2', output: 'un lock' })).toEqual([['LW801', 'hold.output', true]]);
     expect(code({ input: 'sensor', clocks: '2' })).toEqual([['LW802', 'hold.output', true]]);

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { failureFunction, nextPrefix, writeBehaviour } from '../../../src/core/behaviours/index.js';
+import { failureFunction, nextPrefix } from '../../../src/core/behaviours/index.js';
 import {
   analysedBehaviour,
   builtWithChecks,
@@ -8,6 +8,7 @@ import {
   throughLevers,
   throughXstate,
   type Clock,
+  refusals,
 } from './harness.js';
 import { sequenceReference } from './reference.js';
 
@@ -161,10 +162,7 @@ describe('core/behaviours/sequence', () => {
   });
 
   it('refuses parameters a user can get wrong, each with its code, the parameter and a hint', () => {
-    const code = (v: Record<string, string>) => {
-      const w = writeBehaviour('sequence', v);
-      return w.ok ? [] : w.diagnostics.map((d) => [d.code, d.location.path, d.hint !== undefined]);
-    };
+    const code = (v: Record<string, string>) => refusals('sequence', v);
     expect(code({ order: '', output: 'flap' })).toEqual([['LW802', 'sequence.order', true]]);
     expect(code({ order: ' , ', output: 'flap' })).toEqual([['LW802', 'sequence.order', true]]);
     expect(code({ order: 'a,b,c,d,e,f,g,h,i' + ',a'.repeat(8), output: 'flap' })).toEqual([

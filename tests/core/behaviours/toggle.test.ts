@@ -1,6 +1,5 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { writeBehaviour } from '../../../src/core/behaviours/index.js';
 import {
   analysedBehaviour,
   builtWithChecks,
@@ -8,6 +7,7 @@ import {
   stateCounts,
   throughLevers,
   throughXstate,
+  refusals,
 } from './harness.js';
 import { toggleReference } from './reference.js';
 
@@ -43,10 +43,7 @@ describe('core/behaviours/toggle', () => {
   });
 
   it('refuses parameters a user can get wrong, each with its code, the parameter and a hint', () => {
-    const code = (v: Record<string, string>) => {
-      const w = writeBehaviour('toggle', v);
-      return w.ok ? [] : w.diagnostics.map((d) => [d.code, d.location.path, d.hint !== undefined]);
-    };
+    const code = (v: Record<string, string>) => refusals('toggle', v);
     expect(code({ input: 'button', output: 'button' })).toEqual([['LW803', 'toggle.output', true]]);
     expect(code({ input: 'x'.repeat(129), output: 'lamp' })).toEqual([['LW801', 'toggle.input', true]]);
     expect(code({ output: 'lamp' })).toEqual([['LW802', 'toggle.input', true]]);
