@@ -19,6 +19,7 @@
 export type { Expr, Guard, Machine, OutBit, SourceLoc, State, Transition, Unspecified } from './model/machine.js';
 export type { FlatMachine, FlatRow } from './model/flat.js';
 export type { Build, CheckBase, Encoding, Equation, GuardReport, PartCounts, SignalMap } from './model/build.js';
+export { summaryIn } from './model/build.js';
 export type {
   ActuatorPart,
   Cord,
@@ -61,10 +62,16 @@ export {
   GRAMS_PER_POUND,
   massWords,
   METRES_PER_INCH,
+  NEWTON_METRES_PER_POUND_FORCE_INCH,
+  NEWTONS_PER_POUND_FORCE,
   parseFeetInches,
+  quantitiesFor,
   sixteenthsUp,
   sizeInches,
+  wordsIn,
   type DocumentUnits,
+  type Quantities,
+  type Words,
 } from './model/units.js';
 
 // ── Parse and print: the text form, the JSON form, xstate configs ───────────────────────────

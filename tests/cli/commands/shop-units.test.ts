@@ -4,7 +4,7 @@
  *
  * Metric: every document, the printed report and `--json` are byte for byte what they were
  * before inch figures reached the check summaries, the wiring list and the bill of materials'
- * notes (SHA-256 digests stored in tests/fixtures/expected/metric-documents-digests.json, made
+ * notes (SHA-256 digests stored in tests/fixtures/documents/metric-digests.json, made
  * from main at that time; `LW_UPDATE_EXPECTED=1` rewrites them, to be reviewed).
  */
 import { readdirSync, readFileSync } from 'node:fs';
@@ -13,7 +13,7 @@ import { afterAll, describe, it } from 'vitest';
 import { expectStoredDigests } from '../../core/export/support.js';
 import { EXAMPLES, examplePath, removeTempDirs, run, tempDir } from '../support.js';
 
-const DIGESTS = 'tests/fixtures/expected/metric-documents-digests.json';
+const DIGESTS = 'tests/fixtures/documents/metric-digests.json';
 
 /** Build `name` with `units` into a fresh folder: the printed report and every file written. */
 async function built(name: string, units: 'metric' | 'inch'): Promise<{ report: string; files: Map<string, string> }> {
