@@ -58,8 +58,10 @@ export {
   DOCUMENT_UNITS,
   documentUnitsGuess,
   feetInches,
+  fixed,
   GRAMS_PER_OUNCE,
   GRAMS_PER_POUND,
+  inMetres,
   massWords,
   METRES_PER_INCH,
   NEWTON_METRES_PER_POUND_FORCE_INCH,
@@ -290,6 +292,7 @@ export { billOfMaterials, type BomRow, type FrameFigures } from './physics/bom.j
 // ── Documents (the documents registry) and the report ───────────────────────────────────────
 export {
   bomCsv,
+  bomRowIn,
   camsSvg,
   cutListCsv,
   cutListRows,

@@ -278,7 +278,7 @@ export function documentSources(input: DocumentsInput): DocumentSources {
   const drawings = once(() => ({
     frame: frameSvg(input.build, placement(), input.profile),
     stateDiagram: diagramSvg(input.build),
-    schematic: schematicSvg(input.build),
+    schematic: schematicSvg(input.build, undefined, { units: input.profile.documentUnits }),
   }));
   const given = once(() => input.tour ?? commissioningTour(input.build.machine));
   // A sequence the caller gives is stepped as given; the tour gets the clocks that catch the rest.
