@@ -12,9 +12,10 @@
  * rate and cams; the wiring list; the operating rules with what breaking each one does (from
  * the forbidden-input check); the state diagram and the schematic. Figures come from the
  * checks the pipeline ran; a section whose check is missing says so rather than guessing.
- * Units: lengths and masses follow the profile's `documentUnits` (model/units.ts): metres and
- * grams, or feet, inches and ounces (a tension is written as the weight that would pull it, so in
- * ounces too); torques and powers stay SI (N·m, W).
+ * Units: lengths, masses and the drum torque follow the profile's `documentUnits`
+ * (model/units.ts): metres, grams and N·m, or feet, inches, ounces and lbf·in (a tension is
+ * written as the weight that would pull it, so in ounces too); the check summaries it quotes are
+ * written from their typed words (`summaryIn`); power stays in W.
  * Pure: no I/O; text only (renderers escape), and the drawings as SVG texts they embed.
  */
 import type { Build } from '../model/build.js';

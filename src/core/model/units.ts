@@ -1,6 +1,6 @@
 /**
- * The workshop's units on what it cuts and hangs: the conversions and the way a workshop writes
- * a length or a mass, in one place. Pure.
+ * The workshop's units on what it cuts, hangs and drives: the conversions and the way a workshop
+ * writes a length, a mass or a torque, in one place. Pure.
  *
  * Factors are exact by definition (the international yard and pound agreement of 1959; NIST
  * Special Publication 811, appendix B, and NIST Handbook 44, appendix C): 1 in = 0.0254 m,
@@ -33,6 +33,10 @@
  * documents, the checks' summaries, the command line and the designer take it, so no file writes
  * metres or grams by hand in inch mode. A metric document keeps the precision each place has
  * always written (its `MetricForm`); the inch forms are fixed here, per kind of quantity.
+ * Words that carry figures and outlive the moment they were made (a check's summary, which
+ * crosses to the designer's worker and into the documents) are data: `say` keeps each figure
+ * typed (`Figure`: its kind, its SI value, its metric form) and `wordsIn(words, units)` writes
+ * them, so no one parses a summary back for its numbers.
  *
  * The choice could grow to other systems (`"mixed"`: metric lengths with avoirdupois weights, or
  * `"foot-decimal"`: feet to 0.01 ft as surveyors write them); each would be one more entry here.
@@ -195,11 +199,6 @@ export function massWords(g: number): string {
   const pounds = Math.floor(tenths / perPound);
   const rest = tenths - pounds * perPound;
   return rest === 0 ? `${pounds} lb` : `${pounds} lb ${(rest / 10).toFixed(1)} oz`;
-}
-
-/** A dimension in the chosen units: metric as the documents have always written it (`0.40 m`), inch as feet and inches. */
-export function dimensionWords(m: number, units: DocumentUnits): string {
-  return units === 'inch' ? lengthFeetInches(m) : `${m.toFixed(2)} m`;
 }
 
 /** Newtons in one pound-force, exactly (NIST SP 811 B.8: 4.448 221 615 260 5 N). */

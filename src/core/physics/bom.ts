@@ -15,7 +15,9 @@
  *   in the profile (one pin per quarter turn of redirection, an estimate: a pin rarely turns a
  *   cord further).
  * Postcondition: rows with a count of zero are left out; numbers are rounded to what a
- * builder can cut or weigh (0.1 g, 1 mm). The CSV form of the rows is export/bom-csv.ts.
+ * builder can cut or weigh (0.1 g, 1 mm), in SI; the notes' sizes (drum radius, wrap pitch,
+ * pulley) are words in the profile's `documentUnits` (model/units.ts). The CSV form of the rows
+ * is export/bom-csv.ts.
  */
 import type { Netlist } from '../model/netlist.js';
 import { routingFor, wrapsOf } from './capstan.js';
