@@ -249,7 +249,6 @@ const DEFS =
   '<rect width="1.2" height="1.2" fill="#c9b48f" /><line x1="0" y1="0" x2="0" y2="1.2" stroke="#6b5a3c" stroke-width="0.35" /></pattern>' +
   '<marker id="arrow" viewBox="0 0 6 6" refX="5" refY="3" markerWidth="3" markerHeight="3" orient="auto"><path d="M0,0 L6,3 L0,6 z" fill="#2c4a5a" /></marker></defs>';
 
-/** How the drawing writes a measure in the profile's units. */
 /** How the drawing writes its figures: the workshop's Quantities (model/units.ts), and the key's bay centres. */
 interface Measures {
   readonly q: Quantities;
