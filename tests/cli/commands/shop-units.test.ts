@@ -179,6 +179,23 @@ describe('src/cli/commands/build (--shop-units)', () => {
     }
   });
 
+  it('writes a failing build in inches too: the over-budget words, their fixes and the layout findings', async () => {
+    // The guide's slippery cord (μ = 0.12) fails the drive and layout checks of the canal lock.
+    const dir = tempDir('lw-units-');
+    const argv = ['build', examplePath('canal-lock'), '--profile', 'examples/profiles/slippery-cord.json'];
+    const r = await run([...argv, '--shop-units', 'inch', '--out', dir]);
+    expect(r.out).toMatch(
+      /FAIL drive: over budget, .* lifts [\d.]+ oz .*; fix: a lighter load on '\w+': at most [\d.]+ oz/,
+    );
+    expect(r.out).toMatch(/FAIL layout: .*with its cords as routed, .* must lift [\d.]+ oz/);
+    const author = description('canal-lock');
+    expect(metricTokens(r.out, author)).toEqual([]);
+    for (const file of ['build-sheet.md', 'build-sheet.html', 'wiring.csv', 'bom.csv'])
+      expect(metricTokens(readText(file, readFileSync(join(dir, file), 'utf8')), author), file).toEqual([]);
+    // The same build in metric says grams, as it always did.
+    expect((await run(argv)).out).toMatch(/FAIL drive: over budget, .* lifts [\d.]+ g /);
+  });
+
   it('scans with a pattern that does find the metric figures of a metric build (the scan can fail)', () => {
     const made = metric.get('canal-lock') as Made;
     const author = description('canal-lock');
