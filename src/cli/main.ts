@@ -37,9 +37,9 @@ Usage:
       (or of drum DRUM): --pin rst=22 --pin m0=5@2; several may be given, or
       joined with commas. Part ids are in netlist.json; a latch id pins its
       set side, and its reset side takes the next bay. --shop-units inch writes
-      the cut list, drawings, bill of materials and build sheet in feet, inches
-      and ounces for this build (the profile's documentUnits; netlist.json
-      stays SI).
+      every document and the printed report in feet, inches, ounces and
+      lbf·in for this build (the profile's documentUnits; netlist.json and
+      --json stay SI).
   latchwright compare FILE [--profile FILE] [--seed N] [--json]
       Every state encoding side by side, the cheapest marked.
   latchwright step FILE [--inputs SEQ.json] [--json] [--abstract] [--encoding NAME]

@@ -19,6 +19,7 @@
 export type { Expr, Guard, Machine, OutBit, SourceLoc, State, Transition, Unspecified } from './model/machine.js';
 export type { FlatMachine, FlatRow } from './model/flat.js';
 export type { Build, CheckBase, Encoding, Equation, GuardReport, PartCounts, SignalMap } from './model/build.js';
+export { summaryIn } from './model/build.js';
 export type {
   ActuatorPart,
   Cord,
@@ -57,14 +58,22 @@ export {
   DOCUMENT_UNITS,
   documentUnitsGuess,
   feetInches,
+  fixed,
   GRAMS_PER_OUNCE,
   GRAMS_PER_POUND,
+  inMetres,
   massWords,
   METRES_PER_INCH,
+  NEWTON_METRES_PER_POUND_FORCE_INCH,
+  NEWTONS_PER_POUND_FORCE,
   parseFeetInches,
+  quantitiesFor,
   sixteenthsUp,
   sizeInches,
+  wordsIn,
   type DocumentUnits,
+  type Quantities,
+  type Words,
 } from './model/units.js';
 
 // ── Parse and print: the text form, the JSON form, xstate configs ───────────────────────────
@@ -283,6 +292,7 @@ export { billOfMaterials, type BomRow, type FrameFigures } from './physics/bom.j
 // ── Documents (the documents registry) and the report ───────────────────────────────────────
 export {
   bomCsv,
+  bomRowIn,
   camsSvg,
   cutListCsv,
   cutListRows,

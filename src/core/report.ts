@@ -8,6 +8,7 @@ import { billOfMaterials } from './physics/bom.js';
 import { operatorForces } from './physics/operator.js';
 import { profileChanges } from './physics/profile-load.js';
 import type { Profile } from './physics/profile.js';
+import type { CheckBase } from './model/build.js';
 
 /** The `machine` block that `check --json` and `build --json` share: counts and names. */
 export function machineBlock(a: Analysed) {
@@ -29,6 +30,19 @@ export function equationTexts(b: Built): { name: string; expr: string }[] {
     name: e.name,
     expr: e.terms.length === 0 ? '0' : printCubes(e.terms, b.build.vars),
   }));
+}
+
+/**
+ * A check as `build --json` gives it: its summary (and its findings' words) in SI, the typed
+ * words the documents write in the workshop's units left out.
+ */
+function siOnly<C extends CheckBase>(check: C): C {
+  const { says: _, ...rest } = check;
+  if (!('findings' in rest) || !Array.isArray(rest.findings)) return rest as C;
+  const findings = (rest.findings as { says?: unknown; hintSays?: unknown }[]).map(
+    ({ says: _s, hintSays: _h, ...f }) => f,
+  );
+  return { ...rest, findings } as unknown as C;
 }
 
 const mm = (m: number): number => Math.round(m * 1000) / 1000;
@@ -91,9 +105,10 @@ export function buildReport<C extends CommissioningCoverage>(b: Built, commissio
     profile: profileBlock(b.profile),
     guard: b.build.guard,
     equations: equationTexts(b),
-    checks: b.checks,
+    checks: b.checks.map(siOnly),
     ok: b.checks.every((c) => c.ok),
-    bom: billOfMaterials(b.build.netlist, b.profile, b.placement),
+    // Data for programs: the notes' sizes in SI whatever the workshop's units.
+    bom: billOfMaterials(b.build.netlist, { ...b.profile, documentUnits: 'metric' }, b.placement),
     operatorForces: operatorForces(b.build.netlist, b.profile),
     ...(commissioning ? { commissioning } : {}),
     netlist: b.build.netlist,

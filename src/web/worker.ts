@@ -292,7 +292,10 @@ async function run(m: ToWorker): Promise<void> {
         post({
           kind: 'schematic',
           rev: m.rev,
-          svg: schematicSvg(checked.built.build, undefined, { palette: 'screen' }),
+          svg: schematicSvg(checked.built.build, undefined, {
+            palette: 'screen',
+            units: checked.built.profile.documentUnits,
+          }),
         });
       } catch (e) {
         post({ kind: 'schematic', rev: m.rev, problem: message(e) });

@@ -8,14 +8,15 @@
  * and hint while the build keeps the last good profile; a reload keeps the profile; one click
  * goes back to the shipped defaults. A figure of the folded part of the form (the stage time)
  * gives the timing check the command line gives for a profile file naming the same figure. The
- * choice of inches on the workshop's papers reaches the frame view and the cut list the page
- * downloads, and the profile it saves.
+ * choice of inches on the workshop's papers reaches the frame view (its drawing, its summary, a
+ * lit cord's piece), the Parts & forces view (check summaries, lever pull, bill of materials,
+ * torque chart), the cut list the page downloads, and the profile it saves.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
-import { loadProfile } from '../../src/core/index.js';
+import { loadProfile, parseFeetInches } from '../../src/core/index.js';
 import { removeTempDirs, run, tempDir } from '../cli/support.js';
 import { built, downloaded, openPage, shot, startDesigner, type Designer } from './page.js';
 
@@ -107,7 +108,7 @@ describe('src/web/elements/workshop (end to end in chromium)', () => {
     expect(await status().innerText()).not.toContain('own settings');
   });
 
-  it('writes the papers in inches when the Shop view says so: the frame view and the cut list follow, and the saved profile names it', async () => {
+  it('writes the papers and the views in inches when the Shop view says so: Parts & forces, Frame & cords and the cut list follow, and the saved profile names it', async () => {
     await tab('Shop');
     await page.getByRole('radio', { name: /^Inches/ }).check();
     await builtWith(true);
@@ -137,6 +138,54 @@ describe('src/web/elements/workshop (end to end in chromium)', () => {
     // 1 in = 0.0254 m exactly (NIST SP 811 B.8).
     expect(i * 0.0254).toBeGreaterThanOrEqual(m - 1e-9);
     expect(i * 0.0254).toBeLessThan(m + 0.0254 / 16);
+    // Parts & forces: the check summaries, the lever pull, the bill of materials and the torque chart in
+    // ounces and pound-force inches, read back to the command line's SI figures (1 oz = 28.349523125 g,
+    // 1 lbf·in = 4.4482216152605 N × 0.0254 m: NIST SP 811 B.8).
+    const si = JSON.parse((await run(['build', 'examples/marble-bell.lw', '--json'])).out) as {
+      checks: { name: string; worstTorqueNm?: number; operatorForceMaxG?: number }[];
+    };
+    const drive = si.checks.find((c) => c.name === 'drive');
+    const driveWords = await page.locator('lw-parts [data-check="drive"] .summary').innerText();
+    const lbfIn = Number(/worst drum torque ([\d.]+) lbf·in/.exec(driveWords)?.[1]);
+    expect(Math.abs(lbfIn * 4.4482216152605 * 0.0254 - (drive?.worstTorqueNm ?? NaN))).toBeLessThan(0.006 * 0.113);
+    const pullOz = Number(/hardest lever pull ([\d.]+) oz/.exec(driveWords)?.[1]);
+    expect(Math.abs(pullOz * 28.349523125 - (drive?.operatorForceMaxG ?? NaN))).toBeLessThanOrEqual(0.05 * 28.35);
+    const parts = await page.locator('lw-parts').innerText();
+    expect(parts).not.toMatch(/N·m|\d g\b|\d m\b|\d mm\b/);
+    expect(await page.locator('lw-parts [data-lever-pull]').innerText()).toMatch(
+      /Hardest lever pull: [\d.]+ oz at the weight/,
+    );
+    expect(await page.locator('lw-parts table[aria-label="Bill of materials"]').innerText()).toMatch(/\d oz\b/);
+    expect(
+      await page.locator('lw-parts lw-bar-chart[caption="Drum torque per state"] svg').getAttribute('aria-label'),
+    ).toMatch(/at [\d.]+ lbf·in/);
+    // Frame & cords: the summary and a lit cord's piece in feet and inches, the piece at least the
+    // metric one (the command line's wiring list, to the millimetre) and within a sixteenth of it.
+    await tab('Frame & cords');
+    const summary = await page.locator('lw-frame [data-frame-summary]').innerText();
+    expect(summary).toMatch(/on one drum \((\d+ ft )?[\d /]*in\); \d+ ft [\d /]*in of cord/);
+    expect(summary).not.toMatch(/\d m\b/);
+    const wiring = readFileSync(join(dir, 'docs', 'wiring.csv'), 'utf8').split('\r\n');
+    const head = wiring[0].split(',');
+    const cord = page.locator('lw-frame path.cord').first();
+    const [cordId, target] = [await cord.getAttribute('data-cord'), await cord.getAttribute('data-target')];
+    const col = (name: string): number => head.indexOf(name);
+    await cord.focus();
+    const readout = await page.locator('lw-frame [data-readout]').innerText();
+    const piece = /; ((?:\d+ ft ?)?(?:\d+ )?(?:\d+\/\d+ )?in) to\s+cut/.exec(readout)?.[1] ?? '';
+    const sixteenths = parseFeetInches(piece);
+    expect(sixteenths, readout).toBeDefined();
+    // A branch's key is its cord and its target part and port (or the actuator): the wiring list's columns.
+    const row = wiring
+      .map((l) => l.split(','))
+      .find(
+        (r) =>
+          r[col('cord')] === cordId &&
+          [r[col('target')], `${r[col('target')]}.${r[col('port')]}`].includes(target ?? ''),
+      );
+    const metres = Number(row?.[col('length (m)')]);
+    expect(((sixteenths ?? 0) / 16) * 0.0254).toBeGreaterThanOrEqual(metres - 0.0005);
+    expect(((sixteenths ?? 0) / 16) * 0.0254).toBeLessThan(metres + 0.0005 + 0.0254 / 16);
     // Saved, the profile names the choice; the command line reads it back.
     await tab('Shop');
     const saved = await downloaded(page, () => page.getByRole('button', { name: 'Save the profile' }).click());
@@ -145,6 +194,9 @@ describe('src/web/elements/workshop (end to end in chromium)', () => {
     expect(loadProfile(value, saved.name).profile?.documentUnits).toBe('inch');
     await page.getByRole('radio', { name: /^Metric/ }).check();
     await builtWith(false);
+    // Back in metric, the parts view writes newton-metres and grams again.
+    await tab('Parts & forces');
+    expect(await page.locator('lw-parts [data-check="drive"] .summary').innerText()).toMatch(/[\d.]+ N·m/);
     removeTempDirs();
   });
 

@@ -64,7 +64,7 @@ export function shopUnitsFrom(args: ParsedArgs): DocumentUnits | undefined | Dia
     'LW700',
     `--shop-units ${name} is not a system of units the documents know${guess ? ` — did you mean '${guess}'?` : ''}`,
     { path: '--shop-units' },
-    `choose ${DOCUMENT_UNITS.join(' or ')}: the units the cut list, drawings, bill of materials and build sheet show lengths and masses in (the profile's documentUnits)`,
+    `choose ${DOCUMENT_UNITS.join(' or ')}: the units the documents and the report show lengths, masses and torques in (the profile's documentUnits)`,
   );
 }
 

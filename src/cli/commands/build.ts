@@ -7,6 +7,7 @@ import {
   coverageLine,
   type Diagnostic,
   equationTexts,
+  summaryIn,
   withoutCapstanWords,
 } from '../../core/index.js';
 import type { ParsedArgs } from '../args.js';
@@ -77,7 +78,8 @@ export function textReport(b: Built, coverage?: string): string {
   lines.push('equations:');
   for (const e of equationTexts(b)) lines.push(`  ${e.name} = ${e.expr}`);
   lines.push('checks:');
-  for (const c of b.checks) lines.push(`  ${c.ok ? 'ok  ' : 'FAIL'} ${c.name}: ${c.summary}`);
+  for (const c of b.checks)
+    lines.push(`  ${c.ok ? 'ok  ' : 'FAIL'} ${c.name}: ${summaryIn(c, b.profile.documentUnits)}`);
   if (coverage !== undefined) lines.push(coverage);
   lines.push(
     'Safety: turning drums, hanging weights and levers can hurt people; see the build sheet (--out) for the cautions.',

@@ -20,12 +20,29 @@ import type { Netlist } from '../model/netlist.js';
 import { auditPlacement, type AuditFinding, type Placement } from '../phases/place/index.js';
 import type { Profile } from '../physics/profile.js';
 import { routedBudgets } from './budgets.js';
+import { budgetWords } from '../physics/drive.js';
+import {
+  fixed,
+  inMetres,
+  inMillimetres,
+  joinWords,
+  lengthFigure,
+  plain,
+  say,
+  sizeFigure,
+  wordsIn,
+  type Words,
+} from '../model/units.js';
 
 /** One rule the layout breaks, and what to change. */
 export interface LayoutFinding {
   readonly rule: AuditFinding['rule'] | 'margin';
   readonly message: string;
+  /** The message with its figures typed (model/units.ts), where it has any. */
+  readonly says?: Words;
   readonly hint: string;
+  /** The hint with its figures typed, where it has any. */
+  readonly hintSays?: Words;
 }
 
 export interface LayoutResult extends CheckBase<'layout'> {
@@ -47,38 +64,52 @@ export interface LayoutResult extends CheckBase<'layout'> {
   readonly notes: readonly string[];
 }
 
-const metres = (m: number): string => `${m.toFixed(2)} m`;
-
 /** Judge a placement of `netlist` under `profile`. */
 export function checkLayout(netlist: Netlist, placement: Placement, profile: Profile): LayoutResult {
   const findings: LayoutFinding[] = [...auditPlacement(netlist, placement, profile, new Set(placement.pinned))];
   const budgets = routedBudgets(netlist, profile, placement.routing);
   for (const b of budgets)
-    if (!b.ok)
+    if (!b.ok) {
+      const w = budgetWords(b, profile);
+      const says = say`with its cords as routed, ${w.message}`;
+      const hintSays = joinWords(w.fixes, '; or ');
       findings.push({
         rule: 'margin',
-        message: `with its cords as routed, ${b.message ?? `driver '${b.driver}' is over budget`}`,
-        hint: (b.fixes ?? []).join('; or '),
+        message: wordsIn(says, 'metric'),
+        says,
+        hint: wordsIn(hintSays, 'metric'),
+        hintSays,
       });
+    }
   const loaded = budgets.filter((b) => Number.isFinite(b.margin));
   const minMargin = loaded.length > 0 ? Math.min(...loaded.map((b) => b.margin)) : null;
   const bend = placement.routing.bend;
-  const notes = bend.ok
+  // Typed figures (model/units.ts): `summary` and `notes` are these in metric, `says` for the workshop's units.
+  const noteWords: Words[] = bend.ok
     ? []
     : [
-        `pulleys of ${(bend.radiusM * 2000).toFixed(0)} mm bend the cord tighter than 4 × its diameter (at least ${(bend.minRadiusM * 2000).toFixed(0)} mm across): they cost more force than the figures say`,
+        say`pulleys of ${sizeFigure(bend.radiusM * 2, inMillimetres(fixed(0)))} bend the cord tighter than 4 × its diameter (at least ${sizeFigure(bend.minRadiusM * 2, inMillimetres(fixed(0)))} across): they cost more force than the figures say`,
       ];
+  const notes = noteWords.map((w) => wordsIn(w, 'metric'));
   const drums = placement.drums.map((d) => ({ drum: d.drum, lengthM: d.lengthM, bays: d.bays.length }));
   const ok = findings.length === 0;
-  const frame = `${drums.length === 1 ? '1 drum' : `${drums.length} drums`} (${drums.map((d) => `${metres(d.lengthM)}, ${d.bays} bays`).join('; ')}; longest allowed ${placement.longestDrumM} m)`;
-  const cord = `${metres(placement.totalCordM)} of cord to cut (${metres(placement.baselineCordM)} in netlist order), ${placement.pulleys} pulleys`;
-  const summary = ok
-    ? `every part in a bay of its own on ${frame}, ${placement.method} order; ${cord}; smallest margin with the routed cords ${minMargin === null ? '—' : minMargin.toFixed(2)}${notes.length > 0 ? `; note: ${notes.join('; ')}` : ''}`
-    : `${findings.length} ${findings.length === 1 ? 'problem' : 'problems'} on ${frame}: ${findings[0].message}; fix: ${findings[0].hint}${findings.length > 1 ? ` (and ${findings.length - 1} more)` : ''}`;
+  const eachDrum = joinWords(
+    drums.map((d) => say`${lengthFigure(d.lengthM)}, ${d.bays} bays`),
+    '; ',
+  );
+  const frame = say`${drums.length === 1 ? '1 drum' : `${drums.length} drums`} (${eachDrum}; longest allowed ${lengthFigure(placement.longestDrumM, inMetres(plain))})`;
+  const cord = say`${lengthFigure(placement.totalCordM)} of cord to cut (${lengthFigure(placement.baselineCordM)} in netlist order), ${placement.pulleys} pulleys`;
+  const noted = noteWords.length > 0 ? say`; note: ${joinWords(noteWords, '; ')}` : [];
+  const first = findings[0];
+  const says = ok
+    ? say`every part in a bay of its own on ${frame}, ${placement.method} order; ${cord}; smallest margin with the routed cords ${minMargin === null ? '—' : minMargin.toFixed(2)}${noted}`
+    : say`${findings.length} ${findings.length === 1 ? 'problem' : 'problems'} on ${frame}: ${first.says ?? [first.message]}; fix: ${first.hintSays ?? [first.hint]}${findings.length > 1 ? ` (and ${findings.length - 1} more)` : ''}`;
+  const summary = wordsIn(says, 'metric');
   return {
     name: 'layout',
     ok,
     summary,
+    says,
     method: placement.method,
     exact: placement.exact,
     drums,

@@ -7,7 +7,7 @@
  * amounts a workshop buys or weighs are written in its units (model/units.ts): masses in ounces
  * to 0.1 oz, cord in feet rounded up to 0.1 ft (bought, never short), a drum's length in inches
  * rounded up to the sixteenth (cut, never short). Counts, turns and pieces are the same in both;
- * the notes keep the words physics/bom.ts gives them.
+ * the notes keep the words physics/bom.ts gives them (their sizes already in the profile's units).
  */
 import type { BomRow } from '../physics/bom.js';
 import { INCHES_PER_FOOT, inchesOf, ouncesTenth, sixteenthsUp, type DocumentUnits } from '../model/units.js';

@@ -12,9 +12,10 @@
  * rate and cams; the wiring list; the operating rules with what breaking each one does (from
  * the forbidden-input check); the state diagram and the schematic. Figures come from the
  * checks the pipeline ran; a section whose check is missing says so rather than guessing.
- * Units: lengths and masses follow the profile's `documentUnits` (model/units.ts): metres and
- * grams, or feet, inches and ounces (a tension is written as the weight that would pull it, so in
- * ounces too); torques and powers stay SI (N·m, W).
+ * Units: lengths, masses and the drum torque follow the profile's `documentUnits`
+ * (model/units.ts): metres, grams and N·m, or feet, inches, ounces and lbf·in (a tension is
+ * written as the weight that would pull it, so in ounces too); the check summaries it quotes are
+ * written from their typed words (`summaryIn`); power stays in W.
  * Pure: no I/O; text only (renderers escape), and the drawings as SVG texts they embed.
  */
 import type { Build } from '../model/build.js';
@@ -23,7 +24,7 @@ import type { Placement } from '../phases/place/index.js';
 import { shorten } from '../model/printable.js';
 import type { Profile } from '../physics/profile.js';
 import { billOfMaterials } from '../physics/bom.js';
-import { driveBudget } from '../physics/drive.js';
+import { budgetWords, driveBudget } from '../physics/drive.js';
 import { lossByBranch } from '../physics/routing.js';
 import { partWords } from './part-words.js';
 import { frictionHeadroom, type Headroom } from '../physics/headroom.js';
@@ -34,7 +35,9 @@ import { momentWords, type SnapshotPlace } from '../sim/snapshots.js';
 import { findCheck, type CheckResult } from '../checks/results.js';
 import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { num } from './readable.js';
-import { cutFeetInches, inchesOf, lengthFeetInches, massWords, ouncesOf } from '../model/units.js';
+import { inMetres, quantitiesFor, trimmed, wordsIn } from '../model/units.js';
+import { summaryIn } from '../model/build.js';
+import { checkBarWords } from './cams-svg.js';
 import { bomRowIn } from './bom-csv.js';
 import { equationBlocks, stateTableBlocks } from './sheet-logic.js';
 import { wiringRows } from './wiring.js';
@@ -95,51 +98,33 @@ export const CAUTIONS: readonly string[] = [
   'Defer to local codes and licensed practice.',
 ];
 
-/** How the sheet writes lengths and masses in the profile's units. */
-interface SheetUnits {
-  /** A mass or tension in a table cell (its unit in the column's head). */
-  readonly mass: (g: number) => string;
-  /** The mass unit for a column's head: `g`, `oz`. */
-  readonly massUnit: string;
-  /** A mass in running text: `300 g`, `10.6 oz`. */
-  readonly massText: (g: number) => string;
-  /** A dimension in running text, to `digits` in metric: `1.22 m`, `4 ft 0 1/16 in`. */
-  readonly len: (m: number, digits?: number) => string;
-  /** A position along the drum in a table cell, and its column's unit. */
-  readonly along: (m: number) => string;
-  readonly alongUnit: string;
-  /** A length to cut in a table cell, and its column's head. */
-  readonly cut: (m: number) => string;
-  readonly cutHead: string;
-  /** The cam template's check bar. */
-  readonly checkBar: string;
+/**
+ * How the sheet writes its figures: the workshop's Quantities (model/units.ts) at the sheet's
+ * metric precision, and the words of its tables and of the cam templates' check bar.
+ */
+function unitsOf(profile: Profile) {
+  const q = quantitiesFor(profile.documentUnits);
+  const inch = q.units === 'inch';
+  return {
+    q,
+    /** A mass or tension in a table cell (its unit, `massUnit`, in the column's head). */
+    mass: (g: number): string => q.massCell(g),
+    massUnit: q.massUnit,
+    /** A mass in running text: `300 g`, `10.6 oz`. */
+    massText: (g: number): string => q.mass(g, trimmed(1)),
+    /** A dimension in running text, to `digits` in metric: `1.22 m`, `4 ft 0 1/16 in`. */
+    len: (m: number, digits = 2): string => q.length(m, inMetres(trimmed(digits))),
+    /** A position along the drum in a table cell, and its column's unit. */
+    along: (m: number): string => q.alongCell(m),
+    alongUnit: q.alongUnit,
+    /** A length to cut in a table cell (feet and inches in inch), and its column's head. */
+    cut: (m: number): string => (inch ? q.cut(m) : q.cutCell(m, trimmed(3))),
+    cutHead: inch ? 'length to cut' : 'length (m)',
+    /** The cam template's check bar. */
+    checkBar: checkBarWords(q.units),
+  };
 }
-
-const METRIC_SHEET: SheetUnits = {
-  mass: (g) => num(g, 1),
-  massUnit: 'g',
-  massText: (g) => `${num(g, 1)} g`,
-  len: (m, digits) => `${num(m, digits)} m`,
-  along: (m) => num(m, 3),
-  alongUnit: 'm',
-  cut: (m) => num(m, 3),
-  cutHead: 'length (m)',
-  checkBar: '100 mm',
-};
-
-const INCH_SHEET: SheetUnits = {
-  mass: (g) => num(ouncesOf(g), 1),
-  massUnit: 'oz',
-  massText: massWords,
-  len: (m) => lengthFeetInches(m),
-  along: (m) => num(inchesOf(m), 1),
-  alongUnit: 'in',
-  cut: cutFeetInches,
-  cutHead: 'length to cut',
-  checkBar: '4 in',
-};
-
-const unitsOf = (profile: Profile): SheetUnits => (profile.documentUnits === 'inch' ? INCH_SHEET : METRIC_SHEET);
+type SheetUnits = ReturnType<typeof unitsOf>;
 
 /** Longest description the sheet prints in full (characters). */
 const DESCRIPTION_MAX = 20_000;
@@ -181,7 +166,7 @@ function summarySection(input: DocumentsInput): Section {
       kind: 'note',
       tone: 'fail',
       title: `${failed.length} of ${checks.length} checks failed — do not build until they pass`,
-      items: failed.map((c) => `${c.name}: ${c.summary}`),
+      items: failed.map((c) => `${c.name}: ${summaryIn(c, input.profile.documentUnits)}`),
     });
   else if (checks.length > 0)
     blocks.push({ kind: 'note', tone: 'ok', title: `All ${checks.length} checks passed`, items: [] });
@@ -189,7 +174,7 @@ function summarySection(input: DocumentsInput): Section {
     blocks.push(
       table(
         ['check', 'result', 'summary'],
-        checks.map((c) => [c.name, c.ok ? 'passed' : 'FAILED', c.summary]),
+        checks.map((c) => [c.name, c.ok ? 'passed' : 'FAILED', summaryIn(c, input.profile.documentUnits)]),
       ),
     );
   else blocks.push(p('No checks were run for this sheet.'));
@@ -367,13 +352,15 @@ function driveSection(input: DocumentsInput): Section {
       { mono: [0, 2] },
     ),
   ];
-  for (const b of budgets.filter((x) => !x.ok))
+  for (const b of budgets.filter((x) => !x.ok)) {
+    const w = budgetWords(b, profile);
     blocks.push({
       kind: 'note',
       tone: 'fail',
-      title: b.message ?? `driver ${b.driver} is over budget`,
-      items: b.fixes ?? [],
+      title: wordsIn(w.message, u.q.units),
+      items: w.fixes.map((f) => wordsIn(f, u.q.units)),
     });
+  }
   const headroom = d ?? frictionHeadroom(build.netlist, budgets, profile);
   blocks.push(...headroomBlocks(headroom, profile), outputsTable(input, headroom.outputs));
   if (d) {
@@ -381,7 +368,7 @@ function driveSection(input: DocumentsInput): Section {
       table(
         ['', ''],
         [
-          ['worst drum torque', `${num(d.worstTorqueNm, 3)} N·m`],
+          ['worst drum torque', u.q.torque(d.worstTorqueNm, trimmed(3))],
           ...(d.worstAt ? [['worst drum torque at', worstPlace(d.worstAt)]] : []),
           ['worst drum power', `${num(d.worstPowerW, 2)} W at ${num(profile.drumRpm)} rev/min`],
           ['hardest lever pull', u.massText(d.operatorForceMaxG)],
@@ -541,7 +528,7 @@ function wiringSection(input: DocumentsInput): Section {
 function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Section {
   const pl = input.placement;
   if (!pl) return { id: 'frame', title: 'Frame', blocks: [p('This sheet was made without a placement.')] };
-  const words = partWords(input.build);
+  const words = partWords(input.build, input.profile.documentUnits);
   const f = input.profile.frame;
   const layout = findCheck(input.checks, 'layout');
   const u = unitsOf(input.profile);
@@ -551,7 +538,10 @@ function frameSection(input: DocumentsInput, drawings: Drawings | undefined): Se
       `${pl.drums.length === 1 ? 'One drum' : `${pl.drums.length} drums, stacked ${u.len(f.drumSpacingM)} apart`} (${drums}; the longest allowed is ${u.len(f.longestDrumM)}). Bays are counted from 1 at the visitor end of each drum; operator levers sit at the visitor end, clock and reset levers at the crank end. The order of the bays is ${pl.method === 'exact' ? 'the proven shortest' : pl.method === 'heuristic' ? 'the shortest the search found' : "the netlist's own, which was already the shortest"} in cord along the channel: ${u.len(pl.totalCordM, 1)} of cord in all (${u.len(pl.baselineCordM, 1)} with the bays in netlist order), ${f.turn === 'pulley' ? `${pl.pulleys} pulleys` : `${pl.routing.pins} pins`} (one at each corner where a cord's drop turns along a channel, shared by its branches, and one where each branch rises or leaves the frame).`,
     ),
   ];
-  if (layout) blocks.push(p(`Layout check: ${layout.ok ? 'passed' : 'FAILED'} — ${layout.summary}`));
+  if (layout)
+    blocks.push(
+      p(`Layout check: ${layout.ok ? 'passed' : 'FAILED'} — ${summaryIn(layout, input.profile.documentUnits)}`),
+    );
   if (drawings) blocks.push(drawingFigures(drawings).frame);
   blocks.push(
     table(

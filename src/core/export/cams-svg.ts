@@ -17,7 +17,7 @@
  */
 import type { TimingResult } from '../checks/timing.js';
 import type { Profile } from '../physics/profile.js';
-import { METRES_PER_INCH, sizeInches, type DocumentUnits } from '../model/units.js';
+import { inMillimetres, METRES_PER_INCH, quantitiesFor, trimmed, type DocumentUnits } from '../model/units.js';
 import { round1 as r1, svgDocument, svgText } from './svg.js';
 
 /** Largest ramp, degrees of crank turn. */
@@ -170,9 +170,12 @@ function checkBar(units: DocumentUnits): CheckBar {
   return { lengthMm: 100, ticks, words: '100 mm check bar', says: '100 mm' };
 }
 
-/** A cam's size in the chosen units: `80 mm`, `3.150 in`. */
+/** What the print check asks the bar to measure: `100 mm`, `4 in`. */
+export const checkBarWords = (units: DocumentUnits): string => checkBar(units).says;
+
+/** A cam's size in the chosen units (model/units.ts): `80 mm`, `3.150 in`. */
 const sizeWords = (mm: number, units: DocumentUnits): string =>
-  units === 'inch' ? sizeInches(mm / 1000) : `${r1(mm)} mm`;
+  quantitiesFor(units).size(mm / 1000, inMillimetres(trimmed(1)));
 
 /**
  * The cam templates of a build: `timing` from the timing check (undefined for a machine

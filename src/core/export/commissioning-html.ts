@@ -19,6 +19,7 @@ import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { partWords } from './part-words.js';
 import type { SheetFaults } from './sheet-faults.js';
 import { reachableTransitions, type TourClock } from './tour.js';
+import type { DocumentUnits } from '../model/units.js';
 
 /** What the sequence covers, in words. */
 function coverage(taken: number, reachable: number): string {
@@ -28,8 +29,8 @@ function coverage(taken: number, reachable: number): string {
 }
 
 /** Every bay and the levers in it, and where each flag rides. */
-function whereSection(build: Build, placement: Placement): Section {
-  const words = partWords(build);
+function whereSection(build: Build, placement: Placement, units: DocumentUnits): Section {
+  const words = partWords(build, units);
   const where = bayWords(placement);
   const blocks: Block[] = [
     p(
@@ -107,7 +108,7 @@ function sequenceSections(
   return sections;
 }
 
-/** The commissioning sheet as a Doc; `placement` names every lever by its bay, `drawings` adds the drawings, `faults` the section on finding a broken cord. */
+/** The commissioning sheet as a Doc; `placement` names every lever by its bay, `drawings` adds the drawings, `faults` the section on finding a broken cord, `units` the workshop's units of an actuator's load. */
 export function commissioningDoc(
   build: Build,
   rows: readonly CommissioningRow[],
@@ -115,11 +116,11 @@ export function commissioningDoc(
   placement?: Placement,
   drawings?: Drawings,
   faults?: SheetFaultWords,
+  units: DocumentUnits = 'metric',
 ): Doc {
   const f = build.machine;
-  const first = rows[0];
-  const latches = first?.latches ?? [];
-  const outputs = first?.outputs ?? [];
+  const [first] = rows;
+  const [latches, outputs] = [first?.latches ?? [], first?.outputs ?? []];
   const latchBays = new Map(
     placement?.latches.map((l) => [l.latch, ` (bays ${l.bays[0]} and ${l.bays[1]}, drum ${l.drum})`]),
   );
@@ -175,7 +176,7 @@ export function commissioningDoc(
         title: 'Safety',
         blocks: [{ kind: 'note', tone: 'caution', title: 'Cautions', items: CAUTIONS }],
       },
-      ...(placement ? [whereSection(build, placement)] : []),
+      ...(placement ? [whereSection(build, placement, units)] : []),
       ...sequenceSections(
         headers,
         body,
@@ -197,8 +198,9 @@ export function commissioningHtml(
   placement?: Placement,
   drawings?: Drawings,
   faults?: SheetFaultWords,
+  units: DocumentUnits = 'metric',
 ): string {
-  return renderDocHtml(commissioningDoc(build, rows, tour, placement, drawings, faults));
+  return renderDocHtml(commissioningDoc(build, rows, tour, placement, drawings, faults, units));
 }
 
 /** The commissioning sheet in Markdown (the same content; drawings linked to their files). */
@@ -209,6 +211,7 @@ export function commissioningMd(
   placement?: Placement,
   drawings?: Drawings,
   faults?: SheetFaultWords,
+  units: DocumentUnits = 'metric',
 ): string {
-  return renderDocMd(commissioningDoc(build, rows, tour, placement, drawings, faults));
+  return renderDocMd(commissioningDoc(build, rows, tour, placement, drawings, faults, units));
 }

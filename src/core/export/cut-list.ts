@@ -31,9 +31,9 @@ import {
   cutSixteenths,
   feetInches,
   inchesOfSixteenths,
-  lengthFeetInches,
-  massWords,
-  sizeInches,
+  inMillimetres,
+  quantitiesFor,
+  trimmed,
   type DocumentUnits,
 } from '../model/units.js';
 import { CAUTIONS } from './build-sheet.js';
@@ -64,32 +64,19 @@ const INCH_HEADER = ['group', 'item', 'piece', 'count', 'length (in)', 'length (
 /** Metres rounded up to the millimetre (never cut short); defined with the other conversions. */
 export { cutMetres };
 
-/** How the list writes sizes, masses and heights in the profile's units. */
-interface Words {
-  /** A size: `12 mm`, or in inches `0.472 in`. */
-  readonly size: (m: number) => string;
-  /** The cord's size: `3 mm cord`. */
-  readonly cord: (m: number) => string;
-  readonly mass: (g: number) => string;
-  /** A height on the frame: `0.60 m`. */
-  readonly height: (m: number) => string;
-}
-
-const METRIC: Words = {
-  size: (m) => `${Math.round(m * 1000)} mm`,
-  cord: (m) => `${Math.round(m * 1000 * 10) / 10} mm cord`,
-  mass: (g) => `${g} g`,
-  height: (m) => `${m.toFixed(2)} m`,
+/** How the list writes sizes, masses and heights: the workshop's Quantities (model/units.ts), sizes to 1 mm in metric. */
+const wordsFor = (units: DocumentUnits) => {
+  const q = quantitiesFor(units);
+  return {
+    /** A size: `12 mm`, or in inches `0.472 in`. */
+    size: (m: number): string => q.size(m, inMillimetres(trimmed(0))),
+    /** The cord's size: `3 mm cord`. */
+    cord: (m: number): string => `${q.size(m, inMillimetres(trimmed(1)))} cord`,
+    mass: (g: number): string => q.mass(g),
+    /** A height on the frame: `0.60 m`. */
+    height: (m: number): string => q.length(m),
+  };
 };
-
-const INCH: Words = {
-  size: sizeInches,
-  cord: (m) => `${sizeInches(m)} cord`,
-  mass: massWords,
-  height: lengthFeetInches,
-};
-
-const wordsFor = (units: DocumentUnits): Words => (units === 'inch' ? INCH : METRIC);
 
 /** Every row of the cut list, cautions first. */
 export function cutListRows(build: Build, placement: Placement, profile: Profile): CutRow[] {

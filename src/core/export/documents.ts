@@ -216,7 +216,8 @@ export type DocumentFile = (typeof DOCUMENT_REGISTRY)[number]['file'];
 export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: DocumentSources) => string } = {
   'build-sheet-html': (d) => buildSheetHtml({ ...d.input, placement: d.placement() }, d.drawings()),
   'build-sheet-md': (d) => buildSheetMd({ ...d.input, placement: d.placement() }, d.drawings()),
-  wiring: (d) => wiringCsv(wiringRows(d.input.build.netlist, d.input.profile, d.placement())),
+  wiring: (d) =>
+    wiringCsv(wiringRows(d.input.build.netlist, d.input.profile, d.placement()), d.input.profile.documentUnits),
   bom: (d) =>
     bomCsv(billOfMaterials(d.input.build.netlist, d.input.profile, d.placement()), d.input.profile.documentUnits),
   'cut-list': (d) =>
@@ -234,15 +235,25 @@ export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: Document
   schematic: (d) => d.drawings().schematic,
   'state-diagram': (d) => d.drawings().stateDiagram,
   'commissioning-html': (d) =>
-    commissioningHtml(d.input.build, d.steps(), d.tour(), d.placement(), d.drawings(), {
-      sheet: d.faults(),
-      finder: d.finder(),
-    }),
+    commissioningHtml(
+      d.input.build,
+      d.steps(),
+      d.tour(),
+      d.placement(),
+      d.drawings(),
+      { sheet: d.faults(), finder: d.finder() },
+      d.input.profile.documentUnits,
+    ),
   'commissioning-md': (d) =>
-    commissioningMd(d.input.build, d.steps(), d.tour(), d.placement(), d.drawings(), {
-      sheet: d.faults(),
-      finder: d.finder(),
-    }),
+    commissioningMd(
+      d.input.build,
+      d.steps(),
+      d.tour(),
+      d.placement(),
+      d.drawings(),
+      { sheet: d.faults(), finder: d.finder() },
+      d.input.profile.documentUnits,
+    ),
   'commissioning-csv': (d) => commissioningCsv(d.steps()),
   'cord-finder': (d) => cordFinderCsv(d.finder()),
   verilog: (d) => d.verilog().module,
@@ -267,7 +278,7 @@ export function documentSources(input: DocumentsInput): DocumentSources {
   const drawings = once(() => ({
     frame: frameSvg(input.build, placement(), input.profile),
     stateDiagram: diagramSvg(input.build),
-    schematic: schematicSvg(input.build),
+    schematic: schematicSvg(input.build, undefined, { units: input.profile.documentUnits }),
   }));
   const given = once(() => input.tour ?? commissioningTour(input.build.machine));
   // A sequence the caller gives is stepped as given; the tour gets the clocks that catch the rest.

@@ -38,12 +38,15 @@ import type { Placement, PlacedBayInfo, PlacedDrum } from '../phases/place/index
 import type { Profile } from '../physics/profile.js';
 import type { BranchRoute, CordRun, RoutePoint } from '../physics/routing.js';
 import {
-  cutFeetInches,
+  fixed,
   inchesOf,
-  lengthFeetInches,
+  inMetres,
+  inMillimetres,
   METRES_PER_INCH,
-  sizeInches,
+  quantitiesFor,
+  trimmed,
   type DocumentUnits,
+  type Quantities,
 } from '../model/units.js';
 import { escapeXml as x } from './escape.js';
 import { partWords } from './part-words.js';
@@ -246,41 +249,32 @@ const DEFS =
   '<rect width="1.2" height="1.2" fill="#c9b48f" /><line x1="0" y1="0" x2="0" y2="1.2" stroke="#6b5a3c" stroke-width="0.35" /></pattern>' +
   '<marker id="arrow" viewBox="0 0 6 6" refX="5" refY="3" markerWidth="3" markerHeight="3" orient="auto"><path d="M0,0 L6,3 L0,6 z" fill="#2c4a5a" /></marker></defs>';
 
-/** How the drawing writes a measure in the profile's units. */
+/** How the drawing writes its figures: the workshop's Quantities (model/units.ts), and the key's bay centres. */
 interface Measures {
-  readonly units: DocumentUnits;
+  readonly q: Quantities;
   /** A dimension: `1.25 m`, `4 ft 1 3/16 in`. */
   len(v: number): string;
   /** A length to cut (metres): metric as a dimension, as it always was; inch as the cut list rounds it up. */
   cut(v: number): string;
-  /** A size given in millimetres: `80 mm`, `3.150 in`. */
-  size(mm: number): string;
+  /** A size given in metres: `80 mm`, `3.150 in`. */
+  size(m: number): string;
   /** A bay's centre for the key, and what the key says it is in. */
   centre(v: number): string;
   readonly centreWords: string;
 }
 
-const metres = (v: number): string => `${v.toFixed(2)} m`;
-
-const METRIC_MEASURES: Measures = {
-  units: 'metric',
-  len: metres,
-  cut: metres,
-  size: (mm) => `${r1(mm)} mm`,
-  centre: (v) => v.toFixed(2),
-  centreWords: 'centre in metres',
+const measuresFor = (p: Profile): Measures => {
+  const q = quantitiesFor(p.documentUnits);
+  const inch = q.units === 'inch';
+  return {
+    q,
+    len: (v) => q.length(v),
+    cut: (v) => q.cut(v, inMetres(fixed(2))),
+    size: (m) => q.size(m, inMillimetres(trimmed(1))),
+    centre: (v) => (inch ? inchesOf(v).toFixed(1) : v.toFixed(2)),
+    centreWords: inch ? 'centre in inches' : 'centre in metres',
+  };
 };
-
-const INCH_MEASURES: Measures = {
-  units: 'inch',
-  len: lengthFeetInches,
-  cut: cutFeetInches,
-  size: (mm) => sizeInches(mm / 1000),
-  centre: (v) => inchesOf(v).toFixed(1),
-  centreWords: 'centre in inches',
-};
-
-const measuresFor = (p: Profile): Measures => (p.documentUnits === 'inch' ? INCH_MEASURES : METRIC_MEASURES);
 const line = (x1: number, y1: number, x2: number, y2: number, cls: string, extra = ''): string =>
   `<line x1="${r1(x1)}" y1="${r1(y1)}" x2="${r1(x2)}" y2="${r1(y2)}" class="${cls}"${extra} />`;
 const rect = (x0: number, y0: number, w: number, h: number, cls: string, extra = ''): string =>
@@ -296,7 +290,7 @@ function upText(px: number, py: number, text: string, cls: string): string {
 /** The frame drawing of a placed build. */
 export function frameSvg(build: Build, placement: Placement, profile: Profile, options: FrameOptions = {}): string {
   const f = profile.frame;
-  const words = partWords(build);
+  const words = partWords(build, profile.documentUnits);
   const lengthM = Math.max(0.05, ...placement.drums.map((d) => d.lengthM));
   const top = placement.drums.length === 0 ? 0 : placement.drums[placement.drums.length - 1].levelM;
   const worldTop = top + f.railAboveDrumM + LEVER_END_M;
@@ -396,7 +390,7 @@ function titleLines(
       cls: 'sub',
     },
     {
-      text: `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${u.size(2 * r * 1000)}, ${placement.drums.map((d) => u.len(d.lengthM)).join(' and ')} long; overall ${u.len(lengthM)} × ${u.len(frameHeightM)}; ${placement.bays.length} bays; ${u.len(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${u.size(f.pulleyDiameterM * 1000)})`}, one at each corner of a cord's tree and where each branch rises.`,
+      text: `${placement.drums.length === 1 ? '1 drum' : `${placement.drums.length} drums`} of Ø ${u.size(2 * r)}, ${placement.drums.map((d) => u.len(d.lengthM)).join(' and ')} long; overall ${u.len(lengthM)} × ${u.len(frameHeightM)}; ${placement.bays.length} bays; ${u.len(placement.totalCordM)} of cord in ${placement.routing.cords.length} cords; ${f.turn === 'pin' ? `${placement.routing.pins} pins` : `${placement.pulleys} pulleys (Ø ${u.size(f.pulleyDiameterM)})`}, one at each corner of a cord's tree and where each branch rises.`,
       cls: 'sub',
     },
     {
@@ -752,7 +746,7 @@ function footer(
 ): { items: string[]; bottom: number } {
   const u = measuresFor(profile);
   const out: string[] = [];
-  const bar = scaleBar(s, u.units);
+  const bar = scaleBar(s, u.q.units);
   const step = (bar.m * s.k) / bar.parts;
   for (let i = 0; i < bar.parts; i++) out.push(rect(MARGIN + i * step, y0, step, 1.6, i % 2 === 0 ? 'bar-a' : 'bar-b'));
   out.push(svgText(MARGIN, y0 + 4.6, '0', 'dimtext', 'middle'));
@@ -770,7 +764,7 @@ function footer(
   const ly = y0 + 9;
   const legend: string[] = [
     rect(MARGIN, ly - 2, 6, 2.4, 'drum'),
-    svgText(MARGIN + 8, ly, `drum, Ø ${u.size(profile.drumRadiusM * 2000)}`, 'note', 'start'),
+    svgText(MARGIN + 8, ly, `drum, Ø ${u.size(profile.drumRadiusM * 2)}`, 'note', 'start'),
     rect(MARGIN + 42, ly - 2, 3, 2.4, 'wraps'),
     svgText(MARGIN + 47, ly, `capstan: ${profile.wraps} turns`, 'note', 'start'),
     rect(MARGIN + 76, ly - 2.4, 1, 2.4, 'lever hand'),

@@ -28,7 +28,7 @@ export {
   type DocumentSources,
 } from './documents.js';
 export { CAUTIONS, buildSheet } from './build-sheet.js';
-export { bomCsv } from './bom-csv.js';
+export { bomCsv, bomRowIn } from './bom-csv.js';
 export { buildSheetHtml, renderDocHtml } from './build-sheet-html.js';
 export { buildSheetMd, renderDocMd } from './build-sheet-md.js';
 export { commissioningCsv, commissioningRows, type CommissioningRow } from './commissioning.js';

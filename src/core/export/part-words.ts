@@ -13,6 +13,7 @@
  */
 import type { Build } from '../model/build.js';
 import type { Cord, Part } from '../model/netlist.js';
+import { quantitiesFor, type DocumentUnits } from '../model/units.js';
 
 /** The literal a signal stands for, with its complement. */
 const negate = (lit: string): string => (lit.startsWith('!') ? lit.slice(1) : `!${lit}`);
@@ -181,8 +182,9 @@ function leverWords(p: Extract<Part, { kind: 'lever' }>): string {
   }
 }
 
-/** What every part does, in words, by part id. */
-export function partWords(build: Build): ReadonlyMap<string, string> {
+/** What every part does, in words, by part id; an actuator's load in `units`. */
+export function partWords(build: Build, units: DocumentUnits = 'metric'): ReadonlyMap<string, string> {
+  const q = quantitiesFor(units);
   const net = netOf(build);
   const out = new Map<string, string>();
   for (const p of build.netlist.parts) {
@@ -190,7 +192,7 @@ export function partWords(build: Build): ReadonlyMap<string, string> {
     else if (p.kind === 'gate') out.set(p.id, gateWords(net, p));
     else if (p.kind === 'latch') out.set(p.id, latchWords(net, p));
     else if (p.kind === 'flag') out.set(p.id, `flag showing ${p.output}`);
-    else out.set(p.id, `exit to the ${p.output} actuator (${p.loadG} g)`);
+    else out.set(p.id, `exit to the ${p.output} actuator (${q.mass(p.loadG)})`);
   }
   return out;
 }

@@ -13,6 +13,7 @@
  * "…", the full words stay in the part's own name and in the wiring list).
  */
 import type { GatePart, LatchPart, Netlist, Part } from '../model/netlist.js';
+import { quantitiesFor, type DocumentUnits } from '../model/units.js';
 
 /** Longest role words kept whole (characters); longer ones end in "…". */
 const MAX_WORDS = 72;
@@ -42,7 +43,10 @@ class RoleReader {
   private readonly targets = new Map<string, { part: string; port: string }[]>();
   private readonly signals = new Map<string, string>();
 
-  constructor(private readonly net: Netlist) {
+  constructor(
+    private readonly net: Netlist,
+    private readonly units: DocumentUnits,
+  ) {
     this.byId = new Map(net.parts.map((p) => [p.id, p]));
     for (const c of net.cords) {
       const out = this.targets.get(c.driver) ?? [];
@@ -191,15 +195,15 @@ class RoleReader {
           ? { kind: 'flag', does: `${p.output}, pinned at ${p.fixed}` }
           : { kind: 'flag', does: `shows ${p.output}` };
       case 'actuator':
-        return { kind: 'actuator', does: `moves ${p.output} (${p.loadG} g)` };
+        return { kind: 'actuator', does: `moves ${p.output} (${quantitiesFor(this.units).mass(p.loadG)})` };
       case 'gate':
         return this.gateRole(p);
     }
   }
 }
 
-/** The role of every part of a netlist, by part id (see the module comment). */
-export function partRoles(net: Netlist): ReadonlyMap<string, PartRole> {
-  const reader = new RoleReader(net);
+/** The role of every part of a netlist, by part id (see the module comment); an actuator's load in `units`. */
+export function partRoles(net: Netlist, units: DocumentUnits = 'metric'): ReadonlyMap<string, PartRole> {
+  const reader = new RoleReader(net, units);
   return new Map(net.parts.map((p) => [p.id, (({ kind, does }) => ({ kind, does: cut(does) }))(reader.role(p))]));
 }

@@ -41,6 +41,7 @@ import { escapeXml } from './escape.js';
 import { extentOf, pathThrough, svgBox, svgDocument, svgText, textWidth, wrapWords, type Point } from './svg.js';
 import { stageColumns, type StageColumnOptions } from './stage-columns.js';
 import { STAGE_RANK, stagesOf, type StageInfo } from './stages.js';
+import type { DocumentUnits } from '../model/units.js';
 
 export type NodeKind =
   'operator' | 'clock' | 'reset' | 'term' | 'helper' | 'master' | 'transfer' | 'slave' | 'output' | 'indicator';
@@ -176,10 +177,15 @@ function boxHeight(kind: NodeKind, lines: number): number {
 }
 
 /** One node per drawn part, sized for its kind label, role words and id. */
-function addPartNodes(g: LayoutGraph, net: Netlist, shown: readonly Part[]): Map<string, NodeInfo> {
+function addPartNodes(
+  g: LayoutGraph,
+  net: Netlist,
+  shown: readonly Part[],
+  units: DocumentUnits,
+): Map<string, NodeInfo> {
   const latchRole = new Map<string, 'master' | 'slave'>();
   for (const p of net.parts) if (p.kind === 'latch') latchRole.set(p.id, p.role);
-  const roles = partRoles(net);
+  const roles = partRoles(net, units);
   const info = new Map<string, NodeInfo>();
   for (const p of shown) {
     const kind = kindOf(p, latchRole);
@@ -414,15 +420,20 @@ function columnLayout(
 
 /**
  * Place every part: with dagre's layered layout up to LAYERED_MAX_PARTS parts, in stage columns
- * past it (see the module comment; `options` apply to the stage columns only).
+ * past it (see the module comment; `options` apply to the stage columns only); an actuator's
+ * load in `units`.
  */
-export function schematicLayout(build: Build, options: StageColumnOptions = {}): SchematicLayout {
+export function schematicLayout(
+  build: Build,
+  options: StageColumnOptions = {},
+  units: DocumentUnits = 'metric',
+): SchematicLayout {
   const net = build.netlist;
   const { shown, nodeOf } = drawnParts(net);
   const g = layoutGraph({ compound: true, multigraph: true });
   g.setGraph({ rankdir: 'LR', nodesep: 14, ranksep: 46, edgesep: 8, marginx: MARGIN, marginy: MARGIN });
   g.setDefaultEdgeLabel(() => ({}));
-  const drafted = { g, shown, info: addPartNodes(g, net, shown) };
+  const drafted = { g, shown, info: addPartNodes(g, net, shown, units) };
   return net.parts.length > LAYERED_MAX_PARTS
     ? columnLayout(net, drafted, nodeOf, options)
     : layeredLayout(net, drafted, nodeOf);
@@ -431,6 +442,8 @@ export function schematicLayout(build: Build, options: StageColumnOptions = {}):
 /** The palettes: the paper one for documents, the screen one taking the page's theme variables. */
 export interface SchematicOptions {
   readonly palette?: 'paper' | 'screen';
+  /** The workshop's units of an actuator's load (model/units.ts); metric unless told. */
+  readonly units?: DocumentUnits;
 }
 
 const PAPER = {
@@ -634,7 +647,7 @@ function legendSvg(y: number, l: SchematicLayout): string {
  * paper palette unless told otherwise.
  */
 export function schematicSvg(build: Build, layout?: SchematicLayout, options: SchematicOptions = {}): string {
-  const l = layout ?? schematicLayout(build);
+  const l = layout ?? schematicLayout(build, {}, options.units);
   const screen = options.palette === 'screen';
   const body: string[] = [];
   for (const c of l.clusters)

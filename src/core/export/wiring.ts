@@ -23,6 +23,7 @@ import { lossByBranch, type BranchRoute } from '../physics/routing.js';
 import { recordsToCsv } from './csv.js';
 import { num } from './readable.js';
 import { stagesOf, STAGE_WORDS } from './stages.js';
+import { quantitiesFor, trimmed, type DocumentUnits } from '../model/units.js';
 
 /** One cord branch, ready to tie. */
 export interface WiringRow {
@@ -84,6 +85,7 @@ export function driverSide(
 export function wiringRows(netlist: Netlist, profile: Profile, placement?: Placement): WiringRow[] {
   const parts = partIndex(netlist);
   const stages = stagesOf(netlist);
+  const q = quantitiesFor(profile.documentUnits);
   const losses = placement ? lossByBranch(placement.routing) : undefined;
   const margins = new Map(driveBudget(netlist, profile, losses).map((b) => [b.driver, b.margin]));
   const loads = branchLoads(netlist, profile, losses);
@@ -100,7 +102,7 @@ export function wiringRows(netlist: Netlist, profile: Profile, placement?: Place
       ...c.ports.map((p) => ({ part: p.part, port: p.port, key: `${p.part}.${p.port}` })),
       ...c.actuators.map((a) => {
         const x = parts.get(a);
-        return { part: a, port: x?.kind === 'actuator' ? `load ${num(x.loadG, 1)} g` : '', key: a };
+        return { part: a, port: x?.kind === 'actuator' ? `load ${q.mass(x.loadG, trimmed(1))}` : '', key: a };
       }),
     ];
     targets.forEach((t, i) => {
@@ -166,17 +168,26 @@ const HEADER: Readonly<Record<keyof WiringRow, string>> = {
   margin: 'driver margin',
 };
 
-/** The wiring list as CSV with a header line. */
-export function wiringCsv(rows: readonly WiringRow[]): string {
+/**
+ * The wiring list as CSV with a header line. In `units` "inch" the length and load columns are
+ * inches (the cut, rounded up to 1/16 in) and ounces (to 0.1 oz), their heads say so, and the
+ * cells stay plain numbers (model/units.ts); the rows themselves are SI.
+ */
+export function wiringCsv(rows: readonly WiringRow[], units: DocumentUnits = 'metric'): string {
+  const q = quantitiesFor(units);
+  const head = { ...HEADER, lengthM: `length (${q.cutUnit})`, loadG: `load (${q.massUnit})` };
   const cols = Object.keys(HEADER) as (keyof WiringRow)[];
-  // A driver with no load has an infinite margin: written as text (∞), every other cell as it is.
-  const named = rows.map((r) =>
-    Object.fromEntries(
-      cols.map((c) => [HEADER[c], c === 'margin' && !Number.isFinite(r.margin) ? num(r.margin) : r[c]]),
-    ),
-  );
+  const cell = (r: WiringRow, c: keyof WiringRow): string | number => {
+    // A driver with no load has an infinite margin: written as text (∞), every other cell as it is.
+    if (c === 'margin' && !Number.isFinite(r.margin)) return num(r.margin);
+    if (q.units === 'metric') return r[c];
+    if (c === 'lengthM') return r.lengthM === '' ? '' : Number(q.cutCell(r.lengthM));
+    if (c === 'loadG') return Number(q.massCell(r.loadG));
+    return r[c];
+  };
+  const named = rows.map((r) => Object.fromEntries(cols.map((c) => [head[c], cell(r, c)])));
   return recordsToCsv<Record<string, string | number>>(
-    cols.map((c) => HEADER[c]),
+    cols.map((c) => head[c]),
     named,
   );
 }

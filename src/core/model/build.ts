@@ -4,6 +4,7 @@
 import type { FlatMachine } from './flat.js';
 import type { Netlist } from './netlist.js';
 import type { Cube } from './cube.js';
+import { wordsIn, type DocumentUnits, type Words } from './units.js';
 
 /** State codes of the minimised machine. */
 export interface Encoding {
@@ -84,6 +85,16 @@ export interface Build {
 export interface CheckBase<N extends string = string> {
   readonly name: N;
   readonly ok: boolean;
-  /** One line in words. */
+  /** One line in words, its figures in metric (SI). */
   readonly summary: string;
+  /**
+   * The same line with its lengths, masses and torques as typed figures (model/units.ts), for a
+   * check whose summary has any: `summaryIn` writes it in the workshop's units. Left out of
+   * `build --json`, whose summary stays SI.
+   */
+  readonly says?: Words;
 }
+
+/** A check's summary in `units`: its typed words where it has them, else its summary as it is. */
+export const summaryIn = (check: CheckBase, units: DocumentUnits): string =>
+  check.says ? wordsIn(check.says, units) : check.summary;

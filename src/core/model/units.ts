@@ -1,6 +1,6 @@
 /**
- * The workshop's units on what it cuts and hangs: the conversions and the way a workshop writes
- * a length or a mass, in one place. Pure.
+ * The workshop's units on what it cuts, hangs and drives: the conversions and the way a workshop
+ * writes a length, a mass or a torque, in one place. Pure.
  *
  * Factors are exact by definition (the international yard and pound agreement of 1959; NIST
  * Special Publication 811, appendix B, and NIST Handbook 44, appendix C): 1 in = 0.0254 m,
@@ -19,8 +19,24 @@
  *   (3.175 mm, 6 % more) would send a buyer to the wrong cord.
  * - A mass (a weight to hang, a load) goes in ounces to 0.1 oz, and from a pound up in pounds
  *   and ounces: `0.5 oz`, `1 lb 1.6 oz`.
- * - Forces and torques stay in SI (newtons, newton-metres): a workshop weighs its pull-up weights
- *   but meets a torque only on a motor's plate, which is in N·m the world over (common practice).
+ * - A load or a pull given in grams-force is a mass to hang or to feel, written as a mass above.
+ * - A drum torque goes in pound-force inches to 0.01 lbf·in (1 lbf = 4.4482216152605 N exactly,
+ *   so 1 lbf·in = 0.112984829027617 N·m; NIST SP 811 B.8), the unit a US motor or gearbox plate
+ *   gives its torque in (common practice).
+ * - A length along the frame or of cord in all (a drum, the cord to cut together) goes in feet
+ *   and inches to the nearest sixteenth, as a dimension; a position along a drum in a table cell
+ *   to 0.1 in.
+ * - Power stays in watts (a US motor plate gives watts or horsepower; watts need no second
+ *   conversion), times in seconds, angles in degrees, μ and margins are plain numbers.
+ *
+ * `quantitiesFor(units)` is the one writer of every such figure a person reads (Quantities): the
+ * documents, the checks' summaries, the command line and the designer take it, so no file writes
+ * metres or grams by hand in inch mode. A metric document keeps the precision each place has
+ * always written (its `MetricForm`); the inch forms are fixed here, per kind of quantity.
+ * Words that carry figures and outlive the moment they were made (a check's summary, which
+ * crosses to the designer's worker and into the documents) are data: `say` keeps each figure
+ * typed (`Figure`: its kind, its SI value, its metric form) and `wordsIn(words, units)` writes
+ * them, so no one parses a summary back for its numbers.
  *
  * The choice could grow to other systems (`"mixed"`: metric lengths with avoirdupois weights, or
  * `"foot-decimal"`: feet to 0.01 ft as surveyors write them); each would be one more entry here.
@@ -185,7 +201,180 @@ export function massWords(g: number): string {
   return rest === 0 ? `${pounds} lb` : `${pounds} lb ${(rest / 10).toFixed(1)} oz`;
 }
 
-/** A dimension in the chosen units: metric as the documents have always written it (`0.40 m`), inch as feet and inches. */
-export function dimensionWords(m: number, units: DocumentUnits): string {
-  return units === 'inch' ? lengthFeetInches(m) : `${m.toFixed(2)} m`;
+/** Newtons in one pound-force, exactly (NIST SP 811 B.8: 4.448 221 615 260 5 N). */
+export const NEWTONS_PER_POUND_FORCE = 4.4482216152605;
+/** Newton-metres in one pound-force inch: 4.4482216152605 × 0.0254 = 0.112984829027617 N·m. */
+export const NEWTON_METRES_PER_POUND_FORCE_INCH = NEWTONS_PER_POUND_FORCE * METRES_PER_INCH;
+/** Pound-force inches in `nm` newton-metres. */
+export const poundForceInchesOf = (nm: number): number => nm / NEWTON_METRES_PER_POUND_FORCE_INCH;
+
+/**
+ * How a metric document writes the number of a figure, as data (a figure crosses to the
+ * designer's worker and back): `digits` decimals, zeros kept with `zeros`, trailing zeros
+ * dropped without; as it is held without `digits`.
+ */
+export interface Precision {
+  readonly digits?: number;
+  readonly zeros?: boolean;
+}
+/** To `digits` decimals, zeros kept: `1.20`. */
+export const fixed = (digits: number): Precision => ({ digits, zeros: true });
+/** To at most `digits` decimals, trailing zeros dropped: `1.2`. */
+export const trimmed = (digits: number): Precision => ({ digits });
+/** As it is held: `0.04`, `1.5`. */
+export const plain: Precision = {};
+
+const numberWords = (v: number, p: Precision): string => {
+  if (p.digits === undefined) return String(v);
+  return p.zeros ? v.toFixed(p.digits) : String(Math.round(v * 10 ** p.digits) / 10 ** p.digits);
+};
+
+/** A metric length's unit and precision: metres or millimetres (of a length given in metres). */
+export interface MetricForm {
+  readonly unit: 'm' | 'mm';
+  readonly precision: Precision;
+}
+/** Metres, to `precision`. */
+export const inMetres = (precision: Precision): MetricForm => ({ unit: 'm', precision });
+/** Millimetres, to `precision`. */
+export const inMillimetres = (precision: Precision): MetricForm => ({ unit: 'mm', precision });
+
+const metricLength = (m: number, f: MetricForm): string =>
+  f.unit === 'mm' ? `${numberWords(m * 1000, f.precision)} mm` : `${numberWords(m, f.precision)} m`;
+
+/**
+ * Every figure a person reads, written in one system of units. Values go in SI (metres, grams,
+ * newton-metres); the metric words keep the precision the caller gives (the default is each
+ * method's own), the inch words are this module's (see the head of the file).
+ */
+export interface Quantities {
+  readonly units: DocumentUnits;
+  /** A length along the frame or of cord: `1.22 m`; `4 ft 0 1/16 in` (nearest 1/16 in). */
+  length(m: number, metric?: MetricForm): string;
+  /** A length to cut: `0.524 m`; `1 ft 8 5/8 in` (the metric cut rounded up to 1/16 in). */
+  cut(m: number, metric?: MetricForm): string;
+  /** A size (a radius, a diameter, a pitch): `30 mm`; `1 3/16 in` or `0.315 in` (sizeInches). */
+  size(m: number, metric?: MetricForm): string;
+  /** A mass, or a load in grams-force: `20 g`; `0.7 oz`, `1 lb 1.6 oz`. */
+  mass(g: number, metric?: Precision): string;
+  /** A torque: `1.172 N·m`; `10.37 lbf·in`. */
+  torque(nm: number, metric?: Precision): string;
+  /** The unit of a table column of masses (`g`, `oz`), and a cell of it: the number alone. */
+  readonly massUnit: 'g' | 'oz';
+  massCell(g: number, metric?: Precision): string;
+  /** The unit of a table column of cut lengths (`m`, `in`), and a cell of it: decimal inches of whole sixteenths, rounded up. */
+  readonly cutUnit: 'm' | 'in';
+  cutCell(m: number, metric?: Precision): string;
+  /** The unit of a table column of positions along a drum (`m`, `in`), and a cell of it (0.1 in). */
+  readonly alongUnit: 'm' | 'in';
+  alongCell(m: number, metric?: Precision): string;
+  /** The unit of a chart of torques (`N·m`, `lbf·in`), and a bar's figure in it. */
+  readonly torqueUnit: 'N·m' | 'lbf·in';
+  torqueValue(nm: number): number;
+}
+
+const METRIC_QUANTITIES: Quantities = {
+  units: 'metric',
+  length: (m, f = inMetres(fixed(2))) => metricLength(m, f),
+  cut: (m, f = inMetres(fixed(3))) => metricLength(m, f),
+  size: (m, f = inMillimetres(trimmed(1))) => metricLength(m, f),
+  mass: (g, p = plain) => `${numberWords(g, p)} g`,
+  torque: (nm, p = fixed(3)) => `${numberWords(nm, p)} N·m`,
+  massUnit: 'g',
+  massCell: (g, p = trimmed(1)) => numberWords(g, p),
+  cutUnit: 'm',
+  cutCell: (m, p = plain) => numberWords(m, p),
+  alongUnit: 'm',
+  alongCell: (m, p = trimmed(3)) => numberWords(m, p),
+  torqueUnit: 'N·m',
+  torqueValue: (nm) => nm,
+};
+
+const INCH_QUANTITIES: Quantities = {
+  units: 'inch',
+  length: (m) => lengthFeetInches(m),
+  cut: (m) => cutFeetInches(m),
+  size: (m) => sizeInches(m),
+  mass: (g) => massWords(g),
+  torque: (nm) => `${poundForceInchesOf(nm).toFixed(2)} lbf·in`,
+  massUnit: 'oz',
+  massCell: (g) => String(ouncesTenth(g)),
+  cutUnit: 'in',
+  cutCell: (m) => String(inchesOfSixteenths(cutSixteenths(m))),
+  alongUnit: 'in',
+  alongCell: (m) => String(Math.round(inchesOf(m) * 10) / 10),
+  torqueUnit: 'lbf·in',
+  torqueValue: (nm) => Math.round(poundForceInchesOf(nm) * 100) / 100,
+};
+
+/** The writer of every figure a person reads in `units`. */
+export const quantitiesFor = (units: DocumentUnits): Quantities =>
+  units === 'inch' ? INCH_QUANTITIES : METRIC_QUANTITIES;
+
+/** A figure inside words: what it measures, its SI value (metres, grams, N·m), and its metric form. */
+export type Figure =
+  | { readonly kind: 'length' | 'cut' | 'size'; readonly si: number; readonly metric?: MetricForm }
+  | { readonly kind: 'mass' | 'torque'; readonly si: number; readonly metric?: Precision };
+
+/** Words with figures in them, as data: text as it is, each figure written in the reader's units. */
+export type Words = readonly (string | Figure)[];
+
+/** A length along the frame or of cord (metres). */
+export const lengthFigure = (m: number, metric?: MetricForm): Figure => ({ kind: 'length', si: m, metric });
+/** A size: a radius, a diameter, a pitch (metres). */
+export const sizeFigure = (m: number, metric?: MetricForm): Figure => ({ kind: 'size', si: m, metric });
+/** A mass, or a load in grams-force (grams). */
+export const massFigure = (g: number, metric?: Precision): Figure => ({ kind: 'mass', si: g, metric });
+/** A torque (newton-metres). */
+export const torqueFigure = (nm: number, metric?: Precision): Figure => ({ kind: 'torque', si: nm, metric });
+
+const isFigure = (v: Figure | Words): v is Figure => !Array.isArray(v);
+
+/**
+ * Words from a template: say`lifts ${massFigure(300)}` → ['lifts ', figure]. Text and numbers go
+ * in as JavaScript writes them; a Words value is spliced in whole.
+ */
+export function say(text: TemplateStringsArray, ...values: readonly (string | number | Figure | Words)[]): Words {
+  const out: (string | Figure)[] = [];
+  const push = (v: string | Figure): void => {
+    const last = out[out.length - 1];
+    if (typeof v === 'string' && typeof last === 'string') out[out.length - 1] = last + v;
+    else if (v !== '') out.push(v);
+  };
+  text.forEach((t, i) => {
+    push(t);
+    if (i >= values.length) return;
+    const v = values[i];
+    if (typeof v === 'string' || typeof v === 'number') push(String(v));
+    else if (isFigure(v)) push(v);
+    else for (const w of v) push(w);
+  });
+  return out;
+}
+
+/** `parts` joined by `sep`, as Words. */
+export function joinWords(parts: readonly Words[], sep: string): Words {
+  return parts.flatMap((w, i) => (i === 0 ? [...w] : [sep, ...w]));
+}
+
+/** Words written in `units`: each figure by quantitiesFor(units), in its metric form in metric. */
+export function wordsIn(words: Words, units: DocumentUnits): string {
+  const q = quantitiesFor(units);
+  return words
+    .map((w) => {
+      if (typeof w === 'string') return w;
+      switch (w.kind) {
+        case 'length':
+          return q.length(w.si, w.metric);
+        case 'cut':
+          return q.cut(w.si, w.metric);
+        case 'size':
+          return q.size(w.si, w.metric);
+        case 'mass':
+          return q.mass(w.si, w.metric);
+        case 'torque':
+          return q.torque(w.si, w.metric);
+      }
+    })
+    .join('');
 }

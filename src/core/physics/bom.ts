@@ -15,12 +15,15 @@
  *   in the profile (one pin per quarter turn of redirection, an estimate: a pin rarely turns a
  *   cord further).
  * Postcondition: rows with a count of zero are left out; numbers are rounded to what a
- * builder can cut or weigh (0.1 g, 1 mm). The CSV form of the rows is export/bom-csv.ts.
+ * builder can cut or weigh (0.1 g, 1 mm), in SI; the notes' sizes (drum radius, wrap pitch,
+ * pulley) are words in the profile's `documentUnits` (model/units.ts). The CSV form of the rows
+ * is export/bom-csv.ts.
  */
 import type { Netlist } from '../model/netlist.js';
 import { routingFor, wrapsOf } from './capstan.js';
 import type { Profile } from './profile.js';
 import type { Routing } from './routing.js';
+import { inMetres, inMillimetres, plain, quantitiesFor, trimmed } from '../model/units.js';
 
 /** What a placed build adds: its routing and its drums (a Placement of phases/place fits). */
 export interface FrameFigures {
@@ -76,7 +79,9 @@ export function billOfMaterials(netlist: Netlist, profile: Profile, frame?: Fram
     );
   const capstans = [...turns.values()].reduce((a, n) => a + n, 0);
   const totalTurns = [...turns].reduce((a, [w, n]) => a + w * n, 0);
-  const drumNote = `radius ${profile.drumRadiusM} m at ${profile.drumRpm} rev/min; ${r3(profile.wrapPitchM)} m per wrap`;
+  // The notes' sizes in the workshop's units (model/units.ts); the rows' amounts stay SI.
+  const q = quantitiesFor(profile.documentUnits);
+  const drumNote = `radius ${q.size(profile.drumRadiusM, inMetres(plain))} at ${profile.drumRpm} rev/min; ${q.size(profile.wrapPitchM, inMetres(trimmed(3)))} per wrap`;
   if (frame) {
     for (const d of frame.drums) add(`drum ${d.drum}`, 'drum', 1, d.lengthM, 'm length', `${drumNote}; as placed`, r3);
     addMeasuredCord(netlist, frame.routing, profile, add);
@@ -113,7 +118,7 @@ function addMeasuredCord(netlist: Netlist, routing: Routing, profile: Profile, a
     routing.pulleys,
     1,
     'piece',
-    `${profile.frame.pulleyDiameterM * 1000} mm, efficiency ${profile.routing.pulleyEfficiency} each; one at each corner of a cord’s tree (shared by its branches) and one where each branch rises or leaves`,
+    `${quantitiesFor(profile.documentUnits).size(profile.frame.pulleyDiameterM, inMillimetres(plain))}, efficiency ${profile.routing.pulleyEfficiency} each; one at each corner of a cord’s tree (shared by its branches) and one where each branch rises or leaves`,
   );
 }
 

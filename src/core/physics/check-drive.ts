@@ -19,11 +19,12 @@
  */
 import type { CheckBase } from '../model/build.js';
 import type { Netlist } from '../model/netlist.js';
-import { driveBudget, type BranchLosses, type DriverBudget } from './drive.js';
+import { budgetWords, driveBudget, type BranchLosses, type DriverBudget } from './drive.js';
 import { ALL_ENGAGED, drumLoad, type DriveSnapshot } from './drum.js';
 import { frictionHeadroom, headroomWords, outputLoadWords, type OutputLoad } from './headroom.js';
 import { operatorForces } from './operator.js';
 import type { Profile } from './profile.js';
+import { joinWords, massFigure, say, torqueFigure, wordsIn, type Words } from '../model/units.js';
 
 /** What the drive check needs to know of where a snapshot was taken: at least the state. */
 export interface StatePlace {
@@ -75,25 +76,32 @@ export function checkDrive<W extends StatePlace>(
   const failing = drivers.filter((d) => !d.ok);
   const ok = failing.length === 0;
   const headroom = frictionHeadroom(netlist, drivers, profile);
-  const friction = [`friction headroom: ${headroomWords(headroom, profile)}`, ...outputLoadWords(headroom, profile)];
+  const friction = joinWords(
+    [[`friction headroom: ${headroomWords(headroom, profile)}`], ...outputLoadWords(headroom, profile)],
+    '; ',
+  );
   const at = drum.worst.where === null ? ALL_ENGAGED : words(drum.worst.where);
-  const torque = `worst drum torque ${drum.worst.torqueNm.toFixed(3)} N·m (${drum.worst.powerW.toFixed(2)} W) in '${at}'`;
-  const pull = `hardest lever pull ${operatorForceMaxG} g`;
-  let summary: string;
+  // Typed figures (model/units.ts): `summary` is these in metric, `says` for the workshop's units.
+  const torque = say`worst drum torque ${torqueFigure(drum.worst.torqueNm)} (${drum.worst.powerW.toFixed(2)} W) in '${at}'`;
+  const pull = say`hardest lever pull ${massFigure(operatorForceMaxG)}`;
+  let says: Words;
   if (!ok) {
     // Lead with the weakest failing driver, so the words name the same cord as `weakestCord`.
     const f = failing.reduce((w, d) => (d.margin < w.margin ? d : w));
     const more = failing.length > 1 ? ` (and ${failing.length - 1} more of ${drivers.length} capstans)` : '';
-    summary = `over budget, margin below ${profile.minMargin}: ${f.message}${more}; fix: ${(f.fixes ?? []).join('; or ')}; ${friction.join('; ')}`;
+    const w = budgetWords(f, profile);
+    says = say`over budget, margin below ${profile.minMargin}: ${w.message}${more}; fix: ${joinWords(w.fixes, '; or ')}; ${friction}`;
   } else if (weakest) {
-    summary = `every capstan within budget: smallest margin ${weakest.margin.toFixed(2)} on cord '${weakest.weakestCord}' (≥ ${profile.minMargin}); ${friction.join('; ')}; ${torque}; ${pull}`;
+    says = say`every capstan within budget: smallest margin ${weakest.margin.toFixed(2)} on cord '${weakest.weakestCord}' (≥ ${profile.minMargin}); ${friction}; ${torque}; ${pull}`;
   } else {
-    summary = `no capstan carries a load; ${torque}; ${pull}`;
+    says = say`no capstan carries a load; ${torque}; ${pull}`;
   }
+  const summary = wordsIn(says, 'metric');
   return {
     name: 'drive',
     ok,
     summary,
+    says,
     minMargin: weakest ? weakest.margin : null,
     weakestCord: weakest ? weakest.weakestCord : null,
     worstTorqueNm: drum.worst.torqueNm,

@@ -23,6 +23,7 @@
 import { partIndex, type Netlist, type Part } from '../model/netlist.js';
 import { availableTension, gramsToNewtons, routingFactor, routingFor, wrapsNeeded, wrapsOf } from './capstan.js';
 import type { Profile } from './profile.js';
+import { joinWords, massFigure, say, trimmed, wordsIn, type Figure, type Words } from '../model/units.js';
 
 /** Routing loss (factor ≥ 1) of each branch, by `branchKey(cord, target)`: what the routed frame gives. */
 export type BranchLosses = ReadonlyMap<string, number>;
@@ -159,10 +160,23 @@ function budgetOf(
     weakestCord,
   };
   if (ok) return base;
-  return { ...base, message: failMessage(base, profile), fixes: fixesFor(base, profile) };
+  const w = budgetWords(base, profile);
+  return { ...base, message: wordsIn(w.message, 'metric'), fixes: w.fixes.map((f) => wordsIn(f, 'metric')) };
 }
 
-const grams = (g: number): string => `${g >= 100 ? Math.round(g) : Math.round(g * 10) / 10} g`;
+/** A load in a message: in metric whole grams from 100 g, to 0.1 g below. */
+const grams = (g: number): Figure => massFigure(g, trimmed(g >= 100 ? 0 : 1));
+
+/**
+ * What is wrong with an over-budget driver and what to change, as Words (model/units.ts): the
+ * budget's `message` and `fixes` are these in metric; a document writes them in its own units.
+ */
+export function budgetWords(
+  b: Omit<DriverBudget, 'message' | 'fixes'>,
+  profile: Profile,
+): { readonly message: Words; readonly fixes: readonly Words[] } {
+  return { message: failWords(b, profile), fixes: fixWords(b, profile) };
+}
 
 /**
  * The largest load an actuator branch `a` of budget `b` could have, grams before routing loss,
@@ -173,54 +187,50 @@ export function maxActuatorLoadG(b: Pick<DriverBudget, 'availableG' | 'loadG'>, 
   return Math.max(0, (b.availableG / margin - (b.loadG - a.loadG)) / a.routingFactor);
 }
 
-function failMessage(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile): string {
+function failWords(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile): Words {
   const act = b.branches.find((x) => x.kind === 'actuator' && x.output !== undefined);
   if (act) {
     const most = maxActuatorLoadG(b, act, profile.minMargin);
     const turns = `${b.wraps} ${b.wraps === 1 ? 'turn' : 'turns'}${b.wraps >= profile.maxWraps ? ', the most maxWraps allows' : ''}`;
-    return (
-      `output '${act.output}' lifts ${grams(act.baseG)} (actuator ${act.target}, cord '${act.cord}'), but its capstan ` +
-      `(${b.driverKind} '${b.driver}', ${turns}) can move at most ${grams(most)} at margin ${profile.minMargin}: ` +
-      `${grams(act.baseG - most)} short (margin ${b.margin.toFixed(2)})`
-    );
+    return say`output '${act.output ?? ''}' lifts ${grams(act.baseG)} (actuator ${act.target}, cord '${act.cord}'), but its capstan (${b.driverKind} '${b.driver}', ${turns}) can move at most ${grams(most)} at margin ${profile.minMargin}: ${grams(act.baseG - most)} short (margin ${b.margin.toFixed(2)})`;
   }
-  const shown = b.branches.slice(0, 8).map((x) => `${x.target} ${grams(x.loadG)}`);
+  const shown = joinWords(
+    b.branches.slice(0, 8).map((x) => say`${x.target} ${grams(x.loadG)}`),
+    ', ',
+  );
   const more = b.branches.length > 8 ? `, … ${b.branches.length - 8} more` : '';
   const cordWord = b.cords.length === 1 ? `cord '${b.cords[0]}'` : `cords ${b.cords.map((c) => `'${c}'`).join(', ')}`;
-  return (
-    `${cordWord} (capstan of ${b.driverKind} '${b.driver}') must lift ${grams(b.loadG)} (${shown.join(', ')}${more}) ` +
-    `but its capstan holds ${grams(b.availableG)}: margin ${b.margin.toFixed(2)}`
-  );
+  return say`${cordWord} (capstan of ${b.driverKind} '${b.driver}') must lift ${grams(b.loadG)} (${shown}${more}) but its capstan holds ${grams(b.availableG)}: margin ${b.margin.toFixed(2)}`;
 }
 
-function fixesFor(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile): string[] {
-  const fixes: string[] = [];
+function fixWords(b: Omit<DriverBudget, 'message' | 'fixes'>, profile: Profile): Words[] {
+  const fixes: Words[] = [];
   const budgetG = b.availableG / profile.minMargin;
   const heaviest = Math.max(...b.branches.map((x) => x.loadG));
   const act = b.branches.find((x) => x.kind === 'actuator' && x.output !== undefined);
   if (act) {
     const most = Math.floor(maxActuatorLoadG(b, act, profile.minMargin));
     fixes.push(
-      `a lighter load on '${act.output}': at most ${most} g (counterweight the load, or hang it from a 2:1 pulley block, which halves it)`,
+      say`a lighter load on '${act.output ?? ''}': at most ${massFigure(most)} (counterweight the load, or hang it from a 2:1 pulley block, which halves it)`,
     );
   } else if (b.branches.length > 1 && heaviest <= budgetG) {
     const each = b.loadG / b.branches.length;
     fixes.push(
-      `fewer branches: this capstan carries about ${Math.max(1, Math.floor(budgetG / each))} of them at margin ${profile.minMargin}; spread the rest over a buffer tree`,
+      say`fewer branches: this capstan carries about ${Math.max(1, Math.floor(budgetG / each))} of them at margin ${profile.minMargin}; spread the rest over a buffer tree`,
     );
   }
   const turns = wrapsNeeded(b.loadG, b.holdG, profile.mu, profile.minMargin, 0);
   if (turns > b.wraps)
     fixes.push(
       act
-        ? `more wraps: ${turns} turns on this capstan (μ = ${profile.mu}); raise maxWraps to ${turns} (now ${profile.maxWraps})`
-        : `more wraps: ${turns} turns on the drum (μ = ${profile.mu})`,
+        ? say`more wraps: ${turns} turns on this capstan (μ = ${profile.mu}); raise maxWraps to ${turns} (now ${profile.maxWraps})`
+        : say`more wraps: ${turns} turns on the drum (μ = ${profile.mu})`,
     );
   const needG = Math.ceil((profile.minMargin * b.loadG) / (profile.leverRatio * b.gain));
   fixes.push(
     b.driverKind === 'lever'
-      ? `a heavier lever pull-up weight: ${needG} g (leverWeightG; the lever gets harder to pull)`
-      : `a heavier Z weight on this gate alone: ${needG} g (a heavier zWeightG for every gate also adds to the load of each port it hangs on)`,
+      ? say`a heavier lever pull-up weight: ${massFigure(needG)} (leverWeightG; the lever gets harder to pull)`
+      : say`a heavier Z weight on this gate alone: ${massFigure(needG)} (a heavier zWeightG for every gate also adds to the load of each port it hangs on)`,
   );
   return fixes;
 }

@@ -17,6 +17,7 @@ import { partIndex, type Netlist } from '../model/netlist.js';
 import { muNeeded } from './capstan.js';
 import { maxActuatorLoadG, type DriverBudget } from './drive.js';
 import type { Profile } from './profile.js';
+import { massFigure, say, type Words } from '../model/units.js';
 
 /** What one actuator output lifts, the most it could lift at the design margin, and its capstan's margin. */
 export interface OutputLoad {
@@ -72,9 +73,10 @@ export function headroomWords(h: Headroom, profile: Profile): string {
   return `every capstan holds down to μ = ${h.muMin.toFixed(3)} and keeps margin ${profile.minMargin} down to μ = ${h.muAtMinMargin.toFixed(3)} (μ = ${profile.mu} now)`;
 }
 
-/** "output 'sluice' lifts 300 g, at most 1094 g at margin 2" for each actuator output. */
-export function outputLoadWords(h: Headroom, profile: Profile): string[] {
+/** "output 'sluice' lifts 300 g, at most 1094 g at margin 2" for each actuator output, as Words (model/units.ts). */
+export function outputLoadWords(h: Headroom, profile: Profile): Words[] {
   return Object.entries(h.outputs).map(
-    ([o, x]) => `output '${o}' lifts ${x.loadG} g, at most ${Math.floor(x.maxLoadG)} g at margin ${profile.minMargin}`,
+    ([o, x]) =>
+      say`output '${o}' lifts ${massFigure(x.loadG)}, at most ${massFigure(Math.floor(x.maxLoadG))} at margin ${profile.minMargin}`,
   );
 }

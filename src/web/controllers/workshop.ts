@@ -80,8 +80,8 @@ export const UNITS_CHOICES: readonly {
   readonly label: string;
   readonly says: string;
 }[] = [
-  { units: 'metric', label: 'Metric', says: 'metres and millimetres, grams' },
-  { units: 'inch', label: 'Inches', says: 'feet and inches to 1/16 in, ounces and pounds' },
+  { units: 'metric', label: 'Metric', says: 'metres and millimetres, grams, N·m' },
+  { units: 'inch', label: 'Inches', says: 'feet and inches to 1/16 in, ounces and pounds, lbf·in' },
 ];
 
 /**

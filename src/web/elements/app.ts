@@ -104,7 +104,9 @@ export class LwApp extends LitElement {
   private readonly lit = remember(litStates);
   /** The frame in the page's colours: the same drawing as frame.svg; a large one's drawn in a worker (frame/drawing.ts). */
   private readonly frameDrawings = new FrameDrawings(() => this.requestUpdate());
-  private readonly partWords = remember((b: BuildView | undefined) => (b ? partWords(b.build) : undefined));
+  private readonly partWords = remember((b: BuildView | undefined) =>
+    b ? partWords(b.build, b.profile.documentUnits) : undefined,
+  );
   /** Where every lever on the frame stands in the trial run (the runner's state changes with every step). */
   private readonly stands = remember(
     (runner: PartRunner | undefined, state: PartState | undefined, b: BuildView | undefined): Stands | undefined =>
@@ -375,6 +377,7 @@ export class LwApp extends LitElement {
       ?pending=${b !== undefined && drawing === undefined}
       .placement=${b?.placement}
       .words=${this.partWords(b)}
+      .units=${b?.profile.documentUnits ?? 'metric'}
       .stands=${this.stands(st.runner, st.runner?.state, b)}
       .reading=${st.reading}
       .clocks=${st.clocks}

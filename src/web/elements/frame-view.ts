@@ -20,7 +20,16 @@
  */
 import { LitElement, html, nothing, type PropertyValues } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
-import type { BranchRoute, Diagnostic, PartReading, Placement } from '../../core/index.js';
+import {
+  fixed,
+  inMetres,
+  quantitiesFor,
+  type BranchRoute,
+  type Diagnostic,
+  type DocumentUnits,
+  type PartReading,
+  type Placement,
+} from '../../core/index.js';
 import { pinAt, type BaySpot, type Pins } from '../controllers/pins.js';
 import type { Stands } from '../frame/stands.js';
 import { DrawnFrame } from '../frame/drawn.js';
@@ -75,7 +84,10 @@ export class LwFrame extends LitElement {
     notes: { attribute: false },
     routes: { attribute: false },
     routeNotes: { attribute: false },
+    units: { attribute: false },
   };
+  /** The workshop's units (the profile's documentUnits) of the lengths the view reads out. */
+  declare units: DocumentUnits;
   /** The drawing (frameSvg in the screen palette), or why there is none. */
   declare drawing: { readonly svg?: string; readonly problem?: string } | undefined;
   declare placement: Placement | undefined;
@@ -146,6 +158,7 @@ export class LwFrame extends LitElement {
     this.notes = [];
     this.routes = undefined;
     this.routeNotes = [];
+    this.units = 'metric';
   }
 
   static override styles = [shared, viewColumn, LEVER_GLYPH_STYLES, KEEP_STYLES, frameStyles];
@@ -172,11 +185,12 @@ export class LwFrame extends LitElement {
     const size = svgSizeMm(svg);
     const scale = /scale 1:(\d+)/.exec(svg)?.[1] ?? '?';
     const touch = touchScreen();
+    const q = quantitiesFor(this.units);
     return html`<section class="panel" aria-label="The frame">
       <h2>Frame &amp; cords</h2>
       <p class="soft" data-frame-summary>
         ${p.bays.length} bays on ${p.drums.length === 1 ? 'one drum' : `${p.drums.length} drums`}
-        (${p.drums.map((d) => `${d.lengthM.toFixed(2)} m`).join(', ')}); ${p.totalCordM.toFixed(2)} m of cord in
+        (${p.drums.map((d) => q.length(d.lengthM)).join(', ')}); ${q.length(p.totalCordM)} of cord in
         ${p.routing.cords.length} cords. Drawn at 1:${scale} on paper.
         ${touch ? 'Tap a cord to light its run and both ends; drag to pan.' : 'Point at a cord, or Tab to it, to light its run and both ends.'}
       </p>
@@ -324,7 +338,7 @@ export class LwFrame extends LitElement {
       b.pins.length > 0 ? `${b.pins.length} ${b.pins.length === 1 ? 'pin' : 'pins'}` : '',
     ].filter((s) => s !== '');
     return html`Cord <strong class="mono" data-lit-cord=${b.cord}>${b.cord}</strong>: from the capstan in
-      ${at(b.driver)} to ${lever}${at(b.part)}; ${b.lengthM.toFixed(2)} m to
+      ${at(b.driver)} to ${lever}${at(b.part)}; ${quantitiesFor(this.units).cut(b.lengthM, inMetres(fixed(2)))} to
       cut${over.length ? `, over ${over.join(' and ')}` : ''}.`;
   }
 

@@ -4,9 +4,14 @@
  */
 import { html, nothing } from 'lit';
 import {
+  bomRowIn,
   type CheckResult,
+  type DocumentUnits,
+  type Quantities,
+  quantitiesFor,
   RULE_WORDS,
   type RuleViolation,
+  summaryIn,
   type TimingResult,
   withoutCapstanWords,
 } from '../../core/index.js';
@@ -35,6 +40,7 @@ export function checksSection(
   fixes: readonly Fix[],
   fix: (id: Fix['id']) => void,
   draft = false,
+  units: DocumentUnits = 'metric',
 ) {
   const button = (f: Fix) => html`<button data-fix=${f.id} @click=${() => fix(f.id)}>${f.label}</button>`;
   const general = fixes.filter((f) => f.check === undefined);
@@ -56,7 +62,7 @@ export function checksSection(
                 const own = c.ok ? [] : fixes.filter((f) => f.check === c.name);
                 return html`<li class=${c.ok ? 'ok' : 'bad'} data-check=${c.name}>
                   <strong>${c.ok ? '✔' : '✘'} ${CHECK_WORDS[c.name] ?? c.name}</strong>
-                  <div class="summary">${c.summary}</div>
+                  <div class="summary">${summaryIn(c, units)}</div>
                   ${own.length > 0 ? html`<div class="fixes">${own.map(button)}</div>` : nothing}
                 </li>`;
               })}
@@ -68,6 +74,9 @@ export function checksSection(
 
 export function partsSection(b: BuildView) {
   const p = b.build.parts;
+  // The workshop's units (the profile's documentUnits): amounts, notes and the lever pull in them.
+  const units = b.profile.documentUnits;
+  const q = quantitiesFor(units);
   const counts: [string, number][] = [
     ['gates', p.gates],
     ['latches', p.latches],
@@ -92,27 +101,31 @@ export function partsSection(b: BuildView) {
           </tr>
         </thead>
         <tbody>
-          ${b.bom.map(
-            (r) =>
-              html`<tr>
-                <td>${r.item}</td>
-                <td class="num">${r.count}</td>
-                <td class="num">${r.each} ${r.unit}</td>
-                <td class="num">${r.total} ${r.unit}</td>
-                <td class="soft">${r.note}</td>
-              </tr>`,
-          )}
+          ${b.bom
+            .map((row) => bomRowIn(row, units))
+            .map(
+              (r) =>
+                html`<tr>
+                  <td>${r.item}</td>
+                  <td class="num">${r.count}</td>
+                  <td class="num">${r.each} ${r.unit}</td>
+                  <td class="num">${r.total} ${r.unit}</td>
+                  <td class="soft">${r.note}</td>
+                </tr>`,
+            )}
         </tbody>
       </table>
     </div>
-    <p class="soft">Hardest lever pull: ${Math.max(0, ...b.forces.map((f) => f.forceG))} g at the weight.</p>
+    <p class="soft" data-lever-pull>
+      Hardest lever pull: ${q.mass(Math.max(0, ...b.forces.map((f) => f.forceG)))} at the weight.
+    </p>
   </section>`;
 }
 
 const s2 = (x: number): string => (Math.round(x * 100) / 100).toString();
 
 /** Friction headroom (how far μ may fall) and what each actuator lifts against the most it could. */
-export function headroomView(c: ChecksView) {
+export function headroomView(c: ChecksView, q: Quantities) {
   return html`${
     c.muMin === null || c.muAtMinMargin === null
       ? nothing
@@ -139,8 +152,8 @@ export function headroomView(c: ChecksView) {
                 (o) =>
                   html`<tr class=${o.margin >= c.minMargin ? 'ok' : 'bad'}>
                     <td>${o.output}</td>
-                    <td class="num">${o.loadG} g</td>
-                    <td class="num">${Math.floor(o.maxLoadG)} g</td>
+                    <td class="num">${q.mass(o.loadG)}</td>
+                    <td class="num">${q.mass(Math.floor(o.maxLoadG))}</td>
                     <td class="num">${s2(o.margin)}</td>
                   </tr>`,
               )}

@@ -14,8 +14,11 @@ import {
   CAUTIONS,
   DOCUMENT_REGISTRY,
   formatDiagnostic,
+  quantitiesFor,
   RULE_WORDS,
+  summaryIn,
   type Diagnostic,
+  type Quantities,
   type RuleViolation,
 } from '../../core/index.js';
 import type { BuildView, ChecksView } from '../worker/protocol.js';
@@ -144,7 +147,9 @@ export class LwParts extends LitElement {
     const b = this.built;
     const c = this.checks;
     if (!b) return html`<p class="soft">Parts and forces appear once the machine builds.</p>`;
-    return html`${checksSection(c?.checks, this.checking, this.fixes, (id) => emit(this, 'fix', { id }), this.draft)}
+    // The workshop's units: the profile's documentUnits, as the Shop view sets it (core model/units.ts).
+    const q = quantitiesFor(b.profile.documentUnits);
+    return html`${checksSection(c?.checks, this.checking, this.fixes, (id) => emit(this, 'fix', { id }), this.draft, q.units)}
       ${this.exportsSection()} ${this.schematicSection()} ${partsSection(b)}
       <section class="panel" aria-label="Force margins">
         <h2>Force margins of the capstans</h2>
@@ -158,10 +163,10 @@ export class LwParts extends LitElement {
                   caption="Force margin per capstan"
                   unit="×"
                   floor
-                  .bars=${charts(c).margins}
-                  .marker=${charts(c).marker}
+                  .bars=${charts(c, q).margins}
+                  .marker=${charts(c, q).marker}
                 ></lw-bar-chart>
-                ${headroomView(c)}`
+                ${headroomView(c, q)}`
             : html`<p class="soft">Checking…</p>`
         }
       </section>
@@ -173,8 +178,12 @@ export class LwParts extends LitElement {
                   The worst case of each state over its inputs and clock phases; the worst sizes the motor or crank
                   (${c.powerW.toFixed(2)} W at the drum's speed).
                 </p>
-                ${torqueWords(c.torque)}
-                <lw-bar-chart caption="Drum torque per state" unit="N·m" .bars=${charts(c).torque}></lw-bar-chart>`
+                ${torqueWords(c.torque, q)}
+                <lw-bar-chart
+                  caption="Drum torque per state"
+                  unit=${q.torqueUnit}
+                  .bars=${charts(c, q).torque}
+                ></lw-bar-chart>`
             : html`<p class="soft">Checking…</p>`
         }
       </section>
@@ -259,11 +268,12 @@ export class LwParts extends LitElement {
 
   private warningsSection() {
     const failing = this.checks?.checks.filter((c) => !c.ok) ?? [];
+    const units = this.built?.profile.documentUnits ?? 'metric';
     if (this.warnings.length === 0 && failing.length === 0) return nothing;
     return html`<section class="panel" aria-label="Warnings" id="findings" tabindex="-1">
       <h2>Failing checks and warnings</h2>
       <ul class="plain">
-        ${failing.map((c) => html`<li class="bad">${c.name}: ${c.summary}</li>`)}
+        ${failing.map((c) => html`<li class="bad">${c.name}: ${summaryIn(c, units)}</li>`)}
         ${this.warnings.map((d) => html`<li class="warn mono">${formatDiagnostic(d)}</li>`)}
       </ul>
     </section>`;
@@ -302,15 +312,16 @@ interface Charts {
 }
 
 /**
- * The charts' bars, made once per checked build: the same arrays at every render, so a chart
+ * The charts' bars, made once per checked build and units: the same arrays at every render, so a chart
  * draws again only when its build changed (a large build has a bar per capstan, hundreds of
  * them, and the view renders again whenever it is shown).
  */
-const chartsOf = new WeakMap<ChecksView, Charts>();
-function charts(c: ChecksView): Charts {
+const chartsOf = new WeakMap<ChecksView, Charts & { readonly units: Quantities['units'] }>();
+function charts(c: ChecksView, q: Quantities): Charts {
   let out = chartsOf.get(c);
-  if (!out) {
+  if (out?.units !== q.units) {
     out = {
+      units: q.units,
       margins: c.margins.map((m) => ({
         label: `${m.kind}: ${m.does}`,
         value: m.margin,
@@ -320,8 +331,8 @@ function charts(c: ChecksView): Charts {
       torque: c.torque.map((t) => ({
         label: t.state,
         sub: `worst at ${t.at}`,
-        value: t.torqueNm,
-        note: `${t.torqueNm.toFixed(3)} N·m`,
+        value: q.torqueValue(t.torqueNm),
+        note: q.torque(t.torqueNm),
       })),
     };
     chartsOf.set(c, out);
@@ -341,13 +352,11 @@ function sized(svgText: string, zoom: number): string {
 }
 
 /** A sentence on the torque chart when every state has the same worst case (the bars then look alike on purpose). */
-function torqueWords(torque: ChecksView['torque']) {
+function torqueWords(torque: ChecksView['torque'], q: Quantities) {
   if (torque.length < 2) return nothing;
   const first = torque[0].torqueNm;
   return torque.every((t) => Math.abs(t.torqueNm - first) < 1e-9)
-    ? html`<p class="soft">
-        Every state has the same worst case, ${first.toFixed(3)} N·m: the same capstans pull in each.
-      </p>`
+    ? html`<p class="soft">Every state has the same worst case, ${q.torque(first)}: the same capstans pull in each.</p>`
     : nothing;
 }
 

@@ -7,8 +7,8 @@
  * figures that matter most come first; every other figure of the core's rules follows in a
  * folded part, named by the profile reference's own words (docs/profile.md, read as the page
  * is built), so the form and the reference never disagree. The units the workshop's papers are
- * written in (the profile's `documentUnits`: the cut list, the frame and cam drawings, the bill
- * of materials and the build sheet) are a choice of their own above the figures, which stay SI.
+ * written in (the profile's `documentUnits`: every document, the check summaries and the views'
+ * readouts) are a choice of their own above the figures, which stay SI.
  */
 import { LitElement, css, html, nothing } from 'lit';
 import { formatDiagnostic, isJsonObject, type Diagnostic } from '../../core/index.js';
@@ -212,10 +212,11 @@ export class LwWorkshop extends LitElement {
         )}
       </fieldset>
       <p class="soft">
-        The cut list, the frame and cam drawings, the bill of materials and the build sheet show what you cut and hang
-        in these units; cut lengths are always rounded up, so no piece comes out short. The figures below stay in metres
-        and grams, and the netlist stays SI. Check the printed scale bar and the cam template's check bar with a rule
-        before cutting.
+        Every document (the cut list, the wiring list, the drawings, the bill of materials, the build and commissioning
+        sheets), the check summaries and the Parts &amp; forces and Frame &amp; cords views give lengths, weights and
+        the drum torque in these units; cut lengths are always rounded up, so no piece comes out short. The figures
+        below stay in metres and grams, and the netlist stays SI. Check the printed scale bar and the cam template's
+        check bar with a rule before cutting.
       </p>
       ${at.map((d) => html`<p class="problem bad" role="alert">${formatDiagnostic(d)}</p>`)}
     </section>`;

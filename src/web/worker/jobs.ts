@@ -312,7 +312,7 @@ export function checkJob(b: Built, seed: number): { built: Built; view: ChecksVi
   const checks = runChecks(b.build, b.analysed, b.profile, seed, b.placement);
   const built: Built = { ...b, checks };
   const drive = findCheck(checks, 'drive');
-  const roles = partRoles(b.build.netlist);
+  const roles = partRoles(b.build.netlist, b.profile.documentUnits);
   const margins: MarginBar[] = (drive?.drivers ?? [])
     .filter((d) => Number.isFinite(d.margin))
     .map((d) => {

@@ -245,7 +245,10 @@ describe('core/export/build-sheet', () => {
     expect(lock).toContain(
       '| `documentUnits` | `inch` | `metric` | the workshop’s choice of units (no figure to source) |',
     );
-    // Torque stays SI.
-    expect(lock).toMatch(/\| worst drum torque \| [\d.]+ N·m \|/);
+    // Torque in pound-force inches to 0.01 (NIST SP 811 B.8: 1 lbf = 4.4482216152605 N, 1 in = 0.0254 m).
+    const drive = findCheck(b.checks, 'drive');
+    const lbfIn = (drive?.worstTorqueNm ?? NaN) / (4.4482216152605 * 0.0254);
+    const said = Number(/\| worst drum torque \| ([\d.]+) lbf·in \|/.exec(lock)?.[1]);
+    expect(Math.abs(said - lbfIn)).toBeLessThanOrEqual(0.005 + 1e-9);
   });
 });

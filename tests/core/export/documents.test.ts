@@ -17,6 +17,7 @@ const FOLLOWING = [
   'frame.svg',
   'cams.svg',
   'commissioning.html',
+  'wiring.csv',
 ];
 
 describe('core/export/documents', () => {

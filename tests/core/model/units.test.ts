@@ -19,10 +19,26 @@ import {
   lengthFeetInches,
   massWords,
   METRES_PER_INCH,
+  NEWTON_METRES_PER_POUND_FORCE_INCH,
+  NEWTONS_PER_POUND_FORCE,
+  fixed,
+  inMetres,
+  inMillimetres,
+  joinWords,
+  lengthFigure,
+  massFigure,
   ouncesTenth,
   parseFeetInches,
+  plain,
+  poundForceInchesOf,
+  quantitiesFor,
+  say,
   sixteenthsUp,
+  sizeFigure,
   sizeInches,
+  torqueFigure,
+  trimmed,
+  wordsIn,
 } from '../../../src/core/model/units.js';
 
 const SIXTEENTH_M = METRES_PER_INCH / 16;
@@ -126,5 +142,67 @@ describe('core/model/units', () => {
     expect(documentUnitsGuess('SI')).toBe('metric');
     expect(documentUnitsGuess('cubits')).toBe(undefined);
     expect(documentUnitsGuess('constructor')).toBe(undefined);
+  });
+
+  it('converts torque by the pound-force (NIST SP 811 appendix B.8: 1 lbf = 4.448 221 615 260 5 N, exact)', () => {
+    // NIST SP 811 B.8: pound-force → newton 4.448 222 E+00 (the exact value is 4.4482216152605 N,
+    // from the pound 0.45359237 kg and standard gravity 9.80665 m/s²); pound-force inch →
+    // newton metre 1.129 848 E-01.
+    expect(NEWTONS_PER_POUND_FORCE).toBe(4.4482216152605);
+    expect(NEWTONS_PER_POUND_FORCE).toBeCloseTo(0.45359237 * 9.80665, 13);
+    expect(NEWTON_METRES_PER_POUND_FORCE_INCH).toBeCloseTo(0.1129848, 7);
+    // By hand: 1.172 N·m ÷ 0.112 984 829 N·m/lbf·in = 10.373 lbf·in; 2.130 N·m = 18.852 lbf·in.
+    expect(poundForceInchesOf(1.172)).toBeCloseTo(10.373, 3);
+    const inch = quantitiesFor('inch');
+    expect(inch.torque(1.172)).toBe('10.37 lbf·in');
+    expect(inch.torque(2.13)).toBe('18.85 lbf·in');
+    expect(inch.torqueUnit).toBe('lbf·in');
+    expect(quantitiesFor('metric').torque(1.172)).toBe('1.172 N·m');
+  });
+
+  it('writes every kind of figure in each system: metric at the precision given, inch at its own (worked by hand)', () => {
+    const metric = quantitiesFor('metric');
+    const inch = quantitiesFor('inch');
+    // Metric keeps the form each document has always used.
+    expect(metric.length(1.2)).toBe('1.20 m');
+    expect(metric.length(1.5, inMetres(plain))).toBe('1.5 m');
+    expect(metric.length(45.4, inMetres(trimmed(1)))).toBe('45.4 m');
+    expect(metric.size(0.03, inMillimetres(plain))).toBe('30 mm');
+    expect(metric.size(0.008, inMetres(trimmed(3)))).toBe('0.008 m');
+    expect(metric.mass(20)).toBe('20 g');
+    expect(metric.mass(16.66, trimmed(1))).toBe('16.7 g');
+    expect(metric.cut(0.524, inMetres(fixed(2)))).toBe('0.52 m');
+    // Inch, by hand: 1.22 m / 0.0254 = 48.0315 in; × 16 = 768.504 → 769 sixteenths to the nearest
+    // = 48 1/16 in = 4 ft 0 1/16 in.
+    expect(inch.length(1.22)).toBe('4 ft 0 1/16 in');
+    // 1.5 m = 59.055 in = 4 ft 11 1/16 in (59.055 × 16 = 944.9 → 945).
+    expect(inch.length(1.5)).toBe('4 ft 11 1/16 in');
+    // 0.04 m = 1.5748 in: 1 9/16 in is 0.8 % off, past the 0.5 % a fraction may be, so 1.575 in.
+    expect(inch.size(0.04)).toBe('1.575 in');
+    // 30 mm = 1.1811 in (1 3/16 in = 1.1875 in is 0.54 % off): 1.181 in.
+    expect(inch.size(0.03)).toBe('1.181 in');
+    // 20 g = 0.705 oz → 0.7 oz; 450 g = 15.873 oz → 15.9 oz.
+    expect(inch.mass(20)).toBe('0.7 oz');
+    expect(inch.mass(450)).toBe('15.9 oz');
+    expect(inch.massCell(450)).toBe('15.9');
+    expect(inch.massUnit).toBe('oz');
+    // A cut of 0.524 m = 20.630 in, rounded up to 20 11/16 in = 20.6875 in.
+    expect(inch.cut(0.524)).toBe('1 ft 8 11/16 in');
+    expect(inch.cutCell(0.524)).toBe('20.6875');
+    // A position along the drum to 0.1 in: 0.1 m = 3.937 in → 3.9.
+    expect(inch.alongCell(0.1)).toBe('3.9');
+  });
+
+  it('keeps words with typed figures as data, written the same as plain text in metric', () => {
+    const w = say`drum ${lengthFigure(1.22)} long, radius ${sizeFigure(0.04, inMetres(plain))}; pull ${massFigure(20)}; ${joinWords(
+      [say`torque ${torqueFigure(1.172)}`, ['at rest']],
+      '; ',
+    )}`;
+    expect(wordsIn(w, 'metric')).toBe('drum 1.22 m long, radius 0.04 m; pull 20 g; torque 1.172 N·m; at rest');
+    expect(wordsIn(w, 'inch')).toBe(
+      'drum 4 ft 0 1/16 in long, radius 1.575 in; pull 0.7 oz; torque 10.37 lbf·in; at rest',
+    );
+    // Plain data: a structured clone (the designer's worker) keeps it whole.
+    expect(wordsIn(structuredClone(w), 'inch')).toBe(wordsIn(w, 'inch'));
   });
 });

@@ -12,6 +12,7 @@ describe('core/physics/check-drive', () => {
         'name',
         'ok',
         'summary',
+        'says',
         'minMargin',
         'weakestCord',
         'worstTorqueNm',

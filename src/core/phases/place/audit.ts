@@ -14,6 +14,7 @@
 import type { Netlist, Part } from '../../model/netlist.js';
 import type { Profile } from '../../physics/profile.js';
 import type { Placement } from './placement.js';
+import { fixed, inMetres, lengthFigure, plain, say, wordsIn, type Words } from '../../model/units.js';
 
 export interface AuditFinding {
   readonly rule:
@@ -26,6 +27,8 @@ export interface AuditFinding {
     | 'too-many-drums'
     | 'branch-length';
   readonly message: string;
+  /** The message with its lengths as typed figures (model/units.ts), where it has any; `message` is it in metric. */
+  readonly says?: Words;
   /** What to change. */
   readonly hint: string;
 }
@@ -120,12 +123,15 @@ function latchAndEndFindings(
 function frameFindings(placement: Placement, profile: Profile, out: AuditFinding[]): void {
   const f = profile.frame;
   for (const d of placement.drums)
-    if (d.lengthM > f.longestDrumM + TOLERANCE_M)
+    if (d.lengthM > f.longestDrumM + TOLERANCE_M) {
+      const says = say`drum ${d.drum} is ${lengthFigure(d.lengthM)} long; the longest allowed is ${lengthFigure(f.longestDrumM, inMetres(plain))}`;
       out.push({
         rule: 'drum-too-long',
-        message: `drum ${d.drum} is ${d.lengthM.toFixed(2)} m long; the longest allowed is ${f.longestDrumM} m`,
+        message: wordsIn(says, 'metric'),
+        says,
         hint: 'allow a longer drum (frame.longestDrumM), or more drums per frame (frame.drumsPerFrame)',
       });
+    }
   if (placement.drums.length > f.drumsPerFrame)
     out.push({
       rule: 'too-many-drums',
@@ -135,12 +141,15 @@ function frameFindings(placement: Placement, profile: Profile, out: AuditFinding
   for (const b of placement.routing.branches) {
     const runs = b.own.reduce((s, r) => s + r.lengthM, 0);
     const want = runs + 2 * f.knotAllowanceM + f.takeUpAllowanceM;
-    if (!(b.lengthM > 0) || Math.abs(b.lengthM - want) > TOLERANCE_M)
+    if (!(b.lengthM > 0) || Math.abs(b.lengthM - want) > TOLERANCE_M) {
+      const says = say`branch of cord '${b.cord}' to '${b.target}' is ${lengthFigure(b.lengthM, inMetres(fixed(3)))}; its own runs and allowances make ${lengthFigure(want, inMetres(fixed(3)))}`;
       out.push({
         rule: 'branch-length',
-        message: `branch of cord '${b.cord}' to '${b.target}' is ${b.lengthM.toFixed(3)} m; its own runs and allowances make ${want.toFixed(3)} m`,
+        message: wordsIn(says, 'metric'),
+        says,
         hint: 'route the build again with this profile',
       });
+    }
   }
 }
 
