@@ -1,0 +1,268 @@
+/**
+ * The check of each bring-up stage: for every gate the stage mounts, a short hand sequence
+ * after which its Z lever stands up and one after which it stands down, found on the partial
+ * machine (only the parts mounted and the branches tied so far: a port whose cords are not all
+ * tied sees only the tied ones, so with none pulling it rests up).
+ *
+ * Method: breadth-first search over the partial machine's hand actions from power-up (every
+ * lever released, every latch undetermined), stepped by the part-level simulator
+ * (sim/part.ts); the same product-of-states justification as sequential test generation
+ * (M. Abramovici, M. A. Breuer & A. D. Friedman, *Digital Systems Testing and Testable
+ * Design*, 1990, ch. 8 — from memory). A move is one lever pulled or released (an operator
+ * lever, φ1, φ2, reset); a move that breaks an operating rule (sim/hand.ts) or raises any
+ * alarm of the simulator (a forbidden latch input, a latch left undetermined, an oscillation)
+ * is never taken, so every sequence is one a person may make and gives one outcome. Positions
+ * are told apart by every lever and gate value, so a search is exhaustive within its bound:
+ * at most SEARCH_ACTIONS moves and SEARCH_POSITIONS positions per stage. Starting from the
+ * undetermined latches of power-up makes each sequence hold whatever the latches held before.
+ * A position not seen at a gate's own stage is looked for again at every later stage, and
+ * reported there ("seen only once stage N is mounted") or, at the end, as not seen.
+ *
+ * Postconditions: every sighting names a sequence that, stepped from power-up on that stage's
+ * partial machine, leaves the gate's Z lever where it says; nothing is reported that the
+ * search did not reach. Deterministic (the moves are tried in a fixed order: the input levers
+ * in the machine's order, then φ1, φ2, reset).
+ */
+import type { Build } from '../model/build.js';
+import type { Cord } from '../model/netlist.js';
+import type { Profile } from '../physics/profile.js';
+import { ruleBroken, type HandAction } from '../sim/hand.js';
+import { applyInPlace, compilePart, isAlarm, powerUp, timingOf, X, type PartEvent, type PartSim } from '../sim/part.js';
+import { branchId, type Branch, type MountStage } from './bring-up.js';
+
+/** The most hand actions in a check's sequence. */
+export const SEARCH_ACTIONS = 24;
+/** The most machine positions one stage's search visits. */
+export const SEARCH_POSITIONS = 4000;
+/**
+ * The most moves the searches of all stages try together (each move a step of the simulator),
+ * shared out among the stages still to search: a large build gets a shorter search per stage
+ * rather than a long wait for its documents.
+ */
+export const PLAN_MOVES = 50_000;
+
+/** Where a Z lever stands: down when its gate's output is 1; '?' when the machine cannot tell. */
+export type ZPosition = 'up' | 'down' | '?';
+
+/** A hand sequence from power-up and where every Z lever mounted so far stands after it. */
+export interface Trial {
+  readonly actions: readonly HandAction[];
+  /** Every gate mounted so far, in mounting order, and its Z lever after the actions. */
+  readonly positions: readonly { readonly gate: string; readonly z: ZPosition }[];
+}
+
+/** Where a position is shown: the stage whose check shows it and the trial there (from 0). */
+export interface Sighting {
+  readonly stage: number;
+  readonly trial: number;
+}
+
+/** The check of one gate: the trial that shows its Z up and the one that shows it down (null: not seen). */
+export interface GateCheck {
+  readonly gate: string;
+  readonly up: Sighting | null;
+  readonly down: Sighting | null;
+}
+
+/** How far a stage's search went. */
+export interface SearchReach {
+  /** Positions visited. */
+  readonly positions: number;
+  /** Moves tried. */
+  readonly moves: number;
+  /** The bound on moves. */
+  readonly actions: number;
+  /** Every position within the bound on moves was visited (not cut by SEARCH_POSITIONS or the stage's share of PLAN_MOVES, nor stopped once all was found). */
+  readonly complete: boolean;
+}
+
+/** The check of a stage: its trials, and per gate it mounts where each Z position is seen. */
+export interface StageChecks {
+  readonly trials: readonly Trial[];
+  readonly checks: readonly GateCheck[];
+  /** The search (null for the frame and lever stages, which have no gate). */
+  readonly search: SearchReach | null;
+}
+
+/** The partial machine: the build with only the given branches tied (every other part stands alone, untied). */
+export function partialBuild(build: Build, tied: ReadonlySet<string>): Build {
+  const cords = build.netlist.cords.map((c): Cord => ({
+    ...c,
+    ports: c.ports.filter((p) => tied.has(branchId({ cord: c.id, driver: c.driver, target: p.part, port: p.port }))),
+    actuators: c.actuators.filter((a) => tied.has(branchId({ cord: c.id, driver: c.driver, target: a, port: '' }))),
+  }));
+  return { ...build, netlist: { parts: build.netlist.parts, cords } };
+}
+
+/** One position wanted: a gate's driver index and the output value that puts its Z there (1: down). */
+interface Want {
+  readonly gate: string;
+  readonly driver: number;
+  readonly out: 0 | 1;
+}
+
+const zOf = (v: number): ZPosition => (v === X ? '?' : v === 1 ? 'down' : 'up');
+
+/** The move on lever driver `d` from where it stands. */
+function moveOf(sim: PartSim, d: number, values: Uint8Array): HandAction {
+  const k = sim.inputLevers.indexOf(d);
+  if (k >= 0) return { kind: 'input', input: sim.build.machine.inputs[k], value: values[d] === 1 ? 0 : 1 };
+  const lever = d === sim.phi1 ? 'phi1' : d === sim.phi2 ? 'phi2' : 'reset';
+  return { kind: values[d] === 1 ? 'release' : 'pull', lever };
+}
+
+/** Positions told apart by every value: a hash to a bucket of node indices, compared value by value. */
+class Seen {
+  private readonly buckets = new Map<number, number[]>();
+  constructor(private readonly nodes: readonly { readonly values: Uint8Array }[]) {}
+
+  private static hash(values: Uint8Array): number {
+    let a = 0x811c9dc5;
+    let b = 0x9e3779b9;
+    for (let i = 0; i < values.length; i++) {
+      a = Math.imul(a ^ values[i], 0x01000193);
+      b = Math.imul(b ^ (values[i] + i), 0x85ebca6b);
+    }
+    return (a >>> 0) * 0x200000 + (b >>> 11);
+  }
+
+  /** Whether a node already holds these values. */
+  has(values: Uint8Array): boolean {
+    const same = (n: number): boolean => this.nodes[n].values.every((v, i) => v === values[i]);
+    return this.buckets.get(Seen.hash(values))?.some(same) ?? false;
+  }
+
+  /** Remember the node at `index` (holding `values`). */
+  add(values: Uint8Array, index: number): void {
+    const h = Seen.hash(values);
+    const bucket = this.buckets.get(h);
+    if (bucket) bucket.push(index);
+    else this.buckets.set(h, [index]);
+  }
+}
+
+interface Found {
+  readonly nodes: readonly { readonly values: Uint8Array; readonly parent: number; readonly action?: HandAction }[];
+  /** Node index per want, or -1. */
+  readonly at: readonly number[];
+  readonly reach: SearchReach;
+}
+
+/** Breadth-first search from power-up for every wanted position (see the module comment). */
+function breadthFirst(sim: PartSim, wants: readonly Want[], maxMoves: number): Found {
+  const levers = [...sim.inputLevers, sim.phi1, sim.phi2, sim.reset].filter((d) => d >= 0);
+  const [start] = powerUp(sim);
+  const nodes: { values: Uint8Array; parent: number; action?: HandAction; depth: number }[] = [
+    { values: start.values, parent: -1, depth: 0 },
+  ];
+  const seen = new Seen(nodes);
+  seen.add(start.values, 0);
+  const at = wants.map(() => -1);
+  let left = wants.length;
+  let cut = false;
+  let moves = 0;
+  for (let n = 0; n < nodes.length && left > 0 && !cut; n++) {
+    const node = nodes[n];
+    wants.forEach((w, i) => {
+      if (at[i] >= 0 || node.values[w.driver] !== w.out) return;
+      at[i] = n;
+      left--;
+    });
+    if (left === 0 || node.depth >= SEARCH_ACTIONS) continue;
+    const controls = {
+      phi1: node.values[sim.phi1] === 1,
+      phi2: node.values[sim.phi2] === 1,
+      reset: node.values[sim.reset] === 1,
+    };
+    for (const d of levers) {
+      const action = moveOf(sim, d, node.values);
+      if (ruleBroken(action, controls)) continue;
+      if (moves >= maxMoves) {
+        cut = true;
+        break;
+      }
+      moves++;
+      const values = node.values.slice();
+      const events: PartEvent[] = [];
+      applyInPlace(sim, values, 0, action, events);
+      if (events.some(isAlarm)) continue;
+      if (seen.has(values)) continue;
+      if (nodes.length >= SEARCH_POSITIONS) {
+        cut = true;
+        break;
+      }
+      seen.add(values, nodes.length);
+      nodes.push({ values, parent: n, action, depth: node.depth + 1 });
+    }
+  }
+  return { nodes, at, reach: { positions: nodes.length, moves, actions: SEARCH_ACTIONS, complete: !cut && left > 0 } };
+}
+
+/** The hand actions from power-up to node `n`. */
+function pathTo(found: Found, n: number): HandAction[] {
+  const out: HandAction[] = [];
+  for (let k = n; k > 0; k = found.nodes[k].parent) {
+    const a = found.nodes[k].action;
+    if (a) out.unshift(a);
+  }
+  return out;
+}
+
+/** A position still wanted: a gate and the output value that puts its Z there (1: down). */
+interface Pending {
+  readonly gate: string;
+  readonly out: 0 | 1;
+}
+
+/** The checks of every stage, in order (see the module comment). */
+export function searchStages(
+  build: Build,
+  profile: Pick<Profile, 'stageDelayS'>,
+  stages: readonly MountStage[],
+): StageChecks[] {
+  const tied = new Set<string>();
+  const mounted: string[] = [];
+  const seen = new Map<string, { up: Sighting | null; down: Sighting | null }>();
+  let pending: Pending[] = [];
+  const timing = timingOf(profile);
+  let budget = PLAN_MOVES;
+  let toSearch = stages.filter((s) => s.gates.length > 0).length;
+  const searched = stages.map((stage): Omit<StageChecks, 'checks'> => {
+    stage.ties.forEach((b: Branch) => tied.add(branchId(b)));
+    mounted.push(...stage.gates);
+    for (const g of stage.gates) seen.set(g, { up: null, down: null });
+    if (stage.gates.length === 0 && pending.length === 0) return { trials: [], search: null };
+    pending = [...stage.gates.flatMap((gate) => [up(gate), down(gate)]), ...pending];
+    const sim = compilePart(partialBuild(build, tied), timing);
+    const driver = new Map(sim.ids.map((id, i) => [id, i]));
+    const found = breadthFirst(
+      sim,
+      pending.map((p) => ({ ...p, driver: driver.get(p.gate) ?? -1 })),
+      Math.floor(budget / Math.max(1, toSearch)),
+    );
+    budget -= found.reach.moves;
+    toSearch--;
+    const trialNodes = [...new Set(found.at.filter((n) => n >= 0))].sort((a, b) => a - b);
+    pending.forEach((p, i) => {
+      const n = found.at[i];
+      const s = seen.get(p.gate);
+      if (n < 0 || !s) return;
+      const sighting = { stage: stage.number, trial: trialNodes.indexOf(n) };
+      if (p.out === 0) s.up = sighting;
+      else s.down = sighting;
+    });
+    pending = pending.filter((_, i) => found.at[i] < 0);
+    const trials = trialNodes.map((n) => ({
+      actions: pathTo(found, n),
+      positions: mounted.map((gate) => ({ gate, z: zOf(found.nodes[n].values[driver.get(gate) ?? -1]) })),
+    }));
+    return { trials, search: found.reach };
+  });
+  return searched.map((s, i) => ({
+    ...s,
+    checks: stages[i].gates.map((gate) => ({ gate, ...(seen.get(gate) ?? { up: null, down: null }) })),
+  }));
+}
+
+const up = (gate: string): Pending => ({ gate, out: 0 });
+const down = (gate: string): Pending => ({ gate, out: 1 });
