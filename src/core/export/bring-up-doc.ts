@@ -200,7 +200,7 @@ function useSection(plan: BringUpPlan): Section {
         'Bring the machine up in stages rather than all at once: in each stage, mount the parts listed, tie the cords listed (every cord whose two ends are now both mounted, and no other), then do the stage’s check before going on. A wrong tie then shows in the stage that made it, among a handful of cords. The commissioning sheet tests the finished machine afterwards.',
       ),
       p(
-        'A gate has a summing lever Z: it stands down while any port of the gate is pulled, up otherwise. A port whose cords are not all tied yet sees only the tied ones, and rests up when none of them pulls. "Undetermined" is a latch that no sequence has set yet.',
+        'A gate has a summing lever Z: it stands down while any port of the gate is pulled, up otherwise. A port whose cords are not all tied yet sees only the tied ones, and rests up when none of them pulls. "Undetermined" is a Z lever that hangs on a latch no step of the sequence has set (it may stand either way: do not judge it).',
       ),
       p(
         `Each check was found by simulating the partly built machine: a search of every sequence of up to ${SEARCH_ACTIONS} hand actions from every lever released, keeping the operating rules and never giving a latch both of its ports at once (at most ${SEARCH_POSITIONS} machine positions a stage, ${PLAN_MOVES} moves in all). A gate position the search does not reach at its own stage is looked for at the later ones and is said so. A stage mounts at most ${GATES_PER_STAGE} gates (a latch is never split; a slave latch comes with its two transfer gates).`,

@@ -9,9 +9,10 @@
  * (sim/part.ts); the same product-of-states justification as sequential test generation
  * (M. Abramovici, M. A. Breuer & A. D. Friedman, *Digital Systems Testing and Testable
  * Design*, 1990, ch. 8 — from memory). A move is one lever pulled or released (an operator
- * lever, φ1, φ2, reset); a move that breaks an operating rule (sim/hand.ts) or raises any
+ * lever, φ1, φ2, reset); a move that breaks an operating rule (sim/hand.ts), raises any
  * alarm of the simulator (a forbidden latch input, a latch left undetermined, an oscillation)
- * is never taken, so every sequence is one a person may make and gives one outcome. Positions
+ * or leaves a latch whose two ports may both be pulled (each 0 or undetermined) is never
+ * taken, so every sequence is one a person may make and gives one outcome. Positions
  * are told apart by every lever and gate value, so a search is exhaustive within its bound:
  * at most SEARCH_ACTIONS moves and SEARCH_POSITIONS positions per stage. Starting from the
  * undetermined latches of power-up makes each sequence hold whatever the latches held before.
@@ -27,6 +28,7 @@ import type { Build } from '../model/build.js';
 import type { Cord } from '../model/netlist.js';
 import type { Profile } from '../physics/profile.js';
 import { ruleBroken, type HandAction } from '../sim/hand.js';
+import { andOf } from '../sim/settle.js';
 import { applyInPlace, compilePart, isAlarm, powerUp, timingOf, X, type PartEvent, type PartSim } from '../sim/part.js';
 import { branchId, type Branch, type MountStage } from './bring-up.js';
 
@@ -111,6 +113,15 @@ function moveOf(sim: PartSim, d: number, values: Uint8Array): HandAction {
   return { kind: values[d] === 1 ? 'release' : 'pull', lever };
 }
 
+/**
+ * Whether some latch may see both of its ports pulled: S̄ and R̄ each 0 or undetermined. A latch
+ * undetermined since power-up can hide a forbidden input the simulator does not raise (it might
+ * hold either value); such a position is never entered, so no sequence risks one.
+ */
+function mayBeForbidden(sim: PartSim, values: Uint8Array): boolean {
+  return sim.latches.some((l) => andOf(values, l.sBar) !== 1 && andOf(values, l.rBar) !== 1);
+}
+
 /** Positions told apart by every value: a hash to a bucket of node indices, compared value by value. */
 class Seen {
   private readonly buckets = new Map<number, number[]>();
@@ -185,7 +196,7 @@ function breadthFirst(sim: PartSim, wants: readonly Want[], maxMoves: number): F
       const values = node.values.slice();
       const events: PartEvent[] = [];
       applyInPlace(sim, values, 0, action, events);
-      if (events.some(isAlarm)) continue;
+      if (events.some(isAlarm) || mayBeForbidden(sim, values)) continue;
       if (seen.has(values)) continue;
       if (nodes.length >= SEARCH_POSITIONS) {
         cut = true;

@@ -31,6 +31,25 @@ function surgeryAt(build: Build, plan: BringUpPlan, n: number): Build {
 const timing = timingOf(DEFAULT_PROFILE);
 const zOf = (v: number): ZPosition => (v === 2 ? '?' : v === 1 ? 'down' : 'up');
 
+/**
+ * The latches (by id) whose two ports may both be pulled in `values`: S̄, the AND of the cords
+ * on the set gate's ports but the partner's feedback, and R̄ likewise, each 0 or X. Read from
+ * the surgery's netlist, not from the compiled latches.
+ */
+function mayBeForbidden(build: Build, values: Uint8Array): string[] {
+  const sim = simFor(build, timing);
+  const into = (gate: string, partner: string): number[] =>
+    build.netlist.cords
+      .filter((c) => c.driver !== partner && c.ports.some((p) => p.part === gate))
+      .map((c) => values[sim.ids.indexOf(c.driver)]);
+  const and = (vs: number[]): number => (vs.includes(0) ? 0 : vs.includes(2) ? 2 : 1);
+  return build.netlist.parts.flatMap((p) =>
+    p.kind === 'latch' && and(into(p.setGate, p.resetGate)) !== 1 && and(into(p.resetGate, p.setGate)) !== 1
+      ? [p.id]
+      : [],
+  );
+}
+
 /** Step a build from power-up through hand actions with the event-driven simulator; alarms collected. */
 function stepThrough(build: Build, actions: readonly HandAction[]): { state: PartState; alarms: string[] } {
   const sim = simFor(build, timing);
@@ -38,7 +57,7 @@ function stepThrough(build: Build, actions: readonly HandAction[]): { state: Par
   const alarms: string[] = [];
   for (const a of actions) {
     const [next, events] = stepPart(build, state, a, { timing, trace: true });
-    alarms.push(...events.filter(isAlarm).map((e) => e.words));
+    alarms.push(...events.filter(isAlarm).map((e) => e.words), ...mayBeForbidden(build, next.values));
     state = next;
   }
   return { state, alarms };
@@ -129,7 +148,8 @@ function confirmsTrials(build: Build, plan: BringUpPlan): number {
 /**
  * Independent exhaustive search on the surgery: every position reachable from power-up in at
  * most `depth` moves of one lever (pulled or released) that raise no alarm of the event-driven
- * simulator (a broken operating rule is one), with the Z positions of `gate` seen.
+ * simulator (a broken operating rule is one) and leave no latch whose ports may both be
+ * pulled, with the Z positions of `gate` seen.
  */
 function reachableZ(build: Build, gate: string, depth: number): Set<ZPosition> {
   const sim = simFor(build, timing);
@@ -153,7 +173,8 @@ function reachableZ(build: Build, gate: string, depth: number): Set<ZPosition> {
     for (const st of frontier)
       for (const l of levers) {
         const [after, events] = stepPart(build, st, l.move(st.values[l.id] === 1), { timing, trace: true });
-        if (events.some(isAlarm) || seen.has(after.values.join(''))) continue;
+        if (events.some(isAlarm) || mayBeForbidden(build, after.values).length > 0) continue;
+        if (seen.has(after.values.join(''))) continue;
         seen.add(after.values.join(''));
         zs.add(zOf(after.values[d]));
         next.push(after);
