@@ -179,7 +179,7 @@ function checkBlock(input: BringUpSheetInput, stage: BringUpStage): Block[] {
   if (stage.kind === 'levers')
     return [
       p(
-        'Check: pull each lever and release it: it swings freely and comes back up under its own weight; while it is pulled its capstan grips the turning drum, and released, the cord lies slack on it.',
+        'Check: pull each lever and release it: it swings freely through its travel and comes back up under its own weight. Its cord is not tied yet: keep the free end clear of the turning drum.',
       ),
     ];
   return gateCheckBlock(stage);
