@@ -3,7 +3,8 @@
  * printable page. The safety cautions first (those of every sheet, and the ones that come with
  * reaching into a frame whose drum turns), how to use the sheet, then one section per stage:
  * the parts to mount (where each goes, in the commissioning sheet's words: bay and drum, what
- * it does), the cord branches to tie (with their rows in the wiring list), and the check —
+ * it does), the cord branches to tie (with their rows in the wiring list and the trial that
+ * would show each come loose), and the check —
  * each hand sequence from every lever released, what the Z levers show after it, and per gate
  * where its Z up and its Z down are seen, or plainly why not. Tick boxes on every table a
  * person works through. Rendered by the shared Doc renderer (every name escaped there).
@@ -18,14 +19,7 @@ import { renderDocHtml } from './build-sheet-html.js';
 import { renderDocMd } from './build-sheet-md.js';
 import { CAUTIONS } from './build-sheet.js';
 import { bringUpPlan, branchId, GATES_PER_STAGE, type BringUpPlan, type BringUpStage } from './bring-up.js';
-import {
-  PLAN_MOVES,
-  SEARCH_ACTIONS,
-  SEARCH_POSITIONS,
-  type GateCheck,
-  type Sighting,
-  type Trial,
-} from './bring-up-search.js';
+import { SEARCH_ACTIONS, SEARCH_POSITIONS, type GateCheck, type Sighting, type Trial } from './bring-up-search.js';
 import { bayWords } from './commissioning.js';
 import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { partWords } from './part-words.js';
@@ -129,11 +123,16 @@ function tieBlock(input: BringUpSheetInput, stage: BringUpStage): Block[] {
       w,
     ]),
   );
+  const loose = (i: number): string => {
+    const l = stage.loose[i];
+    if (!l?.simulated) return 'not simulated';
+    return l.shownBy === null ? 'no trial here' : trialName({ stage: stage.number, trial: l.shownBy });
+  };
   return [
     p(`Tie (${counted(stage.ties.length, 'cord branch', 'cord branches')}, each now mounted at both ends):`),
     table(
-      ['wiring row', 'cord', 'from', 'to', 'bays'],
-      stage.ties.map((b) => {
+      ['wiring row', 'cord', 'from', 'to', 'bays', 'if it came loose, seen in'],
+      stage.ties.map((b, i) => {
         const w = rows.get(branchId({ ...b, driver: '' }));
         return [
           w ? String(w.step) : '',
@@ -141,11 +140,22 @@ function tieBlock(input: BringUpSheetInput, stage: BringUpStage): Block[] {
           w ? `${w.driver} ${w.driverSide}` : b.driver,
           b.port === '' ? `${b.target} (actuator)` : `${b.target} port ${b.port}`,
           w && w.fromBay !== '' ? `${w.fromBay} → ${w.toBay}` : '',
+          loose(i),
         ];
       }),
       { tick: true, mono: [1, 2, 3] },
     ),
+    ...(stage.kind === 'gates' ? [p(looseWords(stage))] : []),
   ];
+}
+
+/** How many of the stage's ties its check shows come loose, in words. */
+function looseWords(stage: BringUpStage): string {
+  const shown = stage.loose.filter((l) => l.shownBy !== null).length;
+  const unsimulated = stage.loose.filter((l) => !l.simulated).length;
+  return `The check below shows ${shown} of these ${counted(stage.ties.length, 'tie')} come loose: with that branch untied, some Z lever stands otherwise after the trial named.${
+    unsimulated > 0 ? ` ${counted(unsimulated, 'tie')} not simulated (the bound on the work was reached).` : ''
+  } A tie no trial here shows is shown by a later stage's check or the commissioning sheet, or only by eye.`;
 }
 
 function gateCheckBlock(stage: BringUpStage): Block[] {
@@ -203,7 +213,7 @@ function useSection(plan: BringUpPlan): Section {
         'A gate has a summing lever Z: it stands down while any port of the gate is pulled, up otherwise. A port whose cords are not all tied yet sees only the tied ones, and rests up when none of them pulls. "Undetermined" is a Z lever that hangs on a latch no step of the sequence has set (it may stand either way: do not judge it).',
       ),
       p(
-        `Each check was found by simulating the partly built machine: a search of every sequence of up to ${SEARCH_ACTIONS} hand actions from every lever released, keeping the operating rules and never giving a latch both of its ports at once (at most ${SEARCH_POSITIONS} machine positions a stage, ${PLAN_MOVES} moves in all). A gate position the search does not reach at its own stage is looked for at the later ones and is said so. A stage mounts at most ${GATES_PER_STAGE} gates (a latch is never split; a slave latch comes with its two transfer gates).`,
+        `Each check was found by simulating the partly built machine: a search of every sequence of up to ${SEARCH_ACTIONS} hand actions from every lever released, keeping the operating rules and never giving a latch both of its ports at once, with the machine of each tie of the stage come loose stepped beside it, so that some trial shows each tie that can be shown (at most ${SEARCH_POSITIONS} machine positions a stage, and a bound on the whole work). A gate position the search does not reach at its own stage is looked for at the later ones and is said so. A stage mounts at most ${GATES_PER_STAGE} gates (a latch is never split; a slave latch comes with its two transfer gates).`,
       ),
       p(
         `${counted(plan.stages.length, 'stage')}, ${counted(

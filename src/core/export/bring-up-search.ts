@@ -18,6 +18,11 @@
  * undetermined latches of power-up makes each sequence hold whatever the latches held before.
  * A position not seen at a gate's own stage is looked for again at every later stage, and
  * reported there ("seen only once stage N is mounted") or, at the end, as not seen.
+ * Beside the sound machine, one machine per tie of the stage come loose (the untied fault of
+ * sim/faults.ts) is stepped along the same paths, and a position is new when any of them stands
+ * differently (the product of their states), so the trials also show each tie that can be shown
+ * come loose; the first trial after which a loose machine's Z levers differ from the sound one's
+ * (both determined) is reported per tie.
  *
  * Postconditions: every sighting names a sequence that, stepped from power-up on that stage's
  * partial machine, leaves the gate's Z lever where it says; nothing is reported that the
@@ -27,6 +32,7 @@
 import type { Build } from '../model/build.js';
 import type { Cord } from '../model/netlist.js';
 import type { Profile } from '../physics/profile.js';
+import { faultInjector, type CordFault } from '../sim/faults.js';
 import { ruleBroken, type HandAction } from '../sim/hand.js';
 import { andOf } from '../sim/settle.js';
 import { applyInPlace, compilePart, isAlarm, powerUp, timingOf, X, type PartEvent, type PartSim } from '../sim/part.js';
@@ -37,11 +43,18 @@ export const SEARCH_ACTIONS = 24;
 /** The most machine positions one stage's search visits. */
 export const SEARCH_POSITIONS = 4000;
 /**
- * The most moves the searches of all stages try together (each move a step of the simulator),
- * shared out among the stages still to search: a large build gets a shorter search per stage
- * rather than a long wait for its documents.
+ * The work the searches of all stages do together, in lever-or-gate steps: a build of D levers
+ * and gates tries at most PLAN_WORK / D moves of the simulator (each move of the sound machine
+ * and of each loose one counts), shared out among the stages still to search, so a large build
+ * gets a shorter search per stage rather than a long wait for its documents.
  */
-export const PLAN_MOVES = 50_000;
+export const PLAN_WORK = 6_000_000;
+/**
+ * The work of reading every stage's trials on the machine with each of its ties come loose, in
+ * lever-or-gate steps: at most LOOSE_WORK / D steps (a power-up or a hand action) for a build of
+ * D levers and gates; past it a tie is left not simulated, and the sheet says so.
+ */
+export const LOOSE_WORK = 3_000_000;
 
 /** Where a Z lever stands: down when its gate's output is 1; '?' when the machine cannot tell. */
 export type ZPosition = 'up' | 'down' | '?';
@@ -74,14 +87,27 @@ export interface SearchReach {
   readonly moves: number;
   /** The bound on moves. */
   readonly actions: number;
-  /** Every position within the bound on moves was visited (not cut by SEARCH_POSITIONS or the stage's share of PLAN_MOVES, nor stopped once all was found). */
+  /** Every position within the bound on moves was visited (not cut by SEARCH_POSITIONS or the stage's share of PLAN_WORK, nor stopped once all was found). */
   readonly complete: boolean;
 }
 
-/** The check of a stage: its trials, and per gate it mounts where each Z position is seen. */
+/**
+ * Whether the stage's check shows one of its ties come loose: the first trial after which some Z
+ * lever mounted so far stands otherwise than the trial says (both positions determined), null
+ * when none does; `simulated` false when LOOSE_WORK ran out before this tie.
+ */
+export interface LooseTie {
+  readonly tie: Branch;
+  readonly shownBy: number | null;
+  readonly simulated: boolean;
+}
+
+/** The check of a stage: its trials, per gate it mounts where each Z position is seen, and per tie whether a trial shows it loose. */
 export interface StageChecks {
   readonly trials: readonly Trial[];
   readonly checks: readonly GateCheck[];
+  /** One per tie of the stage, in its order (empty for the frame and lever stages). */
+  readonly loose: readonly LooseTie[];
   /** The search (null for the frame and lever stages, which have no gate). */
   readonly search: SearchReach | null;
 }
@@ -122,10 +148,10 @@ function mayBeForbidden(sim: PartSim, values: Uint8Array): boolean {
   return sim.latches.some((l) => andOf(values, l.sBar) !== 1 && andOf(values, l.rBar) !== 1);
 }
 
-/** Positions told apart by every value: a hash to a bucket of node indices, compared value by value. */
+/** Positions told apart by every value (a key of the sound machine's values and the loose machines' still followed): a hash to a bucket of node indices, compared value by value. */
 class Seen {
   private readonly buckets = new Map<number, number[]>();
-  constructor(private readonly nodes: readonly { readonly values: Uint8Array }[]) {}
+  constructor(private readonly nodes: readonly { readonly key: Uint8Array }[]) {}
 
   private static hash(values: Uint8Array): number {
     let a = 0x811c9dc5;
@@ -137,39 +163,89 @@ class Seen {
     return (a >>> 0) * 0x200000 + (b >>> 11);
   }
 
-  /** Whether a node already holds these values. */
-  has(values: Uint8Array): boolean {
-    const same = (n: number): boolean => this.nodes[n].values.every((v, i) => v === values[i]);
-    return this.buckets.get(Seen.hash(values))?.some(same) ?? false;
+  /** Whether a node already has this key. */
+  has(key: Uint8Array): boolean {
+    const same = (n: number): boolean => {
+      const k = this.nodes[n].key;
+      return k.length === key.length && k.every((v, i) => v === key[i]);
+    };
+    return this.buckets.get(Seen.hash(key))?.some(same) ?? false;
   }
 
-  /** Remember the node at `index` (holding `values`). */
-  add(values: Uint8Array, index: number): void {
-    const h = Seen.hash(values);
+  /** Remember the node at `index` (with `key`). */
+  add(key: Uint8Array, index: number): void {
+    const h = Seen.hash(key);
     const bucket = this.buckets.get(h);
     if (bucket) bucket.push(index);
     else this.buckets.set(h, [index]);
   }
 }
 
+/** The key of a position: the sound values, then each loose machine's still followed. */
+function keyOf(values: Uint8Array, bad: readonly (Uint8Array | null)[]): Uint8Array {
+  const parts = [values, ...bad.filter((b): b is Uint8Array => b !== null)];
+  if (parts.length === 1) return values;
+  const key = new Uint8Array(parts.reduce((n, x) => n + x.length, 0));
+  let at = 0;
+  for (const x of parts) {
+    key.set(x, at);
+    at += x.length;
+  }
+  return key;
+}
+
 interface Found {
   readonly nodes: readonly { readonly values: Uint8Array; readonly parent: number; readonly action?: HandAction }[];
   /** Node index per want, or -1. */
   readonly at: readonly number[];
+  /** Node index per loose tie, the first whose Z levers differ from the sound machine's, or -1. */
+  readonly loose: readonly number[];
   readonly reach: SearchReach;
 }
 
-/** Breadth-first search from power-up for every wanted position (see the module comment). */
-function breadthFirst(sim: PartSim, wants: readonly Want[], maxMoves: number): Found {
+/** What a stage's search looks for: positions of gates, and (with their own machines) each tie come loose. */
+interface Targets {
+  readonly wants: readonly Want[];
+  /** The machine with each tie of the stage come loose (null: not simulated, the work bound reached). */
+  readonly faults: readonly (PartSim | null)[];
+  /** Driver indices of the Z levers read (every gate mounted so far). */
+  readonly look: readonly number[];
+}
+
+interface Node {
+  readonly values: Uint8Array;
+  readonly key: Uint8Array;
+  readonly parent: number;
+  readonly action?: HandAction;
+  readonly depth: number;
+  /** Each loose machine's values along the same path (null: shown already, or released once expanded). */
+  bad: (Uint8Array | null)[];
+}
+
+/** Whether a loose machine's Z levers differ from the sound one's where both are determined. */
+function differs(look: readonly number[], good: Uint8Array, bad: Uint8Array): boolean {
+  return look.some((d) => good[d] !== X && bad[d] !== X && good[d] !== bad[d]);
+}
+
+/**
+ * Breadth-first search from power-up for every wanted position, and for a position that shows
+ * each tie come loose: the sound machine and each loose one stepped side by side along every
+ * path (the product of their states, ch. 8 of the source above), positions told apart by the
+ * sound machine's values (see the module comment).
+ */
+function breadthFirst(sim: PartSim, targets: Targets, maxMoves: number): Found {
+  const { wants, faults, look } = targets;
   const levers = [...sim.inputLevers, sim.phi1, sim.phi2, sim.reset].filter((d) => d >= 0);
   const [start] = powerUp(sim);
-  const nodes: { values: Uint8Array; parent: number; action?: HandAction; depth: number }[] = [
-    { values: start.values, parent: -1, depth: 0 },
+  const startBad = faults.map((f) => (f ? powerUp(f)[0].values : null));
+  const nodes: Node[] = [
+    { values: start.values, key: keyOf(start.values, startBad), parent: -1, depth: 0, bad: startBad },
   ];
   const seen = new Seen(nodes);
-  seen.add(start.values, 0);
+  seen.add(nodes[0].key, 0);
   const at = wants.map(() => -1);
-  let left = wants.length;
+  const loose = faults.map(() => -1);
+  let left = wants.length + faults.filter((f) => f !== null).length;
   let cut = false;
   let moves = 0;
   for (let n = 0; n < nodes.length && left > 0 && !cut; n++) {
@@ -177,6 +253,11 @@ function breadthFirst(sim: PartSim, wants: readonly Want[], maxMoves: number): F
     wants.forEach((w, i) => {
       if (at[i] >= 0 || node.values[w.driver] !== w.out) return;
       at[i] = n;
+      left--;
+    });
+    node.bad.forEach((b, i) => {
+      if (loose[i] >= 0 || !b || !differs(look, node.values, b)) return;
+      loose[i] = n;
       left--;
     });
     if (left === 0 || node.depth >= SEARCH_ACTIONS) continue;
@@ -197,16 +278,31 @@ function breadthFirst(sim: PartSim, wants: readonly Want[], maxMoves: number): F
       const events: PartEvent[] = [];
       applyInPlace(sim, values, 0, action, events);
       if (events.some(isAlarm) || mayBeForbidden(sim, values)) continue;
-      if (seen.has(values)) continue;
+      const bad = node.bad.map((b, i) => {
+        if (!b || loose[i] >= 0) return null;
+        moves++;
+        const next = b.slice();
+        const f = faults[i];
+        if (f) applyInPlace(f, next, 0, action, []);
+        return next;
+      });
+      const key = keyOf(values, bad);
+      if (seen.has(key)) continue;
       if (nodes.length >= SEARCH_POSITIONS) {
         cut = true;
         break;
       }
-      seen.add(values, nodes.length);
-      nodes.push({ values, parent: n, action, depth: node.depth + 1 });
+      seen.add(key, nodes.length);
+      nodes.push({ values, key, parent: n, action, depth: node.depth + 1, bad });
     }
+    node.bad = [];
   }
-  return { nodes, at, reach: { positions: nodes.length, moves, actions: SEARCH_ACTIONS, complete: !cut && left > 0 } };
+  return {
+    nodes,
+    at,
+    loose,
+    reach: { positions: nodes.length, moves, actions: SEARCH_ACTIONS, complete: !cut && left > 0 },
+  };
 }
 
 /** The hand actions from power-up to node `n`. */
@@ -236,24 +332,33 @@ export function searchStages(
   const seen = new Map<string, { up: Sighting | null; down: Sighting | null }>();
   let pending: Pending[] = [];
   const timing = timingOf(profile);
-  let budget = PLAN_MOVES;
+  const drivers = build.netlist.parts.filter((p) => p.kind === 'lever' || p.kind === 'gate').length;
+  let budget = Math.floor(PLAN_WORK / Math.max(1, drivers));
   let toSearch = stages.filter((s) => s.gates.length > 0).length;
+  let steps = Math.floor(LOOSE_WORK / Math.max(1, drivers));
   const searched = stages.map((stage): Omit<StageChecks, 'checks'> => {
     stage.ties.forEach((b: Branch) => tied.add(branchId(b)));
     mounted.push(...stage.gates);
     for (const g of stage.gates) seen.set(g, { up: null, down: null });
-    if (stage.gates.length === 0 && pending.length === 0) return { trials: [], search: null };
+    if (stage.gates.length === 0 && pending.length === 0) return { trials: [], loose: [], search: null };
     pending = [...stage.gates.flatMap((gate) => [up(gate), down(gate)]), ...pending];
     const sim = compilePart(partialBuild(build, tied), timing);
     const driver = new Map(sim.ids.map((id, i) => [id, i]));
+    const injector = faultInjector(sim, timing.stageDelayS);
+    // One loose machine per tie while the bound on that work lasts (making one counts as a step).
+    const faults = stage.ties.map((tie) => (steps-- > 0 ? injector.inject(looseFault(tie)) : null));
     const found = breadthFirst(
       sim,
-      pending.map((p) => ({ ...p, driver: driver.get(p.gate) ?? -1 })),
+      {
+        wants: pending.map((p) => ({ ...p, driver: driver.get(p.gate) ?? -1 })),
+        faults,
+        look: mounted.map((g) => driver.get(g) ?? -1),
+      },
       Math.floor(budget / Math.max(1, toSearch)),
     );
     budget -= found.reach.moves;
     toSearch--;
-    const trialNodes = [...new Set(found.at.filter((n) => n >= 0))].sort((a, b) => a - b);
+    const trialNodes = [...new Set([...found.at, ...found.loose].filter((n) => n >= 0))].sort((a, b) => a - b);
     pending.forEach((p, i) => {
       const n = found.at[i];
       const s = seen.get(p.gate);
@@ -267,7 +372,9 @@ export function searchStages(
       actions: pathTo(found, n),
       positions: mounted.map((gate) => ({ gate, z: zOf(found.nodes[n].values[driver.get(gate) ?? -1]) })),
     }));
-    return { trials, search: found.reach };
+    const shown = looseTies(sim, stage.ties, faults, trials, Math.max(0, steps));
+    steps -= shown.steps;
+    return { trials, loose: shown.loose, search: found.reach };
   });
   return searched.map((s, i) => ({
     ...s,
@@ -277,3 +384,43 @@ export function searchStages(
 
 const up = (gate: string): Pending => ({ gate, out: 0 });
 const down = (gate: string): Pending => ({ gate, out: 1 });
+
+/** A tie come loose: the untied fault of sim/faults.ts on that branch (for a cord of one tie, the same as the cord slack). */
+function looseFault(tie: Branch): CordFault {
+  return {
+    key: `untied ${tie.cord} ${tie.target}.${tie.port}`,
+    kind: 'untied',
+    cord: tie.cord,
+    tie: { part: tie.target, port: tie.port },
+    same: [],
+  };
+}
+
+/** Each tie of a stage come loose in turn (the untied fault of sim/faults.ts), the stage's trials stepped on it and read. */
+function looseTies(
+  sim: PartSim,
+  ties: readonly Branch[],
+  faults: readonly (PartSim | null)[],
+  trials: readonly Trial[],
+  budget: number,
+): { loose: LooseTie[]; steps: number } {
+  const index = new Map(sim.ids.map((id, i) => [id, i]));
+  const perTie = trials.reduce((n, t) => n + t.actions.length, 1);
+  let steps = 0;
+  const loose = ties.map((tie, i): LooseTie => {
+    const bad = faults[i];
+    if (!bad || steps + perTie > budget) return { tie, shownBy: null, simulated: false };
+    steps += perTie;
+    const [start] = powerUp(bad);
+    const shownBy = trials.findIndex((t) => {
+      const values = start.values.slice();
+      for (const a of t.actions) applyInPlace(bad, values, 0, a, []);
+      return t.positions.some((x) => {
+        const v = values[index.get(x.gate) ?? -1];
+        return v !== X && x.z !== '?' && zOf(v) !== x.z;
+      });
+    });
+    return { tie, shownBy: shownBy < 0 ? null : shownBy, simulated: true };
+  });
+  return { loose, steps };
+}

@@ -25,7 +25,7 @@ export {
   type MountStage,
 } from './bring-up.js';
 export {
-  PLAN_MOVES,
+  PLAN_WORK,
   SEARCH_ACTIONS,
   SEARCH_POSITIONS,
   type GateCheck,

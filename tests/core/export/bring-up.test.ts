@@ -146,6 +146,35 @@ function confirmsTrials(build: Build, plan: BringUpPlan): number {
 }
 
 /**
+ * Every tie a stage says its check shows come loose is shown, by the trial it names and by no
+ * earlier one, on the surgery with that branch left untied as well, stepped by the event-driven
+ * simulator; a tie it says no trial shows, none does. Returns how many ties were confirmed.
+ */
+function confirmsLoose(build: Build, plan: BringUpPlan): number {
+  let confirmed = 0;
+  for (const s of plan.stages) {
+    const done = plan.stages.slice(0, s.number);
+    const mounted = new Set(done.flatMap((x) => x.parts));
+    const tied = done.flatMap((x) => x.ties.map(tieKey));
+    for (const l of s.loose) {
+      if (!l.simulated) continue;
+      const loose = partialMachine(build, mounted, new Set(tied.filter((k) => k !== tieKey(l.tie))));
+      const sim = simFor(loose, timing);
+      const shows = s.trials.map((t) => {
+        const { state } = stepThrough(loose, t.actions);
+        return t.positions.some((x) => {
+          const v = state.values[sim.ids.indexOf(x.gate)];
+          return v !== 2 && x.z !== '?' && zOf(v) !== x.z;
+        });
+      });
+      expect(shows.indexOf(true), `stage ${s.number} ${tieKey(l.tie)}`).toBe(l.shownBy ?? -1);
+      confirmed++;
+    }
+  }
+  return confirmed;
+}
+
+/**
  * Independent exhaustive search on the surgery: every position reachable from power-up in at
  * most `depth` moves of one lever (pulled or released) that raise no alarm of the event-driven
  * simulator (a broken operating rule is one) and leave no latch whose ports may both be
@@ -199,6 +228,7 @@ describe('core/export/bring-up', () => {
         const plan = bringUpPlan(build, DEFAULT_PROFILE);
         holdsStageContract(build, plan);
         expect(confirmsTrials(build, plan)).toBeGreaterThan(0);
+        expect(confirmsLoose(build, plan)).toBe(branchesOf(build.netlist).length);
       }),
       { seed: 20261205, numRuns: 8 },
     );
@@ -209,6 +239,20 @@ describe('core/export/bring-up', () => {
       const b = example(name);
       expect(confirmsTrials(b.build, bringUpPlan(b.build, b.profile)), name).toBeGreaterThan(0);
     }
+  });
+
+  it('says which trial shows each tie come loose, confirmed on the surgery with that branch untied, on every example', () => {
+    let ties = 0;
+    let shown = 0;
+    for (const name of exampleNames()) {
+      const b = example(name);
+      const plan = bringUpPlan(b.build, b.profile);
+      ties += confirmsLoose(b.build, plan);
+      shown += plan.stages.reduce((n, st) => n + st.loose.filter((l) => l.shownBy !== null).length, 0);
+    }
+    // Every branch of the examples simulated; the share shown at its own stage, counted (binary codes).
+    expect(ties).toBe(366);
+    expect(shown).toBe(269);
   });
 
   it('shows both Z positions of every gate of every example, and says why where not at its own stage, confirmed by exhaustive search', () => {
@@ -254,10 +298,27 @@ describe('core/export/bring-up', () => {
       t.actions,
       Object.fromEntries(t.positions.map((x) => [x.gate, x.z])),
     ]);
+    const pull = (input: string): HandAction => ({ kind: 'input', input, value: 1 });
+    const release = (input: string): HandAction => ({ kind: 'input', input, value: 0 });
+    const z = (invS: ZPosition, invR: ZPosition, set: ZPosition, reset: ZPosition) => ({
+      inv_s: invS,
+      inv_r: invR,
+      'L.set': set,
+      'L.reset': reset,
+    });
     expect(trials).toEqual([
-      [[], { inv_s: 'down', inv_r: 'down', 'L.set': '?', 'L.reset': '?' }],
-      [[{ kind: 'input', input: 's', value: 1 }], { inv_s: 'up', inv_r: 'down', 'L.set': 'down', 'L.reset': 'up' }],
-      [[{ kind: 'input', input: 'r', value: 1 }], { inv_s: 'down', inv_r: 'up', 'L.set': 'up', 'L.reset': 'down' }],
+      // a: at rest, both levers released: both inverters' ports pulled (Z down); the latch as it powered up.
+      [[], z('down', 'down', '?', '?')],
+      // b: s pulled: S̄ = 0, R̄ = 1, so Q = 1 (set gate's output 1, Z down), Q̄ = 0.
+      [[pull('s')], z('up', 'down', 'down', 'up')],
+      // c: r pulled: S̄ = 1, R̄ = 0, so Q = 0, Q̄ = 1.
+      [[pull('r')], z('down', 'up', 'up', 'down')],
+      // d, e: set (reset), then both released: S̄ = R̄ = 1, the latch holds on its feedback cords alone.
+      [[pull('s'), release('s')], z('down', 'down', 'down', 'up')],
+      [[pull('r'), release('r')], z('down', 'down', 'up', 'down')],
+      // f, g: set then reset, reset then set: each latch port's own cord moves the latch.
+      [[pull('s'), release('s'), pull('r')], z('down', 'up', 'up', 'down')],
+      [[pull('r'), release('r'), pull('s')], z('up', 'down', 'down', 'up')],
     ]);
     const at = (trial: number) => ({ stage: 3, trial });
     expect(plan.stages[2].checks).toEqual([
@@ -266,7 +327,19 @@ describe('core/export/bring-up', () => {
       { gate: 'L.set', up: at(2), down: at(1) },
       { gate: 'L.reset', up: at(1), down: at(2) },
     ]);
-    expect(confirmsTrials(build, plan)).toBe(12);
+    // Each tie come loose, on paper: c1, c2 (lever to inverter) leave an inverter's Z up at rest
+    // (a); c3 (s to the latch) leaves the latch reset in g, c4 (r) set in f; c5, c6 (the feedback
+    // cords) let the latch forget in e and d.
+    expect(plan.stages[2].loose.map((l) => [l.tie.cord, l.shownBy])).toEqual([
+      ['c1', 0],
+      ['c2', 0],
+      ['c3', 6],
+      ['c4', 5],
+      ['c5', 4],
+      ['c6', 3],
+    ]);
+    expect(confirmsLoose(build, plan)).toBe(6);
+    expect(confirmsTrials(build, plan)).toBe(28);
   });
 
   it('lists every branch of the build (branchesOf: ports then actuators per cord)', () => {
