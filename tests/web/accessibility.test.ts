@@ -4,8 +4,8 @@
  * levels A and AA (W3C Recommendations; among them 1.4.3 contrast of text at least 4.5:1,
  * 2.5.3 a control's visible label part of its accessible name, 4.1.2 every control named),
  * run in Chromium on every view of the page in the light and the dark theme, on a phone, with
- * the notation card open, the behaviour panel open, with a text that does not read, and on the build sheet and the
- * commissioning sheet.
+ * the notation card open, the behaviour panel open, with a text that does not read, and on the build sheet, the
+ * bring-up sheet and the commissioning sheet.
  *
  * One reading is set aside, and only where named: 2.5.3 on the sketch's state cards. A card
  * draws its name, its outputs and, above its corner, its code as separate SVG text elements,
@@ -118,7 +118,7 @@ describe('the designer and its documents against WCAG 2.2 A/AA (axe-core, in chr
     await context.close();
   }, 180_000);
 
-  it('the build sheet and the commissioning sheet as written by build --out', async () => {
+  it('the build sheet, the bring-up sheet and the commissioning sheet as written by build --out', async () => {
     const text = readFileSync(fileURLToPath(new URL('../../examples/marble-bell.lw', import.meta.url)), 'utf8');
     const a = analyse(text, 'marble-bell.lw');
     if (!a.ok) throw new Error('must read');
@@ -128,7 +128,7 @@ describe('the designer and its documents against WCAG 2.2 A/AA (axe-core, in chr
     const context = await designer.context(DESKTOP);
     const page = await context.newPage();
     const found: string[] = [];
-    for (const file of ['build-sheet.html', 'commissioning.html'] as const) {
+    for (const file of ['build-sheet.html', 'bring-up.html', 'commissioning.html'] as const) {
       await page.setContent(docs.get(file) ?? '');
       found.push(...(await violations(page)).map((v) => `${file}: ${v}`));
     }

@@ -283,6 +283,10 @@ describe('src/web (end to end in chromium)', () => {
     const files = unzipSync(readFileSync(zip.path));
     expect(Object.keys(files)).toEqual(DOCUMENT_REGISTRY.map((d) => `marble_bell-${d.file}`));
     expect(strFromU8(files['marble_bell-build-sheet.html'])).toContain('marble_bell');
+    // The bring-up sheet is one of them, with a button of its own.
+    expect(strFromU8(files['marble_bell-bring-up.html'])).toContain('Bring-up in stages — marble_bell');
+    expect(strFromU8(files['marble_bell-bring-up.md'])).toContain('## Stage 3:');
+    await expect.poll(() => page.locator('lw-parts button[data-doc="bring-up.html"]').count()).toBe(1);
     await page.locator('lw-parts button[data-do="print"]').click();
     const frame = page.locator('iframe#lw-print');
     await expect.poll(() => frame.getAttribute('data-printed')).toBe('1');

@@ -21,8 +21,9 @@ import { checkTiming } from '../checks/timing.js';
 import { place, type Placement } from '../phases/place/index.js';
 import { billOfMaterials } from '../physics/bom.js';
 import { bomCsv } from './bom-csv.js';
-import { buildSheetHtml } from './build-sheet-html.js';
-import { buildSheetMd } from './build-sheet-md.js';
+import { buildSheetHtml, renderDocHtml } from './build-sheet-html.js';
+import { buildSheetMd, renderDocMd } from './build-sheet-md.js';
+import { bringUpSheet } from './bring-up-doc.js';
 import type { DocumentsInput, Drawings } from './build-sheet.js';
 import { camsSvg } from './cams-svg.js';
 import { commissioningCsv, commissioningRows, type CommissioningRow } from './commissioning.js';
@@ -118,6 +119,22 @@ export const DOCUMENT_REGISTRY = [
     mime: 'text/csv',
     summary: 'every cord piece cut to length, lever blanks, drums, pulleys, weights and cam discs',
     format: 'CSV (RFC 4180)',
+  },
+  {
+    name: 'bring-up-html',
+    file: 'bring-up.html',
+    label: 'Bring-up in stages (HTML, printable)',
+    mime: 'text/html',
+    summary: 'the order to mount the parts and tie the cords, stage by stage, with a check after each',
+    format: 'HTML, self-contained',
+  },
+  {
+    name: 'bring-up-md',
+    file: 'bring-up.md',
+    label: 'Bring-up in stages (Markdown)',
+    mime: 'text/markdown',
+    summary: 'the same stages',
+    format: 'Markdown (CommonMark with pipe tables)',
   },
   {
     name: 'netlist',
@@ -222,6 +239,8 @@ export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: Document
     bomCsv(billOfMaterials(d.input.build.netlist, d.input.profile, d.placement()), d.input.profile.documentUnits),
   'cut-list': (d) =>
     cutListCsv(cutListRows(d.input.build, d.placement(), d.input.profile), d.input.profile.documentUnits),
+  'bring-up-html': (d) => renderDocHtml(bringUpSheet(d)),
+  'bring-up-md': (d) => renderDocMd(bringUpSheet(d)),
   netlist: (d) => netlistJson(d.input.build, { placement: d.placement(), profile: d.input.profile }),
   frame: (d) => d.drawings().frame,
   cams: (d) =>

@@ -15,6 +15,27 @@ export { cutListCsv, cutListRows, cutMetres, type CutRow } from './cut-list.js';
 export { frameScale, frameSvg, isoSheetFor, type IsoSheet } from './frame-svg.js';
 export { partWords } from './part-words.js';
 export {
+  bringUpPlan,
+  branchesOf,
+  GATES_PER_STAGE,
+  mountStages,
+  type Branch,
+  type BringUpPlan,
+  type BringUpStage,
+  type MountStage,
+} from './bring-up.js';
+export {
+  PLAN_WORK,
+  SEARCH_ACTIONS,
+  SEARCH_POSITIONS,
+  type GateCheck,
+  type SearchReach,
+  type Sighting,
+  type Trial,
+  type ZPosition,
+} from './bring-up-search.js';
+export { BRING_UP_CAUTIONS, bringUpDoc, bringUpHtml, bringUpMd } from './bring-up-doc.js';
+export {
   buildDocuments,
   documentByFile,
   documentSources,

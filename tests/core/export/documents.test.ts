@@ -14,6 +14,8 @@ const FOLLOWING = [
   'build-sheet.md',
   'bom.csv',
   'cut-list.csv',
+  'bring-up.html',
+  'bring-up.md',
   'frame.svg',
   'cams.svg',
   'commissioning.html',

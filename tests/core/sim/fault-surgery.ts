@@ -49,3 +49,41 @@ function flat(r: PartReading, outputs: readonly string[]): string[] {
 export function firstShown(good: readonly string[][], bad: readonly string[][]): number {
   return good.findIndex((g, i) => g.some((v, k) => v !== 'X' && bad[i][k] !== 'X' && v !== bad[i][k]));
 }
+
+/**
+ * A partly built machine made by hand in a copy of the build's netlist: only the parts in
+ * `mounted` are kept, and of the cords only the branches in `tied` (`cord|part|port`, port ''
+ * for an actuator); the signal map and the machine's outputs keep only what is mounted, so the
+ * part-level simulator compiles exactly what stands on the frame.
+ */
+export function partialMachine(build: Build, mounted: ReadonlySet<string>, tied: ReadonlySet<string>): Build {
+  const net = build.netlist;
+  const parts = net.parts.filter((p) => mounted.has(p.id));
+  const cords = net.cords
+    .filter((c) => mounted.has(c.driver))
+    .map((c): Cord => ({
+      ...c,
+      ports: c.ports.filter((p) => tied.has(`${c.id}|${p.part}|${p.port}`)),
+      actuators: c.actuators.filter((a) => tied.has(`${c.id}|${a}|`)),
+    }));
+  const sig = build.signals;
+  const shown = build.machine.outputs.filter((o) => {
+    const reader = net.parts.find((p) => p.id === sig.outputs[o]);
+    return (
+      reader !== undefined &&
+      mounted.has(reader.id) &&
+      (reader.kind !== 'flag' || reader.fixed !== undefined || mounted.has(reader.gate))
+    );
+  });
+  return {
+    ...build,
+    machine: { ...build.machine, outputs: shown },
+    netlist: { parts, cords },
+    signals: {
+      ...sig,
+      masters: sig.masters.filter((l) => mounted.has(l)),
+      slaves: sig.slaves.filter((l) => mounted.has(l)),
+      outputs: Object.fromEntries(shown.map((o) => [o, sig.outputs[o]])),
+    },
+  };
+}
