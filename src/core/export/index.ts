@@ -44,6 +44,21 @@ export {
   type Sight,
 } from './cord-finder.js';
 export {
+  CordNarrowing,
+  expectedAt,
+  lookColumns,
+  narrowedText,
+  NONE_WORDS,
+  positionWords,
+  valueOfWords,
+  type AheadOutcome,
+  type AheadRow,
+  type LookColumn,
+  type Narrowed,
+  type StepSight,
+  type SuspectCord,
+} from './cord-narrowing.js';
+export {
   coverageBlock,
   coverageLine,
   coverageOf,
