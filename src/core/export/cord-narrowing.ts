@@ -173,15 +173,20 @@ export class CordNarrowing {
     return this.rows.length;
   }
 
-  /** The answer for rows 1 … `reached` walked, with `sights` (by step) the values seen differ; a step with none was as the sheet. */
-  narrow(reached: number, sights: readonly StepSight[]): Narrowed {
+  /**
+   * The answer for steps 1 … `reached` walked, with `sights` (by step) the values seen differ. A
+   * step with a sight, or before `ticked` (default: every step walked), was ticked whole: what is
+   * not named there stood as the sheet. A step from `ticked` on with no sight is unknown; with
+   * `onlyNamed`, a step from `ticked` on tells only what is named.
+   */
+  narrow(reached: number, sights: readonly StepSight[], ticked = reached + 1, onlyNamed = false): Narrowed {
     const seen = new Map<number, SeenValue[]>();
     for (const s of sights) {
       if (s.step < 1 || s.step > reached) continue;
       const list = seen.get(s.step - 1) ?? [];
       seen.set(s.step - 1, [...list.filter((x) => x.at !== s.at), { at: s.at, value: s.value }]);
     }
-    const walked: Walked = { reached, seen };
+    const walked: Walked = { reached, seen, ticked: ticked - 1, onlyNamed };
     const w = this.walker.walk(walked);
     const looseness = w.looseness();
     const live = w.suspects();
@@ -277,11 +282,13 @@ export function narrowedText(n: Narrowed): string {
         : `${n.suspects.length} cords explain everything seen; stop the drum, then check:`,
     );
     for (const s of n.suspects)
-      lines.push(`  look at ${s.cord}: ${s.trouble}${s.alike === '' ? '' : ` (looks the same as ${s.alike})`}`);
+      lines.push(
+        `  look at ${s.cord}: ${s.trouble}${s.alike === '' ? '' : ` (looks the same as ${s.alike})`} [${s.fault.key}]`,
+      );
     if (n.loose.length > 0)
       lines.push(
         'these fit only by leaving the levers you saw differ undetermined; check them if the cords above are sound:',
-        ...n.loose.map((s) => `  ${s.cord}: ${s.trouble}`),
+        ...n.loose.map((s) => `  ${s.cord}: ${s.trouble} [${s.fault.key}]`),
       );
     for (const r of n.ahead) {
       lines.push(`to tell them apart, go on to step ${r.step} (clock ${r.clock}: ${r.action}):`);

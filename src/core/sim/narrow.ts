@@ -35,10 +35,18 @@ export interface SeenValue {
   readonly value: 0 | 1;
 }
 
-/** The rows walked: rows 0 … reached−1 observed; `seen` lists, per row, what differed there (a row not listed was as the sheet). */
+/**
+ * The rows walked: rows 0 … reached−1; `seen` lists, per row, what differed there. Rows before
+ * `ticked` (default: every row walked), and every row with something listed, were ticked value by
+ * value: what is not listed stood as the sheet. A row from `ticked` on with nothing listed is
+ * unknown (a person who went on after a difference and named only some rows). With `onlyNamed`,
+ * a row from `ticked` on tells only the values listed (the person named what they noticed).
+ */
 export interface Walked {
   readonly reached: number;
   readonly seen: ReadonlyMap<number, readonly SeenValue[]>;
+  readonly ticked?: number;
+  readonly onlyNamed?: boolean;
 }
 
 /** One outcome a row could show: the look (with X where a suspect leaves a lever undetermined) and the suspects it leaves. */
@@ -106,14 +114,16 @@ export class SuspectWalk {
   /** Walk to `w` (from where the walk stands when it only goes on; from power-up otherwise). */
   walk(w: Walked): this {
     const reached = Math.max(0, Math.min(w.reached, this.steps.length));
-    const keyOf = (row: number): string => seenKey(w.seen.get(row));
+    const ticked = w.ticked ?? reached;
+    const whole = (row: number): boolean => row < ticked || (w.seen.has(row) && w.onlyNamed !== true);
+    const keyOf = (row: number): string => (whole(row) ? '' : '?') + seenKey(w.seen.get(row));
     let again = reached < this.reached;
     for (let r = 0; r < this.reached && !again; r++) if ((this.applied.get(r) ?? '') !== keyOf(r)) again = true;
     if (again) this.restart();
     const look = new Uint8Array(this.width);
     for (let r = this.reached; r < reached; r++) {
       const seen = w.seen.get(r) ?? [];
-      const expected = this.expected(r, seen);
+      const expected = this.expected(r, seen, whole(r));
       if (seen.length > 0 && this.differed < 0) this.differed = r;
       const before = this.live;
       this.live = before.filter((s) => {
@@ -130,9 +140,9 @@ export class SuspectWalk {
     return this;
   }
 
-  /** What the person should see at row `r`, given what they said differed. */
-  private expected(r: number, seen: readonly SeenValue[]): Uint8Array {
-    const e = this.good[r].slice();
+  /** What the person saw at row `r`: the sheet's look with what they said differed (nothing known of a row not ticked). */
+  private expected(r: number, seen: readonly SeenValue[], whole: boolean): Uint8Array {
+    const e = whole ? this.good[r].slice() : new Uint8Array(this.width).fill(X);
     for (const s of seen) if (s.at >= 0 && s.at < e.length) e[s.at] = s.value;
     return e;
   }
@@ -189,9 +199,11 @@ export class SuspectWalk {
         b.run(this.steps[r].actions);
         b.look(look[i]);
       });
-      const split = outcomesOf(look, this.good[r]);
-      if (split.length > 1 && split.some((o) => o.leaves.length < n)) rows.push({ row: r, outcomes: split });
+      // A row is proposed when it tells apart suspects no row proposed before it does.
+      const classes = count(cls);
       refine(cls, look);
+      const split = outcomesOf(look, this.good[r]);
+      if (count(cls) > classes && split.length > 1) rows.push({ row: r, outcomes: split });
     }
     const ended = r >= this.steps.length;
     // Carry on refining (no more rows proposed) to say which suspects no row tells apart.
@@ -226,19 +238,34 @@ function agrees(expected: Uint8Array, bad: Uint8Array): boolean {
   return true;
 }
 
-/** The distinct looks of the suspects at one row, each with the suspects it would leave. */
+/**
+ * The outcomes a row could show: the distinct looks of the suspects that settle every value the
+ * sheet gives, each with the suspects it would leave (a suspect that leaves a value undetermined
+ * is left by every outcome it agrees with); a suspect no such outcome leaves adds its own look.
+ */
 function outcomesOf(looks: readonly Uint8Array[], good: Uint8Array): RowOutcome[] {
-  const keys = new Map<string, Uint8Array>();
-  for (const l of looks) {
-    const k = l.join(',');
-    if (!keys.has(k)) keys.set(k, l);
-  }
-  return [...keys.values()].map((l) => ({
+  const settled = (l: Uint8Array): boolean => l.every((v, k) => v !== X || good[k] === X);
+  const distinct = new Map<string, Uint8Array>();
+  for (const l of looks) if (settled(l)) distinct.set(l.join(','), l);
+  const out = [...distinct.values()].map((l) => outcome(l, looks, good));
+  looks.forEach((l, i) => {
+    if (!out.some((o) => o.leaves.includes(i)) && !distinct.has(l.join(','))) {
+      distinct.set(l.join(','), l);
+      out.push(outcome(l, looks, good));
+    }
+  });
+  return out;
+}
+
+function outcome(l: Uint8Array, looks: readonly Uint8Array[], good: Uint8Array): RowOutcome {
+  return {
     look: l.slice(),
     asSheet: l.every((v, k) => good[k] === X || v === good[k]),
     leaves: looks.flatMap((m, i) => (agrees(l, m) ? [i] : [])),
-  }));
+  };
 }
+
+const count = (cls: Int32Array): number => new Set(cls).size;
 
 /** Split the classes of `cls` by the looks of one row (an X counts as a look of its own, so a class never holds two suspects a row could tell apart). */
 function refine(cls: Int32Array, looks: readonly Uint8Array[]): void {
