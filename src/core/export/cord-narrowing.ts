@@ -150,6 +150,20 @@ export function expectedAt(row: CommissioningRow, columns: readonly LookColumn[]
   });
 }
 
+/** The value the sheet gives every column at a row (1: Z down, an output showing 1; `X` when the sheet says '?'). */
+export function valuesAt(row: CommissioningRow, columns: readonly LookColumn[]): number[] {
+  const nl = row.latches.length;
+  return columns.map((_, k) => {
+    if (k < 2 * nl) {
+      const l = row.latches[k >> 1];
+      const z = (k & 1) === 0 ? l.setZ : l.resetZ;
+      return z === 'down' ? 1 : z === 'up' ? 0 : X;
+    }
+    const shows = row.outputs[k - 2 * nl].shows;
+    return shows === '1' ? 1 : shows === '0' ? 0 : X;
+  });
+}
+
 /** A walk along the sheet of one build, kept between questions so each row walked costs one row per suspect. */
 export class CordNarrowing {
   private readonly walker: SuspectWalk;

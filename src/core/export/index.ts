@@ -51,6 +51,7 @@ export {
   NONE_WORDS,
   positionWords,
   valueOfWords,
+  valuesAt,
   type AheadOutcome,
   type AheadRow,
   type LookColumn,
