@@ -216,7 +216,7 @@ export class CordNarrowing {
       verdict === 'none' && gone
         ? { step: gone.row + 1, suspects: gone.faults.map((f) => this.suspect(f)) }
         : undefined;
-    const look = suspects.length > 0 && live.length > 1 ? w.ahead(3) : { rows: [], alike: [] };
+    const look = first >= 0 && suspects.length > 0 && live.length > 1 ? w.ahead(3) : { rows: [], alike: [] };
     const keys = live.map((f) => f.key);
     return {
       reached: w.rows,

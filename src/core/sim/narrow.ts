@@ -66,7 +66,7 @@ export interface SplitRow {
 }
 
 /** Fault-rows the look-ahead for telling suspects apart may simulate. */
-export const SPLIT_WORK = 200_000;
+export const SPLIT_WORK = 20_000;
 
 interface Suspect {
   readonly fault: CordFault;

@@ -12,7 +12,7 @@ import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { BranchRoute, Narrowed, Placement, SuspectCord } from '../../core/index.js';
 import { DrawnFrame } from '../frame/drawn.js';
 import { screenSized } from '../frame/sheet.js';
-import type { FrameDrawing } from '../frame/drawing.js';
+import { FRAME_HERE_BAYS, type FrameDrawing } from '../frame/drawing.js';
 import type { WalkRow, WalkSheet } from '../worker/protocol.js';
 import { shared, viewColumn } from '../styles/shared.js';
 import { emit } from './emit.js';
@@ -56,6 +56,8 @@ export class LwShakedown extends LitElement {
   declare placement: Placement | undefined;
   private drawn: DrawnFrame | undefined;
   private sized: { readonly svg: string; readonly text: string } | undefined;
+  /** A large frame (more than FRAME_HERE_BAYS bays) is drawn here only when asked: it is megabytes of SVG. */
+  private frameAsked = false;
 
   static override styles = [shared, viewColumn, frameStyles, shakedownStyles];
 
@@ -124,7 +126,7 @@ export class LwShakedown extends LitElement {
                 data-mark=${at}
                 ?disabled=${none}
                 @click=${walk({ do: 'mark', at })}
-                aria-label=${`${c.what}: stands the other way`}
+                aria-label=${`Other way: ${c.what} stands the other way`}
               >
                 Other way
               </button>
@@ -248,6 +250,22 @@ export class LwShakedown extends LitElement {
 
   private frame() {
     const svg = this.drawing?.svg;
+    if ((this.placement?.bays.length ?? 0) > FRAME_HERE_BAYS && !this.frameAsked)
+      return html`<section class="panel" aria-label="The suspect cords on the frame">
+        <h2>On the frame</h2>
+        <p class="soft">
+          This frame has ${this.placement?.bays.length} bays: drawing it here takes the page a moment.
+          <button
+            data-do="walk-frame"
+            @click=${() => {
+              this.frameAsked = true;
+              this.requestUpdate();
+            }}
+          >
+            Draw the frame here
+          </button>
+        </p>
+      </section>`;
     if (svg === undefined) return nothing;
     if (this.sized?.svg !== svg) this.sized = { svg, text: screenSized(svg, ZOOM) };
     const lit = (this.narrowed?.suspects.length ?? 0) > 0;
