@@ -303,6 +303,7 @@ export {
   coverageWords,
   CordNarrowing,
   expectedAt,
+  faultShort,
   lookColumns,
   narrowedText,
   NONE_WORDS,

@@ -265,6 +265,14 @@ export class CordNarrowing {
   }
 }
 
+/** A fault key (`slack c12`, `taut c12`, `untied c12 g4.a`) in a few words: `c12 broken`, `c12 jammed`, `c12 untied at g4.a`. */
+export function faultShort(key: string): string {
+  const [kind, cord, tie] = key.split(' ');
+  if (kind === 'slack') return `${cord} broken`;
+  if (kind === 'taut') return `${cord} jammed`;
+  return `${cord} untied at ${tie ?? '?'}`;
+}
+
 /** What to check when no single cord fault explains the sights. */
 export const NONE_WORDS =
   'No single broken, jammed or untied cord explains everything seen. Check the rows you ticked again (a lever misread, a step skipped); then look for two faults at once, a cord tied to the wrong port, a lever off its pivot, a weight fallen off, or a lever that sticks.';
@@ -310,10 +318,11 @@ export function narrowedText(n: Narrowed): string {
         const seen = o.asSheet
           ? 'as the sheet'
           : o.sights.map((s) => `${s.what} ${s.seen} (sheet: ${s.expected})`).join('; ') || 'a lever left unsettled';
-        lines.push(`  ${seen} → leaves ${o.leaves.length}: ${o.leaves.join(', ')}`);
+        lines.push(`  ${seen} → leaves ${o.leaves.length}: ${o.leaves.map(faultShort).join(', ')}`);
       }
     }
-    for (const g of n.alike) lines.push(`no row left on the sheet tells these apart; check each: ${g.join(', ')}`);
+    for (const g of n.alike)
+      lines.push(`no row left on the sheet tells these apart; check each: ${g.map(faultShort).join(', ')}`);
   }
   return lines.join('\n') + '\n';
 }

@@ -46,6 +46,7 @@ export {
 export {
   CordNarrowing,
   expectedAt,
+  faultShort,
   lookColumns,
   narrowedText,
   NONE_WORDS,

@@ -9,7 +9,7 @@
  */
 import { LitElement, html, nothing } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
-import type { BranchRoute, Narrowed, Placement, SuspectCord } from '../../core/index.js';
+import { faultShort, type BranchRoute, type Narrowed, type Placement, type SuspectCord } from '../../core/index.js';
 import { DrawnFrame } from '../frame/drawn.js';
 import { screenSized } from '../frame/sheet.js';
 import { FRAME_HERE_BAYS, type FrameDrawing } from '../frame/drawing.js';
@@ -163,7 +163,7 @@ export class LwShakedown extends LitElement {
       : nothing;
     return html`<section class="panel findings" aria-label="What the walk says" data-verdict=${n.verdict}>
       <h2>What it points at</h2>
-      ${busy} ${sample} ${this.verdict(n)} ${this.suspectList(n.suspects, 'suspects')}
+      ${busy} ${sample} ${this.verdict(n)} ${n.verdict === 'fine' ? nothing : this.suspectList(n.suspects, 'suspects')}
       ${
         n.loose.length > 0 && n.verdict !== 'fine'
           ? html`<p class="soft">
@@ -178,6 +178,12 @@ export class LwShakedown extends LitElement {
   }
 
   private verdict(n: Narrowed) {
+    const whole = this.sheet !== undefined && n.reached >= this.sheet.rows.length;
+    if (n.verdict === 'fine' && whole && n.suspects.length > 0)
+      return html`<p data-walk-verdict>
+          Every step stood as the sheet. The sheet cannot show these cords broken: check them by eye.
+        </p>
+        ${this.suspectList(n.suspects, 'unshown')}`;
     if (n.verdict === 'fine')
       return html`<p data-walk-verdict>Everything so far stood as the sheet: nothing points at a cord.</p>`;
     if (n.verdict === 'none')
@@ -239,7 +245,8 @@ export class LwShakedown extends LitElement {
                           : o.sights.map((s) => `${s.what} ${s.seen} (sheet: ${s.expected})`).join('; ') ||
                             `${o.unsettled.join(', ')} not settling`
                       }
-                      → ${o.leaves.length === 1 ? 'it is' : `one of ${o.leaves.length}:`} ${o.leaves.join(', ')}
+                      → ${o.leaves.length === 1 ? 'it is' : `one of ${o.leaves.length}:`}
+                      ${o.leaves.map(faultShort).join(', ')}
                     </li>`,
                 )}
               </ul>

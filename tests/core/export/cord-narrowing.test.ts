@@ -6,6 +6,7 @@ import { DEFAULT_PROFILE } from '../../../src/core/physics/profile.js';
 import { documentSources } from '../../../src/core/export/documents.js';
 import {
   CordNarrowing,
+  faultShort,
   lookColumns,
   narrowedText,
   valueOfWords,
@@ -136,6 +137,12 @@ describe('core/export/cord-narrowing', () => {
     expect(valueOfWords({ kind: 'actuator' }, 'at rest')).toBe(0);
     expect(valueOfWords({ kind: 'actuator' }, 'lifted')).toBe(1);
     expect(valueOfWords({ kind: 'actuator' }, 'sideways')).toBeUndefined();
+  });
+
+  it('says a fault in a few words (the keys of sim/faults.ts)', () => {
+    expect(faultShort('slack c12')).toBe('c12 broken');
+    expect(faultShort('taut c12')).toBe('c12 jammed');
+    expect(faultShort('untied c12 g4.a')).toBe('c12 untied at g4.a');
   });
 
   it('names the columns as the sheet heads them, each with its bay', () => {
