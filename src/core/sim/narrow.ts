@@ -66,7 +66,14 @@ export interface SplitRow {
 }
 
 /** Fault-rows the look-ahead for telling suspects apart may simulate. */
-export const SPLIT_WORK = 20_000;
+export const SPLIT_WORK = 8_000;
+
+/** Rows ahead that tell the suspects apart, and the groups of suspects no row ahead does (`ended`: the look-ahead reached the sheet's end). */
+export interface Ahead {
+  readonly rows: readonly SplitRow[];
+  readonly alike: readonly (readonly number[])[];
+  readonly ended: boolean;
+}
 
 interface Suspect {
   readonly fault: CordFault;
@@ -84,6 +91,9 @@ export class SuspectWalk {
   private reached = 0;
   private applied = new Map<number, string>();
   private differed = -1;
+  /** The last look-ahead: from which row, for which suspects (their keys), and what it found. */
+  private lastAhead:
+    { readonly from: number; readonly keys: string; readonly most: number; readonly found: Ahead } | undefined;
   /** The suspects just before the last row that left none, and that row. */
   private lastFit: { readonly row: number; readonly faults: readonly CordFault[] } | undefined;
 
@@ -178,11 +188,21 @@ export class SuspectWalk {
    * (`alike`: groups of suspect indices no row ahead tells apart, when the look-ahead reached
    * the sheet's end).
    */
-  ahead(most = 3): {
-    readonly rows: readonly SplitRow[];
-    readonly alike: readonly (readonly number[])[];
-    readonly ended: boolean;
-  } {
+  ahead(most = 3): Ahead {
+    // The same suspects, the rows proposed not yet reached: the machines run on as they did, so
+    // the look-ahead made from an earlier row still holds from here.
+    const keys = this.live.map((s) => s.fault.key).join('|');
+    const last = this.lastAhead;
+    if (last && last.keys === keys && last.most === most && last.from <= this.reached) {
+      const rows = last.found.rows.filter((r) => r.row >= this.reached);
+      if (rows.length === last.found.rows.length) return last.found;
+    }
+    const found = this.lookAhead(most);
+    this.lastAhead = { from: this.reached, keys, most, found };
+    return found;
+  }
+
+  private lookAhead(most: number): Ahead {
     const n = this.live.length;
     if (n < 2) return { rows: [], alike: [], ended: true };
     const runs = this.live.map((s) => s.bad.copy());

@@ -79,6 +79,15 @@ describe('core/sim/narrow', () => {
     ).toEqual(['slack ci2']);
   });
 
+  it('proposes from a later row what a walk started afresh there proposes (the look-ahead kept while it holds)', () => {
+    const kept = c17Walk();
+    kept.walk({ reached: 1, seen: bothAtRest(1) }).ahead(2);
+    for (const reached of [2, 4, 6]) {
+      const fresh = c17Walk().walk({ reached, seen: bothAtRest(reached) });
+      expect(kept.walk({ reached, seen: bothAtRest(reached) }).ahead(2), `from row ${reached}`).toEqual(fresh.ahead(2));
+    }
+  });
+
   it('says plainly when no single fault explains the sights, with the suspects that fitted before', () => {
     // Rows 0 to 5 as above (two suspects), then at row 6 o22 lifted but o23 at rest: neither fits.
     const sights = bothAtRest(6).set(6, [{ at: O23, value: 0 }]);
