@@ -188,8 +188,12 @@ export class ShakedownController implements ReactiveController {
     if (mine !== this.asked) return;
     this.busy = false;
     this.problem = e instanceof Error ? e.message : String(e);
-    // Asked before the build was checked: ask again once it is.
-    this.rev = undefined;
     this.host.requestUpdate();
+  }
+
+  /** Ask again after a failure (the view's Try again): the sheet, then the walk kept for it. */
+  retry(): void {
+    this.rev = undefined;
+    this.follow();
   }
 }

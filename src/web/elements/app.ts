@@ -438,6 +438,7 @@ export class LwApp extends LitElement {
         else if (d.do === 'next') w.next();
         else if (d.do === 'back') w.back();
         else if (d.do === 'restart') w.restart();
+        else if (d.do === 'retry') w.retry();
       }}
     ></lw-shakedown>`;
   }

@@ -5,7 +5,7 @@
  * row (as the sheet, or as marked); then the cords that explain everything seen so far, listed
  * with their bays and what to check, lit on the frame drawing (frame/drawn.ts `lightAll`), and
  * the steps ahead that tell them apart. The walk is held by controllers/shakedown.ts.
- * Events: `walk` ({ do: 'mark', at } | { do: 'next' | 'back' | 'restart' }).
+ * Events: `walk` ({ do: 'mark', at } | { do: 'next' | 'back' | 'restart' | 'retry' }).
  */
 import { LitElement, html, nothing } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
@@ -75,11 +75,14 @@ export class LwShakedown extends LitElement {
 
   override render() {
     const sheet = this.sheet;
+    if (!sheet && this.problem)
+      return html`<p class="bad" role="status">The commissioning sheet could not be made: ${this.problem}.</p>
+        <button data-do="walk-retry" @click=${() => emit(this, 'walk', { do: 'retry' })}>Try again</button>`;
     if (!sheet)
       return html`<p class="soft" role="status">
         ${
-          this.problem
-            ? `The shakedown waits for the build: ${this.problem}.`
+          this.busy
+            ? 'Making the commissioning sheet and simulating its cords (a few seconds for a large build)…'
             : 'The commissioning sheet comes once the machine is built and checked…'
         }
       </p>`;
@@ -226,7 +229,7 @@ export class LwShakedown extends LitElement {
     if (n.ahead.length === 0)
       return n.alike.length > 0
         ? html`<p class="soft">
-            No step left on the sheet tells these apart: check each of ${n.alike.flat().join(', ')}.
+            No step left on the sheet tells these apart: check each of ${n.alike.flat().map(faultShort).join(', ')}.
           </p>`
         : nothing;
     return html`<h3>To tell them apart</h3>
