@@ -51,9 +51,10 @@ Usage:
   latchwright demo
       Build and check the bundled demo machine and print its report.
   latchwright write BEHAVIOUR [--OPTION VALUE …] [--json]
-      Write the machine of a behaviour (${BEHAVIOURS.map((b) => b.name).join(', ')}) in the
-      text form on standard output (the JSON form with --json), ready for check,
-      build or step. \`latchwright write --help\` lists each behaviour's options.
+      Write the machine of a behaviour in the text form on standard output (the
+      JSON form with --json), ready for check, build or step. Behaviours:
+      ${BEHAVIOURS.map((b) => b.name).join(', ')}.
+      \`latchwright write --help\` lists each behaviour's options.
 
 Encodings (--encoding NAME, default ${DEFAULT_ENCODING}):
 ${encodingLines()}

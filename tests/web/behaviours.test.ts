@@ -3,7 +3,7 @@
  * behaviour…" panel, worked from the keyboard, writes a sequence lock whose sentence and text
  * are the core's own (writeBehaviour run in Node on the same fields), puts it on the bench
  * keeping the earlier machine, and the page then sketches it and builds it with every check
- * passing. On a phone nothing of the panel sticks out of the screen; in the dark theme it
+ * passing. Every field shows its value whichever behaviour was picked before. On a phone nothing of the panel sticks out of the screen; in the dark theme it
  * takes the theme's colours.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -72,6 +72,25 @@ describe('src/web behaviour panel (end to end in chromium)', () => {
     await expect(page.locator('lw-diagram g.node[data-state="open"]').count()).resolves.toBe(1);
     await page.getByRole('button', { name: 'Bring back the earlier machine' }).click();
     await expect(page.locator('lw-editor textarea').inputValue()).resolves.toBe(before);
+    await page.context().close();
+  });
+
+  it('shows each field its value whichever behaviour was picked before (a number field turning into a text one keeps the text)', async () => {
+    const page = await openPage(await designer.context(DESKTOP), designer.url);
+    await built(page);
+    await openPanel(page);
+    const pick = panel(page).locator('select').first();
+    for (const from of BEHAVIOURS)
+      for (const to of BEHAVIOURS.filter((b) => b !== from)) {
+        await pick.selectOption(from.name);
+        await pick.selectOption(to.name);
+        // A field not typed in shows its example; an optional one starts empty.
+        for (const f of to.fields.filter((x) => !x.choices))
+          await expect(
+            panel(page).locator(`#field-${f.key}`).inputValue(),
+            `${from.name} → ${to.name}: ${f.key}`,
+          ).resolves.toBe(f.optional ? '' : f.example);
+      }
     await page.context().close();
   });
 

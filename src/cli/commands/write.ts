@@ -39,7 +39,9 @@ export function writeUsage(): string {
         ? 'N'
         : f.kind === 'names'
           ? 'A,B,…'
-          : 'NAME';
+          : f.kind === 'steps'
+            ? 'A+B,C,0,…'
+            : 'NAME';
   for (const b of BEHAVIOURS) {
     lines.push(`  ${b.name}: ${b.summary}`);
     const opts = b.fields.map((f) => `--${f.key} ${valueOf(f)}`);

@@ -11,8 +11,11 @@ import { diag, printable, type Diagnostic } from '../model/diagnostics.js';
 import { NAME_MAX } from '../model/limits.js';
 import { ownValue } from '../model/records.js';
 
-/** How a field's value is written: one name, a list of names, a whole number, or one of a few words. */
-export type FieldKind = 'name' | 'names' | 'count' | 'choice';
+/**
+ * How a field's value is written: one name, a list of names, a whole number, one of a few
+ * words, or a list of steps (each the names that show at once joined by `+`, or `0`).
+ */
+export type FieldKind = 'name' | 'names' | 'count' | 'choice' | 'steps';
 
 /** One parameter of a behaviour. Its key is also its command-line option (`--key`). */
 export interface Field {
@@ -128,10 +131,8 @@ export class FieldReader {
    * than once (an order of presses); otherwise a repeat is LW803.
    */
   names(key: string, repeats = false): string[] | undefined {
-    const f = this.field(key);
-    const v = this.raw(key);
-    const list = v === undefined ? [] : v.split(/[\s,]+/).filter((s) => s !== '');
-    if (list.length === 0) return f.optional ? [] : this.missing(f);
+    const list = this.words(key);
+    if (list === undefined || list.length === 0) return list;
     if (!list.every((n) => this.goodName(key, n))) return undefined;
     if (!repeats) {
       const twice = list.find((n, i) => list.indexOf(n) !== i);
@@ -142,6 +143,14 @@ export class FieldReader {
         return undefined;
       }
     }
+    return list;
+  }
+
+  /** The words of a list (separated by commas or spaces), unchecked, or undefined (LW802 unless optional). */
+  words(key: string): string[] | undefined {
+    const f = this.field(key);
+    const list = (this.raw(key) ?? '').split(/[\s,]+/).filter((s) => s !== '');
+    if (list.length === 0) return f.optional ? [] : this.missing(f);
     return list;
   }
 
@@ -187,12 +196,12 @@ export class FieldReader {
     return undefined;
   }
 
-  /** LW800 for a list of `n` names when the field's bounds do not take that many. */
-  countOf(key: string, n: number): void {
+  /** LW800 for a list of `n` names when the field's bounds do not take that many; whether they do. */
+  countOf(key: string, n: number): boolean {
     const f = this.field(key);
     const min = f.min ?? 1;
     const max = f.max ?? n;
-    if (n >= min && n <= max) return;
+    if (n >= min && n <= max) return true;
     this.diagnostics.push(
       diag(
         'LW800',
@@ -201,6 +210,7 @@ export class FieldReader {
         `name from ${min} to ${max}`,
       ),
     );
+    return false;
   }
 
   /** The machine's name: the field `name` when given (letters, digits, _ and -), else `fallback`. */

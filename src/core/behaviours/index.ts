@@ -10,6 +10,8 @@
 import { diag, didYouMean } from '../model/diagnostics.js';
 import { COLLECT_FIELDS, writeCollect } from './collect.js';
 import { COUNTING_FIELDS, writeCounting } from './counting.js';
+import { CYCLE_FIELDS, writeCycle } from './cycle.js';
+import { DELAY_FIELDS, writeDelay } from './delay.js';
 import type { Field, FieldValues, Written } from './fields.js';
 import { HOLD_FIELDS, writeHold } from './hold.js';
 import { SEQUENCE_FIELDS, writeSequence } from './sequence.js';
@@ -18,10 +20,12 @@ import { TOGGLE_FIELDS, writeToggle } from './toggle.js';
 export type { Field, FieldKind, FieldValues, Written } from './fields.js';
 export { COLLECT_MAX } from './collect.js';
 export { COUNT_MAX } from './counting.js';
+export { CYCLE_MAX, CYCLE_OUTPUTS_MAX } from './cycle.js';
+export { DELAY_MAX } from './delay.js';
 export { HOLD_MAX } from './hold.js';
 export { failureFunction, nextPrefix, ORDER_MAX, PRESS_INPUTS_MAX } from './sequence.js';
 
-export type BehaviourName = 'counting' | 'sequence' | 'hold' | 'toggle' | 'collect';
+export type BehaviourName = 'counting' | 'sequence' | 'hold' | 'toggle' | 'collect' | 'cycle' | 'delay';
 
 export interface BehaviourEntry {
   readonly name: BehaviourName;
@@ -64,6 +68,19 @@ export const BEHAVIOURS: readonly BehaviourEntry[] = [
     summary: 'an output once each of several inputs has been pulled, in any order',
     fields: COLLECT_FIELDS,
   },
+  {
+    name: 'cycle',
+    label: 'Steps in turn',
+    summary:
+      'a list of steps (the outputs that show at each) taken in turn, round and round, every clock or on each pull of an input',
+    fields: CYCLE_FIELDS,
+  },
+  {
+    name: 'delay',
+    label: 'K clocks later',
+    summary: 'an output that repeats an input K clocks later',
+    fields: DELAY_FIELDS,
+  },
 ];
 
 /** What writes each behaviour's machine. */
@@ -73,6 +90,8 @@ export const BEHAVIOUR_WRITERS: Readonly<Record<BehaviourName, (values: FieldVal
   hold: writeHold,
   toggle: writeToggle,
   collect: writeCollect,
+  cycle: writeCycle,
+  delay: writeDelay,
 };
 
 /** The registry's entry of a behaviour named by the user, or undefined. */

@@ -328,8 +328,9 @@ export const DIAGNOSTIC_CODES = {
   },
   LW805: {
     severity: 'error',
-    cause: 'The order of a sequence presses a lever that is not among the levers it was given.',
-    fix: 'Add the lever to the list of levers, or leave the list out (it then holds the levers the order names).',
+    cause:
+      "A behaviour's list does not fit the names it was given: the order of a sequence presses a lever that is not among its levers, or a step of a cycle shows an output not among its outputs, or an output that shows at no step or at every step (it would never move).",
+    fix: 'Add the name to the list of levers or outputs (a sequence may leave its list out: it then holds the levers the order names), or show each output at some steps and not at others.',
   },
   LW900: {
     severity: 'error',

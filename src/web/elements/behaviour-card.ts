@@ -1,6 +1,6 @@
 /**
  * <lw-behaviour-card>: start from a behaviour. Pick one (every Nth pulse, presses in order,
- * held for K clocks, press to flip), fill its few fields, read the sentence it stands for and
+ * held for K clocks, press to flip, all seen, steps in turn, K clocks later), fill its few fields, read the sentence it stands for and
  * the machine text it will write, and put that on the bench. A modal dialog like the notation
  * card: Escape or the close button shuts it. The draft lives in controllers/behaviour-draft.ts;
  * the text is written by the core's behaviours (src/core/behaviours).
@@ -126,12 +126,14 @@ export class LwBehaviourCard extends DialogCard {
       ? html`<select id=${id} @change=${set} title=${f.help}>
           ${f.choices.map((c) => html`<option value=${c.value} ?selected=${c.value === value}>${c.label}</option>`)}
         </select>`
-      : html`<input
+      : // The type before the value: the input may be the one the previous behaviour's field at this
+        // place had, and a number input refuses a text value (red,red+amber) set before it turns text.
+        html`<input
           id=${id}
-          .value=${value}
           type=${f.kind === 'count' ? 'number' : 'text'}
           min=${f.min ?? nothing}
           max=${f.max ?? nothing}
+          .value=${value}
           spellcheck="false"
           autocapitalize="off"
           placeholder=${f.optional ? `e.g. ${f.example}` : nothing}

@@ -31,7 +31,11 @@ describe('core/behaviours/index', () => {
     expect(w.ok).toBe(false);
     if (!w.ok)
       expect(w.diagnostics.map((d) => [d.code, d.location.path, d.hint])).toEqual([
-        ['LW804', 'behaviour', 'did you mean toggle? behaviours: counting, sequence, hold, toggle, collect'],
+        [
+          'LW804',
+          'behaviour',
+          'did you mean toggle? behaviours: counting, sequence, hold, toggle, collect, cycle, delay',
+        ],
       ]);
   });
 

@@ -115,3 +115,25 @@ export function collectReference(
     return shown;
   });
 }
+
+/** Cycle: the step reached by moving on each clock (or each clock the advance input is pulled), back to the first on a restart clock. */
+export function cycleReference(
+  clocks: readonly Clock[],
+  p: { outputs: readonly string[]; steps: readonly (readonly string[])[]; advance?: string; restart?: string },
+): Shown[] {
+  let at = 0;
+  return clocks.map((c) => {
+    const shown: Shown = Object.fromEntries(p.outputs.map((o) => [o, p.steps[at].includes(o) ? 1 : 0]));
+    if (p.restart && c[p.restart]) at = 0;
+    else if (!p.advance || c[p.advance]) at = (at + 1) % p.steps.length;
+    return shown;
+  });
+}
+
+/** Delay: the input as it was K clocks before (not pulled before the first clock). */
+export function delayReference(
+  clocks: readonly Clock[],
+  p: { input: string; clocks: number; output: string },
+): Shown[] {
+  return clocks.map((_, i) => ({ [p.output]: i >= p.clocks && clocks[i - p.clocks][p.input] ? 1 : 0 }));
+}
