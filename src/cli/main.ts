@@ -26,13 +26,15 @@ Usage:
   latchwright build FILE [--encoding NAME] [--profile FILE] [--seed N]
                          [--unused dont-care|STATE] [--pin PART=BAY[@DRUM] …]
                          [--shop-units metric|inch] [--json] [--out DIR [--force]]
-                         [--saw STEP:WHAT=POSITION]
+                         [--saw STEP:WHAT=POSITION …]
       Synthesise the lever machine, place every part in a bay along the drum,
       route every cord, run every check, print the report (or the build
       documents into DIR: sheets, frame drawing, cam templates, cut list …).
       --saw names the cords to look at when step STEP of the commissioning
       sheet did not match: --saw 14:s0-set-Z=up (the column's name, dashes
-      for spaces).
+      for spaces). Give it once for every lever that differed, at one step or
+      at several: the cords that explain all of it, and the steps ahead that
+      tell them apart (steps before the first one named count as the sheet).
       --pin keeps a part in a bay, counted from 1 at the visitor end of drum 1
       (or of drum DRUM): --pin rst=22 --pin m0=5@2; several may be given, or
       joined with commas. Part ids are in netlist.json; a latch id pins its
@@ -65,9 +67,9 @@ function encodingLines(): string {
 }
 
 const SPEC = {
-  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out', 'shop-units', 'saw'],
+  values: ['encoding', 'profile', 'seed', 'unused', 'inputs', 'out', 'shop-units'],
   switches: ['json', 'force', 'abstract', 'help', 'version'],
-  lists: ['pin'],
+  lists: ['pin', 'saw'],
 };
 
 export async function main(argv: readonly string[], io: CliIo = nodeIo()): Promise<number> {

@@ -34,6 +34,7 @@ import {
 } from './worker/jobs.js';
 import { searchOnTwoCores } from './worker/search.js';
 import { exportFile } from './worker/exports.js';
+import { walkJob } from './worker/walk.js';
 import { profileFileText } from './worker/profile-file.js';
 import type {
   BuildView,
@@ -234,9 +235,20 @@ function exportDocument(m: Extract<ToWorker, { kind: 'export' }>): void {
     });
 }
 
+/** The shakedown walk on the build checked last, or why not. */
+function walk(m: Extract<ToWorker, { kind: 'walk' }>): void {
+  if (!checked || checked.rev !== m.rev)
+    post({ kind: 'walked', rev: m.rev, ask: m.ask, problem: 'the build is not checked yet' });
+  else post({ kind: 'walked', rev: m.rev, ask: m.ask, walk: walkJob(checked.built, m.reached, m.sights, m.sheet) });
+}
+
 async function run(m: ToWorker): Promise<void> {
   if (m.kind === 'export') {
     exportDocument(m);
+    return;
+  }
+  if (m.kind === 'walk') {
+    walk(m);
     return;
   }
   latest[m.kind] = m.rev;
@@ -316,6 +328,7 @@ scope.onmessage = (e) => {
   const m = e.data;
   run(m).catch((err: unknown) => {
     if (m.kind === 'export') post({ kind: 'exported', rev: m.rev, doc: m.doc, problem: message(err) });
+    else if (m.kind === 'walk') post({ kind: 'walked', rev: m.rev, ask: m.ask, problem: message(err) });
     else post({ kind: 'fault', rev: m.rev, message: message(err) });
   });
 };

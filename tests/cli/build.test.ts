@@ -500,6 +500,62 @@ describe('cli/commands/build --saw', () => {
     expectNoStack(t);
   });
 
+  // Several sights narrow the suspects: effect–cause diagnosis over every row walked (Abramovici,
+  // Breuer & Friedman, 1990, ch. 12 — from memory). The second sight is the one the first answer
+  // proposes (a step ahead and one of its outcomes); the cords left must be among those that
+  // outcome leaves, and fewer than the first sight alone leaves (tests/core/export/cord-narrowing
+  // holds every suspect to the surgery reference).
+  it('narrows the cords with several sights at several steps', async () => {
+    interface Outcome {
+      sights: { what: string; seen: string }[];
+      unsettled: string[];
+      asSheet: boolean;
+      leaves: string[];
+    }
+    interface Answer {
+      saw: {
+        cords: { cord: string }[];
+        narrowed: { suspects: { fault: { key: string } }[]; ahead: { step: number; outcomes: Outcome[] }[] };
+      };
+    }
+    const first = ['--saw', '1:s0 set Z=down', '--saw', '1:s0-reset-Z=up'];
+    const one = await runJson<Answer>(['build', LOCK, '--encoding', 'binary', '--json', ...first]);
+    expect(one.code).toBe(0);
+    const before = one.json.saw.narrowed.suspects.map((s) => s.fault.key);
+    expect(before.length).toBeGreaterThanOrEqual(2);
+    const ahead = one.json.saw.narrowed.ahead[0];
+    expect(ahead).toBeDefined();
+    const pick = ahead.outcomes.find((o) => !o.asSheet && o.unsettled.length === 0 && o.leaves.length < before.length);
+    expect(pick).toBeDefined();
+    if (!pick) return;
+    const more = pick.sights.flatMap((s) => ['--saw', `${ahead.step}:${s.what}=${s.seen.replace(/ \(.*$/, '')}`]);
+    const two = await runJson<Answer>(['build', LOCK, '--encoding', 'binary', '--json', ...first, ...more]);
+    expect(two.code).toBe(0);
+    const after = two.json.saw.narrowed.suspects.map((s) => s.fault.key);
+    expect(after.length).toBeGreaterThan(0);
+    expect(after.length).toBeLessThan(before.length);
+    for (const k of after) expect(pick.leaves).toContain(k);
+    const t = await run(['build', LOCK, '--encoding', 'binary', ...first, ...more]);
+    expect(t.out).toContain(
+      `at step 1 you saw s0 set Z down; at step 1 you saw s0 reset Z up; at step ${ahead.step} you saw `,
+    );
+    expect(t.out).toContain('stop the drum');
+    expectNoStack(t);
+    // One lever named of the two that differed at step 1: the answer takes only what was named, and says so.
+    const half = await runJson<Answer>(['build', LOCK, '--encoding', 'binary', '--json', '--saw', '1:s0 set Z=down']);
+    expect(half.json.saw.cords.length).toBeGreaterThan(0);
+    const said = await run(['build', LOCK, '--encoding', 'binary', '--saw', '1:s0 set Z=down']);
+    expect(said.out).toContain('this answer takes only what you named');
+  });
+
+  it('refuses a position a column cannot have', async () => {
+    const t = await run(['build', LOCK, '--encoding', 'binary', '--saw', '1:s0 set Z=sideways']);
+    expect(t.code).toBe(2);
+    expect(t.err).toContain('LW700');
+    expect(t.err).toContain("'sideways' is no position of s0 set Z: write up or down");
+    expectNoStack(t);
+  });
+
   it('refuses a question it cannot read with LW700 and a hint, never a stack', async () => {
     for (const [saw, words] of [
       ['s0 set Z up', 'is not STEP:WHAT=POSITION'],

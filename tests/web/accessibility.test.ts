@@ -3,7 +3,8 @@
  * independent checker: axe-core (Deque Systems, MPL-2.0), its rules for WCAG 2.0, 2.1 and 2.2
  * levels A and AA (W3C Recommendations; among them 1.4.3 contrast of text at least 4.5:1,
  * 2.5.3 a control's visible label part of its accessible name, 4.1.2 every control named),
- * run in Chromium on every view of the page in the light and the dark theme, on a phone, with
+ * run in Chromium on every view of the page in the light and the dark theme (the shakedown with
+ * a value marked seen the other way, so its findings show), on a phone, with
  * the notation card open, the behaviour panel open, with a text that does not read, and on the build sheet, the
  * bring-up sheet and the commissioning sheet.
  *
@@ -23,7 +24,7 @@ import { built, DESKTOP, openPage, PHONE, settled, startDesigner, type Designer 
 
 const AXE = createRequire(import.meta.url).resolve('axe-core/axe.min.js');
 const TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
-const VIEWS = ['Sketch', 'Ledger', 'Code book', 'Parts & forces', 'Frame & cords', 'Trial run', 'Shop'];
+const VIEWS = ['Sketch', 'Ledger', 'Code book', 'Parts & forces', 'Frame & cords', 'Trial run', 'Shakedown', 'Shop'];
 
 let designer: Designer;
 
@@ -73,6 +74,13 @@ describe('the designer and its documents against WCAG 2.2 A/AA (axe-core, in chr
         await expect(page.getByRole('tab', { name: view }).getAttribute('aria-selected')).resolves.toBe('true');
         if (view === 'Frame & cords') await page.locator('lw-frame .sheet svg').waitFor();
         if (view === 'Parts & forces') await page.locator('lw-parts .sheet svg').waitFor({ timeout: 60_000 });
+        if (view === 'Shakedown') {
+          // A step ticked as the sheet, then one with a value seen the other way: the suspects and the frame lit.
+          await page.locator('lw-shakedown [data-do="walk-next"]').click({ timeout: 60_000 });
+          await page.locator('lw-shakedown [data-mark="0"]').click();
+          await page.locator('lw-shakedown [data-do="walk-next"]').click();
+          await page.locator('lw-shakedown .findings[data-verdict]:not([data-verdict="fine"])').waitFor();
+        }
         found.push(...(await violations(page)).map((v) => `${view}: ${v}`));
       }
       expect(found).toEqual([]);

@@ -128,7 +128,11 @@ describe('src/web (a large machine, in chromium)', () => {
       } else if (v.id === 'frame') {
         await page.locator('lw-frame .sheet svg').waitFor();
         drawn[v.id] = await page.locator('lw-frame path.cord[data-cord]').count();
-      } else drawn[v.id] = await page.locator('lw-stepper button[data-do="clock"]').count();
+      } else if (v.id === 'shakedown') {
+        // planet's sheet is long: its cords are walked as a seeded sample, and the view says so.
+        await page.locator('lw-shakedown [data-walk-sample]').waitFor({ timeout: 120_000 });
+        drawn[v.id] = await page.locator('lw-shakedown [data-mark]').count();
+      } else if (v.id === 'trial') drawn[v.id] = await page.locator('lw-stepper button[data-do="clock"]').count();
     }
     expect(drawn.sketch).toBe(STATES);
     expect(drawn.ledger).toBeGreaterThanOrEqual(STATES);
@@ -136,6 +140,8 @@ describe('src/web (a large machine, in chromium)', () => {
     expect(drawn.parts).toBeGreaterThan(0);
     expect(drawn.frame).toBe(ref.placement.routing.branches.length);
     expect(drawn.trial).toBe(1);
+    // One button per value the sheet ticks: two Z levers per latch and one per output.
+    expect(drawn.shakedown).toBe(2 * ref.build.parts.latches + ref.build.machine.outputs.length);
     // The schematic is the one the tool draws of the same build (stage columns past 300 parts).
     const viewBox = /viewBox="([^"]+)"/.exec(schematicSvg(ref.build, undefined, { palette: 'screen' }))?.[1];
     await tab('parts');

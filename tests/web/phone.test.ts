@@ -41,7 +41,16 @@ describe('src/web on a phone (end to end in chromium)', () => {
   });
 
   it('lets nothing overflow in any view; tables scroll in their own boxes', async () => {
-    for (const view of ['Sketch', 'Ledger', 'Code book', 'Parts & forces', 'Frame & cords', 'Trial run', 'Shop']) {
+    for (const view of [
+      'Sketch',
+      'Ledger',
+      'Code book',
+      'Parts & forces',
+      'Frame & cords',
+      'Trial run',
+      'Shakedown',
+      'Shop',
+    ]) {
       await tab(view);
       if (view === 'Code book') {
         await page.getByRole('button', { name: 'Price every encoding' }).click();
@@ -56,6 +65,11 @@ describe('src/web on a phone (end to end in chromium)', () => {
       if (view === 'Frame & cords') await page.locator('lw-frame .sheet svg').waitFor();
       if (view === 'Trial run')
         for (let i = 0; i < 12; i++) await page.locator('lw-stepper button[data-do="clock"]').click();
+      if (view === 'Shakedown') {
+        await page.locator('lw-shakedown [data-mark="0"]').click({ timeout: 60_000 });
+        await page.locator('lw-shakedown [data-do="walk-next"]').click();
+        await page.locator('lw-shakedown .findings[data-verdict]:not([data-verdict="fine"])').waitFor();
+      }
       expect(await overflowing(page), view).toEqual([]);
     }
     await shot(page, 'phone-trial', true);

@@ -36,6 +36,8 @@ const BAD: Readonly<Record<KeptKey, string>> = {
   written: '<script>',
   // A place with one coordinate: not a point of the sketch.
   places: '[{"machine": "odd_one_out", "at": {"idle": [12]}}]',
+  // A walk that ticked minus one steps.
+  shakedown: '[{"machine": "odd_one_out", "print": "00000000", "reached": -1, "sights": []}]',
 };
 
 beforeAll(async () => {

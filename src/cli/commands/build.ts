@@ -36,7 +36,8 @@ export async function runBuild(args: ParsedArgs, ctx: RunContext): Promise<numbe
     notes.push(...w.notes);
     if (!ctx.json) ctx.io.out(`wrote ${w.files.length} files to ${args.flags.out}: ${w.files.join(', ')}\n`);
   }
-  const saw = typeof args.flags.saw === 'string' ? sawAnswer(args.flags.saw, sources) : undefined;
+  const sights = args.lists.saw ?? [];
+  const saw = sights.length > 0 ? sawAnswer(sights, sources) : undefined;
   if (saw && 'code' in saw) {
     ctx.fail([...r.diagnostics, saw]);
     return EXIT.badInput;

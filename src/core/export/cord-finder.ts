@@ -65,7 +65,7 @@ export interface CordFinder {
 }
 
 /** Words for cords and their faults, from the netlist and the placement. */
-function cordWording(build: Build, placement: Pick<Placement, 'bays'> | undefined) {
+export function cordWording(build: Build, placement: Pick<Placement, 'bays'> | undefined) {
   const parts = partIndex(build.netlist);
   const where = bayWords(placement);
   const at = (id: string): string => (where(id) === '' ? '' : ` (${where(id)})`);

@@ -65,6 +65,23 @@ export {
   type Sight,
 } from './cord-finder.js';
 export {
+  CordNarrowing,
+  expectedAt,
+  faultShort,
+  lookColumns,
+  narrowedText,
+  NONE_WORDS,
+  positionWords,
+  valueOfWords,
+  valuesAt,
+  type AheadOutcome,
+  type AheadRow,
+  type LookColumn,
+  type Narrowed,
+  type StepSight,
+  type SuspectCord,
+} from './cord-narrowing.js';
+export {
   coverageBlock,
   coverageLine,
   coverageOf,

@@ -25,6 +25,7 @@ export const KEPT_ENTRIES = {
   profile: "the workshop's technology profile",
   pins: 'the parts kept in a bay',
   places: 'where states were moved in the sketch',
+  shakedown: 'how far the commissioning sheet was walked, and what was seen',
   written: "the page's own links",
 } as const;
 

@@ -23,7 +23,7 @@ export class Lane {
 
   send(m: ToWorker): void {
     this.ensure().postMessage(m);
-    if (m.kind !== 'export') this.busy = { rev: m.rev, since: performance.now() };
+    if (m.kind !== 'export' && m.kind !== 'walk') this.busy = { rev: m.rev, since: performance.now() };
   }
 
   /**
@@ -52,7 +52,14 @@ export class Lane {
       const m = e.data;
       this.heard = performance.now();
       // A draft is followed by its final build: the job is not done yet.
-      if (this.busy && m.kind !== 'progress' && m.kind !== 'exported' && m.kind !== 'draft' && m.rev >= this.busy.rev)
+      if (
+        this.busy &&
+        m.kind !== 'progress' &&
+        m.kind !== 'exported' &&
+        m.kind !== 'walked' &&
+        m.kind !== 'draft' &&
+        m.rev >= this.busy.rev
+      )
         this.busy = undefined;
       this.answer(m);
     };

@@ -15,7 +15,7 @@
  * nor exported — and the final build when the search ends.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import { encodingEntry, type Diagnostic, type Pin } from '../../core/index.js';
+import { encodingEntry, type Diagnostic, type Pin, type StepSight } from '../../core/index.js';
 import {
   DEFAULT_SETTINGS,
   type BuildSettings,
@@ -25,6 +25,7 @@ import {
   type DroppedSetting,
   type EncodingChoice,
   type ExportFile,
+  type WalkView,
   type FromWorker,
   type ProfileSetting,
   type Reading,
@@ -186,6 +187,9 @@ export class SynthesisController implements ReactiveController {
   private sentBuild: { readonly text: string; readonly settings: BuildSettings } | undefined;
   private drawn = -1;
   private readonly exports = new Map<string, (f: ExportFile | string) => void>();
+  /** Walks asked of the checker and not yet answered, by ask number. */
+  private readonly walks = new Map<number, (w: WalkView | string) => void>();
+  private asks = 0;
 
   constructor(
     private readonly host: ReactiveControllerHost,
@@ -394,6 +398,28 @@ export class SynthesisController implements ReactiveController {
     });
   }
 
+  /**
+   * The shakedown walk on the latest checked build (the checker holds it): steps 1 … `reached`
+   * ticked with `sights` seen differ; `sheet` asks for the commissioning sheet too. Rejected when
+   * there is no checked build, or a newer build replaced it before the answer.
+   */
+  walk(reached: number, sights: readonly StepSight[], sheet: boolean): Promise<WalkView> {
+    return new Promise((resolve, reject) => {
+      if (this.work !== Work.done || this.provisional) {
+        reject(new Error('the build and its checks are not finished yet'));
+        return;
+      }
+      const ask = ++this.asks;
+      this.walks.set(ask, (w) => (typeof w === 'string' ? reject(new Error(w)) : resolve(w)));
+      this.checker.send({ kind: 'walk', rev: this.rev, ask, reached, sights: [...sights], sheet });
+    });
+  }
+
+  /** The build the walk is of: its revision, while it is checked and final (undefined otherwise). */
+  get walkable(): number | undefined {
+    return this.work === Work.done && !this.provisional ? this.rev : undefined;
+  }
+
   private fromReader(m: FromWorker): void {
     if (m.rev !== this.rev) return;
     if (m.kind === 'reading') {
@@ -479,6 +505,11 @@ export class SynthesisController implements ReactiveController {
   }
 
   private fromChecker(m: FromWorker): void {
+    if (m.kind === 'walked') {
+      this.walks.get(m.ask)?.(m.walk ?? m.problem ?? 'no answer');
+      this.walks.delete(m.ask);
+      return;
+    }
     if (m.kind === 'exported') {
       const key = `${m.rev}:${m.doc}`;
       this.exports.get(key)?.(m.file ?? m.problem ?? 'no document');

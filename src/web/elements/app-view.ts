@@ -24,6 +24,7 @@ export const VIEWS = [
   { id: 'parts', label: 'Parts & forces' },
   { id: 'frame', label: 'Frame & cords' },
   { id: 'trial', label: 'Trial run' },
+  { id: 'shakedown', label: 'Shakedown' },
   { id: 'workshop', label: 'Shop' },
 ] as const;
 

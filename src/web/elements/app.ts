@@ -1,6 +1,6 @@
 /**
  * <lw-app>: the designer's shell. The bench (the text) on the left; on the right the view
- * chosen from the tabs — sketch, ledger, code book, parts & forces, frame & cords, trial run, shop (VIEWS in
+ * chosen from the tabs — sketch, ledger, code book, parts & forces, frame & cords, trial run, shakedown, shop (VIEWS in
  * app-view.ts, each drawn by its entry in `views` below). It owns the controllers and routes
  * the elements' events to them; it holds no state of its own beyond which view is showing and
  * what it keeps drawn of the views that are not (KEPT_VIEWS).
@@ -9,6 +9,7 @@ import { LitElement, html, nothing } from 'lit';
 import { SourceController } from '../controllers/source.js';
 import { SynthesisController, Work, codesAreDefault } from '../controllers/synthesis.js';
 import { StepperController } from '../controllers/stepper.js';
+import { ShakedownController } from '../controllers/shakedown.js';
 import { ThemeController } from '../controllers/theme.js';
 import { applyEdit, type TextEdit } from '../controllers/table-edit.js';
 import { download, type SaveForm } from '../controllers/files.js';
@@ -47,6 +48,7 @@ import './notation-card.js';
 import './behaviour-card.js';
 import './frame-view.js';
 import './workshop.js';
+import './shakedown.js';
 
 type Detail<T> = CustomEvent<T>;
 
@@ -74,6 +76,8 @@ export class LwApp extends LitElement {
     dropped: (ds) => this.source.tell(`Settings changed for this machine: ${ds.map((d) => d.words).join('; ')}.`),
   });
   private readonly source = new SourceController(this, (text, file) => this.synth.submit(text, file));
+  /** The commissioning sheet walked at the frame (the Shakedown view). */
+  private readonly shakedown = new ShakedownController(this, this.synth);
   /** The workshop's own profile: the form's draft; the builds take each profile that loads without errors. */
   private readonly workshop = new WorkshopController(this, this.synth.settings.profile, (p) =>
     this.synth.setProfile(p),
@@ -126,6 +130,7 @@ export class LwApp extends LitElement {
     parts: () => this.partsView(),
     frame: () => this.frameView(),
     trial: () => this.trialView(),
+    shakedown: () => this.shakedownView(),
     workshop: () => this.workshopView(),
   };
 
@@ -252,6 +257,8 @@ export class LwApp extends LitElement {
     });
     // The schematic is drawn only when someone looks at it.
     if (this.view === 'parts') s.drawSchematic();
+    // The shakedown follows the checked build while it shows (its sheet is made in the checker).
+    if (this.view === 'shakedown') this.shakedown.follow();
   }
 
   /** The kept views shown so far, in a fixed order: the one showing drawn afresh, the others as they were left. */
@@ -414,6 +421,29 @@ export class LwApp extends LitElement {
             </p>`
           : nothing
       }`;
+  }
+
+  private shakedownView() {
+    const w = this.shakedown;
+    const b = this.synth.built;
+    return html`<lw-shakedown
+      .sheet=${w.sheet}
+      .reached=${w.reached}
+      .marked=${w.marked}
+      .narrowed=${w.narrowed}
+      ?busy=${w.busy}
+      .problem=${w.problem}
+      .drawing=${this.frameDrawings.of(b)}
+      .placement=${b?.placement}
+      @walk=${(e: Detail<{ do: string; at?: number }>) => {
+        const d = e.detail;
+        if (d.do === 'mark' && d.at !== undefined) w.mark(d.at);
+        else if (d.do === 'next') w.next();
+        else if (d.do === 'back') w.back();
+        else if (d.do === 'restart') w.restart();
+        else if (d.do === 'retry') w.retry();
+      }}
+    ></lw-shakedown>`;
   }
 
   private workshopView() {

@@ -141,11 +141,19 @@ export class DrawnFrame {
 
   /** Light branch `b` (none when undefined): its run, its whole path, and its capstan end and lever end. */
   light(b: BranchRoute | undefined): void {
+    this.lightAll(b ? [b] : []);
+  }
+
+  /** Light every branch of `bs` at once (the shakedown's suspect cords), each as `light` lights one. */
+  lightAll(bs: readonly BranchRoute[]): void {
     for (const el of this.marked) el.classList.remove('lit', 'end', 'from', 'to');
     this.marked = [];
     this.copies.replaceChildren();
-    this.cordGroup?.classList.toggle('veiled', b !== undefined);
-    if (!b) return;
+    this.cordGroup?.classList.toggle('veiled', bs.length > 0);
+    for (const b of bs) this.mark(b);
+  }
+
+  private mark(b: BranchRoute): void {
     const k = branchKey(b.cord, b.target);
     const route = this.routes.get(k);
     for (const el of [...(this.cords.get(k) ?? []), ...(route ? [route] : [])]) {

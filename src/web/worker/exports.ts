@@ -22,6 +22,13 @@ import { ALL_DOCUMENTS, PRINT_SHEET, type ExportFile } from './protocol.js';
 const sources = new WeakMap<Built, DocumentSources>();
 const made = new WeakMap<Built, Map<string, string>>();
 
+/** The sources of a checked build's documents, made once (the documents and the shakedown walk share them). */
+export function sourcesFor(b: Built): DocumentSources {
+  let s = sources.get(b);
+  if (!s) sources.set(b, (s = documentSources(b)));
+  return s;
+}
+
 /** The text of one registered document of a checked build, made once. */
 function documentText(b: Built, file: string): string {
   const doc = documentByFile(file);
@@ -30,9 +37,7 @@ function documentText(b: Built, file: string): string {
   if (!docs) made.set(b, (docs = new Map<string, string>()));
   let text = docs.get(doc.file);
   if (text === undefined) {
-    let s = sources.get(b);
-    if (!s) sources.set(b, (s = documentSources(b)));
-    docs.set(doc.file, (text = DOCUMENT_MAKERS[doc.name](s)));
+    docs.set(doc.file, (text = DOCUMENT_MAKERS[doc.name](sourcesFor(b))));
   }
   return text;
 }

@@ -19,6 +19,9 @@ import {
   type EncodeStrategy,
   type Encoding,
   type GuardReport,
+  type LookColumn,
+  type Narrowed,
+  type StepSight,
   type Machine,
   type MachineForm,
   type OperatorForce,
@@ -237,7 +240,16 @@ export type ToWorker =
       readonly settings: BuildSettings;
     }
   | { readonly kind: 'draw'; readonly rev: number }
-  | { readonly kind: 'export'; readonly rev: number; readonly doc: string };
+  | { readonly kind: 'export'; readonly rev: number; readonly doc: string }
+  /** The shakedown walk of the checked build: steps 1 … reached ticked, with the values seen differ; `sheet` asks for the sheet too. */
+  | {
+      readonly kind: 'walk';
+      readonly rev: number;
+      readonly ask: number;
+      readonly reached: number;
+      readonly sights: readonly StepSight[];
+      readonly sheet: boolean;
+    };
 
 export type FromWorker =
   | { readonly kind: 'reading'; readonly rev: number; readonly reading: Reading }
@@ -263,4 +275,39 @@ export type FromWorker =
       readonly file?: ExportFile;
       readonly problem?: string;
     }
+  | {
+      readonly kind: 'walked';
+      readonly rev: number;
+      readonly ask: number;
+      readonly walk?: WalkView;
+      readonly problem?: string;
+    }
   | { readonly kind: 'fault'; readonly rev: number; readonly message: string };
+
+/** One row of the commissioning sheet as the shakedown shows it. */
+export interface WalkRow {
+  readonly step: number;
+  readonly clock: number;
+  readonly action: string;
+  /** Per column (WalkSheet.columns), the position the sheet gives, in words. */
+  readonly expected: readonly string[];
+  /** Per column, the value the sheet gives (0, 1, or 2: undetermined, the sheet's '?'). */
+  readonly values: readonly number[];
+}
+
+/** The commissioning sheet of a checked build, for the shakedown. */
+export interface WalkSheet {
+  /** The machine's name and a digest of the sheet and the netlist: the walk kept in storage is for this one only. */
+  readonly machine: string;
+  readonly print: string;
+  readonly columns: readonly LookColumn[];
+  readonly rows: readonly WalkRow[];
+  /** How much of the sheet's faults were walked (a seeded sample for a large build), in words. */
+  readonly coverage: string;
+}
+
+/** The answer to a walk: the sheet when asked for, and what the walk so far says. */
+export interface WalkView {
+  readonly sheet?: WalkSheet;
+  readonly narrowed: Narrowed;
+}

@@ -80,7 +80,7 @@ describe('core/export/bring-up-doc', () => {
 
   it('says plainly where a gate’s position is seen only at a later stage', () => {
     const md = buildDocuments(example('marble-bell.lw')).get('bring-up.md') ?? '';
-    expect(md).toMatch(/not seen within 24 hand actions here; seen only once stage \d+ is mounted \(after \d+[a-z]+\)/);
+    expect(md).toMatch(/not seen within 24 hand actions here; seen only once stage \d+ is mounted \(after \d+\.\d+\)/);
   });
 
   it('escapes the names a user gave', () => {
