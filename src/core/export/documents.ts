@@ -229,6 +229,17 @@ export const DOCUMENT_REGISTRY = [
 export type DocumentName = (typeof DOCUMENT_REGISTRY)[number]['name'];
 export type DocumentFile = (typeof DOCUMENT_REGISTRY)[number]['file'];
 
+/** What the commissioning sheet is made from, in the order both its writers (HTML, Markdown) take it. */
+const commissioningFrom = (d: DocumentSources): Parameters<typeof commissioningHtml> => [
+  d.input.build,
+  d.steps(),
+  d.tour(),
+  d.placement(),
+  d.drawings(),
+  { sheet: d.faults(), finder: d.finder() },
+  d.input.profile.documentUnits,
+];
+
 /** How each registered document is made, by name. */
 export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: DocumentSources) => string } = {
   'build-sheet-html': (d) => buildSheetHtml({ ...d.input, placement: d.placement() }, d.drawings()),
@@ -253,26 +264,8 @@ export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: Document
     ),
   schematic: (d) => d.drawings().schematic,
   'state-diagram': (d) => d.drawings().stateDiagram,
-  'commissioning-html': (d) =>
-    commissioningHtml(
-      d.input.build,
-      d.steps(),
-      d.tour(),
-      d.placement(),
-      d.drawings(),
-      { sheet: d.faults(), finder: d.finder() },
-      d.input.profile.documentUnits,
-    ),
-  'commissioning-md': (d) =>
-    commissioningMd(
-      d.input.build,
-      d.steps(),
-      d.tour(),
-      d.placement(),
-      d.drawings(),
-      { sheet: d.faults(), finder: d.finder() },
-      d.input.profile.documentUnits,
-    ),
+  'commissioning-html': (d) => commissioningHtml(...commissioningFrom(d)),
+  'commissioning-md': (d) => commissioningMd(...commissioningFrom(d)),
   'commissioning-csv': (d) => commissioningCsv(d.steps()),
   'cord-finder': (d) => cordFinderCsv(d.finder()),
   verilog: (d) => d.verilog().module,
