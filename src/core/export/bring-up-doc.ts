@@ -18,13 +18,12 @@ import { describeAction } from '../sim/hand.js';
 import { renderDocHtml } from './build-sheet-html.js';
 import { renderDocMd } from './build-sheet-md.js';
 import { CAUTIONS } from './build-sheet.js';
-import { bringUpPlan, branchId, GATES_PER_STAGE, type BringUpPlan, type BringUpStage } from './bring-up.js';
+import { branchId, GATES_PER_STAGE, type BringUpPlan, type BringUpStage } from './bring-up.js';
 import { SEARCH_ACTIONS, SEARCH_POSITIONS, type GateCheck, type Sighting, type Trial } from './bring-up-search.js';
 import { bayWords } from './commissioning.js';
 import { p, table, type Block, type Doc, type Section } from './doc.js';
 import { partWords } from './part-words.js';
-import { wiringRows, type WiringRow } from './wiring.js';
-import type { DocumentSources } from './documents.js';
+import type { WiringRow } from './wiring.js';
 
 /** The cautions of reaching into the frame while it is built, before those of every sheet. */
 export const BRING_UP_CAUTIONS: readonly string[] = [
@@ -258,18 +257,3 @@ export const bringUpHtml = (input: BringUpSheetInput): string => renderDocHtml(b
 
 /** The bring-up sheet in Markdown. */
 export const bringUpMd = (input: BringUpSheetInput): string => renderDocMd(bringUpDoc(input));
-
-const made = new WeakMap<DocumentSources, Doc>();
-
-/** The sheet of a build's document sources, made once for both its files. */
-export function bringUpSheet(d: DocumentSources): Doc {
-  let doc = made.get(d);
-  if (!doc) {
-    const { build, profile } = d.input;
-    const placement = d.placement();
-    const plan = bringUpPlan(build, profile);
-    doc = bringUpDoc({ build, plan, placement, profile, wiring: wiringRows(build.netlist, profile, placement) });
-    made.set(d, doc);
-  }
-  return doc;
-}

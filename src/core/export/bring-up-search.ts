@@ -36,7 +36,7 @@ import { faultInjector, type CordFault } from '../sim/faults.js';
 import { ruleBroken, type HandAction } from '../sim/hand.js';
 import { andOf } from '../sim/settle.js';
 import { applyInPlace, compilePart, isAlarm, powerUp, timingOf, X, type PartEvent, type PartSim } from '../sim/part.js';
-import { branchId, type Branch, type MountStage } from './bring-up.js';
+import { branchId, type Branch, type MountStage } from './bring-up-stages.js';
 
 /** The most hand actions in a check's sequence. */
 export const SEARCH_ACTIONS = 24;

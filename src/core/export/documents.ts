@@ -23,7 +23,8 @@ import { billOfMaterials } from '../physics/bom.js';
 import { bomCsv } from './bom-csv.js';
 import { buildSheetHtml, renderDocHtml } from './build-sheet-html.js';
 import { buildSheetMd, renderDocMd } from './build-sheet-md.js';
-import { bringUpSheet } from './bring-up-doc.js';
+import { bringUpDoc } from './bring-up-doc.js';
+import { bringUpPlan } from './bring-up.js';
 import type { DocumentsInput, Drawings } from './build-sheet.js';
 import { camsSvg } from './cams-svg.js';
 import { commissioningCsv, commissioningRows, type CommissioningRow } from './commissioning.js';
@@ -31,6 +32,7 @@ import { commissioningHtml, commissioningMd } from './commissioning-html.js';
 import { cordFinder, cordFinderCsv, type CordFinder } from './cord-finder.js';
 import { cutListCsv, cutListRows } from './cut-list.js';
 import { diagramSvg } from './diagram-svg.js';
+import type { Doc } from './doc.js';
 import { frameSvg } from './frame-svg.js';
 import { netlistJson } from './netlist-json.js';
 import { schematicSvg } from './schematic-svg.js';
@@ -60,6 +62,8 @@ export interface DocumentSources {
   steps(): readonly CommissioningRow[];
   /** The structural Verilog module and its testbench. */
   verilog(): VerilogFiles;
+  /** The bring-up in stages, as one document for both its files. */
+  bringUp(): Doc;
 }
 
 /** One entry of the documents registry (plain data; its maker is DOCUMENT_MAKERS[name]). */
@@ -250,8 +254,8 @@ export const DOCUMENT_MAKERS: { readonly [N in DocumentName]: (sources: Document
     bomCsv(billOfMaterials(d.input.build.netlist, d.input.profile, d.placement()), d.input.profile.documentUnits),
   'cut-list': (d) =>
     cutListCsv(cutListRows(d.input.build, d.placement(), d.input.profile), d.input.profile.documentUnits),
-  'bring-up-html': (d) => renderDocHtml(bringUpSheet(d)),
-  'bring-up-md': (d) => renderDocMd(bringUpSheet(d)),
+  'bring-up-html': (d) => renderDocHtml(d.bringUp()),
+  'bring-up-md': (d) => renderDocMd(d.bringUp()),
   netlist: (d) => netlistJson(d.input.build, { placement: d.placement(), profile: d.input.profile }),
   frame: (d) => d.drawings().frame,
   cams: (d) =>
@@ -299,7 +303,16 @@ export function documentSources(input: DocumentsInput): DocumentSources {
   const steps = once(() => commissioningRows(input.build, input.profile, tour(), placement()));
   const finder = once(() => cordFinder(input.build, steps(), faults(), placement()));
   const verilog = once(() => verilogFiles(input.build, input.profile, tour()));
-  return { input, placement, drawings, tour, faults, finder, steps, verilog };
+  const bringUp = once(() =>
+    bringUpDoc({
+      build: input.build,
+      plan: bringUpPlan(input.build, input.profile),
+      placement: placement(),
+      profile: input.profile,
+      wiring: wiringRows(input.build.netlist, input.profile, placement()),
+    }),
+  );
+  return { input, placement, drawings, tour, faults, finder, steps, verilog, bringUp };
 }
 
 /** Every build document: file name → content, in registry order. */
