@@ -17,6 +17,7 @@ import type { Build } from '../model/build.js';
 import { partIndex, type Cord, type Part } from '../model/netlist.js';
 import { counted } from '../model/words.js';
 import type { Placement } from '../phases/place/index.js';
+import { X } from '../sim/compile.js';
 import { tiesOf, type CordFault } from '../sim/faults.js';
 import { CAUTIONS } from './build-sheet.js';
 import { bayWords, showsWords, type CommissioningRow } from './commissioning.js';
@@ -100,25 +101,46 @@ export function cordWording(build: Build, placement: Pick<Placement, 'bays'> | u
   return { cordOf, trouble, alike };
 }
 
-/** What differs at a look position, in the sheet's words. */
-function sightOf(row: CommissioningRow, at: number, value: 0 | 1): Sight {
+/** What a person ticks at a look position of a row (sim/fault-run.ts `lookAt` order: each latch's two Z levers, then each output). */
+export interface LookAt {
+  /** The lever or output, as the sheet's columns name it: `m0 set Z`, `bell (flag)`. */
+  readonly what: string;
+  readonly kind: 'z' | 'flag' | 'actuator';
+  /** The sheet's position there, in words. */
+  readonly expected: string;
+  /** The sheet's value there: 1 (a Z lever down, an output showing 1), 0, or X where the sheet says '?'. */
+  readonly value: number;
+}
+
+/** The look position `at` of a row. */
+export function lookOf(row: CommissioningRow, at: number): LookAt {
   const nl = row.latches.length;
   if (at < 2 * nl) {
     const l = row.latches[at >> 1];
     const side = (at & 1) === 0 ? 'set' : 'reset';
+    const z = side === 'set' ? l.setZ : l.resetZ;
     // A gate's output 1 has its Z down.
-    return {
-      what: `${l.id} ${side} Z`,
-      seen: value === 1 ? 'down' : 'up',
-      expected: side === 'set' ? l.setZ : l.resetZ,
-    };
+    return { what: `${l.id} ${side} Z`, kind: 'z', expected: z, value: z === 'down' ? 1 : z === 'up' ? 0 : X };
   }
   const o = row.outputs[at - 2 * nl];
   return {
     what: `${o.output} (${o.kind})`,
-    seen: showsWords(o.kind, String(value)),
+    kind: o.kind,
     expected: showsWords(o.kind, o.shows),
+    value: o.shows === '1' ? 1 : o.shows === '0' ? 0 : X,
   };
+}
+
+/** A look's position in words for a value (0, 1, or X). */
+export function positionWords(look: Pick<LookAt, 'kind'>, value: number): string {
+  if (look.kind === 'z') return value === X ? '?' : value === 1 ? 'down' : 'up';
+  return showsWords(look.kind, value === X ? 'X' : String(value));
+}
+
+/** What differs at a look position, in the sheet's words. */
+function sightOf(row: CommissioningRow, at: number, value: 0 | 1): Sight {
+  const look = lookOf(row, at);
+  return { what: look.what, seen: positionWords(look, value), expected: look.expected };
 }
 
 const WHY: Readonly<Record<'never' | 'open' | 'may', string>> = {

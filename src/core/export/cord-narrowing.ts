@@ -17,8 +17,10 @@ import type { CordFault } from '../sim/faults.js';
 import { SuspectWalk, type SeenValue, type Walked } from '../sim/narrow.js';
 import { simFor, timingOf } from '../sim/part.js';
 import { sheetSteps } from '../sim/sheet.js';
-import { cordWording, type Sight } from './cord-finder.js';
-import { bayWords, showsWords, type CommissioningRow } from './commissioning.js';
+import { cordWording, lookOf, positionWords, type Sight } from './cord-finder.js';
+
+export { positionWords } from './cord-finder.js';
+import { bayWords, type CommissioningRow } from './commissioning.js';
 import type { DocumentSources } from './documents.js';
 
 /** One value a person ticks on every row. */
@@ -122,12 +124,6 @@ export function lookColumns(sources: DocumentSources): LookColumn[] {
   ];
 }
 
-/** A column's position in words for a value (0, 1, or X). */
-export function positionWords(column: Pick<LookColumn, 'kind'>, value: number): string {
-  if (column.kind === 'z') return value === X ? '?' : value === 1 ? 'down' : 'up';
-  return showsWords(column.kind, value === X ? 'X' : String(value));
-}
-
 /** The value a person's words stand for in a column (`up`, `down`, `lifted`, `at rest`, `1`, `0`), or undefined. */
 export function valueOfWords(column: Pick<LookColumn, 'kind'>, words: string): 0 | 1 | undefined {
   const w = words.trim().toLowerCase();
@@ -138,31 +134,12 @@ export function valueOfWords(column: Pick<LookColumn, 'kind'>, words: string): 0
 }
 
 /** The expected position of every column at a row, in words. */
-export function expectedAt(row: CommissioningRow, columns: readonly LookColumn[]): string[] {
-  const nl = row.latches.length;
-  return columns.map((c, k) => {
-    if (k < 2 * nl) {
-      const l = row.latches[k >> 1];
-      return (k & 1) === 0 ? l.setZ : l.resetZ;
-    }
-    const o = row.outputs[k - 2 * nl];
-    return showsWords(o.kind, o.shows);
-  });
-}
+export const expectedAt = (row: CommissioningRow, columns: readonly LookColumn[]): string[] =>
+  columns.map((_, k) => lookOf(row, k).expected);
 
 /** The value the sheet gives every column at a row (1: Z down, an output showing 1; `X` when the sheet says '?'). */
-export function valuesAt(row: CommissioningRow, columns: readonly LookColumn[]): number[] {
-  const nl = row.latches.length;
-  return columns.map((_, k) => {
-    if (k < 2 * nl) {
-      const l = row.latches[k >> 1];
-      const z = (k & 1) === 0 ? l.setZ : l.resetZ;
-      return z === 'down' ? 1 : z === 'up' ? 0 : X;
-    }
-    const shows = row.outputs[k - 2 * nl].shows;
-    return shows === '1' ? 1 : shows === '0' ? 0 : X;
-  });
-}
+export const valuesAt = (row: CommissioningRow, columns: readonly LookColumn[]): number[] =>
+  columns.map((_, k) => lookOf(row, k).value);
 
 /** A walk along the sheet of one build, kept between questions so each row walked costs one row per suspect. */
 export class CordNarrowing {
